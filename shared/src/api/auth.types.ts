@@ -1,0 +1,69 @@
+import type { ProjectRole, UserRole } from '../auth';
+
+/** POST /api/auth/sign-in body. The response sets an httpOnly cookie and returns `SignInResponse`. */
+export interface SignInRequest {
+  email: string;
+  password: string;
+}
+
+export interface CurrentUser {
+  id: string;
+  email: string;
+  displayName: string;
+  role: UserRole;
+}
+
+export interface SignInResponse {
+  user: CurrentUser;
+}
+
+/** Error body for every non-2xx response. `field` names the offending input when there is one. */
+export interface ApiErrorBody {
+  statusCode: number;
+  code: string;
+  message: string;
+  field?: string;
+  issues?: { path: string; message: string }[];
+}
+
+export interface ProjectSummary {
+  id: string;
+  name: string;
+  productLine: string;
+  description: string;
+  myRole: ProjectRole;
+  memberCount: number;
+}
+
+export interface ProjectMember {
+  userId: string;
+  email: string;
+  displayName: string;
+  role: ProjectRole;
+}
+
+export interface ProjectDetail extends ProjectSummary {
+  members: ProjectMember[];
+}
+
+export interface AddMemberRequest {
+  email: string;
+  role: ProjectRole;
+}
+
+export interface CreateUserRequest {
+  email: string;
+  displayName: string;
+  role: UserRole;
+  password: string;
+}
+
+export interface ResetPasswordRequest {
+  password: string;
+}
+
+export interface HealthResponse {
+  status: 'ok' | 'degraded';
+  app: { version: string; uptimeS: number };
+  database: { status: 'up' | 'down'; latencyMs: number | null };
+}

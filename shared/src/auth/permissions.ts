@@ -1,0 +1,53 @@
+import type { ProjectRole, UserRole } from './roles';
+
+/** Actions inside a project, granted by the member's project role. */
+export type ProjectAction =
+  | 'project.read'
+  | 'design.write'
+  | 'revision.submit'
+  | 'review.comment'
+  | 'review.decide'
+  | 'revision.release'
+  | 'specSheet.export'
+  | 'specSheet.exportDraft'
+  | 'parts.manage'
+  | 'bench.upload'
+  | 'members.manage';
+
+/** Actions on the whole installation, granted by the account role. */
+export type AppAction = 'users.manage' | 'outbox.read' | 'audit.read';
+
+const PROJECT_GRANTS: Record<ProjectAction, readonly ProjectRole[]> = {
+  'project.read': ['engineer', 'reviewer', 'lead'],
+  'design.write': ['engineer', 'lead'],
+  'revision.submit': ['engineer', 'lead'],
+  'review.comment': ['engineer', 'reviewer', 'lead'],
+  'review.decide': ['reviewer', 'lead'],
+  'revision.release': ['lead'],
+  'specSheet.export': ['lead'],
+  'specSheet.exportDraft': ['engineer', 'lead'],
+  'parts.manage': ['lead'],
+  'bench.upload': ['engineer', 'lead'],
+  'members.manage': ['lead'],
+};
+
+const APP_GRANTS: Record<AppAction, readonly UserRole[]> = {
+  'users.manage': ['admin'],
+  'outbox.read': ['admin'],
+  'audit.read': ['admin'],
+};
+
+/** Whether a project member with `role` may perform `action`. */
+export function canInProject(role: ProjectRole, action: ProjectAction): boolean {
+  return PROJECT_GRANTS[action].includes(role);
+}
+
+/** Whether an account with `role` may perform the installation-wide `action`. */
+export function canInApp(role: UserRole, action: AppAction): boolean {
+  return APP_GRANTS[action].includes(role);
+}
+
+/** The project roles that grant `action` (for messages and for the authorization matrix test). */
+export function rolesFor(action: ProjectAction): readonly ProjectRole[] {
+  return PROJECT_GRANTS[action];
+}

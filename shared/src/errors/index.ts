@@ -1,0 +1,2 @@
+export { DomainError, isDomainError } from './domain-error';
+export type { DomainErrorCode, FieldIssue } from './domain-error';
