@@ -1,0 +1,49 @@
+// Small process helpers for the root scripts (start, test, bench).
+import { spawn, spawnSync } from 'node:child_process';
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+
+export const repoRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
+
+/** Runs a command to completion with inherited output; resolves to its exit code. */
+export function run(command, args, options = {}) {
+  return new Promise((resolve) => {
+    const child = spawn(command, args, { cwd: repoRoot, stdio: 'inherit', ...options });
+    child.on('error', (error) => {
+      console.error(`[ladderwright] could not run ${command}: ${error.message}`);
+      resolve(127);
+    });
+    child.on('exit', (code, signal) => resolve(code ?? (signal ? 128 : 1)));
+  });
+}
+
+/** Runs a command synchronously and returns whether it exited 0 (output hidden). */
+export function succeeds(command, args) {
+  return spawnSync(command, args, { cwd: repoRoot, stdio: 'ignore' }).status === 0;
+}
+
+export function hasCommand(name) {
+  return succeeds('sh', ['-c', `command -v ${name}`]);
+}
+
+/** Installs npm packages when node_modules is missing (a fresh clone). */
+export async function ensureNodeModules() {
+  if (existsSync(path.join(repoRoot, 'node_modules', '.package-lock.json'))) return 0;
+  console.log('[ladderwright] installing npm packages (npm ci) ...');
+  return run('npm', ['ci', '--no-audit', '--no-fund']);
+}
+
+/** Installs missing Debian packages: `wanted` maps a command to the package that provides it. */
+export async function ensureDebianPackages(wanted) {
+  const missing = Object.entries(wanted)
+    .filter(([command]) => !hasCommand(command))
+    .map(([, pkg]) => pkg);
+  if (missing.length === 0) return 0;
+  console.log(`[ladderwright] installing Debian packages: ${missing.join(' ')}`);
+  const update = await run('apt-get', ['update', '-qq']);
+  if (update !== 0) return update;
+  return run('apt-get', ['install', '-y', '-qq', ...missing], {
+    env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' },
+  });
+}
