@@ -1,0 +1,8 @@
+export {
+  REVISION_STATES,
+  applyTransition,
+  availableCommands,
+  isRevisionState,
+  transitionRefusal,
+} from './revision-states';
+export type { RevisionCommand, RevisionState, TransitionRequest } from './revision-states';
