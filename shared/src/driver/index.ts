@@ -14,3 +14,7 @@ export type {
 } from './driver.types';
 export { defaultCellCurves, defaultCellMaxContinuousCurrentA } from './cell-curves';
 export { driverExamples } from './driver-examples';
+export { batteryLife, cellCurveOf, cellOpenCircuitVoltageV, cellMaxContinuousCurrentA, supplyThevenin } from './battery';
+export type { BatteryLifeResult } from './battery';
+export { estimateBlockingOscillator } from './blocking-oscillator';
+export type { BlockingOscillatorEstimate, BlockingOscillatorOptions, OnTimeLimit } from './blocking-oscillator';

@@ -1,0 +1,98 @@
+import { describe, expect, it } from 'vitest';
+import { DomainError } from '../errors';
+import { batteryLife, cellCurveOf, cellOpenCircuitVoltageV } from './battery';
+import { defaultCellCurves } from './cell-curves';
+import type { CellsSupply } from './driver.types';
+
+const twoAlkaline: CellsSupply = {
+  kind: 'cells',
+  chemistry: 'alkaline',
+  cellsInSeries: 2,
+  capacityAh: 2.5,
+  internalResistanceOhm: 0.15,
+  endVoltagePerCellV: 0.9,
+};
+
+/** Independent reference: plain trapezoid rule on a uniform state-of-charge grid, own interpolation. */
+function trapezoidLifeS(supply: CellsSupply, currentAt: (v: number) => number, steps = 200_000): number {
+  const curve = [...(supply.curve ?? defaultCellCurves.alkaline)].sort((a, b) => a.chargeFraction - b.chargeFraction);
+  const voc = (s: number) => {
+    for (let i = 1; i < curve.length; i++) {
+      const a = curve[i - 1]!;
+      const b = curve[i]!;
+      if (s <= b.chargeFraction) return a.voltageV + ((b.voltageV - a.voltageV) * (s - a.chargeFraction)) / (b.chargeFraction - a.chargeFraction);
+    }
+    return curve[curve.length - 1]!.voltageV;
+  };
+  const cell = (s: number) => {
+    // Solve V = n·(Voc − I(V)·R) by bisection on the cell voltage.
+    let lo = 0;
+    let hi = voc(s);
+    for (let k = 0; k < 80; k++) {
+      const mid = 0.5 * (lo + hi);
+      if (mid < voc(s) - currentAt(supply.cellsInSeries * mid) * supply.internalResistanceOhm) lo = mid;
+      else hi = mid;
+    }
+    const v = 0.5 * (lo + hi);
+    return { v, i: currentAt(supply.cellsInSeries * v) };
+  };
+  const ds = 1 / steps;
+  let life = 0;
+  let prev: number | null = null;
+  for (let k = steps; k >= 0; k--) {
+    const s = k * ds;
+    const c = cell(s);
+    if (c.v < supply.endVoltagePerCellV) break;
+    const g = (supply.capacityAh * 3600) / c.i;
+    if (prev !== null) life += 0.5 * (prev + g) * ds;
+    prev = g;
+  }
+  return life;
+}
+
+describe('batteryLife', () => {
+  it('matches an independent trapezoid integration at a constant drain', () => {
+    const load = () => 0.1;
+    const ours = batteryLife(twoAlkaline, load).lifeS.value;
+    // Tolerance 1e-4 relative: the trapezoid grid (2e5 steps) stops within one step of the end point.
+    expect(Math.abs(ours - trapezoidLifeS(twoAlkaline, load)) / ours).toBeLessThan(1e-4);
+  });
+
+  it('matches an independent trapezoid integration for a constant-power load', () => {
+    const load = (v: number) => 0.4 / v; // 0.4 W converter input
+    const ours = batteryLife(twoAlkaline, load).lifeS.value;
+    // Tolerance 1e-4 relative, as above.
+    expect(Math.abs(ours - trapezoidLifeS(twoAlkaline, load)) / ours).toBeLessThan(1e-4);
+  });
+
+  it('equals capacity over current when the end voltage is never reached (charge balance)', () => {
+    const deep: CellsSupply = { ...twoAlkaline, endVoltagePerCellV: 0.5 };
+    // 2.5 Ah / 0.05 A = 50 h exactly; Gauss-Legendre is exact for a constant integrand, so 5e-7 h (6 digits) is rounding only.
+    expect(batteryLife(deep, () => 0.05).lifeS.value / 3600).toBeCloseTo(50, 6);
+  });
+
+  it('gives an AA alkaline about 100 h at 25 mA (common practice, no source; ±15 %)', () => {
+    // Common practice: 2.5–3 Ah at tens of mA (REFERENCES.md §6, Linden & Reddy from memory). ±15 % covers
+    // the spread of cell makes and of the end voltage.
+    const hours = batteryLife(twoAlkaline, () => 0.025).lifeS.value / 3600;
+    expect(hours).toBeGreaterThan(85);
+    expect(hours).toBeLessThan(115);
+  });
+
+  it('shortens the life when the internal resistance rises (end voltage reached earlier)', () => {
+    const a = batteryLife(twoAlkaline, () => 0.5);
+    const b = batteryLife({ ...twoAlkaline, internalResistanceOhm: 0.6 }, () => 0.5);
+    expect(b.lifeS.value).toBeLessThan(a.lifeS.value);
+    expect(b.endChargeFraction).toBeGreaterThan(a.endChargeFraction);
+  });
+
+  it('interpolates the built-in curve between its points', () => {
+    const curve = cellCurveOf(twoAlkaline);
+    // Built-in alkaline points (common practice, no source): 1.27 V at 0.5, 1.36 V at 0.7 → 1.315 V at 0.6.
+    expect(cellOpenCircuitVoltageV(curve, 0.6)).toBeCloseTo(1.315, 12);
+  });
+
+  it('rejects a custom chemistry without a curve', () => {
+    expect(() => batteryLife({ ...twoAlkaline, chemistry: 'custom' }, () => 0.1)).toThrow(DomainError);
+  });
+});

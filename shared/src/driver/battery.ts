@@ -1,0 +1,142 @@
+import { DomainError } from '../errors';
+import { defaultCellCurves, defaultCellMaxContinuousCurrentA } from './cell-curves';
+import type { CellCurvePoint, CellsSupply, DriverSupply, Estimated, MethodInfo } from './driver.types';
+
+/** The per-cell curve of a cells supply, sorted by rising charge fraction and checked. */
+export function cellCurveOf(supply: CellsSupply): CellCurvePoint[] {
+  const raw = supply.curve ?? (supply.chemistry === 'custom' ? undefined : defaultCellCurves[supply.chemistry]);
+  if (!raw || raw.length < 2) {
+    throw new DomainError('invalid_design', 'a custom cell needs a discharge curve of at least two points', 'driver.supply.curve');
+  }
+  const curve = [...raw].sort((a, b) => a.chargeFraction - b.chargeFraction);
+  curve.forEach((p, i) => {
+    if (!(p.chargeFraction >= 0 && p.chargeFraction <= 1) || !(p.voltageV > 0)) {
+      throw new DomainError('invalid_design', 'curve points need 0 ≤ chargeFraction ≤ 1 and a positive voltage', `driver.supply.curve[${i}]`);
+    }
+  });
+  return curve;
+}
+
+/** Per-cell open-circuit voltage at a state of charge, by linear interpolation of the curve (clamped at its ends). */
+export function cellOpenCircuitVoltageV(curve: readonly CellCurvePoint[], chargeFraction: number): number {
+  const first = curve[0];
+  const last = curve[curve.length - 1];
+  if (!first || !last) throw new DomainError('invalid_argument', 'empty cell curve');
+  if (chargeFraction <= first.chargeFraction) return first.voltageV;
+  if (chargeFraction >= last.chargeFraction) return last.voltageV;
+  for (let i = 1; i < curve.length; i++) {
+    const a = curve[i - 1]!;
+    const b = curve[i]!;
+    if (chargeFraction <= b.chargeFraction) {
+      const span = b.chargeFraction - a.chargeFraction;
+      return span > 0 ? a.voltageV + ((b.voltageV - a.voltageV) * (chargeFraction - a.chargeFraction)) / span : b.voltageV;
+    }
+  }
+  return last.voltageV;
+}
+
+/** Open-circuit voltage (V) and series resistance (Ω) of the whole supply at a state of charge (cells) . */
+export function supplyThevenin(supply: DriverSupply, chargeFraction = 1): { openCircuitV: number; resistanceOhm: number } {
+  if (supply.kind === 'dc') return { openCircuitV: supply.voltageV, resistanceOhm: supply.sourceResistanceOhm };
+  const curve = cellCurveOf(supply);
+  return {
+    openCircuitV: supply.cellsInSeries * cellOpenCircuitVoltageV(curve, chargeFraction),
+    resistanceOhm: supply.cellsInSeries * supply.internalResistanceOhm,
+  };
+}
+
+/** Continuous drain one cell tolerates (A): the supply's own figure, else the chemistry's common-practice figure. */
+export function cellMaxContinuousCurrentA(supply: CellsSupply): number {
+  if (supply.maxContinuousCurrentA !== undefined) return supply.maxContinuousCurrentA;
+  if (supply.chemistry === 'custom') {
+    throw new DomainError('invalid_design', 'a custom cell needs maxContinuousCurrentA', 'driver.supply.maxContinuousCurrentA');
+  }
+  return defaultCellMaxContinuousCurrentA[supply.chemistry];
+}
+
+export interface BatteryLifeResult {
+  lifeS: Estimated;
+  /** State of charge at which the loaded cell voltage reaches the end voltage (0 when the curve never reaches it). */
+  endChargeFraction: number;
+  /** Mean supply current over the life (A). */
+  meanCurrentA: number;
+}
+
+const batteryLifeMethod: MethodInfo = {
+  methodId: 'battery-life.curve-integral',
+  summary:
+    'Time to the end voltage: t = ∫ C dσ / I(V(σ)) from full charge down to the state of charge σ at which the loaded cell voltage V = Voc(σ) − I·R falls to the end voltage.',
+  assumptions: [
+    'capacity independent of drain rate (no rate derating)',
+    'internal resistance constant over the discharge',
+    'room temperature, continuous operation without recovery',
+    'per-cell curve interpolated linearly between its points',
+  ],
+  source: 'Charge balance (definition of capacity); curve shape common practice, no source; Linden & Reddy, Handbook of Batteries, 4th ed. (from memory)',
+};
+
+/**
+ * Battery life (s) of a cells supply drawn by a load whose current depends on the supply's terminal voltage.
+ * `currentAtTerminalV(V)` gives the supply current (A) at terminal voltage V (V). The terminal voltage at
+ * each state of charge solves V = n·(Voc(σ) − I(V)·R) by fixed-point iteration. Integration: composite
+ * Gauss-Legendre (4 points) on each curve segment, 8 sub-intervals per segment, down to the end point
+ * found by bisection. Method: charge balance, see `batteryLifeMethod`.
+ */
+export function batteryLife(supply: CellsSupply, currentAtTerminalV: (terminalV: number) => number): BatteryLifeResult {
+  if (!(supply.capacityAh > 0)) throw new DomainError('invalid_design', 'capacity must be positive', 'driver.supply.capacityAh');
+  if (!(supply.cellsInSeries >= 1)) throw new DomainError('invalid_design', 'at least one cell', 'driver.supply.cellsInSeries');
+  const curve = cellCurveOf(supply);
+  const n = supply.cellsInSeries;
+  const currentAt = (sigma: number): { currentA: number; cellV: number } => {
+    const voc = cellOpenCircuitVoltageV(curve, sigma);
+    let cellV = voc;
+    let currentA = 0;
+    for (let k = 0; k < 60; k++) {
+      currentA = Math.max(0, currentAtTerminalV(n * cellV));
+      const next = voc - currentA * supply.internalResistanceOhm;
+      if (Math.abs(next - cellV) < 1e-9) {
+        cellV = next;
+        break;
+      }
+      cellV = 0.5 * (cellV + next);
+    }
+    return { currentA, cellV };
+  };
+  const margin = (sigma: number): number => currentAt(sigma).cellV - supply.endVoltagePerCellV;
+  if (margin(1) <= 0) {
+    return { lifeS: { value: 0, method: batteryLifeMethod }, endChargeFraction: 1, meanCurrentA: currentAt(1).currentA };
+  }
+  let endSigma = 0;
+  if (margin(0) < 0) {
+    let lo = 0;
+    let hi = 1;
+    for (let k = 0; k < 60; k++) {
+      const mid = 0.5 * (lo + hi);
+      if (margin(mid) < 0) lo = mid;
+      else hi = mid;
+    }
+    endSigma = hi;
+  }
+  const breaks = [endSigma, ...curve.map((p) => p.chargeFraction).filter((s) => s > endSigma && s < 1), 1];
+  const gaussX = [-0.8611363115940526, -0.3399810435848563, 0.3399810435848563, 0.8611363115940526];
+  const gaussW = [0.3478548451374538, 0.6521451548625461, 0.6521451548625461, 0.3478548451374538];
+  const capacityC = supply.capacityAh * 3600;
+  let lifeS = 0;
+  for (let b = 1; b < breaks.length; b++) {
+    const a0 = breaks[b - 1]!;
+    const a1 = breaks[b]!;
+    const subs = 8;
+    for (let s = 0; s < subs; s++) {
+      const x0 = a0 + ((a1 - a0) * s) / subs;
+      const x1 = a0 + ((a1 - a0) * (s + 1)) / subs;
+      gaussX.forEach((g, j) => {
+        const sigma = 0.5 * (x0 + x1) + 0.5 * (x1 - x0) * g;
+        const i = currentAt(sigma).currentA;
+        if (!(i > 0)) throw new DomainError('invalid_argument', 'the load draws no current: battery life is unbounded');
+        lifeS += 0.5 * (x1 - x0) * gaussW[j]! * (capacityC / i);
+      });
+    }
+  }
+  const drawnC = capacityC * (1 - endSigma);
+  return { lifeS: { value: lifeS, method: batteryLifeMethod }, endChargeFraction: endSigma, meanCurrentA: drawnC / lifeS };
+}
