@@ -46,6 +46,12 @@ export interface ProjectDetail extends ProjectSummary {
   members: ProjectMember[];
 }
 
+export interface CreateProjectRequest {
+  name: string;
+  productLine: string;
+  description?: string;
+}
+
 export interface AddMemberRequest {
   email: string;
   role: ProjectRole;
@@ -56,6 +62,11 @@ export interface CreateUserRequest {
   displayName: string;
   role: UserRole;
   password: string;
+}
+
+/** An account as the admin sees it in GET /api/users. */
+export interface UserSummary extends CurrentUser {
+  createdAt: string;
 }
 
 export interface ResetPasswordRequest {

@@ -6,8 +6,10 @@ export type {
   ProjectSummary,
   ProjectMember,
   ProjectDetail,
+  CreateProjectRequest,
   AddMemberRequest,
   CreateUserRequest,
+  UserSummary,
   ResetPasswordRequest,
   HealthResponse,
 } from './auth.types';

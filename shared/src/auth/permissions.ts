@@ -15,7 +15,7 @@ export type ProjectAction =
   | 'members.manage';
 
 /** Actions on the whole installation, granted by the account role. */
-export type AppAction = 'users.manage' | 'outbox.read' | 'audit.read';
+export type AppAction = 'users.manage' | 'projects.create' | 'outbox.read' | 'audit.read';
 
 const PROJECT_GRANTS: Record<ProjectAction, readonly ProjectRole[]> = {
   'project.read': ['engineer', 'reviewer', 'lead'],
@@ -33,6 +33,7 @@ const PROJECT_GRANTS: Record<ProjectAction, readonly ProjectRole[]> = {
 
 const APP_GRANTS: Record<AppAction, readonly UserRole[]> = {
   'users.manage': ['admin'],
+  'projects.create': ['admin', 'lead'],
   'outbox.read': ['admin'],
   'audit.read': ['admin'],
 };

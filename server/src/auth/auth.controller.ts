@@ -1,0 +1,50 @@
+import { Body, Controller, Get, HttpCode, Inject, Post, Req, Res } from '@nestjs/common';
+import { ApiCookieAuth, ApiTags } from '@nestjs/swagger';
+import type { CookieOptions, Response } from 'express';
+import type { CurrentUser as SessionUser, SignInResponse } from '@ladderwright/shared/api';
+import { APP_ENV, type AppEnv } from '../config/env';
+import { CurrentUser } from '../common/decorators/current-user.decorator';
+import { Public } from '../common/decorators/public.decorator';
+import type { AppRequest } from '../common/request.types';
+import { AuthService } from './auth.service';
+import { SignInDto } from './dto/sign-in.dto';
+import { SESSION_COOKIE } from './jwt.strategy';
+
+@ApiTags('auth')
+@Controller('auth')
+export class AuthController {
+  constructor(
+    private readonly auth: AuthService,
+    @Inject(APP_ENV) private readonly env: AppEnv,
+  ) {}
+
+  @Public()
+  @Post('sign-in')
+  @HttpCode(200)
+  async signIn(
+    @Body() body: SignInDto,
+    @Req() request: AppRequest,
+    @Res({ passthrough: true }) response: Response,
+  ): Promise<SignInResponse> {
+    const { user, token } = await this.auth.signIn(body, request.ip ?? 'unknown');
+    response.cookie(SESSION_COOKIE, token, { ...this.cookieOptions(), maxAge: this.env.jwtTtlS * 1000 });
+    return { user };
+  }
+
+  @Public()
+  @Post('sign-out')
+  @HttpCode(204)
+  signOut(@Res({ passthrough: true }) response: Response): void {
+    response.clearCookie(SESSION_COOKIE, this.cookieOptions());
+  }
+
+  @ApiCookieAuth()
+  @Get('me')
+  me(@CurrentUser() user: SessionUser): SessionUser {
+    return user;
+  }
+
+  private cookieOptions(): CookieOptions {
+    return { httpOnly: true, sameSite: 'strict', secure: this.env.cookieSecure, path: '/' };
+  }
+}

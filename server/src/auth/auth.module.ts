@@ -1,0 +1,30 @@
+import { Module } from '@nestjs/common';
+import { JwtModule } from '@nestjs/jwt';
+import { PassportModule } from '@nestjs/passport';
+import { APP_ENV, type AppEnv } from '../config/env';
+import { UsersModule } from '../users/users.module';
+import { AuthController } from './auth.controller';
+import { AuthService } from './auth.service';
+import { JwtStrategy } from './jwt.strategy';
+import { SignInThrottleService } from './sign-in-throttle.service';
+
+@Module({
+  imports: [
+    UsersModule,
+    PassportModule,
+    JwtModule.registerAsync({
+      inject: [APP_ENV],
+      useFactory: (env: AppEnv) => ({
+        secret: env.jwtSecret,
+        signOptions: { expiresIn: env.jwtTtlS, algorithm: 'HS256' },
+      }),
+    }),
+  ],
+  controllers: [AuthController],
+  providers: [
+    AuthService,
+    JwtStrategy,
+    { provide: SignInThrottleService, useFactory: () => new SignInThrottleService() },
+  ],
+})
+export class AuthModule {}

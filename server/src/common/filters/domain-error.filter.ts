@@ -1,0 +1,138 @@
+import {
+  type ArgumentsHost,
+  Catch,
+  type ExceptionFilter,
+  HttpException,
+  HttpStatus,
+  Logger,
+  type ValidationError,
+} from '@nestjs/common';
+import type { Response } from 'express';
+import { ConnectionError, ForeignKeyConstraintError, UniqueConstraintError } from 'sequelize';
+import type { ApiErrorBody } from '@ladderwright/shared/api';
+import { isDomainError, type DomainError, type DomainErrorCode } from '@ladderwright/shared/errors';
+
+const DOMAIN_STATUS: Record<DomainErrorCode, number> = {
+  invalid_quantity: HttpStatus.BAD_REQUEST,
+  invalid_design: HttpStatus.BAD_REQUEST,
+  invalid_argument: HttpStatus.BAD_REQUEST,
+  unsupported_version: HttpStatus.BAD_REQUEST,
+  not_converged: HttpStatus.UNPROCESSABLE_ENTITY,
+  illegal_transition: HttpStatus.CONFLICT,
+  stale_base: HttpStatus.CONFLICT,
+  not_found: HttpStatus.NOT_FOUND,
+  forbidden: HttpStatus.FORBIDDEN,
+};
+
+const HTTP_CODES: Record<number, string> = {
+  400: 'bad_request',
+  401: 'unauthorized',
+  403: 'forbidden',
+  404: 'not_found',
+  405: 'method_not_allowed',
+  409: 'conflict',
+  413: 'payload_too_large',
+  415: 'unsupported_media_type',
+  422: 'unprocessable',
+  429: 'too_many_requests',
+  503: 'unavailable',
+};
+
+/** Thrown by the global ValidationPipe: carries class-validator's findings as field issues. */
+export class RequestValidationException extends HttpException {
+  readonly issues: { path: string; message: string }[];
+
+  constructor(errors: ValidationError[]) {
+    const issues = flattenValidationErrors(errors);
+    super(issues[0] ? `${issues[0].path}: ${issues[0].message}` : 'Invalid request', HttpStatus.BAD_REQUEST);
+    this.issues = issues;
+  }
+}
+
+/** 429 with a `Retry-After` header (seconds). */
+export class RetryLaterException extends HttpException {
+  constructor(
+    message: string,
+    readonly retryAfterS: number,
+  ) {
+    super(message, HttpStatus.TOO_MANY_REQUESTS);
+  }
+}
+
+function flattenValidationErrors(errors: ValidationError[], prefix = ''): { path: string; message: string }[] {
+  return errors.flatMap((error) => {
+    const path = prefix ? `${prefix}.${error.property}` : error.property;
+    const own = Object.values(error.constraints ?? {}).map((message) => ({ path, message }));
+    return [...own, ...flattenValidationErrors(error.children ?? [], path)];
+  });
+}
+
+function fromDomainError(error: DomainError): ApiErrorBody {
+  const body: ApiErrorBody = { statusCode: DOMAIN_STATUS[error.code], code: error.code, message: error.message };
+  if (error.field) body.field = error.field;
+  if (error.issues.length > 0) body.issues = error.issues;
+  return body;
+}
+
+function fromHttpException(error: HttpException): ApiErrorBody {
+  const statusCode = error.getStatus();
+  if (error instanceof RequestValidationException) {
+    const first = error.issues[0];
+    return {
+      statusCode,
+      code: 'invalid_argument',
+      message: error.message,
+      ...(first ? { field: first.path } : {}),
+      issues: error.issues,
+    };
+  }
+  const response = error.getResponse();
+  const raw = typeof response === 'string' ? response : (response as { message?: unknown }).message;
+  const message = Array.isArray(raw) ? raw.join('; ') : typeof raw === 'string' ? raw : error.message;
+  return { statusCode, code: HTTP_CODES[statusCode] ?? (statusCode >= 500 ? 'internal' : 'bad_request'), message };
+}
+
+/** Body-parser failures (malformed JSON, oversized body) arrive as errors with a 4xx `status`. */
+function fromClientError(error: unknown): ApiErrorBody | null {
+  const status = (error as { status?: unknown; type?: unknown }).status;
+  if (typeof status !== 'number' || status < 400 || status >= 500) return null;
+  const message = status === 400 ? 'The request body is not valid JSON' : 'The request body was refused';
+  return { statusCode: status, code: HTTP_CODES[status] ?? 'bad_request', message };
+}
+
+/**
+ * Maps every error to the `ApiErrorBody` shape: DomainError codes to their status, HttpExceptions as they
+ * are, validation findings to 400 with the first offending field. Unknown errors become a bare 500.
+ */
+@Catch()
+export class DomainErrorFilter implements ExceptionFilter {
+  private readonly logger = new Logger('DomainErrorFilter');
+
+  catch(error: unknown, host: ArgumentsHost): void {
+    const response = host.switchToHttp().getResponse<Response>();
+    const body = this.toBody(error);
+    if (response.headersSent) return;
+    if (error instanceof RetryLaterException) response.setHeader('Retry-After', String(error.retryAfterS));
+    response.status(body.statusCode).json(body);
+  }
+
+  private toBody(error: unknown): ApiErrorBody {
+    if (isDomainError(error)) return fromDomainError(error);
+    if (error instanceof HttpException) return fromHttpException(error);
+    if (error instanceof UniqueConstraintError) {
+      const field = Object.keys(error.fields ?? {})[0];
+      return { statusCode: 409, code: 'conflict', message: 'A record with this value already exists', ...(field ? { field } : {}) };
+    }
+    if (error instanceof ForeignKeyConstraintError) {
+      return { statusCode: 409, code: 'conflict', message: 'The record refers to, or is referred to by, another record' };
+    }
+    if (error instanceof ConnectionError) {
+      this.logger.error(`database unavailable: ${error.message}`);
+      return { statusCode: 503, code: 'database_unavailable', message: 'The database is not reachable' };
+    }
+    const clientError = fromClientError(error);
+    if (clientError) return clientError;
+    this.logger.error(error instanceof Error ? (error.stack ?? error.message) : String(error));
+    return { statusCode: 500, code: 'internal', message: 'Internal server error' };
+  }
+}

@@ -1,0 +1,44 @@
+import { type CanActivate, type ExecutionContext, Injectable, UnauthorizedException } from '@nestjs/common';
+import { Reflector } from '@nestjs/core';
+import { canInProject, type ProjectAction, rolesFor } from '@ladderwright/shared/auth';
+import { DomainError } from '@ladderwright/shared/errors';
+import { ProjectsService } from '../../projects/projects.service';
+import { PROJECT_ACTION_KEY } from '../decorators/requires-permission.decorator';
+import type { AppRequest } from '../request.types';
+import { isUuid } from '../uuid';
+
+/**
+ * Global guard for routes with `:projectId`. Not a member (or no such project, or a malformed id) -> 404,
+ * so that projects of other teams cannot be discovered; a member whose project role lacks the route's
+ * action -> 403.
+ */
+@Injectable()
+export class ProjectAccessGuard implements CanActivate {
+  constructor(
+    private readonly reflector: Reflector,
+    private readonly projects: ProjectsService,
+  ) {}
+
+  async canActivate(context: ExecutionContext): Promise<boolean> {
+    const request = context.switchToHttp().getRequest<AppRequest>();
+    const param: unknown = request.params?.projectId;
+    if (param === undefined) return true;
+    const projectId = typeof param === 'string' ? param : '';
+    const user = request.user;
+    if (!user) throw new UnauthorizedException('Sign in first');
+
+    const role = isUuid(projectId) ? await this.projects.findMemberRole(projectId, user.id) : null;
+    if (!role) throw new DomainError('not_found', 'Project not found', 'projectId');
+
+    const action =
+      this.reflector.getAllAndOverride<ProjectAction | undefined>(PROJECT_ACTION_KEY, [
+        context.getHandler(),
+        context.getClass(),
+      ]) ?? 'project.read';
+    if (!canInProject(role, action)) {
+      throw new DomainError('forbidden', `Needs the ${rolesFor(action).join(' or ')} role in this project (you are ${role})`);
+    }
+    request.projectMembership = { projectId, role };
+    return true;
+  }
+}

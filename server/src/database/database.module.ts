@@ -1,0 +1,32 @@
+import { Module } from '@nestjs/common';
+import { SequelizeModule } from '@nestjs/sequelize';
+import { APP_ENV, type AppEnv } from '../config/env';
+import { ProjectMemberModel } from '../projects/project-member.model';
+import { ProjectModel } from '../projects/project.model';
+import { UserModel } from '../users/user.model';
+
+export const ALL_MODELS = [UserModel, ProjectModel, ProjectMemberModel];
+
+/**
+ * The one Sequelize connection. Models are registered explicitly; the schema comes only from
+ * migrations (no sync). The connection is lazy, so the app boots and reports `degraded` health
+ * while the database is down.
+ */
+@Module({
+  imports: [
+    SequelizeModule.forRootAsync({
+      inject: [APP_ENV],
+      useFactory: (env: AppEnv) => ({
+        dialect: 'postgres',
+        uri: env.databaseUrl,
+        models: ALL_MODELS,
+        autoLoadModels: false,
+        synchronize: false,
+        logging: false,
+        pool: { max: 10, min: 0, acquire: 10_000, idle: 10_000 },
+        dialectOptions: { connectionTimeoutMillis: 5_000 },
+      }),
+    }),
+  ],
+})
+export class DatabaseModule {}

@@ -1,0 +1,51 @@
+import { Body, Controller, Delete, Get, HttpCode, Param, Post } from '@nestjs/common';
+import { ApiCookieAuth, ApiTags } from '@nestjs/swagger';
+import type { CurrentUser as SessionUser, ProjectDetail, ProjectMember, ProjectSummary } from '@ladderwright/shared/api';
+import { CurrentUser } from '../common/decorators/current-user.decorator';
+import { ProjectMembership } from '../common/decorators/project-membership.decorator';
+import { RequiresAppAction, RequiresProjectAction } from '../common/decorators/requires-permission.decorator';
+import type { ProjectMembership as Membership } from '../common/request.types';
+import { AddMemberDto } from './dto/add-member.dto';
+import { CreateProjectDto } from './dto/create-project.dto';
+import { ProjectsService } from './projects.service';
+
+@ApiTags('projects')
+@ApiCookieAuth()
+@Controller('projects')
+export class ProjectsController {
+  constructor(private readonly projects: ProjectsService) {}
+
+  @Get()
+  list(@CurrentUser() user: SessionUser): Promise<ProjectSummary[]> {
+    return this.projects.listForUser(user.id);
+  }
+
+  @Post()
+  @RequiresAppAction('projects.create')
+  create(@CurrentUser() user: SessionUser, @Body() body: CreateProjectDto): Promise<ProjectSummary> {
+    return this.projects.create(body, user.id);
+  }
+
+  @Get(':projectId')
+  detail(@ProjectMembership() membership: Membership): Promise<ProjectDetail> {
+    return this.projects.detail(membership.projectId, membership.role);
+  }
+
+  @Get(':projectId/members')
+  members(@ProjectMembership() membership: Membership): Promise<ProjectMember[]> {
+    return this.projects.listMembers(membership.projectId);
+  }
+
+  @Post(':projectId/members')
+  @RequiresProjectAction('members.manage')
+  addMember(@ProjectMembership() membership: Membership, @Body() body: AddMemberDto): Promise<ProjectMember> {
+    return this.projects.addMember(membership.projectId, body);
+  }
+
+  @Delete(':projectId/members/:userId')
+  @HttpCode(204)
+  @RequiresProjectAction('members.manage')
+  async removeMember(@ProjectMembership() membership: Membership, @Param('userId') userId: string): Promise<void> {
+    await this.projects.removeMember(membership.projectId, userId);
+  }
+}

@@ -1,0 +1,138 @@
+import { Injectable } from '@nestjs/common';
+import { InjectModel } from '@nestjs/sequelize';
+import type { Transaction } from 'sequelize';
+import { Sequelize } from 'sequelize-typescript';
+import type {
+  AddMemberRequest,
+  CreateProjectRequest,
+  ProjectDetail,
+  ProjectMember,
+  ProjectSummary,
+} from '@ladderwright/shared/api';
+import type { ProjectRole } from '@ladderwright/shared/auth';
+import { DomainError } from '@ladderwright/shared/errors';
+import { isUuid } from '../common/uuid';
+import { UserModel } from '../users/user.model';
+import { UsersService } from '../users/users.service';
+import { ProjectMemberModel } from './project-member.model';
+import { ProjectModel } from './project.model';
+
+function toMember(member: ProjectMemberModel): ProjectMember {
+  const user = member.user;
+  if (!user) throw new Error('project member loaded without its user');
+  return { userId: member.userId, email: user.email, displayName: user.displayName, role: member.role };
+}
+
+@Injectable()
+export class ProjectsService {
+  constructor(
+    @InjectModel(ProjectModel) private readonly projects: typeof ProjectModel,
+    @InjectModel(ProjectMemberModel) private readonly members: typeof ProjectMemberModel,
+    private readonly users: UsersService,
+    private readonly sequelize: Sequelize,
+  ) {}
+
+  async findMemberRole(projectId: string, userId: string): Promise<ProjectRole | null> {
+    if (!isUuid(projectId) || !isUuid(userId)) return null;
+    const member = await this.members.findOne({ where: { projectId, userId }, attributes: ['role'] });
+    return member?.role ?? null;
+  }
+
+  /** The projects `userId` is a member of, with that user's role and the member count. */
+  async listForUser(userId: string): Promise<ProjectSummary[]> {
+    const rows = await this.members.findAll({ where: { userId }, include: [ProjectModel] });
+    const counts = await this.memberCounts(rows.map((row) => row.projectId));
+    return rows
+      .map((row) => {
+        const project = row.project;
+        if (!project) throw new Error('membership loaded without its project');
+        return this.toSummary(project, row.role, counts.get(project.id) ?? 0);
+      })
+      .sort((a, b) => a.name.localeCompare(b.name));
+  }
+
+  async detail(projectId: string, myRole: ProjectRole): Promise<ProjectDetail> {
+    const project = await this.projects.findByPk(projectId);
+    if (!project) throw new DomainError('not_found', 'Project not found', 'projectId');
+    const members = await this.listMembers(projectId);
+    return { ...this.toSummary(project, myRole, members.length), members };
+  }
+
+  async listMembers(projectId: string): Promise<ProjectMember[]> {
+    const rows = await this.members.findAll({ where: { projectId }, include: [UserModel] });
+    return rows.map(toMember).sort((a, b) => a.email.localeCompare(b.email));
+  }
+
+  /** Creates a project with `creatorId` as its lead. */
+  async create(request: CreateProjectRequest, creatorId: string): Promise<ProjectSummary> {
+    return this.sequelize.transaction(async (transaction) => {
+      const project = await this.projects.create(
+        { name: request.name.trim(), productLine: request.productLine.trim(), description: request.description?.trim() ?? '' },
+        { transaction },
+      );
+      await this.members.create({ projectId: project.id, userId: creatorId, role: 'lead' }, { transaction });
+      return this.toSummary(project, 'lead', 1);
+    });
+  }
+
+  /** Adds the account with `request.email` to the project, or changes its role when already a member. */
+  async addMember(projectId: string, request: AddMemberRequest): Promise<ProjectMember> {
+    const userId = await this.users.findIdByEmail(request.email);
+    if (!userId) throw new DomainError('invalid_argument', 'No account has this e-mail', 'email');
+    await this.sequelize.transaction(async (transaction) => {
+      const existing = await this.members.findOne({ where: { projectId, userId }, transaction, lock: transaction.LOCK.UPDATE });
+      if (!existing) {
+        await this.members.create({ projectId, userId, role: request.role }, { transaction });
+        return;
+      }
+      if (existing.role === 'lead' && request.role !== 'lead') await this.assertAnotherLead(projectId, userId, transaction);
+      existing.role = request.role;
+      await existing.save({ transaction });
+    });
+    const member = await this.members.findOne({ where: { projectId, userId }, include: [UserModel] });
+    if (!member) throw new Error('member vanished after it was written');
+    return toMember(member);
+  }
+
+  async removeMember(projectId: string, userId: string): Promise<void> {
+    await this.sequelize.transaction(async (transaction) => {
+      const member = isUuid(userId)
+        ? await this.members.findOne({ where: { projectId, userId }, transaction, lock: transaction.LOCK.UPDATE })
+        : null;
+      if (!member) throw new DomainError('not_found', 'This account is not a member of the project', 'userId');
+      if (member.role === 'lead') await this.assertAnotherLead(projectId, userId, transaction);
+      await member.destroy({ transaction });
+    });
+  }
+
+  private async assertAnotherLead(
+    projectId: string,
+    userId: string,
+    transaction: Transaction,
+  ): Promise<void> {
+    const leads = await this.members.findAll({ where: { projectId, role: 'lead' }, transaction, lock: true });
+    if (!leads.some((lead) => lead.userId !== userId)) {
+      throw new DomainError('illegal_transition', 'A project keeps at least one lead: make another member lead first', 'userId');
+    }
+  }
+
+  private async memberCounts(projectIds: string[]): Promise<Map<string, number>> {
+    if (projectIds.length === 0) return new Map();
+    const rows = (await this.members.count({ where: { projectId: projectIds }, group: ['projectId'] })) as unknown as {
+      projectId: string;
+      count: number | string;
+    }[];
+    return new Map(rows.map((row) => [row.projectId, Number(row.count)]));
+  }
+
+  private toSummary(project: ProjectModel, myRole: ProjectRole, memberCount: number): ProjectSummary {
+    return {
+      id: project.id,
+      name: project.name,
+      productLine: project.productLine,
+      description: project.description,
+      myRole,
+      memberCount,
+    };
+  }
+}

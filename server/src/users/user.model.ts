@@ -1,0 +1,40 @@
+import { Column, DataType, HasMany, Model, Table } from 'sequelize-typescript';
+import type { UserRole } from '@ladderwright/shared/auth';
+import { ProjectMemberModel } from '../projects/project-member.model';
+
+export interface UserAttrs {
+  id: string;
+  email: string;
+  displayName: string;
+  role: UserRole;
+  passwordHash: string;
+  createdAt: Date;
+  updatedAt: Date;
+}
+
+export type UserCreationAttrs = Pick<UserAttrs, 'email' | 'displayName' | 'role' | 'passwordHash'> &
+  Partial<Pick<UserAttrs, 'id'>>;
+
+@Table({ tableName: 'users', underscored: true, timestamps: true })
+export class UserModel extends Model<UserAttrs, UserCreationAttrs> {
+  @Column({ type: DataType.UUID, primaryKey: true, defaultValue: DataType.UUIDV4 })
+  override id: string;
+
+  @Column({ type: DataType.TEXT, allowNull: false, unique: true })
+  email: string;
+
+  @Column({ type: DataType.TEXT, allowNull: false })
+  displayName: string;
+
+  @Column({ type: DataType.TEXT, allowNull: false })
+  role: UserRole;
+
+  @Column({ type: DataType.TEXT, allowNull: false })
+  passwordHash: string;
+
+  @HasMany(() => ProjectMemberModel)
+  memberships?: ProjectMemberModel[];
+
+  override createdAt: Date;
+  override updatedAt: Date;
+}

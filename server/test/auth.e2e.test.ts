@@ -1,0 +1,147 @@
+import request from 'supertest';
+import { createUser, type TestUser } from './factories/create-user';
+import { createTestApp, type TestApp } from './utils/create-test-app';
+import { signIn } from './utils/sign-in';
+
+// Expected statuses and cookie attributes are this API's contract (issue 2), common practice, no source.
+describe('auth', () => {
+  let testApp: TestApp;
+  let engineer: TestUser;
+  const http = () => request(testApp.app.getHttpServer());
+
+  beforeAll(async () => {
+    testApp = await createTestApp();
+    engineer = await createUser(testApp, { role: 'engineer' });
+  });
+  afterAll(async () => testApp.close());
+
+  it('signs in with the right password, sets an httpOnly SameSite=Strict session cookie and returns the user', async () => {
+    const response = await http().post('/api/auth/sign-in').send({ email: engineer.email, password: engineer.password });
+    expect(response.status).toBe(200);
+    expect(response.body).toEqual({
+      user: { id: engineer.id, email: engineer.email, displayName: engineer.displayName, role: 'engineer' },
+    });
+    const cookie = ([] as string[]).concat(response.headers['set-cookie'] ?? []).find((c) => c.startsWith('lw_session='));
+    expect(cookie).toMatch(/HttpOnly/i);
+    expect(cookie).toMatch(/SameSite=Strict/i);
+    expect(cookie).toMatch(/Path=\//);
+  });
+
+  it('matches the e-mail without regard to case', async () => {
+    const response = await http().post('/api/auth/sign-in').send({ email: engineer.email.toUpperCase(), password: engineer.password });
+    expect(response.status).toBe(200);
+  });
+
+  it('returns 401 for a wrong password and sets no cookie', async () => {
+    const response = await http().post('/api/auth/sign-in').send({ email: engineer.email, password: 'Wrong-password-1' });
+    expect(response.status).toBe(401);
+    expect(response.body).toMatchObject({ statusCode: 401, code: 'unauthorized' });
+    expect(response.headers['set-cookie']).toBeUndefined();
+  });
+
+  it('returns the same 401 for an unknown e-mail', async () => {
+    const response = await http().post('/api/auth/sign-in').send({ email: 'nobody@northfold.test', password: 'Whatever-12' });
+    expect(response.status).toBe(401);
+    expect(response.body.message).toBe('E-mail or password is not correct');
+  });
+
+  it.each([
+    ['email', { password: 'Anything-123' }],
+    ['password', { email: 'engineer@northfold.test' }],
+  ])('returns 400 naming %s when it is missing', async (field, body) => {
+    const response = await http().post('/api/auth/sign-in').send(body);
+    expect(response.status).toBe(400);
+    expect(response.body).toMatchObject({ statusCode: 400, code: 'invalid_argument', field });
+    expect(response.body.message).toContain(field);
+  });
+
+  it('returns 400 for a body that is not valid JSON', async () => {
+    const response = await http().post('/api/auth/sign-in').set('Content-Type', 'application/json').send('{"email": ');
+    expect(response.status).toBe(400);
+    expect(response.body).toMatchObject({ statusCode: 400 });
+  });
+
+  it('returns 400 naming an unexpected field', async () => {
+    const response = await http()
+      .post('/api/auth/sign-in')
+      .send({ email: engineer.email, password: engineer.password, role: 'admin' });
+    expect(response.status).toBe(400);
+    expect(response.body.field).toBe('role');
+  });
+
+  it('answers /api/auth/me with the signed-in user', async () => {
+    const cookie = await signIn(testApp, engineer.email, engineer.password);
+    const response = await http().get('/api/auth/me').set('Cookie', cookie);
+    expect(response.status).toBe(200);
+    expect(response.body).toEqual({ id: engineer.id, email: engineer.email, displayName: engineer.displayName, role: 'engineer' });
+  });
+
+  it('answers /api/auth/me with 401 without a cookie', async () => {
+    const response = await http().get('/api/auth/me');
+    expect(response.status).toBe(401);
+    expect(response.body).toMatchObject({ statusCode: 401, code: 'unauthorized' });
+  });
+
+  it('answers /api/auth/me with 401 for a tampered token', async () => {
+    const cookie = await signIn(testApp, engineer.email, engineer.password);
+    const tampered = `${cookie.slice(0, -4)}AAAA`;
+    const response = await http().get('/api/auth/me').set('Cookie', tampered);
+    expect(response.status).toBe(401);
+  });
+
+  it('signs out by expiring the cookie', async () => {
+    const cookie = await signIn(testApp, engineer.email, engineer.password);
+    const response = await http().post('/api/auth/sign-out').set('Cookie', cookie);
+    expect(response.status).toBe(204);
+    const cleared = ([] as string[]).concat(response.headers['set-cookie'] ?? []).find((c) => c.startsWith('lw_session='));
+    expect(cleared).toMatch(/^lw_session=;/);
+    expect(cleared).toMatch(/Expires=Thu, 01 Jan 1970/);
+  });
+});
+
+describe('sign-in throttling', () => {
+  let testApp: TestApp;
+  const http = () => request(testApp.app.getHttpServer());
+
+  beforeAll(async () => {
+    testApp = await createTestApp();
+  });
+  afterAll(async () => testApp.close());
+
+  // Limit from issue 2: 5 failures per e-mail and address per 15 min (common practice, no source).
+  it('refuses the sixth attempt after five failures with 429 and Retry-After, even with the right password', async () => {
+    const user = await createUser(testApp);
+    for (let attempt = 1; attempt <= 5; attempt += 1) {
+      const failed = await http().post('/api/auth/sign-in').send({ email: user.email, password: 'Wrong-password-1' });
+      expect(failed.status).toBe(401);
+    }
+    const sixth = await http().post('/api/auth/sign-in').send({ email: user.email, password: user.password });
+    expect(sixth.status).toBe(429);
+    expect(sixth.body).toMatchObject({ statusCode: 429, code: 'too_many_requests' });
+    const retryAfterS = Number(sixth.headers['retry-after']);
+    expect(retryAfterS).toBeGreaterThan(14 * 60);
+    expect(retryAfterS).toBeLessThanOrEqual(15 * 60);
+  });
+
+  it("does not hold one account's failures against another", async () => {
+    const victim = await createUser(testApp);
+    const other = await createUser(testApp);
+    for (let attempt = 1; attempt <= 5; attempt += 1) {
+      await http().post('/api/auth/sign-in').send({ email: victim.email, password: 'Wrong-password-1' });
+    }
+    const response = await http().post('/api/auth/sign-in').send({ email: other.email, password: other.password });
+    expect(response.status).toBe(200);
+  });
+
+  it('forgets earlier failures after a successful sign-in', async () => {
+    const user = await createUser(testApp);
+    for (let attempt = 1; attempt <= 4; attempt += 1) {
+      await http().post('/api/auth/sign-in').send({ email: user.email, password: 'Wrong-password-1' });
+    }
+    expect((await http().post('/api/auth/sign-in').send({ email: user.email, password: user.password })).status).toBe(200);
+    for (let attempt = 1; attempt <= 4; attempt += 1) {
+      await http().post('/api/auth/sign-in').send({ email: user.email, password: 'Wrong-password-1' });
+    }
+    expect((await http().post('/api/auth/sign-in').send({ email: user.email, password: user.password })).status).toBe(200);
+  });
+});
