@@ -1,0 +1,36 @@
+import { useState, type ReactNode } from 'react';
+import { MantineProvider } from '@mantine/core';
+import { Notifications } from '@mantine/notifications';
+import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
+import { isApiError } from '../lib/api-client';
+import { theme } from './theme';
+
+/** Retries only what may succeed on a second try: not 4xx answers. */
+function shouldRetry(failureCount: number, error: unknown): boolean {
+  if (isApiError(error) && error.status >= 400 && error.status < 500) return false;
+  return failureCount < 2;
+}
+
+export function createAppQueryClient(): QueryClient {
+  return new QueryClient({
+    defaultOptions: {
+      queries: { retry: shouldRetry, staleTime: 30_000, refetchOnWindowFocus: false },
+      mutations: { retry: false },
+    },
+  });
+}
+
+export interface AppProviderProps {
+  children: ReactNode;
+  queryClient?: QueryClient;
+}
+
+export function AppProvider({ children, queryClient }: AppProviderProps) {
+  const [client] = useState(() => queryClient ?? createAppQueryClient());
+  return (
+    <MantineProvider theme={theme} defaultColorScheme="auto">
+      <Notifications position="top-right" />
+      <QueryClientProvider client={client}>{children}</QueryClientProvider>
+    </MantineProvider>
+  );
+}

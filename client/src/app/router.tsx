@@ -1,0 +1,72 @@
+import { useEffect, useMemo } from 'react';
+import { useQueryClient, type QueryClient } from '@tanstack/react-query';
+import { createBrowserRouter, RouterProvider, type RouteObject } from 'react-router-dom';
+import { RouteErrorFallback } from '../components/error-fallback';
+import { paths } from '../config/paths';
+import { setUnauthorizedHandler } from '../lib/api-client';
+import { queryKeys } from '../lib/query-keys';
+import { AppRoot, requireUserLoader } from './routes/app/root';
+
+/** The route tree. Pages load lazily; the shell and its session check are in the first bundle. */
+export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
+  return [
+    {
+      path: paths.signIn.path,
+      errorElement: <RouteErrorFallback />,
+      lazy: async () => {
+        const { SignInRoute, signInLoader } = await import('./routes/auth/sign-in');
+        return { Component: SignInRoute, loader: signInLoader(queryClient) };
+      },
+    },
+    {
+      path: paths.projects.path,
+      element: <AppRoot />,
+      loader: requireUserLoader(queryClient),
+      errorElement: <RouteErrorFallback />,
+      children: [
+        {
+          errorElement: <RouteErrorFallback />,
+          children: [
+            {
+              index: true,
+              lazy: async () => {
+                const { ProjectsRoute, projectsLoader } = await import('./routes/app/projects');
+                return { Component: ProjectsRoute, loader: projectsLoader(queryClient) };
+              },
+            },
+            {
+              path: paths.project.path,
+              lazy: async () => {
+                const { ProjectDesignsRoute, projectDesignsLoader } = await import('./routes/app/project-designs');
+                return { Component: ProjectDesignsRoute, loader: projectDesignsLoader(queryClient) };
+              },
+            },
+          ],
+        },
+      ],
+    },
+    {
+      path: '*',
+      lazy: async () => {
+        const { NotFoundRoute } = await import('./routes/not-found');
+        return { Component: NotFoundRoute };
+      },
+    },
+  ];
+}
+
+export function AppRouter() {
+  const queryClient = useQueryClient();
+  const router = useMemo(() => createBrowserRouter(createAppRoutes(queryClient)), [queryClient]);
+
+  useEffect(() => {
+    setUnauthorizedHandler(() => {
+      queryClient.setQueryData(queryKeys.auth.me(), null);
+      const { pathname, search } = router.state.location;
+      void router.navigate(paths.signIn.getHref(pathname + search), { replace: true });
+    });
+    return () => setUnauthorizedHandler(null);
+  }, [queryClient, router]);
+
+  return <RouterProvider router={router} />;
+}

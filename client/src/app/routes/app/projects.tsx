@@ -1,0 +1,36 @@
+import { Alert, Loader, Stack, Text, Title } from '@mantine/core';
+import { useDocumentTitle } from '@mantine/hooks';
+import type { QueryClient } from '@tanstack/react-query';
+import { getProjectsQueryOptions, useProjects } from '../../../features/projects/api/get-projects';
+import { ProjectList } from '../../../features/projects/components/project-list';
+
+export function projectsLoader(queryClient: QueryClient) {
+  return async () => {
+    await queryClient.prefetchQuery(getProjectsQueryOptions());
+    return null;
+  };
+}
+
+export function ProjectsRoute() {
+  useDocumentTitle('Projects · Ladderwright');
+  const projects = useProjects();
+  return (
+    <Stack gap="lg">
+      <div>
+        <Title order={1} size="h2">
+          Projects
+        </Title>
+        <Text c="dimmed" size="sm">
+          The product lines you work on. Open one to see its Designs.
+        </Text>
+      </div>
+      {projects.isPending && <Loader size="sm" aria-label="Loading projects" />}
+      {projects.isError && (
+        <Alert color="red" variant="light" role="alert" title="Projects could not be loaded">
+          {projects.error.message}
+        </Alert>
+      )}
+      {projects.data && <ProjectList projects={projects.data} />}
+    </Stack>
+  );
+}

@@ -1,0 +1,50 @@
+import { Navigate, Outlet, redirect, useLocation, useNavigate, useParams, type LoaderFunctionArgs } from 'react-router-dom';
+import type { QueryClient } from '@tanstack/react-query';
+import { notifications } from '@mantine/notifications';
+import { AppShell } from '../../../components/app-shell';
+import { paths } from '../../../config/paths';
+import { getMeQueryOptions, useMe } from '../../../features/auth/api/get-me';
+import { useSignOut } from '../../../features/auth/api/sign-out';
+import { useProjects } from '../../../features/projects/api/get-projects';
+import { ProjectNav } from '../../../features/projects/components/project-nav';
+
+/** Lets the signed-in screens load only with a session; otherwise to sign-in, remembering where the user was. */
+export function requireUserLoader(queryClient: QueryClient) {
+  return async ({ request }: LoaderFunctionArgs) => {
+    const user = await queryClient.ensureQueryData(getMeQueryOptions());
+    if (!user) {
+      const url = new URL(request.url);
+      throw redirect(paths.signIn.getHref(url.pathname + url.search));
+    }
+    return null;
+  };
+}
+
+export function AppRoot() {
+  const { data: user } = useMe();
+  const projects = useProjects();
+  const { projectId = null } = useParams();
+  const navigate = useNavigate();
+  const location = useLocation();
+  const signOut = useSignOut({ onSuccess: () => navigate(paths.signIn.getHref(), { replace: true }) });
+
+  if (!user) return <Navigate to={paths.signIn.getHref(location.pathname)} replace />;
+
+  const handleSignOut = () =>
+    signOut.mutate(undefined, {
+      onError: () => notifications.show({ color: 'red', title: 'Sign-out failed', message: 'Try again in a moment.' }),
+    });
+
+  return (
+    <AppShell
+      user={user}
+      onSignOut={handleSignOut}
+      isSigningOut={signOut.isPending}
+      navigation={
+        <ProjectNav projects={projects.data} activeProjectId={projectId} isLoading={projects.isPending} />
+      }
+    >
+      <Outlet />
+    </AppShell>
+  );
+}
