@@ -2,16 +2,13 @@ import { describe, expect, it } from 'vitest';
 import { DomainError } from '../errors';
 import { batteryLife, cellCurveOf, cellOpenCircuitVoltageV } from './battery';
 import { defaultCellCurves } from './cell-curves';
+import { driverExamples } from './driver-examples';
 import type { CellsSupply } from './driver.types';
 
-const twoAlkaline: CellsSupply = {
-  kind: 'cells',
-  chemistry: 'alkaline',
-  cellsInSeries: 2,
-  capacityAh: 2.5,
-  internalResistanceOhm: 0.15,
-  endVoltagePerCellV: 0.9,
-};
+// The demo supply: two alkaline cells, 2.5 Ah, 0.15 Ω each, 0.9 V end point (NAMING.md scenario).
+const demoSupply = driverExamples.surfaceChargeTester.supply;
+if (demoSupply.kind !== 'cells') throw new Error('the demo driver runs on cells');
+const twoAlkaline: CellsSupply = demoSupply;
 
 /** Independent reference: plain trapezoid rule on a uniform state-of-charge grid, own interpolation. */
 function trapezoidLifeS(supply: CellsSupply, currentAt: (v: number) => number, steps = 200_000): number {

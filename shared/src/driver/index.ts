@@ -18,3 +18,5 @@ export { batteryLife, cellCurveOf, cellOpenCircuitVoltageV, cellMaxContinuousCur
 export type { BatteryLifeResult } from './battery';
 export { estimateBlockingOscillator } from './blocking-oscillator';
 export type { BlockingOscillatorEstimate, BlockingOscillatorOptions, OnTimeLimit } from './blocking-oscillator';
+export { driverOperatingPoint, halfWaveCascadeLoadLine, solveLoadPoint } from './operating-point';
+export type { LadderDrive, LadderLoadLine, LoadPoint, OperatingLimit, OperatingPointResult } from './operating-point';
