@@ -1,0 +1,5 @@
+export { parseQuantity, parseQuantityWithUnit } from './parse-quantity';
+export { formatQuantity } from './format-quantity';
+export { nearestPreferred, preferredValuesBetween, seriesMantissas } from './e-series';
+export type { ESeriesName } from './e-series';
+export type { QuantityUnit, ParsedQuantity, ParseQuantityOptions } from './quantity.types';
