@@ -25,7 +25,7 @@ export const driverExamples: Readonly<Record<'surfaceChargeTester', DriverStage>
       feedbackResistanceOhm: 0.1,
       secondaryResistanceOhm: 60,
       saturationCurrentA: 0.6,
-      insulation: { ratedVoltageV: 1500 },
+      insulation: { ratedVoltageV: 3000 },
     },
     transistor: {
       forwardBeta: 100,

@@ -20,3 +20,5 @@ export { estimateBlockingOscillator } from './blocking-oscillator';
 export type { BlockingOscillatorEstimate, BlockingOscillatorOptions, OnTimeLimit } from './blocking-oscillator';
 export { driverOperatingPoint, halfWaveCascadeLoadLine, solveLoadPoint } from './operating-point';
 export type { LadderDrive, LadderLoadLine, LoadPoint, OperatingLimit, OperatingPointResult } from './operating-point';
+export { runDriverChecks } from './driver-checks';
+export type { DriverChecksInput, DriverChecksResult } from './driver-checks';

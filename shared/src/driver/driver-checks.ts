@@ -1,0 +1,129 @@
+import { DomainError } from '../errors';
+import { batteryLife, cellCurveOf, cellMaxContinuousCurrentA, type BatteryLifeResult } from './battery';
+import { estimateBlockingOscillator, type BlockingOscillatorEstimate } from './blocking-oscillator';
+import type { DriverCheckVerdict, DriverStage, Estimated, MethodInfo } from './driver.types';
+import { solveLoadPoint, type LadderLoadLine, type LoadPoint } from './operating-point';
+
+export interface DriverChecksInput {
+  /** The ladder the driver feeds; without it the stage is checked at its clamp limit with no load. */
+  ladder?: LadderLoadLine;
+  ratedLoadCurrentA?: number;
+  batteryLifeTargetS?: number;
+}
+
+export interface DriverChecksResult {
+  verdicts: DriverCheckVerdict[];
+  estimate: BlockingOscillatorEstimate;
+  ratedLoad: (LoadPoint & { driver: BlockingOscillatorEstimate }) | null;
+  /** Hipot test voltage to ask of the transformer supplier (V), secondary to primary/feedback. */
+  hipotTestVoltageV: Estimated;
+  batteryLife: BatteryLifeResult | null;
+}
+
+/** Semiconductor and insulation stress derating: pass at ≤ 80 % of the rating (common practice, no source). */
+const stressDerating = 0.8;
+/** Cell drain: pass at ≤ 50 % of the continuous capability, since capacity falls with rate (common practice, no source). */
+const cellDrainDerating = 0.5;
+/** Base overdrive for hFE spread: pass at ≥ 1.5 × the needed current (common practice, no source). */
+const baseOverdrive = 1.5;
+/** Battery life: pass at ≥ 1.2 × the target, leaving room for cold and ageing (common practice, no source). */
+const lifeReserve = 1.2;
+
+function upperLimit(id: string, subject: string, rule: string, value: number, limit: number, unit: string, passFraction: number): DriverCheckVerdict {
+  const verdict = value <= passFraction * limit ? 'pass' : value <= limit ? 'marginal' : 'fail';
+  return { id, subject, rule, verdict, marginPct: ((limit - value) / limit) * 100, value, limit, unit };
+}
+
+function lowerLimit(id: string, subject: string, rule: string, value: number, limit: number, unit: string, passFactor: number): DriverCheckVerdict {
+  const verdict = value >= passFactor * limit ? 'pass' : value >= limit ? 'marginal' : 'fail';
+  return { id, subject, rule, verdict, marginPct: ((value - limit) / limit) * 100, value, limit, unit };
+}
+
+const hipotMethod: MethodInfo = {
+  methodId: 'insulation.hipot-2u-plus-1000',
+  summary: 'Hipot test voltage 2·U + 1000 V, U the peak working voltage across the secondary-to-primary insulation.',
+  assumptions: ['basic insulation', 'U taken as the larger of the forward and flyback secondary peaks (one end of the secondary at ground)'],
+  source: 'common practice, no source',
+};
+
+/**
+ * Supply current (A) of the driver at the rated load as a function of the supply terminal voltage (V),
+ * tabulated on a voltage grid and interpolated linearly (the full solve at each integration point would be slow).
+ */
+function supplyCurrentTable(driver: DriverStage, ladder: LadderLoadLine | undefined, loadA: number, lowV: number, highV: number): (v: number) => number {
+  const points = 16;
+  const table: { v: number; i: number }[] = [];
+  for (let k = 0; k < points; k++) {
+    const v = lowV + ((highV - lowV) * k) / (points - 1);
+    const bench: DriverStage = { ...driver, supply: { kind: 'dc', voltageV: v, sourceResistanceOhm: 0 } };
+    let i: number;
+    try {
+      i = ladder ? solveLoadPoint(bench, ladder, loadA).supplyCurrentA : estimateBlockingOscillator(bench).inputCurrentA.value;
+    } catch (error) {
+      if (error instanceof DomainError) i = 0; // the stage stops: no drain below this voltage
+      else throw error;
+    }
+    table.push({ v, i });
+  }
+  return (v) => {
+    if (v <= table[0]!.v) return table[0]!.i;
+    for (let k = 1; k < table.length; k++) {
+      const a = table[k - 1]!;
+      const b = table[k]!;
+      if (v <= b.v) return a.i + ((b.i - a.i) * (v - a.v)) / (b.v - a.v);
+    }
+    return table[table.length - 1]!.i;
+  };
+}
+
+/**
+ * Checks of the driver stage: collector voltage and current against the transistor ratings, base drive
+ * margin, secondary winding voltage against the transformer insulation (and the hipot voltage to ask for),
+ * cell drain against the chemistry's capability, battery life against a target. Verdict margins in percent.
+ */
+export function runDriverChecks(driver: DriverStage, input: DriverChecksInput = {}): DriverChecksResult {
+  const loadA = input.ratedLoadCurrentA ?? 0;
+  const estimate = estimateBlockingOscillator(driver);
+  const solved = input.ladder ? solveLoadPoint(driver, input.ladder, loadA) : null;
+  const atLoad = solved?.driver ?? estimate;
+  const ratedLoad = solved;
+  const q = driver.transistor;
+  const verdicts: DriverCheckVerdict[] = [
+    upperLimit('driver.collector-voltage', 'transistor', 'Vce,pk ≤ Vce0,max, pass at ≤ 80 % (derating, common practice)', atLoad.collectorPeakV.value, q.vceoMaxV, 'V', stressDerating),
+    upperLimit('driver.collector-current', 'transistor', 'Ic,pk ≤ Ic,max, pass at ≤ 80 % (derating, common practice)', atLoad.collectorPeakCurrentA.value, q.icMaxA, 'A', stressDerating),
+  ];
+
+  // Base drive margin: the peak current the rated load needs. With the flyback at its limit P ∝ E·f ∝ Ipk
+  // (on- and flyback times both ∝ Ipk), so I_needed = Ipk · P_needed / P_deliverable.
+  if (input.ladder && ratedLoad && loadA > 0) {
+    const e = estimate;
+    const dv = 1e-6 * e.maxFlybackSecondaryPeakV;
+    const drive = { forwardPeakV: e.forwardSecondaryPeakV.value, flybackPeakV: e.maxFlybackSecondaryPeakV, frequencyHz: e.frequencyHz.value };
+    const g = (input.ladder.noLoadOutputV({ ...drive, flybackPeakV: drive.flybackPeakV + dv }) - input.ladder.noLoadOutputV(drive)) / dv;
+    const neededW = g * loadA * e.maxFlybackSecondaryPeakV;
+    const neededA = e.peakPrimaryCurrentA.value * (neededW / e.deliverablePowerW.value);
+    verdicts.push(lowerLimit('driver.base-drive', 'transistor', 'hFE·I_B ≥ the peak current the rated load needs, pass at ≥ 1.5× (hFE spread, common practice)', e.baseLimitedCurrentA, neededA, 'A', baseOverdrive));
+  }
+
+  const tx = driver.transformer;
+  const windingPeakV = Math.max(atLoad.forwardSecondaryPeakV.value, atLoad.flybackSecondaryPeakV.value);
+  const hipotTestVoltageV: Estimated = { value: 2 * windingPeakV + 1000, method: hipotMethod };
+  if (tx.insulation) {
+    verdicts.push(upperLimit('driver.winding-insulation', 'transformer', 'secondary peak ≤ rated insulation voltage, pass at ≤ 80 % (common practice)', windingPeakV, tx.insulation.ratedVoltageV, 'V', stressDerating));
+  }
+
+  let life: BatteryLifeResult | null = null;
+  if (driver.supply.kind === 'cells') {
+    const supply = driver.supply;
+    const drainA = ratedLoad ? ratedLoad.supplyCurrentA : estimate.inputCurrentA.value;
+    verdicts.push(upperLimit('driver.cell-current', 'battery', `cell drain ≤ the ${supply.chemistry} cell's continuous capability, pass at ≤ 50 % (common practice)`, drainA, cellMaxContinuousCurrentA(supply), 'A', cellDrainDerating));
+    const highV = 1.05 * supply.cellsInSeries * Math.max(...cellCurveOf(supply).map((p) => p.voltageV));
+    const lowV = 0.8 * supply.cellsInSeries * supply.endVoltagePerCellV;
+    const currentAt = supplyCurrentTable(driver, input.ladder, loadA, lowV, highV);
+    life = batteryLife(supply, currentAt);
+    if (input.batteryLifeTargetS !== undefined) {
+      verdicts.push(lowerLimit('driver.battery-life', 'battery', 'life to the end voltage ≥ target, pass at ≥ 1.2× (cold and ageing, common practice)', life.lifeS.value, input.batteryLifeTargetS, 's', lifeReserve));
+    }
+  }
+  return { verdicts, estimate, ratedLoad, hipotTestVoltageV, batteryLife: life };
+}
