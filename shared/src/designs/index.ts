@@ -1,0 +1,21 @@
+export { validateDesign, capacitorCountFor } from './validate-design';
+export { designDocumentSchema } from './design.schema';
+export { designExamples } from './design-examples';
+export { DESIGN_SCHEMA_VERSION } from './design.types';
+export type {
+  Design,
+  Drive,
+  SineDrive,
+  PulseDrive,
+  DriverDrive,
+  Topology,
+  CapacitorPart,
+  DiodePart,
+  MultiplierSpec,
+  BleederString,
+  OutputNetwork,
+  Load,
+  DischargeRule,
+  SpacingEnvironment,
+  DesignTargets,
+} from './design.types';
