@@ -37,12 +37,15 @@ describe('app routes', () => {
   afterEach(() => vi.unstubAllGlobals());
 
   it('sends a visitor without a session to sign-in, remembering the page asked for', async () => {
-    vi.stubGlobal('fetch', serveApi({ '/api/auth/me': () => jsonResponse(unauthorized, 401) }));
+    const api = serveApi({ '/api/auth/me': () => jsonResponse(unauthorized, 401) });
+    vi.stubGlobal('fetch', api);
     const { router } = renderApp('/projects/p-bias');
 
     expect(await screen.findByRole('button', { name: 'Sign in' })).toBeInTheDocument();
     expect(router.state.location.pathname).toBe('/sign-in');
     expect(router.state.location.search).toBe('?redirectTo=%2Fprojects%2Fp-bias');
+    // Page loaders wait for the session check: no project request goes out without a session.
+    expect(api.mock.calls.map(([url]) => String(url))).toEqual(['/api/auth/me']);
   });
 
   it('shows the projects list inside the shell for a signed-in user', async () => {

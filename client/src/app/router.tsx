@@ -2,6 +2,7 @@ import { useEffect, useMemo } from 'react';
 import { useQueryClient, type QueryClient } from '@tanstack/react-query';
 import { createBrowserRouter, RouterProvider, type RouteObject } from 'react-router-dom';
 import { RouteErrorFallback } from '../components/error-fallback';
+import { PageLoader } from '../components/page-loader';
 import { paths } from '../config/paths';
 import { setUnauthorizedHandler } from '../lib/api-client';
 import { queryKeys } from '../lib/query-keys';
@@ -12,6 +13,7 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
   return [
     {
       path: paths.signIn.path,
+      hydrateFallbackElement: <PageLoader />,
       errorElement: <RouteErrorFallback />,
       lazy: async () => {
         const { SignInRoute, signInLoader } = await import('./routes/auth/sign-in');
@@ -22,6 +24,7 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
       path: paths.projects.path,
       element: <AppRoot />,
       loader: requireUserLoader(queryClient),
+      hydrateFallbackElement: <PageLoader />,
       errorElement: <RouteErrorFallback />,
       children: [
         {
@@ -47,6 +50,7 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
     },
     {
       path: '*',
+      hydrateFallbackElement: <PageLoader />,
       lazy: async () => {
         const { NotFoundRoute } = await import('./routes/not-found');
         return { Component: NotFoundRoute };

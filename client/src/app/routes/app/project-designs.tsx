@@ -6,9 +6,11 @@ import { paths } from '../../../config/paths';
 import { DesignsEmpty } from '../../../features/designs/components/designs-empty';
 import { getProjectQueryOptions } from '../../../features/projects/api/get-project';
 import { ProjectRoleBadge } from '../../../features/projects/components/project-role-badge';
+import { requireUser } from './root';
 
 export function projectDesignsLoader(queryClient: QueryClient) {
-  return async ({ params }: LoaderFunctionArgs) => {
+  return async ({ params, request }: LoaderFunctionArgs) => {
+    await requireUser(queryClient, request);
     await queryClient.ensureQueryData(getProjectQueryOptions(params.projectId ?? ''));
     return null;
   };

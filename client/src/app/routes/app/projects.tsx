@@ -1,11 +1,14 @@
 import { Alert, Loader, Stack, Text, Title } from '@mantine/core';
 import { useDocumentTitle } from '@mantine/hooks';
 import type { QueryClient } from '@tanstack/react-query';
+import type { LoaderFunctionArgs } from 'react-router-dom';
 import { getProjectsQueryOptions, useProjects } from '../../../features/projects/api/get-projects';
 import { ProjectList } from '../../../features/projects/components/project-list';
+import { requireUser } from './root';
 
 export function projectsLoader(queryClient: QueryClient) {
-  return async () => {
+  return async ({ request }: LoaderFunctionArgs) => {
+    await requireUser(queryClient, request);
     await queryClient.prefetchQuery(getProjectsQueryOptions());
     return null;
   };

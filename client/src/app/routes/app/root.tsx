@@ -1,5 +1,6 @@
 import { Navigate, Outlet, redirect, useLocation, useNavigate, useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import type { QueryClient } from '@tanstack/react-query';
+import type { CurrentUser } from '@ladderwright/shared/api';
 import { notifications } from '@mantine/notifications';
 import { AppShell } from '../../../components/app-shell';
 import { paths } from '../../../config/paths';
@@ -8,14 +9,22 @@ import { useSignOut } from '../../../features/auth/api/sign-out';
 import { useProjects } from '../../../features/projects/api/get-projects';
 import { ProjectNav } from '../../../features/projects/components/project-nav';
 
-/** Lets the signed-in screens load only with a session; otherwise to sign-in, remembering where the user was. */
+/**
+ * The signed-in user, or a redirect to sign-in that remembers the page asked for. Every loader below the shell
+ * calls it first: the router runs matched loaders in parallel, and none may call the API without a session.
+ */
+export async function requireUser(queryClient: QueryClient, request: Request): Promise<CurrentUser> {
+  const user = await queryClient.ensureQueryData(getMeQueryOptions());
+  if (!user) {
+    const url = new URL(request.url);
+    throw redirect(paths.signIn.getHref(url.pathname + url.search));
+  }
+  return user;
+}
+
 export function requireUserLoader(queryClient: QueryClient) {
   return async ({ request }: LoaderFunctionArgs) => {
-    const user = await queryClient.ensureQueryData(getMeQueryOptions());
-    if (!user) {
-      const url = new URL(request.url);
-      throw redirect(paths.signIn.getHref(url.pathname + url.search));
-    }
+    await requireUser(queryClient, request);
     return null;
   };
 }

@@ -10,7 +10,7 @@ const roleColors: Record<ProjectRole, string> = {
 /** The user's role in a project, as a word (the colour is only a second cue). */
 export function ProjectRoleBadge({ role }: { role: ProjectRole }) {
   return (
-    <Badge variant="light" color={roleColors[role]} radius="sm" tt="none">
+    <Badge variant="light" color={roleColors[role]} radius="sm" tt="none" style={{ flexShrink: 0 }}>
       {role}
     </Badge>
   );
