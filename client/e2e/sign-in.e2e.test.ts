@@ -1,0 +1,119 @@
+import { mkdirSync } from 'node:fs';
+import { resolve } from 'node:path';
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, inject, it } from 'vitest';
+
+const baseUrl = inject('baseUrl');
+const screenshotDir = resolve(import.meta.dirname, '..', 'test-results');
+const demoPassword = 'Northfold-demo-1';
+
+/** Flags for Debian chromium running as root in a container; Playwright gives each launch a fresh temporary profile. */
+const chromiumArgs = [
+  '--headless',
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+  '--no-first-run',
+];
+
+let browser: Browser;
+let context: BrowserContext;
+let page: Page;
+let pageErrors: string[];
+
+function pathOf(current: Page): string {
+  return new URL(current.url()).pathname;
+}
+
+async function signIn(current: Page, email: string, password: string): Promise<void> {
+  await current.getByLabel('E-mail').fill(email);
+  await current.getByLabel('Password', { exact: false }).first().fill(password);
+  await current.getByRole('button', { name: 'Sign in' }).click();
+}
+
+describe('sign-in journey', () => {
+  beforeAll(async () => {
+    mkdirSync(screenshotDir, { recursive: true });
+    browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: chromiumArgs });
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+
+  beforeEach(async () => {
+    context = await browser.newContext({ viewport: { width: 1280, height: 800 }, colorScheme: 'light' });
+    page = await context.newPage();
+    pageErrors = [];
+    page.on('pageerror', (error) => pageErrors.push(error.message));
+    page.on('console', (message) => {
+      // The session check answers 401 before sign-in: the browser logs that as a failed resource, by design.
+      if (message.type() === 'error' && !message.text().includes('401')) pageErrors.push(message.text());
+    });
+  });
+  afterEach(async () => {
+    await context?.close();
+  });
+
+  it('signs the demo engineer in, opens a project onto its empty Designs and signs out again', async () => {
+    await page.goto(`${baseUrl}/`);
+    await page.getByRole('button', { name: 'Sign in' }).waitFor();
+    expect(pathOf(page)).toBe('/sign-in');
+    await expect(page.getByRole('note', { name: 'High-voltage caution' }).textContent()).resolves.toContain(
+      'High voltage can kill.',
+    );
+    await page.screenshot({ path: resolve(screenshotDir, 'sign-in-light.png') });
+
+    await signIn(page, 'engineer@northfold.test', demoPassword);
+    await page.getByRole('heading', { name: 'Projects', level: 1 }).waitFor();
+    expect(pathOf(page)).toBe('/');
+    const projectCards = page.getByRole('main').getByRole('listitem');
+    await projectCards.first().waitFor();
+    expect(await projectCards.count()).toBeGreaterThan(0);
+    await expect(page.getByRole('button', { name: /^Account: / }).textContent()).resolves.toContain('engineer');
+    await page.screenshot({ path: resolve(screenshotDir, 'projects-light.png') });
+
+    const firstProjectLink = projectCards.first().getByRole('link');
+    const projectName = (await firstProjectLink.textContent())?.trim() ?? '';
+    expect(projectName).not.toBe('');
+    await firstProjectLink.click();
+    await page.getByRole('heading', { name: projectName, level: 1 }).waitFor();
+    expect(pathOf(page)).toMatch(/^\/projects\/[^/]+$/);
+    await page.getByRole('heading', { name: 'Designs', level: 2 }).waitFor();
+    await page.getByText('No designs in this project yet').waitFor();
+    const caution = (await page.getByRole('note', { name: 'High-voltage caution' }).textContent()) ?? '';
+    expect(caution).toContain('High voltage can kill.');
+    expect(caution).toContain('the applicable standard, local codes and licensed practice govern');
+    await page.screenshot({ path: resolve(screenshotDir, 'designs-light.png') });
+
+    await page.getByRole('button', { name: 'Switch to dark scheme' }).click();
+    await expect(page.locator('html').getAttribute('data-mantine-color-scheme')).resolves.toBe('dark');
+    await page.mouse.move(640, 700);
+    await page.getByRole('tooltip').waitFor({ state: 'detached' });
+    await page.screenshot({ path: resolve(screenshotDir, 'designs-dark.png') });
+    await page.getByRole('button', { name: 'Switch to light scheme' }).click();
+
+    await page.getByRole('button', { name: /^Account: / }).click();
+    await page.getByRole('menuitem', { name: 'Sign out' }).click();
+    await page.getByRole('button', { name: 'Sign in' }).waitFor();
+    expect(pathOf(page)).toBe('/sign-in');
+
+    // The session is really gone: a signed-in page sends the browser back to sign-in.
+    await page.goto(`${baseUrl}/`);
+    await page.getByRole('button', { name: 'Sign in' }).waitFor();
+    expect(pathOf(page)).toBe('/sign-in');
+    expect(pageErrors).toEqual([]);
+  });
+
+  it("shows the server's refusal for a wrong password and stays on sign-in", async () => {
+    await page.goto(`${baseUrl}/sign-in`);
+    await signIn(page, 'reviewer@northfold.test', 'not-the-password');
+
+    const alert = page.getByRole('alert');
+    await alert.waitFor();
+    expect(((await alert.textContent()) ?? '').length).toBeGreaterThan('Sign-in failed'.length);
+    expect(pathOf(page)).toBe('/sign-in');
+    expect(pageErrors).toEqual([]);
+  });
+});
