@@ -51,7 +51,13 @@ export async function createApp(env: AppEnv, options: { logger?: false | LogLeve
 export function configureApp(app: NestExpressApplication, env: AppEnv): void {
   app.setGlobalPrefix(API_PREFIX);
   app.disable('x-powered-by');
-  app.use(helmet());
+  // Plain http on loopback: no HSTS and no upgrade of sub-requests to https, which would break the page.
+  app.use(
+    helmet({
+      strictTransportSecurity: env.cookieSecure,
+      contentSecurityPolicy: { directives: { upgradeInsecureRequests: env.cookieSecure ? [] : null } },
+    }),
+  );
   app.use(cookieParser());
   app.useGlobalPipes(
     new ValidationPipe({
