@@ -71,7 +71,8 @@ function est(value: number, m: MethodInfo): Estimated {
  *  - primary ramp: i(t) = (Vin − Vce,sat)·t/Lp, with series resistance R the exact first-order form
  *    i(t) = (V/R)(1 − e^(−R t/Lp)) (read: Wikipedia "Blocking oscillator");
  *  - on-time ends at hFE·I_B or at the core saturation current, whichever comes first;
- *  - flyback time from the volt-second balance t_fly = Lp·Ipk/Vr, Vr = V₋·N_p/N_s (memory: Pressman);
+ *  - secondary peaks V = k·(N_s/N_p)·V_primary (open-circuit ratio M/Lp of coupled windings);
+ *  - flyback time from the volt-second balance t_fly = Lp·Ipk/Vr, Vr = V₋·N_p/(k·N_s) (memory: Pressman);
  *  - E = ½ Lp Ipk², P = E f η (common practice; memory: Pressman);
  *  - Vce,max = Vin + Vr + leakage spike, the spike Ipk·√(L_lk/C) with L_lk = (1 − k²)Lp, capped by a clamp.
  * The supply's loaded voltage is found by fixed-point iteration on its internal resistance.
@@ -117,10 +118,11 @@ export function estimateBlockingOscillator(driver: DriverStage, options: Blockin
       tOn = (lp * ipk) / vPrimary;
     }
     const maxReflectedV = driver.clamp ? driver.clamp.clampVoltageV - vin : q.vceoMaxV - vin;
-    const maxFlybackSecV = Math.max(0, maxReflectedV) * turnsRatio;
+    // Open-circuit secondary voltage of coupled windings: V_s = (M/Lp)·V_p = k·(N_s/N_p)·V_p.
+    const maxFlybackSecV = Math.max(0, maxReflectedV) * k * turnsRatio;
     const flybackSecV = Math.min(options.flybackSecondaryPeakV ?? maxFlybackSecV, maxFlybackSecV);
     if (!(flybackSecV > 0)) throw new DomainError('invalid_design', 'no room for a flyback: clamp or breakdown voltage below the supply', 'driver.clamp');
-    const reflectedV = flybackSecV / turnsRatio;
+    const reflectedV = flybackSecV / (k * turnsRatio);
     const tFly = (lp * ipk) / reflectedV;
     const frequencyHz = 1 / (tOn + tFly);
     const energyJ = 0.5 * lp * ipk * ipk;
@@ -141,7 +143,7 @@ export function estimateBlockingOscillator(driver: DriverStage, options: Blockin
     const collectorPeakV = driver.clamp ? Math.min(driver.clamp.clampVoltageV, unclampedPeakV) : unclampedPeakV;
     return {
       vPrimary, ib, baseLimitedA, limit, ipk, tOn, tFly, frequencyHz, energyJ, deliverableW, flybackSecV,
-      maxFlybackSecV, reflectedV, inputW, collectorPeakV, forwardSecV: vPrimary * turnsRatio, flybackEfficiency,
+      maxFlybackSecV, reflectedV, inputW, collectorPeakV, forwardSecV: vPrimary * k * turnsRatio, flybackEfficiency,
       collectorPeakA: limit === 'base' ? ipk : baseLimitedA,
     };
   };
@@ -174,10 +176,10 @@ export function estimateBlockingOscillator(driver: DriverStage, options: Blockin
     frequencyHz: est(r.frequencyHz, method('bo.frequency', 'f = 1/(t_on + t_fly).')),
     energyPerCycleJ: est(r.energyJ, method('bo.energy', 'E = ½·Lp·Ipk².')),
     deliverablePowerW: est(r.deliverableW, method('bo.deliverable-power', 'P = E·f·η_fly with η_fly = k² − secondary copper loss share.', ['leakage energy (1 − k²)·E lost in the clamp or ringing'])),
-    forwardSecondaryPeakV: est(r.forwardSecV, method('bo.forward-peak', 'V₊ = (Vin − Vce,sat)·N_s/N_p during the on-time.', ['secondary unloaded during the on-time'])),
-    flybackSecondaryPeakV: est(r.flybackSecV, method('bo.flyback-peak', options.flybackSecondaryPeakV !== undefined ? 'V₋ held by the load, capped by the clamp or breakdown limit.' : driver.clamp ? 'V₋ = (V_clamp − Vin)·N_s/N_p: the largest flyback the collector clamp allows (no load holding it lower).' : 'V₋ = (Vce0,max − Vin)·N_s/N_p: with no clamp and no load the flyback rises to the collector breakdown.')),
+    forwardSecondaryPeakV: est(r.forwardSecV, method('bo.forward-peak', 'V₊ = k·(Vin − Vce,sat)·N_s/N_p during the on-time (open-circuit ratio of coupled windings M/Lp).', ['secondary unloaded during the on-time'])),
+    flybackSecondaryPeakV: est(r.flybackSecV, method('bo.flyback-peak', options.flybackSecondaryPeakV !== undefined ? 'V₋ held by the load, capped by the clamp or breakdown limit.' : driver.clamp ? 'V₋ = k·(V_clamp − Vin)·N_s/N_p: the largest flyback the collector clamp allows (no load holding it lower).' : 'V₋ = k·(Vce0,max − Vin)·N_s/N_p: with no clamp and no load the flyback rises to the collector breakdown.')),
     maxFlybackSecondaryPeakV: r.maxFlybackSecV,
-    reflectedVoltageV: est(r.reflectedV, method('bo.reflected', 'Vr = V₋·N_p/N_s.')),
+    reflectedVoltageV: est(r.reflectedV, method('bo.reflected', 'Vr = V₋·N_p/(k·N_s).')),
     collectorPeakV: est(r.collectorPeakV, method('bo.collector-peak-voltage', driver.clamp ? 'Vce,pk = min(V_clamp, Vin + Vr + Ipk·√(L_lk/C)).' : 'Vce,pk = Vin + Vr + Ipk·√(L_lk/C), leakage L_lk = (1 − k²)·Lp into the collector node capacitance C.', [`collector node capacitance ${nodeC} F`])),
     inputCurrentA: est(inputA, method('bo.input-current', 'I_in = (f·(Vin·∫i_p dt + V_B·I_B·t_on) + P_forward)/Vin + I_lamp.')),
     inputPowerW: est(r.inputW, method('bo.input-power', 'P_in = Vin·I_in.')),
