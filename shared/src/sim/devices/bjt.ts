@@ -1,0 +1,37 @@
+import type { NpnModel } from '../circuit.types';
+import { JUNCTION_GMIN_S, THERMAL_VOLTAGE_V } from './junction';
+
+/** Terminal currents into collector and base, and their derivatives with respect to Vbe and Vbc. */
+export interface NpnOperatingPoint {
+  collectorA: number;
+  baseA: number;
+  dCollectorDVbe: number;
+  dCollectorDVbc: number;
+  dBaseDVbe: number;
+  dBaseDVbc: number;
+}
+
+/**
+ * Ebers–Moll NPN in transport form (J. J. Ebers and J. L. Moll, Proc. IRE 42, 1954; the transport form
+ * is the Gummel–Poon model of SPICE with no Early effect, high injection or base resistance):
+ * Ic = Is(e^(Vbe/Vt) − e^(Vbc/Vt)) − (Is/βR)(e^(Vbc/Vt) − 1), Ib = (Is/βF)(e^(Vbe/Vt) − 1) + (Is/βR)(e^(Vbc/Vt) − 1),
+ * with a gmin shunt across each junction.
+ */
+export function evaluateNpn(model: NpnModel, vbeV: number, vbcV: number, out: NpnOperatingPoint): void {
+  const vt = THERMAL_VOLTAGE_V;
+  const is = model.saturationCurrentA;
+  const ebe = Math.exp(vbeV / vt);
+  const ebc = Math.exp(vbcV / vt);
+  const ibe = is * (ebe - 1);
+  const ibc = is * (ebc - 1);
+  const gbe = (is * ebe) / vt;
+  const gbc = (is * ebc) / vt;
+  const br = model.reverseBeta;
+  const bf = model.forwardBeta;
+  out.collectorA = ibe - ibc - ibc / br - JUNCTION_GMIN_S * vbcV;
+  out.dCollectorDVbe = gbe;
+  out.dCollectorDVbc = -gbc - gbc / br - JUNCTION_GMIN_S;
+  out.baseA = ibe / bf + ibc / br + JUNCTION_GMIN_S * (vbeV + vbcV);
+  out.dBaseDVbe = gbe / bf + JUNCTION_GMIN_S;
+  out.dBaseDVbc = gbc / br + JUNCTION_GMIN_S;
+}

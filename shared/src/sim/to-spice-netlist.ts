@@ -1,0 +1,136 @@
+import type { Circuit, DiodeModel, NpnModel, SourceWaveform } from './circuit.types';
+
+export interface SpiceExportOptions {
+  /** Adds `.tran` with this step and stop time (and `uic` when starting from element initial conditions). */
+  transient?: { stopTimeS: number; maxStepS: number; startFrom?: 'element-initial-conditions' | 'operating-point' };
+  /** Extra lines placed before `.end`, e.g. `.options` or a `.control` block. */
+  extraLines?: ReadonlyArray<string>;
+}
+
+/** Number in SPICE notation with 12 significant digits (no unit suffixes, so no 'M'/'MEG' ambiguity). */
+export function spiceNumber(value: number): string {
+  if (value === 0) return '0';
+  return Number(value.toPrecision(12)).toExponential().replace('e+', 'e');
+}
+
+const safe = (name: string): string => name.replace(/[^A-Za-z0-9_]/g, '_');
+const node = (name: string): string => (name === '0' ? '0' : safe(name));
+/** Element name with its SPICE type letter, not doubled when the name already starts with it. */
+const element = (letter: string, name: string): string => (safe(name).toUpperCase().startsWith(letter) ? safe(name) : `${letter}${safe(name)}`);
+
+function waveformText(w: SourceWaveform): string {
+  const n = spiceNumber;
+  switch (w.kind) {
+    case 'dc':
+      return `DC ${n(w.value)}`;
+    case 'sine':
+      return `SIN(${n(w.offset)} ${n(w.amplitude)} ${n(w.frequencyHz)} ${n(w.delayS ?? 0)} 0 ${n(w.phaseDeg ?? 0)})`;
+    case 'pulse':
+      return `PULSE(${n(w.initial)} ${n(w.pulsed)} ${n(w.delayS)} ${n(w.riseS)} ${n(w.fallS)} ${n(w.widthS)} ${n(w.periodS)})`;
+    case 'pwl':
+      return `PWL(${w.points.map((p) => `${n(p.timeS)} ${n(p.value)}`).join(' ')})`;
+  }
+}
+
+function diodeModelText(name: string, m: DiodeModel): string {
+  const n = spiceNumber;
+  const parts = [`IS=${n(m.saturationCurrentA)}`, `N=${n(m.emissionCoefficient)}`, `RS=${n(m.seriesResistanceOhm)}`];
+  if (m.breakdownVoltageV !== undefined) parts.push(`BV=${n(m.breakdownVoltageV)}`, `IBV=${n(m.breakdownCurrentA ?? 1e-3)}`);
+  if (m.junctionCapacitanceF) {
+    parts.push(`CJO=${n(m.junctionCapacitanceF)}`, `VJ=${n(m.junctionPotentialV ?? 1)}`, `M=${n(m.gradingCoefficient ?? 0.5)}`);
+  }
+  if (m.transitTimeS) parts.push(`TT=${n(m.transitTimeS)}`);
+  return `.model ${name} D(${parts.join(' ')})`;
+}
+
+function npnModelText(name: string, m: NpnModel): string {
+  const n = spiceNumber;
+  const vj = n(m.junctionPotentialV ?? 0.75);
+  const mj = n(m.gradingCoefficient ?? 0.33);
+  const parts = [`IS=${n(m.saturationCurrentA)}`, `BF=${n(m.forwardBeta)}`, `BR=${n(m.reverseBeta)}`];
+  if (m.baseEmitterCapacitanceF) parts.push(`CJE=${n(m.baseEmitterCapacitanceF)}`, `VJE=${vj}`, `MJE=${mj}`);
+  if (m.baseCollectorCapacitanceF) parts.push(`CJC=${n(m.baseCollectorCapacitanceF)}`, `VJC=${vj}`, `MJC=${mj}`);
+  return `.model ${name} NPN(${parts.join(' ')})`;
+}
+
+/**
+ * SPICE netlist (.cir text) of a Circuit, in the common Berkeley SPICE syntax: R, C (with IC=), L (IC=),
+ * K for each winding pair, V and I with DC/SIN/PULSE/PWL, a time-controlled switch as an S element driven
+ * by a PWL control source, D and Q with one .model per element. Winding and inductor resistances become
+ * series resistors on an internal node. Node names keep letters, digits and '_' only.
+ */
+export function toSpiceNetlist(circuit: Circuit, options: SpiceExportOptions = {}): string {
+  const n = spiceNumber;
+  const lines: string[] = [`* ${circuit.title}`];
+  const models: string[] = [];
+  for (const e of circuit.elements) {
+    const id = safe(e.name);
+    switch (e.kind) {
+      case 'resistor':
+        lines.push(`${element('R', e.name)} ${node(e.nodeA)} ${node(e.nodeB)} ${n(e.resistanceOhm)}`);
+        break;
+      case 'capacitor':
+        lines.push(`${element('C', e.name)} ${node(e.nodeA)} ${node(e.nodeB)} ${n(e.capacitanceF)} IC=${n(e.initialVoltageV ?? 0)}`);
+        break;
+      case 'inductor': {
+        const r = e.resistanceOhm ?? 0;
+        const mid = r > 0 ? `${id}_r` : node(e.nodeB);
+        lines.push(`${element('L', e.name)} ${node(e.nodeA)} ${mid} ${n(e.inductanceH)} IC=${n(e.initialCurrentA ?? 0)}`);
+        if (r > 0) lines.push(`RL${id} ${mid} ${node(e.nodeB)} ${n(r)}`);
+        break;
+      }
+      case 'coupled-inductors': {
+        const names = e.windings.map((w) => `L${id}_${safe(w.name)}`);
+        e.windings.forEach((w, i) => {
+          const mid = w.resistanceOhm > 0 ? `${id}_${safe(w.name)}_r` : node(w.nodeB);
+          lines.push(`${names[i]} ${node(w.nodeA)} ${mid} ${n(w.inductanceH)} IC=${n(w.initialCurrentA ?? 0)}`);
+          if (w.resistanceOhm > 0) lines.push(`RW${id}_${safe(w.name)} ${mid} ${node(w.nodeB)} ${n(w.resistanceOhm)}`);
+        });
+        for (let i = 0; i < names.length; i++) {
+          for (let j = i + 1; j < names.length; j++) lines.push(`K${id}_${i}_${j} ${names[i]} ${names[j]} ${n(e.couplingCoefficient)}`);
+        }
+        break;
+      }
+      case 'voltage-source':
+        lines.push(`${element('V', e.name)} ${node(e.nodePlus)} ${node(e.nodeMinus)} ${waveformText(e.waveform)}`);
+        break;
+      case 'current-source':
+        lines.push(`${element('I', e.name)} ${node(e.nodePlus)} ${node(e.nodeMinus)} ${waveformText(e.waveform)}`);
+        break;
+      case 'switch': {
+        // The control source goes from 0 V (open) to 1 V (closed) over a nanosecond after each event.
+        const points: string[] = [`0 ${e.isInitiallyClosed ? 1 : 0}`];
+        let closed = e.isInitiallyClosed;
+        for (const ev of [...e.events].sort((a, b) => a.timeS - b.timeS)) {
+          points.push(`${n(ev.timeS)} ${closed ? 1 : 0}`, `${n(ev.timeS + 1e-9)} ${ev.isClosed ? 1 : 0}`);
+          closed = ev.isClosed;
+        }
+        lines.push(`VS${id} ${id}_ctl 0 PWL(${points.join(' ')})`);
+        lines.push(`S${id} ${node(e.nodeA)} ${node(e.nodeB)} ${id}_ctl 0 SW_${id}`);
+        models.push(`.model SW_${id} SW(VT=0.5 VH=0 RON=${n(e.onResistanceOhm)} ROFF=${n(e.offResistanceOhm)})`);
+        break;
+      }
+      case 'diode':
+        lines.push(`${element('D', e.name)} ${node(e.anode)} ${node(e.cathode)} DM_${id}`);
+        models.push(diodeModelText(`DM_${id}`, e.model));
+        break;
+      case 'npn':
+        lines.push(`${element('Q', e.name)} ${node(e.collector)} ${node(e.base)} ${node(e.emitter)} QM_${id}`);
+        models.push(npnModelText(`QM_${id}`, e.model));
+        break;
+    }
+  }
+  lines.push(...models);
+  const tran = options.transient;
+  if (tran) {
+    const uic = (tran.startFrom ?? 'element-initial-conditions') === 'element-initial-conditions' ? ' uic' : '';
+    lines.push(`.tran ${n(tran.maxStepS)} ${n(tran.stopTimeS)} 0 ${n(tran.maxStepS)}${uic}`);
+  }
+  lines.push(...(options.extraLines ?? []), '.end', '');
+  return lines.join('\n');
+}
+
+/** The netlist name of a circuit node, as toSpiceNetlist writes it. */
+export function spiceNodeName(name: string): string {
+  return node(name);
+}
