@@ -23,7 +23,10 @@ export default defineConfig({
         // Libraries change less often than our code: separate chunks stay cached across releases.
         codeSplitting: {
           groups: [
-            { name: 'vendor-react', test: /node_modules[\\/](react|react-dom|scheduler|react-router|react-router-dom)[\\/]/ },
+            {
+              name: 'vendor-react',
+              test: /node_modules[\\/](react|react-dom|scheduler|react-router|react-router-dom)[\\/]/,
+            },
             { name: 'vendor-mantine', test: /node_modules[\\/]@mantine[\\/]/ },
             { name: 'vendor-query', test: /node_modules[\\/]@tanstack[\\/]/ },
           ],

@@ -63,7 +63,7 @@ describe('app routes', () => {
     expect(screen.getByRole('note', { name: 'High-voltage caution' })).toBeInTheDocument();
   });
 
-  it("opens a project onto its Designs, empty until designs exist", async () => {
+  it('opens a project onto its Designs, empty until designs exist', async () => {
     vi.stubGlobal(
       'fetch',
       serveApi({

@@ -49,7 +49,12 @@ export function AppShell({ user, onSignOut, isSigningOut = false, navigation, ch
         <Group h="100%" px="md" justify="space-between" wrap="nowrap">
           <Group gap="sm" wrap="nowrap">
             <Burger opened={isNavOpen} onClick={toggleNav} hiddenFrom="sm" size="sm" aria-label="Toggle navigation" />
-            <UnstyledButton component={Link} to={paths.projects.getHref()} onClick={closeNav} aria-label="Ladderwright home">
+            <UnstyledButton
+              component={Link}
+              to={paths.projects.getHref()}
+              onClick={closeNav}
+              aria-label="Ladderwright home"
+            >
               <Group gap={8} wrap="nowrap">
                 <BrandMark />
                 <Text fw={700} size="lg" lh={1}>
@@ -141,7 +146,15 @@ function BrandMark() {
 
 function MoonGlyph() {
   return (
-    <svg width="18" height="18" viewBox="0 0 24 24" fill="none" stroke="currentColor" strokeWidth="1.8" aria-hidden="true">
+    <svg
+      width="18"
+      height="18"
+      viewBox="0 0 24 24"
+      fill="none"
+      stroke="currentColor"
+      strokeWidth="1.8"
+      aria-hidden="true"
+    >
       <path d="M20 14.5A8 8 0 0 1 9.5 4a8 8 0 1 0 10.5 10.5z" />
     </svg>
   );
@@ -149,7 +162,15 @@ function MoonGlyph() {
 
 function SunGlyph() {
   return (
-    <svg width="18" height="18" viewBox="0 0 24 24" fill="none" stroke="currentColor" strokeWidth="1.8" aria-hidden="true">
+    <svg
+      width="18"
+      height="18"
+      viewBox="0 0 24 24"
+      fill="none"
+      stroke="currentColor"
+      strokeWidth="1.8"
+      aria-hidden="true"
+    >
       <circle cx="12" cy="12" r="4" />
       <path d="M12 2v2M12 20v2M4.9 4.9l1.4 1.4M17.7 17.7l1.4 1.4M2 12h2M20 12h2M4.9 19.1l1.4-1.4M17.7 6.3l1.4-1.4" />
     </svg>

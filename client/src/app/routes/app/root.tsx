@@ -1,4 +1,12 @@
-import { Navigate, Outlet, redirect, useLocation, useNavigate, useParams, type LoaderFunctionArgs } from 'react-router-dom';
+import {
+  Navigate,
+  Outlet,
+  redirect,
+  useLocation,
+  useNavigate,
+  useParams,
+  type LoaderFunctionArgs,
+} from 'react-router-dom';
 import type { QueryClient } from '@tanstack/react-query';
 import type { CurrentUser } from '@ladderwright/shared/api';
 import { notifications } from '@mantine/notifications';
@@ -49,9 +57,7 @@ export function AppRoot() {
       user={user}
       onSignOut={handleSignOut}
       isSigningOut={signOut.isPending}
-      navigation={
-        <ProjectNav projects={projects.data} activeProjectId={projectId} isLoading={projects.isPending} />
-      }
+      navigation={<ProjectNav projects={projects.data} activeProjectId={projectId} isLoading={projects.isPending} />}
     >
       <Outlet />
     </AppShell>

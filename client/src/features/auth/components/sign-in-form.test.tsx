@@ -44,7 +44,11 @@ describe('SignInForm', () => {
   });
 
   it("shows the server's message when the credentials are refused (401)", async () => {
-    const refusal: ApiErrorBody = { statusCode: 401, code: 'invalid_credentials', message: 'E-mail or password is wrong.' };
+    const refusal: ApiErrorBody = {
+      statusCode: 401,
+      code: 'invalid_credentials',
+      message: 'E-mail or password is wrong.',
+    };
     fetchMock.mockResolvedValueOnce(jsonResponse(refusal, 401));
     const onSuccess = vi.fn();
     renderWithApp(<SignInForm onSuccess={onSuccess} />);
@@ -70,7 +74,12 @@ describe('SignInForm', () => {
   });
 
   it('puts a 400 answer that names a field under that field', async () => {
-    const bad: ApiErrorBody = { statusCode: 400, code: 'invalid_argument', message: 'email must be an email', field: 'email' };
+    const bad: ApiErrorBody = {
+      statusCode: 400,
+      code: 'invalid_argument',
+      message: 'email must be an email',
+      field: 'email',
+    };
     fetchMock.mockResolvedValueOnce(jsonResponse(bad, 400));
     renderWithApp(<SignInForm onSuccess={vi.fn()} />);
     fillAndSubmit('engineer@northfold.test', 'Northfold-demo-1');

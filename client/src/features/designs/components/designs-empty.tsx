@@ -15,7 +15,15 @@ export function DesignsEmpty() {
 /** A small drawing of a diode-capacitor ladder, used as the empty-state mark. */
 function LadderGlyph() {
   return (
-    <svg width="28" height="28" viewBox="0 0 28 28" fill="none" stroke="currentColor" strokeWidth="1.6" aria-hidden="true">
+    <svg
+      width="28"
+      height="28"
+      viewBox="0 0 28 28"
+      fill="none"
+      stroke="currentColor"
+      strokeWidth="1.6"
+      aria-hidden="true"
+    >
       <path d="M6 3v22M22 3v22" />
       <path d="M6 8h4m2 0h10M10 5.5v5M12 5.5v5" />
       <path d="M6 20h4m2 0h10M10 17.5v5M12 17.5v5" />

@@ -24,13 +24,7 @@ export function ProjectList({ projects }: ProjectListProps) {
   return (
     <SimpleGrid cols={{ base: 1, sm: 2, lg: 3 }} spacing="md" component="ul" p={0} m={0} style={{ listStyle: 'none' }}>
       {projects.map((project) => (
-        <Card
-          key={project.id}
-          component="li"
-          withBorder
-          padding="md"
-          aria-labelledby={`project-${project.id}-name`}
-        >
+        <Card key={project.id} component="li" withBorder padding="md" aria-labelledby={`project-${project.id}-name`}>
           <Stack gap="xs" h="100%">
             <Group justify="space-between" align="flex-start" wrap="nowrap">
               <Title order={3} size="h4" id={`project-${project.id}-name`}>
