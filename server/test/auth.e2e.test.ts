@@ -55,6 +55,22 @@ describe('auth', () => {
     expect(response.body.message).toContain(field);
   });
 
+  it('returns 400 naming email, with its reason, when it is not a string', async () => {
+    const response = await http().post('/api/auth/sign-in').send({ email: { $gt: '' }, password: 'Anything-123' });
+    expect(response.status).toBe(400);
+    expect(response.body).toMatchObject({ field: 'email', message: 'email must be a string' });
+  });
+
+  it('returns 400 naming the first missing field for a JSON array body', async () => {
+    const response = await http().post('/api/auth/sign-in').set('Content-Type', 'application/json').send('[]');
+    expect(response.status).toBe(400);
+    expect(response.body).toMatchObject({ field: 'email', message: 'email is required' });
+    expect(response.body.issues).toEqual([
+      { path: 'email', message: 'email is required' },
+      { path: 'password', message: 'password is required' },
+    ]);
+  });
+
   it('returns 400 for a body that is not valid JSON', async () => {
     const response = await http().post('/api/auth/sign-in').set('Content-Type', 'application/json').send('{"email": ');
     expect(response.status).toBe(400);

@@ -44,7 +44,7 @@ export class RequestValidationException extends HttpException {
 
   constructor(errors: ValidationError[]) {
     const issues = flattenValidationErrors(errors);
-    super(issues[0] ? `${issues[0].path}: ${issues[0].message}` : 'Invalid request', HttpStatus.BAD_REQUEST);
+    super(issues[0]?.message ?? 'Invalid request', HttpStatus.BAD_REQUEST);
     this.issues = issues;
   }
 }
@@ -59,10 +59,25 @@ export class RetryLaterException extends HttpException {
   }
 }
 
+/** Presence and type first: "email is required" says more than "email must be shorter than 254 characters". */
+const CONSTRAINT_PRIORITY = ['whitelistValidation', 'isDefined', 'isNotEmpty', 'isString', 'isIn', 'isEmail', 'minLength'];
+
+function firstConstraintMessage(constraints: Record<string, string>): string | undefined {
+  // class-validator lists constraints bottom decorator first; reverse to declaration order, then rank.
+  const entries = Object.entries(constraints).reverse();
+  const rank = (key: string) => {
+    const index = CONSTRAINT_PRIORITY.indexOf(key);
+    return index === -1 ? CONSTRAINT_PRIORITY.length : index;
+  };
+  return entries.sort(([a], [b]) => rank(a) - rank(b))[0]?.[1];
+}
+
+/** One issue per offending property (its most telling message), nested properties as dotted paths. */
 function flattenValidationErrors(errors: ValidationError[], prefix = ''): { path: string; message: string }[] {
   return errors.flatMap((error) => {
     const path = prefix ? `${prefix}.${error.property}` : error.property;
-    const own = Object.values(error.constraints ?? {}).map((message) => ({ path, message }));
+    const message = firstConstraintMessage(error.constraints ?? {});
+    const own = message ? [{ path, message }] : [];
     return [...own, ...flattenValidationErrors(error.children ?? [], path)];
   });
 }
