@@ -144,7 +144,8 @@ function BrandMark() {
   );
 }
 
-function MoonGlyph() {
+/** An 18 px line icon on a 24-unit grid, drawn in the current text colour. */
+function LineGlyph({ children }: { children: ReactNode }) {
   return (
     <svg
       width="18"
@@ -155,24 +156,24 @@ function MoonGlyph() {
       strokeWidth="1.8"
       aria-hidden="true"
     >
-      <path d="M20 14.5A8 8 0 0 1 9.5 4a8 8 0 1 0 10.5 10.5z" />
+      {children}
     </svg>
+  );
+}
+
+function MoonGlyph() {
+  return (
+    <LineGlyph>
+      <path d="M20 14.5A8 8 0 0 1 9.5 4a8 8 0 1 0 10.5 10.5z" />
+    </LineGlyph>
   );
 }
 
 function SunGlyph() {
   return (
-    <svg
-      width="18"
-      height="18"
-      viewBox="0 0 24 24"
-      fill="none"
-      stroke="currentColor"
-      strokeWidth="1.8"
-      aria-hidden="true"
-    >
+    <LineGlyph>
       <circle cx="12" cy="12" r="4" />
       <path d="M12 2v2M12 20v2M4.9 4.9l1.4 1.4M17.7 17.7l1.4 1.4M2 12h2M20 12h2M4.9 19.1l1.4-1.4M17.7 6.3l1.4-1.4" />
-    </svg>
+    </LineGlyph>
   );
 }
