@@ -39,7 +39,10 @@ export class AppModule {
 }
 
 /** Builds the Nest app for `env` and applies `configureApp`; the caller migrates, then listens or inits. */
-export async function createApp(env: AppEnv, options: { logger?: false | LogLevel[] } = {}): Promise<NestExpressApplication> {
+export async function createApp(
+  env: AppEnv,
+  options: { logger?: false | LogLevel[] } = {},
+): Promise<NestExpressApplication> {
   const app = await NestFactory.create<NestExpressApplication>(AppModule.forRoot(env), {
     logger: options.logger ?? ['error', 'warn', 'log'],
   });
@@ -75,7 +78,9 @@ export function configureApp(app: NestExpressApplication, env: AppEnv): void {
 function setUpApiDocs(app: NestExpressApplication): void {
   const config = new DocumentBuilder()
     .setTitle('Ladderwright API')
-    .setDescription('High-voltage DC supply design workbench. Sign in with POST /api/auth/sign-in; the session is the lw_session cookie.')
+    .setDescription(
+      'High-voltage DC supply design workbench. Sign in with POST /api/auth/sign-in; the session is the lw_session cookie.',
+    )
     .setVersion('0.1.0')
     .addCookieAuth(SESSION_COOKIE)
     .build();

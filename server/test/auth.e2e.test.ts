@@ -16,31 +16,41 @@ describe('auth', () => {
   afterAll(async () => testApp.close());
 
   it('signs in with the right password, sets an httpOnly SameSite=Strict session cookie and returns the user', async () => {
-    const response = await http().post('/api/auth/sign-in').send({ email: engineer.email, password: engineer.password });
+    const response = await http()
+      .post('/api/auth/sign-in')
+      .send({ email: engineer.email, password: engineer.password });
     expect(response.status).toBe(200);
     expect(response.body).toEqual({
       user: { id: engineer.id, email: engineer.email, displayName: engineer.displayName, role: 'engineer' },
     });
-    const cookie = ([] as string[]).concat(response.headers['set-cookie'] ?? []).find((c) => c.startsWith('lw_session='));
+    const cookie = ([] as string[])
+      .concat(response.headers['set-cookie'] ?? [])
+      .find((c) => c.startsWith('lw_session='));
     expect(cookie).toMatch(/HttpOnly/i);
     expect(cookie).toMatch(/SameSite=Strict/i);
     expect(cookie).toMatch(/Path=\//);
   });
 
   it('matches the e-mail without regard to case', async () => {
-    const response = await http().post('/api/auth/sign-in').send({ email: engineer.email.toUpperCase(), password: engineer.password });
+    const response = await http()
+      .post('/api/auth/sign-in')
+      .send({ email: engineer.email.toUpperCase(), password: engineer.password });
     expect(response.status).toBe(200);
   });
 
   it('returns 401 for a wrong password and sets no cookie', async () => {
-    const response = await http().post('/api/auth/sign-in').send({ email: engineer.email, password: 'Wrong-password-1' });
+    const response = await http()
+      .post('/api/auth/sign-in')
+      .send({ email: engineer.email, password: 'Wrong-password-1' });
     expect(response.status).toBe(401);
     expect(response.body).toMatchObject({ statusCode: 401, code: 'unauthorized' });
     expect(response.headers['set-cookie']).toBeUndefined();
   });
 
   it('returns the same 401 for an unknown e-mail', async () => {
-    const response = await http().post('/api/auth/sign-in').send({ email: 'nobody@northfold.test', password: 'Whatever-12' });
+    const response = await http()
+      .post('/api/auth/sign-in')
+      .send({ email: 'nobody@northfold.test', password: 'Whatever-12' });
     expect(response.status).toBe(401);
     expect(response.body.message).toBe('E-mail or password is not correct');
   });
@@ -56,7 +66,9 @@ describe('auth', () => {
   });
 
   it('returns 400 naming email, with its reason, when it is not a string', async () => {
-    const response = await http().post('/api/auth/sign-in').send({ email: { $gt: '' }, password: 'Anything-123' });
+    const response = await http()
+      .post('/api/auth/sign-in')
+      .send({ email: { $gt: '' }, password: 'Anything-123' });
     expect(response.status).toBe(400);
     expect(response.body).toMatchObject({ field: 'email', message: 'email must be a string' });
   });
@@ -89,7 +101,12 @@ describe('auth', () => {
     const cookie = await signIn(testApp, engineer.email, engineer.password);
     const response = await http().get('/api/auth/me').set('Cookie', cookie);
     expect(response.status).toBe(200);
-    expect(response.body).toEqual({ id: engineer.id, email: engineer.email, displayName: engineer.displayName, role: 'engineer' });
+    expect(response.body).toEqual({
+      id: engineer.id,
+      email: engineer.email,
+      displayName: engineer.displayName,
+      role: 'engineer',
+    });
   });
 
   it('answers /api/auth/me with 401 without a cookie', async () => {
@@ -109,7 +126,9 @@ describe('auth', () => {
     const cookie = await signIn(testApp, engineer.email, engineer.password);
     const response = await http().post('/api/auth/sign-out').set('Cookie', cookie);
     expect(response.status).toBe(204);
-    const cleared = ([] as string[]).concat(response.headers['set-cookie'] ?? []).find((c) => c.startsWith('lw_session='));
+    const cleared = ([] as string[])
+      .concat(response.headers['set-cookie'] ?? [])
+      .find((c) => c.startsWith('lw_session='));
     expect(cleared).toMatch(/^lw_session=;/);
     expect(cleared).toMatch(/Expires=Thu, 01 Jan 1970/);
   });
@@ -154,10 +173,14 @@ describe('sign-in throttling', () => {
     for (let attempt = 1; attempt <= 4; attempt += 1) {
       await http().post('/api/auth/sign-in').send({ email: user.email, password: 'Wrong-password-1' });
     }
-    expect((await http().post('/api/auth/sign-in').send({ email: user.email, password: user.password })).status).toBe(200);
+    expect((await http().post('/api/auth/sign-in').send({ email: user.email, password: user.password })).status).toBe(
+      200,
+    );
     for (let attempt = 1; attempt <= 4; attempt += 1) {
       await http().post('/api/auth/sign-in').send({ email: user.email, password: 'Wrong-password-1' });
     }
-    expect((await http().post('/api/auth/sign-in').send({ email: user.email, password: user.password })).status).toBe(200);
+    expect((await http().post('/api/auth/sign-in').send({ email: user.email, password: user.password })).status).toBe(
+      200,
+    );
   });
 });

@@ -75,19 +75,22 @@ describe('projects', () => {
   });
 
   describe('detail and members', () => {
-    it.each(['engineer', 'reviewer', 'lead'] as const)('lets a project %s read the detail with its members', async (role) => {
-      const user = { engineer, reviewer, lead }[role];
-      const response = await http().get(`/api/projects/${projectA.id}`).set('Cookie', as(user));
-      expect(response.status).toBe(200);
-      expect(response.body.myRole).toBe(role);
-      expect(response.body.members.map((m: { email: string; role: string }) => [m.email, m.role]).sort()).toEqual(
-        [
-          [engineer.email, 'engineer'],
-          [lead.email, 'lead'],
-          [reviewer.email, 'reviewer'],
-        ].sort(),
-      );
-    });
+    it.each(['engineer', 'reviewer', 'lead'] as const)(
+      'lets a project %s read the detail with its members',
+      async (role) => {
+        const user = { engineer, reviewer, lead }[role];
+        const response = await http().get(`/api/projects/${projectA.id}`).set('Cookie', as(user));
+        expect(response.status).toBe(200);
+        expect(response.body.myRole).toBe(role);
+        expect(response.body.members.map((m: { email: string; role: string }) => [m.email, m.role]).sort()).toEqual(
+          [
+            [engineer.email, 'engineer'],
+            [lead.email, 'lead'],
+            [reviewer.email, 'reviewer'],
+          ].sort(),
+        );
+      },
+    );
 
     it('returns 404 for the detail and the members of a project the user is not in', async () => {
       const detail = await http().get(`/api/projects/${projectB.id}`).set('Cookie', as(engineer));
@@ -142,7 +145,12 @@ describe('projects', () => {
         .set('Cookie', as(lead))
         .send({ email: newcomer.email, role: 'engineer' });
       expect(added.status).toBe(201);
-      expect(added.body).toEqual({ userId: newcomer.id, email: newcomer.email, displayName: newcomer.displayName, role: 'engineer' });
+      expect(added.body).toEqual({
+        userId: newcomer.id,
+        email: newcomer.email,
+        displayName: newcomer.displayName,
+        role: 'engineer',
+      });
 
       const changed = await http()
         .post(`/api/projects/${projectA.id}/members`)
@@ -151,9 +159,13 @@ describe('projects', () => {
       expect(changed.body.role).toBe('reviewer');
 
       const newcomerCookie = await signIn(testApp, newcomer.email, newcomer.password);
-      expect((await http().get(`/api/projects/${projectA.id}`).set('Cookie', newcomerCookie)).body.myRole).toBe('reviewer');
+      expect((await http().get(`/api/projects/${projectA.id}`).set('Cookie', newcomerCookie)).body.myRole).toBe(
+        'reviewer',
+      );
 
-      const removed = await http().delete(`/api/projects/${projectA.id}/members/${newcomer.id}`).set('Cookie', as(lead));
+      const removed = await http()
+        .delete(`/api/projects/${projectA.id}/members/${newcomer.id}`)
+        .set('Cookie', as(lead));
       expect(removed.status).toBe(204);
       expect((await http().get(`/api/projects/${projectA.id}`).set('Cookie', newcomerCookie)).status).toBe(404);
     });
@@ -187,23 +199,30 @@ describe('projects', () => {
     });
 
     it('returns 404 when removing someone who is not a member', async () => {
-      const response = await http().delete(`/api/projects/${projectA.id}/members/${outsider.id}`).set('Cookie', as(lead));
+      const response = await http()
+        .delete(`/api/projects/${projectA.id}/members/${outsider.id}`)
+        .set('Cookie', as(lead));
       expect(response.status).toBe(404);
     });
   });
 
   describe('creating projects', () => {
-    it.each(['lead', 'admin'] as const)('lets an account with role %s create a project and become its lead', async (role) => {
-      const user = { lead, admin }[role];
-      const response = await http()
-        .post('/api/projects')
-        .set('Cookie', as(user))
-        .send({ name: `Range-hood precipitator cell (${role})`, productLine: 'Precipitators' });
-      expect(response.status).toBe(201);
-      expect(response.body).toMatchObject({ myRole: 'lead', memberCount: 1, description: '' });
-      const detail = await http().get(`/api/projects/${response.body.id}`).set('Cookie', as(user));
-      expect(detail.body.members).toEqual([{ userId: user.id, email: user.email, displayName: user.displayName, role: 'lead' }]);
-    });
+    it.each(['lead', 'admin'] as const)(
+      'lets an account with role %s create a project and become its lead',
+      async (role) => {
+        const user = { lead, admin }[role];
+        const response = await http()
+          .post('/api/projects')
+          .set('Cookie', as(user))
+          .send({ name: `Range-hood precipitator cell (${role})`, productLine: 'Precipitators' });
+        expect(response.status).toBe(201);
+        expect(response.body).toMatchObject({ myRole: 'lead', memberCount: 1, description: '' });
+        const detail = await http().get(`/api/projects/${response.body.id}`).set('Cookie', as(user));
+        expect(detail.body.members).toEqual([
+          { userId: user.id, email: user.email, displayName: user.displayName, role: 'lead' },
+        ]);
+      },
+    );
 
     it('refuses an engineer account with 403', async () => {
       const response = await http()
@@ -214,7 +233,10 @@ describe('projects', () => {
     });
 
     it('returns 400 naming name when it is empty', async () => {
-      const response = await http().post('/api/projects').set('Cookie', as(lead)).send({ name: '', productLine: 'Ionizers' });
+      const response = await http()
+        .post('/api/projects')
+        .set('Cookie', as(lead))
+        .send({ name: '', productLine: 'Ionizers' });
       expect(response.status).toBe(400);
       expect(response.body.field).toBe('name');
     });

@@ -37,9 +37,18 @@ describe('users (admin)', () => {
     const response = await http()
       .post('/api/users')
       .set('Cookie', adminCookie)
-      .send({ email: 'New.Reviewer@northfold.test', displayName: 'New Reviewer', role: 'reviewer', password: 'Ripple-check-9' });
+      .send({
+        email: 'New.Reviewer@northfold.test',
+        displayName: 'New Reviewer',
+        role: 'reviewer',
+        password: 'Ripple-check-9',
+      });
     expect(response.status).toBe(201);
-    expect(response.body).toMatchObject({ email: 'new.reviewer@northfold.test', displayName: 'New Reviewer', role: 'reviewer' });
+    expect(response.body).toMatchObject({
+      email: 'new.reviewer@northfold.test',
+      displayName: 'New Reviewer',
+      role: 'reviewer',
+    });
     expect(await signIn(testApp, 'new.reviewer@northfold.test', 'Ripple-check-9')).toMatch(/^lw_session=/);
   });
 
@@ -88,7 +97,10 @@ describe('users (admin)', () => {
   });
 
   it('returns 400 naming password when the reset password breaks the policy', async () => {
-    const response = await http().post(`/api/users/${lead.id}/password`).set('Cookie', adminCookie).send({ password: 'short' });
+    const response = await http()
+      .post(`/api/users/${lead.id}/password`)
+      .set('Cookie', adminCookie)
+      .send({ password: 'short' });
     expect(response.status).toBe(400);
     expect(response.body.field).toBe('password');
   });
@@ -103,7 +115,10 @@ describe('users (admin)', () => {
 
   it('refuses a password reset by a non-admin with 403', async () => {
     const leadCookie = await signIn(testApp, lead.email, lead.password);
-    const response = await http().post(`/api/users/${admin.id}/password`).set('Cookie', leadCookie).send({ password: 'Takeover-2024' });
+    const response = await http()
+      .post(`/api/users/${admin.id}/password`)
+      .set('Cookie', leadCookie)
+      .send({ password: 'Takeover-2024' });
     expect(response.status).toBe(403);
   });
 });

@@ -25,7 +25,13 @@ describe('parseEnv', () => {
   });
 
   it('reads overrides', () => {
-    const env = parseEnv({ JWT_SECRET: SECRET, PORT: '9090', SEED_DEMO: '1', SMTP_PORT: '2525', CLIENT_DIST_DIR: '/srv/client' });
+    const env = parseEnv({
+      JWT_SECRET: SECRET,
+      PORT: '9090',
+      SEED_DEMO: '1',
+      SMTP_PORT: '2525',
+      CLIENT_DIST_DIR: '/srv/client',
+    });
     expect(env).toMatchObject({ port: 9090, seedDemo: true, smtpPort: 2525, clientDistDir: '/srv/client' });
   });
 

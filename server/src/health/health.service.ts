@@ -8,7 +8,9 @@ const DATABASE_PROBE_TIMEOUT_MS = 3_000;
 
 function readAppVersion(): string {
   try {
-    const manifest = JSON.parse(readFileSync(join(__dirname, '..', '..', 'package.json'), 'utf8')) as { version?: unknown };
+    const manifest = JSON.parse(readFileSync(join(__dirname, '..', '..', 'package.json'), 'utf8')) as {
+      version?: unknown;
+    };
     return typeof manifest.version === 'string' ? manifest.version : 'unknown';
   } catch {
     return 'unknown';

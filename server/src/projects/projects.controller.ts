@@ -1,6 +1,11 @@
 import { Body, Controller, Delete, Get, HttpCode, Param, Post } from '@nestjs/common';
 import { ApiCookieAuth, ApiTags } from '@nestjs/swagger';
-import type { CurrentUser as SessionUser, ProjectDetail, ProjectMember, ProjectSummary } from '@ladderwright/shared/api';
+import type {
+  CurrentUser as SessionUser,
+  ProjectDetail,
+  ProjectMember,
+  ProjectSummary,
+} from '@ladderwright/shared/api';
 import { CurrentUser } from '../common/decorators/current-user.decorator';
 import { ProjectMembership } from '../common/decorators/project-membership.decorator';
 import { RequiresAppAction, RequiresProjectAction } from '../common/decorators/requires-permission.decorator';

@@ -67,7 +67,11 @@ export class ProjectsService {
   async create(request: CreateProjectRequest, creatorId: string): Promise<ProjectSummary> {
     return this.sequelize.transaction(async (transaction) => {
       const project = await this.projects.create(
-        { name: request.name.trim(), productLine: request.productLine.trim(), description: request.description?.trim() ?? '' },
+        {
+          name: request.name.trim(),
+          productLine: request.productLine.trim(),
+          description: request.description?.trim() ?? '',
+        },
         { transaction },
       );
       await this.members.create({ projectId: project.id, userId: creatorId, role: 'lead' }, { transaction });
@@ -80,12 +84,17 @@ export class ProjectsService {
     const userId = await this.users.findIdByEmail(request.email);
     if (!userId) throw new DomainError('invalid_argument', 'No account has this e-mail', 'email');
     await this.sequelize.transaction(async (transaction) => {
-      const existing = await this.members.findOne({ where: { projectId, userId }, transaction, lock: transaction.LOCK.UPDATE });
+      const existing = await this.members.findOne({
+        where: { projectId, userId },
+        transaction,
+        lock: transaction.LOCK.UPDATE,
+      });
       if (!existing) {
         await this.members.create({ projectId, userId, role: request.role }, { transaction });
         return;
       }
-      if (existing.role === 'lead' && request.role !== 'lead') await this.assertAnotherLead(projectId, userId, transaction);
+      if (existing.role === 'lead' && request.role !== 'lead')
+        await this.assertAnotherLead(projectId, userId, transaction);
       existing.role = request.role;
       await existing.save({ transaction });
     });
@@ -105,14 +114,14 @@ export class ProjectsService {
     });
   }
 
-  private async assertAnotherLead(
-    projectId: string,
-    userId: string,
-    transaction: Transaction,
-  ): Promise<void> {
+  private async assertAnotherLead(projectId: string, userId: string, transaction: Transaction): Promise<void> {
     const leads = await this.members.findAll({ where: { projectId, role: 'lead' }, transaction, lock: true });
     if (!leads.some((lead) => lead.userId !== userId)) {
-      throw new DomainError('illegal_transition', 'A project keeps at least one lead: make another member lead first', 'userId');
+      throw new DomainError(
+        'illegal_transition',
+        'A project keeps at least one lead: make another member lead first',
+        'userId',
+      );
     }
   }
 

@@ -60,7 +60,15 @@ export class RetryLaterException extends HttpException {
 }
 
 /** Presence and type first: "email is required" says more than "email must be shorter than 254 characters". */
-const CONSTRAINT_PRIORITY = ['whitelistValidation', 'isDefined', 'isNotEmpty', 'isString', 'isIn', 'isEmail', 'minLength'];
+const CONSTRAINT_PRIORITY = [
+  'whitelistValidation',
+  'isDefined',
+  'isNotEmpty',
+  'isString',
+  'isIn',
+  'isEmail',
+  'minLength',
+];
 
 function firstConstraintMessage(constraints: Record<string, string>): string | undefined {
   // class-validator lists constraints bottom decorator first; reverse to declaration order, then rank.
@@ -136,10 +144,19 @@ export class DomainErrorFilter implements ExceptionFilter {
     if (error instanceof HttpException) return fromHttpException(error);
     if (error instanceof UniqueConstraintError) {
       const field = Object.keys(error.fields ?? {})[0];
-      return { statusCode: 409, code: 'conflict', message: 'A record with this value already exists', ...(field ? { field } : {}) };
+      return {
+        statusCode: 409,
+        code: 'conflict',
+        message: 'A record with this value already exists',
+        ...(field ? { field } : {}),
+      };
     }
     if (error instanceof ForeignKeyConstraintError) {
-      return { statusCode: 409, code: 'conflict', message: 'The record refers to, or is referred to by, another record' };
+      return {
+        statusCode: 409,
+        code: 'conflict',
+        message: 'The record refers to, or is referred to by, another record',
+      };
     }
     if (error instanceof ConnectionError) {
       this.logger.error(`database unavailable: ${error.message}`);

@@ -36,7 +36,10 @@ export class ProjectAccessGuard implements CanActivate {
         context.getClass(),
       ]) ?? 'project.read';
     if (!canInProject(role, action)) {
-      throw new DomainError('forbidden', `Needs the ${rolesFor(action).join(' or ')} role in this project (you are ${role})`);
+      throw new DomainError(
+        'forbidden',
+        `Needs the ${rolesFor(action).join(' or ')} role in this project (you are ${role})`,
+      );
     }
     request.projectMembership = { projectId, role };
     return true;
