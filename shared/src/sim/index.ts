@@ -6,3 +6,7 @@ export { toSpiceNetlist, spiceNodeName } from './to-spice-netlist';
 export { buildCircuit, buildLadderCircuit, ladderSpecFromDesign, idealCapacitorVoltagesV, capacitorName, LADDER_NODES } from './build-circuit';
 export type { LadderCircuitSpec, LadderDrive } from './build-circuit';
 export { downsampleMinMax, windowMean, windowPeakToPeak } from './waveform-measures';
+export { findPeriodicSteadyState } from './periodic-steady-state';
+export type { PeriodicSteadyStateOptions, PeriodicSteadyStateResult } from './periodic-steady-state';
+export { runLadder } from './design-runs';
+export type { LadderRunOptions, LadderRunResult, PlotTrace } from './design-runs';

@@ -1,0 +1,188 @@
+import { buildLadderCircuit, capacitorName, idealCapacitorVoltagesV, LADDER_NODES, type LadderCircuitSpec } from './build-circuit';
+import { MnaSystem } from './mna-system';
+import { findPeriodicSteadyState } from './periodic-steady-state';
+import { TransientStepper } from './transient';
+import { downsampleMinMax, windowMean, windowPeakToPeak } from './waveform-measures';
+
+export interface LadderRunOptions {
+  /** 'steady': until the cycle-mean output settles; a number: exactly that many drive cycles. */
+  until: 'steady' | { cycles: number };
+  maxStepPerPeriod: number;
+  /** Follow the bleeder discharge after the drive is switched off at steady state, down to this voltage. */
+  dischargeToV?: number;
+  /** Points kept per plotted waveform (min/max buckets). */
+  plotBuckets?: number;
+  /** Give up the start-up transient after this many cycles. */
+  maxCycles?: number;
+}
+
+export interface PlotTrace {
+  timeS: number[];
+  values: number[];
+}
+
+export interface LadderRunResult {
+  method: 'transient' | 'periodic-steady-state';
+  outputMeanV: number;
+  ripplePeakToPeakV: number;
+  timeToSteadyStateS: number | null;
+  cyclesSimulated: number;
+  periodicSteadyState: { isConverged: boolean; iterations: number; relativeResidual: number } | null;
+  startUp: PlotTrace;
+  ripple: PlotTrace;
+  discharge: {
+    dischargeTimeS: number | null;
+    safeVoltageV: number;
+    capacitorVoltagesV: Record<string, PlotTrace>;
+    output: PlotTrace;
+    /** Charge left on each capacitor when the output reaches the safe voltage. */
+    trappedChargeC: Record<string, number>;
+  } | null;
+}
+
+const driveFrequencyHz = (spec: LadderCircuitSpec): number => spec.drive.frequencyHz;
+
+/**
+ * Design-level runs of a ladder: start-up from empty capacitors to 90 % of the final output (transient),
+ * the steady-state ripple waveform (periodic steady state by shooting when `until` is 'steady', else the
+ * last simulated cycle), and optionally the discharge after the drive is switched off (transient from
+ * the steady-state charges with the secondary shorted through its source resistance). Output is the
+ * ladder top, volts; times in seconds.
+ */
+export function runLadder(spec: LadderCircuitSpec, options: LadderRunOptions): LadderRunResult {
+  const f = driveFrequencyHz(spec);
+  const periodS = 1 / f;
+  const buckets = options.plotBuckets ?? 400;
+  const circuit = buildLadderCircuit(spec);
+  const system = new MnaSystem(circuit);
+  const topIndex = system.probeIndex(LADDER_NODES.ladderTop);
+  const sign = spec.isNegative ? -1 : 1;
+  const capCount = spec.capacitorsF.length;
+
+  // Periodic steady state first when asked for 'steady': it gives the final value the start-up aims at.
+  let pss: ReturnType<typeof findPeriodicSteadyState> | null = null;
+  if (options.until === 'steady') {
+    const ideal = idealCapacitorVoltagesV(spec);
+    const charges = new Float64Array(system.reactiveCount);
+    ideal.forEach((v, i) => {
+      charges[i] = v * spec.capacitorsF[i]!;
+    });
+    try {
+      pss = findPeriodicSteadyState(new MnaSystem(circuit), {
+        periodS,
+        stepsPerPeriod: options.maxStepPerPeriod,
+        initialCharges: charges,
+        probes: [LADDER_NODES.ladderTop],
+      });
+    } catch {
+      pss = null;
+    }
+  }
+  const pssOk = pss !== null && pss.isConverged;
+  const finalFromPss = pssOk ? windowMean(pss!.timeS, pss!.signals[LADDER_NODES.ladderTop]!, 0, periodS) : NaN;
+
+  // Start-up transient from empty capacitors.
+  const stepper = new TransientStepper(system, { maxStepS: periodS / options.maxStepPerPeriod });
+  stepper.startFromCharges(system.initialCharge);
+  const time: number[] = [];
+  const top: number[] = [];
+  const cycleMeans: number[] = [];
+  const maxCycles = options.until === 'steady' ? (options.maxCycles ?? 20000) : options.until.cycles;
+  let reachedAtS: number | null = null;
+  let lastCycleStart = 0;
+  let cycles = 0;
+  let area = 0;
+  let prevT = 0;
+  let prevV = 0;
+  while (cycles < maxCycles) {
+    const end = (cycles + 1) * periodS;
+    while (stepper.timeS < end * (1 - 1e-12)) {
+      stepper.step(end);
+      const v = stepper.value(topIndex);
+      area += ((v + prevV) / 2) * (stepper.timeS - prevT);
+      prevT = stepper.timeS;
+      prevV = v;
+      time.push(stepper.timeS);
+      top.push(v);
+    }
+    cycles++;
+    const mean = area / periodS;
+    area = 0;
+    cycleMeans.push(mean);
+    lastCycleStart = end - periodS;
+    if (options.until === 'steady') {
+      if (pssOk && reachedAtS === null && sign * mean >= 0.9 * sign * finalFromPss) reachedAtS = end;
+      if (pssOk && reachedAtS !== null) break;
+      // Without a periodic solution: settled when the cycle mean moved less than 1e-5 per cycle over 20 cycles.
+      if (!pssOk && cycles > 40) {
+        const before = cycleMeans[cycles - 21]!;
+        if (Math.abs(mean - before) <= 20e-5 * Math.abs(mean)) break;
+      }
+    }
+  }
+  const finalMean = pssOk ? finalFromPss : cycleMeans[cycleMeans.length - 1]!;
+  if (reachedAtS === null) {
+    const target = 0.9 * finalMean;
+    const idx = cycleMeans.findIndex((m) => sign * m >= sign * target);
+    reachedAtS = idx >= 0 ? (idx + 1) * periodS : null;
+  }
+  const ripple = pssOk
+    ? { timeS: Array.from(pss!.timeS), values: Array.from(pss!.signals[LADDER_NODES.ladderTop]!) }
+    : (() => {
+        const i0 = time.findIndex((t) => t >= lastCycleStart);
+        return { timeS: time.slice(i0), values: top.slice(i0) };
+      })();
+  const rippleV = windowPeakToPeak(ripple.timeS, ripple.values, -Infinity, Infinity);
+
+  // Discharge from the steady state (or the last transient state).
+  let discharge: LadderRunResult['discharge'] = null;
+  if (options.dischargeToV !== undefined) {
+    const startCharges = pssOk ? pss!.charges : stepper.q0;
+    const voltages = Array.from({ length: capCount }, (_, i) => startCharges[i]! / spec.capacitorsF[i]!);
+    const off = buildLadderCircuit({ ...spec, driveOffAtS: 0, initialCapacitorVoltagesV: voltages });
+    const offSystem = new MnaSystem(off);
+    const capIndex = Array.from({ length: capCount }, (_, i) => offSystem.reactiveNames.indexOf(capacitorName(i)));
+    const offTop = offSystem.probeIndex(LADDER_NODES.ladderTop);
+    const rcS = (spec.bleederOhm ?? 1e12) * spec.capacitorsF.reduce((a, b) => a + b, 0);
+    const dis = new TransientStepper(offSystem, { maxStepS: Math.max(periodS / options.maxStepPerPeriod, rcS / 2000) });
+    dis.startFromCharges(offSystem.initialCharge);
+    const dt: number[] = [0];
+    const dv: number[] = [sign * Math.abs(windowMean(ripple.timeS, ripple.values, -Infinity, Infinity))];
+    const caps: number[][] = voltages.map((v) => [v]);
+    const safe = Math.abs(options.dischargeToV);
+    let crossedS: number | null = null;
+    const stopS = 50 * rcS;
+    while (dis.timeS < stopS) {
+      dis.step(stopS);
+      const v = dis.value(offTop);
+      dt.push(dis.timeS);
+      dv.push(v);
+      capIndex.forEach((k, i) => caps[i]!.push(dis.q0[k]! / spec.capacitorsF[i]!));
+      if (Math.abs(v) <= safe) {
+        const a = dv[dv.length - 2]!;
+        const ta = dt[dt.length - 2]!;
+        crossedS = ta + ((dis.timeS - ta) * (Math.abs(a) - safe)) / (Math.abs(a) - Math.abs(v));
+        break;
+      }
+    }
+    const capacitorVoltagesV: Record<string, PlotTrace> = {};
+    const trappedChargeC: Record<string, number> = {};
+    caps.forEach((series, i) => {
+      capacitorVoltagesV[capacitorName(i)] = downsampleMinMax(dt, series, buckets);
+      trappedChargeC[capacitorName(i)] = series[series.length - 1]! * spec.capacitorsF[i]!;
+    });
+    discharge = { dischargeTimeS: crossedS, safeVoltageV: safe, capacitorVoltagesV, output: downsampleMinMax(dt, dv, buckets), trappedChargeC };
+  }
+
+  return {
+    method: pssOk ? 'periodic-steady-state' : 'transient',
+    outputMeanV: finalMean,
+    ripplePeakToPeakV: rippleV,
+    timeToSteadyStateS: reachedAtS,
+    cyclesSimulated: cycles,
+    periodicSteadyState: pss ? { isConverged: pss.isConverged, iterations: pss.iterations, relativeResidual: pss.relativeResidual } : null,
+    startUp: downsampleMinMax(time, top, buckets),
+    ripple: downsampleMinMax(ripple.timeS, ripple.values, buckets),
+    discharge,
+  };
+}

@@ -1,0 +1,222 @@
+import { DomainError } from '../errors';
+import type { Circuit, SimulationTolerances } from './circuit.types';
+import { MnaSystem } from './mna-system';
+import { solveDense } from './solver/dense-lu';
+import { DEFAULT_TOLERANCES, SampleBuffer, solveNewton } from './transient';
+
+export interface PeriodicSteadyStateOptions {
+  periodS: number;
+  /** Fixed steps per period (the shooting map must be the same function each iteration). */
+  stepsPerPeriod: number;
+  /** Charges and fluxes at t = 0 to start from (MnaSystem reactive order); default the element initial conditions. */
+  initialCharges?: Float64Array;
+  maxIterations?: number;
+  /** Plain periods run from the initial charges before shooting; default 10. */
+  warmUpPeriods?: number;
+  /** Convergence: every |q(T) − q(0)| within this fraction of the largest |q| of the state. */
+  relativeTolerance?: number;
+  probes?: ReadonlyArray<string>;
+  tolerances?: Partial<SimulationTolerances>;
+}
+
+export interface PeriodicSteadyStateResult {
+  isConverged: boolean;
+  iterations: number;
+  /** max |q(T) − q(0)| / max |q|, after the last iteration. */
+  relativeResidual: number;
+  /** Residual after each iteration (before its update). */
+  residualHistory: number[];
+  /** State at t = 0 of the periodic solution. */
+  charges: Float64Array;
+  reactiveNames: string[];
+  /** One period of the probes, from t = 0 to the period. */
+  timeS: Float64Array;
+  signals: Record<string, Float64Array>;
+  newtonIterations: number;
+}
+
+/**
+ * Periodic steady state by shooting Newton (T. J. Aprille and T. N. Trick, "Steady-state analysis of
+ * nonlinear circuits with periodic inputs", Proc. IEEE 60(1), 1972): find the charges q0 with
+ * Φ(q0) = q0, Φ the one-period state transition map, by Newton on Φ(q) − q with the sensitivity matrix
+ * ∂Φ/∂q0 propagated along the period through the converged step Jacobians (one extra banded solve per
+ * state variable and step). Each period starts with one backward-Euler step (so the state is the charges
+ * alone) and continues with the trapezoidal rule on a fixed grid of stepsPerPeriod steps.
+ */
+export function findPeriodicSteadyState(circuit: Circuit | MnaSystem, options: PeriodicSteadyStateOptions): PeriodicSteadyStateResult {
+  const sys = 'elements' in circuit ? new MnaSystem(circuit) : circuit;
+  // Φ must be evaluated far more tightly than the residual the shooting aims at, or the update chases
+  // Newton noise: a relative tolerance of 1e-9 inside each step.
+  const tol = { ...DEFAULT_TOLERANCES, relative: 1e-9, voltageAbsoluteV: 1e-9, ...options.tolerances };
+  const r = sys.reactiveCount;
+  const n = options.stepsPerPeriod;
+  if (!(n >= 4) || !(options.periodS > 0)) throw new DomainError('invalid_argument', 'need a positive period and at least 4 steps', 'stepsPerPeriod');
+  const h = options.periodS / n;
+  const maxIterations = options.maxIterations ?? 30;
+  const relTol = options.relativeTolerance ?? 1e-6;
+  const state = Float64Array.from(options.initialCharges ?? sys.initialCharge);
+  const q0 = new Float64Array(r);
+  const qd0 = new Float64Array(r);
+  const sq = new Float64Array(r * r);
+  const sqd = new Float64Array(r * r);
+  const w = new Float64Array(sys.size + 1);
+  const xStart = new Float64Array(sys.size + 1);
+  const probes = options.probes ?? [];
+  const probeIndex = probes.map((p) => sys.probeIndex(p));
+  let newtonIterations = 0;
+
+  /** One period from q(0) = start; fills sq with ∂q(T)/∂q(0) when withSensitivity; returns q(T) in q0. */
+  const period = (start: Float64Array, withSensitivity: boolean, record: { time: SampleBuffer; values: SampleBuffer[] } | null): void => {
+    q0.set(start);
+    qd0.fill(0);
+    sys.x.set(xStart);
+    if (withSensitivity) {
+      sq.fill(0);
+      for (let k = 0; k < r; k++) sq[k * r + k] = 1;
+      sqd.fill(0);
+    }
+    if (record) {
+      record.time.push(0);
+      probeIndex.forEach((p, i) => record.values[i]!.push(sys.x[p]!));
+    }
+    for (let step = 0; step < n; step++) {
+      const isEuler = step === 0;
+      const a0 = isEuler ? 1 / h : 2 / h;
+      for (let k = 0; k < r; k++) sys.hist[k] = isEuler ? -a0 * q0[k]! : -a0 * q0[k]! - qd0[k]!;
+      const t1 = (step + 1) * h;
+      sys.prepareLinearMatrix(a0, t1);
+      sys.prepareStepRhs(t1);
+      const it = solveNewton(sys, a0, tol, 100);
+      if (it < 0) throw new DomainError('not_converged', `Newton failed inside the shooting period at t = ${t1} s`, null, [{ path: 'timeS', message: String(t1) }]);
+      newtonIterations += it;
+      if (step === 0 && record === null && withSensitivity) {
+        /* x at the first step is a fine guess for the next period's first step */
+      }
+      sys.evaluateLinearCharges();
+      if (withSensitivity) {
+        // Jacobian at the converged point, then ∂x1/∂q0 column by column.
+        sys.load(a0);
+        sys.lu.factor();
+        for (let j = 0; j < r; j++) {
+          w.fill(0);
+          for (let k = 0; k < r; k++) {
+            const dHist = isEuler ? -a0 * sq[j * r + k]! : -a0 * sq[j * r + k]! - sqd[j * r + k]!;
+            sqd[j * r + k] = dHist; // keep dHist until the new charge sensitivity is known
+            w[sys.reactiveRowA[k]!]! -= dHist;
+            w[sys.reactiveRowB[k]!]! += dHist;
+          }
+          w[sys.size] = 0;
+          sys.lu.solve(w);
+          w[sys.size] = 0;
+          for (let k = 0; k < r; k++) {
+            let dq = 0;
+            for (let p = sys.gradientStart[k]!; p < sys.gradientStart[k + 1]!; p++) dq += sys.gradientValue[p]! * w[sys.gradientIndex[p]!]!;
+            sq[j * r + k] = dq;
+            sqd[j * r + k] = a0 * dq + sqd[j * r + k]!;
+          }
+        }
+      }
+      for (let k = 0; k < r; k++) {
+        const q1 = sys.charge[k]!;
+        qd0[k] = a0 * q1 + sys.hist[k]!;
+        q0[k] = q1;
+      }
+      if (step === n - 1) xStart.set(sys.x);
+      if (record) {
+        record.time.push(t1);
+        probeIndex.forEach((p, i) => record.values[i]!.push(sys.x[p]!));
+      }
+    }
+  };
+
+  const residualOf = (start: Float64Array, end: Float64Array): number => {
+    let scale = 0;
+    let worst = 0;
+    for (let k = 0; k < r; k++) scale = Math.max(scale, Math.abs(start[k]!));
+    for (let k = 0; k < r; k++) worst = Math.max(worst, Math.abs(end[k]! - start[k]!));
+    return scale > 0 ? worst / scale : worst;
+  };
+
+  const history: number[] = [];
+  const jac = new Float64Array(r * r);
+  const delta = new Float64Array(r);
+  const g = new Float64Array(r);
+  const jtg = new Float64Array(r);
+  const jtj = new Float64Array(r * r);
+  const normal = new Float64Array(r * r);
+  let damping = 1e-9;
+  const trial = new Float64Array(r);
+  const squaredResidual = (start: Float64Array, end: Float64Array): number => {
+    let sum = 0;
+    for (let k = 0; k < r; k++) sum += (end[k]! - start[k]!) ** 2;
+    return sum;
+  };
+  let residual = Infinity;
+  let iterations = 0;
+  // Warm-up periods: leave the kinks of a guessed state (diodes just at conduction) and make the
+  // unknowns' guess at t = 0 consistent.
+  for (let k = 0; k < (options.warmUpPeriods ?? 10); k++) {
+    period(state, false, null);
+    state.set(q0);
+  }
+  for (; iterations < maxIterations; ) {
+    period(state, true, null);
+    iterations++;
+    residual = residualOf(state, q0);
+    history.push(residual);
+    if (residual <= relTol) break;
+    // Levenberg–Marquardt step on G(q) = Φ(q) − q with J = Φ' − I (K. Levenberg 1944, D. W. Marquardt
+    // 1963): (JᵀJ + μ·diag(JᵀJ)) Δ = −JᵀG. Small μ is Newton's step; μ grows when a step does not
+    // lower |G|², which tames the near-singular slow modes of a lightly loaded ladder.
+    for (let k = 0; k < r; k++) {
+      for (let j = 0; j < r; j++) jac[k * r + j] = sq[j * r + k]! - (j === k ? 1 : 0);
+      g[k] = q0[k]! - state[k]!;
+    }
+    for (let a = 0; a < r; a++) {
+      let s2 = 0;
+      for (let k = 0; k < r; k++) s2 -= jac[k * r + a]! * g[k]!;
+      jtg[a] = s2;
+      for (let b = a; b < r; b++) {
+        let s1 = 0;
+        for (let k = 0; k < r; k++) s1 += jac[k * r + a]! * jac[k * r + b]!;
+        jtj[a * r + b] = s1;
+        jtj[b * r + a] = s1;
+      }
+    }
+    const squaredBefore = squaredResidual(state, q0);
+    trial.set(state);
+    for (let attempt = 0; attempt < 12; attempt++) {
+      normal.set(jtj);
+      for (let a = 0; a < r; a++) normal[a * r + a] = jtj[a * r + a]! * (1 + damping) + 1e-300;
+      delta.set(jtg);
+      solveDense(normal, delta, r);
+      for (let k = 0; k < r; k++) state[k] = trial[k]! + delta[k]!;
+      period(state, false, null);
+      if (squaredResidual(state, q0) < squaredBefore) {
+        damping = Math.max(damping / 10, 1e-12);
+        break;
+      }
+      damping *= 10;
+      if (attempt === 11) state.set(trial);
+    }
+  }
+  const time = new SampleBuffer();
+  const values = probes.map(() => new SampleBuffer());
+  period(state, false, { time, values });
+  const finalResidual = residualOf(state, q0);
+  const signals: Record<string, Float64Array> = {};
+  probes.forEach((p, i) => {
+    signals[p] = values[i]!.toArray();
+  });
+  return {
+    isConverged: finalResidual <= relTol * 10,
+    iterations,
+    relativeResidual: finalResidual,
+    residualHistory: history,
+    charges: state,
+    reactiveNames: [...sys.reactiveNames],
+    timeS: time.toArray(),
+    signals,
+    newtonIterations,
+  };
+}
