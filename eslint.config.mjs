@@ -27,6 +27,11 @@ export default tseslint.config(
     },
   },
   {
+    files: ['**/*.cjs'],
+    languageOptions: { sourceType: 'commonjs' },
+    rules: { '@typescript-eslint/no-require-imports': 'off' },
+  },
+  {
     files: ['shared/src/**/*.ts'],
     ignores: ['shared/src/**/*.test.ts'],
     rules: {
