@@ -16,7 +16,7 @@ const stackedHvDiode: DiodePart = {
   seriesResistanceOhm: 40,
   ratedPivV: 2000,
   ratedAverageCurrentA: 0.05,
-  ratedSurgeCurrentA: 2,
+  ratedSurgeCurrentA: 10,
   junctionCapacitanceF: 1.5e-12,
   partCode: 'NF-D2K-50M',
 };
@@ -85,7 +85,7 @@ const detectorBias: Design = {
     loadCurrentA: 5e-6,
     safeVoltageV: 50,
     dischargeRule: '60V-5s',
-    spacing: { pollutionDegree: 2, materialGroup: 'IIIa', pcb: true, providedCreepageMm: 3 },
+    spacing: { pollutionDegree: 2, materialGroup: 'IIIa', pcb: true, providedCreepageMm: 4 },
   },
 };
 
@@ -93,11 +93,11 @@ const precipitatorCell: Design = {
   schemaVersion: 1,
   name: 'Range-hood precipitator cell, 4 kV',
   notes: 'Two-stage full-wave cascade on a centre-tapped 20 kHz secondary; a few hundred microamps into the collector plates.',
-  drive: { kind: 'sine', peakV: 1100, frequencyHz: 20e3, sourceResistanceOhm: 80 },
+  drive: { kind: 'sine', peakV: 1100, frequencyHz: 20e3, sourceResistanceOhm: 200 },
   multiplier: {
     topology: 'full-wave',
     cellCount: 2,
-    capacitors: capacitors(6, { valueF: 10e-9, tolerance: 0.2, ratedVoltageV: 3000, partCode: 'NF-C103-3K' }),
+    capacitors: capacitors(6, { valueF: 4.7e-9, tolerance: 0.2, ratedVoltageV: 3000, partCode: 'NF-C472-3K' }),
     diode: { ...stackedHvDiode, ratedPivV: 3000, partCode: 'NF-D3K-50M' },
   },
   outputNetwork: {
@@ -111,7 +111,8 @@ const precipitatorCell: Design = {
     loadCurrentA: 300e-6,
     safeVoltageV: 50,
     dischargeRule: '50V-1min',
-    spacing: { pollutionDegree: 3, materialGroup: 'IIIa', pcb: true, providedCreepageMm: 12 },
+    // Potted ladder: pollution degree 1 inside the compound.
+    spacing: { pollutionDegree: 1, materialGroup: 'IIIa', pcb: true, providedCreepageMm: 14 },
   },
 };
 
@@ -127,7 +128,7 @@ const surfaceChargeTester: Design = {
     diode: { ...stackedHvDiode, ratedPivV: 4000, partCode: 'NF-D4K-50M' },
   },
   outputNetwork: {
-    bleeder: { count: 4, valueOhm: 100e6, ratedPowerW: 0.25, limitingVoltageV: 1000, partCode: 'NF-R100M-1K' },
+    bleeder: { count: 5, valueOhm: 82e6, ratedPowerW: 0.25, limitingVoltageV: 1000, partCode: 'NF-R82M-1K' },
     seriesOutputResistanceOhm: 22e6,
   },
   load: { kind: 'current', currentA: 2e-6 },
@@ -137,7 +138,8 @@ const surfaceChargeTester: Design = {
     loadCurrentA: 2e-6,
     safeVoltageV: 50,
     dischargeRule: '60V-5s',
-    spacing: { pollutionDegree: 2, materialGroup: 'IIIa', pcb: true, providedCreepageMm: 8 },
+    // Potted ladder: pollution degree 1 inside the compound.
+    spacing: { pollutionDegree: 1, materialGroup: 'IIIa', pcb: true, providedCreepageMm: 11 },
   },
 };
 

@@ -1,0 +1,186 @@
+import { DomainError } from '../errors';
+import type { Design, PulseDrive, SineDrive } from '../designs/design.types';
+import { estimateBlockingOscillator } from '../driver/blocking-oscillator';
+import type { MethodInfo } from '../driver/driver.types';
+import { dischargeCheck, trappedChargeCheck } from '../safety/discharge';
+import { creepageChecks, stageSpacing } from '../safety/creepage';
+import type { StageSpacing } from '../safety/creepage';
+import { HV_CAUTION, upperLimitVerdict } from '../safety/hazard-limits';
+import { storedEnergy, storedEnergyChecks } from '../safety/stored-energy';
+import type { StoredEnergySummary } from '../safety/stored-energy';
+import type { CheckVerdict } from '../safety/check.types';
+import { analyzeLadder } from './analyze-ladder';
+import { ENGINE_VERSION } from './engine-version';
+import { ladderCurves } from './ladder-curves';
+import { bleederStressChecks, ladderStressChecks } from './ladder-stress';
+import type { LadderAnalysis, LadderCurves, LadderInput } from './ladder.types';
+
+/** The full report of one design: figures (SI), curves, checks and how each was computed. */
+export interface DesignReport {
+  engineVersion: string;
+  designName: string;
+  /** The secondary the ladder sees (resolved from a driver stage when the design gives one). */
+  resolvedDrive: SineDrive | PulseDrive;
+  noLoadOutputV: number;
+  outputMeanV: number;
+  outputMinV: number;
+  outputMaxV: number;
+  ripplePeakToPeakV: number;
+  droopV: number;
+  outputImpedanceOhm: number;
+  optimumStages: number;
+  textbookRippleV: number | null;
+  textbookDropV: number | null;
+  storedEnergyJ: number;
+  storedChargeC: number;
+  dischargeTimeS: number | null;
+  meetsTargets: { output: boolean; ripple: boolean };
+  analysis: LadderAnalysis;
+  curves: LadderCurves;
+  storedEnergy: StoredEnergySummary;
+  spacing: StageSpacing[];
+  checks: CheckVerdict[];
+  methods: MethodInfo[];
+  caution: string;
+}
+
+const DRIVER_METHOD: MethodInfo = {
+  methodId: 'driver-to-pulse-v1',
+  summary: 'The driver stage’s closed-form estimate gives the secondary as rectangular pulses: forward peak for the on-time, flyback peak for the flyback time.',
+  assumptions: [
+    'the secondary is taken as a voltage source at the estimated peaks behind the secondary winding resistance',
+    'the driver’s deliverable power is checked against what the ladder draws',
+  ],
+  source: 'shared/src/driver estimateBlockingOscillator (REFERENCES.md §3)',
+};
+
+/** Resolves the drive of a design into the waveform the ladder model takes. */
+export function resolveDrive(design: Design): { drive: SineDrive | PulseDrive; deliverablePowerW: number | null; currentLimitA: number | null } {
+  const drive = design.drive;
+  if (drive.kind !== 'driver') return { drive, deliverablePowerW: null, currentLimitA: null };
+  const estimate = estimateBlockingOscillator(drive.driver);
+  const onS = estimate.onTimeS.value;
+  const flybackS = estimate.flybackTimeS.value;
+  return {
+    drive: {
+      kind: 'pulse',
+      forwardPeakV: estimate.forwardSecondaryPeakV.value,
+      flybackPeakV: estimate.flybackSecondaryPeakV.value,
+      frequencyHz: estimate.frequencyHz.value,
+      dutyCycle: onS / (onS + flybackS),
+      sourceResistanceOhm: drive.driver.transformer.secondaryResistanceOhm,
+    },
+    deliverablePowerW: estimate.deliverablePowerW.value,
+    // The flyback current the secondary can carry is the collector peak reflected through the turns ratio.
+    currentLimitA: (estimate.collectorPeakCurrentA.value * drive.driver.transformer.primaryTurns) / drive.driver.transformer.secondaryTurns,
+  };
+}
+
+/** The bare-ladder input of a design. */
+export function ladderInputOf(design: Design, drive: SineDrive | PulseDrive, currentLimitA: number | null = null): LadderInput {
+  const bleeder = design.outputNetwork.bleeder;
+  return {
+    ...(currentLimitA !== null ? { sourceCurrentLimitA: currentLimitA } : {}),
+    topology: design.multiplier.topology,
+    capacitorsF: design.multiplier.capacitors.map((c) => c.valueF),
+    drive,
+    diode: design.multiplier.diode,
+    polarity: design.targets.outputV < 0 ? -1 : 1,
+    load: design.load,
+    bleederOhm: bleeder ? bleeder.count * bleeder.valueOhm : null,
+    seriesOutputResistanceOhm: design.outputNetwork.seriesOutputResistanceOhm,
+  };
+}
+
+/** Working voltage per stage: the largest capacitor or diode voltage within the stage. */
+function stageWorkingVoltages(analysis: LadderAnalysis): number[] {
+  const byStage = new Map<number, number>();
+  for (const c of analysis.capacitors) byStage.set(c.stage, Math.max(byStage.get(c.stage) ?? 0, c.maxVoltageV));
+  return [...byStage.entries()].sort((a, b) => a[0] - b[0]).map(([, v]) => v);
+}
+
+/**
+ * Full report of a validated design: steady-state analysis, curves, stored energy, discharge, spacing and
+ * every check verdict, with method notes. Safety verdicts carry HV_CAUTION.
+ */
+export function analyzeDesign(design: Design): DesignReport {
+  if (design.multiplier.strayCapacitanceF !== undefined && !(design.multiplier.strayCapacitanceF >= 0)) {
+    throw new DomainError('invalid_design', 'stray capacitance must not be negative', 'multiplier.strayCapacitanceF');
+  }
+  const { drive, deliverablePowerW, currentLimitA } = resolveDrive(design);
+  const input = ladderInputOf(design, drive, currentLimitA);
+  const analysis = analyzeLadder(input);
+  const curves = ladderCurves(input);
+  const energy = storedEnergy(analysis.capacitors, analysis.ladderTopMeanV);
+  const targets = design.targets;
+
+  const checks: CheckVerdict[] = [...ladderStressChecks(analysis, design.multiplier)];
+  const peakTopV = Math.max(Math.abs(analysis.outputMaxV), Math.abs(analysis.outputMinV)) + analysis.loadCurrentA * input.seriesOutputResistanceOhm;
+  checks.push(...bleederStressChecks(design.outputNetwork.bleeder, analysis.ladderTopMeanV, peakTopV));
+  checks.push(...storedEnergyChecks(energy, analysis.ladderTopMeanV));
+  const discharge = dischargeCheck({
+    bleederOhm: input.bleederOhm,
+    equivalentCapacitanceF: energy.outputEquivalentCapacitanceF,
+    outputV: analysis.ladderTopMeanV,
+    safeVoltageV: targets.safeVoltageV,
+    rule: targets.dischargeRule,
+    storedChargeC: energy.outputEquivalentChargeC,
+  });
+  checks.push(discharge.verdict);
+  const windingEnd = analysis.capacitors.find((c) => c.column.startsWith('oscillating') && c.stage === 1 && (c.index === 1 || analysis.cellCount % 2 === 1));
+  const trapped = trappedChargeCheck({
+    windingEndCapacitorV: windingEnd ? windingEnd.maxVoltageV : null,
+    windingEndCapacitorF: windingEnd?.valueF ?? 0,
+    safeVoltageV: targets.safeVoltageV,
+  });
+  if (trapped) checks.push(trapped);
+  const spacing = stageSpacing(stageWorkingVoltages(analysis), targets.spacing);
+  checks.push(...creepageChecks(spacing, targets.spacing));
+  if (deliverablePowerW !== null) {
+    const drawnW = Math.abs(analysis.ladderTopMeanV) * analysis.ladderCurrentA;
+    checks.push(
+      upperLimitVerdict({
+        id: 'driver-power',
+        subject: 'driver stage',
+        rule: 'power the ladder draws (output plus bleeder) against the driver’s deliverable power estimate; marginal within 20 %',
+        value: drawnW,
+        limit: deliverablePowerW,
+        unit: 'W',
+      }),
+    );
+  }
+  const rippleOk = analysis.ripplePeakToPeakV <= targets.rippleMaxV;
+  const outputOk = Math.sign(analysis.outputMeanV) === Math.sign(targets.outputV) && Math.abs(analysis.outputMeanV) >= Math.abs(targets.outputV);
+  const methods = [analysis.method, analysis.textbook.method, curves.method, ...(deliverablePowerW !== null ? [DRIVER_METHOD] : [])];
+  return {
+    engineVersion: ENGINE_VERSION,
+    designName: design.name,
+    resolvedDrive: drive,
+    noLoadOutputV: analysis.noLoadOutputV,
+    outputMeanV: analysis.outputMeanV,
+    outputMinV: analysis.outputMinV,
+    outputMaxV: analysis.outputMaxV,
+    ripplePeakToPeakV: analysis.ripplePeakToPeakV,
+    droopV: analysis.droopV,
+    outputImpedanceOhm: analysis.outputImpedanceOhm,
+    optimumStages: curves.optimumStages,
+    textbookRippleV: analysis.textbook.rippleV,
+    textbookDropV: analysis.textbook.dropV,
+    storedEnergyJ: energy.totalEnergyJ,
+    storedChargeC: energy.totalChargeC,
+    dischargeTimeS: discharge.dischargeTimeS,
+    meetsTargets: { output: outputOk, ripple: rippleOk },
+    analysis,
+    curves,
+    storedEnergy: energy,
+    spacing,
+    checks,
+    methods,
+    caution: HV_CAUTION,
+  };
+}
+
+/** Convenience for callers that want the verdicts only. */
+export function evaluateChecks(design: Design): CheckVerdict[] {
+  return analyzeDesign(design).checks;
+}

@@ -1,0 +1,471 @@
+import { DomainError } from '../errors';
+import type { PulseDrive, SineDrive } from '../designs/design.types';
+import { buildLadderNetwork, EVENT_H } from './topologies';
+import type { LadderNetwork } from './topologies';
+import type { CapacitorStress, DiodeStress, LadderAnalysis, LadderInput, MethodInfo, TextbookFigures } from './ladder.types';
+
+const boltzmannJPerK = 1.380649e-23;
+const elementaryChargeC = 1.602176634e-19;
+
+export const STEADY_STATE_METHOD: MethodInfo = {
+  methodId: 'charge-transfer-v1',
+  summary:
+    'Periodic steady state of the switched-capacitor (charge-transfer) model: each diode passes a fixed charge per cycle at its drive extreme, capacitor voltages follow from charge balance and the end-of-conduction condition of each diode, solved in one pass up the ladder.',
+  assumptions: [
+    'diodes conduct only at the drive extremes and each passes its share of q = I/f per cycle (all of it in a half-wave chain, half in a full-wave cascade)',
+    'constant load current between conductions; the output falls linearly between charge transfers',
+    'diode forward drop: Shockley n·Vt·ln(1 + I/Is) + I·Rs at the mean conduction current, Vt at 300 K unless given',
+    'sine drive: source-resistance loss from the peak-rectifier conduction angle, ΔV = (3·Q·ω·R·√Vpk / (4√2))^(2/3) per conduction',
+    'pulse drive: conduction spread over the phase; source loss Q·R / phase time (an upper bound when the RC time is short)',
+    'full-wave: the two antiphase paths share the charge equally (exact for a symmetric drive and equal columns)',
+    'stray capacitance and diode junction capacitance are not modelled here (see the simulator)',
+    'reported output is at the load terminal, after the series output resistor; the bleeder sits at the ladder top',
+  ],
+  source:
+    'Charge-balance analysis of the Greinacher/Cockcroft-Walton cascade as in Kuffel, Zaengl & Kuffel, High Voltage Engineering Fundamentals, 2nd ed., §2.2.2 (from memory), solved exactly for any capacitor values; Shockley diode equation',
+};
+
+const TEXTBOOK_METHOD: MethodInfo = {
+  methodId: 'textbook-closed-forms',
+  summary:
+    'Published closed forms for equal stage capacitors: ripple (q/C)·n(n+1)/2, drop ΔV0 = (q/C)(2n³/3 + n²/2 − n/6), regulation ΔV0/(2nVmax), n_opt = √(Vmax f C / I); doubler with C1, C2: ripple q/C2, drop q(1/C1 + 1/(2C2)); full-wave ripple I·n/(2fC).',
+  assumptions: [
+    'ideal diodes, zero source impedance, q = I/f with I the ladder current (load plus bleeder)',
+    'Vmax is the peak of the secondary (half its peak-to-peak for a pulse drive)',
+    'ripple is peak-to-peak; the half-wave ΔV0 is the drop of the peak output, the doubler drop is to the mean',
+  ],
+  source:
+    'J. Lux, "Cockcroft Walton Voltage Multipliers" (read); FOSSEE Scilab companions (read); Kuffel, Zaengl & Kuffel §2.2.2 (from memory); REFERENCES.md §1–2',
+};
+
+/** Resolved drive extremes and timing for one polarity. */
+interface DriveTiming {
+  highV: number;
+  lowV: number;
+  periodS: number;
+  /** Time from the H conduction to the L conduction. */
+  afterHS: number;
+  afterLS: number;
+  isSine: boolean;
+  sourceResistanceOhm: number;
+  frequencyHz: number;
+}
+
+function driveTiming(drive: SineDrive | PulseDrive, polarity: 1 | -1): DriveTiming {
+  const periodS = 1 / drive.frequencyHz;
+  if (drive.kind === 'sine') {
+    return {
+      highV: drive.peakV, lowV: drive.peakV, periodS, afterHS: periodS / 2, afterLS: periodS / 2, isSine: true,
+      sourceResistanceOhm: drive.sourceResistanceOhm, frequencyHz: drive.frequencyHz,
+    };
+  }
+  // A negative ladder is the mirror image: its H extreme is the flyback.
+  const forwardIsHigh = polarity === 1;
+  const forwardS = drive.dutyCycle * periodS;
+  return {
+    highV: forwardIsHigh ? drive.forwardPeakV : drive.flybackPeakV,
+    lowV: forwardIsHigh ? drive.flybackPeakV : drive.forwardPeakV,
+    periodS,
+    // The H conduction happens at the start of the H phase, which lasts until the L phase begins.
+    afterHS: forwardIsHigh ? forwardS : periodS - forwardS,
+    afterLS: forwardIsHigh ? periodS - forwardS : forwardS,
+    isSine: false,
+    sourceResistanceOhm: drive.sourceResistanceOhm,
+    frequencyHz: drive.frequencyHz,
+  };
+}
+
+/** Work arrays reused between solves of the same network (no allocation in the inner solve). */
+interface Workspace {
+  net: LadderNetwork;
+  timing: DriveTiming;
+  deltaH: Float64Array;
+  deltaL: Float64Array;
+  chargeH: Float64Array;
+  chargeL: Float64Array;
+  loadRate: Float64Array;
+  nodeLoadRate: Float64Array;
+  flow: Float64Array;
+  injection: Float64Array;
+  stateA: Float64Array;
+  stateB: Float64Array;
+  nodeA: Float64Array;
+  nodeB: Float64Array;
+  harmonicMeanF: number;
+  thermalV: number;
+  diode: LadderInput['diode'];
+}
+
+/** Charge flowing down each capacitor for injections at the nodes (each node is the top of one capacitor). */
+function accumulateFlow(net: LadderNetwork, injection: Float64Array, flow: Float64Array, capDelta: Float64Array): void {
+  const m = net.capF.length;
+  // `flow` indexed by node: charge that node passes down to the capacitor below it.
+  for (let n = 0; n < flow.length; n += 1) flow[n] = injection[n] ?? 0;
+  for (let c = m - 1; c >= 0; c -= 1) {
+    const top = net.capTop[c] as number;
+    const bottom = net.capBottom[c] as number;
+    const q = flow[top] as number;
+    capDelta[c] = q / (net.capF[c] as number);
+    flow[bottom] = (flow[bottom] as number) + q;
+  }
+}
+
+function createWorkspace(net: LadderNetwork, input: LadderInput): Workspace {
+  const m = net.capF.length;
+  const nodes = net.nodeCount;
+  const timing = driveTiming(input.drive, input.polarity);
+  const ws: Workspace = {
+    net, timing,
+    deltaH: new Float64Array(m), deltaL: new Float64Array(m),
+    chargeH: new Float64Array(net.anchorScale.length), chargeL: new Float64Array(net.anchorScale.length),
+    loadRate: new Float64Array(m), nodeLoadRate: new Float64Array(nodes),
+    flow: new Float64Array(nodes), injection: new Float64Array(nodes),
+    stateA: new Float64Array(m), stateB: new Float64Array(m),
+    nodeA: new Float64Array(nodes), nodeB: new Float64Array(nodes),
+    harmonicMeanF: 0,
+    thermalV: (boltzmannJPerK * (input.temperatureK ?? 300)) / elementaryChargeC,
+    diode: input.diode,
+  };
+  let inverseSum = 0;
+  for (let c = 0; c < m; c += 1) inverseSum += 1 / (net.capF[c] as number);
+  ws.harmonicMeanF = m / inverseSum;
+  // Capacitor voltage change per coulomb of ladder charge at each event, and the charge through each anchor.
+  for (const [event, delta, charge] of [[0, ws.deltaH, ws.chargeH], [1, ws.deltaL, ws.chargeL]] as const) {
+    ws.injection.fill(0);
+    for (let d = 0; d < net.diodeShare.length; d += 1) {
+      if (net.diodeEvent[d] !== event) continue;
+      const share = net.diodeShare[d] as number;
+      const cathode = net.diodeCathode[d] as number;
+      const anode = net.diodeAnode[d] as number;
+      ws.injection[cathode] = (ws.injection[cathode] as number) + share;
+      ws.injection[anode] = (ws.injection[anode] as number) - share;
+    }
+    accumulateFlow(net, ws.injection, ws.flow, delta);
+    for (let a = 0; a < charge.length; a += 1) charge[a] = Math.abs(ws.flow[a] as number);
+  }
+  // Load: one ampere out of the output node into the return node.
+  ws.injection.fill(0);
+  ws.injection[net.outNode] = -1;
+  ws.injection[net.returnNode] = (ws.injection[net.returnNode] as number) + 1;
+  accumulateFlow(net, ws.injection, ws.flow, ws.loadRate);
+  ws.nodeLoadRate.fill(0);
+  for (let c = 0; c < m; c += 1) {
+    ws.nodeLoadRate[net.capTop[c] as number] = (ws.nodeLoadRate[net.capBottom[c] as number] as number) + (ws.loadRate[c] as number);
+  }
+  return ws;
+}
+
+/** Per-event source loss and diode drop at a ladder current, from conduction time and charge. */
+function eventLosses(ws: Workspace, currentA: number, event: 0 | 1): { lossScale: number; forwardDropV: number; conductionCurrentA: number } {
+  const t = ws.timing;
+  const q = currentA * t.periodS;
+  const peakV = event === EVENT_H ? t.highV : t.lowV;
+  const phaseS = event === EVENT_H ? t.afterHS : t.afterLS;
+  const charges = event === EVENT_H ? ws.chargeH : ws.chargeL;
+  let sourceCharge = 0;
+  for (let a = 1; a < charges.length; a += 1) sourceCharge = Math.max(sourceCharge, (charges[a] as number) * q);
+  let lossV: number;
+  let conductionS: number;
+  const r = t.sourceResistanceOhm;
+  if (t.isSine) {
+    const omega = 2 * Math.PI * t.frequencyHz;
+    lossV = r > 0 && q > 0 ? Math.min(peakV, ((3 * sourceCharge * omega * r * Math.sqrt(peakV)) / (4 * Math.SQRT2)) ** (2 / 3)) : 0;
+    const swingV = lossV + (ws.net.diodeShare[0] as number) * q / ws.harmonicMeanF;
+    const angle = Math.min(Math.PI / 2, Math.sqrt((2 * swingV) / Math.max(peakV, 1e-30)));
+    conductionS = Math.max((2 * angle) / omega, 1e-12);
+  } else {
+    lossV = Math.min(peakV, (sourceCharge * r) / phaseS);
+    conductionS = phaseS;
+  }
+  const diodeCharge = (ws.net.diodeShare[0] as number) * q;
+  const conductionCurrentA = diodeCharge / conductionS;
+  const d = ws.diode;
+  const forwardDropV =
+    d.emissionCoefficient * ws.thermalV * Math.log1p(conductionCurrentA / d.saturationCurrentA) + conductionCurrentA * d.seriesResistanceOhm;
+  return { lossScale: peakV > 0 ? (peakV - lossV) / peakV : 0, forwardDropV, conductionCurrentA };
+}
+
+interface SolvedCycle {
+  /** Ladder-top output just after H, and just after L. */
+  afterHV: number;
+  afterLV: number;
+  /** Output slope per ampere (V/s per A, negative). */
+  slopeVPerSA: number;
+  meanV: number;
+  minV: number;
+  maxV: number;
+  forwardDropHV: number;
+  forwardDropLV: number;
+  conductionHA: number;
+  conductionLA: number;
+}
+
+/** One steady-state solve at ladder current `currentA` (fills ws.stateA/stateB and the node voltages). */
+function solveCycle(ws: Workspace, currentA: number): SolvedCycle {
+  const { net, timing } = ws;
+  const lossH = eventLosses(ws, currentA, 0);
+  const lossL = eventLosses(ws, currentA, 1);
+  const q = currentA * timing.periodS;
+  const anchors = net.anchorScale.length;
+  for (let a = 0; a < anchors; a += 1) {
+    const scale = net.anchorScale[a] as number;
+    ws.nodeA[a] = scale * timing.highV * lossH.lossScale;
+    ws.nodeB[a] = -scale * timing.lowV * lossL.lossScale;
+  }
+  const m = net.capF.length;
+  for (let c = 0; c < m; c += 1) {
+    const d = net.capDiode[c] as number;
+    const top = net.capTop[c] as number;
+    const bottom = net.capBottom[c] as number;
+    const anode = net.diodeAnode[d] as number;
+    const cathode = net.diodeCathode[d] as number;
+    // b − a over the H→L interval: load discharge plus the L charge transfer.
+    const delta = currentA * timing.afterHS * (ws.loadRate[c] as number) + q * (ws.deltaL[c] as number);
+    let a: number;
+    let b: number;
+    if (net.diodeEvent[d] === EVENT_H) {
+      const topV = top === cathode ? (ws.nodeA[anode] as number) - lossH.forwardDropV : (ws.nodeA[cathode] as number) + lossH.forwardDropV;
+      a = topV - (ws.nodeA[bottom] as number);
+      b = a + delta;
+    } else {
+      const topV = top === cathode ? (ws.nodeB[anode] as number) - lossL.forwardDropV : (ws.nodeB[cathode] as number) + lossL.forwardDropV;
+      b = topV - (ws.nodeB[bottom] as number);
+      a = b - delta;
+    }
+    ws.stateA[c] = a;
+    ws.stateB[c] = b;
+    ws.nodeA[top] = (ws.nodeA[bottom] as number) + a;
+    ws.nodeB[top] = (ws.nodeB[bottom] as number) + b;
+  }
+  const afterHV = (ws.nodeA[net.outNode] as number) - (ws.nodeA[net.returnNode] as number);
+  const afterLV = (ws.nodeB[net.outNode] as number) - (ws.nodeB[net.returnNode] as number);
+  const slope = (ws.nodeLoadRate[net.outNode] as number) - (ws.nodeLoadRate[net.returnNode] as number);
+  const fallH = currentA * timing.afterHS * slope;
+  const fallL = currentA * timing.afterLS * slope;
+  const meanV = (timing.afterHS * (afterHV + fallH / 2) + timing.afterLS * (afterLV + fallL / 2)) / timing.periodS;
+  return {
+    afterHV, afterLV, slopeVPerSA: slope, meanV,
+    minV: Math.min(afterHV + fallH, afterLV + fallL),
+    maxV: Math.max(afterHV, afterLV),
+    forwardDropHV: lossH.forwardDropV, forwardDropLV: lossL.forwardDropV,
+    conductionHA: lossH.conductionCurrentA, conductionLA: lossL.conductionCurrentA,
+  };
+}
+
+/** Conductance and constant current the output network draws from the ladder top. */
+function outputLoad(input: LadderInput): { conductanceS: number; constantA: number; seriesOhm: number } {
+  const bleederS = input.bleederOhm ? 1 / input.bleederOhm : 0;
+  const load = input.load;
+  if (!load) return { conductanceS: bleederS, constantA: 0, seriesOhm: input.seriesOutputResistanceOhm };
+  if (load.kind === 'current') return { conductanceS: bleederS, constantA: load.currentA, seriesOhm: input.seriesOutputResistanceOhm };
+  return {
+    conductanceS: bleederS + 1 / (load.resistanceOhm + input.seriesOutputResistanceOhm),
+    constantA: 0,
+    seriesOhm: input.seriesOutputResistanceOhm,
+  };
+}
+
+/**
+ * Solves the operating point: the ladder current is the constant load plus what the resistive part of
+ * the output network draws at the mean ladder-top voltage. Secant iteration on the current.
+ */
+function solveOperatingPoint(ws: Workspace, conductanceS: number, constantA: number): { currentA: number; cycle: SolvedCycle } {
+  let currentA = constantA;
+  let cycle = solveCycle(ws, currentA);
+  if (conductanceS === 0) return { currentA, cycle };
+  let previousI = currentA;
+  let previousResidual = currentA - constantA - conductanceS * cycle.meanV;
+  currentA = constantA + conductanceS * Math.max(cycle.meanV, 0);
+  // The mean output is nearly affine in the current, so the secant step converges in two or three steps.
+  for (let iteration = 0; iteration < 12; iteration += 1) {
+    cycle = solveCycle(ws, currentA);
+    const residual = currentA - constantA - conductanceS * Math.max(cycle.meanV, 0);
+    if (Math.abs(residual) <= 1e-10 * Math.max(currentA, 1e-15) || residual === previousResidual) {
+      return { currentA, cycle };
+    }
+    const next = currentA - (residual * (currentA - previousI)) / (residual - previousResidual);
+    previousI = currentA;
+    previousResidual = residual;
+    currentA = Math.max(0, next);
+  }
+  return { currentA, cycle: solveCycle(ws, currentA) };
+}
+
+function allEqual(values: readonly number[]): boolean {
+  const first = values[0] ?? 0;
+  return values.every((v) => Math.abs(v - first) <= 1e-12 * Math.abs(first));
+}
+
+/** Published closed forms where their stated conditions hold (REFERENCES.md §1–2). */
+export function textbookFigures(input: LadderInput, ladderCurrentA: number): TextbookFigures {
+  const caps = input.capacitorsF;
+  const f = input.drive.frequencyHz;
+  const vmax = input.drive.kind === 'sine' ? input.drive.peakV : (input.drive.forwardPeakV + input.drive.flybackPeakV) / 2;
+  const q = ladderCurrentA / f;
+  const none: TextbookFigures = { rippleV: null, dropV: null, regulation: null, optimumStages: null, method: TEXTBOOK_METHOD };
+  if (input.topology === 'half-wave' && caps.length % 2 === 0) {
+    const n = caps.length / 2;
+    if (n === 1 && !allEqual(caps)) {
+      const c1 = caps[0] as number;
+      const c2 = caps[1] as number;
+      const dropV = q * (1 / c1 + 1 / (2 * c2));
+      return { rippleV: q / c2, dropV, regulation: dropV / (2 * vmax), optimumStages: null, method: TEXTBOOK_METHOD };
+    }
+    if (!allEqual(caps)) return none;
+    const c = caps[0] as number;
+    const dropV = (q / c) * ((2 * n ** 3) / 3 + n ** 2 / 2 - n / 6);
+    return {
+      rippleV: ((q / c) * n * (n + 1)) / 2,
+      dropV,
+      regulation: dropV / (2 * n * vmax),
+      optimumStages: ladderCurrentA > 0 ? Math.sqrt((vmax * f * c) / ladderCurrentA) : null,
+      method: TEXTBOOK_METHOD,
+    };
+  }
+  if (input.topology === 'full-wave' && allEqual(caps)) {
+    const n = caps.length / 3;
+    return { ...none, rippleV: (ladderCurrentA * n) / (2 * f * (caps[0] as number)) };
+  }
+  return none;
+}
+
+function checkInput(input: LadderInput): void {
+  const drive = input.drive;
+  if (!(drive.frequencyHz > 0)) throw new DomainError('invalid_argument', 'drive frequency must be positive', 'drive.frequencyHz');
+  if (drive.kind === 'sine' && !(drive.peakV > 0)) throw new DomainError('invalid_argument', 'drive peak must be positive', 'drive.peakV');
+  if (drive.kind === 'pulse' && !(drive.dutyCycle > 0 && drive.dutyCycle < 1)) {
+    throw new DomainError('invalid_argument', 'duty cycle must lie in (0, 1)', 'drive.dutyCycle');
+  }
+  if (!(input.diode.saturationCurrentA > 0)) throw new DomainError('invalid_argument', 'diode saturation current must be positive', 'diode.saturationCurrentA');
+  if (input.bleederOhm !== null && !(input.bleederOhm > 0)) throw new DomainError('invalid_argument', 'bleeder resistance must be positive', 'bleederOhm');
+}
+
+/** Prepared ladder: the network and work arrays, for repeated solves (sizing, tolerance spread, curves). */
+export interface PreparedLadder {
+  input: LadderInput;
+  workspace: Workspace;
+}
+
+export function prepareLadder(input: LadderInput): PreparedLadder {
+  checkInput(input);
+  const net = buildLadderNetwork(input.topology, input.capacitorsF);
+  return { input, workspace: createWorkspace(net, input) };
+}
+
+/** Mean load-terminal output (unsigned) at an extra external load current, for the curves. */
+export function terminalMeanAt(prepared: PreparedLadder, extraLoadA: number): number {
+  const { conductanceS, constantA, seriesOhm } = outputLoad(prepared.input);
+  const { currentA, cycle } = solveOperatingPoint(prepared.workspace, conductanceS, constantA + extraLoadA);
+  const bleederA = prepared.input.bleederOhm ? Math.max(cycle.meanV, 0) / prepared.input.bleederOhm : 0;
+  return cycle.meanV - (currentA - bleederA) * seriesOhm;
+}
+
+/**
+ * Steady-state analysis of a voltage-multiplier ladder of any cell count and capacitor values (SI in,
+ * SI out, signed by polarity). Method: STEADY_STATE_METHOD (charge-transfer model, one pass up the
+ * ladder); published closed forms reported beside it where they apply.
+ */
+export function analyzeLadder(input: LadderInput): LadderAnalysis {
+  return analyzePrepared(prepareLadder(input));
+}
+
+export function analyzePrepared(prepared: PreparedLadder): LadderAnalysis {
+  const { input, workspace: ws } = prepared;
+  const { net, timing } = ws;
+  const sign = input.polarity;
+  const { conductanceS, constantA, seriesOhm } = outputLoad(input);
+
+  const noLoad = solveOperatingPoint(ws, input.bleederOhm ? 1 / input.bleederOhm : 0, 0);
+  const noLoadV = noLoad.cycle.meanV;
+  const op = solveOperatingPoint(ws, conductanceS, constantA);
+  const cycle = op.cycle;
+  const ladderCurrentA = op.currentA;
+  const bleederA = input.bleederOhm ? Math.max(cycle.meanV, 0) / input.bleederOhm : 0;
+  const loadA = Math.max(ladderCurrentA - bleederA, 0);
+  const seriesDropV = loadA * seriesOhm;
+
+  // Output impedance of the ladder alone (central difference in ladder current), plus the series resistor.
+  const stepA = Math.max(ladderCurrentA * 1e-3, 1e-9);
+  const lowI = Math.max(ladderCurrentA - stepA, 0);
+  const highI = ladderCurrentA + stepA;
+  const ladderImpedance = (solveCycle(ws, lowI).meanV - solveCycle(ws, highI).meanV) / (highI - lowI);
+  // Restore the operating-point state (the capacitor and diode figures below read it).
+  solveCycle(ws, ladderCurrentA);
+
+  const capacitors: CapacitorStress[] = [];
+  const m = net.capF.length;
+  for (let c = 0; c < m; c += 1) {
+    const a = ws.stateA[c] as number;
+    const b = ws.stateB[c] as number;
+    const rate = ladderCurrentA * (ws.loadRate[c] as number);
+    const values = [a, b, a + rate * timing.afterHS, b + rate * timing.afterLS];
+    capacitors.push({
+      index: c + 1,
+      column: net.capColumn[c] ?? 'smoothing',
+      stage: net.capStage[c] as number,
+      valueF: net.capF[c] as number,
+      maxVoltageV: Math.max(...values.map(Math.abs)),
+      swingV: Math.max(...values) - Math.min(...values),
+    });
+  }
+
+  // Diode reverse voltage at the four instants of the cycle, with the drive at its nominal extremes.
+  const nodeAt = (state: 'a' | 'b', fall: number, driveV: number, node: number): number => {
+    const root = net.nodeRoot[node] as number;
+    const base = state === 'a' ? (ws.nodeA[node] as number) - (ws.nodeA[root] as number) : (ws.nodeB[node] as number) - (ws.nodeB[root] as number);
+    return base + fall * (ws.nodeLoadRate[node] as number) + (net.anchorScale[root] as number) * driveV;
+  };
+  const instants: Array<['a' | 'b', number, number]> = [
+    ['a', 0, timing.highV],
+    ['a', ladderCurrentA * timing.afterHS, -timing.lowV],
+    ['b', 0, -timing.lowV],
+    ['b', ladderCurrentA * timing.afterLS, timing.highV],
+  ];
+  const surgeA = Math.min(
+    Math.max(timing.highV, timing.lowV) / (timing.sourceResistanceOhm + input.diode.seriesResistanceOhm || 1e-3),
+    input.sourceCurrentLimitA ?? Infinity,
+  );
+  const diodes: DiodeStress[] = [];
+  for (let d = 0; d < net.diodeShare.length; d += 1) {
+    const anode = net.diodeAnode[d] as number;
+    const cathode = net.diodeCathode[d] as number;
+    let piv = 0;
+    for (const [state, fall, driveV] of instants) {
+      piv = Math.max(piv, nodeAt(state, fall, driveV, cathode) - nodeAt(state, fall, driveV, anode));
+    }
+    const isH = net.diodeEvent[d] === EVENT_H;
+    diodes.push({
+      index: d + 1,
+      peakInverseV: piv,
+      averageCurrentA: (net.diodeShare[d] as number) * ladderCurrentA,
+      conductionCurrentA: isH ? cycle.conductionHA : cycle.conductionLA,
+      surgeCurrentA: surgeA,
+      forwardDropV: isH ? cycle.forwardDropHV : cycle.forwardDropLV,
+    });
+  }
+
+  const terminalMeanV = cycle.meanV - seriesDropV;
+  const noLoadTerminalV = noLoadV;
+  return {
+    topology: input.topology,
+    cellCount: net.cellCount,
+    stageCount: net.stageCount,
+    noLoadOutputV: sign * noLoadTerminalV,
+    outputMeanV: sign * terminalMeanV,
+    outputMinV: sign * (sign > 0 ? cycle.minV - seriesDropV : cycle.maxV - seriesDropV),
+    outputMaxV: sign * (sign > 0 ? cycle.maxV - seriesDropV : cycle.minV - seriesDropV),
+    ripplePeakToPeakV: cycle.maxV - cycle.minV,
+    droopV: Math.abs(noLoadTerminalV - terminalMeanV),
+    outputImpedanceOhm: ladderImpedance + seriesOhm,
+    ladderTopMeanV: sign * cycle.meanV,
+    loadCurrentA: loadA,
+    bleederCurrentA: bleederA,
+    ladderCurrentA,
+    outputPowerW: terminalMeanV * loadA,
+    idealNoLoadV: sign * (net.idealCoefficientH * timing.highV + net.idealCoefficientL * timing.lowV),
+    capacitors,
+    diodes,
+    textbook: textbookFigures(input, ladderCurrentA),
+    method: STEADY_STATE_METHOD,
+  };
+}

@@ -1,0 +1,20 @@
+export { analyzeLadder, prepareLadder, analyzePrepared, terminalMeanAt, textbookFigures, STEADY_STATE_METHOD } from './analyze-ladder';
+export type { PreparedLadder } from './analyze-ladder';
+export { buildLadderNetwork } from './topologies';
+export type { LadderNetwork } from './topologies';
+export { ladderCurves } from './ladder-curves';
+export { ladderStressChecks, bleederStressChecks, DERATING } from './ladder-stress';
+export { analyzeDesign, evaluateChecks, resolveDrive, ladderInputOf } from './analyze-design';
+export type { DesignReport } from './analyze-design';
+export { ENGINE_VERSION } from './engine-version';
+export type {
+  LadderInput,
+  LadderAnalysis,
+  LadderCurves,
+  CurvePoint,
+  CapacitorStress,
+  DiodeStress,
+  DiodeModel,
+  TextbookFigures,
+  MethodInfo,
+} from './ladder.types';

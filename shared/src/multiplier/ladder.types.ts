@@ -1,0 +1,114 @@
+import type { MethodInfo } from '../driver/driver.types';
+import type { PulseDrive, SineDrive, Topology } from '../designs/design.types';
+
+export type { MethodInfo };
+
+/** The Shockley parameters the steady-state model needs from a diode. */
+export interface DiodeModel {
+  saturationCurrentA: number;
+  emissionCoefficient: number;
+  seriesResistanceOhm: number;
+}
+
+/**
+ * A bare ladder for analysis: capacitors in the MultiplierSpec order (from the source upward),
+ * a resolved secondary waveform, the diode model and what is connected at the output.
+ */
+export interface LadderInput {
+  topology: Topology;
+  capacitorsF: readonly number[];
+  drive: SineDrive | PulseDrive;
+  diode: DiodeModel;
+  /** +1 for a positive ladder, −1 for a negative one (diodes reversed; forward and flyback swap roles). */
+  polarity: 1 | -1;
+  /** External load at the load terminal (after the series output resistor); null for none. */
+  load: { kind: 'current'; currentA: number } | { kind: 'resistance'; resistanceOhm: number } | null;
+  /** Total resistance of the bleeder string across the ladder top; null for none. */
+  bleederOhm: number | null;
+  seriesOutputResistanceOhm: number;
+  /** Largest current the source can deliver (an energy-limited driver); caps the switch-on surge estimate. */
+  sourceCurrentLimitA?: number;
+  /** Junction temperature for the thermal voltage; default 300 K. */
+  temperatureK?: number;
+}
+
+/** Operating figures of one capacitor over the steady-state cycle. */
+export interface CapacitorStress {
+  index: number;
+  column: 'oscillating' | 'smoothing' | 'oscillating-a' | 'oscillating-b' | 'bridge';
+  stage: number;
+  valueF: number;
+  /** Largest magnitude of its voltage over the cycle. */
+  maxVoltageV: number;
+  /** Peak-to-peak change of its voltage over the cycle. */
+  swingV: number;
+}
+
+/** Operating figures of one diode over the steady-state cycle. */
+export interface DiodeStress {
+  index: number;
+  /** Largest reverse voltage over the cycle (at the opposite extreme of the drive). */
+  peakInverseV: number;
+  averageCurrentA: number;
+  /** Mean current during conduction (charge per conduction over the conduction time). */
+  conductionCurrentA: number;
+  /** First-cycle charging current at switch-on with empty capacitors: drive peak over source plus diode resistance. */
+  surgeCurrentA: number;
+  forwardDropV: number;
+}
+
+/** Steady-state result of analyzeLadder, SI units, signed by the ladder polarity. */
+export interface LadderAnalysis {
+  topology: Topology;
+  cellCount: number;
+  stageCount: number;
+  /** Load terminal, no external load (the bleeder still draws). */
+  noLoadOutputV: number;
+  /** Load terminal, cycle mean / min / max at the operating load. */
+  outputMeanV: number;
+  outputMinV: number;
+  outputMaxV: number;
+  ripplePeakToPeakV: number;
+  /** |no-load mean − loaded mean|. */
+  droopV: number;
+  /** −d(mean output)/d(load current) at the operating point, including the series output resistor. */
+  outputImpedanceOhm: number;
+  /** Mean at the ladder top (where the bleeder sits). */
+  ladderTopMeanV: number;
+  loadCurrentA: number;
+  bleederCurrentA: number;
+  /** Current the ladder delivers: load plus bleeder. */
+  ladderCurrentA: number;
+  outputPowerW: number;
+  /** Ideal no-load output: cells × peak for half-wave sine (see method). */
+  idealNoLoadV: number;
+  capacitors: CapacitorStress[];
+  diodes: DiodeStress[];
+  /** Published closed forms where their conditions hold (equal capacitors; the doubler with any two); null otherwise. */
+  textbook: TextbookFigures;
+  method: MethodInfo;
+}
+
+export interface TextbookFigures {
+  rippleV: number | null;
+  dropV: number | null;
+  regulation: number | null;
+  optimumStages: number | null;
+  method: MethodInfo;
+}
+
+export interface CurvePoint {
+  x: number;
+  y: number;
+}
+
+export interface LadderCurves {
+  /** Mean load-terminal output vs external load current, 0 to short circuit. */
+  regulation: CurvePoint[];
+  shortCircuitCurrentA: number;
+  /** Mean load-terminal output vs stage count at the operating load. */
+  outputVsStages: CurvePoint[];
+  optimumStages: number;
+  optimumOutputV: number;
+  method: MethodInfo;
+}

@@ -1,0 +1,14 @@
+/** One verdict of the Checks panel. `value` null means unbounded (e.g. no discharge path). */
+export interface CheckVerdict {
+  id: string;
+  subject: string;
+  /** The rule applied, naming its source and the thresholds. */
+  rule: string;
+  verdict: 'pass' | 'marginal' | 'fail';
+  /** Margin to the limit in percent: (limit − value)/limit·100 for an upper limit, (value − limit)/limit·100 for a lower one. */
+  marginPct: number;
+  value: number | null;
+  limit: number;
+  unit: string;
+  caution?: string;
+}

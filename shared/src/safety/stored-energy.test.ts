@@ -1,0 +1,48 @@
+import { describe, expect, it } from 'vitest';
+import { evaluate } from 'mathjs';
+import { storedChargeLimit } from './hazard-limits';
+import { storedEnergy, storedEnergyChecks } from './stored-energy';
+import { dischargeCheck, dischargeTimeS } from './discharge';
+
+describe('stored energy and charge', () => {
+  it('computes ½CV² and CV per capacitor (outside check: mathjs unit arithmetic)', () => {
+    const summary = storedEnergy([{ index: 1, valueF: 10e-9, maxVoltageV: 3000 }, { index: 2, valueF: 4.7e-9, maxVoltageV: 2000 }], 5000);
+    const e1 = evaluate('0.5 * 10 nF * (3 kV)^2').toNumber('J');
+    const e2 = evaluate('0.5 * 4.7 nF * (2 kV)^2').toNumber('J');
+    // Relative 1e-12: the same arithmetic done by mathjs with units.
+    expect(Math.abs(summary.totalEnergyJ / (e1 + e2) - 1)).toBeLessThan(1e-12);
+    expect(Math.abs(summary.totalChargeC / evaluate('10 nF * 3 kV + 4.7 nF * 2 kV').toNumber('C') - 1)).toBeLessThan(1e-12);
+  });
+
+  it('applies the IEC limits of REFERENCES.md §4 by voltage band', () => {
+    expect(storedChargeLimit(60, 'IEC 61010-1').kind).toBe('none'); // ≤ 70 V DC (from memory)
+    expect(storedChargeLimit(5000, 'IEC 61010-1')).toMatchObject({ kind: 'charge', limit: 45e-6 }); // 45 µC (from memory)
+    expect(storedChargeLimit(20e3, 'IEC 61010-1')).toMatchObject({ kind: 'energy', limit: 0.35 }); // 350 mJ (from memory)
+    expect(storedChargeLimit(300, 'IEC 60335-1')).toMatchObject({ kind: 'capacitance', limit: 0.1e-6 }); // 0.1 µF (read)
+    expect(storedChargeLimit(-6000, 'IEC 60335-1')).toMatchObject({ kind: 'charge', limit: 45e-6 }); // 45 µC (read)
+  });
+
+  it('fails a capacitor above 45 µC at 5 kV and carries the caution', () => {
+    // 10 nF at 5 kV stores 50 µC > 45 µC.
+    const checks = storedEnergyChecks(storedEnergy([{ index: 1, valueF: 10e-9, maxVoltageV: 5000 }], 5000), 5000);
+    const perCap = checks.find((c) => c.id === 'stored-c1-iec61010');
+    expect(perCap?.verdict).toBe('fail');
+    expect(perCap?.caution).toMatch(/standard that applies/);
+  });
+});
+
+describe('bleeder discharge', () => {
+  it('t = RC ln(V0/Vsafe) (REFERENCES.md §4; outside check: mathjs)', () => {
+    const t = dischargeTimeS(100e6, 1e-9, 6000, 50);
+    // Relative 1e-12: identical formula evaluated by mathjs with units.
+    expect(Math.abs(t / evaluate('100 Mohm * 1 nF * log(6000 / 50)').toNumber('s') - 1)).toBeLessThan(1e-12);
+  });
+
+  it('fails without a bleeder and applies the NFPA 79 60 µC exemption', () => {
+    const noBleeder = dischargeCheck({ bleederOhm: null, equivalentCapacitanceF: 1e-9, outputV: 5000, safeVoltageV: 50, rule: '50V-1min', storedChargeC: 5e-6 });
+    expect(noBleeder.verdict.verdict).toBe('fail');
+    expect(noBleeder.dischargeTimeS).toBeNull();
+    const exempt = dischargeCheck({ bleederOhm: null, equivalentCapacitanceF: 1e-9, outputV: 5000, safeVoltageV: 60, rule: '60V-5s', storedChargeC: 5e-6 });
+    expect(exempt.verdict.verdict).toBe('pass');
+  });
+});
