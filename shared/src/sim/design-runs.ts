@@ -139,7 +139,10 @@ export function runLadder(spec: LadderCircuitSpec, options: LadderRunOptions): L
   if (options.dischargeToV !== undefined) {
     const startCharges = pssOk ? pss!.charges : stepper.q0;
     const voltages = Array.from({ length: capCount }, (_, i) => startCharges[i]! / spec.capacitorsF[i]!);
-    const off = buildLadderCircuit({ ...spec, driveOffAtS: 0, initialCapacitorVoltagesV: voltages });
+    // A constant-current load is a model of the running equipment, not a discharge path: it is dropped
+    // here (a resistive load stays), so the discharge is the bleeder's.
+    const load = spec.load?.kind === 'current' ? null : (spec.load ?? null);
+    const off = buildLadderCircuit({ ...spec, load, driveOffAtS: 0, initialCapacitorVoltagesV: voltages });
     const offSystem = new MnaSystem(off);
     const capIndex = Array.from({ length: capCount }, (_, i) => offSystem.reactiveNames.indexOf(capacitorName(i)));
     const offTop = offSystem.probeIndex(LADDER_NODES.ladderTop);

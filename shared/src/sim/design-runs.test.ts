@@ -1,0 +1,32 @@
+import { describe, expect, it } from 'vitest';
+import { runLadder } from './design-runs';
+
+describe('runLadder', () => {
+  it('discharges a bridge doubler through its bleeder in R·(C/2)·ln(V0/Vsafe)', () => {
+    // Drive off, winding shorted: both halves in series across the bleeder, the diodes reverse-biased.
+    // Check value: t_safe = RC ln(V0/V_safe), REFERENCES.md §4 (read), with C the series pair C/2.
+    const capF = 100e-9;
+    const bleederOhm = 10e6;
+    const result = runLadder(
+      {
+        topology: 'bridge-doubler',
+        cellCount: 2,
+        capacitorsF: [capF, capF],
+        diode: { saturationCurrentA: 1e-9, emissionCoefficient: 1.8, seriesResistanceOhm: 1 },
+        drive: { kind: 'sine', peakV: 1000, frequencyHz: 10e3, sourceResistanceOhm: 10 },
+        bleederOhm,
+        load: null,
+      },
+      { until: 'steady', maxStepPerPeriod: 100, dischargeToV: 50 },
+    );
+    expect(result.method).toBe('periodic-steady-state');
+    const v0 = result.discharge!.output.values[0]!;
+    const expectedS = bleederOhm * (capF / 2) * Math.log(v0 / 50);
+    // 1 %: the ripple at switch-off (1 mA·… ≈ 0.05 % of V0 here) and the step grid of the crossing.
+    expect(Math.abs(result.discharge!.dischargeTimeS! / expectedS - 1)).toBeLessThan(0.01);
+    // The output approaches 2·Vmax less the diode drops (REFERENCES.md §2: bridge doubler, output 2 Vmax).
+    expect(result.outputMeanV).toBeGreaterThan(0.97 * 2000);
+    expect(result.outputMeanV).toBeLessThan(2000);
+    expect(result.timeToSteadyStateS).not.toBeNull();
+  });
+});
