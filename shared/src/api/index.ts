@@ -36,3 +36,14 @@ export type {
   ImportDesignRequest,
   DesignTemplate,
 } from './designs.types';
+export type {
+  PartKind,
+  Part,
+  PartInput,
+  CreatePartRequest,
+  UpdatePartRequest,
+  PartListQuery,
+  PartImportRow,
+  PartImportResult,
+} from './parts.types';
+export type { BenchFile, BenchRunSummary, BenchRunDetail, UploadBenchRunFields } from './bench-runs.types';

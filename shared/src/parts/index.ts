@@ -1,0 +1,9 @@
+export { normalizePart, PART_KINDS, PART_FIELDS, REQUIRED_PART_FIELDS, PART_CODE_PATTERN } from './validate-part';
+export type { PartField } from './validate-part';
+export { neutraliseCsvCell } from './csv-cell';
+export { fillPartRatings, partReferences } from './fill-part-ratings';
+export type { ShelfPart } from './fill-part-ratings';
+export { bomCost } from './bom-cost';
+export type { BomCost, BomLine } from './bom-cost';
+export { shelfForSizer } from './shelf-for-sizer';
+export type { SizerPartsList, SizerCapacitorOption, SizerDiodeOption } from './shelf-for-sizer';

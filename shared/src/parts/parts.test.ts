@@ -1,0 +1,137 @@
+import { describe, expect, it } from 'vitest';
+import { designExamples } from '../designs';
+import { bomCost } from './bom-cost';
+import { neutraliseCsvCell } from './csv-cell';
+import { fillPartRatings, type ShelfPart } from './fill-part-ratings';
+import { shelfForSizer } from './shelf-for-sizer';
+import { normalizePart } from './validate-part';
+
+const shelf: ShelfPart[] = [
+  { code: 'NF-C472-3K', kind: 'capacitor', valueSi: 4.7e-9, tolerance: 0.05, ratedVoltageV: 3500, ratedCurrentA: null, ratedSurgeCurrentA: null, ratedPowerW: null, unitCost: 0.42 },
+  { code: 'NF-D4K-50M', kind: 'diode', valueSi: null, tolerance: null, ratedVoltageV: 4500, ratedCurrentA: 0.04, ratedSurgeCurrentA: 8, ratedPowerW: null, unitCost: 0.3 },
+  { code: 'NF-R82M-1K', kind: 'resistor', valueSi: 82e6, tolerance: 0.01, ratedVoltageV: 1200, ratedCurrentA: null, ratedSurgeCurrentA: null, ratedPowerW: 0.5, unitCost: 0.11 },
+];
+
+describe('normalizePart', () => {
+  it('parses engineering text into SI numbers', () => {
+    const { part, issues } = normalizePart({
+      code: 'nf-c103-3k',
+      kind: 'Capacitor',
+      description: 'HV ceramic',
+      valueSi: '10n',
+      tolerance: '10%',
+      ratedVoltageV: '3 kV',
+      unitCost: '0.35',
+      sizeMm: '10 x 5 x 7',
+    });
+    expect(issues).toEqual([]);
+    expect(part).toMatchObject({ code: 'NF-C103-3K', kind: 'capacitor', tolerance: 0.1, ratedVoltageV: 3000, unitCost: 0.35, sizeMm: '10x5x7' });
+    // 10n = 1e-8 F; compared to 18 digits because the parser scales by a power of ten.
+    expect(part?.valueSi).toBeCloseTo(1e-8, 18);
+  });
+
+  it('reports every bad field with its path', () => {
+    const { part, issues } = normalizePart(
+      { code: 'bad code', kind: 'capacitor', valueSi: '10 kA', unitCost: '-1', ratedPowerW: '1' },
+      { pathPrefix: 'line 2, ' },
+    );
+    expect(part).toBeNull();
+    expect(issues.map((issue) => issue.path)).toEqual([
+      'line 2, code',
+      'line 2, unitCost',
+      'line 2, valueSi',
+      'line 2, ratedVoltageV',
+      'line 2, ratedPowerW',
+    ]);
+    expect(issues[2]?.message).toContain('unit A given where F is expected');
+    expect(issues[3]?.message).toBe('ratedVoltageV is required for a capacitor');
+    expect(issues[4]?.message).toBe('ratedPowerW does not apply to a capacitor; leave it empty');
+  });
+
+  it('refuses an unknown kind and an unknown field', () => {
+    const { issues } = normalizePart({ code: 'NF-X1-1', kind: 'inductor', unitCost: 1, colour: 'red' });
+    expect(issues.map((issue) => issue.message)).toEqual([
+      'colour is not a part field that can be written here',
+      'kind must be one of capacitor, diode, resistor, transistor, core (got \'inductor\')',
+    ]);
+  });
+
+  it('validates a patch against the stored part', () => {
+    const base = normalizePart({ code: 'NF-R82M-1K', kind: 'resistor', valueSi: '82M', ratedPowerW: '0.5', unitCost: 0.1 }).part;
+    if (!base) throw new Error('base part should be valid');
+    expect(normalizePart({ unitCost: 0.2 }, { partial: true, base }).part?.unitCost).toBe(0.2);
+    expect(normalizePart({ kind: 'diode' }, { partial: true, base }).issues[0]?.path).toBe('kind');
+    expect(normalizePart({ ratedPowerW: null }, { partial: true, base }).issues[0]?.message).toBe('ratedPowerW is required for a resistor');
+  });
+});
+
+describe('neutraliseCsvCell', () => {
+  it.each([
+    ['=SUM(A1)', "'=SUM(A1)"],
+    ['+1', "'+1"],
+    ['-1', "'-1"],
+    ['@cmd', "'@cmd"],
+    ['\tx', "'\tx"],
+    ['\rx', "'\rx"],
+    ['HV ceramic', 'HV ceramic'],
+    [0.5, '0.5'],
+    [null, ''],
+  ] as const)('%j becomes %j', (input, output) => {
+    expect(neutraliseCsvCell(input)).toBe(output);
+  });
+});
+
+describe('fillPartRatings', () => {
+  it('takes the shelf ratings for the referenced codes and leaves the input alone', () => {
+    const design = designExamples.surfaceChargeTester;
+    const { design: filled, issues } = fillPartRatings(design, shelf);
+    expect(issues).toEqual([]);
+    expect(filled.multiplier.capacitors.every((c) => c.ratedVoltageV === 3500 && c.tolerance === 0.05)).toBe(true);
+    expect(filled.multiplier.capacitors[0]?.valueF).toBe(4.7e-9);
+    expect(filled.multiplier.diode).toMatchObject({ ratedPivV: 4500, ratedAverageCurrentA: 0.04, ratedSurgeCurrentA: 8 });
+    expect(filled.outputNetwork.bleeder).toMatchObject({ ratedPowerW: 0.5, limitingVoltageV: 1200, valueOhm: 82e6 });
+    expect(design.multiplier.capacitors[0]?.ratedVoltageV).toBe(3000);
+  });
+
+  it('reports unknown codes and parts of the wrong kind', () => {
+    const design = designExamples.detectorBias;
+    const wrongKind: ShelfPart[] = [{ ...shelf[1], code: 'NF-C103-1K' } as ShelfPart];
+    const { issues } = fillPartRatings(design, wrongKind);
+    expect(issues).toContainEqual({ path: 'multiplier.capacitors[1].partCode', message: 'NF-C103-1K is a diode, not a capacitor' });
+    expect(issues).toContainEqual({ path: 'multiplier.capacitors[0].partCode', message: 'no part NF-C223-630 on the Parts shelf' });
+  });
+});
+
+describe('bomCost', () => {
+  it('prices the ladder of the surface-charge tester by hand', () => {
+    // 4 capacitors × 0.42 + 4 diodes (half-wave: one per capacitor) × 0.30 + 5 bleeder resistors × 0.11
+    // = 1.68 + 1.20 + 0.55 = 3.43 (worked by hand).
+    const bom = bomCost(designExamples.surfaceChargeTester, shelf);
+    expect(bom.lines).toEqual([
+      { code: 'NF-C472-3K', kind: 'capacitor', quantity: 4, unitCost: 0.42, lineCost: 1.68 },
+      { code: 'NF-D4K-50M', kind: 'diode', quantity: 4, unitCost: 0.3, lineCost: expect.closeTo(1.2, 12) },
+      { code: 'NF-R82M-1K', kind: 'resistor', quantity: 5, unitCost: 0.11, lineCost: 0.55 },
+    ]);
+    expect(bom.totalCost).toBeCloseTo(3.43, 9);
+    expect(bom.unpriced).toEqual([]);
+  });
+
+  it('lists positions whose code is missing from the shelf', () => {
+    const bom = bomCost(designExamples.precipitatorCell, shelf);
+    // Full-wave, 2 stages: 6 capacitors priced at 0.42 (same code), 8 diodes (4 per stage) and 4 bleeder resistors unpriced.
+    expect(bom.totalCost).toBeCloseTo(6 * 0.42, 9);
+    expect(bom.unpriced).toEqual([
+      { position: 'diodes', quantity: 8, code: 'NF-D3K-50M' },
+      { position: 'bleeder', quantity: 4, code: 'NF-R47M-HV' },
+    ]);
+  });
+});
+
+describe('shelfForSizer', () => {
+  it('gives capacitors and diodes in the design field names', () => {
+    expect(shelfForSizer(shelf)).toEqual({
+      capacitors: [{ partCode: 'NF-C472-3K', valueF: 4.7e-9, ratedVoltageV: 3500, tolerance: 0.05, unitCost: 0.42 }],
+      diodes: [{ partCode: 'NF-D4K-50M', ratedPivV: 4500, ratedAverageCurrentA: 0.04, ratedSurgeCurrentA: 8, unitCost: 0.3 }],
+    });
+  });
+});
