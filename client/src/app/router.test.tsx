@@ -70,13 +70,15 @@ describe('app routes', () => {
         '/api/auth/me': () => jsonResponse(session),
         '/api/projects': () => jsonResponse([detectorBias]),
         '/api/projects/p-bias': () => jsonResponse(detectorBias),
+        '/api/projects/p-bias/designs?sort=updatedAt&order=desc&page=1&pageSize=20': () =>
+          jsonResponse({ items: [], total: 0, page: 1, pageSize: 20 }),
       }),
     );
     renderApp('/projects/p-bias');
 
     expect(await screen.findByRole('heading', { name: 'Detector tube bias', level: 1 })).toBeInTheDocument();
     expect(screen.getByRole('heading', { name: 'Designs', level: 2 })).toBeInTheDocument();
-    expect(screen.getByText('No designs in this project yet')).toBeInTheDocument();
+    expect(await screen.findByText('No designs in this project yet')).toBeInTheDocument();
   });
 
   it('shows the server’s not-found message for a project the user cannot see', async () => {

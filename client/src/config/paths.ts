@@ -13,6 +13,16 @@ export const paths = {
     path: '/projects/:projectId',
     getHref: (projectId: string) => `/projects/${encodeURIComponent(projectId)}`,
   },
+  design: {
+    path: '/projects/:projectId/designs/:designId',
+    getHref: (projectId: string, designId: string, revisionNumber?: number) =>
+      `/projects/${encodeURIComponent(projectId)}/designs/${encodeURIComponent(designId)}` +
+      (revisionNumber === undefined ? '' : `?rev=${revisionNumber}`),
+  },
+  sizer: {
+    path: '/projects/:projectId/sizer',
+    getHref: (projectId: string) => `/projects/${encodeURIComponent(projectId)}/sizer`,
+  },
 } as const;
 
 export const apiPaths = {
@@ -22,6 +32,22 @@ export const apiPaths = {
   projects: '/api/projects',
   project: (projectId: string) => `/api/projects/${encodeURIComponent(projectId)}`,
   health: '/api/health',
+  designs: (projectId: string) => `/api/projects/${encodeURIComponent(projectId)}/designs`,
+  design: (projectId: string, designId: string) =>
+    `/api/projects/${encodeURIComponent(projectId)}/designs/${encodeURIComponent(designId)}`,
+  revisions: (projectId: string, designId: string) =>
+    `/api/projects/${encodeURIComponent(projectId)}/designs/${encodeURIComponent(designId)}/revisions`,
+  revision: (projectId: string, designId: string, revisionNumber: number) =>
+    `/api/projects/${encodeURIComponent(projectId)}/designs/${encodeURIComponent(designId)}/revisions/${revisionNumber}`,
+  compareRevisions: (projectId: string, designId: string, a: number, b: number) =>
+    `/api/projects/${encodeURIComponent(projectId)}/designs/${encodeURIComponent(designId)}/compare?a=${a}&b=${b}`,
+  designTemplates: '/api/design-templates',
+  evaluate: '/api/analysis/evaluate',
+  simulations: (projectId: string) => `/api/projects/${encodeURIComponent(projectId)}/simulations`,
+  simulation: (projectId: string, jobId: string) =>
+    `/api/projects/${encodeURIComponent(projectId)}/simulations/${encodeURIComponent(jobId)}`,
+  cancelSimulation: (projectId: string, jobId: string) =>
+    `/api/projects/${encodeURIComponent(projectId)}/simulations/${encodeURIComponent(jobId)}/cancel`,
 } as const;
 
 /** Keeps a post-sign-in redirect inside this app: only same-origin absolute paths are accepted. */

@@ -9,4 +9,20 @@ export const queryKeys = {
     list: () => [...queryKeys.projects.all, 'list'] as const,
     detail: (projectId: string) => [...queryKeys.projects.all, 'detail', projectId] as const,
   },
+  designs: {
+    all: ['designs'] as const,
+    project: (projectId: string) => [...queryKeys.designs.all, projectId] as const,
+    list: (projectId: string, query: object) => [...queryKeys.designs.project(projectId), 'list', query] as const,
+    detail: (projectId: string, designId: string) =>
+      [...queryKeys.designs.project(projectId), 'detail', designId] as const,
+    revision: (projectId: string, designId: string, revisionNumber: number) =>
+      [...queryKeys.designs.detail(projectId, designId), 'revision', revisionNumber] as const,
+    compare: (projectId: string, designId: string, a: number, b: number) =>
+      [...queryKeys.designs.detail(projectId, designId), 'compare', a, b] as const,
+    templates: () => [...queryKeys.designs.all, 'templates'] as const,
+  },
+  simulations: {
+    all: ['simulations'] as const,
+    job: (projectId: string, jobId: string) => [...queryKeys.simulations.all, projectId, jobId] as const,
+  },
 } as const;

@@ -1,9 +1,10 @@
-import { Anchor, Breadcrumbs, Group, Stack, Text, Title } from '@mantine/core';
-import { useDocumentTitle } from '@mantine/hooks';
+import { Anchor, Breadcrumbs, Button, Group, Stack, Text, Title } from '@mantine/core';
+import { useDisclosure, useDocumentTitle } from '@mantine/hooks';
 import { useSuspenseQuery, type QueryClient } from '@tanstack/react-query';
-import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
+import { Link, useNavigate, useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { paths } from '../../../config/paths';
-import { DesignsEmpty } from '../../../features/designs/components/designs-empty';
+import { CreateDesignModal } from '../../../features/designs/components/create-design-modal';
+import { DesignTable } from '../../../features/designs/components/design-table';
 import { getProjectQueryOptions } from '../../../features/projects/api/get-project';
 import { ProjectRoleBadge } from '../../../features/projects/components/project-role-badge';
 import { requireUser } from './root';
@@ -16,11 +17,13 @@ export function projectDesignsLoader(queryClient: QueryClient) {
   };
 }
 
-/** A project's home: its Designs (an empty state until designs arrive with their own endpoint). */
+/** A project's home: its Designs, with search, filters and the ways to start a new design. */
 export function ProjectDesignsRoute() {
   const { projectId = '' } = useParams();
   const { data: project } = useSuspenseQuery(getProjectQueryOptions(projectId));
   useDocumentTitle(`${project.name} · Designs · Ladderwright`);
+  const [isCreateOpen, createModal] = useDisclosure(false);
+  const navigate = useNavigate();
   return (
     <Stack gap="lg">
       <Breadcrumbs>
@@ -41,10 +44,27 @@ export function ProjectDesignsRoute() {
         </Text>
       </div>
       <section aria-labelledby="designs-heading">
-        <Title order={2} size="h3" id="designs-heading" mb="md">
-          Designs
-        </Title>
-        <DesignsEmpty />
+        <Group justify="space-between" mb="md">
+          <Title order={2} size="h3" id="designs-heading">
+            Designs
+          </Title>
+          <Group gap="sm">
+            <Button variant="default" component={Link} to={paths.sizer.getHref(projectId)}>
+              Open the Sizer
+            </Button>
+            <Button onClick={createModal.open}>New design</Button>
+          </Group>
+        </Group>
+        <DesignTable projectId={projectId} members={project.members} />
+        <CreateDesignModal
+          projectId={projectId}
+          isOpen={isCreateOpen}
+          onClose={createModal.close}
+          onCreated={(design) => {
+            createModal.close();
+            void navigate(paths.design.getHref(projectId, design.id));
+          }}
+        />
       </section>
     </Stack>
   );

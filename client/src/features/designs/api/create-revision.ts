@@ -1,0 +1,38 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { RevisionDetail, SaveRevisionRequest, StaleBaseError } from '@ladderwright/shared/api';
+import { apiPaths } from '../../../config/paths';
+import { apiRequest, isApiError } from '../../../lib/api-client';
+import { queryKeys } from '../../../lib/query-keys';
+
+/** Saves an edited document as revision n+1; answers 409 stale_base when `baseRevisionNumber` is not the latest. */
+export function createRevision(
+  projectId: string,
+  designId: string,
+  request: SaveRevisionRequest,
+): Promise<RevisionDetail> {
+  return apiRequest<RevisionDetail>(apiPaths.revisions(projectId, designId), { method: 'POST', body: request });
+}
+
+/** The 409 body of a stale save, or null for any other failure. */
+export function staleBaseOf(error: unknown): StaleBaseError | null {
+  if (!isApiError(error) || error.status !== 409 || error.body.code !== 'stale_base') return null;
+  const body = error.body as unknown as Partial<StaleBaseError>;
+  return {
+    statusCode: 409,
+    code: 'stale_base',
+    message: error.body.message,
+    latestRevisionNumber: typeof body.latestRevisionNumber === 'number' ? body.latestRevisionNumber : 0,
+    changedFields: Array.isArray(body.changedFields) ? body.changedFields : [],
+  };
+}
+
+export function useCreateRevision(projectId: string, designId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (request: SaveRevisionRequest) => createRevision(projectId, designId, request),
+    onSuccess: (revision) => {
+      queryClient.setQueryData(queryKeys.designs.revision(projectId, designId, revision.number), revision);
+      return queryClient.invalidateQueries({ queryKey: queryKeys.designs.project(projectId) });
+    },
+  });
+}

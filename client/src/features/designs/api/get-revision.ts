@@ -1,0 +1,27 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { RevisionDetail } from '@ladderwright/shared/api';
+import { apiPaths } from '../../../config/paths';
+import { apiRequest } from '../../../lib/api-client';
+import { queryKeys } from '../../../lib/query-keys';
+
+/** One saved revision with its document and the server's report; both never change once saved. */
+export function getRevision(
+  projectId: string,
+  designId: string,
+  revisionNumber: number,
+  signal?: AbortSignal,
+): Promise<RevisionDetail> {
+  return apiRequest<RevisionDetail>(apiPaths.revision(projectId, designId, revisionNumber), { signal });
+}
+
+export function getRevisionQueryOptions(projectId: string, designId: string, revisionNumber: number) {
+  return queryOptions({
+    queryKey: queryKeys.designs.revision(projectId, designId, revisionNumber),
+    queryFn: ({ signal }) => getRevision(projectId, designId, revisionNumber, signal),
+    staleTime: Infinity,
+  });
+}
+
+export function useRevision(projectId: string, designId: string, revisionNumber: number) {
+  return useQuery(getRevisionQueryOptions(projectId, designId, revisionNumber));
+}
