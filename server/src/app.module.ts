@@ -7,6 +7,8 @@ import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
 import cookieParser from 'cookie-parser';
 import type { NextFunction, Request, Response } from 'express';
 import helmet from 'helmet';
+import { AnalysisModule } from './analysis/analysis.module';
+import { withDesignSchemaComponents } from './analysis/design-schema-components';
 import { AuthModule } from './auth/auth.module';
 import { SESSION_COOKIE } from './auth/jwt.strategy';
 import { DomainErrorFilter, RequestValidationException } from './common/filters/domain-error.filter';
@@ -16,8 +18,10 @@ import { RolesGuard } from './common/guards/roles.guard';
 import { ConfigModule } from './config/config.module';
 import type { AppEnv } from './config/env';
 import { DatabaseModule } from './database/database.module';
+import { DesignsModule } from './designs/designs.module';
 import { HealthModule } from './health/health.module';
 import { ProjectsModule } from './projects/projects.module';
+import { RevisionsModule } from './revisions/revisions.module';
 import { UsersModule } from './users/users.module';
 
 export const API_PREFIX = 'api';
@@ -28,7 +32,7 @@ export class AppModule {
   static forRoot(env: AppEnv): DynamicModule {
     return {
       module: AppModule,
-      imports: [ConfigModule.forRoot(env), DatabaseModule, UsersModule, AuthModule, ProjectsModule, HealthModule],
+      imports: [ConfigModule.forRoot(env), DatabaseModule, UsersModule, AuthModule, ProjectsModule, HealthModule, AnalysisModule, RevisionsModule, DesignsModule],
       providers: [
         { provide: APP_GUARD, useClass: JwtAuthGuard },
         { provide: APP_GUARD, useClass: RolesGuard },
@@ -84,7 +88,9 @@ function setUpApiDocs(app: NestExpressApplication): void {
     .setVersion('0.1.0')
     .addCookieAuth(SESSION_COOKIE)
     .build();
-  SwaggerModule.setup(`${API_PREFIX}/docs`, app, () => SwaggerModule.createDocument(app, config));
+  SwaggerModule.setup(`${API_PREFIX}/docs`, app, () =>
+    withDesignSchemaComponents(SwaggerModule.createDocument(app, config)),
+  );
 }
 
 /** Serves the built client and answers non-API page routes with its index.html (client-side routing). */

@@ -1,11 +1,13 @@
 import { Module } from '@nestjs/common';
 import { SequelizeModule } from '@nestjs/sequelize';
 import { APP_ENV, type AppEnv } from '../config/env';
+import { DesignModel } from '../designs/design.model';
 import { ProjectMemberModel } from '../projects/project-member.model';
 import { ProjectModel } from '../projects/project.model';
+import { RevisionModel } from '../revisions/revision.model';
 import { UserModel } from '../users/user.model';
 
-export const ALL_MODELS = [UserModel, ProjectModel, ProjectMemberModel];
+export const ALL_MODELS = [UserModel, ProjectModel, ProjectMemberModel, DesignModel, RevisionModel];
 
 /**
  * The one Sequelize connection. Models are registered explicitly; the schema comes only from

@@ -1,5 +1,6 @@
 import type { SchemaMigration } from './migration.types';
 import { usersAndProjects } from './0001-users-and-projects';
+import { designsAndRevisions } from './0002-designs-and-revisions';
 
 /** Every schema step in order. Add new steps at the end. */
-export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [usersAndProjects];
+export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [usersAndProjects, designsAndRevisions];
