@@ -1,12 +1,12 @@
 import type { Design } from '../designs';
+import type { DesignReport } from '../multiplier';
 import type { RevisionState } from '../reviews';
 
 /**
- * The engine's report on one design document, as stored with a revision and returned by
- * POST /api/analysis/evaluate. Its shape belongs to the engine (`analyzeDesign`); the API passes it
- * through unchanged, so it is typed here as an open record until a client narrows it.
+ * The engine's report on one design document (`analyzeDesign`), as stored with a revision and returned
+ * by POST /api/analysis/evaluate, after a JSON round trip (non-finite numbers arrive as null).
  */
-export type DesignReportBody = Record<string, unknown>;
+export type DesignReportBody = DesignReport;
 
 /** One row of the Designs list. */
 export interface DesignSummary {

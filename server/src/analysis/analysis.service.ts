@@ -1,0 +1,104 @@
+import { Injectable } from '@nestjs/common';
+import type { DesignReportBody, DesignTemplate, EvaluateResponse, ResultDifference } from '@ladderwright/shared/api';
+import { validateDesign, type Design } from '@ladderwright/shared/designs';
+import { DomainError, isDomainError } from '@ladderwright/shared/errors';
+import { analyzeDesign, ENGINE_VERSION } from '@ladderwright/shared/multiplier';
+import { DESIGN_TEMPLATES } from './design-templates';
+
+/** A numeric headline figure of a report, by its path in the report. */
+export interface HeadlineFigure {
+  key: string;
+  label: string;
+  unit: string;
+}
+
+/** The report figures shown side by side when two revisions are compared. */
+export const HEADLINE_FIGURES: readonly HeadlineFigure[] = [
+  { key: 'noLoadOutputV', label: 'No-load output', unit: 'V' },
+  { key: 'outputMeanV', label: 'Output at load (mean)', unit: 'V' },
+  { key: 'outputMinV', label: 'Output at load (min)', unit: 'V' },
+  { key: 'outputMaxV', label: 'Output at load (max)', unit: 'V' },
+  { key: 'ripplePeakToPeakV', label: 'Ripple (peak-to-peak)', unit: 'V' },
+  { key: 'droopV', label: 'Droop', unit: 'V' },
+  { key: 'outputImpedanceOhm', label: 'Output impedance', unit: 'Ω' },
+  { key: 'optimumStages', label: 'Optimum stage count', unit: '' },
+  { key: 'textbookRippleV', label: 'Ripple, textbook closed form', unit: 'V' },
+  { key: 'textbookDropV', label: 'Drop, textbook closed form', unit: 'V' },
+  { key: 'analysis.ladderCurrentA', label: 'Ladder current (load plus bleeder)', unit: 'A' },
+  { key: 'analysis.bleederCurrentA', label: 'Bleeder current', unit: 'A' },
+  { key: 'analysis.outputPowerW', label: 'Output power', unit: 'W' },
+  { key: 'storedEnergyJ', label: 'Stored energy', unit: 'J' },
+  { key: 'storedChargeC', label: 'Stored charge', unit: 'C' },
+  { key: 'dischargeTimeS', label: 'Discharge time to the safe voltage', unit: 's' },
+];
+
+function figureValue(report: unknown, key: string): number | null {
+  let node: unknown = report;
+  for (const part of key.split('.')) {
+    node = typeof node === 'object' && node !== null ? (node as Record<string, unknown>)[part] : undefined;
+  }
+  return typeof node === 'number' && Number.isFinite(node) ? node : null;
+}
+
+function prefixPath(prefix: string, path: string): string {
+  if (!prefix) return path;
+  return path === '(document)' || path === '' ? prefix : `${prefix}.${path}`;
+}
+
+/**
+ * The server's one door to the shared engine: validation of untrusted documents, the authoritative
+ * report with the engine version, and the templates. No formula lives here.
+ */
+@Injectable()
+export class AnalysisService {
+  readonly engineVersion: string = ENGINE_VERSION;
+
+  /**
+   * Validates an untrusted document. Field issues come back under `fieldPrefix`, the body field the
+   * document arrived in (e.g. `document.multiplier.capacitors[1].valueF`), so the 400 names the field.
+   */
+  parseDocument(input: unknown, fieldPrefix: string): Design {
+    return this.withFieldPrefix(fieldPrefix, () => validateDesign(input));
+  }
+
+  /** Runs an engine call; a DomainError it throws comes back with its field paths under `fieldPrefix`. */
+  private withFieldPrefix<T>(fieldPrefix: string, run: () => T): T {
+    try {
+      return run();
+    } catch (error) {
+      if (!isDomainError(error)) throw error;
+      const issues = error.issues.map((issue) => ({ ...issue, path: prefixPath(fieldPrefix, issue.path) }));
+      const field = prefixPath(fieldPrefix, error.field ?? '') || fieldPrefix || null;
+      const summary = issues.map((issue) => `${issue.path}: ${issue.message}`).join('; ');
+      const message = issues.length > 0 ? `design is not valid: ${summary}` : error.message;
+      throw new DomainError(error.code, message, field, issues);
+    }
+  }
+
+  /** The engine's report on a valid document (synchronous; closed-form and steady-state methods only). */
+  evaluate(design: Design, fieldPrefix = 'document'): EvaluateResponse {
+    const report = this.withFieldPrefix(fieldPrefix, () => analyzeDesign(design));
+    // Stored as JSONB: the JSON round trip makes the response equal to what is stored and read back.
+    return { engineVersion: this.engineVersion, report: JSON.parse(JSON.stringify(report)) as DesignReportBody };
+  }
+
+  templates(): DesignTemplate[] {
+    return DESIGN_TEMPLATES.map((template) => structuredClone(template));
+  }
+
+  template(id: string): DesignTemplate | null {
+    const template = DESIGN_TEMPLATES.find((candidate) => candidate.id === id);
+    return template ? structuredClone(template) : null;
+  }
+
+  /** Headline figures of two reports side by side; `deltaPct` is relative to |a| (null when a is 0 or missing). */
+  compareFigures(reportA: DesignReportBody, reportB: DesignReportBody): ResultDifference[] {
+    return HEADLINE_FIGURES.map(({ key, label, unit }) => {
+      const a = figureValue(reportA, key);
+      const b = figureValue(reportB, key);
+      const delta = a !== null && b !== null ? b - a : null;
+      const deltaPct = delta !== null && a !== null && a !== 0 ? (delta / Math.abs(a)) * 100 : null;
+      return { key, label, ...(unit ? { unit } : {}), a, b, delta, deltaPct };
+    });
+  }
+}

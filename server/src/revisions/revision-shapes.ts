@@ -1,0 +1,39 @@
+import type { RevisionDetail, RevisionSummary } from '@ladderwright/shared/api';
+import type { RevisionModel } from './revision.model';
+
+/** The list shape of a revision loaded with its author. */
+export function toRevisionSummary(revision: RevisionModel): RevisionSummary {
+  const author = revision.author;
+  if (!author) throw new Error('revision loaded without its author');
+  return {
+    number: revision.number,
+    state: revision.state,
+    authorId: revision.authorId,
+    authorName: author.displayName,
+    createdAt: revision.createdAt.toISOString(),
+    changeNote: revision.changeNote,
+    baseRevisionNumber: revision.baseRevisionNumber,
+    engineVersion: revision.engineVersion,
+  };
+}
+
+/** The full shape: summary plus the stored document and report exactly as written. */
+export function toRevisionDetail(revision: RevisionModel, projectId: string): RevisionDetail {
+  return {
+    ...toRevisionSummary(revision),
+    designId: revision.designId,
+    projectId,
+    document: revision.document,
+    report: revision.report,
+  };
+}
+
+/** A file-name stem from a design name: lower-case letters, digits and dashes. */
+export function fileStem(name: string): string {
+  const stem = name
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-+|-+$/g, '')
+    .slice(0, 60);
+  return stem || 'design';
+}

@@ -1,0 +1,78 @@
+import { Body, Controller, Get, Param, Post, Res, UseFilters } from '@nestjs/common';
+import { ApiConflictResponse, ApiCookieAuth, ApiOkResponse, ApiProduces, ApiTags } from '@nestjs/swagger';
+import type { Response } from 'express';
+import type { CurrentUser as SessionUser, RevisionDetail, RevisionSummary } from '@ladderwright/shared/api';
+import { CurrentUser } from '../common/decorators/current-user.decorator';
+import { ProjectMembership } from '../common/decorators/project-membership.decorator';
+import { RequiresProjectAction } from '../common/decorators/requires-permission.decorator';
+import type { ProjectMembership as Membership } from '../common/request.types';
+import { SaveRevisionDto } from './dto/save-revision.dto';
+import type { DownloadFile } from './revisions.service';
+import { RevisionsService } from './revisions.service';
+import { StaleBaseFilter } from './stale-base.filter';
+
+function sendDownload(response: Response, file: DownloadFile, contentType: string): void {
+  response.setHeader('Content-Type', contentType);
+  response.setHeader('Content-Disposition', `attachment; filename="${file.fileName}"`);
+  response.send(file.body);
+}
+
+@ApiTags('revisions')
+@ApiCookieAuth()
+@Controller('projects/:projectId/designs/:designId/revisions')
+@UseFilters(StaleBaseFilter)
+export class RevisionsController {
+  constructor(private readonly revisions: RevisionsService) {}
+
+  @Get()
+  list(@ProjectMembership() membership: Membership, @Param('designId') designId: string): Promise<RevisionSummary[]> {
+    return this.revisions.list(membership.projectId, designId);
+  }
+
+  @Post()
+  @RequiresProjectAction('design.write')
+  @ApiConflictResponse({ description: 'stale_base: the base is not the latest revision; body lists changedFields.' })
+  save(
+    @ProjectMembership() membership: Membership,
+    @CurrentUser() user: SessionUser,
+    @Param('designId') designId: string,
+    @Body() body: SaveRevisionDto,
+  ): Promise<RevisionDetail> {
+    return this.revisions.save(membership.projectId, designId, body, user.id);
+  }
+
+  @Get(':revisionNumber')
+  detail(
+    @ProjectMembership() membership: Membership,
+    @Param('designId') designId: string,
+    @Param('revisionNumber') revisionNumber: string,
+  ): Promise<RevisionDetail> {
+    return this.revisions.get(membership.projectId, designId, revisionNumber);
+  }
+
+  @Get(':revisionNumber/export')
+  @ApiProduces('application/json')
+  @ApiOkResponse({ description: 'The revision as a ladderwright-design file (attachment).' })
+  async exportFile(
+    @ProjectMembership() membership: Membership,
+    @Param('designId') designId: string,
+    @Param('revisionNumber') revisionNumber: string,
+    @Res() response: Response,
+  ): Promise<void> {
+    const file = await this.revisions.exportFile(membership.projectId, designId, revisionNumber, new Date());
+    sendDownload(response, file, 'application/json; charset=utf-8');
+  }
+
+  @Get(':revisionNumber/netlist')
+  @ApiProduces('text/plain')
+  @ApiOkResponse({ description: 'The revision circuit as a SPICE netlist (.cir attachment).' })
+  async netlist(
+    @ProjectMembership() membership: Membership,
+    @Param('designId') designId: string,
+    @Param('revisionNumber') revisionNumber: string,
+    @Res() response: Response,
+  ): Promise<void> {
+    const file = await this.revisions.netlist(membership.projectId, designId, revisionNumber);
+    sendDownload(response, file, 'text/plain; charset=utf-8');
+  }
+}

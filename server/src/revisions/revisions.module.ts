@@ -1,0 +1,15 @@
+import { Module } from '@nestjs/common';
+import { SequelizeModule } from '@nestjs/sequelize';
+import { AnalysisModule } from '../analysis/analysis.module';
+import { DesignModel } from '../designs/design.model';
+import { RevisionModel } from './revision.model';
+import { RevisionsController } from './revisions.controller';
+import { RevisionsService } from './revisions.service';
+
+@Module({
+  imports: [SequelizeModule.forFeature([DesignModel, RevisionModel]), AnalysisModule],
+  controllers: [RevisionsController],
+  providers: [RevisionsService],
+  exports: [RevisionsService],
+})
+export class RevisionsModule {}

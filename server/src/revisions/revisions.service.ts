@@ -1,0 +1,197 @@
+import { Injectable } from '@nestjs/common';
+import { InjectModel } from '@nestjs/sequelize';
+import type { Transaction } from 'sequelize';
+import { Sequelize } from 'sequelize-typescript';
+import type {
+  DesignExport,
+  RevisionComparison,
+  RevisionDetail,
+  RevisionSummary,
+  SaveRevisionRequest,
+} from '@ladderwright/shared/api';
+import type { Design } from '@ladderwright/shared/designs';
+import { DomainError } from '@ladderwright/shared/errors';
+import { buildCircuit, toSpiceNetlist } from '@ladderwright/shared/sim';
+import { AnalysisService } from '../analysis/analysis.service';
+import { isUuid } from '../common/uuid';
+import { DesignModel } from '../designs/design.model';
+import { UserModel } from '../users/user.model';
+import { differences } from './document-diff';
+import { fileStem, toRevisionDetail, toRevisionSummary } from './revision-shapes';
+import { RevisionModel } from './revision.model';
+import { StaleBaseException } from './stale-base.filter';
+
+/** A revision to write; the report is computed here, from the document, with the shared engine. */
+export interface NewRevision {
+  designId: string;
+  number: number;
+  document: Design;
+  authorId: string;
+  changeNote: string;
+  baseRevisionNumber: number | null;
+}
+
+export interface DownloadFile {
+  fileName: string;
+  body: string;
+}
+
+/** Parses a revision number from the route; anything but a positive integer is "no such revision". */
+function revisionNumberOf(raw: string): number | null {
+  return /^[1-9][0-9]{0,8}$/.test(raw) ? Number(raw) : null;
+}
+
+@Injectable()
+export class RevisionsService {
+  constructor(
+    @InjectModel(DesignModel) private readonly designs: typeof DesignModel,
+    @InjectModel(RevisionModel) private readonly revisions: typeof RevisionModel,
+    private readonly analysis: AnalysisService,
+    private readonly sequelize: Sequelize,
+  ) {}
+
+  /** The design `designId` of `projectId`; a malformed id or a design of another project is 404. */
+  async findDesign(projectId: string, designId: string, transaction?: Transaction): Promise<DesignModel> {
+    const design = isUuid(designId)
+      ? await this.designs.findOne({
+          where: { id: designId, projectId },
+          ...(transaction ? { transaction, lock: transaction.LOCK.UPDATE } : {}),
+        })
+      : null;
+    if (!design) throw new DomainError('not_found', 'Design not found', 'designId');
+    return design;
+  }
+
+  /** Inserts one revision with the engine's report. The caller holds the design row lock. */
+  async write(revision: NewRevision, transaction: Transaction): Promise<RevisionModel> {
+    const { engineVersion, report } = this.analysis.evaluate(revision.document);
+    return this.revisions.create({ ...revision, engineVersion, report }, { transaction });
+  }
+
+  async list(projectId: string, designId: string): Promise<RevisionSummary[]> {
+    const design = await this.findDesign(projectId, designId);
+    return this.listOf(design.id);
+  }
+
+  async listOf(designId: string): Promise<RevisionSummary[]> {
+    const rows = await this.revisions.findAll({
+      where: { designId },
+      attributes: { exclude: ['document', 'report'] },
+      include: [UserModel],
+      order: [['number', 'DESC']],
+    });
+    return rows.map(toRevisionSummary);
+  }
+
+  async get(projectId: string, designId: string, rawNumber: string): Promise<RevisionDetail> {
+    const design = await this.findDesign(projectId, designId);
+    return toRevisionDetail(await this.load(design.id, rawNumber, 'revisionNumber'), projectId);
+  }
+
+  /**
+   * Saves the document as revision latest+1. Refuses with 409 stale_base (and writes nothing) when the
+   * base is not the latest revision, listing the fields changed since the base. The design row is locked
+   * for the numbering, so two concurrent saves on the same base cannot both succeed.
+   */
+  async save(
+    projectId: string,
+    designId: string,
+    request: SaveRevisionRequest,
+    authorId: string,
+  ): Promise<RevisionDetail> {
+    const document = this.analysis.parseDocument(request.document, 'document');
+    const number = await this.sequelize.transaction(async (transaction) => {
+      const design = await this.findDesign(projectId, designId, transaction);
+      const latest = design.latestRevisionNumber;
+      if (request.baseRevisionNumber > latest) {
+        throw new DomainError(
+          'invalid_argument',
+          `baseRevisionNumber ${request.baseRevisionNumber} does not exist; the latest revision is ${latest}`,
+          'baseRevisionNumber',
+        );
+      }
+      if (request.baseRevisionNumber !== latest) {
+        const [base, newest] = await Promise.all([
+          this.load(design.id, String(request.baseRevisionNumber), 'baseRevisionNumber', transaction),
+          this.load(design.id, String(latest), 'baseRevisionNumber', transaction),
+        ]);
+        throw new StaleBaseException(
+          latest,
+          differences(base.document, newest.document).map((difference) => difference.path),
+        );
+      }
+      await this.write(
+        {
+          designId: design.id,
+          number: latest + 1,
+          document,
+          authorId,
+          changeNote: request.changeNote.trim(),
+          baseRevisionNumber: request.baseRevisionNumber,
+        },
+        transaction,
+      );
+      await design.update({ latestRevisionNumber: latest + 1 }, { transaction });
+      return latest + 1;
+    });
+    return this.get(projectId, designId, String(number));
+  }
+
+  /** Inputs that differ and every headline result, a beside b, with b − a. */
+  async compare(projectId: string, designId: string, a: number, b: number): Promise<RevisionComparison> {
+    const design = await this.findDesign(projectId, designId);
+    const [revisionA, revisionB] = await Promise.all([
+      this.load(design.id, String(a), 'a'),
+      this.load(design.id, String(b), 'b'),
+    ]);
+    return {
+      a: toRevisionSummary(revisionA),
+      b: toRevisionSummary(revisionB),
+      inputs: differences(revisionA.document, revisionB.document),
+      results: this.analysis.compareFigures(revisionA.report, revisionB.report),
+    };
+  }
+
+  async exportFile(projectId: string, designId: string, rawNumber: string, now: Date): Promise<DownloadFile> {
+    const design = await this.findDesign(projectId, designId);
+    const revision = await this.load(design.id, rawNumber, 'revisionNumber');
+    const file: DesignExport = {
+      format: 'ladderwright-design',
+      formatVersion: 1,
+      exportedAt: now.toISOString(),
+      engineVersion: revision.engineVersion,
+      design: revision.document,
+    };
+    return {
+      fileName: `${fileStem(design.name)}-r${revision.number}.ladderwright.json`,
+      body: `${JSON.stringify(file, null, 2)}\n`,
+    };
+  }
+
+  /** The revision's circuit as a SPICE netlist, from the simulator's own export. */
+  async netlist(projectId: string, designId: string, rawNumber: string): Promise<DownloadFile> {
+    const design = await this.findDesign(projectId, designId);
+    const revision = await this.load(design.id, rawNumber, 'revisionNumber');
+    const circuit = buildCircuit(revision.document);
+    const title = `${design.name}, revision ${revision.number}`.replace(/[\r\n]+/g, ' ');
+    return {
+      fileName: `${fileStem(design.name)}-r${revision.number}.cir`,
+      body: toSpiceNetlist({ ...circuit, title }),
+    };
+  }
+
+  private async load(
+    designId: string,
+    rawNumber: string,
+    field: string,
+    transaction?: Transaction,
+  ): Promise<RevisionModel> {
+    const number = revisionNumberOf(rawNumber);
+    const revision =
+      number === null
+        ? null
+        : await this.revisions.findOne({ where: { designId, number }, include: [UserModel], transaction });
+    if (!revision) throw new DomainError('not_found', `Revision ${rawNumber} not found`, field);
+    return revision;
+  }
+}
