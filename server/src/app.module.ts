@@ -20,6 +20,7 @@ import type { AppEnv } from './config/env';
 import { DatabaseModule } from './database/database.module';
 import { DesignsModule } from './designs/designs.module';
 import { HealthModule } from './health/health.module';
+import { PartsModule } from './parts/parts.module';
 import { ProjectsModule } from './projects/projects.module';
 import { RevisionsModule } from './revisions/revisions.module';
 import { UsersModule } from './users/users.module';
@@ -32,7 +33,7 @@ export class AppModule {
   static forRoot(env: AppEnv): DynamicModule {
     return {
       module: AppModule,
-      imports: [ConfigModule.forRoot(env), DatabaseModule, UsersModule, AuthModule, ProjectsModule, HealthModule, AnalysisModule, RevisionsModule, DesignsModule],
+      imports: [ConfigModule.forRoot(env), DatabaseModule, UsersModule, AuthModule, ProjectsModule, HealthModule, AnalysisModule, RevisionsModule, DesignsModule, PartsModule],
       providers: [
         { provide: APP_GUARD, useClass: JwtAuthGuard },
         { provide: APP_GUARD, useClass: RolesGuard },

@@ -1,7 +1,10 @@
 import request from 'supertest';
 import type { DesignDetail, DesignSummary, ResultDifference } from '@ladderwright/shared/api';
 import { designExamples, type Design } from '@ladderwright/shared/designs';
+import { DEMO_PASSWORD, seedDemo } from '../src/database/seed-demo';
+import { DEMO_DESIGNS } from '../src/designs/seed-demo-designs';
 import { RevisionModel } from '../src/revisions/revision.model';
+import { PasswordHasherService } from '../src/users/password-hasher.service';
 import { createDesign } from './factories/create-design';
 import { createProject, type TestProject } from './factories/create-project';
 import { createUser, type TestUser } from './factories/create-user';
@@ -402,6 +405,37 @@ describe('designs', () => {
       expect((await http().post(importPath()).set('Cookie', as(reviewer)).send(body)).status).toBe(403);
       expect((await http().post(importPath()).set('Cookie', as(outsider)).send(body)).status).toBe(404);
       expect((await http().post(importPath()).send(body)).status).toBe(401);
+    });
+  });
+
+  describe('demo seed', () => {
+    it('gives each demo project its demo design in its Sign-off state, once', async () => {
+      const hasher = testApp.app.get(PasswordHasherService);
+      await seedDemo(hasher);
+      expect(await seedDemo(hasher)).toBe(0);
+      const demoCookie = await signIn(testApp, 'lead@northfold.test', DEMO_PASSWORD);
+      const projects = await http().get('/api/projects').set('Cookie', demoCookie);
+      const seen = new Map<string, DesignSummary[]>();
+      for (const demoProject of projects.body as { id: string; name: string }[]) {
+        const page = await http().get(designsPath(demoProject.id)).set('Cookie', demoCookie);
+        seen.set(demoProject.name, page.body.items);
+      }
+      for (const demo of DEMO_DESIGNS) {
+        const items = seen.get(demo.projectName) ?? [];
+        expect(items).toHaveLength(1);
+        expect(items[0]).toMatchObject({
+          latestRevisionNumber: demo.revisions.length,
+          latestState: demo.revisions[demo.revisions.length - 1]!.state,
+        });
+      }
+      const ionizer = seen.get('Cleanroom ionizer bar')![0]!;
+      const compare = await http()
+        .get(`${designsPath(ionizer.projectId)}/${ionizer.id}/compare`)
+        .query({ a: 1, b: 2 })
+        .set('Cookie', demoCookie);
+      expect(compare.body.inputs.map((input: { path: string }) => input.path)).toContain(
+        'multiplier.capacitors[0].valueF',
+      );
     });
   });
 });

@@ -1,5 +1,6 @@
 import request from 'supertest';
 import { DEMO_PASSWORD, DEMO_PROJECTS, DEMO_USERS, seedDemo } from '../src/database/seed-demo';
+import { DEMO_DESIGN_RECORD_COUNT } from '../src/designs/seed-demo-designs';
 import { PasswordHasherService } from '../src/users/password-hasher.service';
 import { createTestApp, type TestApp } from './utils/create-test-app';
 import { signIn } from './utils/sign-in';
@@ -17,7 +18,9 @@ describe('demo seed', () => {
   it('creates the accounts, one project per product line and the memberships, and adds nothing the second time', async () => {
     const hasher = testApp.app.get(PasswordHasherService);
     const memberships = DEMO_PROJECTS.reduce((sum, project) => sum + project.members.length, 0);
-    expect(await seedDemo(hasher)).toBe(DEMO_USERS.length + DEMO_PROJECTS.length + memberships);
+    expect(await seedDemo(hasher)).toBe(
+      DEMO_USERS.length + DEMO_PROJECTS.length + memberships + DEMO_DESIGN_RECORD_COUNT,
+    );
     expect(await seedDemo(hasher)).toBe(0);
   });
 

@@ -2,12 +2,13 @@ import { Module } from '@nestjs/common';
 import { SequelizeModule } from '@nestjs/sequelize';
 import { APP_ENV, type AppEnv } from '../config/env';
 import { DesignModel } from '../designs/design.model';
+import { PartModel } from '../parts/part.model';
 import { ProjectMemberModel } from '../projects/project-member.model';
 import { ProjectModel } from '../projects/project.model';
 import { RevisionModel } from '../revisions/revision.model';
 import { UserModel } from '../users/user.model';
 
-export const ALL_MODELS = [UserModel, ProjectModel, ProjectMemberModel, DesignModel, RevisionModel];
+export const ALL_MODELS = [UserModel, ProjectModel, ProjectMemberModel, DesignModel, RevisionModel, PartModel];
 
 /**
  * The one Sequelize connection. Models are registered explicitly; the schema comes only from

@@ -1,4 +1,5 @@
 import type { ProjectRole, UserRole } from '@ladderwright/shared/auth';
+import { seedDemoDesigns } from '../designs/seed-demo-designs';
 import { ProjectMemberModel } from '../projects/project-member.model';
 import { ProjectModel } from '../projects/project.model';
 import type { PasswordHasherService } from '../users/password-hasher.service';
@@ -63,7 +64,7 @@ export const DEMO_PROJECTS: readonly DemoProject[] = [
 ];
 
 /**
- * Creates the Northfold Instruments demo accounts, projects and memberships that are missing.
+ * Creates the Northfold Instruments demo accounts, projects, memberships and designs that are missing.
  * Existing records are left as they are (passwords are not reset). Returns how many records it created.
  */
 export async function seedDemo(hasher: PasswordHasherService): Promise<number> {
@@ -94,5 +95,8 @@ export async function seedDemo(hasher: PasswordHasherService): Promise<number> {
       if (isNewMember) created += 1;
     }
   }
+  const sequelize = ProjectModel.sequelize;
+  if (!sequelize) throw new Error('demo seed needs the database connection');
+  created += await seedDemoDesigns(sequelize);
   return created;
 }

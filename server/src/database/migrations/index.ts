@@ -1,6 +1,7 @@
 import type { SchemaMigration } from './migration.types';
 import { usersAndProjects } from './0001-users-and-projects';
 import { designsAndRevisions } from './0002-designs-and-revisions';
+import { partsAndBenchRuns } from './0005-parts-and-bench-runs';
 
 /** Every schema step in order. Add new steps at the end. */
-export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [usersAndProjects, designsAndRevisions];
+export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [usersAndProjects, designsAndRevisions, partsAndBenchRuns];
