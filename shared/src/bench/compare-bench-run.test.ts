@@ -1,5 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { benchVerdict, captureFigures, compareBenchRun, interpolateCurve, predictionFromReport } from './compare-bench-run';
+import {
+  benchVerdict,
+  captureFigures,
+  compareBenchRun,
+  interpolateCurve,
+  predictionFromReport,
+} from './compare-bench-run';
 import type { BenchPrediction } from './bench.types';
 
 // Hand-checked case (worked by hand, no outside source): a straight regulation line from 1000 V at no load
@@ -90,7 +96,17 @@ describe('compareBenchRun, load sweep', () => {
   });
 
   it('refuses a sweep with no point inside the predicted range', () => {
-    expect(() => compareBenchRun('load-sweep', [{ x: 1, y: 5 }, { x: 2, y: 4 }], prediction, 0.05)).toThrow(/predicted load range/);
+    expect(() =>
+      compareBenchRun(
+        'load-sweep',
+        [
+          { x: 1, y: 5 },
+          { x: 2, y: 4 },
+        ],
+        prediction,
+        0.05,
+      ),
+    ).toThrow(/predicted load range/);
   });
 });
 
@@ -113,7 +129,13 @@ describe('compareBenchRun, scope capture', () => {
 
   it('weights the mean by time for uneven sampling', () => {
     // 0..1 ms at 900 V, then 1..3 ms ramp 900 -> 960: area 0.9 + 1.86 = 2.76 V·ms over 3 ms = 920 V.
-    expect(captureFigures([{ x: 0, y: 900 }, { x: 1e-3, y: 900 }, { x: 3e-3, y: 960 }]).meanV).toBeCloseTo(920, 9);
+    expect(
+      captureFigures([
+        { x: 0, y: 900 },
+        { x: 1e-3, y: 900 },
+        { x: 3e-3, y: 960 },
+      ]).meanV,
+    ).toBeCloseTo(920, 9);
   });
 });
 
@@ -123,10 +145,18 @@ describe('predictionFromReport', () => {
       outputMeanV: -900,
       ripplePeakToPeakV: 10,
       analysis: { loadCurrentA: 1e-4 },
-      curves: { regulation: [{ x: 0, y: 1000 }, { x: 2e-4, y: 800 }] },
+      curves: {
+        regulation: [
+          { x: 0, y: 1000 },
+          { x: 2e-4, y: 800 },
+        ],
+      },
     };
     expect(predictionFromReport(report)).toEqual({
-      regulation: [{ x: 0, y: 1000 }, { x: 2e-4, y: 800 }],
+      regulation: [
+        { x: 0, y: 1000 },
+        { x: 2e-4, y: 800 },
+      ],
       outputMeanV: 900,
       ripplePeakToPeakV: 10,
       loadCurrentA: 1e-4,

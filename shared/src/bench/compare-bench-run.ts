@@ -97,7 +97,12 @@ export function compareBenchRun(
   } else {
     const { meanV, ripplePeakToPeakV } = captureFigures(points);
     figures = [
-      { key: 'outputMeanV', measured: meanV, predicted: prediction.outputMeanV, deviation: deviation(meanV, prediction.outputMeanV) },
+      {
+        key: 'outputMeanV',
+        measured: meanV,
+        predicted: prediction.outputMeanV,
+        deviation: deviation(meanV, prediction.outputMeanV),
+      },
       {
         key: 'ripplePeakToPeakV',
         measured: ripplePeakToPeakV,
@@ -147,7 +152,8 @@ export function predictionFromReport(report: unknown): BenchPrediction {
   const analysis = (body.analysis ?? {}) as Record<string, unknown>;
   const regulation = Array.isArray(curves.regulation)
     ? (curves.regulation as unknown[]).filter(
-        (point): point is CurvePoint => finiteNumber((point as CurvePoint)?.x) && finiteNumber((point as CurvePoint)?.y),
+        (point): point is CurvePoint =>
+          finiteNumber((point as CurvePoint)?.x) && finiteNumber((point as CurvePoint)?.y),
       )
     : [];
   if (regulation.length < 2 || !finiteNumber(body.outputMeanV) || !finiteNumber(body.ripplePeakToPeakV)) {

@@ -31,7 +31,10 @@ describe('readMeasurementTable', () => {
   });
 
   it('keeps metadata lines above the header and counts file lines from 1', () => {
-    const table = readMeasurementTable(rows('Instrument,bench scope 2\nProbe,1000:1\n\nTime [ms],CH1 [kV]\n0,1\n1,2'), 'scope-capture');
+    const table = readMeasurementTable(
+      rows('Instrument,bench scope 2\nProbe,1000:1\n\nTime [ms],CH1 [kV]\n0,1\n1,2'),
+      'scope-capture',
+    );
     expect(table.metadata).toEqual(['Instrument, bench scope 2', 'Probe, 1000:1']);
     expect(table.headerLine).toBe(4);
   });
@@ -56,7 +59,9 @@ describe('readMeasurementTable', () => {
   });
 
   it('refuses a file without the columns the kind needs', () => {
-    expect(() => readMeasurementTable(rows('time,voltage\n0,1\n1,2'), 'load-sweep')).toThrow(/No header row with current and voltage/);
+    expect(() => readMeasurementTable(rows('time,voltage\n0,1\n1,2'), 'load-sweep')).toThrow(
+      /No header row with current and voltage/,
+    );
   });
 
   it('refuses time that runs backwards in a capture', () => {

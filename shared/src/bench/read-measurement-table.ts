@@ -11,9 +11,9 @@ const NAME_PATTERNS: Record<Quantity, RegExp> = {
 };
 
 const UNIT_SCALES: Record<Quantity, Record<string, number>> = {
-  time: { s: 1, ms: 1e-3, us: 1e-6, 'µs': 1e-6, 'μs': 1e-6, ns: 1e-9 },
+  time: { s: 1, ms: 1e-3, us: 1e-6, µs: 1e-6, μs: 1e-6, ns: 1e-9 },
   voltage: { v: 1, mv: 1e-3, kv: 1e3 },
-  current: { a: 1, ma: 1e-3, ua: 1e-6, 'µa': 1e-6, 'μa': 1e-6, na: 1e-9 },
+  current: { a: 1, ma: 1e-3, ua: 1e-6, µa: 1e-6, μa: 1e-6, na: 1e-9 },
 };
 
 const BASE_UNIT: Record<Quantity, string> = { time: 's', voltage: 'V', current: 'A' };
@@ -27,7 +27,10 @@ function splitHeader(cell: string): { name: string; unit: string | null } {
   return { name: match[1] ?? '', unit: match[2] ? match[2] : null };
 }
 
-function findColumn(header: string[], quantity: Quantity): { index: number; header: string; unit: string | null } | null {
+function findColumn(
+  header: string[],
+  quantity: Quantity,
+): { index: number; header: string; unit: string | null } | null {
   for (let index = 0; index < header.length; index += 1) {
     const cell = header[index] ?? '';
     const { name, unit } = splitHeader(cell);
@@ -67,8 +70,15 @@ export function readMeasurementTable(rows: readonly (readonly string[])[], kind:
     }
   }
   if (headerIndex < 0 || !xFound || !yFound) {
-    const expected = kind === 'load-sweep' ? 'current and voltage, e.g. "current (uA),voltage (V)"' : 'time and voltage, e.g. "time,voltage" or "Time [ms],CH1 [kV]"';
-    throw new DomainError('invalid_argument', `No header row with ${expected} in the first ${HEADER_SEARCH_LINES} lines`, 'data');
+    const expected =
+      kind === 'load-sweep'
+        ? 'current and voltage, e.g. "current (uA),voltage (V)"'
+        : 'time and voltage, e.g. "time,voltage" or "Time [ms],CH1 [kV]"';
+    throw new DomainError(
+      'invalid_argument',
+      `No header row with ${expected} in the first ${HEADER_SEARCH_LINES} lines`,
+      'data',
+    );
   }
 
   const issues: FieldIssue[] = [];
@@ -78,7 +88,9 @@ export function readMeasurementTable(rows: readonly (readonly string[])[], kind:
     if (scale === undefined) {
       issues.push({
         path: `line ${headerIndex + 1}, column ${found.header}`,
-        message: `unit '${unit}' is not a ${quantity} unit (use ${Object.keys(UNIT_SCALES[quantity]).filter((u) => !u.startsWith('μ')).join(', ')})`,
+        message: `unit '${unit}' is not a ${quantity} unit (use ${Object.keys(UNIT_SCALES[quantity])
+          .filter((u) => !u.startsWith('μ'))
+          .join(', ')})`,
       });
       return null;
     }
@@ -86,12 +98,18 @@ export function readMeasurementTable(rows: readonly (readonly string[])[], kind:
   };
   const x = column(xFound, xQuantity);
   const y = column(yFound, 'voltage');
-  if (!x || !y) throw new DomainError('invalid_argument', issues[0]?.message ?? 'Unknown unit', issues[0]?.path ?? 'data', issues);
+  if (!x || !y)
+    throw new DomainError('invalid_argument', issues[0]?.message ?? 'Unknown unit', issues[0]?.path ?? 'data', issues);
 
   const metadata = rows
     .slice(0, headerIndex)
     .filter((row) => !isBlankRow(row))
-    .map((row) => row.map((cell) => cell.trim()).filter((cell) => cell !== '').join(', '));
+    .map((row) =>
+      row
+        .map((cell) => cell.trim())
+        .filter((cell) => cell !== '')
+        .join(', '),
+    );
   const points: MeasuredPoint[] = [];
   let badCells = 0;
   const report = (issue: FieldIssue) => {
@@ -105,11 +123,17 @@ export function readMeasurementTable(rows: readonly (readonly string[])[], kind:
     const cellValue = (col: MeasurementColumn): number | null => {
       const raw = (row[col.index] ?? '').trim();
       if (raw === '') {
-        report({ path: `line ${line}, column ${col.header}`, message: `line ${line}, column ${col.header}: the cell is empty` });
+        report({
+          path: `line ${line}, column ${col.header}`,
+          message: `line ${line}, column ${col.header}: the cell is empty`,
+        });
         return null;
       }
       if (!NUMBER_PATTERN.test(raw)) {
-        report({ path: `line ${line}, column ${col.header}`, message: `line ${line}, column ${col.header}: '${raw.slice(0, 40)}' is not a number` });
+        report({
+          path: `line ${line}, column ${col.header}`,
+          message: `line ${line}, column ${col.header}: '${raw.slice(0, 40)}' is not a number`,
+        });
         return null;
       }
       return Number(raw) * col.scaleToSi;
@@ -119,15 +143,24 @@ export function readMeasurementTable(rows: readonly (readonly string[])[], kind:
     if (xValue === null || yValue === null) continue;
     const previous = points[points.length - 1];
     if (kind === 'scope-capture' && previous && xValue < previous.x) {
-      report({ path: `line ${line}, column ${x.header}`, message: `line ${line}, column ${x.header}: time runs backwards` });
+      report({
+        path: `line ${line}, column ${x.header}`,
+        message: `line ${line}, column ${x.header}: time runs backwards`,
+      });
       continue;
     }
     points.push({ x: xValue, y: yValue });
   }
   if (badCells > 0) {
-    if (badCells > issues.length) issues.push({ path: 'data', message: `${badCells - issues.length} more bad cells not listed` });
+    if (badCells > issues.length)
+      issues.push({ path: 'data', message: `${badCells - issues.length} more bad cells not listed` });
     const first = issues[0] as FieldIssue;
-    throw new DomainError('invalid_argument', `The data file has ${badCells} bad cell(s); first: ${first.message}`, first.path, issues);
+    throw new DomainError(
+      'invalid_argument',
+      `The data file has ${badCells} bad cell(s); first: ${first.message}`,
+      first.path,
+      issues,
+    );
   }
   if (points.length < 2) {
     throw new DomainError('invalid_argument', 'The data file needs at least two data rows below the header', 'data');

@@ -5,20 +5,30 @@ import type { FieldIssue } from '../errors';
 /** A shelf part reduced to what the engine reads (any object with these fields will do). */
 export type ShelfPart = Pick<
   Part,
-  'code' | 'kind' | 'valueSi' | 'tolerance' | 'ratedVoltageV' | 'ratedCurrentA' | 'ratedSurgeCurrentA' | 'ratedPowerW' | 'unitCost'
+  | 'code'
+  | 'kind'
+  | 'valueSi'
+  | 'tolerance'
+  | 'ratedVoltageV'
+  | 'ratedCurrentA'
+  | 'ratedSurgeCurrentA'
+  | 'ratedPowerW'
+  | 'unitCost'
 >;
 
 /** The design paths that may carry a `partCode`, with the kind of part each must be. */
 export function partReferences(design: Design): { path: string; code: string; kind: PartKind }[] {
   const references: { path: string; code: string; kind: PartKind }[] = [];
   design.multiplier.capacitors.forEach((capacitor, i) => {
-    if (capacitor.partCode) references.push({ path: `multiplier.capacitors[${i}].partCode`, code: capacitor.partCode, kind: 'capacitor' });
+    if (capacitor.partCode)
+      references.push({ path: `multiplier.capacitors[${i}].partCode`, code: capacitor.partCode, kind: 'capacitor' });
   });
   if (design.multiplier.diode.partCode) {
     references.push({ path: 'multiplier.diode.partCode', code: design.multiplier.diode.partCode, kind: 'diode' });
   }
   const bleeder = design.outputNetwork.bleeder;
-  if (bleeder?.partCode) references.push({ path: 'outputNetwork.bleeder.partCode', code: bleeder.partCode, kind: 'resistor' });
+  if (bleeder?.partCode)
+    references.push({ path: 'outputNetwork.bleeder.partCode', code: bleeder.partCode, kind: 'resistor' });
   return references;
 }
 
@@ -82,5 +92,3 @@ export function fillPartRatings(design: Design, parts: readonly ShelfPart[]): { 
     issues,
   };
 }
-
-

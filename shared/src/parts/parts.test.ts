@@ -7,9 +7,39 @@ import { shelfForSizer } from './shelf-for-sizer';
 import { normalizePart } from './validate-part';
 
 const shelf: ShelfPart[] = [
-  { code: 'NF-C472-3K', kind: 'capacitor', valueSi: 4.7e-9, tolerance: 0.05, ratedVoltageV: 3500, ratedCurrentA: null, ratedSurgeCurrentA: null, ratedPowerW: null, unitCost: 0.42 },
-  { code: 'NF-D4K-50M', kind: 'diode', valueSi: null, tolerance: null, ratedVoltageV: 4500, ratedCurrentA: 0.04, ratedSurgeCurrentA: 8, ratedPowerW: null, unitCost: 0.3 },
-  { code: 'NF-R82M-1K', kind: 'resistor', valueSi: 82e6, tolerance: 0.01, ratedVoltageV: 1200, ratedCurrentA: null, ratedSurgeCurrentA: null, ratedPowerW: 0.5, unitCost: 0.11 },
+  {
+    code: 'NF-C472-3K',
+    kind: 'capacitor',
+    valueSi: 4.7e-9,
+    tolerance: 0.05,
+    ratedVoltageV: 3500,
+    ratedCurrentA: null,
+    ratedSurgeCurrentA: null,
+    ratedPowerW: null,
+    unitCost: 0.42,
+  },
+  {
+    code: 'NF-D4K-50M',
+    kind: 'diode',
+    valueSi: null,
+    tolerance: null,
+    ratedVoltageV: 4500,
+    ratedCurrentA: 0.04,
+    ratedSurgeCurrentA: 8,
+    ratedPowerW: null,
+    unitCost: 0.3,
+  },
+  {
+    code: 'NF-R82M-1K',
+    kind: 'resistor',
+    valueSi: 82e6,
+    tolerance: 0.01,
+    ratedVoltageV: 1200,
+    ratedCurrentA: null,
+    ratedSurgeCurrentA: null,
+    ratedPowerW: 0.5,
+    unitCost: 0.11,
+  },
 ];
 
 describe('normalizePart', () => {
@@ -25,7 +55,14 @@ describe('normalizePart', () => {
       sizeMm: '10 x 5 x 7',
     });
     expect(issues).toEqual([]);
-    expect(part).toMatchObject({ code: 'NF-C103-3K', kind: 'capacitor', tolerance: 0.1, ratedVoltageV: 3000, unitCost: 0.35, sizeMm: '10x5x7' });
+    expect(part).toMatchObject({
+      code: 'NF-C103-3K',
+      kind: 'capacitor',
+      tolerance: 0.1,
+      ratedVoltageV: 3000,
+      unitCost: 0.35,
+      sizeMm: '10x5x7',
+    });
     // 10n = 1e-8 F; compared to 18 digits because the parser scales by a power of ten.
     expect(part?.valueSi).toBeCloseTo(1e-8, 18);
   });
@@ -52,16 +89,24 @@ describe('normalizePart', () => {
     const { issues } = normalizePart({ code: 'NF-X1-1', kind: 'inductor', unitCost: 1, colour: 'red' });
     expect(issues.map((issue) => issue.message)).toEqual([
       'colour is not a part field that can be written here',
-      'kind must be one of capacitor, diode, resistor, transistor, core (got \'inductor\')',
+      "kind must be one of capacitor, diode, resistor, transistor, core (got 'inductor')",
     ]);
   });
 
   it('validates a patch against the stored part', () => {
-    const base = normalizePart({ code: 'NF-R82M-1K', kind: 'resistor', valueSi: '82M', ratedPowerW: '0.5', unitCost: 0.1 }).part;
+    const base = normalizePart({
+      code: 'NF-R82M-1K',
+      kind: 'resistor',
+      valueSi: '82M',
+      ratedPowerW: '0.5',
+      unitCost: 0.1,
+    }).part;
     if (!base) throw new Error('base part should be valid');
     expect(normalizePart({ unitCost: 0.2 }, { partial: true, base }).part?.unitCost).toBe(0.2);
     expect(normalizePart({ kind: 'diode' }, { partial: true, base }).issues[0]?.path).toBe('kind');
-    expect(normalizePart({ ratedPowerW: null }, { partial: true, base }).issues[0]?.message).toBe('ratedPowerW is required for a resistor');
+    expect(normalizePart({ ratedPowerW: null }, { partial: true, base }).issues[0]?.message).toBe(
+      'ratedPowerW is required for a resistor',
+    );
   });
 });
 
@@ -88,7 +133,11 @@ describe('fillPartRatings', () => {
     expect(issues).toEqual([]);
     expect(filled.multiplier.capacitors.every((c) => c.ratedVoltageV === 3500 && c.tolerance === 0.05)).toBe(true);
     expect(filled.multiplier.capacitors[0]?.valueF).toBe(4.7e-9);
-    expect(filled.multiplier.diode).toMatchObject({ ratedPivV: 4500, ratedAverageCurrentA: 0.04, ratedSurgeCurrentA: 8 });
+    expect(filled.multiplier.diode).toMatchObject({
+      ratedPivV: 4500,
+      ratedAverageCurrentA: 0.04,
+      ratedSurgeCurrentA: 8,
+    });
     expect(filled.outputNetwork.bleeder).toMatchObject({ ratedPowerW: 0.5, limitingVoltageV: 1200, valueOhm: 82e6 });
     expect(design.multiplier.capacitors[0]?.ratedVoltageV).toBe(3000);
   });
@@ -97,8 +146,14 @@ describe('fillPartRatings', () => {
     const design = designExamples.detectorBias;
     const wrongKind: ShelfPart[] = [{ ...shelf[1], code: 'NF-C103-1K' } as ShelfPart];
     const { issues } = fillPartRatings(design, wrongKind);
-    expect(issues).toContainEqual({ path: 'multiplier.capacitors[1].partCode', message: 'NF-C103-1K is a diode, not a capacitor' });
-    expect(issues).toContainEqual({ path: 'multiplier.capacitors[0].partCode', message: 'no part NF-C223-630 on the Parts shelf' });
+    expect(issues).toContainEqual({
+      path: 'multiplier.capacitors[1].partCode',
+      message: 'NF-C103-1K is a diode, not a capacitor',
+    });
+    expect(issues).toContainEqual({
+      path: 'multiplier.capacitors[0].partCode',
+      message: 'no part NF-C223-630 on the Parts shelf',
+    });
   });
 });
 
@@ -131,7 +186,9 @@ describe('shelfForSizer', () => {
   it('gives capacitors and diodes in the design field names', () => {
     expect(shelfForSizer(shelf)).toEqual({
       capacitors: [{ partCode: 'NF-C472-3K', valueF: 4.7e-9, ratedVoltageV: 3500, tolerance: 0.05, unitCost: 0.42 }],
-      diodes: [{ partCode: 'NF-D4K-50M', ratedPivV: 4500, ratedAverageCurrentA: 0.04, ratedSurgeCurrentA: 8, unitCost: 0.3 }],
+      diodes: [
+        { partCode: 'NF-D4K-50M', ratedPivV: 4500, ratedAverageCurrentA: 0.04, ratedSurgeCurrentA: 8, unitCost: 0.3 },
+      ],
     });
   });
 });

@@ -62,7 +62,8 @@ export function normalizePart(
 ): { part: PartInput | null; issues: FieldIssue[] } {
   const issues: FieldIssue[] = [];
   const prefix = options.pathPrefix ?? '';
-  const issue = (field: string, message: string) => issues.push({ path: `${prefix}${field}`, message: `${field} ${message}` });
+  const issue = (field: string, message: string) =>
+    issues.push({ path: `${prefix}${field}`, message: `${field} ${message}` });
   const base = options.base;
   const present = (field: PartField) => !options.partial || raw[field] !== undefined;
 
@@ -115,7 +116,9 @@ export function normalizePart(
   const merged: Partial<PartInput> = { ...base };
   if (!options.partial || raw.description !== undefined) merged.description = text('description');
   if (!options.partial || raw.sizeMm !== undefined) {
-    const size = text('sizeMm').toLowerCase().replace(/\s*[x×]\s*/g, 'x');
+    const size = text('sizeMm')
+      .toLowerCase()
+      .replace(/\s*[x×]\s*/g, 'x');
     if (size !== '' && !SIZE_PATTERN.test(size)) issue('sizeMm', 'must be up to three sizes in mm, e.g. 18x8x14');
     merged.sizeMm = size;
   }
@@ -133,7 +136,13 @@ export function normalizePart(
     }
     merged.tolerance = tolerance;
   }
-  const numericFields: NumericField[] = ['valueSi', 'ratedVoltageV', 'ratedCurrentA', 'ratedSurgeCurrentA', 'ratedPowerW'];
+  const numericFields: NumericField[] = [
+    'valueSi',
+    'ratedVoltageV',
+    'ratedCurrentA',
+    'ratedSurgeCurrentA',
+    'ratedPowerW',
+  ];
   for (const field of numericFields) {
     if (!present(field)) continue;
     const unit = field === 'valueSi' ? (kind ? VALUE_UNIT[kind] : undefined) : FIELD_UNIT[field];
