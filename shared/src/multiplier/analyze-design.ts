@@ -1,5 +1,5 @@
 import { DomainError } from '../errors';
-import type { Design, PulseDrive, SineDrive } from '../designs/design.types';
+import type { Design, DischargeRule, PulseDrive, SineDrive } from '../designs/design.types';
 import { estimateBlockingOscillator } from '../driver/blocking-oscillator';
 import type { MethodInfo } from '../driver/driver.types';
 import { dischargeCheck, trappedChargeCheck } from '../safety/discharge';
@@ -15,33 +15,86 @@ import { ladderCurves } from './ladder-curves';
 import { bleederStressChecks, ladderStressChecks } from './ladder-stress';
 import type { LadderAnalysis, LadderCurves, LadderInput } from './ladder.types';
 
-/** The full report of one design: figures (SI), curves, checks and how each was computed. */
-export interface DesignReport {
+/** Report of a bare ladder: figures (SI, signed by polarity), curves, stored energy, discharge and how each was computed. */
+export interface LadderReport
+  extends Pick<
+    LadderAnalysis,
+    'noLoadOutputV' | 'outputMeanV' | 'outputMinV' | 'outputMaxV' | 'ripplePeakToPeakV' | 'droopV' | 'outputImpedanceOhm'
+  > {
   engineVersion: string;
-  designName: string;
-  /** The secondary the ladder sees (resolved from a driver stage when the design gives one). */
-  resolvedDrive: SineDrive | PulseDrive;
-  noLoadOutputV: number;
-  outputMeanV: number;
-  outputMinV: number;
-  outputMaxV: number;
-  ripplePeakToPeakV: number;
-  droopV: number;
-  outputImpedanceOhm: number;
   optimumStages: number;
   textbookRippleV: number | null;
   textbookDropV: number | null;
   storedEnergyJ: number;
   storedChargeC: number;
+  /** Bleeder discharge from the operating voltage to the safe voltage; null without a bleeder or a safe voltage. */
   dischargeTimeS: number | null;
-  meetsTargets: { output: boolean; ripple: boolean };
   analysis: LadderAnalysis;
   curves: LadderCurves;
   storedEnergy: StoredEnergySummary;
-  spacing: StageSpacing[];
   checks: CheckVerdict[];
   methods: MethodInfo[];
   caution: string;
+}
+
+/** The full report of one design: the ladder report plus the design's targets, spacing and part checks. */
+export interface DesignReport extends LadderReport {
+  designName: string;
+  /** The secondary the ladder sees (resolved from a driver stage when the design gives one). */
+  resolvedDrive: SineDrive | PulseDrive;
+  meetsTargets: { output: boolean; ripple: boolean };
+  spacing: StageSpacing[];
+}
+
+export interface LadderReportOptions {
+  safeVoltageV?: number;
+  dischargeRule?: DischargeRule;
+}
+
+/**
+ * Report of a bare ladder: steady-state analysis, curves, stored energy with its IEC checks and, with a
+ * bleeder and a safe voltage, the discharge time and its check.
+ */
+export function analyzeLadderReport(input: LadderInput, options: LadderReportOptions = {}): LadderReport {
+  const analysis = analyzeLadder(input);
+  const curves = ladderCurves(input);
+  const energy = storedEnergy(analysis.capacitors, analysis.ladderTopMeanV);
+  const checks: CheckVerdict[] = [...storedEnergyChecks(energy, analysis.ladderTopMeanV)];
+  let dischargeTime: number | null = null;
+  if (options.safeVoltageV !== undefined) {
+    const discharge = dischargeCheck({
+      bleederOhm: input.bleederOhm,
+      equivalentCapacitanceF: energy.outputEquivalentCapacitanceF,
+      outputV: analysis.ladderTopMeanV,
+      safeVoltageV: options.safeVoltageV,
+      rule: options.dischargeRule ?? { voltageV: options.safeVoltageV, timeS: 60 },
+      storedChargeC: energy.outputEquivalentChargeC,
+    });
+    dischargeTime = discharge.dischargeTimeS;
+    checks.push(discharge.verdict);
+  }
+  return {
+    engineVersion: ENGINE_VERSION,
+    noLoadOutputV: analysis.noLoadOutputV,
+    outputMeanV: analysis.outputMeanV,
+    outputMinV: analysis.outputMinV,
+    outputMaxV: analysis.outputMaxV,
+    ripplePeakToPeakV: analysis.ripplePeakToPeakV,
+    droopV: analysis.droopV,
+    outputImpedanceOhm: analysis.outputImpedanceOhm,
+    optimumStages: curves.optimumStages,
+    textbookRippleV: analysis.textbook.rippleV,
+    textbookDropV: analysis.textbook.dropV,
+    storedEnergyJ: energy.totalEnergyJ,
+    storedChargeC: energy.totalChargeC,
+    dischargeTimeS: dischargeTime,
+    analysis,
+    curves,
+    storedEnergy: energy,
+    checks,
+    methods: [analysis.method, analysis.textbook.method, curves.method],
+    caution: HV_CAUTION,
+  };
 }
 
 const DRIVER_METHOD: MethodInfo = {
@@ -109,24 +162,14 @@ export function analyzeDesign(design: Design): DesignReport {
   }
   const { drive, deliverablePowerW, currentLimitA } = resolveDrive(design);
   const input = ladderInputOf(design, drive, currentLimitA);
-  const analysis = analyzeLadder(input);
-  const curves = ladderCurves(input);
-  const energy = storedEnergy(analysis.capacitors, analysis.ladderTopMeanV);
   const targets = design.targets;
+  const base = analyzeLadderReport(input, { safeVoltageV: targets.safeVoltageV, dischargeRule: targets.dischargeRule });
+  const { analysis } = base;
 
   const checks: CheckVerdict[] = [...ladderStressChecks(analysis, design.multiplier)];
   const peakTopV = Math.max(Math.abs(analysis.outputMaxV), Math.abs(analysis.outputMinV)) + analysis.loadCurrentA * input.seriesOutputResistanceOhm;
   checks.push(...bleederStressChecks(design.outputNetwork.bleeder, analysis.ladderTopMeanV, peakTopV));
-  checks.push(...storedEnergyChecks(energy, analysis.ladderTopMeanV));
-  const discharge = dischargeCheck({
-    bleederOhm: input.bleederOhm,
-    equivalentCapacitanceF: energy.outputEquivalentCapacitanceF,
-    outputV: analysis.ladderTopMeanV,
-    safeVoltageV: targets.safeVoltageV,
-    rule: targets.dischargeRule,
-    storedChargeC: energy.outputEquivalentChargeC,
-  });
-  checks.push(discharge.verdict);
+  checks.push(...base.checks);
   const windingEnd = analysis.capacitors.find((c) => c.column.startsWith('oscillating') && c.stage === 1 && (c.index === 1 || analysis.cellCount % 2 === 1));
   const trapped = trappedChargeCheck({
     windingEndCapacitorV: windingEnd ? windingEnd.maxVoltageV : null,
@@ -151,32 +194,14 @@ export function analyzeDesign(design: Design): DesignReport {
   }
   const rippleOk = analysis.ripplePeakToPeakV <= targets.rippleMaxV;
   const outputOk = Math.sign(analysis.outputMeanV) === Math.sign(targets.outputV) && Math.abs(analysis.outputMeanV) >= Math.abs(targets.outputV);
-  const methods = [analysis.method, analysis.textbook.method, curves.method, ...(deliverablePowerW !== null ? [DRIVER_METHOD] : [])];
   return {
-    engineVersion: ENGINE_VERSION,
+    ...base,
     designName: design.name,
     resolvedDrive: drive,
-    noLoadOutputV: analysis.noLoadOutputV,
-    outputMeanV: analysis.outputMeanV,
-    outputMinV: analysis.outputMinV,
-    outputMaxV: analysis.outputMaxV,
-    ripplePeakToPeakV: analysis.ripplePeakToPeakV,
-    droopV: analysis.droopV,
-    outputImpedanceOhm: analysis.outputImpedanceOhm,
-    optimumStages: curves.optimumStages,
-    textbookRippleV: analysis.textbook.rippleV,
-    textbookDropV: analysis.textbook.dropV,
-    storedEnergyJ: energy.totalEnergyJ,
-    storedChargeC: energy.totalChargeC,
-    dischargeTimeS: discharge.dischargeTimeS,
     meetsTargets: { output: outputOk, ripple: rippleOk },
-    analysis,
-    curves,
-    storedEnergy: energy,
     spacing,
     checks,
-    methods,
-    caution: HV_CAUTION,
+    methods: deliverablePowerW !== null ? [...base.methods, DRIVER_METHOD] : base.methods,
   };
 }
 

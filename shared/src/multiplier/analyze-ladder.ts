@@ -352,6 +352,12 @@ export function prepareLadder(input: LadderInput): PreparedLadder {
   return { input, workspace: createWorkspace(net, input) };
 }
 
+/** The same prepared network with another diode model (the work arrays are shared: use one at a time). */
+export function withDiode(prepared: PreparedLadder, diode: LadderInput['diode']): PreparedLadder {
+  prepared.workspace.diode = diode;
+  return { input: { ...prepared.input, diode }, workspace: prepared.workspace };
+}
+
 /** Mean load-terminal output (unsigned) at an extra external load current, for the curves. */
 export function terminalMeanAt(prepared: PreparedLadder, extraLoadA: number): number {
   const { conductanceS, constantA, seriesOhm } = outputLoad(prepared.input);
@@ -369,14 +375,18 @@ export function analyzeLadder(input: LadderInput): LadderAnalysis {
   return analyzePrepared(prepareLadder(input));
 }
 
-export function analyzePrepared(prepared: PreparedLadder): LadderAnalysis {
+/**
+ * Analysis of a prepared ladder. `operatingPointOnly` skips the no-load solve and the output-impedance
+ * derivative (both then reported as NaN): the Sizer and the tolerance spread need only the operating point.
+ */
+export function analyzePrepared(prepared: PreparedLadder, options: { operatingPointOnly?: boolean } = {}): LadderAnalysis {
   const { input, workspace: ws } = prepared;
   const { net, timing } = ws;
   const sign = input.polarity;
   const { conductanceS, constantA, seriesOhm } = outputLoad(input);
+  const full = !options.operatingPointOnly;
 
-  const noLoad = solveOperatingPoint(ws, input.bleederOhm ? 1 / input.bleederOhm : 0, 0);
-  const noLoadV = noLoad.cycle.meanV;
+  const noLoadV = full ? solveOperatingPoint(ws, input.bleederOhm ? 1 / input.bleederOhm : 0, 0).cycle.meanV : NaN;
   const op = solveOperatingPoint(ws, conductanceS, constantA);
   const cycle = op.cycle;
   const ladderCurrentA = op.currentA;
@@ -385,12 +395,15 @@ export function analyzePrepared(prepared: PreparedLadder): LadderAnalysis {
   const seriesDropV = loadA * seriesOhm;
 
   // Output impedance of the ladder alone (central difference in ladder current), plus the series resistor.
-  const stepA = Math.max(ladderCurrentA * 1e-3, 1e-9);
-  const lowI = Math.max(ladderCurrentA - stepA, 0);
-  const highI = ladderCurrentA + stepA;
-  const ladderImpedance = (solveCycle(ws, lowI).meanV - solveCycle(ws, highI).meanV) / (highI - lowI);
-  // Restore the operating-point state (the capacitor and diode figures below read it).
-  solveCycle(ws, ladderCurrentA);
+  let ladderImpedance = NaN;
+  if (full) {
+    const stepA = Math.max(ladderCurrentA * 1e-3, 1e-9);
+    const lowI = Math.max(ladderCurrentA - stepA, 0);
+    const highI = ladderCurrentA + stepA;
+    ladderImpedance = (solveCycle(ws, lowI).meanV - solveCycle(ws, highI).meanV) / (highI - lowI);
+    // Restore the operating-point state (the capacitor and diode figures below read it).
+    solveCycle(ws, ladderCurrentA);
+  }
 
   const capacitors: CapacitorStress[] = [];
   const m = net.capF.length;
@@ -398,14 +411,17 @@ export function analyzePrepared(prepared: PreparedLadder): LadderAnalysis {
     const a = ws.stateA[c] as number;
     const b = ws.stateB[c] as number;
     const rate = ladderCurrentA * (ws.loadRate[c] as number);
-    const values = [a, b, a + rate * timing.afterHS, b + rate * timing.afterLS];
+    const beforeL = a + rate * timing.afterHS;
+    const beforeH = b + rate * timing.afterLS;
+    const high = Math.max(a, b, beforeL, beforeH);
+    const low = Math.min(a, b, beforeL, beforeH);
     capacitors.push({
       index: c + 1,
       column: net.capColumn[c] ?? 'smoothing',
       stage: net.capStage[c] as number,
       valueF: net.capF[c] as number,
-      maxVoltageV: Math.max(...values.map(Math.abs)),
-      swingV: Math.max(...values) - Math.min(...values),
+      maxVoltageV: Math.max(Math.abs(high), Math.abs(low)),
+      swingV: high - low,
     });
   }
 

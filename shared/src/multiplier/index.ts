@@ -4,8 +4,8 @@ export { buildLadderNetwork } from './topologies';
 export type { LadderNetwork } from './topologies';
 export { ladderCurves } from './ladder-curves';
 export { ladderStressChecks, bleederStressChecks, DERATING } from './ladder-stress';
-export { analyzeDesign, evaluateChecks, resolveDrive, ladderInputOf } from './analyze-design';
-export type { DesignReport } from './analyze-design';
+export { analyzeDesign, analyzeLadderReport, evaluateChecks, resolveDrive, ladderInputOf } from './analyze-design';
+export type { DesignReport, LadderReport, LadderReportOptions } from './analyze-design';
 export { ENGINE_VERSION } from './engine-version';
 export type {
   LadderInput,
