@@ -1,4 +1,4 @@
-import type { Sequelize } from 'sequelize-typescript';
+import type { Sequelize } from 'sequelize';
 import { designExamples, type Design } from '@ladderwright/shared/designs';
 import type { RevisionState } from '@ladderwright/shared/reviews';
 import { AnalysisService } from '../analysis/analysis.service';
