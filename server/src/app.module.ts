@@ -9,6 +9,7 @@ import type { NextFunction, Request, Response } from 'express';
 import helmet from 'helmet';
 import { AnalysisModule } from './analysis/analysis.module';
 import { withDesignSchemaComponents } from './analysis/design-schema-components';
+import { AuditModule } from './audit/audit.module';
 import { AuthModule } from './auth/auth.module';
 import { SESSION_COOKIE } from './auth/jwt.strategy';
 import { DomainErrorFilter, RequestValidationException } from './common/filters/domain-error.filter';
@@ -33,7 +34,7 @@ export class AppModule {
   static forRoot(env: AppEnv): DynamicModule {
     return {
       module: AppModule,
-      imports: [ConfigModule.forRoot(env), DatabaseModule, UsersModule, AuthModule, ProjectsModule, HealthModule, AnalysisModule, RevisionsModule, DesignsModule, PartsModule],
+      imports: [ConfigModule.forRoot(env), DatabaseModule, AuditModule, UsersModule, AuthModule, ProjectsModule, HealthModule, AnalysisModule, RevisionsModule, DesignsModule, PartsModule],
       providers: [
         { provide: APP_GUARD, useClass: JwtAuthGuard },
         { provide: APP_GUARD, useClass: RolesGuard },
@@ -59,6 +60,11 @@ export async function createApp(
 export function configureApp(app: NestExpressApplication, env: AppEnv): void {
   app.setGlobalPrefix(API_PREFIX);
   app.disable('x-powered-by');
+  // Before any route: an oversized body is refused from its Content-Length (413), unread.
+  app.useBodyParser('json', { limit: env.bodyLimitBytes });
+  app.useBodyParser('urlencoded', { limit: env.bodyLimitBytes, extended: false });
+  // CORS stays closed (no Access-Control-Allow-Origin at all) unless CORS_ORIGINS lists origins.
+  if (env.corsOrigins.length > 0) app.enableCors({ origin: [...env.corsOrigins], credentials: true });
   // Plain http on loopback: no HSTS and no upgrade of sub-requests to https, which would break the page.
   app.use(
     helmet({

@@ -38,6 +38,19 @@ export class AuthController {
     response.clearCookie(SESSION_COOKIE, this.cookieOptions());
   }
 
+  /** Ends every session of the signed-in account on every device (its tokens stop working at once). */
+  @ApiCookieAuth()
+  @Post('sign-out-everywhere')
+  @HttpCode(204)
+  async signOutEverywhere(
+    @CurrentUser() user: SessionUser,
+    @Req() request: AppRequest,
+    @Res({ passthrough: true }) response: Response,
+  ): Promise<void> {
+    await this.auth.signOutEverywhere(user.id, user.email, request.ip ?? 'unknown');
+    response.clearCookie(SESSION_COOKIE, this.cookieOptions());
+  }
+
   @ApiCookieAuth()
   @Get('me')
   me(@CurrentUser() user: SessionUser): SessionUser {

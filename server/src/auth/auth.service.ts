@@ -1,6 +1,7 @@
 import { Injectable, UnauthorizedException } from '@nestjs/common';
 import { JwtService } from '@nestjs/jwt';
 import type { SignInRequest, SignInResponse } from '@ladderwright/shared/api';
+import { AuditService } from '../audit/audit.service';
 import { RetryLaterException } from '../common/filters/domain-error.filter';
 import { normalizeEmail, UsersService } from '../users/users.service';
 import type { SessionTokenPayload } from './jwt.strategy';
@@ -16,22 +17,43 @@ export class AuthService {
     private readonly users: UsersService,
     private readonly jwt: JwtService,
     private readonly throttle: SignInThrottleService,
+    private readonly audit: AuditService,
   ) {}
 
   /** Checks the credentials and issues a session token; refuses with 429 after repeated failures. */
   async signIn(request: SignInRequest, clientAddress: string): Promise<SignInResult> {
-    const key = `${normalizeEmail(request.email)}|${clientAddress}`;
+    const email = normalizeEmail(request.email);
+    const key = `${email}|${clientAddress}`;
     const waitS = this.throttle.retryAfterS(key);
     if (waitS > 0) {
+      await this.recordFailedSignIn(email, 'throttled', clientAddress);
       throw new RetryLaterException(`Too many failed sign-ins for this e-mail; try again in ${waitS} s`, waitS);
     }
     const user = await this.users.verifyCredentials(request.email, request.password);
     if (!user) {
       this.throttle.recordFailure(key);
+      await this.recordFailedSignIn(email, 'bad_credentials', clientAddress);
       throw new UnauthorizedException('E-mail or password is not correct');
     }
     this.throttle.clear(key);
-    const payload: SessionTokenPayload = { sub: user.id };
+    const payload: SessionTokenPayload = { sub: user.id, sv: await this.users.sessionVersionOf(user.id) };
+    await this.audit.record({ action: 'auth.sign_in', actorId: user.id, actorEmail: user.email, clientAddress });
     return { user, token: await this.jwt.signAsync(payload) };
+  }
+
+  /** Revokes every session of the account, the caller's own included. */
+  async signOutEverywhere(userId: string, email: string, clientAddress: string): Promise<void> {
+    await this.users.revokeSessions(userId);
+    await this.audit.record({ action: 'auth.sign_out_everywhere', actorId: userId, actorEmail: email, clientAddress });
+  }
+
+  private async recordFailedSignIn(email: string, reason: string, clientAddress: string): Promise<void> {
+    await this.audit.record({
+      action: 'auth.sign_in_failed',
+      actorId: null,
+      actorEmail: email,
+      detail: { reason },
+      clientAddress,
+    });
   }
 }

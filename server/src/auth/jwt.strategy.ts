@@ -10,6 +10,8 @@ export const SESSION_COOKIE = 'lw_session';
 
 export interface SessionTokenPayload {
   sub: string;
+  /** The account's session version when the token was issued; a bump revokes the token. */
+  sv: number;
 }
 
 function fromSessionCookie(request: Request): string | null {
@@ -33,8 +35,12 @@ export class JwtStrategy extends PassportStrategy(Strategy, 'jwt') {
     });
   }
 
-  /** Returning null makes passport answer 401 (for example when the account was deleted). */
-  async validate(payload: SessionTokenPayload): Promise<CurrentUser | null> {
-    return typeof payload.sub === 'string' ? this.users.findCurrentUser(payload.sub) : null;
+  /**
+   * Returning null makes passport answer 401: the account was deleted, or its sessions were revoked since
+   * the token was issued (sign out everywhere, password reset). Expiry (`exp`) is checked before this.
+   */
+  async validate(payload: Partial<SessionTokenPayload>): Promise<CurrentUser | null> {
+    if (typeof payload.sub !== 'string' || typeof payload.sv !== 'number') return null;
+    return this.users.findSessionUser(payload.sub, payload.sv);
   }
 }

@@ -9,6 +9,10 @@ export interface AppEnv {
   readonly jwtTtlS: number;
   readonly bcryptRounds: number;
   readonly cookieSecure: boolean;
+  /** Origins allowed to call the API cross-origin with credentials; empty (the default) = CORS closed. */
+  readonly corsOrigins: readonly string[];
+  /** Largest JSON or form body accepted; larger ones are refused with 413 before they are read. */
+  readonly bodyLimitBytes: number;
   readonly clientDistDir: string;
   readonly seedDemo: boolean;
   readonly smtpHost: string | null;
@@ -57,6 +61,17 @@ export function parseEnv(source: EnvSource): AppEnv {
     problems.push(`${name} must be a boolean (1/0, true/false; got '${raw}')`);
     return fallback;
   };
+  const origins = (name: string): string[] => {
+    const list = (text(name) ?? '')
+      .split(',')
+      .map((item) => item.trim())
+      .filter((item) => item !== '');
+    for (const origin of list) {
+      if (!/^https?:\/\/[^/\s]+$/.test(origin))
+        problems.push(`${name} must list origins like https://host:port (got '${origin}')`);
+    }
+    return list;
+  };
   const dir = (name: string, fallback: string): string => {
     const raw = text(name) ?? fallback;
     return isAbsolute(raw) ? raw : resolve(SERVER_DIR, raw);
@@ -80,6 +95,8 @@ export function parseEnv(source: EnvSource): AppEnv {
     jwtTtlS: integer('JWT_TTL_S', 8 * 3600, 60, 30 * 24 * 3600) ?? 8 * 3600,
     bcryptRounds: integer('BCRYPT_ROUNDS', 10, 4, 15) ?? 10,
     cookieSecure: bool('COOKIE_SECURE', !LOOPBACK_HOSTS.has(host)),
+    corsOrigins: Object.freeze(origins('CORS_ORIGINS')),
+    bodyLimitBytes: integer('BODY_LIMIT_BYTES', 1024 * 1024, 1024, 64 * 1024 * 1024) ?? 1024 * 1024,
     clientDistDir: dir('CLIENT_DIST_DIR', '../client/dist'),
     seedDemo: bool('SEED_DEMO', false),
     smtpHost: text('SMTP_HOST') ?? null,

@@ -1,5 +1,6 @@
 import { Module } from '@nestjs/common';
 import { SequelizeModule } from '@nestjs/sequelize';
+import { AuditEntryModel } from '../audit/audit-entry.model';
 import { APP_ENV, type AppEnv } from '../config/env';
 import { DesignModel } from '../designs/design.model';
 import { PartModel } from '../parts/part.model';
@@ -8,7 +9,7 @@ import { ProjectModel } from '../projects/project.model';
 import { RevisionModel } from '../revisions/revision.model';
 import { UserModel } from '../users/user.model';
 
-export const ALL_MODELS = [UserModel, ProjectModel, ProjectMemberModel, DesignModel, RevisionModel, PartModel];
+export const ALL_MODELS = [UserModel, ProjectModel, ProjectMemberModel, DesignModel, RevisionModel, PartModel, AuditEntryModel];
 
 /**
  * The one Sequelize connection. Models are registered explicitly; the schema comes only from

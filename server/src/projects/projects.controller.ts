@@ -43,14 +43,22 @@ export class ProjectsController {
 
   @Post(':projectId/members')
   @RequiresProjectAction('members.manage')
-  addMember(@ProjectMembership() membership: Membership, @Body() body: AddMemberDto): Promise<ProjectMember> {
-    return this.projects.addMember(membership.projectId, body);
+  addMember(
+    @ProjectMembership() membership: Membership,
+    @CurrentUser() actor: SessionUser,
+    @Body() body: AddMemberDto,
+  ): Promise<ProjectMember> {
+    return this.projects.addMember(membership.projectId, body, actor);
   }
 
   @Delete(':projectId/members/:userId')
   @HttpCode(204)
   @RequiresProjectAction('members.manage')
-  async removeMember(@ProjectMembership() membership: Membership, @Param('userId') userId: string): Promise<void> {
-    await this.projects.removeMember(membership.projectId, userId);
+  async removeMember(
+    @ProjectMembership() membership: Membership,
+    @CurrentUser() actor: SessionUser,
+    @Param('userId') userId: string,
+  ): Promise<void> {
+    await this.projects.removeMember(membership.projectId, userId, actor);
   }
 }

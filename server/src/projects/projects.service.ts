@@ -4,6 +4,7 @@ import type { Transaction } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import type {
   AddMemberRequest,
+  CurrentUser,
   CreateProjectRequest,
   ProjectDetail,
   ProjectMember,
@@ -11,6 +12,7 @@ import type {
 } from '@ladderwright/shared/api';
 import type { ProjectRole } from '@ladderwright/shared/auth';
 import { DomainError } from '@ladderwright/shared/errors';
+import { AuditService } from '../audit/audit.service';
 import { isUuid } from '../common/uuid';
 import { UserModel } from '../users/user.model';
 import { UsersService } from '../users/users.service';
@@ -30,6 +32,7 @@ export class ProjectsService {
     @InjectModel(ProjectMemberModel) private readonly members: typeof ProjectMemberModel,
     private readonly users: UsersService,
     private readonly sequelize: Sequelize,
+    private readonly audit: AuditService,
   ) {}
 
   async findMemberRole(projectId: string, userId: string): Promise<ProjectRole | null> {
@@ -80,7 +83,7 @@ export class ProjectsService {
   }
 
   /** Adds the account with `request.email` to the project, or changes its role when already a member. */
-  async addMember(projectId: string, request: AddMemberRequest): Promise<ProjectMember> {
+  async addMember(projectId: string, request: AddMemberRequest, actor: CurrentUser): Promise<ProjectMember> {
     const userId = await this.users.findIdByEmail(request.email);
     if (!userId) throw new DomainError('invalid_argument', 'No account has this e-mail', 'email');
     await this.sequelize.transaction(async (transaction) => {
@@ -89,21 +92,37 @@ export class ProjectsService {
         transaction,
         lock: transaction.LOCK.UPDATE,
       });
+      const audited = { actorId: actor.id, actorEmail: actor.email, subjectType: 'project', subjectId: projectId };
       if (!existing) {
         await this.members.create({ projectId, userId, role: request.role }, { transaction });
+        await this.audit.record(
+          { ...audited, action: 'project.member_added', detail: { userId, email: request.email, role: request.role } },
+          transaction,
+        );
         return;
       }
       if (existing.role === 'lead' && request.role !== 'lead')
         await this.assertAnotherLead(projectId, userId, transaction);
+      const fromRole = existing.role;
       existing.role = request.role;
       await existing.save({ transaction });
+      if (fromRole !== request.role) {
+        await this.audit.record(
+          {
+            ...audited,
+            action: 'project.member_role_changed',
+            detail: { userId, email: request.email, fromRole, toRole: request.role },
+          },
+          transaction,
+        );
+      }
     });
     const member = await this.members.findOne({ where: { projectId, userId }, include: [UserModel] });
     if (!member) throw new Error('member vanished after it was written');
     return toMember(member);
   }
 
-  async removeMember(projectId: string, userId: string): Promise<void> {
+  async removeMember(projectId: string, userId: string, actor: CurrentUser): Promise<void> {
     await this.sequelize.transaction(async (transaction) => {
       const member = isUuid(userId)
         ? await this.members.findOne({ where: { projectId, userId }, transaction, lock: transaction.LOCK.UPDATE })
@@ -111,6 +130,17 @@ export class ProjectsService {
       if (!member) throw new DomainError('not_found', 'This account is not a member of the project', 'userId');
       if (member.role === 'lead') await this.assertAnotherLead(projectId, userId, transaction);
       await member.destroy({ transaction });
+      await this.audit.record(
+        {
+          action: 'project.member_removed',
+          actorId: actor.id,
+          actorEmail: actor.email,
+          subjectType: 'project',
+          subjectId: projectId,
+          detail: { userId, role: member.role },
+        },
+        transaction,
+      );
     });
   }
 

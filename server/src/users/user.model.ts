@@ -8,6 +8,8 @@ export interface UserAttrs {
   displayName: string;
   role: UserRole;
   passwordHash: string;
+  /** Bumped by "sign out everywhere" and password resets; session tokens carry the version they were issued at. */
+  sessionVersion: number;
   createdAt: Date;
   updatedAt: Date;
 }
@@ -31,6 +33,9 @@ export class UserModel extends Model<UserAttrs, UserCreationAttrs> {
 
   @Column({ type: DataType.TEXT, allowNull: false })
   passwordHash: string;
+
+  @Column({ type: DataType.INTEGER, allowNull: false, defaultValue: 0 })
+  sessionVersion: number;
 
   @HasMany(() => ProjectMemberModel)
   memberships?: ProjectMemberModel[];

@@ -1,6 +1,7 @@
 import { Body, Controller, Get, HttpCode, Param, Post } from '@nestjs/common';
 import { ApiCookieAuth, ApiTags } from '@nestjs/swagger';
-import type { UserSummary } from '@ladderwright/shared/api';
+import type { CurrentUser as SessionUser, UserSummary } from '@ladderwright/shared/api';
+import { CurrentUser } from '../common/decorators/current-user.decorator';
 import { RequiresAppAction } from '../common/decorators/requires-permission.decorator';
 import { CreateUserDto } from './dto/create-user.dto';
 import { ResetPasswordDto } from './dto/reset-password.dto';
@@ -19,13 +20,17 @@ export class UsersController {
   }
 
   @Post()
-  create(@Body() body: CreateUserDto): Promise<UserSummary> {
-    return this.users.create(body);
+  create(@CurrentUser() actor: SessionUser, @Body() body: CreateUserDto): Promise<UserSummary> {
+    return this.users.create(body, actor);
   }
 
   @Post(':userId/password')
   @HttpCode(204)
-  async resetPassword(@Param('userId') userId: string, @Body() body: ResetPasswordDto): Promise<void> {
-    await this.users.resetPassword(userId, body.password);
+  async resetPassword(
+    @CurrentUser() actor: SessionUser,
+    @Param('userId') userId: string,
+    @Body() body: ResetPasswordDto,
+  ): Promise<void> {
+    await this.users.resetPassword(userId, body.password, actor);
   }
 }

@@ -2,6 +2,7 @@ import { Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
 import type { CreateUserRequest, CurrentUser, UserSummary } from '@ladderwright/shared/api';
 import { DomainError } from '@ladderwright/shared/errors';
+import { AuditService } from '../audit/audit.service';
 import { isUuid } from '../common/uuid';
 import { PasswordHasherService } from './password-hasher.service';
 import { UserModel } from './user.model';
@@ -23,12 +24,31 @@ export class UsersService {
   constructor(
     @InjectModel(UserModel) private readonly users: typeof UserModel,
     private readonly hasher: PasswordHasherService,
+    private readonly audit: AuditService,
   ) {}
 
   async findCurrentUser(userId: string): Promise<CurrentUser | null> {
     if (!isUuid(userId)) return null;
     const user = await this.users.findByPk(userId);
     return user ? toCurrentUser(user) : null;
+  }
+
+  /** The account a session token names, or null when it is gone or the token predates a session revocation. */
+  async findSessionUser(userId: string, sessionVersion: number): Promise<CurrentUser | null> {
+    if (!isUuid(userId)) return null;
+    const user = await this.users.findByPk(userId);
+    return user && user.sessionVersion === sessionVersion ? toCurrentUser(user) : null;
+  }
+
+  async sessionVersionOf(userId: string): Promise<number> {
+    const user = await this.users.findByPk(userId, { attributes: ['sessionVersion'] });
+    if (!user) throw new DomainError('not_found', 'User not found', 'userId');
+    return user.sessionVersion;
+  }
+
+  /** Invalidates every session token issued to the account so far. */
+  async revokeSessions(userId: string): Promise<void> {
+    await this.users.increment('sessionVersion', { where: { id: userId } });
   }
 
   /** The account for `email` if `password` matches it; null otherwise (same timing either way). */
@@ -43,7 +63,8 @@ export class UsersService {
     return users.map(toUserSummary);
   }
 
-  async create(request: CreateUserRequest): Promise<UserSummary> {
+  /** `actor`: the admin creating the account, for the audit log. */
+  async create(request: CreateUserRequest, actor: CurrentUser): Promise<UserSummary> {
     const email = normalizeEmail(request.email);
     if (await this.users.findOne({ where: { email } })) {
       throw new DomainError('invalid_argument', 'An account with this e-mail already exists', 'email');
@@ -54,14 +75,32 @@ export class UsersService {
       role: request.role,
       passwordHash: await this.hasher.hash(request.password),
     });
+    await this.audit.record({
+      action: 'user.created',
+      actorId: actor.id,
+      actorEmail: actor.email,
+      subjectType: 'user',
+      subjectId: user.id,
+      detail: { email: user.email, role: user.role },
+    });
     return toUserSummary(user);
   }
 
-  async resetPassword(userId: string, password: string): Promise<void> {
+  async resetPassword(userId: string, password: string, actor: CurrentUser): Promise<void> {
     const user = isUuid(userId) ? await this.users.findByPk(userId) : null;
     if (!user) throw new DomainError('not_found', 'User not found', 'userId');
     user.passwordHash = await this.hasher.hash(password);
+    // A reset password also ends the sessions opened with the old one.
+    user.sessionVersion += 1;
     await user.save();
+    await this.audit.record({
+      action: 'user.password_reset',
+      actorId: actor.id,
+      actorEmail: actor.email,
+      subjectType: 'user',
+      subjectId: user.id,
+      detail: { email: user.email, sessionsRevoked: true },
+    });
   }
 
   async findIdByEmail(email: string): Promise<string | null> {

@@ -115,11 +115,23 @@ function fromHttpException(error: HttpException): ApiErrorBody {
   return { statusCode, code: HTTP_CODES[statusCode] ?? (statusCode >= 500 ? 'internal' : 'bad_request'), message };
 }
 
+function bodyTooLargeMessage(error: unknown): string {
+  const limit = (error as { limit?: unknown }).limit;
+  return typeof limit === 'number'
+    ? `The request body is larger than the limit of ${limit} bytes`
+    : 'The request body is larger than the limit';
+}
+
 /** Body-parser failures (malformed JSON, oversized body) arrive as errors with a 4xx `status`. */
 function fromClientError(error: unknown): ApiErrorBody | null {
   const status = (error as { status?: unknown; type?: unknown }).status;
   if (typeof status !== 'number' || status < 400 || status >= 500) return null;
-  const message = status === 400 ? 'The request body is not valid JSON' : 'The request body was refused';
+  const message =
+    status === 400
+      ? 'The request body is not valid JSON'
+      : status === 413
+        ? bodyTooLargeMessage(error)
+        : 'The request body was refused';
   return { statusCode: status, code: HTTP_CODES[status] ?? 'bad_request', message };
 }
 
