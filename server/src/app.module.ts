@@ -23,6 +23,7 @@ import { DesignsModule } from './designs/designs.module';
 import { HealthModule } from './health/health.module';
 import { PartsModule } from './parts/parts.module';
 import { ProjectsModule } from './projects/projects.module';
+import { SimulationsModule } from './simulations/simulations.module';
 import { RevisionsModule } from './revisions/revisions.module';
 import { UsersModule } from './users/users.module';
 
@@ -34,7 +35,7 @@ export class AppModule {
   static forRoot(env: AppEnv): DynamicModule {
     return {
       module: AppModule,
-      imports: [ConfigModule.forRoot(env), DatabaseModule, AuditModule, UsersModule, AuthModule, ProjectsModule, HealthModule, AnalysisModule, RevisionsModule, DesignsModule, PartsModule],
+      imports: [ConfigModule.forRoot(env), DatabaseModule, AuditModule, UsersModule, AuthModule, ProjectsModule, HealthModule, AnalysisModule, RevisionsModule, DesignsModule, PartsModule, SimulationsModule],
       providers: [
         { provide: APP_GUARD, useClass: JwtAuthGuard },
         { provide: APP_GUARD, useClass: RolesGuard },

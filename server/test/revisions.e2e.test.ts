@@ -270,5 +270,17 @@ describe('revisions', () => {
       expect(response.text.match(/^C\S*\s/gim)).toHaveLength(3);
       expect(response.text.match(/^D\S*\s/gim)).toHaveLength(3);
     });
+
+    it('exports a driver-stage design with the pulse secondary the engine resolves from the driver', async () => {
+      const design = await createDesign(testApp, project.id, engineer.id, {
+        from: { kind: 'template', templateId: 'surfaceChargeTester' },
+      });
+      const response = await http()
+        .get(`${revisionsPath(design)}/1/netlist`)
+        .set('Cookie', as(engineer));
+      expect(response.status).toBe(200);
+      expect(response.text).toMatch(/PULSE\s*\(/i);
+      expect(response.text.match(/^D\S*\s/gim)).toHaveLength(4);
+    });
   });
 });

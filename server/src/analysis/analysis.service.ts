@@ -2,7 +2,7 @@ import { Injectable } from '@nestjs/common';
 import type { DesignReportBody, DesignTemplate, EvaluateResponse, ResultDifference } from '@ladderwright/shared/api';
 import { validateDesign, type Design } from '@ladderwright/shared/designs';
 import { DomainError, isDomainError } from '@ladderwright/shared/errors';
-import { analyzeDesign, ENGINE_VERSION } from '@ladderwright/shared/multiplier';
+import { analyzeDesign, ENGINE_VERSION, resolveDrive } from '@ladderwright/shared/multiplier';
 import { DESIGN_TEMPLATES } from './design-templates';
 
 /** A numeric headline figure of a report, by its path in the report. */
@@ -80,6 +80,12 @@ export class AnalysisService {
     const report = this.withFieldPrefix(fieldPrefix, () => analyzeDesign(design));
     // Stored as JSONB: the JSON round trip makes the response equal to what is stored and read back.
     return { engineVersion: this.engineVersion, report: JSON.parse(JSON.stringify(report)) as DesignReportBody };
+  }
+
+  /** The document with its secondary as the engine resolves it: a driver stage becomes its pulse estimate. */
+  withResolvedDrive(design: Design): Design {
+    if (design.drive.kind !== 'driver') return design;
+    return { ...design, drive: resolveDrive(design).drive };
   }
 
   templates(): DesignTemplate[] {

@@ -18,6 +18,10 @@ export interface AppEnv {
   readonly smtpHost: string | null;
   readonly smtpPort: number | null;
   readonly dataDir: string;
+  /** Worker threads this instance runs simulation jobs on; 0 = this instance only queues them. */
+  readonly simulationWorkers: number;
+  /** Accepts the fault-injection simulation kinds (test runs only). */
+  readonly simulationFaultKinds: boolean;
 }
 
 /** Nest injection token for the `AppEnv` of the running app. */
@@ -102,6 +106,8 @@ export function parseEnv(source: EnvSource): AppEnv {
     smtpHost: text('SMTP_HOST') ?? null,
     smtpPort: integer('SMTP_PORT', null, 1, 65535),
     dataDir: dir('DATA_DIR', '../.data'),
+    simulationWorkers: integer('SIMULATION_WORKERS', 1, 0, 2) ?? 1,
+    simulationFaultKinds: text('NODE_ENV') === 'test',
   };
   if (problems.length > 0) throw new EnvError(problems);
   return Object.freeze(env);

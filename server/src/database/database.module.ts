@@ -6,10 +6,11 @@ import { DesignModel } from '../designs/design.model';
 import { PartModel } from '../parts/part.model';
 import { ProjectMemberModel } from '../projects/project-member.model';
 import { ProjectModel } from '../projects/project.model';
+import { SimulationJobModel } from '../simulations/simulation-job.model';
 import { RevisionModel } from '../revisions/revision.model';
 import { UserModel } from '../users/user.model';
 
-export const ALL_MODELS = [UserModel, ProjectModel, ProjectMemberModel, DesignModel, RevisionModel, PartModel, AuditEntryModel];
+export const ALL_MODELS = [UserModel, ProjectModel, ProjectMemberModel, DesignModel, RevisionModel, PartModel, AuditEntryModel, SimulationJobModel];
 
 /**
  * The one Sequelize connection. Models are registered explicitly; the schema comes only from

@@ -168,11 +168,14 @@ export class RevisionsService {
     };
   }
 
-  /** The revision's circuit as a SPICE netlist, from the simulator's own export. */
+  /**
+   * The revision's circuit as a SPICE netlist, from the simulator's own export. A driver-stage design is
+   * exported with the secondary the engine resolves from its driver (the pulse estimate the report uses).
+   */
   async netlist(projectId: string, designId: string, rawNumber: string): Promise<DownloadFile> {
     const design = await this.findDesign(projectId, designId);
     const revision = await this.load(design.id, rawNumber, 'revisionNumber');
-    const circuit = buildCircuit(revision.document);
+    const circuit = buildCircuit(this.analysis.withResolvedDrive(revision.document));
     const title = `${design.name}, revision ${revision.number}`.replace(/[\r\n]+/g, ' ');
     return {
       fileName: `${fileStem(design.name)}-r${revision.number}.cir`,

@@ -47,3 +47,16 @@ export type {
   PartImportResult,
 } from './parts.types';
 export type { BenchFile, BenchRunSummary, BenchRunDetail, UploadBenchRunFields } from './bench-runs.types';
+export type {
+  SimulationKind,
+  SimulationJobStatus,
+  SimulationOptions,
+  StartSimulationRequest,
+  StartSimulationResponse,
+  WaveformPhase,
+  WaveformTrace,
+  SimulationSummary,
+  SimulationResult,
+  SimulationJobError,
+  SimulationJob,
+} from './simulations.types';

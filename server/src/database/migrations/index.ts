@@ -3,6 +3,7 @@ import { usersAndProjects } from './0001-users-and-projects';
 import { designsAndRevisions } from './0002-designs-and-revisions';
 import { partsAndBenchRuns } from './0005-parts-and-bench-runs';
 import { auditLog } from './0006-audit-log';
+import { simulationJobs } from './0003-simulation-jobs';
 
 /** Every schema step in order. Add new steps at the end. */
-export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [usersAndProjects, designsAndRevisions, partsAndBenchRuns, auditLog];
+export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [usersAndProjects, designsAndRevisions, partsAndBenchRuns, auditLog, simulationJobs];

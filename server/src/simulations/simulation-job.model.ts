@@ -1,0 +1,83 @@
+import { Column, DataType, Model, Table } from 'sequelize-typescript';
+import type { SimulationJobStatus, SimulationKind, SimulationOptions, SimulationResult } from '@ladderwright/shared/api';
+import type { Design } from '@ladderwright/shared/designs';
+
+/** What the worker needs to run the job, stored with it so that any app instance can pick it up. */
+export interface SimulationJobInput {
+  document: Design;
+  options: SimulationOptions;
+}
+
+export interface SimulationJobAttrs {
+  id: string;
+  projectId: string;
+  requestedBy: string | null;
+  kind: SimulationKind;
+  status: SimulationJobStatus;
+  progressPct: number;
+  input: SimulationJobInput;
+  designId: string | null;
+  revisionNumber: number | null;
+  result: SimulationResult | null;
+  errorCode: string | null;
+  errorMessage: string | null;
+  queueJobId: string | null;
+  startedAt: Date | null;
+  finishedAt: Date | null;
+  createdAt: Date;
+  updatedAt: Date;
+}
+
+export type SimulationJobCreationAttrs = Pick<SimulationJobAttrs, 'projectId' | 'requestedBy' | 'kind' | 'input'> &
+  Partial<Pick<SimulationJobAttrs, 'designId' | 'revisionNumber'>>;
+
+@Table({ tableName: 'simulation_jobs', underscored: true, timestamps: true })
+export class SimulationJobModel extends Model<SimulationJobAttrs, SimulationJobCreationAttrs> {
+  @Column({ type: DataType.UUID, primaryKey: true, defaultValue: DataType.UUIDV4 })
+  override id: string;
+
+  @Column({ type: DataType.UUID, allowNull: false })
+  projectId: string;
+
+  @Column({ type: DataType.UUID, allowNull: true })
+  requestedBy: string | null;
+
+  @Column({ type: DataType.TEXT, allowNull: false })
+  kind: SimulationKind;
+
+  @Column({ type: DataType.TEXT, allowNull: false, defaultValue: 'queued' })
+  status: SimulationJobStatus;
+
+  @Column({ type: DataType.SMALLINT, allowNull: false, defaultValue: 0 })
+  progressPct: number;
+
+  @Column({ type: DataType.JSONB, allowNull: false })
+  input: SimulationJobInput;
+
+  @Column({ type: DataType.UUID, allowNull: true })
+  designId: string | null;
+
+  @Column({ type: DataType.INTEGER, allowNull: true })
+  revisionNumber: number | null;
+
+  @Column({ type: DataType.JSONB, allowNull: true })
+  result: SimulationResult | null;
+
+  @Column({ type: DataType.TEXT, allowNull: true })
+  errorCode: string | null;
+
+  @Column({ type: DataType.TEXT, allowNull: true })
+  errorMessage: string | null;
+
+  @Column({ type: DataType.TEXT, allowNull: true })
+  queueJobId: string | null;
+
+  @Column({ type: DataType.DATE, allowNull: true })
+  startedAt: Date | null;
+
+  @Column({ type: DataType.DATE, allowNull: true })
+  finishedAt: Date | null;
+
+  override createdAt: Date;
+  override updatedAt: Date;
+}

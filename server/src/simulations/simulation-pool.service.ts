@@ -1,0 +1,79 @@
+import { existsSync } from 'node:fs';
+import { join } from 'node:path';
+import { MessageChannel } from 'node:worker_threads';
+import { Inject, Injectable, type OnModuleDestroy } from '@nestjs/common';
+import { Piscina } from 'piscina';
+import { APP_ENV, type AppEnv } from '../config/env';
+import {
+  SIMULATION_TASK_NAME,
+  type SimulationProgressMessage,
+  type SimulationTask,
+  type SimulationTaskOutcome,
+} from './simulation-task.types';
+
+/**
+ * Where the worker entry is. A built server (`npm run build`) has `simulation.worker.js` beside this file.
+ * Run from TypeScript sources (jest with ts-jest, which compiles in memory and writes no .js), the entry is
+ * the .ts file: the worker thread loads it through tsx, and `--conditions=source` makes
+ * `@ladderwright/shared/*` resolve to the shared sources, as jest's moduleNameMapper does on the main thread.
+ */
+function workerEntry(): { filename: string; execArgv?: string[] } {
+  const compiled = join(__dirname, 'simulation.worker.js');
+  if (existsSync(compiled)) return { filename: compiled };
+  return { filename: join(__dirname, 'simulation.worker.ts'), execArgv: ['--conditions=source', '--import', require.resolve('tsx')] };
+}
+
+export interface PoolRun {
+  outcome: Promise<SimulationTaskOutcome>;
+  /** Asks the task to stop at its next time step; after `graceMs` the worker thread is terminated. */
+  cancel: (graceMs: number) => void;
+}
+
+/**
+ * The piscina pool of simulation worker threads (`AppEnv.simulationWorkers` of them), created on first use.
+ * A task that throws or whose thread dies rejects its own `outcome` only; piscina replaces the thread.
+ */
+@Injectable()
+export class SimulationPoolService implements OnModuleDestroy {
+  private pool: Piscina | null = null;
+
+  constructor(@Inject(APP_ENV) private readonly env: AppEnv) {}
+
+  run(task: Omit<SimulationTask, 'progressPort' | 'cancelFlag'>, onProgress: (progressPct: number) => void): PoolRun {
+    const pool = this.ensurePool();
+    const channel = new MessageChannel();
+    channel.port1.on('message', (message: SimulationProgressMessage) => onProgress(message.progressPct));
+    const cancelFlag = new Int32Array(new SharedArrayBuffer(Int32Array.BYTES_PER_ELEMENT));
+    const abort = new AbortController();
+    const outcome = pool
+      .run({ ...task, progressPort: channel.port2, cancelFlag } satisfies SimulationTask, {
+        name: SIMULATION_TASK_NAME,
+        signal: abort.signal,
+        transferList: [channel.port2],
+      })
+      .then((value: unknown) => value as SimulationTaskOutcome)
+      .finally(() => channel.port1.close());
+    let abortTimer: NodeJS.Timeout | null = null;
+    void outcome.catch(() => undefined).finally(() => abortTimer && clearTimeout(abortTimer));
+    return {
+      outcome,
+      cancel: (graceMs) => {
+        Atomics.store(cancelFlag, 0, 1);
+        abortTimer ??= setTimeout(() => abort.abort(), graceMs);
+      },
+    };
+  }
+
+  async onModuleDestroy(): Promise<void> {
+    const pool = this.pool;
+    this.pool = null;
+    await pool?.destroy();
+  }
+
+  private ensurePool(): Piscina {
+    if (this.pool) return this.pool;
+    const threads = Math.max(1, this.env.simulationWorkers);
+    this.pool = new Piscina({ ...workerEntry(), name: SIMULATION_TASK_NAME, minThreads: 0, maxThreads: threads, idleTimeout: 60_000, maxQueue: 'auto' });
+    return this.pool;
+  }
+}

@@ -1,0 +1,91 @@
+import { Inject, Injectable, Logger, type OnModuleDestroy } from '@nestjs/common';
+import PgBoss from 'pg-boss';
+import { APP_ENV, type AppEnv } from '../config/env';
+
+export const SIMULATION_QUEUE = 'simulation-jobs';
+
+/** The pg-boss payload: only the id; the job itself is our `simulation_jobs` row. */
+export interface SimulationQueuePayload {
+  simulationJobId: string;
+}
+
+/** A job whose instance died is handed to another after this long (pg-boss expiration, then retry). */
+const EXPIRE_IN_SECONDS = 30 * 60;
+const POLLING_INTERVAL_SECONDS = 1;
+
+/**
+ * pg-boss in PostgreSQL owns the queue, so that several app instances share the work: each instance's
+ * workers fetch with SKIP LOCKED, and a job is taken by exactly one of them. pg-boss creates and migrates
+ * its own `pgboss` schema on start. Started on first use; when the database is down the start fails, is
+ * logged, and is tried again on the next use.
+ */
+@Injectable()
+export class SimulationQueueService implements OnModuleDestroy {
+  private readonly logger = new Logger('SimulationQueue');
+  private starting: Promise<PgBoss> | null = null;
+  private readonly workerIds: string[] = [];
+  private isStopped = false;
+
+  constructor(@Inject(APP_ENV) private readonly env: AppEnv) {}
+
+  /** Queues a job; returns the pg-boss job id. Wakes this instance's workers at once. */
+  async send(payload: SimulationQueuePayload): Promise<string> {
+    const boss = await this.boss();
+    const id = await boss.send(SIMULATION_QUEUE, payload, { retryLimit: 1, expireInSeconds: EXPIRE_IN_SECONDS });
+    if (!id) throw new Error('pg-boss refused the simulation job');
+    for (const workerId of this.workerIds) boss.notifyWorker(workerId);
+    return id;
+  }
+
+  /** Withdraws a job that no worker has taken yet (a taken one is stopped through our table instead). */
+  async cancel(queueJobId: string): Promise<void> {
+    const boss = await this.boss();
+    await boss.cancel(SIMULATION_QUEUE, queueJobId);
+  }
+
+  /** Subscribes `concurrency` workers, each taking one job at a time. */
+  async work(concurrency: number, handler: (payload: SimulationQueuePayload) => Promise<void>): Promise<void> {
+    const boss = await this.boss();
+    for (let i = 0; i < concurrency; i++) {
+      const id = await boss.work<SimulationQueuePayload>(
+        SIMULATION_QUEUE,
+        { batchSize: 1, pollingIntervalSeconds: POLLING_INTERVAL_SECONDS },
+        async (jobs) => {
+          for (const job of jobs) await handler(job.data);
+        },
+      );
+      this.workerIds.push(id);
+    }
+  }
+
+  /** Stops fetching, waits for the handlers in progress (they end quickly once their runs are aborted). */
+  async onModuleDestroy(): Promise<void> {
+    this.isStopped = true;
+    const starting = this.starting;
+    if (!starting) return;
+    const boss = await starting.catch(() => null);
+    await boss?.stop({ graceful: true, wait: true, timeout: 10_000 });
+  }
+
+  private boss(): Promise<PgBoss> {
+    if (this.isStopped) return Promise.reject(new Error('the simulation queue is stopped'));
+    this.starting ??= this.start().catch((error: unknown) => {
+      this.starting = null;
+      throw error;
+    });
+    return this.starting;
+  }
+
+  private async start(): Promise<PgBoss> {
+    const boss = new PgBoss({ connectionString: this.env.databaseUrl, max: 4, application_name: 'ladderwright-simulations' });
+    boss.on('error', (error) => this.logger.error(`pg-boss: ${error.message}`));
+    try {
+      await boss.start();
+      await boss.createQueue(SIMULATION_QUEUE, { name: SIMULATION_QUEUE, retryLimit: 1, expireInSeconds: EXPIRE_IN_SECONDS });
+    } catch (error) {
+      await boss.stop({ graceful: false, wait: true }).catch(() => undefined);
+      throw error;
+    }
+    return boss;
+  }
+}

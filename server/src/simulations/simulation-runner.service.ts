@@ -1,0 +1,127 @@
+import { Inject, Injectable, Logger, type OnApplicationBootstrap, type OnModuleDestroy } from '@nestjs/common';
+import { Op } from 'sequelize';
+import type { SimulationKind } from '@ladderwright/shared/api';
+import { APP_ENV, type AppEnv } from '../config/env';
+import { SimulationJobModel } from './simulation-job.model';
+import { type PoolRun, SimulationPoolService } from './simulation-pool.service';
+import { type SimulationQueuePayload, SimulationQueueService } from './simulation-queue.service';
+import type { FaultKind } from './simulation-task.types';
+
+/** Progress is written to the table in steps of this many percent (and at 100). */
+const PROGRESS_STEP_PCT = 5;
+/** How often a running job looks for a cancel made through another app instance. */
+const CANCEL_POLL_MS = 500;
+/** A cancelled run gets this long to stop at a time step before its worker thread is terminated. */
+const CANCEL_GRACE_MS = 500;
+
+interface ActiveRun {
+  run: PoolRun;
+  settled: Promise<void>;
+}
+
+/**
+ * The job-worker side of an app instance: takes jobs from the pg-boss queue, runs them in the piscina pool,
+ * writes progress, result or error into `simulation_jobs`. Every write is guarded by `status = 'running'`,
+ * so a cancel (status set to 'cancelled' by any instance) always wins over a late progress or result.
+ */
+@Injectable()
+export class SimulationRunnerService implements OnApplicationBootstrap, OnModuleDestroy {
+  private readonly logger = new Logger('SimulationRunner');
+  private readonly active = new Map<string, ActiveRun>();
+  private isShuttingDown = false;
+
+  constructor(
+    @Inject(APP_ENV) private readonly env: AppEnv,
+    private readonly queue: SimulationQueueService,
+    private readonly pool: SimulationPoolService,
+  ) {}
+
+  onApplicationBootstrap(): void {
+    if (this.env.simulationWorkers === 0) return;
+    // Not awaited: the app serves requests (and reports degraded health) even while the database is down.
+    this.queue.work(this.env.simulationWorkers, (payload) => this.execute(payload)).catch((error: unknown) => {
+      this.logger.warn(`simulation workers not started: ${error instanceof Error ? error.message : String(error)}`);
+    });
+  }
+
+  /** Stops a run of this instance at once (the cancel itself is already in the table). */
+  cancelLocal(jobId: string): void {
+    this.active.get(jobId)?.run.cancel(CANCEL_GRACE_MS);
+  }
+
+  async onModuleDestroy(): Promise<void> {
+    this.isShuttingDown = true;
+    for (const { run } of this.active.values()) run.cancel(0);
+    await Promise.all([...this.active.values()].map((entry) => entry.settled));
+  }
+
+  private async execute({ simulationJobId: id }: SimulationQueuePayload): Promise<void> {
+    if (this.isShuttingDown) throw new Error('instance is stopping; the job is left to another instance');
+    const [claimed, rows] = await SimulationJobModel.update(
+      { status: 'running', progressPct: 0, startedAt: new Date() },
+      { where: { id, status: { [Op.in]: ['queued', 'running'] } }, returning: true },
+    );
+    const job = rows[0];
+    if (claimed === 0 || !job) return; // cancelled before it started, or no longer exists
+    let writtenPct = 0;
+    let progressWrite = Promise.resolve();
+    const run = this.pool.run(
+      { kind: job.kind as SimulationKind | FaultKind, document: job.input.document, options: job.input.options },
+      (progressPct) => {
+        if (progressPct < writtenPct + PROGRESS_STEP_PCT) return;
+        writtenPct = progressPct;
+        progressWrite = progressWrite.then(() => this.writeProgress(id, progressPct, run)).catch(() => undefined);
+      },
+    );
+    const cancelWatch = setInterval(() => void this.checkCancelled(id, run), CANCEL_POLL_MS);
+    const settled = this.finish(id, run).finally(async () => {
+      clearInterval(cancelWatch);
+      await progressWrite;
+      this.active.delete(id);
+    });
+    this.active.set(id, { run, settled });
+    await settled;
+  }
+
+  private async finish(id: string, run: PoolRun): Promise<void> {
+    const running = { where: { id, status: 'running' as const } };
+    try {
+      const outcome = await run.outcome;
+      if (outcome.ok) {
+        await SimulationJobModel.update({ status: 'succeeded', progressPct: 100, result: outcome.result, finishedAt: new Date() }, running);
+      } else if (outcome.error.code !== 'cancelled') {
+        await this.fail(id, outcome.error.code, outcome.error.message);
+      }
+    } catch (error) {
+      const detail = error instanceof Error ? error.message : String(error);
+      if (this.isShuttingDown) {
+        await this.fail(id, 'interrupted', 'The server stopped during the run; start the simulation again');
+      } else {
+        // A thrown error or a dead worker thread: this job fails; piscina has already replaced the thread.
+        this.logger.warn(`simulation ${id} failed in its worker: ${detail}`);
+        await this.fail(id, 'worker_failed', `The simulation worker failed: ${detail}`);
+      }
+    }
+  }
+
+  private async fail(id: string, code: string, message: string): Promise<void> {
+    await SimulationJobModel.update(
+      { status: 'failed', errorCode: code, errorMessage: message, finishedAt: new Date() },
+      { where: { id, status: 'running' } },
+    );
+  }
+
+  private async writeProgress(id: string, progressPct: number, run: PoolRun): Promise<void> {
+    const [count] = await SimulationJobModel.update({ progressPct }, { where: { id, status: 'running' } });
+    if (count === 0) run.cancel(CANCEL_GRACE_MS);
+  }
+
+  private async checkCancelled(id: string, run: PoolRun): Promise<void> {
+    try {
+      const job = await SimulationJobModel.findByPk(id, { attributes: ['status'] });
+      if (!job || job.status === 'cancelled') run.cancel(CANCEL_GRACE_MS);
+    } catch {
+      // The next poll tries again.
+    }
+  }
+}

@@ -1,0 +1,16 @@
+import { Module } from '@nestjs/common';
+import { SequelizeModule } from '@nestjs/sequelize';
+import { SimulationJobModel } from './simulation-job.model';
+import { SimulationPoolService } from './simulation-pool.service';
+import { SimulationQueueService } from './simulation-queue.service';
+import { SimulationRunnerService } from './simulation-runner.service';
+import { SimulationsController } from './simulations.controller';
+import { SimulationsService } from './simulations.service';
+
+/** Simulation jobs: queued in PostgreSQL (pg-boss), run on worker threads (piscina), read by polling. */
+@Module({
+  imports: [SequelizeModule.forFeature([SimulationJobModel])],
+  controllers: [SimulationsController],
+  providers: [SimulationsService, SimulationQueueService, SimulationPoolService, SimulationRunnerService],
+})
+export class SimulationsModule {}

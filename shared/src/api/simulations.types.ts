@@ -1,0 +1,87 @@
+import type { Design } from '../designs';
+
+/**
+ * What a simulation job computes: the start-up from empty capacitors, the periodic steady state with its
+ * ripple, the discharge through the bleeder after the drive stops, or all three in one run.
+ */
+export type SimulationKind = 'startup' | 'steady-state' | 'discharge' | 'full';
+
+export type SimulationJobStatus = 'queued' | 'running' | 'succeeded' | 'failed' | 'cancelled';
+
+export interface SimulationOptions {
+  /** Time steps per drive period at least (the largest step is the period divided by this; 8 … 5000, default 100). */
+  maxStepPerPeriod?: number;
+  /** Drive periods of the start-up transient (1 … 20000); without it the run goes on until the output settles. */
+  cycles?: number;
+}
+
+/**
+ * POST /api/projects/:projectId/simulations body: either a design `document`, or a stored revision by
+ * `designId` and `revisionNumber`.
+ */
+export interface StartSimulationRequest {
+  kind: SimulationKind;
+  document?: Design;
+  designId?: string;
+  revisionNumber?: number;
+  options?: SimulationOptions;
+}
+
+/** 202 answer to StartSimulationRequest. */
+export interface StartSimulationResponse {
+  jobId: string;
+  status: 'queued';
+}
+
+export type WaveformPhase = 'startup' | 'steady-state' | 'discharge';
+
+/**
+ * One trace of the Waveforms, downsampled for plotting: each time bucket keeps its minimum and maximum
+ * sample, so the peaks of the full-resolution trace are always among `values`.
+ */
+export interface WaveformTrace {
+  /** e.g. 'V(top)' for the ladder output voltage. */
+  name: string;
+  phase: WaveformPhase;
+  unit: 'V' | 'A';
+  timeS: number[];
+  values: number[];
+}
+
+/** Headline figures of a run; a figure the kind does not compute is null. */
+export interface SimulationSummary {
+  outputMeanV: number | null;
+  ripplePeakToPeakV: number | null;
+  timeToSteadyStateS: number | null;
+  dischargeTimeS: number | null;
+  cyclesSimulated: number;
+  /** How the steady-state figures were obtained. */
+  method: 'transient' | 'periodic-steady-state';
+}
+
+export interface SimulationResult {
+  summary: SimulationSummary;
+  waveforms: WaveformTrace[];
+}
+
+export interface SimulationJobError {
+  code: string;
+  message: string;
+}
+
+/** GET /api/projects/:projectId/simulations/:jobId answer. `result` only when succeeded, `error` only when failed. */
+export interface SimulationJob {
+  id: string;
+  projectId: string;
+  kind: SimulationKind;
+  status: SimulationJobStatus;
+  progressPct: number;
+  designId: string | null;
+  revisionNumber: number | null;
+  requestedBy: string | null;
+  createdAt: string;
+  startedAt: string | null;
+  finishedAt: string | null;
+  error?: SimulationJobError;
+  result?: SimulationResult;
+}
