@@ -1,0 +1,178 @@
+import { JwtService } from '@nestjs/jwt';
+import fc from 'fast-check';
+import request from 'supertest';
+import { canInApp, type UserRole } from '@ladderwright/shared/auth';
+import { createProject, type TestProject } from './factories/create-project';
+import { createUser, type TestUser } from './factories/create-user';
+import { createTestApp, type TestApp } from './utils/create-test-app';
+import { type ApiRoute, apiRouteTable } from './utils/route-table';
+
+const CASES_PER_ROUTE = 20;
+const UNKNOWN_ID = '5d1f7c9e-3a4b-4c8d-9e0f-1a2b3c4d5e6f';
+/** Routes that would end the caller's session mid-run; their body is ignored anyway. */
+const SKIPPED = new Set(['POST /api/auth/sign-out-everywhere', 'POST /api/auth/sign-out']);
+
+const MARKUP = [
+  '<img src=x onerror=alert(1)>',
+  '<script>alert(1)</script>',
+  '"><svg onload=alert(1)>',
+  "'; DROP TABLE users; --",
+];
+const nastyScalar = fc.oneof(
+  fc.constantFrom(...MARKUP),
+  fc.constantFrom(null, true, false, 0, -1, 1e308, -1e308, Number.MAX_SAFE_INTEGER, 2 ** 53 + 1, 1e-320),
+  fc.constantFrom('', ' ', '\u0000', '💥'.repeat(50), 'x'.repeat(5000), '1e999', 'NaN', '-0', '12 kV'),
+  fc.string({ maxLength: 40 }),
+  fc.double(),
+  fc.integer(),
+);
+const nastyValue = fc.oneof(
+  { weight: 4, arbitrary: nastyScalar },
+  { weight: 1, arbitrary: fc.array(nastyScalar, { maxLength: 5 }) },
+  { weight: 1, arbitrary: fc.dictionary(fc.string({ minLength: 1, maxLength: 8 }), nastyScalar, { maxKeys: 4 }) },
+);
+
+/** Bodies of random shape, and bodies with the route's own field names holding nasty values. */
+function bodyArbitrary(fieldNames: string[]): fc.Arbitrary<unknown> {
+  const shaped =
+    fieldNames.length > 0
+      ? fc.record(Object.fromEntries(fieldNames.map((name) => [name, nastyValue])), { requiredKeys: [] })
+      : fc.dictionary(fc.string({ minLength: 1, maxLength: 8 }), nastyValue, { maxKeys: 5 });
+  return fc.oneof(
+    { weight: 3, arbitrary: shaped },
+    { weight: 1, arbitrary: fc.array(nastyValue, { maxLength: 4 }) },
+    { weight: 1, arbitrary: fc.jsonValue({ maxDepth: 3 }).filter((value) => typeof value === 'object') },
+  );
+}
+
+/** The request-body property names of each route, from the app's own OpenAPI document. */
+function bodyFieldNames(document: Record<string, unknown>, route: ApiRoute): string[] {
+  const paths = document.paths as Record<string, Record<string, { requestBody?: unknown }>>;
+  const openApiPath = route.path.replace(/:([A-Za-z0-9_]+)/g, '{$1}');
+  const operation = paths[openApiPath]?.[route.method.toLowerCase()];
+  const schema = (operation?.requestBody as { content?: Record<string, { schema?: { $ref?: string } }> } | undefined)
+    ?.content?.['application/json']?.schema;
+  const ref = schema?.$ref?.split('/').pop();
+  const components = (document.components as { schemas?: Record<string, { properties?: object }> }).schemas ?? {};
+  return Object.keys((ref ? components[ref]?.properties : undefined) ?? {});
+}
+
+describe('bad input on every write route: never a 500, a 4xx naming the field', () => {
+  let testApp: TestApp;
+  let routes: ApiRoute[];
+  let project: TestProject;
+  const accounts = new Map<UserRole, TestUser>();
+  let openApi: Record<string, unknown>;
+
+  beforeAll(async () => {
+    testApp = await createTestApp();
+    routes = apiRouteTable(testApp.app).filter(
+      (route) => route.method !== 'GET' && !SKIPPED.has(`${route.method} ${route.path}`),
+    );
+    for (const role of ['engineer', 'lead', 'admin'] as const) accounts.set(role, await createUser(testApp, { role }));
+    const lead = accounts.get('lead');
+    const admin = accounts.get('admin');
+    if (!lead || !admin) throw new Error('accounts missing');
+    project = await createProject([
+      { userId: lead.id, role: 'lead' },
+      { userId: admin.id, role: 'lead' },
+    ]);
+    const response = await request(testApp.app.getHttpServer()).get('/api/docs-json');
+    openApi = response.body as Record<string, unknown>;
+  });
+  afterAll(async () => {
+    await testApp?.close();
+  });
+
+  /** A caller the guards let through: a lead member, or the admin for admin-only routes. */
+  async function cookieFor(route: ApiRoute): Promise<string> {
+    const role: UserRole = route.appAction && !canInApp('lead', route.appAction) ? 'admin' : 'lead';
+    const user = accounts.get(role);
+    if (!user) throw new Error(`no ${role} account`);
+    const token = await testApp.app.get(JwtService).signAsync({ sub: user.id, sv: 0 });
+    return `lw_session=${token}`;
+  }
+
+  function projectsRoute(): ApiRoute {
+    const route = routes.find((candidate) => candidate.method === 'POST' && candidate.path === '/api/projects');
+    if (!route) throw new Error('POST /api/projects is missing from the route table');
+    return route;
+  }
+
+  function concretePath(route: ApiRoute): string {
+    return route.path.replace(/:([A-Za-z0-9_]+)/g, (_match, name: string) =>
+      name === 'projectId' ? project.id : name.endsWith('Id') ? UNKNOWN_ID : '1',
+    );
+  }
+
+  it('covers the write routes of the route table', () => {
+    expect(routes.map((route) => `${route.method} ${route.path}`)).toEqual(
+      expect.arrayContaining(['POST /api/projects', 'POST /api/users', 'POST /api/projects/:projectId/members']),
+    );
+  });
+
+  it('answers random bodies with 2xx or 4xx, never 5xx, and every 400 names a field', async () => {
+    const server = testApp.app.getHttpServer();
+    const failures: string[] = [];
+    for (const route of routes) {
+      const cookie = await cookieFor(route);
+      const fields = bodyFieldNames(openApi, route);
+      await fc
+        .assert(
+          // Property names are never empty: an empty key is a 400 too, but has no name to report.
+          fc.asyncProperty(bodyArbitrary(fields), async (body) => {
+            const method = route.method.toLowerCase() as 'post' | 'put' | 'patch' | 'delete';
+            const response = await request(server)
+              [method](concretePath(route))
+              .set('Cookie', cookie)
+              .send(body as object);
+            const status = response.status;
+            const named = typeof response.body?.field === 'string' && response.body.field !== '';
+            const ok = status < 500 && (status !== 400 || named) && typeof response.body === 'object';
+            if (!ok)
+              failures.push(
+                `${route.method} ${route.path} ${JSON.stringify(body).slice(0, 200)} -> ${status} ${JSON.stringify(response.body).slice(0, 200)}`,
+              );
+            return ok;
+          }),
+          { numRuns: CASES_PER_ROUTE, seed: 8, endOnFailure: true },
+        )
+        .catch(() => undefined);
+    }
+    expect(failures).toEqual([]);
+  });
+
+  it('stores markup in a text field exactly as typed', async () => {
+    const name = '<img src=x onerror=alert(1)>';
+    const created = await request(testApp.app.getHttpServer())
+      .post('/api/projects')
+      .set('Cookie', await cookieFor(projectsRoute()))
+      .send({ name, productLine: '<b>Ionizers</b>' });
+    expect(created.status).toBe(201);
+    const detail = await request(testApp.app.getHttpServer())
+      .get(`/api/projects/${created.body.id}`)
+      .set('Cookie', await cookieFor(projectsRoute()));
+    expect(detail.body).toMatchObject({ name, productLine: '<b>Ionizers</b>' });
+    expect(detail.headers['content-type']).toMatch(/^application\/json/);
+  });
+
+  it('refuses an oversized JSON body with 413 from its Content-Length, before reading it', async () => {
+    const limit = testApp.env.bodyLimitBytes;
+    const response = await request(testApp.app.getHttpServer())
+      .post('/api/projects')
+      .set('Content-Type', 'application/json')
+      .send(JSON.stringify({ name: 'x'.repeat(limit + 10), productLine: 'Ionizers' }));
+    expect(response.status).toBe(413);
+    expect(response.body).toMatchObject({ statusCode: 413, code: 'payload_too_large' });
+    expect(response.body.message).toContain(String(limit));
+  });
+
+  it('answers malformed JSON with 400, not 500', async () => {
+    const response = await request(testApp.app.getHttpServer())
+      .post('/api/auth/sign-in')
+      .set('Content-Type', 'application/json')
+      .send('{"email": "a@b.test", "password": ');
+    expect(response.status).toBe(400);
+    expect(response.body).toMatchObject({ statusCode: 400, message: expect.any(String) });
+  });
+});
