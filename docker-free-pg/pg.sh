@@ -4,7 +4,7 @@
 #   pg.sh stop | status
 #   pg.sh createdb NAME    create database NAME owned by the app role, if absent
 #   pg.sh dropdb NAME      drop database NAME if present
-# Env: LW_PG_PORT (54329), LW_PG_DB (ladderwright).
+# Env: LW_PG_PORT (54329), LW_PG_DB (ladderwright), LW_PG_DATA_DIR (<repo>/.data/pg: a second, private cluster).
 # The cluster lives in <repo>/.data/pg (git-ignored), listens on 127.0.0.1 only, socket inside .data.
 set -euo pipefail
 
@@ -13,7 +13,7 @@ PG_PORT="${LW_PG_PORT:-54329}"
 APP_DB="${LW_PG_DB:-ladderwright}"
 APP_ROLE="ladderwright"
 APP_PASSWORD="ladderwright"
-BASE_DIR="$REPO_DIR/.data/pg"
+BASE_DIR="${LW_PG_DATA_DIR:-$REPO_DIR/.data/pg}"
 CLUSTER_DIR="$BASE_DIR/cluster"
 SOCKET_DIR="$BASE_DIR/run"
 LOG_FILE="$BASE_DIR/server.log"
