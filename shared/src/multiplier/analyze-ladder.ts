@@ -75,29 +75,33 @@ function driveTiming(drive: SineDrive | PulseDrive, polarity: 1 | -1): DriveTimi
   };
 }
 
+function zeros(length: number): number[] {
+  return new Array<number>(length).fill(0);
+}
+
 /** Work arrays reused between solves of the same network (no allocation in the inner solve). */
 interface Workspace {
   net: LadderNetwork;
   timing: DriveTiming;
-  deltaH: Float64Array;
-  deltaL: Float64Array;
-  chargeH: Float64Array;
-  chargeL: Float64Array;
-  loadRate: Float64Array;
-  nodeLoadRate: Float64Array;
-  flow: Float64Array;
-  injection: Float64Array;
-  stateA: Float64Array;
-  stateB: Float64Array;
-  nodeA: Float64Array;
-  nodeB: Float64Array;
+  deltaH: number[];
+  deltaL: number[];
+  chargeH: number[];
+  chargeL: number[];
+  loadRate: number[];
+  nodeLoadRate: number[];
+  flow: number[];
+  injection: number[];
+  stateA: number[];
+  stateB: number[];
+  nodeA: number[];
+  nodeB: number[];
   harmonicMeanF: number;
   thermalV: number;
   diode: LadderInput['diode'];
 }
 
 /** Charge flowing down each capacitor for injections at the nodes (each node is the top of one capacitor). */
-function accumulateFlow(net: LadderNetwork, injection: Float64Array, flow: Float64Array, capDelta: Float64Array): void {
+function accumulateFlow(net: LadderNetwork, injection: number[], flow: number[], capDelta: number[]): void {
   const m = net.capF.length;
   // `flow` indexed by node: charge that node passes down to the capacitor below it.
   for (let n = 0; n < flow.length; n += 1) flow[n] = injection[n] ?? 0;
@@ -116,12 +120,12 @@ function createWorkspace(net: LadderNetwork, input: LadderInput): Workspace {
   const timing = driveTiming(input.drive, input.polarity);
   const ws: Workspace = {
     net, timing,
-    deltaH: new Float64Array(m), deltaL: new Float64Array(m),
-    chargeH: new Float64Array(net.anchorScale.length), chargeL: new Float64Array(net.anchorScale.length),
-    loadRate: new Float64Array(m), nodeLoadRate: new Float64Array(nodes),
-    flow: new Float64Array(nodes), injection: new Float64Array(nodes),
-    stateA: new Float64Array(m), stateB: new Float64Array(m),
-    nodeA: new Float64Array(nodes), nodeB: new Float64Array(nodes),
+    deltaH: zeros(m), deltaL: zeros(m),
+    chargeH: zeros(net.anchorScale.length), chargeL: zeros(net.anchorScale.length),
+    loadRate: zeros(m), nodeLoadRate: zeros(nodes),
+    flow: zeros(nodes), injection: zeros(nodes),
+    stateA: zeros(m), stateB: zeros(m),
+    nodeA: zeros(nodes), nodeB: zeros(nodes),
     harmonicMeanF: 0,
     thermalV: (boltzmannJPerK * (input.temperatureK ?? 300)) / elementaryChargeC,
     diode: input.diode,

@@ -20,25 +20,30 @@ export interface LadderNetwork {
   stageCount: number;
   nodeCount: number;
   anchorScale: readonly number[];
-  capTop: Int32Array;
-  capBottom: Int32Array;
-  capF: Float64Array;
+  capTop: number[];
+  capBottom: number[];
+  capF: number[];
   capColumn: CapacitorStress['column'][];
-  capStage: Int32Array;
+  capStage: number[];
   /** Determining diode of each capacitor (index into the diode arrays). */
-  capDiode: Int32Array;
-  diodeAnode: Int32Array;
-  diodeCathode: Int32Array;
-  diodeEvent: Uint8Array;
+  capDiode: number[];
+  diodeAnode: number[];
+  diodeCathode: number[];
+  diodeEvent: number[];
   /** Fraction of the ladder's charge per cycle each diode passes (1 in a half-wave chain, ½ full-wave). */
-  diodeShare: Float64Array;
+  diodeShare: number[];
   /** Root anchor of every node (the anchor its capacitor column stands on). */
-  nodeRoot: Int32Array;
+  nodeRoot: number[];
   outNode: number;
   returnNode: number;
   /** Ideal no-load output in units of the drive: coefficients of the H and L extremes (V = kH·Vh + kL·Vl). */
   idealCoefficientH: number;
   idealCoefficientL: number;
+}
+
+/** Plain arrays: for ladders of tens of nodes they allocate far faster than typed arrays. */
+function zeros(length: number): number[] {
+  return new Array<number>(length).fill(0);
 }
 
 interface Builder {
@@ -61,10 +66,10 @@ function finish(
   const nodeCount = anchorScale.length + m;
   const net: LadderNetwork = {
     topology, cellCount, stageCount, nodeCount, anchorScale,
-    capTop: new Int32Array(m), capBottom: new Int32Array(m), capF: new Float64Array(m),
-    capColumn: new Array<CapacitorStress['column']>(m), capStage: new Int32Array(m), capDiode: new Int32Array(m),
-    diodeAnode: new Int32Array(dCount), diodeCathode: new Int32Array(dCount), diodeEvent: new Uint8Array(dCount),
-    diodeShare: new Float64Array(dCount), nodeRoot: new Int32Array(nodeCount),
+    capTop: zeros(m), capBottom: zeros(m), capF: zeros(m),
+    capColumn: new Array<CapacitorStress['column']>(m), capStage: zeros(m), capDiode: zeros(m),
+    diodeAnode: zeros(dCount), diodeCathode: zeros(dCount), diodeEvent: zeros(dCount),
+    diodeShare: zeros(dCount), nodeRoot: zeros(nodeCount),
     outNode, returnNode, idealCoefficientH: ideal[0], idealCoefficientL: ideal[1],
   };
   for (let i = 0; i < anchorScale.length; i += 1) net.nodeRoot[i] = i;
