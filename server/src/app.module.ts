@@ -11,6 +11,7 @@ import { AnalysisModule } from './analysis/analysis.module';
 import { withDesignSchemaComponents } from './analysis/design-schema-components';
 import { AuditModule } from './audit/audit.module';
 import { AuthModule } from './auth/auth.module';
+import { BenchRunsModule } from './bench-runs/bench-runs.module';
 import { SESSION_COOKIE } from './auth/jwt.strategy';
 import { DomainErrorFilter, RequestValidationException } from './common/filters/domain-error.filter';
 import { JwtAuthGuard } from './common/guards/jwt-auth.guard';
@@ -35,7 +36,7 @@ export class AppModule {
   static forRoot(env: AppEnv): DynamicModule {
     return {
       module: AppModule,
-      imports: [ConfigModule.forRoot(env), DatabaseModule, AuditModule, UsersModule, AuthModule, ProjectsModule, HealthModule, AnalysisModule, RevisionsModule, DesignsModule, PartsModule, SimulationsModule],
+      imports: [ConfigModule.forRoot(env), DatabaseModule, AuditModule, UsersModule, AuthModule, ProjectsModule, HealthModule, AnalysisModule, RevisionsModule, DesignsModule, PartsModule, BenchRunsModule, SimulationsModule],
       providers: [
         { provide: APP_GUARD, useClass: JwtAuthGuard },
         { provide: APP_GUARD, useClass: RolesGuard },

@@ -1,6 +1,7 @@
 import request from 'supertest';
 import { DEMO_PASSWORD, DEMO_PROJECTS, DEMO_USERS, seedDemo } from '../src/database/seed-demo';
 import { DEMO_DESIGN_RECORD_COUNT } from '../src/designs/seed-demo-designs';
+import { DEMO_PARTS_PER_PROJECT } from '../src/parts/seed-demo-parts';
 import { PasswordHasherService } from '../src/users/password-hasher.service';
 import { createTestApp, type TestApp } from './utils/create-test-app';
 import { signIn } from './utils/sign-in';
@@ -19,7 +20,11 @@ describe('demo seed', () => {
     const hasher = testApp.app.get(PasswordHasherService);
     const memberships = DEMO_PROJECTS.reduce((sum, project) => sum + project.members.length, 0);
     expect(await seedDemo(hasher)).toBe(
-      DEMO_USERS.length + DEMO_PROJECTS.length + memberships + DEMO_DESIGN_RECORD_COUNT,
+      DEMO_USERS.length +
+        DEMO_PROJECTS.length +
+        memberships +
+        DEMO_DESIGN_RECORD_COUNT +
+        DEMO_PARTS_PER_PROJECT * DEMO_PROJECTS.length,
     );
     expect(await seedDemo(hasher)).toBe(0);
   });

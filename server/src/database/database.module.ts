@@ -2,6 +2,9 @@ import { Module } from '@nestjs/common';
 import { SequelizeModule } from '@nestjs/sequelize';
 import { AuditEntryModel } from '../audit/audit-entry.model';
 import { APP_ENV, type AppEnv } from '../config/env';
+import { BenchRunEventModel } from '../bench-runs/bench-run-event.model';
+import { BenchRunFileModel } from '../bench-runs/bench-run-file.model';
+import { BenchRunModel } from '../bench-runs/bench-run.model';
 import { DesignModel } from '../designs/design.model';
 import { PartModel } from '../parts/part.model';
 import { ProjectMemberModel } from '../projects/project-member.model';
@@ -10,7 +13,7 @@ import { SimulationJobModel } from '../simulations/simulation-job.model';
 import { RevisionModel } from '../revisions/revision.model';
 import { UserModel } from '../users/user.model';
 
-export const ALL_MODELS = [UserModel, ProjectModel, ProjectMemberModel, DesignModel, RevisionModel, PartModel, AuditEntryModel, SimulationJobModel];
+export const ALL_MODELS = [UserModel, ProjectModel, ProjectMemberModel, DesignModel, RevisionModel, PartModel, BenchRunModel, BenchRunFileModel, BenchRunEventModel, AuditEntryModel, SimulationJobModel];
 
 /**
  * The one Sequelize connection. Models are registered explicitly; the schema comes only from

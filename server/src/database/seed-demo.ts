@@ -1,6 +1,7 @@
 import type { ProjectRole, UserRole } from '@ladderwright/shared/auth';
 import { seedDemoDesigns } from '../designs/seed-demo-designs';
 import { ProjectMemberModel } from '../projects/project-member.model';
+import { seedDemoParts } from '../parts/seed-demo-parts';
 import { ProjectModel } from '../projects/project.model';
 import type { PasswordHasherService } from '../users/password-hasher.service';
 import { UserModel } from '../users/user.model';
@@ -98,5 +99,6 @@ export async function seedDemo(hasher: PasswordHasherService): Promise<number> {
   const sequelize = ProjectModel.sequelize;
   if (!sequelize) throw new Error('demo seed needs the database connection');
   created += await seedDemoDesigns(sequelize);
+  created += await seedDemoParts(DEMO_PROJECTS.map((project) => project.name));
   return created;
 }

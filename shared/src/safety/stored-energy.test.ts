@@ -2,7 +2,6 @@ import { describe, expect, it } from 'vitest';
 import { evaluate } from 'mathjs';
 import { storedChargeLimit } from './hazard-limits';
 import { storedEnergy, storedEnergyChecks } from './stored-energy';
-import { dischargeCheck, dischargeTimeS } from './discharge';
 
 describe('stored energy and charge', () => {
   it('computes ½CV² and CV per capacitor (outside check: mathjs unit arithmetic)', () => {
@@ -28,21 +27,5 @@ describe('stored energy and charge', () => {
     const perCap = checks.find((c) => c.id === 'stored-c1-iec61010');
     expect(perCap?.verdict).toBe('fail');
     expect(perCap?.caution).toMatch(/standard that applies/);
-  });
-});
-
-describe('bleeder discharge', () => {
-  it('t = RC ln(V0/Vsafe) (REFERENCES.md §4; outside check: mathjs)', () => {
-    const t = dischargeTimeS(100e6, 1e-9, 6000, 50);
-    // Relative 1e-12: identical formula evaluated by mathjs with units.
-    expect(Math.abs(t / evaluate('100 Mohm * 1 nF * log(6000 / 50)').toNumber('s') - 1)).toBeLessThan(1e-12);
-  });
-
-  it('fails without a bleeder and applies the NFPA 79 60 µC exemption', () => {
-    const noBleeder = dischargeCheck({ bleederOhm: null, equivalentCapacitanceF: 1e-9, outputV: 5000, safeVoltageV: 50, rule: '50V-1min', storedChargeC: 5e-6 });
-    expect(noBleeder.verdict.verdict).toBe('fail');
-    expect(noBleeder.dischargeTimeS).toBeNull();
-    const exempt = dischargeCheck({ bleederOhm: null, equivalentCapacitanceF: 1e-9, outputV: 5000, safeVoltageV: 60, rule: '60V-5s', storedChargeC: 5e-6 });
-    expect(exempt.verdict.verdict).toBe('pass');
   });
 });

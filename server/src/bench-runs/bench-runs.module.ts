@@ -1,0 +1,22 @@
+import { Module } from '@nestjs/common';
+import { SequelizeModule } from '@nestjs/sequelize';
+import { DesignModel } from '../designs/design.model';
+import { RevisionModel } from '../revisions/revision.model';
+import { StorageModule } from '../storage/storage.module';
+import { BenchRunEventModel } from './bench-run-event.model';
+import { BenchRunFileModel } from './bench-run-file.model';
+import { BenchRunModel } from './bench-run.model';
+import { BenchRunsController } from './bench-runs.controller';
+import { BenchRunsService } from './bench-runs.service';
+
+/** Exports BenchRunsService: `listForRevision` gives Sign-off and the spec sheet a revision's runs and verdicts. */
+@Module({
+  imports: [
+    SequelizeModule.forFeature([BenchRunModel, BenchRunFileModel, BenchRunEventModel, DesignModel, RevisionModel]),
+    StorageModule,
+  ],
+  controllers: [BenchRunsController],
+  providers: [BenchRunsService],
+  exports: [BenchRunsService],
+})
+export class BenchRunsModule {}

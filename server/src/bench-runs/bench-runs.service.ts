@@ -1,0 +1,258 @@
+import { Inject, Injectable } from '@nestjs/common';
+import { InjectModel } from '@nestjs/sequelize';
+import Papa from 'papaparse';
+import { Sequelize } from 'sequelize-typescript';
+import type { BenchFile, BenchRunDetail, BenchRunSummary } from '@ladderwright/shared/api';
+import { compareBenchRun, predictionFromReport, readMeasurementTable } from '@ladderwright/shared/bench';
+import { DomainError } from '@ladderwright/shared/errors';
+import { isUuid } from '../common/uuid';
+import { DesignModel } from '../designs/design.model';
+import { RevisionModel } from '../revisions/revision.model';
+import { requireCsvText, requirePhoto } from '../storage/upload-checks';
+import { BLOB_STORE, type BlobStore, type UploadedFileData } from '../storage/storage.types';
+import { UserModel } from '../users/user.model';
+import type { UploadBenchRunDto } from './dto/upload-bench-run.dto';
+import { BenchRunEventModel } from './bench-run-event.model';
+import { BenchRunFileModel } from './bench-run-file.model';
+import { BenchRunModel } from './bench-run.model';
+
+export const BENCH_FILE_MAX_BYTES = 4 * 1024 * 1024;
+export const BENCH_MAX_PHOTOS = 4;
+const DEFAULT_TOLERANCE = 0.05;
+
+export interface BenchUpload {
+  data?: UploadedFileData[];
+  photos?: UploadedFileData[];
+}
+
+function parseTolerance(text: string | undefined): number {
+  if (text === undefined || text.trim() === '') return DEFAULT_TOLERANCE;
+  const trimmed = text.trim();
+  const value = trimmed.endsWith('%') ? Number(trimmed.slice(0, -1)) / 100 : Number(trimmed);
+  if (!(value > 0 && value < 1)) {
+    throw new DomainError(
+      'invalid_argument',
+      'tolerance must be between 0 and 1 (e.g. 0.05) or 0 % and 100 %',
+      'tolerance',
+    );
+  }
+  return value;
+}
+
+function parseRevisionNumber(raw: string): number {
+  if (!/^\d{1,9}$/.test(raw) || Number(raw) < 1) {
+    throw new DomainError('invalid_argument', 'revisionNumber must be a positive integer', 'revisionNumber');
+  }
+  return Number(raw);
+}
+
+function toFile(file: BenchRunFileModel): BenchFile & { id: string } {
+  return {
+    id: file.id,
+    role: file.role,
+    originalName: file.originalName,
+    contentType: file.contentType,
+    sizeBytes: file.sizeBytes,
+    sha256: file.sha256,
+  };
+}
+
+function toSummary(run: BenchRunModel): BenchRunSummary {
+  return {
+    id: run.id,
+    designId: run.designId,
+    revisionNumber: run.revisionNumber,
+    kind: run.kind,
+    title: run.title,
+    tolerance: run.tolerance,
+    pointCount: run.points.length,
+    verdict: run.verdict,
+    marginPct: run.marginPct,
+    worstDeviation: run.worstDeviation,
+    files: (run.files ?? []).sort((a, b) => a.createdAt.getTime() - b.createdAt.getTime()).map(toFile),
+    uploadedById: run.uploadedBy,
+    uploadedByName: run.uploader?.displayName ?? '',
+    createdAt: run.createdAt.toISOString(),
+  };
+}
+
+/** Bench runs of a revision: upload (parse, compare, store), list, read, soft delete with an audit event. */
+@Injectable()
+export class BenchRunsService {
+  constructor(
+    @InjectModel(BenchRunModel) private readonly runs: typeof BenchRunModel,
+    @InjectModel(BenchRunFileModel) private readonly files: typeof BenchRunFileModel,
+    @InjectModel(BenchRunEventModel) private readonly events: typeof BenchRunEventModel,
+    @InjectModel(DesignModel) private readonly designs: typeof DesignModel,
+    @InjectModel(RevisionModel) private readonly revisions: typeof RevisionModel,
+    @Inject(BLOB_STORE) private readonly blobs: BlobStore,
+    private readonly sequelize: Sequelize,
+  ) {}
+
+  async upload(
+    projectId: string,
+    designId: string,
+    rawNumber: string,
+    fields: UploadBenchRunDto,
+    upload: BenchUpload,
+    userId: string,
+  ): Promise<BenchRunDetail> {
+    const revision = await this.findRevision(projectId, designId, rawNumber);
+    const tolerance = parseTolerance(fields.tolerance);
+    const dataFile = upload.data?.[0];
+    const text = requireCsvText(dataFile, 'data');
+    const rows = Papa.parse<string[]>(text, { header: false, skipEmptyLines: false }).data;
+    const table = readMeasurementTable(rows, fields.kind);
+    const comparison = compareBenchRun(fields.kind, table.points, predictionFromReport(revision.report), tolerance);
+    const photos = (upload.photos ?? []).map((photo, i) => ({ photo, type: requirePhoto(photo, `photos[${i}]`) }));
+
+    // Bytes first (content-addressed, never overwritten), then the metadata in one transaction.
+    const dataBlob = await this.blobs.put((dataFile as UploadedFileData).buffer);
+    const photoBlobs = await Promise.all(photos.map(async ({ photo }) => this.blobs.put(photo.buffer)));
+    const id = await this.sequelize.transaction(async (transaction) => {
+      const run = await this.runs.create(
+        {
+          projectId,
+          designId: revision.designId,
+          revisionNumber: revision.number,
+          kind: fields.kind,
+          title: fields.title?.trim() ?? '',
+          tolerance,
+          points: table.points,
+          metadata: table.metadata,
+          comparison,
+          verdict: comparison.verdict,
+          marginPct: comparison.marginPct,
+          worstDeviation: comparison.worstDeviation,
+          uploadedBy: userId,
+        },
+        { transaction },
+      );
+      const stored = [
+        { role: 'data' as const, file: dataFile as UploadedFileData, type: 'text/csv', blob: dataBlob },
+        ...photos.map(({ photo, type }, i) => ({ role: 'photo' as const, file: photo, type, blob: photoBlobs[i] })),
+      ];
+      for (const entry of stored) {
+        if (!entry.blob) throw new Error('photo blob missing after upload');
+        await this.files.create(
+          {
+            benchRunId: run.id,
+            role: entry.role,
+            originalName: entry.file.originalname.slice(0, 200),
+            contentType: entry.type,
+            sizeBytes: entry.blob.sizeBytes,
+            sha256: entry.blob.sha256,
+            storageKey: entry.blob.key,
+          },
+          { transaction },
+        );
+      }
+      await this.events.create(
+        {
+          benchRunId: run.id,
+          action: 'uploaded',
+          actorId: userId,
+          detail: { kind: fields.kind, sha256: dataBlob.sha256 },
+        },
+        { transaction },
+      );
+      return run.id;
+    });
+    return this.get(projectId, designId, rawNumber, id);
+  }
+
+  async list(projectId: string, designId: string, rawNumber: string): Promise<BenchRunSummary[]> {
+    const revision = await this.findRevision(projectId, designId, rawNumber);
+    return this.listForRevision(revision.designId, revision.number);
+  }
+
+  /** The live bench runs of a revision with their verdicts, newest first (for Sign-off and the spec sheet). */
+  async listForRevision(designId: string, revisionNumber: number): Promise<BenchRunSummary[]> {
+    const rows = await this.runs.findAll({
+      where: { designId, revisionNumber, deletedAt: null },
+      include: [BenchRunFileModel, { model: UserModel, as: 'uploader' }],
+      order: [['createdAt', 'DESC']],
+    });
+    return rows.map(toSummary);
+  }
+
+  async get(projectId: string, designId: string, rawNumber: string, benchRunId: string): Promise<BenchRunDetail> {
+    const run = await this.findRun(projectId, designId, rawNumber, benchRunId);
+    return { ...toSummary(run), points: run.points, comparison: run.comparison, metadata: run.metadata };
+  }
+
+  /** The bytes of one file of a live bench run, with its stored type and name. */
+  async file(
+    projectId: string,
+    designId: string,
+    rawNumber: string,
+    benchRunId: string,
+    fileId: string,
+  ): Promise<{ body: Buffer; contentType: string; fileName: string }> {
+    const run = await this.findRun(projectId, designId, rawNumber, benchRunId);
+    const file = (run.files ?? []).find((candidate) => candidate.id === fileId);
+    if (!file) throw new DomainError('not_found', 'File not found in this bench run', 'fileId');
+    return { body: await this.blobs.get(file.storageKey), contentType: file.contentType, fileName: file.originalName };
+  }
+
+  /** Soft delete: the run leaves the lists, its rows and bytes stay, and a `deleted` event records who and what. */
+  async remove(
+    projectId: string,
+    designId: string,
+    rawNumber: string,
+    benchRunId: string,
+    userId: string,
+  ): Promise<void> {
+    const run = await this.findRun(projectId, designId, rawNumber, benchRunId);
+    await this.sequelize.transaction(async (transaction) => {
+      await run.update({ deletedAt: new Date(), deletedBy: userId }, { transaction });
+      await this.events.create(
+        {
+          benchRunId: run.id,
+          action: 'deleted',
+          actorId: userId,
+          detail: {
+            kind: run.kind,
+            title: run.title,
+            files: (run.files ?? []).map((file) => ({ name: file.originalName, sha256: file.sha256 })),
+          },
+        },
+        { transaction },
+      );
+    });
+  }
+
+  private async findRevision(projectId: string, designId: string, rawNumber: string): Promise<RevisionModel> {
+    const number = parseRevisionNumber(rawNumber);
+    const design = isUuid(designId)
+      ? await this.designs.findOne({ where: { id: designId, projectId }, attributes: ['id'] })
+      : null;
+    if (!design) throw new DomainError('not_found', 'Design not found', 'designId');
+    const revision = await this.revisions.findOne({ where: { designId, number } });
+    if (!revision) throw new DomainError('not_found', `Revision ${number} not found`, 'revisionNumber');
+    return revision;
+  }
+
+  private async findRun(
+    projectId: string,
+    designId: string,
+    rawNumber: string,
+    benchRunId: string,
+  ): Promise<BenchRunModel> {
+    const revision = await this.findRevision(projectId, designId, rawNumber);
+    const run = isUuid(benchRunId)
+      ? await this.runs.findOne({
+          where: {
+            id: benchRunId,
+            projectId,
+            designId: revision.designId,
+            revisionNumber: revision.number,
+            deletedAt: null,
+          },
+          include: [BenchRunFileModel, { model: UserModel, as: 'uploader' }],
+        })
+      : null;
+    if (!run) throw new DomainError('not_found', 'Bench run not found', 'benchRunId');
+    return run;
+  }
+}
