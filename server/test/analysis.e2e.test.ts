@@ -110,6 +110,15 @@ describe('analysis, design schema and templates', () => {
       expect(refs.length).toBeGreaterThan(0);
       for (const ref of refs) expect(schemas[ref.replace('#/components/schemas/', '')]).toBeDefined();
       expect(JSON.stringify(schemas.EvaluateDesignDto)).toContain('#/components/schemas/DesignDocument');
+      const listDesigns = response.body.paths['/api/projects/{projectId}/designs'].get;
+      const parameterNames = listDesigns.parameters.map((parameter: { name: string }) => parameter.name);
+      expect(parameterNames).toEqual(
+        expect.arrayContaining(['projectId', 'q', 'state', 'ownerId', 'sort', 'order', 'page', 'pageSize']),
+      );
+      const saveRevision = response.body.paths['/api/projects/{projectId}/designs/{designId}/revisions'].post;
+      expect(saveRevision.parameters.map((parameter: { name: string }) => parameter.name)).toEqual(
+        expect.arrayContaining(['projectId', 'designId']),
+      );
       expect(Object.keys(response.body.paths)).toEqual(
         expect.arrayContaining([
           '/api/projects/{projectId}/designs',

@@ -1,5 +1,5 @@
 import { Body, Controller, Get, Param, Post, Query } from '@nestjs/common';
-import { ApiBadRequestResponse, ApiBody, ApiCookieAuth, ApiTags } from '@nestjs/swagger';
+import { ApiBadRequestResponse, ApiBody, ApiCookieAuth, ApiParam, ApiTags } from '@nestjs/swagger';
 import type {
   CurrentUser as SessionUser,
   DesignDetail,
@@ -19,6 +19,7 @@ import { ListDesignsDto } from './dto/list-designs.dto';
 
 @ApiTags('designs')
 @ApiCookieAuth()
+@ApiParam({ name: 'projectId', format: 'uuid', description: 'A project the caller is a member of.' })
 @Controller('projects/:projectId/designs')
 export class DesignsController {
   constructor(

@@ -1,5 +1,5 @@
 import { Body, Controller, Get, Param, Post, Res, UseFilters } from '@nestjs/common';
-import { ApiConflictResponse, ApiCookieAuth, ApiOkResponse, ApiProduces, ApiTags } from '@nestjs/swagger';
+import { ApiConflictResponse, ApiCookieAuth, ApiOkResponse, ApiParam, ApiProduces, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 import type { CurrentUser as SessionUser, RevisionDetail, RevisionSummary } from '@ladderwright/shared/api';
 import { CurrentUser } from '../common/decorators/current-user.decorator';
@@ -19,6 +19,7 @@ function sendDownload(response: Response, file: DownloadFile, contentType: strin
 
 @ApiTags('revisions')
 @ApiCookieAuth()
+@ApiParam({ name: 'projectId', format: 'uuid', description: 'A project the caller is a member of.' })
 @Controller('projects/:projectId/designs/:designId/revisions')
 @UseFilters(StaleBaseFilter)
 export class RevisionsController {
