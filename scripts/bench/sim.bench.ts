@@ -1,8 +1,9 @@
 // Benchmark, not a test: the same netlist in our simulator and in ngspice, side by side.
 // Run: npx tsx scripts/bench/sim.bench.ts [cycles]
-import { buildLadderCircuit, idealCapacitorVoltagesV, type LadderCircuitSpec } from '../../shared/src/sim/build-circuit';
+import { buildLadderCircuit, type LadderCircuitSpec } from '../../shared/src/sim/build-circuit';
 import { MnaSystem } from '../../shared/src/sim/mna-system';
 import { findPeriodicSteadyState } from '../../shared/src/sim/periodic-steady-state';
+import { chargeBalanceCapacitorVoltagesV } from '../../shared/src/sim/steady-state-estimate';
 import { simulateTransient } from '../../shared/src/sim/transient';
 import { toSpiceNetlist } from '../../shared/src/sim/to-spice-netlist';
 import { windowMean, windowPeakToPeak } from '../../shared/src/sim/waveform-measures';
@@ -38,12 +39,12 @@ async function main(): Promise<void> {
   console.log(`  time ratio ours/ngspice = ${(oursMs / ng.elapsedMs).toFixed(2)} (target ≤ 0.33); mean differs by ${((oursMean / ngMean - 1) * 100).toFixed(4)} %`);
 
   const system = new MnaSystem(circuit);
-  const charges = Float64Array.from(idealCapacitorVoltagesV(spec), (v, i) => v * spec.capacitorsF[i]!);
+  const charges = Float64Array.from(chargeBalanceCapacitorVoltagesV(spec), (v, i) => v * spec.capacitorsF[i]!);
   const t1 = performance.now();
   const pss = findPeriodicSteadyState(system, { periodS, stepsPerPeriod: 200, initialCharges: charges, probes: ['top'] });
   const pssMs = performance.now() - t1;
   const pssMean = windowMean(pss.timeS, pss.signals.top!, 0, periodS);
-  console.log(`periodic steady state (shooting, 200 steps/period): ${pssMs.toFixed(0)} ms, converged ${pss.isConverged}, ${pss.iterations} iterations, residual ${pss.relativeResidual.toExponential(2)}, mean ${pssMean.toFixed(2)} V`);
+  console.log(`periodic steady state (shooting, 200 steps/period, from the charge-balance estimate): ${pssMs.toFixed(0)} ms, converged ${pss.isConverged}, ${pss.iterations} iterations, residual ${pss.relativeResidual.toExponential(2)} (history ${pss.residualHistory.map((r) => r.toExponential(1)).join(' ')}), mean ${pssMean.toFixed(2)} V`);
   console.log(`  against ngspice's ${cycles}-cycle transient: ${(ng.elapsedMs / pssMs).toFixed(1)}× faster (target ≥ 50×); mean differs by ${((pssMean / ngMean - 1) * 100).toFixed(3)} % (ngspice's run may not have settled yet)`);
 }
 

@@ -1,6 +1,7 @@
-import { buildLadderCircuit, capacitorName, idealCapacitorVoltagesV, LADDER_NODES, type LadderCircuitSpec } from './build-circuit';
+import { buildLadderCircuit, capacitorName, LADDER_NODES, type LadderCircuitSpec } from './build-circuit';
 import { MnaSystem } from './mna-system';
 import { findPeriodicSteadyState } from './periodic-steady-state';
+import { chargeBalanceCapacitorVoltagesV } from './steady-state-estimate';
 import { TransientStepper } from './transient';
 import { downsampleMinMax, windowMean, windowPeakToPeak } from './waveform-measures';
 
@@ -62,7 +63,7 @@ export function runLadder(spec: LadderCircuitSpec, options: LadderRunOptions): L
   // Periodic steady state first when asked for 'steady': it gives the final value the start-up aims at.
   let pss: ReturnType<typeof findPeriodicSteadyState> | null = null;
   if (options.until === 'steady') {
-    const ideal = idealCapacitorVoltagesV(spec);
+    const ideal = chargeBalanceCapacitorVoltagesV(spec);
     const charges = new Float64Array(system.reactiveCount);
     ideal.forEach((v, i) => {
       charges[i] = v * spec.capacitorsF[i]!;

@@ -7,6 +7,7 @@ export { buildCircuit, buildLadderCircuit, ladderSpecFromDesign, idealCapacitorV
 export type { LadderCircuitSpec, LadderDrive } from './build-circuit';
 export { downsampleMinMax, windowMean, windowPeakToPeak } from './waveform-measures';
 export { findPeriodicSteadyState } from './periodic-steady-state';
+export { chargeBalanceCapacitorVoltagesV } from './steady-state-estimate';
 export type { PeriodicSteadyStateOptions, PeriodicSteadyStateResult } from './periodic-steady-state';
 export { runLadder } from './design-runs';
 export type { LadderRunOptions, LadderRunResult, PlotTrace } from './design-runs';

@@ -11,9 +11,9 @@ export interface PeriodicSteadyStateOptions {
   /** Charges and fluxes at t = 0 to start from (MnaSystem reactive order); default the element initial conditions. */
   initialCharges?: Float64Array;
   maxIterations?: number;
-  /** Plain periods run from the initial charges before shooting; default 10. */
+  /** Plain periods run from the initial charges before shooting; default 2. */
   warmUpPeriods?: number;
-  /** Convergence: every |q(T) − q(0)| within this fraction of the largest |q| of the state. */
+  /** Convergence: every |q(T) − q(0)| and every Newton update within this fraction of the largest |q|. */
   relativeTolerance?: number;
   probes?: ReadonlyArray<string>;
   tolerances?: Partial<SimulationTolerances>;
@@ -42,6 +42,10 @@ export interface PeriodicSteadyStateResult {
  * ∂Φ/∂q0 propagated along the period through the converged step Jacobians (one extra banded solve per
  * state variable and step). Each period starts with one backward-Euler step (so the state is the charges
  * alone) and continues with the trapezoidal rule on a fixed grid of stepsPerPeriod steps.
+ * Newton needs every diode to conduct at its proper phase from the start: give a loaded ladder its
+ * charge-balance estimate (steady-state-estimate.ts) as initialCharges, not the ideal no-load state, where
+ * the barely conducting diodes leave Φ' − I nearly singular. Converged when the residual and the Newton
+ * update are both within relativeTolerance of the state's largest charge.
  */
 export function findPeriodicSteadyState(circuit: Circuit | MnaSystem, options: PeriodicSteadyStateOptions): PeriodicSteadyStateResult {
   const sys = 'elements' in circuit ? new MnaSystem(circuit) : circuit;
@@ -140,64 +144,77 @@ export function findPeriodicSteadyState(circuit: Circuit | MnaSystem, options: P
   const history: number[] = [];
   const jac = new Float64Array(r * r);
   const delta = new Float64Array(r);
-  const g = new Float64Array(r);
-  const jtg = new Float64Array(r);
-  const jtj = new Float64Array(r * r);
-  const normal = new Float64Array(r * r);
-  let damping = 1e-9;
-  const trial = new Float64Array(r);
-  const squaredResidual = (start: Float64Array, end: Float64Array): number => {
+  const base = new Float64Array(r);
+  const baseEnd = new Float64Array(r);
+  const baseSq = new Float64Array(r * r);
+  const normOf = (start: Float64Array, end: Float64Array): number => {
     let sum = 0;
     for (let k = 0; k < r; k++) sum += (end[k]! - start[k]!) ** 2;
     return sum;
   };
+  const scaleOf = (v: Float64Array): number => {
+    let m = 0;
+    for (let k = 0; k < r; k++) m = Math.max(m, Math.abs(v[k]!));
+    return m;
+  };
   let residual = Infinity;
   let iterations = 0;
+  let isConverged = false;
   // Warm-up periods: leave the kinks of a guessed state (diodes just at conduction) and make the
   // unknowns' guess at t = 0 consistent.
-  for (let k = 0; k < (options.warmUpPeriods ?? 10); k++) {
+  for (let k = 0; k < (options.warmUpPeriods ?? 2); k++) {
     period(state, false, null);
     state.set(q0);
   }
-  for (; iterations < maxIterations; ) {
-    period(state, true, null);
+  period(state, true, null);
+  // Newton on G(q) = Φ(q) − q with the exact Jacobian J = ∂Φ/∂q − I, solved directly (not through the
+  // normal equations, whose squared condition number stalls on the slow modes of a long ladder), and a
+  // backtracking line search on |G|² (J. E. Dennis and R. B. Schnabel, *Numerical Methods for
+  // Unconstrained Optimization and Nonlinear Equations*, 1983, §6.3; from memory).
+  while (iterations < maxIterations) {
     iterations++;
+    const scale = scaleOf(state);
     residual = residualOf(state, q0);
     history.push(residual);
-    if (residual <= relTol) break;
-    // Levenberg–Marquardt step on G(q) = Φ(q) − q with J = Φ' − I (K. Levenberg 1944, D. W. Marquardt
-    // 1963): (JᵀJ + μ·diag(JᵀJ)) Δ = −JᵀG. Small μ is Newton's step; μ grows when a step does not
-    // lower |G|², which tames the near-singular slow modes of a lightly loaded ladder.
     for (let k = 0; k < r; k++) {
       for (let j = 0; j < r; j++) jac[k * r + j] = sq[j * r + k]! - (j === k ? 1 : 0);
-      g[k] = q0[k]! - state[k]!;
+      delta[k] = state[k]! - q0[k]!;
     }
-    for (let a = 0; a < r; a++) {
-      let s2 = 0;
-      for (let k = 0; k < r; k++) s2 -= jac[k * r + a]! * g[k]!;
-      jtg[a] = s2;
-      for (let b = a; b < r; b++) {
-        let s1 = 0;
-        for (let k = 0; k < r; k++) s1 += jac[k * r + a]! * jac[k * r + b]!;
-        jtj[a * r + b] = s1;
-        jtj[b * r + a] = s1;
-      }
+    solveDense(jac, delta, r);
+    let stepNorm = 0;
+    for (let k = 0; k < r; k++) stepNorm = Math.max(stepNorm, Math.abs(delta[k]!));
+    // Converged when both the residual and the Newton update are small against the state: the update
+    // bounds the distance to the solution even along slow modes where a small residual does not.
+    if (residual <= relTol && stepNorm <= relTol * (scale > 0 ? scale : 1)) {
+      isConverged = true;
+      break;
     }
-    const squaredBefore = squaredResidual(state, q0);
-    trial.set(state);
+    const before = normOf(state, q0);
+    base.set(state);
+    baseEnd.set(q0);
+    baseSq.set(sq);
+    // A step no larger than a fraction of the state: far from the solution the Jacobian's slow modes
+    // (diodes that barely conduct) make the raw Newton step absurdly long.
+    let alpha = Math.min(1, (0.25 * scale) / stepNorm);
+    let accepted = false;
     for (let attempt = 0; attempt < 12; attempt++) {
-      normal.set(jtj);
-      for (let a = 0; a < r; a++) normal[a * r + a] = jtj[a * r + a]! * (1 + damping) + 1e-300;
-      delta.set(jtg);
-      solveDense(normal, delta, r);
-      for (let k = 0; k < r; k++) state[k] = trial[k]! + delta[k]!;
-      period(state, false, null);
-      if (squaredResidual(state, q0) < squaredBefore) {
-        damping = Math.max(damping / 10, 1e-12);
-        break;
+      for (let k = 0; k < r; k++) state[k] = base[k]! + alpha * delta[k]!;
+      try {
+        period(state, true, null);
+        if (normOf(state, q0) <= (1 - 1e-4 * alpha) * before) {
+          accepted = true;
+          break;
+        }
+      } catch {
+        /* a trial state the stepper cannot follow: shorten the step */
       }
-      damping *= 10;
-      if (attempt === 11) state.set(trial);
+      alpha /= 2;
+    }
+    if (!accepted) {
+      state.set(base);
+      q0.set(baseEnd);
+      sq.set(baseSq);
+      break;
     }
   }
   const time = new SampleBuffer();
@@ -209,7 +226,7 @@ export function findPeriodicSteadyState(circuit: Circuit | MnaSystem, options: P
     signals[p] = values[i]!.toArray();
   });
   return {
-    isConverged: finalResidual <= relTol * 10,
+    isConverged: isConverged || finalResidual <= relTol,
     iterations,
     relativeResidual: finalResidual,
     residualHistory: history,
