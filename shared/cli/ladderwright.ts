@@ -3,6 +3,8 @@ import { analyzeCommand, analyzeHelp } from './commands/analyze';
 import { ladderCommand, ladderHelp } from './commands/ladder';
 import { netlistCommand } from './commands/netlist';
 import { simulateCommand } from './commands/simulate';
+import { sizeCommand, sizeHelp } from './commands/size';
+import { spreadCommand, spreadHelp } from './commands/spread';
 import { LADDER_FLAGS_HELP } from './ladder-flags';
 
 /** A command takes its arguments and returns what to print; it throws DomainError on bad input. */
@@ -15,6 +17,8 @@ export interface CliCommand {
 export const commands: Readonly<Record<string, CliCommand>> = {
   analyze: { help: analyzeHelp, run: analyzeCommand },
   ladder: { help: ladderHelp, run: ladderCommand },
+  size: { help: sizeHelp, run: sizeCommand },
+  spread: { help: spreadHelp, run: spreadCommand },
   simulate: { help: 'simulate DESIGN.json | ladder flags   time-domain run (simulator)', run: simulateCommand },
   netlist: { help: 'netlist DESIGN.json | ladder flags    SPICE netlist (simulator)', run: netlistCommand },
 };

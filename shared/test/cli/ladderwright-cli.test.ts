@@ -76,6 +76,25 @@ describe('ladderwright command line', () => {
     expect(run.stderr).toMatch(/invalid_quantity: cap: .*expected a number/);
   });
 
+  it('size: ranked candidates for the ionizer target, each meeting output and ripple', () => {
+    const run = ladderwright('size', '--target', '-6kV', '--load-current', '30u', '--ripple', '30', '--peak', '480', '--freq', '25k', '--rs', '150', '--count', '3');
+    expect(run.status).toBe(0);
+    const result = JSON.parse(run.stdout);
+    expect(result.candidates).toHaveLength(3);
+    for (const c of result.candidates) {
+      expect(c.outputMeanV).toBeLessThanOrEqual(-6000);
+      expect(c.ripplePeakToPeakV).toBeLessThanOrEqual(30);
+    }
+  });
+
+  it('spread: the same seed gives the same distribution', () => {
+    const file = join(fixtures, 'ok/bench-four-cell.json');
+    const first = ladderwright('spread', file, '--trials', '200', '--seed', '11');
+    const second = ladderwright('spread', file, '--trials', '200', '--seed', '11');
+    expect(first.status).toBe(0);
+    expect(JSON.parse(first.stdout)).toEqual(JSON.parse(second.stdout));
+  });
+
   it('an unknown command exits non-zero with the usage', () => {
     const run = ladderwright('frobnicate');
     expect(run.status).toBe(2);

@@ -1,0 +1,59 @@
+import { DomainError } from '../../src/errors';
+import type { PulseDrive, SineDrive, Topology } from '../../src/designs/design.types';
+import { sizeLadder } from '../../src/sizing/size-ladder';
+import type { ESeriesName } from '../../src/units/e-series';
+import { formatQuantity } from '../../src/units/format-quantity';
+import { parseArguments, quantityFlag } from '../ladder-flags';
+
+export const sizeHelp =
+  'size --target V --load-current I --ripple V --peak V --freq F [--rs R] [--flyback V --duty D] [--topology T] [--series E12] [--safe-voltage V] [--count N] [--text]   Sizer';
+
+function required(value: number | undefined, name: string): number {
+  if (value === undefined) throw new DomainError('invalid_argument', `--${name} is required`, name);
+  return value;
+}
+
+/** `ladderwright size ...`: ranked candidate ladders from the Sizer. */
+export function sizeCommand(argv: ReadonlyArray<string>): string {
+  const { flags } = parseArguments(argv);
+  const peakV = required(quantityFlag(flags, 'peak', 'V'), 'peak');
+  const frequencyHz = required(quantityFlag(flags, 'freq', 'Hz'), 'freq');
+  const sourceResistanceOhm = quantityFlag(flags, 'rs', 'Ohm') ?? 0;
+  const flybackV = quantityFlag(flags, 'flyback', 'V');
+  const drive: SineDrive | PulseDrive =
+    flybackV === undefined
+      ? { kind: 'sine', peakV, frequencyHz, sourceResistanceOhm }
+      : { kind: 'pulse', forwardPeakV: peakV, flybackPeakV: flybackV, frequencyHz, dutyCycle: quantityFlag(flags, 'duty', 's') ?? 0.5, sourceResistanceOhm };
+  const topologyText = flags.get('topology');
+  const topologies: Topology[] | undefined =
+    typeof topologyText === 'string' ? [topologyText === 'bridge' ? 'bridge-doubler' : (topologyText as Topology)] : undefined;
+  if (topologies && !['half-wave', 'full-wave', 'bridge-doubler'].includes(topologies[0] as string)) {
+    throw new DomainError('invalid_argument', 'expected half-wave, full-wave or bridge', 'topology');
+  }
+  const series = flags.get('series');
+  if (series !== undefined && !['E6', 'E12', 'E24', 'E48', 'E96'].includes(String(series))) {
+    throw new DomainError('invalid_argument', 'expected E6, E12, E24, E48 or E96', 'series');
+  }
+  const safeVoltageV = quantityFlag(flags, 'safe-voltage', 'V');
+  const result = sizeLadder({
+    targetOutputV: required(quantityFlag(flags, 'target', 'V'), 'target'),
+    loadCurrentA: required(quantityFlag(flags, 'load-current', 'A'), 'load-current'),
+    rippleMaxV: required(quantityFlag(flags, 'ripple', 'V'), 'ripple'),
+    drive,
+    ...(topologies ? { topologies } : {}),
+    ...(series !== undefined ? { series: series as ESeriesName } : {}),
+    ...(safeVoltageV !== undefined ? { safeVoltageV } : {}),
+    resultCount: Number(flags.get('count') ?? 10),
+  });
+  if (!flags.has('text')) return JSON.stringify(result, null, 2);
+  const lines = [`Sizer: ${result.evaluatedCount} candidates evaluated, ${result.meetingSpecCount} meet the spec`];
+  for (const c of result.candidates) {
+    lines.push(
+      `  #${c.rank} ${c.topology} ${c.cellCount} cells ${c.grading}, C from ${formatQuantity(Math.max(...c.capacitorsF), 'F')}: ` +
+        `${formatQuantity(c.outputMeanV, 'V', 4)}, ripple ${formatQuantity(c.ripplePeakToPeakV, 'V')}, ` +
+        `${formatQuantity(c.storedEnergyJ, 'J')}, ${c.partCount} parts, worst margin ${c.worstMarginPct.toFixed(1)} %` +
+        (c.bleeder ? `, bleeder ${c.bleeder.count} × ${formatQuantity(c.bleeder.resistor.valueOhm, 'Ohm')}` : ''),
+    );
+  }
+  return lines.join('\n');
+}

@@ -1,0 +1,37 @@
+import { readFileSync } from 'node:fs';
+import { DomainError } from '../../src/errors';
+import { validateDesign } from '../../src/designs/validate-design';
+import { ladderInputOf, resolveDrive } from '../../src/multiplier/analyze-design';
+import { toleranceSpread } from '../../src/sizing/tolerance-spread';
+import { formatQuantity } from '../../src/units/format-quantity';
+import { parseArguments, quantityFlag } from '../ladder-flags';
+
+export const spreadHelp = 'spread DESIGN.json [--trials N] [--seed S] [--drive-variation 0.05] [--text]   seeded tolerance spread';
+
+/** `ladderwright spread DESIGN.json`: Monte Carlo spread over the design's capacitor tolerances and drive variation. */
+export function spreadCommand(argv: ReadonlyArray<string>): string {
+  const { positional, flags } = parseArguments(argv);
+  const path = positional[0];
+  if (!path) throw new DomainError('invalid_argument', 'a design file is required', 'DESIGN.json');
+  const design = validateDesign(JSON.parse(readFileSync(path, 'utf8')));
+  const { drive, currentLimitA } = resolveDrive(design);
+  const trials = Number(flags.get('trials') ?? 1000);
+  const seed = Number(flags.get('seed') ?? 1);
+  if (!Number.isInteger(seed)) throw new DomainError('invalid_argument', 'seed must be an integer', 'seed');
+  const result = toleranceSpread({
+    input: ladderInputOf(design, drive, currentLimitA),
+    capacitorTolerance: design.multiplier.capacitors.map((c) => c.tolerance),
+    driveVariation: quantityFlag(flags, 'drive-variation', 'V') ?? 0.05,
+    trials,
+    seed,
+    spec: { outputMinV: Math.abs(design.targets.outputV), rippleMaxV: design.targets.rippleMaxV },
+  });
+  if (!flags.has('text')) return JSON.stringify(result, null, 2);
+  const o = result.outputV;
+  return [
+    `Tolerance spread of "${design.name}", ${result.trials} trials, seed ${result.seed}`,
+    `  output mean ${formatQuantity(o.mean, 'V', 4)}, sd ${formatQuantity(o.sd, 'V')}, 5 % ${formatQuantity(o.p5, 'V', 4)}, 95 % ${formatQuantity(o.p95, 'V', 4)}`,
+    `  ripple mean ${formatQuantity(result.rippleV.mean, 'V')}, 95 % ${formatQuantity(result.rippleV.p95, 'V')}`,
+    `  within spec: ${(result.fractionWithinSpec * 100).toFixed(1)} %`,
+  ].join('\n');
+}
