@@ -25,11 +25,15 @@ export function limitJunctionVoltage(newV: number, oldV: number, emissionVoltage
   limited = false;
   if (newV > criticalV && Math.abs(newV - oldV) > 2 * emissionVoltageV) {
     limited = true;
+    let v: number;
     if (oldV > 0) {
       const arg = 1 + (newV - oldV) / emissionVoltageV;
-      return arg > 0 ? oldV + emissionVoltageV * Math.log(arg) : criticalV;
-    }
-    return emissionVoltageV * Math.log(newV / emissionVoltageV);
+      v = arg > 0 ? oldV + emissionVoltageV * Math.log(arg) : criticalV;
+    } else v = emissionVoltageV * Math.log(newV / emissionVoltageV);
+    // From a junction below its critical voltage (nearly off), go at least to the critical voltage: the
+    // logarithmic rule alone creeps up by a few n·Vt per iteration through a junction that is turning on,
+    // costing tens of Newton iterations per diode turn-on in a ladder.
+    return oldV < criticalV ? Math.max(v, criticalV) : v;
   }
   return newV;
 }
