@@ -70,7 +70,7 @@ export interface MultiplierSpec {
   cellCount: number;
   capacitors: CapacitorPart[];
   diode: DiodePart;
-  /** Stray capacitance of each ladder node to ground (accepted; reported as not modelled by the charge-transfer method). */
+  /** Stray capacitance of each ladder node to ground (first-order in the steady-state model; full in the simulator). */
   strayCapacitanceF?: number;
 }
 

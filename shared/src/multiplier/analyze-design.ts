@@ -134,6 +134,7 @@ export function ladderInputOf(design: Design, drive: SineDrive | PulseDrive, cur
   const bleeder = design.outputNetwork.bleeder;
   return {
     ...(currentLimitA !== null ? { sourceCurrentLimitA: currentLimitA } : {}),
+    ...(design.multiplier.strayCapacitanceF ? { strayCapacitanceF: design.multiplier.strayCapacitanceF } : {}),
     topology: design.multiplier.topology,
     capacitorsF: design.multiplier.capacitors.map((c) => c.valueF),
     drive,

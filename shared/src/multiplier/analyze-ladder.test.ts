@@ -102,6 +102,23 @@ describe('analyzeLadder against published closed forms', () => {
   });
 });
 
+describe('analyzeLadder: stray capacitance', () => {
+  it('costs output even at no load, independent of frequency (Everhart & Lorrain, Rev. Sci. Instrum. 24, 221 (1953), abstract read)', () => {
+    const withStray = (f: number) => analyzeLadder({ ...sineLadder(Array(8).fill(2.2e-9), 500, f, 0), strayCapacitanceF: 10e-12 }).noLoadOutputV;
+    expect(withStray(25e3)).toBeLessThan(4000 - 50);
+    // Relative 1e-12: the no-load loss has no frequency in it at all.
+    expect(Math.abs(withStray(1e3) / withStray(100e3) - 1)).toBeLessThan(1e-12);
+  });
+
+  it('doubler: the stray on the oscillating node forms a divider with C1, 2Vp·C1/(C1 + Cs) (common practice, no source)', () => {
+    const c1 = 1e-9;
+    const cs = 20e-12;
+    const r = analyzeLadder({ ...sineLadder([c1, c1], 500, 25e3, 0), strayCapacitanceF: cs });
+    // The model is first order in Cs/C1 = 0.02: it differs from the exact divider by about (Cs/C1)² = 4e-4 relative.
+    expect(Math.abs(r.noLoadOutputV / ((2 * 500 * c1) / (c1 + cs)) - 1)).toBeLessThan(5e-4);
+  });
+});
+
 describe('analyzeLadder: the one-pass solve against a dense linear solve (mathjs lusolve)', () => {
   it('graded capacitors, 6 cells: capacitor voltages agree with the periodic charge-balance system solved densely', () => {
     // Graded ladder (J. Lux, read): stage k gets (n − k + 1)·C. Both columns graded.

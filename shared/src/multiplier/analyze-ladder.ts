@@ -18,7 +18,7 @@ export const STEADY_STATE_METHOD: MethodInfo = {
     'sine drive: source-resistance loss from the peak-rectifier conduction angle, ΔV = (3·Q·ω·R·√Vpk / (4√2))^(2/3) per conduction',
     'pulse drive: conduction spread over the phase; source loss Q·R / phase time (an upper bound when the RC time is short)',
     'full-wave: the two antiphase paths share the charge equally (exact for a symmetric drive and equal columns)',
-    'stray capacitance and diode junction capacitance are not modelled here (see the simulator)',
+    'stray capacitance of each node to ground, first order: oscillating-column nodes swing by the drive peak-to-peak and their strays move that charge through the column below (a capacitive divider, a loss even at no load and independent of frequency); the smoothing column’s ripple swing is neglected; diode junction capacitance is not modelled (see the simulator)',
     'reported output is at the load terminal, after the series output resistor; the bleeder sits at the ladder top',
   ],
   source:
@@ -88,6 +88,8 @@ interface Workspace {
   chargeH: number[];
   chargeL: number[];
   loadRate: number[];
+  /** Capacitor voltage change over the H→L swing per volt of drive peak-to-peak, from the node strays. */
+  strayDelta: number[];
   nodeLoadRate: number[];
   flow: number[];
   injection: number[];
@@ -122,7 +124,7 @@ function createWorkspace(net: LadderNetwork, input: LadderInput): Workspace {
     net, timing,
     deltaH: zeros(m), deltaL: zeros(m),
     chargeH: zeros(net.anchorScale.length), chargeL: zeros(net.anchorScale.length),
-    loadRate: zeros(m), nodeLoadRate: zeros(nodes),
+    loadRate: zeros(m), strayDelta: zeros(m), nodeLoadRate: zeros(nodes),
     flow: zeros(nodes), injection: zeros(nodes),
     stateA: zeros(m), stateB: zeros(m),
     nodeA: zeros(nodes), nodeB: zeros(nodes),
@@ -146,6 +148,14 @@ function createWorkspace(net: LadderNetwork, input: LadderInput): Workspace {
     }
     accumulateFlow(net, ws.injection, ws.flow, delta);
     for (let a = 0; a < charge.length; a += 1) charge[a] = Math.abs(ws.flow[a] as number);
+  }
+  // Strays: over H→L a node standing on a driven anchor of scale s moves by −s·Vpp, so its stray returns
+  // +Cs·s per volt of Vpp into the node (Everhart & Lorrain, Rev. Sci. Instrum. 24, 221 (1953), abstract read).
+  const strayF = input.strayCapacitanceF ?? 0;
+  if (strayF > 0) {
+    ws.injection.fill(0);
+    for (let n = net.anchorScale.length; n < nodes; n += 1) ws.injection[n] = strayF * (net.anchorScale[net.nodeRoot[n] as number] as number);
+    accumulateFlow(net, ws.injection, ws.flow, ws.strayDelta);
   }
   // Load: one ampere out of the output node into the return node.
   ws.injection.fill(0);
@@ -224,7 +234,8 @@ function solveCycle(ws: Workspace, currentA: number): SolvedCycle {
     const anode = net.diodeAnode[d] as number;
     const cathode = net.diodeCathode[d] as number;
     // b − a over the H→L interval: load discharge plus the L charge transfer.
-    const delta = currentA * timing.afterHS * (ws.loadRate[c] as number) + q * (ws.deltaL[c] as number);
+    const delta =
+      currentA * timing.afterHS * (ws.loadRate[c] as number) + q * (ws.deltaL[c] as number) + (timing.highV + timing.lowV) * (ws.strayDelta[c] as number);
     let a: number;
     let b: number;
     if (net.diodeEvent[d] === EVENT_H) {

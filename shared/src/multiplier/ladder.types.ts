@@ -26,6 +26,8 @@ export interface LadderInput {
   /** Total resistance of the bleeder string across the ladder top; null for none. */
   bleederOhm: number | null;
   seriesOutputResistanceOhm: number;
+  /** Stray capacitance of every ladder node to ground (default 0). */
+  strayCapacitanceF?: number;
   /** Largest current the source can deliver (an energy-limited driver); caps the switch-on surge estimate. */
   sourceCurrentLimitA?: number;
   /** Junction temperature for the thermal voltage; default 300 K. */
