@@ -3,7 +3,7 @@ import type { CurvePoint, LadderCurves, LadderInput, MethodInfo } from './ladder
 
 const CURVES_METHOD: MethodInfo = {
   methodId: 'charge-transfer-sweeps-v1',
-  summary: 'Regulation curve: the steady-state model solved at external load currents from zero to short circuit (bisection). Output vs stages: the same load on ladders of 1 to N stages.',
+  summary: 'Regulation curve: the steady-state model solved at external load currents from zero to short circuit (bisection), bleeder connected. Output vs stages: the design load on ladders of 1 to N stages.',
   assumptions: [
     'near short circuit the charge-transfer model leaves its range (diodes conduct for much of the cycle): the end of the curve is indicative',
     'extra stages repeat the top stage’s capacitors; fewer stages take the lowest ones',
@@ -27,7 +27,8 @@ function resizeCapacitors(input: LadderInput, stages: number): number[] {
  * Outputs in volts (unsigned magnitude of the ladder polarity), currents in amperes.
  */
 export function ladderCurves(input: LadderInput, points = 21): LadderCurves {
-  const prepared = prepareLadder(input);
+  // The regulation curve sweeps the external load from zero; the bleeder stays connected.
+  const prepared = prepareLadder({ ...input, load: null });
   const v0 = terminalMeanAt(prepared, 0);
   // Bracket the short-circuit current, then bisect.
   let high = 1e-9;
@@ -66,8 +67,8 @@ export function ladderCurves(input: LadderInput, points = 21): LadderCurves {
       if (stages >= minStages && v < 0.9 * optimumOutputV) break;
     }
   } else {
-    optimumOutputV = v0;
-    outputVsStages.push({ x: 1, y: v0 });
+    optimumOutputV = terminalMeanAt(prepareLadder(input), 0);
+    outputVsStages.push({ x: 1, y: optimumOutputV });
   }
   return { regulation, shortCircuitCurrentA, outputVsStages, optimumStages, optimumOutputV, method: CURVES_METHOD };
 }
