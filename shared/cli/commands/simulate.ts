@@ -3,25 +3,7 @@ import { validateDesign } from '../../src/designs/validate-design';
 import { DomainError } from '../../src/errors';
 import { ladderSpecFromDesign, type LadderCircuitSpec } from '../../src/sim/build-circuit';
 import { runLadder } from '../../src/sim/design-runs';
-
-/** Reads `--name value` pairs and bare `--flag`s. */
-function readFlags(argv: ReadonlyArray<string>): { positional: string[]; flags: Map<string, string | true> } {
-  const positional: string[] = [];
-  const flags = new Map<string, string | true>();
-  for (let i = 0; i < argv.length; i++) {
-    const a = argv[i]!;
-    if (!a.startsWith('--')) {
-      positional.push(a);
-      continue;
-    }
-    const next = argv[i + 1];
-    if (next !== undefined && !next.startsWith('--')) {
-      flags.set(a.slice(2), next);
-      i++;
-    } else flags.set(a.slice(2), true);
-  }
-  return { positional, flags };
-}
+import { ladderInputFromFlags, parseArguments, quantityFlag } from '../ladder-flags';
 
 function numberFlag(flags: Map<string, string | true>, name: string): number | undefined {
   const v = flags.get(name);
@@ -31,51 +13,33 @@ function numberFlag(flags: Map<string, string | true>, name: string): number | u
   return n;
 }
 
-/**
- * Bare-ladder flags, the same set as `ladderwright ladder` (to be replaced by the shared parser in
- * cli/ladder-flags.ts once it exists): --topology --stages|--cells --peak --freq --cap|--caps [--rs]
- * [--load-current|--load-r] [--diode-is --diode-n --diode-rs] [--bleeder].
- */
-export function ladderSpecFromFlags(flags: Map<string, string | true>): LadderCircuitSpec {
-  const topologyFlag = String(flags.get('topology') ?? 'half-wave');
-  const topology = topologyFlag === 'bridge' ? 'bridge-doubler' : topologyFlag;
-  if (topology !== 'half-wave' && topology !== 'full-wave' && topology !== 'bridge-doubler') {
-    throw new DomainError('invalid_argument', 'topology is half-wave, full-wave or bridge', 'topology');
-  }
-  const stages = numberFlag(flags, 'stages');
-  const cellCount = topology === 'bridge-doubler' ? 2 : (numberFlag(flags, 'cells') ?? (stages !== undefined ? (topology === 'full-wave' ? stages : 2 * stages) : 2));
-  const capCount = topology === 'full-wave' ? 3 * cellCount : topology === 'bridge-doubler' ? 2 : cellCount;
-  const capsText = flags.get('caps');
-  const capacitorsF =
-    typeof capsText === 'string' ? capsText.split(',').map(Number) : Array<number>(capCount).fill(numberFlag(flags, 'cap') ?? 10e-9);
-  const peakV = numberFlag(flags, 'peak');
-  const frequencyHz = numberFlag(flags, 'freq');
-  if (peakV === undefined || frequencyHz === undefined) throw new DomainError('invalid_argument', '--peak and --freq are required', 'peak');
-  const loadCurrent = numberFlag(flags, 'load-current');
-  const loadR = numberFlag(flags, 'load-r');
-  return {
-    topology,
-    cellCount,
-    capacitorsF,
-    diode: {
-      saturationCurrentA: numberFlag(flags, 'diode-is') ?? 1e-9,
-      emissionCoefficient: numberFlag(flags, 'diode-n') ?? 1.8,
-      seriesResistanceOhm: numberFlag(flags, 'diode-rs') ?? 1,
-    },
-    drive: { kind: 'sine', peakV, frequencyHz, sourceResistanceOhm: numberFlag(flags, 'rs') ?? 0 },
-    bleederOhm: numberFlag(flags, 'bleeder') ?? null,
-    load: loadCurrent !== undefined ? { kind: 'current', currentA: loadCurrent } : loadR !== undefined ? { kind: 'resistance', resistanceOhm: loadR } : null,
+/** The simulator's ladder spec of the bare-ladder flags (cli/ladder-flags.ts, shared with `ladder`). */
+export function ladderSpecFromFlags(flags: Map<string, string | true>): { spec: LadderCircuitSpec; safeVoltageV: number | undefined } {
+  const { input, safeVoltageV } = ladderInputFromFlags(flags);
+  const count = input.capacitorsF.length;
+  const spec: LadderCircuitSpec = {
+    topology: input.topology,
+    cellCount: input.topology === 'full-wave' ? count / 3 : count,
+    capacitorsF: input.capacitorsF,
+    diode: input.diode,
+    drive: input.drive,
+    isNegative: input.polarity < 0,
+    bleederOhm: input.bleederOhm,
+    seriesOutputResistanceOhm: input.seriesOutputResistanceOhm,
+    load: input.load,
   };
+  return { spec, safeVoltageV };
 }
 
 /** The ladder spec from `DESIGN.json` (first positional argument) or from bare-ladder flags, and the safe voltage. */
 export function ladderFromArguments(argv: ReadonlyArray<string>): { spec: LadderCircuitSpec; safeVoltageV: number; flags: Map<string, string | true> } {
-  const { positional, flags } = readFlags(argv);
+  const { positional, flags } = parseArguments(argv);
   if (positional[0]) {
     const design = validateDesign(JSON.parse(readFileSync(positional[0], 'utf8')));
-    return { spec: ladderSpecFromDesign(design), safeVoltageV: numberFlag(flags, 'safe-voltage') ?? design.targets.safeVoltageV, flags };
+    return { spec: ladderSpecFromDesign(design), safeVoltageV: quantityFlag(flags, 'safe-voltage', 'V') ?? design.targets.safeVoltageV, flags };
   }
-  return { spec: ladderSpecFromFlags(flags), safeVoltageV: numberFlag(flags, 'safe-voltage') ?? 50, flags };
+  const { spec, safeVoltageV } = ladderSpecFromFlags(flags);
+  return { spec, safeVoltageV: safeVoltageV ?? 50, flags };
 }
 
 /**
