@@ -17,6 +17,16 @@ export interface AppEnv {
   readonly seedDemo: boolean;
   readonly smtpHost: string | null;
   readonly smtpPort: number | null;
+  /** Runs the fake SMTP listener (smtp-server) in-process on smtpHost:smtpPort and stores what it receives (local runs). */
+  readonly smtpFake: boolean;
+  /** Sender address of notification mail. */
+  readonly mailFrom: string;
+  /** First retry delay of a failed delivery; doubles per attempt up to 10 minutes. */
+  readonly mailRetryBaseMs: number;
+  /** How often the mail sender looks for due mail. */
+  readonly mailPollMs: number;
+  /** The address users open the app at, for links in mail. */
+  readonly publicUrl: string;
   readonly dataDir: string;
   /** Worker threads this instance runs simulation jobs on; 0 = this instance only queues them. */
   readonly simulationWorkers: number;
@@ -91,6 +101,7 @@ export function parseEnv(source: EnvSource): AppEnv {
     problems.push(`JWT_SECRET is required and must be at least ${JWT_SECRET_MIN_LENGTH} characters`);
   }
 
+  const smtpFake = bool('SMTP_FAKE', false);
   const env: AppEnv = {
     port: integer('PORT', 8080, 1, 65535) ?? 8080,
     host,
@@ -103,8 +114,13 @@ export function parseEnv(source: EnvSource): AppEnv {
     bodyLimitBytes: integer('BODY_LIMIT_BYTES', 1024 * 1024, 1024, 64 * 1024 * 1024) ?? 1024 * 1024,
     clientDistDir: dir('CLIENT_DIST_DIR', '../client/dist'),
     seedDemo: bool('SEED_DEMO', false),
-    smtpHost: text('SMTP_HOST') ?? null,
-    smtpPort: integer('SMTP_PORT', null, 1, 65535),
+    smtpHost: text('SMTP_HOST') ?? (smtpFake ? '127.0.0.1' : null),
+    smtpPort: integer('SMTP_PORT', smtpFake ? 2525 : null, 1, 65535),
+    smtpFake,
+    mailFrom: text('MAIL_FROM') ?? 'Ladderwright <ladderwright@northfold.test>',
+    mailRetryBaseMs: integer('MAIL_RETRY_BASE_MS', 5_000, 10, 3_600_000) ?? 5_000,
+    mailPollMs: integer('MAIL_POLL_MS', 2_000, 10, 600_000) ?? 2_000,
+    publicUrl: (text('PUBLIC_URL') ?? `http://${host}:${text('PORT') ?? '8080'}`).replace(/\/+$/, ''),
     dataDir: dir('DATA_DIR', '../.data'),
     simulationWorkers: integer('SIMULATION_WORKERS', 1, 0, 2) ?? 1,
     simulationFaultKinds: text('NODE_ENV') === 'test',

@@ -11,9 +11,20 @@ import { ProjectMemberModel } from '../projects/project-member.model';
 import { ProjectModel } from '../projects/project.model';
 import { SimulationJobModel } from '../simulations/simulation-job.model';
 import { RevisionModel } from '../revisions/revision.model';
+import { CapturedMailModel } from '../mail/captured-mail.model';
+import { MailQueueModel } from '../mail/mail-queue.model';
+import { ReviewCommentModel } from '../reviews/review-comment.model';
+import { RevisionReviewerModel } from '../reviews/revision-reviewer.model';
+import { RevisionTransitionModel } from '../reviews/revision-transition.model';
 import { UserModel } from '../users/user.model';
 
-export const ALL_MODELS = [UserModel, ProjectModel, ProjectMemberModel, DesignModel, RevisionModel, PartModel, BenchRunModel, BenchRunFileModel, BenchRunEventModel, AuditEntryModel, SimulationJobModel];
+export const ALL_MODELS = [
+  MailQueueModel,
+  CapturedMailModel,
+  RevisionReviewerModel,
+  RevisionTransitionModel,
+  ReviewCommentModel,
+  UserModel, ProjectModel, ProjectMemberModel, DesignModel, RevisionModel, PartModel, BenchRunModel, BenchRunFileModel, BenchRunEventModel, AuditEntryModel, SimulationJobModel];
 
 /**
  * The one Sequelize connection. Models are registered explicitly; the schema comes only from

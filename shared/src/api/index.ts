@@ -37,6 +37,22 @@ export type {
   DesignTemplate,
 } from './designs.types';
 export type {
+  SignOffPerson,
+  SignOffTransition,
+  SignOffApproval,
+  SignOff,
+  SubmitRevisionRequest,
+  SignOffNoteRequest,
+  CommentAnchor,
+  ReviewComment,
+  CreateCommentRequest,
+  UpdateCommentRequest,
+  InboxItem,
+  Inbox,
+  OutboxMail,
+  Outbox,
+} from './reviews.types';
+export type {
   PartKind,
   Part,
   PartInput,

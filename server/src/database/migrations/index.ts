@@ -4,6 +4,7 @@ import { designsAndRevisions } from './0002-designs-and-revisions';
 import { partsAndBenchRuns } from './0005-parts-and-bench-runs';
 import { auditLog } from './0006-audit-log';
 import { simulationJobs } from './0003-simulation-jobs';
+import { signOffAndMail } from './0004-sign-off-and-mail';
 
 /** Every schema step in order. Add new steps at the end. */
-export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [usersAndProjects, designsAndRevisions, partsAndBenchRuns, auditLog, simulationJobs];
+export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [usersAndProjects, designsAndRevisions, partsAndBenchRuns, auditLog, simulationJobs, signOffAndMail];

@@ -1,0 +1,36 @@
+import { Inject, Injectable, Logger, type OnApplicationBootstrap, type OnApplicationShutdown } from '@nestjs/common';
+import { InjectModel } from '@nestjs/sequelize';
+import { APP_ENV, type AppEnv } from '../config/env';
+import { CapturedMailModel } from './captured-mail.model';
+import { type FakeSmtpServer, startFakeSmtpServer } from './fake-smtp-server';
+
+/**
+ * With SMTP_FAKE=1 (npm start, browser journeys) the server itself listens for SMTP on loopback in place
+ * of a hosted mail service and stores every message it receives in `captured_mails` for the Outbox.
+ */
+@Injectable()
+export class FakeSmtpService implements OnApplicationBootstrap, OnApplicationShutdown {
+  private readonly logger = new Logger('FakeSmtp');
+  private server: FakeSmtpServer | null = null;
+
+  constructor(
+    @Inject(APP_ENV) private readonly env: AppEnv,
+    @InjectModel(CapturedMailModel) private readonly captured: typeof CapturedMailModel,
+  ) {}
+
+  async onApplicationBootstrap(): Promise<void> {
+    if (!this.env.smtpFake || !this.env.smtpHost || !this.env.smtpPort) return;
+    this.server = await startFakeSmtpServer({
+      host: this.env.smtpHost,
+      port: this.env.smtpPort,
+      onMessage: async (mail) => {
+        await this.captured.create(mail);
+      },
+    });
+    this.logger.log(`fake SMTP listening on ${this.env.smtpHost}:${this.server.port} (mail goes to the Outbox)`);
+  }
+
+  async onApplicationShutdown(): Promise<void> {
+    await this.server?.close();
+  }
+}

@@ -1,0 +1,284 @@
+import { Inject, Injectable } from '@nestjs/common';
+import { InjectModel } from '@nestjs/sequelize';
+import { Op, type Transaction } from 'sequelize';
+import { Sequelize } from 'sequelize-typescript';
+import type { CurrentUser, SignOff, SignOffPerson } from '@ladderwright/shared/api';
+import type { ProjectRole } from '@ladderwright/shared/auth';
+import { DomainError } from '@ladderwright/shared/errors';
+import { applyTransition, availableCommands, type RevisionCommand } from '@ladderwright/shared/reviews';
+import type { ProjectMembership } from '../common/request.types';
+import { APP_ENV, type AppEnv } from '../config/env';
+import type { DesignModel } from '../designs/design.model';
+import { MailService, type OutgoingMail } from '../mail/mail.service';
+import { ProjectMemberModel } from '../projects/project-member.model';
+import { RevisionModel } from '../revisions/revision.model';
+import { RevisionsService } from '../revisions/revisions.service';
+import { UserModel } from '../users/user.model';
+import { RevisionReviewerModel } from './revision-reviewer.model';
+import { RevisionTransitionModel } from './revision-transition.model';
+import { type MailSubject, transitionMail } from './sign-off-mail';
+
+/** The revision a Sign-off route names, with its design; loaded under the design row lock in a transaction. */
+export interface RevisionInContext {
+  design: DesignModel;
+  revision: RevisionModel;
+}
+
+export type UserCommand = Exclude<RevisionCommand, 'supersede'>;
+
+/** Parses a revision number from the route; anything but a positive integer is "no such revision". */
+function revisionNumberOf(raw: string): number | null {
+  return /^[1-9][0-9]{0,8}$/.test(raw) ? Number(raw) : null;
+}
+
+function personOf(member: ProjectMemberModel): SignOffPerson {
+  const user = member.user;
+  if (!user) throw new Error('member loaded without its user');
+  return { userId: user.id, displayName: user.displayName, email: user.email, projectRole: member.role };
+}
+
+const DECIDING_ROLES: readonly ProjectRole[] = ['reviewer', 'lead'];
+
+/**
+ * The Sign-off of a revision: its state moves only through `applyTransition` (shared/src/reviews); each move
+ * runs in one transaction with its audit entry and its notification mail, under the design row lock.
+ */
+@Injectable()
+export class SignOffService {
+  constructor(
+    @Inject(APP_ENV) private readonly env: AppEnv,
+    @InjectModel(RevisionModel) private readonly revisions: typeof RevisionModel,
+    @InjectModel(RevisionReviewerModel) private readonly reviewers: typeof RevisionReviewerModel,
+    @InjectModel(RevisionTransitionModel) private readonly transitions: typeof RevisionTransitionModel,
+    @InjectModel(ProjectMemberModel) private readonly members: typeof ProjectMemberModel,
+    private readonly revisionsService: RevisionsService,
+    private readonly mail: MailService,
+    private readonly sequelize: Sequelize,
+  ) {}
+
+  /** The design and revision of the route (404 naming the field when either is not in this project); with a transaction, under the design row lock. */
+  async load(
+    projectId: string,
+    designId: string,
+    rawNumber: string,
+    transaction?: Transaction,
+  ): Promise<RevisionInContext> {
+    const design = await this.revisionsService.findDesign(projectId, designId, transaction);
+    const number = revisionNumberOf(rawNumber);
+    const revision =
+      number === null
+        ? null
+        : await this.revisions.findOne({
+            where: { designId: design.id, number },
+            include: [UserModel],
+            // The design row lock (findDesign) serializes every Sign-off change of the design.
+            transaction,
+          });
+    if (!revision) throw new DomainError('not_found', `Revision ${rawNumber} not found`, 'revisionNumber');
+    return { design, revision };
+  }
+
+  mailSubject(projectId: string, design: DesignModel, revisionNumber: number): MailSubject {
+    const url = `${this.env.publicUrl}/projects/${projectId}/designs/${design.id}/revisions/${revisionNumber}/sign-off`;
+    return { designName: design.name, revisionNumber, url };
+  }
+
+  async get(
+    projectId: string,
+    designId: string,
+    rawNumber: string,
+    user: CurrentUser,
+    membership: ProjectMembership,
+  ): Promise<SignOff> {
+    const { design, revision } = await this.load(projectId, designId, rawNumber);
+    const [assigned, members, history] = await Promise.all([
+      this.reviewers.findAll({ where: { revisionId: revision.id } }),
+      this.members.findAll({ where: { projectId }, include: [UserModel] }),
+      this.transitions.findAll({
+        where: { revisionId: revision.id },
+        include: [UserModel],
+        order: [['createdAt', 'ASC']],
+      }),
+    ]);
+    const assignedIds = new Set(assigned.map((row) => row.userId));
+    const isAuthor = revision.authorId === user.id;
+    const mayDecide = membership.role === 'lead' || assignedIds.has(user.id);
+    const commands = availableCommands(revision.state, membership.role, isAuthor).filter(
+      (command) => mayDecide || (command !== 'approve' && command !== 'return'),
+    );
+    const author = revision.author;
+    return {
+      projectId,
+      designId: design.id,
+      designName: design.name,
+      revisionNumber: revision.number,
+      state: revision.state,
+      authorId: revision.authorId,
+      authorName: author?.displayName ?? '',
+      reviewers: members.filter((member) => assignedIds.has(member.userId)).map(personOf),
+      candidateReviewers: members
+        .filter((member) => DECIDING_ROLES.includes(member.role) && member.userId !== revision.authorId)
+        .map(personOf),
+      availableCommands: commands,
+      approvals: history
+        .filter((entry) => entry.command === 'approve')
+        .map((entry) => ({
+          userId: entry.actorId ?? '',
+          displayName: entry.actor?.displayName ?? '',
+          note: entry.note,
+          at: entry.createdAt.toISOString(),
+        })),
+      history: history.map((entry) => ({
+        id: entry.id,
+        command: entry.command,
+        fromState: entry.fromState,
+        toState: entry.toState,
+        actorId: entry.actorId,
+        actorName: entry.actor?.displayName ?? null,
+        note: entry.note,
+        at: entry.createdAt.toISOString(),
+      })),
+    };
+  }
+
+  /**
+   * Runs one Sign-off command. Illegal for the state, the role or the actor: 409 with the reason from
+   * shared/src/reviews (nothing written). Submit names the reviewers; approve and return are for the
+   * reviewers it was submitted to (or a lead); release supersedes the design's previously released revision.
+   */
+  async transition(input: {
+    command: UserCommand;
+    projectId: string;
+    designId: string;
+    rawNumber: string;
+    user: CurrentUser;
+    membership: ProjectMembership;
+    note?: string;
+    reviewerIds?: string[];
+  }): Promise<SignOff> {
+    const note = (input.note ?? '').trim();
+    if (input.command === 'return' && !note) {
+      throw new DomainError('invalid_argument', 'note is required to return a revision', 'note');
+    }
+    await this.sequelize.transaction(async (transaction) => {
+      const { design, revision } = await this.load(input.projectId, input.designId, input.rawNumber, transaction);
+      const from = revision.state;
+      const to = applyTransition({
+        command: input.command,
+        from,
+        actorRole: input.membership.role,
+        isAuthor: revision.authorId === input.user.id,
+        note,
+      });
+      const members = await this.members.findAll({
+        where: { projectId: input.projectId },
+        include: [UserModel],
+        transaction,
+      });
+      let assigned = (await this.reviewers.findAll({ where: { revisionId: revision.id }, transaction })).map(
+        (row) => row.userId,
+      );
+
+      if (input.command === 'submit') {
+        assigned = this.checkReviewers(input.reviewerIds ?? [], members, revision.authorId);
+        await this.reviewers.destroy({ where: { revisionId: revision.id }, transaction });
+        await this.reviewers.bulkCreate(
+          assigned.map((userId) => ({ revisionId: revision.id, userId })),
+          { transaction },
+        );
+      }
+      if ((input.command === 'approve' || input.command === 'return') && input.membership.role !== 'lead') {
+        if (!assigned.includes(input.user.id)) {
+          throw new DomainError(
+            'forbidden',
+            'This revision was submitted to other reviewers; only they or a lead may decide it',
+          );
+        }
+      }
+
+      await revision.update({ state: to }, { transaction });
+      await this.transitions.create(
+        { revisionId: revision.id, command: input.command, fromState: from, toState: to, actorId: input.user.id, note },
+        { transaction },
+      );
+      const superseded =
+        input.command === 'release' ? await this.supersedeOthers(revision, input.user.id, transaction) : null;
+
+      const emailOf = (userId: string) => members.find((member) => member.userId === userId)?.user?.email;
+      const emails = (ids: string[]) => ids.filter((id) => id !== input.user.id).flatMap((id) => emailOf(id) ?? []);
+      const leads = members.filter((member) => member.role === 'lead').map((member) => member.userId);
+      const recipients: Record<UserCommand, string[]> = {
+        submit: emails(assigned),
+        withdraw: emails(assigned),
+        approve: [...emails([revision.authorId]), ...emails(leads)],
+        return: emails([revision.authorId]),
+        release: [...emails([revision.authorId]), ...emails(assigned)],
+      };
+      const mails: OutgoingMail[] = [
+        transitionMail({
+          command: input.command,
+          about: this.mailSubject(input.projectId, design, revision.number),
+          actorName: input.user.displayName,
+          note,
+          recipients: recipients[input.command],
+          supersededNumber: superseded,
+        }),
+      ];
+      await this.mail.enqueue(mails, transaction);
+    });
+    this.mail.kick();
+    return this.get(input.projectId, input.designId, input.rawNumber, input.user, input.membership);
+  }
+
+  /** Every reviewer id must be a project member with the reviewer or lead role, and not the author. */
+  private checkReviewers(ids: string[], members: ProjectMemberModel[], authorId: string): string[] {
+    ids.forEach((id, index) => {
+      const field = `reviewerIds[${index}]`;
+      const member = members.find((candidate) => candidate.userId === id);
+      if (!member) throw new DomainError('invalid_argument', `${field} is not a member of this project`, field);
+      if (!DECIDING_ROLES.includes(member.role)) {
+        throw new DomainError(
+          'invalid_argument',
+          `${field} is a ${member.role}; reviewers must have the reviewer or lead role`,
+          field,
+        );
+      }
+      if (id === authorId)
+        throw new DomainError(
+          'invalid_argument',
+          `${field} is the author, who cannot review their own revision`,
+          field,
+        );
+    });
+    return [...new Set(ids)];
+  }
+
+  /** Marks the design's other released revision superseded (at most one); returns its number. */
+  private async supersedeOthers(
+    released: RevisionModel,
+    actorId: string,
+    transaction: Transaction,
+  ): Promise<number | null> {
+    const previous = await this.revisions.findAll({
+      where: { designId: released.designId, state: 'released', id: { [Op.ne]: released.id } },
+      transaction,
+      lock: transaction.LOCK.UPDATE,
+    });
+    for (const old of previous) {
+      const to = applyTransition({ command: 'supersede', from: old.state, actorRole: 'system', isAuthor: false });
+      await old.update({ state: to }, { transaction });
+      await this.transitions.create(
+        {
+          revisionId: old.id,
+          command: 'supersede',
+          fromState: 'released',
+          toState: to,
+          actorId,
+          note: `Superseded by revision ${released.number}`,
+        },
+        { transaction },
+      );
+    }
+    return previous[0]?.number ?? null;
+  }
+}

@@ -1,0 +1,135 @@
+import type { ProjectRole } from '../auth';
+import type { RevisionCommand, RevisionState } from '../reviews';
+
+/** A project member a revision can be submitted to (reviewer or lead), or is submitted to. */
+export interface SignOffPerson {
+  userId: string;
+  displayName: string;
+  email: string;
+  projectRole: ProjectRole;
+}
+
+/** One audit entry of the Sign-off: who moved the revision, when, from which state to which, and why. */
+export interface SignOffTransition {
+  id: string;
+  command: RevisionCommand;
+  fromState: RevisionState;
+  toState: RevisionState;
+  /** null for the entry written for the superseded revision when a newer one is released by someone else. */
+  actorId: string | null;
+  actorName: string | null;
+  note: string;
+  /** ISO 8601. */
+  at: string;
+}
+
+/** An approval as the spec sheet and the Sign-off panel show it. */
+export interface SignOffApproval {
+  userId: string;
+  displayName: string;
+  note: string;
+  at: string;
+}
+
+/** GET .../revisions/:revisionNumber/sign-off: the state, who it waits for, and what the caller may do next. */
+export interface SignOff {
+  projectId: string;
+  designId: string;
+  designName: string;
+  revisionNumber: number;
+  state: RevisionState;
+  authorId: string;
+  authorName: string;
+  /** The members the revision is (or was last) submitted to. */
+  reviewers: SignOffPerson[];
+  /** Members who may be chosen as reviewers on submit (reviewers and leads other than the author). */
+  candidateReviewers: SignOffPerson[];
+  /** What the caller may do from here (for showing only the buttons that apply). */
+  availableCommands: RevisionCommand[];
+  approvals: SignOffApproval[];
+  history: SignOffTransition[];
+}
+
+/** POST .../submit. */
+export interface SubmitRevisionRequest {
+  /** One or more project members with the reviewer or lead role, not the author. */
+  reviewerIds: string[];
+  note?: string;
+}
+
+/** POST .../withdraw, .../approve, .../release (note optional) and .../return (note required). */
+export interface SignOffNoteRequest {
+  note?: string;
+}
+
+/** Where a comment thread points: an input field path of the document or a result key of the report. */
+export interface CommentAnchor {
+  kind: 'input' | 'result';
+  /** e.g. `multiplier.capacitors[2].valueF` (input) or `ripplePeakToPeakV` (result). */
+  path: string;
+}
+
+/** One comment with its replies (threads are one level deep: replies to a reply join its thread). */
+export interface ReviewComment {
+  id: string;
+  parentId: string | null;
+  authorId: string;
+  authorName: string;
+  body: string;
+  anchor: CommentAnchor | null;
+  isResolved: boolean;
+  resolvedByName: string | null;
+  resolvedAt: string | null;
+  createdAt: string;
+  replies: ReviewComment[];
+}
+
+/** POST .../comments. `anchor` only on a thread's first comment; `parentId` for a reply. */
+export interface CreateCommentRequest {
+  body: string;
+  parentId?: string;
+  anchor?: CommentAnchor;
+}
+
+/** PATCH .../comments/:commentId: resolve or reopen a thread. */
+export interface UpdateCommentRequest {
+  isResolved: boolean;
+}
+
+/** One row of the Inbox. */
+export interface InboxItem {
+  projectId: string;
+  projectName: string;
+  designId: string;
+  designName: string;
+  revisionNumber: number;
+  state: RevisionState;
+  authorName: string;
+  reviewerNames: string[];
+  /** ISO 8601: the latest submission, or null when never submitted. */
+  submittedAt: string | null;
+  /** ISO 8601: the latest Sign-off change. */
+  updatedAt: string;
+}
+
+/** GET /api/inbox: revisions submitted to me and waiting, and revisions I submitted (any state since). */
+export interface Inbox {
+  waitingForMe: InboxItem[];
+  submittedByMe: InboxItem[];
+}
+
+/** One mail the local fake SMTP server captured. */
+export interface OutboxMail {
+  id: string;
+  from: string;
+  to: string[];
+  subject: string;
+  text: string;
+  receivedAt: string;
+}
+
+/** GET /api/outbox (admin): captured mail, newest first, and the delivery queue's state. */
+export interface Outbox {
+  mails: OutboxMail[];
+  queue: { pending: number; failed: number };
+}
