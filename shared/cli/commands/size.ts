@@ -13,6 +13,13 @@ function required(value: number | undefined, name: string): number {
   return value;
 }
 
+function countFlag(value: string | true | undefined): number {
+  if (value === undefined) return 10;
+  const n = Number(value);
+  if (value === true || !Number.isInteger(n) || n < 1) throw new DomainError('invalid_argument', '--count needs an integer ≥ 1', 'count');
+  return n;
+}
+
 /** `ladderwright size ...`: ranked candidate ladders from the Sizer. */
 export function sizeCommand(argv: ReadonlyArray<string>): string {
   const { flags } = parseArguments(argv);
@@ -43,7 +50,7 @@ export function sizeCommand(argv: ReadonlyArray<string>): string {
     ...(topologies ? { topologies } : {}),
     ...(series !== undefined ? { series: series as ESeriesName } : {}),
     ...(safeVoltageV !== undefined ? { safeVoltageV } : {}),
-    resultCount: Number(flags.get('count') ?? 10),
+    resultCount: countFlag(flags.get('count')),
   });
   if (!flags.has('text')) return JSON.stringify(result, null, 2);
   const lines = [`Sizer: ${result.evaluatedCount} candidates evaluated, ${result.meetingSpecCount} meet the spec`];

@@ -2,11 +2,11 @@ import { DomainError } from '../errors';
 import type { Design, DischargeRule, PulseDrive, SineDrive } from '../designs/design.types';
 import { estimateBlockingOscillator } from '../driver/blocking-oscillator';
 import type { MethodInfo } from '../driver/driver.types';
-import { dischargeCheck, trappedChargeCheck } from '../safety/discharge';
+import { DISCHARGE_METHOD, dischargeCheck, trappedChargeCheck } from '../safety/discharge';
 import { creepageChecks, stageSpacing } from '../safety/creepage';
 import type { StageSpacing } from '../safety/creepage';
 import { HV_CAUTION, upperLimitVerdict } from '../safety/hazard-limits';
-import { storedEnergy, storedEnergyChecks } from '../safety/stored-energy';
+import { STORED_ENERGY_METHOD, storedEnergy, storedEnergyChecks } from '../safety/stored-energy';
 import type { StoredEnergySummary } from '../safety/stored-energy';
 import type { CheckVerdict } from '../safety/check.types';
 import { analyzeLadder } from './analyze-ladder';
@@ -92,7 +92,13 @@ export function analyzeLadderReport(input: LadderInput, options: LadderReportOpt
     curves,
     storedEnergy: energy,
     checks,
-    methods: [analysis.method, analysis.textbook.method, curves.method],
+    methods: [
+      analysis.method,
+      analysis.textbook.method,
+      curves.method,
+      STORED_ENERGY_METHOD,
+      ...(options.safeVoltageV !== undefined ? [DISCHARGE_METHOD] : []),
+    ],
     caution: HV_CAUTION,
   };
 }

@@ -410,16 +410,6 @@ export function analyzePrepared(prepared: PreparedLadder, options: { operatingPo
   const seriesDropV = loadA * seriesOhm;
 
   // Output impedance of the ladder alone (central difference in ladder current), plus the series resistor.
-  let ladderImpedance = NaN;
-  if (full) {
-    const stepA = Math.max(ladderCurrentA * 1e-3, 1e-9);
-    const lowI = Math.max(ladderCurrentA - stepA, 0);
-    const highI = ladderCurrentA + stepA;
-    ladderImpedance = (solveCycle(ws, lowI).meanV - solveCycle(ws, highI).meanV) / (highI - lowI);
-    // Restore the operating-point state (the capacitor and diode figures below read it).
-    solveCycle(ws, ladderCurrentA);
-  }
-
   const capacitors: CapacitorStress[] = [];
   const m = net.capF.length;
   for (let c = 0; c < m; c += 1) {
@@ -473,6 +463,15 @@ export function analyzePrepared(prepared: PreparedLadder, options: { operatingPo
       surgeCurrentA: surgeA,
       forwardDropV: isH ? cycle.forwardDropHV : cycle.forwardDropLV,
     });
+  }
+
+  // After the stress figures: these solves overwrite the operating-point state.
+  let ladderImpedance = NaN;
+  if (full) {
+    const stepA = Math.max(ladderCurrentA * 1e-3, 1e-9);
+    const lowI = Math.max(ladderCurrentA - stepA, 0);
+    const highI = ladderCurrentA + stepA;
+    ladderImpedance = (solveCycle(ws, lowI).meanV - solveCycle(ws, highI).meanV) / (highI - lowI);
   }
 
   const terminalMeanV = cycle.meanV - seriesDropV;

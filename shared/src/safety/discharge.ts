@@ -2,6 +2,18 @@ import { DomainError } from '../errors';
 import type { DischargeRule } from '../designs/design.types';
 import { HV_CAUTION, upperLimitVerdict } from './hazard-limits';
 import type { CheckVerdict } from './check.types';
+import type { MethodInfo } from '../driver/driver.types';
+
+export const DISCHARGE_METHOD: MethodInfo = {
+  methodId: 'bleeder-rc-v1',
+  summary: 'Bleeder discharge V(t) = V0·e^(−t/RC), t = RC·ln(V0/V_end), with the energy-equivalent capacitance at the output; compared with the selected rule.',
+  assumptions: [
+    'the oscillating column drains through the diodes into the smoothing column and the bleeder as the output falls',
+    'diode forward drops and leakage neglected; the bleeder is the only discharge path',
+    'verdict marginal when the time uses more than 80 % of the allowance',
+  ],
+  source: 'REFERENCES.md §4 (NFPA 70 Art. 460.6, NFPA 79 6.5.1 read; NEC 460.28 from memory)',
+};
 
 /** A discharge rule as voltage and time, with where it comes from (REFERENCES.md §4). */
 export function dischargeRuleLimits(rule: DischargeRule): { voltageV: number; timeS: number; text: string; exemptBelowChargeC: number | null } {

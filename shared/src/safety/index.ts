@@ -1,8 +1,8 @@
 export { HV_CAUTION, SAFETY_MARGINAL_BELOW_PCT, storedChargeLimit, upperLimitVerdict, lowerLimitVerdict, deratedVerdict } from './hazard-limits';
 export type { HazardStandard } from './hazard-limits';
-export { storedEnergy, storedEnergyChecks } from './stored-energy';
+export { storedEnergy, storedEnergyChecks, STORED_ENERGY_METHOD } from './stored-energy';
 export type { StoredEnergyItem, StoredEnergySummary } from './stored-energy';
-export { dischargeRuleLimits, dischargeTimeS, dischargeCheck, trappedChargeCheck } from './discharge';
+export { dischargeRuleLimits, dischargeTimeS, dischargeCheck, trappedChargeCheck, DISCHARGE_METHOD } from './discharge';
 export type { DischargeInput, TrappedChargeInput } from './discharge';
 export {
   CREEPAGE_TABLE_F4_MM,

@@ -1,6 +1,7 @@
 import { storedChargeLimit, upperLimitVerdict } from './hazard-limits';
 import type { HazardStandard } from './hazard-limits';
 import type { CheckVerdict } from './check.types';
+import type { MethodInfo } from '../driver/driver.types';
 
 export interface StoredEnergyItem {
   index: number;
@@ -9,6 +10,16 @@ export interface StoredEnergyItem {
   energyJ: number;
   chargeC: number;
 }
+
+export const STORED_ENERGY_METHOD: MethodInfo = {
+  methodId: 'stored-energy-v1',
+  summary: 'Energy ½CV² and charge CV of each capacitor at its largest operating voltage; at the output, all stored energy as deliverable (energy-equivalent capacitance 2E/V²), compared with the IEC 61010-1 and IEC 60335-1 limits.',
+  assumptions: [
+    'the diodes conduct forward while the ladder discharges through its output, so the oscillating column’s energy also reaches the output (conservative)',
+    'limits: IEC 61010-1 from memory, IEC 60335-1 8.1.4 read (REFERENCES.md §4); verdicts marginal within 20 % of a limit',
+  ],
+  source: 'REFERENCES.md §4',
+};
 
 export interface StoredEnergySummary {
   capacitors: StoredEnergyItem[];
