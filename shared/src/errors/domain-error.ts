@@ -8,7 +8,8 @@ export type DomainErrorCode =
   | 'illegal_transition'
   | 'stale_base'
   | 'not_found'
-  | 'forbidden';
+  | 'forbidden'
+  | 'cancelled';
 
 /** One field-level problem: `path` is a dotted/indexed path into the input, e.g. `multiplier.capacitors[3].valueF`. */
 export interface FieldIssue {

@@ -1,4 +1,6 @@
 import { describe, expect, it } from 'vitest';
+import { isDomainError } from '../errors';
+import type { LadderCircuitSpec } from './build-circuit';
 import { runLadder } from './design-runs';
 
 describe('runLadder', () => {
@@ -28,5 +30,43 @@ describe('runLadder', () => {
     expect(result.outputMeanV).toBeGreaterThan(0.97 * 2000);
     expect(result.outputMeanV).toBeLessThan(2000);
     expect(result.timeToSteadyStateS).not.toBeNull();
+  });
+
+  const doubler: LadderCircuitSpec = {
+    topology: 'bridge-doubler',
+    cellCount: 2,
+    capacitorsF: [100e-9, 100e-9],
+    diode: { saturationCurrentA: 1e-9, emissionCoefficient: 1.8, seriesResistanceOhm: 1 },
+    drive: { kind: 'sine', peakV: 1000, frequencyHz: 10e3, sourceResistanceOhm: 10 },
+    bleederOhm: 10e6,
+    load: null,
+  };
+
+  it.each([
+    ['steady with discharge', { until: 'steady', maxStepPerPeriod: 50, dischargeToV: 50 }],
+    ['a fixed cycle count', { until: { cycles: 30 }, maxStepPerPeriod: 50 }],
+  ] as const)('reports non-decreasing progress ending at exactly 1 (%s)', (_name, options) => {
+    const fractions: number[] = [];
+    runLadder(doubler, { ...options, onProgress: (f) => fractions.push(f) });
+    expect(fractions[0]).toBe(0);
+    expect(fractions[fractions.length - 1]).toBe(1);
+    // Intermediate values exist: the start-up reports per cycle, not only at the phase ends.
+    expect(fractions.filter((f) => f > 0 && f < 1).length).toBeGreaterThan(3);
+    fractions.slice(1).forEach((f, i) => expect(f).toBeGreaterThanOrEqual(fractions[i]!));
+    // Bounded rate: each report but the forced phase ends rises by at least 1 %, so at most ~100 + 4 calls.
+    expect(fractions.length).toBeLessThanOrEqual(105);
+  });
+
+  it('stops with a cancelled DomainError once shouldCancel answers true', () => {
+    let checks = 0;
+    let caught: unknown = null;
+    try {
+      runLadder(doubler, { until: { cycles: 200 }, maxStepPerPeriod: 50, shouldCancel: () => ++checks > 500 });
+    } catch (error) {
+      caught = error;
+    }
+    expect(isDomainError(caught) && caught.code).toBe('cancelled');
+    // It stopped at the first check that answered true, well before the 200 cycles' ~10 000 steps.
+    expect(checks).toBe(501);
   });
 });

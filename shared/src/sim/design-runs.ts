@@ -1,3 +1,4 @@
+import { DomainError } from '../errors';
 import { buildLadderCircuit, capacitorName, LADDER_NODES, type LadderCircuitSpec } from './build-circuit';
 import { MnaSystem } from './mna-system';
 import { findPeriodicSteadyState } from './periodic-steady-state';
@@ -15,6 +16,13 @@ export interface LadderRunOptions {
   plotBuckets?: number;
   /** Give up the start-up transient after this many cycles. */
   maxCycles?: number;
+  /**
+   * Called with the run's completed fraction, 0..1, non-decreasing, at most about every 1 % and last with 1.
+   * The periodic steady state, the start-up and the discharge are weighted into the one fraction.
+   */
+  onProgress?: (fraction: number) => void;
+  /** Checked between time steps; when it answers true the run stops with a DomainError of code 'cancelled'. */
+  shouldCancel?: () => boolean;
 }
 
 export interface PlotTrace {
@@ -43,6 +51,29 @@ export interface LadderRunResult {
 
 const driveFrequencyHz = (spec: LadderCircuitSpec): number => spec.drive.frequencyHz;
 
+/** Smallest rise of the fraction that is reported (bounds the rate of `onProgress` calls). */
+const PROGRESS_STEP = 0.01;
+
+/** Phase weights of the overall fraction: the periodic solution, the start-up, the discharge. */
+function phaseWeights(options: LadderRunOptions): { pss: number; startUp: number; discharge: number } {
+  const pss = options.until === 'steady' ? 0.1 : 0;
+  const discharge = options.dischargeToV !== undefined ? 0.3 : 0;
+  return { pss, startUp: 1 - pss - discharge, discharge };
+}
+
+/** Wraps `onProgress`: clamps to 0..1, never goes back, reports a rise of at least PROGRESS_STEP (or a forced one). */
+function progressReporter(onProgress: ((fraction: number) => void) | undefined): (fraction: number, isForced?: boolean) => void {
+  let reported = -Infinity;
+  return (fraction, isForced = false) => {
+    if (!onProgress) return;
+    const f = Math.min(1, Math.max(reported, fraction, 0));
+    if (f >= reported + PROGRESS_STEP || (isForced && f > reported)) {
+      reported = f;
+      onProgress(f);
+    }
+  };
+}
+
 /**
  * Design-level runs of a ladder: start-up from empty capacitors to 90 % of the final output (transient),
  * the steady-state ripple waveform (periodic steady state by shooting when `until` is 'steady', else the
@@ -59,6 +90,13 @@ export function runLadder(spec: LadderCircuitSpec, options: LadderRunOptions): L
   const topIndex = system.probeIndex(LADDER_NODES.ladderTop);
   const sign = spec.isNegative ? -1 : 1;
   const capCount = spec.capacitorsF.length;
+  const weights = phaseWeights(options);
+  const report = progressReporter(options.onProgress);
+  const checkCancel = (): void => {
+    if (options.shouldCancel?.()) throw new DomainError('cancelled', 'The run was cancelled');
+  };
+  checkCancel();
+  report(0, true);
 
   // Periodic steady state first when asked for 'steady': it gives the final value the start-up aims at.
   let pss: ReturnType<typeof findPeriodicSteadyState> | null = null;
@@ -80,6 +118,8 @@ export function runLadder(spec: LadderCircuitSpec, options: LadderRunOptions): L
     }
   }
   const pssOk = pss !== null && pss.isConverged;
+  checkCancel();
+  report(weights.pss, true);
   const finalFromPss = pssOk ? windowMean(pss!.timeS, pss!.signals[LADDER_NODES.ladderTop]!, 0, periodS) : NaN;
 
   // Start-up transient from empty capacitors.
@@ -98,6 +138,7 @@ export function runLadder(spec: LadderCircuitSpec, options: LadderRunOptions): L
   while (cycles < maxCycles) {
     const end = (cycles + 1) * periodS;
     while (stepper.timeS < end * (1 - 1e-12)) {
+      checkCancel();
       stepper.step(end);
       const v = stepper.value(topIndex);
       area += ((v + prevV) / 2) * (stepper.timeS - prevT);
@@ -111,6 +152,9 @@ export function runLadder(spec: LadderCircuitSpec, options: LadderRunOptions): L
     area = 0;
     cycleMeans.push(mean);
     lastCycleStart = end - periodS;
+    // Start-up share: towards 90 % of the periodic solution when there is one, else the cycle budget.
+    const startUpShare = pssOk ? (sign * mean) / (0.9 * sign * finalFromPss) : cycles / maxCycles;
+    report(weights.pss + weights.startUp * Math.min(1, startUpShare));
     if (options.until === 'steady') {
       if (pssOk && reachedAtS === null && sign * mean >= 0.9 * sign * finalFromPss) reachedAtS = end;
       if (pssOk && reachedAtS !== null) break;
@@ -121,6 +165,7 @@ export function runLadder(spec: LadderCircuitSpec, options: LadderRunOptions): L
       }
     }
   }
+  report(weights.pss + weights.startUp, true);
   const finalMean = pssOk ? finalFromPss : cycleMeans[cycleMeans.length - 1]!;
   if (reachedAtS === null) {
     const target = 0.9 * finalMean;
@@ -156,9 +201,14 @@ export function runLadder(spec: LadderCircuitSpec, options: LadderRunOptions): L
     const safe = Math.abs(options.dischargeToV);
     let crossedS: number | null = null;
     const stopS = 50 * rcS;
+    // Discharge share: the fraction of ln(V0/Vsafe) covered, the decay of an RC (time otherwise).
+    const logSpan = Math.log(Math.abs(dv[0]!) / safe);
     while (dis.timeS < stopS) {
+      checkCancel();
       dis.step(stopS);
       const v = dis.value(offTop);
+      const share = logSpan > 0 && Math.abs(v) > 0 ? Math.log(Math.abs(dv[0]!) / Math.abs(v)) / logSpan : dis.timeS / stopS;
+      report(weights.pss + weights.startUp + weights.discharge * Math.min(1, share));
       dt.push(dis.timeS);
       dv.push(v);
       capIndex.forEach((k, i) => caps[i]!.push(dis.q0[k]! / spec.capacitorsF[i]!));
@@ -178,6 +228,7 @@ export function runLadder(spec: LadderCircuitSpec, options: LadderRunOptions): L
     discharge = { dischargeTimeS: crossedS, safeVoltageV: safe, capacitorVoltagesV, output: downsampleMinMax(dt, dv, buckets), trappedChargeC };
   }
 
+  report(1, true);
   return {
     method: pssOk ? 'periodic-steady-state' : 'transient',
     outputMeanV: finalMean,

@@ -22,6 +22,7 @@ const DOMAIN_STATUS: Record<DomainErrorCode, number> = {
   stale_base: HttpStatus.CONFLICT,
   not_found: HttpStatus.NOT_FOUND,
   forbidden: HttpStatus.FORBIDDEN,
+  cancelled: HttpStatus.CONFLICT,
 };
 
 const HTTP_CODES: Record<number, string> = {
