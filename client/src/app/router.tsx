@@ -44,6 +44,20 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
                 return { Component: ProjectDesignsRoute, loader: projectDesignsLoader(queryClient) };
               },
             },
+            {
+              path: paths.design.path,
+              lazy: async () => {
+                const { WorkbenchRoute, workbenchLoader } = await import('./routes/app/workbench');
+                return { Component: WorkbenchRoute, loader: workbenchLoader(queryClient) };
+              },
+            },
+            {
+              path: paths.sizer.path,
+              lazy: async () => {
+                const { SizerRoute, sizerLoader } = await import('./routes/app/sizer');
+                return { Component: SizerRoute, loader: sizerLoader(queryClient) };
+              },
+            },
           ],
         },
       ],

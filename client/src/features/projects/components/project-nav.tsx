@@ -47,6 +47,7 @@ export function ProjectNav({ projects, activeProjectId, isLoading }: ProjectNavP
                   pl="xl"
                 />
               )}
+              {isActive && <NavLink component={Link} to={paths.sizer.getHref(project.id)} label="Sizer" pl="xl" />}
             </div>
           );
         })}

@@ -1,0 +1,56 @@
+import { Alert, Anchor, Breadcrumbs, Stack, Text, Title } from '@mantine/core';
+import { useDocumentTitle } from '@mantine/hooks';
+import { useSuspenseQuery, type QueryClient } from '@tanstack/react-query';
+import { Link, useNavigate, useParams, type LoaderFunctionArgs } from 'react-router-dom';
+import { paths } from '../../../config/paths';
+import { useCreateDesign } from '../../../features/designs/api/create-design';
+import { getProjectQueryOptions } from '../../../features/projects/api/get-project';
+import { SizerPanel } from '../../../features/sizer/components/sizer-panel';
+import { requireUser } from './root';
+
+export function sizerLoader(queryClient: QueryClient) {
+  return async ({ params, request }: LoaderFunctionArgs) => {
+    await requireUser(queryClient, request);
+    await queryClient.ensureQueryData(getProjectQueryOptions(params.projectId ?? ''));
+    return null;
+  };
+}
+
+/** The Sizer of a project: ranked ladders for a target, each one click from a new design. */
+export function SizerRoute() {
+  const { projectId = '' } = useParams();
+  const { data: project } = useSuspenseQuery(getProjectQueryOptions(projectId));
+  useDocumentTitle(`${project.name} · Sizer · Ladderwright`);
+  const navigate = useNavigate();
+  const createDesign = useCreateDesign(projectId);
+  return (
+    <Stack gap="lg">
+      <Breadcrumbs>
+        <Anchor component={Link} to={paths.projects.getHref()} size="sm">
+          Projects
+        </Anchor>
+        <Anchor component={Link} to={paths.project.getHref(projectId)} size="sm">
+          {project.name}
+        </Anchor>
+        <Text size="sm">Sizer</Text>
+      </Breadcrumbs>
+      <Title order={1} size="h2">
+        Sizer
+      </Title>
+      {createDesign.isError && (
+        <Alert color="red" title="The design was not created">
+          {createDesign.error.message}
+        </Alert>
+      )}
+      <SizerPanel
+        isStarting={createDesign.isPending}
+        onStartDesign={(document) =>
+          createDesign.mutate(
+            { name: document.name, from: { kind: 'document', document } },
+            { onSuccess: (design) => void navigate(paths.design.getHref(projectId, design.id)) },
+          )
+        }
+      />
+    </Stack>
+  );
+}

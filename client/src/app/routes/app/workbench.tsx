@@ -1,0 +1,293 @@
+import { useState } from 'react';
+import {
+  Alert,
+  Anchor,
+  Badge,
+  Breadcrumbs,
+  Button,
+  Grid,
+  Group,
+  List,
+  Stack,
+  Tabs,
+  Text,
+  TextInput,
+  Title,
+} from '@mantine/core';
+import { useDocumentTitle } from '@mantine/hooks';
+import { notifications } from '@mantine/notifications';
+import { useSuspenseQuery, type QueryClient } from '@tanstack/react-query';
+import { Link, useNavigate, useParams, useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
+import type { RevisionDetail, StaleBaseError } from '@ladderwright/shared/api';
+import type { Design } from '@ladderwright/shared/designs';
+import { paths } from '../../../config/paths';
+import { staleBaseOf, useCreateRevision } from '../../../features/designs/api/create-revision';
+import { getDesignQueryOptions } from '../../../features/designs/api/get-design';
+import { getRevisionQueryOptions } from '../../../features/designs/api/get-revision';
+import { RevisionHistory } from '../../../features/designs/components/revision-history';
+import { RevisionStateBadge } from '../../../features/designs/components/revision-state-badge';
+import { getProjectQueryOptions } from '../../../features/projects/api/get-project';
+import { WaveformsPanel } from '../../../features/simulations/components/waveforms-panel';
+import { ChecksTable } from '../../../features/workbench/components/checks-table';
+import { HeadlineFigures } from '../../../features/workbench/components/headline-figures';
+import { LadderCharts } from '../../../features/workbench/components/ladder-charts';
+import { LadderDiagram } from '../../../features/workbench/components/ladder-diagram';
+import { LadderForm } from '../../../features/workbench/components/ladder-form';
+import { useLiveAnalysis } from '../../../features/workbench/hooks/use-live-analysis';
+import { requireUser } from './root';
+
+function revisionParam(request: Request | URLSearchParams): number | null {
+  const params = request instanceof URLSearchParams ? request : new URL(request.url).searchParams;
+  const value = Number(params.get('rev'));
+  return Number.isInteger(value) && value >= 1 ? value : null;
+}
+
+export function workbenchLoader(queryClient: QueryClient) {
+  return async ({ params, request }: LoaderFunctionArgs) => {
+    await requireUser(queryClient, request);
+    const projectId = params.projectId ?? '';
+    const designId = params.designId ?? '';
+    const [, design] = await Promise.all([
+      queryClient.ensureQueryData(getProjectQueryOptions(projectId)),
+      queryClient.ensureQueryData(getDesignQueryOptions(projectId, designId)),
+    ]);
+    const revisionNumber = revisionParam(request) ?? design.latestRevisionNumber;
+    await queryClient.ensureQueryData(getRevisionQueryOptions(projectId, designId, revisionNumber));
+    return null;
+  };
+}
+
+/** The Workbench: a revision's document as a form with live results, saved as new revisions. */
+export function WorkbenchRoute() {
+  const { projectId = '', designId = '' } = useParams();
+  const [searchParams] = useSearchParams();
+  const { data: project } = useSuspenseQuery(getProjectQueryOptions(projectId));
+  const { data: design } = useSuspenseQuery(getDesignQueryOptions(projectId, designId));
+  const revisionNumber = revisionParam(searchParams) ?? design.latestRevisionNumber;
+  const { data: revision } = useSuspenseQuery(getRevisionQueryOptions(projectId, designId, revisionNumber));
+  useDocumentTitle(`${design.name} r${revision.number} · Workbench · Ladderwright`);
+
+  return (
+    <Stack gap="md">
+      <Breadcrumbs>
+        <Anchor component={Link} to={paths.projects.getHref()} size="sm">
+          Projects
+        </Anchor>
+        <Anchor component={Link} to={paths.project.getHref(projectId)} size="sm">
+          {project.name}
+        </Anchor>
+        <Text size="sm">{design.name}</Text>
+      </Breadcrumbs>
+      <EditableRevision
+        key={`${designId}-${revision.number}`}
+        projectId={projectId}
+        revision={revision}
+        latestRevisionNumber={design.latestRevisionNumber}
+        revisions={design.revisions}
+      />
+    </Stack>
+  );
+}
+
+interface EditableRevisionProps {
+  projectId: string;
+  revision: RevisionDetail;
+  latestRevisionNumber: number;
+  revisions: Parameters<typeof RevisionHistory>[0]['revisions'];
+}
+
+function EditableRevision({ projectId, revision, latestRevisionNumber, revisions }: EditableRevisionProps) {
+  const navigate = useNavigate();
+  const [draft, setDraft] = useState<Design>(revision.document);
+  const [baseRevisionNumber, setBaseRevisionNumber] = useState(revision.number);
+  const [changeNote, setChangeNote] = useState('');
+  const [stale, setStale] = useState<StaleBaseError | null>(null);
+  const isDirty = draft !== revision.document;
+  const live = useLiveAnalysis(draft);
+  const report = isDirty ? live.report : revision.report;
+  const save = useCreateRevision(projectId, revision.designId);
+
+  const submit = () => {
+    save.mutate(
+      { baseRevisionNumber, document: draft, changeNote: changeNote.trim() },
+      {
+        onSuccess: (saved) => {
+          setStale(null);
+          notifications.show({
+            title: `Saved as r${saved.number}`,
+            message: 'The results shown are the server’s for this revision.',
+          });
+          void navigate(paths.design.getHref(projectId, saved.designId, saved.number));
+        },
+        onError: (error) => setStale(staleBaseOf(error)),
+      },
+    );
+  };
+
+  return (
+    <Stack gap="md">
+      <Group justify="space-between" align="flex-end" wrap="wrap">
+        <div>
+          <Group gap="sm">
+            <Title order={1} size="h2">
+              Workbench
+            </Title>
+            <Badge variant="outline" radius="sm" tt="none">
+              r{revision.number}
+              {revision.number === latestRevisionNumber ? ' (latest)' : ` of ${latestRevisionNumber}`}
+            </Badge>
+            <RevisionStateBadge state={revision.state} />
+          </Group>
+          <Text size="sm" c="dimmed">
+            {revision.changeNote || 'No change note'} · by {revision.authorName} · engine {revision.engineVersion}
+          </Text>
+        </div>
+        <form
+          onSubmit={(event) => {
+            event.preventDefault();
+            submit();
+          }}
+        >
+          <Group gap="sm" align="flex-end">
+            <TextInput
+              label="Change note"
+              placeholder="What changed and why"
+              value={changeNote}
+              onChange={(e) => setChangeNote(e.currentTarget.value)}
+              w={300}
+              required
+            />
+            <Button
+              type="submit"
+              loading={save.isPending}
+              disabled={!isDirty || changeNote.trim() === '' || Object.keys(live.issues).length > 0}
+            >
+              Save revision
+            </Button>
+            {isDirty && (
+              <Button variant="subtle" color="gray" onClick={() => setDraft(revision.document)}>
+                Discard edits
+              </Button>
+            )}
+          </Group>
+        </form>
+      </Group>
+
+      {stale && (
+        <Alert color="ember" title={`Someone saved r${stale.latestRevisionNumber} meanwhile: your edits are kept`}>
+          <Text size="sm">
+            Fields changed between r{baseRevisionNumber} and r{stale.latestRevisionNumber}:
+          </Text>
+          <List size="sm" my="xs">
+            {stale.changedFields.map((field) => (
+              <List.Item key={field}>
+                <Text span ff="monospace" size="sm">
+                  {field}
+                </Text>
+              </List.Item>
+            ))}
+          </List>
+          <Group gap="sm">
+            <Button
+              size="xs"
+              onClick={() => {
+                setBaseRevisionNumber(stale.latestRevisionNumber);
+                setStale(null);
+              }}
+            >
+              Keep my edits, save on top of r{stale.latestRevisionNumber}
+            </Button>
+            <Button
+              size="xs"
+              variant="default"
+              component={Link}
+              to={paths.design.getHref(projectId, revision.designId, stale.latestRevisionNumber)}
+            >
+              Open r{stale.latestRevisionNumber} (drops my edits)
+            </Button>
+          </Group>
+        </Alert>
+      )}
+      {save.isError && !stale && (
+        <Alert color="red" title="Not saved">
+          {save.error.message}
+        </Alert>
+      )}
+
+      <Grid gap="lg">
+        <Grid.Col span={{ base: 12, lg: 5 }}>
+          <LadderForm document={draft} onChange={setDraft} issues={live.issues} />
+        </Grid.Col>
+        <Grid.Col span={{ base: 12, lg: 7 }}>
+          <Stack gap="sm" pos="sticky" top={64}>
+            <Group gap="xs">
+              <Text size="sm" fw={600}>
+                Results
+              </Text>
+              <Badge variant="dot" color={isDirty ? 'ember' : 'verdigris'} radius="sm" tt="none" aria-live="polite">
+                {isDirty
+                  ? live.isPending
+                    ? 'live preview, updating…'
+                    : 'live preview (unsaved edits)'
+                  : `server result of r${revision.number}`}
+              </Badge>
+            </Group>
+            {live.engineError && isDirty && (
+              <Alert color="red" title="The engine could not analyse this document">
+                {live.engineError}
+              </Alert>
+            )}
+            {!report && Object.keys(live.issues).length > 0 && (
+              <Alert color="ember" title="Results wait for valid inputs">
+                {Object.keys(live.issues).length} field{Object.keys(live.issues).length === 1 ? '' : 's'} to correct
+                (marked beside each field).
+              </Alert>
+            )}
+            {report && (
+              <>
+                <HeadlineFigures report={report} targets={draft.targets} />
+                <Tabs defaultValue="plots" keepMounted={false}>
+                  <Tabs.List>
+                    <Tabs.Tab value="plots">Plots</Tabs.Tab>
+                    <Tabs.Tab value="ladder">Ladder</Tabs.Tab>
+                    <Tabs.Tab value="checks">Checks</Tabs.Tab>
+                    <Tabs.Tab value="waveforms">Waveforms</Tabs.Tab>
+                    <Tabs.Tab value="history">History</Tabs.Tab>
+                  </Tabs.List>
+                  <Tabs.Panel value="plots" pt="sm">
+                    <LadderCharts report={report} />
+                  </Tabs.Panel>
+                  <Tabs.Panel value="ladder" pt="sm">
+                    <LadderDiagram report={report} />
+                  </Tabs.Panel>
+                  <Tabs.Panel value="checks" pt="sm">
+                    <Text size="xs" c="dimmed" mb="xs">
+                      {report.caution}
+                    </Text>
+                    <ChecksTable checks={report.checks} />
+                  </Tabs.Panel>
+                  <Tabs.Panel value="waveforms" pt="sm">
+                    <WaveformsPanel
+                      projectId={projectId}
+                      source={{ document: draft }}
+                      frequencyHz={report.resolvedDrive.frequencyHz}
+                      safeVoltageV={draft.targets.safeVoltageV}
+                    />
+                  </Tabs.Panel>
+                  <Tabs.Panel value="history" pt="sm">
+                    <RevisionHistory
+                      projectId={projectId}
+                      designId={revision.designId}
+                      revisions={revisions}
+                      openRevisionNumber={revision.number}
+                    />
+                  </Tabs.Panel>
+                </Tabs>
+              </>
+            )}
+          </Stack>
+        </Grid.Col>
+      </Grid>
+    </Stack>
+  );
+}

@@ -1,0 +1,188 @@
+import { useState } from 'react';
+import { Alert, Button, Checkbox, Fieldset, Group, SimpleGrid, Stack, Table, Text } from '@mantine/core';
+import type { Design, Topology } from '@ladderwright/shared/designs';
+import { sizeLadder, type SizerRequest, type SizerResult } from '@ladderwright/shared/sizing';
+import { formatQuantity } from '@ladderwright/shared/units';
+import { QuantityInput } from '../../../components/quantity-input';
+import { candidateDocument } from '../candidate-document';
+
+export interface SizerPanelProps {
+  /** Starts a design from a candidate's document; resolves when the design exists. */
+  onStartDesign: (document: Design) => void;
+  isStarting: boolean;
+}
+
+const topologyOptions: Array<{ value: Topology; label: string }> = [
+  { value: 'half-wave', label: 'half-wave cascade' },
+  { value: 'full-wave', label: 'full-wave cascade' },
+  { value: 'bridge-doubler', label: 'bridge doubler' },
+];
+
+/** The Sizer: a target in, ranked ladder candidates out (shared sizeLadder), each a click away from a design. */
+export function SizerPanel({ onStartDesign, isStarting }: SizerPanelProps) {
+  const [targetOutputV, setTargetOutputV] = useState(-6000);
+  const [loadCurrentA, setLoadCurrentA] = useState(30e-6);
+  const [rippleMaxV, setRippleMaxV] = useState(30);
+  const [peakV, setPeakV] = useState(480);
+  const [frequencyHz, setFrequencyHz] = useState(25e3);
+  const [sourceResistanceOhm, setSourceResistanceOhm] = useState(150);
+  const [safeVoltageV, setSafeVoltageV] = useState(50);
+  const [topologies, setTopologies] = useState<Topology[]>(['half-wave', 'full-wave']);
+  const [outcome, setOutcome] = useState<{ request: SizerRequest; result: SizerResult } | null>(null);
+  const [error, setError] = useState<string | null>(null);
+  const [isRunning, setIsRunning] = useState(false);
+
+  const run = () => {
+    const request: SizerRequest = {
+      targetOutputV,
+      loadCurrentA,
+      rippleMaxV,
+      drive: { kind: 'sine', peakV, frequencyHz, sourceResistanceOhm },
+      topologies,
+      safeVoltageV,
+      dischargeRule: '50V-1min',
+      resultCount: 12,
+    };
+    setIsRunning(true);
+    setError(null);
+    // Let the button show its busy state before the engine takes the thread.
+    window.setTimeout(() => {
+      try {
+        setOutcome({ request, result: sizeLadder(request) });
+      } catch (caught) {
+        setOutcome(null);
+        setError(caught instanceof Error ? caught.message : String(caught));
+      } finally {
+        setIsRunning(false);
+      }
+    }, 20);
+  };
+
+  return (
+    <Stack gap="md">
+      <form
+        onSubmit={(event) => {
+          event.preventDefault();
+          run();
+        }}
+      >
+        <Fieldset legend="Target">
+          <SimpleGrid cols={{ base: 1, sm: 2, md: 4 }} spacing="sm">
+            <QuantityInput label="Output (signed)" unit="V" value={targetOutputV} onChange={setTargetOutputV} />
+            <QuantityInput label="Load current" unit="A" value={loadCurrentA} onChange={setLoadCurrentA} />
+            <QuantityInput label="Ripple at most" unit="V" value={rippleMaxV} onChange={setRippleMaxV} />
+            <QuantityInput label="Safe touch level" unit="V" value={safeVoltageV} onChange={setSafeVoltageV} />
+            <QuantityInput label="Secondary peak (sine)" unit="V" value={peakV} onChange={setPeakV} />
+            <QuantityInput label="Drive frequency" unit="Hz" value={frequencyHz} onChange={setFrequencyHz} />
+            <QuantityInput
+              label="Source resistance"
+              unit="Ohm"
+              value={sourceResistanceOhm}
+              onChange={setSourceResistanceOhm}
+            />
+          </SimpleGrid>
+          <Checkbox.Group
+            label="Topologies"
+            value={topologies}
+            onChange={(v) => setTopologies(v as Topology[])}
+            mt="sm"
+          >
+            <Group gap="md" mt={4}>
+              {topologyOptions.map((option) => (
+                <Checkbox key={option.value} value={option.value} label={option.label} />
+              ))}
+            </Group>
+          </Checkbox.Group>
+          <Button type="submit" mt="md" loading={isRunning} disabled={topologies.length === 0}>
+            Find ladders
+          </Button>
+        </Fieldset>
+      </form>
+      {error && (
+        <Alert color="red" title="The Sizer could not run">
+          {error}
+        </Alert>
+      )}
+      {outcome && <CandidateTable outcome={outcome} isStarting={isStarting} onStartDesign={onStartDesign} />}
+    </Stack>
+  );
+}
+
+function CandidateTable({
+  outcome,
+  isStarting,
+  onStartDesign,
+}: {
+  outcome: { request: SizerRequest; result: SizerResult };
+  isStarting: boolean;
+  onStartDesign: (document: Design) => void;
+}) {
+  const { request, result } = outcome;
+  return (
+    <div>
+      <Text size="sm" mb="xs">
+        {result.meetingSpecCount} of {result.evaluatedCount} evaluated ladders meet the target; the best{' '}
+        {result.candidates.length} are ranked below.{' '}
+        <Text span c="dimmed">
+          {result.method.summary}
+        </Text>
+      </Text>
+      {result.candidates.length === 0 ? (
+        <Alert color="ember">
+          No ladder meets this target with these parts. Raise the secondary peak or loosen the ripple.
+        </Alert>
+      ) : (
+        <Table.ScrollContainer minWidth={900}>
+          <Table striped verticalSpacing={4} aria-label="Sizer candidates">
+            <Table.Thead>
+              <Table.Tr>
+                <Table.Th>Rank</Table.Th>
+                <Table.Th>Ladder</Table.Th>
+                <Table.Th>Capacitors</Table.Th>
+                <Table.Th>Diode</Table.Th>
+                <Table.Th>Output</Table.Th>
+                <Table.Th>Ripple</Table.Th>
+                <Table.Th>Stored energy</Table.Th>
+                <Table.Th>Worst margin</Table.Th>
+                <Table.Th>Parts</Table.Th>
+                <Table.Th>Design</Table.Th>
+              </Table.Tr>
+            </Table.Thead>
+            <Table.Tbody>
+              {result.candidates.map((candidate) => {
+                const distinct = [...new Set(candidate.capacitorsF)].map((v) => formatQuantity(v, 'F')).join(' … ');
+                const name = `${candidate.topology} ${candidate.cellCount} cells, ${candidate.grading}`;
+                return (
+                  <Table.Tr key={candidate.rank}>
+                    <Table.Td fw={700}>{candidate.rank}</Table.Td>
+                    <Table.Td>{name}</Table.Td>
+                    <Table.Td>{distinct}</Table.Td>
+                    <Table.Td>
+                      {candidate.diode.partCode ?? `${formatQuantity(candidate.diode.ratedPivV, 'V')} PIV`}
+                    </Table.Td>
+                    <Table.Td>{formatQuantity(candidate.outputMeanV, 'V')}</Table.Td>
+                    <Table.Td>{formatQuantity(candidate.ripplePeakToPeakV, 'V')}</Table.Td>
+                    <Table.Td>{formatQuantity(candidate.storedEnergyJ, 'J')}</Table.Td>
+                    <Table.Td>{candidate.worstMarginPct.toFixed(1)} %</Table.Td>
+                    <Table.Td>{candidate.partCount}</Table.Td>
+                    <Table.Td>
+                      <Button
+                        size="xs"
+                        variant="light"
+                        disabled={isStarting}
+                        aria-label={`Start a design from candidate ${candidate.rank}`}
+                        onClick={() => onStartDesign(candidateDocument(candidate, request, `Sizer: ${name}`))}
+                      >
+                        Start design
+                      </Button>
+                    </Table.Td>
+                  </Table.Tr>
+                );
+              })}
+            </Table.Tbody>
+          </Table>
+        </Table.ScrollContainer>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,225 @@
+import { useState } from 'react';
+import {
+  ActionIcon,
+  Button,
+  Group,
+  Popover,
+  Stack,
+  Table,
+  Text,
+  TextInput,
+  Tooltip,
+  VisuallyHidden,
+} from '@mantine/core';
+import type { CapacitorPart, Topology } from '@ladderwright/shared/designs';
+import { QuantityInput } from '../../../components/quantity-input';
+import { capacitorPlaces, fillDown, gradeCapacitors } from '../ladder-edits';
+
+export interface CapacitorTableProps {
+  topology: Topology;
+  capacitors: CapacitorPart[];
+  onChange: (capacitors: CapacitorPart[]) => void;
+  /** Validation messages by document path, e.g. `multiplier.capacitors[2].valueF`. */
+  issues: Readonly<Record<string, string>>;
+}
+
+const columnLabels: Record<string, string> = {
+  oscillating: 'oscillating',
+  smoothing: 'smoothing',
+  'oscillating-a': 'oscillating A',
+  'oscillating-b': 'oscillating B',
+  bridge: 'bridge half',
+};
+
+/** One row per ladder capacitor, from the source upward, with fill-down and a grading helper. */
+export function CapacitorTable({ topology, capacitors, onChange, issues }: CapacitorTableProps) {
+  const places = capacitorPlaces(topology, capacitors);
+  const setCapacitor = (index: number, patch: Partial<CapacitorPart>) =>
+    onChange(capacitors.map((c, i) => (i === index ? { ...c, ...patch } : c)));
+  const at = (i: number, key: string) => issues[`multiplier.capacitors[${i}].${key}`] ?? null;
+
+  return (
+    <Stack gap="xs">
+      <Group justify="space-between">
+        <Text size="sm" c="dimmed">
+          From the source upward: C1 is charged through D1.
+        </Text>
+        <GradingHelper
+          initialTopStageF={capacitors[capacitors.length - 1]?.valueF ?? 10e-9}
+          isDisabled={places === null}
+          onApply={(topStageF) => onChange(gradeCapacitors(topology, capacitors, topStageF))}
+        />
+      </Group>
+      <Table.ScrollContainer minWidth={720}>
+        <Table verticalSpacing={4} aria-label="Ladder capacitors">
+          <Table.Thead>
+            <Table.Tr>
+              <Table.Th>Capacitor</Table.Th>
+              <Table.Th>Place</Table.Th>
+              <Table.Th>Capacitance</Table.Th>
+              <Table.Th>Tolerance ±</Table.Th>
+              <Table.Th>Rated voltage</Table.Th>
+              <Table.Th>Part code</Table.Th>
+              <Table.Th>
+                <VisuallyHidden>Actions</VisuallyHidden>
+              </Table.Th>
+            </Table.Tr>
+          </Table.Thead>
+          <Table.Tbody>
+            {capacitors.map((capacitor, i) => {
+              const name = `C${i + 1}`;
+              const place = places?.[i];
+              return (
+                <Table.Tr key={i}>
+                  <Table.Td fw={600}>{name}</Table.Td>
+                  <Table.Td>
+                    <Text size="xs">
+                      {place ? `stage ${place.stage}, ${columnLabels[place.column] ?? place.column}` : '—'}
+                    </Text>
+                  </Table.Td>
+                  <Table.Td miw={150}>
+                    <QuantityInput
+                      label={`${name} capacitance`}
+                      isLabelHidden
+                      unit="F"
+                      value={capacitor.valueF}
+                      onChange={(valueF) => setCapacitor(i, { valueF })}
+                      issue={at(i, 'valueF')}
+                      size="xs"
+                    />
+                  </Table.Td>
+                  <Table.Td miw={100}>
+                    <PercentInput
+                      label={`${name} tolerance`}
+                      fraction={capacitor.tolerance}
+                      onChange={(tolerance) => setCapacitor(i, { tolerance })}
+                      issue={at(i, 'tolerance')}
+                    />
+                  </Table.Td>
+                  <Table.Td miw={130}>
+                    <QuantityInput
+                      label={`${name} rated voltage`}
+                      isLabelHidden
+                      unit="V"
+                      value={capacitor.ratedVoltageV}
+                      onChange={(ratedVoltageV) => setCapacitor(i, { ratedVoltageV })}
+                      issue={at(i, 'ratedVoltageV')}
+                      size="xs"
+                    />
+                  </Table.Td>
+                  <Table.Td miw={120}>
+                    <TextInput
+                      aria-label={`${name} part code`}
+                      value={capacitor.partCode ?? ''}
+                      onChange={(e) => {
+                        const partCode = e.currentTarget.value;
+                        setCapacitor(i, { partCode: partCode === '' ? undefined : partCode });
+                      }}
+                      size="xs"
+                    />
+                  </Table.Td>
+                  <Table.Td>
+                    <Tooltip label={`Copy ${name} to every capacitor above it`}>
+                      <ActionIcon
+                        variant="subtle"
+                        aria-label={`Fill down from ${name}`}
+                        disabled={i === capacitors.length - 1}
+                        onClick={() => onChange(fillDown(capacitors, i))}
+                      >
+                        <FillDownGlyph />
+                      </ActionIcon>
+                    </Tooltip>
+                  </Table.Td>
+                </Table.Tr>
+              );
+            })}
+          </Table.Tbody>
+        </Table>
+      </Table.ScrollContainer>
+    </Stack>
+  );
+}
+
+function PercentInput({
+  label,
+  fraction,
+  onChange,
+  issue,
+}: {
+  label: string;
+  fraction: number;
+  onChange: (fraction: number) => void;
+  issue: string | null;
+}) {
+  const [text, setText] = useState(String(Number((fraction * 100).toPrecision(6))));
+  const number = Number(text);
+  const isBad = text.trim() === '' || !Number.isFinite(number);
+  return (
+    <TextInput
+      aria-label={`${label} in percent`}
+      value={text}
+      rightSection={<Text size="xs">%</Text>}
+      onChange={(e) => {
+        const next = e.currentTarget.value;
+        setText(next);
+        const value = Number(next);
+        if (next.trim() !== '' && Number.isFinite(value)) onChange(value / 100);
+      }}
+      error={isBad ? 'enter a percentage' : (issue ?? undefined)}
+      size="xs"
+    />
+  );
+}
+
+function GradingHelper({
+  initialTopStageF,
+  isDisabled,
+  onApply,
+}: {
+  initialTopStageF: number;
+  isDisabled: boolean;
+  onApply: (topStageF: number) => void;
+}) {
+  const [isOpen, setIsOpen] = useState(false);
+  const [topStageF, setTopStageF] = useState(initialTopStageF);
+  return (
+    <Popover opened={isOpen} onChange={setIsOpen} position="bottom-end" withArrow trapFocus>
+      <Popover.Target>
+        <Button size="xs" variant="light" disabled={isDisabled} onClick={() => setIsOpen((open) => !open)}>
+          Grade capacitors…
+        </Button>
+      </Popover.Target>
+      <Popover.Dropdown>
+        <Stack gap="xs" w={260}>
+          <Text size="xs">Larger at the bottom: with n stages, stage k gets (n − k + 1) × the top-stage value.</Text>
+          <QuantityInput label="Top-stage capacitance" unit="F" value={topStageF} onChange={setTopStageF} size="xs" />
+          <Button
+            size="xs"
+            onClick={() => {
+              onApply(topStageF);
+              setIsOpen(false);
+            }}
+          >
+            Apply grading
+          </Button>
+        </Stack>
+      </Popover.Dropdown>
+    </Popover>
+  );
+}
+
+function FillDownGlyph() {
+  return (
+    <svg
+      width="16"
+      height="16"
+      viewBox="0 0 24 24"
+      fill="none"
+      stroke="currentColor"
+      strokeWidth="1.8"
+      aria-hidden="true"
+    >
+      <path d="M12 4v13M6 11l6 6 6-6M5 21h14" />
+    </svg>
+  );
+}

@@ -1,0 +1,830 @@
+import type { ReactNode } from 'react';
+import {
+  Fieldset,
+  Group,
+  NumberInput,
+  SegmentedControl,
+  Select,
+  SimpleGrid,
+  Stack,
+  Switch,
+  Text,
+  TextInput,
+  Textarea,
+} from '@mantine/core';
+import { capacitorCountFor, type Design, type DischargeRule, type Topology } from '@ladderwright/shared/designs';
+import { driverExamples } from '@ladderwright/shared/driver';
+import type { QuantityUnit } from '@ladderwright/shared/units';
+import { QuantityInput } from '../../../components/quantity-input';
+import { resizeCapacitors } from '../ladder-edits';
+import { CapacitorTable } from './capacitor-table';
+
+export interface LadderFormProps {
+  document: Design;
+  onChange: (document: Design) => void;
+  /** validateDesign's messages by document path. */
+  issues: Readonly<Record<string, string>>;
+}
+
+type Edit = (mutate: (draft: Design) => void) => void;
+
+const dischargeRules: Array<{ value: string; label: string }> = [
+  { value: '50V-1min', label: 'to 50 V within 1 min' },
+  { value: '50V-5min', label: 'to 50 V within 5 min' },
+  { value: '60V-5s', label: 'to 60 V within 5 s' },
+];
+
+/** The design document as a form: drive, ladder, output network, load and targets, each field checked in place. */
+export function LadderForm({ document, onChange, issues }: LadderFormProps) {
+  const edit: Edit = (mutate) => {
+    const draft = structuredClone(document);
+    mutate(draft);
+    onChange(draft);
+  };
+  const issue = (path: string) => issues[path] ?? null;
+
+  return (
+    <Stack gap="md">
+      <Fieldset legend="Design">
+        <SimpleGrid cols={{ base: 1, sm: 2 }} spacing="sm">
+          <TextInput
+            label="Name"
+            value={document.name}
+            onChange={(e) => {
+              const name = e.currentTarget.value;
+              edit((d) => {
+                d.name = name;
+              });
+            }}
+            error={issue('name')}
+          />
+          <Textarea
+            label="Notes"
+            value={document.notes}
+            autosize
+            minRows={1}
+            maxRows={4}
+            onChange={(e) => {
+              const notes = e.currentTarget.value;
+              edit((d) => {
+                d.notes = notes;
+              });
+            }}
+          />
+        </SimpleGrid>
+      </Fieldset>
+      <DriveSection document={document} edit={edit} issue={issue} />
+      <LadderSection document={document} edit={edit} issue={issue} issues={issues} />
+      <OutputSection document={document} edit={edit} issue={issue} />
+      <TargetsSection document={document} edit={edit} issue={issue} />
+    </Stack>
+  );
+}
+
+interface SectionProps {
+  document: Design;
+  edit: Edit;
+  issue: (path: string) => string | null;
+}
+
+/** A quantity field bound to one document path. */
+function Field({
+  label,
+  unit,
+  value,
+  path,
+  issue,
+  onValue,
+}: {
+  label: string;
+  unit: QuantityUnit;
+  value: number;
+  path: string;
+  issue: (path: string) => string | null;
+  onValue: (value: number) => void;
+}): ReactNode {
+  return <QuantityInput label={label} unit={unit} value={value} onChange={onValue} issue={issue(path)} />;
+}
+
+function DriveSection({ document, edit, issue }: SectionProps) {
+  const drive = document.drive;
+  const setKind = (kind: string) =>
+    edit((d) => {
+      const frequencyHz = d.drive.kind === 'driver' ? 25e3 : d.drive.frequencyHz;
+      const sourceResistanceOhm = d.drive.kind === 'driver' ? 100 : d.drive.sourceResistanceOhm;
+      if (kind === 'sine') d.drive = { kind: 'sine', peakV: 500, frequencyHz, sourceResistanceOhm };
+      if (kind === 'pulse')
+        d.drive = {
+          kind: 'pulse',
+          forwardPeakV: 500,
+          flybackPeakV: 500,
+          frequencyHz,
+          dutyCycle: 0.5,
+          sourceResistanceOhm,
+        };
+      if (kind === 'driver') d.drive = { kind: 'driver', driver: structuredClone(driverExamples.surfaceChargeTester) };
+    });
+  return (
+    <Fieldset legend="Drive (transformer secondary)">
+      <Stack gap="sm">
+        <SegmentedControl
+          aria-label="Drive kind"
+          value={drive.kind}
+          onChange={setKind}
+          data={[
+            { value: 'sine', label: 'Sine' },
+            { value: 'pulse', label: 'Pulse' },
+            { value: 'driver', label: 'Blocking oscillator' },
+          ]}
+          w="fit-content"
+        />
+        {drive.kind === 'sine' && (
+          <SimpleGrid cols={{ base: 1, sm: 3 }} spacing="sm">
+            <Field
+              label="Secondary peak"
+              unit="V"
+              value={drive.peakV}
+              path="drive.peakV"
+              issue={issue}
+              onValue={(v) =>
+                edit((d) => {
+                  if (d.drive.kind === 'sine') d.drive.peakV = v;
+                })
+              }
+            />
+            <Field
+              label="Frequency"
+              unit="Hz"
+              value={drive.frequencyHz}
+              path="drive.frequencyHz"
+              issue={issue}
+              onValue={(v) =>
+                edit((d) => {
+                  if (d.drive.kind === 'sine') d.drive.frequencyHz = v;
+                })
+              }
+            />
+            <Field
+              label="Source resistance"
+              unit="Ohm"
+              value={drive.sourceResistanceOhm}
+              path="drive.sourceResistanceOhm"
+              issue={issue}
+              onValue={(v) =>
+                edit((d) => {
+                  if (d.drive.kind === 'sine') d.drive.sourceResistanceOhm = v;
+                })
+              }
+            />
+          </SimpleGrid>
+        )}
+        {drive.kind === 'pulse' && (
+          <SimpleGrid cols={{ base: 1, sm: 3 }} spacing="sm">
+            <Field
+              label="Forward peak"
+              unit="V"
+              value={drive.forwardPeakV}
+              path="drive.forwardPeakV"
+              issue={issue}
+              onValue={(v) =>
+                edit((d) => {
+                  if (d.drive.kind === 'pulse') d.drive.forwardPeakV = v;
+                })
+              }
+            />
+            <Field
+              label="Flyback peak"
+              unit="V"
+              value={drive.flybackPeakV}
+              path="drive.flybackPeakV"
+              issue={issue}
+              onValue={(v) =>
+                edit((d) => {
+                  if (d.drive.kind === 'pulse') d.drive.flybackPeakV = v;
+                })
+              }
+            />
+            <NumberInput
+              label="Duty cycle"
+              value={drive.dutyCycle}
+              min={0.01}
+              max={0.99}
+              step={0.05}
+              decimalScale={3}
+              error={issue('drive.dutyCycle')}
+              onChange={(v) =>
+                edit((d) => {
+                  if (d.drive.kind === 'pulse') d.drive.dutyCycle = Number(v);
+                })
+              }
+            />
+            <Field
+              label="Frequency"
+              unit="Hz"
+              value={drive.frequencyHz}
+              path="drive.frequencyHz"
+              issue={issue}
+              onValue={(v) =>
+                edit((d) => {
+                  if (d.drive.kind === 'pulse') d.drive.frequencyHz = v;
+                })
+              }
+            />
+            <Field
+              label="Source resistance"
+              unit="Ohm"
+              value={drive.sourceResistanceOhm}
+              path="drive.sourceResistanceOhm"
+              issue={issue}
+              onValue={(v) =>
+                edit((d) => {
+                  if (d.drive.kind === 'pulse') d.drive.sourceResistanceOhm = v;
+                })
+              }
+            />
+          </SimpleGrid>
+        )}
+        {drive.kind === 'driver' && <DriverFields document={document} edit={edit} issue={issue} />}
+      </Stack>
+    </Fieldset>
+  );
+}
+
+function DriverFields({ document, edit, issue }: SectionProps) {
+  if (document.drive.kind !== 'driver') return null;
+  const { supply, transformer, transistor, baseResistorOhm } = document.drive.driver;
+  const onDriver = (mutate: (driver: Extract<Design['drive'], { kind: 'driver' }>['driver']) => void) =>
+    edit((d) => {
+      if (d.drive.kind === 'driver') mutate(d.drive.driver);
+    });
+  const p = 'drive.driver';
+  return (
+    <Stack gap="sm">
+      <SimpleGrid cols={{ base: 1, sm: 3 }} spacing="sm">
+        {supply.kind === 'cells' ? (
+          <>
+            <Select
+              label="Cell chemistry"
+              value={supply.chemistry}
+              allowDeselect={false}
+              data={[
+                { value: 'alkaline', label: 'alkaline' },
+                { value: 'nimh', label: 'NiMH' },
+                { value: 'li-ion', label: 'lithium-ion' },
+              ]}
+              onChange={(v) =>
+                onDriver((dr) => {
+                  if (dr.supply.kind === 'cells' && v) dr.supply.chemistry = v as typeof supply.chemistry;
+                })
+              }
+            />
+            <NumberInput
+              label="Cells in series"
+              value={supply.cellsInSeries}
+              min={1}
+              max={24}
+              allowDecimal={false}
+              error={issue(`${p}.supply.cellsInSeries`)}
+              onChange={(v) =>
+                onDriver((dr) => {
+                  if (dr.supply.kind === 'cells') dr.supply.cellsInSeries = Number(v);
+                })
+              }
+            />
+            <NumberInput
+              label="Cell capacity (Ah)"
+              value={supply.capacityAh}
+              min={0.01}
+              step={0.1}
+              decimalScale={3}
+              onChange={(v) =>
+                onDriver((dr) => {
+                  if (dr.supply.kind === 'cells') dr.supply.capacityAh = Number(v);
+                })
+              }
+            />
+          </>
+        ) : (
+          <Field
+            label="Supply voltage"
+            unit="V"
+            value={supply.voltageV}
+            path={`${p}.supply.voltageV`}
+            issue={issue}
+            onValue={(v) =>
+              onDriver((dr) => {
+                if (dr.supply.kind === 'dc') dr.supply.voltageV = v;
+              })
+            }
+          />
+        )}
+      </SimpleGrid>
+      <SimpleGrid cols={{ base: 1, sm: 3 }} spacing="sm">
+        <NumberInput
+          label="Primary turns"
+          value={transformer.primaryTurns}
+          min={1}
+          allowDecimal={false}
+          onChange={(v) =>
+            onDriver((dr) => {
+              dr.transformer.primaryTurns = Number(v);
+            })
+          }
+        />
+        <NumberInput
+          label="Feedback turns"
+          value={transformer.feedbackTurns}
+          min={1}
+          allowDecimal={false}
+          onChange={(v) =>
+            onDriver((dr) => {
+              dr.transformer.feedbackTurns = Number(v);
+            })
+          }
+        />
+        <NumberInput
+          label="Secondary turns"
+          value={transformer.secondaryTurns}
+          min={1}
+          allowDecimal={false}
+          onChange={(v) =>
+            onDriver((dr) => {
+              dr.transformer.secondaryTurns = Number(v);
+            })
+          }
+        />
+        <Field
+          label="Primary inductance"
+          unit="H"
+          value={transformer.primaryInductanceH}
+          path={`${p}.transformer.primaryInductanceH`}
+          issue={issue}
+          onValue={(v) =>
+            onDriver((dr) => {
+              dr.transformer.primaryInductanceH = v;
+            })
+          }
+        />
+        <NumberInput
+          label="Coupling coefficient k"
+          value={transformer.couplingCoefficient}
+          min={0.5}
+          max={1}
+          step={0.01}
+          decimalScale={3}
+          onChange={(v) =>
+            onDriver((dr) => {
+              dr.transformer.couplingCoefficient = Number(v);
+            })
+          }
+        />
+        <Field
+          label="Secondary resistance"
+          unit="Ohm"
+          value={transformer.secondaryResistanceOhm}
+          path={`${p}.transformer.secondaryResistanceOhm`}
+          issue={issue}
+          onValue={(v) =>
+            onDriver((dr) => {
+              dr.transformer.secondaryResistanceOhm = v;
+            })
+          }
+        />
+        <Field
+          label="Core saturation current"
+          unit="A"
+          value={transformer.saturationCurrentA}
+          path={`${p}.transformer.saturationCurrentA`}
+          issue={issue}
+          onValue={(v) =>
+            onDriver((dr) => {
+              dr.transformer.saturationCurrentA = v;
+            })
+          }
+        />
+        <NumberInput
+          label="Transistor β (forward)"
+          value={transistor.forwardBeta}
+          min={1}
+          onChange={(v) =>
+            onDriver((dr) => {
+              dr.transistor.forwardBeta = Number(v);
+            })
+          }
+        />
+        <Field
+          label="Base resistor"
+          unit="Ohm"
+          value={baseResistorOhm}
+          path={`${p}.baseResistorOhm`}
+          issue={issue}
+          onValue={(v) =>
+            onDriver((dr) => {
+              dr.baseResistorOhm = v;
+            })
+          }
+        />
+      </SimpleGrid>
+    </Stack>
+  );
+}
+
+function LadderSection({ document, edit, issue, issues }: SectionProps & { issues: Readonly<Record<string, string>> }) {
+  const m = document.multiplier;
+  const setShape = (topology: Topology, cellCount: number) =>
+    edit((d) => {
+      d.multiplier.topology = topology;
+      d.multiplier.cellCount = topology === 'bridge-doubler' ? 2 : cellCount;
+      d.multiplier.capacitors = resizeCapacitors(
+        d.multiplier.capacitors,
+        capacitorCountFor(topology, d.multiplier.cellCount),
+      );
+    });
+  const diode = m.diode;
+  const dp = 'multiplier.diode';
+  return (
+    <Fieldset legend="Ladder">
+      <Stack gap="sm">
+        <SimpleGrid cols={{ base: 1, sm: 3 }} spacing="sm">
+          <Select
+            label="Topology"
+            value={m.topology}
+            allowDeselect={false}
+            data={[
+              { value: 'half-wave', label: 'half-wave cascade' },
+              { value: 'full-wave', label: 'full-wave (symmetrical) cascade' },
+              { value: 'bridge-doubler', label: 'bridge doubler' },
+            ]}
+            onChange={(v) => v && setShape(v as Topology, m.cellCount)}
+            error={issue('multiplier.topology')}
+          />
+          <NumberInput
+            label={m.topology === 'full-wave' ? 'Stages' : 'Cells'}
+            value={m.cellCount}
+            min={1}
+            max={60}
+            allowDecimal={false}
+            disabled={m.topology === 'bridge-doubler'}
+            error={issue('multiplier.cellCount')}
+            onChange={(v) => {
+              const count = Number(v);
+              if (Number.isInteger(count) && count >= 1 && count <= 60) setShape(m.topology, count);
+            }}
+          />
+        </SimpleGrid>
+        {issue('multiplier.capacitors') && (
+          <Text size="sm" c="red" role="alert">
+            {issue('multiplier.capacitors')}
+          </Text>
+        )}
+        <CapacitorTable
+          topology={m.topology}
+          capacitors={m.capacitors}
+          issues={issues}
+          onChange={(capacitors) =>
+            edit((d) => {
+              d.multiplier.capacitors = capacitors;
+            })
+          }
+        />
+        <Text size="sm" fw={600} mt="xs">
+          Diodes (all alike)
+        </Text>
+        <SimpleGrid cols={{ base: 1, sm: 3 }} spacing="sm">
+          <Field
+            label="Rated PIV"
+            unit="V"
+            value={diode.ratedPivV}
+            path={`${dp}.ratedPivV`}
+            issue={issue}
+            onValue={(v) =>
+              edit((d) => {
+                d.multiplier.diode.ratedPivV = v;
+              })
+            }
+          />
+          <Field
+            label="Rated average current"
+            unit="A"
+            value={diode.ratedAverageCurrentA}
+            path={`${dp}.ratedAverageCurrentA`}
+            issue={issue}
+            onValue={(v) =>
+              edit((d) => {
+                d.multiplier.diode.ratedAverageCurrentA = v;
+              })
+            }
+          />
+          <Field
+            label="Rated surge current"
+            unit="A"
+            value={diode.ratedSurgeCurrentA}
+            path={`${dp}.ratedSurgeCurrentA`}
+            issue={issue}
+            onValue={(v) =>
+              edit((d) => {
+                d.multiplier.diode.ratedSurgeCurrentA = v;
+              })
+            }
+          />
+          <Field
+            label="Saturation current"
+            unit="A"
+            value={diode.saturationCurrentA}
+            path={`${dp}.saturationCurrentA`}
+            issue={issue}
+            onValue={(v) =>
+              edit((d) => {
+                d.multiplier.diode.saturationCurrentA = v;
+              })
+            }
+          />
+          <NumberInput
+            label="Emission coefficient"
+            value={diode.emissionCoefficient}
+            min={0.5}
+            step={0.5}
+            decimalScale={3}
+            error={issue(`${dp}.emissionCoefficient`)}
+            onChange={(v) =>
+              edit((d) => {
+                d.multiplier.diode.emissionCoefficient = Number(v);
+              })
+            }
+          />
+          <Field
+            label="Series resistance"
+            unit="Ohm"
+            value={diode.seriesResistanceOhm}
+            path={`${dp}.seriesResistanceOhm`}
+            issue={issue}
+            onValue={(v) =>
+              edit((d) => {
+                d.multiplier.diode.seriesResistanceOhm = v;
+              })
+            }
+          />
+        </SimpleGrid>
+      </Stack>
+    </Fieldset>
+  );
+}
+
+function OutputSection({ document, edit, issue }: SectionProps) {
+  const net = document.outputNetwork;
+  const bleeder = net.bleeder;
+  const bp = 'outputNetwork.bleeder';
+  return (
+    <Fieldset legend="Output network and load">
+      <Stack gap="sm">
+        <Switch
+          label="Bleeder string across the ladder output"
+          checked={bleeder !== null}
+          onChange={(e) => {
+            const on = e.currentTarget.checked;
+            edit((d) => {
+              d.outputNetwork.bleeder = on
+                ? { count: 5, valueOhm: 100e6, ratedPowerW: 0.5, limitingVoltageV: 2000 }
+                : null;
+            });
+          }}
+        />
+        {bleeder && (
+          <SimpleGrid cols={{ base: 1, sm: 4 }} spacing="sm">
+            <NumberInput
+              label="Resistors in the string"
+              value={bleeder.count}
+              min={1}
+              max={100}
+              allowDecimal={false}
+              error={issue(`${bp}.count`)}
+              onChange={(v) =>
+                edit((d) => {
+                  if (d.outputNetwork.bleeder) d.outputNetwork.bleeder.count = Number(v);
+                })
+              }
+            />
+            <Field
+              label="Each resistor"
+              unit="Ohm"
+              value={bleeder.valueOhm}
+              path={`${bp}.valueOhm`}
+              issue={issue}
+              onValue={(v) =>
+                edit((d) => {
+                  if (d.outputNetwork.bleeder) d.outputNetwork.bleeder.valueOhm = v;
+                })
+              }
+            />
+            <Field
+              label="Rated power (each)"
+              unit="W"
+              value={bleeder.ratedPowerW}
+              path={`${bp}.ratedPowerW`}
+              issue={issue}
+              onValue={(v) =>
+                edit((d) => {
+                  if (d.outputNetwork.bleeder) d.outputNetwork.bleeder.ratedPowerW = v;
+                })
+              }
+            />
+            <Field
+              label="Limiting element voltage"
+              unit="V"
+              value={bleeder.limitingVoltageV}
+              path={`${bp}.limitingVoltageV`}
+              issue={issue}
+              onValue={(v) =>
+                edit((d) => {
+                  if (d.outputNetwork.bleeder) d.outputNetwork.bleeder.limitingVoltageV = v;
+                })
+              }
+            />
+          </SimpleGrid>
+        )}
+        <SimpleGrid cols={{ base: 1, sm: 3 }} spacing="sm">
+          <Field
+            label="Series output resistor"
+            unit="Ohm"
+            value={net.seriesOutputResistanceOhm}
+            path="outputNetwork.seriesOutputResistanceOhm"
+            issue={issue}
+            onValue={(v) =>
+              edit((d) => {
+                d.outputNetwork.seriesOutputResistanceOhm = v;
+              })
+            }
+          />
+          <Select
+            label="Load"
+            value={document.load.kind}
+            allowDeselect={false}
+            data={[
+              { value: 'current', label: 'constant current' },
+              { value: 'resistance', label: 'resistance' },
+            ]}
+            onChange={(v) =>
+              edit((d) => {
+                d.load =
+                  v === 'resistance'
+                    ? { kind: 'resistance', resistanceOhm: 1e9 }
+                    : { kind: 'current', currentA: d.targets.loadCurrentA };
+              })
+            }
+          />
+          {document.load.kind === 'current' ? (
+            <Field
+              label="Load current"
+              unit="A"
+              value={document.load.currentA}
+              path="load.currentA"
+              issue={issue}
+              onValue={(v) =>
+                edit((d) => {
+                  if (d.load.kind === 'current') d.load.currentA = v;
+                })
+              }
+            />
+          ) : (
+            <Field
+              label="Load resistance"
+              unit="Ohm"
+              value={document.load.resistanceOhm}
+              path="load.resistanceOhm"
+              issue={issue}
+              onValue={(v) =>
+                edit((d) => {
+                  if (d.load.kind === 'resistance') d.load.resistanceOhm = v;
+                })
+              }
+            />
+          )}
+        </SimpleGrid>
+      </Stack>
+    </Fieldset>
+  );
+}
+
+function TargetsSection({ document, edit, issue }: SectionProps) {
+  const t = document.targets;
+  const rule = typeof t.dischargeRule === 'string' ? t.dischargeRule : null;
+  return (
+    <Fieldset legend="Targets">
+      <SimpleGrid cols={{ base: 1, sm: 3 }} spacing="sm">
+        <Field
+          label="Output (signed)"
+          unit="V"
+          value={t.outputV}
+          path="targets.outputV"
+          issue={issue}
+          onValue={(v) =>
+            edit((d) => {
+              d.targets.outputV = v;
+            })
+          }
+        />
+        <Field
+          label="Ripple at most"
+          unit="V"
+          value={t.rippleMaxV}
+          path="targets.rippleMaxV"
+          issue={issue}
+          onValue={(v) =>
+            edit((d) => {
+              d.targets.rippleMaxV = v;
+            })
+          }
+        />
+        <Field
+          label="Rated load current"
+          unit="A"
+          value={t.loadCurrentA}
+          path="targets.loadCurrentA"
+          issue={issue}
+          onValue={(v) =>
+            edit((d) => {
+              d.targets.loadCurrentA = v;
+            })
+          }
+        />
+        <Field
+          label="Safe touch level"
+          unit="V"
+          value={t.safeVoltageV}
+          path="targets.safeVoltageV"
+          issue={issue}
+          onValue={(v) =>
+            edit((d) => {
+              d.targets.safeVoltageV = v;
+            })
+          }
+        />
+        <Select
+          label="Discharge rule"
+          value={rule}
+          allowDeselect={false}
+          data={dischargeRules}
+          placeholder="custom rule"
+          error={issue('targets.dischargeRule')}
+          onChange={(v) =>
+            v &&
+            edit((d) => {
+              d.targets.dischargeRule = v as DischargeRule;
+            })
+          }
+        />
+        <Group grow gap="sm" align="flex-start">
+          <Select
+            label="Pollution degree"
+            value={String(t.spacing.pollutionDegree)}
+            allowDeselect={false}
+            data={['1', '2', '3']}
+            onChange={(v) =>
+              v &&
+              edit((d) => {
+                d.targets.spacing.pollutionDegree = Number(v) as 1 | 2 | 3;
+              })
+            }
+          />
+          <Select
+            label="Material group"
+            value={t.spacing.materialGroup}
+            allowDeselect={false}
+            data={['I', 'II', 'IIIa', 'IIIb']}
+            onChange={(v) =>
+              v &&
+              edit((d) => {
+                d.targets.spacing.materialGroup = v as Design['targets']['spacing']['materialGroup'];
+              })
+            }
+          />
+        </Group>
+        <NumberInput
+          label="Provided creepage per stage (mm)"
+          value={t.spacing.providedCreepageMm ?? ''}
+          min={0.1}
+          step={0.5}
+          decimalScale={2}
+          error={issue('targets.spacing.providedCreepageMm')}
+          onChange={(v) =>
+            edit((d) => {
+              if (v === '' || v === null) delete d.targets.spacing.providedCreepageMm;
+              else d.targets.spacing.providedCreepageMm = Number(v);
+            })
+          }
+        />
+        <Switch
+          label="Ladder on a printed board"
+          checked={t.spacing.pcb}
+          mt="lg"
+          onChange={(e) => {
+            const pcb = e.currentTarget.checked;
+            edit((d) => {
+              d.targets.spacing.pcb = pcb;
+            });
+          }}
+        />
+      </SimpleGrid>
+    </Fieldset>
+  );
+}
