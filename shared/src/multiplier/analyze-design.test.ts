@@ -32,6 +32,12 @@ describe('analyzeDesign on the demo designs', () => {
     expect(power?.unit).toBe('W');
   });
 
+  it('names a driver-stage problem under drive. in the design', () => {
+    const design = structuredClone(designExamples.surfaceChargeTester);
+    if (design.drive.kind === 'driver') design.drive.driver.transformer.primaryInductanceH = 0;
+    expect(() => analyzeDesign(design)).toThrow(expect.objectContaining({ field: 'drive.driver.transformer.primaryInductanceH' }));
+  });
+
   it('the ionizer bar is a negative ladder: outputs negative, PIV and capacitor figures positive magnitudes', () => {
     const report = analyzeDesign(designExamples.ionizerBar);
     expect(report.outputMeanV).toBeLessThan(-6000);

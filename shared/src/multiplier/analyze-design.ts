@@ -117,7 +117,16 @@ const DRIVER_METHOD: MethodInfo = {
 export function resolveDrive(design: Design): { drive: SineDrive | PulseDrive; deliverablePowerW: number | null; currentLimitA: number | null } {
   const drive = design.drive;
   if (drive.kind !== 'driver') return { drive, deliverablePowerW: null, currentLimitA: null };
-  const estimate = estimateBlockingOscillator(drive.driver);
+  let estimate: ReturnType<typeof estimateBlockingOscillator>;
+  try {
+    estimate = estimateBlockingOscillator(drive.driver);
+  } catch (error) {
+    // The driver names its fields from the driver stage; in a design they sit under `drive.`.
+    if (error instanceof DomainError && error.field?.startsWith('driver')) {
+      throw new DomainError(error.code, error.message, `drive.${error.field}`);
+    }
+    throw error;
+  }
   const onS = estimate.onTimeS.value;
   const flybackS = estimate.flybackTimeS.value;
   return {
