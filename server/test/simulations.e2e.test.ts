@@ -3,6 +3,7 @@ import request from 'supertest';
 import type { SimulationJob, WaveformTrace } from '@ladderwright/shared/api';
 import { type Design, designExamples } from '@ladderwright/shared/designs';
 import { buildCircuit, simulateTransient } from '@ladderwright/shared/sim';
+import { createDesign } from './factories/create-design';
 import { createProject, type TestProject } from './factories/create-project';
 import { createUser, type TestUser } from './factories/create-user';
 import { createTestApp, type TestApp } from './utils/create-test-app';
@@ -19,6 +20,8 @@ function doubler(): Design {
 }
 
 const SMALL_RUN = { cycles: 30, maxStepPerPeriod: 40 };
+/** 600 000 time steps: a few seconds of work, several 100 ms polls while it runs. */
+const MEDIUM_RUN = { cycles: 6000, maxStepPerPeriod: 100 };
 /** Millions of time steps: minutes of work, so it is certainly still running when cancelled. */
 const LONG_RUN = { cycles: 20000, maxStepPerPeriod: 2000 };
 
@@ -115,6 +118,20 @@ describe('simulations', () => {
       expect(job.result!.waveforms.map((w: WaveformTrace) => w.phase)).toEqual(['startup', 'steady-state']);
     });
 
+    it('shows progress strictly between 0 and 100 while a longer job runs, rising to 100 when it succeeds', async () => {
+      const started = await start({ kind: 'startup', document: doubler(), options: MEDIUM_RUN });
+      expect(started.status).toBe(202);
+      const { job, seenPct } = await waitForEnd(started.body.jobId, 60_000);
+      expect(job.status).toBe('succeeded');
+      expect(job.progressPct).toBe(100);
+      expect(job.result!.summary.cyclesSimulated).toBe(6000);
+      const intermediate = seenPct.filter((pct) => pct > 0 && pct < 100);
+      expect(intermediate.length).toBeGreaterThan(0);
+      expect(seenPct).toEqual([...seenPct].sort((a, b) => a - b));
+      // Written in steps of 5 % (the runner's throttle), so every intermediate value is a multiple of 5.
+      expect(intermediate.every((pct) => pct % 5 === 0)).toBe(true);
+    }, 70_000);
+
     it('cancels a long running job: cancelled, no result, and progress stops', async () => {
       const started = await start({ kind: 'full', document: doubler(), options: LONG_RUN });
       expect(started.status).toBe(202);
@@ -171,6 +188,40 @@ describe('simulations', () => {
     });
   });
 
+  describe('a stored revision', () => {
+    it('simulates revision 1 of a design of the project, recording design and revision on the job', async () => {
+      const design = await createDesign(testApp, project.id, engineer.id, { name: 'Stored doubler', from: { kind: 'document', document: doubler() } });
+      const started = await start({ kind: 'startup', designId: design.id, revisionNumber: 1, options: SMALL_RUN });
+      expect(started.status).toBe(202);
+      const { job } = await waitForEnd(started.body.jobId);
+      expect(job.status).toBe('succeeded');
+      expect(job.designId).toBe(design.id);
+      expect(job.revisionNumber).toBe(1);
+      // The same document sent inline gives the same figures: the run used the stored revision's document.
+      const inline = await waitForEnd((await start({ kind: 'startup', document: doubler(), options: SMALL_RUN })).body.jobId);
+      expect(inline.job.designId).toBeNull();
+      expect(job.result!.summary.outputMeanV).toBe(inline.job.result!.summary.outputMeanV);
+      expect(job.result!.summary.cyclesSimulated).toBe(30);
+    });
+
+    it('returns 404 naming designId for a design of another project or an unknown design', async () => {
+      const foreign = await createDesign(testApp, otherProject.id, outsider.id);
+      for (const designId of [foreign.id, randomUUID()]) {
+        const response = await start({ kind: 'startup', designId, revisionNumber: 1 });
+        expect(response.status).toBe(404);
+        expect(response.body.field).toBe('designId');
+      }
+    });
+
+    it('returns 404 naming the revision when the design has no such revision', async () => {
+      const design = await createDesign(testApp, project.id, engineer.id);
+      const response = await start({ kind: 'startup', designId: design.id, revisionNumber: 99 });
+      expect(response.status).toBe(404);
+      expect(response.body.field).toBe('revisionNumber');
+      expect(response.body.message).toMatch(/Revision 99 not found/);
+    });
+  });
+
   describe('access', () => {
     it('returns 401 without a session', async () => {
       expect((await http().post(base()).send({ kind: 'startup', document: doubler() })).status).toBe(401);
@@ -219,6 +270,8 @@ describe('simulations', () => {
       ['options.maxStepPerPeriod', { kind: 'startup', document: doubler(), options: { maxStepPerPeriod: 'fine' } }],
       ['designId', { kind: 'startup', designId: 'nope', revisionNumber: 1 }],
       ['document', { kind: 'startup', document: doubler(), designId: randomUUID(), revisionNumber: 1 }],
+      ['revisionNumber', { kind: 'startup', designId: randomUUID() }],
+      ['designId', { kind: 'startup', revisionNumber: 1 }],
     ])('returns 400 naming %s', async (field, body) => {
       const response = await start(body);
       expect(response.status).toBe(400);

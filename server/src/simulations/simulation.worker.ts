@@ -2,21 +2,20 @@ import type { SimulationResult, SimulationSummary, WaveformPhase, WaveformTrace 
 import type { DischargeRule } from '@ladderwright/shared/designs';
 import { isDomainError } from '@ladderwright/shared/errors';
 import { ladderSpecFromDesign, type PlotTrace, runLadder } from '@ladderwright/shared/sim';
-import type { SimulationTask, SimulationTaskOutcome } from './simulation-task.types';
+import type { SimulationProgressMessage, SimulationTask, SimulationTaskOutcome } from './simulation-task.types';
 
 /*
  * Worker-thread entry (piscina). Everything here runs off the request thread; the main thread sees only
  * progress messages on `task.progressPort` and the returned outcome. The numerics are the shared
- * simulator's design-level run. It reports no progress between its phases yet, so progress goes 0 -> 100
- * and a cancel of a running job ends the worker thread (piscina abort) after the cancel grace.
+ * simulator's design-level run: its progress fraction is posted in whole percent, and it reads the shared
+ * cancel flag between time steps, so a cancel stops it at its next step (the piscina abort after the cancel
+ * grace remains for a phase without steps, such as the periodic-steady-state solve).
  */
 
 /** Steps per drive period when the request gives none (the simulator's own tests use 100 to 200). */
 export const DEFAULT_MAX_STEP_PER_PERIOD = 100;
 /** Buckets of the min/max downsampling: at most twice as many points per trace reach the client. */
 const PLOT_BUCKETS = 500;
-
-class CancelledRun extends Error {}
 
 function dischargeVoltageV(rule: DischargeRule): number {
   if (typeof rule === 'object') return rule.voltageV;
@@ -34,11 +33,19 @@ function toWaveform(phase: WaveformPhase, trace: PlotTrace): WaveformTrace {
  */
 function simulate(task: SimulationTask): SimulationResult {
   const { document: design, options, kind } = task;
+  let postedPct = 0;
   const isDischarge = kind === 'discharge' || kind === 'full';
   const run = runLadder(ladderSpecFromDesign(design), {
     until: options.cycles !== undefined ? { cycles: options.cycles } : 'steady',
     maxStepPerPeriod: options.maxStepPerPeriod ?? DEFAULT_MAX_STEP_PER_PERIOD,
     plotBuckets: PLOT_BUCKETS,
+    onProgress: (fraction) => {
+      const progressPct = Math.floor(fraction * 100);
+      if (progressPct <= postedPct) return;
+      postedPct = progressPct;
+      task.progressPort.postMessage({ progressPct } satisfies SimulationProgressMessage);
+    },
+    shouldCancel: () => Atomics.load(task.cancelFlag, 0) === 1,
     ...(isDischarge ? { dischargeToV: dischargeVoltageV(design.targets.dischargeRule) } : {}),
   });
   const summary: SimulationSummary = {
@@ -61,12 +68,8 @@ export function runSimulationTask(task: SimulationTask): SimulationTaskOutcome {
   if (task.kind === 'fault-throw') throw new Error('fault injection: the simulation worker threw');
   if (task.kind === 'fault-exit') process.exit(70);
   try {
-    if (Atomics.load(task.cancelFlag, 0) === 1) throw new CancelledRun();
-    const result = simulate(task);
-    task.progressPort.postMessage({ progressPct: 100 });
-    return { ok: true, result };
+    return { ok: true, result: simulate(task) };
   } catch (error) {
-    if (error instanceof CancelledRun) return { ok: false, error: { code: 'cancelled', message: 'The run was cancelled', field: null } };
     if (isDomainError(error)) return { ok: false, error: { code: error.code, message: error.message, field: error.field } };
     const { code, field } = error as { code?: unknown; field?: unknown };
     if (error instanceof Error && typeof code === 'string') {

@@ -1,5 +1,6 @@
 import { Module } from '@nestjs/common';
 import { SequelizeModule } from '@nestjs/sequelize';
+import { RevisionsModule } from '../revisions/revisions.module';
 import { SimulationJobModel } from './simulation-job.model';
 import { SimulationPoolService } from './simulation-pool.service';
 import { SimulationQueueService } from './simulation-queue.service';
@@ -9,7 +10,7 @@ import { SimulationsService } from './simulations.service';
 
 /** Simulation jobs: queued in PostgreSQL (pg-boss), run on worker threads (piscina), read by polling. */
 @Module({
-  imports: [SequelizeModule.forFeature([SimulationJobModel])],
+  imports: [SequelizeModule.forFeature([SimulationJobModel]), RevisionsModule],
   controllers: [SimulationsController],
   providers: [SimulationsService, SimulationQueueService, SimulationPoolService, SimulationRunnerService],
 })

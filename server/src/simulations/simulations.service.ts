@@ -5,6 +5,7 @@ import { type Design, validateDesign } from '@ladderwright/shared/designs';
 import { DomainError, isDomainError } from '@ladderwright/shared/errors';
 import { APP_ENV, type AppEnv } from '../config/env';
 import { isUuid } from '../common/uuid';
+import { RevisionsService } from '../revisions/revisions.service';
 import { SIMULATION_KINDS, type StartSimulationDto } from './dto/start-simulation.dto';
 import { SimulationJobModel } from './simulation-job.model';
 import { SimulationQueueService } from './simulation-queue.service';
@@ -20,16 +21,19 @@ export class SimulationsService {
     @Inject(APP_ENV) private readonly env: AppEnv,
     private readonly queue: SimulationQueueService,
     private readonly runner: SimulationRunnerService,
+    private readonly revisions: RevisionsService,
   ) {}
 
   async start(projectId: string, userId: string, body: StartSimulationDto): Promise<StartSimulationResponse> {
     const kind = this.checkKind(body.kind);
-    const document = this.resolveDocument(body);
+    const source = await this.resolveSource(projectId, body);
     const job = await SimulationJobModel.create({
       projectId,
       requestedBy: userId,
       kind,
-      input: { document, options: { ...body.options } },
+      input: { document: source.document, options: { ...body.options } },
+      designId: source.designId,
+      revisionNumber: source.revisionNumber,
     });
     try {
       const queueJobId = await this.queue.send({ simulationJobId: job.id });
@@ -77,7 +81,11 @@ export class SimulationsService {
     return kind as SimulationKind;
   }
 
-  private resolveDocument(body: StartSimulationDto): Design {
+  /** The document to simulate: the one sent, or the stored revision (its design must be of this project, else 404). */
+  private async resolveSource(
+    projectId: string,
+    body: StartSimulationDto,
+  ): Promise<{ document: Design; designId: string | null; revisionNumber: number | null }> {
     const hasRevision = body.designId !== undefined || body.revisionNumber !== undefined;
     if (body.document === undefined && !hasRevision) {
       throw new DomainError('invalid_argument', 'document is required (or designId with revisionNumber)', 'document');
@@ -86,11 +94,13 @@ export class SimulationsService {
       throw new DomainError('invalid_argument', 'give either document or designId with revisionNumber, not both', 'document');
     }
     if (body.document === undefined) {
-      // Stored revisions arrive with the designs module; until then only a document can be simulated.
-      throw new DomainError('invalid_argument', 'simulating a stored revision is not available yet; send the document', 'designId');
+      if (body.designId === undefined) throw new DomainError('invalid_argument', 'designId is required with revisionNumber', 'designId');
+      if (body.revisionNumber === undefined) throw new DomainError('invalid_argument', 'revisionNumber is required with designId', 'revisionNumber');
+      const revision = await this.revisions.get(projectId, body.designId, String(body.revisionNumber));
+      return { document: revision.document, designId: revision.designId, revisionNumber: revision.number };
     }
     try {
-      return validateDesign(body.document);
+      return { document: validateDesign(body.document), designId: null, revisionNumber: null };
     } catch (error) {
       if (!isDomainError(error)) throw error;
       const issues = error.issues.map((issue) => ({ path: `document.${issue.path}`, message: issue.message }));
