@@ -13,7 +13,13 @@ const stateColors: Record<RevisionState, string> = {
 /** A revision's Sign-off state: the word is always written, the colour only supports it. */
 export function RevisionStateBadge({ state }: { state: RevisionState }) {
   return (
-    <Badge variant="light" color={stateColors[state]} radius="sm" tt="none">
+    <Badge
+      variant="light"
+      color={stateColors[state]}
+      radius="sm"
+      tt="none"
+      style={{ maxWidth: 'none', overflow: 'visible' }}
+    >
       {state}
     </Badge>
   );
