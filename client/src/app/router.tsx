@@ -52,6 +52,20 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
               },
             },
             {
+              path: paths.partsShelf.path,
+              lazy: async () => {
+                const { PartsShelfRoute, partsShelfLoader } = await import('./routes/app/parts-shelf');
+                return { Component: PartsShelfRoute, loader: partsShelfLoader(queryClient) };
+              },
+            },
+            {
+              path: paths.benchRuns.path,
+              lazy: async () => {
+                const { BenchRunsRoute, benchRunsLoader } = await import('./routes/app/bench-runs');
+                return { Component: BenchRunsRoute, loader: benchRunsLoader(queryClient) };
+              },
+            },
+            {
               path: paths.sizer.path,
               lazy: async () => {
                 const { SizerRoute, sizerLoader } = await import('./routes/app/sizer');

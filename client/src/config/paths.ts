@@ -23,6 +23,15 @@ export const paths = {
     path: '/projects/:projectId/sizer',
     getHref: (projectId: string) => `/projects/${encodeURIComponent(projectId)}/sizer`,
   },
+  partsShelf: {
+    path: '/projects/:projectId/parts',
+    getHref: (projectId: string) => `/projects/${encodeURIComponent(projectId)}/parts`,
+  },
+  benchRuns: {
+    path: '/projects/:projectId/designs/:designId/revisions/:revisionNumber/bench-runs',
+    getHref: (projectId: string, designId: string, revisionNumber: number) =>
+      `/projects/${encodeURIComponent(projectId)}/designs/${encodeURIComponent(designId)}/revisions/${revisionNumber}/bench-runs`,
+  },
 } as const;
 
 export const apiPaths = {
@@ -48,6 +57,16 @@ export const apiPaths = {
     `/api/projects/${encodeURIComponent(projectId)}/simulations/${encodeURIComponent(jobId)}`,
   cancelSimulation: (projectId: string, jobId: string) =>
     `/api/projects/${encodeURIComponent(projectId)}/simulations/${encodeURIComponent(jobId)}/cancel`,
+  parts: (projectId: string) => `/api/projects/${encodeURIComponent(projectId)}/parts`,
+  part: (projectId: string, partId: string) =>
+    `/api/projects/${encodeURIComponent(projectId)}/parts/${encodeURIComponent(partId)}`,
+  importParts: (projectId: string, dryRun: boolean) =>
+    `/api/projects/${encodeURIComponent(projectId)}/parts/import?dryRun=${dryRun}`,
+  exportParts: (projectId: string) => `/api/projects/${encodeURIComponent(projectId)}/parts/export.csv`,
+  benchRuns: (projectId: string, designId: string, revisionNumber: number) =>
+    `/api/projects/${encodeURIComponent(projectId)}/designs/${encodeURIComponent(designId)}/revisions/${revisionNumber}/bench-runs`,
+  benchRun: (projectId: string, designId: string, revisionNumber: number, benchRunId: string) =>
+    `/api/projects/${encodeURIComponent(projectId)}/designs/${encodeURIComponent(designId)}/revisions/${revisionNumber}/bench-runs/${encodeURIComponent(benchRunId)}`,
 } as const;
 
 /** Keeps a post-sign-in redirect inside this app: only same-origin absolute paths are accepted. */

@@ -98,3 +98,24 @@ export async function apiRequest<T>(url: string, options: RequestOptions = {}): 
   const text = await response.text();
   return (text ? JSON.parse(text) : undefined) as T;
 }
+
+/** Sends a multipart form (file uploads) with the session cookie; errors as `apiRequest`. */
+export async function apiFormRequest<T>(
+  url: string,
+  form: FormData,
+  options: { signal?: AbortSignal } = {},
+): Promise<T> {
+  const response = await fetch(url, {
+    method: 'POST',
+    headers: { Accept: 'application/json' },
+    body: form,
+    credentials: 'include',
+    signal: options.signal,
+  });
+  if (!response.ok) {
+    const errorBody = await readErrorBody(response);
+    if (response.status === 401) unauthorizedHandler?.();
+    throw new ApiError(errorBody, parseRetryAfterS(response.headers.get('Retry-After')));
+  }
+  return (await response.json()) as T;
+}

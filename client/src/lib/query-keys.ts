@@ -25,4 +25,16 @@ export const queryKeys = {
     all: ['simulations'] as const,
     job: (projectId: string, jobId: string) => [...queryKeys.simulations.all, projectId, jobId] as const,
   },
+  parts: {
+    all: ['parts'] as const,
+    project: (projectId: string) => [...queryKeys.parts.all, projectId] as const,
+    list: (projectId: string, query: object) => [...queryKeys.parts.project(projectId), 'list', query] as const,
+  },
+  benchRuns: {
+    all: ['benchRuns'] as const,
+    revision: (projectId: string, designId: string, revisionNumber: number) =>
+      [...queryKeys.benchRuns.all, projectId, designId, revisionNumber] as const,
+    detail: (projectId: string, designId: string, revisionNumber: number, benchRunId: string) =>
+      [...queryKeys.benchRuns.revision(projectId, designId, revisionNumber), benchRunId] as const,
+  },
 } as const;

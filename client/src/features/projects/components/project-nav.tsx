@@ -48,6 +48,9 @@ export function ProjectNav({ projects, activeProjectId, isLoading }: ProjectNavP
                 />
               )}
               {isActive && <NavLink component={Link} to={paths.sizer.getHref(project.id)} label="Sizer" pl="xl" />}
+              {isActive && (
+                <NavLink component={Link} to={paths.partsShelf.getHref(project.id)} label="Parts shelf" pl="xl" />
+              )}
             </div>
           );
         })}

@@ -1,0 +1,119 @@
+import { mkdirSync } from 'node:fs';
+import { resolve } from 'node:path';
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+
+const baseUrl = inject('baseUrl');
+const screenshotDir = resolve(import.meta.dirname, '..', 'test-results');
+const demoPassword = 'Northfold-demo-1';
+const chromiumArgs = [
+  '--headless',
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+  '--no-first-run',
+];
+
+let browser: Browser;
+let context: BrowserContext;
+let page: Page;
+const pageErrors: string[] = [];
+
+interface CurvePoint {
+  x: number;
+  y: number;
+}
+
+describe('bench runs journey', () => {
+  beforeAll(async () => {
+    mkdirSync(screenshotDir, { recursive: true });
+    browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: chromiumArgs });
+    context = await browser.newContext({ viewport: { width: 1280, height: 900 }, colorScheme: 'light' });
+    page = await context.newPage();
+    page.on('pageerror', (error) => pageErrors.push(error.message));
+    page.on('console', (message) => {
+      if (message.type() === 'error' && !message.text().includes('401')) pageErrors.push(message.text());
+    });
+  });
+  afterAll(async () => {
+    await context?.close();
+    await browser?.close();
+  });
+
+  it('uploads a load sweep 2 % above the prediction and shows the overlay and a pass with 60 % margin', async () => {
+    await page.goto(`${baseUrl}/sign-in`);
+    await page.getByLabel('E-mail').fill('engineer@northfold.test');
+    await page.getByLabel('Password', { exact: false }).first().fill(demoPassword);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByRole('heading', { name: 'Projects', level: 1 }).waitFor();
+
+    // A seeded design and its latest revision, found through the API with the browser's session.
+    const projects = (await (await page.request.get(`${baseUrl}/api/projects`)).json()) as {
+      id: string;
+      name: string;
+    }[];
+    const project = projects.find((candidate) => candidate.name === 'Detector tube bias') ?? projects[0];
+    if (!project) throw new Error('no demo project');
+    const designs = (await (await page.request.get(`${baseUrl}/api/projects/${project.id}/designs`)).json()) as {
+      items: { id: string; latestRevisionNumber: number }[];
+    };
+    const design = designs.items[0];
+    if (!design) throw new Error('no demo design');
+    const revisionUrl = `${baseUrl}/api/projects/${project.id}/designs/${design.id}/revisions/${design.latestRevisionNumber}`;
+    const revision = (await (await page.request.get(revisionUrl)).json()) as {
+      report: { curves: { regulation: CurvePoint[] } };
+    };
+    const curve = revision.report.curves.regulation;
+
+    // Measured = 1.02 × predicted at five curve points: deviation +2 % each; against ±5 % the margin is
+    // (0.05 − 0.02)/0.05 = 60 % (worked by hand), a pass.
+    const rows = [2, 4, 6, 8, 10].map((i) => curve[i] as CurvePoint);
+    const csv = [
+      'current (uA),voltage (V)',
+      ...rows.map((p) => `${(p.x * 1e6).toPrecision(12)},${(p.y * 1.02).toPrecision(12)}`),
+    ].join('\n');
+
+    // In-app navigation (the router's history), as a link from the Workbench would do it.
+    const benchPath = `/projects/${project.id}/designs/${design.id}/revisions/${design.latestRevisionNumber}/bench-runs`;
+    await page.evaluate((path) => {
+      window.history.pushState({}, '', path);
+      window.dispatchEvent(new PopStateEvent('popstate'));
+    }, benchPath);
+    await page.getByRole('heading', { name: /Bench runs · revision/ }).waitFor();
+    await page.getByText('No bench runs for this revision yet.').waitFor();
+    const form = page.getByRole('form', { name: 'Upload a bench run' });
+    await form
+      .locator('input[type="file"]')
+      .first()
+      .setInputFiles({ name: 'sweep.csv', mimeType: 'text/csv', buffer: Buffer.from(csv) });
+    await form.getByRole('button', { name: 'Upload and compare' }).click();
+
+    const overlay = page.getByLabel('Bench overlay');
+    await overlay.waitFor();
+    await expect(overlay.getByLabel('pass, margin 60.0 %').textContent()).resolves.toContain('pass · margin 60.0 %');
+    const deviations = page.getByRole('table', { name: 'Deviation per point' }).getByRole('row');
+    expect(await deviations.count()).toBe(6);
+    await expect(deviations.nth(1).textContent()).resolves.toContain('2.00 %');
+    expect(await overlay.locator('.recharts-surface').count()).toBeGreaterThan(0);
+    await expect(page.getByRole('table', { name: 'Bench runs of this revision' }).textContent()).resolves.toContain(
+      'load sweep',
+    );
+    await page.screenshot({ path: resolve(screenshotDir, 'bench-runs-overlay.png'), fullPage: true });
+
+    // A bad file is refused with the line and column named, and nothing is added to the list.
+    await form
+      .locator('input[type="file"]')
+      .first()
+      .setInputFiles({
+        name: 'bad.csv',
+        mimeType: 'text/csv',
+        buffer: Buffer.from('current (uA),voltage (V)\n10,abc\n20,900\n'),
+      });
+    await form.getByRole('button', { name: 'Upload and compare' }).click();
+    await page.getByText("line 2, column voltage (V): 'abc' is not a number").first().waitFor();
+    expect(await page.getByRole('table', { name: 'Bench runs of this revision' }).getByRole('row').count()).toBe(2);
+    expect(pageErrors.filter((text) => !text.includes('400'))).toEqual([]);
+  });
+});

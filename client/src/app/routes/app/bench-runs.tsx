@@ -1,0 +1,74 @@
+import { Anchor, Breadcrumbs, Paper, Stack, Text, Title } from '@mantine/core';
+import { useDocumentTitle } from '@mantine/hooks';
+import { useSuspenseQuery, type QueryClient } from '@tanstack/react-query';
+import { useState } from 'react';
+import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
+import { paths } from '../../../config/paths';
+import { useBenchRun } from '../../../features/bench-runs/api/get-bench-run';
+import { BenchOverlay } from '../../../features/bench-runs/components/bench-overlay';
+import { BenchRunList } from '../../../features/bench-runs/components/bench-run-list';
+import { BenchRunUpload } from '../../../features/bench-runs/components/bench-run-upload';
+import { getProjectQueryOptions } from '../../../features/projects/api/get-project';
+import { requireUser } from './root';
+
+export function benchRunsLoader(queryClient: QueryClient) {
+  return async ({ params, request }: LoaderFunctionArgs) => {
+    await requireUser(queryClient, request);
+    await queryClient.ensureQueryData(getProjectQueryOptions(params.projectId ?? ''));
+    return null;
+  };
+}
+
+/** Bench runs of one revision: upload measured data, see it over the prediction with the verdict. */
+export function BenchRunsRoute() {
+  const { projectId = '', designId = '', revisionNumber: rawNumber = '' } = useParams();
+  const revisionNumber = Number(rawNumber);
+  const { data: project } = useSuspenseQuery(getProjectQueryOptions(projectId));
+  useDocumentTitle(`${project.name} · Bench runs · Ladderwright`);
+  const [selectedId, setSelectedId] = useState<string | null>(null);
+  const selected = useBenchRun(projectId, designId, revisionNumber, selectedId);
+  const canUpload = project.myRole === 'engineer' || project.myRole === 'lead';
+  return (
+    <Stack gap="lg">
+      <Breadcrumbs>
+        <Anchor component={Link} to={paths.project.getHref(projectId)} size="sm">
+          {project.name}
+        </Anchor>
+        <Anchor component={Link} to={paths.design.getHref(projectId, designId, revisionNumber)} size="sm">
+          Workbench, revision {revisionNumber}
+        </Anchor>
+        <Text size="sm">Bench runs</Text>
+      </Breadcrumbs>
+      <Title order={1} size="h2">
+        Bench runs · revision {revisionNumber}
+      </Title>
+      {canUpload && (
+        <Paper withBorder p="md">
+          <BenchRunUpload
+            projectId={projectId}
+            designId={designId}
+            revisionNumber={revisionNumber}
+            onUploaded={(run) => setSelectedId(run.id)}
+          />
+        </Paper>
+      )}
+      <BenchRunList
+        projectId={projectId}
+        designId={designId}
+        revisionNumber={revisionNumber}
+        selectedId={selectedId}
+        onSelect={setSelectedId}
+        canDelete={canUpload}
+      />
+      {selected.data && (
+        <Paper withBorder p="md">
+          <Title order={2} size="h4" mb="sm">
+            {selected.data.title || 'Measured on predicted'}
+          </Title>
+          <BenchOverlay run={selected.data} />
+        </Paper>
+      )}
+      {selected.error && <Text c="red">{selected.error.message}</Text>}
+    </Stack>
+  );
+}

@@ -1,0 +1,68 @@
+import { Anchor, Breadcrumbs, Button, Group, Paper, Stack, Text, Title } from '@mantine/core';
+import { useDocumentTitle } from '@mantine/hooks';
+import { useSuspenseQuery, type QueryClient } from '@tanstack/react-query';
+import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
+import { apiPaths, paths } from '../../../config/paths';
+import { AddPartForm } from '../../../features/parts/components/add-part-form';
+import { PartsImport } from '../../../features/parts/components/parts-import';
+import { PartsTable } from '../../../features/parts/components/parts-table';
+import { getProjectQueryOptions } from '../../../features/projects/api/get-project';
+import { requireUser } from './root';
+
+export function partsShelfLoader(queryClient: QueryClient) {
+  return async ({ params, request }: LoaderFunctionArgs) => {
+    await requireUser(queryClient, request);
+    await queryClient.ensureQueryData(getProjectQueryOptions(params.projectId ?? ''));
+    return null;
+  };
+}
+
+/** The project's Parts shelf: everyone reads it; leads add, import and remove parts. */
+export function PartsShelfRoute() {
+  const { projectId = '' } = useParams();
+  const { data: project } = useSuspenseQuery(getProjectQueryOptions(projectId));
+  useDocumentTitle(`${project.name} · Parts shelf · Ladderwright`);
+  const canManage = project.myRole === 'lead';
+  return (
+    <Stack gap="lg">
+      <Breadcrumbs>
+        <Anchor component={Link} to={paths.projects.getHref()} size="sm">
+          Projects
+        </Anchor>
+        <Anchor component={Link} to={paths.project.getHref(projectId)} size="sm">
+          {project.name}
+        </Anchor>
+        <Text size="sm">Parts shelf</Text>
+      </Breadcrumbs>
+      <Group justify="space-between">
+        <Title order={1} size="h2">
+          Parts shelf
+        </Title>
+        <Button component="a" variant="default" href={apiPaths.exportParts(projectId)} download>
+          Export CSV
+        </Button>
+      </Group>
+      <PartsTable projectId={projectId} canManage={canManage} />
+      {canManage ? (
+        <>
+          <Paper withBorder p="md">
+            <Title order={2} size="h4" mb="sm">
+              Add a part
+            </Title>
+            <AddPartForm projectId={projectId} />
+          </Paper>
+          <Paper withBorder p="md">
+            <Title order={2} size="h4" mb="sm">
+              Import from CSV
+            </Title>
+            <PartsImport projectId={projectId} />
+          </Paper>
+        </>
+      ) : (
+        <Text size="sm" c="dimmed">
+          The project lead manages this shelf.
+        </Text>
+      )}
+    </Stack>
+  );
+}

@@ -1,0 +1,104 @@
+import { ActionIcon, Badge, Group, Select, Table, Text, TextInput, Tooltip } from '@mantine/core';
+import { useDebouncedValue } from '@mantine/hooks';
+import { useState } from 'react';
+import type { PartKind } from '@ladderwright/shared/api';
+import { useDeletePart } from '../api/delete-part';
+import { useParts } from '../api/get-parts';
+import { describeRatings } from './part-ratings';
+
+const KIND_OPTIONS: { value: PartKind; label: string }[] = [
+  { value: 'capacitor', label: 'Capacitors' },
+  { value: 'diode', label: 'Diodes' },
+  { value: 'resistor', label: 'Resistors' },
+  { value: 'transistor', label: 'Transistors' },
+  { value: 'core', label: 'Transformer cores' },
+];
+
+export interface PartsTableProps {
+  projectId: string;
+  canManage: boolean;
+}
+
+/** The shelf with kind and text filters; leads may remove a part. */
+export function PartsTable({ projectId, canManage }: PartsTableProps) {
+  const [kind, setKind] = useState<PartKind | null>(null);
+  const [text, setText] = useState('');
+  const [q] = useDebouncedValue(text, 250);
+  const { data: parts, isPending, error } = useParts(projectId, { kind: kind ?? undefined, q: q || undefined });
+  const remove = useDeletePart(projectId);
+  return (
+    <div>
+      <Group mb="sm" gap="sm">
+        <Select
+          label="Kind"
+          placeholder="All kinds"
+          data={KIND_OPTIONS}
+          value={kind}
+          onChange={(value) => setKind(value as PartKind | null)}
+          clearable
+          w={200}
+        />
+        <TextInput
+          label="Search"
+          placeholder="Code or description"
+          value={text}
+          onChange={(e) => setText(e.currentTarget.value)}
+          w={260}
+        />
+      </Group>
+      {error && <Text c="red">{error.message}</Text>}
+      <Table striped highlightOnHover aria-label="Parts shelf">
+        <Table.Thead>
+          <Table.Tr>
+            <Table.Th>Code</Table.Th>
+            <Table.Th>Kind</Table.Th>
+            <Table.Th>Description</Table.Th>
+            <Table.Th>Ratings</Table.Th>
+            <Table.Th>Size (mm)</Table.Th>
+            <Table.Th ta="right">Unit cost</Table.Th>
+            {canManage && <Table.Th aria-label="Actions" />}
+          </Table.Tr>
+        </Table.Thead>
+        <Table.Tbody>
+          {isPending && (
+            <Table.Tr>
+              <Table.Td colSpan={7}>Loading the shelf…</Table.Td>
+            </Table.Tr>
+          )}
+          {parts?.length === 0 && (
+            <Table.Tr>
+              <Table.Td colSpan={7}>No parts match.</Table.Td>
+            </Table.Tr>
+          )}
+          {parts?.map((part) => (
+            <Table.Tr key={part.id}>
+              <Table.Td ff="monospace">{part.code}</Table.Td>
+              <Table.Td>
+                <Badge variant="light">{part.kind}</Badge>
+              </Table.Td>
+              <Table.Td>{part.description}</Table.Td>
+              <Table.Td>{describeRatings(part)}</Table.Td>
+              <Table.Td>{part.sizeMm}</Table.Td>
+              <Table.Td ta="right">{part.unitCost.toFixed(2)}</Table.Td>
+              {canManage && (
+                <Table.Td>
+                  <Tooltip label={`Remove ${part.code}`}>
+                    <ActionIcon
+                      variant="subtle"
+                      color="red"
+                      aria-label={`Remove ${part.code}`}
+                      onClick={() => remove.mutate(part.id)}
+                      loading={remove.isPending && remove.variables === part.id}
+                    >
+                      ×
+                    </ActionIcon>
+                  </Tooltip>
+                </Table.Td>
+              )}
+            </Table.Tr>
+          ))}
+        </Table.Tbody>
+      </Table>
+    </div>
+  );
+}
