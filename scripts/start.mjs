@@ -105,6 +105,11 @@ async function main() {
     SEED_DEMO: process.env.SEED_DEMO ?? '1',
     CLIENT_DIST_DIR: process.env.CLIENT_DIST_DIR ?? join(repoDir, 'client', 'dist'),
     DATA_DIR: process.env.DATA_DIR ?? dataDir,
+    // Mail goes to the in-process fake SMTP server on loopback and shows in the Outbox (admin).
+    SMTP_FAKE: process.env.SMTP_FAKE ?? '1',
+    SMTP_HOST: process.env.SMTP_HOST ?? '127.0.0.1',
+    SMTP_PORT: process.env.SMTP_PORT ?? '2525',
+    PUBLIC_URL: process.env.PUBLIC_URL ?? url,
   };
   const server = spawn(process.execPath, [join(repoDir, 'server', 'dist', 'main.js')], {
     cwd: join(repoDir, 'server'),
@@ -139,6 +144,8 @@ async function main() {
 
   High voltage can kill. Designs made here are aids only: the applicable standard,
   local codes and licensed practice govern every build and test.
+
+  Mail is captured by a local fake SMTP server (127.0.0.1:${env.SMTP_PORT}) and shown in the Outbox (admin).
 
   Press Ctrl-C to stop${pgWasRunning ? ' (PostgreSQL was already running and stays up)' : ' the server and PostgreSQL'}.
 `);

@@ -72,6 +72,11 @@ export default async function setup(project: TestProject): Promise<() => Promise
       SEED_DEMO: '1',
       CLIENT_DIST_DIR: clientDist,
       NODE_ENV: 'test',
+      // Sign-off mail goes to the in-process fake SMTP server and the Outbox.
+      SMTP_FAKE: '1',
+      SMTP_HOST: '127.0.0.1',
+      SMTP_PORT: process.env.E2E_SMTP_PORT ?? String(port + 1),
+      MAIL_POLL_MS: '200',
     },
     stdio: ['ignore', 'pipe', 'pipe'],
   });

@@ -26,6 +26,7 @@ import { MailModule } from './mail/mail.module';
 import { PartsModule } from './parts/parts.module';
 import { ProjectsModule } from './projects/projects.module';
 import { ReviewsModule } from './reviews/reviews.module';
+import { SpecSheetsModule } from './spec-sheets/spec-sheets.module';
 import { SimulationsModule } from './simulations/simulations.module';
 import { RevisionsModule } from './revisions/revisions.module';
 import { UsersModule } from './users/users.module';
@@ -38,7 +39,7 @@ export class AppModule {
   static forRoot(env: AppEnv): DynamicModule {
     return {
       module: AppModule,
-      imports: [ConfigModule.forRoot(env), DatabaseModule, AuditModule, UsersModule, AuthModule, ProjectsModule, HealthModule, MailModule, ReviewsModule, AnalysisModule, RevisionsModule, DesignsModule, PartsModule, BenchRunsModule, SimulationsModule],
+      imports: [ConfigModule.forRoot(env), DatabaseModule, AuditModule, UsersModule, AuthModule, ProjectsModule, HealthModule, MailModule, ReviewsModule, SpecSheetsModule, AnalysisModule, RevisionsModule, DesignsModule, PartsModule, BenchRunsModule, SimulationsModule],
       providers: [
         { provide: APP_GUARD, useClass: JwtAuthGuard },
         { provide: APP_GUARD, useClass: RolesGuard },

@@ -1,0 +1,41 @@
+import type { SignOffApproval } from '@ladderwright/shared/api';
+import type { Design } from '@ladderwright/shared/designs';
+import type { DesignReport } from '@ladderwright/shared/multiplier';
+import type { AcceptanceLimits } from '@ladderwright/shared/reviews';
+import type { RevisionState } from '@ladderwright/shared/reviews';
+
+/** The transformer data the supplier winds and tests to. */
+export type WindingSpec =
+  | {
+      kind: 'driver';
+      primaryTurns: number;
+      feedbackTurns: number;
+      secondaryTurns: number;
+      primaryInductanceH: number;
+      couplingCoefficient: number;
+      saturationCurrentA: number;
+      insulationRatedV: number | null;
+      secondaryPeakV: number;
+      frequencyHz: number;
+      hipotTestV: number;
+      hipotMethod: string;
+    }
+  | { kind: 'secondary'; secondaryPeakV: number; frequencyHz: number; waveform: string };
+
+/** Everything the spec sheet prints, gathered by the service from the stored revision and its Sign-off. */
+export interface SpecSheetContent {
+  projectName: string;
+  designName: string;
+  revisionNumber: number;
+  state: RevisionState;
+  isReleased: boolean;
+  authorName: string;
+  approvals: SignOffApproval[];
+  releasedBy: { name: string; at: string } | null;
+  generatedAt: Date;
+  engineVersion: string;
+  document: Design;
+  report: DesignReport;
+  winding: WindingSpec;
+  acceptance: AcceptanceLimits;
+}

@@ -1,0 +1,173 @@
+import { execFileSync } from 'node:child_process';
+import { mkdirSync, mkdtempSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import request from 'supertest';
+import type { DesignDetail } from '@ladderwright/shared/api';
+import { createDesign } from './factories/create-design';
+import { createProject, type TestProject } from './factories/create-project';
+import { createUser, type TestUser } from './factories/create-user';
+import { createTestApp, type TestApp } from './utils/create-test-app';
+import { signIn } from './utils/sign-in';
+
+/** Collects a binary response body (supertest buffers only text by default). */
+function binary(response: request.Response, done: (error: Error | null, body: Buffer) => void): void {
+  const chunks: Buffer[] = [];
+  response.on('data', (chunk: Buffer) => chunks.push(chunk));
+  response.on('end', () => done(null, Buffer.concat(chunks)));
+}
+
+function pdfText(pdf: Buffer): string {
+  const dir = mkdtempSync(join(tmpdir(), 'lw-sheet-'));
+  writeFileSync(join(dir, 'sheet.pdf'), pdf);
+  return execFileSync('pdftotext', ['-layout', join(dir, 'sheet.pdf'), '-'], { encoding: 'utf8' });
+}
+
+// Permissions follow shared/src/auth/permissions.ts (specSheet.export: lead; specSheet.exportDraft:
+// engineer, lead) and issue 6 (NOT RELEASED on every page of a sheet that is not released): common practice, no source.
+describe('spec sheets', () => {
+  let testApp: TestApp;
+  const http = () => request(testApp.app.getHttpServer());
+  let engineer: TestUser;
+  let reviewer: TestUser;
+  let lead: TestUser;
+  let outsider: TestUser;
+  let project: TestProject;
+  const cookies = new Map<string, string>();
+  const as = (user: TestUser) => cookies.get(user.email) ?? '';
+  const base = (design: { id: string }) => `/api/projects/${project.id}/designs/${design.id}/revisions/1`;
+  const sheet = (design: { id: string }, user: TestUser) =>
+    http()
+      .get(`${base(design)}/spec-sheet.pdf`)
+      .set('Cookie', as(user))
+      .buffer(true)
+      .parse(binary);
+
+  async function released(templateId: string, name: string): Promise<DesignDetail> {
+    const design = await createDesign(testApp, project.id, engineer.id, {
+      name,
+      from: { kind: 'template', templateId },
+    });
+    for (const [user, command, body] of [
+      [engineer, 'submit', { reviewerIds: [reviewer.id] }],
+      [reviewer, 'approve', { note: 'Margins fine' }],
+      [lead, 'release', {}],
+    ] as const) {
+      const response = await http()
+        .post(`${base(design)}/${command}`)
+        .set('Cookie', as(user))
+        .send(body);
+      expect(response.status).toBe(200);
+    }
+    return design;
+  }
+
+  beforeAll(async () => {
+    testApp = await createTestApp();
+    engineer = await createUser(testApp, { role: 'engineer', displayName: 'Edda Engineer' });
+    reviewer = await createUser(testApp, { role: 'reviewer', displayName: 'Rolf Reviewer' });
+    lead = await createUser(testApp, { role: 'lead', displayName: 'Lena Lead' });
+    outsider = await createUser(testApp, { role: 'lead' });
+    project = await createProject(
+      [
+        { userId: engineer.id, role: 'engineer' },
+        { userId: reviewer.id, role: 'reviewer' },
+        { userId: lead.id, role: 'lead' },
+      ],
+      { name: 'Detector tube bias' },
+    );
+    for (const user of [engineer, reviewer, lead, outsider])
+      cookies.set(user.email, await signIn(testApp, user.email, user.password));
+  });
+  afterAll(async () => testApp.close());
+
+  it('gives the lead a released sheet with revision, approvals, BOM lines, acceptance limits and the caution', async () => {
+    const design = await released('detectorBias', 'Detector tube bias, 900 V');
+    const response = await sheet(design, lead);
+    expect(response.status).toBe(200);
+    expect(response.headers['content-type']).toBe('application/pdf');
+    expect(response.headers['content-disposition']).toBe(
+      'attachment; filename="detector-tube-bias-900-v-r1-spec-sheet.pdf"',
+    );
+    const text = pdfText(response.body as Buffer);
+    expect(text).toContain('Spec sheet');
+    expect(text).toMatch(/Revision\s+1/);
+    expect(text).toMatch(/State\s+released/);
+    expect(text).toMatch(/Approved by\s+Rolf Reviewer, \d{4}-\d{2}-\d{2} \d{2}:\d{2} UTC/);
+    expect(text).toMatch(/Released\s+Lena Lead, \d{4}-\d{2}-\d{2}/);
+    expect(text).toMatch(/C1\s+NF-C223-630\s+22 nF\s+±10 %\s+630 V/);
+    expect(text).toMatch(/C2\s+NF-C103-1K\s+10 nF\s+±10 %\s+1 kV/);
+    expect(text).toMatch(/D1\s+NF-D1K-100M\s+PIV 1 kV/);
+    expect(text).toMatch(/R1–R2\s+NF-R100M-1K\s+2 × 100 Mohm/);
+    expect(text).toContain('Transformer winding spec');
+    expect(text).toMatch(/Secondary peak voltage\s+320 V/);
+    expect(text).toMatch(/Output, mean .*\(±10 %\)/);
+    expect(text).toContain('Ripple, peak-to-peak');
+    expect(text).toContain('Stored energy, all capacitors');
+    expect(text).toContain('HIGH VOLTAGE CAN KILL');
+    expect(text.replace(/\s+/g, ' ')).toContain('local codes and licensed practice govern every build and test');
+    expect(text).not.toContain('NOT RELEASED');
+  });
+
+  it('takes the winding spec from the driver stage, with turns, inductance and the hipot test voltage', async () => {
+    const design = await released('surfaceChargeTester', 'Surface-charge tester');
+    const response = await sheet(design, lead);
+    expect(response.status).toBe(200);
+    const text = pdfText(response.body as Buffer);
+    expect(text).toMatch(/Turns, primary \/ feedback \/ secondary\s+\d+ \/ \d+ \/ \d+/);
+    expect(text).toMatch(/Primary magnetizing inductance\s+[\d.]+ [mµ]H/);
+    expect(text).toMatch(/Hipot test, secondary to primary\/feedback\s+[\d.]+ k?V/);
+  });
+
+  it('marks every page of an engineer’s draft sheet NOT RELEASED, and its pages render to PNG', async () => {
+    const design = await createDesign(testApp, project.id, engineer.id, {
+      name: 'Ionizer bar, draft',
+      from: { kind: 'template', templateId: 'ionizerBar' },
+    });
+    const response = await sheet(design, engineer);
+    expect(response.status).toBe(200);
+    expect(response.headers['content-disposition']).toContain('-not-released.pdf');
+    const pdf = response.body as Buffer;
+    const text = pdfText(pdf);
+    const pages = text.split('\f').filter((page) => page.trim() !== '');
+    expect(pages.length).toBeGreaterThanOrEqual(2);
+    for (const page of pages) expect(page).toContain('NOT RELEASED');
+    expect(text).toMatch(/State\s+draft/);
+    expect(text).toMatch(/C14\s+NF-C222-2K/);
+
+    const dir = join(__dirname, '..', '..', '.data', 'test-results', 'spec-sheet');
+    rmSync(dir, { recursive: true, force: true });
+    mkdirSync(dir, { recursive: true });
+    writeFileSync(join(dir, 'draft.pdf'), pdf);
+    execFileSync('pdftoppm', ['-png', '-r', '60', join(dir, 'draft.pdf'), join(dir, 'draft')]);
+    const pngs = readdirSync(dir).filter((file) => file.startsWith('draft') && file.endsWith('.png'));
+    expect(pngs).toHaveLength(pages.length);
+  });
+
+  it.each([
+    ['an engineer asking for a released sheet', 'engineer', true, 403],
+    ['a reviewer asking for a released sheet', 'reviewer', true, 403],
+    ['a reviewer asking for a draft sheet', 'reviewer', false, 403],
+    ['a non-member', 'outsider', true, 404],
+  ])('refuses %s', async (_label, who, isReleased, status) => {
+    const design = isReleased
+      ? await released('detectorBias', `Bias ${who}`)
+      : await createDesign(testApp, project.id, engineer.id);
+    const user = { engineer, reviewer, outsider }[who as 'engineer' | 'reviewer' | 'outsider'];
+    const response = await http()
+      .get(`${base(design)}/spec-sheet.pdf`)
+      .set('Cookie', as(user));
+    expect(response.status).toBe(status);
+    expect(response.headers['content-type']).toMatch(/application\/json/);
+  });
+
+  it('answers 401 without a session and 404 naming the field for a missing revision', async () => {
+    const design = await createDesign(testApp, project.id, engineer.id);
+    expect((await http().get(`${base(design)}/spec-sheet.pdf`)).status).toBe(401);
+    const missing = await http()
+      .get(`/api/projects/${project.id}/designs/${design.id}/revisions/9/spec-sheet.pdf`)
+      .set('Cookie', as(lead));
+    expect(missing.status).toBe(404);
+    expect(missing.body.field).toBe('revisionNumber');
+  });
+});
