@@ -6,4 +6,4 @@ export type { ShelfPart } from './fill-part-ratings';
 export { bomCost } from './bom-cost';
 export type { BomCost, BomLine } from './bom-cost';
 export { shelfForSizer } from './shelf-for-sizer';
-export type { SizerPartsList, SizerCapacitorOption, SizerDiodeOption } from './shelf-for-sizer';
+export type { SizerPartsList, DiodeModelParameters } from './shelf-for-sizer';

@@ -183,12 +183,21 @@ describe('bomCost', () => {
 });
 
 describe('shelfForSizer', () => {
-  it('gives capacitors and diodes in the design field names', () => {
-    expect(shelfForSizer(shelf)).toEqual({
-      capacitors: [{ partCode: 'NF-C472-3K', valueF: 4.7e-9, ratedVoltageV: 3500, tolerance: 0.05, unitCost: 0.42 }],
+  it("gives the Sizer's parts list with shelf ratings on the given diode model", () => {
+    const model = { saturationCurrentA: 1e-9, emissionCoefficient: 8, seriesResistanceOhm: 40 };
+    expect(shelfForSizer(shelf, model)).toEqual({
+      capacitors: [{ valueF: 4.7e-9, ratedVoltageV: 3500, costEach: 0.42, partCode: 'NF-C472-3K' }],
       diodes: [
-        { partCode: 'NF-D4K-50M', ratedPivV: 4500, ratedAverageCurrentA: 0.04, ratedSurgeCurrentA: 8, unitCost: 0.3 },
+        {
+          ...model,
+          ratedPivV: 4500,
+          ratedAverageCurrentA: 0.04,
+          ratedSurgeCurrentA: 8,
+          costEach: 0.3,
+          partCode: 'NF-D4K-50M',
+        },
       ],
+      resistors: [{ valueOhm: 82e6, ratedPowerW: 0.5, limitingVoltageV: 1200, costEach: 0.11, partCode: 'NF-R82M-1K' }],
     });
   });
 });
