@@ -16,7 +16,7 @@ export const STEADY_STATE_METHOD: MethodInfo = {
     'constant load current between conductions; the output falls linearly between charge transfers',
     'diode forward drop: Shockley n·Vt·ln(1 + I/Is) + I·Rs at the mean conduction current, Vt at 300 K unless given',
     'sine drive: source-resistance loss from the peak-rectifier conduction angle, ΔV = (3·Q·ω·R·√Vpk / (4√2))^(2/3) per conduction',
-    'pulse drive: conduction spread over the phase; source loss Q·R / phase time (an upper bound when the RC time is short)',
+    'pulse drive: flat tops, so the diodes that conduct at the start of a phase stay conducting through it and share the load (solved per phase); source loss Q·R / phase time',
     'full-wave: the two antiphase paths share the charge equally (exact for a symmetric drive and equal columns)',
     'stray capacitance of each node to ground, first order: oscillating-column nodes swing by the drive peak-to-peak and their strays move that charge through the column below (a capacitive divider, a loss even at no load and independent of frequency); the smoothing column’s ripple swing is neglected; diode junction capacitance is not modelled (see the simulator)',
     'reported output is at the load terminal, after the series output resistor; the bleeder sits at the ladder top',
@@ -91,6 +91,13 @@ interface Workspace {
   /** Capacitor voltage change over the H→L swing per volt of drive peak-to-peak, from the node strays. */
   strayDelta: number[];
   nodeLoadRate: number[];
+  /** Capacitor and node rates per ampere of load during the H and L phases (diodes held conducting on flat-top drives). */
+  rateH: number[];
+  rateL: number[];
+  nodeRateH: number[];
+  nodeRateL: number[];
+  /** Capacitor change per A·s of L phase carried by the L diodes during the phase instead of at the event. */
+  deltaLPlateau: number[];
   flow: number[];
   injection: number[];
   stateA: number[];
@@ -125,6 +132,7 @@ function createWorkspace(net: LadderNetwork, input: LadderInput): Workspace {
     deltaH: zeros(m), deltaL: zeros(m),
     chargeH: zeros(net.anchorScale.length), chargeL: zeros(net.anchorScale.length),
     loadRate: zeros(m), strayDelta: zeros(m), nodeLoadRate: zeros(nodes),
+    rateH: [], rateL: [], nodeRateH: [], nodeRateL: [], deltaLPlateau: zeros(m),
     flow: zeros(nodes), injection: zeros(nodes),
     stateA: zeros(m), stateB: zeros(m),
     nodeA: zeros(nodes), nodeB: zeros(nodes),
@@ -166,7 +174,113 @@ function createWorkspace(net: LadderNetwork, input: LadderInput): Workspace {
   for (let c = 0; c < m; c += 1) {
     ws.nodeLoadRate[net.capTop[c] as number] = (ws.nodeLoadRate[net.capBottom[c] as number] as number) + (ws.loadRate[c] as number);
   }
+  ws.rateH = ws.loadRate;
+  ws.rateL = ws.loadRate;
+  ws.nodeRateH = ws.nodeLoadRate;
+  ws.nodeRateL = ws.nodeLoadRate;
+  if (!timing.isSine) {
+    const h = plateauRates(ws, EVENT_H);
+    const l = plateauRates(ws, 1);
+    if (h && l) {
+      ws.rateH = h.capRate;
+      ws.nodeRateH = h.nodeRate;
+      ws.rateL = l.capRate;
+      ws.nodeRateL = l.nodeRate;
+      ws.deltaLPlateau = l.diodeCapDelta;
+    }
+  }
   return ws;
+}
+
+/** Node voltage change per unit of each capacitor change, accumulated up the network. */
+function nodeRatesOf(net: LadderNetwork, capDelta: readonly number[]): number[] {
+  const nodeRate = zeros(net.nodeCount);
+  for (let c = 0; c < capDelta.length; c += 1) {
+    nodeRate[net.capTop[c] as number] = (nodeRate[net.capBottom[c] as number] as number) + (capDelta[c] as number);
+  }
+  return nodeRate;
+}
+
+/** Solves a small dense system by Gaussian elimination with partial pivoting; null when singular. */
+function solveSmall(matrix: number[][], rhs: number[]): number[] | null {
+  const n = rhs.length;
+  for (let col = 0; col < n; col += 1) {
+    let pivot = col;
+    for (let r = col + 1; r < n; r += 1) if (Math.abs(matrix[r]?.[col] ?? 0) > Math.abs(matrix[pivot]?.[col] ?? 0)) pivot = r;
+    const pivotRow = matrix[pivot] as number[];
+    if (Math.abs(pivotRow[col] as number) < 1e-300) return null;
+    [matrix[col], matrix[pivot]] = [pivotRow, matrix[col] as number[]];
+    [rhs[col], rhs[pivot]] = [rhs[pivot] as number, rhs[col] as number];
+    const row = matrix[col] as number[];
+    for (let r = col + 1; r < n; r += 1) {
+      const target = matrix[r] as number[];
+      const factor = (target[col] as number) / (row[col] as number);
+      for (let k = col; k < n; k += 1) target[k] = (target[k] as number) - factor * (row[k] as number);
+      rhs[r] = (rhs[r] as number) - factor * (rhs[col] as number);
+    }
+  }
+  const x = zeros(n);
+  for (let r = n - 1; r >= 0; r -= 1) {
+    const row = matrix[r] as number[];
+    let sum = rhs[r] as number;
+    for (let k = r + 1; k < n; k += 1) sum -= (row[k] as number) * (x[k] as number);
+    x[r] = sum / (row[r] as number);
+  }
+  return x;
+}
+
+/**
+ * Flat-top (pulse) drive: through a phase the source holds still and the diodes that conducted at its
+ * start stay at their conduction boundary while the load draws current, so the load is shared through
+ * them. Their currents x (per ampere of load) keep every such diode's voltage constant:
+ * Σ_d x_d·(dV_anode,e − dV_cathode,e)_d = −(dV_anode,e − dV_cathode,e)_load. Null when a diode would
+ * need reverse current (then the phase is treated as instantaneous transfer).
+ */
+function plateauRates(ws: Workspace, event: 0 | 1): { capRate: number[]; nodeRate: number[]; diodeCapDelta: number[] } | null {
+  const net = ws.net;
+  const m = net.capF.length;
+  let conducting: number[] = [];
+  for (let d = 0; d < net.diodeShare.length; d += 1) if (net.diodeEvent[d] === event) conducting.push(d);
+  const capDeltaOf = new Map<number, number[]>();
+  const nodeRateOf = new Map<number, number[]>();
+  for (const d of conducting) {
+    ws.injection.fill(0);
+    ws.injection[net.diodeCathode[d] as number] = 1;
+    ws.injection[net.diodeAnode[d] as number] = -1;
+    const capDelta = zeros(m);
+    accumulateFlow(net, ws.injection, ws.flow, capDelta);
+    capDeltaOf.set(d, capDelta);
+    nodeRateOf.set(d, nodeRatesOf(net, capDelta));
+  }
+  // Active set: a diode that would need reverse current drops out (it turns off just after the event).
+  let x: number[] | null = null;
+  for (let round = 0; round <= conducting.length && conducting.length > 0; round += 1) {
+    const set = conducting;
+    const voltageRate = (rates: readonly number[], e: number): number =>
+      (rates[net.diodeAnode[e] as number] as number) - (rates[net.diodeCathode[e] as number] as number);
+    const matrix = set.map((e) => set.map((d) => voltageRate(nodeRateOf.get(d) as number[], e)));
+    const rhs = set.map((e) => -voltageRate(ws.nodeLoadRate, e));
+    x = solveSmall(matrix, rhs);
+    if (!x) return null;
+    let worst = -1;
+    x.forEach((v, j) => {
+      if (v < -1e-9 && (worst < 0 || v < ((x as number[])[worst] as number))) worst = j;
+    });
+    if (worst < 0) break;
+    conducting = set.filter((_, j) => j !== worst);
+    x = null;
+  }
+  if (!x) return null;
+  const capRate = [...ws.loadRate];
+  const diodeCapDelta = zeros(m);
+  x.forEach((xd, j) => {
+    const capDelta = capDeltaOf.get(conducting[j] as number) as number[];
+    for (let c = 0; c < m; c += 1) {
+      capRate[c] = (capRate[c] as number) + xd * (capDelta[c] as number);
+      diodeCapDelta[c] = (diodeCapDelta[c] as number) + xd * (capDelta[c] as number);
+    }
+  });
+  return { capRate, nodeRate: nodeRatesOf(net, capRate), diodeCapDelta };
 }
 
 /** Per-event source loss and diode drop at a ladder current, from conduction time and charge. */
@@ -203,8 +317,6 @@ interface SolvedCycle {
   /** Ladder-top output just after H, and just after L. */
   afterHV: number;
   afterLV: number;
-  /** Output slope per ampere (V/s per A, negative). */
-  slopeVPerSA: number;
   meanV: number;
   minV: number;
   maxV: number;
@@ -235,7 +347,10 @@ function solveCycle(ws: Workspace, currentA: number): SolvedCycle {
     const cathode = net.diodeCathode[d] as number;
     // b − a over the H→L interval: load discharge plus the L charge transfer.
     const delta =
-      currentA * timing.afterHS * (ws.loadRate[c] as number) + q * (ws.deltaL[c] as number) + (timing.highV + timing.lowV) * (ws.strayDelta[c] as number);
+      currentA * timing.afterHS * (ws.rateH[c] as number) +
+      q * (ws.deltaL[c] as number) -
+      currentA * timing.afterLS * (ws.deltaLPlateau[c] as number) +
+      (timing.highV + timing.lowV) * (ws.strayDelta[c] as number);
     let a: number;
     let b: number;
     if (net.diodeEvent[d] === EVENT_H) {
@@ -254,12 +369,13 @@ function solveCycle(ws: Workspace, currentA: number): SolvedCycle {
   }
   const afterHV = (ws.nodeA[net.outNode] as number) - (ws.nodeA[net.returnNode] as number);
   const afterLV = (ws.nodeB[net.outNode] as number) - (ws.nodeB[net.returnNode] as number);
-  const slope = (ws.nodeLoadRate[net.outNode] as number) - (ws.nodeLoadRate[net.returnNode] as number);
-  const fallH = currentA * timing.afterHS * slope;
-  const fallL = currentA * timing.afterLS * slope;
+  const slopeH = (ws.nodeRateH[net.outNode] as number) - (ws.nodeRateH[net.returnNode] as number);
+  const slopeL = (ws.nodeRateL[net.outNode] as number) - (ws.nodeRateL[net.returnNode] as number);
+  const fallH = currentA * timing.afterHS * slopeH;
+  const fallL = currentA * timing.afterLS * slopeL;
   const meanV = (timing.afterHS * (afterHV + fallH / 2) + timing.afterLS * (afterLV + fallL / 2)) / timing.periodS;
   return {
-    afterHV, afterLV, slopeVPerSA: slope, meanV,
+    afterHV, afterLV, meanV,
     minV: Math.min(afterHV + fallH, afterLV + fallL),
     maxV: Math.max(afterHV, afterLV),
     forwardDropHV: lossH.forwardDropV, forwardDropLV: lossL.forwardDropV,
@@ -415,9 +531,8 @@ export function analyzePrepared(prepared: PreparedLadder, options: { operatingPo
   for (let c = 0; c < m; c += 1) {
     const a = ws.stateA[c] as number;
     const b = ws.stateB[c] as number;
-    const rate = ladderCurrentA * (ws.loadRate[c] as number);
-    const beforeL = a + rate * timing.afterHS;
-    const beforeH = b + rate * timing.afterLS;
+    const beforeL = a + ladderCurrentA * (ws.rateH[c] as number) * timing.afterHS;
+    const beforeH = b + ladderCurrentA * (ws.rateL[c] as number) * timing.afterLS;
     const high = Math.max(a, b, beforeL, beforeH);
     const low = Math.min(a, b, beforeL, beforeH);
     capacitors.push({
@@ -434,7 +549,8 @@ export function analyzePrepared(prepared: PreparedLadder, options: { operatingPo
   const nodeAt = (state: 'a' | 'b', fall: number, driveV: number, node: number): number => {
     const root = net.nodeRoot[node] as number;
     const base = state === 'a' ? (ws.nodeA[node] as number) - (ws.nodeA[root] as number) : (ws.nodeB[node] as number) - (ws.nodeB[root] as number);
-    return base + fall * (ws.nodeLoadRate[node] as number) + (net.anchorScale[root] as number) * driveV;
+    const rate = state === 'a' ? ws.nodeRateH : ws.nodeRateL;
+    return base + fall * (rate[node] as number) + (net.anchorScale[root] as number) * driveV;
   };
   const instants: Array<['a' | 'b', number, number]> = [
     ['a', 0, timing.highV],
