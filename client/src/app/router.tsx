@@ -38,6 +38,20 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
               },
             },
             {
+              path: paths.inbox.path,
+              lazy: async () => {
+                const { InboxRoute, inboxLoader } = await import('./routes/app/inbox');
+                return { Component: InboxRoute, loader: inboxLoader(queryClient) };
+              },
+            },
+            {
+              path: paths.outbox.path,
+              lazy: async () => {
+                const { OutboxRoute, outboxLoader } = await import('./routes/app/outbox');
+                return { Component: OutboxRoute, loader: outboxLoader(queryClient) };
+              },
+            },
+            {
               path: paths.project.path,
               lazy: async () => {
                 const { ProjectDesignsRoute, projectDesignsLoader } = await import('./routes/app/project-designs');

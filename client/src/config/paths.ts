@@ -1,5 +1,7 @@
 /** Every URL the client knows: screens (`path` for the router, `getHref` for links) and API endpoints. */
 export const paths = {
+  inbox: { path: '/inbox', getHref: () => '/inbox' },
+  outbox: { path: '/outbox', getHref: () => '/outbox' },
   signIn: {
     path: '/sign-in',
     getHref: (redirectTo?: string | null) =>
@@ -35,6 +37,8 @@ export const paths = {
 } as const;
 
 export const apiPaths = {
+  inbox: '/api/inbox',
+  outbox: '/api/outbox',
   signIn: '/api/auth/sign-in',
   signOut: '/api/auth/sign-out',
   me: '/api/auth/me',

@@ -1,5 +1,7 @@
 /** Hierarchical query keys: invalidate a prefix (e.g. `queryKeys.projects.all`) to refresh everything below it. */
 export const queryKeys = {
+  inbox: { all: ['inbox'] as const, mine: () => [...queryKeys.inbox.all, 'mine'] as const },
+  outbox: { all: ['outbox'] as const, list: () => [...queryKeys.outbox.all, 'list'] as const },
   auth: {
     all: ['auth'] as const,
     me: () => [...queryKeys.auth.all, 'me'] as const,
