@@ -74,6 +74,10 @@ describe('sign-in journey', () => {
     await expect(page.getByRole('button', { name: /^Account: / }).textContent()).resolves.toContain('engineer');
     await page.screenshot({ path: resolve(screenshotDir, 'projects-light.png') });
 
+    await page.reload();
+    await projectCards.first().waitFor();
+    expect(pathOf(page)).toBe('/');
+
     const firstProjectLink = projectCards.first().getByRole('link');
     const projectName = (await firstProjectLink.textContent())?.trim() ?? '';
     expect(projectName).not.toBe('');

@@ -102,10 +102,7 @@ describe('auth', () => {
     const response = await http().get('/api/auth/me').set('Cookie', cookie);
     expect(response.status).toBe(200);
     expect(response.body).toEqual({
-      id: engineer.id,
-      email: engineer.email,
-      displayName: engineer.displayName,
-      role: 'engineer',
+      user: { id: engineer.id, email: engineer.email, displayName: engineer.displayName, role: 'engineer' },
     });
   });
 

@@ -53,8 +53,8 @@ export class AuthController {
 
   @ApiCookieAuth()
   @Get('me')
-  me(@CurrentUser() user: SessionUser): SessionUser {
-    return user;
+  me(@CurrentUser() user: SessionUser): SignInResponse {
+    return { user: { id: user.id, email: user.email, displayName: user.displayName, role: user.role } };
   }
 
   private cookieOptions(): CookieOptions {
