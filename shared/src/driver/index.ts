@@ -22,3 +22,5 @@ export { driverOperatingPoint, halfWaveCascadeLoadLine, solveLoadPoint } from '.
 export type { LadderDrive, LadderLoadLine, LoadPoint, OperatingLimit, OperatingPointResult } from './operating-point';
 export { runDriverChecks } from './driver-checks';
 export type { DriverChecksInput, DriverChecksResult } from './driver-checks';
+export { buildDriverCircuit, DRIVER_NODES, DRIVER_SUPPLY_SOURCE } from './build-driver-circuit';
+export type { DriverCircuitOptions } from './build-driver-circuit';

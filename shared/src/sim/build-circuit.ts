@@ -156,12 +156,8 @@ export function buildLadderCircuit(spec: LadderCircuitSpec): Circuit {
   return { title: `${spec.topology} ladder, ${k} cells`, elements: el };
 }
 
-/** The ladder spec of a design document (sine and pulse drives; a driver drive is refused here). */
-export function ladderSpecFromDesign(design: Design): LadderCircuitSpec {
-  const d = design.drive;
-  if (d.kind === 'driver') {
-    throw new DomainError('invalid_design', 'simulating a driver drive needs its pulse estimate; give a pulse drive', 'drive.kind');
-  }
+/** The ladder of a design document without its drive: capacitors, diodes, output network and load. */
+export function ladderPartFromDesign(design: Design): Omit<LadderCircuitSpec, 'drive'> {
   const m = design.multiplier;
   const bleeder = design.outputNetwork.bleeder;
   return {
@@ -174,7 +170,6 @@ export function ladderSpecFromDesign(design: Design): LadderCircuitSpec {
       seriesResistanceOhm: m.diode.seriesResistanceOhm,
       ...(m.diode.junctionCapacitanceF ? { junctionCapacitanceF: m.diode.junctionCapacitanceF } : {}),
     },
-    drive: d,
     isNegative: design.targets.outputV < 0,
     bleederOhm: bleeder ? bleeder.count * bleeder.valueOhm : null,
     seriesOutputResistanceOhm: design.outputNetwork.seriesOutputResistanceOhm,
@@ -183,9 +178,13 @@ export function ladderSpecFromDesign(design: Design): LadderCircuitSpec {
   };
 }
 
-/** Circuit of a design document: the multiplier with its drive, output network and load. */
-export function buildCircuit(design: Design): Circuit {
-  return buildLadderCircuit(ladderSpecFromDesign(design));
+/** The ladder spec of a design document with a sine or pulse drive (a driver drive: see design-circuit.ts). */
+export function ladderSpecFromDesign(design: Design): LadderCircuitSpec {
+  const d = design.drive;
+  if (d.kind === 'driver') {
+    throw new DomainError('invalid_design', 'a driver drive is simulated with its transistor stage (buildCircuit in design-circuit.ts)', 'drive.kind');
+  }
+  return { ...ladderPartFromDesign(design), drive: d };
 }
 
 /**

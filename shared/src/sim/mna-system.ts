@@ -24,6 +24,8 @@ export class MnaSystem {
   readonly lu: BandedLu;
   readonly nodeIndex = new Map<string, number>();
   readonly branchIndex = new Map<string, number>();
+  /** Internal junction node of each diode with series resistance, by element name. */
+  readonly internalIndex = new Map<string, number>();
   /** Unknown vector, length size + 1 (ground slot last, always 0). */
   readonly x: Float64Array;
   readonly rhs: Float64Array;
@@ -141,6 +143,7 @@ export class MnaSystem {
     for (const [key, k] of provisional) {
       if (key.startsWith('n:')) this.nodeIndex.set(key.slice(2), positionOf[k]!);
       if (key.startsWith('b:')) this.branchIndex.set(key.slice(2), positionOf[k]!);
+      if (key.startsWith('i:')) this.internalIndex.set(key.slice(2), positionOf[k]!);
     }
     const at = (key: string): number => {
       if (key === GROUND_NODE) return size;
@@ -378,6 +381,13 @@ export class MnaSystem {
     return limited;
   }
 
+  /** Whether every junction's current, linearized at its last load, moves within tolerance to solution x. */
+  devicesConverged(x: Float64Array, relative: number, absoluteA: number): boolean {
+    for (const d of this.diodes) if (!d.isConverged(x, relative, absoluteA)) return false;
+    for (const q of this.npns) if (!q.isConverged(x, relative, absoluteA)) return false;
+    return true;
+  }
+
   /** Solves the loaded system into rhs and returns it (ground slot cleared). */
   solveLoaded(): Float64Array {
     this.lu.factor();
@@ -438,6 +448,9 @@ function stampJunction(band: Float64Array, rhs: Float64Array, o: Int32Array, a: 
 
 class CompiledDiode {
   lastV = 0;
+  /** DC current and conductance at lastV, for the device convergence test. */
+  lastI = 0;
+  lastG = 0;
   private readonly vte: number;
   private readonly vcrit: number;
   private readonly offsets: Int32Array;
@@ -470,10 +483,18 @@ class CompiledDiode {
     out: DiodeOperatingPoint,
     qOut: { chargeC: number; capacitanceF: number },
   ): boolean {
-    const v = limitJunctionVoltage(x[this.junction]! - x[this.cathode]!, this.lastV, this.vte, this.vcrit);
-    const limited = wasLimited();
+    let v = limitJunctionVoltage(x[this.junction]! - x[this.cathode]!, this.lastV, this.vte, this.vcrit);
+    let limited = wasLimited();
+    // In reverse breakdown the same limiting applies to the voltage beyond the knee (SPICE3 dioload).
+    const bv = this.model.breakdownVoltageV;
+    if (bv !== undefined && bv > 0 && !limited && v < Math.min(0, -bv + 10 * this.vte)) {
+      v = -(limitJunctionVoltage(-(v + bv), -(this.lastV + bv), this.vte, this.vcrit) + bv);
+      limited = wasLimited();
+    }
     this.lastV = v;
     evaluateDiode(this.model, v, out);
+    this.lastI = out.currentA;
+    this.lastG = out.conductanceS;
     let gEq = out.conductanceS;
     let iEq = out.currentA - gEq * v;
     if (this.hasCharge) {
@@ -492,11 +513,30 @@ class CompiledDiode {
     stampJunction(band, rhs, this.offsets, this.junction, this.cathode, gEq, iEq);
     return limited;
   }
+
+  /** SPICE's device test: the linearized current change to the new solution is within tolerance. */
+  isConverged(x: Float64Array, relative: number, absoluteA: number): boolean {
+    const v = x[this.junction]! - x[this.cathode]!;
+    // Below −3·n·Vt and above any breakdown knee the junction is a near-linear leak (−Is and gmin): its
+    // linearization is exact there, so the test would only chase the node voltages' rounding.
+    const bv = this.model.breakdownVoltageV;
+    const knee = bv !== undefined && bv > 0 ? -bv + 10 * this.vte : -Infinity;
+    if (v < -3 * this.vte && this.lastV < -3 * this.vte && v > knee && this.lastV > knee) return true;
+    const delta = v - this.lastV;
+    const predicted = this.lastI + this.lastG * delta;
+    return Math.abs(predicted - this.lastI) <= relative * Math.max(Math.abs(predicted), Math.abs(this.lastI)) + absoluteA;
+  }
 }
 
 class CompiledNpn {
   lastVbe = 0;
   lastVbc = 0;
+  private lastIc = 0;
+  private lastIb = 0;
+  private gcbe = 0;
+  private gcbc = 0;
+  private gbbe = 0;
+  private gbbc = 0;
   private readonly vcrit: number;
   private readonly rows: Int32Array;
   private readonly reactiveBe: number;
@@ -548,6 +588,12 @@ class CompiledNpn {
     const gcbc = out.dCollectorDVbc;
     const gbbe = out.dBaseDVbe;
     const gbbc = out.dBaseDVbc;
+    this.lastIc = out.collectorA;
+    this.lastIb = out.baseA;
+    this.gcbe = gcbe;
+    this.gcbc = gcbc;
+    this.gbbe = gbbe;
+    this.gbbc = gbbc;
     const icEq = out.collectorA - gcbe * vbe - gcbc * vbc;
     const ibEq = out.baseA - gbbe * vbe - gbbc * vbc;
     const r = this.rows;
@@ -570,6 +616,19 @@ class CompiledNpn {
     if (this.reactiveBe >= 0) this.loadJunctionCharge(this.reactiveBe, this.beOffsets, this.base, this.emitter, vbe, m.baseEmitterCapacitanceF ?? 0, vj, mj, band, rhs, a0, charge, gradient, gradientStart, qOut);
     if (this.reactiveBc >= 0) this.loadJunctionCharge(this.reactiveBc, this.bcOffsets, this.base, this.collector, vbc, m.baseCollectorCapacitanceF ?? 0, vj, mj, band, rhs, a0, charge, gradient, gradientStart, qOut);
     return limited;
+  }
+
+  /** SPICE's device test on the collector and base currents (as bjtconv). */
+  isConverged(x: Float64Array, relative: number, absoluteA: number): boolean {
+    const vb = x[this.base]!;
+    const dvbe = vb - x[this.emitter]! - this.lastVbe;
+    const dvbc = vb - x[this.collector]! - this.lastVbc;
+    const ic = this.lastIc + this.gcbe * dvbe + this.gcbc * dvbc;
+    const ib = this.lastIb + this.gbbe * dvbe + this.gbbc * dvbc;
+    return (
+      Math.abs(ic - this.lastIc) <= relative * Math.max(Math.abs(ic), Math.abs(this.lastIc)) + absoluteA &&
+      Math.abs(ib - this.lastIb) <= relative * Math.max(Math.abs(ib), Math.abs(this.lastIb)) + absoluteA
+    );
   }
 
   private loadJunctionCharge(

@@ -50,8 +50,9 @@ export interface PeriodicSteadyStateResult {
 export function findPeriodicSteadyState(circuit: Circuit | MnaSystem, options: PeriodicSteadyStateOptions): PeriodicSteadyStateResult {
   const sys = 'elements' in circuit ? new MnaSystem(circuit) : circuit;
   // Φ must be evaluated far more tightly than the residual the shooting aims at, or the update chases
-  // Newton noise: a relative tolerance of 1e-9 inside each step.
-  const tol = { ...DEFAULT_TOLERANCES, relative: 1e-9, voltageAbsoluteV: 1e-9, ...options.tolerances };
+  // Newton noise: a relative tolerance of 1e-9 inside each step. The junction-current test then needs an
+  // absolute floor above rounding (1 nA: over a step of the period it moves a charge far below the state's).
+  const tol = { ...DEFAULT_TOLERANCES, relative: 1e-9, voltageAbsoluteV: 1e-9, currentAbsoluteA: 1e-9, ...options.tolerances };
   const r = sys.reactiveCount;
   const n = options.stepsPerPeriod;
   if (!(n >= 4) || !(options.periodS > 0)) throw new DomainError('invalid_argument', 'need a positive period and at least 4 steps', 'stepsPerPeriod');

@@ -24,7 +24,9 @@ export function solveNewton(system: MnaSystem, a0: number, tolerances: Simulatio
   for (let iteration = 1; iteration <= maxIterations; iteration++) {
     const limited = system.load(a0);
     const next = system.solveLoaded();
-    let converged = !limited;
+    // Node voltages of a ladder are kilovolts, so reltol on them alone lets a junction move by a volt;
+    // SPICE's device test on each junction's current closes that gap (L. W. Nagel, SPICE2, 1975).
+    let converged = !limited && system.devicesConverged(next, tolerances.relative, tolerances.currentAbsoluteA);
     for (let i = 0; i < n; i++) {
       const xn = next[i]!;
       if (!Number.isFinite(xn)) return -1;

@@ -1,0 +1,57 @@
+import { describe, expect, it } from 'vitest';
+import { simulateTransient } from '../sim/transient';
+import { estimateBlockingOscillator } from './blocking-oscillator';
+import { DRIVER_NODES, DRIVER_SUPPLY_SOURCE, buildDriverCircuit } from './build-driver-circuit';
+import { driverExamples } from './driver-examples';
+
+const demo = driverExamples.surfaceChargeTester;
+
+/** Mean frequency from the collector's rising crossings of a level after `fromS`. */
+function crossingFrequencyHz(timeS: Float64Array, v: Float64Array, levelV: number, fromS: number): number {
+  const crossings: number[] = [];
+  for (let i = 1; i < timeS.length; i++) {
+    if (timeS[i]! > fromS && v[i - 1]! < levelV && v[i]! >= levelV) crossings.push(timeS[i]!);
+  }
+  if (crossings.length < 3) throw new Error('no steady oscillation');
+  return (crossings.length - 1) / (crossings[crossings.length - 1]! - crossings[0]!);
+}
+
+describe('fast estimate against the full simulation (driver alone, flyback held by the clamp)', () => {
+  const stopS = 1e-3;
+  const result = simulateTransient(buildDriverCircuit(demo), {
+    stopTimeS: stopS,
+    maxStepS: 2e-7,
+    probes: [DRIVER_NODES.collector, DRIVER_NODES.supply, `I(${DRIVER_SUPPLY_SOURCE})`],
+  });
+  const estimate = estimateBlockingOscillator(demo);
+
+  it('starts from a cold supply and oscillates at the estimated frequency within 10 %', () => {
+    // 10 %: the estimate neglects the dead time after the flyback and the transistor's storage time.
+    const fHz = crossingFrequencyHz(result.timeS, result.signals[DRIVER_NODES.collector]!, 10, stopS / 2);
+    expect(Math.abs(fHz - estimate.frequencyHz.value) / estimate.frequencyHz.value).toBeLessThan(0.1);
+  });
+
+  it('holds the collector peak at the zener clamp voltage within 5 %', () => {
+    // 5 %: the zener's series resistance adds a little above its knee at the clamp current.
+    let peakV = 0;
+    result.signals[DRIVER_NODES.collector]!.forEach((v) => (peakV = Math.max(peakV, v)));
+    expect(Math.abs(peakV - estimate.collectorPeakV.value) / estimate.collectorPeakV.value).toBeLessThan(0.05);
+  });
+
+  it('draws the estimated supply current within 15 %', () => {
+    // 15 %: the estimate ignores the ringing after each flyback and the base charge; mean over the last half.
+    const t = result.timeS;
+    const i = result.signals[`I(${DRIVER_SUPPLY_SOURCE})`]!;
+    let charge = 0;
+    let span = 0;
+    for (let k = 1; k < t.length; k++) {
+      if (t[k]! <= stopS / 2) continue;
+      const dt = t[k]! - t[k - 1]!;
+      charge += 0.5 * (i[k]! + i[k - 1]!) * dt;
+      span += dt;
+    }
+    // SPICE convention: a source delivering power carries a negative current.
+    const meanA = -charge / span;
+    expect(Math.abs(meanA - estimate.inputCurrentA.value) / estimate.inputCurrentA.value).toBeLessThan(0.15);
+  });
+});
