@@ -1,6 +1,7 @@
 import request from 'supertest';
 import type { DesignDetail } from '@ladderwright/shared/api';
 import { designExamples } from '@ladderwright/shared/designs';
+import { AuditEntryModel } from '../src/audit/audit-entry.model';
 import { RevisionTransitionModel } from '../src/reviews/revision-transition.model';
 import { RevisionModel } from '../src/revisions/revision.model';
 import { createDesign } from './factories/create-design';
@@ -284,6 +285,11 @@ describe('Sign-off', () => {
         'supersede:released->superseded',
       ]);
       expect(audit[3]?.note).toBe('Superseded by revision 2');
+      const revision2 = await RevisionModel.findOne({ where: { designId: design.id, number: 2 } });
+      const releases = await AuditEntryModel.findAll({ where: { action: 'revision.released', subjectId: revision2?.id } });
+      expect(releases).toHaveLength(1);
+      expect(releases[0]?.actorId).toBe(lead.id);
+      expect(releases[0]?.detail).toMatchObject({ revisionNumber: 2, superseded: 1 });
     });
 
     it('refuses a reviewer (403), and a lead on a submitted revision (409)', async () => {

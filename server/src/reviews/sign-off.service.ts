@@ -7,6 +7,7 @@ import type { ProjectRole } from '@ladderwright/shared/auth';
 import { DomainError } from '@ladderwright/shared/errors';
 import { applyTransition, availableCommands, type RevisionCommand } from '@ladderwright/shared/reviews';
 import type { ProjectMembership } from '../common/request.types';
+import { AuditService } from '../audit/audit.service';
 import { APP_ENV, type AppEnv } from '../config/env';
 import type { DesignModel } from '../designs/design.model';
 import { MailService, type OutgoingMail } from '../mail/mail.service';
@@ -53,6 +54,7 @@ export class SignOffService {
     @InjectModel(ProjectMemberModel) private readonly members: typeof ProjectMemberModel,
     private readonly revisionsService: RevisionsService,
     private readonly mail: MailService,
+    private readonly audit: AuditService,
     private readonly sequelize: Sequelize,
   ) {}
 
@@ -203,6 +205,19 @@ export class SignOffService {
       );
       const superseded =
         input.command === 'release' ? await this.supersedeOthers(revision, input.user.id, transaction) : null;
+      if (input.command === 'release') {
+        await this.audit.record(
+          {
+            action: 'revision.released',
+            actorId: input.user.id,
+            actorEmail: input.user.email,
+            subjectType: 'revision',
+            subjectId: revision.id,
+            detail: { projectId: input.projectId, designId: design.id, revisionNumber: revision.number, superseded },
+          },
+          transaction,
+        );
+      }
 
       const emailOf = (userId: string) => members.find((member) => member.userId === userId)?.user?.email;
       const emails = (ids: string[]) => ids.filter((id) => id !== input.user.id).flatMap((id) => emailOf(id) ?? []);
