@@ -1,4 +1,5 @@
-export { analyzeLadder, prepareLadder, analyzePrepared, terminalMeanAt, textbookFigures, STEADY_STATE_METHOD } from './analyze-ladder';
+export { analyzeLadder, prepareLadder, analyzePrepared, terminalMeanAt, withDiode, STEADY_STATE_METHOD } from './analyze-ladder';
+export { textbookFigures } from './textbook-formulas';
 export type { PreparedLadder } from './analyze-ladder';
 export { buildLadderNetwork } from './topologies';
 export type { LadderNetwork } from './topologies';

@@ -1,0 +1,397 @@
+import type { PulseDrive, SineDrive } from '../designs/design.types';
+import { EVENT_H } from './topologies';
+import type { LadderNetwork } from './topologies';
+import type { LadderInput } from './ladder.types';
+
+/*
+ * The charge-transfer (switched-capacitor) model of a ladder in periodic steady state: the work arrays of
+ * one network and the one-pass solve up the ladder. The method is described in STEADY_STATE_METHOD.
+ */
+
+const boltzmannJPerK = 1.380649e-23;
+const elementaryChargeC = 1.602176634e-19;
+
+/** Resolved drive extremes and timing for one polarity. */
+export interface DriveTiming {
+  highV: number;
+  lowV: number;
+  periodS: number;
+  /** Time from the H conduction to the L conduction. */
+  afterHS: number;
+  afterLS: number;
+  isSine: boolean;
+  sourceResistanceOhm: number;
+  frequencyHz: number;
+}
+
+export function driveTiming(drive: SineDrive | PulseDrive, polarity: 1 | -1): DriveTiming {
+  const periodS = 1 / drive.frequencyHz;
+  if (drive.kind === 'sine') {
+    return {
+      highV: drive.peakV, lowV: drive.peakV, periodS, afterHS: periodS / 2, afterLS: periodS / 2, isSine: true,
+      sourceResistanceOhm: drive.sourceResistanceOhm, frequencyHz: drive.frequencyHz,
+    };
+  }
+  // A negative ladder is the mirror image: its H extreme is the flyback.
+  const forwardIsHigh = polarity === 1;
+  const forwardS = drive.dutyCycle * periodS;
+  return {
+    highV: forwardIsHigh ? drive.forwardPeakV : drive.flybackPeakV,
+    lowV: forwardIsHigh ? drive.flybackPeakV : drive.forwardPeakV,
+    periodS,
+    // The H conduction happens at the start of the H phase, which lasts until the L phase begins.
+    afterHS: forwardIsHigh ? forwardS : periodS - forwardS,
+    afterLS: forwardIsHigh ? periodS - forwardS : forwardS,
+    isSine: false,
+    sourceResistanceOhm: drive.sourceResistanceOhm,
+    frequencyHz: drive.frequencyHz,
+  };
+}
+
+function zeros(length: number): number[] {
+  return new Array<number>(length).fill(0);
+}
+
+/** Work arrays reused between solves of the same network (no allocation in the inner solve). */
+export interface Workspace {
+  net: LadderNetwork;
+  timing: DriveTiming;
+  deltaH: number[];
+  deltaL: number[];
+  chargeH: number[];
+  chargeL: number[];
+  loadRate: number[];
+  /** Capacitor voltage change over the H→L swing per volt of drive peak-to-peak, from the node strays. */
+  strayDelta: number[];
+  nodeLoadRate: number[];
+  /** Capacitor and node rates per ampere of load during the H and L phases (diodes held conducting on flat-top drives). */
+  rateH: number[];
+  rateL: number[];
+  nodeRateH: number[];
+  nodeRateL: number[];
+  /** Capacitor change per A·s of L phase carried by the L diodes during the phase instead of at the event. */
+  deltaLPlateau: number[];
+  flow: number[];
+  injection: number[];
+  stateA: number[];
+  stateB: number[];
+  nodeA: number[];
+  nodeB: number[];
+  harmonicMeanF: number;
+  thermalV: number;
+  diode: LadderInput['diode'];
+}
+
+/** Charge flowing down each capacitor for injections at the nodes (each node is the top of one capacitor). */
+function accumulateFlow(net: LadderNetwork, injection: number[], flow: number[], capDelta: number[]): void {
+  const m = net.capF.length;
+  // `flow` indexed by node: charge that node passes down to the capacitor below it.
+  for (let n = 0; n < flow.length; n += 1) flow[n] = injection[n] ?? 0;
+  for (let c = m - 1; c >= 0; c -= 1) {
+    const top = net.capTop[c] as number;
+    const bottom = net.capBottom[c] as number;
+    const q = flow[top] as number;
+    capDelta[c] = q / (net.capF[c] as number);
+    flow[bottom] = (flow[bottom] as number) + q;
+  }
+}
+
+export function createWorkspace(net: LadderNetwork, input: LadderInput): Workspace {
+  const m = net.capF.length;
+  const nodes = net.nodeCount;
+  const timing = driveTiming(input.drive, input.polarity);
+  const ws: Workspace = {
+    net, timing,
+    deltaH: zeros(m), deltaL: zeros(m),
+    chargeH: zeros(net.anchorScale.length), chargeL: zeros(net.anchorScale.length),
+    loadRate: zeros(m), strayDelta: zeros(m), nodeLoadRate: zeros(nodes),
+    rateH: [], rateL: [], nodeRateH: [], nodeRateL: [], deltaLPlateau: zeros(m),
+    flow: zeros(nodes), injection: zeros(nodes),
+    stateA: zeros(m), stateB: zeros(m),
+    nodeA: zeros(nodes), nodeB: zeros(nodes),
+    harmonicMeanF: 0,
+    thermalV: (boltzmannJPerK * (input.temperatureK ?? 300)) / elementaryChargeC,
+    diode: input.diode,
+  };
+  let inverseSum = 0;
+  for (let c = 0; c < m; c += 1) inverseSum += 1 / (net.capF[c] as number);
+  ws.harmonicMeanF = m / inverseSum;
+  // Capacitor voltage change per coulomb of ladder charge at each event, and the charge through each anchor.
+  for (const [event, delta, charge] of [[0, ws.deltaH, ws.chargeH], [1, ws.deltaL, ws.chargeL]] as const) {
+    ws.injection.fill(0);
+    for (let d = 0; d < net.diodeShare.length; d += 1) {
+      if (net.diodeEvent[d] !== event) continue;
+      const share = net.diodeShare[d] as number;
+      const cathode = net.diodeCathode[d] as number;
+      const anode = net.diodeAnode[d] as number;
+      ws.injection[cathode] = (ws.injection[cathode] as number) + share;
+      ws.injection[anode] = (ws.injection[anode] as number) - share;
+    }
+    accumulateFlow(net, ws.injection, ws.flow, delta);
+    for (let a = 0; a < charge.length; a += 1) charge[a] = Math.abs(ws.flow[a] as number);
+  }
+  // Strays: over H→L a node standing on a driven anchor of scale s moves by −s·Vpp, so its stray returns
+  // +Cs·s per volt of Vpp into the node (Everhart & Lorrain, Rev. Sci. Instrum. 24, 221 (1953), abstract read).
+  const strayF = input.strayCapacitanceF ?? 0;
+  if (strayF > 0) {
+    ws.injection.fill(0);
+    for (let n = net.anchorScale.length; n < nodes; n += 1) ws.injection[n] = strayF * (net.anchorScale[net.nodeRoot[n] as number] as number);
+    accumulateFlow(net, ws.injection, ws.flow, ws.strayDelta);
+  }
+  // Load: one ampere out of the output node into the return node.
+  ws.injection.fill(0);
+  ws.injection[net.outNode] = -1;
+  ws.injection[net.returnNode] = (ws.injection[net.returnNode] as number) + 1;
+  accumulateFlow(net, ws.injection, ws.flow, ws.loadRate);
+  ws.nodeLoadRate.fill(0);
+  for (let c = 0; c < m; c += 1) {
+    ws.nodeLoadRate[net.capTop[c] as number] = (ws.nodeLoadRate[net.capBottom[c] as number] as number) + (ws.loadRate[c] as number);
+  }
+  ws.rateH = ws.loadRate;
+  ws.rateL = ws.loadRate;
+  ws.nodeRateH = ws.nodeLoadRate;
+  ws.nodeRateL = ws.nodeLoadRate;
+  if (!timing.isSine) {
+    const h = plateauRates(ws, EVENT_H);
+    const l = plateauRates(ws, 1);
+    if (h && l) {
+      ws.rateH = h.capRate;
+      ws.nodeRateH = h.nodeRate;
+      ws.rateL = l.capRate;
+      ws.nodeRateL = l.nodeRate;
+      ws.deltaLPlateau = l.diodeCapDelta;
+    }
+  }
+  return ws;
+}
+
+/** Node voltage change per unit of each capacitor change, accumulated up the network. */
+function nodeRatesOf(net: LadderNetwork, capDelta: readonly number[]): number[] {
+  const nodeRate = zeros(net.nodeCount);
+  for (let c = 0; c < capDelta.length; c += 1) {
+    nodeRate[net.capTop[c] as number] = (nodeRate[net.capBottom[c] as number] as number) + (capDelta[c] as number);
+  }
+  return nodeRate;
+}
+
+/** Solves a small dense system by Gaussian elimination with partial pivoting; null when singular. */
+function solveSmall(matrix: number[][], rhs: number[]): number[] | null {
+  const n = rhs.length;
+  for (let col = 0; col < n; col += 1) {
+    let pivot = col;
+    for (let r = col + 1; r < n; r += 1) if (Math.abs(matrix[r]?.[col] ?? 0) > Math.abs(matrix[pivot]?.[col] ?? 0)) pivot = r;
+    const pivotRow = matrix[pivot] as number[];
+    if (Math.abs(pivotRow[col] as number) < 1e-300) return null;
+    [matrix[col], matrix[pivot]] = [pivotRow, matrix[col] as number[]];
+    [rhs[col], rhs[pivot]] = [rhs[pivot] as number, rhs[col] as number];
+    const row = matrix[col] as number[];
+    for (let r = col + 1; r < n; r += 1) {
+      const target = matrix[r] as number[];
+      const factor = (target[col] as number) / (row[col] as number);
+      for (let k = col; k < n; k += 1) target[k] = (target[k] as number) - factor * (row[k] as number);
+      rhs[r] = (rhs[r] as number) - factor * (rhs[col] as number);
+    }
+  }
+  const x = zeros(n);
+  for (let r = n - 1; r >= 0; r -= 1) {
+    const row = matrix[r] as number[];
+    let sum = rhs[r] as number;
+    for (let k = r + 1; k < n; k += 1) sum -= (row[k] as number) * (x[k] as number);
+    x[r] = sum / (row[r] as number);
+  }
+  return x;
+}
+
+/**
+ * Flat-top (pulse) drive: through a phase the source holds still and the diodes that conducted at its
+ * start stay at their conduction boundary while the load draws current, so the load is shared through
+ * them. Their currents x (per ampere of load) keep every such diode's voltage constant:
+ * Σ_d x_d·(dV_anode,e − dV_cathode,e)_d = −(dV_anode,e − dV_cathode,e)_load. Null when a diode would
+ * need reverse current (then the phase is treated as instantaneous transfer).
+ */
+function plateauRates(ws: Workspace, event: 0 | 1): { capRate: number[]; nodeRate: number[]; diodeCapDelta: number[] } | null {
+  const net = ws.net;
+  const m = net.capF.length;
+  let conducting: number[] = [];
+  for (let d = 0; d < net.diodeShare.length; d += 1) if (net.diodeEvent[d] === event) conducting.push(d);
+  const capDeltaOf = new Map<number, number[]>();
+  const nodeRateOf = new Map<number, number[]>();
+  for (const d of conducting) {
+    ws.injection.fill(0);
+    ws.injection[net.diodeCathode[d] as number] = 1;
+    ws.injection[net.diodeAnode[d] as number] = -1;
+    const capDelta = zeros(m);
+    accumulateFlow(net, ws.injection, ws.flow, capDelta);
+    capDeltaOf.set(d, capDelta);
+    nodeRateOf.set(d, nodeRatesOf(net, capDelta));
+  }
+  // Active set: a diode that would need reverse current drops out (it turns off just after the event).
+  let x: number[] | null = null;
+  for (let round = 0; round <= conducting.length && conducting.length > 0; round += 1) {
+    const set = conducting;
+    const voltageRate = (rates: readonly number[], e: number): number =>
+      (rates[net.diodeAnode[e] as number] as number) - (rates[net.diodeCathode[e] as number] as number);
+    const matrix = set.map((e) => set.map((d) => voltageRate(nodeRateOf.get(d) as number[], e)));
+    const rhs = set.map((e) => -voltageRate(ws.nodeLoadRate, e));
+    x = solveSmall(matrix, rhs);
+    if (!x) return null;
+    let worst = -1;
+    x.forEach((v, j) => {
+      if (v < -1e-9 && (worst < 0 || v < ((x as number[])[worst] as number))) worst = j;
+    });
+    if (worst < 0) break;
+    conducting = set.filter((_, j) => j !== worst);
+    x = null;
+  }
+  if (!x) return null;
+  const capRate = [...ws.loadRate];
+  const diodeCapDelta = zeros(m);
+  x.forEach((xd, j) => {
+    const capDelta = capDeltaOf.get(conducting[j] as number) as number[];
+    for (let c = 0; c < m; c += 1) {
+      capRate[c] = (capRate[c] as number) + xd * (capDelta[c] as number);
+      diodeCapDelta[c] = (diodeCapDelta[c] as number) + xd * (capDelta[c] as number);
+    }
+  });
+  return { capRate, nodeRate: nodeRatesOf(net, capRate), diodeCapDelta };
+}
+
+/** Per-event source loss and diode drop at a ladder current, from conduction time and charge. */
+function eventLosses(ws: Workspace, currentA: number, event: 0 | 1): { lossScale: number; forwardDropV: number; conductionCurrentA: number } {
+  const t = ws.timing;
+  const q = currentA * t.periodS;
+  const peakV = event === EVENT_H ? t.highV : t.lowV;
+  const phaseS = event === EVENT_H ? t.afterHS : t.afterLS;
+  const charges = event === EVENT_H ? ws.chargeH : ws.chargeL;
+  let sourceCharge = 0;
+  for (let a = 1; a < charges.length; a += 1) sourceCharge = Math.max(sourceCharge, (charges[a] as number) * q);
+  let lossV: number;
+  let conductionS: number;
+  const r = t.sourceResistanceOhm;
+  if (t.isSine) {
+    const omega = 2 * Math.PI * t.frequencyHz;
+    lossV = r > 0 && q > 0 ? Math.min(peakV, ((3 * sourceCharge * omega * r * Math.sqrt(peakV)) / (4 * Math.SQRT2)) ** (2 / 3)) : 0;
+    const swingV = lossV + (ws.net.diodeShare[0] as number) * q / ws.harmonicMeanF;
+    const angle = Math.min(Math.PI / 2, Math.sqrt((2 * swingV) / Math.max(peakV, 1e-30)));
+    conductionS = Math.max((2 * angle) / omega, 1e-12);
+  } else {
+    lossV = Math.min(peakV, (sourceCharge * r) / phaseS);
+    conductionS = phaseS;
+  }
+  const diodeCharge = (ws.net.diodeShare[0] as number) * q;
+  const conductionCurrentA = diodeCharge / conductionS;
+  const d = ws.diode;
+  const forwardDropV =
+    d.emissionCoefficient * ws.thermalV * Math.log1p(conductionCurrentA / d.saturationCurrentA) + conductionCurrentA * d.seriesResistanceOhm;
+  return { lossScale: peakV > 0 ? (peakV - lossV) / peakV : 0, forwardDropV, conductionCurrentA };
+}
+
+export interface SolvedCycle {
+  /** Ladder-top output just after H, and just after L. */
+  afterHV: number;
+  afterLV: number;
+  meanV: number;
+  minV: number;
+  maxV: number;
+  forwardDropHV: number;
+  forwardDropLV: number;
+  conductionHA: number;
+  conductionLA: number;
+}
+
+/** One steady-state solve at ladder current `currentA` (fills ws.stateA/stateB and the node voltages). */
+export function solveCycle(ws: Workspace, currentA: number): SolvedCycle {
+  const { net, timing } = ws;
+  const lossH = eventLosses(ws, currentA, 0);
+  const lossL = eventLosses(ws, currentA, 1);
+  const q = currentA * timing.periodS;
+  const anchors = net.anchorScale.length;
+  for (let a = 0; a < anchors; a += 1) {
+    const scale = net.anchorScale[a] as number;
+    ws.nodeA[a] = scale * timing.highV * lossH.lossScale;
+    ws.nodeB[a] = -scale * timing.lowV * lossL.lossScale;
+  }
+  const m = net.capF.length;
+  for (let c = 0; c < m; c += 1) {
+    const d = net.capDiode[c] as number;
+    const top = net.capTop[c] as number;
+    const bottom = net.capBottom[c] as number;
+    const anode = net.diodeAnode[d] as number;
+    const cathode = net.diodeCathode[d] as number;
+    // b − a over the H→L interval: load discharge plus the L charge transfer.
+    const delta =
+      currentA * timing.afterHS * (ws.rateH[c] as number) +
+      q * (ws.deltaL[c] as number) -
+      currentA * timing.afterLS * (ws.deltaLPlateau[c] as number) +
+      (timing.highV + timing.lowV) * (ws.strayDelta[c] as number);
+    let a: number;
+    let b: number;
+    if (net.diodeEvent[d] === EVENT_H) {
+      const topV = top === cathode ? (ws.nodeA[anode] as number) - lossH.forwardDropV : (ws.nodeA[cathode] as number) + lossH.forwardDropV;
+      a = topV - (ws.nodeA[bottom] as number);
+      b = a + delta;
+    } else {
+      const topV = top === cathode ? (ws.nodeB[anode] as number) - lossL.forwardDropV : (ws.nodeB[cathode] as number) + lossL.forwardDropV;
+      b = topV - (ws.nodeB[bottom] as number);
+      a = b - delta;
+    }
+    ws.stateA[c] = a;
+    ws.stateB[c] = b;
+    ws.nodeA[top] = (ws.nodeA[bottom] as number) + a;
+    ws.nodeB[top] = (ws.nodeB[bottom] as number) + b;
+  }
+  const afterHV = (ws.nodeA[net.outNode] as number) - (ws.nodeA[net.returnNode] as number);
+  const afterLV = (ws.nodeB[net.outNode] as number) - (ws.nodeB[net.returnNode] as number);
+  const slopeH = (ws.nodeRateH[net.outNode] as number) - (ws.nodeRateH[net.returnNode] as number);
+  const slopeL = (ws.nodeRateL[net.outNode] as number) - (ws.nodeRateL[net.returnNode] as number);
+  const fallH = currentA * timing.afterHS * slopeH;
+  const fallL = currentA * timing.afterLS * slopeL;
+  const meanV = (timing.afterHS * (afterHV + fallH / 2) + timing.afterLS * (afterLV + fallL / 2)) / timing.periodS;
+  return {
+    afterHV, afterLV, meanV,
+    minV: Math.min(afterHV + fallH, afterLV + fallL),
+    maxV: Math.max(afterHV, afterLV),
+    forwardDropHV: lossH.forwardDropV, forwardDropLV: lossL.forwardDropV,
+    conductionHA: lossH.conductionCurrentA, conductionLA: lossL.conductionCurrentA,
+  };
+}
+
+/** Conductance and constant current the output network draws from the ladder top. */
+export function outputLoad(input: LadderInput): { conductanceS: number; constantA: number; seriesOhm: number } {
+  const bleederS = input.bleederOhm ? 1 / input.bleederOhm : 0;
+  const load = input.load;
+  if (!load) return { conductanceS: bleederS, constantA: 0, seriesOhm: input.seriesOutputResistanceOhm };
+  if (load.kind === 'current') return { conductanceS: bleederS, constantA: load.currentA, seriesOhm: input.seriesOutputResistanceOhm };
+  return {
+    conductanceS: bleederS + 1 / (load.resistanceOhm + input.seriesOutputResistanceOhm),
+    constantA: 0,
+    seriesOhm: input.seriesOutputResistanceOhm,
+  };
+}
+
+/**
+ * Solves the operating point: the ladder current is the constant load plus what the resistive part of
+ * the output network draws at the mean ladder-top voltage. Secant iteration on the current.
+ */
+export function solveOperatingPoint(ws: Workspace, conductanceS: number, constantA: number): { currentA: number; cycle: SolvedCycle } {
+  let currentA = constantA;
+  let cycle = solveCycle(ws, currentA);
+  if (conductanceS === 0) return { currentA, cycle };
+  let previousI = currentA;
+  let previousResidual = currentA - constantA - conductanceS * cycle.meanV;
+  currentA = constantA + conductanceS * Math.max(cycle.meanV, 0);
+  // The mean output is nearly affine in the current, so the secant step converges in two or three steps.
+  for (let iteration = 0; iteration < 12; iteration += 1) {
+    cycle = solveCycle(ws, currentA);
+    const residual = currentA - constantA - conductanceS * Math.max(cycle.meanV, 0);
+    if (Math.abs(residual) <= 1e-10 * Math.max(currentA, 1e-15) || residual === previousResidual) {
+      return { currentA, cycle };
+    }
+    const next = currentA - (residual * (currentA - previousI)) / (residual - previousResidual);
+    previousI = currentA;
+    previousResidual = residual;
+    currentA = Math.max(0, next);
+  }
+  return { currentA, cycle: solveCycle(ws, currentA) };
+}
+
