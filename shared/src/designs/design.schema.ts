@@ -9,7 +9,7 @@ const nonNegative = { type: 'number', minimum: 0 } as const;
 
 export const designDocumentSchema = {
   $schema: 'https://json-schema.org/draft/2020-12/schema',
-  $id: 'https://ladderwright.northfold.test/schemas/design-1.json',
+  $id: 'urn:ladderwright:schema:design:1',
   title: 'Ladderwright design document',
   type: 'object',
   required: ['schemaVersion', 'name', 'notes', 'drive', 'multiplier', 'outputNetwork', 'load', 'targets'],
