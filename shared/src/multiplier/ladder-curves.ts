@@ -7,6 +7,7 @@ const CURVES_METHOD: MethodInfo = {
   assumptions: [
     'near short circuit the charge-transfer model leaves its range (diodes conduct for much of the cycle): the end of the curve is indicative',
     'extra stages repeat the top stage’s capacitors; fewer stages take the lowest ones',
+    'the stage scan stops at 60 stages: an optimum of 60 means it lies at or beyond 60 (light load)',
   ],
   source: 'steady-state method charge-transfer-v1',
 };
