@@ -1,21 +1,12 @@
 import { mkdirSync } from 'node:fs';
 import { resolve } from 'node:path';
-import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { launchChromium } from './launch-chromium';
 
 const baseUrl = inject('baseUrl');
 const screenshotDir = resolve(import.meta.dirname, '..', 'test-results');
 const demoPassword = 'Northfold-demo-1';
-const chromiumArgs = [
-  '--headless',
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-  '--no-first-run',
-];
-
 let browser: Browser;
 let context: BrowserContext;
 let page: Page;
@@ -29,7 +20,7 @@ interface CurvePoint {
 describe('bench runs journey', () => {
   beforeAll(async () => {
     mkdirSync(screenshotDir, { recursive: true });
-    browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: chromiumArgs });
+    browser = await launchChromium();
     context = await browser.newContext({ viewport: { width: 1280, height: 900 }, colorScheme: 'light' });
     page = await context.newPage();
     page.on('pageerror', (error) => pageErrors.push(error.message));

@@ -1,22 +1,12 @@
 import { mkdirSync } from 'node:fs';
 import { resolve } from 'node:path';
-import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, inject, it } from 'vitest';
+import { launchChromium } from './launch-chromium';
 
 const baseUrl = inject('baseUrl');
 const screenshotDir = resolve(import.meta.dirname, '..', 'test-results');
 const demoPassword = 'Northfold-demo-1';
-
-/** Flags for Debian chromium running as root in a container; Playwright gives each launch a fresh temporary profile. */
-const chromiumArgs = [
-  '--headless',
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-  '--no-first-run',
-];
 
 let browser: Browser;
 let context: BrowserContext;
@@ -36,7 +26,7 @@ async function signIn(current: Page, email: string, password: string): Promise<v
 describe('sign-in journey', () => {
   beforeAll(async () => {
     mkdirSync(screenshotDir, { recursive: true });
-    browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: chromiumArgs });
+    browser = await launchChromium();
   });
   afterAll(async () => {
     await browser?.close();
