@@ -15,9 +15,13 @@ export default defineConfig({
     port: 5173,
     proxy: { '/api': { target: apiTarget, changeOrigin: false } },
   },
+  // The Sizer worker is an ES module (it shares chunks with the page, e.g. the engine).
+  worker: { format: 'es' },
   build: {
     outDir: 'dist',
     emptyOutDir: true,
+    // dist/.vite/manifest.json: which chunks each route loads (scripts/bench/workbench.mjs reads it).
+    manifest: true,
     rolldownOptions: {
       output: {
         // Libraries change less often than our code: separate chunks stay cached across releases.

@@ -1,20 +1,12 @@
 import { mkdirSync } from 'node:fs';
 import { resolve } from 'node:path';
-import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, inject, it } from 'vitest';
+import { launchChromium } from './launch-chromium';
 
 const baseUrl = inject('baseUrl');
 const screenshotDir = resolve(import.meta.dirname, '..', 'test-results');
 const demoPassword = 'Northfold-demo-1';
-const chromiumArgs = [
-  '--headless',
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-  '--no-first-run',
-];
 
 let browser: Browser;
 let context: BrowserContext;
@@ -39,6 +31,15 @@ async function regulationPath(current: Page): Promise<string> {
   return (await path.getAttribute('d')) ?? '';
 }
 
+async function createFromTemplate(current: Page, name: string): Promise<void> {
+  await current.getByRole('button', { name: 'New design' }).click();
+  await current.getByPlaceholder('Pick a template').click();
+  await current.getByRole('option', { name: /Detector tube bias/ }).click();
+  await current.getByLabel('Design name').fill(name);
+  await current.getByRole('button', { name: 'Create design' }).click();
+  await current.getByRole('heading', { name: 'Workbench', level: 1 }).waitFor();
+}
+
 async function shot(current: Page, name: string): Promise<void> {
   await current.screenshot({ path: resolve(screenshotDir, name), fullPage: true });
 }
@@ -46,7 +47,7 @@ async function shot(current: Page, name: string): Promise<void> {
 describe('workbench journey', () => {
   beforeAll(async () => {
     mkdirSync(screenshotDir, { recursive: true });
-    browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: chromiumArgs });
+    browser = await launchChromium();
   });
   afterAll(async () => {
     await browser?.close();
@@ -71,13 +72,10 @@ describe('workbench journey', () => {
     await shot(page, 'workbench-01-designs.png');
 
     // New design from the detector-bias template (a tripler: quick to simulate).
-    await page.getByRole('button', { name: 'New design' }).click();
-    await page.getByPlaceholder('Pick a template').click();
-    await page.getByRole('option', { name: /Detector tube bias/ }).click();
-    await page.getByLabel('Design name').fill('Journey bias supply');
-    await page.getByRole('button', { name: 'Create design' }).click();
-    await page.getByRole('heading', { name: 'Workbench', level: 1 }).waitFor();
+    await createFromTemplate(page, 'Journey bias supply');
     expect(new URL(page.url()).pathname).toMatch(/^\/projects\/[^/]+\/designs\/[^/]+$/);
+    // The address pins the open revision.
+    expect(new URL(page.url()).searchParams.get('rev')).toBe('1');
     await expect(page.getByRole('note', { name: 'High-voltage caution' }).textContent()).resolves.toContain(
       'High voltage can kill.',
     );
@@ -100,8 +98,9 @@ describe('workbench journey', () => {
     // Save revision 2; the page shows the server's result for it.
     await page.getByLabel('Change note').fill('C1 down to 1.5 nF');
     await page.getByRole('button', { name: 'Save revision' }).click();
+    await page.waitForURL((url) => url.searchParams.get('rev') === '2');
     await page.getByText('server result of r2').waitFor();
-    expect(new URL(page.url()).searchParams.get('rev')).toBe('2');
+    await page.getByText('Saved as r2').waitFor();
 
     // Compare r1 with r2.
     await page.getByRole('tab', { name: 'History' }).click();
@@ -131,6 +130,54 @@ describe('workbench journey', () => {
     expect(pageErrors).toEqual([]);
   }, 200_000);
 
+  it('keeps the edits of a save that lost the race and saves them on top of the latest revision', async () => {
+    await signIn(page);
+    await page.getByRole('main').getByRole('listitem').first().getByRole('link').click();
+    await page.getByRole('heading', { name: 'Designs', level: 2 }).waitFor();
+    await createFromTemplate(page, 'Journey race supply');
+    const designHref = new URL(page.url()).pathname;
+
+    // A second page (same session) opens the same design, still at r1.
+    const other = await context.newPage();
+    const otherErrors: string[] = [];
+    other.on('pageerror', (error) => otherErrors.push(error.message));
+    other.on('console', (message) => {
+      // The refused save is a 409 the browser reports on the console; it is the point of this journey.
+      if (message.type() === 'error' && !/\b(401|409)\b/.test(message.text())) otherErrors.push(message.text());
+    });
+    await other.goto(`${baseUrl}${designHref}`);
+    await other.getByText('server result of r1').waitFor();
+    expect(new URL(other.url()).searchParams.get('rev')).toBe('1');
+
+    // The first page saves r2.
+    await page.getByLabel('C1 capacitance').fill('1n5');
+    await page.getByText('live preview (unsaved edits)').waitFor();
+    await page.getByLabel('Change note').fill('C1 down to 1.5 nF');
+    await page.getByRole('button', { name: 'Save revision' }).click();
+    await page.waitForURL((url) => url.searchParams.get('rev') === '2');
+
+    // The second page edits C2 and saves on r1: refused, edits kept, changed fields named.
+    await other.getByLabel('C2 capacitance').fill('2n2');
+    await other.getByText('live preview (unsaved edits)').waitFor();
+    await other.getByLabel('Change note').fill('C2 up to 2.2 nF');
+    await other.getByRole('button', { name: 'Save revision' }).click();
+    const alert = other.getByRole('alert').filter({ hasText: 'Someone saved r2 meanwhile' });
+    await alert.waitFor();
+    expect(await alert.textContent()).toContain('multiplier.capacitors[0].valueF');
+    // Still the typed value (shown normalized since the field lost focus to Save).
+    expect(await other.getByLabel('C2 capacitance').inputValue()).toBe('2.2 nF');
+    expect(new URL(other.url()).searchParams.get('rev')).toBe('1');
+    await shot(other, 'workbench-07-stale-save.png');
+
+    await alert.getByRole('button', { name: 'Keep my edits, save on top of r2' }).click();
+    await other.getByRole('button', { name: 'Save revision' }).click();
+    await other.waitForURL((url) => url.searchParams.get('rev') === '3');
+    await other.getByText('server result of r3').waitFor();
+    expect(await other.getByLabel('C2 capacitance').inputValue()).toBe('2.2 nF');
+    expect(pageErrors).toEqual([]);
+    expect(otherErrors).toEqual([]);
+  }, 120_000);
+
   it('proposes ladders on the Sizer and starts a design from one', async () => {
     await signIn(page);
     await page.getByRole('main').getByRole('listitem').first().getByRole('link').click();
@@ -139,7 +186,7 @@ describe('workbench journey', () => {
     await page.getByRole('button', { name: 'Find ladders' }).click();
     const table = page.getByRole('table', { name: 'Sizer candidates' });
     await table.waitFor({ timeout: 60_000 });
-    await shot(page, 'workbench-07-sizer.png');
+    await shot(page, 'workbench-08-sizer.png');
     await page.getByRole('button', { name: 'Start a design from candidate 1', exact: true }).click();
     await page.getByRole('heading', { name: 'Workbench', level: 1 }).waitFor();
     expect(await page.getByLabel('Name', { exact: true }).inputValue()).toMatch(/^Sizer: /);

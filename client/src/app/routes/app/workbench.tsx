@@ -16,11 +16,12 @@ import {
 } from '@mantine/core';
 import { useDocumentTitle } from '@mantine/hooks';
 import { notifications } from '@mantine/notifications';
-import { useSuspenseQuery, type QueryClient } from '@tanstack/react-query';
-import { Link, useNavigate, useParams, useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
+import { useQueryClient, useSuspenseQuery, type QueryClient } from '@tanstack/react-query';
+import { Link, redirect, useNavigate, useParams, useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
 import type { RevisionDetail, StaleBaseError } from '@ladderwright/shared/api';
 import type { Design } from '@ladderwright/shared/designs';
 import { paths } from '../../../config/paths';
+import { queryKeys } from '../../../lib/query-keys';
 import { staleBaseOf, useCreateRevision } from '../../../features/designs/api/create-revision';
 import { getDesignQueryOptions } from '../../../features/designs/api/get-design';
 import { getRevisionQueryOptions } from '../../../features/designs/api/get-revision';
@@ -51,7 +52,11 @@ export function workbenchLoader(queryClient: QueryClient) {
       queryClient.ensureQueryData(getProjectQueryOptions(projectId)),
       queryClient.ensureQueryData(getDesignQueryOptions(projectId, designId)),
     ]);
-    const revisionNumber = revisionParam(request) ?? design.latestRevisionNumber;
+    const revisionNumber = revisionParam(request);
+    // The address names the revision being edited, so a refetched design (someone saved meanwhile)
+    // never swaps the open revision, and the user's edits, for the new latest.
+    if (revisionNumber === null)
+      return redirect(paths.design.getHref(projectId, designId, design.latestRevisionNumber));
     await queryClient.ensureQueryData(getRevisionQueryOptions(projectId, designId, revisionNumber));
     return null;
   };
@@ -98,6 +103,7 @@ interface EditableRevisionProps {
 
 function EditableRevision({ projectId, revision, latestRevisionNumber, revisions }: EditableRevisionProps) {
   const navigate = useNavigate();
+  const queryClient = useQueryClient();
   const [draft, setDraft] = useState<Design>(revision.document);
   const [baseRevisionNumber, setBaseRevisionNumber] = useState(revision.number);
   const [changeNote, setChangeNote] = useState('');
@@ -119,7 +125,16 @@ function EditableRevision({ projectId, revision, latestRevisionNumber, revisions
           });
           void navigate(paths.design.getHref(projectId, saved.designId, saved.number));
         },
-        onError: (error) => setStale(staleBaseOf(error)),
+        onError: (error) => {
+          const staleBase = staleBaseOf(error);
+          setStale(staleBase);
+          // The revision list and the latest number changed under us; the open revision stays (it is in the address).
+          if (staleBase)
+            void queryClient.invalidateQueries({
+              queryKey: queryKeys.designs.detail(projectId, revision.designId),
+              exact: true,
+            });
+        },
       },
     );
   };
@@ -269,7 +284,9 @@ function EditableRevision({ projectId, revision, latestRevisionNumber, revisions
                   <Tabs.Panel value="waveforms" pt="sm">
                     <WaveformsPanel
                       projectId={projectId}
-                      source={{ document: draft }}
+                      source={
+                        isDirty ? { document: draft } : { designId: revision.designId, revisionNumber: revision.number }
+                      }
                       frequencyHz={report.resolvedDrive.frequencyHz}
                       safeVoltageV={draft.targets.safeVoltageV}
                     />

@@ -32,7 +32,13 @@ export function useCreateRevision(projectId: string, designId: string) {
     mutationFn: (request: SaveRevisionRequest) => createRevision(projectId, designId, request),
     onSuccess: (revision) => {
       queryClient.setQueryData(queryKeys.designs.revision(projectId, designId, revision.number), revision);
-      return queryClient.invalidateQueries({ queryKey: queryKeys.designs.project(projectId) });
+      // Not awaited: the caller navigates to the new revision at once. Awaiting let the refetched design
+      // re-render the page first, which unmounted the caller and dropped its onSuccess (and the navigation).
+      // Saved revisions and comparisons never change, so they are left out.
+      void queryClient.invalidateQueries({
+        queryKey: queryKeys.designs.project(projectId),
+        predicate: (query) => !query.queryKey.includes('revision') && !query.queryKey.includes('compare'),
+      });
     },
   });
 }

@@ -4,6 +4,7 @@ import { Link } from 'react-router-dom';
 import type { RevisionSummary } from '@ladderwright/shared/api';
 import { paths } from '../../../config/paths';
 import { useCompareRevisions } from '../api/compare-revisions';
+import { formatFieldDelta, formatFieldValue } from '../field-quantity';
 import { RevisionStateBadge } from './revision-state-badge';
 
 export interface RevisionHistoryProps {
@@ -14,19 +15,6 @@ export interface RevisionHistoryProps {
 }
 
 const dateFormat = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
-
-function formatCell(value: unknown): string {
-  if (value === null || value === undefined) return '—';
-  if (typeof value === 'number') return Number(value.toPrecision(5)).toString();
-  if (typeof value === 'string') return value;
-  return JSON.stringify(value);
-}
-
-function formatDelta(delta: number | null | undefined): string {
-  if (delta === null || delta === undefined) return '—';
-  const text = Number(Math.abs(delta).toPrecision(4)).toString();
-  return delta > 0 ? `+${text}` : delta < 0 ? `−${text}` : '0';
-}
 
 /** Every revision of a design, and any two side by side: inputs that differ and all headline results with deltas. */
 export function RevisionHistory({ projectId, designId, revisions, openRevisionNumber }: RevisionHistoryProps) {
@@ -114,7 +102,7 @@ export function RevisionHistory({ projectId, designId, revisions, openRevisionNu
           }))}
           results={comparison.data.results.map((d) => ({
             key: d.key,
-            label: d.unit ? `${d.label ?? d.key} (${d.unit})` : (d.label ?? d.key),
+            label: d.label ?? d.key,
             a: d.a,
             b: d.b,
             delta: d.delta,
@@ -202,12 +190,14 @@ function ComparisonTable({
                   {row.label}
                 </Text>
               </Table.Td>
-              <Table.Td>{formatCell(row.a)}</Table.Td>
-              <Table.Td>{formatCell(row.b)}</Table.Td>
-              <Table.Td>{formatDelta(row.delta)}</Table.Td>
+              <Table.Td>{formatFieldValue(row.key, row.a)}</Table.Td>
+              <Table.Td>{formatFieldValue(row.key, row.b)}</Table.Td>
+              <Table.Td>{formatFieldDelta(row.key, row.delta)}</Table.Td>
               {hasPercent && (
                 <Table.Td>
-                  {row.deltaPct === null || row.deltaPct === undefined ? '—' : `${formatDelta(row.deltaPct)} %`}
+                  {row.deltaPct === null || row.deltaPct === undefined
+                    ? '—'
+                    : `${formatFieldDelta('', row.deltaPct)} %`}
                 </Table.Td>
               )}
             </Table.Tr>

@@ -13,6 +13,7 @@ import {
 } from 'recharts';
 import type { StartSimulationRequest, WaveformPhase, WaveformTrace } from '@ladderwright/shared/api';
 import { formatQuantity } from '@ladderwright/shared/units';
+import { quantityTickFormatter } from '../../../lib/tick-format';
 import { useCancelSimulation } from '../api/cancel-simulation';
 import { isSimulationActive, useSimulation } from '../api/get-simulation';
 import { useStartSimulation } from '../api/start-simulation';
@@ -154,6 +155,14 @@ function TraceChart({
     });
   }
   const data = [...rows.values()].sort((a, b) => (a.t ?? 0) - (b.t ?? 0));
+  const timeTick = quantityTickFormatter(
+    traces.flatMap((trace) => trace.timeS),
+    's',
+  );
+  const valueTick = quantityTickFormatter(
+    traces.flatMap((trace) => trace.values),
+    'V',
+  );
   const negative = traces.some((trace) => trace.values.length > 0 && trace.values.every((v) => v <= 0));
   return (
     <Paper withBorder p="sm" role="figure" aria-label={title}>
@@ -174,14 +183,9 @@ function TraceChart({
                 type="number"
                 domain={['dataMin', 'dataMax']}
                 tick={{ fontSize: 11 }}
-                tickFormatter={(t: number) => formatQuantity(t, 's', 2)}
+                tickFormatter={timeTick}
               />
-              <YAxis
-                tick={{ fontSize: 11 }}
-                tickFormatter={(v: number) => formatQuantity(v, 'V', 3)}
-                width={64}
-                domain={['auto', 'auto']}
-              />
+              <YAxis tick={{ fontSize: 11 }} tickFormatter={valueTick} width={72} domain={['auto', 'auto']} />
               <Tooltip
                 formatter={(v) => formatQuantity(Number(v), 'V', 4)}
                 labelFormatter={(t) => formatQuantity(Number(t), 's', 4)}

@@ -1,10 +1,11 @@
 import { useState } from 'react';
 import { Alert, Button, Checkbox, Fieldset, Group, SimpleGrid, Stack, Table, Text } from '@mantine/core';
 import type { Design, Topology } from '@ladderwright/shared/designs';
-import { sizeLadder, type SizerRequest, type SizerResult } from '@ladderwright/shared/sizing';
+import type { SizerRequest, SizerResult } from '@ladderwright/shared/sizing';
 import { formatQuantity } from '@ladderwright/shared/units';
 import { QuantityInput } from '../../../components/quantity-input';
 import { candidateDocument } from '../candidate-document';
+import { useSizerRun } from '../hooks/use-sizer-run';
 
 export interface SizerPanelProps {
   /** Starts a design from a candidate's document; resolves when the design exists. */
@@ -28,9 +29,7 @@ export function SizerPanel({ onStartDesign, isStarting }: SizerPanelProps) {
   const [sourceResistanceOhm, setSourceResistanceOhm] = useState(150);
   const [safeVoltageV, setSafeVoltageV] = useState(50);
   const [topologies, setTopologies] = useState<Topology[]>(['half-wave', 'full-wave']);
-  const [outcome, setOutcome] = useState<{ request: SizerRequest; result: SizerResult } | null>(null);
-  const [error, setError] = useState<string | null>(null);
-  const [isRunning, setIsRunning] = useState(false);
+  const { outcome, error, isRunning, run: runSizer, cancel } = useSizerRun();
 
   const run = () => {
     const request: SizerRequest = {
@@ -43,19 +42,7 @@ export function SizerPanel({ onStartDesign, isStarting }: SizerPanelProps) {
       dischargeRule: '50V-1min',
       resultCount: 12,
     };
-    setIsRunning(true);
-    setError(null);
-    // Let the button show its busy state before the engine takes the thread.
-    window.setTimeout(() => {
-      try {
-        setOutcome({ request, result: sizeLadder(request) });
-      } catch (caught) {
-        setOutcome(null);
-        setError(caught instanceof Error ? caught.message : String(caught));
-      } finally {
-        setIsRunning(false);
-      }
-    }, 20);
+    runSizer(request);
   };
 
   return (
@@ -93,9 +80,21 @@ export function SizerPanel({ onStartDesign, isStarting }: SizerPanelProps) {
               ))}
             </Group>
           </Checkbox.Group>
-          <Button type="submit" mt="md" loading={isRunning} disabled={topologies.length === 0}>
-            Find ladders
-          </Button>
+          <Group gap="sm" mt="md">
+            <Button type="submit" loading={isRunning} disabled={topologies.length === 0}>
+              Find ladders
+            </Button>
+            {isRunning && (
+              <>
+                <Button variant="default" onClick={cancel}>
+                  Cancel search
+                </Button>
+                <Text size="sm" c="dimmed" role="status">
+                  Searching ladders…
+                </Text>
+              </>
+            )}
+          </Group>
         </Fieldset>
       </form>
       {error && (

@@ -12,6 +12,7 @@ import {
 } from 'recharts';
 import type { DesignReport } from '@ladderwright/shared/multiplier';
 import { formatQuantity } from '@ladderwright/shared/units';
+import { quantityTickFormatter } from '../../../lib/tick-format';
 import { MethodNote } from './method-note';
 
 export interface LadderChartsProps {
@@ -24,6 +25,15 @@ const axisTick = { fontSize: 11 };
 export function LadderCharts({ report }: LadderChartsProps) {
   const curves = report.curves;
   const operatingCurrentA = report.analysis.loadCurrentA;
+  const regulationCurrentTick = quantityTickFormatter([0, ...curves.regulation.map((p) => p.x)], 'A');
+  const regulationVoltageTick = quantityTickFormatter(
+    curves.regulation.map((p) => p.y),
+    'V',
+  );
+  const stagesVoltageTick = quantityTickFormatter(
+    curves.outputVsStages.map((p) => p.y),
+    'V',
+  );
   return (
     <SimpleGrid cols={{ base: 1, md: 2 }} spacing="md">
       <Paper withBorder p="sm" role="figure" aria-label="Output vs load current">
@@ -41,11 +51,11 @@ export function LadderCharts({ report }: LadderChartsProps) {
                 dataKey="x"
                 type="number"
                 tick={axisTick}
-                tickFormatter={(x: number) => formatQuantity(x, 'A', 2)}
+                tickFormatter={regulationCurrentTick}
                 domain={[0, 'dataMax']}
                 label={{ value: 'load current', position: 'insideBottom', offset: -8, fontSize: 11 }}
               />
-              <YAxis tick={axisTick} tickFormatter={(y: number) => formatQuantity(y, 'V', 2)} width={60} />
+              <YAxis tick={axisTick} tickFormatter={regulationVoltageTick} width={64} />
               <Tooltip
                 formatter={(y) => formatQuantity(Number(y), 'V')}
                 labelFormatter={(x) => formatQuantity(Number(x), 'A')}
@@ -91,7 +101,7 @@ export function LadderCharts({ report }: LadderChartsProps) {
                 domain={['dataMin', 'dataMax']}
                 label={{ value: 'stages', position: 'insideBottom', offset: -8, fontSize: 11 }}
               />
-              <YAxis tick={axisTick} tickFormatter={(y: number) => formatQuantity(y, 'V', 2)} width={60} />
+              <YAxis tick={axisTick} tickFormatter={stagesVoltageTick} width={64} />
               <Tooltip
                 formatter={(y) => formatQuantity(Number(y), 'V')}
                 labelFormatter={(x) => `${String(x)} stages`}

@@ -1,0 +1,142 @@
+import { fireEvent, screen, waitFor, within } from '@testing-library/react';
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import type {
+  DesignDetail,
+  ProjectDetail,
+  RevisionDetail,
+  RevisionSummary,
+  SaveRevisionRequest,
+  StaleBaseError,
+} from '@ladderwright/shared/api';
+import { designExamples, validateDesign } from '@ladderwright/shared/designs';
+import { analyzeDesign } from '@ladderwright/shared/multiplier';
+import { paths } from '../../../config/paths';
+import { queryKeys } from '../../../lib/query-keys';
+import { createTestQueryClient, jsonResponse, renderRoutes } from '../../../testing/render';
+import { WorkbenchRoute } from './workbench';
+
+const projectId = 'p-bias';
+const designId = 'd-bias';
+const templateDocument = designExamples.detectorBias;
+const report = analyzeDesign(validateDesign(templateDocument));
+
+const project: ProjectDetail = {
+  id: projectId,
+  name: 'Detector tube bias',
+  productLine: 'Detector supplies',
+  description: '',
+  myRole: 'engineer',
+  memberCount: 1,
+  members: [],
+};
+
+function summary(number: number): RevisionSummary {
+  return {
+    number,
+    state: 'draft',
+    authorId: 'u-1',
+    authorName: 'Northfold Engineer',
+    createdAt: '2025-03-01T10:00:00.000Z',
+    changeNote: number === 1 ? 'From the template' : `Change ${number}`,
+    baseRevisionNumber: number === 1 ? null : number - 1,
+    engineVersion: '1.0.0',
+  };
+}
+
+function design(latest: number): DesignDetail {
+  return {
+    id: designId,
+    projectId,
+    name: templateDocument.name,
+    ownerId: 'u-1',
+    ownerName: 'Northfold Engineer',
+    latestRevisionNumber: latest,
+    latestState: 'draft',
+    updatedAt: '2025-03-01T10:00:00.000Z',
+    createdAt: '2025-03-01T10:00:00.000Z',
+    revisions: Array.from({ length: latest }, (_, i) => summary(i + 1)),
+  };
+}
+
+const revision1: RevisionDetail = { ...summary(1), designId, projectId, document: templateDocument, report };
+const stale: StaleBaseError = {
+  statusCode: 409,
+  code: 'stale_base',
+  message: 'Revision 2 was saved after revision 1.',
+  latestRevisionNumber: 2,
+  changedFields: ['multiplier.capacitors[1].valueF', 'targets.rippleMaxV'],
+};
+
+// jsdom has no FontFaceSet; Mantine's autosizing Textarea (the notes field) listens on it.
+if (!(document as { fonts?: unknown }).fonts) {
+  Object.defineProperty(document, 'fonts', {
+    configurable: true,
+    value: { addEventListener: () => undefined, removeEventListener: () => undefined },
+  });
+}
+
+describe('Workbench save when someone saved meanwhile', () => {
+  let saves: SaveRevisionRequest[];
+
+  beforeEach(() => {
+    saves = [];
+    let latest = 1;
+    vi.stubGlobal(
+      'fetch',
+      vi.fn<typeof fetch>(async (input, init) => {
+        const url = String(input);
+        if (init?.method === 'POST' && url.endsWith(`/designs/${designId}/revisions`)) {
+          const body = JSON.parse(String(init.body)) as SaveRevisionRequest;
+          saves.push(body);
+          if (body.baseRevisionNumber < 2) {
+            latest = 2;
+            return jsonResponse(stale, 409);
+          }
+          latest = 3;
+          return jsonResponse({ ...summary(3), designId, projectId, document: body.document, report }, 201);
+        }
+        if (url === `/api/projects/${projectId}`) return jsonResponse(project);
+        if (url === `/api/projects/${projectId}/designs/${designId}`) return jsonResponse(design(latest));
+        return jsonResponse({ statusCode: 404, code: 'not_found', message: `no answer for ${url}` }, 404);
+      }),
+    );
+  });
+  afterEach(() => vi.unstubAllGlobals());
+
+  it('shows the changed fields, keeps the edits and saves them on top of the latest revision', async () => {
+    const queryClient = createTestQueryClient();
+    queryClient.setQueryData(queryKeys.projects.detail(projectId), project);
+    queryClient.setQueryData(queryKeys.designs.detail(projectId, designId), design(1));
+    queryClient.setQueryData(queryKeys.designs.revision(projectId, designId, 1), revision1);
+    const { router } = renderRoutes([{ path: paths.design.path, element: <WorkbenchRoute /> }], {
+      route: paths.design.getHref(projectId, designId, 1),
+      queryClient,
+    });
+
+    const c1 = await screen.findByLabelText('C1 capacitance');
+    fireEvent.change(c1, { target: { value: '1n5' } });
+    fireEvent.change(screen.getByLabelText(/Change note/), { target: { value: 'C1 down to 1.5 nF' } });
+    const saveButton = screen.getByRole('button', { name: 'Save revision' });
+    await waitFor(() => expect(saveButton).toBeEnabled());
+    fireEvent.click(saveButton);
+
+    const alert = await screen.findByRole('alert', { name: /Someone saved r2 meanwhile/ });
+    expect(within(alert).getByText('multiplier.capacitors[1].valueF')).toBeInTheDocument();
+    expect(within(alert).getByText('targets.rippleMaxV')).toBeInTheDocument();
+    expect(saves[0]?.baseRevisionNumber).toBe(1);
+    // The edit and the note are still there, and nothing navigated away.
+    expect(screen.getByLabelText('C1 capacitance')).toHaveValue('1n5');
+    expect(screen.getByLabelText(/Change note/)).toHaveValue('C1 down to 1.5 nF');
+    expect(router.state.location.search).toBe('?rev=1');
+
+    fireEvent.click(within(alert).getByRole('button', { name: 'Keep my edits, save on top of r2' }));
+    expect(screen.queryByRole('alert', { name: /Someone saved/ })).not.toBeInTheDocument();
+    fireEvent.click(screen.getByRole('button', { name: 'Save revision' }));
+
+    await waitFor(() => expect(router.state.location.search).toBe('?rev=3'));
+    expect(saves).toHaveLength(2);
+    expect(saves[1]?.baseRevisionNumber).toBe(2);
+    expect(saves[1]?.document.multiplier.capacitors[0]?.valueF).toBeCloseTo(1.5e-9, 15);
+    expect(saves[1]?.changeNote).toBe('C1 down to 1.5 nF');
+  }, 30_000);
+});
