@@ -1,9 +1,26 @@
+import { readFileSync } from 'node:fs';
+import { estimateBlockingOscillator } from '../../src/driver/blocking-oscillator';
+import { validateDesign } from '../../src/designs/validate-design';
 import { buildLadderCircuit } from '../../src/sim/build-circuit';
+import { buildCircuit } from '../../src/sim/design-circuit';
 import { toSpiceNetlist } from '../../src/sim/to-spice-netlist';
+import { parseArguments } from '../ladder-flags';
 import { ladderFromArguments } from './simulate';
 
-/** `ladderwright netlist DESIGN.json | <bare-ladder flags>`: the SPICE netlist (.cir text) of the ladder with its drive and load. */
+/**
+ * `ladderwright netlist DESIGN.json | <bare-ladder flags>`: the SPICE netlist (.cir text) of the ladder with
+ * its drive and load (a driver drive: the transistor stage and transformer), with a `.tran` of 200 periods
+ * (the estimated oscillation period for a driver) at 1/200 of a period.
+ */
 export function netlistCommand(argv: ReadonlyArray<string>): string {
+  const { positional } = parseArguments(argv);
+  if (positional[0]) {
+    const design = validateDesign(JSON.parse(readFileSync(positional[0], 'utf8')));
+    if (design.drive.kind === 'driver') {
+      const periodS = 1 / estimateBlockingOscillator(design.drive.driver).frequencyHz.value;
+      return toSpiceNetlist(buildCircuit(design), { transient: { stopTimeS: 200 * periodS, maxStepS: periodS / 200 } });
+    }
+  }
   const { spec } = ladderFromArguments(argv);
   const periodS = 1 / spec.drive.frequencyHz;
   return toSpiceNetlist(buildLadderCircuit(spec), { transient: { stopTimeS: 200 * periodS, maxStepS: periodS / 200 } });

@@ -3,6 +3,8 @@ import { validateDesign } from '../../src/designs/validate-design';
 import { DomainError } from '../../src/errors';
 import { ladderSpecFromDesign, type LadderCircuitSpec } from '../../src/sim/build-circuit';
 import { runLadder } from '../../src/sim/design-runs';
+import { runDriverDesign } from '../../src/sim/driver-runs';
+import type { Design } from '../../src/designs/design.types';
 import { ladderInputFromFlags, parseArguments, quantityFlag } from '../ladder-flags';
 
 function numberFlag(flags: Map<string, string | true>, name: string): number | undefined {
@@ -31,6 +33,14 @@ export function ladderSpecFromFlags(flags: Map<string, string | true>): { spec: 
   return { spec, safeVoltageV };
 }
 
+/** The design of `DESIGN.json` when its drive is a driver stage (simulated whole, transistor and transformer). */
+function driverDesignOf(argv: ReadonlyArray<string>): Design | null {
+  const { positional } = parseArguments(argv);
+  if (!positional[0]) return null;
+  const design = validateDesign(JSON.parse(readFileSync(positional[0], 'utf8')));
+  return design.drive.kind === 'driver' ? design : null;
+}
+
 /** The ladder spec from `DESIGN.json` (first positional argument) or from bare-ladder flags, and the safe voltage. */
 export function ladderFromArguments(argv: ReadonlyArray<string>): { spec: LadderCircuitSpec; safeVoltageV: number; flags: Map<string, string | true> } {
   const { positional, flags } = parseArguments(argv);
@@ -48,6 +58,24 @@ export function ladderFromArguments(argv: ReadonlyArray<string>): { spec: Ladder
  * time to steady state, cycles simulated, method, and with --discharge the time to the safe voltage.
  */
 export function simulateCommand(argv: ReadonlyArray<string>): string {
+  const driverDesign = driverDesignOf(argv);
+  if (driverDesign) {
+    const result = runDriverDesign(driverDesign);
+    const dissipatedJ = Object.values(result.energy.dissipatedJ).reduce((a, b) => a + b, 0);
+    return JSON.stringify(
+      {
+        outputMeanV: result.outputMeanV,
+        ripplePeakToPeakV: result.ripplePeakToPeakV,
+        timeToSteadyStateS: result.timeToSteadyStateS,
+        cyclesSimulated: result.cyclesSimulated,
+        method: result.method,
+        oscillationFrequencyHz: result.oscillationFrequencyHz,
+        energy: { suppliedJ: result.energy.suppliedJ, dissipatedJ, storedChangeJ: result.energy.storedChangeJ },
+      },
+      null,
+      2,
+    );
+  }
   const { spec, safeVoltageV, flags } = ladderFromArguments(argv);
   const cycles = numberFlag(flags, 'cycles');
   const result = runLadder(spec, {

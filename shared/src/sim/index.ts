@@ -11,6 +11,8 @@ export { findPeriodicSteadyState } from './periodic-steady-state';
 export { chargeBalanceCapacitorVoltagesV } from './steady-state-estimate';
 export type { PeriodicSteadyStateOptions, PeriodicSteadyStateResult } from './periodic-steady-state';
 export { runLadder } from './design-runs';
+export { runDriverDesign } from './driver-runs';
+export type { DriverRunOptions, DriverRunResult } from './driver-runs';
 export { EnergyMeter } from './energy-meter';
 export type { EnergyAccount } from './energy-meter';
 export type { LadderRunOptions, LadderRunResult, PlotTrace } from './design-runs';

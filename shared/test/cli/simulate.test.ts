@@ -35,6 +35,21 @@ describe('ladderwright simulate', () => {
     expect(out.dischargeTimeS).toBeLessThan(2 * 4.38);
   });
 
+  it('simulates a design driven by its blocking oscillator whole: transistor, transformer and ladder', () => {
+    // The demo tester with 100 pF capacitors, so that the ladder settles in about 10 ms of simulated time.
+    const design = structuredClone(designExamples.surfaceChargeTester);
+    design.multiplier.capacitors = design.multiplier.capacitors.map((c) => ({ ...c, valueF: 100e-12 }));
+    const path = join(dir, 'driver-design.json');
+    writeFileSync(path, JSON.stringify(design));
+    const out = JSON.parse(run('simulate', path)) as { method: string; outputMeanV: number; energy: { suppliedJ: number; dissipatedJ: number; storedChangeJ: number } };
+    expect(out.method).toBe('transient');
+    expect(out.outputMeanV).toBeGreaterThan(1000);
+    // Tellegen's theorem: supplied = dissipated + stored change, within 2 % (the bound).
+    expect(Math.abs((out.energy.dissipatedJ + out.energy.storedChangeJ) / out.energy.suppliedJ - 1)).toBeLessThan(0.02);
+    // Its netlist carries the transistor stage, not an ideal source.
+    expect(run('netlist', path)).toMatch(/^Q1 col base 0 /m);
+  });
+
   it.skipIf(!hasNgspice())('netlist DESIGN.json prints a .cir that ngspice runs', async () => {
     const path = join(dir, 'design.json');
     writeFileSync(path, JSON.stringify(designExamples.ionizerBar));
