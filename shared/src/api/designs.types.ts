@@ -1,12 +1,15 @@
 import type { Design } from '../designs';
+import type { FieldIssue } from '../errors';
 import type { DesignReport } from '../multiplier';
 import type { RevisionState } from '../reviews';
 
 /**
  * The engine's report on one design document (`analyzeDesign`), as stored with a revision and returned
- * by POST /api/analysis/evaluate, after a JSON round trip (non-finite numbers arrive as null).
+ * by POST /api/analysis/evaluate, after a JSON round trip (non-finite numbers arrive as null). Reports
+ * computed against a project's Parts shelf (`analyzeWithShelf`) carry `partIssues`: the part codes the
+ * shelf could not resolve, by document path; those positions were checked on the document's own ratings.
  */
-export type DesignReportBody = DesignReport;
+export type DesignReportBody = DesignReport & { partIssues?: FieldIssue[] };
 
 /** One row of the Designs list. */
 export interface DesignSummary {

@@ -7,3 +7,5 @@ export { bomCost } from './bom-cost';
 export type { BomCost, BomLine } from './bom-cost';
 export { shelfForSizer } from './shelf-for-sizer';
 export type { SizerPartsList, DiodeModelParameters } from './shelf-for-sizer';
+export { analyzeWithShelf } from './analyze-with-shelf';
+export type { ShelfDesignReport } from './analyze-with-shelf';

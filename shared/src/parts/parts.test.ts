@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { designExamples } from '../designs';
+import { analyzeWithShelf } from './analyze-with-shelf';
 import { bomCost } from './bom-cost';
 import { neutraliseCsvCell } from './csv-cell';
 import { fillPartRatings, type ShelfPart } from './fill-part-ratings';
@@ -199,5 +200,27 @@ describe('shelfForSizer', () => {
       ],
       resistors: [{ valueOhm: 82e6, ratedPowerW: 0.5, limitingVoltageV: 1200, costEach: 0.11, partCode: 'NF-R82M-1K' }],
     });
+  });
+});
+
+describe('analyzeWithShelf', () => {
+  it('checks capacitor voltage against the rating the shelf holds for the code', () => {
+    const design = designExamples.surfaceChargeTester;
+    const lowRated = shelf.map((part) => (part.code === 'NF-C472-3K' ? { ...part, ratedVoltageV: 500 } : part));
+    const report = analyzeWithShelf(design, lowRated);
+    expect(report.partIssues).toEqual([]);
+    // The document says 3 kV; the shelf says 500 V, below C1's ~1.6 kV peak, so C1 fails; the limit shown is
+    // the derated figure, 500 V × 0.8 (DERATING.capacitorVoltage).
+    expect(report.checks.find((check) => check.id === 'cap-voltage-c1')).toMatchObject({ verdict: 'fail', limit: 400 });
+  });
+
+  it('reports unknown codes as part issues and checks those positions on the document ratings', () => {
+    const design = designExamples.surfaceChargeTester;
+    const report = analyzeWithShelf(design, []);
+    expect(report.partIssues).toContainEqual({
+      path: 'multiplier.capacitors[0].partCode',
+      message: 'no part NF-C472-3K on the Parts shelf',
+    });
+    expect(report.checks.find((check) => check.id === 'cap-voltage-c1')?.limit).toBe(3000 * 0.8);
   });
 });
