@@ -2,6 +2,7 @@ import { DomainError } from '../errors';
 import { buildLadderNetwork, EVENT_H } from './topologies';
 import { createWorkspace, outputLoad, solveCycle, solveOperatingPoint } from './charge-transfer-model';
 import type { Workspace } from './charge-transfer-model';
+import { ladderNodeVoltages, NODE_VOLTAGE_METHOD } from './ladder-nodes';
 import { textbookFigures } from './textbook-formulas';
 import type { CapacitorStress, DiodeStress, LadderAnalysis, LadderInput, MethodInfo } from './ladder.types';
 
@@ -145,7 +146,12 @@ export function analyzePrepared(prepared: PreparedLadder, options: { operatingPo
     });
   }
 
-  // After the stress figures: these solves overwrite the operating-point state.
+  const terminalMeanV = cycle.meanV - seriesDropV;
+  const outputMinV = sign * (sign > 0 ? cycle.minV - seriesDropV : cycle.maxV - seriesDropV);
+  const outputMaxV = sign * (sign > 0 ? cycle.maxV - seriesDropV : cycle.minV - seriesDropV);
+  const nodes = ladderNodeVoltages(ws, ladderCurrentA, sign, { meanV: sign * terminalMeanV, minV: outputMinV, maxV: outputMaxV });
+
+  // After the stress figures and node voltages: these solves overwrite the operating-point state.
   let ladderImpedance = NaN;
   if (full) {
     const stepA = Math.max(ladderCurrentA * 1e-3, 1e-9);
@@ -154,7 +160,6 @@ export function analyzePrepared(prepared: PreparedLadder, options: { operatingPo
     ladderImpedance = (solveCycle(ws, lowI).meanV - solveCycle(ws, highI).meanV) / (highI - lowI);
   }
 
-  const terminalMeanV = cycle.meanV - seriesDropV;
   const noLoadTerminalV = noLoadV;
   return {
     topology: input.topology,
@@ -162,8 +167,8 @@ export function analyzePrepared(prepared: PreparedLadder, options: { operatingPo
     stageCount: net.stageCount,
     noLoadOutputV: sign * noLoadTerminalV,
     outputMeanV: sign * terminalMeanV,
-    outputMinV: sign * (sign > 0 ? cycle.minV - seriesDropV : cycle.maxV - seriesDropV),
-    outputMaxV: sign * (sign > 0 ? cycle.maxV - seriesDropV : cycle.minV - seriesDropV),
+    outputMinV,
+    outputMaxV,
     ripplePeakToPeakV: cycle.maxV - cycle.minV,
     droopV: Math.abs(noLoadTerminalV - terminalMeanV),
     outputImpedanceOhm: ladderImpedance + seriesOhm,
@@ -175,6 +180,8 @@ export function analyzePrepared(prepared: PreparedLadder, options: { operatingPo
     idealNoLoadV: sign * (net.idealCoefficientH * timing.highV + net.idealCoefficientL * timing.lowV),
     capacitors,
     diodes,
+    nodes,
+    nodeMethod: NODE_VOLTAGE_METHOD,
     textbook: textbookFigures(input, ladderCurrentA),
     method: STEADY_STATE_METHOD,
   };

@@ -1,5 +1,6 @@
 export { analyzeLadder, prepareLadder, analyzePrepared, terminalMeanAt, withDiode, STEADY_STATE_METHOD } from './analyze-ladder';
 export { textbookFigures } from './textbook-formulas';
+export { ladderNodeVoltages, NODE_VOLTAGE_METHOD } from './ladder-nodes';
 export type { PreparedLadder } from './analyze-ladder';
 export { buildLadderNetwork } from './topologies';
 export type { LadderNetwork } from './topologies';
@@ -16,6 +17,8 @@ export type {
   CapacitorStress,
   DiodeStress,
   DiodeModel,
+  LadderNodeVoltage,
+  LadderNodeColumn,
   TextbookFigures,
   MethodInfo,
 } from './ladder.types';

@@ -59,6 +59,24 @@ export interface DiodeStress {
   forwardDropV: number;
 }
 
+/** Column of a ladder node: a winding end, a capacitor column, or the load terminal after the series resistor. */
+export type LadderNodeColumn = 'oscillating' | 'smoothing' | 'source' | 'output';
+
+/** Voltage of one ladder node to the circuit ground over the steady-state cycle (signed by polarity). */
+export interface LadderNodeVoltage {
+  /** The simulator's name of the same node (sim/build-circuit.ts): 's', 'n3', 'top', 'out', 'a2', 'mid', … */
+  id: string;
+  label: string;
+  column: LadderNodeColumn;
+  /** Stage the node belongs to (0 for a winding end). */
+  stage: number;
+  /** 1-based index of the capacitor whose upper plate is this node; null for a winding end or the load terminal. */
+  capacitorIndex: number | null;
+  meanV: number;
+  minV: number;
+  maxV: number;
+}
+
 /** Steady-state result of analyzeLadder, SI units, signed by the ladder polarity. */
 export interface LadderAnalysis {
   topology: Topology;
@@ -86,6 +104,9 @@ export interface LadderAnalysis {
   idealNoLoadV: number;
   capacitors: CapacitorStress[];
   diodes: DiodeStress[];
+  /** Every ladder node's voltage to ground at the operating point, winding ends first, the load terminal last. */
+  nodes: LadderNodeVoltage[];
+  nodeMethod: MethodInfo;
   /** Published closed forms where their conditions hold (equal capacitors; the doubler with any two); null otherwise. */
   textbook: TextbookFigures;
   method: MethodInfo;

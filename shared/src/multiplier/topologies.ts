@@ -1,6 +1,6 @@
 import { DomainError } from '../errors';
 import type { Topology } from '../designs/design.types';
-import type { CapacitorStress } from './ladder.types';
+import type { CapacitorStress, LadderNodeColumn } from './ladder.types';
 
 /** Drive extremes: event H is the positive extreme of the hot winding end, event L the negative one. */
 export type DriveEvent = 0 | 1;
@@ -39,7 +39,25 @@ export interface LadderNetwork {
   /** Ideal no-load output in units of the drive: coefficients of the H and L extremes (V = kH·Vh + kL·Vl). */
   idealCoefficientH: number;
   idealCoefficientL: number;
+  /** Name, label and place of every node; the return node is the circuit ground ('0'). */
+  nodeInfo: LadderNodeInfo[];
 }
+
+/**
+ * Where a node sits. `id` is the name the simulator's circuit gives the same node (sim/build-circuit.ts),
+ * so engine and simulator figures can be matched node by node.
+ */
+export interface LadderNodeInfo {
+  id: string;
+  label: string;
+  column: LadderNodeColumn;
+  stage: number;
+  /** 1-based index of the capacitor whose upper plate (in the circuit) is this node; null for a winding end. */
+  capacitorIndex: number | null;
+}
+
+const columnOfCapacitor = (column: CapacitorStress['column']): LadderNodeColumn =>
+  column === 'smoothing' || column === 'bridge' ? 'smoothing' : 'oscillating';
 
 /** Plain arrays: for ladders of tens of nodes they allocate far faster than typed arrays. */
 function zeros(length: number): number[] {
@@ -60,6 +78,7 @@ function finish(
   outNode: number,
   returnNode: number,
   ideal: [number, number],
+  nodeInfo: LadderNodeInfo[],
 ): LadderNetwork {
   const m = b.caps.length;
   const dCount = b.diodes.length;
@@ -70,7 +89,7 @@ function finish(
     capColumn: new Array<CapacitorStress['column']>(m), capStage: zeros(m), capDiode: zeros(m),
     diodeAnode: zeros(dCount), diodeCathode: zeros(dCount), diodeEvent: zeros(dCount),
     diodeShare: zeros(dCount), nodeRoot: zeros(nodeCount),
-    outNode, returnNode, idealCoefficientH: ideal[0], idealCoefficientL: ideal[1],
+    outNode, returnNode, idealCoefficientH: ideal[0], idealCoefficientL: ideal[1], nodeInfo,
   };
   for (let i = 0; i < anchorScale.length; i += 1) net.nodeRoot[i] = i;
   for (let c = 0; c < m; c += 1) {
@@ -126,7 +145,18 @@ function halfWave(capacitorsF: readonly number[]): LadderNetwork {
   }
   // Even k: each stage adds one drive peak-to-peak. Odd k: the rectifier cell adds the H peak only.
   const ideal: [number, number] = isEven ? [k / 2, k / 2] : [(k + 1) / 2, (k - 1) / 2];
-  return finish('half-wave', k, isEven ? k / 2 : k / 2, [0, 1], b, id(k), 0, ideal);
+  const nodeInfo: LadderNodeInfo[] = [
+    { id: '0', label: 'ground', column: 'source', stage: 0, capacitorIndex: null },
+    { id: 's', label: 'winding', column: 'source', stage: 0, capacitorIndex: null },
+    ...b.caps.map((cap, c): LadderNodeInfo => ({
+      id: c + 1 === k ? 'top' : `n${c + 1}`,
+      label: c + 1 === k ? `N${c + 1} (ladder top)` : `N${c + 1}`,
+      column: columnOfCapacitor(cap.column),
+      stage: cap.stage,
+      capacitorIndex: c + 1,
+    })),
+  ];
+  return finish('half-wave', k, isEven ? k / 2 : k / 2, [0, 1], b, id(k), 0, ideal, nodeInfo);
 }
 
 /**
@@ -152,7 +182,23 @@ function fullWave(capacitorsF: readonly number[]): LadderNetwork {
     b.caps.push({ top: bb(j), bottom: bb(j - 1), f: capacitorsF[base + 1] ?? 0, column: 'oscillating-b', stage: j, diode: d + 1 });
     b.caps.push({ top: s(j), bottom: s(j - 1), f: capacitorsF[base + 2] ?? 0, column: 'smoothing', stage: j, diode: d + 2 });
   }
-  return finish('full-wave', n, n, [0, 1, -1], b, s(n), 0, [n, n]);
+  const nodeInfo: LadderNodeInfo[] = [
+    { id: '0', label: 'ground', column: 'source', stage: 0, capacitorIndex: null },
+    { id: 'sa', label: 'winding A', column: 'source', stage: 0, capacitorIndex: null },
+    { id: 'sb', label: 'winding B', column: 'source', stage: 0, capacitorIndex: null },
+    ...b.caps.map((cap, c): LadderNodeInfo => {
+      const letter = cap.column === 'oscillating-a' ? 'a' : cap.column === 'oscillating-b' ? 'b' : 'm';
+      const isTop = letter === 'm' && cap.stage === n;
+      return {
+        id: isTop ? 'top' : `${letter}${cap.stage}`,
+        label: `${letter === 'm' ? 'S' : letter.toUpperCase()}${cap.stage}${isTop ? ' (ladder top)' : ''}`,
+        column: columnOfCapacitor(cap.column),
+        stage: cap.stage,
+        capacitorIndex: c + 1,
+      };
+    }),
+  ];
+  return finish('full-wave', n, n, [0, 1, -1], b, s(n), 0, [n, n], nodeInfo);
 }
 
 /**
@@ -170,7 +216,14 @@ function bridgeDoubler(capacitorsF: readonly number[]): LadderNetwork {
       { anode: 3, cathode: 1, event: EVENT_L, share: 1 },
     ],
   };
-  return finish('bridge-doubler', 2, 1, [0, 1], b, 2, 3, [1, 1]);
+  // The circuit grounds B (C2 from the midpoint to ground), so B is the return node here.
+  const nodeInfo: LadderNodeInfo[] = [
+    { id: 'mid', label: 'midpoint', column: 'smoothing', stage: 1, capacitorIndex: 2 },
+    { id: 'w', label: 'winding', column: 'source', stage: 0, capacitorIndex: null },
+    { id: 'top', label: 'T (ladder top)', column: 'smoothing', stage: 1, capacitorIndex: 1 },
+    { id: '0', label: 'ground', column: 'source', stage: 0, capacitorIndex: null },
+  ];
+  return finish('bridge-doubler', 2, 1, [0, 1], b, 2, 3, [1, 1], nodeInfo);
 }
 
 /** Builds the network of a topology from capacitors in the MultiplierSpec order. */

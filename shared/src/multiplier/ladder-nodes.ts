@@ -1,0 +1,76 @@
+import type { Workspace } from './charge-transfer-model';
+import type { LadderNodeVoltage, MethodInfo } from './ladder.types';
+
+export const NODE_VOLTAGE_METHOD: MethodInfo = {
+  methodId: 'charge-transfer-nodes-v1',
+  summary:
+    'Node voltages to ground from the same charge-transfer solution as the output: each node is its winding end plus the capacitors below it, whose voltages jump at the charge transfers and ramp linearly with the load between them.',
+  assumptions: [
+    'a node’s cycle mean is the mean of its capacitor sum plus the mean of its winding end: zero for a sine secondary (the drop across the source resistance is neglected), the time-weighted flat tops for a pulse secondary',
+    'minimum and maximum are taken at the four instants of the cycle: just after and just before each charge transfer, with the winding end at the drive extreme of that instant',
+    'voltages are to the circuit ground: for the bridge doubler that is the foot of the lower capacitor, not the winding midpoint',
+    'the load terminal is the ladder top less the drop across the series output resistor',
+  ],
+  source: 'Charge-balance analysis of the cascade (Kuffel, Zaengl & Kuffel, High Voltage Engineering Fundamentals, 2nd ed., §2.2.2, from memory), node by node',
+};
+
+/** The load terminal's figures, already signed, as analyzeLadder reports them. */
+export interface TerminalFigures {
+  meanV: number;
+  minV: number;
+  maxV: number;
+}
+
+/**
+ * Voltage of every ladder node to ground over the steady-state cycle (V, signed by polarity), from the
+ * workspace state the operating-point solve left (call before any other solve). Method: NODE_VOLTAGE_METHOD.
+ */
+export function ladderNodeVoltages(ws: Workspace, currentA: number, polarity: 1 | -1, terminal: TerminalFigures): LadderNodeVoltage[] {
+  const { net, timing } = ws;
+  const instants = (n: number): { values: number[]; meanV: number } => {
+    const root = net.nodeRoot[n] as number;
+    const anchorA = ws.nodeA[root] as number;
+    const anchorB = ws.nodeB[root] as number;
+    const sumA = (ws.nodeA[n] as number) - anchorA;
+    const sumB = (ws.nodeB[n] as number) - anchorB;
+    const fallH = currentA * timing.afterHS * (ws.nodeRateH[n] as number);
+    const fallL = currentA * timing.afterLS * (ws.nodeRateL[n] as number);
+    // A sine winding end moves to the opposite extreme between transfers; a flat top holds until its edge.
+    const values = timing.isSine
+      ? [sumA + anchorA, sumA + fallH + anchorB, sumB + anchorB, sumB + fallL + anchorA]
+      : [sumA + anchorA, sumA + fallH + anchorA, sumB + anchorB, sumB + fallL + anchorB];
+    const sumMean = (timing.afterHS * (sumA + fallH / 2) + timing.afterLS * (sumB + fallL / 2)) / timing.periodS;
+    const anchorMean = timing.isSine ? 0 : (timing.afterHS * anchorA + timing.afterLS * anchorB) / timing.periodS;
+    return { values, meanV: sumMean + anchorMean };
+  };
+  const ground = instants(net.returnNode);
+  const nodes: LadderNodeVoltage[] = [];
+  for (let n = 0; n < net.nodeCount; n += 1) {
+    if (n === net.returnNode) continue;
+    const info = net.nodeInfo[n];
+    if (!info) continue;
+    const own = instants(n);
+    const relative = own.values.map((v, i) => v - (ground.values[i] as number));
+    const low = Math.min(...relative);
+    const high = Math.max(...relative);
+    nodes.push({
+      ...info,
+      meanV: polarity * (own.meanV - ground.meanV),
+      minV: polarity > 0 ? low : -high,
+      maxV: polarity > 0 ? high : -low,
+    });
+  }
+  // Winding ends first, then the ladder from the bottom up; the load terminal last.
+  nodes.sort((x, y) => Number(x.column !== 'source') - Number(y.column !== 'source'));
+  nodes.push({
+    id: 'out',
+    label: 'load terminal',
+    column: 'output',
+    stage: Math.ceil(net.stageCount),
+    capacitorIndex: null,
+    meanV: terminal.meanV,
+    minV: terminal.minV,
+    maxV: terminal.maxV,
+  });
+  return nodes;
+}
