@@ -80,6 +80,13 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
               },
             },
             {
+              path: paths.signOff.path,
+              lazy: async () => {
+                const { SignOffRoute, signOffLoader } = await import('./routes/app/sign-off');
+                return { Component: SignOffRoute, loader: signOffLoader(queryClient) };
+              },
+            },
+            {
               path: paths.sizer.path,
               lazy: async () => {
                 const { SizerRoute, sizerLoader } = await import('./routes/app/sizer');

@@ -54,4 +54,22 @@ describe('AppShell', () => {
     fireEvent.click(screen.getByRole('button', { name: 'Switch to light scheme' }));
     expect(document.documentElement).toHaveAttribute('data-mantine-color-scheme', 'light');
   });
+
+  it('links to the Inbox for everyone and to the Outbox only for admins', () => {
+    const { unmount } = renderWithApp(
+      <AppShell user={reviewer} onSignOut={vi.fn()} navigation={null}>
+        <p>page body</p>
+      </AppShell>,
+    );
+    expect(screen.getByRole('link', { name: 'Inbox' })).toHaveAttribute('href', '/inbox');
+    expect(screen.queryByRole('link', { name: 'Outbox' })).not.toBeInTheDocument();
+    unmount();
+
+    renderWithApp(
+      <AppShell user={{ ...reviewer, role: 'admin' }} onSignOut={vi.fn()} navigation={null}>
+        <p>page body</p>
+      </AppShell>,
+    );
+    expect(screen.getByRole('link', { name: 'Outbox' })).toHaveAttribute('href', '/outbox');
+  });
 });

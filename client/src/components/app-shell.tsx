@@ -5,6 +5,7 @@ import {
   Avatar,
   Box,
   Burger,
+  Button,
   Group,
   Menu,
   Text,
@@ -64,6 +65,16 @@ export function AppShell({ user, onSignOut, isSigningOut = false, navigation, ch
             </UnstyledButton>
           </Group>
           <Group gap="xs" wrap="nowrap">
+            <Group gap={4} wrap="nowrap" component="nav" aria-label="Sign-off mail">
+              <Button component={Link} to={paths.inbox.getHref()} variant="subtle" size="compact-sm">
+                Inbox
+              </Button>
+              {user.role === 'admin' && (
+                <Button component={Link} to={paths.outbox.getHref()} variant="subtle" size="compact-sm">
+                  Outbox
+                </Button>
+              )}
+            </Group>
             <SchemeToggle />
             <UserMenu user={user} onSignOut={onSignOut} isSigningOut={isSigningOut} />
           </Group>

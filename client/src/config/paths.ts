@@ -34,6 +34,11 @@ export const paths = {
     getHref: (projectId: string, designId: string, revisionNumber: number) =>
       `/projects/${encodeURIComponent(projectId)}/designs/${encodeURIComponent(designId)}/revisions/${revisionNumber}/bench-runs`,
   },
+  signOff: {
+    path: '/projects/:projectId/designs/:designId/revisions/:revisionNumber/sign-off',
+    getHref: (projectId: string, designId: string, revisionNumber: number) =>
+      `/projects/${encodeURIComponent(projectId)}/designs/${encodeURIComponent(designId)}/revisions/${revisionNumber}/sign-off`,
+  },
 } as const;
 
 export const apiPaths = {
@@ -71,6 +76,9 @@ export const apiPaths = {
     `/api/projects/${encodeURIComponent(projectId)}/designs/${encodeURIComponent(designId)}/revisions/${revisionNumber}/bench-runs`,
   benchRun: (projectId: string, designId: string, revisionNumber: number, benchRunId: string) =>
     `/api/projects/${encodeURIComponent(projectId)}/designs/${encodeURIComponent(designId)}/revisions/${revisionNumber}/bench-runs/${encodeURIComponent(benchRunId)}`,
+  /** Below a revision: `sign-off`, `submit`, `withdraw`, `approve`, `return`, `release`, `comments`, `spec-sheet.pdf`. */
+  revisionAction: (projectId: string, designId: string, revisionNumber: number, action: string) =>
+    `/api/projects/${encodeURIComponent(projectId)}/designs/${encodeURIComponent(designId)}/revisions/${revisionNumber}/${action}`,
 } as const;
 
 /** Keeps a post-sign-in redirect inside this app: only same-origin absolute paths are accepted. */

@@ -119,3 +119,14 @@ export async function apiFormRequest<T>(
   }
   return (await response.json()) as T;
 }
+
+/** Fetches a file (e.g. a PDF) with the session cookie; errors as `apiRequest`. */
+export async function apiBlobRequest(url: string, options: { signal?: AbortSignal } = {}): Promise<Blob> {
+  const response = await fetch(url, { credentials: 'include', signal: options.signal });
+  if (!response.ok) {
+    const errorBody = await readErrorBody(response);
+    if (response.status === 401) unauthorizedHandler?.();
+    throw new ApiError(errorBody, parseRetryAfterS(response.headers.get('Retry-After')));
+  }
+  return response.blob();
+}

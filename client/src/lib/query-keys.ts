@@ -39,4 +39,13 @@ export const queryKeys = {
     detail: (projectId: string, designId: string, revisionNumber: number, benchRunId: string) =>
       [...queryKeys.benchRuns.revision(projectId, designId, revisionNumber), benchRunId] as const,
   },
+  signOff: {
+    all: ['signOff'] as const,
+    revision: (projectId: string, designId: string, revisionNumber: number) =>
+      [...queryKeys.signOff.all, projectId, designId, revisionNumber] as const,
+    state: (projectId: string, designId: string, revisionNumber: number) =>
+      [...queryKeys.signOff.revision(projectId, designId, revisionNumber), 'state'] as const,
+    comments: (projectId: string, designId: string, revisionNumber: number) =>
+      [...queryKeys.signOff.revision(projectId, designId, revisionNumber), 'comments'] as const,
+  },
 } as const;

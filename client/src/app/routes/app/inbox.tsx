@@ -29,11 +29,19 @@ export function InboxRoute() {
           <Title order={2} size="h4">
             Waiting for me
           </Title>
-          <InboxTable items={inbox.data.waitingForMe} emptyText="Nothing is waiting for your Sign-off." />
+          <InboxTable
+            label="Waiting for me"
+            items={inbox.data.waitingForMe}
+            emptyText="Nothing is waiting for your Sign-off."
+          />
           <Title order={2} size="h4">
             Submitted by me
           </Title>
-          <InboxTable items={inbox.data.submittedByMe} emptyText="You have not submitted a revision yet." />
+          <InboxTable
+            label="Submitted by me"
+            items={inbox.data.submittedByMe}
+            emptyText="You have not submitted a revision yet."
+          />
         </>
       )}
       <Text size="xs" c="dimmed">

@@ -152,6 +152,13 @@ function EditableRevision({ projectId, revision, latestRevisionNumber, revisions
               {revision.number === latestRevisionNumber ? ' (latest)' : ` of ${latestRevisionNumber}`}
             </Badge>
             <RevisionStateBadge state={revision.state} />
+            <Anchor
+              component={Link}
+              size="sm"
+              to={paths.signOff.getHref(projectId, revision.designId, revision.number)}
+            >
+              Sign-off of r{revision.number}
+            </Anchor>
           </Group>
           <Text size="sm" c="dimmed">
             {revision.changeNote || 'No change note'} · by {revision.authorName} · engine {revision.engineVersion}

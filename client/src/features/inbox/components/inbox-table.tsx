@@ -3,7 +3,7 @@ import type { InboxItem } from '@ladderwright/shared/api';
 import { Link } from 'react-router-dom';
 import { paths } from '../../../config/paths';
 
-export function InboxTable({ items, emptyText }: { items: InboxItem[]; emptyText: string }) {
+export function InboxTable({ items, emptyText, label }: { items: InboxItem[]; emptyText: string; label: string }) {
   if (items.length === 0)
     return (
       <Text c="dimmed" size="sm">
@@ -11,7 +11,7 @@ export function InboxTable({ items, emptyText }: { items: InboxItem[]; emptyText
       </Text>
     );
   return (
-    <Table striped>
+    <Table striped aria-label={label}>
       <Table.Thead>
         <Table.Tr>
           <Table.Th>Design</Table.Th>
@@ -26,7 +26,7 @@ export function InboxTable({ items, emptyText }: { items: InboxItem[]; emptyText
         {items.map((item) => (
           <Table.Tr key={`${item.designId}-${item.revisionNumber}`}>
             <Table.Td>
-              <Anchor component={Link} to={paths.design.getHref(item.projectId, item.designId, item.revisionNumber)}>
+              <Anchor component={Link} to={paths.signOff.getHref(item.projectId, item.designId, item.revisionNumber)}>
                 {item.designName}
               </Anchor>
             </Table.Td>

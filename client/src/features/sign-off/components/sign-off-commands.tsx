@@ -1,0 +1,107 @@
+import { useState } from 'react';
+import { Button, Checkbox, Group, Stack, Text, Textarea } from '@mantine/core';
+import type { SignOff } from '@ladderwright/shared/api';
+import { useRunSignOffCommand, type NoteCommand } from '../api/run-sign-off-command';
+import { useSubmitRevision } from '../api/submit-revision';
+import { SignOffError } from './sign-off-error';
+
+const commandLabels: Record<NoteCommand, string> = {
+  withdraw: 'Withdraw',
+  approve: 'Approve',
+  return: 'Return with note',
+  release: 'Release',
+};
+
+const noteCommands: readonly NoteCommand[] = ['approve', 'return', 'release', 'withdraw'];
+
+/** The commands the server offers the caller, as buttons; submit names reviewers; return needs a note. */
+export function SignOffCommands({ signOff }: { signOff: SignOff }) {
+  const { projectId, designId, revisionNumber, availableCommands } = signOff;
+  const [note, setNote] = useState('');
+  const [reviewerIds, setReviewerIds] = useState<string[]>([]);
+  const submit = useSubmitRevision(projectId, designId, revisionNumber);
+  const command = useRunSignOffCommand(projectId, designId, revisionNumber);
+  const offered = noteCommands.filter((name) => availableCommands.includes(name));
+  const canSubmit = availableCommands.includes('submit');
+  const trimmedNote = note.trim();
+  const isBusy = submit.isPending || command.isPending;
+  const onDone = () => {
+    setNote('');
+    setReviewerIds([]);
+  };
+
+  if (!canSubmit && offered.length === 0) {
+    return (
+      <Text size="sm" c="dimmed">
+        No Sign-off command is open to you on this revision in its {signOff.state} state.
+      </Text>
+    );
+  }
+
+  return (
+    <Stack gap="sm">
+      {canSubmit &&
+        (signOff.candidateReviewers.length === 0 ? (
+          <Text size="sm" c="dimmed">
+            No reviewer or lead in this project can take this revision.
+          </Text>
+        ) : (
+          <Checkbox.Group
+            label="Reviewers"
+            description="Who should sign this revision off"
+            value={reviewerIds}
+            onChange={setReviewerIds}
+          >
+            <Stack gap={6} mt={6}>
+              {signOff.candidateReviewers.map((person) => (
+                <Checkbox
+                  key={person.userId}
+                  value={person.userId}
+                  label={`${person.displayName} (${person.projectRole})`}
+                />
+              ))}
+            </Stack>
+          </Checkbox.Group>
+        ))}
+      <Textarea
+        label="Note"
+        description={offered.includes('return') ? 'Required to return the revision' : 'Optional'}
+        placeholder="What the next person should know"
+        rows={2}
+        value={note}
+        onChange={(event) => setNote(event.currentTarget.value)}
+      />
+      <Group gap="sm">
+        {canSubmit && (
+          <Button
+            loading={submit.isPending}
+            disabled={isBusy || reviewerIds.length === 0}
+            onClick={() =>
+              submit.mutate({ reviewerIds, ...(trimmedNote ? { note: trimmedNote } : {}) }, { onSuccess: onDone })
+            }
+          >
+            Submit for Sign-off
+          </Button>
+        )}
+        {offered.map((name) => (
+          <Button
+            key={name}
+            variant={name === 'approve' || name === 'release' ? 'filled' : 'default'}
+            color={name === 'return' ? 'ember' : undefined}
+            loading={command.isPending && command.variables?.command === name}
+            disabled={isBusy || (name === 'return' && trimmedNote === '')}
+            onClick={() =>
+              command.mutate(
+                { command: name, request: trimmedNote ? { note: trimmedNote } : {} },
+                { onSuccess: onDone },
+              )
+            }
+          >
+            {commandLabels[name]}
+          </Button>
+        ))}
+      </Group>
+      <SignOffError error={submit.error ?? command.error} fallbackTitle="The Sign-off did not change" />
+    </Stack>
+  );
+}

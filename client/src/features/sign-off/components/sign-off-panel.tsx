@@ -1,0 +1,50 @@
+import { List, Paper, Stack, Text, Title } from '@mantine/core';
+import type { SignOff } from '@ladderwright/shared/api';
+import { SignOffCommands } from './sign-off-commands';
+import { SignOffHistory } from './sign-off-history';
+
+/** The Sign-off of one revision: who it waits for, the commands open to the caller, approvals and history. */
+export function SignOffPanel({ signOff }: { signOff: SignOff }) {
+  return (
+    <Stack gap="md">
+      <Paper withBorder p="md">
+        <Title order={2} size="h4" mb="xs">
+          Sign-off
+        </Title>
+        <Text size="sm" mb="sm">
+          Author: {signOff.authorName}
+          {signOff.reviewers.length > 0 &&
+            ` · ${signOff.state === 'submitted' ? 'waiting for' : 'submitted to'} ${signOff.reviewers
+              .map((person) => person.displayName)
+              .join(', ')}`}
+        </Text>
+        <SignOffCommands key={signOff.state} signOff={signOff} />
+      </Paper>
+      <Paper withBorder p="md">
+        <Title order={2} size="h4" mb="xs">
+          Approvals
+        </Title>
+        {signOff.approvals.length === 0 ? (
+          <Text size="sm" c="dimmed">
+            Not approved yet.
+          </Text>
+        ) : (
+          <List size="sm" aria-label="Approvals">
+            {signOff.approvals.map((approval) => (
+              <List.Item key={`${approval.userId}-${approval.at}`}>
+                approved by {approval.displayName} on {new Date(approval.at).toLocaleString()}
+                {approval.note ? ` · ${approval.note}` : ''}
+              </List.Item>
+            ))}
+          </List>
+        )}
+      </Paper>
+      <Paper withBorder p="md">
+        <Title order={2} size="h4" mb="xs">
+          History
+        </Title>
+        <SignOffHistory history={signOff.history} />
+      </Paper>
+    </Stack>
+  );
+}
