@@ -6,16 +6,19 @@ import { SizerPanel } from './sizer-panel';
 
 /** Stands in for the module worker: answers through the same handler the worker runs, or stays silent. */
 class FakeSizerWorker {
-  onmessage: ((event: MessageEvent) => void) | null = null;
-  onerror: ((event: ErrorEvent) => void) | null = null;
   posted: SizerWorkerRequest[] = [];
   isTerminated = false;
+  private readonly listeners: Array<(event: MessageEvent) => void> = [];
   constructor(private readonly isAnswering: boolean) {}
+  addEventListener(type: string, listener: (event: MessageEvent) => void) {
+    if (type === 'message') this.listeners.push(listener);
+  }
   postMessage(message: SizerWorkerRequest) {
     this.posted.push(message);
     if (!this.isAnswering) return;
     setTimeout(() => {
-      if (!this.isTerminated) this.onmessage?.({ data: answerSizerRequest(message) } as MessageEvent);
+      if (this.isTerminated) return;
+      for (const listener of this.listeners) listener({ data: answerSizerRequest(message) } as MessageEvent);
     }, 0);
   }
   terminate() {

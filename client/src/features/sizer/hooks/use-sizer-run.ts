@@ -15,7 +15,9 @@ export interface SizerRun {
 /** Runs sizeLadder in a Web Worker: the page stays responsive, and a run can be cancelled. */
 export function useSizerRun(): SizerRun {
   const workerRef = useRef<Worker | null>(null);
-  const runIdRef = useRef(0);
+  /** The run awaiting its answer; an answer for any other run (one cancelled meanwhile) is dropped. */
+  const pendingRef = useRef<SizerWorkerRequest | null>(null);
+  const runCountRef = useRef(0);
   const [outcome, setOutcome] = useState<SizerRun['outcome']>(null);
   const [error, setError] = useState<string | null>(null);
   const [isRunning, setIsRunning] = useState(false);
@@ -27,41 +29,49 @@ export function useSizerRun(): SizerRun {
 
   useEffect(() => stopWorker, [stopWorker]);
 
+  // One worker serves run after run; only a cancel, a crash or an unmount ends it.
+  const ensureWorker = useCallback((): Worker => {
+    if (workerRef.current) return workerRef.current;
+    const worker = createSizerWorker();
+    worker.addEventListener('message', (event: MessageEvent<SizerWorkerAnswer>) => {
+      const pending = pendingRef.current;
+      const answer = event.data;
+      if (!pending || answer.runId !== pending.runId) return;
+      pendingRef.current = null;
+      if (answer.isOk) {
+        setOutcome({ request: pending.request, result: answer.result });
+        setError(null);
+      } else {
+        setOutcome(null);
+        setError(answer.message);
+      }
+      setIsRunning(false);
+    });
+    worker.addEventListener('error', (event: ErrorEvent) => {
+      event.preventDefault();
+      pendingRef.current = null;
+      setError(event.message || 'The Sizer stopped unexpectedly.');
+      setIsRunning(false);
+      stopWorker();
+    });
+    workerRef.current = worker;
+    return worker;
+  }, [stopWorker]);
+
   const run = useCallback(
     (request: SizerRequest) => {
-      const runId = ++runIdRef.current;
-      // One worker serves run after run; only a cancel or an unmount ends it.
-      const worker = workerRef.current ?? createSizerWorker();
-      workerRef.current = worker;
-      worker.onmessage = (event: MessageEvent<SizerWorkerAnswer>) => {
-        const answer = event.data;
-        if (answer.runId !== runIdRef.current) return;
-        if (answer.isOk) {
-          setOutcome({ request, result: answer.result });
-          setError(null);
-        } else {
-          setOutcome(null);
-          setError(answer.message);
-        }
-        setIsRunning(false);
-      };
-      worker.onerror = (event: ErrorEvent) => {
-        if (runId !== runIdRef.current) return;
-        event.preventDefault();
-        setError(event.message || 'The Sizer stopped unexpectedly.');
-        setIsRunning(false);
-        stopWorker();
-      };
+      runCountRef.current += 1;
+      const message: SizerWorkerRequest = { runId: runCountRef.current, request };
+      pendingRef.current = message;
       setError(null);
       setIsRunning(true);
-      const message: SizerWorkerRequest = { runId, request };
-      worker.postMessage(message);
+      ensureWorker().postMessage(message);
     },
-    [stopWorker],
+    [ensureWorker],
   );
 
   const cancel = useCallback(() => {
-    runIdRef.current += 1;
+    pendingRef.current = null;
     stopWorker();
     setIsRunning(false);
   }, [stopWorker]);

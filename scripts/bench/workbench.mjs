@@ -1,0 +1,220 @@
+// Workbench figures, a benchmark and not a test. Each figure is printed beside a reference measured in the same run:
+//   (a) first-load JavaScript of the Workbench route (entry chunk + its static imports + the route chunk and its
+//       static imports, from the Vite manifest), raw and gzip, beside the sign-in route;
+//   (b) time per live recompute: the shared analyzeDesign, and validateDesign + analyzeDesign as the Workbench's
+//       live-analysis hook runs them, on each demo design, beside JSON.parse(JSON.stringify(design)) of the same
+//       document; and in chromium (playwright-core, /usr/bin/chromium) against the built server: a typed capacitor
+//       value until the live preview's headline figures show the new result, beside the same edit's first render
+//       (the "updating" badge), both timed in the page.
+// Load figures of POST /api/analysis/evaluate (p50/p95/p99): scripts/bench/load.mjs.
+//   node scripts/bench/workbench.mjs [--no-build] [--no-browser]
+import { readFileSync, statSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import path from 'node:path';
+import { gzipSync } from 'node:zlib';
+import { chromium } from 'playwright-core';
+import { repoRoot, run } from '../lib/run.mjs';
+import { startBenchServer } from './bench-server.mjs';
+
+const isBuilding = !process.argv.includes('--no-build');
+const isUsingBrowser = !process.argv.includes('--no-browser');
+const editsPerDesign = 9;
+const clientDist = path.join(repoRoot, 'client', 'dist');
+const require = createRequire(import.meta.url);
+
+/** Every chunk `key` loads before it runs: itself and its static imports, transitively (dynamic imports excluded). */
+function staticClosure(manifest, key, files = new Set()) {
+  const chunk = manifest[key];
+  if (!chunk) throw new Error(`${key} is not in the Vite manifest`);
+  if (files.has(chunk.file)) return files;
+  files.add(chunk.file);
+  for (const imported of chunk.imports ?? []) staticClosure(manifest, imported, files);
+  return files;
+}
+
+function routeJs(manifest, routeSource) {
+  const files = staticClosure(manifest, 'index.html');
+  staticClosure(manifest, routeSource, files);
+  let rawBytes = 0;
+  let gzipBytes = 0;
+  for (const file of files) {
+    const content = readFileSync(path.join(clientDist, file));
+    rawBytes += content.length;
+    gzipBytes += gzipSync(content).length;
+  }
+  return { files: files.size, rawBytes, gzipBytes };
+}
+
+const kib = (bytes) => `${(bytes / 1024).toFixed(1)} KiB`;
+
+/**
+ * Median per-call time in µs of each function, over 9 rounds; in each round every function runs one batch of
+ * ~40 ms in turn, so all of them see the same machine load (the machine is shared), after a warm-up.
+ */
+function medianPerCallUs(fns) {
+  let sink = 0;
+  const perBatch = fns.map((fn) => {
+    const warmUntil = performance.now() + 100;
+    let calls = 0;
+    while (performance.now() < warmUntil) {
+      sink += fn() ? 1 : 0;
+      calls += 1;
+    }
+    return Math.max(1, Math.round(calls * (40 / 100)));
+  });
+  const samples = fns.map(() => []);
+  for (let round = 0; round < 9; round += 1) {
+    fns.forEach((fn, k) => {
+      const start = performance.now();
+      for (let i = 0; i < perBatch[k]; i += 1) sink += fn() ? 1 : 0;
+      samples[k].push(((performance.now() - start) * 1000) / perBatch[k]);
+    });
+  }
+  if (sink < 0) console.log(sink);
+  return samples.map((list) => [...list].sort((a, b) => a - b)[Math.floor(list.length / 2)]);
+}
+
+function firstLoad() {
+  const manifest = JSON.parse(readFileSync(path.join(clientDist, '.vite', 'manifest.json'), 'utf8'));
+  const workbench = routeJs(manifest, 'src/app/routes/app/workbench.tsx');
+  const signIn = routeJs(manifest, 'src/app/routes/auth/sign-in.tsx');
+  console.log('\n(a) first-load JavaScript per route (client/dist, entry + route chunk + their static imports)');
+  console.log('route        chunks        raw       gzip');
+  for (const [name, figures] of [
+    ['Workbench', workbench],
+    ['sign-in', signIn],
+  ]) {
+    console.log(
+      `${name.padEnd(12)} ${String(figures.files).padStart(6)} ${kib(figures.rawBytes).padStart(12)} ${kib(figures.gzipBytes).padStart(10)}`,
+    );
+  }
+  console.log(
+    `ratio Workbench / sign-in: raw ${(workbench.rawBytes / signIn.rawBytes).toFixed(2)}, gzip ${(workbench.gzipBytes / signIn.gzipBytes).toFixed(2)}`,
+  );
+}
+
+function liveRecompute() {
+  const { designExamples, validateDesign } = require(path.join(repoRoot, 'shared', 'dist', 'designs', 'index.js'));
+  const { analyzeDesign } = require(path.join(repoRoot, 'shared', 'dist', 'multiplier', 'index.js'));
+  console.log(
+    `\n(b) time per live recompute in Node ${process.version} (median of 9 interleaved batches, µs per call)`,
+  );
+  console.log(
+    'design                  analyze µs  validate+analyze µs  reference JSON round trip µs  ratio (validate+analyze / reference)',
+  );
+  for (const [name, design] of Object.entries(designExamples)) {
+    const valid = validateDesign(design);
+    const [analyzeUs, bothUs, referenceUs] = medianPerCallUs([
+      () => analyzeDesign(valid),
+      () => analyzeDesign(validateDesign(design)),
+      () => JSON.parse(JSON.stringify(design)),
+    ]);
+    console.log(
+      `${name.padEnd(22)} ${analyzeUs.toFixed(0).padStart(11)} ${bothUs.toFixed(0).padStart(20)} ${referenceUs.toFixed(1).padStart(29)} ${(bothUs / referenceUs).toFixed(0).padStart(10)}`,
+    );
+  }
+}
+
+/**
+ * In the page: types `text` into `input` as a user would (React sees an input event) and resolves with the ms until
+ * the edit first renders (the results badge reads "updating") and until the headline figures change.
+ */
+function timeTypedEdit({ input, text }) {
+  /* global document, MutationObserver, HTMLInputElement -- this function runs in the page */
+  const figures = () =>
+    [...document.querySelectorAll('[data-figure] [data-value]')].map((e) => e.textContent).join('|');
+  const badge = () =>
+    [...document.querySelectorAll('.mantine-Badge-root')]
+      .map((e) => e.textContent ?? '')
+      .find((t) => t.startsWith('live preview')) ?? '';
+  const before = figures();
+  return new Promise((resolve, reject) => {
+    let renderMs = null;
+    const start = performance.now();
+    const check = () => {
+      const now = performance.now() - start;
+      if (renderMs === null && badge().includes('updating')) renderMs = now;
+      if (badge() === 'live preview (unsaved edits)' && figures() !== before) {
+        observer.disconnect();
+        resolve({ renderMs: renderMs ?? now, resultMs: now });
+      }
+    };
+    const observer = new MutationObserver(check);
+    observer.observe(document.body, { subtree: true, childList: true, characterData: true });
+    setTimeout(() => reject(new Error(`no new figures 10 s after typing ${text}`)), 10_000);
+    const setValue = Object.getOwnPropertyDescriptor(HTMLInputElement.prototype, 'value').set;
+    setValue.call(input, text);
+    input.dispatchEvent(new Event('input', { bubbles: true }));
+    check();
+  });
+}
+
+const median = (values) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)];
+
+async function liveRecomputeInBrowser() {
+  const { baseUrl, stop } = await startBenchServer({
+    database: 'ladderwright_bench_workbench',
+    clientDistDir: clientDist,
+  });
+  const browser = await chromium.launch({
+    executablePath: '/usr/bin/chromium',
+    args: ['--headless', '--no-sandbox', '--disable-gpu', '--no-first-run', '--disable-background-networking'],
+  });
+  try {
+    const context = await browser.newContext({ viewport: { width: 1440, height: 900 } });
+    const api = context.request;
+    const signIn = await api.post(`${baseUrl}/api/auth/sign-in`, {
+      data: { email: 'engineer@northfold.test', password: 'Northfold-demo-1' },
+    });
+    if (signIn.status() !== 200) throw new Error(`demo sign-in answered ${signIn.status()}`);
+    const [project] = await (await api.get(`${baseUrl}/api/projects`)).json();
+    const templates = await (await api.get(`${baseUrl}/api/design-templates`)).json();
+    const page = await context.newPage();
+    console.log(
+      `\n(b') typed edit to new headline figures in chromium, built client, median of ${editsPerDesign} edits (ms)`,
+    );
+    console.log(
+      'template                 edit rendered ms  new figures ms  ratio  (the hook waits 150 ms after the last keystroke)',
+    );
+    for (const template of templates) {
+      const created = await api.post(`${baseUrl}/api/projects/${project.id}/designs`, {
+        data: { name: `Bench ${template.id}`, from: { kind: 'template', templateId: template.id } },
+      });
+      if (created.status() !== 201)
+        throw new Error(`creating a design from ${template.id} answered ${created.status()}`);
+      const design = await created.json();
+      await page.goto(`${baseUrl}/projects/${project.id}/designs/${design.id}`);
+      await page.getByText('server result of r1').waitFor();
+      const input = await page.getByLabel('C1 capacitance').elementHandle();
+      const timings = [];
+      for (let i = 0; i < editsPerDesign; i += 1) {
+        timings.push(await page.evaluate(timeTypedEdit, { input, text: `${(1.2 + 0.1 * i).toFixed(1)}n` }));
+      }
+      const renderMs = median(timings.map((t) => t.renderMs));
+      const resultMs = median(timings.map((t) => t.resultMs));
+      console.log(
+        `${template.id.padEnd(24)} ${renderMs.toFixed(1).padStart(17)} ${resultMs.toFixed(1).padStart(15)} ${(resultMs / renderMs).toFixed(1).padStart(6)}`,
+      );
+    }
+  } finally {
+    await browser.close();
+    await stop();
+  }
+}
+
+async function main() {
+  if (isBuilding) {
+    for (const workspace of ['shared', 'server', 'client']) {
+      if ((await run('npm', ['run', 'build', '-w', workspace])) !== 0) throw new Error(`${workspace} build failed`);
+    }
+  }
+  statSync(path.join(clientDist, '.vite', 'manifest.json'));
+  firstLoad();
+  liveRecompute();
+  if (isUsingBrowser) await liveRecomputeInBrowser();
+}
+
+main().catch((error) => {
+  console.error(`workbench bench: ${error instanceof Error ? error.message : error}`);
+  process.exit(1);
+});
