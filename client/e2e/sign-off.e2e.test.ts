@@ -54,6 +54,18 @@ async function expectState(page: Page, state: string): Promise<void> {
   await expect.poll(() => stateOf(page), { timeout: 10_000 }).toBe(state);
 }
 
+/** Clicks the download button, checks the file is a PDF and returns its text (pdftotext). */
+async function downloadedPdfText(page: Page, buttonName: string, fileName: string): Promise<string> {
+  const [download] = await Promise.all([
+    page.waitForEvent('download'),
+    page.getByRole('button', { name: buttonName, exact: true }).click(),
+  ]);
+  const pdfPath = resolve(screenshotDir, fileName);
+  await download.saveAs(pdfPath);
+  expect(readFileSync(pdfPath).subarray(0, 5).toString('latin1')).toBe('%PDF-');
+  return execFileSync('pdftotext', ['-layout', pdfPath, '-']).toString('utf8');
+}
+
 /** The Inbox row of this journey's design at `revisionNumber` in the group under `heading`. */
 async function inboxRow(page: Page, heading: string, revisionNumber: number) {
   await page.goto(`${baseUrl}/inbox`);
@@ -106,6 +118,13 @@ describe('Sign-off journey', () => {
       .poll(() => page.getByRole('table', { name: 'Sign-off history' }).textContent())
       .toMatch(/Northfold Engineer.*draft.*submitted.*First pass/);
     await shot(page, 'sign-off-01-submitted.png');
+    const draftText = await downloadedPdfText(
+      page,
+      'Download Spec sheet (PDF, NOT RELEASED)',
+      'sign-off-draft-sheet.pdf',
+    );
+    expect(draftText).toContain('NOT RELEASED');
+    expect(draftText).toMatch(/revision 1 \(submitted\)/);
 
     // Reviewer: the Inbox shows r1 waiting; comment on C1 and return it.
     page = reviewer.page;
@@ -180,14 +199,7 @@ describe('Sign-off journey', () => {
     expect(await page.getByRole('button', { name: 'Approve', exact: true }).count()).toBe(0);
     await page.getByRole('button', { name: 'Release', exact: true }).click();
     await expectState(page, 'released');
-    const [download] = await Promise.all([
-      page.waitForEvent('download'),
-      page.getByRole('button', { name: 'Download Spec sheet (PDF)' }).click(),
-    ]);
-    const pdfPath = resolve(screenshotDir, 'sign-off-spec-sheet.pdf');
-    await download.saveAs(pdfPath);
-    expect(readFileSync(pdfPath).subarray(0, 5).toString('latin1')).toBe('%PDF-');
-    const text = execFileSync('pdftotext', ['-layout', pdfPath, '-']).toString('utf8');
+    const text = await downloadedPdfText(page, 'Download Spec sheet (PDF)', 'sign-off-spec-sheet.pdf');
     expect(text).toContain(designName);
     expect(text).toMatch(/revision 2 \(released\)/);
     expect(text).toContain('High voltage can kill');
