@@ -1,7 +1,7 @@
 import type { Circuit, CircuitElement } from './circuit.types';
 import { evaluateNpn, type NpnOperatingPoint } from './devices/bjt';
 import { inductanceMatrix } from './devices/coupled-inductors';
-import { evaluateDiode, type DiodeOperatingPoint } from './devices/diode';
+import { evaluateDiode, seriesDiodeCurrentA, type DiodeOperatingPoint } from './devices/diode';
 import type { MnaSystem } from './mna-system';
 import { waveformValue } from './source-waveforms';
 
@@ -102,9 +102,11 @@ export class EnergyMeter {
         }
         case 'diode': {
           const internal = this.system.internalIndex.get(e.name);
-          const junctionV = internal === undefined ? this.v(e.anode) : this.system.x[internal]!;
-          evaluateDiode(e.model, junctionV - this.v(e.cathode), this.diodeOut);
-          p = this.diodeOut.currentA * (this.v(e.anode) - this.v(e.cathode));
+          const terminalV = this.v(e.anode) - this.v(e.cathode);
+          // With an internal node the junction voltage is an unknown; otherwise the series resistance is folded in.
+          if (internal !== undefined) evaluateDiode(e.model, this.system.x[internal]! - this.v(e.cathode), this.diodeOut);
+          else seriesDiodeCurrentA(e.model, terminalV, this.diodeOut);
+          p = this.diodeOut.currentA * terminalV;
           break;
         }
         case 'npn': {

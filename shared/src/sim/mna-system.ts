@@ -100,7 +100,7 @@ export class MnaSystem {
       for (const a of u) for (const b of u) if (a >= 0 && b >= 0 && a < b) edges.push([a, b]);
     };
     const diodeJunctionNode = (e: Extract<CircuitElement, { kind: 'diode' }>): number =>
-      e.model.seriesResistanceOhm > 0 ? unknownOf(`i:${e.name}`) : node(e.anode);
+      hasInternalNode(e.model) ? unknownOf(`i:${e.name}`) : node(e.anode);
     for (const e of elements) {
       switch (e.kind) {
         case 'resistor':
@@ -271,8 +271,8 @@ export class MnaSystem {
         }
         case 'diode': {
           const anode = nodeAt(e.anode);
-          const junction = at(e.model.seriesResistanceOhm > 0 ? `i:${e.name}` : `n:${e.anode}`);
-          if (e.model.seriesResistanceOhm > 0) addConductance(g, anode, junction, 1 / e.model.seriesResistanceOhm);
+          const junction = at(hasInternalNode(e.model) ? `i:${e.name}` : `n:${e.anode}`);
+          if (hasInternalNode(e.model)) addConductance(g, anode, junction, 1 / e.model.seriesResistanceOhm);
           positive(e.model.saturationCurrentA, `${path}.model.saturationCurrentA`);
           positive(e.model.emissionCoefficient, `${path}.model.emissionCoefficient`);
           deferred.push(() => this.diodes.push(new CompiledDiode(e.name, e.model, junction, nodeAt(e.cathode), lu, addReactive)));
@@ -430,6 +430,15 @@ export class MnaSystem {
   }
 }
 
+/**
+ * A diode keeps an internal node between its series resistance and its junction only when the junction
+ * carries charge; otherwise the resistance is folded into the element (the junction voltage is solved
+ * locally, so the circuit matrix has one unknown fewer per diode).
+ */
+function hasInternalNode(model: DiodeModel): boolean {
+  return model.seriesResistanceOhm > 0 && ((model.junctionCapacitanceF ?? 0) > 0 || (model.transitTimeS ?? 0) > 0);
+}
+
 type AddReactive = (name: string, a: number, b: number, grad: ReadonlyArray<[number, number]>, q0: number) => number;
 
 function junctionOffsets(lu: BandedLu, a: number, b: number): Int32Array {
@@ -456,6 +465,10 @@ class CompiledDiode {
   private readonly offsets: Int32Array;
   private readonly reactive: number;
   private readonly hasCharge: boolean;
+  /** Series resistance folded into the element (no internal node), else 0. */
+  private readonly foldedOhm: number;
+  /** Terminal voltage at the last load, for the device convergence test of a folded diode. */
+  private lastTerminalV = 0;
 
   constructor(
     name: string,
@@ -469,6 +482,7 @@ class CompiledDiode {
     this.vcrit = criticalVoltageV(model.saturationCurrentA, this.vte);
     this.offsets = junctionOffsets(lu, junction, cathode);
     this.hasCharge = (model.junctionCapacitanceF ?? 0) > 0 || (model.transitTimeS ?? 0) > 0;
+    this.foldedOhm = hasInternalNode(model) ? 0 : model.seriesResistanceOhm;
     this.reactive = this.hasCharge ? addReactive(`${name}.junction`, junction, cathode, [[junction, 0], [cathode, 0]], 0) : -1;
   }
 
@@ -483,6 +497,7 @@ class CompiledDiode {
     out: DiodeOperatingPoint,
     qOut: { chargeC: number; capacitanceF: number },
   ): boolean {
+    if (this.foldedOhm > 0) return this.loadFolded(x, band, rhs, out);
     let v = limitJunctionVoltage(x[this.junction]! - x[this.cathode]!, this.lastV, this.vte, this.vcrit);
     let limited = wasLimited();
     // In reverse breakdown the same limiting applies to the voltage beyond the knee (SPICE3 dioload).
@@ -514,8 +529,42 @@ class CompiledDiode {
     return limited;
   }
 
+  /**
+   * Diode with its series resistance folded in: for the terminal voltage u, the junction voltage v solves
+   * v + Rs·I(v) = u (scalar Newton from the last v, each update limited as in pnjlim; the function is
+   * increasing with slope ≥ 1, so this converges), and the element conducts I with dI/du = g/(1 + Rs·g).
+   */
+  private loadFolded(x: Float64Array, band: Float64Array, rhs: Float64Array, out: DiodeOperatingPoint): boolean {
+    const u = x[this.junction]! - x[this.cathode]!;
+    const rs = this.foldedOhm;
+    let v = this.lastV;
+    for (let k = 0; k < 100; k++) {
+      evaluateDiode(this.model, v, out);
+      const step = (u - v - rs * out.currentA) / (1 + rs * out.conductanceS);
+      const next = limitJunctionVoltage(v + step, v, this.vte, this.vcrit);
+      const done = Math.abs(next - v) <= 1e-12 * (1 + Math.abs(v)) + 1e-9 * this.vte;
+      v = next;
+      if (done) break;
+    }
+    evaluateDiode(this.model, v, out);
+    const g = out.conductanceS / (1 + rs * out.conductanceS);
+    this.lastV = v;
+    this.lastTerminalV = u;
+    this.lastI = out.currentA;
+    this.lastG = g;
+    stampJunction(band, rhs, this.offsets, this.junction, this.cathode, g, out.currentA - g * u);
+    return false;
+  }
+
   /** SPICE's device test: the linearized current change to the new solution is within tolerance. */
   isConverged(x: Float64Array, relative: number, absoluteA: number): boolean {
+    if (this.foldedOhm > 0) {
+      const du = x[this.junction]! - x[this.cathode]! - this.lastTerminalV;
+      // A junction that stays below −3·n·Vt without breakdown is a near-linear leak (see below).
+      if (this.lastV < -3 * this.vte && this.lastV + du < -3 * this.vte && (this.model.breakdownVoltageV ?? 0) <= 0) return true;
+      const change = this.lastG * du;
+      return Math.abs(change) <= relative * Math.max(Math.abs(this.lastI + change), Math.abs(this.lastI)) + absoluteA;
+    }
     const v = x[this.junction]! - x[this.cathode]!;
     // Below −3·n·Vt and above any breakdown knee the junction is a near-linear leak (−Is and gmin): its
     // linearization is exact there, so the test would only chase the node voltages' rounding.

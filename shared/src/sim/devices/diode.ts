@@ -1,5 +1,5 @@
 import type { DiodeModel } from '../circuit.types';
-import { JUNCTION_GMIN_S, THERMAL_VOLTAGE_V } from './junction';
+import { criticalVoltageV, JUNCTION_GMIN_S, limitJunctionVoltage, THERMAL_VOLTAGE_V } from './junction';
 
 export interface DiodeOperatingPoint {
   currentA: number;
@@ -35,4 +35,25 @@ export function evaluateDiode(model: DiodeModel, voltageV: number, out: DiodeOpe
   }
   out.currentA = i + JUNCTION_GMIN_S * voltageV;
   out.conductanceS = g + JUNCTION_GMIN_S;
+}
+
+/**
+ * Current of a diode with its series resistance at terminal voltage u: solves v + Rs·I(v) = u for the
+ * junction voltage v by scalar Newton (limited as in pnjlim; the left side rises with slope ≥ 1).
+ */
+export function seriesDiodeCurrentA(model: DiodeModel, terminalV: number, out: DiodeOperatingPoint): number {
+  const rs = model.seriesResistanceOhm;
+  const vte = model.emissionCoefficient * THERMAL_VOLTAGE_V;
+  const vcrit = criticalVoltageV(model.saturationCurrentA, vte);
+  let v = Math.min(terminalV, vcrit);
+  for (let k = 0; k < 200; k++) {
+    evaluateDiode(model, v, out);
+    const step = (terminalV - v - rs * out.currentA) / (1 + rs * out.conductanceS);
+    const next = limitJunctionVoltage(v + step, v, vte, vcrit);
+    const isDone = Math.abs(next - v) <= 1e-12 * (1 + Math.abs(v));
+    v = next;
+    if (isDone) break;
+  }
+  evaluateDiode(model, v, out);
+  return out.currentA;
 }
