@@ -8,6 +8,7 @@ export interface DriverChecksInput {
   /** The ladder the driver feeds; without it the stage is checked at its clamp limit with no load. */
   ladder?: LadderLoadLine;
   ratedLoadCurrentA?: number;
+  /** Overrides the stage's own `batteryLifeTargetH`. */
   batteryLifeTargetS?: number;
 }
 
@@ -94,13 +95,10 @@ export function runDriverChecks(driver: DriverStage, input: DriverChecksInput = 
   ];
 
   // Base drive margin: the peak current the rated load needs. With the flyback at its limit P ∝ E·f ∝ Ipk
-  // (on- and flyback times both ∝ Ipk), so I_needed = Ipk · P_needed / P_deliverable.
-  if (input.ladder && ratedLoad && loadA > 0) {
+  // (on- and flyback times both ∝ Ipk), so I_needed = Ipk · P_needed / P_deliverable, P_needed = g·I_ladder·V₋.
+  if (ratedLoad && ratedLoad.ladderCurrentA > 0) {
     const e = estimate;
-    const dv = 1e-6 * e.maxFlybackSecondaryPeakV;
-    const drive = { forwardPeakV: e.forwardSecondaryPeakV.value, flybackPeakV: e.maxFlybackSecondaryPeakV, frequencyHz: e.frequencyHz.value };
-    const g = (input.ladder.noLoadOutputV({ ...drive, flybackPeakV: drive.flybackPeakV + dv }) - input.ladder.noLoadOutputV(drive)) / dv;
-    const neededW = g * loadA * e.maxFlybackSecondaryPeakV;
+    const neededW = ratedLoad.flybackChargeRatio * ratedLoad.ladderCurrentA * e.maxFlybackSecondaryPeakV;
     const neededA = e.peakPrimaryCurrentA.value * (neededW / e.deliverablePowerW.value);
     verdicts.push(lowerLimit('driver.base-drive', 'transistor', 'hFE·I_B ≥ the peak current the rated load needs, pass at ≥ 1.5× (hFE spread, common practice)', e.baseLimitedCurrentA, neededA, 'A', baseOverdrive));
   }
@@ -121,8 +119,9 @@ export function runDriverChecks(driver: DriverStage, input: DriverChecksInput = 
     const lowV = 0.8 * supply.cellsInSeries * supply.endVoltagePerCellV;
     const currentAt = supplyCurrentTable(driver, input.ladder, loadA, lowV, highV);
     life = batteryLife(supply, currentAt);
-    if (input.batteryLifeTargetS !== undefined) {
-      verdicts.push(lowerLimit('driver.battery-life', 'battery', 'life to the end voltage ≥ target, pass at ≥ 1.2× (cold and ageing, common practice)', life.lifeS.value, input.batteryLifeTargetS, 's', lifeReserve));
+    const targetS = input.batteryLifeTargetS ?? (driver.batteryLifeTargetH !== undefined ? driver.batteryLifeTargetH * 3600 : undefined);
+    if (targetS !== undefined) {
+      verdicts.push(lowerLimit('driver.battery-life', 'battery', 'life to the end voltage ≥ target, pass at ≥ 1.2× (cold and ageing, common practice)', life.lifeS.value, targetS, 's', lifeReserve));
     }
   }
   return { verdicts, estimate, ratedLoad, hipotTestVoltageV, batteryLife: life };

@@ -85,6 +85,8 @@ export interface DriverStage {
   indicatorLamp?: { currentA: number };
   /** Time the push-button is held for a cold start (used by the start-up simulation). */
   switchOnTimeS?: number;
+  /** Battery life the equipment must reach on a cells supply, in hours as the trade states it (checked when given). */
+  batteryLifeTargetH?: number;
 }
 
 /** How a figure was computed, so the Workbench can say so beside it. */

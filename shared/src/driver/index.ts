@@ -18,8 +18,10 @@ export { batteryLife, cellCurveOf, cellOpenCircuitVoltageV, cellMaxContinuousCur
 export type { BatteryLifeResult } from './battery';
 export { estimateBlockingOscillator } from './blocking-oscillator';
 export type { BlockingOscillatorEstimate, BlockingOscillatorOptions, OnTimeLimit } from './blocking-oscillator';
-export { driverOperatingPoint, halfWaveCascadeLoadLine, solveLoadPoint } from './operating-point';
-export type { LadderDrive, LadderLoadLine, LoadPoint, OperatingLimit, OperatingPointResult } from './operating-point';
+export { driverOperatingPoint, engineLadderLoadLine, pulseDriveOf, solveLoadPoint, OPERATING_POINT_METHOD } from './operating-point';
+export type { LadderDrive, LadderLoadLine, LadderState, LoadPoint, OperatingLimit, OperatingPointResult } from './operating-point';
+export { driverReport } from './driver-report';
+export type { DriverFigures, DriverReport } from './driver-report';
 export { runDriverChecks } from './driver-checks';
 export type { DriverChecksInput, DriverChecksResult } from './driver-checks';
 export { buildDriverCircuit, DRIVER_NODES, DRIVER_SUPPLY_SOURCE } from './build-driver-circuit';

@@ -1,4 +1,7 @@
+import type { PulseDrive } from '../designs/design.types';
 import { DomainError } from '../errors';
+import { prepareLadder, terminalMeanAt } from '../multiplier/analyze-ladder';
+import type { LadderInput } from '../multiplier/ladder.types';
 import { estimateBlockingOscillator, type BlockingOscillatorEstimate, type BlockingOscillatorOptions } from './blocking-oscillator';
 import type { DriverStage, MethodInfo } from './driver.types';
 
@@ -7,30 +10,87 @@ export interface LadderDrive {
   forwardPeakV: number;
   flybackPeakV: number;
   frequencyHz: number;
+  /** Share of the period spent in the forward pulse (the on-time); 0.5 if not given. */
+  dutyCycle?: number;
+}
+
+/** What the ladder does at one drive and one external load current. */
+export interface LadderState {
+  /** Mean load-terminal output, magnitude (V). */
+  outputV: number;
+  /** Current the ladder delivers at its top: external load plus bleeder (A). */
+  ladderCurrentA: number;
 }
 
 /**
- * The ladder as the driver sees it: a Thevenin load line V(I) = V0(drive) − Zout(drive)·I. Any ladder
- * analysis can stand behind it (see `halfWaveCascadeLoadLine` for the textbook one).
+ * The ladder as the driver sees it: its output at a drive and an external load current, and the charge each
+ * drive pulse pushes per unit of ladder output charge (∂V_top/∂V₋ and ∂V_top/∂V₊ at a fixed ladder current,
+ * equal to the charge ratio for a lossless ladder by reciprocity). `engineLadderLoadLine` is the product's.
  */
 export interface LadderLoadLine {
-  noLoadOutputV(drive: LadderDrive): number;
-  outputImpedanceOhm(drive: LadderDrive): number;
+  at(drive: LadderDrive, loadCurrentA: number): LadderState;
+  chargeRatios(drive: LadderDrive, ladderCurrentA: number): { flyback: number; forward: number };
+}
+
+/** The pulse drive of the ladder model for a LadderDrive behind the secondary winding resistance (Ω). */
+export function pulseDriveOf(drive: LadderDrive, sourceResistanceOhm: number): PulseDrive {
+  return {
+    kind: 'pulse',
+    forwardPeakV: drive.forwardPeakV,
+    flybackPeakV: drive.flybackPeakV,
+    frequencyHz: drive.frequencyHz,
+    dutyCycle: drive.dutyCycle ?? 0.5,
+    sourceResistanceOhm,
+  };
 }
 
 /**
- * Textbook load line of an n-stage half-wave cascade with equal capacitors C (F) driven by asymmetric pulses:
- * V0 = n·(V₊ + V₋) (REFERENCES.md §1, derived row for blocking-oscillator drive) and
- * Zout = ΔV0/I = (2n³/3 + n²/2 − n/6)/(f·C) (read: J. Lux, "Cockcroft Walton Voltage Multipliers";
- * memory: Kuffel, Zaengl & Kuffel §2.2.2). Ideal diodes, no stray capacitance.
+ * The engine's ladder (charge-transfer model, `analyzeLadder`'s steady state) as a load line: the actual
+ * topology, cell count, per-capacitor values, diodes, stray capacitance, bleeder and series output resistor
+ * of `input`; its drive is replaced by each call's, behind `input`'s drive source resistance, and its load by
+ * the call's external current.
+ */
+export function engineLadderLoadLine(input: LadderInput): LadderLoadLine {
+  const sourceOhm = input.drive.sourceResistanceOhm;
+  const seriesOhm = input.seriesOutputResistanceOhm;
+  const bare: LadderInput = { ...input, load: null, bleederOhm: null, seriesOutputResistanceOhm: 0 };
+  const topAt = (drive: LadderDrive, ladderCurrentA: number) =>
+    terminalMeanAt(prepareLadder({ ...bare, drive: pulseDriveOf(drive, sourceOhm) }), ladderCurrentA);
+  return {
+    at(drive, loadCurrentA) {
+      const prepared = prepareLadder({ ...input, load: null, drive: pulseDriveOf(drive, sourceOhm) });
+      const outputV = terminalMeanAt(prepared, loadCurrentA);
+      const topV = Math.max(0, outputV + loadCurrentA * seriesOhm);
+      const bleederA = input.bleederOhm ? topV / input.bleederOhm : 0;
+      return { outputV: Math.max(0, outputV), ladderCurrentA: loadCurrentA + bleederA };
+    },
+    chargeRatios(drive, ladderCurrentA) {
+      // Central differences, step 1e-4 of each peak: the model is smooth (log diode drops) and near linear in the peaks.
+      const slope = (key: 'flybackPeakV' | 'forwardPeakV') => {
+        const dv = Math.max(1e-4 * drive[key], 1e-6);
+        return (topAt({ ...drive, [key]: drive[key] + dv }, ladderCurrentA) - topAt({ ...drive, [key]: drive[key] - dv }, ladderCurrentA)) / (2 * dv);
+      };
+      return { flyback: slope('flybackPeakV'), forward: slope('forwardPeakV') };
+    },
+  };
+}
+
+/**
+ * Textbook load line of an n-stage half-wave cascade with equal capacitors C (F) driven by asymmetric pulses,
+ * kept as a reference for tests: V0 = n·(V₊ + V₋) (REFERENCES.md §1, derived row for blocking-oscillator drive),
+ * Zout = ΔV0/I = (2n³/3 + n²/2 − n/6)/(f·C) (read: J. Lux, "Cockcroft Walton Voltage Multipliers"; memory:
+ * Kuffel, Zaengl & Kuffel §2.2.2), each pulse pushing n charges per output charge. Ideal diodes, no bleeder.
  */
 export function halfWaveCascadeLoadLine(stages: number, capacitanceF: number): LadderLoadLine {
   if (!(Number.isInteger(stages) && stages >= 1)) throw new DomainError('invalid_argument', 'stages must be a positive integer', 'stages');
   if (!(capacitanceF > 0)) throw new DomainError('invalid_argument', 'capacitance must be positive', 'capacitanceF');
   const n = stages;
   return {
-    noLoadOutputV: (d) => n * (d.forwardPeakV + d.flybackPeakV),
-    outputImpedanceOhm: (d) => ((2 * n ** 3) / 3 + n ** 2 / 2 - n / 6) / (d.frequencyHz * capacitanceF),
+    at: (d, loadCurrentA) => ({
+      outputV: Math.max(0, n * (d.forwardPeakV + d.flybackPeakV) - (((2 * n ** 3) / 3 + n ** 2 / 2 - n / 6) / (d.frequencyHz * capacitanceF)) * loadCurrentA),
+      ladderCurrentA: loadCurrentA,
+    }),
+    chargeRatios: () => ({ flyback: n, forward: n }),
   };
 }
 
@@ -40,67 +100,80 @@ export interface LoadPoint {
   loadCurrentA: number;
   outputV: number;
   outputPowerW: number;
-  /** 'ladder': the flyback sits at its clamp/breakdown limit and the ladder's impedance sets the output;
+  /** External load plus bleeder (A). */
+  ladderCurrentA: number;
+  /** 'ladder': the flyback sits at its clamp/breakdown limit and the ladder sets the output;
    *  'power': the driver's energy per cycle sets it (flyback below its limit). */
   limitedBy: OperatingLimit;
   flybackSecondaryPeakV: number;
+  /** Charge the flyback pushes per unit of ladder output charge (∂V_top/∂V₋). */
+  flybackChargeRatio: number;
   frequencyHz: number;
+  dutyCycle: number;
   supplyCurrentA: number;
+  /** Output power over supply power. */
   efficiency: number;
 }
 
 export interface OperatingPointResult {
   ratedLoad: LoadPoint & { driver: BlockingOscillatorEstimate };
-  /** Load current above which the driver can no longer hold the flyback at its limit (A). */
+  /** Load current above which the driver can no longer hold the flyback at its limit (A); 0 if it cannot even at no load. */
   powerLimitOnsetA: number;
-  /** Output vs load current from no load to the largest current with a positive output. */
+  /** Output vs external load current from no load to the current at which the output reaches zero. */
   curve: LoadPoint[];
   method: MethodInfo;
 }
 
-const operatingPointMethod: MethodInfo = {
-  methodId: 'driver-ladder.power-balance',
+export const OPERATING_POINT_METHOD: MethodInfo = {
+  methodId: 'driver-ladder.power-balance-v2',
   summary:
-    'Flyback peak V₋ from the power balance g·I·V₋ = E·f(V₋)·η (g = ∂V0/∂V₋, the charge the flyback pushes per unit output charge), capped at the clamp or breakdown limit; output V = V0(V₊, V₋) − Zout·I.',
+    'Flyback peak V₋ from the power balance g·I_ladder·V₋ = E·f(V₋)·η (g = ∂V_top/∂V₋, the charge the flyback pushes per unit output charge; I_ladder = load plus bleeder), capped at the clamp or breakdown limit; output from the ladder model at that drive and load.',
   assumptions: [
-    'forward pulse is a stiff source: the ladder takes g₊·V₊·I from it straight from the supply',
+    'forward pulse is a stiff source: the ladder takes g₊·V₊·I_ladder from it straight from the supply (I_ladder at the clamp-limited drive)',
     'the flyback energy not taken by the ladder goes to the clamp',
-    'ladder as a Thevenin load line at each drive',
+    'g taken at the clamp-limited drive and held through the solve',
+    'ladder: the steady-state charge-transfer model of the actual topology, capacitors, diodes and bleeder',
   ],
-  source: 'Energy conservation per cycle; REFERENCES.md §1 (ladder load line) and §3 (E = ½ Lp Ipk², P = E f η)',
+  source: 'Energy conservation per cycle; REFERENCES.md §3 (E = ½ Lp Ipk², P = E f η); ladder by charge-transfer-v1',
 };
 
+function driveOf(e: BlockingOscillatorEstimate): LadderDrive {
+  const onS = e.onTimeS.value;
+  return {
+    forwardPeakV: e.forwardSecondaryPeakV.value,
+    flybackPeakV: e.flybackSecondaryPeakV.value,
+    frequencyHz: e.frequencyHz.value,
+    dutyCycle: onS / (onS + e.flybackTimeS.value),
+  };
+}
+
 /**
- * Where the driver meets the ladder: the output voltage (V) at a load current (A), with the limit that sets it.
- * Method: `operatingPointMethod` (power balance per cycle, see its summary).
+ * Where the driver meets the ladder: the output voltage (V) at an external load current (A), with the limit
+ * that sets it. Method: OPERATING_POINT_METHOD (power balance per cycle, see its summary).
  */
 export function solveLoadPoint(driver: DriverStage, ladder: LadderLoadLine, loadCurrentA: number, options: BlockingOscillatorOptions = {}): LoadPoint & { driver: BlockingOscillatorEstimate } {
   if (!(loadCurrentA >= 0)) throw new DomainError('invalid_argument', 'load current must be ≥ 0', 'loadCurrentA');
   const limitEst = estimateBlockingOscillator(driver, options);
-  const forwardV = limitEst.forwardSecondaryPeakV.value;
   const maxFlyV = limitEst.maxFlybackSecondaryPeakV;
-  const driveAt = (flyV: number, f: number): LadderDrive => ({ forwardPeakV: forwardV, flybackPeakV: flyV, frequencyHz: f });
-  const gain = (flyV: number, f: number) => {
-    const dv = Math.max(1e-6 * maxFlyV, 1e-9);
-    return (ladder.noLoadOutputV(driveAt(flyV + dv, f)) - ladder.noLoadOutputV(driveAt(flyV, f))) / dv;
-  };
-  const gainForward = (flyV: number, f: number) => {
-    const dv = Math.max(1e-6 * forwardV, 1e-9);
-    return (ladder.noLoadOutputV({ ...driveAt(flyV, f), forwardPeakV: forwardV + dv }) - ladder.noLoadOutputV(driveAt(flyV, f))) / dv;
-  };
-  const at = (flyV: number) => estimateBlockingOscillator(driver, { ...options, flybackSecondaryPeakV: flyV });
+  const limitDrive = driveOf(limitEst);
+  const limitLadderA = ladder.at(limitDrive, loadCurrentA).ladderCurrentA;
+  const ratios = ladder.chargeRatios(limitDrive, limitLadderA);
+  // The forward pulse's load on the supply, g₊·V₊·I_ladder, taken at the limit drive and held through the
+  // solve, so that the supply sag is the same in the balance and in the reported figures.
+  const forwardLoadPowerW = ratios.forward * limitEst.forwardSecondaryPeakV.value * limitLadderA;
+  const at = (flyV: number) => estimateBlockingOscillator(driver, { ...options, flybackSecondaryPeakV: flyV, forwardLoadPowerW });
   // Surplus of flyback power over what the ladder takes, per volt of flyback. Copper loss makes it fall at
   // very slow flybacks too, so there can be two roots: take the highest (the stable one) by scanning down
-  // from the limit on a log grid, then bisecting.
+  // from the limit on a log grid (8 points a decade over 6 decades), then bisecting.
   const surplus = (flyV: number) => {
     const e = at(flyV);
-    return e.deliverablePowerW.value / flyV - gain(flyV, e.frequencyHz.value) * loadCurrentA;
+    return e.deliverablePowerW.value / flyV - ratios.flyback * ladder.at(driveOf(e), loadCurrentA).ladderCurrentA;
   };
   let flyV = maxFlyV;
   let limitedBy: OperatingLimit = 'ladder';
-  if (loadCurrentA > 0 && surplus(maxFlyV) < 0) {
+  if (surplus(maxFlyV) < 0) {
     limitedBy = 'power';
-    const scanPoints = 120;
+    const scanPoints = 48;
     let hi = maxFlyV;
     let lo: number | null = null;
     for (let k = 1; k <= scanPoints; k++) {
@@ -115,7 +188,8 @@ export function solveLoadPoint(driver: DriverStage, ladder: LadderLoadLine, load
       flyV = maxFlyV * 1e-6; // the driver cannot push the ladder's charge at any flyback: output collapses
     } else {
       let below: number = lo;
-      for (let k = 0; k < 60; k++) {
+      // 40 halvings of a bracket an eighth of a decade wide: 1e-12 relative.
+      for (let k = 0; k < 40; k++) {
         const mid: number = 0.5 * (below + hi);
         if (surplus(mid) >= 0) below = mid;
         else hi = mid;
@@ -123,20 +197,19 @@ export function solveLoadPoint(driver: DriverStage, ladder: LadderLoadLine, load
       flyV = 0.5 * (below + hi);
     }
   }
-  const flyEst = at(flyV);
-  const f = flyEst.frequencyHz.value;
-  const drive = driveAt(flyV, f);
-  const outputV = Math.max(0, ladder.noLoadOutputV(drive) - ladder.outputImpedanceOhm(drive) * loadCurrentA);
-  const forwardLoadPowerW = gainForward(flyV, f) * forwardV * loadCurrentA;
-  const withForward = estimateBlockingOscillator(driver, { ...options, flybackSecondaryPeakV: flyV, forwardLoadPowerW });
-  const outputPowerW = outputV * loadCurrentA;
+  const withForward = at(flyV);
+  const loaded = ladder.at(driveOf(withForward), loadCurrentA);
+  const outputPowerW = loaded.outputV * loadCurrentA;
   return {
     loadCurrentA,
-    outputV,
+    outputV: loaded.outputV,
     outputPowerW,
+    ladderCurrentA: loaded.ladderCurrentA,
     limitedBy,
     flybackSecondaryPeakV: flyV,
+    flybackChargeRatio: ratios.flyback,
     frequencyHz: withForward.frequencyHz.value,
+    dutyCycle: driveOf(withForward).dutyCycle ?? 0.5,
     supplyCurrentA: withForward.inputCurrentA.value,
     efficiency: outputPowerW / withForward.inputPowerW.value,
     driver: withForward,
@@ -144,23 +217,38 @@ export function solveLoadPoint(driver: DriverStage, ladder: LadderLoadLine, load
 }
 
 /**
- * Operating point of the driver with the ladder: output at the rated load current (A), the onset of the
- * power limit (A), and the output-vs-load curve (`points` samples, default 41) up to the current at which
- * the output reaches zero or the driver can push no more charge.
+ * Operating point of the driver with the ladder: output at the rated external load current (A), the onset of
+ * the power limit (A), and the output-vs-load curve (`points` samples, default 25) from no load to the current
+ * at which the output reaches zero.
  */
 export function driverOperatingPoint(driver: DriverStage, ladder: LadderLoadLine, ratedLoadCurrentA: number, options: BlockingOscillatorOptions & { points?: number } = {}): OperatingPointResult {
-  const points = options.points ?? 41;
+  const points = Math.max(2, options.points ?? 25);
   const limitEst = estimateBlockingOscillator(driver, options);
   const maxFlyV = limitEst.maxFlybackSecondaryPeakV;
-  const drive: LadderDrive = { forwardPeakV: limitEst.forwardSecondaryPeakV.value, flybackPeakV: maxFlyV, frequencyHz: limitEst.frequencyHz.value };
-  const dv = 1e-6 * maxFlyV;
-  const g = (ladder.noLoadOutputV({ ...drive, flybackPeakV: maxFlyV + dv }) - ladder.noLoadOutputV(drive)) / dv;
-  const powerLimitOnsetA = limitEst.deliverablePowerW.value / (g * maxFlyV);
-  // Largest current: where the output reaches zero; bracket by doubling from the onset.
+  const limitDrive = driveOf(limitEst);
+  const isPowerLimitedAt = (loadA: number) => {
+    const state = ladder.at(limitDrive, loadA);
+    return limitEst.deliverablePowerW.value / maxFlyV < ladder.chargeRatios(limitDrive, state.ladderCurrentA).flyback * state.ladderCurrentA;
+  };
+  // Onset: bracket by doubling, then 40 bisections (1e-12 relative).
+  let powerLimitOnsetA = 0;
+  if (!isPowerLimitedAt(0)) {
+    let hiA = 1e-9;
+    for (let k = 0; k < 80 && !isPowerLimitedAt(hiA); k++) hiA *= 2;
+    let loA = 0;
+    for (let k = 0; k < 40; k++) {
+      const mid = 0.5 * (loA + hiA);
+      if (isPowerLimitedAt(mid)) hiA = mid;
+      else loA = mid;
+    }
+    powerLimitOnsetA = 0.5 * (loA + hiA);
+  }
+  // End of the curve: where the output reaches zero; bracket by doubling from the onset, then 24 bisections
+  // (6e-8 relative, far below the curve's sampling).
   let hiA = Math.max(powerLimitOnsetA, 1e-9);
   for (let k = 0; k < 60 && solveLoadPoint(driver, ladder, hiA, options).outputV > 0; k++) hiA *= 2;
   let loA = 0;
-  for (let k = 0; k < 50; k++) {
+  for (let k = 0; k < 24; k++) {
     const mid = 0.5 * (loA + hiA);
     if (solveLoadPoint(driver, ladder, mid, options).outputV > 0) loA = mid;
     else hiA = mid;
@@ -170,5 +258,5 @@ export function driverOperatingPoint(driver: DriverStage, ladder: LadderLoadLine
     const { driver: _unused, ...point } = solveLoadPoint(driver, ladder, (hiA * i) / (points - 1), options);
     curve.push(point);
   }
-  return { ratedLoad: solveLoadPoint(driver, ladder, ratedLoadCurrentA, options), powerLimitOnsetA, curve, method: operatingPointMethod };
+  return { ratedLoad: solveLoadPoint(driver, ladder, ratedLoadCurrentA, options), powerLimitOnsetA, curve, method: OPERATING_POINT_METHOD };
 }

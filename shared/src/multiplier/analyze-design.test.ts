@@ -3,7 +3,10 @@ import { designExamples } from '../designs/design-examples';
 import { validateDesign } from '../designs/validate-design';
 import type { Design } from '../designs/design.types';
 import { HV_CAUTION } from '../safety/hazard-limits';
-import { analyzeDesign } from './analyze-design';
+import { driverReport } from '../driver/driver-report';
+import { estimateBlockingOscillator } from '../driver/blocking-oscillator';
+import { engineLadderLoadLine, solveLoadPoint } from '../driver/operating-point';
+import { analyzeDesign, ladderInputOf, resolveDrive } from './analyze-design';
 import { DERATING } from './ladder-stress';
 
 describe('analyzeDesign on the demo designs', () => {
@@ -43,6 +46,75 @@ describe('analyzeDesign on the demo designs', () => {
     expect(report.outputMeanV).toBeLessThan(-6000);
     expect(report.noLoadOutputV).toBeLessThan(report.outputMeanV); // more negative at no load
     for (const d of report.analysis.diodes) expect(d.peakInverseV).toBeGreaterThan(0);
+  });
+});
+
+describe('analyzeDesign: the driver section of the surface-charge tester', () => {
+  const design = designExamples.surfaceChargeTester;
+  const stage = design.drive.kind === 'driver' ? design.drive.driver : null;
+  if (!stage) throw new Error('driver drive expected');
+  const withTarget = structuredClone(design);
+  if (withTarget.drive.kind === 'driver') withTarget.drive.driver.batteryLifeTargetH = 20;
+  const report = analyzeDesign(withTarget);
+  const ladder = engineLadderLoadLine(ladderInputOf(design, resolveDrive(design).drive, resolveDrive(design).currentLimitA));
+  const loadA = design.targets.loadCurrentA;
+  const direct = solveLoadPoint(stage, ladder, loadA);
+
+  it('carries the estimate figures with their methods, at the operating point the driver functions give', () => {
+    const d = report.driver!;
+    expect(d.figures.onTimeLimit).toMatch(/^(base|saturation)$/);
+    for (const figure of [d.figures.onTimeS, d.figures.peakPrimaryCurrentA, d.figures.flybackTimeS, d.figures.frequencyHz, d.figures.energyPerCycleJ, d.figures.deliverablePowerW, d.figures.forwardSecondaryPeakV, d.figures.flybackSecondaryPeakV, d.figures.collectorPeakV, d.figures.baseCurrentA, d.figures.inputCurrentA, d.figures.efficiency]) {
+      expect(figure.method.summary.length).toBeGreaterThan(5);
+      expect(Number.isFinite(figure.value)).toBe(true);
+    }
+    // 1e-9 relative: the same functions on the same inputs, so rounding only.
+    const close = (a: number, b: number) => expect(Math.abs(a - b) / Math.abs(b)).toBeLessThan(1e-9);
+    close(d.figures.frequencyHz.value, direct.driver.frequencyHz.value);
+    close(d.figures.peakPrimaryCurrentA.value, direct.driver.peakPrimaryCurrentA.value);
+    close(d.operatingPoint.ratedLoad.outputV, direct.outputV);
+    expect(d.operatingPoint.limitedBy).toBe(direct.limitedBy);
+    close(d.atLimit.deliverablePowerW.value, estimateBlockingOscillator(stage).deliverablePowerW.value);
+    expect(d.operatingPoint.curve.length).toBeGreaterThan(10);
+  });
+
+  it('makes the operating point the headline output (load terminal, cycle mean)', () => {
+    // 1e-6 relative: the ladder report re-solves the same drive with the load inside the model, the
+    // operating point with the load as an external current: the two solves agree to their tolerance.
+    expect(Math.abs(report.outputMeanV - report.driver!.operatingPoint.ratedLoad.outputV) / report.outputMeanV).toBeLessThan(1e-6);
+    expect(Math.abs(report.noLoadOutputV - report.driver!.operatingPoint.curve[0]!.outputV) / report.noLoadOutputV).toBeLessThan(1e-12);
+    expect(report.resolvedDrive.kind === 'pulse' && report.resolvedDrive.flybackPeakV).toBeCloseTo(direct.flybackSecondaryPeakV, 6);
+  });
+
+  it('reports the headline as power-limited when the rated load is beyond the driver, well below the clamp-limited ladder', () => {
+    const heavy = structuredClone(design);
+    heavy.load = { kind: 'current', currentA: 0.3e-3 };
+    heavy.targets.loadCurrentA = 0.3e-3;
+    const r = analyzeDesign(heavy);
+    expect(r.driver!.operatingPoint.limitedBy).toBe('power');
+    // REFERENCES.md §3: 0.3 mA at 4 kV takes 1.2 W; the stage delivers about 0.1 W, so the output stays far below.
+    expect(r.outputMeanV * 0.3e-3).toBeLessThan(r.driver!.atLimit.deliverablePowerW.value * 1.2);
+    expect(r.driver!.figures.flybackSecondaryPeakV.value).toBeLessThan(r.driver!.atLimit.flybackSecondaryPeakV.value);
+  });
+
+  it('carries battery life with the cell curve, the hipot voltage and the driver checks in the report checks', () => {
+    const d = report.driver!;
+    const expected = driverReport(withTarget.drive.kind === 'driver' ? withTarget.drive.driver : stage, ladder, loadA);
+    // 1e-9 relative: the same functions on the same inputs.
+    expect(Math.abs(d.batteryLife!.lifeS.value - expected.batteryLife!.lifeS.value) / expected.batteryLife!.lifeS.value).toBeLessThan(1e-9);
+    expect(d.batteryLife!.cellCurve.length).toBeGreaterThan(2);
+    expect(d.batteryLife!.targetS).toBe(20 * 3600);
+    expect(d.hipotTestVoltageV.method.summary).toContain('2·U + 1000');
+    const ids = report.checks.map((c) => c.id);
+    for (const id of ['driver.collector-voltage', 'driver.collector-current', 'driver.base-drive', 'driver.winding-insulation', 'driver.cell-current', 'driver.battery-life']) {
+      expect(ids).toContain(id);
+    }
+    const life = report.checks.find((c) => c.id === 'driver.battery-life')!;
+    expect(life.limit).toBe(20 * 3600);
+    expect(life.caution).toBe(HV_CAUTION);
+  });
+
+  it('leaves the driver section out of a design without a driver stage', () => {
+    expect(analyzeDesign(designExamples.detectorBias).driver).toBeNull();
   });
 });
 

@@ -1,7 +1,9 @@
 import { DomainError } from '../errors';
 import type { Design, DischargeRule, PulseDrive, SineDrive } from '../designs/design.types';
 import { estimateBlockingOscillator } from '../driver/blocking-oscillator';
-import type { MethodInfo } from '../driver/driver.types';
+import { driverReport, type DriverReport } from '../driver/driver-report';
+import type { DriverCheckVerdict, DriverStage, MethodInfo } from '../driver/driver.types';
+import { engineLadderLoadLine, pulseDriveOf, solveLoadPoint, type LadderLoadLine } from '../driver/operating-point';
 import { DISCHARGE_METHOD, dischargeCheck, trappedChargeCheck } from '../safety/discharge';
 import { creepageChecks, stageSpacing } from '../safety/creepage';
 import type { StageSpacing } from '../safety/creepage';
@@ -44,6 +46,8 @@ export interface DesignReport extends LadderReport {
   resolvedDrive: SineDrive | PulseDrive;
   meetsTargets: { output: boolean; ripple: boolean };
   spacing: StageSpacing[];
+  /** The driver stage joined to the ladder; null unless the design's drive is a driver stage. */
+  driver: DriverReport | null;
 }
 
 export interface LadderReportOptions {
@@ -117,16 +121,8 @@ const DRIVER_METHOD: MethodInfo = {
 export function resolveDrive(design: Design): { drive: SineDrive | PulseDrive; deliverablePowerW: number | null; currentLimitA: number | null } {
   const drive = design.drive;
   if (drive.kind !== 'driver') return { drive, deliverablePowerW: null, currentLimitA: null };
-  let estimate: ReturnType<typeof estimateBlockingOscillator>;
-  try {
-    estimate = estimateBlockingOscillator(drive.driver);
-  } catch (error) {
-    // The driver names its fields from the driver stage; in a design they sit under `drive.`.
-    if (error instanceof DomainError && error.field?.startsWith('driver')) {
-      throw new DomainError(error.code, error.message, `drive.${error.field}`);
-    }
-    throw error;
-  }
+  const stage = drive.driver;
+  const estimate = underDrive(() => estimateBlockingOscillator(stage));
   const onS = estimate.onTimeS.value;
   const flybackS = estimate.flybackTimeS.value;
   return {
@@ -142,6 +138,47 @@ export function resolveDrive(design: Design): { drive: SineDrive | PulseDrive; d
     // The flyback current the secondary can carry is the collector peak reflected through the turns ratio.
     currentLimitA: (estimate.collectorPeakCurrentA.value * drive.driver.transformer.primaryTurns) / drive.driver.transformer.secondaryTurns,
   };
+}
+
+/** A driver-stage error names its field from the stage; in a design it sits under `drive.`. */
+function underDrive<T>(compute: () => T): T {
+  try {
+    return compute();
+  } catch (error) {
+    if (error instanceof DomainError && error.field?.startsWith('driver')) {
+      throw new DomainError(error.code, error.message, `drive.${error.field}`);
+    }
+    throw error;
+  }
+}
+
+/** External load current (A) of the design at the driver's operating point: a resistance load by bisection on V(I) = I·R. */
+function ratedLoadCurrentOf(design: Design, driver: DriverStage, ladder: LadderLoadLine): number {
+  const load = design.load;
+  if (!load) return 0;
+  if (load.kind === 'current') return load.currentA;
+  const r = load.resistanceOhm;
+  let lo = 0;
+  let hi = solveLoadPoint(driver, ladder, 0).outputV / r;
+  // 40 halvings: 1e-12 of the no-load current, well below any figure the report shows.
+  for (let k = 0; k < 40; k++) {
+    const mid = 0.5 * (lo + hi);
+    if (solveLoadPoint(driver, ladder, mid).outputV > mid * r) lo = mid;
+    else hi = mid;
+  }
+  return 0.5 * (lo + hi);
+}
+
+const DRIVER_OPERATING_METHOD: MethodInfo = {
+  methodId: 'driver-headline-at-operating-point-v1',
+  summary:
+    'For a driver design the headline output, ripple and curves are the ladder at the operating point’s drive (flyback held where the driver’s power meets the ladder); no-load output from the operating curve at zero load; component stress at the clamp-limited flyback, the worst case.',
+  assumptions: ['the secondary is rectangular pulses at the estimated peaks behind the secondary winding resistance'],
+  source: 'driver-ladder.power-balance-v2 with charge-transfer-v1',
+};
+
+function asCheck(v: DriverCheckVerdict): CheckVerdict {
+  return { ...v, caution: HV_CAUTION };
 }
 
 /** The bare-ladder input of a design. */
@@ -176,24 +213,38 @@ export function analyzeDesign(design: Design): DesignReport {
   if (design.multiplier.strayCapacitanceF !== undefined && !(design.multiplier.strayCapacitanceF >= 0)) {
     throw new DomainError('invalid_design', 'stray capacitance must not be negative', 'multiplier.strayCapacitanceF');
   }
-  const { drive, deliverablePowerW, currentLimitA } = resolveDrive(design);
+  const { drive: limitDrive, deliverablePowerW, currentLimitA } = resolveDrive(design);
+  let drive = limitDrive;
+  let driver: DriverReport | null = null;
+  if (design.drive.kind === 'driver') {
+    const stage = design.drive.driver;
+    const ladder = engineLadderLoadLine(ladderInputOf(design, limitDrive, currentLimitA));
+    driver = underDrive(() => driverReport(stage, ladder, ratedLoadCurrentOf(design, stage, ladder)));
+    const rated = driver.operatingPoint.ratedLoad;
+    drive = pulseDriveOf(
+      { forwardPeakV: driver.figures.forwardSecondaryPeakV.value, flybackPeakV: rated.flybackSecondaryPeakV, frequencyHz: rated.frequencyHz, dutyCycle: rated.dutyCycle },
+      stage.transformer.secondaryResistanceOhm,
+    );
+  }
   const input = ladderInputOf(design, drive, currentLimitA);
   const targets = design.targets;
   const base = analyzeLadderReport(input, { safeVoltageV: targets.safeVoltageV, dischargeRule: targets.dischargeRule });
   const { analysis } = base;
+  // Power-limited at the rated load, the flyback rises to its clamp at lighter loads: stress at the limit drive.
+  const stressAnalysis = driver?.operatingPoint.limitedBy === 'power' ? analyzeLadder(ladderInputOf(design, limitDrive, currentLimitA)) : analysis;
 
-  const checks: CheckVerdict[] = [...ladderStressChecks(analysis, design.multiplier)];
-  const peakTopV = Math.max(Math.abs(analysis.outputMaxV), Math.abs(analysis.outputMinV)) + analysis.loadCurrentA * input.seriesOutputResistanceOhm;
-  checks.push(...bleederStressChecks(design.outputNetwork.bleeder, analysis.ladderTopMeanV, peakTopV));
+  const checks: CheckVerdict[] = [...ladderStressChecks(stressAnalysis, design.multiplier)];
+  const peakTopV = Math.max(Math.abs(stressAnalysis.outputMaxV), Math.abs(stressAnalysis.outputMinV)) + stressAnalysis.loadCurrentA * input.seriesOutputResistanceOhm;
+  checks.push(...bleederStressChecks(design.outputNetwork.bleeder, stressAnalysis.ladderTopMeanV, peakTopV));
   checks.push(...base.checks);
-  const windingEnd = analysis.capacitors.find((c) => c.column.startsWith('oscillating') && c.stage === 1 && (c.index === 1 || analysis.cellCount % 2 === 1));
+  const windingEnd = stressAnalysis.capacitors.find((c) => c.column.startsWith('oscillating') && c.stage === 1 && (c.index === 1 || stressAnalysis.cellCount % 2 === 1));
   const trapped = trappedChargeCheck({
     windingEndCapacitorV: windingEnd ? windingEnd.maxVoltageV : null,
     windingEndCapacitorF: windingEnd?.valueF ?? 0,
     safeVoltageV: targets.safeVoltageV,
   });
   if (trapped) checks.push(trapped);
-  const spacing = stageSpacing(stageWorkingVoltages(analysis), targets.spacing);
+  const spacing = stageSpacing(stageWorkingVoltages(stressAnalysis), targets.spacing);
   checks.push(...creepageChecks(spacing, targets.spacing));
   if (deliverablePowerW !== null) {
     const drawnW = Math.abs(analysis.ladderTopMeanV) * analysis.ladderCurrentA;
@@ -208,16 +259,21 @@ export function analyzeDesign(design: Design): DesignReport {
       }),
     );
   }
+  if (driver) checks.push(...driver.checks.map(asCheck));
   const rippleOk = analysis.ripplePeakToPeakV <= targets.rippleMaxV;
   const outputOk = Math.sign(analysis.outputMeanV) === Math.sign(targets.outputV) && Math.abs(analysis.outputMeanV) >= Math.abs(targets.outputV);
+  const noLoadOutputV = driver ? Math.sign(analysis.outputMeanV || 1) * (driver.operatingPoint.curve[0]?.outputV ?? 0) : base.noLoadOutputV;
   return {
     ...base,
+    noLoadOutputV,
+    droopV: driver ? Math.abs(noLoadOutputV - analysis.outputMeanV) : base.droopV,
     designName: design.name,
     resolvedDrive: drive,
     meetsTargets: { output: outputOk, ripple: rippleOk },
     spacing,
     checks,
-    methods: deliverablePowerW !== null ? [...base.methods, DRIVER_METHOD] : base.methods,
+    methods: driver ? [...base.methods, DRIVER_METHOD, driver.operatingPoint.method, DRIVER_OPERATING_METHOD] : base.methods,
+    driver,
   };
 }
 
