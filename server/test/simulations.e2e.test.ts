@@ -1,23 +1,14 @@
 import { randomUUID } from 'node:crypto';
 import request from 'supertest';
 import type { SimulationJob, WaveformTrace } from '@ladderwright/shared/api';
-import { type Design, designExamples } from '@ladderwright/shared/designs';
 import { buildCircuit, simulateTransient } from '@ladderwright/shared/sim';
+import { type Design, designExamples } from '@ladderwright/shared/designs';
+import { biasDoubler as doubler } from './fixtures/simulations/bias-doubler';
 import { createDesign } from './factories/create-design';
 import { createProject, type TestProject } from './factories/create-project';
 import { createUser, type TestUser } from './factories/create-user';
 import { createTestApp, type TestApp } from './utils/create-test-app';
 import { signIn } from './utils/sign-in';
-
-/** A doubler (2-cell half-wave ladder) on a 30 kHz sine secondary: small enough for a run of a second. */
-function doubler(): Design {
-  const base = designExamples.detectorBias as Design;
-  return {
-    ...base,
-    name: 'Bias doubler',
-    multiplier: { ...base.multiplier, cellCount: 2, capacitors: base.multiplier.capacitors.slice(0, 2) },
-  };
-}
 
 const SMALL_RUN = { cycles: 30, maxStepPerPeriod: 40 };
 /** 600 000 time steps: a few seconds of work, several 100 ms polls while it runs. */

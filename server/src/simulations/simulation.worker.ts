@@ -22,14 +22,15 @@ function dischargeVoltageV(rule: DischargeRule): number {
   return rule === '60V-5s' ? 60 : 50;
 }
 
-function toWaveform(phase: WaveformPhase, trace: PlotTrace): WaveformTrace {
-  return { name: 'V(top)', phase, unit: 'V', timeS: trace.timeS, values: trace.values };
+function toWaveform(phase: WaveformPhase, trace: PlotTrace, name = 'V(top)'): WaveformTrace {
+  return { name, phase, unit: 'V', timeS: trace.timeS, values: trace.values };
 }
 
 /**
  * One design-level run of the shared simulator (`runLadder`): start-up transient, steady-state ripple
  * (periodic steady state unless a cycle count is given) and, for 'discharge' and 'full', the bleeder
- * discharge after the drive stops. `runLadder` downsamples with min/max buckets, so peaks are kept.
+ * discharge after the drive stops, with the output and every capacitor's voltage. `runLadder` downsamples
+ * with min/max buckets, so peaks are kept.
  */
 function simulate(task: SimulationTask): SimulationResult {
   const { document: design, options, kind } = task;
@@ -53,13 +54,20 @@ function simulate(task: SimulationTask): SimulationResult {
     ripplePeakToPeakV: run.ripplePeakToPeakV,
     timeToSteadyStateS: run.timeToSteadyStateS,
     dischargeTimeS: run.discharge?.dischargeTimeS ?? null,
+    safeVoltageV: run.discharge?.safeVoltageV ?? null,
     cyclesSimulated: run.cyclesSimulated,
     method: run.method,
   };
   const waveforms: WaveformTrace[] = [];
   if (kind === 'startup' || kind === 'full') waveforms.push(toWaveform('startup', run.startUp));
   if (kind !== 'discharge') waveforms.push(toWaveform('steady-state', run.ripple));
-  if (run.discharge) waveforms.push(toWaveform('discharge', run.discharge.output));
+  if (run.discharge) {
+    waveforms.push(toWaveform('discharge', run.discharge.output));
+    // Each capacitor's own voltage, min/max-downsampled by runLadder like the output (C1, C2, … in design order).
+    for (const [capacitor, trace] of Object.entries(run.discharge.capacitorVoltagesV)) {
+      waveforms.push(toWaveform('discharge', trace, `V(${capacitor})`));
+    }
+  }
   return { summary, waveforms };
 }
 

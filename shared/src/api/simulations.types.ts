@@ -40,7 +40,7 @@ export type WaveformPhase = 'startup' | 'steady-state' | 'discharge';
  * sample, so the peaks of the full-resolution trace are always among `values`.
  */
 export interface WaveformTrace {
-  /** e.g. 'V(top)' for the ladder output voltage. */
+  /** 'V(top)' for the ladder output voltage; 'V(C3)' for the voltage across capacitor C3 (discharge). */
   name: string;
   phase: WaveformPhase;
   unit: 'V' | 'A';
@@ -54,6 +54,8 @@ export interface SimulationSummary {
   ripplePeakToPeakV: number | null;
   timeToSteadyStateS: number | null;
   dischargeTimeS: number | null;
+  /** Level the discharge ran down to (the design's discharge rule, magnitude); null when the kind has no discharge. */
+  safeVoltageV: number | null;
   cyclesSimulated: number;
   /** How the steady-state figures were obtained. */
   method: 'transient' | 'periodic-steady-state';

@@ -32,6 +32,42 @@ describe('runLadder', () => {
     expect(result.timeToSteadyStateS).not.toBeNull();
   });
 
+  it('discharges unequal bridge halves in R·C_eq·ln(V0/Vsafe) and traces each capacitor', () => {
+    // Check value: t_safe = RC ln(V0/V_safe), REFERENCES.md §4 (read), C the series pair C1·C2/(C1 + C2): the
+    // same bleeder current leaves both halves. Safe level 1000 V (from 2000 V) so that the smaller half (C1,
+    // 10 nF, losing 2.2 times the voltage C2 loses) ends near 310 V instead of being driven through zero onto D1.
+    const capacitorsF = [10e-9, 22e-9];
+    const bleederOhm = 10e6;
+    const safeV = 1000;
+    const result = runLadder(
+      {
+        topology: 'bridge-doubler',
+        cellCount: 2,
+        capacitorsF,
+        diode: { saturationCurrentA: 1e-9, emissionCoefficient: 1.8, seriesResistanceOhm: 1 },
+        drive: { kind: 'sine', peakV: 1000, frequencyHz: 10e3, sourceResistanceOhm: 10 },
+        bleederOhm,
+        load: null,
+      },
+      { until: 'steady', maxStepPerPeriod: 100, dischargeToV: safeV },
+    );
+    const discharge = result.discharge!;
+    const c1 = discharge.capacitorVoltagesV.C1!;
+    const c2 = discharge.capacitorVoltagesV.C2!;
+    // Each half starts near the drive peak (REFERENCES.md §2: bridge doubler, each half Vmax); 3 % for the
+    // diode drop and the source-resistance loss.
+    for (const trace of [c1, c2]) expect(Math.abs(trace.values[0]! / 1000 - 1)).toBeLessThan(0.03);
+    const v0 = c1.values[0]! + c2.values[0]!;
+    const seriesF = (capacitorsF[0]! * capacitorsF[1]!) / (capacitorsF[0]! + capacitorsF[1]!);
+    const expectedS = bleederOhm * seriesF * Math.log(v0 / safeV);
+    // 2 %: the crossing is interpolated inside one step of RC/2000 and diode leakage is nanoamps against 100 µA and more.
+    expect(Math.abs(discharge.dischargeTimeS! / expectedS - 1)).toBeLessThan(0.02);
+    // Charge balance of the series pair: both halves lost the same charge, C1·ΔV1 = C2·ΔV2 (0.5 %: leakage).
+    const lost1C = capacitorsF[0]! * (c1.values[0]! - c1.values[c1.values.length - 1]!);
+    const lost2C = capacitorsF[1]! * (c2.values[0]! - c2.values[c2.values.length - 1]!);
+    expect(Math.abs(lost1C / lost2C - 1)).toBeLessThan(0.005);
+  });
+
   const doubler: LadderCircuitSpec = {
     topology: 'bridge-doubler',
     cellCount: 2,
