@@ -107,6 +107,9 @@ describe('workbench journey', () => {
     const inputs = page.getByRole('table', { name: /Inputs that differ/ });
     await inputs.waitFor();
     expect(await inputs.textContent()).toContain('multiplier.capacitors[0].valueF');
+    // Values and deltas carry units (the field name's suffix), not raw SI numbers.
+    expect(await inputs.textContent()).toContain('1.5 nF');
+    expect(await inputs.textContent()).not.toMatch(/\de-\d/);
     expect(await page.getByRole('table', { name: 'Results' }).textContent()).toMatch(/r1.*r2/);
     await shot(page, 'workbench-04-compare.png');
 
@@ -118,7 +121,15 @@ describe('workbench journey', () => {
 
     // Simulate: progress, then waveforms.
     await page.getByRole('tab', { name: 'Waveforms' }).click();
+    const started = page.waitForRequest(
+      (request) => request.method() === 'POST' && /\/simulations$/.test(request.url()),
+    );
     await page.getByRole('button', { name: 'Start simulation' }).click();
+    // No unsaved edits: the stored revision is simulated by reference, not re-sent.
+    const startBody = (await started).postDataJSON() as Record<string, unknown>;
+    expect(startBody).toMatchObject({ kind: 'full', revisionNumber: 2 });
+    expect(typeof startBody.designId).toBe('string');
+    expect(startBody).not.toHaveProperty('document');
     await page.getByText(/^Simulation (queued|running): \d+ %$/).waitFor({ timeout: 10_000 });
     await shot(page, 'workbench-05-simulating.png');
     await page
