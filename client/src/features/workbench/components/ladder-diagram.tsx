@@ -1,5 +1,5 @@
 import { Paper, Text } from '@mantine/core';
-import type { CapacitorStress, DesignReport } from '@ladderwright/shared/multiplier';
+import type { CapacitorStress, DesignReport, LadderNodeVoltage } from '@ladderwright/shared/multiplier';
 import { formatQuantity } from '@ladderwright/shared/units';
 
 export interface LadderDiagramProps {
@@ -16,11 +16,14 @@ interface Placed {
   x: number;
   /** The capacitor's top plate; its bottom wire ends one row lower. */
   topY: number;
+  /** The ladder node on the top plate (the engine's node voltages), when the report has it. */
+  node: LadderNodeVoltage | undefined;
 }
 
 /**
  * The ladder as the engine built it: one column per capacitor column, stages from the bottom up, each
- * capacitor with its value and peak voltage, the diodes in conduction order and the output node's mean voltage.
+ * capacitor with its value and peak voltage, each node with its cycle-mean voltage to ground, the diodes in
+ * conduction order and the output node's mean voltage.
  */
 export function LadderDiagram({ report }: LadderDiagramProps) {
   const { capacitors, stageCount } = report.analysis;
@@ -33,6 +36,7 @@ export function LadderDiagram({ report }: LadderDiagramProps) {
     capacitor,
     x: padding.left + columns.indexOf(capacitor.column) * columnWidth + 40,
     topY: yOfStageTop(capacitor.stage) + 18,
+    node: report.analysis.nodes?.find((n) => n.capacitorIndex === capacitor.index),
   }));
   const groundY = height - padding.bottom + 8;
   const top = placed.filter((p) => p.capacitor.column === 'smoothing' || p.capacitor.column === 'bridge').at(-1);
@@ -102,7 +106,7 @@ export function LadderDiagram({ report }: LadderDiagramProps) {
 }
 
 function CapacitorSymbol({ placed, bottomY }: { placed: Placed; bottomY: number }) {
-  const { capacitor, x, topY } = placed;
+  const { capacitor, x, topY, node } = placed;
   const midY = (topY + bottomY) / 2;
   return (
     <g aria-label={`C${capacitor.index}`}>
@@ -125,6 +129,11 @@ function CapacitorSymbol({ placed, bottomY }: { placed: Placed; bottomY: number 
       />
       <line x1={x} x2={x} y1={midY + 4} y2={bottomY} stroke="currentColor" strokeWidth={1.5} />
       <circle cx={x} cy={topY} r={2.5} fill="currentColor" />
+      {node && (
+        <text x={x - 6} y={topY - 5} textAnchor="end" fill="currentColor" aria-label={`node ${node.label} mean`}>
+          {formatQuantity(node.meanV, 'V', 3)}
+        </text>
+      )}
       <text x={x + 16} y={midY - 6} fill="currentColor" fontWeight={600}>
         C{capacitor.index} {formatQuantity(capacitor.valueF, 'F', 3)}
       </text>

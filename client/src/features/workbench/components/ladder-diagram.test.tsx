@@ -1,0 +1,19 @@
+import { screen } from '@testing-library/react';
+import { describe, expect, it } from 'vitest';
+import { type Design, designExamples } from '@ladderwright/shared/designs';
+import { analyzeDesign } from '@ladderwright/shared/multiplier';
+import { formatQuantity } from '@ladderwright/shared/units';
+import { renderWithApp } from '../../../testing/render';
+import { LadderDiagram } from './ladder-diagram';
+
+describe('LadderDiagram', () => {
+  it('labels every capacitor top node with the engine’s mean node voltage', () => {
+    const report = analyzeDesign(designExamples.detectorBias as Design);
+    renderWithApp(<LadderDiagram report={report} />);
+    const ladderNodes = report.analysis.nodes.filter((n) => n.capacitorIndex !== null);
+    expect(ladderNodes).toHaveLength(report.analysis.capacitors.length);
+    for (const node of ladderNodes) {
+      expect(screen.getByLabelText(`node ${node.label} mean`).textContent).toBe(formatQuantity(node.meanV, 'V', 3));
+    }
+  });
+});
