@@ -9,6 +9,13 @@ import { BandedLu } from './solver/banded-lu';
 import { reverseCuthillMcKee } from './solver/node-ordering';
 import { nextWaveformBreakpoint, waveformValue } from './source-waveforms';
 
+// Local copies of the device functions, so the inner loop does not go through a module accessor per call.
+const diodeAt = evaluateDiode;
+const npnAt = evaluateNpn;
+const limitJunction = limitJunctionVoltage;
+const lastWasLimited = wasLimited;
+const depletionAt = depletionCharge;
+
 /**
  * Modified nodal analysis of a Circuit (C.-W. Ho, A. E. Ruehli and P. A. Brennan, IEEE Trans. Circuits
  * Syst. CAS-22(6), 1975): unknowns are node voltages and the currents of voltage sources and windings.
@@ -498,23 +505,23 @@ class CompiledDiode {
     qOut: { chargeC: number; capacitanceF: number },
   ): boolean {
     if (this.foldedOhm > 0) return this.loadFolded(x, band, rhs, out);
-    let v = limitJunctionVoltage(x[this.junction]! - x[this.cathode]!, this.lastV, this.vte, this.vcrit);
-    let limited = wasLimited();
+    let v = limitJunction(x[this.junction]! - x[this.cathode]!, this.lastV, this.vte, this.vcrit);
+    let limited = lastWasLimited();
     // In reverse breakdown the same limiting applies to the voltage beyond the knee (SPICE3 dioload).
     const bv = this.model.breakdownVoltageV;
     if (bv !== undefined && bv > 0 && !limited && v < Math.min(0, -bv + 10 * this.vte)) {
-      v = -(limitJunctionVoltage(-(v + bv), -(this.lastV + bv), this.vte, this.vcrit) + bv);
-      limited = wasLimited();
+      v = -(limitJunction(-(v + bv), -(this.lastV + bv), this.vte, this.vcrit) + bv);
+      limited = lastWasLimited();
     }
     this.lastV = v;
-    evaluateDiode(this.model, v, out);
+    diodeAt(this.model, v, out);
     this.lastI = out.currentA;
     this.lastG = out.conductanceS;
     let gEq = out.conductanceS;
     let iEq = out.currentA - gEq * v;
     if (this.hasCharge) {
       const m = this.model;
-      depletionCharge(v, m.junctionCapacitanceF ?? 0, m.junctionPotentialV ?? 1, m.gradingCoefficient ?? 0.5, qOut);
+      depletionAt(v, m.junctionCapacitanceF ?? 0, m.junctionPotentialV ?? 1, m.gradingCoefficient ?? 0.5, qOut);
       const tt = m.transitTimeS ?? 0;
       const q = qOut.chargeC + tt * (out.currentA);
       const cap = qOut.capacitanceF + tt * out.conductanceS;
@@ -537,16 +544,19 @@ class CompiledDiode {
   private loadFolded(x: Float64Array, band: Float64Array, rhs: Float64Array, out: DiodeOperatingPoint): boolean {
     const u = x[this.junction]! - x[this.cathode]!;
     const rs = this.foldedOhm;
-    let v = this.lastV;
+    // Start where Newton on the convex, increasing v + Rs·I(v) − u cannot overshoot far: at u itself up to
+    // the critical voltage (the root lies just below), else from the last junction voltage kept between
+    // the critical voltage and u.
+    let v = u <= this.vcrit ? u : Math.min(u, Math.max(this.lastV, this.vcrit));
     for (let k = 0; k < 100; k++) {
-      evaluateDiode(this.model, v, out);
+      diodeAt(this.model, v, out);
       const step = (u - v - rs * out.currentA) / (1 + rs * out.conductanceS);
-      const next = limitJunctionVoltage(v + step, v, this.vte, this.vcrit);
+      const next = limitJunction(v + step, v, this.vte, this.vcrit);
       const done = Math.abs(next - v) <= 1e-12 * (1 + Math.abs(v)) + 1e-9 * this.vte;
       v = next;
       if (done) break;
     }
-    evaluateDiode(this.model, v, out);
+    diodeAt(this.model, v, out);
     const g = out.conductanceS / (1 + rs * out.conductanceS);
     this.lastV = v;
     this.lastTerminalV = u;
@@ -625,13 +635,13 @@ class CompiledNpn {
     qOut: { chargeC: number; capacitanceF: number },
   ): boolean {
     const vb = x[this.base]!;
-    const vbe = limitJunctionVoltage(vb - x[this.emitter]!, this.lastVbe, THERMAL_VOLTAGE_V, this.vcrit);
-    let limited = wasLimited();
-    const vbc = limitJunctionVoltage(vb - x[this.collector]!, this.lastVbc, THERMAL_VOLTAGE_V, this.vcrit);
-    limited = limited || wasLimited();
+    const vbe = limitJunction(vb - x[this.emitter]!, this.lastVbe, THERMAL_VOLTAGE_V, this.vcrit);
+    let limited = lastWasLimited();
+    const vbc = limitJunction(vb - x[this.collector]!, this.lastVbc, THERMAL_VOLTAGE_V, this.vcrit);
+    limited = limited || lastWasLimited();
     this.lastVbe = vbe;
     this.lastVbc = vbc;
-    evaluateNpn(this.model, vbe, vbc, out);
+    npnAt(this.model, vbe, vbc, out);
     // Currents into C and B as linear functions of Vbe = Vb − Ve, Vbc = Vb − Vc; Ie = −(Ic + Ib).
     const gcbe = out.dCollectorDVbe;
     const gcbc = out.dCollectorDVbc;
@@ -697,7 +707,7 @@ class CompiledNpn {
     gradientStart: Int32Array,
     qOut: { chargeC: number; capacitanceF: number },
   ): void {
-    depletionCharge(v, cj0, vj, mj, qOut);
+    depletionAt(v, cj0, vj, mj, qOut);
     charge[reactive] = qOut.chargeC;
     const p = gradientStart[reactive]!;
     gradient[p] = qOut.capacitanceF;

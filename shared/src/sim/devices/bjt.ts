@@ -1,6 +1,10 @@
 import type { NpnModel } from '../circuit.types';
 import { JUNCTION_GMIN_S, THERMAL_VOLTAGE_V } from './junction';
 
+// Local copies of the junction module's bindings, so a hot call does not go through a module accessor.
+const gminS = JUNCTION_GMIN_S;
+const thermalVoltageV = THERMAL_VOLTAGE_V;
+
 /** Terminal currents into collector and base, and their derivatives with respect to Vbe and Vbc. */
 export interface NpnOperatingPoint {
   collectorA: number;
@@ -18,7 +22,7 @@ export interface NpnOperatingPoint {
  * with a gmin shunt across each junction.
  */
 export function evaluateNpn(model: NpnModel, vbeV: number, vbcV: number, out: NpnOperatingPoint): void {
-  const vt = THERMAL_VOLTAGE_V;
+  const vt = thermalVoltageV;
   const is = model.saturationCurrentA;
   const ebe = Math.exp(vbeV / vt);
   const ebc = Math.exp(vbcV / vt);
@@ -28,10 +32,10 @@ export function evaluateNpn(model: NpnModel, vbeV: number, vbcV: number, out: Np
   const gbc = (is * ebc) / vt;
   const br = model.reverseBeta;
   const bf = model.forwardBeta;
-  out.collectorA = ibe - ibc - ibc / br - JUNCTION_GMIN_S * vbcV;
+  out.collectorA = ibe - ibc - ibc / br - gminS * vbcV;
   out.dCollectorDVbe = gbe;
-  out.dCollectorDVbc = -gbc - gbc / br - JUNCTION_GMIN_S;
-  out.baseA = ibe / bf + ibc / br + JUNCTION_GMIN_S * (vbeV + vbcV);
-  out.dBaseDVbe = gbe / bf + JUNCTION_GMIN_S;
-  out.dBaseDVbc = gbc / br + JUNCTION_GMIN_S;
+  out.dCollectorDVbc = -gbc - gbc / br - gminS;
+  out.baseA = ibe / bf + ibc / br + gminS * (vbeV + vbcV);
+  out.dBaseDVbe = gbe / bf + gminS;
+  out.dBaseDVbc = gbc / br + gminS;
 }

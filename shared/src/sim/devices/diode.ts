@@ -1,6 +1,12 @@
 import type { DiodeModel } from '../circuit.types';
 import { criticalVoltageV, JUNCTION_GMIN_S, limitJunctionVoltage, THERMAL_VOLTAGE_V } from './junction';
 
+// Local copies of the junction module's bindings, so a hot call does not go through a module accessor.
+const gminS = JUNCTION_GMIN_S;
+const thermalVoltageV = THERMAL_VOLTAGE_V;
+const limitJunction = limitJunctionVoltage;
+const criticalV = criticalVoltageV;
+
 export interface DiodeOperatingPoint {
   currentA: number;
   conductanceS: number;
@@ -12,7 +18,7 @@ export interface DiodeOperatingPoint {
  * carrying the breakdown current there, and a gmin shunt. Series resistance is a separate element.
  */
 export function evaluateDiode(model: DiodeModel, voltageV: number, out: DiodeOperatingPoint): void {
-  const vte = model.emissionCoefficient * THERMAL_VOLTAGE_V;
+  const vte = model.emissionCoefficient * thermalVoltageV;
   const is = model.saturationCurrentA;
   let i: number;
   let g: number;
@@ -33,8 +39,8 @@ export function evaluateDiode(model: DiodeModel, voltageV: number, out: DiodeOpe
       g += (ibv * eb) / vte;
     }
   }
-  out.currentA = i + JUNCTION_GMIN_S * voltageV;
-  out.conductanceS = g + JUNCTION_GMIN_S;
+  out.currentA = i + gminS * voltageV;
+  out.conductanceS = g + gminS;
 }
 
 /**
@@ -43,13 +49,13 @@ export function evaluateDiode(model: DiodeModel, voltageV: number, out: DiodeOpe
  */
 export function seriesDiodeCurrentA(model: DiodeModel, terminalV: number, out: DiodeOperatingPoint): number {
   const rs = model.seriesResistanceOhm;
-  const vte = model.emissionCoefficient * THERMAL_VOLTAGE_V;
-  const vcrit = criticalVoltageV(model.saturationCurrentA, vte);
-  let v = Math.min(terminalV, vcrit);
+  const vte = model.emissionCoefficient * thermalVoltageV;
+  const vcrit = criticalV(model.saturationCurrentA, vte);
+  let v = terminalV <= vcrit ? terminalV : vcrit;
   for (let k = 0; k < 200; k++) {
     evaluateDiode(model, v, out);
     const step = (terminalV - v - rs * out.currentA) / (1 + rs * out.conductanceS);
-    const next = limitJunctionVoltage(v + step, v, vte, vcrit);
+    const next = limitJunction(v + step, v, vte, vcrit);
     const isDone = Math.abs(next - v) <= 1e-12 * (1 + Math.abs(v));
     v = next;
     if (isDone) break;
