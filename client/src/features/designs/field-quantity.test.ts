@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatFieldDelta, formatFieldValue, quantityOfField } from './field-quantity';
+import { formatFieldDelta, formatFieldValue, formatPercentDelta, quantityOfField } from './field-quantity';
 
 describe('quantityOfField', () => {
   it.each([
@@ -48,5 +48,15 @@ describe('formatFieldDelta', () => {
     expect(formatFieldDelta('multiplier.cellCount', 2)).toBe('+2');
     expect(formatFieldDelta('outputMeanV', 0)).toBe('0');
     expect(formatFieldDelta('outputMeanV', null)).toBe('—');
+  });
+});
+
+describe('formatPercentDelta', () => {
+  it('keeps three significant figures and the sign', () => {
+    expect(formatPercentDelta(-0.0241763)).toBe('−0.0242 %');
+    expect(formatPercentDelta(910.857)).toBe('+911 %');
+    expect(formatPercentDelta(4.378)).toBe('+4.38 %');
+    expect(formatPercentDelta(0)).toBe('0 %');
+    expect(formatPercentDelta(null)).toBe('—');
   });
 });

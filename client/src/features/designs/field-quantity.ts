@@ -66,3 +66,11 @@ export function formatFieldDelta(path: string, delta: number | null | undefined)
   const text = quantity ? formatQuantity(magnitude * quantity.toSi, quantity.unit, 4) : plainNumber(magnitude);
   return delta > 0 ? `+${text}` : `−${text}`;
 }
+
+/** A relative difference in per cent with its sign, three significant figures: `+4.38 %`, `−0.0242 %`. */
+export function formatPercentDelta(deltaPct: number | null | undefined): string {
+  if (deltaPct === null || deltaPct === undefined) return '—';
+  if (deltaPct === 0) return '0 %';
+  const text = Number(Math.abs(deltaPct).toPrecision(3)).toString();
+  return `${deltaPct > 0 ? '+' : '−'}${text} %`;
+}

@@ -4,7 +4,7 @@ import { Link } from 'react-router-dom';
 import type { RevisionSummary } from '@ladderwright/shared/api';
 import { paths } from '../../../config/paths';
 import { useCompareRevisions } from '../api/compare-revisions';
-import { formatFieldDelta, formatFieldValue } from '../field-quantity';
+import { formatFieldDelta, formatFieldValue, formatPercentDelta } from '../field-quantity';
 import { RevisionStateBadge } from './revision-state-badge';
 
 export interface RevisionHistoryProps {
@@ -193,13 +193,7 @@ function ComparisonTable({
               <Table.Td>{formatFieldValue(row.key, row.a)}</Table.Td>
               <Table.Td>{formatFieldValue(row.key, row.b)}</Table.Td>
               <Table.Td>{formatFieldDelta(row.key, row.delta)}</Table.Td>
-              {hasPercent && (
-                <Table.Td>
-                  {row.deltaPct === null || row.deltaPct === undefined
-                    ? '—'
-                    : `${formatFieldDelta('', row.deltaPct)} %`}
-                </Table.Td>
-              )}
+              {hasPercent && <Table.Td>{formatPercentDelta(row.deltaPct)}</Table.Td>}
             </Table.Tr>
           ))}
         </Table.Tbody>

@@ -102,9 +102,9 @@ export function WaveformsPanel({ projectId, source, frequencyHz, safeVoltageV }:
             </Text>
           </Group>
           <SimpleGrid cols={{ base: 1, lg: 3 }} spacing="md">
-            <TraceChart title="Start-up" traces={tracesOf('startup')} />
+            <TraceChart title="Start-up" traces={tracesOf('startup')} isTimeFromZero />
             <TraceChart title="Ripple over one cycle" traces={lastCycle(tracesOf('steady-state'), frequencyHz)} />
-            <TraceChart title="Discharge" traces={tracesOf('discharge')} safeVoltageV={safeVoltageV} />
+            <TraceChart title="Discharge" traces={tracesOf('discharge')} safeVoltageV={safeVoltageV} isTimeFromZero />
           </SimpleGrid>
         </>
       )}
@@ -141,10 +141,13 @@ function TraceChart({
   title,
   traces,
   safeVoltageV,
+  isTimeFromZero = false,
 }: {
   title: string;
   traces: WaveformTrace[];
   safeVoltageV?: number;
+  /** Start the time axis at 0 s (start-up, discharge) rather than at the first sample (one cycle cut out of a run). */
+  isTimeFromZero?: boolean;
 }) {
   const rows = new Map<number, Record<string, number>>();
   for (const trace of traces) {
@@ -156,7 +159,7 @@ function TraceChart({
   }
   const data = [...rows.values()].sort((a, b) => (a.t ?? 0) - (b.t ?? 0));
   const timeTick = quantityTickFormatter(
-    traces.flatMap((trace) => trace.timeS),
+    isTimeFromZero ? [0, ...traces.flatMap((trace) => trace.timeS)] : traces.flatMap((trace) => trace.timeS),
     's',
   );
   const valueTick = quantityTickFormatter(
@@ -181,7 +184,7 @@ function TraceChart({
               <XAxis
                 dataKey="t"
                 type="number"
-                domain={['dataMin', 'dataMax']}
+                domain={[isTimeFromZero ? 0 : 'dataMin', 'dataMax']}
                 tick={{ fontSize: 11 }}
                 tickFormatter={timeTick}
               />
