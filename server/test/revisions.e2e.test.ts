@@ -78,13 +78,13 @@ describe('revisions', () => {
       expect(list.body.map((revision: { number: number }) => revision.number)).toEqual([2, 1]);
     });
 
-    it('stores the report the server computed with the engine, with the engine version', async () => {
+    it('stores the report the server computed with the engine against the project shelf, with the engine version', async () => {
       const design = await createDesign(testApp, project.id, engineer.id);
       const stored = await http()
         .get(`${revisionsPath(design)}/1`)
         .set('Cookie', as(engineer));
       const evaluated = await http()
-        .post('/api/analysis/evaluate')
+        .post(`/api/projects/${project.id}/analysis/evaluate`)
         .set('Cookie', as(engineer))
         .send({ document: stored.body.document });
       expect(stored.body.report).toEqual(evaluated.body.report);

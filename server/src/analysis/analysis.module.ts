@@ -1,9 +1,12 @@
 import { Module } from '@nestjs/common';
 import { AnalysisController } from './analysis.controller';
 import { AnalysisService } from './analysis.service';
+import { ProjectAnalysisController } from './project-analysis.controller';
+import { PartsModule } from '../parts/parts.module';
 
 @Module({
-  controllers: [AnalysisController],
+  imports: [PartsModule],
+  controllers: [AnalysisController, ProjectAnalysisController],
   providers: [AnalysisService],
   exports: [AnalysisService],
 })

@@ -3,6 +3,7 @@ import type { DesignReportBody, DesignTemplate, EvaluateResponse, ResultDifferen
 import { validateDesign, type Design } from '@ladderwright/shared/designs';
 import { DomainError, isDomainError } from '@ladderwright/shared/errors';
 import { analyzeDesign, ENGINE_VERSION, resolveDrive } from '@ladderwright/shared/multiplier';
+import { analyzeWithShelf, type ShelfPart } from '@ladderwright/shared/parts';
 import { DESIGN_TEMPLATES } from './design-templates';
 
 /** A numeric headline figure of a report, by its path in the report. */
@@ -75,9 +76,15 @@ export class AnalysisService {
     }
   }
 
-  /** The engine's report on a valid document (synchronous; closed-form and steady-state methods only). */
-  evaluate(design: Design, fieldPrefix = 'document'): EvaluateResponse {
-    const report = this.withFieldPrefix(fieldPrefix, () => analyzeDesign(design));
+  /**
+   * The engine's report on a valid document (synchronous; closed-form and steady-state methods only).
+   * With a project's `shelf`, the referenced parts' ratings are filled in first (`analyzeWithShelf`) and
+   * unresolved codes come back in `report.partIssues`.
+   */
+  evaluate(design: Design, fieldPrefix = 'document', shelf?: readonly ShelfPart[]): EvaluateResponse {
+    const report = this.withFieldPrefix(fieldPrefix, () =>
+      shelf ? analyzeWithShelf(design, shelf) : analyzeDesign(design),
+    );
     // Stored as JSONB: the JSON round trip makes the response equal to what is stored and read back.
     return { engineVersion: this.engineVersion, report: JSON.parse(JSON.stringify(report)) as DesignReportBody };
   }

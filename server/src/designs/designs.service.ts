@@ -171,6 +171,7 @@ export class DesignsService {
     const designId = await this.sequelize.transaction(async (transaction) => {
       const design = await this.designs.create({ projectId, name, ownerId, latestRevisionNumber: 1 }, { transaction });
       await this.revisions.write(
+        projectId,
         { designId: design.id, number: 1, document, authorId: ownerId, changeNote, baseRevisionNumber: null },
         transaction,
       );

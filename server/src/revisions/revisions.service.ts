@@ -15,6 +15,7 @@ import { buildCircuit, toSpiceNetlist } from '@ladderwright/shared/sim';
 import { AnalysisService } from '../analysis/analysis.service';
 import { isUuid } from '../common/uuid';
 import { DesignModel } from '../designs/design.model';
+import { PartsService } from '../parts/parts.service';
 import { UserModel } from '../users/user.model';
 import { differences } from './document-diff';
 import { fileStem, toRevisionDetail, toRevisionSummary } from './revision-shapes';
@@ -47,6 +48,7 @@ export class RevisionsService {
     @InjectModel(DesignModel) private readonly designs: typeof DesignModel,
     @InjectModel(RevisionModel) private readonly revisions: typeof RevisionModel,
     private readonly analysis: AnalysisService,
+    private readonly parts: PartsService,
     private readonly sequelize: Sequelize,
   ) {}
 
@@ -62,9 +64,15 @@ export class RevisionsService {
     return design;
   }
 
-  /** Inserts one revision with the engine's report. The caller holds the design row lock. */
-  async write(revision: NewRevision, transaction: Transaction): Promise<RevisionModel> {
-    const { engineVersion, report } = this.analysis.evaluate(revision.document);
+  /**
+   * Inserts one revision with the engine's report, computed with the ratings of `projectId`'s Parts shelf
+   * for the part codes the document references. A code the shelf does not hold is a warning in
+   * `report.partIssues`, not a refusal: templates and imported designs carry codes of other shelves, and a
+   * lead may retire a part that older designs still name. The caller holds the design row lock.
+   */
+  async write(projectId: string, revision: NewRevision, transaction: Transaction): Promise<RevisionModel> {
+    const shelf = await this.parts.shelf(projectId);
+    const { engineVersion, report } = this.analysis.evaluate(revision.document, 'document', shelf);
     return this.revisions.create({ ...revision, engineVersion, report }, { transaction });
   }
 
@@ -121,6 +129,7 @@ export class RevisionsService {
         );
       }
       await this.write(
+        projectId,
         {
           designId: design.id,
           number: latest + 1,

@@ -1,0 +1,30 @@
+import { Body, Controller, HttpCode, Post } from '@nestjs/common';
+import { ApiBadRequestResponse, ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import type { EvaluateResponse } from '@ladderwright/shared/api';
+import { ProjectMembership } from '../common/decorators/project-membership.decorator';
+import type { ProjectMembership as Membership } from '../common/request.types';
+import { PartsService } from '../parts/parts.service';
+import { AnalysisService } from './analysis.service';
+import { EvaluateDesignDto } from './dto/evaluate-design.dto';
+
+/** Live evaluation inside a project: the Checks use the project's Parts shelf, as a saved revision does. */
+@ApiTags('analysis')
+@ApiCookieAuth()
+@Controller('projects/:projectId/analysis')
+export class ProjectAnalysisController {
+  constructor(
+    private readonly analysis: AnalysisService,
+    private readonly parts: PartsService,
+  ) {}
+
+  @Post('evaluate')
+  @HttpCode(200)
+  @ApiOkResponse({
+    description: "The engine's report with the shelf's ratings filled in by partCode; unknown codes in `report.partIssues`.",
+  })
+  @ApiBadRequestResponse({ description: 'The document is not valid; `issues[]` names every field, under `document.`.' })
+  async evaluate(@ProjectMembership() membership: Membership, @Body() body: EvaluateDesignDto): Promise<EvaluateResponse> {
+    const design = this.analysis.parseDocument(body.document, 'document');
+    return this.analysis.evaluate(design, 'document', await this.parts.shelf(membership.projectId));
+  }
+}
