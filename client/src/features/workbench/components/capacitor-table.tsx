@@ -11,9 +11,11 @@ import {
   Tooltip,
   VisuallyHidden,
 } from '@mantine/core';
+import type { Part } from '@ladderwright/shared/api';
 import type { CapacitorPart, Topology } from '@ladderwright/shared/designs';
 import { QuantityInput } from '../../../components/quantity-input';
 import { capacitorPlaces, fillDown, gradeCapacitors } from '../ladder-edits';
+import { PartCodeInput } from './part-code-input';
 
 export interface CapacitorTableProps {
   topology: Topology;
@@ -21,6 +23,10 @@ export interface CapacitorTableProps {
   onChange: (capacitors: CapacitorPart[]) => void;
   /** Validation messages by document path, e.g. `multiplier.capacitors[2].valueF`. */
   issues: Readonly<Record<string, string>>;
+  /** The project's Parts shelf, offered in each part-code field. */
+  parts?: readonly Part[];
+  /** A shelf part picked for capacitor `index` (its value and ratings go with it). */
+  onPickPart?: (index: number, part: Part) => void;
 }
 
 const columnLabels: Record<string, string> = {
@@ -32,7 +38,7 @@ const columnLabels: Record<string, string> = {
 };
 
 /** One row per ladder capacitor, from the source upward, with fill-down and a grading helper. */
-export function CapacitorTable({ topology, capacitors, onChange, issues }: CapacitorTableProps) {
+export function CapacitorTable({ topology, capacitors, onChange, issues, parts = [], onPickPart }: CapacitorTableProps) {
   const places = capacitorPlaces(topology, capacitors);
   const setCapacitor = (index: number, patch: Partial<CapacitorPart>) =>
     onChange(capacitors.map((c, i) => (i === index ? { ...c, ...patch } : c)));
@@ -90,6 +96,7 @@ export function CapacitorTable({ topology, capacitors, onChange, issues }: Capac
                   </Table.Td>
                   <Table.Td miw={100}>
                     <PercentInput
+                      key={capacitor.partCode ?? ''}
                       label={`${name} tolerance`}
                       fraction={capacitor.tolerance}
                       onChange={(tolerance) => setCapacitor(i, { tolerance })}
@@ -107,15 +114,15 @@ export function CapacitorTable({ topology, capacitors, onChange, issues }: Capac
                       size="xs"
                     />
                   </Table.Td>
-                  <Table.Td miw={120}>
-                    <TextInput
-                      aria-label={`${name} part code`}
-                      value={capacitor.partCode ?? ''}
-                      onChange={(e) => {
-                        const partCode = e.currentTarget.value;
-                        setCapacitor(i, { partCode: partCode === '' ? undefined : partCode });
-                      }}
-                      size="xs"
+                  <Table.Td miw={150}>
+                    <PartCodeInput
+                      label={`${name} part code`}
+                      kind="capacitor"
+                      parts={parts}
+                      value={capacitor.partCode}
+                      onCodeChange={(partCode) => setCapacitor(i, { partCode })}
+                      onPick={(part) => onPickPart?.(i, part)}
+                      issue={at(i, 'partCode')}
                     />
                   </Table.Td>
                   <Table.Td>

@@ -12,11 +12,14 @@ import {
   TextInput,
   Textarea,
 } from '@mantine/core';
+import type { Part } from '@ladderwright/shared/api';
 import { capacitorCountFor, type Design, type DischargeRule, type Topology } from '@ladderwright/shared/designs';
 import { driverExamples } from '@ladderwright/shared/driver';
 import type { QuantityUnit } from '@ladderwright/shared/units';
 import { QuantityInput } from '../../../components/quantity-input';
 import { resizeCapacitors } from '../ladder-edits';
+import { withShelfPart } from '../shelf-picks';
+import { PartCodeInput } from './part-code-input';
 import { CapacitorTable } from './capacitor-table';
 
 export interface LadderFormProps {
@@ -24,6 +27,8 @@ export interface LadderFormProps {
   onChange: (document: Design) => void;
   /** validateDesign's messages by document path. */
   issues: Readonly<Record<string, string>>;
+  /** The project's Parts shelf: the part-code fields offer its parts; picking one fills value and ratings. */
+  parts?: readonly Part[];
 }
 
 type Edit = (mutate: (draft: Design) => void) => void;
@@ -35,7 +40,7 @@ const dischargeRules: Array<{ value: string; label: string }> = [
 ];
 
 /** The design document as a form: drive, ladder, output network, load and targets, each field checked in place. */
-export function LadderForm({ document, onChange, issues }: LadderFormProps) {
+export function LadderForm({ document, onChange, issues, parts = [] }: LadderFormProps) {
   const edit: Edit = (mutate) => {
     const draft = structuredClone(document);
     mutate(draft);
@@ -74,8 +79,15 @@ export function LadderForm({ document, onChange, issues }: LadderFormProps) {
         </SimpleGrid>
       </Fieldset>
       <DriveSection document={document} edit={edit} issue={issue} />
-      <LadderSection document={document} edit={edit} issue={issue} issues={issues} />
-      <OutputSection document={document} edit={edit} issue={issue} />
+      <LadderSection
+        document={document}
+        edit={edit}
+        issue={issue}
+        issues={issues}
+        parts={parts}
+        onDocument={onChange}
+      />
+      <OutputSection document={document} edit={edit} issue={issue} parts={parts} onDocument={onChange} />
       <TargetsSection document={document} edit={edit} issue={issue} />
     </Stack>
   );
@@ -85,6 +97,12 @@ interface SectionProps {
   document: Design;
   edit: Edit;
   issue: (path: string) => string | null;
+}
+
+/** A section with part-code fields: the shelf, and a way to replace the document after a pick. */
+interface ShelfProps {
+  parts: readonly Part[];
+  onDocument: (document: Design) => void;
 }
 
 /** A quantity field bound to one document path. */
@@ -429,7 +447,14 @@ function DriverFields({ document, edit, issue }: SectionProps) {
   );
 }
 
-function LadderSection({ document, edit, issue, issues }: SectionProps & { issues: Readonly<Record<string, string>> }) {
+function LadderSection({
+  document,
+  edit,
+  issue,
+  issues,
+  parts,
+  onDocument,
+}: SectionProps & ShelfProps & { issues: Readonly<Record<string, string>> }) {
   const m = document.multiplier;
   const setShape = (topology: Topology, cellCount: number) =>
     edit((d) => {
@@ -481,6 +506,8 @@ function LadderSection({ document, edit, issue, issues }: SectionProps & { issue
           topology={m.topology}
           capacitors={m.capacitors}
           issues={issues}
+          parts={parts}
+          onPickPart={(index, part) => onDocument(withShelfPart(document, { kind: 'capacitor', index }, part, parts))}
           onChange={(capacitors) =>
             edit((d) => {
               d.multiplier.capacitors = capacitors;
@@ -490,6 +517,20 @@ function LadderSection({ document, edit, issue, issues }: SectionProps & { issue
         <Text size="sm" fw={600} mt="xs">
           Diodes (all alike)
         </Text>
+        <PartCodeInput
+          label="Diode part code"
+          isLabelHidden={false}
+          kind="diode"
+          parts={parts}
+          value={diode.partCode}
+          issue={issue(`${dp}.partCode`)}
+          onCodeChange={(partCode) =>
+            edit((d) => {
+              d.multiplier.diode.partCode = partCode;
+            })
+          }
+          onPick={(part) => onDocument(withShelfPart(document, { kind: 'diode' }, part, parts))}
+        />
         <SimpleGrid cols={{ base: 1, sm: 3 }} spacing="sm">
           <Field
             label="Rated PIV"
@@ -570,7 +611,7 @@ function LadderSection({ document, edit, issue, issues }: SectionProps & { issue
   );
 }
 
-function OutputSection({ document, edit, issue }: SectionProps) {
+function OutputSection({ document, edit, issue, parts, onDocument }: SectionProps & ShelfProps) {
   const net = document.outputNetwork;
   const bleeder = net.bleeder;
   const bp = 'outputNetwork.bleeder';
@@ -589,6 +630,22 @@ function OutputSection({ document, edit, issue }: SectionProps) {
             });
           }}
         />
+        {bleeder && (
+          <PartCodeInput
+            label="Bleeder resistor part code"
+            isLabelHidden={false}
+            kind="resistor"
+            parts={parts}
+            value={bleeder.partCode}
+            issue={issue(`${bp}.partCode`)}
+            onCodeChange={(partCode) =>
+              edit((d) => {
+                if (d.outputNetwork.bleeder) d.outputNetwork.bleeder.partCode = partCode;
+              })
+            }
+            onPick={(part) => onDocument(withShelfPart(document, { kind: 'bleeder' }, part, parts))}
+          />
+        )}
         {bleeder && (
           <SimpleGrid cols={{ base: 1, sm: 4 }} spacing="sm">
             <NumberInput
