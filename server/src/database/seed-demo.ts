@@ -98,7 +98,8 @@ export async function seedDemo(hasher: PasswordHasherService): Promise<number> {
   }
   const sequelize = ProjectModel.sequelize;
   if (!sequelize) throw new Error('demo seed needs the database connection');
-  created += await seedDemoDesigns(sequelize);
+  // Parts first: the demo designs' reports are computed against their project's shelf.
   created += await seedDemoParts(DEMO_PROJECTS.map((project) => project.name));
+  created += await seedDemoDesigns(sequelize);
   return created;
 }

@@ -2,6 +2,8 @@ import type { Sequelize } from 'sequelize';
 import { designExamples, type Design } from '@ladderwright/shared/designs';
 import type { RevisionState } from '@ladderwright/shared/reviews';
 import { AnalysisService } from '../analysis/analysis.service';
+import { PartModel } from '../parts/part.model';
+import { toPart } from '../parts/parts.service';
 import { ProjectModel } from '../projects/project.model';
 import { RevisionModel } from '../revisions/revision.model';
 import { UserModel } from '../users/user.model';
@@ -65,8 +67,8 @@ export const DEMO_DESIGN_RECORD_COUNT = DEMO_DESIGNS.reduce((sum, design) => sum
 
 /**
  * Adds the demo designs that are missing (matched by project and design name), each with its revisions,
- * reports computed by the shared engine, in one transaction per design. Needs the demo accounts and
- * projects. Returns how many records it created.
+ * reports computed by the shared engine against the project's Parts shelf, in one transaction per design.
+ * Needs the demo accounts and projects (and their shelves, seeded first). Returns how many records it created.
  */
 export async function seedDemoDesigns(sequelize: Sequelize): Promise<number> {
   const analysis = new AnalysisService();
@@ -81,13 +83,14 @@ export async function seedDemoDesigns(sequelize: Sequelize): Promise<number> {
     if (!project || !owner) throw new Error(`demo design needs project '${demo.projectName}' and ${demo.ownerEmail}`);
     const name = latest.document.name;
     if (await DesignModel.findOne({ where: { projectId: project.id, name } })) continue;
+    const shelf = (await PartModel.findAll({ where: { projectId: project.id } })).map(toPart);
     await sequelize.transaction(async (transaction) => {
       const design = await DesignModel.create(
         { projectId: project.id, name, ownerId: owner.id, latestRevisionNumber: demo.revisions.length },
         { transaction },
       );
       for (const [index, revision] of demo.revisions.entries()) {
-        const { engineVersion, report } = analysis.evaluate(revision.document);
+        const { engineVersion, report } = analysis.evaluate(revision.document, 'document', shelf);
         await RevisionModel.create(
           {
             designId: design.id,
