@@ -3,7 +3,7 @@ import type { Circuit, CircuitElement, DiodeModel, NpnModel, SourceWaveform } fr
 import { GROUND_NODE } from './circuit.types';
 import { evaluateNpn, type NpnOperatingPoint } from './devices/bjt';
 import { inductanceMatrix } from './devices/coupled-inductors';
-import { evaluateDiode, type DiodeOperatingPoint } from './devices/diode';
+import { evaluateDiode, solveSeriesJunctionV, type DiodeOperatingPoint } from './devices/diode';
 import { criticalVoltageV, depletionCharge, limitJunctionVoltage, THERMAL_VOLTAGE_V, wasLimited } from './devices/junction';
 import { BandedLu } from './solver/banded-lu';
 import { reverseCuthillMcKee } from './solver/node-ordering';
@@ -11,6 +11,7 @@ import { nextWaveformBreakpoint, waveformValue } from './source-waveforms';
 
 // Local copies of the device functions, so the inner loop does not go through a module accessor per call.
 const diodeAt = evaluateDiode;
+const solveJunction = solveSeriesJunctionV;
 const npnAt = evaluateNpn;
 const limitJunction = limitJunctionVoltage;
 const lastWasLimited = wasLimited;
@@ -538,25 +539,13 @@ class CompiledDiode {
 
   /**
    * Diode with its series resistance folded in: for the terminal voltage u, the junction voltage v solves
-   * v + Rs·I(v) = u (scalar Newton from the last v, each update limited as in pnjlim; the function is
-   * increasing with slope ≥ 1, so this converges), and the element conducts I with dI/du = g/(1 + Rs·g).
+   * v + Rs·I(v) = u (safeguarded scalar Newton from the last v, solveSeriesJunctionV), and the element
+   * conducts I with dI/du = g/(1 + Rs·g).
    */
   private loadFolded(x: Float64Array, band: Float64Array, rhs: Float64Array, out: DiodeOperatingPoint): boolean {
     const u = x[this.junction]! - x[this.cathode]!;
     const rs = this.foldedOhm;
-    // Start where Newton on the convex, increasing v + Rs·I(v) − u cannot overshoot far: at u itself up to
-    // the critical voltage (the root lies just below), else from the last junction voltage kept between
-    // the critical voltage and u.
-    let v = u <= this.vcrit ? u : Math.min(u, Math.max(this.lastV, this.vcrit));
-    for (let k = 0; k < 100; k++) {
-      diodeAt(this.model, v, out);
-      const step = (u - v - rs * out.currentA) / (1 + rs * out.conductanceS);
-      const next = limitJunction(v + step, v, this.vte, this.vcrit);
-      const done = Math.abs(next - v) <= 1e-12 * (1 + Math.abs(v)) + 1e-9 * this.vte;
-      v = next;
-      if (done) break;
-    }
-    diodeAt(this.model, v, out);
+    const v = solveJunction(this.model, u, this.lastV, out);
     const g = out.conductanceS / (1 + rs * out.conductanceS);
     this.lastV = v;
     this.lastTerminalV = u;

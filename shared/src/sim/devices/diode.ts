@@ -1,11 +1,9 @@
 import type { DiodeModel } from '../circuit.types';
-import { criticalVoltageV, JUNCTION_GMIN_S, limitJunctionVoltage, THERMAL_VOLTAGE_V } from './junction';
+import { JUNCTION_GMIN_S, THERMAL_VOLTAGE_V } from './junction';
 
 // Local copies of the junction module's bindings, so a hot call does not go through a module accessor.
 const gminS = JUNCTION_GMIN_S;
 const thermalVoltageV = THERMAL_VOLTAGE_V;
-const limitJunction = limitJunctionVoltage;
-const criticalV = criticalVoltageV;
 
 export interface DiodeOperatingPoint {
   currentA: number;
@@ -44,22 +42,39 @@ export function evaluateDiode(model: DiodeModel, voltageV: number, out: DiodeOpe
 }
 
 /**
- * Current of a diode with its series resistance at terminal voltage u: solves v + Rs·I(v) = u for the
- * junction voltage v by scalar Newton (limited as in pnjlim; the left side rises with slope ≥ 1).
+ * Junction voltage v of a diode with series resistance Rs at terminal voltage u: the root of
+ * v + Rs·I(v) = u, which lies between 0 and u and, since |I| ≤ |u|/Rs there, within the voltages where
+ * the forward exponential or the breakdown knee carries |u|/Rs. Newton from the guess inside that bracket,
+ * falling back to bisection whenever a step leaves it (so no exponential is ever evaluated out of range).
+ * Leaves `out` at the root.
  */
-export function seriesDiodeCurrentA(model: DiodeModel, terminalV: number, out: DiodeOperatingPoint): number {
+export function solveSeriesJunctionV(model: DiodeModel, terminalV: number, guessV: number, out: DiodeOperatingPoint): number {
   const rs = model.seriesResistanceOhm;
   const vte = model.emissionCoefficient * thermalVoltageV;
-  const vcrit = criticalV(model.saturationCurrentA, vte);
-  let v = terminalV <= vcrit ? terminalV : vcrit;
+  const u = terminalV;
+  let lo = Math.min(u, 0);
+  let hi = Math.max(u, 0);
+  if (u > 0) hi = Math.min(hi, vte * Math.log1p(u / (rs * model.saturationCurrentA)));
+  const bv = model.breakdownVoltageV;
+  if (u < 0 && bv !== undefined && bv > 0) lo = Math.max(lo, -bv - vte * Math.log1p(-u / (rs * (model.breakdownCurrentA ?? 1e-3))));
+  let v = Math.min(hi, Math.max(lo, guessV));
   for (let k = 0; k < 200; k++) {
     evaluateDiode(model, v, out);
-    const step = (terminalV - v - rs * out.currentA) / (1 + rs * out.conductanceS);
-    const next = limitJunction(v + step, v, vte, vcrit);
-    const isDone = Math.abs(next - v) <= 1e-12 * (1 + Math.abs(v));
+    const residual = v + rs * out.currentA - u;
+    if (residual > 0) hi = v;
+    else lo = v;
+    let next = v - residual / (1 + rs * out.conductanceS);
+    if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
+    const isDone = Math.abs(next - v) <= 1e-12 * (1 + Math.abs(v)) || hi - lo <= 1e-12 * (1 + Math.abs(v));
     v = next;
     if (isDone) break;
   }
   evaluateDiode(model, v, out);
+  return v;
+}
+
+/** Current of a diode with its series resistance at terminal voltage u (see solveSeriesJunctionV). */
+export function seriesDiodeCurrentA(model: DiodeModel, terminalV: number, out: DiodeOperatingPoint): number {
+  solveSeriesJunctionV(model, terminalV, 0, out);
   return out.currentA;
 }
