@@ -27,6 +27,8 @@ import { getDesignQueryOptions } from '../../../features/designs/api/get-design'
 import { getRevisionQueryOptions } from '../../../features/designs/api/get-revision';
 import { RevisionHistory } from '../../../features/designs/components/revision-history';
 import { RevisionStateBadge } from '../../../features/designs/components/revision-state-badge';
+import { getPartsQueryOptions, useParts } from '../../../features/parts/api/get-parts';
+import { BomCost } from '../../../features/parts/components/bom-cost';
 import { getProjectQueryOptions } from '../../../features/projects/api/get-project';
 import { WaveformsPanel } from '../../../features/simulations/components/waveforms-panel';
 import { ChecksTable } from '../../../features/workbench/components/checks-table';
@@ -51,6 +53,8 @@ export function workbenchLoader(queryClient: QueryClient) {
     const [, design] = await Promise.all([
       queryClient.ensureQueryData(getProjectQueryOptions(projectId)),
       queryClient.ensureQueryData(getDesignQueryOptions(projectId, designId)),
+      // The shelf is in hand before the first preview, so preview and stored report use the same ratings.
+      queryClient.ensureQueryData(getPartsQueryOptions(projectId)),
     ]);
     const revisionNumber = revisionParam(request);
     // The address names the revision being edited, so a refetched design (someone saved meanwhile)
@@ -109,7 +113,9 @@ function EditableRevision({ projectId, revision, latestRevisionNumber, revisions
   const [changeNote, setChangeNote] = useState('');
   const [stale, setStale] = useState<StaleBaseError | null>(null);
   const isDirty = draft !== revision.document;
-  const live = useLiveAnalysis(draft);
+  const { data: shelf } = useParts(projectId);
+  const live = useLiveAnalysis(draft, shelf);
+  const partIssues = (isDirty ? live.partIssues : revision.report.partIssues) ?? [];
   const report = isDirty ? live.report : revision.report;
   const save = useCreateRevision(projectId, revision.designId);
 
@@ -158,6 +164,13 @@ function EditableRevision({ projectId, revision, latestRevisionNumber, revisions
               to={paths.signOff.getHref(projectId, revision.designId, revision.number)}
             >
               Sign-off of r{revision.number}
+            </Anchor>
+            <Anchor
+              component={Link}
+              size="sm"
+              to={paths.benchRuns.getHref(projectId, revision.designId, revision.number)}
+            >
+              Bench runs of r{revision.number}
             </Anchor>
           </Group>
           <Text size="sm" c="dimmed">
@@ -238,7 +251,7 @@ function EditableRevision({ projectId, revision, latestRevisionNumber, revisions
 
       <Grid gap="lg">
         <Grid.Col span={{ base: 12, lg: 5 }}>
-          <LadderForm document={draft} onChange={setDraft} issues={live.issues} />
+          <LadderForm document={draft} onChange={setDraft} issues={live.issues} parts={shelf ?? []} />
         </Grid.Col>
         <Grid.Col span={{ base: 12, lg: 7 }}>
           <Stack gap="sm" pos="sticky" top={64}>
@@ -265,6 +278,21 @@ function EditableRevision({ projectId, revision, latestRevisionNumber, revisions
                 (marked beside each field).
               </Alert>
             )}
+            {report && partIssues.length > 0 && (
+              <Alert color="ember" title="Part codes not on this project's Parts shelf">
+                <Text size="sm">Checked on the ratings written in the design instead:</Text>
+                <List size="sm">
+                  {partIssues.map((partIssue) => (
+                    <List.Item key={partIssue.path}>
+                      <Text span ff="monospace" size="sm">
+                        {partIssue.path}
+                      </Text>{' '}
+                      {partIssue.message}
+                    </List.Item>
+                  ))}
+                </List>
+              </Alert>
+            )}
             {report && (
               <>
                 <HeadlineFigures report={report} targets={draft.targets} />
@@ -273,6 +301,7 @@ function EditableRevision({ projectId, revision, latestRevisionNumber, revisions
                     <Tabs.Tab value="plots">Plots</Tabs.Tab>
                     <Tabs.Tab value="ladder">Ladder</Tabs.Tab>
                     <Tabs.Tab value="checks">Checks</Tabs.Tab>
+                    <Tabs.Tab value="bom">BOM cost</Tabs.Tab>
                     <Tabs.Tab value="waveforms">Waveforms</Tabs.Tab>
                     <Tabs.Tab value="history">History</Tabs.Tab>
                   </Tabs.List>
@@ -287,6 +316,9 @@ function EditableRevision({ projectId, revision, latestRevisionNumber, revisions
                       {report.caution}
                     </Text>
                     <ChecksTable checks={report.checks} />
+                  </Tabs.Panel>
+                  <Tabs.Panel value="bom" pt="sm">
+                    <BomCost projectId={projectId} design={draft} />
                   </Tabs.Panel>
                   <Tabs.Panel value="waveforms" pt="sm">
                     <WaveformsPanel
