@@ -161,6 +161,7 @@ export function findPeriodicSteadyState(circuit: Circuit | MnaSystem, options: P
   let residual = Infinity;
   let iterations = 0;
   let isConverged = false;
+  let fallbacks = 0;
   // Warm-up periods: leave the kinks of a guessed state (diodes just at conduction) and make the
   // unknowns' guess at t = 0 consistent.
   for (let k = 0; k < (options.warmUpPeriods ?? 2); k++) {
@@ -215,7 +216,14 @@ export function findPeriodicSteadyState(circuit: Circuit | MnaSystem, options: P
       state.set(base);
       q0.set(baseEnd);
       sq.set(baseSq);
-      break;
+      // No descent along the Newton direction (a state far from the solution, where diodes barely
+      // conduct): follow the circuit itself for some periods, then try Newton again from there.
+      if (++fallbacks > 3) break;
+      for (let k = 0; k < 20; k++) {
+        period(state, false, null);
+        state.set(q0);
+      }
+      period(state, true, null);
     }
   }
   const time = new SampleBuffer();

@@ -64,7 +64,7 @@ export function solveSeriesJunctionV(model: DiodeModel, terminalV: number, guess
     if (residual > 0) hi = v;
     else lo = v;
     let next = v - residual / (1 + rs * out.conductanceS);
-    if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
+    if (!(next >= lo && next <= hi)) next = 0.5 * (lo + hi);
     const isDone = Math.abs(next - v) <= 1e-12 * (1 + Math.abs(v)) || hi - lo <= 1e-12 * (1 + Math.abs(v));
     v = next;
     if (isDone) break;
