@@ -4,6 +4,7 @@ import { useSuspenseQuery, type QueryClient } from '@tanstack/react-query';
 import { Link, useNavigate, useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { paths } from '../../../config/paths';
 import { useCreateDesign } from '../../../features/designs/api/create-design';
+import { useParts } from '../../../features/parts/api/get-parts';
 import { getProjectQueryOptions } from '../../../features/projects/api/get-project';
 import { SizerPanel } from '../../../features/sizer/components/sizer-panel';
 import { requireUser } from './root';
@@ -23,6 +24,7 @@ export function SizerRoute() {
   useDocumentTitle(`${project.name} · Sizer · Ladderwright`);
   const navigate = useNavigate();
   const createDesign = useCreateDesign(projectId);
+  const { data: shelf } = useParts(projectId);
   return (
     <Stack gap="lg">
       <Breadcrumbs>
@@ -43,6 +45,7 @@ export function SizerRoute() {
         </Alert>
       )}
       <SizerPanel
+        shelf={shelf ?? []}
         isStarting={createDesign.isPending}
         onStartDesign={(document) =>
           createDesign.mutate(

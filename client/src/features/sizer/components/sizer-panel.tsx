@@ -1,6 +1,19 @@
 import { useState } from 'react';
-import { Alert, Button, Checkbox, Fieldset, Group, SimpleGrid, Stack, Table, Text } from '@mantine/core';
-import type { Design, Topology } from '@ladderwright/shared/designs';
+import {
+  Alert,
+  Button,
+  Checkbox,
+  Fieldset,
+  Group,
+  SegmentedControl,
+  SimpleGrid,
+  Stack,
+  Table,
+  Text,
+} from '@mantine/core';
+import type { Part } from '@ladderwright/shared/api';
+import { designExamples, type Design, type Topology } from '@ladderwright/shared/designs';
+import { shelfForSizer, type DiodeModelParameters } from '@ladderwright/shared/parts';
 import type { SizerRequest, SizerResult } from '@ladderwright/shared/sizing';
 import { formatQuantity } from '@ladderwright/shared/units';
 import { QuantityInput } from '../../../components/quantity-input';
@@ -11,7 +24,18 @@ export interface SizerPanelProps {
   /** Starts a design from a candidate's document; resolves when the design exists. */
   onStartDesign: (document: Design) => void;
   isStarting: boolean;
+  /** The project's Parts shelf; with it, the Sizer can draw values, ratings and costs from it. */
+  shelf?: readonly Part[];
 }
+
+type ValueSource = 'e-series' | 'shelf';
+
+/**
+ * The shelf holds ratings, not the diode's Shockley parameters: shelf diodes are sized on the stacked
+ * HV rectifier model of the design examples.
+ */
+const { saturationCurrentA, emissionCoefficient, seriesResistanceOhm } = designExamples.surfaceChargeTester.multiplier.diode;
+const SHELF_DIODE_MODEL: DiodeModelParameters = { saturationCurrentA, emissionCoefficient, seriesResistanceOhm };
 
 const topologyOptions: Array<{ value: Topology; label: string }> = [
   { value: 'half-wave', label: 'half-wave cascade' },
@@ -20,7 +44,8 @@ const topologyOptions: Array<{ value: Topology; label: string }> = [
 ];
 
 /** The Sizer: a target in, ranked ladder candidates out (shared sizeLadder), each a click away from a design. */
-export function SizerPanel({ onStartDesign, isStarting }: SizerPanelProps) {
+export function SizerPanel({ onStartDesign, isStarting, shelf = [] }: SizerPanelProps) {
+  const [valueSource, setValueSource] = useState<ValueSource>('e-series');
   const [targetOutputV, setTargetOutputV] = useState(-6000);
   const [loadCurrentA, setLoadCurrentA] = useState(30e-6);
   const [rippleMaxV, setRippleMaxV] = useState(30);
@@ -41,6 +66,7 @@ export function SizerPanel({ onStartDesign, isStarting }: SizerPanelProps) {
       safeVoltageV,
       dischargeRule: '50V-1min',
       resultCount: 12,
+      ...(valueSource === 'shelf' ? { parts: shelfForSizer(shelf, SHELF_DIODE_MODEL) } : {}),
     };
     runSizer(request);
   };
@@ -80,6 +106,27 @@ export function SizerPanel({ onStartDesign, isStarting }: SizerPanelProps) {
               ))}
             </Group>
           </Checkbox.Group>
+          <Stack gap={4} mt="sm">
+            <Text id="sizer-value-source" size="sm" fw={500}>
+              Values from
+            </Text>
+            <SegmentedControl
+              aria-labelledby="sizer-value-source"
+              value={valueSource}
+              onChange={(value) => setValueSource(value as ValueSource)}
+              data={[
+                { value: 'e-series', label: 'E-series' },
+                { value: 'shelf', label: 'Parts shelf', disabled: shelf.length === 0 },
+              ]}
+              w="fit-content"
+            />
+          </Stack>
+          {valueSource === 'shelf' && (
+            <Text size="xs" c="dimmed" mt={4}>
+              Capacitors, diodes and bleeder resistors from this project&apos;s shelf ({shelf.length} parts), with
+              their ratings and unit costs; candidates are ranked by cost.
+            </Text>
+          )}
           <Group gap="sm" mt="md">
             <Button type="submit" loading={isRunning} disabled={topologies.length === 0}>
               Find ladders
@@ -144,6 +191,8 @@ function CandidateTable({
                 <Table.Th>Stored energy</Table.Th>
                 <Table.Th>Worst margin</Table.Th>
                 <Table.Th>Parts</Table.Th>
+                <Table.Th>Part codes</Table.Th>
+                <Table.Th>Cost</Table.Th>
                 <Table.Th>Design</Table.Th>
               </Table.Tr>
             </Table.Thead>
@@ -164,6 +213,10 @@ function CandidateTable({
                     <Table.Td>{formatQuantity(candidate.storedEnergyJ, 'J')}</Table.Td>
                     <Table.Td>{candidate.worstMarginPct.toFixed(1)} %</Table.Td>
                     <Table.Td>{candidate.partCount}</Table.Td>
+                    <Table.Td ff="monospace" fz="xs">
+                      {partCodesOf(candidate).join(', ') || '—'}
+                    </Table.Td>
+                    <Table.Td>{candidate.cost === null ? '—' : candidate.cost.toFixed(2)}</Table.Td>
                     <Table.Td>
                       <Button
                         size="xs"
@@ -184,4 +237,10 @@ function CandidateTable({
       )}
     </div>
   );
+}
+
+/** The distinct part codes of a candidate: capacitors, diode, bleeder resistor. */
+function partCodesOf(candidate: SizerResult['candidates'][number]): string[] {
+  const codes = [...candidate.capacitorPartCodes, candidate.diode.partCode, candidate.bleeder?.resistor.partCode];
+  return [...new Set(codes.filter((code): code is string => Boolean(code)))];
 }

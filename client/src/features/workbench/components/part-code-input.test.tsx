@@ -4,33 +4,16 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import type { Part } from '@ladderwright/shared/api';
 import { designExamples, type Design } from '@ladderwright/shared/designs';
 import { renderWithApp } from '../../../testing/render';
+import { shelfPart } from '../../../testing/shelf-part';
 import { withShelfPart } from '../shelf-picks';
 import { CapacitorTable } from './capacitor-table';
 import { PartCodeInput } from './part-code-input';
 
-const stamp = '2025-01-01T00:00:00.000Z';
-const part = (fields: Partial<Part> & Pick<Part, 'code' | 'kind'>): Part => ({
-  id: fields.code,
-  projectId: 'p1',
-  description: '',
-  valueSi: null,
-  tolerance: null,
-  ratedVoltageV: null,
-  ratedCurrentA: null,
-  ratedSurgeCurrentA: null,
-  ratedPowerW: null,
-  unitCost: 1,
-  sizeMm: '',
-  createdAt: stamp,
-  updatedAt: stamp,
-  ...fields,
-});
-
 const shelf: Part[] = [
-  part({ code: 'NF-C103-3K', kind: 'capacitor', description: 'HV ceramic 10 nF', valueSi: 10e-9, tolerance: 0.05, ratedVoltageV: 3000 }),
-  part({ code: 'NF-C222-2K', kind: 'capacitor', description: 'HV ceramic 2.2 nF', valueSi: 2.2e-9, tolerance: 0.1, ratedVoltageV: 2000 }),
-  part({ code: 'NF-D4K-50M', kind: 'diode', description: 'HV diode 4 kV', ratedVoltageV: 4000, ratedCurrentA: 0.05, ratedSurgeCurrentA: 5 }),
-  part({ code: 'NF-R47M-HV', kind: 'resistor', description: 'HV film 47 MΩ', valueSi: 47e6, ratedVoltageV: 1600, ratedPowerW: 0.5 }),
+  shelfPart({ code: 'NF-C103-3K', kind: 'capacitor', description: 'HV ceramic 10 nF', valueSi: 10e-9, tolerance: 0.05, ratedVoltageV: 3000 }),
+  shelfPart({ code: 'NF-C222-2K', kind: 'capacitor', description: 'HV ceramic 2.2 nF', valueSi: 2.2e-9, tolerance: 0.1, ratedVoltageV: 2000 }),
+  shelfPart({ code: 'NF-D4K-50M', kind: 'diode', description: 'HV diode 4 kV', ratedVoltageV: 4000, ratedCurrentA: 0.05, ratedSurgeCurrentA: 5 }),
+  shelfPart({ code: 'NF-R47M-HV', kind: 'resistor', description: 'HV film 47 MΩ', valueSi: 47e6, ratedVoltageV: 1600, ratedPowerW: 0.5 }),
 ];
 
 /** The input itself (the suggestion list is labelled by the same name). */
