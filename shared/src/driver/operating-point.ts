@@ -1,6 +1,8 @@
 import type { PulseDrive } from '../designs/design.types';
 import { DomainError } from '../errors';
-import { prepareLadder, terminalMeanAt } from '../multiplier/analyze-ladder';
+import { prepareLadder, terminalMeanAt, type PreparedLadder } from '../multiplier/analyze-ladder';
+import { bracketedRoot } from '../multiplier/bracketed-root';
+import { withDrive } from '../multiplier/with-drive';
 import type { LadderInput } from '../multiplier/ladder.types';
 import { estimateBlockingOscillator, type BlockingOscillatorEstimate, type BlockingOscillatorOptions } from './blocking-oscillator';
 import type { DriverStage, MethodInfo } from './driver.types';
@@ -53,13 +55,20 @@ export function pulseDriveOf(drive: LadderDrive, sourceResistanceOhm: number): P
 export function engineLadderLoadLine(input: LadderInput): LadderLoadLine {
   const sourceOhm = input.drive.sourceResistanceOhm;
   const seriesOhm = input.seriesOutputResistanceOhm;
-  const bare: LadderInput = { ...input, load: null, bleederOhm: null, seriesOutputResistanceOhm: 0 };
-  const topAt = (drive: LadderDrive, ladderCurrentA: number) =>
-    terminalMeanAt(prepareLadder({ ...bare, drive: pulseDriveOf(drive, sourceOhm) }), ladderCurrentA);
+  // One prepared network each for the loaded and the bare ladder, redriven per call (prepared on first use,
+  // so that a ladder error surfaces where the per-call preparation raised it).
+  let loaded: PreparedLadder | null = null;
+  let bare: PreparedLadder | null = null;
+  const topAt = (drive: LadderDrive, ladderCurrentA: number) => {
+    const pulse = pulseDriveOf(drive, sourceOhm);
+    bare = bare ? withDrive(bare, pulse) : prepareLadder({ ...input, load: null, bleederOhm: null, seriesOutputResistanceOhm: 0, drive: pulse });
+    return terminalMeanAt(bare, ladderCurrentA);
+  };
   return {
     at(drive, loadCurrentA) {
-      const prepared = prepareLadder({ ...input, load: null, drive: pulseDriveOf(drive, sourceOhm) });
-      const outputV = terminalMeanAt(prepared, loadCurrentA);
+      const pulse = pulseDriveOf(drive, sourceOhm);
+      loaded = loaded ? withDrive(loaded, pulse) : prepareLadder({ ...input, load: null, drive: pulse });
+      const outputV = terminalMeanAt(loaded, loadCurrentA);
       const topV = Math.max(0, outputV + loadCurrentA * seriesOhm);
       const bleederA = input.bleederOhm ? topV / input.bleederOhm : 0;
       return { outputV: Math.max(0, outputV), ladderCurrentA: loadCurrentA + bleederA };
@@ -164,37 +173,37 @@ export function solveLoadPoint(driver: DriverStage, ladder: LadderLoadLine, load
   const at = (flyV: number) => estimateBlockingOscillator(driver, { ...options, flybackSecondaryPeakV: flyV, forwardLoadPowerW });
   // Surplus of flyback power over what the ladder takes, per volt of flyback. Copper loss makes it fall at
   // very slow flybacks too, so there can be two roots: take the highest (the stable one) by scanning down
-  // from the limit on a log grid (8 points a decade over 6 decades), then bisecting.
+  // from the limit on a log grid (8 points a decade over 6 decades), then solving in that bracket.
   const surplus = (flyV: number) => {
     const e = at(flyV);
     return e.deliverablePowerW.value / flyV - ratios.flyback * ladder.at(driveOf(e), loadCurrentA).ladderCurrentA;
   };
   let flyV = maxFlyV;
   let limitedBy: OperatingLimit = 'ladder';
-  if (surplus(maxFlyV) < 0) {
+  const surplusAtLimit = surplus(maxFlyV);
+  if (surplusAtLimit < 0) {
     limitedBy = 'power';
     const scanPoints = 48;
     let hi = maxFlyV;
+    let surplusHi = surplusAtLimit;
     let lo: number | null = null;
+    let surplusLo = 0;
     for (let k = 1; k <= scanPoints; k++) {
       const v = maxFlyV * 10 ** ((-6 * k) / scanPoints);
-      if (surplus(v) >= 0) {
+      const s = surplus(v);
+      if (s >= 0) {
         lo = v;
+        surplusLo = s;
         break;
       }
       hi = v;
+      surplusHi = s;
     }
     if (lo === null) {
       flyV = maxFlyV * 1e-6; // the driver cannot push the ladder's charge at any flyback: output collapses
     } else {
-      let below: number = lo;
-      // 40 halvings of a bracket an eighth of a decade wide: 1e-12 relative.
-      for (let k = 0; k < 40; k++) {
-        const mid: number = 0.5 * (below + hi);
-        if (surplus(mid) >= 0) below = mid;
-        else hi = mid;
-      }
-      flyV = 0.5 * (below + hi);
+      // To the resolution 40 halvings of the bracket (an eighth of a decade) would give: 2e-13 relative.
+      flyV = bracketedRoot(surplus, lo, hi, surplusLo, surplusHi, (hi - lo) * 2 ** -40);
     }
   }
   const withForward = at(flyV);
@@ -226,22 +235,26 @@ export function driverOperatingPoint(driver: DriverStage, ladder: LadderLoadLine
   const limitEst = estimateBlockingOscillator(driver, options);
   const maxFlyV = limitEst.maxFlybackSecondaryPeakV;
   const limitDrive = driveOf(limitEst);
-  const isPowerLimitedAt = (loadA: number) => {
+  // Deliverable flyback power over what the ladder takes at the limit drive, per volt of flyback: power-limited below zero.
+  const limitSurplusAt = (loadA: number) => {
     const state = ladder.at(limitDrive, loadA);
-    return limitEst.deliverablePowerW.value / maxFlyV < ladder.chargeRatios(limitDrive, state.ladderCurrentA).flyback * state.ladderCurrentA;
+    return limitEst.deliverablePowerW.value / maxFlyV - ladder.chargeRatios(limitDrive, state.ladderCurrentA).flyback * state.ladderCurrentA;
   };
-  // Onset: bracket by doubling, then 40 bisections (1e-12 relative).
+  // Onset: bracket by doubling, then solve to the resolution of 40 halvings (1e-12 relative).
   let powerLimitOnsetA = 0;
-  if (!isPowerLimitedAt(0)) {
-    let hiA = 1e-9;
-    for (let k = 0; k < 80 && !isPowerLimitedAt(hiA); k++) hiA *= 2;
+  const surplusAtNoLoad = limitSurplusAt(0);
+  if (surplusAtNoLoad >= 0) {
     let loA = 0;
-    for (let k = 0; k < 40; k++) {
-      const mid = 0.5 * (loA + hiA);
-      if (isPowerLimitedAt(mid)) hiA = mid;
-      else loA = mid;
+    let surplusLo = surplusAtNoLoad;
+    let hiA = 1e-9;
+    let surplusHi = limitSurplusAt(hiA);
+    for (let k = 0; k < 80 && surplusHi >= 0; k++) {
+      loA = hiA;
+      surplusLo = surplusHi;
+      hiA *= 2;
+      surplusHi = limitSurplusAt(hiA);
     }
-    powerLimitOnsetA = 0.5 * (loA + hiA);
+    powerLimitOnsetA = surplusHi >= 0 ? hiA : bracketedRoot(limitSurplusAt, loA, hiA, surplusLo, surplusHi, hiA * 2 ** -40);
   }
   // End of the curve: where the output reaches zero; bracket by doubling from the onset, then 24 bisections
   // (6e-8 relative, far below the curve's sampling).

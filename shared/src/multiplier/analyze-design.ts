@@ -12,6 +12,7 @@ import { STORED_ENERGY_METHOD, storedEnergy, storedEnergyChecks } from '../safet
 import type { StoredEnergySummary } from '../safety/stored-energy';
 import type { CheckVerdict } from '../safety/check.types';
 import { analyzeLadder } from './analyze-ladder';
+import { bracketedRoot } from './bracketed-root';
 import { ENGINE_VERSION } from './engine-version';
 import { ladderCurves } from './ladder-curves';
 import { bleederStressChecks, ladderStressChecks } from './ladder-stress';
@@ -152,21 +153,17 @@ function underDrive<T>(compute: () => T): T {
   }
 }
 
-/** External load current (A) of the design at the driver's operating point: a resistance load by bisection on V(I) = I·R. */
+/** External load current (A) of the design at the driver's operating point: a resistance load by Brent's method on V(I) = I·R. */
 function ratedLoadCurrentOf(design: Design, driver: DriverStage, ladder: LadderLoadLine): number {
   const load = design.load;
   if (!load) return 0;
   if (load.kind === 'current') return load.currentA;
   const r = load.resistanceOhm;
-  let lo = 0;
-  let hi = solveLoadPoint(driver, ladder, 0).outputV / r;
-  // 40 halvings: 1e-12 of the no-load current, well below any figure the report shows.
-  for (let k = 0; k < 40; k++) {
-    const mid = 0.5 * (lo + hi);
-    if (solveLoadPoint(driver, ladder, mid).outputV > mid * r) lo = mid;
-    else hi = mid;
-  }
-  return 0.5 * (lo + hi);
+  const excessV = (currentA: number) => solveLoadPoint(driver, ladder, currentA).outputV - currentA * r;
+  const excessAtZero = excessV(0);
+  const hi = excessAtZero / r;
+  // To the resolution of 40 halvings: 1e-12 of the no-load current, well below any figure the report shows.
+  return bracketedRoot(excessV, 0, hi, excessAtZero, excessV(hi), hi * 2 ** -40);
 }
 
 const DRIVER_OPERATING_METHOD: MethodInfo = {

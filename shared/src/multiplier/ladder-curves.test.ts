@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { analyzeLadder } from './analyze-ladder';
-import { ladderCurves } from './ladder-curves';
+import { designExamples } from '../designs/design-examples';
+import { ladderInputOf, resolveDrive } from './analyze-design';
+import { analyzeLadder, prepareLadder, terminalMeanAt } from './analyze-ladder';
+import { ladderCurves, resizeCapacitors } from './ladder-curves';
 import type { LadderInput } from './ladder.types';
 
 // Ideal diode: Shockley drop below 1e-7 V at these currents (see analyze-ladder.test.ts).
@@ -42,5 +44,56 @@ describe('ladderCurves', () => {
     // With ideal diodes the model is linear in current: short circuit = no-load / output impedance (1e-6 relative).
     const z = analyzeLadder(cascade).outputImpedanceOhm;
     expect(Math.abs(curves.shortCircuitCurrentA / ((first?.y ?? NaN) / z) - 1)).toBeLessThan(1e-6);
+  });
+});
+
+describe('ladderCurves: the sampled stage scan against the full scan of every stage count', () => {
+  // The demo designs' own ladders (sine drives and the driver's pulse drive) and the textbook cascade above.
+  const inputs: Array<[string, LadderInput]> = [
+    ['cascade', cascade],
+    ...Object.entries(designExamples).map(([name, design]): [string, LadderInput] => {
+      const resolved = resolveDrive(design);
+      return [name, ladderInputOf(design, resolved.drive, resolved.currentLimitA)];
+    }),
+  ];
+  const fullScan = (input: LadderInput, lastStages: number) =>
+    Array.from({ length: lastStages }, (_, i) => terminalMeanAt(prepareLadder({ ...input, capacitorsF: resizeCapacitors(input, i + 1) }), 0));
+
+  it.each(inputs)('%s: the same optimum, every plotted count exact, the counts between within 1 % of the straight line', (_, input) => {
+    const curves = ladderCurves(input);
+    const points = curves.outputVsStages;
+    const last = points[points.length - 1] as { x: number; y: number };
+    const exact = fullScan(input, last.x);
+    // Optimum: the first maximum of the full scan, exactly (the same model at the same counts).
+    const maximum = Math.max(...exact);
+    expect(curves.optimumStages).toBe(exact.indexOf(maximum) + 1);
+    expect(curves.optimumOutputV).toBe(maximum);
+    for (const p of points) expect(p.y).toBe(exact[p.x - 1]);
+    // Between plotted counts the chart draws straight lines: within 1 % of the maximum output (the curve is
+    // near linear far from the optimum and sampled at every count close to it).
+    for (let k = 1; k < points.length; k += 1) {
+      const a = points[k - 1] as { x: number; y: number };
+      const b = points[k] as { x: number; y: number };
+      for (let n = a.x + 1; n < b.x; n += 1) {
+        const lineV = a.y + ((b.y - a.y) * (n - a.x)) / (b.x - a.x);
+        expect(Math.abs(lineV - (exact[n - 1] as number))).toBeLessThan(0.01 * maximum);
+      }
+    }
+    // The scan ends with the maximum clearly passed: 2 % below it.
+    expect(last.y).toBeLessThanOrEqual(0.98 * maximum);
+  });
+
+  it.each(inputs)('%s: short-circuit current as 80 halvings of the bracket find it (1e-9 relative)', (_, input) => {
+    const prepared = prepareLadder({ ...input, load: null });
+    let low = 0;
+    let high = 1e-9;
+    while (terminalMeanAt(prepared, high) > 0) high *= 2;
+    for (let i = 0; i < 80; i += 1) {
+      const mid = (low + high) / 2;
+      if (terminalMeanAt(prepared, mid) > 0) low = mid;
+      else high = mid;
+    }
+    // 1e-9: both resolve the root far below that; the model's float noise near short circuit is larger than 1e-12.
+    expect(Math.abs(ladderCurves(input).shortCircuitCurrentA / high - 1)).toBeLessThan(1e-9);
   });
 });

@@ -1,0 +1,46 @@
+// Benchmark, not a test: analyzeDesign (the Workbench's live preview and the server's evaluate/save) on each
+// demo design, beside the plain steady-state analysis of the same ladder run in the same process.
+// Run: npx tsx scripts/bench/analyze-design.bench.ts
+import { designExamples } from '../../shared/src/designs/design-examples';
+import { analyzeDesign, ladderInputOf, resolveDrive } from '../../shared/src/multiplier/analyze-design';
+import { analyzeLadder } from '../../shared/src/multiplier/analyze-ladder';
+
+/** Targets per analyzeDesign call (ms, one core): the driver design solves the driver's operating curve too. */
+const TARGET_MS = { driver: 25, ladder: 5 } as const;
+
+function median(values: number[]): number {
+  const sorted = [...values].sort((a, b) => a - b);
+  return sorted[Math.floor(sorted.length / 2)] as number;
+}
+
+/** Median process CPU time (user + system) per call, ms, over `runs` calls after `warmUp` calls. */
+function cpuMsPerCall(fn: () => unknown, runs: number, warmUp: number): number {
+  for (let i = 0; i < warmUp; i += 1) fn();
+  const samples: number[] = [];
+  for (let i = 0; i < runs; i += 1) {
+    const c0 = process.cpuUsage();
+    fn();
+    const c = process.cpuUsage(c0);
+    samples.push((c.user + c.system) / 1000);
+  }
+  return median(samples);
+}
+
+/** Reference calls are ~100× shorter than the design: time them in batches so the CPU clock resolves them. */
+function cpuMsPerBatchedCall(fn: () => unknown, perBatch: number, runs: number): number {
+  return cpuMsPerCall(() => {
+    for (let i = 0; i < perBatch; i += 1) fn();
+  }, runs, 3) / perBatch;
+}
+
+for (const [name, design] of Object.entries(designExamples)) {
+  const resolved = resolveDrive(design);
+  const input = ladderInputOf(design, resolved.drive, resolved.currentLimitA);
+  const designMs = cpuMsPerCall(() => analyzeDesign(design), 41, 10);
+  const referenceMs = cpuMsPerBatchedCall(() => analyzeLadder(input), 200, 21);
+  const targetMs = design.drive.kind === 'driver' ? TARGET_MS.driver : TARGET_MS.ladder;
+  console.log(
+    `${name.padEnd(20)} analyzeDesign median ${designMs.toFixed(2)} ms CPU (target < ${targetMs} ms${designMs < targetMs ? ', met' : ', NOT met'}); ` +
+      `reference analyzeLadder ${(referenceMs * 1000).toFixed(1)} µs; ratio ${(designMs / referenceMs).toFixed(0)}×`,
+  );
+}
