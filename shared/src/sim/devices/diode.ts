@@ -58,16 +58,17 @@ export function solveSeriesJunctionV(model: DiodeModel, terminalV: number, guess
   const bv = model.breakdownVoltageV;
   if (u < 0 && bv !== undefined && bv > 0) lo = Math.max(lo, -bv - vte * Math.log1p(-u / (rs * (model.breakdownCurrentA ?? 1e-3))));
   let v = Math.min(hi, Math.max(lo, guessV));
+  const tolerance = 1e-12 * (1 + Math.abs(u));
   for (let k = 0; k < 200; k++) {
     evaluateDiode(model, v, out);
     const residual = v + rs * out.currentA - u;
+    if (Math.abs(residual) <= tolerance) return v;
     if (residual > 0) hi = v;
     else lo = v;
     let next = v - residual / (1 + rs * out.conductanceS);
     if (!(next >= lo && next <= hi)) next = 0.5 * (lo + hi);
-    const isDone = Math.abs(next - v) <= 1e-12 * (1 + Math.abs(v)) || hi - lo <= 1e-12 * (1 + Math.abs(v));
+    if (hi - lo <= tolerance) break;
     v = next;
-    if (isDone) break;
   }
   evaluateDiode(model, v, out);
   return v;
