@@ -28,6 +28,14 @@ if (!('ResizeObserver' in window)) {
   Object.defineProperty(window, 'ResizeObserver', { writable: true, value: ResizeObserverStub });
 }
 
+// jsdom has no FontFaceSet; Mantine's autosizing Textarea listens on document.fonts.
+if (!('fonts' in document)) {
+  Object.defineProperty(document, 'fonts', {
+    writable: true,
+    value: { addEventListener: () => undefined, removeEventListener: () => undefined, ready: Promise.resolve() },
+  });
+}
+
 Object.defineProperty(window, 'scrollTo', { writable: true, value: () => undefined });
 
 afterEach(() => cleanup());

@@ -21,6 +21,7 @@ import { resizeCapacitors } from '../ladder-edits';
 import { withShelfPart } from '../shelf-picks';
 import { PartCodeInput } from './part-code-input';
 import { CapacitorTable } from './capacitor-table';
+import { DriverFields } from './driver-fields';
 
 export interface LadderFormProps {
   document: Design;
@@ -262,188 +263,19 @@ function DriveSection({ document, edit, issue }: SectionProps) {
             />
           </SimpleGrid>
         )}
-        {drive.kind === 'driver' && <DriverFields document={document} edit={edit} issue={issue} />}
-      </Stack>
-    </Fieldset>
-  );
-}
-
-function DriverFields({ document, edit, issue }: SectionProps) {
-  if (document.drive.kind !== 'driver') return null;
-  const { supply, transformer, transistor, baseResistorOhm } = document.drive.driver;
-  const onDriver = (mutate: (driver: Extract<Design['drive'], { kind: 'driver' }>['driver']) => void) =>
-    edit((d) => {
-      if (d.drive.kind === 'driver') mutate(d.drive.driver);
-    });
-  const p = 'drive.driver';
-  return (
-    <Stack gap="sm">
-      <SimpleGrid cols={{ base: 1, sm: 3 }} spacing="sm">
-        {supply.kind === 'cells' ? (
-          <>
-            <Select
-              label="Cell chemistry"
-              value={supply.chemistry}
-              allowDeselect={false}
-              data={[
-                { value: 'alkaline', label: 'alkaline' },
-                { value: 'nimh', label: 'NiMH' },
-                { value: 'li-ion', label: 'lithium-ion' },
-              ]}
-              onChange={(v) =>
-                onDriver((dr) => {
-                  if (dr.supply.kind === 'cells' && v) dr.supply.chemistry = v as typeof supply.chemistry;
-                })
-              }
-            />
-            <NumberInput
-              label="Cells in series"
-              value={supply.cellsInSeries}
-              min={1}
-              max={24}
-              allowDecimal={false}
-              error={issue(`${p}.supply.cellsInSeries`)}
-              onChange={(v) =>
-                onDriver((dr) => {
-                  if (dr.supply.kind === 'cells') dr.supply.cellsInSeries = Number(v);
-                })
-              }
-            />
-            <NumberInput
-              label="Cell capacity (Ah)"
-              value={supply.capacityAh}
-              min={0.01}
-              step={0.1}
-              decimalScale={3}
-              onChange={(v) =>
-                onDriver((dr) => {
-                  if (dr.supply.kind === 'cells') dr.supply.capacityAh = Number(v);
-                })
-              }
-            />
-          </>
-        ) : (
-          <Field
-            label="Supply voltage"
-            unit="V"
-            value={supply.voltageV}
-            path={`${p}.supply.voltageV`}
+        {drive.kind === 'driver' && (
+          <DriverFields
+            driver={drive.driver}
             issue={issue}
-            onValue={(v) =>
-              onDriver((dr) => {
-                if (dr.supply.kind === 'dc') dr.supply.voltageV = v;
+            onDriver={(mutate) =>
+              edit((d) => {
+                if (d.drive.kind === 'driver') mutate(d.drive.driver);
               })
             }
           />
         )}
-      </SimpleGrid>
-      <SimpleGrid cols={{ base: 1, sm: 3 }} spacing="sm">
-        <NumberInput
-          label="Primary turns"
-          value={transformer.primaryTurns}
-          min={1}
-          allowDecimal={false}
-          onChange={(v) =>
-            onDriver((dr) => {
-              dr.transformer.primaryTurns = Number(v);
-            })
-          }
-        />
-        <NumberInput
-          label="Feedback turns"
-          value={transformer.feedbackTurns}
-          min={1}
-          allowDecimal={false}
-          onChange={(v) =>
-            onDriver((dr) => {
-              dr.transformer.feedbackTurns = Number(v);
-            })
-          }
-        />
-        <NumberInput
-          label="Secondary turns"
-          value={transformer.secondaryTurns}
-          min={1}
-          allowDecimal={false}
-          onChange={(v) =>
-            onDriver((dr) => {
-              dr.transformer.secondaryTurns = Number(v);
-            })
-          }
-        />
-        <Field
-          label="Primary inductance"
-          unit="H"
-          value={transformer.primaryInductanceH}
-          path={`${p}.transformer.primaryInductanceH`}
-          issue={issue}
-          onValue={(v) =>
-            onDriver((dr) => {
-              dr.transformer.primaryInductanceH = v;
-            })
-          }
-        />
-        <NumberInput
-          label="Coupling coefficient k"
-          value={transformer.couplingCoefficient}
-          min={0.5}
-          max={1}
-          step={0.01}
-          decimalScale={3}
-          onChange={(v) =>
-            onDriver((dr) => {
-              dr.transformer.couplingCoefficient = Number(v);
-            })
-          }
-        />
-        <Field
-          label="Secondary resistance"
-          unit="Ohm"
-          value={transformer.secondaryResistanceOhm}
-          path={`${p}.transformer.secondaryResistanceOhm`}
-          issue={issue}
-          onValue={(v) =>
-            onDriver((dr) => {
-              dr.transformer.secondaryResistanceOhm = v;
-            })
-          }
-        />
-        <Field
-          label="Core saturation current"
-          unit="A"
-          value={transformer.saturationCurrentA}
-          path={`${p}.transformer.saturationCurrentA`}
-          issue={issue}
-          onValue={(v) =>
-            onDriver((dr) => {
-              dr.transformer.saturationCurrentA = v;
-            })
-          }
-        />
-        <NumberInput
-          label="Transistor β (forward)"
-          value={transistor.forwardBeta}
-          min={1}
-          onChange={(v) =>
-            onDriver((dr) => {
-              dr.transistor.forwardBeta = Number(v);
-            })
-          }
-        />
-        <Field
-          label="Base resistor"
-          unit="Ohm"
-          value={baseResistorOhm}
-          path={`${p}.baseResistorOhm`}
-          issue={issue}
-          onValue={(v) =>
-            onDriver((dr) => {
-              dr.baseResistorOhm = v;
-            })
-          }
-        />
-      </SimpleGrid>
-    </Stack>
+      </Stack>
+    </Fieldset>
   );
 }
 
