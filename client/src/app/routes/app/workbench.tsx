@@ -32,6 +32,7 @@ import { BomCost } from '../../../features/parts/components/bom-cost';
 import { getProjectQueryOptions } from '../../../features/projects/api/get-project';
 import { WaveformsPanel } from '../../../features/simulations/components/waveforms-panel';
 import { ChecksTable } from '../../../features/workbench/components/checks-table';
+import { DriverPanel } from '../../../features/workbench/components/driver-panel';
 import { HeadlineFigures } from '../../../features/workbench/components/headline-figures';
 import { LadderCharts } from '../../../features/workbench/components/ladder-charts';
 import { LadderDiagram } from '../../../features/workbench/components/ladder-diagram';
@@ -299,6 +300,7 @@ function EditableRevision({ projectId, revision, latestRevisionNumber, revisions
                 <Tabs defaultValue="plots" keepMounted={false}>
                   <Tabs.List>
                     <Tabs.Tab value="plots">Plots</Tabs.Tab>
+                    {report.driver && <Tabs.Tab value="driver">Driver</Tabs.Tab>}
                     <Tabs.Tab value="ladder">Ladder</Tabs.Tab>
                     <Tabs.Tab value="checks">Checks</Tabs.Tab>
                     <Tabs.Tab value="bom">BOM cost</Tabs.Tab>
@@ -308,6 +310,11 @@ function EditableRevision({ projectId, revision, latestRevisionNumber, revisions
                   <Tabs.Panel value="plots" pt="sm">
                     <LadderCharts report={report} />
                   </Tabs.Panel>
+                  {report.driver && (
+                    <Tabs.Panel value="driver" pt="sm">
+                      <DriverPanel driver={report.driver} />
+                    </Tabs.Panel>
+                  )}
                   <Tabs.Panel value="ladder" pt="sm">
                     <LadderDiagram report={report} />
                   </Tabs.Panel>

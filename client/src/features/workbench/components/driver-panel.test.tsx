@@ -12,8 +12,26 @@ describe('DriverPanel', () => {
     renderWithApp(<DriverPanel driver={driver} />);
     const table = screen.getByRole('table', { name: 'Driver figures' });
     expect(within(table).getByText(formatQuantity(driver.figures.frequencyHz.value, 'Hz'))).toBeTruthy();
-    expect(screen.getByText(`output at the rated load ${formatQuantity(driver.operatingPoint.ratedLoad.outputV, 'V')}`)).toBeTruthy();
-    expect(screen.getByText(/battery life to/).textContent).toContain(`${(driver.batteryLife!.lifeS.value / 3600).toFixed(1)} h`);
+    expect(
+      screen.getByText(`output at the rated load ${formatQuantity(driver.operatingPoint.ratedLoad.outputV, 'V')}`),
+    ).toBeTruthy();
+    expect(screen.getByText(/battery life to/).textContent).toContain(
+      `${(driver.batteryLife!.lifeS.value / 3600).toFixed(1)} h`,
+    );
     expect(screen.getByRole('button', { name: 'How frequency is computed' })).toBeTruthy();
+  });
+
+  it('draws the operating curve with the power-limit onset and the rated load named beside it', () => {
+    const driver = analyzeDesign(designExamples.surfaceChargeTester).driver!;
+    const op = driver.operatingPoint;
+    renderWithApp(<DriverPanel driver={driver} />);
+    expect(screen.getByRole('figure', { name: 'Driver output vs load current' })).toBeTruthy();
+    const note = screen.getByText(/Rated load/);
+    expect(note.textContent).toContain(formatQuantity(op.ratedLoad.loadCurrentA, 'A'));
+    expect(note.textContent).toContain(`${op.ratedLoad.limitedBy}-limited`);
+    if (op.powerLimitOnsetA > 0)
+      expect(note.textContent).toContain(`up to ${formatQuantity(op.powerLimitOnsetA, 'A')}`);
+    else expect(note.textContent).toContain('Power-limited at every load');
+    expect(screen.getByRole('button', { name: 'How the driver operating curve is computed' })).toBeTruthy();
   });
 });

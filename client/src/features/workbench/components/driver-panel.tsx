@@ -2,6 +2,7 @@ import { Group, Paper, SimpleGrid, Stack, Table, Text, Title } from '@mantine/co
 import type { DriverReport } from '@ladderwright/shared/driver';
 import type { QuantityUnit } from '@ladderwright/shared/units';
 import { formatQuantity } from '@ladderwright/shared/units';
+import { DriverOperatingCurve } from './driver-operating-curve';
 import { MethodNote } from './method-note';
 
 export interface DriverPanelProps {
@@ -23,7 +24,7 @@ const rows: { key: keyof DriverReport['figures']; label: string; unit: QuantityU
   { key: 'efficiency', label: 'Efficiency', unit: '' },
 ];
 
-/** The driver section of a report: the stage's figures with their method notes, the operating point and battery life. */
+/** The driver section of a report: the operating point and its curve, the stage's figures with their method notes, battery life. */
 export function DriverPanel({ driver }: DriverPanelProps) {
   const { figures, operatingPoint: op, batteryLife } = driver;
   return (
@@ -32,7 +33,9 @@ export function DriverPanel({ driver }: DriverPanelProps) {
         <Title order={4}>Driver stage</Title>
         <SimpleGrid cols={{ base: 1, sm: 3 }} spacing="xs">
           <Text size="sm" data-driver="limited-by">
-            {op.limitedBy === 'power' ? 'power-limited: the driver sets the output' : 'ladder-limited: flyback at its clamp'}
+            {op.limitedBy === 'power'
+              ? 'power-limited: the driver sets the output'
+              : 'ladder-limited: flyback at its clamp'}
           </Text>
           <Group gap={4}>
             <Text size="sm">output at the rated load {formatQuantity(op.ratedLoad.outputV, 'V')}</Text>
@@ -40,12 +43,14 @@ export function DriverPanel({ driver }: DriverPanelProps) {
           </Group>
           <Text size="sm">power limit above {formatQuantity(op.powerLimitOnsetA, 'A')}</Text>
         </SimpleGrid>
+        <DriverOperatingCurve operatingPoint={op} />
         <Table fz="sm" verticalSpacing={2} aria-label="Driver figures">
           <Table.Tbody>
             {rows.map((row) => {
               const figure = figures[row.key];
               if (typeof figure === 'string') return null;
-              const value = row.unit === '' ? `${(figure.value * 100).toFixed(1)} %` : formatQuantity(figure.value, row.unit);
+              const value =
+                row.unit === '' ? `${(figure.value * 100).toFixed(1)} %` : formatQuantity(figure.value, row.unit);
               return (
                 <Table.Tr key={row.key}>
                   <Table.Td>
@@ -68,8 +73,10 @@ export function DriverPanel({ driver }: DriverPanelProps) {
         {batteryLife && (
           <Group gap={6}>
             <Text size="sm" data-driver="battery-life">
-              battery life to {formatQuantity(batteryLife.endVoltagePerCellV, 'V')} per cell: {(batteryLife.lifeS.value / 3600).toFixed(1)} h
-              {batteryLife.targetS !== null && ` (target ${(batteryLife.targetS / 3600).toFixed(1)} h)`}, mean drain {formatQuantity(batteryLife.meanCurrentA, 'A')}
+              battery life to {formatQuantity(batteryLife.endVoltagePerCellV, 'V')} per cell:{' '}
+              {(batteryLife.lifeS.value / 3600).toFixed(1)} h
+              {batteryLife.targetS !== null && ` (target ${(batteryLife.targetS / 3600).toFixed(1)} h)`}, mean drain{' '}
+              {formatQuantity(batteryLife.meanCurrentA, 'A')}
             </Text>
             <MethodNote subject="battery life" method={batteryLife.lifeS.method} />
           </Group>

@@ -4,7 +4,6 @@ import type { Design } from '@ladderwright/shared/designs';
 import type { DesignReport, MethodInfo } from '@ladderwright/shared/multiplier';
 import { lowerLimitVerdict, upperLimitVerdict, type CheckVerdict } from '@ladderwright/shared/safety';
 import { formatQuantity } from '@ladderwright/shared/units';
-import { DriverPanel } from './driver-panel';
 import { MethodNote } from './method-note';
 import { VerdictBadge } from './verdict-badge';
 
@@ -86,14 +85,11 @@ export function HeadlineFigures({ report, targets }: HeadlineFiguresProps) {
     },
   ];
   return (
-    <>
-      <SimpleGrid cols={{ base: 2, xl: 4 }} spacing="sm" aria-label="Headline figures" role="list">
-        {figures.map((figure) => (
-          <FigureCard key={figure.key} figure={figure} />
-        ))}
-      </SimpleGrid>
-      {report.driver && <DriverPanel driver={report.driver} />}
-    </>
+    <SimpleGrid cols={{ base: 2, xl: 4 }} spacing="sm" aria-label="Headline figures" role="list">
+      {figures.map((figure) => (
+        <FigureCard key={figure.key} figure={figure} />
+      ))}
+    </SimpleGrid>
   );
 }
 
