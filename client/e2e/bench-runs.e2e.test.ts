@@ -1,16 +1,12 @@
-import { mkdirSync } from 'node:fs';
 import { resolve } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { launchChromium } from './launch-chromium';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { baseUrl, launchJourneyBrowser, openJourneyPage, screenshotDir, signInAsDemo } from './journey';
 
-const baseUrl = inject('baseUrl');
-const screenshotDir = resolve(import.meta.dirname, '..', 'test-results');
-const demoPassword = 'Northfold-demo-1';
 let browser: Browser;
 let context: BrowserContext;
 let page: Page;
-const pageErrors: string[] = [];
+let pageErrors: string[];
 
 interface CurvePoint {
   x: number;
@@ -19,14 +15,12 @@ interface CurvePoint {
 
 describe('bench runs journey', () => {
   beforeAll(async () => {
-    mkdirSync(screenshotDir, { recursive: true });
-    browser = await launchChromium();
-    context = await browser.newContext({ viewport: { width: 1280, height: 900 }, colorScheme: 'light' });
-    page = await context.newPage();
-    page.on('pageerror', (error) => pageErrors.push(error.message));
-    page.on('console', (message) => {
-      if (message.type() === 'error' && !message.text().includes('401')) pageErrors.push(message.text());
-    });
+    browser = await launchJourneyBrowser();
+    ({
+      context,
+      page,
+      errors: pageErrors,
+    } = await openJourneyPage(browser, { viewport: { width: 1280, height: 900 } }));
   });
   afterAll(async () => {
     await context?.close();
@@ -34,11 +28,7 @@ describe('bench runs journey', () => {
   });
 
   it('uploads a load sweep 2 % above the prediction and shows the overlay and a pass with 60 % margin', async () => {
-    await page.goto(`${baseUrl}/sign-in`);
-    await page.getByLabel('E-mail').fill('engineer@northfold.test');
-    await page.getByLabel('Password', { exact: false }).first().fill(demoPassword);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.getByRole('heading', { name: 'Projects', level: 1 }).waitFor();
+    await signInAsDemo(page, 'engineer@northfold.test');
 
     // A seeded design and its latest revision, found through the API with the browser's session.
     const projects = (await (await page.request.get(`${baseUrl}/api/projects`)).json()) as {

@@ -1,9 +1,7 @@
 import type { APIRequestContext, Browser, BrowserContext, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { baseUrl, demoPassword } from './journey';
 import { launchChromium } from './launch-chromium';
-
-const baseUrl = inject('baseUrl');
-const demoPassword = 'Northfold-demo-1';
 
 /** Names and notes typed as markup: React must render them as text, so none of it may run or load. */
 const MARKUP_NAME = '<img src=x onerror=alert(1)>';

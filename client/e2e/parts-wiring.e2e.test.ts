@@ -1,16 +1,12 @@
-import { mkdirSync } from 'node:fs';
 import { resolve } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { launchChromium } from './launch-chromium';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { launchJourneyBrowser, openJourneyPage, screenshotDir, signInAsDemo } from './journey';
 
-const baseUrl = inject('baseUrl');
-const screenshotDir = resolve(import.meta.dirname, '..', 'test-results');
-const demoPassword = 'Northfold-demo-1';
 let browser: Browser;
 let context: BrowserContext;
 let page: Page;
-const pageErrors: string[] = [];
+let pageErrors: string[];
 
 async function bomTotal(current: Page): Promise<string> {
   const row = current.getByRole('region', { name: 'BOM cost' }).getByRole('row', { name: /Ladder total/ });
@@ -19,14 +15,12 @@ async function bomTotal(current: Page): Promise<string> {
 
 describe('Parts shelf on the Workbench', () => {
   beforeAll(async () => {
-    mkdirSync(screenshotDir, { recursive: true });
-    browser = await launchChromium();
-    context = await browser.newContext({ viewport: { width: 1440, height: 900 }, colorScheme: 'light' });
-    page = await context.newPage();
-    page.on('pageerror', (error) => pageErrors.push(error.message));
-    page.on('console', (message) => {
-      if (message.type() === 'error' && !message.text().includes('401')) pageErrors.push(message.text());
-    });
+    browser = await launchJourneyBrowser();
+    ({
+      context,
+      page,
+      errors: pageErrors,
+    } = await openJourneyPage(browser, { viewport: { width: 1440, height: 900 } }));
   });
   afterAll(async () => {
     await context?.close();
@@ -34,16 +28,16 @@ describe('Parts shelf on the Workbench', () => {
   });
 
   it('picks a shelf capacitor for C1, shows its code and the new BOM cost, and opens the Bench runs', async () => {
-    await page.goto(`${baseUrl}/sign-in`);
-    await page.getByLabel('E-mail').fill('engineer@northfold.test');
-    await page.getByLabel('Password', { exact: false }).first().fill(demoPassword);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.getByRole('heading', { name: 'Projects', level: 1 }).waitFor();
+    await signInAsDemo(page, 'engineer@northfold.test');
 
     // The demo ionizer bar: 14 × NF-C222-2K (0.18 each on the demo shelf).
     await page.getByRole('main').getByRole('link', { name: 'Cleanroom ionizer bar' }).click();
     await page.getByRole('heading', { name: 'Designs', level: 2 }).waitFor();
-    await page.getByRole('main').getByRole('link', { name: /ionizer/i }).first().click();
+    await page
+      .getByRole('main')
+      .getByRole('link', { name: /ionizer/i })
+      .first()
+      .click();
     await page.getByRole('heading', { name: 'Workbench', level: 1 }).waitFor();
 
     await page.getByRole('tab', { name: 'BOM cost' }).click();

@@ -1,12 +1,7 @@
-import { mkdirSync } from 'node:fs';
 import { resolve } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, inject, it } from 'vitest';
-import { launchChromium } from './launch-chromium';
-
-const baseUrl = inject('baseUrl');
-const screenshotDir = resolve(import.meta.dirname, '..', 'test-results');
-const demoPassword = 'Northfold-demo-1';
+import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { baseUrl, demoPassword, launchJourneyBrowser, openJourneyPage, screenshotDir, submitSignIn } from './journey';
 
 let browser: Browser;
 let context: BrowserContext;
@@ -17,30 +12,20 @@ function pathOf(current: Page): string {
   return new URL(current.url()).pathname;
 }
 
-async function signIn(current: Page, email: string, password: string): Promise<void> {
-  await current.getByLabel('E-mail').fill(email);
-  await current.getByLabel('Password', { exact: false }).first().fill(password);
-  await current.getByRole('button', { name: 'Sign in' }).click();
-}
-
 describe('sign-in journey', () => {
   beforeAll(async () => {
-    mkdirSync(screenshotDir, { recursive: true });
-    browser = await launchChromium();
+    browser = await launchJourneyBrowser();
   });
   afterAll(async () => {
     await browser?.close();
   });
 
   beforeEach(async () => {
-    context = await browser.newContext({ viewport: { width: 1280, height: 800 }, colorScheme: 'light' });
-    page = await context.newPage();
-    pageErrors = [];
-    page.on('pageerror', (error) => pageErrors.push(error.message));
-    page.on('console', (message) => {
-      // The session check answers 401 before sign-in: the browser logs that as a failed resource, by design.
-      if (message.type() === 'error' && !message.text().includes('401')) pageErrors.push(message.text());
-    });
+    ({
+      context,
+      page,
+      errors: pageErrors,
+    } = await openJourneyPage(browser, { viewport: { width: 1280, height: 800 } }));
   });
   afterEach(async () => {
     await context?.close();
@@ -55,7 +40,7 @@ describe('sign-in journey', () => {
     );
     await page.screenshot({ path: resolve(screenshotDir, 'sign-in-light.png') });
 
-    await signIn(page, 'engineer@northfold.test', demoPassword);
+    await submitSignIn(page, 'engineer@northfold.test', demoPassword);
     await page.getByRole('heading', { name: 'Projects', level: 1 }).waitFor();
     expect(pathOf(page)).toBe('/');
     const projectCards = page.getByRole('main').getByRole('listitem');
@@ -101,7 +86,7 @@ describe('sign-in journey', () => {
 
   it("shows the server's refusal for a wrong password and stays on sign-in", async () => {
     await page.goto(`${baseUrl}/sign-in`);
-    await signIn(page, 'reviewer@northfold.test', 'not-the-password');
+    await submitSignIn(page, 'reviewer@northfold.test', 'not-the-password');
 
     const alert = page.getByRole('alert');
     await alert.waitFor();

@@ -1,42 +1,29 @@
 import { execFileSync } from 'node:child_process';
-import { mkdirSync, readFileSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { launchChromium } from './launch-chromium';
+import type { Browser, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import {
+  baseUrl,
+  launchJourneyBrowser,
+  openJourneyPage,
+  screenshotDir,
+  signInAsDemo,
+  type JourneyPage,
+} from './journey';
 
-const baseUrl = inject('baseUrl');
-const screenshotDir = resolve(import.meta.dirname, '..', 'test-results');
-const demoPassword = 'Northfold-demo-1';
 const designName = `Sign-off journey ${Date.now().toString(36)}`;
 
-interface Person {
-  context: BrowserContext;
-  page: Page;
-  errors: string[];
-}
-
 let browser: Browser;
-const people: Person[] = [];
+const people: JourneyPage[] = [];
 
-async function signedIn(email: string): Promise<Person> {
-  const context = await browser.newContext({
-    viewport: { width: 1440, height: 1000 },
-    colorScheme: 'light',
-    acceptDownloads: true,
-  });
-  const page = await context.newPage();
-  const errors: string[] = [];
-  page.on('pageerror', (error) => errors.push(error.message));
-  page.on('console', (message) => {
-    if (message.type() === 'error' && !/401|409/.test(message.text())) errors.push(message.text());
-  });
-  await page.goto(`${baseUrl}/sign-in`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password', { exact: false }).first().fill(demoPassword);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { name: 'Projects', level: 1 }).waitFor();
-  const person = { context, page, errors };
+async function signedIn(email: string): Promise<JourneyPage> {
+  const person = await openJourneyPage(
+    browser,
+    { viewport: { width: 1440, height: 1000 }, acceptDownloads: true },
+    /401|409/,
+  );
+  await signInAsDemo(person.page, email);
   people.push(person);
   return person;
 }
@@ -79,8 +66,7 @@ async function inboxRow(page: Page, heading: string, revisionNumber: number) {
 
 describe('Sign-off journey', () => {
   beforeAll(async () => {
-    mkdirSync(screenshotDir, { recursive: true });
-    browser = await launchChromium();
+    browser = await launchJourneyBrowser();
   });
   afterAll(async () => {
     for (const person of people) await person.context.close();

@@ -1,25 +1,12 @@
-import { mkdirSync } from 'node:fs';
 import { resolve } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, inject, it } from 'vitest';
-import { launchChromium } from './launch-chromium';
-
-const baseUrl = inject('baseUrl');
-const screenshotDir = resolve(import.meta.dirname, '..', 'test-results');
-const demoPassword = 'Northfold-demo-1';
+import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { baseUrl, launchJourneyBrowser, openJourneyPage, screenshotDir, signInAsDemo } from './journey';
 
 let browser: Browser;
 let context: BrowserContext;
 let page: Page;
 let pageErrors: string[];
-
-async function signIn(current: Page): Promise<void> {
-  await current.goto(`${baseUrl}/sign-in`);
-  await current.getByLabel('E-mail').fill('engineer@northfold.test');
-  await current.getByLabel('Password', { exact: false }).first().fill(demoPassword);
-  await current.getByRole('button', { name: 'Sign in' }).click();
-  await current.getByRole('heading', { name: 'Projects', level: 1 }).waitFor();
-}
 
 async function figureValue(current: Page, key: string): Promise<string> {
   return ((await current.locator(`[data-figure="${key}"] [data-value]`).textContent()) ?? '').trim();
@@ -46,27 +33,24 @@ async function shot(current: Page, name: string): Promise<void> {
 
 describe('workbench journey', () => {
   beforeAll(async () => {
-    mkdirSync(screenshotDir, { recursive: true });
-    browser = await launchChromium();
+    browser = await launchJourneyBrowser();
   });
   afterAll(async () => {
     await browser?.close();
   });
   beforeEach(async () => {
-    context = await browser.newContext({ viewport: { width: 1440, height: 900 }, colorScheme: 'light' });
-    page = await context.newPage();
-    pageErrors = [];
-    page.on('pageerror', (error) => pageErrors.push(error.message));
-    page.on('console', (message) => {
-      if (message.type() === 'error' && !message.text().includes('401')) pageErrors.push(message.text());
-    });
+    ({
+      context,
+      page,
+      errors: pageErrors,
+    } = await openJourneyPage(browser, { viewport: { width: 1440, height: 900 } }));
   });
   afterEach(async () => {
     await context?.close();
   });
 
   it('creates a design from a template, edits a capacitor, saves, compares and simulates', async () => {
-    await signIn(page);
+    await signInAsDemo(page, 'engineer@northfold.test');
     await page.getByRole('main').getByRole('listitem').first().getByRole('link').click();
     await page.getByRole('heading', { name: 'Designs', level: 2 }).waitFor();
     await shot(page, 'workbench-01-designs.png');
@@ -142,7 +126,7 @@ describe('workbench journey', () => {
   }, 200_000);
 
   it('keeps the edits of a save that lost the race and saves them on top of the latest revision', async () => {
-    await signIn(page);
+    await signInAsDemo(page, 'engineer@northfold.test');
     await page.getByRole('main').getByRole('listitem').first().getByRole('link').click();
     await page.getByRole('heading', { name: 'Designs', level: 2 }).waitFor();
     await createFromTemplate(page, 'Journey race supply');
@@ -190,7 +174,7 @@ describe('workbench journey', () => {
   }, 120_000);
 
   it('proposes ladders on the Sizer and starts a design from one', async () => {
-    await signIn(page);
+    await signInAsDemo(page, 'engineer@northfold.test');
     await page.getByRole('main').getByRole('listitem').first().getByRole('link').click();
     await page.getByRole('link', { name: 'Open the Sizer' }).click();
     await page.getByRole('heading', { name: 'Sizer', level: 1 }).waitFor();

@@ -1,0 +1,57 @@
+import { mkdirSync } from 'node:fs';
+import { resolve } from 'node:path';
+import type { Browser, BrowserContext, BrowserContextOptions, Page } from 'playwright-core';
+import { inject } from 'vitest';
+import { launchChromium } from './launch-chromium';
+
+/** The built server started by global-setup.ts. */
+export const baseUrl = inject('baseUrl');
+export const screenshotDir = resolve(import.meta.dirname, '..', 'test-results');
+/** Every seeded demo account (engineer, reviewer, lead, admin @northfold.test) shares this password. */
+export const demoPassword = 'Northfold-demo-1';
+
+export interface JourneyPage {
+  context: BrowserContext;
+  page: Page;
+  /** Uncaught page errors and console errors not matched by the ignored pattern. */
+  errors: string[];
+}
+
+/** Makes sure the screenshot folder exists, then launches chromium. */
+export function launchJourneyBrowser(): Promise<Browser> {
+  mkdirSync(screenshotDir, { recursive: true });
+  return launchChromium();
+}
+
+/**
+ * Opens a page in a fresh light-scheme context and collects its errors. The session check answers 401
+ * before sign-in: the browser logs that as a failed resource, by design, so the default pattern skips it.
+ */
+export async function openJourneyPage(
+  browser: Browser,
+  contextOptions: BrowserContextOptions,
+  ignoredConsoleErrors: RegExp = /401/,
+): Promise<JourneyPage> {
+  const context = await browser.newContext({ colorScheme: 'light', ...contextOptions });
+  const page = await context.newPage();
+  const errors: string[] = [];
+  page.on('pageerror', (error) => errors.push(error.message));
+  page.on('console', (message) => {
+    if (message.type() === 'error' && !ignoredConsoleErrors.test(message.text())) errors.push(message.text());
+  });
+  return { context, page, errors };
+}
+
+/** Fills and submits the sign-in form already open on `page`. */
+export async function submitSignIn(page: Page, email: string, password: string): Promise<void> {
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password', { exact: false }).first().fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+}
+
+/** Opens sign-in, signs in as a demo account and waits for the Projects page. */
+export async function signInAsDemo(page: Page, email: string): Promise<void> {
+  await page.goto(`${baseUrl}/sign-in`);
+  await submitSignIn(page, email, demoPassword);
+  await page.getByRole('heading', { name: 'Projects', level: 1 }).waitFor();
+}
