@@ -1,5 +1,5 @@
-import { Body, Controller, Get, HttpCode, Param, Patch, Post } from '@nestjs/common';
-import { ApiConflictResponse, ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { Body, Controller, Get, Param, Patch, Post } from '@nestjs/common';
+import { ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import type { CurrentUser as SessionUser, ReviewComment, SignOff } from '@ladderwright/shared/api';
 import { CurrentUser } from '../common/decorators/current-user.decorator';
 import { ProjectMembership } from '../common/decorators/project-membership.decorator';
@@ -11,9 +11,8 @@ import { SignOffNoteDto } from './dto/sign-off-note.dto';
 import { SubmitRevisionDto } from './dto/submit-revision.dto';
 import { UpdateCommentDto } from './dto/update-comment.dto';
 import { ReviewCommentsService } from './review-comments.service';
+import { SignOffCommand } from './sign-off-command.decorator';
 import { SignOffService, type UserCommand } from './sign-off.service';
-
-const ILLEGAL = 'illegal_transition: not allowed from this state, for this role or for the author; the body says why.';
 
 @ApiTags('sign-off')
 @ApiCookieAuth()
@@ -35,10 +34,7 @@ export class ReviewsController {
     return this.signOff.get(membership.projectId, designId, revisionNumber, user, membership);
   }
 
-  @Post('submit')
-  @HttpCode(200)
-  @RequiresProjectAction('revision.submit')
-  @ApiConflictResponse({ description: ILLEGAL })
+  @SignOffCommand('submit', 'revision.submit')
   submit(
     @ProjectMembership() membership: Membership,
     @CurrentUser() user: SessionUser,
@@ -49,10 +45,7 @@ export class ReviewsController {
     return this.run('submit', membership, user, designId, revisionNumber, body.note, body.reviewerIds);
   }
 
-  @Post('withdraw')
-  @HttpCode(200)
-  @RequiresProjectAction('revision.submit')
-  @ApiConflictResponse({ description: ILLEGAL })
+  @SignOffCommand('withdraw', 'revision.submit')
   withdraw(
     @ProjectMembership() membership: Membership,
     @CurrentUser() user: SessionUser,
@@ -63,10 +56,7 @@ export class ReviewsController {
     return this.run('withdraw', membership, user, designId, revisionNumber, body.note);
   }
 
-  @Post('approve')
-  @HttpCode(200)
-  @RequiresProjectAction('review.decide')
-  @ApiConflictResponse({ description: ILLEGAL })
+  @SignOffCommand('approve', 'review.decide')
   approve(
     @ProjectMembership() membership: Membership,
     @CurrentUser() user: SessionUser,
@@ -77,10 +67,7 @@ export class ReviewsController {
     return this.run('approve', membership, user, designId, revisionNumber, body.note);
   }
 
-  @Post('return')
-  @HttpCode(200)
-  @RequiresProjectAction('review.decide')
-  @ApiConflictResponse({ description: ILLEGAL })
+  @SignOffCommand('return', 'review.decide')
   returnRevision(
     @ProjectMembership() membership: Membership,
     @CurrentUser() user: SessionUser,
@@ -91,10 +78,7 @@ export class ReviewsController {
     return this.run('return', membership, user, designId, revisionNumber, body.note);
   }
 
-  @Post('release')
-  @HttpCode(200)
-  @RequiresProjectAction('revision.release')
-  @ApiConflictResponse({ description: ILLEGAL })
+  @SignOffCommand('release', 'revision.release')
   release(
     @ProjectMembership() membership: Membership,
     @CurrentUser() user: SessionUser,
