@@ -11,7 +11,7 @@ import { createDesign } from './factories/create-design';
 import { createProject, type TestProject } from './factories/create-project';
 import { createUser, type TestUser } from './factories/create-user';
 import { createTestApp, type TestApp } from './utils/create-test-app';
-import { signIn } from './utils/sign-in';
+import { SessionCookies } from './utils/sign-in';
 
 const fixture = (name: string) => readFileSync(join(__dirname, 'fixtures', 'bench-runs', name));
 
@@ -39,8 +39,8 @@ describe('bench runs', () => {
   let outsider: TestUser;
   let project: TestProject;
   let design: DesignDetail;
-  const cookies = new Map<string, string>();
-  const as = (user: TestUser) => cookies.get(user.email) ?? '';
+  const cookies = new SessionCookies();
+  const { as } = cookies;
   const runsUrl = (revision = 2) => `/api/projects/${project.id}/designs/${design.id}/revisions/${revision}/bench-runs`;
   const upload = (
     kind: string,
@@ -81,8 +81,7 @@ describe('bench runs', () => {
       changeNote: 'hand-checked prediction',
       baseRevisionNumber: 1,
     });
-    for (const user of [engineer, reviewer, outsider])
-      cookies.set(user.email, await signIn(testApp, user.email, user.password));
+    await cookies.signIn(testApp, [engineer, reviewer, outsider]);
   });
   afterAll(async () => {
     await testApp.close();

@@ -9,7 +9,7 @@ import { createDesign } from './factories/create-design';
 import { createProject, type TestProject } from './factories/create-project';
 import { createUser, type TestUser } from './factories/create-user';
 import { createTestApp, type TestApp } from './utils/create-test-app';
-import { signIn } from './utils/sign-in';
+import { SessionCookies, signIn } from './utils/sign-in';
 
 // Statuses follow shared/src/auth/permissions.ts (project.read for reads, design.write for writes) and the
 // project guard (non-member 404, member without the role 403): common practice, no source.
@@ -23,8 +23,8 @@ describe('designs', () => {
   let project: TestProject;
   let listProject: TestProject;
   let otherProject: TestProject;
-  const cookies = new Map<string, string>();
-  const as = (user: TestUser) => cookies.get(user.email) ?? '';
+  const cookies = new SessionCookies();
+  const { as } = cookies;
   const designsPath = (projectId = project.id) => `/api/projects/${projectId}/designs`;
 
   beforeAll(async () => {
@@ -41,8 +41,7 @@ describe('designs', () => {
     project = await createProject(team);
     listProject = await createProject(team);
     otherProject = await createProject([{ userId: outsider.id, role: 'engineer' }]);
-    for (const user of [engineer, lead, reviewer, outsider])
-      cookies.set(user.email, await signIn(testApp, user.email, user.password));
+    await cookies.signIn(testApp, [engineer, lead, reviewer, outsider]);
   });
   afterAll(async () => testApp.close());
 

@@ -4,7 +4,7 @@ import { designExamples, type Design } from '@ladderwright/shared/designs';
 import { createProject, type TestProject } from './factories/create-project';
 import { createUser, type TestUser } from './factories/create-user';
 import { createTestApp, type TestApp } from './utils/create-test-app';
-import { signIn } from './utils/sign-in';
+import { SessionCookies } from './utils/sign-in';
 
 // The surface-charge tester references NF-C472-3K for all four capacitors (document rating 3 kV; C1 sees
 // about 1.6 kV). On this shelf the code is rated 500 V, so the Checks must fail C1 on capacitor voltage.
@@ -29,8 +29,8 @@ describe('Checks against the Parts shelf', () => {
   let outsider: TestUser;
   let project: TestProject;
   let emptyShelfProject: TestProject;
-  const cookies = new Map<string, string>();
-  const as = (user: TestUser) => cookies.get(user.email) ?? '';
+  const cookies = new SessionCookies();
+  const { as } = cookies;
   const document: Design = designExamples.surfaceChargeTester;
 
   beforeAll(async () => {
@@ -44,8 +44,7 @@ describe('Checks against the Parts shelf', () => {
     ]);
     emptyShelfProject = await createProject([{ userId: engineer.id, role: 'engineer' }]);
     await createProject([{ userId: outsider.id, role: 'engineer' }]);
-    for (const user of [engineer, lead, outsider])
-      cookies.set(user.email, await signIn(testApp, user.email, user.password));
+    await cookies.signIn(testApp, [engineer, lead, outsider]);
     const added = await http().post(`/api/projects/${project.id}/parts`).set('Cookie', as(lead)).send(LOW_RATED_CAPACITOR);
     expect(added.status).toBe(201);
   });

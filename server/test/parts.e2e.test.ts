@@ -4,7 +4,7 @@ import request from 'supertest';
 import { createProject, type TestProject } from './factories/create-project';
 import { createUser, type TestUser } from './factories/create-user';
 import { createTestApp, type TestApp } from './utils/create-test-app';
-import { signIn } from './utils/sign-in';
+import { SessionCookies } from './utils/sign-in';
 
 const fixture = (name: string) => readFileSync(join(__dirname, 'fixtures', 'parts', name));
 
@@ -17,8 +17,8 @@ describe('parts shelf', () => {
   let outsider: TestUser;
   let project: TestProject;
   let otherProject: TestProject;
-  const cookies = new Map<string, string>();
-  const as = (user: TestUser) => cookies.get(user.email) ?? '';
+  const cookies = new SessionCookies();
+  const { as } = cookies;
   const partsUrl = (projectId = project.id) => `/api/projects/${projectId}/parts`;
   const importCsv = (body: Buffer, dryRun: boolean, user = lead, name = 'shelf.csv') =>
     http()
@@ -36,8 +36,7 @@ describe('parts shelf', () => {
       { userId: lead.id, role: 'lead' },
     ]);
     otherProject = await createProject([{ userId: outsider.id, role: 'lead' }]);
-    for (const user of [engineer, lead, outsider])
-      cookies.set(user.email, await signIn(testApp, user.email, user.password));
+    await cookies.signIn(testApp, [engineer, lead, outsider]);
   });
   afterAll(async () => testApp.close());
 

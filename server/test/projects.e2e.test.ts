@@ -3,7 +3,7 @@ import request from 'supertest';
 import { createProject, type TestProject } from './factories/create-project';
 import { createUser, type TestUser } from './factories/create-user';
 import { createTestApp, type TestApp } from './utils/create-test-app';
-import { signIn } from './utils/sign-in';
+import { SessionCookies, signIn } from './utils/sign-in';
 
 // Expected statuses follow the permission table in shared/src/auth/permissions.ts and issue 2
 // (non-member 404, member without the role 403): common practice, no source.
@@ -17,8 +17,8 @@ describe('projects', () => {
   let admin: TestUser;
   let projectA: TestProject;
   let projectB: TestProject;
-  const cookies = new Map<string, string>();
-  const as = (user: TestUser) => cookies.get(user.email) ?? '';
+  const cookies = new SessionCookies();
+  const { as } = cookies;
 
   beforeAll(async () => {
     testApp = await createTestApp();
@@ -36,9 +36,7 @@ describe('projects', () => {
       { name: 'Cleanroom ionizer bar' },
     );
     projectB = await createProject([{ userId: outsider.id, role: 'lead' }], { name: 'Detector tube bias' });
-    for (const user of [engineer, reviewer, lead, outsider, admin]) {
-      cookies.set(user.email, await signIn(testApp, user.email, user.password));
-    }
+    await cookies.signIn(testApp, [engineer, reviewer, lead, outsider, admin]);
   });
   afterAll(async () => testApp.close());
 

@@ -9,7 +9,7 @@ import { createProject, type TestProject } from './factories/create-project';
 import { createUser, type TestUser } from './factories/create-user';
 import { createTestApp, type TestApp } from './utils/create-test-app';
 import { type MailCatcher, startMailCatcher } from './utils/mail-catcher';
-import { signIn } from './utils/sign-in';
+import { SessionCookies } from './utils/sign-in';
 
 // Expected statuses follow shared/src/reviews/revision-states.ts (states, roles, author rules),
 // shared/src/auth/permissions.ts and the project guard (non-member 404, lacking role 403, no session 401),
@@ -25,8 +25,8 @@ describe('Sign-off', () => {
   let otherLead: TestUser;
   let outsider: TestUser;
   let project: TestProject;
-  const cookies = new Map<string, string>();
-  const as = (user: TestUser) => cookies.get(user.email) ?? '';
+  const cookies = new SessionCookies();
+  const { as } = cookies;
   const revisionPath = (design: { id: string }, number = 1) =>
     `/api/projects/${project.id}/designs/${design.id}/revisions/${number}`;
 
@@ -77,9 +77,7 @@ describe('Sign-off', () => {
       { userId: otherLead.id, role: 'lead' },
     ]);
     await createProject([{ userId: outsider.id, role: 'lead' }]);
-    for (const user of [engineer, reviewer, otherReviewer, lead, otherLead, outsider]) {
-      cookies.set(user.email, await signIn(testApp, user.email, user.password));
-    }
+    await cookies.signIn(testApp, [engineer, reviewer, otherReviewer, lead, otherLead, outsider]);
   });
   afterAll(async () => {
     await testApp.close();

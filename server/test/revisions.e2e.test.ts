@@ -6,7 +6,7 @@ import { createDesign } from './factories/create-design';
 import { createProject, type TestProject } from './factories/create-project';
 import { createUser, type TestUser } from './factories/create-user';
 import { createTestApp, type TestApp } from './utils/create-test-app';
-import { signIn } from './utils/sign-in';
+import { SessionCookies } from './utils/sign-in';
 
 // Statuses follow shared/src/auth/permissions.ts (design.write: engineer, lead) and the project guard
 // (non-member 404, member without the role 403): common practice, no source.
@@ -18,8 +18,8 @@ describe('revisions', () => {
   let outsider: TestUser;
   let project: TestProject;
   let otherProject: TestProject;
-  const cookies = new Map<string, string>();
-  const as = (user: TestUser) => cookies.get(user.email) ?? '';
+  const cookies = new SessionCookies();
+  const { as } = cookies;
   const revisionsPath = (design: { id: string }, projectId = project.id) =>
     `/api/projects/${projectId}/designs/${design.id}/revisions`;
 
@@ -46,8 +46,7 @@ describe('revisions', () => {
       { userId: reviewer.id, role: 'reviewer' },
     ]);
     otherProject = await createProject([{ userId: outsider.id, role: 'engineer' }]);
-    for (const user of [engineer, reviewer, outsider])
-      cookies.set(user.email, await signIn(testApp, user.email, user.password));
+    await cookies.signIn(testApp, [engineer, reviewer, outsider]);
   });
   afterAll(async () => testApp.close());
 

@@ -8,7 +8,7 @@ import { createDesign } from './factories/create-design';
 import { createProject, type TestProject } from './factories/create-project';
 import { createUser, type TestUser } from './factories/create-user';
 import { createTestApp, type TestApp } from './utils/create-test-app';
-import { signIn } from './utils/sign-in';
+import { SessionCookies } from './utils/sign-in';
 
 /** Collects a binary response body (supertest buffers only text by default). */
 function binary(response: request.Response, done: (error: Error | null, body: Buffer) => void): void {
@@ -33,8 +33,8 @@ describe('spec sheets', () => {
   let lead: TestUser;
   let outsider: TestUser;
   let project: TestProject;
-  const cookies = new Map<string, string>();
-  const as = (user: TestUser) => cookies.get(user.email) ?? '';
+  const cookies = new SessionCookies();
+  const { as } = cookies;
   const base = (design: { id: string }) => `/api/projects/${project.id}/designs/${design.id}/revisions/1`;
   const sheet = (design: { id: string }, user: TestUser) =>
     http()
@@ -76,8 +76,7 @@ describe('spec sheets', () => {
       ],
       { name: 'Detector tube bias' },
     );
-    for (const user of [engineer, reviewer, lead, outsider])
-      cookies.set(user.email, await signIn(testApp, user.email, user.password));
+    await cookies.signIn(testApp, [engineer, reviewer, lead, outsider]);
   });
   afterAll(async () => testApp.close());
 

@@ -12,3 +12,16 @@ export async function signIn(testApp: TestApp, email: string, password: string):
   if (!session) throw new Error('sign-in did not set the lw_session cookie');
   return session.split(';')[0] ?? '';
 }
+
+/** Session cookies of a suite's users, keyed by e-mail: sign them in once in `beforeAll`, then send `as(user)`. */
+export class SessionCookies {
+  private readonly byEmail = new Map<string, string>();
+
+  /** Signs each user in through the API, one after another, and keeps the cookie. */
+  async signIn(testApp: TestApp, users: readonly { email: string; password: string }[]): Promise<void> {
+    for (const user of users) this.byEmail.set(user.email, await signIn(testApp, user.email, user.password));
+  }
+
+  /** The Cookie header for `user`, or '' (no session) when the user was never signed in. */
+  readonly as = (user: { email: string }): string => this.byEmail.get(user.email) ?? '';
+}
