@@ -13,7 +13,31 @@ import { analyzeDesign } from '@ladderwright/shared/multiplier';
 import { paths } from '../../../config/paths';
 import { queryKeys } from '../../../lib/query-keys';
 import { createTestQueryClient, jsonResponse, renderRoutes } from '../../../testing/render';
+import {
+  answerLiveAnalysis,
+  type LiveAnalysisAnswer,
+  type LiveAnalysisRequest,
+} from '../../../features/workbench/live-analysis-messages';
 import { WorkbenchRoute } from './workbench';
+
+// jsdom has no Worker: the live preview's worker answers through the same handler, a tick later.
+vi.mock('../../../features/workbench/create-live-analysis-worker', () => ({
+  createLiveAnalysisWorker: () => {
+    const listeners: Array<(event: MessageEvent<LiveAnalysisAnswer>) => void> = [];
+    return {
+      addEventListener: (type: string, listener: (event: MessageEvent<LiveAnalysisAnswer>) => void) => {
+        if (type === 'message') listeners.push(listener);
+      },
+      postMessage: (request: LiveAnalysisRequest) => {
+        setTimeout(() => {
+          const data = answerLiveAnalysis(request);
+          for (const listener of listeners) listener({ data } as MessageEvent<LiveAnalysisAnswer>);
+        }, 0);
+      },
+      terminate: () => undefined,
+    } as unknown as Worker;
+  },
+}));
 
 const projectId = 'p-bias';
 const designId = 'd-bias';

@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useMemo, useState } from 'react';
 import { fireEvent, screen } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { designExamples, validateDesign, type Design } from '@ladderwright/shared/designs';
@@ -22,10 +22,11 @@ function engineIssues(document: Design): Record<string, string> {
 /** The form on a live document, with the engine's issues recomputed on every change. */
 function Harness({ onDocument }: { onDocument: (document: Design) => void }) {
   const [document, setDocument] = useState<Design>(designExamples.surfaceChargeTester);
+  const issues = useMemo(() => engineIssues(document), [document]);
   return (
     <LadderForm
       document={document}
-      issues={engineIssues(document)}
+      issues={issues}
       onChange={(next) => {
         setDocument(next);
         onDocument(next);
@@ -39,46 +40,65 @@ function driverOf(document: Design | undefined) {
   return document.drive.driver;
 }
 
+// Each edit runs the engine on a driver design (tens of ms) and re-renders the whole form.
+const timeoutMs = 30_000;
+
 describe('LadderForm driver fields', () => {
-  it('writes a typed transistor Vce(sat) and a feedback-winding resistance to their driver paths', () => {
-    const seen: Design[] = [];
-    renderWithApp(<Harness onDocument={(d) => seen.push(d)} />);
-    fireEvent.change(screen.getByLabelText('Vce (sat)'), { target: { value: '350 mV' } });
-    expect(driverOf(seen.at(-1)).transistor.vceSatV).toBeCloseTo(0.35, 12);
-    fireEvent.change(screen.getByLabelText('Feedback resistance'), { target: { value: '0.4' } });
-    const driver = driverOf(seen.at(-1));
-    expect(driver.transformer.feedbackResistanceOhm).toBeCloseTo(0.4, 12);
-    // The earlier edit survives the later one.
-    expect(driver.transistor.vceSatV).toBeCloseTo(0.35, 12);
-  });
+  it(
+    'writes a typed transistor Vce(sat) and a feedback-winding resistance to their driver paths',
+    () => {
+      const seen: Design[] = [];
+      renderWithApp(<Harness onDocument={(d) => seen.push(d)} />);
+      fireEvent.change(screen.getByLabelText('Vce (sat)'), { target: { value: '350 mV' } });
+      expect(driverOf(seen.at(-1)).transistor.vceSatV).toBeCloseTo(0.35, 12);
+      fireEvent.change(screen.getByLabelText('Feedback resistance'), { target: { value: '0.4' } });
+      const driver = driverOf(seen.at(-1));
+      expect(driver.transformer.feedbackResistanceOhm).toBeCloseTo(0.4, 12);
+      // The earlier edit survives the later one.
+      expect(driver.transistor.vceSatV).toBeCloseTo(0.35, 12);
+    },
+    timeoutMs,
+  );
 
-  it('shows the engine’s message beside the primary inductance when it is set to zero', () => {
-    renderWithApp(<Harness onDocument={() => undefined} />);
-    const field = screen.getByLabelText('Primary inductance');
-    fireEvent.change(field, { target: { value: '0 H' } });
-    expect(screen.getByText('primary inductance must be positive')).toBeTruthy();
-    expect(field.getAttribute('aria-invalid')).toBe('true');
-  });
+  it(
+    'shows the engine’s message beside the primary inductance when it is set to zero',
+    () => {
+      renderWithApp(<Harness onDocument={() => undefined} />);
+      const field = screen.getByLabelText('Primary inductance');
+      fireEvent.change(field, { target: { value: '0 H' } });
+      expect(screen.getByText('primary inductance must be positive')).toBeTruthy();
+      expect(field.getAttribute('aria-invalid')).toBe('true');
+    },
+    timeoutMs,
+  );
 
-  it('switches the supply to a DC supply and offers its voltage and source resistance', () => {
-    const seen: Design[] = [];
-    renderWithApp(<Harness onDocument={(d) => seen.push(d)} />);
-    fireEvent.click(screen.getByRole('radio', { name: 'DC supply' }));
-    expect(driverOf(seen.at(-1)).supply.kind).toBe('dc');
-    fireEvent.change(screen.getByLabelText('Supply source resistance'), { target: { value: '2.2' } });
-    expect(driverOf(seen.at(-1)).supply).toMatchObject({ kind: 'dc', sourceResistanceOhm: 2.2 });
-  });
+  it(
+    'switches the supply to a DC supply and offers its voltage and source resistance',
+    () => {
+      const seen: Design[] = [];
+      renderWithApp(<Harness onDocument={(d) => seen.push(d)} />);
+      fireEvent.click(screen.getByRole('radio', { name: 'DC supply' }));
+      expect(driverOf(seen.at(-1)).supply.kind).toBe('dc');
+      fireEvent.change(screen.getByLabelText('Supply source resistance'), { target: { value: '2.2' } });
+      expect(driverOf(seen.at(-1)).supply).toMatchObject({ kind: 'dc', sourceResistanceOhm: 2.2 });
+    },
+    timeoutMs,
+  );
 
-  it('offers the RCD clamp’s resistor and capacitor only once RCD is chosen, and sets the battery-life target', () => {
-    const seen: Design[] = [];
-    renderWithApp(<Harness onDocument={(d) => seen.push(d)} />);
-    expect(screen.queryByLabelText('Clamp resistor')).toBeNull();
-    fireEvent.click(screen.getByLabelText('Clamp', { selector: 'input' }));
-    fireEvent.click(screen.getByRole('option', { name: 'RCD' }));
-    expect(driverOf(seen.at(-1)).clamp?.kind).toBe('rcd');
-    fireEvent.change(screen.getByLabelText('Clamp resistor'), { target: { value: '22k' } });
-    expect(driverOf(seen.at(-1)).clamp).toMatchObject({ kind: 'rcd', resistorOhm: 22e3 });
-    fireEvent.change(screen.getByLabelText('Battery-life target (h)'), { target: { value: '40' } });
-    expect(driverOf(seen.at(-1)).batteryLifeTargetH).toBe(40);
-  });
+  it(
+    'offers the RCD clamp’s resistor and capacitor only once RCD is chosen, and sets the battery-life target',
+    () => {
+      const seen: Design[] = [];
+      renderWithApp(<Harness onDocument={(d) => seen.push(d)} />);
+      expect(screen.queryByLabelText('Clamp resistor')).toBeNull();
+      fireEvent.click(screen.getByLabelText('Clamp', { selector: 'input' }));
+      fireEvent.click(screen.getByRole('option', { name: 'RCD' }));
+      expect(driverOf(seen.at(-1)).clamp?.kind).toBe('rcd');
+      fireEvent.change(screen.getByLabelText('Clamp resistor'), { target: { value: '22k' } });
+      expect(driverOf(seen.at(-1)).clamp).toMatchObject({ kind: 'rcd', resistorOhm: 22e3 });
+      fireEvent.change(screen.getByLabelText('Battery-life target (h)'), { target: { value: '40' } });
+      expect(driverOf(seen.at(-1)).batteryLifeTargetH).toBe(40);
+    },
+    timeoutMs,
+  );
 });

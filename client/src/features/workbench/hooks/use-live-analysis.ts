@@ -1,61 +1,72 @@
-import { useMemo } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { useDebouncedValue } from '@mantine/hooks';
 import type { Design } from '@ladderwright/shared/designs';
-import { validateDesign } from '@ladderwright/shared/designs';
-import { analyzeDesign, type DesignReport } from '@ladderwright/shared/multiplier';
-import { isDomainError, type FieldIssue } from '@ladderwright/shared/errors';
-import { analyzeWithShelf, type ShelfPart } from '@ladderwright/shared/parts';
+import type { ShelfPart } from '@ladderwright/shared/parts';
+import { createLiveAnalysisWorker } from '../create-live-analysis-worker';
+import type { LiveAnalysisAnswer, LiveAnalysisRequest, LiveAnalysisResult } from '../live-analysis-messages';
 
-export interface LiveAnalysis {
-  /** The engine's report on the debounced document; null while the document has field issues. */
-  report: DesignReport | null;
-  /** validateDesign's field issues by document path (first message per path). */
-  issues: Record<string, string>;
-  /** A problem the engine reported that is not tied to one field, e.g. a ladder that does not converge. */
-  engineError: string | null;
-  /** Part codes the shelf could not resolve (with a shelf only); those positions use the document's ratings. */
-  partIssues: FieldIssue[];
+export interface LiveAnalysis extends LiveAnalysisResult {
   /** True while the shown figures lag behind the typed document. */
   isPending: boolean;
 }
 
 const debounceMs = 150;
 
-function issuesOf(error: unknown): Record<string, string> {
-  const issues: Record<string, string> = {};
-  if (isDomainError(error)) {
-    for (const issue of error.issues) issues[issue.path] ??= issue.message;
-  }
-  return issues;
-}
+const noResult: LiveAnalysisResult = { report: null, issues: {}, engineError: null, partIssues: [] };
 
 /**
- * Runs the shared engine in the browser on the document being edited, ~150 ms after the last keystroke.
- * With the project's `shelf`, the referenced parts' ratings are filled in first (`analyzeWithShelf`), as
- * the server does for a saved revision, so the preview and the stored report agree.
+ * Runs the shared engine on the document being edited, ~150 ms after the last keystroke, in a Web Worker
+ * (a driver design's analysis would otherwise hold up typing). With the project's `shelf`, the referenced
+ * parts' ratings are filled in first, as the server does for a saved revision, so the preview and the stored
+ * report agree. Each request is numbered; an answer to anything but the latest request is dropped.
  */
 export function useLiveAnalysis(document: Design, shelf?: readonly ShelfPart[]): LiveAnalysis {
   const [debounced] = useDebouncedValue(document, debounceMs);
-  const result = useMemo(() => {
-    const none: FieldIssue[] = [];
-    try {
-      const valid = validateDesign(debounced);
-      try {
-        if (!shelf) return { report: analyzeDesign(valid), issues: {}, engineError: null, partIssues: none };
-        const { partIssues, ...report } = analyzeWithShelf(valid, shelf);
-        return { report, issues: {}, engineError: null, partIssues };
-      } catch (error) {
-        const issues = issuesOf(error);
-        return {
-          report: null,
-          issues,
-          engineError: error instanceof Error ? error.message : String(error),
-          partIssues: none,
-        };
-      }
-    } catch (error) {
-      return { report: null, issues: issuesOf(error), engineError: null, partIssues: none };
+  const workerRef = useRef<Worker | null>(null);
+  const latestRef = useRef<LiveAnalysisRequest | null>(null);
+  const sequenceRef = useRef(0);
+  const [answered, setAnswered] = useState<{ document: Design; result: LiveAnalysisResult } | null>(null);
+
+  useEffect(
+    () => () => {
+      workerRef.current?.terminate();
+      workerRef.current = null;
+    },
+    [],
+  );
+
+  useEffect(() => {
+    let worker = workerRef.current;
+    if (!worker) {
+      worker = createLiveAnalysisWorker();
+      worker.addEventListener('message', (event: MessageEvent<LiveAnalysisAnswer>) => {
+        const latest = latestRef.current;
+        if (!latest || event.data.sequence !== latest.sequence) return;
+        setAnswered({ document: latest.document, result: event.data.result });
+      });
+      worker.addEventListener('error', (event: ErrorEvent) => {
+        event.preventDefault();
+        const latest = latestRef.current;
+        workerRef.current?.terminate();
+        workerRef.current = null;
+        if (latest)
+          setAnswered({
+            document: latest.document,
+            result: { ...noResult, engineError: event.message || 'The live preview stopped unexpectedly.' },
+          });
+      });
+      workerRef.current = worker;
     }
+    sequenceRef.current += 1;
+    const request: LiveAnalysisRequest = {
+      sequence: sequenceRef.current,
+      document: debounced,
+      ...(shelf ? { shelf } : {}),
+    };
+    latestRef.current = request;
+    worker.postMessage(request);
   }, [debounced, shelf]);
-  return { ...result, isPending: debounced !== document };
+
+  const result = answered?.result ?? noResult;
+  return { ...result, isPending: debounced !== document || answered?.document !== debounced };
 }
