@@ -56,11 +56,19 @@ export function ladderFromArguments(argv: ReadonlyArray<string>): { spec: Ladder
  * `ladderwright simulate DESIGN.json | <bare-ladder flags>` [--until steady | --cycles N]
  * [--max-step-per-period N] [--discharge] [--safe-voltage V]: JSON with the output's cycle mean, ripple,
  * time to steady state, cycles simulated, method, and with --discharge the time to the safe voltage.
+ * A driver design starts warm (ladder at the engine's steady-state estimate) and runs until settled;
+ * `--cold` is the push-button start from an empty ladder, `--window-ms N` simulates exactly N ms.
  */
 export function simulateCommand(argv: ReadonlyArray<string>): string {
   const driverDesign = driverDesignOf(argv);
   if (driverDesign) {
-    const result = runDriverDesign(driverDesign);
+    const { flags } = parseArguments(argv);
+    const windowMs = numberFlag(flags, 'window-ms');
+    const result = runDriverDesign(driverDesign, {
+      start: flags.has('cold') ? 'cold' : 'warm',
+      ...(windowMs !== undefined ? { windowS: windowMs * 1e-3 } : {}),
+      ...(flags.has('discharge') ? { dischargeToV: quantityFlag(flags, 'safe-voltage', 'V') ?? driverDesign.targets.safeVoltageV } : {}),
+    });
     const dissipatedJ = Object.values(result.energy.dissipatedJ).reduce((a, b) => a + b, 0);
     return JSON.stringify(
       {
@@ -69,6 +77,10 @@ export function simulateCommand(argv: ReadonlyArray<string>): string {
         timeToSteadyStateS: result.timeToSteadyStateS,
         cyclesSimulated: result.cyclesSimulated,
         method: result.method,
+        start: result.start,
+        isSettled: result.isSettled,
+        extrapolations: result.extrapolations,
+        ...(result.discharge ? { dischargeTimeS: result.discharge.dischargeTimeS, trappedChargeC: result.discharge.trappedChargeC } : {}),
         oscillationFrequencyHz: result.oscillationFrequencyHz,
         energy: { suppliedJ: result.energy.suppliedJ, dissipatedJ, storedChangeJ: result.energy.storedChangeJ },
       },

@@ -185,47 +185,14 @@ export function runLadder(spec: LadderCircuitSpec, options: LadderRunOptions): L
   if (options.dischargeToV !== undefined) {
     const startCharges = pssOk ? pss!.charges : stepper.q0;
     const voltages = Array.from({ length: capCount }, (_, i) => startCharges[i]! / spec.capacitorsF[i]!);
-    // A constant-current load is a model of the running equipment, not a discharge path: it is dropped
-    // here (a resistive load stays), so the discharge is the bleeder's.
-    const load = spec.load?.kind === 'current' ? null : (spec.load ?? null);
-    const off = buildLadderCircuit({ ...spec, load, driveOffAtS: 0, initialCapacitorVoltagesV: voltages });
-    const offSystem = new MnaSystem(off);
-    const capIndex = Array.from({ length: capCount }, (_, i) => offSystem.reactiveNames.indexOf(capacitorName(i)));
-    const offTop = offSystem.probeIndex(LADDER_NODES.ladderTop);
-    const rcS = (spec.bleederOhm ?? 1e12) * spec.capacitorsF.reduce((a, b) => a + b, 0);
-    const dis = new TransientStepper(offSystem, { maxStepS: Math.max(periodS / options.maxStepPerPeriod, rcS / 2000) });
-    dis.startFromCharges(offSystem.initialCharge);
-    const dt: number[] = [0];
-    const dv: number[] = [sign * Math.abs(windowMean(ripple.timeS, ripple.values, -Infinity, Infinity))];
-    const caps: number[][] = voltages.map((v) => [v]);
-    const safe = Math.abs(options.dischargeToV);
-    let crossedS: number | null = null;
-    const stopS = 50 * rcS;
-    // Discharge share: the fraction of ln(V0/Vsafe) covered, the decay of an RC (time otherwise).
-    const logSpan = Math.log(Math.abs(dv[0]!) / safe);
-    while (dis.timeS < stopS) {
-      checkCancel();
-      dis.step(stopS);
-      const v = dis.value(offTop);
-      const share = logSpan > 0 && Math.abs(v) > 0 ? Math.log(Math.abs(dv[0]!) / Math.abs(v)) / logSpan : dis.timeS / stopS;
-      report(weights.pss + weights.startUp + weights.discharge * Math.min(1, share));
-      dt.push(dis.timeS);
-      dv.push(v);
-      capIndex.forEach((k, i) => caps[i]!.push(dis.q0[k]! / spec.capacitorsF[i]!));
-      if (Math.abs(v) <= safe) {
-        const a = dv[dv.length - 2]!;
-        const ta = dt[dt.length - 2]!;
-        crossedS = ta + ((dis.timeS - ta) * (Math.abs(a) - safe)) / (Math.abs(a) - Math.abs(v));
-        break;
-      }
-    }
-    const capacitorVoltagesV: Record<string, PlotTrace> = {};
-    const trappedChargeC: Record<string, number> = {};
-    caps.forEach((series, i) => {
-      capacitorVoltagesV[capacitorName(i)] = downsampleMinMax(dt, series, buckets);
-      trappedChargeC[capacitorName(i)] = series[series.length - 1]! * spec.capacitorsF[i]!;
+    discharge = followLadderDischarge(spec, voltages, {
+      startOutputV: sign * Math.abs(windowMean(ripple.timeS, ripple.values, -Infinity, Infinity)),
+      safeVoltageV: options.dischargeToV,
+      minStepS: periodS / options.maxStepPerPeriod,
+      plotBuckets: buckets,
+      checkCancel,
+      onShare: (share) => report(weights.pss + weights.startUp + weights.discharge * share),
     });
-    discharge = { dischargeTimeS: crossedS, safeVoltageV: safe, capacitorVoltagesV, output: downsampleMinMax(dt, dv, buckets), trappedChargeC };
   }
 
   report(1, true);
@@ -240,4 +207,66 @@ export function runLadder(spec: LadderCircuitSpec, options: LadderRunOptions): L
     ripple: downsampleMinMax(ripple.timeS, ripple.values, buckets),
     discharge,
   };
+}
+
+export interface DischargeRunOptions {
+  /** Output (ladder top) at the switch-off, V; the first point of the output trace. */
+  startOutputV: number;
+  /** Level to discharge to (its magnitude is used), V. */
+  safeVoltageV: number;
+  /** Smallest maximum time step, s (the bleeder RC / 2000 when that is longer). */
+  minStepS: number;
+  plotBuckets: number;
+  checkCancel: () => void;
+  /** The discharge's completed share, 0..1: the fraction of ln(V0/Vsafe) covered (the decay of an RC). */
+  onShare?: (share: number) => void;
+}
+
+/**
+ * Bleeder discharge of a ladder after its drive is switched off: transient of the ladder alone from the
+ * given capacitor voltages (design order, V), the secondary shorted through the drive's source
+ * resistance, until the ladder top reaches the safe voltage (or 50 bleeder time constants). A
+ * constant-current load is a model of the running equipment, not a discharge path: it is dropped (a
+ * resistive load stays), so the discharge is the bleeder's. Seconds, volts, coulombs.
+ */
+export function followLadderDischarge(spec: LadderCircuitSpec, voltages: ReadonlyArray<number>, options: DischargeRunOptions): NonNullable<LadderRunResult['discharge']> {
+  const capCount = spec.capacitorsF.length;
+  const load = spec.load?.kind === 'current' ? null : (spec.load ?? null);
+  const off = buildLadderCircuit({ ...spec, load, driveOffAtS: 0, initialCapacitorVoltagesV: voltages });
+  const offSystem = new MnaSystem(off);
+  const capIndex = Array.from({ length: capCount }, (_, i) => offSystem.reactiveNames.indexOf(capacitorName(i)));
+  const offTop = offSystem.probeIndex(LADDER_NODES.ladderTop);
+  const rcS = (spec.bleederOhm ?? 1e12) * spec.capacitorsF.reduce((a, b) => a + b, 0);
+  const dis = new TransientStepper(offSystem, { maxStepS: Math.max(options.minStepS, rcS / 2000) });
+  dis.startFromCharges(offSystem.initialCharge);
+  const dt: number[] = [0];
+  const dv: number[] = [options.startOutputV];
+  const caps: number[][] = voltages.map((v) => [v]);
+  const safe = Math.abs(options.safeVoltageV);
+  let crossedS: number | null = null;
+  const stopS = 50 * rcS;
+  const logSpan = Math.log(Math.abs(dv[0]!) / safe);
+  while (dis.timeS < stopS) {
+    options.checkCancel();
+    dis.step(stopS);
+    const v = dis.value(offTop);
+    const share = logSpan > 0 && Math.abs(v) > 0 ? Math.log(Math.abs(dv[0]!) / Math.abs(v)) / logSpan : dis.timeS / stopS;
+    options.onShare?.(Math.min(1, Math.max(0, share)));
+    dt.push(dis.timeS);
+    dv.push(v);
+    capIndex.forEach((k, i) => caps[i]!.push(dis.q0[k]! / spec.capacitorsF[i]!));
+    if (Math.abs(v) <= safe) {
+      const a = dv[dv.length - 2]!;
+      const ta = dt[dt.length - 2]!;
+      crossedS = ta + ((dis.timeS - ta) * (Math.abs(a) - safe)) / (Math.abs(a) - Math.abs(v));
+      break;
+    }
+  }
+  const capacitorVoltagesV: Record<string, PlotTrace> = {};
+  const trappedChargeC: Record<string, number> = {};
+  caps.forEach((series, i) => {
+    capacitorVoltagesV[capacitorName(i)] = downsampleMinMax(dt, series, options.plotBuckets);
+    trappedChargeC[capacitorName(i)] = series[series.length - 1]! * spec.capacitorsF[i]!;
+  });
+  return { dischargeTimeS: crossedS, safeVoltageV: safe, capacitorVoltagesV, output: downsampleMinMax(dt, dv, options.plotBuckets), trappedChargeC };
 }
