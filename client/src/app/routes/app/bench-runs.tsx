@@ -1,23 +1,17 @@
 import { Anchor, Breadcrumbs, Paper, Stack, Text, Title } from '@mantine/core';
 import { useDocumentTitle } from '@mantine/hooks';
-import { useSuspenseQuery, type QueryClient } from '@tanstack/react-query';
+import { useSuspenseQuery } from '@tanstack/react-query';
 import { useState } from 'react';
-import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
+import { Link, useParams } from 'react-router-dom';
 import { paths } from '../../../config/paths';
 import { useBenchRun } from '../../../features/bench-runs/api/get-bench-run';
 import { BenchOverlay } from '../../../features/bench-runs/components/bench-overlay';
 import { BenchRunList } from '../../../features/bench-runs/components/bench-run-list';
 import { BenchRunUpload } from '../../../features/bench-runs/components/bench-run-upload';
 import { getProjectQueryOptions } from '../../../features/projects/api/get-project';
-import { requireUser } from './root';
+import { requireProjectLoader } from './root';
 
-export function benchRunsLoader(queryClient: QueryClient) {
-  return async ({ params, request }: LoaderFunctionArgs) => {
-    await requireUser(queryClient, request);
-    await queryClient.ensureQueryData(getProjectQueryOptions(params.projectId ?? ''));
-    return null;
-  };
-}
+export const benchRunsLoader = requireProjectLoader;
 
 /** Bench runs of one revision: upload measured data, see it over the prediction with the verdict. */
 export function BenchRunsRoute() {

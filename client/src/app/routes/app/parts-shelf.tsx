@@ -1,21 +1,15 @@
 import { Anchor, Breadcrumbs, Button, Group, Paper, Stack, Text, Title } from '@mantine/core';
 import { useDocumentTitle } from '@mantine/hooks';
-import { useSuspenseQuery, type QueryClient } from '@tanstack/react-query';
-import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
+import { useSuspenseQuery } from '@tanstack/react-query';
+import { Link, useParams } from 'react-router-dom';
 import { apiPaths, paths } from '../../../config/paths';
 import { AddPartForm } from '../../../features/parts/components/add-part-form';
 import { PartsImport } from '../../../features/parts/components/parts-import';
 import { PartsTable } from '../../../features/parts/components/parts-table';
 import { getProjectQueryOptions } from '../../../features/projects/api/get-project';
-import { requireUser } from './root';
+import { requireProjectLoader } from './root';
 
-export function partsShelfLoader(queryClient: QueryClient) {
-  return async ({ params, request }: LoaderFunctionArgs) => {
-    await requireUser(queryClient, request);
-    await queryClient.ensureQueryData(getProjectQueryOptions(params.projectId ?? ''));
-    return null;
-  };
-}
+export const partsShelfLoader = requireProjectLoader;
 
 /** The project's Parts shelf: everyone reads it; leads add, import and remove parts. */
 export function PartsShelfRoute() {

@@ -1,21 +1,15 @@
 import { Anchor, Breadcrumbs, Button, Group, Stack, Text, Title } from '@mantine/core';
 import { useDisclosure, useDocumentTitle } from '@mantine/hooks';
-import { useSuspenseQuery, type QueryClient } from '@tanstack/react-query';
-import { Link, useNavigate, useParams, type LoaderFunctionArgs } from 'react-router-dom';
+import { useSuspenseQuery } from '@tanstack/react-query';
+import { Link, useNavigate, useParams } from 'react-router-dom';
 import { paths } from '../../../config/paths';
 import { CreateDesignModal } from '../../../features/designs/components/create-design-modal';
 import { DesignTable } from '../../../features/designs/components/design-table';
 import { getProjectQueryOptions } from '../../../features/projects/api/get-project';
 import { ProjectRoleBadge } from '../../../features/projects/components/project-role-badge';
-import { requireUser } from './root';
+import { requireProjectLoader } from './root';
 
-export function projectDesignsLoader(queryClient: QueryClient) {
-  return async ({ params, request }: LoaderFunctionArgs) => {
-    await requireUser(queryClient, request);
-    await queryClient.ensureQueryData(getProjectQueryOptions(params.projectId ?? ''));
-    return null;
-  };
-}
+export const projectDesignsLoader = requireProjectLoader;
 
 /** A project's home: its Designs, with search, filters and the ways to start a new design. */
 export function ProjectDesignsRoute() {

@@ -14,6 +14,7 @@ import { AppShell } from '../../../components/app-shell';
 import { paths } from '../../../config/paths';
 import { getMeQueryOptions, useMe } from '../../../features/auth/api/get-me';
 import { useSignOut } from '../../../features/auth/api/sign-out';
+import { getProjectQueryOptions } from '../../../features/projects/api/get-project';
 import { useProjects } from '../../../features/projects/api/get-projects';
 import { ProjectNav } from '../../../features/projects/components/project-nav';
 
@@ -33,6 +34,15 @@ export async function requireUser(queryClient: QueryClient, request: Request): P
 export function requireUserLoader(queryClient: QueryClient) {
   return async ({ request }: LoaderFunctionArgs) => {
     await requireUser(queryClient, request);
+    return null;
+  };
+}
+
+/** Loader of a page inside one project: the session first, then the project (name, the user's role) in the cache. */
+export function requireProjectLoader(queryClient: QueryClient) {
+  return async ({ params, request }: LoaderFunctionArgs) => {
+    await requireUser(queryClient, request);
+    await queryClient.ensureQueryData(getProjectQueryOptions(params.projectId ?? ''));
     return null;
   };
 }

@@ -1,21 +1,15 @@
 import { Alert, Anchor, Breadcrumbs, Stack, Text, Title } from '@mantine/core';
 import { useDocumentTitle } from '@mantine/hooks';
-import { useSuspenseQuery, type QueryClient } from '@tanstack/react-query';
-import { Link, useNavigate, useParams, type LoaderFunctionArgs } from 'react-router-dom';
+import { useSuspenseQuery } from '@tanstack/react-query';
+import { Link, useNavigate, useParams } from 'react-router-dom';
 import { paths } from '../../../config/paths';
 import { useCreateDesign } from '../../../features/designs/api/create-design';
 import { useParts } from '../../../features/parts/api/get-parts';
 import { getProjectQueryOptions } from '../../../features/projects/api/get-project';
 import { SizerPanel } from '../../../features/sizer/components/sizer-panel';
-import { requireUser } from './root';
+import { requireProjectLoader } from './root';
 
-export function sizerLoader(queryClient: QueryClient) {
-  return async ({ params, request }: LoaderFunctionArgs) => {
-    await requireUser(queryClient, request);
-    await queryClient.ensureQueryData(getProjectQueryOptions(params.projectId ?? ''));
-    return null;
-  };
-}
+export const sizerLoader = requireProjectLoader;
 
 /** The Sizer of a project: ranked ladders for a target, each one click from a new design. */
 export function SizerRoute() {
