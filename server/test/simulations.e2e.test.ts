@@ -168,14 +168,16 @@ describe('simulations', () => {
     });
 
     it('fails a job whose design the simulator refuses, naming the reason', async () => {
-      const driven = designExamples.surfaceChargeTester as Design;
-      expect(driven.drive.kind).toBe('driver');
+      // A blocking-oscillator driver feeds half-wave ladders only (shared build-driver-circuit.ts).
+      const driven = structuredClone(designExamples.surfaceChargeTester) as Design;
+      driven.multiplier.cellCount = 1;
+      driven.multiplier.topology = 'full-wave';
+      driven.multiplier.capacitors = [0, 1, 2].map(() => ({ ...designExamples.surfaceChargeTester.multiplier.capacitors[0]! }));
       const started = await start({ kind: 'startup', document: driven, options: { cycles: 5 } });
       expect(started.status).toBe(202);
       const { job } = await waitForEnd(started.body.jobId);
       expect(job.status).toBe('failed');
-      expect(job.error!.code).toBe('invalid_design');
-      expect(job.error!.message).toMatch(/driver drive/);
+      expect(job.error!.message).toMatch(/half-wave/);
     });
   });
 

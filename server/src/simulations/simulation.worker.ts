@@ -1,7 +1,7 @@
 import type { SimulationResult, SimulationSummary, WaveformPhase, WaveformTrace } from '@ladderwright/shared/api';
 import type { DischargeRule } from '@ladderwright/shared/designs';
 import { isDomainError } from '@ladderwright/shared/errors';
-import { ladderSpecFromDesign, type PlotTrace, runLadder } from '@ladderwright/shared/sim';
+import { ladderSpecFromDesign, type PlotTrace, runDriverDesign, runLadder } from '@ladderwright/shared/sim';
 import type { SimulationProgressMessage, SimulationTask, SimulationTaskOutcome } from './simulation-task.types';
 
 /*
@@ -22,8 +22,8 @@ function dischargeVoltageV(rule: DischargeRule): number {
   return rule === '60V-5s' ? 60 : 50;
 }
 
-function toWaveform(phase: WaveformPhase, trace: PlotTrace, name = 'V(top)'): WaveformTrace {
-  return { name, phase, unit: 'V', timeS: trace.timeS, values: trace.values };
+function toWaveform(phase: WaveformPhase, trace: PlotTrace, name = 'V(top)', unit: 'V' | 'A' = 'V'): WaveformTrace {
+  return { name, phase, unit, timeS: trace.timeS, values: trace.values };
 }
 
 /**
@@ -32,20 +32,72 @@ function toWaveform(phase: WaveformPhase, trace: PlotTrace, name = 'V(top)'): Wa
  * discharge after the drive stops, with the output and every capacitor's voltage. `runLadder` downsamples
  * with min/max buckets, so peaks are kept.
  */
+/** Cold start-up window of a driver design when the request gives none: 2 ms, some 50 oscillation periods. */
+const DEFAULT_STARTUP_WINDOW_S = 2e-3;
+
+/**
+ * A design driven by its blocking oscillator (`runDriverDesign`): warm-started steady state with the
+ * output, collector, secondary and primary current over a few oscillation periods, the bleeder discharge
+ * after the supply is switched off ('discharge', 'full'), and for 'startup' and 'full' a push-button start
+ * from an empty ladder over `options.startUpWindowS`. Progress: the start-up window takes the first
+ * quarter when there is one.
+ */
+function simulateDriver(task: SimulationTask, post: (fraction: number) => void): SimulationResult {
+  const { document: design, options, kind } = task;
+  const shouldCancel = (): boolean => Atomics.load(task.cancelFlag, 0) === 1;
+  const isDischarge = kind === 'discharge' || kind === 'full';
+  const hasStartUp = kind === 'startup' || kind === 'full';
+  const startShare = hasStartUp ? 0.25 : 0;
+  const coldRun = hasStartUp
+    ? runDriverDesign(design, { start: 'cold', windowS: options.startUpWindowS ?? DEFAULT_STARTUP_WINDOW_S, plotBuckets: PLOT_BUCKETS, shouldCancel, onProgress: (f) => post(startShare * f) })
+    : null;
+  const run = runDriverDesign(design, {
+    plotBuckets: PLOT_BUCKETS,
+    shouldCancel,
+    onProgress: (f) => post(startShare + (1 - startShare) * f),
+    ...(isDischarge ? { dischargeToV: dischargeVoltageV(design.targets.dischargeRule) } : {}),
+  });
+  const summary: SimulationSummary = {
+    outputMeanV: run.outputMeanV,
+    ripplePeakToPeakV: run.ripplePeakToPeakV,
+    timeToSteadyStateS: coldRun?.timeToSteadyStateS ?? null,
+    dischargeTimeS: run.discharge?.dischargeTimeS ?? null,
+    safeVoltageV: run.discharge?.safeVoltageV ?? null,
+    cyclesSimulated: run.cyclesSimulated + (coldRun?.cyclesSimulated ?? 0),
+    method: run.method,
+    oscillationFrequencyHz: run.oscillationFrequencyHz,
+  };
+  const waveforms: WaveformTrace[] = [];
+  if (coldRun) waveforms.push(toWaveform('startup', coldRun.startUp));
+  waveforms.push(toWaveform('steady-state', run.waveforms.outputV));
+  waveforms.push(toWaveform('steady-state', run.waveforms.collectorV, 'V(col)'));
+  waveforms.push(toWaveform('steady-state', run.waveforms.secondaryV, 'V(s)'));
+  waveforms.push(toWaveform('steady-state', run.waveforms.primaryA, 'I(Lp)', 'A'));
+  if (run.discharge) {
+    waveforms.push(toWaveform('discharge', run.discharge.output));
+    for (const [capacitor, trace] of Object.entries(run.discharge.capacitorVoltagesV)) {
+      waveforms.push(toWaveform('discharge', trace, `V(${capacitor})`));
+    }
+  }
+  return { summary, waveforms };
+}
+
 function simulate(task: SimulationTask): SimulationResult {
   const { document: design, options, kind } = task;
   let postedPct = 0;
+  const post = (fraction: number): void => {
+    const progressPct = Math.floor(fraction * 100);
+    if (progressPct <= postedPct) return;
+    postedPct = progressPct;
+    task.progressPort.postMessage({ progressPct } satisfies SimulationProgressMessage);
+  };
+  if (design.drive.kind === 'driver') return simulateDriver(task, post);
   const isDischarge = kind === 'discharge' || kind === 'full';
   const run = runLadder(ladderSpecFromDesign(design), {
     until: options.cycles !== undefined ? { cycles: options.cycles } : 'steady',
     maxStepPerPeriod: options.maxStepPerPeriod ?? DEFAULT_MAX_STEP_PER_PERIOD,
     plotBuckets: PLOT_BUCKETS,
-    onProgress: (fraction) => {
-      const progressPct = Math.floor(fraction * 100);
-      if (progressPct <= postedPct) return;
-      postedPct = progressPct;
-      task.progressPort.postMessage({ progressPct } satisfies SimulationProgressMessage);
-    },
+    onProgress: post,
     shouldCancel: () => Atomics.load(task.cancelFlag, 0) === 1,
     ...(isDischarge ? { dischargeToV: dischargeVoltageV(design.targets.dischargeRule) } : {}),
   });

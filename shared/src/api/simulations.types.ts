@@ -13,6 +13,8 @@ export interface SimulationOptions {
   maxStepPerPeriod?: number;
   /** Drive periods of the start-up transient (1 … 20000); without it the run goes on until the output settles. */
   cycles?: number;
+  /** Driver designs: length of the push-button start-up from an empty ladder (s, 1e-4 … 0.1, default 2e-3). */
+  startUpWindowS?: number;
 }
 
 /**
@@ -40,7 +42,10 @@ export type WaveformPhase = 'startup' | 'steady-state' | 'discharge';
  * sample, so the peaks of the full-resolution trace are always among `values`.
  */
 export interface WaveformTrace {
-  /** 'V(top)' for the ladder output voltage; 'V(C3)' for the voltage across capacitor C3 (discharge). */
+  /**
+   * 'V(top)' for the ladder output voltage; 'V(C3)' for the voltage across capacitor C3 (discharge); for a
+   * driver design also 'V(col)' collector, 'V(s)' secondary and 'I(Lp)' primary current (steady state).
+   */
   name: string;
   phase: WaveformPhase;
   unit: 'V' | 'A';
@@ -59,6 +64,8 @@ export interface SimulationSummary {
   cyclesSimulated: number;
   /** How the steady-state figures were obtained. */
   method: 'transient' | 'periodic-steady-state';
+  /** Driver designs: the blocking oscillator's frequency at steady state (Hz); absent for a sine or pulse drive. */
+  oscillationFrequencyHz?: number | null;
 }
 
 export interface SimulationResult {

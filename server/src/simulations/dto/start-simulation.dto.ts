@@ -1,6 +1,6 @@
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
 import { Type } from 'class-transformer';
-import { IsDefined, IsInt, IsObject, IsOptional, IsString, IsUUID, Max, Min, ValidateNested } from 'class-validator';
+import { IsDefined, IsInt, IsNumber, IsObject, IsOptional, IsString, IsUUID, Max, Min, ValidateNested } from 'class-validator';
 import type { SimulationKind, SimulationOptions, StartSimulationRequest } from '@ladderwright/shared/api';
 import type { Design } from '@ladderwright/shared/designs';
 
@@ -20,6 +20,13 @@ export class SimulationOptionsDto implements SimulationOptions {
   @Min(1, { message: 'options.cycles must be at least 1' })
   @Max(20000, { message: 'options.cycles must be at most 20000' })
   cycles?: number;
+
+  @ApiPropertyOptional({ example: 0.002, description: 'Driver designs: seconds of the push-button start-up from an empty ladder.' })
+  @IsOptional()
+  @IsNumber({}, { message: 'options.startUpWindowS must be a number (seconds)' })
+  @Min(1e-4, { message: 'options.startUpWindowS must be at least 1e-4 s' })
+  @Max(0.1, { message: 'options.startUpWindowS must be at most 0.1 s' })
+  startUpWindowS?: number;
 }
 
 /** The kind is checked by the service (the list depends on the environment); the document by validateDesign. */
