@@ -11,7 +11,7 @@ import {
   XAxis,
   YAxis,
 } from 'recharts';
-import type { StartSimulationRequest, WaveformPhase, WaveformTrace } from '@ladderwright/shared/api';
+import type { SimulationSummary, StartSimulationRequest, WaveformPhase, WaveformTrace } from '@ladderwright/shared/api';
 import { formatQuantity } from '@ladderwright/shared/units';
 import { quantityTickFormatter } from '../../../lib/tick-format';
 import { useCancelSimulation } from '../api/cancel-simulation';
@@ -24,8 +24,16 @@ export interface WaveformsPanelProps {
   source: Omit<StartSimulationRequest, 'kind'>;
   /** Drive frequency, to cut one cycle out of the steady-state trace. */
   frequencyHz: number;
-  /** The design's safe touch level, drawn on the discharge plot. */
+  /** The design's safe touch level; the discharge plot draws the run's own level when its result gives one. */
   safeVoltageV: number;
+}
+
+/** The safe level to draw on a run's discharge plot: the level the run discharged to, else the design's target. */
+export function dischargeSafeLevelV(
+  summary: Pick<SimulationSummary, 'safeVoltageV'>,
+  targetSafeVoltageV: number,
+): number {
+  return summary.safeVoltageV ?? targetSafeVoltageV;
 }
 
 const traceColors = [
@@ -96,7 +104,11 @@ export function WaveformsPanel({ projectId, source, frequencyHz, safeVoltageV }:
             <Summary label="Output (mean)" value={result.summary.outputMeanV} unit="V" />
             <Summary label="Ripple (peak-to-peak)" value={result.summary.ripplePeakToPeakV} unit="V" />
             <Summary label="Time to steady state" value={result.summary.timeToSteadyStateS} unit="s" />
-            <Summary label="Discharge to safe level" value={result.summary.dischargeTimeS} unit="s" />
+            <Summary
+              label={`Discharge to ${formatQuantity(dischargeSafeLevelV(result.summary, safeVoltageV), 'V')}`}
+              value={result.summary.dischargeTimeS}
+              unit="s"
+            />
             <Text size="xs" c="dimmed">
               {result.summary.method}, {result.summary.cyclesSimulated} cycles
             </Text>
@@ -104,7 +116,12 @@ export function WaveformsPanel({ projectId, source, frequencyHz, safeVoltageV }:
           <SimpleGrid cols={{ base: 1, lg: 3 }} spacing="md">
             <TraceChart title="Start-up" traces={tracesOf('startup')} isTimeFromZero />
             <TraceChart title="Ripple over one cycle" traces={lastCycle(tracesOf('steady-state'), frequencyHz)} />
-            <TraceChart title="Discharge" traces={tracesOf('discharge')} safeVoltageV={safeVoltageV} isTimeFromZero />
+            <TraceChart
+              title="Discharge"
+              traces={tracesOf('discharge')}
+              safeVoltageV={dischargeSafeLevelV(result.summary, safeVoltageV)}
+              isTimeFromZero
+            />
           </SimpleGrid>
         </>
       )}
