@@ -99,6 +99,7 @@ export function analyzeLadderReport(input: LadderInput, options: LadderReportOpt
     checks,
     methods: [
       analysis.method,
+      analysis.nodeMethod,
       analysis.textbook.method,
       curves.method,
       STORED_ENERGY_METHOD,

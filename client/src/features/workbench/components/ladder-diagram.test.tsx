@@ -1,4 +1,4 @@
-import { screen } from '@testing-library/react';
+import { fireEvent, screen } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { type Design, designExamples } from '@ladderwright/shared/designs';
 import { analyzeDesign } from '@ladderwright/shared/multiplier';
@@ -15,5 +15,14 @@ describe('LadderDiagram', () => {
     for (const node of ladderNodes) {
       expect(screen.getByLabelText(`node ${node.label} mean`).textContent).toBe(formatQuantity(node.meanV, 'V', 3));
     }
+  });
+
+  it('shows the engine’s node-voltage method in the diagram’s info popover, as listed among the report’s methods', async () => {
+    const report = analyzeDesign(designExamples.detectorBias as Design);
+    expect(report.methods).toContainEqual(report.analysis.nodeMethod);
+    renderWithApp(<LadderDiagram report={report} />);
+    fireEvent.click(screen.getByRole('button', { name: 'How each node voltage is computed' }));
+    expect(await screen.findByText(report.analysis.nodeMethod.methodId)).toBeTruthy();
+    expect(screen.getByText(report.analysis.nodeMethod.summary)).toBeTruthy();
   });
 });

@@ -1,6 +1,7 @@
-import { Paper, Text } from '@mantine/core';
+import { Group, Paper, Text } from '@mantine/core';
 import type { CapacitorStress, DesignReport, LadderNodeVoltage } from '@ladderwright/shared/multiplier';
 import { formatQuantity } from '@ladderwright/shared/units';
+import { MethodNote } from './method-note';
 
 export interface LadderDiagramProps {
   report: DesignReport;
@@ -43,9 +44,13 @@ export function LadderDiagram({ report }: LadderDiagramProps) {
 
   return (
     <Paper withBorder p="sm" role="figure" aria-label="Ladder diagram">
-      <Text size="sm" fw={600} mb={4}>
-        Ladder ({report.analysis.topology}, {report.analysis.cellCount} cells, {stageCount} stages)
-      </Text>
+      <Group justify="space-between" mb={4} wrap="nowrap">
+        <Text size="sm" fw={600}>
+          Ladder ({report.analysis.topology}, {report.analysis.cellCount} cells, {stageCount} stages)
+        </Text>
+        {/* A report stored before node voltages were computed has no node method. */}
+        <MethodNote subject="each node voltage" method={report.analysis.nodeMethod ?? null} />
+      </Group>
       <div style={{ overflowX: 'auto' }}>
         <svg
           width={width}
