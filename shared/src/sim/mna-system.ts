@@ -4,7 +4,7 @@ import { GROUND_NODE } from './circuit.types';
 import { evaluateNpn, type NpnOperatingPoint } from './devices/bjt';
 import { inductanceMatrix } from './devices/coupled-inductors';
 import { evaluateDiode, solveSeriesJunctionV, type DiodeOperatingPoint } from './devices/diode';
-import { criticalVoltageV, depletionCharge, limitJunctionVoltage, THERMAL_VOLTAGE_V, wasLimited } from './devices/junction';
+import { criticalVoltageV, depletionCharge, JUNCTION_GMIN_S, limitJunctionVoltage, THERMAL_VOLTAGE_V, wasLimited } from './devices/junction';
 import { BandedLu } from './solver/banded-lu';
 import { reverseCuthillMcKee } from './solver/node-ordering';
 import { nextWaveformBreakpoint, waveformValue } from './source-waveforms';
@@ -16,6 +16,7 @@ const npnAt = evaluateNpn;
 const limitJunction = limitJunctionVoltage;
 const lastWasLimited = wasLimited;
 const depletionAt = depletionCharge;
+const junctionGminS = JUNCTION_GMIN_S;
 
 /**
  * Modified nodal analysis of a Circuit (C.-W. Ho, A. E. Ruehli and P. A. Brennan, IEEE Trans. Circuits
@@ -81,6 +82,9 @@ export class MnaSystem {
   /** Extra conductance from every node to ground, used by gmin stepping. */
   shuntConductanceS = 0;
   private readonly nodeDiagonalOffsets: Int32Array;
+  /** a0 and switch states of the present linearBand (NaN: not built yet). */
+  private preparedA0 = NaN;
+  private preparedKey = '';
 
   constructor(circuit: Circuit) {
     const elements = circuit.elements;
@@ -333,6 +337,10 @@ export class MnaSystem {
   /** Builds G + a0·C for a step ending at timeS (switch states as they are during that step). */
   prepareLinearMatrix(a0: number, stepEndS: number): void {
     const key = this.switchKeyAt(stepEndS);
+    // Same step length and switch states as the last call (the usual case at the maximum step): unchanged.
+    if (a0 === this.preparedA0 && key === this.preparedKey) return;
+    this.preparedA0 = a0;
+    this.preparedKey = key;
     const lb = this.linearBand;
     const gb = this.conductanceBand;
     const cb = this.reactanceBand;
@@ -426,10 +434,29 @@ export class MnaSystem {
 
   restoreJunctionState(from: Float64Array): void {
     let k = 0;
-    for (const d of this.diodes) d.lastV = from[k++]!;
+    for (const d of this.diodes) {
+      d.lastV = from[k++]!;
+      d.hasPrediction = false;
+      d.isLastLoadStale = true;
+    }
     for (const q of this.npns) {
       q.lastVbe = from[k++]!;
       q.lastVbc = from[k++]!;
+    }
+  }
+
+  /**
+   * Predictor for the first load of a step: each folded diode is linearized there at its junction voltage
+   * extrapolated from the last two accepted points (v0 + ratio·(v0 − v−1), pnjlim-limited against v0), not
+   * at the terminal voltage of the predicted unknowns. The junction voltage of a conducting diode is a
+   * logarithm of its current and moves slowly; its terminal voltage adds Rs·I and follows the current
+   * pulse (the MODEINITPRED junction prediction of SPICE3's dioload). States as saveJunctionState writes them.
+   */
+  predictJunctions(current: Float64Array, previous: Float64Array, ratio: number): void {
+    let k = 0;
+    for (const d of this.diodes) {
+      d.predict(current[k]!, previous[k]!, ratio);
+      k++;
     }
   }
 
@@ -477,6 +504,15 @@ class CompiledDiode {
   private readonly foldedOhm: number;
   /** Terminal voltage at the last load, for the device convergence test of a folded diode. */
   private lastTerminalV = 0;
+  /** Junction conductance at the last load of a folded diode (for the next local solve's starting point). */
+  private lastJunctionG = 0;
+  /** Predicted junction voltage for the next load, when hasPrediction (folded diodes only). */
+  predictedV = 0;
+  hasPrediction = false;
+  /** Set by a state restore: lastI, lastTerminalV and lastJunctionG do not belong to lastV. */
+  isLastLoadStale = false;
+  /** No breakdown knee: below −3·n·Vt the junction is the smooth leak of evaluateDiode's reverse branch. */
+  private readonly reverseLeakOnly: boolean;
 
   constructor(
     name: string,
@@ -491,6 +527,7 @@ class CompiledDiode {
     this.offsets = junctionOffsets(lu, junction, cathode);
     this.hasCharge = (model.junctionCapacitanceF ?? 0) > 0 || (model.transitTimeS ?? 0) > 0;
     this.foldedOhm = hasInternalNode(model) ? 0 : model.seriesResistanceOhm;
+    this.reverseLeakOnly = !((model.breakdownVoltageV ?? 0) > 0);
     this.reactive = this.hasCharge ? addReactive(`${name}.junction`, junction, cathode, [[junction, 0], [cathode, 0]], 0) : -1;
   }
 
@@ -543,16 +580,64 @@ class CompiledDiode {
    * conducts I with dI/du = g/(1 + Rs·g).
    */
   private loadFolded(x: Float64Array, band: Float64Array, rhs: Float64Array, out: DiodeOperatingPoint): boolean {
-    const u = x[this.junction]! - x[this.cathode]!;
     const rs = this.foldedOhm;
-    const v = solveJunction(this.model, u, this.lastV, out);
-    const g = out.conductanceS / (1 + rs * out.conductanceS);
+    const isPredicted = this.hasPrediction;
+    this.hasPrediction = false;
+    if (isPredicted) diodeAt(this.model, this.predictedV, out);
+    if (isPredicted && Number.isFinite(out.currentA) && Number.isFinite(out.conductanceS)) {
+      // Linearized at the predicted junction voltage v: the point (u, I) = (v + Rs·I(v), I(v)) of the curve.
+      const v = this.predictedV;
+      return this.stampFolded(band, rhs, v + rs * out.currentA, v, out.currentA, out.conductanceS);
+    }
+    const u = x[this.junction]! - x[this.cathode]!;
+    const vte = this.vte;
+    // After a restored state the last load's current and terminal voltage belong to an abandoned iterate:
+    // start from the junction voltage alone.
+    const isStale = this.isLastLoadStale;
+    this.isLastLoadStale = false;
+    if (!isStale && this.reverseLeakOnly && u < -6 * vte && this.lastV < -3 * vte) {
+      // Reverse junction without breakdown: the leak I(v) = −Is·(1 + (3·n·Vt/(e·v))³) + gmin·v is nearly
+      // linear, so one Newton step of v + Rs·I(v) = u from v0 = u − Rs·I_last leaves a residual of the
+      // order of Rs·I″·Δv² (far below a femtovolt): the local solve in one evaluation, inline.
+      const v0 = u - rs * this.lastI;
+      if (v0 < -3 * vte) {
+        const arg = (3 * vte) / (v0 * Math.E);
+        const arg3 = arg * arg * arg;
+        const is = this.model.saturationCurrentA;
+        const gj = (is * 3 * arg3) / v0 + junctionGminS;
+        let i = -is * (1 + arg3) + junctionGminS * v0;
+        const dv = -(v0 + rs * i - u) / (1 + rs * gj);
+        i += gj * dv;
+        return this.stampFolded(band, rhs, u, v0 + dv, i, gj);
+      }
+    }
+    // Start the local solve at the Newton step from the last junction point (v moves by du/(1 + Rs·gj)):
+    // a reverse junction, near linear, then needs one evaluation, a conducting one one fewer.
+    const v = solveJunction(this.model, u, isStale ? this.lastV : this.lastV + (u - this.lastTerminalV) / (1 + rs * this.lastJunctionG), out);
+    return this.stampFolded(band, rhs, u, v, out.currentA, out.conductanceS);
+  }
+
+  /** Records and stamps a folded diode linearized at terminal u, junction v, current i, junction conductance gj. */
+  private stampFolded(band: Float64Array, rhs: Float64Array, u: number, v: number, i: number, gj: number): boolean {
+    const g = gj / (1 + this.foldedOhm * gj);
+    this.lastJunctionG = gj;
     this.lastV = v;
     this.lastTerminalV = u;
-    this.lastI = out.currentA;
+    this.lastI = i;
     this.lastG = g;
-    stampJunction(band, rhs, this.offsets, this.junction, this.cathode, g, out.currentA - g * u);
+    stampJunction(band, rhs, this.offsets, this.junction, this.cathode, g, i - g * u);
     return false;
+  }
+
+  /** Sets the junction voltage the next load of a folded diode linearizes at (see MnaSystem.predictJunctions). */
+  predict(current: number, previous: number, ratio: number): void {
+    // Folded diodes without a breakdown knee only: a junction extrapolated past the knee would need the
+    // knee's own limiting, and a load after a restore starts from the junction voltage alone.
+    if (this.foldedOhm <= 0 || !this.reverseLeakOnly || this.isLastLoadStale) return;
+    const v = limitJunction(current + ratio * (current - previous), current, this.vte, this.vcrit);
+    if (!Number.isFinite(v)) return;
+    this.predictedV = v;
+    this.hasPrediction = true;
   }
 
   /** SPICE's device test: the linearized current change to the new solution is within tolerance. */

@@ -102,6 +102,7 @@ export class TransientStepper {
   private readonly x0: Float64Array;
   private readonly xm1: Float64Array;
   private readonly junction0: Float64Array;
+  private readonly junctionM1: Float64Array;
   private stepS: number;
   private previousStepS = 0;
   private useBackwardEulerNext = true;
@@ -121,6 +122,7 @@ export class TransientStepper {
     this.x0 = new Float64Array(system.size + 1);
     this.xm1 = new Float64Array(system.size + 1);
     this.junction0 = new Float64Array(system.junctionStateLength);
+    this.junctionM1 = new Float64Array(system.junctionStateLength);
     this.timeS = options.startTimeS ?? 0;
     this.stepS = this.maxStepS / 100;
     this.nextBreakS = system.nextBreakpoint(this.timeS);
@@ -134,6 +136,7 @@ export class TransientStepper {
     this.x0.set(this.system.x);
     this.xm1.set(this.system.x);
     this.system.saveJunctionState(this.junction0);
+    this.junctionM1.set(this.junction0);
     this.restart();
   }
 
@@ -146,6 +149,7 @@ export class TransientStepper {
     this.x0.set(this.system.x);
     this.xm1.set(this.system.x);
     this.system.saveJunctionState(this.junction0);
+    this.junctionM1.set(this.junction0);
     this.restart();
   }
 
@@ -182,6 +186,7 @@ export class TransientStepper {
       if (this.acceptedSteps > 1 && this.previousStepS > 0 && !isEuler) {
         const ratio = h / this.previousStepS;
         for (let i = 0; i < sys.size; i++) x[i] = this.x0[i]! + ratio * (this.x0[i]! - this.xm1[i]!);
+        sys.predictJunctions(this.junction0, this.junctionM1, ratio);
       } else x.set(this.x0);
       const iterations = solveNewton(sys, a0, tol, tol.maxNewtonIterations);
       if (iterations < 0) {
@@ -284,6 +289,7 @@ export class TransientStepper {
     this.historyCount = Math.min(3, this.historyCount + 1);
     this.xm1.set(this.x0);
     this.x0.set(sys.x);
+    this.junctionM1.set(this.junction0);
     sys.saveJunctionState(this.junction0);
     this.previousStepS = h;
     this.timeS = t1;

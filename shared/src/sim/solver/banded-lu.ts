@@ -19,6 +19,8 @@ export class BandedLu {
   readonly band: Float64Array;
   readonly groundOffset: number;
   private readonly pivots: Int32Array;
+  /** Reciprocal of each pivot of U, from the last factorization (the solve multiplies, never divides). */
+  private readonly inversePivots: Float64Array;
   private readonly diagonalRow: number;
 
   constructor(size: number, lowerBandwidth: number, upperBandwidth: number) {
@@ -30,6 +32,7 @@ export class BandedLu {
     this.groundOffset = size * this.columnStride;
     this.band = new Float64Array(this.groundOffset + 1);
     this.pivots = new Int32Array(size);
+    this.inversePivots = new Float64Array(size);
   }
 
   /** Offset of matrix entry (row, col) in `band`; `groundOffset` when either index is the ground (≥ size). */
@@ -79,6 +82,7 @@ export class BandedLu {
         }
       }
       const inv = 1 / a[colJ]!;
+      this.inversePivots[j] = inv;
       for (let t = 1; t <= km; t++) a[colJ + t]! *= inv;
       for (let c = j + 1; c <= ju; c++) {
         const p = c * ld + kv + j - c;
@@ -98,6 +102,7 @@ export class BandedLu {
     const kv = this.diagonalRow;
     const kvU = this.lowerBandwidth + this.upperBandwidth;
     const a = this.band;
+    const inverse = this.inversePivots;
     for (let j = 0; j < n; j++) {
       const p = this.pivots[j]!;
       let bj = b[p]!;
@@ -113,7 +118,7 @@ export class BandedLu {
     }
     for (let j = n - 1; j >= 0; j--) {
       const colJ = j * ld + kv;
-      const xj = b[j]! / a[colJ]!;
+      const xj = b[j]! * inverse[j]!;
       b[j] = xj;
       if (xj !== 0) {
         const i0 = Math.max(0, j - kvU);
