@@ -187,4 +187,28 @@ describe('workbench journey', () => {
     expect(await page.getByLabel('Name', { exact: true }).inputValue()).toMatch(/^Sizer: /);
     expect(pageErrors).toEqual([]);
   }, 120_000);
+
+  it('shows a driver design’s Driver tab and previews a driver edit off the page’s thread', async () => {
+    await signInAsDemo(page, 'engineer@northfold.test');
+    await page.getByRole('main').getByRole('link', { name: 'Handheld surface-charge tester' }).first().click();
+    await page.getByRole('heading', { name: 'Designs', level: 2 }).waitFor();
+    await page.getByRole('main').getByRole('link', { name: 'Handheld surface-charge tester' }).first().click();
+    await page.getByRole('heading', { name: 'Workbench', level: 1 }).waitFor();
+    await page.getByRole('tab', { name: 'Driver' }).click();
+    const curve = page.getByRole('figure', { name: 'Driver output vs load current' });
+    await curve.locator('path.recharts-line-curve').waitFor();
+    expect(await curve.locator('[data-driver="power-limit-onset"]').textContent()).toMatch(/Rated load/);
+    await shot(page, 'workbench-09-driver.png');
+    await curve.screenshot({ path: resolve(screenshotDir, 'workbench-09-driver-curve.png') });
+
+    // A driver edit goes through the live-analysis worker and comes back as a preview.
+    const before = await figureValue(page, 'output');
+    await page.getByLabel('Secondary turns').fill('1000');
+    await page.getByText('live preview (unsaved edits)').waitFor();
+    await expect.poll(() => figureValue(page, 'output'), { timeout: 10_000 }).not.toBe(before);
+    await page.getByLabel('Primary inductance').fill('0 H');
+    await page.getByText('primary inductance must be positive').first().waitFor();
+    await shot(page, 'workbench-10-driver-issue.png');
+    expect(pageErrors).toEqual([]);
+  }, 120_000);
 });

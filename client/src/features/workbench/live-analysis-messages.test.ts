@@ -30,14 +30,14 @@ describe('answerLiveAnalysis', () => {
     expect(Object.keys(result.issues)).toContain('targets.rippleMaxV');
   });
 
-  it('returns the driver stage’s refusal under its document path, with the message as the engine error', () => {
+  it('returns the driver stage’s refusal under its document path, beside the field rather than as an engine error', () => {
     const { result } = answerLiveAnalysis({
       sequence: 2,
       document: withPrimaryInductance(designExamples.surfaceChargeTester, 0),
     });
     expect(result.report).toBeNull();
     expect(result.issues['drive.driver.transformer.primaryInductanceH']).toBe('primary inductance must be positive');
-    expect(result.engineError).toBe('primary inductance must be positive');
+    expect(result.engineError).toBeNull();
   });
 
   it('lists a part code the shelf does not hold as a part issue and still reports', () => {

@@ -55,14 +55,10 @@ export function answerLiveAnalysis({ sequence, document, shelf }: LiveAnalysisRe
     const { partIssues, ...report } = analyzeWithShelf(valid, shelf);
     return { sequence, result: { report, issues: {}, engineError: null, partIssues } };
   } catch (error) {
-    return {
-      sequence,
-      result: {
-        report: null,
-        issues: issuesOf(error),
-        engineError: error instanceof Error ? error.message : String(error),
-        partIssues: none,
-      },
-    };
+    const issues = issuesOf(error);
+    // A refusal tied to a field is shown beside that field; only the rest is an engine error.
+    const isFieldIssue = Object.keys(issues).length > 0;
+    const engineError = isFieldIssue ? null : error instanceof Error ? error.message : String(error);
+    return { sequence, result: { report: null, issues, engineError, partIssues: none } };
   }
 }

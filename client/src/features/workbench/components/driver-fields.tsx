@@ -310,7 +310,7 @@ export function DriverFields({ driver, onDriver, issue }: DriverFieldsProps) {
           />
         ))}
         <DriverQuantity
-          label="Insulation rating (secondary to low-voltage windings)"
+          label="Secondary insulation rating"
           unit="V"
           value={tx.insulation?.ratedVoltageV ?? Number.NaN}
           path="transformer.insulation.ratedVoltageV"

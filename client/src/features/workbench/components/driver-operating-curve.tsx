@@ -46,7 +46,7 @@ export function DriverOperatingCurve({ operatingPoint: op }: DriverOperatingCurv
       </Group>
       <div style={{ width: '100%', height: 240 }}>
         <ResponsiveContainer>
-          <LineChart data={points} margin={{ top: 16, right: 16, bottom: 16, left: 8 }}>
+          <LineChart data={points} margin={{ top: 24, right: 24, bottom: 16, left: 8 }}>
             <CartesianGrid strokeDasharray="2 4" />
             <XAxis
               dataKey="x"
@@ -65,7 +65,7 @@ export function DriverOperatingCurve({ operatingPoint: op }: DriverOperatingCurv
               x={op.powerLimitOnsetA}
               stroke="var(--mantine-color-ember-7)"
               strokeDasharray="4 3"
-              label={{ value: 'power limit from here', fontSize: 10, position: 'insideTopRight' }}
+              label={{ value: 'power limit from here', fontSize: 10, position: 'top' }}
             />
             <Line
               type="monotone"
@@ -82,7 +82,7 @@ export function DriverOperatingCurve({ operatingPoint: op }: DriverOperatingCurv
               r={5}
               fill="var(--mantine-color-ember-6)"
               stroke="none"
-              label={{ value: 'rated load', position: 'top', fontSize: 10 }}
+              label={{ value: 'rated load', position: 'bottom', fontSize: 10 }}
             />
           </LineChart>
         </ResponsiveContainer>
