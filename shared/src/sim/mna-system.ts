@@ -511,6 +511,10 @@ class CompiledDiode {
   hasPrediction = false;
   /** Set by a state restore: lastI, lastTerminalV and lastJunctionG do not belong to lastV. */
   isLastLoadStale = false;
+  /** Terminal voltage below which a folded junction is a linear leak (see loadFolded); −Infinity if none. */
+  private readonly farReverseV: number;
+  private readonly farReverseScale: number;
+  private readonly farReverseG: number;
   /** No breakdown knee: below −3·n·Vt the junction is the smooth leak of evaluateDiode's reverse branch. */
   private readonly reverseLeakOnly: boolean;
 
@@ -528,6 +532,10 @@ class CompiledDiode {
     this.hasCharge = (model.junctionCapacitanceF ?? 0) > 0 || (model.transitTimeS ?? 0) > 0;
     this.foldedOhm = hasInternalNode(model) ? 0 : model.seriesResistanceOhm;
     this.reverseLeakOnly = !((model.breakdownVoltageV ?? 0) > 0);
+    const rs = this.foldedOhm;
+    this.farReverseV = this.reverseLeakOnly && rs > 0 ? -(3 * this.vte) / (Math.E * 1e-3) - rs * model.saturationCurrentA : -Infinity;
+    this.farReverseScale = 1 / (1 + rs * JUNCTION_GMIN_S);
+    this.farReverseG = JUNCTION_GMIN_S / (1 + rs * JUNCTION_GMIN_S);
     this.reactive = this.hasCharge ? addReactive(`${name}.junction`, junction, cathode, [[junction, 0], [cathode, 0]], 0) : -1;
   }
 
@@ -587,7 +595,7 @@ class CompiledDiode {
     if (isPredicted && Number.isFinite(out.currentA) && Number.isFinite(out.conductanceS)) {
       // Linearized at the predicted junction voltage v: the point (u, I) = (v + Rs·I(v), I(v)) of the curve.
       const v = this.predictedV;
-      return this.stampFolded(band, rhs, v + rs * out.currentA, v, out.currentA, out.conductanceS);
+      return this.stampFolded(band, rhs, v + rs * out.currentA, v, out.currentA, out.conductanceS, out.conductanceS / (1 + rs * out.conductanceS));
     }
     const u = x[this.junction]! - x[this.cathode]!;
     const vte = this.vte;
@@ -595,6 +603,13 @@ class CompiledDiode {
     // start from the junction voltage alone.
     const isStale = this.isLastLoadStale;
     this.isLastLoadStale = false;
+    if (u < this.farReverseV) {
+      // Far in reverse (|3·n·Vt/(e·v)| < 1e-3) the leak is −Is·(1 + ε) + gmin·v with ε < 1e-9: linear, and
+      // v + Rs·I(v) = u solved exactly with the constants of the constructor (no division).
+      const is = this.model.saturationCurrentA;
+      const v = (u + rs * is) * this.farReverseScale;
+      return this.stampFolded(band, rhs, u, v, junctionGminS * v - is, junctionGminS, this.farReverseG);
+    }
     if (!isStale && this.reverseLeakOnly && u < -6 * vte && this.lastV < -3 * vte) {
       // Reverse junction without breakdown: the leak I(v) = −Is·(1 + (3·n·Vt/(e·v))³) + gmin·v is nearly
       // linear, so one Newton step of v + Rs·I(v) = u from v0 = u − Rs·I_last leaves a residual of the
@@ -608,18 +623,20 @@ class CompiledDiode {
         let i = -is * (1 + arg3) + junctionGminS * v0;
         const dv = -(v0 + rs * i - u) / (1 + rs * gj);
         i += gj * dv;
-        return this.stampFolded(band, rhs, u, v0 + dv, i, gj);
+        return this.stampFolded(band, rhs, u, v0 + dv, i, gj, gj / (1 + rs * gj));
       }
     }
     // Start the local solve at the Newton step from the last junction point (v moves by du/(1 + Rs·gj)):
     // a reverse junction, near linear, then needs one evaluation, a conducting one one fewer.
     const v = solveJunction(this.model, u, isStale ? this.lastV : this.lastV + (u - this.lastTerminalV) / (1 + rs * this.lastJunctionG), out);
-    return this.stampFolded(band, rhs, u, v, out.currentA, out.conductanceS);
+    return this.stampFolded(band, rhs, u, v, out.currentA, out.conductanceS, out.conductanceS / (1 + rs * out.conductanceS));
   }
 
-  /** Records and stamps a folded diode linearized at terminal u, junction v, current i, junction conductance gj. */
-  private stampFolded(band: Float64Array, rhs: Float64Array, u: number, v: number, i: number, gj: number): boolean {
-    const g = gj / (1 + this.foldedOhm * gj);
+  /**
+   * Records and stamps a folded diode linearized at terminal u: junction v, current i, junction conductance
+   * gj, terminal conductance g = gj/(1 + Rs·gj).
+   */
+  private stampFolded(band: Float64Array, rhs: Float64Array, u: number, v: number, i: number, gj: number, g: number): boolean {
     this.lastJunctionG = gj;
     this.lastV = v;
     this.lastTerminalV = u;

@@ -213,24 +213,33 @@ export class TransientStepper {
         const tm2 = this.tHistory[2]!;
         const factor = this.method === 'trapezoidal' ? 1 / 12 : 2 / 9;
         const hist = sys.hist;
+        // Divided differences with the step reciprocals formed once; the bound on h² is minimized over the
+        // charges and its root taken once.
+        const r10 = 1 / (t1 - t0);
+        const r01 = 1 / (t0 - tm1);
+        const r12 = 1 / (tm1 - tm2);
+        const s1 = 1 / (t1 - tm1);
+        const s2 = 1 / (t0 - tm2);
+        const s3 = (6 * factor) / (t1 - tm2);
+        const chargeScale = tol.relative / h;
+        let boundH2 = Infinity;
         for (let k = 0; k < sys.reactiveCount; k++) {
           const qa = q1[k]!;
           const qb = this.q0[k]!;
           const qc = this.qm1[k]!;
           const qe = this.qm2[k]!;
-          const d1a = (qa - qb) / (t1 - t0);
-          const d1b = (qb - qc) / (t0 - tm1);
-          const d1c = (qc - qe) / (tm1 - tm2);
-          const d2a = (d1a - d1b) / (t1 - tm1);
-          const d2b = (d1b - d1c) / (t0 - tm2);
-          const third = (6 * (d2a - d2b)) / (t1 - tm2);
+          const d1a = (qa - qb) * r10;
+          const d1b = (qb - qc) * r01;
+          const d1c = (qc - qe) * r12;
+          const err = Math.abs((d1a - d1b) * s1 - (d1b - d1c) * s2) * s3;
+          if (!(err > 0)) continue;
           const i1 = a0 * qa + hist[k]!;
           const currentTol = tol.currentAbsoluteA + tol.relative * Math.max(Math.abs(i1), Math.abs(this.qd0[k]!));
-          const chargeTol = (tol.relative * Math.max(Math.abs(qa), Math.abs(qb), tol.chargeAbsoluteC)) / h;
+          const chargeTol = chargeScale * Math.max(Math.abs(qa), Math.abs(qb), tol.chargeAbsoluteC);
           const allowed = tol.truncationErrorFactor * Math.max(currentTol, chargeTol);
-          const err = factor * Math.abs(third);
-          if (err > 0) hNew = Math.min(hNew, Math.sqrt(allowed / err));
+          if (allowed < boundH2 * err) boundH2 = allowed / err;
         }
+        hNew = Math.sqrt(boundH2);
         if (hNew < 0.9 * h) {
           this.rejectedSteps++;
           sys.restoreJunctionState(this.junction0);
