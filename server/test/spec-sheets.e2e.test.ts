@@ -4,6 +4,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import request from 'supertest';
 import type { DesignDetail } from '@ladderwright/shared/api';
+import type { DesignReport } from '@ladderwright/shared/multiplier';
+import { RevisionModel } from '../src/revisions/revision.model';
 import { createDesign } from './factories/create-design';
 import { createProject, type TestProject } from './factories/create-project';
 import { createUser, type TestUser } from './factories/create-user';
@@ -27,6 +29,7 @@ function pdfText(pdf: Buffer): string {
 // engineer, lead) and issue 6 (NOT RELEASED on every page of a sheet that is not released): common practice, no source.
 describe('spec sheets', () => {
   let testApp: TestApp;
+  let dataDir: string;
   const http = () => request(testApp.app.getHttpServer());
   let engineer: TestUser;
   let reviewer: TestUser;
@@ -63,7 +66,8 @@ describe('spec sheets', () => {
   }
 
   beforeAll(async () => {
-    testApp = await createTestApp();
+    dataDir = mkdtempSync(join(tmpdir(), 'lw-sheet-data-'));
+    testApp = await createTestApp({ env: { dataDir } });
     engineer = await createUser(testApp, { role: 'engineer', displayName: 'Edda Engineer' });
     reviewer = await createUser(testApp, { role: 'reviewer', displayName: 'Rolf Reviewer' });
     lead = await createUser(testApp, { role: 'lead', displayName: 'Lena Lead' });
@@ -78,7 +82,82 @@ describe('spec sheets', () => {
     );
     await cookies.signIn(testApp, [engineer, reviewer, lead, outsider]);
   });
-  afterAll(async () => testApp.close());
+  afterAll(async () => {
+    await testApp.close();
+    rmSync(dataDir, { recursive: true, force: true });
+  });
+
+  /** A load-sweep CSV (µA, V) 1 % below the revision's predicted regulation curve at three of its points. */
+  async function sweepBelowPrediction(design: { id: string }): Promise<Buffer> {
+    const revision = await RevisionModel.findOne({ where: { designId: design.id, number: 1 } });
+    const report = revision?.report as unknown as DesignReport | undefined;
+    const curve = (report?.curves.regulation ?? []).filter((point) => point.x > 0).slice(0, 3);
+    expect(curve).toHaveLength(3);
+    const lines = curve.map(
+      (point) => `${(point.x * 1e6).toPrecision(12)},${(Math.abs(point.y) * 0.99).toPrecision(12)}`,
+    );
+    return Buffer.from(['current (uA),voltage (V)', ...lines].join('\n') + '\n');
+  }
+
+  // Bench-run verdicts: deviation (measured − predicted)/predicted, margin (tolerance − worst)/tolerance
+  // (shared/src/bench/compare-bench-run.ts). 1 % below the curve at ±5 %: (0.05 − 0.01)/0.05 = 80 % (worked by hand).
+  it('lists the bench runs of the revision with file, hash, uploader, verdict and margin, and plots the sweep', async () => {
+    const design = await released('detectorBias', 'Detector tube bias, bench');
+    const csv = await sweepBelowPrediction(design);
+    const upload = await http()
+      .post(`${base(design)}/bench-runs`)
+      .set('Cookie', as(engineer))
+      .field('kind', 'load-sweep')
+      .field('title', 'Northfold prototype 3')
+      .field('tolerance', '5%')
+      .attach('data', csv, { filename: 'bias-proto3-sweep.csv', contentType: 'text/csv' });
+    expect(upload.status).toBe(201);
+    expect(upload.body.verdict).toBe('pass');
+    const sha256: string = upload.body.files[0].sha256;
+
+    const response = await sheet(design, lead);
+    expect(response.status).toBe(200);
+    const pdf = response.body as Buffer;
+    const text = pdfText(pdf);
+    expect(text).toContain('Bench runs');
+    expect(text).toMatch(/1\s+load sweep\s+bias-proto3-sweep\.csv\s+/);
+    expect(text).toContain(sha256.slice(0, 12));
+    expect(text).toMatch(/±5\.0 %\s+1\.0 %\s+pass · 80 %/);
+    expect(text).toMatch(
+      /Run 1\. Northfold prototype 3: uploaded by Edda Engineer, \d{4}-\d{2}-\d{2} \d{2}:\d{2} UTC; 3 points\./,
+    );
+    expect(text).toMatch(/Markers: measured points of the load-sweep bench runs,\s+run 1/);
+    expect(text).not.toContain('No bench runs were recorded for this revision.');
+
+    const dir = join(__dirname, '..', '..', '.data', 'test-results', 'spec-sheet-bench');
+    rmSync(dir, { recursive: true, force: true });
+    mkdirSync(dir, { recursive: true });
+    writeFileSync(join(dir, 'bench.pdf'), pdf);
+    execFileSync('pdftoppm', ['-png', '-r', '80', join(dir, 'bench.pdf'), join(dir, 'bench')]);
+    expect(readdirSync(dir).filter((file) => file.endsWith('.png')).length).toBeGreaterThanOrEqual(2);
+  });
+
+  it('says so on the sheet when no bench runs were recorded, and leaves deleted runs off', async () => {
+    const design = await released('detectorBias', 'Detector tube bias, no bench');
+    const bare = pdfText((await sheet(design, lead)).body as Buffer);
+    expect(bare).toContain('Bench runs');
+    expect(bare).toContain('No bench runs were recorded for this revision.');
+    expect(bare).not.toContain('Markers: measured points');
+
+    const upload = await http()
+      .post(`${base(design)}/bench-runs`)
+      .set('Cookie', as(engineer))
+      .field('kind', 'load-sweep')
+      .attach('data', await sweepBelowPrediction(design), { filename: 'withdrawn-sweep.csv', contentType: 'text/csv' });
+    expect(upload.status).toBe(201);
+    const removed = await http()
+      .delete(`${base(design)}/bench-runs/${upload.body.id}`)
+      .set('Cookie', as(engineer));
+    expect(removed.status).toBe(204);
+    const after = pdfText((await sheet(design, lead)).body as Buffer);
+    expect(after).toContain('No bench runs were recorded for this revision.');
+    expect(after).not.toContain('withdrawn-sweep.csv');
+  });
 
   it('gives the lead a released sheet with revision, approvals, BOM lines, acceptance limits and the caution', async () => {
     const design = await released('detectorBias', 'Detector tube bias, 900 V');

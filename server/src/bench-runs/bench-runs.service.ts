@@ -3,7 +3,12 @@ import { InjectModel } from '@nestjs/sequelize';
 import Papa from 'papaparse';
 import { Sequelize } from 'sequelize-typescript';
 import type { BenchFile, BenchRunDetail, BenchRunSummary } from '@ladderwright/shared/api';
-import { compareBenchRun, predictionFromReport, readMeasurementTable } from '@ladderwright/shared/bench';
+import {
+  compareBenchRun,
+  predictionFromReport,
+  readMeasurementTable,
+  type MeasuredPoint,
+} from '@ladderwright/shared/bench';
 import { DomainError } from '@ladderwright/shared/errors';
 import { isUuid } from '../common/uuid';
 import { DesignModel } from '../designs/design.model';
@@ -168,12 +173,15 @@ export class BenchRunsService {
 
   /** The live bench runs of a revision with their verdicts, newest first (for Sign-off and the spec sheet). */
   async listForRevision(designId: string, revisionNumber: number): Promise<BenchRunSummary[]> {
-    const rows = await this.runs.findAll({
-      where: { designId, revisionNumber, deletedAt: null },
-      include: [BenchRunFileModel, { model: UserModel, as: 'uploader' }],
-      order: [['createdAt', 'DESC']],
-    });
-    return rows.map(toSummary);
+    return (await this.liveRuns(designId, revisionNumber)).map(toSummary);
+  }
+
+  /** As `listForRevision`, with each run's measured points (the spec sheet overlays load sweeps on its plot). */
+  async listForRevisionWithPoints(
+    designId: string,
+    revisionNumber: number,
+  ): Promise<(BenchRunSummary & { points: MeasuredPoint[] })[]> {
+    return (await this.liveRuns(designId, revisionNumber)).map((run) => ({ ...toSummary(run), points: run.points }));
   }
 
   async get(projectId: string, designId: string, rawNumber: string, benchRunId: string): Promise<BenchRunDetail> {
@@ -219,6 +227,14 @@ export class BenchRunsService {
         },
         { transaction },
       );
+    });
+  }
+
+  private async liveRuns(designId: string, revisionNumber: number): Promise<BenchRunModel[]> {
+    return this.runs.findAll({
+      where: { designId, revisionNumber, deletedAt: null },
+      include: [BenchRunFileModel, { model: UserModel, as: 'uploader' }],
+      order: [['createdAt', 'DESC']],
     });
   }
 

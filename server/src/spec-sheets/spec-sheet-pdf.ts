@@ -295,14 +295,18 @@ function performanceSection(doc: Doc, c: SpecSheetContent): void {
 function outputVsLoadPlot(doc: Doc, c: SpecSheetContent): void {
   const points = c.report.curves.regulation.map((p) => ({ x: p.x, y: Math.abs(p.y) }));
   if (points.length < 2) return;
-  heading(doc, 'Output vs load (predicted)');
-  ensureRoom(doc, 210);
+  const sweeps = loadSweeps(c);
+  // Heading, plot, axis labels and caption move to a new page together.
+  ensureRoom(doc, 270);
+  heading(doc, sweeps.length > 0 ? 'Output vs load (predicted, bench points marked)' : 'Output vs load (predicted)');
   const left = MARGIN + 56;
   const top = doc.y + 6;
   const width = 595 - 2 * MARGIN - 72;
   const height = 160;
-  const maxX = Math.max(...points.map((p) => p.x)) || 1;
-  const maxY = Math.max(...points.map((p) => p.y), Math.abs(c.acceptance.outputHighV)) * 1.05 || 1;
+  const measured = sweeps.flatMap((run) => run.points.map((p) => ({ x: p.x, y: Math.abs(p.y) })));
+  const maxX = Math.max(...points.map((p) => p.x), ...measured.map((p) => p.x)) || 1;
+  const maxY =
+    Math.max(...points.map((p) => p.y), ...measured.map((p) => p.y), Math.abs(c.acceptance.outputHighV)) * 1.05 || 1;
   const sx = (x: number) => left + (x / maxX) * width;
   const sy = (y: number) => top + height - (y / maxY) * height;
 
@@ -342,6 +346,11 @@ function outputVsLoadPlot(doc: Doc, c: SpecSheetContent): void {
     for (const p of rest) doc.lineTo(sx(p.x), sy(p.y));
     doc.lineWidth(1.6).strokeColor(ACCENT).stroke();
   }
+  sweeps.forEach((run, index) => {
+    for (const p of run.points) {
+      if (p.x >= 0 && p.x <= maxX) benchMarker(doc, index, sx(p.x), sy(Math.abs(p.y)));
+    }
+  });
   const loadA = c.report.analysis.loadCurrentA;
   if (loadA > 0 && loadA <= maxX) {
     doc
@@ -366,6 +375,107 @@ function outputVsLoadPlot(doc: Doc, c: SpecSheetContent): void {
     .fillColor(MUTED)
     .text(
       'Shaded band: acceptance window for the output. Load current on the horizontal axis, output magnitude on the vertical.',
+      MARGIN,
+    );
+  if (sweeps.length > 0) {
+    doc.moveDown(0.3);
+    const top = doc.y;
+    doc.text('Markers: measured points of the load-sweep bench runs,', MARGIN, top, { lineBreak: false });
+    let x = MARGIN + doc.widthOfString('Markers: measured points of the load-sweep bench runs,') + 8;
+    sweeps.forEach((run, index) => {
+      benchMarker(doc, index, x + 3, top + 4.5);
+      const label = `run ${run.runNumber}`;
+      doc.fillColor(MUTED).text(label, x + 10, top, { lineBreak: false });
+      x += 10 + doc.widthOfString(label) + 10;
+    });
+    doc.y = top + 12;
+    doc.x = MARGIN;
+  }
+  doc.fillColor(INK);
+}
+
+const MARKER_COLOURS = ['#c25400', '#2e7d32', '#6a1b9a'];
+
+/** A small vector marker per run: circle, square, triangle in turn, so runs read apart without colour. */
+function benchMarker(doc: Doc, index: number, x: number, y: number): void {
+  const r = 2.4;
+  const colour = MARKER_COLOURS[index % MARKER_COLOURS.length] ?? INK;
+  doc.save().lineWidth(0.9).strokeColor(colour).fillColor('#ffffff');
+  const shape = index % 3;
+  if (shape === 0) doc.circle(x, y, r);
+  else if (shape === 1) doc.rect(x - r, y - r, 2 * r, 2 * r);
+  else doc.polygon([x, y - r - 0.4], [x + r + 0.4, y + r], [x - r - 0.4, y + r]);
+  doc.fillAndStroke('#ffffff', colour).restore();
+}
+
+/** Load-sweep runs with their number in the Bench runs table (1 = newest). */
+function loadSweeps(c: SpecSheetContent): { runNumber: number; points: { x: number; y: number }[] }[] {
+  return c.benchRuns
+    .map((run, i) => ({ run, runNumber: i + 1 }))
+    .filter(({ run }) => run.kind === 'load-sweep' && run.points.length > 0)
+    .map(({ run, runNumber }) => ({ runNumber, points: run.points }));
+}
+
+const BENCH_KIND_LABEL = { 'load-sweep': 'load sweep', 'scope-capture': 'scope capture' } as const;
+
+/** Each live bench run of the revision: data file and its hash, who uploaded it, and the verdict with margin. */
+function benchRunsSection(doc: Doc, c: SpecSheetContent): void {
+  ensureRoom(doc, 100);
+  heading(doc, 'Bench runs');
+  if (c.benchRuns.length === 0) {
+    doc.font('regular').fontSize(9).fillColor(MUTED).text('No bench runs were recorded for this revision.', MARGIN);
+    doc.fillColor(INK);
+    return;
+  }
+  const rows = c.benchRuns.map((run, i) => {
+    const data = run.files.find((file) => file.role === 'data');
+    return [
+      String(i + 1),
+      BENCH_KIND_LABEL[run.kind],
+      data?.originalName ?? '—',
+      data ? data.sha256.slice(0, 12) : '—',
+      `±${(run.tolerance * 100).toFixed(1)} %`,
+      `${(run.worstDeviation * 100).toFixed(1)} %`,
+      `${run.verdict} · ${pct(run.marginPct)}`,
+    ];
+  });
+  table(
+    doc,
+    [
+      { title: 'Run', width: 26 },
+      { title: 'Kind', width: 70 },
+      { title: 'Data file', width: 130 },
+      { title: 'SHA-256 (first 12)', width: 82 },
+      { title: 'Tolerance', width: 52 },
+      { title: 'Worst deviation', width: 66 },
+      { title: 'Verdict, margin', width: 73 },
+    ],
+    rows,
+  );
+  doc.moveDown(0.4);
+  c.benchRuns.forEach((run, i) => {
+    ensureRoom(doc, 14);
+    const title = run.title ? `${run.title}: ` : '';
+    const photos = run.files.filter((file) => file.role === 'photo').length;
+    doc
+      .font('regular')
+      .fontSize(8)
+      .fillColor(MUTED)
+      .text(
+        printable(
+          `Run ${i + 1}. ${title}uploaded by ${run.uploadedByName || 'unknown'}, ${date(run.createdAt)}; ${run.pointCount} point${run.pointCount === 1 ? '' : 's'}${photos ? `, ${photos} photo${photos === 1 ? '' : 's'}` : ''}.`,
+        ),
+        MARGIN,
+        doc.y,
+        { width: 595 - 2 * MARGIN },
+      );
+  });
+  doc.moveDown(0.3);
+  doc
+    .fontSize(8)
+    .fillColor(MUTED)
+    .text(
+      'Deviation = (measured − predicted) / predicted; margin = (tolerance − worst deviation) / tolerance.',
       MARGIN,
     );
   doc.fillColor(INK);
@@ -504,6 +614,7 @@ export async function renderSpecSheetPdf(c: SpecSheetContent): Promise<Buffer> {
   bomSection(doc, c);
   performanceSection(doc, c);
   outputVsLoadPlot(doc, c);
+  benchRunsSection(doc, c);
   safetySection(doc, c);
   decoratePages(doc, c);
   doc.end();

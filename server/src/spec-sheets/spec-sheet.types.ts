@@ -1,4 +1,5 @@
-import type { SignOffApproval } from '@ladderwright/shared/api';
+import type { BenchRunSummary, SignOffApproval } from '@ladderwright/shared/api';
+import type { MeasuredPoint } from '@ladderwright/shared/bench';
 import type { Design } from '@ladderwright/shared/designs';
 import type { DesignReport } from '@ladderwright/shared/multiplier';
 import type { AcceptanceLimits } from '@ladderwright/shared/reviews';
@@ -38,4 +39,6 @@ export interface SpecSheetContent {
   report: DesignReport;
   winding: WindingSpec;
   acceptance: AcceptanceLimits;
+  /** The revision's live bench runs, newest first; load-sweep points go on the output-vs-load plot. */
+  benchRuns: (BenchRunSummary & { points: MeasuredPoint[] })[];
 }

@@ -6,6 +6,7 @@ import { runDriverChecks } from '@ladderwright/shared/driver';
 import { DomainError } from '@ladderwright/shared/errors';
 import type { DesignReport } from '@ladderwright/shared/multiplier';
 import { acceptanceLimits } from '@ladderwright/shared/reviews';
+import { BenchRunsService } from '../bench-runs/bench-runs.service';
 import type { ProjectMembership } from '../common/request.types';
 import { ProjectModel } from '../projects/project.model';
 import { SignOffService } from '../reviews/sign-off.service';
@@ -59,6 +60,7 @@ export class SpecSheetsService {
   constructor(
     @InjectModel(ProjectModel) private readonly projects: typeof ProjectModel,
     private readonly signOff: SignOffService,
+    private readonly benchRuns: BenchRunsService,
   ) {}
 
   async render(
@@ -80,9 +82,10 @@ export class SpecSheetsService {
           : `Only an engineer or a lead exports a draft spec sheet (you are ${membership.role})`,
       );
     }
-    const [signOff, project] = await Promise.all([
+    const [signOff, project, benchRuns] = await Promise.all([
       this.signOff.get(projectId, designId, rawNumber, user, membership),
       this.projects.findByPk(projectId),
+      this.benchRuns.listForRevisionWithPoints(revision.designId, revision.number),
     ]);
     const report = revision.report as unknown as DesignReport;
     const document = revision.document;
@@ -107,6 +110,7 @@ export class SpecSheetsService {
         rippleMaxV: document.targets.rippleMaxV,
         targetOutputV: document.targets.outputV,
       }),
+      benchRuns,
     };
     const suffix = isReleased ? '' : '-not-released';
     return {
