@@ -2,7 +2,12 @@
 // Run: npx tsx scripts/bench/sim.bench.ts [cycles] [stages] [settle cycles for ngspice, 0 to skip]
 // The periodic steady state is compared with ngspice's transient run until it holds the same answer
 // (its cycle mean within 0.5 % and 0.1 % of the steady-state mean from then on), not with a run that has
-// not settled yet.
+// not settled yet. Wall times on a shared machine swing with its load; CPU times (ours from the process,
+// ngspice's from a separate run under bash's `times`) are printed beside them and are the fairer ratio.
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { buildLadderCircuit, type LadderCircuitSpec } from '../../shared/src/sim/build-circuit';
 import { MnaSystem } from '../../shared/src/sim/mna-system';
 import { findPeriodicSteadyState } from '../../shared/src/sim/periodic-steady-state';
@@ -30,24 +35,30 @@ async function main(): Promise<void> {
   const from = (cycles - 1) * periodS;
   const to = cycles * periodS;
 
+  const c0 = process.cpuUsage();
   const t0 = performance.now();
   const ours = simulateTransient(circuit, { ...run, probes: ['top'], recordFromS: from - periodS });
   const oursMs = performance.now() - t0;
-  const ng = await runNgspice(toSpiceNetlist(circuit, { transient: run }), ['v(top)']);
+  const oursCpuMs = cpuMsSince(c0);
+  const netlist = toSpiceNetlist(circuit, { transient: run });
+  const ng = await runNgspice(netlist, ['v(top)']);
+  const ngCpuMs = ngspiceCpuMs(netlist);
   const oursMean = windowMean(ours.timeS, ours.signals.top!, from, to);
   const ngMean = windowMean(ng.timeS, ng.signals['v(top)']!, from, to);
   console.log(`${stages}-stage half-wave cascade, ${cycles} cycles, max step T/200, from empty capacitors`);
   console.log(`  ours    ${oursMs.toFixed(0)} ms, ${ours.acceptedSteps} steps (${ours.rejectedSteps} rejected), ${(ours.newtonIterations / ours.acceptedSteps).toFixed(2)} Newton/step, last-cycle mean ${oursMean.toFixed(2)} V, ripple ${windowPeakToPeak(ours.timeS, ours.signals.top!, from, to).toFixed(3)} V`);
   console.log(`  ngspice ${ng.elapsedMs.toFixed(0)} ms (process wall time), ${ng.timeS.length} points, last-cycle mean ${ngMean.toFixed(2)} V, ripple ${windowPeakToPeak(ng.timeS, ng.signals['v(top)']!, from, to).toFixed(3)} V`);
-  console.log(`  time ratio ours/ngspice = ${(oursMs / ng.elapsedMs).toFixed(2)} (target ≤ 0.33); mean differs by ${((oursMean / ngMean - 1) * 100).toFixed(4)} %`);
+  console.log(`  time ratio ours/ngspice = ${(oursMs / ng.elapsedMs).toFixed(2)} wall, ${(oursCpuMs / ngCpuMs).toFixed(2)} CPU (ours ${oursCpuMs.toFixed(0)} ms, ngspice ${ngCpuMs.toFixed(0)} ms) (target ≤ 0.33); mean differs by ${((oursMean / ngMean - 1) * 100).toFixed(4)} %`);
 
   const system = new MnaSystem(circuit);
   const charges = Float64Array.from(chargeBalanceCapacitorVoltagesV(spec), (v, i) => v * spec.capacitorsF[i]!);
+  const c1 = process.cpuUsage();
   const t1 = performance.now();
   const pss = findPeriodicSteadyState(system, { periodS, stepsPerPeriod: 200, initialCharges: charges, probes: ['top'] });
   const pssMs = performance.now() - t1;
+  const pssCpuMs = cpuMsSince(c1);
   const pssMean = windowMean(pss.timeS, pss.signals.top!, 0, periodS);
-  console.log(`periodic steady state (shooting, 200 steps/period, from the charge-balance estimate): ${pssMs.toFixed(0)} ms, converged ${pss.isConverged}, ${pss.iterations} iterations, residual ${pss.relativeResidual.toExponential(2)} (history ${pss.residualHistory.map((r) => r.toExponential(1)).join(' ')}), mean ${pssMean.toFixed(2)} V`);
+  console.log(`periodic steady state (shooting, 200 steps/period, from the charge-balance estimate): ${pssMs.toFixed(0)} ms wall, ${pssCpuMs.toFixed(0)} ms CPU, converged ${pss.isConverged}, ${pss.iterations} iterations, residual ${pss.relativeResidual.toExponential(2)} (history ${pss.residualHistory.map((r) => r.toExponential(1)).join(' ')}), mean ${pssMean.toFixed(2)} V`);
   console.log(`  (ngspice's ${cycles}-cycle transient above, not yet settled, differs by ${((pssMean / ngMean - 1) * 100).toFixed(3)} %)`);
 
   const settleCycles = Number(process.argv[4] ?? 5000);
@@ -66,7 +77,32 @@ async function main(): Promise<void> {
     // ngspice's steps per cycle are the same from cycle to cycle (the maximum step bounds them), so its
     // time to cycle c is the run's time prorated.
     const ngMs = msPerCycle * c;
-    console.log(`  within ${within * 100} % of the steady-state mean from cycle ${c} on: ngspice ≈ ${ngMs.toFixed(0)} ms; steady state ${(ngMs / pssMs).toFixed(1)}× faster (target ≥ 50×)`);
+    const ngCpuToC = (ngCpuMs / cycles) * c;
+    console.log(`  within ${within * 100} % of the steady-state mean from cycle ${c} on: ngspice ≈ ${ngMs.toFixed(0)} ms wall, ≈ ${ngCpuToC.toFixed(0)} ms CPU; steady state ${(ngMs / pssMs).toFixed(1)}× faster wall, ${(ngCpuToC / pssCpuMs).toFixed(1)}× CPU (target ≥ 50×)`);
+  }
+}
+
+function cpuMsSince(start: NodeJS.CpuUsage): number {
+  const u = process.cpuUsage(start);
+  return (u.user + u.system) / 1000;
+}
+
+/** CPU time (user + system) of one ngspice batch run of the netlist, from bash's `times` for its children. */
+function ngspiceCpuMs(netlist: string): number {
+  const dir = mkdtempSync(join(tmpdir(), 'lw-ngspice-cpu-'));
+  try {
+    const path = join(dir, 'circuit.cir');
+    writeFileSync(path, netlist.replace(/^\.end\s*$/m, '.control\nrun\n.endc\n.end'));
+    const out = execFileSync('bash', ['-c', 'ngspice -b "$1" >/dev/null 2>&1; times', 'bash', path], { encoding: 'utf8' });
+    // `times` prints the shell's user/system times, then its children's: "0m1.234s 0m0.056s".
+    const children = out.trim().split('\n').pop()!.trim().split(/\s+/);
+    const seconds = (t: string): number => {
+      const m = /^(\d+)m([\d.]+)s$/.exec(t);
+      return m ? 60 * Number(m[1]) + Number(m[2]) : NaN;
+    };
+    return 1000 * (seconds(children[0]!) + seconds(children[1]!));
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
   }
 }
 
