@@ -28,9 +28,15 @@ function cpuMsPerCall(fn: () => unknown, runs: number, warmUp: number): number {
 
 /** Reference calls are ~100× shorter than the design: time them in batches so the CPU clock resolves them. */
 function cpuMsPerBatchedCall(fn: () => unknown, perBatch: number, runs: number): number {
-  return cpuMsPerCall(() => {
-    for (let i = 0; i < perBatch; i += 1) fn();
-  }, runs, 3) / perBatch;
+  return (
+    cpuMsPerCall(
+      () => {
+        for (let i = 0; i < perBatch; i += 1) fn();
+      },
+      runs,
+      3,
+    ) / perBatch
+  );
 }
 
 for (const [name, design] of Object.entries(designExamples)) {

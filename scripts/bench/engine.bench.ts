@@ -34,7 +34,11 @@ function median(values: number[]): number {
  * Median per-call time (µs) over `batches` batches of `perBatch` calls, after a warm-up: wall clock, and
  * process CPU time (user + system), which is what one core spends when the machine is shared.
  */
-function timePerCallUs(fn: (i: number) => number, perBatch: number, batches: number): { medianUs: number; medianCpuUs: number; sink: number } {
+function timePerCallUs(
+  fn: (i: number) => number,
+  perBatch: number,
+  batches: number,
+): { medianUs: number; medianCpuUs: number; sink: number } {
   let sink = 0;
   for (let i = 0; i < perBatch; i += 1) sink += fn(i);
   const samples: number[] = [];
@@ -58,12 +62,18 @@ function cpuMs<T>(fn: () => T): { result: T; cpuMs: number; wallMs: number } {
   return { result, cpuMs: (c.user + c.system) / 1000, wallMs: performance.now() - t0 };
 }
 
-const analysis = timePerCallUs((i) => analyzeLadder({ ...input, load: { kind: 'current', currentA: 30e-6 * (1 + (i % 7) * 1e-3) } }).outputMeanV, 2000, 15);
+const analysis = timePerCallUs(
+  (i) => analyzeLadder({ ...input, load: { kind: 'current', currentA: 30e-6 * (1 + (i % 7) * 1e-3) } }).outputMeanV,
+  2000,
+  15,
+);
 const reference = timePerCallUs((i) => closedForm(stages, 2.2e-9, 480, 25e3, 30e-6 * (1 + (i % 7) * 1e-3)), 200000, 15);
 console.log(
   `steady-state analysis, ${stages} stages: median ${analysis.medianUs.toFixed(2)} µs wall, ${analysis.medianCpuUs.toFixed(2)} µs CPU per analysis (target < 50 µs)`,
 );
-console.log(`  reference (textbook closed forms): ${reference.medianUs.toFixed(4)} µs; ratio ${(analysis.medianUs / reference.medianUs).toFixed(0)}×`);
+console.log(
+  `  reference (textbook closed forms): ${reference.medianUs.toFixed(4)} µs; ratio ${(analysis.medianUs / reference.medianUs).toFixed(0)}×`,
+);
 
 const request = {
   targetOutputV: -6000,
@@ -88,4 +98,6 @@ console.log(
 console.log(
   `  reference (10 000 closed-form evaluations): ${sizerReference.wallMs.toFixed(2)} ms wall; ratio ${(sizer.wallMs / Math.max(sizerReference.wallMs, 1e-3)).toFixed(0)}×`,
 );
-console.log(`(sinks ${analysis.sink.toExponential(3)} ${reference.sink.toExponential(3)} ${sizerReference.result.toExponential(3)})`);
+console.log(
+  `(sinks ${analysis.sink.toExponential(3)} ${reference.sink.toExponential(3)} ${sizerReference.result.toExponential(3)})`,
+);

@@ -39,7 +39,24 @@ export class AppModule {
   static forRoot(env: AppEnv): DynamicModule {
     return {
       module: AppModule,
-      imports: [ConfigModule.forRoot(env), DatabaseModule, AuditModule, UsersModule, AuthModule, ProjectsModule, HealthModule, MailModule, ReviewsModule, SpecSheetsModule, AnalysisModule, RevisionsModule, DesignsModule, PartsModule, BenchRunsModule, SimulationsModule],
+      imports: [
+        ConfigModule.forRoot(env),
+        DatabaseModule,
+        AuditModule,
+        UsersModule,
+        AuthModule,
+        ProjectsModule,
+        HealthModule,
+        MailModule,
+        ReviewsModule,
+        SpecSheetsModule,
+        AnalysisModule,
+        RevisionsModule,
+        DesignsModule,
+        PartsModule,
+        BenchRunsModule,
+        SimulationsModule,
+      ],
       providers: [
         { provide: APP_GUARD, useClass: JwtAuthGuard },
         { provide: APP_GUARD, useClass: RolesGuard },

@@ -45,7 +45,10 @@ describe('Checks against the Parts shelf', () => {
     emptyShelfProject = await createProject([{ userId: engineer.id, role: 'engineer' }]);
     await createProject([{ userId: outsider.id, role: 'engineer' }]);
     await cookies.signIn(testApp, [engineer, lead, outsider]);
-    const added = await http().post(`/api/projects/${project.id}/parts`).set('Cookie', as(lead)).send(LOW_RATED_CAPACITOR);
+    const added = await http()
+      .post(`/api/projects/${project.id}/parts`)
+      .set('Cookie', as(lead))
+      .send(LOW_RATED_CAPACITOR);
     expect(added.status).toBe(201);
   });
   afterAll(async () => testApp.close());

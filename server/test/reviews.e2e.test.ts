@@ -284,7 +284,9 @@ describe('Sign-off', () => {
       ]);
       expect(audit[3]?.note).toBe('Superseded by revision 2');
       const revision2 = await RevisionModel.findOne({ where: { designId: design.id, number: 2 } });
-      const releases = await AuditEntryModel.findAll({ where: { action: 'revision.released', subjectId: revision2?.id } });
+      const releases = await AuditEntryModel.findAll({
+        where: { action: 'revision.released', subjectId: revision2?.id },
+      });
       expect(releases).toHaveLength(1);
       expect(releases[0]?.actorId).toBe(lead.id);
       expect(releases[0]?.detail).toMatchObject({ revisionNumber: 2, superseded: 1 });

@@ -22,7 +22,9 @@ describe('simulation discharge traces', () => {
     expect(started.status).toBe(202);
     const deadline = Date.now() + 60_000;
     for (;;) {
-      const job = (await http().get(`/api/projects/${project.id}/simulations/${started.body.jobId}`).set('Cookie', cookie)).body as SimulationJob;
+      const job = (
+        await http().get(`/api/projects/${project.id}/simulations/${started.body.jobId}`).set('Cookie', cookie)
+      ).body as SimulationJob;
       if (job.status !== 'queued' && job.status !== 'running') return job;
       if (Date.now() > deadline) throw new Error(`job still ${job.status}`);
       await new Promise((done) => setTimeout(done, 100));

@@ -30,7 +30,9 @@ describe('simulation jobs of a design driven by its blocking oscillator', () => 
     const deadline = Date.now() + 60_000;
     const progress: number[] = [];
     for (;;) {
-      const job = (await http().get(`/api/projects/${project.id}/simulations/${started.body.jobId}`).set('Cookie', cookie)).body as SimulationJob;
+      const job = (
+        await http().get(`/api/projects/${project.id}/simulations/${started.body.jobId}`).set('Cookie', cookie)
+      ).body as SimulationJob;
       progress.push(job.progressPct);
       if (job.status !== 'queued' && job.status !== 'running') return { job, progress };
       if (Date.now() > deadline) throw new Error(`job still ${job.status}`);

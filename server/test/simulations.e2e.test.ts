@@ -49,7 +49,11 @@ describe('simulations', () => {
     }
   }
 
-  async function waitForStatus(jobId: string, status: SimulationJob['status'], timeoutMs = 15_000): Promise<SimulationJob> {
+  async function waitForStatus(
+    jobId: string,
+    status: SimulationJob['status'],
+    timeoutMs = 15_000,
+  ): Promise<SimulationJob> {
     const deadline = Date.now() + timeoutMs;
     for (;;) {
       const job = (await http().get(`${base()}/${jobId}`).set('Cookie', as(engineer))).body as SimulationJob;
@@ -69,7 +73,8 @@ describe('simulations', () => {
       { userId: reviewer.id, role: 'reviewer' },
     ]);
     otherProject = await createProject([{ userId: outsider.id, role: 'engineer' }]);
-    for (const user of [engineer, reviewer, outsider]) cookies.set(user.email, await signIn(testApp, user.email, user.password));
+    for (const user of [engineer, reviewer, outsider])
+      cookies.set(user.email, await signIn(testApp, user.email, user.password));
   });
   afterAll(async () => testApp.close());
 
@@ -96,7 +101,11 @@ describe('simulations', () => {
 
       // Independent full-resolution trace of the ladder top through the shared simulator's plain transient.
       const periodS = 1 / 30e3;
-      const raw = simulateTransient(buildCircuit(design), { stopTimeS: 30 * periodS, maxStepS: periodS / 40, probes: ['top'] });
+      const raw = simulateTransient(buildCircuit(design), {
+        stopTimeS: 30 * periodS,
+        maxStepS: periodS / 40,
+        probes: ['top'],
+      });
       const rawTop = Array.from(raw.signals.top!);
       const startup = job.result!.waveforms.find((w: WaveformTrace) => w.phase === 'startup')!;
       expect(startup.timeS).toHaveLength(startup.values.length);
@@ -132,7 +141,8 @@ describe('simulations', () => {
       expect(cancelled.body.status).toBe('cancelled');
       expect(cancelled.body.result).toBeUndefined();
       await new Promise((done) => setTimeout(done, 1200));
-      const later = (await http().get(`${base()}/${started.body.jobId}`).set('Cookie', as(engineer))).body as SimulationJob;
+      const later = (await http().get(`${base()}/${started.body.jobId}`).set('Cookie', as(engineer)))
+        .body as SimulationJob;
       expect(later.status).toBe('cancelled');
       expect(later.result).toBeUndefined();
       expect(later.progressPct).toBe(cancelled.body.progressPct);
@@ -145,7 +155,8 @@ describe('simulations', () => {
       expect(cancelled.body.status).toBe('cancelled');
       await http().post(`${base()}/${blocker.body.jobId}/cancel`).set('Cookie', as(engineer));
       await new Promise((done) => setTimeout(done, 1500));
-      const job = (await http().get(`${base()}/${queued.body.jobId}`).set('Cookie', as(engineer))).body as SimulationJob;
+      const job = (await http().get(`${base()}/${queued.body.jobId}`).set('Cookie', as(engineer)))
+        .body as SimulationJob;
       expect(job.status).toBe('cancelled');
       expect(job.startedAt).toBeNull();
     });
@@ -153,26 +164,31 @@ describe('simulations', () => {
     it.each([
       ['fault-throw', /worker threw/],
       ['fault-exit', /exited with code/],
-    ])('fails only the job whose worker %s, with a clear error, and the next job still succeeds', async (kind, message) => {
-      const failing = await start({ kind, document: doubler() });
-      expect(failing.status).toBe(202);
-      const { job } = await waitForEnd(failing.body.jobId);
-      expect(job.status).toBe('failed');
-      expect(job.error).toEqual({ code: 'worker_failed', message: expect.stringMatching(message) });
-      expect(job.result).toBeUndefined();
+    ])(
+      'fails only the job whose worker %s, with a clear error, and the next job still succeeds',
+      async (kind, message) => {
+        const failing = await start({ kind, document: doubler() });
+        expect(failing.status).toBe(202);
+        const { job } = await waitForEnd(failing.body.jobId);
+        expect(job.status).toBe('failed');
+        expect(job.error).toEqual({ code: 'worker_failed', message: expect.stringMatching(message) });
+        expect(job.result).toBeUndefined();
 
-      const next = await start({ kind: 'steady-state', document: doubler(), options: { cycles: 10 } });
-      const after = await waitForEnd(next.body.jobId);
-      expect(after.job.status).toBe('succeeded');
-      expect(after.job.result!.summary.ripplePeakToPeakV).toEqual(expect.any(Number));
-    });
+        const next = await start({ kind: 'steady-state', document: doubler(), options: { cycles: 10 } });
+        const after = await waitForEnd(next.body.jobId);
+        expect(after.job.status).toBe('succeeded');
+        expect(after.job.result!.summary.ripplePeakToPeakV).toEqual(expect.any(Number));
+      },
+    );
 
     it('fails a job whose design the simulator refuses, naming the reason', async () => {
       // A blocking-oscillator driver feeds half-wave ladders only (shared build-driver-circuit.ts).
       const driven = structuredClone(designExamples.surfaceChargeTester) as Design;
       driven.multiplier.cellCount = 1;
       driven.multiplier.topology = 'full-wave';
-      driven.multiplier.capacitors = [0, 1, 2].map(() => ({ ...designExamples.surfaceChargeTester.multiplier.capacitors[0]! }));
+      driven.multiplier.capacitors = [0, 1, 2].map(() => ({
+        ...designExamples.surfaceChargeTester.multiplier.capacitors[0]!,
+      }));
       const started = await start({ kind: 'startup', document: driven, options: { cycles: 5 } });
       expect(started.status).toBe(202);
       const { job } = await waitForEnd(started.body.jobId);
@@ -183,7 +199,10 @@ describe('simulations', () => {
 
   describe('a stored revision', () => {
     it('simulates revision 1 of a design of the project, recording design and revision on the job', async () => {
-      const design = await createDesign(testApp, project.id, engineer.id, { name: 'Stored doubler', from: { kind: 'document', document: doubler() } });
+      const design = await createDesign(testApp, project.id, engineer.id, {
+        name: 'Stored doubler',
+        from: { kind: 'document', document: doubler() },
+      });
       const started = await start({ kind: 'startup', designId: design.id, revisionNumber: 1, options: SMALL_RUN });
       expect(started.status).toBe(202);
       const { job } = await waitForEnd(started.body.jobId);
@@ -191,7 +210,9 @@ describe('simulations', () => {
       expect(job.designId).toBe(design.id);
       expect(job.revisionNumber).toBe(1);
       // The same document sent inline gives the same figures: the run used the stored revision's document.
-      const inline = await waitForEnd((await start({ kind: 'startup', document: doubler(), options: SMALL_RUN })).body.jobId);
+      const inline = await waitForEnd(
+        (await start({ kind: 'startup', document: doubler(), options: SMALL_RUN })).body.jobId,
+      );
       expect(inline.job.designId).toBeNull();
       expect(job.result!.summary.outputMeanV).toBe(inline.job.result!.summary.outputMeanV);
       expect(job.result!.summary.cyclesSimulated).toBe(30);
@@ -240,7 +261,11 @@ describe('simulations', () => {
     });
 
     it('returns 404 for a job of another project, a random id and a malformed id', async () => {
-      const foreign = await start({ kind: 'startup', document: doubler(), options: { cycles: 2 } }, outsider, otherProject.id);
+      const foreign = await start(
+        { kind: 'startup', document: doubler(), options: { cycles: 2 } },
+        outsider,
+        otherProject.id,
+      );
       expect(foreign.status).toBe(202);
       const viaOurProject = await http().get(`${base()}/${foreign.body.jobId}`).set('Cookie', as(engineer));
       expect(viaOurProject.status).toBe(404);
@@ -256,7 +281,10 @@ describe('simulations', () => {
       ['kind', { kind: 'ripple', document: doubler() }],
       ['document', { kind: 'startup' }],
       ['document', { kind: 'startup', document: 'not a design' }],
-      ['document.multiplier.cellCount', { kind: 'startup', document: { ...doubler(), multiplier: { ...doubler().multiplier, cellCount: 0 } } }],
+      [
+        'document.multiplier.cellCount',
+        { kind: 'startup', document: { ...doubler(), multiplier: { ...doubler().multiplier, cellCount: 0 } } },
+      ],
       ['options.cycles', { kind: 'startup', document: doubler(), options: { cycles: 0 } }],
       ['options.cycles', { kind: 'startup', document: doubler(), options: { cycles: 2.5 } }],
       ['options.maxStepPerPeriod', { kind: 'startup', document: doubler(), options: { maxStepPerPeriod: 2 } }],

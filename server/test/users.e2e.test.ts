@@ -34,15 +34,12 @@ describe('users (admin)', () => {
   });
 
   it('creates an account that can then sign in', async () => {
-    const response = await http()
-      .post('/api/users')
-      .set('Cookie', adminCookie)
-      .send({
-        email: 'New.Reviewer@northfold.test',
-        displayName: 'New Reviewer',
-        role: 'reviewer',
-        password: 'Ripple-check-9',
-      });
+    const response = await http().post('/api/users').set('Cookie', adminCookie).send({
+      email: 'New.Reviewer@northfold.test',
+      displayName: 'New Reviewer',
+      role: 'reviewer',
+      password: 'Ripple-check-9',
+    });
     expect(response.status).toBe(201);
     expect(response.body).toMatchObject({
       email: 'new.reviewer@northfold.test',

@@ -49,7 +49,8 @@ function integerFlag(flags: Map<string, string | true>, name: string): number | 
   const value = flags.get(name);
   if (value === undefined) return undefined;
   const n = Number(value);
-  if (value === true || !Number.isInteger(n) || n < 1) throw new DomainError('invalid_argument', `--${name} needs an integer ≥ 1`, name);
+  if (value === true || !Number.isInteger(n) || n < 1)
+    throw new DomainError('invalid_argument', `--${name} needs an integer ≥ 1`, name);
   return n;
 }
 
@@ -66,25 +67,42 @@ export const LADDER_FLAGS_HELP = `  --topology half-wave|full-wave|bridge   (def
   values accept SI prefixes: 4.7n, 4n7, 2k2, 25 kHz, 1.5 kV`;
 
 /** A bare ladder from command-line flags (the same flags serve `ladder`, `simulate` and `netlist`). */
-export function ladderInputFromFlags(flags: Map<string, string | true>): { input: LadderInput; safeVoltageV: number | undefined } {
+export function ladderInputFromFlags(flags: Map<string, string | true>): {
+  input: LadderInput;
+  safeVoltageV: number | undefined;
+} {
   const topologyText = String(flags.get('topology') ?? 'half-wave');
   const topology: Topology | null =
-    topologyText === 'bridge' || topologyText === 'bridge-doubler' ? 'bridge-doubler' : topologyText === 'half-wave' || topologyText === 'full-wave' ? topologyText : null;
+    topologyText === 'bridge' || topologyText === 'bridge-doubler'
+      ? 'bridge-doubler'
+      : topologyText === 'half-wave' || topologyText === 'full-wave'
+        ? topologyText
+        : null;
   if (!topology) throw new DomainError('invalid_argument', 'expected half-wave, full-wave or bridge', 'topology');
   const stages = integerFlag(flags, 'stages');
   const cells = integerFlag(flags, 'cells');
-  if (stages !== undefined && cells !== undefined) throw new DomainError('invalid_argument', 'give --stages or --cells, not both', 'stages');
-  const cellCount = topology === 'bridge-doubler' ? 2 : (cells ?? (stages === undefined ? undefined : topology === 'full-wave' ? stages : 2 * stages));
+  if (stages !== undefined && cells !== undefined)
+    throw new DomainError('invalid_argument', 'give --stages or --cells, not both', 'stages');
+  const cellCount =
+    topology === 'bridge-doubler'
+      ? 2
+      : (cells ?? (stages === undefined ? undefined : topology === 'full-wave' ? stages : 2 * stages));
   const capsText = flags.get('caps');
   let capacitorsF: number[];
   if (typeof capsText === 'string') {
     capacitorsF = capsText.split(',').map((text, i) => parseQuantity(text, { unit: 'F', field: `caps[${i}]` }));
-    const expected = cellCount === undefined ? capacitorsF.length : topology === 'full-wave' ? 3 * cellCount : cellCount;
+    const expected =
+      cellCount === undefined ? capacitorsF.length : topology === 'full-wave' ? 3 * cellCount : cellCount;
     if (capacitorsF.length !== expected) {
-      throw new DomainError('invalid_argument', `${topology} with ${cellCount} cells needs ${expected} capacitors, got ${capacitorsF.length}`, 'caps');
+      throw new DomainError(
+        'invalid_argument',
+        `${topology} with ${cellCount} cells needs ${expected} capacitors, got ${capacitorsF.length}`,
+        'caps',
+      );
     }
   } else {
-    if (cellCount === undefined) throw new DomainError('invalid_argument', '--stages or --cells is required with --cap', 'stages');
+    if (cellCount === undefined)
+      throw new DomainError('invalid_argument', '--stages or --cells is required with --cap', 'stages');
     const cap = requiredQuantity(flags, 'cap', 'F');
     capacitorsF = Array<number>(topology === 'full-wave' ? 3 * cellCount : cellCount).fill(cap);
   }
@@ -95,10 +113,18 @@ export function ladderInputFromFlags(flags: Map<string, string | true>): { input
   const drive: SineDrive | PulseDrive =
     flybackV === undefined
       ? { kind: 'sine', peakV, frequencyHz, sourceResistanceOhm }
-      : { kind: 'pulse', forwardPeakV: peakV, flybackPeakV: flybackV, frequencyHz, dutyCycle: quantityFlag(flags, 'duty', 's') ?? 0.5, sourceResistanceOhm };
+      : {
+          kind: 'pulse',
+          forwardPeakV: peakV,
+          flybackPeakV: flybackV,
+          frequencyHz,
+          dutyCycle: quantityFlag(flags, 'duty', 's') ?? 0.5,
+          sourceResistanceOhm,
+        };
   const loadCurrent = quantityFlag(flags, 'load-current', 'A');
   const loadR = quantityFlag(flags, 'load-r', 'Ohm');
-  if (loadCurrent !== undefined && loadR !== undefined) throw new DomainError('invalid_argument', 'give --load-current or --load-r, not both', 'load-current');
+  if (loadCurrent !== undefined && loadR !== undefined)
+    throw new DomainError('invalid_argument', 'give --load-current or --load-r, not both', 'load-current');
   const input: LadderInput = {
     topology,
     capacitorsF,
@@ -109,7 +135,12 @@ export function ladderInputFromFlags(flags: Map<string, string | true>): { input
       seriesResistanceOhm: quantityFlag(flags, 'diode-rs', 'Ohm') ?? 1,
     },
     polarity: flags.has('negative') ? -1 : 1,
-    load: loadCurrent !== undefined ? { kind: 'current', currentA: loadCurrent } : loadR !== undefined ? { kind: 'resistance', resistanceOhm: loadR } : null,
+    load:
+      loadCurrent !== undefined
+        ? { kind: 'current', currentA: loadCurrent }
+        : loadR !== undefined
+          ? { kind: 'resistance', resistanceOhm: loadR }
+          : null,
     bleederOhm: quantityFlag(flags, 'bleeder', 'Ohm') ?? null,
     seriesOutputResistanceOhm: quantityFlag(flags, 'series-r', 'Ohm') ?? 0,
   };

@@ -48,8 +48,10 @@ function main(argv: ReadonlyArray<string>): number {
     return 0;
   } catch (error) {
     if (isDomainError(error)) {
-      const issues = error.issues.length > 0 ? error.issues : [{ path: error.field ?? '(input)', message: error.message }];
-      for (const issue of issues) process.stderr.write(`ladderwright: ${error.code}: ${issue.path}: ${issue.message}\n`);
+      const issues =
+        error.issues.length > 0 ? error.issues : [{ path: error.field ?? '(input)', message: error.message }];
+      for (const issue of issues)
+        process.stderr.write(`ladderwright: ${error.code}: ${issue.path}: ${issue.message}\n`);
       return 1;
     }
     throw error;

@@ -20,10 +20,14 @@ export class ProjectAnalysisController {
   @Post('evaluate')
   @HttpCode(200)
   @ApiOkResponse({
-    description: "The engine's report with the shelf's ratings filled in by partCode; unknown codes in `report.partIssues`.",
+    description:
+      "The engine's report with the shelf's ratings filled in by partCode; unknown codes in `report.partIssues`.",
   })
   @ApiBadRequestResponse({ description: 'The document is not valid; `issues[]` names every field, under `document.`.' })
-  async evaluate(@ProjectMembership() membership: Membership, @Body() body: EvaluateDesignDto): Promise<EvaluateResponse> {
+  async evaluate(
+    @ProjectMembership() membership: Membership,
+    @Body() body: EvaluateDesignDto,
+  ): Promise<EvaluateResponse> {
     const design = this.analysis.parseDocument(body.document, 'document');
     return this.analysis.evaluate(design, 'document', await this.parts.shelf(membership.projectId));
   }

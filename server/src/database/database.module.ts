@@ -24,7 +24,18 @@ export const ALL_MODELS = [
   RevisionReviewerModel,
   RevisionTransitionModel,
   ReviewCommentModel,
-  UserModel, ProjectModel, ProjectMemberModel, DesignModel, RevisionModel, PartModel, BenchRunModel, BenchRunFileModel, BenchRunEventModel, AuditEntryModel, SimulationJobModel];
+  UserModel,
+  ProjectModel,
+  ProjectMemberModel,
+  DesignModel,
+  RevisionModel,
+  PartModel,
+  BenchRunModel,
+  BenchRunFileModel,
+  BenchRunEventModel,
+  AuditEntryModel,
+  SimulationJobModel,
+];
 
 /**
  * The one Sequelize connection. Models are registered explicitly; the schema comes only from

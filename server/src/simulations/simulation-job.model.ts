@@ -1,5 +1,10 @@
 import { Column, DataType, Model, Table } from 'sequelize-typescript';
-import type { SimulationJobStatus, SimulationKind, SimulationOptions, SimulationResult } from '@ladderwright/shared/api';
+import type {
+  SimulationJobStatus,
+  SimulationKind,
+  SimulationOptions,
+  SimulationResult,
+} from '@ladderwright/shared/api';
 import type { Design } from '@ladderwright/shared/designs';
 
 /** What the worker needs to run the job, stored with it so that any app instance can pick it up. */

@@ -20,7 +20,10 @@ import {
 function workerEntry(): { filename: string; execArgv?: string[] } {
   const compiled = join(__dirname, 'simulation.worker.js');
   if (existsSync(compiled)) return { filename: compiled };
-  return { filename: join(__dirname, 'simulation.worker.ts'), execArgv: ['--conditions=source', '--import', require.resolve('tsx')] };
+  return {
+    filename: join(__dirname, 'simulation.worker.ts'),
+    execArgv: ['--conditions=source', '--import', require.resolve('tsx')],
+  };
 }
 
 export interface PoolRun {
@@ -73,7 +76,14 @@ export class SimulationPoolService implements OnModuleDestroy {
   private ensurePool(): Piscina {
     if (this.pool) return this.pool;
     const threads = Math.max(1, this.env.simulationWorkers);
-    this.pool = new Piscina({ ...workerEntry(), name: SIMULATION_TASK_NAME, minThreads: 0, maxThreads: threads, idleTimeout: 60_000, maxQueue: 'auto' });
+    this.pool = new Piscina({
+      ...workerEntry(),
+      name: SIMULATION_TASK_NAME,
+      minThreads: 0,
+      maxThreads: threads,
+      idleTimeout: 60_000,
+      maxQueue: 'auto',
+    });
     return this.pool;
   }
 }

@@ -77,11 +77,19 @@ export class SimulationQueueService implements OnModuleDestroy {
   }
 
   private async start(): Promise<PgBoss> {
-    const boss = new PgBoss({ connectionString: this.env.databaseUrl, max: 4, application_name: 'ladderwright-simulations' });
+    const boss = new PgBoss({
+      connectionString: this.env.databaseUrl,
+      max: 4,
+      application_name: 'ladderwright-simulations',
+    });
     boss.on('error', (error) => this.logger.error(`pg-boss: ${error.message}`));
     try {
       await boss.start();
-      await boss.createQueue(SIMULATION_QUEUE, { name: SIMULATION_QUEUE, retryLimit: 1, expireInSeconds: EXPIRE_IN_SECONDS });
+      await boss.createQueue(SIMULATION_QUEUE, {
+        name: SIMULATION_QUEUE,
+        retryLimit: 1,
+        expireInSeconds: EXPIRE_IN_SECONDS,
+      });
     } catch (error) {
       await boss.stop({ graceful: false, wait: true }).catch(() => undefined);
       throw error;

@@ -39,9 +39,11 @@ export class SimulationRunnerService implements OnApplicationBootstrap, OnModule
   onApplicationBootstrap(): void {
     if (this.env.simulationWorkers === 0) return;
     // Not awaited: the app serves requests (and reports degraded health) even while the database is down.
-    this.queue.work(this.env.simulationWorkers, (payload) => this.execute(payload)).catch((error: unknown) => {
-      this.logger.warn(`simulation workers not started: ${error instanceof Error ? error.message : String(error)}`);
-    });
+    this.queue
+      .work(this.env.simulationWorkers, (payload) => this.execute(payload))
+      .catch((error: unknown) => {
+        this.logger.warn(`simulation workers not started: ${error instanceof Error ? error.message : String(error)}`);
+      });
   }
 
   /** Stops a run of this instance at once (the cancel itself is already in the table). */
@@ -88,7 +90,10 @@ export class SimulationRunnerService implements OnApplicationBootstrap, OnModule
     try {
       const outcome = await run.outcome;
       if (outcome.ok) {
-        await SimulationJobModel.update({ status: 'succeeded', progressPct: 100, result: outcome.result, finishedAt: new Date() }, running);
+        await SimulationJobModel.update(
+          { status: 'succeeded', progressPct: 100, result: outcome.result, finishedAt: new Date() },
+          running,
+        );
       } else if (outcome.error.code !== 'cancelled') {
         await this.fail(id, outcome.error.code, outcome.error.message);
       }

@@ -28,7 +28,8 @@ export interface SimulationTaskFailure {
   field: string | null;
 }
 
-export type SimulationTaskOutcome = { ok: true; result: SimulationResult } | { ok: false; error: SimulationTaskFailure };
+export type SimulationTaskOutcome =
+  { ok: true; result: SimulationResult } | { ok: false; error: SimulationTaskFailure };
 
 /** Name of the task function the worker entry exports. */
 export const SIMULATION_TASK_NAME = 'runSimulationTask';

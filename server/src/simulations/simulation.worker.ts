@@ -49,7 +49,13 @@ function simulateDriver(task: SimulationTask, post: (fraction: number) => void):
   const hasStartUp = kind === 'startup' || kind === 'full';
   const startShare = hasStartUp ? 0.25 : 0;
   const coldRun = hasStartUp
-    ? runDriverDesign(design, { start: 'cold', windowS: options.startUpWindowS ?? DEFAULT_STARTUP_WINDOW_S, plotBuckets: PLOT_BUCKETS, shouldCancel, onProgress: (f) => post(startShare * f) })
+    ? runDriverDesign(design, {
+        start: 'cold',
+        windowS: options.startUpWindowS ?? DEFAULT_STARTUP_WINDOW_S,
+        plotBuckets: PLOT_BUCKETS,
+        shouldCancel,
+        onProgress: (f) => post(startShare * f),
+      })
     : null;
   const run = runDriverDesign(design, {
     plotBuckets: PLOT_BUCKETS,
@@ -130,7 +136,8 @@ export function runSimulationTask(task: SimulationTask): SimulationTaskOutcome {
   try {
     return { ok: true, result: simulate(task) };
   } catch (error) {
-    if (isDomainError(error)) return { ok: false, error: { code: error.code, message: error.message, field: error.field } };
+    if (isDomainError(error))
+      return { ok: false, error: { code: error.code, message: error.message, field: error.field } };
     const { code, field } = error as { code?: unknown; field?: unknown };
     if (error instanceof Error && typeof code === 'string') {
       return { ok: false, error: { code, message: error.message, field: typeof field === 'string' ? field : null } };

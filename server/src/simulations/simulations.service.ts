@@ -39,9 +39,16 @@ export class SimulationsService {
       const queueJobId = await this.queue.send({ simulationJobId: job.id });
       await SimulationJobModel.update({ queueJobId }, { where: { id: job.id } });
     } catch (error) {
-      this.logger.error(`queueing simulation ${job.id} failed: ${error instanceof Error ? error.message : String(error)}`);
+      this.logger.error(
+        `queueing simulation ${job.id} failed: ${error instanceof Error ? error.message : String(error)}`,
+      );
       await SimulationJobModel.update(
-        { status: 'failed', errorCode: 'queue_unavailable', errorMessage: 'The job queue is not reachable; try again', finishedAt: new Date() },
+        {
+          status: 'failed',
+          errorCode: 'queue_unavailable',
+          errorMessage: 'The job queue is not reachable; try again',
+          finishedAt: new Date(),
+        },
         { where: { id: job.id } },
       );
       throw error;
@@ -74,7 +81,9 @@ export class SimulationsService {
   }
 
   private checkKind(kind: string): SimulationKind {
-    const allowed: readonly string[] = this.env.simulationFaultKinds ? [...SIMULATION_KINDS, ...FAULT_KINDS] : SIMULATION_KINDS;
+    const allowed: readonly string[] = this.env.simulationFaultKinds
+      ? [...SIMULATION_KINDS, ...FAULT_KINDS]
+      : SIMULATION_KINDS;
     if (!allowed.includes(kind)) {
       throw new DomainError('invalid_argument', `kind must be one of ${SIMULATION_KINDS.join(', ')}`, 'kind');
     }
@@ -91,11 +100,17 @@ export class SimulationsService {
       throw new DomainError('invalid_argument', 'document is required (or designId with revisionNumber)', 'document');
     }
     if (body.document !== undefined && hasRevision) {
-      throw new DomainError('invalid_argument', 'give either document or designId with revisionNumber, not both', 'document');
+      throw new DomainError(
+        'invalid_argument',
+        'give either document or designId with revisionNumber, not both',
+        'document',
+      );
     }
     if (body.document === undefined) {
-      if (body.designId === undefined) throw new DomainError('invalid_argument', 'designId is required with revisionNumber', 'designId');
-      if (body.revisionNumber === undefined) throw new DomainError('invalid_argument', 'revisionNumber is required with designId', 'revisionNumber');
+      if (body.designId === undefined)
+        throw new DomainError('invalid_argument', 'designId is required with revisionNumber', 'designId');
+      if (body.revisionNumber === undefined)
+        throw new DomainError('invalid_argument', 'revisionNumber is required with designId', 'revisionNumber');
       const revision = await this.revisions.get(projectId, body.designId, String(body.revisionNumber));
       return { document: revision.document, designId: revision.designId, revisionNumber: revision.number };
     }
@@ -105,7 +120,12 @@ export class SimulationsService {
       if (!isDomainError(error)) throw error;
       const issues = error.issues.map((issue) => ({ path: `document.${issue.path}`, message: issue.message }));
       const first = issues[0];
-      throw new DomainError(error.code, first ? `${first.path}: ${first.message}` : error.message, first?.path ?? 'document', issues);
+      throw new DomainError(
+        error.code,
+        first ? `${first.path}: ${first.message}` : error.message,
+        first?.path ?? 'document',
+        issues,
+      );
     }
   }
 }
@@ -124,7 +144,8 @@ function toResponse(job: SimulationJobModel): SimulationJob {
     startedAt: job.startedAt?.toISOString() ?? null,
     finishedAt: job.finishedAt?.toISOString() ?? null,
   };
-  if (job.status === 'failed') response.error = { code: job.errorCode ?? 'failed', message: job.errorMessage ?? 'The simulation failed' };
+  if (job.status === 'failed')
+    response.error = { code: job.errorCode ?? 'failed', message: job.errorMessage ?? 'The simulation failed' };
   if (job.status === 'succeeded' && job.result) response.result = job.result;
   return response;
 }

@@ -12,14 +12,12 @@ export async function createDesign(
   attrs: { name?: string; from?: DesignSource } = {},
 ): Promise<DesignDetail> {
   sequence += 1;
-  return testApp.app
-    .get(DesignsService)
-    .create(
-      projectId,
-      {
-        name: attrs.name ?? `Test design ${sequence}`,
-        from: attrs.from ?? { kind: 'template', templateId: 'detectorBias' },
-      },
-      ownerId,
-    );
+  return testApp.app.get(DesignsService).create(
+    projectId,
+    {
+      name: attrs.name ?? `Test design ${sequence}`,
+      from: attrs.from ?? { kind: 'template', templateId: 'detectorBias' },
+    },
+    ownerId,
+  );
 }

@@ -5,7 +5,8 @@ import { analyzeDesign } from '../../src/multiplier/analyze-design';
 import { parseArguments } from '../ladder-flags';
 import { reportAsText } from '../report-text';
 
-export const analyzeHelp = 'analyze DESIGN.json [--text]     full report of a design document (JSON, or a table with --text)';
+export const analyzeHelp =
+  'analyze DESIGN.json [--text]     full report of a design document (JSON, or a table with --text)';
 
 /** `ladderwright analyze DESIGN.json [--text]`. */
 export function analyzeCommand(argv: ReadonlyArray<string>): string {

@@ -16,7 +16,10 @@ function numberFlag(flags: Map<string, string | true>, name: string): number | u
 }
 
 /** The simulator's ladder spec of the bare-ladder flags (cli/ladder-flags.ts, shared with `ladder`). */
-export function ladderSpecFromFlags(flags: Map<string, string | true>): { spec: LadderCircuitSpec; safeVoltageV: number | undefined } {
+export function ladderSpecFromFlags(flags: Map<string, string | true>): {
+  spec: LadderCircuitSpec;
+  safeVoltageV: number | undefined;
+} {
   const { input, safeVoltageV } = ladderInputFromFlags(flags);
   const count = input.capacitorsF.length;
   const spec: LadderCircuitSpec = {
@@ -42,11 +45,19 @@ function driverDesignOf(argv: ReadonlyArray<string>): Design | null {
 }
 
 /** The ladder spec from `DESIGN.json` (first positional argument) or from bare-ladder flags, and the safe voltage. */
-export function ladderFromArguments(argv: ReadonlyArray<string>): { spec: LadderCircuitSpec; safeVoltageV: number; flags: Map<string, string | true> } {
+export function ladderFromArguments(argv: ReadonlyArray<string>): {
+  spec: LadderCircuitSpec;
+  safeVoltageV: number;
+  flags: Map<string, string | true>;
+} {
   const { positional, flags } = parseArguments(argv);
   if (positional[0]) {
     const design = validateDesign(JSON.parse(readFileSync(positional[0], 'utf8')));
-    return { spec: ladderSpecFromDesign(design), safeVoltageV: quantityFlag(flags, 'safe-voltage', 'V') ?? design.targets.safeVoltageV, flags };
+    return {
+      spec: ladderSpecFromDesign(design),
+      safeVoltageV: quantityFlag(flags, 'safe-voltage', 'V') ?? design.targets.safeVoltageV,
+      flags,
+    };
   }
   const { spec, safeVoltageV } = ladderSpecFromFlags(flags);
   return { spec, safeVoltageV: safeVoltageV ?? 50, flags };
@@ -67,7 +78,9 @@ export function simulateCommand(argv: ReadonlyArray<string>): string {
     const result = runDriverDesign(driverDesign, {
       start: flags.has('cold') ? 'cold' : 'warm',
       ...(windowMs !== undefined ? { windowS: windowMs * 1e-3 } : {}),
-      ...(flags.has('discharge') ? { dischargeToV: quantityFlag(flags, 'safe-voltage', 'V') ?? driverDesign.targets.safeVoltageV } : {}),
+      ...(flags.has('discharge')
+        ? { dischargeToV: quantityFlag(flags, 'safe-voltage', 'V') ?? driverDesign.targets.safeVoltageV }
+        : {}),
     });
     const dissipatedJ = Object.values(result.energy.dissipatedJ).reduce((a, b) => a + b, 0);
     return JSON.stringify(
@@ -80,7 +93,9 @@ export function simulateCommand(argv: ReadonlyArray<string>): string {
         start: result.start,
         isSettled: result.isSettled,
         extrapolations: result.extrapolations,
-        ...(result.discharge ? { dischargeTimeS: result.discharge.dischargeTimeS, trappedChargeC: result.discharge.trappedChargeC } : {}),
+        ...(result.discharge
+          ? { dischargeTimeS: result.discharge.dischargeTimeS, trappedChargeC: result.discharge.trappedChargeC }
+          : {}),
         oscillationFrequencyHz: result.oscillationFrequencyHz,
         energy: { suppliedJ: result.energy.suppliedJ, dissipatedJ, storedChangeJ: result.energy.storedChangeJ },
       },
@@ -99,7 +114,9 @@ export function simulateCommand(argv: ReadonlyArray<string>): string {
     outputMeanV: result.outputMeanV,
     ripplePeakToPeakV: result.ripplePeakToPeakV,
     timeToSteadyStateS: result.timeToSteadyStateS,
-    ...(result.discharge ? { dischargeTimeS: result.discharge.dischargeTimeS, trappedChargeC: result.discharge.trappedChargeC } : {}),
+    ...(result.discharge
+      ? { dischargeTimeS: result.discharge.dischargeTimeS, trappedChargeC: result.discharge.trappedChargeC }
+      : {}),
     cyclesSimulated: result.cyclesSimulated,
     method: result.method,
     periodicSteadyState: result.periodicSteadyState,

@@ -16,7 +16,8 @@ function required(value: number | undefined, name: string): number {
 function countFlag(value: string | true | undefined): number {
   if (value === undefined) return 10;
   const n = Number(value);
-  if (value === true || !Number.isInteger(n) || n < 1) throw new DomainError('invalid_argument', '--count needs an integer ≥ 1', 'count');
+  if (value === true || !Number.isInteger(n) || n < 1)
+    throw new DomainError('invalid_argument', '--count needs an integer ≥ 1', 'count');
   return n;
 }
 
@@ -30,10 +31,19 @@ export function sizeCommand(argv: ReadonlyArray<string>): string {
   const drive: SineDrive | PulseDrive =
     flybackV === undefined
       ? { kind: 'sine', peakV, frequencyHz, sourceResistanceOhm }
-      : { kind: 'pulse', forwardPeakV: peakV, flybackPeakV: flybackV, frequencyHz, dutyCycle: quantityFlag(flags, 'duty', 's') ?? 0.5, sourceResistanceOhm };
+      : {
+          kind: 'pulse',
+          forwardPeakV: peakV,
+          flybackPeakV: flybackV,
+          frequencyHz,
+          dutyCycle: quantityFlag(flags, 'duty', 's') ?? 0.5,
+          sourceResistanceOhm,
+        };
   const topologyText = flags.get('topology');
   const topologies: Topology[] | undefined =
-    typeof topologyText === 'string' ? [topologyText === 'bridge' ? 'bridge-doubler' : (topologyText as Topology)] : undefined;
+    typeof topologyText === 'string'
+      ? [topologyText === 'bridge' ? 'bridge-doubler' : (topologyText as Topology)]
+      : undefined;
   if (topologies && !['half-wave', 'full-wave', 'bridge-doubler'].includes(topologies[0] as string)) {
     throw new DomainError('invalid_argument', 'expected half-wave, full-wave or bridge', 'topology');
   }

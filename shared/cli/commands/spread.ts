@@ -6,7 +6,8 @@ import { toleranceSpread } from '../../src/sizing/tolerance-spread';
 import { formatQuantity } from '../../src/units/format-quantity';
 import { parseArguments, quantityFlag } from '../ladder-flags';
 
-export const spreadHelp = 'spread DESIGN.json [--trials N] [--seed S] [--drive-variation 0.05] [--text]   seeded tolerance spread';
+export const spreadHelp =
+  'spread DESIGN.json [--trials N] [--seed S] [--drive-variation 0.05] [--text]   seeded tolerance spread';
 
 /** `ladderwright spread DESIGN.json`: Monte Carlo spread over the design's capacitor tolerances and drive variation. */
 export function spreadCommand(argv: ReadonlyArray<string>): string {

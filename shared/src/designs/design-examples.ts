@@ -35,7 +35,8 @@ const fastSmallSignalHvDiode: DiodePart = {
 const ionizerBar: Design = {
   schemaVersion: 1,
   name: 'Cleanroom ionizer bar, -6 kV',
-  notes: 'Negative 14-cell half-wave ladder on a resonant 25 kHz secondary; emitter pins fed through a series resistor.',
+  notes:
+    'Negative 14-cell half-wave ladder on a resonant 25 kHz secondary; emitter pins fed through a series resistor.',
   drive: { kind: 'sine', peakV: 480, frequencyHz: 25e3, sourceResistanceOhm: 150 },
   multiplier: {
     topology: 'half-wave',
@@ -92,7 +93,8 @@ const detectorBias: Design = {
 const precipitatorCell: Design = {
   schemaVersion: 1,
   name: 'Range-hood precipitator cell, 4 kV',
-  notes: 'Two-stage full-wave cascade on a centre-tapped 20 kHz secondary; a few hundred microamps into the collector plates.',
+  notes:
+    'Two-stage full-wave cascade on a centre-tapped 20 kHz secondary; a few hundred microamps into the collector plates.',
   drive: { kind: 'sine', peakV: 1100, frequencyHz: 20e3, sourceResistanceOhm: 200 },
   multiplier: {
     topology: 'full-wave',
@@ -144,7 +146,9 @@ const surfaceChargeTester: Design = {
 };
 
 /** The four demo products, keyed by a stable id. */
-export const designExamples: Readonly<Record<'ionizerBar' | 'detectorBias' | 'precipitatorCell' | 'surfaceChargeTester', Design>> = {
+export const designExamples: Readonly<
+  Record<'ionizerBar' | 'detectorBias' | 'precipitatorCell' | 'surfaceChargeTester', Design>
+> = {
   ionizerBar,
   detectorBias,
   precipitatorCell,

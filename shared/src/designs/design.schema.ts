@@ -30,8 +30,16 @@ export const designDocumentSchema = {
     },
     load: {
       oneOf: [
-        { type: 'object', required: ['kind', 'currentA'], properties: { kind: { const: 'current' }, currentA: nonNegative } },
-        { type: 'object', required: ['kind', 'resistanceOhm'], properties: { kind: { const: 'resistance' }, resistanceOhm: positive } },
+        {
+          type: 'object',
+          required: ['kind', 'currentA'],
+          properties: { kind: { const: 'current' }, currentA: nonNegative },
+        },
+        {
+          type: 'object',
+          required: ['kind', 'resistanceOhm'],
+          properties: { kind: { const: 'resistance' }, resistanceOhm: positive },
+        },
       ],
     },
     targets: { $ref: '#/$defs/targets' },
@@ -45,7 +53,8 @@ export const designDocumentSchema = {
     },
     pulseDrive: {
       type: 'object',
-      description: 'Rectangular pulses: forward peak for dutyCycle of the period, flyback peak (opposite sign) for the rest.',
+      description:
+        'Rectangular pulses: forward peak for dutyCycle of the period, flyback peak (opposite sign) for the rest.',
       required: ['kind', 'forwardPeakV', 'flybackPeakV', 'frequencyHz', 'dutyCycle', 'sourceResistanceOhm'],
       properties: {
         kind: { const: 'pulse' },
@@ -77,7 +86,14 @@ export const designDocumentSchema = {
     },
     diode: {
       type: 'object',
-      required: ['saturationCurrentA', 'emissionCoefficient', 'seriesResistanceOhm', 'ratedPivV', 'ratedAverageCurrentA', 'ratedSurgeCurrentA'],
+      required: [
+        'saturationCurrentA',
+        'emissionCoefficient',
+        'seriesResistanceOhm',
+        'ratedPivV',
+        'ratedAverageCurrentA',
+        'ratedSurgeCurrentA',
+      ],
       properties: {
         saturationCurrentA: positive,
         emissionCoefficient: positive,
@@ -117,7 +133,11 @@ export const designDocumentSchema = {
       type: 'object',
       required: ['outputV', 'rippleMaxV', 'loadCurrentA', 'safeVoltageV', 'dischargeRule', 'spacing'],
       properties: {
-        outputV: { ...finite, not: { const: 0 }, description: 'Signed output voltage; negative for a negative ladder.' },
+        outputV: {
+          ...finite,
+          not: { const: 0 },
+          description: 'Signed output voltage; negative for a negative ladder.',
+        },
         rippleMaxV: positive,
         loadCurrentA: nonNegative,
         safeVoltageV: positive,

@@ -19,7 +19,13 @@ class IssueCollector {
     return null;
   }
 
-  number(parent: Json, key: string, path: string, rule: 'positive' | 'nonNegative' | 'any' | 'nonZero', optional = false): void {
+  number(
+    parent: Json,
+    key: string,
+    path: string,
+    rule: 'positive' | 'nonNegative' | 'any' | 'nonZero',
+    optional = false,
+  ): void {
     const value = parent[key];
     const at = `${path}.${key}`;
     if (value === undefined && optional) return;
@@ -81,7 +87,8 @@ function checkDrive(c: IssueCollector, value: unknown): void {
     c.number(drive, 'flybackPeakV', 'drive', 'nonNegative');
     c.fraction(drive, 'dutyCycle', 'drive', true, true);
     const sum = Number(drive.forwardPeakV) + Number(drive.flybackPeakV);
-    if (Number.isFinite(sum) && !(sum > 0)) c.add('drive.flybackPeakV', 'forward and flyback peaks cannot both be zero');
+    if (Number.isFinite(sum) && !(sum > 0))
+      c.add('drive.flybackPeakV', 'forward and flyback peaks cannot both be zero');
   }
 }
 
@@ -97,14 +104,18 @@ function checkMultiplier(c: IssueCollector, value: unknown): void {
   const topologyOk = c.oneOf(m, 'topology', 'multiplier', ['half-wave', 'full-wave', 'bridge-doubler']);
   c.integer(m, 'cellCount', 'multiplier', 1);
   const cellCount = m.cellCount;
-  if (m.topology === 'bridge-doubler' && cellCount !== 2) c.add('multiplier.cellCount', 'a bridge doubler has exactly 2 cells');
+  if (m.topology === 'bridge-doubler' && cellCount !== 2)
+    c.add('multiplier.cellCount', 'a bridge doubler has exactly 2 cells');
   if (!Array.isArray(m.capacitors)) {
     c.add('multiplier.capacitors', 'expected a list of capacitors from the source upward');
   } else {
     if (topologyOk && typeof cellCount === 'number' && Number.isInteger(cellCount) && cellCount >= 1) {
       const expected = capacitorCountFor(String(m.topology), cellCount);
       if (m.capacitors.length !== expected) {
-        c.add('multiplier.capacitors', `${String(m.topology)} with ${cellCount} cells needs ${expected} capacitors, got ${m.capacitors.length}`);
+        c.add(
+          'multiplier.capacitors',
+          `${String(m.topology)} with ${cellCount} cells needs ${expected} capacitors, got ${m.capacitors.length}`,
+        );
       }
     }
     m.capacitors.forEach((item, i) => {

@@ -17,7 +17,10 @@ function trapezoidLifeS(supply: CellsSupply, currentAt: (v: number) => number, s
     for (let i = 1; i < curve.length; i++) {
       const a = curve[i - 1]!;
       const b = curve[i]!;
-      if (s <= b.chargeFraction) return a.voltageV + ((b.voltageV - a.voltageV) * (s - a.chargeFraction)) / (b.chargeFraction - a.chargeFraction);
+      if (s <= b.chargeFraction)
+        return (
+          a.voltageV + ((b.voltageV - a.voltageV) * (s - a.chargeFraction)) / (b.chargeFraction - a.chargeFraction)
+        );
     }
     return curve[curve.length - 1]!.voltageV;
   };

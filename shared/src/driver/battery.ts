@@ -6,12 +6,20 @@ import type { CellCurvePoint, CellsSupply, DriverSupply, Estimated, MethodInfo }
 export function cellCurveOf(supply: CellsSupply): CellCurvePoint[] {
   const raw = supply.curve ?? (supply.chemistry === 'custom' ? undefined : defaultCellCurves[supply.chemistry]);
   if (!raw || raw.length < 2) {
-    throw new DomainError('invalid_design', 'a custom cell needs a discharge curve of at least two points', 'driver.supply.curve');
+    throw new DomainError(
+      'invalid_design',
+      'a custom cell needs a discharge curve of at least two points',
+      'driver.supply.curve',
+    );
   }
   const curve = [...raw].sort((a, b) => a.chargeFraction - b.chargeFraction);
   curve.forEach((p, i) => {
     if (!(p.chargeFraction >= 0 && p.chargeFraction <= 1) || !(p.voltageV > 0)) {
-      throw new DomainError('invalid_design', 'curve points need 0 ≤ chargeFraction ≤ 1 and a positive voltage', `driver.supply.curve[${i}]`);
+      throw new DomainError(
+        'invalid_design',
+        'curve points need 0 ≤ chargeFraction ≤ 1 and a positive voltage',
+        `driver.supply.curve[${i}]`,
+      );
     }
   });
   return curve;
@@ -29,14 +37,19 @@ export function cellOpenCircuitVoltageV(curve: readonly CellCurvePoint[], charge
     const b = curve[i]!;
     if (chargeFraction <= b.chargeFraction) {
       const span = b.chargeFraction - a.chargeFraction;
-      return span > 0 ? a.voltageV + ((b.voltageV - a.voltageV) * (chargeFraction - a.chargeFraction)) / span : b.voltageV;
+      return span > 0
+        ? a.voltageV + ((b.voltageV - a.voltageV) * (chargeFraction - a.chargeFraction)) / span
+        : b.voltageV;
     }
   }
   return last.voltageV;
 }
 
 /** Open-circuit voltage (V) and series resistance (Ω) of the whole supply at a state of charge (cells) . */
-export function supplyThevenin(supply: DriverSupply, chargeFraction = 1): { openCircuitV: number; resistanceOhm: number } {
+export function supplyThevenin(
+  supply: DriverSupply,
+  chargeFraction = 1,
+): { openCircuitV: number; resistanceOhm: number } {
   if (supply.kind === 'dc') return { openCircuitV: supply.voltageV, resistanceOhm: supply.sourceResistanceOhm };
   const curve = cellCurveOf(supply);
   return {
@@ -49,7 +62,11 @@ export function supplyThevenin(supply: DriverSupply, chargeFraction = 1): { open
 export function cellMaxContinuousCurrentA(supply: CellsSupply): number {
   if (supply.maxContinuousCurrentA !== undefined) return supply.maxContinuousCurrentA;
   if (supply.chemistry === 'custom') {
-    throw new DomainError('invalid_design', 'a custom cell needs maxContinuousCurrentA', 'driver.supply.maxContinuousCurrentA');
+    throw new DomainError(
+      'invalid_design',
+      'a custom cell needs maxContinuousCurrentA',
+      'driver.supply.maxContinuousCurrentA',
+    );
   }
   return defaultCellMaxContinuousCurrentA[supply.chemistry];
 }
@@ -72,7 +89,8 @@ const batteryLifeMethod: MethodInfo = {
     'room temperature, continuous operation without recovery',
     'per-cell curve interpolated linearly between its points',
   ],
-  source: 'Charge balance (definition of capacity); curve shape common practice, no source; Linden & Reddy, Handbook of Batteries, 4th ed. (from memory)',
+  source:
+    'Charge balance (definition of capacity); curve shape common practice, no source; Linden & Reddy, Handbook of Batteries, 4th ed. (from memory)',
 };
 
 /**
@@ -83,8 +101,10 @@ const batteryLifeMethod: MethodInfo = {
  * found by bisection. Method: charge balance, see `batteryLifeMethod`.
  */
 export function batteryLife(supply: CellsSupply, currentAtTerminalV: (terminalV: number) => number): BatteryLifeResult {
-  if (!(supply.capacityAh > 0)) throw new DomainError('invalid_design', 'capacity must be positive', 'driver.supply.capacityAh');
-  if (!(supply.cellsInSeries >= 1)) throw new DomainError('invalid_design', 'at least one cell', 'driver.supply.cellsInSeries');
+  if (!(supply.capacityAh > 0))
+    throw new DomainError('invalid_design', 'capacity must be positive', 'driver.supply.capacityAh');
+  if (!(supply.cellsInSeries >= 1))
+    throw new DomainError('invalid_design', 'at least one cell', 'driver.supply.cellsInSeries');
   const curve = cellCurveOf(supply);
   const n = supply.cellsInSeries;
   const currentAt = (sigma: number): { currentA: number; cellV: number } => {
@@ -104,7 +124,11 @@ export function batteryLife(supply: CellsSupply, currentAtTerminalV: (terminalV:
   };
   const margin = (sigma: number): number => currentAt(sigma).cellV - supply.endVoltagePerCellV;
   if (margin(1) <= 0) {
-    return { lifeS: { value: 0, method: batteryLifeMethod }, endChargeFraction: 1, meanCurrentA: currentAt(1).currentA };
+    return {
+      lifeS: { value: 0, method: batteryLifeMethod },
+      endChargeFraction: 1,
+      meanCurrentA: currentAt(1).currentA,
+    };
   }
   let endSigma = 0;
   if (margin(0) < 0) {
@@ -138,5 +162,9 @@ export function batteryLife(supply: CellsSupply, currentAtTerminalV: (terminalV:
     }
   }
   const drawnC = capacityC * (1 - endSigma);
-  return { lifeS: { value: lifeS, method: batteryLifeMethod }, endChargeFraction: endSigma, meanCurrentA: drawnC / lifeS };
+  return {
+    lifeS: { value: lifeS, method: batteryLifeMethod },
+    endChargeFraction: endSigma,
+    meanCurrentA: drawnC / lifeS,
+  };
 }

@@ -77,7 +77,9 @@ describe('estimateBlockingOscillator against published relations', () => {
   });
 
   it('reports a saturation-limited on-time when the core saturates first', () => {
-    const sat = estimateBlockingOscillator(idealStage({ transformer: { ...stage.transformer, saturationCurrentA: 0.2 } }));
+    const sat = estimateBlockingOscillator(
+      idealStage({ transformer: { ...stage.transformer, saturationCurrentA: 0.2 } }),
+    );
     expect(sat.onTimeLimit).toBe('saturation');
     closeRel(sat.peakPrimaryCurrentA.value, 0.2);
     closeRel(sat.collectorPeakCurrentA.value, ipk);
@@ -104,7 +106,9 @@ describe('estimateBlockingOscillator against published relations', () => {
   });
 
   it('rejects a supply too low to turn the transistor on', () => {
-    expect(() => estimateBlockingOscillator(idealStage({ supply: { kind: 'dc', voltageV: 0.15, sourceResistanceOhm: 0 } }))).toThrow(DomainError);
+    expect(() =>
+      estimateBlockingOscillator(idealStage({ supply: { kind: 'dc', voltageV: 0.15, sourceResistanceOhm: 0 } })),
+    ).toThrow(DomainError);
   });
 
   it('solves the loaded supply voltage of the demo driver consistently (V = Voc − I·R)', () => {
@@ -126,7 +130,11 @@ describe('estimateBlockingOscillator properties (fast-check)', () => {
   it('a higher Lp gives a lower base-limited frequency (f ∝ 1/Lp with the current fixed by the base)', () => {
     fc.assert(
       fc.property(arbStage, fc.double({ min: 1.01, max: 10, noNaN: true }), ({ lp, rb, vin }, factor) => {
-        const base = idealStage({ supply: { kind: 'dc', voltageV: vin, sourceResistanceOhm: 0 }, baseResistorOhm: rb, clamp: { kind: 'zener', clampVoltageV: vin * 4 } });
+        const base = idealStage({
+          supply: { kind: 'dc', voltageV: vin, sourceResistanceOhm: 0 },
+          baseResistorOhm: rb,
+          clamp: { kind: 'zener', clampVoltageV: vin * 4 },
+        });
         const tx = { ...base.transformer, saturationCurrentA: 1e3 };
         const a = estimateBlockingOscillator({ ...base, transformer: { ...tx, primaryInductanceH: lp } });
         const b = estimateBlockingOscillator({ ...base, transformer: { ...tx, primaryInductanceH: lp * factor } });
@@ -139,7 +147,10 @@ describe('estimateBlockingOscillator properties (fast-check)', () => {
   it('a smaller base resistor gives a higher peak current and energy per cycle while base-limited', () => {
     fc.assert(
       fc.property(arbStage, ({ lp, rb, vin, ratio }) => {
-        const base = idealStage({ supply: { kind: 'dc', voltageV: vin, sourceResistanceOhm: 0 }, clamp: { kind: 'zener', clampVoltageV: vin * ratio } });
+        const base = idealStage({
+          supply: { kind: 'dc', voltageV: vin, sourceResistanceOhm: 0 },
+          clamp: { kind: 'zener', clampVoltageV: vin * ratio },
+        });
         const tx = { ...base.transformer, primaryInductanceH: lp, saturationCurrentA: 1e3 };
         const a = estimateBlockingOscillator({ ...base, transformer: tx, baseResistorOhm: rb });
         const b = estimateBlockingOscillator({ ...base, transformer: tx, baseResistorOhm: rb / 2 });
@@ -152,8 +163,18 @@ describe('estimateBlockingOscillator properties (fast-check)', () => {
   it('never reports an efficiency above 1 or deliverable power above input power', () => {
     fc.assert(
       fc.property(arbStage, fc.double({ min: 0.8, max: 1, noNaN: true }), ({ lp, rb, vin, ratio }, k) => {
-        const base = idealStage({ supply: { kind: 'dc', voltageV: vin, sourceResistanceOhm: 0.2 }, baseResistorOhm: rb, clamp: { kind: 'zener', clampVoltageV: vin * ratio } });
-        const tx = { ...base.transformer, primaryInductanceH: lp, couplingCoefficient: k, primaryResistanceOhm: 0.05, secondaryResistanceOhm: 20 };
+        const base = idealStage({
+          supply: { kind: 'dc', voltageV: vin, sourceResistanceOhm: 0.2 },
+          baseResistorOhm: rb,
+          clamp: { kind: 'zener', clampVoltageV: vin * ratio },
+        });
+        const tx = {
+          ...base.transformer,
+          primaryInductanceH: lp,
+          couplingCoefficient: k,
+          primaryResistanceOhm: 0.05,
+          secondaryResistanceOhm: 20,
+        };
         const e = estimateBlockingOscillator({ ...base, transformer: tx });
         expect(e.efficiency.value).toBeLessThanOrEqual(1);
         expect(e.deliverablePowerW.value).toBeLessThanOrEqual(e.inputPowerW.value);

@@ -37,11 +37,42 @@ export function buildDriverCircuit(driver: DriverStage, options: DriverCircuitOp
   const n = DRIVER_NODES;
   const el: CircuitElement[] = [];
   const riseS = options.switchOnRiseS ?? 1e-6;
-  el.push({ kind: 'voltage-source', name: DRIVER_SUPPLY_SOURCE, nodePlus: 'emf', nodeMinus: '0', waveform: { kind: 'pwl', points: [{ timeS: 0, value: 0 }, { timeS: riseS, value: openCircuitV }] } });
-  el.push({ kind: 'resistor', name: 'Rsrc', nodeA: 'emf', nodeB: n.supply, resistanceOhm: Math.max(resistanceOhm, 1e-3) });
-  el.push({ kind: 'capacitor', name: 'Cbyp', nodeA: n.supply, nodeB: '0', capacitanceF: options.bypassCapacitanceF ?? 100e-6 });
+  el.push({
+    kind: 'voltage-source',
+    name: DRIVER_SUPPLY_SOURCE,
+    nodePlus: 'emf',
+    nodeMinus: '0',
+    waveform: {
+      kind: 'pwl',
+      points: [
+        { timeS: 0, value: 0 },
+        { timeS: riseS, value: openCircuitV },
+      ],
+    },
+  });
+  el.push({
+    kind: 'resistor',
+    name: 'Rsrc',
+    nodeA: 'emf',
+    nodeB: n.supply,
+    resistanceOhm: Math.max(resistanceOhm, 1e-3),
+  });
+  el.push({
+    kind: 'capacitor',
+    name: 'Cbyp',
+    nodeA: n.supply,
+    nodeB: '0',
+    capacitanceF: options.bypassCapacitanceF ?? 100e-6,
+  });
   const collectorEnd = driver.collectorResistorOhm ? 'pcol' : n.collector;
-  if (driver.collectorResistorOhm) el.push({ kind: 'resistor', name: 'Rcol', nodeA: 'pcol', nodeB: n.collector, resistanceOhm: driver.collectorResistorOhm });
+  if (driver.collectorResistorOhm)
+    el.push({
+      kind: 'resistor',
+      name: 'Rcol',
+      nodeA: 'pcol',
+      nodeB: n.collector,
+      resistanceOhm: driver.collectorResistorOhm,
+    });
   const ratioFb = tx.feedbackTurns / tx.primaryTurns;
   const ratioSec = tx.secondaryTurns / tx.primaryTurns;
   el.push({
@@ -49,28 +80,100 @@ export function buildDriverCircuit(driver: DriverStage, options: DriverCircuitOp
     name: 'T1',
     couplingCoefficient: tx.couplingCoefficient,
     windings: [
-      { name: 'Lp', nodeA: n.supply, nodeB: collectorEnd, inductanceH: tx.primaryInductanceH, resistanceOhm: tx.primaryResistanceOhm },
-      { name: 'Lfb', nodeA: 'fb', nodeB: n.supply, inductanceH: tx.primaryInductanceH * ratioFb ** 2, resistanceOhm: tx.feedbackResistanceOhm },
-      { name: 'Ls', nodeA: n.secondary, nodeB: '0', inductanceH: tx.primaryInductanceH * ratioSec ** 2, resistanceOhm: tx.secondaryResistanceOhm },
+      {
+        name: 'Lp',
+        nodeA: n.supply,
+        nodeB: collectorEnd,
+        inductanceH: tx.primaryInductanceH,
+        resistanceOhm: tx.primaryResistanceOhm,
+      },
+      {
+        name: 'Lfb',
+        nodeA: 'fb',
+        nodeB: n.supply,
+        inductanceH: tx.primaryInductanceH * ratioFb ** 2,
+        resistanceOhm: tx.feedbackResistanceOhm,
+      },
+      {
+        name: 'Ls',
+        nodeA: n.secondary,
+        nodeB: '0',
+        inductanceH: tx.primaryInductanceH * ratioSec ** 2,
+        resistanceOhm: tx.secondaryResistanceOhm,
+      },
     ],
   });
   el.push({ kind: 'resistor', name: 'Rb', nodeA: 'fb', nodeB: n.base, resistanceOhm: driver.baseResistorOhm });
-  const model: NpnModel = { saturationCurrentA: q.saturationCurrentA ?? 1e-14, forwardBeta: q.forwardBeta, reverseBeta: q.reverseBeta, baseEmitterCapacitanceF: 10e-12, baseCollectorCapacitanceF: 5e-12 };
+  const model: NpnModel = {
+    saturationCurrentA: q.saturationCurrentA ?? 1e-14,
+    forwardBeta: q.forwardBeta,
+    reverseBeta: q.reverseBeta,
+    baseEmitterCapacitanceF: 10e-12,
+    baseCollectorCapacitanceF: 5e-12,
+  };
   el.push({ kind: 'npn', name: 'Q1', collector: n.collector, base: n.base, emitter: '0', model });
-  el.push({ kind: 'capacitor', name: 'Ccol', nodeA: n.collector, nodeB: '0', capacitanceF: options.collectorNodeCapacitanceF ?? 100e-12 });
+  el.push({
+    kind: 'capacitor',
+    name: 'Ccol',
+    nodeA: n.collector,
+    nodeB: '0',
+    capacitanceF: options.collectorNodeCapacitanceF ?? 100e-12,
+  });
   const clamp = driver.clamp;
   if (clamp?.kind === 'zener') {
-    el.push({ kind: 'diode', name: 'Dz', anode: '0', cathode: n.collector, model: { saturationCurrentA: 1e-12, emissionCoefficient: 1, seriesResistanceOhm: 0.5, breakdownVoltageV: clamp.clampVoltageV, breakdownCurrentA: 1e-3 } });
+    el.push({
+      kind: 'diode',
+      name: 'Dz',
+      anode: '0',
+      cathode: n.collector,
+      model: {
+        saturationCurrentA: 1e-12,
+        emissionCoefficient: 1,
+        seriesResistanceOhm: 0.5,
+        breakdownVoltageV: clamp.clampVoltageV,
+        breakdownCurrentA: 1e-3,
+      },
+    });
   } else if (clamp?.kind === 'rcd') {
-    el.push({ kind: 'diode', name: 'Dc', anode: n.collector, cathode: 'clp', model: { saturationCurrentA: 1e-12, emissionCoefficient: 1, seriesResistanceOhm: 0.5 } });
-    el.push({ kind: 'capacitor', name: 'Cclp', nodeA: 'clp', nodeB: n.supply, capacitanceF: clamp.capacitorF ?? 10e-9 });
-    el.push({ kind: 'resistor', name: 'Rclp', nodeA: 'clp', nodeB: n.supply, resistanceOhm: clamp.resistorOhm ?? 10e3 });
+    el.push({
+      kind: 'diode',
+      name: 'Dc',
+      anode: n.collector,
+      cathode: 'clp',
+      model: { saturationCurrentA: 1e-12, emissionCoefficient: 1, seriesResistanceOhm: 0.5 },
+    });
+    el.push({
+      kind: 'capacitor',
+      name: 'Cclp',
+      nodeA: 'clp',
+      nodeB: n.supply,
+      capacitanceF: clamp.capacitorF ?? 10e-9,
+    });
+    el.push({
+      kind: 'resistor',
+      name: 'Rclp',
+      nodeA: 'clp',
+      nodeB: n.supply,
+      resistanceOhm: clamp.resistorOhm ?? 10e3,
+    });
   }
   if (driver.indicatorLamp) {
-    el.push({ kind: 'current-source', name: 'Ilamp', nodePlus: n.supply, nodeMinus: '0', waveform: { kind: 'dc', value: driver.indicatorLamp.currentA } });
+    el.push({
+      kind: 'current-source',
+      name: 'Ilamp',
+      nodePlus: n.supply,
+      nodeMinus: '0',
+      waveform: { kind: 'dc', value: driver.indicatorLamp.currentA },
+    });
   }
   if (!options.ladder) {
-    el.push({ kind: 'resistor', name: 'Rsec', nodeA: n.secondary, nodeB: '0', resistanceOhm: options.openSecondaryOhm ?? 100e6 });
+    el.push({
+      kind: 'resistor',
+      name: 'Rsec',
+      nodeA: n.secondary,
+      nodeB: '0',
+      resistanceOhm: options.openSecondaryOhm ?? 100e6,
+    });
     return { title: 'blocking oscillator driver', elements: el };
   }
   if (options.ladder.topology !== 'half-wave') {
@@ -78,10 +181,16 @@ export function buildDriverCircuit(driver: DriverStage, options: DriverCircuitOp
   }
   // The ladder builder drives node 's' from a source 'Vsrc' when the source resistance is zero: replace
   // that source by the secondary winding.
-  const ladder = buildLadderCircuit({ ...options.ladder, drive: { kind: 'pulse', forwardPeakV: 1, flybackPeakV: 1, frequencyHz: 1, dutyCycle: 0.5, sourceResistanceOhm: 0 } });
+  const ladder = buildLadderCircuit({
+    ...options.ladder,
+    drive: { kind: 'pulse', forwardPeakV: 1, flybackPeakV: 1, frequencyHz: 1, dutyCycle: 0.5, sourceResistanceOhm: 0 },
+  });
   const source = ladder.elements.find((e) => e.kind === 'voltage-source' && e.name === 'Vsrc');
   if (!source || source.kind !== 'voltage-source' || source.nodePlus !== n.secondary || source.nodeMinus !== '0') {
     throw new DomainError('invalid_argument', 'unexpected ladder drive layout');
   }
-  return { title: `blocking oscillator driver with ${ladder.title}`, elements: [...el, ...ladder.elements.filter((e) => e !== source)] };
+  return {
+    title: `blocking oscillator driver with ${ladder.title}`,
+    elements: [...el, ...ladder.elements.filter((e) => e !== source)],
+  };
 }

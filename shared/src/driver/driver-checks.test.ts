@@ -19,7 +19,9 @@ describe('runDriverChecks', () => {
     const pass = verdictOf(demo, 'driver.collector-voltage');
     expect(pass.verdict).toBe('pass');
     expect(pass.marginPct).toBeCloseTo(25, 9); // exact ratio, rounding only
-    expect(verdictOf({ ...demo, clamp: { kind: 'zener', clampVoltageV: 36 } }, 'driver.collector-voltage').verdict).toBe('marginal');
+    expect(
+      verdictOf({ ...demo, clamp: { kind: 'zener', clampVoltageV: 36 } }, 'driver.collector-voltage').verdict,
+    ).toBe('marginal');
   });
 
   it('fails an unclamped stage whose flyback rises to breakdown plus the leakage spike', () => {
@@ -32,7 +34,9 @@ describe('runDriverChecks', () => {
     const ok = verdictOf(demo, 'driver.base-drive');
     expect(ok.value).toBeGreaterThan(ok.limit);
     // A load far beyond the power-limit onset needs more than the base can hold.
-    const heavy = runDriverChecks(demo, { ladder, ratedLoadCurrentA: 1e-3 }).verdicts.find((x) => x.id === 'driver.base-drive');
+    const heavy = runDriverChecks(demo, { ladder, ratedLoadCurrentA: 1e-3 }).verdicts.find(
+      (x) => x.id === 'driver.base-drive',
+    );
     expect(heavy?.verdict).toBe('fail');
   });
 
@@ -65,7 +69,10 @@ describe('runDriverChecks', () => {
     // The base-limited stage draws less as the cells fall, so the life lies between the charge over the
     // fresh drain and the charge over the drain at the end voltage.
     const freshA = r.ratedLoad!.supplyCurrentA;
-    const endA = estimateBlockingOscillator({ ...demo, supply: { kind: 'dc', voltageV: 2 * supply.endVoltagePerCellV, sourceResistanceOhm: 0 } }).inputCurrentA.value;
+    const endA = estimateBlockingOscillator({
+      ...demo,
+      supply: { kind: 'dc', voltageV: 2 * supply.endVoltagePerCellV, sourceResistanceOhm: 0 },
+    }).inputCurrentA.value;
     expect(life.lifeS.value).toBeGreaterThan(drawnC / freshA);
     expect(life.lifeS.value).toBeLessThan(drawnC / (endA * 0.9));
   });

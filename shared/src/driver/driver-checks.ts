@@ -30,12 +30,28 @@ const baseOverdrive = 1.5;
 /** Battery life: pass at ≥ 1.2 × the target, leaving room for cold and ageing (common practice, no source). */
 const lifeReserve = 1.2;
 
-function upperLimit(id: string, subject: string, rule: string, value: number, limit: number, unit: string, passFraction: number): DriverCheckVerdict {
+function upperLimit(
+  id: string,
+  subject: string,
+  rule: string,
+  value: number,
+  limit: number,
+  unit: string,
+  passFraction: number,
+): DriverCheckVerdict {
   const verdict = value <= passFraction * limit ? 'pass' : value <= limit ? 'marginal' : 'fail';
   return { id, subject, rule, verdict, marginPct: ((limit - value) / limit) * 100, value, limit, unit };
 }
 
-function lowerLimit(id: string, subject: string, rule: string, value: number, limit: number, unit: string, passFactor: number): DriverCheckVerdict {
+function lowerLimit(
+  id: string,
+  subject: string,
+  rule: string,
+  value: number,
+  limit: number,
+  unit: string,
+  passFactor: number,
+): DriverCheckVerdict {
   const verdict = value >= passFactor * limit ? 'pass' : value >= limit ? 'marginal' : 'fail';
   return { id, subject, rule, verdict, marginPct: ((value - limit) / limit) * 100, value, limit, unit };
 }
@@ -43,7 +59,10 @@ function lowerLimit(id: string, subject: string, rule: string, value: number, li
 const hipotMethod: MethodInfo = {
   methodId: 'insulation.hipot-2u-plus-1000',
   summary: 'Hipot test voltage 2·U + 1000 V, U the peak working voltage across the secondary-to-primary insulation.',
-  assumptions: ['basic insulation', 'U taken as the larger of the forward and flyback secondary peaks (one end of the secondary at ground)'],
+  assumptions: [
+    'basic insulation',
+    'U taken as the larger of the forward and flyback secondary peaks (one end of the secondary at ground)',
+  ],
   source: 'common practice, no source',
 };
 
@@ -51,7 +70,13 @@ const hipotMethod: MethodInfo = {
  * Supply current (A) of the driver at the rated load as a function of the supply terminal voltage (V),
  * tabulated on a voltage grid and interpolated linearly (the full solve at each integration point would be slow).
  */
-function supplyCurrentTable(driver: DriverStage, ladder: LadderLoadLine | undefined, loadA: number, lowV: number, highV: number): (v: number) => number {
+function supplyCurrentTable(
+  driver: DriverStage,
+  ladder: LadderLoadLine | undefined,
+  loadA: number,
+  lowV: number,
+  highV: number,
+): (v: number) => number {
   const points = 16;
   const table: { v: number; i: number }[] = [];
   for (let k = 0; k < points; k++) {
@@ -59,9 +84,12 @@ function supplyCurrentTable(driver: DriverStage, ladder: LadderLoadLine | undefi
     const bench: DriverStage = { ...driver, supply: { kind: 'dc', voltageV: v, sourceResistanceOhm: 0 } };
     let i: number;
     try {
-      i = ladder ? solveLoadPoint(bench, ladder, loadA).supplyCurrentA : estimateBlockingOscillator(bench).inputCurrentA.value;
+      i = ladder
+        ? solveLoadPoint(bench, ladder, loadA).supplyCurrentA
+        : estimateBlockingOscillator(bench).inputCurrentA.value;
     } catch (error) {
-      if (error instanceof DomainError) i = 0; // the stage stops: no drain below this voltage
+      if (error instanceof DomainError)
+        i = 0; // the stage stops: no drain below this voltage
       else throw error;
     }
     table.push({ v, i });
@@ -90,8 +118,24 @@ export function runDriverChecks(driver: DriverStage, input: DriverChecksInput = 
   const ratedLoad = solved;
   const q = driver.transistor;
   const verdicts: DriverCheckVerdict[] = [
-    upperLimit('driver.collector-voltage', 'transistor', 'Vce,pk ≤ Vce0,max, pass at ≤ 80 % (derating, common practice)', atLoad.collectorPeakV.value, q.vceoMaxV, 'V', stressDerating),
-    upperLimit('driver.collector-current', 'transistor', 'Ic,pk ≤ Ic,max, pass at ≤ 80 % (derating, common practice)', atLoad.collectorPeakCurrentA.value, q.icMaxA, 'A', stressDerating),
+    upperLimit(
+      'driver.collector-voltage',
+      'transistor',
+      'Vce,pk ≤ Vce0,max, pass at ≤ 80 % (derating, common practice)',
+      atLoad.collectorPeakV.value,
+      q.vceoMaxV,
+      'V',
+      stressDerating,
+    ),
+    upperLimit(
+      'driver.collector-current',
+      'transistor',
+      'Ic,pk ≤ Ic,max, pass at ≤ 80 % (derating, common practice)',
+      atLoad.collectorPeakCurrentA.value,
+      q.icMaxA,
+      'A',
+      stressDerating,
+    ),
   ];
 
   // Base drive margin: the peak current the rated load needs. With the flyback at its limit P ∝ E·f ∝ Ipk
@@ -100,28 +144,70 @@ export function runDriverChecks(driver: DriverStage, input: DriverChecksInput = 
     const e = estimate;
     const neededW = ratedLoad.flybackChargeRatio * ratedLoad.ladderCurrentA * e.maxFlybackSecondaryPeakV;
     const neededA = e.peakPrimaryCurrentA.value * (neededW / e.deliverablePowerW.value);
-    verdicts.push(lowerLimit('driver.base-drive', 'transistor', 'hFE·I_B ≥ the peak current the rated load needs, pass at ≥ 1.5× (hFE spread, common practice)', e.baseLimitedCurrentA, neededA, 'A', baseOverdrive));
+    verdicts.push(
+      lowerLimit(
+        'driver.base-drive',
+        'transistor',
+        'hFE·I_B ≥ the peak current the rated load needs, pass at ≥ 1.5× (hFE spread, common practice)',
+        e.baseLimitedCurrentA,
+        neededA,
+        'A',
+        baseOverdrive,
+      ),
+    );
   }
 
   const tx = driver.transformer;
   const windingPeakV = Math.max(atLoad.forwardSecondaryPeakV.value, atLoad.flybackSecondaryPeakV.value);
   const hipotTestVoltageV: Estimated = { value: 2 * windingPeakV + 1000, method: hipotMethod };
   if (tx.insulation) {
-    verdicts.push(upperLimit('driver.winding-insulation', 'transformer', 'secondary peak ≤ rated insulation voltage, pass at ≤ 80 % (common practice)', windingPeakV, tx.insulation.ratedVoltageV, 'V', stressDerating));
+    verdicts.push(
+      upperLimit(
+        'driver.winding-insulation',
+        'transformer',
+        'secondary peak ≤ rated insulation voltage, pass at ≤ 80 % (common practice)',
+        windingPeakV,
+        tx.insulation.ratedVoltageV,
+        'V',
+        stressDerating,
+      ),
+    );
   }
 
   let life: BatteryLifeResult | null = null;
   if (driver.supply.kind === 'cells') {
     const supply = driver.supply;
     const drainA = ratedLoad ? ratedLoad.supplyCurrentA : estimate.inputCurrentA.value;
-    verdicts.push(upperLimit('driver.cell-current', 'battery', `cell drain ≤ the ${supply.chemistry} cell's continuous capability, pass at ≤ 50 % (common practice)`, drainA, cellMaxContinuousCurrentA(supply), 'A', cellDrainDerating));
+    verdicts.push(
+      upperLimit(
+        'driver.cell-current',
+        'battery',
+        `cell drain ≤ the ${supply.chemistry} cell's continuous capability, pass at ≤ 50 % (common practice)`,
+        drainA,
+        cellMaxContinuousCurrentA(supply),
+        'A',
+        cellDrainDerating,
+      ),
+    );
     const highV = 1.05 * supply.cellsInSeries * Math.max(...cellCurveOf(supply).map((p) => p.voltageV));
     const lowV = 0.8 * supply.cellsInSeries * supply.endVoltagePerCellV;
     const currentAt = supplyCurrentTable(driver, input.ladder, loadA, lowV, highV);
     life = batteryLife(supply, currentAt);
-    const targetS = input.batteryLifeTargetS ?? (driver.batteryLifeTargetH !== undefined ? driver.batteryLifeTargetH * 3600 : undefined);
+    const targetS =
+      input.batteryLifeTargetS ??
+      (driver.batteryLifeTargetH !== undefined ? driver.batteryLifeTargetH * 3600 : undefined);
     if (targetS !== undefined) {
-      verdicts.push(lowerLimit('driver.battery-life', 'battery', 'life to the end voltage ≥ target, pass at ≥ 1.2× (cold and ageing, common practice)', life.lifeS.value, targetS, 's', lifeReserve));
+      verdicts.push(
+        lowerLimit(
+          'driver.battery-life',
+          'battery',
+          'life to the end voltage ≥ target, pass at ≥ 1.2× (cold and ageing, common practice)',
+          life.lifeS.value,
+          targetS,
+          's',
+          lifeReserve,
+        ),
+      );
     }
   }
   return { verdicts, estimate, ratedLoad, hipotTestVoltageV, batteryLife: life };

@@ -5,9 +5,22 @@ import type { CellCurvePoint, DriverCheckVerdict, DriverStage, Estimated, Method
 import { driverOperatingPoint, type LadderLoadLine, type LoadPoint, type OperatingLimit } from './operating-point';
 
 const FIGURE_KEYS = [
-  'onTimeS', 'onTimeLimit', 'peakPrimaryCurrentA', 'collectorPeakCurrentA', 'flybackTimeS', 'frequencyHz', 'energyPerCycleJ',
-  'deliverablePowerW', 'forwardSecondaryPeakV', 'flybackSecondaryPeakV', 'collectorPeakV', 'baseCurrentA', 'supplyVoltageV',
-  'inputCurrentA', 'inputPowerW', 'efficiency',
+  'onTimeS',
+  'onTimeLimit',
+  'peakPrimaryCurrentA',
+  'collectorPeakCurrentA',
+  'flybackTimeS',
+  'frequencyHz',
+  'energyPerCycleJ',
+  'deliverablePowerW',
+  'forwardSecondaryPeakV',
+  'flybackSecondaryPeakV',
+  'collectorPeakV',
+  'baseCurrentA',
+  'supplyVoltageV',
+  'inputCurrentA',
+  'inputPowerW',
+  'efficiency',
 ] as const;
 
 /** The driver stage's figures at the rated load, each with the method that produced it. */
@@ -27,7 +40,8 @@ export interface DriverReport {
     method: MethodInfo;
   };
   /** Null for a DC supply. */
-  batteryLife: (BatteryLifeResult & { endVoltagePerCellV: number; cellCurve: CellCurvePoint[]; targetS: number | null }) | null;
+  batteryLife:
+    (BatteryLifeResult & { endVoltagePerCellV: number; cellCurve: CellCurvePoint[]; targetS: number | null }) | null;
   hipotTestVoltageV: Estimated;
   checks: DriverCheckVerdict[];
 }
@@ -49,8 +63,18 @@ export function driverReport(driver: DriverStage, ladder: LadderLoadLine, ratedL
   const supply = driver.supply;
   return {
     figures: figuresOf(atLoad),
-    atLimit: { deliverablePowerW: limit.deliverablePowerW, flybackSecondaryPeakV: limit.flybackSecondaryPeakV, frequencyHz: limit.frequencyHz },
-    operatingPoint: { limitedBy: ratedLoad.limitedBy, ratedLoad, powerLimitOnsetA: op.powerLimitOnsetA, curve: op.curve, method: op.method },
+    atLimit: {
+      deliverablePowerW: limit.deliverablePowerW,
+      flybackSecondaryPeakV: limit.flybackSecondaryPeakV,
+      frequencyHz: limit.frequencyHz,
+    },
+    operatingPoint: {
+      limitedBy: ratedLoad.limitedBy,
+      ratedLoad,
+      powerLimitOnsetA: op.powerLimitOnsetA,
+      curve: op.curve,
+      method: op.method,
+    },
     batteryLife:
       checks.batteryLife && supply.kind === 'cells'
         ? {

@@ -14,12 +14,31 @@ export type {
 } from './driver.types';
 export { defaultCellCurves, defaultCellMaxContinuousCurrentA } from './cell-curves';
 export { driverExamples } from './driver-examples';
-export { batteryLife, cellCurveOf, cellOpenCircuitVoltageV, cellMaxContinuousCurrentA, supplyThevenin } from './battery';
+export {
+  batteryLife,
+  cellCurveOf,
+  cellOpenCircuitVoltageV,
+  cellMaxContinuousCurrentA,
+  supplyThevenin,
+} from './battery';
 export type { BatteryLifeResult } from './battery';
 export { estimateBlockingOscillator } from './blocking-oscillator';
 export type { BlockingOscillatorEstimate, BlockingOscillatorOptions, OnTimeLimit } from './blocking-oscillator';
-export { driverOperatingPoint, engineLadderLoadLine, pulseDriveOf, solveLoadPoint, OPERATING_POINT_METHOD } from './operating-point';
-export type { LadderDrive, LadderLoadLine, LadderState, LoadPoint, OperatingLimit, OperatingPointResult } from './operating-point';
+export {
+  driverOperatingPoint,
+  engineLadderLoadLine,
+  pulseDriveOf,
+  solveLoadPoint,
+  OPERATING_POINT_METHOD,
+} from './operating-point';
+export type {
+  LadderDrive,
+  LadderLoadLine,
+  LadderState,
+  LoadPoint,
+  OperatingLimit,
+  OperatingPointResult,
+} from './operating-point';
 export { driverReport } from './driver-report';
 export type { DriverFigures, DriverReport } from './driver-report';
 export { runDriverChecks } from './driver-checks';

@@ -6,7 +6,13 @@ import type { LadderInput } from '../multiplier/ladder.types';
 import { estimateBlockingOscillator } from './blocking-oscillator';
 import { driverExamples } from './driver-examples';
 import type { DriverStage } from './driver.types';
-import { driverOperatingPoint, engineLadderLoadLine, halfWaveCascadeLoadLine, solveLoadPoint, type LadderLoadLine } from './operating-point';
+import {
+  driverOperatingPoint,
+  engineLadderLoadLine,
+  halfWaveCascadeLoadLine,
+  solveLoadPoint,
+  type LadderLoadLine,
+} from './operating-point';
 
 const demo = driverExamples.surfaceChargeTester;
 const demoDesign = designExamples.surfaceChargeTester;
@@ -30,8 +36,15 @@ const flybackRectifier: LadderLoadLine = {
 const bench: DriverStage = {
   supply: { kind: 'dc', voltageV: 12, sourceResistanceOhm: 0 },
   transformer: {
-    primaryTurns: 10, feedbackTurns: 4, secondaryTurns: 500, primaryInductanceH: 200e-6, couplingCoefficient: 1,
-    primaryResistanceOhm: 0, feedbackResistanceOhm: 0, secondaryResistanceOhm: 0, saturationCurrentA: 5,
+    primaryTurns: 10,
+    feedbackTurns: 4,
+    secondaryTurns: 500,
+    primaryInductanceH: 200e-6,
+    couplingCoefficient: 1,
+    primaryResistanceOhm: 0,
+    feedbackResistanceOhm: 0,
+    secondaryResistanceOhm: 0,
+    saturationCurrentA: 5,
   },
   transistor: { forwardBeta: 100, reverseBeta: 2, vbeOnV: 0.7, vceSatV: 0.2, vceoMaxV: 200, icMaxA: 5 },
   baseResistorOhm: 1000,
@@ -61,7 +74,12 @@ describe('solveLoadPoint against the textbook cascade (reference line)', () => {
 describe('the engine ladder as the driver load (demo design: four cells, bleeder, series resistor)', () => {
   it('pushes n charges per output charge from each pulse of an n-stage half-wave cascade (REFERENCES.md §1: V0 ≈ n·(V₊ + V₋))', () => {
     const e = estimateBlockingOscillator(demo);
-    const drive = { forwardPeakV: e.forwardSecondaryPeakV.value, flybackPeakV: e.flybackSecondaryPeakV.value, frequencyHz: e.frequencyHz.value, dutyCycle: 0.9 };
+    const drive = {
+      forwardPeakV: e.forwardSecondaryPeakV.value,
+      flybackPeakV: e.flybackSecondaryPeakV.value,
+      frequencyHz: e.frequencyHz.value,
+      dutyCycle: 0.9,
+    };
     const ratios = demoLadder.chargeRatios(drive, 10e-6);
     // 2 %: the stacked diode's drop grows with the log of its current, which the peaks move slightly.
     expect(Math.abs(ratios.flyback - 2) / 2).toBeLessThan(0.02);
@@ -78,7 +96,9 @@ describe('the engine ladder as the driver load (demo design: four cells, bleeder
     const independent = estimateBlockingOscillator(stiff, { flybackSecondaryPeakV: p.flybackSecondaryPeakV });
     const drawnW = p.flybackChargeRatio * p.ladderCurrentA * p.flybackSecondaryPeakV;
     // 1e-6 relative: the flyback peak comes from a bisection to 1e-12 of its bracket; the ladder current moves with it.
-    expect(Math.abs(drawnW - independent.deliverablePowerW.value) / independent.deliverablePowerW.value).toBeLessThan(1e-6);
+    expect(Math.abs(drawnW - independent.deliverablePowerW.value) / independent.deliverablePowerW.value).toBeLessThan(
+      1e-6,
+    );
   });
 
   it('never puts out more than the stage delivers: V·I ≤ E·f·η + forward power over the whole curve (REFERENCES.md §3 power balance)', () => {
@@ -88,7 +108,10 @@ describe('the engine ladder as the driver load (demo design: four cells, bleeder
       const e = estimateBlockingOscillator(demo, { flybackSecondaryPeakV: point.flybackSecondaryPeakV });
       const forwardW = 2 * e.forwardSecondaryPeakV.value * point.ladderCurrentA; // forward charge ratio n = 2 (§1)
       const topV = point.outputV + point.loadCurrentA * demoLadderInput.seriesOutputResistanceOhm;
-      const ladderW = point.outputPowerW + point.loadCurrentA ** 2 * demoLadderInput.seriesOutputResistanceOhm + (topV * topV) / bleederOhm;
+      const ladderW =
+        point.outputPowerW +
+        point.loadCurrentA ** 2 * demoLadderInput.seriesOutputResistanceOhm +
+        (topV * topV) / bleederOhm;
       // 2 % slack: the forward charge ratio is the textbook n, within 2 % of the engine's (test above).
       expect(ladderW).toBeLessThanOrEqual((e.deliverablePowerW.value + forwardW) * 1.02);
     }

@@ -4,7 +4,11 @@ import { prepareLadder, terminalMeanAt, type PreparedLadder } from '../multiplie
 import { bracketedRoot } from '../multiplier/bracketed-root';
 import { withDrive } from '../multiplier/with-drive';
 import type { LadderInput } from '../multiplier/ladder.types';
-import { estimateBlockingOscillator, type BlockingOscillatorEstimate, type BlockingOscillatorOptions } from './blocking-oscillator';
+import {
+  estimateBlockingOscillator,
+  type BlockingOscillatorEstimate,
+  type BlockingOscillatorOptions,
+} from './blocking-oscillator';
 import type { DriverStage, MethodInfo } from './driver.types';
 
 /** The secondary drive a ladder sees from a blocking oscillator: unequal forward and flyback peaks. */
@@ -61,7 +65,9 @@ export function engineLadderLoadLine(input: LadderInput): LadderLoadLine {
   let bare: PreparedLadder | null = null;
   const topAt = (drive: LadderDrive, ladderCurrentA: number) => {
     const pulse = pulseDriveOf(drive, sourceOhm);
-    bare = bare ? withDrive(bare, pulse) : prepareLadder({ ...input, load: null, bleederOhm: null, seriesOutputResistanceOhm: 0, drive: pulse });
+    bare = bare
+      ? withDrive(bare, pulse)
+      : prepareLadder({ ...input, load: null, bleederOhm: null, seriesOutputResistanceOhm: 0, drive: pulse });
     return terminalMeanAt(bare, ladderCurrentA);
   };
   return {
@@ -77,7 +83,11 @@ export function engineLadderLoadLine(input: LadderInput): LadderLoadLine {
       // Central differences, step 1e-4 of each peak: the model is smooth (log diode drops) and near linear in the peaks.
       const slope = (key: 'flybackPeakV' | 'forwardPeakV') => {
         const dv = Math.max(1e-4 * drive[key], 1e-6);
-        return (topAt({ ...drive, [key]: drive[key] + dv }, ladderCurrentA) - topAt({ ...drive, [key]: drive[key] - dv }, ladderCurrentA)) / (2 * dv);
+        return (
+          (topAt({ ...drive, [key]: drive[key] + dv }, ladderCurrentA) -
+            topAt({ ...drive, [key]: drive[key] - dv }, ladderCurrentA)) /
+          (2 * dv)
+        );
       };
       return { flyback: slope('flybackPeakV'), forward: slope('forwardPeakV') };
     },
@@ -91,12 +101,17 @@ export function engineLadderLoadLine(input: LadderInput): LadderLoadLine {
  * Kuffel, Zaengl & Kuffel §2.2.2), each pulse pushing n charges per output charge. Ideal diodes, no bleeder.
  */
 export function halfWaveCascadeLoadLine(stages: number, capacitanceF: number): LadderLoadLine {
-  if (!(Number.isInteger(stages) && stages >= 1)) throw new DomainError('invalid_argument', 'stages must be a positive integer', 'stages');
+  if (!(Number.isInteger(stages) && stages >= 1))
+    throw new DomainError('invalid_argument', 'stages must be a positive integer', 'stages');
   if (!(capacitanceF > 0)) throw new DomainError('invalid_argument', 'capacitance must be positive', 'capacitanceF');
   const n = stages;
   return {
     at: (d, loadCurrentA) => ({
-      outputV: Math.max(0, n * (d.forwardPeakV + d.flybackPeakV) - (((2 * n ** 3) / 3 + n ** 2 / 2 - n / 6) / (d.frequencyHz * capacitanceF)) * loadCurrentA),
+      outputV: Math.max(
+        0,
+        n * (d.forwardPeakV + d.flybackPeakV) -
+          (((2 * n ** 3) / 3 + n ** 2 / 2 - n / 6) / (d.frequencyHz * capacitanceF)) * loadCurrentA,
+      ),
       ladderCurrentA: loadCurrentA,
     }),
     chargeRatios: () => ({ flyback: n, forward: n }),
@@ -160,7 +175,12 @@ function driveOf(e: BlockingOscillatorEstimate): LadderDrive {
  * Where the driver meets the ladder: the output voltage (V) at an external load current (A), with the limit
  * that sets it. Method: OPERATING_POINT_METHOD (power balance per cycle, see its summary).
  */
-export function solveLoadPoint(driver: DriverStage, ladder: LadderLoadLine, loadCurrentA: number, options: BlockingOscillatorOptions = {}): LoadPoint & { driver: BlockingOscillatorEstimate } {
+export function solveLoadPoint(
+  driver: DriverStage,
+  ladder: LadderLoadLine,
+  loadCurrentA: number,
+  options: BlockingOscillatorOptions = {},
+): LoadPoint & { driver: BlockingOscillatorEstimate } {
   if (!(loadCurrentA >= 0)) throw new DomainError('invalid_argument', 'load current must be ≥ 0', 'loadCurrentA');
   const limitEst = estimateBlockingOscillator(driver, options);
   const maxFlyV = limitEst.maxFlybackSecondaryPeakV;
@@ -170,7 +190,8 @@ export function solveLoadPoint(driver: DriverStage, ladder: LadderLoadLine, load
   // The forward pulse's load on the supply, g₊·V₊·I_ladder, taken at the limit drive and held through the
   // solve, so that the supply sag is the same in the balance and in the reported figures.
   const forwardLoadPowerW = ratios.forward * limitEst.forwardSecondaryPeakV.value * limitLadderA;
-  const at = (flyV: number) => estimateBlockingOscillator(driver, { ...options, flybackSecondaryPeakV: flyV, forwardLoadPowerW });
+  const at = (flyV: number) =>
+    estimateBlockingOscillator(driver, { ...options, flybackSecondaryPeakV: flyV, forwardLoadPowerW });
   // Surplus of flyback power over what the ladder takes, per volt of flyback. Copper loss makes it fall at
   // very slow flybacks too, so there can be two roots: take the highest (the stable one) by scanning down
   // from the limit on a log grid (8 points a decade over 6 decades), then solving in that bracket.
@@ -230,7 +251,12 @@ export function solveLoadPoint(driver: DriverStage, ladder: LadderLoadLine, load
  * the power limit (A), and the output-vs-load curve (`points` samples, default 25) from no load to the current
  * at which the output reaches zero.
  */
-export function driverOperatingPoint(driver: DriverStage, ladder: LadderLoadLine, ratedLoadCurrentA: number, options: BlockingOscillatorOptions & { points?: number } = {}): OperatingPointResult {
+export function driverOperatingPoint(
+  driver: DriverStage,
+  ladder: LadderLoadLine,
+  ratedLoadCurrentA: number,
+  options: BlockingOscillatorOptions & { points?: number } = {},
+): OperatingPointResult {
   const points = Math.max(2, options.points ?? 25);
   const limitEst = estimateBlockingOscillator(driver, options);
   const maxFlyV = limitEst.maxFlybackSecondaryPeakV;
@@ -238,7 +264,10 @@ export function driverOperatingPoint(driver: DriverStage, ladder: LadderLoadLine
   // Deliverable flyback power over what the ladder takes at the limit drive, per volt of flyback: power-limited below zero.
   const limitSurplusAt = (loadA: number) => {
     const state = ladder.at(limitDrive, loadA);
-    return limitEst.deliverablePowerW.value / maxFlyV - ladder.chargeRatios(limitDrive, state.ladderCurrentA).flyback * state.ladderCurrentA;
+    return (
+      limitEst.deliverablePowerW.value / maxFlyV -
+      ladder.chargeRatios(limitDrive, state.ladderCurrentA).flyback * state.ladderCurrentA
+    );
   };
   // Onset: bracket by doubling, then solve to the resolution of 40 halvings (1e-12 relative).
   let powerLimitOnsetA = 0;
@@ -254,7 +283,8 @@ export function driverOperatingPoint(driver: DriverStage, ladder: LadderLoadLine
       hiA *= 2;
       surplusHi = limitSurplusAt(hiA);
     }
-    powerLimitOnsetA = surplusHi >= 0 ? hiA : bracketedRoot(limitSurplusAt, loA, hiA, surplusLo, surplusHi, hiA * 2 ** -40);
+    powerLimitOnsetA =
+      surplusHi >= 0 ? hiA : bracketedRoot(limitSurplusAt, loA, hiA, surplusLo, surplusHi, hiA * 2 ** -40);
   }
   // End of the curve: where the output reaches zero; bracket by doubling from the onset, then 24 bisections
   // (6e-8 relative, far below the curve's sampling).
@@ -271,5 +301,10 @@ export function driverOperatingPoint(driver: DriverStage, ladder: LadderLoadLine
     const { driver: _unused, ...point } = solveLoadPoint(driver, ladder, (hiA * i) / (points - 1), options);
     curve.push(point);
   }
-  return { ratedLoad: solveLoadPoint(driver, ladder, ratedLoadCurrentA, options), powerLimitOnsetA, curve, method: OPERATING_POINT_METHOD };
+  return {
+    ratedLoad: solveLoadPoint(driver, ladder, ratedLoadCurrentA, options),
+    powerLimitOnsetA,
+    curve,
+    method: OPERATING_POINT_METHOD,
+  };
 }

@@ -10,23 +10,26 @@ import { analyzeDesign, ladderInputOf, resolveDrive } from './analyze-design';
 import { DERATING } from './ladder-stress';
 
 describe('analyzeDesign on the demo designs', () => {
-  it.each(Object.entries(designExamples))('%s: meets its own targets and every verdict carries the caution', (_, design) => {
-    const report = analyzeDesign(validateDesign(structuredClone(design)));
-    expect(Math.sign(report.outputMeanV)).toBe(Math.sign(design.targets.outputV));
-    expect(report.meetsTargets).toEqual({ output: true, ripple: true });
-    expect(report.checks.length).toBeGreaterThan(5);
-    for (const check of report.checks) {
-      expect(check.caution).toBe(HV_CAUTION);
-      expect(['pass', 'marginal', 'fail']).toContain(check.verdict);
-      expect(Number.isFinite(check.marginPct)).toBe(true);
-      expect(check.rule.length).toBeGreaterThan(10);
-    }
-    expect(report.methods.map((m) => m.methodId)).toContain('charge-transfer-v1');
-    // Signed: min ≤ mean ≤ max for either polarity; ripple = max − min (to 1e-9 V, float noise).
-    expect(report.outputMinV).toBeLessThanOrEqual(report.outputMeanV);
-    expect(report.outputMeanV).toBeLessThanOrEqual(report.outputMaxV);
-    expect(Math.abs(report.ripplePeakToPeakV - (report.outputMaxV - report.outputMinV))).toBeLessThan(1e-9);
-  });
+  it.each(Object.entries(designExamples))(
+    '%s: meets its own targets and every verdict carries the caution',
+    (_, design) => {
+      const report = analyzeDesign(validateDesign(structuredClone(design)));
+      expect(Math.sign(report.outputMeanV)).toBe(Math.sign(design.targets.outputV));
+      expect(report.meetsTargets).toEqual({ output: true, ripple: true });
+      expect(report.checks.length).toBeGreaterThan(5);
+      for (const check of report.checks) {
+        expect(check.caution).toBe(HV_CAUTION);
+        expect(['pass', 'marginal', 'fail']).toContain(check.verdict);
+        expect(Number.isFinite(check.marginPct)).toBe(true);
+        expect(check.rule.length).toBeGreaterThan(10);
+      }
+      expect(report.methods.map((m) => m.methodId)).toContain('charge-transfer-v1');
+      // Signed: min ≤ mean ≤ max for either polarity; ripple = max − min (to 1e-9 V, float noise).
+      expect(report.outputMinV).toBeLessThanOrEqual(report.outputMeanV);
+      expect(report.outputMeanV).toBeLessThanOrEqual(report.outputMaxV);
+      expect(Math.abs(report.ripplePeakToPeakV - (report.outputMaxV - report.outputMinV))).toBeLessThan(1e-9);
+    },
+  );
 
   it('resolves the driver drive of the surface-charge tester into pulses and checks the driver power', () => {
     const report = analyzeDesign(designExamples.surfaceChargeTester);
@@ -38,7 +41,9 @@ describe('analyzeDesign on the demo designs', () => {
   it('names a driver-stage problem under drive. in the design', () => {
     const design = structuredClone(designExamples.surfaceChargeTester);
     if (design.drive.kind === 'driver') design.drive.driver.transformer.primaryInductanceH = 0;
-    expect(() => analyzeDesign(design)).toThrow(expect.objectContaining({ field: 'drive.driver.transformer.primaryInductanceH' }));
+    expect(() => analyzeDesign(design)).toThrow(
+      expect.objectContaining({ field: 'drive.driver.transformer.primaryInductanceH' }),
+    );
   });
 
   it('the ionizer bar is a negative ladder: outputs negative, PIV and capacitor figures positive magnitudes', () => {
@@ -56,14 +61,29 @@ describe('analyzeDesign: the driver section of the surface-charge tester', () =>
   const withTarget = structuredClone(design);
   if (withTarget.drive.kind === 'driver') withTarget.drive.driver.batteryLifeTargetH = 20;
   const report = analyzeDesign(withTarget);
-  const ladder = engineLadderLoadLine(ladderInputOf(design, resolveDrive(design).drive, resolveDrive(design).currentLimitA));
+  const ladder = engineLadderLoadLine(
+    ladderInputOf(design, resolveDrive(design).drive, resolveDrive(design).currentLimitA),
+  );
   const loadA = design.targets.loadCurrentA;
   const direct = solveLoadPoint(stage, ladder, loadA);
 
   it('carries the estimate figures with their methods, at the operating point the driver functions give', () => {
     const d = report.driver!;
     expect(d.figures.onTimeLimit).toMatch(/^(base|saturation)$/);
-    for (const figure of [d.figures.onTimeS, d.figures.peakPrimaryCurrentA, d.figures.flybackTimeS, d.figures.frequencyHz, d.figures.energyPerCycleJ, d.figures.deliverablePowerW, d.figures.forwardSecondaryPeakV, d.figures.flybackSecondaryPeakV, d.figures.collectorPeakV, d.figures.baseCurrentA, d.figures.inputCurrentA, d.figures.efficiency]) {
+    for (const figure of [
+      d.figures.onTimeS,
+      d.figures.peakPrimaryCurrentA,
+      d.figures.flybackTimeS,
+      d.figures.frequencyHz,
+      d.figures.energyPerCycleJ,
+      d.figures.deliverablePowerW,
+      d.figures.forwardSecondaryPeakV,
+      d.figures.flybackSecondaryPeakV,
+      d.figures.collectorPeakV,
+      d.figures.baseCurrentA,
+      d.figures.inputCurrentA,
+      d.figures.efficiency,
+    ]) {
       expect(figure.method.summary.length).toBeGreaterThan(5);
       expect(Number.isFinite(figure.value)).toBe(true);
     }
@@ -80,9 +100,16 @@ describe('analyzeDesign: the driver section of the surface-charge tester', () =>
   it('makes the operating point the headline output (load terminal, cycle mean)', () => {
     // 1e-6 relative: the ladder report re-solves the same drive with the load inside the model, the
     // operating point with the load as an external current: the two solves agree to their tolerance.
-    expect(Math.abs(report.outputMeanV - report.driver!.operatingPoint.ratedLoad.outputV) / report.outputMeanV).toBeLessThan(1e-6);
-    expect(Math.abs(report.noLoadOutputV - report.driver!.operatingPoint.curve[0]!.outputV) / report.noLoadOutputV).toBeLessThan(1e-12);
-    expect(report.resolvedDrive.kind === 'pulse' && report.resolvedDrive.flybackPeakV).toBeCloseTo(direct.flybackSecondaryPeakV, 6);
+    expect(
+      Math.abs(report.outputMeanV - report.driver!.operatingPoint.ratedLoad.outputV) / report.outputMeanV,
+    ).toBeLessThan(1e-6);
+    expect(
+      Math.abs(report.noLoadOutputV - report.driver!.operatingPoint.curve[0]!.outputV) / report.noLoadOutputV,
+    ).toBeLessThan(1e-12);
+    expect(report.resolvedDrive.kind === 'pulse' && report.resolvedDrive.flybackPeakV).toBeCloseTo(
+      direct.flybackSecondaryPeakV,
+      6,
+    );
   });
 
   it('reports the headline as power-limited when the rated load is beyond the driver, well below the clamp-limited ladder', () => {
@@ -100,12 +127,21 @@ describe('analyzeDesign: the driver section of the surface-charge tester', () =>
     const d = report.driver!;
     const expected = driverReport(withTarget.drive.kind === 'driver' ? withTarget.drive.driver : stage, ladder, loadA);
     // 1e-9 relative: the same functions on the same inputs.
-    expect(Math.abs(d.batteryLife!.lifeS.value - expected.batteryLife!.lifeS.value) / expected.batteryLife!.lifeS.value).toBeLessThan(1e-9);
+    expect(
+      Math.abs(d.batteryLife!.lifeS.value - expected.batteryLife!.lifeS.value) / expected.batteryLife!.lifeS.value,
+    ).toBeLessThan(1e-9);
     expect(d.batteryLife!.cellCurve.length).toBeGreaterThan(2);
     expect(d.batteryLife!.targetS).toBe(20 * 3600);
     expect(d.hipotTestVoltageV.method.summary).toContain('2·U + 1000');
     const ids = report.checks.map((c) => c.id);
-    for (const id of ['driver.collector-voltage', 'driver.collector-current', 'driver.base-drive', 'driver.winding-insulation', 'driver.cell-current', 'driver.battery-life']) {
+    for (const id of [
+      'driver.collector-voltage',
+      'driver.collector-current',
+      'driver.base-drive',
+      'driver.winding-insulation',
+      'driver.cell-current',
+      'driver.battery-life',
+    ]) {
       expect(ids).toContain(id);
     }
     const life = report.checks.find((c) => c.id === 'driver.battery-life')!;
@@ -129,7 +165,8 @@ describe('component checks', () => {
   it('capacitor voltage: pass below rating × 0.8, marginal up to the rating, fail above (derating common practice)', () => {
     // C2 of the tripler (oscillating) sees about 2·Vmax ≈ 630 V.
     const maxV = analyzeDesign(withCapRating(1000)).analysis.capacitors[1]?.maxVoltageV ?? NaN;
-    const verdictAt = (rated: number) => analyzeDesign(withCapRating(rated)).checks.find((c) => c.id === 'cap-voltage-c2');
+    const verdictAt = (rated: number) =>
+      analyzeDesign(withCapRating(rated)).checks.find((c) => c.id === 'cap-voltage-c2');
     expect(verdictAt(maxV / DERATING.capacitorVoltage + 1)?.verdict).toBe('pass');
     expect(verdictAt(maxV / 0.9)?.verdict).toBe('marginal');
     expect(verdictAt(maxV * 0.95)?.verdict).toBe('fail');
@@ -138,7 +175,8 @@ describe('component checks', () => {
 
   it('bleeder: a string of resistors shares the voltage; too few resistors fail on element voltage', () => {
     const design = structuredClone(designExamples.ionizerBar);
-    if (design.outputNetwork.bleeder) design.outputNetwork.bleeder = { ...design.outputNetwork.bleeder, count: 1, valueOhm: 1e9 };
+    if (design.outputNetwork.bleeder)
+      design.outputNetwork.bleeder = { ...design.outputNetwork.bleeder, count: 1, valueOhm: 1e9 };
     const checks = analyzeDesign(design).checks.filter((c) => c.id.startsWith('bleeder-voltage'));
     expect(checks).toHaveLength(1);
     expect(checks[0]?.verdict).toBe('fail'); // ~6.6 kV over one 2.5 kV element
@@ -149,6 +187,8 @@ describe('component checks', () => {
     design.targets.spacing.providedCreepageMm = 1;
     const report = analyzeDesign(design);
     expect(report.spacing.length).toBe(2);
-    expect(report.checks.filter((c) => c.id.startsWith('creepage-stage')).every((c) => c.verdict === 'fail')).toBe(true);
+    expect(report.checks.filter((c) => c.id.startsWith('creepage-stage')).every((c) => c.verdict === 'fail')).toBe(
+      true,
+    );
   });
 });

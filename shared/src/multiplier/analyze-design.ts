@@ -19,11 +19,10 @@ import { bleederStressChecks, ladderStressChecks } from './ladder-stress';
 import type { LadderAnalysis, LadderCurves, LadderInput } from './ladder.types';
 
 /** Report of a bare ladder: figures (SI, signed by polarity), curves, stored energy, discharge and how each was computed. */
-export interface LadderReport
-  extends Pick<
-    LadderAnalysis,
-    'noLoadOutputV' | 'outputMeanV' | 'outputMinV' | 'outputMaxV' | 'ripplePeakToPeakV' | 'droopV' | 'outputImpedanceOhm'
-  > {
+export interface LadderReport extends Pick<
+  LadderAnalysis,
+  'noLoadOutputV' | 'outputMeanV' | 'outputMinV' | 'outputMaxV' | 'ripplePeakToPeakV' | 'droopV' | 'outputImpedanceOhm'
+> {
   engineVersion: string;
   optimumStages: number;
   textbookRippleV: number | null;
@@ -111,7 +110,8 @@ export function analyzeLadderReport(input: LadderInput, options: LadderReportOpt
 
 const DRIVER_METHOD: MethodInfo = {
   methodId: 'driver-to-pulse-v1',
-  summary: 'The driver stage’s closed-form estimate gives the secondary as rectangular pulses: forward peak for the on-time, flyback peak for the flyback time.',
+  summary:
+    'The driver stage’s closed-form estimate gives the secondary as rectangular pulses: forward peak for the on-time, flyback peak for the flyback time.',
   assumptions: [
     'the secondary is taken as a voltage source at the estimated peaks behind the secondary winding resistance',
     'the driver’s deliverable power is checked against what the ladder draws',
@@ -120,7 +120,11 @@ const DRIVER_METHOD: MethodInfo = {
 };
 
 /** Resolves the drive of a design into the waveform the ladder model takes. */
-export function resolveDrive(design: Design): { drive: SineDrive | PulseDrive; deliverablePowerW: number | null; currentLimitA: number | null } {
+export function resolveDrive(design: Design): {
+  drive: SineDrive | PulseDrive;
+  deliverablePowerW: number | null;
+  currentLimitA: number | null;
+} {
   const drive = design.drive;
   if (drive.kind !== 'driver') return { drive, deliverablePowerW: null, currentLimitA: null };
   const stage = drive.driver;
@@ -138,7 +142,9 @@ export function resolveDrive(design: Design): { drive: SineDrive | PulseDrive; d
     },
     deliverablePowerW: estimate.deliverablePowerW.value,
     // The flyback current the secondary can carry is the collector peak reflected through the turns ratio.
-    currentLimitA: (estimate.collectorPeakCurrentA.value * drive.driver.transformer.primaryTurns) / drive.driver.transformer.secondaryTurns,
+    currentLimitA:
+      (estimate.collectorPeakCurrentA.value * drive.driver.transformer.primaryTurns) /
+      drive.driver.transformer.secondaryTurns,
   };
 }
 
@@ -180,7 +186,11 @@ function asCheck(v: DriverCheckVerdict): CheckVerdict {
 }
 
 /** The bare-ladder input of a design. */
-export function ladderInputOf(design: Design, drive: SineDrive | PulseDrive, currentLimitA: number | null = null): LadderInput {
+export function ladderInputOf(
+  design: Design,
+  drive: SineDrive | PulseDrive,
+  currentLimitA: number | null = null,
+): LadderInput {
   const bleeder = design.outputNetwork.bleeder;
   return {
     ...(currentLimitA !== null ? { sourceCurrentLimitA: currentLimitA } : {}),
@@ -220,7 +230,12 @@ export function analyzeDesign(design: Design): DesignReport {
     driver = underDrive(() => driverReport(stage, ladder, ratedLoadCurrentOf(design, stage, ladder)));
     const rated = driver.operatingPoint.ratedLoad;
     drive = pulseDriveOf(
-      { forwardPeakV: driver.figures.forwardSecondaryPeakV.value, flybackPeakV: rated.flybackSecondaryPeakV, frequencyHz: rated.frequencyHz, dutyCycle: rated.dutyCycle },
+      {
+        forwardPeakV: driver.figures.forwardSecondaryPeakV.value,
+        flybackPeakV: rated.flybackSecondaryPeakV,
+        frequencyHz: rated.frequencyHz,
+        dutyCycle: rated.dutyCycle,
+      },
       stage.transformer.secondaryResistanceOhm,
     );
   }
@@ -229,13 +244,20 @@ export function analyzeDesign(design: Design): DesignReport {
   const base = analyzeLadderReport(input, { safeVoltageV: targets.safeVoltageV, dischargeRule: targets.dischargeRule });
   const { analysis } = base;
   // Power-limited at the rated load, the flyback rises to its clamp at lighter loads: stress at the limit drive.
-  const stressAnalysis = driver?.operatingPoint.limitedBy === 'power' ? analyzeLadder(ladderInputOf(design, limitDrive, currentLimitA)) : analysis;
+  const stressAnalysis =
+    driver?.operatingPoint.limitedBy === 'power'
+      ? analyzeLadder(ladderInputOf(design, limitDrive, currentLimitA))
+      : analysis;
 
   const checks: CheckVerdict[] = [...ladderStressChecks(stressAnalysis, design.multiplier)];
-  const peakTopV = Math.max(Math.abs(stressAnalysis.outputMaxV), Math.abs(stressAnalysis.outputMinV)) + stressAnalysis.loadCurrentA * input.seriesOutputResistanceOhm;
+  const peakTopV =
+    Math.max(Math.abs(stressAnalysis.outputMaxV), Math.abs(stressAnalysis.outputMinV)) +
+    stressAnalysis.loadCurrentA * input.seriesOutputResistanceOhm;
   checks.push(...bleederStressChecks(design.outputNetwork.bleeder, stressAnalysis.ladderTopMeanV, peakTopV));
   checks.push(...base.checks);
-  const windingEnd = stressAnalysis.capacitors.find((c) => c.column.startsWith('oscillating') && c.stage === 1 && (c.index === 1 || stressAnalysis.cellCount % 2 === 1));
+  const windingEnd = stressAnalysis.capacitors.find(
+    (c) => c.column.startsWith('oscillating') && c.stage === 1 && (c.index === 1 || stressAnalysis.cellCount % 2 === 1),
+  );
   const trapped = trappedChargeCheck({
     windingEndCapacitorV: windingEnd ? windingEnd.maxVoltageV : null,
     windingEndCapacitorF: windingEnd?.valueF ?? 0,
@@ -259,8 +281,12 @@ export function analyzeDesign(design: Design): DesignReport {
   }
   if (driver) checks.push(...driver.checks.map(asCheck));
   const rippleOk = analysis.ripplePeakToPeakV <= targets.rippleMaxV;
-  const outputOk = Math.sign(analysis.outputMeanV) === Math.sign(targets.outputV) && Math.abs(analysis.outputMeanV) >= Math.abs(targets.outputV);
-  const noLoadOutputV = driver ? Math.sign(analysis.outputMeanV || 1) * (driver.operatingPoint.curve[0]?.outputV ?? 0) : base.noLoadOutputV;
+  const outputOk =
+    Math.sign(analysis.outputMeanV) === Math.sign(targets.outputV) &&
+    Math.abs(analysis.outputMeanV) >= Math.abs(targets.outputV);
+  const noLoadOutputV = driver
+    ? Math.sign(analysis.outputMeanV || 1) * (driver.operatingPoint.curve[0]?.outputV ?? 0)
+    : base.noLoadOutputV;
   return {
     ...base,
     noLoadOutputV,
@@ -270,7 +296,9 @@ export function analyzeDesign(design: Design): DesignReport {
     meetsTargets: { output: outputOk, ripple: rippleOk },
     spacing,
     checks,
-    methods: driver ? [...base.methods, DRIVER_METHOD, driver.operatingPoint.method, DRIVER_OPERATING_METHOD] : base.methods,
+    methods: driver
+      ? [...base.methods, DRIVER_METHOD, driver.operatingPoint.method, DRIVER_OPERATING_METHOD]
+      : base.methods,
     driver,
   };
 }

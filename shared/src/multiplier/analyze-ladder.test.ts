@@ -8,7 +8,13 @@ import type { LadderInput } from './ladder.types';
 // 1e-7 V at any current used here, far below every tolerance stated.
 const idealDiode = { saturationCurrentA: 1e-300, emissionCoefficient: 1e-9, seriesResistanceOhm: 0 };
 
-function sineLadder(capacitorsF: number[], peakV: number, frequencyHz: number, currentA: number, overrides: Partial<LadderInput> = {}): LadderInput {
+function sineLadder(
+  capacitorsF: number[],
+  peakV: number,
+  frequencyHz: number,
+  currentA: number,
+  overrides: Partial<LadderInput> = {},
+): LadderInput {
   return {
     topology: 'half-wave',
     capacitorsF,
@@ -46,25 +52,28 @@ describe('analyzeLadder against published closed forms', () => {
     expect(Math.abs((r.textbook.dropV ?? NaN) - 11.0e3)).toBeLessThan(0.05e3);
   });
 
-  it.each([1, 2, 3, 4, 5, 8, 12])('with equal capacitors, n = %i: ripple equals (q/C)n(n+1)/2 and the mean relates to ΔV0 as derived', (n) => {
-    const c = 1e-6;
-    const currentA = 1e-3;
-    const f = 50;
-    const q = currentA / f;
-    const r = analyzeLadder(sineLadder(Array(2 * n).fill(c), 1000, f, currentA));
-    const textbookDrop = (q / c) * ((2 * n ** 3) / 3 + n ** 2 / 2 - n / 6); // J. Lux (read); Kuffel et al. §2.2.2 (from memory)
-    // Relative 1e-8 throughout: float rounding plus the ideal diode's residual drop (< 1e-7 V against ≥ 20 V).
-    // Ripple: the charge-transfer model gives the published formula exactly.
-    expect(Math.abs(r.ripplePeakToPeakV / ((q / c) * ((n * (n + 1)) / 2)) - 1)).toBeLessThan(1e-8);
-    // Systematic difference: the textbook ΔV0 neglects that the smoothing column also loses q/(2C) per capacitor
-    // in the half-cycle between the two conduction events. Our cycle-mean drop is ΔV0 + n·q/(2C) exactly, and the
-    // drop of the peak (maximum) output is ΔV0 − n(n−1)/4 · q/C. For n = 1 both reduce to the doubler formulas.
-    expect(Math.abs(r.droopV / (textbookDrop + (n * q) / (2 * c)) - 1)).toBeLessThan(1e-8);
-    const peakDrop = r.noLoadOutputV - r.outputMaxV;
-    expect(Math.abs(peakDrop - (textbookDrop - ((n * (n - 1)) / 4) * (q / c)))).toBeLessThan(1e-8 * textbookDrop);
-    // The relative difference of the mean, (n/2)/(2n³/3 + …), is under 1.5 % from n = 8 up.
-    if (n >= 8) expect(Math.abs(r.droopV / textbookDrop - 1)).toBeLessThan(0.015);
-  });
+  it.each([1, 2, 3, 4, 5, 8, 12])(
+    'with equal capacitors, n = %i: ripple equals (q/C)n(n+1)/2 and the mean relates to ΔV0 as derived',
+    (n) => {
+      const c = 1e-6;
+      const currentA = 1e-3;
+      const f = 50;
+      const q = currentA / f;
+      const r = analyzeLadder(sineLadder(Array(2 * n).fill(c), 1000, f, currentA));
+      const textbookDrop = (q / c) * ((2 * n ** 3) / 3 + n ** 2 / 2 - n / 6); // J. Lux (read); Kuffel et al. §2.2.2 (from memory)
+      // Relative 1e-8 throughout: float rounding plus the ideal diode's residual drop (< 1e-7 V against ≥ 20 V).
+      // Ripple: the charge-transfer model gives the published formula exactly.
+      expect(Math.abs(r.ripplePeakToPeakV / ((q / c) * ((n * (n + 1)) / 2)) - 1)).toBeLessThan(1e-8);
+      // Systematic difference: the textbook ΔV0 neglects that the smoothing column also loses q/(2C) per capacitor
+      // in the half-cycle between the two conduction events. Our cycle-mean drop is ΔV0 + n·q/(2C) exactly, and the
+      // drop of the peak (maximum) output is ΔV0 − n(n−1)/4 · q/C. For n = 1 both reduce to the doubler formulas.
+      expect(Math.abs(r.droopV / (textbookDrop + (n * q) / (2 * c)) - 1)).toBeLessThan(1e-8);
+      const peakDrop = r.noLoadOutputV - r.outputMaxV;
+      expect(Math.abs(peakDrop - (textbookDrop - ((n * (n - 1)) / 4) * (q / c)))).toBeLessThan(1e-8 * textbookDrop);
+      // The relative difference of the mean, (n/2)/(2n³/3 + …), is under 1.5 % from n = 8 up.
+      if (n >= 8) expect(Math.abs(r.droopV / textbookDrop - 1)).toBeLessThan(0.015);
+    },
+  );
 
   it('full-wave ripple equals I·n/(2fC) (REFERENCES.md §2, read, low-authority; Kuffel et al. from memory)', () => {
     const n = 3;
@@ -93,7 +102,14 @@ describe('analyzeLadder against published closed forms', () => {
   });
 
   it('asymmetric pulse drive: each stage adds one peak-to-peak swing, V0 = n(V₊ + V₋) (REFERENCES.md §1, derived)', () => {
-    const pulse = { kind: 'pulse' as const, forwardPeakV: 180, flybackPeakV: 1600, frequencyHz: 34e3, dutyCycle: 0.9, sourceResistanceOhm: 0 };
+    const pulse = {
+      kind: 'pulse' as const,
+      forwardPeakV: 180,
+      flybackPeakV: 1600,
+      frequencyHz: 34e3,
+      dutyCycle: 0.9,
+      sourceResistanceOhm: 0,
+    };
     const r = analyzeLadder({ ...sineLadder(Array(4).fill(4.7e-9), 1, 1, 0), drive: pulse });
     expect(r.noLoadOutputV).toBeCloseTo(2 * (180 + 1600), 6);
     // A negative ladder on the same winding mirrors the waveform: same magnitude, opposite sign.
@@ -111,10 +127,19 @@ describe('analyzeLadder: flat-top (pulse) drive', () => {
     const c2 = 10e-9;
     const f = 34e3;
     const current = 50e-6;
-    const pulse = { kind: 'pulse' as const, forwardPeakV: 1000, flybackPeakV: 1000, frequencyHz: f, dutyCycle: 0.5, sourceResistanceOhm: 0 };
+    const pulse = {
+      kind: 'pulse' as const,
+      forwardPeakV: 1000,
+      flybackPeakV: 1000,
+      frequencyHz: f,
+      dutyCycle: 0.5,
+      sourceResistanceOhm: 0,
+    };
     const r = analyzeLadder({ ...sineLadder([c1, c2], 1, 1, current), drive: pulse });
     const half = 0.5 / f;
-    expect(Math.abs(r.ripplePeakToPeakV / ((current * half) / (c1 + c2) + (current * half) / c2) - 1)).toBeLessThan(1e-6);
+    expect(Math.abs(r.ripplePeakToPeakV / ((current * half) / (c1 + c2) + (current * half) / c2) - 1)).toBeLessThan(
+      1e-6,
+    );
     // The instantaneous-transfer figure q/C2 is an upper bound for a flat-top drive.
     expect(r.ripplePeakToPeakV).toBeLessThan(current / f / c2);
   });
@@ -122,7 +147,8 @@ describe('analyzeLadder: flat-top (pulse) drive', () => {
 
 describe('analyzeLadder: stray capacitance', () => {
   it('costs output even at no load, independent of frequency (Everhart & Lorrain, Rev. Sci. Instrum. 24, 221 (1953), abstract read)', () => {
-    const withStray = (f: number) => analyzeLadder({ ...sineLadder(Array(8).fill(2.2e-9), 500, f, 0), strayCapacitanceF: 10e-12 }).noLoadOutputV;
+    const withStray = (f: number) =>
+      analyzeLadder({ ...sineLadder(Array(8).fill(2.2e-9), 500, f, 0), strayCapacitanceF: 10e-12 }).noLoadOutputV;
     expect(withStray(25e3)).toBeLessThan(4000 - 50);
     // Relative 1e-12: the no-load loss has no frequency in it at all.
     expect(Math.abs(withStray(1e3) / withStray(100e3) - 1)).toBeLessThan(1e-12);
@@ -187,7 +213,9 @@ describe('analyzeLadder: the one-pass solve against a dense linear solve (mathjs
       const b = x[at(1, j)] as number;
       const values = [a, a - fall, b, b - fall];
       expect(Math.abs((r.capacitors[idx]?.maxVoltageV ?? NaN) - Math.max(...values.map(Math.abs)))).toBeLessThan(1e-6);
-      expect(Math.abs((r.capacitors[idx]?.swingV ?? NaN) - (Math.max(...values) - Math.min(...values)))).toBeLessThan(1e-6);
+      expect(Math.abs((r.capacitors[idx]?.swingV ?? NaN) - (Math.max(...values) - Math.min(...values)))).toBeLessThan(
+        1e-6,
+      );
     });
     const outputAfterPositivePeak = [2, 4, 6].reduce((sum, j) => sum + (x[at(0, j)] as number), 0);
     expect(Math.abs(r.outputMaxV - outputAfterPositivePeak)).toBeLessThan(1e-6);
@@ -220,7 +248,12 @@ describe('analyzeLadder properties (fast-check)', () => {
   it('no-load output equals cells × peak minus the diode drops (zero current: Shockley drop 0)', () => {
     fc.assert(
       fc.property(ladderArb, (p) => {
-        const r = analyzeLadder(sineLadder(Array(p.cells).fill(p.capF), p.peakV, p.frequencyHz, 0, { diode, drive: { kind: 'sine', peakV: p.peakV, frequencyHz: p.frequencyHz, sourceResistanceOhm: p.sourceOhm } }));
+        const r = analyzeLadder(
+          sineLadder(Array(p.cells).fill(p.capF), p.peakV, p.frequencyHz, 0, {
+            diode,
+            drive: { kind: 'sine', peakV: p.peakV, frequencyHz: p.frequencyHz, sourceResistanceOhm: p.sourceOhm },
+          }),
+        );
         const drops = r.diodes.reduce((s, d) => s + d.forwardDropV, 0);
         // Relative 1e-12: exact arithmetic up to float rounding over ≤ 16 additions.
         return Math.abs(r.noLoadOutputV - (p.cells * p.peakV - drops)) <= 1e-12 * p.cells * p.peakV;
@@ -232,10 +265,15 @@ describe('analyzeLadder properties (fast-check)', () => {
   it('loaded output never exceeds no-load, and the drop grows with current', () => {
     fc.assert(
       fc.property(ladderArb, (p) => {
-        const input = sineLadder(Array(p.cells).fill(p.capF), p.peakV, p.frequencyHz, p.currentA, { diode, drive: { kind: 'sine', peakV: p.peakV, frequencyHz: p.frequencyHz, sourceResistanceOhm: p.sourceOhm } });
+        const input = sineLadder(Array(p.cells).fill(p.capF), p.peakV, p.frequencyHz, p.currentA, {
+          diode,
+          drive: { kind: 'sine', peakV: p.peakV, frequencyHz: p.frequencyHz, sourceResistanceOhm: p.sourceOhm },
+        });
         const r = analyzeLadder(input);
         const heavier = analyzeLadder({ ...input, load: { kind: 'current', currentA: p.currentA * 2 } });
-        return r.outputMaxV <= r.noLoadOutputV && r.outputMeanV <= r.noLoadOutputV && heavier.outputMeanV < r.outputMeanV;
+        return (
+          r.outputMaxV <= r.noLoadOutputV && r.outputMeanV <= r.noLoadOutputV && heavier.outputMeanV < r.outputMeanV
+        );
       }),
       { numRuns: 200 },
     );

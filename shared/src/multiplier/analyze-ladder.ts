@@ -6,7 +6,6 @@ import { ladderNodeVoltages, NODE_VOLTAGE_METHOD } from './ladder-nodes';
 import { textbookFigures } from './textbook-formulas';
 import type { CapacitorStress, DiodeStress, LadderAnalysis, LadderInput, MethodInfo } from './ladder.types';
 
-
 export const STEADY_STATE_METHOD: MethodInfo = {
   methodId: 'charge-transfer-v1',
   summary:
@@ -27,13 +26,17 @@ export const STEADY_STATE_METHOD: MethodInfo = {
 
 function checkInput(input: LadderInput): void {
   const drive = input.drive;
-  if (!(drive.frequencyHz > 0)) throw new DomainError('invalid_argument', 'drive frequency must be positive', 'drive.frequencyHz');
-  if (drive.kind === 'sine' && !(drive.peakV > 0)) throw new DomainError('invalid_argument', 'drive peak must be positive', 'drive.peakV');
+  if (!(drive.frequencyHz > 0))
+    throw new DomainError('invalid_argument', 'drive frequency must be positive', 'drive.frequencyHz');
+  if (drive.kind === 'sine' && !(drive.peakV > 0))
+    throw new DomainError('invalid_argument', 'drive peak must be positive', 'drive.peakV');
   if (drive.kind === 'pulse' && !(drive.dutyCycle > 0 && drive.dutyCycle < 1)) {
     throw new DomainError('invalid_argument', 'duty cycle must lie in (0, 1)', 'drive.dutyCycle');
   }
-  if (!(input.diode.saturationCurrentA > 0)) throw new DomainError('invalid_argument', 'diode saturation current must be positive', 'diode.saturationCurrentA');
-  if (input.bleederOhm !== null && !(input.bleederOhm > 0)) throw new DomainError('invalid_argument', 'bleeder resistance must be positive', 'bleederOhm');
+  if (!(input.diode.saturationCurrentA > 0))
+    throw new DomainError('invalid_argument', 'diode saturation current must be positive', 'diode.saturationCurrentA');
+  if (input.bleederOhm !== null && !(input.bleederOhm > 0))
+    throw new DomainError('invalid_argument', 'bleeder resistance must be positive', 'bleederOhm');
 }
 
 /** Prepared ladder: the network and work arrays, for repeated solves (sizing, tolerance spread, curves). */
@@ -75,7 +78,10 @@ export function analyzeLadder(input: LadderInput): LadderAnalysis {
  * Analysis of a prepared ladder. `operatingPointOnly` skips the no-load solve and the output-impedance
  * derivative (both then reported as NaN): the Sizer and the tolerance spread need only the operating point.
  */
-export function analyzePrepared(prepared: PreparedLadder, options: { operatingPointOnly?: boolean } = {}): LadderAnalysis {
+export function analyzePrepared(
+  prepared: PreparedLadder,
+  options: { operatingPointOnly?: boolean } = {},
+): LadderAnalysis {
   const { input, workspace: ws } = prepared;
   const { net, timing } = ws;
   const sign = input.polarity;
@@ -113,7 +119,10 @@ export function analyzePrepared(prepared: PreparedLadder, options: { operatingPo
   // Diode reverse voltage at the four instants of the cycle, with the drive at its nominal extremes.
   const nodeAt = (state: 'a' | 'b', fall: number, driveV: number, node: number): number => {
     const root = net.nodeRoot[node] as number;
-    const base = state === 'a' ? (ws.nodeA[node] as number) - (ws.nodeA[root] as number) : (ws.nodeB[node] as number) - (ws.nodeB[root] as number);
+    const base =
+      state === 'a'
+        ? (ws.nodeA[node] as number) - (ws.nodeA[root] as number)
+        : (ws.nodeB[node] as number) - (ws.nodeB[root] as number);
     const rate = state === 'a' ? ws.nodeRateH : ws.nodeRateL;
     return base + fall * (rate[node] as number) + (net.anchorScale[root] as number) * driveV;
   };
@@ -149,7 +158,11 @@ export function analyzePrepared(prepared: PreparedLadder, options: { operatingPo
   const terminalMeanV = cycle.meanV - seriesDropV;
   const outputMinV = sign * (sign > 0 ? cycle.minV - seriesDropV : cycle.maxV - seriesDropV);
   const outputMaxV = sign * (sign > 0 ? cycle.maxV - seriesDropV : cycle.minV - seriesDropV);
-  const nodes = ladderNodeVoltages(ws, ladderCurrentA, sign, { meanV: sign * terminalMeanV, minV: outputMinV, maxV: outputMaxV });
+  const nodes = ladderNodeVoltages(ws, ladderCurrentA, sign, {
+    meanV: sign * terminalMeanV,
+    minV: outputMinV,
+    maxV: outputMaxV,
+  });
 
   // After the stress figures and node voltages: these solves overwrite the operating-point state.
   let ladderImpedance = NaN;

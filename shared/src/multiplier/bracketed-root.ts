@@ -6,7 +6,14 @@
  * Numerical Recipes' zbrent; from memory). Stops when the bracket is narrower than `toleranceX` (absolute,
  * units of x) or f is exactly zero.
  */
-export function bracketedRoot(f: (x: number) => number, a: number, b: number, fa: number, fb: number, toleranceX: number): number {
+export function bracketedRoot(
+  f: (x: number) => number,
+  a: number,
+  b: number,
+  fa: number,
+  fb: number,
+  toleranceX: number,
+): number {
   if (fa === 0) return a;
   if (fb === 0) return b;
   let c = b;

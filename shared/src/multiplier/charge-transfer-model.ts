@@ -28,8 +28,14 @@ export function driveTiming(drive: SineDrive | PulseDrive, polarity: 1 | -1): Dr
   const periodS = 1 / drive.frequencyHz;
   if (drive.kind === 'sine') {
     return {
-      highV: drive.peakV, lowV: drive.peakV, periodS, afterHS: periodS / 2, afterLS: periodS / 2, isSine: true,
-      sourceResistanceOhm: drive.sourceResistanceOhm, frequencyHz: drive.frequencyHz,
+      highV: drive.peakV,
+      lowV: drive.peakV,
+      periodS,
+      afterHS: periodS / 2,
+      afterLS: periodS / 2,
+      isSine: true,
+      sourceResistanceOhm: drive.sourceResistanceOhm,
+      frequencyHz: drive.frequencyHz,
     };
   }
   // A negative ladder is the mirror image: its H extreme is the flyback.
@@ -101,14 +107,26 @@ export function createWorkspace(net: LadderNetwork, input: LadderInput): Workspa
   const nodes = net.nodeCount;
   const timing = driveTiming(input.drive, input.polarity);
   const ws: Workspace = {
-    net, timing,
-    deltaH: zeros(m), deltaL: zeros(m),
-    chargeH: zeros(net.anchorScale.length), chargeL: zeros(net.anchorScale.length),
-    loadRate: zeros(m), strayDelta: zeros(m), nodeLoadRate: zeros(nodes),
-    rateH: [], rateL: [], nodeRateH: [], nodeRateL: [], deltaLPlateau: zeros(m),
-    flow: zeros(nodes), injection: zeros(nodes),
-    stateA: zeros(m), stateB: zeros(m),
-    nodeA: zeros(nodes), nodeB: zeros(nodes),
+    net,
+    timing,
+    deltaH: zeros(m),
+    deltaL: zeros(m),
+    chargeH: zeros(net.anchorScale.length),
+    chargeL: zeros(net.anchorScale.length),
+    loadRate: zeros(m),
+    strayDelta: zeros(m),
+    nodeLoadRate: zeros(nodes),
+    rateH: [],
+    rateL: [],
+    nodeRateH: [],
+    nodeRateL: [],
+    deltaLPlateau: zeros(m),
+    flow: zeros(nodes),
+    injection: zeros(nodes),
+    stateA: zeros(m),
+    stateB: zeros(m),
+    nodeA: zeros(nodes),
+    nodeB: zeros(nodes),
     harmonicMeanF: 0,
     thermalV: (boltzmannJPerK * (input.temperatureK ?? 300)) / elementaryChargeC,
     diode: input.diode,
@@ -117,7 +135,10 @@ export function createWorkspace(net: LadderNetwork, input: LadderInput): Workspa
   for (let c = 0; c < m; c += 1) inverseSum += 1 / (net.capF[c] as number);
   ws.harmonicMeanF = m / inverseSum;
   // Capacitor voltage change per coulomb of ladder charge at each event, and the charge through each anchor.
-  for (const [event, delta, charge] of [[0, ws.deltaH, ws.chargeH], [1, ws.deltaL, ws.chargeL]] as const) {
+  for (const [event, delta, charge] of [
+    [0, ws.deltaH, ws.chargeH],
+    [1, ws.deltaL, ws.chargeL],
+  ] as const) {
     ws.injection.fill(0);
     for (let d = 0; d < net.diodeShare.length; d += 1) {
       if (net.diodeEvent[d] !== event) continue;
@@ -135,7 +156,8 @@ export function createWorkspace(net: LadderNetwork, input: LadderInput): Workspa
   const strayF = input.strayCapacitanceF ?? 0;
   if (strayF > 0) {
     ws.injection.fill(0);
-    for (let n = net.anchorScale.length; n < nodes; n += 1) ws.injection[n] = strayF * (net.anchorScale[net.nodeRoot[n] as number] as number);
+    for (let n = net.anchorScale.length; n < nodes; n += 1)
+      ws.injection[n] = strayF * (net.anchorScale[net.nodeRoot[n] as number] as number);
     accumulateFlow(net, ws.injection, ws.flow, ws.strayDelta);
   }
   // Load: one ampere out of the output node into the return node.
@@ -145,7 +167,8 @@ export function createWorkspace(net: LadderNetwork, input: LadderInput): Workspa
   accumulateFlow(net, ws.injection, ws.flow, ws.loadRate);
   ws.nodeLoadRate.fill(0);
   for (let c = 0; c < m; c += 1) {
-    ws.nodeLoadRate[net.capTop[c] as number] = (ws.nodeLoadRate[net.capBottom[c] as number] as number) + (ws.loadRate[c] as number);
+    ws.nodeLoadRate[net.capTop[c] as number] =
+      (ws.nodeLoadRate[net.capBottom[c] as number] as number) + (ws.loadRate[c] as number);
   }
   ws.rateH = ws.loadRate;
   ws.rateL = ws.loadRate;
@@ -179,7 +202,8 @@ function solveSmall(matrix: number[][], rhs: number[]): number[] | null {
   const n = rhs.length;
   for (let col = 0; col < n; col += 1) {
     let pivot = col;
-    for (let r = col + 1; r < n; r += 1) if (Math.abs(matrix[r]?.[col] ?? 0) > Math.abs(matrix[pivot]?.[col] ?? 0)) pivot = r;
+    for (let r = col + 1; r < n; r += 1)
+      if (Math.abs(matrix[r]?.[col] ?? 0) > Math.abs(matrix[pivot]?.[col] ?? 0)) pivot = r;
     const pivotRow = matrix[pivot] as number[];
     if (Math.abs(pivotRow[col] as number) < 1e-300) return null;
     [matrix[col], matrix[pivot]] = [pivotRow, matrix[col] as number[]];
@@ -209,7 +233,10 @@ function solveSmall(matrix: number[][], rhs: number[]): number[] | null {
  * Σ_d x_d·(dV_anode,e − dV_cathode,e)_d = −(dV_anode,e − dV_cathode,e)_load. Null when a diode would
  * need reverse current (then the phase is treated as instantaneous transfer).
  */
-function plateauRates(ws: Workspace, event: 0 | 1): { capRate: number[]; nodeRate: number[]; diodeCapDelta: number[] } | null {
+function plateauRates(
+  ws: Workspace,
+  event: 0 | 1,
+): { capRate: number[]; nodeRate: number[]; diodeCapDelta: number[] } | null {
   const net = ws.net;
   const m = net.capF.length;
   let conducting: number[] = [];
@@ -257,7 +284,11 @@ function plateauRates(ws: Workspace, event: 0 | 1): { capRate: number[]; nodeRat
 }
 
 /** Per-event source loss and diode drop at a ladder current, from conduction time and charge. */
-function eventLosses(ws: Workspace, currentA: number, event: 0 | 1): { lossScale: number; forwardDropV: number; conductionCurrentA: number } {
+function eventLosses(
+  ws: Workspace,
+  currentA: number,
+  event: 0 | 1,
+): { lossScale: number; forwardDropV: number; conductionCurrentA: number } {
   const t = ws.timing;
   const q = currentA * t.periodS;
   const peakV = event === EVENT_H ? t.highV : t.lowV;
@@ -270,8 +301,11 @@ function eventLosses(ws: Workspace, currentA: number, event: 0 | 1): { lossScale
   const r = t.sourceResistanceOhm;
   if (t.isSine) {
     const omega = 2 * Math.PI * t.frequencyHz;
-    lossV = r > 0 && q > 0 ? Math.min(peakV, ((3 * sourceCharge * omega * r * Math.sqrt(peakV)) / (4 * Math.SQRT2)) ** (2 / 3)) : 0;
-    const swingV = lossV + (ws.net.diodeShare[0] as number) * q / ws.harmonicMeanF;
+    lossV =
+      r > 0 && q > 0
+        ? Math.min(peakV, ((3 * sourceCharge * omega * r * Math.sqrt(peakV)) / (4 * Math.SQRT2)) ** (2 / 3))
+        : 0;
+    const swingV = lossV + ((ws.net.diodeShare[0] as number) * q) / ws.harmonicMeanF;
     const angle = Math.min(Math.PI / 2, Math.sqrt((2 * swingV) / Math.max(peakV, 1e-30)));
     conductionS = Math.max((2 * angle) / omega, 1e-12);
   } else {
@@ -282,7 +316,8 @@ function eventLosses(ws: Workspace, currentA: number, event: 0 | 1): { lossScale
   const conductionCurrentA = diodeCharge / conductionS;
   const d = ws.diode;
   const forwardDropV =
-    d.emissionCoefficient * ws.thermalV * Math.log1p(conductionCurrentA / d.saturationCurrentA) + conductionCurrentA * d.seriesResistanceOhm;
+    d.emissionCoefficient * ws.thermalV * Math.log1p(conductionCurrentA / d.saturationCurrentA) +
+    conductionCurrentA * d.seriesResistanceOhm;
   return { lossScale: peakV > 0 ? (peakV - lossV) / peakV : 0, forwardDropV, conductionCurrentA };
 }
 
@@ -327,11 +362,17 @@ export function solveCycle(ws: Workspace, currentA: number): SolvedCycle {
     let a: number;
     let b: number;
     if (net.diodeEvent[d] === EVENT_H) {
-      const topV = top === cathode ? (ws.nodeA[anode] as number) - lossH.forwardDropV : (ws.nodeA[cathode] as number) + lossH.forwardDropV;
+      const topV =
+        top === cathode
+          ? (ws.nodeA[anode] as number) - lossH.forwardDropV
+          : (ws.nodeA[cathode] as number) + lossH.forwardDropV;
       a = topV - (ws.nodeA[bottom] as number);
       b = a + delta;
     } else {
-      const topV = top === cathode ? (ws.nodeB[anode] as number) - lossL.forwardDropV : (ws.nodeB[cathode] as number) + lossL.forwardDropV;
+      const topV =
+        top === cathode
+          ? (ws.nodeB[anode] as number) - lossL.forwardDropV
+          : (ws.nodeB[cathode] as number) + lossL.forwardDropV;
       b = topV - (ws.nodeB[bottom] as number);
       a = b - delta;
     }
@@ -348,11 +389,15 @@ export function solveCycle(ws: Workspace, currentA: number): SolvedCycle {
   const fallL = currentA * timing.afterLS * slopeL;
   const meanV = (timing.afterHS * (afterHV + fallH / 2) + timing.afterLS * (afterLV + fallL / 2)) / timing.periodS;
   return {
-    afterHV, afterLV, meanV,
+    afterHV,
+    afterLV,
+    meanV,
     minV: Math.min(afterHV + fallH, afterLV + fallL),
     maxV: Math.max(afterHV, afterLV),
-    forwardDropHV: lossH.forwardDropV, forwardDropLV: lossL.forwardDropV,
-    conductionHA: lossH.conductionCurrentA, conductionLA: lossL.conductionCurrentA,
+    forwardDropHV: lossH.forwardDropV,
+    forwardDropLV: lossL.forwardDropV,
+    conductionHA: lossH.conductionCurrentA,
+    conductionLA: lossL.conductionCurrentA,
   };
 }
 
@@ -361,7 +406,8 @@ export function outputLoad(input: LadderInput): { conductanceS: number; constant
   const bleederS = input.bleederOhm ? 1 / input.bleederOhm : 0;
   const load = input.load;
   if (!load) return { conductanceS: bleederS, constantA: 0, seriesOhm: input.seriesOutputResistanceOhm };
-  if (load.kind === 'current') return { conductanceS: bleederS, constantA: load.currentA, seriesOhm: input.seriesOutputResistanceOhm };
+  if (load.kind === 'current')
+    return { conductanceS: bleederS, constantA: load.currentA, seriesOhm: input.seriesOutputResistanceOhm };
   return {
     conductanceS: bleederS + 1 / (load.resistanceOhm + input.seriesOutputResistanceOhm),
     constantA: 0,
@@ -373,7 +419,11 @@ export function outputLoad(input: LadderInput): { conductanceS: number; constant
  * Solves the operating point: the ladder current is the constant load plus what the resistive part of
  * the output network draws at the mean ladder-top voltage. Secant iteration on the current.
  */
-export function solveOperatingPoint(ws: Workspace, conductanceS: number, constantA: number): { currentA: number; cycle: SolvedCycle } {
+export function solveOperatingPoint(
+  ws: Workspace,
+  conductanceS: number,
+  constantA: number,
+): { currentA: number; cycle: SolvedCycle } {
   let currentA = constantA;
   let cycle = solveCycle(ws, currentA);
   if (conductanceS === 0) return { currentA, cycle };
@@ -394,4 +444,3 @@ export function solveOperatingPoint(ws: Workspace, conductanceS: number, constan
   }
   return { currentA, cycle: solveCycle(ws, currentA) };
 }
-

@@ -1,4 +1,11 @@
-export { analyzeLadder, prepareLadder, analyzePrepared, terminalMeanAt, withDiode, STEADY_STATE_METHOD } from './analyze-ladder';
+export {
+  analyzeLadder,
+  prepareLadder,
+  analyzePrepared,
+  terminalMeanAt,
+  withDiode,
+  STEADY_STATE_METHOD,
+} from './analyze-ladder';
 export { textbookFigures } from './textbook-formulas';
 export { ladderNodeVoltages, NODE_VOLTAGE_METHOD } from './ladder-nodes';
 export type { PreparedLadder } from './analyze-ladder';

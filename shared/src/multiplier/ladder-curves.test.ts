@@ -57,31 +57,36 @@ describe('ladderCurves: the sampled stage scan against the full scan of every st
     }),
   ];
   const fullScan = (input: LadderInput, lastStages: number) =>
-    Array.from({ length: lastStages }, (_, i) => terminalMeanAt(prepareLadder({ ...input, capacitorsF: resizeCapacitors(input, i + 1) }), 0));
+    Array.from({ length: lastStages }, (_, i) =>
+      terminalMeanAt(prepareLadder({ ...input, capacitorsF: resizeCapacitors(input, i + 1) }), 0),
+    );
 
-  it.each(inputs)('%s: the same optimum, every plotted count exact, the counts between within 1 % of the straight line', (_, input) => {
-    const curves = ladderCurves(input);
-    const points = curves.outputVsStages;
-    const last = points[points.length - 1] as { x: number; y: number };
-    const exact = fullScan(input, last.x);
-    // Optimum: the first maximum of the full scan, exactly (the same model at the same counts).
-    const maximum = Math.max(...exact);
-    expect(curves.optimumStages).toBe(exact.indexOf(maximum) + 1);
-    expect(curves.optimumOutputV).toBe(maximum);
-    for (const p of points) expect(p.y).toBe(exact[p.x - 1]);
-    // Between plotted counts the chart draws straight lines: within 1 % of the maximum output (the curve is
-    // near linear far from the optimum and sampled at every count close to it).
-    for (let k = 1; k < points.length; k += 1) {
-      const a = points[k - 1] as { x: number; y: number };
-      const b = points[k] as { x: number; y: number };
-      for (let n = a.x + 1; n < b.x; n += 1) {
-        const lineV = a.y + ((b.y - a.y) * (n - a.x)) / (b.x - a.x);
-        expect(Math.abs(lineV - (exact[n - 1] as number))).toBeLessThan(0.01 * maximum);
+  it.each(inputs)(
+    '%s: the same optimum, every plotted count exact, the counts between within 1 % of the straight line',
+    (_, input) => {
+      const curves = ladderCurves(input);
+      const points = curves.outputVsStages;
+      const last = points[points.length - 1] as { x: number; y: number };
+      const exact = fullScan(input, last.x);
+      // Optimum: the first maximum of the full scan, exactly (the same model at the same counts).
+      const maximum = Math.max(...exact);
+      expect(curves.optimumStages).toBe(exact.indexOf(maximum) + 1);
+      expect(curves.optimumOutputV).toBe(maximum);
+      for (const p of points) expect(p.y).toBe(exact[p.x - 1]);
+      // Between plotted counts the chart draws straight lines: within 1 % of the maximum output (the curve is
+      // near linear far from the optimum and sampled at every count close to it).
+      for (let k = 1; k < points.length; k += 1) {
+        const a = points[k - 1] as { x: number; y: number };
+        const b = points[k] as { x: number; y: number };
+        for (let n = a.x + 1; n < b.x; n += 1) {
+          const lineV = a.y + ((b.y - a.y) * (n - a.x)) / (b.x - a.x);
+          expect(Math.abs(lineV - (exact[n - 1] as number))).toBeLessThan(0.01 * maximum);
+        }
       }
-    }
-    // The scan ends with the maximum clearly passed: 2 % below it.
-    expect(last.y).toBeLessThanOrEqual(0.98 * maximum);
-  });
+      // The scan ends with the maximum clearly passed: 2 % below it.
+      expect(last.y).toBeLessThanOrEqual(0.98 * maximum);
+    },
+  );
 
   it.each(inputs)('%s: short-circuit current as 80 halvings of the bracket find it (1e-9 relative)', (_, input) => {
     const prepared = prepareLadder({ ...input, load: null });

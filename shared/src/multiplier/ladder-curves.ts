@@ -55,7 +55,10 @@ function shortCircuitCurrentOf(prepared: PreparedLadder): number {
  * apart) until the output falls, an integer bracket search for the maximum between the last counts, then the
  * walk again until the output is PAST_OPTIMUM_FRACTION of its maximum.
  */
-function outputVsStagesOf(input: LadderInput, minStages: number): Pick<LadderCurves, 'outputVsStages' | 'optimumStages' | 'optimumOutputV'> {
+function outputVsStagesOf(
+  input: LadderInput,
+  minStages: number,
+): Pick<LadderCurves, 'outputVsStages' | 'optimumStages' | 'optimumOutputV'> {
   const outputs = new Map<number, number>();
   const outputAt = (stages: number): number => {
     let v = outputs.get(stages);
@@ -88,7 +91,8 @@ function outputVsStagesOf(input: LadderInput, minStages: number): Pick<LadderCur
   }
   const optimumOutputV = outputAt(best);
   let stages = Math.max(high, best);
-  while (stages < MAX_STAGES && (stages < minStages || outputAt(stages) > PAST_OPTIMUM_FRACTION * optimumOutputV)) stages = nextStages(stages);
+  while (stages < MAX_STAGES && (stages < minStages || outputAt(stages) > PAST_OPTIMUM_FRACTION * optimumOutputV))
+    stages = nextStages(stages);
   outputAt(stages);
   const outputVsStages = [...outputs.entries()].sort((a, b) => a[0] - b[0]).map(([x, y]) => ({ x, y }));
   return { outputVsStages, optimumStages: best, optimumOutputV };
@@ -109,9 +113,19 @@ export function ladderCurves(input: LadderInput, points = 21): LadderCurves {
   }
   if (input.topology === 'bridge-doubler') {
     const optimumOutputV = terminalMeanAt(prepareLadder(input), 0);
-    return { regulation, shortCircuitCurrentA, outputVsStages: [{ x: 1, y: optimumOutputV }], optimumStages: 1, optimumOutputV, method: CURVES_METHOD };
+    return {
+      regulation,
+      shortCircuitCurrentA,
+      outputVsStages: [{ x: 1, y: optimumOutputV }],
+      optimumStages: 1,
+      optimumOutputV,
+      method: CURVES_METHOD,
+    };
   }
-  const baseStages = input.topology === 'half-wave' ? Math.max(1, Math.floor(input.capacitorsF.length / 2)) : input.capacitorsF.length / 3;
+  const baseStages =
+    input.topology === 'half-wave'
+      ? Math.max(1, Math.floor(input.capacitorsF.length / 2))
+      : input.capacitorsF.length / 3;
   const stageScan = outputVsStagesOf(input, Math.max(2 * baseStages, baseStages + 6));
   return { regulation, shortCircuitCurrentA, ...stageScan, method: CURVES_METHOD };
 }

@@ -11,7 +11,8 @@ export const NODE_VOLTAGE_METHOD: MethodInfo = {
     'voltages are to the circuit ground: for the bridge doubler that is the foot of the lower capacitor, not the winding midpoint',
     'the load terminal is the ladder top less the drop across the series output resistor',
   ],
-  source: 'Charge-balance analysis of the cascade (Kuffel, Zaengl & Kuffel, High Voltage Engineering Fundamentals, 2nd ed., §2.2.2, from memory), node by node',
+  source:
+    'Charge-balance analysis of the cascade (Kuffel, Zaengl & Kuffel, High Voltage Engineering Fundamentals, 2nd ed., §2.2.2, from memory), node by node',
 };
 
 /** The load terminal's figures, already signed, as analyzeLadder reports them. */
@@ -25,7 +26,12 @@ export interface TerminalFigures {
  * Voltage of every ladder node to ground over the steady-state cycle (V, signed by polarity), from the
  * workspace state the operating-point solve left (call before any other solve). Method: NODE_VOLTAGE_METHOD.
  */
-export function ladderNodeVoltages(ws: Workspace, currentA: number, polarity: 1 | -1, terminal: TerminalFigures): LadderNodeVoltage[] {
+export function ladderNodeVoltages(
+  ws: Workspace,
+  currentA: number,
+  polarity: 1 | -1,
+  terminal: TerminalFigures,
+): LadderNodeVoltage[] {
   const { net, timing } = ws;
   const instants = (n: number): { values: number[]; meanV: number } => {
     const root = net.nodeRoot[n] as number;

@@ -24,7 +24,13 @@ export function ladderStressChecks(analysis: LadderAnalysis, multiplier: Multipl
     if (!part) continue;
     checks.push(
       deratedVerdict(
-        { id: `cap-voltage-c${cap.index}`, subject: `C${cap.index} (${cap.column}, stage ${cap.stage})`, rule: ratingRule('largest voltage over the cycle', DERATING.capacitorVoltage), value: cap.maxVoltageV, unit: 'V' },
+        {
+          id: `cap-voltage-c${cap.index}`,
+          subject: `C${cap.index} (${cap.column}, stage ${cap.stage})`,
+          rule: ratingRule('largest voltage over the cycle', DERATING.capacitorVoltage),
+          value: cap.maxVoltageV,
+          unit: 'V',
+        },
         part.ratedVoltageV,
         DERATING.capacitorVoltage,
       ),
@@ -34,17 +40,38 @@ export function ladderStressChecks(analysis: LadderAnalysis, multiplier: Multipl
   for (const d of analysis.diodes) {
     checks.push(
       deratedVerdict(
-        { id: `diode-piv-d${d.index}`, subject: `D${d.index}`, rule: ratingRule('peak inverse voltage over the cycle', DERATING.diodePiv), value: d.peakInverseV, unit: 'V' },
+        {
+          id: `diode-piv-d${d.index}`,
+          subject: `D${d.index}`,
+          rule: ratingRule('peak inverse voltage over the cycle', DERATING.diodePiv),
+          value: d.peakInverseV,
+          unit: 'V',
+        },
         diode.ratedPivV,
         DERATING.diodePiv,
       ),
       deratedVerdict(
-        { id: `diode-average-d${d.index}`, subject: `D${d.index}`, rule: ratingRule('average forward current', DERATING.diodeAverageCurrent), value: d.averageCurrentA, unit: 'A' },
+        {
+          id: `diode-average-d${d.index}`,
+          subject: `D${d.index}`,
+          rule: ratingRule('average forward current', DERATING.diodeAverageCurrent),
+          value: d.averageCurrentA,
+          unit: 'A',
+        },
         diode.ratedAverageCurrentA,
         DERATING.diodeAverageCurrent,
       ),
       deratedVerdict(
-        { id: `diode-surge-d${d.index}`, subject: `D${d.index}`, rule: ratingRule('switch-on surge (drive peak over source and diode resistance, empty capacitors)', DERATING.diodeSurgeCurrent), value: d.surgeCurrentA, unit: 'A' },
+        {
+          id: `diode-surge-d${d.index}`,
+          subject: `D${d.index}`,
+          rule: ratingRule(
+            'switch-on surge (drive peak over source and diode resistance, empty capacitors)',
+            DERATING.diodeSurgeCurrent,
+          ),
+          value: d.surgeCurrentA,
+          unit: 'A',
+        },
         diode.ratedSurgeCurrentA,
         DERATING.diodeSurgeCurrent,
       ),
@@ -54,7 +81,11 @@ export function ladderStressChecks(analysis: LadderAnalysis, multiplier: Multipl
 }
 
 /** Voltage and power of each resistor of the bleeder string (equal share of the ladder-top voltage). */
-export function bleederStressChecks(bleeder: BleederString | null, ladderTopV: number, peakLadderTopV: number): CheckVerdict[] {
+export function bleederStressChecks(
+  bleeder: BleederString | null,
+  ladderTopV: number,
+  peakLadderTopV: number,
+): CheckVerdict[] {
   if (!bleeder) return [];
   const perResistorV = Math.abs(peakLadderTopV) / bleeder.count;
   const perResistorW = (Math.abs(ladderTopV) / bleeder.count) ** 2 / bleeder.valueOhm;
@@ -62,12 +93,27 @@ export function bleederStressChecks(bleeder: BleederString | null, ladderTopV: n
   for (let i = 1; i <= bleeder.count; i += 1) {
     checks.push(
       deratedVerdict(
-        { id: `bleeder-voltage-r${i}`, subject: `bleeder R${i} of ${bleeder.count}`, rule: ratingRule('voltage across one resistor vs its limiting element voltage (IEC 60115-1 term)', DERATING.resistorVoltage), value: perResistorV, unit: 'V' },
+        {
+          id: `bleeder-voltage-r${i}`,
+          subject: `bleeder R${i} of ${bleeder.count}`,
+          rule: ratingRule(
+            'voltage across one resistor vs its limiting element voltage (IEC 60115-1 term)',
+            DERATING.resistorVoltage,
+          ),
+          value: perResistorV,
+          unit: 'V',
+        },
         bleeder.limitingVoltageV,
         DERATING.resistorVoltage,
       ),
       deratedVerdict(
-        { id: `bleeder-power-r${i}`, subject: `bleeder R${i} of ${bleeder.count}`, rule: ratingRule('dissipation of one resistor', DERATING.resistorPower), value: perResistorW, unit: 'W' },
+        {
+          id: `bleeder-power-r${i}`,
+          subject: `bleeder R${i} of ${bleeder.count}`,
+          rule: ratingRule('dissipation of one resistor', DERATING.resistorPower),
+          value: perResistorW,
+          unit: 'W',
+        },
         bleeder.ratedPowerW,
         DERATING.resistorPower,
       ),

@@ -22,9 +22,16 @@ function allEqual(values: readonly number[]): boolean {
 export function textbookFigures(input: LadderInput, ladderCurrentA: number): TextbookFigures {
   const caps = input.capacitorsF;
   const f = input.drive.frequencyHz;
-  const vmax = input.drive.kind === 'sine' ? input.drive.peakV : (input.drive.forwardPeakV + input.drive.flybackPeakV) / 2;
+  const vmax =
+    input.drive.kind === 'sine' ? input.drive.peakV : (input.drive.forwardPeakV + input.drive.flybackPeakV) / 2;
   const q = ladderCurrentA / f;
-  const none: TextbookFigures = { rippleV: null, dropV: null, regulation: null, optimumStages: null, method: TEXTBOOK_METHOD };
+  const none: TextbookFigures = {
+    rippleV: null,
+    dropV: null,
+    regulation: null,
+    optimumStages: null,
+    method: TEXTBOOK_METHOD,
+  };
   if (input.topology === 'half-wave' && caps.length % 2 === 0) {
     const n = caps.length / 2;
     if (n === 1 && !allEqual(caps)) {
@@ -50,4 +57,3 @@ export function textbookFigures(input: LadderInput, ladderCurrentA: number): Tex
   }
   return none;
 }
-

@@ -65,7 +65,14 @@ function zeros(length: number): number[] {
 }
 
 interface Builder {
-  caps: Array<{ top: number; bottom: number; f: number; column: CapacitorStress['column']; stage: number; diode: number }>;
+  caps: Array<{
+    top: number;
+    bottom: number;
+    f: number;
+    column: CapacitorStress['column'];
+    stage: number;
+    diode: number;
+  }>;
   diodes: Array<{ anode: number; cathode: number; event: DriveEvent; share: number }>;
 }
 
@@ -84,12 +91,27 @@ function finish(
   const dCount = b.diodes.length;
   const nodeCount = anchorScale.length + m;
   const net: LadderNetwork = {
-    topology, cellCount, stageCount, nodeCount, anchorScale,
-    capTop: zeros(m), capBottom: zeros(m), capF: zeros(m),
-    capColumn: new Array<CapacitorStress['column']>(m), capStage: zeros(m), capDiode: zeros(m),
-    diodeAnode: zeros(dCount), diodeCathode: zeros(dCount), diodeEvent: zeros(dCount),
-    diodeShare: zeros(dCount), nodeRoot: zeros(nodeCount),
-    outNode, returnNode, idealCoefficientH: ideal[0], idealCoefficientL: ideal[1], nodeInfo,
+    topology,
+    cellCount,
+    stageCount,
+    nodeCount,
+    anchorScale,
+    capTop: zeros(m),
+    capBottom: zeros(m),
+    capF: zeros(m),
+    capColumn: new Array<CapacitorStress['column']>(m),
+    capStage: zeros(m),
+    capDiode: zeros(m),
+    diodeAnode: zeros(dCount),
+    diodeCathode: zeros(dCount),
+    diodeEvent: zeros(dCount),
+    diodeShare: zeros(dCount),
+    nodeRoot: zeros(nodeCount),
+    outNode,
+    returnNode,
+    idealCoefficientH: ideal[0],
+    idealCoefficientL: ideal[1],
+    nodeInfo,
   };
   for (let i = 0; i < anchorScale.length; i += 1) net.nodeRoot[i] = i;
   for (let c = 0; c < m; c += 1) {
@@ -178,9 +200,30 @@ function fullWave(capacitorsF: readonly number[]): LadderNetwork {
     b.diodes.push({ anode: a(j), cathode: s(j), event: EVENT_H, share: 0.5 });
     b.diodes.push({ anode: bb(j), cathode: s(j), event: EVENT_L, share: 0.5 });
     const base = 3 * (j - 1);
-    b.caps.push({ top: a(j), bottom: a(j - 1), f: capacitorsF[base] ?? 0, column: 'oscillating-a', stage: j, diode: d });
-    b.caps.push({ top: bb(j), bottom: bb(j - 1), f: capacitorsF[base + 1] ?? 0, column: 'oscillating-b', stage: j, diode: d + 1 });
-    b.caps.push({ top: s(j), bottom: s(j - 1), f: capacitorsF[base + 2] ?? 0, column: 'smoothing', stage: j, diode: d + 2 });
+    b.caps.push({
+      top: a(j),
+      bottom: a(j - 1),
+      f: capacitorsF[base] ?? 0,
+      column: 'oscillating-a',
+      stage: j,
+      diode: d,
+    });
+    b.caps.push({
+      top: bb(j),
+      bottom: bb(j - 1),
+      f: capacitorsF[base + 1] ?? 0,
+      column: 'oscillating-b',
+      stage: j,
+      diode: d + 1,
+    });
+    b.caps.push({
+      top: s(j),
+      bottom: s(j - 1),
+      f: capacitorsF[base + 2] ?? 0,
+      column: 'smoothing',
+      stage: j,
+      diode: d + 2,
+    });
   }
   const nodeInfo: LadderNodeInfo[] = [
     { id: '0', label: 'ground', column: 'source', stage: 0, capacitorIndex: null },
@@ -228,7 +271,8 @@ function bridgeDoubler(capacitorsF: readonly number[]): LadderNetwork {
 
 /** Builds the network of a topology from capacitors in the MultiplierSpec order. */
 export function buildLadderNetwork(topology: Topology, capacitorsF: readonly number[]): LadderNetwork {
-  if (capacitorsF.length === 0) throw new DomainError('invalid_argument', 'a ladder needs at least one capacitor', 'capacitorsF');
+  if (capacitorsF.length === 0)
+    throw new DomainError('invalid_argument', 'a ladder needs at least one capacitor', 'capacitorsF');
   capacitorsF.forEach((value, i) => {
     if (!(value > 0) || !Number.isFinite(value)) {
       throw new DomainError('invalid_argument', 'capacitance must be positive', `capacitorsF[${i}]`);
@@ -241,6 +285,7 @@ export function buildLadderNetwork(topology: Topology, capacitorsF: readonly num
     }
     return fullWave(capacitorsF);
   }
-  if (capacitorsF.length !== 2) throw new DomainError('invalid_argument', 'a bridge doubler has two capacitors', 'capacitorsF');
+  if (capacitorsF.length !== 2)
+    throw new DomainError('invalid_argument', 'a bridge doubler has two capacitors', 'capacitorsF');
   return bridgeDoubler(capacitorsF);
 }

@@ -16,17 +16,24 @@ const drives: PulseDrive[] = [
 ];
 
 describe('withDrive', () => {
-  it.each(drives.map((d, i) => [i, d] as const))('drive %i: the redriven ladder gives exactly what a fresh preparation gives', (_, drive) => {
-    const redriven = withDrive(prepareLadder({ ...input, drive: drives[2] as PulseDrive }), drive);
-    const fresh = prepareLadder({ ...input, drive });
-    // Exact: the same arithmetic on the same numbers.
-    expect(terminalMeanAt(redriven, 3e-6)).toBe(terminalMeanAt(fresh, 3e-6));
-    expect(analyzePrepared(redriven)).toEqual(analyzePrepared(fresh));
-  });
+  it.each(drives.map((d, i) => [i, d] as const))(
+    'drive %i: the redriven ladder gives exactly what a fresh preparation gives',
+    (_, drive) => {
+      const redriven = withDrive(prepareLadder({ ...input, drive: drives[2] as PulseDrive }), drive);
+      const fresh = prepareLadder({ ...input, drive });
+      // Exact: the same arithmetic on the same numbers.
+      expect(terminalMeanAt(redriven, 3e-6)).toBe(terminalMeanAt(fresh, 3e-6));
+      expect(analyzePrepared(redriven)).toEqual(analyzePrepared(fresh));
+    },
+  );
 
   it('prepares afresh for another kind of drive, and reports a drive outside the model’s range', () => {
     const sine = { kind: 'sine' as const, peakV: 500, frequencyHz: 20e3, sourceResistanceOhm: 60 };
-    expect(analyzePrepared(withDrive(prepareLadder(input), sine))).toEqual(analyzePrepared(prepareLadder({ ...input, drive: sine })));
-    expect(() => withDrive(prepareLadder(input), { ...pulse, dutyCycle: 1 })).toThrow(expect.objectContaining({ field: 'drive.dutyCycle' }));
+    expect(analyzePrepared(withDrive(prepareLadder(input), sine))).toEqual(
+      analyzePrepared(prepareLadder({ ...input, drive: sine })),
+    );
+    expect(() => withDrive(prepareLadder(input), { ...pulse, dutyCycle: 1 })).toThrow(
+      expect.objectContaining({ field: 'drive.dutyCycle' }),
+    );
   });
 });

@@ -12,7 +12,8 @@ import { driveTiming } from './charge-transfer-model';
 export function withDrive(prepared: PreparedLadder, drive: SineDrive | PulseDrive): PreparedLadder {
   const input = { ...prepared.input, drive };
   const isSameKind = (drive.kind === 'sine') === prepared.workspace.timing.isSine;
-  const isInRange = drive.frequencyHz > 0 && (drive.kind === 'sine' ? drive.peakV > 0 : drive.dutyCycle > 0 && drive.dutyCycle < 1);
+  const isInRange =
+    drive.frequencyHz > 0 && (drive.kind === 'sine' ? drive.peakV > 0 : drive.dutyCycle > 0 && drive.dutyCycle < 1);
   if (!isSameKind || !isInRange) return prepareLadder(input);
   prepared.workspace.timing = driveTiming(drive, input.polarity);
   return { input, workspace: prepared.workspace };

@@ -10,7 +10,17 @@ const tableF4: Array<[number, ...(number | null)[]]> = [
   [1000, 3.2, 5.0, 3.2, 5.0, 7.1, 10.0, 12.5, 14.0, 16.0],
   [2000, null, null, 7.5, 10.0, 14.0, 20.0, 25.0, 28.0, 32.0],
 ];
-const columns: CreepageColumn[] = ['pwbPd1', 'pwbPd2', 'pd1', 'pd2MgI', 'pd2MgII', 'pd2MgIII', 'pd3MgI', 'pd3MgII', 'pd3MgIII'];
+const columns: CreepageColumn[] = [
+  'pwbPd1',
+  'pwbPd2',
+  'pd1',
+  'pd2MgI',
+  'pd2MgII',
+  'pd2MgIII',
+  'pd3MgI',
+  'pd3MgII',
+  'pd3MgIII',
+];
 
 describe('creepage (IEC 60664-1 Table F.4)', () => {
   it('returns the reproduced table values at the table rows', () => {

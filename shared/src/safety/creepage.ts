@@ -6,7 +6,8 @@ import type { CheckVerdict } from './check.types';
 /** IEC 60664-1:2007 Table F.4 rows as reproduced in REFERENCES.md §5 (read from a manufacturer's reproduction). */
 export const CREEPAGE_TABLE_F4_VOLTAGES_V = [250, 500, 1000, 2000] as const;
 
-export type CreepageColumn = 'pwbPd1' | 'pwbPd2' | 'pd1' | 'pd2MgI' | 'pd2MgII' | 'pd2MgIII' | 'pd3MgI' | 'pd3MgII' | 'pd3MgIII';
+export type CreepageColumn =
+  'pwbPd1' | 'pwbPd2' | 'pd1' | 'pd2MgI' | 'pd2MgII' | 'pd2MgIII' | 'pd3MgI' | 'pd3MgII' | 'pd3MgIII';
 
 /** Creepage in mm per column; null where the reproduction has no entry (printed-wiring columns above 1000 V). */
 export const CREEPAGE_TABLE_F4_MM: Readonly<Record<CreepageColumn, readonly (number | null)[]>> = {
@@ -25,9 +26,13 @@ export const CREEPAGE_METHOD_TEXT =
   'IEC 60664-1:2007 Table F.4 (rows 250/500/1000/2000 V as reproduced in REFERENCES.md §5), log-log interpolation between rows; below 250 V and above the last row log-log extrapolation along the nearest segment (the standard has more rows: check against it); DC working voltage taken as rms';
 
 /** Picks the Table F.4 column for an environment; printed-wiring columns apply to PD1/PD2 up to 1000 V. */
-export function creepageColumn(env: Pick<SpacingEnvironment, 'pollutionDegree' | 'materialGroup' | 'pcb'>, workingVoltageV: number): CreepageColumn {
+export function creepageColumn(
+  env: Pick<SpacingEnvironment, 'pollutionDegree' | 'materialGroup' | 'pcb'>,
+  workingVoltageV: number,
+): CreepageColumn {
   const group = env.materialGroup === 'I' ? 'I' : env.materialGroup === 'II' ? 'II' : 'III';
-  if (env.pcb && env.pollutionDegree <= 2 && Math.abs(workingVoltageV) <= 1000) return env.pollutionDegree === 1 ? 'pwbPd1' : 'pwbPd2';
+  if (env.pcb && env.pollutionDegree <= 2 && Math.abs(workingVoltageV) <= 1000)
+    return env.pollutionDegree === 1 ? 'pwbPd1' : 'pwbPd2';
   if (env.pollutionDegree === 1) return 'pd1';
   return `pd${env.pollutionDegree}Mg${group}` as CreepageColumn;
 }

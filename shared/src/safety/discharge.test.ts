@@ -10,10 +10,24 @@ describe('bleeder discharge', () => {
   });
 
   it('fails without a bleeder and applies the NFPA 79 60 µC exemption', () => {
-    const noBleeder = dischargeCheck({ bleederOhm: null, equivalentCapacitanceF: 1e-9, outputV: 5000, safeVoltageV: 50, rule: '50V-1min', storedChargeC: 5e-6 });
+    const noBleeder = dischargeCheck({
+      bleederOhm: null,
+      equivalentCapacitanceF: 1e-9,
+      outputV: 5000,
+      safeVoltageV: 50,
+      rule: '50V-1min',
+      storedChargeC: 5e-6,
+    });
     expect(noBleeder.verdict.verdict).toBe('fail');
     expect(noBleeder.dischargeTimeS).toBeNull();
-    const exempt = dischargeCheck({ bleederOhm: null, equivalentCapacitanceF: 1e-9, outputV: 5000, safeVoltageV: 60, rule: '60V-5s', storedChargeC: 5e-6 });
+    const exempt = dischargeCheck({
+      bleederOhm: null,
+      equivalentCapacitanceF: 1e-9,
+      outputV: 5000,
+      safeVoltageV: 60,
+      rule: '60V-5s',
+      storedChargeC: 5e-6,
+    });
     expect(exempt.verdict.verdict).toBe('pass');
   });
 });
@@ -29,7 +43,14 @@ describe('discharge rules', () => {
 
   it('marks a discharge using 80–100 % of the allowed time as marginal', () => {
     // τ = 100 MΩ · 10 nF = 1 s; from 5 kV to 50 V takes ln(100) ≈ 4.6 s against 5 s: 8 % margin → marginal.
-    const result = dischargeCheck({ bleederOhm: 100e6, equivalentCapacitanceF: 10e-9, outputV: 5000, safeVoltageV: 60, rule: { voltageV: 50, timeS: 5 }, storedChargeC: 50e-6 });
+    const result = dischargeCheck({
+      bleederOhm: 100e6,
+      equivalentCapacitanceF: 10e-9,
+      outputV: 5000,
+      safeVoltageV: 60,
+      rule: { voltageV: 50, timeS: 5 },
+      storedChargeC: 50e-6,
+    });
     expect(result.verdict.verdict).toBe('marginal');
     expect(result.verdict.value).toBeCloseTo(Math.log(100), 9);
   });

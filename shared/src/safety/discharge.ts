@@ -6,7 +6,8 @@ import type { MethodInfo } from '../driver/driver.types';
 
 export const DISCHARGE_METHOD: MethodInfo = {
   methodId: 'bleeder-rc-v1',
-  summary: 'Bleeder discharge V(t) = V0·e^(−t/RC), t = RC·ln(V0/V_end), with the energy-equivalent capacitance at the output; compared with the selected rule.',
+  summary:
+    'Bleeder discharge V(t) = V0·e^(−t/RC), t = RC·ln(V0/V_end), with the energy-equivalent capacitance at the output; compared with the selected rule.',
   assumptions: [
     'the oscillating column drains through the diodes into the smoothing column and the bleeder as the output falls',
     'diode forward drops and leakage neglected; the bleeder is the only discharge path',
@@ -16,11 +17,34 @@ export const DISCHARGE_METHOD: MethodInfo = {
 };
 
 /** A discharge rule as voltage and time, with where it comes from (REFERENCES.md §4). */
-export function dischargeRuleLimits(rule: DischargeRule): { voltageV: number; timeS: number; text: string; exemptBelowChargeC: number | null } {
-  if (typeof rule === 'object') return { ...rule, text: `custom rule: ≤ ${rule.voltageV} V within ${rule.timeS} s`, exemptBelowChargeC: null };
-  if (rule === '50V-1min') return { voltageV: 50, timeS: 60, text: 'NFPA 70 Art. 460.6 (read): ≤ 50 V within 1 min', exemptBelowChargeC: null };
-  if (rule === '50V-5min') return { voltageV: 50, timeS: 300, text: 'Cal/OSHA Title 8 §2893 (read); NEC 460.28 (from memory): ≤ 50 V within 5 min', exemptBelowChargeC: null };
-  return { voltageV: 60, timeS: 5, text: 'NFPA 79 6.5.1 (read): ≤ 60 V within 5 s unless stored charge ≤ 60 µC', exemptBelowChargeC: 60e-6 };
+export function dischargeRuleLimits(rule: DischargeRule): {
+  voltageV: number;
+  timeS: number;
+  text: string;
+  exemptBelowChargeC: number | null;
+} {
+  if (typeof rule === 'object')
+    return { ...rule, text: `custom rule: ≤ ${rule.voltageV} V within ${rule.timeS} s`, exemptBelowChargeC: null };
+  if (rule === '50V-1min')
+    return {
+      voltageV: 50,
+      timeS: 60,
+      text: 'NFPA 70 Art. 460.6 (read): ≤ 50 V within 1 min',
+      exemptBelowChargeC: null,
+    };
+  if (rule === '50V-5min')
+    return {
+      voltageV: 50,
+      timeS: 300,
+      text: 'Cal/OSHA Title 8 §2893 (read); NEC 460.28 (from memory): ≤ 50 V within 5 min',
+      exemptBelowChargeC: null,
+    };
+  return {
+    voltageV: 60,
+    timeS: 5,
+    text: 'NFPA 79 6.5.1 (read): ≤ 60 V within 5 s unless stored charge ≤ 60 µC',
+    exemptBelowChargeC: 60e-6,
+  };
 }
 
 /** Time for an RC discharge from v0 to vEnd: t = R·C·ln(v0/vEnd) (REFERENCES.md §4). 0 when already below. */
@@ -49,20 +73,46 @@ export function dischargeCheck(input: DischargeInput): { dischargeTimeS: number 
   const exempt = rule.exemptBelowChargeC !== null && input.storedChargeC <= rule.exemptBelowChargeC;
   if (exempt) {
     return {
-      dischargeTimeS: input.bleederOhm ? dischargeTimeS(input.bleederOhm, input.equivalentCapacitanceF, input.outputV, input.safeVoltageV) : null,
-      verdict: { id: 'discharge-time', subject: 'bleeder discharge', rule: ruleText, verdict: 'pass', marginPct: 100, value: input.storedChargeC, limit: rule.exemptBelowChargeC ?? 0, unit: 'C', caution: HV_CAUTION },
+      dischargeTimeS: input.bleederOhm
+        ? dischargeTimeS(input.bleederOhm, input.equivalentCapacitanceF, input.outputV, input.safeVoltageV)
+        : null,
+      verdict: {
+        id: 'discharge-time',
+        subject: 'bleeder discharge',
+        rule: ruleText,
+        verdict: 'pass',
+        marginPct: 100,
+        value: input.storedChargeC,
+        limit: rule.exemptBelowChargeC ?? 0,
+        unit: 'C',
+        caution: HV_CAUTION,
+      },
     };
   }
   if (!input.bleederOhm) {
     return {
       dischargeTimeS: null,
-      verdict: upperLimitVerdict({ id: 'discharge-time', subject: 'no bleeder', rule: ruleText, value: null, limit: rule.timeS, unit: 's' }),
+      verdict: upperLimitVerdict({
+        id: 'discharge-time',
+        subject: 'no bleeder',
+        rule: ruleText,
+        value: null,
+        limit: rule.timeS,
+        unit: 's',
+      }),
     };
   }
   const toRule = dischargeTimeS(input.bleederOhm, input.equivalentCapacitanceF, input.outputV, rule.voltageV);
   return {
     dischargeTimeS: dischargeTimeS(input.bleederOhm, input.equivalentCapacitanceF, input.outputV, input.safeVoltageV),
-    verdict: upperLimitVerdict({ id: 'discharge-time', subject: `bleeder to ${rule.voltageV} V`, rule: ruleText, value: toRule, limit: rule.timeS, unit: 's' }),
+    verdict: upperLimitVerdict({
+      id: 'discharge-time',
+      subject: `bleeder to ${rule.voltageV} V`,
+      rule: ruleText,
+      value: toRule,
+      limit: rule.timeS,
+      unit: 's',
+    }),
   };
 }
 

@@ -19,7 +19,11 @@ describe('verdict thresholds', () => {
   });
 
   it('derated rating: pass up to rating × factor, marginal up to the rating, fail beyond; limit reports the derated figure', () => {
-    expect(deratedVerdict({ ...base, value: 800 }, 1000, 0.8)).toMatchObject({ verdict: 'pass', limit: 800, marginPct: 0 });
+    expect(deratedVerdict({ ...base, value: 800 }, 1000, 0.8)).toMatchObject({
+      verdict: 'pass',
+      limit: 800,
+      marginPct: 0,
+    });
     expect(deratedVerdict({ ...base, value: 900 }, 1000, 0.8).verdict).toBe('marginal');
     expect(deratedVerdict({ ...base, value: 1001 }, 1000, 0.8).verdict).toBe('fail');
   });

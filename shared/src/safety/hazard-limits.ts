@@ -22,13 +22,28 @@ export function storedChargeLimit(
 ): { kind: 'none' | 'charge' | 'capacitance' | 'energy'; limit: number; unit: string; text: string } {
   const v = Math.abs(voltageV);
   if (standard === 'IEC 61010-1') {
-    if (v <= 70) return { kind: 'none', limit: 70, unit: 'V', text: 'IEC 61010-1 (from memory): not hazardous at or below 70 V DC' };
-    if (v <= 15e3) return { kind: 'charge', limit: 45e-6, unit: 'C', text: 'IEC 61010-1 (from memory): 45 µC up to 15 kV' };
+    if (v <= 70)
+      return {
+        kind: 'none',
+        limit: 70,
+        unit: 'V',
+        text: 'IEC 61010-1 (from memory): not hazardous at or below 70 V DC',
+      };
+    if (v <= 15e3)
+      return { kind: 'charge', limit: 45e-6, unit: 'C', text: 'IEC 61010-1 (from memory): 45 µC up to 15 kV' };
     return { kind: 'energy', limit: 0.35, unit: 'J', text: 'IEC 61010-1 (from memory): 350 mJ above 15 kV' };
   }
-  if (v <= 42.4) return { kind: 'none', limit: 42.4, unit: 'V', text: 'IEC 60335-1 8.1.4 (read): no limit at or below 42.4 V peak' };
-  if (v <= 450) return { kind: 'capacitance', limit: 0.1e-6, unit: 'F', text: 'IEC 60335-1 8.1.4 (read): 0.1 µF for 42.4–450 V peak' };
-  if (v <= 15e3) return { kind: 'charge', limit: 45e-6, unit: 'C', text: 'IEC 60335-1 8.1.4 (read): 45 µC for 450 V–15 kV' };
+  if (v <= 42.4)
+    return { kind: 'none', limit: 42.4, unit: 'V', text: 'IEC 60335-1 8.1.4 (read): no limit at or below 42.4 V peak' };
+  if (v <= 450)
+    return {
+      kind: 'capacitance',
+      limit: 0.1e-6,
+      unit: 'F',
+      text: 'IEC 60335-1 8.1.4 (read): 0.1 µF for 42.4–450 V peak',
+    };
+  if (v <= 15e3)
+    return { kind: 'charge', limit: 45e-6, unit: 'C', text: 'IEC 60335-1 8.1.4 (read): 45 µC for 450 V–15 kV' };
   return { kind: 'energy', limit: 0.35, unit: 'J', text: 'IEC 60335-1 8.1.4 (read): 350 mJ above 15 kV' };
 }
 

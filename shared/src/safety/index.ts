@@ -1,4 +1,11 @@
-export { HV_CAUTION, SAFETY_MARGINAL_BELOW_PCT, storedChargeLimit, upperLimitVerdict, lowerLimitVerdict, deratedVerdict } from './hazard-limits';
+export {
+  HV_CAUTION,
+  SAFETY_MARGINAL_BELOW_PCT,
+  storedChargeLimit,
+  upperLimitVerdict,
+  lowerLimitVerdict,
+  deratedVerdict,
+} from './hazard-limits';
 export type { HazardStandard } from './hazard-limits';
 export { storedEnergy, storedEnergyChecks, STORED_ENERGY_METHOD } from './stored-energy';
 export type { StoredEnergyItem, StoredEnergySummary } from './stored-energy';

@@ -5,12 +5,20 @@ import { storedEnergy, storedEnergyChecks } from './stored-energy';
 
 describe('stored energy and charge', () => {
   it('computes ½CV² and CV per capacitor (outside check: mathjs unit arithmetic)', () => {
-    const summary = storedEnergy([{ index: 1, valueF: 10e-9, maxVoltageV: 3000 }, { index: 2, valueF: 4.7e-9, maxVoltageV: 2000 }], 5000);
+    const summary = storedEnergy(
+      [
+        { index: 1, valueF: 10e-9, maxVoltageV: 3000 },
+        { index: 2, valueF: 4.7e-9, maxVoltageV: 2000 },
+      ],
+      5000,
+    );
     const e1 = evaluate('0.5 * 10 nF * (3 kV)^2').toNumber('J');
     const e2 = evaluate('0.5 * 4.7 nF * (2 kV)^2').toNumber('J');
     // Relative 1e-12: the same arithmetic done by mathjs with units.
     expect(Math.abs(summary.totalEnergyJ / (e1 + e2) - 1)).toBeLessThan(1e-12);
-    expect(Math.abs(summary.totalChargeC / evaluate('10 nF * 3 kV + 4.7 nF * 2 kV').toNumber('C') - 1)).toBeLessThan(1e-12);
+    expect(Math.abs(summary.totalChargeC / evaluate('10 nF * 3 kV + 4.7 nF * 2 kV').toNumber('C') - 1)).toBeLessThan(
+      1e-12,
+    );
   });
 
   it('applies the IEC limits of REFERENCES.md §4 by voltage band', () => {

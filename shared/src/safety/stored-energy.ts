@@ -13,7 +13,8 @@ export interface StoredEnergyItem {
 
 export const STORED_ENERGY_METHOD: MethodInfo = {
   methodId: 'stored-energy-v1',
-  summary: 'Energy ½CV² and charge CV of each capacitor at its largest operating voltage; at the output, all stored energy as deliverable (energy-equivalent capacitance 2E/V²), compared with the IEC 61010-1 and IEC 60335-1 limits.',
+  summary:
+    'Energy ½CV² and charge CV of each capacitor at its largest operating voltage; at the output, all stored energy as deliverable (energy-equivalent capacitance 2E/V²), compared with the IEC 61010-1 and IEC 60335-1 limits.',
   assumptions: [
     'the diodes conduct forward while the ladder discharges through its output, so the oscillating column’s energy also reaches the output (conservative)',
     'limits: IEC 61010-1 from memory, IEC 60335-1 8.1.4 read (REFERENCES.md §4); verdicts marginal within 20 % of a limit',
@@ -36,7 +37,10 @@ export interface StoredEnergySummary {
  * (REFERENCES.md §4). The output figures take all stored energy as deliverable at the output, as the
  * diodes conduct forward while the ladder discharges through it (a conservative reading).
  */
-export function storedEnergy(capacitors: ReadonlyArray<{ index: number; valueF: number; maxVoltageV: number }>, outputV: number): StoredEnergySummary {
+export function storedEnergy(
+  capacitors: ReadonlyArray<{ index: number; valueF: number; maxVoltageV: number }>,
+  outputV: number,
+): StoredEnergySummary {
   const items = capacitors.map((c) => ({
     index: c.index,
     valueF: c.valueF,
@@ -56,12 +60,19 @@ export function storedEnergy(capacitors: ReadonlyArray<{ index: number; valueF: 
   };
 }
 
-function limitVerdict(id: string, subject: string, voltageV: number, capacitanceF: number, standard: HazardStandard): CheckVerdict {
+function limitVerdict(
+  id: string,
+  subject: string,
+  voltageV: number,
+  capacitanceF: number,
+  standard: HazardStandard,
+): CheckVerdict {
   const limit = storedChargeLimit(voltageV, standard);
   const v = Math.abs(voltageV);
   const rule = `${limit.text}; marginal within 20 % of the limit`;
   if (limit.kind === 'none') return upperLimitVerdict({ id, subject, rule, value: v, limit: limit.limit, unit: 'V' });
-  const value = limit.kind === 'charge' ? capacitanceF * v : limit.kind === 'energy' ? 0.5 * capacitanceF * v * v : capacitanceF;
+  const value =
+    limit.kind === 'charge' ? capacitanceF * v : limit.kind === 'energy' ? 0.5 * capacitanceF * v * v : capacitanceF;
   return upperLimitVerdict({ id, subject, rule, value, limit: limit.limit, unit: limit.unit });
 }
 
@@ -70,7 +81,15 @@ export function storedEnergyChecks(summary: StoredEnergySummary, outputV: number
   const checks: CheckVerdict[] = [];
   for (const standard of ['IEC 61010-1', 'IEC 60335-1'] as const) {
     const tag = standard === 'IEC 61010-1' ? 'iec61010' : 'iec60335';
-    checks.push(limitVerdict(`stored-output-${tag}`, 'output (all stored energy)', outputV, summary.outputEquivalentCapacitanceF, standard));
+    checks.push(
+      limitVerdict(
+        `stored-output-${tag}`,
+        'output (all stored energy)',
+        outputV,
+        summary.outputEquivalentCapacitanceF,
+        standard,
+      ),
+    );
     for (const c of summary.capacitors) {
       checks.push(limitVerdict(`stored-c${c.index}-${tag}`, `C${c.index}`, c.voltageV, c.valueF, standard));
     }

@@ -1,5 +1,12 @@
 export { sizeLadder } from './size-ladder';
-export type { SizerRequest, SizerResult, SizerCandidate, CapacitorOption, DiodeOption, ResistorOption } from './size-ladder';
+export type {
+  SizerRequest,
+  SizerResult,
+  SizerCandidate,
+  CapacitorOption,
+  DiodeOption,
+  ResistorOption,
+} from './size-ladder';
 export { toleranceSpread } from './tolerance-spread';
 export type { ToleranceSpreadRequest, ToleranceSpreadResult, SpreadStatistics, HistogramBin } from './tolerance-spread';
 export { mulberry32, normalFrom } from './seeded-random';

@@ -6,12 +6,29 @@ import { sizeLadder } from './size-ladder';
 const drive = { kind: 'sine' as const, peakV: 480, frequencyHz: 25e3, sourceResistanceOhm: 150 };
 
 describe('sizeLadder', () => {
-  const result = sizeLadder({ targetOutputV: -6000, loadCurrentA: 30e-6, rippleMaxV: 30, drive, safeVoltageV: 50, series: 'E12', topologies: ['half-wave'] });
+  const result = sizeLadder({
+    targetOutputV: -6000,
+    loadCurrentA: 30e-6,
+    rippleMaxV: 30,
+    drive,
+    safeVoltageV: 50,
+    series: 'E12',
+    topologies: ['half-wave'],
+  });
 
   it('returns ranked candidates that meet the target and the ripple limit when re-analysed', () => {
     expect(result.candidates.length).toBeGreaterThan(3);
     for (const c of result.candidates) {
-      const r = analyzeLadder({ topology: c.topology, capacitorsF: c.capacitorsF, drive, diode: c.diode, polarity: -1, load: { kind: 'current', currentA: 30e-6 }, bleederOhm: null, seriesOutputResistanceOhm: 0 });
+      const r = analyzeLadder({
+        topology: c.topology,
+        capacitorsF: c.capacitorsF,
+        drive,
+        diode: c.diode,
+        polarity: -1,
+        load: { kind: 'current', currentA: 30e-6 },
+        bleederOhm: null,
+        seriesOutputResistanceOhm: 0,
+      });
       expect(r.outputMeanV).toBeLessThanOrEqual(-6000);
       expect(r.outputMeanV).toBeGreaterThanOrEqual(-6000 * 1.3);
       expect(r.ripplePeakToPeakV).toBeLessThanOrEqual(30);
@@ -36,10 +53,29 @@ describe('sizeLadder', () => {
         { valueF: 2.2e-9, ratedVoltageV: 2000, costEach: 0.3, partCode: 'NF-C222-2K' },
         { valueF: 4.7e-9, ratedVoltageV: 2000, costEach: 0.9, partCode: 'NF-C472-2K' },
       ],
-      diodes: [{ saturationCurrentA: 2e-9, emissionCoefficient: 8, seriesResistanceOhm: 40, ratedPivV: 2000, ratedAverageCurrentA: 0.05, ratedSurgeCurrentA: 10, costEach: 0.2 }],
+      diodes: [
+        {
+          saturationCurrentA: 2e-9,
+          emissionCoefficient: 8,
+          seriesResistanceOhm: 40,
+          ratedPivV: 2000,
+          ratedAverageCurrentA: 0.05,
+          ratedSurgeCurrentA: 10,
+          costEach: 0.2,
+        },
+      ],
       resistors: [{ valueOhm: 100e6, ratedPowerW: 0.5, limitingVoltageV: 2500, costEach: 0.1 }],
     };
-    const priced = sizeLadder({ targetOutputV: -6000, loadCurrentA: 30e-6, rippleMaxV: 60, drive, safeVoltageV: 50, parts, gradings: ['equal'], topologies: ['half-wave'] });
+    const priced = sizeLadder({
+      targetOutputV: -6000,
+      loadCurrentA: 30e-6,
+      rippleMaxV: 60,
+      drive,
+      safeVoltageV: 50,
+      parts,
+      gradings: ['equal'],
+      topologies: ['half-wave'],
+    });
     const costs = priced.candidates.map((c) => c.cost ?? Infinity);
     expect(costs[0]).toBeLessThanOrEqual(Math.min(...costs));
     expect(priced.candidates[0]?.bleeder?.count).toBeGreaterThanOrEqual(3); // ~6.5 kV over 2.5 kV × 0.8 elements

@@ -36,7 +36,11 @@ export interface SizerRequest {
   /** Capacitor values from this E-series when no capacitor list is given (default E12, 100 pF … 10 µF). */
   series?: ESeriesName;
   capacitorRangeF?: readonly [number, number];
-  parts?: { capacitors?: readonly CapacitorOption[]; diodes?: readonly DiodeOption[]; resistors?: readonly ResistorOption[] };
+  parts?: {
+    capacitors?: readonly CapacitorOption[];
+    diodes?: readonly DiodeOption[];
+    resistors?: readonly ResistorOption[];
+  };
   /** Largest accepted excess of the mean output over the target, as a fraction (default 0.3). */
   maxOvershoot?: number;
   /** Extra cells (stages for full-wave) tried above the smallest count that can reach the target (default 8). */
@@ -91,13 +95,39 @@ const SIZER_METHOD: MethodInfo = {
   source: 'steady-state method charge-transfer-v1; REFERENCES.md §1–2, §4, §6',
 };
 
-const STANDARD_CAPACITOR_RATINGS_V = [50, 100, 250, 400, 630, 1000, 1600, 2000, 3000, 4000, 5000, 6000, 8000, 10000, 15000, 20000, 30000];
+const STANDARD_CAPACITOR_RATINGS_V = [
+  50, 100, 250, 400, 630, 1000, 1600, 2000, 3000, 4000, 5000, 6000, 8000, 10000, 15000, 20000, 30000,
+];
 
 /** Generic diode choices when the request gives none (invented Northfold parts, common-practice figures). */
 const DEFAULT_DIODES: DiodeOption[] = [
-  { saturationCurrentA: 1e-9, emissionCoefficient: 3, seriesResistanceOhm: 10, ratedPivV: 1000, ratedAverageCurrentA: 0.1, ratedSurgeCurrentA: 10, partCode: 'NF-D1K-100M' },
-  { saturationCurrentA: 2e-9, emissionCoefficient: 8, seriesResistanceOhm: 40, ratedPivV: 2500, ratedAverageCurrentA: 0.05, ratedSurgeCurrentA: 10, partCode: 'NF-D2K5-50M' },
-  { saturationCurrentA: 2e-9, emissionCoefficient: 16, seriesResistanceOhm: 80, ratedPivV: 6000, ratedAverageCurrentA: 0.02, ratedSurgeCurrentA: 5, partCode: 'NF-D6K-20M' },
+  {
+    saturationCurrentA: 1e-9,
+    emissionCoefficient: 3,
+    seriesResistanceOhm: 10,
+    ratedPivV: 1000,
+    ratedAverageCurrentA: 0.1,
+    ratedSurgeCurrentA: 10,
+    partCode: 'NF-D1K-100M',
+  },
+  {
+    saturationCurrentA: 2e-9,
+    emissionCoefficient: 8,
+    seriesResistanceOhm: 40,
+    ratedPivV: 2500,
+    ratedAverageCurrentA: 0.05,
+    ratedSurgeCurrentA: 10,
+    partCode: 'NF-D2K5-50M',
+  },
+  {
+    saturationCurrentA: 2e-9,
+    emissionCoefficient: 16,
+    seriesResistanceOhm: 80,
+    ratedPivV: 6000,
+    ratedAverageCurrentA: 0.02,
+    ratedSurgeCurrentA: 5,
+    partCode: 'NF-D6K-20M',
+  },
 ];
 
 /** Generic bleeder resistors (common practice figures, REFERENCES.md §6). */
@@ -116,7 +146,13 @@ function capacitorCount(topology: Topology, cells: number): number {
 }
 
 /** Capacitor values of a candidate; graded values snap to the nearest available value (log distance). */
-function gradedValues(topology: Topology, cells: number, c: number, grading: 'equal' | 'graded', available: readonly number[]): number[] {
+function gradedValues(
+  topology: Topology,
+  cells: number,
+  c: number,
+  grading: 'equal' | 'graded',
+  available: readonly number[],
+): number[] {
   const count = capacitorCount(topology, cells);
   if (grading === 'equal' || topology === 'bridge-doubler') return Array<number>(count).fill(c);
   const perStage = topology === 'full-wave' ? 3 : 2;
@@ -137,7 +173,11 @@ function gradedValues(topology: Topology, cells: number, c: number, grading: 'eq
   });
 }
 
-function ratingFor(voltageV: number, options: readonly CapacitorOption[] | undefined, valueF: number): CapacitorOption | null {
+function ratingFor(
+  voltageV: number,
+  options: readonly CapacitorOption[] | undefined,
+  valueF: number,
+): CapacitorOption | null {
   const need = voltageV / DERATING.capacitorVoltage;
   if (options) {
     const fits = options.filter((o) => Math.abs(o.valueF / valueF - 1) < 1e-9 && o.ratedVoltageV >= need);
@@ -178,15 +218,26 @@ function chooseBleeder(
 export function sizeLadder(request: SizerRequest): SizerResult {
   const target = Math.abs(request.targetOutputV);
   if (!(target > 0)) throw new DomainError('invalid_argument', 'target output must be non-zero', 'targetOutputV');
-  if (!(request.rippleMaxV > 0)) throw new DomainError('invalid_argument', 'ripple limit must be positive', 'rippleMaxV');
+  if (!(request.rippleMaxV > 0))
+    throw new DomainError('invalid_argument', 'ripple limit must be positive', 'rippleMaxV');
   const polarity: 1 | -1 = request.targetOutputV < 0 ? -1 : 1;
   const vmax = perCellV(request.drive);
   const topologies = request.topologies ?? (['half-wave', 'full-wave', 'bridge-doubler'] as const);
   const capacitorValues = request.parts?.capacitors
     ? [...new Set(request.parts.capacitors.map((c) => c.valueF))].sort((a, b) => a - b)
-    : preferredValuesBetween(request.capacitorRangeF?.[0] ?? 100e-12, request.capacitorRangeF?.[1] ?? 10e-6, request.series ?? 'E12');
+    : preferredValuesBetween(
+        request.capacitorRangeF?.[0] ?? 100e-12,
+        request.capacitorRangeF?.[1] ?? 10e-6,
+        request.series ?? 'E12',
+      );
   // Graded ladders snap to values one decade beyond the range as well (the bottom stage is n times the top).
-  const snapValues = request.parts?.capacitors ? capacitorValues : preferredValuesBetween((request.capacitorRangeF?.[0] ?? 100e-12), (request.capacitorRangeF?.[1] ?? 10e-6) * 100, request.series ?? 'E12');
+  const snapValues = request.parts?.capacitors
+    ? capacitorValues
+    : preferredValuesBetween(
+        request.capacitorRangeF?.[0] ?? 100e-12,
+        (request.capacitorRangeF?.[1] ?? 10e-6) * 100,
+        request.series ?? 'E12',
+      );
   const diodes = (request.parts?.diodes ?? DEFAULT_DIODES).filter((d) => d.ratedPivV * DERATING.diodePiv >= 2 * vmax);
   const resistors = request.parts?.resistors ?? DEFAULT_RESISTORS;
   const gradings = request.gradings ?? (['equal', 'graded'] as const);
@@ -221,8 +272,11 @@ export function sizeLadder(request: SizerRequest): SizerResult {
             evaluated += 1;
             const analysis = analyzePrepared(withDiode(prepared, diode), { operatingPointOnly: true });
             const out = Math.abs(analysis.outputMeanV);
-            if (out < target || out > target * (1 + maxOvershoot) || analysis.ripplePeakToPeakV > request.rippleMaxV) continue;
-            const chosen = analysis.capacitors.map((cap) => ratingFor(cap.maxVoltageV, request.parts?.capacitors, cap.valueF));
+            if (out < target || out > target * (1 + maxOvershoot) || analysis.ripplePeakToPeakV > request.rippleMaxV)
+              continue;
+            const chosen = analysis.capacitors.map((cap) =>
+              ratingFor(cap.maxVoltageV, request.parts?.capacitors, cap.valueF),
+            );
             if (chosen.some((x) => x === null)) continue;
             const ratings = chosen as CapacitorOption[];
             let worst = Infinity;
@@ -261,11 +315,17 @@ export function sizeLadder(request: SizerRequest): SizerResult {
     }
   }
   const score = (c: { cost: number | null; partCount: number }): number => c.cost ?? c.partCount;
-  meeting.sort((a, b) => score(a) - score(b) || a.storedEnergyJ - b.storedEnergyJ || b.worstMarginPct - a.worstMarginPct);
+  meeting.sort(
+    (a, b) => score(a) - score(b) || a.storedEnergyJ - b.storedEnergyJ || b.worstMarginPct - a.worstMarginPct,
+  );
   const candidates = meeting.slice(0, request.resultCount ?? 20).map((c, i) => {
     const { analysis, ...rest } = c;
     const bleeder = chooseBleeder(analysis, c.storedEnergyJ, request, resistors);
-    const bleederCost = bleeder ? (bleeder.resistor.costEach === undefined ? null : bleeder.count * bleeder.resistor.costEach) : 0;
+    const bleederCost = bleeder
+      ? bleeder.resistor.costEach === undefined
+        ? null
+        : bleeder.count * bleeder.resistor.costEach
+      : 0;
     return {
       ...rest,
       rank: i + 1,

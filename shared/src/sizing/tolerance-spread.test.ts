@@ -43,7 +43,14 @@ describe('mulberry32', () => {
 });
 
 describe('toleranceSpread', () => {
-  const request = { input, capacitorTolerance: 0.1, driveVariation: 0.05, trials: 400, seed: 2024, spec: { outputMinV: 3700, rippleMaxV: 5 } };
+  const request = {
+    input,
+    capacitorTolerance: 0.1,
+    driveVariation: 0.05,
+    trials: 400,
+    seed: 2024,
+    spec: { outputMinV: 3700, rippleMaxV: 5 },
+  };
 
   it('is reproducible for a seed and changes with the seed', () => {
     const a = toleranceSpread(request);

@@ -48,7 +48,8 @@ export interface ToleranceSpreadResult {
 
 const SPREAD_METHOD: MethodInfo = {
   methodId: 'monte-carlo-mulberry32-v1',
-  summary: 'Seeded Monte Carlo over part tolerances and drive variation; each trial is one steady-state analysis (charge-transfer-v1).',
+  summary:
+    'Seeded Monte Carlo over part tolerances and drive variation; each trial is one steady-state analysis (charge-transfer-v1).',
   assumptions: [
     'uniform: each value drawn uniformly within ±tolerance; normal: tolerance taken as 3σ, clipped at ±tolerance',
     'parts vary independently; the diode model does not vary',
@@ -70,7 +71,11 @@ function statistics(values: Float64Array, bins: number): SpreadStatistics {
   const min = sorted[0] as number;
   const max = sorted[n - 1] as number;
   const width = (max - min) / bins || 1;
-  const histogram: HistogramBin[] = Array.from({ length: bins }, (_, i) => ({ lower: min + i * width, upper: min + (i + 1) * width, count: 0 }));
+  const histogram: HistogramBin[] = Array.from({ length: bins }, (_, i) => ({
+    lower: min + i * width,
+    upper: min + (i + 1) * width,
+    count: 0,
+  }));
   for (const v of sorted) {
     const bin = histogram[Math.min(bins - 1, Math.floor((v - min) / width))];
     if (bin) bin.count += 1;
@@ -84,17 +89,20 @@ function statistics(values: Float64Array, bins: number): SpreadStatistics {
  */
 export function toleranceSpread(request: ToleranceSpreadRequest): ToleranceSpreadResult {
   const { input, trials } = request;
-  if (!Number.isInteger(trials) || trials < 2) throw new DomainError('invalid_argument', 'trials must be an integer ≥ 2', 'trials');
+  if (!Number.isInteger(trials) || trials < 2)
+    throw new DomainError('invalid_argument', 'trials must be an integer ≥ 2', 'trials');
   const tolerances = input.capacitorsF.map((_, i) =>
     typeof request.capacitorTolerance === 'number' ? request.capacitorTolerance : (request.capacitorTolerance[i] ?? 0),
   );
   tolerances.forEach((t, i) => {
-    if (!(t >= 0 && t < 1)) throw new DomainError('invalid_argument', 'tolerance must lie in [0, 1)', `capacitorTolerance[${i}]`);
+    if (!(t >= 0 && t < 1))
+      throw new DomainError('invalid_argument', 'tolerance must lie in [0, 1)', `capacitorTolerance[${i}]`);
   });
   const random = mulberry32(request.seed);
   const draw = (tolerance: number): number => {
     if (tolerance === 0) return 1;
-    if (request.distribution === 'normal') return 1 + Math.max(-tolerance, Math.min(tolerance, (normalFrom(random) * tolerance) / 3));
+    if (request.distribution === 'normal')
+      return 1 + Math.max(-tolerance, Math.min(tolerance, (normalFrom(random) * tolerance) / 3));
     return 1 + tolerance * (2 * random() - 1);
   };
   const outputs = new Float64Array(trials);
@@ -110,7 +118,12 @@ export function toleranceSpread(request: ToleranceSpreadRequest): ToleranceSprea
     const drive =
       d.kind === 'sine'
         ? { ...d, peakV: d.peakV * driveScale, frequencyHz: d.frequencyHz * frequencyScale }
-        : { ...d, forwardPeakV: d.forwardPeakV * driveScale, flybackPeakV: d.flybackPeakV * driveScale, frequencyHz: d.frequencyHz * frequencyScale };
+        : {
+            ...d,
+            forwardPeakV: d.forwardPeakV * driveScale,
+            flybackPeakV: d.flybackPeakV * driveScale,
+            frequencyHz: d.frequencyHz * frequencyScale,
+          };
     const load =
       input.load === null
         ? null

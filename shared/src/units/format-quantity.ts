@@ -1,11 +1,30 @@
 import type { QuantityUnit } from './quantity.types';
 
 const prefixes: ReadonlyArray<readonly [number, string]> = [
-  [-15, 'f'], [-12, 'p'], [-9, 'n'], [-6, 'µ'], [-3, 'm'], [0, ''], [3, 'k'], [6, 'M'], [9, 'G'], [12, 'T'],
+  [-15, 'f'],
+  [-12, 'p'],
+  [-9, 'n'],
+  [-6, 'µ'],
+  [-3, 'm'],
+  [0, ''],
+  [3, 'k'],
+  [6, 'M'],
+  [9, 'G'],
+  [12, 'T'],
 ];
 
 const unitSymbols: Readonly<Record<QuantityUnit, string>> = {
-  V: 'V', A: 'A', F: 'F', Ohm: 'Ω', Hz: 'Hz', W: 'W', J: 'J', C: 'C', s: 's', H: 'H', m: 'm',
+  V: 'V',
+  A: 'A',
+  F: 'F',
+  Ohm: 'Ω',
+  Hz: 'Hz',
+  W: 'W',
+  J: 'J',
+  C: 'C',
+  s: 's',
+  H: 'H',
+  m: 'm',
 };
 
 /**

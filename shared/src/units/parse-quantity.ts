@@ -3,12 +3,40 @@ import type { ParsedQuantity, ParseQuantityOptions, QuantityUnit } from './quant
 
 /** SI prefixes as engineers type them; `u`, `µ` (U+00B5) and `μ` (U+03BC) are all micro, `meg` is mega. */
 const prefixExponents: Readonly<Record<string, number>> = {
-  f: -15, p: -12, n: -9, u: -6, 'µ': -6, 'μ': -6, m: -3, k: 3, K: 3, M: 6, meg: 6, MEG: 6, G: 9, T: 12,
+  f: -15,
+  p: -12,
+  n: -9,
+  u: -6,
+  µ: -6,
+  μ: -6,
+  m: -3,
+  k: 3,
+  K: 3,
+  M: 6,
+  meg: 6,
+  MEG: 6,
+  G: 9,
+  T: 12,
 };
 
 const unitSpellings: Readonly<Record<string, QuantityUnit>> = {
-  V: 'V', A: 'A', F: 'F', Hz: 'Hz', hz: 'Hz', W: 'W', J: 'J', C: 'C', s: 's', H: 'H', m: 'm',
-  '\u03a9': 'Ohm', '\u2126': 'Ohm', ohm: 'Ohm', Ohm: 'Ohm', ohms: 'Ohm', R: 'Ohm',
+  V: 'V',
+  A: 'A',
+  F: 'F',
+  Hz: 'Hz',
+  hz: 'Hz',
+  W: 'W',
+  J: 'J',
+  C: 'C',
+  s: 's',
+  H: 'H',
+  m: 'm',
+  '\u03a9': 'Ohm',
+  '\u2126': 'Ohm',
+  ohm: 'Ohm',
+  Ohm: 'Ohm',
+  ohms: 'Ohm',
+  R: 'Ohm',
 };
 
 const numberPattern = /^([+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?)\s*(.*)$/;

@@ -9,18 +9,54 @@ const fixtures = join(__dirname, '../fixtures/designs');
 
 function ladderwright(...args: string[]): { status: number | null; stdout: string; stderr: string } {
   // Through npx from the repository root, as a user runs it: no build step.
-  const result = spawnSync('npx', ['--no-install', 'ladderwright', ...args], { cwd: repoRoot, encoding: 'utf8', timeout: 60_000 });
+  const result = spawnSync('npx', ['--no-install', 'ladderwright', ...args], {
+    cwd: repoRoot,
+    encoding: 'utf8',
+    timeout: 60_000,
+  });
   return { status: result.status, stdout: result.stdout, stderr: result.stderr };
 }
 
 const reportFields = [
-  'noLoadOutputV', 'outputMeanV', 'outputMinV', 'outputMaxV', 'ripplePeakToPeakV', 'droopV', 'outputImpedanceOhm',
-  'optimumStages', 'textbookRippleV', 'textbookDropV', 'storedEnergyJ', 'storedChargeC', 'dischargeTimeS', 'checks',
+  'noLoadOutputV',
+  'outputMeanV',
+  'outputMinV',
+  'outputMaxV',
+  'ripplePeakToPeakV',
+  'droopV',
+  'outputImpedanceOhm',
+  'optimumStages',
+  'textbookRippleV',
+  'textbookDropV',
+  'storedEnergyJ',
+  'storedChargeC',
+  'dischargeTimeS',
+  'checks',
 ];
 
 describe('ladderwright command line', () => {
   it('ladder: the n = 8 cascade with prefixed values reproduces the published ripple and ΔV0', () => {
-    const run = ladderwright('ladder', '--topology', 'half-wave', '--stages', '8', '--peak', '125 kV', '--freq', '150', '--cap', '0.05u', '--load-current', '5m', '--diode-is', '1e-300', '--diode-n', '1e-9', '--diode-rs', '0');
+    const run = ladderwright(
+      'ladder',
+      '--topology',
+      'half-wave',
+      '--stages',
+      '8',
+      '--peak',
+      '125 kV',
+      '--freq',
+      '150',
+      '--cap',
+      '0.05u',
+      '--load-current',
+      '5m',
+      '--diode-is',
+      '1e-300',
+      '--diode-n',
+      '1e-9',
+      '--diode-rs',
+      '0',
+    );
     expect(run.status).toBe(0);
     const report = JSON.parse(run.stdout);
     for (const field of reportFields) expect(report).toHaveProperty(field);
@@ -31,7 +67,21 @@ describe('ladderwright command line', () => {
   });
 
   it('ladder: with a bleeder and a safe voltage it reports the discharge time and its check', () => {
-    const run = ladderwright('ladder', '--cells', '4', '--peak', '1k', '--freq', '20k', '--cap', '10n', '--bleeder', '100M', '--safe-voltage', '50');
+    const run = ladderwright(
+      'ladder',
+      '--cells',
+      '4',
+      '--peak',
+      '1k',
+      '--freq',
+      '20k',
+      '--cap',
+      '10n',
+      '--bleeder',
+      '100M',
+      '--safe-voltage',
+      '50',
+    );
     expect(run.status).toBe(0);
     const report = JSON.parse(run.stdout);
     expect(report.dischargeTimeS).toBeGreaterThan(0);
@@ -40,7 +90,20 @@ describe('ladderwright command line', () => {
   });
 
   it('ladder --caps takes per-capacitor values in the documented order and a bridge topology', () => {
-    const run = ladderwright('ladder', '--topology', 'bridge', '--caps', '1u,1u', '--peak', '1k', '--freq', '50', '--load-r', '10M', '--text');
+    const run = ladderwright(
+      'ladder',
+      '--topology',
+      'bridge',
+      '--caps',
+      '1u,1u',
+      '--peak',
+      '1k',
+      '--freq',
+      '50',
+      '--load-r',
+      '10M',
+      '--text',
+    );
     expect(run.status).toBe(0);
     expect(run.stdout).toMatch(/no-load output\s+2 kV/);
   });
@@ -77,7 +140,23 @@ describe('ladderwright command line', () => {
   });
 
   it('size: ranked candidates for the ionizer target, each meeting output and ripple', () => {
-    const run = ladderwright('size', '--target', '-6kV', '--load-current', '30u', '--ripple', '30', '--peak', '480', '--freq', '25k', '--rs', '150', '--count', '3');
+    const run = ladderwright(
+      'size',
+      '--target',
+      '-6kV',
+      '--load-current',
+      '30u',
+      '--ripple',
+      '30',
+      '--peak',
+      '480',
+      '--freq',
+      '25k',
+      '--rs',
+      '150',
+      '--count',
+      '3',
+    );
     expect(run.status).toBe(0);
     const result = JSON.parse(run.stdout);
     expect(result.candidates).toHaveLength(3);

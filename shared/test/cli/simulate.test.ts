@@ -8,7 +8,8 @@ import { hasNgspice, runNgspice } from '../ngspice/run-ngspice';
 
 // The commands as a user runs them: the package's bin script in a child process.
 const bin = join(__dirname, '..', '..', 'bin', 'ladderwright.cjs');
-const run = (...args: string[]): string => execFileSync(process.execPath, [bin, ...args], { encoding: 'utf8', timeout: 60_000 });
+const run = (...args: string[]): string =>
+  execFileSync(process.execPath, [bin, ...args], { encoding: 'utf8', timeout: 60_000 });
 const dir = mkdtempSync(join(tmpdir(), 'lw-cli-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 const ladderFlags = ['--stages', '2', '--peak', '1k', '--freq', '20k', '--cap', '10n', '--load-current', '100u'];
@@ -16,7 +17,9 @@ const ladderFlags = ['--stages', '2', '--peak', '1k', '--freq', '20k', '--cap', 
 describe('ladderwright simulate', () => {
   it('prints the steady-state summary of a bare ladder from flags', () => {
     const out = JSON.parse(run('simulate', ...ladderFlags)) as Record<string, unknown>;
-    expect(Object.keys(out)).toEqual(expect.arrayContaining(['outputMeanV', 'ripplePeakToPeakV', 'timeToSteadyStateS', 'cyclesSimulated', 'method']));
+    expect(Object.keys(out)).toEqual(
+      expect.arrayContaining(['outputMeanV', 'ripplePeakToPeakV', 'timeToSteadyStateS', 'cyclesSimulated', 'method']),
+    );
     expect(out.method).toBe('periodic-steady-state');
     // Textbook check (REFERENCES.md §1): n = 2, q/C = 0.5 V, ΔV0 = 0.5·(16/3 + 2 − 1/3) = 3.5 V below
     // 2n·Vmax = 4 kV; ripple (q/C)·n(n+1)/2 = 1.5 V. Within 1 % on the mean (the diodes' drop and the
@@ -27,7 +30,9 @@ describe('ladderwright simulate', () => {
   });
 
   it('adds the bleeder discharge time with --discharge', () => {
-    const out = JSON.parse(run('simulate', ...ladderFlags, '--discharge', '--bleeder', '100M', '--safe-voltage', '50')) as Record<string, number>;
+    const out = JSON.parse(
+      run('simulate', ...ladderFlags, '--discharge', '--bleeder', '100M', '--safe-voltage', '50'),
+    ) as Record<string, number>;
     // RC ln(V0/Vsafe) (REFERENCES.md §4) with the bleeder across the ladder top: the four 10 nF capacitors
     // discharge as two series columns, seen from the top about 10 nF, so t ≈ 1 s·ln(4000/50) = 4.4 s; the
     // trapped charge of the column structure makes it longer. Bound: between 1× and 2× that estimate.
@@ -41,7 +46,11 @@ describe('ladderwright simulate', () => {
     design.multiplier.capacitors = design.multiplier.capacitors.map((c) => ({ ...c, valueF: 100e-12 }));
     const path = join(dir, 'driver-design.json');
     writeFileSync(path, JSON.stringify(design));
-    const out = JSON.parse(run('simulate', path)) as { method: string; outputMeanV: number; energy: { suppliedJ: number; dissipatedJ: number; storedChangeJ: number } };
+    const out = JSON.parse(run('simulate', path)) as {
+      method: string;
+      outputMeanV: number;
+      energy: { suppliedJ: number; dissipatedJ: number; storedChangeJ: number };
+    };
     expect(out.method).toBe('transient');
     expect(out.outputMeanV).toBeGreaterThan(1000);
     // Tellegen's theorem: supplied = dissipated + stored change, within 2 % (the issue's bound).

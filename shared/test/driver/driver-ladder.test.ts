@@ -32,7 +32,13 @@ interface Window {
   inputEnergyJ: number;
 }
 
-function steadyWindow(timeS: Float64Array, col: Float64Array, out: Float64Array, supplyA: Float64Array, supplyV: number): Window {
+function steadyWindow(
+  timeS: Float64Array,
+  col: Float64Array,
+  out: Float64Array,
+  supplyA: Float64Array,
+  supplyV: number,
+): Window {
   const crossings: number[] = [];
   let area = 0;
   let charge = 0;
@@ -63,7 +69,11 @@ beforeAll(() => {
   stepper.startFromCharges(system.initialCharge);
   const meter = new EnergyMeter(circuit, system);
   meter.record(0);
-  const probes = [system.probeIndex(DRIVER_NODES.collector), system.probeIndex('out'), system.probeIndex(`I(${DRIVER_SUPPLY_SOURCE})`)];
+  const probes = [
+    system.probeIndex(DRIVER_NODES.collector),
+    system.probeIndex('out'),
+    system.probeIndex(`I(${DRIVER_SUPPLY_SOURCE})`),
+  ];
   const time = new SampleBuffer();
   const traces = probes.map(() => new SampleBuffer());
   while (stepper.timeS < stopS * (1 - 1e-12)) {

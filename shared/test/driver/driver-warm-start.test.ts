@@ -42,7 +42,9 @@ describe('warm start of a driver design from the engine steady-state estimate', 
     // Frequency within 10 % of the cold run's: the same circuit at the same output; 10 % covers the
     // measurement over a handful of crossings.
     expect(warm.oscillationFrequencyHz).not.toBeNull();
-    expect(Math.abs(warm.oscillationFrequencyHz! - cold.oscillationFrequencyHz!) / cold.oscillationFrequencyHz!).toBeLessThan(0.1);
+    expect(
+      Math.abs(warm.oscillationFrequencyHz! - cold.oscillationFrequencyHz!) / cold.oscillationFrequencyHz!,
+    ).toBeLessThan(0.1);
     // Collector flyback is clamped by the 30 V zener (design value); allow 20 % for the zener's slope and the leakage spike.
     expect(Math.max(...warm.waveforms.collectorV.values)).toBeGreaterThan(3.2);
     expect(Math.max(...warm.waveforms.collectorV.values)).toBeLessThan(30 * 1.2);

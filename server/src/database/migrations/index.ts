@@ -7,4 +7,11 @@ import { simulationJobs } from './0003-simulation-jobs';
 import { signOffAndMail } from './0004-sign-off-and-mail';
 
 /** Every schema step in order. Add new steps at the end. */
-export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [usersAndProjects, designsAndRevisions, partsAndBenchRuns, auditLog, simulationJobs, signOffAndMail];
+export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
+  usersAndProjects,
+  designsAndRevisions,
+  partsAndBenchRuns,
+  auditLog,
+  simulationJobs,
+  signOffAndMail,
+];

@@ -79,9 +79,30 @@ describe('SizerPanel', () => {
 });
 
 const shelf: Part[] = [
-  shelfPart({ code: 'NF-C103-3K', kind: 'capacitor', valueSi: 10e-9, tolerance: 0.1, ratedVoltageV: 3000, unitCost: 0.35 }),
-  shelfPart({ code: 'NF-D4K-50M', kind: 'diode', ratedVoltageV: 4000, ratedCurrentA: 0.05, ratedSurgeCurrentA: 5, unitCost: 0.3 }),
-  shelfPart({ code: 'NF-R100M-1K', kind: 'resistor', valueSi: 100e6, ratedVoltageV: 1000, ratedPowerW: 0.5, unitCost: 0.1 }),
+  shelfPart({
+    code: 'NF-C103-3K',
+    kind: 'capacitor',
+    valueSi: 10e-9,
+    tolerance: 0.1,
+    ratedVoltageV: 3000,
+    unitCost: 0.35,
+  }),
+  shelfPart({
+    code: 'NF-D4K-50M',
+    kind: 'diode',
+    ratedVoltageV: 4000,
+    ratedCurrentA: 0.05,
+    ratedSurgeCurrentA: 5,
+    unitCost: 0.3,
+  }),
+  shelfPart({
+    code: 'NF-R100M-1K',
+    kind: 'resistor',
+    valueSi: 100e6,
+    ratedVoltageV: 1000,
+    ratedPowerW: 0.5,
+    unitCost: 0.1,
+  }),
   shelfPart({ code: 'NF-Q30-2A', kind: 'transistor', unitCost: 0.2 }),
 ];
 

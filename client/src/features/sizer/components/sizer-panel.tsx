@@ -34,7 +34,8 @@ type ValueSource = 'e-series' | 'shelf';
  * The shelf holds ratings, not the diode's Shockley parameters: shelf diodes are sized on the stacked
  * HV rectifier model of the design examples.
  */
-const { saturationCurrentA, emissionCoefficient, seriesResistanceOhm } = designExamples.surfaceChargeTester.multiplier.diode;
+const { saturationCurrentA, emissionCoefficient, seriesResistanceOhm } =
+  designExamples.surfaceChargeTester.multiplier.diode;
 const SHELF_DIODE_MODEL: DiodeModelParameters = { saturationCurrentA, emissionCoefficient, seriesResistanceOhm };
 
 const topologyOptions: Array<{ value: Topology; label: string }> = [
@@ -123,8 +124,8 @@ export function SizerPanel({ onStartDesign, isStarting, shelf = [] }: SizerPanel
           </Stack>
           {valueSource === 'shelf' && (
             <Text size="xs" c="dimmed" mt={4}>
-              Capacitors, diodes and bleeder resistors from this project&apos;s shelf ({shelf.length} parts), with
-              their ratings and unit costs; candidates are ranked by cost.
+              Capacitors, diodes and bleeder resistors from this project&apos;s shelf ({shelf.length} parts), with their
+              ratings and unit costs; candidates are ranked by cost.
             </Text>
           )}
           <Group gap="sm" mt="md">

@@ -38,7 +38,14 @@ const columnLabels: Record<string, string> = {
 };
 
 /** One row per ladder capacitor, from the source upward, with fill-down and a grading helper. */
-export function CapacitorTable({ topology, capacitors, onChange, issues, parts = [], onPickPart }: CapacitorTableProps) {
+export function CapacitorTable({
+  topology,
+  capacitors,
+  onChange,
+  issues,
+  parts = [],
+  onPickPart,
+}: CapacitorTableProps) {
   const places = capacitorPlaces(topology, capacitors);
   const setCapacitor = (index: number, patch: Partial<CapacitorPart>) =>
     onChange(capacitors.map((c, i) => (i === index ? { ...c, ...patch } : c)));

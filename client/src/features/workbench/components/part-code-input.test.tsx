@@ -10,10 +10,38 @@ import { CapacitorTable } from './capacitor-table';
 import { PartCodeInput } from './part-code-input';
 
 const shelf: Part[] = [
-  shelfPart({ code: 'NF-C103-3K', kind: 'capacitor', description: 'HV ceramic 10 nF', valueSi: 10e-9, tolerance: 0.05, ratedVoltageV: 3000 }),
-  shelfPart({ code: 'NF-C222-2K', kind: 'capacitor', description: 'HV ceramic 2.2 nF', valueSi: 2.2e-9, tolerance: 0.1, ratedVoltageV: 2000 }),
-  shelfPart({ code: 'NF-D4K-50M', kind: 'diode', description: 'HV diode 4 kV', ratedVoltageV: 4000, ratedCurrentA: 0.05, ratedSurgeCurrentA: 5 }),
-  shelfPart({ code: 'NF-R47M-HV', kind: 'resistor', description: 'HV film 47 MΩ', valueSi: 47e6, ratedVoltageV: 1600, ratedPowerW: 0.5 }),
+  shelfPart({
+    code: 'NF-C103-3K',
+    kind: 'capacitor',
+    description: 'HV ceramic 10 nF',
+    valueSi: 10e-9,
+    tolerance: 0.05,
+    ratedVoltageV: 3000,
+  }),
+  shelfPart({
+    code: 'NF-C222-2K',
+    kind: 'capacitor',
+    description: 'HV ceramic 2.2 nF',
+    valueSi: 2.2e-9,
+    tolerance: 0.1,
+    ratedVoltageV: 2000,
+  }),
+  shelfPart({
+    code: 'NF-D4K-50M',
+    kind: 'diode',
+    description: 'HV diode 4 kV',
+    ratedVoltageV: 4000,
+    ratedCurrentA: 0.05,
+    ratedSurgeCurrentA: 5,
+  }),
+  shelfPart({
+    code: 'NF-R47M-HV',
+    kind: 'resistor',
+    description: 'HV film 47 MΩ',
+    valueSi: 47e6,
+    ratedVoltageV: 1600,
+    ratedPowerW: 0.5,
+  }),
 ];
 
 /** The input itself (the suggestion list is labelled by the same name). */
@@ -48,7 +76,9 @@ function Harness() {
         kind="diode"
         parts={shelf}
         value={multiplier.diode.partCode}
-        onCodeChange={(partCode) => change({ ...document, multiplier: { ...multiplier, diode: { ...multiplier.diode, partCode } } })}
+        onCodeChange={(partCode) =>
+          change({ ...document, multiplier: { ...multiplier, diode: { ...multiplier.diode, partCode } } })
+        }
         onPick={(picked) => change(withShelfPart(document, { kind: 'diode' }, picked, shelf))}
       />
       <PartCodeInput
