@@ -201,6 +201,25 @@ describe('workbench journey', () => {
     await shot(page, 'workbench-09-driver.png');
     await curve.screenshot({ path: resolve(screenshotDir, 'workbench-09-driver-curve.png') });
 
+    // Simulate the stored revision with a short cold start-up: the oscillator's own plots and frequency.
+    await page.getByRole('tab', { name: 'Waveforms' }).click();
+    await page.getByLabel('Start-up window').fill('1 ms');
+    await page.getByText('= 1 ms').waitFor();
+    const started = page.waitForRequest(
+      (request) => request.method() === 'POST' && /\/simulations$/.test(request.url()),
+    );
+    await page.getByRole('button', { name: 'Start simulation' }).click();
+    expect((await started).postDataJSON()).toMatchObject({ kind: 'full', options: { startUpWindowS: 1e-3 } });
+    const collector = page.getByRole('figure', { name: 'Collector and secondary' });
+    await collector.locator('path.recharts-line-curve').first().waitFor({ timeout: 40_000 });
+    expect(await collector.locator('path.recharts-line-curve').count()).toBe(2);
+    await page.getByRole('figure', { name: 'Primary current' }).locator('path.recharts-line-curve').waitFor();
+    await page.getByRole('figure', { name: 'Start-up' }).locator('path.recharts-line-curve').waitFor();
+    const frequency = page.getByText('Oscillation frequency').locator('xpath=following-sibling::*[1]');
+    expect((await frequency.textContent())?.trim()).toMatch(/^\d[\d.]* [kM]?Hz$/);
+    await shot(page, 'workbench-11-driver-waveforms.png');
+    await page.getByRole('tab', { name: 'Driver' }).click();
+
     // A driver edit goes through the live-analysis worker and comes back as a preview.
     const before = await figureValue(page, 'output');
     await page.getByLabel('Secondary turns').fill('1000');

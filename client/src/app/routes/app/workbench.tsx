@@ -335,6 +335,7 @@ function EditableRevision({ projectId, revision, latestRevisionNumber, revisions
                       }
                       frequencyHz={report.resolvedDrive.frequencyHz}
                       safeVoltageV={draft.targets.safeVoltageV}
+                      isDriverDesign={draft.drive.kind === 'driver'}
                     />
                   </Tabs.Panel>
                   <Tabs.Panel value="history" pt="sm">

@@ -1,12 +1,12 @@
-import { fireEvent, screen } from '@testing-library/react';
+import { fireEvent, screen, within } from '@testing-library/react';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-import type { SimulationJob, SimulationSummary } from '@ladderwright/shared/api';
+import type { SimulationJob, SimulationSummary, WaveformTrace } from '@ladderwright/shared/api';
 import { jsonResponse, renderWithApp } from '../../../testing/render';
-import { dischargeSafeLevelV, WaveformsPanel } from './waveforms-panel';
+import { dischargeSafeLevelV, startUpWindowIssue, WaveformsPanel } from './waveforms-panel';
 
 const projectId = 'p-tester';
 
-function succeededJob(summary: SimulationSummary): SimulationJob {
+function succeededJob(summary: SimulationSummary, waveforms: WaveformTrace[] = []): SimulationJob {
   return {
     id: 'job-1',
     projectId,
@@ -19,7 +19,7 @@ function succeededJob(summary: SimulationSummary): SimulationJob {
     createdAt: '2025-03-01T10:00:00.000Z',
     startedAt: '2025-03-01T10:00:01.000Z',
     finishedAt: '2025-03-01T10:00:05.000Z',
-    result: { summary, waveforms: [] },
+    result: { summary, waveforms },
   };
 }
 
@@ -32,6 +32,39 @@ const summary: SimulationSummary = {
   cyclesSimulated: 400,
   method: 'transient',
 };
+
+/** A trace sampled every 8 µs from 1 ms (invented values: the panel is tested for what it plots, not the numbers). */
+function trace(name: string, phase: WaveformTrace['phase'], values: number[], unit: 'V' | 'A' = 'V'): WaveformTrace {
+  return { name, phase, unit, timeS: values.map((_, i) => 1e-3 + i * 8e-6), values };
+}
+
+/** Ladder run: output over start-up, one ripple window and the discharge with one capacitor. */
+const ladderWaveforms: WaveformTrace[] = [
+  trace('V(top)', 'startup', [0, -800, -1900, -2850]),
+  trace('V(top)', 'steady-state', [-2898, -2902, -2899, -2901]),
+  trace('V(top)', 'discharge', [-2900, -900, -200, -55]),
+  trace('V(C1)', 'discharge', [-1450, -450, -100, -27]),
+];
+
+/** Driver run: the ladder's traces plus collector, secondary and primary current over the steady state. */
+const driverWaveforms: WaveformTrace[] = [
+  ...ladderWaveforms,
+  trace('V(col)', 'steady-state', [0.2, 14, 9, 0.3]),
+  trace('V(s)', 'steady-state', [-600, 1450, 900, -580]),
+  trace('I(Lp)', 'steady-state', [0.05, 0.4, 0.1, 0.02], 'A'),
+];
+
+const driverSummary: SimulationSummary = { ...summary, oscillationFrequencyHz: 31_250 };
+
+describe('startUpWindowIssue', () => {
+  it('accepts a window between 100 µs and 100 ms and names the range otherwise', () => {
+    expect(startUpWindowIssue(2e-3)).toBeNull();
+    expect(startUpWindowIssue(1e-4)).toBeNull();
+    expect(startUpWindowIssue(0.1)).toBeNull();
+    expect(startUpWindowIssue(5e-5)).toBe('the start-up window must be between 100 µs and 100 ms');
+    expect(startUpWindowIssue(0.2)).toMatch(/between 100 µs and 100 ms/);
+  });
+});
 
 describe('dischargeSafeLevelV', () => {
   it('takes the level the run discharged to, and the design’s target only when the run gives none', () => {
@@ -56,18 +89,86 @@ describe('WaveformsPanel', () => {
   });
   afterEach(() => vi.unstubAllGlobals());
 
-  /** The panel on a saved revision whose design target is 50 V, with a run started. */
-  function startRun() {
+  /** The panel on a saved revision whose design target is 50 V. */
+  function renderPanel(isDriverDesign = false) {
     renderWithApp(
       <WaveformsPanel
         projectId={projectId}
         source={{ designId: 'd-1', revisionNumber: 1 }}
         frequencyHz={25e3}
         safeVoltageV={50}
+        isDriverDesign={isDriverDesign}
       />,
     );
+  }
+
+  /** The panel with a run started. */
+  function startRun(isDriverDesign = false) {
+    renderPanel(isDriverDesign);
     fireEvent.click(screen.getByRole('button', { name: 'Start simulation' }));
   }
+
+  /** The body of the POST that started the run. */
+  function startBody(): Record<string, unknown> {
+    const calls = vi.mocked(fetch).mock.calls.filter(([, init]) => init?.method === 'POST');
+    expect(calls).toHaveLength(1);
+    return JSON.parse(String(calls[0]?.[1]?.body)) as Record<string, unknown>;
+  }
+
+  it('plots a driver run’s collector and secondary, its primary current, and names the oscillation frequency', async () => {
+    job = succeededJob(driverSummary, driverWaveforms);
+    startRun(true);
+    const collector = await screen.findByRole('figure', { name: 'Collector and secondary' });
+    const primary = screen.getByRole('figure', { name: 'Primary current' });
+    expect(within(collector).queryByText('This run has no trace for this phase.')).toBeNull();
+    expect(within(primary).queryByText('This run has no trace for this phase.')).toBeNull();
+    expect(screen.getByText('Oscillation frequency')).toBeTruthy();
+    expect(screen.getByText('31.3 kHz')).toBeTruthy();
+    // The output's own plots stay beside them.
+    for (const title of ['Start-up', 'Ripple over one cycle', 'Discharge'])
+      expect(screen.getByRole('figure', { name: title })).toBeTruthy();
+  });
+
+  it('keeps a ladder run to its three plots, without oscillator plots or frequency', async () => {
+    job = succeededJob(summary, ladderWaveforms);
+    startRun();
+    await screen.findByRole('figure', { name: 'Start-up' });
+    for (const title of ['Start-up', 'Ripple over one cycle', 'Discharge']) {
+      const figure = screen.getByRole('figure', { name: title });
+      expect(within(figure).queryByText('This run has no trace for this phase.')).toBeNull();
+    }
+    expect(screen.getAllByRole('figure')).toHaveLength(3);
+    expect(screen.queryByRole('figure', { name: 'Collector and secondary' })).toBeNull();
+    expect(screen.queryByRole('figure', { name: 'Primary current' })).toBeNull();
+    expect(screen.queryByText('Oscillation frequency')).toBeNull();
+  });
+
+  it('sends a driver design’s start-up window with the run and none for a ladder design', async () => {
+    job = succeededJob(driverSummary, driverWaveforms);
+    renderPanel(true);
+    const window = screen.getByLabelText('Start-up window');
+    expect((window as HTMLInputElement).value).toBe('2 ms');
+    fireEvent.change(window, { target: { value: '5m' } });
+    fireEvent.click(screen.getByRole('button', { name: 'Start simulation' }));
+    await screen.findByRole('figure', { name: 'Primary current' });
+    expect(startBody()).toMatchObject({ kind: 'full', designId: 'd-1', options: { startUpWindowS: 5e-3 } });
+  });
+
+  it('offers no start-up window for a ladder design and starts its run without options', async () => {
+    job = succeededJob(summary, ladderWaveforms);
+    startRun();
+    await screen.findByRole('figure', { name: 'Start-up' });
+    expect(screen.queryByLabelText('Start-up window')).toBeNull();
+    expect(startBody()).not.toHaveProperty('options');
+  });
+
+  it('refuses to start a driver run over a window the server would reject', () => {
+    job = succeededJob(driverSummary, driverWaveforms);
+    renderPanel(true);
+    fireEvent.change(screen.getByLabelText('Start-up window'), { target: { value: '1 s' } });
+    expect(screen.getByText('the start-up window must be between 100 µs and 100 ms')).toBeTruthy();
+    expect((screen.getByRole('button', { name: 'Start simulation' }) as HTMLButtonElement).disabled).toBe(true);
+  });
 
   it('names the discharge by the run’s own safe level, not the design’s target', async () => {
     job = succeededJob(summary);

@@ -11,8 +11,16 @@ import {
   XAxis,
   YAxis,
 } from 'recharts';
-import type { SimulationSummary, StartSimulationRequest, WaveformPhase, WaveformTrace } from '@ladderwright/shared/api';
+import type {
+  SimulationOptions,
+  SimulationResult,
+  SimulationSummary,
+  StartSimulationRequest,
+  WaveformPhase,
+  WaveformTrace,
+} from '@ladderwright/shared/api';
 import { formatQuantity } from '@ladderwright/shared/units';
+import { QuantityInput } from '../../../components/quantity-input';
 import { quantityTickFormatter } from '../../../lib/tick-format';
 import { useCancelSimulation } from '../api/cancel-simulation';
 import { isSimulationActive, useSimulation } from '../api/get-simulation';
@@ -26,6 +34,35 @@ export interface WaveformsPanelProps {
   frequencyHz: number;
   /** The design's safe touch level; the discharge plot draws the run's own level when its result gives one. */
   safeVoltageV: number;
+  /** The design is fed by its blocking oscillator: the panel offers the cold start-up window. */
+  isDriverDesign?: boolean;
+}
+
+/** The cold start-up window a driver run gets unless the engineer sets one (the server's default, 2 ms). */
+export const DEFAULT_STARTUP_WINDOW_S = 2e-3;
+/** Bounds of options.startUpWindowS the server accepts. */
+const STARTUP_WINDOW_RANGE_S = [1e-4, 0.1] as const;
+
+/** Why a start-up window is refused, or null when the server accepts it. */
+export function startUpWindowIssue(windowS: number): string | null {
+  const [min, max] = STARTUP_WINDOW_RANGE_S;
+  if (Number.isFinite(windowS) && windowS >= min && windowS <= max) return null;
+  return `the start-up window must be between ${formatQuantity(min, 's')} and ${formatQuantity(max, 's')}`;
+}
+
+/** Trace names of a driver run's steady state besides the output. */
+const collectorTrace = 'V(col)';
+const secondaryTrace = 'V(s)';
+const primaryCurrentTrace = 'I(Lp)';
+const traceLabels: Readonly<Record<string, string>> = {
+  [collectorTrace]: 'collector V(col)',
+  [secondaryTrace]: 'secondary V(s)',
+  [primaryCurrentTrace]: 'primary I(Lp)',
+};
+
+/** A run of a driver design: it carries the oscillator's traces (collector, secondary, primary current). */
+export function isDriverRun(result: SimulationResult): boolean {
+  return result.waveforms.some((w) => w.name === collectorTrace || w.name === secondaryTrace || w.name === primaryCurrentTrace);
 }
 
 /** The safe level to draw on a run's discharge plot: the level the run discharged to, else the design's target. */
@@ -44,22 +81,53 @@ const traceColors = [
 ];
 
 /** Waveforms: start a full simulation job, follow its progress, cancel it, then plot start-up, ripple and discharge. */
-export function WaveformsPanel({ projectId, source, frequencyHz, safeVoltageV }: WaveformsPanelProps) {
+export function WaveformsPanel({
+  projectId,
+  source,
+  frequencyHz,
+  safeVoltageV,
+  isDriverDesign = false,
+}: WaveformsPanelProps) {
   const [jobId, setJobId] = useState<string | null>(null);
+  const [startUpWindowS, setStartUpWindowS] = useState(DEFAULT_STARTUP_WINDOW_S);
+  const windowIssue = isDriverDesign ? startUpWindowIssue(startUpWindowS) : null;
   const start = useStartSimulation(projectId);
   const cancel = useCancelSimulation(projectId);
   const job = useSimulation(projectId, jobId);
   const isActive = start.isPending || isSimulationActive(job.data) || (jobId !== null && !job.data);
   const result = job.data?.status === 'succeeded' ? job.data.result : undefined;
-  const tracesOf = (phase: WaveformPhase) => result?.waveforms.filter((w) => w.phase === phase && w.unit === 'V') ?? [];
+  const tracesOf = (phase: WaveformPhase, unit: 'V' | 'A' = 'V') =>
+    result?.waveforms.filter((w) => w.phase === phase && w.unit === unit) ?? [];
+  const isDriver = result ? isDriverRun(result) : false;
+  const steadyStateV = tracesOf('steady-state');
+  const outputSteadyState = steadyStateV.filter((w) => w.name !== collectorTrace && w.name !== secondaryTrace);
+  // A driver run's period is the oscillator's own, not the nominal drive frequency.
+  const cycleFrequencyHz = (isDriver ? result?.summary.oscillationFrequencyHz : null) ?? frequencyHz;
+  const startRun = () => {
+    const options: SimulationOptions | undefined = isDriverDesign ? { startUpWindowS } : undefined;
+    start.mutate(
+      { ...source, kind: 'full', ...(options ? { options } : {}) },
+      { onSuccess: (answer) => setJobId(answer.jobId) },
+    );
+  };
 
   return (
     <Stack gap="sm">
-      <Group gap="sm">
-        <Button
-          onClick={() => start.mutate({ ...source, kind: 'full' }, { onSuccess: (answer) => setJobId(answer.jobId) })}
-          disabled={isActive}
-        >
+      <Group gap="sm" align="center">
+        {isDriverDesign && (
+          <QuantityInput
+            label="Start-up window"
+            unit="s"
+            value={startUpWindowS}
+            onChange={setStartUpWindowS}
+            issue={windowIssue}
+            significantFigures={3}
+            w={160}
+            size="xs"
+            disabled={isActive}
+          />
+        )}
+        <Button onClick={startRun} disabled={isActive || windowIssue !== null}>
           Start simulation
         </Button>
         {isActive && jobId && (
@@ -95,7 +163,10 @@ export function WaveformsPanel({ projectId, source, frequencyHz, safeVoltageV }:
       {!jobId && (
         <Text size="sm" c="dimmed">
           No simulation has run for this document yet. Start-up, ripple over one cycle and discharge come from a
-          transient run on the server.
+          transient run on the server
+          {isDriverDesign
+            ? '; for this driver design also the collector and secondary voltages and the primary current, with the start-up timed over the window set here.'
+            : '.'}
         </Text>
       )}
       {result && (
@@ -109,13 +180,16 @@ export function WaveformsPanel({ projectId, source, frequencyHz, safeVoltageV }:
               value={result.summary.dischargeTimeS}
               unit="s"
             />
+            {result.summary.oscillationFrequencyHz !== undefined && (
+              <Summary label="Oscillation frequency" value={result.summary.oscillationFrequencyHz} unit="Hz" />
+            )}
             <Text size="xs" c="dimmed">
               {result.summary.method}, {result.summary.cyclesSimulated} cycles
             </Text>
           </Group>
           <SimpleGrid cols={{ base: 1, lg: 3 }} spacing="md">
             <TraceChart title="Start-up" traces={tracesOf('startup')} isTimeFromZero />
-            <TraceChart title="Ripple over one cycle" traces={lastCycle(tracesOf('steady-state'), frequencyHz)} />
+            <TraceChart title="Ripple over one cycle" traces={lastCycle(outputSteadyState, cycleFrequencyHz)} />
             <TraceChart
               title="Discharge"
               traces={tracesOf('discharge')}
@@ -123,13 +197,22 @@ export function WaveformsPanel({ projectId, source, frequencyHz, safeVoltageV }:
               isTimeFromZero
             />
           </SimpleGrid>
+          {isDriver && (
+            <SimpleGrid cols={{ base: 1, lg: 2 }} spacing="md">
+              <TraceChart
+                title="Collector and secondary"
+                traces={steadyStateV.filter((w) => w.name === collectorTrace || w.name === secondaryTrace)}
+              />
+              <TraceChart title="Primary current" traces={tracesOf('steady-state', 'A')} unit="A" />
+            </SimpleGrid>
+          )}
         </>
       )}
     </Stack>
   );
 }
 
-function Summary({ label, value, unit }: { label: string; value: number | null; unit: 'V' | 's' }) {
+function Summary({ label, value, unit }: { label: string; value: number | null; unit: 'V' | 's' | 'Hz' }) {
   return (
     <div>
       <Text size="xs" c="dimmed">
@@ -159,10 +242,13 @@ function TraceChart({
   traces,
   safeVoltageV,
   isTimeFromZero = false,
+  unit = 'V',
 }: {
   title: string;
   traces: WaveformTrace[];
   safeVoltageV?: number;
+  /** What the traces carry: volts, or amperes for a current. */
+  unit?: 'V' | 'A';
   /** Start the time axis at 0 s (start-up, discharge) rather than at the first sample (one cycle cut out of a run). */
   isTimeFromZero?: boolean;
 }) {
@@ -181,7 +267,7 @@ function TraceChart({
   );
   const valueTick = quantityTickFormatter(
     traces.flatMap((trace) => trace.values),
-    'V',
+    unit,
   );
   const negative = traces.some((trace) => trace.values.length > 0 && trace.values.every((v) => v <= 0));
   return (
@@ -207,7 +293,7 @@ function TraceChart({
               />
               <YAxis tick={{ fontSize: 11 }} tickFormatter={valueTick} width={72} domain={['auto', 'auto']} />
               <Tooltip
-                formatter={(v) => formatQuantity(Number(v), 'V', 4)}
+                formatter={(v) => formatQuantity(Number(v), unit, 4)}
                 labelFormatter={(t) => formatQuantity(Number(t), 's', 4)}
               />
               {traces.length > 1 && <Legend wrapperStyle={{ fontSize: 11 }} />}
@@ -227,7 +313,7 @@ function TraceChart({
                 <Line
                   key={trace.name}
                   dataKey={trace.name}
-                  name={trace.name}
+                  name={traceLabels[trace.name] ?? trace.name}
                   dot={false}
                   strokeWidth={1.6}
                   stroke={traceColors[i % traceColors.length]}
