@@ -1,13 +1,6 @@
 import { JwtService } from '@nestjs/jwt';
 import request from 'supertest';
-import {
-  canInApp,
-  canInProject,
-  PROJECT_ROLES,
-  type ProjectRole,
-  USER_ROLES,
-  type UserRole,
-} from '@ladderwright/shared/auth';
+import { canInApp, canInProject, PROJECT_ROLES, type ProjectRole, USER_ROLES } from '@ladderwright/shared/auth';
 import { UserModel } from '../src/users/user.model';
 import { createProject, type TestProject } from './factories/create-project';
 import { createUser, type TestUser } from './factories/create-user';

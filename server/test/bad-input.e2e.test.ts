@@ -122,8 +122,8 @@ describe('bad input on every write route: never a 500, a 4xx naming the field', 
           // Property names are never empty: an empty key is a 400 too, but has no name to report.
           fc.asyncProperty(bodyArbitrary(fields), async (body) => {
             const method = route.method.toLowerCase() as 'post' | 'put' | 'patch' | 'delete';
-            const response = await request(server)
-              [method](concretePath(route))
+            const agent = request(server);
+            const response = await agent[method](concretePath(route))
               .set('Cookie', cookie)
               .send(body as object);
             const status = response.status;
