@@ -83,9 +83,23 @@ export class BandedLu {
       }
       const inv = 1 / a[colJ]!;
       this.inversePivots[j] = inv;
+      // Row j's entry moves by ld − 1 from one column to the next.
+      const stride = ld - 1;
+      if (km === 2) {
+        // The common ladder band (two sub-diagonals), unrolled: the loop overhead is most of the work.
+        const l1 = (a[colJ + 1]! *= inv);
+        const l2 = (a[colJ + 2]! *= inv);
+        for (let c = j + 1, p = colJ + stride; c <= ju; c++, p += stride) {
+          const f = a[p]!;
+          if (f !== 0) {
+            a[p + 1]! -= l1 * f;
+            a[p + 2]! -= l2 * f;
+          }
+        }
+        continue;
+      }
       for (let t = 1; t <= km; t++) a[colJ + t]! *= inv;
-      for (let c = j + 1; c <= ju; c++) {
-        const p = c * ld + kv + j - c;
+      for (let c = j + 1, p = colJ + stride; c <= ju; c++, p += stride) {
         const f = a[p]!;
         if (f !== 0) {
           for (let t = 1; t <= km; t++) a[p + t]! -= a[colJ + t]! * f;
@@ -113,7 +127,10 @@ export class BandedLu {
       if (bj !== 0) {
         const km = Math.min(kl, n - 1 - j);
         const colJ = j * ld + kv;
-        for (let t = 1; t <= km; t++) b[j + t]! -= a[colJ + t]! * bj;
+        if (km === 2) {
+          b[j + 1]! -= a[colJ + 1]! * bj;
+          b[j + 2]! -= a[colJ + 2]! * bj;
+        } else for (let t = 1; t <= km; t++) b[j + t]! -= a[colJ + t]! * bj;
       }
     }
     for (let j = n - 1; j >= 0; j--) {
@@ -122,7 +139,7 @@ export class BandedLu {
       b[j] = xj;
       if (xj !== 0) {
         const i0 = Math.max(0, j - kvU);
-        for (let i = i0; i < j; i++) b[i]! -= a[colJ + i - j]! * xj;
+        for (let i = i0, q = colJ + i0 - j; i < j; i++, q++) b[i]! -= a[q]! * xj;
       }
     }
   }
