@@ -84,6 +84,8 @@ async function main() {
     const typecheck = await run('npm', ['run', 'typecheck', '-w', ws]);
     tally.push({ id: `typecheck:${ws}`, passed: typecheck === 0 ? 1 : 0, failed: typecheck === 0 ? 0 : 1, skipped: 0 });
   }
+  const lint = await run('npm', ['run', 'lint']);
+  tally.push({ id: 'lint', passed: lint === 0 ? 1 : 0, failed: lint === 0 ? 0 : 1, skipped: 0 });
   const build = await run('npm', ['run', 'build']);
   if (build !== 0) fail('build', 'npm run build failed');
 

@@ -46,20 +46,35 @@ async function main(): Promise<void> {
   const oursMean = windowMean(ours.timeS, ours.signals.top!, from, to);
   const ngMean = windowMean(ng.timeS, ng.signals['v(top)']!, from, to);
   console.log(`${stages}-stage half-wave cascade, ${cycles} cycles, max step T/200, from empty capacitors`);
-  console.log(`  ours    ${oursMs.toFixed(0)} ms, ${ours.acceptedSteps} steps (${ours.rejectedSteps} rejected), ${(ours.newtonIterations / ours.acceptedSteps).toFixed(2)} Newton/step, last-cycle mean ${oursMean.toFixed(2)} V, ripple ${windowPeakToPeak(ours.timeS, ours.signals.top!, from, to).toFixed(3)} V`);
-  console.log(`  ngspice ${ng.elapsedMs.toFixed(0)} ms (process wall time), ${ng.timeS.length} points, last-cycle mean ${ngMean.toFixed(2)} V, ripple ${windowPeakToPeak(ng.timeS, ng.signals['v(top)']!, from, to).toFixed(3)} V`);
-  console.log(`  time ratio ours/ngspice = ${(oursMs / ng.elapsedMs).toFixed(2)} wall, ${(oursCpuMs / ngCpuMs).toFixed(2)} CPU (ours ${oursCpuMs.toFixed(0)} ms, ngspice ${ngCpuMs.toFixed(0)} ms) (target ≤ 0.33); mean differs by ${((oursMean / ngMean - 1) * 100).toFixed(4)} %`);
+  console.log(
+    `  ours    ${oursMs.toFixed(0)} ms, ${ours.acceptedSteps} steps (${ours.rejectedSteps} rejected), ${(ours.newtonIterations / ours.acceptedSteps).toFixed(2)} Newton/step, last-cycle mean ${oursMean.toFixed(2)} V, ripple ${windowPeakToPeak(ours.timeS, ours.signals.top!, from, to).toFixed(3)} V`,
+  );
+  console.log(
+    `  ngspice ${ng.elapsedMs.toFixed(0)} ms (process wall time), ${ng.timeS.length} points, last-cycle mean ${ngMean.toFixed(2)} V, ripple ${windowPeakToPeak(ng.timeS, ng.signals['v(top)']!, from, to).toFixed(3)} V`,
+  );
+  console.log(
+    `  time ratio ours/ngspice = ${(oursMs / ng.elapsedMs).toFixed(2)} wall, ${(oursCpuMs / ngCpuMs).toFixed(2)} CPU (ours ${oursCpuMs.toFixed(0)} ms, ngspice ${ngCpuMs.toFixed(0)} ms) (target ≤ 0.33); mean differs by ${((oursMean / ngMean - 1) * 100).toFixed(4)} %`,
+  );
 
   const system = new MnaSystem(circuit);
   const charges = Float64Array.from(chargeBalanceCapacitorVoltagesV(spec), (v, i) => v * spec.capacitorsF[i]!);
   const c1 = process.cpuUsage();
   const t1 = performance.now();
-  const pss = findPeriodicSteadyState(system, { periodS, stepsPerPeriod: 200, initialCharges: charges, probes: ['top'] });
+  const pss = findPeriodicSteadyState(system, {
+    periodS,
+    stepsPerPeriod: 200,
+    initialCharges: charges,
+    probes: ['top'],
+  });
   const pssMs = performance.now() - t1;
   const pssCpuMs = cpuMsSince(c1);
   const pssMean = windowMean(pss.timeS, pss.signals.top!, 0, periodS);
-  console.log(`periodic steady state (shooting, 200 steps/period, from the charge-balance estimate): ${pssMs.toFixed(0)} ms wall, ${pssCpuMs.toFixed(0)} ms CPU, converged ${pss.isConverged}, ${pss.iterations} iterations, residual ${pss.relativeResidual.toExponential(2)} (history ${pss.residualHistory.map((r) => r.toExponential(1)).join(' ')}), mean ${pssMean.toFixed(2)} V`);
-  console.log(`  (ngspice's ${cycles}-cycle transient above, not yet settled, differs by ${((pssMean / ngMean - 1) * 100).toFixed(3)} %)`);
+  console.log(
+    `periodic steady state (shooting, 200 steps/period, from the charge-balance estimate): ${pssMs.toFixed(0)} ms wall, ${pssCpuMs.toFixed(0)} ms CPU, converged ${pss.isConverged}, ${pss.iterations} iterations, residual ${pss.relativeResidual.toExponential(2)} (history ${pss.residualHistory.map((r) => r.toExponential(1)).join(' ')}), mean ${pssMean.toFixed(2)} V`,
+  );
+  console.log(
+    `  (ngspice's ${cycles}-cycle transient above, not yet settled, differs by ${((pssMean / ngMean - 1) * 100).toFixed(3)} %)`,
+  );
 
   const settleCycles = Number(process.argv[4] ?? 5000);
   if (!(settleCycles > 0)) return;
@@ -67,18 +82,24 @@ async function main(): Promise<void> {
   const long = await runNgspice(toSpiceNetlist(circuit, { transient: settleRun }), ['v(top)']);
   const means = cycleMeans(long.timeS, long.signals['v(top)']!, periodS, settleCycles);
   const msPerCycle = long.elapsedMs / settleCycles;
-  console.log(`ngspice transient from empty capacitors to the same steady state: ${settleCycles} cycles in ${long.elapsedMs.toFixed(0)} ms (${msPerCycle.toFixed(2)} ms/cycle), last-cycle mean ${means[settleCycles - 1]!.toFixed(2)} V (${((means[settleCycles - 1]! / pssMean - 1) * 100).toFixed(4)} % from the steady state)`);
+  console.log(
+    `ngspice transient from empty capacitors to the same steady state: ${settleCycles} cycles in ${long.elapsedMs.toFixed(0)} ms (${msPerCycle.toFixed(2)} ms/cycle), last-cycle mean ${means[settleCycles - 1]!.toFixed(2)} V (${((means[settleCycles - 1]! / pssMean - 1) * 100).toFixed(4)} % from the steady state)`,
+  );
   for (const within of [0.005, 0.001]) {
     const c = settledFrom(means, pssMean, within);
     if (c < 0) {
-      console.log(`  within ${within * 100} %: not reached in ${settleCycles} cycles; the steady state is at least ${(long.elapsedMs / pssMs).toFixed(1)}× faster`);
+      console.log(
+        `  within ${within * 100} %: not reached in ${settleCycles} cycles; the steady state is at least ${(long.elapsedMs / pssMs).toFixed(1)}× faster`,
+      );
       continue;
     }
     // ngspice's steps per cycle are the same from cycle to cycle (the maximum step bounds them), so its
     // time to cycle c is the run's time prorated.
     const ngMs = msPerCycle * c;
     const ngCpuToC = (ngCpuMs / cycles) * c;
-    console.log(`  within ${within * 100} % of the steady-state mean from cycle ${c} on: ngspice ≈ ${ngMs.toFixed(0)} ms wall, ≈ ${ngCpuToC.toFixed(0)} ms CPU; steady state ${(ngMs / pssMs).toFixed(1)}× faster wall, ${(ngCpuToC / pssCpuMs).toFixed(1)}× CPU (target ≥ 50×)`);
+    console.log(
+      `  within ${within * 100} % of the steady-state mean from cycle ${c} on: ngspice ≈ ${ngMs.toFixed(0)} ms wall, ≈ ${ngCpuToC.toFixed(0)} ms CPU; steady state ${(ngMs / pssMs).toFixed(1)}× faster wall, ${(ngCpuToC / pssCpuMs).toFixed(1)}× CPU (target ≥ 50×)`,
+    );
   }
 }
 
@@ -93,7 +114,9 @@ function ngspiceCpuMs(netlist: string): number {
   try {
     const path = join(dir, 'circuit.cir');
     writeFileSync(path, netlist.replace(/^\.end\s*$/m, '.control\nrun\n.endc\n.end'));
-    const out = execFileSync('bash', ['-c', 'ngspice -b "$1" >/dev/null 2>&1; times', 'bash', path], { encoding: 'utf8' });
+    const out = execFileSync('bash', ['-c', 'ngspice -b "$1" >/dev/null 2>&1; times', 'bash', path], {
+      encoding: 'utf8',
+    });
     // `times` prints the shell's user/system times, then its children's: "0m1.234s 0m0.056s".
     const children = out.trim().split('\n').pop()!.trim().split(/\s+/);
     const seconds = (t: string): number => {

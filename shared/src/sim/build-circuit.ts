@@ -5,7 +5,14 @@ import type { Circuit, CircuitElement, DiodeModel, SourceWaveform } from './circ
 /** Drive of a ladder: the secondary's open-circuit waveform (volts) and its source resistance. */
 export type LadderDrive =
   | { kind: 'sine'; peakV: number; frequencyHz: number; sourceResistanceOhm: number }
-  | { kind: 'pulse'; forwardPeakV: number; flybackPeakV: number; frequencyHz: number; dutyCycle: number; sourceResistanceOhm: number };
+  | {
+      kind: 'pulse';
+      forwardPeakV: number;
+      flybackPeakV: number;
+      frequencyHz: number;
+      dutyCycle: number;
+      sourceResistanceOhm: number;
+    };
 
 /** Everything the simulator needs to know about a ladder, flattened from a design or from flags. */
 export interface LadderCircuitSpec {
@@ -36,7 +43,8 @@ export function capacitorName(index: number): string {
 }
 
 function driveWaveform(drive: LadderDrive, sign: 1 | -1): SourceWaveform {
-  if (drive.kind === 'sine') return { kind: 'sine', offset: 0, amplitude: sign * drive.peakV, frequencyHz: drive.frequencyHz };
+  if (drive.kind === 'sine')
+    return { kind: 'sine', offset: 0, amplitude: sign * drive.peakV, frequencyHz: drive.frequencyHz };
   const periodS = 1 / drive.frequencyHz;
   const edgeS = periodS * 1e-3;
   return {
@@ -64,10 +72,16 @@ export function buildLadderCircuit(spec: LadderCircuitSpec): Circuit {
   const k = spec.cellCount;
   const caps = spec.capacitorsF;
   const expected = spec.topology === 'full-wave' ? 3 * k : spec.topology === 'bridge-doubler' ? 2 : k;
-  if (!Number.isInteger(k) || k < 1) throw new DomainError('invalid_argument', 'cell count must be a positive integer', 'multiplier.cellCount');
-  if (spec.topology === 'bridge-doubler' && k !== 2) throw new DomainError('invalid_argument', 'a bridge doubler has 2 cells', 'multiplier.cellCount');
+  if (!Number.isInteger(k) || k < 1)
+    throw new DomainError('invalid_argument', 'cell count must be a positive integer', 'multiplier.cellCount');
+  if (spec.topology === 'bridge-doubler' && k !== 2)
+    throw new DomainError('invalid_argument', 'a bridge doubler has 2 cells', 'multiplier.cellCount');
   if (caps.length !== expected) {
-    throw new DomainError('invalid_argument', `expected ${expected} capacitors, got ${caps.length}`, 'multiplier.capacitors');
+    throw new DomainError(
+      'invalid_argument',
+      `expected ${expected} capacitors, got ${caps.length}`,
+      'multiplier.capacitors',
+    );
   }
   const ic = spec.initialCapacitorVoltagesV;
   const sign: 1 | -1 = spec.isNegative ? -1 : 1;
@@ -78,19 +92,50 @@ export function buildLadderCircuit(spec: LadderCircuitSpec): Circuit {
     el.push({ kind: 'diode', name: `D${diodeCount}`, anode, cathode, model: spec.diode });
   };
   const capacitor = (index: number, a: string, b: string): void => {
-    el.push({ kind: 'capacitor', name: capacitorName(index), nodeA: a, nodeB: b, capacitanceF: caps[index]!, initialVoltageV: ic?.[index] ?? 0 });
+    el.push({
+      kind: 'capacitor',
+      name: capacitorName(index),
+      nodeA: a,
+      nodeB: b,
+      capacitanceF: caps[index]!,
+      initialVoltageV: ic?.[index] ?? 0,
+    });
   };
   const rs = spec.drive.sourceResistanceOhm;
   const winding = (name: string, plus: string, minus: string, phase: 1 | -1): void => {
     const emf = `${name}_emf`;
     const base = driveWaveform(spec.drive, phase);
-    el.push({ kind: 'voltage-source', name: `V${name}`, nodePlus: rs > 0 || spec.driveOffAtS !== undefined ? emf : plus, nodeMinus: minus, waveform: base });
+    el.push({
+      kind: 'voltage-source',
+      name: `V${name}`,
+      nodePlus: rs > 0 || spec.driveOffAtS !== undefined ? emf : plus,
+      nodeMinus: minus,
+      waveform: base,
+    });
     let at = rs > 0 || spec.driveOffAtS !== undefined ? emf : plus;
     if (spec.driveOffAtS !== undefined) {
       // Drive off: the winding opens from the source and is shorted through the same source resistance.
       const mid = `${name}_sw`;
-      el.push({ kind: 'switch', name: `S${name}`, nodeA: at, nodeB: mid, onResistanceOhm: 1e-3, offResistanceOhm: 1e12, isInitiallyClosed: true, events: [{ timeS: spec.driveOffAtS, isClosed: false }] });
-      el.push({ kind: 'switch', name: `S${name}_short`, nodeA: mid, nodeB: minus, onResistanceOhm: 1e-3, offResistanceOhm: 1e12, isInitiallyClosed: false, events: [{ timeS: spec.driveOffAtS, isClosed: true }] });
+      el.push({
+        kind: 'switch',
+        name: `S${name}`,
+        nodeA: at,
+        nodeB: mid,
+        onResistanceOhm: 1e-3,
+        offResistanceOhm: 1e12,
+        isInitiallyClosed: true,
+        events: [{ timeS: spec.driveOffAtS, isClosed: false }],
+      });
+      el.push({
+        kind: 'switch',
+        name: `S${name}_short`,
+        nodeA: mid,
+        nodeB: minus,
+        onResistanceOhm: 1e-3,
+        offResistanceOhm: 1e12,
+        isInitiallyClosed: false,
+        events: [{ timeS: spec.driveOffAtS, isClosed: true }],
+      });
       at = mid;
     }
     if (rs > 0) el.push({ kind: 'resistor', name: `R${name}`, nodeA: at, nodeB: plus, resistanceOhm: rs });
@@ -138,15 +183,24 @@ export function buildLadderCircuit(spec: LadderCircuitSpec): Circuit {
   }
   const stray = spec.strayCapacitanceF ?? 0;
   if (stray > 0) {
-    ladderNodes.forEach((n, i) => el.push({ kind: 'capacitor', name: `Cstray${i + 1}`, nodeA: n, nodeB: '0', capacitanceF: stray }));
+    ladderNodes.forEach((n, i) =>
+      el.push({ kind: 'capacitor', name: `Cstray${i + 1}`, nodeA: n, nodeB: '0', capacitanceF: stray }),
+    );
   }
-  if (spec.bleederOhm) el.push({ kind: 'resistor', name: 'Rbleed', nodeA: top, nodeB: '0', resistanceOhm: spec.bleederOhm });
+  if (spec.bleederOhm)
+    el.push({ kind: 'resistor', name: 'Rbleed', nodeA: top, nodeB: '0', resistanceOhm: spec.bleederOhm });
   const rOut = spec.seriesOutputResistanceOhm ?? 0;
   const out = LADDER_NODES.loadTerminal;
   el.push({ kind: 'resistor', name: 'Rout', nodeA: top, nodeB: out, resistanceOhm: rOut > 0 ? rOut : 1e-3 });
   const load = spec.load;
   if (load?.kind === 'current' && load.currentA !== 0) {
-    el.push({ kind: 'current-source', name: 'Iload', nodePlus: sign > 0 ? out : '0', nodeMinus: sign > 0 ? '0' : out, waveform: { kind: 'dc', value: load.currentA } });
+    el.push({
+      kind: 'current-source',
+      name: 'Iload',
+      nodePlus: sign > 0 ? out : '0',
+      nodeMinus: sign > 0 ? '0' : out,
+      waveform: { kind: 'dc', value: load.currentA },
+    });
   } else if (load?.kind === 'resistance') {
     el.push({ kind: 'resistor', name: 'Rload', nodeA: out, nodeB: '0', resistanceOhm: load.resistanceOhm });
   } else {
@@ -182,7 +236,11 @@ export function ladderPartFromDesign(design: Design): Omit<LadderCircuitSpec, 'd
 export function ladderSpecFromDesign(design: Design): LadderCircuitSpec {
   const d = design.drive;
   if (d.kind === 'driver') {
-    throw new DomainError('invalid_design', 'a driver drive is simulated with its transistor stage (buildCircuit in design-circuit.ts)', 'drive.kind');
+    throw new DomainError(
+      'invalid_design',
+      'a driver drive is simulated with its transistor stage (buildCircuit in design-circuit.ts)',
+      'drive.kind',
+    );
   }
   return { ...ladderPartFromDesign(design), drive: d };
 }

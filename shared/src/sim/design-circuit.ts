@@ -9,6 +9,7 @@ import type { Circuit } from './circuit.types';
  * transformer (shared/src/driver/build-driver-circuit.ts), its secondary feeding the ladder.
  */
 export function buildCircuit(design: Design): Circuit {
-  if (design.drive.kind === 'driver') return buildDriverCircuit(design.drive.driver, { ladder: ladderPartFromDesign(design) });
+  if (design.drive.kind === 'driver')
+    return buildDriverCircuit(design.drive.driver, { ladder: ladderPartFromDesign(design) });
   return buildLadderCircuit(ladderSpecFromDesign(design));
 }

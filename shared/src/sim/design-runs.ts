@@ -62,7 +62,9 @@ function phaseWeights(options: LadderRunOptions): { pss: number; startUp: number
 }
 
 /** Wraps `onProgress`: clamps to 0..1, never goes back, reports a rise of at least PROGRESS_STEP (or a forced one). */
-function progressReporter(onProgress: ((fraction: number) => void) | undefined): (fraction: number, isForced?: boolean) => void {
+function progressReporter(
+  onProgress: ((fraction: number) => void) | undefined,
+): (fraction: number, isForced?: boolean) => void {
   let reported = -Infinity;
   return (fraction, isForced = false) => {
     if (!onProgress) return;
@@ -202,7 +204,9 @@ export function runLadder(spec: LadderCircuitSpec, options: LadderRunOptions): L
     ripplePeakToPeakV: rippleV,
     timeToSteadyStateS: reachedAtS,
     cyclesSimulated: cycles,
-    periodicSteadyState: pss ? { isConverged: pss.isConverged, iterations: pss.iterations, relativeResidual: pss.relativeResidual } : null,
+    periodicSteadyState: pss
+      ? { isConverged: pss.isConverged, iterations: pss.iterations, relativeResidual: pss.relativeResidual }
+      : null,
     startUp: downsampleMinMax(time, top, buckets),
     ripple: downsampleMinMax(ripple.timeS, ripple.values, buckets),
     discharge,
@@ -229,7 +233,11 @@ export interface DischargeRunOptions {
  * constant-current load is a model of the running equipment, not a discharge path: it is dropped (a
  * resistive load stays), so the discharge is the bleeder's. Seconds, volts, coulombs.
  */
-export function followLadderDischarge(spec: LadderCircuitSpec, voltages: ReadonlyArray<number>, options: DischargeRunOptions): NonNullable<LadderRunResult['discharge']> {
+export function followLadderDischarge(
+  spec: LadderCircuitSpec,
+  voltages: ReadonlyArray<number>,
+  options: DischargeRunOptions,
+): NonNullable<LadderRunResult['discharge']> {
   const capCount = spec.capacitorsF.length;
   const load = spec.load?.kind === 'current' ? null : (spec.load ?? null);
   const off = buildLadderCircuit({ ...spec, load, driveOffAtS: 0, initialCapacitorVoltagesV: voltages });
@@ -250,7 +258,8 @@ export function followLadderDischarge(spec: LadderCircuitSpec, voltages: Readonl
     options.checkCancel();
     dis.step(stopS);
     const v = dis.value(offTop);
-    const share = logSpan > 0 && Math.abs(v) > 0 ? Math.log(Math.abs(dv[0]!) / Math.abs(v)) / logSpan : dis.timeS / stopS;
+    const share =
+      logSpan > 0 && Math.abs(v) > 0 ? Math.log(Math.abs(dv[0]!) / Math.abs(v)) / logSpan : dis.timeS / stopS;
     options.onShare?.(Math.min(1, Math.max(0, share)));
     dt.push(dis.timeS);
     dv.push(v);
@@ -268,5 +277,11 @@ export function followLadderDischarge(spec: LadderCircuitSpec, voltages: Readonl
     capacitorVoltagesV[capacitorName(i)] = downsampleMinMax(dt, series, options.plotBuckets);
     trappedChargeC[capacitorName(i)] = series[series.length - 1]! * spec.capacitorsF[i]!;
   });
-  return { dischargeTimeS: crossedS, safeVoltageV: safe, capacitorVoltagesV, output: downsampleMinMax(dt, dv, options.plotBuckets), trappedChargeC };
+  return {
+    dischargeTimeS: crossedS,
+    safeVoltageV: safe,
+    capacitorVoltagesV,
+    output: downsampleMinMax(dt, dv, options.plotBuckets),
+    trappedChargeC,
+  };
 }

@@ -80,10 +80,12 @@ export function engineCapacitorVoltagesV(design: Design): number[] {
   const circuit = buildDriverCircuit(design.drive.driver, { ladder: ladderPartFromDesign(design) });
   return design.multiplier.capacitors.map((_, i) => {
     const c = circuit.elements.find((e) => e.kind === 'capacitor' && e.name === capacitorName(i));
-    if (!c || c.kind !== 'capacitor') throw new DomainError('invalid_design', `no capacitor ${capacitorName(i)} in the circuit`);
+    if (!c || c.kind !== 'capacitor')
+      throw new DomainError('invalid_design', `no capacitor ${capacitorName(i)} in the circuit`);
     const a = mean.get(c.nodeA);
     const b = mean.get(c.nodeB);
-    if (a === undefined || b === undefined) throw new DomainError('invalid_design', `the engine reports no voltage for ${capacitorName(i)}'s nodes`);
+    if (a === undefined || b === undefined)
+      throw new DomainError('invalid_design', `the engine reports no voltage for ${capacitorName(i)}'s nodes`);
     return a - b;
   });
 }
@@ -91,7 +93,9 @@ export function engineCapacitorVoltagesV(design: Design): number[] {
 /** The driver circuit of a design with the ladder capacitors starting at the given voltages (design order). */
 export function driverDesignCircuit(design: Design, initialCapacitorVoltagesV: ReadonlyArray<number>): Circuit {
   if (design.drive.kind !== 'driver') throw new DomainError('invalid_design', 'needs a driver drive', 'drive.kind');
-  return buildDriverCircuit(design.drive.driver, { ladder: { ...ladderPartFromDesign(design), initialCapacitorVoltagesV } });
+  return buildDriverCircuit(design.drive.driver, {
+    ladder: { ...ladderPartFromDesign(design), initialCapacitorVoltagesV },
+  });
 }
 
 /**
@@ -115,7 +119,8 @@ export function driverDesignCircuit(design: Design, initialCapacitorVoltagesV: R
  * transformer's secondary is a short through its winding resistance). Volts, amperes, seconds, joules.
  */
 export function runDriverDesign(design: Design, options: DriverRunOptions = {}): DriverRunResult {
-  if (design.drive.kind !== 'driver') throw new DomainError('invalid_design', 'runDriverDesign needs a driver drive', 'drive.kind');
+  if (design.drive.kind !== 'driver')
+    throw new DomainError('invalid_design', 'runDriverDesign needs a driver drive', 'drive.kind');
   const start = options.start ?? 'warm';
   const estimatePeriodS = 1 / estimateBlockingOscillator(design.drive.driver).frequencyHz.value;
   const capsF = design.multiplier.capacitors.map((c) => c.valueF);
@@ -205,7 +210,11 @@ export function runDriverDesign(design: Design, options: DriverRunOptions = {}):
       topV.push(v);
       colWindow.time.push(stepper.timeS);
       colWindow.values.push(col);
-      if (isCrossing || (isFixedWindow && stepper.timeS >= end * (1 - 1e-12)) || stepper.timeS >= maxTimeS * (1 - 1e-12)) {
+      if (
+        isCrossing ||
+        (isFixedWindow && stepper.timeS >= end * (1 - 1e-12)) ||
+        stepper.timeS >= maxTimeS * (1 - 1e-12)
+      ) {
         closedAtS = prevT + dt * before;
         const span = closedAtS - windowStartS;
         means.push(area / span);
@@ -242,7 +251,10 @@ export function runDriverDesign(design: Design, options: DriverRunOptions = {}):
       const scale = Math.abs(mean) || 1;
       if (sinceJump >= 4 && Math.max(Math.abs(d1), Math.abs(d2)) * gain <= settleFraction * scale) isSettled = true;
       firstProjection ??= projected;
-      const share = firstProjection > settleFraction * scale && projected > 0 ? Math.log(firstProjection / projected) / Math.log(firstProjection / (settleFraction * scale)) : 0;
+      const share =
+        firstProjection > settleFraction * scale && projected > 0
+          ? Math.log(firstProjection / projected) / Math.log(firstProjection / (settleFraction * scale))
+          : 0;
       report(weights.run * Math.max(stepper.timeS / maxTimeS, Math.min(0.99, share)));
       if (!isSettled && start === 'warm' && isClean && sinceJump >= 5) {
         const jumpGain = ratio / (1 - ratio);
@@ -267,7 +279,8 @@ export function runDriverDesign(design: Design, options: DriverRunOptions = {}):
     reachedAtS = firstAt >= 0 ? Math.min((firstAt + 1) * windowS, maxTimeS) : null;
   }
   const crossings = risingCrossings(colWindow.time.toArray(), colWindow.values.toArray(), 0);
-  const frequencyHz = crossings.length >= 3 ? (crossings.length - 1) / (crossings[crossings.length - 1]! - crossings[0]!) : null;
+  const frequencyHz =
+    crossings.length >= 3 ? (crossings.length - 1) / (crossings[crossings.length - 1]! - crossings[0]!) : null;
   const energy = meter.account();
   const t = time.toArray();
   const v = topV.toArray();
@@ -302,7 +315,12 @@ export function runDriverDesign(design: Design, options: DriverRunOptions = {}):
     const spec: LadderCircuitSpec = {
       ...part,
       // The stopped secondary: no EMF (a sine of zero amplitude has no breakpoints), its winding resistance.
-      drive: { kind: 'sine', peakV: 0, frequencyHz: 1 / lastPeriodS, sourceResistanceOhm: design.drive.driver.transformer.secondaryResistanceOhm },
+      drive: {
+        kind: 'sine',
+        peakV: 0,
+        frequencyHz: 1 / lastPeriodS,
+        sourceResistanceOhm: design.drive.driver.transformer.secondaryResistanceOhm,
+      },
     };
     discharge = followLadderDischarge(
       spec,

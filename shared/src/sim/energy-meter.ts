@@ -33,7 +33,14 @@ export class EnergyMeter {
   private lastTimeS = NaN;
   private storedAtStartJ = NaN;
   private readonly diodeOut: DiodeOperatingPoint = { currentA: 0, conductanceS: 0 };
-  private readonly npnOut: NpnOperatingPoint = { collectorA: 0, baseA: 0, dCollectorDVbe: 0, dCollectorDVbc: 0, dBaseDVbe: 0, dBaseDVbc: 0 };
+  private readonly npnOut: NpnOperatingPoint = {
+    collectorA: 0,
+    baseA: 0,
+    dCollectorDVbe: 0,
+    dCollectorDVbc: 0,
+    dBaseDVbe: 0,
+    dBaseDVbc: 0,
+  };
   private readonly inductances = new Map<string, Float64Array>();
 
   constructor(circuit: Circuit, system: MnaSystem) {
@@ -43,7 +50,8 @@ export class EnergyMeter {
     this.lastPower = new Float64Array(this.elements.length);
     this.scratch = new Float64Array(this.elements.length);
     for (const e of this.elements) {
-      if (e.kind === 'coupled-inductors') this.inductances.set(e.name, inductanceMatrix(e.windings, e.couplingCoefficient, e.name));
+      if (e.kind === 'coupled-inductors')
+        this.inductances.set(e.name, inductanceMatrix(e.windings, e.couplingCoefficient, e.name));
     }
   }
 
@@ -104,7 +112,8 @@ export class EnergyMeter {
           const internal = this.system.internalIndex.get(e.name);
           const terminalV = this.v(e.anode) - this.v(e.cathode);
           // With an internal node the junction voltage is an unknown; otherwise the series resistance is folded in.
-          if (internal !== undefined) evaluateDiode(e.model, this.system.x[internal]! - this.v(e.cathode), this.diodeOut);
+          if (internal !== undefined)
+            evaluateDiode(e.model, this.system.x[internal]! - this.v(e.cathode), this.diodeOut);
           else seriesDiodeCurrentA(e.model, terminalV, this.diodeOut);
           p = this.diodeOut.currentA * terminalV;
           break;

@@ -4,7 +4,14 @@ export { simulateTransient, TransientStepper, DEFAULT_TOLERANCES } from './trans
 export { MnaSystem } from './mna-system';
 export { toSpiceNetlist, spiceNodeName } from './to-spice-netlist';
 export { buildCircuit } from './design-circuit';
-export { buildLadderCircuit, ladderSpecFromDesign, ladderPartFromDesign, idealCapacitorVoltagesV, capacitorName, LADDER_NODES } from './build-circuit';
+export {
+  buildLadderCircuit,
+  ladderSpecFromDesign,
+  ladderPartFromDesign,
+  idealCapacitorVoltagesV,
+  capacitorName,
+  LADDER_NODES,
+} from './build-circuit';
 export type { LadderCircuitSpec, LadderDrive } from './build-circuit';
 export { downsampleMinMax, windowMean, windowPeakToPeak } from './waveform-measures';
 export { findPeriodicSteadyState } from './periodic-steady-state';

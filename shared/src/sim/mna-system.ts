@@ -4,7 +4,14 @@ import { GROUND_NODE } from './circuit.types';
 import { evaluateNpn, type NpnOperatingPoint } from './devices/bjt';
 import { inductanceMatrix } from './devices/coupled-inductors';
 import { evaluateDiode, solveSeriesJunctionV, type DiodeOperatingPoint } from './devices/diode';
-import { criticalVoltageV, depletionCharge, JUNCTION_GMIN_S, limitJunctionVoltage, THERMAL_VOLTAGE_V, wasLimited } from './devices/junction';
+import {
+  criticalVoltageV,
+  depletionCharge,
+  JUNCTION_GMIN_S,
+  limitJunctionVoltage,
+  THERMAL_VOLTAGE_V,
+  wasLimited,
+} from './devices/junction';
 import { BandedLu } from './solver/banded-lu';
 import { reverseCuthillMcKee } from './solver/node-ordering';
 import { nextWaveformBreakpoint, waveformValue } from './source-waveforms';
@@ -91,7 +98,8 @@ export class MnaSystem {
     if (elements.length === 0) throw new DomainError('invalid_argument', 'the circuit has no elements', 'elements');
     const names = new Set<string>();
     elements.forEach((e, i) => {
-      if (names.has(e.name)) throw new DomainError('invalid_argument', `duplicate element name ${e.name}`, `elements[${i}].name`);
+      if (names.has(e.name))
+        throw new DomainError('invalid_argument', `duplicate element name ${e.name}`, `elements[${i}].name`);
       names.add(e.name);
     });
 
@@ -172,9 +180,9 @@ export class MnaSystem {
     this.reactanceBand = new Float64Array(bandLength);
     this.linearBand = new Float64Array(bandLength);
     this.nodeDiagonalOffsets = new Int32Array(
-      [...this.nodeIndex.values()].map((i) => this.lu.offsetOf(i, i)).concat(
-        [...provisional.keys()].filter((k) => k.startsWith('i:')).map((k) => this.lu.offsetOf(at(k), at(k))),
-      ),
+      [...this.nodeIndex.values()]
+        .map((i) => this.lu.offsetOf(i, i))
+        .concat([...provisional.keys()].filter((k) => k.startsWith('i:')).map((k) => this.lu.offsetOf(at(k), at(k)))),
     );
 
     // 2. Stamps. Reactive quantities: linear ones first, nonlinear junction charges after.
@@ -193,7 +201,13 @@ export class MnaSystem {
     const gradIndex: number[] = [];
     const gradValue: number[] = [];
     const initial: number[] = [];
-    const addReactive = (name: string, a: number, b: number, grad: ReadonlyArray<[number, number]>, q0: number): number => {
+    const addReactive = (
+      name: string,
+      a: number,
+      b: number,
+      grad: ReadonlyArray<[number, number]>,
+      q0: number,
+    ): number => {
       rowA.push(a);
       rowB.push(b);
       for (const [i, v] of grad) {
@@ -206,7 +220,8 @@ export class MnaSystem {
       return rowA.length - 1;
     };
     const positive = (value: number, path: string): number => {
-      if (!(value > 0) || !Number.isFinite(value)) throw new DomainError('invalid_argument', 'must be a positive finite number', path);
+      if (!(value > 0) || !Number.isFinite(value))
+        throw new DomainError('invalid_argument', 'must be a positive finite number', path);
       return value;
     };
     const addBranch = (branch: number, a: number, b: number): void => {
@@ -228,7 +243,16 @@ export class MnaSystem {
           const b = nodeAt(e.nodeB);
           const cap = positive(e.capacitanceF, `${path}.capacitanceF`);
           addConductance(c, a, b, cap);
-          addReactive(e.name, a, b, [[a, cap], [b, -cap]], cap * (e.initialVoltageV ?? 0));
+          addReactive(
+            e.name,
+            a,
+            b,
+            [
+              [a, cap],
+              [b, -cap],
+            ],
+            cap * (e.initialVoltageV ?? 0),
+          );
           break;
         }
         case 'inductor': {
@@ -267,7 +291,12 @@ export class MnaSystem {
           break;
         }
         case 'current-source':
-          this.sources.push({ row: nodeAt(e.nodePlus), rowB: nodeAt(e.nodeMinus), isVoltage: false, waveform: e.waveform });
+          this.sources.push({
+            row: nodeAt(e.nodePlus),
+            rowB: nodeAt(e.nodeMinus),
+            isVoltage: false,
+            waveform: e.waveform,
+          });
           break;
         case 'switch': {
           const a = nodeAt(e.nodeA);
@@ -287,7 +316,9 @@ export class MnaSystem {
           if (hasInternalNode(e.model)) addConductance(g, anode, junction, 1 / e.model.seriesResistanceOhm);
           positive(e.model.saturationCurrentA, `${path}.model.saturationCurrentA`);
           positive(e.model.emissionCoefficient, `${path}.model.emissionCoefficient`);
-          deferred.push(() => this.diodes.push(new CompiledDiode(e.name, e.model, junction, nodeAt(e.cathode), lu, addReactive)));
+          deferred.push(() =>
+            this.diodes.push(new CompiledDiode(e.name, e.model, junction, nodeAt(e.cathode), lu, addReactive)),
+          );
           break;
         }
         case 'npn':
@@ -295,7 +326,9 @@ export class MnaSystem {
           positive(e.model.forwardBeta, `${path}.model.forwardBeta`);
           positive(e.model.reverseBeta, `${path}.model.reverseBeta`);
           deferred.push(() =>
-            this.npns.push(new CompiledNpn(e.name, e.model, nodeAt(e.collector), nodeAt(e.base), nodeAt(e.emitter), lu, addReactive)),
+            this.npns.push(
+              new CompiledNpn(e.name, e.model, nodeAt(e.collector), nodeAt(e.base), nodeAt(e.emitter), lu, addReactive),
+            ),
           );
           break;
       }
@@ -391,8 +424,32 @@ export class MnaSystem {
     this.rhs.set(this.stepRhs);
     if (this.shuntConductanceS > 0) for (const o of this.nodeDiagonalOffsets) band[o]! += this.shuntConductanceS;
     let limited = false;
-    for (const d of this.diodes) limited = d.load(this.x, band, this.rhs, a0, this.charge, this.gradientValue, this.gradientStart, this.diodeOut, this.chargeOut) || limited;
-    for (const q of this.npns) limited = q.load(this.x, band, this.rhs, a0, this.charge, this.gradientValue, this.gradientStart, this.npnOut, this.chargeOut) || limited;
+    for (const d of this.diodes)
+      limited =
+        d.load(
+          this.x,
+          band,
+          this.rhs,
+          a0,
+          this.charge,
+          this.gradientValue,
+          this.gradientStart,
+          this.diodeOut,
+          this.chargeOut,
+        ) || limited;
+    for (const q of this.npns)
+      limited =
+        q.load(
+          this.x,
+          band,
+          this.rhs,
+          a0,
+          this.charge,
+          this.gradientValue,
+          this.gradientStart,
+          this.npnOut,
+          this.chargeOut,
+        ) || limited;
     band[this.lu.groundOffset] = 0;
     return limited;
   }
@@ -417,7 +474,8 @@ export class MnaSystem {
     const x = this.x;
     for (let k = 0; k < this.linearReactiveCount; k++) {
       let q = 0;
-      for (let p = this.gradientStart[k]!; p < this.gradientStart[k + 1]!; p++) q += this.gradientValue[p]! * x[this.gradientIndex[p]!]!;
+      for (let p = this.gradientStart[k]!; p < this.gradientStart[k + 1]!; p++)
+        q += this.gradientValue[p]! * x[this.gradientIndex[p]!]!;
       this.charge[k] = q;
     }
   }
@@ -481,7 +539,15 @@ function junctionOffsets(lu: BandedLu, a: number, b: number): Int32Array {
 }
 
 /** Linearized two-terminal element: current gEq·(Va − Vb) + iEq from a to b. */
-function stampJunction(band: Float64Array, rhs: Float64Array, o: Int32Array, a: number, b: number, gEq: number, iEq: number): void {
+function stampJunction(
+  band: Float64Array,
+  rhs: Float64Array,
+  o: Int32Array,
+  a: number,
+  b: number,
+  gEq: number,
+  iEq: number,
+): void {
   band[o[0]!]! += gEq;
   band[o[1]!]! -= gEq;
   band[o[2]!]! -= gEq;
@@ -533,10 +599,22 @@ class CompiledDiode {
     this.foldedOhm = hasInternalNode(model) ? 0 : model.seriesResistanceOhm;
     this.reverseLeakOnly = !((model.breakdownVoltageV ?? 0) > 0);
     const rs = this.foldedOhm;
-    this.farReverseV = this.reverseLeakOnly && rs > 0 ? -(3 * this.vte) / (Math.E * 1e-3) - rs * model.saturationCurrentA : -Infinity;
+    this.farReverseV =
+      this.reverseLeakOnly && rs > 0 ? -(3 * this.vte) / (Math.E * 1e-3) - rs * model.saturationCurrentA : -Infinity;
     this.farReverseScale = 1 / (1 + rs * JUNCTION_GMIN_S);
     this.farReverseG = JUNCTION_GMIN_S / (1 + rs * JUNCTION_GMIN_S);
-    this.reactive = this.hasCharge ? addReactive(`${name}.junction`, junction, cathode, [[junction, 0], [cathode, 0]], 0) : -1;
+    this.reactive = this.hasCharge
+      ? addReactive(
+          `${name}.junction`,
+          junction,
+          cathode,
+          [
+            [junction, 0],
+            [cathode, 0],
+          ],
+          0,
+        )
+      : -1;
   }
 
   load(
@@ -569,7 +647,7 @@ class CompiledDiode {
       const m = this.model;
       depletionAt(v, m.junctionCapacitanceF ?? 0, m.junctionPotentialV ?? 1, m.gradingCoefficient ?? 0.5, qOut);
       const tt = m.transitTimeS ?? 0;
-      const q = qOut.chargeC + tt * (out.currentA);
+      const q = qOut.chargeC + tt * out.currentA;
       const cap = qOut.capacitanceF + tt * out.conductanceS;
       charge[this.reactive] = q;
       const p = gradientStart[this.reactive]!;
@@ -595,7 +673,15 @@ class CompiledDiode {
     if (isPredicted && Number.isFinite(out.currentA) && Number.isFinite(out.conductanceS)) {
       // Linearized at the predicted junction voltage v: the point (u, I) = (v + Rs·I(v), I(v)) of the curve.
       const v = this.predictedV;
-      return this.stampFolded(band, rhs, v + rs * out.currentA, v, out.currentA, out.conductanceS, out.conductanceS / (1 + rs * out.conductanceS));
+      return this.stampFolded(
+        band,
+        rhs,
+        v + rs * out.currentA,
+        v,
+        out.currentA,
+        out.conductanceS,
+        out.conductanceS / (1 + rs * out.conductanceS),
+      );
     }
     const u = x[this.junction]! - x[this.cathode]!;
     const vte = this.vte;
@@ -628,15 +714,36 @@ class CompiledDiode {
     }
     // Start the local solve at the Newton step from the last junction point (v moves by du/(1 + Rs·gj)):
     // a reverse junction, near linear, then needs one evaluation, a conducting one one fewer.
-    const v = solveJunction(this.model, u, isStale ? this.lastV : this.lastV + (u - this.lastTerminalV) / (1 + rs * this.lastJunctionG), out);
-    return this.stampFolded(band, rhs, u, v, out.currentA, out.conductanceS, out.conductanceS / (1 + rs * out.conductanceS));
+    const v = solveJunction(
+      this.model,
+      u,
+      isStale ? this.lastV : this.lastV + (u - this.lastTerminalV) / (1 + rs * this.lastJunctionG),
+      out,
+    );
+    return this.stampFolded(
+      band,
+      rhs,
+      u,
+      v,
+      out.currentA,
+      out.conductanceS,
+      out.conductanceS / (1 + rs * out.conductanceS),
+    );
   }
 
   /**
    * Records and stamps a folded diode linearized at terminal u: junction v, current i, junction conductance
    * gj, terminal conductance g = gj/(1 + Rs·gj).
    */
-  private stampFolded(band: Float64Array, rhs: Float64Array, u: number, v: number, i: number, gj: number, g: number): boolean {
+  private stampFolded(
+    band: Float64Array,
+    rhs: Float64Array,
+    u: number,
+    v: number,
+    i: number,
+    gj: number,
+    g: number,
+  ): boolean {
     this.lastJunctionG = gj;
     this.lastV = v;
     this.lastTerminalV = u;
@@ -662,7 +769,8 @@ class CompiledDiode {
     if (this.foldedOhm > 0) {
       const du = x[this.junction]! - x[this.cathode]! - this.lastTerminalV;
       // A junction that stays below −3·n·Vt without breakdown is a near-linear leak (see below).
-      if (this.lastV < -3 * this.vte && this.lastV + du < -3 * this.vte && (this.model.breakdownVoltageV ?? 0) <= 0) return true;
+      if (this.lastV < -3 * this.vte && this.lastV + du < -3 * this.vte && (this.model.breakdownVoltageV ?? 0) <= 0)
+        return true;
       const change = this.lastG * du;
       return Math.abs(change) <= relative * Math.max(Math.abs(this.lastI + change), Math.abs(this.lastI)) + absoluteA;
     }
@@ -674,7 +782,9 @@ class CompiledDiode {
     if (v < -3 * this.vte && this.lastV < -3 * this.vte && v > knee && this.lastV > knee) return true;
     const delta = v - this.lastV;
     const predicted = this.lastI + this.lastG * delta;
-    return Math.abs(predicted - this.lastI) <= relative * Math.max(Math.abs(predicted), Math.abs(this.lastI)) + absoluteA;
+    return (
+      Math.abs(predicted - this.lastI) <= relative * Math.max(Math.abs(predicted), Math.abs(this.lastI)) + absoluteA
+    );
   }
 }
 
@@ -710,8 +820,32 @@ class CompiledNpn {
     for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) this.rows[i * 3 + j] = lu.offsetOf(t[i]!, t[j]!);
     this.beOffsets = junctionOffsets(lu, base, emitter);
     this.bcOffsets = junctionOffsets(lu, base, collector);
-    this.reactiveBe = (model.baseEmitterCapacitanceF ?? 0) > 0 ? addReactive(`${name}.be`, base, emitter, [[base, 0], [emitter, 0]], 0) : -1;
-    this.reactiveBc = (model.baseCollectorCapacitanceF ?? 0) > 0 ? addReactive(`${name}.bc`, base, collector, [[base, 0], [collector, 0]], 0) : -1;
+    this.reactiveBe =
+      (model.baseEmitterCapacitanceF ?? 0) > 0
+        ? addReactive(
+            `${name}.be`,
+            base,
+            emitter,
+            [
+              [base, 0],
+              [emitter, 0],
+            ],
+            0,
+          )
+        : -1;
+    this.reactiveBc =
+      (model.baseCollectorCapacitanceF ?? 0) > 0
+        ? addReactive(
+            `${name}.bc`,
+            base,
+            collector,
+            [
+              [base, 0],
+              [collector, 0],
+            ],
+            0,
+          )
+        : -1;
   }
 
   load(
@@ -763,8 +897,42 @@ class CompiledNpn {
     const m = this.model;
     const vj = m.junctionPotentialV ?? 0.75;
     const mj = m.gradingCoefficient ?? 0.33;
-    if (this.reactiveBe >= 0) this.loadJunctionCharge(this.reactiveBe, this.beOffsets, this.base, this.emitter, vbe, m.baseEmitterCapacitanceF ?? 0, vj, mj, band, rhs, a0, charge, gradient, gradientStart, qOut);
-    if (this.reactiveBc >= 0) this.loadJunctionCharge(this.reactiveBc, this.bcOffsets, this.base, this.collector, vbc, m.baseCollectorCapacitanceF ?? 0, vj, mj, band, rhs, a0, charge, gradient, gradientStart, qOut);
+    if (this.reactiveBe >= 0)
+      this.loadJunctionCharge(
+        this.reactiveBe,
+        this.beOffsets,
+        this.base,
+        this.emitter,
+        vbe,
+        m.baseEmitterCapacitanceF ?? 0,
+        vj,
+        mj,
+        band,
+        rhs,
+        a0,
+        charge,
+        gradient,
+        gradientStart,
+        qOut,
+      );
+    if (this.reactiveBc >= 0)
+      this.loadJunctionCharge(
+        this.reactiveBc,
+        this.bcOffsets,
+        this.base,
+        this.collector,
+        vbc,
+        m.baseCollectorCapacitanceF ?? 0,
+        vj,
+        mj,
+        band,
+        rhs,
+        a0,
+        charge,
+        gradient,
+        gradientStart,
+        qOut,
+      );
     return limited;
   }
 

@@ -47,15 +47,25 @@ export interface PeriodicSteadyStateResult {
  * the barely conducting diodes leave Φ' − I nearly singular. Converged when the residual and the Newton
  * update are both within relativeTolerance of the state's largest charge.
  */
-export function findPeriodicSteadyState(circuit: Circuit | MnaSystem, options: PeriodicSteadyStateOptions): PeriodicSteadyStateResult {
+export function findPeriodicSteadyState(
+  circuit: Circuit | MnaSystem,
+  options: PeriodicSteadyStateOptions,
+): PeriodicSteadyStateResult {
   const sys = 'elements' in circuit ? new MnaSystem(circuit) : circuit;
   // Φ must be evaluated far more tightly than the residual the shooting aims at, or the update chases
   // Newton noise: a relative tolerance of 1e-9 inside each step. The junction-current test then needs an
   // absolute floor above rounding (1 nA: over a step of the period it moves a charge far below the state's).
-  const tol = { ...DEFAULT_TOLERANCES, relative: 1e-9, voltageAbsoluteV: 1e-9, currentAbsoluteA: 1e-9, ...options.tolerances };
+  const tol = {
+    ...DEFAULT_TOLERANCES,
+    relative: 1e-9,
+    voltageAbsoluteV: 1e-9,
+    currentAbsoluteA: 1e-9,
+    ...options.tolerances,
+  };
   const r = sys.reactiveCount;
   const n = options.stepsPerPeriod;
-  if (!(n >= 4) || !(options.periodS > 0)) throw new DomainError('invalid_argument', 'need a positive period and at least 4 steps', 'stepsPerPeriod');
+  if (!(n >= 4) || !(options.periodS > 0))
+    throw new DomainError('invalid_argument', 'need a positive period and at least 4 steps', 'stepsPerPeriod');
   const h = options.periodS / n;
   const maxIterations = options.maxIterations ?? 30;
   const relTol = options.relativeTolerance ?? 1e-6;
@@ -71,7 +81,11 @@ export function findPeriodicSteadyState(circuit: Circuit | MnaSystem, options: P
   let newtonIterations = 0;
 
   /** One period from q(0) = start; fills sq with ∂q(T)/∂q(0) when withSensitivity; returns q(T) in q0. */
-  const period = (start: Float64Array, withSensitivity: boolean, record: { time: SampleBuffer; values: SampleBuffer[] } | null): void => {
+  const period = (
+    start: Float64Array,
+    withSensitivity: boolean,
+    record: { time: SampleBuffer; values: SampleBuffer[] } | null,
+  ): void => {
     q0.set(start);
     qd0.fill(0);
     sys.x.set(xStart);
@@ -92,7 +106,10 @@ export function findPeriodicSteadyState(circuit: Circuit | MnaSystem, options: P
       sys.prepareLinearMatrix(a0, t1);
       sys.prepareStepRhs(t1);
       const it = solveNewton(sys, a0, tol, 100);
-      if (it < 0) throw new DomainError('not_converged', `Newton failed inside the shooting period at t = ${t1} s`, null, [{ path: 'timeS', message: String(t1) }]);
+      if (it < 0)
+        throw new DomainError('not_converged', `Newton failed inside the shooting period at t = ${t1} s`, null, [
+          { path: 'timeS', message: String(t1) },
+        ]);
       newtonIterations += it;
       if (step === 0 && record === null && withSensitivity) {
         /* x at the first step is a fine guess for the next period's first step */
@@ -115,7 +132,8 @@ export function findPeriodicSteadyState(circuit: Circuit | MnaSystem, options: P
           w[sys.size] = 0;
           for (let k = 0; k < r; k++) {
             let dq = 0;
-            for (let p = sys.gradientStart[k]!; p < sys.gradientStart[k + 1]!; p++) dq += sys.gradientValue[p]! * w[sys.gradientIndex[p]!]!;
+            for (let p = sys.gradientStart[k]!; p < sys.gradientStart[k + 1]!; p++)
+              dq += sys.gradientValue[p]! * w[sys.gradientIndex[p]!]!;
             sq[j * r + k] = dq;
             sqd[j * r + k] = a0 * dq + sqd[j * r + k]!;
           }
@@ -158,7 +176,7 @@ export function findPeriodicSteadyState(circuit: Circuit | MnaSystem, options: P
     for (let k = 0; k < r; k++) m = Math.max(m, Math.abs(v[k]!));
     return m;
   };
-  let residual = Infinity;
+  let residual: number;
   let iterations = 0;
   let isConverged = false;
   let fallbacks = 0;

@@ -16,7 +16,8 @@ export function waveformValue(w: SourceWaveform, timeS: number): number {
       if (w.periodS > 0) t -= Math.floor(t / w.periodS) * w.periodS;
       if (t < w.riseS) return w.initial + ((w.pulsed - w.initial) * t) / w.riseS;
       if (t <= w.riseS + w.widthS) return w.pulsed;
-      if (t < w.riseS + w.widthS + w.fallS) return w.pulsed + ((w.initial - w.pulsed) * (t - w.riseS - w.widthS)) / w.fallS;
+      if (t < w.riseS + w.widthS + w.fallS)
+        return w.pulsed + ((w.initial - w.pulsed) * (t - w.riseS - w.widthS)) / w.fallS;
       return w.initial;
     }
     case 'pwl': {
@@ -27,7 +28,9 @@ export function waveformValue(w: SourceWaveform, timeS: number): number {
         const b = p[i]!;
         if (timeS <= b.timeS) {
           const a = p[i - 1]!;
-          return b.timeS === a.timeS ? b.value : a.value + ((b.value - a.value) * (timeS - a.timeS)) / (b.timeS - a.timeS);
+          return b.timeS === a.timeS
+            ? b.value
+            : a.value + ((b.value - a.value) * (timeS - a.timeS)) / (b.timeS - a.timeS);
         }
       }
       return p[p.length - 1]!.value;

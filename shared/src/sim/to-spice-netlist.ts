@@ -16,7 +16,8 @@ export function spiceNumber(value: number): string {
 const safe = (name: string): string => name.replace(/[^A-Za-z0-9_]/g, '_');
 const node = (name: string): string => (name === '0' ? '0' : safe(name));
 /** Element name with its SPICE type letter, not doubled when the name already starts with it. */
-const element = (letter: string, name: string): string => (safe(name).toUpperCase().startsWith(letter) ? safe(name) : `${letter}${safe(name)}`);
+const element = (letter: string, name: string): string =>
+  safe(name).toUpperCase().startsWith(letter) ? safe(name) : `${letter}${safe(name)}`;
 
 function waveformText(w: SourceWaveform): string {
   const n = spiceNumber;
@@ -35,9 +36,14 @@ function waveformText(w: SourceWaveform): string {
 function diodeModelText(name: string, m: DiodeModel): string {
   const n = spiceNumber;
   const parts = [`IS=${n(m.saturationCurrentA)}`, `N=${n(m.emissionCoefficient)}`, `RS=${n(m.seriesResistanceOhm)}`];
-  if (m.breakdownVoltageV !== undefined) parts.push(`BV=${n(m.breakdownVoltageV)}`, `IBV=${n(m.breakdownCurrentA ?? 1e-3)}`);
+  if (m.breakdownVoltageV !== undefined)
+    parts.push(`BV=${n(m.breakdownVoltageV)}`, `IBV=${n(m.breakdownCurrentA ?? 1e-3)}`);
   if (m.junctionCapacitanceF) {
-    parts.push(`CJO=${n(m.junctionCapacitanceF)}`, `VJ=${n(m.junctionPotentialV ?? 1)}`, `M=${n(m.gradingCoefficient ?? 0.5)}`);
+    parts.push(
+      `CJO=${n(m.junctionCapacitanceF)}`,
+      `VJ=${n(m.junctionPotentialV ?? 1)}`,
+      `M=${n(m.gradingCoefficient ?? 0.5)}`,
+    );
   }
   if (m.transitTimeS) parts.push(`TT=${n(m.transitTimeS)}`);
   return `.model ${name} D(${parts.join(' ')})`;
@@ -70,12 +76,16 @@ export function toSpiceNetlist(circuit: Circuit, options: SpiceExportOptions = {
         lines.push(`${element('R', e.name)} ${node(e.nodeA)} ${node(e.nodeB)} ${n(e.resistanceOhm)}`);
         break;
       case 'capacitor':
-        lines.push(`${element('C', e.name)} ${node(e.nodeA)} ${node(e.nodeB)} ${n(e.capacitanceF)} IC=${n(e.initialVoltageV ?? 0)}`);
+        lines.push(
+          `${element('C', e.name)} ${node(e.nodeA)} ${node(e.nodeB)} ${n(e.capacitanceF)} IC=${n(e.initialVoltageV ?? 0)}`,
+        );
         break;
       case 'inductor': {
         const r = e.resistanceOhm ?? 0;
         const mid = r > 0 ? `${id}_r` : node(e.nodeB);
-        lines.push(`${element('L', e.name)} ${node(e.nodeA)} ${mid} ${n(e.inductanceH)} IC=${n(e.initialCurrentA ?? 0)}`);
+        lines.push(
+          `${element('L', e.name)} ${node(e.nodeA)} ${mid} ${n(e.inductanceH)} IC=${n(e.initialCurrentA ?? 0)}`,
+        );
         if (r > 0) lines.push(`RL${id} ${mid} ${node(e.nodeB)} ${n(r)}`);
         break;
       }
@@ -87,7 +97,8 @@ export function toSpiceNetlist(circuit: Circuit, options: SpiceExportOptions = {
           if (w.resistanceOhm > 0) lines.push(`RW${id}_${safe(w.name)} ${mid} ${node(w.nodeB)} ${n(w.resistanceOhm)}`);
         });
         for (let i = 0; i < names.length; i++) {
-          for (let j = i + 1; j < names.length; j++) lines.push(`K${id}_${i}_${j} ${names[i]} ${names[j]} ${n(e.couplingCoefficient)}`);
+          for (let j = i + 1; j < names.length; j++)
+            lines.push(`K${id}_${i}_${j} ${names[i]} ${names[j]} ${n(e.couplingCoefficient)}`);
         }
         break;
       }

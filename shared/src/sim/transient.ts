@@ -1,5 +1,11 @@
 import { DomainError } from '../errors';
-import type { Circuit, IntegrationMethod, SimulationTolerances, TransientOptions, TransientResult } from './circuit.types';
+import type {
+  Circuit,
+  IntegrationMethod,
+  SimulationTolerances,
+  TransientOptions,
+  TransientResult,
+} from './circuit.types';
 import { MnaSystem } from './mna-system';
 
 /** SPICE's default tolerances (reltol, vntol, abstol, chgtol, trtol), and its transient Newton limit raised. */
@@ -17,7 +23,12 @@ export const DEFAULT_TOLERANCES: SimulationTolerances = {
  * junction voltage was limited. x holds the initial guess and receives the solution. Returns the number
  * of iterations, or −1 when it did not converge.
  */
-export function solveNewton(system: MnaSystem, a0: number, tolerances: SimulationTolerances, maxIterations: number): number {
+export function solveNewton(
+  system: MnaSystem,
+  a0: number,
+  tolerances: SimulationTolerances,
+  maxIterations: number,
+): number {
   const x = system.x;
   const n = system.size;
   const isVoltage = nodeMask(system);
@@ -32,7 +43,9 @@ export function solveNewton(system: MnaSystem, a0: number, tolerances: Simulatio
       if (!Number.isFinite(xn)) return -1;
       if (converged) {
         const xo = x[i]!;
-        const tol = tolerances.relative * Math.max(Math.abs(xn), Math.abs(xo)) + (isVoltage[i] ? tolerances.voltageAbsoluteV : tolerances.currentAbsoluteA * 1e3);
+        const tol =
+          tolerances.relative * Math.max(Math.abs(xn), Math.abs(xo)) +
+          (isVoltage[i] ? tolerances.voltageAbsoluteV : tolerances.currentAbsoluteA * 1e3);
         if (Math.abs(xn - xo) > tol) converged = false;
       }
       x[i] = xn;
@@ -108,7 +121,15 @@ export class TransientStepper {
   private useBackwardEulerNext = true;
   private nextBreakS: number;
 
-  constructor(system: MnaSystem, options: { maxStepS: number; method?: IntegrationMethod; tolerances?: Partial<SimulationTolerances>; startTimeS?: number }) {
+  constructor(
+    system: MnaSystem,
+    options: {
+      maxStepS: number;
+      method?: IntegrationMethod;
+      tolerances?: Partial<SimulationTolerances>;
+      startTimeS?: number;
+    },
+  ) {
     if (!(options.maxStepS > 0)) throw new DomainError('invalid_argument', 'maxStepS must be positive', 'maxStepS');
     this.system = system;
     this.maxStepS = options.maxStepS;
@@ -175,7 +196,10 @@ export class TransientStepper {
       } else if (this.timeS + 2 * h > limitS) {
         h = (limitS - this.timeS) / 2;
       }
-      if (!(h > 0)) throw new DomainError('not_converged', 'time step collapsed', null, [{ path: 'timeS', message: String(this.timeS) }]);
+      if (!(h > 0))
+        throw new DomainError('not_converged', 'time step collapsed', null, [
+          { path: 'timeS', message: String(this.timeS) },
+        ]);
       const t1 = this.timeS + h;
       const isEuler = this.useBackwardEulerNext || this.historyCount < 1;
       const a0 = this.setHistory(h, isEuler);

@@ -17,7 +17,12 @@ export function windowMean(timeS: ArrayLike<number>, values: ArrayLike<number>, 
 }
 
 /** Peak-to-peak of the samples within [fromS, toS]. */
-export function windowPeakToPeak(timeS: ArrayLike<number>, values: ArrayLike<number>, fromS: number, toS: number): number {
+export function windowPeakToPeak(
+  timeS: ArrayLike<number>,
+  values: ArrayLike<number>,
+  fromS: number,
+  toS: number,
+): number {
   let lo = Infinity;
   let hi = -Infinity;
   for (let i = 0; i < timeS.length; i++) {
@@ -30,7 +35,12 @@ export function windowPeakToPeak(timeS: ArrayLike<number>, values: ArrayLike<num
 }
 
 /** Times (linearly interpolated) at which the signal rises through `level`, after fromS. */
-export function risingCrossings(timeS: ArrayLike<number>, values: ArrayLike<number>, level: number, fromS = -Infinity): number[] {
+export function risingCrossings(
+  timeS: ArrayLike<number>,
+  values: ArrayLike<number>,
+  level: number,
+  fromS = -Infinity,
+): number[] {
   const out: number[] = [];
   for (let i = 1; i < timeS.length; i++) {
     if (timeS[i]! < fromS) continue;
@@ -42,7 +52,12 @@ export function risingCrossings(timeS: ArrayLike<number>, values: ArrayLike<numb
 }
 
 /** First time after fromS at which the signal falls to `level` or below (interpolated); NaN if never. */
-export function firstFallTo(timeS: ArrayLike<number>, values: ArrayLike<number>, level: number, fromS = -Infinity): number {
+export function firstFallTo(
+  timeS: ArrayLike<number>,
+  values: ArrayLike<number>,
+  level: number,
+  fromS = -Infinity,
+): number {
   for (let i = 1; i < timeS.length; i++) {
     if (timeS[i]! < fromS) continue;
     const a = values[i - 1]!;

@@ -16,8 +16,20 @@ describe('engine steady state agrees with the simulator', () => {
     { name: 'odd cell count 3', capacitorsF: [10e-9, 10e-9, 10e-9] },
     { name: 'odd cell count 5', capacitorsF: [10e-9, 10e-9, 10e-9, 10e-9, 10e-9] },
   ])('$name', ({ capacitorsF }) => {
-    const engine = analyzeLadder({ topology: 'half-wave', capacitorsF, drive, diode, polarity: 1, load, bleederOhm: null, seriesOutputResistanceOhm: 0 });
-    const sim = runLadder({ topology: 'half-wave', cellCount: capacitorsF.length, capacitorsF, diode, drive, load }, { until: 'steady', maxStepPerPeriod: 200 });
+    const engine = analyzeLadder({
+      topology: 'half-wave',
+      capacitorsF,
+      drive,
+      diode,
+      polarity: 1,
+      load,
+      bleederOhm: null,
+      seriesOutputResistanceOhm: 0,
+    });
+    const sim = runLadder(
+      { topology: 'half-wave', cellCount: capacitorsF.length, capacitorsF, diode, drive, load },
+      { until: 'steady', maxStepPerPeriod: 200 },
+    );
     expect(sim.method).toBe('periodic-steady-state');
     expect(Math.abs(engine.outputMeanV / sim.outputMeanV - 1)).toBeLessThan(0.006);
     expect(Math.abs(engine.ripplePeakToPeakV / sim.ripplePeakToPeakV - 1)).toBeLessThan(0.05);

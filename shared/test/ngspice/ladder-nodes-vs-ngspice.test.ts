@@ -14,7 +14,8 @@ import { hasNgspice, runNgspice } from './run-ngspice';
 // and our simulator's periodic steady state. Node ids are the circuit's node names, so the engine's
 // nodes are matched to the simulators' vectors by name.
 const ngspiceAvailable = hasNgspice();
-if (!ngspiceAvailable) console.warn('ngspice not found on PATH: the ngspice reference tests are skipped (CI installs it).');
+if (!ngspiceAvailable)
+  console.warn('ngspice not found on PATH: the ngspice reference tests are skipped (CI installs it).');
 
 const diode = { saturationCurrentA: 1e-9, emissionCoefficient: 1.8, seriesResistanceOhm: 1 };
 const f = 20e3;
@@ -54,16 +55,30 @@ function nodeCase(
 
 const cases: NodeCase[] = [
   // 0.5 mA: about 10 % droop of 3 kV by the textbook ΔV0 (REFERENCES.md §1) with 10 nF at 20 kHz.
-  nodeCase('3-stage half-wave ladder, 0.5 mA load', Array<number>(6).fill(10e-9), { load: { kind: 'current', currentA: 0.5e-3 }, bleederOhm: null, seriesOutputResistanceOhm: 0 }),
+  nodeCase('3-stage half-wave ladder, 0.5 mA load', Array<number>(6).fill(10e-9), {
+    load: { kind: 'current', currentA: 0.5e-3 },
+    bleederOhm: null,
+    seriesOutputResistanceOhm: 0,
+  }),
   nodeCase('3-cell half-wave ladder, bleeder, series resistor and 1 MΩ load', Array<number>(3).fill(10e-9), {
     load: { kind: 'resistance', resistanceOhm: 1e6 },
     bleederOhm: 2e6,
     seriesOutputResistanceOhm: 10e3,
   }),
-  nodeCase('2-stage full-wave cascade, 1 mA load', Array<number>(6).fill(10e-9), { load: { kind: 'current', currentA: 1e-3 }, bleederOhm: null, seriesOutputResistanceOhm: 0 }, 'full-wave'),
+  nodeCase(
+    '2-stage full-wave cascade, 1 mA load',
+    Array<number>(6).fill(10e-9),
+    { load: { kind: 'current', currentA: 1e-3 }, bleederOhm: null, seriesOutputResistanceOhm: 0 },
+    'full-wave',
+  ),
   // 1 mA: at 10 mA (ripple a tenth of the output) the engine's output itself reads 1.2 % below both
   // simulators (measured when this test was written), outside the 1 % this check is about.
-  nodeCase('bridge doubler, 1 MΩ load', [10e-9, 10e-9], { load: { kind: 'resistance', resistanceOhm: 1e6 }, bleederOhm: null, seriesOutputResistanceOhm: 0 }, 'bridge-doubler'),
+  nodeCase(
+    'bridge doubler, 1 MΩ load',
+    [10e-9, 10e-9],
+    { load: { kind: 'resistance', resistanceOhm: 1e6 }, bleederOhm: null, seriesOutputResistanceOhm: 0 },
+    'bridge-doubler',
+  ),
 ];
 
 describe.skipIf(!ngspiceAvailable)('ladder node voltages: engine against ngspice and our simulator', () => {
@@ -76,9 +91,17 @@ describe.skipIf(!ngspiceAvailable)('ladder node voltages: engine against ngspice
     const windingEnds = spec.topology === 'full-wave' ? 2 : 1;
     expect(ids).toHaveLength(spec.capacitorsF.length + windingEnds + 1);
     const run = { stopTimeS: cycles * periodS, maxStepS: periodS / stepsPerPeriod };
-    const reference = runNgspice(toSpiceNetlist(circuit, { transient: run }), ids.map((id) => `v(${id})`));
+    const reference = runNgspice(
+      toSpiceNetlist(circuit, { transient: run }),
+      ids.map((id) => `v(${id})`),
+    );
     const charges = Float64Array.from(estimateV, (v, i) => v * spec.capacitorsF[i]!);
-    const pss = findPeriodicSteadyState(new MnaSystem(circuit), { periodS, stepsPerPeriod, initialCharges: charges, probes: ids });
+    const pss = findPeriodicSteadyState(new MnaSystem(circuit), {
+      periodS,
+      stepsPerPeriod,
+      initialCharges: charges,
+      probes: ids,
+    });
     expect(pss.isConverged).toBe(true);
     const ng = await reference;
     const from = (cycles - 1) * periodS;
@@ -95,8 +118,12 @@ describe.skipIf(!ngspiceAvailable)('ladder node voltages: engine against ngspice
       // 1 % of the node's mean; a winding end of a grounded winding has zero mean (a sine source), so there
       // the 1 % is of the drive peak (the source-resistance drop of the ladder current is millivolts).
       const scaleV = Math.max(Math.abs(ngMean), node.column === 'source' ? drive.peakV : 0);
-      expect(Math.abs(node.meanV - ngMean), `${node.id}: engine ${node.meanV}, ngspice ${ngMean}`).toBeLessThan(0.01 * scaleV);
-      expect(Math.abs(node.meanV - ourMean), `${node.id}: engine ${node.meanV}, simulator ${ourMean}`).toBeLessThan(0.01 * scaleV);
+      expect(Math.abs(node.meanV - ngMean), `${node.id}: engine ${node.meanV}, ngspice ${ngMean}`).toBeLessThan(
+        0.01 * scaleV,
+      );
+      expect(Math.abs(node.meanV - ourMean), `${node.id}: engine ${node.meanV}, simulator ${ourMean}`).toBeLessThan(
+        0.01 * scaleV,
+      );
     }
   });
 });

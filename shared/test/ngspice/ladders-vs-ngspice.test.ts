@@ -7,7 +7,8 @@ import { hasNgspice, runNgspice } from './run-ngspice';
 
 // Outside reference: ngspice (REFERENCES.md §7) on the very netlist our exporter writes.
 const ngspiceAvailable = hasNgspice();
-if (!ngspiceAvailable) console.warn('ngspice not found on PATH: the ngspice reference tests are skipped (CI installs it).');
+if (!ngspiceAvailable)
+  console.warn('ngspice not found on PATH: the ngspice reference tests are skipped (CI installs it).');
 
 const diode = { saturationCurrentA: 1e-9, emissionCoefficient: 1.8, seriesResistanceOhm: 1 };
 const f = 20e3;
@@ -36,7 +37,10 @@ function halfWave(stages: number, loadFraction: number, caps?: number[], cells =
       capacitorsF,
       diode,
       drive: { kind: 'sine', peakV: 500, frequencyHz: f, sourceResistanceOhm: 10 },
-      load: loadFraction > 0 ? { kind: 'current', currentA: droopCurrentA(Math.max(1, cells / 2), 500, 10e-9, loadFraction) } : null,
+      load:
+        loadFraction > 0
+          ? { kind: 'current', currentA: droopCurrentA(Math.max(1, cells / 2), 500, 10e-9, loadFraction) }
+          : null,
     },
     cycles: 60 + 20 * cells,
     isLoaded: loadFraction > 0,

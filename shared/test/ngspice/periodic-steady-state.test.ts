@@ -28,10 +28,20 @@ describe('periodic steady state by shooting agrees with a long transient', () =>
     const circuit = buildLadderCircuit(spec);
     const system = new MnaSystem(circuit);
     const charges = Float64Array.from(idealCapacitorVoltagesV(spec), (v, i) => v * spec.capacitorsF[i]!);
-    const pss = findPeriodicSteadyState(system, { periodS, stepsPerPeriod: 200, initialCharges: charges, probes: ['top'] });
+    const pss = findPeriodicSteadyState(system, {
+      periodS,
+      stepsPerPeriod: 200,
+      initialCharges: charges,
+      probes: ['top'],
+    });
     expect(pss.isConverged).toBe(true);
     expect(pss.relativeResidual).toBeLessThan(1e-5);
-    const long = simulateTransient(circuit, { stopTimeS: cycles * periodS, maxStepS: periodS / 200, probes: ['top'], recordFromS: (cycles - 1) * periodS });
+    const long = simulateTransient(circuit, {
+      stopTimeS: cycles * periodS,
+      maxStepS: periodS / 200,
+      probes: ['top'],
+      recordFromS: (cycles - 1) * periodS,
+    });
     const from = (cycles - 1) * periodS;
     const longMean = windowMean(long.timeS, long.signals.top!, from, cycles * periodS);
     const pssMean = windowMean(pss.timeS, pss.signals.top!, 0, periodS);

@@ -48,7 +48,12 @@ export function evaluateDiode(model: DiodeModel, voltageV: number, out: DiodeOpe
  * falling back to bisection whenever a step leaves it (so no exponential is ever evaluated out of range).
  * Leaves `out` at the root.
  */
-export function solveSeriesJunctionV(model: DiodeModel, terminalV: number, guessV: number, out: DiodeOperatingPoint): number {
+export function solveSeriesJunctionV(
+  model: DiodeModel,
+  terminalV: number,
+  guessV: number,
+  out: DiodeOperatingPoint,
+): number {
   const rs = model.seriesResistanceOhm;
   const vte = model.emissionCoefficient * thermalVoltageV;
   const u = terminalV;
@@ -56,7 +61,8 @@ export function solveSeriesJunctionV(model: DiodeModel, terminalV: number, guess
   let hi = Math.max(u, 0);
   if (u > 0) hi = Math.min(hi, vte * Math.log1p(u / (rs * model.saturationCurrentA)));
   const bv = model.breakdownVoltageV;
-  if (u < 0 && bv !== undefined && bv > 0) lo = Math.max(lo, -bv - vte * Math.log1p(-u / (rs * (model.breakdownCurrentA ?? 1e-3))));
+  if (u < 0 && bv !== undefined && bv > 0)
+    lo = Math.max(lo, -bv - vte * Math.log1p(-u / (rs * (model.breakdownCurrentA ?? 1e-3))));
   let v = Math.min(hi, Math.max(lo, guessV));
   const tolerance = 1e-12 * (1 + Math.abs(u));
   for (let k = 0; k < 200; k++) {

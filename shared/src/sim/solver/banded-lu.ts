@@ -119,7 +119,7 @@ export class BandedLu {
     const inverse = this.inversePivots;
     for (let j = 0; j < n; j++) {
       const p = this.pivots[j]!;
-      let bj = b[p]!;
+      const bj = b[p]!;
       if (p !== j) {
         b[p] = b[j]!;
         b[j] = bj;

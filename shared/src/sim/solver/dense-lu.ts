@@ -5,7 +5,10 @@ export function solveDense(a: Float64Array, b: Float64Array, n: number): void {
   for (let k = 0; k < n; k++) {
     let p = k;
     for (let i = k + 1; i < n; i++) if (Math.abs(a[i * n + k]!) > Math.abs(a[p * n + k]!)) p = i;
-    if (a[p * n + k] === 0) throw new DomainError('not_converged', 'singular shooting Jacobian', null, [{ path: `state[${k}]`, message: 'zero pivot' }]);
+    if (a[p * n + k] === 0)
+      throw new DomainError('not_converged', 'singular shooting Jacobian', null, [
+        { path: `state[${k}]`, message: 'zero pivot' },
+      ]);
     if (p !== k) {
       for (let j = 0; j < n; j++) {
         const t = a[k * n + j]!;

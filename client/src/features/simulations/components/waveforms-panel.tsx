@@ -62,7 +62,9 @@ const traceLabels: Readonly<Record<string, string>> = {
 
 /** A run of a driver design: it carries the oscillator's traces (collector, secondary, primary current). */
 export function isDriverRun(result: SimulationResult): boolean {
-  return result.waveforms.some((w) => w.name === collectorTrace || w.name === secondaryTrace || w.name === primaryCurrentTrace);
+  return result.waveforms.some(
+    (w) => w.name === collectorTrace || w.name === secondaryTrace || w.name === primaryCurrentTrace,
+  );
 }
 
 /** The safe level to draw on a run's discharge plot: the level the run discharged to, else the design's target. */
