@@ -48,7 +48,7 @@ export interface BlockingOscillatorEstimate {
 const defaultCollectorNodeCapacitanceF = 100e-12;
 
 const source3 =
-  'REFERENCES.md §3: Wikipedia "Blocking oscillator" (read); Pressman, Switching Power Supply Design, 3rd ed. (from memory)';
+  'Wikipedia "Blocking oscillator" (read); Pressman, Switching Power Supply Design, 3rd ed. (from memory)';
 const commonAssumptions = [
   'supply bypassed: the stage sees the mean loaded supply voltage',
   'magnetizing inductance ≈ primary inductance (k close to 1)',
@@ -222,7 +222,7 @@ export function estimateBlockingOscillator(
         'bo.base-current',
         'I_B = (Vin + (Vin − Vce,sat)·N_b/N_p − V_BE)/(R_B + R_fb); feedback winding returned to the supply rail.',
         ['V_BE constant'],
-        'REFERENCES.md §3 base drive (common practice)',
+        'base drive V_B ≈ Vin·Nb/Np, I_B = (V_B − V_BE)/R_B (common practice, no source)',
       ),
     ),
     onTimeLimit: r.limit,

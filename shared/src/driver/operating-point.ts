@@ -158,7 +158,8 @@ export const OPERATING_POINT_METHOD: MethodInfo = {
     'g taken at the clamp-limited drive and held through the solve',
     'ladder: the steady-state charge-transfer model of the actual topology, capacitors, diodes and bleeder',
   ],
-  source: 'Energy conservation per cycle; REFERENCES.md §3 (E = ½ Lp Ipk², P = E f η); ladder by charge-transfer-v1',
+  source:
+    'Energy conservation per cycle: E = ½ Lp Ipk², P = E f η (common practice; Pressman, Switching Power Supply Design, from memory); ladder by charge-transfer-v1',
 };
 
 function driveOf(e: BlockingOscillatorEstimate): LadderDrive {

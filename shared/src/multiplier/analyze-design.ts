@@ -116,7 +116,8 @@ const DRIVER_METHOD: MethodInfo = {
     'the secondary is taken as a voltage source at the estimated peaks behind the secondary winding resistance',
     'the driver’s deliverable power is checked against what the ladder draws',
   ],
-  source: 'shared/src/driver estimateBlockingOscillator (REFERENCES.md §3)',
+  source:
+    'closed-form blocking-oscillator estimate: i = (Vin − Vce,sat)·t/Lp, E = ½·Lp·Ipk² (Wikipedia "Blocking oscillator", read; Pressman, from memory)',
 };
 
 /** Resolves the drive of a design into the waveform the ladder model takes. */

@@ -10,7 +10,7 @@ const TEXTBOOK_METHOD: MethodInfo = {
     'ripple is peak-to-peak; the half-wave ΔV0 is the drop of the peak output, the doubler drop is to the mean',
   ],
   source:
-    'J. Lux, "Cockcroft Walton Voltage Multipliers" (read); FOSSEE Scilab companions (read); Kuffel, Zaengl & Kuffel §2.2.2 (from memory); REFERENCES.md §1–2',
+    'J. Lux, "Cockcroft Walton Voltage Multipliers" (read); FOSSEE Scilab companions (read); Kuffel, Zaengl & Kuffel §2.2.2 (from memory)',
 };
 
 function allEqual(values: readonly number[]): boolean {

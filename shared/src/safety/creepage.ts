@@ -23,7 +23,7 @@ export const CREEPAGE_TABLE_F4_MM: Readonly<Record<CreepageColumn, readonly (num
 };
 
 export const CREEPAGE_METHOD_TEXT =
-  'IEC 60664-1:2007 Table F.4 (rows 250/500/1000/2000 V as reproduced in REFERENCES.md §5), log-log interpolation between rows; below 250 V and above the last row log-log extrapolation along the nearest segment (the standard has more rows: check against it); DC working voltage taken as rms';
+  'IEC 60664-1:2007 Table F.4 (rows 250/500/1000/2000 V as reproduced in a manufacturer’s technical appendix), log-log interpolation between rows; below 250 V and above the last row log-log extrapolation along the nearest segment (the standard has more rows: check against it); DC working voltage taken as rms';
 
 /** Picks the Table F.4 column for an environment; printed-wiring columns apply to PD1/PD2 up to 1000 V. */
 export function creepageColumn(

@@ -13,7 +13,7 @@ export const DISCHARGE_METHOD: MethodInfo = {
     'diode forward drops and leakage neglected; the bleeder is the only discharge path',
     'verdict marginal when the time uses more than 80 % of the allowance',
   ],
-  source: 'REFERENCES.md §4 (NFPA 70 Art. 460.6, NFPA 79 6.5.1 read; NEC 460.28 from memory)',
+  source: 'NFPA 70 Art. 460.6 and NFPA 79 6.5.1 (read); NEC 460.28 (from memory); V(t) = V0·e^(−t/RC)',
 };
 
 /** A discharge rule as voltage and time, with where it comes from (REFERENCES.md §4). */

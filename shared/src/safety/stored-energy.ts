@@ -17,9 +17,9 @@ export const STORED_ENERGY_METHOD: MethodInfo = {
     'Energy ½CV² and charge CV of each capacitor at its largest operating voltage; at the output, all stored energy as deliverable (energy-equivalent capacitance 2E/V²), compared with the IEC 61010-1 and IEC 60335-1 limits.',
   assumptions: [
     'the diodes conduct forward while the ladder discharges through its output, so the oscillating column’s energy also reaches the output (conservative)',
-    'limits: IEC 61010-1 from memory, IEC 60335-1 8.1.4 read (REFERENCES.md §4); verdicts marginal within 20 % of a limit',
+    'limits: IEC 61010-1 from memory, IEC 60335-1 8.1.4 read (quoted text); verdicts marginal within 20 % of a limit',
   ],
-  source: 'REFERENCES.md §4',
+  source: 'IEC 61010-1, 2010 ed. (from memory); IEC 60335-1 8.1.4 (read, quoted text)',
 };
 
 export interface StoredEnergySummary {

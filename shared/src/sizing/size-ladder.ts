@@ -92,7 +92,8 @@ const SIZER_METHOD: MethodInfo = {
     `diodes with PIV rating below 2·Vmax / ${DERATING.diodePiv} are skipped`,
     'bleeder: the largest string from the resistor list that meets the discharge rule within its voltage and power ratings',
   ],
-  source: 'steady-state method charge-transfer-v1; REFERENCES.md §1–2, §4, §6',
+  source:
+    'steady-state method charge-transfer-v1; cascade closed forms (J. Lux, read; Kuffel, Zaengl & Kuffel, from memory); IEC 61010-1 / IEC 60335-1 stored-energy limits; IEC 60063 preferred values',
 };
 
 const STANDARD_CAPACITOR_RATINGS_V = [
