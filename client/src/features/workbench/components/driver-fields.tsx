@@ -9,6 +9,7 @@ import type {
 import { driverExamples } from '@ladderwright/shared/driver';
 import type { QuantityUnit } from '@ladderwright/shared/units';
 import { QuantityInput } from '../../../components/quantity-input';
+import { binder } from '../document-path';
 
 export interface DriverFieldsProps {
   driver: DriverStage;
@@ -162,8 +163,9 @@ function SubHeading({ children }: { children: string }) {
  * switching transistor, base resistor, collector clamp and the battery-life target.
  */
 export function DriverFields({ driver, onDriver, issue }: DriverFieldsProps) {
-  const { supply, transformer: tx, transistor: q, clamp } = driver;
+  const { supply, transformer: tx, clamp } = driver;
   const supplyIssue = issue(`${p}.supply`);
+  const bind = binder(driver, onDriver);
   return (
     <Stack gap="sm">
       <SubHeading>Supply</SubHeading>
@@ -204,54 +206,15 @@ export function DriverFields({ driver, onDriver, issue }: DriverFieldsProps) {
               })
             }
           />
-          <DriverNumber
-            label="Cells in series"
-            value={supply.cellsInSeries}
-            path="supply.cellsInSeries"
-            isInteger
-            issue={issue}
-            onValue={(v) =>
-              onDriver((dr) => {
-                if (dr.supply.kind === 'cells') dr.supply.cellsInSeries = v;
-              })
-            }
-          />
-          <DriverNumber
-            label="Cell capacity (Ah)"
-            value={supply.capacityAh}
-            path="supply.capacityAh"
-            step={0.1}
-            issue={issue}
-            onValue={(v) =>
-              onDriver((dr) => {
-                if (dr.supply.kind === 'cells') dr.supply.capacityAh = v;
-              })
-            }
-          />
+          <DriverNumber label="Cells in series" isInteger issue={issue} {...bind('supply.cellsInSeries')} />
+          <DriverNumber label="Cell capacity (Ah)" step={0.1} issue={issue} {...bind('supply.capacityAh')} />
           <DriverQuantity
             label="Internal resistance per cell"
             unit="Ohm"
-            value={supply.internalResistanceOhm}
-            path="supply.internalResistanceOhm"
             issue={issue}
-            onValue={(v) =>
-              onDriver((dr) => {
-                if (dr.supply.kind === 'cells') dr.supply.internalResistanceOhm = v;
-              })
-            }
+            {...bind('supply.internalResistanceOhm')}
           />
-          <DriverQuantity
-            label="End voltage per cell"
-            unit="V"
-            value={supply.endVoltagePerCellV}
-            path="supply.endVoltagePerCellV"
-            issue={issue}
-            onValue={(v) =>
-              onDriver((dr) => {
-                if (dr.supply.kind === 'cells') dr.supply.endVoltagePerCellV = v;
-              })
-            }
-          />
+          <DriverQuantity label="End voltage per cell" unit="V" issue={issue} {...bind('supply.endVoltagePerCellV')} />
           <NumberInput
             label="Battery-life target (h)"
             placeholder="no target"
@@ -270,29 +233,12 @@ export function DriverFields({ driver, onDriver, issue }: DriverFieldsProps) {
         </SimpleGrid>
       ) : (
         <SimpleGrid cols={{ base: 1, sm: 3 }} spacing="sm">
-          <DriverQuantity
-            label="Supply voltage"
-            unit="V"
-            value={supply.voltageV}
-            path="supply.voltageV"
-            issue={issue}
-            onValue={(v) =>
-              onDriver((dr) => {
-                if (dr.supply.kind === 'dc') dr.supply.voltageV = v;
-              })
-            }
-          />
+          <DriverQuantity label="Supply voltage" unit="V" issue={issue} {...bind('supply.voltageV')} />
           <DriverQuantity
             label="Supply source resistance"
             unit="Ohm"
-            value={supply.sourceResistanceOhm}
-            path="supply.sourceResistanceOhm"
             issue={issue}
-            onValue={(v) =>
-              onDriver((dr) => {
-                if (dr.supply.kind === 'dc') dr.supply.sourceResistanceOhm = v;
-              })
-            }
+            {...bind('supply.sourceResistanceOhm')}
           />
         </SimpleGrid>
       )}
@@ -300,14 +246,7 @@ export function DriverFields({ driver, onDriver, issue }: DriverFieldsProps) {
       <SubHeading>Transformer</SubHeading>
       <SimpleGrid cols={{ base: 1, sm: 3 }} spacing="sm">
         {transformerFields.map((field) => (
-          <PlainField
-            key={field.key}
-            field={field}
-            value={tx[field.key]}
-            path={`transformer.${field.key}`}
-            issue={issue}
-            onValue={(v) => onDriver((dr) => void (dr.transformer[field.key] = v))}
-          />
+          <PlainField key={field.key} field={field} issue={issue} {...bind(`transformer.${field.key}`)} />
         ))}
         <DriverQuantity
           label="Secondary insulation rating"
@@ -322,27 +261,13 @@ export function DriverFields({ driver, onDriver, issue }: DriverFieldsProps) {
       <SubHeading>Transistor</SubHeading>
       <SimpleGrid cols={{ base: 1, sm: 3 }} spacing="sm">
         {transistorFields.map((field) => (
-          <PlainField
-            key={field.key}
-            field={field}
-            value={q[field.key]}
-            path={`transistor.${field.key}`}
-            issue={issue}
-            onValue={(v) => onDriver((dr) => void (dr.transistor[field.key] = v))}
-          />
+          <PlainField key={field.key} field={field} issue={issue} {...bind(`transistor.${field.key}`)} />
         ))}
       </SimpleGrid>
 
       <SubHeading>Base resistor and collector clamp</SubHeading>
       <SimpleGrid cols={{ base: 1, sm: 3 }} spacing="sm">
-        <DriverQuantity
-          label="Base resistor"
-          unit="Ohm"
-          value={driver.baseResistorOhm}
-          path="baseResistorOhm"
-          issue={issue}
-          onValue={(v) => onDriver((dr) => void (dr.baseResistorOhm = v))}
-        />
+        <DriverQuantity label="Base resistor" unit="Ohm" issue={issue} {...bind('baseResistorOhm')} />
         <Select
           label="Clamp"
           value={clamp?.kind ?? 'none'}
@@ -361,42 +286,11 @@ export function DriverFields({ driver, onDriver, issue }: DriverFieldsProps) {
             })
           }
         />
-        {clamp && (
-          <DriverQuantity
-            label="Clamp voltage"
-            unit="V"
-            value={clamp.clampVoltageV}
-            path="clamp.clampVoltageV"
-            issue={issue}
-            onValue={(v) => onDriver((dr) => void (dr.clamp && (dr.clamp.clampVoltageV = v)))}
-          />
-        )}
+        {clamp && <DriverQuantity label="Clamp voltage" unit="V" issue={issue} {...bind('clamp.clampVoltageV')} />}
         {clamp?.kind === 'rcd' && (
           <>
-            <DriverQuantity
-              label="Clamp resistor"
-              unit="Ohm"
-              value={clamp.resistorOhm ?? Number.NaN}
-              path="clamp.resistorOhm"
-              issue={issue}
-              onValue={(v) =>
-                onDriver((dr) => {
-                  if (dr.clamp?.kind === 'rcd') dr.clamp.resistorOhm = v;
-                })
-              }
-            />
-            <DriverQuantity
-              label="Clamp capacitor"
-              unit="F"
-              value={clamp.capacitorF ?? Number.NaN}
-              path="clamp.capacitorF"
-              issue={issue}
-              onValue={(v) =>
-                onDriver((dr) => {
-                  if (dr.clamp?.kind === 'rcd') dr.clamp.capacitorF = v;
-                })
-              }
-            />
+            <DriverQuantity label="Clamp resistor" unit="Ohm" issue={issue} {...bind('clamp.resistorOhm')} />
+            <DriverQuantity label="Clamp capacitor" unit="F" issue={issue} {...bind('clamp.capacitorF')} />
           </>
         )}
       </SimpleGrid>

@@ -17,6 +17,7 @@ import { capacitorCountFor, type Design, type DischargeRule, type Topology } fro
 import { driverExamples } from '@ladderwright/shared/driver';
 import type { QuantityUnit } from '@ladderwright/shared/units';
 import { QuantityInput } from '../../../components/quantity-input';
+import { binder } from '../document-path';
 import { resizeCapacitors } from '../ladder-edits';
 import { withShelfPart } from '../shelf-picks';
 import { PartCodeInput } from './part-code-input';
@@ -106,7 +107,7 @@ interface ShelfProps {
   onDocument: (document: Design) => void;
 }
 
-/** A quantity field bound to one document path. */
+/** A quantity field bound to one document path (spread `bind(path)` into it). */
 function Field({
   label,
   unit,
@@ -127,6 +128,7 @@ function Field({
 
 function DriveSection({ document, edit, issue }: SectionProps) {
   const drive = document.drive;
+  const bind = binder(document, edit);
   const setKind = (kind: string) =>
     edit((d) => {
       const frequencyHz = d.drive.kind === 'driver' ? 25e3 : d.drive.frequencyHz;
@@ -159,70 +161,15 @@ function DriveSection({ document, edit, issue }: SectionProps) {
         />
         {drive.kind === 'sine' && (
           <SimpleGrid cols={{ base: 1, sm: 3 }} spacing="sm">
-            <Field
-              label="Secondary peak"
-              unit="V"
-              value={drive.peakV}
-              path="drive.peakV"
-              issue={issue}
-              onValue={(v) =>
-                edit((d) => {
-                  if (d.drive.kind === 'sine') d.drive.peakV = v;
-                })
-              }
-            />
-            <Field
-              label="Frequency"
-              unit="Hz"
-              value={drive.frequencyHz}
-              path="drive.frequencyHz"
-              issue={issue}
-              onValue={(v) =>
-                edit((d) => {
-                  if (d.drive.kind === 'sine') d.drive.frequencyHz = v;
-                })
-              }
-            />
-            <Field
-              label="Source resistance"
-              unit="Ohm"
-              value={drive.sourceResistanceOhm}
-              path="drive.sourceResistanceOhm"
-              issue={issue}
-              onValue={(v) =>
-                edit((d) => {
-                  if (d.drive.kind === 'sine') d.drive.sourceResistanceOhm = v;
-                })
-              }
-            />
+            <Field label="Secondary peak" unit="V" issue={issue} {...bind('drive.peakV')} />
+            <Field label="Frequency" unit="Hz" issue={issue} {...bind('drive.frequencyHz')} />
+            <Field label="Source resistance" unit="Ohm" issue={issue} {...bind('drive.sourceResistanceOhm')} />
           </SimpleGrid>
         )}
         {drive.kind === 'pulse' && (
           <SimpleGrid cols={{ base: 1, sm: 3 }} spacing="sm">
-            <Field
-              label="Forward peak"
-              unit="V"
-              value={drive.forwardPeakV}
-              path="drive.forwardPeakV"
-              issue={issue}
-              onValue={(v) =>
-                edit((d) => {
-                  if (d.drive.kind === 'pulse') d.drive.forwardPeakV = v;
-                })
-              }
-            />
-            <Field
-              label="Flyback peak"
-              unit="V"
-              value={drive.flybackPeakV}
-              path="drive.flybackPeakV"
-              issue={issue}
-              onValue={(v) =>
-                edit((d) => {
-                  if (d.drive.kind === 'pulse') d.drive.flybackPeakV = v;
-                })
-              }
-            />
+            <Field label="Forward peak" unit="V" issue={issue} {...bind('drive.forwardPeakV')} />
+            <Field label="Flyback peak" unit="V" issue={issue} {...bind('drive.flybackPeakV')} />
             <NumberInput
               label="Duty cycle"
               value={drive.dutyCycle}
@@ -237,30 +184,8 @@ function DriveSection({ document, edit, issue }: SectionProps) {
                 })
               }
             />
-            <Field
-              label="Frequency"
-              unit="Hz"
-              value={drive.frequencyHz}
-              path="drive.frequencyHz"
-              issue={issue}
-              onValue={(v) =>
-                edit((d) => {
-                  if (d.drive.kind === 'pulse') d.drive.frequencyHz = v;
-                })
-              }
-            />
-            <Field
-              label="Source resistance"
-              unit="Ohm"
-              value={drive.sourceResistanceOhm}
-              path="drive.sourceResistanceOhm"
-              issue={issue}
-              onValue={(v) =>
-                edit((d) => {
-                  if (d.drive.kind === 'pulse') d.drive.sourceResistanceOhm = v;
-                })
-              }
-            />
+            <Field label="Frequency" unit="Hz" issue={issue} {...bind('drive.frequencyHz')} />
+            <Field label="Source resistance" unit="Ohm" issue={issue} {...bind('drive.sourceResistanceOhm')} />
           </SimpleGrid>
         )}
         {drive.kind === 'driver' && (
@@ -299,6 +224,7 @@ function LadderSection({
     });
   const diode = m.diode;
   const dp = 'multiplier.diode';
+  const bind = binder(document, edit);
   return (
     <Fieldset legend="Ladder">
       <Stack gap="sm">
@@ -364,54 +290,15 @@ function LadderSection({
           onPick={(part) => onDocument(withShelfPart(document, { kind: 'diode' }, part, parts))}
         />
         <SimpleGrid cols={{ base: 1, sm: 3 }} spacing="sm">
-          <Field
-            label="Rated PIV"
-            unit="V"
-            value={diode.ratedPivV}
-            path={`${dp}.ratedPivV`}
-            issue={issue}
-            onValue={(v) =>
-              edit((d) => {
-                d.multiplier.diode.ratedPivV = v;
-              })
-            }
-          />
+          <Field label="Rated PIV" unit="V" issue={issue} {...bind('multiplier.diode.ratedPivV')} />
           <Field
             label="Rated average current"
             unit="A"
-            value={diode.ratedAverageCurrentA}
-            path={`${dp}.ratedAverageCurrentA`}
             issue={issue}
-            onValue={(v) =>
-              edit((d) => {
-                d.multiplier.diode.ratedAverageCurrentA = v;
-              })
-            }
+            {...bind('multiplier.diode.ratedAverageCurrentA')}
           />
-          <Field
-            label="Rated surge current"
-            unit="A"
-            value={diode.ratedSurgeCurrentA}
-            path={`${dp}.ratedSurgeCurrentA`}
-            issue={issue}
-            onValue={(v) =>
-              edit((d) => {
-                d.multiplier.diode.ratedSurgeCurrentA = v;
-              })
-            }
-          />
-          <Field
-            label="Saturation current"
-            unit="A"
-            value={diode.saturationCurrentA}
-            path={`${dp}.saturationCurrentA`}
-            issue={issue}
-            onValue={(v) =>
-              edit((d) => {
-                d.multiplier.diode.saturationCurrentA = v;
-              })
-            }
-          />
+          <Field label="Rated surge current" unit="A" issue={issue} {...bind('multiplier.diode.ratedSurgeCurrentA')} />
+          <Field label="Saturation current" unit="A" issue={issue} {...bind('multiplier.diode.saturationCurrentA')} />
           <NumberInput
             label="Emission coefficient"
             value={diode.emissionCoefficient}
@@ -425,18 +312,7 @@ function LadderSection({
               })
             }
           />
-          <Field
-            label="Series resistance"
-            unit="Ohm"
-            value={diode.seriesResistanceOhm}
-            path={`${dp}.seriesResistanceOhm`}
-            issue={issue}
-            onValue={(v) =>
-              edit((d) => {
-                d.multiplier.diode.seriesResistanceOhm = v;
-              })
-            }
-          />
+          <Field label="Series resistance" unit="Ohm" issue={issue} {...bind('multiplier.diode.seriesResistanceOhm')} />
         </SimpleGrid>
       </Stack>
     </Fieldset>
@@ -444,8 +320,8 @@ function LadderSection({
 }
 
 function OutputSection({ document, edit, issue, parts, onDocument }: SectionProps & ShelfProps) {
-  const net = document.outputNetwork;
-  const bleeder = net.bleeder;
+  const bleeder = document.outputNetwork.bleeder;
+  const bind = binder(document, edit);
   const bp = 'outputNetwork.bleeder';
   return (
     <Fieldset legend="Output network and load">
@@ -493,41 +369,13 @@ function OutputSection({ document, edit, issue, parts, onDocument }: SectionProp
                 })
               }
             />
-            <Field
-              label="Each resistor"
-              unit="Ohm"
-              value={bleeder.valueOhm}
-              path={`${bp}.valueOhm`}
-              issue={issue}
-              onValue={(v) =>
-                edit((d) => {
-                  if (d.outputNetwork.bleeder) d.outputNetwork.bleeder.valueOhm = v;
-                })
-              }
-            />
-            <Field
-              label="Rated power (each)"
-              unit="W"
-              value={bleeder.ratedPowerW}
-              path={`${bp}.ratedPowerW`}
-              issue={issue}
-              onValue={(v) =>
-                edit((d) => {
-                  if (d.outputNetwork.bleeder) d.outputNetwork.bleeder.ratedPowerW = v;
-                })
-              }
-            />
+            <Field label="Each resistor" unit="Ohm" issue={issue} {...bind('outputNetwork.bleeder.valueOhm')} />
+            <Field label="Rated power (each)" unit="W" issue={issue} {...bind('outputNetwork.bleeder.ratedPowerW')} />
             <Field
               label="Limiting element voltage"
               unit="V"
-              value={bleeder.limitingVoltageV}
-              path={`${bp}.limitingVoltageV`}
               issue={issue}
-              onValue={(v) =>
-                edit((d) => {
-                  if (d.outputNetwork.bleeder) d.outputNetwork.bleeder.limitingVoltageV = v;
-                })
-              }
+              {...bind('outputNetwork.bleeder.limitingVoltageV')}
             />
           </SimpleGrid>
         )}
@@ -535,14 +383,8 @@ function OutputSection({ document, edit, issue, parts, onDocument }: SectionProp
           <Field
             label="Series output resistor"
             unit="Ohm"
-            value={net.seriesOutputResistanceOhm}
-            path="outputNetwork.seriesOutputResistanceOhm"
             issue={issue}
-            onValue={(v) =>
-              edit((d) => {
-                d.outputNetwork.seriesOutputResistanceOhm = v;
-              })
-            }
+            {...bind('outputNetwork.seriesOutputResistanceOhm')}
           />
           <Select
             label="Load"
@@ -562,31 +404,9 @@ function OutputSection({ document, edit, issue, parts, onDocument }: SectionProp
             }
           />
           {document.load.kind === 'current' ? (
-            <Field
-              label="Load current"
-              unit="A"
-              value={document.load.currentA}
-              path="load.currentA"
-              issue={issue}
-              onValue={(v) =>
-                edit((d) => {
-                  if (d.load.kind === 'current') d.load.currentA = v;
-                })
-              }
-            />
+            <Field label="Load current" unit="A" issue={issue} {...bind('load.currentA')} />
           ) : (
-            <Field
-              label="Load resistance"
-              unit="Ohm"
-              value={document.load.resistanceOhm}
-              path="load.resistanceOhm"
-              issue={issue}
-              onValue={(v) =>
-                edit((d) => {
-                  if (d.load.kind === 'resistance') d.load.resistanceOhm = v;
-                })
-              }
-            />
+            <Field label="Load resistance" unit="Ohm" issue={issue} {...bind('load.resistanceOhm')} />
           )}
         </SimpleGrid>
       </Stack>
@@ -597,57 +417,14 @@ function OutputSection({ document, edit, issue, parts, onDocument }: SectionProp
 function TargetsSection({ document, edit, issue }: SectionProps) {
   const t = document.targets;
   const rule = typeof t.dischargeRule === 'string' ? t.dischargeRule : null;
+  const bind = binder(document, edit);
   return (
     <Fieldset legend="Targets">
       <SimpleGrid cols={{ base: 1, sm: 3 }} spacing="sm">
-        <Field
-          label="Output (signed)"
-          unit="V"
-          value={t.outputV}
-          path="targets.outputV"
-          issue={issue}
-          onValue={(v) =>
-            edit((d) => {
-              d.targets.outputV = v;
-            })
-          }
-        />
-        <Field
-          label="Ripple at most"
-          unit="V"
-          value={t.rippleMaxV}
-          path="targets.rippleMaxV"
-          issue={issue}
-          onValue={(v) =>
-            edit((d) => {
-              d.targets.rippleMaxV = v;
-            })
-          }
-        />
-        <Field
-          label="Rated load current"
-          unit="A"
-          value={t.loadCurrentA}
-          path="targets.loadCurrentA"
-          issue={issue}
-          onValue={(v) =>
-            edit((d) => {
-              d.targets.loadCurrentA = v;
-            })
-          }
-        />
-        <Field
-          label="Safe touch level"
-          unit="V"
-          value={t.safeVoltageV}
-          path="targets.safeVoltageV"
-          issue={issue}
-          onValue={(v) =>
-            edit((d) => {
-              d.targets.safeVoltageV = v;
-            })
-          }
-        />
+        <Field label="Output (signed)" unit="V" issue={issue} {...bind('targets.outputV')} />
+        <Field label="Ripple at most" unit="V" issue={issue} {...bind('targets.rippleMaxV')} />
+        <Field label="Rated load current" unit="A" issue={issue} {...bind('targets.loadCurrentA')} />
+        <Field label="Safe touch level" unit="V" issue={issue} {...bind('targets.safeVoltageV')} />
         <Select
           label="Discharge rule"
           value={rule}

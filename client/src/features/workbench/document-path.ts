@@ -1,0 +1,56 @@
+/** A function-free object type: the values a document path can step into. */
+type Branch<V> = V extends (...args: never[]) => unknown ? never : V extends object ? V : never;
+
+/**
+ * Every dotted path to a number in T, through each member of a union (drive kinds, load kinds) and past
+ * null or undefined branches (the bleeder, the clamp). Arrays are not stepped into.
+ */
+export type NumberPath<T> = T extends readonly unknown[]
+  ? never
+  : T extends object
+    ? {
+        [K in keyof T & string]-?: NonNullable<T[K]> extends number
+          ? K
+          : Branch<NonNullable<T[K]>> extends never
+            ? never
+            : `${K}.${NumberPath<Branch<NonNullable<T[K]>>>}`;
+      }[keyof T & string]
+    : never;
+
+type Node = Record<string, unknown>;
+
+function isNode(value: unknown): value is Node {
+  return typeof value === 'object' && value !== null;
+}
+
+/** The number at `path`; NaN when the path runs into a missing branch or field (an empty field). */
+export function getAt<T extends object>(document: T, path: NumberPath<T>): number {
+  let node: unknown = document;
+  for (const key of path.split('.')) node = isNode(node) ? node[key] : undefined;
+  return typeof node === 'number' ? node : Number.NaN;
+}
+
+/** Writes `value` at `path` in place; does nothing when a branch on the way is missing. */
+export function setAt<T extends object>(document: T, path: NumberPath<T>, value: number): void {
+  const keys = path.split('.');
+  const last = keys.pop();
+  let node: unknown = document;
+  for (const key of keys) node = isNode(node) ? node[key] : undefined;
+  if (isNode(node) && last !== undefined) node[last] = value;
+}
+
+/** One numeric field's binding to a document: its path, its value, and the edit that writes it. */
+export interface Binding<T> {
+  path: NumberPath<T>;
+  value: number;
+  onValue: (value: number) => void;
+}
+
+/** `bind(path)` for a document and its edit function (which applies a mutation to a copy). */
+export function binder<T extends object>(document: T, edit: (mutate: (draft: T) => void) => void) {
+  return (path: NumberPath<T>): Binding<T> => ({
+    path,
+    value: getAt(document, path),
+    onValue: (value) => edit((draft) => setAt(draft, path, value)),
+  });
+}
