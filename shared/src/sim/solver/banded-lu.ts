@@ -1,5 +1,8 @@
 import { DomainError } from '../../errors';
 
+/** Smallest diagonal, relative to the largest entry below it in its column, kept as the pivot. */
+const PIVOT_THRESHOLD = 1e-3;
+
 /**
  * Banded LU with partial pivoting (the unblocked LAPACK dgbtf2 scheme, column-major band storage with
  * kl extra rows for pivoting fill). Cost per factorization is O(n · kl · (kl + ku)), linear in n for a
@@ -22,6 +25,10 @@ export class BandedLu {
   /** Reciprocal of each pivot of U, from the last factorization (the solve multiplies, never divides). */
   private readonly inversePivots: Float64Array;
   private readonly diagonalRow: number;
+  /** Widest reach of a row of U beyond its diagonal in the last factorization (ku, up to kl + ku after swaps). */
+  private upperExtent = 0;
+  /** Whether the last factorization swapped any rows. */
+  private hasSwaps = false;
 
   constructor(size: number, lowerBandwidth: number, upperBandwidth: number) {
     this.size = size;
@@ -53,10 +60,42 @@ export class BandedLu {
     const ld = this.columnStride;
     const kv = this.diagonalRow;
     const a = this.band;
+    const pivots = this.pivots;
+    const inverse = this.inversePivots;
+    const stride = ld - 1;
     let ju = 0;
+    let extent = 0;
+    let swapped = false;
     for (let j = 0; j < n; j++) {
       const km = Math.min(kl, n - 1 - j);
       const colJ = j * ld + kv;
+      if (km === 2 && ju <= j + ku) {
+        // The common ladder band (two sub-diagonals) with the diagonal good enough and no earlier swap
+        // reaching this row: no search, no swap, the update unrolled (the loop overhead is most of the work).
+        const d = a[colJ]!;
+        const s1 = a[colJ + 1]!;
+        const s2 = a[colJ + 2]!;
+        const ad = Math.abs(d);
+        if (ad !== 0 && ad >= PIVOT_THRESHOLD * Math.abs(s1) && ad >= PIVOT_THRESHOLD * Math.abs(s2)) {
+          pivots[j] = j;
+          const inv = 1 / d;
+          inverse[j] = inv;
+          const l1 = s1 * inv;
+          const l2 = s2 * inv;
+          a[colJ + 1] = l1;
+          a[colJ + 2] = l2;
+          ju = Math.min(j + ku, n - 1);
+          if (ju - j > extent) extent = ju - j;
+          for (let c = j + 1, p = colJ + stride; c <= ju; c++, p += stride) {
+            const f = a[p]!;
+            if (f !== 0) {
+              a[p + 1]! -= l1 * f;
+              a[p + 2]! -= l2 * f;
+            }
+          }
+          continue;
+        }
+      }
       let jp = 0;
       let best = Math.abs(a[colJ]!);
       for (let t = 1; t <= km; t++) {
@@ -66,14 +105,21 @@ export class BandedLu {
           jp = t;
         }
       }
-      this.pivots[j] = j + jp;
+      // Threshold pivoting: keep the diagonal unless it is below PIVOT_THRESHOLD of the column's largest
+      // entry (the relative threshold of K. Kundert's Sparse, 1e-3). A circuit matrix is then factored in
+      // its own order, with no row swaps and no fill beyond the upper band, except at a zero or tiny
+      // diagonal such as a voltage source's branch row.
+      if (jp !== 0 && Math.abs(a[colJ]!) >= PIVOT_THRESHOLD * best) jp = 0;
+      pivots[j] = j + jp;
       if (best === 0) {
         throw new DomainError('not_converged', `singular circuit matrix at unknown ${j}`, null, [
           { path: `unknown[${j}]`, message: 'zero pivot: a floating node or a loop of voltage sources' },
         ]);
       }
       ju = Math.max(ju, Math.min(j + ku + jp, n - 1));
+      if (ju - j > extent) extent = ju - j;
       if (jp !== 0) {
+        swapped = true;
         for (let c = j; c <= ju; c++) {
           const p = c * ld + kv + j - c;
           const tmp = a[p]!;
@@ -82,22 +128,8 @@ export class BandedLu {
         }
       }
       const inv = 1 / a[colJ]!;
-      this.inversePivots[j] = inv;
+      inverse[j] = inv;
       // Row j's entry moves by ld − 1 from one column to the next.
-      const stride = ld - 1;
-      if (km === 2) {
-        // The common ladder band (two sub-diagonals), unrolled: the loop overhead is most of the work.
-        const l1 = (a[colJ + 1]! *= inv);
-        const l2 = (a[colJ + 2]! *= inv);
-        for (let c = j + 1, p = colJ + stride; c <= ju; c++, p += stride) {
-          const f = a[p]!;
-          if (f !== 0) {
-            a[p + 1]! -= l1 * f;
-            a[p + 2]! -= l2 * f;
-          }
-        }
-        continue;
-      }
       for (let t = 1; t <= km; t++) a[colJ + t]! *= inv;
       for (let c = j + 1, p = colJ + stride; c <= ju; c++, p += stride) {
         const f = a[p]!;
@@ -106,6 +138,8 @@ export class BandedLu {
         }
       }
     }
+    this.upperExtent = extent;
+    this.hasSwaps = swapped;
   }
 
   /** Solves A x = b in place (b becomes x), using the last factorization. */
@@ -114,9 +148,32 @@ export class BandedLu {
     const kl = this.lowerBandwidth;
     const ld = this.columnStride;
     const kv = this.diagonalRow;
-    const kvU = this.lowerBandwidth + this.upperBandwidth;
+    // Rows of U reach at most upperExtent columns right of the diagonal (ku without row swaps).
+    const kvU = this.upperExtent;
     const a = this.band;
     const inverse = this.inversePivots;
+    if (kl === 2 && kvU === 2 && !this.hasSwaps && n >= 3) {
+      // Two sub- and two super-diagonals and no row swaps (a ladder in its own order): unrolled.
+      for (let j = 0, colJ = kv; j < n - 2; j++, colJ += ld) {
+        const bj = b[j]!;
+        b[j + 1]! -= a[colJ + 1]! * bj;
+        b[j + 2]! -= a[colJ + 2]! * bj;
+      }
+      const last = (n - 2) * ld + kv;
+      b[n - 1]! -= a[last + 1]! * b[n - 2]!;
+      // Back substitution by rows: U(j, j + 1) and U(j, j + 2) sit ld − 1 and 2·(ld − 1) past U(j, j).
+      const s1 = ld - 1;
+      const s2 = 2 * s1;
+      let x1 = (b[n - 1]! *= inverse[n - 1]!);
+      let x0 = (b[n - 2] = (b[n - 2]! - a[last + s1]! * x1) * inverse[n - 2]!);
+      for (let j = n - 3, colJ = j * ld + kv; j >= 0; j--, colJ -= ld) {
+        const xj = (b[j]! - a[colJ + s1]! * x0 - a[colJ + s2]! * x1) * inverse[j]!;
+        b[j] = xj;
+        x1 = x0;
+        x0 = xj;
+      }
+      return;
+    }
     for (let j = 0; j < n; j++) {
       const p = this.pivots[j]!;
       const bj = b[p]!;
