@@ -65,6 +65,8 @@ export class MnaSystem {
   /** Names of the reactive quantities, e.g. 'C3' or 'T1.primary' or 'D2.junction'. */
   readonly reactiveNames: string[] = [];
   private readonly linearReactiveCount: number;
+  /** Whether any junction carries charge (its q(v) is then a nonlinearity the device test does not see). */
+  readonly hasNonlinearCharges: boolean;
 
   private readonly sources: { row: number; rowB: number; isVoltage: boolean; waveform: SourceWaveform }[] = [];
   private readonly switches: {
@@ -336,6 +338,7 @@ export class MnaSystem {
     this.linearReactiveCount = rowA.length;
     for (const f of deferred) f();
     this.reactiveCount = rowA.length;
+    this.hasNonlinearCharges = this.reactiveCount > this.linearReactiveCount;
     this.reactiveRowA = Int32Array.from(rowA);
     this.reactiveRowB = Int32Array.from(rowB);
     this.gradientStart = Int32Array.from(gradStart);
@@ -480,10 +483,18 @@ export class MnaSystem {
     }
   }
 
-  /** Junction voltages used by voltage limiting; saved and restored around rejected steps. */
+  /**
+   * Junction voltages used by voltage limiting and prediction; saved and restored around rejected steps.
+   * Saved at a solution x: folded diodes first move their state from the last linearization point to x
+   * along that linearization (see CompiledDiode.moveTo), so that a step accepted at its first iteration
+   * does not leave the junction history at the predictor.
+   */
   saveJunctionState(into: Float64Array): void {
     let k = 0;
-    for (const d of this.diodes) into[k++] = d.lastV;
+    for (const d of this.diodes) {
+      d.moveTo(this.x);
+      into[k++] = d.lastV;
+    }
     for (const q of this.npns) {
       into[k++] = q.lastVbe;
       into[k++] = q.lastVbc;
@@ -751,6 +762,20 @@ class CompiledDiode {
     this.lastG = g;
     stampJunction(band, rhs, this.offsets, this.junction, this.cathode, g, i - g * u);
     return false;
+  }
+
+  /**
+   * Moves a folded diode's last point from where it was linearized to the terminal voltage of solution x
+   * along the linearization (v by du/(1 + Rs·gj), I by g·du): within the device tolerance of the curve
+   * once Newton has converged, and where the next step's local solve and predictor should start.
+   */
+  moveTo(x: Float64Array): void {
+    if (this.foldedOhm <= 0 || this.isLastLoadStale) return;
+    const du = x[this.junction]! - x[this.cathode]! - this.lastTerminalV;
+    if (du === 0) return;
+    this.lastV += du / (1 + this.foldedOhm * this.lastJunctionG);
+    this.lastI += this.lastG * du;
+    this.lastTerminalV += du;
   }
 
   /** Sets the junction voltage the next load of a folded diode linearizes at (see MnaSystem.predictJunctions). */

@@ -21,13 +21,16 @@ export const DEFAULT_TOLERANCES: SimulationTolerances = {
 /**
  * Newton–Raphson at the present integration coefficients until the update is within tolerance and no
  * junction voltage was limited. x holds the initial guess and receives the solution. Returns the number
- * of iterations, or −1 when it did not converge.
+ * of iterations, or −1 when it did not converge. With `acceptOnDeviceTest`, a solve whose junctions all
+ * pass the device test is accepted without the node-voltage test (see below); the shooting method,
+ * which differentiates the period map, keeps the full test.
  */
 export function solveNewton(
   system: MnaSystem,
   a0: number,
   tolerances: SimulationTolerances,
   maxIterations: number,
+  acceptOnDeviceTest = false,
 ): number {
   const x = system.x;
   const n = system.size;
@@ -38,6 +41,18 @@ export function solveNewton(
     // Node voltages of a ladder are kilovolts, so reltol on them alone lets a junction move by a volt;
     // SPICE's device test on each junction's current closes that gap (L. W. Nagel, SPICE2, 1975).
     let converged = !limited && system.devicesConverged(next, tolerances.relative, tolerances.currentAbsoluteA);
+    if (converged && acceptOnDeviceTest && !system.hasNonlinearCharges) {
+      // Every nonlinearity is a junction current and each passed its test, so the linear system just
+      // solved is the circuit's own to within the current tolerances: the increment of the linear
+      // unknowns (capacitor nodes, branch currents) says nothing more. SPICE's node test would only make
+      // an exact linear step, from a predictor that was off, wait one more solve.
+      for (let i = 0; i < n; i++) {
+        const xn = next[i]!;
+        if (!Number.isFinite(xn)) return -1;
+        x[i] = xn;
+      }
+      return iteration;
+    }
     for (let i = 0; i < n; i++) {
       const xn = next[i]!;
       if (!Number.isFinite(xn)) return -1;
@@ -212,7 +227,7 @@ export class TransientStepper {
         for (let i = 0; i < sys.size; i++) x[i] = this.x0[i]! + ratio * (this.x0[i]! - this.xm1[i]!);
         sys.predictJunctions(this.junction0, this.junctionM1, ratio);
       } else x.set(this.x0);
-      const iterations = solveNewton(sys, a0, tol, tol.maxNewtonIterations);
+      const iterations = solveNewton(sys, a0, tol, tol.maxNewtonIterations, true);
       if (iterations < 0) {
         this.rejectedSteps++;
         sys.restoreJunctionState(this.junction0);
