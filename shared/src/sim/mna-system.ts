@@ -3,11 +3,11 @@ import type { Circuit, CircuitElement, DiodeModel, NpnModel, SourceWaveform } fr
 import { GROUND_NODE } from './circuit.types';
 import { evaluateNpn, type NpnOperatingPoint } from './devices/bjt';
 import { inductanceMatrix } from './devices/coupled-inductors';
-import { evaluateDiode, solveSeriesJunctionV, type DiodeOperatingPoint } from './devices/diode';
+import { evaluateDiode, type DiodeOperatingPoint } from './devices/diode';
+import { FoldedDiodes, type FoldedDiodeSpec } from './devices/folded-diodes';
 import {
   criticalVoltageV,
   depletionCharge,
-  JUNCTION_GMIN_S,
   limitJunctionVoltage,
   THERMAL_VOLTAGE_V,
   wasLimited,
@@ -18,12 +18,10 @@ import { nextWaveformBreakpoint, waveformValue } from './source-waveforms';
 
 // Local copies of the device functions, so the inner loop does not go through a module accessor per call.
 const diodeAt = evaluateDiode;
-const solveJunction = solveSeriesJunctionV;
 const npnAt = evaluateNpn;
 const limitJunction = limitJunctionVoltage;
 const lastWasLimited = wasLimited;
 const depletionAt = depletionCharge;
-const junctionGminS = JUNCTION_GMIN_S;
 
 /**
  * Modified nodal analysis of a Circuit (C.-W. Ho, A. E. Ruehli and P. A. Brennan, IEEE Trans. Circuits
@@ -76,7 +74,9 @@ export class MnaSystem {
     initial: boolean;
     events: ReadonlyArray<{ timeS: number; isClosed: boolean }>;
   }[] = [];
+  /** Diodes with an internal node or without series resistance; the folded ones are in `folded`. */
   private readonly diodes: CompiledDiode[] = [];
+  private readonly folded: FoldedDiodes;
   private readonly npns: CompiledNpn[] = [];
   private readonly diodeOut: DiodeOperatingPoint = { currentA: 0, conductanceS: 0 };
   private readonly npnOut: NpnOperatingPoint = {
@@ -234,6 +234,7 @@ export class MnaSystem {
       g[lu.offsetOf(branch, b)]! -= 1;
     };
     const deferred: (() => void)[] = [];
+    const foldedSpecs: FoldedDiodeSpec[] = [];
     elements.forEach((e, index) => {
       const path = `elements[${index}]`;
       switch (e.kind) {
@@ -318,9 +319,11 @@ export class MnaSystem {
           if (hasInternalNode(e.model)) addConductance(g, anode, junction, 1 / e.model.seriesResistanceOhm);
           positive(e.model.saturationCurrentA, `${path}.model.saturationCurrentA`);
           positive(e.model.emissionCoefficient, `${path}.model.emissionCoefficient`);
-          deferred.push(() =>
-            this.diodes.push(new CompiledDiode(e.name, e.model, junction, nodeAt(e.cathode), lu, addReactive)),
-          );
+          if (isFolded(e.model)) foldedSpecs.push({ model: e.model, anode, cathode: nodeAt(e.cathode) });
+          else
+            deferred.push(() =>
+              this.diodes.push(new CompiledDiode(e.name, e.model, junction, nodeAt(e.cathode), lu, addReactive)),
+            );
           break;
         }
         case 'npn':
@@ -336,6 +339,7 @@ export class MnaSystem {
       }
     });
     this.linearReactiveCount = rowA.length;
+    this.folded = new FoldedDiodes(foldedSpecs, lu);
     for (const f of deferred) f();
     this.reactiveCount = rowA.length;
     this.hasNonlinearCharges = this.reactiveCount > this.linearReactiveCount;
@@ -427,6 +431,7 @@ export class MnaSystem {
     this.rhs.set(this.stepRhs);
     if (this.shuntConductanceS > 0) for (const o of this.nodeDiagonalOffsets) band[o]! += this.shuntConductanceS;
     let limited = false;
+    this.folded.load(this.x, band, this.rhs);
     for (const d of this.diodes)
       limited =
         d.load(
@@ -459,6 +464,7 @@ export class MnaSystem {
 
   /** Whether every junction's current, linearized at its last load, moves within tolerance to solution x. */
   devicesConverged(x: Float64Array, relative: number, absoluteA: number): boolean {
+    if (!this.folded.isConverged(x, relative, absoluteA)) return false;
     for (const d of this.diodes) if (!d.isConverged(x, relative, absoluteA)) return false;
     for (const q of this.npns) if (!q.isConverged(x, relative, absoluteA)) return false;
     return true;
@@ -486,15 +492,15 @@ export class MnaSystem {
   /**
    * Junction voltages used by voltage limiting and prediction; saved and restored around rejected steps.
    * Saved at a solution x: folded diodes first move their state from the last linearization point to x
-   * along that linearization (see CompiledDiode.moveTo), so that a step accepted at its first iteration
-   * does not leave the junction history at the predictor.
+   * along that linearization (see FoldedDiodes.moveTo), so that a step accepted at its first iteration
+   * does not leave the junction history at the predictor. Layout: folded diodes, other diodes, then Vbe
+   * and Vbc of each transistor.
    */
   saveJunctionState(into: Float64Array): void {
-    let k = 0;
-    for (const d of this.diodes) {
-      d.moveTo(this.x);
-      into[k++] = d.lastV;
-    }
+    this.folded.moveTo(this.x);
+    this.folded.save(into, 0);
+    let k = this.folded.count;
+    for (const d of this.diodes) into[k++] = d.lastV;
     for (const q of this.npns) {
       into[k++] = q.lastVbe;
       into[k++] = q.lastVbc;
@@ -502,12 +508,9 @@ export class MnaSystem {
   }
 
   restoreJunctionState(from: Float64Array): void {
-    let k = 0;
-    for (const d of this.diodes) {
-      d.lastV = from[k++]!;
-      d.hasPrediction = false;
-      d.isLastLoadStale = true;
-    }
+    this.folded.restore(from, 0);
+    let k = this.folded.count;
+    for (const d of this.diodes) d.lastV = from[k++]!;
     for (const q of this.npns) {
       q.lastVbe = from[k++]!;
       q.lastVbc = from[k++]!;
@@ -516,31 +519,31 @@ export class MnaSystem {
 
   /**
    * Predictor for the first load of a step: each folded diode is linearized there at its junction voltage
-   * extrapolated from the last two accepted points (v0 + ratio·(v0 − v−1), pnjlim-limited against v0), not
-   * at the terminal voltage of the predicted unknowns. The junction voltage of a conducting diode is a
-   * logarithm of its current and moves slowly; its terminal voltage adds Rs·I and follows the current
-   * pulse (the MODEINITPRED junction prediction of SPICE3's dioload). States as saveJunctionState writes them.
+   * extrapolated from the last two accepted points, not at the terminal voltage of the predicted unknowns.
+   * The junction voltage of a conducting diode is a logarithm of its current and moves slowly; its
+   * terminal voltage adds Rs·I and follows the current pulse (the MODEINITPRED junction prediction of
+   * SPICE3's dioload). States as saveJunctionState writes them.
    */
   predictJunctions(current: Float64Array, previous: Float64Array, ratio: number): void {
-    let k = 0;
-    for (const d of this.diodes) {
-      d.predict(current[k]!, previous[k]!, ratio);
-      k++;
-    }
+    this.folded.predict(current, previous, 0, ratio);
   }
 
   get junctionStateLength(): number {
-    return this.diodes.length + 2 * this.npns.length;
+    return this.folded.count + this.diodes.length + 2 * this.npns.length;
   }
 }
 
 /**
  * A diode keeps an internal node between its series resistance and its junction only when the junction
  * carries charge; otherwise the resistance is folded into the element (the junction voltage is solved
- * locally, so the circuit matrix has one unknown fewer per diode).
+ * locally, so the circuit matrix has one unknown fewer per diode; see FoldedDiodes).
  */
 function hasInternalNode(model: DiodeModel): boolean {
   return model.seriesResistanceOhm > 0 && ((model.junctionCapacitanceF ?? 0) > 0 || (model.transitTimeS ?? 0) > 0);
+}
+
+function isFolded(model: DiodeModel): boolean {
+  return model.seriesResistanceOhm > 0 && !hasInternalNode(model);
 }
 
 type AddReactive = (name: string, a: number, b: number, grad: ReadonlyArray<[number, number]>, q0: number) => number;
@@ -567,6 +570,7 @@ function stampJunction(
   rhs[b]! += iEq;
 }
 
+/** A diode with an internal node (series resistance and junction charge) or without series resistance. */
 class CompiledDiode {
   lastV = 0;
   /** DC current and conductance at lastV, for the device convergence test. */
@@ -577,23 +581,6 @@ class CompiledDiode {
   private readonly offsets: Int32Array;
   private readonly reactive: number;
   private readonly hasCharge: boolean;
-  /** Series resistance folded into the element (no internal node), else 0. */
-  private readonly foldedOhm: number;
-  /** Terminal voltage at the last load, for the device convergence test of a folded diode. */
-  private lastTerminalV = 0;
-  /** Junction conductance at the last load of a folded diode (for the next local solve's starting point). */
-  private lastJunctionG = 0;
-  /** Predicted junction voltage for the next load, when hasPrediction (folded diodes only). */
-  predictedV = 0;
-  hasPrediction = false;
-  /** Set by a state restore: lastI, lastTerminalV and lastJunctionG do not belong to lastV. */
-  isLastLoadStale = false;
-  /** Terminal voltage below which a folded junction is a linear leak (see loadFolded); −Infinity if none. */
-  private readonly farReverseV: number;
-  private readonly farReverseScale: number;
-  private readonly farReverseG: number;
-  /** No breakdown knee: below −3·n·Vt the junction is the smooth leak of evaluateDiode's reverse branch. */
-  private readonly reverseLeakOnly: boolean;
 
   constructor(
     name: string,
@@ -607,13 +594,6 @@ class CompiledDiode {
     this.vcrit = criticalVoltageV(model.saturationCurrentA, this.vte);
     this.offsets = junctionOffsets(lu, junction, cathode);
     this.hasCharge = (model.junctionCapacitanceF ?? 0) > 0 || (model.transitTimeS ?? 0) > 0;
-    this.foldedOhm = hasInternalNode(model) ? 0 : model.seriesResistanceOhm;
-    this.reverseLeakOnly = !((model.breakdownVoltageV ?? 0) > 0);
-    const rs = this.foldedOhm;
-    this.farReverseV =
-      this.reverseLeakOnly && rs > 0 ? -(3 * this.vte) / (Math.E * 1e-3) - rs * model.saturationCurrentA : -Infinity;
-    this.farReverseScale = 1 / (1 + rs * JUNCTION_GMIN_S);
-    this.farReverseG = JUNCTION_GMIN_S / (1 + rs * JUNCTION_GMIN_S);
     this.reactive = this.hasCharge
       ? addReactive(
           `${name}.junction`,
@@ -639,7 +619,6 @@ class CompiledDiode {
     out: DiodeOperatingPoint,
     qOut: { chargeC: number; capacitanceF: number },
   ): boolean {
-    if (this.foldedOhm > 0) return this.loadFolded(x, band, rhs, out);
     let v = limitJunction(x[this.junction]! - x[this.cathode]!, this.lastV, this.vte, this.vcrit);
     let limited = lastWasLimited();
     // In reverse breakdown the same limiting applies to the voltage beyond the knee (SPICE3 dioload).
@@ -671,134 +650,8 @@ class CompiledDiode {
     return limited;
   }
 
-  /**
-   * Diode with its series resistance folded in: for the terminal voltage u, the junction voltage v solves
-   * v + Rs·I(v) = u (safeguarded scalar Newton from the last v, solveSeriesJunctionV), and the element
-   * conducts I with dI/du = g/(1 + Rs·g).
-   */
-  private loadFolded(x: Float64Array, band: Float64Array, rhs: Float64Array, out: DiodeOperatingPoint): boolean {
-    const rs = this.foldedOhm;
-    const isPredicted = this.hasPrediction;
-    this.hasPrediction = false;
-    if (isPredicted) diodeAt(this.model, this.predictedV, out);
-    if (isPredicted && Number.isFinite(out.currentA) && Number.isFinite(out.conductanceS)) {
-      // Linearized at the predicted junction voltage v: the point (u, I) = (v + Rs·I(v), I(v)) of the curve.
-      const v = this.predictedV;
-      return this.stampFolded(
-        band,
-        rhs,
-        v + rs * out.currentA,
-        v,
-        out.currentA,
-        out.conductanceS,
-        out.conductanceS / (1 + rs * out.conductanceS),
-      );
-    }
-    const u = x[this.junction]! - x[this.cathode]!;
-    const vte = this.vte;
-    // After a restored state the last load's current and terminal voltage belong to an abandoned iterate:
-    // start from the junction voltage alone.
-    const isStale = this.isLastLoadStale;
-    this.isLastLoadStale = false;
-    if (u < this.farReverseV) {
-      // Far in reverse (|3·n·Vt/(e·v)| < 1e-3) the leak is −Is·(1 + ε) + gmin·v with ε < 1e-9: linear, and
-      // v + Rs·I(v) = u solved exactly with the constants of the constructor (no division).
-      const is = this.model.saturationCurrentA;
-      const v = (u + rs * is) * this.farReverseScale;
-      return this.stampFolded(band, rhs, u, v, junctionGminS * v - is, junctionGminS, this.farReverseG);
-    }
-    if (!isStale && this.reverseLeakOnly && u < -6 * vte && this.lastV < -3 * vte) {
-      // Reverse junction without breakdown: the leak I(v) = −Is·(1 + (3·n·Vt/(e·v))³) + gmin·v is nearly
-      // linear, so one Newton step of v + Rs·I(v) = u from v0 = u − Rs·I_last leaves a residual of the
-      // order of Rs·I″·Δv² (far below a femtovolt): the local solve in one evaluation, inline.
-      const v0 = u - rs * this.lastI;
-      if (v0 < -3 * vte) {
-        const arg = (3 * vte) / (v0 * Math.E);
-        const arg3 = arg * arg * arg;
-        const is = this.model.saturationCurrentA;
-        const gj = (is * 3 * arg3) / v0 + junctionGminS;
-        let i = -is * (1 + arg3) + junctionGminS * v0;
-        const dv = -(v0 + rs * i - u) / (1 + rs * gj);
-        i += gj * dv;
-        return this.stampFolded(band, rhs, u, v0 + dv, i, gj, gj / (1 + rs * gj));
-      }
-    }
-    // Start the local solve at the Newton step from the last junction point (v moves by du/(1 + Rs·gj)):
-    // a reverse junction, near linear, then needs one evaluation, a conducting one one fewer.
-    const v = solveJunction(
-      this.model,
-      u,
-      isStale ? this.lastV : this.lastV + (u - this.lastTerminalV) / (1 + rs * this.lastJunctionG),
-      out,
-    );
-    return this.stampFolded(
-      band,
-      rhs,
-      u,
-      v,
-      out.currentA,
-      out.conductanceS,
-      out.conductanceS / (1 + rs * out.conductanceS),
-    );
-  }
-
-  /**
-   * Records and stamps a folded diode linearized at terminal u: junction v, current i, junction conductance
-   * gj, terminal conductance g = gj/(1 + Rs·gj).
-   */
-  private stampFolded(
-    band: Float64Array,
-    rhs: Float64Array,
-    u: number,
-    v: number,
-    i: number,
-    gj: number,
-    g: number,
-  ): boolean {
-    this.lastJunctionG = gj;
-    this.lastV = v;
-    this.lastTerminalV = u;
-    this.lastI = i;
-    this.lastG = g;
-    stampJunction(band, rhs, this.offsets, this.junction, this.cathode, g, i - g * u);
-    return false;
-  }
-
-  /**
-   * Moves a folded diode's last point from where it was linearized to the terminal voltage of solution x
-   * along the linearization (v by du/(1 + Rs·gj), I by g·du): within the device tolerance of the curve
-   * once Newton has converged, and where the next step's local solve and predictor should start.
-   */
-  moveTo(x: Float64Array): void {
-    if (this.foldedOhm <= 0 || this.isLastLoadStale) return;
-    const du = x[this.junction]! - x[this.cathode]! - this.lastTerminalV;
-    if (du === 0) return;
-    this.lastV += du / (1 + this.foldedOhm * this.lastJunctionG);
-    this.lastI += this.lastG * du;
-    this.lastTerminalV += du;
-  }
-
-  /** Sets the junction voltage the next load of a folded diode linearizes at (see MnaSystem.predictJunctions). */
-  predict(current: number, previous: number, ratio: number): void {
-    // Folded diodes without a breakdown knee only: a junction extrapolated past the knee would need the
-    // knee's own limiting, and a load after a restore starts from the junction voltage alone.
-    if (this.foldedOhm <= 0 || !this.reverseLeakOnly || this.isLastLoadStale) return;
-    const v = limitJunction(current + ratio * (current - previous), current, this.vte, this.vcrit);
-    if (!Number.isFinite(v)) return;
-    this.predictedV = v;
-    this.hasPrediction = true;
-  }
-
   /** SPICE's device test: the linearized current change to the new solution is within tolerance. */
   isConverged(x: Float64Array, relative: number, absoluteA: number): boolean {
-    if (this.foldedOhm > 0) {
-      const du = x[this.junction]! - x[this.cathode]! - this.lastTerminalV;
-      // A junction that stays below −3·n·Vt without breakdown is a near-linear leak (see below).
-      if (this.lastV < -3 * this.vte && this.lastV + du < -3 * this.vte && (this.model.breakdownVoltageV ?? 0) <= 0)
-        return true;
-      const change = this.lastG * du;
-      return Math.abs(change) <= relative * Math.max(Math.abs(this.lastI + change), Math.abs(this.lastI)) + absoluteA;
-    }
     const v = x[this.junction]! - x[this.cathode]!;
     // Below −3·n·Vt and above any breakdown knee the junction is a near-linear leak (−Is and gmin): its
     // linearization is exact there, so the test would only chase the node voltages' rounding.
