@@ -403,6 +403,31 @@ export class MnaSystem {
     return t;
   }
 
+  /** Whether a switch changes state at a time in (fromS, toS]. */
+  hasSwitchEventIn(fromS: number, toS: number): boolean {
+    for (const s of this.switches) for (const ev of s.events) if (ev.timeS > fromS && ev.timeS <= toS) return true;
+    return false;
+  }
+
+  /**
+   * The period every time-varying source repeats with (sine 1/f, pulse its period), or NaN when there is
+   * none, a source does not repeat (piecewise-linear) or two sources repeat differently.
+   */
+  sourcePeriodS(): number {
+    let period = NaN;
+    for (const { waveform: w } of this.sources) {
+      let p: number;
+      if (w.kind === 'dc') continue;
+      else if (w.kind === 'sine') p = w.frequencyHz > 0 ? 1 / w.frequencyHz : NaN;
+      else if (w.kind === 'pulse') p = w.periodS > 0 ? w.periodS : NaN;
+      else return NaN;
+      if (!(p > 0)) return NaN;
+      if (Number.isNaN(period)) period = p;
+      else if (Math.abs(p - period) > 1e-12 * period) return NaN;
+    }
+    return period;
+  }
+
   /** Right-hand side of a step ending at timeS: source values and Σ incidence·hist (hist must be set). */
   prepareStepRhs(timeS: number, sourceScale = 1): void {
     const r = this.stepRhs;
@@ -518,14 +543,14 @@ export class MnaSystem {
   }
 
   /**
-   * Predictor for the first load of a step: each folded diode is linearized there at its junction voltage
-   * extrapolated from the last two accepted points, not at the terminal voltage of the predicted unknowns.
-   * The junction voltage of a conducting diode is a logarithm of its current and moves slowly; its
-   * terminal voltage adds Rs·I and follows the current pulse (the MODEINITPRED junction prediction of
-   * SPICE3's dioload). States as saveJunctionState writes them.
+   * Predictor for the first load of a step: each folded diode is linearized there at its predicted
+   * junction voltage (from the stepper, in the layout of saveJunctionState), not at the terminal voltage
+   * of the predicted unknowns. The junction voltage of a conducting diode is a logarithm of its current
+   * and moves slowly; its terminal voltage adds Rs·I and follows the current pulse (the MODEINITPRED
+   * junction prediction of SPICE3's dioload). `current` is the state at the last accepted point.
    */
-  predictJunctions(current: Float64Array, previous: Float64Array, ratio: number): void {
-    this.folded.predict(current, previous, 0, ratio);
+  predictJunctions(current: Float64Array, predicted: Float64Array): void {
+    this.folded.predict(current, predicted, 0);
   }
 
   get junctionStateLength(): number {

@@ -135,6 +135,10 @@ export class TransientStepper {
   private previousStepS = 0;
   private useBackwardEulerNext = true;
   private nextBreakS: number;
+  /** Period of the sources (NaN: none) and the accepted points of the last period or more, for the predictor. */
+  private readonly periodS: number;
+  private readonly lastPeriod: PeriodHistory | null;
+  private readonly predictedJunction: Float64Array;
 
   constructor(
     system: MnaSystem,
@@ -162,6 +166,11 @@ export class TransientStepper {
     this.timeS = options.startTimeS ?? 0;
     this.stepS = this.maxStepS / 100;
     this.nextBreakS = system.nextBreakpoint(this.timeS);
+    this.periodS = system.sourcePeriodS();
+    this.lastPeriod = Number.isNaN(this.periodS)
+      ? null
+      : new PeriodHistory(system.size + 1, system.junctionStateLength);
+    this.predictedJunction = new Float64Array(system.junctionStateLength);
   }
 
   /** Starts from given charges (capacitor charges, winding fluxes) and an unknown vector guess. */
@@ -189,8 +198,17 @@ export class TransientStepper {
     this.restart();
   }
 
-  /** Forgets the integration history (after a discontinuity): the next step is backward Euler. */
+  /**
+   * Forgets the integration history (after a discontinuity made by the caller, such as changed charges):
+   * the next step is backward Euler and the predictor forgets the last period too.
+   */
   restart(): void {
+    this.lastPeriod?.clear();
+    this.restartAtBreakpoint();
+  }
+
+  /** After a source corner: the integration restarts, the last period stays a valid predictor. */
+  private restartAtBreakpoint(): void {
     this.historyCount = 0;
     this.useBackwardEulerNext = true;
     this.stepS = Math.min(this.stepS, this.maxStepS / 10);
@@ -203,6 +221,14 @@ export class TransientStepper {
     const tol = this.tolerances;
     for (;;) {
       let h = Math.min(this.stepS, this.maxStepS);
+      // Step onto the time one period after a point of the last period when that is at most a little
+      // shorter than the step wanted, so that the periodic predictor below has a point to start from.
+      const past = this.lastPeriod;
+      const base = past ? past.find(this.timeS - this.periodS, h) : -1;
+      if (past && base >= 0 && base + 1 < past.count) {
+        const lockedS = past.timeAt(base + 1) + this.periodS - this.timeS;
+        if (lockedS > 0.5 * h && lockedS <= h * (1 + 1e-9)) h = lockedS;
+      }
       const limitS = Math.min(untilS, this.nextBreakS);
       let landsOnBreak = false;
       if (this.timeS + h >= limitS - 1e-12 * Math.max(h, Math.abs(limitS))) {
@@ -220,12 +246,23 @@ export class TransientStepper {
       const a0 = this.setHistory(h, isEuler);
       sys.prepareLinearMatrix(a0, t1);
       sys.prepareStepRhs(t1);
-      // Predictor: linear extrapolation of the last two points.
       const x = sys.x;
-      if (this.acceptedSteps > 1 && this.previousStepS > 0 && !isEuler) {
+      const next = past && base >= 0 ? past.find(t1 - this.periodS, h) : -1;
+      const pj = this.predictedJunction;
+      if (next >= 0) {
+        // Periodic predictor: the last period's point one period back, moved by the drift since then,
+        // x(t1 − T) + (x(t0) − x(t0 − T)). Exact for a periodic waveform on a linear drift, which is what a
+        // multiplier charging up or settling is from one period to the next; unlike an extrapolation of
+        // the last two points, it foresees each diode's conduction pulse.
+        past!.predict(next, base, this.x0, x, sys.size, this.junction0, pj);
+        sys.predictJunctions(this.junction0, pj);
+      } else if (this.acceptedSteps > 1 && this.previousStepS > 0 && !isEuler) {
+        // Linear extrapolation of the last two points.
         const ratio = h / this.previousStepS;
         for (let i = 0; i < sys.size; i++) x[i] = this.x0[i]! + ratio * (this.x0[i]! - this.xm1[i]!);
-        sys.predictJunctions(this.junction0, this.junctionM1, ratio);
+        for (let k = 0; k < pj.length; k++)
+          pj[k] = this.junction0[k]! + ratio * (this.junction0[k]! - this.junctionM1[k]!);
+        sys.predictJunctions(this.junction0, pj);
       } else x.set(this.x0);
       const iterations = solveNewton(sys, a0, tol, tol.maxNewtonIterations, true);
       if (iterations < 0) {
@@ -291,7 +328,9 @@ export class TransientStepper {
       this.acceptStep(t1, h, a0);
       this.stepS = Math.min(this.maxStepS, 2 * h, hNew);
       if (landsOnBreak) {
-        this.restart();
+        // A switch event changes the circuit, so the last period no longer predicts the next one.
+        if (this.system.hasSwitchEventIn(t1 - h, t1)) this.lastPeriod?.clear();
+        this.restartAtBreakpoint();
       } else {
         this.useBackwardEulerNext = false;
       }
@@ -339,6 +378,7 @@ export class TransientStepper {
     this.x0.set(sys.x);
     this.junctionM1.set(this.junction0);
     sys.saveJunctionState(this.junction0);
+    this.lastPeriod?.push(t1, sys.x, this.junction0, t1 - this.periodS);
     this.previousStepS = h;
     this.timeS = t1;
     this.acceptedSteps++;
@@ -348,6 +388,115 @@ export class TransientStepper {
   /** Value of unknown `index` (node voltage or branch current) at the present time. */
   value(index: number): number {
     return this.system.x[index]!;
+  }
+}
+
+/**
+ * Accepted points (time, unknowns, junction state) of at least the last period, oldest first, for the
+ * periodic predictor. A ring that grows while one period does not fit, up to MAX_POINTS.
+ */
+class PeriodHistory {
+  private static readonly MAX_POINTS = 1 << 15;
+  private capacity = 256;
+  private start = 0;
+  count = 0;
+  private times = new Float64Array(this.capacity);
+  private xs: Float64Array;
+  private js: Float64Array;
+
+  constructor(
+    private readonly xLength: number,
+    private readonly jLength: number,
+  ) {
+    this.xs = new Float64Array(this.capacity * xLength);
+    this.js = new Float64Array(this.capacity * jLength);
+  }
+
+  clear(): void {
+    this.start = 0;
+    this.count = 0;
+  }
+
+  private slot(i: number): number {
+    const p = this.start + i;
+    return p >= this.capacity ? p - this.capacity : p;
+  }
+
+  timeAt(i: number): number {
+    return this.times[this.slot(i)]!;
+  }
+
+  /** Appends a point; drops the oldest once the rest still reach back to keepFromS. */
+  push(timeS: number, x: Float64Array, junction: Float64Array, keepFromS: number): void {
+    if (this.count === this.capacity) {
+      if (this.timeAt(1) <= keepFromS) {
+        this.start = this.slot(1);
+        this.count--;
+      } else if (this.capacity < PeriodHistory.MAX_POINTS) this.grow();
+      else {
+        // More points per period than kept: give the predictor up until a period fits again.
+        this.clear();
+      }
+    }
+    const s = this.slot(this.count);
+    this.times[s] = timeS;
+    this.xs.set(x.subarray(0, this.xLength), s * this.xLength);
+    this.js.set(junction.subarray(0, this.jLength), s * this.jLength);
+    this.count++;
+  }
+
+  private grow(): void {
+    const capacity = 2 * this.capacity;
+    const times = new Float64Array(capacity);
+    const xs = new Float64Array(capacity * this.xLength);
+    const js = new Float64Array(capacity * this.jLength);
+    for (let i = 0; i < this.count; i++) {
+      const s = this.slot(i);
+      times[i] = this.times[s]!;
+      xs.set(this.xs.subarray(s * this.xLength, (s + 1) * this.xLength), i * this.xLength);
+      js.set(this.js.subarray(s * this.jLength, (s + 1) * this.jLength), i * this.jLength);
+    }
+    this.capacity = capacity;
+    this.times = times;
+    this.xs = xs;
+    this.js = js;
+    this.start = 0;
+  }
+
+  /** Index of the stored point at timeS (to within 1e-6 of stepS), or −1. */
+  find(timeS: number, stepS: number): number {
+    if (this.count === 0) return -1;
+    let lo = 0;
+    let hi = this.count - 1;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (this.timeAt(mid) < timeS) lo = mid + 1;
+      else hi = mid;
+    }
+    const tolerance = 1e-6 * stepS;
+    if (Math.abs(this.timeAt(lo) - timeS) <= tolerance) return lo;
+    if (lo > 0 && Math.abs(this.timeAt(lo - 1) - timeS) <= tolerance) return lo - 1;
+    return -1;
+  }
+
+  /** x = x(next) + x0 − x(base) for the first n unknowns, and the same for the junction state. */
+  predict(
+    next: number,
+    base: number,
+    x0: Float64Array,
+    x: Float64Array,
+    n: number,
+    junction0: Float64Array,
+    junction: Float64Array,
+  ): void {
+    const pn = this.slot(next) * this.xLength;
+    const pb = this.slot(base) * this.xLength;
+    const xs = this.xs;
+    for (let i = 0; i < n; i++) x[i] = xs[pn + i]! + x0[i]! - xs[pb + i]!;
+    const qn = this.slot(next) * this.jLength;
+    const qb = this.slot(base) * this.jLength;
+    const js = this.js;
+    for (let k = 0; k < this.jLength; k++) junction[k] = js[qn + k]! + junction0[k]! - js[qb + k]!;
   }
 }
 

@@ -70,6 +70,28 @@ const cases: LadderCase[] = [
     isLoaded: true,
   },
   {
+    // A pulse drive puts four corners in every period, where the stepper lands and restarts; the
+    // periodic predictor has to carry across them.
+    name: 'half-wave, 4 cells, pulse drive (flyback shape), loaded',
+    spec: {
+      topology: 'half-wave',
+      cellCount: 4,
+      capacitorsF: Array<number>(4).fill(10e-9),
+      diode,
+      drive: {
+        kind: 'pulse',
+        forwardPeakV: 150,
+        flybackPeakV: 450,
+        frequencyHz: f,
+        dutyCycle: 0.7,
+        sourceResistanceOhm: 10,
+      },
+      load: { kind: 'current', currentA: 1e-3 },
+    },
+    cycles: 140,
+    isLoaded: true,
+  },
+  {
     name: 'bridge doubler, loaded',
     spec: {
       topology: 'bridge-doubler',

@@ -24,126 +24,108 @@ export interface FoldedDiodeSpec {
  * node. A ladder has tens of them and most sit far in reverse most of the time, so they are kept as
  * parallel arrays and loaded in one loop, the reverse cases inline.
  */
+// Per-diode record in FoldedDiodes.p (one Float64Array, so the loop touches one array, not twenty).
+const IS = 0; // saturation current
+const VTE = 1; // n·Vt
+const VCRIT = 2; // critical voltage (pnjlim)
+const RS = 3; // series resistance
+const FAR_V = 4; // terminal voltage below which the junction is a linear leak (see load); −Infinity if none
+const FAR_SCALE = 5;
+const FAR_G = 6;
+const LEAK_ONLY = 7; // 1: no breakdown knee, below −3·n·Vt the smooth leak of evaluateDiode's reverse branch
+const LAST_V = 8; // junction voltage at the last load
+const LAST_I = 9; // current at the last load
+const LAST_GJ = 10; // junction conductance at the last load
+const LAST_G = 11; // terminal conductance at the last load
+const LAST_U = 12; // terminal voltage at the last load
+const PREDICTED_V = 13; // junction voltage the next load linearizes at, when HAS_PREDICTION is 1
+const HAS_PREDICTION = 14;
+const STALE = 15; // 1 after a state restore: LAST_I, LAST_U and LAST_GJ do not belong to LAST_V
+const RECORD = 16;
+// Per-diode indices in FoldedDiodes.q: anode, cathode, band offsets of (a, a), (a, c), (c, a), (c, c).
+const INDICES = 6;
+
 export class FoldedDiodes {
   readonly count: number;
   private readonly models: DiodeModel[];
-  private readonly anode: Int32Array;
-  private readonly cathode: Int32Array;
-  /** Band offsets of (a, a), (a, c), (c, a), (c, c) for each diode. */
-  private readonly offsets: Int32Array;
-  private readonly saturationA: Float64Array;
-  private readonly vte: Float64Array;
-  private readonly vcrit: Float64Array;
-  private readonly seriesOhm: Float64Array;
-  /** Terminal voltage below which the junction is a linear leak (see load); −Infinity if none. */
-  private readonly farReverseV: Float64Array;
-  private readonly farReverseScale: Float64Array;
-  private readonly farReverseG: Float64Array;
-  /** No breakdown knee: below −3·n·Vt the junction is the smooth leak of evaluateDiode's reverse branch. */
-  private readonly reverseLeakOnly: Uint8Array;
-  /** Junction voltage, current, junction and terminal conductance and terminal voltage at the last load. */
-  readonly lastV: Float64Array;
-  readonly lastI: Float64Array;
-  private readonly lastJunctionG: Float64Array;
-  private readonly lastG: Float64Array;
-  private readonly lastTerminalV: Float64Array;
-  /** Predicted junction voltage for the next load, where hasPrediction. */
-  private readonly predictedV: Float64Array;
-  private readonly hasPrediction: Uint8Array;
-  /** Set by a state restore: lastI, lastTerminalV and lastJunctionG do not belong to lastV. */
-  private readonly isStale: Uint8Array;
+  private readonly p: Float64Array;
+  private readonly q: Int32Array;
   private readonly out: DiodeOperatingPoint = { currentA: 0, conductanceS: 0 };
 
   constructor(diodes: ReadonlyArray<FoldedDiodeSpec>, lu: BandedLu) {
     const n = diodes.length;
     this.count = n;
     this.models = diodes.map((d) => d.model);
-    this.anode = Int32Array.from(diodes, (d) => d.anode);
-    this.cathode = Int32Array.from(diodes, (d) => d.cathode);
-    this.offsets = new Int32Array(4 * n);
-    const f64 = (): Float64Array => new Float64Array(n);
-    this.saturationA = f64();
-    this.vte = f64();
-    this.vcrit = f64();
-    this.seriesOhm = f64();
-    this.farReverseV = f64();
-    this.farReverseScale = f64();
-    this.farReverseG = f64();
-    this.reverseLeakOnly = new Uint8Array(n);
-    this.lastV = f64();
-    this.lastI = f64();
-    this.lastJunctionG = f64();
-    this.lastG = f64();
-    this.lastTerminalV = f64();
-    this.predictedV = f64();
-    this.hasPrediction = new Uint8Array(n);
-    this.isStale = new Uint8Array(n);
+    this.p = new Float64Array(RECORD * n);
+    this.q = new Int32Array(INDICES * n);
     diodes.forEach((d, k) => {
       const a = d.anode;
       const c = d.cathode;
-      this.offsets.set([lu.offsetOf(a, a), lu.offsetOf(a, c), lu.offsetOf(c, a), lu.offsetOf(c, c)], 4 * k);
+      this.q.set([a, c, lu.offsetOf(a, a), lu.offsetOf(a, c), lu.offsetOf(c, a), lu.offsetOf(c, c)], INDICES * k);
       const m = d.model;
       const vte = m.emissionCoefficient * THERMAL_VOLTAGE_V;
       const rs = m.seriesResistanceOhm;
       const leakOnly = !((m.breakdownVoltageV ?? 0) > 0);
-      this.saturationA[k] = m.saturationCurrentA;
-      this.vte[k] = vte;
-      this.vcrit[k] = criticalVoltageV(m.saturationCurrentA, vte);
-      this.seriesOhm[k] = rs;
-      this.reverseLeakOnly[k] = leakOnly ? 1 : 0;
+      const r = RECORD * k;
+      const p = this.p;
+      p[r + IS] = m.saturationCurrentA;
+      p[r + VTE] = vte;
+      p[r + VCRIT] = criticalVoltageV(m.saturationCurrentA, vte);
+      p[r + RS] = rs;
+      p[r + LEAK_ONLY] = leakOnly ? 1 : 0;
       // Far in reverse (|3·n·Vt/(e·v)| < 1e-3) the leak is −Is·(1 + ε) + gmin·v with ε < 1e-9: linear.
-      this.farReverseV[k] = leakOnly ? -(3 * vte) / (Math.E * 1e-3) - rs * m.saturationCurrentA : -Infinity;
-      this.farReverseScale[k] = 1 / (1 + rs * gminS);
-      this.farReverseG[k] = gminS / (1 + rs * gminS);
+      p[r + FAR_V] = leakOnly ? -(3 * vte) / (Math.E * 1e-3) - rs * m.saturationCurrentA : -Infinity;
+      p[r + FAR_SCALE] = 1 / (1 + rs * gminS);
+      p[r + FAR_G] = gminS / (1 + rs * gminS);
     });
   }
 
   /** Stamps every diode linearized at x (or at its predicted junction voltage) into band and rhs. */
   load(x: Float64Array, band: Float64Array, rhs: Float64Array): void {
     const out = this.out;
-    const offsets = this.offsets;
-    for (let k = 0; k < this.count; k++) {
-      const a = this.anode[k]!;
-      const c = this.cathode[k]!;
-      const rs = this.seriesOhm[k]!;
+    const p = this.p;
+    const q = this.q;
+    for (let k = 0, r = 0, o = 0; k < this.count; k++, r += RECORD, o += INDICES) {
+      const a = q[o]!;
+      const c = q[o + 1]!;
+      const rs = p[r + RS]!;
       let u: number;
       let v: number;
       let i: number;
       let gj: number;
       let g: number;
-      if (this.hasPrediction[k] === 1) {
-        this.hasPrediction[k] = 0;
+      if (p[r + HAS_PREDICTION] === 1) {
+        p[r + HAS_PREDICTION] = 0;
         // Linearized at the predicted junction voltage v: the point (u, I) = (v + Rs·I(v), I(v)) of the curve.
-        v = this.predictedV[k]!;
+        v = p[r + PREDICTED_V]!;
         diodeAt(this.models[k]!, v, out);
         i = out.currentA;
         gj = out.conductanceS;
         if (Number.isFinite(i) && Number.isFinite(gj)) {
           u = v + rs * i;
           g = gj / (1 + rs * gj);
-          this.record(k, u, v, i, gj, g);
-          stamp(band, rhs, offsets, k, a, c, g, i - g * u);
+          record(p, r, u, v, i, gj, g);
+          stamp(band, rhs, q, o, a, c, g, i - g * u);
           continue;
         }
       }
       u = x[a]! - x[c]!;
-      const vte = this.vte[k]!;
       // After a restored state the last load's current and terminal voltage belong to an abandoned iterate:
       // start from the junction voltage alone.
-      const isStale = this.isStale[k] === 1;
-      this.isStale[k] = 0;
-      const is = this.saturationA[k]!;
-      const lastV = this.lastV[k]!;
-      let iLin = 0;
-      if (u < this.farReverseV[k]!) {
+      const isStale = p[r + STALE] === 1;
+      p[r + STALE] = 0;
+      const is = p[r + IS]!;
+      if (u < p[r + FAR_V]!) {
         // The linear leak, v + Rs·I(v) = u solved exactly with the constants of the constructor.
-        v = (u + rs * is) * this.farReverseScale[k]!;
+        v = (u + rs * is) * p[r + FAR_SCALE]!;
         i = gminS * v - is;
         gj = gminS;
-        g = this.farReverseG[k]!;
+        g = p[r + FAR_G]!;
       } else {
-        const v0 = u - rs * this.lastI[k]!;
-        if (!isStale && this.reverseLeakOnly[k] === 1 && u < -6 * vte && lastV < -3 * vte && v0 < -3 * vte) {
+        const vte = p[r + VTE]!;
+        const lastV = p[r + LAST_V]!;
+        const v0 = u - rs * p[r + LAST_I]!;
+        if (!isStale && p[r + LEAK_ONLY] === 1 && u < -6 * vte && lastV < -3 * vte && v0 < -3 * vte) {
           // Reverse junction without breakdown: the leak I(v) = −Is·(1 + (3·n·Vt/(e·v))³) + gmin·v is nearly
           // linear, so one Newton step of v + Rs·I(v) = u from v0 = u − Rs·I_last leaves a residual of the
           // order of Rs·I″·Δv² (far below a femtovolt): the local solve in one evaluation, inline.
@@ -154,46 +136,39 @@ export class FoldedDiodes {
           const dv = -(v0 + rs * i - u) / (1 + rs * gj);
           i += gj * dv;
           v = v0 + dv;
-        } else if (!isStale && (iLin = this.lastI[k]! + this.lastG[k]! * (u - this.lastTerminalV[k]!)) > 0 && iLin < this.lastI[k]! && process.env.CURB) {
-          v = vte * Math.log1p(iLin / is);
-          diodeAt(this.models[k]!, v, out);
-          i = out.currentA;
-          gj = out.conductanceS;
-          u = v + rs * i;
         } else {
           // Start the local solve at the Newton step from the last junction point (v moves by
           // du/(1 + Rs·gj)): a reverse junction, near linear, then needs one evaluation, a conducting one
           // one fewer.
-          const guess = isStale ? lastV : lastV + (u - this.lastTerminalV[k]!) / (1 + rs * this.lastJunctionG[k]!);
+          const guess = isStale ? lastV : lastV + (u - p[r + LAST_U]!) / (1 + rs * p[r + LAST_GJ]!);
           v = solveJunction(this.models[k]!, u, guess, out);
           i = out.currentA;
           gj = out.conductanceS;
         }
         g = gj / (1 + rs * gj);
       }
-      this.record(k, u, v, i, gj, g);
-      stamp(band, rhs, offsets, k, a, c, g, i - g * u);
+      record(p, r, u, v, i, gj, g);
+      stamp(band, rhs, q, o, a, c, g, i - g * u);
     }
   }
 
-  private record(k: number, u: number, v: number, i: number, gj: number, g: number): void {
-    this.lastJunctionG[k] = gj;
-    this.lastV[k] = v;
-    this.lastTerminalV[k] = u;
-    this.lastI[k] = i;
-    this.lastG[k] = g;
+  /** Junction voltage of diode k at its last load (or last accepted point, after moveTo). */
+  junctionV(k: number): number {
+    return this.p[RECORD * k + LAST_V]!;
   }
 
   /** SPICE's device test on every diode: the linearized current change to solution x is within tolerance. */
   isConverged(x: Float64Array, relative: number, absoluteA: number): boolean {
-    for (let k = 0; k < this.count; k++) {
-      const du = x[this.anode[k]!]! - x[this.cathode[k]!]! - this.lastTerminalV[k]!;
-      const lastV = this.lastV[k]!;
-      const knee = -3 * this.vte[k]!;
+    const p = this.p;
+    const q = this.q;
+    for (let k = 0, r = 0, o = 0; k < this.count; k++, r += RECORD, o += INDICES) {
+      const du = x[q[o]!]! - x[q[o + 1]!]! - p[r + LAST_U]!;
+      const lastV = p[r + LAST_V]!;
+      const knee = -3 * p[r + VTE]!;
       // A junction that stays below −3·n·Vt without breakdown is a near-linear leak.
-      if (lastV < knee && lastV + du < knee && this.reverseLeakOnly[k] === 1) continue;
-      const lastI = this.lastI[k]!;
-      const change = this.lastG[k]! * du;
+      if (lastV < knee && lastV + du < knee && p[r + LEAK_ONLY] === 1) continue;
+      const lastI = p[r + LAST_I]!;
+      const change = p[r + LAST_G]! * du;
       if (Math.abs(change) > relative * Math.max(Math.abs(lastI + change), Math.abs(lastI)) + absoluteA) return false;
     }
     return true;
@@ -205,65 +180,77 @@ export class FoldedDiodes {
    * once Newton has converged, and where the next step's local solve and predictor should start.
    */
   moveTo(x: Float64Array): void {
-    for (let k = 0; k < this.count; k++) {
-      if (this.isStale[k] === 1) continue;
-      const du = x[this.anode[k]!]! - x[this.cathode[k]!]! - this.lastTerminalV[k]!;
+    const p = this.p;
+    const q = this.q;
+    for (let k = 0, r = 0, o = 0; k < this.count; k++, r += RECORD, o += INDICES) {
+      if (p[r + STALE] === 1) continue;
+      const du = x[q[o]!]! - x[q[o + 1]!]! - p[r + LAST_U]!;
       if (du === 0) continue;
-      this.lastV[k]! += du / (1 + this.seriesOhm[k]! * this.lastJunctionG[k]!);
-      this.lastI[k]! += this.lastG[k]! * du;
-      this.lastTerminalV[k]! += du;
+      p[r + LAST_V]! += du / (1 + p[r + RS]! * p[r + LAST_GJ]!);
+      p[r + LAST_I]! += p[r + LAST_G]! * du;
+      p[r + LAST_U]! += du;
     }
   }
 
   /** Junction voltages into `into` from `at` (after moveTo). */
   save(into: Float64Array, at: number): void {
-    into.set(this.lastV, at);
+    for (let k = 0; k < this.count; k++) into[at + k] = this.p[RECORD * k + LAST_V]!;
   }
 
   restore(from: Float64Array, at: number): void {
-    this.lastV.set(from.subarray(at, at + this.count));
-    this.hasPrediction.fill(0);
-    this.isStale.fill(1);
+    for (let k = 0, r = 0; k < this.count; k++, r += RECORD) {
+      this.p[r + LAST_V] = from[at + k]!;
+      this.p[r + HAS_PREDICTION] = 0;
+      this.p[r + STALE] = 1;
+    }
   }
 
   /**
-   * Predictor for the first load of a step: each diode is linearized at its junction voltage extrapolated
-   * from the last two accepted points (v0 + ratio·(v0 − v−1), pnjlim-limited against v0), not at the
-   * terminal voltage of the predicted unknowns (see MnaSystem.predictJunctions). Diodes with a breakdown
-   * knee, just restored, or far in reverse at both ends (a linear leak, exact at any predicted u) are left
-   * to the predicted unknowns.
+   * Predictor for the first load of a step: each diode is linearized at a junction voltage extrapolated
+   * by the stepper (predicted[at + k], pnjlim-limited against the present v0 = current[at + k]), not at
+   * the terminal voltage of the predicted unknowns (see MnaSystem.predictJunctions). Diodes with a
+   * breakdown knee, just restored, or far in reverse at both ends (a linear leak, exact at any predicted u)
+   * are left to the predicted unknowns.
    */
-  predict(current: Float64Array, previous: Float64Array, at: number, ratio: number): void {
-    for (let k = 0; k < this.count; k++) {
-      if (this.reverseLeakOnly[k] !== 1 || this.isStale[k] === 1) continue;
+  predict(current: Float64Array, predicted: Float64Array, at: number): void {
+    const p = this.p;
+    for (let k = 0, r = 0; k < this.count; k++, r += RECORD) {
+      if (p[r + LEAK_ONLY] !== 1 || p[r + STALE] === 1) continue;
       const v0 = current[at + k]!;
-      const extrapolated = v0 + ratio * (v0 - previous[at + k]!);
-      const far = this.farReverseV[k]!;
+      const extrapolated = predicted[at + k]!;
+      const far = p[r + FAR_V]!;
       if (v0 < far && extrapolated < far) continue;
-      const v = limitJunction(extrapolated, v0, this.vte[k]!, this.vcrit[k]!);
+      const v = limitJunction(extrapolated, v0, p[r + VTE]!, p[r + VCRIT]!);
       if (!Number.isFinite(v)) continue;
-      this.predictedV[k] = v;
-      this.hasPrediction[k] = 1;
+      p[r + PREDICTED_V] = v;
+      p[r + HAS_PREDICTION] = 1;
     }
   }
 }
 
-/** Linearized diode k: current g·(Va − Vc) + iEq from a to c. */
+function record(p: Float64Array, r: number, u: number, v: number, i: number, gj: number, g: number): void {
+  p[r + LAST_GJ] = gj;
+  p[r + LAST_V] = v;
+  p[r + LAST_U] = u;
+  p[r + LAST_I] = i;
+  p[r + LAST_G] = g;
+}
+
+/** Linearized diode: current g·(Va − Vc) + iEq from a to c, band offsets at q[o + 2 … o + 5]. */
 function stamp(
   band: Float64Array,
   rhs: Float64Array,
-  offsets: Int32Array,
-  k: number,
+  q: Int32Array,
+  o: number,
   a: number,
   c: number,
   g: number,
   iEq: number,
 ): void {
-  const o = 4 * k;
-  band[offsets[o]!]! += g;
-  band[offsets[o + 1]!]! -= g;
-  band[offsets[o + 2]!]! -= g;
-  band[offsets[o + 3]!]! += g;
+  band[q[o + 2]!]! += g;
+  band[q[o + 3]!]! -= g;
+  band[q[o + 4]!]! -= g;
+  band[q[o + 5]!]! += g;
   rhs[a]! -= iEq;
   rhs[c]! += iEq;
 }
