@@ -135,7 +135,7 @@ export class TransientStepper {
   private previousStepS = 0;
   private useBackwardEulerNext = true;
   private nextBreakS: number;
-  /** Period of the sources (NaN: none) and the accepted points of the last period or more, for the predictor. */
+  /** Period of the sources (NaN: none) and the accepted points of the last two periods, for the predictor. */
   private readonly periodS: number;
   private readonly lastPeriod: PeriodHistory | null;
   private readonly predictedJunction: Float64Array;
@@ -250,11 +250,14 @@ export class TransientStepper {
       const next = past && base >= 0 ? past.find(t1 - this.periodS, h) : -1;
       const pj = this.predictedJunction;
       if (next >= 0) {
-        // Periodic predictor: the last period's point one period back, moved by the drift since then,
-        // x(t1 − T) + (x(t0) − x(t0 − T)). Exact for a periodic waveform on a linear drift, which is what a
-        // multiplier charging up or settling is from one period to the next; unlike an extrapolation of
-        // the last two points, it foresees each diode's conduction pulse.
-        past!.predict(next, base, this.x0, x, sys.size, this.junction0, pj);
+        // Periodic predictor: the point one period back, moved by the drift since then,
+        // x(t1 − T) + (x(t0) − x(t0 − T)), and with two periods kept the drift itself extrapolated from one
+        // period to the next. A multiplier charging up or settling is a periodic waveform on a slow drift,
+        // so this foresees each diode's conduction pulse, which an extrapolation of the last two points
+        // cannot.
+        const next2 = past!.find(t1 - 2 * this.periodS, h);
+        const base2 = next2 >= 0 ? past!.find(this.timeS - 2 * this.periodS, h) : -1;
+        past!.predict(next, base, base2 >= 0 ? next2 : -1, base2, this.x0, x, sys.size, this.junction0, pj);
         sys.predictJunctions(this.junction0, pj);
       } else if (this.acceptedSteps > 1 && this.previousStepS > 0 && !isEuler) {
         // Linear extrapolation of the last two points.
@@ -378,7 +381,7 @@ export class TransientStepper {
     this.x0.set(sys.x);
     this.junctionM1.set(this.junction0);
     sys.saveJunctionState(this.junction0);
-    this.lastPeriod?.push(t1, sys.x, this.junction0, t1 - this.periodS);
+    this.lastPeriod?.push(t1, sys.x, this.junction0, t1 - 2 * this.periodS);
     this.previousStepS = h;
     this.timeS = t1;
     this.acceptedSteps++;
@@ -392,8 +395,8 @@ export class TransientStepper {
 }
 
 /**
- * Accepted points (time, unknowns, junction state) of at least the last period, oldest first, for the
- * periodic predictor. A ring that grows while one period does not fit, up to MAX_POINTS.
+ * Accepted points (time, unknowns, junction state) of at least the last two periods, oldest first, for
+ * the periodic predictor. A ring that grows while two periods do not fit, up to MAX_POINTS.
  */
 class PeriodHistory {
   private static readonly MAX_POINTS = 1 << 15;
@@ -479,24 +482,47 @@ class PeriodHistory {
     return -1;
   }
 
-  /** x = x(next) + x0 − x(base) for the first n unknowns, and the same for the junction state. */
+  /**
+   * The periodic prediction of the first n unknowns and of the junction state: from one period back,
+   * x = x(next) + x0 − x(base); from two (next2, base2 ≥ 0), with the drift extrapolated too,
+   * x = 2·x(next) − x(next2) + x0 − 2·x(base) + x(base2).
+   */
   predict(
     next: number,
     base: number,
+    next2: number,
+    base2: number,
     x0: Float64Array,
     x: Float64Array,
     n: number,
     junction0: Float64Array,
     junction: Float64Array,
   ): void {
-    const pn = this.slot(next) * this.xLength;
-    const pb = this.slot(base) * this.xLength;
-    const xs = this.xs;
-    for (let i = 0; i < n; i++) x[i] = xs[pn + i]! + x0[i]! - xs[pb + i]!;
-    const qn = this.slot(next) * this.jLength;
-    const qb = this.slot(base) * this.jLength;
-    const js = this.js;
-    for (let k = 0; k < this.jLength; k++) junction[k] = js[qn + k]! + junction0[k]! - js[qb + k]!;
+    this.extrapolate(this.xs, this.xLength, next, base, next2, base2, x0, x, n);
+    this.extrapolate(this.js, this.jLength, next, base, next2, base2, junction0, junction, this.jLength);
+  }
+
+  private extrapolate(
+    stored: Float64Array,
+    stride: number,
+    next: number,
+    base: number,
+    next2: number,
+    base2: number,
+    now: Float64Array,
+    into: Float64Array,
+    n: number,
+  ): void {
+    const pn = this.slot(next) * stride;
+    const pb = this.slot(base) * stride;
+    if (next2 < 0) {
+      for (let i = 0; i < n; i++) into[i] = stored[pn + i]! + now[i]! - stored[pb + i]!;
+      return;
+    }
+    const pn2 = this.slot(next2) * stride;
+    const pb2 = this.slot(base2) * stride;
+    for (let i = 0; i < n; i++)
+      into[i] = 2 * (stored[pn + i]! - stored[pb + i]!) - stored[pn2 + i]! + stored[pb2 + i]! + now[i]!;
   }
 }
 
