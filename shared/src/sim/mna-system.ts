@@ -385,13 +385,14 @@ export class MnaSystem {
     const gb = this.conductanceBand;
     const cb = this.reactanceBand;
     for (let i = 0; i < lb.length; i++) lb[i] = gb[i]! + a0 * cb[i]!;
-    this.switches.forEach((s, i) => {
+    for (let i = 0; i < this.switches.length; i++) {
+      const s = this.switches[i]!;
       const gs = key[i] === '1' ? s.onS : s.offS;
       lb[s.offsets[0]!]! += gs;
       lb[s.offsets[1]!]! += gs;
       lb[s.offsets[2]!]! -= gs;
       lb[s.offsets[3]!]! -= gs;
-    });
+    }
   }
 
   /** Earliest source corner or switch event strictly after timeS. */

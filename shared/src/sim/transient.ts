@@ -121,16 +121,16 @@ export class TransientStepper {
   readonly method: IntegrationMethod;
   readonly tolerances: SimulationTolerances;
   /** Charge at the last accepted point and its time derivative; previous points for Gear-2 and the error estimate. */
-  readonly q0: Float64Array;
+  q0: Float64Array;
   readonly qd0: Float64Array;
-  private readonly qm1: Float64Array;
-  private readonly qm2: Float64Array;
+  private qm1: Float64Array;
+  private qm2: Float64Array;
   private readonly tHistory = new Float64Array(3);
   private historyCount = 0;
-  private readonly x0: Float64Array;
-  private readonly xm1: Float64Array;
-  private readonly junction0: Float64Array;
-  private readonly junctionM1: Float64Array;
+  private x0: Float64Array;
+  private xm1: Float64Array;
+  private junction0: Float64Array;
+  private junctionM1: Float64Array;
   private stepS: number;
   private previousStepS = 0;
   private useBackwardEulerNext = true;
@@ -224,10 +224,12 @@ export class TransientStepper {
       // Step onto the time one period after a point of the last period when that is at most a little
       // shorter than the step wanted, so that the periodic predictor below has a point to start from.
       const past = this.lastPeriod;
-      const base = past ? past.find(this.timeS - this.periodS, h) : -1;
+      const base = past ? past.find(this.timeS - this.periodS, h, 0) : -1;
       if (past && base >= 0 && base + 1 < past.count) {
         const lockedS = past.timeAt(base + 1) + this.periodS - this.timeS;
-        if (lockedS > 0.5 * h && lockedS <= h * (1 + 1e-9)) h = lockedS;
+        // A step that already lands there to within rounding stays as it is, so that the matrix G + a0·C
+        // of an unchanged step is not rebuilt for a last-bit difference in a0.
+        if (lockedS > 0.5 * h && lockedS <= h * (1 + 1e-9) && Math.abs(lockedS - h) > 1e-9 * h) h = lockedS;
       }
       const limitS = Math.min(untilS, this.nextBreakS);
       let landsOnBreak = false;
@@ -247,7 +249,7 @@ export class TransientStepper {
       sys.prepareLinearMatrix(a0, t1);
       sys.prepareStepRhs(t1);
       const x = sys.x;
-      const next = past && base >= 0 ? past.find(t1 - this.periodS, h) : -1;
+      const next = past && base >= 0 ? past.find(t1 - this.periodS, h, 1) : -1;
       const pj = this.predictedJunction;
       if (next >= 0) {
         // Periodic predictor: the point one period back, moved by the drift since then,
@@ -255,8 +257,8 @@ export class TransientStepper {
         // period to the next. A multiplier charging up or settling is a periodic waveform on a slow drift,
         // so this foresees each diode's conduction pulse, which an extrapolation of the last two points
         // cannot.
-        const next2 = past!.find(t1 - 2 * this.periodS, h);
-        const base2 = next2 >= 0 ? past!.find(this.timeS - 2 * this.periodS, h) : -1;
+        const next2 = past!.find(t1 - 2 * this.periodS, h, 2);
+        const base2 = next2 >= 0 ? past!.find(this.timeS - 2 * this.periodS, h, 3) : -1;
         past!.predict(next, base, base2 >= 0 ? next2 : -1, base2, this.x0, x, sys.size, this.junction0, pj);
         sys.predictJunctions(this.junction0, pj);
       } else if (this.acceptedSteps > 1 && this.previousStepS > 0 && !isEuler) {
@@ -367,19 +369,29 @@ export class TransientStepper {
     const sys = this.system;
     const q1 = sys.charge;
     const hist = sys.hist;
+    // The older points move by exchanging buffers; only the new one is copied.
+    const oldest = this.qm2;
+    this.qm2 = this.qm1;
+    this.qm1 = this.q0;
+    this.q0 = oldest;
+    const q0 = this.q0;
+    const qd0 = this.qd0;
     for (let k = 0; k < sys.reactiveCount; k++) {
-      this.qm2[k] = this.qm1[k]!;
-      this.qm1[k] = this.q0[k]!;
-      this.q0[k] = q1[k]!;
-      this.qd0[k] = a0 * q1[k]! + hist[k]!;
+      const q = q1[k]!;
+      q0[k] = q;
+      qd0[k] = a0 * q + hist[k]!;
     }
     this.tHistory[2] = this.tHistory[1]!;
     this.tHistory[1] = this.timeS;
     this.tHistory[0] = t1;
     this.historyCount = Math.min(3, this.historyCount + 1);
-    this.xm1.set(this.x0);
+    const xOld = this.xm1;
+    this.xm1 = this.x0;
+    this.x0 = xOld;
     this.x0.set(sys.x);
-    this.junctionM1.set(this.junction0);
+    const jOld = this.junctionM1;
+    this.junctionM1 = this.junction0;
+    this.junction0 = jOld;
     sys.saveJunctionState(this.junction0);
     this.lastPeriod?.push(t1, sys.x, this.junction0, t1 - 2 * this.periodS);
     this.previousStepS = h;
@@ -403,6 +415,10 @@ class PeriodHistory {
   private capacity = 256;
   private start = 0;
   count = 0;
+  /** Points pushed since the last clear; a point's sequence number is its place in that count. */
+  private pushed = 0;
+  /** Sequence numbers of the last points found, by the caller's slot (see find). */
+  private readonly hints = new Float64Array(4).fill(-1);
   private times = new Float64Array(this.capacity);
   private xs: Float64Array;
   private js: Float64Array;
@@ -418,6 +434,8 @@ class PeriodHistory {
   clear(): void {
     this.start = 0;
     this.count = 0;
+    this.pushed = 0;
+    this.hints.fill(-1);
   }
 
   private slot(i: number): number {
@@ -443,9 +461,11 @@ class PeriodHistory {
     }
     const s = this.slot(this.count);
     this.times[s] = timeS;
-    this.xs.set(x.subarray(0, this.xLength), s * this.xLength);
-    this.js.set(junction.subarray(0, this.jLength), s * this.jLength);
+    // x and junction are exactly xLength and jLength long (the stepper's own vectors).
+    this.xs.set(x, s * this.xLength);
+    this.js.set(junction, s * this.jLength);
     this.count++;
+    this.pushed++;
   }
 
   private grow(): void {
@@ -466,9 +486,28 @@ class PeriodHistory {
     this.start = 0;
   }
 
-  /** Index of the stored point at timeS (to within 1e-6 of stepS), or −1. */
-  find(timeS: number, stepS: number): number {
+  /**
+   * Index of the stored point at timeS (to within 1e-6 of stepS), or −1. A caller asking for times that
+   * advance step by step passes its own `slot` (0–3): the point after the last one found there is tried
+   * first, and the search only runs when that misses.
+   */
+  find(timeS: number, stepS: number, slot: number): number {
     if (this.count === 0) return -1;
+    const tolerance = 1e-6 * stepS;
+    const first = this.pushed - this.count;
+    const hinted = this.hints[slot]! - first;
+    for (let i = hinted + 1; i >= hinted && i >= 0; i--) {
+      if (i < this.count && Math.abs(this.timeAt(i) - timeS) <= tolerance) {
+        this.hints[slot] = first + i;
+        return i;
+      }
+    }
+    const found = this.search(timeS, tolerance);
+    if (found >= 0) this.hints[slot] = first + found;
+    return found;
+  }
+
+  private search(timeS: number, tolerance: number): number {
     let lo = 0;
     let hi = this.count - 1;
     while (lo < hi) {
@@ -476,7 +515,6 @@ class PeriodHistory {
       if (this.timeAt(mid) < timeS) lo = mid + 1;
       else hi = mid;
     }
-    const tolerance = 1e-6 * stepS;
     if (Math.abs(this.timeAt(lo) - timeS) <= tolerance) return lo;
     if (lo > 0 && Math.abs(this.timeAt(lo - 1) - timeS) <= tolerance) return lo - 1;
     return -1;

@@ -90,10 +90,11 @@ export class FoldedDiodes {
       const c = q[o + 1]!;
       const rs = p[r + RS]!;
       let u: number;
-      let v: number;
-      let i: number;
-      let gj: number;
+      let v = 0;
+      let i = 0;
+      let gj = 0;
       let g: number;
+      let isPredicted = false;
       if (p[r + HAS_PREDICTION] === 1) {
         p[r + HAS_PREDICTION] = 0;
         // Linearized at the predicted junction voltage v: the point (u, I) = (v + Rs·I(v), I(v)) of the curve.
@@ -101,54 +102,64 @@ export class FoldedDiodes {
         diodeAt(this.models[k]!, v, out);
         i = out.currentA;
         gj = out.conductanceS;
-        if (Number.isFinite(i) && Number.isFinite(gj)) {
-          u = v + rs * i;
-          g = gj / (1 + rs * gj);
-          record(p, r, u, v, i, gj, g);
-          stamp(band, rhs, q, o, a, c, g, i - g * u);
-          continue;
-        }
+        isPredicted = Number.isFinite(i) && Number.isFinite(gj);
       }
-      u = x[a]! - x[c]!;
-      // After a restored state the last load's current and terminal voltage belong to an abandoned iterate:
-      // start from the junction voltage alone.
-      const isStale = p[r + STALE] === 1;
-      p[r + STALE] = 0;
-      const is = p[r + IS]!;
-      if (u < p[r + FAR_V]!) {
-        // The linear leak, v + Rs·I(v) = u solved exactly with the constants of the constructor.
-        v = (u + rs * is) * p[r + FAR_SCALE]!;
-        i = gminS * v - is;
-        gj = gminS;
-        g = p[r + FAR_G]!;
-      } else {
-        const vte = p[r + VTE]!;
-        const lastV = p[r + LAST_V]!;
-        const v0 = u - rs * p[r + LAST_I]!;
-        if (!isStale && p[r + LEAK_ONLY] === 1 && u < -6 * vte && lastV < -3 * vte && v0 < -3 * vte) {
-          // Reverse junction without breakdown: the leak I(v) = −Is·(1 + (3·n·Vt/(e·v))³) + gmin·v is nearly
-          // linear, so one Newton step of v + Rs·I(v) = u from v0 = u − Rs·I_last leaves a residual of the
-          // order of Rs·I″·Δv² (far below a femtovolt): the local solve in one evaluation, inline.
-          const arg = (3 * vte) / (v0 * Math.E);
-          const arg3 = arg * arg * arg;
-          gj = (is * 3 * arg3) / v0 + gminS;
-          i = -is * (1 + arg3) + gminS * v0;
-          const dv = -(v0 + rs * i - u) / (1 + rs * gj);
-          i += gj * dv;
-          v = v0 + dv;
-        } else {
-          // Start the local solve at the Newton step from the last junction point (v moves by
-          // du/(1 + Rs·gj)): a reverse junction, near linear, then needs one evaluation, a conducting one
-          // one fewer.
-          const guess = isStale ? lastV : lastV + (u - p[r + LAST_U]!) / (1 + rs * p[r + LAST_GJ]!);
-          v = solveJunction(this.models[k]!, u, guess, out);
-          i = out.currentA;
-          gj = out.conductanceS;
-        }
+      if (isPredicted) {
+        u = v + rs * i;
         g = gj / (1 + rs * gj);
+      } else {
+        u = x[a]! - x[c]!;
+        // After a restored state the last load's current and terminal voltage belong to an abandoned iterate:
+        // start from the junction voltage alone.
+        const isStale = p[r + STALE] === 1;
+        p[r + STALE] = 0;
+        const is = p[r + IS]!;
+        if (u < p[r + FAR_V]!) {
+          // The linear leak, v + Rs·I(v) = u solved exactly with the constants of the constructor.
+          v = (u + rs * is) * p[r + FAR_SCALE]!;
+          i = gminS * v - is;
+          gj = gminS;
+          g = p[r + FAR_G]!;
+        } else {
+          const vte = p[r + VTE]!;
+          const lastV = p[r + LAST_V]!;
+          const v0 = u - rs * p[r + LAST_I]!;
+          if (!isStale && p[r + LEAK_ONLY] === 1 && u < -6 * vte && lastV < -3 * vte && v0 < -3 * vte) {
+            // Reverse junction without breakdown: the leak I(v) = −Is·(1 + (3·n·Vt/(e·v))³) + gmin·v is nearly
+            // linear, so one Newton step of v + Rs·I(v) = u from v0 = u − Rs·I_last leaves a residual of the
+            // order of Rs·I″·Δv² (far below a femtovolt): the local solve in one evaluation, inline.
+            const arg = (3 * vte) / (v0 * Math.E);
+            const arg3 = arg * arg * arg;
+            gj = (is * 3 * arg3) / v0 + gminS;
+            i = -is * (1 + arg3) + gminS * v0;
+            const dv = -(v0 + rs * i - u) / (1 + rs * gj);
+            i += gj * dv;
+            v = v0 + dv;
+          } else {
+            // Start the local solve at the Newton step from the last junction point (v moves by
+            // du/(1 + Rs·gj)): a reverse junction, near linear, then needs one evaluation, a conducting one
+            // one fewer.
+            const guess = isStale ? lastV : lastV + (u - p[r + LAST_U]!) / (1 + rs * p[r + LAST_GJ]!);
+            v = solveJunction(this.models[k]!, u, guess, out);
+            i = out.currentA;
+            gj = out.conductanceS;
+          }
+          g = gj / (1 + rs * gj);
+        }
       }
-      record(p, r, u, v, i, gj, g);
-      stamp(band, rhs, q, o, a, c, g, i - g * u);
+      // Record and stamp inline (a call would box every double argument): current g·(Va − Vc) + iEq.
+      p[r + LAST_GJ] = gj;
+      p[r + LAST_V] = v;
+      p[r + LAST_U] = u;
+      p[r + LAST_I] = i;
+      p[r + LAST_G] = g;
+      band[q[o + 2]!]! += g;
+      band[q[o + 3]!]! -= g;
+      band[q[o + 4]!]! -= g;
+      band[q[o + 5]!]! += g;
+      const iEq = i - g * u;
+      rhs[a]! -= iEq;
+      rhs[c]! += iEq;
     }
   }
 
@@ -226,31 +237,4 @@ export class FoldedDiodes {
       p[r + HAS_PREDICTION] = 1;
     }
   }
-}
-
-function record(p: Float64Array, r: number, u: number, v: number, i: number, gj: number, g: number): void {
-  p[r + LAST_GJ] = gj;
-  p[r + LAST_V] = v;
-  p[r + LAST_U] = u;
-  p[r + LAST_I] = i;
-  p[r + LAST_G] = g;
-}
-
-/** Linearized diode: current g·(Va − Vc) + iEq from a to c, band offsets at q[o + 2 … o + 5]. */
-function stamp(
-  band: Float64Array,
-  rhs: Float64Array,
-  q: Int32Array,
-  o: number,
-  a: number,
-  c: number,
-  g: number,
-  iEq: number,
-): void {
-  band[q[o + 2]!]! += g;
-  band[q[o + 3]!]! -= g;
-  band[q[o + 4]!]! -= g;
-  band[q[o + 5]!]! += g;
-  rhs[a]! -= iEq;
-  rhs[c]! += iEq;
 }
