@@ -507,24 +507,33 @@ export class MnaSystem {
   /** Charges and fluxes of the linear reactive elements at x (nonlinear ones are set by load). */
   evaluateLinearCharges(): void {
     const x = this.x;
+    const start = this.gradientStart;
+    const index = this.gradientIndex;
+    const value = this.gradientValue;
+    const charge = this.charge;
     for (let k = 0; k < this.linearReactiveCount; k++) {
+      const from = start[k]!;
+      const to = start[k + 1]!;
+      // A capacitor's charge has two terms, C·Va − C·Vb.
+      if (to - from === 2) {
+        charge[k] = value[from]! * x[index[from]!]! + value[from + 1]! * x[index[from + 1]!]!;
+        continue;
+      }
       let q = 0;
-      for (let p = this.gradientStart[k]!; p < this.gradientStart[k + 1]!; p++)
-        q += this.gradientValue[p]! * x[this.gradientIndex[p]!]!;
-      this.charge[k] = q;
+      for (let p = from; p < to; p++) q += value[p]! * x[index[p]!]!;
+      charge[k] = q;
     }
   }
 
   /**
    * Junction voltages used by voltage limiting and prediction; saved and restored around rejected steps.
    * Saved at a solution x: folded diodes first move their state from the last linearization point to x
-   * along that linearization (see FoldedDiodes.moveTo), so that a step accepted at its first iteration
+   * along that linearization (see FoldedDiodes.moveToAndSave), so that a step accepted at its first iteration
    * does not leave the junction history at the predictor. Layout: folded diodes, other diodes, then Vbe
    * and Vbc of each transistor.
    */
   saveJunctionState(into: Float64Array): void {
-    this.folded.moveTo(this.x);
-    this.folded.save(into, 0);
+    this.folded.moveToAndSave(this.x, into, 0);
     let k = this.folded.count;
     for (const d of this.diodes) into[k++] = d.lastV;
     for (const q of this.npns) {

@@ -163,11 +163,6 @@ export class FoldedDiodes {
     }
   }
 
-  /** Junction voltage of diode k at its last load (or last accepted point, after moveTo). */
-  junctionV(k: number): number {
-    return this.p[RECORD * k + LAST_V]!;
-  }
-
   /** SPICE's device test on every diode: the linearized current change to solution x is within tolerance. */
   isConverged(x: Float64Array, relative: number, absoluteA: number): boolean {
     const p = this.p;
@@ -188,24 +183,24 @@ export class FoldedDiodes {
   /**
    * Moves each diode's last point from where it was linearized to the terminal voltage of solution x
    * along the linearization (v by du/(1 + Rs·gj), I by g·du): within the device tolerance of the curve
-   * once Newton has converged, and where the next step's local solve and predictor should start.
+   * once Newton has converged, and where the next step's local solve and predictor should start; then
+   * writes the junction voltages into `into` from `at`.
    */
-  moveTo(x: Float64Array): void {
+  moveToAndSave(x: Float64Array, into: Float64Array, at: number): void {
     const p = this.p;
     const q = this.q;
     for (let k = 0, r = 0, o = 0; k < this.count; k++, r += RECORD, o += INDICES) {
-      if (p[r + STALE] === 1) continue;
-      const du = x[q[o]!]! - x[q[o + 1]!]! - p[r + LAST_U]!;
-      if (du === 0) continue;
-      p[r + LAST_V]! += du / (1 + p[r + RS]! * p[r + LAST_GJ]!);
-      p[r + LAST_I]! += p[r + LAST_G]! * du;
-      p[r + LAST_U]! += du;
+      if (p[r + STALE] !== 1) {
+        const du = x[q[o]!]! - x[q[o + 1]!]! - p[r + LAST_U]!;
+        if (du !== 0) {
+          p[r + LAST_V]! += du / (1 + p[r + RS]! * p[r + LAST_GJ]!);
+          p[r + LAST_I]! += p[r + LAST_G]! * du;
+          p[r + LAST_U]! += du;
+        }
+      }
+      // The junction voltages, into `into` from `at`.
+      into[at + k] = p[r + LAST_V]!;
     }
-  }
-
-  /** Junction voltages into `into` from `at` (after moveTo). */
-  save(into: Float64Array, at: number): void {
-    for (let k = 0; k < this.count; k++) into[at + k] = this.p[RECORD * k + LAST_V]!;
   }
 
   restore(from: Float64Array, at: number): void {
