@@ -442,10 +442,12 @@ export class MnaSystem {
       }
     }
     const h = this.hist;
+    const rowA = this.reactiveRowA;
+    const rowB = this.reactiveRowB;
     for (let k = 0; k < this.reactiveCount; k++) {
       const v = h[k]!;
-      r[this.reactiveRowA[k]!]! -= v;
-      r[this.reactiveRowB[k]!]! += v;
+      r[rowA[k]!]! -= v;
+      r[rowB[k]!]! += v;
     }
     r[this.size] = 0;
   }

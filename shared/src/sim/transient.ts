@@ -34,7 +34,7 @@ export function solveNewton(
 ): number {
   const x = system.x;
   const n = system.size;
-  const isVoltage = nodeMask(system);
+  let isVoltage: Uint8Array | null = null;
   for (let iteration = 1; iteration <= maxIterations; iteration++) {
     const limited = system.load(a0);
     const next = system.solveLoaded();
@@ -53,6 +53,7 @@ export function solveNewton(
       }
       return iteration;
     }
+    isVoltage ??= nodeMask(system);
     for (let i = 0; i < n; i++) {
       const xn = next[i]!;
       if (!Number.isFinite(xn)) return -1;
@@ -304,18 +305,22 @@ export class TransientStepper {
         const s3 = (6 * factor) / (t1 - tm2);
         const chargeScale = tol.relative / h;
         let boundH2 = Infinity;
+        const q0 = this.q0;
+        const qm1 = this.qm1;
+        const qm2 = this.qm2;
+        const qd0 = this.qd0;
         for (let k = 0; k < sys.reactiveCount; k++) {
           const qa = q1[k]!;
-          const qb = this.q0[k]!;
-          const qc = this.qm1[k]!;
-          const qe = this.qm2[k]!;
+          const qb = q0[k]!;
+          const qc = qm1[k]!;
+          const qe = qm2[k]!;
           const d1a = (qa - qb) * r10;
           const d1b = (qb - qc) * r01;
           const d1c = (qc - qe) * r12;
           const err = Math.abs((d1a - d1b) * s1 - (d1b - d1c) * s2) * s3;
           if (!(err > 0)) continue;
           const i1 = a0 * qa + hist[k]!;
-          const currentTol = tol.currentAbsoluteA + tol.relative * Math.max(Math.abs(i1), Math.abs(this.qd0[k]!));
+          const currentTol = tol.currentAbsoluteA + tol.relative * Math.max(Math.abs(i1), Math.abs(qd0[k]!));
           const chargeTol = chargeScale * Math.max(Math.abs(qa), Math.abs(qb), tol.chargeAbsoluteC);
           const allowed = tol.truncationErrorFactor * Math.max(currentTol, chargeTol);
           if (allowed < boundH2 * err) boundH2 = allowed / err;
@@ -347,21 +352,24 @@ export class TransientStepper {
   private setHistory(h: number, isEuler: boolean): number {
     const hist = this.system.hist;
     const r = this.system.reactiveCount;
+    const q0 = this.q0;
     if (isEuler) {
       const a0 = 1 / h;
-      for (let k = 0; k < r; k++) hist[k] = -a0 * this.q0[k]!;
+      for (let k = 0; k < r; k++) hist[k] = -a0 * q0[k]!;
       return a0;
     }
     if (this.method === 'trapezoidal') {
       const a0 = 2 / h;
-      for (let k = 0; k < r; k++) hist[k] = -a0 * this.q0[k]! - this.qd0[k]!;
+      const qd0 = this.qd0;
+      for (let k = 0; k < r; k++) hist[k] = -a0 * q0[k]! - qd0[k]!;
       return a0;
     }
     const rho = h / this.previousStepS;
     const a0 = (1 + 2 * rho) / ((1 + rho) * h);
     const a1 = -(1 + rho) / h;
     const a2 = (rho * rho) / ((1 + rho) * h);
-    for (let k = 0; k < r; k++) hist[k] = a1 * this.q0[k]! + a2 * this.qm1[k]!;
+    const qm1 = this.qm1;
+    for (let k = 0; k < r; k++) hist[k] = a1 * q0[k]! + a2 * qm1[k]!;
     return a0;
   }
 
