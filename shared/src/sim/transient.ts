@@ -136,10 +136,12 @@ export class TransientStepper {
   private previousStepS = 0;
   private useBackwardEulerNext = true;
   private nextBreakS: number;
-  /** Period of the sources (NaN: none) and the accepted points of the last two periods, for the predictor. */
+  /** Period of the sources (NaN: none) and the accepted points of the last periods, for the predictor. */
   private readonly periodS: number;
   private readonly lastPeriod: PeriodHistory | null;
   private readonly predictedJunction: Float64Array;
+  /** Points of the periodic predictor: t1 − m·T and t0 − m·T for m = 1, 2, … (see PeriodHistory.predict). */
+  private readonly periodRefs = new Int32Array(2 * PeriodHistory.PERIODS);
 
   constructor(
     system: MnaSystem,
@@ -254,13 +256,23 @@ export class TransientStepper {
       const pj = this.predictedJunction;
       if (next >= 0) {
         // Periodic predictor: the point one period back, moved by the drift since then,
-        // x(t1 − T) + (x(t0) − x(t0 − T)), and with two periods kept the drift itself extrapolated from one
-        // period to the next. A multiplier charging up or settling is a periodic waveform on a slow drift,
+        // x(t1 − T) + (x(t0) − x(t0 − T)), and with more periods kept the drift itself extrapolated from
+        // one period to the next. A multiplier charging up or settling is a periodic waveform on a slow drift,
         // so this foresees each diode's conduction pulse, which an extrapolation of the last two points
         // cannot.
-        const next2 = past!.find(t1 - 2 * this.periodS, h, 2);
-        const base2 = next2 >= 0 ? past!.find(this.timeS - 2 * this.periodS, h, 3) : -1;
-        past!.predict(next, base, base2 >= 0 ? next2 : -1, base2, this.x0, x, sys.size, this.junction0, pj);
+        let periods = 1;
+        const refs = this.periodRefs;
+        refs[0] = next;
+        refs[1] = base;
+        while (periods < PeriodHistory.PERIODS) {
+          const n = past!.find(t1 - (periods + 1) * this.periodS, h, 2 * periods);
+          const b = n >= 0 ? past!.find(this.timeS - (periods + 1) * this.periodS, h, 2 * periods + 1) : -1;
+          if (b < 0) break;
+          refs[2 * periods] = n;
+          refs[2 * periods + 1] = b;
+          periods++;
+        }
+        past!.predict(refs, periods, this.x0, x, sys.size, this.junction0, pj);
         sys.predictJunctions(this.junction0, pj);
       } else if (this.acceptedSteps > 1 && this.previousStepS > 0 && !isEuler) {
         // Linear extrapolation of the last two points.
@@ -401,7 +413,7 @@ export class TransientStepper {
     this.junctionM1 = this.junction0;
     this.junction0 = jOld;
     sys.saveJunctionState(this.junction0);
-    this.lastPeriod?.push(t1, sys.x, this.junction0, t1 - 2 * this.periodS);
+    this.lastPeriod?.push(t1, sys.x, this.junction0, t1 - PeriodHistory.PERIODS * this.periodS);
     this.previousStepS = h;
     this.timeS = t1;
     this.acceptedSteps++;
@@ -415,10 +427,12 @@ export class TransientStepper {
 }
 
 /**
- * Accepted points (time, unknowns, junction state) of at least the last two periods, oldest first, for
- * the periodic predictor. A ring that grows while two periods do not fit, up to MAX_POINTS.
+ * Accepted points (time, unknowns, junction state) of at least the last PERIODS periods, oldest first,
+ * for the periodic predictor. A ring that grows while they do not fit, up to MAX_POINTS.
  */
 class PeriodHistory {
+  /** Periods kept: the drift from one period to the next is extrapolated by a polynomial through them. */
+  static readonly PERIODS = 3;
   private static readonly MAX_POINTS = 1 << 15;
   private capacity = 256;
   private start = 0;
@@ -426,7 +440,7 @@ class PeriodHistory {
   /** Points pushed since the last clear; a point's sequence number is its place in that count. */
   private pushed = 0;
   /** Sequence numbers of the last points found, by the caller's slot (see find). */
-  private readonly hints = new Float64Array(4).fill(-1);
+  private readonly hints = new Float64Array(2 * PeriodHistory.PERIODS).fill(-1);
   private times = new Float64Array(this.capacity);
   private xs: Float64Array;
   private js: Float64Array;
@@ -496,7 +510,7 @@ class PeriodHistory {
 
   /**
    * Index of the stored point at timeS (to within 1e-6 of stepS), or −1. A caller asking for times that
-   * advance step by step passes its own `slot` (0–3): the point after the last one found there is tried
+   * advance step by step passes its own `slot` (0 … 2·PERIODS − 1): the point after the last one found there is tried
    * first, and the search only runs when that misses.
    */
   find(timeS: number, stepS: number, slot: number): number {
@@ -529,46 +543,53 @@ class PeriodHistory {
   }
 
   /**
-   * The periodic prediction of the first n unknowns and of the junction state: from one period back,
-   * x = x(next) + x0 − x(base); from two (next2, base2 ≥ 0), with the drift extrapolated too,
-   * x = 2·x(next) − x(next2) + x0 − 2·x(base) + x(base2).
+   * The periodic prediction of the first n unknowns and of the junction state, from the stored points
+   * refs[2m − 2] at t1 − m·T and refs[2m − 1] at t0 − m·T, m = 1 … periods: the drift over one period,
+   * d(m) = x(t1 − m·T) − x(t0 − m·T), extrapolated to the present period by the polynomial through the
+   * last `periods` of them (weights 1; 2, −1; 3, −3, 1), plus x0.
    */
   predict(
-    next: number,
-    base: number,
-    next2: number,
-    base2: number,
+    refs: Int32Array,
+    periods: number,
     x0: Float64Array,
     x: Float64Array,
     n: number,
     junction0: Float64Array,
     junction: Float64Array,
   ): void {
-    this.extrapolate(this.xs, this.xLength, next, base, next2, base2, x0, x, n);
-    this.extrapolate(this.js, this.jLength, next, base, next2, base2, junction0, junction, this.jLength);
+    this.extrapolate(this.xs, this.xLength, refs, periods, x0, x, n);
+    this.extrapolate(this.js, this.jLength, refs, periods, junction0, junction, this.jLength);
   }
 
   private extrapolate(
     stored: Float64Array,
     stride: number,
-    next: number,
-    base: number,
-    next2: number,
-    base2: number,
+    refs: Int32Array,
+    periods: number,
     now: Float64Array,
     into: Float64Array,
     n: number,
   ): void {
-    const pn = this.slot(next) * stride;
-    const pb = this.slot(base) * stride;
-    if (next2 < 0) {
-      for (let i = 0; i < n; i++) into[i] = stored[pn + i]! + now[i]! - stored[pb + i]!;
+    const n1 = this.slot(refs[0]!) * stride;
+    const b1 = this.slot(refs[1]!) * stride;
+    if (periods === 1) {
+      for (let i = 0; i < n; i++) into[i] = now[i]! + stored[n1 + i]! - stored[b1 + i]!;
       return;
     }
-    const pn2 = this.slot(next2) * stride;
-    const pb2 = this.slot(base2) * stride;
+    const n2 = this.slot(refs[2]!) * stride;
+    const b2 = this.slot(refs[3]!) * stride;
+    if (periods === 2) {
+      for (let i = 0; i < n; i++)
+        into[i] = now[i]! + 2 * (stored[n1 + i]! - stored[b1 + i]!) - (stored[n2 + i]! - stored[b2 + i]!);
+      return;
+    }
+    const n3 = this.slot(refs[4]!) * stride;
+    const b3 = this.slot(refs[5]!) * stride;
     for (let i = 0; i < n; i++)
-      into[i] = 2 * (stored[pn + i]! - stored[pb + i]!) - stored[pn2 + i]! + stored[pb2 + i]! + now[i]!;
+      into[i] =
+        now[i]! +
+        3 * (stored[n1 + i]! - stored[b1 + i]! - stored[n2 + i]! + stored[b2 + i]!) +
+        (stored[n3 + i]! - stored[b3 + i]!);
   }
 }
 
