@@ -140,9 +140,34 @@ export class FoldedDiodes {
             // du/(1 + Rs·gj)): a reverse junction, near linear, then needs one evaluation, a conducting one
             // one fewer.
             const guess = isStale ? lastV : lastV + (u - p[r + LAST_U]!) / (1 + rs * p[r + LAST_GJ]!);
-            v = solveJunction(this.models[k]!, u, guess, out);
-            i = out.currentA;
-            gj = out.conductanceS;
+            // Forward junction without a knee: Newton on v + Rs·I(v) = u inline from the guess (a call
+            // would box its doubles), handing over to the bracketed solver if it leaves the forward
+            // branch, overflows or has not converged in four evaluations.
+            let isSolved = false;
+            if (p[r + LEAK_ONLY] === 1 && !isStale) {
+              const tolerance = 1e-12 * (1 + Math.abs(u));
+              let w = guess;
+              for (let it = 0; it < 4 && w >= -3 * vte && w <= Math.max(u, 0); it++) {
+                const e = Math.exp(w / vte);
+                const iw = is * (e - 1) + gminS * w;
+                const gw = (is * e) / vte + gminS;
+                const residual = w + rs * iw - u;
+                if (!(Math.abs(residual) < Infinity)) break;
+                if (Math.abs(residual) <= tolerance) {
+                  v = w;
+                  i = iw;
+                  gj = gw;
+                  isSolved = true;
+                  break;
+                }
+                w -= residual / (1 + rs * gw);
+              }
+            }
+            if (!isSolved) {
+              v = solveJunction(this.models[k]!, u, guess, out);
+              i = out.currentA;
+              gj = out.conductanceS;
+            }
           }
           g = gj / (1 + rs * gj);
         }
