@@ -1,10 +1,9 @@
 import type { DiodeModel } from '../circuit.types';
 import type { BandedLu } from '../solver/banded-lu';
-import { evaluateDiode, solveSeriesJunctionV, type DiodeOperatingPoint } from './diode';
+import { solveSeriesJunctionV, type DiodeOperatingPoint } from './diode';
 import { criticalVoltageV, JUNCTION_GMIN_S, limitJunctionVoltage, THERMAL_VOLTAGE_V } from './junction';
 
 // Local copies of the device functions, so the inner loop does not go through a module accessor per call.
-const diodeAt = evaluateDiode;
 const solveJunction = solveSeriesJunctionV;
 const limitJunction = limitJunctionVoltage;
 const gminS = JUNCTION_GMIN_S;
@@ -98,10 +97,21 @@ export class FoldedDiodes {
       if (p[r + HAS_PREDICTION] === 1) {
         p[r + HAS_PREDICTION] = 0;
         // Linearized at the predicted junction voltage v: the point (u, I) = (v + Rs·I(v), I(v)) of the curve.
+        // Only junctions without a breakdown knee are predicted (see predict), so evaluateDiode's two
+        // branches inline: the exponential from −3·n·Vt up, the reverse cubic below.
         v = p[r + PREDICTED_V]!;
-        diodeAt(this.models[k]!, v, out);
-        i = out.currentA;
-        gj = out.conductanceS;
+        const vte = p[r + VTE]!;
+        const is = p[r + IS]!;
+        if (v >= -3 * vte) {
+          const e = Math.exp(v / vte);
+          i = is * (e - 1) + gminS * v;
+          gj = (is * e) / vte + gminS;
+        } else {
+          const arg = (3 * vte) / (v * Math.E);
+          const arg3 = arg * arg * arg;
+          i = -is * (1 + arg3) + gminS * v;
+          gj = (is * 3 * arg3) / v + gminS;
+        }
         isPredicted = Number.isFinite(i) && Number.isFinite(gj);
       }
       if (isPredicted) {
