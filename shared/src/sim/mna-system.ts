@@ -500,8 +500,7 @@ export class MnaSystem {
 
   /** Solves the loaded system into rhs and returns it (ground slot cleared). */
   solveLoaded(): Float64Array {
-    this.lu.factor();
-    this.lu.solve(this.rhs);
+    this.lu.factorAndSolve(this.rhs);
     this.rhs[this.size] = 0;
     return this.rhs;
   }

@@ -52,8 +52,17 @@ export class BandedLu {
     return col * this.columnStride + this.diagonalRow + d;
   }
 
-  /** Factors `band` in place. Throws not_converged with the column when the matrix is singular. */
-  factor(): void {
+  /** Factors `band` and solves A x = b in place (b becomes x): the forward substitution rides along. */
+  factorAndSolve(b: Float64Array): void {
+    this.factor(b);
+    this.backSubstitute(b);
+  }
+
+  /**
+   * Factors `band` in place; with `b`, also applies the row swaps and L⁻¹ to it (the forward substitution
+   * of solve). Throws not_converged with the column when the matrix is singular.
+   */
+  factor(b: Float64Array | null = null): void {
     const n = this.size;
     const kl = this.lowerBandwidth;
     const ku = this.upperBandwidth;
@@ -84,6 +93,11 @@ export class BandedLu {
           const l2 = s2 * inv;
           a[colJ + 1] = l1;
           a[colJ + 2] = l2;
+          if (b) {
+            const bj = b[j]!;
+            b[j + 1]! -= l1 * bj;
+            b[j + 2]! -= l2 * bj;
+          }
           ju = Math.min(j + ku, n - 1);
           if (ju - j > extent) extent = ju - j;
           for (let c = j + 1, p = colJ + stride; c <= ju; c++, p += stride) {
@@ -120,6 +134,11 @@ export class BandedLu {
       if (ju - j > extent) extent = ju - j;
       if (jp !== 0) {
         swapped = true;
+        if (b) {
+          const tmp = b[j]!;
+          b[j] = b[j + jp]!;
+          b[j + jp] = tmp;
+        }
         for (let c = j; c <= ju; c++) {
           const p = c * ld + kv + j - c;
           const tmp = a[p]!;
@@ -131,6 +150,10 @@ export class BandedLu {
       inverse[j] = inv;
       // Row j's entry moves by ld − 1 from one column to the next.
       for (let t = 1; t <= km; t++) a[colJ + t]! *= inv;
+      if (b) {
+        const bj = b[j]!;
+        for (let t = 1; t <= km; t++) b[j + t]! -= a[colJ + t]! * bj;
+      }
       for (let c = j + 1, p = colJ + stride; c <= ju; c++, p += stride) {
         const f = a[p]!;
         if (f !== 0) {
@@ -148,22 +171,47 @@ export class BandedLu {
     const kl = this.lowerBandwidth;
     const ld = this.columnStride;
     const kv = this.diagonalRow;
-    // Rows of U reach at most upperExtent columns right of the diagonal (ku without row swaps).
-    const kvU = this.upperExtent;
     const a = this.band;
-    const inverse = this.inversePivots;
-    if (kl === 2 && kvU === 2 && !this.hasSwaps && n >= 3) {
-      // Two sub- and two super-diagonals and no row swaps (a ladder in its own order): unrolled.
+    if (kl === 2 && !this.hasSwaps && n >= 3) {
+      // Two sub-diagonals and no row swaps (a ladder in its own order): unrolled.
       for (let j = 0, colJ = kv; j < n - 2; j++, colJ += ld) {
         const bj = b[j]!;
         b[j + 1]! -= a[colJ + 1]! * bj;
         b[j + 2]! -= a[colJ + 2]! * bj;
       }
-      const last = (n - 2) * ld + kv;
-      b[n - 1]! -= a[last + 1]! * b[n - 2]!;
+      b[n - 1]! -= a[(n - 2) * ld + kv + 1]! * b[n - 2]!;
+    } else {
+      for (let j = 0; j < n; j++) {
+        const p = this.pivots[j]!;
+        const bj = b[p]!;
+        if (p !== j) {
+          b[p] = b[j]!;
+          b[j] = bj;
+        }
+        if (bj !== 0) {
+          const km = Math.min(kl, n - 1 - j);
+          const colJ = j * ld + kv;
+          for (let t = 1; t <= km; t++) b[j + t]! -= a[colJ + t]! * bj;
+        }
+      }
+    }
+    this.backSubstitute(b);
+  }
+
+  /** x = U⁻¹·b in place. */
+  private backSubstitute(b: Float64Array): void {
+    const n = this.size;
+    const ld = this.columnStride;
+    const kv = this.diagonalRow;
+    // Rows of U reach at most upperExtent columns right of the diagonal (ku without row swaps).
+    const kvU = this.upperExtent;
+    const a = this.band;
+    const inverse = this.inversePivots;
+    if (kvU === 2 && n >= 3) {
       // Back substitution by rows: U(j, j + 1) and U(j, j + 2) sit ld − 1 and 2·(ld − 1) past U(j, j).
       const s1 = ld - 1;
       const s2 = 2 * s1;
+      const last = (n - 2) * ld + kv;
       let x1 = (b[n - 1]! *= inverse[n - 1]!);
       let x0 = (b[n - 2] = (b[n - 2]! - a[last + s1]! * x1) * inverse[n - 2]!);
       for (let j = n - 3, colJ = j * ld + kv; j >= 0; j--, colJ -= ld) {
@@ -173,22 +221,6 @@ export class BandedLu {
         x0 = xj;
       }
       return;
-    }
-    for (let j = 0; j < n; j++) {
-      const p = this.pivots[j]!;
-      const bj = b[p]!;
-      if (p !== j) {
-        b[p] = b[j]!;
-        b[j] = bj;
-      }
-      if (bj !== 0) {
-        const km = Math.min(kl, n - 1 - j);
-        const colJ = j * ld + kv;
-        if (km === 2) {
-          b[j + 1]! -= a[colJ + 1]! * bj;
-          b[j + 2]! -= a[colJ + 2]! * bj;
-        } else for (let t = 1; t <= km; t++) b[j + t]! -= a[colJ + t]! * bj;
-      }
     }
     for (let j = n - 1; j >= 0; j--) {
       const colJ = j * ld + kv;
