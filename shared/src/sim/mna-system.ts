@@ -564,6 +564,11 @@ export class MnaSystem {
     this.folded.predict(current, predicted, 0);
   }
 
+  /** Whether the circuit has a transistor (see the stepper's default truncation-error factor). */
+  get hasTransistors(): boolean {
+    return this.npns.length > 0;
+  }
+
   get junctionStateLength(): number {
     return this.folded.count + this.diodes.length + 2 * this.npns.length;
   }
