@@ -45,6 +45,7 @@ describe('TransientStepper on a periodic drive', () => {
     expect(new MnaSystem(buildLadderCircuit(pulse)).sourcePeriodS()).toBeCloseTo(periodS, 15);
     const circuit = buildLadderCircuit(ladder());
     const withPwl = {
+      ...circuit,
       elements: [
         ...circuit.elements,
         {

@@ -185,7 +185,7 @@ export class TransientStepper {
     this.periodS = system.sourcePeriodS();
     this.lastPeriod = Number.isNaN(this.periodS)
       ? null
-      : new PeriodHistory(system.size + 1, system.junctionStateLength);
+      : new PeriodHistory(system.size + 1, system.junctionStateLength, this.periodS);
     this.predictedJunction = new Float64Array(system.junctionStateLength);
   }
 
@@ -240,7 +240,11 @@ export class TransientStepper {
       // Step onto the time one period after a point of the last period when that is at most a little
       // shorter than the step wanted, so that the periodic predictor below has a point to start from.
       const past = this.lastPeriod;
-      const base = past ? past.find(this.timeS - this.periodS, h, 0) : -1;
+      if (past) {
+        past.startS = this.timeS;
+        past.stepS = h;
+      }
+      const base = past ? past.findBack(1, false, 0) : -1;
       if (past && base >= 0 && base + 1 < past.count) {
         const lockedS = past.timeAt(base + 1) + this.periodS - this.timeS;
         // A step that already lands there to within rounding stays as it is, so that the matrix G + a0·C
@@ -265,7 +269,11 @@ export class TransientStepper {
       sys.prepareLinearMatrix(a0, t1);
       sys.prepareStepRhs(t1);
       const x = sys.x;
-      const next = past && base >= 0 ? past.find(t1 - this.periodS, h, 1) : -1;
+      if (past) {
+        past.endS = t1;
+        past.stepS = h;
+      }
+      const next = past && base >= 0 ? past.findBack(1, true, 1) : -1;
       const pj = this.predictedJunction;
       if (next >= 0) {
         // Periodic predictor: the point one period back, moved by the drift since then,
@@ -278,8 +286,8 @@ export class TransientStepper {
         refs[0] = next;
         refs[1] = base;
         while (periods < PeriodHistory.PERIODS) {
-          const n = past!.find(t1 - (periods + 1) * this.periodS, h, 2 * periods);
-          const b = n >= 0 ? past!.find(this.timeS - (periods + 1) * this.periodS, h, 2 * periods + 1) : -1;
+          const n = past!.findBack(periods + 1, true, 2 * periods);
+          const b = n >= 0 ? past!.findBack(periods + 1, false, 2 * periods + 1) : -1;
           if (b < 0) break;
           refs[2 * periods] = n;
           refs[2 * periods + 1] = b;
@@ -460,9 +468,15 @@ class PeriodHistory {
   private xs: Float64Array;
   private js: Float64Array;
 
+  /** The step being taken, from startS to endS, of length stepS (set by the stepper before findBack). */
+  startS = 0;
+  endS = 0;
+  stepS = 0;
+
   constructor(
     private readonly xLength: number,
     private readonly jLength: number,
+    private readonly periodS: number,
   ) {
     this.xs = new Float64Array(this.capacity * xLength);
     this.js = new Float64Array(this.capacity * jLength);
@@ -524,13 +538,15 @@ class PeriodHistory {
   }
 
   /**
-   * Index of the stored point at timeS (to within 1e-6 of stepS), or −1. A caller asking for times that
-   * advance step by step passes its own `slot` (0 … 2·PERIODS − 1): the point after the last one found there is tried
-   * first, and the search only runs when that misses.
+   * Index of the stored point `periods` periods before the step's end (atEnd) or start, to within 1e-6 of
+   * the step, or −1. The times come from the fields, not arguments, so that no double is boxed on the way.
+   * Each kind of point has its own `slot` (0 … 2·PERIODS − 1): the point after the last one found there is
+   * tried first, and the search only runs when that misses.
    */
-  find(timeS: number, stepS: number, slot: number): number {
+  findBack(periods: number, atEnd: boolean, slot: number): number {
     if (this.count === 0) return -1;
-    const tolerance = 1e-6 * stepS;
+    const timeS = (atEnd ? this.endS : this.startS) - periods * this.periodS;
+    const tolerance = 1e-6 * this.stepS;
     const first = this.pushed - this.count;
     const hinted = this.hints[slot]! - first;
     for (let i = hinted + 1; i >= hinted && i >= 0; i--) {
