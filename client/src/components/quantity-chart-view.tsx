@@ -15,7 +15,7 @@ import {
   type TooltipContentProps,
 } from 'recharts';
 import { formatQuantity } from '@ladderwright/shared/units';
-import { axisScale, type AxisScale } from '../lib/tick-format';
+import { quantityAxis, type QuantityAxis } from '../lib/tick-format';
 import { ChartFrame } from './chart-frame';
 import type { ChartAxis, ChartSeries, QuantityChartProps } from './quantity-chart.types';
 
@@ -24,7 +24,7 @@ type ChartRow = Readonly<Record<string, number | undefined>>;
 const tickStyle = { fontSize: 11 };
 const titleStyle = { fontSize: 11, fill: 'currentColor', textAnchor: 'middle' } as const;
 
-const axisTitle = (axis: ChartAxis, scale: AxisScale) =>
+const axisTitle = (axis: ChartAxis, scale: QuantityAxis) =>
   scale.unitLabel === '' ? axis.title : `${axis.title} (${scale.unitLabel})`;
 
 /** A value in the read-out: engineering notation with four figures, or the bare count. */
@@ -46,14 +46,6 @@ function valuesOf(rows: readonly ChartRow[], keys: readonly string[]): number[] 
   return values;
 }
 
-/** recharts' domain for an axis: a fixed range, a range that takes in 0, or the data's own. */
-function domainOf(axis: ChartAxis, isZoomed: boolean) {
-  if (axis.range) return [axis.range[0], axis.range[1]];
-  if (axis.includesZero && !isZoomed)
-    return [(min: number) => Math.min(0, min), (max: number) => Math.max(0, max)] as const;
-  return ['auto', 'auto'] as const;
-}
-
 /** The recharts drawing of a QuantityChart (loaded lazily through quantity-chart.tsx). */
 export function QuantityChartView(props: QuantityChartProps) {
   const { data, x, y, y2, series, markers = [], bands = [], isZoomable = false } = props;
@@ -66,16 +58,16 @@ export function QuantityChartView(props: QuantityChartProps) {
   const bandKeys = bands.flatMap((band) => [band.lowKey, band.highKey]);
   const markerValues = (side: 'left' | 'right') =>
     markers.filter((m) => m.y !== undefined && (m.axis ?? 'left') === side).map((m) => m.y as number);
-  const withZero = (axis: ChartAxis, values: number[]) =>
-    axis.range ? [...axis.range] : axis.includesZero && !isZoomed ? [0, ...values] : values;
-  const xScale = axisScale(withZero(x, valuesOf(visible, [x.key])), x.unit);
-  const yScale = axisScale(
-    withZero(y, [...valuesOf(visible, [...onAxis('left'), ...bandKeys]), ...markerValues('left')]),
-    y.unit,
-  );
-  const y2Scale = y2
-    ? axisScale(withZero(y2, [...valuesOf(visible, onAxis('right')), ...markerValues('right')]), y2.unit)
-    : null;
+  // A fixed range, else the data drawn; a time axis ends at its samples, and a zoomed axis at the window.
+  const axisOver = (axis: ChartAxis, values: number[], isTime: boolean) =>
+    quantityAxis(axis.range ?? values, axis.unit, {
+      includesZero: axis.includesZero === true && !(isTime && isZoomed),
+      isExact: isTime || axis.range !== undefined,
+      isInteger: axis.isInteger,
+    });
+  const xScale = axisOver(x, valuesOf(visible, [x.key]), x.unit === 's');
+  const yScale = axisOver(y, [...valuesOf(visible, [...onAxis('left'), ...bandKeys]), ...markerValues('left')], false);
+  const y2Scale = y2 ? axisOver(y2, [...valuesOf(visible, onAxis('right')), ...markerValues('right')], false) : null;
   const axisOfSeries = (s: ChartSeries) => (s.axis === 'right' && y2 ? y2 : y);
 
   const csvColumns = [
@@ -119,8 +111,9 @@ export function QuantityChartView(props: QuantityChartProps) {
             <XAxis
               dataKey={x.key}
               type="number"
-              domain={domainOf(x, isZoomed) as never}
-              allowDecimals={!x.isInteger}
+              domain={xScale.domain}
+              ticks={xScale.ticks}
+              allowDataOverflow
               tick={tickStyle}
               tickFormatter={xScale.format}
               height={40}
@@ -131,8 +124,8 @@ export function QuantityChartView(props: QuantityChartProps) {
               tick={tickStyle}
               tickFormatter={yScale.format}
               width={62}
-              domain={domainOf(y, false) as never}
-              allowDecimals={!y.isInteger}
+              domain={yScale.domain}
+              ticks={yScale.ticks}
               label={{ value: axisTitle(y, yScale), angle: -90, position: 'insideLeft', offset: 6, style: titleStyle }}
             />
             {y2 && y2Scale && (
@@ -142,7 +135,8 @@ export function QuantityChartView(props: QuantityChartProps) {
                 tick={tickStyle}
                 tickFormatter={y2Scale.format}
                 width={62}
-                domain={domainOf(y2, false) as never}
+                domain={y2Scale.domain}
+                ticks={y2Scale.ticks}
                 label={{
                   value: axisTitle(y2, y2Scale),
                   angle: 90,
@@ -203,7 +197,6 @@ export function QuantityChartView(props: QuantityChartProps) {
                   y={marker.y}
                   stroke={marker.color}
                   strokeDasharray="5 3"
-                  ifOverflow="extendDomain"
                 />
               ),
             )}

@@ -6,11 +6,22 @@ import type {
   SimulationSummary,
   StartSimulationRequest,
   WaveformPhase,
+  WaveformTrace,
 } from '@ladderwright/shared/api';
 import { formatQuantity } from '@ladderwright/shared/units';
 import { QuantityInput } from '../../../components/quantity-input';
 import { useSimulationJob } from '../hooks/use-simulation-job';
-import { collectorTrace, lastCycle, primaryCurrentTrace, secondaryTrace, TraceChart } from './waveform-charts';
+import {
+  aboutMean,
+  collectorTrace,
+  fromTime,
+  lastCycle,
+  primaryCurrentTrace,
+  secondaryTrace,
+  startOf,
+  TraceChart,
+  traceLabel,
+} from './waveform-charts';
 
 export interface WaveformsPanelProps {
   projectId: string;
@@ -151,26 +162,37 @@ export function WaveformsPanel({
               {result.summary.method}, {result.summary.cyclesSimulated} cycles
             </Text>
           </Group>
-          <SimpleGrid cols={{ base: 1, lg: 3 }} spacing="md">
+          <SimpleGrid type="container" cols={{ base: 1, '720px': 2 }} spacing="md">
             <TraceChart title="Start-up" traces={tracesOf('startup')} isTimeFromZero />
-            <TraceChart title="Ripple over one cycle" traces={lastCycle(outputSteadyState, cycleFrequencyHz)} />
+            <RippleChart traces={lastCycle(outputSteadyState, cycleFrequencyHz)} />
             <TraceChart
               title="Discharge"
               traces={tracesOf('discharge')}
               safeVoltageV={dischargeSafeLevelV(result.summary, safeVoltageV)}
               isTimeFromZero
             />
+            {isDriver && (
+              <>
+                <TraceChart
+                  title="Collector and secondary"
+                  traces={fromTime(
+                    steadyStateV.filter((w) => w.name === collectorTrace),
+                    startOf(steadyStateV),
+                  )}
+                  rightTraces={fromTime(
+                    steadyStateV.filter((w) => w.name === secondaryTrace),
+                    startOf(steadyStateV),
+                  )}
+                  timeOriginS={startOf(steadyStateV)}
+                />
+                <TraceChart
+                  title="Primary current"
+                  traces={fromTime(tracesOf('steady-state', 'A'), startOf(tracesOf('steady-state', 'A')))}
+                  timeOriginS={startOf(tracesOf('steady-state', 'A'))}
+                />
+              </>
+            )}
           </SimpleGrid>
-          {isDriver && (
-            <SimpleGrid cols={{ base: 1, lg: 2 }} spacing="md">
-              <TraceChart
-                title="Collector and secondary"
-                traces={steadyStateV.filter((w) => w.name === collectorTrace)}
-                rightTraces={steadyStateV.filter((w) => w.name === secondaryTrace)}
-              />
-              <TraceChart title="Primary current" traces={tracesOf('steady-state', 'A')} />
-            </SimpleGrid>
-          )}
         </>
       )}
     </Stack>
@@ -185,5 +207,20 @@ function Summary({ label, value, unit }: { label: string; value: number | null; 
       </Text>
       <Text fw={700}>{value === null ? '—' : formatQuantity(value, unit)}</Text>
     </div>
+  );
+}
+
+/** The last cycle of the output as a scope in AC coupling shows it: about its mean, from the cycle's start. */
+function RippleChart({ traces }: { traces: WaveformTrace[] }) {
+  const originS = startOf(traces);
+  const { traces: ripple, meansV } = aboutMean(fromTime(traces, originS));
+  return (
+    <TraceChart
+      title="Ripple over one cycle"
+      traces={ripple}
+      timeOriginS={originS}
+      valueTitle="Ripple about the mean"
+      names={ripple.map((trace, i) => `${traceLabel(trace.name)} − ${formatQuantity(meansV[i] ?? 0, 'V', 4)}`)}
+    />
   );
 }

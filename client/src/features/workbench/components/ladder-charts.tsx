@@ -14,7 +14,7 @@ export function LadderCharts({ report }: LadderChartsProps) {
   const operatingCurrentA = report.analysis.loadCurrentA;
   const [outputColor = '', , designColor = ''] = chartColors.traces;
   return (
-    <SimpleGrid cols={{ base: 1, md: 2 }} spacing="md">
+    <SimpleGrid type="container" cols={{ base: 1, '620px': 2 }} spacing="md">
       <QuantityChart
         label="Output vs load current"
         title="Output vs load current"
