@@ -1,7 +1,7 @@
 import { DomainError } from '../errors';
 import { batteryLife, cellCurveOf, cellMaxContinuousCurrentA, type BatteryLifeResult } from './battery';
 import { estimateBlockingOscillator, type BlockingOscillatorEstimate } from './blocking-oscillator';
-import type { DriverCheckVerdict, DriverStage, Estimated, MethodInfo } from './driver.types';
+import type { DriverCheckVerdict, DriverStage, Estimated, MethodInfo } from '../designs/driver-stage.types';
 import { solveLoadPoint, type LadderLoadLine, type LoadPoint } from './operating-point';
 
 export interface DriverChecksInput {

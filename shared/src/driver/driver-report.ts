@@ -1,7 +1,13 @@
 import { cellCurveOf, type BatteryLifeResult } from './battery';
 import type { BlockingOscillatorEstimate } from './blocking-oscillator';
 import { runDriverChecks } from './driver-checks';
-import type { CellCurvePoint, DriverCheckVerdict, DriverStage, Estimated, MethodInfo } from './driver.types';
+import type {
+  CellCurvePoint,
+  DriverCheckVerdict,
+  DriverStage,
+  Estimated,
+  MethodInfo,
+} from '../designs/driver-stage.types';
 import { driverOperatingPoint, type LadderLoadLine, type LoadPoint, type OperatingLimit } from './operating-point';
 
 const FIGURE_KEYS = [

@@ -11,9 +11,9 @@ export type {
   MethodInfo,
   Estimated,
   DriverCheckVerdict,
-} from './driver.types';
+} from '../designs/driver-stage.types';
 export { defaultCellCurves, defaultCellMaxContinuousCurrentA } from './cell-curves';
-export { driverExamples } from './driver-examples';
+export { driverExamples } from '../designs/driver-examples';
 export {
   batteryLife,
   cellCurveOf,
@@ -43,5 +43,5 @@ export { driverReport } from './driver-report';
 export type { DriverFigures, DriverReport } from './driver-report';
 export { runDriverChecks } from './driver-checks';
 export type { DriverChecksInput, DriverChecksResult } from './driver-checks';
-export { buildDriverCircuit, DRIVER_NODES, DRIVER_SUPPLY_SOURCE } from './build-driver-circuit';
-export type { DriverCircuitOptions } from './build-driver-circuit';
+export { buildDriverCircuit, DRIVER_NODES, DRIVER_SUPPLY_SOURCE } from '../circuits/build-driver-circuit';
+export type { DriverCircuitOptions } from '../circuits/build-driver-circuit';

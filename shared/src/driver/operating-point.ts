@@ -9,7 +9,7 @@ import {
   type BlockingOscillatorEstimate,
   type BlockingOscillatorOptions,
 } from './blocking-oscillator';
-import type { DriverStage, MethodInfo } from './driver.types';
+import type { DriverStage, MethodInfo } from '../designs/driver-stage.types';
 
 /** The secondary drive a ladder sees from a blocking oscillator: unequal forward and flyback peaks. */
 export interface LadderDrive {

@@ -13,8 +13,14 @@ export { buildLadderNetwork } from './topologies';
 export type { LadderNetwork } from './topologies';
 export { ladderCurves } from './ladder-curves';
 export { ladderStressChecks, bleederStressChecks, DERATING } from './ladder-stress';
-export { analyzeDesign, analyzeLadderReport, evaluateChecks, resolveDrive, ladderInputOf } from './analyze-design';
-export type { DesignReport, LadderReport, LadderReportOptions } from './analyze-design';
+export {
+  analyzeDesign,
+  analyzeLadderReport,
+  evaluateChecks,
+  resolveDrive,
+  ladderInputOf,
+} from '../analysis/analyze-design';
+export type { DesignReport, LadderReport, LadderReportOptions } from '../analysis/analyze-design';
 export { ENGINE_VERSION } from './engine-version';
 export type {
   LadderInput,

@@ -1,4 +1,4 @@
-import type { MethodInfo } from '../driver/driver.types';
+import type { MethodInfo } from '../designs/driver-stage.types';
 import type { PulseDrive, SineDrive, Topology } from '../designs/design.types';
 
 export type { MethodInfo };
