@@ -16,20 +16,20 @@ export type ProjectCreationAttrs = Pick<ProjectAttrs, 'name' | 'productLine' | '
 @Table({ tableName: 'projects', underscored: true, timestamps: true })
 export class ProjectModel extends Model<ProjectAttrs, ProjectCreationAttrs> {
   @Column({ type: DataType.UUID, primaryKey: true, defaultValue: DataType.UUIDV4 })
-  override id: string;
+  override id!: string;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  name: string;
+  name!: string;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  productLine: string;
+  productLine!: string;
 
   @Column({ type: DataType.TEXT, allowNull: false, defaultValue: '' })
-  description: string;
+  description!: string;
 
   @HasMany(() => ProjectMemberModel)
   members?: ProjectMemberModel[];
 
-  override createdAt: Date;
-  override updatedAt: Date;
+  override createdAt!: Date;
+  override updatedAt!: Date;
 }
