@@ -6,7 +6,7 @@ import { between, closedObject, count, fraction, nonNegative, positive, text } f
  * The driver stage inside a design document: a battery- or DC-fed blocking oscillator with a feedback
  * winding, driving the primary of a step-up transformer whose secondary feeds the ladder. SI base units
  * (V, A, Ω, H, s; Ah for cell capacity and h for battery life as the trade states them). The types in
- * shared/src/driver/driver.types.ts are derived from these schemas.
+ * driver-stage.types.ts are derived from these schemas.
  */
 
 export const cellChemistrySchema = Type.Union(

@@ -1,6 +1,5 @@
 import { Value } from '@sinclair/typebox/value';
-import { jsonLimitIssue } from '../api/json-limits';
-import { DomainError, capIssues } from '../errors';
+import { DomainError, capIssues, jsonLimitIssue } from '../errors';
 import type { FieldIssue } from '../errors';
 import { designLimits } from './design-limits';
 import { DESIGN_SCHEMA_VERSION, designSchema } from './design.schema';

@@ -1,9 +1,3 @@
-/**
- * Input and result types of the driver stage: a battery- or DC-fed blocking oscillator with a feedback
- * winding, driving the primary of a step-up transformer whose secondary feeds the ladder.
- * All quantities in SI base units (V, A, Ω, H, s, Ah for cell capacity as the trade states it).
- */
-
 import type { Static } from '@sinclair/typebox';
 import type {
   cellChemistrySchema,
@@ -15,9 +9,14 @@ import type {
   driverSupplySchema,
   driverTransformerSchema,
   driverTransistorSchema,
-} from '../designs/driver-stage.schema';
+} from './driver-stage.schema';
 
-/** Input types, derived from the driver stage's definition in shared/src/designs/driver-stage.schema.ts. */
+/**
+ * Input types of the driver stage: a battery- or DC-fed blocking oscillator with a feedback winding,
+ * driving the primary of a step-up transformer whose secondary feeds the ladder. Derived from the
+ * definition in driver-stage.schema.ts (read the descriptions there). SI base units (V, A, Ω, H, s;
+ * Ah for cell capacity as the trade states it).
+ */
 export type CellChemistry = Static<typeof cellChemistrySchema>;
 /** One point of a per-cell open-circuit voltage curve; `chargeFraction` 1 = full, 0 = empty. */
 export type CellCurvePoint = Static<typeof cellCurvePointSchema>;
@@ -33,30 +32,3 @@ export type DriverTransistor = Static<typeof driverTransistorSchema>;
 /** Collector clamp that limits the flyback voltage. */
 export type DriverClamp = Static<typeof driverClampSchema>;
 export type DriverStage = Static<typeof driverStageSchema>;
-
-/** How a figure was computed, so the Workbench can say so beside it. */
-export interface MethodInfo {
-  methodId: string;
-  summary: string;
-  assumptions: string[];
-  source: string;
-}
-
-/** A number with the method that produced it. */
-export interface Estimated<T = number> {
-  value: T;
-  method: MethodInfo;
-}
-
-/** One verdict of the Checks panel (same shape as the safety checks). */
-export interface DriverCheckVerdict {
-  id: string;
-  subject: string;
-  rule: string;
-  verdict: 'pass' | 'marginal' | 'fail';
-  /** (limit − value) / limit · 100 for an upper limit; negative when failing. */
-  marginPct: number;
-  value: number;
-  limit: number;
-  unit: string;
-}

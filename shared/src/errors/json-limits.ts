@@ -1,5 +1,5 @@
-import { fieldPath } from '../errors';
-import type { FieldIssue } from '../errors';
+import { fieldPath } from './field-path';
+import type { FieldIssue } from './domain-error';
 
 /** Bounds on a parsed JSON value as a whole. */
 export interface JsonLimits {
