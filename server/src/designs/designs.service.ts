@@ -14,6 +14,7 @@ import { DomainError } from '@ladderwright/shared/errors';
 import type { RevisionState } from '@ladderwright/shared/reviews';
 import { AnalysisService } from '../analysis/analysis.service';
 import { blankDocument } from '../analysis/design-templates';
+import { ProjectsService } from '../projects/projects.service';
 import { RevisionLookupService } from '../revisions/revision-lookup.service';
 import { RevisionsService } from '../revisions/revisions.service';
 import { DesignModel } from './design.model';
@@ -64,6 +65,7 @@ export class DesignsService {
     @InjectModel(DesignModel) private readonly designs: typeof DesignModel,
     private readonly revisions: RevisionsService,
     private readonly lookup: RevisionLookupService,
+    private readonly projects: ProjectsService,
     private readonly analysis: AnalysisService,
     private readonly sequelize: Sequelize,
   ) {}
@@ -115,8 +117,13 @@ export class DesignsService {
   async create(projectId: string, request: CreateDesignRequest, ownerId: string): Promise<DesignDetail> {
     const name = request.name.trim();
     if (!name) throw new DomainError('invalid_argument', 'name must not be empty', 'name');
+    const defaultTargets =
+      request.from.kind === 'blank' ? (await this.projects.settings(projectId)).defaultTargets : {};
     const source = await designSourceDocument(request.from, {
-      blank: () => blankDocument(name),
+      blank: () => {
+        const blank = blankDocument(name);
+        return { ...blank, targets: { ...blank.targets, ...defaultTargets } };
+      },
       template: (id) => this.analysis.template(id)?.document ?? null,
       revision: async (designId, revisionNumber) => {
         const design = await this.lookup.findDesign(projectId, designId).catch((error: unknown) => {
