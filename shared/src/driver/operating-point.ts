@@ -130,6 +130,8 @@ export interface LoadPoint {
    *  'power': the driver's energy per cycle sets it (flyback below its limit). */
   limitedBy: OperatingLimit;
   flybackSecondaryPeakV: number;
+  /** Forward (on-time) secondary peak at this load (V); it rises a little as the supply sags less at light loads. */
+  forwardSecondaryPeakV: number;
   /** Charge the flyback pushes per unit of ladder output charge (∂V_top/∂V₋). */
   flybackChargeRatio: number;
   frequencyHz: number;
@@ -238,6 +240,7 @@ export function solveLoadPoint(
     ladderCurrentA: loaded.ladderCurrentA,
     limitedBy,
     flybackSecondaryPeakV: flyV,
+    forwardSecondaryPeakV: withForward.forwardSecondaryPeakV.value,
     flybackChargeRatio: ratios.flyback,
     frequencyHz: withForward.frequencyHz.value,
     dutyCycle: driveOf(withForward).dutyCycle ?? 0.5,
