@@ -198,7 +198,7 @@ describe('analyzeDesign: the bleeder and component stress at the operating point
   // The demo with a heavy bleeder (5 × 1 MΩ: about 0.5 mA at a few kV) and no external load.
   const heavyBleeder: Design = {
     ...structuredClone(demo),
-    load: null,
+    load: { kind: 'current', currentA: 0 },
     outputNetwork: {
       ...demo.outputNetwork,
       bleeder: { ...demo.outputNetwork.bleeder!, valueOhm: 1e6 },
@@ -221,8 +221,8 @@ describe('analyzeDesign: the bleeder and component stress at the operating point
       ...structuredClone(heavyBleeder),
       outputNetwork: { ...heavyBleeder.outputNetwork, bleeder: null },
     });
-    const worst = (r: typeof report, prefix: string) =>
-      Math.max(...r.checks.filter((c) => c.id.startsWith(prefix)).map((c) => c.value));
+    const worst = (r: typeof report, prefix: string): number =>
+      Math.max(...r.checks.filter((c) => c.id.startsWith(prefix)).map((c) => c.value ?? 0));
     // Without a bleeder or load nothing holds the flyback: the ladder sits at its open-circuit voltages, and a
     // capacitor carries up to twice the secondary's peak-to-peak share (REFERENCES.md §1, capacitor stress).
     // With the 5 MΩ bleeder the operating point holds the flyback far lower: the stress follows it.
