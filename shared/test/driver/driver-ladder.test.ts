@@ -1,6 +1,6 @@
 import { beforeAll, describe, expect, it } from 'vitest';
-import { DRIVER_NODES, DRIVER_SUPPLY_SOURCE, buildDriverCircuit } from '../../src/driver/build-driver-circuit';
-import { driverExamples } from '../../src/driver/driver-examples';
+import { DRIVER_NODES, DRIVER_SUPPLY_SOURCE, buildDriverCircuit } from '../../src/circuits/build-driver-circuit';
+import { driverExamples } from '../../src/designs/driver-examples';
 import { halfWaveCascadeLoadLine, solveLoadPoint } from '../../src/driver/operating-point';
 import { EnergyMeter, type EnergyAccount } from '../../src/sim/energy-meter';
 import { MnaSystem } from '../../src/sim/mna-system';

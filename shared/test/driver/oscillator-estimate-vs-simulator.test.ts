@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { estimateBlockingOscillator } from '../../src/driver/blocking-oscillator';
-import { buildDriverCircuit } from '../../src/driver/build-driver-circuit';
-import type { DriverStage } from '../../src/driver/driver.types';
+import { buildDriverCircuit } from '../../src/circuits/build-driver-circuit';
+import type { DriverStage } from '../../src/designs/driver-stage.types';
 import { MnaSystem } from '../../src/sim/mna-system';
 import { TransientStepper } from '../../src/sim/transient';
 

@@ -1,5 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { buildLadderCircuit, idealCapacitorVoltagesV, type LadderCircuitSpec } from '../../src/sim/build-circuit';
+import {
+  buildLadderCircuit,
+  idealCapacitorVoltagesV,
+  type LadderCircuitSpec,
+} from '../../src/circuits/build-ladder-circuit';
 import type { Circuit } from '../../src/sim/circuit.types';
 import { simulateTransient } from '../../src/sim/transient';
 import { toSpiceNetlist } from '../../src/sim/to-spice-netlist';

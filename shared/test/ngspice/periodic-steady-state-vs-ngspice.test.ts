@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { buildLadderCircuit, type LadderCircuitSpec } from '../../src/sim/build-circuit';
+import { buildLadderCircuit, type LadderCircuitSpec } from '../../src/circuits/build-ladder-circuit';
 import { MnaSystem } from '../../src/sim/mna-system';
 import { findPeriodicSteadyState } from '../../src/sim/periodic-steady-state';
-import { chargeBalanceCapacitorVoltagesV } from '../../src/sim/steady-state-estimate';
+import { chargeBalanceCapacitorVoltagesV } from '../../src/circuits/steady-state-estimate';
 import { simulateTransient } from '../../src/sim/transient';
 import { toSpiceNetlist } from '../../src/sim/to-spice-netlist';
 import { windowMean, windowPeakToPeak } from '../../src/sim/waveform-measures';

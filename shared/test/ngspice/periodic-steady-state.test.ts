@@ -1,5 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { buildLadderCircuit, idealCapacitorVoltagesV, type LadderCircuitSpec } from '../../src/sim/build-circuit';
+import {
+  buildLadderCircuit,
+  idealCapacitorVoltagesV,
+  type LadderCircuitSpec,
+} from '../../src/circuits/build-ladder-circuit';
 import { MnaSystem } from '../../src/sim/mna-system';
 import { findPeriodicSteadyState } from '../../src/sim/periodic-steady-state';
 import { simulateTransient } from '../../src/sim/transient';
