@@ -78,7 +78,8 @@ describe('estimateBlockingOscillator against published relations', () => {
     closeRel(e.deliverablePowerW.value, e.energyPerCycleJ.value * e.frequencyHz.value);
     // Supply energy per cycle = Vin·Ipk·t_on/2 (ramp) + V_B·I_B·t_on (base drive); E is the part stored.
     const vb = 3 + 2.8 * 0.5;
-    const perCycleJ = vin * 0.5 * ipk * e.onTimeS.value + vb * ib * e.onTimeS.value;
+    // Plus the turn-on discharge of the 100 pF collector node from Vin, ½·C·Vin² (capacitor energy).
+    const perCycleJ = vin * 0.5 * ipk * e.onTimeS.value + vb * ib * e.onTimeS.value + 0.5 * 100e-12 * vin * vin;
     closeRel(e.inputPowerW.value, perCycleJ * e.frequencyHz.value, 1e-7);
     closeRel(e.inputCurrentA.value, e.inputPowerW.value / vin);
   });

@@ -34,8 +34,10 @@ export interface StageLosses {
   transistorConductionW: number;
   /** The collector node capacitance discharged through the transistor at each turn-on, ½·C·Vin²·f. */
   transistorSwitchingW: number;
-  /** Base drive: V_B·I_B over the on-time, in R_B, the feedback winding and the base-emitter junction. */
-  baseDriveW: number;
+  /** Base drive in the base-emitter junction, V_BE·I_B over the on-time (part of the transistor's dissipation). */
+  baseEmitterW: number;
+  /** Base drive in R_B and the feedback winding, (V_B − V_BE)·I_B over the on-time. */
+  baseResistorW: number;
   /** i²R of the primary winding over the on-time. */
   primaryCopperW: number;
   /** i²R of the collector resistor over the on-time. */
@@ -286,22 +288,30 @@ function stageAt(
   const baseDriveJ = vBase * ibMean * tOn;
   const forwardW = options.forwardLoadPowerW ?? 0;
   const lampA = driver.indicatorLamp?.currentA ?? 0;
-  // The base drive V_B·I_B comes from the supply: the rail's share directly, the feedback winding's through the primary.
-  const inputW = frequencyHz * (vin * rampC + baseDriveJ) + forwardW + vin * lampA;
-  const inputA = inputW / vin;
+  // Energy into the stage per cycle, from Kirchhoff's law along the primary loop: V0·Q − R_u·∫i² =
+  // Vce,sat·Q + R·∫i² + E, plus the base drive ∫V_B·I_B dt (the rail's share directly, the feedback winding's
+  // through the primary). The supply current is that power over the mean terminal voltage.
+  // The collector node capacitance, recharged by each flyback, is discharged through the transistor at each turn-on.
   const nodeC = options.collectorNodeCapacitanceF ?? defaultCollectorNodeCapacitanceF;
+  const switchingJ = 0.5 * nodeC * vin * vin;
+  const inputW =
+    frequencyHz * (q.vceSatV * rampC + seriesR * rampSquareA2S + energyJ + baseDriveJ + switchingJ) +
+    forwardW +
+    vin * lampA;
+  const inputA = inputW / vin;
   const leakageH = (1 - k * k) * lp;
   const spikeV = ipk * Math.sqrt(leakageH / nodeC);
   const unclampedPeakV = vin + reflectedV + spikeV;
   const collectorPeakV = driver.clamp ? Math.min(driver.clamp.clampVoltageV, unclampedPeakV) : unclampedPeakV;
-  // The source's own loss: the mean current through R_s and the ramp's unbypassed ripple through its share.
-  const supplyResistanceW =
-    supplyResistanceOhm * inputA * inputA +
-    unbypassedOhm * Math.max(0, frequencyHz * rampSquareA2S - (frequencyHz * rampC) ** 2);
+  // The source's own loss: its EMF's power less what reaches the stage (R_s·I² at the solved supply voltage).
+  const emfW = openCircuitV * inputA;
+  const supplyResistanceW = Math.max(0, emfW - inputW);
+  const baseEmitterJ = q.vbeOnV * ibMean * tOn;
   const losses: StageLosses = {
     transistorConductionW: frequencyHz * q.vceSatV * rampC,
-    transistorSwitchingW: 0.5 * nodeC * vin * vin * frequencyHz,
-    baseDriveW: frequencyHz * baseDriveJ,
+    transistorSwitchingW: switchingJ * frequencyHz,
+    baseEmitterW: frequencyHz * baseEmitterJ,
+    baseResistorW: frequencyHz * (baseDriveJ - baseEmitterJ),
     primaryCopperW: frequencyHz * tx.primaryResistanceOhm * rampSquareA2S,
     collectorResistorW: frequencyHz * (driver.collectorResistorOhm ?? 0) * rampSquareA2S,
     secondaryCopperW: frequencyHz * Math.min(copperJ, k * k * energyJ),
@@ -330,7 +340,7 @@ function stageAt(
     maxFlybackSecV,
     reflectedV,
     inputW,
-    emfW: openCircuitV * inputA,
+    emfW,
     inputA,
     collectorPeakV,
     forwardSecV: vPrimary * k * turnsRatio,
