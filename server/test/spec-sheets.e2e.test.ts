@@ -4,7 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import request from 'supertest';
 import type { DesignDetail } from '@ladderwright/shared/api';
-import type { DesignReport } from '@ladderwright/shared/multiplier';
+import type { DesignReport } from '@ladderwright/shared/analysis';
 import { RevisionModel } from '../src/revisions/revision.model';
 import { createDesign } from './factories/create-design';
 import { createProject, type TestProject } from './factories/create-project';

@@ -1,6 +1,6 @@
 import { formatQuantity } from '../src/units/format-quantity';
 import type { QuantityUnit } from '../src/units/quantity.types';
-import type { LadderReport } from '../src/multiplier/analyze-design';
+import type { LadderReport } from '../src/analysis/analyze-design';
 
 function row(label: string, value: number | null, unit: QuantityUnit | ''): string {
   return `  ${label.padEnd(26)}${value === null ? '—' : formatQuantity(value, unit, 4)}`;

@@ -11,7 +11,8 @@ import type {
 } from '@ladderwright/shared/api';
 import type { Design } from '@ladderwright/shared/designs';
 import { DomainError } from '@ladderwright/shared/errors';
-import { buildCircuit, toSpiceNetlist } from '@ladderwright/shared/sim';
+import { buildCircuit } from '@ladderwright/shared/circuits';
+import { toSpiceNetlist } from '@ladderwright/shared/sim';
 import { AnalysisService } from '../analysis/analysis.service';
 import { isUuid } from '../common/uuid';
 import { DesignModel } from '../designs/design.model';

@@ -1,7 +1,7 @@
 import type { BenchRunSummary, SignOffApproval } from '@ladderwright/shared/api';
 import type { MeasuredPoint } from '@ladderwright/shared/bench';
 import type { Design } from '@ladderwright/shared/designs';
-import type { DesignReport } from '@ladderwright/shared/multiplier';
+import type { DesignReport } from '@ladderwright/shared/analysis';
 import type { AcceptanceLimits } from '@ladderwright/shared/reviews';
 import type { RevisionState } from '@ladderwright/shared/reviews';
 

@@ -4,7 +4,7 @@ import type { CurrentUser } from '@ladderwright/shared/api';
 import { canInProject } from '@ladderwright/shared/auth';
 import { runDriverChecks } from '@ladderwright/shared/driver';
 import { DomainError } from '@ladderwright/shared/errors';
-import type { DesignReport } from '@ladderwright/shared/multiplier';
+import type { DesignReport } from '@ladderwright/shared/analysis';
 import { acceptanceLimits } from '@ladderwright/shared/reviews';
 import { BenchRunsService } from '../bench-runs/bench-runs.service';
 import type { ProjectMembership } from '../common/request.types';

@@ -2,8 +2,8 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { DomainError } from '../errors';
 import { estimateBlockingOscillator } from './blocking-oscillator';
-import { driverExamples } from './driver-examples';
-import type { DriverStage } from './driver.types';
+import { driverExamples } from '../designs/driver-examples';
+import type { DriverStage } from '../designs/driver-stage.types';
 
 /** An ideal bench-supplied stage: no series resistances, so the textbook linear relations apply exactly. */
 function idealStage(overrides: Partial<DriverStage> = {}): DriverStage {

@@ -1,6 +1,7 @@
 import { DomainError } from '../errors';
 import { supplyThevenin } from './battery';
-import type { DriverStage, Estimated, MethodInfo } from './driver.types';
+import type { DriverStage } from '../designs/driver-stage.types';
+import type { Estimated, MethodInfo } from '../methods';
 
 /** What ended the on-time: the base drive (hFE·I_B) or the core saturation current. */
 export type OnTimeLimit = 'base' | 'saturation';

@@ -1,8 +1,22 @@
 import { DomainError } from '../errors';
 import { batteryLife, cellCurveOf, cellMaxContinuousCurrentA, type BatteryLifeResult } from './battery';
 import { estimateBlockingOscillator, type BlockingOscillatorEstimate } from './blocking-oscillator';
-import type { DriverCheckVerdict, DriverStage, Estimated, MethodInfo } from './driver.types';
+import type { DriverStage } from '../designs/driver-stage.types';
+import type { Estimated, MethodInfo } from '../methods';
 import { solveLoadPoint, type LadderLoadLine, type LoadPoint } from './operating-point';
+
+/** One verdict of the Checks panel (same shape as the safety checks). */
+export interface DriverCheckVerdict {
+  id: string;
+  subject: string;
+  rule: string;
+  verdict: 'pass' | 'marginal' | 'fail';
+  /** (limit − value) / limit · 100 for an upper limit; negative when failing. */
+  marginPct: number;
+  value: number;
+  limit: number;
+  unit: string;
+}
 
 export interface DriverChecksInput {
   /** The ladder the driver feeds; without it the stage is checked at its clamp limit with no load. */

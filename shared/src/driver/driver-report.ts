@@ -1,7 +1,8 @@
 import { cellCurveOf, type BatteryLifeResult } from './battery';
 import type { BlockingOscillatorEstimate } from './blocking-oscillator';
-import { runDriverChecks } from './driver-checks';
-import type { CellCurvePoint, DriverCheckVerdict, DriverStage, Estimated, MethodInfo } from './driver.types';
+import { runDriverChecks, type DriverCheckVerdict } from './driver-checks';
+import type { CellCurvePoint, DriverStage } from '../designs/driver-stage.types';
+import type { Estimated, MethodInfo } from '../methods';
 import { driverOperatingPoint, type LadderLoadLine, type LoadPoint, type OperatingLimit } from './operating-point';
 
 const FIGURE_KEYS = [

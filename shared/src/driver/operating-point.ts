@@ -9,7 +9,8 @@ import {
   type BlockingOscillatorEstimate,
   type BlockingOscillatorOptions,
 } from './blocking-oscillator';
-import type { DriverStage, MethodInfo } from './driver.types';
+import type { DriverStage } from '../designs/driver-stage.types';
+import type { MethodInfo } from '../methods';
 
 /** The secondary drive a ladder sees from a blocking oscillator: unequal forward and flyback peaks. */
 export interface LadderDrive {

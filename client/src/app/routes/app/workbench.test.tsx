@@ -9,7 +9,7 @@ import type {
   StaleBaseError,
 } from '@ladderwright/shared/api';
 import { designExamples, validateDesign } from '@ladderwright/shared/designs';
-import { analyzeDesign } from '@ladderwright/shared/multiplier';
+import { analyzeDesign } from '@ladderwright/shared/analysis';
 import { paths } from '../../../config/paths';
 import { queryKeys } from '../../../lib/query-keys';
 import { createTestQueryClient, jsonResponse, renderRoutes } from '../../../testing/render';

@@ -2,7 +2,9 @@ import { DomainError } from '../errors';
 import type { Design, DischargeRule, PulseDrive, SineDrive } from '../designs/design.types';
 import { estimateBlockingOscillator } from '../driver/blocking-oscillator';
 import { driverReport, type DriverReport } from '../driver/driver-report';
-import type { DriverCheckVerdict, DriverStage, MethodInfo } from '../driver/driver.types';
+import type { DriverStage } from '../designs/driver-stage.types';
+import type { DriverCheckVerdict } from '../driver/driver-checks';
+import type { MethodInfo } from '../methods';
 import { engineLadderLoadLine, pulseDriveOf, solveLoadPoint, type LadderLoadLine } from '../driver/operating-point';
 import { DISCHARGE_METHOD, dischargeCheck, trappedChargeCheck } from '../safety/discharge';
 import { creepageChecks, stageSpacing } from '../safety/creepage';
@@ -11,12 +13,12 @@ import { HV_CAUTION, upperLimitVerdict } from '../safety/hazard-limits';
 import { STORED_ENERGY_METHOD, storedEnergy, storedEnergyChecks } from '../safety/stored-energy';
 import type { StoredEnergySummary } from '../safety/stored-energy';
 import type { CheckVerdict } from '../safety/check.types';
-import { analyzeLadder } from './analyze-ladder';
-import { bracketedRoot } from './bracketed-root';
-import { ENGINE_VERSION } from './engine-version';
-import { ladderCurves } from './ladder-curves';
-import { bleederStressChecks, ladderStressChecks } from './ladder-stress';
-import type { LadderAnalysis, LadderCurves, LadderInput } from './ladder.types';
+import { analyzeLadder } from '../multiplier/analyze-ladder';
+import { bracketedRoot } from '../multiplier/bracketed-root';
+import { ENGINE_VERSION } from '../multiplier/engine-version';
+import { ladderCurves } from '../multiplier/ladder-curves';
+import { bleederStressChecks, ladderStressChecks } from '../multiplier/ladder-stress';
+import type { LadderAnalysis, LadderCurves, LadderInput } from '../multiplier/ladder.types';
 
 /** Report of a bare ladder: figures (SI, signed by polarity), curves, stored energy, discharge and how each was computed. */
 export interface LadderReport extends Pick<

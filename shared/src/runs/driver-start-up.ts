@@ -1,13 +1,13 @@
+import { capacitorName, LADDER_NODES } from '../circuits/build-ladder-circuit';
+import { DRIVER_NODES } from '../circuits/build-driver-circuit';
 import type { Design } from '../designs/design.types';
-import { DRIVER_NODES } from '../driver/build-driver-circuit';
 import { DomainError } from '../errors';
-import { capacitorName, LADDER_NODES } from './build-circuit';
-import type { PlotTrace } from './design-runs';
+import { MnaSystem } from '../sim/mna-system';
+import { readSettlingTimes, TurnOnTrigger } from '../sim/oscillation-measures';
+import { TransientStepper } from '../sim/transient';
+import { downsampleMinMax } from '../sim/waveform-measures';
 import { driverDesignCircuit, driverPeriodGuessS } from './driver-runs';
-import { MnaSystem } from './mna-system';
-import { readSettlingTimes, TurnOnTrigger } from './oscillation-measures';
-import { TransientStepper } from './transient';
-import { downsampleMinMax } from './waveform-measures';
+import type { PlotTrace } from './ladder-runs';
 
 export interface StartUpOptions {
   /** Simulated-time budget (s); default 5 s. */

@@ -7,7 +7,7 @@ import { driverReport } from '../driver/driver-report';
 import { estimateBlockingOscillator } from '../driver/blocking-oscillator';
 import { engineLadderLoadLine, solveLoadPoint } from '../driver/operating-point';
 import { analyzeDesign, ladderInputOf, resolveDrive } from './analyze-design';
-import { DERATING } from './ladder-stress';
+import { DERATING } from '../multiplier/ladder-stress';
 
 describe('analyzeDesign on the demo designs', () => {
   it.each(Object.entries(designExamples))(
