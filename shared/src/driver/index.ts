@@ -21,7 +21,13 @@ export {
 } from './battery';
 export type { BatteryLifeResult } from './battery';
 export { estimateBlockingOscillator } from './blocking-oscillator';
-export type { BlockingOscillatorEstimate, BlockingOscillatorOptions, OnTimeLimit } from './blocking-oscillator';
+export type {
+  BlockingOscillatorEstimate,
+  BlockingOscillatorOptions,
+  OnTimeLimit,
+  OscillatorNumbers,
+  StageLosses,
+} from './blocking-oscillator';
 export {
   driverOperatingPoint,
   engineLadderLoadLine,
@@ -41,3 +47,10 @@ export { driverReport } from './driver-report';
 export type { DriverFigures, DriverReport } from './driver-report';
 export { runDriverChecks } from './driver-checks';
 export type { DriverChecksInput, DriverChecksResult, DriverCheckVerdict } from './driver-checks';
+export {
+  driverEnergy,
+  DEFAULT_CLAMP_RATED_POWER_W,
+  DEFAULT_TRANSISTOR_THERMAL,
+  DRIVER_ENERGY_METHOD,
+} from './driver-energy';
+export type { DriverEnergy, LossKind, TransistorThermal } from './driver-energy';
