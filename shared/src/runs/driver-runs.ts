@@ -13,7 +13,8 @@ import type { Circuit } from '../sim/circuit.types';
 import { followLadderDischarge, type LadderRunResult, type PlotTrace } from './ladder-runs';
 import { EnergyMeter, type EnergyAccount } from '../sim/energy-meter';
 import { MnaSystem } from '../sim/mna-system';
-import { SampleBuffer, TransientStepper } from '../sim/transient';
+import { SampleBuffer } from '../sim/sample-buffer';
+import { TransientStepper } from '../sim/transient';
 import { downsampleMinMax, risingCrossings, windowMean, windowPeakToPeak } from '../sim/waveform-measures';
 
 export interface DriverRunOptions {
