@@ -51,6 +51,8 @@ const project: ProjectDetail = {
   description: '',
   myRole: 'engineer',
   memberCount: 1,
+  isArchived: false,
+  settings: { defaultTargets: {}, acceptance: { coverage: 0.95, benchAllowanceFraction: 0.01 } },
   members: [],
 };
 
