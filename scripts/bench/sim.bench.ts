@@ -12,7 +12,7 @@ import { buildLadderCircuit, type LadderCircuitSpec } from '../../shared/src/cir
 import { MnaSystem } from '../../shared/src/sim/mna-system';
 import { findPeriodicSteadyState } from '../../shared/src/sim/periodic-steady-state';
 import { chargeBalanceCapacitorVoltagesV } from '../../shared/src/circuits/steady-state-estimate';
-import { simulateTransient } from '../../shared/src/sim/transient';
+import { simulateTransient } from '../../shared/src/sim/transient-analysis';
 import { toSpiceNetlist } from '../../shared/src/sim/to-spice-netlist';
 import { windowMean, windowPeakToPeak } from '../../shared/src/sim/waveform-measures';
 import { runNgspice } from '../../shared/test/ngspice/run-ngspice';

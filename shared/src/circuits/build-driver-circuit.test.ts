@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { simulateTransient } from '../sim/transient';
+import { simulateTransient } from '../sim/transient-analysis';
 import { estimateBlockingOscillator } from '../driver/blocking-oscillator';
 import { DRIVER_NODES, DRIVER_SUPPLY_SOURCE, buildDriverCircuit } from './build-driver-circuit';
 import { driverExamples } from '../designs/driver-examples';

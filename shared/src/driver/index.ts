@@ -10,18 +10,28 @@ export type {
   DriverStage,
 } from '../designs/driver-stage.types';
 export type { MethodInfo, Estimated } from '../methods';
-export { defaultCellCurves, defaultCellMaxContinuousCurrentA } from './cell-curves';
+export { defaultCellCurves, defaultCellMaxContinuousCurrentA, defaultCellRateModels } from './cell-curves';
+export type { CellRateModel } from './cell-curves';
 export { driverExamples } from '../designs/driver-examples';
 export {
   batteryLife,
   cellCurveOf,
+  cellInternalResistanceOhm,
+  cellRateModelOf,
+  peukertEquivalentCurrentA,
   cellOpenCircuitVoltageV,
   cellMaxContinuousCurrentA,
   supplyThevenin,
 } from './battery';
 export type { BatteryLifeResult } from './battery';
 export { estimateBlockingOscillator } from './blocking-oscillator';
-export type { BlockingOscillatorEstimate, BlockingOscillatorOptions, OnTimeLimit } from './blocking-oscillator';
+export type {
+  BlockingOscillatorEstimate,
+  BlockingOscillatorOptions,
+  OnTimeLimit,
+  OscillatorNumbers,
+  StageLosses,
+} from './blocking-oscillator';
 export {
   driverOperatingPoint,
   engineLadderLoadLine,
@@ -41,3 +51,10 @@ export { driverReport } from './driver-report';
 export type { DriverFigures, DriverReport } from './driver-report';
 export { runDriverChecks } from './driver-checks';
 export type { DriverChecksInput, DriverChecksResult, DriverCheckVerdict } from './driver-checks';
+export {
+  driverEnergy,
+  DEFAULT_CLAMP_RATED_POWER_W,
+  DEFAULT_TRANSISTOR_THERMAL,
+  DRIVER_ENERGY_METHOD,
+} from './driver-energy';
+export type { DriverEnergy, LossKind, TransistorThermal } from './driver-energy';

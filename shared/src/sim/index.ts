@@ -1,6 +1,9 @@
 export type * from './circuit.types';
 export { GROUND_NODE } from './circuit.types';
-export { simulateTransient, TransientStepper, DEFAULT_TOLERANCES } from './transient';
+export { TransientStepper } from './transient';
+export { simulateTransient } from './transient-analysis';
+export { DEFAULT_TOLERANCES } from './tolerances';
+export { SampleBuffer } from './sample-buffer';
 export { MnaSystem } from './mna-system';
 export { toSpiceNetlist, spiceNodeName } from './to-spice-netlist';
 export { downsampleMinMax, windowMean, windowPeakToPeak } from './waveform-measures';

@@ -5,7 +5,8 @@ import { halfWaveCascadeLoadLine, solveLoadPoint } from '../../src/driver/operat
 import { EnergyMeter, type EnergyAccount } from '../../src/sim/energy-meter';
 import { MnaSystem } from '../../src/sim/mna-system';
 import { toSpiceNetlist } from '../../src/sim/to-spice-netlist';
-import { SampleBuffer, TransientStepper } from '../../src/sim/transient';
+import { SampleBuffer } from '../../src/sim/sample-buffer';
+import { TransientStepper } from '../../src/sim/transient';
 import { hasNgspice, runNgspice } from '../ngspice/run-ngspice';
 
 // Demo driver (two alkaline cells) into a four-cell half-wave ladder of 220 pF, 200 MΩ load. Small

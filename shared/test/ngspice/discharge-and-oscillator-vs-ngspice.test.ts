@@ -5,7 +5,7 @@ import {
   type LadderCircuitSpec,
 } from '../../src/circuits/build-ladder-circuit';
 import type { Circuit } from '../../src/sim/circuit.types';
-import { simulateTransient } from '../../src/sim/transient';
+import { simulateTransient } from '../../src/sim/transient-analysis';
 import { toSpiceNetlist } from '../../src/sim/to-spice-netlist';
 import { firstFallTo, risingCrossings } from '../../src/sim/waveform-measures';
 import { hasNgspice, runNgspice } from './run-ngspice';

@@ -4,7 +4,7 @@ import {
   idealCapacitorVoltagesV,
   type LadderCircuitSpec,
 } from '../../src/circuits/build-ladder-circuit';
-import { simulateTransient } from '../../src/sim/transient';
+import { simulateTransient } from '../../src/sim/transient-analysis';
 import { toSpiceNetlist } from '../../src/sim/to-spice-netlist';
 import { windowMean, windowPeakToPeak } from '../../src/sim/waveform-measures';
 import { hasNgspice, runNgspice } from './run-ngspice';

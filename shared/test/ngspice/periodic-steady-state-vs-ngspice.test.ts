@@ -3,7 +3,7 @@ import { buildLadderCircuit, type LadderCircuitSpec } from '../../src/circuits/b
 import { MnaSystem } from '../../src/sim/mna-system';
 import { findPeriodicSteadyState } from '../../src/sim/periodic-steady-state';
 import { chargeBalanceCapacitorVoltagesV } from '../../src/circuits/steady-state-estimate';
-import { simulateTransient } from '../../src/sim/transient';
+import { simulateTransient } from '../../src/sim/transient-analysis';
 import { toSpiceNetlist } from '../../src/sim/to-spice-netlist';
 import { windowMean, windowPeakToPeak } from '../../src/sim/waveform-measures';
 import { hasNgspice, runNgspice } from './run-ngspice';

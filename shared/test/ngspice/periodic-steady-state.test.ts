@@ -6,7 +6,7 @@ import {
 } from '../../src/circuits/build-ladder-circuit';
 import { MnaSystem } from '../../src/sim/mna-system';
 import { findPeriodicSteadyState } from '../../src/sim/periodic-steady-state';
-import { simulateTransient } from '../../src/sim/transient';
+import { simulateTransient } from '../../src/sim/transient-analysis';
 import { windowMean, windowPeakToPeak } from '../../src/sim/waveform-measures';
 
 const f = 20e3;
