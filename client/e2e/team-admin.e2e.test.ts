@@ -63,6 +63,9 @@ describe('team administration journeys', () => {
     const row = page.getByRole('table', { name: 'Accounts' }).getByRole('row').filter({ hasText: newcomer.email });
     await row.waitFor();
     await shot(page, 'team-01-accounts-1440.png');
+    await page.setViewportSize({ width: 1024, height: 768 });
+    await shot(page, 'team-01-accounts-1024.png');
+    await page.setViewportSize({ width: 1440, height: 900 });
 
     await row.getByRole('button', { name: `Reset the password of ${newcomer.email}` }).click();
     await page.getByRole('button', { name: 'Show the link once' }).click();
