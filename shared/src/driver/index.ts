@@ -48,7 +48,7 @@ export type {
   OperatingPointResult,
 } from './operating-point';
 export { driverReport } from './driver-report';
-export type { DriverFigures, DriverReport } from './driver-report';
+export type { BenchLossKind, DriverBenchFigures, DriverFigures, DriverReport } from './driver-report';
 export { runDriverChecks } from './driver-checks';
 export type { DriverChecksInput, DriverChecksResult, DriverCheckVerdict } from './driver-checks';
 export {
