@@ -2,6 +2,7 @@ import { cellCurveOf, type BatteryLifeResult } from './battery';
 import type { BlockingOscillatorEstimate } from './blocking-oscillator';
 import { runDriverChecks, type DriverCheckVerdict } from './driver-checks';
 import type { DriverEnergy, LossKind } from './driver-energy';
+import { estimateValidity, type EstimateValidity } from './estimate-validity';
 import type { CellCurvePoint, DriverStage } from '../designs/driver-stage.types';
 import type { Estimated, MethodInfo } from '../methods';
 import { driverOperatingPoint, type LadderLoadLine, type LoadPoint, type OperatingLimit } from './operating-point';
@@ -50,6 +51,8 @@ export interface DriverReport {
   energy: DriverEnergy;
   /** The rated-load estimate under the names the simulation's figures use, to set side by side. */
   benchFigures: DriverBenchFigures;
+  /** Whether these instant figures may stand for a simulation; outside, the figures say so and ask for one. */
+  validity: EstimateValidity;
 }
 
 /** Loss groups of the simulation's figures (an element kind each). */
@@ -163,6 +166,7 @@ export function driverReport(driver: DriverStage, ladder: LadderLoadLine, ratedL
   return {
     energy,
     benchFigures: benchFiguresOf(ratedLoad, atLoad, energy),
+    validity: estimateValidity(driver, atLoad, { feedsLadder: true }),
     figures,
     atLimit: {
       deliverablePowerW: limit.deliverablePowerW,

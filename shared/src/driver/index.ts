@@ -58,3 +58,5 @@ export {
   DRIVER_ENERGY_METHOD,
 } from './driver-energy';
 export type { DriverEnergy, LossKind, TransistorThermal } from './driver-energy';
+export { compareWithSimulation, estimateValidity, ESTIMATE_VALIDITY_BOUNDS } from './estimate-validity';
+export type { EstimateValidity, FigureComparison } from './estimate-validity';
