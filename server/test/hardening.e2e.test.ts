@@ -161,7 +161,7 @@ describe('hardening: headers, CORS, cookies, session expiry, sign out everywhere
       const response = await request(secureApp.app.getHttpServer())
         .post('/api/auth/sign-in')
         .send({ email: user.email, password: user.password });
-      const cookie = setCookies(response).find((line) => line.startsWith('lw_session=')) ?? '';
+      const cookie = setCookies(response).find((line) => line.startsWith('__Host-lw_session=')) ?? '';
       expect(cookie).toMatch(/; Secure/);
       expect(cookie).toMatch(/; HttpOnly/);
       expect(response.headers['strict-transport-security']).toMatch(/max-age=\d+/);

@@ -8,15 +8,19 @@ import { Public } from '../common/decorators/public.decorator';
 import type { AppRequest } from '../common/request.types';
 import { AuthService } from './auth.service';
 import { SignInDto } from './dto/sign-in.dto';
-import { SESSION_COOKIE } from './jwt.strategy';
+import { sessionCookieName } from './jwt.strategy';
 
 @ApiTags('auth')
 @Controller('auth')
 export class AuthController {
+  private readonly cookieName: string;
+
   constructor(
     private readonly auth: AuthService,
     @Inject(APP_ENV) private readonly env: AppEnv,
-  ) {}
+  ) {
+    this.cookieName = sessionCookieName(env);
+  }
 
   @Public()
   @Post('sign-in')
@@ -27,7 +31,7 @@ export class AuthController {
     @Res({ passthrough: true }) response: Response,
   ): Promise<SignInResponse> {
     const { user, token } = await this.auth.signIn(body, request.ip ?? 'unknown');
-    response.cookie(SESSION_COOKIE, token, { ...this.cookieOptions(), maxAge: this.env.jwtTtlS * 1000 });
+    response.cookie(this.cookieName, token, { ...this.cookieOptions(), maxAge: this.env.jwtTtlS * 1000 });
     return { user };
   }
 
@@ -35,7 +39,7 @@ export class AuthController {
   @Post('sign-out')
   @HttpCode(204)
   signOut(@Res({ passthrough: true }) response: Response): void {
-    response.clearCookie(SESSION_COOKIE, this.cookieOptions());
+    response.clearCookie(this.cookieName, this.cookieOptions());
   }
 
   /** Ends every session of the signed-in account on every device (its tokens stop working at once). */
@@ -48,7 +52,7 @@ export class AuthController {
     @Res({ passthrough: true }) response: Response,
   ): Promise<void> {
     await this.auth.signOutEverywhere(user.id, user.email, request.ip ?? 'unknown');
-    response.clearCookie(SESSION_COOKIE, this.cookieOptions());
+    response.clearCookie(this.cookieName, this.cookieOptions());
   }
 
   @ApiCookieAuth()
