@@ -5,6 +5,10 @@ export interface AppEnv {
   readonly port: number;
   readonly host: string;
   readonly databaseUrl: string;
+  /** Pooled PostgreSQL connections of this instance. */
+  readonly databasePoolMax: number;
+  /** How long a request waits for a pooled connection before it is answered 503 `busy` with Retry-After. */
+  readonly databaseAcquireTimeoutMs: number;
   readonly jwtSecret: string;
   readonly jwtTtlS: number;
   readonly bcryptRounds: number;
@@ -106,6 +110,8 @@ export function parseEnv(source: EnvSource): AppEnv {
     port: integer('PORT', 8080, 1, 65535) ?? 8080,
     host,
     databaseUrl,
+    databasePoolMax: integer('DATABASE_POOL_MAX', 10, 1, 200) ?? 10,
+    databaseAcquireTimeoutMs: integer('DATABASE_ACQUIRE_TIMEOUT_MS', 5_000, 50, 60_000) ?? 5_000,
     jwtSecret,
     jwtTtlS: integer('JWT_TTL_S', 8 * 3600, 60, 30 * 24 * 3600) ?? 8 * 3600,
     bcryptRounds: integer('BCRYPT_ROUNDS', 10, 4, 15) ?? 10,

@@ -1,9 +1,11 @@
-import { Injectable } from '@nestjs/common';
+import { Inject, Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
 import type { Transaction } from 'sequelize';
+import pLimit, { type Limit } from 'p-limit';
 import { Sequelize } from 'sequelize-typescript';
 import type {
   DesignExport,
+  EvaluateResponse,
   RevisionComparison,
   RevisionDetail,
   RevisionSummary,
@@ -14,6 +16,7 @@ import { DomainError } from '@ladderwright/shared/errors';
 import { buildCircuit, toSpiceNetlist } from '@ladderwright/shared/sim';
 import { AnalysisService } from '../analysis/analysis.service';
 import { isUuid } from '../common/uuid';
+import { APP_ENV, type AppEnv } from '../config/env';
 import { DesignModel } from '../designs/design.model';
 import { PartsService } from '../parts/parts.service';
 import { UserModel } from '../users/user.model';
@@ -44,13 +47,27 @@ function revisionNumberOf(raw: string): number | null {
 
 @Injectable()
 export class RevisionsService {
+  private readonly writeSlots: Limit;
+
   constructor(
     @InjectModel(DesignModel) private readonly designs: typeof DesignModel,
     @InjectModel(RevisionModel) private readonly revisions: typeof RevisionModel,
     private readonly analysis: AnalysisService,
     private readonly parts: PartsService,
     private readonly sequelize: Sequelize,
-  ) {}
+    @Inject(APP_ENV) env: AppEnv,
+  ) {
+    this.writeSlots = pLimit(Math.max(1, Math.floor(env.databasePoolMax / 2)));
+  }
+
+  /**
+   * Runs a revision write (the engine's report, then its transaction) in one of `DATABASE_POOL_MAX / 2`
+   * slots; the others wait without using the event loop or a connection. A burst of saves so keeps half of
+   * the pool and most of the event loop free for every other request.
+   */
+  inWriteSlot<T>(write: () => Promise<T>): Promise<T> {
+    return this.writeSlots(write);
+  }
 
   /** The design `designId` of `projectId`; a malformed id or a design of another project is 404. */
   async findDesign(projectId: string, designId: string, transaction?: Transaction): Promise<DesignModel> {
@@ -65,14 +82,20 @@ export class RevisionsService {
   }
 
   /**
-   * Inserts one revision with the engine's report, computed with the ratings of `projectId`'s Parts shelf
-   * for the part codes the document references. A code the shelf does not hold is a warning in
-   * `report.partIssues`, not a refusal: templates and imported designs carry codes of other shelves, and a
-   * lead may retire a part that older designs still name. The caller holds the design row lock.
+   * The engine's report for `document`, computed with the ratings of `projectId`'s Parts shelf for the part
+   * codes the document references. A code the shelf does not hold is a warning in `report.partIssues`, not a
+   * refusal: templates and imported designs carry codes of other shelves, and a lead may retire a part that
+   * older designs still name. Called before the write's transaction opens, so that a transaction never waits
+   * for a second pooled connection (the shelf read) nor holds its own through the engine's work.
    */
-  async write(projectId: string, revision: NewRevision, transaction: Transaction): Promise<RevisionModel> {
+  async evaluate(projectId: string, document: Design): Promise<EvaluateResponse> {
     const shelf = await this.parts.shelf(projectId);
-    const { engineVersion, report } = this.analysis.evaluate(revision.document, 'document', shelf);
+    return this.analysis.evaluate(document, 'document', shelf);
+  }
+
+  /** Inserts one revision with its report from `evaluate`. The caller holds the design row lock. */
+  async write(revision: NewRevision, evaluated: EvaluateResponse, transaction: Transaction): Promise<RevisionModel> {
+    const { engineVersion, report } = evaluated;
     return this.revisions.create({ ...revision, engineVersion, report }, { transaction });
   }
 
@@ -108,40 +131,43 @@ export class RevisionsService {
     authorId: string,
   ): Promise<RevisionDetail> {
     const document = this.analysis.parseDocument(request.document, 'document');
-    const number = await this.sequelize.transaction(async (transaction) => {
-      const design = await this.findDesign(projectId, designId, transaction);
-      const latest = design.latestRevisionNumber;
-      if (request.baseRevisionNumber > latest) {
-        throw new DomainError(
-          'invalid_argument',
-          `baseRevisionNumber ${request.baseRevisionNumber} does not exist; the latest revision is ${latest}`,
-          'baseRevisionNumber',
+    const number = await this.inWriteSlot(async () => {
+      const evaluated = await this.evaluate(projectId, document);
+      return this.sequelize.transaction(async (transaction) => {
+        const design = await this.findDesign(projectId, designId, transaction);
+        const latest = design.latestRevisionNumber;
+        if (request.baseRevisionNumber > latest) {
+          throw new DomainError(
+            'invalid_argument',
+            `baseRevisionNumber ${request.baseRevisionNumber} does not exist; the latest revision is ${latest}`,
+            'baseRevisionNumber',
+          );
+        }
+        if (request.baseRevisionNumber !== latest) {
+          const [base, newest] = await Promise.all([
+            this.load(design.id, String(request.baseRevisionNumber), 'baseRevisionNumber', transaction),
+            this.load(design.id, String(latest), 'baseRevisionNumber', transaction),
+          ]);
+          throw new StaleBaseException(
+            latest,
+            differences(base.document, newest.document).map((difference) => difference.path),
+          );
+        }
+        await this.write(
+          {
+            designId: design.id,
+            number: latest + 1,
+            document,
+            authorId,
+            changeNote: request.changeNote.trim(),
+            baseRevisionNumber: request.baseRevisionNumber,
+          },
+          evaluated,
+          transaction,
         );
-      }
-      if (request.baseRevisionNumber !== latest) {
-        const [base, newest] = await Promise.all([
-          this.load(design.id, String(request.baseRevisionNumber), 'baseRevisionNumber', transaction),
-          this.load(design.id, String(latest), 'baseRevisionNumber', transaction),
-        ]);
-        throw new StaleBaseException(
-          latest,
-          differences(base.document, newest.document).map((difference) => difference.path),
-        );
-      }
-      await this.write(
-        projectId,
-        {
-          designId: design.id,
-          number: latest + 1,
-          document,
-          authorId,
-          changeNote: request.changeNote.trim(),
-          baseRevisionNumber: request.baseRevisionNumber,
-        },
-        transaction,
-      );
-      await design.update({ latestRevisionNumber: latest + 1 }, { transaction });
-      return latest + 1;
+        await design.update({ latestRevisionNumber: latest + 1 }, { transaction });
+        return latest + 1;
+      });
     });
     return this.get(projectId, designId, String(number));
   }

@@ -8,7 +8,12 @@ import {
   type ValidationError,
 } from '@nestjs/common';
 import type { Response } from 'express';
-import { ConnectionError, ForeignKeyConstraintError, UniqueConstraintError } from 'sequelize';
+import {
+  ConnectionAcquireTimeoutError,
+  ConnectionError,
+  ForeignKeyConstraintError,
+  UniqueConstraintError,
+} from 'sequelize';
 import type { ApiErrorBody } from '@ladderwright/shared/api';
 import { isDomainError, type DomainError, type DomainErrorCode } from '@ladderwright/shared/errors';
 
@@ -59,6 +64,9 @@ export class RetryLaterException extends HttpException {
     super(message, HttpStatus.TOO_MANY_REQUESTS);
   }
 }
+
+/** Seconds a client is asked to wait when every pooled database connection stayed busy. */
+export const BUSY_RETRY_AFTER_S = 1;
 
 /** Presence and type first: "email is required" says more than "email must be shorter than 254 characters". */
 const CONSTRAINT_PRIORITY = [
@@ -149,6 +157,7 @@ export class DomainErrorFilter implements ExceptionFilter {
     const body = this.toBody(error);
     if (response.headersSent) return;
     if (error instanceof RetryLaterException) response.setHeader('Retry-After', String(error.retryAfterS));
+    if (error instanceof ConnectionAcquireTimeoutError) response.setHeader('Retry-After', String(BUSY_RETRY_AFTER_S));
     response.status(body.statusCode).json(body);
   }
 
@@ -170,6 +179,11 @@ export class DomainErrorFilter implements ExceptionFilter {
         code: 'conflict',
         message: 'The record refers to, or is referred to by, another record',
       };
+    }
+    // Every pooled connection stayed in use for the acquire timeout: the database is up, this instance is busy.
+    if (error instanceof ConnectionAcquireTimeoutError) {
+      this.logger.warn('database pool busy: no connection within the acquire timeout');
+      return { statusCode: 503, code: 'busy', message: 'The server is busy; try again in a moment' };
     }
     if (error instanceof ConnectionError) {
       this.logger.error(`database unavailable: ${error.message}`);
