@@ -11,6 +11,7 @@ import { AnalysisModule } from './analysis/analysis.module';
 import { withDesignSchemaComponents } from './analysis/design-schema-components';
 import { AuditModule } from './audit/audit.module';
 import { AuthModule } from './auth/auth.module';
+import { SessionCacheModule } from './auth/session-cache.module';
 import { BenchRunsModule } from './bench-runs/bench-runs.module';
 import { sessionCookieName } from './auth/jwt.strategy';
 import { DomainErrorFilter, RequestValidationException } from './common/filters/domain-error.filter';
@@ -45,6 +46,7 @@ export class AppModule {
         ConfigModule.forRoot(env),
         DatabaseModule,
         AuditModule,
+        SessionCacheModule,
         UsersModule,
         AuthModule,
         ProjectsModule,

@@ -8,7 +8,7 @@ import { Public } from '../common/decorators/public.decorator';
 import type { AppRequest } from '../common/request.types';
 import { AuthService } from './auth.service';
 import { SignInDto } from './dto/sign-in.dto';
-import { sessionCookieName } from './jwt.strategy';
+import { fromSessionCookie, sessionCookieName } from './jwt.strategy';
 
 @ApiTags('auth')
 @Controller('auth')
@@ -35,10 +35,12 @@ export class AuthController {
     return { user };
   }
 
+  /** Ends this session: its token is refused from now on, even if replayed, and the cookie is cleared. */
   @Public()
   @Post('sign-out')
   @HttpCode(204)
-  signOut(@Res({ passthrough: true }) response: Response): void {
+  async signOut(@Req() request: AppRequest, @Res({ passthrough: true }) response: Response): Promise<void> {
+    await this.auth.signOut(fromSessionCookie(this.cookieName)(request));
     response.clearCookie(this.cookieName, this.cookieOptions());
   }
 

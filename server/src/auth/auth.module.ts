@@ -5,7 +5,8 @@ import { APP_ENV, type AppEnv } from '../config/env';
 import { UsersModule } from '../users/users.module';
 import { AuthController } from './auth.controller';
 import { AuthService } from './auth.service';
-import { JwtStrategy } from './jwt.strategy';
+import { JwtStrategy, sessionSigningKey } from './jwt.strategy';
+import { SessionsService } from './sessions.service';
 import { SignInThrottleService } from './sign-in-throttle.service';
 
 @Module({
@@ -15,7 +16,8 @@ import { SignInThrottleService } from './sign-in-throttle.service';
     JwtModule.registerAsync({
       inject: [APP_ENV],
       useFactory: (env: AppEnv) => ({
-        secret: env.jwtSecret,
+        secret: sessionSigningKey(env),
+        verifyOptions: { algorithms: ['HS256'] },
         signOptions: { expiresIn: env.jwtTtlS, algorithm: 'HS256' },
       }),
     }),
@@ -24,6 +26,7 @@ import { SignInThrottleService } from './sign-in-throttle.service';
   providers: [
     AuthService,
     JwtStrategy,
+    SessionsService,
     { provide: SignInThrottleService, useFactory: () => new SignInThrottleService() },
   ],
 })

@@ -5,6 +5,7 @@ import { AuditService } from '../audit/audit.service';
 import { RetryLaterException } from '../common/filters/domain-error.filter';
 import { normalizeEmail, UsersService } from '../users/users.service';
 import type { SessionTokenPayload } from './jwt.strategy';
+import { SessionsService } from './sessions.service';
 import { SignInThrottleService } from './sign-in-throttle.service';
 
 export interface SignInResult extends SignInResponse {
@@ -18,6 +19,7 @@ export class AuthService {
     private readonly jwt: JwtService,
     private readonly throttle: SignInThrottleService,
     private readonly audit: AuditService,
+    private readonly sessions: SessionsService,
   ) {}
 
   /** Checks the credentials and issues a session token; refuses with 429 after repeated failures. */
@@ -36,14 +38,28 @@ export class AuthService {
       throw new UnauthorizedException('E-mail or password is not correct');
     }
     this.throttle.clear(key);
-    const payload: SessionTokenPayload = { sub: user.id, sv: await this.users.sessionVersionOf(user.id) };
+    const payload: Omit<SessionTokenPayload, 'exp'> = {
+      sub: user.id,
+      jti: await this.sessions.open(user.id, clientAddress),
+      sv: await this.users.sessionVersionOf(user.id),
+    };
     await this.audit.record({ action: 'auth.sign_in', actorId: user.id, actorEmail: user.email, clientAddress });
     return { user, token: await this.jwt.signAsync(payload) };
+  }
+
+  /** Revokes the session a token names, so that the token, replayed, is refused. Expired tokens are ignored. */
+  async signOut(token: string | null): Promise<void> {
+    if (token === null) return;
+    const payload = await this.jwt
+      .verifyAsync<Partial<SessionTokenPayload>>(token, { ignoreExpiration: true })
+      .catch(() => null);
+    if (typeof payload?.jti === 'string') await this.sessions.revoke(payload.jti);
   }
 
   /** Revokes every session of the account, the caller's own included. */
   async signOutEverywhere(userId: string, email: string, clientAddress: string): Promise<void> {
     await this.users.revokeSessions(userId);
+    await this.sessions.revokeAllOf(userId);
     await this.audit.record({ action: 'auth.sign_out_everywhere', actorId: userId, actorEmail: email, clientAddress });
   }
 

@@ -11,6 +11,8 @@ export interface AppEnv {
   readonly databaseAcquireTimeoutMs: number;
   readonly jwtSecret: string;
   readonly jwtTtlS: number;
+  /** How long a session read from the database is trusted before it is read again (0: every request). */
+  readonly sessionCacheMs: number;
   readonly bcryptRounds: number;
   readonly cookieSecure: boolean;
   /** Origins allowed to call the API cross-origin with credentials; empty (the default) = CORS closed. */
@@ -114,6 +116,7 @@ export function parseEnv(source: EnvSource): AppEnv {
     databaseAcquireTimeoutMs: integer('DATABASE_ACQUIRE_TIMEOUT_MS', 5_000, 50, 60_000) ?? 5_000,
     jwtSecret,
     jwtTtlS: integer('JWT_TTL_S', 8 * 3600, 60, 30 * 24 * 3600) ?? 8 * 3600,
+    sessionCacheMs: integer('SESSION_CACHE_MS', 5_000, 0, 60_000) ?? 5_000,
     bcryptRounds: integer('BCRYPT_ROUNDS', 10, 4, 15) ?? 10,
     cookieSecure: bool('COOKIE_SECURE', !LOOPBACK_HOSTS.has(host)),
     corsOrigins: Object.freeze(origins('CORS_ORIGINS')),

@@ -3,6 +3,7 @@ import { InjectModel } from '@nestjs/sequelize';
 import type { CreateUserRequest, CurrentUser, UserSummary } from '@ladderwright/shared/api';
 import { DomainError } from '@ladderwright/shared/errors';
 import { AuditService } from '../audit/audit.service';
+import { SessionCacheService } from '../auth/session-cache.service';
 import { isUuid } from '../common/uuid';
 import { PasswordHasherService } from './password-hasher.service';
 import { UserModel } from './user.model';
@@ -25,19 +26,13 @@ export class UsersService {
     @InjectModel(UserModel) private readonly users: typeof UserModel,
     private readonly hasher: PasswordHasherService,
     private readonly audit: AuditService,
+    private readonly sessionCache: SessionCacheService,
   ) {}
 
   async findCurrentUser(userId: string): Promise<CurrentUser | null> {
     if (!isUuid(userId)) return null;
     const user = await this.users.findByPk(userId);
     return user ? toCurrentUser(user) : null;
-  }
-
-  /** The account a session token names, or null when it is gone or the token predates a session revocation. */
-  async findSessionUser(userId: string, sessionVersion: number): Promise<CurrentUser | null> {
-    if (!isUuid(userId)) return null;
-    const user = await this.users.findByPk(userId);
-    return user && user.sessionVersion === sessionVersion ? toCurrentUser(user) : null;
   }
 
   async sessionVersionOf(userId: string): Promise<number> {
@@ -49,6 +44,7 @@ export class UsersService {
   /** Invalidates every session token issued to the account so far. */
   async revokeSessions(userId: string): Promise<void> {
     await this.users.increment('sessionVersion', { where: { id: userId } });
+    this.sessionCache.forgetUser(userId);
   }
 
   /** The account for `email` if `password` matches it; null otherwise (same timing either way). */
@@ -93,6 +89,7 @@ export class UsersService {
     // A reset password also ends the sessions opened with the old one.
     user.sessionVersion += 1;
     await user.save();
+    this.sessionCache.forgetUser(user.id);
     await this.audit.record({
       action: 'user.password_reset',
       actorId: actor.id,
