@@ -1,4 +1,4 @@
-import { Body, Controller, Get, HttpCode, Inject, Post, Req, Res } from '@nestjs/common';
+import { Body, Controller, Get, HttpCode, Inject, Post, Req, Res, UseGuards } from '@nestjs/common';
 import { ApiCookieAuth, ApiTags } from '@nestjs/swagger';
 import type { CookieOptions, Response } from 'express';
 import type { CurrentUser as SessionUser, SignInResponse } from '@ladderwright/shared/api';
@@ -8,6 +8,7 @@ import { Public } from '../common/decorators/public.decorator';
 import type { AppRequest } from '../common/request.types';
 import { AuthService } from './auth.service';
 import { SignInDto } from './dto/sign-in.dto';
+import { SignInThrottlerGuard } from './sign-in-throttler.guard';
 import { fromSessionCookie, sessionCookieName } from './jwt.strategy';
 
 @ApiTags('auth')
@@ -23,6 +24,7 @@ export class AuthController {
   }
 
   @Public()
+  @UseGuards(SignInThrottlerGuard)
   @Post('sign-in')
   @HttpCode(200)
   async signIn(

@@ -14,6 +14,10 @@ export interface AppEnv {
   /** How long a session read from the database is trusted before it is read again (0: every request). */
   readonly sessionCacheMs: number;
   readonly bcryptRounds: number;
+  /** Sign-in attempts one client address may make per minute (then 429 for a minute). */
+  readonly signInPerAddressPerMin: number;
+  /** Sign-in attempts of all clients together per minute, per database (every instance counts). */
+  readonly signInPerMin: number;
   readonly cookieSecure: boolean;
   /** Origins allowed to call the API cross-origin with credentials; empty (the default) = CORS closed. */
   readonly corsOrigins: readonly string[];
@@ -118,6 +122,8 @@ export function parseEnv(source: EnvSource): AppEnv {
     jwtTtlS: integer('JWT_TTL_S', 8 * 3600, 60, 30 * 24 * 3600) ?? 8 * 3600,
     sessionCacheMs: integer('SESSION_CACHE_MS', 5_000, 0, 60_000) ?? 5_000,
     bcryptRounds: integer('BCRYPT_ROUNDS', 10, 4, 15) ?? 10,
+    signInPerAddressPerMin: integer('SIGN_IN_PER_ADDRESS_PER_MIN', 20, 1, 100_000) ?? 20,
+    signInPerMin: integer('SIGN_IN_PER_MIN', 600, 1, 1_000_000) ?? 600,
     cookieSecure: bool('COOKIE_SECURE', !LOOPBACK_HOSTS.has(host)),
     corsOrigins: Object.freeze(origins('CORS_ORIGINS')),
     bodyLimitBytes: integer('BODY_LIMIT_BYTES', 1024 * 1024, 1024, 64 * 1024 * 1024) ?? 1024 * 1024,

@@ -68,6 +68,13 @@ export class RetryLaterException extends HttpException {
 /** Seconds a client is asked to wait when every pooled database connection stayed busy. */
 export const BUSY_RETRY_AFTER_S = 1;
 
+/** 503 `busy` with `Retry-After`: this instance has more of some work queued than it takes on. */
+export class BusyException extends HttpException {
+  constructor(message: string) {
+    super(message, HttpStatus.SERVICE_UNAVAILABLE);
+  }
+}
+
 /** Presence and type first: "email is required" says more than "email must be shorter than 254 characters". */
 const CONSTRAINT_PRIORITY = [
   'whitelistValidation',
@@ -118,6 +125,7 @@ function fromHttpException(error: HttpException): ApiErrorBody {
       issues: error.issues,
     };
   }
+  if (error instanceof BusyException) return { statusCode, code: 'busy', message: error.message };
   const response = error.getResponse();
   const raw = typeof response === 'string' ? response : (response as { message?: unknown }).message;
   const message = Array.isArray(raw) ? raw.join('; ') : typeof raw === 'string' ? raw : error.message;
@@ -157,7 +165,8 @@ export class DomainErrorFilter implements ExceptionFilter {
     const body = this.toBody(error);
     if (response.headersSent) return;
     if (error instanceof RetryLaterException) response.setHeader('Retry-After', String(error.retryAfterS));
-    if (error instanceof ConnectionAcquireTimeoutError) response.setHeader('Retry-After', String(BUSY_RETRY_AFTER_S));
+    if (error instanceof ConnectionAcquireTimeoutError || error instanceof BusyException)
+      response.setHeader('Retry-After', String(BUSY_RETRY_AFTER_S));
     response.status(body.statusCode).json(body);
   }
 
