@@ -18,7 +18,7 @@ import { DomainErrorFilter, RequestValidationException } from './common/filters/
 import { sameOriginOnly } from './common/middleware/same-origin.middleware';
 import { JsonBodyGuard } from './common/guards/json-body.guard';
 import { JwtAuthGuard } from './common/guards/jwt-auth.guard';
-import { ProjectAccessGuard } from './common/guards/project-access.guard';
+import { ProjectAccessGuard } from './projects/project-access.guard';
 import { RolesGuard } from './common/guards/roles.guard';
 import { ConfigModule } from './config/config.module';
 import type { AppEnv } from './config/env';

@@ -21,8 +21,8 @@ const PRUNE_EVERY_MS = 3600_000;
 
 /**
  * Server-side sessions: each session token names its row in `sessions` by its `jti`. Signing out revokes the
- * row, so a replayed token is refused; "sign out everywhere" and a password reset bump the account's session
- * version, which every token carries as `sv`. Lookups go through `SessionCacheService`.
+ * row, so a replayed token is refused; "sign out everywhere", a password reset and a deactivation bump the
+ * account's session version, which every token carries as `sv`, and a deactivated account has no open session. Lookups go through `SessionCacheService`.
  */
 @Injectable()
 export class SessionsService {
@@ -82,7 +82,7 @@ export class SessionsService {
   private async read(sessionId: string, nowMs: number) {
     const [row] = await this.sequelize.query<SessionRow>(
       `SELECT u.id, u.email, u.display_name, u.role, u.session_version,
-              (s.revoked_at IS NULL AND s.expires_at > now()) AS is_open
+              (s.revoked_at IS NULL AND s.expires_at > now() AND u.is_active) AS is_open
        FROM sessions s JOIN users u ON u.id = s.user_id
        WHERE s.id = :sessionId`,
       { replacements: { sessionId }, type: QueryTypes.SELECT },

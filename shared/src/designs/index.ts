@@ -19,3 +19,11 @@ export type {
   SpacingEnvironment,
   DesignTargets,
 } from './design.types';
+export {
+  documentFieldLabel,
+  resultFieldLabel,
+  formatFieldValue,
+  formatFieldDelta,
+  DOCUMENT_FIELD_PATTERNS,
+} from './field-labels';
+export type { FieldLabel, FieldDisplay } from './field-labels';

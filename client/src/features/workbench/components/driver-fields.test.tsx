@@ -3,7 +3,7 @@ import { fireEvent, screen } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { designExamples, validateDesign, type Design } from '@ladderwright/shared/designs';
 import { isDomainError } from '@ladderwright/shared/errors';
-import { analyzeDesign } from '@ladderwright/shared/multiplier';
+import { analyzeDesign } from '@ladderwright/shared/analysis';
 import { renderWithApp } from '../../../testing/render';
 import { LadderForm } from './ladder-form';
 
