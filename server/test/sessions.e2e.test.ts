@@ -37,6 +37,26 @@ describe('sessions: sign-out revokes the token', () => {
     expect((await me(bench)).status).toBe(200);
   });
 
+  it("ends a deactivated account's sessions at once, even those in the session cache", async () => {
+    const admin = await createUser(testApp, { role: 'admin' });
+    const reviewer = await createUser(testApp, { role: 'reviewer' });
+    const adminCookie = await signIn(testApp, admin.email, admin.password);
+    const cookie = await signIn(testApp, reviewer.email, reviewer.password);
+    expect((await me(cookie)).status).toBe(200);
+    const off = await request(testApp.app.getHttpServer())
+      .patch(`/api/users/${reviewer.id}`)
+      .set('Cookie', adminCookie)
+      .send({ isActive: false });
+    expect(off.status).toBe(200);
+    expect((await me(cookie)).status).toBe(401);
+    // Reactivation does not bring the old session back.
+    await request(testApp.app.getHttpServer())
+      .patch(`/api/users/${reviewer.id}`)
+      .set('Cookie', adminCookie)
+      .send({ isActive: true });
+    expect((await me(cookie)).status).toBe(401);
+  });
+
   it('signs out without a session, or with a bad token, as a no-op 204', async () => {
     const server = testApp.app.getHttpServer();
     expect((await request(server).post('/api/auth/sign-out')).status).toBe(204);
