@@ -5,7 +5,7 @@ import { APP_GUARD, NestFactory } from '@nestjs/core';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
 import cookieParser from 'cookie-parser';
-import type { NextFunction, Request, Response } from 'express';
+import express, { type NextFunction, type Request, type Response } from 'express';
 import helmet from 'helmet';
 import { AnalysisModule } from './analysis/analysis.module';
 import { withDesignSchemaComponents } from './analysis/design-schema-components';
@@ -112,7 +112,7 @@ export function configureApp(app: NestExpressApplication, env: AppEnv): void {
     }),
   );
   app.useGlobalFilters(new DomainErrorFilter());
-  setUpApiDocs(app, sessionCookieName(env));
+  if (env.apiDocs) setUpApiDocs(app, sessionCookieName(env));
   serveClient(app, env.clientDistDir);
 }
 
@@ -137,11 +137,15 @@ function serveClient(app: NestExpressApplication, clientDistDir: string): void {
     new Logger('Client').warn(`no built client at ${clientDistDir}; only the API is served`);
     return;
   }
-  app.useStaticAssets(clientDistDir, { index: false });
+  // Registered before the API routes (Nest adds those at init), so it steps aside for /api paths itself:
+  // an API request never costs a file-system lookup.
+  const assets = express.static(clientDistDir, { index: false });
   app.use((request: Request, response: Response, next: NextFunction) => {
-    const isPageRequest = request.method === 'GET' || request.method === 'HEAD';
     const isApi = request.path === `/${API_PREFIX}` || request.path.startsWith(`/${API_PREFIX}/`);
-    if (!isPageRequest || isApi || extname(request.path) !== '') return next();
+    if (isApi) return next();
+    const isPageRequest = request.method === 'GET' || request.method === 'HEAD';
+    if (!isPageRequest) return next();
+    if (extname(request.path) !== '') return assets(request, response, next);
     response.sendFile(indexHtml);
   });
 }

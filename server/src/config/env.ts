@@ -24,6 +24,8 @@ export interface AppEnv {
   /** Largest JSON or form body accepted; larger ones are refused with 413 before they are read. */
   readonly bodyLimitBytes: number;
   readonly clientDistDir: string;
+  /** Serves the OpenAPI document and its viewer at /api/docs without a session (see DEVELOPERS.md). */
+  readonly apiDocs: boolean;
   readonly seedDemo: boolean;
   readonly smtpHost: string | null;
   readonly smtpPort: number | null;
@@ -128,6 +130,7 @@ export function parseEnv(source: EnvSource): AppEnv {
     corsOrigins: Object.freeze(origins('CORS_ORIGINS')),
     bodyLimitBytes: integer('BODY_LIMIT_BYTES', 1024 * 1024, 1024, 64 * 1024 * 1024) ?? 1024 * 1024,
     clientDistDir: dir('CLIENT_DIST_DIR', '../client/dist'),
+    apiDocs: bool('API_DOCS', true),
     seedDemo: bool('SEED_DEMO', false),
     smtpHost: text('SMTP_HOST') ?? (smtpFake ? '127.0.0.1' : null),
     smtpPort: integer('SMTP_PORT', smtpFake ? 2525 : null, 1, 65535),
