@@ -42,6 +42,16 @@ export interface AppEnv {
   readonly dataDir: string;
   /** Worker threads this instance runs simulation jobs on; 0 = this instance only queues them. */
   readonly simulationWorkers: number;
+  /** Simulation jobs one user may have queued or running at once. */
+  readonly simulationMaxActivePerUser: number;
+  /** Simulation jobs one project may have queued or running at once. */
+  readonly simulationMaxActivePerProject: number;
+  /** Largest job: cells × drive cycles × time steps per cycle. */
+  readonly simulationMaxWork: number;
+  /** A job running longer than this is stopped and failed (`time_limit`). */
+  readonly simulationMaxRunS: number;
+  /** How often a running job writes its heartbeat; three missed beats and it is ended as `interrupted`. */
+  readonly simulationHeartbeatMs: number;
   /** Accepts the fault-injection simulation kinds (test runs only). */
   readonly simulationFaultKinds: boolean;
 }
@@ -141,6 +151,11 @@ export function parseEnv(source: EnvSource): AppEnv {
     publicUrl: (text('PUBLIC_URL') ?? `http://${host}:${text('PORT') ?? '8080'}`).replace(/\/+$/, ''),
     dataDir: dir('DATA_DIR', '../.data'),
     simulationWorkers: integer('SIMULATION_WORKERS', 1, 0, 2) ?? 1,
+    simulationMaxActivePerUser: integer('SIMULATION_MAX_ACTIVE_PER_USER', 3, 1, 1000) ?? 3,
+    simulationMaxActivePerProject: integer('SIMULATION_MAX_ACTIVE_PER_PROJECT', 6, 1, 10_000) ?? 6,
+    simulationMaxWork: integer('SIMULATION_MAX_WORK', 500_000_000, 1000, 1e12) ?? 500_000_000,
+    simulationMaxRunS: integer('SIMULATION_MAX_RUN_S', 600, 1, 86_400) ?? 600,
+    simulationHeartbeatMs: integer('SIMULATION_HEARTBEAT_MS', 5_000, 50, 600_000) ?? 5_000,
     simulationFaultKinds: text('NODE_ENV') === 'test',
   };
   if (problems.length > 0) throw new EnvError(problems);

@@ -7,6 +7,7 @@ import { simulationJobs } from './0003-simulation-jobs';
 import { signOffAndMail } from './0004-sign-off-and-mail';
 import { teamAdministration } from './0007-team-administration';
 import { sessionsAndSignInLimits } from './0008-sessions-and-sign-in-limits';
+import { simulationJobHeartbeat } from './0009-simulation-job-heartbeat';
 
 /** Every schema step in order. Add new steps at the end. */
 export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
@@ -18,4 +19,5 @@ export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
   signOffAndMail,
   teamAdministration,
   sessionsAndSignInLimits,
+  simulationJobHeartbeat,
 ];
