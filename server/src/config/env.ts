@@ -52,6 +52,10 @@ export interface AppEnv {
   readonly simulationMaxRunS: number;
   /** How often a running job writes its heartbeat; three missed beats and it is ended as `interrupted`. */
   readonly simulationHeartbeatMs: number;
+  /** Worker threads that run the engine for requests (evaluate, save, create, import). */
+  readonly engineWorkers: number;
+  /** Longest engine work of one request; past it the request is refused with 422 budget_exceeded. */
+  readonly engineBudgetMs: number;
   /** Accepts the fault-injection simulation kinds (test runs only). */
   readonly simulationFaultKinds: boolean;
 }
@@ -156,6 +160,8 @@ export function parseEnv(source: EnvSource): AppEnv {
     simulationMaxWork: integer('SIMULATION_MAX_WORK', 500_000_000, 1000, 1e12) ?? 500_000_000,
     simulationMaxRunS: integer('SIMULATION_MAX_RUN_S', 600, 1, 86_400) ?? 600,
     simulationHeartbeatMs: integer('SIMULATION_HEARTBEAT_MS', 5_000, 50, 600_000) ?? 5_000,
+    engineWorkers: integer('ENGINE_WORKERS', 1, 1, 8) ?? 1,
+    engineBudgetMs: integer('ENGINE_BUDGET_MS', 5_000, 1, 600_000) ?? 5_000,
     simulationFaultKinds: text('NODE_ENV') === 'test',
   };
   if (problems.length > 0) throw new EnvError(problems);

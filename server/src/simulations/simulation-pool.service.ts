@@ -1,7 +1,7 @@
 import { MessageChannel } from 'node:worker_threads';
 import { Inject, Injectable, type OnModuleDestroy } from '@nestjs/common';
 import { Piscina } from 'piscina';
-import { workerEntry } from '../common/worker-entry';
+import { workerEntry } from '../common/workers/worker-entry';
 import { APP_ENV, type AppEnv } from '../config/env';
 import {
   SIMULATION_TASK_NAME,

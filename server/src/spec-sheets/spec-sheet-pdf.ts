@@ -241,7 +241,11 @@ function bomSection(doc: Doc, c: SpecSheetContent): void {
       `${q(bleeder.ratedPowerW, 'W')}, ${q(bleeder.limitingVoltageV, 'V')}`,
       'bleeder string',
       '',
-      marginOf(report.checks, 'bleeder-voltage-r1'),
+      // One verdict for the whole string; reports stored by older engines carry one per resistor.
+      marginOf(
+        report.checks,
+        report.checks.some((c) => c.id === 'bleeder-voltage') ? 'bleeder-voltage' : 'bleeder-voltage-r1',
+      ),
     ]);
   }
   resistorRows.push([

@@ -1,7 +1,7 @@
 import { Inject, Injectable, type OnModuleDestroy } from '@nestjs/common';
 import { Piscina } from 'piscina';
 import { BusyException } from '../common/filters/domain-error.filter';
-import { workerEntry } from '../common/worker-entry';
+import { workerEntry } from '../common/workers/worker-entry';
 import { APP_ENV, type AppEnv } from '../config/env';
 import type { HashTask, VerifyTask } from './password-hash.worker';
 

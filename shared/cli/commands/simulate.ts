@@ -4,6 +4,7 @@ import { DomainError } from '../../src/errors';
 import { ladderSpecFromDesign, type LadderCircuitSpec } from '../../src/circuits/build-ladder-circuit';
 import { runLadder } from '../../src/runs/ladder-runs';
 import { runDriverDesign } from '../../src/runs/driver-runs';
+import { runDriverStartUp } from '../../src/runs/driver-start-up';
 import type { Design } from '../../src/designs/design.types';
 import { ladderInputFromFlags, parseArguments, quantityFlag } from '../ladder-flags';
 
@@ -72,37 +73,7 @@ export function ladderFromArguments(argv: ReadonlyArray<string>): {
  */
 export function simulateCommand(argv: ReadonlyArray<string>): string {
   const driverDesign = driverDesignOf(argv);
-  if (driverDesign) {
-    const { flags } = parseArguments(argv);
-    const windowMs = numberFlag(flags, 'window-ms');
-    const result = runDriverDesign(driverDesign, {
-      start: flags.has('cold') ? 'cold' : 'warm',
-      ...(windowMs !== undefined ? { windowS: windowMs * 1e-3 } : {}),
-      ...(flags.has('discharge')
-        ? { dischargeToV: quantityFlag(flags, 'safe-voltage', 'V') ?? driverDesign.targets.safeVoltageV }
-        : {}),
-    });
-    const dissipatedJ = Object.values(result.energy.dissipatedJ).reduce((a, b) => a + b, 0);
-    return JSON.stringify(
-      {
-        outputMeanV: result.outputMeanV,
-        ripplePeakToPeakV: result.ripplePeakToPeakV,
-        timeToSteadyStateS: result.timeToSteadyStateS,
-        cyclesSimulated: result.cyclesSimulated,
-        method: result.method,
-        start: result.start,
-        isSettled: result.isSettled,
-        extrapolations: result.extrapolations,
-        ...(result.discharge
-          ? { dischargeTimeS: result.discharge.dischargeTimeS, trappedChargeC: result.discharge.trappedChargeC }
-          : {}),
-        oscillationFrequencyHz: result.oscillationFrequencyHz,
-        energy: { suppliedJ: result.energy.suppliedJ, dissipatedJ, storedChangeJ: result.energy.storedChangeJ },
-      },
-      null,
-      2,
-    );
-  }
+  if (driverDesign) return JSON.stringify(simulateDriverDesign(driverDesign, argv), null, 2);
   const { spec, safeVoltageV, flags } = ladderFromArguments(argv);
   const cycles = numberFlag(flags, 'cycles');
   const result = runLadder(spec, {
@@ -122,4 +93,76 @@ export function simulateCommand(argv: ReadonlyArray<string>): string {
     periodicSteadyState: result.periodicSteadyState,
   };
   return JSON.stringify(summary, null, 2);
+}
+
+/** Outputs of a warm and a cold steady state that differ by more than this fraction are two modes. */
+const MODE_SPLIT_FRACTION = 0.05;
+
+/**
+ * A driver design: the steady state (warm start from the engine's estimate, cold when that fails, or
+ * `--cold`; `--window-ms N` simulates exactly N ms) with its bench figures over whole cycles, and the cold
+ * push-button start-up (time to 90 % and to within 1 % of the settled output, or the time within which it
+ * did not settle; `--max-start-ms N` bounds it, default 5000). When the warm steady state and the cold
+ * start settle on outputs more than 5 % apart, both are reported as two stable modes.
+ */
+function simulateDriverDesign(design: Design, argv: ReadonlyArray<string>): Record<string, unknown> {
+  const { flags } = parseArguments(argv);
+  const windowMs = numberFlag(flags, 'window-ms');
+  const maxStartMs = numberFlag(flags, 'max-start-ms') ?? 5000;
+  const result = runDriverDesign(design, {
+    start: flags.has('cold') ? 'cold' : 'warm',
+    ...(windowMs !== undefined ? { windowS: windowMs * 1e-3 } : {}),
+    ...(flags.has('discharge')
+      ? { dischargeToV: quantityFlag(flags, 'safe-voltage', 'V') ?? design.targets.safeVoltageV }
+      : {}),
+  });
+  const startUp = runDriverStartUp(design, { maxTimeS: maxStartMs * 1e-3 });
+  const f = result.figures;
+  const coldV = startUp.finalOutputV;
+  const hasTwoModes =
+    result.start === 'warm' &&
+    result.isSettled &&
+    coldV !== null &&
+    Math.abs(result.outputMeanV - coldV) >
+      MODE_SPLIT_FRACTION * Math.max(Math.abs(coldV), Math.abs(result.outputMeanV));
+  const dissipatedJ = Object.values(result.energy.dissipatedJ).reduce((a, b) => a + b, 0);
+  return {
+    outputMeanV: result.outputMeanV,
+    ripplePeakToPeakV: result.ripplePeakToPeakV,
+    oscillationFrequencyHz: f?.oscillationFrequencyHz ?? null,
+    dutyOnFraction: f?.dutyOnFraction ?? null,
+    primaryCurrentPeakA: f?.primaryCurrentPeakA ?? null,
+    collectorVoltagePeakV: f?.collectorVoltagePeakV ?? null,
+    secondaryVoltagePeakPositiveV: f?.secondaryVoltagePeakPositiveV ?? null,
+    secondaryVoltagePeakNegativeV: f?.secondaryVoltagePeakNegativeV ?? null,
+    inputPowerW: f?.inputPowerW ?? null,
+    outputPowerW: f?.outputPowerW ?? null,
+    efficiency: f?.efficiency ?? null,
+    losses: f?.lossesW ?? null,
+    timeTo90PercentS: startUp.timeTo90PercentS,
+    timeTo1PercentS: startUp.timeTo1PercentS,
+    isSettled: result.isSettled,
+    startUpSettled: startUp.isSettled,
+    ...(startUp.isSettled
+      ? {}
+      : { startUpNote: `not settled within ${(startUp.notSettledWithinS! * 1e3).toPrecision(3)} ms` }),
+    startUpFinalOutputV: startUp.finalOutputV,
+    ...(hasTwoModes
+      ? {
+          twoStableModes: {
+            warm: { outputMeanV: result.outputMeanV, oscillationFrequencyHz: f?.oscillationFrequencyHz ?? null },
+            cold: { outputMeanV: coldV, oscillationFrequencyHz: startUp.frequencyHz },
+          },
+        }
+      : {}),
+    start: result.start,
+    ...(result.warmStartFallback ? { warmStartFallback: result.warmStartFallback } : {}),
+    method: result.method,
+    cyclesSimulated: result.cyclesSimulated + startUp.cyclesSimulated,
+    extrapolations: result.extrapolations,
+    ...(result.discharge
+      ? { dischargeTimeS: result.discharge.dischargeTimeS, trappedChargeC: result.discharge.trappedChargeC }
+      : {}),
+    energy: { suppliedJ: result.energy.suppliedJ, dissipatedJ, storedChangeJ: result.energy.storedChangeJ },
+  };
 }
