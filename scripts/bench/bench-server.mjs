@@ -68,5 +68,5 @@ export async function startBenchServer({ database, clientDistDir = '/nonexistent
     await stop();
     throw error;
   }
-  return { baseUrl, stop };
+  return { baseUrl, stop, pid: child.pid };
 }
