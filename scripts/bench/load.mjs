@@ -5,11 +5,10 @@
 //   node scripts/bench/load.mjs [--duration-s 5] [--connections 10]
 import { spawn } from 'node:child_process';
 import { readFileSync } from 'node:fs';
-import { createServer } from 'node:net';
 import path from 'node:path';
 import autocannon from 'autocannon';
 import { repoRoot, run } from '../lib/run.mjs';
-import { startBenchServer } from './bench-server.mjs';
+import { freePort, startBenchServer } from './bench-server.mjs';
 
 const argValue = (name, fallback) => {
   const index = process.argv.indexOf(name);
@@ -52,14 +51,6 @@ function rssMiB(pid) {
   return kib / 1024;
 }
 
-async function freePort() {
-  const server = createServer();
-  await new Promise((done) => server.listen(0, '127.0.0.1', done));
-  const { port } = server.address();
-  await new Promise((done) => server.close(done));
-  return port;
-}
-
 /** Starts scripts/bench/minimal-nest-app.cjs; resolves when it answers. */
 async function startMinimalNest() {
   const port = await freePort();
@@ -87,11 +78,14 @@ async function startMinimalNest() {
   return { baseUrl, pid: child.pid, stop };
 }
 
-const row = (cells, widths) => cells.map((cell, i) => String(cell)[i === 0 ? 'padEnd' : 'padStart'](widths[i])).join(' ');
+const row = (cells, widths) =>
+  cells.map((cell, i) => String(cell)[i === 0 ? 'padEnd' : 'padStart'](widths[i])).join(' ');
 const WIDTHS = [46, 7, 8, 7, 7, 7];
 
 function printRun(result) {
-  console.log(row([result.title, result.rps.toFixed(0), result.p50Ms, result.p95Ms, result.p99Ms, result.errors], WIDTHS));
+  console.log(
+    row([result.title, result.rps.toFixed(0), result.p50Ms, result.p95Ms, result.p99Ms, result.errors], WIDTHS),
+  );
 }
 
 async function main() {
