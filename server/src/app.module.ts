@@ -140,12 +140,11 @@ function serveClient(app: NestExpressApplication, clientDistDir: string): void {
   // Registered before the API routes (Nest adds those at init), so it steps aside for /api paths itself:
   // an API request never costs a file-system lookup.
   const assets = express.static(clientDistDir, { index: false });
-  app.use((request: Request, response: Response, next: NextFunction) => {
+  app.use((request: Request, response: Response, next: NextFunction): void => {
     const isApi = request.path === `/${API_PREFIX}` || request.path.startsWith(`/${API_PREFIX}/`);
-    if (isApi) return next();
     const isPageRequest = request.method === 'GET' || request.method === 'HEAD';
-    if (!isPageRequest) return next();
-    if (extname(request.path) !== '') return assets(request, response, next);
-    response.sendFile(indexHtml);
+    if (isApi || !isPageRequest) next();
+    else if (extname(request.path) !== '') void assets(request, response, next);
+    else response.sendFile(indexHtml);
   });
 }

@@ -5,11 +5,8 @@ import { RetryLaterException } from '../common/filters/domain-error.filter';
 /** @nestjs/throttler's guard, answering over a limit with our 429 body and a plain `Retry-After`. */
 @Injectable()
 export class SignInThrottlerGuard extends ThrottlerGuard {
-  protected override async throwThrottlingException(
-    _context: ExecutionContext,
-    detail: ThrottlerLimitDetail,
-  ): Promise<void> {
+  protected override throwThrottlingException(_context: ExecutionContext, detail: ThrottlerLimitDetail): Promise<void> {
     const waitS = Math.max(1, detail.timeToBlockExpire);
-    throw new RetryLaterException(`Too many sign-in attempts; try again in ${waitS} s`, waitS);
+    return Promise.reject(new RetryLaterException(`Too many sign-in attempts; try again in ${waitS} s`, waitS));
   }
 }

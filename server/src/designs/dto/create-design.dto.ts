@@ -10,7 +10,7 @@ export class CreateDesignDto implements CreateDesignRequest {
   @MinLength(1, { message: 'name must not be empty' })
   @MaxLength(200, { message: 'name must be at most 200 characters' })
   @IsNotBlank()
-  name: string;
+  name!: string;
 
   @ApiProperty({
     description:
@@ -22,5 +22,5 @@ export class CreateDesignDto implements CreateDesignRequest {
   })
   @IsDefined({ message: 'from is required' })
   @IsObject({ message: 'from must be an object with a kind' })
-  from: DesignSource;
+  from!: DesignSource;
 }

@@ -9,14 +9,14 @@ export class CreateProjectDto implements CreateProjectRequest {
   @MinLength(1, { message: 'name must not be empty' })
   @MaxLength(120)
   @IsNotBlank()
-  name: string;
+  name!: string;
 
   @ApiProperty({ example: 'Ionizers' })
   @IsString()
   @MinLength(1, { message: 'productLine must not be empty' })
   @MaxLength(120)
   @IsNotBlank()
-  productLine: string;
+  productLine!: string;
 
   @ApiPropertyOptional()
   @IsOptional()
