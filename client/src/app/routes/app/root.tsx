@@ -55,7 +55,7 @@ export function AppRoot() {
   const { projectId = null } = useParams();
   const navigate = useNavigate();
   const location = useLocation();
-  const signOut = useSignOut({ onSuccess: () => navigate(paths.signIn.getHref(), { replace: true }) });
+  const signOut = useSignOut({ onSuccess: () => void navigate(paths.signIn.getHref(), { replace: true }) });
 
   if (!user) return <Navigate to={paths.signIn.getHref(location.pathname)} replace />;
 
