@@ -6,6 +6,7 @@ import { auditLog } from './0006-audit-log';
 import { simulationJobs } from './0003-simulation-jobs';
 import { signOffAndMail } from './0004-sign-off-and-mail';
 import { teamAdministration } from './0007-team-administration';
+import { driverSecondaryPhasing } from './0009-driver-secondary-phasing';
 
 /** Every schema step in order. Add new steps at the end. */
 export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
@@ -16,4 +17,5 @@ export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
   simulationJobs,
   signOffAndMail,
   teamAdministration,
+  driverSecondaryPhasing,
 ];
