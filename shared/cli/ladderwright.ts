@@ -4,6 +4,7 @@ import { ladderCommand, ladderHelp } from './commands/ladder';
 import { netlistCommand } from './commands/netlist';
 import { simulateCommand } from './commands/simulate';
 import { sizeCommand, sizeHelp } from './commands/size';
+import { sizeDriverCommand, sizeDriverHelp } from './commands/size-driver';
 import { spreadCommand, spreadHelp } from './commands/spread';
 import { LADDER_FLAGS_HELP } from './ladder-flags';
 
@@ -18,6 +19,7 @@ export const commands: Readonly<Record<string, CliCommand>> = {
   analyze: { help: analyzeHelp, run: analyzeCommand },
   ladder: { help: ladderHelp, run: ladderCommand },
   size: { help: sizeHelp, run: sizeCommand },
+  'size-driver': { help: sizeDriverHelp, run: sizeDriverCommand },
   spread: { help: spreadHelp, run: spreadCommand },
   simulate: { help: 'simulate DESIGN.json | ladder flags   time-domain run (simulator)', run: simulateCommand },
   netlist: { help: 'netlist DESIGN.json | ladder flags    SPICE netlist (simulator)', run: netlistCommand },

@@ -30,6 +30,10 @@ export interface AppEnv {
   readonly dataDir: string;
   /** Worker threads this instance runs simulation jobs on; 0 = this instance only queues them. */
   readonly simulationWorkers: number;
+  /** Worker threads that run the engine for requests (evaluate, save, create, import). */
+  readonly engineWorkers: number;
+  /** Longest engine work of one request; past it the request is refused with 422 budget_exceeded. */
+  readonly engineBudgetMs: number;
   /** Accepts the fault-injection simulation kinds (test runs only). */
   readonly simulationFaultKinds: boolean;
 }
@@ -123,6 +127,8 @@ export function parseEnv(source: EnvSource): AppEnv {
     publicUrl: (text('PUBLIC_URL') ?? `http://${host}:${text('PORT') ?? '8080'}`).replace(/\/+$/, ''),
     dataDir: dir('DATA_DIR', '../.data'),
     simulationWorkers: integer('SIMULATION_WORKERS', 1, 0, 2) ?? 1,
+    engineWorkers: integer('ENGINE_WORKERS', 1, 1, 8) ?? 1,
+    engineBudgetMs: integer('ENGINE_BUDGET_MS', 5_000, 1, 600_000) ?? 5_000,
     simulationFaultKinds: text('NODE_ENV') === 'test',
   };
   if (problems.length > 0) throw new EnvError(problems);

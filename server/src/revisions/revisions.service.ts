@@ -56,7 +56,7 @@ export class RevisionsService {
    */
   async write(projectId: string, revision: NewRevision, transaction: Transaction): Promise<RevisionModel> {
     const shelf = await this.parts.shelf(projectId);
-    const { engineVersion, report } = this.analysis.evaluate(revision.document, 'document', shelf);
+    const { engineVersion, report } = await this.analysis.evaluate(revision.document, 'document', shelf);
     return this.revisions.create({ ...revision, engineVersion, report }, { transaction });
   }
 

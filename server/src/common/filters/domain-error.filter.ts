@@ -23,6 +23,7 @@ const DOMAIN_STATUS: Record<DomainErrorCode, number> = {
   not_found: HttpStatus.NOT_FOUND,
   forbidden: HttpStatus.FORBIDDEN,
   cancelled: HttpStatus.CONFLICT,
+  budget_exceeded: HttpStatus.UNPROCESSABLE_ENTITY,
 };
 
 const HTTP_CODES: Record<number, string> = {
