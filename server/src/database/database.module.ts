@@ -16,6 +16,7 @@ import { MailQueueModel } from '../mail/mail-queue.model';
 import { ReviewCommentModel } from '../reviews/review-comment.model';
 import { RevisionReviewerModel } from '../reviews/revision-reviewer.model';
 import { RevisionTransitionModel } from '../reviews/revision-transition.model';
+import { PasswordResetLinkModel } from '../users/password-reset-link.model';
 import { UserModel } from '../users/user.model';
 
 export const ALL_MODELS = [
@@ -25,6 +26,7 @@ export const ALL_MODELS = [
   RevisionTransitionModel,
   ReviewCommentModel,
   UserModel,
+  PasswordResetLinkModel,
   ProjectModel,
   ProjectMemberModel,
   DesignModel,
@@ -53,7 +55,7 @@ export const ALL_MODELS = [
         autoLoadModels: false,
         synchronize: false,
         logging: false,
-        pool: { max: 10, min: 0, acquire: 10_000, idle: 10_000 },
+        pool: { max: env.databasePoolMax, min: 0, acquire: env.databaseAcquireTimeoutMs, idle: 10_000 },
         dialectOptions: { connectionTimeoutMillis: 5_000 },
       }),
     }),

@@ -1,6 +1,5 @@
-import { BelongsTo, Column, DataType, ForeignKey, HasMany, Model, Table } from 'sequelize-typescript';
+import { BelongsTo, Column, DataType, ForeignKey, Model, Table } from 'sequelize-typescript';
 import { ProjectModel } from '../projects/project.model';
-import { RevisionModel } from '../revisions/revision.model';
 import { UserModel } from '../users/user.model';
 
 export interface DesignAttrs {
@@ -20,21 +19,21 @@ export type DesignCreationAttrs = Pick<DesignAttrs, 'projectId' | 'name' | 'owne
 @Table({ tableName: 'designs', underscored: true, timestamps: true })
 export class DesignModel extends Model<DesignAttrs, DesignCreationAttrs> {
   @Column({ type: DataType.UUID, primaryKey: true, defaultValue: DataType.UUIDV4 })
-  override id: string;
+  override id!: string;
 
   @ForeignKey(() => ProjectModel)
   @Column({ type: DataType.UUID, allowNull: false })
-  projectId: string;
+  projectId!: string;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  name: string;
+  name!: string;
 
   @ForeignKey(() => UserModel)
   @Column({ type: DataType.UUID, allowNull: false })
-  ownerId: string;
+  ownerId!: string;
 
   @Column({ type: DataType.INTEGER, allowNull: false, defaultValue: 0 })
-  latestRevisionNumber: number;
+  latestRevisionNumber!: number;
 
   @BelongsTo(() => ProjectModel, { onDelete: 'CASCADE' })
   project?: ProjectModel;
@@ -42,9 +41,6 @@ export class DesignModel extends Model<DesignAttrs, DesignCreationAttrs> {
   @BelongsTo(() => UserModel)
   owner?: UserModel;
 
-  @HasMany(() => RevisionModel)
-  revisions?: RevisionModel[];
-
-  override createdAt: Date;
-  override updatedAt: Date;
+  override createdAt!: Date;
+  override updatedAt!: Date;
 }

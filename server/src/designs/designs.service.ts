@@ -2,18 +2,14 @@ import { Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
 import { QueryTypes } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
-import type {
-  CreateDesignRequest,
-  DesignDetail,
-  DesignPage,
-  DesignSummary,
-  ImportDesignRequest,
-} from '@ladderwright/shared/api';
+import type { CreateDesignRequest, DesignDetail, DesignPage, DesignSummary } from '@ladderwright/shared/api';
 import type { Design } from '@ladderwright/shared/designs';
 import { DomainError } from '@ladderwright/shared/errors';
 import type { RevisionState } from '@ladderwright/shared/reviews';
 import { AnalysisService } from '../analysis/analysis.service';
 import { blankDocument } from '../analysis/design-templates';
+import { ProjectsService } from '../projects/projects.service';
+import { RevisionLookupService } from '../revisions/revision-lookup.service';
 import { RevisionsService } from '../revisions/revisions.service';
 import { DesignModel } from './design.model';
 import type { ListDesignsDto } from './dto/list-designs.dto';
@@ -62,6 +58,8 @@ export class DesignsService {
   constructor(
     @InjectModel(DesignModel) private readonly designs: typeof DesignModel,
     private readonly revisions: RevisionsService,
+    private readonly lookup: RevisionLookupService,
+    private readonly projects: ProjectsService,
     private readonly analysis: AnalysisService,
     private readonly sequelize: Sequelize,
   ) {}
@@ -96,7 +94,7 @@ export class DesignsService {
   }
 
   async detail(projectId: string, designId: string): Promise<DesignDetail> {
-    const design = await this.revisions.findDesign(projectId, designId);
+    const design = await this.lookup.findDesign(projectId, designId);
     const [row] = await this.sequelize.query<SummaryRow>(`${SUMMARY_SELECT} WHERE d.id = :id`, {
       replacements: { id: design.id },
       type: QueryTypes.SELECT,
@@ -113,21 +111,28 @@ export class DesignsService {
   async create(projectId: string, request: CreateDesignRequest, ownerId: string): Promise<DesignDetail> {
     const name = request.name.trim();
     if (!name) throw new DomainError('invalid_argument', 'name must not be empty', 'name');
+    const defaultTargets =
+      request.from.kind === 'blank' ? (await this.projects.settings(projectId)).defaultTargets : {};
     const source = await designSourceDocument(request.from, {
-      blank: () => blankDocument(name),
+      blank: () => {
+        const blank = blankDocument(name);
+        return { ...blank, targets: { ...blank.targets, ...defaultTargets } };
+      },
       template: (id) => this.analysis.template(id)?.document ?? null,
       revision: async (designId, revisionNumber) => {
-        const design = await this.revisions.findDesign(projectId, designId).catch((error: unknown) => {
+        const design = await this.lookup.findDesign(projectId, designId).catch((error: unknown) => {
           throw error instanceof DomainError
             ? new DomainError('not_found', 'Design not found', 'from.designId')
             : error;
         });
         const number = revisionNumber ?? design.latestRevisionNumber;
-        const revision = await this.revisions.get(projectId, design.id, String(number)).catch((error: unknown) => {
-          throw error instanceof DomainError
-            ? new DomainError('not_found', `Revision ${number} not found`, 'from.revisionNumber')
-            : error;
-        });
+        const revision = await this.revisions
+          .get({ projectId, designId: design.id, revisionNumber: number })
+          .catch((error: unknown) => {
+            throw error instanceof DomainError
+              ? new DomainError('not_found', `Revision ${number} not found`, 'from.revisionNumber')
+              : error;
+          });
         return revision.document;
       },
       parse: (document) => this.analysis.parseDocument(document, 'from.document'),
@@ -135,8 +140,8 @@ export class DesignsService {
     return this.createWithFirstRevision(projectId, { ...source, name }, ownerId, 'Created');
   }
 
-  /** Imports an export file or a bare document as a new design named after the document. */
-  async import(projectId: string, body: ImportDesignRequest | unknown, ownerId: string): Promise<DesignDetail> {
+  /** Imports an export file (ImportDesignRequest) or a bare document as a new design named after the document. */
+  async import(projectId: string, body: unknown, ownerId: string): Promise<DesignDetail> {
     const document = this.parseImport(body);
     const name = document.name.trim() || 'Imported design';
     return this.createWithFirstRevision(projectId, document, ownerId, 'Imported', name);
@@ -168,14 +173,20 @@ export class DesignsService {
     changeNote: string,
     name = document.name,
   ): Promise<DesignDetail> {
-    const designId = await this.sequelize.transaction(async (transaction) => {
-      const design = await this.designs.create({ projectId, name, ownerId, latestRevisionNumber: 1 }, { transaction });
-      await this.revisions.write(
-        projectId,
-        { designId: design.id, number: 1, document, authorId: ownerId, changeNote, baseRevisionNumber: null },
-        transaction,
-      );
-      return design.id;
+    const designId = await this.revisions.inWriteSlot(async () => {
+      const evaluated = await this.revisions.evaluate(projectId, document);
+      return this.sequelize.transaction(async (transaction) => {
+        const design = await this.designs.create(
+          { projectId, name, ownerId, latestRevisionNumber: 1 },
+          { transaction },
+        );
+        await this.revisions.write(
+          { designId: design.id, number: 1, document, authorId: ownerId, changeNote, baseRevisionNumber: null },
+          evaluated,
+          transaction,
+        );
+        return design.id;
+      });
     });
     return this.detail(projectId, designId);
   }

@@ -1,9 +1,11 @@
-import { Injectable } from '@nestjs/common';
+import { Inject, Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
 import type { Transaction } from 'sequelize';
+import pLimit, { type Limit } from 'p-limit';
 import { Sequelize } from 'sequelize-typescript';
 import type {
   DesignExport,
+  EvaluateResponse,
   RevisionComparison,
   RevisionDetail,
   RevisionSummary,
@@ -11,13 +13,15 @@ import type {
 } from '@ladderwright/shared/api';
 import type { Design } from '@ladderwright/shared/designs';
 import { DomainError } from '@ladderwright/shared/errors';
-import { buildCircuit, toSpiceNetlist } from '@ladderwright/shared/sim';
+import { buildCircuit } from '@ladderwright/shared/circuits';
+import { toSpiceNetlist } from '@ladderwright/shared/sim';
 import { AnalysisService } from '../analysis/analysis.service';
-import { isUuid } from '../common/uuid';
-import { DesignModel } from '../designs/design.model';
+import { APP_ENV, type AppEnv } from '../config/env';
 import { PartsService } from '../parts/parts.service';
-import { UserModel } from '../users/user.model';
 import { differences } from './document-diff';
+import { UserModel } from '../users/user.model';
+import { RevisionLookupService } from './revision-lookup.service';
+import type { RevisionRef } from './revision-ref.decorator';
 import { fileStem, toRevisionDetail, toRevisionSummary } from './revision-shapes';
 import { RevisionModel } from './revision.model';
 import { StaleBaseException } from './stale-base.filter';
@@ -37,47 +41,50 @@ export interface DownloadFile {
   body: string;
 }
 
-/** Parses a revision number from the route; anything but a positive integer is "no such revision". */
-function revisionNumberOf(raw: string): number | null {
-  return /^[1-9][0-9]{0,8}$/.test(raw) ? Number(raw) : null;
-}
-
 @Injectable()
 export class RevisionsService {
+  private readonly writeSlots: Limit;
+
   constructor(
-    @InjectModel(DesignModel) private readonly designs: typeof DesignModel,
     @InjectModel(RevisionModel) private readonly revisions: typeof RevisionModel,
+    private readonly lookup: RevisionLookupService,
     private readonly analysis: AnalysisService,
     private readonly parts: PartsService,
     private readonly sequelize: Sequelize,
-  ) {}
-
-  /** The design `designId` of `projectId`; a malformed id or a design of another project is 404. */
-  async findDesign(projectId: string, designId: string, transaction?: Transaction): Promise<DesignModel> {
-    const design = isUuid(designId)
-      ? await this.designs.findOne({
-          where: { id: designId, projectId },
-          ...(transaction ? { transaction, lock: transaction.LOCK.UPDATE } : {}),
-        })
-      : null;
-    if (!design) throw new DomainError('not_found', 'Design not found', 'designId');
-    return design;
+    @Inject(APP_ENV) env: AppEnv,
+  ) {
+    this.writeSlots = pLimit(Math.max(1, Math.floor(env.databasePoolMax / 2)));
   }
 
   /**
-   * Inserts one revision with the engine's report, computed with the ratings of `projectId`'s Parts shelf
-   * for the part codes the document references. A code the shelf does not hold is a warning in
-   * `report.partIssues`, not a refusal: templates and imported designs carry codes of other shelves, and a
-   * lead may retire a part that older designs still name. The caller holds the design row lock.
+   * Runs a revision write (the engine's report, then its transaction) in one of `DATABASE_POOL_MAX / 2`
+   * slots; the others wait without using the event loop or a connection. A burst of saves so keeps half of
+   * the pool and most of the event loop free for every other request.
    */
-  async write(projectId: string, revision: NewRevision, transaction: Transaction): Promise<RevisionModel> {
+  inWriteSlot<T>(write: () => Promise<T>): Promise<T> {
+    return this.writeSlots(write);
+  }
+
+  /**
+   * The engine's report for `document`, computed with the ratings of `projectId`'s Parts shelf for the part
+   * codes the document references. A code the shelf does not hold is a warning in `report.partIssues`, not a
+   * refusal: templates and imported designs carry codes of other shelves, and a lead may retire a part that
+   * older designs still name. Called before the write's transaction opens, so that a transaction never waits
+   * for a second pooled connection (the shelf read) nor holds its own through the engine's work.
+   */
+  async evaluate(projectId: string, document: Design): Promise<EvaluateResponse> {
     const shelf = await this.parts.shelf(projectId);
-    const { engineVersion, report } = this.analysis.evaluate(revision.document, 'document', shelf);
+    return this.analysis.evaluate(document, 'document', shelf);
+  }
+
+  /** Inserts one revision with its report from `evaluate`. The caller holds the design row lock. */
+  async write(revision: NewRevision, evaluated: EvaluateResponse, transaction: Transaction): Promise<RevisionModel> {
+    const { engineVersion, report } = evaluated;
     return this.revisions.create({ ...revision, engineVersion, report }, { transaction });
   }
 
   async list(projectId: string, designId: string): Promise<RevisionSummary[]> {
-    const design = await this.findDesign(projectId, designId);
+    const design = await this.lookup.findDesign(projectId, designId);
     return this.listOf(design.id);
   }
 
@@ -91,9 +98,9 @@ export class RevisionsService {
     return rows.map(toRevisionSummary);
   }
 
-  async get(projectId: string, designId: string, rawNumber: string): Promise<RevisionDetail> {
-    const design = await this.findDesign(projectId, designId);
-    return toRevisionDetail(await this.load(design.id, rawNumber, 'revisionNumber'), projectId);
+  async get(ref: RevisionRef): Promise<RevisionDetail> {
+    const { revision } = await this.lookup.find(ref);
+    return toRevisionDetail(revision, ref.projectId);
   }
 
   /**
@@ -101,58 +108,59 @@ export class RevisionsService {
    * base is not the latest revision, listing the fields changed since the base. The design row is locked
    * for the numbering, so two concurrent saves on the same base cannot both succeed.
    */
-  async save(
-    projectId: string,
-    designId: string,
-    request: SaveRevisionRequest,
-    authorId: string,
-  ): Promise<RevisionDetail> {
+  async save(input: {
+    projectId: string;
+    designId: string;
+    request: SaveRevisionRequest;
+    authorId: string;
+  }): Promise<RevisionDetail> {
+    const { projectId, designId, request, authorId } = input;
     const document = this.analysis.parseDocument(request.document, 'document');
-    const number = await this.sequelize.transaction(async (transaction) => {
-      const design = await this.findDesign(projectId, designId, transaction);
-      const latest = design.latestRevisionNumber;
-      if (request.baseRevisionNumber > latest) {
-        throw new DomainError(
-          'invalid_argument',
-          `baseRevisionNumber ${request.baseRevisionNumber} does not exist; the latest revision is ${latest}`,
-          'baseRevisionNumber',
+    const number = await this.inWriteSlot(async () => {
+      const evaluated = await this.evaluate(projectId, document);
+      return this.sequelize.transaction(async (transaction) => {
+        const design = await this.lookup.findDesign(projectId, designId, transaction);
+        const latest = design.latestRevisionNumber;
+        if (request.baseRevisionNumber > latest) {
+          throw new DomainError(
+            'invalid_argument',
+            `baseRevisionNumber ${request.baseRevisionNumber} does not exist; the latest revision is ${latest}`,
+            'baseRevisionNumber',
+          );
+        }
+        if (request.baseRevisionNumber !== latest) {
+          const [base, newest] = await Promise.all([
+            this.load(design.id, request.baseRevisionNumber, 'baseRevisionNumber', transaction),
+            this.load(design.id, latest, 'baseRevisionNumber', transaction),
+          ]);
+          throw new StaleBaseException(
+            latest,
+            differences(base.document, newest.document).map((difference) => difference.path),
+          );
+        }
+        await this.write(
+          {
+            designId: design.id,
+            number: latest + 1,
+            document,
+            authorId,
+            changeNote: request.changeNote.trim(),
+            baseRevisionNumber: request.baseRevisionNumber,
+          },
+          evaluated,
+          transaction,
         );
-      }
-      if (request.baseRevisionNumber !== latest) {
-        const [base, newest] = await Promise.all([
-          this.load(design.id, String(request.baseRevisionNumber), 'baseRevisionNumber', transaction),
-          this.load(design.id, String(latest), 'baseRevisionNumber', transaction),
-        ]);
-        throw new StaleBaseException(
-          latest,
-          differences(base.document, newest.document).map((difference) => difference.path),
-        );
-      }
-      await this.write(
-        projectId,
-        {
-          designId: design.id,
-          number: latest + 1,
-          document,
-          authorId,
-          changeNote: request.changeNote.trim(),
-          baseRevisionNumber: request.baseRevisionNumber,
-        },
-        transaction,
-      );
-      await design.update({ latestRevisionNumber: latest + 1 }, { transaction });
-      return latest + 1;
+        await design.update({ latestRevisionNumber: latest + 1 }, { transaction });
+        return latest + 1;
+      });
     });
-    return this.get(projectId, designId, String(number));
+    return this.get({ projectId, designId, revisionNumber: number });
   }
 
   /** Inputs that differ and every headline result, a beside b, with b − a. */
   async compare(projectId: string, designId: string, a: number, b: number): Promise<RevisionComparison> {
-    const design = await this.findDesign(projectId, designId);
-    const [revisionA, revisionB] = await Promise.all([
-      this.load(design.id, String(a), 'a'),
-      this.load(design.id, String(b), 'b'),
-    ]);
+    const design = await this.lookup.findDesign(projectId, designId);
+    const [revisionA, revisionB] = await Promise.all([this.load(design.id, a, 'a'), this.load(design.id, b, 'b')]);
     return {
       a: toRevisionSummary(revisionA),
       b: toRevisionSummary(revisionB),
@@ -161,9 +169,8 @@ export class RevisionsService {
     };
   }
 
-  async exportFile(projectId: string, designId: string, rawNumber: string, now: Date): Promise<DownloadFile> {
-    const design = await this.findDesign(projectId, designId);
-    const revision = await this.load(design.id, rawNumber, 'revisionNumber');
+  async exportFile(ref: RevisionRef, now: Date): Promise<DownloadFile> {
+    const { design, revision } = await this.lookup.find(ref);
     const file: DesignExport = {
       format: 'ladderwright-design',
       formatVersion: 1,
@@ -181,9 +188,8 @@ export class RevisionsService {
    * The revision's circuit as a SPICE netlist, from the simulator's own export. A driver-stage design is
    * exported with the secondary the engine resolves from its driver (the pulse estimate the report uses).
    */
-  async netlist(projectId: string, designId: string, rawNumber: string): Promise<DownloadFile> {
-    const design = await this.findDesign(projectId, designId);
-    const revision = await this.load(design.id, rawNumber, 'revisionNumber');
+  async netlist(ref: RevisionRef): Promise<DownloadFile> {
+    const { design, revision } = await this.lookup.find(ref);
     const circuit = buildCircuit(this.analysis.withResolvedDrive(revision.document));
     const title = `${design.name}, revision ${revision.number}`.replace(/[\r\n]+/g, ' ');
     return {
@@ -192,18 +198,15 @@ export class RevisionsService {
     };
   }
 
+  /** A revision named in a request body or query (a base, a side of a comparison): 404 naming `field`. */
   private async load(
     designId: string,
-    rawNumber: string,
+    number: number,
     field: string,
     transaction?: Transaction,
   ): Promise<RevisionModel> {
-    const number = revisionNumberOf(rawNumber);
-    const revision =
-      number === null
-        ? null
-        : await this.revisions.findOne({ where: { designId, number }, include: [UserModel], transaction });
-    if (!revision) throw new DomainError('not_found', `Revision ${rawNumber} not found`, field);
+    const revision = await this.lookup.findIn(designId, number, transaction);
+    if (!revision) throw new DomainError('not_found', `Revision ${number} not found`, field);
     return revision;
   }
 }

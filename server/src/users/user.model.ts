@@ -1,6 +1,5 @@
-import { Column, DataType, HasMany, Model, Table } from 'sequelize-typescript';
+import { Column, DataType, Model, Table } from 'sequelize-typescript';
 import type { UserRole } from '@ladderwright/shared/auth';
-import { ProjectMemberModel } from '../projects/project-member.model';
 
 export interface UserAttrs {
   id: string;
@@ -10,6 +9,10 @@ export interface UserAttrs {
   passwordHash: string;
   /** Bumped by "sign out everywhere" and password resets; session tokens carry the version they were issued at. */
   sessionVersion: number;
+  /** false: deactivated by an admin; the account cannot sign in and its sessions end. */
+  isActive: boolean;
+  /** Mail kinds (`MailKind`) the user chose not to receive. */
+  mailOptOuts: string[];
   createdAt: Date;
   updatedAt: Date;
 }
@@ -20,26 +23,29 @@ export type UserCreationAttrs = Pick<UserAttrs, 'email' | 'displayName' | 'role'
 @Table({ tableName: 'users', underscored: true, timestamps: true })
 export class UserModel extends Model<UserAttrs, UserCreationAttrs> {
   @Column({ type: DataType.UUID, primaryKey: true, defaultValue: DataType.UUIDV4 })
-  override id: string;
+  override id!: string;
 
   @Column({ type: DataType.TEXT, allowNull: false, unique: true })
-  email: string;
+  email!: string;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  displayName: string;
+  displayName!: string;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  role: UserRole;
+  role!: UserRole;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  passwordHash: string;
+  passwordHash!: string;
 
   @Column({ type: DataType.INTEGER, allowNull: false, defaultValue: 0 })
-  sessionVersion: number;
+  sessionVersion!: number;
 
-  @HasMany(() => ProjectMemberModel)
-  memberships?: ProjectMemberModel[];
+  @Column({ type: DataType.BOOLEAN, allowNull: false, defaultValue: true })
+  isActive!: boolean;
 
-  override createdAt: Date;
-  override updatedAt: Date;
+  @Column({ type: DataType.JSONB, allowNull: false, defaultValue: [] })
+  mailOptOuts!: string[];
+
+  override createdAt!: Date;
+  override updatedAt!: Date;
 }

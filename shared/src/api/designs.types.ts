@@ -1,6 +1,6 @@
 import type { Design } from '../designs';
 import type { FieldIssue } from '../errors';
-import type { DesignReport } from '../multiplier';
+import type { DesignReport } from '../analysis';
 import type { RevisionState } from '../reviews';
 
 /**

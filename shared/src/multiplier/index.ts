@@ -13,8 +13,6 @@ export { buildLadderNetwork } from './topologies';
 export type { LadderNetwork } from './topologies';
 export { ladderCurves } from './ladder-curves';
 export { ladderStressChecks, bleederStressChecks, DERATING } from './ladder-stress';
-export { analyzeDesign, analyzeLadderReport, evaluateChecks, resolveDrive, ladderInputOf } from './analyze-design';
-export type { DesignReport, LadderReport, LadderReportOptions } from './analyze-design';
 export { ENGINE_VERSION } from './engine-version';
 export type {
   LadderInput,
@@ -27,5 +25,5 @@ export type {
   LadderNodeVoltage,
   LadderNodeColumn,
   TextbookFigures,
-  MethodInfo,
 } from './ladder.types';
+export type { MethodInfo } from '../methods';

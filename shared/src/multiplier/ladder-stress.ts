@@ -80,7 +80,11 @@ export function ladderStressChecks(analysis: LadderAnalysis, multiplier: Multipl
   return checks;
 }
 
-/** Voltage and power of each resistor of the bleeder string (equal share of the ladder-top voltage). */
+/**
+ * Voltage and power of one resistor of the bleeder string: the resistors are equal and share the
+ * ladder-top voltage equally, so one verdict of each kind speaks for all `count` of them (its cost does
+ * not grow with the count).
+ */
 export function bleederStressChecks(
   bleeder: BleederString | null,
   ladderTopV: number,
@@ -89,35 +93,32 @@ export function bleederStressChecks(
   if (!bleeder) return [];
   const perResistorV = Math.abs(peakLadderTopV) / bleeder.count;
   const perResistorW = (Math.abs(ladderTopV) / bleeder.count) ** 2 / bleeder.valueOhm;
-  const checks: CheckVerdict[] = [];
-  for (let i = 1; i <= bleeder.count; i += 1) {
-    checks.push(
-      deratedVerdict(
-        {
-          id: `bleeder-voltage-r${i}`,
-          subject: `bleeder R${i} of ${bleeder.count}`,
-          rule: ratingRule(
-            'voltage across one resistor vs its limiting element voltage (IEC 60115-1 term)',
-            DERATING.resistorVoltage,
-          ),
-          value: perResistorV,
-          unit: 'V',
-        },
-        bleeder.limitingVoltageV,
-        DERATING.resistorVoltage,
-      ),
-      deratedVerdict(
-        {
-          id: `bleeder-power-r${i}`,
-          subject: `bleeder R${i} of ${bleeder.count}`,
-          rule: ratingRule('dissipation of one resistor', DERATING.resistorPower),
-          value: perResistorW,
-          unit: 'W',
-        },
-        bleeder.ratedPowerW,
-        DERATING.resistorPower,
-      ),
-    );
-  }
-  return checks;
+  const subject = bleeder.count === 1 ? 'bleeder resistor' : `each of the ${bleeder.count} bleeder resistors`;
+  return [
+    deratedVerdict(
+      {
+        id: 'bleeder-voltage',
+        subject,
+        rule: ratingRule(
+          'voltage across one resistor vs its limiting element voltage (IEC 60115-1 term)',
+          DERATING.resistorVoltage,
+        ),
+        value: perResistorV,
+        unit: 'V',
+      },
+      bleeder.limitingVoltageV,
+      DERATING.resistorVoltage,
+    ),
+    deratedVerdict(
+      {
+        id: 'bleeder-power',
+        subject,
+        rule: ratingRule('dissipation of one resistor', DERATING.resistorPower),
+        value: perResistorW,
+        unit: 'W',
+      },
+      bleeder.ratedPowerW,
+      DERATING.resistorPower,
+    ),
+  ];
 }

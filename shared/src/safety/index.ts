@@ -23,3 +23,5 @@ export {
 } from './creepage';
 export type { CreepageColumn, StageSpacing } from './creepage';
 export type { CheckVerdict } from './check.types';
+export { mergeCheckRows, describeMargin } from './check-rows';
+export type { CheckRow } from './check-rows';

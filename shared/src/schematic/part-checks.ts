@@ -1,4 +1,4 @@
-import type { DesignReport } from '../multiplier';
+import type { DesignReport } from '../analysis';
 import type { PartCheck } from './schematic.types';
 
 /** The drawn part each check id speaks of: a capacitor, a diode, a bleeder resistor, the transistor, transformer or cells. */

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { type Design, designExamples } from '../designs';
-import { analyzeDesign, buildLadderNetwork, type DesignReport } from '../multiplier';
+import { analyzeDesign, type DesignReport } from '../analysis';
+import { buildLadderNetwork } from '../multiplier';
 import { formatQuantity } from '../units';
 import { layoutSchematic } from './schematic-layout';
 import type { Box, SchematicLabel } from './schematic.types';

@@ -1,6 +1,7 @@
 import type { Design } from '../designs';
 import type { DriverStage } from '../driver';
-import { buildLadderNetwork, type DesignReport } from '../multiplier';
+import type { DesignReport } from '../analysis';
+import { buildLadderNetwork } from '../multiplier';
 import { formatQuantity } from '../units';
 import { partChecksOf } from './part-checks';
 import { ground, junction, npn, twoTerminal, wire } from './schematic-symbols';

@@ -1,11 +1,12 @@
 import { beforeAll, describe, expect, it } from 'vitest';
-import { DRIVER_NODES, DRIVER_SUPPLY_SOURCE, buildDriverCircuit } from '../../src/driver/build-driver-circuit';
-import { driverExamples } from '../../src/driver/driver-examples';
+import { DRIVER_NODES, DRIVER_SUPPLY_SOURCE, buildDriverCircuit } from '../../src/circuits/build-driver-circuit';
+import { driverExamples } from '../../src/designs/driver-examples';
 import { halfWaveCascadeLoadLine, solveLoadPoint } from '../../src/driver/operating-point';
 import { EnergyMeter, type EnergyAccount } from '../../src/sim/energy-meter';
 import { MnaSystem } from '../../src/sim/mna-system';
 import { toSpiceNetlist } from '../../src/sim/to-spice-netlist';
-import { SampleBuffer, TransientStepper } from '../../src/sim/transient';
+import { SampleBuffer } from '../../src/sim/sample-buffer';
+import { TransientStepper } from '../../src/sim/transient';
 import { hasNgspice, runNgspice } from '../ngspice/run-ngspice';
 
 // Demo driver (two alkaline cells) into a four-cell half-wave ladder of 220 pF, 200 MΩ load. Small
@@ -13,7 +14,7 @@ import { hasNgspice, runNgspice } from '../ngspice/run-ngspice';
 const demo = driverExamples.surfaceChargeTester;
 const loadOhm = 200e6;
 const capacitorF = 220e-12;
-const circuit = buildDriverCircuit(demo, {
+const built = buildDriverCircuit(demo, {
   ladder: {
     topology: 'half-wave',
     cellCount: 4,
@@ -22,6 +23,13 @@ const circuit = buildDriverCircuit(demo, {
     load: { kind: 'resistance', resistanceOhm: loadOhm },
   },
 });
+// The transformer here is linear (its core far from saturation either way): at reltol 1e-4 ngspice does not
+// get through the behavioural flux formulation of the saturating core on this circuit ("timestep too
+// small"); the core is compared with ngspice at reltol 1e-5 in test/ngspice/saturable-core-vs-ngspice.test.ts.
+const circuit = {
+  ...built,
+  elements: built.elements.map((e) => (e.kind === 'coupled-inductors' ? { ...e, core: undefined } : e)),
+};
 const stopS = 40e-3;
 const fromS = 36e-3; // steady-state window: the output moves < 0.1 % between 35 and 40 ms
 const maxStepS = 2e-7;

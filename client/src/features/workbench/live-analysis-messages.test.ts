@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { designExamples, type Design } from '@ladderwright/shared/designs';
-import { analyzeDesign } from '@ladderwright/shared/multiplier';
+import { analyzeDesign } from '@ladderwright/shared/analysis';
 import { shelfPart } from '../../testing/shelf-part';
 import { answerLiveAnalysis } from './live-analysis-messages';
 
@@ -36,7 +36,7 @@ describe('answerLiveAnalysis', () => {
       document: withPrimaryInductance(designExamples.surfaceChargeTester, 0),
     });
     expect(result.report).toBeNull();
-    expect(result.issues['drive.driver.transformer.primaryInductanceH']).toBe('primary inductance must be positive');
+    expect(result.issues['drive.driver.transformer.primaryInductanceH']).toBe('must be greater than zero');
     expect(result.engineError).toBeNull();
   });
 

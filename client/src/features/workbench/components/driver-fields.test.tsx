@@ -3,7 +3,7 @@ import { fireEvent, screen } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { designExamples, validateDesign, type Design } from '@ladderwright/shared/designs';
 import { isDomainError } from '@ladderwright/shared/errors';
-import { analyzeDesign } from '@ladderwright/shared/multiplier';
+import { analyzeDesign } from '@ladderwright/shared/analysis';
 import { renderWithApp } from '../../../testing/render';
 import { LadderForm } from './ladder-form';
 
@@ -61,12 +61,12 @@ describe('LadderForm driver fields', () => {
   );
 
   it(
-    'shows the engine’s message beside the primary inductance when it is set to zero',
+    'shows the validator’s message beside the primary inductance when it is set to zero',
     () => {
       renderWithApp(<Harness onDocument={() => undefined} />);
       const field = screen.getByLabelText('Primary inductance');
       fireEvent.change(field, { target: { value: '0 H' } });
-      expect(screen.getByText('primary inductance must be positive')).toBeTruthy();
+      expect(screen.getByText('must be greater than zero')).toBeTruthy();
       expect(field.getAttribute('aria-invalid')).toBe('true');
     },
     timeoutMs,

@@ -1,7 +1,7 @@
 import { screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { designExamples } from '@ladderwright/shared/designs';
-import { analyzeDesign } from '@ladderwright/shared/multiplier';
+import { analyzeDesign } from '@ladderwright/shared/analysis';
 import { formatQuantity } from '@ladderwright/shared/units';
 import { renderWithApp } from '../../../testing/render';
 import { DriverPanel } from './driver-panel';
@@ -19,6 +19,17 @@ describe('DriverPanel', () => {
       `${(driver.batteryLife!.lifeS.value / 3600).toFixed(1)} h`,
     );
     expect(screen.getByRole('button', { name: 'How frequency is computed' })).toBeTruthy();
+  });
+
+  it('shows one efficiency: the figures table and the power balance carry the rated-load figure', () => {
+    const driver = analyzeDesign(designExamples.surfaceChargeTester).driver!;
+    renderWithApp(<DriverPanel driver={driver} />);
+    const percent = `${(driver.energy.efficiency * 100).toFixed(1)} %`;
+    expect(within(screen.getByRole('table', { name: 'Driver figures' })).getByText(percent)).toBeTruthy();
+    expect(screen.getByText(/at the rated load: in/).textContent).toContain(`efficiency ${percent}`);
+    const losses = screen.getByRole('table', { name: 'Losses' });
+    expect(within(losses).getByText('bleeder')).toBeTruthy();
+    expect(within(losses).getByText(formatQuantity(driver.energy.losses.bleeder, 'W'))).toBeTruthy();
   });
 
   it('draws the operating curve with the power-limit onset and the rated load named beside it', () => {

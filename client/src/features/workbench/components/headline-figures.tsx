@@ -1,7 +1,8 @@
 import type { ReactNode } from 'react';
 import { Group, Paper, SimpleGrid, Text } from '@mantine/core';
 import type { Design } from '@ladderwright/shared/designs';
-import type { DesignReport, MethodInfo } from '@ladderwright/shared/multiplier';
+import type { DesignReport } from '@ladderwright/shared/analysis';
+import type { MethodInfo } from '@ladderwright/shared/methods';
 import { lowerLimitVerdict, upperLimitVerdict, type CheckVerdict } from '@ladderwright/shared/safety';
 import { formatQuantity } from '@ladderwright/shared/units';
 import { MethodNote } from './method-note';

@@ -1,5 +1,5 @@
 import { SimpleGrid, Text } from '@mantine/core';
-import type { DesignReport } from '@ladderwright/shared/multiplier';
+import type { DesignReport } from '@ladderwright/shared/analysis';
 import { formatQuantity } from '@ladderwright/shared/units';
 import { chartColors, QuantityChart } from '../../../components/quantity-chart';
 import { MethodNote } from './method-note';

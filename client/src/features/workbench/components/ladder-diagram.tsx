@@ -1,7 +1,7 @@
 import { useMemo } from 'react';
 import { Text } from '@mantine/core';
 import type { Design } from '@ladderwright/shared/designs';
-import type { DesignReport } from '@ladderwright/shared/multiplier';
+import type { DesignReport } from '@ladderwright/shared/analysis';
 import { layoutSchematic } from '@ladderwright/shared/schematic';
 import { formatQuantity } from '@ladderwright/shared/units';
 import { ChartFrame } from '../../../components/chart-frame';

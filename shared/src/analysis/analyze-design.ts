@@ -1,0 +1,352 @@
+import { DomainError } from '../errors';
+import type { Design, DischargeRule, PulseDrive, SineDrive } from '../designs/design.types';
+import { estimateBlockingOscillator } from '../driver/blocking-oscillator';
+import { driverReport, type DriverReport } from '../driver/driver-report';
+import type { DriverStage } from '../designs/driver-stage.types';
+import type { DriverCheckVerdict } from '../driver/driver-checks';
+import type { MethodInfo } from '../methods';
+import { engineLadderLoadLine, pulseDriveOf, solveLoadPoint, type LadderLoadLine } from '../driver/operating-point';
+import { DISCHARGE_METHOD, dischargeCheck, trappedChargeCheck } from '../safety/discharge';
+import { creepageChecks, stageSpacing } from '../safety/creepage';
+import type { StageSpacing } from '../safety/creepage';
+import { HV_CAUTION, upperLimitVerdict } from '../safety/hazard-limits';
+import { STORED_ENERGY_METHOD, storedEnergy, storedEnergyChecks } from '../safety/stored-energy';
+import type { StoredEnergySummary } from '../safety/stored-energy';
+import type { CheckVerdict } from '../safety/check.types';
+import { analyzeLadder } from '../multiplier/analyze-ladder';
+import { bracketedRoot } from '../multiplier/bracketed-root';
+import { ENGINE_VERSION } from '../multiplier/engine-version';
+import { ladderCurves } from '../multiplier/ladder-curves';
+import { bleederStressChecks, ladderStressChecks } from '../multiplier/ladder-stress';
+import type { LadderAnalysis, LadderCurves, LadderInput } from '../multiplier/ladder.types';
+
+/** Report of a bare ladder: figures (SI, signed by polarity), curves, stored energy, discharge and how each was computed. */
+export interface LadderReport extends Pick<
+  LadderAnalysis,
+  'noLoadOutputV' | 'outputMeanV' | 'outputMinV' | 'outputMaxV' | 'ripplePeakToPeakV' | 'droopV' | 'outputImpedanceOhm'
+> {
+  engineVersion: string;
+  /** Best whole number of stages at the design load (the model's output-vs-stages scan). */
+  optimumStages: number;
+  /** The published closed form n_opt = √(Vmax·f·C/I) as a continuous value (J. Lux; FOSSEE companions, read); null where it does not apply. */
+  optimumStagesClosedForm: number | null;
+  textbookRippleV: number | null;
+  textbookDropV: number | null;
+  storedEnergyJ: number;
+  storedChargeC: number;
+  /** Bleeder discharge from the operating voltage to the safe voltage; null without a bleeder or a safe voltage. */
+  dischargeTimeS: number | null;
+  analysis: LadderAnalysis;
+  curves: LadderCurves;
+  storedEnergy: StoredEnergySummary;
+  checks: CheckVerdict[];
+  methods: MethodInfo[];
+  caution: string;
+}
+
+/** The full report of one design: the ladder report plus the design's targets, spacing and part checks. */
+export interface DesignReport extends LadderReport {
+  designName: string;
+  /** The secondary the ladder sees (resolved from a driver stage when the design gives one). */
+  resolvedDrive: SineDrive | PulseDrive;
+  meetsTargets: { output: boolean; ripple: boolean };
+  spacing: StageSpacing[];
+  /** The driver stage joined to the ladder; null unless the design's drive is a driver stage. */
+  driver: DriverReport | null;
+  /** Output with no external load and no bleeder (V, signed); a driver's flyback then rises to its clamp limit. */
+  openCircuitOutputV: number;
+  /** |open-circuit − loaded output| (V): the droop of the load and the bleeder together (`droopV` keeps the bleeder in both). */
+  droopWithBleederV: number;
+  /** Power the bleeder takes at the operating point (W). */
+  bleederPowerW: number;
+  /** Power the ladder delivers at its top: the load, the series output resistor and the bleeder (W). */
+  ladderOutputPowerW: number;
+}
+
+export interface LadderReportOptions {
+  safeVoltageV?: number;
+  dischargeRule?: DischargeRule;
+}
+
+/**
+ * Report of a bare ladder: steady-state analysis, curves, stored energy with its IEC checks and, with a
+ * bleeder and a safe voltage, the discharge time and its check.
+ */
+export function analyzeLadderReport(input: LadderInput, options: LadderReportOptions = {}): LadderReport {
+  const analysis = analyzeLadder(input);
+  const curves = ladderCurves(input);
+  const energy = storedEnergy(analysis.capacitors, analysis.ladderTopMeanV);
+  const checks: CheckVerdict[] = [...storedEnergyChecks(energy, analysis.ladderTopMeanV)];
+  let dischargeTime: number | null = null;
+  if (options.safeVoltageV !== undefined) {
+    const discharge = dischargeCheck({
+      bleederOhm: input.bleederOhm,
+      equivalentCapacitanceF: energy.outputEquivalentCapacitanceF,
+      outputV: analysis.ladderTopMeanV,
+      safeVoltageV: options.safeVoltageV,
+      rule: options.dischargeRule ?? { voltageV: options.safeVoltageV, timeS: 60 },
+      storedChargeC: energy.outputEquivalentChargeC,
+    });
+    dischargeTime = discharge.dischargeTimeS;
+    checks.push(discharge.verdict);
+  }
+  return {
+    engineVersion: ENGINE_VERSION,
+    noLoadOutputV: analysis.noLoadOutputV,
+    outputMeanV: analysis.outputMeanV,
+    outputMinV: analysis.outputMinV,
+    outputMaxV: analysis.outputMaxV,
+    ripplePeakToPeakV: analysis.ripplePeakToPeakV,
+    droopV: analysis.droopV,
+    outputImpedanceOhm: analysis.outputImpedanceOhm,
+    optimumStages: curves.optimumStages,
+    optimumStagesClosedForm: analysis.textbook.optimumStages ?? null,
+    textbookRippleV: analysis.textbook.rippleV,
+    textbookDropV: analysis.textbook.dropV,
+    storedEnergyJ: energy.totalEnergyJ,
+    storedChargeC: energy.totalChargeC,
+    dischargeTimeS: dischargeTime,
+    analysis,
+    curves,
+    storedEnergy: energy,
+    checks,
+    methods: [
+      analysis.method,
+      analysis.nodeMethod,
+      analysis.textbook.method,
+      curves.method,
+      STORED_ENERGY_METHOD,
+      ...(options.safeVoltageV !== undefined ? [DISCHARGE_METHOD] : []),
+    ],
+    caution: HV_CAUTION,
+  };
+}
+
+const DRIVER_METHOD: MethodInfo = {
+  methodId: 'driver-to-pulse-v1',
+  summary:
+    'The driver stage’s closed-form estimate gives the secondary as rectangular pulses: forward peak for the on-time, flyback peak for the flyback time.',
+  assumptions: [
+    'the secondary is taken as a voltage source at the estimated peaks behind the secondary winding resistance',
+    'the driver’s deliverable power is checked against what the ladder draws',
+  ],
+  source:
+    'closed-form blocking-oscillator estimate: i = (Vin − Vce,sat)·t/Lp, E = ½·Lp·Ipk² (Wikipedia "Blocking oscillator", read; Pressman, from memory)',
+};
+
+/** Resolves the drive of a design into the waveform the ladder model takes. */
+export function resolveDrive(design: Design): {
+  drive: SineDrive | PulseDrive;
+  deliverablePowerW: number | null;
+  currentLimitA: number | null;
+} {
+  const drive = design.drive;
+  if (drive.kind !== 'driver') return { drive, deliverablePowerW: null, currentLimitA: null };
+  const stage = drive.driver;
+  const estimate = underDrive(() => estimateBlockingOscillator(stage));
+  const onS = estimate.onTimeS.value;
+  const flybackS = estimate.flybackTimeS.value;
+  return {
+    drive: {
+      kind: 'pulse',
+      forwardPeakV: estimate.forwardSecondaryPeakV.value,
+      flybackPeakV: estimate.flybackSecondaryPeakV.value,
+      frequencyHz: estimate.frequencyHz.value,
+      dutyCycle: onS / (onS + flybackS),
+      sourceResistanceOhm: drive.driver.transformer.secondaryResistanceOhm,
+    },
+    deliverablePowerW: estimate.deliverablePowerW.value,
+    // The flyback current the secondary can carry is the collector peak reflected through the turns ratio.
+    currentLimitA:
+      (estimate.collectorPeakCurrentA.value * drive.driver.transformer.primaryTurns) /
+      drive.driver.transformer.secondaryTurns,
+  };
+}
+
+/** A driver-stage error names its field from the stage; in a design it sits under `drive.`. */
+function underDrive<T>(compute: () => T): T {
+  try {
+    return compute();
+  } catch (error) {
+    if (error instanceof DomainError && error.field?.startsWith('driver')) {
+      throw new DomainError(error.code, error.message, `drive.${error.field}`);
+    }
+    throw error;
+  }
+}
+
+/** External load current (A) of the design at the driver's operating point: a resistance load by Brent's method on V(I) = I·R. */
+function ratedLoadCurrentOf(design: Design, driver: DriverStage, ladder: LadderLoadLine): number {
+  const load = design.load;
+  if (!load) return 0;
+  if (load.kind === 'current') return load.currentA;
+  const r = load.resistanceOhm;
+  const excessV = (currentA: number) => solveLoadPoint(driver, ladder, currentA).outputV - currentA * r;
+  const excessAtZero = excessV(0);
+  const hi = excessAtZero / r;
+  // To the resolution of 40 halvings: 1e-12 of the no-load current, well below any figure the report shows.
+  return bracketedRoot(excessV, 0, hi, excessAtZero, excessV(hi), hi * 2 ** -40);
+}
+
+const DRIVER_OPERATING_METHOD: MethodInfo = {
+  methodId: 'driver-headline-at-operating-point-v1',
+  summary:
+    'For a driver design the headline output, ripple and curves are the ladder at the operating point’s drive (flyback held where the driver’s power meets the ladder); no-load output from the operating curve at zero load; component stress at the clamp-limited flyback, the worst case.',
+  assumptions: ['the secondary is rectangular pulses at the estimated peaks behind the secondary winding resistance'],
+  source: 'driver-ladder.power-balance-v2 with charge-transfer-v1',
+};
+
+function asCheck(v: DriverCheckVerdict): CheckVerdict {
+  return { ...v, caution: HV_CAUTION };
+}
+
+/** The bare-ladder input of a design. */
+export function ladderInputOf(
+  design: Design,
+  drive: SineDrive | PulseDrive,
+  currentLimitA: number | null = null,
+): LadderInput {
+  const bleeder = design.outputNetwork.bleeder;
+  return {
+    ...(currentLimitA !== null ? { sourceCurrentLimitA: currentLimitA } : {}),
+    ...(design.multiplier.strayCapacitanceF ? { strayCapacitanceF: design.multiplier.strayCapacitanceF } : {}),
+    topology: design.multiplier.topology,
+    capacitorsF: design.multiplier.capacitors.map((c) => c.valueF),
+    drive,
+    diode: design.multiplier.diode,
+    polarity: design.targets.outputV < 0 ? -1 : 1,
+    load: design.load,
+    bleederOhm: bleeder ? bleeder.count * bleeder.valueOhm : null,
+    seriesOutputResistanceOhm: design.outputNetwork.seriesOutputResistanceOhm,
+  };
+}
+
+/** Working voltage per stage: the largest capacitor or diode voltage within the stage. */
+function stageWorkingVoltages(analysis: LadderAnalysis): number[] {
+  const byStage = new Map<number, number>();
+  for (const c of analysis.capacitors) byStage.set(c.stage, Math.max(byStage.get(c.stage) ?? 0, c.maxVoltageV));
+  return [...byStage.entries()].sort((a, b) => a[0] - b[0]).map(([, v]) => v);
+}
+
+/**
+ * Full report of a validated design: steady-state analysis, curves, stored energy, discharge, spacing and
+ * every check verdict, with method notes. Safety verdicts carry HV_CAUTION.
+ */
+export function analyzeDesign(design: Design): DesignReport {
+  if (design.multiplier.strayCapacitanceF !== undefined && !(design.multiplier.strayCapacitanceF >= 0)) {
+    throw new DomainError('invalid_design', 'stray capacitance must not be negative', 'multiplier.strayCapacitanceF');
+  }
+  const { drive: limitDrive, deliverablePowerW, currentLimitA } = resolveDrive(design);
+  let drive = limitDrive;
+  let driver: DriverReport | null = null;
+  if (design.drive.kind === 'driver') {
+    const stage = design.drive.driver;
+    const ladder = engineLadderLoadLine(ladderInputOf(design, limitDrive, currentLimitA));
+    driver = underDrive(() => driverReport(stage, ladder, ratedLoadCurrentOf(design, stage, ladder)));
+    const rated = driver.operatingPoint.ratedLoad;
+    drive = pulseDriveOf(
+      {
+        forwardPeakV: driver.figures.forwardSecondaryPeakV.value,
+        flybackPeakV: rated.flybackSecondaryPeakV,
+        frequencyHz: rated.frequencyHz,
+        dutyCycle: rated.dutyCycle,
+      },
+      stage.transformer.secondaryResistanceOhm,
+    );
+  }
+  const input = ladderInputOf(design, drive, currentLimitA);
+  const targets = design.targets;
+  const base = analyzeLadderReport(input, { safeVoltageV: targets.safeVoltageV, dischargeRule: targets.dischargeRule });
+  const { analysis } = base;
+  // Components are stressed most at the lightest load the design runs at: no external load, the bleeder
+  // still drawing. A power-limited driver's flyback rises towards its clamp there, but only as far as the
+  // operating point at that load (the bleeder's current holds it), not to the open-circuit limit.
+  const lightest = driver?.operatingPoint.curve[0];
+  const stressAnalysis =
+    design.drive.kind === 'driver' && lightest
+      ? analyzeLadder({
+          ...ladderInputOf(
+            design,
+            pulseDriveOf(
+              {
+                forwardPeakV: lightest.forwardSecondaryPeakV,
+                flybackPeakV: lightest.flybackSecondaryPeakV,
+                frequencyHz: lightest.frequencyHz,
+                dutyCycle: lightest.dutyCycle,
+              },
+              design.drive.driver.transformer.secondaryResistanceOhm,
+            ),
+            currentLimitA,
+          ),
+          load: null,
+        })
+      : analysis;
+
+  const checks: CheckVerdict[] = [...ladderStressChecks(stressAnalysis, design.multiplier)];
+  const peakTopV =
+    Math.max(Math.abs(stressAnalysis.outputMaxV), Math.abs(stressAnalysis.outputMinV)) +
+    stressAnalysis.loadCurrentA * input.seriesOutputResistanceOhm;
+  checks.push(...bleederStressChecks(design.outputNetwork.bleeder, stressAnalysis.ladderTopMeanV, peakTopV));
+  checks.push(...base.checks);
+  const windingEnd = stressAnalysis.capacitors.find(
+    (c) => c.column.startsWith('oscillating') && c.stage === 1 && (c.index === 1 || stressAnalysis.cellCount % 2 === 1),
+  );
+  const trapped = trappedChargeCheck({
+    windingEndCapacitorV: windingEnd ? windingEnd.maxVoltageV : null,
+    windingEndCapacitorF: windingEnd?.valueF ?? 0,
+    safeVoltageV: targets.safeVoltageV,
+  });
+  if (trapped) checks.push(trapped);
+  const spacing = stageSpacing(stageWorkingVoltages(stressAnalysis), targets.spacing);
+  checks.push(...creepageChecks(spacing, targets.spacing));
+  if (deliverablePowerW !== null) {
+    const drawnW = Math.abs(analysis.ladderTopMeanV) * analysis.ladderCurrentA;
+    checks.push(
+      upperLimitVerdict({
+        id: 'driver-power',
+        subject: 'driver stage',
+        rule: 'power the ladder draws (output plus bleeder) against the driver’s deliverable power estimate; marginal within 20 %',
+        value: drawnW,
+        limit: deliverablePowerW,
+        unit: 'W',
+      }),
+    );
+  }
+  if (driver) checks.push(...driver.checks.map(asCheck));
+  const rippleOk = analysis.ripplePeakToPeakV <= targets.rippleMaxV;
+  const outputOk =
+    Math.sign(analysis.outputMeanV) === Math.sign(targets.outputV) &&
+    Math.abs(analysis.outputMeanV) >= Math.abs(targets.outputV);
+  const noLoadOutputV = driver
+    ? Math.sign(analysis.outputMeanV || 1) * (driver.operatingPoint.curve[0]?.outputV ?? 0)
+    : base.noLoadOutputV;
+  const openCircuit = analyzeLadder({
+    ...ladderInputOf(design, limitDrive, currentLimitA),
+    load: null,
+    bleederOhm: null,
+  });
+  const bleederPowerW = Math.abs(analysis.ladderTopMeanV) * analysis.bleederCurrentA;
+  return {
+    ...base,
+    noLoadOutputV,
+    openCircuitOutputV: openCircuit.outputMeanV,
+    droopWithBleederV: Math.abs(openCircuit.outputMeanV - analysis.outputMeanV),
+    bleederPowerW,
+    ladderOutputPowerW: Math.abs(analysis.ladderTopMeanV) * analysis.ladderCurrentA,
+    droopV: driver ? Math.abs(noLoadOutputV - analysis.outputMeanV) : base.droopV,
+    designName: design.name,
+    resolvedDrive: drive,
+    meetsTargets: { output: outputOk, ripple: rippleOk },
+    spacing,
+    checks,
+    methods: driver
+      ? [...base.methods, DRIVER_METHOD, driver.operatingPoint.method, DRIVER_OPERATING_METHOD]
+      : base.methods,
+    driver,
+  };
+}
+
+/** Convenience for callers that want the verdicts only. */
+export function evaluateChecks(design: Design): CheckVerdict[] {
+  return analyzeDesign(design).checks;
+}
