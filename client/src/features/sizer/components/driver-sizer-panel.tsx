@@ -143,8 +143,8 @@ function DriverCandidateTable({
       {result.candidates.length === 0 ? (
         <Alert color="ember">No supply lands on this target. Loosen the ripple or lower the load.</Alert>
       ) : (
-        <Table.ScrollContainer minWidth={900}>
-          <Table striped verticalSpacing={4} aria-label="Driver Sizer candidates">
+        <Table.ScrollContainer minWidth={1100}>
+          <Table striped verticalSpacing={4} aria-label="Driver Sizer candidates" style={{ whiteSpace: 'nowrap' }}>
             <Table.Thead>
               <Table.Tr>
                 <Table.Th>Rank</Table.Th>
@@ -177,7 +177,10 @@ function DriverCandidateTable({
                   <Table.Td>{formatQuantity(c.supplyCurrentA, 'A')}</Table.Td>
                   <Table.Td>{c.batteryLifeS === null ? '—' : `${(c.batteryLifeS / 3600).toFixed(1)} h`}</Table.Td>
                   <Table.Td>
-                    {c.worstCheck.verdict} {c.worstCheck.marginPct.toFixed(1)} % ({c.worstCheck.id})
+                    {c.worstCheck.verdict} {c.worstCheck.marginPct.toFixed(1)} %
+                    <Text size="xs" c="dimmed">
+                      {c.worstCheck.id.replace(/^driver\./, '').replace(/-/g, ' ')}
+                    </Text>
                   </Table.Td>
                   <Table.Td>
                     <Button
