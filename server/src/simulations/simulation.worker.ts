@@ -1,6 +1,6 @@
 import type { SimulationResult, SimulationSummary, WaveformPhase, WaveformTrace } from '@ladderwright/shared/api';
-import type { DischargeRule } from '@ladderwright/shared/designs';
 import { isDomainError } from '@ladderwright/shared/errors';
+import { dischargeRuleLimits } from '@ladderwright/shared/safety';
 import { ladderSpecFromDesign } from '@ladderwright/shared/circuits';
 import { type PlotTrace, runDriverDesign, runDriverStartUp, runLadder } from '@ladderwright/shared/runs';
 import type { SimulationProgressMessage, SimulationTask, SimulationTaskOutcome } from './simulation-task.types';
@@ -17,11 +17,6 @@ import type { SimulationProgressMessage, SimulationTask, SimulationTaskOutcome }
 export const DEFAULT_MAX_STEP_PER_PERIOD = 100;
 /** Buckets of the min/max downsampling: at most twice as many points per trace reach the client. */
 const PLOT_BUCKETS = 500;
-
-function dischargeVoltageV(rule: DischargeRule): number {
-  if (typeof rule === 'object') return rule.voltageV;
-  return rule === '60V-5s' ? 60 : 50;
-}
 
 function toWaveform(phase: WaveformPhase, trace: PlotTrace, name = 'V(top)', unit: 'V' | 'A' = 'V'): WaveformTrace {
   return { name, phase, unit, timeS: trace.timeS, values: trace.values };
@@ -66,7 +61,7 @@ function simulateDriver(task: SimulationTask, post: (fraction: number) => void):
     plotBuckets: PLOT_BUCKETS,
     shouldCancel,
     onProgress: (f) => post(startShare + (1 - startShare) * f),
-    ...(isDischarge ? { dischargeToV: dischargeVoltageV(design.targets.dischargeRule) } : {}),
+    ...(isDischarge ? { dischargeToV: dischargeRuleLimits(design.targets.dischargeRule).voltageV } : {}),
   });
   const summary: SimulationSummary = {
     outputMeanV: run.outputMeanV,
@@ -115,7 +110,7 @@ function simulate(task: SimulationTask): SimulationResult {
     plotBuckets: PLOT_BUCKETS,
     onProgress: post,
     shouldCancel: () => Atomics.load(task.cancelFlag, 0) === 1,
-    ...(isDischarge ? { dischargeToV: dischargeVoltageV(design.targets.dischargeRule) } : {}),
+    ...(isDischarge ? { dischargeToV: dischargeRuleLimits(design.targets.dischargeRule).voltageV } : {}),
   });
   const summary: SimulationSummary = {
     outputMeanV: run.outputMeanV,

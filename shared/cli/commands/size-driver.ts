@@ -2,10 +2,23 @@ import { DomainError } from '../../src/errors';
 import type { DriverStage } from '../../src/designs/driver-stage.types';
 import { DRIVER_SIZER_DEFAULTS, sizeDriverSupply } from '../../src/sizing/size-driver-supply';
 import { formatQuantity } from '../../src/units/format-quantity';
-import { parseArguments, quantityFlag } from '../ladder-flags';
+import { parseCommandArguments, type CommandSyntax } from '../arguments';
+import { quantityFlag, TEXT_OPTION } from '../ladder-flags';
+import { sizeSyntax } from './size';
 
-export const sizeDriverHelp =
-  'size-driver --target V --load-current I --ripple V [--dc V] [--count N] [--text]   Sizer for a whole driver-fed supply (cells by default)';
+export const sizeDriverSyntax: CommandSyntax = {
+  command: 'size-driver',
+  options: {
+    target: sizeSyntax.options.target!,
+    'load-current': sizeSyntax.options['load-current']!,
+    ripple: sizeSyntax.options.ripple!,
+    dc: { type: 'string', value: 'V', help: 'a DC supply of this voltage instead of cells' },
+    count: { type: 'string', value: 'N', help: 'supplies listed, 1 to 100' },
+    ...TEXT_OPTION,
+  },
+  positionals: [],
+};
+export const sizeDriverSummary = 'Sizer for a whole driver-fed supply (cells by default)';
 
 function required(value: number | undefined, name: string): number {
   if (value === undefined) throw new DomainError('invalid_argument', `--${name} is required`, name);
@@ -17,7 +30,7 @@ function required(value: number | undefined, name: string): number {
  * bleeder) from the driver Sizer, starting from the same stage and candidate lists as the Sizer's form.
  */
 export function sizeDriverCommand(argv: ReadonlyArray<string>): string {
-  const { flags } = parseArguments(argv);
+  const { flags } = parseCommandArguments(argv, sizeDriverSyntax);
   const dcV = quantityFlag(flags, 'dc', 'V');
   const base = DRIVER_SIZER_DEFAULTS.stage;
   const stage: DriverStage =

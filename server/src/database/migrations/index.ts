@@ -8,6 +8,7 @@ import { signOffAndMail } from './0004-sign-off-and-mail';
 import { teamAdministration } from './0007-team-administration';
 import { sessionsAndSignInLimits } from './0008-sessions-and-sign-in-limits';
 import { simulationJobHeartbeat } from './0009-simulation-job-heartbeat';
+import { driverSecondaryPhasing } from './0010-driver-secondary-phasing';
 
 /** Every schema step in order. Add new steps at the end. */
 export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
@@ -20,4 +21,5 @@ export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
   teamAdministration,
   sessionsAndSignInLimits,
   simulationJobHeartbeat,
+  driverSecondaryPhasing,
 ];
