@@ -3,6 +3,7 @@ import PDFDocument from 'pdfkit';
 import { formatQuantity } from '@ladderwright/shared/units';
 import { STRESS_CHECK_IDS } from '@ladderwright/shared/multiplier';
 import type { CheckVerdict } from '@ladderwright/shared/safety';
+import { schematicSection } from './spec-sheet-schematic';
 import type { SpecSheetContent } from './spec-sheet.types';
 
 type Doc = InstanceType<typeof PDFDocument>;
@@ -642,6 +643,7 @@ export async function renderSpecSheetPdf(c: SpecSheetContent): Promise<Buffer> {
   windingSection(doc, c);
   bomSection(doc, c);
   performanceSection(doc, c);
+  schematicSection(doc, c, MARGIN, 595 - 2 * MARGIN, PAGE_BOTTOM);
   outputVsLoadPlot(doc, c);
   benchRunsSection(doc, c);
   safetySection(doc, c);
