@@ -1,4 +1,3 @@
-import { JwtService } from '@nestjs/jwt';
 import fc from 'fast-check';
 import request from 'supertest';
 import { canInApp, type UserRole } from '@ladderwright/shared/auth';
@@ -6,6 +5,7 @@ import { createProject, type TestProject } from './factories/create-project';
 import { createUser, type TestUser } from './factories/create-user';
 import { createTestApp, type TestApp } from './utils/create-test-app';
 import { type ApiRoute, apiRouteTable } from './utils/route-table';
+import { mintSessionCookie } from './utils/sign-in';
 
 const CASES_PER_ROUTE = 20;
 const UNKNOWN_ID = '5d1f7c9e-3a4b-4c8d-9e0f-1a2b3c4d5e6f';
@@ -94,8 +94,7 @@ describe('bad input on every write route: never a 500, a 4xx naming the field', 
     const role: UserRole = route.appAction && !canInApp('lead', route.appAction) ? 'admin' : 'lead';
     const user = accounts.get(role);
     if (!user) throw new Error(`no ${role} account`);
-    const token = await testApp.app.get(JwtService).signAsync({ sub: user.id, sv: 0 });
-    return `lw_session=${token}`;
+    return mintSessionCookie(testApp, user.id);
   }
 
   function projectsRoute(): ApiRoute {

@@ -1,6 +1,6 @@
 import type { Design } from '@ladderwright/shared/designs';
 import { designExamples } from '@ladderwright/shared/designs';
-import { driverSecondaryPhasing } from '../src/database/migrations/0009-driver-secondary-phasing';
+import { driverSecondaryPhasing } from '../src/database/migrations/0010-driver-secondary-phasing';
 import { createDesign } from './factories/create-design';
 import { createProject } from './factories/create-project';
 import { createUser } from './factories/create-user';

@@ -7,7 +7,7 @@ import type { SchemaMigration } from './migration.types';
  * revisions_keep_content), so the trigger is off for this one update.
  */
 export const driverSecondaryPhasing: SchemaMigration = {
-  name: '0009-driver-secondary-phasing',
+  name: '0010-driver-secondary-phasing',
   async up(context) {
     await context.sequelize.query(`
       ALTER TABLE revisions DISABLE TRIGGER revisions_keep_content;
