@@ -13,6 +13,7 @@ import { AuditModule } from './audit/audit.module';
 import { AuthModule } from './auth/auth.module';
 import { BenchRunsModule } from './bench-runs/bench-runs.module';
 import { SESSION_COOKIE } from './auth/jwt.strategy';
+import { RequestShapeGuard } from './common/guards/request-shape.guard';
 import { DomainErrorFilter, RequestValidationException } from './common/filters/domain-error.filter';
 import { JwtAuthGuard } from './common/guards/jwt-auth.guard';
 import { ProjectAccessGuard } from './projects/project-access.guard';
@@ -103,6 +104,8 @@ export function configureApp(app: NestExpressApplication, env: AppEnv): void {
       exceptionFactory: (errors) => new RequestValidationException(errors),
     }),
   );
+  // Before any pipe: no NUL, unpaired surrogate or hostile nesting reaches validation or the database.
+  app.useGlobalGuards(new RequestShapeGuard());
   app.useGlobalFilters(new DomainErrorFilter());
   setUpApiDocs(app);
   serveClient(app, env.clientDistDir);

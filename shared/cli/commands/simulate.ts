@@ -1,5 +1,4 @@
-import { readFileSync } from 'node:fs';
-import { validateDesign } from '../../src/designs/validate-design';
+import { readDesignFile } from '../design-file';
 import { DomainError } from '../../src/errors';
 import { ladderSpecFromDesign, type LadderCircuitSpec } from '../../src/circuits/build-ladder-circuit';
 import { runLadder } from '../../src/runs/ladder-runs';
@@ -40,7 +39,7 @@ export function ladderSpecFromFlags(flags: Map<string, string | true>): {
 function driverDesignOf(argv: ReadonlyArray<string>): Design | null {
   const { positional } = parseArguments(argv);
   if (!positional[0]) return null;
-  const design = validateDesign(JSON.parse(readFileSync(positional[0], 'utf8')));
+  const design = readDesignFile(positional[0]);
   return design.drive.kind === 'driver' ? design : null;
 }
 
@@ -52,7 +51,7 @@ export function ladderFromArguments(argv: ReadonlyArray<string>): {
 } {
   const { positional, flags } = parseArguments(argv);
   if (positional[0]) {
-    const design = validateDesign(JSON.parse(readFileSync(positional[0], 'utf8')));
+    const design = readDesignFile(positional[0]);
     return {
       spec: ladderSpecFromDesign(design),
       safeVoltageV: quantityFlag(flags, 'safe-voltage', 'V') ?? design.targets.safeVoltageV,

@@ -8,7 +8,7 @@ import {
   type ValidationError,
 } from '@nestjs/common';
 import type { Response } from 'express';
-import { ConnectionError, ForeignKeyConstraintError, UniqueConstraintError } from 'sequelize';
+import { ConnectionError, DatabaseError, ForeignKeyConstraintError, UniqueConstraintError } from 'sequelize';
 import type { ApiErrorBody } from '@ladderwright/shared/api';
 import { isDomainError, type DomainError, type DomainErrorCode } from '@ladderwright/shared/errors';
 
@@ -138,6 +138,22 @@ function fromClientError(error: unknown): ApiErrorBody | null {
 }
 
 /**
+ * A query that failed because the database went away under it (a crash, a shutdown or a restart while
+ * the request ran): SQLSTATE class 57 (operator intervention) or 08 (connection exception), or the
+ * driver's own words for a dropped connection. Not a bad request and not a bug: 503.
+ */
+export function isDatabaseOutage(error: unknown): boolean {
+  if (!(error instanceof DatabaseError)) return false;
+  const parent = error.parent as Error & { code?: unknown };
+  const code = typeof parent?.code === 'string' ? parent.code : '';
+  if (code.startsWith('57P') || code.startsWith('08')) return true;
+  if (['ECONNRESET', 'ECONNREFUSED', 'EPIPE'].includes(code)) return true;
+  return /connection terminated|not queryable|connection error|server closed the connection/i.test(
+    parent?.message ?? error.message,
+  );
+}
+
+/**
  * Maps every error to the `ApiErrorBody` shape: DomainError codes to their status, HttpExceptions as they
  * are, validation findings to 400 with the first offending field. Unknown errors become a bare 500.
  */
@@ -172,8 +188,8 @@ export class DomainErrorFilter implements ExceptionFilter {
         message: 'The record refers to, or is referred to by, another record',
       };
     }
-    if (error instanceof ConnectionError) {
-      this.logger.error(`database unavailable: ${error.message}`);
+    if (error instanceof ConnectionError || isDatabaseOutage(error)) {
+      this.logger.error(`database unavailable: ${(error as Error).message}`);
       return { statusCode: 503, code: 'database_unavailable', message: 'The database is not reachable' };
     }
     const clientError = fromClientError(error);
