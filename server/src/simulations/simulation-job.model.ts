@@ -39,50 +39,50 @@ export type SimulationJobCreationAttrs = Pick<SimulationJobAttrs, 'projectId' | 
 @Table({ tableName: 'simulation_jobs', underscored: true, timestamps: true })
 export class SimulationJobModel extends Model<SimulationJobAttrs, SimulationJobCreationAttrs> {
   @Column({ type: DataType.UUID, primaryKey: true, defaultValue: DataType.UUIDV4 })
-  override id: string;
+  override id!: string;
 
   @Column({ type: DataType.UUID, allowNull: false })
-  projectId: string;
+  projectId!: string;
 
   @Column({ type: DataType.UUID, allowNull: true })
-  requestedBy: string | null;
+  requestedBy!: string | null;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  kind: SimulationKind;
+  kind!: SimulationKind;
 
   @Column({ type: DataType.TEXT, allowNull: false, defaultValue: 'queued' })
-  status: SimulationJobStatus;
+  status!: SimulationJobStatus;
 
   @Column({ type: DataType.SMALLINT, allowNull: false, defaultValue: 0 })
-  progressPct: number;
+  progressPct!: number;
 
   @Column({ type: DataType.JSONB, allowNull: false })
-  input: SimulationJobInput;
+  input!: SimulationJobInput;
 
   @Column({ type: DataType.UUID, allowNull: true })
-  designId: string | null;
+  designId!: string | null;
 
   @Column({ type: DataType.INTEGER, allowNull: true })
-  revisionNumber: number | null;
+  revisionNumber!: number | null;
 
   @Column({ type: DataType.JSONB, allowNull: true })
-  result: SimulationResult | null;
+  result!: SimulationResult | null;
 
   @Column({ type: DataType.TEXT, allowNull: true })
-  errorCode: string | null;
+  errorCode!: string | null;
 
   @Column({ type: DataType.TEXT, allowNull: true })
-  errorMessage: string | null;
+  errorMessage!: string | null;
 
   @Column({ type: DataType.TEXT, allowNull: true })
-  queueJobId: string | null;
+  queueJobId!: string | null;
 
   @Column({ type: DataType.DATE, allowNull: true })
-  startedAt: Date | null;
+  startedAt!: Date | null;
 
   @Column({ type: DataType.DATE, allowNull: true })
-  finishedAt: Date | null;
+  finishedAt!: Date | null;
 
-  override createdAt: Date;
-  override updatedAt: Date;
+  override createdAt!: Date;
+  override updatedAt!: Date;
 }

@@ -1,11 +1,9 @@
 import { Inject, Injectable, Logger, type OnApplicationBootstrap, type OnModuleDestroy } from '@nestjs/common';
 import { Op } from 'sequelize';
-import type { SimulationKind } from '@ladderwright/shared/api';
 import { APP_ENV, type AppEnv } from '../config/env';
 import { SimulationJobModel } from './simulation-job.model';
 import { type PoolRun, SimulationPoolService } from './simulation-pool.service';
 import { type SimulationQueuePayload, SimulationQueueService } from './simulation-queue.service';
-import type { FaultKind } from './simulation-task.types';
 
 /** Progress is written to the table in steps of this many percent (and at 100). */
 const PROGRESS_STEP_PCT = 5;
@@ -68,7 +66,7 @@ export class SimulationRunnerService implements OnApplicationBootstrap, OnModule
     let writtenPct = 0;
     let progressWrite = Promise.resolve();
     const run = this.pool.run(
-      { kind: job.kind as SimulationKind | FaultKind, document: job.input.document, options: job.input.options },
+      { kind: job.kind, document: job.input.document, options: job.input.options },
       (progressPct) => {
         if (progressPct < writtenPct + PROGRESS_STEP_PCT) return;
         writtenPct = progressPct;

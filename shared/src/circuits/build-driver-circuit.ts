@@ -7,6 +7,12 @@ import type { DriverStage } from '../designs/driver-stage.types';
 /** Node names of the driver circuit a caller probes. */
 export const DRIVER_NODES = { supply: 'vcc', collector: 'col', base: 'base', secondary: 's' } as const;
 
+/**
+ * Inductance of the saturated core as a fraction of the primary inductance: about the air-core value, 1/μe
+ * of a gapped ferrite core of effective permeability 100 or more (common practice, no source).
+ */
+export const SATURATED_INDUCTANCE_FRACTION = 0.01;
+
 /** Name of the supply source, for 'I(Vbat)' probes. */
 export const DRIVER_SUPPLY_SOURCE = 'Vbat';
 
@@ -79,6 +85,13 @@ export function buildDriverCircuit(driver: DriverStage, options: DriverCircuitOp
     kind: 'coupled-inductors',
     name: 'T1',
     couplingCoefficient: tx.couplingCoefficient,
+    // The core saturates at the transformer's saturation current (primary current, arctangent law of
+    // sim/devices/saturable-core.ts); its magnetizing inductance is the linear model's k·Lp.
+    core: {
+      magnetizingInductanceH: tx.couplingCoefficient * tx.primaryInductanceH,
+      saturationCurrentA: tx.saturationCurrentA,
+      saturatedInductanceH: SATURATED_INDUCTANCE_FRACTION * tx.primaryInductanceH,
+    },
     windings: [
       {
         name: 'Lp',

@@ -10,11 +10,15 @@ export type {
   DriverStage,
 } from '../designs/driver-stage.types';
 export type { MethodInfo, Estimated } from '../methods';
-export { defaultCellCurves, defaultCellMaxContinuousCurrentA } from './cell-curves';
+export { defaultCellCurves, defaultCellMaxContinuousCurrentA, defaultCellRateModels } from './cell-curves';
+export type { CellRateModel } from './cell-curves';
 export { driverExamples } from '../designs/driver-examples';
 export {
   batteryLife,
   cellCurveOf,
+  cellInternalResistanceOhm,
+  cellRateModelOf,
+  peukertEquivalentCurrentA,
   cellOpenCircuitVoltageV,
   cellMaxContinuousCurrentA,
   supplyThevenin,

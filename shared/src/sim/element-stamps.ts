@@ -128,7 +128,7 @@ export function stampLinearElement(
       break;
     }
     case 'coupled-inductors': {
-      const m = inductanceMatrix(e.windings, e.couplingCoefficient, path);
+      const m = inductanceMatrix(e, path);
       const n = e.windings.length;
       const branches = e.windings.map((w) => ordering.branchAt(`${e.name}.${w.name}`));
       e.windings.forEach((w, i) => {

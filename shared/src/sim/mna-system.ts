@@ -7,6 +7,7 @@ import { DiodeInstance, hasInternalNode, isFolded } from './devices/diode-instan
 import { FoldedDiodes, type FoldedDiodeSpec } from './devices/folded-diodes';
 import type { AddReactive } from './devices/junction-stamp';
 import { NpnInstance } from './devices/npn-instance';
+import { SaturableCoreInstance } from './devices/saturable-core';
 import {
   addConductance,
   positiveValue,
@@ -68,6 +69,7 @@ export class MnaSystem {
   private readonly diodes: DiodeInstance[] = [];
   private readonly folded: FoldedDiodes;
   private readonly npns: NpnInstance[] = [];
+  private readonly cores: SaturableCoreInstance[] = [];
   private readonly diodeOut: DiodeOperatingPoint = { currentA: 0, conductanceS: 0 };
   private readonly npnOut: NpnOperatingPoint = {
     collectorA: 0,
@@ -151,6 +153,35 @@ export class MnaSystem {
             ),
           );
           break;
+        case 'coupled-inductors': {
+          stampLinearElement(e, path, ordering, targets);
+          const core = e.core;
+          if (!core) break;
+          positiveValue(core.saturationCurrentA, `${path}.core.saturationCurrentA`);
+          positiveValue(core.saturatedInductanceH, `${path}.core.saturatedInductanceH`);
+          if (!(core.magnetizingInductanceH > core.saturatedInductanceH))
+            throw new DomainError(
+              'invalid_argument',
+              'must exceed the saturated inductance',
+              `${path}.core.magnetizingInductanceH`,
+            );
+          const l1 = e.windings[0]!.inductanceH;
+          deferred.push(() =>
+            this.cores.push(
+              new SaturableCoreInstance(
+                e.name,
+                e.windings.map((w) => w.name),
+                core,
+                Int32Array.from(e.windings, (w) => ordering.branchAt(`${e.name}.${w.name}`)),
+                Float64Array.from(e.windings, (w) => Math.sqrt(w.inductanceH / l1)),
+                size,
+                lu,
+                addReactive,
+              ),
+            ),
+          );
+          break;
+        }
         default:
           stampLinearElement(e, path, ordering, targets);
       }
@@ -303,6 +334,7 @@ export class MnaSystem {
           this.npnOut,
           this.chargeOut,
         ) || limited;
+    for (const k of this.cores) k.load(this.x, band, this.rhs, a0, this.charge, this.gradientValue, this.gradientStart);
     band[this.lu.groundOffset] = 0;
     return limited;
   }
@@ -312,6 +344,8 @@ export class MnaSystem {
     if (!this.folded.isConverged(x, relative, absoluteA)) return false;
     for (const d of this.diodes) if (!d.isConverged(x, relative, absoluteA)) return false;
     for (const q of this.npns) if (!q.isConverged(x, relative, absoluteA)) return false;
+    // Flux tolerance: the current tolerance through a millihenry (far below any winding's flux of note).
+    for (const k of this.cores) if (!k.isConverged(x, relative, absoluteA * 1e-3)) return false;
     return true;
   }
 

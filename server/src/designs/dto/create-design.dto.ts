@@ -8,7 +8,7 @@ export class CreateDesignDto implements CreateDesignRequest {
   @IsString({ message: 'name must be text' })
   @MinLength(1, { message: 'name must not be empty' })
   @MaxLength(200, { message: 'name must be at most 200 characters' })
-  name: string;
+  name!: string;
 
   @ApiProperty({
     description:
@@ -20,5 +20,5 @@ export class CreateDesignDto implements CreateDesignRequest {
   })
   @IsDefined({ message: 'from is required' })
   @IsObject({ message: 'from must be an object with a kind' })
-  from: DesignSource;
+  from!: DesignSource;
 }

@@ -7,13 +7,13 @@ export class CreateProjectDto implements CreateProjectRequest {
   @IsString()
   @MinLength(1, { message: 'name must not be empty' })
   @MaxLength(120)
-  name: string;
+  name!: string;
 
   @ApiProperty({ example: 'Ionizers' })
   @IsString()
   @MinLength(1, { message: 'productLine must not be empty' })
   @MaxLength(120)
-  productLine: string;
+  productLine!: string;
 
   @ApiPropertyOptional()
   @IsOptional()

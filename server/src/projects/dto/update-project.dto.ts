@@ -65,14 +65,14 @@ export class AcceptanceSettingsDto implements AcceptanceSettings {
   @ApiPropertyOptional({ enum: ACCEPTANCE_COVERAGES, description: 'Coverage probability of the output window.' })
   @IsDefined({ message: 'coverage is required' })
   @IsIn(ACCEPTANCE_COVERAGES, { message: `coverage must be one of ${ACCEPTANCE_COVERAGES.join(', ')}` })
-  coverage: AcceptanceCoverage;
+  coverage!: AcceptanceCoverage;
 
   @ApiPropertyOptional({ minimum: 0, maximum: BENCH_ALLOWANCE_MAX, description: 'Fraction of the target, e.g. 0.01.' })
   @IsDefined({ message: 'benchAllowanceFraction is required' })
   @IsNumber({}, { message: 'benchAllowanceFraction must be a number' })
   @Min(0, { message: 'benchAllowanceFraction must be at least 0' })
   @Max(BENCH_ALLOWANCE_MAX, { message: `benchAllowanceFraction must be at most ${BENCH_ALLOWANCE_MAX}` })
-  benchAllowanceFraction: number;
+  benchAllowanceFraction!: number;
 }
 
 export class UpdateProjectDto implements UpdateProjectRequest {

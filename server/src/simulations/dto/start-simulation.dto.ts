@@ -54,7 +54,7 @@ export class StartSimulationDto implements StartSimulationRequest {
   @ApiProperty({ enum: SIMULATION_KINDS })
   @IsDefined({ message: 'kind is required' })
   @IsString({ message: 'kind must be text' })
-  kind: SimulationKind;
+  kind!: SimulationKind;
 
   @ApiPropertyOptional({
     description: 'A design document (schemaVersion 1); or give designId and revisionNumber.',

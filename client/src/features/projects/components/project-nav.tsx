@@ -34,7 +34,7 @@ export function ProjectNav({ projects, activeProjectId, isLoading }: ProjectNavP
                 component={Link}
                 to={paths.project.getHref(project.id)}
                 label={project.name}
-                description={project.productLine}
+                description={project.isArchived ? `${project.productLine} · archived` : project.productLine}
                 fw={isActive ? 600 : 400}
               />
               {isActive && (
@@ -50,6 +50,12 @@ export function ProjectNav({ projects, activeProjectId, isLoading }: ProjectNavP
               {isActive && <NavLink component={Link} to={paths.sizer.getHref(project.id)} label="Sizer" pl="xl" />}
               {isActive && (
                 <NavLink component={Link} to={paths.partsShelf.getHref(project.id)} label="Parts shelf" pl="xl" />
+              )}
+              {isActive && (
+                <NavLink component={Link} to={paths.projectMembers.getHref(project.id)} label="Members" pl="xl" />
+              )}
+              {isActive && project.myRole === 'lead' && (
+                <NavLink component={Link} to={paths.projectSettings.getHref(project.id)} label="Settings" pl="xl" />
               )}
             </div>
           );

@@ -202,7 +202,7 @@ export function DriverFields({ driver, onDriver, issue }: DriverFieldsProps) {
             error={issue(`${p}.supply.chemistry`)}
             onChange={(v) =>
               onDriver((dr) => {
-                if (dr.supply.kind === 'cells' && v) dr.supply.chemistry = v as CellChemistry;
+                if (dr.supply.kind === 'cells' && v) dr.supply.chemistry = v;
               })
             }
           />
@@ -280,7 +280,7 @@ export function DriverFields({ driver, onDriver, issue }: DriverFieldsProps) {
           error={issue(`${p}.clamp`)}
           onChange={(v) =>
             onDriver((dr) => {
-              const next = clampOf((v ?? 'none') as ClampKind, dr.clamp);
+              const next = clampOf(v ?? 'none', dr.clamp);
               if (next) dr.clamp = next;
               else delete dr.clamp;
             })

@@ -91,7 +91,7 @@ export function LadderCharts({ report }: LadderChartsProps) {
             label={{ value: 'stages', position: 'insideBottom', offset: -8, fontSize: 11 }}
           />
           <YAxis tick={axisTick} tickFormatter={stagesVoltageTick} width={64} />
-          <Tooltip formatter={(y) => formatQuantity(Number(y), 'V')} labelFormatter={(x) => `${String(x)} stages`} />
+          <Tooltip formatter={(y) => formatQuantity(Number(y), 'V')} labelFormatter={(x) => `${Number(x)} stages`} />
           <Line
             type="monotone"
             dataKey="y"

@@ -238,7 +238,7 @@ function LadderSection({
               { value: 'full-wave', label: 'full-wave (symmetrical) cascade' },
               { value: 'bridge-doubler', label: 'bridge doubler' },
             ]}
-            onChange={(v) => v && setShape(v as Topology, m.cellCount)}
+            onChange={(v) => v && setShape(v, m.cellCount)}
             error={issue('multiplier.topology')}
           />
           <NumberInput
@@ -460,7 +460,7 @@ function TargetsSection({ document, edit, issue }: SectionProps) {
             onChange={(v) =>
               v &&
               edit((d) => {
-                d.targets.spacing.materialGroup = v as Design['targets']['spacing']['materialGroup'];
+                d.targets.spacing.materialGroup = v;
               })
             }
           />
