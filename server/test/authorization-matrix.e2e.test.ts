@@ -161,7 +161,8 @@ describe('authorization matrix (every API route x every role x member / non-memb
     }
     expect(mismatches).toEqual([]);
     expect(checked).toBeGreaterThan(routes.length * 5);
-  });
+    // Every route times up to 17 callers; the route count grows with the API.
+  }, 120_000);
 
   it('denies a non-member with 404 even when that account role could do the action in its own projects', async () => {
     const lead = callers.find((caller) => caller.user?.role === 'lead' && caller.membership === 'none');

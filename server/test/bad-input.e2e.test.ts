@@ -18,7 +18,12 @@ const COSTLY_ROUTE = /\/(analysis\/evaluate|designs(\/import)?|revisions|bench-r
 const CASES_PER_COSTLY_ROUTE = 40;
 const UNKNOWN_ID = '5d1f7c9e-3a4b-4c8d-9e0f-1a2b3c4d5e6f';
 /** Routes that would end the caller's session mid-run; their body is ignored anyway. */
-const SKIPPED = new Set(['POST /api/auth/sign-out-everywhere', 'POST /api/auth/sign-out']);
+// Body-less routes whose success ends the session or closes the project to every write route after it.
+const SKIPPED = new Set([
+  'POST /api/auth/sign-out-everywhere',
+  'POST /api/auth/sign-out',
+  'POST /api/projects/:projectId/archive',
+]);
 
 const MARKUP = [
   '<img src=x onerror=alert(1)>',

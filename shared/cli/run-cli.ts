@@ -5,6 +5,7 @@ import { ladderCommand, ladderSummary, ladderSyntax } from './commands/ladder';
 import { netlistCommand, netlistSummary, netlistSyntax } from './commands/netlist';
 import { simulateCommand, simulateSummary, simulateSyntax } from './commands/simulate';
 import { sizeCommand, sizeSummary, sizeSyntax } from './commands/size';
+import { sizeDriverCommand, sizeDriverSummary, sizeDriverSyntax } from './commands/size-driver';
 import { spreadCommand, spreadSummary, spreadSyntax } from './commands/spread';
 
 /** A command takes its arguments and returns what to print; it throws DomainError on bad input. */
@@ -19,6 +20,7 @@ export const commands: Readonly<Record<string, CliCommand>> = {
   analyze: { syntax: analyzeSyntax, summary: analyzeSummary, run: analyzeCommand },
   ladder: { syntax: ladderSyntax, summary: ladderSummary, run: ladderCommand },
   size: { syntax: sizeSyntax, summary: sizeSummary, run: sizeCommand },
+  'size-driver': { syntax: sizeDriverSyntax, summary: sizeDriverSummary, run: sizeDriverCommand },
   spread: { syntax: spreadSyntax, summary: spreadSummary, run: spreadCommand },
   simulate: { syntax: simulateSyntax, summary: simulateSummary, run: simulateCommand },
   netlist: { syntax: netlistSyntax, summary: netlistSummary, run: netlistCommand },

@@ -44,6 +44,15 @@ export const designLimits = {
   maxBeta: 10_000,
   /** Diode emission coefficient. */
   maxEmissionCoefficient: 10,
+  /** Any power in the document (a hand-held or bench supply's parts and losses). */
+  maxPowerW: 1e4,
+  /** Temperatures in °C: from arctic storage to the hottest silicon junction ratings. */
+  minTemperatureC: -60,
+  maxTemperatureC: 250,
+  /** Thermal resistance junction to ambient (°C/W): from a heat-sunk power device to the smallest package. */
+  maxThermalResistanceCPerW: 2000,
+  /** Peukert exponent of a cell (1: no rate dependence). */
+  maxPeukertExponent: 2,
   /** Battery life target (ten years). */
   maxBatteryLifeH: 87_600,
   /** Text lengths, in UTF-16 code units. */

@@ -42,6 +42,12 @@ export const cellsSupplySchema = closedObject(
     maxContinuousCurrentA: Type.Optional(
       positive(L.maxCurrentA, "Continuous drain one cell tolerates; defaults to the chemistry's figure."),
     ),
+    peukertExponent: Type.Optional(
+      between(1, L.maxPeukertExponent, "Peukert exponent k of the cell; defaults to the chemistry's figure."),
+    ),
+    ratedDischargeH: Type.Optional(
+      positive(L.maxBatteryLifeH, "Discharge time at which capacityAh is rated; defaults to the chemistry's figure."),
+    ),
   },
   { description: 'A string of identical cells in series.' },
 );
@@ -68,6 +74,9 @@ export const driverTransformerSchema = closedObject(
     feedbackResistanceOhm: nonNegative(L.maxResistanceOhm),
     secondaryResistanceOhm: nonNegative(L.maxResistanceOhm),
     saturationCurrentA: positive(L.maxCurrentA, 'Primary current at which the core saturates.'),
+    coreLossW: Type.Optional(
+      nonNegative(L.maxPowerW, 'Core loss at the operating point, from the core maker’s loss data; zero if absent.'),
+    ),
     insulation: Type.Optional(
       closedObject(
         { ratedVoltageV: positive(L.maxVoltageV) },
@@ -89,6 +98,15 @@ export const driverTransistorSchema = closedObject(
     saturationCurrentA: Type.Optional(
       positive(1, 'Ebers-Moll saturation current for the full simulation; a small-signal default if absent.'),
     ),
+    thermalResistanceCPerW: Type.Optional(
+      positive(
+        L.maxThermalResistanceCPerW,
+        'Junction to ambient (°C/W); 200 °C/W, a small leaded part in free air, if absent.',
+      ),
+    ),
+    maxJunctionTemperatureC: Type.Optional(
+      between(0, L.maxTemperatureC, 'Rated junction temperature (°C); 150 °C if absent.'),
+    ),
   },
   { description: 'The switching BJT (NPN, common emitter).' },
 );
@@ -100,8 +118,13 @@ export const driverClampSchema = Type.Union(
       clampVoltageV: positive(L.maxVoltageV),
       resistorOhm: Type.Optional(positive(L.maxResistanceOhm)),
       capacitorF: Type.Optional(positive(L.maxCapacitanceF)),
+      ratedPowerW: Type.Optional(positive(L.maxPowerW, 'Power rating of the clamp resistor; 0.25 W if absent.')),
     }),
-    closedObject({ kind: Type.Literal('zener'), clampVoltageV: positive(L.maxVoltageV) }),
+    closedObject({
+      kind: Type.Literal('zener'),
+      clampVoltageV: positive(L.maxVoltageV),
+      ratedPowerW: Type.Optional(positive(L.maxPowerW, 'Power rating of the zener; 0.5 W if absent.')),
+    }),
   ],
   { description: 'Collector clamp that limits the flyback voltage.' },
 );
@@ -123,6 +146,9 @@ export const driverStageSchema = closedObject({
   ),
   switchOnTimeS: Type.Optional(
     between(0, L.maxTimeS, 'Time the push-button is held for a cold start (start-up simulation).'),
+  ),
+  ambientTemperatureC: Type.Optional(
+    between(L.minTemperatureC, L.maxTemperatureC, 'Air temperature around the stage (°C); 25 °C if absent.'),
   ),
   batteryLifeTargetH: Type.Optional(
     positive(L.maxBatteryLifeH, 'Battery life the equipment must reach on a cells supply (checked when given).'),

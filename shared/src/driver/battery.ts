@@ -52,9 +52,16 @@ export function cellOpenCircuitVoltageV(curve: readonly CellCurvePoint[], charge
   return last.voltageV;
 }
 
-/** The rate model of a cells supply: its chemistry's (`defaultCellRateModels`), none for a custom cell. */
+/** The rate model of a cells supply: its chemistry's (`defaultCellRateModels`), none for a custom cell; the design's own exponent and rated time override. */
 export function cellRateModelOf(supply: CellsSupply): CellRateModel {
-  return supply.chemistry === 'custom' ? customCellRateModel : defaultCellRateModels[supply.chemistry];
+  const base = supply.chemistry === 'custom' ? customCellRateModel : defaultCellRateModels[supply.chemistry];
+  if (supply.peukertExponent === undefined && supply.ratedDischargeH === undefined) return base;
+  return {
+    ...base,
+    peukertExponent: supply.peukertExponent ?? base.peukertExponent,
+    ratedDischargeH: supply.ratedDischargeH ?? base.ratedDischargeH,
+    source: `design's own figures where given; otherwise ${base.source}`,
+  };
 }
 
 /** Internal resistance of one cell (Ω) at a state of charge: R_full·(1 + m·(1 − σ)^p) (see CellRateModel). */

@@ -46,6 +46,8 @@ export interface StageLosses {
   secondaryCopperW: number;
   /** Leakage energy ½·(1 − k²)·Lp·Ipk² per cycle, taken by the clamp or the ringing of the collector. */
   leakageW: number;
+  /** The core's loss (the design's figure, at most what the flyback carries), taken from the stored energy. */
+  coreW: number;
   /** The indicator lamp. */
   lampW: number;
   /** I²·R in the supply's own resistance (cells' internal resistance or the bench supply's). */
@@ -278,7 +280,8 @@ function stageAt(
   // the triangular current pulse, peak Ipk·Np/Ns, is I²R·t/3.
   const iSecPk = ipk / turnsRatio;
   const copperJ = iSecPk * iSecPk * tx.secondaryResistanceOhm * (tFly / 3);
-  const flybackEfficiency = Math.max(0, k * k - copperJ / energyJ);
+  const coreJ = Math.min((tx.coreLossW ?? 0) / frequencyHz, Math.max(0, k * k * energyJ - copperJ));
+  const flybackEfficiency = Math.max(0, k * k - (copperJ + coreJ) / energyJ);
   const deliverableW = energyJ * frequencyHz * flybackEfficiency;
   // Supply charge per cycle: the primary ramp ∫i dt plus the base drive, with I_B falling linearly in i:
   // mean I_B = I_B0 − R·(N_b/N_p)·(Q/t_on)/R_B'.
@@ -316,6 +319,7 @@ function stageAt(
     collectorResistorW: frequencyHz * (driver.collectorResistorOhm ?? 0) * rampSquareA2S,
     secondaryCopperW: frequencyHz * Math.min(copperJ, k * k * energyJ),
     leakageW: frequencyHz * (1 - k * k) * energyJ,
+    coreW: frequencyHz * coreJ,
     lampW: vin * lampA,
     supplyResistanceW,
   };

@@ -1,3 +1,4 @@
+import type { BenchLossKind } from '../driver/driver-report';
 import { estimateBlockingOscillator } from '../driver/blocking-oscillator';
 import { DRIVER_NODES, buildDriverCircuit } from '../circuits/build-driver-circuit';
 import type { DriverStage } from '../designs/driver-stage.types';
@@ -59,20 +60,8 @@ export interface DriverWaveforms {
   primaryA: PlotTrace;
 }
 
-/** Loss kinds of a driver circuit's elements (see lossKindOf), W each in DriverFigures.lossesW. */
-export type DriverLossKind =
-  | 'transistor'
-  | 'windingCopper'
-  | 'clamp'
-  | 'snubber'
-  | 'baseResistor'
-  | 'collectorResistor'
-  | 'supplyResistance'
-  | 'ladderDiodes'
-  | 'bleeder'
-  | 'outputResistor'
-  | 'indicatorLamp'
-  | 'other';
+/** Loss kinds of a driver circuit's elements (see lossKindOf), W each in DriverFigures.lossesW; the estimate groups its losses the same way. */
+export type DriverLossKind = BenchLossKind;
 
 /** Bench figures over whole oscillation cycles at the end of a run (SI units; efficiency 0–1). */
 export interface DriverFigures {

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { estimateBlockingOscillator } from '../../src/driver/blocking-oscillator';
+import { estimateValidity } from '../../src/driver/estimate-validity';
 import { buildDriverCircuit } from '../../src/circuits/build-driver-circuit';
 import type { DriverStage } from '../../src/designs/driver-stage.types';
 import { MnaSystem } from '../../src/sim/mna-system';
@@ -80,6 +81,10 @@ describe('blocking-oscillator estimate against our simulator (bare stage, base-l
       // Vce than the datasheet Vce,sat the estimate takes, so its on-time is a few % shorter.
       expect(Math.abs(e.collectorPeakCurrentA.value / sim.peakA - 1)).toBeLessThan(0.05);
       expect(Math.abs(e.frequencyHz.value / sim.frequencyHz - 1)).toBeLessThan(0.1);
+      // These bare stages are what the estimate's validity rests on: it must not flag a light ramp as outside.
+      const finalA = (e.supplyVoltageV.value - 0.2) / s.transformer.primaryResistanceOhm;
+      if (e.collectorPeakCurrentA.value < 0.4 * finalA)
+        expect(estimateValidity(s, e, { feedsLadder: false }).isWithinValidity).toBe(true);
     },
     60_000,
   );

@@ -44,7 +44,7 @@ describe('InboxRoute', () => {
     renderWithApp(<InboxRoute />, { route: '/inbox' });
     const tables = await screen.findAllByRole('table');
     expect(tables).toHaveLength(3);
-    expect(screen.getByRole('heading', { name: 'Waiting for my Sign-off' })).toBeInTheDocument();
+    expect(screen.getByRole('heading', { name: 'Waiting for me' })).toBeInTheDocument();
     expect(screen.getByRole('heading', { name: 'Approved, waiting for release' })).toBeInTheDocument();
     expect(screen.getByRole('heading', { name: 'Submitted by me' })).toBeInTheDocument();
 

@@ -47,7 +47,7 @@ export function InboxRoute() {
       {inbox.isError && <Alert color="red">{inbox.error.message}</Alert>}
       {data && (
         <>
-          <Section title="Waiting for my Sign-off" count={data.waitingForMe.length}>
+          <Section title="Waiting for me" count={data.waitingForMe.length}>
             <InboxTable
               label="Waiting for me"
               items={data.waitingForMe}

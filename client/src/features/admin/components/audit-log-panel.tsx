@@ -86,41 +86,43 @@ export function AuditLogPanel() {
         </Button>
       </Group>
       {entries.isError && <Alert color="red">{entries.error.message}</Alert>}
-      <Table striped aria-label="Audit log" verticalSpacing={6} fz="sm">
-        <Table.Thead>
-          <Table.Tr>
-            <Table.Th w={170}>When</Table.Th>
-            <Table.Th w={210}>Action</Table.Th>
-            <Table.Th>Who</Table.Th>
-            <Table.Th>Details</Table.Th>
-          </Table.Tr>
-        </Table.Thead>
-        <Table.Tbody>
-          {entries.data?.items.map((entry) => (
-            <Table.Tr key={entry.id}>
-              <Table.Td>{new Date(entry.occurredAt).toLocaleString()}</Table.Td>
-              <Table.Td>
-                <Code>{entry.action}</Code>
-              </Table.Td>
-              <Table.Td>
-                {entry.actorEmail ?? '—'}
-                {entry.clientAddress && (
-                  <Text size="xs" c="dimmed">
-                    from {entry.clientAddress}
-                  </Text>
-                )}
-              </Table.Td>
-              <Table.Td>
-                <Text size="xs" style={{ wordBreak: 'break-word' }}>
-                  {Object.entries(entry.detail)
-                    .map(([key, value]) => `${key}: ${typeof value === 'string' ? value : JSON.stringify(value)}`)
-                    .join(' · ')}
-                </Text>
-              </Table.Td>
+      <Table.ScrollContainer minWidth={960}>
+        <Table striped aria-label="Audit log" verticalSpacing={6} fz="sm">
+          <Table.Thead>
+            <Table.Tr>
+              <Table.Th w={170}>When</Table.Th>
+              <Table.Th w={210}>Action</Table.Th>
+              <Table.Th>Who</Table.Th>
+              <Table.Th>Details</Table.Th>
             </Table.Tr>
-          ))}
-        </Table.Tbody>
-      </Table>
+          </Table.Thead>
+          <Table.Tbody>
+            {entries.data?.items.map((entry) => (
+              <Table.Tr key={entry.id}>
+                <Table.Td>{new Date(entry.occurredAt).toLocaleString()}</Table.Td>
+                <Table.Td>
+                  <Code>{entry.action}</Code>
+                </Table.Td>
+                <Table.Td>
+                  {entry.actorEmail ?? '—'}
+                  {entry.clientAddress && (
+                    <Text size="xs" c="dimmed">
+                      from {entry.clientAddress}
+                    </Text>
+                  )}
+                </Table.Td>
+                <Table.Td>
+                  <Text size="xs" style={{ wordBreak: 'break-word' }}>
+                    {Object.entries(entry.detail)
+                      .map(([key, value]) => `${key}: ${typeof value === 'string' ? value : JSON.stringify(value)}`)
+                      .join(' · ')}
+                  </Text>
+                </Table.Td>
+              </Table.Tr>
+            ))}
+          </Table.Tbody>
+        </Table>
+      </Table.ScrollContainer>
       {entries.data && entries.data.items.length === 0 && (
         <Text size="sm" c="dimmed">
           No entry matches these filters.

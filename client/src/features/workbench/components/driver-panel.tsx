@@ -83,6 +83,12 @@ export function DriverPanel({ driver }: DriverPanelProps) {
     <Paper withBorder p="sm" aria-label="Driver stage">
       <Stack gap="xs">
         <Title order={4}>Driver stage</Title>
+        {!driver.validity.isWithinValidity && (
+          <Text size="sm" c="orange.8" data-driver="validity">
+            Instant estimate outside its validity ({driver.validity.reasons.join('; ')}): run a simulation for these
+            figures.
+          </Text>
+        )}
         <SimpleGrid cols={{ base: 1, sm: 3 }} spacing="xs">
           <Text size="sm" data-driver="limited-by">
             {op.limitedBy === 'power'
