@@ -10,7 +10,7 @@ import {
 import type { Response } from 'express';
 import { ConnectionError, DatabaseError, ForeignKeyConstraintError, UniqueConstraintError } from 'sequelize';
 import type { ApiErrorBody } from '@ladderwright/shared/api';
-import { isDomainError, type DomainError, type DomainErrorCode } from '@ladderwright/shared/errors';
+import { fieldPath, isDomainError, type DomainError, type DomainErrorCode } from '@ladderwright/shared/errors';
 
 const DOMAIN_STATUS: Record<DomainErrorCode, number> = {
   invalid_quantity: HttpStatus.BAD_REQUEST,
@@ -85,7 +85,8 @@ function firstConstraintMessage(constraints: Record<string, string>): string | u
 /** One issue per offending property (its most telling message), nested properties as dotted paths. */
 function flattenValidationErrors(errors: ValidationError[], prefix = ''): { path: string; message: string }[] {
   return errors.flatMap((error) => {
-    const path = prefix ? `${prefix}.${error.property}` : error.property;
+    // Our path notation: an odd key (even an empty one) is quoted, so every issue names its field.
+    const path = fieldPath(prefix, /^(0|[1-9]\d*)$/.test(error.property) ? Number(error.property) : error.property);
     const message = firstConstraintMessage(error.constraints ?? {});
     const own = message ? [{ path, message }] : [];
     return [...own, ...flattenValidationErrors(error.children ?? [], path)];
@@ -134,7 +135,13 @@ function fromClientError(error: unknown): ApiErrorBody | null {
       : status === 413
         ? bodyTooLargeMessage(error)
         : 'The request body was refused';
-  return { statusCode: status, code: HTTP_CODES[status] ?? 'bad_request', message };
+  // A body that is not JSON, or JSON that is not an object or a list, is the body's own fault.
+  return {
+    statusCode: status,
+    code: HTTP_CODES[status] ?? 'bad_request',
+    message,
+    ...(status === 400 ? { field: '(body)' } : {}),
+  };
 }
 
 /**
