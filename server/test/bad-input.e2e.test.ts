@@ -1,6 +1,5 @@
 import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
-import { JwtService } from '@nestjs/jwt';
 import fc from 'fast-check';
 import request from 'supertest';
 import { canInApp, type UserRole } from '@ladderwright/shared/auth';
@@ -8,6 +7,7 @@ import { createProject, type TestProject } from './factories/create-project';
 import { createUser, type TestUser } from './factories/create-user';
 import { createTestApp, type TestApp } from './utils/create-test-app';
 import { type ApiRoute, apiRouteTable } from './utils/route-table';
+import { mintSessionCookie } from './utils/sign-in';
 
 /** Generated requests over all write routes together (at least 10,000), 0 × 5xx allowed. */
 const TOTAL_CASES = 10_000;
@@ -110,8 +110,7 @@ describe('bad input on every write route: never a 500, a 4xx naming the field', 
     const role: UserRole = route.appAction && !canInApp('lead', route.appAction) ? 'admin' : 'lead';
     const user = accounts.get(role);
     if (!user) throw new Error(`no ${role} account`);
-    const token = await testApp.app.get(JwtService).signAsync({ sub: user.id, sv: 0 });
-    return `lw_session=${token}`;
+    return mintSessionCookie(testApp, user.id);
   }
 
   function projectsRoute(): ApiRoute {

@@ -173,14 +173,20 @@ export class DesignsService {
     changeNote: string,
     name = document.name,
   ): Promise<DesignDetail> {
-    const designId = await this.sequelize.transaction(async (transaction) => {
-      const design = await this.designs.create({ projectId, name, ownerId, latestRevisionNumber: 1 }, { transaction });
-      await this.revisions.write(
-        projectId,
-        { designId: design.id, number: 1, document, authorId: ownerId, changeNote, baseRevisionNumber: null },
-        transaction,
-      );
-      return design.id;
+    const designId = await this.revisions.inWriteSlot(async () => {
+      const evaluated = await this.revisions.evaluate(projectId, document);
+      return this.sequelize.transaction(async (transaction) => {
+        const design = await this.designs.create(
+          { projectId, name, ownerId, latestRevisionNumber: 1 },
+          { transaction },
+        );
+        await this.revisions.write(
+          { designId: design.id, number: 1, document, authorId: ownerId, changeNote, baseRevisionNumber: null },
+          evaluated,
+          transaction,
+        );
+        return design.id;
+      });
     });
     return this.detail(projectId, designId);
   }

@@ -29,6 +29,8 @@ export interface SimulationJobAttrs {
   queueJobId: string | null;
   startedAt: Date | null;
   finishedAt: Date | null;
+  /** Written every `SIMULATION_HEARTBEAT_MS` while the job runs; a stale one means its instance died. */
+  heartbeatAt: Date | null;
   createdAt: Date;
   updatedAt: Date;
 }
@@ -82,6 +84,9 @@ export class SimulationJobModel extends Model<SimulationJobAttrs, SimulationJobC
 
   @Column({ type: DataType.DATE, allowNull: true })
   finishedAt!: Date | null;
+
+  @Column({ type: DataType.DATE, allowNull: true })
+  heartbeatAt!: Date | null;
 
   override createdAt!: Date;
   override updatedAt!: Date;

@@ -4,15 +4,16 @@ import { DRIVER_SIZER_DEFAULTS, sizeDriverSupply } from '../../src/sizing/size-d
 import { formatQuantity } from '../../src/units/format-quantity';
 import { parseCommandArguments, type CommandSyntax } from '../arguments';
 import { quantityFlag, TEXT_OPTION } from '../ladder-flags';
+import { sizeSyntax } from './size';
 
 export const sizeDriverSyntax: CommandSyntax = {
   command: 'size-driver',
   options: {
-    target: { type: 'string', value: 'V', help: 'output the supply must reach at the load (required)' },
-    'load-current': { type: 'string', value: 'I', help: 'load current (required)' },
-    ripple: { type: 'string', value: 'V', help: 'largest peak-to-peak ripple (required)' },
+    target: sizeSyntax.options.target!,
+    'load-current': sizeSyntax.options['load-current']!,
+    ripple: sizeSyntax.options.ripple!,
     dc: { type: 'string', value: 'V', help: 'a DC supply of this voltage instead of cells' },
-    count: { type: 'string', value: 'N', help: 'supplies listed (1 to 100)' },
+    count: { type: 'string', value: 'N', help: 'supplies listed, 1 to 100' },
     ...TEXT_OPTION,
   },
   positionals: [],
@@ -35,8 +36,7 @@ export function sizeDriverCommand(argv: ReadonlyArray<string>): string {
   const stage: DriverStage =
     dcV === undefined ? base : { ...base, supply: { kind: 'dc', voltageV: dcV, sourceResistanceOhm: 0.1 } };
   const countText = flags.get('count');
-  const resultCount =
-    countText === undefined ? DRIVER_SIZER_DEFAULTS.resultCount : Number(countText === true ? NaN : countText);
+  const resultCount = countText === undefined ? DRIVER_SIZER_DEFAULTS.resultCount : Number(countText);
   if (!Number.isInteger(resultCount) || resultCount < 1 || resultCount > 100)
     throw new DomainError('invalid_argument', '--count needs an integer from 1 to 100', 'count');
   const result = sizeDriverSupply({

@@ -73,7 +73,29 @@ export const driverTransformerSchema = closedObject(
     primaryResistanceOhm: nonNegative(L.maxResistanceOhm),
     feedbackResistanceOhm: nonNegative(L.maxResistanceOhm),
     secondaryResistanceOhm: nonNegative(L.maxResistanceOhm),
-    saturationCurrentA: positive(L.maxCurrentA, 'Primary current at which the core saturates.'),
+    saturationCurrentA: positive(
+      L.maxCurrentA,
+      'Primary current at which the core saturates (its incremental inductance down by 30 %).',
+    ),
+    saturatedInductanceH: Type.Optional(
+      positive(L.maxInductanceH, 'Primary inductance in deep saturation; default 1 % of the primary inductance.'),
+    ),
+    windingCouplings: Type.Optional(
+      closedObject(
+        {
+          primaryFeedback: Type.Optional(fraction(true, false)),
+          primarySecondary: Type.Optional(fraction(true, false)),
+          feedbackSecondary: Type.Optional(fraction(true, false)),
+        },
+        { description: 'Coupling k of a pair of windings; a pair not given takes couplingCoefficient.' },
+      ),
+    ),
+    secondaryPhasing: Type.Optional(
+      Type.Union([Type.Literal('flyback'), Type.Literal('forward')], {
+        description:
+          "Which pulse of the secondary feeds the ladder: 'flyback' (default, the usual arrangement) or 'forward' (the pulse while the transistor conducts).",
+      }),
+    ),
     coreLossW: Type.Optional(
       nonNegative(L.maxPowerW, 'Core loss at the operating point, from the core maker’s loss data; zero if absent.'),
     ),
@@ -97,6 +119,12 @@ export const driverTransistorSchema = closedObject(
     icMaxA: positive(L.maxCurrentA),
     saturationCurrentA: Type.Optional(
       positive(1, 'Ebers-Moll saturation current for the full simulation; a small-signal default if absent.'),
+    ),
+    baseEmitterCapacitanceF: Type.Optional(
+      nonNegative(L.maxCapacitanceF, 'Zero-bias base-emitter junction capacitance (SPICE CJE); default 10 pF.'),
+    ),
+    baseCollectorCapacitanceF: Type.Optional(
+      nonNegative(L.maxCapacitanceF, 'Zero-bias base-collector junction capacitance (SPICE CJC); default 5 pF.'),
     ),
     thermalResistanceCPerW: Type.Optional(
       positive(
@@ -138,6 +166,21 @@ export const driverStageSchema = closedObject({
     nonNegative(L.maxResistanceOhm, 'Series resistor in the collector (current sensing or limiting).'),
   ),
   clamp: Type.Optional(driverClampSchema),
+  snubber: Type.Optional(
+    closedObject(
+      { resistorOhm: positive(L.maxResistanceOhm), capacitorF: positive(L.maxCapacitanceF) },
+      { description: 'RC snubber from the collector to ground (across the transistor).' },
+    ),
+  ),
+  supplyBypassCapacitanceF: Type.Optional(
+    nonNegative(L.maxCapacitanceF, 'Capacitor across the supply at the stage; 0 for none; default 100 µF.'),
+  ),
+  collectorStrayCapacitanceF: Type.Optional(
+    nonNegative(
+      L.maxCapacitanceF,
+      'Stray capacitance from the collector to ground (winding and wiring); 0 for none; default 100 pF.',
+    ),
+  ),
   indicatorLamp: Type.Optional(
     closedObject(
       { currentA: nonNegative(L.maxCurrentA) },

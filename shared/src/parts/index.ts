@@ -7,7 +7,7 @@ export {
   PART_DESCRIPTION_MAX_LENGTH,
 } from './validate-part';
 export type { PartField } from './validate-part';
-export { neutraliseCsvCell } from './csv-cell';
+export { csvCellNeedsQuotes, neutraliseCsvCell } from './csv-cell';
 export { fillPartRatings, partReferences } from './fill-part-ratings';
 export type { ShelfPart } from './fill-part-ratings';
 export { bomCost } from './bom-cost';

@@ -41,7 +41,10 @@ export interface StartUpResult {
   cyclesSimulated: number;
   /** Oscillation frequency over the last block, from turn-on events; null before the first block. */
   frequencyHz: number | null;
-  /** Cycle means of the output against time (each at its cycle's end), min/max downsampled. */
+  /**
+   * Cycle means of the output against time (each at its cycle's end), from (0, the empty ladder's output)
+   * to the stop (an unsettled run's last, partial cycle at the stop), min/max downsampled.
+   */
   curve: PlotTrace;
 }
 
@@ -89,8 +92,9 @@ export function runDriverStartUp(design: Design, options: StartUpOptions = {}): 
   const trigger = new TurnOnTrigger(driver.transformer.saturationCurrentA, 3 * periodGuessS);
 
   // Cycle records: end time, mean output over the cycle, mean ladder capacitor voltages over the cycle.
-  const curveT: number[] = [];
-  const curveV: number[] = [];
+  // The curve starts at the push-button with the empty ladder's output.
+  const curveT: number[] = [0];
+  const curveV: number[] = [system.x[top]!];
   const cycleStartS: number[] = [];
   const cycleEndS: number[] = [];
   const cycleMeanV: number[] = [];
@@ -123,7 +127,7 @@ export function runDriverStartUp(design: Design, options: StartUpOptions = {}): 
 
   while (!isSettled && stepper.timeS < maxTimeS && stepper.acceptedSteps < maxSteps) {
     if (options.shouldCancel?.()) throw new DomainError('cancelled', 'The run was cancelled');
-    stepper.step();
+    stepper.step(maxTimeS);
     const t = stepper.timeS;
     const v = system.x[top]!;
     const caps = capIndex.map((k, i) => stepper.q0[k]! / capsF[i]!);
@@ -187,6 +191,11 @@ export function runDriverStartUp(design: Design, options: StartUpOptions = {}): 
       reported = share;
       options.onProgress(Math.min(0.99, share));
     }
+  }
+  // The cycle under way when the run stopped enters the curve as its mean so far, at the stop.
+  if (!isSettled && !Number.isNaN(lastEventS) && stepper.timeS > lastEventS) {
+    curveT.push(stepper.timeS);
+    curveV.push(area / (stepper.timeS - lastEventS));
   }
   options.onProgress?.(1);
   const lastOutputV = cycleMeanV[cycleMeanV.length - 1] ?? curveV[curveV.length - 1] ?? 0;

@@ -20,6 +20,7 @@ import {
   type AcceptanceSettings,
   BENCH_ALLOWANCE_MAX,
 } from '@ladderwright/shared/reviews';
+import { IsNotBlank } from '../../common/decorators/is-not-blank.decorator';
 
 /** The named discharge rules a project can default to (a custom rule is set per design). */
 export const DEFAULT_DISCHARGE_RULES = ['50V-1min', '50V-5min', '60V-5s'] as const;
@@ -81,6 +82,7 @@ export class UpdateProjectDto implements UpdateProjectRequest {
   @IsString({ message: 'name must be text' })
   @MinLength(1, { message: 'name must not be empty' })
   @MaxLength(120, { message: 'name must be at most 120 characters' })
+  @IsNotBlank()
   name?: string;
 
   @ApiPropertyOptional()

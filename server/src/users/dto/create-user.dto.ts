@@ -3,6 +3,7 @@ import { IsEmail, IsIn, IsString, MaxLength, MinLength } from 'class-validator';
 import type { CreateUserRequest } from '@ladderwright/shared/api';
 import { USER_ROLES, type UserRole } from '@ladderwright/shared/auth';
 import { MeetsPasswordPolicy } from '../../common/decorators/meets-password-policy.decorator';
+import { IsNotBlank } from '../../common/decorators/is-not-blank.decorator';
 
 export class CreateUserDto implements CreateUserRequest {
   @ApiProperty({ example: 'new.engineer@northfold.test' })
@@ -14,6 +15,7 @@ export class CreateUserDto implements CreateUserRequest {
   @IsString()
   @MinLength(1, { message: 'displayName must not be empty' })
   @MaxLength(120)
+  @IsNotBlank()
   displayName!: string;
 
   @ApiProperty({ enum: USER_ROLES })

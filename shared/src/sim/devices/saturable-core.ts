@@ -9,49 +9,58 @@ import type { AddReactive } from './junction-stamp';
  */
 export const INDUCTANCE_AT_SATURATION_FRACTION = 0.7;
 
-/** Knee scale c of the arctangent law: 1/(1 + c²) = INDUCTANCE_AT_SATURATION_FRACTION at i = Isat. */
-const KNEE = Math.sqrt(1 / INDUCTANCE_AT_SATURATION_FRACTION - 1);
+/** Knee scale c: at i = Isat, (1 + (c·Isat/Is·…)⁴)^(−5/4) = INDUCTANCE_AT_SATURATION_FRACTION, i.e. x = c at Isat. */
+const KNEE = (INDUCTANCE_AT_SATURATION_FRACTION ** -0.8 - 1) ** 0.25;
 
 /**
- * Flux linkage of a saturating core against its magnetizing current (referred to the first winding), the
- * arctangent law: Λ(i) = Ls·i + (Lm − Ls)·(Is/c)·atan(c·i/Is), a smooth knee with the incremental inductance
- * L(i) = Ls + (Lm − Ls)/(1 + (c·i/Is)²) falling from Lm at zero current to Ls in deep saturation, and
- * to 70 % of Lm (Ls small) at the saturation current Is. (The arctangent is a common single-valued,
- * hysteresis-free magnetization law for circuit simulation; common practice, no single source.) Returns
- * the correction to the linear model, Φc(i) = Λ(i) − Lm·i, and its derivative, so a linear inductance
- * matrix carrying Lm keeps its meaning below saturation. Wb, A, H.
+ * Flux linkage of a saturating core against its magnetizing current (referred to the first winding), a
+ * smooth-knee saturation law of the algebraic-sigmoid family x/(1 + |x|ⁿ)^(1/n) with n = 4:
+ * Λ(i) = Ls·i + (Lm − Ls)·Ik·x/(1 + x⁴)^(1/4), x = i/Ik, Ik = Is/c. Its incremental inductance
+ * L(i) = Ls + (Lm − Ls)·(1 + x⁴)^(−5/4) stays within 2.5 % of Lm up to half the saturation current, falls to
+ * 70 % of it at Is (with Ls small) and to Ls in deep saturation, where the core's flux stops growing
+ * (single-valued, no hysteresis; the family and n = 4 are common practice for a ferrite's knee, no single
+ * source). Returns the correction to the linear model, Φc(i) = Λ(i) − Lm·i, and its derivative, so a
+ * linear inductance matrix carrying Lm keeps its meaning below saturation. Wb, A, H.
  */
 export function coreFluxCorrection(
   core: SaturableCore,
   currentA: number,
   out: { fluxWb: number; inductanceH: number },
 ): void {
-  const is = core.saturationCurrentA;
+  const ik = core.saturationCurrentA / KNEE;
   const drop = core.magnetizingInductanceH - core.saturatedInductanceH;
-  const x = (KNEE * currentA) / is;
-  out.fluxWb = drop * ((is / KNEE) * Math.atan(x) - currentA);
-  out.inductanceH = drop * (1 / (1 + x * x) - 1);
+  const x = currentA / ik;
+  const x4 = x * x * x * x;
+  const root = Math.sqrt(Math.sqrt(1 + x4));
+  out.fluxWb = drop * (ik * (x / root) - currentA);
+  out.inductanceH = drop * (1 / (root * (1 + x4)) - 1);
 }
 
 /**
- * Magnetic energy of the correction at magnetizing current i: ∫ i dΦc = i·Φc(i) − ∫₀ⁱ Φc, closed form for
- * the arctangent law (J); added to ½·iᵀMi of the linear windings.
+ * Magnetic energy of the correction at magnetizing current i: ∫ i dΦc = i·Φc(i) − ∫₀ⁱ Φc (J), the integral
+ * by Simpson's rule over 64 intervals (the integrand is smooth; error far below the energy account's);
+ * added to ½·iᵀMi of the linear windings.
  */
 export function coreCorrectionEnergyJ(core: SaturableCore, currentA: number): number {
-  const is = core.saturationCurrentA;
-  const drop = core.magnetizingInductanceH - core.saturatedInductanceH;
-  const x = (KNEE * currentA) / is;
-  const flux = drop * ((is / KNEE) * Math.atan(x) - currentA);
-  const integral =
-    drop * ((is / KNEE) * (currentA * Math.atan(x) - (is / (2 * KNEE)) * Math.log1p(x * x)) - 0.5 * currentA ** 2);
-  return currentA * flux - integral;
+  const out = { fluxWb: 0, inductanceH: 0 };
+  const steps = 64;
+  const h = currentA / steps;
+  let integral = 0;
+  for (let k = 0; k <= steps; k++) {
+    coreFluxCorrection(core, k * h, out);
+    integral += out.fluxWb * (k === 0 || k === steps ? 1 : k % 2 === 1 ? 4 : 2);
+  }
+  integral *= h / 3;
+  coreFluxCorrection(core, currentA, out);
+  return currentA * out.fluxWb - integral;
 }
 
 /** The ngspice expression of Φc(i) for a magnetizing-current expression `im` (same law as coreFluxCorrection). */
 export function coreFluxCorrectionSpice(core: SaturableCore, im: string, num: (v: number) => string): string {
-  const is = core.saturationCurrentA;
+  const ik = core.saturationCurrentA / KNEE;
   const drop = core.magnetizingInductanceH - core.saturatedInductanceH;
-  return `${num(drop)}*(${num(is / KNEE)}*atan(${num(KNEE / is)}*(${im}))-(${im}))`;
+  const x = `(${im})*${num(1 / ik)}`;
+  return `${num(drop)}*(${num(ik)}*${x}/sqrt(sqrt(1+${x}*${x}*${x}*${x}))-(${im}))`;
 }
 
 /**

@@ -316,7 +316,7 @@ function EditableRevision({ projectId, revision, latestRevisionNumber, revisions
                     </Tabs.Panel>
                   )}
                   <Tabs.Panel value="ladder" pt="sm">
-                    <LadderDiagram report={report} />
+                    <LadderDiagram report={report} design={draft} />
                   </Tabs.Panel>
                   <Tabs.Panel value="checks" pt="sm">
                     <Text size="xs" c="dimmed" mb="xs">

@@ -14,7 +14,7 @@ import {
 } from '@mantine/core';
 import { useDebouncedValue } from '@mantine/hooks';
 import type { CurrentUser, UserSummary } from '@ladderwright/shared/api';
-import { USER_ROLES, type UserRole } from '@ladderwright/shared/auth';
+import { USER_ROLES } from '@ladderwright/shared/auth';
 import { useUsers } from '../api/get-users';
 import { useUpdateUser } from '../api/update-user';
 import { CreateAccountForm } from './create-account-form';
@@ -58,7 +58,7 @@ export function AccountsPanel({ me }: { me: CurrentUser }) {
             aria-label="Account state"
             value={status}
             onChange={(value) => {
-              setStatus(value as StatusFilter);
+              setStatus(value);
               setPage(1);
             }}
             data={[
@@ -77,71 +77,71 @@ export function AccountsPanel({ me }: { me: CurrentUser }) {
           {update.error.message}
         </Alert>
       )}
-      <Table striped highlightOnHover aria-label="Accounts" verticalSpacing="xs">
-        <Table.Thead>
-          <Table.Tr>
-            <Table.Th>Name</Table.Th>
-            <Table.Th>E-mail</Table.Th>
-            <Table.Th w={150}>Account role</Table.Th>
-            <Table.Th w={110}>State</Table.Th>
-            <Table.Th>Actions</Table.Th>
-          </Table.Tr>
-        </Table.Thead>
-        <Table.Tbody>
-          {users.data?.items.map((user) => {
-            const isMe = user.id === me.id;
-            return (
-              <Table.Tr key={user.id}>
-                <Table.Td>{user.displayName}</Table.Td>
-                <Table.Td>{user.email}</Table.Td>
-                <Table.Td>
-                  <Select
-                    aria-label={`Account role of ${user.email}`}
-                    size="xs"
-                    data={[...USER_ROLES]}
-                    value={user.role}
-                    allowDeselect={false}
-                    disabled={isMe || update.isPending}
-                    onChange={(role) =>
-                      role &&
-                      role !== user.role &&
-                      update.mutate({ userId: user.id, request: { role: role as UserRole } })
-                    }
-                  />
-                </Table.Td>
-                <Table.Td>
-                  <Badge color={user.isActive ? 'verdigris' : 'gray'} variant="light">
-                    {user.isActive ? 'active' : 'deactivated'}
-                  </Badge>
-                </Table.Td>
-                <Table.Td>
-                  <Group gap="xs" wrap="nowrap">
-                    <Button
-                      size="compact-sm"
-                      variant="default"
-                      disabled={!user.isActive}
-                      onClick={() => setResetFor(user)}
-                      aria-label={`Reset the password of ${user.email}`}
-                    >
-                      Reset password
-                    </Button>
-                    <Button
-                      size="compact-sm"
-                      variant="subtle"
-                      color={user.isActive ? 'ember' : undefined}
+      <Table.ScrollContainer minWidth={900}>
+        <Table striped highlightOnHover aria-label="Accounts" verticalSpacing="xs">
+          <Table.Thead>
+            <Table.Tr>
+              <Table.Th>Name</Table.Th>
+              <Table.Th>E-mail</Table.Th>
+              <Table.Th w={150}>Account role</Table.Th>
+              <Table.Th w={110}>State</Table.Th>
+              <Table.Th>Actions</Table.Th>
+            </Table.Tr>
+          </Table.Thead>
+          <Table.Tbody>
+            {users.data?.items.map((user) => {
+              const isMe = user.id === me.id;
+              return (
+                <Table.Tr key={user.id}>
+                  <Table.Td>{user.displayName}</Table.Td>
+                  <Table.Td>{user.email}</Table.Td>
+                  <Table.Td>
+                    <Select
+                      aria-label={`Account role of ${user.email}`}
+                      size="xs"
+                      data={[...USER_ROLES]}
+                      value={user.role}
+                      allowDeselect={false}
                       disabled={isMe || update.isPending}
-                      onClick={() => update.mutate({ userId: user.id, request: { isActive: !user.isActive } })}
-                      aria-label={`${user.isActive ? 'Deactivate' : 'Reactivate'} ${user.email}`}
-                    >
-                      {user.isActive ? 'Deactivate' : 'Reactivate'}
-                    </Button>
-                  </Group>
-                </Table.Td>
-              </Table.Tr>
-            );
-          })}
-        </Table.Tbody>
-      </Table>
+                      onChange={(role) =>
+                        role && role !== user.role && update.mutate({ userId: user.id, request: { role: role } })
+                      }
+                    />
+                  </Table.Td>
+                  <Table.Td>
+                    <Badge color={user.isActive ? 'verdigris' : 'gray'} variant="light" style={{ overflow: 'visible' }}>
+                      {user.isActive ? 'active' : 'deactivated'}
+                    </Badge>
+                  </Table.Td>
+                  <Table.Td>
+                    <Group gap="xs" wrap="nowrap">
+                      <Button
+                        size="compact-sm"
+                        variant="default"
+                        disabled={!user.isActive}
+                        onClick={() => setResetFor(user)}
+                        aria-label={`Reset the password of ${user.email}`}
+                      >
+                        Reset password
+                      </Button>
+                      <Button
+                        size="compact-sm"
+                        variant="subtle"
+                        color={user.isActive ? 'ember' : undefined}
+                        disabled={isMe || update.isPending}
+                        onClick={() => update.mutate({ userId: user.id, request: { isActive: !user.isActive } })}
+                        aria-label={`${user.isActive ? 'Deactivate' : 'Reactivate'} ${user.email}`}
+                      >
+                        {user.isActive ? 'Deactivate' : 'Reactivate'}
+                      </Button>
+                    </Group>
+                  </Table.Td>
+                </Table.Tr>
+              );
+            })}
+          </Table.Tbody>
+        </Table>
+      </Table.ScrollContainer>
       {users.data && users.data.items.length === 0 && (
         <Text size="sm" c="dimmed">
           No account matches.
