@@ -188,6 +188,8 @@ export class DomainErrorFilter implements ExceptionFilter {
   catch(error: unknown, host: ArgumentsHost): void {
     const response = host.switchToHttp().getResponse<Response>();
     const body = this.toBody(error);
+    // Every 400 names a field: one about the request as a whole names its body.
+    if (body.statusCode === 400 && !body.field) body.field = '(body)';
     if (response.headersSent) return;
     if (error instanceof RetryLaterException) response.setHeader('Retry-After', String(error.retryAfterS));
     if (error instanceof ConnectionAcquireTimeoutError || error instanceof BusyException)
