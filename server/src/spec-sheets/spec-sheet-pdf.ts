@@ -1,6 +1,7 @@
 import { join } from 'node:path';
 import PDFDocument from 'pdfkit';
 import { formatQuantity } from '@ladderwright/shared/units';
+import { STRESS_CHECK_IDS } from '@ladderwright/shared/multiplier';
 import type { CheckVerdict } from '@ladderwright/shared/safety';
 import { schematicSection } from './spec-sheet-schematic';
 import type { SpecSheetContent } from './spec-sheet.types';
@@ -194,7 +195,7 @@ function bomSection(doc: Doc, c: SpecSheetContent): void {
       `±${(cap.tolerance * 100).toFixed(0)} %`,
       q(cap.ratedVoltageV, 'V'),
       q(stress?.maxVoltageV, 'V'),
-      marginOf(report.checks, `cap-voltage-c${i + 1}`),
+      marginOf(report.checks, STRESS_CHECK_IDS.capacitorVoltage(i + 1)),
     ];
   });
   const diode = document.multiplier.diode;
@@ -205,7 +206,7 @@ function bomSection(doc: Doc, c: SpecSheetContent): void {
     `${q(diode.ratedAverageCurrentA, 'A')} avg`,
     q(d.peakInverseV, 'V'),
     q(d.averageCurrentA, 'A'),
-    marginOf(report.checks, `diode-piv-d${d.index}`),
+    marginOf(report.checks, STRESS_CHECK_IDS.diodePiv(d.index)),
   ]);
   const columns = [
     { title: 'Ref', width: 38 },
@@ -245,7 +246,9 @@ function bomSection(doc: Doc, c: SpecSheetContent): void {
       // One verdict for the whole string; reports stored by older engines carry one per resistor.
       marginOf(
         report.checks,
-        report.checks.some((c) => c.id === 'bleeder-voltage') ? 'bleeder-voltage' : 'bleeder-voltage-r1',
+        report.checks.some((c) => c.id === STRESS_CHECK_IDS.bleederVoltage)
+          ? STRESS_CHECK_IDS.bleederVoltage
+          : STRESS_CHECK_IDS.bleederVoltageFirstResistor,
       ),
     ]);
   }
@@ -331,9 +334,17 @@ function outputVsLoadPlot(doc: Doc, c: SpecSheetContent): void {
   const width = 595 - 2 * MARGIN - 72;
   const height = 160;
   const measured = sweeps.flatMap((run) => run.points.map((p) => ({ x: p.x, y: Math.abs(p.y) })));
-  const maxX = Math.max(...points.map((p) => p.x), ...measured.map((p) => p.x)) || 1;
-  const maxY =
-    Math.max(...points.map((p) => p.y), ...measured.map((p) => p.y), Math.abs(c.acceptance.outputHighV)) * 1.05 || 1;
+  // A loop, not Math.max(...points): a spread of tens of thousands of bench points overflows the stack.
+  let largestX = -Infinity;
+  let largestY = Math.abs(c.acceptance.outputHighV);
+  for (const series of [points, measured]) {
+    for (const p of series) {
+      if (p.x > largestX) largestX = p.x;
+      if (p.y > largestY) largestY = p.y;
+    }
+  }
+  const maxX = largestX || 1;
+  const maxY = largestY * 1.05 || 1;
   const sx = (x: number) => left + (x / maxX) * width;
   const sy = (y: number) => top + height - (y / maxY) * height;
 

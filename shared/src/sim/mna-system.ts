@@ -13,11 +13,13 @@ import {
   positiveValue,
   ReactiveTable,
   stampLinearElement,
+  switchStatesAt,
+  addSwitchConductances,
   type SourceStamp,
   type SwitchStamp,
 } from './element-stamps';
 import { BandedLu } from './solver/banded-lu';
-import { nextWaveformBreakpoint, waveformValue } from './source-waveforms';
+import { commonPeriodS, nextWaveformBreakpoint, waveformValue } from './source-waveforms';
 import { orderUnknowns } from './unknown-ordering';
 
 /**
@@ -211,20 +213,9 @@ export class MnaSystem {
     return index;
   }
 
-  /** Whether each switch is closed just after timeS (an event at exactly timeS applies to later times). */
-  private switchKeyAt(timeS: number): string {
-    let key = '';
-    for (const s of this.switches) {
-      let closed = s.initial;
-      for (const ev of s.events) if (ev.timeS < timeS) closed = ev.isClosed;
-      key += closed ? '1' : '0';
-    }
-    return key;
-  }
-
   /** Builds G + a0·C for a step ending at timeS (switch states as they are during that step). */
   prepareLinearMatrix(a0: number, stepEndS: number): void {
-    const key = this.switchKeyAt(stepEndS);
+    const key = switchStatesAt(this.switches, stepEndS);
     // Same step length and switch states as the last call (the usual case at the maximum step): unchanged.
     if (a0 === this.preparedA0 && key === this.preparedKey) return;
     this.preparedA0 = a0;
@@ -233,14 +224,7 @@ export class MnaSystem {
     const gb = this.conductanceBand;
     const cb = this.reactanceBand;
     for (let i = 0; i < lb.length; i++) lb[i] = gb[i]! + a0 * cb[i]!;
-    for (let i = 0; i < this.switches.length; i++) {
-      const s = this.switches[i]!;
-      const gs = key[i] === '1' ? s.onS : s.offS;
-      lb[s.offsets[0]!]! += gs;
-      lb[s.offsets[1]!]! += gs;
-      lb[s.offsets[2]!]! -= gs;
-      lb[s.offsets[3]!]! -= gs;
-    }
+    addSwitchConductances(lb, this.switches, key);
   }
 
   /** Earliest source corner or switch event strictly after timeS. */
@@ -258,23 +242,9 @@ export class MnaSystem {
     return false;
   }
 
-  /**
-   * The period every time-varying source repeats with (sine 1/f, pulse its period), or NaN when there is
-   * none, a source does not repeat (piecewise-linear) or two sources repeat differently.
-   */
+  /** The period every time-varying source repeats with, or NaN (see commonPeriodS). */
   sourcePeriodS(): number {
-    let period = NaN;
-    for (const { waveform: w } of this.sources) {
-      let p: number;
-      if (w.kind === 'dc') continue;
-      else if (w.kind === 'sine') p = w.frequencyHz > 0 ? 1 / w.frequencyHz : NaN;
-      else if (w.kind === 'pulse') p = w.periodS > 0 ? w.periodS : NaN;
-      else return NaN;
-      if (!(p > 0)) return NaN;
-      if (Number.isNaN(period)) period = p;
-      else if (Math.abs(p - period) > 1e-12 * period) return NaN;
-    }
-    return period;
+    return commonPeriodS(this.sources.map((s) => s.waveform));
   }
 
   /** Right-hand side of a step ending at timeS: source values and Σ incidence·hist (hist must be set). */

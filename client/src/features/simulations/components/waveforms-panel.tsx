@@ -8,6 +8,7 @@ import type {
   WaveformPhase,
   WaveformTrace,
 } from '@ladderwright/shared/api';
+import { START_UP_WINDOW_S } from '@ladderwright/shared/api';
 import { formatQuantity } from '@ladderwright/shared/units';
 import { QuantityInput } from '../../../components/quantity-input';
 import { useSimulationJob } from '../hooks/use-simulation-job';
@@ -35,14 +36,12 @@ export interface WaveformsPanelProps {
   isDriverDesign?: boolean;
 }
 
-/** The cold start-up window a driver run gets unless the engineer sets one (the server's default, 2 ms). */
+/** The cold start-up window the panel proposes for a driver run (the engineer may change it). */
 export const DEFAULT_STARTUP_WINDOW_S = 2e-3;
-/** Bounds of options.startUpWindowS the server accepts. */
-const STARTUP_WINDOW_RANGE_S = [1e-4, 0.1] as const;
 
 /** Why a start-up window is refused, or null when the server accepts it. */
 export function startUpWindowIssue(windowS: number): string | null {
-  const [min, max] = STARTUP_WINDOW_RANGE_S;
+  const { min, max } = START_UP_WINDOW_S;
   if (Number.isFinite(windowS) && windowS >= min && windowS <= max) return null;
   return `the start-up window must be between ${formatQuantity(min, 's')} and ${formatQuantity(max, 's')}`;
 }
