@@ -14,7 +14,7 @@ import {
 } from '@mantine/core';
 import { useDebouncedValue } from '@mantine/hooks';
 import type { CurrentUser, UserSummary } from '@ladderwright/shared/api';
-import { USER_ROLES, type UserRole } from '@ladderwright/shared/auth';
+import { USER_ROLES } from '@ladderwright/shared/auth';
 import { useUsers } from '../api/get-users';
 import { useUpdateUser } from '../api/update-user';
 import { CreateAccountForm } from './create-account-form';
@@ -58,7 +58,7 @@ export function AccountsPanel({ me }: { me: CurrentUser }) {
             aria-label="Account state"
             value={status}
             onChange={(value) => {
-              setStatus(value as StatusFilter);
+              setStatus(value);
               setPage(1);
             }}
             data={[
@@ -104,9 +104,7 @@ export function AccountsPanel({ me }: { me: CurrentUser }) {
                       allowDeselect={false}
                       disabled={isMe || update.isPending}
                       onChange={(role) =>
-                        role &&
-                        role !== user.role &&
-                        update.mutate({ userId: user.id, request: { role: role as UserRole } })
+                        role && role !== user.role && update.mutate({ userId: user.id, request: { role: role } })
                       }
                     />
                   </Table.Td>

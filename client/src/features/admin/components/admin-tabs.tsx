@@ -10,7 +10,7 @@ export function AdminTabs({ active }: { active: AdminPage }) {
   return (
     <Tabs
       value={active}
-      onChange={(value) => navigate(value === 'audit-log' ? paths.auditLog.getHref() : paths.accounts.getHref())}
+      onChange={(value) => void navigate(value === 'audit-log' ? paths.auditLog.getHref() : paths.accounts.getHref())}
     >
       <Tabs.List>
         <Tabs.Tab value="accounts">Accounts</Tabs.Tab>

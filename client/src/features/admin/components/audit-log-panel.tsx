@@ -58,7 +58,7 @@ export function AuditLogPanel() {
           data={[...AUDIT_ACTIONS]}
           value={action}
           onChange={(value) => {
-            setAction(value as AuditAction | null);
+            setAction(value);
             resetPage();
           }}
           w={260}

@@ -51,7 +51,7 @@ export function CreateAccountForm({ onClose }: { onClose: () => void }) {
               data={[...USER_ROLES]}
               value={role}
               allowDeselect={false}
-              onChange={(value) => value && setRole(value as UserRole)}
+              onChange={(value) => value && setRole(value)}
             />
             <PasswordInput
               label="First password"

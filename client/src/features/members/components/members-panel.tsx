@@ -49,7 +49,7 @@ export function MembersPanel({ project, myUserId }: { project: ProjectDetail; my
                   value={role}
                   allowDeselect={false}
                   w={160}
-                  onChange={(value) => value && setRole(value as ProjectRole)}
+                  onChange={(value) => value && setRole(value)}
                 />
                 <Button type="submit" mt={25} loading={add.isPending} disabled={!email.trim()}>
                   Add
@@ -100,9 +100,7 @@ export function MembersPanel({ project, myUserId }: { project: ProjectDetail; my
                       allowDeselect={false}
                       disabled={change.isPending}
                       onChange={(value) =>
-                        value &&
-                        value !== member.role &&
-                        change.mutate({ userId: member.userId, role: value as ProjectRole })
+                        value && value !== member.role && change.mutate({ userId: member.userId, role: value })
                       }
                     />
                   ) : (
