@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { lazy, Suspense, useState } from 'react';
 import {
   Alert,
   Anchor,
@@ -6,6 +6,7 @@ import {
   Breadcrumbs,
   Button,
   Grid,
+  Loader,
   Group,
   List,
   Stack,
@@ -25,20 +26,38 @@ import { queryKeys } from '../../../lib/query-keys';
 import { staleBaseOf, useCreateRevision } from '../../../features/designs/api/create-revision';
 import { getDesignQueryOptions } from '../../../features/designs/api/get-design';
 import { getRevisionQueryOptions } from '../../../features/designs/api/get-revision';
-import { RevisionHistory } from '../../../features/designs/components/revision-history';
 import { RevisionStateBadge } from '../../../features/designs/components/revision-state-badge';
 import { getPartsQueryOptions, useParts } from '../../../features/parts/api/get-parts';
-import { BomCost } from '../../../features/parts/components/bom-cost';
 import { getProjectQueryOptions } from '../../../features/projects/api/get-project';
-import { WaveformsPanel } from '../../../features/simulations/components/waveforms-panel';
-import { ChecksTable } from '../../../features/workbench/components/checks-table';
-import { DriverPanel } from '../../../features/workbench/components/driver-panel';
 import { HeadlineFigures } from '../../../features/workbench/components/headline-figures';
 import { LadderCharts } from '../../../features/workbench/components/ladder-charts';
-import { LadderDiagram } from '../../../features/workbench/components/ladder-diagram';
 import { LadderForm } from '../../../features/workbench/components/ladder-form';
 import { useLiveAnalysis } from '../../../features/workbench/hooks/use-live-analysis';
 import { requireUser } from './root';
+
+// Result tabs other than the first load with their tab (keepMounted is off), not with the page.
+const RevisionHistory = lazy(() =>
+  import('../../../features/designs/components/revision-history').then((module) => ({
+    default: module.RevisionHistory,
+  })),
+);
+const BomCost = lazy(() =>
+  import('../../../features/parts/components/bom-cost').then((module) => ({ default: module.BomCost })),
+);
+const WaveformsPanel = lazy(() =>
+  import('../../../features/simulations/components/waveforms-panel').then((module) => ({
+    default: module.WaveformsPanel,
+  })),
+);
+const ChecksTable = lazy(() =>
+  import('../../../features/workbench/components/checks-table').then((module) => ({ default: module.ChecksTable })),
+);
+const DriverPanel = lazy(() =>
+  import('../../../features/workbench/components/driver-panel').then((module) => ({ default: module.DriverPanel })),
+);
+const LadderDiagram = lazy(() =>
+  import('../../../features/workbench/components/ladder-diagram').then((module) => ({ default: module.LadderDiagram })),
+);
 
 function revisionParam(request: Request | URLSearchParams): number | null {
   const params = request instanceof URLSearchParams ? request : new URL(request.url).searchParams;
@@ -312,39 +331,53 @@ function EditableRevision({ projectId, revision, latestRevisionNumber, revisions
                   </Tabs.Panel>
                   {report.driver && (
                     <Tabs.Panel value="driver" pt="sm">
-                      <DriverPanel driver={report.driver} />
+                      <Suspense fallback={<Loader size="sm" />}>
+                        <DriverPanel driver={report.driver} />
+                      </Suspense>
                     </Tabs.Panel>
                   )}
                   <Tabs.Panel value="ladder" pt="sm">
-                    <LadderDiagram report={report} />
+                    <Suspense fallback={<Loader size="sm" />}>
+                      <LadderDiagram report={report} design={draft} />
+                    </Suspense>
                   </Tabs.Panel>
                   <Tabs.Panel value="checks" pt="sm">
                     <Text size="xs" c="dimmed" mb="xs">
                       {report.caution}
                     </Text>
-                    <ChecksTable checks={report.checks} />
+                    <Suspense fallback={<Loader size="sm" />}>
+                      <ChecksTable checks={report.checks} />
+                    </Suspense>
                   </Tabs.Panel>
                   <Tabs.Panel value="bom" pt="sm">
-                    <BomCost projectId={projectId} design={draft} />
+                    <Suspense fallback={<Loader size="sm" />}>
+                      <BomCost projectId={projectId} design={draft} />
+                    </Suspense>
                   </Tabs.Panel>
                   <Tabs.Panel value="waveforms" pt="sm">
-                    <WaveformsPanel
-                      projectId={projectId}
-                      source={
-                        isDirty ? { document: draft } : { designId: revision.designId, revisionNumber: revision.number }
-                      }
-                      frequencyHz={report.resolvedDrive.frequencyHz}
-                      safeVoltageV={draft.targets.safeVoltageV}
-                      isDriverDesign={draft.drive.kind === 'driver'}
-                    />
+                    <Suspense fallback={<Loader size="sm" />}>
+                      <WaveformsPanel
+                        projectId={projectId}
+                        source={
+                          isDirty
+                            ? { document: draft }
+                            : { designId: revision.designId, revisionNumber: revision.number }
+                        }
+                        frequencyHz={report.resolvedDrive.frequencyHz}
+                        safeVoltageV={draft.targets.safeVoltageV}
+                        isDriverDesign={draft.drive.kind === 'driver'}
+                      />
+                    </Suspense>
                   </Tabs.Panel>
                   <Tabs.Panel value="history" pt="sm">
-                    <RevisionHistory
-                      projectId={projectId}
-                      designId={revision.designId}
-                      revisions={revisions}
-                      openRevisionNumber={revision.number}
-                    />
+                    <Suspense fallback={<Loader size="sm" />}>
+                      <RevisionHistory
+                        projectId={projectId}
+                        designId={revision.designId}
+                        revisions={revisions}
+                        openRevisionNumber={revision.number}
+                      />
+                    </Suspense>
                   </Tabs.Panel>
                 </Tabs>
               </>

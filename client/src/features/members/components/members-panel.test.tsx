@@ -21,7 +21,8 @@ const project: ProjectDetail = {
 
 const fetchMock = vi.fn<typeof fetch>();
 
-describe('MembersPanel', () => {
+// The first render loads Mantine's Select and Table: allow for a loaded machine.
+describe('MembersPanel', { timeout: 20_000 }, () => {
   beforeEach(() => {
     fetchMock.mockReset();
     vi.stubGlobal('fetch', fetchMock);
