@@ -47,8 +47,8 @@ export const text = (maxLength: number, description?: string) =>
   });
 
 /** An object that refuses keys it does not name. */
-export const closedObject: typeof Type.Object = ((properties, options) =>
-  Type.Object(properties, { additionalProperties: false, ...options })) as typeof Type.Object;
+export const closedObject: typeof Type.Object = (properties, options) =>
+  Type.Object(properties, { additionalProperties: false, ...options });
 
 /** A plain JSON Schema object, as published. */
 export interface PublishedSchema {

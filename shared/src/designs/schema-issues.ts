@@ -114,8 +114,8 @@ const fmt = (x: number): string => String(x);
 
 /** The bounds of a number as one phrase, e.g. "must lie in (0, 1)" or "must be greater than zero". */
 function rangeMessage(schema: TSchema, value: number): string {
-  const lo = schema.exclusiveMinimum ?? schema.minimum;
-  const hi = schema.exclusiveMaximum ?? schema.maximum;
+  const lo = (schema.exclusiveMinimum ?? schema.minimum) as number | undefined;
+  const hi = (schema.exclusiveMaximum ?? schema.maximum) as number | undefined;
   const loOpen = schema.exclusiveMinimum !== undefined;
   const hiOpen = schema.exclusiveMaximum !== undefined;
   if (lo === 0 && hi !== undefined && hi <= 1) {
@@ -126,7 +126,9 @@ function rangeMessage(schema: TSchema, value: number): string {
     if (lo === 0) return loOpen ? 'must be greater than zero' : 'must not be negative';
     return loOpen ? `must be greater than ${fmt(lo)}` : `must be at least ${fmt(lo)}`;
   }
-  return hiOpen ? `must be less than ${fmt(hi)}` : `must not exceed ${fmt(hi)} (a limit of the domain)`;
+  return hiOpen
+    ? `must be less than ${fmt(hi as number)}`
+    : `must not exceed ${fmt(hi as number)} (a limit of the domain)`;
 }
 
 function messageOf(error: ValueError): string {
