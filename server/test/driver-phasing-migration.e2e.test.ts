@@ -15,7 +15,7 @@ function driverDesign(phasing?: 'flyback' | 'forward'): Design {
   return design;
 }
 
-describe('migration 0009: stored driver revisions keep their forward-fed meaning', () => {
+describe('migration 0010: stored driver revisions keep their forward-fed meaning', () => {
   let testApp: TestApp;
 
   beforeAll(async () => {
