@@ -39,18 +39,34 @@ export function setAt<T extends object>(document: T, path: NumberPath<T>, value:
   if (isNode(node) && last !== undefined) node[last] = value;
 }
 
-/** One numeric field's binding to a document: its path, its value, and the edit that writes it. */
-export interface Binding<T> {
-  path: NumberPath<T>;
+/** Applies one change to a copy of a document; `key` names the field changed (its full document path). */
+export type Edit<T> = (mutate: (draft: T) => void, key?: string) => void;
+
+/** One numeric field's binding to a document: its full path, value, validation message and the edit that writes it. */
+export interface Binding {
+  path: string;
   value: number;
+  issue: string | null;
   onValue: (value: number) => void;
 }
 
-/** `bind(path)` for a document and its edit function (which applies a mutation to a copy). */
-export function binder<T extends object>(document: T, edit: (mutate: (draft: T) => void) => void) {
-  return (path: NumberPath<T>): Binding<T> => ({
-    path,
-    value: getAt(document, path),
-    onValue: (value) => edit((draft) => setAt(draft, path, value)),
-  });
+/**
+ * `bind(path)` for a document (or a part of one at `prefix`, e.g. `drive.driver`), its edit function and the
+ * validation messages by full document path.
+ */
+export function binder<T extends object>(
+  document: T,
+  edit: Edit<T>,
+  issueOf: (path: string) => string | null,
+  prefix = '',
+) {
+  return (path: NumberPath<T>): Binding => {
+    const fullPath = prefix ? `${prefix}.${path}` : path;
+    return {
+      path: fullPath,
+      value: getAt(document, path),
+      issue: issueOf(fullPath),
+      onValue: (value) => edit((draft) => setAt(draft, path, value), fullPath),
+    };
+  };
 }

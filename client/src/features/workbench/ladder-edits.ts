@@ -51,3 +51,65 @@ export function resizeCapacitors(capacitors: readonly CapacitorPart[], count: nu
   const top = capacitors[capacitors.length - 1] ?? { valueF: 10e-9, tolerance: 0.1, ratedVoltageV: 1000 };
   return Array.from({ length: count }, (_, i) => ({ ...(capacitors[i] ?? top) }));
 }
+
+const columnLabels: Record<string, string> = {
+  oscillating: 'oscillating',
+  smoothing: 'smoothing',
+  'oscillating-a': 'oscillating A',
+  'oscillating-b': 'oscillating B',
+  bridge: 'bridge half',
+};
+
+/** "stage 2, smoothing": a capacitor's place as the table and the confirmations name it. */
+export function placeLabel(place: CapacitorPlace | undefined): string {
+  return place ? `stage ${place.stage}, ${columnLabels[place.column] ?? place.column}` : '—';
+}
+
+/** A capacitor that keeps its list position (and value) but takes another place in the ladder. */
+export interface RoleChange {
+  index: number;
+  from: CapacitorPlace;
+  to: CapacitorPlace;
+  capacitor: CapacitorPart;
+}
+
+/** The capacitors whose place changes when the ladder's shape changes and the list is kept by position. */
+export function roleChanges(
+  before: { topology: Topology; capacitors: readonly CapacitorPart[] },
+  after: { topology: Topology; capacitors: readonly CapacitorPart[] },
+): RoleChange[] {
+  const from = capacitorPlaces(before.topology, before.capacitors);
+  const to = capacitorPlaces(after.topology, after.capacitors);
+  if (!from || !to) return [];
+  const changes: RoleChange[] = [];
+  for (let i = 0; i < Math.min(from.length, to.length); i += 1) {
+    const a = from[i];
+    const b = to[i];
+    const capacitor = before.capacitors[i];
+    if (a && b && capacitor && (a.column !== b.column || a.stage !== b.stage))
+      changes.push({ index: i, from: a, to: b, capacitor });
+  }
+  return changes;
+}
+
+/**
+ * The capacitor list for a new shape with each capacitor kept at its place in the ladder (same column and stage)
+ * where the new shape has that place; new places repeat the top capacitor, as `resizeCapacitors` does.
+ */
+export function resizeKeepingPlaces(
+  topology: Topology,
+  capacitors: readonly CapacitorPart[],
+  nextTopology: Topology,
+  count: number,
+): CapacitorPart[] {
+  const byPosition = resizeCapacitors(capacitors, count);
+  const from = capacitorPlaces(topology, capacitors);
+  const to = capacitorPlaces(nextTopology, byPosition);
+  if (!from || !to) return byPosition;
+  return byPosition.map((fallback, i) => {
+    const place = to[i];
+    const j = place ? from.findIndex((p) => p.column === place.column && p.stage === place.stage) : -1;
+    const kept = j >= 0 ? capacitors[j] : undefined;
+    return kept ? { ...kept } : fallback;
+  });
+}

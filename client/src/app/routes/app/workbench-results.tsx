@@ -1,0 +1,76 @@
+import { Tabs, Text } from '@mantine/core';
+import type { RevisionDetail, RevisionSummary } from '@ladderwright/shared/api';
+import type { Design } from '@ladderwright/shared/designs';
+import type { DesignReport } from '@ladderwright/shared/multiplier';
+import { RevisionHistory } from '../../../features/designs/components/revision-history';
+import { BomCost } from '../../../features/parts/components/bom-cost';
+import { WaveformsPanel } from '../../../features/simulations/components/waveforms-panel';
+import { ChecksTable } from '../../../features/workbench/components/checks-table';
+import { DriverPanel } from '../../../features/workbench/components/driver-panel';
+import { LadderCharts } from '../../../features/workbench/components/ladder-charts';
+import { LadderDiagram } from '../../../features/workbench/components/ladder-diagram';
+import { OtherFigures } from '../../../features/workbench/components/other-figures';
+
+export interface WorkbenchResultsProps {
+  projectId: string;
+  revision: RevisionDetail;
+  revisions: readonly RevisionSummary[];
+  draft: Design;
+  isDirty: boolean;
+  report: DesignReport;
+}
+
+/** The Workbench result tabs: Plots, Driver, Ladder, Checks, BOM cost, Waveforms, History. */
+export function WorkbenchResults({ projectId, revision, revisions, draft, isDirty, report }: WorkbenchResultsProps) {
+  return (
+    <Tabs defaultValue="plots" keepMounted={false}>
+      <Tabs.List>
+        <Tabs.Tab value="plots">Plots</Tabs.Tab>
+        {report.driver && <Tabs.Tab value="driver">Driver</Tabs.Tab>}
+        <Tabs.Tab value="ladder">Ladder</Tabs.Tab>
+        <Tabs.Tab value="checks">Checks</Tabs.Tab>
+        <Tabs.Tab value="bom">BOM cost</Tabs.Tab>
+        <Tabs.Tab value="waveforms">Waveforms</Tabs.Tab>
+        <Tabs.Tab value="history">History</Tabs.Tab>
+      </Tabs.List>
+      <Tabs.Panel value="plots" pt="sm">
+        <OtherFigures report={report} />
+        <LadderCharts report={report} />
+      </Tabs.Panel>
+      {report.driver && (
+        <Tabs.Panel value="driver" pt="sm">
+          <DriverPanel driver={report.driver} />
+        </Tabs.Panel>
+      )}
+      <Tabs.Panel value="ladder" pt="sm">
+        <LadderDiagram report={report} />
+      </Tabs.Panel>
+      <Tabs.Panel value="checks" pt="sm">
+        <Text size="xs" c="dimmed" mb="xs">
+          {report.caution}
+        </Text>
+        <ChecksTable checks={report.checks} />
+      </Tabs.Panel>
+      <Tabs.Panel value="bom" pt="sm">
+        <BomCost projectId={projectId} design={draft} />
+      </Tabs.Panel>
+      <Tabs.Panel value="waveforms" pt="sm">
+        <WaveformsPanel
+          projectId={projectId}
+          source={isDirty ? { document: draft } : { designId: revision.designId, revisionNumber: revision.number }}
+          frequencyHz={report.resolvedDrive.frequencyHz}
+          safeVoltageV={draft.targets.safeVoltageV}
+          isDriverDesign={draft.drive.kind === 'driver'}
+        />
+      </Tabs.Panel>
+      <Tabs.Panel value="history" pt="sm">
+        <RevisionHistory
+          projectId={projectId}
+          designId={revision.designId}
+          revisions={revisions}
+          openRevisionNumber={revision.number}
+        />
+      </Tabs.Panel>
+    </Tabs>
+  );
+}
