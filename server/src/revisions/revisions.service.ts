@@ -12,6 +12,7 @@ import type {
 import type { Design } from '@ladderwright/shared/designs';
 import { DomainError } from '@ladderwright/shared/errors';
 import { buildCircuit, toSpiceNetlist } from '@ladderwright/shared/sim';
+import { capacitorRoleChanges } from '@ladderwright/shared/multiplier';
 import { AnalysisService } from '../analysis/analysis.service';
 import { isUuid } from '../common/uuid';
 import { DesignModel } from '../designs/design.model';
@@ -146,18 +147,35 @@ export class RevisionsService {
     return this.get(projectId, designId, String(number));
   }
 
-  /** Inputs that differ and every headline result, a beside b, with b − a. */
-  async compare(projectId: string, designId: string, a: number, b: number): Promise<RevisionComparison> {
-    const design = await this.findDesign(projectId, designId);
+  /**
+   * Inputs that differ, every headline result with b − a, the capacitors that change place in the ladder and both
+   * sides' Checks: revision a of `designId` beside revision b of the same design or of `bDesignId` (same project).
+   */
+  async compare(
+    projectId: string,
+    designId: string,
+    a: number,
+    b: number,
+    bDesignId?: string,
+  ): Promise<RevisionComparison> {
+    const designA = await this.findDesign(projectId, designId);
+    const designB = bDesignId && bDesignId !== designId ? await this.findDesign(projectId, bDesignId) : designA;
     const [revisionA, revisionB] = await Promise.all([
-      this.load(design.id, String(a), 'a'),
-      this.load(design.id, String(b), 'b'),
+      this.load(designA.id, String(a), 'a'),
+      this.load(designB.id, String(b), 'b'),
     ]);
+    const ladder = (document: Design) => ({
+      topology: document.multiplier.topology,
+      capacitorCount: document.multiplier.capacitors.length,
+    });
     return {
       a: toRevisionSummary(revisionA),
       b: toRevisionSummary(revisionB),
+      designs: { a: { id: designA.id, name: designA.name }, b: { id: designB.id, name: designB.name } },
       inputs: differences(revisionA.document, revisionB.document),
       results: this.analysis.compareFigures(revisionA.report, revisionB.report),
+      roleChanges: capacitorRoleChanges(ladder(revisionA.document), ladder(revisionB.document)),
+      checks: { a: revisionA.report.checks, b: revisionB.report.checks },
     };
   }
 

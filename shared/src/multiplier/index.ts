@@ -29,3 +29,5 @@ export type {
   TextbookFigures,
   MethodInfo,
 } from './ladder.types';
+export { capacitorPlaces, capacitorRoleChanges } from './capacitor-places';
+export type { CapacitorPlace, CapacitorRoleChange } from './capacitor-places';

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { CapacitorPart } from '@ladderwright/shared/designs';
-import { capacitorPlaces, resizeCapacitors, resizeKeepingPlaces, roleChanges } from './ladder-edits';
+import { capacitorPlacesOf, resizeCapacitors, resizeKeepingPlaces, roleChanges } from './ladder-edits';
 
 const caps = (...nF: number[]): CapacitorPart[] =>
   nF.map((n) => ({ valueF: n * 1e-9, tolerance: 0.1, ratedVoltageV: 1000 }));
@@ -27,8 +27,8 @@ describe('capacitor roles when the cell count changes', () => {
   it('keeps each value at its place in the ladder when asked to', () => {
     const capacitors = caps(40, 30, 20, 10);
     const next = resizeKeepingPlaces('half-wave', capacitors, 'half-wave', 3);
-    const from = capacitorPlaces('half-wave', capacitors) ?? [];
-    const to = capacitorPlaces('half-wave', next) ?? [];
+    const from = capacitorPlacesOf('half-wave', capacitors) ?? [];
+    const to = capacitorPlacesOf('half-wave', next) ?? [];
     next.forEach((capacitor, i) => {
       const j = from.findIndex((p) => p.column === to[i]?.column && p.stage === to[i]?.stage);
       if (j >= 0) expect(capacitor.valueF).toBe(capacitors[j]?.valueF);

@@ -1,24 +1,9 @@
-import { buildLadderNetwork } from '@ladderwright/shared/multiplier';
+import { capacitorPlaces, capacitorRoleChanges, type CapacitorPlace } from '@ladderwright/shared/multiplier';
 import type { CapacitorPart, Topology } from '@ladderwright/shared/designs';
 
-/** Column and stage of each capacitor position, as the engine's network of the topology places them. */
-export interface CapacitorPlace {
-  column: string;
-  stage: number;
-}
-
 /** Where each capacitor sits in the ladder, or null when the list does not form a ladder of the topology. */
-export function capacitorPlaces(topology: Topology, capacitors: readonly CapacitorPart[]): CapacitorPlace[] | null {
-  try {
-    // Only the positions matter here, so every value is taken as 1 F.
-    const network = buildLadderNetwork(
-      topology,
-      capacitors.map(() => 1),
-    );
-    return capacitors.map((_, i) => ({ column: network.capColumn[i] ?? '', stage: network.capStage[i] ?? 1 }));
-  } catch {
-    return null;
-  }
+export function capacitorPlacesOf(topology: Topology, capacitors: readonly CapacitorPart[]): CapacitorPlace[] | null {
+  return capacitorPlaces(topology, capacitors.length);
 }
 
 /** Copies capacitor `fromIndex` (value, tolerance, rating, part code) onto every capacitor above it. */
@@ -37,7 +22,7 @@ export function gradeCapacitors(
   capacitors: readonly CapacitorPart[],
   topStageF: number,
 ): CapacitorPart[] {
-  const places = capacitorPlaces(topology, capacitors);
+  const places = capacitorPlacesOf(topology, capacitors);
   if (!places) return [...capacitors];
   const stageCount = Math.max(...places.map((p) => p.stage));
   return capacitors.map((capacitor, i) => ({
@@ -78,18 +63,13 @@ export function roleChanges(
   before: { topology: Topology; capacitors: readonly CapacitorPart[] },
   after: { topology: Topology; capacitors: readonly CapacitorPart[] },
 ): RoleChange[] {
-  const from = capacitorPlaces(before.topology, before.capacitors);
-  const to = capacitorPlaces(after.topology, after.capacitors);
-  if (!from || !to) return [];
-  const changes: RoleChange[] = [];
-  for (let i = 0; i < Math.min(from.length, to.length); i += 1) {
-    const a = from[i];
-    const b = to[i];
-    const capacitor = before.capacitors[i];
-    if (a && b && capacitor && (a.column !== b.column || a.stage !== b.stage))
-      changes.push({ index: i, from: a, to: b, capacitor });
-  }
-  return changes;
+  return capacitorRoleChanges(
+    { topology: before.topology, capacitorCount: before.capacitors.length },
+    { topology: after.topology, capacitorCount: after.capacitors.length },
+  ).flatMap((change) => {
+    const capacitor = before.capacitors[change.index];
+    return capacitor ? [{ ...change, capacitor }] : [];
+  });
 }
 
 /**
@@ -103,8 +83,8 @@ export function resizeKeepingPlaces(
   count: number,
 ): CapacitorPart[] {
   const byPosition = resizeCapacitors(capacitors, count);
-  const from = capacitorPlaces(topology, capacitors);
-  const to = capacitorPlaces(nextTopology, byPosition);
+  const from = capacitorPlacesOf(topology, capacitors);
+  const to = capacitorPlacesOf(nextTopology, byPosition);
   if (!from || !to) return byPosition;
   return byPosition.map((fallback, i) => {
     const place = to[i];

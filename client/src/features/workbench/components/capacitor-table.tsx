@@ -15,7 +15,7 @@ import {
 import type { Part } from '@ladderwright/shared/api';
 import type { CapacitorPart, Topology } from '@ladderwright/shared/designs';
 import { QuantityInput } from '../../../components/quantity-input';
-import { capacitorPlaces, fillDown, gradeCapacitors, placeLabel } from '../ladder-edits';
+import { capacitorPlacesOf, fillDown, gradeCapacitors, placeLabel } from '../ladder-edits';
 import { isCellBlock, pasteIntoCapacitors, type CapacitorColumnKey } from '../paste-cells';
 import classes from './capacitor-table.module.css';
 import { PartCodeInput } from './part-code-input';
@@ -45,7 +45,7 @@ export function CapacitorTable({
   parts = [],
   onPickPart,
 }: CapacitorTableProps) {
-  const places = capacitorPlaces(topology, capacitors);
+  const places = capacitorPlacesOf(topology, capacitors);
   const [pasteMessage, setPasteMessage] = useState<{ isError: boolean; text: string } | null>(null);
   const setCapacitor = (index: number, patch: Partial<CapacitorPart>) => {
     const [field = ''] = Object.keys(patch);
