@@ -82,8 +82,9 @@ export const apiPaths = {
     `/api/projects/${encodeURIComponent(projectId)}/designs/${encodeURIComponent(designId)}/revisions`,
   revision: (projectId: string, designId: string, revisionNumber: number) =>
     `/api/projects/${encodeURIComponent(projectId)}/designs/${encodeURIComponent(designId)}/revisions/${revisionNumber}`,
-  compareRevisions: (projectId: string, designId: string, a: number, b: number) =>
-    `/api/projects/${encodeURIComponent(projectId)}/designs/${encodeURIComponent(designId)}/compare?a=${a}&b=${b}`,
+  compareRevisions: (projectId: string, designId: string, a: number, b: number, bDesignId?: string) =>
+    `/api/projects/${encodeURIComponent(projectId)}/designs/${encodeURIComponent(designId)}/compare?a=${a}&b=${b}` +
+    (bDesignId && bDesignId !== designId ? `&bDesignId=${encodeURIComponent(bDesignId)}` : ''),
   designTemplates: '/api/design-templates',
   evaluate: '/api/analysis/evaluate',
   simulations: (projectId: string) => `/api/projects/${encodeURIComponent(projectId)}/simulations`,

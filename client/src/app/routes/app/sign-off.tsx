@@ -18,6 +18,7 @@ import { SpecSheetDownload } from '../../../features/sign-off/components/spec-sh
 import { ChecksTable } from '../../../features/workbench/components/checks-table';
 import { VerdictStrip } from '../../../features/workbench/components/verdict-strip';
 import { requireUser } from './root';
+import { formatDateTime } from '../../../lib/format-date';
 
 function routeParams(params: Record<string, string | undefined>) {
   return {
@@ -85,8 +86,7 @@ export function SignOffRoute() {
             </span>
           </Group>
           <Text size="sm" c="dimmed">
-            {revision.changeNote || 'No change note'} · by {revision.authorName} ·{' '}
-            {new Date(revision.createdAt).toLocaleString()}
+            {revision.changeNote || 'No change note'} · by {revision.authorName} · {formatDateTime(revision.createdAt)}
             {revisionNumber !== design.latestRevisionNumber && ` · the latest is r${design.latestRevisionNumber}`}
           </Text>
         </div>

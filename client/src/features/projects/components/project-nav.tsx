@@ -47,6 +47,14 @@ export function ProjectNav({ projects, activeProjectId, isLoading }: ProjectNavP
                   pl="xl"
                 />
               )}
+              {isActive && (
+                <NavLink
+                  component={Link}
+                  to={paths.compareDesigns.getHref(project.id)}
+                  label="Compare designs"
+                  pl="xl"
+                />
+              )}
               {isActive && <NavLink component={Link} to={paths.sizer.getHref(project.id)} label="Sizer" pl="xl" />}
               {isActive && (
                 <NavLink component={Link} to={paths.partsShelf.getHref(project.id)} label="Parts shelf" pl="xl" />
