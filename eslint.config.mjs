@@ -1,5 +1,7 @@
 // One lint configuration for the whole repository (`npm run lint`).
+import { readdirSync } from 'node:fs';
 import js from '@eslint/js';
+import { createNodeResolver, importX } from 'eslint-plugin-import-x';
 import reactHooks from 'eslint-plugin-react-hooks';
 import globals from 'globals';
 import tseslint from 'typescript-eslint';
@@ -15,6 +17,53 @@ const frameworkAndIo = [
   },
 ];
 
+// Layers of shared/src, lowest first: a folder may import only the folders listed for it (and itself).
+// `sim` is the netlist-level engine and imports nothing from the domain; the test
+// shared/test/architecture/import-layers.test.ts checks the whole folder graph for cycles.
+const sharedLayers = {
+  errors: [],
+  units: ['errors'],
+  methods: [],
+  sim: ['errors'],
+  designs: ['errors', 'units', 'methods'],
+  safety: ['errors', 'units', 'methods', 'designs'],
+  multiplier: ['errors', 'units', 'methods', 'designs', 'safety'],
+  driver: ['errors', 'units', 'methods', 'designs', 'safety', 'multiplier'],
+  circuits: ['errors', 'units', 'methods', 'designs', 'multiplier', 'driver', 'sim'],
+  analysis: ['errors', 'units', 'methods', 'designs', 'safety', 'multiplier', 'driver'],
+  runs: ['errors', 'units', 'methods', 'designs', 'safety', 'multiplier', 'driver', 'sim', 'circuits', 'analysis'],
+};
+const sharedZones = Object.entries(sharedLayers).map(([folder, allowed]) => ({
+  target: `./shared/src/${folder}`,
+  from: './shared/src',
+  except: [folder, ...allowed].map((f) => `./${f}`),
+  message: `shared/src/${folder} may import only ${[folder, ...allowed].join(', ')}.`,
+}));
+
+// Client features never import each other; a route composes them. Shared UI, lib and config import no feature
+// and no route.
+const clientFeatures = readdirSync(new URL('./client/src/features', import.meta.url), { withFileTypes: true })
+  .filter((d) => d.isDirectory())
+  .map((d) => d.name);
+const clientZones = [
+  ...clientFeatures.map((feature) => ({
+    target: `./client/src/features/${feature}`,
+    from: './client/src/features',
+    except: [`./${feature}`],
+    message: 'Features do not import each other; compose them in a route (client/src/app).',
+  })),
+  ...['features', 'components', 'lib', 'config'].map((folder) => ({
+    target: `./client/src/${folder}`,
+    from: './client/src/app',
+    message: 'Only the app imports routes.',
+  })),
+  ...['components', 'lib', 'config'].map((folder) => ({
+    target: `./client/src/${folder}`,
+    from: './client/src/features',
+    message: 'Feature-agnostic code imports no feature.',
+  })),
+];
+
 export default tseslint.config(
   { ignores: ['**/node_modules/**', '**/dist/**', '.data/**', '**/coverage/**', 'client/test-results/**'] },
   js.configs.recommended,
@@ -25,6 +74,28 @@ export default tseslint.config(
       '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
       '@typescript-eslint/no-explicit-any': 'error',
     },
+  },
+  {
+    files: ['shared/**/*.ts', 'client/src/**/*.{ts,tsx}', 'server/src/**/*.ts'],
+    plugins: { 'import-x': importX },
+    settings: {
+      'import-x/resolver-next': [
+        createNodeResolver({
+          extensions: ['.ts', '.tsx', '.js', '.mjs', '.cjs', '.json'],
+          conditionNames: ['source', 'import', 'require', 'default'],
+        }),
+      ],
+    },
+    rules: { 'import-x/no-cycle': ['error', { ignoreExternal: true }] },
+  },
+  {
+    files: ['shared/src/**/*.ts'],
+    ignores: ['shared/src/**/*.test.ts'],
+    rules: { 'import-x/no-restricted-paths': ['error', { zones: sharedZones }] },
+  },
+  {
+    files: ['client/src/**/*.{ts,tsx}'],
+    rules: { 'import-x/no-restricted-paths': ['error', { zones: clientZones }] },
   },
   {
     files: ['**/*.cjs'],

@@ -2,7 +2,7 @@
 // demo design, beside the plain steady-state analysis of the same ladder run in the same process.
 // Run: npx tsx scripts/bench/analyze-design.bench.ts
 import { designExamples } from '../../shared/src/designs/design-examples';
-import { analyzeDesign, ladderInputOf, resolveDrive } from '../../shared/src/multiplier/analyze-design';
+import { analyzeDesign, ladderInputOf, resolveDrive } from '../../shared/src/analysis/analyze-design';
 import { analyzeLadder } from '../../shared/src/multiplier/analyze-ladder';
 
 /** Targets per analyzeDesign call (ms, one core): the driver design solves the driver's operating curve too. */

@@ -15,7 +15,7 @@ import { BenchRunsModule } from './bench-runs/bench-runs.module';
 import { SESSION_COOKIE } from './auth/jwt.strategy';
 import { DomainErrorFilter, RequestValidationException } from './common/filters/domain-error.filter';
 import { JwtAuthGuard } from './common/guards/jwt-auth.guard';
-import { ProjectAccessGuard } from './common/guards/project-access.guard';
+import { ProjectAccessGuard } from './projects/project-access.guard';
 import { RolesGuard } from './common/guards/roles.guard';
 import { ConfigModule } from './config/config.module';
 import type { AppEnv } from './config/env';

@@ -35,7 +35,7 @@ describe('audit log', () => {
       .query(action ? { action } : {})
       .set('Cookie', adminSession);
     expect(response.status).toBe(200);
-    return response.body as Entry[];
+    return (response.body as { items: Entry[] }).items;
   }
 
   it('records successful and failed sign-ins with the e-mail tried', async () => {

@@ -20,6 +20,8 @@ const ANY_SIGNED_IN_ACCOUNT = new Set([
   'GET /api/design-schema',
   'GET /api/design-templates',
   'GET /api/inbox',
+  'GET /api/me/notifications',
+  'PUT /api/me/notifications',
 ]);
 
 /** Routes after which the caller's earlier tokens no longer work. */

@@ -233,12 +233,13 @@ describe('bench runs', () => {
       });
     });
 
-    it('returns 404 for a revision that does not exist and 400 for a malformed number', async () => {
+    it('returns the same 404 for a revision that does not exist and for a malformed number', async () => {
       expect((await upload('load-sweep', fixture('ok/load-sweep.csv'), { revision: 9 })).status).toBe(404);
       const malformed = await http()
         .get(`/api/projects/${project.id}/designs/${design.id}/revisions/two/bench-runs`)
         .set('Cookie', as(engineer));
-      expect(malformed.status).toBe(400);
+      expect(malformed.status).toBe(404);
+      expect(malformed.body).toMatchObject({ field: 'revisionNumber', message: 'Revision two not found' });
     });
 
     it('returns 403 for a reviewer upload and 404 for a non-member', async () => {

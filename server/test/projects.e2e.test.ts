@@ -52,6 +52,7 @@ describe('projects', () => {
           description: '',
           myRole: 'engineer',
           memberCount: 3,
+          isArchived: false,
         },
       ]);
     });

@@ -1,6 +1,6 @@
 import request from 'supertest';
 import type { SimulationJob, WaveformTrace } from '@ladderwright/shared/api';
-import { analyzeDesign } from '@ladderwright/shared/multiplier';
+import { analyzeDesign } from '@ladderwright/shared/analysis';
 import { biasDoubler } from './fixtures/simulations/bias-doubler';
 import { createProject, type TestProject } from './factories/create-project';
 import { createUser, type TestUser } from './factories/create-user';

@@ -1,7 +1,8 @@
 import { randomUUID } from 'node:crypto';
 import request from 'supertest';
 import type { SimulationJob, WaveformTrace } from '@ladderwright/shared/api';
-import { buildCircuit, simulateTransient } from '@ladderwright/shared/sim';
+import { buildCircuit } from '@ladderwright/shared/circuits';
+import { simulateTransient } from '@ladderwright/shared/sim';
 import { type Design, designExamples } from '@ladderwright/shared/designs';
 import { biasDoubler as doubler } from './fixtures/simulations/bias-doubler';
 import { createDesign } from './factories/create-design';

@@ -23,8 +23,9 @@ describe('users (admin)', () => {
   it('lists the accounts to an admin', async () => {
     const response = await http().get('/api/users').set('Cookie', adminCookie);
     expect(response.status).toBe(200);
-    expect(response.body.map((user: { email: string }) => user.email)).toEqual([admin.email, lead.email].sort());
-    expect(response.body[0]).not.toHaveProperty('passwordHash');
+    expect(response.body.items.map((user: { email: string }) => user.email)).toEqual([admin.email, lead.email].sort());
+    expect(response.body).toMatchObject({ total: 2, page: 1, pageSize: 25 });
+    expect(response.body.items[0]).not.toHaveProperty('passwordHash');
   });
 
   it('refuses a non-admin with 403 and no session with 401', async () => {

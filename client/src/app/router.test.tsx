@@ -14,6 +14,8 @@ const detectorBias: ProjectDetail = {
   description: 'About 900 V from one lithium-ion cell.',
   myRole: 'engineer',
   memberCount: 1,
+  isArchived: false,
+  settings: { defaultTargets: {}, acceptance: { coverage: 0.95, benchAllowanceFraction: 0.01 } },
   members: [{ userId: 'u-1', email: 'engineer@northfold.test', displayName: 'Northfold Engineer', role: 'engineer' }],
 };
 const unauthorized: ApiErrorBody = { statusCode: 401, code: 'unauthorized', message: 'Sign in first.' };

@@ -2,7 +2,8 @@ import { Injectable } from '@nestjs/common';
 import type { DesignReportBody, DesignTemplate, EvaluateResponse, ResultDifference } from '@ladderwright/shared/api';
 import { validateDesign, type Design } from '@ladderwright/shared/designs';
 import { DomainError, isDomainError } from '@ladderwright/shared/errors';
-import { analyzeDesign, ENGINE_VERSION, resolveDrive } from '@ladderwright/shared/multiplier';
+import { analyzeDesign, resolveDrive } from '@ladderwright/shared/analysis';
+import { ENGINE_VERSION } from '@ladderwright/shared/multiplier';
 import { analyzeWithShelf, type ShelfPart } from '@ladderwright/shared/parts';
 import { DESIGN_TEMPLATES } from './design-templates';
 

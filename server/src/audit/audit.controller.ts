@@ -1,8 +1,9 @@
-import { Controller, Get, Query } from '@nestjs/common';
-import { ApiCookieAuth, ApiTags } from '@nestjs/swagger';
+import { Controller, Get, Query, Res } from '@nestjs/common';
+import { ApiCookieAuth, ApiOkResponse, ApiProduces, ApiTags } from '@nestjs/swagger';
+import type { Response } from 'express';
+import type { AuditPage } from '@ladderwright/shared/api';
 import { RequiresAppAction } from '../common/decorators/requires-permission.decorator';
 import { AuditService } from './audit.service';
-import type { AuditEntry } from './audit.types';
 import { ListAuditEntriesDto } from './dto/list-audit-entries.dto';
 
 @ApiTags('audit')
@@ -13,7 +14,17 @@ export class AuditController {
   constructor(private readonly audit: AuditService) {}
 
   @Get()
-  list(@Query() query: ListAuditEntriesDto): Promise<AuditEntry[]> {
+  list(@Query() query: ListAuditEntriesDto): Promise<AuditPage> {
     return this.audit.list(query);
+  }
+
+  @Get('export.csv')
+  @ApiProduces('text/csv')
+  @ApiOkResponse({ description: 'The entries the filters select, newest first, as CSV (attachment).' })
+  async exportCsv(@Query() query: ListAuditEntriesDto, @Res() response: Response): Promise<void> {
+    const body = await this.audit.exportCsv(query);
+    response.setHeader('Content-Type', 'text/csv; charset=utf-8');
+    response.setHeader('Content-Disposition', 'attachment; filename="audit-log.csv"');
+    response.send(body);
   }
 }

@@ -1,8 +1,29 @@
 import { Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
-import type { Transaction } from 'sequelize';
+import Papa from 'papaparse';
+import { Op, type Transaction, type WhereOptions } from 'sequelize';
+import type { AuditPage } from '@ladderwright/shared/api';
+import { isUuid } from '../common/uuid';
 import { AuditEntryModel } from './audit-entry.model';
-import type { AuditAction, AuditEntry, AuditRecord } from './audit.types';
+import type { AuditEntry, AuditRecord } from './audit.types';
+import type { ListAuditEntriesDto } from './dto/list-audit-entries.dto';
+
+/** The most rows one CSV export carries (a year of a busy team's entries). */
+export const AUDIT_EXPORT_MAX = 100_000;
+
+function whereOf(query: ListAuditEntriesDto): WhereOptions<AuditEntryModel> {
+  const conditions: WhereOptions<AuditEntryModel>[] = [];
+  if (query.action) conditions.push({ action: query.action });
+  const actor = query.actor?.trim();
+  if (actor) {
+    conditions.push(
+      isUuid(actor) ? { actorId: actor } : { actorEmail: { [Op.iLike]: `%${actor.replace(/[\\%_]/g, '\\$&')}%` } },
+    );
+  }
+  if (query.from) conditions.push({ occurredAt: { [Op.gte]: new Date(query.from) } });
+  if (query.to) conditions.push({ occurredAt: { [Op.lt]: new Date(query.to) } });
+  return { [Op.and]: conditions };
+}
 
 function toEntry(row: AuditEntryModel): AuditEntry {
   return {
@@ -41,16 +62,57 @@ export class AuditService {
     );
   }
 
-  /** Newest first. */
-  async list(query: { action?: AuditAction; limit?: number }): Promise<AuditEntry[]> {
-    const rows = await this.entries.findAll({
-      where: query.action ? { action: query.action } : {},
+  /** One page of entries matching the filters, newest first. */
+  async list(query: ListAuditEntriesDto): Promise<AuditPage> {
+    const page = query.page ?? 1;
+    const pageSize = query.pageSize ?? query.limit ?? 100;
+    const { rows, count } = await this.entries.findAndCountAll({
+      where: whereOf(query),
       order: [
         ['occurredAt', 'DESC'],
         ['id', 'ASC'],
       ],
-      limit: query.limit ?? 100,
+      limit: pageSize,
+      offset: (page - 1) * pageSize,
     });
-    return rows.map(toEntry);
+    return { items: rows.map(toEntry), total: count, page, pageSize };
+  }
+
+  /** Every entry matching the filters (at most AUDIT_EXPORT_MAX), newest first, as RFC 4180 CSV. */
+  async exportCsv(query: ListAuditEntriesDto): Promise<string> {
+    const rows = await this.entries.findAll({
+      where: whereOf(query),
+      order: [
+        ['occurredAt', 'DESC'],
+        ['id', 'ASC'],
+      ],
+      limit: AUDIT_EXPORT_MAX,
+    });
+    const entries = rows.map(toEntry);
+    return Papa.unparse(
+      {
+        fields: [
+          'occurredAt',
+          'action',
+          'actorEmail',
+          'actorId',
+          'subjectType',
+          'subjectId',
+          'detail',
+          'clientAddress',
+        ],
+        data: entries.map((entry) => [
+          entry.occurredAt,
+          entry.action,
+          entry.actorEmail ?? '',
+          entry.actorId ?? '',
+          entry.subjectType ?? '',
+          entry.subjectId ?? '',
+          JSON.stringify(entry.detail),
+          entry.clientAddress ?? '',
+        ]),
+      },
+      { newline: '\r\n', escapeFormulae: true },
+    );
   }
 }

@@ -6,6 +6,8 @@ import { APP_ENV, type AppEnv } from '../config/env';
 import { CurrentUser } from '../common/decorators/current-user.decorator';
 import { Public } from '../common/decorators/public.decorator';
 import type { AppRequest } from '../common/request.types';
+import { CompletePasswordResetDto } from '../users/dto/complete-password-reset.dto';
+import { UsersService } from '../users/users.service';
 import { AuthService } from './auth.service';
 import { SignInDto } from './dto/sign-in.dto';
 import { SESSION_COOKIE } from './jwt.strategy';
@@ -15,6 +17,7 @@ import { SESSION_COOKIE } from './jwt.strategy';
 export class AuthController {
   constructor(
     private readonly auth: AuthService,
+    private readonly users: UsersService,
     @Inject(APP_ENV) private readonly env: AppEnv,
   ) {}
 
@@ -49,6 +52,14 @@ export class AuthController {
   ): Promise<void> {
     await this.auth.signOutEverywhere(user.id, user.email, request.ip ?? 'unknown');
     response.clearCookie(SESSION_COOKIE, this.cookieOptions());
+  }
+
+  /** Sets a new password with the token of a one-time link an admin issued; ends the account's sessions. */
+  @Public()
+  @Post('password-reset')
+  @HttpCode(204)
+  async completePasswordReset(@Body() body: CompletePasswordResetDto): Promise<void> {
+    await this.users.completeReset(body.token, body.password, new Date());
   }
 
   @ApiCookieAuth()

@@ -16,9 +16,8 @@ import { ApiConsumes, ApiCookieAuth, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 import type { BenchRunDetail, BenchRunSummary, CurrentUser as SessionUser } from '@ladderwright/shared/api';
 import { CurrentUser } from '../common/decorators/current-user.decorator';
-import { ProjectMembership } from '../common/decorators/project-membership.decorator';
 import { RequiresProjectAction } from '../common/decorators/requires-permission.decorator';
-import type { ProjectMembership as Membership } from '../common/request.types';
+import { RevisionRef } from '../revisions/revision-ref.decorator';
 import { UploadLimitFilter } from '../storage/upload-limit.filter';
 import { BENCH_FILE_MAX_BYTES, BENCH_MAX_PHOTOS, type BenchUpload, BenchRunsService } from './bench-runs.service';
 import { UploadBenchRunDto } from './dto/upload-bench-run.dto';
@@ -43,45 +42,32 @@ export class BenchRunsController {
     ),
   )
   upload(
-    @ProjectMembership() membership: Membership,
+    @RevisionRef() ref: RevisionRef,
     @CurrentUser() user: SessionUser,
-    @Param('designId') designId: string,
-    @Param('revisionNumber') revisionNumber: string,
     @Body() body: UploadBenchRunDto,
     @UploadedFiles() files: BenchUpload | undefined,
   ): Promise<BenchRunDetail> {
-    return this.benchRuns.upload(membership.projectId, designId, revisionNumber, body, files ?? {}, user.id);
+    return this.benchRuns.upload({ ref, fields: body, upload: files ?? {}, userId: user.id });
   }
 
   @Get()
-  list(
-    @ProjectMembership() membership: Membership,
-    @Param('designId') designId: string,
-    @Param('revisionNumber') revisionNumber: string,
-  ): Promise<BenchRunSummary[]> {
-    return this.benchRuns.list(membership.projectId, designId, revisionNumber);
+  list(@RevisionRef() ref: RevisionRef): Promise<BenchRunSummary[]> {
+    return this.benchRuns.list(ref);
   }
 
   @Get(':benchRunId')
-  detail(
-    @ProjectMembership() membership: Membership,
-    @Param('designId') designId: string,
-    @Param('revisionNumber') revisionNumber: string,
-    @Param('benchRunId') benchRunId: string,
-  ): Promise<BenchRunDetail> {
-    return this.benchRuns.get(membership.projectId, designId, revisionNumber, benchRunId);
+  detail(@RevisionRef() ref: RevisionRef, @Param('benchRunId') benchRunId: string): Promise<BenchRunDetail> {
+    return this.benchRuns.get(ref, benchRunId);
   }
 
   @Get(':benchRunId/files/:fileId')
   async file(
-    @ProjectMembership() membership: Membership,
-    @Param('designId') designId: string,
-    @Param('revisionNumber') revisionNumber: string,
+    @RevisionRef() ref: RevisionRef,
     @Param('benchRunId') benchRunId: string,
     @Param('fileId') fileId: string,
     @Res() response: Response,
   ): Promise<void> {
-    const file = await this.benchRuns.file(membership.projectId, designId, revisionNumber, benchRunId, fileId);
+    const file = await this.benchRuns.file(ref, benchRunId, fileId);
     response.setHeader('Content-Type', file.contentType);
     response.setHeader('X-Content-Type-Options', 'nosniff');
     response.setHeader('Content-Disposition', `inline; filename="${file.fileName.replace(/[^\w.-]/g, '_')}"`);
@@ -92,12 +78,10 @@ export class BenchRunsController {
   @HttpCode(204)
   @RequiresProjectAction('bench.upload')
   async remove(
-    @ProjectMembership() membership: Membership,
+    @RevisionRef() ref: RevisionRef,
     @CurrentUser() user: SessionUser,
-    @Param('designId') designId: string,
-    @Param('revisionNumber') revisionNumber: string,
     @Param('benchRunId') benchRunId: string,
   ): Promise<void> {
-    await this.benchRuns.remove(membership.projectId, designId, revisionNumber, benchRunId, user.id);
+    await this.benchRuns.remove(ref, benchRunId, user.id);
   }
 }

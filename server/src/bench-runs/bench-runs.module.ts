@@ -1,7 +1,6 @@
 import { Module } from '@nestjs/common';
 import { SequelizeModule } from '@nestjs/sequelize';
-import { DesignModel } from '../designs/design.model';
-import { RevisionModel } from '../revisions/revision.model';
+import { RevisionsModule } from '../revisions/revisions.module';
 import { StorageModule } from '../storage/storage.module';
 import { BenchRunEventModel } from './bench-run-event.model';
 import { BenchRunFileModel } from './bench-run-file.model';
@@ -12,8 +11,9 @@ import { BenchRunsService } from './bench-runs.service';
 /** Exports BenchRunsService: `listForRevision` gives Sign-off and the spec sheet a revision's runs and verdicts. */
 @Module({
   imports: [
-    SequelizeModule.forFeature([BenchRunModel, BenchRunFileModel, BenchRunEventModel, DesignModel, RevisionModel]),
+    SequelizeModule.forFeature([BenchRunModel, BenchRunFileModel, BenchRunEventModel]),
     StorageModule,
+    RevisionsModule,
   ],
   controllers: [BenchRunsController],
   providers: [BenchRunsService],

@@ -11,8 +11,8 @@ import {
 } from '@ladderwright/shared/bench';
 import { DomainError } from '@ladderwright/shared/errors';
 import { isUuid } from '../common/uuid';
-import { DesignModel } from '../designs/design.model';
-import { RevisionModel } from '../revisions/revision.model';
+import { RevisionLookupService } from '../revisions/revision-lookup.service';
+import type { RevisionRef } from '../revisions/revision-ref.decorator';
 import { requireCsvText, requirePhoto } from '../storage/upload-checks';
 import { BLOB_STORE, type BlobStore, type UploadedFileData } from '../storage/storage.types';
 import { UserModel } from '../users/user.model';
@@ -42,13 +42,6 @@ function parseTolerance(text: string | undefined): number {
     );
   }
   return value;
-}
-
-function parseRevisionNumber(raw: string): number {
-  if (!/^\d{1,9}$/.test(raw) || Number(raw) < 1) {
-    throw new DomainError('invalid_argument', 'revisionNumber must be a positive integer', 'revisionNumber');
-  }
-  return Number(raw);
 }
 
 function toFile(file: BenchRunFileModel): BenchFile & { id: string } {
@@ -88,21 +81,20 @@ export class BenchRunsService {
     @InjectModel(BenchRunModel) private readonly runs: typeof BenchRunModel,
     @InjectModel(BenchRunFileModel) private readonly files: typeof BenchRunFileModel,
     @InjectModel(BenchRunEventModel) private readonly events: typeof BenchRunEventModel,
-    @InjectModel(DesignModel) private readonly designs: typeof DesignModel,
-    @InjectModel(RevisionModel) private readonly revisions: typeof RevisionModel,
+    private readonly lookup: RevisionLookupService,
     @Inject(BLOB_STORE) private readonly blobs: BlobStore,
     private readonly sequelize: Sequelize,
   ) {}
 
-  async upload(
-    projectId: string,
-    designId: string,
-    rawNumber: string,
-    fields: UploadBenchRunDto,
-    upload: BenchUpload,
-    userId: string,
-  ): Promise<BenchRunDetail> {
-    const revision = await this.findRevision(projectId, designId, rawNumber);
+  async upload(input: {
+    ref: RevisionRef;
+    fields: UploadBenchRunDto;
+    upload: BenchUpload;
+    userId: string;
+  }): Promise<BenchRunDetail> {
+    const { ref, fields, upload, userId } = input;
+    const { projectId } = ref;
+    const { revision } = await this.lookup.find(ref);
     const tolerance = parseTolerance(fields.tolerance);
     const dataFile = upload.data?.[0];
     const text = requireCsvText(dataFile, 'data');
@@ -163,11 +155,11 @@ export class BenchRunsService {
       );
       return run.id;
     });
-    return this.get(projectId, designId, rawNumber, id);
+    return this.get(ref, id);
   }
 
-  async list(projectId: string, designId: string, rawNumber: string): Promise<BenchRunSummary[]> {
-    const revision = await this.findRevision(projectId, designId, rawNumber);
+  async list(ref: RevisionRef): Promise<BenchRunSummary[]> {
+    const { revision } = await this.lookup.find(ref);
     return this.listForRevision(revision.designId, revision.number);
   }
 
@@ -184,34 +176,26 @@ export class BenchRunsService {
     return (await this.liveRuns(designId, revisionNumber)).map((run) => ({ ...toSummary(run), points: run.points }));
   }
 
-  async get(projectId: string, designId: string, rawNumber: string, benchRunId: string): Promise<BenchRunDetail> {
-    const run = await this.findRun(projectId, designId, rawNumber, benchRunId);
+  async get(ref: RevisionRef, benchRunId: string): Promise<BenchRunDetail> {
+    const run = await this.findRun(ref, benchRunId);
     return { ...toSummary(run), points: run.points, comparison: run.comparison, metadata: run.metadata };
   }
 
   /** The bytes of one file of a live bench run, with its stored type and name. */
   async file(
-    projectId: string,
-    designId: string,
-    rawNumber: string,
+    ref: RevisionRef,
     benchRunId: string,
     fileId: string,
   ): Promise<{ body: Buffer; contentType: string; fileName: string }> {
-    const run = await this.findRun(projectId, designId, rawNumber, benchRunId);
+    const run = await this.findRun(ref, benchRunId);
     const file = (run.files ?? []).find((candidate) => candidate.id === fileId);
     if (!file) throw new DomainError('not_found', 'File not found in this bench run', 'fileId');
     return { body: await this.blobs.get(file.storageKey), contentType: file.contentType, fileName: file.originalName };
   }
 
   /** Soft delete: the run leaves the lists, its rows and bytes stay, and a `deleted` event records who and what. */
-  async remove(
-    projectId: string,
-    designId: string,
-    rawNumber: string,
-    benchRunId: string,
-    userId: string,
-  ): Promise<void> {
-    const run = await this.findRun(projectId, designId, rawNumber, benchRunId);
+  async remove(ref: RevisionRef, benchRunId: string, userId: string): Promise<void> {
+    const run = await this.findRun(ref, benchRunId);
     await this.sequelize.transaction(async (transaction) => {
       await run.update({ deletedAt: new Date(), deletedBy: userId }, { transaction });
       await this.events.create(
@@ -238,24 +222,9 @@ export class BenchRunsService {
     });
   }
 
-  private async findRevision(projectId: string, designId: string, rawNumber: string): Promise<RevisionModel> {
-    const number = parseRevisionNumber(rawNumber);
-    const design = isUuid(designId)
-      ? await this.designs.findOne({ where: { id: designId, projectId }, attributes: ['id'] })
-      : null;
-    if (!design) throw new DomainError('not_found', 'Design not found', 'designId');
-    const revision = await this.revisions.findOne({ where: { designId, number } });
-    if (!revision) throw new DomainError('not_found', `Revision ${number} not found`, 'revisionNumber');
-    return revision;
-  }
-
-  private async findRun(
-    projectId: string,
-    designId: string,
-    rawNumber: string,
-    benchRunId: string,
-  ): Promise<BenchRunModel> {
-    const revision = await this.findRevision(projectId, designId, rawNumber);
+  private async findRun(ref: RevisionRef, benchRunId: string): Promise<BenchRunModel> {
+    const { projectId } = ref;
+    const { revision } = await this.lookup.find(ref);
     const run = isUuid(benchRunId)
       ? await this.runs.findOne({
           where: {

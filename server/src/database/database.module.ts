@@ -16,6 +16,7 @@ import { MailQueueModel } from '../mail/mail-queue.model';
 import { ReviewCommentModel } from '../reviews/review-comment.model';
 import { RevisionReviewerModel } from '../reviews/revision-reviewer.model';
 import { RevisionTransitionModel } from '../reviews/revision-transition.model';
+import { PasswordResetLinkModel } from '../users/password-reset-link.model';
 import { UserModel } from '../users/user.model';
 
 export const ALL_MODELS = [
@@ -25,6 +26,7 @@ export const ALL_MODELS = [
   RevisionTransitionModel,
   ReviewCommentModel,
   UserModel,
+  PasswordResetLinkModel,
   ProjectModel,
   ProjectMemberModel,
   DesignModel,

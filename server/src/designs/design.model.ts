@@ -1,6 +1,5 @@
-import { BelongsTo, Column, DataType, ForeignKey, HasMany, Model, Table } from 'sequelize-typescript';
+import { BelongsTo, Column, DataType, ForeignKey, Model, Table } from 'sequelize-typescript';
 import { ProjectModel } from '../projects/project.model';
-import { RevisionModel } from '../revisions/revision.model';
 import { UserModel } from '../users/user.model';
 
 export interface DesignAttrs {
@@ -41,9 +40,6 @@ export class DesignModel extends Model<DesignAttrs, DesignCreationAttrs> {
 
   @BelongsTo(() => UserModel)
   owner?: UserModel;
-
-  @HasMany(() => RevisionModel)
-  revisions?: RevisionModel[];
 
   override createdAt: Date;
   override updatedAt: Date;

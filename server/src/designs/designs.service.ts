@@ -14,6 +14,8 @@ import { DomainError } from '@ladderwright/shared/errors';
 import type { RevisionState } from '@ladderwright/shared/reviews';
 import { AnalysisService } from '../analysis/analysis.service';
 import { blankDocument } from '../analysis/design-templates';
+import { ProjectsService } from '../projects/projects.service';
+import { RevisionLookupService } from '../revisions/revision-lookup.service';
 import { RevisionsService } from '../revisions/revisions.service';
 import { DesignModel } from './design.model';
 import type { ListDesignsDto } from './dto/list-designs.dto';
@@ -62,6 +64,8 @@ export class DesignsService {
   constructor(
     @InjectModel(DesignModel) private readonly designs: typeof DesignModel,
     private readonly revisions: RevisionsService,
+    private readonly lookup: RevisionLookupService,
+    private readonly projects: ProjectsService,
     private readonly analysis: AnalysisService,
     private readonly sequelize: Sequelize,
   ) {}
@@ -96,7 +100,7 @@ export class DesignsService {
   }
 
   async detail(projectId: string, designId: string): Promise<DesignDetail> {
-    const design = await this.revisions.findDesign(projectId, designId);
+    const design = await this.lookup.findDesign(projectId, designId);
     const [row] = await this.sequelize.query<SummaryRow>(`${SUMMARY_SELECT} WHERE d.id = :id`, {
       replacements: { id: design.id },
       type: QueryTypes.SELECT,
@@ -113,21 +117,28 @@ export class DesignsService {
   async create(projectId: string, request: CreateDesignRequest, ownerId: string): Promise<DesignDetail> {
     const name = request.name.trim();
     if (!name) throw new DomainError('invalid_argument', 'name must not be empty', 'name');
+    const defaultTargets =
+      request.from.kind === 'blank' ? (await this.projects.settings(projectId)).defaultTargets : {};
     const source = await designSourceDocument(request.from, {
-      blank: () => blankDocument(name),
+      blank: () => {
+        const blank = blankDocument(name);
+        return { ...blank, targets: { ...blank.targets, ...defaultTargets } };
+      },
       template: (id) => this.analysis.template(id)?.document ?? null,
       revision: async (designId, revisionNumber) => {
-        const design = await this.revisions.findDesign(projectId, designId).catch((error: unknown) => {
+        const design = await this.lookup.findDesign(projectId, designId).catch((error: unknown) => {
           throw error instanceof DomainError
             ? new DomainError('not_found', 'Design not found', 'from.designId')
             : error;
         });
         const number = revisionNumber ?? design.latestRevisionNumber;
-        const revision = await this.revisions.get(projectId, design.id, String(number)).catch((error: unknown) => {
-          throw error instanceof DomainError
-            ? new DomainError('not_found', `Revision ${number} not found`, 'from.revisionNumber')
-            : error;
-        });
+        const revision = await this.revisions
+          .get({ projectId, designId: design.id, revisionNumber: number })
+          .catch((error: unknown) => {
+            throw error instanceof DomainError
+              ? new DomainError('not_found', `Revision ${number} not found`, 'from.revisionNumber')
+              : error;
+          });
         return revision.document;
       },
       parse: (document) => this.analysis.parseDocument(document, 'from.document'),

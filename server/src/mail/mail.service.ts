@@ -80,12 +80,28 @@ export class MailService implements OnApplicationBootstrap, OnApplicationShutdow
     this.transport?.close();
   }
 
-  /** Queues mail inside `transaction`. Recipients are de-duplicated; a mail left with none is dropped. */
+  /**
+   * Queues mail inside `transaction`. Recipients are de-duplicated; accounts that opted out of the mail's kind
+   * (notification settings) or are deactivated are left out; a mail left with no recipient is dropped.
+   */
   async enqueue(mails: OutgoingMail[], transaction: Transaction): Promise<void> {
-    const rows = mails
-      .map((mail) => ({ ...mail, recipients: [...new Set(mail.recipients.map((r) => r.toLowerCase()))] }))
-      .filter((mail) => mail.recipients.length > 0);
+    const rows: OutgoingMail[] = [];
+    for (const mail of mails) {
+      const recipients = [...new Set(mail.recipients.map((r) => r.toLowerCase()))];
+      const excluded = recipients.length > 0 ? await this.excludedRecipients(recipients, mail.kind, transaction) : [];
+      const kept = recipients.filter((recipient) => !excluded.includes(recipient));
+      if (kept.length > 0) rows.push({ ...mail, recipients: kept });
+    }
     if (rows.length > 0) await this.queue.bulkCreate(rows, { transaction });
+  }
+
+  /** Of `emails`, the accounts that opted out of `kind` or are deactivated. */
+  private async excludedRecipients(emails: string[], kind: string, transaction: Transaction): Promise<string[]> {
+    const rows = await this.sequelize.query<{ email: string }>(
+      `SELECT email FROM users WHERE email IN (:emails) AND (NOT is_active OR mail_opt_outs @> jsonb_build_array(CAST(:kind AS text)))`,
+      { replacements: { emails, kind }, type: QueryTypes.SELECT, transaction },
+    );
+    return rows.map((row) => row.email);
   }
 
   /** Starts a delivery round soon, unless one is running (call after the enqueuing transaction commits). */

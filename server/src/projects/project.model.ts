@@ -1,11 +1,14 @@
-import { Column, DataType, HasMany, Model, Table } from 'sequelize-typescript';
-import { ProjectMemberModel } from './project-member.model';
+import { Column, DataType, Model, Table } from 'sequelize-typescript';
+import type { ProjectSettings } from '@ladderwright/shared/api';
 
 export interface ProjectAttrs {
   id: string;
   name: string;
   productLine: string;
   description: string;
+  /** Set when a lead archived the project: it stays readable and takes no more changes. */
+  archivedAt: Date | null;
+  settings: Partial<ProjectSettings>;
   createdAt: Date;
   updatedAt: Date;
 }
@@ -27,8 +30,11 @@ export class ProjectModel extends Model<ProjectAttrs, ProjectCreationAttrs> {
   @Column({ type: DataType.TEXT, allowNull: false, defaultValue: '' })
   description: string;
 
-  @HasMany(() => ProjectMemberModel)
-  members?: ProjectMemberModel[];
+  @Column({ type: DataType.DATE, allowNull: true })
+  archivedAt: Date | null;
+
+  @Column({ type: DataType.JSONB, allowNull: false, defaultValue: {} })
+  settings: Partial<ProjectSettings>;
 
   override createdAt: Date;
   override updatedAt: Date;

@@ -1,4 +1,4 @@
-import { Body, Controller, Delete, Get, HttpCode, Param, Post } from '@nestjs/common';
+import { Body, Controller, Delete, Get, HttpCode, Param, Patch, Post } from '@nestjs/common';
 import { ApiCookieAuth, ApiTags } from '@nestjs/swagger';
 import type {
   CurrentUser as SessionUser,
@@ -11,7 +11,9 @@ import { ProjectMembership } from '../common/decorators/project-membership.decor
 import { RequiresAppAction, RequiresProjectAction } from '../common/decorators/requires-permission.decorator';
 import type { ProjectMembership as Membership } from '../common/request.types';
 import { AddMemberDto } from './dto/add-member.dto';
+import { ChangeMemberRoleDto } from './dto/change-member-role.dto';
 import { CreateProjectDto } from './dto/create-project.dto';
+import { UpdateProjectDto } from './dto/update-project.dto';
 import { ProjectsService } from './projects.service';
 
 @ApiTags('projects')
@@ -36,6 +38,23 @@ export class ProjectsController {
     return this.projects.detail(membership.projectId, membership.role);
   }
 
+  @Patch(':projectId')
+  @RequiresProjectAction('members.manage')
+  update(
+    @ProjectMembership() membership: Membership,
+    @CurrentUser() actor: SessionUser,
+    @Body() body: UpdateProjectDto,
+  ): Promise<ProjectDetail> {
+    return this.projects.update(membership.projectId, body, actor);
+  }
+
+  @Post(':projectId/archive')
+  @HttpCode(204)
+  @RequiresProjectAction('members.manage')
+  async archive(@ProjectMembership() membership: Membership, @CurrentUser() actor: SessionUser): Promise<void> {
+    await this.projects.archive(membership.projectId, actor);
+  }
+
   @Get(':projectId/members')
   members(@ProjectMembership() membership: Membership): Promise<ProjectMember[]> {
     return this.projects.listMembers(membership.projectId);
@@ -49,6 +68,17 @@ export class ProjectsController {
     @Body() body: AddMemberDto,
   ): Promise<ProjectMember> {
     return this.projects.addMember(membership.projectId, body, actor);
+  }
+
+  @Patch(':projectId/members/:userId')
+  @RequiresProjectAction('members.manage')
+  changeMemberRole(
+    @ProjectMembership() membership: Membership,
+    @CurrentUser() actor: SessionUser,
+    @Param('userId') userId: string,
+    @Body() body: ChangeMemberRoleDto,
+  ): Promise<ProjectMember> {
+    return this.projects.changeMemberRole(membership.projectId, userId, body, actor);
   }
 
   @Delete(':projectId/members/:userId')

@@ -4,20 +4,31 @@ import type { Transaction } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import type {
   AddMemberRequest,
+  ChangeMemberRoleRequest,
   CurrentUser,
   CreateProjectRequest,
   ProjectDetail,
   ProjectMember,
+  ProjectSettings,
   ProjectSummary,
+  UpdateProjectRequest,
 } from '@ladderwright/shared/api';
 import type { ProjectRole } from '@ladderwright/shared/auth';
 import { DomainError } from '@ladderwright/shared/errors';
+import { DEFAULT_ACCEPTANCE_SETTINGS } from '@ladderwright/shared/reviews';
 import { AuditService } from '../audit/audit.service';
 import { isUuid } from '../common/uuid';
 import { UserModel } from '../users/user.model';
 import { UsersService } from '../users/users.service';
 import { ProjectMemberModel } from './project-member.model';
 import { ProjectModel } from './project.model';
+
+function settingsOf(stored: Partial<ProjectSettings>): ProjectSettings {
+  return {
+    defaultTargets: { ...(stored.defaultTargets ?? {}) },
+    acceptance: { ...DEFAULT_ACCEPTANCE_SETTINGS, ...(stored.acceptance ?? {}) },
+  };
+}
 
 function toMember(member: ProjectMemberModel): ProjectMember {
   const user = member.user;
@@ -35,10 +46,88 @@ export class ProjectsService {
     private readonly audit: AuditService,
   ) {}
 
-  async findMemberRole(projectId: string, userId: string): Promise<ProjectRole | null> {
+  /** The user's role in the project and whether the project is archived; null for a non-member. */
+  async findMemberStanding(
+    projectId: string,
+    userId: string,
+  ): Promise<{ role: ProjectRole; isArchived: boolean } | null> {
     if (!isUuid(projectId) || !isUuid(userId)) return null;
-    const member = await this.members.findOne({ where: { projectId, userId }, attributes: ['role'] });
-    return member?.role ?? null;
+    const member = await this.members.findOne({
+      where: { projectId, userId },
+      attributes: ['role'],
+      include: [{ model: ProjectModel, attributes: ['archivedAt'] }],
+    });
+    return member ? { role: member.role, isArchived: (member.project?.archivedAt ?? null) !== null } : null;
+  }
+
+  /** The project's settings with the defaults filled in. */
+  async settings(projectId: string): Promise<ProjectSettings> {
+    const project = await this.projects.findByPk(projectId, { attributes: ['settings'] });
+    return settingsOf(project?.settings ?? {});
+  }
+
+  /** Name, description, default targets and acceptance window; each change is audited with its fields. */
+  async update(projectId: string, request: UpdateProjectRequest, actor: CurrentUser): Promise<ProjectDetail> {
+    await this.sequelize.transaction(async (transaction) => {
+      const project = await this.projects.findByPk(projectId, { transaction, lock: transaction.LOCK.UPDATE });
+      if (!project) throw new DomainError('not_found', 'Project not found', 'projectId');
+      const changed: string[] = [];
+      if (request.name !== undefined && request.name.trim() !== project.name) {
+        project.name = request.name.trim();
+        changed.push('name');
+      }
+      if (request.description !== undefined && request.description.trim() !== project.description) {
+        project.description = request.description.trim();
+        changed.push('description');
+      }
+      const settings = settingsOf(project.settings);
+      if (request.defaultTargets !== undefined) {
+        settings.defaultTargets = { ...request.defaultTargets };
+        changed.push('defaultTargets');
+      }
+      if (request.acceptance !== undefined) {
+        settings.acceptance = { ...request.acceptance };
+        changed.push('acceptance');
+      }
+      project.settings = settings;
+      await project.save({ transaction });
+      if (changed.length > 0) {
+        await this.audit.record(
+          {
+            action: 'project.settings_changed',
+            actorId: actor.id,
+            actorEmail: actor.email,
+            subjectType: 'project',
+            subjectId: projectId,
+            detail: { changed, settings },
+          },
+          transaction,
+        );
+      }
+    });
+    const role = (await this.findMemberStanding(projectId, actor.id))?.role ?? 'lead';
+    return this.detail(projectId, role);
+  }
+
+  /** Archives the project: it stays listed and readable and takes no more changes. */
+  async archive(projectId: string, actor: CurrentUser): Promise<void> {
+    await this.sequelize.transaction(async (transaction) => {
+      const project = await this.projects.findByPk(projectId, { transaction, lock: transaction.LOCK.UPDATE });
+      if (!project) throw new DomainError('not_found', 'Project not found', 'projectId');
+      project.archivedAt = new Date();
+      await project.save({ transaction });
+      await this.audit.record(
+        {
+          action: 'project.archived',
+          actorId: actor.id,
+          actorEmail: actor.email,
+          subjectType: 'project',
+          subjectId: projectId,
+          detail: { name: project.name },
+        },
+        transaction,
+      );
+    });
   }
 
   /** The projects `userId` is a member of, with that user's role and the member count. */
@@ -51,14 +140,14 @@ export class ProjectsService {
         if (!project) throw new Error('membership loaded without its project');
         return this.toSummary(project, row.role, counts.get(project.id) ?? 0);
       })
-      .sort((a, b) => a.name.localeCompare(b.name));
+      .sort((a, b) => Number(a.isArchived) - Number(b.isArchived) || a.name.localeCompare(b.name));
   }
 
   async detail(projectId: string, myRole: ProjectRole): Promise<ProjectDetail> {
     const project = await this.projects.findByPk(projectId);
     if (!project) throw new DomainError('not_found', 'Project not found', 'projectId');
     const members = await this.listMembers(projectId);
-    return { ...this.toSummary(project, myRole, members.length), members };
+    return { ...this.toSummary(project, myRole, members.length), members, settings: settingsOf(project.settings) };
   }
 
   async listMembers(projectId: string): Promise<ProjectMember[]> {
@@ -80,6 +169,20 @@ export class ProjectsService {
       await this.members.create({ projectId: project.id, userId: creatorId, role: 'lead' }, { transaction });
       return this.toSummary(project, 'lead', 1);
     });
+  }
+
+  /** Changes a member's project role; the last lead keeps the lead role (409). */
+  async changeMemberRole(
+    projectId: string,
+    userId: string,
+    request: ChangeMemberRoleRequest,
+    actor: CurrentUser,
+  ): Promise<ProjectMember> {
+    const member = isUuid(userId)
+      ? await this.members.findOne({ where: { projectId, userId }, include: [UserModel] })
+      : null;
+    if (!member?.user) throw new DomainError('not_found', 'This account is not a member of the project', 'userId');
+    return this.addMember(projectId, { email: member.user.email, role: request.role }, actor);
   }
 
   /** Adds the account with `request.email` to the project, or changes its role when already a member. */
@@ -172,6 +275,7 @@ export class ProjectsService {
       description: project.description,
       myRole,
       memberCount,
+      isArchived: project.archivedAt !== null,
     };
   }
 }

@@ -1,7 +1,7 @@
 import { Injectable } from '@nestjs/common';
 import { QueryTypes } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
-import type { Inbox, InboxItem } from '@ladderwright/shared/api';
+import type { Inbox, InboxComment, InboxItem } from '@ladderwright/shared/api';
 import type { RevisionState } from '@ladderwright/shared/reviews';
 
 interface InboxRow {
@@ -17,6 +17,20 @@ interface InboxRow {
   updated_at: Date;
 }
 
+interface CommentRow {
+  project_id: string;
+  project_name: string;
+  design_id: string;
+  design_name: string;
+  number: number;
+  comment_id: string;
+  author_name: string;
+  body: string;
+  at: Date;
+}
+
+const INBOX_LIMIT = 200;
+
 const SELECT_ITEMS = `
   SELECT p.id AS project_id, p.name AS project_name, d.id AS design_id, d.name AS design_name, r.number, r.state,
          a.display_name AS author_name,
@@ -29,6 +43,22 @@ const SELECT_ITEMS = `
     JOIN projects p ON p.id = d.project_id
     JOIN users a ON a.id = r.author_id
     JOIN project_members me ON me.project_id = p.id AND me.user_id = :userId`;
+
+/** Open threads on revisions of designs I own or revisions I wrote, whose latest comment is someone else's. */
+const SELECT_COMMENTS = `
+  SELECT p.id AS project_id, p.name AS project_name, d.id AS design_id, d.name AS design_name, r.number,
+         c.id AS comment_id, la.display_name AS author_name, last.body, last.created_at AS at
+    FROM review_comments c
+    JOIN revisions r ON r.id = c.revision_id
+    JOIN designs d ON d.id = r.design_id
+    JOIN projects p ON p.id = d.project_id
+    JOIN project_members me ON me.project_id = p.id AND me.user_id = :userId
+    JOIN LATERAL (SELECT x.author_id, x.body, x.created_at FROM review_comments x
+                   WHERE x.id = c.id OR x.parent_id = c.id ORDER BY x.created_at DESC LIMIT 1) last ON true
+    JOIN users la ON la.id = last.author_id
+   WHERE c.parent_id IS NULL AND c.resolved_at IS NULL AND p.archived_at IS NULL
+     AND (d.owner_id = :userId OR r.author_id = :userId) AND last.author_id <> :userId
+   ORDER BY last.created_at DESC LIMIT ${INBOX_LIMIT}`;
 
 function toItem(row: InboxRow): InboxItem {
   return {
@@ -45,28 +75,56 @@ function toItem(row: InboxRow): InboxItem {
   };
 }
 
-/** What waits for the signed-in user and what they submitted, across the projects they still belong to. */
+function toComment(row: CommentRow): InboxComment {
+  return {
+    projectId: row.project_id,
+    projectName: row.project_name,
+    designId: row.design_id,
+    designName: row.design_name,
+    revisionNumber: row.number,
+    commentId: row.comment_id,
+    authorName: row.author_name,
+    excerpt: row.body.slice(0, 200),
+    at: new Date(row.at).toISOString(),
+  };
+}
+
+/** What waits for the signed-in user, by role, and what they submitted, across the projects they belong to. */
 @Injectable()
 export class InboxService {
   constructor(private readonly sequelize: Sequelize) {}
 
   async forUser(userId: string): Promise<Inbox> {
-    const [waiting, submitted] = await Promise.all([
-      this.sequelize.query<InboxRow>(
-        `${SELECT_ITEMS}
-          WHERE r.state = 'submitted'
-            AND EXISTS (SELECT 1 FROM revision_reviewers rr WHERE rr.revision_id = r.id AND rr.user_id = :userId)
-          ORDER BY submitted_at ASC NULLS LAST LIMIT 200`,
-        { replacements: { userId }, type: QueryTypes.SELECT },
-      ),
-      this.sequelize.query<InboxRow>(
-        `${SELECT_ITEMS}
-          WHERE r.author_id = :userId
-            AND EXISTS (SELECT 1 FROM revision_transitions t WHERE t.revision_id = r.id AND t.command = 'submit')
-          ORDER BY r.updated_at DESC LIMIT 200`,
-        { replacements: { userId }, type: QueryTypes.SELECT },
-      ),
+    const items = (where: string) =>
+      this.sequelize
+        .query<InboxRow>(`${SELECT_ITEMS} ${where} LIMIT ${INBOX_LIMIT}`, {
+          replacements: { userId },
+          type: QueryTypes.SELECT,
+        })
+        .then((rows) => rows.map(toItem));
+    const [waitingForMe, returnedToMe, awaitingRelease, submittedByMe, newComments] = await Promise.all([
+      items(`WHERE r.state = 'submitted' AND p.archived_at IS NULL
+               AND EXISTS (SELECT 1 FROM revision_reviewers rr WHERE rr.revision_id = r.id AND rr.user_id = :userId)
+             ORDER BY submitted_at ASC NULLS LAST`),
+      items(`WHERE r.state = 'returned' AND r.author_id = :userId AND p.archived_at IS NULL
+               AND r.number = d.latest_revision_number
+             ORDER BY r.updated_at DESC`),
+      items(`WHERE r.state = 'approved' AND me.role = 'lead' AND p.archived_at IS NULL
+             ORDER BY r.updated_at ASC`),
+      items(`WHERE r.author_id = :userId
+               AND EXISTS (SELECT 1 FROM revision_transitions t WHERE t.revision_id = r.id AND t.command = 'submit')
+             ORDER BY r.updated_at DESC`),
+      this.sequelize
+        .query<CommentRow>(SELECT_COMMENTS, { replacements: { userId }, type: QueryTypes.SELECT })
+        .then((rows) => rows.map(toComment)),
     ]);
-    return { waitingForMe: waiting.map(toItem), submittedByMe: submitted.map(toItem) };
+    return {
+      waitingForMe,
+      returnedToMe,
+      awaitingRelease,
+      newComments,
+      submittedByMe,
+      actionCount: waitingForMe.length + returnedToMe.length + awaitingRelease.length + newComments.length,
+    };
   }
 }

@@ -7,6 +7,8 @@ import { DomainError } from '@ladderwright/shared/errors';
 import { isUuid } from '../common/uuid';
 import { MailService } from '../mail/mail.service';
 import { ProjectMemberModel } from '../projects/project-member.model';
+import { RevisionLookupService } from '../revisions/revision-lookup.service';
+import type { RevisionRef } from '../revisions/revision-ref.decorator';
 import { UserModel } from '../users/user.model';
 import { hasPath } from './document-path';
 import { ReviewCommentModel } from './review-comment.model';
@@ -38,26 +40,22 @@ export class ReviewCommentsService {
     @InjectModel(RevisionReviewerModel) private readonly reviewers: typeof RevisionReviewerModel,
     @InjectModel(ProjectMemberModel) private readonly members: typeof ProjectMemberModel,
     private readonly signOff: SignOffService,
+    private readonly lookup: RevisionLookupService,
     private readonly mail: MailService,
     private readonly sequelize: Sequelize,
   ) {}
 
-  async list(projectId: string, designId: string, rawNumber: string): Promise<ReviewComment[]> {
-    const { revision } = await this.signOff.load(projectId, designId, rawNumber);
+  async list(ref: RevisionRef): Promise<ReviewComment[]> {
+    const { revision } = await this.lookup.find(ref);
     return this.threadsOf(revision.id);
   }
 
-  async create(
-    projectId: string,
-    designId: string,
-    rawNumber: string,
-    request: CreateCommentRequest,
-    user: CurrentUser,
-  ): Promise<ReviewComment> {
+  async create(ref: RevisionRef, request: CreateCommentRequest, user: CurrentUser): Promise<ReviewComment> {
+    const { projectId } = ref;
     const body = request.body.trim();
     if (!body) throw new DomainError('invalid_argument', 'body must not be empty', 'body');
     const id = await this.sequelize.transaction(async (transaction) => {
-      const { design, revision } = await this.signOff.load(projectId, designId, rawNumber, transaction);
+      const { design, revision } = await this.lookup.find(ref, transaction);
       let threadId: string | null = null;
       if (request.parentId !== undefined) {
         const parent = await this.comments.findOne({
@@ -126,15 +124,14 @@ export class ReviewCommentsService {
   }
 
   /** Resolves or reopens a thread (its first comment). */
-  async setResolved(
-    projectId: string,
-    designId: string,
-    rawNumber: string,
-    commentId: string,
-    isResolved: boolean,
-    user: CurrentUser,
-  ): Promise<ReviewComment> {
-    const { revision } = await this.signOff.load(projectId, designId, rawNumber);
+  async setResolved(input: {
+    ref: RevisionRef;
+    commentId: string;
+    isResolved: boolean;
+    user: CurrentUser;
+  }): Promise<ReviewComment> {
+    const { commentId, isResolved, user } = input;
+    const { revision } = await this.lookup.find(input.ref);
     const comment = isUuid(commentId)
       ? await this.comments.findOne({ where: { id: commentId, revisionId: revision.id } })
       : null;

@@ -1,22 +1,25 @@
-import { Body, Controller, Get, Param, Patch, Post } from '@nestjs/common';
+import { Body, Controller, Get, Param, Patch, Post, UseFilters } from '@nestjs/common';
 import { ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import type { CurrentUser as SessionUser, ReviewComment, SignOff } from '@ladderwright/shared/api';
 import { CurrentUser } from '../common/decorators/current-user.decorator';
 import { ProjectMembership } from '../common/decorators/project-membership.decorator';
 import { RequiresProjectAction } from '../common/decorators/requires-permission.decorator';
 import type { ProjectMembership as Membership } from '../common/request.types';
+import { RevisionRef } from '../revisions/revision-ref.decorator';
 import { CreateCommentDto } from './dto/create-comment.dto';
 import { ReturnRevisionDto } from './dto/return-revision.dto';
 import { SignOffNoteDto } from './dto/sign-off-note.dto';
 import { SubmitRevisionDto } from './dto/submit-revision.dto';
 import { UpdateCommentDto } from './dto/update-comment.dto';
+import { GatesClosedFilter } from './gates-closed.filter';
 import { ReviewCommentsService } from './review-comments.service';
 import { SignOffCommand } from './sign-off-command.decorator';
-import { SignOffService, type UserCommand } from './sign-off.service';
+import { SignOffService, type TransitionInput } from './sign-off.service';
 
 @ApiTags('sign-off')
 @ApiCookieAuth()
 @Controller('projects/:projectId/designs/:designId/revisions/:revisionNumber')
+@UseFilters(GatesClosedFilter)
 export class ReviewsController {
   constructor(
     private readonly signOff: SignOffService,
@@ -24,123 +27,99 @@ export class ReviewsController {
   ) {}
 
   @Get('sign-off')
-  @ApiOkResponse({ description: 'State, reviewers, approvals, audit history and the commands open to the caller.' })
+  @ApiOkResponse({
+    description: 'State, reviewers, approvals, history, gate reasons, overrides and the commands open to the caller.',
+  })
   get(
+    @RevisionRef() ref: RevisionRef,
     @ProjectMembership() membership: Membership,
     @CurrentUser() user: SessionUser,
-    @Param('designId') designId: string,
-    @Param('revisionNumber') revisionNumber: string,
   ): Promise<SignOff> {
-    return this.signOff.get(membership.projectId, designId, revisionNumber, user, membership);
+    return this.signOff.get(ref, user, membership);
   }
 
   @SignOffCommand('submit', 'revision.submit')
   submit(
+    @RevisionRef() ref: RevisionRef,
     @ProjectMembership() membership: Membership,
     @CurrentUser() user: SessionUser,
-    @Param('designId') designId: string,
-    @Param('revisionNumber') revisionNumber: string,
     @Body() body: SubmitRevisionDto,
   ): Promise<SignOff> {
-    return this.run('submit', membership, user, designId, revisionNumber, body.note, body.reviewerIds);
+    return this.run({ command: 'submit', ref, membership, user, ...body });
   }
 
   @SignOffCommand('withdraw', 'revision.submit')
   withdraw(
+    @RevisionRef() ref: RevisionRef,
     @ProjectMembership() membership: Membership,
     @CurrentUser() user: SessionUser,
-    @Param('designId') designId: string,
-    @Param('revisionNumber') revisionNumber: string,
     @Body() body: SignOffNoteDto,
   ): Promise<SignOff> {
-    return this.run('withdraw', membership, user, designId, revisionNumber, body.note);
+    return this.run({ command: 'withdraw', ref, membership, user, ...withoutOverride(body) });
   }
 
   @SignOffCommand('approve', 'review.decide')
   approve(
+    @RevisionRef() ref: RevisionRef,
     @ProjectMembership() membership: Membership,
     @CurrentUser() user: SessionUser,
-    @Param('designId') designId: string,
-    @Param('revisionNumber') revisionNumber: string,
     @Body() body: SignOffNoteDto,
   ): Promise<SignOff> {
-    return this.run('approve', membership, user, designId, revisionNumber, body.note);
+    return this.run({ command: 'approve', ref, membership, user, ...body });
   }
 
   @SignOffCommand('return', 'review.decide')
   returnRevision(
+    @RevisionRef() ref: RevisionRef,
     @ProjectMembership() membership: Membership,
     @CurrentUser() user: SessionUser,
-    @Param('designId') designId: string,
-    @Param('revisionNumber') revisionNumber: string,
     @Body() body: ReturnRevisionDto,
   ): Promise<SignOff> {
-    return this.run('return', membership, user, designId, revisionNumber, body.note);
+    return this.run({ command: 'return', ref, membership, user, note: body.note });
   }
 
   @SignOffCommand('release', 'revision.release')
   release(
+    @RevisionRef() ref: RevisionRef,
     @ProjectMembership() membership: Membership,
     @CurrentUser() user: SessionUser,
-    @Param('designId') designId: string,
-    @Param('revisionNumber') revisionNumber: string,
     @Body() body: SignOffNoteDto,
   ): Promise<SignOff> {
-    return this.run('release', membership, user, designId, revisionNumber, body.note);
+    return this.run({ command: 'release', ref, membership, user, ...body });
   }
 
   @Get('comments')
-  listComments(
-    @ProjectMembership() membership: Membership,
-    @Param('designId') designId: string,
-    @Param('revisionNumber') revisionNumber: string,
-  ): Promise<ReviewComment[]> {
-    return this.comments.list(membership.projectId, designId, revisionNumber);
+  listComments(@RevisionRef() ref: RevisionRef): Promise<ReviewComment[]> {
+    return this.comments.list(ref);
   }
 
   @Post('comments')
   @RequiresProjectAction('review.comment')
   createComment(
-    @ProjectMembership() membership: Membership,
+    @RevisionRef() ref: RevisionRef,
     @CurrentUser() user: SessionUser,
-    @Param('designId') designId: string,
-    @Param('revisionNumber') revisionNumber: string,
     @Body() body: CreateCommentDto,
   ): Promise<ReviewComment> {
-    return this.comments.create(membership.projectId, designId, revisionNumber, body, user);
+    return this.comments.create(ref, body, user);
   }
 
   @Patch('comments/:commentId')
   @RequiresProjectAction('review.comment')
   updateComment(
-    @ProjectMembership() membership: Membership,
+    @RevisionRef() ref: RevisionRef,
     @CurrentUser() user: SessionUser,
-    @Param('designId') designId: string,
-    @Param('revisionNumber') revisionNumber: string,
     @Param('commentId') commentId: string,
     @Body() body: UpdateCommentDto,
   ): Promise<ReviewComment> {
-    return this.comments.setResolved(membership.projectId, designId, revisionNumber, commentId, body.isResolved, user);
+    return this.comments.setResolved({ ref, commentId, isResolved: body.isResolved, user });
   }
 
-  private run(
-    command: UserCommand,
-    membership: Membership,
-    user: SessionUser,
-    designId: string,
-    rawNumber: string,
-    note?: string,
-    reviewerIds?: string[],
-  ): Promise<SignOff> {
-    return this.signOff.transition({
-      command,
-      projectId: membership.projectId,
-      designId,
-      rawNumber,
-      user,
-      membership,
-      ...(note !== undefined ? { note } : {}),
-      ...(reviewerIds !== undefined ? { reviewerIds } : {}),
-    });
+  private run(input: TransitionInput): Promise<SignOff> {
+    return this.signOff.transition(input);
   }
+}
+
+/** Withdraw is never gated: an override sent with it is ignored rather than recorded. */
+function withoutOverride(body: SignOffNoteDto): { note?: string } {
+  return body.note !== undefined ? { note: body.note } : {};
 }

@@ -1,6 +1,5 @@
 import { BelongsTo, Column, DataType, ForeignKey, Model, Table } from 'sequelize-typescript';
-import type { RevisionCommand, RevisionState } from '@ladderwright/shared/reviews';
-import { RevisionModel } from '../revisions/revision.model';
+import type { GateReason, RevisionCommand, RevisionState } from '@ladderwright/shared/reviews';
 import { UserModel } from '../users/user.model';
 
 export interface RevisionTransitionAttrs {
@@ -11,10 +10,17 @@ export interface RevisionTransitionAttrs {
   toState: RevisionState;
   actorId: string | null;
   note: string;
+  /** Set when the actor went past closed gates: their reason and the gate reasons then in force. */
+  overrideReason: string | null;
+  overridden: GateReason[] | null;
   createdAt: Date;
 }
 
-export type RevisionTransitionCreationAttrs = Omit<RevisionTransitionAttrs, 'id' | 'createdAt'>;
+export type RevisionTransitionCreationAttrs = Omit<
+  RevisionTransitionAttrs,
+  'id' | 'createdAt' | 'overrideReason' | 'overridden'
+> &
+  Partial<Pick<RevisionTransitionAttrs, 'overrideReason' | 'overridden'>>;
 
 /** One audit entry of the Sign-off (append-only: a trigger refuses UPDATE). */
 @Table({ tableName: 'revision_transitions', underscored: true, timestamps: true, updatedAt: false })
@@ -22,7 +28,6 @@ export class RevisionTransitionModel extends Model<RevisionTransitionAttrs, Revi
   @Column({ type: DataType.UUID, primaryKey: true, defaultValue: DataType.UUIDV4 })
   override id: string;
 
-  @ForeignKey(() => RevisionModel)
   @Column({ type: DataType.UUID, allowNull: false })
   revisionId: string;
 
@@ -42,8 +47,11 @@ export class RevisionTransitionModel extends Model<RevisionTransitionAttrs, Revi
   @Column({ type: DataType.TEXT, allowNull: false, defaultValue: '' })
   note: string;
 
-  @BelongsTo(() => RevisionModel, { onDelete: 'CASCADE' })
-  revision?: RevisionModel;
+  @Column({ type: DataType.TEXT, allowNull: true })
+  overrideReason: string | null;
+
+  @Column({ type: DataType.JSONB, allowNull: true })
+  overridden: GateReason[] | null;
 
   @BelongsTo(() => UserModel)
   actor?: UserModel;

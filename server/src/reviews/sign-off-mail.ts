@@ -35,6 +35,8 @@ export function transitionMail(input: {
   note: string;
   recipients: string[];
   supersededNumber?: number | null;
+  /** Set when the actor went past closed gates. */
+  override?: { reason: string; overridden: string[] } | null;
 }): OutgoingMail {
   const { about, actorName, note } = input;
   const what: Record<Exclude<RevisionCommand, 'supersede'>, string> = {
@@ -50,8 +52,14 @@ export function transitionMail(input: {
     kind: `sign-off.${input.command}`,
     recipients: input.recipients,
     subject: `${SUBJECT_PREFIX} ${HEADLINES[input.command]}: ${revisionLabel(about)}`,
-    body: `${what[input.command]}${note ? `\n\nNote: ${note}` : ''}${footer(about)}`,
+    body: `${what[input.command]}${note ? `\n\nNote: ${note}` : ''}${overrideText(input.override)}${footer(about)}`,
   };
+}
+
+function overrideText(override: { reason: string; overridden: string[] } | null | undefined): string {
+  if (!override) return '';
+  const held = override.overridden.map((reason) => `\n- ${reason}`).join('');
+  return `\n\nOVERRIDE: the Sign-off gates were closed and overridden.${held}\nReason given: ${override.reason}`;
 }
 
 /** The notification of a new comment or reply. */

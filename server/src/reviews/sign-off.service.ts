@@ -2,34 +2,46 @@ import { Inject, Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
 import { Op, type Transaction } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
-import type { CurrentUser, SignOff, SignOffPerson } from '@ladderwright/shared/api';
+import type { CurrentUser, OverrideRequest, SignOff, SignOffOverride, SignOffPerson } from '@ladderwright/shared/api';
 import type { ProjectRole } from '@ladderwright/shared/auth';
 import { DomainError } from '@ladderwright/shared/errors';
-import { applyTransition, availableCommands, type RevisionCommand } from '@ladderwright/shared/reviews';
+import { ENGINE_VERSION } from '@ladderwright/shared/multiplier';
+import {
+  applyTransition,
+  availableCommands,
+  type GateReason,
+  gateReasons,
+  isGatedCommand,
+  overrideReasonProblem,
+  type RevisionCommand,
+} from '@ladderwright/shared/reviews';
 import type { ProjectMembership } from '../common/request.types';
 import { AuditService } from '../audit/audit.service';
 import { APP_ENV, type AppEnv } from '../config/env';
 import type { DesignModel } from '../designs/design.model';
 import { MailService, type OutgoingMail } from '../mail/mail.service';
 import { ProjectMemberModel } from '../projects/project-member.model';
+import { RevisionLookupService } from '../revisions/revision-lookup.service';
+import type { RevisionRef } from '../revisions/revision-ref.decorator';
 import { RevisionModel } from '../revisions/revision.model';
-import { RevisionsService } from '../revisions/revisions.service';
 import { UserModel } from '../users/user.model';
+import { GatesClosedException } from './gates-closed.filter';
+import { ReviewCommentModel } from './review-comment.model';
 import { RevisionReviewerModel } from './revision-reviewer.model';
 import { RevisionTransitionModel } from './revision-transition.model';
 import { type MailSubject, transitionMail } from './sign-off-mail';
 
-/** The revision a Sign-off route names, with its design; loaded under the design row lock in a transaction. */
-export interface RevisionInContext {
-  design: DesignModel;
-  revision: RevisionModel;
-}
-
 export type UserCommand = Exclude<RevisionCommand, 'supersede'>;
 
-/** Parses a revision number from the route; anything but a positive integer is "no such revision". */
-function revisionNumberOf(raw: string): number | null {
-  return /^[1-9][0-9]{0,8}$/.test(raw) ? Number(raw) : null;
+/** One Sign-off command as a route sends it. */
+export interface TransitionInput {
+  command: UserCommand;
+  ref: RevisionRef;
+  user: CurrentUser;
+  membership: ProjectMembership;
+  note?: string;
+  reviewerIds?: string[];
+  override?: OverrideRequest;
 }
 
 function personOf(member: ProjectMemberModel): SignOffPerson {
@@ -52,48 +64,36 @@ export class SignOffService {
     @InjectModel(RevisionReviewerModel) private readonly reviewers: typeof RevisionReviewerModel,
     @InjectModel(RevisionTransitionModel) private readonly transitions: typeof RevisionTransitionModel,
     @InjectModel(ProjectMemberModel) private readonly members: typeof ProjectMemberModel,
-    private readonly revisionsService: RevisionsService,
+    @InjectModel(ReviewCommentModel) private readonly comments: typeof ReviewCommentModel,
+    private readonly lookup: RevisionLookupService,
     private readonly mail: MailService,
     private readonly audit: AuditService,
     private readonly sequelize: Sequelize,
   ) {}
-
-  /** The design and revision of the route (404 naming the field when either is not in this project); with a transaction, under the design row lock. */
-  async load(
-    projectId: string,
-    designId: string,
-    rawNumber: string,
-    transaction?: Transaction,
-  ): Promise<RevisionInContext> {
-    const design = await this.revisionsService.findDesign(projectId, designId, transaction);
-    const number = revisionNumberOf(rawNumber);
-    const revision =
-      number === null
-        ? null
-        : await this.revisions.findOne({
-            where: { designId: design.id, number },
-            include: [UserModel],
-            // The design row lock (findDesign) serializes every Sign-off change of the design.
-            transaction,
-          });
-    if (!revision) throw new DomainError('not_found', `Revision ${rawNumber} not found`, 'revisionNumber');
-    return { design, revision };
-  }
 
   mailSubject(projectId: string, design: DesignModel, revisionNumber: number): MailSubject {
     const url = `${this.env.publicUrl}/projects/${projectId}/designs/${design.id}/revisions/${revisionNumber}/sign-off`;
     return { designName: design.name, revisionNumber, url };
   }
 
-  async get(
-    projectId: string,
-    designId: string,
-    rawNumber: string,
-    user: CurrentUser,
-    membership: ProjectMembership,
-  ): Promise<SignOff> {
-    const { design, revision } = await this.load(projectId, designId, rawNumber);
-    const [assigned, members, history] = await Promise.all([
+  /** What holds back submit, approve and release of `revision` now (its Checks, open threads, engine version). */
+  async gateReasonsOf(revision: RevisionModel, transaction?: Transaction): Promise<GateReason[]> {
+    const openThreadCount = await this.comments.count({
+      where: { revisionId: revision.id, parentId: null, resolvedAt: null },
+      transaction,
+    });
+    return gateReasons({
+      checks: revision.report.checks,
+      openThreadCount,
+      engineVersion: revision.engineVersion,
+      currentEngineVersion: ENGINE_VERSION,
+    });
+  }
+
+  async get(ref: RevisionRef, user: CurrentUser, membership: ProjectMembership): Promise<SignOff> {
+    const { projectId } = ref;
+    const { design, revision } = await this.lookup.find(ref);
+    const [assigned, members, history, reasons] = await Promise.all([
       this.reviewers.findAll({ where: { revisionId: revision.id } }),
       this.members.findAll({ where: { projectId }, include: [UserModel] }),
       this.transitions.findAll({
@@ -101,6 +101,7 @@ export class SignOffService {
         include: [UserModel],
         order: [['createdAt', 'ASC']],
       }),
+      this.gateReasonsOf(revision),
     ]);
     const assignedIds = new Set(assigned.map((row) => row.userId));
     const isAuthor = revision.authorId === user.id;
@@ -140,30 +141,44 @@ export class SignOffService {
         note: entry.note,
         at: entry.createdAt.toISOString(),
       })),
+      gateReasons: reasons,
+      overrides: history.flatMap((entry): SignOffOverride[] =>
+        entry.overrideReason !== null && isGatedCommand(entry.command)
+          ? [
+              {
+                command: entry.command,
+                actorId: entry.actorId,
+                actorName: entry.actor?.displayName ?? null,
+                reason: entry.overrideReason,
+                overridden: entry.overridden ?? [],
+                at: entry.createdAt.toISOString(),
+              },
+            ]
+          : [],
+      ),
     };
   }
 
   /**
    * Runs one Sign-off command. Illegal for the state, the role or the actor: 409 with the reason from
    * shared/src/reviews (nothing written). Submit names the reviewers; approve and return are for the
-   * reviewers it was submitted to (or a lead); release supersedes the design's previously released revision.
+   * reviewers it was submitted to (or a lead); release needs an approval of this very revision and supersedes
+   * the design's previously released revision. Submit, approve and release are refused with 409 gates_closed
+   * while a gate is closed, unless the actor records an override with a reason (audited, mailed).
    */
-  async transition(input: {
-    command: UserCommand;
-    projectId: string;
-    designId: string;
-    rawNumber: string;
-    user: CurrentUser;
-    membership: ProjectMembership;
-    note?: string;
-    reviewerIds?: string[];
-  }): Promise<SignOff> {
+  async transition(input: TransitionInput): Promise<SignOff> {
+    const projectId = input.ref.projectId;
     const note = (input.note ?? '').trim();
     if (input.command === 'return' && !note) {
       throw new DomainError('invalid_argument', 'note is required to return a revision', 'note');
     }
+    const overrideReason = input.override ? input.override.reason.trim() : null;
+    if (overrideReason !== null) {
+      const problem = overrideReasonProblem(overrideReason);
+      if (problem) throw new DomainError('invalid_argument', problem, 'override.reason');
+    }
     await this.sequelize.transaction(async (transaction) => {
-      const { design, revision } = await this.load(input.projectId, input.designId, input.rawNumber, transaction);
+      const { design, revision } = await this.lookup.find(input.ref, transaction);
       const from = revision.state;
       const to = applyTransition({
         command: input.command,
@@ -173,7 +188,7 @@ export class SignOffService {
         note,
       });
       const members = await this.members.findAll({
-        where: { projectId: input.projectId },
+        where: { projectId },
         include: [UserModel],
         transaction,
       });
@@ -198,11 +213,45 @@ export class SignOffService {
         }
       }
 
+      if (input.command === 'release') await this.assertApproved(revision, transaction);
+      const closed = isGatedCommand(input.command) ? await this.gateReasonsOf(revision, transaction) : [];
+      if (closed.length > 0 && overrideReason === null) throw new GatesClosedException(input.command, closed);
+      const override = closed.length > 0 && overrideReason !== null ? { reason: overrideReason, closed } : null;
+
       await revision.update({ state: to }, { transaction });
       await this.transitions.create(
-        { revisionId: revision.id, command: input.command, fromState: from, toState: to, actorId: input.user.id, note },
+        {
+          revisionId: revision.id,
+          command: input.command,
+          fromState: from,
+          toState: to,
+          actorId: input.user.id,
+          note,
+          overrideReason: override?.reason ?? null,
+          overridden: override?.closed ?? null,
+        },
         { transaction },
       );
+      if (override) {
+        await this.audit.record(
+          {
+            action: 'revision.gates_overridden',
+            actorId: input.user.id,
+            actorEmail: input.user.email,
+            subjectType: 'revision',
+            subjectId: revision.id,
+            detail: {
+              projectId,
+              designId: design.id,
+              revisionNumber: revision.number,
+              command: input.command,
+              reason: override.reason,
+              overridden: override.closed.map((reason) => reason.message),
+            },
+          },
+          transaction,
+        );
+      }
       const superseded =
         input.command === 'release' ? await this.supersedeOthers(revision, input.user.id, transaction) : null;
       if (input.command === 'release') {
@@ -213,7 +262,7 @@ export class SignOffService {
             actorEmail: input.user.email,
             subjectType: 'revision',
             subjectId: revision.id,
-            detail: { projectId: input.projectId, designId: design.id, revisionNumber: revision.number, superseded },
+            detail: { projectId, designId: design.id, revisionNumber: revision.number, superseded },
           },
           transaction,
         );
@@ -232,17 +281,34 @@ export class SignOffService {
       const mails: OutgoingMail[] = [
         transitionMail({
           command: input.command,
-          about: this.mailSubject(input.projectId, design, revision.number),
+          about: this.mailSubject(projectId, design, revision.number),
           actorName: input.user.displayName,
           note,
           recipients: recipients[input.command],
           supersededNumber: superseded,
+          override: override ? { reason: override.reason, overridden: override.closed.map((r) => r.message) } : null,
         }),
       ];
       await this.mail.enqueue(mails, transaction);
     });
     this.mail.kick();
-    return this.get(input.projectId, input.designId, input.rawNumber, input.user, input.membership);
+    return this.get(input.ref, input.user, input.membership);
+  }
+
+  /** A release needs an approval of this revision since it was last submitted (the state alone is not proof). */
+  private async assertApproved(revision: RevisionModel, transaction: Transaction): Promise<void> {
+    const latest = await this.transitions.findOne({
+      where: { revisionId: revision.id, command: { [Op.in]: ['submit', 'approve', 'return', 'withdraw'] } },
+      order: [['createdAt', 'DESC']],
+      transaction,
+    });
+    if (latest?.command !== 'approve') {
+      throw new DomainError(
+        'illegal_transition',
+        `Revision ${revision.number} has no approval of its own since it was last submitted; it cannot be released`,
+        'command',
+      );
+    }
   }
 
   /** Every reviewer id must be a project member with the reviewer or lead role, and not the author. */

@@ -6,6 +6,7 @@ import { CurrentUser } from '../common/decorators/current-user.decorator';
 import { ProjectMembership } from '../common/decorators/project-membership.decorator';
 import { RequiresProjectAction } from '../common/decorators/requires-permission.decorator';
 import type { ProjectMembership as Membership } from '../common/request.types';
+import { RevisionRef } from './revision-ref.decorator';
 import { SaveRevisionDto } from './dto/save-revision.dto';
 import type { DownloadFile } from './revisions.service';
 import { RevisionsService } from './revisions.service';
@@ -39,41 +40,27 @@ export class RevisionsController {
     @Param('designId') designId: string,
     @Body() body: SaveRevisionDto,
   ): Promise<RevisionDetail> {
-    return this.revisions.save(membership.projectId, designId, body, user.id);
+    return this.revisions.save({ projectId: membership.projectId, designId, request: body, authorId: user.id });
   }
 
   @Get(':revisionNumber')
-  detail(
-    @ProjectMembership() membership: Membership,
-    @Param('designId') designId: string,
-    @Param('revisionNumber') revisionNumber: string,
-  ): Promise<RevisionDetail> {
-    return this.revisions.get(membership.projectId, designId, revisionNumber);
+  detail(@RevisionRef() ref: RevisionRef): Promise<RevisionDetail> {
+    return this.revisions.get(ref);
   }
 
   @Get(':revisionNumber/export')
   @ApiProduces('application/json')
   @ApiOkResponse({ description: 'The revision as a ladderwright-design file (attachment).' })
-  async exportFile(
-    @ProjectMembership() membership: Membership,
-    @Param('designId') designId: string,
-    @Param('revisionNumber') revisionNumber: string,
-    @Res() response: Response,
-  ): Promise<void> {
-    const file = await this.revisions.exportFile(membership.projectId, designId, revisionNumber, new Date());
+  async exportFile(@RevisionRef() ref: RevisionRef, @Res() response: Response): Promise<void> {
+    const file = await this.revisions.exportFile(ref, new Date());
     sendDownload(response, file, 'application/json; charset=utf-8');
   }
 
   @Get(':revisionNumber/netlist')
   @ApiProduces('text/plain')
   @ApiOkResponse({ description: 'The revision circuit as a SPICE netlist (.cir attachment).' })
-  async netlist(
-    @ProjectMembership() membership: Membership,
-    @Param('designId') designId: string,
-    @Param('revisionNumber') revisionNumber: string,
-    @Res() response: Response,
-  ): Promise<void> {
-    const file = await this.revisions.netlist(membership.projectId, designId, revisionNumber);
+  async netlist(@RevisionRef() ref: RevisionRef, @Res() response: Response): Promise<void> {
+    const file = await this.revisions.netlist(ref);
     sendDownload(response, file, 'text/plain; charset=utf-8');
   }
 }

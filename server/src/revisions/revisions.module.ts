@@ -3,6 +3,7 @@ import { SequelizeModule } from '@nestjs/sequelize';
 import { AnalysisModule } from '../analysis/analysis.module';
 import { DesignModel } from '../designs/design.model';
 import { PartsModule } from '../parts/parts.module';
+import { RevisionLookupService } from './revision-lookup.service';
 import { RevisionModel } from './revision.model';
 import { RevisionsController } from './revisions.controller';
 import { RevisionsService } from './revisions.service';
@@ -10,7 +11,7 @@ import { RevisionsService } from './revisions.service';
 @Module({
   imports: [SequelizeModule.forFeature([DesignModel, RevisionModel]), AnalysisModule, PartsModule],
   controllers: [RevisionsController],
-  providers: [RevisionsService],
-  exports: [RevisionsService],
+  providers: [RevisionsService, RevisionLookupService],
+  exports: [RevisionsService, RevisionLookupService],
 })
 export class RevisionsModule {}

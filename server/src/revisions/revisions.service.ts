@@ -11,14 +11,15 @@ import type {
 } from '@ladderwright/shared/api';
 import type { Design } from '@ladderwright/shared/designs';
 import { DomainError } from '@ladderwright/shared/errors';
-import { buildCircuit, toSpiceNetlist } from '@ladderwright/shared/sim';
+import { buildCircuit } from '@ladderwright/shared/circuits';
 import { capacitorRoleChanges } from '@ladderwright/shared/multiplier';
+import { toSpiceNetlist } from '@ladderwright/shared/sim';
 import { AnalysisService } from '../analysis/analysis.service';
-import { isUuid } from '../common/uuid';
-import { DesignModel } from '../designs/design.model';
 import { PartsService } from '../parts/parts.service';
-import { UserModel } from '../users/user.model';
 import { differences } from './document-diff';
+import { UserModel } from '../users/user.model';
+import { RevisionLookupService } from './revision-lookup.service';
+import type { RevisionRef } from './revision-ref.decorator';
 import { fileStem, toRevisionDetail, toRevisionSummary } from './revision-shapes';
 import { RevisionModel } from './revision.model';
 import { StaleBaseException } from './stale-base.filter';
@@ -38,32 +39,15 @@ export interface DownloadFile {
   body: string;
 }
 
-/** Parses a revision number from the route; anything but a positive integer is "no such revision". */
-function revisionNumberOf(raw: string): number | null {
-  return /^[1-9][0-9]{0,8}$/.test(raw) ? Number(raw) : null;
-}
-
 @Injectable()
 export class RevisionsService {
   constructor(
-    @InjectModel(DesignModel) private readonly designs: typeof DesignModel,
     @InjectModel(RevisionModel) private readonly revisions: typeof RevisionModel,
+    private readonly lookup: RevisionLookupService,
     private readonly analysis: AnalysisService,
     private readonly parts: PartsService,
     private readonly sequelize: Sequelize,
   ) {}
-
-  /** The design `designId` of `projectId`; a malformed id or a design of another project is 404. */
-  async findDesign(projectId: string, designId: string, transaction?: Transaction): Promise<DesignModel> {
-    const design = isUuid(designId)
-      ? await this.designs.findOne({
-          where: { id: designId, projectId },
-          ...(transaction ? { transaction, lock: transaction.LOCK.UPDATE } : {}),
-        })
-      : null;
-    if (!design) throw new DomainError('not_found', 'Design not found', 'designId');
-    return design;
-  }
 
   /**
    * Inserts one revision with the engine's report, computed with the ratings of `projectId`'s Parts shelf
@@ -78,7 +62,7 @@ export class RevisionsService {
   }
 
   async list(projectId: string, designId: string): Promise<RevisionSummary[]> {
-    const design = await this.findDesign(projectId, designId);
+    const design = await this.lookup.findDesign(projectId, designId);
     return this.listOf(design.id);
   }
 
@@ -92,9 +76,9 @@ export class RevisionsService {
     return rows.map(toRevisionSummary);
   }
 
-  async get(projectId: string, designId: string, rawNumber: string): Promise<RevisionDetail> {
-    const design = await this.findDesign(projectId, designId);
-    return toRevisionDetail(await this.load(design.id, rawNumber, 'revisionNumber'), projectId);
+  async get(ref: RevisionRef): Promise<RevisionDetail> {
+    const { revision } = await this.lookup.find(ref);
+    return toRevisionDetail(revision, ref.projectId);
   }
 
   /**
@@ -102,15 +86,16 @@ export class RevisionsService {
    * base is not the latest revision, listing the fields changed since the base. The design row is locked
    * for the numbering, so two concurrent saves on the same base cannot both succeed.
    */
-  async save(
-    projectId: string,
-    designId: string,
-    request: SaveRevisionRequest,
-    authorId: string,
-  ): Promise<RevisionDetail> {
+  async save(input: {
+    projectId: string;
+    designId: string;
+    request: SaveRevisionRequest;
+    authorId: string;
+  }): Promise<RevisionDetail> {
+    const { projectId, designId, request, authorId } = input;
     const document = this.analysis.parseDocument(request.document, 'document');
     const number = await this.sequelize.transaction(async (transaction) => {
-      const design = await this.findDesign(projectId, designId, transaction);
+      const design = await this.lookup.findDesign(projectId, designId, transaction);
       const latest = design.latestRevisionNumber;
       if (request.baseRevisionNumber > latest) {
         throw new DomainError(
@@ -121,8 +106,8 @@ export class RevisionsService {
       }
       if (request.baseRevisionNumber !== latest) {
         const [base, newest] = await Promise.all([
-          this.load(design.id, String(request.baseRevisionNumber), 'baseRevisionNumber', transaction),
-          this.load(design.id, String(latest), 'baseRevisionNumber', transaction),
+          this.load(design.id, request.baseRevisionNumber, 'baseRevisionNumber', transaction),
+          this.load(design.id, latest, 'baseRevisionNumber', transaction),
         ]);
         throw new StaleBaseException(
           latest,
@@ -144,7 +129,7 @@ export class RevisionsService {
       await design.update({ latestRevisionNumber: latest + 1 }, { transaction });
       return latest + 1;
     });
-    return this.get(projectId, designId, String(number));
+    return this.get({ projectId, designId, revisionNumber: number });
   }
 
   /**
@@ -158,12 +143,10 @@ export class RevisionsService {
     b: number,
     bDesignId?: string,
   ): Promise<RevisionComparison> {
-    const designA = await this.findDesign(projectId, designId);
-    const designB = bDesignId && bDesignId !== designId ? await this.findDesign(projectId, bDesignId) : designA;
-    const [revisionA, revisionB] = await Promise.all([
-      this.load(designA.id, String(a), 'a'),
-      this.load(designB.id, String(b), 'b'),
-    ]);
+    const designA = await this.lookup.findDesign(projectId, designId);
+    const designB =
+      bDesignId && bDesignId !== designId ? await this.lookup.findDesign(projectId, bDesignId) : designA;
+    const [revisionA, revisionB] = await Promise.all([this.load(designA.id, a, 'a'), this.load(designB.id, b, 'b')]);
     const ladder = (document: Design) => ({
       topology: document.multiplier.topology,
       capacitorCount: document.multiplier.capacitors.length,
@@ -179,9 +162,8 @@ export class RevisionsService {
     };
   }
 
-  async exportFile(projectId: string, designId: string, rawNumber: string, now: Date): Promise<DownloadFile> {
-    const design = await this.findDesign(projectId, designId);
-    const revision = await this.load(design.id, rawNumber, 'revisionNumber');
+  async exportFile(ref: RevisionRef, now: Date): Promise<DownloadFile> {
+    const { design, revision } = await this.lookup.find(ref);
     const file: DesignExport = {
       format: 'ladderwright-design',
       formatVersion: 1,
@@ -199,9 +181,8 @@ export class RevisionsService {
    * The revision's circuit as a SPICE netlist, from the simulator's own export. A driver-stage design is
    * exported with the secondary the engine resolves from its driver (the pulse estimate the report uses).
    */
-  async netlist(projectId: string, designId: string, rawNumber: string): Promise<DownloadFile> {
-    const design = await this.findDesign(projectId, designId);
-    const revision = await this.load(design.id, rawNumber, 'revisionNumber');
+  async netlist(ref: RevisionRef): Promise<DownloadFile> {
+    const { design, revision } = await this.lookup.find(ref);
     const circuit = buildCircuit(this.analysis.withResolvedDrive(revision.document));
     const title = `${design.name}, revision ${revision.number}`.replace(/[\r\n]+/g, ' ');
     return {
@@ -210,18 +191,15 @@ export class RevisionsService {
     };
   }
 
+  /** A revision named in a request body or query (a base, a side of a comparison): 404 naming `field`. */
   private async load(
     designId: string,
-    rawNumber: string,
+    number: number,
     field: string,
     transaction?: Transaction,
   ): Promise<RevisionModel> {
-    const number = revisionNumberOf(rawNumber);
-    const revision =
-      number === null
-        ? null
-        : await this.revisions.findOne({ where: { designId, number }, include: [UserModel], transaction });
-    if (!revision) throw new DomainError('not_found', `Revision ${rawNumber} not found`, field);
+    const revision = await this.lookup.findIn(designId, number, transaction);
+    if (!revision) throw new DomainError('not_found', `Revision ${number} not found`, field);
     return revision;
   }
 }

@@ -1,7 +1,8 @@
 import type { SimulationResult, SimulationSummary, WaveformPhase, WaveformTrace } from '@ladderwright/shared/api';
 import type { DischargeRule } from '@ladderwright/shared/designs';
 import { isDomainError } from '@ladderwright/shared/errors';
-import { ladderSpecFromDesign, type PlotTrace, runDriverDesign, runLadder } from '@ladderwright/shared/sim';
+import { ladderSpecFromDesign } from '@ladderwright/shared/circuits';
+import { type PlotTrace, runDriverDesign, runLadder } from '@ladderwright/shared/runs';
 import type { SimulationProgressMessage, SimulationTask, SimulationTaskOutcome } from './simulation-task.types';
 
 /*

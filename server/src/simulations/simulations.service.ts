@@ -111,7 +111,11 @@ export class SimulationsService {
         throw new DomainError('invalid_argument', 'designId is required with revisionNumber', 'designId');
       if (body.revisionNumber === undefined)
         throw new DomainError('invalid_argument', 'revisionNumber is required with designId', 'revisionNumber');
-      const revision = await this.revisions.get(projectId, body.designId, String(body.revisionNumber));
+      const revision = await this.revisions.get({
+        projectId,
+        designId: body.designId,
+        revisionNumber: body.revisionNumber,
+      });
       return { document: revision.document, designId: revision.designId, revisionNumber: revision.number };
     }
     try {

@@ -130,8 +130,19 @@ function titleBlock(doc: Doc, c: SpecSheetContent): void {
     ['State', c.state],
     ['Author', c.authorName],
     ['Approved by', approvals],
+    ...overrideRows(c),
     ['Released', c.releasedBy ? `${c.releasedBy.name}, ${date(c.releasedBy.at)}` : 'not released'],
     ['Generated', `${date(c.generatedAt)} (engine ${c.engineVersion})`],
+  ]);
+}
+
+/** Every recorded gate override: the command, who, when, the reason and the gates it went past. */
+function overrideRows(c: SpecSheetContent): [string, string][] {
+  return c.overrides.map((override) => [
+    `OVERRIDE (${override.command})`,
+    `${override.actorName ?? 'unknown'}, ${date(override.at)}: "${override.reason}"\nPast: ${override.overridden
+      .map((reason) => reason.message)
+      .join('; ')}`,
   ]);
 }
 
@@ -273,7 +284,7 @@ function performanceSection(doc: Doc, c: SpecSheetContent): void {
       [
         'Output, mean',
         q(report.outputMeanV, 'V', 4),
-        `${q(acceptance.outputLowV, 'V', 4)} to ${q(acceptance.outputHighV, 'V', 4)} (±${(acceptance.bandFraction * 100).toFixed(0)} %)`,
+        `${q(acceptance.outputLowV, 'V', 4)} to ${q(acceptance.outputHighV, 'V', 4)}`,
       ],
       ['Ripple, peak-to-peak', q(report.ripplePeakToPeakV, 'V'), `max ${q(acceptance.rippleMaxV, 'V')}`],
       ['No-load output', q(report.noLoadOutputV, 'V', 4), 'for information'],
@@ -281,6 +292,17 @@ function performanceSection(doc: Doc, c: SpecSheetContent): void {
       ['Target output', q(document.targets.outputV, 'V', 4), 'design target'],
     ],
   );
+  doc
+    .moveDown(0.3)
+    .fontSize(8)
+    .text(
+      `Output window: the predicted spread over the stated capacitor tolerances at ${(acceptance.coverage * 100).toFixed(0)} % coverage ` +
+        `(mean ± k standard deviations, k = ${acceptance.coverageFactor}, JCGM 100:2008 Table G.1), plus a bench allowance of ` +
+        `${(acceptance.benchAllowanceFraction * 100).toFixed(1)} % of the target` +
+        `${acceptance.isStretchedToTarget ? ', stretched to contain the design target' : ''}.`,
+      MARGIN,
+    )
+    .fontSize(9);
   if (acceptance.isPredictionBelowTarget) {
     doc
       .moveDown(0.3)

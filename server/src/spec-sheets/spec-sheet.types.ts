@@ -1,7 +1,7 @@
-import type { BenchRunSummary, SignOffApproval } from '@ladderwright/shared/api';
+import type { BenchRunSummary, SignOffApproval, SignOffOverride } from '@ladderwright/shared/api';
 import type { MeasuredPoint } from '@ladderwright/shared/bench';
 import type { Design } from '@ladderwright/shared/designs';
-import type { DesignReport } from '@ladderwright/shared/multiplier';
+import type { DesignReport } from '@ladderwright/shared/analysis';
 import type { AcceptanceLimits } from '@ladderwright/shared/reviews';
 import type { RevisionState } from '@ladderwright/shared/reviews';
 
@@ -39,6 +39,8 @@ export interface SpecSheetContent {
   report: DesignReport;
   winding: WindingSpec;
   acceptance: AcceptanceLimits;
+  /** Decisions to go past closed Sign-off gates on this revision, oldest first. */
+  overrides: SignOffOverride[];
   /** The revision's live bench runs, newest first; load-sweep points go on the output-vs-load plot. */
   benchRuns: (BenchRunSummary & { points: MeasuredPoint[] })[];
 }

@@ -1,10 +1,11 @@
-import { Controller, Get, Param, Res } from '@nestjs/common';
+import { Controller, Get, Res } from '@nestjs/common';
 import { ApiCookieAuth, ApiOkResponse, ApiProduces, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 import type { CurrentUser as SessionUser } from '@ladderwright/shared/api';
 import { CurrentUser } from '../common/decorators/current-user.decorator';
 import { ProjectMembership } from '../common/decorators/project-membership.decorator';
 import type { ProjectMembership as Membership } from '../common/request.types';
+import { RevisionRef } from '../revisions/revision-ref.decorator';
 import { SpecSheetsService } from './spec-sheets.service';
 
 @ApiTags('spec-sheets')
@@ -20,20 +21,12 @@ export class SpecSheetsController {
       'Supplier spec sheet; released revisions for leads, other states for engineers and leads, marked NOT RELEASED.',
   })
   async download(
+    @RevisionRef() ref: RevisionRef,
     @ProjectMembership() membership: Membership,
     @CurrentUser() user: SessionUser,
-    @Param('designId') designId: string,
-    @Param('revisionNumber') revisionNumber: string,
     @Res() response: Response,
   ): Promise<void> {
-    const file = await this.specSheets.render(
-      membership.projectId,
-      designId,
-      revisionNumber,
-      user,
-      membership,
-      new Date(),
-    );
+    const file = await this.specSheets.render({ ref, user, membership, now: new Date() });
     response.setHeader('Content-Type', 'application/pdf');
     response.setHeader('Content-Disposition', `attachment; filename="${file.fileName}"`);
     response.send(file.body);

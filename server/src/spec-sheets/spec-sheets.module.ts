@@ -2,12 +2,20 @@ import { Module } from '@nestjs/common';
 import { SequelizeModule } from '@nestjs/sequelize';
 import { BenchRunsModule } from '../bench-runs/bench-runs.module';
 import { ProjectModel } from '../projects/project.model';
+import { ProjectsModule } from '../projects/projects.module';
 import { ReviewsModule } from '../reviews/reviews.module';
+import { RevisionsModule } from '../revisions/revisions.module';
 import { SpecSheetsController } from './spec-sheets.controller';
 import { SpecSheetsService } from './spec-sheets.service';
 
 @Module({
-  imports: [SequelizeModule.forFeature([ProjectModel]), ReviewsModule, BenchRunsModule],
+  imports: [
+    SequelizeModule.forFeature([ProjectModel]),
+    ReviewsModule,
+    BenchRunsModule,
+    ProjectsModule,
+    RevisionsModule,
+  ],
   controllers: [SpecSheetsController],
   providers: [SpecSheetsService],
 })

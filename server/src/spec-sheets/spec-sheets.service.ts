@@ -4,12 +4,17 @@ import type { CurrentUser } from '@ladderwright/shared/api';
 import { canInProject } from '@ladderwright/shared/auth';
 import { runDriverChecks } from '@ladderwright/shared/driver';
 import { DomainError } from '@ladderwright/shared/errors';
-import type { DesignReport } from '@ladderwright/shared/multiplier';
-import { acceptanceLimits } from '@ladderwright/shared/reviews';
+import { type DesignReport, ladderInputOf, resolveDrive } from '@ladderwright/shared/analysis';
+import type { Design } from '@ladderwright/shared/designs';
+import { type AcceptanceLimits, type AcceptanceSettings, acceptanceLimits } from '@ladderwright/shared/reviews';
+import { toleranceSpread } from '@ladderwright/shared/sizing';
 import { BenchRunsService } from '../bench-runs/bench-runs.service';
 import type { ProjectMembership } from '../common/request.types';
 import { ProjectModel } from '../projects/project.model';
+import { ProjectsService } from '../projects/projects.service';
 import { SignOffService } from '../reviews/sign-off.service';
+import { RevisionLookupService } from '../revisions/revision-lookup.service';
+import type { RevisionRef } from '../revisions/revision-ref.decorator';
 import { fileStem } from '../revisions/revision-shapes';
 import { renderSpecSheetPdf } from './spec-sheet-pdf';
 import type { SpecSheetContent, WindingSpec } from './spec-sheet.types';
@@ -50,6 +55,33 @@ function windingOf(content: Pick<SpecSheetContent, 'document' | 'report'>): Wind
   return { kind: 'secondary', secondaryPeakV, frequencyHz: drive.frequencyHz, waveform };
 }
 
+/** Trials and seed of the tolerance spread behind the acceptance window (seeded, so the sheet is reproducible). */
+export const ACCEPTANCE_SPREAD_TRIALS = 400;
+const ACCEPTANCE_SPREAD_SEED = 20_260_101;
+
+/**
+ * The acceptance window: the output's spread over the capacitor tolerances the document states (seeded Monte
+ * Carlo of the steady-state analysis), at the project's coverage, stretched to contain the target.
+ */
+export function acceptanceOf(document: Design, report: DesignReport, settings: AcceptanceSettings): AcceptanceLimits {
+  const { drive, currentLimitA } = resolveDrive(document);
+  const spread = toleranceSpread({
+    input: ladderInputOf(document, drive, currentLimitA),
+    capacitorTolerance: document.multiplier.capacitors.map((capacitor) => capacitor.tolerance),
+    driveVariation: 0,
+    trials: ACCEPTANCE_SPREAD_TRIALS,
+    seed: ACCEPTANCE_SPREAD_SEED,
+  });
+  return acceptanceLimits({
+    targetOutputV: document.targets.outputV,
+    spreadMeanV: spread.outputV.mean,
+    spreadSdV: spread.outputV.sd,
+    ripplePeakToPeakV: report.ripplePeakToPeakV,
+    rippleMaxV: document.targets.rippleMaxV,
+    settings,
+  });
+}
+
 /**
  * The supplier spec sheet of one revision, from its stored document and engine report and its Sign-off.
  * A released revision needs specSheet.export (lead); any other state specSheet.exportDraft and is marked
@@ -59,19 +91,20 @@ function windingOf(content: Pick<SpecSheetContent, 'document' | 'report'>): Wind
 export class SpecSheetsService {
   constructor(
     @InjectModel(ProjectModel) private readonly projects: typeof ProjectModel,
+    private readonly projectsService: ProjectsService,
+    private readonly lookup: RevisionLookupService,
     private readonly signOff: SignOffService,
     private readonly benchRuns: BenchRunsService,
   ) {}
 
-  async render(
-    projectId: string,
-    designId: string,
-    rawNumber: string,
-    user: CurrentUser,
-    membership: ProjectMembership,
-    now: Date,
-  ): Promise<SpecSheetFile> {
-    const { design, revision } = await this.signOff.load(projectId, designId, rawNumber);
+  async render(input: {
+    ref: RevisionRef;
+    user: CurrentUser;
+    membership: ProjectMembership;
+    now: Date;
+  }): Promise<SpecSheetFile> {
+    const { ref, user, membership, now } = input;
+    const { design, revision } = await this.lookup.find(ref);
     const isReleased = revision.state === 'released';
     const action = isReleased ? 'specSheet.export' : 'specSheet.exportDraft';
     if (!canInProject(membership.role, action)) {
@@ -82,9 +115,10 @@ export class SpecSheetsService {
           : `Only an engineer or a lead exports a draft spec sheet (you are ${membership.role})`,
       );
     }
-    const [signOff, project, benchRuns] = await Promise.all([
-      this.signOff.get(projectId, designId, rawNumber, user, membership),
-      this.projects.findByPk(projectId),
+    const [signOff, project, settings, benchRuns] = await Promise.all([
+      this.signOff.get(ref, user, membership),
+      this.projects.findByPk(ref.projectId),
+      this.projectsService.settings(ref.projectId),
       this.benchRuns.listForRevisionWithPoints(revision.designId, revision.number),
     ]);
     const report = revision.report as unknown as DesignReport;
@@ -104,12 +138,8 @@ export class SpecSheetsService {
       document,
       report,
       winding: windingOf({ document, report }),
-      acceptance: acceptanceLimits({
-        outputMeanV: report.outputMeanV,
-        ripplePeakToPeakV: report.ripplePeakToPeakV,
-        rippleMaxV: document.targets.rippleMaxV,
-        targetOutputV: document.targets.outputV,
-      }),
+      acceptance: acceptanceOf(document, report, settings.acceptance),
+      overrides: signOff.overrides,
       benchRuns,
     };
     const suffix = isReleased ? '' : '-not-released';

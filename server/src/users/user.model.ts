@@ -1,6 +1,5 @@
-import { Column, DataType, HasMany, Model, Table } from 'sequelize-typescript';
+import { Column, DataType, Model, Table } from 'sequelize-typescript';
 import type { UserRole } from '@ladderwright/shared/auth';
-import { ProjectMemberModel } from '../projects/project-member.model';
 
 export interface UserAttrs {
   id: string;
@@ -10,6 +9,10 @@ export interface UserAttrs {
   passwordHash: string;
   /** Bumped by "sign out everywhere" and password resets; session tokens carry the version they were issued at. */
   sessionVersion: number;
+  /** false: deactivated by an admin; the account cannot sign in and its sessions end. */
+  isActive: boolean;
+  /** Mail kinds (`MailKind`) the user chose not to receive. */
+  mailOptOuts: string[];
   createdAt: Date;
   updatedAt: Date;
 }
@@ -37,8 +40,11 @@ export class UserModel extends Model<UserAttrs, UserCreationAttrs> {
   @Column({ type: DataType.INTEGER, allowNull: false, defaultValue: 0 })
   sessionVersion: number;
 
-  @HasMany(() => ProjectMemberModel)
-  memberships?: ProjectMemberModel[];
+  @Column({ type: DataType.BOOLEAN, allowNull: false, defaultValue: true })
+  isActive: boolean;
+
+  @Column({ type: DataType.JSONB, allowNull: false, defaultValue: [] })
+  mailOptOuts: string[];
 
   override createdAt: Date;
   override updatedAt: Date;

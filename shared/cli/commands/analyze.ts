@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { DomainError } from '../../src/errors';
 import { validateDesign } from '../../src/designs/validate-design';
-import { analyzeDesign } from '../../src/multiplier/analyze-design';
+import { analyzeDesign } from '../../src/analysis/analyze-design';
 import { parseArguments } from '../ladder-flags';
 import { reportAsText } from '../report-text';
 

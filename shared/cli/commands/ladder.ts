@@ -1,4 +1,4 @@
-import { analyzeLadderReport } from '../../src/multiplier/analyze-design';
+import { analyzeLadderReport } from '../../src/analysis/analyze-design';
 import { ladderInputFromFlags, parseArguments } from '../ladder-flags';
 import { reportAsText } from '../report-text';
 

@@ -1,8 +1,8 @@
 import { readFileSync } from 'node:fs';
 import { estimateBlockingOscillator } from '../../src/driver/blocking-oscillator';
 import { validateDesign } from '../../src/designs/validate-design';
-import { buildLadderCircuit } from '../../src/sim/build-circuit';
-import { buildCircuit } from '../../src/sim/design-circuit';
+import { buildLadderCircuit } from '../../src/circuits/build-ladder-circuit';
+import { buildCircuit } from '../../src/circuits/design-circuit';
 import { toSpiceNetlist } from '../../src/sim/to-spice-netlist';
 import { parseArguments } from '../ladder-flags';
 import { ladderFromArguments } from './simulate';

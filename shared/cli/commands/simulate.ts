@@ -1,9 +1,9 @@
 import { readFileSync } from 'node:fs';
 import { validateDesign } from '../../src/designs/validate-design';
 import { DomainError } from '../../src/errors';
-import { ladderSpecFromDesign, type LadderCircuitSpec } from '../../src/sim/build-circuit';
-import { runLadder } from '../../src/sim/design-runs';
-import { runDriverDesign } from '../../src/sim/driver-runs';
+import { ladderSpecFromDesign, type LadderCircuitSpec } from '../../src/circuits/build-ladder-circuit';
+import { runLadder } from '../../src/runs/ladder-runs';
+import { runDriverDesign } from '../../src/runs/driver-runs';
 import type { Design } from '../../src/designs/design.types';
 import { ladderInputFromFlags, parseArguments, quantityFlag } from '../ladder-flags';
 

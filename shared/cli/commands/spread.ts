@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { DomainError } from '../../src/errors';
 import { validateDesign } from '../../src/designs/validate-design';
-import { ladderInputOf, resolveDrive } from '../../src/multiplier/analyze-design';
+import { ladderInputOf, resolveDrive } from '../../src/analysis/analyze-design';
 import { toleranceSpread } from '../../src/sizing/tolerance-spread';
 import { formatQuantity } from '../../src/units/format-quantity';
 import { parseArguments, quantityFlag } from '../ladder-flags';

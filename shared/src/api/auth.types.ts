@@ -1,4 +1,5 @@
 import type { ProjectRole, UserRole } from '../auth';
+import type { ProjectSettings } from './admin.types';
 
 /** POST /api/auth/sign-in body. The response sets an httpOnly cookie and returns `SignInResponse`. */
 export interface SignInRequest {
@@ -33,6 +34,8 @@ export interface ProjectSummary {
   description: string;
   myRole: ProjectRole;
   memberCount: number;
+  /** Archived projects stay readable and take no more changes. */
+  isArchived: boolean;
 }
 
 export interface ProjectMember {
@@ -44,6 +47,7 @@ export interface ProjectMember {
 
 export interface ProjectDetail extends ProjectSummary {
   members: ProjectMember[];
+  settings: ProjectSettings;
 }
 
 export interface CreateProjectRequest {
@@ -67,6 +71,7 @@ export interface CreateUserRequest {
 /** An account as the admin sees it in GET /api/users. */
 export interface UserSummary extends CurrentUser {
   createdAt: string;
+  isActive: boolean;
 }
 
 export interface ResetPasswordRequest {

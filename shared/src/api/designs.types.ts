@@ -1,6 +1,7 @@
 import type { Design } from '../designs';
 import type { FieldIssue } from '../errors';
-import type { CapacitorRoleChange, DesignReport } from '../multiplier';
+import type { DesignReport } from '../analysis';
+import type { CapacitorRoleChange } from '../multiplier';
 import type { CheckVerdict } from '../safety';
 import type { RevisionState } from '../reviews';
 

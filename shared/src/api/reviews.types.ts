@@ -1,5 +1,5 @@
 import type { ProjectRole } from '../auth';
-import type { RevisionCommand, RevisionState } from '../reviews';
+import type { GateReason, GatedCommand, RevisionCommand, RevisionState } from '../reviews';
 
 /** A project member a revision can be submitted to (reviewer or lead), or is submitted to. */
 export interface SignOffPerson {
@@ -48,6 +48,34 @@ export interface SignOff {
   availableCommands: RevisionCommand[];
   approvals: SignOffApproval[];
   history: SignOffTransition[];
+  /** What holds back submit, approve and release now; empty when the gates are clear. */
+  gateReasons: GateReason[];
+  /** Every override recorded on this revision, oldest first. */
+  overrides: SignOffOverride[];
+}
+
+/** A recorded decision to go past the gates, with its reason and what it went past. */
+export interface SignOffOverride {
+  command: GatedCommand;
+  actorId: string | null;
+  actorName: string | null;
+  reason: string;
+  /** The gate reasons in force when the override was recorded. */
+  overridden: GateReason[];
+  at: string;
+}
+
+/** Sent with submit, approve or release to go past failing gates; the reason is recorded and audited. */
+export interface OverrideRequest {
+  reason: string;
+}
+
+/** The body of a 409 `gates_closed`: one entry per reason the command is held back. */
+export interface GatesClosedBody {
+  statusCode: 409;
+  code: 'gates_closed';
+  message: string;
+  reasons: GateReason[];
 }
 
 /** POST .../submit. */
@@ -55,11 +83,14 @@ export interface SubmitRevisionRequest {
   /** One or more project members with the reviewer or lead role, not the author. */
   reviewerIds: string[];
   note?: string;
+  override?: OverrideRequest;
 }
 
 /** POST .../withdraw, .../approve, .../release (note optional) and .../return (note required). */
 export interface SignOffNoteRequest {
   note?: string;
+  /** approve and release only. */
+  override?: OverrideRequest;
 }
 
 /** Where a comment thread points: an input field path of the document or a result key of the report. */
@@ -112,10 +143,36 @@ export interface InboxItem {
   updatedAt: string;
 }
 
-/** GET /api/inbox: revisions submitted to me and waiting, and revisions I submitted (any state since). */
+/** An open comment thread on a revision of one of my designs, started or last answered by someone else. */
+export interface InboxComment {
+  projectId: string;
+  projectName: string;
+  designId: string;
+  designName: string;
+  revisionNumber: number;
+  commentId: string;
+  authorName: string;
+  /** The first 200 characters of the latest comment in the thread. */
+  excerpt: string;
+  at: string;
+}
+
+/**
+ * GET /api/inbox: what waits for me, by what I can do about it, and what I submitted. `actionCount` is the number
+ * the top bar shows: everything in the first four lists.
+ */
 export interface Inbox {
+  /** Reviewer or lead: revisions submitted to me and waiting for a decision. */
   waitingForMe: InboxItem[];
+  /** Engineer: my revisions returned for changes (the latest revision of their design). */
+  returnedToMe: InboxItem[];
+  /** Lead: approved revisions in projects I lead, waiting for release. */
+  awaitingRelease: InboxItem[];
+  /** Engineer: open comment threads on my designs' revisions where someone else spoke last. */
+  newComments: InboxComment[];
+  /** Revisions I submitted (any state since). */
   submittedByMe: InboxItem[];
+  actionCount: number;
 }
 
 /** One mail the local fake SMTP server captured. */

@@ -1,4 +1,4 @@
-import { driverExamples } from '../driver/driver-examples';
+import { driverExamples } from './driver-examples';
 import type { CapacitorPart, Design, DiodePart } from './design.types';
 
 /*

@@ -1,4 +1,4 @@
-import type { DriverStage } from '../driver/driver.types';
+import type { DriverStage } from './driver-stage.types';
 
 /** Current version of the design document; a document of another version is refused (`unsupported_version`). */
 export const DESIGN_SCHEMA_VERSION = 1;

@@ -2,8 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { DomainError } from '../errors';
 import { batteryLife, cellCurveOf, cellOpenCircuitVoltageV } from './battery';
 import { defaultCellCurves } from './cell-curves';
-import { driverExamples } from './driver-examples';
-import type { CellsSupply } from './driver.types';
+import { driverExamples } from '../designs/driver-examples';
+import type { CellsSupply } from '../designs/driver-stage.types';
 
 // The demo supply: two alkaline cells, 2.5 Ah, 0.15 Ω each, 0.9 V end point (NAMING.md scenario).
 const demoSupply = driverExamples.surfaceChargeTester.supply;

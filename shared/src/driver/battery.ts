@@ -1,6 +1,7 @@
 import { DomainError } from '../errors';
 import { defaultCellCurves, defaultCellMaxContinuousCurrentA } from './cell-curves';
-import type { CellCurvePoint, CellsSupply, DriverSupply, Estimated, MethodInfo } from './driver.types';
+import type { CellCurvePoint, CellsSupply, DriverSupply } from '../designs/driver-stage.types';
+import type { Estimated, MethodInfo } from '../methods';
 
 /** The per-cell curve of a cells supply, sorted by rising charge fraction and checked. */
 export function cellCurveOf(supply: CellsSupply): CellCurvePoint[] {

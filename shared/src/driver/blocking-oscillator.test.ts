@@ -2,8 +2,8 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { DomainError } from '../errors';
 import { estimateBlockingOscillator } from './blocking-oscillator';
-import { driverExamples } from './driver-examples';
-import type { DriverStage } from './driver.types';
+import { driverExamples } from '../designs/driver-examples';
+import type { DriverStage } from '../designs/driver-stage.types';
 
 /** An ideal bench-supplied stage: no series resistances, so the textbook linear relations apply exactly. */
 function idealStage(overrides: Partial<DriverStage> = {}): DriverStage {
@@ -37,7 +37,12 @@ describe('estimateBlockingOscillator against published relations', () => {
   // Independent arithmetic from the relations of REFERENCES.md §3.
   const vin = 3;
   const ib = (vin + (vin - 0.2) * (5 / 10) - 0.7) / 1000; // base drive, common practice: 3.7 mA
-  const ipk = 100 * ib; // base-limited end of on-time, hFE·I_B (pulse-circuits text, ch. 13)
+  // Base-limited end of the on-time, i = hFE·I_B (pulse-circuits text, ch. 13), with the junction at the
+  // turn-off current: V_BE = V_T·ln(1 + i/I_S), Ebers–Moll forward law (I_S 1e-14 A, V_T = kT/q at 300.15 K),
+  // solved here by 50 fixed-point passes (independent of the estimate's three).
+  const vt = (1.380649e-23 * 300.15) / 1.602176634e-19;
+  let ipk = 100 * ib;
+  for (let pass = 0; pass < 50; pass++) ipk = (100 * (vin + (vin - 0.2) * 0.5 - vt * Math.log1p(ipk / 1e-14))) / 1000;
 
   it('takes the base current from V_B = Vin + Vp·Nb/Np over R_B (common practice)', () => {
     closeRel(e.baseCurrentA.value, 3.7e-3);
@@ -46,24 +51,26 @@ describe('estimateBlockingOscillator against published relations', () => {
 
   it('ends a base-limited on-time at hFE·I_B and says so', () => {
     expect(e.onTimeLimit).toBe('base');
-    closeRel(e.peakPrimaryCurrentA.value, ipk);
+    closeRel(e.peakPrimaryCurrentA.value, ipk, 1e-7);
+    // The junction at ~0.37 A sits near 0.80 V, above the 0.7 V turn-on figure: the peak is ~3 % below hFE·I_B0.
+    expect(e.peakPrimaryCurrentA.value).toBeLessThan(100 * ib);
     expect(e.peakPrimaryCurrentA.method.summary).toMatch(/base-limited/);
   });
 
   it('follows the primary ramp i = (Vin − Vce,sat)·t/Lp (Wikipedia "Blocking oscillator")', () => {
     // t_on = Lp·Ipk/(Vin − Vce,sat) = 200 µH · 0.37 A / 2.8 V = 26.43 µs
-    closeRel(e.onTimeS.value, (200e-6 * ipk) / 2.8);
+    closeRel(e.onTimeS.value, (200e-6 * ipk) / 2.8, 1e-7);
   });
 
   it('stores E = ½·Lp·Ipk² (common practice; Pressman, from memory)', () => {
-    closeRel(e.energyPerCycleJ.value, 0.5 * 200e-6 * ipk * ipk);
+    closeRel(e.energyPerCycleJ.value, 0.5 * 200e-6 * ipk * ipk, 1e-7);
   });
 
   it('takes the flyback from the clamp: Vr = V_clamp − Vin and t_fly = Lp·Ipk/Vr (volt-second balance, Pressman from memory)', () => {
     closeRel(e.reflectedVoltageV.value, 20);
     closeRel(e.flybackSecondaryPeakV.value, 20 * 50);
-    closeRel(e.flybackTimeS.value, (200e-6 * ipk) / 20);
-    closeRel(e.frequencyHz.value, 1 / ((200e-6 * ipk) / 2.8 + (200e-6 * ipk) / 20));
+    closeRel(e.flybackTimeS.value, (200e-6 * ipk) / 20, 1e-7);
+    closeRel(e.frequencyHz.value, 1 / ((200e-6 * ipk) / 2.8 + (200e-6 * ipk) / 20), 1e-7);
     closeRel(e.forwardSecondaryPeakV.value, 2.8 * 50);
   });
 
@@ -71,8 +78,9 @@ describe('estimateBlockingOscillator against published relations', () => {
     closeRel(e.deliverablePowerW.value, e.energyPerCycleJ.value * e.frequencyHz.value);
     // Supply energy per cycle = Vin·Ipk·t_on/2 (ramp) + V_B·I_B·t_on (base drive); E is the part stored.
     const vb = 3 + 2.8 * 0.5;
-    const perCycleJ = vin * 0.5 * ipk * e.onTimeS.value + vb * ib * e.onTimeS.value;
-    closeRel(e.inputPowerW.value, perCycleJ * e.frequencyHz.value);
+    // Plus the turn-on discharge of the 100 pF collector node from Vin, ½·C·Vin² (capacitor energy).
+    const perCycleJ = vin * 0.5 * ipk * e.onTimeS.value + vb * ib * e.onTimeS.value + 0.5 * 100e-12 * vin * vin;
+    closeRel(e.inputPowerW.value, perCycleJ * e.frequencyHz.value, 1e-7);
     closeRel(e.inputCurrentA.value, e.inputPowerW.value / vin);
   });
 
@@ -82,7 +90,7 @@ describe('estimateBlockingOscillator against published relations', () => {
     );
     expect(sat.onTimeLimit).toBe('saturation');
     closeRel(sat.peakPrimaryCurrentA.value, 0.2);
-    closeRel(sat.collectorPeakCurrentA.value, ipk);
+    closeRel(sat.collectorPeakCurrentA.value, ipk, 1e-7);
     closeRel(sat.energyPerCycleJ.value, 0.5 * 200e-6 * 0.04);
   });
 
@@ -92,7 +100,7 @@ describe('estimateBlockingOscillator against published relations', () => {
     const u = estimateBlockingOscillator(leaky, { flybackSecondaryPeakV: 1000, collectorNodeCapacitanceF: 100e-12 });
     const spike = ipk * Math.sqrt(((1 - 0.95 ** 2) * 200e-6) / 100e-12);
     // Reflected flyback Vr = V₋·Np/(k·Ns): the open-circuit ratio of coupled windings is M/Lp = k·Ns/Np.
-    closeRel(u.collectorPeakV.value, 3 + 1000 / (0.95 * 50) + spike);
+    closeRel(u.collectorPeakV.value, 3 + 1000 / (0.95 * 50) + spike, 1e-7);
   });
 
   it('carries method metadata on every figure', () => {

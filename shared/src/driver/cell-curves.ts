@@ -1,4 +1,4 @@
-import type { CellChemistry, CellCurvePoint } from './driver.types';
+import type { CellChemistry, CellCurvePoint } from '../designs/driver-stage.types';
 
 /**
  * Built-in per-cell open-circuit voltage curves vs state of charge, for light drains at room temperature.

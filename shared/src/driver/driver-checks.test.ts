@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { estimateBlockingOscillator } from './blocking-oscillator';
-import { driverExamples } from './driver-examples';
+import { driverExamples } from '../designs/driver-examples';
 import { runDriverChecks } from './driver-checks';
-import type { DriverStage } from './driver.types';
+import type { DriverStage } from '../designs/driver-stage.types';
 import { halfWaveCascadeLoadLine } from './operating-point';
 
 const demo = driverExamples.surfaceChargeTester;

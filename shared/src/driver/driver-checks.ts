@@ -1,8 +1,27 @@
 import { DomainError } from '../errors';
 import { batteryLife, cellCurveOf, cellMaxContinuousCurrentA, type BatteryLifeResult } from './battery';
-import { estimateBlockingOscillator, type BlockingOscillatorEstimate } from './blocking-oscillator';
-import type { DriverCheckVerdict, DriverStage, Estimated, MethodInfo } from './driver.types';
-import { solveLoadPoint, type LadderLoadLine, type LoadPoint } from './operating-point';
+import {
+  blockingOscillatorNumbers,
+  estimateBlockingOscillator,
+  type BlockingOscillatorEstimate,
+} from './blocking-oscillator';
+import type { DriverStage } from '../designs/driver-stage.types';
+import type { Estimated, MethodInfo } from '../methods';
+import { solveLoadPoint, supplyCurrentAt, type LadderLoadLine, type LoadPoint } from './operating-point';
+import { driverEnergy, type DriverEnergy } from './driver-energy';
+
+/** One verdict of the Checks panel (same shape as the safety checks). */
+export interface DriverCheckVerdict {
+  id: string;
+  subject: string;
+  rule: string;
+  verdict: 'pass' | 'marginal' | 'fail';
+  /** (limit − value) / limit · 100 for an upper limit; negative when failing. */
+  marginPct: number;
+  value: number;
+  limit: number;
+  unit: string;
+}
 
 export interface DriverChecksInput {
   /** The ladder the driver feeds; without it the stage is checked at its clamp limit with no load. */
@@ -19,6 +38,8 @@ export interface DriverChecksResult {
   /** Hipot test voltage to ask of the transformer supplier (V), secondary to primary/feedback. */
   hipotTestVoltageV: Estimated;
   batteryLife: BatteryLifeResult | null;
+  /** Power balance at the rated load (with a ladder), else of the stage at its clamp limit with no load. */
+  energy: DriverEnergy;
 }
 
 /** Semiconductor and insulation stress derating: pass at ≤ 80 % of the rating (common practice, no source). */
@@ -84,9 +105,7 @@ function supplyCurrentTable(
     const bench: DriverStage = { ...driver, supply: { kind: 'dc', voltageV: v, sourceResistanceOhm: 0 } };
     let i: number;
     try {
-      i = ladder
-        ? solveLoadPoint(bench, ladder, loadA).supplyCurrentA
-        : estimateBlockingOscillator(bench).inputCurrentA.value;
+      i = ladder ? supplyCurrentAt(bench, ladder, loadA) : blockingOscillatorNumbers(bench).inputA;
     } catch (error) {
       if (error instanceof DomainError)
         i = 0; // the stage stops: no drain below this voltage
@@ -157,6 +176,55 @@ export function runDriverChecks(driver: DriverStage, input: DriverChecksInput = 
     );
   }
 
+  // Power balance at the rated load; without a ladder, the bare stage at its clamp limit (all flyback to the clamp).
+  const energyPoint: LoadPoint = ratedLoad ?? {
+    loadCurrentA: 0,
+    outputV: 0,
+    outputPowerW: 0,
+    ladderCurrentA: 0,
+    limitedBy: 'ladder',
+    flybackSecondaryPeakV: estimate.flybackSecondaryPeakV.value,
+    forwardSecondaryPeakV: estimate.forwardSecondaryPeakV.value,
+    flybackChargeRatio: 0,
+    frequencyHz: estimate.frequencyHz.value,
+    dutyCycle: estimate.onTimeS.value / (estimate.onTimeS.value + estimate.flybackTimeS.value),
+    supplyCurrentA: estimate.inputCurrentA.value,
+    inputPowerW: estimate.emfPowerW,
+    ladderTakesW: { forward: 0, flyback: 0 },
+    efficiency: 0,
+  };
+  const energy = driverEnergy(
+    driver,
+    energyPoint,
+    { losses: atLoad.losses, deliverableW: atLoad.deliverablePowerW.value },
+    input.ladder?.network ?? { bleederOhm: null, seriesOutputResistanceOhm: 0 },
+  );
+  const thermal = energy.transistor;
+  verdicts.push(
+    upperLimit(
+      'driver.transistor-dissipation',
+      'transistor',
+      `dissipation ≤ (Tj,max − T_ambient)/Rθ = (${thermal.maxJunctionTemperatureC} − ${thermal.ambientTemperatureC}) °C / ${thermal.thermalResistanceCPerW} °C/W${thermal.isDefaultThermal ? ' (common-practice defaults for a small leaded transistor in free air)' : ''}, junction at ${thermal.junctionTemperatureC.toFixed(0)} °C; pass at ≤ 80 % (derating, common practice)`,
+      thermal.dissipationW,
+      thermal.maxDissipationW,
+      'W',
+      stressDerating,
+    ),
+  );
+  if (energy.clamp.ratedPowerW !== null) {
+    verdicts.push(
+      upperLimit(
+        'driver.clamp-dissipation',
+        'clamp',
+        `leakage energy and the flyback the ladder does not take ≤ the clamp's rating${energy.clamp.isDefaultRating ? ` (${energy.clamp.ratedPowerW} W, common practice for a ${energy.clamp.kind === 'zener' ? 'small glass zener' : 'quarter-watt clamp resistor'})` : ''}; pass at ≤ 50 % (derating, common practice)`,
+        energy.clamp.dissipationW,
+        energy.clamp.ratedPowerW,
+        'W',
+        0.5,
+      ),
+    );
+  }
+
   const tx = driver.transformer;
   const windingPeakV = Math.max(atLoad.forwardSecondaryPeakV.value, atLoad.flybackSecondaryPeakV.value);
   const hipotTestVoltageV: Estimated = { value: 2 * windingPeakV + 1000, method: hipotMethod };
@@ -210,5 +278,5 @@ export function runDriverChecks(driver: DriverStage, input: DriverChecksInput = 
       );
     }
   }
-  return { verdicts, estimate, ratedLoad, hipotTestVoltageV, batteryLife: life };
+  return { verdicts, estimate, ratedLoad, hipotTestVoltageV, batteryLife: life, energy };
 }

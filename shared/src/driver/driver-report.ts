@@ -1,7 +1,9 @@
 import { cellCurveOf, type BatteryLifeResult } from './battery';
 import type { BlockingOscillatorEstimate } from './blocking-oscillator';
-import { runDriverChecks } from './driver-checks';
-import type { CellCurvePoint, DriverCheckVerdict, DriverStage, Estimated, MethodInfo } from './driver.types';
+import { runDriverChecks, type DriverCheckVerdict } from './driver-checks';
+import type { DriverEnergy } from './driver-energy';
+import type { CellCurvePoint, DriverStage } from '../designs/driver-stage.types';
+import type { Estimated, MethodInfo } from '../methods';
 import { driverOperatingPoint, type LadderLoadLine, type LoadPoint, type OperatingLimit } from './operating-point';
 
 const FIGURE_KEYS = [
@@ -44,6 +46,8 @@ export interface DriverReport {
     (BatteryLifeResult & { endVoltagePerCellV: number; cellCurve: CellCurvePoint[]; targetS: number | null }) | null;
   hipotTestVoltageV: Estimated;
   checks: DriverCheckVerdict[];
+  /** Power balance at the rated load: input, output, efficiency (the one efficiency figure), losses by kind, transistor and clamp dissipation. */
+  energy: DriverEnergy;
 }
 
 function figuresOf(e: BlockingOscillatorEstimate): DriverFigures {
@@ -61,8 +65,28 @@ export function driverReport(driver: DriverStage, ladder: LadderLoadLine, ratedL
   const { driver: atLoad, ...ratedLoad } = op.ratedLoad;
   const limit = checks.estimate;
   const supply = driver.supply;
+  const energy = checks.energy;
+  const figures = figuresOf(atLoad);
+  // One efficiency everywhere: output into the load over the supply's EMF power at the rated load.
+  figures.efficiency = {
+    value: energy.efficiency,
+    method: {
+      ...energy.method,
+      methodId: 'driver.efficiency-at-rated-load',
+      summary: 'η = P_out/P_in at the rated load: power into the external load over the power from the supply’s EMF.',
+    },
+  };
+  figures.inputPowerW = {
+    value: energy.inputPowerW,
+    method: {
+      ...energy.method,
+      methodId: 'driver.input-power-at-rated-load',
+      summary: 'P_in = Voc·I_in: power from the supply’s EMF at the rated load (its own resistance’s loss included).',
+    },
+  };
   return {
-    figures: figuresOf(atLoad),
+    energy,
+    figures,
     atLimit: {
       deliverablePowerW: limit.deliverablePowerW,
       flybackSecondaryPeakV: limit.flybackSecondaryPeakV,

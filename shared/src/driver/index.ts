@@ -8,12 +8,10 @@ export type {
   DriverTransistor,
   DriverClamp,
   DriverStage,
-  MethodInfo,
-  Estimated,
-  DriverCheckVerdict,
-} from './driver.types';
+} from '../designs/driver-stage.types';
+export type { MethodInfo, Estimated } from '../methods';
 export { defaultCellCurves, defaultCellMaxContinuousCurrentA } from './cell-curves';
-export { driverExamples } from './driver-examples';
+export { driverExamples } from '../designs/driver-examples';
 export {
   batteryLife,
   cellCurveOf,
@@ -23,7 +21,13 @@ export {
 } from './battery';
 export type { BatteryLifeResult } from './battery';
 export { estimateBlockingOscillator } from './blocking-oscillator';
-export type { BlockingOscillatorEstimate, BlockingOscillatorOptions, OnTimeLimit } from './blocking-oscillator';
+export type {
+  BlockingOscillatorEstimate,
+  BlockingOscillatorOptions,
+  OnTimeLimit,
+  OscillatorNumbers,
+  StageLosses,
+} from './blocking-oscillator';
 export {
   driverOperatingPoint,
   engineLadderLoadLine,
@@ -42,6 +46,11 @@ export type {
 export { driverReport } from './driver-report';
 export type { DriverFigures, DriverReport } from './driver-report';
 export { runDriverChecks } from './driver-checks';
-export type { DriverChecksInput, DriverChecksResult } from './driver-checks';
-export { buildDriverCircuit, DRIVER_NODES, DRIVER_SUPPLY_SOURCE } from './build-driver-circuit';
-export type { DriverCircuitOptions } from './build-driver-circuit';
+export type { DriverChecksInput, DriverChecksResult, DriverCheckVerdict } from './driver-checks';
+export {
+  driverEnergy,
+  DEFAULT_CLAMP_RATED_POWER_W,
+  DEFAULT_TRANSISTOR_THERMAL,
+  DRIVER_ENERGY_METHOD,
+} from './driver-energy';
+export type { DriverEnergy, LossKind, TransistorThermal } from './driver-energy';

@@ -1,11 +1,11 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { designExamples } from '../designs/design-examples';
-import { ladderInputOf, resolveDrive } from '../multiplier/analyze-design';
+import { ladderInputOf, resolveDrive } from '../analysis/analyze-design';
 import type { LadderInput } from '../multiplier/ladder.types';
 import { estimateBlockingOscillator } from './blocking-oscillator';
-import { driverExamples } from './driver-examples';
-import type { DriverStage } from './driver.types';
+import { driverExamples } from '../designs/driver-examples';
+import type { DriverStage } from '../designs/driver-stage.types';
 import {
   driverOperatingPoint,
   engineLadderLoadLine,

@@ -5,11 +5,14 @@ import { bracketedRoot } from '../multiplier/bracketed-root';
 import { withDrive } from '../multiplier/with-drive';
 import type { LadderInput } from '../multiplier/ladder.types';
 import {
-  estimateBlockingOscillator,
+  blockingOscillatorNumbers,
+  estimateOf,
   type BlockingOscillatorEstimate,
   type BlockingOscillatorOptions,
+  type OscillatorNumbers,
 } from './blocking-oscillator';
-import type { DriverStage, MethodInfo } from './driver.types';
+import type { DriverStage } from '../designs/driver-stage.types';
+import type { MethodInfo } from '../methods';
 
 /** The secondary drive a ladder sees from a blocking oscillator: unequal forward and flyback peaks. */
 export interface LadderDrive {
@@ -36,6 +39,8 @@ export interface LadderState {
 export interface LadderLoadLine {
   at(drive: LadderDrive, loadCurrentA: number): LadderState;
   chargeRatios(drive: LadderDrive, ladderCurrentA: number): { flyback: number; forward: number };
+  /** The output network, for the power balance (bleeder Ω or null, series output resistor Ω); none when absent. */
+  network?: { bleederOhm: number | null; seriesOutputResistanceOhm: number };
 }
 
 /** The pulse drive of the ladder model for a LadderDrive behind the secondary winding resistance (Ω). */
@@ -71,6 +76,7 @@ export function engineLadderLoadLine(input: LadderInput): LadderLoadLine {
     return terminalMeanAt(bare, ladderCurrentA);
   };
   return {
+    network: { bleederOhm: input.bleederOhm, seriesOutputResistanceOhm: seriesOhm },
     at(drive, loadCurrentA) {
       const pulse = pulseDriveOf(drive, sourceOhm);
       loaded = loaded ? withDrive(loaded, pulse) : prepareLadder({ ...input, load: null, drive: pulse });
@@ -130,12 +136,18 @@ export interface LoadPoint {
    *  'power': the driver's energy per cycle sets it (flyback below its limit). */
   limitedBy: OperatingLimit;
   flybackSecondaryPeakV: number;
+  /** Forward (on-time) secondary peak at this load (V); it rises a little as the supply sags less at light loads. */
+  forwardSecondaryPeakV: number;
   /** Charge the flyback pushes per unit of ladder output charge (∂V_top/∂V₋). */
   flybackChargeRatio: number;
   frequencyHz: number;
   dutyCycle: number;
   supplyCurrentA: number;
-  /** Output power over supply power. */
+  /** Power drawn from the supply's EMF (W): what the cells or the bench supply give up. */
+  inputPowerW: number;
+  /** Power the ladder takes from the secondary (W): from the forward pulse and from the flyback. */
+  ladderTakesW: { forward: number; flyback: number };
+  /** Output power (into the external load) over the power from the supply's EMF. */
   efficiency: number;
 }
 
@@ -162,43 +174,60 @@ export const OPERATING_POINT_METHOD: MethodInfo = {
     'Energy conservation per cycle: E = ½ Lp Ipk², P = E f η (common practice; Pressman, Switching Power Supply Design, from memory); ladder by charge-transfer-v1',
 };
 
-function driveOf(e: BlockingOscillatorEstimate): LadderDrive {
-  const onS = e.onTimeS.value;
+function driveOf(e: OscillatorNumbers): LadderDrive {
   return {
-    forwardPeakV: e.forwardSecondaryPeakV.value,
-    flybackPeakV: e.flybackSecondaryPeakV.value,
-    frequencyHz: e.frequencyHz.value,
-    dutyCycle: onS / (onS + e.flybackTimeS.value),
+    forwardPeakV: e.forwardSecV,
+    flybackPeakV: e.flybackSecV,
+    frequencyHz: e.frequencyHz,
+    dutyCycle: e.tOn / (e.tOn + e.tFly),
   };
 }
 
+/** A load point with the stage's numbers and the options they were computed with (numbers only, no method notes). */
+interface SolvedPoint {
+  point: LoadPoint;
+  stage: OscillatorNumbers;
+  stageOptions: BlockingOscillatorOptions;
+}
+
 /**
- * Where the driver meets the ladder: the output voltage (V) at an external load current (A), with the limit
- * that sets it. Method: OPERATING_POINT_METHOD (power balance per cycle, see its summary).
+ * The load point as numbers. `limit` is the stage at its clamp limit with no forward load (the same for every
+ * load current of one driver), passed in by callers that solve many loads; `flybackGuessV` warm-starts the
+ * power balance from a nearby load's flyback.
  */
-export function solveLoadPoint(
+function solvePoint(
   driver: DriverStage,
   ladder: LadderLoadLine,
   loadCurrentA: number,
-  options: BlockingOscillatorOptions = {},
-): LoadPoint & { driver: BlockingOscillatorEstimate } {
+  options: BlockingOscillatorOptions,
+  limit: OscillatorNumbers = blockingOscillatorNumbers(driver, options),
+): SolvedPoint {
   if (!(loadCurrentA >= 0)) throw new DomainError('invalid_argument', 'load current must be ≥ 0', 'loadCurrentA');
-  const limitEst = estimateBlockingOscillator(driver, options);
-  const maxFlyV = limitEst.maxFlybackSecondaryPeakV;
-  const limitDrive = driveOf(limitEst);
+  const maxFlyV = limit.maxFlybackSecV;
+  const limitDrive = driveOf(limit);
   const limitLadderA = ladder.at(limitDrive, loadCurrentA).ladderCurrentA;
   const ratios = ladder.chargeRatios(limitDrive, limitLadderA);
   // The forward pulse's load on the supply, g₊·V₊·I_ladder, taken at the limit drive and held through the
   // solve, so that the supply sag is the same in the balance and in the reported figures.
-  const forwardLoadPowerW = ratios.forward * limitEst.forwardSecondaryPeakV.value * limitLadderA;
-  const at = (flyV: number) =>
-    estimateBlockingOscillator(driver, { ...options, flybackSecondaryPeakV: flyV, forwardLoadPowerW });
+  const forwardLoadPowerW = ratios.forward * limit.forwardSecV * limitLadderA;
+  let supplyGuessV = limit.vin;
+  const at = (flyV: number): { stage: OscillatorNumbers; options: BlockingOscillatorOptions } => {
+    const stageOptions = {
+      ...options,
+      flybackSecondaryPeakV: flyV,
+      forwardLoadPowerW,
+      supplyVoltageGuessV: supplyGuessV,
+    };
+    const stage = blockingOscillatorNumbers(driver, stageOptions);
+    supplyGuessV = stage.vin;
+    return { stage, options: stageOptions };
+  };
   // Surplus of flyback power over what the ladder takes, per volt of flyback. Copper loss makes it fall at
   // very slow flybacks too, so there can be two roots: take the highest (the stable one) by scanning down
   // from the limit on a log grid (8 points a decade over 6 decades), then solving in that bracket.
   const surplus = (flyV: number) => {
-    const e = at(flyV);
-    return e.deliverablePowerW.value / flyV - ratios.flyback * ladder.at(driveOf(e), loadCurrentA).ladderCurrentA;
+    const e = at(flyV).stage;
+    return e.deliverableW / flyV - ratios.flyback * ladder.at(driveOf(e), loadCurrentA).ladderCurrentA;
   };
   let flyV = maxFlyV;
   let limitedBy: OperatingLimit = 'ladder';
@@ -228,23 +257,55 @@ export function solveLoadPoint(
       flyV = bracketedRoot(surplus, lo, hi, surplusLo, surplusHi, (hi - lo) * 2 ** -40);
     }
   }
-  const withForward = at(flyV);
-  const loaded = ladder.at(driveOf(withForward), loadCurrentA);
+  const solved = at(flyV);
+  const stage = solved.stage;
+  const loaded = ladder.at(driveOf(stage), loadCurrentA);
   const outputPowerW = loaded.outputV * loadCurrentA;
+  const flybackTakenW = Math.min(stage.deliverableW, ratios.flyback * loaded.ladderCurrentA * flyV);
   return {
-    loadCurrentA,
-    outputV: loaded.outputV,
-    outputPowerW,
-    ladderCurrentA: loaded.ladderCurrentA,
-    limitedBy,
-    flybackSecondaryPeakV: flyV,
-    flybackChargeRatio: ratios.flyback,
-    frequencyHz: withForward.frequencyHz.value,
-    dutyCycle: driveOf(withForward).dutyCycle ?? 0.5,
-    supplyCurrentA: withForward.inputCurrentA.value,
-    efficiency: outputPowerW / withForward.inputPowerW.value,
-    driver: withForward,
+    point: {
+      loadCurrentA,
+      outputV: loaded.outputV,
+      outputPowerW,
+      ladderCurrentA: loaded.ladderCurrentA,
+      limitedBy,
+      flybackSecondaryPeakV: flyV,
+      forwardSecondaryPeakV: stage.forwardSecV,
+      flybackChargeRatio: ratios.flyback,
+      frequencyHz: stage.frequencyHz,
+      dutyCycle: driveOf(stage).dutyCycle ?? 0.5,
+      supplyCurrentA: stage.inputA,
+      inputPowerW: stage.emfW,
+      ladderTakesW: { forward: forwardLoadPowerW, flyback: flybackTakenW },
+      efficiency: outputPowerW / stage.emfW,
+    },
+    stage,
+    stageOptions: solved.options,
   };
+}
+
+/**
+ * Where the driver meets the ladder: the output voltage (V) at an external load current (A), with the limit
+ * that sets it. Method: OPERATING_POINT_METHOD (power balance per cycle, see its summary).
+ */
+export function solveLoadPoint(
+  driver: DriverStage,
+  ladder: LadderLoadLine,
+  loadCurrentA: number,
+  options: BlockingOscillatorOptions = {},
+): LoadPoint & { driver: BlockingOscillatorEstimate } {
+  const { point, stage, stageOptions } = solvePoint(driver, ladder, loadCurrentA, options);
+  return { ...point, driver: estimateOf(driver, stageOptions, stage) };
+}
+
+/** The supply current (A) the driver draws at an external load current (A): the load point's numbers only. */
+export function supplyCurrentAt(
+  driver: DriverStage,
+  ladder: LadderLoadLine,
+  loadCurrentA: number,
+  options: BlockingOscillatorOptions = {},
+): number {
+  return solvePoint(driver, ladder, loadCurrentA, options).point.supplyCurrentA;
 }
 
 /**
@@ -259,14 +320,15 @@ export function driverOperatingPoint(
   options: BlockingOscillatorOptions & { points?: number } = {},
 ): OperatingPointResult {
   const points = Math.max(2, options.points ?? 25);
-  const limitEst = estimateBlockingOscillator(driver, options);
-  const maxFlyV = limitEst.maxFlybackSecondaryPeakV;
+  const limitEst = blockingOscillatorNumbers(driver, options);
+  const maxFlyV = limitEst.maxFlybackSecV;
   const limitDrive = driveOf(limitEst);
+  const pointAt = (loadA: number) => solvePoint(driver, ladder, loadA, options, limitEst).point;
   // Deliverable flyback power over what the ladder takes at the limit drive, per volt of flyback: power-limited below zero.
   const limitSurplusAt = (loadA: number) => {
     const state = ladder.at(limitDrive, loadA);
     return (
-      limitEst.deliverablePowerW.value / maxFlyV -
+      limitEst.deliverableW / maxFlyV -
       ladder.chargeRatios(limitDrive, state.ladderCurrentA).flyback * state.ladderCurrentA
     );
   };
@@ -290,20 +352,22 @@ export function driverOperatingPoint(
   // End of the curve: where the output reaches zero; bracket by doubling from the onset, then 24 bisections
   // (6e-8 relative, far below the curve's sampling).
   let hiA = Math.max(powerLimitOnsetA, 1e-9);
-  for (let k = 0; k < 60 && solveLoadPoint(driver, ladder, hiA, options).outputV > 0; k++) hiA *= 2;
+  for (let k = 0; k < 60 && pointAt(hiA).outputV > 0; k++) hiA *= 2;
   let loA = 0;
   for (let k = 0; k < 24; k++) {
     const mid = 0.5 * (loA + hiA);
-    if (solveLoadPoint(driver, ladder, mid, options).outputV > 0) loA = mid;
+    if (pointAt(mid).outputV > 0) loA = mid;
     else hiA = mid;
   }
   const curve: LoadPoint[] = [];
   for (let i = 0; i < points; i++) {
-    const { driver: _unused, ...point } = solveLoadPoint(driver, ladder, (hiA * i) / (points - 1), options);
-    curve.push(point);
+    curve.push(pointAt((hiA * i) / (points - 1)));
   }
   return {
-    ratedLoad: solveLoadPoint(driver, ladder, ratedLoadCurrentA, options),
+    ratedLoad: (() => {
+      const rated = solvePoint(driver, ladder, ratedLoadCurrentA, options, limitEst);
+      return { ...rated.point, driver: estimateOf(driver, rated.stageOptions, rated.stage) };
+    })(),
     powerLimitOnsetA,
     curve,
     method: OPERATING_POINT_METHOD,

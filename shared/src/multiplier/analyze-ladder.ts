@@ -4,7 +4,8 @@ import { createWorkspace, outputLoad, solveCycle, solveOperatingPoint } from './
 import type { Workspace } from './charge-transfer-model';
 import { ladderNodeVoltages, NODE_VOLTAGE_METHOD } from './ladder-nodes';
 import { textbookFigures } from './textbook-formulas';
-import type { CapacitorStress, DiodeStress, LadderAnalysis, LadderInput, MethodInfo } from './ladder.types';
+import type { CapacitorStress, DiodeStress, LadderAnalysis, LadderInput } from './ladder.types';
+import type { MethodInfo } from '../methods';
 
 export const STEADY_STATE_METHOD: MethodInfo = {
   methodId: 'charge-transfer-v1',

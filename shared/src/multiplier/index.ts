@@ -13,8 +13,6 @@ export { buildLadderNetwork } from './topologies';
 export type { LadderNetwork } from './topologies';
 export { ladderCurves } from './ladder-curves';
 export { ladderStressChecks, bleederStressChecks, DERATING } from './ladder-stress';
-export { analyzeDesign, analyzeLadderReport, evaluateChecks, resolveDrive, ladderInputOf } from './analyze-design';
-export type { DesignReport, LadderReport, LadderReportOptions } from './analyze-design';
 export { ENGINE_VERSION } from './engine-version';
 export type {
   LadderInput,
@@ -27,7 +25,7 @@ export type {
   LadderNodeVoltage,
   LadderNodeColumn,
   TextbookFigures,
-  MethodInfo,
 } from './ladder.types';
+export type { MethodInfo } from '../methods';
 export { capacitorPlaces, capacitorRoleChanges } from './capacitor-places';
 export type { CapacitorPlace, CapacitorRoleChange } from './capacitor-places';

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { designExamples } from '../designs/design-examples';
-import { ladderInputOf, resolveDrive } from './analyze-design';
+import { ladderInputOf, resolveDrive } from '../analysis/analyze-design';
 import { analyzeLadder, prepareLadder, terminalMeanAt } from './analyze-ladder';
 import { ladderCurves, resizeCapacitors } from './ladder-curves';
 import type { LadderInput } from './ladder.types';

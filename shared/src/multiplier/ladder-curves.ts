@@ -1,6 +1,7 @@
 import { prepareLadder, terminalMeanAt, type PreparedLadder } from './analyze-ladder';
 import { bracketedRoot } from './bracketed-root';
-import type { CurvePoint, LadderCurves, LadderInput, MethodInfo } from './ladder.types';
+import type { CurvePoint, LadderCurves, LadderInput } from './ladder.types';
+import type { MethodInfo } from '../methods';
 
 const CURVES_METHOD: MethodInfo = {
   methodId: 'charge-transfer-sweeps-v2',

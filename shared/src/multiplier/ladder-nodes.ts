@@ -1,5 +1,6 @@
 import type { Workspace } from './charge-transfer-model';
-import type { LadderNodeVoltage, MethodInfo } from './ladder.types';
+import type { LadderNodeVoltage } from './ladder.types';
+import type { MethodInfo } from '../methods';
 
 export const NODE_VOLTAGE_METHOD: MethodInfo = {
   methodId: 'charge-transfer-nodes-v1',

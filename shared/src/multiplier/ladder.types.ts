@@ -1,7 +1,5 @@
-import type { MethodInfo } from '../driver/driver.types';
+import type { MethodInfo } from '../methods';
 import type { PulseDrive, SineDrive, Topology } from '../designs/design.types';
-
-export type { MethodInfo };
 
 /** The Shockley parameters the steady-state model needs from a diode. */
 export interface DiodeModel {

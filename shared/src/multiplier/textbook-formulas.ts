@@ -1,4 +1,5 @@
-import type { LadderInput, MethodInfo, TextbookFigures } from './ladder.types';
+import type { LadderInput, TextbookFigures } from './ladder.types';
+import type { MethodInfo } from '../methods';
 
 const TEXTBOOK_METHOD: MethodInfo = {
   methodId: 'textbook-closed-forms',

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { designExamples } from '../designs/design-examples';
 import type { PulseDrive } from '../designs/design.types';
-import { ladderInputOf, resolveDrive } from './analyze-design';
+import { ladderInputOf, resolveDrive } from '../analysis/analyze-design';
 import { analyzePrepared, prepareLadder, terminalMeanAt } from './analyze-ladder';
 import { withDrive } from './with-drive';
 

@@ -1,6 +1,6 @@
 import type { Design } from '../designs/design.types';
 import type { FieldIssue } from '../errors';
-import { analyzeDesign, type DesignReport } from '../multiplier/analyze-design';
+import { analyzeDesign, type DesignReport } from '../analysis/analyze-design';
 import { fillPartRatings, type ShelfPart } from './fill-part-ratings';
 
 /** The design report with the shelf look-up it was computed after. */

@@ -2,7 +2,7 @@ import { DomainError } from '../errors';
 import type { DischargeRule } from '../designs/design.types';
 import { HV_CAUTION, upperLimitVerdict } from './hazard-limits';
 import type { CheckVerdict } from './check.types';
-import type { MethodInfo } from '../driver/driver.types';
+import type { MethodInfo } from '../methods';
 
 export const DISCHARGE_METHOD: MethodInfo = {
   methodId: 'bleeder-rc-v1',

@@ -1,7 +1,7 @@
 import { storedChargeLimit, upperLimitVerdict } from './hazard-limits';
 import type { HazardStandard } from './hazard-limits';
 import type { CheckVerdict } from './check.types';
-import type { MethodInfo } from '../driver/driver.types';
+import type { MethodInfo } from '../methods';
 
 export interface StoredEnergyItem {
   index: number;

@@ -2,7 +2,9 @@ import { DomainError } from '../errors';
 import type { Circuit, SimulationTolerances } from './circuit.types';
 import { MnaSystem } from './mna-system';
 import { solveDense } from './solver/dense-lu';
-import { DEFAULT_TOLERANCES, SampleBuffer, solveNewton } from './transient';
+import { solveNewton } from './newton';
+import { SampleBuffer } from './sample-buffer';
+import { DEFAULT_TOLERANCES } from './tolerances';
 
 export interface PeriodicSteadyStateOptions {
   periodS: number;

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { buildLadderCircuit, type LadderCircuitSpec } from './build-circuit';
+import { buildLadderCircuit, type LadderCircuitSpec } from '../circuits/build-ladder-circuit';
 import { MnaSystem } from './mna-system';
 import { TransientStepper } from './transient';
 

@@ -1,22 +1,10 @@
 import { DomainError } from '../errors';
-import type {
-  Circuit,
-  IntegrationMethod,
-  SimulationTolerances,
-  TransientOptions,
-  TransientResult,
-} from './circuit.types';
-import { MnaSystem } from './mna-system';
-
-/** SPICE's default tolerances (reltol, vntol, abstol, chgtol, trtol), and its transient Newton limit raised. */
-export const DEFAULT_TOLERANCES: SimulationTolerances = {
-  relative: 1e-3,
-  voltageAbsoluteV: 1e-6,
-  currentAbsoluteA: 1e-12,
-  chargeAbsoluteC: 1e-14,
-  truncationErrorFactor: 7,
-  maxNewtonIterations: 40,
-};
+import type { IntegrationMethod, SimulationTolerances } from './circuit.types';
+import type { MnaSystem } from './mna-system';
+import { solveNewton } from './newton';
+import { solveOperatingPoint } from './operating-point';
+import { PeriodHistory } from './period-history';
+import { DEFAULT_TOLERANCES } from './tolerances';
 
 /**
  * Default truncation-error factor of a circuit with a transistor: SPICE's 7 over 6, a bound six times
@@ -26,93 +14,6 @@ export const DEFAULT_TOLERANCES: SimulationTolerances = {
  * (test/driver). Diode ladders keep SPICE's bound and SPICE's steps.
  */
 const SWITCHING_TRUNCATION_ERROR_FACTOR = 7 / 6;
-
-/**
- * Newton–Raphson at the present integration coefficients until the update is within tolerance and no
- * junction voltage was limited. x holds the initial guess and receives the solution. Returns the number
- * of iterations, or −1 when it did not converge. With `acceptOnDeviceTest`, a solve whose junctions all
- * pass the device test is accepted without the node-voltage test (see below); the shooting method,
- * which differentiates the period map, keeps the full test.
- */
-export function solveNewton(
-  system: MnaSystem,
-  a0: number,
-  tolerances: SimulationTolerances,
-  maxIterations: number,
-  acceptOnDeviceTest = false,
-): number {
-  const x = system.x;
-  const n = system.size;
-  let isVoltage: Uint8Array | null = null;
-  for (let iteration = 1; iteration <= maxIterations; iteration++) {
-    const limited = system.load(a0);
-    const next = system.solveLoaded();
-    // Node voltages of a ladder are kilovolts, so reltol on them alone lets a junction move by a volt;
-    // SPICE's device test on each junction's current closes that gap (L. W. Nagel, SPICE2, 1975).
-    let converged = !limited && system.devicesConverged(next, tolerances.relative, tolerances.currentAbsoluteA);
-    if (converged && acceptOnDeviceTest && !system.hasNonlinearCharges) {
-      // Every nonlinearity is a junction current and each passed its test, so the linear system just
-      // solved is the circuit's own to within the current tolerances: the increment of the linear
-      // unknowns (capacitor nodes, branch currents) says nothing more. SPICE's node test would only make
-      // an exact linear step, from a predictor that was off, wait one more solve.
-      for (let i = 0; i < n; i++) {
-        const xn = next[i]!;
-        if (!Number.isFinite(xn)) return -1;
-        x[i] = xn;
-      }
-      return iteration;
-    }
-    isVoltage ??= nodeMask(system);
-    for (let i = 0; i < n; i++) {
-      const xn = next[i]!;
-      if (!Number.isFinite(xn)) return -1;
-      if (converged) {
-        const xo = x[i]!;
-        const tol =
-          tolerances.relative * Math.max(Math.abs(xn), Math.abs(xo)) +
-          (isVoltage[i] ? tolerances.voltageAbsoluteV : tolerances.currentAbsoluteA * 1e3);
-        if (Math.abs(xn - xo) > tol) converged = false;
-      }
-      x[i] = xn;
-    }
-    if (converged) return iteration;
-  }
-  return -1;
-}
-
-const masks = new WeakMap<MnaSystem, Uint8Array>();
-function nodeMask(system: MnaSystem): Uint8Array {
-  let m = masks.get(system);
-  if (!m) {
-    m = new Uint8Array(system.size).fill(1);
-    for (const b of system.branchIndex.values()) m[b] = 0;
-    masks.set(system, m);
-  }
-  return m;
-}
-
-/**
- * DC operating point: Newton at t = 0 with capacitors open and windings shorted through their resistance;
- * on failure, gmin stepping (a shunt from every node to ground, 1e-2 S down by decades to none).
- */
-export function solveOperatingPoint(system: MnaSystem, timeS: number, tolerances: SimulationTolerances): void {
-  system.hist.fill(0);
-  system.prepareLinearMatrix(0, timeS);
-  system.prepareStepRhs(timeS);
-  system.shuntConductanceS = 0;
-  if (solveNewton(system, 0, tolerances, 100) > 0) return;
-  system.x.fill(0);
-  for (let exponent = -2; exponent >= -13; exponent--) {
-    system.shuntConductanceS = exponent === -13 ? 0 : 10 ** exponent;
-    if (solveNewton(system, 0, tolerances, 100) < 0) {
-      system.shuntConductanceS = 0;
-      throw new DomainError('not_converged', 'no DC operating point (gmin stepping failed)', null, [
-        { path: 'operatingPoint', message: `gmin ${10 ** exponent} S` },
-      ]);
-    }
-  }
-  system.shuntConductanceS = 0;
-}
 
 /**
  * Time stepper: trapezoidal or second-order Gear (BDF2, variable step) integration with the step chosen
@@ -273,36 +174,7 @@ export class TransientStepper {
         past.endS = t1;
         past.stepS = h;
       }
-      const next = past && base >= 0 ? past.findBack(1, true, 1) : -1;
-      const pj = this.predictedJunction;
-      if (next >= 0) {
-        // Periodic predictor: the point one period back, moved by the drift since then,
-        // x(t1 − T) + (x(t0) − x(t0 − T)), and with more periods kept the drift itself extrapolated from
-        // one period to the next. A multiplier charging up or settling is a periodic waveform on a slow drift,
-        // so this foresees each diode's conduction pulse, which an extrapolation of the last two points
-        // cannot.
-        let periods = 1;
-        const refs = this.periodRefs;
-        refs[0] = next;
-        refs[1] = base;
-        while (periods < PeriodHistory.PERIODS) {
-          const n = past!.findBack(periods + 1, true, 2 * periods);
-          const b = n >= 0 ? past!.findBack(periods + 1, false, 2 * periods + 1) : -1;
-          if (b < 0) break;
-          refs[2 * periods] = n;
-          refs[2 * periods + 1] = b;
-          periods++;
-        }
-        past!.predict(refs, periods, this.x0, x, sys.size, this.junction0, pj);
-        sys.predictJunctions(this.junction0, pj);
-      } else if (this.acceptedSteps > 1 && this.previousStepS > 0 && !isEuler) {
-        // Linear extrapolation of the last two points.
-        const ratio = h / this.previousStepS;
-        for (let i = 0; i < sys.size; i++) x[i] = this.x0[i]! + ratio * (this.x0[i]! - this.xm1[i]!);
-        for (let k = 0; k < pj.length; k++)
-          pj[k] = this.junction0[k]! + ratio * (this.junction0[k]! - this.junctionM1[k]!);
-        sys.predictJunctions(this.junction0, pj);
-      } else x.set(this.x0);
+      this.predict(past, base, h, isEuler);
       const iterations = solveNewton(sys, a0, tol, tol.maxNewtonIterations, true);
       if (iterations < 0) {
         this.rejectedSteps++;
@@ -319,55 +191,13 @@ export class TransientStepper {
       }
       this.newtonIterations += iterations;
       sys.evaluateLinearCharges();
-      const q1 = sys.charge;
-      // Local truncation error from the third divided difference of each charge.
-      let hNew = Infinity;
-      if (!isEuler && this.historyCount >= 3) {
-        const t0 = this.timeS;
-        const tm1 = this.tHistory[1]!;
-        const tm2 = this.tHistory[2]!;
-        const factor = this.method === 'trapezoidal' ? 1 / 12 : 2 / 9;
-        const hist = sys.hist;
-        // Divided differences with the step reciprocals formed once; the bound on h² is minimized over the
-        // charges and its root taken once.
-        const r10 = 1 / (t1 - t0);
-        const r01 = 1 / (t0 - tm1);
-        const r12 = 1 / (tm1 - tm2);
-        const s1 = 1 / (t1 - tm1);
-        const s2 = 1 / (t0 - tm2);
-        // SPICE3's bound (cktterr): the error constant times the third divided difference itself, not
-        // times the third derivative it estimates (6·DD3), so that SPICE's tolerances give SPICE's steps.
-        const s3 = factor / (t1 - tm2);
-        const chargeScale = tol.relative / h;
-        let boundH2 = Infinity;
-        const q0 = this.q0;
-        const qm1 = this.qm1;
-        const qm2 = this.qm2;
-        const qd0 = this.qd0;
-        for (let k = 0; k < sys.reactiveCount; k++) {
-          const qa = q1[k]!;
-          const qb = q0[k]!;
-          const qc = qm1[k]!;
-          const qe = qm2[k]!;
-          const d1a = (qa - qb) * r10;
-          const d1b = (qb - qc) * r01;
-          const d1c = (qc - qe) * r12;
-          const err = Math.abs((d1a - d1b) * s1 - (d1b - d1c) * s2) * s3;
-          if (!(err > 0)) continue;
-          const i1 = a0 * qa + hist[k]!;
-          const currentTol = tol.currentAbsoluteA + tol.relative * Math.max(Math.abs(i1), Math.abs(qd0[k]!));
-          const chargeTol = chargeScale * Math.max(Math.abs(qa), Math.abs(qb), tol.chargeAbsoluteC);
-          const allowed = tol.truncationErrorFactor * Math.max(currentTol, chargeTol);
-          if (allowed < boundH2 * err) boundH2 = allowed / err;
-        }
-        hNew = Math.sqrt(boundH2);
-        if (hNew < 0.9 * h) {
-          this.rejectedSteps++;
-          sys.restoreJunctionState(this.junction0);
-          x.set(this.x0);
-          this.stepS = Math.max(hNew, h / 4);
-          continue;
-        }
+      const hNew = !isEuler && this.historyCount >= 3 ? this.truncationStepBoundS(t1, h, a0) : Infinity;
+      if (hNew < 0.9 * h) {
+        this.rejectedSteps++;
+        sys.restoreJunctionState(this.junction0);
+        x.set(this.x0);
+        this.stepS = Math.max(hNew, h / 4);
+        continue;
       }
       // Accept.
       this.acceptStep(t1, h, a0);
@@ -381,6 +211,94 @@ export class TransientStepper {
       }
       return this.timeS;
     }
+  }
+
+  /**
+   * Puts the predicted solution of a step of length h into the system's unknowns and junction state:
+   * the periodic predictor when the last period has a point to start from, else a linear extrapolation of
+   * the last two points, else the last point.
+   */
+  private predict(past: PeriodHistory | null, base: number, h: number, isEuler: boolean): void {
+    const sys = this.system;
+    const x = sys.x;
+    const next = past && base >= 0 ? past.findBack(1, true, 1) : -1;
+    const pj = this.predictedJunction;
+    if (next >= 0) {
+      // Periodic predictor: the point one period back, moved by the drift since then,
+      // x(t1 − T) + (x(t0) − x(t0 − T)), and with more periods kept the drift itself extrapolated from
+      // one period to the next. A multiplier charging up or settling is a periodic waveform on a slow drift,
+      // so this foresees each diode's conduction pulse, which an extrapolation of the last two points
+      // cannot.
+      let periods = 1;
+      const refs = this.periodRefs;
+      refs[0] = next;
+      refs[1] = base;
+      while (periods < PeriodHistory.PERIODS) {
+        const n = past!.findBack(periods + 1, true, 2 * periods);
+        const b = n >= 0 ? past!.findBack(periods + 1, false, 2 * periods + 1) : -1;
+        if (b < 0) break;
+        refs[2 * periods] = n;
+        refs[2 * periods + 1] = b;
+        periods++;
+      }
+      past!.predict(refs, periods, this.x0, x, sys.size, this.junction0, pj);
+      sys.predictJunctions(this.junction0, pj);
+    } else if (this.acceptedSteps > 1 && this.previousStepS > 0 && !isEuler) {
+      // Linear extrapolation of the last two points.
+      const ratio = h / this.previousStepS;
+      for (let i = 0; i < sys.size; i++) x[i] = this.x0[i]! + ratio * (this.x0[i]! - this.xm1[i]!);
+      for (let k = 0; k < pj.length; k++)
+        pj[k] = this.junction0[k]! + ratio * (this.junction0[k]! - this.junctionM1[k]!);
+      sys.predictJunctions(this.junction0, pj);
+    } else x.set(this.x0);
+  }
+
+  /**
+   * Step the charges' local truncation error allows (SPICE3's cktterr bound), from the third divided
+   * difference of each charge over the new point and the last three.
+   */
+  private truncationStepBoundS(t1: number, h: number, a0: number): number {
+    const sys = this.system;
+    const tol = this.tolerances;
+    const q1 = sys.charge;
+    const t0 = this.timeS;
+    const tm1 = this.tHistory[1]!;
+    const tm2 = this.tHistory[2]!;
+    const factor = this.method === 'trapezoidal' ? 1 / 12 : 2 / 9;
+    const hist = sys.hist;
+    // Divided differences with the step reciprocals formed once; the bound on h² is minimized over the
+    // charges and its root taken once.
+    const r10 = 1 / (t1 - t0);
+    const r01 = 1 / (t0 - tm1);
+    const r12 = 1 / (tm1 - tm2);
+    const s1 = 1 / (t1 - tm1);
+    const s2 = 1 / (t0 - tm2);
+    // SPICE3's bound (cktterr): the error constant times the third divided difference itself, not
+    // times the third derivative it estimates (6·DD3), so that SPICE's tolerances give SPICE's steps.
+    const s3 = factor / (t1 - tm2);
+    const chargeScale = tol.relative / h;
+    let boundH2 = Infinity;
+    const q0 = this.q0;
+    const qm1 = this.qm1;
+    const qm2 = this.qm2;
+    const qd0 = this.qd0;
+    for (let k = 0; k < sys.reactiveCount; k++) {
+      const qa = q1[k]!;
+      const qb = q0[k]!;
+      const qc = qm1[k]!;
+      const qe = qm2[k]!;
+      const d1a = (qa - qb) * r10;
+      const d1b = (qb - qc) * r01;
+      const d1c = (qc - qe) * r12;
+      const err = Math.abs((d1a - d1b) * s1 - (d1b - d1c) * s2) * s3;
+      if (!(err > 0)) continue;
+      const i1 = a0 * qa + hist[k]!;
+      const currentTol = tol.currentAbsoluteA + tol.relative * Math.max(Math.abs(i1), Math.abs(qd0[k]!));
+      const chargeTol = chargeScale * Math.max(Math.abs(qa), Math.abs(qb), tol.chargeAbsoluteC);
+      const allowed = tol.truncationErrorFactor * Math.max(currentTol, chargeTol);
+      if (allowed < boundH2 * err) boundH2 = allowed / err;
+    }
+    return Math.sqrt(boundH2);
   }
 
   /** Sets sys.hist for a step of length h and returns a0 (i = a0·q + hist). */
@@ -447,233 +365,4 @@ export class TransientStepper {
   value(index: number): number {
     return this.system.x[index]!;
   }
-}
-
-/**
- * Accepted points (time, unknowns, junction state) of at least the last PERIODS periods, oldest first,
- * for the periodic predictor. A ring that grows while they do not fit, up to MAX_POINTS.
- */
-class PeriodHistory {
-  /** Periods kept: the drift from one period to the next is extrapolated by a polynomial through them. */
-  static readonly PERIODS = 3;
-  private static readonly MAX_POINTS = 1 << 15;
-  private capacity = 256;
-  private start = 0;
-  count = 0;
-  /** Points pushed since the last clear; a point's sequence number is its place in that count. */
-  private pushed = 0;
-  /** Sequence numbers of the last points found, by the caller's slot (see find). */
-  private readonly hints = new Float64Array(2 * PeriodHistory.PERIODS).fill(-1);
-  private times = new Float64Array(this.capacity);
-  private xs: Float64Array;
-  private js: Float64Array;
-
-  /** The step being taken, from startS to endS, of length stepS (set by the stepper before findBack). */
-  startS = 0;
-  endS = 0;
-  stepS = 0;
-
-  constructor(
-    private readonly xLength: number,
-    private readonly jLength: number,
-    private readonly periodS: number,
-  ) {
-    this.xs = new Float64Array(this.capacity * xLength);
-    this.js = new Float64Array(this.capacity * jLength);
-  }
-
-  clear(): void {
-    this.start = 0;
-    this.count = 0;
-    this.pushed = 0;
-    this.hints.fill(-1);
-  }
-
-  private slot(i: number): number {
-    const p = this.start + i;
-    return p >= this.capacity ? p - this.capacity : p;
-  }
-
-  timeAt(i: number): number {
-    return this.times[this.slot(i)]!;
-  }
-
-  /** Appends a point; drops the oldest once the rest still reach back to keepFromS. */
-  push(timeS: number, x: Float64Array, junction: Float64Array, keepFromS: number): void {
-    if (this.count === this.capacity) {
-      if (this.timeAt(1) <= keepFromS) {
-        this.start = this.slot(1);
-        this.count--;
-      } else if (this.capacity < PeriodHistory.MAX_POINTS) this.grow();
-      else {
-        // More points per period than kept: give the predictor up until a period fits again.
-        this.clear();
-      }
-    }
-    const s = this.slot(this.count);
-    this.times[s] = timeS;
-    // x and junction are exactly xLength and jLength long (the stepper's own vectors).
-    this.xs.set(x, s * this.xLength);
-    this.js.set(junction, s * this.jLength);
-    this.count++;
-    this.pushed++;
-  }
-
-  private grow(): void {
-    const capacity = 2 * this.capacity;
-    const times = new Float64Array(capacity);
-    const xs = new Float64Array(capacity * this.xLength);
-    const js = new Float64Array(capacity * this.jLength);
-    for (let i = 0; i < this.count; i++) {
-      const s = this.slot(i);
-      times[i] = this.times[s]!;
-      xs.set(this.xs.subarray(s * this.xLength, (s + 1) * this.xLength), i * this.xLength);
-      js.set(this.js.subarray(s * this.jLength, (s + 1) * this.jLength), i * this.jLength);
-    }
-    this.capacity = capacity;
-    this.times = times;
-    this.xs = xs;
-    this.js = js;
-    this.start = 0;
-  }
-
-  /**
-   * Index of the stored point `periods` periods before the step's end (atEnd) or start, to within 1e-6 of
-   * the step, or −1. The times come from the fields, not arguments, so that no double is boxed on the way.
-   * Each kind of point has its own `slot` (0 … 2·PERIODS − 1): the point after the last one found there is
-   * tried first, and the search only runs when that misses.
-   */
-  findBack(periods: number, atEnd: boolean, slot: number): number {
-    if (this.count === 0) return -1;
-    const timeS = (atEnd ? this.endS : this.startS) - periods * this.periodS;
-    const tolerance = 1e-6 * this.stepS;
-    const first = this.pushed - this.count;
-    const hinted = this.hints[slot]! - first;
-    for (let i = hinted + 1; i >= hinted && i >= 0; i--) {
-      if (i < this.count && Math.abs(this.timeAt(i) - timeS) <= tolerance) {
-        this.hints[slot] = first + i;
-        return i;
-      }
-    }
-    const found = this.search(timeS, tolerance);
-    if (found >= 0) this.hints[slot] = first + found;
-    return found;
-  }
-
-  private search(timeS: number, tolerance: number): number {
-    let lo = 0;
-    let hi = this.count - 1;
-    while (lo < hi) {
-      const mid = (lo + hi) >> 1;
-      if (this.timeAt(mid) < timeS) lo = mid + 1;
-      else hi = mid;
-    }
-    if (Math.abs(this.timeAt(lo) - timeS) <= tolerance) return lo;
-    if (lo > 0 && Math.abs(this.timeAt(lo - 1) - timeS) <= tolerance) return lo - 1;
-    return -1;
-  }
-
-  /**
-   * The periodic prediction of the first n unknowns and of the junction state, from the stored points
-   * refs[2m − 2] at t1 − m·T and refs[2m − 1] at t0 − m·T, m = 1 … periods: the drift over one period,
-   * d(m) = x(t1 − m·T) − x(t0 − m·T), extrapolated to the present period by the polynomial through the
-   * last `periods` of them (weights 1; 2, −1; 3, −3, 1), plus x0.
-   */
-  predict(
-    refs: Int32Array,
-    periods: number,
-    x0: Float64Array,
-    x: Float64Array,
-    n: number,
-    junction0: Float64Array,
-    junction: Float64Array,
-  ): void {
-    this.extrapolate(this.xs, this.xLength, refs, periods, x0, x, n);
-    this.extrapolate(this.js, this.jLength, refs, periods, junction0, junction, this.jLength);
-  }
-
-  private extrapolate(
-    stored: Float64Array,
-    stride: number,
-    refs: Int32Array,
-    periods: number,
-    now: Float64Array,
-    into: Float64Array,
-    n: number,
-  ): void {
-    const n1 = this.slot(refs[0]!) * stride;
-    const b1 = this.slot(refs[1]!) * stride;
-    if (periods === 1) {
-      for (let i = 0; i < n; i++) into[i] = now[i]! + stored[n1 + i]! - stored[b1 + i]!;
-      return;
-    }
-    const n2 = this.slot(refs[2]!) * stride;
-    const b2 = this.slot(refs[3]!) * stride;
-    if (periods === 2) {
-      for (let i = 0; i < n; i++)
-        into[i] = now[i]! + 2 * (stored[n1 + i]! - stored[b1 + i]!) - (stored[n2 + i]! - stored[b2 + i]!);
-      return;
-    }
-    const n3 = this.slot(refs[4]!) * stride;
-    const b3 = this.slot(refs[5]!) * stride;
-    for (let i = 0; i < n; i++)
-      into[i] =
-        now[i]! +
-        3 * (stored[n1 + i]! - stored[b1 + i]! - stored[n2 + i]! + stored[b2 + i]!) +
-        (stored[n3 + i]! - stored[b3 + i]!);
-  }
-}
-
-/** Growable Float64Array for recorded waveforms. */
-export class SampleBuffer {
-  private data = new Float64Array(1024);
-  length = 0;
-  push(v: number): void {
-    if (this.length === this.data.length) {
-      const next = new Float64Array(this.data.length * 2);
-      next.set(this.data);
-      this.data = next;
-    }
-    this.data[this.length++] = v;
-  }
-  toArray(): Float64Array {
-    return this.data.slice(0, this.length);
-  }
-}
-
-/**
- * Transient analysis of a circuit from 0 to stopTimeS; records each accepted point of the probes.
- * Units: seconds, volts, amperes. Methods: see TransientStepper.
- */
-export function simulateTransient(circuit: Circuit, options: TransientOptions): TransientResult {
-  const system = new MnaSystem(circuit);
-  const stepper = new TransientStepper(system, options);
-  if ((options.startFrom ?? 'element-initial-conditions') === 'operating-point') stepper.startFromOperatingPoint();
-  else stepper.startFromCharges(system.initialCharge);
-  const probes = options.probes ?? [...system.nodeIndex.keys()];
-  const indices = probes.map((p) => system.probeIndex(p));
-  const recordFromS = options.recordFromS ?? 0;
-  const time = new SampleBuffer();
-  const buffers = probes.map(() => new SampleBuffer());
-  const record = (): void => {
-    if (stepper.timeS < recordFromS) return;
-    time.push(stepper.timeS);
-    indices.forEach((index, i) => buffers[i]!.push(system.x[index]!));
-  };
-  if ((options.startFrom ?? 'element-initial-conditions') === 'operating-point') record();
-  while (stepper.timeS < options.stopTimeS * (1 - 1e-12)) {
-    stepper.step(options.stopTimeS);
-    record();
-  }
-  const signals: Record<string, Float64Array> = {};
-  probes.forEach((p, i) => {
-    signals[p] = buffers[i]!.toArray();
-  });
-  return {
-    timeS: time.toArray(),
-    signals,
-    acceptedSteps: stepper.acceptedSteps,
-    rejectedSteps: stepper.rejectedSteps,
-    newtonIterations: stepper.newtonIterations,
-  };
 }

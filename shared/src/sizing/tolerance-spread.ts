@@ -1,6 +1,7 @@
 import { DomainError } from '../errors';
 import { analyzeLadder } from '../multiplier/analyze-ladder';
-import type { LadderInput, MethodInfo } from '../multiplier/ladder.types';
+import type { LadderInput } from '../multiplier/ladder.types';
+import type { MethodInfo } from '../methods';
 import { mulberry32, normalFrom } from './seeded-random';
 
 export interface ToleranceSpreadRequest {

@@ -1,11 +1,12 @@
 import { beforeAll, describe, expect, it } from 'vitest';
-import { DRIVER_NODES, DRIVER_SUPPLY_SOURCE, buildDriverCircuit } from '../../src/driver/build-driver-circuit';
-import { driverExamples } from '../../src/driver/driver-examples';
+import { DRIVER_NODES, DRIVER_SUPPLY_SOURCE, buildDriverCircuit } from '../../src/circuits/build-driver-circuit';
+import { driverExamples } from '../../src/designs/driver-examples';
 import { halfWaveCascadeLoadLine, solveLoadPoint } from '../../src/driver/operating-point';
 import { EnergyMeter, type EnergyAccount } from '../../src/sim/energy-meter';
 import { MnaSystem } from '../../src/sim/mna-system';
 import { toSpiceNetlist } from '../../src/sim/to-spice-netlist';
-import { SampleBuffer, TransientStepper } from '../../src/sim/transient';
+import { SampleBuffer } from '../../src/sim/sample-buffer';
+import { TransientStepper } from '../../src/sim/transient';
 import { hasNgspice, runNgspice } from '../ngspice/run-ngspice';
 
 // Demo driver (two alkaline cells) into a four-cell half-wave ladder of 220 pF, 200 MΩ load. Small

@@ -1,7 +1,7 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { designExamples } from '../../src/designs/design-examples';
 import type { Design } from '../../src/designs/design.types';
-import { driverDesignCircuit, runDriverDesign, type DriverRunResult } from '../../src/sim/driver-runs';
+import { driverDesignCircuit, runDriverDesign, type DriverRunResult } from '../../src/runs/driver-runs';
 import { toSpiceNetlist } from '../../src/sim/to-spice-netlist';
 import { windowMean } from '../../src/sim/waveform-measures';
 import { hasNgspice, runNgspice } from '../ngspice/run-ngspice';

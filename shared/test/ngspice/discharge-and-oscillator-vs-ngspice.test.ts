@@ -1,7 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { buildLadderCircuit, idealCapacitorVoltagesV, type LadderCircuitSpec } from '../../src/sim/build-circuit';
+import {
+  buildLadderCircuit,
+  idealCapacitorVoltagesV,
+  type LadderCircuitSpec,
+} from '../../src/circuits/build-ladder-circuit';
 import type { Circuit } from '../../src/sim/circuit.types';
-import { simulateTransient } from '../../src/sim/transient';
+import { simulateTransient } from '../../src/sim/transient-analysis';
 import { toSpiceNetlist } from '../../src/sim/to-spice-netlist';
 import { firstFallTo, risingCrossings } from '../../src/sim/waveform-measures';
 import { hasNgspice, runNgspice } from './run-ngspice';

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { analyzeLadder } from '../../src/multiplier/analyze-ladder';
-import { runLadder } from '../../src/sim/design-runs';
+import { runLadder } from '../../src/runs/ladder-runs';
 
 // The engine's steady-state analysis (shared/src/multiplier) against this simulator's periodic steady
 // state, on ladders the textbook closed forms do not cover: unequal capacitors and odd cell counts.

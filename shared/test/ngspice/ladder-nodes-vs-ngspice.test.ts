@@ -1,10 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import { analyzeLadder } from '../../src/multiplier/analyze-ladder';
 import type { LadderInput } from '../../src/multiplier/ladder.types';
-import { buildLadderCircuit, type LadderCircuitSpec } from '../../src/sim/build-circuit';
+import { buildLadderCircuit, type LadderCircuitSpec } from '../../src/circuits/build-ladder-circuit';
 import { MnaSystem } from '../../src/sim/mna-system';
 import { findPeriodicSteadyState } from '../../src/sim/periodic-steady-state';
-import { chargeBalanceCapacitorVoltagesV } from '../../src/sim/steady-state-estimate';
+import { chargeBalanceCapacitorVoltagesV } from '../../src/circuits/steady-state-estimate';
 import { toSpiceNetlist } from '../../src/sim/to-spice-netlist';
 import { windowMean } from '../../src/sim/waveform-measures';
 import { hasNgspice, runNgspice } from './run-ngspice';

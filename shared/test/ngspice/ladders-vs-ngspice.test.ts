@@ -1,6 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { buildLadderCircuit, idealCapacitorVoltagesV, type LadderCircuitSpec } from '../../src/sim/build-circuit';
-import { simulateTransient } from '../../src/sim/transient';
+import {
+  buildLadderCircuit,
+  idealCapacitorVoltagesV,
+  type LadderCircuitSpec,
+} from '../../src/circuits/build-ladder-circuit';
+import { simulateTransient } from '../../src/sim/transient-analysis';
 import { toSpiceNetlist } from '../../src/sim/to-spice-netlist';
 import { windowMean, windowPeakToPeak } from '../../src/sim/waveform-measures';
 import { hasNgspice, runNgspice } from './run-ngspice';

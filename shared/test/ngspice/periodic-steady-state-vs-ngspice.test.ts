@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { buildLadderCircuit, type LadderCircuitSpec } from '../../src/sim/build-circuit';
+import { buildLadderCircuit, type LadderCircuitSpec } from '../../src/circuits/build-ladder-circuit';
 import { MnaSystem } from '../../src/sim/mna-system';
 import { findPeriodicSteadyState } from '../../src/sim/periodic-steady-state';
-import { chargeBalanceCapacitorVoltagesV } from '../../src/sim/steady-state-estimate';
-import { simulateTransient } from '../../src/sim/transient';
+import { chargeBalanceCapacitorVoltagesV } from '../../src/circuits/steady-state-estimate';
+import { simulateTransient } from '../../src/sim/transient-analysis';
 import { toSpiceNetlist } from '../../src/sim/to-spice-netlist';
 import { windowMean, windowPeakToPeak } from '../../src/sim/waveform-measures';
 import { hasNgspice, runNgspice } from './run-ngspice';

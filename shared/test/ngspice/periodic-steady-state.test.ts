@@ -1,8 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { buildLadderCircuit, idealCapacitorVoltagesV, type LadderCircuitSpec } from '../../src/sim/build-circuit';
+import {
+  buildLadderCircuit,
+  idealCapacitorVoltagesV,
+  type LadderCircuitSpec,
+} from '../../src/circuits/build-ladder-circuit';
 import { MnaSystem } from '../../src/sim/mna-system';
 import { findPeriodicSteadyState } from '../../src/sim/periodic-steady-state';
-import { simulateTransient } from '../../src/sim/transient';
+import { simulateTransient } from '../../src/sim/transient-analysis';
 import { windowMean, windowPeakToPeak } from '../../src/sim/waveform-measures';
 
 const f = 20e3;

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { designExamples, type Design } from '@ladderwright/shared/designs';
-import { analyzeDesign } from '@ladderwright/shared/multiplier';
+import { analyzeDesign } from '@ladderwright/shared/analysis';
 import { shelfPart } from '../../testing/shelf-part';
 import { answerLiveAnalysis } from './live-analysis-messages';
 

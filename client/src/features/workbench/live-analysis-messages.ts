@@ -1,6 +1,6 @@
 import { validateDesign, type Design } from '@ladderwright/shared/designs';
 import { isDomainError, type FieldIssue } from '@ladderwright/shared/errors';
-import { analyzeDesign, type DesignReport } from '@ladderwright/shared/multiplier';
+import { analyzeDesign, type DesignReport } from '@ladderwright/shared/analysis';
 import { analyzeWithShelf, type ShelfPart } from '@ladderwright/shared/parts';
 
 /** The live preview of one document: the engine's report, or why there is none. */

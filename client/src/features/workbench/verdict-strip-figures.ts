@@ -1,5 +1,6 @@
 import type { Design } from '@ladderwright/shared/designs';
-import type { DesignReport, MethodInfo } from '@ladderwright/shared/multiplier';
+import type { DesignReport } from '@ladderwright/shared/analysis';
+import type { MethodInfo } from '@ladderwright/shared/methods';
 import {
   describeMargin,
   lowerLimitVerdict,

@@ -5,6 +5,7 @@ import { partsAndBenchRuns } from './0005-parts-and-bench-runs';
 import { auditLog } from './0006-audit-log';
 import { simulationJobs } from './0003-simulation-jobs';
 import { signOffAndMail } from './0004-sign-off-and-mail';
+import { teamAdministration } from './0007-team-administration';
 
 /** Every schema step in order. Add new steps at the end. */
 export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
@@ -14,4 +15,5 @@ export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
   auditLog,
   simulationJobs,
   signOffAndMail,
+  teamAdministration,
 ];

@@ -1,6 +1,8 @@
 import { ApiPropertyOptional } from '@nestjs/swagger';
-import { IsOptional, IsString, MaxLength } from 'class-validator';
+import { Type } from 'class-transformer';
+import { IsOptional, IsString, MaxLength, ValidateNested } from 'class-validator';
 import type { SignOffNoteRequest } from '@ladderwright/shared/api';
+import { OverrideDto } from './override.dto';
 
 export class SignOffNoteDto implements SignOffNoteRequest {
   @ApiPropertyOptional({ example: 'Checks pass; margins as agreed.' })
@@ -8,4 +10,10 @@ export class SignOffNoteDto implements SignOffNoteRequest {
   @IsString({ message: 'note must be text' })
   @MaxLength(2000, { message: 'note must be at most 2000 characters' })
   note?: string;
+
+  @ApiPropertyOptional({ type: OverrideDto, description: 'Goes past closed gates; recorded and audited.' })
+  @IsOptional()
+  @ValidateNested()
+  @Type(() => OverrideDto)
+  override?: OverrideDto;
 }

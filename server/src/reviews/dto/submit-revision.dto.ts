@@ -1,4 +1,5 @@
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
+import { Type } from 'class-transformer';
 import {
   ArrayMaxSize,
   ArrayMinSize,
@@ -8,8 +9,10 @@ import {
   IsString,
   IsUUID,
   MaxLength,
+  ValidateNested,
 } from 'class-validator';
 import type { SubmitRevisionRequest } from '@ladderwright/shared/api';
+import { OverrideDto } from './override.dto';
 
 export class SubmitRevisionDto implements SubmitRevisionRequest {
   @ApiProperty({ type: [String], description: 'Project members with the reviewer or lead role (not the author).' })
@@ -25,4 +28,10 @@ export class SubmitRevisionDto implements SubmitRevisionRequest {
   @IsString({ message: 'note must be text' })
   @MaxLength(2000, { message: 'note must be at most 2000 characters' })
   note?: string;
+
+  @ApiPropertyOptional({ type: OverrideDto, description: 'Goes past closed gates; recorded and audited.' })
+  @IsOptional()
+  @ValidateNested()
+  @Type(() => OverrideDto)
+  override?: OverrideDto;
 }

@@ -26,6 +26,10 @@ const inbox: Inbox = {
     item({ designId: 'd-2', designName: 'Tester ladder', revisionNumber: 2, state: 'returned' }),
     item({ designId: 'd-3', designName: 'Hood cell', revisionNumber: 1, state: 'released' }),
   ],
+  returnedToMe: [],
+  awaitingRelease: [],
+  newComments: [],
+  actionCount: 1,
 };
 
 describe('InboxRoute', () => {

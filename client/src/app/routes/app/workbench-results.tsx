@@ -1,7 +1,7 @@
 import { Tabs, Text } from '@mantine/core';
 import type { RevisionDetail, RevisionSummary } from '@ladderwright/shared/api';
 import type { Design } from '@ladderwright/shared/designs';
-import type { DesignReport } from '@ladderwright/shared/multiplier';
+import type { DesignReport } from '@ladderwright/shared/analysis';
 import { RevisionHistory } from '../../../features/designs/components/revision-history';
 import { BomCost } from '../../../features/parts/components/bom-cost';
 import { WaveformsPanel } from '../../../features/simulations/components/waveforms-panel';

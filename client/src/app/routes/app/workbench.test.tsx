@@ -9,7 +9,7 @@ import type {
   StaleBaseError,
 } from '@ladderwright/shared/api';
 import { designExamples, validateDesign } from '@ladderwright/shared/designs';
-import { analyzeDesign } from '@ladderwright/shared/multiplier';
+import { analyzeDesign } from '@ladderwright/shared/analysis';
 import { paths } from '../../../config/paths';
 import { queryKeys } from '../../../lib/query-keys';
 import { createTestQueryClient, jsonResponse, renderRoutes } from '../../../testing/render';
@@ -51,6 +51,8 @@ const project: ProjectDetail = {
   description: '',
   myRole: 'engineer',
   memberCount: 1,
+  isArchived: false,
+  settings: { defaultTargets: {}, acceptance: { coverage: 0.95, benchAllowanceFraction: 0.01 } },
   members: [],
 };
 

@@ -12,6 +12,7 @@ const projects: ProjectSummary[] = [
     description: 'About 6 kV negative, tens of microamps, from 12 V.',
     myRole: 'engineer',
     memberCount: 3,
+    isArchived: false,
   },
   {
     id: 'p-tester',
@@ -20,6 +21,7 @@ const projects: ProjectSummary[] = [
     description: 'Two alkaline cells and a four-cell ladder.',
     myRole: 'lead',
     memberCount: 1,
+    isArchived: false,
   },
 ];
 

@@ -21,6 +21,8 @@ const base: SignOff = {
   ],
   availableCommands: ['return', 'approve'],
   approvals: [],
+  gateReasons: [],
+  overrides: [],
   history: [
     {
       id: 't-1',

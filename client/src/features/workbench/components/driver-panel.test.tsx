@@ -1,7 +1,7 @@
 import { screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { designExamples } from '@ladderwright/shared/designs';
-import { analyzeDesign } from '@ladderwright/shared/multiplier';
+import { analyzeDesign } from '@ladderwright/shared/analysis';
 import { formatQuantity } from '@ladderwright/shared/units';
 import { renderWithApp } from '../../../testing/render';
 import { DriverPanel } from './driver-panel';

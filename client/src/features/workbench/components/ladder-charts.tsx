@@ -1,6 +1,6 @@
 import { SimpleGrid, Text } from '@mantine/core';
 import { CartesianGrid, Line, LineChart, ReferenceDot, ReferenceLine, Tooltip, XAxis, YAxis } from 'recharts';
-import type { DesignReport } from '@ladderwright/shared/multiplier';
+import type { DesignReport } from '@ladderwright/shared/analysis';
 import { formatQuantity } from '@ladderwright/shared/units';
 import { quantityTickFormatter } from '../../../lib/tick-format';
 import { ChartCard } from './chart-card';

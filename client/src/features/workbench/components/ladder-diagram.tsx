@@ -1,5 +1,6 @@
 import { Group, Paper, Text } from '@mantine/core';
-import type { CapacitorStress, DesignReport, LadderNodeVoltage } from '@ladderwright/shared/multiplier';
+import type { DesignReport } from '@ladderwright/shared/analysis';
+import type { CapacitorStress, LadderNodeVoltage } from '@ladderwright/shared/multiplier';
 import { formatQuantity } from '@ladderwright/shared/units';
 import { MethodNote } from './method-note';
 

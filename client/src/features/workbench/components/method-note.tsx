@@ -1,5 +1,5 @@
 import { ActionIcon, List, Popover, Stack, Text } from '@mantine/core';
-import type { MethodInfo } from '@ladderwright/shared/multiplier';
+import type { MethodInfo } from '@ladderwright/shared/methods';
 
 export interface MethodNoteProps {
   /** What the figure is, for the button's accessible name. */

@@ -1,5 +1,6 @@
 import { Group, SimpleGrid, Text } from '@mantine/core';
-import type { DesignReport, MethodInfo } from '@ladderwright/shared/multiplier';
+import type { DesignReport } from '@ladderwright/shared/analysis';
+import type { MethodInfo } from '@ladderwright/shared/methods';
 import { formatQuantity } from '@ladderwright/shared/units';
 import { MethodNote } from './method-note';
 

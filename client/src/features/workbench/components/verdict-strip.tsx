@@ -1,6 +1,6 @@
 import { Group, Paper, Text } from '@mantine/core';
 import type { Design } from '@ladderwright/shared/designs';
-import type { DesignReport } from '@ladderwright/shared/multiplier';
+import type { DesignReport } from '@ladderwright/shared/analysis';
 import { verdictStripFigures, type StripFigure } from '../verdict-strip-figures';
 import { MethodNote } from './method-note';
 import { VerdictBadge } from './verdict-badge';

@@ -2,7 +2,9 @@ import { DomainError } from '../errors';
 import type { Design, DischargeRule, PulseDrive, SineDrive } from '../designs/design.types';
 import { estimateBlockingOscillator } from '../driver/blocking-oscillator';
 import { driverReport, type DriverReport } from '../driver/driver-report';
-import type { DriverCheckVerdict, DriverStage, MethodInfo } from '../driver/driver.types';
+import type { DriverStage } from '../designs/driver-stage.types';
+import type { DriverCheckVerdict } from '../driver/driver-checks';
+import type { MethodInfo } from '../methods';
 import { engineLadderLoadLine, pulseDriveOf, solveLoadPoint, type LadderLoadLine } from '../driver/operating-point';
 import { DISCHARGE_METHOD, dischargeCheck, trappedChargeCheck } from '../safety/discharge';
 import { creepageChecks, stageSpacing } from '../safety/creepage';
@@ -11,12 +13,12 @@ import { HV_CAUTION, upperLimitVerdict } from '../safety/hazard-limits';
 import { STORED_ENERGY_METHOD, storedEnergy, storedEnergyChecks } from '../safety/stored-energy';
 import type { StoredEnergySummary } from '../safety/stored-energy';
 import type { CheckVerdict } from '../safety/check.types';
-import { analyzeLadder } from './analyze-ladder';
-import { bracketedRoot } from './bracketed-root';
-import { ENGINE_VERSION } from './engine-version';
-import { ladderCurves } from './ladder-curves';
-import { bleederStressChecks, ladderStressChecks } from './ladder-stress';
-import type { LadderAnalysis, LadderCurves, LadderInput } from './ladder.types';
+import { analyzeLadder } from '../multiplier/analyze-ladder';
+import { bracketedRoot } from '../multiplier/bracketed-root';
+import { ENGINE_VERSION } from '../multiplier/engine-version';
+import { ladderCurves } from '../multiplier/ladder-curves';
+import { bleederStressChecks, ladderStressChecks } from '../multiplier/ladder-stress';
+import type { LadderAnalysis, LadderCurves, LadderInput } from '../multiplier/ladder.types';
 
 /** Report of a bare ladder: figures (SI, signed by polarity), curves, stored energy, discharge and how each was computed. */
 export interface LadderReport extends Pick<
@@ -24,7 +26,10 @@ export interface LadderReport extends Pick<
   'noLoadOutputV' | 'outputMeanV' | 'outputMinV' | 'outputMaxV' | 'ripplePeakToPeakV' | 'droopV' | 'outputImpedanceOhm'
 > {
   engineVersion: string;
+  /** Best whole number of stages at the design load (the model's output-vs-stages scan). */
   optimumStages: number;
+  /** The published closed form n_opt = √(Vmax·f·C/I) as a continuous value (J. Lux; FOSSEE companions, read); null where it does not apply. */
+  optimumStagesClosedForm: number | null;
   textbookRippleV: number | null;
   textbookDropV: number | null;
   storedEnergyJ: number;
@@ -48,6 +53,14 @@ export interface DesignReport extends LadderReport {
   spacing: StageSpacing[];
   /** The driver stage joined to the ladder; null unless the design's drive is a driver stage. */
   driver: DriverReport | null;
+  /** Output with no external load and no bleeder (V, signed); a driver's flyback then rises to its clamp limit. */
+  openCircuitOutputV: number;
+  /** |open-circuit − loaded output| (V): the droop of the load and the bleeder together (`droopV` keeps the bleeder in both). */
+  droopWithBleederV: number;
+  /** Power the bleeder takes at the operating point (W). */
+  bleederPowerW: number;
+  /** Power the ladder delivers at its top: the load, the series output resistor and the bleeder (W). */
+  ladderOutputPowerW: number;
 }
 
 export interface LadderReportOptions {
@@ -87,6 +100,7 @@ export function analyzeLadderReport(input: LadderInput, options: LadderReportOpt
     droopV: analysis.droopV,
     outputImpedanceOhm: analysis.outputImpedanceOhm,
     optimumStages: curves.optimumStages,
+    optimumStagesClosedForm: analysis.textbook.optimumStages ?? null,
     textbookRippleV: analysis.textbook.rippleV,
     textbookDropV: analysis.textbook.dropV,
     storedEnergyJ: energy.totalEnergyJ,
@@ -244,10 +258,28 @@ export function analyzeDesign(design: Design): DesignReport {
   const targets = design.targets;
   const base = analyzeLadderReport(input, { safeVoltageV: targets.safeVoltageV, dischargeRule: targets.dischargeRule });
   const { analysis } = base;
-  // Power-limited at the rated load, the flyback rises to its clamp at lighter loads: stress at the limit drive.
+  // Components are stressed most at the lightest load the design runs at: no external load, the bleeder
+  // still drawing. A power-limited driver's flyback rises towards its clamp there, but only as far as the
+  // operating point at that load (the bleeder's current holds it), not to the open-circuit limit.
+  const lightest = driver?.operatingPoint.curve[0];
   const stressAnalysis =
-    driver?.operatingPoint.limitedBy === 'power'
-      ? analyzeLadder(ladderInputOf(design, limitDrive, currentLimitA))
+    design.drive.kind === 'driver' && lightest
+      ? analyzeLadder({
+          ...ladderInputOf(
+            design,
+            pulseDriveOf(
+              {
+                forwardPeakV: lightest.forwardSecondaryPeakV,
+                flybackPeakV: lightest.flybackSecondaryPeakV,
+                frequencyHz: lightest.frequencyHz,
+                dutyCycle: lightest.dutyCycle,
+              },
+              design.drive.driver.transformer.secondaryResistanceOhm,
+            ),
+            currentLimitA,
+          ),
+          load: null,
+        })
       : analysis;
 
   const checks: CheckVerdict[] = [...ladderStressChecks(stressAnalysis, design.multiplier)];
@@ -288,9 +320,19 @@ export function analyzeDesign(design: Design): DesignReport {
   const noLoadOutputV = driver
     ? Math.sign(analysis.outputMeanV || 1) * (driver.operatingPoint.curve[0]?.outputV ?? 0)
     : base.noLoadOutputV;
+  const openCircuit = analyzeLadder({
+    ...ladderInputOf(design, limitDrive, currentLimitA),
+    load: null,
+    bleederOhm: null,
+  });
+  const bleederPowerW = Math.abs(analysis.ladderTopMeanV) * analysis.bleederCurrentA;
   return {
     ...base,
     noLoadOutputV,
+    openCircuitOutputV: openCircuit.outputMeanV,
+    droopWithBleederV: Math.abs(openCircuit.outputMeanV - analysis.outputMeanV),
+    bleederPowerW,
+    ladderOutputPowerW: Math.abs(analysis.ladderTopMeanV) * analysis.ladderCurrentA,
     droopV: driver ? Math.abs(noLoadOutputV - analysis.outputMeanV) : base.droopV,
     designName: design.name,
     resolvedDrive: drive,

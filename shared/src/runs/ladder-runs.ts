@@ -1,10 +1,15 @@
 import { DomainError } from '../errors';
-import { buildLadderCircuit, capacitorName, LADDER_NODES, type LadderCircuitSpec } from './build-circuit';
-import { MnaSystem } from './mna-system';
-import { findPeriodicSteadyState } from './periodic-steady-state';
-import { chargeBalanceCapacitorVoltagesV } from './steady-state-estimate';
-import { TransientStepper } from './transient';
-import { downsampleMinMax, windowMean, windowPeakToPeak } from './waveform-measures';
+import {
+  buildLadderCircuit,
+  capacitorName,
+  LADDER_NODES,
+  type LadderCircuitSpec,
+} from '../circuits/build-ladder-circuit';
+import { MnaSystem } from '../sim/mna-system';
+import { findPeriodicSteadyState } from '../sim/periodic-steady-state';
+import { chargeBalanceCapacitorVoltagesV } from '../circuits/steady-state-estimate';
+import { TransientStepper } from '../sim/transient';
+import { downsampleMinMax, windowMean, windowPeakToPeak } from '../sim/waveform-measures';
 
 export interface LadderRunOptions {
   /** 'steady': until the cycle-mean output settles; a number: exactly that many drive cycles. */

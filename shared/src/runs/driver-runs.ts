@@ -1,15 +1,21 @@
 import { estimateBlockingOscillator } from '../driver/blocking-oscillator';
-import { DRIVER_NODES, buildDriverCircuit } from '../driver/build-driver-circuit';
+import { DRIVER_NODES, buildDriverCircuit } from '../circuits/build-driver-circuit';
 import type { Design } from '../designs/design.types';
 import { DomainError } from '../errors';
-import { analyzeDesign } from '../multiplier/analyze-design';
-import { capacitorName, LADDER_NODES, ladderPartFromDesign, type LadderCircuitSpec } from './build-circuit';
-import type { Circuit } from './circuit.types';
-import { followLadderDischarge, type LadderRunResult, type PlotTrace } from './design-runs';
-import { EnergyMeter, type EnergyAccount } from './energy-meter';
-import { MnaSystem } from './mna-system';
-import { SampleBuffer, TransientStepper } from './transient';
-import { downsampleMinMax, risingCrossings, windowMean, windowPeakToPeak } from './waveform-measures';
+import { analyzeDesign } from '../analysis/analyze-design';
+import {
+  capacitorName,
+  LADDER_NODES,
+  ladderPartFromDesign,
+  type LadderCircuitSpec,
+} from '../circuits/build-ladder-circuit';
+import type { Circuit } from '../sim/circuit.types';
+import { followLadderDischarge, type LadderRunResult, type PlotTrace } from './ladder-runs';
+import { EnergyMeter, type EnergyAccount } from '../sim/energy-meter';
+import { MnaSystem } from '../sim/mna-system';
+import { SampleBuffer } from '../sim/sample-buffer';
+import { TransientStepper } from '../sim/transient';
+import { downsampleMinMax, risingCrossings, windowMean, windowPeakToPeak } from '../sim/waveform-measures';
 
 export interface DriverRunOptions {
   /**

@@ -6,8 +6,8 @@ import { HV_CAUTION } from '../safety/hazard-limits';
 import { driverReport } from '../driver/driver-report';
 import { estimateBlockingOscillator } from '../driver/blocking-oscillator';
 import { engineLadderLoadLine, solveLoadPoint } from '../driver/operating-point';
-import { analyzeDesign, ladderInputOf, resolveDrive } from './analyze-design';
-import { DERATING } from './ladder-stress';
+import { analyzeDesign, analyzeLadderReport, ladderInputOf, resolveDrive } from './analyze-design';
+import { DERATING } from '../multiplier/ladder-stress';
 
 describe('analyzeDesign on the demo designs', () => {
   it.each(Object.entries(designExamples))(
@@ -190,5 +190,66 @@ describe('component checks', () => {
     expect(report.checks.filter((c) => c.id.startsWith('creepage-stage')).every((c) => c.verdict === 'fail')).toBe(
       true,
     );
+  });
+});
+
+describe('analyzeDesign: the bleeder and component stress at the operating point', () => {
+  const demo = designExamples.surfaceChargeTester;
+  // The demo with a heavy bleeder (5 × 1 MΩ: about 0.5 mA at a few kV) and no external load.
+  const heavyBleeder: Design = {
+    ...structuredClone(demo),
+    load: { kind: 'current', currentA: 0 },
+    outputNetwork: {
+      ...demo.outputNetwork,
+      bleeder: { ...demo.outputNetwork.bleeder!, valueOhm: 1e6 },
+    },
+  };
+  const report = analyzeDesign(heavyBleeder);
+
+  it('reports the bleeder power V²/R and the droop the bleeder causes, not zero (Ohm’s law)', () => {
+    const topV = Math.abs(report.analysis.ladderTopMeanV);
+    // 1e-9 relative: Ohm's law on the reported top voltage; only rounding between the two.
+    expect(Math.abs(report.bleederPowerW - (topV * topV) / 5e6) / report.bleederPowerW).toBeLessThan(1e-9);
+    expect(report.ladderOutputPowerW).toBeGreaterThanOrEqual(report.bleederPowerW);
+    // 0.5 mA from a driver of ~0.1 W deliverable: the output falls far below the open-circuit output.
+    expect(report.droopWithBleederV).toBeGreaterThan(0.2 * Math.abs(report.openCircuitOutputV));
+    expect(Math.abs(report.openCircuitOutputV)).toBeGreaterThan(Math.abs(report.outputMeanV));
+  });
+
+  it('checks capacitors, diodes and bleeder at the lightest operating point, below the open-circuit flyback', () => {
+    const unbled = analyzeDesign({
+      ...structuredClone(heavyBleeder),
+      outputNetwork: { ...heavyBleeder.outputNetwork, bleeder: null },
+    });
+    const worst = (r: typeof report, prefix: string): number =>
+      Math.max(...r.checks.filter((c) => c.id.startsWith(prefix)).map((c) => c.value ?? 0));
+    // Without a bleeder or load nothing holds the flyback: the ladder sits at its open-circuit voltages, and a
+    // capacitor carries up to twice the secondary's peak-to-peak share (REFERENCES.md §1, capacitor stress).
+    // With the 5 MΩ bleeder the operating point holds the flyback far lower: the stress follows it.
+    expect(worst(report, 'cap-voltage')).toBeLessThan(0.9 * worst(unbled, 'cap-voltage'));
+    expect(worst(report, 'diode-piv')).toBeLessThan(0.9 * worst(unbled, 'diode-piv'));
+    // The stress sits at the operating point with no external load: at most the open-circuit share per capacitor.
+    const capsAtLightest = report.driver!.operatingPoint.curve[0]!.outputV / 2;
+    expect(worst(report, 'cap-voltage')).toBeLessThan(1.2 * capsAtLightest);
+  });
+});
+
+describe('optimum stage count, closed form beside the best whole number', () => {
+  it('gives n_opt = √(Vmax f C / I) = 13.7 as a continuous value for the n = 8 check example (FOSSEE companion, ch. 6, read)', () => {
+    const r = analyzeLadderReport({
+      topology: 'half-wave',
+      capacitorsF: Array(16).fill(0.05e-6),
+      drive: { kind: 'sine', peakV: 125e3, frequencyHz: 150, sourceResistanceOhm: 0 },
+      diode: { saturationCurrentA: 1e-300, emissionCoefficient: 1e-9, seriesResistanceOhm: 0 },
+      polarity: 1,
+      load: { kind: 'current', currentA: 5e-3 },
+      bleederOhm: null,
+      seriesOutputResistanceOhm: 0,
+    });
+    // Printed to 0.1: tolerance half the last digit.
+    expect(Math.abs(r.optimumStagesClosedForm! - 13.7)).toBeLessThan(0.05);
+    expect(Number.isInteger(r.optimumStages)).toBe(true);
+    // The whole-number optimum of the model lies within one stage of the published rounding, 14.
+    expect(Math.abs(r.optimumStages - 14)).toBeLessThanOrEqual(1);
   });
 });

@@ -2,16 +2,18 @@ import { type CanActivate, type ExecutionContext, Injectable, UnauthorizedExcept
 import { Reflector } from '@nestjs/core';
 import { canInProject, type ProjectAction, rolesFor } from '@ladderwright/shared/auth';
 import { DomainError } from '@ladderwright/shared/errors';
-import { ProjectsService } from '../../projects/projects.service';
-import { PROJECT_ACTION_KEY } from '../decorators/requires-permission.decorator';
-import type { AppRequest } from '../request.types';
-import { isUuid } from '../uuid';
+import { PROJECT_ACTION_KEY } from '../common/decorators/requires-permission.decorator';
+import type { AppRequest } from '../common/request.types';
+import { isUuid } from '../common/uuid';
+import { ProjectsService } from './projects.service';
 
 /**
  * Global guard for routes with `:projectId`. Not a member (or no such project, or a malformed id) -> 404,
  * so that projects of other teams cannot be discovered; a member whose project role lacks the route's
- * action -> 403.
+ * action -> 403. An archived project answers reads only (409 otherwise).
  */
+const READING_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
+
 @Injectable()
 export class ProjectAccessGuard implements CanActivate {
   constructor(
@@ -27,8 +29,9 @@ export class ProjectAccessGuard implements CanActivate {
     const user = request.user;
     if (!user) throw new UnauthorizedException('Sign in first');
 
-    const role = isUuid(projectId) ? await this.projects.findMemberRole(projectId, user.id) : null;
-    if (!role) throw new DomainError('not_found', 'Project not found', 'projectId');
+    const standing = isUuid(projectId) ? await this.projects.findMemberStanding(projectId, user.id) : null;
+    if (!standing) throw new DomainError('not_found', 'Project not found', 'projectId');
+    const { role } = standing;
 
     const action =
       this.reflector.getAllAndOverride<ProjectAction | undefined>(PROJECT_ACTION_KEY, [
@@ -40,6 +43,9 @@ export class ProjectAccessGuard implements CanActivate {
         'forbidden',
         `Needs the ${rolesFor(action).join(' or ')} role in this project (you are ${role})`,
       );
+    }
+    if (standing.isArchived && !READING_METHODS.has(request.method)) {
+      throw new DomainError('illegal_transition', 'This project is archived: it can be read but not changed');
     }
     request.projectMembership = { projectId, role };
     return true;

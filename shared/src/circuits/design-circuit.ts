@@ -1,7 +1,7 @@
-import { buildDriverCircuit } from '../driver/build-driver-circuit';
+import { buildDriverCircuit } from './build-driver-circuit';
 import type { Design } from '../designs/design.types';
-import { buildLadderCircuit, ladderPartFromDesign, ladderSpecFromDesign } from './build-circuit';
-import type { Circuit } from './circuit.types';
+import { buildLadderCircuit, ladderPartFromDesign, ladderSpecFromDesign } from './build-ladder-circuit';
+import type { Circuit } from '../sim/circuit.types';
 
 /**
  * Circuit of a design document: the multiplier with its drive, output network and load. A sine or pulse

@@ -1,6 +1,6 @@
-import type { LadderCircuitSpec } from './build-circuit';
-import { idealCapacitorVoltagesV } from './build-circuit';
-import { solveDense } from './solver/dense-lu';
+import type { LadderCircuitSpec } from './build-ladder-circuit';
+import { idealCapacitorVoltagesV } from './build-ladder-circuit';
+import { solveDense } from '../sim/solver/dense-lu';
 
 /**
  * Capacitor voltages of a loaded half-wave cascade at t = 0 of a drive period, from charge balance with

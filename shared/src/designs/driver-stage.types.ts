@@ -1,5 +1,5 @@
 /**
- * Input and result types of the driver stage: a battery- or DC-fed blocking oscillator with a feedback
+ * Input types of the driver stage: a battery- or DC-fed blocking oscillator with a feedback
  * winding, driving the primary of a step-up transformer whose secondary feeds the ladder.
  * All quantities in SI base units (V, A, Ω, H, s, Ah for cell capacity as the trade states it).
  */
@@ -87,31 +87,4 @@ export interface DriverStage {
   switchOnTimeS?: number;
   /** Battery life the equipment must reach on a cells supply, in hours as the trade states it (checked when given). */
   batteryLifeTargetH?: number;
-}
-
-/** How a figure was computed, so the Workbench can say so beside it. */
-export interface MethodInfo {
-  methodId: string;
-  summary: string;
-  assumptions: string[];
-  source: string;
-}
-
-/** A number with the method that produced it. */
-export interface Estimated<T = number> {
-  value: T;
-  method: MethodInfo;
-}
-
-/** One verdict of the Checks panel (same shape as the safety checks). */
-export interface DriverCheckVerdict {
-  id: string;
-  subject: string;
-  rule: string;
-  verdict: 'pass' | 'marginal' | 'fail';
-  /** (limit − value) / limit · 100 for an upper limit; negative when failing. */
-  marginPct: number;
-  value: number;
-  limit: number;
-  unit: string;
 }

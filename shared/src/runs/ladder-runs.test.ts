@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { isDomainError } from '../errors';
-import type { LadderCircuitSpec } from './build-circuit';
-import { runLadder } from './design-runs';
+import type { LadderCircuitSpec } from '../circuits/build-ladder-circuit';
+import { runLadder } from './ladder-runs';
 
 describe('runLadder', () => {
   it('discharges a bridge doubler through its bleeder in R·(C/2)·ln(V0/Vsafe)', () => {

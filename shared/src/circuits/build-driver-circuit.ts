@@ -1,8 +1,8 @@
 import { DomainError } from '../errors';
-import { buildLadderCircuit, type LadderCircuitSpec } from '../sim/build-circuit';
+import { buildLadderCircuit, type LadderCircuitSpec } from './build-ladder-circuit';
 import type { Circuit, CircuitElement, NpnModel } from '../sim/circuit.types';
-import { supplyThevenin } from './battery';
-import type { DriverStage } from './driver.types';
+import { supplyThevenin } from '../driver/battery';
+import type { DriverStage } from '../designs/driver-stage.types';
 
 /** Node names of the driver circuit a caller probes. */
 export const DRIVER_NODES = { supply: 'vcc', collector: 'col', base: 'base', secondary: 's' } as const;

@@ -1,6 +1,6 @@
 import type { Design, Topology } from '../designs/design.types';
 import { DomainError } from '../errors';
-import type { Circuit, CircuitElement, DiodeModel, SourceWaveform } from './circuit.types';
+import type { Circuit, CircuitElement, DiodeModel, SourceWaveform } from '../sim/circuit.types';
 
 /** Drive of a ladder: the secondary's open-circuit waveform (volts) and its source resistance. */
 export type LadderDrive =

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { simulateTransient } from '../sim/transient';
-import { estimateBlockingOscillator } from './blocking-oscillator';
+import { simulateTransient } from '../sim/transient-analysis';
+import { estimateBlockingOscillator } from '../driver/blocking-oscillator';
 import { DRIVER_NODES, DRIVER_SUPPLY_SOURCE, buildDriverCircuit } from './build-driver-circuit';
-import { driverExamples } from './driver-examples';
+import { driverExamples } from '../designs/driver-examples';
 
 const demo = driverExamples.surfaceChargeTester;
 

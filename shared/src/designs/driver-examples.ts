@@ -1,4 +1,4 @@
-import type { DriverStage } from './driver.types';
+import type { DriverStage } from './driver-stage.types';
 
 /**
  * Demo drivers of the invented Northfold Instruments scenario (NAMING.md). Values are invented, chosen to

@@ -1,0 +1,81 @@
+import { describe, expect, it } from 'vitest';
+import { designExamples } from '../designs/design-examples';
+import { driverExamples } from '../designs/driver-examples';
+import type { DriverStage } from '../designs/driver-stage.types';
+import { analyzeDesign } from '../analysis/analyze-design';
+import { runDriverChecks } from './driver-checks';
+import { DEFAULT_TRANSISTOR_THERMAL } from './driver-energy';
+
+const demo = designExamples.surfaceChargeTester;
+const heavy = { ...structuredClone(demo), load: { kind: 'current' as const, currentA: 50e-6 } };
+
+describe('driver energy at the operating point', () => {
+  it.each([
+    ['demo at its rated 2 µA', demo],
+    ['demo at 50 µA (power-limited)', heavy],
+  ])('%s: input = output + every loss (energy conservation), each loss ≥ 0', (_, design) => {
+    const e = analyzeDesign(design).driver!.energy;
+    const lossSum = Object.values(e.losses).reduce((a, b) => a + b, 0);
+    // 1e-9 relative: the balance is closed by construction up to the solver's tolerances (1e-12) and rounding.
+    expect(Math.abs(e.inputPowerW - e.outputPowerW - lossSum) / e.inputPowerW).toBeLessThan(1e-9);
+    for (const [kind, w] of Object.entries(e.losses)) {
+      // The diodes' share is a difference of two model figures: allow −1e-6 of the input for rounding.
+      expect(w, kind).toBeGreaterThanOrEqual(-1e-6 * e.inputPowerW);
+    }
+    expect(e.efficiency).toBeGreaterThan(0);
+    expect(e.efficiency).toBeLessThan(1);
+  });
+
+  it('gives one efficiency: the Driver figures, the rated load point and the energy section agree', () => {
+    const d = analyzeDesign(heavy).driver!;
+    // 1e-12 relative: the same number carried to three places.
+    expect(Math.abs(d.figures.efficiency.value - d.energy.efficiency)).toBeLessThan(1e-12);
+    expect(Math.abs(d.operatingPoint.ratedLoad.efficiency - d.energy.efficiency)).toBeLessThan(1e-12);
+    expect(Math.abs(d.figures.inputPowerW.value - d.energy.inputPowerW)).toBeLessThan(1e-12 * d.energy.inputPowerW);
+    // Output power V·I (REFERENCES.md §3 power balance): at 50 µA the load takes output × 50 µA.
+    const r = analyzeDesign(heavy);
+    expect(Math.abs(d.energy.outputPowerW - Math.abs(r.outputMeanV) * 50e-6) / d.energy.outputPowerW).toBeLessThan(
+      1e-6,
+    );
+  });
+
+  it('puts the bleeder’s V²/R among the losses (Ohm’s law)', () => {
+    const r = analyzeDesign(demo);
+    const e = r.driver!.energy;
+    const topV = Math.abs(r.analysis.ladderTopMeanV);
+    // 1e-6 relative: the operating point's top and the ladder report's agree to the solver tolerance.
+    expect(Math.abs(e.losses.bleeder - (topV * topV) / (5 * 82e6)) / e.losses.bleeder).toBeLessThan(1e-6);
+  });
+
+  it('takes the junction temperature as T_ambient + P·Rθ and checks the dissipation (common practice, no source)', () => {
+    const checks = runDriverChecks(driverExamples.surfaceChargeTester);
+    const t = checks.energy.transistor;
+    expect(t.thermalResistanceCPerW).toBe(DEFAULT_TRANSISTOR_THERMAL.thermalResistanceCPerW);
+    // 1e-12: the same arithmetic, rounding only.
+    expect(Math.abs(t.junctionTemperatureC - (25 + t.dissipationW * 200))).toBeLessThan(1e-9);
+    expect(t.maxDissipationW).toBeCloseTo((150 - 25) / 200, 12);
+    const v = checks.verdicts.find((c) => c.id === 'driver.transistor-dissipation')!;
+    expect(v.value).toBe(t.dissipationW);
+    // A stage driven hard (R_B 10 Ω from 3 V: amperes of collector current) overheats a small transistor.
+    const hard: DriverStage = {
+      ...driverExamples.surfaceChargeTester,
+      baseResistorOhm: 10,
+      transformer: { ...driverExamples.surfaceChargeTester.transformer, saturationCurrentA: 5 },
+      transistor: { ...driverExamples.surfaceChargeTester.transistor, icMaxA: 10 },
+    };
+    const hot = runDriverChecks(hard).verdicts.find((c) => c.id === 'driver.transistor-dissipation')!;
+    expect(hot.value).toBeGreaterThan(v.value);
+  });
+
+  it('without a ladder the clamp takes the whole flyback: its dissipation is E·f less the secondary copper', () => {
+    const checks = runDriverChecks(driverExamples.surfaceChargeTester);
+    const e = checks.estimate;
+    const clamp = checks.energy.clamp;
+    // Energy per cycle E·f goes to leakage (1 − k²), secondary copper and the deliverable flyback; with no
+    // load the deliverable part goes to the clamp too (1e-9 relative, rounding).
+    const expected = e.energyPerCycleJ.value * e.frequencyHz.value - e.losses.secondaryCopperW;
+    expect(Math.abs(clamp.dissipationW - expected) / expected).toBeLessThan(1e-9);
+    const verdict = checks.verdicts.find((c) => c.id === 'driver.clamp-dissipation')!;
+    expect(verdict.limit).toBe(0.5);
+  });
+});

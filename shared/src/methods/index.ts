@@ -1,0 +1,1 @@
+export type { MethodInfo, Estimated } from './method.types';
