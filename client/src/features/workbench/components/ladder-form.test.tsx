@@ -40,7 +40,6 @@ function driverOf(document: Design | undefined) {
   return document.drive.driver;
 }
 
-// Each edit runs the engine on a driver design (tens of ms) and re-renders the whole form.
 // Every change re-runs the full driver analysis in the harness (about 0.1–0.2 s each on a loaded 2-core machine).
 const timeoutMs = 60_000;
 
