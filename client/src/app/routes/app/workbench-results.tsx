@@ -1,3 +1,4 @@
+import { memo } from 'react';
 import { Tabs, Text } from '@mantine/core';
 import type { RevisionDetail, RevisionSummary } from '@ladderwright/shared/api';
 import type { Design } from '@ladderwright/shared/designs';
@@ -20,6 +21,16 @@ export interface WorkbenchResultsProps {
   report: DesignReport;
 }
 
+/** The plots change only with the report, not with every keystroke that has not reached the engine yet. */
+const PlotsPanel = memo(function PlotsPanel({ report }: { report: DesignReport }) {
+  return (
+    <>
+      <OtherFigures report={report} />
+      <LadderCharts report={report} />
+    </>
+  );
+});
+
 /** The Workbench result tabs: Plots, Driver, Ladder, Checks, BOM cost, Waveforms, History. */
 export function WorkbenchResults({ projectId, revision, revisions, draft, isDirty, report }: WorkbenchResultsProps) {
   return (
@@ -34,8 +45,7 @@ export function WorkbenchResults({ projectId, revision, revisions, draft, isDirt
         <Tabs.Tab value="history">History</Tabs.Tab>
       </Tabs.List>
       <Tabs.Panel value="plots" pt="sm">
-        <OtherFigures report={report} />
-        <LadderCharts report={report} />
+        <PlotsPanel report={report} />
       </Tabs.Panel>
       {report.driver && (
         <Tabs.Panel value="driver" pt="sm">

@@ -4,7 +4,7 @@ import { useDocumentTitle } from '@mantine/hooks';
 import { notifications } from '@mantine/notifications';
 import { useQueryClient, useSuspenseQuery, type QueryClient } from '@tanstack/react-query';
 import { Link, redirect, useNavigate, useParams, useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
-import type { RevisionDetail, RevisionSummary, StaleBaseError } from '@ladderwright/shared/api';
+import type { Part, RevisionDetail, RevisionSummary, StaleBaseError } from '@ladderwright/shared/api';
 import { canInProject } from '@ladderwright/shared/auth';
 import { documentFieldLabel } from '@ladderwright/shared/designs';
 import { paths } from '../../../config/paths';
@@ -23,6 +23,8 @@ import classes from './workbench.module.css';
 import { WorkbenchHeader } from './workbench-header';
 import { WorkbenchResults } from './workbench-results';
 import { WorkbenchStaleAlert } from './workbench-stale-alert';
+
+const noParts: readonly Part[] = [];
 
 function revisionParam(request: Request | URLSearchParams): number | null {
   const params = request instanceof URLSearchParams ? request : new URL(request.url).searchParams;
@@ -204,7 +206,7 @@ function EditableRevision({ projectId, revision, latestRevisionNumber, revisions
             document={draft.draft}
             onChange={draft.setDraft}
             issues={live.issues}
-            parts={shelf ?? []}
+            parts={shelf ?? noParts}
             isReadOnly={isReadOnly}
           />
         </section>

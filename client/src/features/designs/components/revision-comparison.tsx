@@ -16,10 +16,15 @@ function placeText(place: CapacitorPlace): string {
   return `stage ${place.stage}, ${place.column.replace('-', ' ')}`;
 }
 
-/** A relative difference in per cent with its sign, three significant figures: `+4.38 %`, `−0.0242 %`. */
-function formatPercentDelta(deltaPct: number | null | undefined): string {
-  if (deltaPct === null || deltaPct === undefined) return '—';
+/**
+ * B against A, bounded: a signed percentage up to a doubling (`+4.38 %`, `−62.4 %`), a multiple beyond it (`3.1×`),
+ * and "sign changes" when the two have opposite signs (a percentage of that says nothing).
+ */
+function formatRelative(a: number | null, b: number | null, deltaPct: number | null | undefined): string {
+  if (deltaPct === null || deltaPct === undefined || a === null || b === null) return '—';
   if (deltaPct === 0) return '0 %';
+  if (a * b < 0) return 'sign changes';
+  if (deltaPct >= 100) return `${Number((1 + deltaPct / 100).toPrecision(2)).toString()}×`;
   return `${deltaPct > 0 ? '+' : '−'}${Number(Math.abs(deltaPct).toPrecision(3)).toString()} %`;
 }
 
@@ -114,7 +119,7 @@ export function RevisionComparison({ comparison }: RevisionComparisonProps) {
               <Table.Th>{sideName('a')}</Table.Th>
               <Table.Th>{sideName('b')}</Table.Th>
               <Table.Th>Δ (B − A)</Table.Th>
-              <Table.Th>Δ %</Table.Th>
+              <Table.Th>B against A</Table.Th>
             </Table.Tr>
           </Table.Thead>
           <Table.Tbody>
@@ -130,7 +135,7 @@ export function RevisionComparison({ comparison }: RevisionComparisonProps) {
                   <Table.Td>{formatFieldValue(result.a, display)}</Table.Td>
                   <Table.Td>{formatFieldValue(result.b, display)}</Table.Td>
                   <Table.Td>{formatFieldDelta(result.delta, display)}</Table.Td>
-                  <Table.Td>{formatPercentDelta(result.deltaPct)}</Table.Td>
+                  <Table.Td>{formatRelative(result.a, result.b, result.deltaPct)}</Table.Td>
                 </Table.Tr>
               );
             })}

@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { memo, useState } from 'react';
 import { Accordion, Badge, Group, Stack, Text } from '@mantine/core';
 import type { Part } from '@ladderwright/shared/api';
 import type { Design } from '@ladderwright/shared/designs';
@@ -31,7 +31,13 @@ export interface LadderFormProps {
  * The design document as a form in collapsible sections (design, drive, transformer and transistor of a
  * blocking-oscillator drive, ladder, output network, targets) under the Form index; each field checked in place.
  */
-export function LadderForm({ document, onChange, issues, parts = [], isReadOnly = false }: LadderFormProps) {
+export const LadderForm = memo(function LadderForm({
+  document,
+  onChange,
+  issues,
+  parts = [],
+  isReadOnly = false,
+}: LadderFormProps) {
   const edit: Edit<Design> = (mutate, key) => {
     const draft = structuredClone(document);
     mutate(draft);
@@ -106,4 +112,4 @@ export function LadderForm({ document, onChange, issues, parts = [], isReadOnly 
       </Accordion>
     </Stack>
   );
-}
+});
