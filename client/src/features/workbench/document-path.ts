@@ -70,3 +70,22 @@ export function binder<T extends object>(
     };
   };
 }
+
+/**
+ * `next` with every branch that equals the one in `previous` replaced by that very branch, so an edit keeps the
+ * identity of all it did not touch and memoized parts of the form can skip rendering.
+ */
+export function withSharedBranches<T>(previous: T, next: T): T {
+  if (Object.is(previous, next)) return previous;
+  if (!isNode(previous) || !isNode(next) || Array.isArray(previous) !== Array.isArray(next)) return next;
+  const previousKeys = Object.keys(previous);
+  const nextKeys = Object.keys(next);
+  let isSame = previousKeys.length === nextKeys.length;
+  const shared: Node = Array.isArray(next) ? ([] as unknown as Node) : {};
+  for (const key of nextKeys) {
+    const branch = withSharedBranches(previous[key], next[key]);
+    shared[key] = branch;
+    if (branch !== previous[key] || !(key in previous)) isSame = false;
+  }
+  return (isSame ? previous : shared) as T;
+}

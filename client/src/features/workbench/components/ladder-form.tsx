@@ -1,8 +1,9 @@
-import { memo, useState } from 'react';
+import { memo, useCallback, useLayoutEffect, useRef, useState } from 'react';
 import { Accordion, Badge, Group, Stack, Text } from '@mantine/core';
 import type { Part } from '@ladderwright/shared/api';
 import type { Design } from '@ladderwright/shared/designs';
-import type { Edit } from '../document-path';
+import { withSharedBranches, type Edit } from '../document-path';
+import { withShelfPart, type PartSlot } from '../shelf-picks';
 import { DesignSection } from './form-sections/design-section';
 import { DriveSection } from './form-sections/drive-section';
 import { driverEdit } from './form-sections/driver-edit';
@@ -38,12 +39,32 @@ export const LadderForm = memo(function LadderForm({
   parts = [],
   isReadOnly = false,
 }: LadderFormProps) {
-  const edit: Edit<Design> = (mutate, key) => {
-    const draft = structuredClone(document);
+  // Edits read the latest document through a ref, so the edit functions stay the same from render to render and
+  // a section whose part of the document did not change can skip rendering (its props are all the same).
+  const documentRef = useRef(document);
+  useLayoutEffect(() => {
+    documentRef.current = document;
+  });
+  const onChangeRef = useRef(onChange);
+  useLayoutEffect(() => {
+    onChangeRef.current = onChange;
+  });
+  const edit: Edit<Design> = useCallback((mutate, key) => {
+    const current = documentRef.current;
+    const draft = structuredClone(current);
     mutate(draft);
-    onChange(draft, key);
-  };
-  const issue = (path: string) => issues[path] ?? null;
+    const next = withSharedBranches(current, draft);
+    documentRef.current = next;
+    onChangeRef.current(next, key);
+  }, []);
+  const partsRef = useRef(parts);
+  partsRef.current = parts;
+  const onPickPart = useCallback((slot: PartSlot, part: Part) => {
+    const next = withShelfPart(documentRef.current, slot, part, partsRef.current);
+    documentRef.current = next;
+    onChangeRef.current(next);
+  }, []);
+  const issue = useCallback((path: string) => issues[path] ?? null, [issues]);
   const driver = document.drive.kind === 'driver' ? document.drive.driver : null;
   const sections = FORM_SECTIONS.filter(({ id }) => driver !== null || (id !== 'transformer' && id !== 'transistor'));
   const [open, setOpen] = useState<string[]>(() => sections.map(({ id }) => id));
@@ -59,26 +80,6 @@ export const LadderForm = memo(function LadderForm({
       item?.scrollIntoView({ block: 'start' });
       item?.querySelector<HTMLButtonElement>('button')?.focus({ preventScroll: true });
     });
-  };
-  const body = (id: FormSectionId) => {
-    const props = { document, edit, issue };
-    const shelf = { parts, onDocument: (next: Design) => onChange(next) };
-    switch (id) {
-      case 'design':
-        return <DesignSection {...props} />;
-      case 'drive':
-        return <DriveSection {...props} />;
-      case 'transformer':
-        return driver && <TransformerSection driver={driver} edit={driverEdit(edit)} issue={issue} />;
-      case 'transistor':
-        return driver && <TransistorSection driver={driver} edit={driverEdit(edit)} issue={issue} />;
-      case 'ladder':
-        return <LadderSection {...props} {...shelf} issues={issues} />;
-      case 'output':
-        return <OutputSection {...props} {...shelf} />;
-      case 'targets':
-        return <TargetsSection {...props} />;
-    }
   };
 
   return (
@@ -104,7 +105,15 @@ export const LadderForm = memo(function LadderForm({
             </Accordion.Control>
             <Accordion.Panel>
               <fieldset className={classes.fields} disabled={isReadOnly} aria-label={title}>
-                {body(id)}
+                <SectionBody
+                  id={id}
+                  document={document}
+                  edit={edit}
+                  issue={issue}
+                  issues={issues}
+                  parts={parts}
+                  onPickPart={onPickPart}
+                />
               </fieldset>
             </Accordion.Panel>
           </Accordion.Item>
@@ -113,3 +122,54 @@ export const LadderForm = memo(function LadderForm({
     </Stack>
   );
 });
+
+/** The parts of the document each section shows; a section renders again only when one of them changes. */
+const sectionSlices: Record<FormSectionId, (document: Design) => readonly unknown[]> = {
+  design: (d) => [d.name, d.notes],
+  drive: (d) => [d.drive],
+  transformer: (d) => [d.drive],
+  transistor: (d) => [d.drive],
+  ladder: (d) => [d.multiplier],
+  output: (d) => [d.outputNetwork, d.load],
+  targets: (d) => [d.targets],
+};
+
+interface SectionBodyProps {
+  id: FormSectionId;
+  document: Design;
+  edit: Edit<Design>;
+  issue: (path: string) => string | null;
+  issues: Readonly<Record<string, string>>;
+  parts: readonly Part[];
+  onPickPart: (slot: PartSlot, part: Part) => void;
+}
+
+const SectionBody = memo(
+  function SectionBody({ id, document, edit, issue, issues, parts, onPickPart }: SectionBodyProps) {
+    const props = { document, edit, issue };
+    const driver = document.drive.kind === 'driver' ? document.drive.driver : null;
+    switch (id) {
+      case 'design':
+        return <DesignSection {...props} />;
+      case 'drive':
+        return <DriveSection {...props} />;
+      case 'transformer':
+        return driver && <TransformerSection driver={driver} edit={driverEdit(edit)} issue={issue} />;
+      case 'transistor':
+        return driver && <TransistorSection driver={driver} edit={driverEdit(edit)} issue={issue} />;
+      case 'ladder':
+        return <LadderSection {...props} parts={parts} onPickPart={onPickPart} issues={issues} />;
+      case 'output':
+        return <OutputSection {...props} parts={parts} onPickPart={onPickPart} />;
+      case 'targets':
+        return <TargetsSection {...props} />;
+    }
+  },
+  (previous, next) =>
+    previous.id === next.id &&
+    previous.edit === next.edit &&
+    previous.issue === next.issue &&
+    previous.parts === next.parts &&
+    previous.onPickPart === next.onPickPart &&
+    sectionSlices[next.id](previous.document).every((slice, i) => slice === sectionSlices[next.id](next.document)[i]),
+);

@@ -1,3 +1,4 @@
+import { memo } from 'react';
 import { Group, Paper, Text } from '@mantine/core';
 import type { Design } from '@ladderwright/shared/designs';
 import type { DesignReport } from '@ladderwright/shared/analysis';
@@ -16,7 +17,7 @@ export interface VerdictStripProps {
  * efficiency, battery life, stored energy, discharge time, worst check), each with its target and a verdict
  * in words and a number. It stays in view beside or above the form.
  */
-export function VerdictStrip({ report, targets }: VerdictStripProps) {
+export const VerdictStrip = memo(function VerdictStrip({ report, targets }: VerdictStripProps) {
   return (
     <div className={classes.strip} aria-label="Verdict strip" role="list">
       {verdictStripFigures(report, targets).map((figure) => (
@@ -24,7 +25,7 @@ export function VerdictStrip({ report, targets }: VerdictStripProps) {
       ))}
     </div>
   );
-}
+});
 
 function FigureCell({ figure }: { figure: StripFigure }) {
   return (

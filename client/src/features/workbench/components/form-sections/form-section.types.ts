@@ -1,6 +1,7 @@
 import type { Part } from '@ladderwright/shared/api';
 import type { Design } from '@ladderwright/shared/designs';
 import type { Edit } from '../../document-path';
+import type { PartSlot } from '../../shelf-picks';
 
 /** What every form section gets: the document, the edit that changes a copy of it, and issues by document path. */
 export interface SectionProps {
@@ -9,10 +10,10 @@ export interface SectionProps {
   issue: (path: string) => string | null;
 }
 
-/** A section with part-code fields: the shelf, and a way to replace the document after a pick. */
+/** A section with part-code fields: the shelf, and what a pick from it does (fills value and ratings). */
 export interface ShelfProps {
   parts: readonly Part[];
-  onDocument: (document: Design) => void;
+  onPickPart: (slot: PartSlot, part: Part) => void;
 }
 
 /** The form sections in order, with the names the Form index and the section headings use. */

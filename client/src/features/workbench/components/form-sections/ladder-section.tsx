@@ -6,7 +6,6 @@ import { BoundField } from '../../../../components/bound-field';
 import { FieldGrid } from '../../../../components/field-grid';
 import { binder } from '../../document-path';
 import { placeLabel, resizeCapacitors, resizeKeepingPlaces, roleChanges, type RoleChange } from '../../ladder-edits';
-import { withShelfPart } from '../../shelf-picks';
 import { CapacitorTable } from '../capacitor-table';
 import { PartCodeInput } from '../part-code-input';
 import type { SectionProps, ShelfProps } from './form-section.types';
@@ -34,7 +33,7 @@ export function LadderSection({
   issue,
   issues,
   parts,
-  onDocument,
+  onPickPart,
 }: SectionProps & ShelfProps & { issues: Readonly<Record<string, string>> }) {
   const m = document.multiplier;
   const [pending, setPending] = useState<PendingShape | null>(null);
@@ -92,7 +91,7 @@ export function LadderSection({
         capacitors={m.capacitors}
         issues={issues}
         parts={parts}
-        onPickPart={(index, part) => onDocument(withShelfPart(document, { kind: 'capacitor', index }, part, parts))}
+        onPickPart={(index, part) => onPickPart({ kind: 'capacitor', index }, part)}
         onChange={(capacitors, key) =>
           edit((d) => {
             d.multiplier.capacitors = capacitors;
@@ -114,7 +113,7 @@ export function LadderSection({
             d.multiplier.diode.partCode = partCode;
           }, `${dp}.partCode`)
         }
-        onPick={(part) => onDocument(withShelfPart(document, { kind: 'diode' }, part, parts))}
+        onPick={(part) => onPickPart({ kind: 'diode' }, part)}
       />
       <FieldGrid>
         <BoundField label="Rated PIV" unit="V" {...bind('multiplier.diode.ratedPivV')} />

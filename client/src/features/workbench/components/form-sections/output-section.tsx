@@ -2,14 +2,13 @@ import { Select, Stack, Switch } from '@mantine/core';
 import { BoundField } from '../../../../components/bound-field';
 import { FieldGrid } from '../../../../components/field-grid';
 import { binder } from '../../document-path';
-import { withShelfPart } from '../../shelf-picks';
 import { PartCodeInput } from '../part-code-input';
 import type { SectionProps, ShelfProps } from './form-section.types';
 
 const bp = 'outputNetwork.bleeder';
 
 /** The bleeder string, the series output resistor and the load. */
-export function OutputSection({ document, edit, issue, parts, onDocument }: SectionProps & ShelfProps) {
+export function OutputSection({ document, edit, issue, parts, onPickPart }: SectionProps & ShelfProps) {
   const bleeder = document.outputNetwork.bleeder;
   const bind = binder(document, edit, issue);
   return (
@@ -39,7 +38,7 @@ export function OutputSection({ document, edit, issue, parts, onDocument }: Sect
               if (d.outputNetwork.bleeder) d.outputNetwork.bleeder.partCode = partCode;
             }, `${bp}.partCode`)
           }
-          onPick={(part) => onDocument(withShelfPart(document, { kind: 'bleeder' }, part, parts))}
+          onPick={(part) => onPickPart({ kind: 'bleeder' }, part)}
         />
       )}
       {bleeder && (
