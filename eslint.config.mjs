@@ -97,6 +97,20 @@ export default tseslint.config(
     files: ['client/src/**/*.{ts,tsx}'],
     rules: { 'import-x/no-restricted-paths': ['error', { zones: clientZones }] },
   },
+  // Type-aware rules on the product code (tests keep the syntactic set: their response bodies and mocks are untyped).
+  {
+    files: ['shared/src/**/*.ts', 'shared/cli/**/*.ts', 'server/src/**/*.ts', 'client/src/**/*.{ts,tsx}'],
+    ignores: ['**/*.test.{ts,tsx}', 'client/src/testing/**'],
+    extends: [tseslint.configs.recommendedTypeCheckedOnly],
+    languageOptions: { parserOptions: { projectService: true, tsconfigRootDir: import.meta.dirname } },
+    rules: {
+      // React Router loaders throw the Response of redirect(); a caught error of unknown type is rethrown as is.
+      '@typescript-eslint/only-throw-error': [
+        'error',
+        { allow: [{ from: 'lib', name: 'Response' }], allowThrowingUnknown: true },
+      ],
+    },
+  },
   {
     files: ['**/*.cjs'],
     languageOptions: { sourceType: 'commonjs' },

@@ -31,7 +31,6 @@ export default defineConfig({
               name: 'vendor-react',
               test: /node_modules[\\/](react|react-dom|scheduler|react-router|react-router-dom)[\\/]/,
             },
-            { name: 'vendor-mantine', test: /node_modules[\\/]@mantine[\\/]/ },
             { name: 'vendor-query', test: /node_modules[\\/]@tanstack[\\/]/ },
           ],
         },

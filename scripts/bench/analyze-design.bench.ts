@@ -50,3 +50,17 @@ for (const [name, design] of Object.entries(designExamples)) {
       `reference analyzeLadder ${(referenceMs * 1000).toFixed(1)} µs; ratio ${(designMs / referenceMs).toFixed(0)}×`,
   );
 }
+
+// The blocking-oscillator design's live recompute against a sine-drive demo design, side by side in this run:
+// target ≤ 1.5 ms CPU and a ratio ≤ 2 (the Workbench recomputes on every edit).
+{
+  const driverDesign = designExamples.surfaceChargeTester;
+  const sineDesign = designExamples.detectorBias;
+  const driverMs = cpuMsPerCall(() => analyzeDesign(driverDesign), 41, 10);
+  const sineMs = cpuMsPerCall(() => analyzeDesign(sineDesign), 41, 10);
+  const ratio = driverMs / sineMs;
+  console.log(
+    `blocking-oscillator analyzeDesign ${driverMs.toFixed(2)} ms CPU (target ≤ 1.5 ms${driverMs <= 1.5 ? ', met' : ', NOT met'}); ` +
+      `sine-drive detectorBias ${sineMs.toFixed(2)} ms; ratio ${ratio.toFixed(2)} (target ≤ 2${ratio <= 2 ? ', met' : ', NOT met'})`,
+  );
+}

@@ -8,7 +8,8 @@ import { repoRoot, run } from '../lib/run.mjs';
 
 const pgPort = process.env.LW_PG_PORT ?? '54329';
 
-async function freePort() {
+/** A free TCP port on loopback. */
+export async function freePort() {
   const server = createServer();
   await new Promise((done) => server.listen(0, '127.0.0.1', done));
   const { port } = server.address();
@@ -68,5 +69,5 @@ export async function startBenchServer({ database, clientDistDir = '/nonexistent
     await stop();
     throw error;
   }
-  return { baseUrl, stop };
+  return { baseUrl, stop, pid: child.pid };
 }

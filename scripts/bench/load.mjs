@@ -1,9 +1,14 @@
 // Load figures: autocannon against a built server it starts itself on loopback, with its own database.
 // Each measured route runs beside GET /api/health (the baseline) in the same run; the ratio is route/baseline.
+// Then GET /api/health p99 with driver-design evaluates running at full load beside the same without them,
+// and the server's resident memory after all of it beside a minimal NestJS app loaded the same way.
 //   node scripts/bench/load.mjs [--duration-s 5] [--connections 10]
+import { spawn } from 'node:child_process';
+import { readFileSync } from 'node:fs';
+import path from 'node:path';
 import autocannon from 'autocannon';
-import { run } from '../lib/run.mjs';
-import { startBenchServer } from './bench-server.mjs';
+import { repoRoot, run } from '../lib/run.mjs';
+import { freePort, startBenchServer } from './bench-server.mjs';
 
 const argValue = (name, fallback) => {
   const index = process.argv.indexOf(name);
@@ -39,10 +44,55 @@ function measure(title, options) {
   });
 }
 
+/** Resident set size of a process in MiB, from /proc (Linux). */
+function rssMiB(pid) {
+  const status = readFileSync(`/proc/${pid}/status`, 'utf8');
+  const kib = Number(/VmRSS:\s+(\d+)\s+kB/.exec(status)?.[1] ?? Number.NaN);
+  return kib / 1024;
+}
+
+/** Starts scripts/bench/minimal-nest-app.cjs; resolves when it answers. */
+async function startMinimalNest() {
+  const port = await freePort();
+  const child = spawn(process.execPath, [path.join(repoRoot, 'scripts', 'bench', 'minimal-nest-app.cjs')], {
+    cwd: repoRoot,
+    env: { ...process.env, PORT: String(port) },
+    stdio: ['ignore', 'ignore', 'inherit'],
+  });
+  const baseUrl = `http://127.0.0.1:${port}`;
+  const deadline = Date.now() + 30_000;
+  for (;;) {
+    try {
+      if ((await fetch(`${baseUrl}/api/health`)).status === 200) break;
+    } catch {
+      // not listening yet
+    }
+    if (Date.now() > deadline || child.exitCode !== null) throw new Error('the minimal NestJS app did not start');
+    await new Promise((done) => setTimeout(done, 200));
+  }
+  const stop = () =>
+    new Promise((done) => {
+      child.once('exit', done);
+      child.kill('SIGTERM');
+    });
+  return { baseUrl, pid: child.pid, stop };
+}
+
+const row = (cells, widths) =>
+  cells.map((cell, i) => String(cell)[i === 0 ? 'padEnd' : 'padStart'](widths[i])).join(' ');
+const WIDTHS = [46, 7, 8, 7, 7, 7];
+
+function printRun(result) {
+  console.log(
+    row([result.title, result.rps.toFixed(0), result.p50Ms, result.p95Ms, result.p99Ms, result.errors], WIDTHS),
+  );
+}
+
 async function main() {
   if ((await run('npm', ['run', 'build', '-w', 'shared'])) !== 0) throw new Error('shared build failed');
   if ((await run('npm', ['run', 'build', '-w', 'server'])) !== 0) throw new Error('server build failed');
-  const { baseUrl, stop } = await startBenchServer({ database: 'ladderwright_bench' });
+  const { baseUrl, stop, pid } = await startBenchServer({ database: 'ladderwright_bench' });
+  const lines = [];
   try {
     const signIn = await fetch(`${baseUrl}/api/auth/sign-in`, {
       method: 'POST',
@@ -52,42 +102,78 @@ async function main() {
     if (signIn.status !== 200) throw new Error(`demo sign-in answered ${signIn.status}`);
     const cookie = (signIn.headers.get('set-cookie') ?? '').split(';')[0];
     const headers = { cookie, 'content-type': 'application/json' };
-    const templates = await (await fetch(`${baseUrl}/api/design-templates`, { headers })).json();
-    const document = templates[0]?.document;
-    if (!document) throw new Error('no demo design template to evaluate');
-    const evaluateBody = JSON.stringify({ document });
-    const check = await fetch(`${baseUrl}/api/analysis/evaluate`, { method: 'POST', headers, body: evaluateBody });
-    if (check.status !== 200) throw new Error(`POST /api/analysis/evaluate answered ${check.status}`);
-
-    const rows = [];
-    for (const [title, options] of [
-      ['GET /api/projects', { url: `${baseUrl}/api/projects`, headers }],
-      [
-        `POST /api/analysis/evaluate (${templates[0].id})`,
-        { url: `${baseUrl}/api/analysis/evaluate`, method: 'POST', headers, body: evaluateBody },
-      ],
-    ]) {
-      const baseline = await measure('GET /api/health (baseline)', { url: `${baseUrl}/api/health` });
-      const route = await measure(title, options);
-      rows.push({ route, baseline });
+    const getJson = async (url) => {
+      const response = await fetch(url, { headers });
+      if (response.status !== 200) throw new Error(`GET ${url} answered ${response.status}`);
+      return response.json();
+    };
+    const templates = await getJson(`${baseUrl}/api/design-templates`);
+    const ladder = templates.find((template) => template.document.drive.kind !== 'driver');
+    const driver = templates.find((template) => template.document.drive.kind === 'driver');
+    if (!ladder || !driver) throw new Error('the demo templates lack a ladder or a driver design');
+    const [project] = await getJson(`${baseUrl}/api/projects`);
+    const designs = await getJson(`${baseUrl}/api/projects/${project.id}/designs`);
+    const design = (designs.items ?? designs)[0];
+    const revisionUrl = `${baseUrl}/api/projects/${project.id}/designs/${design.id}/revisions/${design.latestRevisionNumber ?? 1}`;
+    await getJson(revisionUrl);
+    const evaluate = (document) => ({
+      url: `${baseUrl}/api/analysis/evaluate`,
+      method: 'POST',
+      headers,
+      body: JSON.stringify({ document }),
+    });
+    for (const body of [evaluate(ladder.document), evaluate(driver.document)]) {
+      const check = await fetch(body.url, { method: 'POST', headers, body: body.body });
+      if (check.status !== 200) throw new Error(`POST /api/analysis/evaluate answered ${check.status}`);
     }
 
     console.log(`\nload: ${connections} connections, ${durationS} s per run, loopback, Node ${process.version}`);
-    console.log(
-      'route                                         req/s   p50 ms  p95 ms  p99 ms  errors  | baseline req/s  ratio',
-    );
-    for (const { route, baseline } of rows) {
+    console.log(row(['route', 'req/s', 'p50 ms', 'p95 ms', 'p99 ms', 'errors'], WIDTHS));
+    for (const [title, options, target] of [
+      ['GET /api/projects', { url: `${baseUrl}/api/projects`, headers }, 0.5],
+      ['GET a revision', { url: revisionUrl, headers }, 0.4],
+      [`POST /api/analysis/evaluate (${ladder.id})`, evaluate(ladder.document), 0.3],
+    ]) {
+      const baseline = await measure('  GET /api/health (baseline)', { url: `${baseUrl}/api/health` });
+      const route = await measure(title, options);
+      printRun(baseline);
+      printRun(route);
       const ratio = baseline.rps > 0 ? route.rps / baseline.rps : 0;
-      console.log(
-        `${route.title.padEnd(44)} ${route.rps.toFixed(0).padStart(6)} ${String(route.p50Ms).padStart(8)} ${String(route.p95Ms).padStart(7)} ${String(route.p99Ms).padStart(7)} ${String(route.errors).padStart(7)}  | ${baseline.rps.toFixed(0).padStart(14)}  ${ratio.toFixed(3)}`,
+      lines.push(`${title}: ${ratio.toFixed(3)} of GET /api/health req/s (target >= ${target})`);
+    }
+
+    // GET /api/health p99 alone, then with driver evaluates filling every connection at the same time.
+    const quiet = await measure('GET /api/health alone', { url: `${baseUrl}/api/health` });
+    const [loaded, heavy] = await Promise.all([
+      measure('GET /api/health beside driver evaluates', { url: `${baseUrl}/api/health` }),
+      measure(`  POST /api/analysis/evaluate (${driver.id})`, evaluate(driver.document)),
+    ]);
+    for (const result of [quiet, loaded, heavy]) printRun(result);
+    const p99Ratio = quiet.p99Ms > 0 ? loaded.p99Ms / quiet.p99Ms : 0;
+    lines.push(
+      `GET /api/health p99 beside driver evaluates: ${loaded.p99Ms} ms against ${quiet.p99Ms} ms alone, ` +
+        `${p99Ratio.toFixed(2)}x (target <= 2)`,
+    );
+
+    // Memory: the server after all of the above, beside a minimal NestJS app after the same health load.
+    const serverRss = rssMiB(pid);
+    const minimal = await startMinimalNest();
+    try {
+      const reference = await measure('minimal NestJS GET /api/health', { url: `${minimal.baseUrl}/api/health` });
+      printRun(reference);
+      const minimalRss = rssMiB(minimal.pid);
+      lines.push(
+        `server RSS after the load: ${serverRss.toFixed(0)} MiB against ${minimalRss.toFixed(0)} MiB for a minimal ` +
+          `NestJS app, ${(serverRss / minimalRss).toFixed(2)}x (target <= 1.5)`,
       );
-      console.log(
-        `${'  baseline GET /api/health'.padEnd(44)} ${baseline.rps.toFixed(0).padStart(6)} ${String(baseline.p50Ms).padStart(8)} ${String(baseline.p95Ms).padStart(7)} ${String(baseline.p99Ms).padStart(7)} ${String(baseline.errors).padStart(7)}`,
-      );
+    } finally {
+      await minimal.stop();
     }
   } finally {
     await stop();
   }
+  console.log('');
+  for (const line of lines) console.log(line);
 }
 
 main().catch((error) => {

@@ -4,10 +4,6 @@
 // (its cycle mean within 0.5 % and 0.1 % of the steady-state mean from then on), not with a run that has
 // not settled yet. Wall times on a shared machine swing with its load; CPU times (ours from the process,
 // ngspice's from a separate run under bash's `times`) are printed beside them and are the fairer ratio.
-import { execFileSync } from 'node:child_process';
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
 import { buildLadderCircuit, type LadderCircuitSpec } from '../../shared/src/circuits/build-ladder-circuit';
 import { MnaSystem } from '../../shared/src/sim/mna-system';
 import { findPeriodicSteadyState } from '../../shared/src/sim/periodic-steady-state';
@@ -16,6 +12,7 @@ import { simulateTransient } from '../../shared/src/sim/transient-analysis';
 import { toSpiceNetlist } from '../../shared/src/sim/to-spice-netlist';
 import { windowMean, windowPeakToPeak } from '../../shared/src/sim/waveform-measures';
 import { runNgspice } from '../../shared/test/ngspice/run-ngspice';
+import { ngspiceCpuMs } from './ngspice-cpu';
 
 async function main(): Promise<void> {
   const cycles = Number(process.argv[2] ?? 2000);
@@ -106,27 +103,6 @@ async function main(): Promise<void> {
 function cpuMsSince(start: NodeJS.CpuUsage): number {
   const u = process.cpuUsage(start);
   return (u.user + u.system) / 1000;
-}
-
-/** CPU time (user + system) of one ngspice batch run of the netlist, from bash's `times` for its children. */
-function ngspiceCpuMs(netlist: string): number {
-  const dir = mkdtempSync(join(tmpdir(), 'lw-ngspice-cpu-'));
-  try {
-    const path = join(dir, 'circuit.cir');
-    writeFileSync(path, netlist.replace(/^\.end\s*$/m, '.control\nrun\n.endc\n.end'));
-    const out = execFileSync('bash', ['-c', 'ngspice -b "$1" >/dev/null 2>&1; times', 'bash', path], {
-      encoding: 'utf8',
-    });
-    // `times` prints the shell's user/system times, then its children's: "0m1.234s 0m0.056s".
-    const children = out.trim().split('\n').pop()!.trim().split(/\s+/);
-    const seconds = (t: string): number => {
-      const m = /^(\d+)m([\d.]+)s$/.exec(t);
-      return m ? 60 * Number(m[1]) + Number(m[2]) : NaN;
-    };
-    return 1000 * (seconds(children[0]!) + seconds(children[1]!));
-  } finally {
-    rmSync(dir, { recursive: true, force: true });
-  }
 }
 
 /** Mean of each whole period [c·T, (c + 1)·T] of a sampled signal. */

@@ -5,15 +5,18 @@ import { APP_GUARD, NestFactory } from '@nestjs/core';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
 import cookieParser from 'cookie-parser';
-import type { NextFunction, Request, Response } from 'express';
+import express, { type NextFunction, type Request, type Response } from 'express';
 import helmet from 'helmet';
 import { AnalysisModule } from './analysis/analysis.module';
 import { withDesignSchemaComponents } from './analysis/design-schema-components';
 import { AuditModule } from './audit/audit.module';
 import { AuthModule } from './auth/auth.module';
+import { SessionCacheModule } from './auth/session-cache.module';
 import { BenchRunsModule } from './bench-runs/bench-runs.module';
-import { SESSION_COOKIE } from './auth/jwt.strategy';
+import { sessionCookieName } from './auth/jwt.strategy';
 import { DomainErrorFilter, RequestValidationException } from './common/filters/domain-error.filter';
+import { sameOriginOnly } from './common/middleware/same-origin.middleware';
+import { JsonBodyGuard } from './common/guards/json-body.guard';
 import { JwtAuthGuard } from './common/guards/jwt-auth.guard';
 import { ProjectAccessGuard } from './projects/project-access.guard';
 import { RolesGuard } from './common/guards/roles.guard';
@@ -35,7 +38,7 @@ export const API_PREFIX = 'api';
 
 @Module({})
 export class AppModule {
-  /** Guards run in this order: session (401), account role (403), project membership (404/403). */
+  /** Guards run in this order: body type (415), session (401), account role (403), project membership (404/403). */
   static forRoot(env: AppEnv): DynamicModule {
     return {
       module: AppModule,
@@ -43,6 +46,7 @@ export class AppModule {
         ConfigModule.forRoot(env),
         DatabaseModule,
         AuditModule,
+        SessionCacheModule,
         UsersModule,
         AuthModule,
         ProjectsModule,
@@ -58,6 +62,7 @@ export class AppModule {
         SimulationsModule,
       ],
       providers: [
+        { provide: APP_GUARD, useClass: JsonBodyGuard },
         { provide: APP_GUARD, useClass: JwtAuthGuard },
         { provide: APP_GUARD, useClass: RolesGuard },
         { provide: APP_GUARD, useClass: ProjectAccessGuard },
@@ -73,6 +78,8 @@ export async function createApp(
 ): Promise<NestExpressApplication> {
   const app = await NestFactory.create<NestExpressApplication>(AppModule.forRoot(env), {
     logger: options.logger ?? ['error', 'warn', 'log'],
+    // Only the JSON parser, registered in configureApp: no form-encoded bodies (see JsonBodyGuard).
+    bodyParser: false,
   });
   configureApp(app, env);
   return app;
@@ -82,9 +89,10 @@ export async function createApp(
 export function configureApp(app: NestExpressApplication, env: AppEnv): void {
   app.setGlobalPrefix(API_PREFIX);
   app.disable('x-powered-by');
+  // First: a change sent by a page of another origin is refused before its body is read.
+  app.use(sameOriginOnly(env));
   // Before any route: an oversized body is refused from its Content-Length (413), unread.
   app.useBodyParser('json', { limit: env.bodyLimitBytes });
-  app.useBodyParser('urlencoded', { limit: env.bodyLimitBytes, extended: false });
   // CORS stays closed (no Access-Control-Allow-Origin at all) unless CORS_ORIGINS lists origins.
   if (env.corsOrigins.length > 0) app.enableCors({ origin: [...env.corsOrigins], credentials: true });
   // Plain http on loopback: no HSTS and no upgrade of sub-requests to https, which would break the page.
@@ -104,18 +112,18 @@ export function configureApp(app: NestExpressApplication, env: AppEnv): void {
     }),
   );
   app.useGlobalFilters(new DomainErrorFilter());
-  setUpApiDocs(app);
+  if (env.apiDocs) setUpApiDocs(app, sessionCookieName(env));
   serveClient(app, env.clientDistDir);
 }
 
-function setUpApiDocs(app: NestExpressApplication): void {
+function setUpApiDocs(app: NestExpressApplication, cookieName: string): void {
   const config = new DocumentBuilder()
     .setTitle('Ladderwright API')
     .setDescription(
-      'High-voltage DC supply design workbench. Sign in with POST /api/auth/sign-in; the session is the lw_session cookie.',
+      `High-voltage DC supply design workbench. Sign in with POST /api/auth/sign-in; the session is the ${cookieName} cookie. Request bodies are JSON (uploads multipart); changes from pages of another origin are refused.`,
     )
     .setVersion('0.1.0')
-    .addCookieAuth(SESSION_COOKIE)
+    .addCookieAuth(cookieName)
     .build();
   SwaggerModule.setup(`${API_PREFIX}/docs`, app, () =>
     withDesignSchemaComponents(SwaggerModule.createDocument(app, config)),
@@ -129,11 +137,14 @@ function serveClient(app: NestExpressApplication, clientDistDir: string): void {
     new Logger('Client').warn(`no built client at ${clientDistDir}; only the API is served`);
     return;
   }
-  app.useStaticAssets(clientDistDir, { index: false });
-  app.use((request: Request, response: Response, next: NextFunction) => {
-    const isPageRequest = request.method === 'GET' || request.method === 'HEAD';
+  // Registered before the API routes (Nest adds those at init), so it steps aside for /api paths itself:
+  // an API request never costs a file-system lookup.
+  const assets = express.static(clientDistDir, { index: false });
+  app.use((request: Request, response: Response, next: NextFunction): void => {
     const isApi = request.path === `/${API_PREFIX}` || request.path.startsWith(`/${API_PREFIX}/`);
-    if (!isPageRequest || isApi || extname(request.path) !== '') return next();
-    response.sendFile(indexHtml);
+    const isPageRequest = request.method === 'GET' || request.method === 'HEAD';
+    if (isApi || !isPageRequest) next();
+    else if (extname(request.path) !== '') void assets(request, response, next);
+    else response.sendFile(indexHtml);
   });
 }

@@ -15,6 +15,9 @@ describe('client hosting and API docs', () => {
     mkdirSync(join(clientDistDir, 'assets'));
     writeFileSync(join(clientDistDir, 'index.html'), '<!doctype html><title>Ladderwright</title><div id="root"></div>');
     writeFileSync(join(clientDistDir, 'assets', 'app.js'), 'console.log("workbench");');
+    // A file under api/ in the client folder must never answer an API path.
+    mkdirSync(join(clientDistDir, 'api'));
+    writeFileSync(join(clientDistDir, 'api', 'health.json'), '{"status":"from the file"}');
     testApp = await createTestApp({ env: { clientDistDir } });
   });
   afterAll(async () => {
@@ -45,6 +48,12 @@ describe('client hosting and API docs', () => {
     expect(response.body).toMatchObject({ statusCode: 404, code: 'not_found' });
   });
 
+  it('never looks up a static file for an /api path', async () => {
+    const response = await http().get('/api/health.json');
+    expect(response.status).toBe(404);
+    expect(response.body).toMatchObject({ code: 'not_found' });
+  });
+
   it('does not ask browsers to upgrade to https on plain loopback', async () => {
     const response = await http().get('/');
     expect(response.headers['content-security-policy']).not.toContain('upgrade-insecure-requests');
@@ -64,5 +73,16 @@ describe('client hosting and API docs', () => {
         '/api/health',
       ]),
     );
+  });
+
+  // Last: a second app rebinds the models to its own connection, which closes with it.
+  it('serves no API docs when API_DOCS is off', async () => {
+    const closedDocs = await createTestApp({ env: { clientDistDir, apiDocs: false } });
+    try {
+      const response = await request(closedDocs.app.getHttpServer()).get('/api/docs-json');
+      expect(response.status).toBe(404);
+    } finally {
+      await closedDocs.close();
+    }
   });
 });

@@ -1,5 +1,6 @@
 import { JwtService } from '@nestjs/jwt';
 import request from 'supertest';
+import { SessionsService } from '../src/auth/sessions.service';
 import { createUser, type TestUser } from './factories/create-user';
 import { createTestApp, type TestApp } from './utils/create-test-app';
 import { signIn } from './utils/sign-in';
@@ -80,8 +81,9 @@ describe('hardening: headers, CORS, cookies, session expiry, sign out everywhere
   });
 
   it('refuses an expired session token with 401', async () => {
+    const jti = await testApp.app.get(SessionsService).open(engineer.id, '127.0.0.1');
     const expired = new JwtService({ secret: testApp.env.jwtSecret }).sign(
-      { sub: engineer.id, sv: 0, exp: Math.floor(Date.now() / 1000) - 5 },
+      { sub: engineer.id, jti, sv: 0, exp: Math.floor(Date.now() / 1000) - 5 },
       { algorithm: 'HS256' },
     );
     const response = await request(testApp.app.getHttpServer())
@@ -89,20 +91,28 @@ describe('hardening: headers, CORS, cookies, session expiry, sign out everywhere
       .set('Cookie', `lw_session=${expired}`);
     expect(response.status).toBe(401);
     const valid = new JwtService({ secret: testApp.env.jwtSecret }).sign(
-      { sub: engineer.id, sv: 0, exp: Math.floor(Date.now() / 1000) + 60 },
+      { sub: engineer.id, jti, sv: 0, exp: Math.floor(Date.now() / 1000) + 60 },
       { algorithm: 'HS256' },
     );
     const fresh = await request(testApp.app.getHttpServer()).get('/api/auth/me').set('Cookie', `lw_session=${valid}`);
     expect(fresh.status).toBe(200);
   });
 
-  it('refuses a token signed with another secret or without a session version', async () => {
+  it('refuses a token signed with another secret, or without a session version, session id or expiry', async () => {
+    const jti = await testApp.app.get(SessionsService).open(engineer.id, '127.0.0.1');
+    const exp = Math.floor(Date.now() / 1000) + 600;
+    const own = new JwtService({ secret: testApp.env.jwtSecret });
     const forged = new JwtService({ secret: 'another-secret-another-secret-0123456789' }).sign({
       sub: engineer.id,
+      jti,
       sv: 0,
+      exp,
     });
-    const noVersion = new JwtService({ secret: testApp.env.jwtSecret }).sign({ sub: engineer.id });
-    for (const token of [forged, noVersion]) {
+    const noVersion = own.sign({ sub: engineer.id, jti, exp });
+    const noSession = own.sign({ sub: engineer.id, sv: 0, exp });
+    const noExpiry = own.sign({ sub: engineer.id, jti, sv: 0 });
+    expect(own.decode<Record<string, unknown>>(noExpiry).exp).toBeUndefined();
+    for (const token of [forged, noVersion, noSession, noExpiry]) {
       const response = await request(testApp.app.getHttpServer())
         .get('/api/auth/me')
         .set('Cookie', `lw_session=${token}`);
@@ -144,7 +154,7 @@ describe('hardening: headers, CORS, cookies, session expiry, sign out everywhere
 
   it('keeps the password policy: a short or digit-less password is a 400 naming password', async () => {
     const adminSession = await signIn(testApp, admin.email, admin.password);
-    for (const password of ['short1', 'no-digits-at-all', '1234567890123']) {
+    for (const password of ['short1', 'no-digits-at-all', '1234567890123', `${'a'.repeat(72)}1`]) {
       const response = await request(testApp.app.getHttpServer())
         .post('/api/users')
         .set('Cookie', adminSession)
@@ -161,7 +171,7 @@ describe('hardening: headers, CORS, cookies, session expiry, sign out everywhere
       const response = await request(secureApp.app.getHttpServer())
         .post('/api/auth/sign-in')
         .send({ email: user.email, password: user.password });
-      const cookie = setCookies(response).find((line) => line.startsWith('lw_session=')) ?? '';
+      const cookie = setCookies(response).find((line) => line.startsWith('__Host-lw_session=')) ?? '';
       expect(cookie).toMatch(/; Secure/);
       expect(cookie).toMatch(/; HttpOnly/);
       expect(response.headers['strict-transport-security']).toMatch(/max-age=\d+/);

@@ -91,7 +91,8 @@ describe('simulation jobs of a design driven by its blocking oscillator', () => 
     expect(Math.max(...col.values)).toBeLessThan(36);
     expect(Math.max(...col.values)).toBeGreaterThan(3.2);
     expect(waveforms.find((w) => w.name === 'I(Lp)')!.unit).toBe('A');
-    // The cold window starts from an empty ladder and ends at the window (1 ms).
+    // The cold start's charging curve (cycle means) starts from an empty ladder and, not settled within
+    // the 1 ms budget, ends there.
     const startUp = waveforms[0]!;
     expect(Math.abs(startUp.values[0]!)).toBeLessThan(1);
     expect(startUp.timeS[startUp.timeS.length - 1]!).toBeCloseTo(1e-3, 6);

@@ -3,33 +3,7 @@ import type { PulseDrive, SineDrive, Topology } from '../src/designs/design.type
 import type { LadderInput } from '../src/multiplier/ladder.types';
 import { parseQuantity } from '../src/units/parse-quantity';
 import type { QuantityUnit } from '../src/units/quantity.types';
-
-/** `--name value` pairs and bare `--flag`s, plus positional arguments. */
-export interface ParsedArguments {
-  positional: string[];
-  flags: Map<string, string | true>;
-}
-
-export function parseArguments(argv: ReadonlyArray<string>): ParsedArguments {
-  const positional: string[] = [];
-  const flags = new Map<string, string | true>();
-  for (let i = 0; i < argv.length; i += 1) {
-    const arg = argv[i] as string;
-    if (!arg.startsWith('--')) {
-      positional.push(arg);
-      continue;
-    }
-    const [name, inline] = arg.slice(2).split('=', 2) as [string, string | undefined];
-    const next = argv[i + 1];
-    if (inline !== undefined) flags.set(name, inline);
-    // A value may itself start with "-" (e.g. --peak -6k is not allowed, but "-6 kV" as --target is).
-    else if (next !== undefined && (!next.startsWith('--') || /^--?\d/.test(next))) {
-      flags.set(name, next);
-      i += 1;
-    } else flags.set(name, true);
-  }
-  return { positional, flags };
-}
+import type { OptionTable } from './arguments';
 
 /** A quantity flag with SI prefixes ("4.7n", "2k2", "25 kHz"); undefined when absent. */
 export function quantityFlag(flags: Map<string, string | true>, name: string, unit: QuantityUnit): number | undefined {
@@ -54,17 +28,31 @@ function integerFlag(flags: Map<string, string | true>, name: string): number | 
   return n;
 }
 
-export const LADDER_FLAGS_HELP = `  --topology half-wave|full-wave|bridge   (default half-wave)
-  --stages N | --cells K                  half-wave stage = 2 cells; full-wave stage = 3 capacitors; bridge has 2 cells
-  --peak V --freq F                       secondary peak (not rms) and frequency
-  [--flyback V --duty D]                  pulse drive: forward peak --peak for duty D, flyback peak --flyback
-  --cap C | --caps C1,C2,...              capacitors from the source upward (C1 oscillating stage 1, C2 smoothing stage 1 ...)
-  [--rs R]                                source resistance (default 0)
-  [--load-current I | --load-r R]         external load (default none)
-  [--diode-is IS --diode-n N --diode-rs R] Shockley diode (default 1n, 2, 1)
-  [--bleeder R] [--series-r R]            bleeder string total and series output resistor
-  [--safe-voltage V] [--negative]         discharge target; build a negative ladder
-  values accept SI prefixes: 4.7n, 4n7, 2k2, 25 kHz, 1.5 kV`;
+/** The bare-ladder options, shared by `ladder`, `simulate` and `netlist`. Values accept SI prefixes (4.7n, 4n7, 2k2, 25 kHz). */
+export const LADDER_OPTIONS: OptionTable = {
+  topology: { type: 'string', value: 'half-wave|full-wave|bridge', help: 'ladder topology (default half-wave)' },
+  stages: { type: 'string', value: 'N', help: 'stages: half-wave stage = 2 cells, full-wave stage = 3 capacitors' },
+  cells: { type: 'string', value: 'K', help: 'cells instead of stages (a bridge has 2)' },
+  peak: { type: 'string', value: 'V', help: 'secondary peak (not rms); the forward peak of a pulse drive' },
+  freq: { type: 'string', value: 'F', help: 'drive frequency' },
+  flyback: { type: 'string', value: 'V', help: 'pulse drive: flyback peak' },
+  duty: { type: 'string', value: 'D', help: 'pulse drive: forward share of the period (default 0.5)' },
+  cap: { type: 'string', value: 'C', help: 'every capacitor the same value' },
+  caps: { type: 'string', value: 'C1,C2,...', help: 'capacitors from the source upward (C1 oscillating stage 1, ...)' },
+  rs: { type: 'string', value: 'R', help: 'source resistance (default 0)' },
+  'load-current': { type: 'string', value: 'I', help: 'external load current (default none)' },
+  'load-r': { type: 'string', value: 'R', help: 'external load resistance (default none)' },
+  'diode-is': { type: 'string', value: 'IS', help: 'diode saturation current (default 1n)' },
+  'diode-n': { type: 'string', value: 'N', help: 'diode emission coefficient (default 2)' },
+  'diode-rs': { type: 'string', value: 'R', help: 'diode series resistance (default 1)' },
+  bleeder: { type: 'string', value: 'R', help: 'bleeder string total resistance' },
+  'series-r': { type: 'string', value: 'R', help: 'series output resistor' },
+  'safe-voltage': { type: 'string', value: 'V', help: "discharge target (default 50 V, or the design's)" },
+  negative: { type: 'boolean', help: 'build a negative ladder' },
+};
+
+/** The `--text` switch of the commands that can print a table instead of JSON. */
+export const TEXT_OPTION: OptionTable = { text: { type: 'boolean', help: 'a table instead of JSON' } };
 
 /** A bare ladder from command-line flags (the same flags serve `ladder`, `simulate` and `netlist`). */
 export function ladderInputFromFlags(flags: Map<string, string | true>): {

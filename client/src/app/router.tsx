@@ -21,6 +21,15 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
       },
     },
     {
+      path: paths.resetPassword.path,
+      hydrateFallbackElement: <PageLoader />,
+      errorElement: <RouteErrorFallback />,
+      lazy: async () => {
+        const { ResetPasswordRoute } = await import('./routes/auth/reset-password');
+        return { Component: ResetPasswordRoute };
+      },
+    },
+    {
       path: paths.projects.path,
       element: <AppRoot />,
       loader: requireUserLoader(queryClient),
@@ -51,6 +60,7 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
                 return { Component: OutboxRoute, loader: outboxLoader(queryClient) };
               },
             },
+            ...teamRoutes(queryClient),
             {
               path: paths.project.path,
               lazy: async () => {
@@ -110,6 +120,48 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
       lazy: async () => {
         const { NotFoundRoute } = await import('./routes/not-found');
         return { Component: NotFoundRoute };
+      },
+    },
+  ];
+}
+
+/** Administration, project members and settings, and the user's mail settings. */
+function teamRoutes(queryClient: QueryClient): RouteObject[] {
+  return [
+    {
+      path: paths.accounts.path,
+      lazy: async () => {
+        const { AccountsRoute, accountsLoader } = await import('./routes/app/accounts');
+        return { Component: AccountsRoute, loader: accountsLoader(queryClient) };
+      },
+    },
+    {
+      path: paths.auditLog.path,
+      lazy: async () => {
+        const { AuditLogRoute, auditLogLoader } = await import('./routes/app/audit-log');
+        return { Component: AuditLogRoute, loader: auditLogLoader(queryClient) };
+      },
+    },
+    {
+      path: paths.notificationSettings.path,
+      lazy: async () => {
+        const { NotificationSettingsRoute, notificationSettingsLoader } =
+          await import('./routes/app/notification-settings');
+        return { Component: NotificationSettingsRoute, loader: notificationSettingsLoader(queryClient) };
+      },
+    },
+    {
+      path: paths.projectMembers.path,
+      lazy: async () => {
+        const { ProjectMembersRoute, projectMembersLoader } = await import('./routes/app/project-members');
+        return { Component: ProjectMembersRoute, loader: projectMembersLoader(queryClient) };
+      },
+    },
+    {
+      path: paths.projectSettings.path,
+      lazy: async () => {
+        const { ProjectSettingsRoute, projectSettingsLoader } = await import('./routes/app/project-settings');
+        return { Component: ProjectSettingsRoute, loader: projectSettingsLoader(queryClient) };
       },
     },
   ];

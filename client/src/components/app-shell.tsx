@@ -3,6 +3,7 @@ import {
   ActionIcon,
   AppShell as MantineAppShell,
   Avatar,
+  Badge,
   Box,
   Burger,
   Button,
@@ -26,6 +27,8 @@ export interface AppShellProps {
   isSigningOut?: boolean;
   /** The navigation column (projects and the sections of the open project). */
   navigation: ReactNode;
+  /** Inbox items waiting for the user to act, shown beside the Inbox link. */
+  inboxCount?: number;
   children: ReactNode;
 }
 
@@ -37,7 +40,14 @@ function initialsOf(name: string): string {
   return letters.map((part) => (part ?? '').charAt(0).toUpperCase()).join('') || '?';
 }
 
-export function AppShell({ user, onSignOut, isSigningOut = false, navigation, children }: AppShellProps) {
+export function AppShell({
+  user,
+  onSignOut,
+  isSigningOut = false,
+  navigation,
+  inboxCount = 0,
+  children,
+}: AppShellProps) {
   const [isNavOpen, { toggle: toggleNav, close: closeNav }] = useDisclosure(false);
 
   return (
@@ -66,12 +76,30 @@ export function AppShell({ user, onSignOut, isSigningOut = false, navigation, ch
           </Group>
           <Group gap="xs" wrap="nowrap">
             <Group gap={4} wrap="nowrap" component="nav" aria-label="Sign-off mail">
-              <Button component={Link} to={paths.inbox.getHref()} variant="subtle" size="compact-sm">
+              <Button
+                component={Link}
+                to={paths.inbox.getHref()}
+                variant="subtle"
+                size="compact-sm"
+                aria-label={inboxCount > 0 ? `Inbox, ${inboxCount} waiting` : 'Inbox'}
+                rightSection={
+                  inboxCount > 0 ? (
+                    <Badge size="sm" circle={inboxCount < 10} color="ember" variant="filled">
+                      {inboxCount}
+                    </Badge>
+                  ) : undefined
+                }
+              >
                 Inbox
               </Button>
               {user.role === 'admin' && (
                 <Button component={Link} to={paths.outbox.getHref()} variant="subtle" size="compact-sm">
                   Outbox
+                </Button>
+              )}
+              {user.role === 'admin' && (
+                <Button component={Link} to={paths.accounts.getHref()} variant="subtle" size="compact-sm">
+                  Admin
                 </Button>
               )}
             </Group>
@@ -136,6 +164,9 @@ function UserMenu({ user, onSignOut, isSigningOut }: UserMenuProps) {
           {user.displayName} · {user.role}
         </Menu.Label>
         <Menu.Item disabled>{user.email}</Menu.Item>
+        <Menu.Item component={Link} to={paths.notificationSettings.getHref()}>
+          Mail settings
+        </Menu.Item>
         <Menu.Divider />
         <Menu.Item onClick={onSignOut} disabled={isSigningOut}>
           Sign out

@@ -20,6 +20,18 @@ export function parseRevisionRef(value: string | null): RevisionRef | null {
 export const paths = {
   inbox: { path: '/inbox', getHref: () => '/inbox' },
   outbox: { path: '/outbox', getHref: () => '/outbox' },
+  accounts: { path: '/admin/accounts', getHref: () => '/admin/accounts' },
+  auditLog: { path: '/admin/audit-log', getHref: () => '/admin/audit-log' },
+  notificationSettings: { path: '/settings/notifications', getHref: () => '/settings/notifications' },
+  resetPassword: { path: '/reset-password', getHref: (token: string) => `/reset-password?token=${token}` },
+  projectMembers: {
+    path: '/projects/:projectId/members',
+    getHref: (projectId: string) => `/projects/${encodeURIComponent(projectId)}/members`,
+  },
+  projectSettings: {
+    path: '/projects/:projectId/settings',
+    getHref: (projectId: string) => `/projects/${encodeURIComponent(projectId)}/settings`,
+  },
   signIn: {
     path: '/sign-in',
     getHref: (redirectTo?: string | null) =>
@@ -69,6 +81,17 @@ export const paths = {
 export const apiPaths = {
   inbox: '/api/inbox',
   outbox: '/api/outbox',
+  users: '/api/users',
+  user: (userId: string) => `/api/users/${encodeURIComponent(userId)}`,
+  passwordResetLink: (userId: string) => `/api/users/${encodeURIComponent(userId)}/password-reset`,
+  completePasswordReset: '/api/auth/password-reset',
+  audit: '/api/audit',
+  auditCsv: '/api/audit/export.csv',
+  notificationSettings: '/api/me/notifications',
+  projectMembers: (projectId: string) => `/api/projects/${encodeURIComponent(projectId)}/members`,
+  projectMember: (projectId: string, userId: string) =>
+    `/api/projects/${encodeURIComponent(projectId)}/members/${encodeURIComponent(userId)}`,
+  archiveProject: (projectId: string) => `/api/projects/${encodeURIComponent(projectId)}/archive`,
   signIn: '/api/auth/sign-in',
   signOut: '/api/auth/sign-out',
   me: '/api/auth/me',

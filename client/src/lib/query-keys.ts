@@ -5,6 +5,12 @@ export const queryKeys = {
   auth: {
     all: ['auth'] as const,
     me: () => [...queryKeys.auth.all, 'me'] as const,
+    notifications: () => [...queryKeys.auth.all, 'notifications'] as const,
+  },
+  admin: {
+    all: ['admin'] as const,
+    users: (query: object) => [...queryKeys.admin.all, 'users', query] as const,
+    audit: (query: object) => [...queryKeys.admin.all, 'audit', query] as const,
   },
   projects: {
     all: ['projects'] as const,

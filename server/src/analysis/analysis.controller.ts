@@ -16,7 +16,7 @@ export class AnalysisController {
   @HttpCode(200)
   @ApiOkResponse({ description: "The engine's report for the document, with the engine version." })
   @ApiBadRequestResponse({ description: 'The document is not valid; `issues[]` names every field, under `document.`.' })
-  evaluate(@Body() body: EvaluateDesignDto): EvaluateResponse {
+  evaluate(@Body() body: EvaluateDesignDto): Promise<EvaluateResponse> {
     return this.analysis.evaluate(this.analysis.parseDocument(body.document, 'document'));
   }
 

@@ -1,11 +1,18 @@
-import { Injectable } from '@nestjs/common';
+import { Inject, Injectable } from '@nestjs/common';
 import type { DesignReportBody, DesignTemplate, EvaluateResponse, ResultDifference } from '@ladderwright/shared/api';
 import { validateDesign, type Design } from '@ladderwright/shared/designs';
 import { DomainError, isDomainError } from '@ladderwright/shared/errors';
-import { analyzeDesign, resolveDrive } from '@ladderwright/shared/analysis';
+import { resolveDrive } from '@ladderwright/shared/analysis';
 import { ENGINE_VERSION } from '@ladderwright/shared/multiplier';
-import { analyzeWithShelf, type ShelfPart } from '@ladderwright/shared/parts';
+import type { ShelfPart } from '@ladderwright/shared/parts';
 import { DESIGN_TEMPLATES } from './design-templates';
+import { EnginePoolService } from './engine-pool.service';
+import type { EngineTask, EngineTaskOutcome } from './engine-task.types';
+
+/** Runs engine tasks: the worker pool in the app, the task function itself in the demo seed. */
+export interface EngineRunner {
+  run(task: EngineTask): Promise<EngineTaskOutcome>;
+}
 
 /** A numeric headline figure of a report, by its path in the report. */
 export interface HeadlineFigure {
@@ -47,6 +54,17 @@ function prefixPath(prefix: string, path: string): string {
   return path === '(document)' || path === '' ? prefix : `${prefix}.${path}`;
 }
 
+/** A DomainError with its field paths under `fieldPrefix`; any other error as it is. */
+function prefixed(error: unknown, fieldPrefix: string): unknown {
+  if (!isDomainError(error)) return error;
+  if (error.code === 'budget_exceeded') return error;
+  const issues = error.issues.map((issue) => ({ ...issue, path: prefixPath(fieldPrefix, issue.path) }));
+  const field = prefixPath(fieldPrefix, error.field ?? '') || fieldPrefix || null;
+  const summary = issues.map((issue) => `${issue.path}: ${issue.message}`).join('; ');
+  const message = issues.length > 0 ? `design is not valid: ${summary}` : error.message;
+  return new DomainError(error.code, message, field, issues);
+}
+
 /**
  * The server's one door to the shared engine: validation of untrusted documents, the authoritative
  * report with the engine version, and the templates. No formula lives here.
@@ -54,6 +72,8 @@ function prefixPath(prefix: string, path: string): string {
 @Injectable()
 export class AnalysisService {
   readonly engineVersion: string = ENGINE_VERSION;
+
+  constructor(@Inject(EnginePoolService) private readonly engine: EngineRunner) {}
 
   /**
    * Validates an untrusted document. Field issues come back under `fieldPrefix`, the body field the
@@ -68,26 +88,35 @@ export class AnalysisService {
     try {
       return run();
     } catch (error) {
-      if (!isDomainError(error)) throw error;
-      const issues = error.issues.map((issue) => ({ ...issue, path: prefixPath(fieldPrefix, issue.path) }));
-      const field = prefixPath(fieldPrefix, error.field ?? '') || fieldPrefix || null;
-      const summary = issues.map((issue) => `${issue.path}: ${issue.message}`).join('; ');
-      const message = issues.length > 0 ? `design is not valid: ${summary}` : error.message;
-      throw new DomainError(error.code, message, field, issues);
+      throw prefixed(error, fieldPrefix);
+    }
+  }
+
+  private async withFieldPrefixAsync<T>(fieldPrefix: string, run: () => Promise<T>): Promise<T> {
+    try {
+      return await run();
+    } catch (error) {
+      throw prefixed(error, fieldPrefix);
     }
   }
 
   /**
-   * The engine's report on a valid document (synchronous; closed-form and steady-state methods only).
-   * With a project's `shelf`, the referenced parts' ratings are filled in first (`analyzeWithShelf`) and
-   * unresolved codes come back in `report.partIssues`.
+   * The engine's report on a valid document (closed-form and steady-state methods only), computed on an
+   * engine worker thread within the request's time budget. With a project's `shelf`, the referenced
+   * parts' ratings are filled in first (`analyzeWithShelf`) and unresolved codes come back in
+   * `report.partIssues`.
    */
-  evaluate(design: Design, fieldPrefix = 'document', shelf?: readonly ShelfPart[]): EvaluateResponse {
-    const report = this.withFieldPrefix(fieldPrefix, () =>
-      shelf ? analyzeWithShelf(design, shelf) : analyzeDesign(design),
+  async evaluate(design: Design, fieldPrefix = 'document', shelf?: readonly ShelfPart[]): Promise<EvaluateResponse> {
+    const outcome = await this.withFieldPrefixAsync(fieldPrefix, () =>
+      this.engine.run({ kind: 'analyze', document: design, ...(shelf ? { shelf } : {}) }),
     );
-    // Stored as JSONB: the JSON round trip makes the response equal to what is stored and read back.
-    return { engineVersion: this.engineVersion, report: JSON.parse(JSON.stringify(report)) as DesignReportBody };
+    if (!outcome.ok) {
+      const { code, message, field, issues } = outcome.error;
+      return this.withFieldPrefix(fieldPrefix, () => {
+        throw new DomainError(code, message, field, issues);
+      });
+    }
+    return { engineVersion: this.engineVersion, report: outcome.report as DesignReportBody };
   }
 
   /** The document with its secondary as the engine resolves it: a driver stage becomes its pulse estimate. */

@@ -10,29 +10,29 @@ export type AuditEntryCreationAttrs = Omit<AuditEntryAttrs, 'id' | 'occurredAt'>
 @Table({ tableName: 'audit_entries', underscored: true, timestamps: false })
 export class AuditEntryModel extends Model<AuditEntryAttrs, AuditEntryCreationAttrs> {
   @Column({ type: DataType.UUID, primaryKey: true, defaultValue: DataType.UUIDV4 })
-  override id: string;
+  override id!: string;
 
   @Column({ type: DataType.DATE, allowNull: false, defaultValue: DataType.NOW })
-  occurredAt: Date;
+  occurredAt!: Date;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  action: AuditAction;
+  action!: AuditAction;
 
   @Column({ type: DataType.UUID, allowNull: true })
-  actorId: string | null;
+  actorId!: string | null;
 
   @Column({ type: DataType.TEXT, allowNull: true })
-  actorEmail: string | null;
+  actorEmail!: string | null;
 
   @Column({ type: DataType.TEXT, allowNull: true })
-  subjectType: string | null;
+  subjectType!: string | null;
 
   @Column({ type: DataType.TEXT, allowNull: true })
-  subjectId: string | null;
+  subjectId!: string | null;
 
   @Column({ type: DataType.JSONB, allowNull: false, defaultValue: {} })
-  detail: Record<string, unknown>;
+  detail!: Record<string, unknown>;
 
   @Column({ type: DataType.TEXT, allowNull: true })
-  clientAddress: string | null;
+  clientAddress!: string | null;
 }

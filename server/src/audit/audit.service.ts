@@ -3,6 +3,7 @@ import { InjectModel } from '@nestjs/sequelize';
 import Papa from 'papaparse';
 import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import type { AuditPage } from '@ladderwright/shared/api';
+import { csvCellNeedsQuotes, neutraliseCsvCell } from '@ladderwright/shared/parts';
 import { isUuid } from '../common/uuid';
 import { AuditEntryModel } from './audit-entry.model';
 import type { AuditEntry, AuditRecord } from './audit.types';
@@ -101,18 +102,20 @@ export class AuditService {
           'detail',
           'clientAddress',
         ],
-        data: entries.map((entry) => [
-          entry.occurredAt,
-          entry.action,
-          entry.actorEmail ?? '',
-          entry.actorId ?? '',
-          entry.subjectType ?? '',
-          entry.subjectId ?? '',
-          JSON.stringify(entry.detail),
-          entry.clientAddress ?? '',
-        ]),
+        data: entries.map((entry) =>
+          [
+            entry.occurredAt,
+            entry.action,
+            entry.actorEmail ?? '',
+            entry.actorId ?? '',
+            entry.subjectType ?? '',
+            entry.subjectId ?? '',
+            JSON.stringify(entry.detail),
+            entry.clientAddress ?? '',
+          ].map(neutraliseCsvCell),
+        ),
       },
-      { newline: '\r\n', escapeFormulae: true },
+      { newline: '\r\n', quotes: csvCellNeedsQuotes },
     );
   }
 }

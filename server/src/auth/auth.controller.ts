@@ -1,4 +1,4 @@
-import { Body, Controller, Get, HttpCode, Inject, Post, Req, Res } from '@nestjs/common';
+import { Body, Controller, Get, HttpCode, Inject, Post, Req, Res, UseGuards } from '@nestjs/common';
 import { ApiCookieAuth, ApiTags } from '@nestjs/swagger';
 import type { CookieOptions, Response } from 'express';
 import type { CurrentUser as SessionUser, SignInResponse } from '@ladderwright/shared/api';
@@ -10,18 +10,24 @@ import { CompletePasswordResetDto } from '../users/dto/complete-password-reset.d
 import { UsersService } from '../users/users.service';
 import { AuthService } from './auth.service';
 import { SignInDto } from './dto/sign-in.dto';
-import { SESSION_COOKIE } from './jwt.strategy';
+import { SignInThrottlerGuard } from './sign-in-throttler.guard';
+import { fromSessionCookie, sessionCookieName } from './jwt.strategy';
 
 @ApiTags('auth')
 @Controller('auth')
 export class AuthController {
+  private readonly cookieName: string;
+
   constructor(
     private readonly auth: AuthService,
     private readonly users: UsersService,
     @Inject(APP_ENV) private readonly env: AppEnv,
-  ) {}
+  ) {
+    this.cookieName = sessionCookieName(env);
+  }
 
   @Public()
+  @UseGuards(SignInThrottlerGuard)
   @Post('sign-in')
   @HttpCode(200)
   async signIn(
@@ -30,15 +36,17 @@ export class AuthController {
     @Res({ passthrough: true }) response: Response,
   ): Promise<SignInResponse> {
     const { user, token } = await this.auth.signIn(body, request.ip ?? 'unknown');
-    response.cookie(SESSION_COOKIE, token, { ...this.cookieOptions(), maxAge: this.env.jwtTtlS * 1000 });
+    response.cookie(this.cookieName, token, { ...this.cookieOptions(), maxAge: this.env.jwtTtlS * 1000 });
     return { user };
   }
 
+  /** Ends this session: its token is refused from now on, even if replayed, and the cookie is cleared. */
   @Public()
   @Post('sign-out')
   @HttpCode(204)
-  signOut(@Res({ passthrough: true }) response: Response): void {
-    response.clearCookie(SESSION_COOKIE, this.cookieOptions());
+  async signOut(@Req() request: AppRequest, @Res({ passthrough: true }) response: Response): Promise<void> {
+    await this.auth.signOut(fromSessionCookie(this.cookieName)(request));
+    response.clearCookie(this.cookieName, this.cookieOptions());
   }
 
   /** Ends every session of the signed-in account on every device (its tokens stop working at once). */
@@ -51,7 +59,7 @@ export class AuthController {
     @Res({ passthrough: true }) response: Response,
   ): Promise<void> {
     await this.auth.signOutEverywhere(user.id, user.email, request.ip ?? 'unknown');
-    response.clearCookie(SESSION_COOKIE, this.cookieOptions());
+    response.clearCookie(this.cookieName, this.cookieOptions());
   }
 
   /** Sets a new password with the token of a one-time link an admin issued; ends the account's sessions. */

@@ -18,22 +18,22 @@ export type BenchRunEventCreationAttrs = Pick<BenchRunEventAttrs, 'benchRunId' |
 @Table({ tableName: 'bench_run_events', underscored: true, timestamps: true })
 export class BenchRunEventModel extends Model<BenchRunEventAttrs, BenchRunEventCreationAttrs> {
   @Column({ type: DataType.UUID, primaryKey: true, defaultValue: DataType.UUIDV4 })
-  override id: string;
+  override id!: string;
 
   @ForeignKey(() => BenchRunModel)
   @Column({ type: DataType.UUID, allowNull: false })
-  benchRunId: string;
+  benchRunId!: string;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  action: 'uploaded' | 'deleted';
+  action!: 'uploaded' | 'deleted';
 
   @ForeignKey(() => UserModel)
   @Column({ type: DataType.UUID, allowNull: false })
-  actorId: string;
+  actorId!: string;
 
   @Column({ type: DataType.JSONB, allowNull: false })
-  detail: Record<string, unknown>;
+  detail!: Record<string, unknown>;
 
-  override createdAt: Date;
-  override updatedAt: Date;
+  override createdAt!: Date;
+  override updatedAt!: Date;
 }

@@ -20,33 +20,33 @@ export type BenchRunFileCreationAttrs = Omit<BenchRunFileAttrs, 'id' | 'createdA
 @Table({ tableName: 'bench_run_files', underscored: true, timestamps: true })
 export class BenchRunFileModel extends Model<BenchRunFileAttrs, BenchRunFileCreationAttrs> {
   @Column({ type: DataType.UUID, primaryKey: true, defaultValue: DataType.UUIDV4 })
-  override id: string;
+  override id!: string;
 
   @ForeignKey(() => BenchRunModel)
   @Column({ type: DataType.UUID, allowNull: false })
-  benchRunId: string;
+  benchRunId!: string;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  role: 'data' | 'photo';
+  role!: 'data' | 'photo';
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  originalName: string;
+  originalName!: string;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  contentType: string;
+  contentType!: string;
 
   @Column({ type: DataType.INTEGER, allowNull: false })
-  sizeBytes: number;
+  sizeBytes!: number;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  sha256: string;
+  sha256!: string;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  storageKey: string;
+  storageKey!: string;
 
   @BelongsTo(() => BenchRunModel, { onDelete: 'CASCADE' })
   benchRun?: BenchRunModel;
 
-  override createdAt: Date;
-  override updatedAt: Date;
+  override createdAt!: Date;
+  override updatedAt!: Date;
 }

@@ -32,56 +32,56 @@ export type BenchRunCreationAttrs = Omit<BenchRunAttrs, 'id' | 'deletedAt' | 'de
 @Table({ tableName: 'bench_runs', underscored: true, timestamps: true })
 export class BenchRunModel extends Model<BenchRunAttrs, BenchRunCreationAttrs> {
   @Column({ type: DataType.UUID, primaryKey: true, defaultValue: DataType.UUIDV4 })
-  override id: string;
+  override id!: string;
 
   @ForeignKey(() => ProjectModel)
   @Column({ type: DataType.UUID, allowNull: false })
-  projectId: string;
+  projectId!: string;
 
   @ForeignKey(() => DesignModel)
   @Column({ type: DataType.UUID, allowNull: false })
-  designId: string;
+  designId!: string;
 
   @Column({ type: DataType.INTEGER, allowNull: false })
-  revisionNumber: number;
+  revisionNumber!: number;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  kind: BenchKind;
+  kind!: BenchKind;
 
   @Column({ type: DataType.TEXT, allowNull: false, defaultValue: '' })
-  title: string;
+  title!: string;
 
   @Column({ type: DataType.DOUBLE, allowNull: false })
-  tolerance: number;
+  tolerance!: number;
 
   @Column({ type: DataType.JSONB, allowNull: false })
-  points: MeasuredPoint[];
+  points!: MeasuredPoint[];
 
   @Column({ type: DataType.JSONB, allowNull: false })
-  metadata: string[];
+  metadata!: string[];
 
   @Column({ type: DataType.JSONB, allowNull: false })
-  comparison: BenchComparison;
+  comparison!: BenchComparison;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  verdict: BenchVerdict;
+  verdict!: BenchVerdict;
 
   @Column({ type: DataType.DOUBLE, allowNull: false })
-  marginPct: number;
+  marginPct!: number;
 
   @Column({ type: DataType.DOUBLE, allowNull: false })
-  worstDeviation: number;
+  worstDeviation!: number;
 
   @ForeignKey(() => UserModel)
   @Column({ type: DataType.UUID, allowNull: false })
-  uploadedBy: string;
+  uploadedBy!: string;
 
   @Column({ type: DataType.DATE, allowNull: true })
-  override deletedAt: Date | null;
+  override deletedAt!: Date | null;
 
   @ForeignKey(() => UserModel)
   @Column({ type: DataType.UUID, allowNull: true })
-  deletedBy: string | null;
+  deletedBy!: string | null;
 
   @BelongsTo(() => UserModel, 'uploadedBy')
   uploader?: UserModel;
@@ -89,6 +89,6 @@ export class BenchRunModel extends Model<BenchRunAttrs, BenchRunCreationAttrs> {
   @HasMany(() => BenchRunFileModel)
   files?: BenchRunFileModel[];
 
-  override createdAt: Date;
-  override updatedAt: Date;
+  override createdAt!: Date;
+  override updatedAt!: Date;
 }

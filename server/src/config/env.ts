@@ -5,15 +5,27 @@ export interface AppEnv {
   readonly port: number;
   readonly host: string;
   readonly databaseUrl: string;
+  /** Pooled PostgreSQL connections of this instance. */
+  readonly databasePoolMax: number;
+  /** How long a request waits for a pooled connection before it is answered 503 `busy` with Retry-After. */
+  readonly databaseAcquireTimeoutMs: number;
   readonly jwtSecret: string;
   readonly jwtTtlS: number;
+  /** How long a session read from the database is trusted before it is read again (0: every request). */
+  readonly sessionCacheMs: number;
   readonly bcryptRounds: number;
+  /** Sign-in attempts one client address may make per minute (then 429 for a minute). */
+  readonly signInPerAddressPerMin: number;
+  /** Sign-in attempts of all clients together per minute, per database (every instance counts). */
+  readonly signInPerMin: number;
   readonly cookieSecure: boolean;
   /** Origins allowed to call the API cross-origin with credentials; empty (the default) = CORS closed. */
   readonly corsOrigins: readonly string[];
   /** Largest JSON or form body accepted; larger ones are refused with 413 before they are read. */
   readonly bodyLimitBytes: number;
   readonly clientDistDir: string;
+  /** Serves the OpenAPI document and its viewer at /api/docs without a session (see DEVELOPERS.md). */
+  readonly apiDocs: boolean;
   readonly seedDemo: boolean;
   readonly smtpHost: string | null;
   readonly smtpPort: number | null;
@@ -30,6 +42,20 @@ export interface AppEnv {
   readonly dataDir: string;
   /** Worker threads this instance runs simulation jobs on; 0 = this instance only queues them. */
   readonly simulationWorkers: number;
+  /** Simulation jobs one user may have queued or running at once. */
+  readonly simulationMaxActivePerUser: number;
+  /** Simulation jobs one project may have queued or running at once. */
+  readonly simulationMaxActivePerProject: number;
+  /** Largest job: cells × drive cycles × time steps per cycle. */
+  readonly simulationMaxWork: number;
+  /** A job running longer than this is stopped and failed (`time_limit`). */
+  readonly simulationMaxRunS: number;
+  /** How often a running job writes its heartbeat; three missed beats and it is ended as `interrupted`. */
+  readonly simulationHeartbeatMs: number;
+  /** Worker threads that run the engine for requests (evaluate, save, create, import). */
+  readonly engineWorkers: number;
+  /** Longest engine work of one request; past it the request is refused with 422 budget_exceeded. */
+  readonly engineBudgetMs: number;
   /** Accepts the fault-injection simulation kinds (test runs only). */
   readonly simulationFaultKinds: boolean;
 }
@@ -106,13 +132,19 @@ export function parseEnv(source: EnvSource): AppEnv {
     port: integer('PORT', 8080, 1, 65535) ?? 8080,
     host,
     databaseUrl,
+    databasePoolMax: integer('DATABASE_POOL_MAX', 10, 1, 200) ?? 10,
+    databaseAcquireTimeoutMs: integer('DATABASE_ACQUIRE_TIMEOUT_MS', 5_000, 50, 60_000) ?? 5_000,
     jwtSecret,
     jwtTtlS: integer('JWT_TTL_S', 8 * 3600, 60, 30 * 24 * 3600) ?? 8 * 3600,
+    sessionCacheMs: integer('SESSION_CACHE_MS', 5_000, 0, 60_000) ?? 5_000,
     bcryptRounds: integer('BCRYPT_ROUNDS', 10, 4, 15) ?? 10,
+    signInPerAddressPerMin: integer('SIGN_IN_PER_ADDRESS_PER_MIN', 20, 1, 100_000) ?? 20,
+    signInPerMin: integer('SIGN_IN_PER_MIN', 600, 1, 1_000_000) ?? 600,
     cookieSecure: bool('COOKIE_SECURE', !LOOPBACK_HOSTS.has(host)),
     corsOrigins: Object.freeze(origins('CORS_ORIGINS')),
     bodyLimitBytes: integer('BODY_LIMIT_BYTES', 1024 * 1024, 1024, 64 * 1024 * 1024) ?? 1024 * 1024,
     clientDistDir: dir('CLIENT_DIST_DIR', '../client/dist'),
+    apiDocs: bool('API_DOCS', true),
     seedDemo: bool('SEED_DEMO', false),
     smtpHost: text('SMTP_HOST') ?? (smtpFake ? '127.0.0.1' : null),
     smtpPort: integer('SMTP_PORT', smtpFake ? 2525 : null, 1, 65535),
@@ -123,6 +155,13 @@ export function parseEnv(source: EnvSource): AppEnv {
     publicUrl: (text('PUBLIC_URL') ?? `http://${host}:${text('PORT') ?? '8080'}`).replace(/\/+$/, ''),
     dataDir: dir('DATA_DIR', '../.data'),
     simulationWorkers: integer('SIMULATION_WORKERS', 1, 0, 2) ?? 1,
+    simulationMaxActivePerUser: integer('SIMULATION_MAX_ACTIVE_PER_USER', 3, 1, 1000) ?? 3,
+    simulationMaxActivePerProject: integer('SIMULATION_MAX_ACTIVE_PER_PROJECT', 6, 1, 10_000) ?? 6,
+    simulationMaxWork: integer('SIMULATION_MAX_WORK', 500_000_000, 1000, 1e12) ?? 500_000_000,
+    simulationMaxRunS: integer('SIMULATION_MAX_RUN_S', 600, 1, 86_400) ?? 600,
+    simulationHeartbeatMs: integer('SIMULATION_HEARTBEAT_MS', 5_000, 50, 600_000) ?? 5_000,
+    engineWorkers: integer('ENGINE_WORKERS', 1, 1, 8) ?? 1,
+    engineBudgetMs: integer('ENGINE_BUDGET_MS', 5_000, 1, 600_000) ?? 5_000,
     simulationFaultKinds: text('NODE_ENV') === 'test',
   };
   if (problems.length > 0) throw new EnvError(problems);

@@ -55,7 +55,7 @@ export const ALL_MODELS = [
         autoLoadModels: false,
         synchronize: false,
         logging: false,
-        pool: { max: 10, min: 0, acquire: 10_000, idle: 10_000 },
+        pool: { max: env.databasePoolMax, min: 0, acquire: env.databaseAcquireTimeoutMs, idle: 10_000 },
         dialectOptions: { connectionTimeoutMillis: 5_000 },
       }),
     }),

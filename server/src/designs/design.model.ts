@@ -19,21 +19,21 @@ export type DesignCreationAttrs = Pick<DesignAttrs, 'projectId' | 'name' | 'owne
 @Table({ tableName: 'designs', underscored: true, timestamps: true })
 export class DesignModel extends Model<DesignAttrs, DesignCreationAttrs> {
   @Column({ type: DataType.UUID, primaryKey: true, defaultValue: DataType.UUIDV4 })
-  override id: string;
+  override id!: string;
 
   @ForeignKey(() => ProjectModel)
   @Column({ type: DataType.UUID, allowNull: false })
-  projectId: string;
+  projectId!: string;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  name: string;
+  name!: string;
 
   @ForeignKey(() => UserModel)
   @Column({ type: DataType.UUID, allowNull: false })
-  ownerId: string;
+  ownerId!: string;
 
   @Column({ type: DataType.INTEGER, allowNull: false, defaultValue: 0 })
-  latestRevisionNumber: number;
+  latestRevisionNumber!: number;
 
   @BelongsTo(() => ProjectModel, { onDelete: 'CASCADE' })
   project?: ProjectModel;
@@ -41,6 +41,6 @@ export class DesignModel extends Model<DesignAttrs, DesignCreationAttrs> {
   @BelongsTo(() => UserModel)
   owner?: UserModel;
 
-  override createdAt: Date;
-  override updatedAt: Date;
+  override createdAt!: Date;
+  override updatedAt!: Date;
 }

@@ -2,13 +2,7 @@ import { Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
 import { QueryTypes } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
-import type {
-  CreateDesignRequest,
-  DesignDetail,
-  DesignPage,
-  DesignSummary,
-  ImportDesignRequest,
-} from '@ladderwright/shared/api';
+import type { CreateDesignRequest, DesignDetail, DesignPage, DesignSummary } from '@ladderwright/shared/api';
 import type { Design } from '@ladderwright/shared/designs';
 import { DomainError } from '@ladderwright/shared/errors';
 import type { RevisionState } from '@ladderwright/shared/reviews';
@@ -146,8 +140,8 @@ export class DesignsService {
     return this.createWithFirstRevision(projectId, { ...source, name }, ownerId, 'Created');
   }
 
-  /** Imports an export file or a bare document as a new design named after the document. */
-  async import(projectId: string, body: ImportDesignRequest | unknown, ownerId: string): Promise<DesignDetail> {
+  /** Imports an export file (ImportDesignRequest) or a bare document as a new design named after the document. */
+  async import(projectId: string, body: unknown, ownerId: string): Promise<DesignDetail> {
     const document = this.parseImport(body);
     const name = document.name.trim() || 'Imported design';
     return this.createWithFirstRevision(projectId, document, ownerId, 'Imported', name);
@@ -179,14 +173,20 @@ export class DesignsService {
     changeNote: string,
     name = document.name,
   ): Promise<DesignDetail> {
-    const designId = await this.sequelize.transaction(async (transaction) => {
-      const design = await this.designs.create({ projectId, name, ownerId, latestRevisionNumber: 1 }, { transaction });
-      await this.revisions.write(
-        projectId,
-        { designId: design.id, number: 1, document, authorId: ownerId, changeNote, baseRevisionNumber: null },
-        transaction,
-      );
-      return design.id;
+    const designId = await this.revisions.inWriteSlot(async () => {
+      const evaluated = await this.revisions.evaluate(projectId, document);
+      return this.sequelize.transaction(async (transaction) => {
+        const design = await this.designs.create(
+          { projectId, name, ownerId, latestRevisionNumber: 1 },
+          { transaction },
+        );
+        await this.revisions.write(
+          { designId: design.id, number: 1, document, authorId: ownerId, changeNote, baseRevisionNumber: null },
+          evaluated,
+          transaction,
+        );
+        return design.id;
+      });
     });
     return this.detail(projectId, designId);
   }

@@ -2,6 +2,7 @@ import type { Sequelize } from 'sequelize';
 import { designExamples, type Design } from '@ladderwright/shared/designs';
 import type { RevisionState } from '@ladderwright/shared/reviews';
 import { AnalysisService } from '../analysis/analysis.service';
+import { runEngineTask } from '../analysis/engine.worker';
 import { PartModel } from '../parts/part.model';
 import { toPart } from '../parts/parts.service';
 import { ProjectModel } from '../projects/project.model';
@@ -71,7 +72,8 @@ export const DEMO_DESIGN_RECORD_COUNT = DEMO_DESIGNS.reduce((sum, design) => sum
  * Needs the demo accounts and projects (and their shelves, seeded first). Returns how many records it created.
  */
 export async function seedDemoDesigns(sequelize: Sequelize): Promise<number> {
-  const analysis = new AnalysisService();
+  // Trusted demo data at start-up: the engine runs on this thread.
+  const analysis = new AnalysisService({ run: (task) => Promise.resolve(runEngineTask(task)) });
   let created = 0;
   for (const demo of DEMO_DESIGNS) {
     const latest = demo.revisions[demo.revisions.length - 1];
@@ -90,7 +92,7 @@ export async function seedDemoDesigns(sequelize: Sequelize): Promise<number> {
         { transaction },
       );
       for (const [index, revision] of demo.revisions.entries()) {
-        const { engineVersion, report } = analysis.evaluate(revision.document, 'document', shelf);
+        const { engineVersion, report } = await analysis.evaluate(revision.document, 'document', shelf);
         await RevisionModel.create(
           {
             designId: design.id,

@@ -16,23 +16,23 @@ export type CapturedMailCreationAttrs = Omit<CapturedMailAttrs, 'id' | 'received
 @Table({ tableName: 'captured_mails', underscored: true, timestamps: false })
 export class CapturedMailModel extends Model<CapturedMailAttrs, CapturedMailCreationAttrs> {
   @Column({ type: DataType.UUID, primaryKey: true, defaultValue: DataType.UUIDV4 })
-  override id: string;
+  override id!: string;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  envelopeFrom: string;
+  envelopeFrom!: string;
 
   @Column({ type: DataType.ARRAY(DataType.TEXT), allowNull: false })
-  recipients: string[];
+  recipients!: string[];
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  subject: string;
+  subject!: string;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  body: string;
+  body!: string;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  raw: string;
+  raw!: string;
 
   @Column({ type: DataType.DATE, allowNull: false, defaultValue: DataType.NOW })
-  receivedAt: Date;
+  receivedAt!: Date;
 }

@@ -23,35 +23,35 @@ export type MailQueueCreationAttrs = Pick<MailQueueAttrs, 'kind' | 'recipients' 
 @Table({ tableName: 'mail_queue', underscored: true, timestamps: true })
 export class MailQueueModel extends Model<MailQueueAttrs, MailQueueCreationAttrs> {
   @Column({ type: DataType.UUID, primaryKey: true, defaultValue: DataType.UUIDV4 })
-  override id: string;
+  override id!: string;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  kind: string;
+  kind!: string;
 
   @Column({ type: DataType.ARRAY(DataType.TEXT), allowNull: false })
-  recipients: string[];
+  recipients!: string[];
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  subject: string;
+  subject!: string;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  body: string;
+  body!: string;
 
   @Column({ type: DataType.TEXT, allowNull: false, defaultValue: 'pending' })
-  status: MailStatus;
+  status!: MailStatus;
 
   @Column({ type: DataType.INTEGER, allowNull: false, defaultValue: 0 })
-  attempts: number;
+  attempts!: number;
 
   @Column({ type: DataType.DATE, allowNull: false, defaultValue: DataType.NOW })
-  nextAttemptAt: Date;
+  nextAttemptAt!: Date;
 
   @Column({ type: DataType.TEXT, allowNull: true })
-  lastError: string | null;
+  lastError!: string | null;
 
   @Column({ type: DataType.DATE, allowNull: true })
-  sentAt: Date | null;
+  sentAt!: Date | null;
 
-  override createdAt: Date;
-  override updatedAt: Date;
+  override createdAt!: Date;
+  override updatedAt!: Date;
 }

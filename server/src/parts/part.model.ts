@@ -27,48 +27,48 @@ const rating = { type: DataType.DOUBLE, allowNull: true };
 @Table({ tableName: 'parts', underscored: true, timestamps: true })
 export class PartModel extends Model<PartAttrs, PartCreationAttrs> {
   @Column({ type: DataType.UUID, primaryKey: true, defaultValue: DataType.UUIDV4 })
-  override id: string;
+  override id!: string;
 
   @ForeignKey(() => ProjectModel)
   @Column({ type: DataType.UUID, allowNull: false })
-  projectId: string;
+  projectId!: string;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  code: string;
+  code!: string;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  kind: PartKind;
+  kind!: PartKind;
 
   @Column({ type: DataType.TEXT, allowNull: false, defaultValue: '' })
-  description: string;
+  description!: string;
 
   @Column(rating)
-  valueSi: number | null;
+  valueSi!: number | null;
 
   @Column(rating)
-  tolerance: number | null;
+  tolerance!: number | null;
 
   @Column(rating)
-  ratedVoltageV: number | null;
+  ratedVoltageV!: number | null;
 
   @Column(rating)
-  ratedCurrentA: number | null;
+  ratedCurrentA!: number | null;
 
   @Column(rating)
-  ratedSurgeCurrentA: number | null;
+  ratedSurgeCurrentA!: number | null;
 
   @Column(rating)
-  ratedPowerW: number | null;
+  ratedPowerW!: number | null;
 
   @Column({ type: DataType.DOUBLE, allowNull: false })
-  unitCost: number;
+  unitCost!: number;
 
   @Column({ type: DataType.TEXT, allowNull: false, defaultValue: '' })
-  sizeMm: string;
+  sizeMm!: string;
 
   @BelongsTo(() => ProjectModel, { onDelete: 'CASCADE' })
   project?: ProjectModel;
 
-  override createdAt: Date;
-  override updatedAt: Date;
+  override createdAt!: Date;
+  override updatedAt!: Date;
 }

@@ -4,7 +4,13 @@ import Papa from 'papaparse';
 import { Sequelize } from 'sequelize-typescript';
 import type { PartImportResult, PartImportRow } from '@ladderwright/shared/api';
 import { DomainError } from '@ladderwright/shared/errors';
-import { neutraliseCsvCell, normalizePart, PART_FIELDS, REQUIRED_PART_FIELDS } from '@ladderwright/shared/parts';
+import {
+  csvCellNeedsQuotes,
+  neutraliseCsvCell,
+  normalizePart,
+  PART_FIELDS,
+  REQUIRED_PART_FIELDS,
+} from '@ladderwright/shared/parts';
 import { PartModel } from './part.model';
 import { PartsService } from './parts.service';
 
@@ -102,7 +108,7 @@ export class PartsCsvService {
   async export(projectId: string): Promise<string> {
     const parts = await this.shelf.list(projectId);
     const data = parts.map((part) => PART_FIELDS.map((field) => neutraliseCsvCell(part[field])));
-    return Papa.unparse({ fields: [...PART_FIELDS], data }, { newline: '\r\n' });
+    return Papa.unparse({ fields: [...PART_FIELDS], data }, { newline: '\r\n', quotes: csvCellNeedsQuotes });
   }
 
   private refuse(message: string, errors: ImportError[]): never {

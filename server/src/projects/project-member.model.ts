@@ -17,14 +17,14 @@ export type ProjectMemberCreationAttrs = Pick<ProjectMemberAttrs, 'projectId' | 
 export class ProjectMemberModel extends Model<ProjectMemberAttrs, ProjectMemberCreationAttrs> {
   @ForeignKey(() => ProjectModel)
   @Column({ type: DataType.UUID, primaryKey: true })
-  projectId: string;
+  projectId!: string;
 
   @ForeignKey(() => UserModel)
   @Column({ type: DataType.UUID, primaryKey: true })
-  userId: string;
+  userId!: string;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  role: ProjectRole;
+  role!: ProjectRole;
 
   @BelongsTo(() => ProjectModel, { onDelete: 'CASCADE' })
   project?: ProjectModel;
@@ -32,6 +32,6 @@ export class ProjectMemberModel extends Model<ProjectMemberAttrs, ProjectMemberC
   @BelongsTo(() => UserModel, { onDelete: 'CASCADE' })
   user?: UserModel;
 
-  override createdAt: Date;
-  override updatedAt: Date;
+  override createdAt!: Date;
+  override updatedAt!: Date;
 }

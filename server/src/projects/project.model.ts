@@ -19,23 +19,23 @@ export type ProjectCreationAttrs = Pick<ProjectAttrs, 'name' | 'productLine' | '
 @Table({ tableName: 'projects', underscored: true, timestamps: true })
 export class ProjectModel extends Model<ProjectAttrs, ProjectCreationAttrs> {
   @Column({ type: DataType.UUID, primaryKey: true, defaultValue: DataType.UUIDV4 })
-  override id: string;
+  override id!: string;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  name: string;
+  name!: string;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  productLine: string;
+  productLine!: string;
 
   @Column({ type: DataType.TEXT, allowNull: false, defaultValue: '' })
-  description: string;
+  description!: string;
 
   @Column({ type: DataType.DATE, allowNull: true })
-  archivedAt: Date | null;
+  archivedAt!: Date | null;
 
   @Column({ type: DataType.JSONB, allowNull: false, defaultValue: {} })
-  settings: Partial<ProjectSettings>;
+  settings!: Partial<ProjectSettings>;
 
-  override createdAt: Date;
-  override updatedAt: Date;
+  override createdAt!: Date;
+  override updatedAt!: Date;
 }

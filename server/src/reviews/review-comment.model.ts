@@ -25,35 +25,35 @@ export type ReviewCommentCreationAttrs = Pick<
 @Table({ tableName: 'review_comments', underscored: true, timestamps: true })
 export class ReviewCommentModel extends Model<ReviewCommentAttrs, ReviewCommentCreationAttrs> {
   @Column({ type: DataType.UUID, primaryKey: true, defaultValue: DataType.UUIDV4 })
-  override id: string;
+  override id!: string;
 
   @ForeignKey(() => RevisionModel)
   @Column({ type: DataType.UUID, allowNull: false })
-  revisionId: string;
+  revisionId!: string;
 
   @ForeignKey(() => ReviewCommentModel)
   @Column({ type: DataType.UUID, allowNull: true })
-  parentId: string | null;
+  parentId!: string | null;
 
   @ForeignKey(() => UserModel)
   @Column({ type: DataType.UUID, allowNull: false })
-  authorId: string;
+  authorId!: string;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  body: string;
+  body!: string;
 
   @Column({ type: DataType.TEXT, allowNull: true })
-  anchorKind: 'input' | 'result' | null;
+  anchorKind!: 'input' | 'result' | null;
 
   @Column({ type: DataType.TEXT, allowNull: true })
-  anchorPath: string | null;
+  anchorPath!: string | null;
 
   @Column({ type: DataType.DATE, allowNull: true })
-  resolvedAt: Date | null;
+  resolvedAt!: Date | null;
 
   @ForeignKey(() => UserModel)
   @Column({ type: DataType.UUID, allowNull: true })
-  resolvedById: string | null;
+  resolvedById!: string | null;
 
   @BelongsTo(() => RevisionModel, { onDelete: 'CASCADE' })
   revision?: RevisionModel;
@@ -64,6 +64,6 @@ export class ReviewCommentModel extends Model<ReviewCommentAttrs, ReviewCommentC
   @BelongsTo(() => UserModel, 'resolvedById')
   resolvedBy?: UserModel;
 
-  override createdAt: Date;
-  override updatedAt: Date;
+  override createdAt!: Date;
+  override updatedAt!: Date;
 }

@@ -16,11 +16,11 @@ export type RevisionReviewerCreationAttrs = Pick<RevisionReviewerAttrs, 'revisio
 export class RevisionReviewerModel extends Model<RevisionReviewerAttrs, RevisionReviewerCreationAttrs> {
   @ForeignKey(() => RevisionModel)
   @Column({ type: DataType.UUID, primaryKey: true })
-  revisionId: string;
+  revisionId!: string;
 
   @ForeignKey(() => UserModel)
   @Column({ type: DataType.UUID, primaryKey: true })
-  userId: string;
+  userId!: string;
 
   @BelongsTo(() => RevisionModel, { onDelete: 'CASCADE' })
   revision?: RevisionModel;
@@ -28,6 +28,6 @@ export class RevisionReviewerModel extends Model<RevisionReviewerAttrs, Revision
   @BelongsTo(() => UserModel)
   user?: UserModel;
 
-  override createdAt: Date;
-  override updatedAt: Date;
+  override createdAt!: Date;
+  override updatedAt!: Date;
 }

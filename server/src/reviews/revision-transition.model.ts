@@ -26,35 +26,35 @@ export type RevisionTransitionCreationAttrs = Omit<
 @Table({ tableName: 'revision_transitions', underscored: true, timestamps: true, updatedAt: false })
 export class RevisionTransitionModel extends Model<RevisionTransitionAttrs, RevisionTransitionCreationAttrs> {
   @Column({ type: DataType.UUID, primaryKey: true, defaultValue: DataType.UUIDV4 })
-  override id: string;
+  override id!: string;
 
   @Column({ type: DataType.UUID, allowNull: false })
-  revisionId: string;
+  revisionId!: string;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  command: RevisionCommand;
+  command!: RevisionCommand;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  fromState: RevisionState;
+  fromState!: RevisionState;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  toState: RevisionState;
+  toState!: RevisionState;
 
   @ForeignKey(() => UserModel)
   @Column({ type: DataType.UUID, allowNull: true })
-  actorId: string | null;
+  actorId!: string | null;
 
   @Column({ type: DataType.TEXT, allowNull: false, defaultValue: '' })
-  note: string;
+  note!: string;
 
   @Column({ type: DataType.TEXT, allowNull: true })
-  overrideReason: string | null;
+  overrideReason!: string | null;
 
   @Column({ type: DataType.JSONB, allowNull: true })
-  overridden: GateReason[] | null;
+  overridden!: GateReason[] | null;
 
   @BelongsTo(() => UserModel)
   actor?: UserModel;
 
-  override createdAt: Date;
+  override createdAt!: Date;
 }

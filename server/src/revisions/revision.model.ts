@@ -33,36 +33,36 @@ export type RevisionCreationAttrs = Pick<
 @Table({ tableName: 'revisions', underscored: true, timestamps: true })
 export class RevisionModel extends Model<RevisionAttrs, RevisionCreationAttrs> {
   @Column({ type: DataType.UUID, primaryKey: true, defaultValue: DataType.UUIDV4 })
-  override id: string;
+  override id!: string;
 
   @ForeignKey(() => DesignModel)
   @Column({ type: DataType.UUID, allowNull: false })
-  designId: string;
+  designId!: string;
 
   @Column({ type: DataType.INTEGER, allowNull: false })
-  number: number;
+  number!: number;
 
   @Column({ type: DataType.TEXT, allowNull: false, defaultValue: 'draft' })
-  state: RevisionState;
+  state!: RevisionState;
 
   @Column({ type: DataType.JSONB, allowNull: false })
-  document: Design;
+  document!: Design;
 
   @Column({ type: DataType.JSONB, allowNull: false })
-  report: DesignReportBody;
+  report!: DesignReportBody;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  engineVersion: string;
+  engineVersion!: string;
 
   @ForeignKey(() => UserModel)
   @Column({ type: DataType.UUID, allowNull: false })
-  authorId: string;
+  authorId!: string;
 
   @Column({ type: DataType.TEXT, allowNull: false, defaultValue: '' })
-  changeNote: string;
+  changeNote!: string;
 
   @Column({ type: DataType.INTEGER, allowNull: true })
-  baseRevisionNumber: number | null;
+  baseRevisionNumber!: number | null;
 
   @BelongsTo(() => DesignModel, { onDelete: 'CASCADE' })
   design?: DesignModel;
@@ -70,6 +70,6 @@ export class RevisionModel extends Model<RevisionAttrs, RevisionCreationAttrs> {
   @BelongsTo(() => UserModel)
   author?: UserModel;
 
-  override createdAt: Date;
-  override updatedAt: Date;
+  override createdAt!: Date;
+  override updatedAt!: Date;
 }

@@ -1,9 +1,11 @@
-import { Injectable } from '@nestjs/common';
+import { Inject, Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
 import type { Transaction } from 'sequelize';
+import pLimit, { type Limit } from 'p-limit';
 import { Sequelize } from 'sequelize-typescript';
 import type {
   DesignExport,
+  EvaluateResponse,
   RevisionComparison,
   RevisionDetail,
   RevisionSummary,
@@ -15,6 +17,7 @@ import { buildCircuit } from '@ladderwright/shared/circuits';
 import { capacitorRoleChanges } from '@ladderwright/shared/multiplier';
 import { toSpiceNetlist } from '@ladderwright/shared/sim';
 import { AnalysisService } from '../analysis/analysis.service';
+import { APP_ENV, type AppEnv } from '../config/env';
 import { PartsService } from '../parts/parts.service';
 import { differences } from './document-diff';
 import { UserModel } from '../users/user.model';
@@ -41,23 +44,43 @@ export interface DownloadFile {
 
 @Injectable()
 export class RevisionsService {
+  private readonly writeSlots: Limit;
+
   constructor(
     @InjectModel(RevisionModel) private readonly revisions: typeof RevisionModel,
     private readonly lookup: RevisionLookupService,
     private readonly analysis: AnalysisService,
     private readonly parts: PartsService,
     private readonly sequelize: Sequelize,
-  ) {}
+    @Inject(APP_ENV) env: AppEnv,
+  ) {
+    this.writeSlots = pLimit(Math.max(1, Math.floor(env.databasePoolMax / 2)));
+  }
 
   /**
-   * Inserts one revision with the engine's report, computed with the ratings of `projectId`'s Parts shelf
-   * for the part codes the document references. A code the shelf does not hold is a warning in
-   * `report.partIssues`, not a refusal: templates and imported designs carry codes of other shelves, and a
-   * lead may retire a part that older designs still name. The caller holds the design row lock.
+   * Runs a revision write (the engine's report, then its transaction) in one of `DATABASE_POOL_MAX / 2`
+   * slots; the others wait without using the event loop or a connection. A burst of saves so keeps half of
+   * the pool and most of the event loop free for every other request.
    */
-  async write(projectId: string, revision: NewRevision, transaction: Transaction): Promise<RevisionModel> {
+  inWriteSlot<T>(write: () => Promise<T>): Promise<T> {
+    return this.writeSlots(write);
+  }
+
+  /**
+   * The engine's report for `document`, computed with the ratings of `projectId`'s Parts shelf for the part
+   * codes the document references. A code the shelf does not hold is a warning in `report.partIssues`, not a
+   * refusal: templates and imported designs carry codes of other shelves, and a lead may retire a part that
+   * older designs still name. Called before the write's transaction opens, so that a transaction never waits
+   * for a second pooled connection (the shelf read) nor holds its own through the engine's work.
+   */
+  async evaluate(projectId: string, document: Design): Promise<EvaluateResponse> {
     const shelf = await this.parts.shelf(projectId);
-    const { engineVersion, report } = this.analysis.evaluate(revision.document, 'document', shelf);
+    return this.analysis.evaluate(document, 'document', shelf);
+  }
+
+  /** Inserts one revision with its report from `evaluate`. The caller holds the design row lock. */
+  async write(revision: NewRevision, evaluated: EvaluateResponse, transaction: Transaction): Promise<RevisionModel> {
+    const { engineVersion, report } = evaluated;
     return this.revisions.create({ ...revision, engineVersion, report }, { transaction });
   }
 
@@ -94,40 +117,43 @@ export class RevisionsService {
   }): Promise<RevisionDetail> {
     const { projectId, designId, request, authorId } = input;
     const document = this.analysis.parseDocument(request.document, 'document');
-    const number = await this.sequelize.transaction(async (transaction) => {
-      const design = await this.lookup.findDesign(projectId, designId, transaction);
-      const latest = design.latestRevisionNumber;
-      if (request.baseRevisionNumber > latest) {
-        throw new DomainError(
-          'invalid_argument',
-          `baseRevisionNumber ${request.baseRevisionNumber} does not exist; the latest revision is ${latest}`,
-          'baseRevisionNumber',
+    const number = await this.inWriteSlot(async () => {
+      const evaluated = await this.evaluate(projectId, document);
+      return this.sequelize.transaction(async (transaction) => {
+        const design = await this.lookup.findDesign(projectId, designId, transaction);
+        const latest = design.latestRevisionNumber;
+        if (request.baseRevisionNumber > latest) {
+          throw new DomainError(
+            'invalid_argument',
+            `baseRevisionNumber ${request.baseRevisionNumber} does not exist; the latest revision is ${latest}`,
+            'baseRevisionNumber',
+          );
+        }
+        if (request.baseRevisionNumber !== latest) {
+          const [base, newest] = await Promise.all([
+            this.load(design.id, request.baseRevisionNumber, 'baseRevisionNumber', transaction),
+            this.load(design.id, latest, 'baseRevisionNumber', transaction),
+          ]);
+          throw new StaleBaseException(
+            latest,
+            differences(base.document, newest.document).map((difference) => difference.path),
+          );
+        }
+        await this.write(
+          {
+            designId: design.id,
+            number: latest + 1,
+            document,
+            authorId,
+            changeNote: request.changeNote.trim(),
+            baseRevisionNumber: request.baseRevisionNumber,
+          },
+          evaluated,
+          transaction,
         );
-      }
-      if (request.baseRevisionNumber !== latest) {
-        const [base, newest] = await Promise.all([
-          this.load(design.id, request.baseRevisionNumber, 'baseRevisionNumber', transaction),
-          this.load(design.id, latest, 'baseRevisionNumber', transaction),
-        ]);
-        throw new StaleBaseException(
-          latest,
-          differences(base.document, newest.document).map((difference) => difference.path),
-        );
-      }
-      await this.write(
-        projectId,
-        {
-          designId: design.id,
-          number: latest + 1,
-          document,
-          authorId,
-          changeNote: request.changeNote.trim(),
-          baseRevisionNumber: request.baseRevisionNumber,
-        },
-        transaction,
-      );
-      await design.update({ latestRevisionNumber: latest + 1 }, { transaction });
-      return latest + 1;
+        await design.update({ latestRevisionNumber: latest + 1 }, { transaction });
+        return latest + 1;
+      });
     });
     return this.get({ projectId, designId, revisionNumber: number });
   }

@@ -29,6 +29,8 @@ export interface SimulationJobAttrs {
   queueJobId: string | null;
   startedAt: Date | null;
   finishedAt: Date | null;
+  /** Written every `SIMULATION_HEARTBEAT_MS` while the job runs; a stale one means its instance died. */
+  heartbeatAt: Date | null;
   createdAt: Date;
   updatedAt: Date;
 }
@@ -39,50 +41,53 @@ export type SimulationJobCreationAttrs = Pick<SimulationJobAttrs, 'projectId' | 
 @Table({ tableName: 'simulation_jobs', underscored: true, timestamps: true })
 export class SimulationJobModel extends Model<SimulationJobAttrs, SimulationJobCreationAttrs> {
   @Column({ type: DataType.UUID, primaryKey: true, defaultValue: DataType.UUIDV4 })
-  override id: string;
+  override id!: string;
 
   @Column({ type: DataType.UUID, allowNull: false })
-  projectId: string;
+  projectId!: string;
 
   @Column({ type: DataType.UUID, allowNull: true })
-  requestedBy: string | null;
+  requestedBy!: string | null;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  kind: SimulationKind;
+  kind!: SimulationKind;
 
   @Column({ type: DataType.TEXT, allowNull: false, defaultValue: 'queued' })
-  status: SimulationJobStatus;
+  status!: SimulationJobStatus;
 
   @Column({ type: DataType.SMALLINT, allowNull: false, defaultValue: 0 })
-  progressPct: number;
+  progressPct!: number;
 
   @Column({ type: DataType.JSONB, allowNull: false })
-  input: SimulationJobInput;
+  input!: SimulationJobInput;
 
   @Column({ type: DataType.UUID, allowNull: true })
-  designId: string | null;
+  designId!: string | null;
 
   @Column({ type: DataType.INTEGER, allowNull: true })
-  revisionNumber: number | null;
+  revisionNumber!: number | null;
 
   @Column({ type: DataType.JSONB, allowNull: true })
-  result: SimulationResult | null;
+  result!: SimulationResult | null;
 
   @Column({ type: DataType.TEXT, allowNull: true })
-  errorCode: string | null;
+  errorCode!: string | null;
 
   @Column({ type: DataType.TEXT, allowNull: true })
-  errorMessage: string | null;
+  errorMessage!: string | null;
 
   @Column({ type: DataType.TEXT, allowNull: true })
-  queueJobId: string | null;
+  queueJobId!: string | null;
 
   @Column({ type: DataType.DATE, allowNull: true })
-  startedAt: Date | null;
+  startedAt!: Date | null;
 
   @Column({ type: DataType.DATE, allowNull: true })
-  finishedAt: Date | null;
+  finishedAt!: Date | null;
 
-  override createdAt: Date;
-  override updatedAt: Date;
+  @Column({ type: DataType.DATE, allowNull: true })
+  heartbeatAt!: Date | null;
+
+  override createdAt!: Date;
+  override updatedAt!: Date;
 }

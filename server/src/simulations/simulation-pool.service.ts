@@ -1,8 +1,7 @@
-import { existsSync } from 'node:fs';
-import { join } from 'node:path';
 import { MessageChannel } from 'node:worker_threads';
 import { Inject, Injectable, type OnModuleDestroy } from '@nestjs/common';
 import { Piscina } from 'piscina';
+import { workerEntry } from '../common/workers/worker-entry';
 import { APP_ENV, type AppEnv } from '../config/env';
 import {
   SIMULATION_TASK_NAME,
@@ -10,21 +9,6 @@ import {
   type SimulationTask,
   type SimulationTaskOutcome,
 } from './simulation-task.types';
-
-/**
- * Where the worker entry is. A built server (`npm run build`) has `simulation.worker.js` beside this file.
- * Run from TypeScript sources (jest with ts-jest, which compiles in memory and writes no .js), the entry is
- * the .ts file: the worker thread loads it through tsx, and `--conditions=source` makes
- * `@ladderwright/shared/*` resolve to the shared sources, as jest's moduleNameMapper does on the main thread.
- */
-function workerEntry(): { filename: string; execArgv?: string[] } {
-  const compiled = join(__dirname, 'simulation.worker.js');
-  if (existsSync(compiled)) return { filename: compiled };
-  return {
-    filename: join(__dirname, 'simulation.worker.ts'),
-    execArgv: ['--conditions=source', '--import', require.resolve('tsx')],
-  };
-}
 
 export interface PoolRun {
   outcome: Promise<SimulationTaskOutcome>;
@@ -77,7 +61,7 @@ export class SimulationPoolService implements OnModuleDestroy {
     if (this.pool) return this.pool;
     const threads = Math.max(1, this.env.simulationWorkers);
     this.pool = new Piscina({
-      ...workerEntry(),
+      ...workerEntry(__dirname, 'simulation.worker'),
       name: SIMULATION_TASK_NAME,
       minThreads: 0,
       maxThreads: threads,

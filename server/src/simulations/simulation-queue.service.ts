@@ -9,8 +9,8 @@ export interface SimulationQueuePayload {
   simulationJobId: string;
 }
 
-/** A job whose instance died is handed to another after this long (pg-boss expiration, then retry). */
-const EXPIRE_IN_SECONDS = 30 * 60;
+/** pg-boss expires a job this long after its run-time limit (ours ends it first). */
+const EXPIRY_MARGIN_S = 60;
 const POLLING_INTERVAL_SECONDS = 1;
 
 /**
@@ -28,10 +28,14 @@ export class SimulationQueueService implements OnModuleDestroy {
 
   constructor(@Inject(APP_ENV) private readonly env: AppEnv) {}
 
-  /** Queues a job; returns the pg-boss job id. Wakes this instance's workers at once. */
-  async send(payload: SimulationQueuePayload): Promise<string> {
+  /** Queues a job; returns the pg-boss job id. Higher `priority` is taken first. Wakes this instance's workers. */
+  async send(payload: SimulationQueuePayload, priority = 0): Promise<string> {
     const boss = await this.boss();
-    const id = await boss.send(SIMULATION_QUEUE, payload, { retryLimit: 1, expireInSeconds: EXPIRE_IN_SECONDS });
+    const id = await boss.send(SIMULATION_QUEUE, payload, {
+      retryLimit: 1,
+      expireInSeconds: this.expireInSeconds(),
+      priority,
+    });
     if (!id) throw new Error('pg-boss refused the simulation job');
     for (const workerId of this.workerIds) boss.notifyWorker(workerId);
     return id;
@@ -67,6 +71,10 @@ export class SimulationQueueService implements OnModuleDestroy {
     await boss?.stop({ graceful: true, wait: true, timeout: 10_000 });
   }
 
+  private expireInSeconds(): number {
+    return this.env.simulationMaxRunS + EXPIRY_MARGIN_S;
+  }
+
   private boss(): Promise<PgBoss> {
     if (this.isStopped) return Promise.reject(new Error('the simulation queue is stopped'));
     this.starting ??= this.start().catch((error: unknown) => {
@@ -88,7 +96,7 @@ export class SimulationQueueService implements OnModuleDestroy {
       await boss.createQueue(SIMULATION_QUEUE, {
         name: SIMULATION_QUEUE,
         retryLimit: 1,
-        expireInSeconds: EXPIRE_IN_SECONDS,
+        expireInSeconds: this.expireInSeconds(),
       });
     } catch (error) {
       await boss.stop({ graceful: false, wait: true }).catch(() => undefined);

@@ -1,11 +1,10 @@
 import { Inject, Injectable, Logger, type OnApplicationBootstrap, type OnModuleDestroy } from '@nestjs/common';
-import { Op } from 'sequelize';
-import type { SimulationKind } from '@ladderwright/shared/api';
+import { Op, QueryTypes } from 'sequelize';
+import { Sequelize } from 'sequelize-typescript';
 import { APP_ENV, type AppEnv } from '../config/env';
 import { SimulationJobModel } from './simulation-job.model';
 import { type PoolRun, SimulationPoolService } from './simulation-pool.service';
 import { type SimulationQueuePayload, SimulationQueueService } from './simulation-queue.service';
-import type { FaultKind } from './simulation-task.types';
 
 /** Progress is written to the table in steps of this many percent (and at 100). */
 const PROGRESS_STEP_PCT = 5;
@@ -19,24 +18,39 @@ interface ActiveRun {
   settled: Promise<void>;
 }
 
+/** Heartbeats a running job may miss before it counts as abandoned by a dead instance. */
+const MISSED_HEARTBEATS = 3;
+
 /**
  * The job-worker side of an app instance: takes jobs from the pg-boss queue, runs them in the piscina pool,
  * writes progress, result or error into `simulation_jobs`. Every write is guarded by `status = 'running'`,
  * so a cancel (status set to 'cancelled' by any instance) always wins over a late progress or result.
+ * A running job writes a heartbeat every `SIMULATION_HEARTBEAT_MS` and is stopped after
+ * `SIMULATION_MAX_RUN_S`. Every instance, at start-up and then every few heartbeats, ends as `interrupted`
+ * the running jobs whose heartbeat stopped (their instance died): none stays "running" for ever.
  */
 @Injectable()
 export class SimulationRunnerService implements OnApplicationBootstrap, OnModuleDestroy {
   private readonly logger = new Logger('SimulationRunner');
   private readonly active = new Map<string, ActiveRun>();
   private isShuttingDown = false;
+  private reconcileTimer: NodeJS.Timeout | null = null;
 
   constructor(
     @Inject(APP_ENV) private readonly env: AppEnv,
     private readonly queue: SimulationQueueService,
     private readonly pool: SimulationPoolService,
+    private readonly sequelize: Sequelize,
   ) {}
 
   onApplicationBootstrap(): void {
+    const reconcile = () =>
+      void this.reconcile().catch((error: unknown) => {
+        this.logger.warn(`reconciling jobs failed: ${error instanceof Error ? error.message : String(error)}`);
+      });
+    reconcile();
+    this.reconcileTimer = setInterval(reconcile, this.env.simulationHeartbeatMs * MISSED_HEARTBEATS);
+    this.reconcileTimer.unref();
     if (this.env.simulationWorkers === 0) return;
     // Not awaited: the app serves requests (and reports degraded health) even while the database is down.
     this.queue
@@ -51,7 +65,26 @@ export class SimulationRunnerService implements OnApplicationBootstrap, OnModule
     this.active.get(jobId)?.run.cancel(CANCEL_GRACE_MS);
   }
 
+  /**
+   * Ends as `interrupted` every running job whose heartbeat is older than three beats: its instance died
+   * (a kill, a crash, a lost machine). Returns how many it ended.
+   */
+  async reconcile(): Promise<number> {
+    const staleS = (this.env.simulationHeartbeatMs * MISSED_HEARTBEATS) / 1000;
+    const [, count] = await this.sequelize.query(
+      `UPDATE simulation_jobs
+       SET status = 'failed', error_code = 'interrupted', finished_at = now(), updated_at = now(),
+           error_message = 'The server running this simulation stopped; start it again'
+       WHERE status = 'running' AND coalesce(heartbeat_at, started_at, updated_at) < now() - make_interval(secs => :staleS)`,
+      { replacements: { staleS }, type: QueryTypes.UPDATE },
+    );
+    const ended = Number(count) || 0;
+    if (ended > 0) this.logger.warn(`ended ${ended} simulation job(s) whose instance stopped`);
+    return ended;
+  }
+
   async onModuleDestroy(): Promise<void> {
+    if (this.reconcileTimer) clearInterval(this.reconcileTimer);
     this.isShuttingDown = true;
     for (const { run } of this.active.values()) run.cancel(0);
     await Promise.all([...this.active.values()].map((entry) => entry.settled));
@@ -60,7 +93,7 @@ export class SimulationRunnerService implements OnApplicationBootstrap, OnModule
   private async execute({ simulationJobId: id }: SimulationQueuePayload): Promise<void> {
     if (this.isShuttingDown) throw new Error('instance is stopping; the job is left to another instance');
     const [claimed, rows] = await SimulationJobModel.update(
-      { status: 'running', progressPct: 0, startedAt: new Date() },
+      { status: 'running', progressPct: 0, startedAt: new Date(), heartbeatAt: new Date() },
       { where: { id, status: { [Op.in]: ['queued', 'running'] } }, returning: true },
     );
     const job = rows[0];
@@ -68,7 +101,7 @@ export class SimulationRunnerService implements OnApplicationBootstrap, OnModule
     let writtenPct = 0;
     let progressWrite = Promise.resolve();
     const run = this.pool.run(
-      { kind: job.kind as SimulationKind | FaultKind, document: job.input.document, options: job.input.options },
+      { kind: job.kind, document: job.input.document, options: job.input.options },
       (progressPct) => {
         if (progressPct < writtenPct + PROGRESS_STEP_PCT) return;
         writtenPct = progressPct;
@@ -76,8 +109,12 @@ export class SimulationRunnerService implements OnApplicationBootstrap, OnModule
       },
     );
     const cancelWatch = setInterval(() => void this.checkCancelled(id, run), CANCEL_POLL_MS);
+    const heartbeat = setInterval(() => void this.beat(id), this.env.simulationHeartbeatMs);
+    const timeLimit = setTimeout(() => void this.stopOverTime(id, run), this.env.simulationMaxRunS * 1000);
     const settled = this.finish(id, run).finally(async () => {
       clearInterval(cancelWatch);
+      clearInterval(heartbeat);
+      clearTimeout(timeLimit);
       await progressWrite;
       this.active.delete(id);
     });
@@ -119,6 +156,23 @@ export class SimulationRunnerService implements OnApplicationBootstrap, OnModule
   private async writeProgress(id: string, progressPct: number, run: PoolRun): Promise<void> {
     const [count] = await SimulationJobModel.update({ progressPct }, { where: { id, status: 'running' } });
     if (count === 0) run.cancel(CANCEL_GRACE_MS);
+  }
+
+  private async beat(id: string): Promise<void> {
+    await SimulationJobModel.update({ heartbeatAt: new Date() }, { where: { id, status: 'running' } }).catch(
+      () => undefined,
+    );
+  }
+
+  /** Fails the job first (so the cancelled outcome that follows writes nothing), then stops the run. */
+  private async stopOverTime(id: string, run: PoolRun): Promise<void> {
+    const limitS = this.env.simulationMaxRunS;
+    await this.fail(
+      id,
+      'time_limit',
+      `The simulation ran longer than ${limitS} s, the limit; give fewer cycles or steps per cycle`,
+    ).catch(() => undefined);
+    run.cancel(CANCEL_GRACE_MS);
   }
 
   private async checkCancelled(id: string, run: PoolRun): Promise<void> {

@@ -1,8 +1,8 @@
 import type { SimulationResult, SimulationSummary, WaveformPhase, WaveformTrace } from '@ladderwright/shared/api';
-import type { DischargeRule } from '@ladderwright/shared/designs';
 import { isDomainError } from '@ladderwright/shared/errors';
+import { dischargeRuleLimits } from '@ladderwright/shared/safety';
 import { ladderSpecFromDesign } from '@ladderwright/shared/circuits';
-import { type PlotTrace, runDriverDesign, runLadder } from '@ladderwright/shared/runs';
+import { type PlotTrace, runDriverDesign, runDriverStartUp, runLadder } from '@ladderwright/shared/runs';
 import type { SimulationProgressMessage, SimulationTask, SimulationTaskOutcome } from './simulation-task.types';
 
 /*
@@ -18,11 +18,6 @@ export const DEFAULT_MAX_STEP_PER_PERIOD = 100;
 /** Buckets of the min/max downsampling: at most twice as many points per trace reach the client. */
 const PLOT_BUCKETS = 500;
 
-function dischargeVoltageV(rule: DischargeRule): number {
-  if (typeof rule === 'object') return rule.voltageV;
-  return rule === '60V-5s' ? 60 : 50;
-}
-
 function toWaveform(phase: WaveformPhase, trace: PlotTrace, name = 'V(top)', unit: 'V' | 'A' = 'V'): WaveformTrace {
   return { name, phase, unit, timeS: trace.timeS, values: trace.values };
 }
@@ -33,14 +28,19 @@ function toWaveform(phase: WaveformPhase, trace: PlotTrace, name = 'V(top)', uni
  * discharge after the drive stops, with the output and every capacitor's voltage. `runLadder` downsamples
  * with min/max buckets, so peaks are kept.
  */
-/** Cold start-up window of a driver design when the request gives none: 2 ms, some 50 oscillation periods. */
-const DEFAULT_STARTUP_WINDOW_S = 2e-3;
+/**
+ * Simulated-time budget of a driver design's cold start when the request gives none: 20 ms, some 500
+ * oscillation periods (the run stops earlier once the output settles).
+ */
+const DEFAULT_STARTUP_WINDOW_S = 20e-3;
 
 /**
  * A design driven by its blocking oscillator (`runDriverDesign`): warm-started steady state with the
  * output, collector, secondary and primary current over a few oscillation periods, the bleeder discharge
  * after the supply is switched off ('discharge', 'full'), and for 'startup' and 'full' a push-button start
- * from an empty ladder over `options.startUpWindowS`. Progress: the start-up window takes the first
+ * from an empty ladder until it settles or `options.startUpWindowS` of simulated time has passed (time to
+ * 90 % and to 1 % of the settled output, or the time within which it did not settle; the charging curve is
+ * the cycle means). Progress: the start-up window takes the first
  * quarter when there is one.
  */
 function simulateDriver(task: SimulationTask, post: (fraction: number) => void): SimulationResult {
@@ -50,9 +50,8 @@ function simulateDriver(task: SimulationTask, post: (fraction: number) => void):
   const hasStartUp = kind === 'startup' || kind === 'full';
   const startShare = hasStartUp ? 0.25 : 0;
   const coldRun = hasStartUp
-    ? runDriverDesign(design, {
-        start: 'cold',
-        windowS: options.startUpWindowS ?? DEFAULT_STARTUP_WINDOW_S,
+    ? runDriverStartUp(design, {
+        maxTimeS: options.startUpWindowS ?? DEFAULT_STARTUP_WINDOW_S,
         plotBuckets: PLOT_BUCKETS,
         shouldCancel,
         onProgress: (f) => post(startShare * f),
@@ -62,12 +61,17 @@ function simulateDriver(task: SimulationTask, post: (fraction: number) => void):
     plotBuckets: PLOT_BUCKETS,
     shouldCancel,
     onProgress: (f) => post(startShare + (1 - startShare) * f),
-    ...(isDischarge ? { dischargeToV: dischargeVoltageV(design.targets.dischargeRule) } : {}),
+    ...(isDischarge ? { dischargeToV: dischargeRuleLimits(design.targets.dischargeRule).voltageV } : {}),
   });
   const summary: SimulationSummary = {
     outputMeanV: run.outputMeanV,
     ripplePeakToPeakV: run.ripplePeakToPeakV,
-    timeToSteadyStateS: coldRun?.timeToSteadyStateS ?? null,
+    timeToSteadyStateS: coldRun?.timeTo90PercentS ?? null,
+    timeTo1PercentS: coldRun?.timeTo1PercentS ?? null,
+    notSettledWithinS: coldRun?.notSettledWithinS ?? null,
+    inputPowerW: run.figures?.inputPowerW ?? null,
+    outputPowerW: run.figures?.outputPowerW ?? null,
+    efficiency: run.figures?.efficiency ?? null,
     dischargeTimeS: run.discharge?.dischargeTimeS ?? null,
     safeVoltageV: run.discharge?.safeVoltageV ?? null,
     cyclesSimulated: run.cyclesSimulated + (coldRun?.cyclesSimulated ?? 0),
@@ -75,7 +79,7 @@ function simulateDriver(task: SimulationTask, post: (fraction: number) => void):
     oscillationFrequencyHz: run.oscillationFrequencyHz,
   };
   const waveforms: WaveformTrace[] = [];
-  if (coldRun) waveforms.push(toWaveform('startup', coldRun.startUp));
+  if (coldRun) waveforms.push(toWaveform('startup', coldRun.curve));
   waveforms.push(toWaveform('steady-state', run.waveforms.outputV));
   waveforms.push(toWaveform('steady-state', run.waveforms.collectorV, 'V(col)'));
   waveforms.push(toWaveform('steady-state', run.waveforms.secondaryV, 'V(s)'));
@@ -106,7 +110,7 @@ function simulate(task: SimulationTask): SimulationResult {
     plotBuckets: PLOT_BUCKETS,
     onProgress: post,
     shouldCancel: () => Atomics.load(task.cancelFlag, 0) === 1,
-    ...(isDischarge ? { dischargeToV: dischargeVoltageV(design.targets.dischargeRule) } : {}),
+    ...(isDischarge ? { dischargeToV: dischargeRuleLimits(design.targets.dischargeRule).voltageV } : {}),
   });
   const summary: SimulationSummary = {
     outputMeanV: run.outputMeanV,

@@ -1,9 +1,16 @@
 import { Inject, Injectable, Logger } from '@nestjs/common';
-import { Op } from 'sequelize';
-import type { SimulationJob, SimulationKind, StartSimulationResponse } from '@ladderwright/shared/api';
+import { Op, QueryTypes } from 'sequelize';
+import { Sequelize } from 'sequelize-typescript';
+import type {
+  SimulationJob,
+  SimulationKind,
+  SimulationOptions,
+  StartSimulationResponse,
+} from '@ladderwright/shared/api';
 import { type Design, validateDesign } from '@ladderwright/shared/designs';
 import { DomainError, isDomainError } from '@ladderwright/shared/errors';
 import { APP_ENV, type AppEnv } from '../config/env';
+import { RetryLaterException } from '../common/filters/domain-error.filter';
 import { isUuid } from '../common/uuid';
 import { RevisionsService } from '../revisions/revisions.service';
 import { SIMULATION_KINDS, type StartSimulationDto } from './dto/start-simulation.dto';
@@ -12,7 +19,25 @@ import { SimulationQueueService } from './simulation-queue.service';
 import { SimulationRunnerService } from './simulation-runner.service';
 import { FAULT_KINDS } from './simulation-task.types';
 
-/** The request side of simulation jobs: validate and queue, read, cancel. */
+/** Drive cycles a run without `options.cycles` may take before it gives up settling (the simulator's cap). */
+const UNTIL_STEADY_MAX_CYCLES = 20_000;
+const DEFAULT_STEPS_PER_PERIOD = 100;
+/** Retry-After of a refusal over a quota: a short run ends in about this long. */
+const QUOTA_RETRY_AFTER_S = 30;
+
+/** A job's size: cells × drive cycles × time steps per cycle (the transient's work grows with each). */
+export function simulationWork(document: Design, options: SimulationOptions): number {
+  const cycles = options.cycles ?? UNTIL_STEADY_MAX_CYCLES;
+  return document.multiplier.cellCount * cycles * (options.maxStepPerPeriod ?? DEFAULT_STEPS_PER_PERIOD);
+}
+
+/**
+ * The request side of simulation jobs: validate and queue, read, cancel. Each start is checked against a
+ * size limit and the per-user and per-project quotas of queued and running jobs, under a per-project
+ * advisory lock so that concurrent starts cannot both slip under a quota. Jobs are queued with a priority
+ * that falls with the project's jobs already waiting, so a project with one job goes ahead of another's
+ * fiftieth (fair between projects; pg-boss takes higher priority first, then the oldest).
+ */
 @Injectable()
 export class SimulationsService {
   private readonly logger = new Logger('Simulations');
@@ -22,21 +47,40 @@ export class SimulationsService {
     private readonly queue: SimulationQueueService,
     private readonly runner: SimulationRunnerService,
     private readonly revisions: RevisionsService,
+    private readonly sequelize: Sequelize,
   ) {}
 
   async start(projectId: string, userId: string, body: StartSimulationDto): Promise<StartSimulationResponse> {
     const kind = this.checkKind(body.kind);
     const source = await this.resolveSource(projectId, body);
-    const job = await SimulationJobModel.create({
-      projectId,
-      requestedBy: userId,
-      kind,
-      input: { document: source.document, options: { ...body.options } },
-      designId: source.designId,
-      revisionNumber: source.revisionNumber,
+    const options = { ...body.options };
+    this.checkSize(source.document, options);
+    const { job, priority } = await this.sequelize.transaction(async (transaction) => {
+      await this.sequelize.query('SELECT pg_advisory_xact_lock(hashtext(:projectId))', {
+        replacements: { projectId },
+        transaction,
+      });
+      const [active] = await this.sequelize.query<{ mine: number; project: number }>(
+        `SELECT count(*) FILTER (WHERE requested_by = :userId)::int AS mine, count(*)::int AS project
+         FROM simulation_jobs WHERE project_id = :projectId AND status IN ('queued', 'running')`,
+        { replacements: { projectId, userId }, type: QueryTypes.SELECT, transaction },
+      );
+      this.checkQuotas(active?.mine ?? 0, active?.project ?? 0);
+      const created = await SimulationJobModel.create(
+        {
+          projectId,
+          requestedBy: userId,
+          kind,
+          input: { document: source.document, options },
+          designId: source.designId,
+          revisionNumber: source.revisionNumber,
+        },
+        { transaction },
+      );
+      return { job: created, priority: -(active?.project ?? 0) };
     });
     try {
-      const queueJobId = await this.queue.send({ simulationJobId: job.id });
+      const queueJobId = await this.queue.send({ simulationJobId: job.id }, priority);
       await SimulationJobModel.update({ queueJobId }, { where: { id: job.id } });
     } catch (error) {
       this.logger.error(
@@ -78,6 +122,34 @@ export class SimulationsService {
     const job = isUuid(jobId) ? await SimulationJobModel.findOne({ where: { id: jobId, projectId } }) : null;
     if (!job) throw new DomainError('not_found', 'Simulation job not found', 'jobId');
     return job;
+  }
+
+  private checkSize(document: Design, options: SimulationOptions): void {
+    const work = simulationWork(document, options);
+    if (work <= this.env.simulationMaxWork) return;
+    const field = options.cycles === undefined ? 'options' : 'options.cycles';
+    throw new DomainError(
+      'invalid_argument',
+      `${field}: the run would take ${work.toExponential(2)} cell-steps (cells × cycles × steps per cycle, ` +
+        `${UNTIL_STEADY_MAX_CYCLES} cycles when none are given); at most ${this.env.simulationMaxWork.toExponential(2)}: ` +
+        'give fewer cycles or steps per cycle',
+      field,
+    );
+  }
+
+  private checkQuotas(mine: number, project: number): void {
+    if (mine >= this.env.simulationMaxActivePerUser) {
+      throw new RetryLaterException(
+        `You have ${mine} simulations queued or running, the most one person may have; wait for one to end or cancel one`,
+        QUOTA_RETRY_AFTER_S,
+      );
+    }
+    if (project >= this.env.simulationMaxActivePerProject) {
+      throw new RetryLaterException(
+        `This project has ${project} simulations queued or running, the most one project may have; wait for one to end`,
+        QUOTA_RETRY_AFTER_S,
+      );
+    }
   }
 
   private checkKind(kind: string): SimulationKind {

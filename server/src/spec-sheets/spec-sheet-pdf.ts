@@ -1,6 +1,7 @@
 import { join } from 'node:path';
 import PDFDocument from 'pdfkit';
 import { formatQuantity } from '@ladderwright/shared/units';
+import { STRESS_CHECK_IDS } from '@ladderwright/shared/multiplier';
 import type { CheckVerdict } from '@ladderwright/shared/safety';
 import type { SpecSheetContent } from './spec-sheet.types';
 
@@ -193,7 +194,7 @@ function bomSection(doc: Doc, c: SpecSheetContent): void {
       `±${(cap.tolerance * 100).toFixed(0)} %`,
       q(cap.ratedVoltageV, 'V'),
       q(stress?.maxVoltageV, 'V'),
-      marginOf(report.checks, `cap-voltage-c${i + 1}`),
+      marginOf(report.checks, STRESS_CHECK_IDS.capacitorVoltage(i + 1)),
     ];
   });
   const diode = document.multiplier.diode;
@@ -204,7 +205,7 @@ function bomSection(doc: Doc, c: SpecSheetContent): void {
     `${q(diode.ratedAverageCurrentA, 'A')} avg`,
     q(d.peakInverseV, 'V'),
     q(d.averageCurrentA, 'A'),
-    marginOf(report.checks, `diode-piv-d${d.index}`),
+    marginOf(report.checks, STRESS_CHECK_IDS.diodePiv(d.index)),
   ]);
   const columns = [
     { title: 'Ref', width: 38 },
@@ -241,7 +242,13 @@ function bomSection(doc: Doc, c: SpecSheetContent): void {
       `${q(bleeder.ratedPowerW, 'W')}, ${q(bleeder.limitingVoltageV, 'V')}`,
       'bleeder string',
       '',
-      marginOf(report.checks, 'bleeder-voltage-r1'),
+      // One verdict for the whole string; reports stored by older engines carry one per resistor.
+      marginOf(
+        report.checks,
+        report.checks.some((c) => c.id === STRESS_CHECK_IDS.bleederVoltage)
+          ? STRESS_CHECK_IDS.bleederVoltage
+          : STRESS_CHECK_IDS.bleederVoltageFirstResistor,
+      ),
     ]);
   }
   resistorRows.push([

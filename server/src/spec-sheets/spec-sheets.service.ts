@@ -2,7 +2,6 @@ import { Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
 import type { CurrentUser } from '@ladderwright/shared/api';
 import { canInProject } from '@ladderwright/shared/auth';
-import { runDriverChecks } from '@ladderwright/shared/driver';
 import { DomainError } from '@ladderwright/shared/errors';
 import { type DesignReport, ladderInputOf, resolveDrive } from '@ladderwright/shared/analysis';
 import type { Design } from '@ladderwright/shared/designs';
@@ -24,15 +23,17 @@ export interface SpecSheetFile {
   body: Buffer;
 }
 
-/** The transformer data: from the driver stage and its checks when the design has one, else the secondary. */
+/**
+ * The transformer data: from the driver stage and the stored report's driver checks (the authoritative
+ * figures, computed with the ladder the driver feeds) when the design has one, else the secondary.
+ */
 function windingOf(content: Pick<SpecSheetContent, 'document' | 'report'>): WindingSpec {
   const { document, report } = content;
   const drive = report.resolvedDrive;
   const secondaryPeakV = drive.kind === 'sine' ? drive.peakV : Math.max(drive.forwardPeakV, drive.flybackPeakV);
-  if (document.drive.kind === 'driver') {
-    const driver = document.drive.driver;
-    const checks = runDriverChecks(driver);
-    const tx = driver.transformer;
+  if (document.drive.kind === 'driver' && report.driver) {
+    const hipot = report.driver.hipotTestVoltageV;
+    const tx = document.drive.driver.transformer;
     return {
       kind: 'driver',
       primaryTurns: tx.primaryTurns,
@@ -44,8 +45,8 @@ function windingOf(content: Pick<SpecSheetContent, 'document' | 'report'>): Wind
       insulationRatedV: tx.insulation?.ratedVoltageV ?? null,
       secondaryPeakV,
       frequencyHz: drive.frequencyHz,
-      hipotTestV: checks.hipotTestVoltageV.value,
-      hipotMethod: checks.hipotTestVoltageV.method.summary.split(',')[0] ?? 'see method',
+      hipotTestV: hipot.value,
+      hipotMethod: hipot.method.summary.split(',')[0] ?? 'see method',
     };
   }
   const waveform =

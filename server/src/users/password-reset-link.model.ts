@@ -20,22 +20,22 @@ export type PasswordResetLinkCreationAttrs = Pick<
 @Table({ tableName: 'password_reset_links', underscored: true, timestamps: true, updatedAt: false })
 export class PasswordResetLinkModel extends Model<PasswordResetLinkAttrs, PasswordResetLinkCreationAttrs> {
   @Column({ type: DataType.UUID, primaryKey: true, defaultValue: DataType.UUIDV4 })
-  override id: string;
+  override id!: string;
 
   @Column({ type: DataType.UUID, allowNull: false })
-  userId: string;
+  userId!: string;
 
   @Column({ type: DataType.TEXT, allowNull: false, unique: true })
-  tokenHash: string;
+  tokenHash!: string;
 
   @Column({ type: DataType.DATE, allowNull: false })
-  expiresAt: Date;
+  expiresAt!: Date;
 
   @Column({ type: DataType.DATE, allowNull: true })
-  usedAt: Date | null;
+  usedAt!: Date | null;
 
   @Column({ type: DataType.UUID, allowNull: true })
-  createdBy: string | null;
+  createdBy!: string | null;
 
-  override createdAt: Date;
+  override createdAt!: Date;
 }

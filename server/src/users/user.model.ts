@@ -23,29 +23,29 @@ export type UserCreationAttrs = Pick<UserAttrs, 'email' | 'displayName' | 'role'
 @Table({ tableName: 'users', underscored: true, timestamps: true })
 export class UserModel extends Model<UserAttrs, UserCreationAttrs> {
   @Column({ type: DataType.UUID, primaryKey: true, defaultValue: DataType.UUIDV4 })
-  override id: string;
+  override id!: string;
 
   @Column({ type: DataType.TEXT, allowNull: false, unique: true })
-  email: string;
+  email!: string;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  displayName: string;
+  displayName!: string;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  role: UserRole;
+  role!: UserRole;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  passwordHash: string;
+  passwordHash!: string;
 
   @Column({ type: DataType.INTEGER, allowNull: false, defaultValue: 0 })
-  sessionVersion: number;
+  sessionVersion!: number;
 
   @Column({ type: DataType.BOOLEAN, allowNull: false, defaultValue: true })
-  isActive: boolean;
+  isActive!: boolean;
 
   @Column({ type: DataType.JSONB, allowNull: false, defaultValue: [] })
-  mailOptOuts: string[];
+  mailOptOuts!: string[];
 
-  override createdAt: Date;
-  override updatedAt: Date;
+  override createdAt!: Date;
+  override updatedAt!: Date;
 }

@@ -15,6 +15,7 @@ import type {
 import { MAIL_KINDS } from '@ladderwright/shared/api';
 import { DomainError } from '@ladderwright/shared/errors';
 import { AuditService } from '../audit/audit.service';
+import { SessionCacheService } from '../auth/session-cache.service';
 import { isUuid } from '../common/uuid';
 import { APP_ENV, type AppEnv } from '../config/env';
 import { MailService } from '../mail/mail.service';
@@ -56,22 +57,13 @@ export class UsersService {
     private readonly audit: AuditService,
     private readonly mail: MailService,
     private readonly sequelize: Sequelize,
+    private readonly sessionCache: SessionCacheService,
   ) {}
 
   async findCurrentUser(userId: string): Promise<CurrentUser | null> {
     if (!isUuid(userId)) return null;
     const user = await this.users.findByPk(userId);
     return user ? toCurrentUser(user) : null;
-  }
-
-  /**
-   * The account a session token names, or null when it is gone, deactivated, or the token predates a session
-   * revocation.
-   */
-  async findSessionUser(userId: string, sessionVersion: number): Promise<CurrentUser | null> {
-    if (!isUuid(userId)) return null;
-    const user = await this.users.findByPk(userId);
-    return user && user.isActive && user.sessionVersion === sessionVersion ? toCurrentUser(user) : null;
   }
 
   async sessionVersionOf(userId: string): Promise<number> {
@@ -83,6 +75,7 @@ export class UsersService {
   /** Invalidates every session token issued to the account so far. */
   async revokeSessions(userId: string): Promise<void> {
     await this.users.increment('sessionVersion', { where: { id: userId } });
+    this.sessionCache.forgetUser(userId);
   }
 
   /** The account for `email` if `password` matches it; null otherwise (same timing either way). */
@@ -153,6 +146,8 @@ export class UsersService {
       }
       await user.save({ transaction });
     });
+    // Role and standing are cached with the session: forget them so the change applies at once.
+    this.sessionCache.forgetUser(user.id);
     return toUserSummary(user);
   }
 
@@ -221,7 +216,7 @@ export class UsersService {
    */
   async completeReset(token: string, password: string, now: Date): Promise<void> {
     const passwordHash = await this.hasher.hash(password);
-    await this.sequelize.transaction(async (transaction) => {
+    const userId = await this.sequelize.transaction(async (transaction) => {
       const link = await this.resetLinks.findOne({
         where: { tokenHash: tokenHashOf(token) },
         transaction,
@@ -250,7 +245,9 @@ export class UsersService {
         },
         transaction,
       );
+      return user.id;
     });
+    this.sessionCache.forgetUser(userId);
   }
 
   /** `actor`: the admin creating the account, for the audit log. */
@@ -283,6 +280,7 @@ export class UsersService {
     // A reset password also ends the sessions opened with the old one.
     user.sessionVersion += 1;
     await user.save();
+    this.sessionCache.forgetUser(user.id);
     await this.audit.record({
       action: 'user.password_reset',
       actorId: actor.id,

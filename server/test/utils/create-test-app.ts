@@ -17,9 +17,21 @@ export interface TestAppOptions {
   prepareDatabase?: boolean;
 }
 
-/** The test environment: DATABASE_URL and JWT_SECRET from the caller; fast password hashing; no demo seed. */
+/**
+ * The test environment: DATABASE_URL and JWT_SECRET from the caller; fast password hashing; no demo seed;
+ * sign-in limits per address and overall out of reach (every suite signs in from 127.0.0.1; the limits
+ * have their own suite).
+ */
 export function testEnv(overrides: Partial<AppEnv> = {}): AppEnv {
-  return Object.freeze({ ...loadEnv(), bcryptRounds: 4, seedDemo: false, clientDistDir: '/nonexistent', ...overrides });
+  return Object.freeze({
+    ...loadEnv(),
+    bcryptRounds: 4,
+    seedDemo: false,
+    clientDistDir: '/nonexistent',
+    signInPerAddressPerMin: 100_000,
+    signInPerMin: 1_000_000,
+    ...overrides,
+  });
 }
 
 function assertTestDatabase(databaseUrl: string): void {

@@ -4,8 +4,17 @@ import { validateDesign } from '../../src/designs/validate-design';
 import { buildLadderCircuit } from '../../src/circuits/build-ladder-circuit';
 import { buildCircuit } from '../../src/circuits/design-circuit';
 import { toSpiceNetlist } from '../../src/sim/to-spice-netlist';
-import { parseArguments } from '../ladder-flags';
-import { ladderFromArguments } from './simulate';
+import { parseCommandArguments, type CommandSyntax } from '../arguments';
+import { LADDER_OPTIONS } from '../ladder-flags';
+import { ladderFromArguments, refuseDesignWithLadderOptions } from './simulate';
+
+export const netlistSyntax: CommandSyntax = {
+  command: 'netlist',
+  options: LADDER_OPTIONS,
+  positionals: ['DESIGN.json'],
+  positionalsOptional: true,
+};
+export const netlistSummary = 'SPICE netlist (.cir) of a design or a bare ladder, with a .tran of 200 periods';
 
 /**
  * `ladderwright netlist DESIGN.json | <bare-ladder flags>`: the SPICE netlist (.cir text) of the ladder with
@@ -13,7 +22,9 @@ import { ladderFromArguments } from './simulate';
  * (the estimated oscillation period for a driver) at 1/200 of a period.
  */
 export function netlistCommand(argv: ReadonlyArray<string>): string {
-  const { positional } = parseArguments(argv);
+  const parsed = parseCommandArguments(argv, netlistSyntax);
+  refuseDesignWithLadderOptions(parsed);
+  const { positional } = parsed;
   if (positional[0]) {
     const design = validateDesign(JSON.parse(readFileSync(positional[0], 'utf8')));
     if (design.drive.kind === 'driver') {
@@ -21,7 +32,7 @@ export function netlistCommand(argv: ReadonlyArray<string>): string {
       return toSpiceNetlist(buildCircuit(design), { transient: { stopTimeS: 200 * periodS, maxStepS: periodS / 200 } });
     }
   }
-  const { spec } = ladderFromArguments(argv);
+  const { spec } = ladderFromArguments(parsed);
   const periodS = 1 / spec.drive.frequencyHz;
   return toSpiceNetlist(buildLadderCircuit(spec), { transient: { stopTimeS: 200 * periodS, maxStepS: periodS / 200 } });
 }

@@ -3,10 +3,29 @@ import type { PulseDrive, SineDrive, Topology } from '../../src/designs/design.t
 import { sizeLadder } from '../../src/sizing/size-ladder';
 import type { ESeriesName } from '../../src/units/e-series';
 import { formatQuantity } from '../../src/units/format-quantity';
-import { parseArguments, quantityFlag } from '../ladder-flags';
+import { parseCommandArguments, type CommandSyntax } from '../arguments';
+import { LADDER_OPTIONS, quantityFlag, TEXT_OPTION } from '../ladder-flags';
 
-export const sizeHelp =
-  'size --target V --load-current I --ripple V --peak V --freq F [--rs R] [--flyback V --duty D] [--topology T] [--series E12] [--safe-voltage V] [--count N] [--text]   Sizer';
+export const sizeSyntax: CommandSyntax = {
+  command: 'size',
+  options: {
+    target: { type: 'string', value: 'V', help: 'output the ladder must reach at the load (required)' },
+    'load-current': { type: 'string', value: 'I', help: 'load current (required)' },
+    ripple: { type: 'string', value: 'V', help: 'largest peak-to-peak ripple (required)' },
+    peak: LADDER_OPTIONS.peak!,
+    freq: LADDER_OPTIONS.freq!,
+    rs: LADDER_OPTIONS.rs!,
+    flyback: LADDER_OPTIONS.flyback!,
+    duty: LADDER_OPTIONS.duty!,
+    topology: { type: 'string', value: 'half-wave|full-wave|bridge', help: 'only this topology (default all)' },
+    series: { type: 'string', value: 'E6|E12|E24|E48|E96', help: 'preferred-value series of the capacitors' },
+    'safe-voltage': LADDER_OPTIONS['safe-voltage']!,
+    count: { type: 'string', value: 'N', help: 'candidates listed (default 10)' },
+    ...TEXT_OPTION,
+  },
+  positionals: [],
+};
+export const sizeSummary = 'Sizer: ranked candidate ladders for a target output, load and ripple';
 
 function required(value: number | undefined, name: string): number {
   if (value === undefined) throw new DomainError('invalid_argument', `--${name} is required`, name);
@@ -23,7 +42,7 @@ function countFlag(value: string | true | undefined): number {
 
 /** `ladderwright size ...`: ranked candidate ladders from the Sizer. */
 export function sizeCommand(argv: ReadonlyArray<string>): string {
-  const { flags } = parseArguments(argv);
+  const { flags } = parseCommandArguments(argv, sizeSyntax);
   const peakV = required(quantityFlag(flags, 'peak', 'V'), 'peak');
   const frequencyHz = required(quantityFlag(flags, 'freq', 'Hz'), 'freq');
   const sourceResistanceOhm = quantityFlag(flags, 'rs', 'Ohm') ?? 0;

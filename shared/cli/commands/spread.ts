@@ -4,14 +4,24 @@ import { validateDesign } from '../../src/designs/validate-design';
 import { ladderInputOf, resolveDrive } from '../../src/analysis/analyze-design';
 import { toleranceSpread } from '../../src/sizing/tolerance-spread';
 import { formatQuantity } from '../../src/units/format-quantity';
-import { parseArguments, quantityFlag } from '../ladder-flags';
+import { parseCommandArguments, type CommandSyntax } from '../arguments';
+import { quantityFlag, TEXT_OPTION } from '../ladder-flags';
 
-export const spreadHelp =
-  'spread DESIGN.json [--trials N] [--seed S] [--drive-variation 0.05] [--text]   seeded tolerance spread';
+export const spreadSyntax: CommandSyntax = {
+  command: 'spread',
+  options: {
+    trials: { type: 'string', value: 'N', help: 'Monte Carlo trials (default 1000)' },
+    seed: { type: 'string', value: 'S', help: 'random seed, an integer (default 1)' },
+    'drive-variation': { type: 'string', value: 'FRACTION', help: 'drive amplitude variation (default 0.05)' },
+    ...TEXT_OPTION,
+  },
+  positionals: ['DESIGN.json'],
+};
+export const spreadSummary = "seeded tolerance spread over the design's capacitor tolerances and drive variation";
 
 /** `ladderwright spread DESIGN.json`: Monte Carlo spread over the design's capacitor tolerances and drive variation. */
 export function spreadCommand(argv: ReadonlyArray<string>): string {
-  const { positional, flags } = parseArguments(argv);
+  const { positional, flags } = parseCommandArguments(argv, spreadSyntax);
   const path = positional[0];
   if (!path) throw new DomainError('invalid_argument', 'a design file is required', 'DESIGN.json');
   const design = validateDesign(JSON.parse(readFileSync(path, 'utf8')));

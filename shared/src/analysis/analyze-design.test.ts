@@ -253,3 +253,22 @@ describe('optimum stage count, closed form beside the best whole number', () => 
     expect(Math.abs(r.optimumStages - 14)).toBeLessThanOrEqual(1);
   });
 });
+
+describe('facts of the trade as check values', () => {
+  it('a half-wave tripler’s no-load output approaches three times the secondary’s peak (common practice, no source)', () => {
+    // Three cells on a 1 kV-peak sine at 50 kHz, 10 nF, no load and no bleeder: only the diodes' drops stand
+    // between the output and 3 kV.
+    const r = analyzeLadderReport({
+      topology: 'half-wave',
+      capacitorsF: [10e-9, 10e-9, 10e-9],
+      drive: { kind: 'sine', peakV: 1000, frequencyHz: 50e3, sourceResistanceOhm: 0 },
+      diode: designExamples.surfaceChargeTester.multiplier.diode,
+      polarity: 1,
+      load: null,
+      bleederOhm: null,
+      seriesOutputResistanceOhm: 0,
+    });
+    expect(r.outputMeanV).toBeGreaterThan(0.95 * 3000);
+    expect(r.outputMeanV).toBeLessThanOrEqual(3000);
+  });
+});

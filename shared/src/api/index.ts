@@ -99,3 +99,4 @@ export type {
   MailKind,
   NotificationSettings,
 } from './admin.types';
+export { START_UP_WINDOW_S } from './simulation-limits';

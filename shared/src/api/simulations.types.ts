@@ -66,6 +66,14 @@ export interface SimulationSummary {
   method: 'transient' | 'periodic-steady-state';
   /** Driver designs: the blocking oscillator's frequency at steady state (Hz); absent for a sine or pulse drive. */
   oscillationFrequencyHz?: number | null;
+  /** Driver designs, cold start: time to within 1 % of the settled output (s); null when it did not settle. */
+  timeTo1PercentS?: number | null;
+  /** Driver designs, cold start: the simulated time within which the output did not settle (s), else null. */
+  notSettledWithinS?: number | null;
+  /** Driver designs over whole cycles at steady state: power drawn, power into the load (W), their ratio. */
+  inputPowerW?: number | null;
+  outputPowerW?: number | null;
+  efficiency?: number | null;
 }
 
 export interface SimulationResult {

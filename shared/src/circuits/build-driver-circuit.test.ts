@@ -55,3 +55,34 @@ describe('fast estimate against the full simulation (driver alone, flyback held 
     expect(Math.abs(meanA - estimate.inputCurrentA.value) / estimate.inputCurrentA.value).toBeLessThan(0.15);
   });
 });
+
+describe('every element of the driver circuit is a field of the design', () => {
+  const windingOf = (driver: typeof demo, name: string) => {
+    const t = buildDriverCircuit(driver).elements.find((e) => e.kind === 'coupled-inductors');
+    if (t?.kind !== 'coupled-inductors') throw new Error('no transformer');
+    return { transformer: t, winding: t.windings.find((w) => w.name === name)! };
+  };
+
+  it('feeds the ladder from the flyback by default (secondary dot at ground) or from the forward pulse', () => {
+    const flyback = structuredClone(demo);
+    delete flyback.transformer.secondaryPhasing;
+    expect(windingOf(flyback, 'Ls').winding).toMatchObject({ nodeA: '0', nodeB: DRIVER_NODES.secondary });
+    expect(windingOf(demo, 'Ls').winding).toMatchObject({ nodeA: DRIVER_NODES.secondary, nodeB: '0' });
+  });
+
+  it('takes bypass, stray capacitance, snubber, junction capacitances and pair couplings from the design', () => {
+    const d = structuredClone(demo);
+    d.supplyBypassCapacitanceF = 0;
+    d.collectorStrayCapacitanceF = 47e-12;
+    d.snubber = { resistorOhm: 220, capacitorF: 1e-9 };
+    d.transistor.baseCollectorCapacitanceF = 8e-12;
+    d.transformer.windingCouplings = { primarySecondary: 0.95 };
+    const elements = buildDriverCircuit(d).elements;
+    expect(elements.find((e) => e.name === 'Cbyp')).toBeUndefined();
+    expect(elements.find((e) => e.name === 'Ccol')).toMatchObject({ capacitanceF: 47e-12 });
+    expect(elements.find((e) => e.name === 'Csn')).toMatchObject({ capacitanceF: 1e-9 });
+    expect(elements.find((e) => e.name === 'Rsn')).toMatchObject({ resistanceOhm: 220 });
+    expect(elements.find((e) => e.kind === 'npn')).toMatchObject({ model: { baseCollectorCapacitanceF: 8e-12 } });
+    expect(windingOf(d, 'Lp').transformer.couplings).toEqual([{ windingA: 'Lp', windingB: 'Ls', coefficient: 0.95 }]);
+  });
+});

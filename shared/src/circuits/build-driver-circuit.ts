@@ -7,16 +7,26 @@ import type { DriverStage } from '../designs/driver-stage.types';
 /** Node names of the driver circuit a caller probes. */
 export const DRIVER_NODES = { supply: 'vcc', collector: 'col', base: 'base', secondary: 's' } as const;
 
+/**
+ * Inductance of the saturated core as a fraction of the primary inductance: about the air-core value, 1/μe
+ * of a gapped ferrite core of effective permeability 100 or more (common practice, no source).
+ */
+export const SATURATED_INDUCTANCE_FRACTION = 0.01;
+
+/** Supply bypass capacitor when the design gives none: 100 µF across the cells (common practice, no source). */
+export const DEFAULT_SUPPLY_BYPASS_F = 100e-6;
+/** Collector stray capacitance when the design gives none: 100 pF, winding and wiring (common practice, no source). */
+export const DEFAULT_COLLECTOR_STRAY_F = 100e-12;
+/** Transistor junction capacitances when the design gives none (SPICE CJE, CJC of a small switching NPN; from memory). */
+export const DEFAULT_CJE_F = 10e-12;
+export const DEFAULT_CJC_F = 5e-12;
+
 /** Name of the supply source, for 'I(Vbat)' probes. */
 export const DRIVER_SUPPLY_SOURCE = 'Vbat';
 
 export interface DriverCircuitOptions {
   /** Ladder fed by the secondary (half-wave only); its drive is replaced by the secondary winding. */
   ladder?: Omit<LadderCircuitSpec, 'drive'>;
-  /** Capacitance at the collector node (F), as in the fast estimate. Default 100 pF. */
-  collectorNodeCapacitanceF?: number;
-  /** Supply bypass capacitor (F) at the stage. Default 100 µF. */
-  bypassCapacitanceF?: number;
   /** Rise time of the push-button switch-on (s). Default 1 µs. */
   switchOnRiseS?: number;
   /** Resistance across an otherwise open secondary (Ω), so the node has a DC path. Default 100 MΩ. */
@@ -29,7 +39,9 @@ export interface DriverCircuitOptions {
  * Circuit of the blocking oscillator, its three-winding transformer and (optionally) a half-wave ladder:
  * supply (Thevenin of the cells or DC source) switched on at t = 0, bypass capacitor, primary from the
  * supply to the collector, feedback winding from the supply through R_B to the base (self-starting),
- * secondary dot end at node 's'. Zener clamp from the collector to ground, or RCD clamp to the supply.
+ * secondary from ground to node 's' with its dot at ground (flyback-fed, the default) or at 's'
+ * (forward-fed), collector stray capacitance and RC snubber to ground. Zener clamp from the collector to
+ * ground, or RCD clamp to the supply. Each element is a field of the design (defaults named above).
  */
 export function buildDriverCircuit(driver: DriverStage, options: DriverCircuitOptions = {}): Circuit {
   const { transformer: tx, transistor: q } = driver;
@@ -57,13 +69,8 @@ export function buildDriverCircuit(driver: DriverStage, options: DriverCircuitOp
     nodeB: n.supply,
     resistanceOhm: Math.max(resistanceOhm, 1e-3),
   });
-  el.push({
-    kind: 'capacitor',
-    name: 'Cbyp',
-    nodeA: n.supply,
-    nodeB: '0',
-    capacitanceF: options.bypassCapacitanceF ?? 100e-6,
-  });
+  const bypassF = driver.supplyBypassCapacitanceF ?? DEFAULT_SUPPLY_BYPASS_F;
+  if (bypassF > 0) el.push({ kind: 'capacitor', name: 'Cbyp', nodeA: n.supply, nodeB: '0', capacitanceF: bypassF });
   const collectorEnd = driver.collectorResistorOhm ? 'pcol' : n.collector;
   if (driver.collectorResistorOhm)
     el.push({
@@ -73,12 +80,27 @@ export function buildDriverCircuit(driver: DriverStage, options: DriverCircuitOp
       nodeB: n.collector,
       resistanceOhm: driver.collectorResistorOhm,
     });
+  const isFlybackFed = (tx.secondaryPhasing ?? 'flyback') === 'flyback';
+  const pairs = tx.windingCouplings ?? {};
+  const couplings = [
+    { windingA: 'Lp', windingB: 'Lfb', coefficient: pairs.primaryFeedback },
+    { windingA: 'Lp', windingB: 'Ls', coefficient: pairs.primarySecondary },
+    { windingA: 'Lfb', windingB: 'Ls', coefficient: pairs.feedbackSecondary },
+  ].flatMap((c) => (c.coefficient === undefined ? [] : [{ ...c, coefficient: c.coefficient }]));
   const ratioFb = tx.feedbackTurns / tx.primaryTurns;
   const ratioSec = tx.secondaryTurns / tx.primaryTurns;
   el.push({
     kind: 'coupled-inductors',
     name: 'T1',
     couplingCoefficient: tx.couplingCoefficient,
+    ...(couplings.length > 0 ? { couplings } : {}),
+    // The core saturates at the transformer's saturation current (primary current, the smooth-knee law of
+    // sim/devices/saturable-core.ts); its magnetizing inductance is the linear model's k·Lp.
+    core: {
+      magnetizingInductanceH: tx.couplingCoefficient * tx.primaryInductanceH,
+      saturationCurrentA: tx.saturationCurrentA,
+      saturatedInductanceH: tx.saturatedInductanceH ?? SATURATED_INDUCTANCE_FRACTION * tx.primaryInductanceH,
+    },
     windings: [
       {
         name: 'Lp',
@@ -94,10 +116,11 @@ export function buildDriverCircuit(driver: DriverStage, options: DriverCircuitOp
         inductanceH: tx.primaryInductanceH * ratioFb ** 2,
         resistanceOhm: tx.feedbackResistanceOhm,
       },
+      // Flyback phasing: the dot at ground, so node 's' swings positive while the primary's flux collapses.
       {
         name: 'Ls',
-        nodeA: n.secondary,
-        nodeB: '0',
+        nodeA: isFlybackFed ? '0' : n.secondary,
+        nodeB: isFlybackFed ? n.secondary : '0',
         inductanceH: tx.primaryInductanceH * ratioSec ** 2,
         resistanceOhm: tx.secondaryResistanceOhm,
       },
@@ -108,17 +131,22 @@ export function buildDriverCircuit(driver: DriverStage, options: DriverCircuitOp
     saturationCurrentA: q.saturationCurrentA ?? 1e-14,
     forwardBeta: q.forwardBeta,
     reverseBeta: q.reverseBeta,
-    baseEmitterCapacitanceF: 10e-12,
-    baseCollectorCapacitanceF: 5e-12,
+    baseEmitterCapacitanceF: q.baseEmitterCapacitanceF ?? DEFAULT_CJE_F,
+    baseCollectorCapacitanceF: q.baseCollectorCapacitanceF ?? DEFAULT_CJC_F,
   };
   el.push({ kind: 'npn', name: 'Q1', collector: n.collector, base: n.base, emitter: '0', model });
-  el.push({
-    kind: 'capacitor',
-    name: 'Ccol',
-    nodeA: n.collector,
-    nodeB: '0',
-    capacitanceF: options.collectorNodeCapacitanceF ?? 100e-12,
-  });
+  const strayF = driver.collectorStrayCapacitanceF ?? DEFAULT_COLLECTOR_STRAY_F;
+  if (strayF > 0) el.push({ kind: 'capacitor', name: 'Ccol', nodeA: n.collector, nodeB: '0', capacitanceF: strayF });
+  if (driver.snubber) {
+    el.push({
+      kind: 'capacitor',
+      name: 'Csn',
+      nodeA: n.collector,
+      nodeB: 'snb',
+      capacitanceF: driver.snubber.capacitorF,
+    });
+    el.push({ kind: 'resistor', name: 'Rsn', nodeA: 'snb', nodeB: '0', resistanceOhm: driver.snubber.resistorOhm });
+  }
   const clamp = driver.clamp;
   if (clamp?.kind === 'zener') {
     el.push({

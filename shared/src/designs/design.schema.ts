@@ -1,164 +1,184 @@
-/**
- * JSON Schema (draft 2020-12) of the design document, schemaVersion 1. Units are SI base units and are
- * named in each property. The server serves this constant; validateDesign applies the same rules plus
- * the cross-field ones a schema cannot say (capacitor count per topology and cell count).
- */
-const finite = { type: 'number' } as const;
-const positive = { type: 'number', exclusiveMinimum: 0 } as const;
-const nonNegative = { type: 'number', minimum: 0 } as const;
+import { Type } from '@sinclair/typebox';
+import { designLimits as L } from './design-limits';
+import { driverStageSchema, partCodeSchema } from './driver-stage.schema';
+import { closedObject, count, fraction, nonNegative, positive, text, withDefinitions } from './schema-builders';
 
+/**
+ * The design document, schemaVersion 1: its one definition. The TypeScript types (design.types.ts), the
+ * published JSON Schema (`designDocumentSchema`) and the validator (validate-design.ts) all derive from
+ * these schemas. Units are SI base units, named in each property; every size and range has a limit from
+ * the domain (design-limits.ts). Every object refuses keys it does not name.
+ * To add a field, see DEVELOPERS.md "Adding a field to the design document".
+ */
+
+export const DESIGN_SCHEMA_VERSION = 1;
+
+export const sineDriveSchema = closedObject(
+  {
+    kind: Type.Literal('sine'),
+    peakV: positive(L.maxVoltageV, 'PEAK (not rms) of the secondary voltage.'),
+    frequencyHz: Type.Number({ minimum: L.minFrequencyHz, maximum: L.maxFrequencyHz }),
+    sourceResistanceOhm: nonNegative(
+      L.maxResistanceOhm,
+      'Resistance in series with each driven end of the secondary (winding resistance plus any limiter).',
+    ),
+  },
+  { description: 'Sinusoidal secondary; peakV is the peak, not rms.' },
+);
+
+export const pulseDriveSchema = closedObject(
+  {
+    kind: Type.Literal('pulse'),
+    forwardPeakV: nonNegative(L.maxVoltageV, 'Magnitude of the forward pulse.'),
+    flybackPeakV: nonNegative(L.maxVoltageV, 'Magnitude of the flyback (opposite sign).'),
+    frequencyHz: Type.Number({ minimum: L.minFrequencyHz, maximum: L.maxFrequencyHz }),
+    dutyCycle: fraction(true, true, 'Fraction of the period at the forward peak.'),
+    sourceResistanceOhm: nonNegative(L.maxResistanceOhm),
+  },
+  {
+    description:
+      'Rectangular pulses: forward peak for dutyCycle of the period, flyback peak (opposite sign) for the rest.',
+  },
+);
+
+export const driverDriveSchema = closedObject(
+  { kind: Type.Literal('driver'), driver: driverStageSchema },
+  { description: 'Secondary derived from a blocking-oscillator driver stage through its closed-form estimate.' },
+);
+
+export const driveSchema = Type.Union([sineDriveSchema, pulseDriveSchema, driverDriveSchema]);
+
+export const topologySchema = Type.Union([
+  Type.Literal('half-wave'),
+  Type.Literal('full-wave'),
+  Type.Literal('bridge-doubler'),
+]);
+
+export const capacitorPartSchema = closedObject({
+  valueF: positive(L.maxCapacitanceF),
+  tolerance: fraction(false, true, 'Fractional tolerance, e.g. 0.1 for ±10 %.'),
+  ratedVoltageV: positive(L.maxVoltageV),
+  partCode: Type.Optional(partCodeSchema),
+});
+
+export const diodePartSchema = closedObject(
+  {
+    saturationCurrentA: positive(1),
+    emissionCoefficient: positive(L.maxEmissionCoefficient),
+    seriesResistanceOhm: nonNegative(L.maxResistanceOhm),
+    ratedPivV: positive(L.maxVoltageV),
+    ratedAverageCurrentA: positive(L.maxCurrentA),
+    ratedSurgeCurrentA: positive(L.maxCurrentA),
+    junctionCapacitanceF: Type.Optional(nonNegative(L.maxCapacitanceF)),
+    partCode: Type.Optional(partCodeSchema),
+  },
+  { description: 'Shockley diode with series resistance, plus the ratings the Checks compare against.' },
+);
+
+export const multiplierSpecSchema = closedObject(
+  {
+    topology: topologySchema,
+    cellCount: count(1, L.maxCellCount),
+    capacitors: Type.Array(capacitorPartSchema, { minItems: 1, maxItems: L.maxCapacitorCount }),
+    diode: diodePartSchema,
+    strayCapacitanceF: Type.Optional(
+      nonNegative(L.maxCapacitanceF, 'Stray capacitance of each ladder node to ground.'),
+    ),
+  },
+  {
+    description:
+      'Capacitors from the source upward in conduction order. Half-wave even cellCount: C1 oscillating stage 1, C2 smoothing stage 1, ...; odd cellCount starts with a rectifier cell (C1 smoothing). Full-wave: three per stage (oscillating A, oscillating B, smoothing), 3 x cellCount. Bridge doubler: cellCount 2.',
+  },
+);
+
+export const bleederStringSchema = closedObject(
+  {
+    count: count(1, L.maxBleederCount),
+    valueOhm: positive(L.maxResistanceOhm),
+    ratedPowerW: positive(1e6),
+    limitingVoltageV: positive(L.maxVoltageV, 'Limiting element voltage of one resistor (IEC 60115-1 term).'),
+    partCode: Type.Optional(partCodeSchema),
+  },
+  { description: 'A bleeder string of `count` equal resistors across the ladder output.' },
+);
+
+export const outputNetworkSchema = closedObject({
+  bleeder: Type.Union([Type.Null(), bleederStringSchema]),
+  seriesOutputResistanceOhm: nonNegative(
+    L.maxResistanceOhm,
+    'Resistor between the ladder top (where the bleeder sits) and the load terminal.',
+  ),
+});
+
+export const loadSchema = Type.Union([
+  closedObject({ kind: Type.Literal('current'), currentA: nonNegative(L.maxCurrentA) }),
+  closedObject({ kind: Type.Literal('resistance'), resistanceOhm: positive(L.maxResistanceOhm) }),
+]);
+
+export const dischargeRuleSchema = Type.Union([
+  Type.Literal('50V-1min'),
+  Type.Literal('50V-5min'),
+  Type.Literal('60V-5s'),
+  closedObject({ voltageV: positive(L.maxVoltageV), timeS: positive(L.maxTimeS) }),
+]);
+
+export const spacingEnvironmentSchema = closedObject({
+  pollutionDegree: Type.Union([Type.Literal(1), Type.Literal(2), Type.Literal(3)]),
+  materialGroup: Type.Union([Type.Literal('I'), Type.Literal('II'), Type.Literal('IIIa'), Type.Literal('IIIb')]),
+  pcb: Type.Boolean(),
+  altitudeM: Type.Optional(nonNegative(L.maxAltitudeM)),
+  providedCreepageMm: Type.Optional(
+    positive(
+      L.maxCreepageMm,
+      'Creepage the layout provides between adjacent ladder nodes; enables the per-stage creepage verdicts.',
+    ),
+  ),
+});
+
+export const designTargetsSchema = closedObject({
+  outputV: Type.Number({
+    minimum: -L.maxVoltageV,
+    maximum: L.maxVoltageV,
+    not: { const: 0 },
+    description: 'Signed output voltage; negative for a negative ladder (diodes reversed). Not zero.',
+  }),
+  rippleMaxV: positive(L.maxVoltageV),
+  loadCurrentA: nonNegative(L.maxCurrentA),
+  safeVoltageV: positive(L.maxVoltageV),
+  dischargeRule: dischargeRuleSchema,
+  spacing: spacingEnvironmentSchema,
+});
+
+export const designSchema = closedObject({
+  schemaVersion: Type.Literal(DESIGN_SCHEMA_VERSION),
+  name: text(L.maxNameLength),
+  notes: text(L.maxNotesLength),
+  drive: driveSchema,
+  multiplier: multiplierSpecSchema,
+  outputNetwork: outputNetworkSchema,
+  load: loadSchema,
+  targets: designTargetsSchema,
+});
+
+/**
+ * JSON Schema (draft 2020-12) of the design document, as the server publishes it, its named parts under
+ * `$defs`. validateDesign applies it plus the cross-field rules a schema cannot say (capacitor count per
+ * topology and cell count, a non-zero target voltage, forward and flyback peaks not both zero) and the
+ * document size and depth.
+ */
 export const designDocumentSchema = {
   $schema: 'https://json-schema.org/draft/2020-12/schema',
   $id: 'urn:ladderwright:schema:design:1',
   title: 'Ladderwright design document',
-  type: 'object',
-  required: ['schemaVersion', 'name', 'notes', 'drive', 'multiplier', 'outputNetwork', 'load', 'targets'],
-  additionalProperties: false,
-  properties: {
-    schemaVersion: { const: 1 },
-    name: { type: 'string' },
-    notes: { type: 'string' },
-    drive: { oneOf: [{ $ref: '#/$defs/sineDrive' }, { $ref: '#/$defs/pulseDrive' }, { $ref: '#/$defs/driverDrive' }] },
-    multiplier: { $ref: '#/$defs/multiplier' },
-    outputNetwork: {
-      type: 'object',
-      required: ['bleeder', 'seriesOutputResistanceOhm'],
-      properties: {
-        bleeder: { oneOf: [{ type: 'null' }, { $ref: '#/$defs/bleeder' }] },
-        seriesOutputResistanceOhm: nonNegative,
-      },
-    },
-    load: {
-      oneOf: [
-        {
-          type: 'object',
-          required: ['kind', 'currentA'],
-          properties: { kind: { const: 'current' }, currentA: nonNegative },
-        },
-        {
-          type: 'object',
-          required: ['kind', 'resistanceOhm'],
-          properties: { kind: { const: 'resistance' }, resistanceOhm: positive },
-        },
-      ],
-    },
-    targets: { $ref: '#/$defs/targets' },
-  },
-  $defs: {
-    sineDrive: {
-      type: 'object',
-      description: 'Sinusoidal secondary; peakV is the peak, not rms.',
-      required: ['kind', 'peakV', 'frequencyHz', 'sourceResistanceOhm'],
-      properties: { kind: { const: 'sine' }, peakV: positive, frequencyHz: positive, sourceResistanceOhm: nonNegative },
-    },
-    pulseDrive: {
-      type: 'object',
-      description:
-        'Rectangular pulses: forward peak for dutyCycle of the period, flyback peak (opposite sign) for the rest.',
-      required: ['kind', 'forwardPeakV', 'flybackPeakV', 'frequencyHz', 'dutyCycle', 'sourceResistanceOhm'],
-      properties: {
-        kind: { const: 'pulse' },
-        forwardPeakV: nonNegative,
-        flybackPeakV: nonNegative,
-        frequencyHz: positive,
-        dutyCycle: { type: 'number', exclusiveMinimum: 0, exclusiveMaximum: 1 },
-        sourceResistanceOhm: nonNegative,
-      },
-    },
-    driverDrive: {
-      type: 'object',
-      description: 'Secondary derived from a blocking-oscillator driver stage (see the driver types).',
-      required: ['kind', 'driver'],
-      properties: {
-        kind: { const: 'driver' },
-        driver: { type: 'object', required: ['supply', 'transformer', 'transistor', 'baseResistorOhm'] },
-      },
-    },
-    capacitor: {
-      type: 'object',
-      required: ['valueF', 'tolerance', 'ratedVoltageV'],
-      properties: {
-        valueF: positive,
-        tolerance: { type: 'number', minimum: 0, exclusiveMaximum: 1 },
-        ratedVoltageV: positive,
-        partCode: { type: 'string' },
-      },
-    },
-    diode: {
-      type: 'object',
-      required: [
-        'saturationCurrentA',
-        'emissionCoefficient',
-        'seriesResistanceOhm',
-        'ratedPivV',
-        'ratedAverageCurrentA',
-        'ratedSurgeCurrentA',
-      ],
-      properties: {
-        saturationCurrentA: positive,
-        emissionCoefficient: positive,
-        seriesResistanceOhm: nonNegative,
-        ratedPivV: positive,
-        ratedAverageCurrentA: positive,
-        ratedSurgeCurrentA: positive,
-        junctionCapacitanceF: nonNegative,
-        partCode: { type: 'string' },
-      },
-    },
-    multiplier: {
-      type: 'object',
-      description:
-        'Capacitors from the source upward in conduction order. Half-wave even cellCount: C1 oscillating stage 1, C2 smoothing stage 1, ...; odd cellCount starts with a rectifier cell (C1 smoothing). Full-wave: three per stage (oscillating A, oscillating B, smoothing), 3 x cellCount. Bridge doubler: cellCount 2.',
-      required: ['topology', 'cellCount', 'capacitors', 'diode'],
-      properties: {
-        topology: { enum: ['half-wave', 'full-wave', 'bridge-doubler'] },
-        cellCount: { type: 'integer', minimum: 1 },
-        capacitors: { type: 'array', minItems: 1, items: { $ref: '#/$defs/capacitor' } },
-        diode: { $ref: '#/$defs/diode' },
-        strayCapacitanceF: nonNegative,
-      },
-    },
-    bleeder: {
-      type: 'object',
-      required: ['count', 'valueOhm', 'ratedPowerW', 'limitingVoltageV'],
-      properties: {
-        count: { type: 'integer', minimum: 1 },
-        valueOhm: positive,
-        ratedPowerW: positive,
-        limitingVoltageV: positive,
-        partCode: { type: 'string' },
-      },
-    },
-    targets: {
-      type: 'object',
-      required: ['outputV', 'rippleMaxV', 'loadCurrentA', 'safeVoltageV', 'dischargeRule', 'spacing'],
-      properties: {
-        outputV: {
-          ...finite,
-          not: { const: 0 },
-          description: 'Signed output voltage; negative for a negative ladder.',
-        },
-        rippleMaxV: positive,
-        loadCurrentA: nonNegative,
-        safeVoltageV: positive,
-        dischargeRule: {
-          oneOf: [
-            { enum: ['50V-1min', '50V-5min', '60V-5s'] },
-            { type: 'object', required: ['voltageV', 'timeS'], properties: { voltageV: positive, timeS: positive } },
-          ],
-        },
-        spacing: {
-          type: 'object',
-          required: ['pollutionDegree', 'materialGroup', 'pcb'],
-          properties: {
-            pollutionDegree: { enum: [1, 2, 3] },
-            materialGroup: { enum: ['I', 'II', 'IIIa', 'IIIb'] },
-            pcb: { type: 'boolean' },
-            altitudeM: nonNegative,
-            providedCreepageMm: positive,
-          },
-        },
-      },
-    },
-  },
+  ...withDefinitions(designSchema, {
+    sineDrive: sineDriveSchema,
+    pulseDrive: pulseDriveSchema,
+    driverDrive: driverDriveSchema,
+    driverStage: driverStageSchema,
+    capacitor: capacitorPartSchema,
+    diode: diodePartSchema,
+    multiplier: multiplierSpecSchema,
+    bleeder: bleederStringSchema,
+    targets: designTargetsSchema,
+  }),
 } as const;

@@ -25,6 +25,8 @@ export const driverExamples: Readonly<Record<'surfaceChargeTester', DriverStage>
       feedbackResistanceOhm: 0.1,
       secondaryResistanceOhm: 60,
       saturationCurrentA: 0.6,
+      // Forward-fed, as every design stored before the phasing was a field.
+      secondaryPhasing: 'forward',
       insulation: { ratedVoltageV: 3000 },
     },
     transistor: {

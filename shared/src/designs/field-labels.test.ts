@@ -31,6 +31,14 @@ function everyField(): Design {
   driver.clamp = { kind: 'rcd', clampVoltageV: 30, resistorOhm: 10e3, capacitorF: 10e-9 };
   driver.transistor.saturationCurrentA = 1e-14;
   driver.transformer.insulation = { ratedVoltageV: 3000 };
+  driver.transformer.saturatedInductanceH = 1e-5;
+  driver.transformer.windingCouplings = { primaryFeedback: 0.99, primarySecondary: 0.97, feedbackSecondary: 0.96 };
+  driver.transformer.secondaryPhasing = 'forward';
+  driver.transistor.baseEmitterCapacitanceF = 10e-12;
+  driver.transistor.baseCollectorCapacitanceF = 5e-12;
+  driver.snubber = { resistorOhm: 100, capacitorF: 1e-9 };
+  driver.supplyBypassCapacitanceF = 100e-6;
+  driver.collectorStrayCapacitanceF = 100e-12;
   if (driver.supply.kind === 'cells') {
     driver.supply.curve = [{ chargeFraction: 1, voltageV: 1.5 }];
     driver.supply.maxContinuousCurrentA = 1;

@@ -1,7 +1,7 @@
 export { validateDesign, capacitorCountFor } from './validate-design';
-export { designDocumentSchema } from './design.schema';
+export { designDocumentSchema, designSchema, DESIGN_SCHEMA_VERSION } from './design.schema';
+export { designLimits } from './design-limits';
 export { designExamples } from './design-examples';
-export { DESIGN_SCHEMA_VERSION } from './design.types';
 export type {
   Design,
   Drive,

@@ -1,5 +1,11 @@
 import { DomainError } from '../errors';
-import { defaultCellCurves, defaultCellMaxContinuousCurrentA } from './cell-curves';
+import {
+  customCellRateModel,
+  defaultCellCurves,
+  defaultCellMaxContinuousCurrentA,
+  defaultCellRateModels,
+  type CellRateModel,
+} from './cell-curves';
 import type { CellCurvePoint, CellsSupply, DriverSupply } from '../designs/driver-stage.types';
 import type { Estimated, MethodInfo } from '../methods';
 
@@ -46,6 +52,35 @@ export function cellOpenCircuitVoltageV(curve: readonly CellCurvePoint[], charge
   return last.voltageV;
 }
 
+/** The rate model of a cells supply: its chemistry's (`defaultCellRateModels`), none for a custom cell; the design's own exponent and rated time override. */
+export function cellRateModelOf(supply: CellsSupply): CellRateModel {
+  const base = supply.chemistry === 'custom' ? customCellRateModel : defaultCellRateModels[supply.chemistry];
+  if (supply.peukertExponent === undefined && supply.ratedDischargeH === undefined) return base;
+  return {
+    ...base,
+    peukertExponent: supply.peukertExponent ?? base.peukertExponent,
+    ratedDischargeH: supply.ratedDischargeH ?? base.ratedDischargeH,
+    source: `design's own figures where given; otherwise ${base.source}`,
+  };
+}
+
+/** Internal resistance of one cell (Ω) at a state of charge: R_full·(1 + m·(1 − σ)^p) (see CellRateModel). */
+export function cellInternalResistanceOhm(supply: CellsSupply, chargeFraction: number): number {
+  const m = cellRateModelOf(supply);
+  const depth = Math.min(1, Math.max(0, 1 - chargeFraction));
+  return supply.internalResistanceOhm * (1 + m.resistanceRiseAtEmpty * depth ** m.resistanceRisePower);
+}
+
+/**
+ * The current (A) that drains a cell's rated capacity as fast as the drain `currentA` does, by Peukert's law:
+ * I·(I/I_rated)^(k − 1) above the rated current I_rated = C/H, the drain itself below it.
+ */
+export function peukertEquivalentCurrentA(supply: CellsSupply, currentA: number): number {
+  const m = cellRateModelOf(supply);
+  const ratedA = supply.capacityAh / m.ratedDischargeH;
+  return currentA > ratedA ? currentA * (currentA / ratedA) ** (m.peukertExponent - 1) : currentA;
+}
+
 /** Open-circuit voltage (V) and series resistance (Ω) of the whole supply at a state of charge (cells) . */
 export function supplyThevenin(
   supply: DriverSupply,
@@ -55,7 +90,7 @@ export function supplyThevenin(
   const curve = cellCurveOf(supply);
   return {
     openCircuitV: supply.cellsInSeries * cellOpenCircuitVoltageV(curve, chargeFraction),
-    resistanceOhm: supply.cellsInSeries * supply.internalResistanceOhm,
+    resistanceOhm: supply.cellsInSeries * cellInternalResistanceOhm(supply, chargeFraction),
   };
 }
 
@@ -76,22 +111,25 @@ export interface BatteryLifeResult {
   lifeS: Estimated;
   /** State of charge at which the loaded cell voltage reaches the end voltage (0 when the curve never reaches it). */
   endChargeFraction: number;
-  /** Mean supply current over the life (A). */
+  /** Mean supply current over the life (A): the draw the life is reported at. */
   meanCurrentA: number;
+  /** Charge the cells deliver to the end voltage at this draw (Ah): the rated capacity less the rate's toll. */
+  deliveredAh: number;
+  /** The rate model used (Peukert exponent, rated discharge time, resistance rise) with its source. */
+  rateModel: CellRateModel;
 }
 
 const batteryLifeMethod: MethodInfo = {
   methodId: 'battery-life.curve-integral',
   summary:
-    'Time to the end voltage: t = ∫ C dσ / I(V(σ)) from full charge down to the state of charge σ at which the loaded cell voltage V = Voc(σ) − I·R falls to the end voltage.',
+    'Time to the end voltage: t = ∫ C dσ / I_p(σ) from full charge down to the state of charge σ at which the loaded cell voltage V = Voc(σ) − I·R(σ) falls to the end voltage; I_p = I·(I/I_rated)^(k − 1) is the Peukert-equivalent drain (capacity falls with the rate) and R(σ) = R_full·(1 + m·(1 − σ)^p) rises as the cell empties.',
   assumptions: [
-    'capacity independent of drain rate (no rate derating)',
-    'internal resistance constant over the discharge',
+    'Peukert’s law above the rated current, the rated capacity below it',
     'room temperature, continuous operation without recovery',
     'per-cell curve interpolated linearly between its points',
   ],
   source:
-    'Charge balance (definition of capacity); curve shape common practice, no source; Linden & Reddy, Handbook of Batteries, 4th ed. (from memory)',
+    'Charge balance (definition of capacity); Peukert’s law (W. Peukert, 1897; Linden & Reddy, Handbook of Batteries, 4th ed., from memory); curve shape common practice, no source; exponents and resistance rise per chemistry from memory (see the rate model)',
 };
 
 /**
@@ -108,13 +146,14 @@ export function batteryLife(supply: CellsSupply, currentAtTerminalV: (terminalV:
     throw new DomainError('invalid_design', 'at least one cell', 'driver.supply.cellsInSeries');
   const curve = cellCurveOf(supply);
   const n = supply.cellsInSeries;
+  const cellResistance = (sigma: number) => cellInternalResistanceOhm(supply, sigma);
   const currentAt = (sigma: number): { currentA: number; cellV: number } => {
     const voc = cellOpenCircuitVoltageV(curve, sigma);
     let cellV = voc;
     let currentA = 0;
     for (let k = 0; k < 60; k++) {
       currentA = Math.max(0, currentAtTerminalV(n * cellV));
-      const next = voc - currentA * supply.internalResistanceOhm;
+      const next = voc - currentA * cellResistance(sigma);
       if (Math.abs(next - cellV) < 1e-9) {
         cellV = next;
         break;
@@ -124,11 +163,14 @@ export function batteryLife(supply: CellsSupply, currentAtTerminalV: (terminalV:
     return { currentA, cellV };
   };
   const margin = (sigma: number): number => currentAt(sigma).cellV - supply.endVoltagePerCellV;
+  const rateModel = cellRateModelOf(supply);
   if (margin(1) <= 0) {
     return {
       lifeS: { value: 0, method: batteryLifeMethod },
       endChargeFraction: 1,
       meanCurrentA: currentAt(1).currentA,
+      deliveredAh: 0,
+      rateModel,
     };
   }
   let endSigma = 0;
@@ -147,6 +189,7 @@ export function batteryLife(supply: CellsSupply, currentAtTerminalV: (terminalV:
   const gaussW = [0.3478548451374538, 0.6521451548625461, 0.6521451548625461, 0.3478548451374538];
   const capacityC = supply.capacityAh * 3600;
   let lifeS = 0;
+  let deliveredC = 0;
   for (let b = 1; b < breaks.length; b++) {
     const a0 = breaks[b - 1]!;
     const a1 = breaks[b]!;
@@ -158,14 +201,18 @@ export function batteryLife(supply: CellsSupply, currentAtTerminalV: (terminalV:
         const sigma = 0.5 * (x0 + x1) + 0.5 * (x1 - x0) * g;
         const i = currentAt(sigma).currentA;
         if (!(i > 0)) throw new DomainError('invalid_argument', 'the load draws no current: battery life is unbounded');
-        lifeS += 0.5 * (x1 - x0) * gaussW[j]! * (capacityC / i);
+        // dt = C·dσ / I_p: the state of charge falls at the Peukert-equivalent rate; the charge delivered is I·dt.
+        const dtS = 0.5 * (x1 - x0) * gaussW[j]! * (capacityC / peukertEquivalentCurrentA(supply, i));
+        lifeS += dtS;
+        deliveredC += i * dtS;
       });
     }
   }
-  const drawnC = capacityC * (1 - endSigma);
   return {
     lifeS: { value: lifeS, method: batteryLifeMethod },
     endChargeFraction: endSigma,
-    meanCurrentA: drawnC / lifeS,
+    meanCurrentA: deliveredC / lifeS,
+    deliveredAh: deliveredC / 3600,
+    rateModel,
   };
 }

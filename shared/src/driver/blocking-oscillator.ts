@@ -46,6 +46,8 @@ export interface StageLosses {
   secondaryCopperW: number;
   /** Leakage energy ½·(1 − k²)·Lp·Ipk² per cycle, taken by the clamp or the ringing of the collector. */
   leakageW: number;
+  /** The core's loss (the design's figure, at most what the flyback carries), taken from the stored energy. */
+  coreW: number;
   /** The indicator lamp. */
   lampW: number;
   /** I²·R in the supply's own resistance (cells' internal resistance or the bench supply's). */
@@ -256,7 +258,10 @@ function stageAt(
     tOn = rampR > 0 ? -(lp / rampR) * Math.log(1 - ipk / finalA) : (lp * ipk) / (sourceV - q.vceSatV);
     if (supplyResistanceOhm > 0) {
       const u = tOn / (supplyResistanceOhm * bypassF);
-      unbypassedOhm = supplyResistanceOhm * (u > 1e-6 ? 1 - -Math.expm1(-u) / u : u / 2);
+      const next = supplyResistanceOhm * (u > 1e-6 ? 1 - -Math.expm1(-u) / u : u / 2);
+      const isSettled = Math.abs(next - unbypassedOhm) <= 1e-9 * supplyResistanceOhm;
+      unbypassedOhm = next;
+      if (isSettled) break;
     }
   }
   const tauS = rampR > 0 ? lp / rampR : Infinity;
@@ -278,7 +283,8 @@ function stageAt(
   // the triangular current pulse, peak Ipk·Np/Ns, is I²R·t/3.
   const iSecPk = ipk / turnsRatio;
   const copperJ = iSecPk * iSecPk * tx.secondaryResistanceOhm * (tFly / 3);
-  const flybackEfficiency = Math.max(0, k * k - copperJ / energyJ);
+  const coreJ = Math.min((tx.coreLossW ?? 0) / frequencyHz, Math.max(0, k * k * energyJ - copperJ));
+  const flybackEfficiency = Math.max(0, k * k - (copperJ + coreJ) / energyJ);
   const deliverableW = energyJ * frequencyHz * flybackEfficiency;
   // Supply charge per cycle: the primary ramp ∫i dt plus the base drive, with I_B falling linearly in i:
   // mean I_B = I_B0 − R·(N_b/N_p)·(Q/t_on)/R_B'.
@@ -316,6 +322,7 @@ function stageAt(
     collectorResistorW: frequencyHz * (driver.collectorResistorOhm ?? 0) * rampSquareA2S,
     secondaryCopperW: frequencyHz * Math.min(copperJ, k * k * energyJ),
     leakageW: frequencyHz * (1 - k * k) * energyJ,
+    coreW: frequencyHz * coreJ,
     lampW: vin * lampA,
     supplyResistanceW,
   };
@@ -352,8 +359,8 @@ function stageAt(
 
 /**
  * The blocking oscillator's estimate as plain numbers (SI units), the loaded supply voltage solved by a
- * safeguarded Newton iteration on h(V) = V − Voc + R_s·I_in(V) (derivative by a forward difference; a step
- * leaving the bracket [lo, hi] of the root becomes a bisection). `options.supplyVoltageGuessV` warm-starts it.
+ * safeguarded Newton (secant) iteration on h(V) = V − Voc + R_s·I_in(V) (first slope by a forward difference,
+ * then secant steps; a step leaving the bracket [lo, hi] of the root becomes a bisection). `options.supplyVoltageGuessV` warm-starts it.
  * Where the stage does not run (below its turn-on voltage) it draws nothing, so h < 0 there.
  */
 export function blockingOscillatorNumbers(
@@ -364,43 +371,52 @@ export function blockingOscillatorNumbers(
   const { openCircuitV, resistanceOhm } = supplyThevenin(driver.supply, options.chargeFraction ?? 1);
   if (!(resistanceOhm > 0)) return stageAt(driver, options, openCircuitV, openCircuitV, 0);
   const voc = openCircuitV;
-  const drawnA = (v: number): number => {
+  // h(V) at one voltage, keeping the stage's numbers there; below its turn-on voltage the stage draws nothing.
+  let state: OscillatorNumbers | null = null;
+  const h = (v: number): number => {
     try {
-      return stageAt(driver, options, v, voc, resistanceOhm).inputA;
+      state = stageAt(driver, options, v, voc, resistanceOhm);
+      return v - voc + resistanceOhm * state.inputA;
     } catch (error) {
-      if (error instanceof DomainError && error.message.startsWith('the supply is too low')) return 0;
+      state = null;
+      if (error instanceof DomainError && error.message.startsWith('the supply is too low')) return v - voc;
       throw error;
     }
   };
-  const h = (v: number) => v - voc + resistanceOhm * drawnA(v);
   let lo = 0;
   let hi = voc;
   const guess = options.supplyVoltageGuessV;
   let v = guess !== undefined && guess > 0 && guess <= voc ? guess : voc;
-  const tolV = 1e-12 * voc;
-  for (let it = 0; it < 100; it++) {
-    const hv = h(v);
-    if (hv === 0) break;
+  const tolV = 1e-10 * voc;
+  let hv = h(v);
+  // The first slope by a forward difference, then secant steps from the last two points, each kept inside
+  // the bracket [lo, hi] of the root (a bisection otherwise).
+  let prevV = NaN;
+  let prevH = NaN;
+  for (let it = 0; it < 100 && Math.abs(hv) > tolV; it++) {
     if (hv > 0) hi = v;
     else lo = v;
     if (hi - lo <= tolV) break;
-    const dv = Math.max(1e-7 * voc, 4 * tolV) * (v - lo > hi - v ? -1 : 1);
-    const slope = (h(v + dv) - hv) / dv;
-    const step = -hv / slope;
-    let next = v + step;
-    if (!Number.isFinite(next) || next <= lo || next >= hi) next = 0.5 * (lo + hi);
-    if (Math.abs(next - v) <= tolV) {
-      v = next;
-      break;
+    let slope: number;
+    if (Number.isNaN(prevV) || prevV === v) {
+      const dv = Math.max(1e-7 * voc, 4 * tolV) * (v - lo > hi - v ? -1 : 1);
+      slope = (h(v + dv) - hv) / dv;
+    } else {
+      slope = (hv - prevH) / (v - prevV);
     }
+    let next = v - hv / slope;
+    if (!Number.isFinite(next) || next <= lo || next >= hi) next = 0.5 * (lo + hi);
+    prevV = v;
+    prevH = hv;
     v = next;
+    hv = h(v);
   }
   // A weak supply has no root where the stage runs: the iteration then closes on the turn-on voltage,
   // where h jumps from below zero (the stage off) to above it.
-  if (Math.abs(h(v)) > 1e-6 * voc) {
+  if (Math.abs(hv) > 1e-6 * voc) {
     throw new DomainError('invalid_design', 'the supply resistance is too high for the drawn current', 'driver.supply');
   }
-  return stageAt(driver, options, v, voc, resistanceOhm);
+  return state ?? stageAt(driver, options, v, voc, resistanceOhm);
 }
 
 /**

@@ -98,7 +98,7 @@ function supplyCurrentTable(
   lowV: number,
   highV: number,
 ): (v: number) => number {
-  const points = 16;
+  const points = 8;
   const table: { v: number; i: number }[] = [];
   for (let k = 0; k < points; k++) {
     const v = lowV + ((highV - lowV) * k) / (points - 1);

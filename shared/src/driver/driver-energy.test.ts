@@ -79,3 +79,33 @@ describe('driver energy at the operating point', () => {
     expect(verdict.limit).toBe(0.5);
   });
 });
+
+describe('driver energy with the design’s own thermal, clamp and core figures', () => {
+  const base = driverExamples.surfaceChargeTester;
+
+  it('takes Rθ, Tj,max, the ambient and the clamp rating from the design when given', () => {
+    const stage: DriverStage = {
+      ...base,
+      ambientTemperatureC: 50,
+      transistor: { ...base.transistor, thermalResistanceCPerW: 100, maxJunctionTemperatureC: 125 },
+      clamp: { kind: 'zener', clampVoltageV: 30, ratedPowerW: 1.3 },
+    };
+    const checks = runDriverChecks(stage);
+    const t = checks.energy.transistor;
+    expect(t.isDefaultThermal).toBe(false);
+    // Tj = Ta + P·Rθ (common practice, no source); rounding only.
+    expect(Math.abs(t.junctionTemperatureC - (50 + 100 * t.dissipationW))).toBeLessThan(1e-9);
+    expect(t.maxDissipationW).toBeCloseTo((125 - 50) / 100, 12);
+    expect(checks.energy.clamp.ratedPowerW).toBe(1.3);
+    expect(checks.verdicts.find((c) => c.id === 'driver.clamp-dissipation')!.limit).toBe(1.3);
+  });
+
+  it('moves a given core loss out of the flyback: the clamp takes that much less, the balance still closes', () => {
+    const lossy: DriverStage = { ...base, transformer: { ...base.transformer, coreLossW: 0.01 } };
+    const plain = runDriverChecks(base).energy;
+    const withCore = runDriverChecks(lossy).energy;
+    expect(withCore.losses.core).toBeCloseTo(0.01, 12);
+    // Without a ladder the clamp takes the whole flyback; 1e-9 W: rounding only.
+    expect(Math.abs(plain.losses.clamp - withCore.losses.clamp - 0.01)).toBeLessThan(1e-9);
+  });
+});

@@ -29,7 +29,8 @@ export interface TransistorThermal {
 }
 
 /**
- * Defaults when the design gives no thermal figures: a small leaded transistor in free air, about 200 °C/W
+ * Defaults when the design gives no thermal figures (transistor.thermalResistanceCPerW,
+ * transistor.maxJunctionTemperatureC, ambientTemperatureC): a small leaded transistor in free air, about 200 °C/W
  * junction to ambient, silicon junction limit 150 °C, 25 °C ambient (common practice, no source).
  */
 export const DEFAULT_TRANSISTOR_THERMAL: TransistorThermal = {
@@ -70,7 +71,7 @@ export const DRIVER_ENERGY_METHOD: MethodInfo = {
   summary:
     'Power balance at the operating point: supply EMF power = output + every loss. Stage: Kirchhoff along the primary loop per cycle (V·Q = Vce,sat·Q + R·∫i²dt + ½·Lp·Ipk²), base drive ∫V_B·I_B dt, turn-on discharge ½·C·Vin² of the collector node, leakage ½·(1 − k²)·Lp·Ipk² and the flyback the ladder does not take into the clamp, secondary copper of the triangular flyback current; ladder: what it takes from the secondary less the output, bleeder and series-resistor powers is the diodes’ share. Junction temperature Tj = T_ambient + P·Rθ.',
   assumptions: [
-    'core loss taken as zero (no loss figure in the design)',
+    'core loss: the design’s figure, taken from the stored energy (zero when none is given)',
     'the diodes’ share includes the secondary resistance’s loss in the ladder’s charging pulses',
     'junction temperature at the mean dissipation (pulses far shorter than the thermal time constant)',
   ],
@@ -88,9 +89,14 @@ export function driverEnergy(
   point: LoadPoint,
   stage: { losses: StageLosses; deliverableW: number },
   network: { bleederOhm: number | null; seriesOutputResistanceOhm: number },
-  thermal: TransistorThermal = DEFAULT_TRANSISTOR_THERMAL,
-  isDefaultThermal = true,
 ): DriverEnergy {
+  const q = driver.transistor;
+  const thermal: TransistorThermal = {
+    thermalResistanceCPerW: q.thermalResistanceCPerW ?? DEFAULT_TRANSISTOR_THERMAL.thermalResistanceCPerW,
+    maxJunctionTemperatureC: q.maxJunctionTemperatureC ?? DEFAULT_TRANSISTOR_THERMAL.maxJunctionTemperatureC,
+    ambientTemperatureC: driver.ambientTemperatureC ?? DEFAULT_TRANSISTOR_THERMAL.ambientTemperatureC,
+  };
+  const isDefaultThermal = q.thermalResistanceCPerW === undefined;
   const s = stage.losses;
   const loadA = point.loadCurrentA;
   const topV = point.outputV + loadA * network.seriesOutputResistanceOhm;
@@ -107,7 +113,7 @@ export function driverEnergy(
     collectorResistor: s.collectorResistorW,
     secondaryCopper: s.secondaryCopperW,
     clamp: clampW,
-    core: 0,
+    core: s.coreW,
     diodes: takenW - point.outputPowerW - bleederW - seriesW,
     bleeder: bleederW,
     seriesOutputResistor: seriesW,
@@ -116,7 +122,7 @@ export function driverEnergy(
   };
   const dissipationW = s.transistorConductionW + s.transistorSwitchingW + s.baseEmitterW;
   const clamp = driver.clamp;
-  const ratedPowerW = clamp ? DEFAULT_CLAMP_RATED_POWER_W[clamp.kind] : null;
+  const ratedPowerW = clamp ? (clamp.ratedPowerW ?? DEFAULT_CLAMP_RATED_POWER_W[clamp.kind]) : null;
   return {
     inputPowerW: point.inputPowerW,
     outputPowerW: point.outputPowerW,
@@ -133,7 +139,7 @@ export function driverEnergy(
       kind: clamp?.kind ?? 'none',
       dissipationW: clampW,
       ratedPowerW,
-      isDefaultRating: clamp !== undefined,
+      isDefaultRating: clamp !== undefined && clamp.ratedPowerW === undefined,
     },
     method: DRIVER_ENERGY_METHOD,
   };

@@ -1,7 +1,8 @@
 import { cellCurveOf, type BatteryLifeResult } from './battery';
 import type { BlockingOscillatorEstimate } from './blocking-oscillator';
 import { runDriverChecks, type DriverCheckVerdict } from './driver-checks';
-import type { DriverEnergy } from './driver-energy';
+import type { DriverEnergy, LossKind } from './driver-energy';
+import { estimateValidity, type EstimateValidity } from './estimate-validity';
 import type { CellCurvePoint, DriverStage } from '../designs/driver-stage.types';
 import type { Estimated, MethodInfo } from '../methods';
 import { driverOperatingPoint, type LadderLoadLine, type LoadPoint, type OperatingLimit } from './operating-point';
@@ -48,6 +49,84 @@ export interface DriverReport {
   checks: DriverCheckVerdict[];
   /** Power balance at the rated load: input, output, efficiency (the one efficiency figure), losses by kind, transistor and clamp dissipation. */
   energy: DriverEnergy;
+  /** The rated-load estimate under the names the simulation's figures use, to set side by side. */
+  benchFigures: DriverBenchFigures;
+  /** Whether these instant figures may stand for a simulation; outside, the figures say so and ask for one. */
+  validity: EstimateValidity;
+}
+
+/** Loss groups of the simulation's figures (an element kind each). */
+export type BenchLossKind =
+  | 'transistor'
+  | 'windingCopper'
+  | 'clamp'
+  | 'snubber'
+  | 'baseResistor'
+  | 'collectorResistor'
+  | 'supplyResistance'
+  | 'ladderDiodes'
+  | 'bleeder'
+  | 'outputResistor'
+  | 'indicatorLamp'
+  | 'other';
+
+/** The estimate at the rated load with the simulation's field names (SI units; efficiency 0–1; losses in W). */
+export interface DriverBenchFigures {
+  oscillationFrequencyHz: number;
+  dutyOnFraction: number;
+  primaryCurrentPeakA: number;
+  collectorVoltagePeakV: number;
+  /** Forward (on-time) secondary peak, dot end to ground. */
+  secondaryVoltagePeakPositiveV: number;
+  /** Flyback secondary peak, dot end to ground (negative). */
+  secondaryVoltagePeakNegativeV: number;
+  inputPowerW: number;
+  outputPowerW: number;
+  efficiency: number;
+  losses: Partial<Record<BenchLossKind, number>>;
+}
+
+const BENCH_LOSS_KIND: Record<LossKind, BenchLossKind> = {
+  transistorConduction: 'transistor',
+  transistorSwitching: 'transistor',
+  baseEmitter: 'transistor',
+  baseResistor: 'baseResistor',
+  primaryCopper: 'windingCopper',
+  collectorResistor: 'collectorResistor',
+  secondaryCopper: 'windingCopper',
+  clamp: 'clamp',
+  core: 'other',
+  diodes: 'ladderDiodes',
+  bleeder: 'bleeder',
+  seriesOutputResistor: 'outputResistor',
+  lamp: 'indicatorLamp',
+  supplyResistance: 'supplyResistance',
+};
+
+/** The rated-load estimate under the simulation's names. */
+function benchFiguresOf(
+  point: LoadPoint,
+  atLoad: BlockingOscillatorEstimate,
+  energy: DriverEnergy,
+): DriverBenchFigures {
+  const losses: Partial<Record<BenchLossKind, number>> = {};
+  for (const [kind, w] of Object.entries(energy.losses) as [LossKind, number][]) {
+    if (w === 0) continue;
+    const group = BENCH_LOSS_KIND[kind];
+    losses[group] = (losses[group] ?? 0) + w;
+  }
+  return {
+    oscillationFrequencyHz: point.frequencyHz,
+    dutyOnFraction: point.dutyCycle,
+    primaryCurrentPeakA: atLoad.collectorPeakCurrentA.value,
+    collectorVoltagePeakV: atLoad.collectorPeakV.value,
+    secondaryVoltagePeakPositiveV: point.forwardSecondaryPeakV,
+    secondaryVoltagePeakNegativeV: -point.flybackSecondaryPeakV,
+    inputPowerW: energy.inputPowerW,
+    outputPowerW: energy.outputPowerW,
+    efficiency: energy.efficiency,
+    losses,
+  };
 }
 
 function figuresOf(e: BlockingOscillatorEstimate): DriverFigures {
@@ -86,6 +165,8 @@ export function driverReport(driver: DriverStage, ladder: LadderLoadLine, ratedL
   };
   return {
     energy,
+    benchFigures: benchFiguresOf(ratedLoad, atLoad, energy),
+    validity: estimateValidity(driver, atLoad, { feedsLadder: true }),
     figures,
     atLimit: {
       deliverablePowerW: limit.deliverablePowerW,

@@ -10,11 +10,15 @@ export type {
   DriverStage,
 } from '../designs/driver-stage.types';
 export type { MethodInfo, Estimated } from '../methods';
-export { defaultCellCurves, defaultCellMaxContinuousCurrentA } from './cell-curves';
+export { defaultCellCurves, defaultCellMaxContinuousCurrentA, defaultCellRateModels } from './cell-curves';
+export type { CellRateModel } from './cell-curves';
 export { driverExamples } from '../designs/driver-examples';
 export {
   batteryLife,
   cellCurveOf,
+  cellInternalResistanceOhm,
+  cellRateModelOf,
+  peukertEquivalentCurrentA,
   cellOpenCircuitVoltageV,
   cellMaxContinuousCurrentA,
   supplyThevenin,
@@ -44,7 +48,7 @@ export type {
   OperatingPointResult,
 } from './operating-point';
 export { driverReport } from './driver-report';
-export type { DriverFigures, DriverReport } from './driver-report';
+export type { BenchLossKind, DriverBenchFigures, DriverFigures, DriverReport } from './driver-report';
 export { runDriverChecks } from './driver-checks';
 export type { DriverChecksInput, DriverChecksResult, DriverCheckVerdict } from './driver-checks';
 export {
@@ -54,3 +58,5 @@ export {
   DRIVER_ENERGY_METHOD,
 } from './driver-energy';
 export type { DriverEnergy, LossKind, TransistorThermal } from './driver-energy';
+export { compareWithSimulation, estimateValidity, ESTIMATE_VALIDITY_BOUNDS } from './estimate-validity';
+export type { EstimateValidity, FigureComparison } from './estimate-validity';

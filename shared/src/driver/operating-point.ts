@@ -349,12 +349,12 @@ export function driverOperatingPoint(
     powerLimitOnsetA =
       surplusHi >= 0 ? hiA : bracketedRoot(limitSurplusAt, loA, hiA, surplusLo, surplusHi, hiA * 2 ** -40);
   }
-  // End of the curve: where the output reaches zero; bracket by doubling from the onset, then 24 bisections
-  // (6e-8 relative, far below the curve's sampling).
+  // End of the curve: where the output reaches zero; bracket by doubling from the onset, then 14 bisections
+  // (6e-5 relative, below the curve's sampling).
   let hiA = Math.max(powerLimitOnsetA, 1e-9);
   for (let k = 0; k < 60 && pointAt(hiA).outputV > 0; k++) hiA *= 2;
   let loA = 0;
-  for (let k = 0; k < 24; k++) {
+  for (let k = 0; k < 14; k++) {
     const mid = 0.5 * (loA + hiA);
     if (pointAt(mid).outputV > 0) loA = mid;
     else hiA = mid;

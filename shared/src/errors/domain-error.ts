@@ -9,7 +9,9 @@ export type DomainErrorCode =
   | 'stale_base'
   | 'not_found'
   | 'forbidden'
-  | 'cancelled';
+  | 'cancelled'
+  /** The engine work of one request did not finish within the request's time budget. */
+  | 'budget_exceeded';
 
 /** One field-level problem: `path` is a dotted/indexed path into the input, e.g. `multiplier.capacitors[3].valueF`. */
 export interface FieldIssue {

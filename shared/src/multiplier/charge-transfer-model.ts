@@ -1,5 +1,6 @@
 import type { PulseDrive, SineDrive } from '../designs/design.types';
-import { EVENT_H } from './topologies';
+import { plateauRates } from './plateau-rates';
+import { EVENT_H, EVENT_L } from './topologies';
 import type { LadderNetwork } from './topologies';
 import type { LadderInput } from './ladder.types';
 
@@ -175,8 +176,8 @@ export function createWorkspace(net: LadderNetwork, input: LadderInput): Workspa
   ws.nodeRateH = ws.nodeLoadRate;
   ws.nodeRateL = ws.nodeLoadRate;
   if (!timing.isSine) {
-    const h = plateauRates(ws, EVENT_H);
-    const l = plateauRates(ws, 1);
+    const h = plateauRates(net, ws.loadRate, EVENT_H);
+    const l = plateauRates(net, ws.loadRate, EVENT_L);
     if (h && l) {
       ws.rateH = h.capRate;
       ws.nodeRateH = h.nodeRate;
@@ -186,101 +187,6 @@ export function createWorkspace(net: LadderNetwork, input: LadderInput): Workspa
     }
   }
   return ws;
-}
-
-/** Node voltage change per unit of each capacitor change, accumulated up the network. */
-function nodeRatesOf(net: LadderNetwork, capDelta: readonly number[]): number[] {
-  const nodeRate = zeros(net.nodeCount);
-  for (let c = 0; c < capDelta.length; c += 1) {
-    nodeRate[net.capTop[c] as number] = (nodeRate[net.capBottom[c] as number] as number) + (capDelta[c] as number);
-  }
-  return nodeRate;
-}
-
-/** Solves a small dense system by Gaussian elimination with partial pivoting; null when singular. */
-function solveSmall(matrix: number[][], rhs: number[]): number[] | null {
-  const n = rhs.length;
-  for (let col = 0; col < n; col += 1) {
-    let pivot = col;
-    for (let r = col + 1; r < n; r += 1)
-      if (Math.abs(matrix[r]?.[col] ?? 0) > Math.abs(matrix[pivot]?.[col] ?? 0)) pivot = r;
-    const pivotRow = matrix[pivot] as number[];
-    if (Math.abs(pivotRow[col] as number) < 1e-300) return null;
-    [matrix[col], matrix[pivot]] = [pivotRow, matrix[col] as number[]];
-    [rhs[col], rhs[pivot]] = [rhs[pivot] as number, rhs[col] as number];
-    const row = matrix[col] as number[];
-    for (let r = col + 1; r < n; r += 1) {
-      const target = matrix[r] as number[];
-      const factor = (target[col] as number) / (row[col] as number);
-      for (let k = col; k < n; k += 1) target[k] = (target[k] as number) - factor * (row[k] as number);
-      rhs[r] = (rhs[r] as number) - factor * (rhs[col] as number);
-    }
-  }
-  const x = zeros(n);
-  for (let r = n - 1; r >= 0; r -= 1) {
-    const row = matrix[r] as number[];
-    let sum = rhs[r] as number;
-    for (let k = r + 1; k < n; k += 1) sum -= (row[k] as number) * (x[k] as number);
-    x[r] = sum / (row[r] as number);
-  }
-  return x;
-}
-
-/**
- * Flat-top (pulse) drive: through a phase the source holds still and the diodes that conducted at its
- * start stay at their conduction boundary while the load draws current, so the load is shared through
- * them. Their currents x (per ampere of load) keep every such diode's voltage constant:
- * Σ_d x_d·(dV_anode,e − dV_cathode,e)_d = −(dV_anode,e − dV_cathode,e)_load. Null when a diode would
- * need reverse current (then the phase is treated as instantaneous transfer).
- */
-function plateauRates(
-  ws: Workspace,
-  event: 0 | 1,
-): { capRate: number[]; nodeRate: number[]; diodeCapDelta: number[] } | null {
-  const net = ws.net;
-  const m = net.capF.length;
-  let conducting: number[] = [];
-  for (let d = 0; d < net.diodeShare.length; d += 1) if (net.diodeEvent[d] === event) conducting.push(d);
-  const capDeltaOf = new Map<number, number[]>();
-  const nodeRateOf = new Map<number, number[]>();
-  for (const d of conducting) {
-    ws.injection.fill(0);
-    ws.injection[net.diodeCathode[d] as number] = 1;
-    ws.injection[net.diodeAnode[d] as number] = -1;
-    const capDelta = zeros(m);
-    accumulateFlow(net, ws.injection, ws.flow, capDelta);
-    capDeltaOf.set(d, capDelta);
-    nodeRateOf.set(d, nodeRatesOf(net, capDelta));
-  }
-  // Active set: a diode that would need reverse current drops out (it turns off just after the event).
-  let x: number[] | null = null;
-  for (let round = 0; round <= conducting.length && conducting.length > 0; round += 1) {
-    const set = conducting;
-    const voltageRate = (rates: readonly number[], e: number): number =>
-      (rates[net.diodeAnode[e] as number] as number) - (rates[net.diodeCathode[e] as number] as number);
-    const matrix = set.map((e) => set.map((d) => voltageRate(nodeRateOf.get(d) as number[], e)));
-    const rhs = set.map((e) => -voltageRate(ws.nodeLoadRate, e));
-    x = solveSmall(matrix, rhs);
-    if (!x) return null;
-    let worst = -1;
-    x.forEach((v, j) => {
-      if (v < -1e-9 && (worst < 0 || v < ((x as number[])[worst] as number))) worst = j;
-    });
-    if (worst < 0) break;
-    conducting = set.filter((_, j) => j !== worst);
-    x = null;
-  }
-  if (!x) return null;
-  const capRate = [...ws.loadRate];
-  const diodeCapDelta = zeros(m);
-  x.forEach((xd, j) => {
-    const capDelta = capDeltaOf.get(conducting[j] as number) as number[];
-    for (let c = 0; c < m; c += 1) {
-      capRate[c] = (capRate[c] as number) + xd * (capDelta[c] as number);
-      diodeCapDelta[c] = (diodeCapDelta[c] as number) + xd * (capDelta[c] as number);
-    }
-  });
-  return { capRate, nodeRate: nodeRatesOf(net, capRate), diodeCapDelta };
 }
 
 /** Per-event source loss and diode drop at a ladder current, from conduction time and charge. */

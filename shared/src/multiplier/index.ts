@@ -12,7 +12,7 @@ export type { PreparedLadder } from './analyze-ladder';
 export { buildLadderNetwork } from './topologies';
 export type { LadderNetwork } from './topologies';
 export { ladderCurves } from './ladder-curves';
-export { ladderStressChecks, bleederStressChecks, DERATING } from './ladder-stress';
+export { ladderStressChecks, bleederStressChecks, DERATING, STRESS_CHECK_IDS } from './ladder-stress';
 export { ENGINE_VERSION } from './engine-version';
 export type {
   LadderInput,

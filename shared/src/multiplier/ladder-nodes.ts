@@ -34,35 +34,54 @@ export function ladderNodeVoltages(
   terminal: TerminalFigures,
 ): LadderNodeVoltage[] {
   const { net, timing } = ws;
-  const instants = (n: number): { values: number[]; meanV: number } => {
-    const root = net.nodeRoot[n] as number;
-    const anchorA = ws.nodeA[root] as number;
-    const anchorB = ws.nodeB[root] as number;
-    const sumA = (ws.nodeA[n] as number) - anchorA;
-    const sumB = (ws.nodeB[n] as number) - anchorB;
-    const fallH = currentA * timing.afterHS * (ws.nodeRateH[n] as number);
-    const fallL = currentA * timing.afterLS * (ws.nodeRateL[n] as number);
-    // A sine winding end moves to the opposite extreme between transfers; a flat top holds until its edge.
-    const values = timing.isSine
-      ? [sumA + anchorA, sumA + fallH + anchorB, sumB + anchorB, sumB + fallL + anchorA]
-      : [sumA + anchorA, sumA + fallH + anchorA, sumB + anchorB, sumB + fallL + anchorB];
+  // The four instants of the cycle, per node, relative to the return node; no array or object per instant.
+  const { nodeA, nodeB, nodeRateH, nodeRateL } = ws;
+  const fallHS = currentA * timing.afterHS;
+  const fallLS = currentA * timing.afterLS;
+  const ret = net.returnNode;
+  const retRoot = net.nodeRoot[ret] as number;
+  const retAnchorA = nodeA[retRoot] as number;
+  const retAnchorB = nodeB[retRoot] as number;
+  const retSumA = (nodeA[ret] as number) - retAnchorA;
+  const retSumB = (nodeB[ret] as number) - retAnchorB;
+  const retFallH = fallHS * (nodeRateH[ret] as number);
+  const retFallL = fallLS * (nodeRateL[ret] as number);
+  const meanOf = (anchorA: number, anchorB: number, sumA: number, sumB: number, fallH: number, fallL: number) => {
     const sumMean = (timing.afterHS * (sumA + fallH / 2) + timing.afterLS * (sumB + fallL / 2)) / timing.periodS;
     const anchorMean = timing.isSine ? 0 : (timing.afterHS * anchorA + timing.afterLS * anchorB) / timing.periodS;
-    return { values, meanV: sumMean + anchorMean };
+    return sumMean + anchorMean;
   };
-  const ground = instants(net.returnNode);
+  const groundMeanV = meanOf(retAnchorA, retAnchorB, retSumA, retSumB, retFallH, retFallL);
+  // A sine winding end moves to the opposite extreme between transfers; a flat top holds until its edge.
+  const retAfterH = retSumA + retAnchorA;
+  const retBeforeL = retSumA + retFallH + (timing.isSine ? retAnchorB : retAnchorA);
+  const retAfterL = retSumB + retAnchorB;
+  const retBeforeH = retSumB + retFallL + (timing.isSine ? retAnchorA : retAnchorB);
   const nodes: LadderNodeVoltage[] = [];
   for (let n = 0; n < net.nodeCount; n += 1) {
-    if (n === net.returnNode) continue;
+    if (n === ret) continue;
     const info = net.nodeInfo[n];
     if (!info) continue;
-    const own = instants(n);
-    const relative = own.values.map((v, i) => v - (ground.values[i] as number));
-    const low = Math.min(...relative);
-    const high = Math.max(...relative);
+    const root = net.nodeRoot[n] as number;
+    const anchorA = nodeA[root] as number;
+    const anchorB = nodeB[root] as number;
+    const sumA = (nodeA[n] as number) - anchorA;
+    const sumB = (nodeB[n] as number) - anchorB;
+    const fallH = fallHS * (nodeRateH[n] as number);
+    const fallL = fallLS * (nodeRateL[n] as number);
+    const v0 = sumA + anchorA - retAfterH;
+    const v1 = sumA + fallH + (timing.isSine ? anchorB : anchorA) - retBeforeL;
+    const v2 = sumB + anchorB - retAfterL;
+    const v3 = sumB + fallL + (timing.isSine ? anchorA : anchorB) - retBeforeH;
+    const low = Math.min(v0, v1, v2, v3);
+    const high = Math.max(v0, v1, v2, v3);
     nodes.push({
-      ...info,
-      meanV: polarity * (own.meanV - ground.meanV),
+      id: info.id,
+      label: info.label,
+      column: info.column,
+      stage: info.stage,
+      capacitorIndex: info.capacitorIndex,
+      meanV: polarity * (meanOf(anchorA, anchorB, sumA, sumB, fallH, fallL) - groundMeanV),
       minV: polarity > 0 ? low : -high,
       maxV: polarity > 0 ? high : -low,
     });

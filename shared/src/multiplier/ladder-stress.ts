@@ -13,6 +13,15 @@ export const DERATING = {
   resistorPower: 0.5,
 } as const;
 
+/** Ids of the part checks, as the Checks panel and the spec sheet look them up (capacitors and diodes 1-based). */
+export const STRESS_CHECK_IDS = {
+  capacitorVoltage: (index: number): string => `cap-voltage-c${index}`,
+  diodePiv: (index: number): string => `diode-piv-d${index}`,
+  bleederVoltage: 'bleeder-voltage',
+  /** The first resistor's check in reports stored by engines that checked each bleeder resistor. */
+  bleederVoltageFirstResistor: 'bleeder-voltage-r1',
+} as const;
+
 const ratingRule = (what: string, factor: number): string =>
   `${what} against rating × ${factor} (derating, common practice, no source): pass at or below the derated figure, marginal up to the rating, fail above it`;
 
@@ -25,7 +34,7 @@ export function ladderStressChecks(analysis: LadderAnalysis, multiplier: Multipl
     checks.push(
       deratedVerdict(
         {
-          id: `cap-voltage-c${cap.index}`,
+          id: STRESS_CHECK_IDS.capacitorVoltage(cap.index),
           subject: `C${cap.index} (${cap.column}, stage ${cap.stage})`,
           rule: ratingRule('largest voltage over the cycle', DERATING.capacitorVoltage),
           value: cap.maxVoltageV,
@@ -41,7 +50,7 @@ export function ladderStressChecks(analysis: LadderAnalysis, multiplier: Multipl
     checks.push(
       deratedVerdict(
         {
-          id: `diode-piv-d${d.index}`,
+          id: STRESS_CHECK_IDS.diodePiv(d.index),
           subject: `D${d.index}`,
           rule: ratingRule('peak inverse voltage over the cycle', DERATING.diodePiv),
           value: d.peakInverseV,
@@ -80,7 +89,11 @@ export function ladderStressChecks(analysis: LadderAnalysis, multiplier: Multipl
   return checks;
 }
 
-/** Voltage and power of each resistor of the bleeder string (equal share of the ladder-top voltage). */
+/**
+ * Voltage and power of one resistor of the bleeder string: the resistors are equal and share the
+ * ladder-top voltage equally, so one verdict of each kind speaks for all `count` of them (its cost does
+ * not grow with the count).
+ */
 export function bleederStressChecks(
   bleeder: BleederString | null,
   ladderTopV: number,
@@ -89,35 +102,32 @@ export function bleederStressChecks(
   if (!bleeder) return [];
   const perResistorV = Math.abs(peakLadderTopV) / bleeder.count;
   const perResistorW = (Math.abs(ladderTopV) / bleeder.count) ** 2 / bleeder.valueOhm;
-  const checks: CheckVerdict[] = [];
-  for (let i = 1; i <= bleeder.count; i += 1) {
-    checks.push(
-      deratedVerdict(
-        {
-          id: `bleeder-voltage-r${i}`,
-          subject: `bleeder R${i} of ${bleeder.count}`,
-          rule: ratingRule(
-            'voltage across one resistor vs its limiting element voltage (IEC 60115-1 term)',
-            DERATING.resistorVoltage,
-          ),
-          value: perResistorV,
-          unit: 'V',
-        },
-        bleeder.limitingVoltageV,
-        DERATING.resistorVoltage,
-      ),
-      deratedVerdict(
-        {
-          id: `bleeder-power-r${i}`,
-          subject: `bleeder R${i} of ${bleeder.count}`,
-          rule: ratingRule('dissipation of one resistor', DERATING.resistorPower),
-          value: perResistorW,
-          unit: 'W',
-        },
-        bleeder.ratedPowerW,
-        DERATING.resistorPower,
-      ),
-    );
-  }
-  return checks;
+  const subject = bleeder.count === 1 ? 'bleeder resistor' : `each of the ${bleeder.count} bleeder resistors`;
+  return [
+    deratedVerdict(
+      {
+        id: STRESS_CHECK_IDS.bleederVoltage,
+        subject,
+        rule: ratingRule(
+          'voltage across one resistor vs its limiting element voltage (IEC 60115-1 term)',
+          DERATING.resistorVoltage,
+        ),
+        value: perResistorV,
+        unit: 'V',
+      },
+      bleeder.limitingVoltageV,
+      DERATING.resistorVoltage,
+    ),
+    deratedVerdict(
+      {
+        id: 'bleeder-power',
+        subject,
+        rule: ratingRule('dissipation of one resistor', DERATING.resistorPower),
+        value: perResistorW,
+        unit: 'W',
+      },
+      bleeder.ratedPowerW,
+      DERATING.resistorPower,
+    ),
+  ];
 }

@@ -1,6 +1,6 @@
 export { normalizePart, PART_KINDS, PART_FIELDS, REQUIRED_PART_FIELDS, PART_CODE_PATTERN } from './validate-part';
 export type { PartField } from './validate-part';
-export { neutraliseCsvCell } from './csv-cell';
+export { csvCellNeedsQuotes, neutraliseCsvCell } from './csv-cell';
 export { fillPartRatings, partReferences } from './fill-part-ratings';
 export type { ShelfPart } from './fill-part-ratings';
 export { bomCost } from './bom-cost';

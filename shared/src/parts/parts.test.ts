@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { designExamples } from '../designs';
 import { analyzeWithShelf } from './analyze-with-shelf';
 import { bomCost } from './bom-cost';
-import { neutraliseCsvCell } from './csv-cell';
+import { csvCellNeedsQuotes, neutraliseCsvCell } from './csv-cell';
 import { fillPartRatings, type ShelfPart } from './fill-part-ratings';
 import { shelfForSizer } from './shelf-for-sizer';
 import { normalizePart } from './validate-part';
@@ -119,11 +119,30 @@ describe('neutraliseCsvCell', () => {
     ['@cmd', "'@cmd"],
     ['\tx', "'\tx"],
     ['\rx', "'\rx"],
+    // Leading spaces and full-width signs (U+FF1D ＝, U+FF0B ＋, U+FF20 ＠) are formula starts too.
+    ['  =1+1', "'  =1+1"],
+    ['\uFF1DSUM(A1)', "'\uFF1DSUM(A1)"],
+    ['\uFF0B1', "'\uFF0B1"],
+    ['\uFF20cmd', "'\uFF20cmd"],
+    // A formula start after a separator that a ;-locale spreadsheet splits on is defused in place.
+    ['x;=cmd|x', "x;'=cmd|x"],
+    ['x; =1', "x; '=1"],
+    ['a,b;c', 'a,b;c'],
+    ['10 nF, -20 %', '10 nF, -20 %'],
     ['HV ceramic', 'HV ceramic'],
     [0.5, '0.5'],
     [null, ''],
   ] as const)('%j becomes %j', (input, output) => {
     expect(neutraliseCsvCell(input)).toBe(output);
+  });
+});
+
+describe('csvCellNeedsQuotes', () => {
+  it('quotes cells holding ; or a tab, and no others', () => {
+    expect(csvCellNeedsQuotes("x;'=cmd")).toBe(true);
+    expect(csvCellNeedsQuotes('a\tb')).toBe(true);
+    expect(csvCellNeedsQuotes('plain')).toBe(false);
+    expect(csvCellNeedsQuotes(3)).toBe(false);
   });
 });
 

@@ -1,7 +1,10 @@
+import type { BenchLossKind } from '../driver/driver-report';
 import { estimateBlockingOscillator } from '../driver/blocking-oscillator';
 import { DRIVER_NODES, buildDriverCircuit } from '../circuits/build-driver-circuit';
+import type { DriverStage } from '../designs/driver-stage.types';
+import { supplyThevenin } from '../driver/battery';
 import type { Design } from '../designs/design.types';
-import { DomainError } from '../errors';
+import { DomainError, isDomainError } from '../errors';
 import { analyzeDesign } from '../analysis/analyze-design';
 import {
   capacitorName,
@@ -9,13 +12,14 @@ import {
   ladderPartFromDesign,
   type LadderCircuitSpec,
 } from '../circuits/build-ladder-circuit';
-import type { Circuit } from '../sim/circuit.types';
+import type { Circuit, CircuitElement } from '../sim/circuit.types';
 import { followLadderDischarge, type LadderRunResult, type PlotTrace } from './ladder-runs';
 import { EnergyMeter, type EnergyAccount } from '../sim/energy-meter';
 import { MnaSystem } from '../sim/mna-system';
 import { SampleBuffer } from '../sim/sample-buffer';
 import { TransientStepper } from '../sim/transient';
-import { downsampleMinMax, risingCrossings, windowMean, windowPeakToPeak } from '../sim/waveform-measures';
+import { oscillationFigures, readSettlingTimes, TurnOnTrigger } from '../sim/oscillation-measures';
+import { downsampleMinMax, windowExtremes, windowMean } from '../sim/waveform-measures';
 
 export interface DriverRunOptions {
   /**
@@ -56,15 +60,38 @@ export interface DriverWaveforms {
   primaryA: PlotTrace;
 }
 
+/** Loss kinds of a driver circuit's elements (see lossKindOf), W each in DriverFigures.lossesW; the estimate groups its losses the same way. */
+export type DriverLossKind = BenchLossKind;
+
+/** Bench figures over whole oscillation cycles at the end of a run (SI units; efficiency 0–1). */
+export interface DriverFigures {
+  cycles: number;
+  oscillationFrequencyHz: number;
+  dutyOnFraction: number;
+  primaryCurrentPeakA: number;
+  collectorVoltagePeakV: number;
+  secondaryVoltagePeakPositiveV: number;
+  secondaryVoltagePeakNegativeV: number;
+  inputPowerW: number;
+  /** Power into the load at the output terminal (the bleeder and output resistor are losses). */
+  outputPowerW: number;
+  efficiency: number;
+  lossesW: Partial<Record<DriverLossKind, number>>;
+}
+
 export interface DriverRunResult extends LadderRunResult {
   start: 'warm' | 'cold';
+  /** Why a warm start fell back to a cold one (the engine's estimate failed), else null. */
+  warmStartFallback: string | null;
+  /** Figures over whole cycles of the final waveforms; null when fewer than one whole cycle was seen. */
+  figures: DriverFigures | null;
   /** Whether the settling criterion was met (false: a fixed window, or the cycle budget ran out). */
   isSettled: boolean;
   /** Capacitor voltages the run started from (design order), V. */
   initialCapacitorVoltagesV: number[];
   /** How often the slow charging mode was extrapolated (see runDriverDesign). */
   extrapolations: number;
-  /** Mean oscillation frequency over the last window, from the collector's rising crossings of the supply. */
+  /** Oscillation frequency over whole cycles of the final waveforms, from the transistor's turn-on events. */
   oscillationFrequencyHz: number | null;
   /** Energy drawn from the supply, dissipated per element and stored, since the start or the last extrapolation (before any discharge). */
   energy: EnergyAccount;
@@ -105,6 +132,85 @@ export function driverDesignCircuit(design: Design, initialCapacitorVoltagesV: R
 }
 
 /**
+ * A first guess of the oscillation period (s), for step sizes and time-outs: the engine's estimate, or
+ * when that refuses the design, twice the time the primary current takes to ramp to the core's saturation
+ * current from the supply's open-circuit voltage (ramp and an equal flyback).
+ */
+export function driverPeriodGuessS(driver: DriverStage): number {
+  try {
+    const f = estimateBlockingOscillator(driver).frequencyHz.value;
+    if (f > 0 && Number.isFinite(f)) return 1 / f;
+  } catch (error) {
+    if (!isDomainError(error)) throw error;
+  }
+  const { openCircuitV } = supplyThevenin(driver.supply, 1);
+  return (
+    (2 * driver.transformer.primaryInductanceH * driver.transformer.saturationCurrentA) / Math.max(openCircuitV, 1e-3)
+  );
+}
+
+/** Loss kind of a driver circuit element by its name (build-driver-circuit.ts, build-circuit.ts); null for the load. */
+export function lossKindOf(element: CircuitElement): DriverLossKind | null {
+  const name = element.name;
+  if (name === 'Rload' || name === 'Iload') return null;
+  if (element.kind === 'npn') return 'transistor';
+  if (element.kind === 'coupled-inductors' || element.kind === 'inductor') return 'windingCopper';
+  if (name === 'Dz' || name === 'Dc' || name === 'Rclp') return 'clamp';
+  if (name === 'Rsn') return 'snubber';
+  if (name === 'Rb') return 'baseResistor';
+  if (name === 'Rcol') return 'collectorResistor';
+  if (name === 'Rsrc') return 'supplyResistance';
+  if (name === 'Rbleed') return 'bleeder';
+  if (name === 'Rout') return 'outputResistor';
+  if (name === 'Ilamp') return 'indicatorLamp';
+  if (element.kind === 'diode') return 'ladderDiodes';
+  return 'other';
+}
+
+/** Bench figures of whole cycles (oscillation-measures.ts) with the power account of the same span. */
+function driverFigures(
+  circuit: Circuit,
+  timeS: ReadonlyArray<number>,
+  wave: { out: number[]; col: number[]; sec: number[]; pri: number[]; vcc: number[] },
+  energy: EnergyAccount,
+  spanS: number,
+): DriverFigures | null {
+  const osc = oscillationFigures(
+    timeS,
+    wave.pri,
+    wave.col.map((v, i) => v - wave.vcc[i]!),
+    wave.out,
+  );
+  if (!osc || !(spanS > 0)) return null;
+  const col = windowExtremes(timeS, wave.col, osc.fromS, osc.toS);
+  const sec = windowExtremes(timeS, wave.sec, osc.fromS, osc.toS);
+  const lossesW: Partial<Record<DriverLossKind, number>> = {};
+  let outputJ = 0;
+  for (const e of circuit.elements) {
+    const j = energy.dissipatedJ[e.name];
+    if (j === undefined) continue;
+    const kind = lossKindOf(e);
+    if (kind === null) outputJ += j;
+    else lossesW[kind] = (lossesW[kind] ?? 0) + j / spanS;
+  }
+  const inputPowerW = energy.suppliedJ / spanS;
+  const outputPowerW = outputJ / spanS;
+  return {
+    cycles: osc.cycles,
+    oscillationFrequencyHz: osc.frequencyHz,
+    dutyOnFraction: osc.dutyOnFraction,
+    primaryCurrentPeakA: osc.primaryCurrentPeakA,
+    collectorVoltagePeakV: col.max,
+    secondaryVoltagePeakPositiveV: sec.max,
+    secondaryVoltagePeakNegativeV: sec.min,
+    inputPowerW,
+    outputPowerW,
+    efficiency: inputPowerW > 0 ? outputPowerW / inputPowerW : 0,
+    lossesW,
+  };
+}
+
+/**
  * A design driven by its blocking oscillator (driver + transformer + ladder), by transient simulation. A
  * self-oscillating circuit has no period known in advance, so there is no shooting (method 'transient').
  *
@@ -127,10 +233,21 @@ export function driverDesignCircuit(design: Design, initialCapacitorVoltagesV: R
 export function runDriverDesign(design: Design, options: DriverRunOptions = {}): DriverRunResult {
   if (design.drive.kind !== 'driver')
     throw new DomainError('invalid_design', 'runDriverDesign needs a driver drive', 'drive.kind');
-  const start = options.start ?? 'warm';
-  const estimatePeriodS = 1 / estimateBlockingOscillator(design.drive.driver).frequencyHz.value;
+  let start = options.start ?? 'warm';
+  const estimatePeriodS = driverPeriodGuessS(design.drive.driver);
   const capsF = design.multiplier.capacitors.map((c) => c.valueF);
-  const initialV = start === 'warm' ? engineCapacitorVoltagesV(design) : capsF.map(() => 0);
+  let initialV = capsF.map(() => 0);
+  let warmStartFallback: string | null = null;
+  if (start === 'warm') {
+    // The engine may refuse a design that the circuit runs (its closed form has limits): start cold then.
+    try {
+      initialV = engineCapacitorVoltagesV(design);
+    } catch (error) {
+      if (!isDomainError(error) || error.code === 'cancelled') throw error;
+      warmStartFallback = `the engine's steady-state estimate failed (${error.message}); started cold`;
+      start = 'cold';
+    }
+  }
   const circuit = driverDesignCircuit(design, initialV);
   const system = new MnaSystem(circuit);
   const stepper = new TransientStepper(system, { maxStepS: options.maxStepS ?? estimatePeriodS / 200 });
@@ -168,7 +285,6 @@ export function runDriverDesign(design: Design, options: DriverRunOptions = {}):
 
   const time = new SampleBuffer();
   const topV = new SampleBuffer();
-  let colWindow = { time: new SampleBuffer(), values: new SampleBuffer() };
   const means: number[] = [];
   let capMeans: number[][] = [];
   let sinceJump = 0;
@@ -178,7 +294,11 @@ export function runDriverDesign(design: Design, options: DriverRunOptions = {}):
   let reachedAtS: number | null = null;
   let prevT = 0;
   let prevV = system.x[top]!;
-  let prevCol = system.x[collector]! - system.x[supply]!;
+  const trigger = new TurnOnTrigger(design.drive.driver.transformer.saturationCurrentA, 3 * estimatePeriodS);
+  let lastTurnOnS = NaN;
+  let windowFirstTurnOnS: number;
+  let windowTurnOns: number;
+  let lastWindowFrequencyHz: number | null = null;
   let windowIndex = 0;
   let windowStartS = 0;
   let area = 0;
@@ -188,8 +308,9 @@ export function runDriverDesign(design: Design, options: DriverRunOptions = {}):
   while (stepper.timeS < maxTimeS * (1 - 1e-12) && !isSettled) {
     windowIndex++;
     const end = Math.min(windowIndex * windowS, maxTimeS);
-    colWindow = { time: new SampleBuffer(), values: new SampleBuffer() };
-    // A window closes at the first rising crossing of the collector through the supply after `end`, so
+    windowFirstTurnOnS = NaN;
+    windowTurnOns = 0;
+    // A window closes at the first turn-on of the transistor after `end` (see oscillation-measures.ts), so
     // each window mean is a mean over whole oscillation periods (the cycle mean); a fixed window closes at `end`.
     let closedAtS: number | null = null;
     while (closedAtS === null) {
@@ -202,11 +323,16 @@ export function runDriverDesign(design: Design, options: DriverRunOptions = {}):
       }
       meter.record(stepper.timeS);
       const v = system.x[top]!;
-      const col = system.x[collector]! - system.x[supply]!;
       const dt = stepper.timeS - prevT;
-      const isCrossing = stepper.timeS >= end * (1 - 1e-12) && prevCol < 0 && col >= 0 && !isFixedWindow;
-      // Fraction of this step before the crossing (linear interpolation of the collector).
-      const before = isCrossing ? -prevCol / (col - prevCol) : 1;
+      const fired = trigger.push(stepper.timeS, system.x[primary]!, system.x[collector]! - system.x[supply]!);
+      if (!Number.isNaN(fired)) {
+        lastTurnOnS = fired;
+        if (Number.isNaN(windowFirstTurnOnS)) windowFirstTurnOnS = fired;
+        else windowTurnOns++;
+      }
+      const isCrossing = stepper.timeS >= end * (1 - 1e-12) && !Number.isNaN(fired) && !isFixedWindow;
+      // Fraction of this step before the turn-on (interpolated by the trigger).
+      const before = isCrossing ? (fired - prevT) / dt : 1;
       const vAt = prevV + (v - prevV) * before;
       area += 0.5 * (vAt + prevV) * dt * before;
       capIndex.forEach((k, i) => {
@@ -214,8 +340,6 @@ export function runDriverDesign(design: Design, options: DriverRunOptions = {}):
       });
       time.push(stepper.timeS);
       topV.push(v);
-      colWindow.time.push(stepper.timeS);
-      colWindow.values.push(col);
       if (
         isCrossing ||
         (isFixedWindow && stepper.timeS >= end * (1 - 1e-12)) ||
@@ -231,8 +355,8 @@ export function runDriverDesign(design: Design, options: DriverRunOptions = {}):
       }
       prevT = stepper.timeS;
       prevV = v;
-      prevCol = col;
     }
+    if (windowTurnOns > 0) lastWindowFrequencyHz = windowTurnOns / (lastTurnOnS - windowFirstTurnOnS);
     sinceJump++;
     const mean = means[means.length - 1]!;
     if (isFixedWindow) {
@@ -280,39 +404,67 @@ export function runDriverDesign(design: Design, options: DriverRunOptions = {}):
     }
   }
   const finalMean = means[means.length - 1]!;
-  if (start === 'cold') {
-    const firstAt = means.findIndex((m) => Math.abs(m) >= 0.9 * Math.abs(finalMean));
-    reachedAtS = firstAt >= 0 ? Math.min((firstAt + 1) * windowS, maxTimeS) : null;
+  if (start === 'cold' && isSettled) {
+    // Window means at their closing times; 90 % of the settled mean, interpolated (never the window length).
+    const closes = means.map((_, i) => Math.min((i + 1) * windowS, maxTimeS));
+    reachedAtS = readSettlingTimes(closes, means, finalMean).to90S;
   }
-  const crossings = risingCrossings(colWindow.time.toArray(), colWindow.values.toArray(), 0);
-  const frequencyHz =
-    crossings.length >= 3 ? (crossings.length - 1) / (crossings[crossings.length - 1]! - crossings[0]!) : null;
   const energy = meter.account();
   const t = time.toArray();
   const v = topV.toArray();
   report(weights.run, true);
 
-  // A few oscillation periods at full resolution: output, collector, secondary, primary current.
-  const lastPeriodS = frequencyHz ? 1 / frequencyHz : estimatePeriodS;
-  const waveEndS = stepper.timeS + (options.waveformPeriods ?? 4) * lastPeriodS;
+  // Whole oscillation cycles at full resolution: output, collector, secondary, primary current, from one
+  // turn-on to the `waveformPeriods`-th after it, with their own energy account.
+  const cyclesWanted = options.waveformPeriods ?? 4;
+  const lastPeriodS = lastWindowFrequencyHz ? 1 / lastWindowFrequencyHz : estimatePeriodS;
+  const giveUpS = stepper.timeS + (cyclesWanted + 2) * 3 * Math.max(lastPeriodS, estimatePeriodS);
   const waveT: number[] = [];
-  const wave = { out: [] as number[], col: [] as number[], sec: [] as number[], pri: [] as number[] };
+  const wave = {
+    out: [] as number[],
+    col: [] as number[],
+    sec: [] as number[],
+    pri: [] as number[],
+    vcc: [] as number[],
+  };
   const sample = (): void => {
     waveT.push(stepper.timeS);
+    wave.vcc.push(system.x[supply]!);
     wave.out.push(system.x[top]!);
     wave.col.push(system.x[collector]!);
     wave.sec.push(system.x[secondary]!);
     wave.pri.push(system.x[primary]!);
   };
-  sample();
-  while (stepper.timeS < waveEndS * (1 - 1e-12)) {
+  let cycleMeter: EnergyMeter | null = null;
+  let cycleFromS = NaN;
+  let cyclesSeen = -1;
+  while (cyclesSeen < cyclesWanted && stepper.timeS < giveUpS) {
     checkCancel();
-    stepper.step(waveEndS);
+    stepper.step();
+    if (cycleMeter) cycleMeter.record(stepper.timeS);
     sample();
+    if (Number.isNaN(trigger.push(stepper.timeS, system.x[primary]!, system.x[collector]! - system.x[supply]!)))
+      continue;
+    cyclesSeen++;
+    if (cyclesSeen === 0) {
+      cycleMeter = new EnergyMeter(circuit, system);
+      cycleMeter.record(stepper.timeS);
+      cycleFromS = stepper.timeS;
+    }
   }
-  const rippleFromS = waveEndS - lastPeriodS;
-  const ripple = windowPeakToPeak(waveT, wave.out, rippleFromS, waveEndS);
-  const i0 = waveT.findIndex((x) => x >= rippleFromS);
+  const figures =
+    cycleMeter && cyclesSeen > 0
+      ? driverFigures(circuit, waveT, wave, cycleMeter.account(), stepper.timeS - cycleFromS)
+      : null;
+  const frequencyHz = figures?.oscillationFrequencyHz ?? null;
+  const measured = oscillationFigures(
+    waveT,
+    wave.pri,
+    wave.col.map((v, i) => v - wave.vcc[i]!),
+    wave.out,
+  );
+  const ripple = measured?.ripplePeakToPeak ?? Math.max(...wave.out) - Math.min(...wave.out);
+  const i0 = measured ? waveT.findIndex((x) => x >= measured.toS - 1 / measured.frequencyHz) : 0;
   report(weights.run + weights.waves, true);
 
   let discharge: LadderRunResult['discharge'] = null;
@@ -345,6 +497,8 @@ export function runDriverDesign(design: Design, options: DriverRunOptions = {}):
   return {
     method: 'transient',
     start,
+    warmStartFallback,
+    figures,
     isSettled,
     initialCapacitorVoltagesV: initialV,
     extrapolations,

@@ -58,6 +58,24 @@ export interface Winding {
   initialCurrentA?: number;
 }
 
+/** Coupling coefficient of one pair of windings, by winding name. */
+export interface WindingCoupling {
+  windingA: string;
+  windingB: string;
+  coefficient: number;
+}
+
+/**
+ * A saturating core, referred to the first winding: its magnetizing inductance at zero current (the
+ * linear model's k·L1), its saturation current, and its inductance in deep saturation (about the air-core
+ * value). The magnetizing current is Σ n_j·i_j with the turns ratios n_j = √(L_j/L_1).
+ */
+export interface SaturableCore {
+  magnetizingInductanceH: number;
+  saturationCurrentA: number;
+  saturatedInductanceH: number;
+}
+
 export type CircuitElement =
   | { kind: 'resistor'; name: string; nodeA: string; nodeB: string; resistanceOhm: number }
   | { kind: 'capacitor'; name: string; nodeA: string; nodeB: string; capacitanceF: number; initialVoltageV?: number }
@@ -70,8 +88,18 @@ export type CircuitElement =
       resistanceOhm?: number;
       initialCurrentA?: number;
     }
-  /** Windings on one core, every pair coupled with `couplingCoefficient` (0 < k ≤ 1, < 1 in practice). */
-  | { kind: 'coupled-inductors'; name: string; windings: ReadonlyArray<Winding>; couplingCoefficient: number }
+  /**
+   * Windings on one core, every pair coupled with `couplingCoefficient` (0 < k ≤ 1, < 1 in practice) unless
+   * `couplings` names the pair; with `core` the core saturates (devices/saturable-core.ts).
+   */
+  | {
+      kind: 'coupled-inductors';
+      name: string;
+      windings: ReadonlyArray<Winding>;
+      couplingCoefficient: number;
+      couplings?: ReadonlyArray<WindingCoupling>;
+      core?: SaturableCore;
+    }
   | { kind: 'voltage-source'; name: string; nodePlus: string; nodeMinus: string; waveform: SourceWaveform }
   /** Current flows from nodePlus through the source to nodeMinus (SPICE convention). */
   | { kind: 'current-source'; name: string; nodePlus: string; nodeMinus: string; waveform: SourceWaveform }

@@ -21,6 +21,29 @@ export interface SwitchStamp {
   events: ReadonlyArray<{ timeS: number; isClosed: boolean }>;
 }
 
+/** Whether each switch is closed just after timeS (an event at exactly timeS applies to later times), as a key of '1' (closed) and '0' (open), one per switch. */
+export function switchStatesAt(switches: ReadonlyArray<SwitchStamp>, timeS: number): string {
+  let key = '';
+  for (const s of switches) {
+    let closed = s.initial;
+    for (const ev of s.events) if (ev.timeS < timeS) closed = ev.isClosed;
+    key += closed ? '1' : '0';
+  }
+  return key;
+}
+
+/** Adds each switch's on or off conductance (by its state in `key`, see switchStatesAt) to a band. */
+export function addSwitchConductances(band: Float64Array, switches: ReadonlyArray<SwitchStamp>, key: string): void {
+  for (let i = 0; i < switches.length; i++) {
+    const s = switches[i]!;
+    const gs = key[i] === '1' ? s.onS : s.offS;
+    band[s.offsets[0]!]! += gs;
+    band[s.offsets[1]!]! += gs;
+    band[s.offsets[2]!]! -= gs;
+    band[s.offsets[3]!]! -= gs;
+  }
+}
+
 /**
  * The reactive quantities of a system as they are registered: incidence (+1 at rowA, −1 at rowB), the
  * gradient dq/dx in CSR form, and the initial charge or flux.
@@ -128,7 +151,7 @@ export function stampLinearElement(
       break;
     }
     case 'coupled-inductors': {
-      const m = inductanceMatrix(e.windings, e.couplingCoefficient, path);
+      const m = inductanceMatrix(e, path);
       const n = e.windings.length;
       const branches = e.windings.map((w) => ordering.branchAt(`${e.name}.${w.name}`));
       e.windings.forEach((w, i) => {

@@ -1,6 +1,7 @@
 import type { Circuit, CircuitElement } from './circuit.types';
 import { evaluateNpn, type NpnOperatingPoint } from './devices/bjt';
 import { inductanceMatrix } from './devices/coupled-inductors';
+import { coreCorrectionEnergyJ } from './devices/saturable-core';
 import { evaluateDiode, seriesDiodeCurrentA, type DiodeOperatingPoint } from './devices/diode';
 import type { MnaSystem } from './mna-system';
 import { waveformValue } from './source-waveforms';
@@ -50,8 +51,7 @@ export class EnergyMeter {
     this.lastPower = new Float64Array(this.elements.length);
     this.scratch = new Float64Array(this.elements.length);
     for (const e of this.elements) {
-      if (e.kind === 'coupled-inductors')
-        this.inductances.set(e.name, inductanceMatrix(e.windings, e.couplingCoefficient, e.name));
+      if (e.kind === 'coupled-inductors') this.inductances.set(e.name, inductanceMatrix(e, e.name));
     }
   }
 
@@ -74,6 +74,11 @@ export class EnergyMeter {
         const n = e.windings.length;
         const i = e.windings.map((w) => this.branch(`${e.name}.${w.name}`));
         for (let a = 0; a < n; a++) for (let b = 0; b < n; b++) sum += 0.5 * m[a * n + b]! * i[a]! * i[b]!;
+        if (e.core) {
+          const l1 = e.windings[0]!.inductanceH;
+          const im = e.windings.reduce((acc, w, k) => acc + Math.sqrt(w.inductanceH / l1) * i[k]!, 0);
+          sum += coreCorrectionEnergyJ(e.core, im);
+        }
       }
     }
     return sum;

@@ -7,16 +7,19 @@ import { DiodeInstance, hasInternalNode, isFolded } from './devices/diode-instan
 import { FoldedDiodes, type FoldedDiodeSpec } from './devices/folded-diodes';
 import type { AddReactive } from './devices/junction-stamp';
 import { NpnInstance } from './devices/npn-instance';
+import { SaturableCoreInstance } from './devices/saturable-core';
 import {
   addConductance,
   positiveValue,
   ReactiveTable,
   stampLinearElement,
+  switchStatesAt,
+  addSwitchConductances,
   type SourceStamp,
   type SwitchStamp,
 } from './element-stamps';
 import { BandedLu } from './solver/banded-lu';
-import { nextWaveformBreakpoint, waveformValue } from './source-waveforms';
+import { commonPeriodS, nextWaveformBreakpoint, waveformValue } from './source-waveforms';
 import { orderUnknowns } from './unknown-ordering';
 
 /**
@@ -68,6 +71,7 @@ export class MnaSystem {
   private readonly diodes: DiodeInstance[] = [];
   private readonly folded: FoldedDiodes;
   private readonly npns: NpnInstance[] = [];
+  private readonly cores: SaturableCoreInstance[] = [];
   private readonly diodeOut: DiodeOperatingPoint = { currentA: 0, conductanceS: 0 };
   private readonly npnOut: NpnOperatingPoint = {
     collectorA: 0,
@@ -151,6 +155,35 @@ export class MnaSystem {
             ),
           );
           break;
+        case 'coupled-inductors': {
+          stampLinearElement(e, path, ordering, targets);
+          const core = e.core;
+          if (!core) break;
+          positiveValue(core.saturationCurrentA, `${path}.core.saturationCurrentA`);
+          positiveValue(core.saturatedInductanceH, `${path}.core.saturatedInductanceH`);
+          if (!(core.magnetizingInductanceH > core.saturatedInductanceH))
+            throw new DomainError(
+              'invalid_argument',
+              'must exceed the saturated inductance',
+              `${path}.core.magnetizingInductanceH`,
+            );
+          const l1 = e.windings[0]!.inductanceH;
+          deferred.push(() =>
+            this.cores.push(
+              new SaturableCoreInstance(
+                e.name,
+                e.windings.map((w) => w.name),
+                core,
+                Int32Array.from(e.windings, (w) => ordering.branchAt(`${e.name}.${w.name}`)),
+                Float64Array.from(e.windings, (w) => Math.sqrt(w.inductanceH / l1)),
+                size,
+                lu,
+                addReactive,
+              ),
+            ),
+          );
+          break;
+        }
         default:
           stampLinearElement(e, path, ordering, targets);
       }
@@ -180,20 +213,9 @@ export class MnaSystem {
     return index;
   }
 
-  /** Whether each switch is closed just after timeS (an event at exactly timeS applies to later times). */
-  private switchKeyAt(timeS: number): string {
-    let key = '';
-    for (const s of this.switches) {
-      let closed = s.initial;
-      for (const ev of s.events) if (ev.timeS < timeS) closed = ev.isClosed;
-      key += closed ? '1' : '0';
-    }
-    return key;
-  }
-
   /** Builds G + a0·C for a step ending at timeS (switch states as they are during that step). */
   prepareLinearMatrix(a0: number, stepEndS: number): void {
-    const key = this.switchKeyAt(stepEndS);
+    const key = switchStatesAt(this.switches, stepEndS);
     // Same step length and switch states as the last call (the usual case at the maximum step): unchanged.
     if (a0 === this.preparedA0 && key === this.preparedKey) return;
     this.preparedA0 = a0;
@@ -202,14 +224,7 @@ export class MnaSystem {
     const gb = this.conductanceBand;
     const cb = this.reactanceBand;
     for (let i = 0; i < lb.length; i++) lb[i] = gb[i]! + a0 * cb[i]!;
-    for (let i = 0; i < this.switches.length; i++) {
-      const s = this.switches[i]!;
-      const gs = key[i] === '1' ? s.onS : s.offS;
-      lb[s.offsets[0]!]! += gs;
-      lb[s.offsets[1]!]! += gs;
-      lb[s.offsets[2]!]! -= gs;
-      lb[s.offsets[3]!]! -= gs;
-    }
+    addSwitchConductances(lb, this.switches, key);
   }
 
   /** Earliest source corner or switch event strictly after timeS. */
@@ -227,23 +242,9 @@ export class MnaSystem {
     return false;
   }
 
-  /**
-   * The period every time-varying source repeats with (sine 1/f, pulse its period), or NaN when there is
-   * none, a source does not repeat (piecewise-linear) or two sources repeat differently.
-   */
+  /** The period every time-varying source repeats with, or NaN (see commonPeriodS). */
   sourcePeriodS(): number {
-    let period = NaN;
-    for (const { waveform: w } of this.sources) {
-      let p: number;
-      if (w.kind === 'dc') continue;
-      else if (w.kind === 'sine') p = w.frequencyHz > 0 ? 1 / w.frequencyHz : NaN;
-      else if (w.kind === 'pulse') p = w.periodS > 0 ? w.periodS : NaN;
-      else return NaN;
-      if (!(p > 0)) return NaN;
-      if (Number.isNaN(period)) period = p;
-      else if (Math.abs(p - period) > 1e-12 * period) return NaN;
-    }
-    return period;
+    return commonPeriodS(this.sources.map((s) => s.waveform));
   }
 
   /** Right-hand side of a step ending at timeS: source values and Σ incidence·hist (hist must be set). */
@@ -303,6 +304,7 @@ export class MnaSystem {
           this.npnOut,
           this.chargeOut,
         ) || limited;
+    for (const k of this.cores) k.load(this.x, band, this.rhs, a0, this.charge, this.gradientValue, this.gradientStart);
     band[this.lu.groundOffset] = 0;
     return limited;
   }
@@ -312,6 +314,8 @@ export class MnaSystem {
     if (!this.folded.isConverged(x, relative, absoluteA)) return false;
     for (const d of this.diodes) if (!d.isConverged(x, relative, absoluteA)) return false;
     for (const q of this.npns) if (!q.isConverged(x, relative, absoluteA)) return false;
+    // Flux tolerance: the current tolerance through a millihenry (far below any winding's flux of note).
+    for (const k of this.cores) if (!k.isConverged(x, relative, absoluteA * 1e-3)) return false;
     return true;
   }
 

@@ -68,3 +68,22 @@ export function nextWaveformBreakpoint(w: SourceWaveform, afterS: number): numbe
     }
   }
 }
+
+/**
+ * The period every time-varying waveform repeats with (sine 1/f, pulse its period), or NaN when there is
+ * none, a waveform does not repeat (piecewise-linear) or two repeat differently.
+ */
+export function commonPeriodS(waveforms: ReadonlyArray<SourceWaveform>): number {
+  let period = NaN;
+  for (const w of waveforms) {
+    let p: number;
+    if (w.kind === 'dc') continue;
+    else if (w.kind === 'sine') p = w.frequencyHz > 0 ? 1 / w.frequencyHz : NaN;
+    else if (w.kind === 'pulse') p = w.periodS > 0 ? w.periodS : NaN;
+    else return NaN;
+    if (!(p > 0)) return NaN;
+    if (Number.isNaN(period)) period = p;
+    else if (Math.abs(p - period) > 1e-12 * period) return NaN;
+  }
+  return period;
+}

@@ -1,4 +1,6 @@
 import type { Circuit, DiodeModel, NpnModel, SourceWaveform } from './circuit.types';
+import { inductanceMatrix } from './devices/coupled-inductors';
+import { coreFluxCorrectionSpice } from './devices/saturable-core';
 
 export interface SpiceExportOptions {
   /** Adds `.tran` with this step and stop time (and `uic` when starting from element initial conditions). */
@@ -91,14 +93,36 @@ export function toSpiceNetlist(circuit: Circuit, options: SpiceExportOptions = {
       }
       case 'coupled-inductors': {
         const names = e.windings.map((w) => `L${id}_${safe(w.name)}`);
+        const core = e.core;
+        const l1 = e.windings[0]!.inductanceH;
+        const turns = e.windings.map((w) => Math.sqrt(w.inductanceH / l1));
         e.windings.forEach((w, i) => {
-          const mid = w.resistanceOhm > 0 ? `${id}_${safe(w.name)}_r` : node(w.nodeB);
-          lines.push(`${names[i]} ${node(w.nodeA)} ${mid} ${n(w.inductanceH)} IC=${n(w.initialCurrentA ?? 0)}`);
-          if (w.resistanceOhm > 0) lines.push(`RW${id}_${safe(w.name)} ${mid} ${node(w.nodeB)} ${n(w.resistanceOhm)}`);
+          const wid = `${id}_${safe(w.name)}`;
+          let at = w.resistanceOhm > 0 || core ? `${wid}_r` : node(w.nodeB);
+          lines.push(`${names[i]} ${node(w.nodeA)} ${at} ${n(w.inductanceH)} IC=${n(w.initialCurrentA ?? 0)}`);
+          if (core) {
+            // The core's nonlinear flux n_i·Φc(i_m): a behavioural source n_i·dΦc/dt in series, and a 0 V
+            // source that senses the winding current for i_m (see the flux node below).
+            const next = w.resistanceOhm > 0 ? `${wid}_s` : node(w.nodeB);
+            lines.push(`B${wid}_core ${at} ${wid}_c V=${n(turns[i]!)}*V(${id}_phi)`);
+            lines.push(`V${wid}_sense ${wid}_c ${next} DC 0`);
+            at = next;
+          }
+          if (w.resistanceOhm > 0) lines.push(`RW${wid} ${at} ${node(w.nodeB)} ${n(w.resistanceOhm)}`);
         });
-        for (let i = 0; i < names.length; i++) {
-          for (let j = i + 1; j < names.length; j++)
-            lines.push(`K${id}_${i}_${j} ${names[i]} ${names[j]} ${n(e.couplingCoefficient)}`);
+        const m = inductanceMatrix(e, e.name);
+        const count = names.length;
+        for (let i = 0; i < count; i++) {
+          for (let j = i + 1; j < count; j++) {
+            const k = m[i * count + j]! / Math.sqrt(e.windings[i]!.inductanceH * e.windings[j]!.inductanceH);
+            lines.push(`K${id}_${i}_${j} ${names[i]} ${names[j]} ${n(k)}`);
+          }
+        }
+        if (core) {
+          // Flux formulation: a behavioural current Φc(i_m) through a 1 H inductor, whose voltage is dΦc/dt.
+          const im = e.windings.map((w, i) => `${n(turns[i]!)}*i(V${id}_${safe(w.name)}_sense)`).join('+');
+          lines.push(`B${id}_phi 0 ${id}_phi I=${coreFluxCorrectionSpice(core, im, n)}`);
+          lines.push(`L${id}_phi ${id}_phi 0 1 IC=0`);
         }
         break;
       }

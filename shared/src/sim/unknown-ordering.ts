@@ -18,11 +18,11 @@ export interface UnknownOrdering {
   /** Internal junction node of each diode with series resistance and junction charge, by element name. */
   internalIndex: Map<string, number>;
   /** Position of the branch current of element `name` (a winding is `name.winding`). */
-  branchAt(name: string): number;
+  branchAt: (name: string) => number;
   /** Position of a node voltage; the ground (and a node no element touches) is `size`. */
-  nodeAt(node: string): number;
+  nodeAt: (node: string) => number;
   /** Position of the junction node of a diode: its internal node, or its anode. */
-  junctionAt(e: Extract<CircuitElement, { kind: 'diode' }>): number;
+  junctionAt: (e: Extract<CircuitElement, { kind: 'diode' }>) => number;
 }
 
 /** Orders the unknowns of a list of elements (see UnknownOrdering). */

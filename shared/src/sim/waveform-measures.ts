@@ -16,6 +16,24 @@ export function windowMean(timeS: ArrayLike<number>, values: ArrayLike<number>, 
   return span > 0 ? area / span : NaN;
 }
 
+/** Largest and smallest sample within [fromS, toS]. */
+export function windowExtremes(
+  timeS: ArrayLike<number>,
+  values: ArrayLike<number>,
+  fromS: number,
+  toS: number,
+): { min: number; max: number } {
+  let min = Infinity;
+  let max = -Infinity;
+  for (let i = 0; i < timeS.length; i++) {
+    const t = timeS[i]!;
+    if (t < fromS || t > toS) continue;
+    min = Math.min(min, values[i]!);
+    max = Math.max(max, values[i]!);
+  }
+  return { min, max };
+}
+
 /** Peak-to-peak of the samples within [fromS, toS]. */
 export function windowPeakToPeak(
   timeS: ArrayLike<number>,
@@ -23,15 +41,8 @@ export function windowPeakToPeak(
   fromS: number,
   toS: number,
 ): number {
-  let lo = Infinity;
-  let hi = -Infinity;
-  for (let i = 0; i < timeS.length; i++) {
-    const t = timeS[i]!;
-    if (t < fromS || t > toS) continue;
-    lo = Math.min(lo, values[i]!);
-    hi = Math.max(hi, values[i]!);
-  }
-  return hi - lo;
+  const { min, max } = windowExtremes(timeS, values, fromS, toS);
+  return max - min;
 }
 
 /** Times (linearly interpolated) at which the signal rises through `level`, after fromS. */

@@ -10,3 +10,10 @@ export type {
 export { toleranceSpread } from './tolerance-spread';
 export type { ToleranceSpreadRequest, ToleranceSpreadResult, SpreadStatistics, HistogramBin } from './tolerance-spread';
 export { mulberry32, normalFrom } from './seeded-random';
+export {
+  sizeDriverSupply,
+  designOf as driverSizerDesign,
+  DRIVER_SIZER_DEFAULTS,
+  DRIVER_SIZER_METHOD,
+} from './size-driver-supply';
+export type { DriverSizerCandidate, DriverSizerRequest, DriverSizerResult } from './size-driver-supply';

@@ -3,6 +3,7 @@ import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { designExamples } from '../../src/designs/design-examples';
 
 const repoRoot = join(__dirname, '../../..');
 const fixtures = join(__dirname, '../fixtures/designs');
@@ -117,6 +118,33 @@ describe('ladderwright command line', () => {
     // Four cells on a 1 kV peak: no-load 4 kV minus the drop the bleeder current causes (< 1 %).
     expect(report.noLoadOutputV).toBeLessThan(4000);
     expect(report.noLoadOutputV).toBeGreaterThan(3960);
+  });
+
+  it('analyze: a driver design carries the estimate under the simulation’s names, the closed-form optimum beside the whole one', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'lw-analyze-'));
+    const file = join(dir, 'driver.json');
+    writeFileSync(file, JSON.stringify(designExamples.surfaceChargeTester));
+    const run = ladderwright('analyze', file);
+    expect(run.status).toBe(0);
+    const report = JSON.parse(run.stdout);
+    for (const field of [
+      'oscillationFrequencyHz',
+      'dutyOnFraction',
+      'primaryCurrentPeakA',
+      'collectorVoltagePeakV',
+      'secondaryVoltagePeakPositiveV',
+      'secondaryVoltagePeakNegativeV',
+      'inputPowerW',
+      'outputPowerW',
+      'efficiency',
+      'losses',
+    ])
+      expect(report, field).toHaveProperty(field);
+    expect(report.efficiency).toBe(report.driver.energy.efficiency);
+    expect(report.secondaryVoltagePeakNegativeV).toBeLessThan(0);
+    expect(Number.isInteger(report.optimumStages)).toBe(true);
+    expect(typeof report.optimumStagesClosedForm).toBe('number');
+    expect(Number.isInteger(report.optimumStagesClosedForm)).toBe(false);
   });
 
   it.each([

@@ -50,9 +50,32 @@ describe('ladderwright simulate', () => {
       method: string;
       outputMeanV: number;
       energy: { suppliedJ: number; dissipatedJ: number; storedChangeJ: number };
+      oscillationFrequencyHz: number;
+      dutyOnFraction: number;
+      inputPowerW: number;
+      outputPowerW: number;
+      efficiency: number;
+      losses: Record<string, number>;
+      timeTo90PercentS: number | null;
+      timeTo1PercentS: number | null;
+      isSettled: boolean;
+      startUpFinalOutputV: number | null;
     };
     expect(out.method).toBe('transient');
     expect(out.outputMeanV).toBeGreaterThan(1000);
+    expect(out.isSettled).toBe(true);
+    // Bench figures in SI units over whole cycles: power in = power out + every loss (Tellegen's theorem
+    // over whole cycles of a settled state), within 2 %; efficiency is their ratio, 0–1.
+    const lossesW = Object.values(out.losses).reduce((a, b) => a + b, 0);
+    expect(Math.abs((out.outputPowerW + lossesW) / out.inputPowerW - 1)).toBeLessThan(0.02);
+    expect(out.efficiency).toBeCloseTo(out.outputPowerW / out.inputPowerW, 12);
+    expect(out.dutyOnFraction).toBeGreaterThan(0);
+    expect(out.dutyOnFraction).toBeLessThan(1);
+    // The cold start settles on the warm steady state's output (1 %: both settle to 0.1 % projected) and
+    // reaches 90 % before it stays within 1 %.
+    expect(Math.abs(out.startUpFinalOutputV! / out.outputMeanV - 1)).toBeLessThan(0.01);
+    expect(out.timeTo90PercentS!).toBeGreaterThan(0);
+    expect(out.timeTo1PercentS!).toBeGreaterThan(out.timeTo90PercentS!);
     // Tellegen's theorem: supplied = dissipated + stored change, within 2 % (the bound).
     expect(Math.abs((out.energy.dissipatedJ + out.energy.storedChangeJ) / out.energy.suppliedJ - 1)).toBeLessThan(0.02);
     // Its netlist carries the transistor stage, not an ideal source.

@@ -14,7 +14,7 @@ import { hasNgspice, runNgspice } from '../ngspice/run-ngspice';
 const demo = driverExamples.surfaceChargeTester;
 const loadOhm = 200e6;
 const capacitorF = 220e-12;
-const circuit = buildDriverCircuit(demo, {
+const built = buildDriverCircuit(demo, {
   ladder: {
     topology: 'half-wave',
     cellCount: 4,
@@ -23,6 +23,13 @@ const circuit = buildDriverCircuit(demo, {
     load: { kind: 'resistance', resistanceOhm: loadOhm },
   },
 });
+// The transformer here is linear (its core far from saturation either way): at reltol 1e-4 ngspice does not
+// get through the behavioural flux formulation of the saturating core on this circuit ("timestep too
+// small"); the core is compared with ngspice at reltol 1e-5 in test/ngspice/saturable-core-vs-ngspice.test.ts.
+const circuit = {
+  ...built,
+  elements: built.elements.map((e) => (e.kind === 'coupled-inductors' ? { ...e, core: undefined } : e)),
+};
 const stopS = 40e-3;
 const fromS = 36e-3; // steady-state window: the output moves < 0.1 % between 35 and 40 ms
 const maxStepS = 2e-7;

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import type { SizerRequest } from '@ladderwright/shared/sizing';
-import { answerSizerRequest } from './sizer-messages';
+import { DRIVER_SIZER_DEFAULTS, type SizerRequest } from '@ladderwright/shared/sizing';
+import { answerDriverSizerRequest, answerSizerRequest } from './sizer-messages';
 
 const request: SizerRequest = {
   targetOutputV: -3000,
@@ -28,4 +28,27 @@ describe('answerSizerRequest', () => {
     if (answer.isOk) throw new Error('a zero target was accepted');
     expect(answer.message).toContain('target output');
   });
+});
+
+describe('answerDriverSizerRequest', () => {
+  it('answers a driver run with supplies from the shared driver Sizer', () => {
+    const answer = answerDriverSizerRequest({
+      runId: 3,
+      kind: 'driver',
+      request: {
+        targetOutputV: 1500,
+        loadCurrentA: 5e-6,
+        rippleMaxV: 20,
+        stage: DRIVER_SIZER_DEFAULTS.stage,
+        cellCounts: [2],
+        ladderCells: [3],
+        capacitorsF: [2.2e-9],
+        bleedersOhm: [470e6],
+      },
+    });
+    expect(answer.runId).toBe(3);
+    if (!answer.isOk) throw new Error(answer.message);
+    // ±3 %: the driver Sizer's stated tolerance.
+    expect(Math.abs(answer.result.candidates[0]!.outputMeanV / 1500 - 1)).toBeLessThanOrEqual(0.03);
+  }, 20_000);
 });

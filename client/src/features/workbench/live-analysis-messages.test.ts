@@ -36,7 +36,7 @@ describe('answerLiveAnalysis', () => {
       document: withPrimaryInductance(designExamples.surfaceChargeTester, 0),
     });
     expect(result.report).toBeNull();
-    expect(result.issues['drive.driver.transformer.primaryInductanceH']).toBe('primary inductance must be positive');
+    expect(result.issues['drive.driver.transformer.primaryInductanceH']).toBe('must be greater than zero');
     expect(result.engineError).toBeNull();
   });
 

@@ -7,5 +7,5 @@ export class EvaluateDesignDto implements EvaluateRequest {
   @ApiDesignDocumentProperty('The unsaved design document to analyse.')
   @IsDefined({ message: 'document is required' })
   @IsObject({ message: 'document must be a design document object' })
-  document: Design;
+  document!: Design;
 }

@@ -7,11 +7,11 @@ export class SignInDto implements SignInRequest {
   @IsString({ message: 'email must be a string' })
   @IsNotEmpty({ message: 'email is required' })
   @MaxLength(254)
-  email: string;
+  email!: string;
 
   @ApiProperty({ example: 'Northfold-demo-1' })
   @IsString({ message: 'password must be a string' })
   @IsNotEmpty({ message: 'password is required' })
   @MaxLength(200)
-  password: string;
+  password!: string;
 }

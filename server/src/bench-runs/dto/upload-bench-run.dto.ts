@@ -9,7 +9,7 @@ export const BENCH_KINDS: readonly BenchKind[] = ['load-sweep', 'scope-capture']
 export class UploadBenchRunDto implements UploadBenchRunFields {
   @ApiProperty({ enum: BENCH_KINDS })
   @IsIn(BENCH_KINDS, { message: `kind must be one of ${BENCH_KINDS.join(', ')}` })
-  kind: BenchKind;
+  kind!: BenchKind;
 
   @ApiPropertyOptional({ example: 'Prototype 2, bench supply 12.0 V' })
   @IsOptional()

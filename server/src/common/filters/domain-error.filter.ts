@@ -8,7 +8,12 @@ import {
   type ValidationError,
 } from '@nestjs/common';
 import type { Response } from 'express';
-import { ConnectionError, ForeignKeyConstraintError, UniqueConstraintError } from 'sequelize';
+import {
+  ConnectionAcquireTimeoutError,
+  ConnectionError,
+  ForeignKeyConstraintError,
+  UniqueConstraintError,
+} from 'sequelize';
 import type { ApiErrorBody } from '@ladderwright/shared/api';
 import { isDomainError, type DomainError, type DomainErrorCode } from '@ladderwright/shared/errors';
 
@@ -23,6 +28,7 @@ const DOMAIN_STATUS: Record<DomainErrorCode, number> = {
   not_found: HttpStatus.NOT_FOUND,
   forbidden: HttpStatus.FORBIDDEN,
   cancelled: HttpStatus.CONFLICT,
+  budget_exceeded: HttpStatus.UNPROCESSABLE_ENTITY,
 };
 
 const HTTP_CODES: Record<number, string> = {
@@ -57,6 +63,16 @@ export class RetryLaterException extends HttpException {
     readonly retryAfterS: number,
   ) {
     super(message, HttpStatus.TOO_MANY_REQUESTS);
+  }
+}
+
+/** Seconds a client is asked to wait when every pooled database connection stayed busy. */
+export const BUSY_RETRY_AFTER_S = 1;
+
+/** 503 `busy` with `Retry-After`: this instance has more of some work queued than it takes on. */
+export class BusyException extends HttpException {
+  constructor(message: string) {
+    super(message, HttpStatus.SERVICE_UNAVAILABLE);
   }
 }
 
@@ -110,6 +126,7 @@ function fromHttpException(error: HttpException): ApiErrorBody {
       issues: error.issues,
     };
   }
+  if (error instanceof BusyException) return { statusCode, code: 'busy', message: error.message };
   const response = error.getResponse();
   const raw = typeof response === 'string' ? response : (response as { message?: unknown }).message;
   const message = Array.isArray(raw) ? raw.join('; ') : typeof raw === 'string' ? raw : error.message;
@@ -149,6 +166,8 @@ export class DomainErrorFilter implements ExceptionFilter {
     const body = this.toBody(error);
     if (response.headersSent) return;
     if (error instanceof RetryLaterException) response.setHeader('Retry-After', String(error.retryAfterS));
+    if (error instanceof ConnectionAcquireTimeoutError || error instanceof BusyException)
+      response.setHeader('Retry-After', String(BUSY_RETRY_AFTER_S));
     response.status(body.statusCode).json(body);
   }
 
@@ -170,6 +189,11 @@ export class DomainErrorFilter implements ExceptionFilter {
         code: 'conflict',
         message: 'The record refers to, or is referred to by, another record',
       };
+    }
+    // Every pooled connection stayed in use for the acquire timeout: the database is up, this instance is busy.
+    if (error instanceof ConnectionAcquireTimeoutError) {
+      this.logger.warn('database pool busy: no connection within the acquire timeout');
+      return { statusCode: 503, code: 'busy', message: 'The server is busy; try again in a moment' };
     }
     if (error instanceof ConnectionError) {
       this.logger.error(`database unavailable: ${error.message}`);

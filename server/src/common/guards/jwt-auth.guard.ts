@@ -20,6 +20,7 @@ export class JwtAuthGuard extends AuthGuard('jwt') {
   }
 
   override handleRequest<TUser>(error: unknown, user: TUser | false): TUser {
+    // eslint-disable-next-line @typescript-eslint/only-throw-error -- passport's own error, passed on as it came
     if (error) throw error;
     if (!user) throw new UnauthorizedException('Sign in first: the session is missing, expired or invalid');
     return user;

@@ -6,6 +6,9 @@ import { auditLog } from './0006-audit-log';
 import { simulationJobs } from './0003-simulation-jobs';
 import { signOffAndMail } from './0004-sign-off-and-mail';
 import { teamAdministration } from './0007-team-administration';
+import { sessionsAndSignInLimits } from './0008-sessions-and-sign-in-limits';
+import { simulationJobHeartbeat } from './0009-simulation-job-heartbeat';
+import { driverSecondaryPhasing } from './0010-driver-secondary-phasing';
 
 /** Every schema step in order. Add new steps at the end. */
 export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
@@ -16,4 +19,7 @@ export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
   simulationJobs,
   signOffAndMail,
   teamAdministration,
+  sessionsAndSignInLimits,
+  simulationJobHeartbeat,
+  driverSecondaryPhasing,
 ];

@@ -8,14 +8,14 @@ export class CompareRevisionsDto {
   @Type(() => Number)
   @IsInt({ message: 'a must be a revision number (an integer)' })
   @Min(1, { message: 'a must be 1 or more' })
-  a: number;
+  a!: number;
 
   @ApiProperty({ example: 2, description: 'Revision number shown on the right; deltas are b − a.' })
   @IsDefined({ message: 'b is required' })
   @Type(() => Number)
   @IsInt({ message: 'b must be a revision number (an integer)' })
   @Min(1, { message: 'b must be 1 or more' })
-  b: number;
+  b!: number;
 
   @ApiPropertyOptional({
     format: 'uuid',

@@ -1,6 +1,7 @@
 import { ApiProperty } from '@nestjs/swagger';
 import { IsDefined, IsObject, IsString, MaxLength, MinLength } from 'class-validator';
 import type { CreateDesignRequest, DesignSource } from '@ladderwright/shared/api';
+import { IsNotBlank } from '../../common/decorators/is-not-blank.decorator';
 
 export class CreateDesignDto implements CreateDesignRequest {
   @ApiProperty({ example: 'Ionizer bar, 7-cell variant' })
@@ -8,7 +9,8 @@ export class CreateDesignDto implements CreateDesignRequest {
   @IsString({ message: 'name must be text' })
   @MinLength(1, { message: 'name must not be empty' })
   @MaxLength(200, { message: 'name must be at most 200 characters' })
-  name: string;
+  @IsNotBlank()
+  name!: string;
 
   @ApiProperty({
     description:
@@ -20,5 +22,5 @@ export class CreateDesignDto implements CreateDesignRequest {
   })
   @IsDefined({ message: 'from is required' })
   @IsObject({ message: 'from must be an object with a kind' })
-  from: DesignSource;
+  from!: DesignSource;
 }

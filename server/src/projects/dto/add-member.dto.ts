@@ -7,9 +7,9 @@ export class AddMemberDto implements AddMemberRequest {
   @ApiProperty({ example: 'reviewer@northfold.test' })
   @IsEmail({}, { message: 'email must be an e-mail address' })
   @MaxLength(254)
-  email: string;
+  email!: string;
 
   @ApiProperty({ enum: PROJECT_ROLES })
   @IsIn(PROJECT_ROLES, { message: `role must be one of ${PROJECT_ROLES.join(', ')}` })
-  role: ProjectRole;
+  role!: ProjectRole;
 }

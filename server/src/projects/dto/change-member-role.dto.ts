@@ -7,5 +7,5 @@ export class ChangeMemberRoleDto implements ChangeMemberRoleRequest {
   @ApiProperty({ enum: PROJECT_ROLES })
   @IsDefined({ message: 'role is required' })
   @IsIn(PROJECT_ROLES, { message: `role must be one of ${PROJECT_ROLES.join(', ')}` })
-  role: ProjectRole;
+  role!: ProjectRole;
 }

@@ -20,6 +20,7 @@ import {
   type AcceptanceSettings,
   BENCH_ALLOWANCE_MAX,
 } from '@ladderwright/shared/reviews';
+import { IsNotBlank } from '../../common/decorators/is-not-blank.decorator';
 
 /** The named discharge rules a project can default to (a custom rule is set per design). */
 export const DEFAULT_DISCHARGE_RULES = ['50V-1min', '50V-5min', '60V-5s'] as const;
@@ -65,14 +66,14 @@ export class AcceptanceSettingsDto implements AcceptanceSettings {
   @ApiPropertyOptional({ enum: ACCEPTANCE_COVERAGES, description: 'Coverage probability of the output window.' })
   @IsDefined({ message: 'coverage is required' })
   @IsIn(ACCEPTANCE_COVERAGES, { message: `coverage must be one of ${ACCEPTANCE_COVERAGES.join(', ')}` })
-  coverage: AcceptanceCoverage;
+  coverage!: AcceptanceCoverage;
 
   @ApiPropertyOptional({ minimum: 0, maximum: BENCH_ALLOWANCE_MAX, description: 'Fraction of the target, e.g. 0.01.' })
   @IsDefined({ message: 'benchAllowanceFraction is required' })
   @IsNumber({}, { message: 'benchAllowanceFraction must be a number' })
   @Min(0, { message: 'benchAllowanceFraction must be at least 0' })
   @Max(BENCH_ALLOWANCE_MAX, { message: `benchAllowanceFraction must be at most ${BENCH_ALLOWANCE_MAX}` })
-  benchAllowanceFraction: number;
+  benchAllowanceFraction!: number;
 }
 
 export class UpdateProjectDto implements UpdateProjectRequest {
@@ -81,6 +82,7 @@ export class UpdateProjectDto implements UpdateProjectRequest {
   @IsString({ message: 'name must be text' })
   @MinLength(1, { message: 'name must not be empty' })
   @MaxLength(120, { message: 'name must be at most 120 characters' })
+  @IsNotBlank()
   name?: string;
 
   @ApiPropertyOptional()

@@ -7,14 +7,14 @@ export class CommentAnchorDto implements CommentAnchor {
   @ApiProperty({ enum: ['input', 'result'] })
   @IsDefined({ message: 'kind is required' })
   @IsIn(['input', 'result'], { message: "kind must be 'input' or 'result'" })
-  kind: 'input' | 'result';
+  kind!: 'input' | 'result';
 
   @ApiProperty({ example: 'multiplier.capacitors[0].valueF' })
   @IsDefined({ message: 'path is required' })
   @IsString({ message: 'path must be text' })
   @IsNotEmpty({ message: 'path must not be empty' })
   @MaxLength(300, { message: 'path must be at most 300 characters' })
-  path: string;
+  path!: string;
 }
 
 export class CreateCommentDto implements CreateCommentRequest {
@@ -23,7 +23,7 @@ export class CreateCommentDto implements CreateCommentRequest {
   @IsString({ message: 'body must be text' })
   @IsNotEmpty({ message: 'body must not be empty' })
   @MaxLength(10000, { message: 'body must be at most 10000 characters' })
-  body: string;
+  body!: string;
 
   @ApiPropertyOptional({ description: 'The comment this one answers.' })
   @IsOptional()

@@ -12,5 +12,5 @@ export class OverrideDto implements OverrideRequest {
   @IsDefined({ message: 'override.reason is required' })
   @IsString({ message: 'reason must be text' })
   @MaxLength(2000, { message: 'reason must be at most 2000 characters' })
-  reason: string;
+  reason!: string;
 }

@@ -9,5 +9,5 @@ export class ReturnRevisionDto implements SignOffNoteRequest {
   @IsString({ message: 'note must be text' })
   @IsNotEmpty({ message: 'note is required to return a revision' })
   @MaxLength(2000, { message: 'note must be at most 2000 characters' })
-  note: string;
+  note!: string;
 }

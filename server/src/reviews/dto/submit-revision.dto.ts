@@ -21,7 +21,7 @@ export class SubmitRevisionDto implements SubmitRevisionRequest {
   @ArrayMinSize(1, { message: 'reviewerIds must name at least one reviewer' })
   @ArrayMaxSize(20, { message: 'reviewerIds may name at most 20 reviewers' })
   @IsUUID('all', { each: true, message: 'reviewerIds must contain user ids' })
-  reviewerIds: string[];
+  reviewerIds!: string[];
 
   @ApiPropertyOptional({ example: 'Ready for review: raised C2 for lower ripple.' })
   @IsOptional()

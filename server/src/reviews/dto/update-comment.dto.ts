@@ -6,5 +6,5 @@ export class UpdateCommentDto implements UpdateCommentRequest {
   @ApiProperty({ description: 'true resolves the thread, false reopens it.' })
   @IsDefined({ message: 'isResolved is required' })
   @IsBoolean({ message: 'isResolved must be true or false' })
-  isResolved: boolean;
+  isResolved!: boolean;
 }

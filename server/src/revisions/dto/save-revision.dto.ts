@@ -9,16 +9,16 @@ export class SaveRevisionDto implements SaveRevisionRequest {
   @IsDefined({ message: 'baseRevisionNumber is required' })
   @IsInt({ message: 'baseRevisionNumber must be an integer' })
   @Min(1, { message: 'baseRevisionNumber must be 1 or more' })
-  baseRevisionNumber: number;
+  baseRevisionNumber!: number;
 
   @ApiDesignDocumentProperty()
   @IsDefined({ message: 'document is required' })
   @IsObject({ message: 'document must be a design document object' })
-  document: Design;
+  document!: Design;
 
   @ApiProperty({ example: 'Raised C2 to 22 nF for lower ripple' })
   @IsDefined({ message: 'changeNote is required' })
   @IsString({ message: 'changeNote must be text' })
   @MaxLength(2000, { message: 'changeNote must be at most 2000 characters' })
-  changeNote: string;
+  changeNote!: string;
 }

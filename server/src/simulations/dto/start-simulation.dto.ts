@@ -12,6 +12,7 @@ import {
   Min,
   ValidateNested,
 } from 'class-validator';
+import { START_UP_WINDOW_S } from '@ladderwright/shared/api';
 import type { SimulationKind, SimulationOptions, StartSimulationRequest } from '@ladderwright/shared/api';
 import type { Design } from '@ladderwright/shared/designs';
 
@@ -44,8 +45,10 @@ export class SimulationOptionsDto implements SimulationOptions {
   })
   @IsOptional()
   @IsNumber({}, { message: 'options.startUpWindowS must be a number (seconds)' })
-  @Min(1e-4, { message: 'options.startUpWindowS must be at least 1e-4 s' })
-  @Max(0.1, { message: 'options.startUpWindowS must be at most 0.1 s' })
+  @Min(START_UP_WINDOW_S.min, {
+    message: `options.startUpWindowS must be at least ${START_UP_WINDOW_S.min.toExponential()} s`,
+  })
+  @Max(START_UP_WINDOW_S.max, { message: `options.startUpWindowS must be at most ${START_UP_WINDOW_S.max} s` })
   startUpWindowS?: number;
 }
 
@@ -54,7 +57,7 @@ export class StartSimulationDto implements StartSimulationRequest {
   @ApiProperty({ enum: SIMULATION_KINDS })
   @IsDefined({ message: 'kind is required' })
   @IsString({ message: 'kind must be text' })
-  kind: SimulationKind;
+  kind!: SimulationKind;
 
   @ApiPropertyOptional({
     description: 'A design document (schemaVersion 1); or give designId and revisionNumber.',

@@ -8,11 +8,11 @@ export class CompletePasswordResetDto implements CompletePasswordResetRequest {
   @IsDefined({ message: 'token is required' })
   @IsString({ message: 'token must be text' })
   @Matches(/^[A-Za-z0-9_-]{43}$/, { message: 'token is not a password-reset token' })
-  token: string;
+  token!: string;
 
   @ApiProperty({ description: 'At least 10 characters with a letter and a digit' })
   @IsString()
   @MaxLength(200)
   @MeetsPasswordPolicy()
-  password: string;
+  password!: string;
 }

@@ -8,5 +8,5 @@ export class ResetPasswordDto implements ResetPasswordRequest {
   @IsString()
   @MaxLength(200)
   @MeetsPasswordPolicy()
-  password: string;
+  password!: string;
 }

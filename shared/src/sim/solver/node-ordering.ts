@@ -45,7 +45,7 @@ export function reverseCuthillMcKee(size: number, edges: ReadonlyArray<readonly 
     for (let head = 0; head < queue.length; head++) {
       const u = queue[head]!;
       order.push(u);
-      const fresh = [...new Set(neighbours[u]!)].filter((v) => !visited[v]).sort((p, q) => degree[p]! - degree[q]!);
+      const fresh = [...new Set(neighbours[u])].filter((v) => !visited[v]).sort((p, q) => degree[p]! - degree[q]!);
       for (const v of fresh) {
         visited[v] = 1;
         queue.push(v);

@@ -27,9 +27,9 @@ const inbox: Inbox = {
     item({ designId: 'd-3', designName: 'Hood cell', revisionNumber: 1, state: 'released' }),
   ],
   returnedToMe: [],
-  awaitingRelease: [],
+  awaitingRelease: [item({ designId: 'd-9', designName: 'Precipitator cell', revisionNumber: 2, state: 'approved' })],
   newComments: [],
-  actionCount: 1,
+  actionCount: 2,
 };
 
 describe('InboxRoute', () => {
@@ -43,8 +43,9 @@ describe('InboxRoute', () => {
   it('lists what waits for me and what I submitted, each with its state and a link to its Sign-off', async () => {
     renderWithApp(<InboxRoute />, { route: '/inbox' });
     const tables = await screen.findAllByRole('table');
-    expect(tables).toHaveLength(2);
+    expect(tables).toHaveLength(3);
     expect(screen.getByRole('heading', { name: 'Waiting for me' })).toBeInTheDocument();
+    expect(screen.getByRole('heading', { name: 'Approved, waiting for release' })).toBeInTheDocument();
     expect(screen.getByRole('heading', { name: 'Submitted by me' })).toBeInTheDocument();
 
     const waiting = screen.getByRole('table', { name: 'Waiting for me' });
@@ -57,6 +58,12 @@ describe('InboxRoute', () => {
       '/projects/p-1/designs/d-7/revisions/4/sign-off',
     );
 
+    const release = screen.getByRole('table', { name: 'Waiting for release' });
+    expect(within(release).getByRole('link', { name: 'Precipitator cell' })).toHaveAttribute(
+      'href',
+      '/projects/p-1/designs/d-9/revisions/2/sign-off',
+    );
+
     const submittedRows = within(submitted).getAllByRole('row').slice(1);
     expect(submittedRows.map((row) => row.textContent)).toEqual([
       expect.stringMatching(/Tester ladder.*returned/),
@@ -67,11 +74,21 @@ describe('InboxRoute', () => {
   it('says so when a group is empty', async () => {
     vi.stubGlobal(
       'fetch',
-      vi.fn<typeof fetch>(async () => jsonResponse({ waitingForMe: [], submittedByMe: [] })),
+      vi.fn<typeof fetch>(async () =>
+        jsonResponse({
+          waitingForMe: [],
+          submittedByMe: [],
+          returnedToMe: [],
+          awaitingRelease: [],
+          newComments: [],
+          actionCount: 0,
+        }),
+      ),
     );
     renderWithApp(<InboxRoute />, { route: '/inbox' });
     expect(await screen.findByText('Nothing is waiting for your Sign-off.')).toBeInTheDocument();
     expect(screen.getByText('You have not submitted a revision yet.')).toBeInTheDocument();
+    expect(screen.getByText('None of your revisions is waiting for changes.')).toBeInTheDocument();
     expect(screen.queryByRole('table')).not.toBeInTheDocument();
   });
 });

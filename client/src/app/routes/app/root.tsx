@@ -14,6 +14,7 @@ import { AppShell } from '../../../components/app-shell';
 import { paths } from '../../../config/paths';
 import { getMeQueryOptions, useMe } from '../../../features/auth/api/get-me';
 import { useSignOut } from '../../../features/auth/api/sign-out';
+import { useInbox } from '../../../features/inbox/api/get-inbox';
 import { getProjectQueryOptions } from '../../../features/projects/api/get-project';
 import { useProjects } from '../../../features/projects/api/get-projects';
 import { ProjectNav } from '../../../features/projects/components/project-nav';
@@ -50,10 +51,11 @@ export function requireProjectLoader(queryClient: QueryClient) {
 export function AppRoot() {
   const { data: user } = useMe();
   const projects = useProjects();
+  const inbox = useInbox(Boolean(user));
   const { projectId = null } = useParams();
   const navigate = useNavigate();
   const location = useLocation();
-  const signOut = useSignOut({ onSuccess: () => navigate(paths.signIn.getHref(), { replace: true }) });
+  const signOut = useSignOut({ onSuccess: () => void navigate(paths.signIn.getHref(), { replace: true }) });
 
   if (!user) return <Navigate to={paths.signIn.getHref(location.pathname)} replace />;
 
@@ -67,6 +69,7 @@ export function AppRoot() {
       user={user}
       onSignOut={handleSignOut}
       isSigningOut={signOut.isPending}
+      inboxCount={inbox.data?.actionCount ?? 0}
       navigation={<ProjectNav projects={projects.data} activeProjectId={projectId} isLoading={projects.isPending} />}
     >
       <Outlet />

@@ -2,10 +2,12 @@ import { Alert, Anchor, Breadcrumbs, Stack, Text, Title } from '@mantine/core';
 import { useDocumentTitle } from '@mantine/hooks';
 import { useSuspenseQuery } from '@tanstack/react-query';
 import { Link, useNavigate, useParams } from 'react-router-dom';
+import type { Design } from '@ladderwright/shared/designs';
 import { paths } from '../../../config/paths';
 import { useCreateDesign } from '../../../features/designs/api/create-design';
 import { useParts } from '../../../features/parts/api/get-parts';
 import { getProjectQueryOptions } from '../../../features/projects/api/get-project';
+import { DriverSizerPanel } from '../../../features/sizer/components/driver-sizer-panel';
 import { SizerPanel } from '../../../features/sizer/components/sizer-panel';
 import { requireProjectLoader } from './root';
 
@@ -19,6 +21,11 @@ export function SizerRoute() {
   const navigate = useNavigate();
   const createDesign = useCreateDesign(projectId);
   const { data: shelf } = useParts(projectId);
+  const startDesign = (document: Design) =>
+    createDesign.mutate(
+      { name: document.name, from: { kind: 'document', document } },
+      { onSuccess: (design) => void navigate(paths.design.getHref(projectId, design.id)) },
+    );
   return (
     <Stack gap="lg">
       <Breadcrumbs>
@@ -38,16 +45,11 @@ export function SizerRoute() {
           {createDesign.error.message}
         </Alert>
       )}
-      <SizerPanel
-        shelf={shelf ?? []}
-        isStarting={createDesign.isPending}
-        onStartDesign={(document) =>
-          createDesign.mutate(
-            { name: document.name, from: { kind: 'document', document } },
-            { onSuccess: (design) => void navigate(paths.design.getHref(projectId, design.id)) },
-          )
-        }
-      />
+      <SizerPanel shelf={shelf ?? []} isStarting={createDesign.isPending} onStartDesign={startDesign} />
+      <Title order={2} size="h3">
+        Driver-fed supply
+      </Title>
+      <DriverSizerPanel isStarting={createDesign.isPending} onStartDesign={startDesign} />
     </Stack>
   );
 }

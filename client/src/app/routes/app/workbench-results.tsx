@@ -53,7 +53,7 @@ export function WorkbenchResults({ projectId, revision, revisions, draft, isDirt
         </Tabs.Panel>
       )}
       <Tabs.Panel value="ladder" pt="sm">
-        <LadderDiagram report={report} />
+        <LadderDiagram report={report} design={draft} />
       </Tabs.Panel>
       <Tabs.Panel value="checks" pt="sm">
         <Text size="xs" c="dimmed" mb="xs">

@@ -36,7 +36,7 @@ export function SignInRoute() {
                 Sign in to your workbench for high-voltage DC supply design.
               </Text>
             </div>
-            <SignInForm onSuccess={() => navigate(redirectTo, { replace: true })} />
+            <SignInForm onSuccess={() => void navigate(redirectTo, { replace: true })} />
           </Stack>
         </Paper>
       </Center>

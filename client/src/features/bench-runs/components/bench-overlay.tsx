@@ -1,18 +1,50 @@
 import { Stack, Table, Text } from '@mantine/core';
-import {
-  CartesianGrid,
-  ComposedChart,
-  Legend,
-  Line,
-  ResponsiveContainer,
-  Scatter,
-  Tooltip,
-  XAxis,
-  YAxis,
-} from 'recharts';
 import type { BenchRunDetail } from '@ladderwright/shared/api';
+import type { BenchComparison, MeasuredPoint } from '@ladderwright/shared/bench';
 import { formatQuantity } from '@ladderwright/shared/units';
+import { chartColors, QuantityChart } from '../../../components/quantity-chart';
 import { BenchVerdictBadge } from './bench-verdict-badge';
+
+/** Room beyond the last measured load current, so the last point does not sit on the frame. */
+const sweepHeadroom = 1.15;
+
+/**
+ * Rows of a load-sweep overlay: the predicted regulation curve over the measured range only (0 to 1.15 × the
+ * largest measured current, its end interpolated), so the points fill the plot, and the measured points.
+ */
+export function loadSweepRows(comparison: Pick<BenchComparison, 'predictedCurve' | 'points'>) {
+  const largestA = Math.max(0, ...comparison.points.map((point) => point.x));
+  const endA = largestA > 0 ? largestA * sweepHeadroom : Infinity;
+  const curve = comparison.predictedCurve;
+  const predicted: { currentA: number; predictedV: number }[] = [];
+  for (let i = 0; i < curve.length; i += 1) {
+    const point = curve[i];
+    if (!point) continue;
+    if (point.x <= endA) {
+      predicted.push({ currentA: point.x, predictedV: point.y });
+      continue;
+    }
+    const before = curve[i - 1];
+    if (before && before.x < endA) {
+      const fraction = (endA - before.x) / (point.x - before.x);
+      predicted.push({ currentA: endA, predictedV: before.y + fraction * (point.y - before.y) });
+    }
+    break;
+  }
+  const measured = comparison.points.map((point) => ({ currentA: point.x, measuredV: point.measuredV }));
+  return [...predicted, ...measured].sort((a, b) => a.currentA - b.currentA);
+}
+
+/** Rows of a capture overlay: the measured magnitude, the predicted mean and the predicted ripple band around it. */
+export function captureRows(points: readonly MeasuredPoint[], predictedMeanV: number, predictedRippleV: number) {
+  return points.map((point) => ({
+    timeS: point.x,
+    measuredV: Math.abs(point.y),
+    predictedV: predictedMeanV,
+    rippleLowV: predictedMeanV - predictedRippleV / 2,
+    rippleHighV: predictedMeanV + predictedRippleV / 2,
+  }));
+}
 
 const percent = (value: number | null) => (value === null ? 'not compared' : `${(value * 100).toFixed(2)} %`);
 
@@ -26,19 +58,39 @@ export function BenchOverlay({ run }: { run: BenchRunDetail }) {
     </Text>
   );
   if (run.kind === 'scope-capture') {
-    const samples = run.points.map((point) => ({ timeMs: point.x * 1e3, outputV: Math.abs(point.y) }));
+    const predictedMeanV = comparison.figures.find((f) => f.key === 'outputMeanV')?.predicted;
+    const predictedRippleV = comparison.figures.find((f) => f.key === 'ripplePeakToPeakV')?.predicted ?? 0;
+    const [measuredColor = '', predictedColor = ''] = chartColors.traces;
     return (
       <Stack gap="sm" aria-label="Bench overlay">
         {heading}
-        <ResponsiveContainer width="100%" height={260}>
-          <ComposedChart data={samples}>
-            <CartesianGrid strokeDasharray="3 3" />
-            <XAxis dataKey="timeMs" type="number" unit=" ms" domain={['dataMin', 'dataMax']} />
-            <YAxis unit=" V" domain={['auto', 'auto']} />
-            <Tooltip />
-            <Line dataKey="outputV" name="measured output" dot={false} stroke="var(--mantine-color-indigo-6)" />
-          </ComposedChart>
-        </ResponsiveContainer>
+        <QuantityChart
+          label="Capture against prediction, plot"
+          title={`${run.title}: capture against prediction`}
+          heightPx={260}
+          data={captureRows(run.points, predictedMeanV ?? NaN, predictedRippleV)}
+          x={{ key: 'timeS', title: 'Time', unit: 's' }}
+          y={{ title: 'Output magnitude', unit: 'V' }}
+          series={[
+            { key: 'measuredV', name: 'measured output', color: measuredColor },
+            ...(predictedMeanV === undefined
+              ? []
+              : [{ key: 'predictedV', name: 'predicted mean', color: predictedColor, isDashed: true }]),
+          ]}
+          bands={
+            predictedMeanV === undefined
+              ? []
+              : [
+                  {
+                    lowKey: 'rippleLowV',
+                    highKey: 'rippleHighV',
+                    name: 'predicted ripple (peak-to-peak)',
+                    color: predictedColor,
+                  },
+                ]
+          }
+          isZoomable
+        />
         <Table aria-label="Capture against prediction">
           <Table.Thead>
             <Table.Tr>
@@ -62,43 +114,22 @@ export function BenchOverlay({ run }: { run: BenchRunDetail }) {
       </Stack>
     );
   }
-  // One data set on a numeric current axis: predicted rows carry predictedV, measured rows measuredV.
-  const rows = [
-    ...comparison.predictedCurve.map((point) => ({ currentUa: point.x * 1e6, predictedV: point.y })),
-    ...comparison.points.map((point) => ({ currentUa: point.x * 1e6, measuredV: point.measuredV })),
-  ].sort((a, b) => a.currentUa - b.currentUa);
+  const [measuredColor = '', predictedColor = ''] = chartColors.traces;
   return (
     <Stack gap="sm" aria-label="Bench overlay">
       {heading}
-      <ResponsiveContainer width="100%" height={280}>
-        <ComposedChart data={rows}>
-          <CartesianGrid strokeDasharray="3 3" />
-          <XAxis
-            dataKey="currentUa"
-            type="number"
-            unit=" µA"
-            domain={[0, 'dataMax']}
-            tickFormatter={(value: number) => value.toPrecision(3)}
-          />
-          <YAxis unit=" V" domain={['auto', 'auto']} />
-          <Tooltip />
-          <Legend />
-          <Line
-            dataKey="predictedV"
-            name="predicted output"
-            dot={false}
-            connectNulls
-            stroke="var(--mantine-color-gray-6)"
-            isAnimationActive={false}
-          />
-          <Scatter
-            dataKey="measuredV"
-            name="measured output"
-            fill="var(--mantine-color-indigo-6)"
-            isAnimationActive={false}
-          />
-        </ComposedChart>
-      </ResponsiveContainer>
+      <QuantityChart
+        label="Load sweep against prediction, plot"
+        title={`${run.title}: load sweep against prediction`}
+        heightPx={280}
+        data={loadSweepRows(comparison)}
+        x={{ key: 'currentA', title: 'Load current', unit: 'A', includesZero: true }}
+        y={{ title: 'Output', unit: 'V' }}
+        series={[
+          { key: 'predictedV', name: 'predicted output (mean)', color: predictedColor, isDashed: true },
+          { key: 'measuredV', name: 'measured output', color: measuredColor, kind: 'points' },
+        ]}
+      />
       <Table aria-label="Deviation per point">
         <Table.Thead>
           <Table.Tr>

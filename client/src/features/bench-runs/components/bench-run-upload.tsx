@@ -33,7 +33,7 @@ export function BenchRunUpload({ projectId, designId, revisionNumber, onUploaded
       <Stack gap="sm">
         <SegmentedControl
           value={kind}
-          onChange={(value) => setKind(value as BenchKind)}
+          onChange={(value) => setKind(value)}
           data={[
             { value: 'load-sweep', label: 'Load sweep (current, voltage)' },
             { value: 'scope-capture', label: 'Scope capture (time, voltage)' },

@@ -67,7 +67,7 @@ export function CreateDesignModal({ projectId, isOpen, onClose, onCreated }: Cre
           <SegmentedControl
             aria-label="Start from"
             value={kind}
-            onChange={(value) => setKind(value as SourceKind)}
+            onChange={(value) => setKind(value)}
             data={[
               { value: 'template', label: 'Demo template' },
               { value: 'blank', label: 'Scratch' },

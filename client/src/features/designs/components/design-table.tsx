@@ -87,7 +87,7 @@ export function DesignTable({ projectId, members, pageSize = 20 }: DesignTablePr
           data={REVISION_STATES.map((value) => ({ value, label: value }))}
           value={state}
           onChange={(value) => {
-            setState(value as RevisionState | null);
+            setState(value);
             setPage(1);
           }}
           clearable

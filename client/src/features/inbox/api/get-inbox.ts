@@ -4,7 +4,7 @@ import { apiPaths } from '../../../config/paths';
 import { apiRequest } from '../../../lib/api-client';
 import { queryKeys } from '../../../lib/query-keys';
 
-/** Revisions submitted to me and waiting, and revisions I submitted. */
+/** What waits for me, by role (with the count for the top bar), and revisions I submitted. */
 export function getInbox(signal?: AbortSignal): Promise<Inbox> {
   return apiRequest<Inbox>(apiPaths.inbox, { signal });
 }
@@ -13,6 +13,7 @@ export function getInboxQueryOptions() {
   return queryOptions({ queryKey: queryKeys.inbox.mine(), queryFn: ({ signal }) => getInbox(signal) });
 }
 
-export function useInbox() {
-  return useQuery(getInboxQueryOptions());
+/** The Inbox, refreshed every minute while the page is open (the top bar shows its count). */
+export function useInbox(isEnabled = true) {
+  return useQuery({ ...getInboxQueryOptions(), enabled: isEnabled, refetchInterval: 60_000 });
 }

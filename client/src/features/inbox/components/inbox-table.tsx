@@ -3,7 +3,20 @@ import type { InboxItem } from '@ladderwright/shared/api';
 import { Link } from 'react-router-dom';
 import { paths } from '../../../config/paths';
 
-export function InboxTable({ items, emptyText, label }: { items: InboxItem[]; emptyText: string; label: string }) {
+/** Where an item's link goes: the Sign-off to decide or release, or the Workbench to answer a return. */
+export type InboxTarget = 'sign-off' | 'workbench';
+
+export function InboxTable({
+  items,
+  emptyText,
+  label,
+  target = 'sign-off',
+}: {
+  items: InboxItem[];
+  emptyText: string;
+  label: string;
+  target?: InboxTarget;
+}) {
   if (items.length === 0)
     return (
       <Text c="dimmed" size="sm">
@@ -26,7 +39,14 @@ export function InboxTable({ items, emptyText, label }: { items: InboxItem[]; em
         {items.map((item) => (
           <Table.Tr key={`${item.designId}-${item.revisionNumber}`}>
             <Table.Td>
-              <Anchor component={Link} to={paths.signOff.getHref(item.projectId, item.designId, item.revisionNumber)}>
+              <Anchor
+                component={Link}
+                to={
+                  target === 'workbench'
+                    ? paths.design.getHref(item.projectId, item.designId, item.revisionNumber)
+                    : paths.signOff.getHref(item.projectId, item.designId, item.revisionNumber)
+                }
+              >
                 {item.designName}
               </Anchor>
             </Table.Td>

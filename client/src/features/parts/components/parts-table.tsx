@@ -34,7 +34,7 @@ export function PartsTable({ projectId, canManage }: PartsTableProps) {
           placeholder="All kinds"
           data={KIND_OPTIONS}
           value={kind}
-          onChange={(value) => setKind(value as PartKind | null)}
+          onChange={(value) => setKind(value)}
           clearable
           w={200}
         />

@@ -1,5 +1,5 @@
 import { NavLink, ScrollArea, Skeleton, Stack, Text } from '@mantine/core';
-import { Link } from 'react-router-dom';
+import { Link, useLocation } from 'react-router-dom';
 import type { ProjectSummary } from '@ladderwright/shared/api';
 import { paths } from '../../../config/paths';
 
@@ -11,6 +11,18 @@ export interface ProjectNavProps {
 
 /** The navigation column: all projects, each opening onto its sections (Designs for now). */
 export function ProjectNav({ projects, activeProjectId, isLoading }: ProjectNavProps) {
+  const { pathname } = useLocation();
+  /** A section link of the open project, marked current when its page is open. */
+  const section = (href: string, label: string, isCurrent = pathname === href) => (
+    <NavLink
+      component={Link}
+      to={href}
+      label={label}
+      active={isCurrent}
+      aria-current={isCurrent ? 'page' : undefined}
+      pl="xl"
+    />
+  );
   return (
     <Stack gap={4} component="nav" aria-label="Projects">
       <NavLink
@@ -34,30 +46,26 @@ export function ProjectNav({ projects, activeProjectId, isLoading }: ProjectNavP
                 component={Link}
                 to={paths.project.getHref(project.id)}
                 label={project.name}
-                description={project.productLine}
+                description={project.isArchived ? `${project.productLine} · archived` : project.productLine}
                 fw={isActive ? 600 : 400}
               />
               {isActive && (
-                <NavLink
-                  component={Link}
-                  to={paths.project.getHref(project.id)}
-                  label="Designs"
-                  active
-                  aria-current="page"
-                  pl="xl"
-                />
-              )}
-              {isActive && (
-                <NavLink
-                  component={Link}
-                  to={paths.compareDesigns.getHref(project.id)}
-                  label="Compare designs"
-                  pl="xl"
-                />
-              )}
-              {isActive && <NavLink component={Link} to={paths.sizer.getHref(project.id)} label="Sizer" pl="xl" />}
-              {isActive && (
-                <NavLink component={Link} to={paths.partsShelf.getHref(project.id)} label="Parts shelf" pl="xl" />
+                <>
+                  {section(
+                    paths.project.getHref(project.id),
+                    'Designs',
+                    !pathname.endsWith('/sizer') &&
+                      !pathname.endsWith('/parts') &&
+                      !pathname.endsWith('/members') &&
+                      !pathname.endsWith('/settings') &&
+                      !pathname.endsWith('/compare'),
+                  )}
+                  {section(paths.compareDesigns.getHref(project.id), 'Compare designs')}
+                  {section(paths.sizer.getHref(project.id), 'Sizer')}
+                  {section(paths.partsShelf.getHref(project.id), 'Parts shelf')}
+                  {section(paths.projectMembers.getHref(project.id), 'Members')}
+                  {project.myRole === 'lead' && section(paths.projectSettings.getHref(project.id), 'Settings')}
+                </>
               )}
             </div>
           );

@@ -4,6 +4,7 @@ import type { SignOff } from '@ladderwright/shared/api';
 import { useRunSignOffCommand, type NoteCommand } from '../api/run-sign-off-command';
 import { useSubmitRevision } from '../api/submit-revision';
 import { SignOffError } from './sign-off-error';
+import { isOverrideReady, type OverrideDraft, SignOffGates } from './sign-off-gates';
 
 const commandLabels: Record<NoteCommand, string> = {
   withdraw: 'Withdraw',
@@ -14,11 +15,15 @@ const commandLabels: Record<NoteCommand, string> = {
 
 const noteCommands: readonly NoteCommand[] = ['approve', 'return', 'release', 'withdraw'];
 
+/** The commands the Sign-off gates hold back (shared/src/reviews GATED_COMMANDS). */
+const gatedCommands: readonly string[] = ['submit', 'approve', 'release'];
+
 /** The commands the server offers the caller, as buttons; submit names reviewers; return needs a note. */
 export function SignOffCommands({ signOff }: { signOff: SignOff }) {
   const { projectId, designId, revisionNumber, availableCommands } = signOff;
   const [note, setNote] = useState('');
   const [reviewerIds, setReviewerIds] = useState<string[]>([]);
+  const [override, setOverride] = useState<OverrideDraft>({ isOverriding: false, reason: '' });
   const submit = useSubmitRevision(projectId, designId, revisionNumber);
   const command = useRunSignOffCommand(projectId, designId, revisionNumber);
   const offered = noteCommands.filter((name) => availableCommands.includes(name));
@@ -28,7 +33,13 @@ export function SignOffCommands({ signOff }: { signOff: SignOff }) {
   const onDone = () => {
     setNote('');
     setReviewerIds([]);
+    setOverride({ isOverriding: false, reason: '' });
   };
+  const hasGatedCommand = availableCommands.some((name) => gatedCommands.includes(name));
+  const gateReasons = hasGatedCommand ? signOff.gateReasons : [];
+  const isHeldBack = gateReasons.length > 0 && !isOverrideReady(override);
+  const overrideField =
+    gateReasons.length > 0 && isOverrideReady(override) ? { override: { reason: override.reason.trim() } } : {};
 
   if (!canSubmit && offered.length === 0) {
     return (
@@ -63,6 +74,7 @@ export function SignOffCommands({ signOff }: { signOff: SignOff }) {
             </Stack>
           </Checkbox.Group>
         ))}
+      <SignOffGates reasons={gateReasons} draft={override} onChange={setOverride} />
       <Textarea
         label="Note"
         description={offered.includes('return') ? 'Required to return the revision' : 'Optional'}
@@ -75,9 +87,12 @@ export function SignOffCommands({ signOff }: { signOff: SignOff }) {
         {canSubmit && (
           <Button
             loading={submit.isPending}
-            disabled={isBusy || reviewerIds.length === 0}
+            disabled={isBusy || reviewerIds.length === 0 || isHeldBack}
             onClick={() =>
-              submit.mutate({ reviewerIds, ...(trimmedNote ? { note: trimmedNote } : {}) }, { onSuccess: onDone })
+              submit.mutate(
+                { reviewerIds, ...(trimmedNote ? { note: trimmedNote } : {}), ...overrideField },
+                { onSuccess: onDone },
+              )
             }
           >
             Submit for Sign-off
@@ -89,10 +104,18 @@ export function SignOffCommands({ signOff }: { signOff: SignOff }) {
             variant={name === 'approve' || name === 'release' ? 'filled' : 'default'}
             color={name === 'return' ? 'ember' : undefined}
             loading={command.isPending && command.variables?.command === name}
-            disabled={isBusy || (name === 'return' && trimmedNote === '')}
+            disabled={
+              isBusy || (name === 'return' && trimmedNote === '') || (gatedCommands.includes(name) && isHeldBack)
+            }
             onClick={() =>
               command.mutate(
-                { command: name, request: trimmedNote ? { note: trimmedNote } : {} },
+                {
+                  command: name,
+                  request: {
+                    ...(trimmedNote ? { note: trimmedNote } : {}),
+                    ...(gatedCommands.includes(name) ? overrideField : {}),
+                  },
+                },
                 { onSuccess: onDone },
               )
             }

@@ -66,6 +66,57 @@ describe('SignOffPanel', () => {
     expect(screen.getByText(/waiting for Northfold Reviewer/)).toBeInTheDocument();
   });
 
+  it('shows the closed gates before the click and approves only with an override reason of 20+ characters', async () => {
+    const gated: SignOff = {
+      ...base,
+      gateReasons: [{ code: 'failing_checks', message: '1 Check fails: c1-voltage (C1)', checkIds: ['c1-voltage'] }],
+    };
+    fetchMock.mockResolvedValue(jsonResponse({ ...gated, state: 'approved', availableCommands: [] }));
+    renderWithApp(<SignOffPanel signOff={gated} />);
+    expect(screen.getByText('1 Check fails: c1-voltage (C1)')).toBeInTheDocument();
+    const approve = screen.getByRole('button', { name: 'Approve' });
+    expect(approve).toBeDisabled();
+    expect(screen.getByRole('button', { name: 'Return with note' })).toBeDisabled();
+
+    fireEvent.click(screen.getByRole('checkbox', { name: /Record an override/ }));
+    const reason = screen.getByLabelText(/Override reason/);
+    fireEvent.change(reason, { target: { value: 'short reason' } });
+    expect(approve).toBeDisabled();
+    fireEvent.change(reason, { target: { value: 'C1 is swapped for a 1 kV part at build' } });
+    expect(approve).toBeEnabled();
+    fireEvent.click(approve);
+
+    await waitFor(() => expect(fetchMock).toHaveBeenCalledTimes(1));
+    expect(lastCall()).toEqual({
+      url: '/api/projects/p-1/designs/d-1/revisions/3/approve',
+      method: 'POST',
+      body: { override: { reason: 'C1 is swapped for a 1 kV part at build' } },
+    });
+  });
+
+  it('lists recorded overrides with their reasons', () => {
+    renderWithApp(
+      <SignOffPanel
+        signOff={{
+          ...base,
+          overrides: [
+            {
+              command: 'submit',
+              actorId: 'u-eng',
+              actorName: 'Northfold Engineer',
+              reason: 'Pilot build only, agreed with the lead',
+              overridden: [{ code: 'open_threads', message: '1 comment thread is still open', threadCount: 1 }],
+              at: '2025-03-04T10:00:00.000Z',
+            },
+          ],
+        }}
+      />,
+    );
+    const overrides = screen.getByRole('list', { name: 'Overrides' });
+    expect(overrides).toHaveTextContent(/override on submit.*Northfold Engineer.*Pilot build only/);
+    expect(overrides).toHaveTextContent('Past: 1 comment thread is still open');
+  });
+
   it('says so when no command is open to the caller', () => {
     renderWithApp(<SignOffPanel signOff={{ ...base, availableCommands: [] }} />);
     expect(screen.queryByRole('button')).not.toBeInTheDocument();

@@ -40,6 +40,26 @@ export function SignOffPanel({ signOff }: { signOff: SignOff }) {
           </List>
         )}
       </Paper>
+      {signOff.overrides.length > 0 && (
+        <Paper withBorder p="md">
+          <Title order={2} size="h4" mb="xs">
+            Overrides
+          </Title>
+          <List size="sm" aria-label="Overrides">
+            {signOff.overrides.map((override) => (
+              <List.Item key={`${override.command}-${override.at}`}>
+                <Text span fw={600} size="sm">
+                  override on {override.command}
+                </Text>{' '}
+                by {override.actorName ?? 'unknown'} on {new Date(override.at).toLocaleString()}: “{override.reason}”
+                <Text size="xs" c="dimmed">
+                  Past: {override.overridden.map((reason) => reason.message).join('; ')}
+                </Text>
+              </List.Item>
+            ))}
+          </List>
+        </Paper>
+      )}
       <Paper withBorder p="md">
         <Title order={2} size="h4" mb="xs">
           History

@@ -95,12 +95,7 @@ export function SizerPanel({ onStartDesign, isStarting, shelf = [] }: SizerPanel
               onChange={setSourceResistanceOhm}
             />
           </SimpleGrid>
-          <Checkbox.Group
-            label="Topologies"
-            value={topologies}
-            onChange={(v) => setTopologies(v as Topology[])}
-            mt="sm"
-          >
+          <Checkbox.Group label="Topologies" value={topologies} onChange={(v) => setTopologies(v)} mt="sm">
             <Group gap="md" mt={4}>
               {topologyOptions.map((option) => (
                 <Checkbox key={option.value} value={option.value} label={option.label} />
@@ -114,7 +109,7 @@ export function SizerPanel({ onStartDesign, isStarting, shelf = [] }: SizerPanel
             <SegmentedControl
               aria-labelledby="sizer-value-source"
               value={valueSource}
-              onChange={(value) => setValueSource(value as ValueSource)}
+              onChange={(value) => setValueSource(value)}
               data={[
                 { value: 'e-series', label: 'E-series' },
                 { value: 'shelf', label: 'Parts shelf', disabled: shelf.length === 0 },

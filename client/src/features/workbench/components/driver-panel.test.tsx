@@ -21,6 +21,17 @@ describe('DriverPanel', () => {
     expect(screen.getByRole('button', { name: 'How frequency is computed' })).toBeTruthy();
   });
 
+  it('shows one efficiency: the figures table and the power balance carry the rated-load figure', () => {
+    const driver = analyzeDesign(designExamples.surfaceChargeTester).driver!;
+    renderWithApp(<DriverPanel driver={driver} />);
+    const percent = `${(driver.energy.efficiency * 100).toFixed(1)} %`;
+    expect(within(screen.getByRole('table', { name: 'Driver figures' })).getByText(percent)).toBeTruthy();
+    expect(screen.getByText(/at the rated load: in/).textContent).toContain(`efficiency ${percent}`);
+    const losses = screen.getByRole('table', { name: 'Losses' });
+    expect(within(losses).getByText('bleeder')).toBeTruthy();
+    expect(within(losses).getByText(formatQuantity(driver.energy.losses.bleeder, 'W'))).toBeTruthy();
+  });
+
   it('draws the operating curve with the power-limit onset and the rated load named beside it', () => {
     const driver = analyzeDesign(designExamples.surfaceChargeTester).driver!;
     const op = driver.operatingPoint;

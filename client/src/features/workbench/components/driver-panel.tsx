@@ -1,5 +1,5 @@
 import { Group, Paper, SimpleGrid, Stack, Table, Text, Title } from '@mantine/core';
-import type { DriverReport } from '@ladderwright/shared/driver';
+import type { DriverEnergy, DriverReport, LossKind } from '@ladderwright/shared/driver';
 import type { QuantityUnit } from '@ladderwright/shared/units';
 import { formatQuantity } from '@ladderwright/shared/units';
 import { DriverOperatingCurve } from './driver-operating-curve';
@@ -24,6 +24,58 @@ const rows: { key: keyof DriverReport['figures']; label: string; unit: QuantityU
   { key: 'efficiency', label: 'Efficiency', unit: '' },
 ];
 
+const lossLabels: Record<LossKind, string> = {
+  transistorConduction: 'transistor conduction',
+  transistorSwitching: 'transistor switching',
+  baseEmitter: 'base-emitter junction',
+  baseResistor: 'base resistor and feedback winding',
+  primaryCopper: 'primary copper',
+  collectorResistor: 'collector resistor',
+  secondaryCopper: 'secondary copper',
+  clamp: 'clamp (leakage and unused flyback)',
+  core: 'core',
+  diodes: 'ladder diodes',
+  bleeder: 'bleeder',
+  seriesOutputResistor: 'series output resistor',
+  lamp: 'indicator lamp',
+  supplyResistance: 'supply internal resistance',
+};
+
+/** Input, output and where the rest goes at the rated load, with the transistor's junction temperature. */
+function PowerBalance({ energy }: { energy: DriverEnergy }) {
+  const shown = (Object.entries(energy.losses) as [LossKind, number][]).filter(
+    ([, w]) => Math.abs(w) > 1e-6 * energy.inputPowerW,
+  );
+  return (
+    <Stack gap={2} aria-label="Power balance">
+      <Group gap={6}>
+        <Text size="sm" fw={500} data-driver="power-balance">
+          at the rated load: in {formatQuantity(energy.inputPowerW, 'W')}, out{' '}
+          {formatQuantity(energy.outputPowerW, 'W')}, efficiency {(energy.efficiency * 100).toFixed(1)} %
+        </Text>
+        <MethodNote subject="power balance" method={energy.method} />
+      </Group>
+      <Table fz="xs" verticalSpacing={1} aria-label="Losses">
+        <Table.Tbody>
+          {shown.map(([kind, w]) => (
+            <Table.Tr key={kind}>
+              <Table.Td>{lossLabels[kind]}</Table.Td>
+              <Table.Td>{formatQuantity(w, 'W')}</Table.Td>
+              <Table.Td>{((w / energy.inputPowerW) * 100).toFixed(1)} %</Table.Td>
+            </Table.Tr>
+          ))}
+        </Table.Tbody>
+      </Table>
+      <Text size="xs">
+        transistor {formatQuantity(energy.transistor.dissipationW, 'W')}, junction about{' '}
+        {energy.transistor.junctionTemperatureC.toFixed(0)} °C at {energy.transistor.thermalResistanceCPerW} °C/W
+        {energy.transistor.isDefaultThermal && ' (assumed)'}; clamp {formatQuantity(energy.clamp.dissipationW, 'W')}
+        {energy.clamp.ratedPowerW !== null && ` of ${formatQuantity(energy.clamp.ratedPowerW, 'W')} rated`}
+      </Text>
+    </Stack>
+  );
+}
+
 /** The driver section of a report: the operating point and its curve, the stage's figures with their method notes, battery life. */
 export function DriverPanel({ driver }: DriverPanelProps) {
   const { figures, operatingPoint: op, batteryLife } = driver;
@@ -31,6 +83,12 @@ export function DriverPanel({ driver }: DriverPanelProps) {
     <Paper withBorder p="sm" aria-label="Driver stage">
       <Stack gap="xs">
         <Title order={4}>Driver stage</Title>
+        {!driver.validity.isWithinValidity && (
+          <Text size="sm" c="orange.8" data-driver="validity">
+            Instant estimate outside its validity ({driver.validity.reasons.join('; ')}): run a simulation for these
+            figures.
+          </Text>
+        )}
         <SimpleGrid cols={{ base: 1, sm: 3 }} spacing="xs">
           <Text size="sm" data-driver="limited-by">
             {op.limitedBy === 'power'
@@ -70,13 +128,15 @@ export function DriverPanel({ driver }: DriverPanelProps) {
           <Text size="sm">hipot to ask of the supplier {formatQuantity(driver.hipotTestVoltageV.value, 'V')}</Text>
           <MethodNote subject="hipot test voltage" method={driver.hipotTestVoltageV.method} />
         </Group>
+        <PowerBalance energy={driver.energy} />
         {batteryLife && (
           <Group gap={6}>
             <Text size="sm" data-driver="battery-life">
               battery life to {formatQuantity(batteryLife.endVoltagePerCellV, 'V')} per cell:{' '}
               {(batteryLife.lifeS.value / 3600).toFixed(1)} h
               {batteryLife.targetS !== null && ` (target ${(batteryLife.targetS / 3600).toFixed(1)} h)`}, mean drain{' '}
-              {formatQuantity(batteryLife.meanCurrentA, 'A')}
+              {formatQuantity(batteryLife.meanCurrentA, 'A')}, delivering {batteryLife.deliveredAh.toFixed(2)} Ah at
+              that drain
             </Text>
             <MethodNote subject="battery life" method={batteryLife.lifeS.method} />
           </Group>

@@ -1,116 +1,68 @@
 import { SimpleGrid, Text } from '@mantine/core';
-import { CartesianGrid, Line, LineChart, ReferenceDot, ReferenceLine, Tooltip, XAxis, YAxis } from 'recharts';
 import type { DesignReport } from '@ladderwright/shared/analysis';
 import { formatQuantity } from '@ladderwright/shared/units';
-import { quantityTickFormatter } from '../../../lib/tick-format';
-import { ChartCard } from './chart-card';
+import { chartColors, QuantityChart } from '../../../components/quantity-chart';
+import { MethodNote } from './method-note';
 
 export interface LadderChartsProps {
   report: DesignReport;
 }
 
-const axisTick = { fontSize: 11 };
-
 /** Output vs load current (regulation) and output vs stage count with the optimum marked, from the engine's curves. */
 export function LadderCharts({ report }: LadderChartsProps) {
   const curves = report.curves;
   const operatingCurrentA = report.analysis.loadCurrentA;
-  const regulationCurrentTick = quantityTickFormatter([0, ...curves.regulation.map((p) => p.x)], 'A');
-  const regulationVoltageTick = quantityTickFormatter(
-    curves.regulation.map((p) => p.y),
-    'V',
-  );
-  const stagesVoltageTick = quantityTickFormatter(
-    curves.outputVsStages.map((p) => p.y),
-    'V',
-  );
+  const [outputColor = '', , designColor = ''] = chartColors.traces;
   return (
-    <SimpleGrid cols={{ base: 1, md: 2 }} spacing="md">
-      <ChartCard
+    <SimpleGrid type="container" cols={{ base: 1, '620px': 2 }} spacing="md">
+      <QuantityChart
         label="Output vs load current"
         title="Output vs load current"
-        method={{ subject: 'the regulation curve', method: curves.method }}
+        actions={<MethodNote subject="the regulation curve" method={curves.method} />}
         heightPx={220}
+        data={curves.regulation}
+        x={{ key: 'x', title: 'Load current', unit: 'A', includesZero: true }}
+        y={{ title: 'Output', unit: 'V', includesZero: true }}
+        series={[{ key: 'y', name: 'output (mean)', color: outputColor }]}
+        markers={[
+          {
+            key: 'operating',
+            label: `operating load ${formatQuantity(operatingCurrentA, 'A')}`,
+            x: operatingCurrentA,
+            color: chartColors.mark,
+          },
+        ]}
         footer={
           <Text size="xs" c="dimmed">
             Short-circuit current {formatQuantity(curves.shortCircuitCurrentA, 'A')}
           </Text>
         }
-      >
-        <LineChart data={curves.regulation} margin={{ top: 8, right: 16, bottom: 16, left: 8 }}>
-          <CartesianGrid strokeDasharray="2 4" />
-          <XAxis
-            dataKey="x"
-            type="number"
-            tick={axisTick}
-            tickFormatter={regulationCurrentTick}
-            domain={[0, 'dataMax']}
-            label={{ value: 'load current', position: 'insideBottom', offset: -8, fontSize: 11 }}
-          />
-          <YAxis tick={axisTick} tickFormatter={regulationVoltageTick} width={64} />
-          <Tooltip
-            formatter={(y) => formatQuantity(Number(y), 'V')}
-            labelFormatter={(x) => formatQuantity(Number(x), 'A')}
-          />
-          <ReferenceLine
-            x={operatingCurrentA}
-            stroke="var(--mantine-color-ember-7)"
-            strokeDasharray="4 3"
-            label={{ value: 'operating load', fontSize: 10, position: 'insideTopRight' }}
-          />
-          <Line
-            type="monotone"
-            dataKey="y"
-            name="output"
-            stroke="var(--mantine-primary-color-filled)"
-            strokeWidth={2}
-            dot={false}
-            isAnimationActive={false}
-          />
-        </LineChart>
-      </ChartCard>
-      <ChartCard
+      />
+      <QuantityChart
         label="Output vs stage count"
         title="Output vs stage count"
-        method={{ subject: 'output vs stage count', method: curves.method }}
+        actions={<MethodNote subject="output vs stage count" method={curves.method} />}
         heightPx={220}
-        footer={
-          <Text size="xs" c="dimmed">
-            Optimum {curves.optimumStages} stages, {formatQuantity(curves.optimumOutputV, 'V')}
-          </Text>
-        }
-      >
-        <LineChart data={curves.outputVsStages} margin={{ top: 8, right: 16, bottom: 16, left: 8 }}>
-          <CartesianGrid strokeDasharray="2 4" />
-          <XAxis
-            dataKey="x"
-            type="number"
-            tick={axisTick}
-            allowDecimals={false}
-            domain={['dataMin', 'dataMax']}
-            label={{ value: 'stages', position: 'insideBottom', offset: -8, fontSize: 11 }}
-          />
-          <YAxis tick={axisTick} tickFormatter={stagesVoltageTick} width={64} />
-          <Tooltip formatter={(y) => formatQuantity(Number(y), 'V')} labelFormatter={(x) => `${String(x)} stages`} />
-          <Line
-            type="monotone"
-            dataKey="y"
-            name="output"
-            stroke="var(--mantine-primary-color-filled)"
-            strokeWidth={2}
-            dot={{ r: 2 }}
-            isAnimationActive={false}
-          />
-          <ReferenceDot
-            x={curves.optimumStages}
-            y={curves.optimumOutputV}
-            r={5}
-            fill="var(--mantine-color-ember-6)"
-            stroke="none"
-            label={{ value: `optimum ${curves.optimumStages}`, position: 'top', fontSize: 10 }}
-          />
-        </LineChart>
-      </ChartCard>
+        data={curves.outputVsStages}
+        x={{ key: 'x', title: 'Stages', unit: '', isInteger: true }}
+        y={{ title: 'Output', unit: 'V' }}
+        series={[{ key: 'y', name: 'output (mean) at the operating load', color: outputColor, hasDots: true }]}
+        markers={[
+          {
+            key: 'optimum',
+            label: `optimum ${curves.optimumStages} stages, ${formatQuantity(curves.optimumOutputV, 'V')}`,
+            x: curves.optimumStages,
+            y: curves.optimumOutputV,
+            color: chartColors.mark,
+          },
+          {
+            key: 'design',
+            label: `this design ${report.analysis.stageCount} stages`,
+            x: report.analysis.stageCount,
+            color: designColor,
+          },
+        ]}
+      />
     </SimpleGrid>
   );
 }

@@ -7,20 +7,23 @@ import { renderWithApp } from '../../../testing/render';
 import { LadderDiagram } from './ladder-diagram';
 
 describe('LadderDiagram', () => {
-  it('labels every capacitor top node with the engine’s mean node voltage', () => {
-    const report = analyzeDesign(designExamples.detectorBias as Design);
-    renderWithApp(<LadderDiagram report={report} />);
+  it('labels every capacitor top node with the engine’s mean node voltage and every capacitor with its value', () => {
+    const design = designExamples.detectorBias as Design;
+    const report = analyzeDesign(design);
+    renderWithApp(<LadderDiagram report={report} design={design} />);
+    const drawn = [...document.querySelectorAll('[data-schematic] text')].map((text) => text.textContent);
     const ladderNodes = report.analysis.nodes.filter((n) => n.capacitorIndex !== null);
     expect(ladderNodes).toHaveLength(report.analysis.capacitors.length);
-    for (const node of ladderNodes) {
-      expect(screen.getByLabelText(`node ${node.label} mean`).textContent).toBe(formatQuantity(node.meanV, 'V', 3));
-    }
+    for (const node of ladderNodes) expect(drawn).toContain(formatQuantity(node.meanV, 'V', 3));
+    for (const capacitor of report.analysis.capacitors)
+      expect(drawn).toContain(`C${capacitor.index} ${formatQuantity(capacitor.valueF, 'F', 3)}`);
   });
 
   it('shows the engine’s node-voltage method in the diagram’s info popover, as listed among the report’s methods', async () => {
-    const report = analyzeDesign(designExamples.detectorBias as Design);
+    const design = designExamples.detectorBias as Design;
+    const report = analyzeDesign(design);
     expect(report.methods).toContainEqual(report.analysis.nodeMethod);
-    renderWithApp(<LadderDiagram report={report} />);
+    renderWithApp(<LadderDiagram report={report} design={design} />);
     fireEvent.click(screen.getByRole('button', { name: 'How each node voltage is computed' }));
     expect(await screen.findByText(report.analysis.nodeMethod.methodId)).toBeTruthy();
     expect(screen.getByText(report.analysis.nodeMethod.summary)).toBeTruthy();

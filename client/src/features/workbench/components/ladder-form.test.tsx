@@ -61,12 +61,12 @@ describe('LadderForm driver fields', () => {
   );
 
   it(
-    'shows the engine’s message beside the primary inductance when it is set to zero',
+    'shows the validator’s message beside the primary inductance when it is set to zero',
     () => {
       renderWithApp(<Harness onDocument={() => undefined} />);
       const field = screen.getByLabelText('Primary inductance');
       fireEvent.change(field, { target: { value: '0 H' } });
-      expect(screen.getByText('primary inductance must be positive')).toBeTruthy();
+      expect(screen.getByText('must be greater than zero')).toBeTruthy();
       expect(field.getAttribute('aria-invalid')).toBe('true');
     },
     timeoutMs,

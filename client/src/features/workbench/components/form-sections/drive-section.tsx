@@ -125,7 +125,7 @@ function SupplyFields({
             error={issue(`${DRIVER_PATH}.supply.chemistry`)}
             onChange={(v) =>
               edit((dr) => {
-                if (dr.supply.kind === 'cells' && v) dr.supply.chemistry = v as CellChemistry;
+                if (dr.supply.kind === 'cells' && v) dr.supply.chemistry = v;
               })
             }
           />

@@ -63,7 +63,7 @@ export function LadderSection({
           value={m.topology}
           allowDeselect={false}
           data={topologies}
-          onChange={(v) => v && setShape(v as Topology, m.cellCount)}
+          onChange={(v) => v && setShape(v, m.cellCount)}
           error={issue('multiplier.topology')}
         />
         <NumberInput

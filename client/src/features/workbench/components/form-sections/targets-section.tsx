@@ -56,7 +56,7 @@ export function TargetsSection({ document, edit, issue }: SectionProps) {
         onChange={(v) =>
           v &&
           edit((d) => {
-            d.targets.spacing.materialGroup = v as Design['targets']['spacing']['materialGroup'];
+            d.targets.spacing.materialGroup = v;
           })
         }
       />

@@ -54,7 +54,7 @@ export function TransistorSection({ driver, edit, issue }: DriverSectionProps) {
           error={issue(`${DRIVER_PATH}.clamp`)}
           onChange={(v) =>
             edit((dr) => {
-              const next = clampOf((v ?? 'none') as ClampKind, dr.clamp);
+              const next = clampOf(v ?? 'none', dr.clamp);
               if (next) dr.clamp = next;
               else delete dr.clamp;
             })

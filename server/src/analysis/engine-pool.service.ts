@@ -1,0 +1,69 @@
+import { Inject, Injectable, type OnModuleDestroy, ServiceUnavailableException } from '@nestjs/common';
+import { Piscina } from 'piscina';
+import { DomainError } from '@ladderwright/shared/errors';
+import { workerEntry } from '../common/workers/worker-entry';
+import { APP_ENV, type AppEnv } from '../config/env';
+import { ENGINE_TASK_NAME, type EngineTask, type EngineTaskOutcome } from './engine-task.types';
+
+/**
+ * The piscina pool of engine worker threads (`AppEnv.engineWorkers`), apart from the simulation pool so
+ * that a long simulation job never holds up a request. Each request's engine work gets
+ * `AppEnv.engineBudgetMs` once a thread is ready; past it the thread is stopped (piscina starts another)
+ * and the request is refused with `budget_exceeded`, naming the budget.
+ */
+@Injectable()
+export class EnginePoolService implements OnModuleDestroy {
+  private pool: Piscina | null = null;
+  private ready: Promise<unknown> | null = null;
+
+  constructor(@Inject(APP_ENV) private readonly env: AppEnv) {}
+
+  /** The worker's outcome for `task`, within the budget. */
+  async run(task: EngineTask): Promise<EngineTaskOutcome> {
+    const pool = this.ensurePool();
+    // A thread's start-up (module loading) is not the request's engine work: wait for it first.
+    this.ready ??= pool.run({ kind: 'warm-up' }, { name: ENGINE_TASK_NAME });
+    await this.ready;
+    const budgetMs = this.env.engineBudgetMs;
+    const abort = new AbortController();
+    const timer = setTimeout(() => abort.abort(), budgetMs);
+    try {
+      return (await pool.run(task, { name: ENGINE_TASK_NAME, signal: abort.signal })) as EngineTaskOutcome;
+    } catch (error) {
+      if (abort.signal.aborted) {
+        this.ready = null;
+        throw new DomainError(
+          'budget_exceeded',
+          `the engine needed more than this request's budget of ${budgetMs} ms; reduce the ladder or run a simulation job`,
+          'document',
+        );
+      }
+      if (error instanceof Error && /queue is full/i.test(error.message)) {
+        throw new ServiceUnavailableException('The engine is busy; try again shortly');
+      }
+      throw error;
+    } finally {
+      clearTimeout(timer);
+    }
+  }
+
+  async onModuleDestroy(): Promise<void> {
+    const pool = this.pool;
+    this.pool = null;
+    this.ready = null;
+    await pool?.destroy();
+  }
+
+  private ensurePool(): Piscina {
+    if (this.pool) return this.pool;
+    this.pool = new Piscina({
+      ...workerEntry(__dirname, 'engine.worker'),
+      name: ENGINE_TASK_NAME,
+      minThreads: 1,
+      maxThreads: this.env.engineWorkers,
+      idleTimeout: 60_000,
+      maxQueue: 'auto',
+    });
+    return this.pool;
+  }
+}

@@ -1,0 +1,23 @@
+import { analyzeDesign } from '@ladderwright/shared/analysis';
+import { validateDesign } from '@ladderwright/shared/designs';
+import { isDomainError } from '@ladderwright/shared/errors';
+import { analyzeWithShelf } from '@ladderwright/shared/parts';
+import type { EngineTask, EngineTaskOutcome, EngineWarmUp } from './engine-task.types';
+
+/*
+ * Worker-thread entry (piscina) of the engine: the steady-state analysis of one design runs here, off the
+ * request thread. The document is validated again, so the limits of the domain hold for every document
+ * that reaches the engine, including ones stored before a limit existed. The report is returned as is:
+ * the structured clone of the thread boundary is the only copy.
+ */
+export function runEngineTask(task: EngineTask | EngineWarmUp): EngineTaskOutcome {
+  if (task.kind === 'warm-up') return { ok: true, report: null };
+  try {
+    const design = validateDesign(task.document);
+    const report = task.shelf ? analyzeWithShelf(design, task.shelf) : analyzeDesign(design);
+    return { ok: true, report };
+  } catch (error) {
+    if (!isDomainError(error)) throw error;
+    return { ok: false, error: { code: error.code, message: error.message, field: error.field, issues: error.issues } };
+  }
+}

@@ -1,0 +1,66 @@
+/**
+ * Upper bounds on everything a design document can carry, from the domain: what a small high-voltage DC
+ * supply (a blocking oscillator or a sine or pulse secondary feeding a diode-capacitor ladder) can
+ * plausibly need, with room to spare. They keep any one request's memory and engine time bounded;
+ * the design schema (design.schema.ts) states them, so the published JSON Schema says them too.
+ * Standing: common practice, no source.
+ */
+export const designLimits = {
+  /**
+   * Cells of one ladder. Droop grows with the cube of the stage count, so ladders past a few dozen
+   * stages are impractical; 400 cells (200 half-wave stages) leaves room for studies.
+   */
+  maxCellCount: 400,
+  /** Capacitors of one ladder: three per stage in a full-wave cascade. */
+  maxCapacitorCount: 3 * 400,
+  /** Equal resistors of one bleeder string (a 1 MV string of 1 kV parts). */
+  maxBleederCount: 1000,
+  /** Points of one per-cell discharge curve. */
+  maxCurvePoints: 64,
+  /** Cells in series in one battery. */
+  maxCellsInSeries: 64,
+  /** Turns of one transformer winding. */
+  maxTurns: 1e6,
+  /** Any voltage in the document (1 MV). */
+  maxVoltageV: 1e6,
+  /** Any current in the document. */
+  maxCurrentA: 1e3,
+  /** Any resistance in the document (1 PΩ). */
+  maxResistanceOhm: 1e15,
+  /** Any capacitance in the document. */
+  maxCapacitanceF: 10,
+  /** Any inductance in the document. */
+  maxInductanceH: 1e3,
+  /** Drive frequency: from slow bench transformers to fast switching secondaries. */
+  minFrequencyHz: 0.1,
+  maxFrequencyHz: 1e8,
+  /** Any duration in the document (one day). */
+  maxTimeS: 86_400,
+  /** Altitude above sea level (IEC 60664-1 corrects clearances up to 20 km). */
+  maxAltitudeM: 20_000,
+  /** Creepage a layout provides between adjacent ladder nodes. */
+  maxCreepageMm: 10_000,
+  /** Transistor current gain. */
+  maxBeta: 10_000,
+  /** Diode emission coefficient. */
+  maxEmissionCoefficient: 10,
+  /** Any power in the document (a hand-held or bench supply's parts and losses). */
+  maxPowerW: 1e4,
+  /** Temperatures in °C: from arctic storage to the hottest silicon junction ratings. */
+  minTemperatureC: -60,
+  maxTemperatureC: 250,
+  /** Thermal resistance junction to ambient (°C/W): from a heat-sunk power device to the smallest package. */
+  maxThermalResistanceCPerW: 2000,
+  /** Peukert exponent of a cell (1: no rate dependence). */
+  maxPeukertExponent: 2,
+  /** Battery life target (ten years). */
+  maxBatteryLifeH: 87_600,
+  /** Text lengths, in UTF-16 code units. */
+  maxNameLength: 200,
+  maxNotesLength: 20_000,
+  maxPartCodeLength: 64,
+  /** Depth of objects and lists in one document (the design itself needs 6). */
+  maxDepth: 12,
+  /** Size of one document as JSON text. */
+  maxDocumentBytes: 512 * 1024,
+} as const;

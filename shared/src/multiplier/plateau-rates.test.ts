@@ -1,0 +1,94 @@
+import { lusolve } from 'mathjs';
+import { describe, expect, it } from 'vitest';
+import type { Topology } from '../designs/design.types';
+import { createWorkspace } from './charge-transfer-model';
+import type { LadderInput } from './ladder.types';
+import { plateauRates } from './plateau-rates';
+import { buildLadderNetwork, type LadderNetwork } from './topologies';
+
+/** Capacitor changes for unit charge injected at the nodes, each node's charge running down its column. */
+function treeFlow(net: LadderNetwork, injection: number[]): number[] {
+  const flow = [...injection];
+  const capDelta = new Array<number>(net.capF.length).fill(0);
+  for (let c = net.capF.length - 1; c >= 0; c -= 1) {
+    const q = flow[net.capTop[c]!]!;
+    capDelta[c] = q / net.capF[c]!;
+    flow[net.capBottom[c]!] = flow[net.capBottom[c]!]! + q;
+  }
+  return capDelta;
+}
+
+function nodeRatesOf(net: LadderNetwork, capDelta: number[]): number[] {
+  const rate = new Array<number>(net.nodeCount).fill(0);
+  for (let c = 0; c < capDelta.length; c += 1) rate[net.capTop[c]!] = rate[net.capBottom[c]!]! + capDelta[c]!;
+  return rate;
+}
+
+/**
+ * The same flat-top rates by another route: unknown diode currents x with one equation per conducting
+ * diode (its voltage holds), Σ_d x_d·ΔV_e(d) = −ΔV_e(load), each column a unit diode current run down the
+ * capacitor tree, solved densely by mathjs's LU; the same active-set rounds.
+ */
+function referenceRates(net: LadderNetwork, loadRate: number[], event: number): number[] | null {
+  const nodeLoad = nodeRatesOf(net, loadRate);
+  const across = (rates: number[], e: number) => rates[net.diodeAnode[e]!]! - rates[net.diodeCathode[e]!]!;
+  let set = net.diodeEvent.flatMap((ev, d) => (ev === event ? [d] : []));
+  const unit = new Map(
+    set.map((d) => {
+      const injection = new Array<number>(net.nodeCount).fill(0);
+      injection[net.diodeCathode[d]!] = 1;
+      injection[net.diodeAnode[d]!] = -1;
+      return [d, treeFlow(net, injection)] as const;
+    }),
+  );
+  for (let round = 0; set.length > 0 && round <= set.length; round += 1) {
+    const matrix = set.map((e) => set.map((d) => across(nodeRatesOf(net, unit.get(d)!), e)));
+    const rhs = set.map((e) => [-across(nodeLoad, e)]);
+    const x = (lusolve(matrix, rhs) as number[][]).map((row) => row[0]!);
+    const worst = x.reduce((w, v, j) => (v < -1e-9 && (w < 0 || v < x[w]!) ? j : w), -1);
+    if (worst < 0) {
+      return loadRate.map((rate, c) => rate + set.reduce((s, d, j) => s + x[j]! * unit.get(d)![c]!, 0));
+    }
+    set = set.filter((_, j) => j !== worst);
+  }
+  return null;
+}
+
+const input = {
+  drive: {
+    kind: 'pulse',
+    forwardPeakV: 100,
+    flybackPeakV: 30,
+    frequencyHz: 1e4,
+    dutyCycle: 0.3,
+    sourceResistanceOhm: 1,
+  },
+  polarity: 1,
+  diode: { saturationCurrentA: 1e-9, emissionCoefficient: 2, seriesResistanceOhm: 1 },
+} as unknown as LadderInput;
+
+describe('plateauRates', () => {
+  const cases: [Topology, number][] = [
+    ['bridge-doubler', 2],
+    ...[1, 2, 3, 4, 5, 6, 9, 16].map((n): [Topology, number] => ['half-wave', n]),
+    ...[1, 2, 3, 5].map((n): [Topology, number] => ['full-wave', n]),
+  ];
+  it.each(cases)('agrees with a dense solve of the diode currents: %s, %i cells', (topology, cells) => {
+    // Unequal capacitors so that no symmetry hides a wrong index (values between 0.5 and 1.5 nF).
+    const count = topology === 'full-wave' ? 3 * cells : cells;
+    const capsF = Array.from({ length: count }, (_, i) => 1e-9 * (0.5 + ((i * 0.618) % 1)));
+    const net = buildLadderNetwork(topology, capsF);
+    const ws = createWorkspace(net, input);
+    for (const event of [0, 1]) {
+      const reference = referenceRates(net, ws.loadRate, event);
+      const rates = plateauRates(net, ws.loadRate, event);
+      expect(rates === null).toBe(reference === null);
+      if (!rates || !reference) continue;
+      const scale = Math.max(1, ...reference.map(Math.abs));
+      // Both are exact up to rounding: agreement to 1e-9 of the largest rate.
+      rates.capRate.forEach((rate, c) => expect(Math.abs(rate - reference[c]!)).toBeLessThan(1e-9 * scale));
+      const accumulated = nodeRatesOf(net, rates.capRate);
+      rates.nodeRate.forEach((rate, n) => expect(Math.abs(rate - accumulated[n]!)).toBeLessThan(1e-9 * scale));
+    }
+  });
+});

@@ -1,0 +1,238 @@
+import type { LadderNetwork } from './topologies';
+
+/** Capacitor and node voltage rates per ampere of load through a flat-top phase (V/s per A). */
+export interface PlateauRates {
+  capRate: number[];
+  nodeRate: number[];
+  /** The part of `capRate` carried by the conducting diodes (capRate − the bare load rate). */
+  diodeCapDelta: number[];
+}
+
+/**
+ * Flat-top (pulse) drive: through a phase the source holds still and the diodes that conducted at its
+ * start stay at their conduction boundary while the load draws current, so the load is shared through
+ * them. For the rates the conducting diodes are short circuits and the winding ends fixed, which leaves
+ * a capacitor network: nodal analysis over the nodes the diodes join (Laplacian of the capacitances,
+ * the winding ends as the reference) gives the node rates, and Kirchhoff's current law, node by node
+ * from the ends of each chain of conducting diodes, gives each diode's current. A diode that would need
+ * reverse current drops out (it turns off just after the event) and the network is solved again
+ * (active set). The nodes are numbered up the ladder, so the matrix is banded and each solve costs
+ * time linear in the ladder's length. Null when the network is singular or a diode current is not
+ * determined (then the phase is treated as instantaneous transfer).
+ * Method: modified nodal analysis of a switched-capacitor network (Vlach & Singhal, Computer Methods for
+ * Circuit Analysis and Design, 2nd ed., ch. 2, from memory); the banded LDLᵀ factorization of a symmetric
+ * positive definite matrix (Golub & Van Loan, Matrix Computations, 4th ed., §4.3, from memory).
+ */
+export function plateauRates(net: LadderNetwork, loadRate: readonly number[], event: number): PlateauRates | null {
+  const conducting = new Uint8Array(net.diodeEvent.length);
+  let active = 0;
+  for (let d = 0; d < conducting.length; d += 1) {
+    if (net.diodeEvent[d] === event) {
+      conducting[d] = 1;
+      active += 1;
+    }
+  }
+  // As many rounds as diodes are still conducting, counted as they drop out (about half the set).
+  for (let round = 0; active > 0 && round <= active; round += 1) {
+    const solved = solveShorted(net, conducting);
+    if (!solved) return null;
+    let worst = -1;
+    for (let d = 0; d < conducting.length; d += 1) {
+      if (conducting[d] && (solved.diodeA[d] as number) < -1e-9) {
+        if (worst < 0 || (solved.diodeA[d] as number) < (solved.diodeA[worst] as number)) worst = d;
+      }
+    }
+    if (worst < 0) {
+      const diodeCapDelta = solved.capRate.map((rate, c) => rate - (loadRate[c] as number));
+      return { capRate: solved.capRate, nodeRate: solved.nodeRate, diodeCapDelta };
+    }
+    conducting[worst] = 0;
+    active -= 1;
+  }
+  return null;
+}
+
+function find(parent: Int32Array, n: number): number {
+  let root = n;
+  while (parent[root] !== root) root = parent[root] as number;
+  while (parent[n] !== root) {
+    const next = parent[n] as number;
+    parent[n] = root;
+    n = next;
+  }
+  return root;
+}
+
+/** Node and capacitor rates with the `conducting` diodes shorted, and each diode's current (per A of load). */
+function solveShorted(
+  net: LadderNetwork,
+  conducting: Uint8Array,
+): { capRate: number[]; nodeRate: number[]; diodeA: Float64Array } | null {
+  const nodes = net.nodeCount;
+  const anchors = net.anchorScale.length;
+  const parent = new Int32Array(nodes);
+  for (let n = 0; n < nodes; n += 1) parent[n] = n;
+  // Anchors share one group: the winding ends hold still through the phase.
+  for (let n = 1; n < anchors; n += 1) parent[n] = 0;
+  for (let d = 0; d < conducting.length; d += 1) {
+    if (!conducting[d]) continue;
+    const a = find(parent, net.diodeAnode[d] as number);
+    const b = find(parent, net.diodeCathode[d] as number);
+    if (a !== b) parent[Math.max(a, b)] = Math.min(a, b);
+  }
+  // Unknowns: the groups not holding an anchor, numbered by their lowest node (up the ladder).
+  const index = new Int32Array(nodes).fill(-1);
+  const groupOf = new Int32Array(nodes);
+  let size = 0;
+  for (let n = 0; n < nodes; n += 1) {
+    const g = find(parent, n);
+    groupOf[n] = g;
+    if (g !== 0 && index[g] === -1) index[g] = size++;
+  }
+  const m = net.capF.length;
+  let band = 0;
+  for (let c = 0; c < m; c += 1) {
+    const u = index[groupOf[net.capTop[c] as number] as number] as number;
+    const v = index[groupOf[net.capBottom[c] as number] as number] as number;
+    if (u >= 0 && v >= 0) band = Math.max(band, Math.abs(u - v));
+  }
+  const w = band + 1;
+  // Lower band of the symmetric matrix: entry (i, j ≤ i) at i·w + (i − j).
+  const matrix = new Float64Array(size * w);
+  for (let c = 0; c < m; c += 1) {
+    const u = index[groupOf[net.capTop[c] as number] as number] as number;
+    const v = index[groupOf[net.capBottom[c] as number] as number] as number;
+    if (u === v) continue;
+    const f = net.capF[c] as number;
+    if (u >= 0) matrix[u * w] = (matrix[u * w] as number) + f;
+    if (v >= 0) matrix[v * w] = (matrix[v * w] as number) + f;
+    if (u >= 0 && v >= 0) {
+      const hi = Math.max(u, v);
+      matrix[hi * w + Math.abs(u - v)] = (matrix[hi * w + Math.abs(u - v)] as number) - f;
+    }
+  }
+  // One ampere out of the output node into the return node.
+  const injection = new Float64Array(nodes);
+  injection[net.outNode] = -1;
+  injection[net.returnNode] = (injection[net.returnNode] as number) + 1;
+  const x = new Float64Array(size);
+  for (let n = 0; n < nodes; n += 1) {
+    const i = index[groupOf[n] as number] as number;
+    if (i >= 0) x[i] = (x[i] as number) + (injection[n] as number);
+  }
+  if (!solveBandedSpd(matrix, x, size, band)) return null;
+  const nodeRate = new Array<number>(nodes);
+  for (let n = 0; n < nodes; n += 1) {
+    const i = index[groupOf[n] as number] as number;
+    nodeRate[n] = i >= 0 ? (x[i] as number) : 0;
+  }
+  const capRate = new Array<number>(m);
+  // What each node must pass through its conducting diodes: its injection less what its capacitors take.
+  const excess = injection;
+  for (let c = 0; c < m; c += 1) {
+    const top = net.capTop[c] as number;
+    const bottom = net.capBottom[c] as number;
+    const rate = (nodeRate[top] as number) - (nodeRate[bottom] as number);
+    capRate[c] = rate;
+    const currentA = (net.capF[c] as number) * rate;
+    excess[top] = (excess[top] as number) - currentA;
+    excess[bottom] = (excess[bottom] as number) + currentA;
+  }
+  const diodeA = diodeCurrents(net, conducting, excess, anchors);
+  return diodeA ? { capRate, nodeRate, diodeA } : null;
+}
+
+/**
+ * Currents of the conducting diodes (anode to cathode) from each node's excess, peeling chains of
+ * diodes from their ends; a winding end takes any current, so it never ends a chain. Null when a diode
+ * is left undetermined (a loop of conducting diodes).
+ */
+function diodeCurrents(
+  net: LadderNetwork,
+  conducting: Uint8Array,
+  excess: Float64Array,
+  anchors: number,
+): Float64Array | null {
+  const nodes = net.nodeCount;
+  const degree = new Int32Array(nodes);
+  let open = 0;
+  for (let d = 0; d < conducting.length; d += 1) {
+    if (!conducting[d]) continue;
+    degree[net.diodeAnode[d] as number] = (degree[net.diodeAnode[d] as number] as number) + 1;
+    degree[net.diodeCathode[d] as number] = (degree[net.diodeCathode[d] as number] as number) + 1;
+    open += 1;
+  }
+  // Conducting diodes at each node, as a flat adjacency list.
+  const start = new Int32Array(nodes + 1);
+  for (let n = 0; n < nodes; n += 1) start[n + 1] = (start[n] as number) + (degree[n] as number);
+  const fill = start.slice(0, nodes);
+  const incident = new Int32Array(start[nodes] as number);
+  for (let d = 0; d < conducting.length; d += 1) {
+    if (!conducting[d]) continue;
+    for (const n of [net.diodeAnode[d] as number, net.diodeCathode[d] as number]) {
+      incident[fill[n] as number] = d;
+      fill[n] = (fill[n] as number) + 1;
+    }
+  }
+  const current = new Float64Array(conducting.length);
+  const known = new Uint8Array(conducting.length);
+  const queue: number[] = [];
+  for (let n = anchors; n < nodes; n += 1) if (degree[n] === 1) queue.push(n);
+  while (queue.length > 0) {
+    const n = queue.pop() as number;
+    if (degree[n] !== 1) continue;
+    let d = -1;
+    for (let k = start[n] as number; k < (start[n + 1] as number); k += 1) {
+      if (!known[incident[k] as number]) d = incident[k] as number;
+    }
+    if (d < 0) continue;
+    const isAnode = net.diodeAnode[d] === n;
+    const x = isAnode ? (excess[n] as number) : -(excess[n] as number);
+    current[d] = x;
+    known[d] = 1;
+    open -= 1;
+    degree[n] = 0;
+    const other = isAnode ? (net.diodeCathode[d] as number) : (net.diodeAnode[d] as number);
+    excess[other] = (excess[other] as number) + (isAnode ? x : -x);
+    degree[other] = (degree[other] as number) - 1;
+    if (other >= anchors && degree[other] === 1) queue.push(other);
+  }
+  return open === 0 ? current : null;
+}
+
+/** Solves A·x = b in place for a symmetric positive definite band matrix (lower band, width `band`); false when not. */
+function solveBandedSpd(a: Float64Array, b: Float64Array, n: number, band: number): boolean {
+  const w = band + 1;
+  const at = (i: number, j: number): number => i * w + (i - j);
+  // LDLᵀ: L unit lower (stored below the diagonal), D on the diagonal.
+  for (let j = 0; j < n; j += 1) {
+    let dj = a[at(j, j)] as number;
+    for (let k = Math.max(0, j - band); k < j; k += 1) {
+      const ljk = a[at(j, k)] as number;
+      dj -= ljk * ljk * (a[at(k, k)] as number);
+    }
+    if (!(dj > 0)) return false;
+    a[at(j, j)] = dj;
+    const last = Math.min(n - 1, j + band);
+    for (let i = j + 1; i <= last; i += 1) {
+      let s = a[at(i, j)] as number;
+      for (let k = Math.max(0, i - band); k < j; k += 1) {
+        s -= (a[at(i, k)] as number) * (a[at(j, k)] as number) * (a[at(k, k)] as number);
+      }
+      a[at(i, j)] = s / dj;
+    }
+  }
+  for (let i = 0; i < n; i += 1) {
+    let s = b[i] as number;
+    for (let k = Math.max(0, i - band); k < i; k += 1) s -= (a[at(i, k)] as number) * (b[k] as number);
+    b[i] = s;
+  }
+  for (let i = 0; i < n; i += 1) b[i] = (b[i] as number) / (a[at(i, i)] as number);
+  for (let i = n - 1; i >= 0; i -= 1) {
+    let s = b[i] as number;
+    const last = Math.min(n - 1, i + band);
+    for (let k = i + 1; k <= last; k += 1) s -= (a[at(k, i)] as number) * (b[k] as number);
+    b[i] = s;
+  }
+  return true;
+}

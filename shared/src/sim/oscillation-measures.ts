@@ -1,0 +1,268 @@
+/**
+ * Measurements of a self-oscillating converter taken as on the bench: the cycle starts where the
+ * transistor turns on, seen as the primary current rising through a fraction of its peak while the
+ * collector sits below the supply (the transistor conducting; a current probe triggered on the ramp,
+ * qualified by the collector). Leakage ringing moves the collector through the supply many times a cycle,
+ * but the primary current rises through half its peak once; a clamp's or snubber's current in the flyback
+ * flows while the collector is above the supply and does not count. The trigger re-arms once the
+ * collector has gone above the supply (the switch turned off) or the current has fallen below a tenth of
+ * the peak.
+ */
+
+/** Fraction of the peak primary current whose rising crossing marks a turn-on. */
+export const TURN_ON_FRACTION = 0.5;
+/** The trigger re-arms once the primary current is below this fraction of the peak. */
+export const REARM_FRACTION = 0.1;
+
+/**
+ * Turn-on trigger fed one sample at a time. Its reference peak is the largest primary current of the last
+ * completed cycle; before the first turn-on, `initialPeakA` (e.g. the core's saturation current), lowered
+ * to the largest current seen once `patienceS` passes without a turn-on.
+ */
+export class TurnOnTrigger {
+  private peakRefA: number;
+  private cyclePeakA = 0;
+  private maxSeenA = 0;
+  private isArmed = false;
+  private lastFireS = NaN;
+  private startS = NaN;
+  private prevT = NaN;
+  private prevI = NaN;
+
+  constructor(
+    initialPeakA: number,
+    private readonly patienceS: number,
+  ) {
+    this.peakRefA = initialPeakA;
+  }
+
+  /**
+   * Feeds a sample (time, primary current, collector minus supply voltage); returns the interpolated
+   * turn-on time when the trigger fires, else NaN.
+   */
+  push(timeS: number, primaryA: number, collectorOverSupplyV: number): number {
+    if (Number.isNaN(this.startS)) this.startS = timeS;
+    const isOn = collectorOverSupplyV < 0;
+    if (isOn) {
+      this.maxSeenA = Math.max(this.maxSeenA, primaryA);
+      this.cyclePeakA = Math.max(this.cyclePeakA, primaryA);
+    }
+    const sinceS = timeS - (Number.isNaN(this.lastFireS) ? this.startS : this.lastFireS);
+    if (sinceS > this.patienceS && this.maxSeenA > 0 && this.maxSeenA < this.peakRefA) {
+      this.peakRefA = this.maxSeenA;
+      this.maxSeenA = 0;
+      this.startS = timeS;
+    }
+    let fired = NaN;
+    const level = TURN_ON_FRACTION * this.peakRefA;
+    if (!this.isArmed && (!isOn || primaryA <= REARM_FRACTION * this.peakRefA)) this.isArmed = true;
+    else if (this.isArmed && isOn && this.prevI < level && primaryA >= level) {
+      fired = this.prevT + ((timeS - this.prevT) * (level - this.prevI)) / (primaryA - this.prevI);
+      this.isArmed = false;
+      if (!Number.isNaN(this.lastFireS)) this.peakRefA = this.cyclePeakA;
+      this.cyclePeakA = primaryA;
+      this.maxSeenA = 0;
+      this.lastFireS = fired;
+    }
+    this.prevT = timeS;
+    this.prevI = primaryA;
+    return fired;
+  }
+}
+
+/**
+ * Turn-on times of a recorded primary current and collector-minus-supply voltage (see TurnOnTrigger), the
+ * reference being the record's peak primary current while the transistor conducts.
+ */
+export function turnOnTimes(
+  timeS: ArrayLike<number>,
+  primaryA: ArrayLike<number>,
+  collectorOverSupplyV: ArrayLike<number>,
+): number[] {
+  let peak = 0;
+  for (let i = 0; i < primaryA.length; i++) if (collectorOverSupplyV[i]! < 0) peak = Math.max(peak, primaryA[i]!);
+  const out: number[] = [];
+  if (!(peak > 0)) return out;
+  const level = TURN_ON_FRACTION * peak;
+  let isArmed = false;
+  for (let i = 0; i < timeS.length; i++) {
+    const v = primaryA[i]!;
+    const isOn = collectorOverSupplyV[i]! < 0;
+    if (!isArmed) {
+      if (!isOn || v <= REARM_FRACTION * peak) isArmed = true;
+      continue;
+    }
+    const u = primaryA[i - 1]!;
+    if (isOn && u < level && v >= level) {
+      out.push(timeS[i - 1]! + ((timeS[i]! - timeS[i - 1]!) * (level - u)) / (v - u));
+      isArmed = false;
+    }
+  }
+  return out;
+}
+
+/** Bench figures of the whole cycles between the first and last turn-on of a record. */
+export interface OscillationFigures {
+  /** Whole cycles measured. */
+  cycles: number;
+  fromS: number;
+  toS: number;
+  frequencyHz: number;
+  /**
+   * On-time over the period: from the ramp's start (its rise through 10 % and 50 % of the peak, extrapolated
+   * linearly back to zero current) to the turn-off (the collector rising through the supply, or the
+   * current falling through 50 % of the cycle's peak, whichever comes first).
+   */
+  dutyOnFraction: number;
+  primaryCurrentPeakA: number;
+  /** Peak-to-peak of `rippleOf` over the whole cycles. */
+  ripplePeakToPeak: number;
+  /** Time-weighted mean of `rippleOf` over the whole cycles. */
+  mean: number;
+}
+
+/** Linear interpolation of a sample record at time t (held flat outside). */
+function valueAt(timeS: ArrayLike<number>, values: ArrayLike<number>, t: number): number {
+  let lo = 0;
+  let hi = timeS.length - 1;
+  if (t <= timeS[0]!) return values[0]!;
+  if (t >= timeS[hi]!) return values[hi]!;
+  while (hi - lo > 1) {
+    const mid = (lo + hi) >> 1;
+    if (timeS[mid]! <= t) lo = mid;
+    else hi = mid;
+  }
+  const t0 = timeS[lo]!;
+  const t1 = timeS[hi]!;
+  return values[lo]! + ((values[hi]! - values[lo]!) * (t - t0)) / (t1 - t0);
+}
+
+/**
+ * Frequency, duty, primary peak, and the ripple and mean of another signal (the output), over the whole
+ * cycles of a record (first to last turn-on); null with fewer than one whole cycle.
+ */
+export function oscillationFigures(
+  timeS: ArrayLike<number>,
+  primaryA: ArrayLike<number>,
+  collectorOverSupplyV: ArrayLike<number>,
+  rippleOf: ArrayLike<number>,
+): OscillationFigures | null {
+  const on = turnOnTimes(timeS, primaryA, collectorOverSupplyV);
+  if (on.length < 2) return null;
+  const fromS = on[0]!;
+  const toS = on[on.length - 1]!;
+  const cycles = on.length - 1;
+  let peak = 0;
+  let lo = Infinity;
+  let hi = -Infinity;
+  let area = 0;
+  for (let i = 0; i < timeS.length; i++) {
+    const t = timeS[i]!;
+    if (t >= fromS && t <= toS) {
+      if (collectorOverSupplyV[i]! < 0) peak = Math.max(peak, primaryA[i]!);
+      lo = Math.min(lo, rippleOf[i]!);
+      hi = Math.max(hi, rippleOf[i]!);
+    }
+    if (i === 0) continue;
+    const a = Math.max(timeS[i - 1]!, fromS);
+    const b = Math.min(t, toS);
+    if (b > a) area += 0.5 * (valueAt(timeS, rippleOf, a) + valueAt(timeS, rippleOf, b)) * (b - a);
+  }
+  // On-time of each cycle: ramp start (10 %–50 % rise extrapolated to zero) to the fall through 50 %.
+  let onTotalS = 0;
+  for (let k = 0; k < cycles; k++) {
+    const t50 = on[k]!;
+    const next = on[k + 1]!;
+    let cyclePeak = 0;
+    let i = 0;
+    while (i < timeS.length && timeS[i]! < t50) i++;
+    const first = i;
+    for (let j = first; j < timeS.length && timeS[j]! <= next; j++)
+      if (collectorOverSupplyV[j]! < 0) cyclePeak = Math.max(cyclePeak, primaryA[j]!);
+    // Rise through 10 % of the cycle's peak, searched backwards from the 50 % crossing to the last fall.
+    const earliest = k > 0 ? on[k - 1]! : timeS[0]!;
+    let t10 = t50;
+    const level10 = REARM_FRACTION * cyclePeak;
+    for (let j = first - 1; j >= 1 && timeS[j]! > earliest; j--) {
+      const u = primaryA[j - 1]!;
+      const v = primaryA[j]!;
+      if (u < level10 && v >= level10) {
+        t10 = timeS[j - 1]! + ((timeS[j]! - timeS[j - 1]!) * (level10 - u)) / (v - u);
+        break;
+      }
+    }
+    const rampStart = Math.max(earliest, t10 - ((t50 - t10) * REARM_FRACTION) / (TURN_ON_FRACTION - REARM_FRACTION));
+    // Turn-off: the collector rising through the supply, or the current falling through half the peak.
+    const level50 = TURN_ON_FRACTION * cyclePeak;
+    let fall = next;
+    for (let j = first + 1; j < timeS.length && timeS[j]! <= next; j++) {
+      const u = primaryA[j - 1]!;
+      const v = primaryA[j]!;
+      const cu = collectorOverSupplyV[j - 1]!;
+      const cv = collectorOverSupplyV[j]!;
+      const dt = timeS[j]! - timeS[j - 1]!;
+      if (cu < 0 && cv >= 0) {
+        fall = timeS[j - 1]! + (dt * -cu) / (cv - cu);
+        break;
+      }
+      if (u > level50 && v <= level50 && u >= v) {
+        fall = timeS[j - 1]! + (dt * (u - level50)) / (u - v);
+        break;
+      }
+    }
+    onTotalS += fall - rampStart;
+  }
+  const spanS = toS - fromS;
+  return {
+    cycles,
+    fromS,
+    toS,
+    frequencyHz: cycles / spanS,
+    dutyOnFraction: Math.min(1, onTotalS / spanS),
+    primaryCurrentPeakA: peak,
+    ripplePeakToPeak: hi - lo,
+    mean: area / spanS,
+  };
+}
+
+/**
+ * Times at which a charging curve (time, value) first reaches 90 % of `finalV` and enters ±1 % of it for
+ * good, linearly interpolated between points; values are taken in the sign of `finalV`.
+ */
+export function readSettlingTimes(
+  timeS: ReadonlyArray<number>,
+  values: ReadonlyArray<number>,
+  finalV: number,
+): { to90S: number | null; to1S: number | null } {
+  const sign = finalV < 0 ? -1 : 1;
+  const target = Math.abs(finalV);
+  let to90S: number | null = null;
+  let prevT = 0;
+  let prevV = 0;
+  for (let i = 0; i < timeS.length; i++) {
+    const v = sign * values[i]!;
+    if (v >= 0.9 * target) {
+      to90S =
+        prevV < 0.9 * target && v !== prevV
+          ? prevT + ((timeS[i]! - prevT) * (0.9 * target - prevV)) / (v - prevV)
+          : timeS[i]!;
+      break;
+    }
+    prevT = timeS[i]!;
+    prevV = v;
+  }
+  let lastOut = -1;
+  for (let i = 0; i < timeS.length; i++) if (Math.abs(sign * values[i]! - target) > 0.01 * target) lastOut = i;
+  let to1S: number | null = null;
+  if (lastOut < timeS.length - 1) {
+    if (lastOut < 0) to1S = timeS[0]!;
+    else {
+      const a = sign * values[lastOut]!;
+      const b = sign * values[lastOut + 1]!;
+      const edge = a < target ? 0.99 * target : 1.01 * target;
+      const t0 = timeS[lastOut]!;
+      to1S = t0 + ((timeS[lastOut + 1]! - t0) * (edge - a)) / (b - a);
+    }
+  }
+  return { to90S, to1S };
+}
