@@ -1,5 +1,5 @@
 import { NumberInput, Select, Switch } from '@mantine/core';
-import type { Design, DischargeRule } from '@ladderwright/shared/designs';
+import type { DischargeRule } from '@ladderwright/shared/designs';
 import { BoundField } from '../../../../components/bound-field';
 import { FieldGrid } from '../../../../components/field-grid';
 import { binder } from '../../document-path';
