@@ -10,6 +10,8 @@ export default mergeConfig(
       setupFiles: ['./src/testing/setup-tests.ts'],
       css: false,
       restoreMocks: true,
+      // jsdom renders of the Workbench take seconds on a loaded 2-core machine; the default 5 s is too tight.
+      testTimeout: 20_000,
     },
   }),
 );

@@ -66,9 +66,9 @@ describe('cross-port form post with the admin session', () => {
         expect(((await response.json()) as { code: string }).code).toBe('cross_origin');
       }
 
-      const users = await context.request.get(`${baseUrl}/api/users`);
+      const users = await context.request.get(`${baseUrl}/api/users?pageSize=100`);
       expect(users.status()).toBe(200);
-      const emails = ((await users.json()) as { email: string }[]).map((user) => user.email);
+      const emails = ((await users.json()) as { items: { email: string }[] }).items.map((user) => user.email);
       expect(emails).toContain('admin@northfold.test');
       for (const tag of ['form', 'plain', 'multipart']) expect(emails).not.toContain(plantedEmail(tag));
     } finally {

@@ -14,6 +14,7 @@ import { AuthModule } from './auth/auth.module';
 import { SessionCacheModule } from './auth/session-cache.module';
 import { BenchRunsModule } from './bench-runs/bench-runs.module';
 import { sessionCookieName } from './auth/jwt.strategy';
+import { RequestShapeGuard } from './common/guards/request-shape.guard';
 import { DomainErrorFilter, RequestValidationException } from './common/filters/domain-error.filter';
 import { sameOriginOnly } from './common/middleware/same-origin.middleware';
 import { JsonBodyGuard } from './common/guards/json-body.guard';
@@ -111,6 +112,8 @@ export function configureApp(app: NestExpressApplication, env: AppEnv): void {
       exceptionFactory: (errors) => new RequestValidationException(errors),
     }),
   );
+  // Before any pipe: no NUL, unpaired surrogate or hostile nesting reaches validation or the database.
+  app.useGlobalGuards(new RequestShapeGuard());
   app.useGlobalFilters(new DomainErrorFilter());
   if (env.apiDocs) setUpApiDocs(app, sessionCookieName(env));
   serveClient(app, env.clientDistDir);

@@ -1,4 +1,5 @@
 import { DomainError } from '../src/errors';
+import { designLimits } from '../src/designs/design-limits';
 import type { PulseDrive, SineDrive, Topology } from '../src/designs/design.types';
 import type { LadderInput } from '../src/multiplier/ladder.types';
 import { parseQuantity } from '../src/units/parse-quantity';
@@ -75,9 +76,16 @@ export function ladderInputFromFlags(flags: Map<string, string | true>): {
     topology === 'bridge-doubler'
       ? 2
       : (cells ?? (stages === undefined ? undefined : topology === 'full-wave' ? stages : 2 * stages));
+  if (cellCount !== undefined && !(cellCount >= 1 && cellCount <= designLimits.maxCellCount)) {
+    throw new DomainError('invalid_argument', `must give 1 to ${designLimits.maxCellCount} cells`, 'cells');
+  }
   const capsText = flags.get('caps');
   let capacitorsF: number[];
   if (typeof capsText === 'string') {
+    const capsCount = capsText.split(',').length;
+    if (capsCount > designLimits.maxCapacitorCount) {
+      throw new DomainError('invalid_argument', `at most ${designLimits.maxCapacitorCount} capacitors`, 'caps');
+    }
     capacitorsF = capsText.split(',').map((text, i) => parseQuantity(text, { unit: 'F', field: `caps[${i}]` }));
     const expected =
       cellCount === undefined ? capacitorsF.length : topology === 'full-wave' ? 3 * cellCount : cellCount;

@@ -4,6 +4,7 @@ import Papa from 'papaparse';
 import { Sequelize } from 'sequelize-typescript';
 import type { BenchFile, BenchRunDetail, BenchRunSummary } from '@ladderwright/shared/api';
 import {
+  benchTextIssue,
   compareBenchRun,
   predictionFromReport,
   readMeasurementTable,
@@ -98,6 +99,8 @@ export class BenchRunsService {
     const tolerance = parseTolerance(fields.tolerance);
     const dataFile = upload.data?.[0];
     const text = requireCsvText(dataFile, 'data');
+    const tooLarge = benchTextIssue(text);
+    if (tooLarge) throw new DomainError('invalid_argument', tooLarge.message, tooLarge.path, [tooLarge]);
     const rows = Papa.parse<string[]>(text, { header: false, skipEmptyLines: false }).data;
     const table = readMeasurementTable(rows, fields.kind);
     const comparison = compareBenchRun(fields.kind, table.points, predictionFromReport(revision.report), tolerance);

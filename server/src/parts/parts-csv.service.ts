@@ -3,7 +3,7 @@ import { InjectModel } from '@nestjs/sequelize';
 import Papa from 'papaparse';
 import { Sequelize } from 'sequelize-typescript';
 import type { PartImportResult, PartImportRow } from '@ladderwright/shared/api';
-import { DomainError } from '@ladderwright/shared/errors';
+import { DomainError, MAX_FIELD_ISSUES, capIssues } from '@ladderwright/shared/errors';
 import {
   csvCellNeedsQuotes,
   neutraliseCsvCell,
@@ -18,6 +18,14 @@ export const PARTS_CSV_MAX_BYTES = 512 * 1024;
 export const PARTS_CSV_MAX_ROWS = 5000;
 
 type ImportError = PartImportResult['errors'][number];
+
+/** The first MAX_FIELD_ISSUES errors of an import and, past them, one line counting the rest. */
+function capErrors(errors: ImportError[]): ImportError[] {
+  if (errors.length <= MAX_FIELD_ISSUES) return errors;
+  const rest = errors.length - MAX_FIELD_ISSUES;
+  const message = `and ${rest} more problem${rest === 1 ? '' : 's'} not listed`;
+  return [...errors.slice(0, MAX_FIELD_ISSUES), { line: 0, column: 'file', path: 'file', message }];
+}
 
 /** Parts shelf CSV: import (all rows valid or nothing written) and export (spreadsheet-safe cells). */
 @Injectable()
@@ -34,12 +42,24 @@ export class PartsCsvService {
    * transaction; with errors nothing is written and the errors are thrown as one 400.
    */
   async import(projectId: string, text: string, dryRun: boolean): Promise<PartImportResult> {
-    const parsed = Papa.parse<string[]>(text, { header: false, skipEmptyLines: false });
+    // Rows past the limit (plus the header and a blank line) are not even parsed.
+    const parsed = Papa.parse<string[]>(text, {
+      header: false,
+      skipEmptyLines: false,
+      preview: PARTS_CSV_MAX_ROWS + 2,
+    });
     const rows = parsed.data;
     const header = (rows[0] ?? []).map((cell) => cell.trim());
     const headerIssues: ImportError[] = [];
     const push = (list: ImportError[], line: number, column: string, message: string) =>
       list.push({ line, column, path: `line ${line}, ${column}`, message: `line ${line}, ${column}: ${message}` });
+    if (header.length > PART_FIELDS.length) {
+      throw new DomainError(
+        'invalid_argument',
+        `The CSV header has ${header.length} columns; a Parts shelf CSV has at most ${PART_FIELDS.length}: ${PART_FIELDS.join(', ')}`,
+        'file',
+      );
+    }
     header.forEach((name) => {
       if (!(PART_FIELDS as readonly string[]).includes(name)) {
         push(headerIssues, 1, name || '(empty)', `unknown column; the columns are ${PART_FIELDS.join(', ')}`);
@@ -59,7 +79,7 @@ export class PartsCsvService {
     if (dataRows.length > PARTS_CSV_MAX_ROWS) {
       throw new DomainError(
         'invalid_argument',
-        `The CSV has ${dataRows.length} parts; the limit is ${PARTS_CSV_MAX_ROWS} per file`,
+        `The CSV has more than ${PARTS_CSV_MAX_ROWS} parts, the limit per file`,
         'file',
       );
     }
@@ -92,7 +112,7 @@ export class PartsCsvService {
     }
     if (errors.length > 0 && !dryRun)
       this.refuse(`The CSV has ${errors.length} problem(s); nothing was written`, errors);
-    if (errors.length > 0 || dryRun) return { dryRun, written: false, rows: result, errors };
+    if (errors.length > 0 || dryRun) return { dryRun, written: false, rows: result, errors: capErrors(errors) };
 
     await this.sequelize.transaction(async (transaction) => {
       for (const row of result) {
@@ -116,7 +136,10 @@ export class PartsCsvService {
       'invalid_argument',
       `${message}. First: ${errors[0]?.message ?? ''}`,
       errors[0]?.path ?? 'file',
-      errors.map(({ path, message: text }) => ({ path, message: text })),
+      capIssues(
+        errors.map(({ path, message: text }) => ({ path, message: text })),
+        'file',
+      ),
     );
   }
 }

@@ -1,4 +1,5 @@
 import type { SimulationResult, SimulationSummary, WaveformPhase, WaveformTrace } from '@ladderwright/shared/api';
+import { validateDesign } from '@ladderwright/shared/designs';
 import { isDomainError } from '@ladderwright/shared/errors';
 import { dischargeRuleLimits } from '@ladderwright/shared/safety';
 import { ladderSpecFromDesign } from '@ladderwright/shared/circuits';
@@ -139,6 +140,8 @@ export function runSimulationTask(task: SimulationTask): SimulationTaskOutcome {
   if (task.kind === 'fault-throw') throw new Error('fault injection: the simulation worker threw');
   if (task.kind === 'fault-exit') process.exit(70);
   try {
+    // Validated again here: a stored document may predate a limit of the domain.
+    validateDesign(task.document);
     return { ok: true, result: simulate(task) };
   } catch (error) {
     if (isDomainError(error))

@@ -3,6 +3,7 @@ import PDFDocument from 'pdfkit';
 import { formatQuantity } from '@ladderwright/shared/units';
 import { STRESS_CHECK_IDS } from '@ladderwright/shared/multiplier';
 import type { CheckVerdict } from '@ladderwright/shared/safety';
+import { schematicSection } from './spec-sheet-schematic';
 import type { SpecSheetContent } from './spec-sheet.types';
 
 type Doc = InstanceType<typeof PDFDocument>;
@@ -333,9 +334,17 @@ function outputVsLoadPlot(doc: Doc, c: SpecSheetContent): void {
   const width = 595 - 2 * MARGIN - 72;
   const height = 160;
   const measured = sweeps.flatMap((run) => run.points.map((p) => ({ x: p.x, y: Math.abs(p.y) })));
-  const maxX = Math.max(...points.map((p) => p.x), ...measured.map((p) => p.x)) || 1;
-  const maxY =
-    Math.max(...points.map((p) => p.y), ...measured.map((p) => p.y), Math.abs(c.acceptance.outputHighV)) * 1.05 || 1;
+  // A loop, not Math.max(...points): a spread of tens of thousands of bench points overflows the stack.
+  let largestX = -Infinity;
+  let largestY = Math.abs(c.acceptance.outputHighV);
+  for (const series of [points, measured]) {
+    for (const p of series) {
+      if (p.x > largestX) largestX = p.x;
+      if (p.y > largestY) largestY = p.y;
+    }
+  }
+  const maxX = largestX || 1;
+  const maxY = largestY * 1.05 || 1;
   const sx = (x: number) => left + (x / maxX) * width;
   const sy = (y: number) => top + height - (y / maxY) * height;
 
@@ -642,6 +651,7 @@ export async function renderSpecSheetPdf(c: SpecSheetContent): Promise<Buffer> {
   windingSection(doc, c);
   bomSection(doc, c);
   performanceSection(doc, c);
+  schematicSection(doc, c, MARGIN, 595 - 2 * MARGIN, PAGE_BOTTOM);
   outputVsLoadPlot(doc, c);
   benchRunsSection(doc, c);
   safetySection(doc, c);

@@ -1,6 +1,5 @@
-import { readFileSync } from 'node:fs';
+import { readDesignFile } from '../design-file';
 import { DomainError } from '../../src/errors';
-import { validateDesign } from '../../src/designs/validate-design';
 import { analyzeDesign } from '../../src/analysis/analyze-design';
 import { parseCommandArguments, type CommandSyntax } from '../arguments';
 import { TEXT_OPTION } from '../ladder-flags';
@@ -14,13 +13,7 @@ export function analyzeCommand(argv: ReadonlyArray<string>): string {
   const { positional, flags } = parseCommandArguments(argv, analyzeSyntax);
   const path = positional[0];
   if (!path) throw new DomainError('invalid_argument', 'a design file is required', 'DESIGN.json');
-  let parsed: unknown;
-  try {
-    parsed = JSON.parse(readFileSync(path, 'utf8'));
-  } catch (error) {
-    throw new DomainError('invalid_design', `cannot read ${path} as JSON: ${(error as Error).message}`, 'DESIGN.json');
-  }
-  const report = analyzeDesign(validateDesign(parsed));
+  const report = analyzeDesign(readDesignFile(path));
   if (flags.has('text')) return reportAsText(report);
   // A driver design also carries the estimate under the names `simulate` gives its measured figures.
   return JSON.stringify(report.driver ? { ...report.driver.benchFigures, ...report } : report, null, 2);

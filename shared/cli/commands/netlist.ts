@@ -1,6 +1,5 @@
-import { readFileSync } from 'node:fs';
+import { readDesignFile } from '../design-file';
 import { estimateBlockingOscillator } from '../../src/driver/blocking-oscillator';
-import { validateDesign } from '../../src/designs/validate-design';
 import { buildLadderCircuit } from '../../src/circuits/build-ladder-circuit';
 import { buildCircuit } from '../../src/circuits/design-circuit';
 import { toSpiceNetlist } from '../../src/sim/to-spice-netlist';
@@ -26,7 +25,7 @@ export function netlistCommand(argv: ReadonlyArray<string>): string {
   refuseDesignWithLadderOptions(parsed);
   const { positional } = parsed;
   if (positional[0]) {
-    const design = validateDesign(JSON.parse(readFileSync(positional[0], 'utf8')));
+    const design = readDesignFile(positional[0]);
     if (design.drive.kind === 'driver') {
       const periodS = 1 / estimateBlockingOscillator(design.drive.driver).frequencyHz.value;
       return toSpiceNetlist(buildCircuit(design), { transient: { stopTimeS: 200 * periodS, maxStepS: periodS / 200 } });

@@ -1,5 +1,4 @@
-import { readFileSync } from 'node:fs';
-import { validateDesign } from '../../src/designs/validate-design';
+import { readDesignFile } from '../design-file';
 import { DomainError } from '../../src/errors';
 import { ladderSpecFromDesign, type LadderCircuitSpec } from '../../src/circuits/build-ladder-circuit';
 import { runLadder } from '../../src/runs/ladder-runs';
@@ -73,7 +72,7 @@ export function refuseDesignWithLadderOptions({ positional, flags }: ParsedArgum
 /** The design of `DESIGN.json` when its drive is a driver stage (simulated whole, transistor and transformer). */
 export function driverDesignOf({ positional }: ParsedArguments): Design | null {
   if (!positional[0]) return null;
-  const design = validateDesign(JSON.parse(readFileSync(positional[0], 'utf8')));
+  const design = readDesignFile(positional[0]);
   return design.drive.kind === 'driver' ? design : null;
 }
 
@@ -84,7 +83,7 @@ export function ladderFromArguments({ positional, flags }: ParsedArguments): {
   flags: Map<string, string | true>;
 } {
   if (positional[0]) {
-    const design = validateDesign(JSON.parse(readFileSync(positional[0], 'utf8')));
+    const design = readDesignFile(positional[0]);
     return {
       spec: ladderSpecFromDesign(design),
       safeVoltageV: quantityFlag(flags, 'safe-voltage', 'V') ?? design.targets.safeVoltageV,

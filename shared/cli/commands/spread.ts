@@ -1,6 +1,5 @@
-import { readFileSync } from 'node:fs';
+import { readDesignFile } from '../design-file';
 import { DomainError } from '../../src/errors';
-import { validateDesign } from '../../src/designs/validate-design';
 import { ladderInputOf, resolveDrive } from '../../src/analysis/analyze-design';
 import { toleranceSpread } from '../../src/sizing/tolerance-spread';
 import { formatQuantity } from '../../src/units/format-quantity';
@@ -24,7 +23,7 @@ export function spreadCommand(argv: ReadonlyArray<string>): string {
   const { positional, flags } = parseCommandArguments(argv, spreadSyntax);
   const path = positional[0];
   if (!path) throw new DomainError('invalid_argument', 'a design file is required', 'DESIGN.json');
-  const design = validateDesign(JSON.parse(readFileSync(path, 'utf8')));
+  const design = readDesignFile(path);
   const { drive, currentLimitA } = resolveDrive(design);
   const trials = Number(flags.get('trials') ?? 1000);
   const seed = Number(flags.get('seed') ?? 1);

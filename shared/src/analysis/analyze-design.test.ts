@@ -272,3 +272,25 @@ describe('facts of the trade as check values', () => {
     expect(r.outputMeanV).toBeLessThanOrEqual(3000);
   });
 });
+
+describe('winding phasing', () => {
+  it('feeds an odd ladder from the flyback for more output than from the forward pulse when the flyback is larger (REFERENCES.md §1, asymmetric drive)', () => {
+    const demo = designExamples.surfaceChargeTester;
+    const tripler = (phasing: 'flyback' | 'forward'): Design => {
+      const d = structuredClone(demo);
+      if (d.drive.kind !== 'driver') throw new Error('driver design expected');
+      d.drive.driver.transformer.secondaryPhasing = phasing;
+      d.multiplier = { ...d.multiplier, cellCount: 3, capacitors: d.multiplier.capacitors.slice(0, 3) };
+      return d;
+    };
+    const flyback = analyzeDesign(tripler('flyback'));
+    const forward = analyzeDesign(tripler('forward'));
+    // The demo's flyback (~1.6 kV at the secondary) is several times its forward pulse (~0.18 kV): a
+    // half-wave tripler takes two of the pulses on its positive side and one on the other, so feeding it
+    // the flyback on the positive side gives the larger output.
+    expect(Math.abs(flyback.noLoadOutputV)).toBeGreaterThan(1.3 * Math.abs(forward.noLoadOutputV));
+    expect(flyback.driver!.benchFigures.secondaryVoltagePeakPositiveV).toBeGreaterThan(
+      -flyback.driver!.benchFigures.secondaryVoltagePeakNegativeV,
+    );
+  });
+});

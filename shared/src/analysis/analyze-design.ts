@@ -5,7 +5,13 @@ import { driverReport, type DriverReport } from '../driver/driver-report';
 import type { DriverStage } from '../designs/driver-stage.types';
 import type { DriverCheckVerdict } from '../driver/driver-checks';
 import type { MethodInfo } from '../methods';
-import { engineLadderLoadLine, pulseDriveOf, solveLoadPoint, type LadderLoadLine } from '../driver/operating-point';
+import {
+  engineLadderLoadLine,
+  isFlybackFed,
+  pulseDriveOf,
+  solveLoadPoint,
+  type LadderLoadLine,
+} from '../driver/operating-point';
 import { DISCHARGE_METHOD, dischargeCheck, trappedChargeCheck } from '../safety/discharge';
 import { creepageChecks, stageSpacing } from '../safety/creepage';
 import type { StageSpacing } from '../safety/creepage';
@@ -147,14 +153,16 @@ export function resolveDrive(design: Design): {
   const onS = estimate.onTimeS.value;
   const flybackS = estimate.flybackTimeS.value;
   return {
-    drive: {
-      kind: 'pulse',
-      forwardPeakV: estimate.forwardSecondaryPeakV.value,
-      flybackPeakV: estimate.flybackSecondaryPeakV.value,
-      frequencyHz: estimate.frequencyHz.value,
-      dutyCycle: onS / (onS + flybackS),
-      sourceResistanceOhm: drive.driver.transformer.secondaryResistanceOhm,
-    },
+    drive: pulseDriveOf(
+      {
+        forwardPeakV: estimate.forwardSecondaryPeakV.value,
+        flybackPeakV: estimate.flybackSecondaryPeakV.value,
+        frequencyHz: estimate.frequencyHz.value,
+        dutyCycle: onS / (onS + flybackS),
+        isFlybackFed: isFlybackFed(stage),
+      },
+      drive.driver.transformer.secondaryResistanceOhm,
+    ),
     deliverablePowerW: estimate.deliverablePowerW.value,
     // The flyback current the secondary can carry is the collector peak reflected through the turns ratio.
     currentLimitA:
@@ -250,6 +258,7 @@ export function analyzeDesign(design: Design): DesignReport {
         flybackPeakV: rated.flybackSecondaryPeakV,
         frequencyHz: rated.frequencyHz,
         dutyCycle: rated.dutyCycle,
+        isFlybackFed: isFlybackFed(stage),
       },
       stage.transformer.secondaryResistanceOhm,
     );
@@ -273,6 +282,7 @@ export function analyzeDesign(design: Design): DesignReport {
                 flybackPeakV: lightest.flybackSecondaryPeakV,
                 frequencyHz: lightest.frequencyHz,
                 dutyCycle: lightest.dutyCycle,
+                isFlybackFed: isFlybackFed(design.drive.driver),
               },
               design.drive.driver.transformer.secondaryResistanceOhm,
             ),

@@ -6,6 +6,7 @@ import {
   interpolateCurve,
   predictionFromReport,
 } from './compare-bench-run';
+import { benchLimits, benchTextIssue } from './bench-limits';
 import type { BenchPrediction } from './bench.types';
 
 // Hand-checked case (worked by hand, no outside source): a straight regulation line from 1000 V at no load
@@ -65,6 +66,16 @@ describe('compareBenchRun, load sweep', () => {
     { x: 150e-6, y: 830 },
     { x: 250e-6, y: 700 },
   ];
+
+  it('finds the worst deviation among 500,000 points (a spread into Math.max overflows the stack)', () => {
+    // Every point on the line except one 2 % low: (882 − 900)/900 = −0.02 at 100 µA.
+    const many = Array.from({ length: 500_000 }, (_, i) => ({
+      x: (i / 500_000) * 200e-6,
+      y: 1000 - (i / 500_000) * 200,
+    }));
+    many[250_000] = { x: 100e-6, y: 882 };
+    expect(compareBenchRun('load-sweep', many, prediction, 0.05).worstDeviation).toBeCloseTo(0.02, 9);
+  });
 
   it('gives the deviation per point and skips the point beyond the curve', () => {
     const result = compareBenchRun('load-sweep', measured, prediction, 0.05);
@@ -165,5 +176,20 @@ describe('predictionFromReport', () => {
 
   it('refuses a report without a regulation curve', () => {
     expect(() => predictionFromReport({ outputMeanV: 1 })).toThrow(/no predicted output curve/);
+  });
+});
+
+describe('benchTextIssue', () => {
+  it('passes a file at the row limit and refuses one row more, naming the data file', () => {
+    const file = (rows: number) => `current (uA),voltage (V)\n${'1,2\n'.repeat(rows)}`;
+    expect(benchTextIssue(file(benchLimits.maxDataRows))).toBeNull();
+    expect(benchTextIssue(file(benchLimits.maxDataRows + 51))).toMatchObject({ path: 'data' });
+  });
+
+  it('refuses a line longer than the limit before any CSV parsing', () => {
+    expect(benchTextIssue(`time,voltage\n${','.repeat(benchLimits.maxLineLength + 1)}`)).toEqual({
+      path: 'data',
+      message: `line 2 is longer than ${benchLimits.maxLineLength} characters`,
+    });
   });
 });

@@ -122,7 +122,7 @@ export function compareBenchRun(
       'data',
     );
   }
-  const worstDeviation = Math.max(...deviations);
+  const worstDeviation = deviations.reduce((worst, d) => (d > worst ? d : worst), 0);
   const { verdict, marginPct } = benchVerdict(worstDeviation, tolerance);
   return {
     kind,

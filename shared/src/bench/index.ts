@@ -1,3 +1,4 @@
+export { benchLimits, benchTextIssue } from './bench-limits';
 export { readMeasurementTable } from './read-measurement-table';
 export {
   compareBenchRun,

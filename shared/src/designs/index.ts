@@ -1,4 +1,5 @@
-export { validateDesign, capacitorCountFor } from './validate-design';
+export { validateDesign } from './validate-design';
+export { capacitorCountFor } from './capacitor-count';
 export { designDocumentSchema, designSchema, DESIGN_SCHEMA_VERSION } from './design.schema';
 export { designLimits } from './design-limits';
 export { designExamples } from './design-examples';

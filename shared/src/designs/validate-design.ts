@@ -5,12 +5,7 @@ import { designLimits } from './design-limits';
 import { DESIGN_SCHEMA_VERSION, designSchema } from './design.schema';
 import type { Design } from './design.types';
 import { schemaIssues } from './schema-issues';
-
-/** Capacitors a topology needs for a cell count (see design.types.ts for the order). */
-export function capacitorCountFor(topology: string, cellCount: number): number {
-  if (topology === 'full-wave') return 3 * cellCount;
-  return cellCount;
-}
+import { capacitorCountFor } from './capacitor-count';
 
 type Json = Record<string, unknown>;
 const objectAt = (value: unknown): Json =>

@@ -5,7 +5,13 @@ import type { DriverEnergy, LossKind } from './driver-energy';
 import { estimateValidity, type EstimateValidity } from './estimate-validity';
 import type { CellCurvePoint, DriverStage } from '../designs/driver-stage.types';
 import type { Estimated, MethodInfo } from '../methods';
-import { driverOperatingPoint, type LadderLoadLine, type LoadPoint, type OperatingLimit } from './operating-point';
+import {
+  driverOperatingPoint,
+  isFlybackFed,
+  type LadderLoadLine,
+  type LoadPoint,
+  type OperatingLimit,
+} from './operating-point';
 
 const FIGURE_KEYS = [
   'onTimeS',
@@ -76,9 +82,9 @@ export interface DriverBenchFigures {
   dutyOnFraction: number;
   primaryCurrentPeakA: number;
   collectorVoltagePeakV: number;
-  /** Forward (on-time) secondary peak, dot end to ground. */
+  /** Secondary's positive peak at the ladder end: the forward pulse, or the flyback with flyback phasing. */
   secondaryVoltagePeakPositiveV: number;
-  /** Flyback secondary peak, dot end to ground (negative). */
+  /** Secondary's negative peak at the ladder end. */
   secondaryVoltagePeakNegativeV: number;
   inputPowerW: number;
   outputPowerW: number;
@@ -108,6 +114,7 @@ function benchFiguresOf(
   point: LoadPoint,
   atLoad: BlockingOscillatorEstimate,
   energy: DriverEnergy,
+  flybackFed: boolean,
 ): DriverBenchFigures {
   const losses: Partial<Record<BenchLossKind, number>> = {};
   for (const [kind, w] of Object.entries(energy.losses) as [LossKind, number][]) {
@@ -120,8 +127,9 @@ function benchFiguresOf(
     dutyOnFraction: point.dutyCycle,
     primaryCurrentPeakA: atLoad.collectorPeakCurrentA.value,
     collectorVoltagePeakV: atLoad.collectorPeakV.value,
-    secondaryVoltagePeakPositiveV: point.forwardSecondaryPeakV,
-    secondaryVoltagePeakNegativeV: -point.flybackSecondaryPeakV,
+    // Flyback phasing turns the secondary over: the flyback is then its positive peak.
+    secondaryVoltagePeakPositiveV: flybackFed ? point.flybackSecondaryPeakV : point.forwardSecondaryPeakV,
+    secondaryVoltagePeakNegativeV: -(flybackFed ? point.forwardSecondaryPeakV : point.flybackSecondaryPeakV),
     inputPowerW: energy.inputPowerW,
     outputPowerW: energy.outputPowerW,
     efficiency: energy.efficiency,
@@ -165,7 +173,7 @@ export function driverReport(driver: DriverStage, ladder: LadderLoadLine, ratedL
   };
   return {
     energy,
-    benchFigures: benchFiguresOf(ratedLoad, atLoad, energy),
+    benchFigures: benchFiguresOf(ratedLoad, atLoad, energy, isFlybackFed(driver)),
     validity: estimateValidity(driver, atLoad, { feedsLadder: true }),
     figures,
     atLimit: {

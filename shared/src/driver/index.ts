@@ -35,6 +35,7 @@ export type {
 export {
   driverOperatingPoint,
   engineLadderLoadLine,
+  isFlybackFed,
   pulseDriveOf,
   solveLoadPoint,
   OPERATING_POINT_METHOD,

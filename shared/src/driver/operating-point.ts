@@ -21,6 +21,13 @@ export interface LadderDrive {
   frequencyHz: number;
   /** Share of the period spent in the forward pulse (the on-time); 0.5 if not given. */
   dutyCycle?: number;
+  /** The secondary's dot at ground (flyback phasing): the ladder sees the flyback as its positive pulse. */
+  isFlybackFed?: boolean;
+}
+
+/** Whether a stage's ladder is fed by the flyback pulse (the secondary phasing; 'flyback' by default). */
+export function isFlybackFed(driver: DriverStage): boolean {
+  return (driver.transformer.secondaryPhasing ?? 'flyback') === 'flyback';
 }
 
 /** What the ladder does at one drive and one external load current. */
@@ -45,14 +52,25 @@ export interface LadderLoadLine {
 
 /** The pulse drive of the ladder model for a LadderDrive behind the secondary winding resistance (Ω). */
 export function pulseDriveOf(drive: LadderDrive, sourceResistanceOhm: number): PulseDrive {
-  return {
-    kind: 'pulse',
-    forwardPeakV: drive.forwardPeakV,
-    flybackPeakV: drive.flybackPeakV,
-    frequencyHz: drive.frequencyHz,
-    dutyCycle: drive.dutyCycle ?? 0.5,
-    sourceResistanceOhm,
-  };
+  const duty = drive.dutyCycle ?? 0.5;
+  // Flyback phasing turns the secondary over: the flyback is the pulse on the positive side, for the rest of the period.
+  return drive.isFlybackFed
+    ? {
+        kind: 'pulse',
+        forwardPeakV: drive.flybackPeakV,
+        flybackPeakV: drive.forwardPeakV,
+        frequencyHz: drive.frequencyHz,
+        dutyCycle: 1 - duty,
+        sourceResistanceOhm,
+      }
+    : {
+        kind: 'pulse',
+        forwardPeakV: drive.forwardPeakV,
+        flybackPeakV: drive.flybackPeakV,
+        frequencyHz: drive.frequencyHz,
+        dutyCycle: duty,
+        sourceResistanceOhm,
+      };
 }
 
 /**
@@ -174,12 +192,13 @@ export const OPERATING_POINT_METHOD: MethodInfo = {
     'Energy conservation per cycle: E = ½ Lp Ipk², P = E f η (common practice; Pressman, Switching Power Supply Design, from memory); ladder by charge-transfer-v1',
 };
 
-function driveOf(e: OscillatorNumbers): LadderDrive {
+function driveOf(e: OscillatorNumbers, driver: DriverStage): LadderDrive {
   return {
     forwardPeakV: e.forwardSecV,
     flybackPeakV: e.flybackSecV,
     frequencyHz: e.frequencyHz,
     dutyCycle: e.tOn / (e.tOn + e.tFly),
+    isFlybackFed: isFlybackFed(driver),
   };
 }
 
@@ -204,7 +223,7 @@ function solvePoint(
 ): SolvedPoint {
   if (!(loadCurrentA >= 0)) throw new DomainError('invalid_argument', 'load current must be ≥ 0', 'loadCurrentA');
   const maxFlyV = limit.maxFlybackSecV;
-  const limitDrive = driveOf(limit);
+  const limitDrive = driveOf(limit, driver);
   const limitLadderA = ladder.at(limitDrive, loadCurrentA).ladderCurrentA;
   const ratios = ladder.chargeRatios(limitDrive, limitLadderA);
   // The forward pulse's load on the supply, g₊·V₊·I_ladder, taken at the limit drive and held through the
@@ -227,7 +246,7 @@ function solvePoint(
   // from the limit on a log grid (8 points a decade over 6 decades), then solving in that bracket.
   const surplus = (flyV: number) => {
     const e = at(flyV).stage;
-    return e.deliverableW / flyV - ratios.flyback * ladder.at(driveOf(e), loadCurrentA).ladderCurrentA;
+    return e.deliverableW / flyV - ratios.flyback * ladder.at(driveOf(e, driver), loadCurrentA).ladderCurrentA;
   };
   let flyV = maxFlyV;
   let limitedBy: OperatingLimit = 'ladder';
@@ -259,7 +278,7 @@ function solvePoint(
   }
   const solved = at(flyV);
   const stage = solved.stage;
-  const loaded = ladder.at(driveOf(stage), loadCurrentA);
+  const loaded = ladder.at(driveOf(stage, driver), loadCurrentA);
   const outputPowerW = loaded.outputV * loadCurrentA;
   const flybackTakenW = Math.min(stage.deliverableW, ratios.flyback * loaded.ladderCurrentA * flyV);
   return {
@@ -273,7 +292,7 @@ function solvePoint(
       forwardSecondaryPeakV: stage.forwardSecV,
       flybackChargeRatio: ratios.flyback,
       frequencyHz: stage.frequencyHz,
-      dutyCycle: driveOf(stage).dutyCycle ?? 0.5,
+      dutyCycle: driveOf(stage, driver).dutyCycle ?? 0.5,
       supplyCurrentA: stage.inputA,
       inputPowerW: stage.emfW,
       ladderTakesW: { forward: forwardLoadPowerW, flyback: flybackTakenW },
@@ -322,7 +341,7 @@ export function driverOperatingPoint(
   const points = Math.max(2, options.points ?? 25);
   const limitEst = blockingOscillatorNumbers(driver, options);
   const maxFlyV = limitEst.maxFlybackSecV;
-  const limitDrive = driveOf(limitEst);
+  const limitDrive = driveOf(limitEst, driver);
   const pointAt = (loadA: number) => solvePoint(driver, ladder, loadA, options, limitEst).point;
   // Deliverable flyback power over what the ladder takes at the limit drive, per volt of flyback: power-limited below zero.
   const limitSurplusAt = (loadA: number) => {

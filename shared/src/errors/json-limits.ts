@@ -28,13 +28,18 @@ export function textProblem(value: string): string | null {
 
 /**
  * The first way a parsed JSON value exceeds its limits, as a field issue (path in the validator's
- * notation, `(document)` for the value itself), or null. Iterative, so a hostile nesting depth cannot
+ * notation, `rootLabel` for the value itself), or null. Iterative, so a hostile nesting depth cannot
  * overflow the stack, and it stops at the first problem, so its cost is bounded by the limits.
  */
-export function jsonLimitIssue(value: unknown, limits: JsonLimits, rootPath = ''): FieldIssue | null {
+export function jsonLimitIssue(
+  value: unknown,
+  limits: JsonLimits,
+  rootPath = '',
+  rootLabel = '(document)',
+): FieldIssue | null {
   const stack: { value: unknown; path: string; depth: number }[] = [{ value, path: rootPath, depth: 0 }];
   let bytes = 0;
-  const at = (path: string) => path || '(document)';
+  const at = (path: string) => path || rootLabel;
   while (stack.length > 0) {
     const item = stack.pop()!;
     const v = item.value;

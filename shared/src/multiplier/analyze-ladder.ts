@@ -118,34 +118,38 @@ export function analyzePrepared(
   }
 
   // Diode reverse voltage at the four instants of the cycle, with the drive at its nominal extremes.
-  const nodeAt = (state: 'a' | 'b', fall: number, driveV: number, node: number): number => {
-    const root = net.nodeRoot[node] as number;
-    const base =
-      state === 'a'
-        ? (ws.nodeA[node] as number) - (ws.nodeA[root] as number)
-        : (ws.nodeB[node] as number) - (ws.nodeB[root] as number);
-    const rate = state === 'a' ? ws.nodeRateH : ws.nodeRateL;
-    return base + fall * (rate[node] as number) + (net.anchorScale[root] as number) * driveV;
-  };
-  const instants: Array<['a' | 'b', number, number]> = [
-    ['a', 0, timing.highV],
-    ['a', ladderCurrentA * timing.afterHS, -timing.lowV],
-    ['b', 0, -timing.lowV],
-    ['b', ladderCurrentA * timing.afterLS, timing.highV],
-  ];
   const surgeA = Math.min(
     Math.max(timing.highV, timing.lowV) / (timing.sourceResistanceOhm + input.diode.seriesResistanceOhm || 1e-3),
     input.sourceCurrentLimitA ?? Infinity,
   );
+  const { nodeA, nodeB, nodeRateH, nodeRateL } = ws;
+  const fallH = ladderCurrentA * timing.afterHS;
+  const fallL = ladderCurrentA * timing.afterLS;
+  const isHEvent = EVENT_H;
   const diodes: DiodeStress[] = [];
   for (let d = 0; d < net.diodeShare.length; d += 1) {
     const anode = net.diodeAnode[d] as number;
     const cathode = net.diodeCathode[d] as number;
-    let piv = 0;
-    for (const [state, fall, driveV] of instants) {
-      piv = Math.max(piv, nodeAt(state, fall, driveV, cathode) - nodeAt(state, fall, driveV, anode));
-    }
-    const isH = net.diodeEvent[d] === EVENT_H;
+    const rootK = net.nodeRoot[cathode] as number;
+    const rootA = net.nodeRoot[anode] as number;
+    const scaleK = net.anchorScale[rootK] as number;
+    const scaleA = net.anchorScale[rootA] as number;
+    // Cathode minus anode at each instant: (state a, no fall, +highV), (a, fallH, −lowV), (b, 0, −lowV), (b, fallL, +highV).
+    const aK = (nodeA[cathode] as number) - (nodeA[rootK] as number);
+    const aA = (nodeA[anode] as number) - (nodeA[rootA] as number);
+    const bK = (nodeB[cathode] as number) - (nodeB[rootK] as number);
+    const bA = (nodeB[anode] as number) - (nodeB[rootA] as number);
+    const rateK = (nodeRateH[cathode] as number) - (nodeRateH[anode] as number);
+    const rateKL = (nodeRateL[cathode] as number) - (nodeRateL[anode] as number);
+    const driveScale = scaleK - scaleA;
+    const piv = Math.max(
+      0,
+      aK - aA + driveScale * timing.highV,
+      aK - aA + fallH * rateK - driveScale * timing.lowV,
+      bK - bA - driveScale * timing.lowV,
+      bK - bA + fallL * rateKL + driveScale * timing.highV,
+    );
+    const isH = net.diodeEvent[d] === isHEvent;
     diodes.push({
       index: d + 1,
       peakInverseV: piv,

@@ -1,6 +1,9 @@
 import type { PulseDrive, SineDrive } from '../designs/design.types';
 import { plateauRates } from './plateau-rates';
 import { EVENT_H, EVENT_L } from './topologies';
+
+/** The H event as a module constant: read in every solve's inner loops (no binding lookup per read). */
+const H = EVENT_H;
 import type { LadderNetwork } from './topologies';
 import type { LadderInput } from './ladder.types';
 
@@ -197,9 +200,10 @@ function eventLosses(
 ): { lossScale: number; forwardDropV: number; conductionCurrentA: number } {
   const t = ws.timing;
   const q = currentA * t.periodS;
-  const peakV = event === EVENT_H ? t.highV : t.lowV;
-  const phaseS = event === EVENT_H ? t.afterHS : t.afterLS;
-  const charges = event === EVENT_H ? ws.chargeH : ws.chargeL;
+  const isH = event === H;
+  const peakV = isH ? t.highV : t.lowV;
+  const phaseS = isH ? t.afterHS : t.afterLS;
+  const charges = isH ? ws.chargeH : ws.chargeL;
   let sourceCharge = 0;
   for (let a = 1; a < charges.length; a += 1) sourceCharge = Math.max(sourceCharge, (charges[a] as number) * q);
   let lossV: number;
@@ -267,7 +271,7 @@ export function solveCycle(ws: Workspace, currentA: number): SolvedCycle {
       (timing.highV + timing.lowV) * (ws.strayDelta[c] as number);
     let a: number;
     let b: number;
-    if (net.diodeEvent[d] === EVENT_H) {
+    if (net.diodeEvent[d] === H) {
       const topV =
         top === cathode
           ? (ws.nodeA[anode] as number) - lossH.forwardDropV

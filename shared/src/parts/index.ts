@@ -1,4 +1,11 @@
-export { normalizePart, PART_KINDS, PART_FIELDS, REQUIRED_PART_FIELDS, PART_CODE_PATTERN } from './validate-part';
+export {
+  normalizePart,
+  PART_KINDS,
+  PART_FIELDS,
+  REQUIRED_PART_FIELDS,
+  PART_CODE_PATTERN,
+  PART_DESCRIPTION_MAX_LENGTH,
+} from './validate-part';
 export type { PartField } from './validate-part';
 export { csvCellNeedsQuotes, neutraliseCsvCell } from './csv-cell';
 export { fillPartRatings, partReferences } from './fill-part-ratings';

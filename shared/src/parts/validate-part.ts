@@ -9,6 +9,10 @@ export const PART_KINDS: readonly PartKind[] = ['capacitor', 'diode', 'resistor'
 /** Invented shelf codes: capitals, digits and dashes, e.g. `NF-C103-3K`. */
 export const PART_CODE_PATTERN = /^[A-Z0-9][A-Z0-9-]{2,39}$/;
 const SIZE_PATTERN = /^\d+(\.\d+)?(x\d+(\.\d+)?){0,2}$/;
+/** Longest part description: a line of a BOM, not a datasheet. Common practice, no source. */
+export const PART_DESCRIPTION_MAX_LENGTH = 500;
+/** Longest text in any other part field before it is checked (a size or a quantity is a few characters). */
+const PART_TEXT_MAX_LENGTH = 100;
 
 /** The writable fields in CSV column order (the CSV header uses these names). */
 export const PART_FIELDS = [
@@ -78,6 +82,11 @@ export function normalizePart(
     if (isBlank(value)) return '';
     if (typeof value !== 'string') {
       issue(field, 'must be text');
+      return '';
+    }
+    const maxLength = field === 'description' ? PART_DESCRIPTION_MAX_LENGTH : PART_TEXT_MAX_LENGTH;
+    if (value.length > maxLength) {
+      issue(field, `must be at most ${maxLength} characters`);
       return '';
     }
     return value.trim();

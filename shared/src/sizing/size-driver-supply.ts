@@ -6,7 +6,13 @@ import type { DriverStage } from '../designs/driver-stage.types';
 import { DomainError } from '../errors';
 import { batteryLife } from '../driver/battery';
 import { runDriverChecks } from '../driver/driver-checks';
-import { engineLadderLoadLine, pulseDriveOf, solveLoadPoint, supplyCurrentAt } from '../driver/operating-point';
+import {
+  engineLadderLoadLine,
+  isFlybackFed,
+  pulseDriveOf,
+  solveLoadPoint,
+  supplyCurrentAt,
+} from '../driver/operating-point';
 import { bracketedRoot } from '../multiplier/bracketed-root';
 import { analyzeLadder } from '../multiplier/analyze-ladder';
 import type { MethodInfo } from '../methods';
@@ -193,6 +199,7 @@ export function sizeDriverSupply(request: DriverSizerRequest): DriverSizerResult
                   flybackPeakV: point.flybackSecondaryPeakV,
                   frequencyHz: point.frequencyHz,
                   dutyCycle: point.dutyCycle,
+                  isFlybackFed: isFlybackFed(stage),
                 },
                 stage.transformer.secondaryResistanceOhm,
               ),

@@ -11,11 +11,12 @@ import type { Response } from 'express';
 import {
   ConnectionAcquireTimeoutError,
   ConnectionError,
+  DatabaseError,
   ForeignKeyConstraintError,
   UniqueConstraintError,
 } from 'sequelize';
 import type { ApiErrorBody } from '@ladderwright/shared/api';
-import { isDomainError, type DomainError, type DomainErrorCode } from '@ladderwright/shared/errors';
+import { fieldPath, isDomainError, type DomainError, type DomainErrorCode } from '@ladderwright/shared/errors';
 
 const DOMAIN_STATUS: Record<DomainErrorCode, number> = {
   invalid_quantity: HttpStatus.BAD_REQUEST,
@@ -100,7 +101,8 @@ function firstConstraintMessage(constraints: Record<string, string>): string | u
 /** One issue per offending property (its most telling message), nested properties as dotted paths. */
 function flattenValidationErrors(errors: ValidationError[], prefix = ''): { path: string; message: string }[] {
   return errors.flatMap((error) => {
-    const path = prefix ? `${prefix}.${error.property}` : error.property;
+    // Our path notation: an odd key (even an empty one) is quoted, so every issue names its field.
+    const path = fieldPath(prefix, /^(0|[1-9]\d*)$/.test(error.property) ? Number(error.property) : error.property);
     const message = firstConstraintMessage(error.constraints ?? {});
     const own = message ? [{ path, message }] : [];
     return [...own, ...flattenValidationErrors(error.children ?? [], path)];
@@ -150,7 +152,29 @@ function fromClientError(error: unknown): ApiErrorBody | null {
       : status === 413
         ? bodyTooLargeMessage(error)
         : 'The request body was refused';
-  return { statusCode: status, code: HTTP_CODES[status] ?? 'bad_request', message };
+  // A body that is not JSON, or JSON that is not an object or a list, is the body's own fault.
+  return {
+    statusCode: status,
+    code: HTTP_CODES[status] ?? 'bad_request',
+    message,
+    ...(status === 400 ? { field: '(body)' } : {}),
+  };
+}
+
+/**
+ * A query that failed because the database went away under it (a crash, a shutdown or a restart while
+ * the request ran): SQLSTATE class 57 (operator intervention) or 08 (connection exception), or the
+ * driver's own words for a dropped connection. Not a bad request and not a bug: 503.
+ */
+export function isDatabaseOutage(error: unknown): boolean {
+  if (!(error instanceof DatabaseError)) return false;
+  const parent = error.parent as Error & { code?: unknown };
+  const code = typeof parent?.code === 'string' ? parent.code : '';
+  if (code.startsWith('57P') || code.startsWith('08')) return true;
+  if (['ECONNRESET', 'ECONNREFUSED', 'EPIPE'].includes(code)) return true;
+  return /connection terminated|not queryable|connection error|server closed the connection/i.test(
+    parent?.message ?? error.message,
+  );
 }
 
 /**
@@ -164,6 +188,8 @@ export class DomainErrorFilter implements ExceptionFilter {
   catch(error: unknown, host: ArgumentsHost): void {
     const response = host.switchToHttp().getResponse<Response>();
     const body = this.toBody(error);
+    // Every 400 names a field: one about the request as a whole names its body.
+    if (body.statusCode === 400 && !body.field) body.field = '(body)';
     if (response.headersSent) return;
     if (error instanceof RetryLaterException) response.setHeader('Retry-After', String(error.retryAfterS));
     if (error instanceof ConnectionAcquireTimeoutError || error instanceof BusyException)
@@ -195,8 +221,8 @@ export class DomainErrorFilter implements ExceptionFilter {
       this.logger.warn('database pool busy: no connection within the acquire timeout');
       return { statusCode: 503, code: 'busy', message: 'The server is busy; try again in a moment' };
     }
-    if (error instanceof ConnectionError) {
-      this.logger.error(`database unavailable: ${error.message}`);
+    if (error instanceof ConnectionError || isDatabaseOutage(error)) {
+      this.logger.error(`database unavailable: ${(error as Error).message}`);
       return { statusCode: 503, code: 'database_unavailable', message: 'The database is not reachable' };
     }
     const clientError = fromClientError(error);

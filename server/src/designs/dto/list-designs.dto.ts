@@ -39,6 +39,7 @@ export class ListDesignsDto implements DesignListQuery {
   @Type(() => Number)
   @IsInt({ message: 'page must be an integer' })
   @Min(1, { message: 'page must be 1 or more' })
+  @Max(100_000, { message: 'page must be at most 100000' })
   page?: number;
 
   @ApiPropertyOptional({ default: 20, minimum: 1, maximum: 100 })

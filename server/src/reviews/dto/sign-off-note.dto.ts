@@ -1,6 +1,6 @@
 import { ApiPropertyOptional } from '@nestjs/swagger';
 import { Type } from 'class-transformer';
-import { IsOptional, IsString, MaxLength, ValidateNested } from 'class-validator';
+import { IsObject, IsOptional, IsString, MaxLength, ValidateNested } from 'class-validator';
 import type { SignOffNoteRequest } from '@ladderwright/shared/api';
 import { OverrideDto } from './override.dto';
 
@@ -13,6 +13,7 @@ export class SignOffNoteDto implements SignOffNoteRequest {
 
   @ApiPropertyOptional({ type: OverrideDto, description: 'Goes past closed gates; recorded and audited.' })
   @IsOptional()
+  @IsObject({ message: 'override must be an object with a reason' })
   @ValidateNested()
   @Type(() => OverrideDto)
   override?: OverrideDto;

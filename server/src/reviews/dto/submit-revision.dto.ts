@@ -5,6 +5,7 @@ import {
   ArrayMinSize,
   IsArray,
   IsDefined,
+  IsObject,
   IsOptional,
   IsString,
   IsUUID,
@@ -31,6 +32,7 @@ export class SubmitRevisionDto implements SubmitRevisionRequest {
 
   @ApiPropertyOptional({ type: OverrideDto, description: 'Goes past closed gates; recorded and audited.' })
   @IsOptional()
+  @IsObject({ message: 'override must be an object with a reason' })
   @ValidateNested()
   @Type(() => OverrideDto)
   override?: OverrideDto;
