@@ -131,7 +131,7 @@ describe('Sign-off journey', () => {
     await page.getByRole('button', { name: 'Start thread' }).click();
     const thread = page.getByRole('article', { name: /C1 looks small/ });
     await thread.waitFor();
-    expect(await thread.textContent()).toContain('input · multiplier.capacitors[0].valueF');
+    expect(await thread.textContent()).toContain('input · C1 capacitance');
     const returnButton = page.getByRole('button', { name: 'Return with note' });
     expect(await returnButton.isDisabled()).toBe(true);
     await page.getByLabel('Note').fill('See the comment on C1');

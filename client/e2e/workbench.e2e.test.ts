@@ -90,7 +90,7 @@ describe('workbench journey', () => {
     await page.getByRole('tab', { name: 'History' }).click();
     const inputs = page.getByRole('table', { name: /Inputs that differ/ });
     await inputs.waitFor();
-    expect(await inputs.textContent()).toContain('multiplier.capacitors[0].valueF');
+    expect(await inputs.textContent()).toContain('C1 capacitance');
     // Values and deltas carry units (the field name's suffix), not raw SI numbers.
     expect(await inputs.textContent()).toContain('1.5 nF');
     expect(await inputs.textContent()).not.toMatch(/\de-\d/);
@@ -101,7 +101,9 @@ describe('workbench journey', () => {
     await page.getByRole('tab', { name: 'Checks' }).click();
     const checks = page.getByRole('table', { name: 'Checks' });
     await checks.waitFor();
-    expect(await checks.textContent()).toMatch(/(pass|marginal|fail) [+−±]\d+\.\d %/);
+    expect(await checks.textContent()).toMatch(
+      /(pass|marginal|fail) · (\d+(\.\d)? % (below|over) the limit|[\d.]+× the limit|at the limit)/,
+    );
 
     // Simulate: progress, then waveforms.
     await page.getByRole('tab', { name: 'Waveforms' }).click();
@@ -158,7 +160,7 @@ describe('workbench journey', () => {
     await other.getByRole('button', { name: 'Save revision' }).click();
     const alert = other.getByRole('alert').filter({ hasText: 'Someone saved r2 meanwhile' });
     await alert.waitFor();
-    expect(await alert.textContent()).toContain('multiplier.capacitors[0].valueF');
+    expect(await alert.textContent()).toContain('C1 capacitance');
     // Still the typed value (shown normalized since the field lost focus to Save).
     expect(await other.getByLabel('C2 capacitance').inputValue()).toBe('2.2 nF');
     expect(new URL(other.url()).searchParams.get('rev')).toBe('1');

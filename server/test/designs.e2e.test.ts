@@ -340,6 +340,47 @@ describe('designs', () => {
       expect((await http().get(path).set('Cookie', as(outsider))).status).toBe(404);
       expect((await http().get(path)).status).toBe(401);
     });
+
+    it('compares with a revision of another design of the project, naming both and the capacitors that move', async () => {
+      const other = await createDesign(testApp, project.id, engineer.id, {
+        name: 'Four-cell tester',
+        from: { kind: 'template', templateId: 'surfaceChargeTester' },
+      });
+      const response = await http()
+        .get(`${designsPath()}/${design.id}/compare`)
+        .query({ a: 1, b: 1, bDesignId: other.id })
+        .set('Cookie', as(reviewer));
+      expect(response.status).toBe(200);
+      expect(response.body.designs).toEqual({
+        a: { id: design.id, name: design.name },
+        b: { id: other.id, name: 'Four-cell tester' },
+      });
+      // The tripler starts with a half-wave cell (C1 in the smoothing column); a four-cell ladder starts in the
+      // oscillating column (capacitor order of the design document, design.types.ts).
+      expect(response.body.roleChanges[0]).toMatchObject({
+        index: 0,
+        from: { column: 'smoothing' },
+        to: { column: 'oscillating' },
+      });
+      expect(response.body.checks.a.length).toBeGreaterThan(0);
+      expect(response.body.checks.b.length).toBeGreaterThan(0);
+      expect(response.body.inputs.some((input: { path: string }) => input.path === 'multiplier.cellCount')).toBe(true);
+    });
+
+    it('returns 400 naming bDesignId when it is not an id, and 404 for a design of another project', async () => {
+      const malformed = await http()
+        .get(`${designsPath()}/${design.id}/compare`)
+        .query({ a: 1, b: 1, bDesignId: 'not-an-id' })
+        .set('Cookie', as(engineer));
+      expect(malformed.status).toBe(400);
+      expect(malformed.body).toMatchObject({ field: 'bDesignId', message: 'bDesignId must be a design id (a UUID)' });
+      const foreign = await createDesign(testApp, otherProject.id, outsider.id);
+      const hidden = await http()
+        .get(`${designsPath()}/${design.id}/compare`)
+        .query({ a: 1, b: 1, bDesignId: foreign.id })
+        .set('Cookie', as(engineer));
+      expect(hidden.status).toBe(404);
+    });
   });
 
   describe('import', () => {

@@ -97,6 +97,13 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
               },
             },
             {
+              path: paths.compareDesigns.path,
+              lazy: async () => {
+                const { CompareDesignsRoute, compareDesignsLoader } = await import('./routes/app/compare-designs');
+                return { Component: CompareDesignsRoute, loader: compareDesignsLoader(queryClient) };
+              },
+            },
+            {
               path: paths.sizer.path,
               lazy: async () => {
                 const { SizerRoute, sizerLoader } = await import('./routes/app/sizer');

@@ -1,10 +1,21 @@
+import { useEffect } from 'react';
 import { Group, Paper, Text, ThemeIcon } from '@mantine/core';
+import { useElementSize } from '@mantine/hooks';
 import classes from './hv-caution.module.css';
+
+/** The CSS variable holding the caution's height, so sticky areas below it never cover it. */
+export const HV_CAUTION_HEIGHT_VAR = '--lw-hv-caution-height';
 
 /** The persistent high-voltage caution shown on every signed-in screen. */
 export function HvCaution() {
+  const { ref, height } = useElementSize();
+  useEffect(() => {
+    // useElementSize reads the content box; the padding and border add about 13 px.
+    if (height > 0) document.documentElement.style.setProperty(HV_CAUTION_HEIGHT_VAR, `${Math.ceil(height) + 13}px`);
+  }, [height]);
   return (
     <Paper
+      ref={ref}
       component="aside"
       role="note"
       aria-label="High-voltage caution"

@@ -1,3 +1,21 @@
+/** One revision of one design, as the Compare designs page names it in its address (`designId.revisionNumber`). */
+export interface RevisionRef {
+  designId: string;
+  revisionNumber: number;
+}
+
+export function revisionRefParam(ref: RevisionRef): string {
+  return `${encodeURIComponent(ref.designId)}.${ref.revisionNumber}`;
+}
+
+/** The reference in `a=…` or `b=…` of the Compare designs address; null when malformed. */
+export function parseRevisionRef(value: string | null): RevisionRef | null {
+  const match = /^(.+)\.(\d{1,6})$/.exec(value ?? '');
+  if (!match?.[1] || !match[2]) return null;
+  const revisionNumber = Number(match[2]);
+  return revisionNumber >= 1 ? { designId: decodeURIComponent(match[1]), revisionNumber } : null;
+}
+
 /** Every URL the client knows: screens (`path` for the router, `getHref` for links) and API endpoints. */
 export const paths = {
   inbox: { path: '/inbox', getHref: () => '/inbox' },
@@ -32,6 +50,13 @@ export const paths = {
     getHref: (projectId: string, designId: string, revisionNumber?: number) =>
       `/projects/${encodeURIComponent(projectId)}/designs/${encodeURIComponent(designId)}` +
       (revisionNumber === undefined ? '' : `?rev=${revisionNumber}`),
+  },
+  compareDesigns: {
+    path: '/projects/:projectId/compare',
+    getHref: (projectId: string, a?: RevisionRef, b?: RevisionRef) => {
+      const query = [a && `a=${revisionRefParam(a)}`, b && `b=${revisionRefParam(b)}`].filter(Boolean).join('&');
+      return `/projects/${encodeURIComponent(projectId)}/compare${query ? `?${query}` : ''}`;
+    },
   },
   sizer: {
     path: '/projects/:projectId/sizer',
@@ -80,8 +105,9 @@ export const apiPaths = {
     `/api/projects/${encodeURIComponent(projectId)}/designs/${encodeURIComponent(designId)}/revisions`,
   revision: (projectId: string, designId: string, revisionNumber: number) =>
     `/api/projects/${encodeURIComponent(projectId)}/designs/${encodeURIComponent(designId)}/revisions/${revisionNumber}`,
-  compareRevisions: (projectId: string, designId: string, a: number, b: number) =>
-    `/api/projects/${encodeURIComponent(projectId)}/designs/${encodeURIComponent(designId)}/compare?a=${a}&b=${b}`,
+  compareRevisions: (projectId: string, designId: string, a: number, b: number, bDesignId?: string) =>
+    `/api/projects/${encodeURIComponent(projectId)}/designs/${encodeURIComponent(designId)}/compare?a=${a}&b=${b}` +
+    (bDesignId && bDesignId !== designId ? `&bDesignId=${encodeURIComponent(bDesignId)}` : ''),
   designTemplates: '/api/design-templates',
   evaluate: '/api/analysis/evaluate',
   simulations: (projectId: string) => `/api/projects/${encodeURIComponent(projectId)}/simulations`,

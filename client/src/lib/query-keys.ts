@@ -25,8 +25,8 @@ export const queryKeys = {
       [...queryKeys.designs.project(projectId), 'detail', designId] as const,
     revision: (projectId: string, designId: string, revisionNumber: number) =>
       [...queryKeys.designs.detail(projectId, designId), 'revision', revisionNumber] as const,
-    compare: (projectId: string, designId: string, a: number, b: number) =>
-      [...queryKeys.designs.detail(projectId, designId), 'compare', a, b] as const,
+    compare: (projectId: string, designId: string, a: number, bDesignId: string, b: number) =>
+      [...queryKeys.designs.detail(projectId, designId), 'compare', a, bDesignId, b] as const,
     templates: () => [...queryKeys.designs.all, 'templates'] as const,
   },
   simulations: {

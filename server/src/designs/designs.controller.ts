@@ -83,6 +83,6 @@ export class DesignsController {
     @Param('designId') designId: string,
     @Query() query: CompareRevisionsDto,
   ): Promise<RevisionComparison> {
-    return this.revisions.compare(membership.projectId, designId, query.a, query.b);
+    return this.revisions.compare(membership.projectId, designId, query.a, query.b, query.bDesignId);
   }
 }

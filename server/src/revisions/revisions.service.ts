@@ -14,6 +14,7 @@ import type {
 import type { Design } from '@ladderwright/shared/designs';
 import { DomainError } from '@ladderwright/shared/errors';
 import { buildCircuit } from '@ladderwright/shared/circuits';
+import { capacitorRoleChanges } from '@ladderwright/shared/multiplier';
 import { toSpiceNetlist } from '@ladderwright/shared/sim';
 import { AnalysisService } from '../analysis/analysis.service';
 import { APP_ENV, type AppEnv } from '../config/env';
@@ -157,15 +158,33 @@ export class RevisionsService {
     return this.get({ projectId, designId, revisionNumber: number });
   }
 
-  /** Inputs that differ and every headline result, a beside b, with b − a. */
-  async compare(projectId: string, designId: string, a: number, b: number): Promise<RevisionComparison> {
-    const design = await this.lookup.findDesign(projectId, designId);
-    const [revisionA, revisionB] = await Promise.all([this.load(design.id, a, 'a'), this.load(design.id, b, 'b')]);
+  /**
+   * Inputs that differ, every headline result with b − a, the capacitors that change place in the ladder and both
+   * sides' Checks: revision a of `designId` beside revision b of the same design or of `bDesignId` (same project).
+   */
+  async compare(
+    projectId: string,
+    designId: string,
+    a: number,
+    b: number,
+    bDesignId?: string,
+  ): Promise<RevisionComparison> {
+    const designA = await this.lookup.findDesign(projectId, designId);
+    const designB =
+      bDesignId && bDesignId !== designId ? await this.lookup.findDesign(projectId, bDesignId) : designA;
+    const [revisionA, revisionB] = await Promise.all([this.load(designA.id, a, 'a'), this.load(designB.id, b, 'b')]);
+    const ladder = (document: Design) => ({
+      topology: document.multiplier.topology,
+      capacitorCount: document.multiplier.capacitors.length,
+    });
     return {
       a: toRevisionSummary(revisionA),
       b: toRevisionSummary(revisionB),
+      designs: { a: { id: designA.id, name: designA.name }, b: { id: designB.id, name: designB.name } },
       inputs: differences(revisionA.document, revisionB.document),
       results: this.analysis.compareFigures(revisionA.report, revisionB.report),
+      roleChanges: capacitorRoleChanges(ladder(revisionA.document), ladder(revisionB.document)),
+      checks: { a: revisionA.report.checks, b: revisionB.report.checks },
     };
   }
 

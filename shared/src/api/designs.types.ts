@@ -1,6 +1,8 @@
 import type { Design } from '../designs';
 import type { FieldIssue } from '../errors';
 import type { DesignReport } from '../analysis';
+import type { CapacitorRoleChange } from '../multiplier';
+import type { CheckVerdict } from '../safety';
 import type { RevisionState } from '../reviews';
 
 /**
@@ -122,12 +124,26 @@ export interface ResultDifference {
   deltaPct: number | null;
 }
 
-/** GET .../designs/:designId/compare?a=N&b=M. `inputs` lists only fields that differ; `results` lists every headline figure. */
+/** The design a compared revision belongs to. */
+export interface ComparedDesign {
+  id: string;
+  name: string;
+}
+
+/**
+ * GET .../designs/:designId/compare?a=N&b=M[&bDesignId=…]: revision a of the design beside revision b of the same
+ * design, or of `bDesignId` (another design of the project). `inputs` lists only fields that differ; `results`
+ * lists every headline figure; `roleChanges` the capacitors that keep their number but sit elsewhere in the
+ * ladder in b; `checks` each side's Checks as stored.
+ */
 export interface RevisionComparison {
   a: RevisionSummary;
   b: RevisionSummary;
+  designs: { a: ComparedDesign; b: ComparedDesign };
   inputs: InputDifference[];
   results: ResultDifference[];
+  roleChanges: CapacitorRoleChange[];
+  checks: { a: CheckVerdict[]; b: CheckVerdict[] };
 }
 
 /** POST /api/analysis/evaluate: the engine's report for an unsaved document. */

@@ -39,18 +39,53 @@ export function setAt<T extends object>(document: T, path: NumberPath<T>, value:
   if (isNode(node) && last !== undefined) node[last] = value;
 }
 
-/** One numeric field's binding to a document: its path, its value, and the edit that writes it. */
-export interface Binding<T> {
-  path: NumberPath<T>;
+/** Applies one change to a copy of a document; `key` names the field changed (its full document path). */
+export type Edit<T> = (mutate: (draft: T) => void, key?: string) => void;
+
+/** One numeric field's binding to a document: its full path, value, validation message and the edit that writes it. */
+export interface Binding {
+  path: string;
   value: number;
+  issue: string | null;
   onValue: (value: number) => void;
 }
 
-/** `bind(path)` for a document and its edit function (which applies a mutation to a copy). */
-export function binder<T extends object>(document: T, edit: (mutate: (draft: T) => void) => void) {
-  return (path: NumberPath<T>): Binding<T> => ({
-    path,
-    value: getAt(document, path),
-    onValue: (value) => edit((draft) => setAt(draft, path, value)),
-  });
+/**
+ * `bind(path)` for a document (or a part of one at `prefix`, e.g. `drive.driver`), its edit function and the
+ * validation messages by full document path.
+ */
+export function binder<T extends object>(
+  document: T,
+  edit: Edit<T>,
+  issueOf: (path: string) => string | null,
+  prefix = '',
+) {
+  return (path: NumberPath<T>): Binding => {
+    const fullPath = prefix ? `${prefix}.${path}` : path;
+    return {
+      path: fullPath,
+      value: getAt(document, path),
+      issue: issueOf(fullPath),
+      onValue: (value) => edit((draft) => setAt(draft, path, value), fullPath),
+    };
+  };
+}
+
+/**
+ * `next` with every branch that equals the one in `previous` replaced by that very branch, so an edit keeps the
+ * identity of all it did not touch and memoized parts of the form can skip rendering.
+ */
+export function withSharedBranches<T>(previous: T, next: T): T {
+  if (Object.is(previous, next)) return previous;
+  if (!isNode(previous) || !isNode(next) || Array.isArray(previous) !== Array.isArray(next)) return next;
+  const previousKeys = Object.keys(previous);
+  const nextKeys = Object.keys(next);
+  let isSame = previousKeys.length === nextKeys.length;
+  const shared: Node = Array.isArray(next) ? ([] as unknown as Node) : {};
+  for (const key of nextKeys) {
+    const branch = withSharedBranches(previous[key], next[key]);
+    shared[key] = branch;
+    if (branch !== previous[key] || !(key in previous)) isSame = false;
+  }
+  return (isSame ? previous : shared) as T;
 }

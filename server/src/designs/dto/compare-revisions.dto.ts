@@ -1,6 +1,6 @@
-import { ApiProperty } from '@nestjs/swagger';
+import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
 import { Type } from 'class-transformer';
-import { IsDefined, IsInt, Min } from 'class-validator';
+import { IsDefined, IsInt, IsOptional, IsUUID, Min } from 'class-validator';
 
 export class CompareRevisionsDto {
   @ApiProperty({ example: 1, description: 'Revision number shown on the left.' })
@@ -16,4 +16,12 @@ export class CompareRevisionsDto {
   @IsInt({ message: 'b must be a revision number (an integer)' })
   @Min(1, { message: 'b must be 1 or more' })
   b!: number;
+
+  @ApiPropertyOptional({
+    format: 'uuid',
+    description: 'Another design of the same project that revision b belongs to; the design in the path when absent.',
+  })
+  @IsOptional()
+  @IsUUID('all', { message: 'bDesignId must be a design id (a UUID)' })
+  bDesignId?: string;
 }

@@ -16,8 +16,9 @@ import { SignOffError } from '../../../features/sign-off/components/sign-off-err
 import { SignOffPanel } from '../../../features/sign-off/components/sign-off-panel';
 import { SpecSheetDownload } from '../../../features/sign-off/components/spec-sheet-download';
 import { ChecksTable } from '../../../features/workbench/components/checks-table';
-import { HeadlineFigures } from '../../../features/workbench/components/headline-figures';
+import { VerdictStrip } from '../../../features/workbench/components/verdict-strip';
 import { requireUser } from './root';
+import { formatDateTime } from '../../../lib/format-date';
 
 function routeParams(params: Record<string, string | undefined>) {
   return {
@@ -85,8 +86,7 @@ export function SignOffRoute() {
             </span>
           </Group>
           <Text size="sm" c="dimmed">
-            {revision.changeNote || 'No change note'} · by {revision.authorName} ·{' '}
-            {new Date(revision.createdAt).toLocaleString()}
+            {revision.changeNote || 'No change note'} · by {revision.authorName} · {formatDateTime(revision.createdAt)}
             {revisionNumber !== design.latestRevisionNumber && ` · the latest is r${design.latestRevisionNumber}`}
           </Text>
         </div>
@@ -110,7 +110,7 @@ export function SignOffRoute() {
         <Title order={2} size="h4" mb="xs">
           Results of r{revisionNumber} (stored with the revision)
         </Title>
-        <HeadlineFigures report={report} targets={revision.document.targets} />
+        <VerdictStrip report={report} targets={revision.document.targets} />
       </Paper>
       <Grid gap="lg">
         <Grid.Col span={{ base: 12, lg: 7 }}>

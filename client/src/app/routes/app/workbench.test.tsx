@@ -147,8 +147,8 @@ describe('Workbench save when someone saved meanwhile', () => {
     fireEvent.click(saveButton);
 
     const alert = await screen.findByRole('alert', { name: /Someone saved r2 meanwhile/ });
-    expect(within(alert).getByText('multiplier.capacitors[1].valueF')).toBeInTheDocument();
-    expect(within(alert).getByText('targets.rippleMaxV')).toBeInTheDocument();
+    expect(within(alert).getByText('C2 capacitance')).toBeInTheDocument();
+    expect(within(alert).getByText('Ripple limit')).toBeInTheDocument();
     expect(saves[0]?.baseRevisionNumber).toBe(1);
     // The edit and the note are still there, and nothing navigated away.
     expect(screen.getByLabelText('C1 capacitance')).toHaveValue('1n5');

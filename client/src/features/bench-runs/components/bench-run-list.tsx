@@ -2,6 +2,7 @@ import { Button, Group, Table, Text } from '@mantine/core';
 import { useBenchRuns } from '../api/get-bench-runs';
 import { useDeleteBenchRun } from '../api/delete-bench-run';
 import { BenchVerdictBadge } from './bench-verdict-badge';
+import { formatDateTime } from '../../../lib/format-date';
 
 export interface BenchRunListProps {
   projectId: string;
@@ -41,7 +42,7 @@ export function BenchRunList({
         {runs.map((run) => (
           <Table.Tr key={run.id} bg={run.id === selectedId ? 'var(--mantine-color-default-hover)' : undefined}>
             <Table.Td>
-              {new Date(run.createdAt).toLocaleString()} · {run.uploadedByName}
+              {formatDateTime(run.createdAt)} · {run.uploadedByName}
             </Table.Td>
             <Table.Td>{run.kind === 'load-sweep' ? 'load sweep' : 'scope capture'}</Table.Td>
             <Table.Td>{run.title}</Table.Td>

@@ -1,31 +1,40 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { RevisionComparison } from '@ladderwright/shared/api';
-import { apiPaths } from '../../../config/paths';
+import { apiPaths, type RevisionRef } from '../../../config/paths';
 import { apiRequest } from '../../../lib/api-client';
 import { queryKeys } from '../../../lib/query-keys';
 
-/** Two revisions side by side: inputs that differ and every headline result, with deltas. */
+/**
+ * Two revisions side by side, of one design or of two designs of the project: inputs that differ, every headline
+ * result with deltas, capacitors that change place, and both sides' Checks.
+ */
 export function compareRevisions(
   projectId: string,
-  designId: string,
-  a: number,
-  b: number,
+  a: RevisionRef,
+  b: RevisionRef,
   signal?: AbortSignal,
 ): Promise<RevisionComparison> {
-  return apiRequest<RevisionComparison>(apiPaths.compareRevisions(projectId, designId, a, b), { signal });
+  return apiRequest<RevisionComparison>(
+    apiPaths.compareRevisions(projectId, a.designId, a.revisionNumber, b.revisionNumber, b.designId),
+    { signal },
+  );
 }
 
-export function compareRevisionsQueryOptions(projectId: string, designId: string, a: number, b: number) {
+export function compareRevisionsQueryOptions(projectId: string, a: RevisionRef, b: RevisionRef) {
   return queryOptions({
-    queryKey: queryKeys.designs.compare(projectId, designId, a, b),
-    queryFn: ({ signal }) => compareRevisions(projectId, designId, a, b, signal),
+    queryKey: queryKeys.designs.compare(projectId, a.designId, a.revisionNumber, b.designId, b.revisionNumber),
+    queryFn: ({ signal }) => compareRevisions(projectId, a, b, signal),
     staleTime: Infinity,
   });
 }
 
-export function useCompareRevisions(projectId: string, designId: string, a: number | null, b: number | null) {
+const none: RevisionRef = { designId: '', revisionNumber: 0 };
+
+/** Runs only with two references that name different revisions. */
+export function useCompareRevisions(projectId: string, a: RevisionRef | null, b: RevisionRef | null) {
+  const isSame = a !== null && b !== null && a.designId === b.designId && a.revisionNumber === b.revisionNumber;
   return useQuery({
-    ...compareRevisionsQueryOptions(projectId, designId, a ?? 0, b ?? 0),
-    enabled: a !== null && b !== null && a !== b,
+    ...compareRevisionsQueryOptions(projectId, a ?? none, b ?? none),
+    enabled: a !== null && b !== null && !isSame,
   });
 }

@@ -18,6 +18,7 @@ import { paths } from '../../../config/paths';
 import { useDesigns } from '../api/get-designs';
 import { DesignsEmpty } from './designs-empty';
 import { RevisionStateBadge } from './revision-state-badge';
+import { formatDateTime } from '../../../lib/format-date';
 
 export interface DesignTableProps {
   projectId: string;
@@ -32,8 +33,6 @@ const columns: ReadonlyArray<{ key: DesignSortKey | null; label: string }> = [
   { key: 'state', label: 'State' },
   { key: 'updatedAt', label: 'Updated' },
 ];
-
-const dateFormat = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
 
 /** The project's Designs: search, state and owner filters, sortable columns and pages, all answered by the server. */
 export function DesignTable({ projectId, members, pageSize = 20 }: DesignTableProps) {
@@ -150,7 +149,7 @@ export function DesignTable({ projectId, members, pageSize = 20 }: DesignTablePr
                 <Table.Td>
                   <RevisionStateBadge state={design.latestState} />
                 </Table.Td>
-                <Table.Td>{dateFormat.format(new Date(design.updatedAt))}</Table.Td>
+                <Table.Td>{formatDateTime(design.updatedAt)}</Table.Td>
               </Table.Tr>
             ))}
             {designs.data && designs.data.items.length === 0 && (

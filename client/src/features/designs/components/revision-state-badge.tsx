@@ -18,7 +18,7 @@ export function RevisionStateBadge({ state }: { state: RevisionState }) {
       color={stateColors[state]}
       radius="sm"
       tt="none"
-      style={{ maxWidth: 'none', overflow: 'visible' }}
+      style={{ maxWidth: 'none', overflow: 'visible', flexShrink: 0 }}
     >
       {state}
     </Badge>

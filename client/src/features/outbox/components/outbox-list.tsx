@@ -1,5 +1,6 @@
 import { Card, Code, Group, Stack, Text } from '@mantine/core';
 import type { Outbox } from '@ladderwright/shared/api';
+import { formatDateTime } from '../../../lib/format-date';
 
 export function OutboxList({ outbox }: { outbox: Outbox }) {
   return (
@@ -13,7 +14,7 @@ export function OutboxList({ outbox }: { outbox: Outbox }) {
           <Group justify="space-between">
             <Text fw={600}>{mail.subject}</Text>
             <Text size="xs" c="dimmed">
-              {new Date(mail.receivedAt).toLocaleString()}
+              {formatDateTime(mail.receivedAt)}
             </Text>
           </Group>
           <Text size="sm">To: {mail.to.join(', ')}</Text>

@@ -57,8 +57,10 @@ export function ProjectNav({ projects, activeProjectId, isLoading }: ProjectNavP
                     !pathname.endsWith('/sizer') &&
                       !pathname.endsWith('/parts') &&
                       !pathname.endsWith('/members') &&
-                      !pathname.endsWith('/settings'),
+                      !pathname.endsWith('/settings') &&
+                      !pathname.endsWith('/compare'),
                   )}
+                  {section(paths.compareDesigns.getHref(project.id), 'Compare designs')}
                   {section(paths.sizer.getHref(project.id), 'Sizer')}
                   {section(paths.partsShelf.getHref(project.id), 'Parts shelf')}
                   {section(paths.projectMembers.getHref(project.id), 'Members')}

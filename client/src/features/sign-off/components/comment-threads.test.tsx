@@ -97,7 +97,7 @@ describe('CommentThreads', () => {
   it('shows a thread with its anchor and replies, replies to it and resolves it', async () => {
     renderThreads([thread]);
     const article = await screen.findByRole('article', { name: /Why 2.2 nF here/ });
-    expect(within(article).getByText('input · multiplier.capacitors[0].valueF')).toBeInTheDocument();
+    expect(within(article).getByText('input · C1 capacitance')).toBeInTheDocument();
     expect(within(article).getByText('open')).toBeInTheDocument();
     expect(within(article).getByText('Ripple target.')).toBeInTheDocument();
 

@@ -6,6 +6,8 @@ import { useComments } from '../api/get-comments';
 import { useCreateComment } from '../api/create-comment';
 import { useUpdateComment } from '../api/update-comment';
 import { SignOffError } from './sign-off-error';
+import { formatDateTime } from '../../../lib/format-date';
+import { documentFieldLabel, resultFieldLabel } from '@ladderwright/shared/designs';
 
 export interface CommentThreadsProps {
   projectId: string;
@@ -16,11 +18,13 @@ export interface CommentThreadsProps {
 }
 
 function anchorLabel(anchor: CommentAnchor): string {
-  return `${anchor.kind === 'input' ? 'input' : 'result'} · ${anchor.path}`;
+  return anchor.kind === 'input'
+    ? `input · ${documentFieldLabel(anchor.path).label}`
+    : `result · ${resultFieldLabel(anchor.path).label}`;
 }
 
 function byline(comment: ReviewComment): string {
-  return `${comment.authorName} · ${new Date(comment.createdAt).toLocaleString()}`;
+  return `${comment.authorName} · ${formatDateTime(comment.createdAt)}`;
 }
 
 /** The revision's comment threads (one level of replies), a new thread with an optional anchor, resolve/reopen. */
@@ -163,8 +167,17 @@ function NewThreadForm({ projectId, designId, revisionNumber, anchorOptions }: N
   const create = useCreateComment(projectId, designId, revisionNumber);
   const selectData = [
     { value: '', label: 'No anchor (whole revision)' },
-    { group: 'Input fields', items: anchorOptions.inputPaths.map((path) => ({ value: `input:${path}`, label: path })) },
-    { group: 'Results', items: anchorOptions.resultKeys.map((key) => ({ value: `result:${key}`, label: key })) },
+    {
+      group: 'Input fields',
+      items: anchorOptions.inputPaths.map((path) => ({
+        value: `input:${path}`,
+        label: documentFieldLabel(path).label,
+      })),
+    },
+    {
+      group: 'Results',
+      items: anchorOptions.resultKeys.map((key) => ({ value: `result:${key}`, label: resultFieldLabel(key).label })),
+    },
   ];
   const send = () => {
     const chosen = anchorFromValue(anchor);

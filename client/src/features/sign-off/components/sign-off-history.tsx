@@ -1,5 +1,6 @@
 import { Table, Text } from '@mantine/core';
 import type { SignOffTransition } from '@ladderwright/shared/api';
+import { formatDateTime } from '../../../lib/format-date';
 
 /** The audit history of the Sign-off: who moved the revision, when, from which state to which, and why. */
 export function SignOffHistory({ history }: { history: readonly SignOffTransition[] }) {
@@ -24,7 +25,7 @@ export function SignOffHistory({ history }: { history: readonly SignOffTransitio
       <Table.Tbody>
         {history.map((entry) => (
           <Table.Tr key={entry.id}>
-            <Table.Td>{new Date(entry.at).toLocaleString()}</Table.Td>
+            <Table.Td>{formatDateTime(entry.at)}</Table.Td>
             <Table.Td>{entry.actorName ?? 'Ladderwright'}</Table.Td>
             <Table.Td>{entry.fromState}</Table.Td>
             <Table.Td>{entry.toState}</Table.Td>

@@ -2,6 +2,7 @@ import { List, Paper, Stack, Text, Title } from '@mantine/core';
 import type { SignOff } from '@ladderwright/shared/api';
 import { SignOffCommands } from './sign-off-commands';
 import { SignOffHistory } from './sign-off-history';
+import { formatDateTime } from '../../../lib/format-date';
 
 /** The Sign-off of one revision: who it waits for, the commands open to the caller, approvals and history. */
 export function SignOffPanel({ signOff }: { signOff: SignOff }) {
@@ -32,7 +33,7 @@ export function SignOffPanel({ signOff }: { signOff: SignOff }) {
           <List size="sm" aria-label="Approvals">
             {signOff.approvals.map((approval) => (
               <List.Item key={`${approval.userId}-${approval.at}`}>
-                approved by {approval.displayName} on {new Date(approval.at).toLocaleString()}
+                approved by {approval.displayName} on {formatDateTime(approval.at)}
                 {approval.note ? ` · ${approval.note}` : ''}
               </List.Item>
             ))}

@@ -23,7 +23,8 @@ function values(): number[] {
   return (screen.getByLabelText('values').textContent ?? '').split(',').map(Number);
 }
 
-describe('CapacitorTable', () => {
+// Typing and picking through Mantine inputs takes a few seconds per case when the machine is shared.
+describe('CapacitorTable', { timeout: 20_000 }, () => {
   it('fills down: C2 typed with a prefix is copied to every capacitor above it, not below', () => {
     renderWithApp(<Harness topology="half-wave" initial={capacitors([1e-9, 1e-9, 1e-9, 1e-9])} />);
 

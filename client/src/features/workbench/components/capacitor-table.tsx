@@ -1,6 +1,7 @@
-import { useState } from 'react';
+import { useEffect, useRef, useState, type ClipboardEvent } from 'react';
 import {
   ActionIcon,
+  Alert,
   Button,
   Group,
   Popover,
@@ -14,13 +15,16 @@ import {
 import type { Part } from '@ladderwright/shared/api';
 import type { CapacitorPart, Topology } from '@ladderwright/shared/designs';
 import { QuantityInput } from '../../../components/quantity-input';
-import { capacitorPlaces, fillDown, gradeCapacitors } from '../ladder-edits';
+import { capacitorPlacesOf, fillDown, gradeCapacitors, placeLabel } from '../ladder-edits';
+import { isCellBlock, pasteIntoCapacitors, type CapacitorColumnKey } from '../paste-cells';
+import classes from './capacitor-table.module.css';
 import { PartCodeInput } from './part-code-input';
 
 export interface CapacitorTableProps {
   topology: Topology;
   capacitors: CapacitorPart[];
-  onChange: (capacitors: CapacitorPart[]) => void;
+  /** The new list; `key` names the one field changed (its document path) when a single cell was edited. */
+  onChange: (capacitors: CapacitorPart[], key?: string) => void;
   /** Validation messages by document path, e.g. `multiplier.capacitors[2].valueF`. */
   issues: Readonly<Record<string, string>>;
   /** The project's Parts shelf, offered in each part-code field. */
@@ -29,15 +33,10 @@ export interface CapacitorTableProps {
   onPickPart?: (index: number, part: Part) => void;
 }
 
-const columnLabels: Record<string, string> = {
-  oscillating: 'oscillating',
-  smoothing: 'smoothing',
-  'oscillating-a': 'oscillating A',
-  'oscillating-b': 'oscillating B',
-  bridge: 'bridge half',
-};
-
-/** One row per ladder capacitor, from the source upward, with fill-down and a grading helper. */
+/**
+ * One row per ladder capacitor, from the source upward, with fill-down and a grading helper. A column or block of
+ * cells pasted from a spreadsheet fills the cells from the one pasted into, right and down.
+ */
 export function CapacitorTable({
   topology,
   capacitors,
@@ -46,16 +45,35 @@ export function CapacitorTable({
   parts = [],
   onPickPart,
 }: CapacitorTableProps) {
-  const places = capacitorPlaces(topology, capacitors);
-  const setCapacitor = (index: number, patch: Partial<CapacitorPart>) =>
-    onChange(capacitors.map((c, i) => (i === index ? { ...c, ...patch } : c)));
+  const places = capacitorPlacesOf(topology, capacitors);
+  const [pasteMessage, setPasteMessage] = useState<{ isError: boolean; text: string } | null>(null);
+  const setCapacitor = (index: number, patch: Partial<CapacitorPart>) => {
+    const [field = ''] = Object.keys(patch);
+    onChange(
+      capacitors.map((c, i) => (i === index ? { ...c, ...patch } : c)),
+      `multiplier.capacitors[${index}].${field}`,
+    );
+  };
   const at = (i: number, key: string) => issues[`multiplier.capacitors[${i}].${key}`] ?? null;
+  /** Paste handler of one cell: a block fills the table, a single value is left to the field. */
+  const pasteAt = (row: number, column: CapacitorColumnKey) => (event: ClipboardEvent<HTMLElement>) => {
+    const text = event.clipboardData.getData('text/plain');
+    if (!isCellBlock(text)) return;
+    event.preventDefault();
+    const result = pasteIntoCapacitors(capacitors, text, row, column);
+    if (result.ok) {
+      onChange(result.capacitors);
+      setPasteMessage({ isError: false, text: `Pasted ${result.cellCount} cells from C${row + 1}.` });
+    } else {
+      setPasteMessage({ isError: true, text: `Nothing pasted: ${result.message}` });
+    }
+  };
 
   return (
     <Stack gap="xs">
       <Group justify="space-between">
         <Text size="sm" c="dimmed">
-          From the source upward: C1 is charged through D1.
+          From the source upward: C1 is charged through D1. Paste a column or block of cells from a spreadsheet.
         </Text>
         <GradingHelper
           initialTopStageF={capacitors[capacitors.length - 1]?.valueF ?? 10e-9}
@@ -63,14 +81,26 @@ export function CapacitorTable({
           onApply={(topStageF) => onChange(gradeCapacitors(topology, capacitors, topStageF))}
         />
       </Group>
-      <Table.ScrollContainer minWidth={720}>
-        <Table verticalSpacing={4} aria-label="Ladder capacitors">
+      {pasteMessage && (
+        <Alert
+          color={pasteMessage.isError ? 'red' : 'verdigris'}
+          variant="light"
+          p="xs"
+          role={pasteMessage.isError ? 'alert' : 'status'}
+          withCloseButton
+          closeButtonLabel="Dismiss"
+          onClose={() => setPasteMessage(null)}
+        >
+          <Text size="sm">{pasteMessage.text}</Text>
+        </Alert>
+      )}
+      <Table.ScrollContainer minWidth={500}>
+        <Table verticalSpacing={4} horizontalSpacing={6} aria-label="Ladder capacitors">
           <Table.Thead>
             <Table.Tr>
-              <Table.Th>Capacitor</Table.Th>
-              <Table.Th>Place</Table.Th>
+              <Table.Th className={classes.sticky}>Capacitor</Table.Th>
               <Table.Th>Capacitance</Table.Th>
-              <Table.Th>Tolerance ±</Table.Th>
+              <Table.Th>Tol. ±</Table.Th>
               <Table.Th>Rated voltage</Table.Th>
               <Table.Th>Part code</Table.Th>
               <Table.Th>
@@ -84,13 +114,15 @@ export function CapacitorTable({
               const place = places?.[i];
               return (
                 <Table.Tr key={i}>
-                  <Table.Td fw={600}>{name}</Table.Td>
-                  <Table.Td>
-                    <Text size="xs">
-                      {place ? `stage ${place.stage}, ${columnLabels[place.column] ?? place.column}` : '—'}
+                  <Table.Td className={classes.sticky}>
+                    <Text size="sm" fw={600} lh={1.2}>
+                      {name}
+                    </Text>
+                    <Text size="xs" c="dimmed" lh={1.2}>
+                      {placeLabel(place)}
                     </Text>
                   </Table.Td>
-                  <Table.Td miw={150}>
+                  <Table.Td miw={100} onPasteCapture={pasteAt(i, 'valueF')}>
                     <QuantityInput
                       label={`${name} capacitance`}
                       isLabelHidden
@@ -101,16 +133,15 @@ export function CapacitorTable({
                       size="xs"
                     />
                   </Table.Td>
-                  <Table.Td miw={100}>
+                  <Table.Td miw={70} onPasteCapture={pasteAt(i, 'tolerance')}>
                     <PercentInput
-                      key={capacitor.partCode ?? ''}
                       label={`${name} tolerance`}
                       fraction={capacitor.tolerance}
                       onChange={(tolerance) => setCapacitor(i, { tolerance })}
                       issue={at(i, 'tolerance')}
                     />
                   </Table.Td>
-                  <Table.Td miw={130}>
+                  <Table.Td miw={96} onPasteCapture={pasteAt(i, 'ratedVoltageV')}>
                     <QuantityInput
                       label={`${name} rated voltage`}
                       isLabelHidden
@@ -121,7 +152,7 @@ export function CapacitorTable({
                       size="xs"
                     />
                   </Table.Td>
-                  <Table.Td miw={150}>
+                  <Table.Td miw={110} onPasteCapture={pasteAt(i, 'partCode')}>
                     <PartCodeInput
                       label={`${name} part code`}
                       kind="capacitor"
@@ -154,6 +185,10 @@ export function CapacitorTable({
   );
 }
 
+function percentText(fraction: number): string {
+  return String(Number((fraction * 100).toPrecision(6)));
+}
+
 function PercentInput({
   label,
   fraction,
@@ -165,7 +200,15 @@ function PercentInput({
   onChange: (fraction: number) => void;
   issue: string | null;
 }) {
-  const [text, setText] = useState(String(Number((fraction * 100).toPrecision(6))));
+  const [text, setText] = useState(() => percentText(fraction));
+  const lastEmitted = useRef(fraction);
+  // A value set from outside (paste, fill-down, undo, a shelf pick) replaces the text.
+  useEffect(() => {
+    if (!Object.is(fraction, lastEmitted.current)) {
+      lastEmitted.current = fraction;
+      setText(percentText(fraction));
+    }
+  }, [fraction]);
   const number = Number(text);
   const isBad = text.trim() === '' || !Number.isFinite(number);
   return (
@@ -177,7 +220,10 @@ function PercentInput({
         const next = e.currentTarget.value;
         setText(next);
         const value = Number(next);
-        if (next.trim() !== '' && Number.isFinite(value)) onChange(value / 100);
+        if (next.trim() !== '' && Number.isFinite(value)) {
+          lastEmitted.current = value / 100;
+          onChange(value / 100);
+        }
       }}
       error={isBad ? 'enter a percentage' : (issue ?? undefined)}
       size="xs"

@@ -38,16 +38,16 @@ const checks: CheckVerdict[] = [
 ];
 
 describe('ChecksTable', () => {
-  it('writes each verdict as a word with its signed margin, worst first', () => {
+  it('writes each verdict as a word with its margin in words, worst first', () => {
     renderWithApp(<ChecksTable checks={checks} />);
     const rows = within(screen.getByRole('table', { name: 'Checks' }))
       .getAllByRole('row')
       .slice(1);
 
     expect(rows.map((row) => within(row).getAllByRole('cell')[0]?.textContent)).toEqual([
-      '✕fail −150.0 %',
-      '!marginal +8.3 %',
-      '✓pass +42.5 %',
+      '✕fail · unbounded',
+      '!marginal · 8.3 % below the limit',
+      '✓pass · 43 % below the limit',
     ]);
     expect(screen.getByText('1 fail · 1 marginal · 1 pass')).toBeInTheDocument();
   });
@@ -59,5 +59,33 @@ describe('ChecksTable', () => {
     expect(within(table).getByText('1.84 kV')).toBeInTheDocument();
     expect(within(table).getByText('2 kV')).toBeInTheDocument();
     expect(within(table).getByText('unbounded')).toBeInTheDocument();
+  });
+
+  it('gives one row to a limit that two standards set, naming both', () => {
+    const stored = (id: string, rule: string): CheckVerdict => ({
+      id,
+      subject: 'output (all stored energy)',
+      rule,
+      verdict: 'fail',
+      marginPct: -2086,
+      value: 984e-6,
+      limit: 45e-6,
+      unit: 'C',
+    });
+    renderWithApp(
+      <ChecksTable
+        checks={[
+          stored('stored-output-iec61010', 'IEC 61010-1 (from memory): 45 µC up to 15 kV'),
+          stored('stored-output-iec60335', 'IEC 60335-1 8.1.4 (read): 45 µC for 450 V–15 kV'),
+        ]}
+      />,
+    );
+    const rows = within(screen.getByRole('table', { name: 'Checks' }))
+      .getAllByRole('row')
+      .slice(1);
+    expect(rows).toHaveLength(1);
+    expect(rows[0]?.textContent).toContain('IEC 61010-1 (from memory)');
+    expect(rows[0]?.textContent).toContain('IEC 60335-1 8.1.4 (read)');
+    expect(rows[0]?.textContent).toContain('fail · 22× the limit');
   });
 });

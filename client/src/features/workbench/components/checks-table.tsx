@@ -1,6 +1,7 @@
 import { Group, Table, Text } from '@mantine/core';
-import type { CheckVerdict } from '@ladderwright/shared/safety';
+import { describeMargin, mergeCheckRows, type CheckVerdict } from '@ladderwright/shared/safety';
 import { formatQuantity, type QuantityUnit } from '@ladderwright/shared/units';
+import { worstFirst } from '../verdict-strip-figures';
 import { VerdictBadge } from './verdict-badge';
 
 const quantityUnits = new Set<string>(['V', 'A', 'F', 'Ohm', 'Hz', 'W', 'J', 'C', 's', 'H', 'm']);
@@ -11,19 +12,18 @@ function formatValue(value: number | null, unit: string): string {
   return `${Number(value.toPrecision(3))} ${unit}`.trim();
 }
 
-const verdictOrder: Record<CheckVerdict['verdict'], number> = { fail: 0, marginal: 1, pass: 2 };
-
 export interface ChecksTableProps {
   checks: readonly CheckVerdict[];
 }
 
-/** The Checks: every stress, safety and spacing verdict with value, limit and margin, worst first. */
+/**
+ * The Checks: every stress, safety and spacing verdict with value, limit and margin, worst first. A limit that
+ * several standards set is one row naming each of them.
+ */
 export function ChecksTable({ checks }: ChecksTableProps) {
-  const sorted = [...checks].sort(
-    (a, b) => verdictOrder[a.verdict] - verdictOrder[b.verdict] || a.marginPct - b.marginPct,
-  );
+  const sorted = worstFirst(mergeCheckRows(checks));
   const counts = { pass: 0, marginal: 0, fail: 0 };
-  for (const check of checks) counts[check.verdict] += 1;
+  for (const check of sorted) counts[check.verdict] += 1;
   return (
     <div>
       <Group gap="md" mb="xs">
@@ -39,20 +39,24 @@ export function ChecksTable({ checks }: ChecksTableProps) {
               <Table.Th>Subject</Table.Th>
               <Table.Th>Value</Table.Th>
               <Table.Th>Limit</Table.Th>
-              <Table.Th>Rule</Table.Th>
+              <Table.Th>Rule (every standard that sets this limit)</Table.Th>
             </Table.Tr>
           </Table.Thead>
           <Table.Tbody>
             {sorted.map((check) => (
-              <Table.Tr key={check.id} data-verdict={check.verdict}>
+              <Table.Tr key={check.ids.join(' ')} data-verdict={check.verdict}>
                 <Table.Td>
-                  <VerdictBadge verdict={check.verdict} marginPct={check.marginPct} />
+                  <VerdictBadge verdict={check.verdict} margin={describeMargin(check)} />
                 </Table.Td>
                 <Table.Td>{check.subject}</Table.Td>
                 <Table.Td>{formatValue(check.value, check.unit)}</Table.Td>
                 <Table.Td>{formatValue(check.limit, check.unit)}</Table.Td>
                 <Table.Td>
-                  <Text size="xs">{check.rule}</Text>
+                  {check.rules.map((rule) => (
+                    <Text size="xs" key={rule}>
+                      {rule}
+                    </Text>
+                  ))}
                 </Table.Td>
               </Table.Tr>
             ))}

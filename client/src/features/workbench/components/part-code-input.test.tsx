@@ -96,7 +96,8 @@ function Harness() {
   );
 }
 
-describe('part-code pickers', () => {
+// Typing and picking through Mantine inputs takes a few seconds per case when the machine is shared.
+describe('part-code pickers', { timeout: 20_000 }, () => {
   beforeAll(() => {
     // jsdom has no scrollIntoView; the combobox scrolls the highlighted option into view.
     Element.prototype.scrollIntoView = () => undefined;

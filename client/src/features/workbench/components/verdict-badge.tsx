@@ -1,4 +1,4 @@
-import { Badge } from '@mantine/core';
+import { Badge, type BadgeProps } from '@mantine/core';
 import type { CheckVerdict } from '@ladderwright/shared/safety';
 
 const verdictColors: Record<CheckVerdict['verdict'], string> = { pass: 'verdigris', marginal: 'ember', fail: 'red' };
@@ -11,18 +11,31 @@ export function formatMarginPct(marginPct: number): string {
   return `${sign}${Math.abs(marginPct).toFixed(1)} %`;
 }
 
+export interface VerdictBadgeProps extends Partial<Pick<CheckVerdict, 'marginPct'>> {
+  verdict: CheckVerdict['verdict'];
+  /** The margin in words (describeMargin), shown instead of the signed percentage. */
+  margin?: string;
+  size?: BadgeProps['size'];
+}
+
 /** A verdict as word, mark and margin; the colour only repeats what the text says. */
-export function VerdictBadge({ verdict, marginPct }: Pick<CheckVerdict, 'verdict' | 'marginPct'>) {
+export function VerdictBadge({ verdict, marginPct, margin, size }: VerdictBadgeProps) {
+  const number = margin ?? (marginPct === undefined ? '' : formatMarginPct(marginPct));
   return (
     <Badge
       color={verdictColors[verdict]}
       variant="light"
       radius="sm"
       tt="none"
+      size={size}
       leftSection={verdictMarks[verdict]}
-      styles={{ root: { maxWidth: 'none', overflow: 'visible' }, label: { overflow: 'visible' } }}
+      styles={{
+        root: { maxWidth: '100%', height: 'auto', minHeight: 'var(--badge-height)', overflow: 'visible' },
+        label: { overflow: 'visible', whiteSpace: 'normal', lineHeight: 1.25 },
+      }}
     >
-      {verdict} {formatMarginPct(marginPct)}
+      {verdict}
+      {number ? ` · ${number}` : ''}
     </Badge>
   );
 }

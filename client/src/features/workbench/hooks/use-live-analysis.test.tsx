@@ -47,7 +47,7 @@ describe('useLiveAnalysis', () => {
   });
   afterEach(() => vi.useRealTimers());
 
-  it('posts the document to one worker after the debounce and shows the answer', () => {
+  it('posts the document to one worker at once and shows the answer', () => {
     const { result } = renderHook(({ document }) => useLiveAnalysis(document), {
       initialProps: { document: designExamples.detectorBias },
     });
@@ -66,20 +66,37 @@ describe('useLiveAnalysis', () => {
     const worker = workers[0]!;
     const bad = withRippleTarget(-1);
     rerender({ document: bad });
-    // Typing again inside the debounce posts nothing new.
-    act(() => vi.advanceTimersByTime(100));
+    // While the worker works on the first document, the second waits instead of queueing behind it.
     expect(worker.posted).toHaveLength(1);
-    act(() => vi.advanceTimersByTime(100));
+    act(() => worker.answer(worker.posted[0]!));
     expect(worker.posted).toHaveLength(2);
     const [older, latest] = worker.posted as [LiveAnalysisRequest, LiveAnalysisRequest];
     expect(latest.sequence).toBeGreaterThan(older.sequence);
+    expect(result.current.isPending).toBe(true);
     act(() => worker.answer(latest));
     expect(Object.keys(result.current.issues)).toContain('targets.rippleMaxV');
-    // The first document's answer arrives last: it is stale and must not replace the issues.
+    // A late duplicate of the first document's answer is stale and must not replace the issues.
     act(() => worker.answer(older));
     expect(Object.keys(result.current.issues)).toContain('targets.rippleMaxV');
     expect(result.current.report).toBeNull();
     expect(result.current.isPending).toBe(false);
+  });
+
+  it('keeps only the newest of several edits made while the worker is busy', () => {
+    const { result, rerender } = renderHook(({ document }) => useLiveAnalysis(document), {
+      initialProps: { document: designExamples.detectorBias },
+    });
+    const worker = workers[0]!;
+    rerender({ document: withRippleTarget(1) });
+    rerender({ document: withRippleTarget(2) });
+    const newest = withRippleTarget(3);
+    rerender({ document: newest });
+    act(() => worker.answer(worker.posted[0]!));
+    expect(worker.posted).toHaveLength(2);
+    expect(worker.posted[1]?.document.targets.rippleMaxV).toBe(3);
+    act(() => worker.answer(worker.posted[1]!));
+    expect(result.current.isPending).toBe(false);
+    expect(result.current.report?.meetsTargets).toBeDefined();
   });
 
   it('terminates its worker on unmount', () => {

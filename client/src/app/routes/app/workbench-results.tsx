@@ -1,0 +1,106 @@
+import { lazy, memo, Suspense } from 'react';
+import { Loader, Tabs, Text } from '@mantine/core';
+import type { RevisionDetail, RevisionSummary } from '@ladderwright/shared/api';
+import type { Design } from '@ladderwright/shared/designs';
+import type { DesignReport } from '@ladderwright/shared/analysis';
+import { LadderCharts } from '../../../features/workbench/components/ladder-charts';
+import { OtherFigures } from '../../../features/workbench/components/other-figures';
+
+export interface WorkbenchResultsProps {
+  projectId: string;
+  revision: RevisionDetail;
+  revisions: readonly RevisionSummary[];
+  draft: Design;
+  isDirty: boolean;
+  report: DesignReport;
+}
+
+// Result tabs other than the first load with their tab (keepMounted is off), not with the page.
+const RevisionHistory = lazy(() =>
+  import('../../../features/designs/components/revision-history').then((module) => ({
+    default: module.RevisionHistory,
+  })),
+);
+const BomCost = lazy(() =>
+  import('../../../features/parts/components/bom-cost').then((module) => ({ default: module.BomCost })),
+);
+const WaveformsPanel = lazy(() =>
+  import('../../../features/simulations/components/waveforms-panel').then((module) => ({
+    default: module.WaveformsPanel,
+  })),
+);
+const ChecksTable = lazy(() =>
+  import('../../../features/workbench/components/checks-table').then((module) => ({ default: module.ChecksTable })),
+);
+const DriverPanel = lazy(() =>
+  import('../../../features/workbench/components/driver-panel').then((module) => ({ default: module.DriverPanel })),
+);
+const LadderDiagram = lazy(() =>
+  import('../../../features/workbench/components/ladder-diagram').then((module) => ({ default: module.LadderDiagram })),
+);
+
+/** The plots change only with the report, not with every keystroke that has not reached the engine yet. */
+const PlotsPanel = memo(function PlotsPanel({ report }: { report: DesignReport }) {
+  return (
+    <>
+      <OtherFigures report={report} />
+      <LadderCharts report={report} />
+    </>
+  );
+});
+
+/** The Workbench result tabs: Plots, Driver, Ladder, Checks, BOM cost, Waveforms, History. */
+export function WorkbenchResults({ projectId, revision, revisions, draft, isDirty, report }: WorkbenchResultsProps) {
+  return (
+    <Suspense fallback={<Loader size="sm" aria-label="Loading the tab" />}>
+      <Tabs defaultValue="plots" keepMounted={false}>
+        <Tabs.List>
+          <Tabs.Tab value="plots">Plots</Tabs.Tab>
+          {report.driver && <Tabs.Tab value="driver">Driver</Tabs.Tab>}
+          <Tabs.Tab value="ladder">Ladder</Tabs.Tab>
+          <Tabs.Tab value="checks">Checks</Tabs.Tab>
+          <Tabs.Tab value="bom">BOM cost</Tabs.Tab>
+          <Tabs.Tab value="waveforms">Waveforms</Tabs.Tab>
+          <Tabs.Tab value="history">History</Tabs.Tab>
+        </Tabs.List>
+        <Tabs.Panel value="plots" pt="sm">
+          <PlotsPanel report={report} />
+        </Tabs.Panel>
+        {report.driver && (
+          <Tabs.Panel value="driver" pt="sm">
+            <DriverPanel driver={report.driver} />
+          </Tabs.Panel>
+        )}
+        <Tabs.Panel value="ladder" pt="sm">
+          <LadderDiagram report={report} design={draft} />
+        </Tabs.Panel>
+        <Tabs.Panel value="checks" pt="sm">
+          <Text size="xs" c="dimmed" mb="xs">
+            {report.caution}
+          </Text>
+          <ChecksTable checks={report.checks} />
+        </Tabs.Panel>
+        <Tabs.Panel value="bom" pt="sm">
+          <BomCost projectId={projectId} design={draft} />
+        </Tabs.Panel>
+        <Tabs.Panel value="waveforms" pt="sm">
+          <WaveformsPanel
+            projectId={projectId}
+            source={isDirty ? { document: draft } : { designId: revision.designId, revisionNumber: revision.number }}
+            frequencyHz={report.resolvedDrive.frequencyHz}
+            safeVoltageV={draft.targets.safeVoltageV}
+            isDriverDesign={draft.drive.kind === 'driver'}
+          />
+        </Tabs.Panel>
+        <Tabs.Panel value="history" pt="sm">
+          <RevisionHistory
+            projectId={projectId}
+            designId={revision.designId}
+            revisions={revisions}
+            openRevisionNumber={revision.number}
+          />
+        </Tabs.Panel>
+      </Tabs>
+    </Suspense>
+  );
+}

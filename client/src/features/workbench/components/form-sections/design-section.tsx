@@ -1,0 +1,30 @@
+import { SimpleGrid, TextInput, Textarea } from '@mantine/core';
+import type { SectionProps } from './form-section.types';
+
+/** Name and notes of the design. */
+export function DesignSection({ document, edit, issue }: SectionProps) {
+  return (
+    <SimpleGrid cols={{ base: 1, sm: 2 }} spacing="sm">
+      <TextInput
+        label="Name"
+        value={document.name}
+        onChange={(e) => {
+          const name = e.currentTarget.value;
+          edit((d) => void (d.name = name), 'name');
+        }}
+        error={issue('name')}
+      />
+      <Textarea
+        label="Notes"
+        value={document.notes}
+        autosize
+        minRows={1}
+        maxRows={4}
+        onChange={(e) => {
+          const notes = e.currentTarget.value;
+          edit((d) => void (d.notes = notes), 'notes');
+        }}
+      />
+    </SimpleGrid>
+  );
+}

@@ -1,0 +1,177 @@
+import { useState } from 'react';
+import { Button, Group, List, Modal, NumberInput, Select, Stack, Text } from '@mantine/core';
+import { capacitorCountFor, type Topology } from '@ladderwright/shared/designs';
+import { formatQuantity } from '@ladderwright/shared/units';
+import { BoundField } from '../../../../components/bound-field';
+import { FieldGrid } from '../../../../components/field-grid';
+import { binder } from '../../document-path';
+import { placeLabel, resizeCapacitors, resizeKeepingPlaces, roleChanges, type RoleChange } from '../../ladder-edits';
+import { CapacitorTable } from '../capacitor-table';
+import { PartCodeInput } from '../part-code-input';
+import type { SectionProps, ShelfProps } from './form-section.types';
+
+const topologies: Array<{ value: Topology; label: string }> = [
+  { value: 'half-wave', label: 'half-wave cascade' },
+  { value: 'full-wave', label: 'full-wave (symmetrical)' },
+  { value: 'bridge-doubler', label: 'bridge doubler' },
+];
+
+interface PendingShape {
+  topology: Topology;
+  cellCount: number;
+  changes: RoleChange[];
+}
+
+/**
+ * Topology, cell count, the capacitor table and the diodes. A change of shape that would move capacitors to
+ * other places in the ladder (a four-cell ladder made a tripler moves C1 from the oscillating to the smoothing
+ * column) asks first, naming each one, and offers to keep the values at their places instead.
+ */
+export function LadderSection({
+  document,
+  edit,
+  issue,
+  issues,
+  parts,
+  onPickPart,
+}: SectionProps & ShelfProps & { issues: Readonly<Record<string, string>> }) {
+  const m = document.multiplier;
+  const [pending, setPending] = useState<PendingShape | null>(null);
+  const applyShape = (topology: Topology, cellCount: number, isKeepingPlaces: boolean) =>
+    edit((d) => {
+      const count = capacitorCountFor(topology, cellCount);
+      d.multiplier.capacitors = isKeepingPlaces
+        ? resizeKeepingPlaces(d.multiplier.topology, d.multiplier.capacitors, topology, count)
+        : resizeCapacitors(d.multiplier.capacitors, count);
+      d.multiplier.topology = topology;
+      d.multiplier.cellCount = cellCount;
+    });
+  const setShape = (topology: Topology, requestedCount: number) => {
+    const cellCount = topology === 'bridge-doubler' ? 2 : requestedCount;
+    const next = resizeCapacitors(m.capacitors, capacitorCountFor(topology, cellCount));
+    const changes = roleChanges(m, { topology, capacitors: next });
+    if (changes.length > 0) setPending({ topology, cellCount, changes });
+    else applyShape(topology, cellCount, false);
+  };
+  const bind = binder(document, edit, issue);
+  const dp = 'multiplier.diode';
+  return (
+    <Stack gap="sm">
+      <FieldGrid>
+        <Select
+          label="Topology"
+          value={m.topology}
+          allowDeselect={false}
+          data={topologies}
+          onChange={(v) => v && setShape(v, m.cellCount)}
+          error={issue('multiplier.topology')}
+        />
+        <NumberInput
+          label={m.topology === 'full-wave' ? 'Stages' : 'Cells'}
+          value={m.cellCount}
+          min={1}
+          max={60}
+          allowDecimal={false}
+          disabled={m.topology === 'bridge-doubler'}
+          error={issue('multiplier.cellCount')}
+          onChange={(v) => {
+            const count = Number(v);
+            if (Number.isInteger(count) && count >= 1 && count <= 60 && count !== m.cellCount)
+              setShape(m.topology, count);
+          }}
+        />
+      </FieldGrid>
+      {issue('multiplier.capacitors') && (
+        <Text size="sm" c="red" role="alert">
+          {issue('multiplier.capacitors')}
+        </Text>
+      )}
+      <CapacitorTable
+        topology={m.topology}
+        capacitors={m.capacitors}
+        issues={issues}
+        parts={parts}
+        onPickPart={(index, part) => onPickPart({ kind: 'capacitor', index }, part)}
+        onChange={(capacitors, key) =>
+          edit((d) => {
+            d.multiplier.capacitors = capacitors;
+          }, key)
+        }
+      />
+      <Text size="sm" fw={600} mt="xs">
+        Diodes (all alike)
+      </Text>
+      <PartCodeInput
+        label="Diode part code"
+        isLabelHidden={false}
+        kind="diode"
+        parts={parts}
+        value={m.diode.partCode}
+        issue={issue(`${dp}.partCode`)}
+        onCodeChange={(partCode) =>
+          edit((d) => {
+            d.multiplier.diode.partCode = partCode;
+          }, `${dp}.partCode`)
+        }
+        onPick={(part) => onPickPart({ kind: 'diode' }, part)}
+      />
+      <FieldGrid>
+        <BoundField label="Rated PIV" unit="V" {...bind('multiplier.diode.ratedPivV')} />
+        <BoundField label="Rated average current" unit="A" {...bind('multiplier.diode.ratedAverageCurrentA')} />
+        <BoundField label="Rated surge current" unit="A" {...bind('multiplier.diode.ratedSurgeCurrentA')} />
+        <BoundField label="Saturation current" unit="A" {...bind('multiplier.diode.saturationCurrentA')} />
+        <BoundField
+          label="Emission coefficient"
+          unit={null}
+          min={0.5}
+          step={0.5}
+          decimalScale={3}
+          {...bind('multiplier.diode.emissionCoefficient')}
+        />
+        <BoundField label="Series resistance" unit="Ohm" {...bind('multiplier.diode.seriesResistanceOhm')} />
+      </FieldGrid>
+      <Modal opened={pending !== null} onClose={() => setPending(null)} title="Capacitors change places" size="lg">
+        {pending && (
+          <Stack gap="sm">
+            <Text size="sm">
+              With {pending.cellCount} {pending.topology === 'full-wave' ? 'stages' : 'cells'} (
+              {topologies.find((t) => t.value === pending.topology)?.label}), these capacitors keep their number and
+              value but sit elsewhere in the ladder:
+            </Text>
+            <List size="sm" aria-label="Capacitors that move">
+              {pending.changes.map((change) => (
+                <List.Item key={change.index}>
+                  C{change.index + 1} ({formatQuantity(change.capacitor.valueF, 'F')}, rated{' '}
+                  {formatQuantity(change.capacitor.ratedVoltageV, 'V')}): {placeLabel(change.from)} →{' '}
+                  {placeLabel(change.to)}
+                </List.Item>
+              ))}
+            </List>
+            <Group justify="flex-end" gap="sm">
+              <Button variant="default" onClick={() => setPending(null)}>
+                Cancel
+              </Button>
+              <Button
+                variant="light"
+                onClick={() => {
+                  applyShape(pending.topology, pending.cellCount, true);
+                  setPending(null);
+                }}
+              >
+                Keep values at their places
+              </Button>
+              <Button
+                onClick={() => {
+                  applyShape(pending.topology, pending.cellCount, false);
+                  setPending(null);
+                }}
+              >
+                Move them
+              </Button>
+            </Group>
+          </Stack>
+        )}
+      </Modal>
+    </Stack>
+  );
+}

@@ -1,0 +1,62 @@
+import type { DriverStage, DriverTransformer } from '@ladderwright/shared/driver';
+import type { QuantityUnit } from '@ladderwright/shared/units';
+import { BoundField } from '../../../../components/bound-field';
+import { FieldGrid } from '../../../../components/field-grid';
+import { binder, type Edit } from '../../document-path';
+import { DRIVER_PATH } from './driver-edit';
+import type { SectionProps } from './form-section.types';
+
+/** The keys of T that hold numbers. */
+export type NumberKeys<T> = { [K in keyof T]-?: T[K] extends number ? K : never }[keyof T] & string;
+
+/** One field of a data-driven grid: a quantity with its unit, or a plain number (turns, ratios) when `unit` is null. */
+export interface FieldSpec<K extends string> {
+  key: K;
+  label: string;
+  unit: QuantityUnit | null;
+  isInteger?: boolean;
+  step?: number;
+}
+
+const transformerFields: FieldSpec<NumberKeys<DriverTransformer>>[] = [
+  { key: 'primaryTurns', label: 'Primary turns', unit: null, isInteger: true },
+  { key: 'feedbackTurns', label: 'Feedback turns', unit: null, isInteger: true },
+  { key: 'secondaryTurns', label: 'Secondary turns', unit: null, isInteger: true },
+  { key: 'primaryInductanceH', label: 'Primary inductance', unit: 'H' },
+  { key: 'couplingCoefficient', label: 'Coupling coefficient k', unit: null, step: 0.01 },
+  { key: 'saturationCurrentA', label: 'Core saturation current', unit: 'A' },
+  { key: 'primaryResistanceOhm', label: 'Primary resistance', unit: 'Ohm' },
+  { key: 'feedbackResistanceOhm', label: 'Feedback resistance', unit: 'Ohm' },
+  { key: 'secondaryResistanceOhm', label: 'Secondary resistance', unit: 'Ohm' },
+];
+
+export interface DriverSectionProps {
+  driver: DriverStage;
+  edit: Edit<DriverStage>;
+  issue: SectionProps['issue'];
+}
+
+/** The three-winding transformer of the blocking oscillator: turns, inductance, coupling, resistances, insulation. */
+export function TransformerSection({ driver, edit, issue }: DriverSectionProps) {
+  const bind = binder(driver, edit, issue, DRIVER_PATH);
+  return (
+    <FieldGrid>
+      {transformerFields.map(({ key, ...field }) => (
+        <BoundField key={key} {...field} {...bind(`transformer.${key}`)} />
+      ))}
+      <BoundField
+        label="Secondary insulation rating"
+        unit="V"
+        value={driver.transformer.insulation?.ratedVoltageV ?? Number.NaN}
+        path={`${DRIVER_PATH}.transformer.insulation.ratedVoltageV`}
+        issue={issue(`${DRIVER_PATH}.transformer.insulation.ratedVoltageV`)}
+        onValue={(v) =>
+          edit(
+            (dr) => void (dr.transformer.insulation = { ratedVoltageV: v }),
+            `${DRIVER_PATH}.transformer.insulation.ratedVoltageV`,
+          )
+        }
+      />
+    </FieldGrid>
+  );
+}

@@ -1,0 +1,73 @@
+import { Select, Stack, Text } from '@mantine/core';
+import { driverExamples, type DriverClamp, type DriverTransistor } from '@ladderwright/shared/driver';
+import { BoundField } from '../../../../components/bound-field';
+import { FieldGrid } from '../../../../components/field-grid';
+import { binder } from '../../document-path';
+import { DRIVER_PATH } from './driver-edit';
+import type { DriverSectionProps, FieldSpec, NumberKeys } from './transformer-section';
+
+const transistorFields: FieldSpec<NumberKeys<DriverTransistor>>[] = [
+  { key: 'forwardBeta', label: 'Forward β', unit: null },
+  { key: 'reverseBeta', label: 'Reverse β', unit: null, step: 0.5 },
+  { key: 'vbeOnV', label: 'Vbe (on)', unit: 'V' },
+  { key: 'vceSatV', label: 'Vce (sat)', unit: 'V' },
+  { key: 'vceoMaxV', label: 'Vceo max', unit: 'V' },
+  { key: 'icMaxA', label: 'Ic max', unit: 'A' },
+];
+
+type ClampKind = 'none' | DriverClamp['kind'];
+
+/** The clamp a kind starts with: the present clamp voltage kept, the demo stage's otherwise. */
+function clampOf(kind: ClampKind, present: DriverClamp | undefined): DriverClamp | undefined {
+  const clampVoltageV = present?.clampVoltageV ?? driverExamples.surfaceChargeTester.clamp?.clampVoltageV ?? 30;
+  if (kind === 'zener') return { kind: 'zener', clampVoltageV };
+  if (kind === 'rcd') return { kind: 'rcd', clampVoltageV, resistorOhm: 10e3, capacitorF: 10e-9 };
+  return undefined;
+}
+
+/** The switching transistor, its base resistor and the collector clamp. */
+export function TransistorSection({ driver, edit, issue }: DriverSectionProps) {
+  const bind = binder(driver, edit, issue, DRIVER_PATH);
+  const clamp = driver.clamp;
+  return (
+    <Stack gap="sm">
+      <FieldGrid>
+        {transistorFields.map(({ key, ...field }) => (
+          <BoundField key={key} {...field} {...bind(`transistor.${key}`)} />
+        ))}
+      </FieldGrid>
+      <Text size="sm" fw={600}>
+        Base resistor and collector clamp
+      </Text>
+      <FieldGrid>
+        <BoundField label="Base resistor" unit="Ohm" {...bind('baseResistorOhm')} />
+        <Select
+          label="Clamp"
+          value={clamp?.kind ?? 'none'}
+          allowDeselect={false}
+          data={[
+            { value: 'none', label: 'none (breakdown limits)' },
+            { value: 'zener', label: 'zener' },
+            { value: 'rcd', label: 'RCD' },
+          ]}
+          comboboxProps={{ width: 'max-content', position: 'bottom-start' }}
+          error={issue(`${DRIVER_PATH}.clamp`)}
+          onChange={(v) =>
+            edit((dr) => {
+              const next = clampOf(v ?? 'none', dr.clamp);
+              if (next) dr.clamp = next;
+              else delete dr.clamp;
+            })
+          }
+        />
+        {clamp && <BoundField label="Clamp voltage" unit="V" {...bind('clamp.clampVoltageV')} />}
+        {clamp?.kind === 'rcd' && (
+          <>
+            <BoundField label="Clamp resistor" unit="Ohm" {...bind('clamp.resistorOhm')} />
+            <BoundField label="Clamp capacitor" unit="F" {...bind('clamp.capacitorF')} />
+          </>
+        )}
+      </FieldGrid>
+    </Stack>
+  );
+}

@@ -1,0 +1,67 @@
+import { memo } from 'react';
+import { Group, Paper, Text } from '@mantine/core';
+import type { Design } from '@ladderwright/shared/designs';
+import type { DesignReport } from '@ladderwright/shared/analysis';
+import { verdictStripFigures, type StripFigure } from '../verdict-strip-figures';
+import { MethodNote } from './method-note';
+import { VerdictBadge } from './verdict-badge';
+import classes from './verdict-strip.module.css';
+
+export interface VerdictStripProps {
+  report: DesignReport;
+  targets: Design['targets'];
+}
+
+/**
+ * The Verdict strip: the eight figures an engineer watches while editing (output, ripple, droop, driver
+ * efficiency, battery life, stored energy, discharge time, worst check), each with its target and a verdict
+ * in words and a number. It stays in view beside or above the form.
+ */
+export const VerdictStrip = memo(function VerdictStrip({ report, targets }: VerdictStripProps) {
+  return (
+    <div className={classes.strip} aria-label="Verdict strip" role="list">
+      {verdictStripFigures(report, targets).map((figure) => (
+        <FigureCell key={figure.key} figure={figure} />
+      ))}
+    </div>
+  );
+});
+
+function FigureCell({ figure }: { figure: StripFigure }) {
+  return (
+    <Paper
+      withBorder
+      p={8}
+      role="listitem"
+      aria-label={figure.label}
+      data-figure={figure.key}
+      data-verdict={figure.verdict ?? 'none'}
+    >
+      <Group justify="space-between" gap={2} wrap="nowrap">
+        <Text size="xs" c="dimmed" fw={500} lh={1.2}>
+          {figure.label}
+        </Text>
+        <MethodNote subject={figure.label.toLowerCase()} method={figure.method} />
+      </Group>
+      <Text
+        fz={figure.key === 'worst' ? 'sm' : 'md'}
+        fw={700}
+        lh={1.3}
+        data-value
+        className={classes.value}
+        lineClamp={figure.key === 'worst' ? 2 : 1}
+        title={figure.value}
+      >
+        {figure.value}
+      </Text>
+      <Text size="xs" c="dimmed" lh={1.25} lineClamp={2} title={figure.target}>
+        {figure.key === 'worst' ? figure.target : `target ${figure.target}`}
+      </Text>
+      {figure.verdict && (
+        <Group gap={4} mt={2} wrap="wrap">
+          <VerdictBadge verdict={figure.verdict} margin={figure.margin ?? undefined} size="sm" />
+        </Group>
+      )}
+    </Paper>
+  );
+}

@@ -1,0 +1,176 @@
+import type { Design } from '@ladderwright/shared/designs';
+import type { DesignReport } from '@ladderwright/shared/analysis';
+import type { MethodInfo } from '@ladderwright/shared/methods';
+import {
+  describeMargin,
+  lowerLimitVerdict,
+  mergeCheckRows,
+  upperLimitVerdict,
+  type CheckVerdict,
+} from '@ladderwright/shared/safety';
+import { formatQuantity, type QuantityUnit } from '@ladderwright/shared/units';
+
+/** One figure of the Verdict strip: value, target and verdict (word and a bounded margin), or why there is none. */
+export interface StripFigure {
+  key: 'output' | 'ripple' | 'droop' | 'efficiency' | 'battery' | 'energy' | 'discharge' | 'worst';
+  label: string;
+  value: string;
+  /** The target or limit as read ("≤ 2 V", "≥ 500 h"), or why there is none. */
+  target: string;
+  verdict: CheckVerdict['verdict'] | null;
+  /** describeMargin's reading of the verdict, e.g. "38 % below the limit". */
+  margin: string | null;
+  method: MethodInfo | null;
+}
+
+const verdictOrder: Record<CheckVerdict['verdict'], number> = { fail: 0, marginal: 1, pass: 2 };
+
+/** The checks, worst first (fail, marginal, pass; smaller margin first within each). */
+export function worstFirst<T extends Pick<CheckVerdict, 'verdict' | 'marginPct'>>(checks: readonly T[]): T[] {
+  return [...checks].sort((a, b) => verdictOrder[a.verdict] - verdictOrder[b.verdict] || a.marginPct - b.marginPct);
+}
+
+function judged(check: CheckVerdict | undefined): Pick<StripFigure, 'verdict' | 'margin'> {
+  return check ? { verdict: check.verdict, margin: describeMargin(check) } : { verdict: null, margin: null };
+}
+
+const quantityUnits = new Set(['V', 'A', 'F', 'Ohm', 'Hz', 'W', 'J', 'C', 's', 'H', 'm']);
+
+/** A check's limit with its unit, in engineering notation where the unit is a quantity. */
+function limitOf(check: CheckVerdict): string {
+  if (quantityUnits.has(check.unit)) return formatQuantity(check.limit, check.unit as QuantityUnit);
+  return `${Number(check.limit.toPrecision(3))} ${check.unit}`.trim();
+}
+
+function limitText(check: CheckVerdict | undefined, fallback: string): string {
+  if (!check) return fallback;
+  const unit = check.unit === 'C' || check.unit === 's' || check.unit === 'J' || check.unit === 'V' ? check.unit : null;
+  const what = unit === 'C' ? 'charge' : unit === 'J' ? 'energy' : unit === 's' ? 'time' : 'voltage';
+  return unit ? `${what} ≤ ${formatQuantity(check.limit, unit)}` : fallback;
+}
+
+/**
+ * The eight figures an engineer watches while editing: output, ripple, droop, driver efficiency, battery life,
+ * stored energy, discharge time and the worst check, each against its target or limit from the report's own checks.
+ */
+export function verdictStripFigures(report: DesignReport, targets: Design['targets']): StripFigure[] {
+  const steady = report.analysis.method;
+  const output = lowerLimitVerdict({
+    id: 'target-output',
+    subject: 'output',
+    rule: 'mean output at the operating load reaches the target magnitude',
+    value: Math.abs(report.outputMeanV),
+    limit: Math.abs(targets.outputV),
+    unit: 'V',
+  });
+  const ripple = upperLimitVerdict({
+    id: 'target-ripple',
+    subject: 'ripple',
+    rule: 'peak-to-peak ripple at the operating load stays below the target',
+    value: report.ripplePeakToPeakV,
+    limit: targets.rippleMaxV,
+    unit: 'V',
+  });
+  // The droop the output target leaves room for: no-load output above the target magnitude.
+  const allowedDroopV = Math.abs(report.noLoadOutputV) - Math.abs(targets.outputV);
+  const droop =
+    allowedDroopV > 0
+      ? upperLimitVerdict({
+          id: 'target-droop',
+          subject: 'droop',
+          rule: 'droop at the operating load stays within the room the no-load output leaves above the target',
+          value: Math.abs(report.droopV),
+          limit: allowedDroopV,
+          unit: 'V',
+        })
+      : undefined;
+  const driver = report.driver;
+  const battery = driver?.batteryLife ?? null;
+  const batteryVerdict =
+    battery && battery.targetS !== null
+      ? lowerLimitVerdict({
+          id: 'target-battery',
+          subject: 'battery life',
+          rule: 'battery life to the end voltage reaches the target',
+          value: battery.lifeS.value,
+          limit: battery.targetS,
+          unit: 's',
+        })
+      : undefined;
+  const stored = worstFirst(report.checks.filter((check) => check.id.startsWith('stored-output')))[0];
+  const discharge = report.checks.find((check) => check.id === 'discharge-time');
+  const worst = worstFirst(mergeCheckRows(report.checks))[0];
+  return [
+    {
+      key: 'output',
+      label: 'Output (mean, loaded)',
+      value: formatQuantity(report.outputMeanV, 'V'),
+      target: `${formatQuantity(targets.outputV, 'V')}`,
+      ...judged(output),
+      method: steady,
+    },
+    {
+      key: 'ripple',
+      label: 'Ripple (peak-to-peak)',
+      value: formatQuantity(report.ripplePeakToPeakV, 'V'),
+      target: `≤ ${formatQuantity(targets.rippleMaxV, 'V')}`,
+      ...judged(ripple),
+      method: steady,
+    },
+    {
+      key: 'droop',
+      label: 'Droop at load',
+      value: formatQuantity(report.droopV, 'V'),
+      target: droop ? `≤ ${formatQuantity(allowedDroopV, 'V')}` : 'no-load output below target',
+      ...(droop ? judged(droop) : { verdict: 'fail', margin: 'no room' }),
+      method: steady,
+    },
+    {
+      key: 'efficiency',
+      label: 'Driver efficiency',
+      value: driver ? `${(driver.figures.efficiency.value * 100).toFixed(0)} %` : 'n/a',
+      target: driver ? 'none set' : 'no driver stage',
+      verdict: null,
+      margin: null,
+      method: driver?.figures.efficiency.method ?? null,
+    },
+    {
+      key: 'battery',
+      label: 'Battery life',
+      value: battery ? `${Number((battery.lifeS.value / 3600).toPrecision(3))} h` : 'n/a',
+      target: battery
+        ? battery.targetS !== null
+          ? `≥ ${Number((battery.targetS / 3600).toPrecision(3))} h`
+          : 'no target set'
+        : driver
+          ? 'DC supply'
+          : 'no driver stage',
+      ...judged(batteryVerdict),
+      method: battery?.lifeS.method ?? null,
+    },
+    {
+      key: 'energy',
+      label: 'Stored energy',
+      value: formatQuantity(report.storedEnergyJ, 'J'),
+      target: limitText(stored, 'no limit applies'),
+      ...judged(stored),
+      method: null,
+    },
+    {
+      key: 'discharge',
+      label: 'Discharge time',
+      value: report.dischargeTimeS === null ? 'no bleeder' : formatQuantity(report.dischargeTimeS, 's'),
+      target: discharge ? discharge.rule.split(';')[0]?.replace(/^[^:]*:\s*/, '') || '' : 'no rule applied',
+      ...judged(discharge),
+      method: null,
+    },
+    {
+      key: 'worst',
+      label: 'Worst check',
+      value: worst ? worst.subject : 'none',
+      target: worst ? `limit ${limitOf(worst)}` : 'no checks',
+      ...judged(worst),
+      method: null,
+    },
+  ];
+}
