@@ -102,3 +102,20 @@ describe('ladderCurves: the sampled stage scan against the full scan of every st
     expect(Math.abs(ladderCurves(input).shortCircuitCurrentA / high - 1)).toBeLessThan(1e-9);
   });
 });
+
+describe('resizeCapacitors on a one-cell half-wave ladder', () => {
+  // The single capacitor of a one-cell half-wave ladder stands for both columns when the stage scan grows it;
+  // before, the scan looped for ever on it (the capacitor list it grew from was empty).
+  const oneCell: LadderInput = { ...cascade, capacitorsF: [0.05e-6] };
+
+  it('grows the ladder from its single capacitor', () => {
+    expect(resizeCapacitors(oneCell, 3)).toEqual(Array(6).fill(0.05e-6));
+  });
+
+  it('gives a finite optimum for the stage scan', () => {
+    const curves = ladderCurves(oneCell);
+    expect(Number.isFinite(curves.optimumOutputV)).toBe(true);
+    // Same capacitors and load as the 16-cell cascade above: the optimum is the same, 13.7 (J. Lux) within one.
+    expect(Math.abs(curves.optimumStages - 13.7)).toBeLessThanOrEqual(1);
+  });
+});

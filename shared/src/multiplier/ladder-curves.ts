@@ -28,7 +28,9 @@ export function resizeCapacitors(input: LadderInput, stages: number): number[] {
   const perStage = input.topology === 'full-wave' ? 3 : 2;
   const caps = input.capacitorsF;
   const evenCaps = input.topology === 'half-wave' && caps.length % 2 === 1 ? caps.slice(1) : [...caps];
-  const top = evenCaps.slice(-perStage);
+  // A one-cell half-wave ladder has no whole stage: its single capacitor stands for both columns.
+  const top = evenCaps.length > 0 ? evenCaps.slice(-perStage) : [];
+  while (top.length < perStage) top.push(top[top.length - 1] ?? caps[caps.length - 1]!);
   const result = evenCaps.slice(0, stages * perStage);
   while (result.length < stages * perStage) result.push(...top);
   return result;
