@@ -170,8 +170,7 @@ export class RevisionsService {
     bDesignId?: string,
   ): Promise<RevisionComparison> {
     const designA = await this.lookup.findDesign(projectId, designId);
-    const designB =
-      bDesignId && bDesignId !== designId ? await this.lookup.findDesign(projectId, bDesignId) : designA;
+    const designB = bDesignId && bDesignId !== designId ? await this.lookup.findDesign(projectId, bDesignId) : designA;
     const [revisionA, revisionB] = await Promise.all([this.load(designA.id, a, 'a'), this.load(designB.id, b, 'b')]);
     const ladder = (document: Design) => ({
       topology: document.multiplier.topology,
