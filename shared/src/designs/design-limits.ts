@@ -42,8 +42,11 @@ export const designLimits = {
   maxCreepageMm: 10_000,
   /** Transistor current gain. */
   maxBeta: 10_000,
-  /** Diode emission coefficient. */
-  maxEmissionCoefficient: 10,
+  /**
+   * Diode emission coefficient: a stacked high-voltage diode is many junctions in series, each adding about
+   * one to two (common practice, no source), so a stack of up to about fifty junctions.
+   */
+  maxEmissionCoefficient: 100,
   /** Any power in the document (a hand-held or bench supply's parts and losses). */
   maxPowerW: 1e4,
   /** Temperatures in °C: from arctic storage to the hottest silicon junction ratings. */
