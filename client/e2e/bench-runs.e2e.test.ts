@@ -77,7 +77,8 @@ describe('bench runs journey', () => {
     const deviations = page.getByRole('table', { name: 'Deviation per point' }).getByRole('row');
     expect(await deviations.count()).toBe(6);
     await expect(deviations.nth(1).textContent()).resolves.toContain('2.00 %');
-    expect(await overlay.locator('.recharts-surface').count()).toBeGreaterThan(0);
+    // The chart library loads with the first chart shown.
+    await overlay.locator('.recharts-surface').first().waitFor();
     await expect(page.getByRole('table', { name: 'Bench runs of this revision' }).textContent()).resolves.toContain(
       'load sweep',
     );

@@ -122,7 +122,7 @@ describe('Sign-off journey', () => {
     await expectState(page, 'submitted');
     await page.getByRole('button', { name: /^Checks: \d+ fail · \d+ marginal · \d+ pass$/ }).click();
     expect(await page.getByRole('table', { name: 'Checks' }).textContent()).toMatch(
-      /(pass|marginal|fail) [+−±]\d+\.\d %/,
+      /(pass|marginal|fail) · (\d+ % (below|above) the (limit|minimum)|[\d.]+× the limit)/,
     );
     expect(await page.getByRole('button', { name: 'Submit for Sign-off' }).count()).toBe(0);
     expect(await page.getByRole('button', { name: 'Release', exact: true }).count()).toBe(0);

@@ -56,7 +56,7 @@ export function WorkbenchHeader({
             size="sm"
             to={paths.benchRuns.getHref(projectId, revision.designId, revision.number)}
           >
-            Bench runs
+            Bench runs of r{revision.number}
           </Anchor>
           <Anchor component={Link} size="sm" to={paths.compareDesigns.getHref(projectId)}>
             Compare designs
