@@ -1,0 +1,26 @@
+export type {
+  CoreKind,
+  WireKind,
+  TapeKind,
+  WindingRole,
+  TransformerWinding,
+  TransformerGap,
+  TransformerSection,
+  TransformerChoice,
+  WaveformPoint,
+  TransformerOperatingPoint,
+  GapResult,
+  WindingResult,
+  TransformerReport,
+  DerivedTransformerNumbers,
+  TransformerSizerCandidate,
+  TransformerSizerRequest,
+} from './transformer.types';
+export {
+  coreKindSchema,
+  wireKindSchema,
+  tapeKindSchema,
+  transformerSectionSchema,
+  transformerWindingSchema,
+  transformerGapSchema,
+} from '../designs/transformer-section.schema';
