@@ -172,6 +172,8 @@ export interface TransformerSizerCandidate {
   copperLossW: number;
   windowFill: number;
   temperatureRiseC: number;
+  /** The section the Sizer built for the core (null when no turns count fits). */
+  section: TransformerSection | null;
   /** Why the core is refused, or null when it fits. */
   refusal: string | null;
 }
@@ -190,6 +192,12 @@ export interface TransformerSizerRequest {
   primaryWire: WireKind;
   feedbackWire: WireKind;
   secondaryWire: WireKind;
+  /** Tape between windings and its wraps, and between the secondary's layers (one wrap) if given. */
+  windingTape: TapeKind;
+  windingTapeWraps: number;
+  layerTape?: TapeKind;
+  /** Peak secondary voltage (V), for the layer and winding insulation. */
+  secondaryPeakV: number;
   /** Margin below Bsat(100 °C) the flux must keep, in per cent (default 20). */
   minSaturationMarginPct?: number;
 }
