@@ -1,6 +1,6 @@
 import type { PulseDrive, SineDrive } from '../designs/design.types';
-import { plateauRates } from './plateau-rates';
-import { EVENT_H, EVENT_L } from './topologies';
+import { flatTopRates } from './plateau-rates';
+import { EVENT_H } from './topologies';
 
 /** The H event as a module constant: read in every solve's inner loops (no binding lookup per read). */
 const H = EVENT_H;
@@ -179,9 +179,9 @@ export function createWorkspace(net: LadderNetwork, input: LadderInput): Workspa
   ws.nodeRateH = ws.nodeLoadRate;
   ws.nodeRateL = ws.nodeLoadRate;
   if (!timing.isSine) {
-    const h = plateauRates(net, ws.loadRate, EVENT_H);
-    const l = plateauRates(net, ws.loadRate, EVENT_L);
-    if (h && l) {
+    const rates = flatTopRates(net, ws.loadRate);
+    if (rates) {
+      const { h, l } = rates;
       ws.rateH = h.capRate;
       ws.nodeRateH = h.nodeRate;
       ws.rateL = l.capRate;

@@ -1,4 +1,4 @@
-import type { LadderNetwork } from './topologies';
+import { EVENT_H, EVENT_L, type LadderNetwork } from './topologies';
 
 /** Capacitor and node voltage rates per ampere of load through a flat-top phase (V/s per A). */
 export interface PlateauRates {
@@ -57,6 +57,48 @@ export function plateauRates(net: LadderNetwork, loadRate: readonly number[], ev
     active -= 1;
   }
   return null;
+}
+
+/** Flat-top rates of both phases of a network; null when either phase has none (instantaneous transfer then). */
+export interface FlatTopRates {
+  h: PlateauRates;
+  l: PlateauRates;
+}
+
+/** Networks remembered by `flatTopRates`: a stage scan visits a few dozen, and a Workbench edit of anything but the capacitors repeats them. */
+const FLAT_TOP_CACHE_SIZE = 256;
+const flatTopCache = new Map<string, { capF: Float64Array; rates: FlatTopRates | null }>();
+
+/** A key for a topology and its capacitor values: FNV-1a over the values' bits (equality is checked on a hit). */
+function networkKey(net: LadderNetwork, capF: Float64Array): string {
+  const words = new Uint32Array(capF.buffer);
+  let hash = 0x811c9dc5;
+  for (let i = 0; i < words.length; i += 1) hash = Math.imul(hash ^ (words[i] as number), 0x01000193);
+  return `${net.topology}:${capF.length}:${hash >>> 0}`;
+}
+
+/**
+ * `plateauRates` of the H and L phases together, as the charge-transfer model takes them: both or none.
+ * The L phase first, since without its rates the H phase's are not used. The rates depend only on the
+ * topology and the capacitor values (per ampere of load), so the last FLAT_TOP_CACHE_SIZE networks are
+ * remembered; the arrays returned are shared and must not be written.
+ */
+export function flatTopRates(net: LadderNetwork, loadRate: readonly number[]): FlatTopRates | null {
+  const capF = Float64Array.from(net.capF);
+  const key = networkKey(net, capF);
+  const cached = flatTopCache.get(key);
+  if (cached && cached.capF.length === capF.length && cached.capF.every((f, c) => f === capF[c])) {
+    flatTopCache.delete(key);
+    flatTopCache.set(key, cached);
+    return cached.rates;
+  }
+  const l = plateauRates(net, loadRate, EVENT_L);
+  const h = l ? plateauRates(net, loadRate, EVENT_H) : null;
+  const rates = h && l ? { h, l } : null;
+  flatTopCache.delete(key);
+  flatTopCache.set(key, { capF, rates });
+  if (flatTopCache.size > FLAT_TOP_CACHE_SIZE) flatTopCache.delete(flatTopCache.keys().next().value as string);
+  return rates;
 }
 
 /** Work arrays of one network, reused by every active-set round (a round allocates nothing). */
