@@ -66,8 +66,10 @@ export function cellRateModelOf(supply: CellsSupply): CellRateModel {
 
 /** Internal resistance of one cell (Ω) at a state of charge: R_full·(1 + m·(1 − σ)^p) (see CellRateModel). */
 export function cellInternalResistanceOhm(supply: CellsSupply, chargeFraction: number): number {
-  const m = cellRateModelOf(supply);
   const depth = Math.min(1, Math.max(0, 1 - chargeFraction));
+  // A full cell (the driver's every solve) needs no rate model: the rise term is zero.
+  if (depth === 0) return supply.internalResistanceOhm;
+  const m = cellRateModelOf(supply);
   return supply.internalResistanceOhm * (1 + m.resistanceRiseAtEmpty * depth ** m.resistanceRisePower);
 }
 

@@ -2,7 +2,7 @@ import type { PulseDrive } from '../designs/design.types';
 import { DomainError } from '../errors';
 import { prepareLadder, terminalMeanAt, type PreparedLadder } from '../multiplier/analyze-ladder';
 import { bracketedRoot } from '../multiplier/bracketed-root';
-import { withDrive } from '../multiplier/with-drive';
+import { withDriveTiming } from '../multiplier/with-drive';
 import type { LadderInput } from '../multiplier/ladder.types';
 import {
   blockingOscillatorNumbers,
@@ -89,7 +89,7 @@ export function engineLadderLoadLine(input: LadderInput): LadderLoadLine {
   const topAt = (drive: LadderDrive, ladderCurrentA: number) => {
     const pulse = pulseDriveOf(drive, sourceOhm);
     bare = bare
-      ? withDrive(bare, pulse)
+      ? withDriveTiming(bare, pulse)
       : prepareLadder({ ...input, load: null, bleederOhm: null, seriesOutputResistanceOhm: 0, drive: pulse });
     return terminalMeanAt(bare, ladderCurrentA);
   };
@@ -97,7 +97,7 @@ export function engineLadderLoadLine(input: LadderInput): LadderLoadLine {
     network: { bleederOhm: input.bleederOhm, seriesOutputResistanceOhm: seriesOhm },
     at(drive, loadCurrentA) {
       const pulse = pulseDriveOf(drive, sourceOhm);
-      loaded = loaded ? withDrive(loaded, pulse) : prepareLadder({ ...input, load: null, drive: pulse });
+      loaded = loaded ? withDriveTiming(loaded, pulse) : prepareLadder({ ...input, load: null, drive: pulse });
       const outputV = terminalMeanAt(loaded, loadCurrentA);
       const topV = Math.max(0, outputV + loadCurrentA * seriesOhm);
       const bleederA = input.bleederOhm ? topV / input.bleederOhm : 0;
