@@ -25,6 +25,9 @@ import { ENGINE_VERSION } from '../multiplier/engine-version';
 import { ladderCurves } from '../multiplier/ladder-curves';
 import { bleederStressChecks, ladderStressChecks } from '../multiplier/ladder-stress';
 import type { LadderAnalysis, LadderCurves, LadderInput } from '../multiplier/ladder.types';
+import { withEffectiveTransformer } from '../transformer/given-numbers';
+import type { TransformerReport } from '../transformer/transformer.types';
+import { designedTransformerReport } from './transformer-report';
 
 /** Report of a bare ladder: figures (SI, signed by polarity), curves, stored energy, discharge and how each was computed. */
 export interface LadderReport extends Pick<
@@ -59,6 +62,8 @@ export interface DesignReport extends LadderReport {
   spacing: StageSpacing[];
   /** The driver stage joined to the ladder; null unless the design's drive is a driver stage. */
   driver: DriverReport | null;
+  /** The designed transformer at the driver's rated load; absent with a given transformer. */
+  transformer?: TransformerReport;
   /** Output with no external load and no bleeder (V, signed); a driver's flyback then rises to its clamp limit. */
   openCircuitOutputV: number;
   /** |open-circuit − loaded output| (V): the droop of the load and the bleeder together (`droopV` keeps the bleeder in both). */
@@ -240,7 +245,8 @@ function stageWorkingVoltages(analysis: LadderAnalysis): number[] {
  * Full report of a validated design: steady-state analysis, curves, stored energy, discharge, spacing and
  * every check verdict, with method notes. Safety verdicts carry HV_CAUTION.
  */
-export function analyzeDesign(design: Design): DesignReport {
+export function analyzeDesign(givenDesign: Design): DesignReport {
+  const design = withEffectiveTransformer(givenDesign);
   if (design.multiplier.strayCapacitanceF !== undefined && !(design.multiplier.strayCapacitanceF >= 0)) {
     throw new DomainError('invalid_design', 'stray capacitance must not be negative', 'multiplier.strayCapacitanceF');
   }
@@ -323,6 +329,8 @@ export function analyzeDesign(design: Design): DesignReport {
     );
   }
   if (driver) checks.push(...driver.checks.map(asCheck));
+  const transformer = underDrive(() => designedTransformerReport(design, driver));
+  if (transformer) checks.push(...transformer.checks.map((c) => ({ ...c, caution: HV_CAUTION })));
   const rippleOk = analysis.ripplePeakToPeakV <= targets.rippleMaxV;
   const outputOk =
     Math.sign(analysis.outputMeanV) === Math.sign(targets.outputV) &&
@@ -353,6 +361,7 @@ export function analyzeDesign(design: Design): DesignReport {
       ? [...base.methods, DRIVER_METHOD, driver.operatingPoint.method, DRIVER_OPERATING_METHOD]
       : base.methods,
     driver,
+    ...(transformer ? { transformer } : {}),
   };
 }
 

@@ -28,6 +28,8 @@ export interface DriverChecksInput {
   /** The ladder the driver feeds; without it the stage is checked at its clamp limit with no load. */
   ladder?: LadderLoadLine;
   ratedLoadCurrentA?: number;
+  /** The rated load point already solved with this ladder and load (`solveLoadPoint`), so it is not solved again. */
+  ratedLoad?: LoadPoint & { driver: BlockingOscillatorEstimate };
   /** Overrides the stage's own `batteryLifeTargetH`. */
   batteryLifeTargetS?: number;
 }
@@ -123,7 +125,7 @@ function supplyCurrentTable(
 export function runDriverChecks(driver: DriverStage, input: DriverChecksInput = {}): DriverChecksResult {
   const loadA = input.ratedLoadCurrentA ?? 0;
   const estimate = estimateBlockingOscillator(driver);
-  const solved = input.ladder ? solveLoadPoint(driver, input.ladder, loadA) : null;
+  const solved = input.ladder ? (input.ratedLoad ?? solveLoadPoint(driver, input.ladder, loadA)) : null;
   const atLoad = solved?.driver ?? estimate;
   const ratedLoad = solved;
   const q = driver.transistor;

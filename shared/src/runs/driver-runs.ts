@@ -20,6 +20,7 @@ import { SampleBuffer } from '../sim/sample-buffer';
 import { TransientStepper } from '../sim/transient';
 import { oscillationFigures, readSettlingTimes, TurnOnTrigger } from '../sim/oscillation-measures';
 import { downsampleMinMax, windowExtremes, windowMean } from '../sim/waveform-measures';
+import { withEffectiveTransformer } from '../transformer/given-numbers';
 
 export interface DriverRunOptions {
   /**
@@ -105,7 +106,8 @@ const PROGRESS_STEP = 0.01;
  * Steady-state capacitor voltages (design order, V) of a driver design from the engine: analyzeDesign's
  * per-node cycle means, each capacitor the difference of its two nodes (node ids are the simulator's).
  */
-export function engineCapacitorVoltagesV(design: Design): number[] {
+export function engineCapacitorVoltagesV(givenDesign: Design): number[] {
+  const design = withEffectiveTransformer(givenDesign);
   if (design.drive.kind !== 'driver') throw new DomainError('invalid_design', 'needs a driver drive', 'drive.kind');
   const report = analyzeDesign(design);
   const mean = new Map<string, number>(report.analysis.nodes.map((n) => [n.id, n.meanV]));
@@ -124,7 +126,8 @@ export function engineCapacitorVoltagesV(design: Design): number[] {
 }
 
 /** The driver circuit of a design with the ladder capacitors starting at the given voltages (design order). */
-export function driverDesignCircuit(design: Design, initialCapacitorVoltagesV: ReadonlyArray<number>): Circuit {
+export function driverDesignCircuit(givenDesign: Design, initialCapacitorVoltagesV: ReadonlyArray<number>): Circuit {
+  const design = withEffectiveTransformer(givenDesign);
   if (design.drive.kind !== 'driver') throw new DomainError('invalid_design', 'needs a driver drive', 'drive.kind');
   return buildDriverCircuit(design.drive.driver, {
     ladder: { ...ladderPartFromDesign(design), initialCapacitorVoltagesV },
@@ -230,7 +233,8 @@ function driverFigures(
  * and with `dischargeToV` the supply is switched off and the bleeder discharge followed (the stopped
  * transformer's secondary is a short through its winding resistance). Volts, amperes, seconds, joules.
  */
-export function runDriverDesign(design: Design, options: DriverRunOptions = {}): DriverRunResult {
+export function runDriverDesign(givenDesign: Design, options: DriverRunOptions = {}): DriverRunResult {
+  const design = withEffectiveTransformer(givenDesign);
   if (design.drive.kind !== 'driver')
     throw new DomainError('invalid_design', 'runDriverDesign needs a driver drive', 'drive.kind');
   let start = options.start ?? 'warm';
