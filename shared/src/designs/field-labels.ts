@@ -118,7 +118,7 @@ const DOCUMENT_FIELDS: Readonly<Record<string, FieldLabel>> = {
     label: 'Winding {n} tape wraps between layers',
     display: 'plain',
   },
-  'drive.driver.transformerDesign.windings[].startPin': { label: 'Winding {n} start pin', display: 'plain' },
+  'drive.driver.transformerDesign.windings[].startPin': { label: 'Winding {n} start pin (dot)', display: 'plain' },
   'drive.driver.transformerDesign.windings[].endPin': { label: 'Winding {n} finish pin', display: 'plain' },
   'drive.driver.transformerDesign.layerTape': { label: 'Layer tape', display: 'plain' },
   'drive.driver.transformerDesign.layerTape.code': { label: 'Layer tape code', display: 'plain' },
@@ -301,6 +301,11 @@ function plainNumber(value: number): string {
   return Number(value.toPrecision(5)).toString();
 }
 
+/** Three significant figures, for figures whose fourth is below what the method can tell. */
+function roundNumber(value: number): string {
+  return Number(value.toPrecision(3)).toString();
+}
+
 function magnitudeText(magnitude: number, display: FieldDisplay): string {
   switch (display) {
     case 'plain':
@@ -308,17 +313,17 @@ function magnitudeText(magnitude: number, display: FieldDisplay): string {
     case 'fraction':
       return `${plainNumber(magnitude * 100)} %`;
     case 'percent':
-      return `${plainNumber(magnitude)} %`;
+      return `${roundNumber(magnitude)} %`;
     case 'mm2':
       return `${plainNumber(magnitude * 1e6)} mm²`;
     case 'mm3':
       return `${plainNumber(magnitude * 1e9)} mm³`;
     case 'T':
-      return magnitude < 1 ? `${plainNumber(magnitude * 1e3)} mT` : `${plainNumber(magnitude)} T`;
+      return magnitude < 1 ? `${roundNumber(magnitude * 1e3)} mT` : `${roundNumber(magnitude)} T`;
     case 'kVPerMm':
-      return `${plainNumber(magnitude / 1e6)} kV/mm`;
+      return `${roundNumber(magnitude / 1e6)} kV/mm`;
     case 'degC':
-      return `${plainNumber(magnitude)} °C`;
+      return `${roundNumber(magnitude)} °C`;
     case 'mm':
       return `${plainNumber(magnitude)} mm`;
     case 'h':

@@ -37,6 +37,11 @@ const ChecksTable = lazy(() =>
 const DriverPanel = lazy(() =>
   import('../../../features/workbench/components/driver-panel').then((module) => ({ default: module.DriverPanel })),
 );
+const TransformerPanel = lazy(() =>
+  import('../../../features/workbench/components/transformer-panel').then((module) => ({
+    default: module.TransformerPanel,
+  })),
+);
 const LadderDiagram = lazy(() =>
   import('../../../features/workbench/components/ladder-diagram').then((module) => ({ default: module.LadderDiagram })),
 );
@@ -51,7 +56,7 @@ const PlotsPanel = memo(function PlotsPanel({ report }: { report: DesignReport }
   );
 });
 
-/** The Workbench result tabs: Plots, Driver, Ladder, Checks, BOM cost, Waveforms, History. */
+/** The Workbench result tabs: Plots, Driver, Transformer (when designed), Ladder, Checks, BOM cost, Waveforms, History. */
 export function WorkbenchResults({
   projectId,
   revision,
@@ -67,6 +72,7 @@ export function WorkbenchResults({
         <Tabs.List>
           <Tabs.Tab value="plots">Plots</Tabs.Tab>
           {report.driver && <Tabs.Tab value="driver">Driver</Tabs.Tab>}
+          {report.transformer && <Tabs.Tab value="transformer">Transformer</Tabs.Tab>}
           <Tabs.Tab value="ladder">Ladder</Tabs.Tab>
           <Tabs.Tab value="checks">Checks</Tabs.Tab>
           <Tabs.Tab value="bom">BOM cost</Tabs.Tab>
@@ -79,6 +85,11 @@ export function WorkbenchResults({
         {report.driver && (
           <Tabs.Panel value="driver" pt="sm">
             <DriverPanel driver={report.driver} />
+          </Tabs.Panel>
+        )}
+        {report.transformer && (
+          <Tabs.Panel value="transformer" pt="sm">
+            <TransformerPanel transformer={report.transformer} />
           </Tabs.Panel>
         )}
         <Tabs.Panel value="ladder" pt="sm">
