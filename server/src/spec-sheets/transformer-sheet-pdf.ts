@@ -5,7 +5,6 @@ import { checksSection } from './spec-sheet-checks';
 import {
   type Doc,
   date,
-  ensureRoom,
   FONT_FILES,
   heading,
   INK,
@@ -21,6 +20,7 @@ import {
   TEXT_WIDTH,
   WARN,
 } from './spec-sheet-layout';
+import { cautionBox } from './spec-sheet-safety';
 import { windingDrawing } from './transformer-sheet-drawing';
 import type { TransformerSheetContent } from './transformer-sheet.types';
 
@@ -240,30 +240,6 @@ function insulationSection(doc: Doc, c: TransformerSheetContent): void {
   );
 }
 
-function cautionBox(doc: Doc): void {
-  ensureRoom(doc, 70);
-  doc.moveDown(0.8);
-  const top = doc.y;
-  doc.rect(MARGIN, top, TEXT_WIDTH, 52).lineWidth(1.2).strokeColor(WARN).stroke();
-  doc
-    .font('bold')
-    .fontSize(10)
-    .fillColor(WARN)
-    .text('HIGH VOLTAGE CAN KILL', MARGIN + 10, top + 8);
-  doc
-    .font('regular')
-    .fontSize(8.5)
-    .fillColor(INK)
-    .text(
-      'The secondary of this transformer carries kilovolts. The figures are design predictions; the standard that applies to the equipment, local codes and licensed practice govern every build and test, including the hipot test.',
-      MARGIN + 10,
-      doc.y + 2,
-      { width: TEXT_WIDTH - 20 },
-    );
-  doc.y = top + 60;
-  doc.x = MARGIN;
-}
-
 /** "NOT RELEASED" across every page of an unreleased revision, and the footer with the caution. */
 function markPages(doc: Doc, c: TransformerSheetContent): void {
   const range = doc.bufferedPageRange();
@@ -337,7 +313,10 @@ export async function renderTransformerSheetPdf(c: TransformerSheetContent): Pro
   coreSection(doc, c);
   insulationSection(doc, c);
   checksSection(doc, c.report.checks, 'The transformer’s own Checks at the rated load (estimate).');
-  cautionBox(doc);
+  cautionBox(
+    doc,
+    'The secondary of this transformer carries kilovolts. The figures are design predictions; the standard that applies to the equipment, local codes and licensed practice govern every build and test, including the hipot test.',
+  );
   markPages(doc, c);
   doc.end();
   return done;
