@@ -146,11 +146,12 @@ const DRIVER_METHOD: MethodInfo = {
 };
 
 /** Resolves the drive of a design into the waveform the ladder model takes. */
-export function resolveDrive(design: Design): {
+export function resolveDrive(givenDesign: Design): {
   drive: SineDrive | PulseDrive;
   deliverablePowerW: number | null;
   currentLimitA: number | null;
 } {
+  const design = withEffectiveTransformer(givenDesign);
   const drive = design.drive;
   if (drive.kind !== 'driver') return { drive, deliverablePowerW: null, currentLimitA: null };
   const stage = drive.driver;
