@@ -105,6 +105,7 @@ describe('analyzeTransformer (common practice checks on the demo section)', () =
 describe('the demo handheld tester with its designed transformer', () => {
   const base = designExamples.surfaceChargeTester;
   if (base.drive.kind !== 'driver') throw new Error('the demo tester has a driver drive');
+  const baseDriver = base.drive.driver;
   const designed = {
     ...base,
     drive: {
@@ -125,7 +126,7 @@ describe('the demo handheld tester with its designed transformer', () => {
   it('refuses a designed transformer without its section, and a winding twice', () => {
     const missing = {
       ...designed,
-      drive: { ...designed.drive, driver: { ...base.drive.driver, transformerChoice: 'designed' } },
+      drive: { ...designed.drive, driver: { ...baseDriver, transformerChoice: 'designed' } },
     };
     expect(() => validateDesign(missing)).toThrow(/transformerDesign/);
     const twice = {
