@@ -14,7 +14,10 @@ export interface BlockingOscillatorOptions {
   flybackSecondaryPeakV?: number;
   /** Power (W) the load takes from the forward pulse during the on-time, drawn straight from the supply. */
   forwardLoadPowerW?: number;
-  /** Capacitance (F) at the collector node, for the leakage spike of an unclamped stage. Default 100 pF. */
+  /**
+   * Capacitance (F) at the collector node, for the leakage spike of an unclamped stage and the switching loss.
+   * Default 100 pF plus the secondary's self-capacitance reflected by (Ns/Np)².
+   */
   collectorNodeCapacitanceF?: number;
   /** State of charge of a cells supply (1 = full). Default 1. */
   chargeFraction?: number;
@@ -125,6 +128,17 @@ export interface BlockingOscillatorEstimate {
 }
 
 const defaultCollectorNodeCapacitanceF = 100e-12;
+
+/**
+ * Capacitance at the collector node (F): the default stray plus the secondary's self-capacitance reflected
+ * by the turns ratio squared, C·(Ns/Np)², which the collector charges and the transistor discharges each cycle.
+ */
+function collectorNodeCapacitanceOf(driver: DriverStage): number {
+  const tx = driver.transformer;
+  return (
+    defaultCollectorNodeCapacitanceF + (tx.secondaryCapacitanceF ?? 0) * (tx.secondaryTurns / tx.primaryTurns) ** 2
+  );
+}
 /** Supply bypass at the stage when none is given (F): the simulated circuit's default. */
 export const DEFAULT_BYPASS_CAPACITANCE_F = 100e-6;
 /** The transistor's Ebers–Moll saturation current when the design gives none: the simulator's default. */
@@ -298,7 +312,7 @@ function stageAt(
   // Vce,sat·Q + R·∫i² + E, plus the base drive ∫V_B·I_B dt (the rail's share directly, the feedback winding's
   // through the primary). The supply current is that power over the mean terminal voltage.
   // The collector node capacitance, recharged by each flyback, is discharged through the transistor at each turn-on.
-  const nodeC = options.collectorNodeCapacitanceF ?? defaultCollectorNodeCapacitanceF;
+  const nodeC = options.collectorNodeCapacitanceF ?? collectorNodeCapacitanceOf(driver);
   const switchingJ = 0.5 * nodeC * vin * vin;
   const inputW =
     frequencyHz * (q.vceSatV * rampC + seriesR * rampSquareA2S + energyJ + baseDriveJ + switchingJ) +
@@ -450,7 +464,7 @@ export function estimateOf(
   r: OscillatorNumbers,
 ): BlockingOscillatorEstimate {
   const seriesR = driver.transformer.primaryResistanceOhm + (driver.collectorResistorOhm ?? 0);
-  const nodeC = options.collectorNodeCapacitanceF ?? defaultCollectorNodeCapacitanceF;
+  const nodeC = options.collectorNodeCapacitanceF ?? collectorNodeCapacitanceOf(driver);
   const limitNote =
     r.limit === 'base'
       ? 'base-limited: the ramp ends at the regenerative turn-off, where the collector current reaches hFE·I_B(i)'
