@@ -91,6 +91,33 @@ describe('analyzeTransformer (common practice checks on the demo section)', () =
     expect(verdictOf(wide, 'transformer.flange-creepage')).toBe('pass');
   });
 
+  it('a load on the forward pulse adds secondary and reflected primary current but no flux', () => {
+    const loaded = pulseOperatingPoint({
+      frequencyHz: 30e3,
+      onTimeS: 15e-6,
+      flybackTimeS: 8e-6,
+      primaryPeakCurrentA: 0.1,
+      baseCurrentA: 1e-3,
+      primaryOnVoltageV: 2.8,
+      forwardSecondaryPeakV: 168,
+      flybackSecondaryPeakV: 600,
+      primaryTurns: 20,
+      feedbackTurns: 8,
+      secondaryTurns: 1200,
+      ambientTemperatureC: 25,
+      forwardLoadPowerW: 0.05,
+    });
+    // 0.05 W at 168 V over 15 µs of each 33.3 µs: 0.05/(30e3·168·15e-6) = 0.66 mA during the on-time,
+    // 40 mA in the primary (×60).
+    const forwardA = 0.05 / (30e3 * 168 * 15e-6);
+    expect(loaded.windingCurrentsA.secondary[0]!.value).toBeCloseTo(forwardA, 12);
+    expect(loaded.windingCurrentsA.primary[1]!.value).toBeCloseTo(0.1 + forwardA * 60, 12);
+    const a = analyzeTransformer(demoTransformerSection, loaded, spacing);
+    const b = analyzeTransformer(demoTransformerSection, point(0.1), spacing);
+    expect(a.peakFluxDensityT).toBe(b.peakFluxDensityT);
+    expect(a.copperLossW).toBeGreaterThan(b.copperLossW);
+  });
+
   it('losses and temperature rise grow with the current', () => {
     const low = analyzeTransformer(demoTransformerSection, point(0.05), spacing);
     const high = analyzeTransformer(demoTransformerSection, point(0.15), spacing);
