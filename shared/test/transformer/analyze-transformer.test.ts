@@ -63,6 +63,16 @@ describe('analyzeTransformer (common practice checks on the demo section)', () =
     ).toBe('pass');
   });
 
+  it('fails the inductance target when the ungapped core cannot reach it on the turns given', () => {
+    // 10 turns on AL 4.5 µH/turn² give at most 450 µH against the 1 mH target.
+    const short = analyzeTransformer(withPrimaryTurns(10), point(0.1), spacing);
+    expect(short.primaryInductanceH).toBeCloseTo(4.5e-6 * 100, 12);
+    expect(verdictOf(short, 'transformer.inductance-target')).toBe('fail');
+    expect(
+      verdictOf(analyzeTransformer(demoTransformerSection, point(0.1), spacing), 'transformer.inductance-target'),
+    ).toBe('pass');
+  });
+
   it('fails the layer insulation when the layers stand more than enamel and tape hold', () => {
     const bare: TransformerSection = {
       ...demoTransformerSection,
