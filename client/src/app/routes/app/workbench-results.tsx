@@ -3,7 +3,6 @@ import { Loader, Tabs, Text } from '@mantine/core';
 import type { RevisionDetail, RevisionSummary } from '@ladderwright/shared/api';
 import type { Design } from '@ladderwright/shared/designs';
 import type { DesignReport } from '@ladderwright/shared/analysis';
-import { LadderCharts } from '../../../features/workbench/components/ladder-charts';
 import { OtherFigures } from '../../../features/workbench/components/other-figures';
 
 export interface WorkbenchResultsProps {
@@ -35,6 +34,10 @@ const ChecksTable = lazy(() =>
 const DriverPanel = lazy(() =>
   import('../../../features/workbench/components/driver-panel').then((module) => ({ default: module.DriverPanel })),
 );
+// The first tab's charts too: the figures beside them show while the chart code arrives.
+const LadderCharts = lazy(() =>
+  import('../../../features/workbench/components/ladder-charts').then((module) => ({ default: module.LadderCharts })),
+);
 const LadderDiagram = lazy(() =>
   import('../../../features/workbench/components/ladder-diagram').then((module) => ({ default: module.LadderDiagram })),
 );
@@ -44,7 +47,9 @@ const PlotsPanel = memo(function PlotsPanel({ report }: { report: DesignReport }
   return (
     <>
       <OtherFigures report={report} />
-      <LadderCharts report={report} />
+      <Suspense fallback={<Loader size="sm" aria-label="Loading the charts" />}>
+        <LadderCharts report={report} />
+      </Suspense>
     </>
   );
 });
