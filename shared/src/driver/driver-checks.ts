@@ -6,7 +6,8 @@ import {
   type BlockingOscillatorEstimate,
 } from './blocking-oscillator';
 import type { DriverStage } from '../designs/driver-stage.types';
-import type { Estimated, MethodInfo } from '../methods';
+import type { Estimated } from '../methods';
+import { HIPOT_METHOD, hipotTestVoltageV as hipotTestVoltageOf } from '../safety/hipot';
 import { solveLoadPoint, supplyCurrentAt, type LadderLoadLine, type LoadPoint } from './operating-point';
 import { driverEnergy, type DriverEnergy } from './driver-energy';
 
@@ -78,16 +79,6 @@ function lowerLimit(
   const verdict = value >= passFactor * limit ? 'pass' : value >= limit ? 'marginal' : 'fail';
   return { id, subject, rule, verdict, marginPct: ((value - limit) / limit) * 100, value, limit, unit };
 }
-
-const hipotMethod: MethodInfo = {
-  methodId: 'insulation.hipot-2u-plus-1000',
-  summary: 'Hipot test voltage 2·U + 1000 V, U the peak working voltage across the secondary-to-primary insulation.',
-  assumptions: [
-    'basic insulation',
-    'U taken as the larger of the forward and flyback secondary peaks (one end of the secondary at ground)',
-  ],
-  source: 'common practice, no source',
-};
 
 /**
  * Supply current (A) of the driver at the rated load as a function of the supply terminal voltage (V),
@@ -229,7 +220,7 @@ export function runDriverChecks(driver: DriverStage, input: DriverChecksInput = 
 
   const tx = driver.transformer;
   const windingPeakV = Math.max(atLoad.forwardSecondaryPeakV.value, atLoad.flybackSecondaryPeakV.value);
-  const hipotTestVoltageV: Estimated = { value: 2 * windingPeakV + 1000, method: hipotMethod };
+  const hipotTestVoltageV: Estimated = { value: hipotTestVoltageOf(windingPeakV), method: HIPOT_METHOD };
   if (tx.insulation) {
     verdicts.push(
       upperLimit(
