@@ -1,4 +1,4 @@
-import type { BenchLossKind } from '../driver/driver-report';
+import type { BenchLossKind, DriverBenchFigures } from '../driver/driver-report';
 import type { EnergyAccount } from '../sim/energy-meter';
 import type { LadderRunResult, PlotTrace } from './ladder-runs';
 
@@ -44,19 +44,13 @@ export interface DriverWaveforms {
 /** Loss kinds of a driver circuit's elements (see lossKindOf), W each in DriverFigures.lossesW; the estimate groups its losses the same way. */
 export type DriverLossKind = BenchLossKind;
 
-/** Bench figures over whole oscillation cycles at the end of a run (SI units; efficiency 0–1). */
-export interface DriverFigures {
+/**
+ * Bench figures over whole oscillation cycles at the end of a run (SI units; efficiency 0–1): the estimate's
+ * figures (DriverBenchFigures) as measured, output power being the power into the load at the output terminal
+ * (the bleeder and output resistor are losses), with the number of cycles and the losses by kind in W.
+ */
+export interface DriverFigures extends Omit<DriverBenchFigures, 'losses'> {
   cycles: number;
-  oscillationFrequencyHz: number;
-  dutyOnFraction: number;
-  primaryCurrentPeakA: number;
-  collectorVoltagePeakV: number;
-  secondaryVoltagePeakPositiveV: number;
-  secondaryVoltagePeakNegativeV: number;
-  inputPowerW: number;
-  /** Power into the load at the output terminal (the bleeder and output resistor are losses). */
-  outputPowerW: number;
-  efficiency: number;
   lossesW: Partial<Record<DriverLossKind, number>>;
 }
 
