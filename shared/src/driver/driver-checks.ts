@@ -1,10 +1,7 @@
 import { DomainError } from '../errors';
 import { batteryLife, cellCurveOf, cellMaxContinuousCurrentA, type BatteryLifeResult } from './battery';
-import {
-  blockingOscillatorNumbers,
-  estimateBlockingOscillator,
-  type BlockingOscillatorEstimate,
-} from './blocking-oscillator';
+import { blockingOscillatorNumbers, estimateBlockingOscillator } from './blocking-oscillator';
+import type { BlockingOscillatorEstimate } from './blocking-oscillator.types';
 import type { DriverStage } from '../designs/driver-stage.types';
 import type { Estimated } from '../methods';
 import { HIPOT_METHOD, hipotTestVoltageV as hipotTestVoltageOf } from '../safety/hipot';

@@ -1,5 +1,5 @@
 import { cellCurveOf, type BatteryLifeResult } from './battery';
-import type { BlockingOscillatorEstimate } from './blocking-oscillator';
+import type { BlockingOscillatorEstimate } from './blocking-oscillator.types';
 import { runDriverChecks, type DriverCheckVerdict } from './driver-checks';
 import type { DriverEnergy, LossKind } from './driver-energy';
 import { estimateValidity, type EstimateValidity } from './estimate-validity';

@@ -31,7 +31,7 @@ export type {
   OnTimeLimit,
   OscillatorNumbers,
   StageLosses,
-} from './blocking-oscillator';
+} from './blocking-oscillator.types';
 export {
   driverOperatingPoint,
   engineLadderLoadLine,

@@ -4,13 +4,12 @@ import { prepareLadder, terminalMeanAt, type PreparedLadder } from '../multiplie
 import { bracketedRoot } from '../multiplier/bracketed-root';
 import { withDriveTiming } from '../multiplier/with-drive';
 import type { LadderInput } from '../multiplier/ladder.types';
-import {
-  blockingOscillatorNumbers,
-  estimateOf,
-  type BlockingOscillatorEstimate,
-  type BlockingOscillatorOptions,
-  type OscillatorNumbers,
-} from './blocking-oscillator';
+import { blockingOscillatorNumbers, estimateOf } from './blocking-oscillator';
+import type {
+  BlockingOscillatorEstimate,
+  BlockingOscillatorOptions,
+  OscillatorNumbers,
+} from './blocking-oscillator.types';
 import type { DriverStage } from '../designs/driver-stage.types';
 import type { MethodInfo } from '../methods';
 
