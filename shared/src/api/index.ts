@@ -59,6 +59,7 @@ export type {
 export type {
   PartKind,
   Part,
+  PartMagnetics,
   PartInput,
   CreatePartRequest,
   UpdatePartRequest,
