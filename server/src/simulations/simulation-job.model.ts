@@ -5,7 +5,11 @@ import type {
   SimulationOptions,
   SimulationResult,
 } from '@ladderwright/shared/api';
+import type { CalibrationResult } from '@ladderwright/shared/calibration';
 import type { Design } from '@ladderwright/shared/designs';
+
+/** A job's kind: a simulation, or a calibration whose model runs go to the same worker pool. */
+export type SimulationJobKind = SimulationKind | 'calibration';
 
 /** What the worker needs to run the job, stored with it so that any app instance can pick it up. */
 export interface SimulationJobInput {
@@ -17,13 +21,13 @@ export interface SimulationJobAttrs {
   id: string;
   projectId: string;
   requestedBy: string | null;
-  kind: SimulationKind;
+  kind: SimulationJobKind;
   status: SimulationJobStatus;
   progressPct: number;
   input: SimulationJobInput;
   designId: string | null;
   revisionNumber: number | null;
-  result: SimulationResult | null;
+  result: SimulationResult | CalibrationResult | null;
   errorCode: string | null;
   errorMessage: string | null;
   queueJobId: string | null;
@@ -50,7 +54,7 @@ export class SimulationJobModel extends Model<SimulationJobAttrs, SimulationJobC
   requestedBy!: string | null;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  kind!: SimulationKind;
+  kind!: SimulationJobKind;
 
   @Column({ type: DataType.TEXT, allowNull: false, defaultValue: 'queued' })
   status!: SimulationJobStatus;
@@ -68,7 +72,7 @@ export class SimulationJobModel extends Model<SimulationJobAttrs, SimulationJobC
   revisionNumber!: number | null;
 
   @Column({ type: DataType.JSONB, allowNull: true })
-  result!: SimulationResult | null;
+  result!: SimulationResult | CalibrationResult | null;
 
   @Column({ type: DataType.TEXT, allowNull: true })
   errorCode!: string | null;

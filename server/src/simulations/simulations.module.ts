@@ -1,6 +1,7 @@
 import { Module } from '@nestjs/common';
 import { SequelizeModule } from '@nestjs/sequelize';
 import { RevisionsModule } from '../revisions/revisions.module';
+import { CalibrationRunService } from './calibration-run.service';
 import { SimulationJobModel } from './simulation-job.model';
 import { SimulationPoolService } from './simulation-pool.service';
 import { SimulationQueueService } from './simulation-queue.service';
@@ -12,6 +13,13 @@ import { SimulationsService } from './simulations.service';
 @Module({
   imports: [SequelizeModule.forFeature([SimulationJobModel]), RevisionsModule],
   controllers: [SimulationsController],
-  providers: [SimulationsService, SimulationQueueService, SimulationPoolService, SimulationRunnerService],
+  providers: [
+    SimulationsService,
+    SimulationQueueService,
+    SimulationPoolService,
+    SimulationRunnerService,
+    CalibrationRunService,
+  ],
+  exports: [SimulationsService],
 })
 export class SimulationsModule {}
