@@ -69,7 +69,7 @@ export class CalibrationRunService {
         { onProgress: (fraction) => onProgress(Math.floor(fraction * 99)), shouldCancel: isCancelled },
       );
       await calibration.update({ result });
-      return { ok: true, result };
+      return { ok: true, calibrated: true };
     } catch (error) {
       if (isDomainError(error))
         return { ok: false, error: { code: error.code, message: error.message, field: error.field } };

@@ -5,7 +5,6 @@ import type {
   SimulationOptions,
   SimulationResult,
 } from '@ladderwright/shared/api';
-import type { CalibrationResult } from '@ladderwright/shared/calibration';
 import type { Design } from '@ladderwright/shared/designs';
 
 /** A job's kind: a simulation, or a calibration whose model runs go to the same worker pool. */
@@ -27,7 +26,7 @@ export interface SimulationJobAttrs {
   input: SimulationJobInput;
   designId: string | null;
   revisionNumber: number | null;
-  result: SimulationResult | CalibrationResult | null;
+  result: SimulationResult | null;
   errorCode: string | null;
   errorMessage: string | null;
   queueJobId: string | null;
@@ -72,7 +71,7 @@ export class SimulationJobModel extends Model<SimulationJobAttrs, SimulationJobC
   revisionNumber!: number | null;
 
   @Column({ type: DataType.JSONB, allowNull: true })
-  result!: SimulationResult | CalibrationResult | null;
+  result!: SimulationResult | null;
 
   @Column({ type: DataType.TEXT, allowNull: true })
   errorCode!: string | null;

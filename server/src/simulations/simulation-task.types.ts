@@ -1,6 +1,6 @@
 import type { MessagePort } from 'node:worker_threads';
 import type { SimulationKind, SimulationOptions, SimulationResult } from '@ladderwright/shared/api';
-import type { CalibrationDataset, CalibrationResult } from '@ladderwright/shared/calibration';
+import type { CalibrationDataset } from '@ladderwright/shared/calibration';
 import type { Design } from '@ladderwright/shared/designs';
 
 /** Kinds that exist only to prove the failure paths; accepted when `AppEnv.simulationFaultKinds` is on. */
@@ -35,8 +35,10 @@ export interface SimulationTaskFailure {
 }
 
 export type SimulationTaskOutcome =
-  | { ok: true; result: SimulationResult | CalibrationResult }
+  | { ok: true; result: SimulationResult }
   | { ok: true; predictions: number[][] | null }
+  /** A calibration finished; its result is written to its `calibrations` row. */
+  | { ok: true; calibrated: true }
   | { ok: false; error: SimulationTaskFailure };
 
 /** Name of the task function the worker entry exports. */

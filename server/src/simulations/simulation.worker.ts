@@ -1,6 +1,7 @@
 import type { SimulationResult, SimulationSummary, WaveformPhase, WaveformTrace } from '@ladderwright/shared/api';
 import { predictDatasets } from '@ladderwright/shared/calibration';
 import { validateDesign } from '@ladderwright/shared/designs';
+import { ENGINE_VERSION } from '@ladderwright/shared/multiplier';
 import { isDomainError } from '@ladderwright/shared/errors';
 import { dischargeRuleLimits } from '@ladderwright/shared/safety';
 import { ladderSpecFromDesign } from '@ladderwright/shared/circuits';
@@ -71,6 +72,7 @@ function simulateDriver(task: SimulationTask, post: (fraction: number) => void):
     ...(isDischarge ? { dischargeToV: dischargeRuleLimits(design.targets.dischargeRule).voltageV } : {}),
   });
   const summary: SimulationSummary = {
+    engineVersion: ENGINE_VERSION,
     outputMeanV: run.outputMeanV,
     ripplePeakToPeakV: run.ripplePeakToPeakV,
     timeToSteadyStateS: coldRun?.timeTo90PercentS ?? null,
@@ -120,6 +122,7 @@ function simulate(task: SimulationTask): SimulationResult {
     ...(isDischarge ? { dischargeToV: dischargeRuleLimits(design.targets.dischargeRule).voltageV } : {}),
   });
   const summary: SimulationSummary = {
+    engineVersion: ENGINE_VERSION,
     outputMeanV: run.outputMeanV,
     ripplePeakToPeakV: run.ripplePeakToPeakV,
     timeToSteadyStateS: run.timeToSteadyStateS,

@@ -2,6 +2,8 @@ import { Module } from '@nestjs/common';
 import { SequelizeModule } from '@nestjs/sequelize';
 import { RevisionsModule } from '../revisions/revisions.module';
 import { CalibrationRunService } from './calibration-run.service';
+import { CurrentSimulationController } from './current-simulation.controller';
+import { CurrentSimulationService } from './current-simulation.service';
 import { SimulationJobModel } from './simulation-job.model';
 import { SimulationPoolService } from './simulation-pool.service';
 import { SimulationQueueService } from './simulation-queue.service';
@@ -12,14 +14,15 @@ import { SimulationsService } from './simulations.service';
 /** Simulation jobs: queued in PostgreSQL (pg-boss), run on worker threads (piscina), read by polling. */
 @Module({
   imports: [SequelizeModule.forFeature([SimulationJobModel]), RevisionsModule],
-  controllers: [SimulationsController],
+  controllers: [SimulationsController, CurrentSimulationController],
   providers: [
     SimulationsService,
     SimulationQueueService,
     SimulationPoolService,
     SimulationRunnerService,
     CalibrationRunService,
+    CurrentSimulationService,
   ],
-  exports: [SimulationsService],
+  exports: [SimulationsService, CurrentSimulationService],
 })
 export class SimulationsModule {}

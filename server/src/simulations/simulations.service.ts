@@ -5,7 +5,6 @@ import type {
   SimulationJob,
   SimulationKind,
   SimulationOptions,
-  SimulationResult,
   StartSimulationResponse,
 } from '@ladderwright/shared/api';
 import { type Design, validateDesign } from '@ladderwright/shared/designs';
@@ -254,7 +253,6 @@ function toResponse(job: SimulationJobModel): SimulationJob {
   };
   if (job.status === 'failed')
     response.error = { code: job.errorCode ?? 'failed', message: job.errorMessage ?? 'The simulation failed' };
-  if (job.status === 'succeeded' && job.result && job.kind !== 'calibration')
-    response.result = job.result as SimulationResult;
+  if (job.status === 'succeeded' && job.result) response.result = job.result;
   return response;
 }

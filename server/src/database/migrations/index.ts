@@ -9,7 +9,8 @@ import { teamAdministration } from './0007-team-administration';
 import { sessionsAndSignInLimits } from './0008-sessions-and-sign-in-limits';
 import { simulationJobHeartbeat } from './0009-simulation-job-heartbeat';
 import { driverSecondaryPhasing } from './0010-driver-secondary-phasing';
-import { calibrations } from './0011-calibrations';
+import { magneticsParts } from './0011-magnetics-parts';
+import { calibrations } from './0012-calibrations';
 
 /** Every schema step in order. Add new steps at the end. */
 export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
@@ -23,5 +24,6 @@ export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
   sessionsAndSignInLimits,
   simulationJobHeartbeat,
   driverSecondaryPhasing,
+  magneticsParts,
   calibrations,
 ];

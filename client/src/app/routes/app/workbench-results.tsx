@@ -2,7 +2,7 @@ import { lazy, memo, Suspense } from 'react';
 import { Loader, Tabs, Text } from '@mantine/core';
 import type { RevisionDetail, RevisionSummary } from '@ladderwright/shared/api';
 import type { Design } from '@ladderwright/shared/designs';
-import type { DesignReport } from '@ladderwright/shared/analysis';
+import type { DesignReport, HeadlineSource } from '@ladderwright/shared/analysis';
 import { LadderCharts } from '../../../features/workbench/components/ladder-charts';
 import { OtherFigures } from '../../../features/workbench/components/other-figures';
 
@@ -13,6 +13,8 @@ export interface WorkbenchResultsProps {
   draft: Design;
   isDirty: boolean;
   report: DesignReport;
+  /** The saved revision's figures with their source (a current stored simulation or the estimate); null for a draft. */
+  headline?: HeadlineSource | null;
 }
 
 // Result tabs other than the first load with their tab (keepMounted is off), not with the page.
@@ -50,7 +52,15 @@ const PlotsPanel = memo(function PlotsPanel({ report }: { report: DesignReport }
 });
 
 /** The Workbench result tabs: Plots, Driver, Ladder, Checks, BOM cost, Waveforms, History. */
-export function WorkbenchResults({ projectId, revision, revisions, draft, isDirty, report }: WorkbenchResultsProps) {
+export function WorkbenchResults({
+  projectId,
+  revision,
+  revisions,
+  draft,
+  isDirty,
+  report,
+  headline = null,
+}: WorkbenchResultsProps) {
   return (
     <Suspense fallback={<Loader size="sm" aria-label="Loading the tab" />}>
       <Tabs defaultValue="plots" keepMounted={false}>
@@ -77,6 +87,13 @@ export function WorkbenchResults({ projectId, revision, revisions, draft, isDirt
         <Tabs.Panel value="checks" pt="sm">
           <Text size="xs" c="dimmed" mb="xs">
             {report.caution}
+          </Text>
+          <Text size="xs" mb="xs" data-checks-source>
+            {headline?.source === 'simulation'
+              ? headline.simulatedKeys.includes('discharge')
+                ? 'The discharge-time check rests on the stored simulation of this revision; the others on the estimate.'
+                : 'Every check rests on the estimate; the stored simulation gives no figure a check tests.'
+              : 'Every check rests on the estimate.'}
           </Text>
           <ChecksTable checks={report.checks} />
         </Tabs.Panel>

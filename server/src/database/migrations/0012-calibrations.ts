@@ -6,7 +6,7 @@ import type { SchemaMigration } from './migration.types';
  * kind 'calibration' (queue, quotas, progress, heartbeat, cancel); `simulation_job_id` links the two.
  */
 export const calibrations: SchemaMigration = {
-  name: '0011-calibrations',
+  name: '0012-calibrations',
   async up(context) {
     await context.sequelize.query(`
       CREATE TABLE calibrations (
