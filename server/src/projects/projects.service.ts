@@ -124,15 +124,30 @@ export class ProjectsService {
   }
 
   /** Archives the project: it stays listed and readable and takes no more changes. */
-  async archive(projectId: string, actor: CurrentUser): Promise<void> {
+  archive(projectId: string, actor: CurrentUser): Promise<void> {
+    return this.setArchived(projectId, true, actor);
+  }
+
+  /** Takes the project out of the archive: it takes changes again. 409 when it is not archived. */
+  unarchive(projectId: string, actor: CurrentUser): Promise<void> {
+    return this.setArchived(projectId, false, actor);
+  }
+
+  private async setArchived(projectId: string, isArchived: boolean, actor: CurrentUser): Promise<void> {
     await this.sequelize.transaction(async (transaction) => {
       const project = await this.projects.findByPk(projectId, { transaction, lock: transaction.LOCK.UPDATE });
       if (!project) throw new DomainError('not_found', 'Project not found', 'projectId');
-      project.archivedAt = new Date();
+      if ((project.archivedAt !== null) === isArchived) {
+        throw new DomainError(
+          'illegal_transition',
+          isArchived ? 'This project is archived already' : 'This project is not archived',
+        );
+      }
+      project.archivedAt = isArchived ? new Date() : null;
       await project.save({ transaction });
       await this.audit.record(
         {
-          action: 'project.archived',
+          action: isArchived ? 'project.archived' : 'project.unarchived',
           actorId: actor.id,
           actorEmail: actor.email,
           subjectType: 'project',

@@ -1,3 +1,4 @@
+import { canActInProject } from '@ladderwright/shared/auth';
 import { Anchor, Breadcrumbs, Button, Group, Paper, Stack, Text, Title } from '@mantine/core';
 import { useDocumentTitle } from '@mantine/hooks';
 import { useSuspenseQuery } from '@tanstack/react-query';
@@ -16,7 +17,7 @@ export function PartsShelfRoute() {
   const { projectId = '' } = useParams();
   const { data: project } = useSuspenseQuery(getProjectQueryOptions(projectId));
   useDocumentTitle(`${project.name} · Parts shelf · Ladderwright`);
-  const canManage = project.myRole === 'lead';
+  const canManage = canActInProject(project, 'parts.manage');
   return (
     <Stack gap="lg">
       <Breadcrumbs>
@@ -54,7 +55,9 @@ export function PartsShelfRoute() {
         </>
       ) : (
         <Text size="sm" c="dimmed">
-          The project lead manages this shelf.
+          {project.isArchived
+            ? 'The project is archived: the shelf can be read and exported but not changed.'
+            : 'The project lead manages this shelf.'}
         </Text>
       )}
     </Stack>

@@ -13,6 +13,8 @@ export interface WorkbenchResultsProps {
   draft: Design;
   isDirty: boolean;
   report: DesignReport;
+  /** False in an archived project: no simulation job can be started. */
+  canSimulate: boolean;
 }
 
 // Result tabs other than the first load with their tab (keepMounted is off), not with the page.
@@ -50,7 +52,15 @@ const PlotsPanel = memo(function PlotsPanel({ report }: { report: DesignReport }
 });
 
 /** The Workbench result tabs: Plots, Driver, Ladder, Checks, BOM cost, Waveforms, History. */
-export function WorkbenchResults({ projectId, revision, revisions, draft, isDirty, report }: WorkbenchResultsProps) {
+export function WorkbenchResults({
+  projectId,
+  revision,
+  revisions,
+  draft,
+  isDirty,
+  report,
+  canSimulate,
+}: WorkbenchResultsProps) {
   return (
     <Suspense fallback={<Loader size="sm" aria-label="Loading the tab" />}>
       <Tabs defaultValue="plots" keepMounted={false}>
@@ -90,6 +100,7 @@ export function WorkbenchResults({ projectId, revision, revisions, draft, isDirt
             frequencyHz={report.resolvedDrive.frequencyHz}
             safeVoltageV={draft.targets.safeVoltageV}
             isDriverDesign={draft.drive.kind === 'driver'}
+            canStart={canSimulate}
           />
         </Tabs.Panel>
         <Tabs.Panel value="history" pt="sm">
