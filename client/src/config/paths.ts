@@ -111,6 +111,8 @@ export const apiPaths = {
     (bDesignId && bDesignId !== designId ? `&bDesignId=${encodeURIComponent(bDesignId)}` : ''),
   designTemplates: '/api/design-templates',
   evaluate: '/api/analysis/evaluate',
+  simulatedFigures: (projectId: string, designId: string, revisionNumber: number) =>
+    `/api/projects/${encodeURIComponent(projectId)}/designs/${encodeURIComponent(designId)}/revisions/${revisionNumber}/simulated-figures`,
   simulations: (projectId: string) => `/api/projects/${encodeURIComponent(projectId)}/simulations`,
   simulation: (projectId: string, jobId: string) =>
     `/api/projects/${encodeURIComponent(projectId)}/simulations/${encodeURIComponent(jobId)}`,

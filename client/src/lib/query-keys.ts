@@ -32,6 +32,10 @@ export const queryKeys = {
   simulations: {
     all: ['simulations'] as const,
     job: (projectId: string, jobId: string) => [...queryKeys.simulations.all, projectId, jobId] as const,
+    /** The current full simulation of a revision (its figures stand for the estimate); refreshed when a run ends. */
+    currentAll: ['simulations', 'current'] as const,
+    current: (projectId: string, designId: string, revisionNumber: number) =>
+      [...queryKeys.simulations.currentAll, projectId, designId, revisionNumber] as const,
   },
   parts: {
     all: ['parts'] as const,

@@ -1,4 +1,5 @@
 import type { Part } from '@ladderwright/shared/api';
+import { magneticsOf } from '@ladderwright/shared/parts';
 
 const stamp = '2025-01-01T00:00:00.000Z';
 
@@ -16,6 +17,7 @@ export function shelfPart(fields: Partial<Part> & Pick<Part, 'code' | 'kind'>): 
     ratedPowerW: null,
     unitCost: 1,
     sizeMm: '',
+    ...magneticsOf({}),
     createdAt: stamp,
     updatedAt: stamp,
     ...fields,

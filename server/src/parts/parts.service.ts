@@ -3,7 +3,7 @@ import { InjectModel } from '@nestjs/sequelize';
 import { Op, type WhereOptions } from 'sequelize';
 import type { Part, PartInput, PartListQuery } from '@ladderwright/shared/api';
 import { DomainError } from '@ladderwright/shared/errors';
-import { normalizePart, type ShelfPart } from '@ladderwright/shared/parts';
+import { magneticsOf, normalizePart, type ShelfPart } from '@ladderwright/shared/parts';
 import { isUuid } from '../common/uuid';
 import { PartModel, type PartAttrs } from './part.model';
 
@@ -22,6 +22,7 @@ export function toPart(model: PartModel): Part {
     ratedPowerW: model.ratedPowerW,
     unitCost: model.unitCost,
     sizeMm: model.sizeMm,
+    ...magneticsOf(model),
     createdAt: model.createdAt.toISOString(),
     updatedAt: model.updatedAt.toISOString(),
   };

@@ -1,5 +1,6 @@
 import type { SimulationResult, SimulationSummary, WaveformPhase, WaveformTrace } from '@ladderwright/shared/api';
 import { validateDesign } from '@ladderwright/shared/designs';
+import { ENGINE_VERSION } from '@ladderwright/shared/multiplier';
 import { isDomainError } from '@ladderwright/shared/errors';
 import { dischargeRuleLimits } from '@ladderwright/shared/safety';
 import { ladderSpecFromDesign } from '@ladderwright/shared/circuits';
@@ -65,6 +66,7 @@ function simulateDriver(task: SimulationTask, post: (fraction: number) => void):
     ...(isDischarge ? { dischargeToV: dischargeRuleLimits(design.targets.dischargeRule).voltageV } : {}),
   });
   const summary: SimulationSummary = {
+    engineVersion: ENGINE_VERSION,
     outputMeanV: run.outputMeanV,
     ripplePeakToPeakV: run.ripplePeakToPeakV,
     timeToSteadyStateS: coldRun?.timeTo90PercentS ?? null,
@@ -114,6 +116,7 @@ function simulate(task: SimulationTask): SimulationResult {
     ...(isDischarge ? { dischargeToV: dischargeRuleLimits(design.targets.dischargeRule).voltageV } : {}),
   });
   const summary: SimulationSummary = {
+    engineVersion: ENGINE_VERSION,
     outputMeanV: run.outputMeanV,
     ripplePeakToPeakV: run.ripplePeakToPeakV,
     timeToSteadyStateS: run.timeToSteadyStateS,

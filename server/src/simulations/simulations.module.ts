@@ -1,6 +1,8 @@
 import { Module } from '@nestjs/common';
 import { SequelizeModule } from '@nestjs/sequelize';
 import { RevisionsModule } from '../revisions/revisions.module';
+import { CurrentSimulationController } from './current-simulation.controller';
+import { CurrentSimulationService } from './current-simulation.service';
 import { SimulationJobModel } from './simulation-job.model';
 import { SimulationPoolService } from './simulation-pool.service';
 import { SimulationQueueService } from './simulation-queue.service';
@@ -11,7 +13,14 @@ import { SimulationsService } from './simulations.service';
 /** Simulation jobs: queued in PostgreSQL (pg-boss), run on worker threads (piscina), read by polling. */
 @Module({
   imports: [SequelizeModule.forFeature([SimulationJobModel]), RevisionsModule],
-  controllers: [SimulationsController],
-  providers: [SimulationsService, SimulationQueueService, SimulationPoolService, SimulationRunnerService],
+  controllers: [SimulationsController, CurrentSimulationController],
+  providers: [
+    SimulationsService,
+    SimulationQueueService,
+    SimulationPoolService,
+    SimulationRunnerService,
+    CurrentSimulationService,
+  ],
+  exports: [CurrentSimulationService],
 })
 export class SimulationsModule {}

@@ -1,7 +1,7 @@
 import type { BenchRunSummary, SignOffApproval, SignOffOverride } from '@ladderwright/shared/api';
 import type { MeasuredPoint } from '@ladderwright/shared/bench';
 import type { Design } from '@ladderwright/shared/designs';
-import type { DesignReport } from '@ladderwright/shared/analysis';
+import type { DesignReport, HeadlineSource } from '@ladderwright/shared/analysis';
 import type { AcceptanceLimits } from '@ladderwright/shared/reviews';
 import type { RevisionState } from '@ladderwright/shared/reviews';
 
@@ -36,7 +36,10 @@ export interface SpecSheetContent {
   generatedAt: Date;
   engineVersion: string;
   document: Design;
+  /** The stored report: the estimate. */
   report: DesignReport;
+  /** The figures the sheet prints: a current full simulation's where one exists, with the differences to the estimate. */
+  headline: HeadlineSource;
   winding: WindingSpec;
   acceptance: AcceptanceLimits;
   /** Decisions to go past closed Sign-off gates on this revision, oldest first. */

@@ -5,6 +5,7 @@ import { ProjectModel } from '../projects/project.model';
 import { ProjectsModule } from '../projects/projects.module';
 import { ReviewsModule } from '../reviews/reviews.module';
 import { RevisionsModule } from '../revisions/revisions.module';
+import { SimulationsModule } from '../simulations/simulations.module';
 import { SpecSheetsController } from './spec-sheets.controller';
 import { SpecSheetsService } from './spec-sheets.service';
 
@@ -15,6 +16,7 @@ import { SpecSheetsService } from './spec-sheets.service';
     BenchRunsModule,
     ProjectsModule,
     RevisionsModule,
+    SimulationsModule,
   ],
   controllers: [SpecSheetsController],
   providers: [SpecSheetsService],

@@ -3,7 +3,7 @@ import { InjectModel } from '@nestjs/sequelize';
 import type { CurrentUser } from '@ladderwright/shared/api';
 import { canInProject } from '@ladderwright/shared/auth';
 import { DomainError } from '@ladderwright/shared/errors';
-import { type DesignReport, ladderInputOf, resolveDrive } from '@ladderwright/shared/analysis';
+import { type DesignReport, headlineSource, ladderInputOf, resolveDrive } from '@ladderwright/shared/analysis';
 import type { Design } from '@ladderwright/shared/designs';
 import { type AcceptanceLimits, type AcceptanceSettings, acceptanceLimits } from '@ladderwright/shared/reviews';
 import { toleranceSpread } from '@ladderwright/shared/sizing';
@@ -12,6 +12,7 @@ import type { ProjectMembership } from '../common/request.types';
 import { ProjectModel } from '../projects/project.model';
 import { ProjectsService } from '../projects/projects.service';
 import { SignOffService } from '../reviews/sign-off.service';
+import { CurrentSimulationService } from '../simulations/current-simulation.service';
 import { RevisionLookupService } from '../revisions/revision-lookup.service';
 import type { RevisionRef } from '../revisions/revision-ref.decorator';
 import { fileStem } from '../revisions/revision-shapes';
@@ -96,6 +97,7 @@ export class SpecSheetsService {
     private readonly lookup: RevisionLookupService,
     private readonly signOff: SignOffService,
     private readonly benchRuns: BenchRunsService,
+    private readonly currentSimulation: CurrentSimulationService,
   ) {}
 
   async render(input: {
@@ -116,11 +118,12 @@ export class SpecSheetsService {
           : `Only an engineer or a lead exports a draft spec sheet (you are ${membership.role})`,
       );
     }
-    const [signOff, project, settings, benchRuns] = await Promise.all([
+    const [signOff, project, settings, benchRuns, simulated] = await Promise.all([
       this.signOff.get(ref, user, membership),
       this.projects.findByPk(ref.projectId),
       this.projectsService.settings(ref.projectId),
       this.benchRuns.listForRevisionWithPoints(revision.designId, revision.number),
+      this.currentSimulation.find(revision.designId, revision.number, revision.document, revision.engineVersion),
     ]);
     const report = revision.report as unknown as DesignReport;
     const document = revision.document;
@@ -138,6 +141,7 @@ export class SpecSheetsService {
       engineVersion: revision.engineVersion,
       document,
       report,
+      headline: headlineSource(report, simulated.simulation, document.targets),
       winding: windingOf({ document, report }),
       acceptance: acceptanceOf(document, report, settings.acceptance),
       overrides: signOff.overrides,

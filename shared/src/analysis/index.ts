@@ -1,2 +1,10 @@
 export { analyzeDesign, analyzeLadderReport, evaluateChecks, resolveDrive, ladderInputOf } from './analyze-design';
 export type { DesignReport, LadderReport, LadderReportOptions } from './analyze-design';
+export { headlineSource, LADDER_ESTIMATE_TOLERANCE, STORED_SIMULATION_METHOD } from './simulated-figures';
+export type {
+  ComparedFigure,
+  FigureDifference,
+  FigureSource,
+  HeadlineSource,
+  SimulatedFigures,
+} from './simulated-figures';

@@ -59,6 +59,7 @@ export type {
 export type {
   PartKind,
   Part,
+  PartMagnetics,
   PartInput,
   CreatePartRequest,
   UpdatePartRequest,
@@ -79,6 +80,7 @@ export type {
   SimulationResult,
   SimulationJobError,
   SimulationJob,
+  CurrentSimulationResponse,
 } from './simulations.types';
 export { AUDIT_ACTIONS, MAIL_KINDS } from './admin.types';
 export type {

@@ -1,7 +1,37 @@
 import type { FieldIssue } from '../errors';
 
-/** What sits on the Parts shelf. A transformer core is `core`. */
-export type PartKind = 'capacitor' | 'diode' | 'resistor' | 'transistor' | 'core';
+/** What sits on the Parts shelf. A transformer core is `core`; magnet wire `wire`; insulation tape `tape`. */
+export type PartKind = 'capacitor' | 'diode' | 'resistor' | 'transistor' | 'core' | 'wire' | 'tape';
+
+/**
+ * The magnetics fields of a shelf part, SI units, null where the kind does not use them.
+ * - core (with its bobbin): effective area Ae, path length le, volume Ve, winding window area and the bobbin's
+ *   winding breadth and height, mean length per turn, saturation flux density of the material at 25 and 100 °C,
+ *   Steinmetz coefficients of the material (Pv in W/m³ = k · f^α · B^β, f in Hz, B peak in T).
+ * - wire: copper diameter, diameter over the enamel, enamel grade (IEC 60317: 1, 2 or 3), breakdown voltage
+ *   between two twisted wires.
+ * - tape: thickness and dielectric strength.
+ */
+export interface PartMagnetics {
+  coreAreaM2: number | null;
+  corePathLengthM: number | null;
+  coreVolumeM3: number | null;
+  windowAreaM2: number | null;
+  bobbinBreadthM: number | null;
+  bobbinHeightM: number | null;
+  meanTurnLengthM: number | null;
+  saturationFluxDensity25T: number | null;
+  saturationFluxDensity100T: number | null;
+  steinmetzK: number | null;
+  steinmetzAlpha: number | null;
+  steinmetzBeta: number | null;
+  copperDiameterM: number | null;
+  overallDiameterM: number | null;
+  enamelGrade: number | null;
+  breakdownVoltageV: number | null;
+  thicknessM: number | null;
+  dielectricStrengthVPerM: number | null;
+}
 
 /**
  * One shelf part, SI units. Which ratings apply depends on `kind`:
@@ -9,10 +39,12 @@ export type PartKind = 'capacitor' | 'diode' | 'resistor' | 'transistor' | 'core
  * - diode: ratedVoltageV = PIV, ratedCurrentA = average forward current, ratedSurgeCurrentA = surge.
  * - resistor: valueSi = resistance (Ω), ratedPowerW, ratedVoltageV = limiting element voltage.
  * - transistor: ratedVoltageV = collector-emitter voltage, ratedCurrentA = collector current, ratedPowerW.
- * - core: valueSi = inductance factor AL (H per turn²), ratedVoltageV = winding insulation (hipot) rating.
+ * - core: valueSi = ungapped inductance factor AL (H per turn²), tolerance = of AL, ratedVoltageV = the bobbin's
+ *   insulation (hipot) rating; the core's geometry and material in the `PartMagnetics` fields.
+ * - wire, tape: the `PartMagnetics` fields only; unitCost is per metre.
  * `unitCost` is a plain number in the team's currency; `sizeMm` is the body size, e.g. `18x8x14`.
  */
-export interface Part {
+export interface Part extends PartMagnetics {
   id: string;
   projectId: string;
   code: string;
@@ -45,6 +77,7 @@ export type PartInput = Pick<
   | 'ratedPowerW'
   | 'unitCost'
   | 'sizeMm'
+  | keyof PartMagnetics
 >;
 
 export type CreatePartRequest = PartInput;

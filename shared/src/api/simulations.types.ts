@@ -1,3 +1,4 @@
+import type { SimulatedFigures } from '../analysis';
 import type { Design } from '../designs';
 
 /**
@@ -55,6 +56,8 @@ export interface WaveformTrace {
 
 /** Headline figures of a run; a figure the kind does not compute is null. */
 export interface SimulationSummary {
+  /** The engine version that ran it (absent in runs stored before it was recorded). */
+  engineVersion?: string;
   outputMeanV: number | null;
   ripplePeakToPeakV: number | null;
   timeToSteadyStateS: number | null;
@@ -101,4 +104,14 @@ export interface SimulationJob {
   finishedAt: string | null;
   error?: SimulationJobError;
   result?: SimulationResult;
+}
+
+/**
+ * GET /api/projects/:projectId/designs/:designId/revisions/:revisionNumber/simulated-figures answer: the newest
+ * succeeded full simulation of the revision that is current (same document, same engine version as its report),
+ * or null. Headline figures, Checks and the spec sheet use it in place of the estimate where it exists.
+ */
+export interface CurrentSimulationResponse {
+  simulation: SimulatedFigures | null;
+  jobId: string | null;
 }

@@ -58,6 +58,30 @@ export const designLimits = {
   maxPeukertExponent: 2,
   /** Battery life target (ten years). */
   maxBatteryLifeH: 87_600,
+  /** Core cross-section or window area (100 cm², a large ferrite E core is a few cm²). */
+  maxCoreAreaM2: 1e-2,
+  /** Core path length, bobbin breadth and height, turn length, margins (1 m). */
+  maxCoreLengthM: 1,
+  /** Core volume (1 litre). */
+  maxCoreVolumeM3: 1e-3,
+  /** Flux density: no soft magnetic material saturates above about 2.5 T (common practice, no source). */
+  maxFluxDensityT: 3,
+  /** Steinmetz k in W/m³ (f in Hz, B in T); fitted values span many decades. */
+  maxSteinmetzK: 1e6,
+  /** Winding wire diameter (5 mm, past any wire a small transformer uses). */
+  maxWireDiameterM: 5e-3,
+  /** One wrap of insulating tape (1 mm). */
+  maxTapeThicknessM: 1e-3,
+  /** Dielectric strength of an insulating film (1000 kV/mm, past any polymer film). */
+  maxDielectricStrengthVPerM: 1e9,
+  /** Air gap in the magnetic path (10 mm). */
+  maxGapM: 1e-2,
+  /** Layers of one winding. */
+  maxWindingLayers: 1000,
+  /** Wraps of tape between two layers or windings. */
+  maxTapeWraps: 20,
+  /** Pins of one bobbin. */
+  maxPins: 64,
   /** Text lengths, in UTF-16 code units. */
   maxNameLength: 200,
   maxNotesLength: 20_000,

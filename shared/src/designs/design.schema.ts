@@ -1,6 +1,7 @@
 import { Type } from '@sinclair/typebox';
 import { designLimits as L } from './design-limits';
 import { driverStageSchema, partCodeSchema } from './driver-stage.schema';
+import { coreKindSchema, tapeKindSchema, transformerSectionSchema, wireKindSchema } from './transformer-section.schema';
 import { closedObject, count, fraction, nonNegative, positive, text, withDefinitions } from './schema-builders';
 
 /**
@@ -175,6 +176,10 @@ export const designDocumentSchema = {
     pulseDrive: pulseDriveSchema,
     driverDrive: driverDriveSchema,
     driverStage: driverStageSchema,
+    transformerSection: transformerSectionSchema,
+    coreKind: coreKindSchema,
+    wireKind: wireKindSchema,
+    tapeKind: tapeKindSchema,
     capacitor: capacitorPartSchema,
     diode: diodePartSchema,
     multiplier: multiplierSpecSchema,

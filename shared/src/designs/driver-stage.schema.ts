@@ -1,6 +1,7 @@
 import { Type } from '@sinclair/typebox';
 import { designLimits as L } from './design-limits';
 import { between, closedObject, count, fraction, nonNegative, positive, text } from './schema-builders';
+import { transformerChoiceSchema, transformerSectionSchema } from './transformer-section.schema';
 
 /**
  * The driver stage inside a design document: a battery- or DC-fed blocking oscillator with a feedback
@@ -160,6 +161,8 @@ export const driverClampSchema = Type.Union(
 export const driverStageSchema = closedObject({
   supply: driverSupplySchema,
   transformer: driverTransformerSchema,
+  transformerChoice: Type.Optional(transformerChoiceSchema),
+  transformerDesign: Type.Optional(transformerSectionSchema),
   transistor: driverTransistorSchema,
   baseResistorOhm: positive(L.maxResistanceOhm),
   collectorResistorOhm: Type.Optional(

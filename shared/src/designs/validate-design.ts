@@ -39,7 +39,43 @@ function crossFieldIssues(doc: Json): FieldIssue[] {
       });
     }
   }
+  if (drive.kind === 'driver') issues.push(...transformerSectionIssues(objectAt(drive.driver)));
   if (objectAt(doc.targets).outputV === 0) issues.push({ path: 'targets.outputV', message: 'must not be zero' });
+  return issues;
+}
+
+/** A designed transformer needs its section; the section has each winding once, distinct pins, wire within its enamel. */
+function transformerSectionIssues(driver: Json): FieldIssue[] {
+  const issues: FieldIssue[] = [];
+  const base = 'drive.driver';
+  if (driver.transformerChoice === 'designed' && driver.transformerDesign === undefined) {
+    issues.push({
+      path: `${base}.transformerDesign`,
+      message: "a 'designed' transformer needs its transformer section",
+    });
+  }
+  const windings = objectAt(driver.transformerDesign).windings;
+  if (!Array.isArray(windings)) return issues;
+  const roles = new Set<unknown>();
+  const pins = new Set<unknown>();
+  windings.forEach((item, i) => {
+    const winding = objectAt(item);
+    const path = `${base}.transformerDesign.windings[${i}]`;
+    if (roles.has(winding.role))
+      issues.push({ path: `${path}.role`, message: `${String(winding.role)} appears twice` });
+    roles.add(winding.role);
+    for (const key of ['startPin', 'endPin'] as const) {
+      const pin = winding[key];
+      if (typeof pin !== 'number') continue;
+      if (pins.has(pin)) issues.push({ path: `${path}.${key}`, message: `pin ${pin} is used twice` });
+      pins.add(pin);
+    }
+    const wire = objectAt(winding.wire);
+    if (typeof wire.copperDiameterM === 'number' && typeof wire.overallDiameterM === 'number') {
+      if (wire.overallDiameterM < wire.copperDiameterM)
+        issues.push({ path: `${path}.wire.overallDiameterM`, message: 'must be at least the copper diameter' });
+    }
+  });
   return issues;
 }
 

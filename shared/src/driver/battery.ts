@@ -66,8 +66,10 @@ export function cellRateModelOf(supply: CellsSupply): CellRateModel {
 
 /** Internal resistance of one cell (Ω) at a state of charge: R_full·(1 + m·(1 − σ)^p) (see CellRateModel). */
 export function cellInternalResistanceOhm(supply: CellsSupply, chargeFraction: number): number {
-  const m = cellRateModelOf(supply);
   const depth = Math.min(1, Math.max(0, 1 - chargeFraction));
+  // A full cell (the driver's every solve) needs no rate model: the rise term is zero.
+  if (depth === 0) return supply.internalResistanceOhm;
+  const m = cellRateModelOf(supply);
   return supply.internalResistanceOhm * (1 + m.resistanceRiseAtEmpty * depth ** m.resistanceRisePower);
 }
 
@@ -81,13 +83,25 @@ export function peukertEquivalentCurrentA(supply: CellsSupply, currentA: number)
   return currentA > ratedA ? currentA * (currentA / ratedA) ** (m.peukertExponent - 1) : currentA;
 }
 
+/** Sorted and checked curves by the array they came from: the driver's solves ask for the supply thousands of times. */
+const checkedCurves = new WeakMap<readonly CellCurvePoint[], CellCurvePoint[]>();
+
+function checkedCurveOf(supply: CellsSupply): CellCurvePoint[] {
+  const raw = supply.curve ?? (supply.chemistry === 'custom' ? undefined : defaultCellCurves[supply.chemistry]);
+  const cached = raw && checkedCurves.get(raw);
+  if (cached) return cached;
+  const curve = cellCurveOf(supply);
+  if (raw) checkedCurves.set(raw, curve);
+  return curve;
+}
+
 /** Open-circuit voltage (V) and series resistance (Ω) of the whole supply at a state of charge (cells) . */
 export function supplyThevenin(
   supply: DriverSupply,
   chargeFraction = 1,
 ): { openCircuitV: number; resistanceOhm: number } {
   if (supply.kind === 'dc') return { openCircuitV: supply.voltageV, resistanceOhm: supply.sourceResistanceOhm };
-  const curve = cellCurveOf(supply);
+  const curve = checkedCurveOf(supply);
   return {
     openCircuitV: supply.cellsInSeries * cellOpenCircuitVoltageV(curve, chargeFraction),
     resistanceOhm: supply.cellsInSeries * cellInternalResistanceOhm(supply, chargeFraction),
@@ -146,14 +160,14 @@ export function batteryLife(supply: CellsSupply, currentAtTerminalV: (terminalV:
     throw new DomainError('invalid_design', 'at least one cell', 'driver.supply.cellsInSeries');
   const curve = cellCurveOf(supply);
   const n = supply.cellsInSeries;
-  const cellResistance = (sigma: number) => cellInternalResistanceOhm(supply, sigma);
   const currentAt = (sigma: number): { currentA: number; cellV: number } => {
     const voc = cellOpenCircuitVoltageV(curve, sigma);
+    const resistanceOhm = cellInternalResistanceOhm(supply, sigma);
     let cellV = voc;
     let currentA = 0;
     for (let k = 0; k < 60; k++) {
       currentA = Math.max(0, currentAtTerminalV(n * cellV));
-      const next = voc - currentA * cellResistance(sigma);
+      const next = voc - currentA * resistanceOhm;
       if (Math.abs(next - cellV) < 1e-9) {
         cellV = next;
         break;

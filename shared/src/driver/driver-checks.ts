@@ -6,7 +6,8 @@ import {
   type BlockingOscillatorEstimate,
 } from './blocking-oscillator';
 import type { DriverStage } from '../designs/driver-stage.types';
-import type { Estimated, MethodInfo } from '../methods';
+import type { Estimated } from '../methods';
+import { HIPOT_METHOD, hipotTestVoltageV as hipotTestVoltageOf } from '../safety/hipot';
 import { solveLoadPoint, supplyCurrentAt, type LadderLoadLine, type LoadPoint } from './operating-point';
 import { driverEnergy, type DriverEnergy } from './driver-energy';
 
@@ -27,6 +28,8 @@ export interface DriverChecksInput {
   /** The ladder the driver feeds; without it the stage is checked at its clamp limit with no load. */
   ladder?: LadderLoadLine;
   ratedLoadCurrentA?: number;
+  /** The rated load point already solved with this ladder and load (`solveLoadPoint`), so it is not solved again. */
+  ratedLoad?: LoadPoint & { driver: BlockingOscillatorEstimate };
   /** Overrides the stage's own `batteryLifeTargetH`. */
   batteryLifeTargetS?: number;
 }
@@ -77,16 +80,6 @@ function lowerLimit(
   return { id, subject, rule, verdict, marginPct: ((value - limit) / limit) * 100, value, limit, unit };
 }
 
-const hipotMethod: MethodInfo = {
-  methodId: 'insulation.hipot-2u-plus-1000',
-  summary: 'Hipot test voltage 2·U + 1000 V, U the peak working voltage across the secondary-to-primary insulation.',
-  assumptions: [
-    'basic insulation',
-    'U taken as the larger of the forward and flyback secondary peaks (one end of the secondary at ground)',
-  ],
-  source: 'common practice, no source',
-};
-
 /**
  * Supply current (A) of the driver at the rated load as a function of the supply terminal voltage (V),
  * tabulated on a voltage grid and interpolated linearly (the full solve at each integration point would be slow).
@@ -132,7 +125,7 @@ function supplyCurrentTable(
 export function runDriverChecks(driver: DriverStage, input: DriverChecksInput = {}): DriverChecksResult {
   const loadA = input.ratedLoadCurrentA ?? 0;
   const estimate = estimateBlockingOscillator(driver);
-  const solved = input.ladder ? solveLoadPoint(driver, input.ladder, loadA) : null;
+  const solved = input.ladder ? (input.ratedLoad ?? solveLoadPoint(driver, input.ladder, loadA)) : null;
   const atLoad = solved?.driver ?? estimate;
   const ratedLoad = solved;
   const q = driver.transistor;
@@ -227,7 +220,7 @@ export function runDriverChecks(driver: DriverStage, input: DriverChecksInput = 
 
   const tx = driver.transformer;
   const windingPeakV = Math.max(atLoad.forwardSecondaryPeakV.value, atLoad.flybackSecondaryPeakV.value);
-  const hipotTestVoltageV: Estimated = { value: 2 * windingPeakV + 1000, method: hipotMethod };
+  const hipotTestVoltageV: Estimated = { value: hipotTestVoltageOf(windingPeakV), method: HIPOT_METHOD };
   if (tx.insulation) {
     verdicts.push(
       upperLimit(

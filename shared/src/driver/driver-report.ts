@@ -148,7 +148,7 @@ function figuresOf(e: BlockingOscillatorEstimate): DriverFigures {
  */
 export function driverReport(driver: DriverStage, ladder: LadderLoadLine, ratedLoadCurrentA: number): DriverReport {
   const op = driverOperatingPoint(driver, ladder, ratedLoadCurrentA);
-  const checks = runDriverChecks(driver, { ladder, ratedLoadCurrentA });
+  const checks = runDriverChecks(driver, { ladder, ratedLoadCurrentA, ratedLoad: op.ratedLoad });
   const { driver: atLoad, ...ratedLoad } = op.ratedLoad;
   const limit = checks.estimate;
   const supply = driver.supply;

@@ -2,7 +2,7 @@ import type { PulseDrive } from '../designs/design.types';
 import { DomainError } from '../errors';
 import { prepareLadder, terminalMeanAt, type PreparedLadder } from '../multiplier/analyze-ladder';
 import { bracketedRoot } from '../multiplier/bracketed-root';
-import { withDrive } from '../multiplier/with-drive';
+import { withDriveTiming } from '../multiplier/with-drive';
 import type { LadderInput } from '../multiplier/ladder.types';
 import {
   blockingOscillatorNumbers,
@@ -89,7 +89,7 @@ export function engineLadderLoadLine(input: LadderInput): LadderLoadLine {
   const topAt = (drive: LadderDrive, ladderCurrentA: number) => {
     const pulse = pulseDriveOf(drive, sourceOhm);
     bare = bare
-      ? withDrive(bare, pulse)
+      ? withDriveTiming(bare, pulse)
       : prepareLadder({ ...input, load: null, bleederOhm: null, seriesOutputResistanceOhm: 0, drive: pulse });
     return terminalMeanAt(bare, ladderCurrentA);
   };
@@ -97,7 +97,7 @@ export function engineLadderLoadLine(input: LadderInput): LadderLoadLine {
     network: { bleederOhm: input.bleederOhm, seriesOutputResistanceOhm: seriesOhm },
     at(drive, loadCurrentA) {
       const pulse = pulseDriveOf(drive, sourceOhm);
-      loaded = loaded ? withDrive(loaded, pulse) : prepareLadder({ ...input, load: null, drive: pulse });
+      loaded = loaded ? withDriveTiming(loaded, pulse) : prepareLadder({ ...input, load: null, drive: pulse });
       const outputV = terminalMeanAt(loaded, loadCurrentA);
       const topV = Math.max(0, outputV + loadCurrentA * seriesOhm);
       const bleederA = input.bleederOhm ? topV / input.bleederOhm : 0;
@@ -211,8 +211,8 @@ interface SolvedPoint {
 
 /**
  * The load point as numbers. `limit` is the stage at its clamp limit with no forward load (the same for every
- * load current of one driver), passed in by callers that solve many loads; `flybackGuessV` warm-starts the
- * power balance from a nearby load's flyback.
+ * load current of one driver), passed in by callers that solve many loads; `flybackGuessV`, a nearby load's
+ * flyback, starts the scan for the power balance's bracket there instead of at the limit.
  */
 function solvePoint(
   driver: DriverStage,
@@ -220,6 +220,7 @@ function solvePoint(
   loadCurrentA: number,
   options: BlockingOscillatorOptions,
   limit: OscillatorNumbers = blockingOscillatorNumbers(driver, options),
+  flybackGuessV?: number,
 ): SolvedPoint {
   if (!(loadCurrentA >= 0)) throw new DomainError('invalid_argument', 'load current must be ≥ 0', 'loadCurrentA');
   const maxFlyV = limit.maxFlybackSecV;
@@ -254,20 +255,45 @@ function solvePoint(
   if (surplusAtLimit < 0) {
     limitedBy = 'power';
     const scanPoints = 48;
+    const gridV = (k: number) => maxFlyV * 10 ** ((-6 * k) / scanPoints);
     let hi = maxFlyV;
     let surplusHi = surplusAtLimit;
     let lo: number | null = null;
     let surplusLo = 0;
-    for (let k = 1; k <= scanPoints; k++) {
-      const v = maxFlyV * 10 ** ((-6 * k) / scanPoints);
-      const s = surplus(v);
-      if (s >= 0) {
-        lo = v;
+    // From a nearby load's flyback: the grid point below it and, while the surplus there is positive, the
+    // points above, to the first negative one. With at most two roots the surplus is positive on one run of
+    // the grid only, so this is the bracket the scan from the limit finds; else the scan runs.
+    const guessK =
+      flybackGuessV !== undefined && flybackGuessV > 0 && flybackGuessV < maxFlyV
+        ? Math.min(scanPoints, Math.ceil((Math.log10(maxFlyV / flybackGuessV) * scanPoints) / 6))
+        : 0;
+    const surplusAtGuess = guessK > 0 ? surplus(gridV(guessK)) : -1;
+    if (surplusAtGuess >= 0) {
+      let k = guessK;
+      lo = gridV(k);
+      surplusLo = surplusAtGuess;
+      for (; k > 1; k--) {
+        const s = surplus(gridV(k - 1));
+        if (s < 0) {
+          hi = gridV(k - 1);
+          surplusHi = s;
+          break;
+        }
+        lo = gridV(k - 1);
         surplusLo = s;
-        break;
       }
-      hi = v;
-      surplusHi = s;
+    } else {
+      for (let k = 1; k <= scanPoints; k++) {
+        const v = gridV(k);
+        const s = surplus(v);
+        if (s >= 0) {
+          lo = v;
+          surplusLo = s;
+          break;
+        }
+        hi = v;
+        surplusHi = s;
+      }
     }
     if (lo === null) {
       flyV = maxFlyV * 1e-6; // the driver cannot push the ladder's charge at any flyback: output collapses
@@ -328,6 +354,42 @@ export function supplyCurrentAt(
 }
 
 /**
+ * Whether the output is above zero at a load current (A), for the bisection that ends the curve, answered
+ * without a solve wherever a solved load settles it: the output falls as the load rises, so it is positive
+ * below a load where it is positive and zero above one where it is zero. A few secant steps on the output
+ * from `positive` (the highest load solved with output, or null) towards `zeroA` (a load without) first
+ * close in on the crossing, so that the bisection solves only the one or two midpoints next to it; its
+ * answers are those of solving at every midpoint.
+ */
+function outputSignsNear(
+  pointAt: (loadA: number) => LoadPoint,
+  positive: { loadA: number; outputV: number } | null,
+  zeroA: number,
+): (loadA: number) => boolean {
+  let below = positive ?? { loadA: 0, outputV: NaN };
+  let previous: { loadA: number; outputV: number } | null = null;
+  let above = zeroA;
+  for (let step = 0; step < 6 && above - below.loadA > 1e-5 * above; step += 1) {
+    // The line through the last two loads with output, else halfway; aimed a little past the crossing
+    // on alternate steps so that both sides close in.
+    const slope = previous ? (below.outputV - previous.outputV) / (below.loadA - previous.loadA) : NaN;
+    let guessA = slope < 0 ? below.loadA - below.outputV / slope : 0.5 * (below.loadA + above);
+    guessA *= step % 2 === 0 ? 1 + 2e-6 : 1 - 2e-6;
+    if (!(guessA > below.loadA && guessA < above)) guessA = 0.5 * (below.loadA + above);
+    const outputV = pointAt(guessA).outputV;
+    if (outputV > 0) {
+      previous = below;
+      below = { loadA: guessA, outputV };
+    } else above = guessA;
+  }
+  return (loadA) => {
+    if (loadA <= below.loadA && below.loadA > 0) return true;
+    if (loadA >= above) return false;
+    return pointAt(loadA).outputV > 0;
+  };
+}
+
+/**
  * Operating point of the driver with the ladder: output at the rated external load current (A), the onset of
  * the power limit (A), and the output-vs-load curve (`points` samples, default 25) from no load to the current
  * at which the output reaches zero.
@@ -371,16 +433,24 @@ export function driverOperatingPoint(
   // End of the curve: where the output reaches zero; bracket by doubling from the onset, then 14 bisections
   // (6e-5 relative, below the curve's sampling).
   let hiA = Math.max(powerLimitOnsetA, 1e-9);
-  for (let k = 0; k < 60 && pointAt(hiA).outputV > 0; k++) hiA *= 2;
+  let lastOutput: { loadA: number; outputV: number } | null = null;
+  for (let k = 0; k < 60; k++) {
+    const outputV = pointAt(hiA).outputV;
+    if (!(outputV > 0)) break;
+    lastOutput = { loadA: hiA, outputV };
+    hiA *= 2;
+  }
+  const hasOutputAt = outputSignsNear(pointAt, lastOutput, hiA);
   let loA = 0;
   for (let k = 0; k < 14; k++) {
     const mid = 0.5 * (loA + hiA);
-    if (pointAt(mid).outputV > 0) loA = mid;
+    if (hasOutputAt(mid)) loA = mid;
     else hiA = mid;
   }
   const curve: LoadPoint[] = [];
   for (let i = 0; i < points; i++) {
-    curve.push(pointAt((hiA * i) / (points - 1)));
+    const loadA = (hiA * i) / (points - 1);
+    curve.push(solvePoint(driver, ladder, loadA, options, limitEst, curve[i - 1]?.flybackSecondaryPeakV).point);
   }
   return {
     ratedLoad: (() => {

@@ -67,6 +67,22 @@ export function terminalMeanAt(prepared: PreparedLadder, extraLoadA: number): nu
 }
 
 /**
+ * Mean output (signed by polarity) and ripple (peak to peak) at the operating point: the same figures as
+ * `analyzePrepared`, without the stress and node figures, for screening many candidates (the Sizer).
+ */
+export function operatingFigures(prepared: PreparedLadder): { outputMeanV: number; ripplePeakToPeakV: number } {
+  const { input, workspace: ws } = prepared;
+  const { conductanceS, constantA, seriesOhm } = outputLoad(input);
+  const { currentA, cycle } = solveOperatingPoint(ws, conductanceS, constantA);
+  const bleederA = input.bleederOhm ? Math.max(cycle.meanV, 0) / input.bleederOhm : 0;
+  const loadA = Math.max(currentA - bleederA, 0);
+  return {
+    outputMeanV: input.polarity * (cycle.meanV - loadA * seriesOhm),
+    ripplePeakToPeakV: cycle.maxV - cycle.minV,
+  };
+}
+
+/**
  * Steady-state analysis of a voltage-multiplier ladder of any cell count and capacitor values (SI in,
  * SI out, signed by polarity). Method: STEADY_STATE_METHOD (charge-transfer model, one pass up the
  * ladder); published closed forms reported beside it where they apply.

@@ -1,6 +1,6 @@
 import type { PulseDrive, SineDrive } from '../designs/design.types';
-import { plateauRates } from './plateau-rates';
-import { EVENT_H, EVENT_L } from './topologies';
+import { flatTopRates } from './plateau-rates';
+import { EVENT_H } from './topologies';
 
 /** The H event as a module constant: read in every solve's inner loops (no binding lookup per read). */
 const H = EVENT_H;
@@ -179,9 +179,9 @@ export function createWorkspace(net: LadderNetwork, input: LadderInput): Workspa
   ws.nodeRateH = ws.nodeLoadRate;
   ws.nodeRateL = ws.nodeLoadRate;
   if (!timing.isSine) {
-    const h = plateauRates(net, ws.loadRate, EVENT_H);
-    const l = plateauRates(net, ws.loadRate, EVENT_L);
-    if (h && l) {
+    const rates = flatTopRates(net, ws.loadRate);
+    if (rates) {
+      const { h, l } = rates;
       ws.rateH = h.capRate;
       ws.nodeRateH = h.nodeRate;
       ws.rateL = l.capRate;
@@ -257,39 +257,41 @@ export function solveCycle(ws: Workspace, currentA: number): SolvedCycle {
     ws.nodeB[a] = -scale * timing.lowV * lossL.lossScale;
   }
   const m = net.capF.length;
+  // The arrays and per-solve factors in locals: this loop is the engine's innermost.
+  const { capDiode, capTop, capBottom, diodeAnode, diodeCathode, diodeEvent } = net;
+  const { rateH, deltaL, deltaLPlateau, strayDelta, nodeA, nodeB, stateA, stateB } = ws;
+  const fallPerRateH = currentA * timing.afterHS;
+  const plateauPerDeltaL = currentA * timing.afterLS;
+  const swingV = timing.highV + timing.lowV;
+  const dropH = lossH.forwardDropV;
+  const dropL = lossL.forwardDropV;
   for (let c = 0; c < m; c += 1) {
-    const d = net.capDiode[c] as number;
-    const top = net.capTop[c] as number;
-    const bottom = net.capBottom[c] as number;
-    const anode = net.diodeAnode[d] as number;
-    const cathode = net.diodeCathode[d] as number;
+    const d = capDiode[c] as number;
+    const top = capTop[c] as number;
+    const bottom = capBottom[c] as number;
+    const anode = diodeAnode[d] as number;
+    const cathode = diodeCathode[d] as number;
     // b − a over the H→L interval: load discharge plus the L charge transfer.
     const delta =
-      currentA * timing.afterHS * (ws.rateH[c] as number) +
-      q * (ws.deltaL[c] as number) -
-      currentA * timing.afterLS * (ws.deltaLPlateau[c] as number) +
-      (timing.highV + timing.lowV) * (ws.strayDelta[c] as number);
+      fallPerRateH * (rateH[c] as number) +
+      q * (deltaL[c] as number) -
+      plateauPerDeltaL * (deltaLPlateau[c] as number) +
+      swingV * (strayDelta[c] as number);
     let a: number;
     let b: number;
-    if (net.diodeEvent[d] === H) {
-      const topV =
-        top === cathode
-          ? (ws.nodeA[anode] as number) - lossH.forwardDropV
-          : (ws.nodeA[cathode] as number) + lossH.forwardDropV;
-      a = topV - (ws.nodeA[bottom] as number);
+    if (diodeEvent[d] === H) {
+      const topV = top === cathode ? (nodeA[anode] as number) - dropH : (nodeA[cathode] as number) + dropH;
+      a = topV - (nodeA[bottom] as number);
       b = a + delta;
     } else {
-      const topV =
-        top === cathode
-          ? (ws.nodeB[anode] as number) - lossL.forwardDropV
-          : (ws.nodeB[cathode] as number) + lossL.forwardDropV;
-      b = topV - (ws.nodeB[bottom] as number);
+      const topV = top === cathode ? (nodeB[anode] as number) - dropL : (nodeB[cathode] as number) + dropL;
+      b = topV - (nodeB[bottom] as number);
       a = b - delta;
     }
-    ws.stateA[c] = a;
-    ws.stateB[c] = b;
-    ws.nodeA[top] = (ws.nodeA[bottom] as number) + a;
-    ws.nodeB[top] = (ws.nodeB[bottom] as number) + b;
+    stateA[c] = a;
+    stateB[c] = b;
+    nodeA[top] = (nodeA[bottom] as number) + a;
+    nodeB[top] = (nodeB[bottom] as number) + b;
   }
   const afterHV = (ws.nodeA[net.outNode] as number) - (ws.nodeA[net.returnNode] as number);
   const afterLV = (ws.nodeB[net.outNode] as number) - (ws.nodeB[net.returnNode] as number);

@@ -18,6 +18,7 @@ export const STRESS_CHECK_IDS = {
   capacitorVoltage: (index: number): string => `cap-voltage-c${index}`,
   diodePiv: (index: number): string => `diode-piv-d${index}`,
   bleederVoltage: 'bleeder-voltage',
+  bleederPower: 'bleeder-power',
   /** The first resistor's check in reports stored by engines that checked each bleeder resistor. */
   bleederVoltageFirstResistor: 'bleeder-voltage-r1',
 } as const;
@@ -120,7 +121,7 @@ export function bleederStressChecks(
     ),
     deratedVerdict(
       {
-        id: 'bleeder-power',
+        id: STRESS_CHECK_IDS.bleederPower,
         subject,
         rule: ratingRule('dissipation of one resistor', DERATING.resistorPower),
         value: perResistorW,

@@ -1,4 +1,4 @@
-import type { LadderNetwork } from './topologies';
+import { EVENT_H, EVENT_L, type LadderNetwork } from './topologies';
 
 /** Capacitor and node voltage rates per ampere of load through a flat-top phase (V/s per A). */
 export interface PlateauRates {
@@ -32,24 +32,114 @@ export function plateauRates(net: LadderNetwork, loadRate: readonly number[], ev
       active += 1;
     }
   }
+  const scratch = createScratch(net);
   // As many rounds as diodes are still conducting, counted as they drop out (about half the set).
   for (let round = 0; active > 0 && round <= active; round += 1) {
-    const solved = solveShorted(net, conducting);
-    if (!solved) return null;
+    if (!solveShorted(net, conducting, scratch)) return null;
+    const diodeA = scratch.current;
     let worst = -1;
     for (let d = 0; d < conducting.length; d += 1) {
-      if (conducting[d] && (solved.diodeA[d] as number) < -1e-9) {
-        if (worst < 0 || (solved.diodeA[d] as number) < (solved.diodeA[worst] as number)) worst = d;
+      if (conducting[d] && (diodeA[d] as number) < -1e-9) {
+        if (worst < 0 || (diodeA[d] as number) < (diodeA[worst] as number)) worst = d;
       }
     }
     if (worst < 0) {
-      const diodeCapDelta = solved.capRate.map((rate, c) => rate - (loadRate[c] as number));
-      return { capRate: solved.capRate, nodeRate: solved.nodeRate, diodeCapDelta };
+      const m = net.capF.length;
+      const capRate = new Array<number>(m);
+      const diodeCapDelta = new Array<number>(m);
+      for (let c = 0; c < m; c += 1) {
+        capRate[c] = scratch.capRate[c] as number;
+        diodeCapDelta[c] = (scratch.capRate[c] as number) - (loadRate[c] as number);
+      }
+      return { capRate, nodeRate: Array.from(scratch.nodeRate), diodeCapDelta };
     }
     conducting[worst] = 0;
     active -= 1;
   }
   return null;
+}
+
+/** Flat-top rates of both phases of a network; null when either phase has none (instantaneous transfer then). */
+export interface FlatTopRates {
+  h: PlateauRates;
+  l: PlateauRates;
+}
+
+/** Networks remembered by `flatTopRates`: a stage scan visits a few dozen, and a Workbench edit of anything but the capacitors repeats them. */
+const FLAT_TOP_CACHE_SIZE = 256;
+const flatTopCache = new Map<string, { capF: Float64Array; rates: FlatTopRates | null }>();
+
+/** A key for a topology and its capacitor values: FNV-1a over the values' bits (equality is checked on a hit). */
+function networkKey(net: LadderNetwork, capF: Float64Array): string {
+  const words = new Uint32Array(capF.buffer);
+  let hash = 0x811c9dc5;
+  for (let i = 0; i < words.length; i += 1) hash = Math.imul(hash ^ (words[i] as number), 0x01000193);
+  return `${net.topology}:${capF.length}:${hash >>> 0}`;
+}
+
+/**
+ * `plateauRates` of the H and L phases together, as the charge-transfer model takes them: both or none.
+ * The L phase first, since without its rates the H phase's are not used. The rates depend only on the
+ * topology and the capacitor values (per ampere of load), so the last FLAT_TOP_CACHE_SIZE networks are
+ * remembered; the arrays returned are shared and must not be written.
+ */
+export function flatTopRates(net: LadderNetwork, loadRate: readonly number[]): FlatTopRates | null {
+  const capF = Float64Array.from(net.capF);
+  const key = networkKey(net, capF);
+  const cached = flatTopCache.get(key);
+  if (cached && cached.capF.length === capF.length && cached.capF.every((f, c) => f === capF[c])) {
+    flatTopCache.delete(key);
+    flatTopCache.set(key, cached);
+    return cached.rates;
+  }
+  const l = plateauRates(net, loadRate, EVENT_L);
+  const h = l ? plateauRates(net, loadRate, EVENT_H) : null;
+  const rates = h && l ? { h, l } : null;
+  flatTopCache.delete(key);
+  flatTopCache.set(key, { capF, rates });
+  if (flatTopCache.size > FLAT_TOP_CACHE_SIZE) flatTopCache.delete(flatTopCache.keys().next().value as string);
+  return rates;
+}
+
+/** Work arrays of one network, reused by every active-set round (a round allocates nothing). */
+interface Scratch {
+  parent: Int32Array;
+  index: Int32Array;
+  groupOf: Int32Array;
+  matrix: Float64Array;
+  injection: Float64Array;
+  x: Float64Array;
+  nodeRate: Float64Array;
+  capRate: Float64Array;
+  degree: Int32Array;
+  start: Int32Array;
+  fill: Int32Array;
+  incident: Int32Array;
+  current: Float64Array;
+  known: Uint8Array;
+  queue: Int32Array;
+}
+
+function createScratch(net: LadderNetwork): Scratch {
+  const nodes = net.nodeCount;
+  const diodes = net.diodeEvent.length;
+  return {
+    parent: new Int32Array(nodes),
+    index: new Int32Array(nodes),
+    groupOf: new Int32Array(nodes),
+    matrix: new Float64Array(nodes * 4),
+    injection: new Float64Array(nodes),
+    x: new Float64Array(nodes),
+    nodeRate: new Float64Array(nodes),
+    capRate: new Float64Array(net.capF.length),
+    degree: new Int32Array(nodes),
+    start: new Int32Array(nodes + 1),
+    fill: new Int32Array(nodes),
+    incident: new Int32Array(2 * diodes),
+    current: new Float64Array(diodes),
+    known: new Uint8Array(diodes),
+    queue: new Int32Array(nodes),
+  };
 }
 
 function find(parent: Int32Array, n: number): number {
@@ -63,14 +153,14 @@ function find(parent: Int32Array, n: number): number {
   return root;
 }
 
-/** Node and capacitor rates with the `conducting` diodes shorted, and each diode's current (per A of load). */
-function solveShorted(
-  net: LadderNetwork,
-  conducting: Uint8Array,
-): { capRate: number[]; nodeRate: number[]; diodeA: Float64Array } | null {
+/**
+ * Node and capacitor rates with the `conducting` diodes shorted (into `s.nodeRate`, `s.capRate`), and each
+ * diode's current (per A of load, into `s.current`); false when singular or undetermined.
+ */
+function solveShorted(net: LadderNetwork, conducting: Uint8Array, s: Scratch): boolean {
   const nodes = net.nodeCount;
   const anchors = net.anchorScale.length;
-  const parent = new Int32Array(nodes);
+  const { parent, index, groupOf } = s;
   for (let n = 0; n < nodes; n += 1) parent[n] = n;
   // Anchors share one group: the winding ends hold still through the phase.
   for (let n = 1; n < anchors; n += 1) parent[n] = 0;
@@ -81,8 +171,7 @@ function solveShorted(
     if (a !== b) parent[Math.max(a, b)] = Math.min(a, b);
   }
   // Unknowns: the groups not holding an anchor, numbered by their lowest node (up the ladder).
-  const index = new Int32Array(nodes).fill(-1);
-  const groupOf = new Int32Array(nodes);
+  index.fill(-1);
   let size = 0;
   for (let n = 0; n < nodes; n += 1) {
     const g = find(parent, n);
@@ -98,7 +187,9 @@ function solveShorted(
   }
   const w = band + 1;
   // Lower band of the symmetric matrix: entry (i, j ≤ i) at i·w + (i − j).
-  const matrix = new Float64Array(size * w);
+  if (s.matrix.length < size * w) s.matrix = new Float64Array(size * w);
+  const matrix = s.matrix;
+  matrix.fill(0, 0, size * w);
   for (let c = 0; c < m; c += 1) {
     const u = index[groupOf[net.capTop[c] as number] as number] as number;
     const v = index[groupOf[net.capBottom[c] as number] as number] as number;
@@ -112,21 +203,23 @@ function solveShorted(
     }
   }
   // One ampere out of the output node into the return node.
-  const injection = new Float64Array(nodes);
+  const injection = s.injection;
+  injection.fill(0);
   injection[net.outNode] = -1;
   injection[net.returnNode] = (injection[net.returnNode] as number) + 1;
-  const x = new Float64Array(size);
+  const x = s.x;
+  x.fill(0, 0, size);
   for (let n = 0; n < nodes; n += 1) {
     const i = index[groupOf[n] as number] as number;
     if (i >= 0) x[i] = (x[i] as number) + (injection[n] as number);
   }
-  if (!solveBandedSpd(matrix, x, size, band)) return null;
-  const nodeRate = new Array<number>(nodes);
+  if (!solveBandedSpd(matrix, x, size, band)) return false;
+  const nodeRate = s.nodeRate;
   for (let n = 0; n < nodes; n += 1) {
     const i = index[groupOf[n] as number] as number;
     nodeRate[n] = i >= 0 ? (x[i] as number) : 0;
   }
-  const capRate = new Array<number>(m);
+  const capRate = s.capRate;
   // What each node must pass through its conducting diodes: its injection less what its capacitors take.
   const excess = injection;
   for (let c = 0; c < m; c += 1) {
@@ -138,23 +231,24 @@ function solveShorted(
     excess[top] = (excess[top] as number) - currentA;
     excess[bottom] = (excess[bottom] as number) + currentA;
   }
-  const diodeA = diodeCurrents(net, conducting, excess, anchors);
-  return diodeA ? { capRate, nodeRate, diodeA } : null;
+  return diodeCurrents(net, conducting, excess, anchors, s);
 }
 
 /**
- * Currents of the conducting diodes (anode to cathode) from each node's excess, peeling chains of
- * diodes from their ends; a winding end takes any current, so it never ends a chain. Null when a diode
- * is left undetermined (a loop of conducting diodes).
+ * Currents of the conducting diodes (anode to cathode, into `s.current`) from each node's excess, peeling
+ * chains of diodes from their ends; a winding end takes any current, so it never ends a chain. False when
+ * a diode is left undetermined (a loop of conducting diodes).
  */
 function diodeCurrents(
   net: LadderNetwork,
   conducting: Uint8Array,
   excess: Float64Array,
   anchors: number,
-): Float64Array | null {
+  s: Scratch,
+): boolean {
   const nodes = net.nodeCount;
-  const degree = new Int32Array(nodes);
+  const { degree, start, fill, incident, current, known, queue } = s;
+  degree.fill(0);
   let open = 0;
   for (let d = 0; d < conducting.length; d += 1) {
     if (!conducting[d]) continue;
@@ -163,23 +257,23 @@ function diodeCurrents(
     open += 1;
   }
   // Conducting diodes at each node, as a flat adjacency list.
-  const start = new Int32Array(nodes + 1);
   for (let n = 0; n < nodes; n += 1) start[n + 1] = (start[n] as number) + (degree[n] as number);
-  const fill = start.slice(0, nodes);
-  const incident = new Int32Array(start[nodes] as number);
+  fill.set(start.subarray(0, nodes));
   for (let d = 0; d < conducting.length; d += 1) {
     if (!conducting[d]) continue;
-    for (const n of [net.diodeAnode[d] as number, net.diodeCathode[d] as number]) {
-      incident[fill[n] as number] = d;
-      fill[n] = (fill[n] as number) + 1;
-    }
+    const anode = net.diodeAnode[d] as number;
+    incident[fill[anode] as number] = d;
+    fill[anode] = (fill[anode] as number) + 1;
+    const cathode = net.diodeCathode[d] as number;
+    incident[fill[cathode] as number] = d;
+    fill[cathode] = (fill[cathode] as number) + 1;
   }
-  const current = new Float64Array(conducting.length);
-  const known = new Uint8Array(conducting.length);
-  const queue: number[] = [];
-  for (let n = anchors; n < nodes; n += 1) if (degree[n] === 1) queue.push(n);
-  while (queue.length > 0) {
-    const n = queue.pop() as number;
+  current.fill(0);
+  known.fill(0);
+  let queued = 0;
+  for (let n = anchors; n < nodes; n += 1) if (degree[n] === 1) queue[queued++] = n;
+  while (queued > 0) {
+    const n = queue[--queued] as number;
     if (degree[n] !== 1) continue;
     let d = -1;
     for (let k = start[n] as number; k < (start[n + 1] as number); k += 1) {
@@ -195,9 +289,9 @@ function diodeCurrents(
     const other = isAnode ? (net.diodeCathode[d] as number) : (net.diodeAnode[d] as number);
     excess[other] = (excess[other] as number) + (isAnode ? x : -x);
     degree[other] = (degree[other] as number) - 1;
-    if (other >= anchors && degree[other] === 1) queue.push(other);
+    if (other >= anchors && degree[other] === 1) queue[queued++] = other;
   }
-  return open === 0 ? current : null;
+  return open === 0;
 }
 
 /** Solves A·x = b in place for a symmetric positive definite band matrix (lower band, width `band`); false when not. */

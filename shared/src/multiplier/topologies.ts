@@ -269,7 +269,27 @@ function bridgeDoubler(capacitorsF: readonly number[]): LadderNetwork {
   return finish('bridge-doubler', 2, 1, [0, 1], b, 2, 3, [1, 1], nodeInfo);
 }
 
-/** Builds the network of a topology from capacitors in the MultiplierSpec order. */
+/**
+ * Networks by topology and capacitor count, built once: all but the capacitor values depends on those two
+ * alone, and the Sizer and the stage scan build thousands. Their arrays are shared and never written.
+ */
+const skeletons = new Map<string, LadderNetwork>();
+const SKELETON_CACHE_SIZE = 512;
+
+function skeletonOf(topology: Topology, capacitorsF: readonly number[]): LadderNetwork {
+  const key = `${topology}:${capacitorsF.length}`;
+  let net = skeletons.get(key);
+  if (!net) {
+    const units = new Array<number>(capacitorsF.length).fill(1);
+    net =
+      topology === 'half-wave' ? halfWave(units) : topology === 'full-wave' ? fullWave(units) : bridgeDoubler(units);
+    if (skeletons.size >= SKELETON_CACHE_SIZE) skeletons.clear();
+    skeletons.set(key, net);
+  }
+  return net;
+}
+
+/** Builds the network of a topology from capacitors in the MultiplierSpec order (capacitor c is `capF[c]`). */
 export function buildLadderNetwork(topology: Topology, capacitorsF: readonly number[]): LadderNetwork {
   if (capacitorsF.length === 0)
     throw new DomainError('invalid_argument', 'a ladder needs at least one capacitor', 'capacitorsF');
@@ -278,14 +298,10 @@ export function buildLadderNetwork(topology: Topology, capacitorsF: readonly num
       throw new DomainError('invalid_argument', 'capacitance must be positive', `capacitorsF[${i}]`);
     }
   });
-  if (topology === 'half-wave') return halfWave(capacitorsF);
-  if (topology === 'full-wave') {
-    if (capacitorsF.length % 3 !== 0) {
-      throw new DomainError('invalid_argument', 'a full-wave cascade needs three capacitors per stage', 'capacitorsF');
-    }
-    return fullWave(capacitorsF);
+  if (topology === 'full-wave' && capacitorsF.length % 3 !== 0) {
+    throw new DomainError('invalid_argument', 'a full-wave cascade needs three capacitors per stage', 'capacitorsF');
   }
-  if (capacitorsF.length !== 2)
+  if (topology === 'bridge-doubler' && capacitorsF.length !== 2)
     throw new DomainError('invalid_argument', 'a bridge doubler has two capacitors', 'capacitorsF');
-  return bridgeDoubler(capacitorsF);
+  return { ...skeletonOf(topology, capacitorsF), capF: capacitorsF.slice() };
 }

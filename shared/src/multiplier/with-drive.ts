@@ -10,11 +10,20 @@ import { driveTiming } from './charge-transfer-model';
  * The work arrays are shared: use one at a time.
  */
 export function withDrive(prepared: PreparedLadder, drive: SineDrive | PulseDrive): PreparedLadder {
-  const input = { ...prepared.input, drive };
+  const redriven = withDriveTiming(prepared, drive);
+  return redriven === prepared ? { input: { ...prepared.input, drive }, workspace: prepared.workspace } : redriven;
+}
+
+/**
+ * `withDrive` for callers that read only the solved output (`terminalMeanAt`), thousands of times in the
+ * driver's operating point: the same object back with the workspace's timing replaced, its `input` still
+ * naming the drive it was prepared with. Another kind or a drive out of range is prepared afresh, as there.
+ */
+export function withDriveTiming(prepared: PreparedLadder, drive: SineDrive | PulseDrive): PreparedLadder {
   const isSameKind = (drive.kind === 'sine') === prepared.workspace.timing.isSine;
   const isInRange =
     drive.frequencyHz > 0 && (drive.kind === 'sine' ? drive.peakV > 0 : drive.dutyCycle > 0 && drive.dutyCycle < 1);
-  if (!isSameKind || !isInRange) return prepareLadder(input);
-  prepared.workspace.timing = driveTiming(drive, input.polarity);
-  return { input, workspace: prepared.workspace };
+  if (!isSameKind || !isInRange) return prepareLadder({ ...prepared.input, drive });
+  prepared.workspace.timing = driveTiming(drive, prepared.input.polarity);
+  return prepared;
 }

@@ -1,5 +1,6 @@
 export {
   normalizePart,
+  partFieldsFor,
   PART_KINDS,
   PART_FIELDS,
   REQUIRED_PART_FIELDS,
@@ -7,6 +8,15 @@ export {
   PART_DESCRIPTION_MAX_LENGTH,
 } from './validate-part';
 export type { PartField } from './validate-part';
+export {
+  KIND_MAGNETICS,
+  MAGNETICS_FIELDS,
+  MAGNETICS_FIELD_SPECS,
+  parseMagneticsValue,
+  magneticsValueIssue,
+  magneticsOf,
+} from './part-magnetics';
+export type { MagneticsField } from './part-magnetics';
 export { csvCellNeedsQuotes, neutraliseCsvCell } from './csv-cell';
 export { fillPartRatings, partReferences } from './fill-part-ratings';
 export type { ShelfPart } from './fill-part-ratings';

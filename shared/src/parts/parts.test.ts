@@ -90,7 +90,7 @@ describe('normalizePart', () => {
     const { issues } = normalizePart({ code: 'NF-X1-1', kind: 'inductor', unitCost: 1, colour: 'red' });
     expect(issues.map((issue) => issue.message)).toEqual([
       'colour is not a part field that can be written here',
-      "kind must be one of capacitor, diode, resistor, transistor, core (got 'inductor')",
+      "kind must be one of capacitor, diode, resistor, transistor, core, wire, tape (got 'inductor')",
     ]);
   });
 
@@ -108,6 +108,96 @@ describe('normalizePart', () => {
     expect(normalizePart({ ratedPowerW: null }, { partial: true, base }).issues[0]?.message).toBe(
       'ratedPowerW is required for a resistor',
     );
+  });
+});
+
+describe('normalizePart: cores, wires and tapes', () => {
+  const core = {
+    code: 'NF-KP18-M1',
+    kind: 'core',
+    valueSi: '4µ',
+    unitCost: 0.85,
+    coreAreaM2: '43.3 mm²',
+    corePathLengthM: '26 mm',
+    coreVolumeM3: '1120 mm3',
+    windowAreaM2: '15.8mm^2',
+    bobbinBreadthM: '7.2 mm',
+    bobbinHeightM: '2.2 mm',
+    meanTurnLengthM: '37 mm',
+    saturationFluxDensity25T: '490 mT',
+    saturationFluxDensity100T: '0.39 T',
+    steinmetzK: '2.5',
+    steinmetzAlpha: 1.4,
+    steinmetzBeta: 2.5,
+  };
+
+  it('reads areas, volumes, lengths and flux densities as datasheets write them, into SI', () => {
+    const { part, issues } = normalizePart(core);
+    expect(issues).toEqual([]);
+    // Unit conversions (1 mm² = 1e-6 m², 1 mm³ = 1e-9 m³, 1 mT = 1e-3 T): SI definitions; 15 figures kept.
+    expect(part).toMatchObject({
+      coreAreaM2: 43.3e-6,
+      corePathLengthM: 0.026,
+      coreVolumeM3: 1.12e-6,
+      windowAreaM2: 15.8e-6,
+      saturationFluxDensity25T: 0.49,
+      saturationFluxDensity100T: 0.39,
+      steinmetzK: 2.5,
+      copperDiameterM: null,
+    });
+  });
+
+  it('requires every core field and names the missing ones', () => {
+    const { issues } = normalizePart({ code: 'NF-KX-1', kind: 'core', valueSi: '2µ', unitCost: 1 });
+    expect(issues.map((issue) => issue.path)).toContain('coreAreaM2');
+    expect(issues.find((issue) => issue.path === 'steinmetzBeta')?.message).toBe(
+      'steinmetzBeta is required for a core',
+    );
+    expect(issues).toHaveLength(12);
+  });
+
+  it('refuses a value outside the domain, a unit slip and a volume that is not Ae·le', () => {
+    const slip = normalizePart({ ...core, coreAreaM2: '43.3' });
+    expect(slip.issues).toEqual([{ path: 'coreAreaM2', message: 'coreAreaM2 must be from 0.1 mm² to 10,000 mm²' }]);
+    const volume = normalizePart({ ...core, coreVolumeM3: '3000 mm³' });
+    expect(volume.issues[0]?.path).toBe('coreVolumeM3');
+    expect(volume.issues[0]?.message).toContain('Ve = Ae·le');
+    const text = normalizePart({ ...core, bobbinHeightM: 'tall' });
+    expect(text.issues[0]?.message).toContain('bobbinHeightM is not a valid quantity');
+  });
+
+  it('reads a wire and refuses enamel thinner than the copper and a fractional grade', () => {
+    const wire = {
+      code: 'NF-W010-G2',
+      kind: 'wire',
+      unitCost: 0.004,
+      copperDiameterM: '0.1 mm',
+      overallDiameterM: '0.125 mm',
+      enamelGrade: 2,
+      breakdownVoltageV: '1 kV',
+    };
+    expect(normalizePart(wire).part).toMatchObject({
+      copperDiameterM: 1e-4,
+      overallDiameterM: 1.25e-4,
+      breakdownVoltageV: 1000,
+    });
+    const bad = normalizePart({ ...wire, overallDiameterM: '0.09 mm', enamelGrade: '1.5' });
+    expect(bad.issues.map((issue) => issue.path)).toEqual(['enamelGrade', 'overallDiameterM']);
+  });
+
+  it('reads a tape strength in kV/mm and refuses core fields on a tape', () => {
+    const tape = {
+      code: 'NF-T025-PE',
+      kind: 'tape',
+      unitCost: 0.02,
+      thicknessM: '25 µm',
+      dielectricStrengthVPerM: '100 kV/mm',
+    };
+    // 100 kV/mm = 1e8 V/m, 25 µm = 2.5e-5 m: SI definitions.
+    expect(normalizePart(tape).part).toMatchObject({ thicknessM: 2.5e-5, dielectricStrengthVPerM: 1e8 });
+    expect(normalizePart({ ...tape, coreAreaM2: '10 mm²' }).issues).toEqual([
+      { path: 'coreAreaM2', message: 'coreAreaM2 does not apply to a tape; leave it empty' },
+    ]);
   });
 });
 

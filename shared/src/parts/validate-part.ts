@@ -3,8 +3,16 @@ import type { FieldIssue } from '../errors';
 import { isDomainError } from '../errors';
 import { parseQuantity } from '../units';
 import type { QuantityUnit } from '../units';
+import {
+  KIND_MAGNETICS,
+  MAGNETICS_FIELDS,
+  magneticsCrossIssues,
+  magneticsOf,
+  magneticsValueIssue,
+  parseMagneticsValue,
+} from './part-magnetics';
 
-export const PART_KINDS: readonly PartKind[] = ['capacitor', 'diode', 'resistor', 'transistor', 'core'];
+export const PART_KINDS: readonly PartKind[] = ['capacitor', 'diode', 'resistor', 'transistor', 'core', 'wire', 'tape'];
 
 /** Invented shelf codes: capitals, digits and dashes, e.g. `NF-C103-3K`. */
 export const PART_CODE_PATTERN = /^[A-Z0-9][A-Z0-9-]{2,39}$/;
@@ -27,6 +35,7 @@ export const PART_FIELDS = [
   'ratedPowerW',
   'unitCost',
   'sizeMm',
+  ...MAGNETICS_FIELDS,
 ] as const satisfies readonly (keyof PartInput)[];
 
 export type PartField = (typeof PART_FIELDS)[number];
@@ -41,6 +50,8 @@ const KIND_FIELDS: Record<PartKind, { required: NumericField[]; allowed: Numeric
   resistor: { required: ['valueSi', 'ratedPowerW'], allowed: ['ratedVoltageV'] },
   transistor: { required: ['ratedVoltageV', 'ratedCurrentA'], allowed: ['ratedPowerW'] },
   core: { required: ['valueSi'], allowed: ['ratedVoltageV'] },
+  wire: { required: [], allowed: [] },
+  tape: { required: [], allowed: [] },
 };
 
 const VALUE_UNIT: Partial<Record<PartKind, QuantityUnit>> = { capacitor: 'F', resistor: 'Ohm', core: 'H' };
@@ -50,6 +61,20 @@ const FIELD_UNIT: Record<Exclude<NumericField, 'valueSi'>, QuantityUnit> = {
   ratedSurgeCurrentA: 'A',
   ratedPowerW: 'W',
 };
+
+/** The fields a part of this kind may carry, in CSV order (the rest stay empty). */
+export function partFieldsFor(kind: PartKind): PartField[] {
+  const rules = KIND_FIELDS[kind];
+  const numeric: readonly string[] = [...rules.required, ...rules.allowed];
+  const magnetics: readonly string[] = KIND_MAGNETICS[kind];
+  return PART_FIELDS.filter(
+    (field) =>
+      ['code', 'kind', 'description', 'unitCost', 'sizeMm'].includes(field) ||
+      (field === 'tolerance' && (kind === 'capacitor' || kind === 'resistor' || kind === 'core')) ||
+      numeric.includes(field) ||
+      magnetics.includes(field),
+  );
+}
 
 function isBlank(value: unknown): boolean {
   return value === undefined || value === null || (typeof value === 'string' && value.trim() === '');
@@ -160,7 +185,45 @@ export function normalizePart(
     merged[field] = value;
   }
 
+  for (const field of MAGNETICS_FIELDS) {
+    if (!present(field)) continue;
+    const value = raw[field];
+    if (isBlank(value)) {
+      merged[field] = null;
+      continue;
+    }
+    if (typeof value !== 'string' && typeof value !== 'number') {
+      issue(field, 'must be a number');
+      continue;
+    }
+    if (typeof value === 'string' && value.length > PART_TEXT_MAX_LENGTH) {
+      issue(field, `must be at most ${PART_TEXT_MAX_LENGTH} characters`);
+      continue;
+    }
+    try {
+      const parsed = parseMagneticsValue(field, value);
+      const problem = magneticsValueIssue(field, parsed);
+      if (problem) issue(field, problem);
+      merged[field] = parsed;
+    } catch (error) {
+      if (!isDomainError(error)) throw error;
+      issue(field, `is not a valid quantity: ${error.message}`);
+    }
+  }
+  for (const { field, message } of magneticsCrossIssues(merged)) {
+    if (!issues.some((item) => item.path === `${prefix}${field}`)) issue(field, message);
+  }
+
   if (kind) {
+    const needed = KIND_MAGNETICS[kind];
+    for (const field of MAGNETICS_FIELDS) {
+      const value = merged[field] ?? null;
+      const hasOwnIssue = issues.some((item) => item.path === `${prefix}${field}`);
+      if (needed.includes(field) && value === null && !hasOwnIssue) issue(field, `is required for a ${kind}`);
+      if (!needed.includes(field) && value !== null && !hasOwnIssue) {
+        issue(field, `does not apply to a ${kind}; leave it empty`);
+      }
+    }
     const rules = KIND_FIELDS[kind];
     for (const field of numericFields) {
       const value = merged[field] ?? null;
@@ -185,6 +248,7 @@ export function normalizePart(
       ratedPowerW: merged.ratedPowerW ?? null,
       unitCost: merged.unitCost ?? 0,
       sizeMm: merged.sizeMm ?? '',
+      ...magneticsOf(merged),
     },
     issues,
   };

@@ -25,3 +25,4 @@ export type { CreepageColumn, StageSpacing } from './creepage';
 export type { CheckVerdict } from './check.types';
 export { mergeCheckRows, describeMargin } from './check-rows';
 export type { CheckRow } from './check-rows';
+export { hipotTestVoltageV, HIPOT_METHOD } from './hipot';

@@ -1,4 +1,5 @@
-export { layoutSchematic, labelBox, LABEL_SIZE_PX } from './schematic-layout';
+export { layoutSchematic } from './schematic-layout';
+export { labelBox, LABEL_SIZE_PX } from './schematic-sheet';
 export { partChecksOf, verdictText } from './part-checks';
 export type {
   Box,

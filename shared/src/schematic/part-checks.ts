@@ -9,6 +9,8 @@ function partOfCheck(id: string): string | null {
   if (diode) return `D${diode[1]}`;
   const bleeder = /^bleeder-[a-z]+-r(\d+)$/.exec(id);
   if (bleeder) return `R${bleeder[1]}`;
+  // Engines from 1.2.0 check the bleeder string as a whole; the drawing marks it on its first resistor.
+  if (id === 'bleeder-voltage' || id === 'bleeder-power') return 'R1';
   if (id === 'driver.collector-voltage' || id === 'driver.collector-current' || id === 'driver.base-drive') return 'Q1';
   if (id === 'driver.winding-insulation') return 'T1';
   if (id === 'driver.cell-current' || id === 'driver.battery-life') return 'B1';

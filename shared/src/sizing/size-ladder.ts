@@ -1,6 +1,6 @@
 import { DomainError } from '../errors';
 import type { DiodePart, DischargeRule, PulseDrive, SineDrive, Topology } from '../designs/design.types';
-import { analyzePrepared, prepareLadder, withDiode } from '../multiplier/analyze-ladder';
+import { analyzePrepared, operatingFigures, prepareLadder, withDiode } from '../multiplier/analyze-ladder';
 import { DERATING } from '../multiplier/ladder-stress';
 import type { LadderAnalysis, LadderInput } from '../multiplier/ladder.types';
 import type { MethodInfo } from '../methods';
@@ -272,10 +272,13 @@ export function sizeLadder(request: SizerRequest): SizerResult {
           for (const diode of diodes) {
             if (evaluated >= maxCandidates) break outer;
             evaluated += 1;
-            const analysis = analyzePrepared(withDiode(prepared, diode), { operatingPointOnly: true });
-            const out = Math.abs(analysis.outputMeanV);
-            if (out < target || out > target * (1 + maxOvershoot) || analysis.ripplePeakToPeakV > request.rippleMaxV)
+            // Output and ripple first: most candidates miss them, and need no stress figures.
+            const withThisDiode = withDiode(prepared, diode);
+            const figures = operatingFigures(withThisDiode);
+            const out = Math.abs(figures.outputMeanV);
+            if (out < target || out > target * (1 + maxOvershoot) || figures.ripplePeakToPeakV > request.rippleMaxV)
               continue;
+            const analysis = analyzePrepared(withThisDiode, { operatingPointOnly: true });
             const chosen = analysis.capacitors.map((cap) =>
               ratingFor(cap.maxVoltageV, request.parts?.capacitors, cap.valueF),
             );

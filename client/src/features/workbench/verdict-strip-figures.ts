@@ -1,5 +1,12 @@
 import type { Design } from '@ladderwright/shared/designs';
-import type { DesignReport } from '@ladderwright/shared/analysis';
+import {
+  STORED_SIMULATION_METHOD,
+  type ComparedFigure,
+  type DesignReport,
+  type FigureDifference,
+  type FigureSource,
+  type HeadlineSource,
+} from '@ladderwright/shared/analysis';
 import type { MethodInfo } from '@ladderwright/shared/methods';
 import {
   describeMargin,
@@ -21,6 +28,10 @@ export interface StripFigure {
   /** describeMargin's reading of the verdict, e.g. "38 % below the limit". */
   margin: string | null;
   method: MethodInfo | null;
+  /** Where the value comes from: the stored simulation of the revision or the instant estimate; null for a verdict. */
+  source: FigureSource | null;
+  /** The estimate set against the simulation, where both give this figure. */
+  difference: FigureDifference | null;
 }
 
 const verdictOrder: Record<CheckVerdict['verdict'], number> = { fail: 0, marginal: 1, pass: 2 };
@@ -49,11 +60,37 @@ function limitText(check: CheckVerdict | undefined, fallback: string): string {
   return unit ? `${what} ≤ ${formatQuantity(check.limit, unit)}` : fallback;
 }
 
+const COMPARED: Partial<Record<StripFigure['key'], ComparedFigure>> = {
+  output: 'output',
+  ripple: 'ripple',
+  efficiency: 'efficiency',
+  discharge: 'discharge',
+};
+
+/** Source and difference of each figure: from the stored simulation where it gives the figure, else the estimate. */
+function withSource(figure: Omit<StripFigure, 'source' | 'difference'>, headline: HeadlineSource | null): StripFigure {
+  if (figure.key === 'worst') return { ...figure, source: null, difference: null };
+  const compared = COMPARED[figure.key];
+  const isSimulated = compared !== undefined && (headline?.simulatedKeys.includes(compared) ?? false);
+  return {
+    ...figure,
+    source: isSimulated ? 'simulation' : 'estimate',
+    method: isSimulated ? STORED_SIMULATION_METHOD : figure.method,
+    difference: headline?.differences.find((entry) => entry.key === compared) ?? null,
+  };
+}
+
 /**
  * The eight figures an engineer watches while editing: output, ripple, droop, driver efficiency, battery life,
  * stored energy, discharge time and the worst check, each against its target or limit from the report's own checks.
+ * With a `headline` (a current stored simulation), its figures stand in and each says where it comes from.
  */
-export function verdictStripFigures(report: DesignReport, targets: Design['targets']): StripFigure[] {
+export function verdictStripFigures(
+  estimate: DesignReport,
+  targets: Design['targets'],
+  headline: HeadlineSource | null = null,
+): StripFigure[] {
+  const report = headline?.report ?? estimate;
   const steady = report.analysis.method;
   const output = lowerLimitVerdict({
     id: 'target-output',
@@ -100,7 +137,7 @@ export function verdictStripFigures(report: DesignReport, targets: Design['targe
   const stored = worstFirst(report.checks.filter((check) => check.id.startsWith('stored-output')))[0];
   const discharge = report.checks.find((check) => check.id === 'discharge-time');
   const worst = worstFirst(mergeCheckRows(report.checks))[0];
-  return [
+  const figures: Omit<StripFigure, 'source' | 'difference'>[] = [
     {
       key: 'output',
       label: 'Output (mean, loaded)',
@@ -173,4 +210,5 @@ export function verdictStripFigures(report: DesignReport, targets: Design['targe
       method: null,
     },
   ];
+  return figures.map((figure) => withSource(figure, headline));
 }

@@ -9,6 +9,7 @@ import { teamAdministration } from './0007-team-administration';
 import { sessionsAndSignInLimits } from './0008-sessions-and-sign-in-limits';
 import { simulationJobHeartbeat } from './0009-simulation-job-heartbeat';
 import { driverSecondaryPhasing } from './0010-driver-secondary-phasing';
+import { magneticsParts } from './0011-magnetics-parts';
 
 /** Every schema step in order. Add new steps at the end. */
 export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
@@ -22,4 +23,5 @@ export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
   sessionsAndSignInLimits,
   simulationJobHeartbeat,
   driverSecondaryPhasing,
+  magneticsParts,
 ];

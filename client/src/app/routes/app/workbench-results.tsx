@@ -2,7 +2,7 @@ import { lazy, memo, Suspense } from 'react';
 import { Loader, Tabs, Text } from '@mantine/core';
 import type { RevisionDetail, RevisionSummary } from '@ladderwright/shared/api';
 import type { Design } from '@ladderwright/shared/designs';
-import type { DesignReport } from '@ladderwright/shared/analysis';
+import type { DesignReport, HeadlineSource } from '@ladderwright/shared/analysis';
 import { LadderCharts } from '../../../features/workbench/components/ladder-charts';
 import { OtherFigures } from '../../../features/workbench/components/other-figures';
 
@@ -15,6 +15,8 @@ export interface WorkbenchResultsProps {
   report: DesignReport;
   /** False in an archived project: no simulation job can be started. */
   canSimulate: boolean;
+  /** The saved revision's figures with their source (a current stored simulation or the estimate); null for a draft. */
+  headline?: HeadlineSource | null;
 }
 
 // Result tabs other than the first load with their tab (keepMounted is off), not with the page.
@@ -60,6 +62,7 @@ export function WorkbenchResults({
   isDirty,
   report,
   canSimulate,
+  headline = null,
 }: WorkbenchResultsProps) {
   return (
     <Suspense fallback={<Loader size="sm" aria-label="Loading the tab" />}>
@@ -87,6 +90,13 @@ export function WorkbenchResults({
         <Tabs.Panel value="checks" pt="sm">
           <Text size="xs" c="dimmed" mb="xs">
             {report.caution}
+          </Text>
+          <Text size="xs" mb="xs" data-checks-source>
+            {headline?.source === 'simulation'
+              ? headline.simulatedKeys.includes('discharge')
+                ? 'The discharge-time check rests on the stored simulation of this revision; the others on the estimate.'
+                : 'Every check rests on the estimate; the stored simulation gives no figure a check tests.'
+              : 'Every check rests on the estimate.'}
           </Text>
           <ChecksTable checks={report.checks} />
         </Tabs.Panel>

@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useMemo, useState } from 'react';
 import { Alert, Anchor, Badge, Breadcrumbs, Group, List, Stack, Text } from '@mantine/core';
 import { useDocumentTitle } from '@mantine/hooks';
 import { notifications } from '@mantine/notifications';
@@ -6,6 +6,7 @@ import { useQueryClient, useSuspenseQuery, type QueryClient } from '@tanstack/re
 import { Link, redirect, useNavigate, useParams, useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
 import type { Part, RevisionDetail, RevisionSummary, StaleBaseError } from '@ladderwright/shared/api';
 import { canActInProject } from '@ladderwright/shared/auth';
+import { headlineSource } from '@ladderwright/shared/analysis';
 import { documentFieldLabel } from '@ladderwright/shared/designs';
 import { paths } from '../../../config/paths';
 import { queryKeys } from '../../../lib/query-keys';
@@ -14,6 +15,7 @@ import { getDesignQueryOptions } from '../../../features/designs/api/get-design'
 import { getRevisionQueryOptions } from '../../../features/designs/api/get-revision';
 import { getPartsQueryOptions, useParts } from '../../../features/parts/api/get-parts';
 import { getProjectQueryOptions } from '../../../features/projects/api/get-project';
+import { useSimulatedFigures } from '../../../features/workbench/api/get-simulated-figures';
 import { LadderForm } from '../../../features/workbench/components/ladder-form';
 import { VerdictStrip } from '../../../features/workbench/components/verdict-strip';
 import { useDesignDraft } from '../../../features/workbench/hooks/use-design-draft';
@@ -117,7 +119,14 @@ function EditableRevision({
   const live = useLiveAnalysis(draft.draft, shelf);
   const isDirty = draft.isDirty;
   const partIssues = (isDirty ? live.partIssues : revision.report.partIssues) ?? [];
-  const report = isDirty ? live.report : revision.report;
+  // The saved revision's figures come from its current stored simulation where there is one; a draft's are estimates.
+  const simulated = useSimulatedFigures(projectId, revision.designId, revision.number, !isDirty);
+  const simulation = simulated.data?.simulation ?? null;
+  const headline = useMemo(
+    () => (isDirty ? null : headlineSource(revision.report, simulation, revision.document.targets)),
+    [isDirty, revision, simulation],
+  );
+  const report = isDirty ? live.report : (headline?.report ?? revision.report);
   const issueCount = Object.keys(live.issues).length;
   const save = useCreateRevision(projectId, revision.designId);
 
@@ -196,7 +205,7 @@ function EditableRevision({
                 ? live.isPending
                   ? 'live preview, updating…'
                   : 'live preview (unsaved edits)'
-                : `server result of r${revision.number}`}
+                : `server result of r${revision.number} · ${headline?.source === 'simulation' ? 'figures from simulation' : 'estimate'}`}
             </Badge>
           </Group>
           {live.engineError && isDirty && (
@@ -210,7 +219,7 @@ function EditableRevision({
               index).
             </Alert>
           )}
-          {report && <VerdictStrip report={report} targets={draft.draft.targets} />}
+          {report && <VerdictStrip report={report} targets={draft.draft.targets} headline={headline} />}
         </section>
         <section className={classes.inputs} aria-label="Design inputs">
           <LadderForm
@@ -243,6 +252,7 @@ function EditableRevision({
               isDirty={isDirty}
               report={report}
               canSimulate={!isArchived}
+              headline={headline}
             />
           )}
         </section>

@@ -1,9 +1,12 @@
 import { Alert, Button, Group, Select, SimpleGrid, TextInput } from '@mantine/core';
 import { useState } from 'react';
+import type { PartKind } from '@ladderwright/shared/api';
+import { MAGNETICS_FIELD_SPECS, partFieldsFor, type MagneticsField } from '@ladderwright/shared/parts';
 import { isApiError } from '../../../lib/api-client';
 import { type PartDraft, useCreatePart } from '../api/create-part';
+import { PART_KIND_OPTIONS } from './part-kinds';
 
-const FIELDS: { name: string; label: string; placeholder: string }[] = [
+const BASE_FIELDS: { name: string; label: string; placeholder: string }[] = [
   { name: 'code', label: 'Code', placeholder: 'NF-C103-3K' },
   { name: 'description', label: 'Description', placeholder: 'HV ceramic disc' },
   { name: 'valueSi', label: 'Value (F, Ω or AL in H)', placeholder: '10n' },
@@ -16,9 +19,38 @@ const FIELDS: { name: string; label: string; placeholder: string }[] = [
   { name: 'sizeMm', label: 'Size (mm)', placeholder: '10x5x7' },
 ];
 
+const VALUE_LABELS: Partial<Record<PartKind, string>> = {
+  capacitor: 'Capacitance',
+  resistor: 'Resistance',
+  core: 'AL ungapped (H per turn²)',
+};
+
+/** The fields a part of this kind carries, with the labels and examples it shows. */
+function fieldsFor(kind: PartKind): { name: string; label: string; placeholder: string }[] {
+  const names: readonly string[] = partFieldsFor(kind);
+  const base = BASE_FIELDS.filter((field) => names.includes(field.name)).map((field) =>
+    field.name === 'valueSi' ? { ...field, label: VALUE_LABELS[kind] ?? field.label } : field,
+  );
+  const magnetics = names
+    .filter((name): name is MagneticsField => name in MAGNETICS_FIELD_SPECS)
+    .map((name) => ({
+      name,
+      label: MAGNETICS_FIELD_SPECS[name].label,
+      placeholder: MAGNETICS_FIELD_SPECS[name].example,
+    }));
+  if (kind === 'wire' || kind === 'tape') {
+    return [
+      ...base.map((field) => (field.name === 'unitCost' ? { ...field, label: 'Cost per metre' } : field)),
+      ...magnetics,
+    ];
+  }
+  return [...base, ...magnetics];
+}
+
 /** A lead adds one part; the server checks the ratings the kind needs and names each bad field. */
 export function AddPartForm({ projectId }: { projectId: string }) {
   const [draft, setDraft] = useState<PartDraft>({ kind: 'capacitor' });
+  const kind = (draft.kind ?? 'capacitor') as PartKind;
   const create = useCreatePart(projectId);
   const issues = isApiError(create.error) ? (create.error.body.issues ?? []) : [];
   const errorOf = (name: string) => issues.find((issue) => issue.path === name)?.message;
@@ -33,14 +65,22 @@ export function AddPartForm({ projectId }: { projectId: string }) {
       <SimpleGrid cols={{ base: 1, sm: 3 }} spacing="sm">
         <Select
           label="Kind"
-          data={['capacitor', 'diode', 'resistor', 'transistor', 'core']}
-          value={draft.kind ?? 'capacitor'}
-          onChange={(value) => setDraft({ ...draft, kind: value ?? 'capacitor' })}
+          data={PART_KIND_OPTIONS.map(({ value, single }) => ({ value, label: single }))}
+          value={kind}
+          onChange={(value) => {
+            // Keep only what the new kind carries, so a hidden field is never sent.
+            const next = (value ?? 'capacitor');
+            const names: readonly string[] = partFieldsFor(next);
+            setDraft({
+              ...Object.fromEntries(Object.entries(draft).filter(([name]) => names.includes(name))),
+              kind: next,
+            });
+          }}
           allowDeselect={false}
         />
-        {FIELDS.map((field) => (
+        {fieldsFor(kind).map((field) => (
           <TextInput
-            key={field.name}
+            key={`${kind}-${field.name}`}
             label={field.label}
             placeholder={field.placeholder}
             value={draft[field.name] ?? ''}

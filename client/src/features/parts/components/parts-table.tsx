@@ -4,15 +4,8 @@ import { useState } from 'react';
 import type { PartKind } from '@ladderwright/shared/api';
 import { useDeletePart } from '../api/delete-part';
 import { useParts } from '../api/get-parts';
+import { PART_KIND_OPTIONS } from './part-kinds';
 import { describeRatings } from './part-ratings';
-
-const KIND_OPTIONS: { value: PartKind; label: string }[] = [
-  { value: 'capacitor', label: 'Capacitors' },
-  { value: 'diode', label: 'Diodes' },
-  { value: 'resistor', label: 'Resistors' },
-  { value: 'transistor', label: 'Transistors' },
-  { value: 'core', label: 'Transformer cores' },
-];
 
 export interface PartsTableProps {
   projectId: string;
@@ -32,7 +25,7 @@ export function PartsTable({ projectId, canManage }: PartsTableProps) {
         <Select
           label="Kind"
           placeholder="All kinds"
-          data={KIND_OPTIONS}
+          data={PART_KIND_OPTIONS.map(({ value, label }) => ({ value, label }))}
           value={kind}
           onChange={(value) => setKind(value)}
           clearable

@@ -1,7 +1,7 @@
 import { memo } from 'react';
 import { Group, Paper, Text } from '@mantine/core';
 import type { Design } from '@ladderwright/shared/designs';
-import type { DesignReport } from '@ladderwright/shared/analysis';
+import type { DesignReport, HeadlineSource } from '@ladderwright/shared/analysis';
 import { verdictStripFigures, type StripFigure } from '../verdict-strip-figures';
 import { MethodNote } from './method-note';
 import { VerdictBadge } from './verdict-badge';
@@ -10,24 +10,28 @@ import classes from './verdict-strip.module.css';
 export interface VerdictStripProps {
   report: DesignReport;
   targets: Design['targets'];
+  /** A current stored simulation of the revision shown: its figures stand for the estimate's. */
+  headline?: HeadlineSource | null;
 }
 
 /**
  * The Verdict strip: the eight figures an engineer watches while editing (output, ripple, droop, driver
  * efficiency, battery life, stored energy, discharge time, worst check), each with its target and a verdict
- * in words and a number. It stays in view beside or above the form.
+ * in words and a number, and where each comes from (the revision's stored simulation or the estimate). It stays in
+ * view beside or above the form.
  */
-export const VerdictStrip = memo(function VerdictStrip({ report, targets }: VerdictStripProps) {
+export const VerdictStrip = memo(function VerdictStrip({ report, targets, headline = null }: VerdictStripProps) {
   return (
     <div className={classes.strip} aria-label="Verdict strip" role="list">
-      {verdictStripFigures(report, targets).map((figure) => (
-        <FigureCell key={figure.key} figure={figure} />
+      {verdictStripFigures(report, targets, headline).map((figure) => (
+        <FigureCell key={figure.key} figure={figure} isMixed={headline?.source === 'simulation'} />
       ))}
     </div>
   );
 });
 
-function FigureCell({ figure }: { figure: StripFigure }) {
+/** `isMixed`: some figures come from the stored simulation, so each one says where it comes from. */
+function FigureCell({ figure, isMixed }: { figure: StripFigure; isMixed: boolean }) {
   return (
     <Paper
       withBorder
@@ -36,6 +40,7 @@ function FigureCell({ figure }: { figure: StripFigure }) {
       aria-label={figure.label}
       data-figure={figure.key}
       data-verdict={figure.verdict ?? 'none'}
+      data-source={figure.source ?? 'none'}
     >
       <Group justify="space-between" gap={2} wrap="nowrap">
         <Text size="xs" c="dimmed" fw={500} lh={1.2}>
@@ -61,6 +66,28 @@ function FigureCell({ figure }: { figure: StripFigure }) {
         <Group gap={4} mt={2} wrap="wrap">
           <VerdictBadge verdict={figure.verdict} margin={figure.margin ?? undefined} size="sm" />
         </Group>
+      )}
+      {isMixed && figure.source && (
+        <Text
+          fz={11}
+          c={figure.source === 'simulation' ? 'verdigris.8' : 'dimmed'}
+          fw={figure.source === 'simulation' ? 600 : 400}
+          lh={1.3}
+          mt={2}
+          data-figure-source={figure.source}
+        >
+          {figure.source === 'simulation' ? 'from simulation' : 'estimate'}
+        </Text>
+      )}
+      {figure.difference && (figure.difference.exceedsTolerance || figure.source === 'simulation') && (
+        <Text
+          fz={11}
+          lh={1.25}
+          c={figure.difference.exceedsTolerance ? 'ember.8' : 'dimmed'}
+          data-figure-difference={figure.difference.exceedsTolerance ? 'beyond' : 'within'}
+        >
+          {figure.difference.text}
+        </Text>
       )}
     </Paper>
   );

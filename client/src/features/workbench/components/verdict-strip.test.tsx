@@ -1,0 +1,57 @@
+import { screen, within } from '@testing-library/react';
+import { describe, expect, it } from 'vitest';
+import { analyzeDesign, headlineSource, type SimulatedFigures } from '@ladderwright/shared/analysis';
+import { designExamples } from '@ladderwright/shared/designs';
+import { formatQuantity } from '@ladderwright/shared/units';
+import { renderWithApp } from '../../../testing/render';
+import { VerdictStrip } from './verdict-strip';
+
+const tester = designExamples.surfaceChargeTester;
+const report = analyzeDesign(tester);
+
+function simulation(outputMeanV: number): SimulatedFigures {
+  return {
+    engineVersion: report.engineVersion,
+    outputMeanV,
+    ripplePeakToPeakV: report.ripplePeakToPeakV,
+    dischargeTimeS: null,
+    oscillationFrequencyHz: null,
+    efficiency: null,
+    finishedAt: '2026-12-04T21:00:00.000Z',
+  };
+}
+
+const cell = (label: string) => screen.getByRole('listitem', { name: label });
+
+describe('VerdictStrip with a stored simulation', () => {
+  it('says nothing of sources when every figure is the estimate', () => {
+    renderWithApp(<VerdictStrip report={report} targets={tester.targets} />);
+    const output = cell('Output (mean, loaded)');
+    expect(output).toHaveAttribute('data-source', 'estimate');
+    expect(within(output).queryByText('from simulation')).not.toBeInTheDocument();
+    expect(within(output).getByText(formatQuantity(report.outputMeanV, 'V'))).toBeInTheDocument();
+  });
+
+  it('shows the simulated output, marks it, marks the rest as estimates and states a difference beyond tolerance', () => {
+    // 10 % above the estimate: beyond the driver estimate's stated 5 % on the output (ESTIMATE_VALIDITY_BOUNDS).
+    const simulatedV = report.outputMeanV * 1.1;
+    const headline = headlineSource(report, simulation(simulatedV), tester.targets);
+    renderWithApp(<VerdictStrip report={report} targets={tester.targets} headline={headline} />);
+    const output = cell('Output (mean, loaded)');
+    expect(output).toHaveAttribute('data-source', 'simulation');
+    expect(within(output).getByText(formatQuantity(simulatedV, 'V'))).toBeInTheDocument();
+    expect(within(output).getByText('from simulation')).toBeInTheDocument();
+    const difference = within(output).getByText(/below the simulation/);
+    expect(difference).toHaveAttribute('data-figure-difference', 'beyond');
+    // (e − s)/|s| = 1/1.1 − 1 = −9.1 %.
+    expect(difference).toHaveTextContent("9.1 % below the simulation (beyond the estimate's stated 5.0 %)");
+    expect(within(cell('Stored energy')).getByText('estimate')).toBeInTheDocument();
+    // The ripple agrees exactly: from the simulation, with its (zero) difference stated, not flagged.
+    const ripple = cell('Ripple (peak-to-peak)');
+    expect(within(ripple).getByText('from simulation')).toBeInTheDocument();
+    expect(within(ripple).getByText(/0\.0 % (above|below) the simulation/)).toHaveAttribute(
+      'data-figure-difference',
+      'within',
+    );
+  });
+});

@@ -1,0 +1,47 @@
+import { documentFieldLabel, resultFieldLabel } from '@ladderwright/shared/designs';
+import type { SpecSheetContent } from './spec-sheet.types';
+import { type Doc, ensureRoom, heading, INK, keyValues, MARGIN, q, TEXT_WIDTH, WARN } from './spec-sheet-layout';
+
+/** Stored energy and charge, the discharge through the bleeder against the rule, and the high-voltage caution. */
+export function safetySection(doc: Doc, c: SpecSheetContent): void {
+  heading(doc, 'Stored energy, discharge and safety');
+  const { document } = c;
+  const report = c.headline.report;
+  const rule = document.targets.dischargeRule;
+  const dischargeSource = c.headline.simulatedKeys.includes('discharge') ? ' (from simulation)' : ' (estimate)';
+  keyValues(doc, [
+    [`${resultFieldLabel('storedEnergyJ').label}, all capacitors`, q(report.storedEnergyJ, 'J')],
+    [`${resultFieldLabel('storedChargeC').label}, all capacitors`, q(report.storedChargeC, 'C')],
+    [
+      `Bleeder discharge to ${q(document.targets.safeVoltageV, 'V')}`,
+      report.dischargeTimeS === null
+        ? 'no discharge path: fit a bleeder'
+        : `${q(report.dischargeTimeS, 's')}${dischargeSource}`,
+    ],
+    [
+      documentFieldLabel('targets.dischargeRule').label,
+      typeof rule === 'string' ? rule : `${q(rule.voltageV, 'V')} within ${q(rule.timeS, 's')}`,
+    ],
+  ]);
+  ensureRoom(doc, 70);
+  doc.moveDown(0.6);
+  const top = doc.y;
+  doc.rect(MARGIN, top, TEXT_WIDTH, 52).lineWidth(1.2).strokeColor(WARN).stroke();
+  doc
+    .font('bold')
+    .fontSize(10)
+    .fillColor(WARN)
+    .text('HIGH VOLTAGE CAN KILL', MARGIN + 10, top + 8);
+  doc
+    .font('regular')
+    .fontSize(8.5)
+    .fillColor(INK)
+    .text(
+      'These figures are design predictions. The standard that applies to the equipment, local codes and licensed practice govern every build and test. Discharge the output and every ladder node before touching the assembly.',
+      MARGIN + 10,
+      doc.y + 2,
+      { width: TEXT_WIDTH - 20 },
+    );
+  doc.y = top + 60;
+  doc.x = MARGIN;
+}

@@ -1,0 +1,196 @@
+import { levenbergMarquardt } from 'ml-levenberg-marquardt';
+import { DomainError } from '../errors';
+import type { PriorRange } from './calibration.types';
+
+/** A parameter as the fit moves it: u ∈ [0, 1] over its prior range, linearly or on a log scale. */
+export interface FitParameter {
+  prior: PriorRange;
+  scale: 'log' | 'linear';
+  initialValue: number;
+}
+
+/**
+ * The model of a fit: for each set of parameter values (physical units) the predictions at every point,
+ * in the same normalized units as the target, or null where the model has no answer at those values (the
+ * fit then treats the set as infinitely bad). All sets of one call are independent, so a caller may
+ * evaluate them in parallel (the Jacobian columns are one call).
+ */
+export type BatchModel = (valueSets: number[][]) => Promise<(number[] | null)[]>;
+
+export interface FitOptions {
+  maxIterations?: number;
+  /** Finite-difference step in u (default 1e-3; a simulator's answer needs a larger one, e.g. 1e-2). */
+  stepU?: number;
+  /** Stop when an accepted step lowers the cost by less than this fraction (default 1e-9). */
+  relativeTolerance?: number;
+  onProgress?: (fraction: number) => void;
+  shouldCancel?: () => boolean;
+}
+
+export interface FitOutcome {
+  values: number[];
+  u: number[];
+  /** m × p, ∂prediction/∂u at the optimum. */
+  jacobian: number[][];
+  initialPrediction: number[];
+  prediction: number[];
+  costBefore: number;
+  costAfter: number;
+  iterations: number;
+  evaluations: number;
+  isConverged: boolean;
+}
+
+export function toValue(parameter: FitParameter, u: number): number {
+  const { min, max } = parameter.prior;
+  return parameter.scale === 'log' ? min * (max / min) ** u : min + u * (max - min);
+}
+
+export function toU(parameter: FitParameter, value: number): number {
+  const { min, max } = parameter.prior;
+  const u = parameter.scale === 'log' ? Math.log(value / min) / Math.log(max / min) : (value - min) / (max - min);
+  return Number.isFinite(u) ? u : 0;
+}
+
+function cost(target: readonly number[], prediction: readonly number[] | null): number {
+  if (!prediction) return Infinity;
+  let sum = 0;
+  for (let i = 0; i < target.length; i += 1) sum += ((target[i] as number) - (prediction[i] as number)) ** 2;
+  return Number.isFinite(sum) ? sum : Infinity;
+}
+
+/**
+ * Bounded Levenberg–Marquardt fit of `parameters` so that `model` matches `target` in least squares.
+ * Each step is ml-levenberg-marquardt's (damped normal equations solved by Cholesky, clamped to the
+ * bounds), taken one iteration at a time with the Jacobian we hand it: our loop evaluates the Jacobian's
+ * columns as one batch (in parallel where the model allows), accepts a step only when it lowers the cost
+ * and otherwise raises the damping (×11, down ×9 on success, the package's factors). Coordinates are
+ * u ∈ [0, 1] over each prior range, so the bounds are the prior ranges.
+ */
+export async function fitParameters(
+  parameters: readonly FitParameter[],
+  target: readonly number[],
+  model: BatchModel,
+  options: FitOptions = {},
+): Promise<FitOutcome> {
+  const p = parameters.length;
+  const m = target.length;
+  if (m < p + 1 || m < 2) throw new DomainError('invalid_argument', 'Too few points for the parameters', 'runs');
+  const maxIterations = options.maxIterations ?? 30;
+  const stepU = options.stepU ?? 1e-3;
+  const tolerance = options.relativeTolerance ?? 1e-9;
+  const valuesOf = (u: readonly number[]) => u.map((ui, j) => toValue(parameters[j] as FitParameter, ui));
+  let evaluations = 0;
+  const evaluate = async (us: number[][]): Promise<(number[] | null)[]> => {
+    if (options.shouldCancel?.()) throw new DomainError('cancelled', 'The calibration was cancelled');
+    evaluations += us.length;
+    return model(us.map(valuesOf));
+  };
+
+  let u = parameters.map((parameter) => Math.min(1, Math.max(0, toU(parameter, parameter.initialValue))));
+  const [first] = await evaluate([u]);
+  if (!first) {
+    throw new DomainError(
+      'not_converged',
+      "The model has no answer at the design's own values; check the design",
+      'parameters',
+    );
+  }
+  let prediction = first;
+  const initialPrediction = first;
+  const costBefore = cost(target, first);
+  let currentCost = costBefore;
+
+  const jacobianAt = async (at: number[], atPrediction: number[]): Promise<number[][]> => {
+    const steps = at.map((uj) => (uj + stepU <= 1 ? stepU : -stepU));
+    const shifted = (signs: number[]) => signs.map((h, j) => at.map((ui, k) => (k === j ? ui + h : ui)));
+    const forward = await evaluate(shifted(steps));
+    const missing = forward.flatMap((answer, j) => (answer ? [] : [j]));
+    const retried = missing.length
+      ? await evaluate(missing.map((j) => shifted(steps.map((h) => -h))[j] as number[]))
+      : [];
+    const columns = forward.map((answer, j) => {
+      const h = answer ? (steps[j] as number) : -(steps[j] as number);
+      const values = answer ?? retried[missing.indexOf(j)] ?? null;
+      return values ? values.map((v, i) => (v - (atPrediction[i] as number)) / h) : Array<number>(m).fill(0);
+    });
+    return Array.from({ length: m }, (_, i) => columns.map((column) => column[i] as number));
+  };
+
+  const propose = (jacobian: number[][], damping: number): number[] | null => {
+    let proposal: number[] | null = null;
+    const x = Array.from({ length: m }, (_, i) => i);
+    levenbergMarquardt(
+      { x, y: [...target] },
+      (values: number[]) => {
+        if (values.every((v, j) => v === u[j])) return (i: number) => prediction[i] as number;
+        proposal = [...values];
+        return () => NaN;
+      },
+      {
+        initialValues: [...u],
+        minValues: Array<number>(p).fill(0),
+        maxValues: Array<number>(p).fill(1),
+        damping,
+        maxIterations: 1,
+        errorTolerance: 0,
+        jacobianFunction: () => (i: number) => jacobian[i] as number[],
+      },
+    );
+    return proposal;
+  };
+
+  let jacobian = await jacobianAt(u, prediction);
+  let jacobianIsCurrent = true;
+  let damping = 1e-2;
+  let iterations = 0;
+  let isConverged = false;
+  while (iterations < maxIterations) {
+    iterations += 1;
+    if (!jacobianIsCurrent) {
+      jacobian = await jacobianAt(u, prediction);
+      jacobianIsCurrent = true;
+    }
+    let accepted: { u: number[]; prediction: number[]; cost: number } | null = null;
+    for (let attempt = 0; attempt < 8 && !accepted; attempt += 1) {
+      const proposal = propose(jacobian, damping);
+      if (!proposal || proposal.every((v, j) => Math.abs(v - (u[j] as number)) < 1e-10)) break;
+      const [answer] = await evaluate([proposal]);
+      const proposalCost = cost(target, answer ?? null);
+      if (answer && proposalCost < currentCost) {
+        accepted = { u: proposal, prediction: answer, cost: proposalCost };
+        damping = Math.max(damping / 9, 1e-7);
+      } else {
+        damping = Math.min(damping * 11, 1e7);
+      }
+    }
+    options.onProgress?.(iterations / maxIterations);
+    if (!accepted) {
+      isConverged = true;
+      break;
+    }
+    const improvement = (currentCost - accepted.cost) / Math.max(currentCost, 1e-300);
+    u = accepted.u;
+    prediction = accepted.prediction;
+    currentCost = accepted.cost;
+    jacobianIsCurrent = false;
+    if (improvement < tolerance) {
+      isConverged = true;
+      break;
+    }
+  }
+  if (!jacobianIsCurrent) jacobian = await jacobianAt(u, prediction);
+  options.onProgress?.(1);
+  return {
+    values: valuesOf(u),
+    u,
+    jacobian,
+    initialPrediction,
+    prediction,
+    costBefore,
+    costAfter: currentCost,
+    iterations,
+    evaluations,
+    isConverged,
+  };
+}

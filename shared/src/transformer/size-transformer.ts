@@ -1,0 +1,130 @@
+import type { SpacingEnvironment } from '../designs/design.types';
+import { DomainError } from '../errors';
+import { analyzeTransformer } from './analyze-transformer';
+import { gapFromAl } from './gap';
+import { pulseOperatingPoint } from './operating-point';
+import type {
+  CoreKind,
+  TransformerSection,
+  TransformerSizerCandidate,
+  TransformerSizerRequest,
+} from './transformer.types';
+
+const DEFAULT_MIN_SATURATION_MARGIN_PCT = 20;
+
+/** Fewest primary turns on `core` that keep the flux margin and need no more AL than the ungapped core has. */
+function primaryTurnsFor(core: CoreKind, request: TransformerSizerRequest): number {
+  const margin = (request.minSaturationMarginPct ?? DEFAULT_MIN_SATURATION_MARGIN_PCT) / 100;
+  const maxFluxT = (1 - margin) * core.saturationFluxDensity100T;
+  const forFlux = (request.primaryInductanceH * request.primaryPeakCurrentA) / (maxFluxT * core.effectiveAreaM2);
+  const forAl = Math.sqrt(request.primaryInductanceH / core.ungappedAlHPerTurn2);
+  return Math.max(1, Math.ceil(Math.max(forFlux, forAl) - 1e-9));
+}
+
+function sectionFor(core: CoreKind, primaryTurns: number, request: TransformerSizerRequest): TransformerSection {
+  const turns = (ratio: number) => Math.max(1, Math.round(primaryTurns * ratio));
+  return {
+    core,
+    gap: { kind: 'primary-inductance', primaryInductanceH: request.primaryInductanceH },
+    windings: [
+      { role: 'primary', turns: primaryTurns, wire: request.primaryWire, startPin: 1, endPin: 2 },
+      { role: 'feedback', turns: turns(request.feedbackRatio), wire: request.feedbackWire, startPin: 3, endPin: 4 },
+      {
+        role: 'secondary',
+        turns: turns(request.turnsRatio),
+        wire: request.secondaryWire,
+        ...(request.layerTape ? { layerTapeWraps: 1 } : {}),
+        startPin: 5,
+        endPin: 6,
+      },
+    ],
+    ...(request.layerTape ? { layerTape: request.layerTape } : {}),
+    windingTape: request.windingTape,
+    windingTapeWraps: request.windingTapeWraps,
+  };
+}
+
+/**
+ * Transformer Sizer: for each core, the fewest primary turns that keep the peak flux at the driver's peak
+ * primary current below Bsat(100 °C) by the margin asked (and need no more AL than the ungapped core),
+ * the other windings in the driver's turns ratios, the gap for the required primary inductance; then the
+ * section's losses, fills and Checks at the driver's operating point. Cores that fit (no failing Check,
+ * gap shorter than the bobbin) come first, ranked by total loss, then by core volume; refused cores follow
+ * with their reason.
+ */
+export function sizeTransformer(
+  cores: readonly CoreKind[],
+  request: TransformerSizerRequest,
+  spacing: SpacingEnvironment,
+  ambientTemperatureC = 25,
+): TransformerSizerCandidate[] {
+  if (!(request.primaryInductanceH > 0 && request.primaryPeakCurrentA > 0 && request.frequencyHz > 0)) {
+    throw new DomainError('invalid_argument', 'inductance, peak current and frequency must be positive', 'request');
+  }
+  const periodS = 1 / request.frequencyHz;
+  const onTimeS = request.dutyOnFraction * periodS;
+  const candidates = cores.map((core): TransformerSizerCandidate => {
+    const primaryTurns = primaryTurnsFor(core, request);
+    const refused = (refusal: string): TransformerSizerCandidate => ({
+      core,
+      gap: { gapM: 0, alHPerTurn2: core.ungappedAlHPerTurn2, fringingFactor: 1 },
+      primaryTurns,
+      secondaryTurns: Math.round(primaryTurns * request.turnsRatio),
+      feedbackTurns: Math.round(primaryTurns * request.feedbackRatio),
+      peakFluxDensityT: 0,
+      saturationMarginPct: 0,
+      coreLossW: 0,
+      copperLossW: 0,
+      windowFill: 0,
+      temperatureRiseC: 0,
+      section: null,
+      refusal,
+    });
+    try {
+      gapFromAl(core, request.primaryInductanceH / primaryTurns ** 2);
+    } catch {
+      return refused('the gap for the inductance is longer than the bobbin breadth');
+    }
+    const section = sectionFor(core, primaryTurns, request);
+    const turnsOf = (role: string) => section.windings.find((w) => w.role === role)?.turns ?? 1;
+    const primary = { turns: turnsOf('primary') };
+    const feedback = { turns: turnsOf('feedback') };
+    const secondary = { turns: turnsOf('secondary') };
+    const point = pulseOperatingPoint({
+      frequencyHz: request.frequencyHz,
+      onTimeS,
+      flybackTimeS: periodS - onTimeS,
+      primaryPeakCurrentA: request.primaryPeakCurrentA,
+      baseCurrentA: 0,
+      primaryOnVoltageV: (request.primaryInductanceH * request.primaryPeakCurrentA) / onTimeS,
+      forwardSecondaryPeakV: 0,
+      flybackSecondaryPeakV: request.secondaryPeakV,
+      primaryTurns: primary.turns,
+      feedbackTurns: feedback.turns,
+      secondaryTurns: secondary.turns,
+      ambientTemperatureC,
+    });
+    const report = analyzeTransformer(section, point, spacing);
+    const failing = report.checks.filter((c) => c.verdict === 'fail' && c.id !== 'transformer.flange-creepage');
+    return {
+      core,
+      gap: report.gap,
+      primaryTurns: primary.turns,
+      feedbackTurns: feedback.turns,
+      secondaryTurns: secondary.turns,
+      peakFluxDensityT: report.peakFluxDensityT,
+      saturationMarginPct: report.saturationMarginPct,
+      coreLossW: report.coreLossW,
+      copperLossW: report.copperLossW,
+      windowFill: report.windowFill,
+      temperatureRiseC: report.temperatureRiseC,
+      section,
+      refusal: failing.length > 0 ? `fails ${failing.map((c) => c.id).join(', ')}` : null,
+    };
+  });
+  const loss = (c: TransformerSizerCandidate) => c.coreLossW + c.copperLossW;
+  return candidates.sort(
+    (a, b) =>
+      Number(a.refusal !== null) - Number(b.refusal !== null) || loss(a) - loss(b) || a.core.volumeM3 - b.core.volumeM3,
+  );
+}

@@ -1,0 +1,94 @@
+import { describe, expect, it } from 'vitest';
+import {
+  alFromGap,
+  demoCoreKinds,
+  fluxDensityT,
+  fringingFactor,
+  gapFromAl,
+  resolveGap,
+  saturatedInductanceH,
+  saturationFluxDensityAtT,
+  type CoreKind,
+} from '../../src/transformer';
+
+const core = demoCoreKinds.find((c) => c.code === 'Core E25 ferrite grade A') as CoreKind;
+
+describe('gap and inductance factor (McLyman, Transformer and Inductor Design Handbook, 3rd ed., ch. 8)', () => {
+  it('an ungapped core keeps its own AL and a fringing factor of 1', () => {
+    expect(fringingFactor(0, core.effectiveAreaM2, core.bobbinBreadthM)).toBe(1);
+    // AL(0) = µ0·Ae/(le/µr) with le/µr taken from the ungapped AL: the definition, to rounding.
+    expect(alFromGap(core, 0)).toBeCloseTo(core.ungappedAlHPerTurn2, 15);
+  });
+
+  it('matches McLyman’s inductance formula written in his CGS-practical units', () => {
+    // McLyman ch. 8: L = 0.4·π·N²·Ac·F·1e-8 / (lg + MPL/µm), Ac in cm², lg and MPL in cm, L in H;
+    // F = 1 + (lg/√Ac)·ln(2G/lg) with G the window length in cm. Evaluated here independently in cm.
+    const turns = 100;
+    const gapCm = 0.05;
+    const acCm2 = core.effectiveAreaM2 * 1e4;
+    const mplCm = core.pathLengthM * 100;
+    const gCm = core.bobbinBreadthM * 100;
+    const muM = (core.ungappedAlHPerTurn2 * core.pathLengthM) / (4e-7 * Math.PI * core.effectiveAreaM2);
+    const f = 1 + (gapCm / Math.sqrt(acCm2)) * Math.log((2 * gCm) / gapCm);
+    const mcLymanH = (0.4 * Math.PI * turns ** 2 * acCm2 * f * 1e-8) / (gapCm + mplCm / muM);
+    // Tolerance 1e-9 relative: the same formula in other units, only rounding differs.
+    expect(alFromGap(core, gapCm / 100) * turns ** 2).toBeCloseTo(mcLymanH, 12);
+    expect(fringingFactor(gapCm / 100, core.effectiveAreaM2, core.bobbinBreadthM)).toBeCloseTo(f, 12);
+  });
+
+  it('finds the gap back from the AL it gives (round trip within 1 nm)', () => {
+    for (const gapM of [5e-6, 50e-6, 0.2e-3, 1e-3]) {
+      expect(Math.abs(gapFromAl(core, alFromGap(core, gapM)) - gapM)).toBeLessThan(1e-9);
+    }
+  });
+
+  it('AL falls as the gap grows, and fringing makes it larger than the plain magnetic circuit', () => {
+    let previous = Infinity;
+    for (const gapM of [1e-6, 1e-5, 1e-4, 5e-4, 1e-3, 2e-3]) {
+      const al = alFromGap(core, gapM);
+      expect(al).toBeLessThan(previous);
+      previous = al;
+      const plain =
+        (4e-7 * Math.PI * core.effectiveAreaM2) /
+        (gapM + (4e-7 * Math.PI * core.effectiveAreaM2) / core.ungappedAlHPerTurn2);
+      expect(al).toBeGreaterThan(plain);
+    }
+  });
+
+  it('resolves a target primary inductance into AL = L/N²', () => {
+    const gap = resolveGap(core, { kind: 'primary-inductance', primaryInductanceH: 1e-3 }, 40);
+    expect(gap.alHPerTurn2 * 40 ** 2).toBeCloseTo(1e-3, 9);
+    expect(gap.gapM).toBeGreaterThan(0);
+  });
+
+  it('refuses an AL that needs a gap longer than the bobbin', () => {
+    expect(() => gapFromAl(core, 1e-12)).toThrow(/longer than the bobbin/);
+  });
+
+  it('the saturated inductance is far below the gapped inductance', () => {
+    const gap = resolveGap(core, { kind: 'gap', gapM: 0.1e-3 }, 30);
+    expect(saturatedInductanceH(core, gap, 30)).toBeLessThan((gap.alHPerTurn2 * 30 ** 2) / 10);
+  });
+});
+
+describe('flux density', () => {
+  it('B = L·I/(N·Ae) agrees with B = µ0·N·F·I/(lg + le/µr) (McLyman ch. 8)', () => {
+    const turns = 50;
+    const gapM = 0.3e-3;
+    const currentA = 0.8;
+    const inductanceH = alFromGap(core, gapM) * turns ** 2;
+    const f = fringingFactor(gapM, core.effectiveAreaM2, core.bobbinBreadthM);
+    const reluctanceLength = (4e-7 * Math.PI * core.effectiveAreaM2) / core.ungappedAlHPerTurn2;
+    const mcLymanT = (4e-7 * Math.PI * turns * f * currentA) / (gapM + reluctanceLength);
+    expect(fluxDensityT(inductanceH, currentA, turns, core.effectiveAreaM2)).toBeCloseTo(mcLymanT, 12);
+  });
+
+  it('interpolates Bsat between its 25 °C and 100 °C figures', () => {
+    expect(saturationFluxDensityAtT(core, 25)).toBeCloseTo(core.saturationFluxDensity25T, 12);
+    expect(saturationFluxDensityAtT(core, 100)).toBeCloseTo(core.saturationFluxDensity100T, 12);
+    expect(saturationFluxDensityAtT(core, 62.5)).toBeCloseTo(
+      (core.saturationFluxDensity25T + core.saturationFluxDensity100T) / 2,
+      12,
+    );
+  });
+});

@@ -1,0 +1,128 @@
+import { describe, expect, it } from 'vitest';
+import {
+  EPSILON0,
+  MU0,
+  couplingFromLeakage,
+  demoTransformerSection,
+  layerVoltages,
+  layoutSection,
+  leakageInductanceH,
+  multilayerCapacitanceF,
+  temperatureRiseC,
+  woundSurfaceAreaM2,
+  layerCapacitanceF,
+} from '../../src/transformer';
+
+describe('winding layout (common practice, no source: counted by hand)', () => {
+  const layout = layoutSection(demoTransformerSection);
+  it('lays turns per layer by the usable breadth and the wire over enamel', () => {
+    // Breadth 11 mm − 2 × 1.5 mm margins = 8 mm; 0.099 mm wire → 80 turns a layer; 1200 turns → 15 layers.
+    const secondary = layout.windings.find((w) => w.winding.role === 'secondary')!;
+    expect(secondary.layerCapacity).toBe(80);
+    expect(secondary.layers).toBe(15);
+    expect(secondary.turnsPerLayer).toBe(80);
+    // 15 layers of 0.099 mm and 14 wraps of 25 µm tape between them.
+    expect(secondary.buildM).toBeCloseTo(15 * 0.099e-3 + 14 * 25e-6, 12);
+  });
+
+  it('fills the window with the copper area of every turn', () => {
+    const copper =
+      (20 * Math.PI * 0.2e-3 ** 2) / 4 + (8 * Math.PI * 0.1e-3 ** 2) / 4 + (1200 * Math.PI * 0.08e-3 ** 2) / 4;
+    expect(layout.windowFill).toBeCloseTo(copper / 48e-6, 12);
+  });
+});
+
+describe('layer voltages (common practice, no source)', () => {
+  it('a layer wound back on the previous one stands twice the layer voltage at its far end', () => {
+    // 600 V over 1200 turns: 0.5 V a turn; 80 turns a layer: 40 V end to end, 80 V between layers.
+    expect(layerVoltages(600, 1200, 80, 15)).toEqual({ turnToTurnV: 0.5, layerEndToEndV: 40, layerToLayerV: 80 });
+    expect(layerVoltages(600, 60, 80, 1).layerToLayerV).toBe(0);
+  });
+});
+
+describe('leakage inductance (McLyman ch. 17; Snelling, Soft Ferrites, 2nd ed.)', () => {
+  it('equals the magnetic energy of the one-dimensional window field, integrated numerically', () => {
+    // Field between concentric windings carrying N·I ampere-turns opposed: H rises linearly across the
+    // inner build, is N·I/b across the separation, falls linearly across the outer build (Ampère's law).
+    const turns = 30;
+    const currentA = 1;
+    const breadthM = 10e-3;
+    const mltM = 40e-3;
+    const h1 = 0.6e-3;
+    const gap = 0.2e-3;
+    const h2 = 1.1e-3;
+    const hMax = (turns * currentA) / breadthM;
+    const steps = 30_000;
+    const total = h1 + gap + h2;
+    let energyJ = 0;
+    for (let i = 0; i < steps; i++) {
+      const x = ((i + 0.5) * total) / steps;
+      const h = x < h1 ? (hMax * x) / h1 : x < h1 + gap ? hMax : (hMax * (total - x)) / h2;
+      energyJ += 0.5 * MU0 * h ** 2 * mltM * breadthM * (total / steps);
+    }
+    const fromEnergy = (2 * energyJ) / currentA ** 2;
+    const formula = leakageInductanceH({
+      turns,
+      meanTurnLengthM: mltM,
+      breadthM,
+      innerBuildM: h1,
+      outerBuildM: h2,
+      separationM: gap,
+    });
+    // 1e-6 relative: midpoint rule on 30 000 slices.
+    expect(Math.abs(formula / fromEnergy - 1)).toBeLessThan(1e-6);
+  });
+
+  it('couples by k = √(1 − Lleak/L)', () => {
+    expect(couplingFromLeakage(0.02e-3, 1e-3)).toBeCloseTo(Math.sqrt(0.98), 12);
+  });
+});
+
+describe('self-capacitance of a layered winding', () => {
+  it('the 4(m−1)/(3m²) factor equals the stored energy of a winding wound back and forth, integrated numerically', () => {
+    // Snelling, Soft Ferrites, 2nd ed. (from memory). Independent check: m layers, V over the winding,
+    // linear along each layer; the voltage between adjacent layers runs from 0 to 2V/m along the breadth.
+    const cl = 100e-12;
+    const v = 1;
+    for (const m of [2, 3, 7, 15]) {
+      const steps = 2000;
+      let energyJ = 0;
+      for (let pair = 0; pair < m - 1; pair++) {
+        for (let i = 0; i < steps; i++) {
+          const s = (i + 0.5) / steps;
+          const between = ((2 * v) / m) * s;
+          energyJ += 0.5 * (cl / steps) * between ** 2;
+        }
+      }
+      const equivalent = (2 * energyJ) / v ** 2;
+      expect(Math.abs(multilayerCapacitanceF(cl, m) / equivalent - 1)).toBeLessThan(1e-6);
+    }
+    expect(multilayerCapacitanceF(cl, 1)).toBe(0);
+  });
+
+  it('the layer capacitance is a parallel plate over the dielectric stack', () => {
+    // Bare sheets (copper = overall diameter, no enamel) with 0.1 mm of tape: ε0·εr·A/d, εr 3.2.
+    const c = layerCapacitanceF({
+      meanTurnLengthM: 0.05,
+      breadthM: 0.01,
+      copperDiameterM: 0,
+      overallDiameterM: 0,
+      tapeM: 0.1e-3,
+    });
+    expect(c).toBeCloseTo((EPSILON0 * 3.2 * 0.05 * 0.01) / 0.1e-3, 18);
+  });
+});
+
+describe('temperature rise (McLyman, Transformer and Inductor Design Handbook, 3rd ed., ch. 6)', () => {
+  it('ψ = 0.03 W/cm² gives about 25 °C (McLyman’s design figure for a 25 °C rise, from memory)', () => {
+    const rise = temperatureRiseC(0.03 * 100, 100e-4);
+    expect(rise).toBeGreaterThan(24);
+    expect(rise).toBeLessThan(26);
+  });
+
+  it('At = 41.3·√Ap cm² (Kt for E-I shapes, from memory)', () => {
+    // Wa = 1 cm², Ae = 1 cm²: Ap = 1 cm⁴, At = 41.3 cm².
+    expect(woundSurfaceAreaM2(1e-4, 1e-4)).toBeCloseTo(41.3e-4, 12);
+    expect(temperatureRiseC(0, 1e-3)).toBe(0);
+  });
+});
