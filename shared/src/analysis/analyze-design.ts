@@ -5,13 +5,8 @@ import { driverReport, type DriverReport } from '../driver/driver-report';
 import type { DriverStage } from '../designs/driver-stage.types';
 import type { DriverCheckVerdict } from '../driver/driver-checks';
 import type { MethodInfo } from '../methods';
-import {
-  engineLadderLoadLine,
-  isFlybackFed,
-  pulseDriveOf,
-  solveLoadPoint,
-  type LadderLoadLine,
-} from '../driver/operating-point';
+import { isFlybackFed, solveLoadPoint } from '../driver/operating-point';
+import { engineLadderLoadLine, pulseDriveOf, type LadderLoadLine } from '../driver/ladder-load-line';
 import { DISCHARGE_METHOD, dischargeCheck, trappedChargeCheck } from '../safety/discharge';
 import { creepageChecks, stageSpacing } from '../safety/creepage';
 import type { StageSpacing } from '../safety/creepage';
@@ -146,11 +141,12 @@ const DRIVER_METHOD: MethodInfo = {
 };
 
 /** Resolves the drive of a design into the waveform the ladder model takes. */
-export function resolveDrive(design: Design): {
+export function resolveDrive(givenDesign: Design): {
   drive: SineDrive | PulseDrive;
   deliverablePowerW: number | null;
   currentLimitA: number | null;
 } {
+  const design = withEffectiveTransformer(givenDesign);
   const drive = design.drive;
   if (drive.kind !== 'driver') return { drive, deliverablePowerW: null, currentLimitA: null };
   const stage = drive.driver;

@@ -29,6 +29,7 @@ export function designedTransformerReport(design: Design, driver: DriverReport |
     feedbackTurns: tx.feedbackTurns,
     secondaryTurns: tx.secondaryTurns,
     ambientTemperatureC: stage.ambientTemperatureC ?? 25,
+    forwardLoadPowerW: driver.operatingPoint.ratedLoad.ladderTakesW.forward,
   });
   return analyzeTransformer(section, point, design.targets.spacing);
 }

@@ -55,6 +55,19 @@ describe('the driver reads a designed transformer from its section', () => {
     expect(self && self.kind === 'capacitor' ? self.capacitanceF : null).toBeCloseTo(derived.secondaryCapacitanceF, 20);
   });
 
+  it('the estimate charges the reflected self-capacitance at each turn-on: ½·Cs·(Ns/Np)²·V²·f more switching loss', () => {
+    const without = { ...effective, transformer: { ...effective.transformer, secondaryCapacitanceF: 0 } };
+    const a = estimateBlockingOscillator(effective);
+    const b = estimateBlockingOscillator(without);
+    // The ramp barely moves (the supply sags a little more); the switching term takes the reflected capacitance
+    // beside the 100 pF default stray (½·C·V² per cycle, common practice, no source).
+    expect(a.frequencyHz.value / b.frequencyHz.value).toBeCloseTo(1, 4);
+    const nodeF = 100e-12 + derived.secondaryCapacitanceF * (1200 / 20) ** 2;
+    const expectedW = 0.5 * nodeF * a.supplyVoltageV.value ** 2 * a.frequencyHz.value;
+    expect(a.losses.transistorSwitchingW / expectedW).toBeCloseTo(1, 9);
+    expect(a.losses.transistorSwitchingW).toBeGreaterThan(100 * b.losses.transistorSwitchingW);
+  });
+
   it('leaves a given transformer as stated', () => {
     expect(effectiveDriverStage({ ...stage, transformerChoice: 'given' })).toEqual({
       ...stage,
