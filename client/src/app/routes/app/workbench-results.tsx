@@ -3,7 +3,6 @@ import { Loader, Tabs, Text } from '@mantine/core';
 import type { RevisionDetail, RevisionSummary } from '@ladderwright/shared/api';
 import type { Design } from '@ladderwright/shared/designs';
 import type { DesignReport, HeadlineSource } from '@ladderwright/shared/analysis';
-import { LadderCharts } from '../../../features/workbench/components/ladder-charts';
 import { OtherFigures } from '../../../features/workbench/components/other-figures';
 
 export interface WorkbenchResultsProps {
@@ -13,6 +12,8 @@ export interface WorkbenchResultsProps {
   draft: Design;
   isDirty: boolean;
   report: DesignReport;
+  /** False in an archived project: no simulation job can be started. */
+  canSimulate: boolean;
   /** The saved revision's figures with their source (a current stored simulation or the estimate); null for a draft. */
   headline?: HeadlineSource | null;
 }
@@ -37,6 +38,10 @@ const ChecksTable = lazy(() =>
 const DriverPanel = lazy(() =>
   import('../../../features/workbench/components/driver-panel').then((module) => ({ default: module.DriverPanel })),
 );
+// The first tab's charts too: the figures beside them show while the chart code arrives.
+const LadderCharts = lazy(() =>
+  import('../../../features/workbench/components/ladder-charts').then((module) => ({ default: module.LadderCharts })),
+);
 const LadderDiagram = lazy(() =>
   import('../../../features/workbench/components/ladder-diagram').then((module) => ({ default: module.LadderDiagram })),
 );
@@ -46,7 +51,9 @@ const PlotsPanel = memo(function PlotsPanel({ report }: { report: DesignReport }
   return (
     <>
       <OtherFigures report={report} />
-      <LadderCharts report={report} />
+      <Suspense fallback={<Loader size="sm" aria-label="Loading the charts" />}>
+        <LadderCharts report={report} />
+      </Suspense>
     </>
   );
 });
@@ -59,6 +66,7 @@ export function WorkbenchResults({
   draft,
   isDirty,
   report,
+  canSimulate,
   headline = null,
 }: WorkbenchResultsProps) {
   return (
@@ -107,6 +115,7 @@ export function WorkbenchResults({
             frequencyHz={report.resolvedDrive.frequencyHz}
             safeVoltageV={draft.targets.safeVoltageV}
             isDriverDesign={draft.drive.kind === 'driver'}
+            canStart={canSimulate}
           />
         </Tabs.Panel>
         <Tabs.Panel value="history" pt="sm">
