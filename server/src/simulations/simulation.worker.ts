@@ -1,11 +1,17 @@
 import type { SimulationResult, SimulationSummary, WaveformPhase, WaveformTrace } from '@ladderwright/shared/api';
+import { predictDatasets } from '@ladderwright/shared/calibration';
 import { validateDesign } from '@ladderwright/shared/designs';
 import { ENGINE_VERSION } from '@ladderwright/shared/multiplier';
 import { isDomainError } from '@ladderwright/shared/errors';
 import { dischargeRuleLimits } from '@ladderwright/shared/safety';
 import { ladderSpecFromDesign } from '@ladderwright/shared/circuits';
 import { type PlotTrace, runDriverDesign, runDriverStartUp, runLadder } from '@ladderwright/shared/runs';
-import type { SimulationProgressMessage, SimulationTask, SimulationTaskOutcome } from './simulation-task.types';
+import {
+  CALIBRATION_PREDICT,
+  type SimulationProgressMessage,
+  type SimulationTask,
+  type SimulationTaskOutcome,
+} from './simulation-task.types';
 
 /*
  * Worker-thread entry (piscina). Everything here runs off the request thread; the main thread sees only
@@ -143,6 +149,12 @@ export function runSimulationTask(task: SimulationTask): SimulationTaskOutcome {
   if (task.kind === 'fault-throw') throw new Error('fault injection: the simulation worker threw');
   if (task.kind === 'fault-exit') process.exit(70);
   try {
+    if (task.kind === CALIBRATION_PREDICT) {
+      // The calibration set the fitted values itself within their prior ranges; the engine or the
+      // simulator refusing a set is an answer (null), not a failure of the job.
+      const shouldCancel = (): boolean => Atomics.load(task.cancelFlag, 0) === 1;
+      return { ok: true, predictions: predictDatasets(task.document, task.datasets ?? [], { shouldCancel }) };
+    }
     // Validated again here: a stored document may predate a limit of the domain.
     validateDesign(task.document);
     return { ok: true, result: simulate(task) };

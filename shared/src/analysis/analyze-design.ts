@@ -5,13 +5,8 @@ import { driverReport, type DriverReport } from '../driver/driver-report';
 import type { DriverStage } from '../designs/driver-stage.types';
 import type { DriverCheckVerdict } from '../driver/driver-checks';
 import type { MethodInfo } from '../methods';
-import {
-  engineLadderLoadLine,
-  isFlybackFed,
-  pulseDriveOf,
-  solveLoadPoint,
-  type LadderLoadLine,
-} from '../driver/operating-point';
+import { isFlybackFed, solveLoadPoint } from '../driver/operating-point';
+import { engineLadderLoadLine, pulseDriveOf, type LadderLoadLine } from '../driver/ladder-load-line';
 import { DISCHARGE_METHOD, dischargeCheck, trappedChargeCheck } from '../safety/discharge';
 import { creepageChecks, stageSpacing } from '../safety/creepage';
 import type { StageSpacing } from '../safety/creepage';

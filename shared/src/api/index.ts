@@ -82,6 +82,13 @@ export type {
   SimulationJob,
   CurrentSimulationResponse,
 } from './simulations.types';
+export type {
+  Calibration,
+  CalibrationInputSummary,
+  CalibrationParameterOption,
+  CalibratedRevisionResponse,
+  StartCalibrationRequest,
+} from './calibrations.types';
 export { AUDIT_ACTIONS, MAIL_KINDS } from './admin.types';
 export type {
   UserListQuery,

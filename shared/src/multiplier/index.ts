@@ -21,7 +21,7 @@ export type {
   CurvePoint,
   CapacitorStress,
   DiodeStress,
-  DiodeModel,
+  ShockleyDiode,
   LadderNodeVoltage,
   LadderNodeColumn,
   TextbookFigures,

@@ -6,7 +6,7 @@ import { MnaSystem } from '../sim/mna-system';
 import { readSettlingTimes, TurnOnTrigger } from '../sim/oscillation-measures';
 import { TransientStepper } from '../sim/transient';
 import { downsampleMinMax } from '../sim/waveform-measures';
-import { driverDesignCircuit, driverPeriodGuessS } from './driver-runs';
+import { driverDesignCircuit, driverPeriodGuessS } from './driver-design-circuit';
 import type { PlotTrace } from './ladder-runs';
 
 export interface StartUpOptions {

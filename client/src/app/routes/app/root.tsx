@@ -16,6 +16,7 @@ import { useSignOut } from '../../../features/auth/api/sign-out';
 import { useInbox } from '../../../features/inbox/api/get-inbox';
 import { getProjectQueryOptions } from '../../../features/projects/api/get-project';
 import { useProjects } from '../../../features/projects/api/get-projects';
+import { ArchivedProjectNotice } from '../../../features/projects/components/archived-project-notice';
 import { ProjectNav } from '../../../features/projects/components/project-nav';
 import { showNotification } from '../../../lib/show-notification';
 
@@ -57,6 +58,8 @@ export function AppRoot() {
   const location = useLocation();
   const signOut = useSignOut({ onSuccess: () => void navigate(paths.signIn.getHref(), { replace: true }) });
 
+  const activeProject = projects.data?.find((project) => project.id === projectId);
+
   if (!user) return <Navigate to={paths.signIn.getHref(location.pathname)} replace />;
 
   const handleSignOut = () =>
@@ -72,6 +75,7 @@ export function AppRoot() {
       inboxCount={inbox.data?.actionCount ?? 0}
       navigation={<ProjectNav projects={projects.data} activeProjectId={projectId} isLoading={projects.isPending} />}
     >
+      {activeProject?.isArchived && <ArchivedProjectNotice project={activeProject} />}
       <Outlet />
     </AppShell>
   );

@@ -1,3 +1,4 @@
+import { canActInProject } from '@ladderwright/shared/auth';
 import { useMemo } from 'react';
 import { Accordion, Anchor, Breadcrumbs, Button, Grid, Group, Paper, Stack, Text, Title } from '@mantine/core';
 import { useDocumentTitle } from '@mantine/hooks';
@@ -124,7 +125,7 @@ export function SignOffRoute() {
                 designId={designId}
                 revisionNumber={revisionNumber}
                 anchorOptions={anchorOptions}
-                canComment={signOff.isSuccess}
+                canComment={signOff.isSuccess && canActInProject(project, 'review.comment')}
               />
             </Paper>
           </Stack>

@@ -12,6 +12,8 @@ export interface WorkbenchResultsProps {
   draft: Design;
   isDirty: boolean;
   report: DesignReport;
+  /** False in an archived project: no simulation job can be started. */
+  canSimulate: boolean;
   /** The saved revision's figures with their source (a current stored simulation or the estimate); null for a draft. */
   headline?: HeadlineSource | null;
 }
@@ -64,6 +66,7 @@ export function WorkbenchResults({
   draft,
   isDirty,
   report,
+  canSimulate,
   headline = null,
 }: WorkbenchResultsProps) {
   return (
@@ -112,6 +115,7 @@ export function WorkbenchResults({
             frequencyHz={report.resolvedDrive.frequencyHz}
             safeVoltageV={draft.targets.safeVoltageV}
             isDriverDesign={draft.drive.kind === 'driver'}
+            canStart={canSimulate}
           />
         </Tabs.Panel>
         <Tabs.Panel value="history" pt="sm">
