@@ -163,6 +163,23 @@ export function SignOffRoute() {
                 projectRole={project.myRole}
               />
             </Paper>
+            {revision.document.drive.kind === 'driver' &&
+              revision.document.drive.driver.transformerChoice === 'designed' && (
+                <Paper withBorder p="md">
+                  <Title order={2} size="h4" mb="xs">
+                    Transformer sheet (PDF)
+                  </Title>
+                  <SpecSheetDownload
+                    projectId={projectId}
+                    designId={designId}
+                    designName={design.name}
+                    revisionNumber={revisionNumber}
+                    state={state}
+                    projectRole={project.myRole}
+                    sheet="transformer"
+                  />
+                </Paper>
+              )}
           </Stack>
         </Grid.Col>
       </Grid>
