@@ -1,6 +1,6 @@
 import { Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
-import type { Transaction } from 'sequelize';
+import { QueryTypes, type Transaction } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import type {
   AddMemberRequest,
@@ -160,16 +160,18 @@ export class ProjectsService {
   }
 
   /** The projects `userId` is a member of, with that user's role and the member count. */
+  /** The caller's projects, member counts included, in one query; active ones first, then by name. */
   async listForUser(userId: string): Promise<ProjectSummary[]> {
-    const rows = await this.members.findAll({ where: { userId }, include: [ProjectModel] });
-    const counts = await this.memberCounts(rows.map((row) => row.projectId));
-    return rows
-      .map((row) => {
-        const project = row.project;
-        if (!project) throw new Error('membership loaded without its project');
-        return this.toSummary(project, row.role, counts.get(project.id) ?? 0);
-      })
-      .sort((a, b) => Number(a.isArchived) - Number(b.isArchived) || a.name.localeCompare(b.name));
+    const rows = await this.sequelize.query<ProjectSummary>(
+      `SELECT p.id, p.name, p.product_line AS "productLine", p.description, m.role AS "myRole",
+              (SELECT count(*)::int FROM project_members c WHERE c.project_id = p.id) AS "memberCount",
+              p.archived_at IS NOT NULL AS "isArchived"
+         FROM project_members m
+         JOIN projects p ON p.id = m.project_id
+        WHERE m.user_id = :userId`,
+      { replacements: { userId }, type: QueryTypes.SELECT },
+    );
+    return rows.sort((a, b) => Number(a.isArchived) - Number(b.isArchived) || a.name.localeCompare(b.name));
   }
 
   async detail(projectId: string, myRole: ProjectRole): Promise<ProjectDetail> {
@@ -284,15 +286,6 @@ export class ProjectsService {
         'userId',
       );
     }
-  }
-
-  private async memberCounts(projectIds: string[]): Promise<Map<string, number>> {
-    if (projectIds.length === 0) return new Map();
-    const rows = (await this.members.count({ where: { projectId: projectIds }, group: ['projectId'] })) as unknown as {
-      projectId: string;
-      count: number | string;
-    }[];
-    return new Map(rows.map((row) => [row.projectId, Number(row.count)]));
   }
 
   private toSummary(project: ProjectModel, myRole: ProjectRole, memberCount: number): ProjectSummary {
