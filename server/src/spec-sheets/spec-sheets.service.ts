@@ -16,8 +16,14 @@ import { CurrentSimulationService } from '../simulations/current-simulation.serv
 import { RevisionLookupService } from '../revisions/revision-lookup.service';
 import type { RevisionRef } from '../revisions/revision-ref.decorator';
 import { fileStem } from '../revisions/revision-shapes';
-import { renderSpecSheetPdf } from './spec-sheet-pdf';
+import type * as PdfModule from './spec-sheet-pdf';
 import type { SpecSheetContent, WindingSpec } from './spec-sheet.types';
+
+/** The PDF writer (pdfkit and its fonts), loaded at the first sheet rather than at start-up. */
+function loadPdf(): typeof PdfModule {
+  // eslint-disable-next-line @typescript-eslint/no-require-imports -- a lazy load; import() would need ESM here
+  return require('./spec-sheet-pdf') as typeof PdfModule;
+}
 
 export interface SpecSheetFile {
   fileName: string;
@@ -150,7 +156,7 @@ export class SpecSheetsService {
     const suffix = isReleased ? '' : '-not-released';
     return {
       fileName: `${fileStem(design.name)}-r${revision.number}-spec-sheet${suffix}.pdf`,
-      body: await renderSpecSheetPdf(content),
+      body: await loadPdf().renderSpecSheetPdf(content),
     };
   }
 }

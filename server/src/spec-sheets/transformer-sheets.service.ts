@@ -11,8 +11,14 @@ import { RevisionLookupService } from '../revisions/revision-lookup.service';
 import type { RevisionRef } from '../revisions/revision-ref.decorator';
 import { fileStem } from '../revisions/revision-shapes';
 import type { SpecSheetFile } from './spec-sheets.service';
-import { renderTransformerSheetPdf } from './transformer-sheet-pdf';
+import type * as PdfModule from './transformer-sheet-pdf';
 import type { TransformerSheetContent } from './transformer-sheet.types';
+
+/** The PDF writer (pdfkit and its fonts), loaded at the first sheet rather than at start-up. */
+function loadPdf(): typeof PdfModule {
+  // eslint-disable-next-line @typescript-eslint/no-require-imports -- a lazy load; import() would need ESM here
+  return require('./transformer-sheet-pdf') as typeof PdfModule;
+}
 
 /**
  * The transformer sheet of one revision, for the magnetics supplier: from the stored document's transformer
@@ -87,7 +93,7 @@ export class TransformerSheetsService {
     const suffix = isReleased ? '' : '-not-released';
     return {
       fileName: `${fileStem(design.name)}-r${revision.number}-transformer-sheet${suffix}.pdf`,
-      body: await renderTransformerSheetPdf(content),
+      body: await loadPdf().renderTransformerSheetPdf(content),
     };
   }
 }
