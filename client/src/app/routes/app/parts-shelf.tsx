@@ -1,6 +1,8 @@
+import { canActInProject } from '@ladderwright/shared/auth';
 import { Anchor, Breadcrumbs, Button, Group, Paper, Stack, Text, Title } from '@mantine/core';
 import { useDocumentTitle } from '@mantine/hooks';
 import { useSuspenseQuery } from '@tanstack/react-query';
+import { useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { apiPaths, paths } from '../../../config/paths';
 import { AddPartForm } from '../../../features/parts/components/add-part-form';
@@ -16,7 +18,9 @@ export function PartsShelfRoute() {
   const { projectId = '' } = useParams();
   const { data: project } = useSuspenseQuery(getProjectQueryOptions(projectId));
   useDocumentTitle(`${project.name} · Parts shelf · Ladderwright`);
-  const canManage = project.myRole === 'lead';
+  const canManage = canActInProject(project, 'parts.manage');
+  // Rows pasted into the Add-a-part form go to the import's preview.
+  const [pasted, setPasted] = useState<{ file: File; serial: number } | null>(null);
   return (
     <Stack gap="lg">
       <Breadcrumbs>
@@ -43,18 +47,23 @@ export function PartsShelfRoute() {
             <Title order={2} size="h4" mb="sm">
               Add a part
             </Title>
-            <AddPartForm projectId={projectId} />
+            <AddPartForm
+              projectId={projectId}
+              onPasteRows={(file) => setPasted((last) => ({ file, serial: (last?.serial ?? 0) + 1 }))}
+            />
           </Paper>
           <Paper withBorder p="md">
             <Title order={2} size="h4" mb="sm">
               Import from CSV
             </Title>
-            <PartsImport projectId={projectId} />
+            <PartsImport key={pasted?.serial ?? 0} projectId={projectId} pasted={pasted?.file ?? null} />
           </Paper>
         </>
       ) : (
         <Text size="sm" c="dimmed">
-          The project lead manages this shelf.
+          {project.isArchived
+            ? 'The project is archived: the shelf can be read and exported but not changed.'
+            : 'The project lead manages this shelf.'}
         </Text>
       )}
     </Stack>
