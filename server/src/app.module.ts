@@ -28,6 +28,7 @@ import { DesignsModule } from './designs/designs.module';
 import { HealthModule } from './health/health.module';
 import { MailModule } from './mail/mail.module';
 import { PartsModule } from './parts/parts.module';
+import { MemberRequestsModule } from './member-requests/member-requests.module';
 import { ProjectsModule } from './projects/projects.module';
 import { ReviewsModule } from './reviews/reviews.module';
 import { SpecSheetsModule } from './spec-sheets/spec-sheets.module';
@@ -51,6 +52,7 @@ export class AppModule {
         UsersModule,
         AuthModule,
         ProjectsModule,
+        MemberRequestsModule,
         HealthModule,
         MailModule,
         ReviewsModule,

@@ -53,6 +53,7 @@ export type {
   InboxItem,
   InboxComment,
   Inbox,
+  InboxMemberRequest,
   OutboxMail,
   Outbox,
 } from './reviews.types';
@@ -82,7 +83,7 @@ export type {
   SimulationJob,
   CurrentSimulationResponse,
 } from './simulations.types';
-export { AUDIT_ACTIONS, MAIL_KINDS } from './admin.types';
+export { AUDIT_ACTIONS, MAIL_KINDS, MEMBER_REQUEST_NOTE_MAX } from './admin.types';
 export type {
   UserListQuery,
   UserPage,
@@ -100,5 +101,9 @@ export type {
   ChangeMemberRoleRequest,
   MailKind,
   NotificationSettings,
+  MemberRequestState,
+  CreateMemberRequestRequest,
+  DeclineMemberRequestRequest,
+  MemberRequest,
 } from './admin.types';
 export { START_UP_WINDOW_S } from './simulation-limits';
