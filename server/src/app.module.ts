@@ -92,6 +92,9 @@ export async function createApp(
 export function configureApp(app: NestExpressApplication, env: AppEnv): void {
   app.setGlobalPrefix(API_PREFIX);
   app.disable('x-powered-by');
+  // Off unless TRUST_PROXY names the reverse proxies: then request.ip (the per-address sign-in limit, the audit's
+  // client address) is the visitor's from X-Forwarded-For, not the proxy's.
+  app.set('trust proxy', typeof env.trustProxy === 'object' ? [...env.trustProxy] : env.trustProxy);
   // First: a change sent by a page of another origin is refused before its body is read.
   app.use(sameOriginOnly(env));
   // Before any route: an oversized body is refused from its Content-Length (413), unread.
