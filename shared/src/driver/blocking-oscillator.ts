@@ -7,7 +7,7 @@ import type {
   BlockingOscillatorOptions,
   OscillatorNumbers,
 } from './blocking-oscillator.types';
-import { checkStage, DEFAULT_COLLECTOR_NODE_CAPACITANCE_F, stageAt } from './oscillator-stage';
+import { checkStage, collectorNodeCapacitanceOf, stageAt } from './oscillator-stage';
 
 const source3 =
   'Wikipedia "Blocking oscillator" (read); Pressman, Switching Power Supply Design, 3rd ed. (from memory)';
@@ -236,7 +236,7 @@ function voltageAndPowerEstimates(
   | 'inputPowerW'
   | 'efficiency'
 > {
-  const nodeC = options.collectorNodeCapacitanceF ?? DEFAULT_COLLECTOR_NODE_CAPACITANCE_F;
+  const nodeC = options.collectorNodeCapacitanceF ?? collectorNodeCapacitanceOf(driver);
   return {
     forwardSecondaryPeakV: est(
       r.forwardSecV,

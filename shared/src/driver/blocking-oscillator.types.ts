@@ -11,7 +11,10 @@ export interface BlockingOscillatorOptions {
   flybackSecondaryPeakV?: number;
   /** Power (W) the load takes from the forward pulse during the on-time, drawn straight from the supply. */
   forwardLoadPowerW?: number;
-  /** Capacitance (F) at the collector node, for the leakage spike of an unclamped stage. Default 100 pF. */
+  /**
+   * Capacitance (F) at the collector node, for the leakage spike of an unclamped stage and the switching loss.
+   * Default 100 pF plus the secondary's self-capacitance reflected by (Ns/Np)².
+   */
   collectorNodeCapacitanceF?: number;
   /** State of charge of a cells supply (1 = full). Default 1. */
   chargeFraction?: number;

@@ -9,6 +9,17 @@ import type {
 
 /** Capacitance at the collector node when none is given (F), for the leakage spike and the switching loss. */
 export const DEFAULT_COLLECTOR_NODE_CAPACITANCE_F = 100e-12;
+
+/**
+ * Capacitance at the collector node (F): the default stray plus the secondary's self-capacitance reflected
+ * by the turns ratio squared, C·(Ns/Np)², which the collector charges and the transistor discharges each cycle.
+ */
+export function collectorNodeCapacitanceOf(driver: DriverStage): number {
+  const tx = driver.transformer;
+  return (
+    DEFAULT_COLLECTOR_NODE_CAPACITANCE_F + (tx.secondaryCapacitanceF ?? 0) * (tx.secondaryTurns / tx.primaryTurns) ** 2
+  );
+}
 /** Supply bypass at the stage when none is given (F): the simulated circuit's default. */
 export const DEFAULT_BYPASS_CAPACITANCE_F = 100e-6;
 /** The transistor's Ebers–Moll saturation current when the design gives none: the simulator's default. */
@@ -318,7 +329,7 @@ function stagePower(
   const baseDriveJ = vBase * ibMean * tOn;
   const forwardW = options.forwardLoadPowerW ?? 0;
   const lampA = driver.indicatorLamp?.currentA ?? 0;
-  const nodeC = options.collectorNodeCapacitanceF ?? DEFAULT_COLLECTOR_NODE_CAPACITANCE_F;
+  const nodeC = options.collectorNodeCapacitanceF ?? collectorNodeCapacitanceOf(driver);
   const switchingJ = 0.5 * nodeC * vin * vin;
   const inputW =
     frequencyHz * (q.vceSatV * rampC + seriesR * rampSquareA2S + energyJ + baseDriveJ + switchingJ) +

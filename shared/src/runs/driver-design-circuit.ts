@@ -7,12 +7,14 @@ import { supplyThevenin } from '../driver/battery';
 import { estimateBlockingOscillator } from '../driver/blocking-oscillator';
 import { DomainError, isDomainError } from '../errors';
 import type { Circuit } from '../sim/circuit.types';
+import { withEffectiveTransformer } from '../transformer/given-numbers';
 
 /**
  * Steady-state capacitor voltages (design order, V) of a driver design from the engine: analyzeDesign's
  * per-node cycle means, each capacitor the difference of its two nodes (node ids are the simulator's).
  */
-export function engineCapacitorVoltagesV(design: Design): number[] {
+export function engineCapacitorVoltagesV(givenDesign: Design): number[] {
+  const design = withEffectiveTransformer(givenDesign);
   if (design.drive.kind !== 'driver') throw new DomainError('invalid_design', 'needs a driver drive', 'drive.kind');
   const report = analyzeDesign(design);
   const mean = new Map<string, number>(report.analysis.nodes.map((n) => [n.id, n.meanV]));
@@ -31,7 +33,8 @@ export function engineCapacitorVoltagesV(design: Design): number[] {
 }
 
 /** The driver circuit of a design with the ladder capacitors starting at the given voltages (design order). */
-export function driverDesignCircuit(design: Design, initialCapacitorVoltagesV: ReadonlyArray<number>): Circuit {
+export function driverDesignCircuit(givenDesign: Design, initialCapacitorVoltagesV: ReadonlyArray<number>): Circuit {
+  const design = withEffectiveTransformer(givenDesign);
   if (design.drive.kind !== 'driver') throw new DomainError('invalid_design', 'needs a driver drive', 'drive.kind');
   return buildDriverCircuit(design.drive.driver, {
     ladder: { ...ladderPartFromDesign(design), initialCapacitorVoltagesV },

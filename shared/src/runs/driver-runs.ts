@@ -9,6 +9,7 @@ import type { DriverRunOptions, DriverRunResult } from './driver-run.types';
 import { DriverSettling } from './driver-settling';
 import { followLadderDischarge, type LadderRunResult } from './ladder-runs';
 import { progressReporter } from './progress-reporter';
+import { withEffectiveTransformer } from '../transformer/given-numbers';
 
 /**
  * A design driven by its blocking oscillator (driver + transformer + ladder), by transient simulation. A
@@ -30,7 +31,8 @@ import { progressReporter } from './progress-reporter';
  * and with `dischargeToV` the supply is switched off and the bleeder discharge followed (the stopped
  * transformer's secondary is a short through its winding resistance). Volts, amperes, seconds, joules.
  */
-export function runDriverDesign(design: Design, options: DriverRunOptions = {}): DriverRunResult {
+export function runDriverDesign(givenDesign: Design, options: DriverRunOptions = {}): DriverRunResult {
+  const design = withEffectiveTransformer(givenDesign);
   if (design.drive.kind !== 'driver')
     throw new DomainError('invalid_design', 'runDriverDesign needs a driver drive', 'drive.kind');
   const estimatePeriodS = driverPeriodGuessS(design.drive.driver);

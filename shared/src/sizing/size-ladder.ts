@@ -194,7 +194,7 @@ function ratingFor(
 }
 
 function chooseBleeder(
-  analysis: LadderAnalysis,
+  analysis: Pick<LadderAnalysis, 'ladderTopMeanV'>,
   storedEnergyJ: number,
   request: SizerRequest,
   resistors: readonly ResistorOption[],
@@ -251,7 +251,10 @@ export function sizeLadder(request: SizerRequest): SizerResult {
   const extra = request.extraCells ?? 8;
 
   let evaluated = 0;
-  const meeting: Array<Omit<SizerCandidate, 'rank' | 'bleeder'> & { analysis: LadderAnalysis }> = [];
+  // Each keeps only what its bleeder is chosen by (thousands may meet the spec; a few are shown).
+  const meeting: Array<
+    Omit<SizerCandidate, 'rank' | 'bleeder'> & { analysis: Pick<LadderAnalysis, 'ladderTopMeanV'> }
+  > = [];
   outer: for (const topology of topologies) {
     const perUnitV = topology === 'full-wave' ? 2 * vmax : vmax;
     const minUnits = topology === 'bridge-doubler' ? 2 : Math.max(1, Math.ceil(target / perUnitV));
@@ -316,7 +319,7 @@ export function sizeLadder(request: SizerRequest): SizerResult {
               partCount: capacitorsF.length + analysis.diodes.length,
               worstMarginPct: worst,
               cost,
-              analysis,
+              analysis: { ladderTopMeanV: analysis.ladderTopMeanV },
             });
           }
         }
