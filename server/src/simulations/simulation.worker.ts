@@ -1,4 +1,5 @@
 import type { SimulationResult, SimulationSummary, WaveformPhase, WaveformTrace } from '@ladderwright/shared/api';
+import { capacitorTraceName, TRACE_NAMES } from '@ladderwright/shared/api';
 import { predictDatasets } from '@ladderwright/shared/calibration';
 import { validateDesign } from '@ladderwright/shared/designs';
 import { ENGINE_VERSION } from '@ladderwright/shared/multiplier';
@@ -26,7 +27,12 @@ export const DEFAULT_MAX_STEP_PER_PERIOD = 100;
 /** Buckets of the min/max downsampling: at most twice as many points per trace reach the client. */
 const PLOT_BUCKETS = 500;
 
-function toWaveform(phase: WaveformPhase, trace: PlotTrace, name = 'V(top)', unit: 'V' | 'A' = 'V'): WaveformTrace {
+function toWaveform(
+  phase: WaveformPhase,
+  trace: PlotTrace,
+  name: string = TRACE_NAMES.output,
+  unit: 'V' | 'A' = 'V',
+): WaveformTrace {
   return { name, phase, unit, timeS: trace.timeS, values: trace.values };
 }
 
@@ -90,13 +96,13 @@ function simulateDriver(task: SimulationTask, post: (fraction: number) => void):
   const waveforms: WaveformTrace[] = [];
   if (coldRun) waveforms.push(toWaveform('startup', coldRun.curve));
   waveforms.push(toWaveform('steady-state', run.waveforms.outputV));
-  waveforms.push(toWaveform('steady-state', run.waveforms.collectorV, 'V(col)'));
-  waveforms.push(toWaveform('steady-state', run.waveforms.secondaryV, 'V(s)'));
-  waveforms.push(toWaveform('steady-state', run.waveforms.primaryA, 'I(Lp)', 'A'));
+  waveforms.push(toWaveform('steady-state', run.waveforms.collectorV, TRACE_NAMES.collector));
+  waveforms.push(toWaveform('steady-state', run.waveforms.secondaryV, TRACE_NAMES.secondary));
+  waveforms.push(toWaveform('steady-state', run.waveforms.primaryA, TRACE_NAMES.primaryCurrent, 'A'));
   if (run.discharge) {
     waveforms.push(toWaveform('discharge', run.discharge.output));
     for (const [capacitor, trace] of Object.entries(run.discharge.capacitorVoltagesV)) {
-      waveforms.push(toWaveform('discharge', trace, `V(${capacitor})`));
+      waveforms.push(toWaveform('discharge', trace, capacitorTraceName(capacitor)));
     }
   }
   return { summary, waveforms };
@@ -138,7 +144,7 @@ function simulate(task: SimulationTask): SimulationResult {
     waveforms.push(toWaveform('discharge', run.discharge.output));
     // Each capacitor's own voltage, min/max-downsampled by runLadder like the output (C1, C2, … in design order).
     for (const [capacitor, trace] of Object.entries(run.discharge.capacitorVoltagesV)) {
-      waveforms.push(toWaveform('discharge', trace, `V(${capacitor})`));
+      waveforms.push(toWaveform('discharge', trace, capacitorTraceName(capacitor)));
     }
   }
   return { summary, waveforms };

@@ -109,3 +109,4 @@ export type {
   NotificationSettings,
 } from './admin.types';
 export { START_UP_WINDOW_S } from './simulation-limits';
+export { TRACE_NAMES, capacitorTraceName, capacitorOfTrace } from './waveform-traces';

@@ -242,14 +242,17 @@ function outputSignsNear(
   let below = positive ?? { loadA: 0, outputV: NaN };
   let previous: { loadA: number; outputV: number } | null = null;
   let above = zeroA;
-  for (let step = 0; step < 6 && above - below.loadA > 1e-5 * above; step += 1) {
-    // The line through the last two loads with output, else halfway; aimed a little past the crossing
-    // on alternate steps so that both sides close in.
+  let isLastAbove = false;
+  for (let step = 0; step < 6 && above - below.loadA > 2e-5 * above; step += 1) {
+    // The line through the last two loads with output, else halfway; aimed 1e-5 past the crossing after a
+    // load with output and short of it after one without, so that both sides close in to about the
+    // bisection's last steps.
     const slope = previous ? (below.outputV - previous.outputV) / (below.loadA - previous.loadA) : NaN;
     let guessA = slope < 0 ? below.loadA - below.outputV / slope : 0.5 * (below.loadA + above);
-    guessA *= step % 2 === 0 ? 1 + 2e-6 : 1 - 2e-6;
+    guessA *= isLastAbove ? 1 - 1e-5 : 1 + 1e-5;
     if (!(guessA > below.loadA && guessA < above)) guessA = 0.5 * (below.loadA + above);
     const outputV = pointAt(guessA).outputV;
+    isLastAbove = !(outputV > 0);
     if (outputV > 0) {
       previous = below;
       below = { loadA: guessA, outputV };

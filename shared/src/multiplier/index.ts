@@ -27,5 +27,5 @@ export type {
   TextbookFigures,
 } from './ladder.types';
 export type { MethodInfo } from '../methods';
-export { capacitorPlaces, capacitorRoleChanges } from './capacitor-places';
+export { capacitorGradeFactors, capacitorPlaces, capacitorRoleChanges } from './capacitor-places';
 export type { CapacitorPlace, CapacitorRoleChange } from './capacitor-places';

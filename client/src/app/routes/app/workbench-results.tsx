@@ -1,4 +1,4 @@
-import { lazy, memo, Suspense } from 'react';
+import { lazy, memo, Suspense, useDeferredValue } from 'react';
 import { Loader, Tabs, Text } from '@mantine/core';
 import type { RevisionDetail, RevisionSummary } from '@ladderwright/shared/api';
 import type { Design } from '@ladderwright/shared/designs';
@@ -70,10 +70,13 @@ export function WorkbenchResults({
   revisions,
   draft,
   isDirty,
-  report,
+  report: latestReport,
   canSimulate,
   headline = null,
 }: WorkbenchResultsProps) {
+  // The tabs draw charts and the schematic: they follow the report at low priority, after the Verdict strip has
+  // shown the new figures, and a newer keystroke interrupts their render instead of waiting for it.
+  const report = useDeferredValue(latestReport);
   return (
     <Suspense fallback={<Loader size="sm" aria-label="Loading the tab" />}>
       <Tabs defaultValue="plots" keepMounted={false}>
