@@ -7,7 +7,7 @@
 // the output (ladder top) at the end and its mean over the last 0.5 ms. CPU times (ours from the process,
 // ngspice's from bash's `times`) are the fairer ratio on a shared machine; target ours/ngspice ≤ 0.33.
 import { designExamples } from '../../shared/src/designs/design-examples';
-import { driverDesignCircuit, driverPeriodGuessS } from '../../shared/src/runs/driver-runs';
+import { driverDesignCircuit, driverPeriodGuessS } from '../../shared/src/runs/driver-design-circuit';
 import { simulateTransient } from '../../shared/src/sim/transient-analysis';
 import { toSpiceNetlist } from '../../shared/src/sim/to-spice-netlist';
 import { windowMean } from '../../shared/src/sim/waveform-measures';

@@ -92,6 +92,10 @@ function firstLoad() {
   console.log(
     `ratio Workbench / sign-in: raw ${(workbench.rawBytes / signIn.rawBytes).toFixed(2)}, gzip ${(workbench.gzipBytes / signIn.gzipBytes).toFixed(2)}`,
   );
+  const targetGzipBytes = 250 * 1024;
+  console.log(
+    `Workbench initial JS ${kib(workbench.gzipBytes)} gzip (target ≤ ${kib(targetGzipBytes)}${workbench.gzipBytes <= targetGzipBytes ? ', met' : ', NOT met'}); sign-in route ${kib(signIn.gzipBytes)}`,
+  );
 }
 
 function liveRecompute() {

@@ -1,4 +1,6 @@
+import { spawn } from 'node:child_process';
 import type { AddressInfo } from 'node:net';
+import { join } from 'node:path';
 import request from 'supertest';
 import type { DesignDetail, RevisionDetail } from '@ladderwright/shared/api';
 import type { Design } from '@ladderwright/shared/designs';
@@ -32,6 +34,33 @@ async function firstRevision(
 
 function saveBody(document: Design, note: string) {
   return { baseRevisionNumber: 1, document, changeNote: note };
+}
+
+interface BurstOutcome {
+  statuses: number[];
+  bystanderStatus: number;
+  bystanderMs: number;
+}
+
+/** Runs utils/burst-client.mjs in its own process (an outside client) and resolves to what it measured. */
+function runBurstClient(plan: {
+  baseUrl: string;
+  cookie: string;
+  requests: { path: string; body: unknown }[];
+  bystanderPath: string;
+}): Promise<BurstOutcome> {
+  return new Promise((resolve, reject) => {
+    const child = spawn(process.execPath, [join(__dirname, 'utils', 'burst-client.mjs')], {
+      stdio: ['pipe', 'pipe', 'inherit'],
+    });
+    let output = '';
+    child.stdout.on('data', (chunk: Buffer) => (output += chunk.toString()));
+    child.on('error', reject);
+    child.on('exit', (code) =>
+      code === 0 ? resolve(JSON.parse(output) as BurstOutcome) : reject(new Error(`burst client exited ${code}`)),
+    );
+    child.stdin.end(JSON.stringify(plan));
+  });
 }
 
 // A transaction that needs a second pooled connection deadlocks once every connection is held by such a
@@ -105,31 +134,30 @@ describe('a burst of 50 saves and creations beside a bystander', () => {
     await testApp?.close();
   });
 
-  it('answers all 50 and a bystander with success, none with 503 (default pool of 10)', async () => {
+  it('answers all 50 with success and the bystander within 1 s (default pool of 10)', async () => {
     const designs = await Promise.all(
       Array.from({ length: 25 }, (_, i) =>
         createDesign(testApp, project.id, engineer.id, { name: `Burst ${i}`, from: TEMPLATE }),
       ),
     );
     const document = await firstRevision(baseUrl, cookie, project.id, designs[0]?.id ?? '');
-    const saves = designs.map((design) =>
-      request(baseUrl)
-        .post(`/api/projects/${project.id}/designs/${design.id}/revisions`)
-        .set('Cookie', cookie)
-        .send(saveBody(document, 'burst save')),
-    );
-    const creations = Array.from({ length: 25 }, (_, i) =>
-      request(baseUrl)
-        .post(`/api/projects/${project.id}/designs`)
-        .set('Cookie', cookie)
-        .send({ name: `Burst new ${i}`, from: TEMPLATE }),
-    );
-    const burst = Promise.all([...saves, ...creations].map((pending) => pending.then((response) => response)));
-    const bystander = await request(baseUrl).get(`/api/projects/${project.id}`).set('Cookie', cookie);
-    const answers = await burst;
+    const requests = [
+      ...designs.map((design) => ({
+        path: `/api/projects/${project.id}/designs/${design.id}/revisions`,
+        body: saveBody(document, 'burst save'),
+      })),
+      ...Array.from({ length: 25 }, (_, i) => ({
+        path: `/api/projects/${project.id}/designs`,
+        body: { name: `Burst new ${i}`, from: TEMPLATE },
+      })),
+    ];
+    const outcome = await runBurstClient({ baseUrl, cookie, requests, bystanderPath: `/api/projects/${project.id}` });
     // Before, 26 of 30 creations got 503 (the pool deadlocked on itself) and the bystander waited out the
-    // acquire timeout. Its latency is measured in scripts/bench/burst.mjs, not here (no timed tests).
-    expect(answers.map((answer) => answer.status)).toEqual(Array.from({ length: 50 }, () => 201));
-    expect(bystander.status).toBe(200);
+    // acquire timeout (10 s); then every burst request's project lookup queued in the pool ahead of the
+    // bystander's three queries (0.6–2.7 s on a loaded machine). The client runs in its own process: in this
+    // one it would share the server's event loop and open one connection per turn of it.
+    expect(outcome.statuses).toEqual(Array.from({ length: 50 }, () => 201));
+    expect(outcome.bystanderStatus).toBe(200);
+    expect(outcome.bystanderMs).toBeLessThan(1_000);
   });
 });

@@ -92,6 +92,7 @@ export const apiPaths = {
   projectMember: (projectId: string, userId: string) =>
     `/api/projects/${encodeURIComponent(projectId)}/members/${encodeURIComponent(userId)}`,
   archiveProject: (projectId: string) => `/api/projects/${encodeURIComponent(projectId)}/archive`,
+  unarchiveProject: (projectId: string) => `/api/projects/${encodeURIComponent(projectId)}/unarchive`,
   signIn: '/api/auth/sign-in',
   signOut: '/api/auth/sign-out',
   me: '/api/auth/me',

@@ -1,6 +1,7 @@
 import { Body, Controller, HttpCode, Post } from '@nestjs/common';
 import { ApiBadRequestResponse, ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import type { EvaluateResponse } from '@ladderwright/shared/api';
+import { AllowedWhenArchived } from '../common/decorators/allowed-when-archived.decorator';
 import { ProjectMembership } from '../common/decorators/project-membership.decorator';
 import type { ProjectMembership as Membership } from '../common/request.types';
 import { PartsService } from '../parts/parts.service';
@@ -19,6 +20,7 @@ export class ProjectAnalysisController {
 
   @Post('evaluate')
   @HttpCode(200)
+  @AllowedWhenArchived()
   @ApiOkResponse({
     description:
       "The engine's report with the shelf's ratings filled in by partCode; unknown codes in `report.partIssues`.",

@@ -6,6 +6,8 @@ import type { ProjectRole } from '@ladderwright/shared/auth';
 export interface ProjectMembership {
   projectId: string;
   role: ProjectRole;
+  /** An archived project answers reads only. */
+  isArchived: boolean;
 }
 
 /** An Express request after the guards: `user` set by the JWT guard, `projectMembership` by the project guard. */

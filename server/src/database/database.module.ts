@@ -10,6 +10,7 @@ import { PartModel } from '../parts/part.model';
 import { ProjectMemberModel } from '../projects/project-member.model';
 import { ProjectModel } from '../projects/project.model';
 import { SimulationJobModel } from '../simulations/simulation-job.model';
+import { CalibrationModel } from '../calibrations/calibration.model';
 import { RevisionModel } from '../revisions/revision.model';
 import { CapturedMailModel } from '../mail/captured-mail.model';
 import { MailQueueModel } from '../mail/mail-queue.model';
@@ -37,6 +38,7 @@ export const ALL_MODELS = [
   BenchRunEventModel,
   AuditEntryModel,
   SimulationJobModel,
+  CalibrationModel,
 ];
 
 /**
@@ -44,6 +46,8 @@ export const ALL_MODELS = [
  * migrations (no sync). The connection is lazy, so the app boots and reports `degraded` health
  * while the database is down.
  */
+const WARM_CONNECTIONS = 4;
+
 @Module({
   imports: [
     SequelizeModule.forRootAsync({
@@ -55,7 +59,14 @@ export const ALL_MODELS = [
         autoLoadModels: false,
         synchronize: false,
         logging: false,
-        pool: { max: env.databasePoolMax, min: 0, acquire: env.databaseAcquireTimeoutMs, idle: 10_000 },
+        // A few connections stay open: opening one (a new PostgreSQL backend and its authentication) costs
+        // far more than a query on a busy machine, and a burst would otherwise make a bystander wait for it.
+        pool: {
+          max: env.databasePoolMax,
+          min: Math.min(env.databasePoolMax, WARM_CONNECTIONS),
+          acquire: env.databaseAcquireTimeoutMs,
+          idle: 10_000,
+        },
         dialectOptions: { connectionTimeoutMillis: 5_000 },
       }),
     }),

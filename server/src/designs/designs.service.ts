@@ -173,9 +173,9 @@ export class DesignsService {
     changeNote: string,
     name = document.name,
   ): Promise<DesignDetail> {
-    const designId = await this.revisions.inWriteSlot(async () => {
+    return this.revisions.inWriteSlot(async () => {
       const evaluated = await this.revisions.evaluate(projectId, document);
-      return this.sequelize.transaction(async (transaction) => {
+      const designId = await this.sequelize.transaction(async (transaction) => {
         const design = await this.designs.create(
           { projectId, name, ownerId, latestRevisionNumber: 1 },
           { transaction },
@@ -187,8 +187,8 @@ export class DesignsService {
         );
         return design.id;
       });
+      return this.detail(projectId, designId);
     });
-    return this.detail(projectId, designId);
   }
 
   private async countOnly(conditions: string[], replacements: Record<string, unknown>): Promise<number> {

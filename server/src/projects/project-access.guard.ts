@@ -2,6 +2,7 @@ import { type CanActivate, type ExecutionContext, Injectable, UnauthorizedExcept
 import { Reflector } from '@nestjs/core';
 import { canInProject, type ProjectAction, rolesFor } from '@ladderwright/shared/auth';
 import { DomainError } from '@ladderwright/shared/errors';
+import { ALLOWED_WHEN_ARCHIVED_KEY } from '../common/decorators/allowed-when-archived.decorator';
 import { PROJECT_ACTION_KEY } from '../common/decorators/requires-permission.decorator';
 import type { AppRequest } from '../common/request.types';
 import { isUuid } from '../common/uuid';
@@ -10,7 +11,8 @@ import { ProjectsService } from './projects.service';
 /**
  * Global guard for routes with `:projectId`. Not a member (or no such project, or a malformed id) -> 404,
  * so that projects of other teams cannot be discovered; a member whose project role lacks the route's
- * action -> 403. An archived project answers reads only (409 otherwise).
+ * action -> 403. An archived project answers reads only (409 otherwise), except the routes marked
+ * `@AllowedWhenArchived()` (evaluating, unarchiving).
  */
 const READING_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
 
@@ -44,10 +46,14 @@ export class ProjectAccessGuard implements CanActivate {
         `Needs the ${rolesFor(action).join(' or ')} role in this project (you are ${role})`,
       );
     }
-    if (standing.isArchived && !READING_METHODS.has(request.method)) {
+    const isAllowedWhenArchived = this.reflector.get<boolean | undefined>(
+      ALLOWED_WHEN_ARCHIVED_KEY,
+      context.getHandler(),
+    );
+    if (standing.isArchived && !READING_METHODS.has(request.method) && !isAllowedWhenArchived) {
       throw new DomainError('illegal_transition', 'This project is archived: it can be read but not changed');
     }
-    request.projectMembership = { projectId, role };
+    request.projectMembership = { projectId, role, isArchived: standing.isArchived };
     return true;
   }
 }

@@ -15,6 +15,7 @@ import { ChangeMemberRoleDto } from './dto/change-member-role.dto';
 import { CreateProjectDto } from './dto/create-project.dto';
 import { UpdateProjectDto } from './dto/update-project.dto';
 import { ProjectsService } from './projects.service';
+import { AllowedWhenArchived } from '../common/decorators/allowed-when-archived.decorator';
 
 @ApiTags('projects')
 @ApiCookieAuth()
@@ -53,6 +54,14 @@ export class ProjectsController {
   @RequiresProjectAction('members.manage')
   async archive(@ProjectMembership() membership: Membership, @CurrentUser() actor: SessionUser): Promise<void> {
     await this.projects.archive(membership.projectId, actor);
+  }
+
+  @Post(':projectId/unarchive')
+  @HttpCode(204)
+  @RequiresProjectAction('members.manage')
+  @AllowedWhenArchived()
+  async unarchive(@ProjectMembership() membership: Membership, @CurrentUser() actor: SessionUser): Promise<void> {
+    await this.projects.unarchive(membership.projectId, actor);
   }
 
   @Get(':projectId/members')

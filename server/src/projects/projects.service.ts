@@ -36,8 +36,13 @@ function toMember(member: ProjectMemberModel): ProjectMember {
   return { userId: member.userId, email: user.email, displayName: user.displayName, role: member.role };
 }
 
+type MemberStanding = { role: ProjectRole; isArchived: boolean } | null;
+
 @Injectable()
 export class ProjectsService {
+  /** Standing lookups under way, by project and user; a lookup asked for meanwhile shares the answer. */
+  private readonly standingsInFlight = new Map<string, Promise<MemberStanding>>();
+
   constructor(
     @InjectModel(ProjectModel) private readonly projects: typeof ProjectModel,
     @InjectModel(ProjectMemberModel) private readonly members: typeof ProjectMemberModel,
@@ -47,11 +52,20 @@ export class ProjectsService {
   ) {}
 
   /** The user's role in the project and whether the project is archived; null for a non-member. */
-  async findMemberStanding(
-    projectId: string,
-    userId: string,
-  ): Promise<{ role: ProjectRole; isArchived: boolean } | null> {
-    if (!isUuid(projectId) || !isUuid(userId)) return null;
+  findMemberStanding(projectId: string, userId: string): Promise<MemberStanding> {
+    if (!isUuid(projectId) || !isUuid(userId)) return Promise.resolve(null);
+    // Every request to a project asks this first: a burst of one person's requests (a client saving many
+    // designs) asks it once, not once per request ahead of everyone else's queries in the pool's queue. A
+    // lookup that joins one under way gets the answer of a query that started no earlier than its own wait.
+    const key = `${projectId}/${userId}`;
+    const inFlight = this.standingsInFlight.get(key);
+    if (inFlight) return inFlight;
+    const lookup = this.queryMemberStanding(projectId, userId).finally(() => this.standingsInFlight.delete(key));
+    this.standingsInFlight.set(key, lookup);
+    return lookup;
+  }
+
+  private async queryMemberStanding(projectId: string, userId: string): Promise<MemberStanding> {
     const member = await this.members.findOne({
       where: { projectId, userId },
       attributes: ['role'],
@@ -110,15 +124,30 @@ export class ProjectsService {
   }
 
   /** Archives the project: it stays listed and readable and takes no more changes. */
-  async archive(projectId: string, actor: CurrentUser): Promise<void> {
+  archive(projectId: string, actor: CurrentUser): Promise<void> {
+    return this.setArchived(projectId, true, actor);
+  }
+
+  /** Takes the project out of the archive: it takes changes again. 409 when it is not archived. */
+  unarchive(projectId: string, actor: CurrentUser): Promise<void> {
+    return this.setArchived(projectId, false, actor);
+  }
+
+  private async setArchived(projectId: string, isArchived: boolean, actor: CurrentUser): Promise<void> {
     await this.sequelize.transaction(async (transaction) => {
       const project = await this.projects.findByPk(projectId, { transaction, lock: transaction.LOCK.UPDATE });
       if (!project) throw new DomainError('not_found', 'Project not found', 'projectId');
-      project.archivedAt = new Date();
+      if ((project.archivedAt !== null) === isArchived) {
+        throw new DomainError(
+          'illegal_transition',
+          isArchived ? 'This project is archived already' : 'This project is not archived',
+        );
+      }
+      project.archivedAt = isArchived ? new Date() : null;
       await project.save({ transaction });
       await this.audit.record(
         {
-          action: 'project.archived',
+          action: isArchived ? 'project.archived' : 'project.unarchived',
           actorId: actor.id,
           actorEmail: actor.email,
           subjectType: 'project',
@@ -144,9 +173,8 @@ export class ProjectsService {
   }
 
   async detail(projectId: string, myRole: ProjectRole): Promise<ProjectDetail> {
-    const project = await this.projects.findByPk(projectId);
+    const [project, members] = await Promise.all([this.projects.findByPk(projectId), this.listMembers(projectId)]);
     if (!project) throw new DomainError('not_found', 'Project not found', 'projectId');
-    const members = await this.listMembers(projectId);
     return { ...this.toSummary(project, myRole, members.length), members, settings: settingsOf(project.settings) };
   }
 

@@ -106,9 +106,12 @@ export class SignOffService {
     const assignedIds = new Set(assigned.map((row) => row.userId));
     const isAuthor = revision.authorId === user.id;
     const mayDecide = membership.role === 'lead' || assignedIds.has(user.id);
-    const commands = availableCommands(revision.state, membership.role, isAuthor).filter(
-      (command) => mayDecide || (command !== 'approve' && command !== 'return'),
-    );
+    // An archived project takes no Sign-off command (the project guard refuses them).
+    const commands = membership.isArchived
+      ? []
+      : availableCommands(revision.state, membership.role, isAuthor).filter(
+          (command) => mayDecide || (command !== 'approve' && command !== 'return'),
+        );
     const author = revision.author;
     return {
       projectId,

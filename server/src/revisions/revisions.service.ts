@@ -27,6 +27,16 @@ import { fileStem, toRevisionDetail, toRevisionSummary } from './revision-shapes
 import { RevisionModel } from './revision.model';
 import { StaleBaseException } from './stale-base.filter';
 
+/**
+ * Writes in flight at once: one per engine thread plus one (so that a thread never idles while a write reads or
+ * commits), at most half of the pool. Each write's requests to PostgreSQL queue with everyone else's, so
+ * fewer writes in flight keep the queue a bystander's query waits in short; more would not finish a burst
+ * sooner, since the engine threads are its bottleneck.
+ */
+export function writeSlotCount(env: Pick<AppEnv, 'databasePoolMax' | 'engineWorkers'>): number {
+  return Math.max(1, Math.min(Math.floor(env.databasePoolMax / 2), env.engineWorkers + 1));
+}
+
 /** A revision to write; the report is computed here, from the document, with the shared engine. */
 export interface NewRevision {
   designId: string;
@@ -54,13 +64,13 @@ export class RevisionsService {
     private readonly sequelize: Sequelize,
     @Inject(APP_ENV) env: AppEnv,
   ) {
-    this.writeSlots = pLimit(Math.max(1, Math.floor(env.databasePoolMax / 2)));
+    this.writeSlots = pLimit(writeSlotCount(env));
   }
 
   /**
-   * Runs a revision write (the engine's report, then its transaction) in one of `DATABASE_POOL_MAX / 2`
-   * slots; the others wait without using the event loop or a connection. A burst of saves so keeps half of
-   * the pool and most of the event loop free for every other request.
+   * Runs a revision write (the engine's report, its transaction and the read of its answer) in one of
+   * `writeSlotCount` slots; the others wait without using the event loop or a connection. A burst of saves so
+   * keeps most of the pool and of the event loop free for every other request.
    */
   inWriteSlot<T>(write: () => Promise<T>): Promise<T> {
     return this.writeSlots(write);
@@ -117,9 +127,9 @@ export class RevisionsService {
   }): Promise<RevisionDetail> {
     const { projectId, designId, request, authorId } = input;
     const document = this.analysis.parseDocument(request.document, 'document');
-    const number = await this.inWriteSlot(async () => {
+    return this.inWriteSlot(async () => {
       const evaluated = await this.evaluate(projectId, document);
-      return this.sequelize.transaction(async (transaction) => {
+      const number = await this.sequelize.transaction(async (transaction) => {
         const design = await this.lookup.findDesign(projectId, designId, transaction);
         const latest = design.latestRevisionNumber;
         if (request.baseRevisionNumber > latest) {
@@ -154,8 +164,8 @@ export class RevisionsService {
         await design.update({ latestRevisionNumber: latest + 1 }, { transaction });
         return latest + 1;
       });
+      return this.get({ projectId, designId, revisionNumber: number });
     });
-    return this.get({ projectId, designId, revisionNumber: number });
   }
 
   /**

@@ -3,6 +3,7 @@ import { METHOD_METADATA, PATH_METADATA } from '@nestjs/common/constants';
 import { ModulesContainer } from '@nestjs/core';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import type { AppAction, ProjectAction } from '@ladderwright/shared/auth';
+import { ALLOWED_WHEN_ARCHIVED_KEY } from '../../src/common/decorators/allowed-when-archived.decorator';
 import { IS_PUBLIC_KEY } from '../../src/common/decorators/public.decorator';
 import { APP_ACTION_KEY, PROJECT_ACTION_KEY } from '../../src/common/decorators/requires-permission.decorator';
 
@@ -19,6 +20,8 @@ export interface ApiRoute {
   /** The project action the project guard checks; `project.read` when the route names none. */
   projectAction: ProjectAction | null;
   params: string[];
+  /** `@AllowedWhenArchived()`: a non-GET route an archived project still answers. */
+  isAllowedWhenArchived: boolean;
 }
 
 const METHOD_NAMES: Partial<Record<RequestMethod, HttpMethod>> = {
@@ -93,6 +96,7 @@ export function apiRouteTable(app: NestExpressApplication, prefix = 'api'): ApiR
                 ? (read<ProjectAction>(PROJECT_ACTION_KEY) ?? 'project.read')
                 : null,
               params,
+              isAllowedWhenArchived: read<boolean>(ALLOWED_WHEN_ARCHIVED_KEY) === true,
             });
           }
         }

@@ -5,7 +5,8 @@ import type { Design } from '../designs/design.types';
 import { HV_CAUTION } from '../safety/hazard-limits';
 import { driverReport } from '../driver/driver-report';
 import { estimateBlockingOscillator } from '../driver/blocking-oscillator';
-import { engineLadderLoadLine, solveLoadPoint } from '../driver/operating-point';
+import { solveLoadPoint } from '../driver/operating-point';
+import { engineLadderLoadLine } from '../driver/ladder-load-line';
 import { analyzeDesign, analyzeLadderReport, ladderInputOf, resolveDrive } from './analyze-design';
 import { DERATING } from '../multiplier/ladder-stress';
 

@@ -58,6 +58,7 @@ export const AUDIT_ACTIONS = [
   'project.member_removed',
   'project.settings_changed',
   'project.archived',
+  'project.unarchived',
   'revision.released',
   'revision.gates_overridden',
 ] as const;

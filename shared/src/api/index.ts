@@ -82,6 +82,13 @@ export type {
   SimulationJob,
   CurrentSimulationResponse,
 } from './simulations.types';
+export type {
+  Calibration,
+  CalibrationInputSummary,
+  CalibrationParameterOption,
+  CalibratedRevisionResponse,
+  StartCalibrationRequest,
+} from './calibrations.types';
 export { AUDIT_ACTIONS, MAIL_KINDS } from './admin.types';
 export type {
   UserListQuery,
@@ -102,3 +109,4 @@ export type {
   NotificationSettings,
 } from './admin.types';
 export { START_UP_WINDOW_S } from './simulation-limits';
+export { TRACE_NAMES, capacitorTraceName, capacitorOfTrace } from './waveform-traces';

@@ -52,3 +52,14 @@ export function canInApp(role: UserRole, action: AppAction): boolean {
 export function rolesFor(action: ProjectAction): readonly ProjectRole[] {
   return PROJECT_GRANTS[action];
 }
+
+/** The actions that change nothing: all an archived project still allows. */
+const READING_ACTIONS: readonly ProjectAction[] = ['project.read', 'specSheet.export', 'specSheet.exportDraft'];
+
+/**
+ * Whether a member may perform `action` in a project as it stands: granted by the role, and in an archived
+ * project only if it changes nothing (the server refuses every other change with 409).
+ */
+export function canActInProject(project: { myRole: ProjectRole; isArchived: boolean }, action: ProjectAction): boolean {
+  return canInProject(project.myRole, action) && (!project.isArchived || READING_ACTIONS.includes(action));
+}

@@ -158,6 +158,17 @@ export function analyzeTransformer(
       windingInsulationV,
       secondaryWorkingVoltageV: point.secondaryWorkingVoltageV,
       flangeCreepageM,
+      ...(section.gap.kind === 'gap'
+        ? {}
+        : {
+            inductanceTarget: {
+              targetH:
+                section.gap.kind === 'al'
+                  ? section.gap.alHPerTurn2 * primaryTurns ** 2
+                  : section.gap.primaryInductanceH,
+              reachedH: primaryInductanceH,
+            },
+          }),
     },
     spacing,
   );

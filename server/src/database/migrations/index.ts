@@ -10,6 +10,7 @@ import { sessionsAndSignInLimits } from './0008-sessions-and-sign-in-limits';
 import { simulationJobHeartbeat } from './0009-simulation-job-heartbeat';
 import { driverSecondaryPhasing } from './0010-driver-secondary-phasing';
 import { magneticsParts } from './0011-magnetics-parts';
+import { calibrations } from './0012-calibrations';
 
 /** Every schema step in order. Add new steps at the end. */
 export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
@@ -24,4 +25,5 @@ export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
   simulationJobHeartbeat,
   driverSecondaryPhasing,
   magneticsParts,
+  calibrations,
 ];

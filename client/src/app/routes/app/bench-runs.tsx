@@ -1,3 +1,4 @@
+import { canActInProject } from '@ladderwright/shared/auth';
 import { Anchor, Breadcrumbs, Paper, Stack, Text, Title } from '@mantine/core';
 import { useDocumentTitle } from '@mantine/hooks';
 import { useSuspenseQuery } from '@tanstack/react-query';
@@ -21,7 +22,7 @@ export function BenchRunsRoute() {
   useDocumentTitle(`${project.name} · Bench runs · Ladderwright`);
   const [selectedId, setSelectedId] = useState<string | null>(null);
   const selected = useBenchRun(projectId, designId, revisionNumber, selectedId);
-  const canUpload = project.myRole === 'engineer' || project.myRole === 'lead';
+  const canUpload = canActInProject(project, 'bench.upload');
   return (
     <Stack gap="lg">
       <Breadcrumbs>

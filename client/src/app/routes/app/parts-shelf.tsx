@@ -1,3 +1,4 @@
+import { canActInProject } from '@ladderwright/shared/auth';
 import { Anchor, Breadcrumbs, Button, Group, Paper, Stack, Text, Title } from '@mantine/core';
 import { useDocumentTitle } from '@mantine/hooks';
 import { useSuspenseQuery } from '@tanstack/react-query';
@@ -17,7 +18,7 @@ export function PartsShelfRoute() {
   const { projectId = '' } = useParams();
   const { data: project } = useSuspenseQuery(getProjectQueryOptions(projectId));
   useDocumentTitle(`${project.name} · Parts shelf · Ladderwright`);
-  const canManage = project.myRole === 'lead';
+  const canManage = canActInProject(project, 'parts.manage');
   // Rows pasted into the Add-a-part form go to the import's preview.
   const [pasted, setPasted] = useState<{ file: File; serial: number } | null>(null);
   return (
@@ -60,7 +61,9 @@ export function PartsShelfRoute() {
         </>
       ) : (
         <Text size="sm" c="dimmed">
-          The project lead manages this shelf.
+          {project.isArchived
+            ? 'The project is archived: the shelf can be read and exported but not changed.'
+            : 'The project lead manages this shelf.'}
         </Text>
       )}
     </Stack>

@@ -1,3 +1,4 @@
+import { canActInProject } from '@ladderwright/shared/auth';
 import { Anchor, Breadcrumbs, Button, Group, Stack, Text, Title } from '@mantine/core';
 import { useDisclosure, useDocumentTitle } from '@mantine/hooks';
 import { useSuspenseQuery } from '@tanstack/react-query';
@@ -43,10 +44,14 @@ export function ProjectDesignsRoute() {
             Designs
           </Title>
           <Group gap="sm">
-            <Button variant="default" component={Link} to={paths.sizer.getHref(projectId)}>
-              Open the Sizer
-            </Button>
-            <Button onClick={createModal.open}>New design</Button>
+            {canActInProject(project, 'design.write') && (
+              <>
+                <Button variant="default" component={Link} to={paths.sizer.getHref(projectId)}>
+                  Open the Sizer
+                </Button>
+                <Button onClick={createModal.open}>New design</Button>
+              </>
+            )}
           </Group>
         </Group>
         <DesignTable projectId={projectId} members={project.members} />

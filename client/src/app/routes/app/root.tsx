@@ -9,7 +9,6 @@ import {
 } from 'react-router-dom';
 import type { QueryClient } from '@tanstack/react-query';
 import type { CurrentUser } from '@ladderwright/shared/api';
-import { notifications } from '@mantine/notifications';
 import { AppShell } from '../../../components/app-shell';
 import { paths } from '../../../config/paths';
 import { getMeQueryOptions, useMe } from '../../../features/auth/api/get-me';
@@ -17,7 +16,9 @@ import { useSignOut } from '../../../features/auth/api/sign-out';
 import { useInbox } from '../../../features/inbox/api/get-inbox';
 import { getProjectQueryOptions } from '../../../features/projects/api/get-project';
 import { useProjects } from '../../../features/projects/api/get-projects';
+import { ArchivedProjectNotice } from '../../../features/projects/components/archived-project-notice';
 import { ProjectNav } from '../../../features/projects/components/project-nav';
+import { showNotification } from '../../../lib/show-notification';
 
 /**
  * The signed-in user, or a redirect to sign-in that remembers the page asked for. Every loader below the shell
@@ -57,11 +58,13 @@ export function AppRoot() {
   const location = useLocation();
   const signOut = useSignOut({ onSuccess: () => void navigate(paths.signIn.getHref(), { replace: true }) });
 
+  const activeProject = projects.data?.find((project) => project.id === projectId);
+
   if (!user) return <Navigate to={paths.signIn.getHref(location.pathname)} replace />;
 
   const handleSignOut = () =>
     signOut.mutate(undefined, {
-      onError: () => notifications.show({ color: 'red', title: 'Sign-out failed', message: 'Try again in a moment.' }),
+      onError: () => showNotification({ color: 'red', title: 'Sign-out failed', message: 'Try again in a moment.' }),
     });
 
   return (
@@ -72,6 +75,7 @@ export function AppRoot() {
       inboxCount={inbox.data?.actionCount ?? 0}
       navigation={<ProjectNav projects={projects.data} activeProjectId={projectId} isLoading={projects.isPending} />}
     >
+      {activeProject?.isArchived && <ArchivedProjectNotice project={activeProject} />}
       <Outlet />
     </AppShell>
   );

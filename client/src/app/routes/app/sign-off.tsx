@@ -1,3 +1,4 @@
+import { canActInProject } from '@ladderwright/shared/auth';
 import { useMemo } from 'react';
 import { Accordion, Anchor, Breadcrumbs, Button, Grid, Group, Paper, Stack, Text, Title } from '@mantine/core';
 import { useDocumentTitle } from '@mantine/hooks';
@@ -124,7 +125,7 @@ export function SignOffRoute() {
                 designId={designId}
                 revisionNumber={revisionNumber}
                 anchorOptions={anchorOptions}
-                canComment={signOff.isSuccess}
+                canComment={signOff.isSuccess && canActInProject(project, 'review.comment')}
               />
             </Paper>
           </Stack>
@@ -162,6 +163,23 @@ export function SignOffRoute() {
                 projectRole={project.myRole}
               />
             </Paper>
+            {revision.document.drive.kind === 'driver' &&
+              revision.document.drive.driver.transformerChoice === 'designed' && (
+                <Paper withBorder p="md">
+                  <Title order={2} size="h4" mb="xs">
+                    Transformer sheet (PDF)
+                  </Title>
+                  <SpecSheetDownload
+                    projectId={projectId}
+                    designId={designId}
+                    designName={design.name}
+                    revisionNumber={revisionNumber}
+                    state={state}
+                    projectRole={project.myRole}
+                    sheet="transformer"
+                  />
+                </Paper>
+              )}
           </Stack>
         </Grid.Col>
       </Grid>

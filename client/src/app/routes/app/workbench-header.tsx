@@ -13,6 +13,8 @@ export interface WorkbenchHeaderProps {
   draft: DesignDraft;
   /** A reviewer's view: no change note, no Save, no undo. */
   isReadOnly: boolean;
+  /** Read-only because the project is archived (not because of the role). */
+  isArchived: boolean;
   isSaving: boolean;
   /** Fields that block a save (validation issues). */
   issueCount: number;
@@ -26,6 +28,7 @@ export function WorkbenchHeader({
   latestRevisionNumber,
   draft,
   isReadOnly,
+  isArchived,
   isSaving,
   issueCount,
   onSave,
@@ -45,7 +48,7 @@ export function WorkbenchHeader({
           <RevisionStateBadge state={revision.state} />
           {isReadOnly && (
             <Badge variant="light" color="gray" radius="sm" tt="none" style={{ flexShrink: 0, maxWidth: 'none' }}>
-              read-only (reviewer)
+              {isArchived ? 'read-only (archived project)' : 'read-only (reviewer)'}
             </Badge>
           )}
           <Anchor component={Link} size="sm" to={paths.signOff.getHref(projectId, revision.designId, revision.number)}>
@@ -68,7 +71,9 @@ export function WorkbenchHeader({
       </div>
       {isReadOnly ? (
         <Text size="sm" c="dimmed" maw={360}>
-          Reviewers read the design here and comment or decide on its Sign-off page.
+          {isArchived
+            ? 'This project is archived: its designs can be read and exported but not changed.'
+            : 'Reviewers read the design here and comment or decide on its Sign-off page.'}
         </Text>
       ) : (
         <form

@@ -3,7 +3,6 @@ import { Loader, Tabs, Text } from '@mantine/core';
 import type { RevisionDetail, RevisionSummary } from '@ladderwright/shared/api';
 import type { Design } from '@ladderwright/shared/designs';
 import type { DesignReport, HeadlineSource } from '@ladderwright/shared/analysis';
-import { LadderCharts } from '../../../features/workbench/components/ladder-charts';
 import { OtherFigures } from '../../../features/workbench/components/other-figures';
 
 export interface WorkbenchResultsProps {
@@ -13,6 +12,8 @@ export interface WorkbenchResultsProps {
   draft: Design;
   isDirty: boolean;
   report: DesignReport;
+  /** False in an archived project: no simulation job can be started. */
+  canSimulate: boolean;
   /** The saved revision's figures with their source (a current stored simulation or the estimate); null for a draft. */
   headline?: HeadlineSource | null;
 }
@@ -37,6 +38,15 @@ const ChecksTable = lazy(() =>
 const DriverPanel = lazy(() =>
   import('../../../features/workbench/components/driver-panel').then((module) => ({ default: module.DriverPanel })),
 );
+const TransformerPanel = lazy(() =>
+  import('../../../features/workbench/components/transformer-panel').then((module) => ({
+    default: module.TransformerPanel,
+  })),
+);
+// The first tab's charts too: the figures beside them show while the chart code arrives.
+const LadderCharts = lazy(() =>
+  import('../../../features/workbench/components/ladder-charts').then((module) => ({ default: module.LadderCharts })),
+);
 const LadderDiagram = lazy(() =>
   import('../../../features/workbench/components/ladder-diagram').then((module) => ({ default: module.LadderDiagram })),
 );
@@ -46,12 +56,14 @@ const PlotsPanel = memo(function PlotsPanel({ report }: { report: DesignReport }
   return (
     <>
       <OtherFigures report={report} />
-      <LadderCharts report={report} />
+      <Suspense fallback={<Loader size="sm" aria-label="Loading the charts" />}>
+        <LadderCharts report={report} />
+      </Suspense>
     </>
   );
 });
 
-/** The Workbench result tabs: Plots, Driver, Ladder, Checks, BOM cost, Waveforms, History. */
+/** The Workbench result tabs: Plots, Driver, Transformer (when designed), Ladder, Checks, BOM cost, Waveforms, History. */
 export function WorkbenchResults({
   projectId,
   revision,
@@ -59,6 +71,7 @@ export function WorkbenchResults({
   draft,
   isDirty,
   report: latestReport,
+  canSimulate,
   headline = null,
 }: WorkbenchResultsProps) {
   // The tabs draw charts and the schematic: they follow the report at low priority, after the Verdict strip has
@@ -70,6 +83,7 @@ export function WorkbenchResults({
         <Tabs.List>
           <Tabs.Tab value="plots">Plots</Tabs.Tab>
           {report.driver && <Tabs.Tab value="driver">Driver</Tabs.Tab>}
+          {report.transformer && <Tabs.Tab value="transformer">Transformer</Tabs.Tab>}
           <Tabs.Tab value="ladder">Ladder</Tabs.Tab>
           <Tabs.Tab value="checks">Checks</Tabs.Tab>
           <Tabs.Tab value="bom">BOM cost</Tabs.Tab>
@@ -82,6 +96,11 @@ export function WorkbenchResults({
         {report.driver && (
           <Tabs.Panel value="driver" pt="sm">
             <DriverPanel driver={report.driver} />
+          </Tabs.Panel>
+        )}
+        {report.transformer && (
+          <Tabs.Panel value="transformer" pt="sm">
+            <TransformerPanel transformer={report.transformer} />
           </Tabs.Panel>
         )}
         <Tabs.Panel value="ladder" pt="sm">
@@ -110,6 +129,7 @@ export function WorkbenchResults({
             frequencyHz={report.resolvedDrive.frequencyHz}
             safeVoltageV={draft.targets.safeVoltageV}
             isDriverDesign={draft.drive.kind === 'driver'}
+            canStart={canSimulate}
           />
         </Tabs.Panel>
         <Tabs.Panel value="history" pt="sm">

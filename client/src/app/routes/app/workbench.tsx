@@ -1,11 +1,10 @@
 import { useMemo, useState } from 'react';
 import { Alert, Anchor, Badge, Breadcrumbs, Group, List, Stack, Text } from '@mantine/core';
 import { useDocumentTitle } from '@mantine/hooks';
-import { notifications } from '@mantine/notifications';
 import { useQueryClient, useSuspenseQuery, type QueryClient } from '@tanstack/react-query';
 import { Link, redirect, useNavigate, useParams, useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
 import type { Part, RevisionDetail, RevisionSummary, StaleBaseError } from '@ladderwright/shared/api';
-import { canInProject } from '@ladderwright/shared/auth';
+import { canActInProject } from '@ladderwright/shared/auth';
 import { headlineSource } from '@ladderwright/shared/analysis';
 import { documentFieldLabel } from '@ladderwright/shared/designs';
 import { paths } from '../../../config/paths';
@@ -25,6 +24,7 @@ import classes from './workbench.module.css';
 import { WorkbenchHeader } from './workbench-header';
 import { WorkbenchResults } from './workbench-results';
 import { WorkbenchStaleAlert } from './workbench-stale-alert';
+import { showNotification } from '../../../lib/show-notification';
 
 const noParts: readonly Part[] = [];
 
@@ -85,7 +85,8 @@ export function WorkbenchRoute() {
         revision={revision}
         latestRevisionNumber={design.latestRevisionNumber}
         revisions={design.revisions}
-        isReadOnly={!canInProject(project.myRole, 'design.write')}
+        isReadOnly={!canActInProject(project, 'design.write')}
+        isArchived={project.isArchived}
       />
     </Stack>
   );
@@ -97,9 +98,18 @@ interface EditableRevisionProps {
   latestRevisionNumber: number;
   revisions: readonly RevisionSummary[];
   isReadOnly: boolean;
+  /** The project is archived: read-only for everyone, simulations included. */
+  isArchived: boolean;
 }
 
-function EditableRevision({ projectId, revision, latestRevisionNumber, revisions, isReadOnly }: EditableRevisionProps) {
+function EditableRevision({
+  projectId,
+  revision,
+  latestRevisionNumber,
+  revisions,
+  isReadOnly,
+  isArchived,
+}: EditableRevisionProps) {
   const navigate = useNavigate();
   const queryClient = useQueryClient();
   const draft = useDesignDraft(revision.document, { isReadOnly });
@@ -126,7 +136,7 @@ function EditableRevision({ projectId, revision, latestRevisionNumber, revisions
       {
         onSuccess: (saved) => {
           setStale(null);
-          notifications.show({
+          showNotification({
             title: `Saved as r${saved.number}`,
             message: 'The results shown are the server’s for this revision.',
           });
@@ -154,6 +164,7 @@ function EditableRevision({ projectId, revision, latestRevisionNumber, revisions
         latestRevisionNumber={latestRevisionNumber}
         draft={draft}
         isReadOnly={isReadOnly}
+        isArchived={isArchived}
         isSaving={save.isPending}
         issueCount={issueCount}
         onSave={submit}
@@ -240,6 +251,7 @@ function EditableRevision({ projectId, revision, latestRevisionNumber, revisions
               draft={draft.draft}
               isDirty={isDirty}
               report={report}
+              canSimulate={!isArchived}
               headline={headline}
             />
           )}

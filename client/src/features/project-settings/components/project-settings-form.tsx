@@ -16,6 +16,7 @@ import {
 import type { DefaultTargets, ProjectDetail } from '@ladderwright/shared/api';
 import { ACCEPTANCE_COVERAGES, type AcceptanceCoverage, BENCH_ALLOWANCE_MAX } from '@ladderwright/shared/reviews';
 import { useArchiveProject } from '../api/archive-project';
+import { useUnarchiveProject } from '../api/unarchive-project';
 import { useUpdateProject } from '../api/update-project';
 
 const DISCHARGE_RULES = ['50V-1min', '50V-5min', '60V-5s'] as const;
@@ -46,6 +47,7 @@ export function ProjectSettingsForm({ project }: { project: ProjectDetail }) {
   );
   const update = useUpdateProject(project.id);
   const archive = useArchiveProject(project.id);
+  const unarchive = useUnarchiveProject(project.id);
   const [isConfirmingArchive, setIsConfirmingArchive] = useState(false);
   const isReadOnly = project.isArchived;
 
@@ -72,7 +74,17 @@ export function ProjectSettingsForm({ project }: { project: ProjectDetail }) {
 
   return (
     <Stack gap="md">
-      {isReadOnly && <Alert color="gray">This project is archived: its settings can be read but not changed.</Alert>}
+      {isReadOnly && (
+        <Alert color="gray" title="Archived">
+          <Group justify="space-between" gap="sm">
+            <Text size="sm">This project is archived: it can be read but not changed.</Text>
+            <Button variant="default" loading={unarchive.isPending} onClick={() => unarchive.mutate()}>
+              Unarchive project
+            </Button>
+          </Group>
+        </Alert>
+      )}
+      {unarchive.error && <Alert color="red">{unarchive.error.message}</Alert>}
       <Paper withBorder p="md">
         <Stack gap="sm">
           <Title order={2} size="h5">

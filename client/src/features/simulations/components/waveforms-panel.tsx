@@ -34,6 +34,8 @@ export interface WaveformsPanelProps {
   safeVoltageV: number;
   /** The design is fed by its blocking oscillator: the panel offers the cold start-up window. */
   isDriverDesign?: boolean;
+  /** False where no job may be started (an archived project); the panel still shows what it shows. */
+  canStart?: boolean;
 }
 
 /** The cold start-up window the panel proposes for a driver run (the engineer may change it). */
@@ -68,6 +70,7 @@ export function WaveformsPanel({
   frequencyHz,
   safeVoltageV,
   isDriverDesign = false,
+  canStart = true,
 }: WaveformsPanelProps) {
   const [startUpWindowS, setStartUpWindowS] = useState(DEFAULT_STARTUP_WINDOW_S);
   const windowIssue = isDriverDesign ? startUpWindowIssue(startUpWindowS) : null;
@@ -101,9 +104,14 @@ export function WaveformsPanel({
             disabled={isActive}
           />
         )}
-        <Button onClick={startRun} disabled={isActive || windowIssue !== null}>
+        <Button onClick={startRun} disabled={!canStart || isActive || windowIssue !== null}>
           Start simulation
         </Button>
+        {!canStart && (
+          <Text size="sm" c="dimmed">
+            The project is archived: no new simulation.
+          </Text>
+        )}
         {isActive && jobId && (
           <Button variant="default" onClick={simulation.cancel} loading={simulation.isCancelling}>
             Cancel simulation
