@@ -9,7 +9,7 @@ export const COPPER_LOSS_METHOD: MethodInfo = {
   assumptions: [
     'each winding a layered winding of m layers in a one-dimensional field (Dowell)',
     'wire pitch p = diameter over enamel',
-    'copper resistivity 1.7241e-8 Ω·m at 20 °C, temperature coefficient 0.00393 /K (IEC 60028)',
+    'copper resistivity 1.7241e-8 Ω·m at 20 °C, temperature coefficient 0.00393 /K (IEC 60028), at ambient plus the estimated rise',
     'harmonics of the current up to the 40th; the rest of the rms current at the 40th harmonic’s factor',
   ],
   source:

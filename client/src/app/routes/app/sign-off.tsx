@@ -7,6 +7,7 @@ import { useQuery, useSuspenseQuery, type QueryClient } from '@tanstack/react-qu
 import { Link, useNavigate, useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { paths } from '../../../config/paths';
 import { BenchRunList } from '../../../features/bench-runs/components/bench-run-list';
+import { CalibrationList } from '../../../features/calibrations/components/calibration-list';
 import { getDesignQueryOptions } from '../../../features/designs/api/get-design';
 import { getRevisionQueryOptions } from '../../../features/designs/api/get-revision';
 import { RevisionStateBadge } from '../../../features/designs/components/revision-state-badge';
@@ -162,6 +163,12 @@ export function SignOffRoute() {
                 onSelect={() => void navigate(paths.benchRuns.getHref(projectId, designId, revisionNumber))}
                 canDelete={false}
               />
+            </Paper>
+            <Paper withBorder p="md">
+              <Title order={2} size="h4" mb="xs">
+                Calibrations
+              </Title>
+              <CalibrationList projectId={projectId} designId={designId} revisionNumber={revisionNumber} />
             </Paper>
             <Paper withBorder p="md">
               <Title order={2} size="h4" mb="xs">
