@@ -102,8 +102,28 @@ export class AnalysisService {
    * `report.partIssues`.
    */
   async evaluate(design: Design, fieldPrefix = 'document', shelf?: readonly ShelfPart[]): Promise<EvaluateResponse> {
+    const report = await this.analyze(design, fieldPrefix, shelf, 'object');
+    return { engineVersion: this.engineVersion, report: report as DesignReportBody };
+  }
+
+  /**
+   * `evaluate` as the JSON text of its answer, for routes that only send it on: the worker serialises the report,
+   * so it crosses the thread boundary as one string and is never copied or serialised on this thread. The
+   * document is validated on the worker (as every engine task is), with the same 400 naming the field.
+   */
+  async evaluateJson(document: unknown, fieldPrefix = 'document', shelf?: readonly ShelfPart[]): Promise<string> {
+    const report = await this.analyze(document as Design, fieldPrefix, shelf, 'json');
+    return `{"engineVersion":${JSON.stringify(this.engineVersion)},"report":${report as string}}`;
+  }
+
+  private async analyze(
+    design: Design,
+    fieldPrefix: string,
+    shelf: readonly ShelfPart[] | undefined,
+    reportAs: 'object' | 'json',
+  ): Promise<unknown> {
     const outcome = await this.withFieldPrefixAsync(fieldPrefix, () =>
-      this.engine.run({ kind: 'analyze', document: design, ...(shelf ? { shelf } : {}) }),
+      this.engine.run({ kind: 'analyze', document: design, reportAs, ...(shelf ? { shelf } : {}) }),
     );
     if (!outcome.ok) {
       const { code, message, field, issues } = outcome.error;
@@ -111,7 +131,7 @@ export class AnalysisService {
         throw new DomainError(code, message, field, issues);
       });
     }
-    return { engineVersion: this.engineVersion, report: outcome.report as DesignReportBody };
+    return outcome.report;
   }
 
   /** The document with its secondary as the engine resolves it: a driver stage becomes its pulse estimate. */
