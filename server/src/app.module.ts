@@ -33,6 +33,7 @@ import { ProjectsModule } from './projects/projects.module';
 import { ReviewsModule } from './reviews/reviews.module';
 import { SpecSheetsModule } from './spec-sheets/spec-sheets.module';
 import { SimulationsModule } from './simulations/simulations.module';
+import { CalibrationsModule } from './calibrations/calibrations.module';
 import { RevisionsModule } from './revisions/revisions.module';
 import { UsersModule } from './users/users.module';
 
@@ -63,6 +64,7 @@ export class AppModule {
         PartsModule,
         BenchRunsModule,
         SimulationsModule,
+        CalibrationsModule,
       ],
       providers: [
         { provide: APP_GUARD, useClass: JsonBodyGuard },

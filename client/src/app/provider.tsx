@@ -1,6 +1,5 @@
-import { useState, type ReactNode } from 'react';
+import { lazy, Suspense, useState, type ReactNode } from 'react';
 import { MantineProvider } from '@mantine/core';
-import { Notifications } from '@mantine/notifications';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { isApiError } from '../lib/api-client';
 import { theme } from './theme';
@@ -20,6 +19,10 @@ export function createAppQueryClient(): QueryClient {
   });
 }
 
+const Notifications = lazy(() =>
+  import('@mantine/notifications').then((module) => ({ default: module.Notifications })),
+);
+
 export interface AppProviderProps {
   children: ReactNode;
   queryClient?: QueryClient;
@@ -29,7 +32,9 @@ export function AppProvider({ children, queryClient }: AppProviderProps) {
   const [client] = useState(() => queryClient ?? createAppQueryClient());
   return (
     <MantineProvider theme={theme} defaultColorScheme="auto">
-      <Notifications position="top-right" />
+      <Suspense fallback={null}>
+        <Notifications position="top-right" />
+      </Suspense>
       <QueryClientProvider client={client}>{children}</QueryClientProvider>
     </MantineProvider>
   );

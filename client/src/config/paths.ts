@@ -131,6 +131,10 @@ export const apiPaths = {
     `/api/projects/${encodeURIComponent(projectId)}/designs/${encodeURIComponent(designId)}/revisions/${revisionNumber}/bench-runs`,
   benchRun: (projectId: string, designId: string, revisionNumber: number, benchRunId: string) =>
     `/api/projects/${encodeURIComponent(projectId)}/designs/${encodeURIComponent(designId)}/revisions/${revisionNumber}/bench-runs/${encodeURIComponent(benchRunId)}`,
+  calibrations: (projectId: string, designId: string, revisionNumber: number) =>
+    `/api/projects/${encodeURIComponent(projectId)}/designs/${encodeURIComponent(designId)}/revisions/${revisionNumber}/calibrations`,
+  calibration: (projectId: string, designId: string, revisionNumber: number, calibrationId: string) =>
+    `/api/projects/${encodeURIComponent(projectId)}/designs/${encodeURIComponent(designId)}/revisions/${revisionNumber}/calibrations/${encodeURIComponent(calibrationId)}`,
   /** Below a revision: `sign-off`, `submit`, `withdraw`, `approve`, `return`, `release`, `comments`, `spec-sheet.pdf`. */
   revisionAction: (projectId: string, designId: string, revisionNumber: number, action: string) =>
     `/api/projects/${encodeURIComponent(projectId)}/designs/${encodeURIComponent(designId)}/revisions/${revisionNumber}/${action}`,

@@ -50,6 +50,13 @@ export const queryKeys = {
     detail: (projectId: string, designId: string, revisionNumber: number, benchRunId: string) =>
       [...queryKeys.benchRuns.revision(projectId, designId, revisionNumber), benchRunId] as const,
   },
+  calibrations: {
+    all: ['calibrations'] as const,
+    revision: (projectId: string, designId: string, revisionNumber: number) =>
+      [...queryKeys.calibrations.all, projectId, designId, revisionNumber] as const,
+    detail: (projectId: string, designId: string, revisionNumber: number, calibrationId: string) =>
+      [...queryKeys.calibrations.revision(projectId, designId, revisionNumber), calibrationId] as const,
+  },
   signOff: {
     all: ['signOff'] as const,
     revision: (projectId: string, designId: string, revisionNumber: number) =>

@@ -11,6 +11,7 @@ import { MemberRequestModel } from '../member-requests/member-request.model';
 import { ProjectMemberModel } from '../projects/project-member.model';
 import { ProjectModel } from '../projects/project.model';
 import { SimulationJobModel } from '../simulations/simulation-job.model';
+import { CalibrationModel } from '../calibrations/calibration.model';
 import { RevisionModel } from '../revisions/revision.model';
 import { CapturedMailModel } from '../mail/captured-mail.model';
 import { MailQueueModel } from '../mail/mail-queue.model';
@@ -39,6 +40,7 @@ export const ALL_MODELS = [
   BenchRunEventModel,
   AuditEntryModel,
   SimulationJobModel,
+  CalibrationModel,
 ];
 
 /**

@@ -7,6 +7,9 @@ import type {
 } from '@ladderwright/shared/api';
 import type { Design } from '@ladderwright/shared/designs';
 
+/** A job's kind: a simulation, or a calibration whose model runs go to the same worker pool. */
+export type SimulationJobKind = SimulationKind | 'calibration';
+
 /** What the worker needs to run the job, stored with it so that any app instance can pick it up. */
 export interface SimulationJobInput {
   document: Design;
@@ -17,7 +20,7 @@ export interface SimulationJobAttrs {
   id: string;
   projectId: string;
   requestedBy: string | null;
-  kind: SimulationKind;
+  kind: SimulationJobKind;
   status: SimulationJobStatus;
   progressPct: number;
   input: SimulationJobInput;
@@ -50,7 +53,7 @@ export class SimulationJobModel extends Model<SimulationJobAttrs, SimulationJobC
   requestedBy!: string | null;
 
   @Column({ type: DataType.TEXT, allowNull: false })
-  kind!: SimulationKind;
+  kind!: SimulationJobKind;
 
   @Column({ type: DataType.TEXT, allowNull: false, defaultValue: 'queued' })
   status!: SimulationJobStatus;

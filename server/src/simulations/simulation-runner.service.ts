@@ -2,6 +2,7 @@ import { Inject, Injectable, Logger, type OnApplicationBootstrap, type OnModuleD
 import { Op, QueryTypes } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import { APP_ENV, type AppEnv } from '../config/env';
+import { CalibrationRunService } from './calibration-run.service';
 import { SimulationJobModel } from './simulation-job.model';
 import { type PoolRun, SimulationPoolService } from './simulation-pool.service';
 import { type SimulationQueuePayload, SimulationQueueService } from './simulation-queue.service';
@@ -40,6 +41,7 @@ export class SimulationRunnerService implements OnApplicationBootstrap, OnModule
     @Inject(APP_ENV) private readonly env: AppEnv,
     private readonly queue: SimulationQueueService,
     private readonly pool: SimulationPoolService,
+    private readonly calibrations: CalibrationRunService,
     private readonly sequelize: Sequelize,
   ) {}
 
@@ -100,14 +102,16 @@ export class SimulationRunnerService implements OnApplicationBootstrap, OnModule
     if (claimed === 0 || !job) return; // cancelled before it started, or no longer exists
     let writtenPct = 0;
     let progressWrite = Promise.resolve();
-    const run = this.pool.run(
-      { kind: job.kind, document: job.input.document, options: job.input.options },
-      (progressPct) => {
-        if (progressPct < writtenPct + PROGRESS_STEP_PCT) return;
-        writtenPct = progressPct;
-        progressWrite = progressWrite.then(() => this.writeProgress(id, progressPct, run)).catch(() => undefined);
-      },
-    );
+    const onProgress = (progressPct: number): void => {
+      if (progressPct < writtenPct + PROGRESS_STEP_PCT) return;
+      writtenPct = progressPct;
+      progressWrite = progressWrite.then(() => this.writeProgress(id, progressPct, run)).catch(() => undefined);
+    };
+    const kind = job.kind;
+    const run: PoolRun =
+      kind === 'calibration'
+        ? this.calibrations.run(job.id, job.input.document, onProgress)
+        : this.pool.run({ kind, document: job.input.document, options: job.input.options }, onProgress);
     const cancelWatch = setInterval(() => void this.checkCancelled(id, run), CANCEL_POLL_MS);
     const heartbeat = setInterval(() => void this.beat(id), this.env.simulationHeartbeatMs);
     const timeLimit = setTimeout(() => void this.stopOverTime(id, run), this.env.simulationMaxRunS * 1000);
@@ -127,8 +131,9 @@ export class SimulationRunnerService implements OnApplicationBootstrap, OnModule
     try {
       const outcome = await run.outcome;
       if (outcome.ok) {
+        const result = 'result' in outcome ? outcome.result : null;
         await SimulationJobModel.update(
-          { status: 'succeeded', progressPct: 100, result: outcome.result, finishedAt: new Date() },
+          { status: 'succeeded', progressPct: 100, result, finishedAt: new Date() },
           running,
         );
       } else if (outcome.error.code !== 'cancelled') {

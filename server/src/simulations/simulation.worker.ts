@@ -1,11 +1,18 @@
 import type { SimulationResult, SimulationSummary, WaveformPhase, WaveformTrace } from '@ladderwright/shared/api';
+import { capacitorTraceName, TRACE_NAMES } from '@ladderwright/shared/api';
+import { predictDatasets } from '@ladderwright/shared/calibration';
 import { validateDesign } from '@ladderwright/shared/designs';
 import { ENGINE_VERSION } from '@ladderwright/shared/multiplier';
 import { isDomainError } from '@ladderwright/shared/errors';
 import { dischargeRuleLimits } from '@ladderwright/shared/safety';
 import { ladderSpecFromDesign } from '@ladderwright/shared/circuits';
 import { type PlotTrace, runDriverDesign, runDriverStartUp, runLadder } from '@ladderwright/shared/runs';
-import type { SimulationProgressMessage, SimulationTask, SimulationTaskOutcome } from './simulation-task.types';
+import {
+  CALIBRATION_PREDICT,
+  type SimulationProgressMessage,
+  type SimulationTask,
+  type SimulationTaskOutcome,
+} from './simulation-task.types';
 
 /*
  * Worker-thread entry (piscina). Everything here runs off the request thread; the main thread sees only
@@ -20,7 +27,12 @@ export const DEFAULT_MAX_STEP_PER_PERIOD = 100;
 /** Buckets of the min/max downsampling: at most twice as many points per trace reach the client. */
 const PLOT_BUCKETS = 500;
 
-function toWaveform(phase: WaveformPhase, trace: PlotTrace, name = 'V(top)', unit: 'V' | 'A' = 'V'): WaveformTrace {
+function toWaveform(
+  phase: WaveformPhase,
+  trace: PlotTrace,
+  name: string = TRACE_NAMES.output,
+  unit: 'V' | 'A' = 'V',
+): WaveformTrace {
   return { name, phase, unit, timeS: trace.timeS, values: trace.values };
 }
 
@@ -84,13 +96,13 @@ function simulateDriver(task: SimulationTask, post: (fraction: number) => void):
   const waveforms: WaveformTrace[] = [];
   if (coldRun) waveforms.push(toWaveform('startup', coldRun.curve));
   waveforms.push(toWaveform('steady-state', run.waveforms.outputV));
-  waveforms.push(toWaveform('steady-state', run.waveforms.collectorV, 'V(col)'));
-  waveforms.push(toWaveform('steady-state', run.waveforms.secondaryV, 'V(s)'));
-  waveforms.push(toWaveform('steady-state', run.waveforms.primaryA, 'I(Lp)', 'A'));
+  waveforms.push(toWaveform('steady-state', run.waveforms.collectorV, TRACE_NAMES.collector));
+  waveforms.push(toWaveform('steady-state', run.waveforms.secondaryV, TRACE_NAMES.secondary));
+  waveforms.push(toWaveform('steady-state', run.waveforms.primaryA, TRACE_NAMES.primaryCurrent, 'A'));
   if (run.discharge) {
     waveforms.push(toWaveform('discharge', run.discharge.output));
     for (const [capacitor, trace] of Object.entries(run.discharge.capacitorVoltagesV)) {
-      waveforms.push(toWaveform('discharge', trace, `V(${capacitor})`));
+      waveforms.push(toWaveform('discharge', trace, capacitorTraceName(capacitor)));
     }
   }
   return { summary, waveforms };
@@ -132,7 +144,7 @@ function simulate(task: SimulationTask): SimulationResult {
     waveforms.push(toWaveform('discharge', run.discharge.output));
     // Each capacitor's own voltage, min/max-downsampled by runLadder like the output (C1, C2, … in design order).
     for (const [capacitor, trace] of Object.entries(run.discharge.capacitorVoltagesV)) {
-      waveforms.push(toWaveform('discharge', trace, `V(${capacitor})`));
+      waveforms.push(toWaveform('discharge', trace, capacitorTraceName(capacitor)));
     }
   }
   return { summary, waveforms };
@@ -143,6 +155,12 @@ export function runSimulationTask(task: SimulationTask): SimulationTaskOutcome {
   if (task.kind === 'fault-throw') throw new Error('fault injection: the simulation worker threw');
   if (task.kind === 'fault-exit') process.exit(70);
   try {
+    if (task.kind === CALIBRATION_PREDICT) {
+      // The calibration set the fitted values itself within their prior ranges; the engine or the
+      // simulator refusing a set is an answer (null), not a failure of the job.
+      const shouldCancel = (): boolean => Atomics.load(task.cancelFlag, 0) === 1;
+      return { ok: true, predictions: predictDatasets(task.document, task.datasets ?? [], { shouldCancel }) };
+    }
     // Validated again here: a stored document may predate a limit of the domain.
     validateDesign(task.document);
     return { ok: true, result: simulate(task) };

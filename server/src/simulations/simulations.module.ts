@@ -1,6 +1,7 @@
 import { Module } from '@nestjs/common';
 import { SequelizeModule } from '@nestjs/sequelize';
 import { RevisionsModule } from '../revisions/revisions.module';
+import { CalibrationRunService } from './calibration-run.service';
 import { CurrentSimulationController } from './current-simulation.controller';
 import { CurrentSimulationService } from './current-simulation.service';
 import { SimulationJobModel } from './simulation-job.model';
@@ -19,8 +20,9 @@ import { SimulationsService } from './simulations.service';
     SimulationQueueService,
     SimulationPoolService,
     SimulationRunnerService,
+    CalibrationRunService,
     CurrentSimulationService,
   ],
-  exports: [CurrentSimulationService],
+  exports: [SimulationsService, CurrentSimulationService],
 })
 export class SimulationsModule {}

@@ -1,5 +1,5 @@
 import { Inject, Injectable, Logger } from '@nestjs/common';
-import { Op, QueryTypes } from 'sequelize';
+import { Op, QueryTypes, type Transaction } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import type {
   SimulationJob,
@@ -14,7 +14,7 @@ import { RetryLaterException } from '../common/filters/domain-error.filter';
 import { isUuid } from '../common/uuid';
 import { RevisionsService } from '../revisions/revisions.service';
 import { SIMULATION_KINDS, type StartSimulationDto } from './dto/start-simulation.dto';
-import { SimulationJobModel } from './simulation-job.model';
+import { SimulationJobModel, type SimulationJobKind } from './simulation-job.model';
 import { SimulationQueueService } from './simulation-queue.service';
 import { SimulationRunnerService } from './simulation-runner.service';
 import { FAULT_KINDS } from './simulation-task.types';
@@ -55,6 +55,28 @@ export class SimulationsService {
     const source = await this.resolveSource(projectId, body);
     const options = { ...body.options };
     this.checkSize(source.document, options);
+    const job = await this.enqueue({ projectId, userId, kind, ...source, options });
+    return { jobId: job.id, status: 'queued' };
+  }
+
+  /**
+   * Creates a job row and queues it, within the per-user and per-project quotas (429 past them), under the
+   * project's advisory lock; `withJob` runs in the same transaction (a calibration writes its own row
+   * there). A queue that cannot be reached fails the job with a reason and rethrows.
+   */
+  async enqueue(
+    input: {
+      projectId: string;
+      userId: string;
+      kind: SimulationJobKind;
+      document: Design;
+      options: SimulationOptions;
+      designId: string | null;
+      revisionNumber: number | null;
+    },
+    withJob?: (job: SimulationJobModel, transaction: Transaction) => Promise<void>,
+  ): Promise<SimulationJobModel> {
+    const { projectId, userId } = input;
     const { job, priority } = await this.sequelize.transaction(async (transaction) => {
       await this.sequelize.query('SELECT pg_advisory_xact_lock(hashtext(:projectId))', {
         replacements: { projectId },
@@ -70,13 +92,14 @@ export class SimulationsService {
         {
           projectId,
           requestedBy: userId,
-          kind,
-          input: { document: source.document, options },
-          designId: source.designId,
-          revisionNumber: source.revisionNumber,
+          kind: input.kind,
+          input: { document: input.document, options: input.options },
+          designId: input.designId,
+          revisionNumber: input.revisionNumber,
         },
         { transaction },
       );
+      await withJob?.(created, transaction);
       return { job: created, priority: -(active?.project ?? 0) };
     });
     try {
@@ -97,16 +120,11 @@ export class SimulationsService {
       );
       throw error;
     }
-    return { jobId: job.id, status: 'queued' };
+    return job;
   }
 
-  async get(projectId: string, jobId: string): Promise<SimulationJob> {
-    return toResponse(await this.find(projectId, jobId));
-  }
-
-  /** Cancels a queued or running job; a finished one is answered as it is. */
-  async cancel(projectId: string, jobId: string): Promise<SimulationJob> {
-    const job = await this.find(projectId, jobId);
+  /** Cancels a queued or running job of any kind; true when this call cancelled it. */
+  async cancelJob(job: SimulationJobModel): Promise<boolean> {
     const [count] = await SimulationJobModel.update(
       { status: 'cancelled', finishedAt: new Date() },
       { where: { id: job.id, status: { [Op.in]: ['queued', 'running'] } } },
@@ -115,11 +133,24 @@ export class SimulationsService {
       this.runner.cancelLocal(job.id);
       if (job.queueJobId) await this.queue.cancel(job.queueJobId).catch(() => undefined);
     }
+    return count > 0;
+  }
+
+  async get(projectId: string, jobId: string): Promise<SimulationJob> {
+    return toResponse(await this.find(projectId, jobId));
+  }
+
+  /** Cancels a queued or running job; a finished one is answered as it is. */
+  async cancel(projectId: string, jobId: string): Promise<SimulationJob> {
+    await this.cancelJob(await this.find(projectId, jobId));
     return toResponse(await this.find(projectId, jobId));
   }
 
   private async find(projectId: string, jobId: string): Promise<SimulationJobModel> {
-    const job = isUuid(jobId) ? await SimulationJobModel.findOne({ where: { id: jobId, projectId } }) : null;
+    // A calibration's job is read and cancelled through its calibration.
+    const job = isUuid(jobId)
+      ? await SimulationJobModel.findOne({ where: { id: jobId, projectId, kind: { [Op.ne]: 'calibration' } } })
+      : null;
     if (!job) throw new DomainError('not_found', 'Simulation job not found', 'jobId');
     return job;
   }
@@ -210,7 +241,7 @@ function toResponse(job: SimulationJobModel): SimulationJob {
   const response: SimulationJob = {
     id: job.id,
     projectId: job.projectId,
-    kind: job.kind,
+    kind: job.kind as SimulationKind,
     status: job.status,
     progressPct: job.progressPct,
     designId: job.designId,

@@ -23,6 +23,14 @@ export function safetySection(doc: Doc, c: SpecSheetContent): void {
       typeof rule === 'string' ? rule : `${q(rule.voltageV, 'V')} within ${q(rule.timeS, 's')}`,
     ],
   ]);
+  cautionBox(
+    doc,
+    'These figures are design predictions. The standard that applies to the equipment, local codes and licensed practice govern every build and test. Discharge the output and every ladder node before touching the assembly.',
+  );
+}
+
+/** The boxed high-voltage caution with its own sentence under the heading. */
+export function cautionBox(doc: Doc, text: string): void {
   ensureRoom(doc, 70);
   doc.moveDown(0.6);
   const top = doc.y;
@@ -36,12 +44,7 @@ export function safetySection(doc: Doc, c: SpecSheetContent): void {
     .font('regular')
     .fontSize(8.5)
     .fillColor(INK)
-    .text(
-      'These figures are design predictions. The standard that applies to the equipment, local codes and licensed practice govern every build and test. Discharge the output and every ladder node before touching the assembly.',
-      MARGIN + 10,
-      doc.y + 2,
-      { width: TEXT_WIDTH - 20 },
-    );
+    .text(text, MARGIN + 10, doc.y + 2, { width: TEXT_WIDTH - 20 });
   doc.y = top + 60;
   doc.x = MARGIN;
 }

@@ -8,6 +8,8 @@ import { RevisionsModule } from '../revisions/revisions.module';
 import { SimulationsModule } from '../simulations/simulations.module';
 import { SpecSheetsController } from './spec-sheets.controller';
 import { SpecSheetsService } from './spec-sheets.service';
+import { TransformerSheetsController } from './transformer-sheets.controller';
+import { TransformerSheetsService } from './transformer-sheets.service';
 
 @Module({
   imports: [
@@ -18,7 +20,7 @@ import { SpecSheetsService } from './spec-sheets.service';
     RevisionsModule,
     SimulationsModule,
   ],
-  controllers: [SpecSheetsController],
-  providers: [SpecSheetsService],
+  controllers: [SpecSheetsController, TransformerSheetsController],
+  providers: [SpecSheetsService, TransformerSheetsService],
 })
 export class SpecSheetsModule {}

@@ -3,6 +3,7 @@ import { estimateBlockingOscillator } from '../../src/driver/blocking-oscillator
 import { buildLadderCircuit } from '../../src/circuits/build-ladder-circuit';
 import { buildCircuit } from '../../src/circuits/design-circuit';
 import { toSpiceNetlist } from '../../src/sim/to-spice-netlist';
+import { effectiveDriverStage } from '../../src/transformer/given-numbers';
 import { parseCommandArguments, type CommandSyntax } from '../arguments';
 import { LADDER_OPTIONS } from '../ladder-flags';
 import { ladderFromArguments, refuseDesignWithLadderOptions } from './simulate';
@@ -27,7 +28,7 @@ export function netlistCommand(argv: ReadonlyArray<string>): string {
   if (positional[0]) {
     const design = readDesignFile(positional[0]);
     if (design.drive.kind === 'driver') {
-      const periodS = 1 / estimateBlockingOscillator(design.drive.driver).frequencyHz.value;
+      const periodS = 1 / estimateBlockingOscillator(effectiveDriverStage(design.drive.driver)).frequencyHz.value;
       return toSpiceNetlist(buildCircuit(design), { transient: { stopTimeS: 200 * periodS, maxStepS: periodS / 200 } });
     }
   }

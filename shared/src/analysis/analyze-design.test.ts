@@ -5,7 +5,8 @@ import type { Design } from '../designs/design.types';
 import { HV_CAUTION } from '../safety/hazard-limits';
 import { driverReport } from '../driver/driver-report';
 import { estimateBlockingOscillator } from '../driver/blocking-oscillator';
-import { engineLadderLoadLine, solveLoadPoint } from '../driver/operating-point';
+import { solveLoadPoint } from '../driver/operating-point';
+import { engineLadderLoadLine } from '../driver/ladder-load-line';
 import { analyzeDesign, analyzeLadderReport, ladderInputOf, resolveDrive } from './analyze-design';
 import { DERATING } from '../multiplier/ladder-stress';
 
@@ -270,6 +271,44 @@ describe('facts of the trade as check values', () => {
     });
     expect(r.outputMeanV).toBeGreaterThan(0.95 * 3000);
     expect(r.outputMeanV).toBeLessThanOrEqual(3000);
+  });
+
+  it('a two-cell converter into a tripler reaches the 1.5 kV class drawing around 1.5 W (common practice, no source)', () => {
+    // Two alkaline cells, a blocking oscillator with a feedback winding, a 1:100 step-up fed from the flyback, a
+    // half-wave tripler of 10 nF, 4.7 nF and 22 nF, loaded with 1 mA: the class of a handheld HV supply.
+    const design = structuredClone(designExamples.surfaceChargeTester);
+    if (design.drive.kind !== 'driver') throw new Error('driver design expected');
+    const driver = design.drive.driver;
+    driver.transformer = {
+      ...driver.transformer,
+      primaryTurns: 10,
+      feedbackTurns: 4,
+      secondaryTurns: 1000,
+      primaryInductanceH: 100e-6,
+      secondaryResistanceOhm: 30,
+      saturationCurrentA: 2,
+      secondaryPhasing: 'flyback',
+    };
+    driver.baseResistorOhm = 220;
+    driver.transistor = { ...driver.transistor, icMaxA: 3 };
+    design.multiplier = {
+      ...design.multiplier,
+      cellCount: 3,
+      capacitors: [10e-9, 4.7e-9, 22e-9].map((valueF) => ({ valueF, tolerance: 0.1, ratedVoltageV: 3000 })),
+    };
+    design.outputNetwork = { bleeder: null, seriesOutputResistanceOhm: 0 };
+    design.load = { kind: 'current', currentA: 1e-3 };
+    design.targets = { ...design.targets, outputV: 1500, loadCurrentA: 1e-3, rippleMaxV: 100 };
+    expect(() => validateDesign(design)).not.toThrow();
+    const report = analyzeDesign(design);
+    const figures = report.driver!.benchFigures;
+    // "The 1.5 kV class": within a quarter of 1.5 kV; "around 1.5 W" from the cells: within half of 1.5 W.
+    expect(Math.abs(report.outputMeanV)).toBeGreaterThan(1.5e3 * 0.75);
+    expect(Math.abs(report.outputMeanV)).toBeLessThan(1.5e3 * 1.25);
+    expect(figures.inputPowerW).toBeGreaterThan(1.5 * 0.5);
+    expect(figures.inputPowerW).toBeLessThan(1.5 * 1.5);
+    // Energy balance: what reaches the 1 mA load is no more than what the cells give.
+    expect(Math.abs(report.outputMeanV) * 1e-3).toBeLessThanOrEqual(figures.inputPowerW);
   });
 });
 

@@ -5,13 +5,8 @@ import { driverReport, type DriverReport } from '../driver/driver-report';
 import type { DriverStage } from '../designs/driver-stage.types';
 import type { DriverCheckVerdict } from '../driver/driver-checks';
 import type { MethodInfo } from '../methods';
-import {
-  engineLadderLoadLine,
-  isFlybackFed,
-  pulseDriveOf,
-  solveLoadPoint,
-  type LadderLoadLine,
-} from '../driver/operating-point';
+import { isFlybackFed, solveLoadPoint } from '../driver/operating-point';
+import { engineLadderLoadLine, pulseDriveOf, type LadderLoadLine } from '../driver/ladder-load-line';
 import { DISCHARGE_METHOD, dischargeCheck, trappedChargeCheck } from '../safety/discharge';
 import { creepageChecks, stageSpacing } from '../safety/creepage';
 import type { StageSpacing } from '../safety/creepage';
@@ -25,6 +20,9 @@ import { ENGINE_VERSION } from '../multiplier/engine-version';
 import { ladderCurves } from '../multiplier/ladder-curves';
 import { bleederStressChecks, ladderStressChecks } from '../multiplier/ladder-stress';
 import type { LadderAnalysis, LadderCurves, LadderInput } from '../multiplier/ladder.types';
+import { withEffectiveTransformer } from '../transformer/given-numbers';
+import type { TransformerReport } from '../transformer/transformer.types';
+import { designedTransformerReport } from './transformer-report';
 
 /** Report of a bare ladder: figures (SI, signed by polarity), curves, stored energy, discharge and how each was computed. */
 export interface LadderReport extends Pick<
@@ -59,6 +57,8 @@ export interface DesignReport extends LadderReport {
   spacing: StageSpacing[];
   /** The driver stage joined to the ladder; null unless the design's drive is a driver stage. */
   driver: DriverReport | null;
+  /** The designed transformer at the driver's rated load; absent with a given transformer. */
+  transformer?: TransformerReport;
   /** Output with no external load and no bleeder (V, signed); a driver's flyback then rises to its clamp limit. */
   openCircuitOutputV: number;
   /** |open-circuit − loaded output| (V): the droop of the load and the bleeder together (`droopV` keeps the bleeder in both). */
@@ -141,11 +141,12 @@ const DRIVER_METHOD: MethodInfo = {
 };
 
 /** Resolves the drive of a design into the waveform the ladder model takes. */
-export function resolveDrive(design: Design): {
+export function resolveDrive(givenDesign: Design): {
   drive: SineDrive | PulseDrive;
   deliverablePowerW: number | null;
   currentLimitA: number | null;
 } {
+  const design = withEffectiveTransformer(givenDesign);
   const drive = design.drive;
   if (drive.kind !== 'driver') return { drive, deliverablePowerW: null, currentLimitA: null };
   const stage = drive.driver;
@@ -240,7 +241,8 @@ function stageWorkingVoltages(analysis: LadderAnalysis): number[] {
  * Full report of a validated design: steady-state analysis, curves, stored energy, discharge, spacing and
  * every check verdict, with method notes. Safety verdicts carry HV_CAUTION.
  */
-export function analyzeDesign(design: Design): DesignReport {
+export function analyzeDesign(givenDesign: Design): DesignReport {
+  const design = withEffectiveTransformer(givenDesign);
   if (design.multiplier.strayCapacitanceF !== undefined && !(design.multiplier.strayCapacitanceF >= 0)) {
     throw new DomainError('invalid_design', 'stray capacitance must not be negative', 'multiplier.strayCapacitanceF');
   }
@@ -323,6 +325,8 @@ export function analyzeDesign(design: Design): DesignReport {
     );
   }
   if (driver) checks.push(...driver.checks.map(asCheck));
+  const transformer = underDrive(() => designedTransformerReport(design, driver));
+  if (transformer) checks.push(...transformer.checks.map((c) => ({ ...c, caution: HV_CAUTION })));
   const rippleOk = analysis.ripplePeakToPeakV <= targets.rippleMaxV;
   const outputOk =
     Math.sign(analysis.outputMeanV) === Math.sign(targets.outputV) &&
@@ -353,6 +357,7 @@ export function analyzeDesign(design: Design): DesignReport {
       ? [...base.methods, DRIVER_METHOD, driver.operatingPoint.method, DRIVER_OPERATING_METHOD]
       : base.methods,
     driver,
+    ...(transformer ? { transformer } : {}),
   };
 }
 

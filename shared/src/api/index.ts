@@ -83,6 +83,13 @@ export type {
   SimulationJob,
   CurrentSimulationResponse,
 } from './simulations.types';
+export type {
+  Calibration,
+  CalibrationInputSummary,
+  CalibrationParameterOption,
+  CalibratedRevisionResponse,
+  StartCalibrationRequest,
+} from './calibrations.types';
 export { AUDIT_ACTIONS, MAIL_KINDS, MEMBER_REQUEST_NOTE_MAX } from './admin.types';
 export type {
   UserListQuery,
@@ -107,3 +114,4 @@ export type {
   MemberRequest,
 } from './admin.types';
 export { START_UP_WINDOW_S } from './simulation-limits';
+export { TRACE_NAMES, capacitorTraceName, capacitorOfTrace } from './waveform-traces';

@@ -1,6 +1,7 @@
 import { ladderInputOf, resolveDrive } from '../analysis/analyze-design';
 import type { Design } from '../designs/design.types';
-import { engineLadderLoadLine, solveLoadPoint } from '../driver/operating-point';
+import { solveLoadPoint } from '../driver/operating-point';
+import { engineLadderLoadLine } from '../driver/ladder-load-line';
 import { DomainError } from '../errors';
 import { analyzeLadder, prepareLadder, terminalMeanAt } from '../multiplier/analyze-ladder';
 import { runDriverStartUp } from '../runs/driver-start-up';

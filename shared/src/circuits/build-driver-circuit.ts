@@ -126,6 +126,14 @@ export function buildDriverCircuit(driver: DriverStage, options: DriverCircuitOp
       },
     ],
   });
+  if (tx.secondaryCapacitanceF)
+    el.push({
+      kind: 'capacitor',
+      name: 'Cself',
+      nodeA: n.secondary,
+      nodeB: '0',
+      capacitanceF: tx.secondaryCapacitanceF,
+    });
   el.push({ kind: 'resistor', name: 'Rb', nodeA: 'fb', nodeB: n.base, resistanceOhm: driver.baseResistorOhm });
   const model: NpnModel = {
     saturationCurrentA: q.saturationCurrentA ?? 1e-14,

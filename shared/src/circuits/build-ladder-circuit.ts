@@ -1,18 +1,6 @@
-import type { Design, Topology } from '../designs/design.types';
+import type { Design, PulseDrive, SineDrive, Topology } from '../designs/design.types';
 import { DomainError } from '../errors';
 import type { Circuit, CircuitElement, DiodeModel, SourceWaveform } from '../sim/circuit.types';
-
-/** Drive of a ladder: the secondary's open-circuit waveform (volts) and its source resistance. */
-export type LadderDrive =
-  | { kind: 'sine'; peakV: number; frequencyHz: number; sourceResistanceOhm: number }
-  | {
-      kind: 'pulse';
-      forwardPeakV: number;
-      flybackPeakV: number;
-      frequencyHz: number;
-      dutyCycle: number;
-      sourceResistanceOhm: number;
-    };
 
 /** Everything the simulator needs to know about a ladder, flattened from a design or from flags. */
 export interface LadderCircuitSpec {
@@ -21,7 +9,8 @@ export interface LadderCircuitSpec {
   /** In the design document's order (see designs/design.types.ts MultiplierSpec). */
   capacitorsF: ReadonlyArray<number>;
   diode: DiodeModel;
-  drive: LadderDrive;
+  /** The secondary's open-circuit waveform (volts) and its source resistance. */
+  drive: SineDrive | PulseDrive;
   /** Negative ladders reverse every diode. */
   isNegative?: boolean;
   bleederOhm?: number | null;
@@ -42,7 +31,7 @@ export function capacitorName(index: number): string {
   return `C${index + 1}`;
 }
 
-function driveWaveform(drive: LadderDrive, sign: 1 | -1): SourceWaveform {
+function driveWaveform(drive: SineDrive | PulseDrive, sign: 1 | -1): SourceWaveform {
   if (drive.kind === 'sine')
     return { kind: 'sine', offset: 0, amplitude: sign * drive.peakV, frequencyHz: drive.frequencyHz };
   const periodS = 1 / drive.frequencyHz;

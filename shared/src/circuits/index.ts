@@ -7,7 +7,7 @@ export {
   capacitorName,
   LADDER_NODES,
 } from './build-ladder-circuit';
-export type { LadderCircuitSpec, LadderDrive } from './build-ladder-circuit';
+export type { LadderCircuitSpec } from './build-ladder-circuit';
 export { buildDriverCircuit, DRIVER_NODES, DRIVER_SUPPLY_SOURCE } from './build-driver-circuit';
 export type { DriverCircuitOptions } from './build-driver-circuit';
 export { chargeBalanceCapacitorVoltagesV } from './steady-state-estimate';

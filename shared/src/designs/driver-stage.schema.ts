@@ -81,6 +81,9 @@ export const driverTransformerSchema = closedObject(
     saturatedInductanceH: Type.Optional(
       positive(L.maxInductanceH, 'Primary inductance in deep saturation; default 1 % of the primary inductance.'),
     ),
+    secondaryCapacitanceF: Type.Optional(
+      nonNegative(L.maxCapacitanceF, 'Self-capacitance of the secondary winding, across it; 0 if absent.'),
+    ),
     windingCouplings: Type.Optional(
       closedObject(
         {

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { demoTransformerSection } from '../transformer/demo-kinds';
 import { designExamples } from './design-examples';
 import type { Design } from './design.types';
 import {
@@ -39,6 +40,13 @@ function everyField(): Design {
   driver.snubber = { resistorOhm: 100, capacitorF: 1e-9 };
   driver.supplyBypassCapacitanceF = 100e-6;
   driver.collectorStrayCapacitanceF = 100e-12;
+  driver.transformerChoice = 'designed';
+  driver.transformerDesign = {
+    ...structuredClone(demoTransformerSection),
+    core: { ...demoTransformerSection.core, surfaceAreaM2: 2e-3 },
+    windings: demoTransformerSection.windings.map((winding) => ({ ...winding, layers: 2, layerTapeWraps: 1 })),
+    flangeCreepageM: 3e-3,
+  };
   if (driver.supply.kind === 'cells') {
     driver.supply.curve = [{ chargeFraction: 1, voltageV: 1.5 }];
     driver.supply.maxContinuousCurrentA = 1;
@@ -49,6 +57,18 @@ function everyField(): Design {
   base.targets.spacing.providedCreepageMm = 6;
   return base;
 }
+
+describe('transformer labels', () => {
+  it('labels the designed transformer by winding and reads its units as datasheets write them', () => {
+    expect(documentFieldLabel('drive.driver.transformerDesign.windings[2].turns').label).toBe('Winding 3 turns');
+    const area = documentFieldLabel('drive.driver.transformerDesign.core.effectiveAreaM2');
+    // 32 mm² = 32e-6 m² (SI definition).
+    expect(formatFieldValue(32e-6, area.display)).toBe('32 mm²');
+    expect(formatFieldValue(0.39, resultFieldLabel('transformer.saturationFluxDensityT').display)).toBe('390 mT');
+    expect(formatFieldValue(1e8, 'kVPerMm')).toBe('100 kV/mm');
+    expect(formatFieldValue(23.5, resultFieldLabel('transformer.saturationMarginPct').display)).toBe('23.5 %');
+  });
+});
 
 describe('document field labels', () => {
   it('has its own label for every path of every demo design, with every optional field filled', () => {

@@ -2,10 +2,13 @@ import { formatQuantity } from '../units/format-quantity';
 import type { QuantityUnit } from '../units/quantity.types';
 
 /**
- * How a field's stored number reads: a quantity in SI base units, a fraction shown in per cent, millimetres,
- * hours or ampere-hours as the trade states them, or a plain count or ratio.
+ * How a field's stored number reads: a quantity in SI base units, a fraction shown in per cent, a value already
+ * in per cent, millimetres, areas and volumes stored in m² and m³ shown in mm² and mm³, flux density stored in T,
+ * field strength stored in V/m shown in kV/mm, a temperature (rise) in °C, hours or ampere-hours as the trade
+ * states them, or a plain count or ratio.
  */
-export type FieldDisplay = QuantityUnit | 'fraction' | 'mm' | 'h' | 'Ah' | 'plain';
+export type FieldDisplay =
+  QuantityUnit | 'fraction' | 'percent' | 'mm' | 'mm2' | 'mm3' | 'T' | 'kVPerMm' | 'degC' | 'h' | 'Ah' | 'plain';
 
 /** A human label for a document path or a report key, and how its value reads. */
 export interface FieldLabel {
@@ -67,6 +70,74 @@ const DOCUMENT_FIELDS: Readonly<Record<string, FieldLabel>> = {
   'drive.driver.transformer.secondaryPhasing': { label: 'Ladder fed by', display: 'plain' },
   'drive.driver.transformer.insulation': { label: 'Secondary insulation', display: 'plain' },
   'drive.driver.transformer.insulation.ratedVoltageV': { label: 'Secondary insulation rating', display: 'V' },
+  'drive.driver.transformerChoice': { label: 'Transformer from', display: 'plain' },
+  'drive.driver.transformerDesign': { label: 'Designed transformer', display: 'plain' },
+  'drive.driver.transformerDesign.core': { label: 'Core', display: 'plain' },
+  'drive.driver.transformerDesign.core.code': { label: 'Core part code', display: 'plain' },
+  'drive.driver.transformerDesign.core.effectiveAreaM2': { label: 'Core effective area Ae', display: 'mm2' },
+  'drive.driver.transformerDesign.core.pathLengthM': { label: 'Core path length le', display: 'm' },
+  'drive.driver.transformerDesign.core.volumeM3': { label: 'Core volume Ve', display: 'mm3' },
+  'drive.driver.transformerDesign.core.windowAreaM2': { label: 'Core winding area', display: 'mm2' },
+  'drive.driver.transformerDesign.core.bobbinBreadthM': { label: 'Bobbin winding breadth', display: 'm' },
+  'drive.driver.transformerDesign.core.bobbinHeightM': { label: 'Bobbin winding height', display: 'm' },
+  'drive.driver.transformerDesign.core.meanTurnLengthM': { label: 'Mean length per turn', display: 'm' },
+  'drive.driver.transformerDesign.core.ungappedAlHPerTurn2': { label: 'AL of the ungapped core', display: 'H' },
+  'drive.driver.transformerDesign.core.saturationFluxDensity25T': { label: 'Bsat at 25 °C', display: 'T' },
+  'drive.driver.transformerDesign.core.saturationFluxDensity100T': { label: 'Bsat at 100 °C', display: 'T' },
+  'drive.driver.transformerDesign.core.steinmetzK': { label: 'Steinmetz k', display: 'plain' },
+  'drive.driver.transformerDesign.core.steinmetzAlpha': { label: 'Steinmetz α', display: 'plain' },
+  'drive.driver.transformerDesign.core.steinmetzBeta': { label: 'Steinmetz β', display: 'plain' },
+  'drive.driver.transformerDesign.core.surfaceAreaM2': { label: 'Core surface area', display: 'mm2' },
+  'drive.driver.transformerDesign.gap': { label: 'Gap', display: 'plain' },
+  'drive.driver.transformerDesign.gap.kind': { label: 'Gap set by', display: 'plain' },
+  'drive.driver.transformerDesign.gap.gapM': { label: 'Gap length', display: 'm' },
+  'drive.driver.transformerDesign.gap.alHPerTurn2': { label: 'Target AL', display: 'H' },
+  'drive.driver.transformerDesign.gap.primaryInductanceH': { label: 'Target primary inductance', display: 'H' },
+  'drive.driver.transformerDesign.windings': { label: 'Windings', display: 'plain' },
+  'drive.driver.transformerDesign.windings[]': { label: 'Winding {n}', display: 'plain' },
+  'drive.driver.transformerDesign.windings[].role': { label: 'Winding {n} role', display: 'plain' },
+  'drive.driver.transformerDesign.windings[].name': { label: 'Winding {n} name', display: 'plain' },
+  'drive.driver.transformerDesign.windings[].turns': { label: 'Winding {n} turns', display: 'plain' },
+  'drive.driver.transformerDesign.windings[].wire': { label: 'Winding {n} wire', display: 'plain' },
+  'drive.driver.transformerDesign.windings[].wire.code': { label: 'Winding {n} wire code', display: 'plain' },
+  'drive.driver.transformerDesign.windings[].wire.copperDiameterM': {
+    label: 'Winding {n} copper diameter',
+    display: 'm',
+  },
+  'drive.driver.transformerDesign.windings[].wire.overallDiameterM': {
+    label: 'Winding {n} diameter over enamel',
+    display: 'm',
+  },
+  'drive.driver.transformerDesign.windings[].wire.grade': { label: 'Winding {n} enamel grade', display: 'plain' },
+  'drive.driver.transformerDesign.windings[].wire.breakdownVoltageV': {
+    label: 'Winding {n} wire breakdown voltage',
+    display: 'V',
+  },
+  'drive.driver.transformerDesign.windings[].layers': { label: 'Winding {n} layers', display: 'plain' },
+  'drive.driver.transformerDesign.windings[].layerTapeWraps': {
+    label: 'Winding {n} tape wraps between layers',
+    display: 'plain',
+  },
+  'drive.driver.transformerDesign.windings[].startPin': { label: 'Winding {n} start pin (dot)', display: 'plain' },
+  'drive.driver.transformerDesign.windings[].endPin': { label: 'Winding {n} finish pin', display: 'plain' },
+  'drive.driver.transformerDesign.layerTape': { label: 'Layer tape', display: 'plain' },
+  'drive.driver.transformerDesign.layerTape.code': { label: 'Layer tape code', display: 'plain' },
+  'drive.driver.transformerDesign.layerTape.thicknessM': { label: 'Layer tape thickness', display: 'm' },
+  'drive.driver.transformerDesign.layerTape.dielectricStrengthVPerM': {
+    label: 'Layer tape dielectric strength',
+    display: 'kVPerMm',
+  },
+  'drive.driver.transformerDesign.windingTape': { label: 'Winding tape', display: 'plain' },
+  'drive.driver.transformerDesign.windingTape.code': { label: 'Winding tape code', display: 'plain' },
+  'drive.driver.transformerDesign.windingTape.thicknessM': { label: 'Winding tape thickness', display: 'm' },
+  'drive.driver.transformerDesign.windingTape.dielectricStrengthVPerM': {
+    label: 'Winding tape dielectric strength',
+    display: 'kVPerMm',
+  },
+  'drive.driver.transformerDesign.windingTapeWraps': { label: 'Winding tape wraps', display: 'plain' },
+  'drive.driver.transformerDesign.endMarginM': { label: 'End margin', display: 'm' },
+  'drive.driver.transformerDesign.flangeCreepageM': { label: 'Creepage along the flange', display: 'm' },
+  'drive.driver.transformerDesign.inductanceTolerance': { label: 'Inductance tolerance', display: 'fraction' },
   'drive.driver.transistor': { label: 'Transistor', display: 'plain' },
   'drive.driver.transistor.forwardBeta': { label: 'Forward β', display: 'plain' },
   'drive.driver.transistor.reverseBeta': { label: 'Reverse β', display: 'plain' },
@@ -160,6 +231,29 @@ const RESULT_FIELDS: Readonly<Record<string, FieldLabel>> = {
   dischargeTimeS: { label: 'Discharge time to the safe level', display: 's' },
   'driver.figures.efficiency': { label: 'Driver efficiency', display: 'fraction' },
   'driver.batteryLife.lifeS.value': { label: 'Battery life', display: 's' },
+  'transformer.primaryInductanceH': { label: 'Primary inductance (designed)', display: 'H' },
+  'transformer.gap.gapM': { label: 'Gap length', display: 'm' },
+  'transformer.gap.alHPerTurn2': { label: 'AL with the gap', display: 'H' },
+  'transformer.peakFluxDensityT': { label: 'Peak flux density', display: 'T' },
+  'transformer.fluxSwingT': { label: 'Flux swing (peak-to-peak)', display: 'T' },
+  'transformer.saturationFluxDensityT': { label: 'Bsat at 100 °C', display: 'T' },
+  'transformer.saturationMarginPct': { label: 'Margin to saturation at 100 °C', display: 'percent' },
+  'transformer.saturationCurrentA': { label: 'Primary current at saturation', display: 'A' },
+  'transformer.saturatedInductanceH': { label: 'Saturated primary inductance', display: 'H' },
+  'transformer.coreLossW': { label: 'Core loss', display: 'W' },
+  'transformer.copperLossW': { label: 'Copper loss', display: 'W' },
+  'transformer.temperatureRiseC': { label: 'Temperature rise', display: 'degC' },
+  'transformer.windowFill': { label: 'Window fill (copper)', display: 'fraction' },
+  'transformer.buildFill': { label: 'Build fill (bobbin height)', display: 'fraction' },
+  'transformer.leakagePrimarySecondaryH': { label: 'Leakage inductance, primary to secondary', display: 'H' },
+  'transformer.secondaryCapacitanceF': { label: 'Secondary self-capacitance', display: 'F' },
+  'transformer.hipotTestVoltageV': { label: 'Hipot test voltage', display: 'V' },
+  'transformer.windingInsulationV': { label: 'Insulation between windings', display: 'V' },
+  'transformer.flangeCreepageM': { label: 'Creepage along the flange', display: 'm' },
+  'transformer.requiredCreepageM': { label: 'Creepage required', display: 'm' },
+  'transformer.couplings.primarySecondary': { label: 'Coupling primary–secondary', display: 'plain' },
+  'transformer.couplings.primaryFeedback': { label: 'Coupling primary–feedback', display: 'plain' },
+  'transformer.couplings.feedbackSecondary': { label: 'Coupling feedback–secondary', display: 'plain' },
 };
 
 /** `multiplier.capacitors[2].valueF` → `multiplier.capacitors[].valueF` and the first index (2), if any. */
@@ -207,12 +301,29 @@ function plainNumber(value: number): string {
   return Number(value.toPrecision(5)).toString();
 }
 
+/** Three significant figures, for figures whose fourth is below what the method can tell. */
+function roundNumber(value: number): string {
+  return Number(value.toPrecision(3)).toString();
+}
+
 function magnitudeText(magnitude: number, display: FieldDisplay): string {
   switch (display) {
     case 'plain':
       return plainNumber(magnitude);
     case 'fraction':
       return `${plainNumber(magnitude * 100)} %`;
+    case 'percent':
+      return `${roundNumber(magnitude)} %`;
+    case 'mm2':
+      return `${plainNumber(magnitude * 1e6)} mm²`;
+    case 'mm3':
+      return `${plainNumber(magnitude * 1e9)} mm³`;
+    case 'T':
+      return magnitude < 1 ? `${roundNumber(magnitude * 1e3)} mT` : `${roundNumber(magnitude)} T`;
+    case 'kVPerMm':
+      return `${roundNumber(magnitude / 1e6)} kV/mm`;
+    case 'degC':
+      return `${roundNumber(magnitude)} °C`;
     case 'mm':
       return `${plainNumber(magnitude)} mm`;
     case 'h':

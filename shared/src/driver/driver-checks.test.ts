@@ -3,7 +3,7 @@ import { estimateBlockingOscillator } from './blocking-oscillator';
 import { driverExamples } from '../designs/driver-examples';
 import { runDriverChecks } from './driver-checks';
 import type { DriverStage } from '../designs/driver-stage.types';
-import { halfWaveCascadeLoadLine } from './operating-point';
+import { halfWaveCascadeLoadLine } from './ladder-load-line';
 
 const demo = driverExamples.surfaceChargeTester;
 const ladder = halfWaveCascadeLoadLine(2, 10e-9);

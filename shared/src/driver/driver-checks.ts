@@ -1,14 +1,12 @@
 import { DomainError } from '../errors';
 import { batteryLife, cellCurveOf, cellMaxContinuousCurrentA, type BatteryLifeResult } from './battery';
-import {
-  blockingOscillatorNumbers,
-  estimateBlockingOscillator,
-  type BlockingOscillatorEstimate,
-} from './blocking-oscillator';
+import { blockingOscillatorNumbers, estimateBlockingOscillator } from './blocking-oscillator';
+import type { BlockingOscillatorEstimate } from './blocking-oscillator.types';
 import type { DriverStage } from '../designs/driver-stage.types';
 import type { Estimated } from '../methods';
 import { HIPOT_METHOD, hipotTestVoltageV as hipotTestVoltageOf } from '../safety/hipot';
-import { solveLoadPoint, supplyCurrentAt, type LadderLoadLine, type LoadPoint } from './operating-point';
+import { solveLoadPoint, supplyCurrentAt, type LoadPoint } from './operating-point';
+import { type LadderLoadLine } from './ladder-load-line';
 import { driverEnergy, type DriverEnergy } from './driver-energy';
 
 /** One verdict of the Checks panel (same shape as the safety checks). */

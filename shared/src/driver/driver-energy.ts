@@ -1,6 +1,6 @@
 import type { DriverStage } from '../designs/driver-stage.types';
 import type { MethodInfo } from '../methods';
-import type { StageLosses } from './blocking-oscillator';
+import type { StageLosses } from './blocking-oscillator.types';
 import type { LoadPoint } from './operating-point';
 
 /** Where the supply's power goes besides the output, by element kind. */

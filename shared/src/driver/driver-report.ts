@@ -1,17 +1,12 @@
 import { cellCurveOf, type BatteryLifeResult } from './battery';
-import type { BlockingOscillatorEstimate } from './blocking-oscillator';
+import type { BlockingOscillatorEstimate } from './blocking-oscillator.types';
 import { runDriverChecks, type DriverCheckVerdict } from './driver-checks';
 import type { DriverEnergy, LossKind } from './driver-energy';
 import { estimateValidity, type EstimateValidity } from './estimate-validity';
 import type { CellCurvePoint, DriverStage } from '../designs/driver-stage.types';
 import type { Estimated, MethodInfo } from '../methods';
-import {
-  driverOperatingPoint,
-  isFlybackFed,
-  type LadderLoadLine,
-  type LoadPoint,
-  type OperatingLimit,
-} from './operating-point';
+import { driverOperatingPoint, isFlybackFed, type LoadPoint, type OperatingLimit } from './operating-point';
+import { type LadderLoadLine } from './ladder-load-line';
 
 const FIGURE_KEYS = [
   'onTimeS',

@@ -1,5 +1,5 @@
 import type { DriverStage } from '../designs/driver-stage.types';
-import type { BlockingOscillatorEstimate } from './blocking-oscillator';
+import type { BlockingOscillatorEstimate } from './blocking-oscillator.types';
 import type { DriverBenchFigures } from './driver-report';
 
 /** Whether the instant estimate may stand for the simulation, and why not. */

@@ -31,23 +31,11 @@ export type {
   OnTimeLimit,
   OscillatorNumbers,
   StageLosses,
-} from './blocking-oscillator';
-export {
-  driverOperatingPoint,
-  engineLadderLoadLine,
-  isFlybackFed,
-  pulseDriveOf,
-  solveLoadPoint,
-  OPERATING_POINT_METHOD,
-} from './operating-point';
-export type {
-  LadderDrive,
-  LadderLoadLine,
-  LadderState,
-  LoadPoint,
-  OperatingLimit,
-  OperatingPointResult,
-} from './operating-point';
+} from './blocking-oscillator.types';
+export { driverOperatingPoint, isFlybackFed, solveLoadPoint, OPERATING_POINT_METHOD } from './operating-point';
+export { engineLadderLoadLine, pulseDriveOf } from './ladder-load-line';
+export type { LoadPoint, OperatingLimit, OperatingPointResult } from './operating-point';
+export type { LadderDrive, LadderLoadLine, LadderState } from './ladder-load-line';
 export { driverReport } from './driver-report';
 export type { BenchLossKind, DriverBenchFigures, DriverFigures, DriverReport } from './driver-report';
 export { runDriverChecks } from './driver-checks';

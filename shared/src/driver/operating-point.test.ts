@@ -6,13 +6,8 @@ import type { LadderInput } from '../multiplier/ladder.types';
 import { estimateBlockingOscillator } from './blocking-oscillator';
 import { driverExamples } from '../designs/driver-examples';
 import type { DriverStage } from '../designs/driver-stage.types';
-import {
-  driverOperatingPoint,
-  engineLadderLoadLine,
-  halfWaveCascadeLoadLine,
-  solveLoadPoint,
-  type LadderLoadLine,
-} from './operating-point';
+import { driverOperatingPoint, solveLoadPoint } from './operating-point';
+import { engineLadderLoadLine, halfWaveCascadeLoadLine, type LadderLoadLine } from './ladder-load-line';
 
 const demo = driverExamples.surfaceChargeTester;
 const demoDesign = designExamples.surfaceChargeTester;

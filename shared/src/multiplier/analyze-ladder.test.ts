@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { lusolve } from 'mathjs';
-import { analyzeLadder } from './analyze-ladder';
+import { analyzeLadder, analyzePrepared, operatingFigures, prepareLadder } from './analyze-ladder';
+import { buildLadderNetwork } from './topologies';
 import type { LadderInput } from './ladder.types';
 
 // Ideal diode for the closed-form comparisons: with Is = 1e-300 A and n = 1e-9 the Shockley drop is below
@@ -277,5 +278,38 @@ describe('analyzeLadder properties (fast-check)', () => {
       }),
       { numRuns: 200 },
     );
+  });
+});
+
+describe('the shortcuts of repeated solves', () => {
+  it('screens with the same output and ripple as the full analysis (Sizer)', () => {
+    for (const topology of ['half-wave', 'full-wave'] as const) {
+      const prepared = prepareLadder(
+        sineLadder(Array<number>(6).fill(2.2e-9), 480, 25e3, 30e-6, {
+          topology,
+          polarity: -1,
+          bleederOhm: 1e9,
+          seriesOutputResistanceOhm: 10e6,
+          drive: { kind: 'sine', peakV: 480, frequencyHz: 25e3, sourceResistanceOhm: 150 },
+        }),
+      );
+      const figures = operatingFigures(prepared);
+      const full = analyzePrepared(prepared, { operatingPointOnly: true });
+      // The same solve in the same order: equal to the last bit.
+      expect(figures.outputMeanV).toBe(full.outputMeanV);
+      expect(figures.ripplePeakToPeakV).toBe(full.ripplePeakToPeakV);
+    }
+  });
+
+  it('builds each network with its own capacitor values on a shared structure', () => {
+    const caps = [1e-9, 2e-9, 3e-9, 4e-9];
+    const a = buildLadderNetwork('half-wave', caps);
+    const b = buildLadderNetwork('half-wave', [5e-9, 6e-9, 7e-9, 8e-9]);
+    expect(a.capF).toEqual([1e-9, 2e-9, 3e-9, 4e-9]);
+    expect(b.capF).toEqual([5e-9, 6e-9, 7e-9, 8e-9]);
+    expect(b.capTop).toEqual(a.capTop);
+    // The values are copied: the caller's array may change afterwards.
+    caps[0] = 9e-9;
+    expect(a.capF[0]).toBe(1e-9);
   });
 });

@@ -93,7 +93,8 @@ export function analyzeLadder(input: LadderInput): LadderAnalysis {
 
 /**
  * Analysis of a prepared ladder. `operatingPointOnly` skips the no-load solve and the output-impedance
- * derivative (both then reported as NaN): the Sizer and the tolerance spread need only the operating point.
+ * derivative (both then reported as NaN) and the node voltages (an empty list): the Sizer needs only the
+ * operating point and the component stress.
  */
 export function analyzePrepared(
   prepared: PreparedLadder,
@@ -179,11 +180,9 @@ export function analyzePrepared(
   const terminalMeanV = cycle.meanV - seriesDropV;
   const outputMinV = sign * (sign > 0 ? cycle.minV - seriesDropV : cycle.maxV - seriesDropV);
   const outputMaxV = sign * (sign > 0 ? cycle.maxV - seriesDropV : cycle.minV - seriesDropV);
-  const nodes = ladderNodeVoltages(ws, ladderCurrentA, sign, {
-    meanV: sign * terminalMeanV,
-    minV: outputMinV,
-    maxV: outputMaxV,
-  });
+  const nodes = full
+    ? ladderNodeVoltages(ws, ladderCurrentA, sign, { meanV: sign * terminalMeanV, minV: outputMinV, maxV: outputMaxV })
+    : [];
 
   // After the stress figures and node voltages: these solves overwrite the operating-point state.
   let ladderImpedance = NaN;

@@ -30,6 +30,19 @@ export function capacitorPlaces(topology: Topology, count: number): CapacitorPla
 }
 
 /**
+ * Grading: larger capacitors at the bottom of the ladder. With n stages, the capacitor of stage k takes
+ * (n − k + 1) times the top stage's value, so the top stage keeps it and stage 1 gets n times it (J. Lux,
+ * "Cockcroft Walton Voltage Multipliers", read). The factor of each of `count` capacitors (list order), or
+ * null when that count is no ladder of `topology`.
+ */
+export function capacitorGradeFactors(topology: Topology, count: number): number[] | null {
+  const places = capacitorPlaces(topology, count);
+  if (!places) return null;
+  const stageCount = Math.max(...places.map((p) => p.stage));
+  return places.map((place) => stageCount - place.stage + 1);
+}
+
+/**
  * The capacitors that sit elsewhere in the ladder after a change of shape when the list is kept by position:
  * for each position present in both, a change of column or stage. (Half-wave: an even cell count starts in the
  * oscillating column, an odd one in the smoothing column, so four cells made three move C1.)

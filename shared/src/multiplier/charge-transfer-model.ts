@@ -192,6 +192,11 @@ export function createWorkspace(net: LadderNetwork, input: LadderInput): Workspa
   return ws;
 }
 
+/** x^(2/3) for x ≥ 0 as ∛(x²): the same to a rounding, and several times faster than a general power in V8. */
+function cubeRootOfSquare(x: number): number {
+  return Math.cbrt(x * x);
+}
+
 /** Per-event source loss and diode drop at a ladder current, from conduction time and charge. */
 function eventLosses(
   ws: Workspace,
@@ -213,7 +218,7 @@ function eventLosses(
     const omega = 2 * Math.PI * t.frequencyHz;
     lossV =
       r > 0 && q > 0
-        ? Math.min(peakV, ((3 * sourceCharge * omega * r * Math.sqrt(peakV)) / (4 * Math.SQRT2)) ** (2 / 3))
+        ? Math.min(peakV, cubeRootOfSquare((3 * sourceCharge * omega * r * Math.sqrt(peakV)) / (4 * Math.SQRT2)))
         : 0;
     const swingV = lossV + ((ws.net.diodeShare[0] as number) * q) / ws.harmonicMeanF;
     const angle = Math.min(Math.PI / 2, Math.sqrt((2 * swingV) / Math.max(peakV, 1e-30)));

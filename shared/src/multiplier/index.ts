@@ -21,11 +21,11 @@ export type {
   CurvePoint,
   CapacitorStress,
   DiodeStress,
-  DiodeModel,
+  ShockleyDiode,
   LadderNodeVoltage,
   LadderNodeColumn,
   TextbookFigures,
 } from './ladder.types';
 export type { MethodInfo } from '../methods';
-export { capacitorPlaces, capacitorRoleChanges } from './capacitor-places';
+export { capacitorGradeFactors, capacitorPlaces, capacitorRoleChanges } from './capacitor-places';
 export type { CapacitorPlace, CapacitorRoleChange } from './capacitor-places';

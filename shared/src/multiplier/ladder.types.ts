@@ -1,8 +1,11 @@
 import type { MethodInfo } from '../methods';
 import type { PulseDrive, SineDrive, Topology } from '../designs/design.types';
 
-/** The Shockley parameters the steady-state model needs from a diode. */
-export interface DiodeModel {
+/**
+ * The Shockley parameters the steady-state model needs from a diode: the part of the simulator's diode
+ * model (sim/circuit.types.ts DiodeModel) that the charge-transfer model reads.
+ */
+export interface ShockleyDiode {
   saturationCurrentA: number;
   emissionCoefficient: number;
   seriesResistanceOhm: number;
@@ -16,7 +19,7 @@ export interface LadderInput {
   topology: Topology;
   capacitorsF: readonly number[];
   drive: SineDrive | PulseDrive;
-  diode: DiodeModel;
+  diode: ShockleyDiode;
   /** +1 for a positive ladder, −1 for a negative one (diodes reversed; forward and flyback swap roles). */
   polarity: 1 | -1;
   /** External load at the load terminal (after the series output resistor); null for none. */

@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import type { Topology } from '../designs/design.types';
 import { createWorkspace } from './charge-transfer-model';
 import type { LadderInput } from './ladder.types';
-import { plateauRates } from './plateau-rates';
+import { flatTopRates, plateauRates } from './plateau-rates';
 import { buildLadderNetwork, type LadderNetwork } from './topologies';
 
 /** Capacitor changes for unit charge injected at the nodes, each node's charge running down its column. */
@@ -90,5 +90,38 @@ describe('plateauRates', () => {
       const accumulated = nodeRatesOf(net, rates.capRate);
       rates.nodeRate.forEach((rate, n) => expect(Math.abs(rate - accumulated[n]!)).toBeLessThan(1e-9 * scale));
     }
+  });
+});
+
+describe('flatTopRates', () => {
+  const capsF = Array.from({ length: 6 }, (_, i) => 1e-9 * (0.5 + ((i * 0.618) % 1)));
+
+  it('gives both phases’ plateau rates, or none when either phase has none', () => {
+    for (const caps of [capsF, Array<number>(40).fill(4.7e-9)]) {
+      const net = buildLadderNetwork('half-wave', caps);
+      const ws = createWorkspace(net, input);
+      const h = plateauRates(net, ws.loadRate, 0);
+      const l = plateauRates(net, ws.loadRate, 1);
+      const both = flatTopRates(net, ws.loadRate);
+      expect(both).toEqual(h && l ? { h, l } : null);
+    }
+  });
+
+  it('answers a network met before from memory and a changed capacitor afresh', () => {
+    // A four-cell ladder keeps diodes conducting through both phases (both rates exist).
+    const fourF = [4.7e-9, 4.7e-9, 4.7e-9, 4.7e-9];
+    const net = buildLadderNetwork('half-wave', fourF);
+    const ws = createWorkspace(net, input);
+    const first = flatTopRates(net, ws.loadRate);
+    expect(first).not.toBeNull();
+    expect(flatTopRates(buildLadderNetwork('half-wave', [...fourF]), ws.loadRate)).toBe(first);
+    const changed = buildLadderNetwork(
+      'half-wave',
+      fourF.map((f, i) => (i === 3 ? f * 2 : f)),
+    );
+    const again = flatTopRates(changed, createWorkspace(changed, input).loadRate);
+    expect(again).not.toBeNull();
+    expect(again).not.toBe(first);
+    expect(again?.h.capRate).not.toEqual(first?.h.capRate);
   });
 });

@@ -26,3 +26,4 @@ export { shelfForSizer } from './shelf-for-sizer';
 export type { SizerPartsList, DiodeModelParameters } from './shelf-for-sizer';
 export { analyzeWithShelf } from './analyze-with-shelf';
 export type { ShelfDesignReport } from './analyze-with-shelf';
+export { coreKindOf, wireKindOf, tapeKindOf, shelfMagnetics } from './shelf-magnetics';

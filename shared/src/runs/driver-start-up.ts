@@ -6,8 +6,9 @@ import { MnaSystem } from '../sim/mna-system';
 import { readSettlingTimes, TurnOnTrigger } from '../sim/oscillation-measures';
 import { TransientStepper } from '../sim/transient';
 import { downsampleMinMax } from '../sim/waveform-measures';
-import { driverDesignCircuit, driverPeriodGuessS } from './driver-runs';
+import { driverDesignCircuit, driverPeriodGuessS } from './driver-design-circuit';
 import type { PlotTrace } from './ladder-runs';
+import { withEffectiveTransformer } from '../transformer/given-numbers';
 
 export interface StartUpOptions {
   /** Simulated-time budget (s); default 5 s. */
@@ -67,7 +68,8 @@ interface Decay {
  * projected rise. The charging curve is the cycle means; 90 % and 1 % times are read from it against the
  * settled output (linear interpolation).
  */
-export function runDriverStartUp(design: Design, options: StartUpOptions = {}): StartUpResult {
+export function runDriverStartUp(givenDesign: Design, options: StartUpOptions = {}): StartUpResult {
+  const design = withEffectiveTransformer(givenDesign);
   if (design.drive.kind !== 'driver')
     throw new DomainError('invalid_design', 'runDriverStartUp needs a driver drive', 'drive.kind');
   const driver = design.drive.driver;

@@ -10,6 +10,7 @@ import { findPeriodicSteadyState } from '../sim/periodic-steady-state';
 import { chargeBalanceCapacitorVoltagesV } from '../circuits/steady-state-estimate';
 import { TransientStepper } from '../sim/transient';
 import { downsampleMinMax, windowMean, windowPeakToPeak } from '../sim/waveform-measures';
+import { progressReporter } from './progress-reporter';
 
 export interface LadderRunOptions {
   /** 'steady': until the cycle-mean output settles; a number: exactly that many drive cycles. */
@@ -56,29 +57,11 @@ export interface LadderRunResult {
 
 const driveFrequencyHz = (spec: LadderCircuitSpec): number => spec.drive.frequencyHz;
 
-/** Smallest rise of the fraction that is reported (bounds the rate of `onProgress` calls). */
-const PROGRESS_STEP = 0.01;
-
 /** Phase weights of the overall fraction: the periodic solution, the start-up, the discharge. */
 function phaseWeights(options: LadderRunOptions): { pss: number; startUp: number; discharge: number } {
   const pss = options.until === 'steady' ? 0.1 : 0;
   const discharge = options.dischargeToV !== undefined ? 0.3 : 0;
   return { pss, startUp: 1 - pss - discharge, discharge };
-}
-
-/** Wraps `onProgress`: clamps to 0..1, never goes back, reports a rise of at least PROGRESS_STEP (or a forced one). */
-function progressReporter(
-  onProgress: ((fraction: number) => void) | undefined,
-): (fraction: number, isForced?: boolean) => void {
-  let reported = -Infinity;
-  return (fraction, isForced = false) => {
-    if (!onProgress) return;
-    const f = Math.min(1, Math.max(reported, fraction, 0));
-    if (f >= reported + PROGRESS_STEP || (isForced && f > reported)) {
-      reported = f;
-      onProgress(f);
-    }
-  };
 }
 
 /**

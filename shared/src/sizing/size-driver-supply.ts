@@ -6,13 +6,8 @@ import type { DriverStage } from '../designs/driver-stage.types';
 import { DomainError } from '../errors';
 import { batteryLife } from '../driver/battery';
 import { runDriverChecks } from '../driver/driver-checks';
-import {
-  engineLadderLoadLine,
-  isFlybackFed,
-  pulseDriveOf,
-  solveLoadPoint,
-  supplyCurrentAt,
-} from '../driver/operating-point';
+import { isFlybackFed, solveLoadPoint, supplyCurrentAt } from '../driver/operating-point';
+import { engineLadderLoadLine, pulseDriveOf } from '../driver/ladder-load-line';
 import { bracketedRoot } from '../multiplier/bracketed-root';
 import { analyzeLadder } from '../multiplier/analyze-ladder';
 import type { MethodInfo } from '../methods';

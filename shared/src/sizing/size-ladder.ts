@@ -1,6 +1,7 @@
 import { DomainError } from '../errors';
 import type { DiodePart, DischargeRule, PulseDrive, SineDrive, Topology } from '../designs/design.types';
 import { analyzePrepared, operatingFigures, prepareLadder, withDiode } from '../multiplier/analyze-ladder';
+import { capacitorGradeFactors } from '../multiplier/capacitor-places';
 import { DERATING } from '../multiplier/ladder-stress';
 import type { LadderAnalysis, LadderInput } from '../multiplier/ladder.types';
 import type { MethodInfo } from '../methods';
@@ -147,20 +148,22 @@ function capacitorCount(topology: Topology, cells: number): number {
   return topology === 'full-wave' ? 3 * cells : topology === 'bridge-doubler' ? 2 : cells;
 }
 
-/** Capacitor values of a candidate; graded values snap to the nearest available value (log distance). */
+/**
+ * Capacitor values of a candidate with top-stage value `c`: equal, or graded by `gradeFactors`
+ * (`capacitorGradeFactors` of its topology and count), snapped to the nearest available value (log distance).
+ */
 function gradedValues(
   topology: Topology,
   cells: number,
   c: number,
   grading: 'equal' | 'graded',
+  gradeFactors: readonly number[] | null,
   available: readonly number[],
 ): number[] {
   const count = capacitorCount(topology, cells);
-  if (grading === 'equal' || topology === 'bridge-doubler') return Array<number>(count).fill(c);
-  const perStage = topology === 'full-wave' ? 3 : 2;
-  const stages = Math.ceil(count / perStage);
+  if (grading === 'equal' || topology === 'bridge-doubler' || !gradeFactors) return Array<number>(count).fill(c);
   return Array.from({ length: count }, (_, i) => {
-    const wanted = c * (stages - Math.floor(i / perStage));
+    const wanted = c * (gradeFactors[i] as number);
     // Binary search in the ascending list, then the nearer neighbour in log terms.
     let lo = 0;
     let hi = available.length - 1;
@@ -191,7 +194,7 @@ function ratingFor(
 }
 
 function chooseBleeder(
-  analysis: LadderAnalysis,
+  analysis: Pick<LadderAnalysis, 'ladderTopMeanV'>,
   storedEnergyJ: number,
   request: SizerRequest,
   resistors: readonly ResistorOption[],
@@ -248,15 +251,19 @@ export function sizeLadder(request: SizerRequest): SizerResult {
   const extra = request.extraCells ?? 8;
 
   let evaluated = 0;
-  const meeting: Array<Omit<SizerCandidate, 'rank' | 'bleeder'> & { analysis: LadderAnalysis }> = [];
+  // Each keeps only what its bleeder is chosen by (thousands may meet the spec; a few are shown).
+  const meeting: Array<
+    Omit<SizerCandidate, 'rank' | 'bleeder'> & { analysis: Pick<LadderAnalysis, 'ladderTopMeanV'> }
+  > = [];
   outer: for (const topology of topologies) {
     const perUnitV = topology === 'full-wave' ? 2 * vmax : vmax;
     const minUnits = topology === 'bridge-doubler' ? 2 : Math.max(1, Math.ceil(target / perUnitV));
     const maxUnits = topology === 'bridge-doubler' ? 2 : minUnits + extra;
     for (let cells = minUnits; cells <= maxUnits; cells += 1) {
+      const gradeFactors = capacitorGradeFactors(topology, capacitorCount(topology, cells));
       for (const grading of topology === 'bridge-doubler' ? (['equal'] as const) : gradings) {
         for (const c of capacitorValues) {
-          const capacitorsF = gradedValues(topology, cells, c, grading, snapValues);
+          const capacitorsF = gradedValues(topology, cells, c, grading, gradeFactors, snapValues);
           const input: LadderInput = {
             topology,
             capacitorsF,
@@ -312,7 +319,7 @@ export function sizeLadder(request: SizerRequest): SizerResult {
               partCount: capacitorsF.length + analysis.diodes.length,
               worstMarginPct: worst,
               cost,
-              analysis,
+              analysis: { ladderTopMeanV: analysis.ladderTopMeanV },
             });
           }
         }

@@ -108,39 +108,42 @@ export function analyzeTransformer(
   const coreLossW =
     igseLossDensity(fluxT, { k: core.steinmetzK, alpha: core.steinmetzAlpha, beta: core.steinmetzBeta }) *
     core.volumeM3;
-  const temperatureC = point.ambientTemperatureC;
-  const windings: WindingResult[] = layout.windings.map((w) => {
-    const role = w.winding.role;
-    const dc = figures.dcResistanceOf(w, temperatureC);
-    const copper = windingCopperLoss({
-      currentA: point.windingCurrentsA[role],
-      frequencyHz: point.frequencyHz,
-      dcResistanceOhm: dc,
-      copperDiameterM: w.winding.wire.copperDiameterM,
-      pitchM: w.winding.wire.overallDiameterM,
-      layers: w.layers,
-      temperatureC,
-    });
-    const voltages = layerVoltages(point.windingPeakVoltagesV[role], w.winding.turns, w.turnsPerLayer, w.layers);
-    return {
-      role,
-      name: w.winding.name ?? role,
-      turns: w.winding.turns,
-      inductanceH: figures.inductanceOf(w),
-      turnsPerLayer: w.turnsPerLayer,
-      layers: w.layers,
-      buildM: w.buildM,
-      meanTurnLengthM: w.meanTurnLengthM,
-      dcResistanceOhm: figures.dcResistanceOf(w),
-      acResistanceFactor: copper.acResistanceFactor,
-      rmsCurrentA: copper.rmsCurrentA,
-      copperLossW: copper.lossW,
-      ...voltages,
-      layerInsulationV: layerInsulationV(w.winding.wire, section.layerTape, w.winding.layerTapeWraps ?? 0),
-    };
-  });
-  const copperLossW = windings.reduce((sum, w) => sum + w.copperLossW, 0);
   const surfaceM2 = core.surfaceAreaM2 ?? woundSurfaceAreaM2(core.windowAreaM2, core.effectiveAreaM2);
+  // Copper loss at the winding temperature: first at ambient, then once more at ambient + the rise it gives.
+  const windingsAt = (temperatureC: number): WindingResult[] =>
+    layout.windings.map((w) => {
+      const role = w.winding.role;
+      const copper = windingCopperLoss({
+        currentA: point.windingCurrentsA[role],
+        frequencyHz: point.frequencyHz,
+        dcResistanceOhm: figures.dcResistanceOf(w, temperatureC),
+        copperDiameterM: w.winding.wire.copperDiameterM,
+        pitchM: w.winding.wire.overallDiameterM,
+        layers: w.layers,
+        temperatureC,
+      });
+      const voltages = layerVoltages(point.windingPeakVoltagesV[role], w.winding.turns, w.turnsPerLayer, w.layers);
+      return {
+        role,
+        name: w.winding.name ?? role,
+        turns: w.winding.turns,
+        inductanceH: figures.inductanceOf(w),
+        turnsPerLayer: w.turnsPerLayer,
+        layers: w.layers,
+        buildM: w.buildM,
+        meanTurnLengthM: w.meanTurnLengthM,
+        dcResistanceOhm: figures.dcResistanceOf(w),
+        acResistanceFactor: copper.acResistanceFactor,
+        rmsCurrentA: copper.rmsCurrentA,
+        copperLossW: copper.lossW,
+        ...voltages,
+        layerInsulationV: layerInsulationV(w.winding.wire, section.layerTape, w.winding.layerTapeWraps ?? 0),
+      };
+    });
+  const totalCopperW = (list: readonly WindingResult[]) => list.reduce((sum, w) => sum + w.copperLossW, 0);
+  const firstRise = temperatureRiseC(coreLossW + totalCopperW(windingsAt(point.ambientTemperatureC)), surfaceM2);
+  const windings = windingsAt(point.ambientTemperatureC + firstRise);
+  const copperLossW = totalCopperW(windings);
   const rise = temperatureRiseC(coreLossW + copperLossW, surfaceM2);
   const hipotV = hipotTestVoltageV(point.secondaryWorkingVoltageV);
   const windingInsulationV = tapeBreakdownV(section.windingTape, section.windingTapeWraps);
@@ -158,6 +161,17 @@ export function analyzeTransformer(
       windingInsulationV,
       secondaryWorkingVoltageV: point.secondaryWorkingVoltageV,
       flangeCreepageM,
+      ...(section.gap.kind === 'gap'
+        ? {}
+        : {
+            inductanceTarget: {
+              targetH:
+                section.gap.kind === 'al'
+                  ? section.gap.alHPerTurn2 * primaryTurns ** 2
+                  : section.gap.primaryInductanceH,
+              reachedH: primaryInductanceH,
+            },
+          }),
     },
     spacing,
   );

@@ -9,7 +9,7 @@ export const COPPER_LOSS_METHOD: MethodInfo = {
   assumptions: [
     'each winding a layered winding of m layers in a one-dimensional field (Dowell)',
     'wire pitch p = diameter over enamel',
-    'copper resistivity 1.7241e-8 Ω·m at 20 °C, temperature coefficient 0.00393 /K (IEC 60028)',
+    'copper resistivity 1.7241e-8 Ω·m at 20 °C, temperature coefficient 0.00393 /K (IEC 60028), at ambient plus the estimated rise',
     'harmonics of the current up to the 40th; the rest of the rms current at the 40th harmonic’s factor',
   ],
   source:
@@ -72,12 +72,19 @@ export function harmonics(waveform: readonly WaveformPoint[], count: number): { 
   mean /= samples;
   const amplitudes: number[] = [];
   for (let h = 1; h <= count; h++) {
+    // The phasor e^(j·2π·h·i/N) advanced by one rotation per sample instead of a cos and sin each.
+    const stepCos = Math.cos((2 * Math.PI * h) / samples);
+    const stepSin = Math.sin((2 * Math.PI * h) / samples);
+    let c = 1;
+    let s = 0;
     let re = 0;
     let im = 0;
     for (let i = 0; i < samples; i++) {
-      const angle = (2 * Math.PI * h * i) / samples;
-      re += values[i]! * Math.cos(angle);
-      im += values[i]! * Math.sin(angle);
+      re += values[i]! * c;
+      im += values[i]! * s;
+      const next = c * stepCos - s * stepSin;
+      s = s * stepCos + c * stepSin;
+      c = next;
     }
     amplitudes.push((2 / samples) * Math.hypot(re, im));
   }

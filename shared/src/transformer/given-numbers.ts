@@ -1,3 +1,4 @@
+import type { Design } from '../designs/design.types';
 import type { DriverStage, DriverTransformer } from '../designs/driver-stage.types';
 import { transformerCircuitFigures, windingOf } from './analyze-transformer';
 import type { DerivedTransformerNumbers, TransformerSection } from './transformer.types';
@@ -49,6 +50,17 @@ export function effectiveDriverStage(driver: DriverStage): DriverStage {
     secondaryResistanceOhm: derived.secondaryResistanceOhm,
     saturationCurrentA: derived.saturationCurrentA,
     saturatedInductanceH: derived.saturatedInductanceH,
+    secondaryCapacitanceF: derived.secondaryCapacitanceF,
   };
   return { ...driver, transformer };
+}
+
+/**
+ * The design as the engine reads it: with a designed transformer, the driver stage's transformer numbers
+ * derived from its section (`effectiveDriverStage`); otherwise the design itself. Every engine entry that
+ * reads a driver design (analysis, circuits, runs) reads it through this.
+ */
+export function withEffectiveTransformer(design: Design): Design {
+  if (design.drive.kind !== 'driver' || design.drive.driver.transformerChoice !== 'designed') return design;
+  return { ...design, drive: { ...design.drive, driver: effectiveDriverStage(design.drive.driver) } };
 }

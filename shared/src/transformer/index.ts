@@ -50,6 +50,6 @@ export { transformerChecks, CORE_TEMPERATURE_LIMIT_C } from './transformer-check
 export { pulseOperatingPoint } from './operating-point';
 export type { PulseStageFigures } from './operating-point';
 export { analyzeTransformer, transformerCircuitFigures } from './analyze-transformer';
-export { derivedTransformerNumbers, effectiveDriverStage } from './given-numbers';
+export { derivedTransformerNumbers, effectiveDriverStage, withEffectiveTransformer } from './given-numbers';
 export { demoCoreKinds, demoWireKinds, demoTapeKinds, demoTransformerSection } from './demo-kinds';
 export { sizeTransformer } from './size-transformer';

@@ -26,7 +26,13 @@ export function leakageInductanceH(input: {
   return (MU0 * turns ** 2 * meanTurnLengthM * (separationM + (innerBuildM + outerBuildM) / 3)) / breadthM;
 }
 
+/**
+ * Least coupling reported: the formula's leakage reaches the self-inductance only for windings far too thick
+ * for their bobbin (the bobbin-build Check fails them), and the driver needs a coupling above zero.
+ */
+export const MIN_COUPLING = 0.05;
+
 /** Coupling coefficient from the short-circuit leakage referred to a winding of self-inductance `selfH`. */
 export function couplingFromLeakage(leakageH: number, selfH: number): number {
-  return Math.sqrt(Math.max(0, 1 - leakageH / selfH));
+  return Math.max(MIN_COUPLING, Math.sqrt(Math.max(0, 1 - leakageH / selfH)));
 }

@@ -18,13 +18,20 @@ export interface PulseStageFigures {
   feedbackTurns: number;
   secondaryTurns: number;
   ambientTemperatureC: number;
+  /**
+   * Power the load takes from the forward pulse (W), carried by the secondary during the on-time and
+   * reflected into the primary; 0 if absent.
+   */
+  forwardLoadPowerW?: number;
 }
 
 /**
  * The transformer's operating point in a flyback-fed blocking oscillator: the magnetizing current ramps
  * from zero to the peak over the on-time (carried by the primary) and back to zero over the flyback
  * (carried by the secondary, Np/Ns of it), then rests at zero until the next on-time; the feedback winding
- * carries the base current during the on-time. Winding voltages: forward and flyback pulses in the turns ratio.
+ * carries the base current during the on-time. With a load on the forward pulse, the secondary also carries
+ * its mean current P/(f·V·t_on) during the on-time, and the primary that current in the turns ratio on top of
+ * the magnetizing ramp. Winding voltages: forward and flyback pulses in the turns ratio.
  */
 export function pulseOperatingPoint(figures: PulseStageFigures): TransformerOperatingPoint {
   const { frequencyHz, onTimeS, primaryPeakCurrentA: ipk } = figures;
@@ -47,6 +54,11 @@ export function pulseOperatingPoint(figures: PulseStageFigures): TransformerOper
     return points;
   };
   const ratio = figures.primaryTurns / figures.secondaryTurns;
+  const forwardA =
+    figures.forwardSecondaryPeakV > 0
+      ? (figures.forwardLoadPowerW ?? 0) / (frequencyHz * figures.forwardSecondaryPeakV * tOn)
+      : 0;
+  const reflectedA = forwardA / ratio;
   const secondaryPeakV = Math.max(figures.forwardSecondaryPeakV, figures.flybackSecondaryPeakV);
   const toPrimary = figures.primaryTurns / figures.secondaryTurns;
   return {
@@ -58,9 +70,9 @@ export function pulseOperatingPoint(figures: PulseStageFigures): TransformerOper
       ...(tEnd < periodS ? [{ timeS: periodS, value: 0 }] : []),
     ],
     windingCurrentsA: {
-      primary: pulse([0, ipk], [0, 0]),
+      primary: pulse([reflectedA, ipk + reflectedA], [0, 0]),
       feedback: pulse([figures.baseCurrentA, figures.baseCurrentA], [0, 0]),
-      secondary: pulse([0, 0], [ipk * ratio, 0]),
+      secondary: pulse([forwardA, forwardA], [ipk * ratio, 0]),
     },
     windingPeakVoltagesV: {
       primary: Math.max(figures.primaryOnVoltageV, figures.flybackSecondaryPeakV * toPrimary),

@@ -28,6 +28,8 @@ export interface TransformerCheckFigures {
   windingInsulationV: number;
   secondaryWorkingVoltageV: number;
   flangeCreepageM: number;
+  /** A target primary inductance the gap was to reach (from a target AL or inductance), and what it reaches. */
+  inductanceTarget?: { targetH: number; reachedH: number };
 }
 
 /** Core temperature the saturation figure is judged at and the rise is held below (°C). */
@@ -85,6 +87,21 @@ export function transformerChecks(figures: TransformerCheckFigures, spacing: Spa
       0.9,
     ),
   ];
+  if (figures.inductanceTarget) {
+    const { targetH, reachedH } = figures.inductanceTarget;
+    // Within 1 % of the target (the gap is found by bisection; an ungapped core holds no more than its own AL).
+    const limitH = 0.99 * targetH;
+    checks.push({
+      id: 'transformer.inductance-target',
+      subject: 'core',
+      rule: 'primary inductance within 1 % of the target the gap is set for; an ungapped core gives no more than AL·N² (more turns or a core of higher AL)',
+      verdict: reachedH >= limitH ? 'pass' : 'fail',
+      marginPct: ((reachedH - limitH) / limitH) * 100,
+      value: reachedH,
+      limit: limitH,
+      unit: 'H',
+    });
+  }
   for (const winding of figures.windings) {
     if (winding.layers < 2) continue;
     checks.push(

@@ -1,7 +1,8 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { DRIVER_NODES, DRIVER_SUPPLY_SOURCE, buildDriverCircuit } from '../../src/circuits/build-driver-circuit';
 import { driverExamples } from '../../src/designs/driver-examples';
-import { halfWaveCascadeLoadLine, solveLoadPoint } from '../../src/driver/operating-point';
+import { solveLoadPoint } from '../../src/driver/operating-point';
+import { halfWaveCascadeLoadLine } from '../../src/driver/ladder-load-line';
 import { EnergyMeter, type EnergyAccount } from '../../src/sim/energy-meter';
 import { MnaSystem } from '../../src/sim/mna-system';
 import { toSpiceNetlist } from '../../src/sim/to-spice-netlist';

@@ -1,7 +1,9 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { designExamples } from '../../src/designs/design-examples';
 import type { Design } from '../../src/designs/design.types';
-import { driverDesignCircuit, runDriverDesign, type DriverRunResult } from '../../src/runs/driver-runs';
+import { driverDesignCircuit } from '../../src/runs/driver-design-circuit';
+import type { DriverRunResult } from '../../src/runs/driver-run.types';
+import { runDriverDesign } from '../../src/runs/driver-runs';
 import { toSpiceNetlist } from '../../src/sim/to-spice-netlist';
 import { windowMean } from '../../src/sim/waveform-measures';
 import { hasNgspice, runNgspice } from '../ngspice/run-ngspice';

@@ -3,7 +3,8 @@ import { analyzeDesign } from '../../src/analysis/analyze-design';
 import { designExamples } from '../../src/designs/design-examples';
 import type { Design } from '../../src/designs/design.types';
 import { compareWithSimulation, ESTIMATE_VALIDITY_BOUNDS } from '../../src/driver/estimate-validity';
-import { runDriverDesign, type DriverRunResult } from '../../src/runs/driver-runs';
+import { runDriverDesign } from '../../src/runs/driver-runs';
+import type { DriverRunResult } from '../../src/runs/driver-run.types';
 
 // The validity contract of the instant estimate against our simulator (a warm-started run to its settling
 // criterion): on each design the estimate either lands within ESTIMATE_VALIDITY_BOUNDS of the simulation

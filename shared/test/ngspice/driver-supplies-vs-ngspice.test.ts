@@ -2,7 +2,11 @@ import { describe, expect, it } from 'vitest';
 import { designExamples } from '../../src/designs/design-examples';
 import type { Design } from '../../src/designs/design.types';
 import type { DriverStage } from '../../src/designs/driver-stage.types';
-import { driverDesignCircuit, driverPeriodGuessS, engineCapacitorVoltagesV } from '../../src/runs/driver-runs';
+import {
+  driverDesignCircuit,
+  driverPeriodGuessS,
+  engineCapacitorVoltagesV,
+} from '../../src/runs/driver-design-circuit';
 import { oscillationFigures } from '../../src/sim/oscillation-measures';
 import { toSpiceNetlist } from '../../src/sim/to-spice-netlist';
 import { simulateTransient } from '../../src/sim/transient-analysis';

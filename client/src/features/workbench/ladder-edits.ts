@@ -1,4 +1,9 @@
-import { capacitorPlaces, capacitorRoleChanges, type CapacitorPlace } from '@ladderwright/shared/multiplier';
+import {
+  capacitorGradeFactors,
+  capacitorPlaces,
+  capacitorRoleChanges,
+  type CapacitorPlace,
+} from '@ladderwright/shared/multiplier';
 import type { CapacitorPart, Topology } from '@ladderwright/shared/designs';
 
 /** Where each capacitor sits in the ladder, or null when the list does not form a ladder of the topology. */
@@ -13,22 +18,15 @@ export function fillDown(capacitors: readonly CapacitorPart[], fromIndex: number
   return capacitors.map((capacitor, i) => (i > fromIndex ? { ...source } : capacitor));
 }
 
-/**
- * Grading: larger capacitors at the bottom of the ladder. With n stages, a capacitor of stage k gets
- * (n − k + 1) · `topStageF`, so the top stage keeps `topStageF` and stage 1 gets n times it.
- */
+/** The capacitors graded from `topStageF` at the top (`capacitorGradeFactors`); unchanged when they form no ladder. */
 export function gradeCapacitors(
   topology: Topology,
   capacitors: readonly CapacitorPart[],
   topStageF: number,
 ): CapacitorPart[] {
-  const places = capacitorPlacesOf(topology, capacitors);
-  if (!places) return [...capacitors];
-  const stageCount = Math.max(...places.map((p) => p.stage));
-  return capacitors.map((capacitor, i) => ({
-    ...capacitor,
-    valueF: (stageCount - (places[i]?.stage ?? 1) + 1) * topStageF,
-  }));
+  const factors = capacitorGradeFactors(topology, capacitors.length);
+  if (!factors) return [...capacitors];
+  return capacitors.map((capacitor, i) => ({ ...capacitor, valueF: (factors[i] ?? 1) * topStageF }));
 }
 
 /** The capacitor list resized to `count`, repeating the top capacitor when it grows. */

@@ -1,6 +1,7 @@
 import type { CapacitorPart } from '@ladderwright/shared/designs';
 import { isDomainError } from '@ladderwright/shared/errors';
 import { parseQuantity, type QuantityUnit } from '@ladderwright/shared/units';
+import { splitPastedCells } from '../../lib/spreadsheet-cells';
 
 /** The editable columns of the capacitor table, left to right, as a pasted block fills them. */
 export const CAPACITOR_COLUMNS = [
@@ -15,20 +16,7 @@ export type CapacitorColumnKey = (typeof CAPACITOR_COLUMNS)[number]['key'];
 /** Cells a pasted block holds; more is refused, not truncated (a ladder has at most 180 capacitors). */
 export const MAX_PASTED_CELLS = 4 * 200;
 
-/**
- * Text copied from a spreadsheet as rows of cells: rows split on line breaks (CR LF, LF or CR), cells on tabs;
- * the line break a spreadsheet adds after the last row is dropped.
- */
-export function splitPastedCells(text: string): string[][] {
-  const rows = text.replace(/\r\n?/g, '\n').replace(/\n$/, '').split('\n');
-  return rows.map((row) => row.split('\t'));
-}
-
-/** True when the text is more than one cell (a column, a row or a block), so it should fill cells, not one field. */
-export function isCellBlock(text: string): boolean {
-  const rows = splitPastedCells(text);
-  return rows.length > 1 || (rows[0]?.length ?? 0) > 1;
-}
+export { isCellBlock, splitPastedCells } from '../../lib/spreadsheet-cells';
 
 /** A tolerance cell in per cent ("10", "10 %", "±5%") as a fraction; null when it is not a percentage. */
 function parsePercent(cell: string): number | null {

@@ -10,7 +10,8 @@ import { sessionsAndSignInLimits } from './0008-sessions-and-sign-in-limits';
 import { simulationJobHeartbeat } from './0009-simulation-job-heartbeat';
 import { driverSecondaryPhasing } from './0010-driver-secondary-phasing';
 import { magneticsParts } from './0011-magnetics-parts';
-import { memberRequests } from './0012-member-requests';
+import { calibrations } from './0012-calibrations';
+import { memberRequests } from './0013-member-requests';
 
 /** Every schema step in order. Add new steps at the end. */
 export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
@@ -25,5 +26,6 @@ export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
   simulationJobHeartbeat,
   driverSecondaryPhasing,
   magneticsParts,
+  calibrations,
   memberRequests,
 ];

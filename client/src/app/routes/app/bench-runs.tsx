@@ -3,9 +3,11 @@ import { Anchor, Breadcrumbs, Paper, Stack, Text, Title } from '@mantine/core';
 import { useDocumentTitle } from '@mantine/hooks';
 import { useSuspenseQuery } from '@tanstack/react-query';
 import { useState } from 'react';
-import { Link, useParams } from 'react-router-dom';
+import { Link, useNavigate, useParams } from 'react-router-dom';
 import { paths } from '../../../config/paths';
 import { useBenchRun } from '../../../features/bench-runs/api/get-bench-run';
+import { useBenchRuns } from '../../../features/bench-runs/api/get-bench-runs';
+import { CalibrationPanel } from '../../../features/calibrations/components/calibration-panel';
 import { BenchOverlay } from '../../../features/bench-runs/components/bench-overlay';
 import { BenchRunList } from '../../../features/bench-runs/components/bench-run-list';
 import { BenchRunUpload } from '../../../features/bench-runs/components/bench-run-upload';
@@ -23,6 +25,8 @@ export function BenchRunsRoute() {
   const [selectedId, setSelectedId] = useState<string | null>(null);
   const selected = useBenchRun(projectId, designId, revisionNumber, selectedId);
   const canUpload = canActInProject(project, 'bench.upload');
+  const benchRuns = useBenchRuns(projectId, designId, revisionNumber);
+  const navigate = useNavigate();
   return (
     <Stack gap="lg">
       <Breadcrumbs>
@@ -64,6 +68,21 @@ export function BenchRunsRoute() {
         </Paper>
       )}
       {selected.error && <Text c="red">{selected.error.message}</Text>}
+      <Paper withBorder p="md">
+        <CalibrationPanel
+          projectId={projectId}
+          designId={designId}
+          revisionNumber={revisionNumber}
+          runs={(benchRuns.data ?? []).map((run) => ({
+            id: run.id,
+            title: run.title,
+            kind: run.kind,
+            pointCount: run.pointCount,
+          }))}
+          canRun={canUpload}
+          onRevisionStarted={(number) => void navigate(paths.design.getHref(projectId, designId, number))}
+        />
+      </Paper>
     </Stack>
   );
 }

@@ -2,6 +2,7 @@ import { canActInProject } from '@ladderwright/shared/auth';
 import { Anchor, Breadcrumbs, Button, Group, Paper, Stack, Text, Title } from '@mantine/core';
 import { useDocumentTitle } from '@mantine/hooks';
 import { useSuspenseQuery } from '@tanstack/react-query';
+import { useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { apiPaths, paths } from '../../../config/paths';
 import { AddPartForm } from '../../../features/parts/components/add-part-form';
@@ -18,6 +19,8 @@ export function PartsShelfRoute() {
   const { data: project } = useSuspenseQuery(getProjectQueryOptions(projectId));
   useDocumentTitle(`${project.name} · Parts shelf · Ladderwright`);
   const canManage = canActInProject(project, 'parts.manage');
+  // Rows pasted into the Add-a-part form go to the import's preview.
+  const [pasted, setPasted] = useState<{ file: File; serial: number } | null>(null);
   return (
     <Stack gap="lg">
       <Breadcrumbs>
@@ -44,13 +47,16 @@ export function PartsShelfRoute() {
             <Title order={2} size="h4" mb="sm">
               Add a part
             </Title>
-            <AddPartForm projectId={projectId} />
+            <AddPartForm
+              projectId={projectId}
+              onPasteRows={(file) => setPasted((last) => ({ file, serial: (last?.serial ?? 0) + 1 }))}
+            />
           </Paper>
           <Paper withBorder p="md">
             <Title order={2} size="h4" mb="sm">
               Import from CSV
             </Title>
-            <PartsImport projectId={projectId} />
+            <PartsImport key={pasted?.serial ?? 0} projectId={projectId} pasted={pasted?.file ?? null} />
           </Paper>
         </>
       ) : (

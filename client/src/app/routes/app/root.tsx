@@ -9,7 +9,6 @@ import {
 } from 'react-router-dom';
 import type { QueryClient } from '@tanstack/react-query';
 import type { CurrentUser } from '@ladderwright/shared/api';
-import { notifications } from '@mantine/notifications';
 import { AppShell } from '../../../components/app-shell';
 import { paths } from '../../../config/paths';
 import { getMeQueryOptions, useMe } from '../../../features/auth/api/get-me';
@@ -19,6 +18,7 @@ import { getProjectQueryOptions } from '../../../features/projects/api/get-proje
 import { useProjects } from '../../../features/projects/api/get-projects';
 import { ArchivedProjectNotice } from '../../../features/projects/components/archived-project-notice';
 import { ProjectNav } from '../../../features/projects/components/project-nav';
+import { showNotification } from '../../../lib/show-notification';
 
 /**
  * The signed-in user, or a redirect to sign-in that remembers the page asked for. Every loader below the shell
@@ -64,7 +64,7 @@ export function AppRoot() {
 
   const handleSignOut = () =>
     signOut.mutate(undefined, {
-      onError: () => notifications.show({ color: 'red', title: 'Sign-out failed', message: 'Try again in a moment.' }),
+      onError: () => showNotification({ color: 'red', title: 'Sign-out failed', message: 'Try again in a moment.' }),
     });
 
   return (

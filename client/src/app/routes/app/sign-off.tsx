@@ -6,6 +6,7 @@ import { useQuery, useSuspenseQuery, type QueryClient } from '@tanstack/react-qu
 import { Link, useNavigate, useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { paths } from '../../../config/paths';
 import { BenchRunList } from '../../../features/bench-runs/components/bench-run-list';
+import { CalibrationList } from '../../../features/calibrations/components/calibration-list';
 import { getDesignQueryOptions } from '../../../features/designs/api/get-design';
 import { getRevisionQueryOptions } from '../../../features/designs/api/get-revision';
 import { RevisionStateBadge } from '../../../features/designs/components/revision-state-badge';
@@ -152,6 +153,12 @@ export function SignOffRoute() {
             </Paper>
             <Paper withBorder p="md">
               <Title order={2} size="h4" mb="xs">
+                Calibrations
+              </Title>
+              <CalibrationList projectId={projectId} designId={designId} revisionNumber={revisionNumber} />
+            </Paper>
+            <Paper withBorder p="md">
+              <Title order={2} size="h4" mb="xs">
                 Spec sheet (PDF)
               </Title>
               <SpecSheetDownload
@@ -163,6 +170,23 @@ export function SignOffRoute() {
                 projectRole={project.myRole}
               />
             </Paper>
+            {revision.document.drive.kind === 'driver' &&
+              revision.document.drive.driver.transformerChoice === 'designed' && (
+                <Paper withBorder p="md">
+                  <Title order={2} size="h4" mb="xs">
+                    Transformer sheet (PDF)
+                  </Title>
+                  <SpecSheetDownload
+                    projectId={projectId}
+                    designId={designId}
+                    designName={design.name}
+                    revisionNumber={revisionNumber}
+                    state={state}
+                    projectRole={project.myRole}
+                    sheet="transformer"
+                  />
+                </Paper>
+              )}
           </Stack>
         </Grid.Col>
       </Grid>

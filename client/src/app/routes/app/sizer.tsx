@@ -9,6 +9,7 @@ import { useParts } from '../../../features/parts/api/get-parts';
 import { getProjectQueryOptions } from '../../../features/projects/api/get-project';
 import { DriverSizerPanel } from '../../../features/sizer/components/driver-sizer-panel';
 import { SizerPanel } from '../../../features/sizer/components/sizer-panel';
+import { TransformerSizerPanel } from '../../../features/sizer/components/transformer-sizer-panel';
 import { requireProjectLoader } from './root';
 
 export const sizerLoader = requireProjectLoader;
@@ -50,6 +51,10 @@ export function SizerRoute() {
         Driver-fed supply
       </Title>
       <DriverSizerPanel isStarting={createDesign.isPending} onStartDesign={startDesign} />
+      <Title order={2} size="h3">
+        Transformer cores
+      </Title>
+      <TransformerSizerPanel shelf={shelf ?? []} />
     </Stack>
   );
 }

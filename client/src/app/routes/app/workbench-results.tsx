@@ -1,9 +1,8 @@
-import { lazy, memo, Suspense } from 'react';
+import { lazy, memo, Suspense, useDeferredValue } from 'react';
 import { Loader, Tabs, Text } from '@mantine/core';
 import type { RevisionDetail, RevisionSummary } from '@ladderwright/shared/api';
 import type { Design } from '@ladderwright/shared/designs';
 import type { DesignReport, HeadlineSource } from '@ladderwright/shared/analysis';
-import { LadderCharts } from '../../../features/workbench/components/ladder-charts';
 import { OtherFigures } from '../../../features/workbench/components/other-figures';
 
 export interface WorkbenchResultsProps {
@@ -39,6 +38,15 @@ const ChecksTable = lazy(() =>
 const DriverPanel = lazy(() =>
   import('../../../features/workbench/components/driver-panel').then((module) => ({ default: module.DriverPanel })),
 );
+const TransformerPanel = lazy(() =>
+  import('../../../features/workbench/components/transformer-panel').then((module) => ({
+    default: module.TransformerPanel,
+  })),
+);
+// The first tab's charts too: the figures beside them show while the chart code arrives.
+const LadderCharts = lazy(() =>
+  import('../../../features/workbench/components/ladder-charts').then((module) => ({ default: module.LadderCharts })),
+);
 const LadderDiagram = lazy(() =>
   import('../../../features/workbench/components/ladder-diagram').then((module) => ({ default: module.LadderDiagram })),
 );
@@ -48,28 +56,34 @@ const PlotsPanel = memo(function PlotsPanel({ report }: { report: DesignReport }
   return (
     <>
       <OtherFigures report={report} />
-      <LadderCharts report={report} />
+      <Suspense fallback={<Loader size="sm" aria-label="Loading the charts" />}>
+        <LadderCharts report={report} />
+      </Suspense>
     </>
   );
 });
 
-/** The Workbench result tabs: Plots, Driver, Ladder, Checks, BOM cost, Waveforms, History. */
+/** The Workbench result tabs: Plots, Driver, Transformer (when designed), Ladder, Checks, BOM cost, Waveforms, History. */
 export function WorkbenchResults({
   projectId,
   revision,
   revisions,
   draft,
   isDirty,
-  report,
+  report: latestReport,
   canSimulate,
   headline = null,
 }: WorkbenchResultsProps) {
+  // The tabs draw charts and the schematic: they follow the report at low priority, after the Verdict strip has
+  // shown the new figures, and a newer keystroke interrupts their render instead of waiting for it.
+  const report = useDeferredValue(latestReport);
   return (
     <Suspense fallback={<Loader size="sm" aria-label="Loading the tab" />}>
       <Tabs defaultValue="plots" keepMounted={false}>
         <Tabs.List>
           <Tabs.Tab value="plots">Plots</Tabs.Tab>
           {report.driver && <Tabs.Tab value="driver">Driver</Tabs.Tab>}
+          {report.transformer && <Tabs.Tab value="transformer">Transformer</Tabs.Tab>}
           <Tabs.Tab value="ladder">Ladder</Tabs.Tab>
           <Tabs.Tab value="checks">Checks</Tabs.Tab>
           <Tabs.Tab value="bom">BOM cost</Tabs.Tab>
@@ -82,6 +96,11 @@ export function WorkbenchResults({
         {report.driver && (
           <Tabs.Panel value="driver" pt="sm">
             <DriverPanel driver={report.driver} />
+          </Tabs.Panel>
+        )}
+        {report.transformer && (
+          <Tabs.Panel value="transformer" pt="sm">
+            <TransformerPanel transformer={report.transformer} />
           </Tabs.Panel>
         )}
         <Tabs.Panel value="ladder" pt="sm">

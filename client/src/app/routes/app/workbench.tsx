@@ -1,7 +1,6 @@
 import { useMemo, useState } from 'react';
 import { Alert, Anchor, Badge, Breadcrumbs, Group, List, Stack, Text } from '@mantine/core';
 import { useDocumentTitle } from '@mantine/hooks';
-import { notifications } from '@mantine/notifications';
 import { useQueryClient, useSuspenseQuery, type QueryClient } from '@tanstack/react-query';
 import { Link, redirect, useNavigate, useParams, useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
 import type { Part, RevisionDetail, RevisionSummary, StaleBaseError } from '@ladderwright/shared/api';
@@ -25,6 +24,7 @@ import classes from './workbench.module.css';
 import { WorkbenchHeader } from './workbench-header';
 import { WorkbenchResults } from './workbench-results';
 import { WorkbenchStaleAlert } from './workbench-stale-alert';
+import { showNotification } from '../../../lib/show-notification';
 
 const noParts: readonly Part[] = [];
 
@@ -136,7 +136,7 @@ function EditableRevision({
       {
         onSuccess: (saved) => {
           setStale(null);
-          notifications.show({
+          showNotification({
             title: `Saved as r${saved.number}`,
             message: 'The results shown are the server’s for this revision.',
           });

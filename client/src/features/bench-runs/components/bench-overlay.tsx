@@ -66,7 +66,7 @@ export function BenchOverlay({ run }: { run: BenchRunDetail }) {
         {heading}
         <QuantityChart
           label="Capture against prediction, plot"
-          title={`${run.title}: capture against prediction`}
+          title={run.title ? `${run.title}: capture against prediction` : 'Capture against prediction'}
           heightPx={260}
           data={captureRows(run.points, predictedMeanV ?? NaN, predictedRippleV)}
           x={{ key: 'timeS', title: 'Time', unit: 's' }}
@@ -120,7 +120,7 @@ export function BenchOverlay({ run }: { run: BenchRunDetail }) {
       {heading}
       <QuantityChart
         label="Load sweep against prediction, plot"
-        title={`${run.title}: load sweep against prediction`}
+        title={run.title ? `${run.title}: load sweep against prediction` : 'Load sweep against prediction'}
         heightPx={280}
         data={loadSweepRows(comparison)}
         x={{ key: 'currentA', title: 'Load current', unit: 'A', includesZero: true }}

@@ -1,9 +1,11 @@
-import { Alert, Button, Group, Select, SimpleGrid, TextInput } from '@mantine/core';
+import { Alert, Button, Group, Select, SimpleGrid, Text, TextInput } from '@mantine/core';
 import { useState } from 'react';
 import type { PartKind } from '@ladderwright/shared/api';
 import { MAGNETICS_FIELD_SPECS, partFieldsFor, type MagneticsField } from '@ladderwright/shared/parts';
 import { isApiError } from '../../../lib/api-client';
+import { isCellBlock } from '../../../lib/spreadsheet-cells';
 import { type PartDraft, useCreatePart } from '../api/create-part';
+import { pasteIntoPartForm } from '../paste-part-cells';
 import { PART_KIND_OPTIONS } from './part-kinds';
 
 const BASE_FIELDS: { name: string; label: string; placeholder: string }[] = [
@@ -47,13 +49,41 @@ function fieldsFor(kind: PartKind): { name: string; label: string; placeholder: 
   return [...base, ...magnetics];
 }
 
-/** A lead adds one part; the server checks the ratings the kind needs and names each bad field. */
-export function AddPartForm({ projectId }: { projectId: string }) {
+export interface AddPartFormProps {
+  projectId: string;
+  /** Several rows pasted from a spreadsheet, as a shelf CSV for the import preview. */
+  onPasteRows?: (file: File, rowCount: number) => void;
+}
+
+/**
+ * A lead adds one part; the server checks the ratings the kind needs and names each bad field. Cells pasted from a
+ * spreadsheet fill the fields from the one pasted into, left to right; several rows go to the import preview.
+ */
+export function AddPartForm({ projectId, onPasteRows }: AddPartFormProps) {
   const [draft, setDraft] = useState<PartDraft>({ kind: 'capacitor' });
+  const [pasteNote, setPasteNote] = useState<{ isError: boolean; text: string } | null>(null);
   const kind = (draft.kind ?? 'capacitor') as PartKind;
   const create = useCreatePart(projectId);
   const issues = isApiError(create.error) ? (create.error.body.issues ?? []) : [];
   const errorOf = (name: string) => issues.find((issue) => issue.path === name)?.message;
+  const fields = fieldsFor(kind);
+  const onPaste = (name: string, event: React.ClipboardEvent<HTMLInputElement>) => {
+    const text = event.clipboardData.getData('text/plain');
+    if (!isCellBlock(text)) return;
+    event.preventDefault();
+    const pasted = pasteIntoPartForm(draft, fields, name, text);
+    if (pasted.kind === 'refused') setPasteNote({ isError: true, text: `Nothing pasted: ${pasted.message}` });
+    else if (pasted.kind === 'fill') {
+      setDraft(pasted.draft);
+      setPasteNote(null);
+    } else if (onPasteRows) {
+      onPasteRows(new File([pasted.csv], 'pasted-parts.csv', { type: 'text/csv' }), pasted.rowCount);
+      setPasteNote({
+        isError: false,
+        text: `${pasted.rowCount} rows pasted as ${pasted.rowCount} parts: check them in the import preview below, then import.`,
+      });
+    }
+  };
   return (
     <form
       aria-label="Add a part"
@@ -69,7 +99,7 @@ export function AddPartForm({ projectId }: { projectId: string }) {
           value={kind}
           onChange={(value) => {
             // Keep only what the new kind carries, so a hidden field is never sent.
-            const next = (value ?? 'capacitor');
+            const next = value ?? 'capacitor';
             const names: readonly string[] = partFieldsFor(next);
             setDraft({
               ...Object.fromEntries(Object.entries(draft).filter(([name]) => names.includes(name))),
@@ -78,7 +108,7 @@ export function AddPartForm({ projectId }: { projectId: string }) {
           }}
           allowDeselect={false}
         />
-        {fieldsFor(kind).map((field) => (
+        {fields.map((field) => (
           <TextInput
             key={`${kind}-${field.name}`}
             label={field.label}
@@ -86,9 +116,15 @@ export function AddPartForm({ projectId }: { projectId: string }) {
             value={draft[field.name] ?? ''}
             error={errorOf(field.name)}
             onChange={(event) => setDraft({ ...draft, [field.name]: event.currentTarget.value })}
+            onPaste={(event) => onPaste(field.name, event)}
           />
         ))}
       </SimpleGrid>
+      {pasteNote && (
+        <Text size="sm" mt="sm" c={pasteNote.isError ? 'red' : undefined} role="status">
+          {pasteNote.text}
+        </Text>
+      )}
       {create.error && issues.length === 0 && (
         <Alert color="red" mt="sm">
           {create.error.message}

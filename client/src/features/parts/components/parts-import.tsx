@@ -1,14 +1,24 @@
 import { Alert, Button, FileInput, Group, List, Stack, Table, Text } from '@mantine/core';
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
 import type { PartImportResult } from '@ladderwright/shared/api';
 import { isApiError } from '../../../lib/api-client';
 import { useImportParts } from '../api/import-parts';
 
+export interface PartsImportProps {
+  projectId: string;
+  /** Rows pasted into the Add-a-part form, as a shelf CSV: previewed at once like a chosen file (give a new key). */
+  pasted?: File | null;
+}
+
 /** CSV import in two steps: a preview with row errors, then the write (refused unless every row is valid). */
-export function PartsImport({ projectId }: { projectId: string }) {
-  const [file, setFile] = useState<File | null>(null);
+export function PartsImport({ projectId, pasted = null }: PartsImportProps) {
+  const [file, setFile] = useState<File | null>(pasted);
   const [preview, setPreview] = useState<PartImportResult | null>(null);
   const importParts = useImportParts(projectId);
+  const { mutate } = importParts;
+  useEffect(() => {
+    if (pasted) mutate({ file: pasted, dryRun: true }, { onSuccess: (result) => setPreview(result) });
+  }, [pasted, mutate]);
   const issues = isApiError(importParts.error) ? (importParts.error.body.issues ?? []) : [];
   const run = (dryRun: boolean) => {
     if (!file) return;

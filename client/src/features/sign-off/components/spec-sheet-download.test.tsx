@@ -49,4 +49,14 @@ describe('SpecSheetDownload', () => {
     expect(alert).toHaveTextContent('Not permitted for your role');
     expect(alert).toHaveTextContent('Only a lead may export a released sheet. (HTTP 403)');
   });
+
+  it('asks the server for the Transformer sheet of a designed transformer', async () => {
+    const fetchMock = vi.fn<typeof fetch>(async () => new Response(new Blob(['%PDF']), { status: 200 }));
+    vi.stubGlobal('fetch', fetchMock);
+    vi.stubGlobal('URL', Object.assign(URL, { createObjectURL: () => 'blob:sheet', revokeObjectURL: () => undefined }));
+    renderWithApp(<SpecSheetDownload {...props} state="draft" projectRole="engineer" sheet="transformer" />);
+    fireEvent.click(screen.getByRole('button', { name: 'Download Transformer sheet (PDF, NOT RELEASED)' }));
+    await vi.waitFor(() => expect(fetchMock).toHaveBeenCalled());
+    expect(String(fetchMock.mock.calls[0]?.[0])).toContain('/revisions/2/transformer-sheet.pdf');
+  });
 });

@@ -1,7 +1,7 @@
 import { Button, Stack, Text } from '@mantine/core';
 import { canInProject, type ProjectRole } from '@ladderwright/shared/auth';
 import type { RevisionState } from '@ladderwright/shared/reviews';
-import { useDownloadSpecSheet } from '../api/download-spec-sheet';
+import { type SheetKind, useDownloadSpecSheet } from '../api/download-spec-sheet';
 import { SignOffError } from './sign-off-error';
 
 export interface SpecSheetDownloadProps {
@@ -11,17 +11,27 @@ export interface SpecSheetDownloadProps {
   revisionNumber: number;
   state: RevisionState;
   projectRole: ProjectRole | null;
+  /** The supply's Spec sheet (default) or the Transformer sheet for the magnetics supplier. */
+  sheet?: SheetKind;
 }
 
-function fileNameOf(designName: string, revisionNumber: number): string {
+const SHEET_NAMES: Record<SheetKind, { title: string; file: string }> = {
+  supply: { title: 'Spec sheet', file: 'spec-sheet' },
+  transformer: { title: 'Transformer sheet', file: 'transformer-sheet' },
+};
+
+function fileNameOf(designName: string, revisionNumber: number, sheet: SheetKind): string {
   const slug = designName
     .toLowerCase()
     .replace(/[^a-z0-9]+/g, '-')
     .replace(/^-|-$/g, '');
-  return `${slug || 'design'}-r${revisionNumber}-spec-sheet.pdf`;
+  return `${slug || 'design'}-r${revisionNumber}-${SHEET_NAMES[sheet].file}.pdf`;
 }
 
-/** The Spec sheet (PDF): released revisions for leads; other states for engineers and leads, marked NOT RELEASED. */
+/**
+ * The Spec sheet or the Transformer sheet (PDF): released revisions for leads; other states for engineers and
+ * leads, marked NOT RELEASED.
+ */
 export function SpecSheetDownload({
   projectId,
   designId,
@@ -29,28 +39,38 @@ export function SpecSheetDownload({
   revisionNumber,
   state,
   projectRole,
+  sheet = 'supply',
 }: SpecSheetDownloadProps) {
   const isReleased = state === 'released';
-  const download = useDownloadSpecSheet(projectId, designId, revisionNumber, fileNameOf(designName, revisionNumber));
+  const title = SHEET_NAMES[sheet].title;
+  const download = useDownloadSpecSheet(
+    projectId,
+    designId,
+    revisionNumber,
+    fileNameOf(designName, revisionNumber, sheet),
+    sheet,
+  );
   const isAllowed =
     projectRole !== null && canInProject(projectRole, isReleased ? 'specSheet.export' : 'specSheet.exportDraft');
   return (
     <Stack gap="xs">
       <Text size="sm">
         {isReleased
-          ? 'The supplier document of this released revision.'
+          ? sheet === 'supply'
+            ? 'The supplier document of this released revision.'
+            : 'The magnetics supplier’s document of this released revision.'
           : 'This revision is not released: every page of its sheet is marked NOT RELEASED.'}
       </Text>
       {isAllowed ? (
         <Button variant="default" w="fit-content" loading={download.isPending} onClick={() => download.mutate()}>
-          {isReleased ? 'Download Spec sheet (PDF)' : 'Download Spec sheet (PDF, NOT RELEASED)'}
+          {isReleased ? `Download ${title} (PDF)` : `Download ${title} (PDF, NOT RELEASED)`}
         </Button>
       ) : (
         <Text size="sm" c="dimmed">
-          {isReleased ? 'Leads download released Spec sheets.' : 'Engineers and leads download unreleased Spec sheets.'}
+          {isReleased ? `Leads download released ${title}s.` : `Engineers and leads download unreleased ${title}s.`}
         </Text>
       )}
-      <SignOffError error={download.error} fallbackTitle="The Spec sheet could not be made" />
+      <SignOffError error={download.error} fallbackTitle={`The ${title} could not be made`} />
     </Stack>
   );
 }

@@ -1,25 +1,25 @@
 import { Paper, Text } from '@mantine/core';
-import type { WaveformTrace } from '@ladderwright/shared/api';
+import { capacitorOfTrace, TRACE_NAMES, type WaveformTrace } from '@ladderwright/shared/api';
 import { formatQuantity } from '@ladderwright/shared/units';
 import { chartColors, QuantityChart } from '../../../components/quantity-chart';
 import type { ChartSeries } from '../../../components/quantity-chart.types';
 
 /** Trace names of a driver run's steady state besides the output. */
-export const collectorTrace = 'V(col)';
-export const secondaryTrace = 'V(s)';
-export const primaryCurrentTrace = 'I(Lp)';
+export const collectorTrace = TRACE_NAMES.collector;
+export const secondaryTrace = TRACE_NAMES.secondary;
+export const primaryCurrentTrace = TRACE_NAMES.primaryCurrent;
 const traceLabels: Readonly<Record<string, string>> = {
-  [collectorTrace]: 'collector V(col)',
-  [secondaryTrace]: 'secondary V(s)',
-  [primaryCurrentTrace]: 'primary I(Lp)',
-  'V(top)': 'ladder top V(top)',
-  'V(out)': 'load terminal V(out)',
+  [collectorTrace]: `collector ${collectorTrace}`,
+  [secondaryTrace]: `secondary ${secondaryTrace}`,
+  [primaryCurrentTrace]: `primary ${primaryCurrentTrace}`,
+  [TRACE_NAMES.output]: `ladder top ${TRACE_NAMES.output}`,
+  [TRACE_NAMES.loadTerminal]: `load terminal ${TRACE_NAMES.loadTerminal}`,
 };
 
 /** The name a trace goes by on a plot: the node's role and the simulator's name, e.g. "C3 voltage V(C3)". */
 export function traceLabel(name: string): string {
-  const capacitor = /^V\(C(\d+)\)$/.exec(name);
-  return traceLabels[name] ?? (capacitor ? `C${capacitor[1]} V(C${capacitor[1]})` : name);
+  const capacitor = capacitorOfTrace(name);
+  return traceLabels[name] ?? (capacitor ? `${capacitor} ${name}` : name);
 }
 
 /** The traces moved to start at 0 s from `startS`. */

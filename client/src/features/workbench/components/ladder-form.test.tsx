@@ -1,5 +1,5 @@
 import { useMemo, useState } from 'react';
-import { fireEvent, screen } from '@testing-library/react';
+import { fireEvent, screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { designExamples, validateDesign, type Design } from '@ladderwright/shared/designs';
 import { isDomainError } from '@ladderwright/shared/errors';
@@ -98,6 +98,27 @@ describe('LadderForm driver fields', () => {
       expect(driverOf(seen.at(-1)).clamp).toMatchObject({ kind: 'rcd', resistorOhm: 22e3 });
       fireEvent.change(screen.getByLabelText('Battery-life target (h)'), { target: { value: '40' } });
       expect(driverOf(seen.at(-1)).batteryLifeTargetH).toBe(40);
+    },
+    timeoutMs,
+  );
+});
+
+describe('LadderForm change of shape', () => {
+  it(
+    'asks before an odd cell count moves capacitors to the other column, then keeps the values at their places',
+    async () => {
+      const seen: Design[] = [];
+      renderWithApp(<Harness onDocument={(d) => seen.push(d)} />);
+      fireEvent.change(screen.getByRole('textbox', { name: 'Cells' }), { target: { value: '3' } });
+      // Nothing changes until the question is answered (the dialog's code loads when it opens).
+      expect(seen).toHaveLength(0);
+      const dialog = await screen.findByRole('dialog', { name: 'Capacitors change places' }, { timeout: 10_000 });
+      expect(within(dialog).getByRole('list', { name: 'Capacitors that move' })).toBeTruthy();
+      fireEvent.click(within(dialog).getByRole('button', { name: 'Keep values at their places' }));
+      const multiplier = seen.at(-1)?.multiplier;
+      expect(multiplier?.cellCount).toBe(3);
+      expect(multiplier?.capacitors).toHaveLength(3);
+      await waitFor(() => expect(screen.queryByRole('dialog')).toBeNull());
     },
     timeoutMs,
   );

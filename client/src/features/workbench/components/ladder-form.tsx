@@ -154,7 +154,7 @@ const SectionBody = memo(
       case 'drive':
         return <DriveSection {...props} />;
       case 'transformer':
-        return driver && <TransformerSection driver={driver} edit={driverEdit(edit)} issue={issue} />;
+        return driver && <TransformerSection driver={driver} edit={driverEdit(edit)} issue={issue} parts={parts} />;
       case 'transistor':
         return driver && <TransistorSection driver={driver} edit={driverEdit(edit)} issue={issue} />;
       case 'ladder':

@@ -1,14 +1,18 @@
-import { useState } from 'react';
-import { Button, Group, List, Modal, NumberInput, Select, Stack, Text } from '@mantine/core';
+import { lazy, Suspense, useState } from 'react';
+import { NumberInput, Select, Stack, Text } from '@mantine/core';
 import { capacitorCountFor, type Topology } from '@ladderwright/shared/designs';
-import { formatQuantity } from '@ladderwright/shared/units';
 import { BoundField } from '../../../../components/bound-field';
 import { FieldGrid } from '../../../../components/field-grid';
 import { binder } from '../../document-path';
-import { placeLabel, resizeCapacitors, resizeKeepingPlaces, roleChanges, type RoleChange } from '../../ladder-edits';
+import { resizeCapacitors, resizeKeepingPlaces, roleChanges, type RoleChange } from '../../ladder-edits';
 import { CapacitorTable } from '../capacitor-table';
 import { PartCodeInput } from '../part-code-input';
 import type { SectionProps, ShelfProps } from './form-section.types';
+
+// The dialog opens only on a change of shape that moves capacitors: it loads then, not with the Workbench.
+const CapacitorMoveDialog = lazy(() =>
+  import('./capacitor-move-dialog').then((module) => ({ default: module.CapacitorMoveDialog })),
+);
 
 const topologies: Array<{ value: Topology; label: string }> = [
   { value: 'half-wave', label: 'half-wave cascade' },
@@ -130,48 +134,21 @@ export function LadderSection({
         />
         <BoundField label="Series resistance" unit="Ohm" {...bind('multiplier.diode.seriesResistanceOhm')} />
       </FieldGrid>
-      <Modal opened={pending !== null} onClose={() => setPending(null)} title="Capacitors change places" size="lg">
-        {pending && (
-          <Stack gap="sm">
-            <Text size="sm">
-              With {pending.cellCount} {pending.topology === 'full-wave' ? 'stages' : 'cells'} (
-              {topologies.find((t) => t.value === pending.topology)?.label}), these capacitors keep their number and
-              value but sit elsewhere in the ladder:
-            </Text>
-            <List size="sm" aria-label="Capacitors that move">
-              {pending.changes.map((change) => (
-                <List.Item key={change.index}>
-                  C{change.index + 1} ({formatQuantity(change.capacitor.valueF, 'F')}, rated{' '}
-                  {formatQuantity(change.capacitor.ratedVoltageV, 'V')}): {placeLabel(change.from)} →{' '}
-                  {placeLabel(change.to)}
-                </List.Item>
-              ))}
-            </List>
-            <Group justify="flex-end" gap="sm">
-              <Button variant="default" onClick={() => setPending(null)}>
-                Cancel
-              </Button>
-              <Button
-                variant="light"
-                onClick={() => {
-                  applyShape(pending.topology, pending.cellCount, true);
-                  setPending(null);
-                }}
-              >
-                Keep values at their places
-              </Button>
-              <Button
-                onClick={() => {
-                  applyShape(pending.topology, pending.cellCount, false);
-                  setPending(null);
-                }}
-              >
-                Move them
-              </Button>
-            </Group>
-          </Stack>
-        )}
-      </Modal>
+      {pending && (
+        <Suspense fallback={null}>
+          <CapacitorMoveDialog
+            cellCount={pending.cellCount}
+            isFullWave={pending.topology === 'full-wave'}
+            topologyLabel={topologies.find((t) => t.value === pending.topology)?.label ?? pending.topology}
+            changes={pending.changes}
+            onCancel={() => setPending(null)}
+            onApply={(isKeepingPlaces) => {
+              applyShape(pending.topology, pending.cellCount, isKeepingPlaces);
+              setPending(null);
+            }}
+          />
+        </Suspense>
+      )}
     </Stack>
   );
 }

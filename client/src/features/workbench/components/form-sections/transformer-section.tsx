@@ -1,8 +1,12 @@
+import { SegmentedControl, Stack } from '@mantine/core';
+import type { Part } from '@ladderwright/shared/api';
 import type { DriverStage, DriverTransformer } from '@ladderwright/shared/driver';
 import type { QuantityUnit } from '@ladderwright/shared/units';
 import { BoundField } from '../../../../components/bound-field';
 import { FieldGrid } from '../../../../components/field-grid';
 import { binder, type Edit } from '../../document-path';
+import { startingSection } from '../../transformer-start';
+import { DesignedTransformerFields } from './designed-transformer-fields';
 import { DRIVER_PATH } from './driver-edit';
 import type { SectionProps } from './form-section.types';
 
@@ -36,8 +40,42 @@ export interface DriverSectionProps {
   issue: SectionProps['issue'];
 }
 
-/** The three-winding transformer of the blocking oscillator: turns, inductance, coupling, resistances, insulation. */
-export function TransformerSection({ driver, edit, issue }: DriverSectionProps) {
+/**
+ * The blocking oscillator's transformer: its numbers as given (the default), or designed from a core, a gap
+ * and windings on the project's Parts shelf, from which the engine derives the same numbers.
+ */
+export function TransformerSection({ driver, edit, issue, parts }: DriverSectionProps & { parts: readonly Part[] }) {
+  const choice = driver.transformerChoice ?? 'given';
+  return (
+    <Stack gap="sm">
+      <SegmentedControl
+        aria-label="Transformer from"
+        value={choice}
+        w="fit-content"
+        data={[
+          { value: 'given', label: 'Given numbers' },
+          { value: 'designed', label: 'Designed from a core' },
+        ]}
+        onChange={(value) =>
+          edit((dr) => {
+            if (value === 'designed') {
+              dr.transformerDesign ??= startingSection(dr, parts);
+              dr.transformerChoice = 'designed';
+            } else dr.transformerChoice = 'given';
+          }, `${DRIVER_PATH}.transformerChoice`)
+        }
+      />
+      {choice === 'designed' && driver.transformerDesign ? (
+        <DesignedTransformerFields section={driver.transformerDesign} edit={edit} issue={issue} parts={parts} />
+      ) : (
+        <GivenTransformerFields driver={driver} edit={edit} issue={issue} />
+      )}
+    </Stack>
+  );
+}
+
+/** The transformer as stated numbers: turns, inductance, coupling, resistances, saturation, insulation. */
+function GivenTransformerFields({ driver, edit, issue }: DriverSectionProps) {
   const bind = binder(driver, edit, issue, DRIVER_PATH);
   return (
     <FieldGrid>

@@ -6,7 +6,7 @@ import type { SchemaMigration } from './migration.types';
  * and e-mail.
  */
 export const memberRequests: SchemaMigration = {
-  name: '0012-member-requests',
+  name: '0013-member-requests',
   async up(context) {
     await context.sequelize.query(`
       CREATE TABLE member_requests (

@@ -1,0 +1,96 @@
+import { resolve } from 'node:path';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { baseUrl, launchJourneyBrowser, openJourneyPage, screenshotDir, signInAsDemo } from './journey';
+
+let browser: Browser;
+let context: BrowserContext;
+let page: Page;
+let pageErrors: string[];
+
+interface CurvePoint {
+  x: number;
+  y: number;
+}
+
+describe('calibration journey', () => {
+  beforeAll(async () => {
+    browser = await launchJourneyBrowser();
+    ({
+      context,
+      page,
+      errors: pageErrors,
+    } = await openJourneyPage(browser, { viewport: { width: 1440, height: 900 } }));
+  });
+  afterAll(async () => {
+    await context?.close();
+    await browser?.close();
+  });
+
+  it('uploads a sweep, calibrates the transistor gain and starts a revision from the calibrated model', async () => {
+    await signInAsDemo(page, 'engineer@northfold.test');
+    const projects = (await (await page.request.get(`${baseUrl}/api/projects`)).json()) as {
+      id: string;
+      name: string;
+    }[];
+    const project = projects.find((candidate) => candidate.name === 'Handheld surface-charge tester');
+    if (!project) throw new Error('no demo tester project');
+    const designs = (await (await page.request.get(`${baseUrl}/api/projects/${project.id}/designs`)).json()) as {
+      items: { id: string; latestRevisionNumber: number }[];
+    };
+    const design = designs.items[0];
+    if (!design) throw new Error('no demo design');
+    const latest = design.latestRevisionNumber;
+    const revisionUrl = `${baseUrl}/api/projects/${project.id}/designs/${design.id}/revisions/${latest}`;
+    const revision = (await (await page.request.get(revisionUrl)).json()) as {
+      report: { curves: { regulation: CurvePoint[] } };
+    };
+    // A sweep 3 % below the predicted output-vs-load curve at its first six points (a prototype that
+    // delivers less than drawn); the fit then moves the gain to explain it.
+    const rows = revision.report.curves.regulation.slice(0, 6);
+    const csv = [
+      'current (uA),voltage (V)',
+      ...rows.map((p) => `${(p.x * 1e6).toPrecision(10)},${(p.y * 0.97).toPrecision(10)}`),
+    ].join('\n');
+
+    const benchPath = `/projects/${project.id}/designs/${design.id}/revisions/${latest}/bench-runs`;
+    await page.evaluate((path) => {
+      window.history.pushState({}, '', path);
+      window.dispatchEvent(new PopStateEvent('popstate'));
+    }, benchPath);
+    await page.getByRole('heading', { name: /Bench runs · revision/ }).waitFor();
+    const form = page.getByRole('form', { name: 'Upload a bench run' });
+    await form.getByLabel('Title').fill('Prototype 3 sweep');
+    await form
+      .locator('input[type="file"]')
+      .first()
+      .setInputFiles({ name: 'sweep.csv', mimeType: 'text/csv', buffer: Buffer.from(csv) });
+    await form.getByRole('button', { name: 'Upload and compare' }).click();
+    await page.getByLabel('Bench overlay').waitFor();
+
+    const panel = page.getByLabel('Calibrate');
+    await panel.getByLabel('Fit Transistor current gain hFE').check();
+    await panel.getByLabel('Fit Prototype 3 sweep as').click();
+    await page.getByRole('option', { name: 'load sweep (estimate)' }).click();
+    await panel.getByRole('button', { name: 'Run calibration' }).click();
+    const result = panel.getByLabel('Calibration result');
+    await result.waitFor({ timeout: 60_000 });
+    const fitted = panel.getByRole('table', { name: 'Fitted parameters' });
+    await expect(fitted.textContent()).resolves.toContain('Transistor current gain hFE');
+    await expect(panel.getByRole('table', { name: 'Residual per run' }).textContent()).resolves.toContain(
+      'Prototype 3 sweep',
+    );
+    await result.locator('.recharts-surface').first().waitFor();
+    await page.screenshot({ path: resolve(screenshotDir, 'calibration-result.png'), fullPage: true });
+
+    await panel.getByRole('button', { name: 'Start revision from calibrated model' }).click();
+    await page.waitForURL(new RegExp(`/designs/${design.id}\\?rev=${latest + 1}$`));
+    await page.screenshot({ path: resolve(screenshotDir, 'calibration-new-revision.png') });
+    const saved = (await (
+      await page.request.get(`${baseUrl}/api/projects/${project.id}/designs/${design.id}/revisions/${latest + 1}`)
+    ).json()) as { changeNote: string };
+    expect(saved.changeNote).toContain("bench runs 'Prototype 3 sweep'");
+    expect(saved.changeNote).toContain('Transistor current gain hFE');
+    expect(pageErrors).toEqual([]);
+  });
+});

@@ -1,0 +1,58 @@
+import { Stack, Table, Text } from '@mantine/core';
+import type { Calibration } from '@ladderwright/shared/api';
+import { formatDateTime } from '../../../lib/format-date';
+import { useCalibrations } from '../api/get-calibrations';
+import { formatParameterValue } from './calibration-result';
+
+function fittedText(calibration: Calibration): string {
+  if (calibration.status !== 'succeeded' || !calibration.result) return calibration.status;
+  return calibration.result.parameters
+    .map((parameter) => {
+      const interval = parameter.interval
+        ? ` (${formatParameterValue(parameter.interval.low, parameter.unit)} to ${formatParameterValue(parameter.interval.high, parameter.unit)})`
+        : ' (not identifiable)';
+      return `${parameter.label} ${formatParameterValue(parameter.value, parameter.unit)}${interval}`;
+    })
+    .join('; ');
+}
+
+/** The calibrations of a revision, newest first: when, against which runs, what was fitted, any warning. */
+export function CalibrationList({
+  projectId,
+  designId,
+  revisionNumber,
+}: {
+  projectId: string;
+  designId: string;
+  revisionNumber: number;
+}) {
+  const calibrations = useCalibrations(projectId, designId, revisionNumber);
+  const rows = calibrations.data ?? [];
+  if (rows.length === 0) return <Text size="sm">No calibration of this revision.</Text>;
+  return (
+    <Stack gap="xs">
+      <Table aria-label="Calibrations">
+        <Table.Thead>
+          <Table.Tr>
+            <Table.Th>When</Table.Th>
+            <Table.Th>Bench runs</Table.Th>
+            <Table.Th>Fitted</Table.Th>
+          </Table.Tr>
+        </Table.Thead>
+        <Table.Tbody>
+          {rows.map((calibration) => (
+            <Table.Tr key={calibration.id}>
+              <Table.Td>{formatDateTime(calibration.createdAt)}</Table.Td>
+              <Table.Td>{calibration.input.runs.map((run) => run.label).join(', ')}</Table.Td>
+              <Table.Td>
+                {fittedText(calibration)}
+                {calibration.result?.warnings.length ? ' — identifiability warning' : ''}
+                {calibration.draftRevisionNumber !== null ? ` → revision ${calibration.draftRevisionNumber}` : ''}
+              </Table.Td>
+            </Table.Tr>
+          ))}
+        </Table.Tbody>
+      </Table>
+    </Stack>
+  );
+}

@@ -1,0 +1,219 @@
+import { useMemo, useState } from 'react';
+import { Alert, Button, Fieldset, NumberInput, Select, SimpleGrid, Stack, Table, Text } from '@mantine/core';
+import type { Part } from '@ladderwright/shared/api';
+import type { SpacingEnvironment } from '@ladderwright/shared/designs';
+import { isDomainError } from '@ladderwright/shared/errors';
+import { shelfMagnetics } from '@ladderwright/shared/parts';
+import { sizeTransformer, type TransformerSizerCandidate } from '@ladderwright/shared/transformer';
+import { formatQuantity } from '@ladderwright/shared/units';
+import { QuantityInput } from '../../../components/quantity-input';
+
+export interface TransformerSizerPanelProps {
+  shelf: readonly Part[];
+}
+
+/** Pollution degree 2, material group IIIa: the spacing the demo designs state (common practice for indoor kit). */
+const SPACING: SpacingEnvironment = { pollutionDegree: 2, materialGroup: 'IIIa', pcb: false };
+
+interface Inputs {
+  primaryInductanceH: number;
+  primaryPeakCurrentA: number;
+  turnsRatio: number;
+  feedbackRatio: number;
+  frequencyHz: number;
+  dutyOnFraction: number;
+  secondaryPeakV: number;
+}
+
+/** The demo handheld tester's driver: 1 mH, 20 : 8 : 1200 turns, about 0.5 A peak. */
+const DEFAULT_INPUTS: Inputs = {
+  primaryInductanceH: 1e-3,
+  primaryPeakCurrentA: 0.5,
+  turnsRatio: 60,
+  feedbackRatio: 0.4,
+  frequencyHz: 20e3,
+  dutyOnFraction: 0.3,
+  secondaryPeakV: 900,
+};
+
+const mT = (valueT: number) => `${Number((valueT * 1e3).toPrecision(3))} mT`;
+
+/**
+ * The transformer Sizer (shared sizeTransformer): for the driver's primary inductance, peak current and turns
+ * ratios, every core on the Parts shelf with the fewest primary turns that keep the flux margin at 100 °C, ranked
+ * by loss and then size; cores that do not fit follow with the reason.
+ */
+export function TransformerSizerPanel({ shelf }: TransformerSizerPanelProps) {
+  const { cores, wires, tapes } = useMemo(() => shelfMagnetics(shelf), [shelf]);
+  const [inputs, setInputs] = useState<Inputs>(DEFAULT_INPUTS);
+  const [codes, setCodes] = useState<{ primary?: string; secondary?: string; tape?: string }>({});
+  const [ranked, setRanked] = useState<TransformerSizerCandidate[] | null>(null);
+  const [error, setError] = useState<string | null>(null);
+  const byDiameter = [...wires].sort((a, b) => a.copperDiameterM - b.copperDiameterM);
+  const primaryWire = wires.find((w) => w.code === codes.primary) ?? byDiameter[byDiameter.length - 1];
+  const secondaryWire = wires.find((w) => w.code === codes.secondary) ?? byDiameter[0];
+  const tape = tapes.find((t) => t.code === codes.tape) ?? tapes[0];
+  const set = (key: keyof Inputs) => (value: number | string) =>
+    setInputs((current) => ({ ...current, [key]: typeof value === 'number' ? value : Number.NaN }));
+
+  const rank = () => {
+    setError(null);
+    if (!primaryWire || !secondaryWire || !tape) return;
+    try {
+      setRanked(
+        sizeTransformer(
+          cores,
+          {
+            ...inputs,
+            primaryWire,
+            feedbackWire: primaryWire,
+            secondaryWire,
+            windingTape: tape,
+            windingTapeWraps: 3,
+            layerTape: tape,
+          },
+          SPACING,
+        ),
+      );
+    } catch (caught) {
+      setRanked(null);
+      setError(isDomainError(caught) ? caught.message : 'The Sizer could not rank these cores');
+    }
+  };
+
+  if (cores.length === 0 || !primaryWire || !secondaryWire || !tape) {
+    return (
+      <Text size="sm" c="dimmed">
+        The Parts shelf needs at least one core, one wire and one tape with their figures to rank cores.
+      </Text>
+    );
+  }
+  const wireData = wires.map((w) => ({ value: w.code, label: w.code }));
+  return (
+    <Stack gap="sm">
+      <Fieldset legend="From the driver">
+        <SimpleGrid cols={{ base: 1, sm: 2, md: 4 }} spacing="sm">
+          <QuantityInput
+            label="Primary inductance"
+            unit="H"
+            value={inputs.primaryInductanceH}
+            onChange={set('primaryInductanceH')}
+          />
+          <QuantityInput
+            label="Peak primary current"
+            unit="A"
+            value={inputs.primaryPeakCurrentA}
+            onChange={set('primaryPeakCurrentA')}
+          />
+          <NumberInput
+            label="Turns ratio secondary / primary"
+            value={inputs.turnsRatio}
+            min={1}
+            onChange={set('turnsRatio')}
+          />
+          <NumberInput
+            label="Turns ratio feedback / primary"
+            value={inputs.feedbackRatio}
+            min={0.05}
+            step={0.05}
+            decimalScale={3}
+            onChange={set('feedbackRatio')}
+          />
+          <QuantityInput label="Frequency" unit="Hz" value={inputs.frequencyHz} onChange={set('frequencyHz')} />
+          <NumberInput
+            label="On-time fraction"
+            value={inputs.dutyOnFraction}
+            min={0.01}
+            max={0.99}
+            step={0.05}
+            decimalScale={3}
+            onChange={set('dutyOnFraction')}
+          />
+          <QuantityInput
+            label="Secondary peak"
+            unit="V"
+            value={inputs.secondaryPeakV}
+            onChange={set('secondaryPeakV')}
+          />
+        </SimpleGrid>
+      </Fieldset>
+      <SimpleGrid cols={{ base: 1, sm: 3 }} spacing="sm">
+        <Select
+          label="Primary and feedback wire"
+          data={wireData}
+          value={primaryWire.code}
+          allowDeselect={false}
+          onChange={(code) => setCodes((c) => ({ ...c, primary: code ?? undefined }))}
+        />
+        <Select
+          label="Secondary wire"
+          data={wireData}
+          value={secondaryWire.code}
+          allowDeselect={false}
+          onChange={(code) => setCodes((c) => ({ ...c, secondary: code ?? undefined }))}
+        />
+        <Select
+          label="Tape (layers, and 3 wraps between windings)"
+          data={tapes.map((t) => ({ value: t.code, label: t.code }))}
+          value={tape.code}
+          allowDeselect={false}
+          onChange={(code) => setCodes((c) => ({ ...c, tape: code ?? undefined }))}
+        />
+      </SimpleGrid>
+      <Button w="fit-content" onClick={rank}>
+        Rank {cores.length} shelf cores
+      </Button>
+      {error && (
+        <Alert color="red" title="Not ranked">
+          {error}
+        </Alert>
+      )}
+      {ranked && (
+        <div style={{ overflowX: 'auto' }}>
+          <Table aria-label="Ranked cores" fz="sm" miw={760} striped>
+            <Table.Thead>
+              <Table.Tr>
+                <Table.Th>Rank</Table.Th>
+                <Table.Th>Core</Table.Th>
+                <Table.Th>Turns P : F : S</Table.Th>
+                <Table.Th>Gap</Table.Th>
+                <Table.Th>Peak flux</Table.Th>
+                <Table.Th>Margin at 100 °C</Table.Th>
+                <Table.Th>Loss (core + copper)</Table.Th>
+                <Table.Th>Window fill</Table.Th>
+                <Table.Th>Core volume</Table.Th>
+                <Table.Th>Verdict</Table.Th>
+              </Table.Tr>
+            </Table.Thead>
+            <Table.Tbody>
+              {ranked.map((candidate, index) => (
+                <Table.Tr key={candidate.core.code}>
+                  <Table.Td>{index + 1}</Table.Td>
+                  <Table.Td ff="monospace">{candidate.core.code}</Table.Td>
+                  <Table.Td>
+                    {candidate.primaryTurns} : {candidate.feedbackTurns} : {candidate.secondaryTurns}
+                  </Table.Td>
+                  <Table.Td>{candidate.refusal === null ? formatQuantity(candidate.gap.gapM, 'm', 3) : '—'}</Table.Td>
+                  <Table.Td>{candidate.refusal === null ? mT(candidate.peakFluxDensityT) : '—'}</Table.Td>
+                  <Table.Td>
+                    {candidate.refusal === null ? `${Number(candidate.saturationMarginPct.toPrecision(3))} %` : '—'}
+                  </Table.Td>
+                  <Table.Td>
+                    {candidate.refusal === null
+                      ? formatQuantity(candidate.coreLossW + candidate.copperLossW, 'W', 3)
+                      : '—'}
+                  </Table.Td>
+                  <Table.Td>
+                    {candidate.refusal === null ? `${Number((candidate.windowFill * 100).toPrecision(3))} %` : '—'}
+                  </Table.Td>
+                  <Table.Td>{Number((candidate.core.volumeM3 * 1e9).toPrecision(4))} mm³</Table.Td>
+                  <Table.Td>{candidate.refusal === null ? 'fits' : `refused: ${candidate.refusal}`}</Table.Td>
+                </Table.Tr>
+              ))}
+            </Table.Tbody>
+          </Table>
+        </div>
+      )}
+    </Stack>
+  );
+}

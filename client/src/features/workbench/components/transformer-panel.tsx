@@ -1,0 +1,148 @@
+import { Group, Paper, SimpleGrid, Stack, Table, Text, Title } from '@mantine/core';
+import { formatFieldValue, resultFieldLabel } from '@ladderwright/shared/designs';
+import type { TransformerReport } from '@ladderwright/shared/transformer';
+import { formatQuantity } from '@ladderwright/shared/units';
+import { ChecksTable } from './checks-table';
+import { MethodNote } from './method-note';
+
+export interface TransformerPanelProps {
+  transformer: TransformerReport;
+}
+
+/** Figure keys of the report in reading order, grouped, each with the method that computed it. */
+const GROUPS: { title: string; rows: { key: string; method?: string }[] }[] = [
+  {
+    title: 'Core and gap',
+    rows: [
+      { key: 'gap.gapM', method: 'gap' },
+      { key: 'gap.alHPerTurn2', method: 'gap' },
+      { key: 'primaryInductanceH', method: 'gap' },
+      { key: 'peakFluxDensityT', method: 'peakFluxDensity' },
+      { key: 'saturationFluxDensityT' },
+      { key: 'saturationMarginPct', method: 'peakFluxDensity' },
+      { key: 'saturationCurrentA', method: 'peakFluxDensity' },
+    ],
+  },
+  {
+    title: 'Losses and temperature',
+    rows: [
+      { key: 'coreLossW', method: 'coreLoss' },
+      { key: 'copperLossW', method: 'copperLoss' },
+      { key: 'temperatureRiseC', method: 'temperatureRise' },
+      { key: 'windowFill', method: 'layout' },
+      { key: 'buildFill', method: 'layout' },
+    ],
+  },
+  {
+    title: 'Coupling and insulation',
+    rows: [
+      { key: 'leakagePrimarySecondaryH', method: 'leakage' },
+      { key: 'couplings.primarySecondary', method: 'leakage' },
+      { key: 'secondaryCapacitanceF', method: 'secondaryCapacitance' },
+      { key: 'hipotTestVoltageV', method: 'hipot' },
+      { key: 'windingInsulationV', method: 'layerVoltage' },
+      { key: 'flangeCreepageM' },
+      { key: 'requiredCreepageM' },
+    ],
+  },
+];
+
+function valueAt(report: TransformerReport, key: string): unknown {
+  let node: unknown = report;
+  for (const part of key.split('.'))
+    node = typeof node === 'object' && node !== null ? (node as Record<string, unknown>)[part] : undefined;
+  return node;
+}
+
+/**
+ * The designed transformer's figures at the driver's rated-load operating point: gap and inductances, flux and
+ * its margin to saturation at 100 °C, losses and temperature rise, fills, each winding's layers, resistances and
+ * layer voltages against their insulation, leakage, self-capacitance, hipot and creepage, with its Checks.
+ */
+export function TransformerPanel({ transformer }: TransformerPanelProps) {
+  return (
+    <Paper withBorder p="sm" aria-label="Transformer">
+      <Stack gap="xs">
+        <Title order={4}>Transformer, as designed, at the rated load</Title>
+        <SimpleGrid cols={{ base: 1, sm: 2 }} spacing="md">
+          {GROUPS.map((group) => (
+            <Stack key={group.title} gap={2}>
+              <Text size="sm" fw={600}>
+                {group.title}
+              </Text>
+              <Table fz="sm" verticalSpacing={2} aria-label={group.title}>
+                <Table.Tbody>
+                  {group.rows.map(({ key, method }) => {
+                    const { label, display } = resultFieldLabel(`transformer.${key}`);
+                    const raw = valueAt(transformer, key);
+                    // Three figures: the methods behind these estimates do not tell a fourth.
+                    const value = typeof raw === 'number' ? Number(raw.toPrecision(3)) : raw;
+                    const text =
+                      key === 'gap.gapM' && typeof value === 'number' && value < 1e-6
+                        ? 'none (ungapped)'
+                        : formatFieldValue(value, display);
+                    return (
+                      <Table.Tr key={key}>
+                        <Table.Td>{label}</Table.Td>
+                        <Table.Td data-transformer={key} style={{ whiteSpace: 'nowrap' }}>
+                          {text}
+                        </Table.Td>
+                        <Table.Td w={28}>
+                          {method && <MethodNote subject={label.toLowerCase()} method={transformer.methods[method]} />}
+                        </Table.Td>
+                      </Table.Tr>
+                    );
+                  })}
+                </Table.Tbody>
+              </Table>
+            </Stack>
+          ))}
+        </SimpleGrid>
+        <Group gap={6}>
+          <Text size="sm" fw={600}>
+            Windings
+          </Text>
+          <MethodNote subject="layer voltages" method={transformer.methods.layerVoltage} />
+        </Group>
+        <div style={{ overflowX: 'auto' }}>
+          <Table fz="sm" verticalSpacing={2} aria-label="Winding figures" miw={640}>
+            <Table.Thead>
+              <Table.Tr>
+                <Table.Th>Winding</Table.Th>
+                <Table.Th>Turns</Table.Th>
+                <Table.Th>Layers × turns</Table.Th>
+                <Table.Th>Inductance</Table.Th>
+                <Table.Th>DC resistance</Table.Th>
+                <Table.Th>AC factor</Table.Th>
+                <Table.Th>Copper loss</Table.Th>
+                <Table.Th>Layer to layer</Table.Th>
+                <Table.Th>Layer insulation</Table.Th>
+              </Table.Tr>
+            </Table.Thead>
+            <Table.Tbody>
+              {transformer.windings.map((winding) => (
+                <Table.Tr key={winding.role}>
+                  <Table.Td>{winding.name}</Table.Td>
+                  <Table.Td>{winding.turns}</Table.Td>
+                  <Table.Td>
+                    {winding.layers} × {winding.turnsPerLayer}
+                  </Table.Td>
+                  <Table.Td>{formatQuantity(winding.inductanceH, 'H')}</Table.Td>
+                  <Table.Td>{formatQuantity(winding.dcResistanceOhm, 'Ohm')}</Table.Td>
+                  <Table.Td>{winding.acResistanceFactor.toFixed(2)}</Table.Td>
+                  <Table.Td>{formatQuantity(winding.copperLossW, 'W')}</Table.Td>
+                  <Table.Td>{formatQuantity(winding.layerToLayerV, 'V')}</Table.Td>
+                  <Table.Td>{formatQuantity(winding.layerInsulationV, 'V')}</Table.Td>
+                </Table.Tr>
+              ))}
+            </Table.Tbody>
+          </Table>
+        </div>
+        <Text size="sm" fw={600}>
+          Transformer checks
+        </Text>
+        <ChecksTable checks={transformer.checks} />
+      </Stack>
+    </Paper>
+  );
+}
