@@ -13,6 +13,7 @@ import { toSpiceNetlist } from '../../shared/src/sim/to-spice-netlist';
 import { windowMean, windowPeakToPeak } from '../../shared/src/sim/waveform-measures';
 import { runNgspice } from '../../shared/test/ngspice/run-ngspice';
 import { ngspiceCpuMs } from './ngspice-cpu';
+import { cycleMeans, settledFrom } from './cycle-means';
 
 async function main(): Promise<void> {
   const cycles = Number(process.argv[2] ?? 2000);
@@ -103,28 +104,6 @@ async function main(): Promise<void> {
 function cpuMsSince(start: NodeJS.CpuUsage): number {
   const u = process.cpuUsage(start);
   return (u.user + u.system) / 1000;
-}
-
-/** Mean of each whole period [c·T, (c + 1)·T] of a sampled signal. */
-function cycleMeans(timeS: Float64Array, values: Float64Array, periodS: number, cycles: number): Float64Array {
-  const out = new Float64Array(cycles);
-  let start = 0;
-  let end = 0;
-  for (let c = 0; c < cycles; c++) {
-    const from = c * periodS;
-    const to = (c + 1) * periodS;
-    while (start + 1 < timeS.length && timeS[start + 1]! <= from) start++;
-    while (end + 1 < timeS.length && timeS[end]! < to) end++;
-    out[c] = windowMean(timeS.subarray(start, end + 1), values.subarray(start, end + 1), from, to);
-  }
-  return out;
-}
-
-/** First cycle count c after which every cycle mean stays within `within` of `target`; −1 if none. */
-function settledFrom(means: Float64Array, target: number, within: number): number {
-  let c = means.length;
-  while (c > 0 && Math.abs(means[c - 1]! / target - 1) <= within) c--;
-  return c === means.length ? -1 : c + 1;
 }
 
 void main();

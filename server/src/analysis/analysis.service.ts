@@ -1,7 +1,7 @@
 import { Inject, Injectable } from '@nestjs/common';
 import type { DesignReportBody, DesignTemplate, EvaluateResponse, ResultDifference } from '@ladderwright/shared/api';
 import { validateDesign, type Design } from '@ladderwright/shared/designs';
-import { DomainError, isDomainError } from '@ladderwright/shared/errors';
+import { DomainError, isDomainError, prefixedFieldPath } from '@ladderwright/shared/errors';
 import { resolveDrive } from '@ladderwright/shared/analysis';
 import { ENGINE_VERSION } from '@ladderwright/shared/multiplier';
 import type { ShelfPart } from '@ladderwright/shared/parts';
@@ -49,17 +49,12 @@ function figureValue(report: unknown, key: string): number | null {
   return typeof node === 'number' && Number.isFinite(node) ? node : null;
 }
 
-function prefixPath(prefix: string, path: string): string {
-  if (!prefix) return path;
-  return path === '(document)' || path === '' ? prefix : `${prefix}.${path}`;
-}
-
 /** A DomainError with its field paths under `fieldPrefix`; any other error as it is. */
 function prefixed(error: unknown, fieldPrefix: string): unknown {
   if (!isDomainError(error)) return error;
   if (error.code === 'budget_exceeded') return error;
-  const issues = error.issues.map((issue) => ({ ...issue, path: prefixPath(fieldPrefix, issue.path) }));
-  const field = prefixPath(fieldPrefix, error.field ?? '') || fieldPrefix || null;
+  const issues = error.issues.map((issue) => ({ ...issue, path: prefixedFieldPath(fieldPrefix, issue.path) }));
+  const field = prefixedFieldPath(fieldPrefix, error.field ?? '') || fieldPrefix || null;
   const summary = issues.map((issue) => `${issue.path}: ${issue.message}`).join('; ');
   const message = issues.length > 0 ? `design is not valid: ${summary}` : error.message;
   return new DomainError(error.code, message, field, issues);

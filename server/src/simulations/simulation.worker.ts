@@ -119,7 +119,8 @@ function simulate(task: SimulationTask): SimulationResult {
   };
   if (design.drive.kind === 'driver') return simulateDriver(task, post);
   const isDischarge = kind === 'discharge' || kind === 'full';
-  const run = runLadder(ladderSpecFromDesign(design), {
+  const spec = ladderSpecFromDesign(design);
+  const run = runLadder(spec, {
     until: options.cycles !== undefined ? { cycles: options.cycles } : 'steady',
     maxStepPerPeriod: options.maxStepPerPeriod ?? DEFAULT_MAX_STEP_PER_PERIOD,
     plotBuckets: PLOT_BUCKETS,
@@ -136,6 +137,8 @@ function simulate(task: SimulationTask): SimulationResult {
     safeVoltageV: run.discharge?.safeVoltageV ?? null,
     cyclesSimulated: run.cyclesSimulated,
     method: run.method,
+    notSettledWithinS: run.isSettled ? null : run.cyclesSimulated / spec.drive.frequencyHz,
+    remainingDriftV: run.remainingDriftV,
   };
   const waveforms: WaveformTrace[] = [];
   if (kind === 'startup' || kind === 'full') waveforms.push(toWaveform('startup', run.startUp));

@@ -97,7 +97,8 @@ export function ladderFromArguments({ positional, flags }: ParsedArguments): {
 /**
  * `ladderwright simulate DESIGN.json | <bare-ladder flags>` [--until steady | --cycles N]
  * [--max-step-per-period N] [--discharge] [--safe-voltage V]: JSON with the output's cycle mean, ripple,
- * time to steady state, cycles simulated, method, and with --discharge the time to the safe voltage.
+ * time to steady state, cycles simulated, method, whether it settled with the estimated remaining drift,
+ * and with --discharge the time to the safe voltage.
  * A driver design starts warm (ladder at the engine's steady-state estimate) and runs until settled;
  * `--cold` is the push-button start from an empty ladder, `--window-ms N` simulates exactly N ms.
  */
@@ -129,6 +130,8 @@ export function simulateCommand(argv: ReadonlyArray<string>): string {
       : {}),
     cyclesSimulated: result.cyclesSimulated,
     method: result.method,
+    isSettled: result.isSettled,
+    remainingDriftV: result.remainingDriftV,
     periodicSteadyState: result.periodicSteadyState,
   };
   return JSON.stringify(summary, null, 2);

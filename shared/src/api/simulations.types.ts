@@ -71,8 +71,13 @@ export interface SimulationSummary {
   oscillationFrequencyHz?: number | null;
   /** Driver designs, cold start: time to within 1 % of the settled output (s); null when it did not settle. */
   timeTo1PercentS?: number | null;
-  /** Driver designs, cold start: the simulated time within which the output did not settle (s), else null. */
+  /**
+   * The simulated time within which the output did not settle (s), else null: a driver design's cold start,
+   * or a ladder run whose transient ended before its estimated remaining drift fell within 0.02 %.
+   */
   notSettledWithinS?: number | null;
+  /** Ladder runs: estimated change of the output mean still to come after outputMeanV (V); null when unknown. */
+  remainingDriftV?: number | null;
   /** Driver designs over whole cycles at steady state: power drawn, power into the load (W), their ratio. */
   inputPowerW?: number | null;
   outputPowerW?: number | null;

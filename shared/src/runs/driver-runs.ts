@@ -84,6 +84,7 @@ export function runDriverDesign(givenDesign: Design, options: DriverRunOptions =
     warmStartFallback,
     figures: cycles.figures,
     isSettled: settling.isSettled,
+    remainingDriftV: null,
     initialCapacitorVoltagesV: initialV,
     extrapolations: settling.extrapolations,
     outputMeanV: isFixedWindow

@@ -106,3 +106,40 @@ describe('runLadder', () => {
     expect(checks).toBe(501);
   });
 });
+
+describe('runLadder settling without a periodic steady state', () => {
+  // A 10-stage half-wave cascade whose slowest charging mode takes a few hundred cycles.
+  const cascade: LadderCircuitSpec = {
+    topology: 'half-wave',
+    cellCount: 20,
+    capacitorsF: Array<number>(20).fill(10e-9),
+    diode: { saturationCurrentA: 1e-9, emissionCoefficient: 1.8, seriesResistanceOhm: 1 },
+    drive: { kind: 'sine', peakV: 500, frequencyHz: 20e3, sourceResistanceOhm: 10 },
+    load: { kind: 'current', currentA: 100e-6 },
+  };
+  // Reference: our own transient of the same circuit and step run for 4,000 cycles, several times the
+  // slowest mode's settling (the same stepper, so the step error is common to both and cancels).
+  const long = runLadder(cascade, { until: { cycles: 4000 }, maxStepPerPeriod: 100 });
+
+  it('stops on the extrapolated rest of the approach and lands within it of a long run', () => {
+    const run = runLadder(cascade, { until: 'steady', maxStepPerPeriod: 100, isShootingUsed: false });
+    expect(run.method).toBe('transient');
+    expect(run.isSettled).toBe(true);
+    expect(run.periodicSteadyState).toBeNull();
+    expect(long.isSettled).toBe(true);
+    // Within the settling fraction (2e-4) plus margin for the estimate: 5e-4 of the long run's mean.
+    expect(Math.abs(run.outputMeanV / long.outputMeanV - 1)).toBeLessThan(5e-4);
+    // The estimated rest accounts for the gap to the long run within 5e-4 of the output.
+    expect(Math.abs(run.outputMeanV + run.remainingDriftV! - long.outputMeanV)).toBeLessThan(5e-4 * long.outputMeanV);
+  });
+
+  it('flags a run cut short as not settled, with its remaining drift estimated', () => {
+    const run = runLadder(cascade, { until: { cycles: 150 }, maxStepPerPeriod: 100 });
+    expect(run.isSettled).toBe(false);
+    const trueRestV = long.outputMeanV - run.outputMeanV;
+    // Far from settled (more than 10 % to go), and the geometric extrapolation of the slowest mode gets
+    // the rest within 30 % (the faster modes have not died out after 150 cycles).
+    expect(trueRestV).toBeGreaterThan(0.1 * long.outputMeanV);
+    expect(Math.abs(run.remainingDriftV! / trueRestV - 1)).toBeLessThan(0.3);
+  });
+});

@@ -11,6 +11,12 @@ import { chargeBalanceCapacitorVoltagesV } from '../circuits/steady-state-estima
 import { TransientStepper } from '../sim/transient';
 import { downsampleMinMax, windowMean, windowPeakToPeak } from '../sim/waveform-measures';
 import { progressReporter } from './progress-reporter';
+import { estimateRemainingApproach } from './cycle-settling';
+
+/** The transient counts as settled when the estimated rest of its approach is within this fraction of the output. */
+export const SETTLED_FRACTION = 2e-4;
+/** Cycle-mean changes below this fraction of the output are taken as no trend (the stepper's noise). */
+const NOISE_FRACTION = 1e-7;
 
 export interface LadderRunOptions {
   /** 'steady': until the cycle-mean output settles; a number: exactly that many drive cycles. */
@@ -20,6 +26,8 @@ export interface LadderRunOptions {
   dischargeToV?: number;
   /** Points kept per plotted waveform (min/max buckets). */
   plotBuckets?: number;
+  /** With 'steady': false skips the periodic steady state (shooting), so the transient alone settles the run. */
+  isShootingUsed?: boolean;
   /** Give up the start-up transient after this many cycles. */
   maxCycles?: number;
   /**
@@ -43,6 +51,16 @@ export interface LadderRunResult {
   timeToSteadyStateS: number | null;
   cyclesSimulated: number;
   periodicSteadyState: { isConverged: boolean; iterations: number; relativeResidual: number } | null;
+  /**
+   * Whether outputMeanV is the settled value: true for a converged periodic steady state, else true only
+   * when the transient's estimated remaining approach is within SETTLED_FRACTION of the output.
+   */
+  isSettled: boolean;
+  /**
+   * Estimated change of the output mean still to come after the reported value, V (0 for a converged
+   * periodic steady state); null when the last cycles show no decaying trend to extrapolate.
+   */
+  remainingDriftV: number | null;
   startUp: PlotTrace;
   ripple: PlotTrace;
   discharge: {
@@ -90,7 +108,7 @@ export function runLadder(spec: LadderCircuitSpec, options: LadderRunOptions): L
 
   // Periodic steady state first when asked for 'steady': it gives the final value the start-up aims at.
   let pss: ReturnType<typeof findPeriodicSteadyState> | null = null;
-  if (options.until === 'steady') {
+  if (options.until === 'steady' && options.isShootingUsed !== false) {
     const ideal = chargeBalanceCapacitorVoltagesV(spec);
     const charges = new Float64Array(system.reactiveCount);
     ideal.forEach((v, i) => {
@@ -125,6 +143,13 @@ export function runLadder(spec: LadderCircuitSpec, options: LadderRunOptions): L
   let area = 0;
   let prevT = 0;
   let prevV = 0;
+  // Rest of the approach from the cycle means, over a window of a quarter of the cycles so far (at least 20).
+  const remainingOf = (mean: number): number | null =>
+    estimateRemainingApproach(
+      cycleMeans,
+      Math.max(20, Math.floor(cycleMeans.length / 4)),
+      NOISE_FRACTION * Math.abs(mean),
+    ).remaining;
   while (cycles < maxCycles) {
     const end = (cycles + 1) * periodS;
     while (stepper.timeS < end * (1 - 1e-12)) {
@@ -148,15 +173,20 @@ export function runLadder(spec: LadderCircuitSpec, options: LadderRunOptions): L
     if (options.until === 'steady') {
       if (pssOk && reachedAtS === null && sign * mean >= 0.9 * sign * finalFromPss) reachedAtS = end;
       if (pssOk && reachedAtS !== null) break;
-      // Without a periodic solution: settled when the cycle mean moved less than 1e-5 per cycle over 20 cycles.
+      // Without a periodic solution: settled when the extrapolated rest of the approach (not the last
+      // cycles' move, which is small long before a slow ladder has settled) is within SETTLED_FRACTION.
       if (!pssOk && cycles > 40) {
-        const before = cycleMeans[cycles - 21]!;
-        if (Math.abs(mean - before) <= 20e-5 * Math.abs(mean)) break;
+        const rest = remainingOf(mean);
+        if (rest !== null && Math.abs(rest) <= SETTLED_FRACTION * Math.abs(mean)) break;
       }
     }
   }
   report(weights.pss + weights.startUp, true);
-  const finalMean = pssOk ? finalFromPss : cycleMeans[cycleMeans.length - 1]!;
+  const lastMean = cycleMeans[cycleMeans.length - 1]!;
+  const finalMean = pssOk ? finalFromPss : lastMean;
+  const remainingDriftV = pssOk ? 0 : remainingOf(lastMean);
+  const isSettled =
+    pssOk || (remainingDriftV !== null && Math.abs(remainingDriftV) <= SETTLED_FRACTION * Math.abs(lastMean));
   if (reachedAtS === null) {
     const target = 0.9 * finalMean;
     const idx = cycleMeans.findIndex((m) => sign * m >= sign * target);
@@ -195,6 +225,8 @@ export function runLadder(spec: LadderCircuitSpec, options: LadderRunOptions): L
     periodicSteadyState: pss
       ? { isConverged: pss.isConverged, iterations: pss.iterations, relativeResidual: pss.relativeResidual }
       : null,
+    isSettled,
+    remainingDriftV,
     startUp: downsampleMinMax(time, top, buckets),
     ripple: downsampleMinMax(ripple.timeS, ripple.values, buckets),
     discharge,

@@ -211,6 +211,9 @@ export function findPeriodicSteadyState(
       isConverged = true;
       break;
     }
+    // Stalled: eight iterations that did not cut the residual by a tenth. More of the same costs a full
+    // sensitivity period each and does not converge; say so now and leave the answer to the caller.
+    if (history.length > 8 && residual > 0.9 * history[history.length - 9]!) break;
     const before = normOf(state, q0);
     base.set(state);
     baseEnd.set(q0);

@@ -21,6 +21,9 @@ describe('ladderwright simulate', () => {
       expect.arrayContaining(['outputMeanV', 'ripplePeakToPeakV', 'timeToSteadyStateS', 'cyclesSimulated', 'method']),
     );
     expect(out.method).toBe('periodic-steady-state');
+    // A converged periodic steady state is the settled value: nothing left to drift.
+    expect(out.isSettled).toBe(true);
+    expect(out.remainingDriftV).toBe(0);
     // Textbook check (REFERENCES.md §1): n = 2, q/C = 0.5 V, ΔV0 = 0.5·(16/3 + 2 − 1/3) = 3.5 V below
     // 2n·Vmax = 4 kV; ripple (q/C)·n(n+1)/2 = 1.5 V. Within 1 % on the mean (the diodes' drop and the
     // textbook's idealization) and 50 % on the ripple (the textbook takes ideal diodes and a stiff source;

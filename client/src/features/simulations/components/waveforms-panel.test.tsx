@@ -182,4 +182,18 @@ describe('WaveformsPanel', () => {
     startRun();
     expect(await screen.findByText('Discharge to 50 V')).toBeTruthy();
   });
+
+  it('says a run that did not settle did not, with its estimated remaining drift', async () => {
+    job = succeededJob({ ...summary, notSettledWithinS: 0.4, remainingDriftV: -12 }, ladderWaveforms);
+    startRun();
+    expect(await screen.findByText('Not settled')).toBeTruthy();
+    expect(screen.getByText(/may still move by about -12 V/)).toBeTruthy();
+  });
+
+  it('shows no settling warning for a settled run', async () => {
+    job = succeededJob({ ...summary, notSettledWithinS: null, remainingDriftV: 0 }, ladderWaveforms);
+    startRun();
+    await screen.findByRole('figure', { name: 'Start-up' });
+    expect(screen.queryByText('Not settled')).toBeNull();
+  });
 });

@@ -169,6 +169,15 @@ export function WaveformsPanel({
               {result.summary.method}, {result.summary.cyclesSimulated} cycles
             </Text>
           </Group>
+          {result.summary.notSettledWithinS != null && (
+            <Alert color="yellow" title="Not settled">
+              The output had not settled within {formatQuantity(result.summary.notSettledWithinS, 's')} of simulated
+              time
+              {result.summary.remainingDriftV != null
+                ? `; it may still move by about ${formatQuantity(result.summary.remainingDriftV, 'V')} (extrapolated from the last cycles).`
+                : '; the last cycles show no steady approach to extrapolate from.'}
+            </Alert>
+          )}
           <SimpleGrid type="container" cols={{ base: 1, '720px': 2 }} spacing="md">
             <TraceChart title="Start-up" traces={tracesOf('startup')} isTimeFromZero />
             <RippleChart traces={lastCycle(outputSteadyState, cycleFrequencyHz)} />
