@@ -68,7 +68,7 @@ describe('calibration journey', () => {
     await form.getByRole('button', { name: 'Upload and compare' }).click();
     await page.getByLabel('Bench overlay').waitFor();
 
-    const panel = page.getByLabel('Calibrate');
+    const panel = page.getByLabel('Calibrate', { exact: true });
     await panel.getByLabel('Fit Transistor current gain hFE').check();
     await panel.getByLabel('Fit Prototype 3 sweep as').click();
     await page.getByRole('option', { name: 'load sweep (estimate)' }).click();
@@ -82,6 +82,10 @@ describe('calibration journey', () => {
     );
     await result.locator('.recharts-surface').first().waitFor();
     await page.screenshot({ path: resolve(screenshotDir, 'calibration-result.png'), fullPage: true });
+    await page.setViewportSize({ width: 1024, height: 768 });
+    await panel.scrollIntoViewIfNeeded();
+    await page.screenshot({ path: resolve(screenshotDir, 'calibration-result-1024.png') });
+    await page.setViewportSize({ width: 1440, height: 900 });
 
     await panel.getByRole('button', { name: 'Start revision from calibrated model' }).click();
     await page.waitForURL(new RegExp(`/designs/${design.id}\\?rev=${latest + 1}$`));

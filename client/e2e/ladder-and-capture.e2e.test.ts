@@ -90,7 +90,9 @@ describe.each([
     // Twenty capacitors and twenty diodes, each named.
     expect(result.count).toBeGreaterThan(40);
     expect(result.overlaps).toEqual([]);
-    await page.screenshot({ path: resolve(screenshotDir, `ten-stage-${viewport.width}.png`), fullPage: true });
+    const figure = page.locator('svg[data-schematic]');
+    await figure.scrollIntoViewIfNeeded();
+    await page.screenshot({ path: resolve(screenshotDir, `ten-stage-${viewport.width}.png`) });
     expect(pageErrors).toEqual([]);
   });
 

@@ -124,6 +124,60 @@ describe('team administration journeys', () => {
     for (const one of people) expect(one.errors).toEqual([]);
   }, 120_000);
 
+  it('engineer asks for a member, the lead accepts from the Inbox, and the new member sees the project', async () => {
+    const project = 'Range-hood precipitator cell';
+    const engineer = await signedIn('engineer@northfold.test');
+    let page = engineer.page;
+    await page.getByRole('main').getByRole('link', { name: project }).first().click();
+    await page.getByRole('navigation', { name: 'Projects' }).getByRole('link', { name: 'Members' }).click();
+    await page.getByRole('heading', { name: 'Members', level: 1 }).waitFor();
+    await page.getByRole('textbox', { name: /^E-mail/ }).fill(newcomer.email);
+    await page.getByLabel('Note for the leads').fill('Takes over the bench tests of the cell from next week.');
+    await page.getByRole('button', { name: 'Send request' }).click();
+    const asked = page
+      .getByRole('table', { name: 'Member requests' })
+      .getByRole('row')
+      .filter({ hasText: newcomer.email });
+    await asked.waitFor();
+    expect(await asked.textContent()).toContain('pending');
+    await shot(page, 'team-12-member-request-sent-1440.png');
+    await page.setViewportSize({ width: 1024, height: 768 });
+    await shot(page, 'team-13-member-request-sent-1024.png');
+
+    const lead = await signedIn('lead@northfold.test');
+    page = lead.page;
+    await page.getByRole('link', { name: /^Inbox, \d+ waiting$/ }).click();
+    await page.getByRole('heading', { name: 'Member requests' }).waitFor();
+    await shot(page, 'team-14-inbox-member-request-1440.png');
+    await page.getByRole('table', { name: 'Member requests' }).getByRole('link', { name: newcomer.email }).click();
+    await page.getByRole('heading', { name: 'Members', level: 1 }).waitFor();
+    const pending = page
+      .getByRole('table', { name: 'Member requests' })
+      .getByRole('row')
+      .filter({ hasText: newcomer.email });
+    await shot(page, 'team-15-members-pending-1440.png');
+    await pending.getByRole('button', { name: 'Accept' }).click();
+    await page.getByRole('table', { name: 'Members' }).getByRole('row').filter({ hasText: newcomer.email }).waitFor();
+    await expect.poll(() => pending.textContent(), { timeout: 10_000 }).toContain('accepted');
+    await page.setViewportSize({ width: 1024, height: 768 });
+    await shot(page, 'team-16-members-accepted-1024.png');
+
+    const member = await open(1024, 768);
+    await member.page.goto(`${baseUrl}/sign-in`);
+    await submitSignIn(member.page, newcomer.email, newcomer.resetPassword);
+    await member.page.getByRole('heading', { name: 'Projects', level: 1 }).waitFor();
+    await member.page.getByRole('main').getByRole('link', { name: project }).first().waitFor();
+
+    // The engineer sees the outcome of the request.
+    await engineer.page.reload();
+    const outcome = engineer.page
+      .getByRole('table', { name: 'Member requests' })
+      .getByRole('row')
+      .filter({ hasText: newcomer.email });
+    await expect.poll(() => outcome.textContent(), { timeout: 10_000 }).toContain('accepted by Northfold Lead');
+    for (const one of people) expect(one.errors).toEqual([]);
+  }, 120_000);
+
   it('blocks an engineer submitting a failing revision, then submits it with an override shown on the spec sheet', async () => {
     const engineer = await signedIn('engineer@northfold.test');
     const page = engineer.page;

@@ -124,6 +124,16 @@ describe('workbench journey', () => {
       .waitFor({ timeout: 120_000 });
     await page.getByRole('figure', { name: 'Discharge' }).locator('path.recharts-line-curve').first().waitFor();
     await shot(page, 'workbench-06-waveforms.png');
+    // The finished run is the revision's current simulation: the headline figures now come from it and say so.
+    await page.getByText('server result of r2 · figures from simulation').waitFor();
+    const output = page.getByRole('listitem', { name: 'Output (mean, loaded)' });
+    await expect(output.getAttribute('data-source')).resolves.toBe('simulation');
+    await output.getByText('from simulation').waitFor();
+    await page.getByRole('tab', { name: 'Checks' }).click();
+    await page.getByText(/rests on the stored simulation of this revision|Every check rests on the estimate/).waitFor();
+    await page.getByRole('tab', { name: 'Waveforms' }).click();
+    await page.getByText(/The headline figures come from the full simulation of r2 that finished/).waitFor();
+    await shot(page, 'workbench-07-from-simulation.png');
     expect(pageErrors).toEqual([]);
   }, 200_000);
 

@@ -28,6 +28,7 @@ import { DesignsModule } from './designs/designs.module';
 import { HealthModule } from './health/health.module';
 import { MailModule } from './mail/mail.module';
 import { PartsModule } from './parts/parts.module';
+import { MemberRequestsModule } from './member-requests/member-requests.module';
 import { ProjectsModule } from './projects/projects.module';
 import { ReviewsModule } from './reviews/reviews.module';
 import { SpecSheetsModule } from './spec-sheets/spec-sheets.module';
@@ -52,6 +53,7 @@ export class AppModule {
         UsersModule,
         AuthModule,
         ProjectsModule,
+        MemberRequestsModule,
         HealthModule,
         MailModule,
         ReviewsModule,
@@ -92,6 +94,9 @@ export async function createApp(
 export function configureApp(app: NestExpressApplication, env: AppEnv): void {
   app.setGlobalPrefix(API_PREFIX);
   app.disable('x-powered-by');
+  // Off unless TRUST_PROXY names the reverse proxies: then request.ip (the per-address sign-in limit, the audit's
+  // client address) is the visitor's from X-Forwarded-For, not the proxy's.
+  app.set('trust proxy', typeof env.trustProxy === 'object' ? [...env.trustProxy] : env.trustProxy);
   // First: a change sent by a page of another origin is refused before its body is read.
   app.use(sameOriginOnly(env));
   // Before any route: an oversized body is refused from its Content-Length (413), unread.

@@ -102,6 +102,31 @@ describe('sign-in: per-address and global limits (@nestjs/throttler, counters in
     }
   });
 
+  it('behind a trusted proxy, counts per visitor from X-Forwarded-For; untrusted, the header changes nothing', async () => {
+    const attempt = (app: TestApp, visitor: string, i: number) =>
+      request(app.app.getHttpServer())
+        .post('/api/auth/sign-in')
+        .set('X-Forwarded-For', visitor)
+        .send({ email: `visitor-${i}@northfold.test`, password: WRONG });
+    const behindProxy = await createTestApp({ env: { signInPerAddressPerMin: 3, trustProxy: ['loopback'] } });
+    try {
+      for (let i = 1; i <= 3; i += 1) expect((await attempt(behindProxy, '203.0.113.7', i)).status).toBe(401);
+      expect((await attempt(behindProxy, '203.0.113.7', 4)).status).toBe(429);
+      // Another visitor through the same proxy keeps a budget of its own.
+      expect((await attempt(behindProxy, '198.51.100.9', 5)).status).toBe(401);
+    } finally {
+      await behindProxy.close();
+    }
+    const direct = await createTestApp({ env: { signInPerAddressPerMin: 3 } });
+    try {
+      // Off by default: a client cannot pick a fresh address per attempt by sending the header.
+      for (let i = 1; i <= 3; i += 1) expect((await attempt(direct, `192.0.2.${i}`, i)).status).toBe(401);
+      expect((await attempt(direct, '192.0.2.99', 4)).status).toBe(429);
+    } finally {
+      await direct.close();
+    }
+  });
+
   it('counts every instance against the same limits: 3 + 3 attempts on two apps meet a limit of 5', async () => {
     const first = await createTestApp({ env: { signInPerMin: 5 } });
     const second = await createTestApp({ env: { signInPerMin: 5 }, prepareDatabase: false });

@@ -89,6 +89,9 @@ export const apiPaths = {
   auditCsv: '/api/audit/export.csv',
   notificationSettings: '/api/me/notifications',
   projectMembers: (projectId: string) => `/api/projects/${encodeURIComponent(projectId)}/members`,
+  memberRequests: (projectId: string) => `/api/projects/${encodeURIComponent(projectId)}/member-requests`,
+  memberRequestDecision: (projectId: string, requestId: string, decision: 'accept' | 'decline') =>
+    `/api/projects/${encodeURIComponent(projectId)}/member-requests/${encodeURIComponent(requestId)}/${decision}`,
   projectMember: (projectId: string, userId: string) =>
     `/api/projects/${encodeURIComponent(projectId)}/members/${encodeURIComponent(userId)}`,
   archiveProject: (projectId: string) => `/api/projects/${encodeURIComponent(projectId)}/archive`,

@@ -16,6 +16,7 @@ export const queryKeys = {
     all: ['projects'] as const,
     list: () => [...queryKeys.projects.all, 'list'] as const,
     detail: (projectId: string) => [...queryKeys.projects.all, 'detail', projectId] as const,
+    memberRequests: (projectId: string) => [...queryKeys.projects.all, 'memberRequests', projectId] as const,
   },
   designs: {
     all: ['designs'] as const,

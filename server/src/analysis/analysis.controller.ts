@@ -1,6 +1,6 @@
-import { Body, Controller, Get, HttpCode, Post } from '@nestjs/common';
+import { Body, Controller, Get, Header, HttpCode, Post } from '@nestjs/common';
 import { ApiBadRequestResponse, ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
-import type { DesignTemplate, EvaluateResponse } from '@ladderwright/shared/api';
+import type { DesignTemplate } from '@ladderwright/shared/api';
 import { designDocumentSchema } from '@ladderwright/shared/designs';
 import { AnalysisService } from './analysis.service';
 import { EvaluateDesignDto } from './dto/evaluate-design.dto';
@@ -14,10 +14,11 @@ export class AnalysisController {
 
   @Post('analysis/evaluate')
   @HttpCode(200)
+  @Header('Content-Type', 'application/json; charset=utf-8')
   @ApiOkResponse({ description: "The engine's report for the document, with the engine version." })
   @ApiBadRequestResponse({ description: 'The document is not valid; `issues[]` names every field, under `document.`.' })
-  evaluate(@Body() body: EvaluateDesignDto): Promise<EvaluateResponse> {
-    return this.analysis.evaluate(this.analysis.parseDocument(body.document, 'document'));
+  evaluate(@Body() body: EvaluateDesignDto): Promise<string> {
+    return this.analysis.evaluateJson(body.document, 'document');
   }
 
   @Get('design-schema')

@@ -1,7 +1,7 @@
 import { Inject, Injectable } from '@nestjs/common';
 import type { DesignReportBody, DesignTemplate, EvaluateResponse, ResultDifference } from '@ladderwright/shared/api';
 import { validateDesign, type Design } from '@ladderwright/shared/designs';
-import { DomainError, isDomainError } from '@ladderwright/shared/errors';
+import { DomainError, isDomainError, prefixedFieldPath } from '@ladderwright/shared/errors';
 import { resolveDrive } from '@ladderwright/shared/analysis';
 import { ENGINE_VERSION } from '@ladderwright/shared/multiplier';
 import type { ShelfPart } from '@ladderwright/shared/parts';
@@ -49,17 +49,12 @@ function figureValue(report: unknown, key: string): number | null {
   return typeof node === 'number' && Number.isFinite(node) ? node : null;
 }
 
-function prefixPath(prefix: string, path: string): string {
-  if (!prefix) return path;
-  return path === '(document)' || path === '' ? prefix : `${prefix}.${path}`;
-}
-
 /** A DomainError with its field paths under `fieldPrefix`; any other error as it is. */
 function prefixed(error: unknown, fieldPrefix: string): unknown {
   if (!isDomainError(error)) return error;
   if (error.code === 'budget_exceeded') return error;
-  const issues = error.issues.map((issue) => ({ ...issue, path: prefixPath(fieldPrefix, issue.path) }));
-  const field = prefixPath(fieldPrefix, error.field ?? '') || fieldPrefix || null;
+  const issues = error.issues.map((issue) => ({ ...issue, path: prefixedFieldPath(fieldPrefix, issue.path) }));
+  const field = prefixedFieldPath(fieldPrefix, error.field ?? '') || fieldPrefix || null;
   const summary = issues.map((issue) => `${issue.path}: ${issue.message}`).join('; ');
   const message = issues.length > 0 ? `design is not valid: ${summary}` : error.message;
   return new DomainError(error.code, message, field, issues);
@@ -107,8 +102,28 @@ export class AnalysisService {
    * `report.partIssues`.
    */
   async evaluate(design: Design, fieldPrefix = 'document', shelf?: readonly ShelfPart[]): Promise<EvaluateResponse> {
+    const report = await this.analyze(design, fieldPrefix, shelf, 'object');
+    return { engineVersion: this.engineVersion, report: report as DesignReportBody };
+  }
+
+  /**
+   * `evaluate` as the JSON text of its answer, for routes that only send it on: the worker serialises the report,
+   * so it crosses the thread boundary as one string and is never copied or serialised on this thread. The
+   * document is validated on the worker (as every engine task is), with the same 400 naming the field.
+   */
+  async evaluateJson(document: unknown, fieldPrefix = 'document', shelf?: readonly ShelfPart[]): Promise<string> {
+    const report = await this.analyze(document as Design, fieldPrefix, shelf, 'json');
+    return `{"engineVersion":${JSON.stringify(this.engineVersion)},"report":${report as string}}`;
+  }
+
+  private async analyze(
+    design: Design,
+    fieldPrefix: string,
+    shelf: readonly ShelfPart[] | undefined,
+    reportAs: 'object' | 'json',
+  ): Promise<unknown> {
     const outcome = await this.withFieldPrefixAsync(fieldPrefix, () =>
-      this.engine.run({ kind: 'analyze', document: design, ...(shelf ? { shelf } : {}) }),
+      this.engine.run({ kind: 'analyze', document: design, reportAs, ...(shelf ? { shelf } : {}) }),
     );
     if (!outcome.ok) {
       const { code, message, field, issues } = outcome.error;
@@ -116,7 +131,7 @@ export class AnalysisService {
         throw new DomainError(code, message, field, issues);
       });
     }
-    return { engineVersion: this.engineVersion, report: outcome.report as DesignReportBody };
+    return outcome.report;
   }
 
   /** The document with its secondary as the engine resolves it: a driver stage becomes its pulse estimate. */

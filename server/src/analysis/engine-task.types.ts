@@ -7,6 +7,8 @@ export interface EngineTask {
   kind: 'analyze';
   document: Design;
   shelf?: readonly ShelfPart[];
+  /** 'json': the report comes back as its JSON text, which crosses the thread boundary as one string. */
+  reportAs?: 'object' | 'json';
 }
 
 /** A no-op task that starts a thread, so its start-up is not charged to a request's budget. */

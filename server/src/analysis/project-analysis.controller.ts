@@ -1,6 +1,5 @@
-import { Body, Controller, HttpCode, Post } from '@nestjs/common';
+import { Body, Controller, Header, HttpCode, Post } from '@nestjs/common';
 import { ApiBadRequestResponse, ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
-import type { EvaluateResponse } from '@ladderwright/shared/api';
 import { AllowedWhenArchived } from '../common/decorators/allowed-when-archived.decorator';
 import { ProjectMembership } from '../common/decorators/project-membership.decorator';
 import type { ProjectMembership as Membership } from '../common/request.types';
@@ -20,17 +19,14 @@ export class ProjectAnalysisController {
 
   @Post('evaluate')
   @HttpCode(200)
+  @Header('Content-Type', 'application/json; charset=utf-8')
   @AllowedWhenArchived()
   @ApiOkResponse({
     description:
       "The engine's report with the shelf's ratings filled in by partCode; unknown codes in `report.partIssues`.",
   })
   @ApiBadRequestResponse({ description: 'The document is not valid; `issues[]` names every field, under `document.`.' })
-  async evaluate(
-    @ProjectMembership() membership: Membership,
-    @Body() body: EvaluateDesignDto,
-  ): Promise<EvaluateResponse> {
-    const design = this.analysis.parseDocument(body.document, 'document');
-    return this.analysis.evaluate(design, 'document', await this.parts.shelf(membership.projectId));
+  async evaluate(@ProjectMembership() membership: Membership, @Body() body: EvaluateDesignDto): Promise<string> {
+    return this.analysis.evaluateJson(body.document, 'document', await this.parts.shelf(membership.projectId));
   }
 }

@@ -35,6 +35,20 @@ describe('parseEnv', () => {
     expect(env).toMatchObject({ port: 9090, seedDemo: true, smtpPort: 2525, clientDistDir: '/srv/client' });
   });
 
+  it('believes no proxy by default; TRUST_PROXY takes a hop count or named proxies, never everyone', () => {
+    expect(parseEnv({ JWT_SECRET: SECRET }).trustProxy).toBe(false);
+    expect(parseEnv({ JWT_SECRET: SECRET, TRUST_PROXY: 'off' }).trustProxy).toBe(false);
+    expect(parseEnv({ JWT_SECRET: SECRET, TRUST_PROXY: '1' }).trustProxy).toBe(1);
+    expect(parseEnv({ JWT_SECRET: SECRET, TRUST_PROXY: 'loopback, 10.0.0.0/8, fd00::1' }).trustProxy).toEqual([
+      'loopback',
+      '10.0.0.0/8',
+      'fd00::1',
+    ]);
+    expect(() => parseEnv({ JWT_SECRET: SECRET, TRUST_PROXY: 'true' })).toThrow(/TRUST_PROXY must name the proxies/);
+    expect(() => parseEnv({ JWT_SECRET: SECRET, TRUST_PROXY: 'proxy.example' })).toThrow(/got 'proxy.example'/);
+    expect(() => parseEnv({ JWT_SECRET: SECRET, TRUST_PROXY: '11' })).toThrow(/TRUST_PROXY must be an integer/);
+  });
+
   it('names every bad variable in one error', () => {
     const attempt = () => parseEnv({ JWT_SECRET: 'short', PORT: 'eighty', SEED_DEMO: 'maybe' });
     expect(attempt).toThrow(EnvError);

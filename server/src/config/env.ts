@@ -58,6 +58,12 @@ export interface AppEnv {
   readonly engineBudgetMs: number;
   /** Accepts the fault-injection simulation kinds (test runs only). */
   readonly simulationFaultKinds: boolean;
+  /**
+   * The reverse proxies whose `X-Forwarded-For` is believed (Express "trust proxy"), so that the client address
+   * (per-address sign-in limit, audit) is the visitor's and not the proxy's: false (off, the default), a number of
+   * proxy hops, or addresses, subnets and the names loopback, linklocal, uniquelocal.
+   */
+  readonly trustProxy: false | number | readonly string[];
 }
 
 /** Nest injection token for the `AppEnv` of the running app. */
@@ -66,6 +72,8 @@ export const APP_ENV = Symbol('APP_ENV');
 export const JWT_SECRET_MIN_LENGTH = 32;
 const SERVER_DIR = resolve(__dirname, '..', '..');
 const LOOPBACK_HOSTS = new Set(['127.0.0.1', 'localhost', '::1']);
+/** The named address ranges Express's "trust proxy" understands besides addresses and subnets. */
+const TRUST_PROXY_NAMES = new Set(['loopback', 'linklocal', 'uniquelocal']);
 
 export class EnvError extends Error {
   constructor(readonly problems: string[]) {
@@ -111,6 +119,26 @@ export function parseEnv(source: EnvSource): AppEnv {
         problems.push(`${name} must list origins like https://host:port (got '${origin}')`);
     }
     return list;
+  };
+  const proxies = (name: string): false | number | readonly string[] => {
+    const raw = text(name);
+    const lower = raw?.toLowerCase();
+    if (raw === undefined || lower === undefined || ['0', 'false', 'no', 'off'].includes(lower)) return false;
+    if (/^\d+$/.test(raw)) return integer(name, null, 1, 10) ?? false;
+    if (['true', 'yes', 'on', 'all'].includes(lower)) {
+      problems.push(
+        `${name} must name the proxies (addresses, subnets, loopback) or a hop count: believing every sender would let any client choose its address`,
+      );
+      return false;
+    }
+    const list = raw.split(',').map((item) => item.trim());
+    for (const item of list) {
+      if (!TRUST_PROXY_NAMES.has(item) && !/^[0-9a-fA-F:.]+(\/\d{1,3})?$/.test(item))
+        problems.push(
+          `${name} must list addresses, subnets or loopback, linklocal, uniquelocal, or be a hop count (got '${item}')`,
+        );
+    }
+    return Object.freeze(list);
   };
   const dir = (name: string, fallback: string): string => {
     const raw = text(name) ?? fallback;
@@ -163,6 +191,7 @@ export function parseEnv(source: EnvSource): AppEnv {
     engineWorkers: integer('ENGINE_WORKERS', 1, 1, 8) ?? 1,
     engineBudgetMs: integer('ENGINE_BUDGET_MS', 5_000, 1, 600_000) ?? 5_000,
     simulationFaultKinds: text('NODE_ENV') === 'test',
+    trustProxy: proxies('TRUST_PROXY'),
   };
   if (problems.length > 0) throw new EnvError(problems);
   return Object.freeze(env);

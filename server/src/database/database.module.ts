@@ -7,6 +7,7 @@ import { BenchRunFileModel } from '../bench-runs/bench-run-file.model';
 import { BenchRunModel } from '../bench-runs/bench-run.model';
 import { DesignModel } from '../designs/design.model';
 import { PartModel } from '../parts/part.model';
+import { MemberRequestModel } from '../member-requests/member-request.model';
 import { ProjectMemberModel } from '../projects/project-member.model';
 import { ProjectModel } from '../projects/project.model';
 import { SimulationJobModel } from '../simulations/simulation-job.model';
@@ -30,6 +31,7 @@ export const ALL_MODELS = [
   PasswordResetLinkModel,
   ProjectModel,
   ProjectMemberModel,
+  MemberRequestModel,
   DesignModel,
   RevisionModel,
   PartModel,

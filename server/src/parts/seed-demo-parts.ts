@@ -14,6 +14,15 @@ const materialM1 = {
   steinmetzBeta: 2.5,
 } as const;
 
+/** A high-permeability demo ferrite: more AL per turn², less saturation and more loss than M1 (invented). */
+const materialM2 = {
+  saturationFluxDensity25T: '420 mT',
+  saturationFluxDensity100T: '320 mT',
+  steinmetzK: 3,
+  steinmetzAlpha: 1.4,
+  steinmetzBeta: 2.5,
+} as const;
+
 /** Invented Northfold shelf parts (codes as the demo designs reference them); costs are invented too. */
 const DEMO_PARTS: readonly Partial<DemoPart>[] = [
   {
@@ -169,6 +178,24 @@ const DEMO_PARTS: readonly Partial<DemoPart>[] = [
     ratedPowerW: '0.9',
     unitCost: 0.11,
     sizeMm: '5x4x2',
+  },
+  {
+    code: 'NF-KE13-M2',
+    kind: 'core',
+    description: 'Ferrite E core 13x7x4 with bobbin, high-permeability ferrite M2',
+    valueSi: '5µ',
+    tolerance: '25%',
+    ratedVoltageV: '3 kV',
+    unitCost: 0.4,
+    sizeMm: '13x7x4',
+    ...materialM2,
+    coreAreaM2: '12.4 mm²',
+    corePathLengthM: '29.7 mm',
+    coreVolumeM3: '369 mm³',
+    windowAreaM2: '16.5 mm²',
+    bobbinBreadthM: '7.5 mm',
+    bobbinHeightM: '2.2 mm',
+    meanTurnLengthM: '25 mm',
   },
   {
     code: 'NF-KP14-M1',

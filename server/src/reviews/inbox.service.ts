@@ -1,7 +1,8 @@
 import { Injectable } from '@nestjs/common';
 import { QueryTypes } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
-import type { Inbox, InboxComment, InboxItem } from '@ladderwright/shared/api';
+import type { Inbox, InboxComment, InboxItem, InboxMemberRequest } from '@ladderwright/shared/api';
+import type { ProjectRole } from '@ladderwright/shared/auth';
 import type { RevisionState } from '@ladderwright/shared/reviews';
 
 interface InboxRow {
@@ -29,7 +30,40 @@ interface CommentRow {
   at: Date;
 }
 
+interface MemberRequestRow {
+  project_id: string;
+  project_name: string;
+  request_id: string;
+  email: string;
+  role: ProjectRole;
+  requester_name: string | null;
+  created_at: Date;
+}
+
 const INBOX_LIMIT = 200;
+
+/** Pending member requests in the projects I lead (not archived), oldest first. */
+const SELECT_MEMBER_REQUESTS = `
+  SELECT p.id AS project_id, p.name AS project_name, q.id AS request_id, q.email, q.role,
+         u.display_name AS requester_name, q.created_at
+    FROM member_requests q
+    JOIN projects p ON p.id = q.project_id
+    JOIN project_members me ON me.project_id = p.id AND me.user_id = :userId AND me.role = 'lead'
+    LEFT JOIN users u ON u.id = q.requester_id
+   WHERE q.state = 'pending' AND p.archived_at IS NULL
+   ORDER BY q.created_at ASC LIMIT ${INBOX_LIMIT}`;
+
+function toMemberRequest(row: MemberRequestRow): InboxMemberRequest {
+  return {
+    projectId: row.project_id,
+    projectName: row.project_name,
+    requestId: row.request_id,
+    email: row.email,
+    role: row.role,
+    requesterName: row.requester_name ?? '(a removed account)',
+    createdAt: new Date(row.created_at).toISOString(),
+  };
+}
 
 const SELECT_ITEMS = `
   SELECT p.id AS project_id, p.name AS project_name, d.id AS design_id, d.name AS design_name, r.number, r.state,
@@ -102,29 +136,36 @@ export class InboxService {
           type: QueryTypes.SELECT,
         })
         .then((rows) => rows.map(toItem));
-    const [waitingForMe, returnedToMe, awaitingRelease, submittedByMe, newComments] = await Promise.all([
-      items(`WHERE r.state = 'submitted' AND p.archived_at IS NULL
+    const [waitingForMe, returnedToMe, awaitingRelease, submittedByMe, newComments, memberRequests] = await Promise.all(
+      [
+        items(`WHERE r.state = 'submitted' AND p.archived_at IS NULL
                AND EXISTS (SELECT 1 FROM revision_reviewers rr WHERE rr.revision_id = r.id AND rr.user_id = :userId)
              ORDER BY submitted_at ASC NULLS LAST`),
-      items(`WHERE r.state = 'returned' AND r.author_id = :userId AND p.archived_at IS NULL
+        items(`WHERE r.state = 'returned' AND r.author_id = :userId AND p.archived_at IS NULL
                AND r.number = d.latest_revision_number
              ORDER BY r.updated_at DESC`),
-      items(`WHERE r.state = 'approved' AND me.role = 'lead' AND p.archived_at IS NULL
+        items(`WHERE r.state = 'approved' AND me.role = 'lead' AND p.archived_at IS NULL
              ORDER BY r.updated_at ASC`),
-      items(`WHERE r.author_id = :userId
+        items(`WHERE r.author_id = :userId
                AND EXISTS (SELECT 1 FROM revision_transitions t WHERE t.revision_id = r.id AND t.command = 'submit')
              ORDER BY r.updated_at DESC`),
-      this.sequelize
-        .query<CommentRow>(SELECT_COMMENTS, { replacements: { userId }, type: QueryTypes.SELECT })
-        .then((rows) => rows.map(toComment)),
-    ]);
+        this.sequelize
+          .query<CommentRow>(SELECT_COMMENTS, { replacements: { userId }, type: QueryTypes.SELECT })
+          .then((rows) => rows.map(toComment)),
+        this.sequelize
+          .query<MemberRequestRow>(SELECT_MEMBER_REQUESTS, { replacements: { userId }, type: QueryTypes.SELECT })
+          .then((rows) => rows.map(toMemberRequest)),
+      ],
+    );
     return {
       waitingForMe,
       returnedToMe,
       awaitingRelease,
       newComments,
       submittedByMe,
-      actionCount: waitingForMe.length + returnedToMe.length + awaitingRelease.length + newComments.length,
+      memberRequests,
+      actionCount:
+        waitingForMe.length + returnedToMe.length + awaitingRelease.length + newComments.length + memberRequests.length,
     };
   }
 }

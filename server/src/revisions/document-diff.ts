@@ -1,4 +1,5 @@
 import type { InputDifference } from '@ladderwright/shared/api';
+import { fieldPath } from '@ladderwright/shared/errors';
 
 /**
  * Leaf values of a JSON value by path, in the notation of the validator's field issues:
@@ -9,9 +10,9 @@ export function flattenLeaves(value: unknown, prefix = ''): Map<string, unknown>
   const leaves = new Map<string, unknown>();
   const visit = (node: unknown, path: string): void => {
     if (Array.isArray(node) && node.length > 0) {
-      node.forEach((item, index) => visit(item, `${path}[${index}]`));
+      node.forEach((item, index) => visit(item, fieldPath(path, index)));
     } else if (typeof node === 'object' && node !== null && Object.keys(node).length > 0) {
-      for (const [key, child] of Object.entries(node)) visit(child, path ? `${path}.${key}` : key);
+      for (const [key, child] of Object.entries(node)) visit(child, fieldPath(path, key));
     } else {
       leaves.set(path, node);
     }

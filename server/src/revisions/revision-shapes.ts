@@ -28,6 +28,41 @@ export function toRevisionDetail(revision: RevisionModel, projectId: string): Re
   };
 }
 
+/** A revision row as `RevisionsService.getJson` reads it: the jsonb columns as their stored text. */
+export interface RevisionDetailRow {
+  number: number;
+  state: RevisionDetail['state'];
+  authorId: string;
+  authorName: string;
+  createdAt: Date | string;
+  changeNote: string;
+  baseRevisionNumber: number | null;
+  engineVersion: string;
+  designId: string;
+  document: string;
+  report: string;
+}
+
+/**
+ * `toRevisionDetail` as JSON text, with the stored document and report spliced in as PostgreSQL prints them:
+ * same keys in the same order, and no parse and re-serialisation of the two largest values.
+ */
+export function revisionDetailJson(row: RevisionDetailRow, projectId: string): string {
+  const head: Omit<RevisionDetail, 'document' | 'report'> = {
+    number: row.number,
+    state: row.state,
+    authorId: row.authorId,
+    authorName: row.authorName,
+    createdAt: new Date(row.createdAt).toISOString(),
+    changeNote: row.changeNote,
+    baseRevisionNumber: row.baseRevisionNumber,
+    engineVersion: row.engineVersion,
+    designId: row.designId,
+    projectId,
+  };
+  return `${JSON.stringify(head).slice(0, -1)},"document":${row.document},"report":${row.report}}`;
+}
+
 /** A file-name stem from a design name: lower-case letters, digits and dashes. */
 export function fileStem(name: string): string {
   const stem = name

@@ -1,4 +1,4 @@
-import { Body, Controller, Get, Param, Post, Res, UseFilters } from '@nestjs/common';
+import { Body, Controller, Get, Header, Param, Post, Res, UseFilters } from '@nestjs/common';
 import { ApiConflictResponse, ApiCookieAuth, ApiOkResponse, ApiParam, ApiProduces, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 import type { CurrentUser as SessionUser, RevisionDetail, RevisionSummary } from '@ladderwright/shared/api';
@@ -43,9 +43,13 @@ export class RevisionsController {
     return this.revisions.save({ projectId: membership.projectId, designId, request: body, authorId: user.id });
   }
 
+  /** The detail as JSON text: the stored document and report go out as PostgreSQL holds them, unparsed. */
   @Get(':revisionNumber')
-  detail(@RevisionRef() ref: RevisionRef): Promise<RevisionDetail> {
-    return this.revisions.get(ref);
+  @Header('Content-Type', 'application/json; charset=utf-8')
+  @ApiProduces('application/json')
+  @ApiOkResponse({ description: 'The revision: summary, designId, projectId, the stored document and its report.' })
+  detail(@RevisionRef() ref: RevisionRef): Promise<string> {
+    return this.revisions.getJson(ref);
   }
 
   @Get(':revisionNumber/export')

@@ -1,6 +1,6 @@
 import { Inject, Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
-import type { Transaction } from 'sequelize';
+import { QueryTypes, type Transaction } from 'sequelize';
 import pLimit, { type Limit } from 'p-limit';
 import { Sequelize } from 'sequelize-typescript';
 import type {
@@ -23,7 +23,13 @@ import { differences } from './document-diff';
 import { UserModel } from '../users/user.model';
 import { RevisionLookupService } from './revision-lookup.service';
 import type { RevisionRef } from './revision-ref.decorator';
-import { fileStem, toRevisionDetail, toRevisionSummary } from './revision-shapes';
+import {
+  fileStem,
+  revisionDetailJson,
+  toRevisionDetail,
+  toRevisionSummary,
+  type RevisionDetailRow,
+} from './revision-shapes';
 import { RevisionModel } from './revision.model';
 import { StaleBaseException } from './stale-base.filter';
 
@@ -112,6 +118,27 @@ export class RevisionsService {
   async get(ref: RevisionRef): Promise<RevisionDetail> {
     const { revision } = await this.lookup.find(ref);
     return toRevisionDetail(revision, ref.projectId);
+  }
+
+  /**
+   * `get` as JSON text, read in one query with the document and report as stored text (never parsed here).
+   * When the row is not there, `lookup.find` answers the 404 naming the field, as `get` does.
+   */
+  async getJson(ref: RevisionRef): Promise<string> {
+    const rows = await this.sequelize.query<RevisionDetailRow>(
+      `SELECT r.number, r.state, r.author_id AS "authorId", u.display_name AS "authorName",
+              r.created_at AS "createdAt", r.change_note AS "changeNote",
+              r.base_revision_number AS "baseRevisionNumber", r.engine_version AS "engineVersion",
+              r.design_id AS "designId", r.document::text AS document, r.report::text AS report
+         FROM designs d
+         JOIN revisions r ON r.design_id = d.id AND r.number = :revisionNumber
+         JOIN users u ON u.id = r.author_id
+        WHERE d.id = :designId AND d.project_id = :projectId`,
+      { replacements: { ...ref }, type: QueryTypes.SELECT },
+    );
+    const row = rows[0];
+    if (row) return revisionDetailJson(row, ref.projectId);
+    return JSON.stringify(await this.get(ref));
   }
 
   /**

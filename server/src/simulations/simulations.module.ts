@@ -1,5 +1,6 @@
 import { Module } from '@nestjs/common';
 import { SequelizeModule } from '@nestjs/sequelize';
+import { AnalysisModule } from '../analysis/analysis.module';
 import { RevisionsModule } from '../revisions/revisions.module';
 import { CalibrationRunService } from './calibration-run.service';
 import { CurrentSimulationController } from './current-simulation.controller';
@@ -13,7 +14,7 @@ import { SimulationsService } from './simulations.service';
 
 /** Simulation jobs: queued in PostgreSQL (pg-boss), run on worker threads (piscina), read by polling. */
 @Module({
-  imports: [SequelizeModule.forFeature([SimulationJobModel]), RevisionsModule],
+  imports: [SequelizeModule.forFeature([SimulationJobModel]), AnalysisModule, RevisionsModule],
   controllers: [SimulationsController, CurrentSimulationController],
   providers: [
     SimulationsService,

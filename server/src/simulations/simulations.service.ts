@@ -7,11 +7,12 @@ import type {
   SimulationOptions,
   StartSimulationResponse,
 } from '@ladderwright/shared/api';
-import { type Design, validateDesign } from '@ladderwright/shared/designs';
-import { DomainError, isDomainError } from '@ladderwright/shared/errors';
+import type { Design } from '@ladderwright/shared/designs';
+import { DomainError } from '@ladderwright/shared/errors';
 import { APP_ENV, type AppEnv } from '../config/env';
 import { RetryLaterException } from '../common/filters/domain-error.filter';
 import { isUuid } from '../common/uuid';
+import { AnalysisService } from '../analysis/analysis.service';
 import { RevisionsService } from '../revisions/revisions.service';
 import { SIMULATION_KINDS, type StartSimulationDto } from './dto/start-simulation.dto';
 import { SimulationJobModel, type SimulationJobKind } from './simulation-job.model';
@@ -47,6 +48,7 @@ export class SimulationsService {
     private readonly queue: SimulationQueueService,
     private readonly runner: SimulationRunnerService,
     private readonly revisions: RevisionsService,
+    private readonly analysis: AnalysisService,
     private readonly sequelize: Sequelize,
   ) {}
 
@@ -221,19 +223,7 @@ export class SimulationsService {
       });
       return { document: revision.document, designId: revision.designId, revisionNumber: revision.number };
     }
-    try {
-      return { document: validateDesign(body.document), designId: null, revisionNumber: null };
-    } catch (error) {
-      if (!isDomainError(error)) throw error;
-      const issues = error.issues.map((issue) => ({ path: `document.${issue.path}`, message: issue.message }));
-      const first = issues[0];
-      throw new DomainError(
-        error.code,
-        first ? `${first.path}: ${first.message}` : error.message,
-        first?.path ?? 'document',
-        issues,
-      );
-    }
+    return { document: this.analysis.parseDocument(body.document, 'document'), designId: null, revisionNumber: null };
   }
 }
 

@@ -77,8 +77,17 @@ export function outputVsLoadPlot(doc: Doc, c: SpecSheetContent): void {
     doc.lineWidth(1.6).strokeColor(ACCENT).stroke();
   }
   sweeps.forEach((run, index) => {
+    // One marker per half point of the page: markers closer than that print as one, and a run of tens of
+    // thousands of points would otherwise cost seconds of drawing and megabytes of PDF for nothing visible.
+    const drawn = new Set<string>();
     for (const p of run.points) {
-      if (p.x >= 0 && p.x <= maxX) benchMarker(doc, index, sx(p.x), sy(Math.abs(p.y)));
+      if (p.x < 0 || p.x > maxX) continue;
+      const x = sx(p.x);
+      const y = sy(Math.abs(p.y));
+      const spot = `${Math.round(x * 2)},${Math.round(y * 2)}`;
+      if (drawn.has(spot)) continue;
+      drawn.add(spot);
+      benchMarker(doc, index, x, y);
     }
   });
   const loadA = c.report.analysis.loadCurrentA;

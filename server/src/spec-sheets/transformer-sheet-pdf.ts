@@ -183,7 +183,7 @@ function coreSection(doc: Doc, c: TransformerSheetContent): void {
     [label('core.ungappedAlHPerTurn2'), `${q(core.ungappedAlHPerTurn2, 'H')} per turn²`],
     [
       `${result('gap.gapM')} (total in the magnetic path)`,
-      report.gap.gapM < 1e-6 ? 'none (ungapped)' : q(report.gap.gapM, 'm'),
+      report.gap.gapM === 0 ? 'none (ungapped)' : q(report.gap.gapM, 'm'),
     ],
     [
       result('gap.alHPerTurn2'),

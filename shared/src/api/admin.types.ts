@@ -59,6 +59,9 @@ export const AUDIT_ACTIONS = [
   'project.settings_changed',
   'project.archived',
   'project.unarchived',
+  'project.member_requested',
+  'project.member_request_accepted',
+  'project.member_request_declined',
   'revision.released',
   'revision.gates_overridden',
 ] as const;
@@ -130,8 +133,42 @@ export const MAIL_KINDS = [
   'sign-off.return',
   'sign-off.release',
   'sign-off.comment',
+  'members.request-decided',
 ] as const;
 export type MailKind = (typeof MAIL_KINDS)[number];
 
 /** GET/PUT /api/me/notifications: for each mail kind, whether the user receives it. */
 export type NotificationSettings = Record<MailKind, boolean>;
+
+/** Longest note on a member request or reason for declining one (characters). */
+export const MEMBER_REQUEST_NOTE_MAX = 500;
+
+export type MemberRequestState = 'pending' | 'accepted' | 'declined';
+
+/** POST /api/projects/:projectId/member-requests (engineer or reviewer): ask the leads to add a person. */
+export interface CreateMemberRequestRequest {
+  email: string;
+  role: ProjectRole;
+  note?: string;
+}
+
+/** POST /api/projects/:projectId/member-requests/:requestId/decline (lead). */
+export interface DeclineMemberRequestRequest {
+  reason?: string;
+}
+
+/** A request that a person be added to a project, and its outcome. */
+export interface MemberRequest {
+  id: string;
+  projectId: string;
+  email: string;
+  role: ProjectRole;
+  note: string;
+  state: MemberRequestState;
+  requesterId: string;
+  requesterName: string;
+  createdAt: string;
+  decidedByName: string | null;
+  decidedAt: string | null;
+  declineReason: string | null;
+}

@@ -53,6 +53,7 @@ export type {
   InboxItem,
   InboxComment,
   Inbox,
+  InboxMemberRequest,
   OutboxMail,
   Outbox,
 } from './reviews.types';
@@ -89,7 +90,7 @@ export type {
   CalibratedRevisionResponse,
   StartCalibrationRequest,
 } from './calibrations.types';
-export { AUDIT_ACTIONS, MAIL_KINDS } from './admin.types';
+export { AUDIT_ACTIONS, MAIL_KINDS, MEMBER_REQUEST_NOTE_MAX } from './admin.types';
 export type {
   UserListQuery,
   UserPage,
@@ -107,6 +108,10 @@ export type {
   ChangeMemberRoleRequest,
   MailKind,
   NotificationSettings,
+  MemberRequestState,
+  CreateMemberRequestRequest,
+  DeclineMemberRequestRequest,
+  MemberRequest,
 } from './admin.types';
 export { START_UP_WINDOW_S } from './simulation-limits';
 export { TRACE_NAMES, capacitorTraceName, capacitorOfTrace } from './waveform-traces';

@@ -161,6 +161,17 @@ export interface InboxComment {
  * GET /api/inbox: what waits for me, by what I can do about it, and what I submitted. `actionCount` is the number
  * the top bar shows: everything in the first four lists.
  */
+/** A pending member request in the Inbox of a project's leads. */
+export interface InboxMemberRequest {
+  projectId: string;
+  projectName: string;
+  requestId: string;
+  email: string;
+  role: ProjectRole;
+  requesterName: string;
+  createdAt: string;
+}
+
 export interface Inbox {
   /** Reviewer or lead: revisions submitted to me and waiting for a decision. */
   waitingForMe: InboxItem[];
@@ -172,6 +183,8 @@ export interface Inbox {
   newComments: InboxComment[];
   /** Revisions I submitted (any state since). */
   submittedByMe: InboxItem[];
+  /** Lead: pending requests to add a person to a project I lead. */
+  memberRequests: InboxMemberRequest[];
   actionCount: number;
 }
 

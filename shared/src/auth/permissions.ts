@@ -12,7 +12,8 @@ export type ProjectAction =
   | 'specSheet.exportDraft'
   | 'parts.manage'
   | 'bench.upload'
-  | 'members.manage';
+  | 'members.manage'
+  | 'members.request';
 
 /** Actions on the whole installation, granted by the account role. */
 export type AppAction = 'users.manage' | 'projects.create' | 'outbox.read' | 'audit.read';
@@ -29,6 +30,8 @@ const PROJECT_GRANTS: Record<ProjectAction, readonly ProjectRole[]> = {
   'parts.manage': ['lead'],
   'bench.upload': ['engineer', 'lead'],
   'members.manage': ['lead'],
+  // A lead adds members directly; the others ask the leads.
+  'members.request': ['engineer', 'reviewer'],
 };
 
 const APP_GRANTS: Record<AppAction, readonly UserRole[]> = {

@@ -24,6 +24,15 @@ function driverOf(design: Design): DriverStage | null {
   return design.drive.kind === 'driver' ? design.drive.driver : null;
 }
 
+/**
+ * The driver whose transformer is stated as numbers: a designed transformer (`transformerChoice: 'designed'`)
+ * derives its coupling and winding resistances from its section, so those numbers are not the design's to fit.
+ */
+function givenTransformerDriver(design: Design): DriverStage | null {
+  const driver = driverOf(design);
+  return driver && driver.transformerChoice !== 'designed' ? driver : null;
+}
+
 function requireDriver(design: Design): DriverStage {
   const driver = driverOf(design);
   if (!driver) throw new DomainError('invalid_argument', 'The design has no driver stage', 'parameters');
@@ -50,7 +59,7 @@ const declared: readonly UncertainParameter[] = [
     documentPath: 'drive.driver.transformer.couplingCoefficient',
     scale: 'linear',
     // Wound ferrite transformers of this kind couple at 0.9–0.995 (common practice, no source).
-    prior: (design) => (driverOf(design) ? { min: 0.85, max: 0.999 } : null),
+    prior: (design) => (givenTransformerDriver(design) ? { min: 0.85, max: 0.999 } : null),
     read: (design) => requireDriver(design).transformer.couplingCoefficient,
     write: (design, value) =>
       edited(design, (copy) => {
@@ -96,7 +105,7 @@ const declared: readonly UncertainParameter[] = [
     documentPath: 'drive.driver.transformer.secondaryResistanceOhm',
     scale: 'log',
     prior: (design) => {
-      const driver = driverOf(design);
+      const driver = givenTransformerDriver(design);
       return driver ? around(Math.max(driver.transformer.secondaryResistanceOhm, 1), 5, 5) : null;
     },
     read: (design) => requireDriver(design).transformer.secondaryResistanceOhm,

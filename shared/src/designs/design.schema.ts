@@ -116,10 +116,11 @@ export const loadSchema = Type.Union([
   closedObject({ kind: Type.Literal('resistance'), resistanceOhm: positive(L.maxResistanceOhm) }),
 ]);
 
+/** The discharge rules known by name (safety/discharge.ts gives each its voltage, time and source). */
+export const NAMED_DISCHARGE_RULES = ['50V-1min', '50V-5min', '60V-5s'] as const;
+
 export const dischargeRuleSchema = Type.Union([
-  Type.Literal('50V-1min'),
-  Type.Literal('50V-5min'),
-  Type.Literal('60V-5s'),
+  ...NAMED_DISCHARGE_RULES.map((rule) => Type.Literal(rule)),
   closedObject({ voltageV: positive(L.maxVoltageV), timeS: positive(L.maxTimeS) }),
 ]);
 

@@ -1,6 +1,6 @@
 export { validateDesign } from './validate-design';
 export { capacitorCountFor } from './capacitor-count';
-export { designDocumentSchema, designSchema, DESIGN_SCHEMA_VERSION } from './design.schema';
+export { designDocumentSchema, designSchema, DESIGN_SCHEMA_VERSION, NAMED_DISCHARGE_RULES } from './design.schema';
 export { designLimits } from './design-limits';
 export { designExamples } from './design-examples';
 export type {

@@ -12,6 +12,16 @@ export function fieldPath(parent: string, key: string | number): string {
   return parent ? `${parent}.${key}` : key;
 }
 
+/**
+ * A field path under `prefix`, the place its document sits in (`document` and `multiplier.cellCount` give
+ * `document.multiplier.cellCount`); the whole document ('(document)' or an empty path) is the prefix itself,
+ * and an empty prefix leaves the path as it is.
+ */
+export function prefixedFieldPath(prefix: string, path: string): string {
+  if (!prefix) return path;
+  return path === '(document)' || path === '' ? prefix : `${prefix}.${path}`;
+}
+
 /** Most issues one error reports; the rest are counted in a last issue at `at`. */
 export const MAX_FIELD_ISSUES = 100;
 

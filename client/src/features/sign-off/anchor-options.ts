@@ -1,4 +1,5 @@
 import type { CommentAnchor } from '@ladderwright/shared/api';
+import { fieldPath } from '@ladderwright/shared/errors';
 
 /** The places a comment thread may point at: the document's input fields and the report's scalar results. */
 export interface AnchorOptions {
@@ -8,9 +9,9 @@ export interface AnchorOptions {
 
 function collectLeafPaths(value: unknown, prefix: string, into: string[]): void {
   if (Array.isArray(value)) {
-    value.forEach((item, index) => collectLeafPaths(item, `${prefix}[${index}]`, into));
+    value.forEach((item, index) => collectLeafPaths(item, fieldPath(prefix, index), into));
   } else if (value !== null && typeof value === 'object') {
-    for (const [key, child] of Object.entries(value)) collectLeafPaths(child, prefix ? `${prefix}.${key}` : key, into);
+    for (const [key, child] of Object.entries(value)) collectLeafPaths(child, fieldPath(prefix, key), into);
   } else if (prefix && value !== undefined) {
     into.push(prefix);
   }

@@ -1,3 +1,5 @@
+import { prefixedFieldPath } from '@ladderwright/shared/errors';
+
 /** A function-free object type: the values a document path can step into. */
 type Branch<V> = V extends (...args: never[]) => unknown ? never : V extends object ? V : never;
 
@@ -61,7 +63,7 @@ export function binder<T extends object>(
   prefix = '',
 ) {
   return (path: NumberPath<T>): Binding => {
-    const fullPath = prefix ? `${prefix}.${path}` : path;
+    const fullPath = prefixedFieldPath(prefix, path);
     return {
       path: fullPath,
       value: getAt(document, path),

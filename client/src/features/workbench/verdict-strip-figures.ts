@@ -69,7 +69,8 @@ const COMPARED: Partial<Record<StripFigure['key'], ComparedFigure>> = {
 
 /** Source and difference of each figure: from the stored simulation where it gives the figure, else the estimate. */
 function withSource(figure: Omit<StripFigure, 'source' | 'difference'>, headline: HeadlineSource | null): StripFigure {
-  if (figure.key === 'worst') return { ...figure, source: null, difference: null };
+  // The worst check is a verdict, and a figure the design does not have (no driver stage) comes from nowhere.
+  if (figure.key === 'worst' || figure.value === 'n/a') return { ...figure, source: null, difference: null };
   const compared = COMPARED[figure.key];
   const isSimulated = compared !== undefined && (headline?.simulatedKeys.includes(compared) ?? false);
   return {

@@ -11,6 +11,7 @@ import { simulationJobHeartbeat } from './0009-simulation-job-heartbeat';
 import { driverSecondaryPhasing } from './0010-driver-secondary-phasing';
 import { magneticsParts } from './0011-magnetics-parts';
 import { calibrations } from './0012-calibrations';
+import { memberRequests } from './0013-member-requests';
 
 /** Every schema step in order. Add new steps at the end. */
 export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
@@ -26,4 +27,5 @@ export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
   driverSecondaryPhasing,
   magneticsParts,
   calibrations,
+  memberRequests,
 ];

@@ -14,6 +14,7 @@ import {
   ValidateNested,
 } from 'class-validator';
 import type { DefaultTargets, UpdateProjectRequest } from '@ladderwright/shared/api';
+import { NAMED_DISCHARGE_RULES } from '@ladderwright/shared/designs';
 import {
   ACCEPTANCE_COVERAGES,
   type AcceptanceCoverage,
@@ -21,9 +22,6 @@ import {
   BENCH_ALLOWANCE_MAX,
 } from '@ladderwright/shared/reviews';
 import { IsNotBlank } from '../../common/decorators/is-not-blank.decorator';
-
-/** The named discharge rules a project can default to (a custom rule is set per design). */
-export const DEFAULT_DISCHARGE_RULES = ['50V-1min', '50V-5min', '60V-5s'] as const;
 
 // Bounds: the product's supported range (up to 100 kV, 1 A load; common practice, no source).
 export class DefaultTargetsDto implements DefaultTargets {
@@ -56,10 +54,10 @@ export class DefaultTargetsDto implements DefaultTargets {
   @Max(1000, { message: 'safeVoltageV must be at most 1000 V' })
   safeVoltageV?: number;
 
-  @ApiPropertyOptional({ enum: DEFAULT_DISCHARGE_RULES })
+  @ApiPropertyOptional({ enum: NAMED_DISCHARGE_RULES })
   @IsOptional()
-  @IsIn(DEFAULT_DISCHARGE_RULES, { message: `dischargeRule must be one of ${DEFAULT_DISCHARGE_RULES.join(', ')}` })
-  dischargeRule?: (typeof DEFAULT_DISCHARGE_RULES)[number];
+  @IsIn(NAMED_DISCHARGE_RULES, { message: `dischargeRule must be one of ${NAMED_DISCHARGE_RULES.join(', ')}` })
+  dischargeRule?: (typeof NAMED_DISCHARGE_RULES)[number];
 }
 
 export class AcceptanceSettingsDto implements AcceptanceSettings {

@@ -33,4 +33,9 @@ export class UpdateNotificationSettingsDto implements NotificationSettings {
   @IsDefined({ message: 'sign-off.comment is required' })
   @IsBoolean({ message: 'sign-off.comment must be true or false' })
   'sign-off.comment': boolean;
+
+  @ApiProperty()
+  @IsDefined({ message: 'members.request-decided is required' })
+  @IsBoolean({ message: 'members.request-decided must be true or false' })
+  'members.request-decided': boolean;
 }

@@ -29,7 +29,18 @@ const inbox: Inbox = {
   returnedToMe: [],
   awaitingRelease: [item({ designId: 'd-9', designName: 'Precipitator cell', revisionNumber: 2, state: 'approved' })],
   newComments: [],
-  actionCount: 2,
+  memberRequests: [
+    {
+      projectId: 'p-1',
+      projectName: 'Cleanroom ionizer bar',
+      requestId: 'q-1',
+      email: 'technician@northfold.test',
+      role: 'reviewer',
+      requesterName: 'Edda Engineer',
+      createdAt: '2026-12-01T09:00:00.000Z',
+    },
+  ],
+  actionCount: 3,
 };
 
 describe('InboxRoute', () => {
@@ -43,7 +54,7 @@ describe('InboxRoute', () => {
   it('lists what waits for me and what I submitted, each with its state and a link to its Sign-off', async () => {
     renderWithApp(<InboxRoute />, { route: '/inbox' });
     const tables = await screen.findAllByRole('table');
-    expect(tables).toHaveLength(3);
+    expect(tables).toHaveLength(4);
     expect(screen.getByRole('heading', { name: 'Waiting for me' })).toBeInTheDocument();
     expect(screen.getByRole('heading', { name: 'Approved, waiting for release' })).toBeInTheDocument();
     expect(screen.getByRole('heading', { name: 'Submitted by me' })).toBeInTheDocument();
@@ -56,6 +67,15 @@ describe('InboxRoute', () => {
     expect(within(waiting).getByRole('link', { name: 'Ionizer bar HV' })).toHaveAttribute(
       'href',
       '/projects/p-1/designs/d-7/revisions/4/sign-off',
+    );
+
+    const requests = screen.getByRole('table', { name: 'Member requests' });
+    expect(within(requests).getAllByRole('row')[1]).toHaveTextContent(
+      /technician@northfold.test.*reviewer.*Edda Engineer/,
+    );
+    expect(within(requests).getByRole('link', { name: 'technician@northfold.test' })).toHaveAttribute(
+      'href',
+      '/projects/p-1/members',
     );
 
     const release = screen.getByRole('table', { name: 'Waiting for release' });
@@ -81,6 +101,7 @@ describe('InboxRoute', () => {
           returnedToMe: [],
           awaitingRelease: [],
           newComments: [],
+          memberRequests: [],
           actionCount: 0,
         }),
       ),

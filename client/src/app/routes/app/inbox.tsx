@@ -5,6 +5,7 @@ import type { ReactNode } from 'react';
 import type { LoaderFunctionArgs } from 'react-router-dom';
 import { getInboxQueryOptions, useInbox } from '../../../features/inbox/api/get-inbox';
 import { InboxComments } from '../../../features/inbox/components/inbox-comments';
+import { InboxMemberRequests } from '../../../features/inbox/components/inbox-member-requests';
 import { InboxTable } from '../../../features/inbox/components/inbox-table';
 import { requireUser } from './root';
 
@@ -57,6 +58,11 @@ export function InboxRoute() {
           {data.awaitingRelease.length > 0 && (
             <Section title="Approved, waiting for release" count={data.awaitingRelease.length}>
               <InboxTable label="Waiting for release" items={data.awaitingRelease} emptyText="" />
+            </Section>
+          )}
+          {data.memberRequests.length > 0 && (
+            <Section title="Member requests" count={data.memberRequests.length}>
+              <InboxMemberRequests requests={data.memberRequests} />
             </Section>
           )}
           <Section title="Returned to me" count={data.returnedToMe.length}>

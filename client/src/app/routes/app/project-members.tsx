@@ -3,6 +3,7 @@ import { useDocumentTitle } from '@mantine/hooks';
 import type { QueryClient } from '@tanstack/react-query';
 import { useParams } from 'react-router-dom';
 import { useMe } from '../../../features/auth/api/get-me';
+import { MemberRequestsPanel } from '../../../features/members/components/member-requests-panel';
 import { MembersPanel } from '../../../features/members/components/members-panel';
 import { useProject } from '../../../features/projects/api/get-project';
 import { requireProjectLoader } from './root';
@@ -30,6 +31,7 @@ export function ProjectMembersRoute() {
       {project.isPending && <Loader size="sm" aria-label="Loading the members" />}
       {project.isError && <Alert color="red">{project.error.message}</Alert>}
       {project.data && me && <MembersPanel project={project.data} myUserId={me.id} />}
+      {project.data && <MemberRequestsPanel project={project.data} />}
     </Stack>
   );
 }

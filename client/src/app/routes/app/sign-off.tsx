@@ -1,3 +1,4 @@
+import { headlineSource } from '@ladderwright/shared/analysis';
 import { canActInProject } from '@ladderwright/shared/auth';
 import { useMemo } from 'react';
 import { Accordion, Anchor, Breadcrumbs, Button, Grid, Group, Paper, Stack, Text, Title } from '@mantine/core';
@@ -17,6 +18,7 @@ import { CommentThreads } from '../../../features/sign-off/components/comment-th
 import { SignOffError } from '../../../features/sign-off/components/sign-off-error';
 import { SignOffPanel } from '../../../features/sign-off/components/sign-off-panel';
 import { SpecSheetDownload } from '../../../features/sign-off/components/spec-sheet-download';
+import { useSimulatedFigures } from '../../../features/workbench/api/get-simulated-figures';
 import { ChecksTable } from '../../../features/workbench/components/checks-table';
 import { VerdictStrip } from '../../../features/workbench/components/verdict-strip';
 import { requireUser } from './root';
@@ -55,7 +57,14 @@ export function SignOffRoute() {
   const anchorOptions = useMemo(() => anchorOptionsOf(revision.document, revision.report), [revision]);
   useDocumentTitle(`${design.name} r${revisionNumber} · Sign-off · Ladderwright`);
   const state = signOff.data?.state ?? revision.state;
-  const report = revision.report;
+  // The revision's current stored simulation, where there is one, stands for the estimate as on the Workbench.
+  const simulated = useSimulatedFigures(projectId, designId, revisionNumber, true);
+  const simulation = simulated.data?.simulation ?? null;
+  const headline = useMemo(
+    () => headlineSource(revision.report, simulation, revision.document.targets),
+    [revision, simulation],
+  );
+  const report = headline.report;
   const checkCounts = (['fail', 'marginal', 'pass'] as const)
     .map((verdict) => `${report.checks.filter((check) => check.verdict === verdict).length} ${verdict}`)
     .join(' · ');
@@ -110,9 +119,13 @@ export function SignOffRoute() {
 
       <Paper withBorder p="md">
         <Title order={2} size="h4" mb="xs">
-          Results of r{revisionNumber} (stored with the revision)
+          Results of r{revisionNumber} (
+          {headline.source === 'simulation'
+            ? 'figures from its stored simulation'
+            : 'estimate stored with the revision'}
+          )
         </Title>
-        <VerdictStrip report={report} targets={revision.document.targets} />
+        <VerdictStrip report={revision.report} targets={revision.document.targets} headline={headline} />
       </Paper>
       <Grid gap="lg">
         <Grid.Col span={{ base: 12, lg: 7 }}>

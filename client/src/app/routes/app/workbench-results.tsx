@@ -4,6 +4,7 @@ import type { RevisionDetail, RevisionSummary } from '@ladderwright/shared/api';
 import type { Design } from '@ladderwright/shared/designs';
 import type { DesignReport, HeadlineSource } from '@ladderwright/shared/analysis';
 import { OtherFigures } from '../../../features/workbench/components/other-figures';
+import { formatDateTime } from '../../../lib/format-date';
 
 export interface WorkbenchResultsProps {
   projectId: string;
@@ -123,6 +124,12 @@ export function WorkbenchResults({
           <BomCost projectId={projectId} design={draft} />
         </Tabs.Panel>
         <Tabs.Panel value="waveforms" pt="sm">
+          {headline?.source === 'simulation' && headline.simulatedAt && (
+            <Text size="sm" mb="xs" data-current-simulation>
+              The headline figures come from the full simulation of r{revision.number} that finished{' '}
+              {formatDateTime(headline.simulatedAt)}; start a run to see its waveforms again.
+            </Text>
+          )}
           <WaveformsPanel
             projectId={projectId}
             source={isDirty ? { document: draft } : { designId: revision.designId, revisionNumber: revision.number }}

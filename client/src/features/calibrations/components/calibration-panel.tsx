@@ -30,6 +30,25 @@ export interface CalibrationRunChoice {
   pointCount: number;
 }
 
+const PREFIXES: Record<number, string> = {
+  [-15]: 'f',
+  [-12]: 'p',
+  [-9]: 'n',
+  [-6]: 'µ',
+  [-3]: 'm',
+  0: '',
+  3: 'k',
+  6: 'M',
+  9: 'G',
+};
+
+/** The factor and unit label the prior range is typed in: an SI prefix that puts the range's top in 1 … 1000. */
+export function priorInputScale(unit: string, max: number): { factor: number; label: string } {
+  if (!unit || !(max > 0)) return { factor: 1, label: unit };
+  const exponent = Math.max(-15, Math.min(9, 3 * Math.floor(Math.log10(max) / 3)));
+  return { factor: 10 ** exponent, label: `${PREFIXES[exponent] ?? ''}${unit}` };
+}
+
 const USES: Record<BenchKind, { value: CalibrationDataUse; label: string }[]> = {
   'load-sweep': [{ value: 'load-sweep', label: 'load sweep (estimate)' }],
   'scope-capture': [
@@ -115,6 +134,8 @@ export function CalibrationPanel({ projectId, designId, revisionNumber, runs, ca
         <Table.Tbody>
           {(parameters.data ?? []).map((option) => {
             const range = chosen[option.id];
+            const scale = priorInputScale(option.unit, option.prior.max);
+            const shown = (value: number) => Number((value / scale.factor).toPrecision(6));
             return (
               <Table.Tr key={option.id}>
                 <Table.Td>
@@ -132,9 +153,13 @@ export function CalibrationPanel({ projectId, designId, revisionNumber, runs, ca
                     aria-label={`${option.label}, prior from`}
                     size="xs"
                     w={130}
+                    rightSection={<Text size="xs">{scale.label}</Text>}
+                    rightSectionWidth={36}
+                    hideControls
                     disabled={range === undefined || isActive}
-                    value={range?.min ?? option.prior.min}
-                    onChange={(value) => typeof value === 'number' && setPrior(option.id, 'min', value)}
+                    key={`${option.id}-min-${range ? 'on' : 'off'}`}
+                    defaultValue={shown(range?.min ?? option.prior.min)}
+                    onChange={(value) => typeof value === 'number' && setPrior(option.id, 'min', value * scale.factor)}
                   />
                 </Table.Td>
                 <Table.Td>
@@ -142,9 +167,13 @@ export function CalibrationPanel({ projectId, designId, revisionNumber, runs, ca
                     aria-label={`${option.label}, prior to`}
                     size="xs"
                     w={130}
+                    rightSection={<Text size="xs">{scale.label}</Text>}
+                    rightSectionWidth={36}
+                    hideControls
                     disabled={range === undefined || isActive}
-                    value={range?.max ?? option.prior.max}
-                    onChange={(value) => typeof value === 'number' && setPrior(option.id, 'max', value)}
+                    key={`${option.id}-max-${range ? 'on' : 'off'}`}
+                    defaultValue={shown(range?.max ?? option.prior.max)}
+                    onChange={(value) => typeof value === 'number' && setPrior(option.id, 'max', value * scale.factor)}
                   />
                 </Table.Td>
               </Table.Tr>

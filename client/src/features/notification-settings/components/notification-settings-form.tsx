@@ -12,6 +12,10 @@ const MAIL_LABELS: Record<MailKind, { label: string; description: string }> = {
     label: 'Comments and replies',
     description: 'Someone comments on a revision you take part in.',
   },
+  'members.request-decided': {
+    label: 'Member requests decided',
+    description: 'A lead accepts or declines a person you asked to add to a project.',
+  },
 };
 
 /** One switch per mail kind; each change is saved at once. Password-reset links are always sent. */

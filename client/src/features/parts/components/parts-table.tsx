@@ -65,9 +65,13 @@ export function PartsTable({ projectId, canManage }: PartsTableProps) {
           )}
           {parts?.map((part) => (
             <Table.Tr key={part.id}>
-              <Table.Td ff="monospace">{part.code}</Table.Td>
+              <Table.Td ff="monospace" style={{ whiteSpace: 'nowrap' }}>
+                {part.code}
+              </Table.Td>
               <Table.Td>
-                <Badge variant="light">{part.kind}</Badge>
+                <Badge variant="light" style={{ width: 'max-content' }}>
+                  {part.kind}
+                </Badge>
               </Table.Td>
               <Table.Td>{part.description}</Table.Td>
               <Table.Td>{describeRatings(part)}</Table.Td>

@@ -14,12 +14,11 @@ import {
   Title,
 } from '@mantine/core';
 import type { DefaultTargets, ProjectDetail } from '@ladderwright/shared/api';
+import { NAMED_DISCHARGE_RULES } from '@ladderwright/shared/designs';
 import { ACCEPTANCE_COVERAGES, type AcceptanceCoverage, BENCH_ALLOWANCE_MAX } from '@ladderwright/shared/reviews';
 import { useArchiveProject } from '../api/archive-project';
 import { useUnarchiveProject } from '../api/unarchive-project';
 import { useUpdateProject } from '../api/update-project';
-
-const DISCHARGE_RULES = ['50V-1min', '50V-5min', '60V-5s'] as const;
 
 function optional(value: string | number): number | undefined {
   return typeof value === 'number' && Number.isFinite(value) ? value : undefined;
@@ -59,7 +58,7 @@ export function ProjectSettingsForm({ project }: { project: ProjectDetail }) {
       ...(optional(rippleV) !== undefined ? { rippleMaxV: optional(rippleV) } : {}),
       ...(loadCurrentA !== undefined ? { loadCurrentA: loadCurrentA / 1e6 } : {}),
       ...(optional(safeV) !== undefined ? { safeVoltageV: optional(safeV) } : {}),
-      ...(rule ? { dischargeRule: rule as (typeof DISCHARGE_RULES)[number] } : {}),
+      ...(rule ? { dischargeRule: rule as (typeof NAMED_DISCHARGE_RULES)[number] } : {}),
     };
     update.mutate({
       name: name.trim(),
@@ -154,7 +153,7 @@ export function ProjectSettingsForm({ project }: { project: ProjectDetail }) {
               label="Discharge rule"
               placeholder="Keep the blank's"
               clearable
-              data={[...DISCHARGE_RULES]}
+              data={[...NAMED_DISCHARGE_RULES]}
               value={rule}
               onChange={setRule}
               disabled={isReadOnly}

@@ -36,6 +36,14 @@ const DEFAULT_INPUTS: Inputs = {
   secondaryPeakV: 900,
 };
 
+/** The engine's refusal with its Check ids in words: "fails transformer.window-fill" -> "fails window fill". */
+function refusalWords(refusal: string): string {
+  return refusal.replace(
+    /transformer\.([a-z-]+)(?:\.([a-z]+))?/g,
+    (_, id: string, role?: string) => `${id.replace(/-/g, ' ')}${role ? ` (${role})` : ''}`,
+  );
+}
+
 const mT = (valueT: number) => `${Number((valueT * 1e3).toPrecision(3))} mT`;
 
 /**
@@ -170,11 +178,12 @@ export function TransformerSizerPanel({ shelf }: TransformerSizerPanelProps) {
       )}
       {ranked && (
         <div style={{ overflowX: 'auto' }}>
-          <Table aria-label="Ranked cores" fz="sm" miw={760} striped>
+          <Table aria-label="Ranked cores" fz="sm" miw={900} striped style={{ whiteSpace: 'nowrap' }}>
             <Table.Thead>
               <Table.Tr>
                 <Table.Th>Rank</Table.Th>
                 <Table.Th>Core</Table.Th>
+                <Table.Th>Verdict</Table.Th>
                 <Table.Th>Turns P : F : S</Table.Th>
                 <Table.Th>Gap</Table.Th>
                 <Table.Th>Peak flux</Table.Th>
@@ -182,7 +191,6 @@ export function TransformerSizerPanel({ shelf }: TransformerSizerPanelProps) {
                 <Table.Th>Loss (core + copper)</Table.Th>
                 <Table.Th>Window fill</Table.Th>
                 <Table.Th>Core volume</Table.Th>
-                <Table.Th>Verdict</Table.Th>
               </Table.Tr>
             </Table.Thead>
             <Table.Tbody>
@@ -190,6 +198,9 @@ export function TransformerSizerPanel({ shelf }: TransformerSizerPanelProps) {
                 <Table.Tr key={candidate.core.code}>
                   <Table.Td>{index + 1}</Table.Td>
                   <Table.Td ff="monospace">{candidate.core.code}</Table.Td>
+                  <Table.Td style={{ whiteSpace: 'normal', minWidth: '14rem' }}>
+                    {candidate.refusal === null ? 'fits' : `refused: ${refusalWords(candidate.refusal)}`}
+                  </Table.Td>
                   <Table.Td>
                     {candidate.primaryTurns} : {candidate.feedbackTurns} : {candidate.secondaryTurns}
                   </Table.Td>
@@ -207,7 +218,6 @@ export function TransformerSizerPanel({ shelf }: TransformerSizerPanelProps) {
                     {candidate.refusal === null ? `${Number((candidate.windowFill * 100).toPrecision(3))} %` : '—'}
                   </Table.Td>
                   <Table.Td>{Number((candidate.core.volumeM3 * 1e9).toPrecision(4))} mm³</Table.Td>
-                  <Table.Td>{candidate.refusal === null ? 'fits' : `refused: ${candidate.refusal}`}</Table.Td>
                 </Table.Tr>
               ))}
             </Table.Tbody>

@@ -78,9 +78,7 @@ export function TransformerPanel({ transformer }: TransformerPanelProps) {
                     // Three figures: the methods behind these estimates do not tell a fourth.
                     const value = typeof raw === 'number' ? Number(raw.toPrecision(3)) : raw;
                     const text =
-                      key === 'gap.gapM' && typeof value === 'number' && value < 1e-6
-                        ? 'none (ungapped)'
-                        : formatFieldValue(value, display);
+                      key === 'gap.gapM' && value === 0 ? 'none (ungapped)' : formatFieldValue(value, display);
                     return (
                       <Table.Tr key={key}>
                         <Table.Td>{label}</Table.Td>

@@ -1,15 +1,16 @@
 import { NumberInput, Select, Switch } from '@mantine/core';
-import type { DischargeRule } from '@ladderwright/shared/designs';
+import { NAMED_DISCHARGE_RULES } from '@ladderwright/shared/designs';
 import { BoundField } from '../../../../components/bound-field';
 import { FieldGrid } from '../../../../components/field-grid';
 import { binder } from '../../document-path';
 import type { SectionProps } from './form-section.types';
 
-const dischargeRules: Array<{ value: string; label: string }> = [
-  { value: '50V-1min', label: 'to 50 V within 1 min' },
-  { value: '50V-5min', label: 'to 50 V within 5 min' },
-  { value: '60V-5s', label: 'to 60 V within 5 s' },
-];
+const ruleLabels: Record<(typeof NAMED_DISCHARGE_RULES)[number], string> = {
+  '50V-1min': 'to 50 V within 1 min',
+  '50V-5min': 'to 50 V within 5 min',
+  '60V-5s': 'to 60 V within 5 s',
+};
+const dischargeRules = NAMED_DISCHARGE_RULES.map((value) => ({ value, label: ruleLabels[value] }));
 
 /** Output, ripple and load targets, the safe touch level with its discharge rule, and the spacing environment. */
 export function TargetsSection({ document, edit, issue }: SectionProps) {
@@ -32,7 +33,7 @@ export function TargetsSection({ document, edit, issue }: SectionProps) {
         onChange={(v) =>
           v &&
           edit((d) => {
-            d.targets.dischargeRule = v as DischargeRule;
+            d.targets.dischargeRule = v;
           })
         }
       />
