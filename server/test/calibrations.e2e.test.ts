@@ -1,4 +1,5 @@
-import { mkdtempSync, rmSync } from 'node:fs';
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import request from 'supertest';
@@ -123,6 +124,22 @@ describe('calibrations', () => {
     expect(saved!.changeNote).toBe(revision.body.changeNote);
     const after = await http().get(`${revisionUrl()}/calibrations/${done.id}`).set('Cookie', as(engineer));
     expect(after.body.draftRevisionNumber).toBe(2);
+
+    // The spec sheet of the calibrated revision carries a line for the calibration (pdftotext reads it).
+    const pdf = await http()
+      .get(`${revisionUrl()}/spec-sheet.pdf`)
+      .set('Cookie', as(engineer))
+      .buffer(true)
+      .parse((response, done) => {
+        const chunks: Buffer[] = [];
+        response.on('data', (chunk: Buffer) => chunks.push(chunk));
+        response.on('end', () => done(null, Buffer.concat(chunks)));
+      });
+    expect(pdf.status).toBe(200);
+    const sheetPath = join(dataDir, 'sheet.pdf');
+    writeFileSync(sheetPath, pdf.body as Buffer);
+    const text = execFileSync('pdftotext', [sheetPath, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
+    expect(text).toContain('against Prototype sweep, 95 % intervals: Transistor current gain hFE');
   });
 
   it('cancels a running start-up calibration', async () => {

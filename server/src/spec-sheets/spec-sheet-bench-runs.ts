@@ -1,3 +1,4 @@
+import { formatQuantity, type QuantityUnit } from '@ladderwright/shared/units';
 import type { SpecSheetContent } from './spec-sheet.types';
 import {
   date,
@@ -75,5 +76,45 @@ export function benchRunsSection(doc: Doc, c: SpecSheetContent): void {
       'Deviation = (measured − predicted) / predicted; margin = (tolerance − worst deviation) / tolerance.',
       MARGIN,
     );
+  doc.fillColor(INK);
+  calibrationLines(doc, c);
+}
+
+/** A plain number to four figures, or with an SI prefix for a resistance, current or capacitance. */
+function calibratedValue(value: number, unit: string): string {
+  const units: Record<string, QuantityUnit> = { Ω: 'Ohm', A: 'A', F: 'F' };
+  const quantityUnit = units[unit];
+  return quantityUnit ? formatQuantity(value, quantityUnit) : value.toPrecision(4);
+}
+
+/** One line per finished calibration: when, against which runs, each fitted value with its interval. */
+function calibrationLines(doc: Doc, c: SpecSheetContent): void {
+  for (const calibration of c.calibrations ?? []) {
+    const result = calibration.result;
+    if (!result) continue;
+    const values = result.parameters
+      .map((p) => {
+        const interval = p.interval
+          ? `${calibratedValue(p.interval.low, p.unit)} to ${calibratedValue(p.interval.high, p.unit)}`
+          : 'not identifiable';
+        return `${p.label} ${calibratedValue(p.value, p.unit)} (${interval})`;
+      })
+      .join('; ');
+    const runs = calibration.input.runs.map((run) => run.label).join(', ');
+    const warning = result.warnings.length > 0 ? ' Identifiability warning.' : '';
+    ensureRoom(doc, 14);
+    doc
+      .font('regular')
+      .fontSize(8)
+      .fillColor(MUTED)
+      .text(
+        printable(
+          `Calibration ${date(calibration.createdAt)} against ${runs}, ${(result.confidence * 100).toFixed(0)} % intervals: ${values}.${warning}`,
+        ),
+        MARGIN,
+        doc.y,
+        { width: TEXT_WIDTH },
+      );
+  }
   doc.fillColor(INK);
 }

@@ -1,3 +1,4 @@
+import type { Calibration } from '@ladderwright/shared/api';
 import type { BenchRunSummary, SignOffApproval, SignOffOverride } from '@ladderwright/shared/api';
 import type { MeasuredPoint } from '@ladderwright/shared/bench';
 import type { Design } from '@ladderwright/shared/designs';
@@ -46,4 +47,6 @@ export interface SpecSheetContent {
   overrides: SignOffOverride[];
   /** The revision's live bench runs, newest first; load-sweep points go on the output-vs-load plot. */
   benchRuns: (BenchRunSummary & { points: MeasuredPoint[] })[];
+  /** The revision's finished calibrations against its bench runs, newest first. */
+  calibrations?: Calibration[];
 }

@@ -1,6 +1,7 @@
 import { Module } from '@nestjs/common';
 import { SequelizeModule } from '@nestjs/sequelize';
 import { BenchRunsModule } from '../bench-runs/bench-runs.module';
+import { CalibrationsModule } from '../calibrations/calibrations.module';
 import { ProjectModel } from '../projects/project.model';
 import { ProjectsModule } from '../projects/projects.module';
 import { ReviewsModule } from '../reviews/reviews.module';
@@ -16,6 +17,7 @@ import { TransformerSheetsService } from './transformer-sheets.service';
     SequelizeModule.forFeature([ProjectModel]),
     ReviewsModule,
     BenchRunsModule,
+    CalibrationsModule,
     ProjectsModule,
     RevisionsModule,
     SimulationsModule,

@@ -8,6 +8,7 @@ import type { Design } from '@ladderwright/shared/designs';
 import { type AcceptanceLimits, type AcceptanceSettings, acceptanceLimits } from '@ladderwright/shared/reviews';
 import { toleranceSpread } from '@ladderwright/shared/sizing';
 import { BenchRunsService } from '../bench-runs/bench-runs.service';
+import { CalibrationsService } from '../calibrations/calibrations.service';
 import type { ProjectMembership } from '../common/request.types';
 import { ProjectModel } from '../projects/project.model';
 import { ProjectsService } from '../projects/projects.service';
@@ -97,6 +98,7 @@ export class SpecSheetsService {
     private readonly lookup: RevisionLookupService,
     private readonly signOff: SignOffService,
     private readonly benchRuns: BenchRunsService,
+    private readonly calibrations: CalibrationsService,
     private readonly currentSimulation: CurrentSimulationService,
   ) {}
 
@@ -118,12 +120,13 @@ export class SpecSheetsService {
           : `Only an engineer or a lead exports a draft spec sheet (you are ${membership.role})`,
       );
     }
-    const [signOff, project, settings, benchRuns, simulated] = await Promise.all([
+    const [signOff, project, settings, benchRuns, simulated, calibrations] = await Promise.all([
       this.signOff.get(ref, user, membership),
       this.projects.findByPk(ref.projectId),
       this.projectsService.settings(ref.projectId),
       this.benchRuns.listForRevisionWithPoints(revision.designId, revision.number),
       this.currentSimulation.find(revision.designId, revision.number, revision.document, revision.engineVersion),
+      this.calibrations.listForRevision(revision.designId, revision.number),
     ]);
     const report = revision.report as unknown as DesignReport;
     const document = revision.document;
@@ -146,6 +149,7 @@ export class SpecSheetsService {
       acceptance: acceptanceOf(document, report, settings.acceptance),
       overrides: signOff.overrides,
       benchRuns,
+      calibrations: calibrations.filter((calibration) => calibration.status === 'succeeded'),
     };
     const suffix = isReleased ? '' : '-not-released';
     return {
