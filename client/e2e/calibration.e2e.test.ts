@@ -36,9 +36,9 @@ describe('calibration journey', () => {
     const project = projects.find((candidate) => candidate.name === 'Handheld surface-charge tester');
     if (!project) throw new Error('no demo tester project');
     const designs = (await (await page.request.get(`${baseUrl}/api/projects/${project.id}/designs`)).json()) as {
-      items: { id: string; latestRevisionNumber: number }[];
+      items: { id: string; name: string; latestRevisionNumber: number }[];
     };
-    const design = designs.items[0];
+    const design = designs.items.find((candidate) => candidate.name === 'Handheld surface-charge tester');
     if (!design) throw new Error('no demo design');
     const latest = design.latestRevisionNumber;
     const revisionUrl = `${baseUrl}/api/projects/${project.id}/designs/${design.id}/revisions/${latest}`;

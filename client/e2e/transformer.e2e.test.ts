@@ -3,7 +3,12 @@ import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { launchJourneyBrowser, openJourneyPage, screenshotDir, signInAsDemo } from './journey';
+import { baseUrl, launchJourneyBrowser, openJourneyPage, screenshotDir, signInAsDemo } from './journey';
+
+interface Listed {
+  id: string;
+  name: string;
+}
 
 let browser: Browser;
 let context: BrowserContext;
@@ -50,9 +55,25 @@ describe('transformer journey', () => {
 
   it('designs the handheld tester’s transformer on a shelf core, fixes its saturation and downloads its sheet', async () => {
     await signInAsDemo(page, 'engineer@northfold.test');
-    await page.getByRole('main').getByRole('link', { name: 'Handheld surface-charge tester' }).first().click();
-    await page.getByRole('heading', { name: 'Designs', level: 2 }).waitFor();
-    await page.getByRole('main').getByRole('link', { name: 'Handheld surface-charge tester' }).first().click();
+    // A copy of the tester's seeded first revision, so revisions other journeys add to the demo design (a
+    // calibrated model, say) do not change the starting point.
+    const projects = (await (await page.request.get(`${baseUrl}/api/projects`)).json()) as Listed[];
+    const project = projects.find((candidate) => candidate.name === 'Handheld surface-charge tester');
+    if (!project) throw new Error('no demo tester project');
+    const designs = (await (await page.request.get(`${baseUrl}/api/projects/${project.id}/designs`)).json()) as {
+      items: Listed[];
+    };
+    const seeded = designs.items.find((candidate) => candidate.name === 'Handheld surface-charge tester');
+    if (!seeded) throw new Error('no demo tester design');
+    const first = (await (
+      await page.request.get(`${baseUrl}/api/projects/${project.id}/designs/${seeded.id}/revisions/1`)
+    ).json()) as { document: unknown };
+    const created = await page.request.post(`${baseUrl}/api/projects/${project.id}/designs`, {
+      data: { name: 'Tester on a designed transformer', from: { kind: 'document', document: first.document } },
+    });
+    expect(created.status()).toBe(201);
+    const design = (await created.json()) as { id: string };
+    await page.goto(`${baseUrl}/projects/${project.id}/designs/${design.id}`);
     await page.getByRole('heading', { name: 'Workbench', level: 1 }).waitFor();
 
     // Given numbers -> designed from a core on the shelf.
