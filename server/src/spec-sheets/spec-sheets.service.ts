@@ -1,8 +1,6 @@
 import { Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
 import type { CurrentUser } from '@ladderwright/shared/api';
-import { canInProject } from '@ladderwright/shared/auth';
-import { DomainError } from '@ladderwright/shared/errors';
 import { type DesignReport, headlineSource, ladderInputOf, resolveDrive } from '@ladderwright/shared/analysis';
 import type { Design } from '@ladderwright/shared/designs';
 import { type AcceptanceLimits, type AcceptanceSettings, acceptanceLimits } from '@ladderwright/shared/reviews';
@@ -10,6 +8,7 @@ import { toleranceSpread } from '@ladderwright/shared/sizing';
 import { BenchRunsService } from '../bench-runs/bench-runs.service';
 import { CalibrationsService } from '../calibrations/calibrations.service';
 import type { ProjectMembership } from '../common/request.types';
+import { assertMayExportSheet } from './sheet-export-permission';
 import { ProjectModel } from '../projects/project.model';
 import { ProjectsService } from '../projects/projects.service';
 import { SignOffService } from '../reviews/sign-off.service';
@@ -117,15 +116,7 @@ export class SpecSheetsService {
     const { ref, user, membership, now } = input;
     const { design, revision } = await this.lookup.find(ref);
     const isReleased = revision.state === 'released';
-    const action = isReleased ? 'specSheet.export' : 'specSheet.exportDraft';
-    if (!canInProject(membership.role, action)) {
-      throw new DomainError(
-        'forbidden',
-        isReleased
-          ? `Only a lead exports the spec sheet of a released revision (you are ${membership.role})`
-          : `Only an engineer or a lead exports a draft spec sheet (you are ${membership.role})`,
-      );
-    }
+    assertMayExportSheet(membership, isReleased, 'spec sheet');
     const [signOff, project, settings, benchRuns, simulated, calibrations] = await Promise.all([
       this.signOff.get(ref, user, membership),
       this.projects.findByPk(ref.projectId),

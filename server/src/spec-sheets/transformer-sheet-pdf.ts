@@ -1,26 +1,9 @@
-import PDFDocument from 'pdfkit';
 import { documentFieldLabel, resultFieldLabel } from '@ladderwright/shared/designs';
 import type { WindingResult } from '@ladderwright/shared/transformer';
 import { checksSection } from './spec-sheet-checks';
-import {
-  type Doc,
-  date,
-  FONT_FILES,
-  heading,
-  INK,
-  keyValues,
-  MARGIN,
-  MUTED,
-  note,
-  PAGE_HEIGHT,
-  PAGE_WIDTH,
-  printable,
-  q,
-  table,
-  TEXT_WIDTH,
-  WARN,
-} from './spec-sheet-layout';
+import { type Doc, date, heading, INK, keyValues, MARGIN, MUTED, note, printable, q, table } from './spec-sheet-layout';
 import { cautionBox } from './spec-sheet-safety';
+import { markSheetPages, openSheetDocument } from './sheet-document';
 import { windingDrawing } from './transformer-sheet-drawing';
 import type { TransformerSheetContent } from './transformer-sheet.types';
 
@@ -240,73 +223,16 @@ function insulationSection(doc: Doc, c: TransformerSheetContent): void {
   );
 }
 
-/** "NOT RELEASED" across every page of an unreleased revision, and the footer with the caution. */
-function markPages(doc: Doc, c: TransformerSheetContent): void {
-  const range = doc.bufferedPageRange();
-  for (let i = range.start; i < range.start + range.count; i++) {
-    doc.switchToPage(i);
-    const bottom = doc.page.margins.bottom;
-    doc.page.margins.bottom = 0;
-    if (!c.isReleased) {
-      doc.save();
-      doc.rotate(-35, { origin: [PAGE_WIDTH / 2, PAGE_HEIGHT / 2] });
-      doc
-        .font('bold')
-        .fontSize(64)
-        .fillColor(WARN)
-        .fillOpacity(0.14)
-        .text('NOT RELEASED', 40, 390, { width: 515, align: 'center', lineBreak: false });
-      doc.restore();
-      doc.save();
-      doc.rect(0, 0, PAGE_WIDTH, 18).fill(WARN);
-      doc
-        .font('bold')
-        .fontSize(8.5)
-        .fillColor('#ffffff')
-        .text(`NOT RELEASED: ${c.state} revision, do not wind for production`, 0, 5, {
-          width: PAGE_WIDTH,
-          align: 'center',
-          lineBreak: false,
-        });
-      doc.restore();
-    }
-    doc.font('regular').fontSize(7).fillColor(MUTED).fillOpacity(1);
-    doc.text(
-      printable(
-        `${c.designName} · transformer · revision ${c.revisionNumber} (${c.state}) · page ${i - range.start + 1} of ${range.count} · High voltage can kill: the applicable standard, local codes and licensed practice govern.`,
-      ),
-      MARGIN,
-      PAGE_HEIGHT - 36,
-      { width: TEXT_WIDTH, align: 'center', lineBreak: false },
-    );
-    doc.page.margins.bottom = bottom;
-  }
-}
-
 /**
  * Renders the transformer sheet for the magnetics supplier (A4 PDF, Inter embedded): the winding drawing with
  * dots and pins, the winding schedule, inductances with tolerances, maximum leakage, DC resistances, core and gap,
  * hipot and insulation, the transformer's Checks and the high-voltage caution; "NOT RELEASED" until released.
  */
 export async function renderTransformerSheetPdf(c: TransformerSheetContent): Promise<Buffer> {
-  const doc = new PDFDocument({
-    size: 'A4',
-    margins: { top: MARGIN, bottom: 56, left: MARGIN, right: MARGIN },
-    bufferPages: true,
-    info: {
-      Title: `Transformer sheet: ${c.designName}, revision ${c.revisionNumber}`,
-      Author: 'Ladderwright',
-      Subject: c.isReleased ? 'Released revision' : 'NOT RELEASED',
-    },
-  });
-  for (const [name, file] of Object.entries(FONT_FILES)) doc.registerFont(name, file);
-  const chunks: Buffer[] = [];
-  doc.on('data', (chunk: Buffer) => chunks.push(chunk));
-  const done = new Promise<Buffer>((resolve, reject) => {
-    doc.on('end', () => resolve(Buffer.concat(chunks)));
-    doc.on('error', reject);
-  });
-  doc.font('regular');
+  const { doc, done } = openSheetDocument(
+    `Transformer sheet: ${c.designName}, revision ${c.revisionNumber}`,
+    c.isReleased,
+  );
   titleBlock(doc, c);
   scheduleSection(doc, c);
   electricalSection(doc, c);
@@ -317,7 +243,12 @@ export async function renderTransformerSheetPdf(c: TransformerSheetContent): Pro
     doc,
     'The secondary of this transformer carries kilovolts. The figures are design predictions; the standard that applies to the equipment, local codes and licensed practice govern every build and test, including the hipot test.',
   );
-  markPages(doc, c);
+  markSheetPages(doc, {
+    isReleased: c.isReleased,
+    banner: `NOT RELEASED: ${c.state} revision, do not wind for production`,
+    footer: (page, count) =>
+      `${c.designName} · transformer · revision ${c.revisionNumber} (${c.state}) · page ${page} of ${count} · High voltage can kill: the applicable standard, local codes and licensed practice govern.`,
+  });
   doc.end();
   return done;
 }

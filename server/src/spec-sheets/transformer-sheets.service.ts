@@ -2,9 +2,9 @@ import { Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
 import type { CurrentUser } from '@ladderwright/shared/api';
 import type { DesignReport } from '@ladderwright/shared/analysis';
-import { canInProject } from '@ladderwright/shared/auth';
 import { DomainError } from '@ladderwright/shared/errors';
 import type { ProjectMembership } from '../common/request.types';
+import { assertMayExportSheet } from './sheet-export-permission';
 import { ProjectModel } from '../projects/project.model';
 import { SignOffService } from '../reviews/sign-off.service';
 import { RevisionLookupService } from '../revisions/revision-lookup.service';
@@ -43,15 +43,7 @@ export class TransformerSheetsService {
     const { ref, user, membership, now } = input;
     const { design, revision } = await this.lookup.find(ref);
     const isReleased = revision.state === 'released';
-    const action = isReleased ? 'specSheet.export' : 'specSheet.exportDraft';
-    if (!canInProject(membership.role, action)) {
-      throw new DomainError(
-        'forbidden',
-        isReleased
-          ? `Only a lead exports the transformer sheet of a released revision (you are ${membership.role})`
-          : `Only an engineer or a lead exports a draft transformer sheet (you are ${membership.role})`,
-      );
-    }
+    assertMayExportSheet(membership, isReleased, 'transformer sheet');
     const document = revision.document;
     const report = revision.report as unknown as DesignReport;
     const driver = document.drive.kind === 'driver' ? document.drive.driver : null;
