@@ -86,6 +86,31 @@ export function WorkbenchResults({
   const [settled] = useDebouncedValue(latest, RESULT_TABS_SETTLE_MS);
   const { report, draft } = useDeferredValue(settled);
   return (
+    <ResultTabs
+      projectId={projectId}
+      revision={revision}
+      revisions={revisions}
+      draft={draft}
+      isDirty={isDirty}
+      report={report}
+      canSimulate={canSimulate}
+      headline={headline}
+    />
+  );
+}
+
+/** The tabs themselves, memoized: a keystroke or an answer that has not reached the settled report renders nothing here. */
+const ResultTabs = memo(function ResultTabs({
+  projectId,
+  revision,
+  revisions,
+  draft,
+  isDirty,
+  report,
+  canSimulate,
+  headline,
+}: Required<WorkbenchResultsProps>) {
+  return (
     <Suspense fallback={<Loader size="sm" aria-label="Loading the tab" />}>
       <Tabs defaultValue="plots" keepMounted={false}>
         <Tabs.List>
@@ -157,4 +182,4 @@ export function WorkbenchResults({
       </Tabs>
     </Suspense>
   );
-}
+});
