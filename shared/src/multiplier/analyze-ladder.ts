@@ -25,7 +25,8 @@ export const STEADY_STATE_METHOD: MethodInfo = {
     'Charge-balance analysis of the Greinacher/Cockcroft-Walton cascade as in Kuffel, Zaengl & Kuffel, High Voltage Engineering Fundamentals, 2nd ed., §2.2.2 (from memory), solved exactly for any capacitor values; Shockley diode equation',
 };
 
-function checkInput(input: LadderInput): void {
+/** The checks of a ladder input's drive, diode and bleeder that every preparation makes (the capacitors are the network's). */
+export function checkLadderInput(input: LadderInput): void {
   const drive = input.drive;
   if (!(drive.frequencyHz > 0))
     throw new DomainError('invalid_argument', 'drive frequency must be positive', 'drive.frequencyHz');
@@ -47,7 +48,7 @@ export interface PreparedLadder {
 }
 
 export function prepareLadder(input: LadderInput): PreparedLadder {
-  checkInput(input);
+  checkLadderInput(input);
   const net = buildLadderNetwork(input.topology, input.capacitorsF);
   return { input, workspace: createWorkspace(net, input) };
 }
