@@ -197,12 +197,15 @@ function cubeRootOfSquare(x: number): number {
   return Math.cbrt(x * x);
 }
 
-/** Per-event source loss and diode drop at a ladder current, from conduction time and charge. */
-function eventLosses(
-  ws: Workspace,
-  currentA: number,
-  event: 0 | 1,
-): { lossScale: number; forwardDropV: number; conductionCurrentA: number } {
+/** One event's source loss (as the share of the peak left) and diode drop at a ladder current. */
+interface EventLoss {
+  lossScale: number;
+  forwardDropV: number;
+  conductionCurrentA: number;
+}
+
+/** Per-event source loss and diode drop at a ladder current, from conduction time and charge (into `out`, no allocation). */
+function eventLosses(ws: Workspace, currentA: number, event: 0 | 1, out: EventLoss): EventLoss {
   const t = ws.timing;
   const q = currentA * t.periodS;
   const isH = event === H;
@@ -233,8 +236,14 @@ function eventLosses(
   const forwardDropV =
     d.emissionCoefficient * ws.thermalV * Math.log1p(conductionCurrentA / d.saturationCurrentA) +
     conductionCurrentA * d.seriesResistanceOhm;
-  return { lossScale: peakV > 0 ? (peakV - lossV) / peakV : 0, forwardDropV, conductionCurrentA };
+  out.lossScale = peakV > 0 ? (peakV - lossV) / peakV : 0;
+  out.forwardDropV = forwardDropV;
+  out.conductionCurrentA = conductionCurrentA;
+  return out;
 }
+
+const lossAtH: EventLoss = { lossScale: 0, forwardDropV: 0, conductionCurrentA: 0 };
+const lossAtL: EventLoss = { lossScale: 0, forwardDropV: 0, conductionCurrentA: 0 };
 
 export interface SolvedCycle {
   /** Ladder-top output just after H, and just after L. */
@@ -252,8 +261,8 @@ export interface SolvedCycle {
 /** One steady-state solve at ladder current `currentA` (fills ws.stateA/stateB and the node voltages). */
 export function solveCycle(ws: Workspace, currentA: number): SolvedCycle {
   const { net, timing } = ws;
-  const lossH = eventLosses(ws, currentA, 0);
-  const lossL = eventLosses(ws, currentA, 1);
+  const lossH = eventLosses(ws, currentA, 0, lossAtH);
+  const lossL = eventLosses(ws, currentA, 1, lossAtL);
   const q = currentA * timing.periodS;
   const anchors = net.anchorScale.length;
   for (let a = 0; a < anchors; a += 1) {

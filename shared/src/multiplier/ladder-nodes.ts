@@ -23,6 +23,21 @@ export interface TerminalFigures {
   maxV: number;
 }
 
+/** Cycle mean of a node: its capacitor sum's mean plus its winding end's (zero for a sine, the time-weighted flat tops for a pulse). */
+function meanOf(
+  timing: Workspace['timing'],
+  anchorA: number,
+  anchorB: number,
+  sumA: number,
+  sumB: number,
+  fallH: number,
+  fallL: number,
+): number {
+  const sumMean = (timing.afterHS * (sumA + fallH / 2) + timing.afterLS * (sumB + fallL / 2)) / timing.periodS;
+  const anchorMean = timing.isSine ? 0 : (timing.afterHS * anchorA + timing.afterLS * anchorB) / timing.periodS;
+  return sumMean + anchorMean;
+}
+
 /**
  * Voltage of every ladder node to ground over the steady-state cycle (V, signed by polarity), from the
  * workspace state the operating-point solve left (call before any other solve). Method: NODE_VOLTAGE_METHOD.
@@ -46,48 +61,44 @@ export function ladderNodeVoltages(
   const retSumB = (nodeB[ret] as number) - retAnchorB;
   const retFallH = fallHS * (nodeRateH[ret] as number);
   const retFallL = fallLS * (nodeRateL[ret] as number);
-  const meanOf = (anchorA: number, anchorB: number, sumA: number, sumB: number, fallH: number, fallL: number) => {
-    const sumMean = (timing.afterHS * (sumA + fallH / 2) + timing.afterLS * (sumB + fallL / 2)) / timing.periodS;
-    const anchorMean = timing.isSine ? 0 : (timing.afterHS * anchorA + timing.afterLS * anchorB) / timing.periodS;
-    return sumMean + anchorMean;
-  };
-  const groundMeanV = meanOf(retAnchorA, retAnchorB, retSumA, retSumB, retFallH, retFallL);
+  const groundMeanV = meanOf(timing, retAnchorA, retAnchorB, retSumA, retSumB, retFallH, retFallL);
   // A sine winding end moves to the opposite extreme between transfers; a flat top holds until its edge.
   const retAfterH = retSumA + retAnchorA;
   const retBeforeL = retSumA + retFallH + (timing.isSine ? retAnchorB : retAnchorA);
   const retAfterL = retSumB + retAnchorB;
   const retBeforeH = retSumB + retFallL + (timing.isSine ? retAnchorA : retAnchorB);
   const nodes: LadderNodeVoltage[] = [];
-  for (let n = 0; n < net.nodeCount; n += 1) {
-    if (n === ret) continue;
-    const info = net.nodeInfo[n];
-    if (!info) continue;
-    const root = net.nodeRoot[n] as number;
-    const anchorA = nodeA[root] as number;
-    const anchorB = nodeB[root] as number;
-    const sumA = (nodeA[n] as number) - anchorA;
-    const sumB = (nodeB[n] as number) - anchorB;
-    const fallH = fallHS * (nodeRateH[n] as number);
-    const fallL = fallLS * (nodeRateL[n] as number);
-    const v0 = sumA + anchorA - retAfterH;
-    const v1 = sumA + fallH + (timing.isSine ? anchorB : anchorA) - retBeforeL;
-    const v2 = sumB + anchorB - retAfterL;
-    const v3 = sumB + fallL + (timing.isSine ? anchorA : anchorB) - retBeforeH;
-    const low = Math.min(v0, v1, v2, v3);
-    const high = Math.max(v0, v1, v2, v3);
-    nodes.push({
-      id: info.id,
-      label: info.label,
-      column: info.column,
-      stage: info.stage,
-      capacitorIndex: info.capacitorIndex,
-      meanV: polarity * (meanOf(anchorA, anchorB, sumA, sumB, fallH, fallL) - groundMeanV),
-      minV: polarity > 0 ? low : -high,
-      maxV: polarity > 0 ? high : -low,
-    });
+  // Winding ends first, then the ladder from the bottom up (node order within each); the load terminal last.
+  for (let pass = 0; pass < 2; pass += 1) {
+    for (let n = 0; n < net.nodeCount; n += 1) {
+      if (n === ret) continue;
+      const info = net.nodeInfo[n];
+      if (!info || (info.column === 'source') !== (pass === 0)) continue;
+      const root = net.nodeRoot[n] as number;
+      const anchorA = nodeA[root] as number;
+      const anchorB = nodeB[root] as number;
+      const sumA = (nodeA[n] as number) - anchorA;
+      const sumB = (nodeB[n] as number) - anchorB;
+      const fallH = fallHS * (nodeRateH[n] as number);
+      const fallL = fallLS * (nodeRateL[n] as number);
+      const v0 = sumA + anchorA - retAfterH;
+      const v1 = sumA + fallH + (timing.isSine ? anchorB : anchorA) - retBeforeL;
+      const v2 = sumB + anchorB - retAfterL;
+      const v3 = sumB + fallL + (timing.isSine ? anchorA : anchorB) - retBeforeH;
+      const low = Math.min(v0, v1, v2, v3);
+      const high = Math.max(v0, v1, v2, v3);
+      nodes.push({
+        id: info.id,
+        label: info.label,
+        column: info.column,
+        stage: info.stage,
+        capacitorIndex: info.capacitorIndex,
+        meanV: polarity * (meanOf(timing, anchorA, anchorB, sumA, sumB, fallH, fallL) - groundMeanV),
+        minV: polarity > 0 ? low : -high,
+        maxV: polarity > 0 ? high : -low,
+      });
+    }
   }
-  // Winding ends first, then the ladder from the bottom up; the load terminal last.
-  nodes.sort((x, y) => Number(x.column !== 'source') - Number(y.column !== 'source'));
   nodes.push({
     id: 'out',
     label: 'load terminal',
