@@ -38,6 +38,20 @@ function meanOf(
   return sumMean + anchorMean;
 }
 
+/** A node's parts at the solved state: winding end after H and after L, capacitor sums, and load falls (one scratch object). */
+const parts = { anchorA: 0, anchorB: 0, sumA: 0, sumB: 0, fallH: 0, fallL: 0 };
+
+function nodeParts(ws: Workspace, n: number, fallHS: number, fallLS: number): typeof parts {
+  const root = ws.net.nodeRoot[n] as number;
+  parts.anchorA = ws.nodeA[root] as number;
+  parts.anchorB = ws.nodeB[root] as number;
+  parts.sumA = (ws.nodeA[n] as number) - parts.anchorA;
+  parts.sumB = (ws.nodeB[n] as number) - parts.anchorB;
+  parts.fallH = fallHS * (ws.nodeRateH[n] as number);
+  parts.fallL = fallLS * (ws.nodeRateL[n] as number);
+  return parts;
+}
+
 /**
  * Voltage of every ladder node to ground over the steady-state cycle (V, signed by polarity), from the
  * workspace state the operating-point solve left (call before any other solve). Method: NODE_VOLTAGE_METHOD.
@@ -50,23 +64,16 @@ export function ladderNodeVoltages(
 ): LadderNodeVoltage[] {
   const { net, timing } = ws;
   // The four instants of the cycle, per node, relative to the return node; no array or object per instant.
-  const { nodeA, nodeB, nodeRateH, nodeRateL } = ws;
   const fallHS = currentA * timing.afterHS;
   const fallLS = currentA * timing.afterLS;
   const ret = net.returnNode;
-  const retRoot = net.nodeRoot[ret] as number;
-  const retAnchorA = nodeA[retRoot] as number;
-  const retAnchorB = nodeB[retRoot] as number;
-  const retSumA = (nodeA[ret] as number) - retAnchorA;
-  const retSumB = (nodeB[ret] as number) - retAnchorB;
-  const retFallH = fallHS * (nodeRateH[ret] as number);
-  const retFallL = fallLS * (nodeRateL[ret] as number);
-  const groundMeanV = meanOf(timing, retAnchorA, retAnchorB, retSumA, retSumB, retFallH, retFallL);
+  const r = nodeParts(ws, ret, fallHS, fallLS);
+  const groundMeanV = meanOf(timing, r.anchorA, r.anchorB, r.sumA, r.sumB, r.fallH, r.fallL);
   // A sine winding end moves to the opposite extreme between transfers; a flat top holds until its edge.
-  const retAfterH = retSumA + retAnchorA;
-  const retBeforeL = retSumA + retFallH + (timing.isSine ? retAnchorB : retAnchorA);
-  const retAfterL = retSumB + retAnchorB;
-  const retBeforeH = retSumB + retFallL + (timing.isSine ? retAnchorA : retAnchorB);
+  const retAfterH = r.sumA + r.anchorA;
+  const retBeforeL = r.sumA + r.fallH + (timing.isSine ? r.anchorB : r.anchorA);
+  const retAfterL = r.sumB + r.anchorB;
+  const retBeforeH = r.sumB + r.fallL + (timing.isSine ? r.anchorA : r.anchorB);
   const nodes: LadderNodeVoltage[] = [];
   // Winding ends first, then the ladder from the bottom up (node order within each); the load terminal last.
   for (let pass = 0; pass < 2; pass += 1) {
@@ -74,13 +81,7 @@ export function ladderNodeVoltages(
       if (n === ret) continue;
       const info = net.nodeInfo[n];
       if (!info || (info.column === 'source') !== (pass === 0)) continue;
-      const root = net.nodeRoot[n] as number;
-      const anchorA = nodeA[root] as number;
-      const anchorB = nodeB[root] as number;
-      const sumA = (nodeA[n] as number) - anchorA;
-      const sumB = (nodeB[n] as number) - anchorB;
-      const fallH = fallHS * (nodeRateH[n] as number);
-      const fallL = fallLS * (nodeRateL[n] as number);
+      const { anchorA, anchorB, sumA, sumB, fallH, fallL } = nodeParts(ws, n, fallHS, fallLS);
       const v0 = sumA + anchorA - retAfterH;
       const v1 = sumA + fallH + (timing.isSine ? anchorB : anchorA) - retBeforeL;
       const v2 = sumB + anchorB - retAfterL;
