@@ -52,7 +52,8 @@ export function warmRoot(surplus: (flyV: number) => number, warm: WarmStart, max
  * Whether the output is above zero at a load current (A), for the bisection that ends the curve, answered
  * without a solve wherever a solved load settles it: the output falls as the load rises, so it is positive
  * below a load where it is positive and zero above one where it is zero. A few secant steps on the output
- * from `positive` (the highest load solved with output, or null) towards `zeroA` (a load without) first
+ * from `positive` (the highest load solved with output, or null; `earlier`, a lower one, gives the first
+ * step its line) towards `zeroA` (a load without) first
  * close in on the crossing, so that the bisection solves only the one or two midpoints next to it; its
  * answers are those of solving at every midpoint.
  */
@@ -60,9 +61,10 @@ export function outputSignsNear(
   pointAt: (loadA: number) => { outputV: number },
   positive: { loadA: number; outputV: number } | null,
   zeroA: number,
+  earlier: { loadA: number; outputV: number } | null = null,
 ): (loadA: number) => boolean {
   let below = positive ?? { loadA: 0, outputV: NaN };
-  let previous: { loadA: number; outputV: number } | null = null;
+  let previous: { loadA: number; outputV: number } | null = positive ? earlier : null;
   let above = zeroA;
   let isLastAbove = false;
   for (let step = 0; step < 6 && above - below.loadA > 2e-5 * above; step += 1) {
@@ -104,4 +106,21 @@ export function warmNear(
     return { flybackV: a.flybackV + t * (b.flybackV - a.flybackV), slope: t < 0.5 ? a.slope : b.slope };
   }
   return null;
+}
+
+/**
+ * A warm start for the first power-limited load past the onset (A), where the flyback leaves its limit (V):
+ * the flyback on the line from the onset to the nearest load solved above it, with that load's slope.
+ */
+export function warmPastOnset(
+  solved: readonly { loadA: number; balance: WarmStart }[],
+  onsetA: number,
+  maxFlyV: number,
+  loadA: number,
+): WarmStart | null {
+  let nearest: { loadA: number; balance: WarmStart } | null = null;
+  for (const s of solved) if (s.loadA > onsetA && (!nearest || s.loadA < nearest.loadA)) nearest = s;
+  if (!nearest || !(loadA > onsetA)) return null;
+  const t = (loadA - onsetA) / (nearest.loadA - onsetA);
+  return { flybackV: maxFlyV + t * (nearest.balance.flybackV - maxFlyV), slope: nearest.balance.slope };
 }

@@ -9,7 +9,9 @@ import type {
 import type { DriverStage } from '../designs/driver-stage.types';
 import type { MethodInfo } from '../methods';
 import type { LadderDrive, LadderLoadLine } from './ladder-load-line';
-import { outputSignsNear, warmNear, warmRoot, type WarmStart } from './load-point-roots';
+import { outputSignsNear, warmNear, warmPastOnset, warmRoot, type WarmStart } from './load-point-roots';
+
+export type { WarmStart } from './load-point-roots';
 
 /** Whether a stage's ladder is fed by the flyback pulse (the secondary phasing; 'flyback' by default). */
 export function isFlybackFed(driver: DriverStage): boolean {
@@ -244,6 +246,20 @@ export function supplyCurrentAt(
 }
 
 /**
+ * `supplyCurrentAt` with the power balance warm-started from a nearby solve's (`warm`, from another supply
+ * voltage or load), giving its own balance for the next.
+ */
+export function supplyCurrentNear(
+  driver: DriverStage,
+  ladder: LadderLoadLine,
+  loadCurrentA: number,
+  warm: WarmStart | null,
+): { supplyCurrentA: number; balance: WarmStart | null } {
+  const solved = solvePoint(driver, ladder, loadCurrentA, {}, undefined, undefined, warm);
+  return { supplyCurrentA: solved.point.supplyCurrentA, balance: solved.balance };
+}
+
+/**
  * Operating point of the driver with the ladder: output at the rated external load current (A), the onset of
  * the power limit (A), and the output-vs-load curve (`points` samples, default 25) from no load to the current
  * at which the output reaches zero.
@@ -260,8 +276,10 @@ export function driverOperatingPoint(
   const limitDrive = driveOf(limitEst, driver);
   // The end of the curve's loads, each warm-started from the last power balance solved.
   let lastBalance: WarmStart | null = null;
+  const endBalances: { loadA: number; balance: WarmStart }[] = [];
   const pointAt = (loadA: number) => {
     const solved = solvePoint(driver, ladder, loadA, options, limitEst, undefined, lastBalance);
+    if (solved.balance) endBalances.push({ loadA, balance: solved.balance });
     lastBalance = solved.balance ?? lastBalance;
     return solved.point;
   };
@@ -294,13 +312,15 @@ export function driverOperatingPoint(
   // (6e-5 relative, below the curve's sampling).
   let hiA = Math.max(powerLimitOnsetA, 1e-9);
   let lastOutput: { loadA: number; outputV: number } | null = null;
+  let earlierOutput: { loadA: number; outputV: number } | null = null;
   for (let k = 0; k < 60; k++) {
     const outputV = pointAt(hiA).outputV;
     if (!(outputV > 0)) break;
+    earlierOutput = lastOutput;
     lastOutput = { loadA: hiA, outputV };
     hiA *= 2;
   }
-  const hasOutputAt = outputSignsNear(pointAt, lastOutput, hiA);
+  const hasOutputAt = outputSignsNear(pointAt, lastOutput, hiA, earlierOutput);
   let loA = 0;
   for (let k = 0; k < 14; k++) {
     const mid = 0.5 * (loA + hiA);
@@ -314,7 +334,10 @@ export function driverOperatingPoint(
     const loadA = (hiA * i) / (points - 1);
     const a = balances[i - 1];
     const b = balances[i - 2];
-    const warm = a && b ? { flybackV: 2 * a.flybackV - b.flybackV, slope: a.slope } : (a ?? null);
+    const warm =
+      a && b
+        ? { flybackV: 2 * a.flybackV - b.flybackV, slope: a.slope }
+        : (a ?? warmPastOnset(endBalances, powerLimitOnsetA, maxFlyV, loadA));
     const solved = solvePoint(driver, ladder, loadA, options, limitEst, curve[i - 1]?.flybackSecondaryPeakV, warm);
     curve.push(solved.point);
     balances.push(solved.balance);
