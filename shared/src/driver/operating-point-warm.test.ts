@@ -5,7 +5,13 @@ import type { DriverStage } from '../designs/driver-stage.types';
 import { ladderInputOf, resolveDrive } from '../analysis/analyze-design';
 import { blockingOscillatorNumbers } from './blocking-oscillator';
 import { engineLadderLoadLine } from './ladder-load-line';
-import { driverOperatingPoint, solveLoadPoint } from './operating-point';
+import {
+  driverOperatingPoint,
+  solveLoadPoint,
+  supplyCurrentAt,
+  supplyCurrentNear,
+  type WarmStart,
+} from './operating-point';
 
 /*
  * The warm-started solves (Newton's method from a nearby load's power balance, the supply's Newton step from a
@@ -72,6 +78,16 @@ describe.each(Object.entries(designs))('warm-started driver solves: %s', (_, des
       expectClose(warm.vin, cold.vin);
       expectClose(warm.inputA, cold.inputA);
       expectClose(warm.deliverableW, cold.deliverableW);
+    }
+  });
+
+  it('draw the supply current the cold solve gives along a table of supply voltages, each from the last', () => {
+    let warm: WarmStart | null = null;
+    for (const voltageV of [1.6, 2, 2.4, 2.8, 3.2, 4, 5]) {
+      const bench: DriverStage = { ...stage, supply: { kind: 'dc', voltageV, sourceResistanceOhm: 0 } };
+      const near = supplyCurrentNear(bench, ladder, 20e-6, warm);
+      warm = near.balance ?? warm;
+      expectClose(near.supplyCurrentA, supplyCurrentAt(bench, ladder, 20e-6));
     }
   });
 });
