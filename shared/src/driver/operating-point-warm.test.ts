@@ -90,4 +90,21 @@ describe.each(Object.entries(designs))('warm-started driver solves: %s', (_, des
       expectClose(near.supplyCurrentA, supplyCurrentAt(bench, ladder, 20e-6));
     }
   });
+
+  it('give a ladder load line’s output from its last current as a fresh line does', () => {
+    const fresh = () => engineLadderLoadLine(ladderInputOf(design, drive, currentLimitA));
+    const used = fresh();
+    const pulse = { forwardPeakV: 170, flybackPeakV: 1400, frequencyHz: 3e4, dutyCycle: 0.85, isFlybackFed: true };
+    for (const [flybackPeakV, loadA] of [
+      [1400, 0],
+      [1300, 5e-6],
+      [900, 40e-6],
+      [1450, 1e-6],
+    ] as const) {
+      const got = used.at({ ...pulse, flybackPeakV }, loadA);
+      const want = fresh().at({ ...pulse, flybackPeakV }, loadA);
+      expectClose(got.outputV, want.outputV);
+      expectClose(got.ladderCurrentA, want.ladderCurrentA);
+    }
+  });
 });
