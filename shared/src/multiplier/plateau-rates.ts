@@ -51,7 +51,7 @@ export function plateauRates(net: LadderNetwork, loadRate: readonly number[], ev
         capRate[c] = scratch.capRate[c] as number;
         diodeCapDelta[c] = (scratch.capRate[c] as number) - (loadRate[c] as number);
       }
-      return { capRate, nodeRate: Array.from(scratch.nodeRate), diodeCapDelta };
+      return { capRate, nodeRate: Array.from(scratch.nodeRate.subarray(0, net.nodeCount)), diodeCapDelta };
     }
     conducting[worst] = 0;
     active -= 1;
@@ -150,10 +150,22 @@ interface Scratch {
   queue: Int32Array;
 }
 
+/** The work arrays of the largest network solved yet, reused by smaller ones (every entry is written before it is read). */
+let lastScratch: Scratch | null = null;
+
 function createScratch(net: LadderNetwork): Scratch {
   const nodes = net.nodeCount;
   const diodes = net.diodeEvent.length;
-  return {
+  const m = net.capF.length;
+  if (
+    lastScratch &&
+    lastScratch.parent.length >= nodes &&
+    lastScratch.current.length >= diodes &&
+    lastScratch.capRate.length >= m
+  ) {
+    return lastScratch;
+  }
+  lastScratch = {
     parent: new Int32Array(nodes),
     index: new Int32Array(nodes),
     groupOf: new Int32Array(nodes),
@@ -170,6 +182,7 @@ function createScratch(net: LadderNetwork): Scratch {
     known: new Uint8Array(diodes),
     queue: new Int32Array(nodes),
   };
+  return lastScratch;
 }
 
 function find(parent: Int32Array, n: number): number {
