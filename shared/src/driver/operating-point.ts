@@ -112,24 +112,23 @@ function solvePoint(
   const forwardLoadPowerW = ratios.forward * limit.forwardSecV * limitLadderA;
   let supplyGuessV = limit.vin;
   let supplySlope = limit.supplySlope;
-  const at = (flyV: number): { stage: OscillatorNumbers; options: BlockingOscillatorOptions } => {
-    const stageOptions: BlockingOscillatorOptions = {
-      ...options,
-      flybackSecondaryPeakV: flyV,
-      forwardLoadPowerW,
-      supplyVoltageGuessV: supplyGuessV,
-    };
+  // The stage at a flyback, its supply solve started from the last one's; the options object is filled in
+  // place (the surplus's evaluations share one, the solved point gets its own).
+  const stageAtFlyback = (flyV: number, stageOptions: BlockingOscillatorOptions): OscillatorNumbers => {
+    stageOptions.flybackSecondaryPeakV = flyV;
+    stageOptions.supplyVoltageGuessV = supplyGuessV;
     if (supplySlope !== undefined) stageOptions.supplySlopeGuess = supplySlope;
     const stage = blockingOscillatorNumbers(driver, stageOptions);
     supplyGuessV = stage.vin;
     supplySlope = stage.supplySlope ?? supplySlope;
-    return { stage, options: stageOptions };
+    return stage;
   };
+  const evalOptions: BlockingOscillatorOptions = { ...options, forwardLoadPowerW };
   // Surplus of flyback power over what the ladder takes, per volt of flyback. Copper loss makes it fall at
   // very slow flybacks too, so there can be two roots: take the highest (the stable one) by scanning down
   // from the limit on a log grid (8 points a decade over 6 decades), then solving in that bracket.
   const surplus = (flyV: number) => {
-    const e = at(flyV).stage;
+    const e = stageAtFlyback(flyV, evalOptions);
     return e.deliverableW / flyV - ratios.flyback * ladder.at(driveOf(e, driver), loadCurrentA).ladderCurrentA;
   };
   let flyV = maxFlyV;
@@ -193,8 +192,8 @@ function solvePoint(
       balance = { flybackV: flyV, slope: (hi * surplusHi - lo * surplusLo) / (hi - lo) };
     }
   }
-  const solved = at(flyV);
-  const stage = solved.stage;
+  const stageOptions: BlockingOscillatorOptions = { ...options, forwardLoadPowerW };
+  const stage = stageAtFlyback(flyV, stageOptions);
   const loaded = ladder.at(driveOf(stage, driver), loadCurrentA);
   const outputPowerW = loaded.outputV * loadCurrentA;
   const flybackTakenW = Math.min(stage.deliverableW, ratios.flyback * loaded.ladderCurrentA * flyV);
@@ -216,7 +215,7 @@ function solvePoint(
       efficiency: outputPowerW / stage.emfW,
     },
     stage,
-    stageOptions: solved.options,
+    stageOptions,
     balance,
   };
 }
