@@ -283,29 +283,46 @@ export function driverOperatingPoint(
     return solved.point;
   };
   // Deliverable flyback power over what the ladder takes at the limit drive, per volt of flyback: power-limited below zero.
+  let lastFlybackRatio = NaN;
   const limitSurplusAt = (loadA: number) => {
     const state = ladder.at(limitDrive, loadA);
-    return (
-      limitEst.deliverableW / maxFlyV -
-      ladder.chargeRatios(limitDrive, state.ladderCurrentA).flyback * state.ladderCurrentA
-    );
+    lastFlybackRatio = ladder.chargeRatios(limitDrive, state.ladderCurrentA).flyback;
+    return limitEst.deliverableW / maxFlyV - lastFlybackRatio * state.ladderCurrentA;
   };
-  // Onset: bracket by doubling, then solve to the resolution of 40 halvings (1e-12 relative).
+  // Onset: bracketed around the load the no-load surplus would carry at the no-load charge ratio (the
+  // surplus falls nearly in proportion to the load), widened by doubling and halving, then solved to the
+  // resolution of 40 halvings (1e-12 relative). Past 1e-9·2⁸⁰ A the driver is taken never to limit.
+  const neverA = 1e-9 * 2 ** 80;
   let powerLimitOnsetA = 0;
   const surplusAtNoLoad = limitSurplusAt(0);
   if (surplusAtNoLoad >= 0) {
+    const guessA = surplusAtNoLoad / lastFlybackRatio;
+    const hasGuess = guessA > 1e-9 && guessA < neverA;
     let loA = 0;
     let surplusLo = surplusAtNoLoad;
-    let hiA = 1e-9;
+    let hiA = hasGuess ? 1.25 * guessA : 1e-9;
     let surplusHi = limitSurplusAt(hiA);
-    for (let k = 0; k < 80 && surplusHi >= 0; k++) {
+    if (hasGuess && surplusHi < 0) {
+      // The low end: just below the guess, halved towards no load while the surplus there is negative.
+      for (let a = 0.8 * guessA, k = 0; k < 40 && a > 1e-12 * guessA; k++, a /= 2) {
+        const surplus = limitSurplusAt(a);
+        if (surplus >= 0) {
+          loA = a;
+          surplusLo = surplus;
+          break;
+        }
+        hiA = a;
+        surplusHi = surplus;
+      }
+    }
+    for (let k = 0; k < 80 && surplusHi >= 0 && hiA < neverA; k++) {
       loA = hiA;
       surplusLo = surplusHi;
-      hiA *= 2;
+      hiA = Math.min(2 * hiA, neverA);
       surplusHi = limitSurplusAt(hiA);
     }
     powerLimitOnsetA =
-      surplusHi >= 0 ? hiA : bracketedRoot(limitSurplusAt, loA, hiA, surplusLo, surplusHi, hiA * 2 ** -40);
+      surplusHi >= 0 ? neverA : bracketedRoot(limitSurplusAt, loA, hiA, surplusLo, surplusHi, hiA * 2 ** -40);
   }
   // End of the curve: where the output reaches zero; bracket by doubling from the onset, then 14 bisections
   // (6e-5 relative, below the curve's sampling).
