@@ -9,7 +9,7 @@ import type {
 import type { DriverStage } from '../designs/driver-stage.types';
 import type { MethodInfo } from '../methods';
 import type { LadderDrive, LadderLoadLine } from './ladder-load-line';
-import { outputSignsNear, warmNear, warmPastOnset, warmRoot, type WarmStart } from './load-point-roots';
+import { outputSignsNear, scanDown, warmNear, warmPastOnset, warmRoot, type WarmStart } from './load-point-roots';
 
 export type { WarmStart } from './load-point-roots';
 
@@ -169,16 +169,11 @@ function solvePoint(
         surplusLo = s;
       }
     } else {
-      for (let k = 1; k <= scanPoints; k++) {
-        const v = gridV(k);
-        const s = surplus(v);
-        if (s >= 0) {
-          lo = v;
-          surplusLo = s;
-          break;
-        }
-        hi = v;
-        surplusHi = s;
+      const scan = scanDown(surplus, gridV, scanPoints, hi, surplusHi);
+      ({ hi, fHi: surplusHi } = scan);
+      if (scan.found) {
+        lo = scan.lo;
+        surplusLo = scan.fLo;
       }
     }
     if (lo === null) {
@@ -303,16 +298,12 @@ export function driverOperatingPoint(
     let hiA = hasGuess ? 1.25 * guessA : 1e-9;
     let surplusHi = limitSurplusAt(hiA);
     if (hasGuess && surplusHi < 0) {
-      // The low end: just below the guess, halved towards no load while the surplus there is negative.
-      for (let a = 0.8 * guessA, k = 0; k < 40 && a > 1e-12 * guessA; k++, a /= 2) {
-        const surplus = limitSurplusAt(a);
-        if (surplus >= 0) {
-          loA = a;
-          surplusLo = surplus;
-          break;
-        }
-        hiA = a;
-        surplusHi = surplus;
+      // The low end: just below the guess, halved towards no load (40 times) while the surplus there is negative.
+      const scan = scanDown(limitSurplusAt, (k) => (0.8 * guessA) / 2 ** (k - 1), 40, hiA, surplusHi);
+      ({ hi: hiA, fHi: surplusHi } = scan);
+      if (scan.found) {
+        loA = scan.lo;
+        surplusLo = scan.fLo;
       }
     }
     for (let k = 0; k < 80 && surplusHi >= 0 && hiA < neverA; k++) {
