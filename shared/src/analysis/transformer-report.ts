@@ -33,3 +33,9 @@ export function designedTransformerReport(design: Design, driver: DriverReport |
   });
   return analyzeTransformer(section, point, design.targets.spacing);
 }
+
+/** The design on its driver stage's given transformer numbers (the section kept, not used). */
+export function withGivenTransformer(design: Design): Design {
+  if (design.drive.kind !== 'driver') return design;
+  return { ...design, drive: { ...design.drive, driver: { ...design.drive.driver, transformerChoice: 'given' } } };
+}
