@@ -126,4 +126,18 @@ describe('temperature rise (McLyman, Transformer and Inductor Design Handbook, 3
     expect(woundSurfaceAreaM2(1e-4, 1e-4)).toBeCloseTo(41.3e-4, 12);
     expect(temperatureRiseC(0, 1e-3)).toBe(0);
   });
+
+  it('agrees with the ferrite-core rule Rth = 53·Vcore^−0.54 K/W (Vcore in cm³) within 20 % near a 30 °C rise', () => {
+    // Read: Encyclopedia Magnetica, "Thermal resistance" (empirical rule for ferrite cores in free air; its
+    // maker's handbook from memory). Two independent published rules for the same core: E20 and E25 demo cores.
+    for (const core of [
+      { windowM2: 48e-6, areaM2: 32e-6, volumeCm3: 1.34 },
+      { windowM2: 87e-6, areaM2: 52.5e-6, volumeCm3: 3.02 },
+    ]) {
+      const rthRule = 53 * core.volumeCm3 ** -0.54;
+      const lossW = 30 / rthRule;
+      const rthMcLyman = temperatureRiseC(lossW, woundSurfaceAreaM2(core.windowM2, core.areaM2)) / lossW;
+      expect(Math.abs(rthMcLyman / rthRule - 1)).toBeLessThan(0.2);
+    }
+  });
 });
