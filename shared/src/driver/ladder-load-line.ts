@@ -3,6 +3,7 @@ import { DomainError } from '../errors';
 import { prepareLadder, terminalMeanAt, type PreparedLadder } from '../multiplier/analyze-ladder';
 import { withDriveTiming } from '../multiplier/with-drive';
 import type { LadderInput } from '../multiplier/ladder.types';
+import type { SecondaryLoad } from './ring-back';
 
 /** The secondary drive a ladder sees from a blocking oscillator: unequal forward and flyback peaks. */
 export interface LadderDrive {
@@ -33,6 +34,23 @@ export interface LadderLoadLine {
   chargeRatios(drive: LadderDrive, ladderCurrentA: number): { flyback: number; forward: number };
   /** The output network, for the power balance (bleeder Ω or null, series output resistor Ω); none when absent. */
   network?: { bleederOhm: number | null; seriesOutputResistanceOhm: number };
+  /** The ladder's capacitance on the secondary for the driver's ring-back between pulses; none when absent. */
+  secondaryLoad?: SecondaryLoad;
+}
+
+/**
+ * The half-wave ladder's load on the secondary between pulses: one diode per cell, each swinging by the
+ * secondary's peak-to-peak, and the strays of the oscillating column's nodes (every other node).
+ */
+export function secondaryLoadOf(
+  input: Pick<LadderInput, 'capacitorsF' | 'diode' | 'strayCapacitanceF'>,
+): SecondaryLoad {
+  const cells = input.capacitorsF.length;
+  return {
+    diodeCount: cells,
+    diodeJunctionCapacitanceF: input.diode.junctionCapacitanceF ?? 0,
+    swingingStrayCapacitanceF: Math.ceil(cells / 2) * (input.strayCapacitanceF ?? 0),
+  };
 }
 
 /** The pulse drive of the ladder model for a LadderDrive behind the secondary winding resistance (Ω). */
@@ -80,6 +98,7 @@ export function engineLadderLoadLine(input: LadderInput): LadderLoadLine {
   };
   return {
     network: { bleederOhm: input.bleederOhm, seriesOutputResistanceOhm: seriesOhm },
+    secondaryLoad: secondaryLoadOf(input),
     at(drive, loadCurrentA) {
       const pulse = pulseDriveOf(drive, sourceOhm);
       loaded = loaded ? withDriveTiming(loaded, pulse) : prepareLadder({ ...input, load: null, drive: pulse });
