@@ -6,6 +6,7 @@ import { ladderInputOf, resolveDrive } from '../analysis/analyze-design';
 import { bracketedRoot } from '../multiplier/bracketed-root';
 import { blockingOscillatorNumbers } from './blocking-oscillator';
 import { engineLadderLoadLine } from './ladder-load-line';
+import { forwardPeakFor, forwardShareOf } from './ring-back';
 import {
   driverOperatingPoint,
   solveLoadPoint,
@@ -110,12 +111,13 @@ describe.each(Object.entries(designs))('warm-started driver solves: %s', (_, des
   });
 
   it('put the onset of the power limit where the doubling bracket from 1 nA and Brent’s method put it', () => {
-    const limit = blockingOscillatorNumbers(stage);
+    // The stage at its limit with the ladder's load on the secondary, the forward peak at the recovery level.
+    const limit = blockingOscillatorNumbers(stage, ladder.secondaryLoad ? { secondaryLoad: ladder.secondaryLoad } : {});
     const limitDrive = {
-      forwardPeakV: limit.forwardSecV,
+      forwardPeakV: forwardPeakFor(limit, 0),
       flybackPeakV: limit.flybackSecV,
       frequencyHz: limit.frequencyHz,
-      dutyCycle: limit.tOn / (limit.tOn + limit.tFly),
+      dutyCycle: forwardShareOf(limit),
       isFlybackFed: (stage.transformer.secondaryPhasing ?? 'flyback') === 'flyback',
     };
     const surplusAt = (loadA: number) => {
