@@ -5,7 +5,7 @@ import { useQueryClient, useSuspenseQuery, type QueryClient } from '@tanstack/re
 import { Link, redirect, useNavigate, useParams, useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
 import type { Part, RevisionDetail, RevisionSummary, StaleBaseError } from '@ladderwright/shared/api';
 import { canActInProject } from '@ladderwright/shared/auth';
-import { headlineSource } from '@ladderwright/shared/analysis';
+import { headlineSource, simulationSourceLabel } from '@ladderwright/shared/analysis';
 import { documentFieldLabel, type Design } from '@ladderwright/shared/designs';
 import { paths } from '../../../config/paths';
 import { queryKeys } from '../../../lib/query-keys';
@@ -219,7 +219,7 @@ function EditableRevision({
                 ? live.isPending
                   ? 'live preview, updating…'
                   : 'live preview (unsaved edits)'
-                : `server result of r${revision.number} · ${headline?.source === 'simulation' ? 'figures from simulation' : 'estimate'}`}
+                : `server result of r${revision.number} · ${headline?.source === 'simulation' ? `figures ${simulationSourceLabel(headline)}` : 'estimate'}`}
             </Badge>
           </Group>
           {live.engineError && isDirty && (

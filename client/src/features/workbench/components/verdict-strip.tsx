@@ -1,7 +1,7 @@
 import { memo } from 'react';
 import { Group, Paper, Text } from '@mantine/core';
 import type { Design } from '@ladderwright/shared/designs';
-import type { DesignReport, HeadlineSource } from '@ladderwright/shared/analysis';
+import { simulationSourceLabel, type DesignReport, type HeadlineSource } from '@ladderwright/shared/analysis';
 import { verdictStripFigures, type StripFigure } from '../verdict-strip-figures';
 import { MethodNote } from './method-note';
 import { VerdictBadge } from './verdict-badge';
@@ -24,14 +24,21 @@ export const VerdictStrip = memo(function VerdictStrip({ report, targets, headli
   return (
     <div className={classes.strip} aria-label="Verdict strip" role="list">
       {verdictStripFigures(report, targets, headline).map((figure) => (
-        <FigureCell key={figure.key} figure={figure} isMixed={headline?.source === 'simulation'} />
+        <FigureCell
+          key={figure.key}
+          figure={figure}
+          simulationLabel={headline?.source === 'simulation' ? simulationSourceLabel(headline) : null}
+        />
       ))}
     </div>
   );
 });
 
-/** `isMixed`: some figures come from the stored simulation, so each one says where it comes from. */
-function FigureCell({ figure, isMixed }: { figure: StripFigure; isMixed: boolean }) {
+/**
+ * `simulationLabel`: some figures come from the stored simulation, so each one says where it comes from
+ * ("from simulation", with "not settled within …" when the run did not settle); null when none does.
+ */
+function FigureCell({ figure, simulationLabel }: { figure: StripFigure; simulationLabel: string | null }) {
   return (
     <Paper
       withBorder
@@ -67,7 +74,7 @@ function FigureCell({ figure, isMixed }: { figure: StripFigure; isMixed: boolean
           <VerdictBadge verdict={figure.verdict} margin={figure.margin ?? undefined} size="sm" />
         </Group>
       )}
-      {isMixed && figure.source && (
+      {simulationLabel !== null && figure.source && (
         <Text
           fz={11}
           c={figure.source === 'simulation' ? 'verdigris.8' : 'dimmed'}
@@ -76,7 +83,7 @@ function FigureCell({ figure, isMixed }: { figure: StripFigure; isMixed: boolean
           mt={2}
           data-figure-source={figure.source}
         >
-          {figure.source === 'simulation' ? 'from simulation' : 'estimate'}
+          {figure.source === 'simulation' ? simulationLabel : 'estimate'}
         </Text>
       )}
       {figure.difference && (figure.difference.exceedsTolerance || figure.source === 'simulation') && (
