@@ -1,4 +1,4 @@
-import { useCallback, useMemo, useState } from 'react';
+import { useCallback, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import { Alert, Anchor, Badge, Breadcrumbs, Group, List, Stack, Text } from '@mantine/core';
 import { useDocumentTitle } from '@mantine/hooks';
 import { useQueryClient, useSuspenseQuery, type QueryClient } from '@tanstack/react-query';
@@ -166,18 +166,30 @@ function EditableRevision({
     );
   };
 
+  // The header is memoized: Save reaches the latest submit through a ref, so its handler keeps its identity.
+  const submitRef = useRef(submit);
+  useLayoutEffect(() => {
+    submitRef.current = submit;
+  });
+  const onSave = useCallback((changeNote: string) => submitRef.current(changeNote), []);
+
   return (
     <Stack gap="sm">
       <WorkbenchHeader
         projectId={projectId}
         revision={revision}
         latestRevisionNumber={latestRevisionNumber}
-        draft={draft}
+        isDirty={isDirty}
+        canUndo={draft.canUndo}
+        canRedo={draft.canRedo}
+        onUndo={draft.undo}
+        onRedo={draft.redo}
+        onDiscard={draft.discard}
         isReadOnly={isReadOnly}
         isArchived={isArchived}
         isSaving={save.isPending}
         issueCount={issueCount}
-        onSave={submit}
+        onSave={onSave}
       />
       {stale && (
         <WorkbenchStaleAlert
