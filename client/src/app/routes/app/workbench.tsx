@@ -6,7 +6,7 @@ import { Link, redirect, useNavigate, useParams, useSearchParams, type LoaderFun
 import type { Part, RevisionDetail, RevisionSummary, StaleBaseError } from '@ladderwright/shared/api';
 import { canActInProject } from '@ladderwright/shared/auth';
 import { headlineSource } from '@ladderwright/shared/analysis';
-import { documentFieldLabel } from '@ladderwright/shared/designs';
+import { documentFieldLabel, type Design } from '@ladderwright/shared/designs';
 import { paths } from '../../../config/paths';
 import { queryKeys } from '../../../lib/query-keys';
 import { staleBaseOf, useCreateRevision } from '../../../features/designs/api/create-revision';
@@ -253,6 +253,8 @@ function EditableRevision({
               report={report}
               canSimulate={!isArchived}
               headline={headline}
+              shelf={shelf ?? noParts}
+              {...(isReadOnly ? {} : { onDraftChange: (next: Design) => draft.setDraft(next) })}
             />
           )}
         </section>
