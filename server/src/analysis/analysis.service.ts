@@ -14,6 +14,8 @@ export interface EngineRunner {
   run(task: EngineTask): Promise<EngineTaskOutcome>;
 }
 
+const CLOSING_BRACE = Buffer.from('}', 'utf8');
+
 /** A numeric headline figure of a report, by its path in the report. */
 export interface HeadlineFigure {
   key: string;
@@ -107,20 +109,25 @@ export class AnalysisService {
   }
 
   /**
-   * `evaluate` as the JSON text of its answer, for routes that only send it on: the worker serialises the report,
-   * so it crosses the thread boundary as one string and is never copied or serialised on this thread. The
-   * document is validated on the worker (as every engine task is), with the same 400 naming the field.
+   * `evaluate` as the UTF-8 bytes of its answer's JSON text, for routes that only send it on: the worker
+   * serialises the report and encodes it, so it crosses the thread boundary as bytes and is never copied into a
+   * string or serialised on this thread. The document is validated on the worker (as every engine task is), with
+   * the same 400 naming the field.
    */
-  async evaluateJson(document: unknown, fieldPrefix = 'document', shelf?: readonly ShelfPart[]): Promise<string> {
-    const report = await this.analyze(document as Design, fieldPrefix, shelf, 'json');
-    return `{"engineVersion":${JSON.stringify(this.engineVersion)},"report":${report as string}}`;
+  async evaluateJsonBytes(document: unknown, fieldPrefix = 'document', shelf?: readonly ShelfPart[]): Promise<Buffer> {
+    const report = (await this.analyze(document as Design, fieldPrefix, shelf, 'json-bytes')) as Uint8Array;
+    return Buffer.concat([
+      Buffer.from(`{"engineVersion":${JSON.stringify(this.engineVersion)},"report":`, 'utf8'),
+      Buffer.from(report.buffer, report.byteOffset, report.byteLength),
+      CLOSING_BRACE,
+    ]);
   }
 
   private async analyze(
     design: Design,
     fieldPrefix: string,
     shelf: readonly ShelfPart[] | undefined,
-    reportAs: 'object' | 'json',
+    reportAs: 'object' | 'json-bytes',
   ): Promise<unknown> {
     const outcome = await this.withFieldPrefixAsync(fieldPrefix, () =>
       this.engine.run({ kind: 'analyze', document: design, reportAs, ...(shelf ? { shelf } : {}) }),

@@ -9,6 +9,9 @@ import type {
 import type { DriverStage } from '../designs/driver-stage.types';
 import type { MethodInfo } from '../methods';
 import type { LadderDrive, LadderLoadLine } from './ladder-load-line';
+import { outputSignsNear, warmNear, warmPastOnset, warmRoot, type WarmStart } from './load-point-roots';
+
+export type { WarmStart } from './load-point-roots';
 
 /** Whether a stage's ladder is fed by the flyback pulse (the secondary phasing; 'flyback' by default). */
 export function isFlybackFed(driver: DriverStage): boolean {
@@ -80,12 +83,15 @@ interface SolvedPoint {
   point: LoadPoint;
   stage: OscillatorNumbers;
   stageOptions: BlockingOscillatorOptions;
+  /** The power balance where it was solved by the surplus (power-limited), to warm-start a nearby load's. */
+  balance: WarmStart | null;
 }
 
 /**
  * The load point as numbers. `limit` is the stage at its clamp limit with no forward load (the same for every
  * load current of one driver), passed in by callers that solve many loads; `flybackGuessV`, a nearby load's
- * flyback, starts the scan for the power balance's bracket there instead of at the limit.
+ * flyback, starts the scan for the power balance's bracket there instead of at the limit; `warm`, a nearby
+ * load's balance, starts Newton's method there (the scan runs only where it does not settle).
  */
 function solvePoint(
   driver: DriverStage,
@@ -94,6 +100,7 @@ function solvePoint(
   options: BlockingOscillatorOptions,
   limit: OscillatorNumbers = blockingOscillatorNumbers(driver, options),
   flybackGuessV?: number,
+  warm?: WarmStart | null,
 ): SolvedPoint {
   if (!(loadCurrentA >= 0)) throw new DomainError('invalid_argument', 'load current must be ≥ 0', 'loadCurrentA');
   const maxFlyV = limit.maxFlybackSecV;
@@ -104,15 +111,18 @@ function solvePoint(
   // solve, so that the supply sag is the same in the balance and in the reported figures.
   const forwardLoadPowerW = ratios.forward * limit.forwardSecV * limitLadderA;
   let supplyGuessV = limit.vin;
+  let supplySlope = limit.supplySlope;
   const at = (flyV: number): { stage: OscillatorNumbers; options: BlockingOscillatorOptions } => {
-    const stageOptions = {
+    const stageOptions: BlockingOscillatorOptions = {
       ...options,
       flybackSecondaryPeakV: flyV,
       forwardLoadPowerW,
       supplyVoltageGuessV: supplyGuessV,
     };
+    if (supplySlope !== undefined) stageOptions.supplySlopeGuess = supplySlope;
     const stage = blockingOscillatorNumbers(driver, stageOptions);
     supplyGuessV = stage.vin;
+    supplySlope = stage.supplySlope ?? supplySlope;
     return { stage, options: stageOptions };
   };
   // Surplus of flyback power over what the ladder takes, per volt of flyback. Copper loss makes it fall at
@@ -124,6 +134,7 @@ function solvePoint(
   };
   let flyV = maxFlyV;
   let limitedBy: OperatingLimit = 'ladder';
+  let balance: WarmStart | null = null;
   const surplusAtLimit = surplus(maxFlyV);
   if (surplusAtLimit < 0) {
     limitedBy = 'power';
@@ -136,12 +147,15 @@ function solvePoint(
     // From a nearby load's flyback: the grid point below it and, while the surplus there is positive, the
     // points above, to the first negative one. With at most two roots the surplus is positive on one run of
     // the grid only, so this is the bracket the scan from the limit finds; else the scan runs.
+    balance = warm ? warmRoot(surplus, warm, maxFlyV) : null;
     const guessK =
-      flybackGuessV !== undefined && flybackGuessV > 0 && flybackGuessV < maxFlyV
+      balance === null && flybackGuessV !== undefined && flybackGuessV > 0 && flybackGuessV < maxFlyV
         ? Math.min(scanPoints, Math.ceil((Math.log10(maxFlyV / flybackGuessV) * scanPoints) / 6))
         : 0;
     const surplusAtGuess = guessK > 0 ? surplus(gridV(guessK)) : -1;
-    if (surplusAtGuess >= 0) {
+    if (balance !== null) {
+      lo = balance.flybackV;
+    } else if (surplusAtGuess >= 0) {
       let k = guessK;
       lo = gridV(k);
       surplusLo = surplusAtGuess;
@@ -170,9 +184,13 @@ function solvePoint(
     }
     if (lo === null) {
       flyV = maxFlyV * 1e-6; // the driver cannot push the ladder's charge at any flyback: output collapses
+    } else if (balance !== null) {
+      flyV = balance.flybackV;
     } else {
       // To the resolution 40 halvings of the bracket (an eighth of a decade) would give: 2e-13 relative.
       flyV = bracketedRoot(surplus, lo, hi, surplusLo, surplusHi, (hi - lo) * 2 ** -40);
+      // The power surplus's slope there for the next load's warm start (over the bracket, an eighth of a decade).
+      balance = { flybackV: flyV, slope: (hi * surplusHi - lo * surplusLo) / (hi - lo) };
     }
   }
   const solved = at(flyV);
@@ -199,6 +217,7 @@ function solvePoint(
     },
     stage,
     stageOptions: solved.options,
+    balance,
   };
 }
 
@@ -227,42 +246,17 @@ export function supplyCurrentAt(
 }
 
 /**
- * Whether the output is above zero at a load current (A), for the bisection that ends the curve, answered
- * without a solve wherever a solved load settles it: the output falls as the load rises, so it is positive
- * below a load where it is positive and zero above one where it is zero. A few secant steps on the output
- * from `positive` (the highest load solved with output, or null) towards `zeroA` (a load without) first
- * close in on the crossing, so that the bisection solves only the one or two midpoints next to it; its
- * answers are those of solving at every midpoint.
+ * `supplyCurrentAt` with the power balance warm-started from a nearby solve's (`warm`, from another supply
+ * voltage or load), giving its own balance for the next.
  */
-function outputSignsNear(
-  pointAt: (loadA: number) => LoadPoint,
-  positive: { loadA: number; outputV: number } | null,
-  zeroA: number,
-): (loadA: number) => boolean {
-  let below = positive ?? { loadA: 0, outputV: NaN };
-  let previous: { loadA: number; outputV: number } | null = null;
-  let above = zeroA;
-  let isLastAbove = false;
-  for (let step = 0; step < 6 && above - below.loadA > 2e-5 * above; step += 1) {
-    // The line through the last two loads with output, else halfway; aimed 1e-5 past the crossing after a
-    // load with output and short of it after one without, so that both sides close in to about the
-    // bisection's last steps.
-    const slope = previous ? (below.outputV - previous.outputV) / (below.loadA - previous.loadA) : NaN;
-    let guessA = slope < 0 ? below.loadA - below.outputV / slope : 0.5 * (below.loadA + above);
-    guessA *= isLastAbove ? 1 - 1e-5 : 1 + 1e-5;
-    if (!(guessA > below.loadA && guessA < above)) guessA = 0.5 * (below.loadA + above);
-    const outputV = pointAt(guessA).outputV;
-    isLastAbove = !(outputV > 0);
-    if (outputV > 0) {
-      previous = below;
-      below = { loadA: guessA, outputV };
-    } else above = guessA;
-  }
-  return (loadA) => {
-    if (loadA <= below.loadA && below.loadA > 0) return true;
-    if (loadA >= above) return false;
-    return pointAt(loadA).outputV > 0;
-  };
+export function supplyCurrentNear(
+  driver: DriverStage,
+  ladder: LadderLoadLine,
+  loadCurrentA: number,
+  warm: WarmStart | null,
+): { supplyCurrentA: number; balance: WarmStart | null } {
+  const solved = solvePoint(driver, ladder, loadCurrentA, {}, undefined, undefined, warm);
+  return { supplyCurrentA: solved.point.supplyCurrentA, balance: solved.balance };
 }
 
 /**
@@ -280,7 +274,15 @@ export function driverOperatingPoint(
   const limitEst = blockingOscillatorNumbers(driver, options);
   const maxFlyV = limitEst.maxFlybackSecV;
   const limitDrive = driveOf(limitEst, driver);
-  const pointAt = (loadA: number) => solvePoint(driver, ladder, loadA, options, limitEst).point;
+  // The end of the curve's loads, each warm-started from the last power balance solved.
+  let lastBalance: WarmStart | null = null;
+  const endBalances: { loadA: number; balance: WarmStart }[] = [];
+  const pointAt = (loadA: number) => {
+    const solved = solvePoint(driver, ladder, loadA, options, limitEst, undefined, lastBalance);
+    if (solved.balance) endBalances.push({ loadA, balance: solved.balance });
+    lastBalance = solved.balance ?? lastBalance;
+    return solved.point;
+  };
   // Deliverable flyback power over what the ladder takes at the limit drive, per volt of flyback: power-limited below zero.
   const limitSurplusAt = (loadA: number) => {
     const state = ladder.at(limitDrive, loadA);
@@ -310,29 +312,47 @@ export function driverOperatingPoint(
   // (6e-5 relative, below the curve's sampling).
   let hiA = Math.max(powerLimitOnsetA, 1e-9);
   let lastOutput: { loadA: number; outputV: number } | null = null;
+  let earlierOutput: { loadA: number; outputV: number } | null = null;
   for (let k = 0; k < 60; k++) {
     const outputV = pointAt(hiA).outputV;
     if (!(outputV > 0)) break;
+    earlierOutput = lastOutput;
     lastOutput = { loadA: hiA, outputV };
     hiA *= 2;
   }
-  const hasOutputAt = outputSignsNear(pointAt, lastOutput, hiA);
+  const hasOutputAt = outputSignsNear(pointAt, lastOutput, hiA, earlierOutput);
   let loA = 0;
   for (let k = 0; k < 14; k++) {
     const mid = 0.5 * (loA + hiA);
     if (hasOutputAt(mid)) loA = mid;
     else hiA = mid;
   }
+  // Evenly spaced loads: each power balance starts from the line through the last two.
   const curve: LoadPoint[] = [];
+  const balances: (WarmStart | null)[] = [];
   for (let i = 0; i < points; i++) {
     const loadA = (hiA * i) / (points - 1);
-    curve.push(solvePoint(driver, ladder, loadA, options, limitEst, curve[i - 1]?.flybackSecondaryPeakV).point);
+    const a = balances[i - 1];
+    const b = balances[i - 2];
+    const warm =
+      a && b
+        ? { flybackV: 2 * a.flybackV - b.flybackV, slope: a.slope }
+        : (a ?? warmPastOnset(endBalances, powerLimitOnsetA, maxFlyV, loadA));
+    const solved = solvePoint(driver, ladder, loadA, options, limitEst, curve[i - 1]?.flybackSecondaryPeakV, warm);
+    curve.push(solved.point);
+    balances.push(solved.balance);
   }
+  const rated = solvePoint(
+    driver,
+    ladder,
+    ratedLoadCurrentA,
+    options,
+    limitEst,
+    undefined,
+    warmNear(curve, balances, ratedLoadCurrentA),
+  );
   return {
-    ratedLoad: (() => {
-      const rated = solvePoint(driver, ladder, ratedLoadCurrentA, options, limitEst);
-      return { ...rated.point, driver: estimateOf(driver, rated.stageOptions, rated.stage) };
-    })(),
+    ratedLoad: { ...rated.point, driver: estimateOf(driver, rated.stageOptions, rated.stage) },
     powerLimitOnsetA,
     curve,
     method: OPERATING_POINT_METHOD,

@@ -1,7 +1,9 @@
-import { lazy, memo, Suspense, useDeferredValue } from 'react';
+import { lazy, memo, Suspense, useDeferredValue, useMemo } from 'react';
 import { Loader, Paper, Tabs, Text, Title } from '@mantine/core';
+import { useDebouncedValue } from '@mantine/hooks';
 import type { Part, RevisionDetail, RevisionSummary } from '@ladderwright/shared/api';
 import type { Design } from '@ladderwright/shared/designs';
+import type { TransformerSection } from '@ladderwright/shared/transformer';
 import {
   driverSizerFigures,
   withTransformerSection,
@@ -66,6 +68,9 @@ const LadderDiagram = lazy(() =>
   import('../../../features/workbench/components/ladder-diagram').then((module) => ({ default: module.LadderDiagram })),
 );
 
+/** How long the report must stay unchanged (ms) before the result tabs draw it: about one pause in typing. */
+const RESULT_TABS_SETTLE_MS = 250;
+
 /** The plots change only with the report, not with every keystroke that has not reached the engine yet. */
 const PlotsPanel = memo(function PlotsPanel({ report }: { report: DesignReport }) {
   return (
@@ -83,12 +88,12 @@ function TransformerSizer({
   draft,
   report,
   shelf,
-  onDraftChange,
+  onApply,
 }: {
   draft: Design;
   report: DesignReport;
   shelf: readonly Part[];
-  onDraftChange?: (next: Design) => void;
+  onApply?: (section: TransformerSection) => void;
 }) {
   const figures = driverSizerFigures(draft, report);
   if (!figures) return null;
@@ -110,7 +115,7 @@ function TransformerSizer({
           ...(primaryWireCode ? { primaryWireCode } : {}),
           ...(secondaryWireCode ? { secondaryWireCode } : {}),
         }}
-        {...(onDraftChange ? { onApply: (chosen) => onDraftChange(withTransformerSection(draft, chosen)) } : {})}
+        {...(onApply ? { onApply } : {})}
       />
     </Paper>
   );
@@ -121,7 +126,7 @@ export function WorkbenchResults({
   projectId,
   revision,
   revisions,
-  draft,
+  draft: latestDraft,
   isDirty,
   report: latestReport,
   canSimulate,
@@ -129,9 +134,12 @@ export function WorkbenchResults({
   shelf = [],
   onDraftChange,
 }: WorkbenchResultsProps) {
-  // The tabs draw charts and the schematic: they follow the report at low priority, after the Verdict strip has
-  // shown the new figures, and a newer keystroke interrupts their render instead of waiting for it.
-  const report = useDeferredValue(latestReport);
+  // The tabs draw charts and the schematic, which costs far more than the Verdict strip: they follow the report
+  // once typing pauses (a burst of keystrokes redraws them once, not per key) and then at low priority, so a newer
+  // keystroke interrupts their render instead of waiting for it.
+  const latest = useMemo(() => ({ report: latestReport, draft: latestDraft }), [latestReport, latestDraft]);
+  const [settled] = useDebouncedValue(latest, RESULT_TABS_SETTLE_MS);
+  const { report, draft } = useDeferredValue(settled);
   return (
     <Suspense fallback={<Loader size="sm" aria-label="Loading the tab" />}>
       <Tabs defaultValue="plots" keepMounted={false}>
@@ -168,7 +176,12 @@ export function WorkbenchResults({
               draft={draft}
               report={report}
               shelf={shelf}
-              onDraftChange={onDraftChange}
+              {...(onDraftChange
+                ? // Applied to the latest draft: the tabs' own draft may lag a pause behind the typing.
+                  {
+                    onApply: (chosen: TransformerSection) => onDraftChange(withTransformerSection(latestDraft, chosen)),
+                  }
+                : {})}
             />
           </Tabs.Panel>
         )}

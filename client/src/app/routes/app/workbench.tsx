@@ -1,4 +1,4 @@
-import { useMemo, useState } from 'react';
+import { useCallback, useMemo, useState } from 'react';
 import { Alert, Anchor, Badge, Breadcrumbs, Group, List, Stack, Text } from '@mantine/core';
 import { useDocumentTitle } from '@mantine/hooks';
 import { useQueryClient, useSuspenseQuery, type QueryClient } from '@tanstack/react-query';
@@ -117,6 +117,16 @@ function EditableRevision({
   const [stale, setStale] = useState<StaleBaseError | null>(null);
   const { data: shelf } = useParts(projectId);
   const live = useLiveAnalysis(draft.draft, shelf);
+  const { analyzeAhead } = live;
+  const { setDraft } = draft;
+  // The worker starts on an edit before React renders it, so the engine and the keystroke's render overlap.
+  const onFormChange = useCallback(
+    (next: Design, key?: string) => {
+      analyzeAhead(next);
+      setDraft(next, key);
+    },
+    [analyzeAhead, setDraft],
+  );
   const isDirty = draft.isDirty;
   const partIssues = (isDirty ? live.partIssues : revision.report.partIssues) ?? [];
   // The saved revision's figures come from its current stored simulation where there is one; a draft's are estimates.
@@ -188,7 +198,11 @@ function EditableRevision({
       )}
 
       <div className={classes.layout}>
-        <section className={classes.summary} aria-label="Results summary">
+        <section
+          className={classes.summary}
+          aria-label="Results summary"
+          data-live-pending={live.isPending ? 'true' : 'false'}
+        >
           <Group gap="xs" mb={6}>
             <Text size="sm" fw={600}>
               Results
@@ -224,7 +238,7 @@ function EditableRevision({
         <section className={classes.inputs} aria-label="Design inputs">
           <LadderForm
             document={draft.draft}
-            onChange={draft.setDraft}
+            onChange={onFormChange}
             issues={live.issues}
             parts={shelf ?? noParts}
             isReadOnly={isReadOnly}
