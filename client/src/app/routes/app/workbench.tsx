@@ -5,7 +5,7 @@ import { useQueryClient, useSuspenseQuery, type QueryClient } from '@tanstack/re
 import { Link, redirect, useNavigate, useParams, useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
 import type { Part, RevisionDetail, RevisionSummary, StaleBaseError } from '@ladderwright/shared/api';
 import { canActInProject } from '@ladderwright/shared/auth';
-import { headlineSource } from '@ladderwright/shared/analysis';
+import { headlineSource, simulationSourceLabel } from '@ladderwright/shared/analysis';
 import { documentFieldLabel, type Design } from '@ladderwright/shared/designs';
 import { paths } from '../../../config/paths';
 import { queryKeys } from '../../../lib/query-keys';
@@ -231,7 +231,7 @@ function EditableRevision({
                 ? live.isPending
                   ? 'live preview, updating…'
                   : 'live preview (unsaved edits)'
-                : `server result of r${revision.number} · ${headline?.source === 'simulation' ? 'figures from simulation' : 'estimate'}`}
+                : `server result of r${revision.number} · ${headline?.source === 'simulation' ? `figures ${simulationSourceLabel(headline)}` : 'estimate'}`}
             </Badge>
           </Group>
           {live.engineError && isDirty && (
@@ -279,6 +279,8 @@ function EditableRevision({
               report={report}
               canSimulate={!isArchived}
               headline={headline}
+              shelf={shelf ?? noParts}
+              {...(isReadOnly ? {} : { onDraftChange: (next: Design) => draft.setDraft(next) })}
             />
           )}
         </section>

@@ -1,7 +1,7 @@
 import { memo } from 'react';
 import { Group, Paper, Text } from '@mantine/core';
 import type { Design } from '@ladderwright/shared/designs';
-import type { DesignReport, HeadlineSource } from '@ladderwright/shared/analysis';
+import { simulationSourceLabel, type DesignReport, type HeadlineSource } from '@ladderwright/shared/analysis';
 import { verdictStripFigures, type StripFigure } from '../verdict-strip-figures';
 import { MethodNote } from './method-note';
 import { VerdictBadge } from './verdict-badge';
@@ -24,7 +24,11 @@ export const VerdictStrip = memo(function VerdictStrip({ report, targets, headli
   return (
     <div className={classes.strip} aria-label="Verdict strip" role="list">
       {verdictStripFigures(report, targets, headline).map((figure) => (
-        <FigureCell key={figure.key} figure={figure} isMixed={headline?.source === 'simulation'} />
+        <FigureCell
+          key={figure.key}
+          figure={figure}
+          simulationLabel={headline?.source === 'simulation' ? simulationSourceLabel(headline) : null}
+        />
       ))}
     </div>
   );
@@ -58,9 +62,12 @@ function sameFigure(a: StripFigure, b: StripFigure): boolean {
   );
 }
 
-/** `isMixed`: some figures come from the stored simulation, so each one says where it comes from. */
+/**
+ * `simulationLabel`: some figures come from the stored simulation, so each one says where it comes from
+ * ("from simulation", with "not settled within …" when the run did not settle); null when none does.
+ */
 const FigureCell = memo(
-  function FigureCell({ figure, isMixed }: { figure: StripFigure; isMixed: boolean }) {
+  function FigureCell({ figure, simulationLabel }: { figure: StripFigure; simulationLabel: string | null }) {
     return (
       <Paper
         withBorder
@@ -96,7 +103,7 @@ const FigureCell = memo(
             <VerdictBadge verdict={figure.verdict} margin={figure.margin ?? undefined} size="sm" />
           </Group>
         )}
-        {isMixed && figure.source && (
+        {simulationLabel !== null && figure.source && (
           <Text
             fz={11}
             c={figure.source === 'simulation' ? 'verdigris.8' : 'dimmed'}
@@ -105,7 +112,7 @@ const FigureCell = memo(
             mt={2}
             data-figure-source={figure.source}
           >
-            {figure.source === 'simulation' ? 'from simulation' : 'estimate'}
+            {figure.source === 'simulation' ? simulationLabel : 'estimate'}
           </Text>
         )}
         {figure.difference && (figure.difference.exceedsTolerance || figure.source === 'simulation') && (
@@ -121,5 +128,5 @@ const FigureCell = memo(
       </Paper>
     );
   },
-  (previous, next) => previous.isMixed === next.isMixed && sameFigure(previous.figure, next.figure),
+  (previous, next) => previous.simulationLabel === next.simulationLabel && sameFigure(previous.figure, next.figure),
 );
