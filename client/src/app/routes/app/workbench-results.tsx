@@ -1,4 +1,4 @@
-import { lazy, memo, Suspense, useDeferredValue, useLayoutEffect, useMemo, useRef } from 'react';
+import { lazy, memo, Suspense, useDeferredValue, useMemo } from 'react';
 import { Loader, Paper, Tabs, Text, Title } from '@mantine/core';
 import { useDebouncedValue } from '@mantine/hooks';
 import type { Part, RevisionDetail, RevisionSummary } from '@ladderwright/shared/api';
@@ -69,8 +69,6 @@ const LadderDiagram = lazy(() =>
   import('../../../features/workbench/components/ladder-diagram').then((module) => ({ default: module.LadderDiagram })),
 );
 
-const noShelf: readonly Part[] = [];
-
 /** How long the report must stay unchanged (ms) before the result tabs draw it: about one pause in typing. */
 const RESULT_TABS_SETTLE_MS = 250;
 
@@ -134,7 +132,7 @@ export function WorkbenchResults({
   report: latestReport,
   canSimulate,
   headline = null,
-  shelf = noShelf,
+  shelf = [],
   onDraftChange,
 }: WorkbenchResultsProps) {
   // The tabs draw charts and the schematic, which costs far more than the Verdict strip: they follow the report
@@ -143,49 +141,6 @@ export function WorkbenchResults({
   const latest = useMemo(() => ({ report: latestReport, draft: latestDraft }), [latestReport, latestDraft]);
   const [settled] = useDebouncedValue(latest, RESULT_TABS_SETTLE_MS);
   const { report, draft } = useDeferredValue(settled);
-  // A core chosen in the tabs is applied to the latest draft: the tabs' own draft may lag a pause behind the typing.
-  const latestDraftRef = useRef(latestDraft);
-  useLayoutEffect(() => {
-    latestDraftRef.current = latestDraft;
-  });
-  const onApplyTransformer = useMemo(
-    () =>
-      onDraftChange
-        ? (chosen: TransformerSection) => onDraftChange(withTransformerSection(latestDraftRef.current, chosen))
-        : null,
-    [onDraftChange],
-  );
-  return (
-    <ResultTabs
-      shelf={shelf}
-      onApplyTransformer={onApplyTransformer}
-      projectId={projectId}
-      revision={revision}
-      revisions={revisions}
-      draft={draft}
-      isDirty={isDirty}
-      report={report}
-      canSimulate={canSimulate}
-      headline={headline}
-    />
-  );
-}
-
-/** The tabs themselves, memoized: a keystroke or an answer that has not reached the settled report renders nothing here. */
-const ResultTabs = memo(function ResultTabs({
-  projectId,
-  revision,
-  revisions,
-  draft,
-  isDirty,
-  report,
-  canSimulate,
-  headline,
-  shelf,
-  onApplyTransformer,
-}: Required<Omit<WorkbenchResultsProps, 'onDraftChange'>> & {
-  onApplyTransformer: ((section: TransformerSection) => void) | null;
-}) {
   return (
     <Suspense fallback={<Loader size="sm" aria-label="Loading the tab" />}>
       <Tabs defaultValue="plots" keepMounted={false}>
@@ -222,7 +177,12 @@ const ResultTabs = memo(function ResultTabs({
               draft={draft}
               report={report}
               shelf={shelf}
-              {...(onApplyTransformer ? { onApply: onApplyTransformer } : {})}
+              {...(onDraftChange
+                ? // Applied to the latest draft: the tabs' own draft may lag a pause behind the typing.
+                  {
+                    onApply: (chosen: TransformerSection) => onDraftChange(withTransformerSection(latestDraft, chosen)),
+                  }
+                : {})}
             />
           </Tabs.Panel>
         )}
@@ -275,4 +235,4 @@ const ResultTabs = memo(function ResultTabs({
       </Tabs>
     </Suspense>
   );
-});
+}

@@ -280,7 +280,7 @@ function EditableRevision({
               canSimulate={!isArchived}
               headline={headline}
               shelf={shelf ?? noParts}
-              {...(isReadOnly ? {} : { onDraftChange: setDraft })}
+              {...(isReadOnly ? {} : { onDraftChange: (next: Design) => draft.setDraft(next) })}
             />
           )}
         </section>
