@@ -193,7 +193,7 @@ function timingEstimates(
   r: OscillatorNumbers,
 ): Pick<
   BlockingOscillatorEstimate,
-  'onTimeS' | 'flybackTimeS' | 'frequencyHz' | 'energyPerCycleJ' | 'deliverablePowerW'
+  'onTimeS' | 'flybackTimeS' | 'ringBack' | 'frequencyHz' | 'energyPerCycleJ' | 'deliverablePowerW'
 > {
   const seriesR = driver.transformer.primaryResistanceOhm + (driver.collectorResistorOhm ?? 0);
   return {
@@ -212,7 +212,16 @@ function timingEstimates(
         'diode drop neglected against the flyback voltage',
       ]),
     ),
-    frequencyHz: est(r.frequencyHz, method('bo.frequency', 'f = 1/(t_on + t_fly).')),
+    ringBack: { swingS: r.tSwing, recoveryS: r.tRecovery },
+    frequencyHz: est(
+      r.frequencyHz,
+      method(
+        'bo.frequency',
+        'f = 1/(t_on + t_fly + t_swing + t_recovery): after the flyback the collector node capacitance C (stray, snubber, the secondary’s self-capacitance and the ladder’s diode junctions reflected by (Ns/Np)²) rings down about Vin, a quarter period t_swing = (π/2)·√(Lp·C) to Vin, where the transistor turns on with the magnetizing current at −I0 = −Vr·√(C/Lp); it returns to zero through the transistor conducting backwards, t_recovery = Lp·I0/(Vin + V_BE).',
+        ['the ladder’s diodes swing by the secondary’s peak-to-peak; their junction charge at VJ 1 V, M 0.5'],
+        'resonant LC ring and volt-second balance (common practice, no source)',
+      ),
+    ),
     energyPerCycleJ: est(r.energyJ, method('bo.energy', 'E = ½·Lp·Ipk².')),
     deliverablePowerW: est(
       r.deliverableW,
@@ -245,7 +254,7 @@ function voltageAndPowerEstimates(
       r.forwardSecV,
       method(
         'bo.forward-peak',
-        'V₊ = k·(Vin − Vce,sat)·N_s/N_p during the on-time (open-circuit ratio of coupled windings M/Lp).',
+        'V₊ = k·(Vin − Vce,sat)·N_s/N_p during the on-time (open-circuit ratio of coupled windings M/Lp); a ladder that takes less charge per cycle than the ring-back returns, ½·I0·t_recovery·N_p/N_s, charges towards k·(Vin + V_BE)·N_s/N_p instead (the operating point).',
         ['secondary unloaded during the on-time'],
       ),
     ),

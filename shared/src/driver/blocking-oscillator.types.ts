@@ -1,4 +1,5 @@
 import type { Estimated } from '../methods';
+import type { SecondaryLoad } from './ring-back';
 
 /** What ended the on-time: the base drive (hFE·I_B) or the core saturation current. */
 export type OnTimeLimit = 'base' | 'saturation';
@@ -20,6 +21,8 @@ export interface BlockingOscillatorOptions {
   chargeFraction?: number;
   /** Supply bypass capacitor at the stage (F). Default 100 µF, the simulated circuit's. */
   bypassCapacitanceF?: number;
+  /** The ladder's capacitance on the secondary for the ring-back between pulses; none for a bare stage. */
+  secondaryLoad?: SecondaryLoad;
   /** Starting guess of the loaded supply voltage (V) for the supply solve (a warm start); default the open-circuit voltage. */
   supplyVoltageGuessV?: number;
   /**
@@ -80,6 +83,10 @@ export interface OscillatorNumbers {
   ipk: number;
   tOn: number;
   tFly: number;
+  /** The collector's resonant fall after the flyback (s). */
+  tSwing: number;
+  /** The magnetizing current's return to zero before the next on-time (s). */
+  tRecovery: number;
   frequencyHz: number;
   energyJ: number;
   deliverableW: number;
@@ -92,7 +99,12 @@ export interface OscillatorNumbers {
   emfW: number;
   inputA: number;
   collectorPeakV: number;
+  /** Secondary forward level in the on-time, k·(Vin − Vce,sat)·Ns/Np (V). */
   forwardSecV: number;
+  /** Secondary forward level while the ring-back recovers, k·(Vin + V_BE)·Ns/Np (V). */
+  recoveryForwardSecV: number;
+  /** Charge (C) the secondary can pass at the recovery level in one cycle, ½·I0·t_recovery·Np/Ns. */
+  recoveryChargeC: number;
   flybackEfficiency: number;
   collectorPeakA: number;
   losses: StageLosses;
@@ -112,6 +124,8 @@ export interface BlockingOscillatorEstimate {
   baseLimitedCurrentA: number;
   onTimeS: Estimated;
   flybackTimeS: Estimated;
+  /** The collector's fall after the flyback and the magnetizing current's return to zero (s; see frequencyHz). */
+  ringBack: { swingS: number; recoveryS: number };
   frequencyHz: Estimated;
   energyPerCycleJ: Estimated;
   deliverablePowerW: Estimated;

@@ -124,3 +124,30 @@ export function warmPastOnset(
   const t = (loadA - onsetA) / (nearest.loadA - onsetA);
   return { flybackV: maxFlyV + t * (nearest.balance.flybackV - maxFlyV), slope: nearest.balance.slope };
 }
+
+/**
+ * Down a falling sequence of points x(1), x(2), … x(count) from `hi` (where f is `fHi` < 0): the first where
+ * f ≥ 0 (`lo`, found) and the last before it (`hi`), a bracket of the highest root among those points.
+ */
+export function scanDown(
+  f: (x: number) => number,
+  xAt: (k: number) => number,
+  count: number,
+  hi: number,
+  fHi: number,
+): { found: boolean; lo: number; fLo: number; hi: number; fHi: number } {
+  const bracket = { found: false, lo: NaN, fLo: NaN, hi, fHi };
+  for (let k = 1; k <= count; k++) {
+    const x = xAt(k);
+    const fx = f(x);
+    if (fx >= 0) {
+      bracket.found = true;
+      bracket.lo = x;
+      bracket.fLo = fx;
+      return bracket;
+    }
+    bracket.hi = x;
+    bracket.fHi = fx;
+  }
+  return bracket;
+}

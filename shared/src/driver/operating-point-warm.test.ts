@@ -3,8 +3,10 @@ import { designExamples } from '../designs/design-examples';
 import type { Design } from '../designs/design.types';
 import type { DriverStage } from '../designs/driver-stage.types';
 import { ladderInputOf, resolveDrive } from '../analysis/analyze-design';
+import { bracketedRoot } from '../multiplier/bracketed-root';
 import { blockingOscillatorNumbers } from './blocking-oscillator';
 import { engineLadderLoadLine } from './ladder-load-line';
+import { forwardPeakFor, forwardShareOf } from './ring-back';
 import {
   driverOperatingPoint,
   solveLoadPoint,
@@ -106,5 +108,30 @@ describe.each(Object.entries(designs))('warm-started driver solves: %s', (_, des
       expectClose(got.outputV, want.outputV);
       expectClose(got.ladderCurrentA, want.ladderCurrentA);
     }
+  });
+
+  it('put the onset of the power limit where the doubling bracket from 1 nA and Brent’s method put it', () => {
+    // The stage at its limit with the ladder's load on the secondary, the forward peak at the recovery level.
+    const limit = blockingOscillatorNumbers(stage, ladder.secondaryLoad ? { secondaryLoad: ladder.secondaryLoad } : {});
+    const limitDrive = {
+      forwardPeakV: forwardPeakFor(limit, 0),
+      flybackPeakV: limit.flybackSecV,
+      frequencyHz: limit.frequencyHz,
+      dutyCycle: forwardShareOf(limit),
+      isFlybackFed: (stage.transformer.secondaryPhasing ?? 'flyback') === 'flyback',
+    };
+    const surplusAt = (loadA: number) => {
+      const state = ladder.at(limitDrive, loadA);
+      const ratio = ladder.chargeRatios(limitDrive, state.ladderCurrentA).flyback;
+      return limit.deliverableW / limit.maxFlybackSecV - ratio * state.ladderCurrentA;
+    };
+    let want = 0;
+    if (surplusAt(0) >= 0) {
+      let lo = 0;
+      let hi = 1e-9;
+      while (surplusAt(hi) >= 0) [lo, hi] = [hi, 2 * hi];
+      want = bracketedRoot(surplusAt, lo, hi, surplusAt(lo), surplusAt(hi), hi * 2 ** -40);
+    }
+    expectClose(driverOperatingPoint(stage, ladder, 0, { points: 3 }).powerLimitOnsetA, want);
   });
 });
