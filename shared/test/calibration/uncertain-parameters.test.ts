@@ -32,10 +32,12 @@ describe('secondary self-capacitance as an uncertain parameter', () => {
     const design = applyParameterValues(tester, ['secondarySelfCapacitance'], [20e-12]);
     if (design.drive.kind !== 'driver') throw new Error('the tester has a driver stage');
     expect(collectorNodeCapacitanceOf(design.drive.driver)).toBeCloseTo(100e-12 + 20e-12 * (1200 / 20) ** 2, 18);
-    // The estimate's output hardly depends on it (only through the switching loss): a load sweep leaves it
-    // undetermined, and the fit says so; a start-up by the simulator is the run that tells it.
+    // The estimate's output hardly depends on it (through the switching loss and the collector's ring-back
+    // after the flyback): a load sweep leaves it all but undetermined, and the fit says so; a start-up by the
+    // simulator is the run that tells it.
     const currents = [0, 10e-6];
     const without = loadSweepEstimate(tester, currents);
-    loadSweepEstimate(design, currents).forEach((v, i) => expect(Math.abs(v / without[i]! - 1)).toBeLessThan(1e-6));
+    const moved = loadSweepEstimate(design, currents).map((v, i) => Math.abs(v / without[i]! - 1));
+    moved.forEach((change) => expect(change).toBeLessThan(1e-3));
   });
 });
