@@ -1,15 +1,9 @@
 import { lazy, memo, Suspense, useDeferredValue, useMemo } from 'react';
-import { Loader, Paper, Tabs, Text, Title } from '@mantine/core';
+import { Loader, Tabs, Text } from '@mantine/core';
 import { useDebouncedValue } from '@mantine/hooks';
 import type { Part, RevisionDetail, RevisionSummary } from '@ladderwright/shared/api';
 import type { Design } from '@ladderwright/shared/designs';
-import type { TransformerSection } from '@ladderwright/shared/transformer';
-import {
-  driverSizerFigures,
-  withTransformerSection,
-  type DesignReport,
-  type HeadlineSource,
-} from '@ladderwright/shared/analysis';
+import type { DesignReport, HeadlineSource } from '@ladderwright/shared/analysis';
 import { formatQuantity } from '@ladderwright/shared/units';
 import { OtherFigures } from '../../../features/workbench/components/other-figures';
 import { formatDateTime } from '../../../lib/format-date';
@@ -51,9 +45,10 @@ const ChecksTable = lazy(() =>
 const DriverPanel = lazy(() =>
   import('../../../features/workbench/components/driver-panel').then((module) => ({ default: module.DriverPanel })),
 );
-const TransformerSizerPanel = lazy(() =>
-  import('../../../features/sizer/components/transformer-sizer-panel').then((module) => ({
-    default: module.TransformerSizerPanel,
+// The core Sizer reads the driver's figures with the driver engine: that code loads with the Transformer tab.
+const DesignTransformerSizer = lazy(() =>
+  import('../../../features/sizer/components/design-transformer-sizer').then((module) => ({
+    default: module.DesignTransformerSizer,
   })),
 );
 const TransformerPanel = lazy(() =>
@@ -83,45 +78,6 @@ const PlotsPanel = memo(function PlotsPanel({ report }: { report: DesignReport }
     </>
   );
 });
-
-/** The transformer Sizer on the open design: its driver's figures in, a chosen core applied to the draft. */
-function TransformerSizer({
-  draft,
-  report,
-  shelf,
-  onApply,
-}: {
-  draft: Design;
-  report: DesignReport;
-  shelf: readonly Part[];
-  onApply?: (section: TransformerSection) => void;
-}) {
-  // With a designed transformer this analyses the design once more on its given numbers: once per report.
-  const figures = useMemo(() => driverSizerFigures(draft, report), [draft, report]);
-  if (!figures) return null;
-  const section = draft.drive.kind === 'driver' ? draft.drive.driver.transformerDesign : undefined;
-  const wireOf = (role: 'primary' | 'secondary') => section?.windings.find((w) => w.role === role)?.wire.code;
-  const primaryWireCode = wireOf('primary');
-  const secondaryWireCode = wireOf('secondary');
-  return (
-    <Paper component="section" withBorder p="sm" mt="md" aria-label="Transformer cores for this driver">
-      <Title order={4} mb="xs">
-        Transformer cores for this driver
-      </Title>
-      <TransformerSizerPanel
-        shelf={shelf}
-        design={{
-          name: draft.name,
-          figures,
-          spacing: draft.targets.spacing,
-          ...(primaryWireCode ? { primaryWireCode } : {}),
-          ...(secondaryWireCode ? { secondaryWireCode } : {}),
-        }}
-        {...(onApply ? { onApply } : {})}
-      />
-    </Paper>
-  );
-}
 
 /** The Workbench result tabs: Plots, Driver, Transformer (with a driver: the section's figures and the core Sizer), Ladder, Checks, BOM cost, Waveforms, History. */
 export function WorkbenchResults({
@@ -173,18 +129,16 @@ export function WorkbenchResults({
                 design the transformer from a core.
               </Text>
             )}
-            <TransformerSizer
-              key={`${revision.designId}.${revision.number}`}
-              draft={draft}
-              report={report}
-              shelf={shelf}
-              {...(onDraftChange
-                ? // Applied to the latest draft: the tabs' own draft may lag a pause behind the typing.
-                  {
-                    onApply: (chosen: TransformerSection) => onDraftChange(withTransformerSection(latestDraft, chosen)),
-                  }
-                : {})}
-            />
+            <Suspense fallback={<Loader size="sm" aria-label="Loading the core Sizer" />}>
+              <DesignTransformerSizer
+                key={`${revision.designId}.${revision.number}`}
+                draft={draft}
+                latestDraft={latestDraft}
+                report={report}
+                shelf={shelf}
+                {...(onDraftChange ? { onDraftChange } : {})}
+              />
+            </Suspense>
           </Tabs.Panel>
         )}
         <Tabs.Panel value="ladder" pt="sm">
