@@ -82,14 +82,31 @@ describe('calibration journey', () => {
     );
     await result.locator('.recharts-surface').first().waitFor();
     await page.screenshot({ path: resolve(screenshotDir, 'calibration-result.png'), fullPage: true });
-    await page.setViewportSize({ width: 1024, height: 768 });
-    await panel.scrollIntoViewIfNeeded();
-    await page.screenshot({ path: resolve(screenshotDir, 'calibration-result-1024.png') });
-    await page.setViewportSize({ width: 1440, height: 900 });
 
-    await panel.getByRole('button', { name: 'Start revision from calibrated model' }).click();
+    // The step is taken at the viewport the page was laid out in; the 1024 × 768 look comes afterwards, on a page
+    // of its own, so no click ever follows a viewport change.
+    const startRevision = panel.getByRole('button', { name: 'Start revision from calibrated model' });
+    await expect.poll(() => startRevision.isEnabled()).toBe(true);
+    await startRevision.click();
     await page.waitForURL(new RegExp(`/designs/${design.id}\\?rev=${latest + 1}$`));
     await page.screenshot({ path: resolve(screenshotDir, 'calibration-new-revision.png') });
+
+    // Back on the Bench runs of the calibrated revision, the panel shows its newest calibration and the revision
+    // started from it.
+    const narrow = await context.newPage();
+    narrow.on('pageerror', (error) => pageErrors.push(error.message));
+    await narrow.setViewportSize({ width: 1024, height: 768 });
+    await narrow.goto(`${baseUrl}${benchPath}`);
+    const narrowPanel = narrow.getByLabel('Calibrate', { exact: true });
+    const started = narrowPanel.getByText(`Revision ${latest + 1} was started from this calibration.`);
+    await started.waitFor();
+    await expect(
+      narrowPanel.getByRole('button', { name: 'Start revision from calibrated model' }).isDisabled(),
+    ).resolves.toBe(true);
+    await narrowPanel.getByRole('table', { name: 'Fitted parameters' }).scrollIntoViewIfNeeded();
+    await narrow.screenshot({ path: resolve(screenshotDir, 'calibration-result-1024.png') });
+    await narrow.close();
+
     const saved = (await (
       await page.request.get(`${baseUrl}/api/projects/${project.id}/designs/${design.id}/revisions/${latest + 1}`)
     ).json()) as { changeNote: string };

@@ -1,6 +1,7 @@
 import { analyzeDesign } from '@ladderwright/shared/analysis';
 import { validateDesign } from '@ladderwright/shared/designs';
 import { isDomainError } from '@ladderwright/shared/errors';
+import { ENGINE_VERSION } from '@ladderwright/shared/multiplier';
 import { analyzeWithShelf } from '@ladderwright/shared/parts';
 import type { EngineTask, EngineTaskOutcome, EngineWarmUp } from './engine-task.types';
 
@@ -8,14 +9,18 @@ import type { EngineTask, EngineTaskOutcome, EngineWarmUp } from './engine-task.
  * Worker-thread entry (piscina) of the engine: the steady-state analysis of one design runs here, off the
  * request thread. The document is validated again, so the limits of the domain hold for every document
  * that reaches the engine, including ones stored before a limit existed. The report is returned as is (the
- * structured clone of the thread boundary is the only copy) or, when the caller only sends it on, as JSON text.
+ * structured clone of the thread boundary is the only copy) or, when the caller only sends it on, as the UTF-8
+ * bytes of its JSON text.
  */
 export function runEngineTask(task: EngineTask | EngineWarmUp): EngineTaskOutcome {
   if (task.kind === 'warm-up') return { ok: true, report: null };
   try {
     const design = validateDesign(task.document);
     const report = task.shelf ? analyzeWithShelf(design, task.shelf) : analyzeDesign(design);
-    return { ok: true, report: task.reportAs === 'json' ? JSON.stringify(report) : report };
+    if (task.reportAs !== 'answer-bytes') return { ok: true, report };
+    // The whole answer, so that it crosses the thread boundary as one copy of bytes and goes out as it is.
+    const answer = `{"engineVersion":${JSON.stringify(ENGINE_VERSION)},"report":${JSON.stringify(report)}}`;
+    return { ok: true, report: Buffer.from(answer, 'utf8') };
   } catch (error) {
     if (!isDomainError(error)) throw error;
     return { ok: false, error: { code: error.code, message: error.message, field: error.field, issues: error.issues } };

@@ -23,7 +23,8 @@ import { bleederStressChecks, ladderStressChecks } from '../multiplier/ladder-st
 import type { LadderAnalysis, LadderCurves, LadderInput } from '../multiplier/ladder.types';
 import { withEffectiveTransformer } from '../transformer/given-numbers';
 import type { TransformerReport } from '../transformer/transformer.types';
-import { designedTransformerReport } from './transformer-report';
+import { transformerDriverEffect } from './transformer-effect';
+import { designedTransformerReport, withGivenTransformer } from './transformer-report';
 
 /** Report of a bare ladder: figures (SI, signed by polarity), curves, stored energy, discharge and how each was computed. */
 export interface LadderReport extends Pick<
@@ -345,7 +346,15 @@ export function analyzeDesign(givenDesign: Design): DesignReport {
     );
   }
   if (driver) checks.push(...driver.checks.map(asCheck));
-  const transformer = underDrive(() => designedTransformerReport(design, driver));
+  const designedTransformer = underDrive(() => designedTransformerReport(design, driver));
+  const transformer = designedTransformer && {
+    ...designedTransformer,
+    driverEffect: transformerDriverEffect(
+      givenDesign,
+      { outputMeanV: analysis.outputMeanV, driver },
+      analyzeDesign(withGivenTransformer(givenDesign)),
+    ),
+  };
   if (transformer) checks.push(...transformer.checks.map((c) => ({ ...c, caution: HV_CAUTION })));
   const rippleOk = analysis.ripplePeakToPeakV <= targets.rippleMaxV;
   const outputOk =

@@ -6,6 +6,7 @@ export type CalibrationParameterId =
   | 'transistorGain'
   | 'cellInternalResistance'
   | 'secondaryResistance'
+  | 'secondarySelfCapacitance'
   | 'driveSourceResistance'
   | 'diodeSaturationCurrent'
   | 'diodeSeriesResistance'

@@ -51,6 +51,17 @@ function around(nominal: number, below: number, above: number): PriorRange {
   return { min: nominal / below, max: nominal * above };
 }
 
+/** Read and write of one number of the driver's transformer (absent reads as 0). */
+function transformerNumber(key: 'couplingCoefficient' | 'secondaryResistanceOhm' | 'secondaryCapacitanceF') {
+  return {
+    read: (design: Design) => requireDriver(design).transformer[key] ?? 0,
+    write: (design: Design, value: number) =>
+      edited(design, (copy) => {
+        requireDriver(copy).transformer[key] = value;
+      }),
+  };
+}
+
 const declared: readonly UncertainParameter[] = [
   {
     id: 'couplingCoefficient',
@@ -60,11 +71,7 @@ const declared: readonly UncertainParameter[] = [
     scale: 'linear',
     // Wound ferrite transformers of this kind couple at 0.9–0.995 (common practice, no source).
     prior: (design) => (givenTransformerDriver(design) ? { min: 0.85, max: 0.999 } : null),
-    read: (design) => requireDriver(design).transformer.couplingCoefficient,
-    write: (design, value) =>
-      edited(design, (copy) => {
-        requireDriver(copy).transformer.couplingCoefficient = value;
-      }),
+    ...transformerNumber('couplingCoefficient'),
   },
   {
     id: 'transistorGain',
@@ -108,11 +115,21 @@ const declared: readonly UncertainParameter[] = [
       const driver = givenTransformerDriver(design);
       return driver ? around(Math.max(driver.transformer.secondaryResistanceOhm, 1), 5, 5) : null;
     },
-    read: (design) => requireDriver(design).transformer.secondaryResistanceOhm,
-    write: (design, value) =>
-      edited(design, (copy) => {
-        requireDriver(copy).transformer.secondaryResistanceOhm = value;
-      }),
+    ...transformerNumber('secondaryResistanceOhm'),
+  },
+  {
+    id: 'secondarySelfCapacitance',
+    label: 'Secondary self-capacitance',
+    unit: 'F',
+    documentPath: 'drive.driver.transformer.secondaryCapacitanceF',
+    scale: 'linear',
+    // A layer-wound secondary of a small step-up transformer: a few pF to some tens of pF (common practice,
+    // no source); the range reaches twice the design's own value when that is larger.
+    prior: (design) => {
+      const driver = givenTransformerDriver(design);
+      return driver ? { min: 0, max: Math.max(100e-12, 2 * (driver.transformer.secondaryCapacitanceF ?? 0)) } : null;
+    },
+    ...transformerNumber('secondaryCapacitanceF'),
   },
   {
     id: 'driveSourceResistance',

@@ -30,7 +30,8 @@ function est(value: number, m: MethodInfo): Estimated {
 /**
  * The blocking oscillator's estimate as plain numbers (SI units), the loaded supply voltage solved by a
  * safeguarded Newton (secant) iteration on h(V) = V − Voc + R_s·I_in(V) (first slope by a forward difference,
- * then secant steps; a step leaving the bracket [lo, hi] of the root becomes a bisection). `options.supplyVoltageGuessV` warm-starts it.
+ * then secant steps; a step leaving the bracket [lo, hi] of the root becomes a bisection). `options.supplyVoltageGuessV`
+ * and `options.supplySlopeGuess` warm-start it (Newton's first step then takes the nearby slope).
  * Where the stage does not run (below its turn-on voltage) it draws nothing, so h < 0 there.
  */
 export function blockingOscillatorNumbers(
@@ -63,16 +64,16 @@ export function blockingOscillatorNumbers(
   // the bracket [lo, hi] of the root (a bisection otherwise).
   let prevV = NaN;
   let prevH = NaN;
+  let slope = options.supplySlopeGuess !== undefined && options.supplySlopeGuess > 0 ? options.supplySlopeGuess : NaN;
   for (let it = 0; it < 100 && Math.abs(hv) > tolV; it++) {
     if (hv > 0) hi = v;
     else lo = v;
     if (hi - lo <= tolV) break;
-    let slope: number;
-    if (Number.isNaN(prevV) || prevV === v) {
+    if (!Number.isNaN(prevV) && prevV !== v) {
+      slope = (hv - prevH) / (v - prevV);
+    } else if (Number.isNaN(slope)) {
       const dv = Math.max(1e-7 * voc, 4 * tolV) * (v - lo > hi - v ? -1 : 1);
       slope = (h(v + dv) - hv) / dv;
-    } else {
-      slope = (hv - prevH) / (v - prevV);
     }
     let next = v - hv / slope;
     if (!Number.isFinite(next) || next <= lo || next >= hi) next = 0.5 * (lo + hi);
@@ -86,7 +87,9 @@ export function blockingOscillatorNumbers(
   if (Math.abs(hv) > 1e-6 * voc) {
     throw new DomainError('invalid_design', 'the supply resistance is too high for the drawn current', 'driver.supply');
   }
-  return state ?? stageAt(driver, options, v, voc, resistanceOhm);
+  const solved: OscillatorNumbers = state ?? stageAt(driver, options, v, voc, resistanceOhm);
+  if (Number.isFinite(slope)) solved.supplySlope = slope;
+  return solved;
 }
 
 /**

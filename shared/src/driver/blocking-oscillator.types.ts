@@ -25,6 +25,11 @@ export interface BlockingOscillatorOptions {
   secondaryLoad?: SecondaryLoad;
   /** Starting guess of the loaded supply voltage (V) for the supply solve (a warm start); default the open-circuit voltage. */
   supplyVoltageGuessV?: number;
+  /**
+   * Slope of h(V) = V − Voc + R_s·I_in(V) near the guess (dimensionless), from a nearby solve: Newton's first
+   * step takes it instead of a forward difference (a warm start); default the forward difference.
+   */
+  supplySlopeGuess?: number;
 }
 
 /**
@@ -103,6 +108,8 @@ export interface OscillatorNumbers {
   flybackEfficiency: number;
   collectorPeakA: number;
   losses: StageLosses;
+  /** Slope of h(V) of the supply solve at its last step (absent without supply resistance), to warm-start a nearby solve. */
+  supplySlope?: number;
 }
 
 export interface BlockingOscillatorEstimate {

@@ -5,7 +5,7 @@ import type { BlockingOscillatorEstimate } from './blocking-oscillator.types';
 import type { DriverStage } from '../designs/driver-stage.types';
 import type { Estimated } from '../methods';
 import { HIPOT_METHOD, hipotTestVoltageV as hipotTestVoltageOf } from '../safety/hipot';
-import { solveLoadPoint, supplyCurrentAt, type LoadPoint } from './operating-point';
+import { solveLoadPoint, supplyCurrentNear, type LoadPoint, type WarmStart } from './operating-point';
 import { type LadderLoadLine } from './ladder-load-line';
 import { driverEnergy, type DriverEnergy } from './driver-energy';
 
@@ -93,12 +93,18 @@ function supplyCurrentTable(
 ): (v: number) => number {
   const points = 8;
   const table: { v: number; i: number }[] = [];
+  // Each voltage's power balance starts from the last one solved.
+  let warm: WarmStart | null = null;
   for (let k = 0; k < points; k++) {
     const v = lowV + ((highV - lowV) * k) / (points - 1);
     const bench: DriverStage = { ...driver, supply: { kind: 'dc', voltageV: v, sourceResistanceOhm: 0 } };
     let i: number;
     try {
-      i = ladder ? supplyCurrentAt(bench, ladder, loadA) : blockingOscillatorNumbers(bench).inputA;
+      if (ladder) {
+        const near = supplyCurrentNear(bench, ladder, loadA, warm);
+        warm = near.balance ?? warm;
+        i = near.supplyCurrentA;
+      } else i = blockingOscillatorNumbers(bench).inputA;
     } catch (error) {
       if (error instanceof DomainError)
         i = 0; // the stage stops: no drain below this voltage

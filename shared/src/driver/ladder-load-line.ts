@@ -1,6 +1,7 @@
 import type { PulseDrive } from '../designs/design.types';
 import { DomainError } from '../errors';
-import { prepareLadder, terminalMeanAt, type PreparedLadder } from '../multiplier/analyze-ladder';
+import { prepareLadder, terminalMeanAt, terminalMeanNear, type PreparedLadder } from '../multiplier/analyze-ladder';
+import type { CurrentWarmStart } from '../multiplier/charge-transfer-model';
 import { withDriveTiming } from '../multiplier/with-drive';
 import type { LadderInput } from '../multiplier/ladder.types';
 import type { SecondaryLoad } from './ring-back';
@@ -89,6 +90,7 @@ export function engineLadderLoadLine(input: LadderInput): LadderLoadLine {
   // so that a ladder error surfaces where the per-call preparation raised it).
   let loaded: PreparedLadder | null = null;
   let bare: PreparedLadder | null = null;
+  let lastLoaded: CurrentWarmStart | null = null;
   const topAt = (drive: LadderDrive, ladderCurrentA: number) => {
     const pulse = pulseDriveOf(drive, sourceOhm);
     bare = bare
@@ -102,7 +104,10 @@ export function engineLadderLoadLine(input: LadderInput): LadderLoadLine {
     at(drive, loadCurrentA) {
       const pulse = pulseDriveOf(drive, sourceOhm);
       loaded = loaded ? withDriveTiming(loaded, pulse) : prepareLadder({ ...input, load: null, drive: pulse });
-      const outputV = terminalMeanAt(loaded, loadCurrentA);
+      // Each solve starts from the last one's current (the driver's solves move the drive a little at a time).
+      const solved = terminalMeanNear(loaded, loadCurrentA, lastLoaded);
+      lastLoaded = solved.near;
+      const outputV = solved.outputV;
       const topV = Math.max(0, outputV + loadCurrentA * seriesOhm);
       const bleederA = input.bleederOhm ? topV / input.bleederOhm : 0;
       return { outputV: Math.max(0, outputV), ladderCurrentA: loadCurrentA + bleederA };

@@ -12,6 +12,7 @@ export type {
   GapResult,
   WindingResult,
   TransformerReport,
+  TransformerDriverEffect,
   DerivedTransformerNumbers,
   TransformerSizerCandidate,
   TransformerSizerRequest,

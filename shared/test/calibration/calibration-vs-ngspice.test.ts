@@ -12,9 +12,9 @@ import { ngspiceDischarge, ngspiceLoadSweep, testLadder, withNoise } from './syn
 
 // Synthetic bench runs: ngspice (REFERENCES.md §7) runs the netlist our exporter writes for the test ladder
 // with known "true" parameters; seeded Gaussian noise of 0.3 % stands for the instrument. The fit starts from
-// the design's own values and must bracket the true value with its 95 % interval. Bleeders of 6, 11 and 13 MΩ
-// and a capacitance at 60 % came out 0.15–1.5 % off, just outside intervals about 0.5 % wide: a small bias of
-// the discharge model against ngspice that these cases do not show; it is left open, not hidden.
+// the design's own values and must bracket the true value with its 95 % interval. Without noise the fit lands
+// on the true value (the simulator's discharge agrees with ngspice's), and over many noise seeds the interval
+// holds the true value about as often as its coverage says; a single seeded case may still miss (1 in 20).
 const ngspiceAvailable = hasNgspice();
 
 interface RecoveryCase {
@@ -30,14 +30,36 @@ const recoveryCases: RecoveryCase[] = [
   { name: 'capacitance at 70 % of nominal', ids: ['capacitanceScale'], truth: [0.7], priors: [[0.3, 1.3]], seed: 12 },
   { name: 'capacitance at 45 % of nominal', ids: ['capacitanceScale'], truth: [0.45], priors: [[0.3, 1.3]], seed: 13 },
   { name: 'capacitance at 90 % of nominal', ids: ['capacitanceScale'], truth: [0.9], priors: [[0.3, 1.3]], seed: 14 },
+  { name: 'capacitance at 60 % of nominal', ids: ['capacitanceScale'], truth: [0.6], priors: [[0.3, 1.3]], seed: 21 },
+  { name: 'bleeder 6 MΩ instead of 10 MΩ', ids: ['bleederResistance'], truth: [6e6], priors: [[5e6, 15e6]], seed: 22 },
+  {
+    name: 'bleeder 11 MΩ instead of 10 MΩ',
+    ids: ['bleederResistance'],
+    truth: [11e6],
+    priors: [[5e6, 15e6]],
+    seed: 23,
+  },
+  {
+    name: 'bleeder 13 MΩ instead of 10 MΩ',
+    ids: ['bleederResistance'],
+    truth: [13e6],
+    priors: [[5e6, 15e6]],
+    seed: 24,
+  },
 ];
 
-async function fitDischarge(ids: CalibrationParameterId[], truth: number[], priors: [number, number][], seed: number) {
+async function fitDischarge(
+  ids: CalibrationParameterId[],
+  truth: number[],
+  priors: [number, number][],
+  seed: number,
+  noise = 0.003,
+) {
   const measured = await ngspiceDischarge(applyParameterValues(testLadder, ids, truth), 0.1, 25);
   const points = withNoise(
     measured.map((p) => p.x),
     measured.map((p) => p.y),
-    0.003,
+    noise,
     seed,
   );
   return calibrateDesign(
@@ -61,6 +83,25 @@ describe.skipIf(!ngspiceAvailable)('calibration against ngspice discharge curves
     // The fit explains the curve: what is left is about the 0.3 % noise (≈ 4 V rms on ≈ 1.5 kV).
     expect(result.residuals[0]!.rmsAfterV).toBeLessThan(result.residuals[0]!.rmsBeforeV);
     expect(result.residuals[0]!.rmsAfterV).toBeLessThan(8);
+  });
+
+  it.each([
+    ['bleederResistance', 6e6, 5e6, 15e6],
+    ['bleederResistance', 13e6, 5e6, 15e6],
+    ['capacitanceScale', 0.6, 0.3, 1.3],
+  ] as const)('lands on the true %s %s within 0.02 % when the curve has no noise', async (id, truth, min, max) => {
+    const result = await fitDischarge([id], [truth], [[min, max]], 1, 0);
+    expect(Math.abs(result.parameters[0]!.value / truth - 1)).toBeLessThan(2e-4);
+  });
+
+  it('holds the true bleeder in its 95 % interval for at least 10 of 12 noise seeds', async () => {
+    // Binomial(12, 0.95): ten or more hold with probability 0.98 when the interval is right.
+    let held = 0;
+    for (let seed = 100; seed < 112; seed += 1) {
+      const fitted = (await fitDischarge(['bleederResistance'], [8e6], [[5e6, 15e6]], seed)).parameters[0]!;
+      if (fitted.interval && fitted.interval.low <= 8e6 && 8e6 <= fitted.interval.high) held += 1;
+    }
+    expect(held).toBeGreaterThanOrEqual(10);
   });
 
   it('flags bleeder resistance and capacitance as not separately identifiable from one discharge (τ = RC)', async () => {

@@ -1,5 +1,6 @@
-import { lazy, memo, Suspense, useDeferredValue } from 'react';
+import { lazy, memo, Suspense, useDeferredValue, useMemo } from 'react';
 import { Loader, Tabs, Text } from '@mantine/core';
+import { useDebouncedValue } from '@mantine/hooks';
 import type { RevisionDetail, RevisionSummary } from '@ladderwright/shared/api';
 import type { Design } from '@ladderwright/shared/designs';
 import type { DesignReport, HeadlineSource } from '@ladderwright/shared/analysis';
@@ -53,6 +54,9 @@ const LadderDiagram = lazy(() =>
   import('../../../features/workbench/components/ladder-diagram').then((module) => ({ default: module.LadderDiagram })),
 );
 
+/** How long the report must stay unchanged (ms) before the result tabs draw it: about one pause in typing. */
+const RESULT_TABS_SETTLE_MS = 250;
+
 /** The plots change only with the report, not with every keystroke that has not reached the engine yet. */
 const PlotsPanel = memo(function PlotsPanel({ report }: { report: DesignReport }) {
   return (
@@ -70,15 +74,18 @@ export function WorkbenchResults({
   projectId,
   revision,
   revisions,
-  draft,
+  draft: latestDraft,
   isDirty,
   report: latestReport,
   canSimulate,
   headline = null,
 }: WorkbenchResultsProps) {
-  // The tabs draw charts and the schematic: they follow the report at low priority, after the Verdict strip has
-  // shown the new figures, and a newer keystroke interrupts their render instead of waiting for it.
-  const report = useDeferredValue(latestReport);
+  // The tabs draw charts and the schematic, which costs far more than the Verdict strip: they follow the report
+  // once typing pauses (a burst of keystrokes redraws them once, not per key) and then at low priority, so a newer
+  // keystroke interrupts their render instead of waiting for it.
+  const latest = useMemo(() => ({ report: latestReport, draft: latestDraft }), [latestReport, latestDraft]);
+  const [settled] = useDebouncedValue(latest, RESULT_TABS_SETTLE_MS);
+  const { report, draft } = useDeferredValue(settled);
   return (
     <Suspense fallback={<Loader size="sm" aria-label="Loading the tab" />}>
       <Tabs defaultValue="plots" keepMounted={false}>

@@ -15,9 +15,11 @@ import { useState } from 'react';
 import type { CalibrationParameterOption } from '@ladderwright/shared/api';
 import type { BenchKind } from '@ladderwright/shared/bench';
 import type { CalibrationDataUse, CalibrationParameterId, PriorRange } from '@ladderwright/shared/calibration';
+import { formatDateTime } from '../../../lib/format-date';
 import { useCancelCalibration } from '../api/cancel-calibration';
 import { useCalibration } from '../api/get-calibration';
 import { useCalibrationParameters } from '../api/get-calibration-parameters';
+import { useCalibrations } from '../api/get-calibrations';
 import { useStartCalibratedRevision } from '../api/start-calibrated-revision';
 import { useStartCalibration } from '../api/start-calibration';
 import { CalibrationResultView, formatParameterValue } from './calibration-result';
@@ -80,7 +82,11 @@ export function CalibrationPanel({ projectId, designId, revisionNumber, runs, ca
   const start = useStartCalibration(projectId, designId, revisionNumber);
   const cancel = useCancelCalibration(projectId, designId, revisionNumber);
   const revision = useStartCalibratedRevision(projectId, designId, revisionNumber);
-  const calibration = useCalibration(projectId, designId, revisionNumber, calibrationId);
+  // Until one is run here, the panel shows the revision's newest calibration, so coming back to the page (or a
+  // re-mount of the panel) keeps the last result and its "Start revision" step.
+  const calibrations = useCalibrations(projectId, designId, revisionNumber);
+  const shownId = calibrationId ?? calibrations.data?.[0]?.id ?? null;
+  const calibration = useCalibration(projectId, designId, revisionNumber, shownId);
   const current = calibration.data;
   const isActive = current?.status === 'queued' || current?.status === 'running';
 
@@ -232,6 +238,11 @@ export function CalibrationPanel({ projectId, designId, revisionNumber, runs, ca
         <Alert color="red" title="Calibration refused">
           {start.error.message}
         </Alert>
+      )}
+      {current && calibrationId === null && (
+        <Text size="sm" c="dimmed">
+          Newest calibration of this revision, run {formatDateTime(current.createdAt)} by {current.requestedByName}.
+        </Text>
       )}
       {current && isActive && (
         <Stack gap={4}>
