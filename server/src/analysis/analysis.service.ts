@@ -14,8 +14,6 @@ export interface EngineRunner {
   run(task: EngineTask): Promise<EngineTaskOutcome>;
 }
 
-const CLOSING_BRACE = Buffer.from('}', 'utf8');
-
 /** A numeric headline figure of a report, by its path in the report. */
 export interface HeadlineFigure {
   key: string;
@@ -115,19 +113,15 @@ export class AnalysisService {
    * the same 400 naming the field.
    */
   async evaluateJsonBytes(document: unknown, fieldPrefix = 'document', shelf?: readonly ShelfPart[]): Promise<Buffer> {
-    const report = (await this.analyze(document as Design, fieldPrefix, shelf, 'json-bytes')) as Uint8Array;
-    return Buffer.concat([
-      Buffer.from(`{"engineVersion":${JSON.stringify(this.engineVersion)},"report":`, 'utf8'),
-      Buffer.from(report.buffer, report.byteOffset, report.byteLength),
-      CLOSING_BRACE,
-    ]);
+    const answer = (await this.analyze(document as Design, fieldPrefix, shelf, 'answer-bytes')) as Uint8Array;
+    return Buffer.from(answer.buffer, answer.byteOffset, answer.byteLength);
   }
 
   private async analyze(
     design: Design,
     fieldPrefix: string,
     shelf: readonly ShelfPart[] | undefined,
-    reportAs: 'object' | 'json-bytes',
+    reportAs: 'object' | 'answer-bytes',
   ): Promise<unknown> {
     const outcome = await this.withFieldPrefixAsync(fieldPrefix, () =>
       this.engine.run({ kind: 'analyze', document: design, reportAs, ...(shelf ? { shelf } : {}) }),

@@ -8,10 +8,11 @@ export interface EngineTask {
   document: Design;
   shelf?: readonly ShelfPart[];
   /**
-   * 'json-bytes': the report comes back as the UTF-8 bytes of its JSON text, which cross the thread boundary as
-   * one copy of bytes and go out as they are, with no large string on the request thread.
+   * 'answer-bytes': the whole evaluate answer (engine version and report) comes back as the UTF-8 bytes of its JSON
+   * text, which cross the thread boundary as one copy of bytes and go out as they are, with no large string on the
+   * request thread.
    */
-  reportAs?: 'object' | 'json-bytes';
+  reportAs?: 'object' | 'answer-bytes';
 }
 
 /** A no-op task that starts a thread, so its start-up is not charged to a request's budget. */

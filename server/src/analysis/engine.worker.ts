@@ -1,6 +1,7 @@
 import { analyzeDesign } from '@ladderwright/shared/analysis';
 import { validateDesign } from '@ladderwright/shared/designs';
 import { isDomainError } from '@ladderwright/shared/errors';
+import { ENGINE_VERSION } from '@ladderwright/shared/multiplier';
 import { analyzeWithShelf } from '@ladderwright/shared/parts';
 import type { EngineTask, EngineTaskOutcome, EngineWarmUp } from './engine-task.types';
 
@@ -16,7 +17,10 @@ export function runEngineTask(task: EngineTask | EngineWarmUp): EngineTaskOutcom
   try {
     const design = validateDesign(task.document);
     const report = task.shelf ? analyzeWithShelf(design, task.shelf) : analyzeDesign(design);
-    return { ok: true, report: task.reportAs === 'json-bytes' ? Buffer.from(JSON.stringify(report), 'utf8') : report };
+    if (task.reportAs !== 'answer-bytes') return { ok: true, report };
+    // The whole answer, so that it crosses the thread boundary as one copy of bytes and goes out as it is.
+    const answer = `{"engineVersion":${JSON.stringify(ENGINE_VERSION)},"report":${JSON.stringify(report)}}`;
+    return { ok: true, report: Buffer.from(answer, 'utf8') };
   } catch (error) {
     if (!isDomainError(error)) throw error;
     return { ok: false, error: { code: error.code, message: error.message, field: error.field, issues: error.issues } };

@@ -4,6 +4,7 @@ import { useDebouncedValue } from '@mantine/hooks';
 import type { RevisionDetail, RevisionSummary } from '@ladderwright/shared/api';
 import type { Design } from '@ladderwright/shared/designs';
 import type { DesignReport, HeadlineSource } from '@ladderwright/shared/analysis';
+import { formatQuantity } from '@ladderwright/shared/units';
 import { OtherFigures } from '../../../features/workbench/components/other-figures';
 import { formatDateTime } from '../../../lib/format-date';
 
@@ -134,7 +135,10 @@ export function WorkbenchResults({
           {headline?.source === 'simulation' && headline.simulatedAt && (
             <Text size="sm" mb="xs" data-current-simulation>
               The headline figures come from the full simulation of r{revision.number} that finished{' '}
-              {formatDateTime(headline.simulatedAt)}; start a run to see its waveforms again.
+              {formatDateTime(headline.simulatedAt)}
+              {headline.notSettledWithinS !== null &&
+                ` (it had not settled within ${formatQuantity(headline.notSettledWithinS, 's')} of simulated time)`}
+              ; start a run to see its waveforms again.
             </Text>
           )}
           <WaveformsPanel

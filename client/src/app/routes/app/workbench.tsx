@@ -1,11 +1,11 @@
-import { useCallback, useMemo, useState } from 'react';
+import { useCallback, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import { Alert, Anchor, Badge, Breadcrumbs, Group, List, Stack, Text } from '@mantine/core';
 import { useDocumentTitle } from '@mantine/hooks';
 import { useQueryClient, useSuspenseQuery, type QueryClient } from '@tanstack/react-query';
 import { Link, redirect, useNavigate, useParams, useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
 import type { Part, RevisionDetail, RevisionSummary, StaleBaseError } from '@ladderwright/shared/api';
 import { canActInProject } from '@ladderwright/shared/auth';
-import { headlineSource } from '@ladderwright/shared/analysis';
+import { headlineSource, simulationSourceLabel } from '@ladderwright/shared/analysis';
 import { documentFieldLabel, type Design } from '@ladderwright/shared/designs';
 import { paths } from '../../../config/paths';
 import { queryKeys } from '../../../lib/query-keys';
@@ -166,18 +166,30 @@ function EditableRevision({
     );
   };
 
+  // The header is memoized: Save reaches the latest submit through a ref, so its handler keeps its identity.
+  const submitRef = useRef(submit);
+  useLayoutEffect(() => {
+    submitRef.current = submit;
+  });
+  const onSave = useCallback((changeNote: string) => submitRef.current(changeNote), []);
+
   return (
     <Stack gap="sm">
       <WorkbenchHeader
         projectId={projectId}
         revision={revision}
         latestRevisionNumber={latestRevisionNumber}
-        draft={draft}
+        isDirty={isDirty}
+        canUndo={draft.canUndo}
+        canRedo={draft.canRedo}
+        onUndo={draft.undo}
+        onRedo={draft.redo}
+        onDiscard={draft.discard}
         isReadOnly={isReadOnly}
         isArchived={isArchived}
         isSaving={save.isPending}
         issueCount={issueCount}
-        onSave={submit}
+        onSave={onSave}
       />
       {stale && (
         <WorkbenchStaleAlert
@@ -219,7 +231,7 @@ function EditableRevision({
                 ? live.isPending
                   ? 'live preview, updating…'
                   : 'live preview (unsaved edits)'
-                : `server result of r${revision.number} · ${headline?.source === 'simulation' ? 'figures from simulation' : 'estimate'}`}
+                : `server result of r${revision.number} · ${headline?.source === 'simulation' ? `figures ${simulationSourceLabel(headline)}` : 'estimate'}`}
             </Badge>
           </Group>
           {live.engineError && isDirty && (

@@ -42,6 +42,8 @@ interface RowActions {
   paste: (row: number, column: CapacitorColumnKey, event: ClipboardEvent<HTMLElement>) => void;
   fillDown: (index: number) => void;
   pick: (index: number, part: Part) => void;
+  /** Grades the capacitors from a top-stage value (the grading helper). */
+  grade: (topStageF: number) => void;
 }
 
 /**
@@ -59,9 +61,9 @@ export function CapacitorTable({
   const places = capacitorPlacesOf(topology, capacitors);
   const [pasteMessage, setPasteMessage] = useState<{ isError: boolean; text: string } | null>(null);
   // The rows' actions read the latest props through a ref: a keystroke in one cell renders that row alone.
-  const latest = useRef({ capacitors, onChange, onPickPart });
+  const latest = useRef({ topology, capacitors, onChange, onPickPart });
   useLayoutEffect(() => {
-    latest.current = { capacitors, onChange, onPickPart };
+    latest.current = { topology, capacitors, onChange, onPickPart };
   });
   const actions = useMemo<RowActions>(
     () => ({
@@ -87,6 +89,10 @@ export function CapacitorTable({
       },
       fillDown: (index) => latest.current.onChange(fillDown(latest.current.capacitors, index)),
       pick: (index, part) => latest.current.onPickPart?.(index, part),
+      grade: (topStageF) => {
+        const { topology: shape, capacitors: current, onChange: change } = latest.current;
+        change(gradeCapacitors(shape, current, topStageF));
+      },
     }),
     [],
   );
@@ -101,7 +107,7 @@ export function CapacitorTable({
         <GradingHelper
           initialTopStageF={capacitors[capacitors.length - 1]?.valueF ?? 10e-9}
           isDisabled={places === null}
-          onApply={(topStageF) => onChange(gradeCapacitors(topology, capacitors, topStageF))}
+          onApply={actions.grade}
         />
       </Group>
       {pasteMessage && (
@@ -117,7 +123,7 @@ export function CapacitorTable({
           <Text size="sm">{pasteMessage.text}</Text>
         </Alert>
       )}
-      <Table.ScrollContainer minWidth={500}>
+      <Table.ScrollContainer minWidth={500} type="native">
         <Table verticalSpacing={4} horizontalSpacing={6} aria-label="Ladder capacitors">
           <Table.Thead>
             <Table.Tr>
@@ -294,7 +300,7 @@ function PercentInput({
   );
 }
 
-function GradingHelper({
+const GradingHelper = memo(function GradingHelper({
   initialTopStageF,
   isDisabled,
   onApply,
@@ -329,7 +335,7 @@ function GradingHelper({
       </Popover.Dropdown>
     </Popover>
   );
-}
+});
 
 function FillDownGlyph() {
   return (
