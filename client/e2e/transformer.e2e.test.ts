@@ -49,10 +49,10 @@ async function transformerVerdicts(current: Page): Promise<string[]> {
 }
 
 // Flux figures: B = L·Ipk / (N·Ae) (McLyman, Transformer and Inductor Design Handbook, from memory). With the
-// tester's 1 mH, 15 primary turns on the small high-permeability E13 core (Ae 12.4 mm², Bsat 320 mT at 100 °C)
-// put the peak past saturation. The fix keeps the given 20 : 8 : 1200 turns (the turns ratio the driver was
-// set for) on the wider-bobbin E19 core (Ae 22.6 mm²): about 170 mT, the 0.05 mm secondary in 20 layers, and
-// 3.5 mm end margins for the creepage IEC 60664-1 asks at the ~1.6 kV flyback.
+// tester's 1 mH, 15 : 6 : 900 turns on the small high-permeability E13 core (Ae 12.4 mm², Bsat 320 mT at 100 °C)
+// put the peak past saturation. The Sizer's fix on the wider-bobbin E19 core (Ae 22.6 mm², ungapped AL 4.3 µH)
+// takes 16 primary turns (√(1 mH / 4.3 µH) = 15.2) and keeps the given 1 : 60 ratio, with end margins for the
+// creepage IEC 60664-1 asks at the ~1.6 kV flyback.
 describe('transformer journey', () => {
   beforeAll(async () => {
     browser = await launchJourneyBrowser();
@@ -95,27 +95,37 @@ describe('transformer journey', () => {
     await choose(page, 'Core', /^NF-KE13-M2/);
     await setTurns(page, 'Primary turns', 15);
     await setTurns(page, 'Feedback turns', 6);
+    // Fewer turns in the same 1 : 60 ratio the driver was set for.
+    await setTurns(page, 'Secondary turns', 900);
     await page.getByRole('tab', { name: 'Transformer' }).click();
     await expect.poll(() => saturationVerdict(page), { timeout: 20_000 }).toBe('fail');
     await shot(page, 'transformer-01-saturated.png');
 
-    // The fix: the given turns on a larger core with a wide bobbin, a primary wire sized for its current and
-    // end margins wide enough for the flange creepage.
-    await choose(page, 'Core', /^NF-KE19-M2/);
-    await setTurns(page, 'Primary turns', 20);
-    await setTurns(page, 'Feedback turns', 8);
-    await choose(page, 'Primary wire', /^NF-W020-G2/);
-    const margin = page.getByLabel('End margin', { exact: true });
-    await margin.fill('3.5 mm');
-    await margin.blur();
+    // The fix: the core Sizer below the figures starts from this driver's figures; the wider-bobbin E19 core
+    // it ranks is applied to the draft, one undoable edit.
+    const sizer = page.getByRole('region', { name: 'Transformer cores for this driver' });
+    await sizer.getByText(/^From the driver of .+, at the rated load$/).waitFor();
+    // A primary wire for the ~80 mA primary rather than the shelf's thickest.
+    await choose(page, 'Primary and feedback wire', /^NF-W020-G2$/);
+    await sizer.getByRole('button', { name: /^Rank \d+ shelf cores$/ }).click();
+    await sizer.getByRole('button', { name: 'Apply NF-KE19-M2 to the design' }).click();
+    await sizer.getByRole('status').filter({ hasText: 'NF-KE19-M2 applied to the draft' }).waitFor();
     await expect.poll(() => saturationVerdict(page), { timeout: 20_000 }).toBe('pass');
     await expect.poll(() => transformerVerdicts(page), { timeout: 20_000 }).not.toContain('fail');
     expect(await transformerVerdicts(page)).not.toContain('marginal');
     await page.locator('[data-driver-effect="fine"]').waitFor();
     expect(await page.locator('[data-transformer="peakFluxDensityT"]').textContent()).toMatch(/^\d+(\.\d+)? mT$/);
     await shot(page, 'transformer-02-fixed.png');
+    // The applied section is an edit like any other: undo brings the saturating E13 back, redo the fix.
+    await page.getByRole('heading', { name: 'Workbench', level: 1 }).click();
+    await page.keyboard.press('Control+z');
+    await expect.poll(() => saturationVerdict(page), { timeout: 20_000 }).toBe('fail');
+    await page.keyboard.press('Control+Shift+z');
+    await expect.poll(() => saturationVerdict(page), { timeout: 20_000 }).toBe('pass');
 
-    await page.getByLabel('Change note').fill('Transformer designed on the E19 core, 20 : 8 : 1200 turns');
+    await page
+      .getByLabel('Change note')
+      .fill('Transformer designed on the E19 core the Sizer ranks, 16 : 6 : 960 turns');
     await page.getByRole('button', { name: 'Save revision' }).click();
     await page.getByRole('link', { name: 'Sign-off of r2' }).click();
     const [download] = await Promise.all([
@@ -136,7 +146,7 @@ describe('transformer journey', () => {
     ]) {
       expect(text).toContain(expected);
     }
-    expect(text).toMatch(/primary\s+1 \(dot\)–2\s+20/);
+    expect(text).toMatch(/primary\s+1 \(dot\)–2\s+16/);
     await shot(page, 'transformer-03-sign-off.png');
     expect(pageErrors).toEqual([]);
   }, 180_000);

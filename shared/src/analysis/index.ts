@@ -13,3 +13,5 @@ export type {
   HeadlineSource,
   SimulatedFigures,
 } from './simulated-figures';
+export { driverSizerFigures, withTransformerSection } from './transformer-sizer-inputs';
+export type { DriverSizerFigures } from './transformer-sizer-inputs';

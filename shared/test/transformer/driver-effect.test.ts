@@ -56,6 +56,19 @@ describe('what the designed transformer does to the driver', () => {
     expect(effect.findings.join(' ')).toMatch(/turns ratio is 1:40 where the given numbers have 1:60/);
   });
 
+  it('names the feedback ratio when the primary’s turns change alone, and leaves the held inductance out', () => {
+    const section: TransformerSection = {
+      ...demoTransformerSection,
+      windings: demoTransformerSection.windings.map((w) => (w.role === 'primary' ? { ...w, turns: 30 } : w)),
+    };
+    const findings = analyzeDesign(testerOn(section)).transformer?.driverEffect?.findings.join(' ') ?? '';
+    // 8 feedback turns over 30 primary turns: 0.27 of them, where the given 8 over 20 are 0.40.
+    expect(findings).toMatch(/feedback winding has 0\.27 of the primary’s turns where the given numbers have 0\.40/);
+    expect(findings).not.toMatch(/primary inductance/);
+    const scaled = analyzeDesign(testerOn(withPrimaryTurns(30))).transformer?.driverEffect?.findings.join(' ') ?? '';
+    expect(scaled).not.toMatch(/feedback winding/);
+  });
+
   it('a given transformer has no section and no effect', () => {
     expect(analyzeDesign(designExamples.surfaceChargeTester).transformer).toBeUndefined();
   });

@@ -279,6 +279,8 @@ function EditableRevision({
               report={report}
               canSimulate={!isArchived}
               headline={headline}
+              shelf={shelf ?? noParts}
+              {...(isReadOnly ? {} : { onDraftChange: (next: Design) => draft.setDraft(next) })}
             />
           )}
         </section>
