@@ -1,17 +1,13 @@
 import { resolve } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { predictedLoadCurve } from '@ladderwright/shared/bench';
 import { baseUrl, launchJourneyBrowser, openJourneyPage, screenshotDir, signInAsDemo } from './journey';
 
 let browser: Browser;
 let context: BrowserContext;
 let page: Page;
 let pageErrors: string[];
-
-interface CurvePoint {
-  x: number;
-  y: number;
-}
 
 describe('calibration journey', () => {
   beforeAll(async () => {
@@ -42,12 +38,11 @@ describe('calibration journey', () => {
     if (!design) throw new Error('no demo design');
     const latest = design.latestRevisionNumber;
     const revisionUrl = `${baseUrl}/api/projects/${project.id}/designs/${design.id}/revisions/${latest}`;
-    const revision = (await (await page.request.get(revisionUrl)).json()) as {
-      report: { curves: { regulation: CurvePoint[] } };
-    };
+    const revision = (await (await page.request.get(revisionUrl)).json()) as { report: unknown };
     // A sweep 3 % below the predicted output-vs-load curve at its first six points (a prototype that
     // delivers less than drawn); the fit then moves the gain to explain it.
-    const rows = revision.report.curves.regulation.slice(0, 6);
+    // The curve the page compares with (the tester is a driver design: its joint driver–ladder curve).
+    const rows = predictedLoadCurve(revision.report).slice(0, 6);
     const csv = [
       'current (uA),voltage (V)',
       ...rows.map((p) => `${(p.x * 1e6).toPrecision(10)},${(p.y * 0.97).toPrecision(10)}`),

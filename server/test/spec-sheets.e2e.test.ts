@@ -6,6 +6,7 @@ import request from 'supertest';
 import type { DesignDetail } from '@ladderwright/shared/api';
 import type { DesignReport } from '@ladderwright/shared/analysis';
 import { headlineSource } from '@ladderwright/shared/analysis';
+import { predictedLoadCurve } from '@ladderwright/shared/bench';
 import { ENGINE_VERSION } from '@ladderwright/shared/multiplier';
 import { describeMargin, mergeCheckRows } from '@ladderwright/shared/safety';
 import { RevisionModel } from '../src/revisions/revision.model';
@@ -95,7 +96,10 @@ describe('spec sheets', () => {
   async function sweepBelowPrediction(design: { id: string }): Promise<Buffer> {
     const revision = await RevisionModel.findOne({ where: { designId: design.id, number: 1 } });
     const report = revision?.report as unknown as DesignReport | undefined;
-    const curve = (report?.curves.regulation ?? []).filter((point) => point.x > 0).slice(0, 3);
+    // The curve the bench comparison uses: a driver design's joint driver–ladder curve, else the regulation curve.
+    const curve = predictedLoadCurve(report)
+      .filter((point) => point.x > 0)
+      .slice(0, 3);
     expect(curve).toHaveLength(3);
     const lines = curve.map(
       (point) => `${(point.x * 1e6).toPrecision(12)},${(Math.abs(point.y) * 0.99).toPrecision(12)}`,

@@ -171,6 +171,8 @@ function simulateDriverDesign(design: Design, flags: Map<string, string | true>)
     outputMeanV: result.outputMeanV,
     ripplePeakToPeakV: result.ripplePeakToPeakV,
     oscillationFrequencyHz: f?.oscillationFrequencyHz ?? null,
+    /** The cycles' periods spread (bursts): the frequency above is their mean. */
+    isOscillationIrregular: f?.isIrregular ?? null,
     dutyOnFraction: f?.dutyOnFraction ?? null,
     primaryCurrentPeakA: f?.primaryCurrentPeakA ?? null,
     collectorVoltagePeakV: f?.collectorVoltagePeakV ?? null,

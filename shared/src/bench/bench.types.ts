@@ -34,7 +34,10 @@ export interface MeasurementTable {
 
 /** What the revision predicts, taken from its stored report. Magnitudes (unsigned), SI units. */
 export interface BenchPrediction {
-  /** Mean output vs external load current, 0 to short circuit. */
+  /**
+   * Mean output vs external load current, 0 to short circuit: a driver design's joint driver–ladder operating
+   * curve, else the ladder's regulation curve (predictedLoadCurve).
+   */
   regulation: CurvePoint[];
   outputMeanV: number;
   ripplePeakToPeakV: number;

@@ -143,19 +143,37 @@ function finiteNumber(value: unknown): value is number {
 }
 
 /**
- * Takes the prediction out of a revision's stored engine report (`curves.regulation`, `outputMeanV`,
- * `ripplePeakToPeakV`, `analysis.loadCurrentA`), as magnitudes. Throws when the report lacks them.
+ * The predicted output against external load current a load sweep is compared with: for a driver design the
+ * joint driver–ladder operating curve (`driver.operatingPoint.curve`: the driver's power and the ladder meet
+ * at each load, as the Calibrate panel's model solves it), else the ladder's regulation curve at its fixed
+ * drive (`curves.regulation`). Points with non-finite numbers are left out.
  */
-export function predictionFromReport(report: unknown): BenchPrediction {
+export function predictedLoadCurve(report: unknown): CurvePoint[] {
   const body = (report ?? {}) as Record<string, unknown>;
+  const driver = (body.driver ?? {}) as Record<string, unknown>;
+  const operating = ((driver.operatingPoint ?? {}) as Record<string, unknown>).curve;
+  if (Array.isArray(operating) && operating.length >= 2) {
+    return (operating as { loadCurrentA?: unknown; outputV?: unknown }[])
+      .map((point) => ({ x: point.loadCurrentA, y: point.outputV }))
+      .filter((point): point is CurvePoint => finiteNumber(point.x) && finiteNumber(point.y));
+  }
   const curves = (body.curves ?? {}) as Record<string, unknown>;
-  const analysis = (body.analysis ?? {}) as Record<string, unknown>;
-  const regulation = Array.isArray(curves.regulation)
+  return Array.isArray(curves.regulation)
     ? (curves.regulation as unknown[]).filter(
         (point): point is CurvePoint =>
           finiteNumber((point as CurvePoint)?.x) && finiteNumber((point as CurvePoint)?.y),
       )
     : [];
+}
+
+/**
+ * Takes the prediction out of a revision's stored engine report (the predicted load curve, `outputMeanV`,
+ * `ripplePeakToPeakV`, `analysis.loadCurrentA`), as magnitudes. Throws when the report lacks them.
+ */
+export function predictionFromReport(report: unknown): BenchPrediction {
+  const body = (report ?? {}) as Record<string, unknown>;
+  const analysis = (body.analysis ?? {}) as Record<string, unknown>;
+  const regulation = predictedLoadCurve(report);
   if (regulation.length < 2 || !finiteNumber(body.outputMeanV) || !finiteNumber(body.ripplePeakToPeakV)) {
     throw new DomainError('invalid_argument', 'The revision has no predicted output curve to compare with', 'revision');
   }

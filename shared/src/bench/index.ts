@@ -6,6 +6,7 @@ export {
   deviation,
   benchVerdict,
   captureFigures,
+  predictedLoadCurve,
   predictionFromReport,
   BENCH_MARGINAL_BELOW_PCT,
 } from './compare-bench-run';

@@ -15,14 +15,21 @@ export interface EstimateValidity {
 /** Frequency and output bounds of the estimate's validity against the simulation (fractions). */
 export const ESTIMATE_VALIDITY_BOUNDS = { frequency: 0.1, output: 0.05 } as const;
 
+/** The flyback's reflected voltage over the supply below which the estimate does not claim its bounds with a ladder. */
+export const MIN_REFLECTED_TO_SUPPLY = 8;
+/** The largest step-up (Ns/Np) the estimate was calibrated at with a ladder. */
+export const MAX_CALIBRATED_TURNS_RATIO = 80;
+
 /**
- * Where the closed-form estimate agrees with our simulator (shared/test/driver: bare stages, base-limited,
- * 2.4–12 V: peak within 5 %, frequency within 10 %), and where it does not: with a ladder on the secondary the
- * collector rings down after each flyback and the forward pulse trades charge with the ladder, so the next
- * ramp starts from a negative magnetizing current and the period runs longer than the closed form (the demo
- * handheld tester with 220 pF cells: frequency 31 % high, output 7 % low); a turn-off current above half of
- * V/R makes the on-time hang on the exact turn-off point; past the core's saturation the current depends on
- * the knee's shape. Outside, the figure says so and asks for a simulation.
+ * Where the closed-form estimate agrees with our simulator, and where it does not. Bare stages
+ * (shared/test/driver/oscillator-estimate-vs-simulator.test.ts, base-limited, 2.4–12 V): primary peak within
+ * 5 %, frequency within 10 %. With a ladder (estimate-calibration.test.ts, the ring-back after each flyback
+ * in the estimate): frequency within 10 % and output within 5 % on base-limited stages with a zener clamp,
+ * step-up up to 1:80 and the flyback reflected at least 8× the supply. Outside that region the figure says
+ * why and asks for a simulation: nearer the supply the forward pulse's ringing with the leakage inductance
+ * sets the ladder's forward peak and the transistor's turn-on in the ring-back moves; past the core's
+ * saturation the current depends on the knee's shape; an RCD clamp's level is set by its resistor's balance
+ * with the clamp energy; a turn-off current above half of V/R makes the on-time hang on the exact turn-off point.
  */
 export function estimateValidity(
   driver: DriverStage,
@@ -30,15 +37,30 @@ export function estimateValidity(
   options: { feedsLadder: boolean },
 ): EstimateValidity {
   const reasons: string[] = [];
+  const tx = driver.transformer;
   if (options.feedsLadder) {
-    reasons.push(
-      'a ladder on the secondary: the ring-down after each flyback and the forward pulse’s exchange with the ladder lengthen the period beyond the closed form',
-    );
+    const reflectedRatio = estimate.reflectedVoltageV.value / estimate.supplyVoltageV.value;
+    if (reflectedRatio < MIN_REFLECTED_TO_SUPPLY) {
+      reasons.push(
+        `the flyback reflects ${reflectedRatio.toFixed(1)}× the supply, under ${MIN_REFLECTED_TO_SUPPLY}×: the forward pulse’s ringing sets the ladder’s forward peak`,
+      );
+    }
+    const turnsRatio = tx.secondaryTurns / tx.primaryTurns;
+    if (turnsRatio > MAX_CALIBRATED_TURNS_RATIO) {
+      reasons.push(
+        `a step-up of 1:${turnsRatio.toFixed(0)}, beyond the 1:${MAX_CALIBRATED_TURNS_RATIO} it was calibrated at: the ladder’s capacitance reflected by its square dominates the ring-back`,
+      );
+    }
+    if (driver.clamp?.kind === 'rcd') {
+      reasons.push(
+        'an RCD clamp: its level is set by its resistor’s balance with the clamp energy, not by the stated voltage',
+      );
+    }
   }
   if (estimate.onTimeLimit === 'saturation') {
     reasons.push('the core saturates before the turn-off point: the peak current depends on the shape of its knee');
   }
-  const seriesOhm = driver.transformer.primaryResistanceOhm + (driver.collectorResistorOhm ?? 0);
+  const seriesOhm = tx.primaryResistanceOhm + (driver.collectorResistorOhm ?? 0);
   const finalA = seriesOhm > 0 ? (estimate.supplyVoltageV.value - driver.transistor.vceSatV) / seriesOhm : Infinity;
   if (estimate.collectorPeakCurrentA.value > 0.5 * finalA) {
     reasons.push('the turn-off current is above half of V/R: the on-time hangs on the exact turn-off point');
@@ -46,8 +68,9 @@ export function estimateValidity(
   return {
     isWithinValidity: reasons.length === 0,
     reasons,
-    basis:
-      'our simulator on bare base-limited stages, 2.4–12 V: primary peak within 5 %, frequency within 10 % (shared/test/driver)',
+    basis: options.feedsLadder
+      ? `our simulator with the ladder, base-limited stages with a zener clamp, step-up to 1:${MAX_CALIBRATED_TURNS_RATIO}, flyback reflected ≥ ${MIN_REFLECTED_TO_SUPPLY}× the supply: frequency within 10 %, output within 5 % (shared/test/driver/estimate-calibration.test.ts)`
+      : 'our simulator on bare base-limited stages, 2.4–12 V: primary peak within 5 %, frequency within 10 % (shared/test/driver)',
   };
 }
 

@@ -62,6 +62,7 @@ export function driverFigures(
   return {
     cycles: osc.cycles,
     oscillationFrequencyHz: osc.frequencyHz,
+    isIrregular: osc.isIrregular,
     dutyOnFraction: osc.dutyOnFraction,
     primaryCurrentPeakA: osc.primaryCurrentPeakA,
     collectorVoltagePeakV: col.max,

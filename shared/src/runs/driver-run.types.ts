@@ -51,6 +51,8 @@ export type DriverLossKind = BenchLossKind;
  */
 export interface DriverFigures extends Omit<DriverBenchFigures, 'losses'> {
   cycles: number;
+  /** The periods of the measured cycles spread (bursts): the frequency is their mean (oscillation-measures.ts). */
+  isIrregular?: boolean;
   lossesW: Partial<Record<DriverLossKind, number>>;
 }
 

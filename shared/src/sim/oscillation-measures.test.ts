@@ -1,5 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { oscillationFigures, readSettlingTimes, turnOnTimes, TurnOnTrigger } from './oscillation-measures';
+import {
+  isIrregularCycles,
+  oscillationFigures,
+  readSettlingTimes,
+  turnOnTimes,
+  TurnOnTrigger,
+} from './oscillation-measures';
 
 // Synthetic blocking-oscillator waveforms with known timing (the check values are the construction's own):
 // period 40 µs, on for 25 µs (the primary current ramps from 0 to 1 A), then a flyback of 10 µs during
@@ -69,6 +75,55 @@ describe('oscillation figures over whole cycles', () => {
     expect(f.primaryCurrentPeakA).toBeCloseTo(1, 3);
     expect(f.ripplePeakToPeak).toBeCloseTo(4, 2);
     expect(f.mean).toBeCloseTo(1000, 3);
+  });
+});
+
+// The same 40 µs cycle with strong rings: after the flyback the primary current rings at 2 MHz with 0.8 A
+// amplitude (past half the 1 A peak) while the collector swings 15 V through the supply (a squegging burst),
+// and 3 µs into each ramp the collector rings above the supply for 0.2 µs while the current dips by 0.3 A
+// (a ring-back within one conduction). The true frequency is 25 kHz by construction.
+function ringingWaveforms(cycles: number, stepS = 10e-9): { t: number[]; i: number[]; col: number[] } {
+  const t: number[] = [];
+  const i: number[] = [];
+  const col: number[] = [];
+  for (let k = 0; k * stepS <= cycles * periodS; k++) {
+    const time = k * stepS;
+    const phase = time % periodS;
+    t.push(time);
+    if (phase < onS) {
+      const isRingBack = phase > 3e-6 && phase < 3.2e-6;
+      i.push(phase / onS + 0.5 - (isRingBack ? 0.3 : 0));
+      col.push(isRingBack ? 2 : -3);
+    } else if (phase < onS + flybackS) {
+      i.push(0.8 * (1 - (phase - onS) / flybackS));
+      col.push(20);
+    } else {
+      const ring = Math.sin(2 * Math.PI * 2e6 * (phase - onS - flybackS));
+      i.push(0.8 * ring);
+      col.push(-15 * ring);
+    }
+  }
+  return { t, i, col };
+}
+
+describe('turn-on events robust to rings', () => {
+  it('counts one turn-on per cycle through a ringing burst and a ring-back within the conduction', () => {
+    const w = ringingWaveforms(6);
+    const on = turnOnTimes(w.t, w.i, w.col);
+    // The ramp runs from 0.5 A to the 1.5 A peak, so it rises through half the peak at 0.25·onS; the first
+    // ramp, already above a tenth of the peak at t = 0, is not armed.
+    expect(on.length).toBe(5);
+    on.forEach((tOn, k) => expect(tOn).toBeCloseTo((k + 1) * periodS + 0.25 * onS, 8));
+    const f = oscillationFigures(w.t, w.i, w.col, w.i)!;
+    expect(f.frequencyHz).toBeCloseTo(25e3, 2);
+    expect(f.isIrregular).toBe(false);
+  });
+
+  it('flags cycles whose periods spread (bursts) and gives their mean frequency', () => {
+    expect(isIrregularCycles([0, 40e-6, 80e-6, 120e-6])).toBe(false);
+    // Periods 40, 60, 40, 60 µs: spread 20 µs over a 50 µs mean.
+    const on = [0, 40e-6, 100e-6, 140e-6, 200e-6];
+    expect(isIrregularCycles(on)).toBe(true);
   });
 });
 

@@ -7,7 +7,18 @@
  * flows while the collector is above the supply and does not count. The trigger re-arms once the
  * collector has gone above the supply (the switch turned off) or the current has fallen below a tenth of
  * the peak.
+ *
+ * A recorded trace (turnOnTimes) also drops a rise whose current pulse is a ring rather than a conduction:
+ * one that falls back below a tenth of the peak within `RING_FRACTION` of the record's longest pulse. An
+ * oscillator that squegs (bursts of fast rings between long conductions) is measured from the long
+ * conductions only; cycles whose periods spread by more than `IRREGULAR_SPREAD` of their mean are flagged
+ * irregular, and their frequency is the mean over the whole cycles.
  */
+
+/** A rise whose pulse lasts under this fraction of the record's longest pulse is a ring, not a turn-on. */
+export const RING_FRACTION = 0.25;
+/** Cycles are irregular when (longest − shortest period) exceeds this fraction of the mean period. */
+export const IRREGULAR_SPREAD = 0.2;
 
 /** Fraction of the peak primary current whose rising crossing marks a turn-on. */
 export const TURN_ON_FRACTION = 0.5;
@@ -72,7 +83,8 @@ export class TurnOnTrigger {
 
 /**
  * Turn-on times of a recorded primary current and collector-minus-supply voltage (see TurnOnTrigger), the
- * reference being the record's peak primary current while the transistor conducts.
+ * reference being the record's peak primary current while the transistor conducts. Rings (pulses shorter
+ * than `RING_FRACTION` of the longest, see the note at the top) are not turn-ons.
  */
 export function turnOnTimes(
   timeS: ArrayLike<number>,
@@ -84,21 +96,46 @@ export function turnOnTimes(
   const out: number[] = [];
   if (!(peak > 0)) return out;
   const level = TURN_ON_FRACTION * peak;
+  const low = REARM_FRACTION * peak;
+  // Each rise with the length of its pulse (until the current falls below a tenth of the peak; NaN when the
+  // record ends first).
+  const rises: { t: number; pulseS: number }[] = [];
+  // Re-armed only once the current has fallen below a tenth of the peak and the collector has been above
+  // the supply (the switch off): a collector ringing through the supply within one conduction does not re-arm.
   let isArmed = false;
+  let hasFallen = false;
+  let wentOff = false;
   for (let i = 0; i < timeS.length; i++) {
     const v = primaryA[i]!;
     const isOn = collectorOverSupplyV[i]! < 0;
     if (!isArmed) {
-      if (!isOn || v <= REARM_FRACTION * peak) isArmed = true;
+      if (v <= low) hasFallen = true;
+      if (!isOn) wentOff = true;
+      isArmed = hasFallen && (wentOff || i === 0);
       continue;
     }
     const u = primaryA[i - 1]!;
     if (isOn && u < level && v >= level) {
-      out.push(timeS[i - 1]! + ((timeS[i]! - timeS[i - 1]!) * (level - u)) / (v - u));
+      const t = timeS[i - 1]! + ((timeS[i]! - timeS[i - 1]!) * (level - u)) / (v - u);
+      let j = i;
+      while (j < timeS.length && primaryA[j]! > low) j++;
+      rises.push({ t, pulseS: j < timeS.length ? timeS[j]! - t : NaN });
       isArmed = false;
+      hasFallen = false;
+      wentOff = false;
     }
   }
+  const longestS = Math.max(0, ...rises.map((r) => (Number.isNaN(r.pulseS) ? 0 : r.pulseS)));
+  for (const r of rises) if (!(r.pulseS < RING_FRACTION * longestS)) out.push(r.t);
   return out;
+}
+
+/** Whether the periods between successive turn-ons spread by more than `IRREGULAR_SPREAD` of their mean. */
+export function isIrregularCycles(turnOnS: ReadonlyArray<number>): boolean {
+  if (turnOnS.length < 3) return false;
+  const periods = turnOnS.slice(1).map((t, k) => t - turnOnS[k]!);
+  const meanS = (turnOnS[turnOnS.length - 1]! - turnOnS[0]!) / periods.length;
+  return Math.max(...periods) - Math.min(...periods) > IRREGULAR_SPREAD * meanS;
 }
 
 /** Bench figures of the whole cycles between the first and last turn-on of a record. */
@@ -107,7 +144,10 @@ export interface OscillationFigures {
   cycles: number;
   fromS: number;
   toS: number;
+  /** Whole cycles over their span: the mean frequency when the cycles are irregular. */
   frequencyHz: number;
+  /** The periods spread by more than `IRREGULAR_SPREAD` of their mean (bursts, squegging). */
+  isIrregular: boolean;
   /**
    * On-time over the period: from the ramp's start (its rise through 10 % and 50 % of the peak, extrapolated
    * linearly back to zero current) to the turn-off (the collector rising through the supply, or the
@@ -218,6 +258,7 @@ export function oscillationFigures(
     fromS,
     toS,
     frequencyHz: cycles / spanS,
+    isIrregular: isIrregularCycles(on),
     dutyOnFraction: Math.min(1, onTotalS / spanS),
     primaryCurrentPeakA: peak,
     ripplePeakToPeak: hi - lo,

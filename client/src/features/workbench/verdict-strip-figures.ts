@@ -145,10 +145,10 @@ export function verdictStripFigures(
       ? {
           key: 'output',
           label: 'Output (mean, loaded)',
-          value: 'load beyond the supply',
+          value: 'beyond supply',
           target: `${formatQuantity(targets.outputV, 'V')}`,
           verdict: 'fail',
-          margin: `holds its output to ${formatQuantity(capacity.maxLoadCurrentA, 'A')}, asked ${formatQuantity(capacity.loadCurrentA, 'A')}`,
+          margin: `load beyond the supply: holds ${formatQuantity(capacity.maxLoadCurrentA, 'A')}, asked ${formatQuantity(capacity.loadCurrentA, 'A')}`,
           method: steady,
         }
       : {

@@ -55,3 +55,28 @@ describe('VerdictStrip with a stored simulation', () => {
     );
   });
 });
+
+describe('VerdictStrip with a load beyond the supply', () => {
+  it('shows no output figure but says the load is beyond the supply, with what it holds', () => {
+    const heavy = { ...tester, load: { kind: 'current' as const, currentA: 1e-3 } };
+    const beyond = analyzeDesign(heavy);
+    renderWithApp(<VerdictStrip report={beyond} targets={heavy.targets} />);
+    const output = cell('Output (mean, loaded)');
+    expect(output).toHaveAttribute('data-verdict', 'fail');
+    expect(within(output).getByText('beyond supply')).toBeInTheDocument();
+    const holds = formatQuantity(beyond.driver!.loadCapacity!.maxLoadCurrentA, 'A');
+    expect(within(output).getByText(new RegExp(`holds ${holds}, asked 1 mA`))).toBeInTheDocument();
+  });
+
+  it('marks a figure of an unsettled simulation with the time it did not settle within', () => {
+    const headline = headlineSource(
+      report,
+      { ...simulation(report.outputMeanV), notSettledWithinS: 0.02 },
+      tester.targets,
+    );
+    renderWithApp(<VerdictStrip report={report} targets={tester.targets} headline={headline} />);
+    expect(
+      within(cell('Output (mean, loaded)')).getByText('from simulation, not settled within 20 ms'),
+    ).toBeInTheDocument();
+  });
+});
