@@ -36,9 +36,23 @@ async function setTurns(current: Page, label: string, turns: number): Promise<vo
   await field.blur();
 }
 
-// Flux figures: B = L·Ipk / (N·Ae) (McLyman, Transformer and Inductor Design Handbook, from memory); with the
-// demo's 1 mH on the small high-permeability E13 core (Ae 12.4 mm², Bsat 320 mT at 100 °C), 15 primary turns
-// put the peak past saturation and 30 bring it below 80 % of it.
+/** Picks an option of a select by its label and the start of the option's text. */
+async function choose(current: Page, label: string, option: RegExp): Promise<void> {
+  await current.getByRole('combobox', { name: label, exact: true }).click();
+  await current.getByRole('option', { name: option }).click();
+}
+
+/** Verdicts of the transformer Checks in the Transformer tab, by the row's text. */
+async function transformerVerdicts(current: Page): Promise<string[]> {
+  const rows = current.getByRole('tabpanel').getByRole('table', { name: 'Checks' }).locator('tr[data-verdict]');
+  return rows.evaluateAll((list) => list.map((row) => row.getAttribute('data-verdict') ?? ''));
+}
+
+// Flux figures: B = L·Ipk / (N·Ae) (McLyman, Transformer and Inductor Design Handbook, from memory). With the
+// tester's 1 mH, 15 : 6 : 900 turns on the small high-permeability E13 core (Ae 12.4 mm², Bsat 320 mT at 100 °C)
+// put the peak past saturation. The Sizer's fix on the wider-bobbin E19 core (Ae 22.6 mm², ungapped AL 4.3 µH)
+// takes 16 primary turns (√(1 mH / 4.3 µH) = 15.2) and keeps the given 1 : 60 ratio, with end margins for the
+// creepage IEC 60664-1 asks at the ~1.6 kV flyback.
 describe('transformer journey', () => {
   beforeAll(async () => {
     browser = await launchJourneyBrowser();
@@ -78,22 +92,40 @@ describe('transformer journey', () => {
 
     // Given numbers -> designed from a core on the shelf.
     await page.getByLabel('Transformer from').getByText('Designed from a core').click();
-    await page.getByRole('combobox', { name: 'Core', exact: true }).click();
-    await page.getByRole('option', { name: /^NF-KE13-M2/ }).click();
+    await choose(page, 'Core', /^NF-KE13-M2/);
     await setTurns(page, 'Primary turns', 15);
     await setTurns(page, 'Feedback turns', 6);
+    // Fewer turns in the same 1 : 60 ratio the driver was set for.
+    await setTurns(page, 'Secondary turns', 900);
     await page.getByRole('tab', { name: 'Transformer' }).click();
     await expect.poll(() => saturationVerdict(page), { timeout: 20_000 }).toBe('fail');
     await shot(page, 'transformer-01-saturated.png');
 
-    // More turns on the same inductance: less flux.
-    await setTurns(page, 'Primary turns', 30);
-    await setTurns(page, 'Feedback turns', 12);
+    // The fix: the core Sizer below the figures starts from this driver's figures; the wider-bobbin E19 core
+    // it ranks is applied to the draft, one undoable edit.
+    const sizer = page.getByRole('region', { name: 'Transformer cores for this driver' });
+    await sizer.getByText(/^From the driver of .+, at the rated load$/).waitFor();
+    // A primary wire for the ~80 mA primary rather than the shelf's thickest.
+    await choose(page, 'Primary and feedback wire', /^NF-W020-G2$/);
+    await sizer.getByRole('button', { name: /^Rank \d+ shelf cores$/ }).click();
+    await sizer.getByRole('button', { name: 'Apply NF-KE19-M2 to the design' }).click();
+    await sizer.getByRole('status').filter({ hasText: 'NF-KE19-M2 applied to the draft' }).waitFor();
     await expect.poll(() => saturationVerdict(page), { timeout: 20_000 }).toBe('pass');
+    await expect.poll(() => transformerVerdicts(page), { timeout: 20_000 }).not.toContain('fail');
+    expect(await transformerVerdicts(page)).not.toContain('marginal');
+    await page.locator('[data-driver-effect="fine"]').waitFor();
     expect(await page.locator('[data-transformer="peakFluxDensityT"]').textContent()).toMatch(/^\d+(\.\d+)? mT$/);
     await shot(page, 'transformer-02-fixed.png');
+    // The applied section is an edit like any other: undo brings the saturating E13 back, redo the fix.
+    await page.getByRole('heading', { name: 'Workbench', level: 1 }).click();
+    await page.keyboard.press('Control+z');
+    await expect.poll(() => saturationVerdict(page), { timeout: 20_000 }).toBe('fail');
+    await page.keyboard.press('Control+Shift+z');
+    await expect.poll(() => saturationVerdict(page), { timeout: 20_000 }).toBe('pass');
 
-    await page.getByLabel('Change note').fill('Transformer designed on the E13 core, 30 primary turns');
+    await page
+      .getByLabel('Change note')
+      .fill('Transformer designed on the E19 core the Sizer ranks, 16 : 6 : 960 turns');
     await page.getByRole('button', { name: 'Save revision' }).click();
     await page.getByRole('link', { name: 'Sign-off of r2' }).click();
     const [download] = await Promise.all([
@@ -108,13 +140,13 @@ describe('transformer journey', () => {
     for (const expected of [
       'Transformer sheet',
       'NOT RELEASED',
-      'NF-KE13-M2',
+      'NF-KE19-M2',
       'Winding schedule',
       'Hipot test voltage',
     ]) {
       expect(text).toContain(expected);
     }
-    expect(text).toMatch(/primary\s+1 \(dot\)–2\s+30/);
+    expect(text).toMatch(/primary\s+1 \(dot\)–2\s+16/);
     await shot(page, 'transformer-03-sign-off.png');
     expect(pageErrors).toEqual([]);
   }, 180_000);

@@ -14,6 +14,7 @@ import { AuthModule } from './auth/auth.module';
 import { SessionCacheModule } from './auth/session-cache.module';
 import { BenchRunsModule } from './bench-runs/bench-runs.module';
 import { sessionCookieName } from './auth/jwt.strategy';
+import { bodyTransformer } from './common/decorators/shallow-transform.decorator';
 import { RequestShapeGuard } from './common/guards/request-shape.guard';
 import { DomainErrorFilter, RequestValidationException } from './common/filters/domain-error.filter';
 import { sameOriginOnly } from './common/middleware/same-origin.middleware';
@@ -116,6 +117,7 @@ export function configureApp(app: NestExpressApplication, env: AppEnv): void {
       whitelist: true,
       forbidNonWhitelisted: true,
       transform: true,
+      transformerPackage: bodyTransformer,
       exceptionFactory: (errors) => new RequestValidationException(errors),
     }),
   );

@@ -169,6 +169,24 @@ describe('projects', () => {
       expect((await http().get(`/api/projects/${projectA.id}`).set('Cookie', newcomerCookie)).status).toBe(404);
     });
 
+    it("applies a role change and a removal to the member's next request at once, though standings are cached", async () => {
+      const member = await createUser(testApp, { role: 'engineer' });
+      const add = (role: 'engineer' | 'reviewer') =>
+        http().post(`/api/projects/${projectA.id}/members`).set('Cookie', as(lead)).send({ email: member.email, role });
+      expect((await add('engineer')).status).toBe(201);
+      const memberCookie = await signIn(testApp, member.email, member.password);
+      const read = () => http().get(`/api/projects/${projectA.id}`).set('Cookie', memberCookie);
+      expect((await read()).body.myRole).toBe('engineer');
+      expect((await read()).body.myRole).toBe('engineer');
+
+      expect((await add('reviewer')).status).toBe(201);
+      expect((await read()).body.myRole).toBe('reviewer');
+
+      const removed = await http().delete(`/api/projects/${projectA.id}/members/${member.id}`).set('Cookie', as(lead));
+      expect(removed.status).toBe(204);
+      expect((await read()).status).toBe(404);
+    });
+
     it('returns 400 naming email for an address with no account', async () => {
       const response = await http()
         .post(`/api/projects/${projectA.id}/members`)

@@ -171,6 +171,44 @@ describe('revisions', () => {
     });
   });
 
+  describe('detail', () => {
+    it('answers every read of a revision with the same bytes and ETag, the summary fresh, and 304 when unchanged', async () => {
+      const design = await createDesign(testApp, project.id, engineer.id);
+      const path = `${revisionsPath(design)}/1`;
+      const first = await http().get(path).set('Cookie', as(engineer));
+      const second = await http().get(path).set('Cookie', as(reviewer));
+      expect(first.status).toBe(200);
+      expect(first.headers['content-type']).toBe('application/json; charset=utf-8');
+      expect(second.text).toBe(first.text);
+      expect(second.headers.etag).toBe(first.headers.etag);
+      const stored = await RevisionModel.findOne({ where: { designId: design.id, number: 1 } });
+      expect(first.body.document).toEqual(stored?.document);
+      expect(first.body.report).toEqual(stored?.report);
+      expect(Object.keys(first.body)).toEqual([
+        'number',
+        'state',
+        'authorId',
+        'authorName',
+        'createdAt',
+        'changeNote',
+        'baseRevisionNumber',
+        'engineVersion',
+        'designId',
+        'projectId',
+        'document',
+        'report',
+      ]);
+      const unchanged = await http().get(path).set('Cookie', as(engineer)).set('If-None-Match', first.headers.etag!);
+      expect(unchanged.status).toBe(304);
+
+      // The summary is read on every request: a state change shows at once beside the kept document and report.
+      await RevisionModel.update({ state: 'submitted' }, { where: { designId: design.id, number: 1 } });
+      const after = await http().get(path).set('Cookie', as(engineer));
+      expect(after.body.state).toBe('submitted');
+      expect(after.body.report).toEqual(first.body.report);
+    });
+  });
+
   describe('denials', () => {
     let design: DesignDetail;
     beforeAll(async () => {

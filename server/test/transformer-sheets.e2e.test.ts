@@ -100,7 +100,7 @@ describe('transformer sheets', () => {
       'NOT RELEASED',
       'Winding schedule, from the core outward',
       'Core E20 ferrite grade B',
-      'Wire 0.08 mm grade 2',
+      'Wire 0.05 mm grade 2',
       '1200',
       '6 (dot)–8',
       formatQuantity(primary.inductanceH, 'H', 3),

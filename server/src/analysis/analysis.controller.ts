@@ -1,7 +1,9 @@
-import { Body, Controller, Get, Header, HttpCode, Post } from '@nestjs/common';
+import { Body, Controller, Get, HttpCode, Post, Res } from '@nestjs/common';
+import type { Response } from 'express';
 import { ApiBadRequestResponse, ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import type { DesignTemplate } from '@ladderwright/shared/api';
 import { designDocumentSchema } from '@ladderwright/shared/designs';
+import { sendJsonBytes } from '../common/json-bytes';
 import { AnalysisService } from './analysis.service';
 import { EvaluateDesignDto } from './dto/evaluate-design.dto';
 
@@ -14,11 +16,10 @@ export class AnalysisController {
 
   @Post('analysis/evaluate')
   @HttpCode(200)
-  @Header('Content-Type', 'application/json; charset=utf-8')
   @ApiOkResponse({ description: "The engine's report for the document, with the engine version." })
   @ApiBadRequestResponse({ description: 'The document is not valid; `issues[]` names every field, under `document.`.' })
-  evaluate(@Body() body: EvaluateDesignDto): Promise<string> {
-    return this.analysis.evaluateJson(body.document, 'document');
+  async evaluate(@Body() body: EvaluateDesignDto, @Res() response: Response): Promise<void> {
+    sendJsonBytes(response, await this.analysis.evaluateJsonBytes(body.document, 'document'));
   }
 
   @Get('design-schema')

@@ -107,20 +107,21 @@ export class AnalysisService {
   }
 
   /**
-   * `evaluate` as the JSON text of its answer, for routes that only send it on: the worker serialises the report,
-   * so it crosses the thread boundary as one string and is never copied or serialised on this thread. The
-   * document is validated on the worker (as every engine task is), with the same 400 naming the field.
+   * `evaluate` as the UTF-8 bytes of its answer's JSON text, for routes that only send it on: the worker
+   * serialises the report and encodes it, so it crosses the thread boundary as bytes and is never copied into a
+   * string or serialised on this thread. The document is validated on the worker (as every engine task is), with
+   * the same 400 naming the field.
    */
-  async evaluateJson(document: unknown, fieldPrefix = 'document', shelf?: readonly ShelfPart[]): Promise<string> {
-    const report = await this.analyze(document as Design, fieldPrefix, shelf, 'json');
-    return `{"engineVersion":${JSON.stringify(this.engineVersion)},"report":${report as string}}`;
+  async evaluateJsonBytes(document: unknown, fieldPrefix = 'document', shelf?: readonly ShelfPart[]): Promise<Buffer> {
+    const answer = (await this.analyze(document as Design, fieldPrefix, shelf, 'answer-bytes')) as Uint8Array;
+    return Buffer.from(answer.buffer, answer.byteOffset, answer.byteLength);
   }
 
   private async analyze(
     design: Design,
     fieldPrefix: string,
     shelf: readonly ShelfPart[] | undefined,
-    reportAs: 'object' | 'json',
+    reportAs: 'object' | 'answer-bytes',
   ): Promise<unknown> {
     const outcome = await this.withFieldPrefixAsync(fieldPrefix, () =>
       this.engine.run({ kind: 'analyze', document: design, reportAs, ...(shelf ? { shelf } : {}) }),

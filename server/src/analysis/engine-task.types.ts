@@ -7,8 +7,12 @@ export interface EngineTask {
   kind: 'analyze';
   document: Design;
   shelf?: readonly ShelfPart[];
-  /** 'json': the report comes back as its JSON text, which crosses the thread boundary as one string. */
-  reportAs?: 'object' | 'json';
+  /**
+   * 'answer-bytes': the whole evaluate answer (engine version and report) comes back as the UTF-8 bytes of its JSON
+   * text, which cross the thread boundary as one copy of bytes and go out as they are, with no large string on the
+   * request thread.
+   */
+  reportAs?: 'object' | 'answer-bytes';
 }
 
 /** A no-op task that starts a thread, so its start-up is not charged to a request's budget. */

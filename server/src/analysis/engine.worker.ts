@@ -1,21 +1,36 @@
 import { analyzeDesign } from '@ladderwright/shared/analysis';
 import { validateDesign } from '@ladderwright/shared/designs';
 import { isDomainError } from '@ladderwright/shared/errors';
+import { ENGINE_VERSION } from '@ladderwright/shared/multiplier';
 import { analyzeWithShelf } from '@ladderwright/shared/parts';
+import { lowerThisThreadPriority } from '../common/workers/thread-priority';
 import type { EngineTask, EngineTaskOutcome, EngineWarmUp } from './engine-task.types';
+
+/**
+ * How far an engine thread steps back from the request thread for the CPU (nice steps): when cores are short, the
+ * kernel runs requests first and engine work waits, so a burst of expensive evaluates does not raise every other
+ * request's latency (`scripts/bench/load.mjs`, GET /api/health beside driver evaluates).
+ */
+const ENGINE_THREAD_NICENESS = 5;
+
+lowerThisThreadPriority(ENGINE_THREAD_NICENESS);
 
 /*
  * Worker-thread entry (piscina) of the engine: the steady-state analysis of one design runs here, off the
  * request thread. The document is validated again, so the limits of the domain hold for every document
  * that reaches the engine, including ones stored before a limit existed. The report is returned as is (the
- * structured clone of the thread boundary is the only copy) or, when the caller only sends it on, as JSON text.
+ * structured clone of the thread boundary is the only copy) or, when the caller only sends it on, as the UTF-8
+ * bytes of its JSON text.
  */
 export function runEngineTask(task: EngineTask | EngineWarmUp): EngineTaskOutcome {
   if (task.kind === 'warm-up') return { ok: true, report: null };
   try {
     const design = validateDesign(task.document);
     const report = task.shelf ? analyzeWithShelf(design, task.shelf) : analyzeDesign(design);
-    return { ok: true, report: task.reportAs === 'json' ? JSON.stringify(report) : report };
+    if (task.reportAs !== 'answer-bytes') return { ok: true, report };
+    // The whole answer, so that it crosses the thread boundary as one copy of bytes and goes out as it is.
+    const answer = `{"engineVersion":${JSON.stringify(ENGINE_VERSION)},"report":${JSON.stringify(report)}}`;
+    return { ok: true, report: Buffer.from(answer, 'utf8') };
   } catch (error) {
     if (!isDomainError(error)) throw error;
     return { ok: false, error: { code: error.code, message: error.message, field: error.field, issues: error.issues } };

@@ -1,9 +1,11 @@
-import { Body, Controller, Header, HttpCode, Post } from '@nestjs/common';
+import { Body, Controller, HttpCode, Post, Res } from '@nestjs/common';
+import type { Response } from 'express';
 import { ApiBadRequestResponse, ApiCookieAuth, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import { AllowedWhenArchived } from '../common/decorators/allowed-when-archived.decorator';
 import { ProjectMembership } from '../common/decorators/project-membership.decorator';
 import type { ProjectMembership as Membership } from '../common/request.types';
 import { PartsService } from '../parts/parts.service';
+import { sendJsonBytes } from '../common/json-bytes';
 import { AnalysisService } from './analysis.service';
 import { EvaluateDesignDto } from './dto/evaluate-design.dto';
 
@@ -19,14 +21,20 @@ export class ProjectAnalysisController {
 
   @Post('evaluate')
   @HttpCode(200)
-  @Header('Content-Type', 'application/json; charset=utf-8')
   @AllowedWhenArchived()
   @ApiOkResponse({
     description:
       "The engine's report with the shelf's ratings filled in by partCode; unknown codes in `report.partIssues`.",
   })
   @ApiBadRequestResponse({ description: 'The document is not valid; `issues[]` names every field, under `document.`.' })
-  async evaluate(@ProjectMembership() membership: Membership, @Body() body: EvaluateDesignDto): Promise<string> {
-    return this.analysis.evaluateJson(body.document, 'document', await this.parts.shelf(membership.projectId));
+  async evaluate(
+    @ProjectMembership() membership: Membership,
+    @Body() body: EvaluateDesignDto,
+    @Res() response: Response,
+  ): Promise<void> {
+    sendJsonBytes(
+      response,
+      await this.analysis.evaluateJsonBytes(body.document, 'document', await this.parts.shelf(membership.projectId)),
+    );
   }
 }

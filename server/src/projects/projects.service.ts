@@ -1,4 +1,4 @@
-import { Injectable } from '@nestjs/common';
+import { Inject, Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
 import { QueryTypes, type Transaction } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
@@ -18,8 +18,10 @@ import { DomainError } from '@ladderwright/shared/errors';
 import { DEFAULT_ACCEPTANCE_SETTINGS } from '@ladderwright/shared/reviews';
 import { AuditService } from '../audit/audit.service';
 import { isUuid } from '../common/uuid';
+import { APP_ENV, type AppEnv } from '../config/env';
 import { UserModel } from '../users/user.model';
 import { UsersService } from '../users/users.service';
+import { MemberStandingCache, type MemberStanding } from './member-standing-cache';
 import { ProjectMemberModel } from './project-member.model';
 import { ProjectModel } from './project.model';
 
@@ -36,12 +38,11 @@ function toMember(member: ProjectMemberModel): ProjectMember {
   return { userId: member.userId, email: user.email, displayName: user.displayName, role: member.role };
 }
 
-type MemberStanding = { role: ProjectRole; isArchived: boolean } | null;
-
 @Injectable()
 export class ProjectsService {
   /** Standing lookups under way, by project and user; a lookup asked for meanwhile shares the answer. */
   private readonly standingsInFlight = new Map<string, Promise<MemberStanding>>();
+  private readonly standings: MemberStandingCache;
 
   constructor(
     @InjectModel(ProjectModel) private readonly projects: typeof ProjectModel,
@@ -49,7 +50,10 @@ export class ProjectsService {
     private readonly users: UsersService,
     private readonly sequelize: Sequelize,
     private readonly audit: AuditService,
-  ) {}
+    @Inject(APP_ENV) env: AppEnv,
+  ) {
+    this.standings = new MemberStandingCache(env.sessionCacheMs);
+  }
 
   /** The user's role in the project and whether the project is archived; null for a non-member. */
   findMemberStanding(projectId: string, userId: string): Promise<MemberStanding> {
@@ -57,12 +61,32 @@ export class ProjectsService {
     // Every request to a project asks this first: a burst of one person's requests (a client saving many
     // designs) asks it once, not once per request ahead of everyone else's queries in the pool's queue. A
     // lookup that joins one under way gets the answer of a query that started no earlier than its own wait.
-    const key = `${projectId}/${userId}`;
+    // A standing read in the last SESSION_CACHE_MS answers without a query (MemberStandingCache).
+    const key = MemberStandingCache.key(projectId, userId);
+    const cached = this.standings.get(key, Date.now());
+    if (cached !== undefined) return Promise.resolve(cached);
     const inFlight = this.standingsInFlight.get(key);
     if (inFlight) return inFlight;
-    const lookup = this.queryMemberStanding(projectId, userId).finally(() => this.standingsInFlight.delete(key));
+    const epoch = this.standings.currentEpoch();
+    const lookup = this.queryMemberStanding(projectId, userId)
+      .then((standing) => {
+        this.standings.set(key, standing, epoch, Date.now());
+        return standing;
+      })
+      .finally(() => {
+        if (this.standingsInFlight.get(key) === lookup) this.standingsInFlight.delete(key);
+      });
     this.standingsInFlight.set(key, lookup);
     return lookup;
+  }
+
+  /** Forgets the cached standings in the project and the lookups under way; call once a change committed. */
+  forgetStandings(projectId: string): void {
+    this.standings.forgetProject(projectId);
+    const prefix = `${projectId}/`;
+    for (const key of this.standingsInFlight.keys()) {
+      if (key.startsWith(prefix)) this.standingsInFlight.delete(key);
+    }
   }
 
   private async queryMemberStanding(projectId: string, userId: string): Promise<MemberStanding> {
@@ -157,6 +181,7 @@ export class ProjectsService {
         transaction,
       );
     });
+    this.forgetStandings(projectId);
   }
 
   /** The projects `userId` is a member of, with that user's role and the member count. */
@@ -250,6 +275,7 @@ export class ProjectsService {
         );
       }
     });
+    this.forgetStandings(projectId);
     const member = await this.members.findOne({ where: { projectId, userId }, include: [UserModel] });
     if (!member) throw new Error('member vanished after it was written');
     return toMember(member);
@@ -275,6 +301,7 @@ export class ProjectsService {
         transaction,
       );
     });
+    this.forgetStandings(projectId);
   }
 
   private async assertAnotherLead(projectId: string, userId: string, transaction: Transaction): Promise<void> {

@@ -28,8 +28,9 @@ export function toRevisionDetail(revision: RevisionModel, projectId: string): Re
   };
 }
 
-/** A revision row as `RevisionsService.getJson` reads it: the jsonb columns as their stored text. */
-export interface RevisionDetailRow {
+/** A revision row as `RevisionsService.getJson` reads it, without the document and report. */
+export interface RevisionDetailHeadRow {
+  id: string;
   number: number;
   state: RevisionDetail['state'];
   authorId: string;
@@ -39,15 +40,14 @@ export interface RevisionDetailRow {
   baseRevisionNumber: number | null;
   engineVersion: string;
   designId: string;
-  document: string;
-  report: string;
 }
 
 /**
- * `toRevisionDetail` as JSON text, with the stored document and report spliced in as PostgreSQL prints them:
- * same keys in the same order, and no parse and re-serialisation of the two largest values.
+ * `toRevisionDetail` as the UTF-8 bytes of its JSON text, with the stored document and report spliced in as
+ * PostgreSQL prints them (`contentTail`, from `revisionContentTail`): same keys in the same order, and no parse
+ * and re-serialisation of the two largest values.
  */
-export function revisionDetailJson(row: RevisionDetailRow, projectId: string): string {
+export function revisionDetailBytes(row: RevisionDetailHeadRow, projectId: string, contentTail: Buffer): Buffer {
   const head: Omit<RevisionDetail, 'document' | 'report'> = {
     number: row.number,
     state: row.state,
@@ -60,7 +60,12 @@ export function revisionDetailJson(row: RevisionDetailRow, projectId: string): s
     designId: row.designId,
     projectId,
   };
-  return `${JSON.stringify(head).slice(0, -1)},"document":${row.document},"report":${row.report}}`;
+  return Buffer.concat([Buffer.from(JSON.stringify(head).slice(0, -1), 'utf8'), contentTail]);
+}
+
+/** The end of a revision's detail answer: its stored document and report as JSON text, then the closing brace. */
+export function revisionContentTail(documentJson: string, reportJson: string): Buffer {
+  return Buffer.from(`,"document":${documentJson},"report":${reportJson}}`, 'utf8');
 }
 
 /** A file-name stem from a design name: lower-case letters, digits and dashes. */

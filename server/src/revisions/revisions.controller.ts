@@ -1,8 +1,9 @@
-import { Body, Controller, Get, Header, Param, Post, Res, UseFilters } from '@nestjs/common';
+import { Body, Controller, Get, Param, Post, Res, UseFilters } from '@nestjs/common';
 import { ApiConflictResponse, ApiCookieAuth, ApiOkResponse, ApiParam, ApiProduces, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 import type { CurrentUser as SessionUser, RevisionDetail, RevisionSummary } from '@ladderwright/shared/api';
 import { CurrentUser } from '../common/decorators/current-user.decorator';
+import { sendJsonBytes } from '../common/json-bytes';
 import { ProjectMembership } from '../common/decorators/project-membership.decorator';
 import { RequiresProjectAction } from '../common/decorators/requires-permission.decorator';
 import type { ProjectMembership as Membership } from '../common/request.types';
@@ -43,13 +44,12 @@ export class RevisionsController {
     return this.revisions.save({ projectId: membership.projectId, designId, request: body, authorId: user.id });
   }
 
-  /** The detail as JSON text: the stored document and report go out as PostgreSQL holds them, unparsed. */
+  /** The detail as JSON bytes: the stored document and report go out as PostgreSQL holds them, unparsed. */
   @Get(':revisionNumber')
-  @Header('Content-Type', 'application/json; charset=utf-8')
   @ApiProduces('application/json')
   @ApiOkResponse({ description: 'The revision: summary, designId, projectId, the stored document and its report.' })
-  detail(@RevisionRef() ref: RevisionRef): Promise<string> {
-    return this.revisions.getJson(ref);
+  async detail(@RevisionRef() ref: RevisionRef, @Res() response: Response): Promise<void> {
+    sendJsonBytes(response, await this.revisions.getJsonBytes(ref));
   }
 
   @Get(':revisionNumber/export')

@@ -22,13 +22,15 @@ import { PartsService } from '../parts/parts.service';
 import { differences } from './document-diff';
 import { UserModel } from '../users/user.model';
 import { RevisionLookupService } from './revision-lookup.service';
-import type { RevisionRef } from './revision-ref.decorator';
+import { revisionNotFound, type RevisionRef } from './revision-ref.decorator';
+import { RevisionContentCache } from './revision-content-cache';
 import {
   fileStem,
-  revisionDetailJson,
+  revisionContentTail,
+  revisionDetailBytes,
   toRevisionDetail,
   toRevisionSummary,
-  type RevisionDetailRow,
+  type RevisionDetailHeadRow,
 } from './revision-shapes';
 import { RevisionModel } from './revision.model';
 import { StaleBaseException } from './stale-base.filter';
@@ -61,6 +63,7 @@ export interface DownloadFile {
 @Injectable()
 export class RevisionsService {
   private readonly writeSlots: Limit;
+  private readonly contents = new RevisionContentCache();
 
   constructor(
     @InjectModel(RevisionModel) private readonly revisions: typeof RevisionModel,
@@ -121,15 +124,17 @@ export class RevisionsService {
   }
 
   /**
-   * `get` as JSON text, read in one query with the document and report as stored text (never parsed here).
-   * When the row is not there, `lookup.find` answers the 404 naming the field, as `get` does.
+   * `get` as the UTF-8 bytes of its JSON text. The summary is read in one query; the stored document and report
+   * come as PostgreSQL prints them (never parsed here) from `RevisionContentCache`, read by a second query the
+   * first time this instance serves the revision. When the row is not there, `lookup.find` answers the 404
+   * naming the field, as `get` does.
    */
-  async getJson(ref: RevisionRef): Promise<string> {
-    const rows = await this.sequelize.query<RevisionDetailRow>(
-      `SELECT r.number, r.state, r.author_id AS "authorId", u.display_name AS "authorName",
+  async getJsonBytes(ref: RevisionRef): Promise<Buffer> {
+    const rows = await this.sequelize.query<RevisionDetailHeadRow>(
+      `SELECT r.id, r.number, r.state, r.author_id AS "authorId", u.display_name AS "authorName",
               r.created_at AS "createdAt", r.change_note AS "changeNote",
               r.base_revision_number AS "baseRevisionNumber", r.engine_version AS "engineVersion",
-              r.design_id AS "designId", r.document::text AS document, r.report::text AS report
+              r.design_id AS "designId"
          FROM designs d
          JOIN revisions r ON r.design_id = d.id AND r.number = :revisionNumber
          JOIN users u ON u.id = r.author_id
@@ -137,8 +142,21 @@ export class RevisionsService {
       { replacements: { ...ref }, type: QueryTypes.SELECT },
     );
     const row = rows[0];
-    if (row) return revisionDetailJson(row, ref.projectId);
-    return JSON.stringify(await this.get(ref));
+    if (!row) return Buffer.from(JSON.stringify(await this.get(ref)), 'utf8');
+    return revisionDetailBytes(row, ref.projectId, await this.contentTail(row.id, ref.revisionNumber));
+  }
+
+  private async contentTail(revisionId: string, revisionNumber: number): Promise<Buffer> {
+    const cached = this.contents.get(revisionId);
+    if (cached) return cached;
+    const [content] = await this.sequelize.query<{ document: string; report: string }>(
+      'SELECT document::text AS document, report::text AS report FROM revisions WHERE id = :revisionId',
+      { replacements: { revisionId }, type: QueryTypes.SELECT },
+    );
+    if (!content) throw revisionNotFound('revisionNumber', String(revisionNumber));
+    const tail = revisionContentTail(content.document, content.report);
+    this.contents.set(revisionId, tail);
+    return tail;
   }
 
   /**

@@ -38,6 +38,7 @@ export class CurrentSimulationService {
           dischargeTimeS: summary.dischargeTimeS,
           oscillationFrequencyHz: summary.oscillationFrequencyHz ?? null,
           efficiency: summary.efficiency ?? null,
+          notSettledWithinS: summary.notSettledWithinS ?? null,
           finishedAt: (job.finishedAt ?? job.updatedAt).toISOString(),
         },
       };

@@ -83,7 +83,12 @@ function simulateDriver(task: SimulationTask, post: (fraction: number) => void):
     ripplePeakToPeakV: run.ripplePeakToPeakV,
     timeToSteadyStateS: coldRun?.timeTo90PercentS ?? null,
     timeTo1PercentS: coldRun?.timeTo1PercentS ?? null,
-    notSettledWithinS: coldRun?.notSettledWithinS ?? null,
+    // The steady figures come from the warm run: when it did not settle, its simulated time; else the cold start's.
+    notSettledWithinS: run.isSettled
+      ? (coldRun?.notSettledWithinS ?? null)
+      : run.oscillationFrequencyHz
+        ? run.cyclesSimulated / run.oscillationFrequencyHz
+        : (coldRun?.notSettledWithinS ?? null),
     inputPowerW: run.figures?.inputPowerW ?? null,
     outputPowerW: run.figures?.outputPowerW ?? null,
     efficiency: run.figures?.efficiency ?? null,

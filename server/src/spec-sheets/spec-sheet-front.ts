@@ -1,3 +1,4 @@
+import { simulationSourceLabel } from '@ladderwright/shared/analysis';
 import { documentFieldLabel, resultFieldLabel } from '@ladderwright/shared/designs';
 import type { SpecSheetContent } from './spec-sheet.types';
 import {
@@ -43,7 +44,7 @@ function figuresLine(c: SpecSheetContent): string {
   const { headline } = c;
   if (headline.source === 'estimate') return 'estimate (instant analysis); no current full simulation of this revision';
   const names = headline.simulatedKeys.join(', ');
-  return `from simulation (${names}), run ${headline.simulatedAt ? date(headline.simulatedAt) : ''} on this document with engine ${c.engineVersion}; the rest estimate`;
+  return `${simulationSourceLabel(headline)} (${names}), run ${headline.simulatedAt ? date(headline.simulatedAt) : ''} on this document with engine ${c.engineVersion}; the rest estimate`;
 }
 
 /** Every recorded gate override: the command, who, when, the reason and the gates it went past. */
@@ -77,7 +78,7 @@ export function windingSection(doc: Doc, c: SpecSheetContent): void {
       [`${label(`${TRANSFORMER}.saturationCurrentA`)}, min`, q(w.saturationCurrentA, 'A')],
       ['Secondary peak working voltage', q(w.secondaryPeakV, 'V')],
       [
-        `Operating frequency (${frequencySource === 'simulation' ? 'from simulation' : 'estimate'})`,
+        `Operating frequency (${frequencySource === 'simulation' ? simulationSourceLabel(c.headline) : 'estimate'})`,
         q(frequency, 'Hz'),
       ],
       [
@@ -101,7 +102,7 @@ export function windingSection(doc: Doc, c: SpecSheetContent): void {
 
 /** "from simulation" or "estimate" after a figure, as the Workbench marks it. */
 function sourceOf(c: SpecSheetContent, key: 'output' | 'ripple'): string {
-  return c.headline.simulatedKeys.includes(key) ? 'from simulation' : 'estimate';
+  return c.headline.simulatedKeys.includes(key) ? simulationSourceLabel(c.headline) : 'estimate';
 }
 
 export function performanceSection(doc: Doc, c: SpecSheetContent): void {

@@ -1,3 +1,4 @@
+import { simulationSourceLabel } from '@ladderwright/shared/analysis';
 import { documentFieldLabel, resultFieldLabel } from '@ladderwright/shared/designs';
 import type { SpecSheetContent } from './spec-sheet.types';
 import { type Doc, ensureRoom, heading, INK, keyValues, MARGIN, q, TEXT_WIDTH, WARN } from './spec-sheet-layout';
@@ -8,7 +9,9 @@ export function safetySection(doc: Doc, c: SpecSheetContent): void {
   const { document } = c;
   const report = c.headline.report;
   const rule = document.targets.dischargeRule;
-  const dischargeSource = c.headline.simulatedKeys.includes('discharge') ? ' (from simulation)' : ' (estimate)';
+  const dischargeSource = c.headline.simulatedKeys.includes('discharge')
+    ? ` (${simulationSourceLabel(c.headline)})`
+    : ' (estimate)';
   keyValues(doc, [
     [`${resultFieldLabel('storedEnergyJ').label}, all capacitors`, q(report.storedEnergyJ, 'J')],
     [`${resultFieldLabel('storedChargeC').label}, all capacitors`, q(report.storedChargeC, 'C')],

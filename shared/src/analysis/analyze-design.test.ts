@@ -6,7 +6,7 @@ import { HV_CAUTION } from '../safety/hazard-limits';
 import { driverReport } from '../driver/driver-report';
 import { estimateBlockingOscillator } from '../driver/blocking-oscillator';
 import { solveLoadPoint } from '../driver/operating-point';
-import { engineLadderLoadLine } from '../driver/ladder-load-line';
+import { engineLadderLoadLine, secondaryLoadOf } from '../driver/ladder-load-line';
 import { analyzeDesign, analyzeLadderReport, ladderInputOf, resolveDrive } from './analyze-design';
 import { DERATING } from '../multiplier/ladder-stress';
 
@@ -94,7 +94,15 @@ describe('analyzeDesign: the driver section of the surface-charge tester', () =>
     close(d.figures.peakPrimaryCurrentA.value, direct.driver.peakPrimaryCurrentA.value);
     close(d.operatingPoint.ratedLoad.outputV, direct.outputV);
     expect(d.operatingPoint.limitedBy).toBe(direct.limitedBy);
-    close(d.atLimit.deliverablePowerW.value, estimateBlockingOscillator(stage).deliverablePowerW.value);
+    // At the limit the stage carries the ladder's diodes on its secondary (the ring-back's capacitance).
+    const secondaryLoad = secondaryLoadOf({
+      capacitorsF: design.multiplier.capacitors.map((c) => c.valueF),
+      diode: design.multiplier.diode,
+    });
+    close(
+      d.atLimit.deliverablePowerW.value,
+      estimateBlockingOscillator(stage, { secondaryLoad }).deliverablePowerW.value,
+    );
     expect(d.operatingPoint.curve.length).toBeGreaterThan(10);
   });
 
@@ -331,5 +339,50 @@ describe('winding phasing', () => {
     expect(flyback.driver!.benchFigures.secondaryVoltagePeakPositiveV).toBeGreaterThan(
       -flyback.driver!.benchFigures.secondaryVoltagePeakNegativeV,
     );
+  });
+});
+
+describe('analyzeDesign: a load beyond what the driver can deliver', () => {
+  const tester = designExamples.surfaceChargeTester;
+  const asking = (currentA: number): Design => ({
+    ...tester,
+    load: { kind: 'current', currentA },
+    targets: { ...tester.targets, loadCurrentA: currentA },
+  });
+  const report = analyzeDesign(asking(1e-3));
+  const driver = report.driver!;
+
+  it('says the load is beyond the supply, with the largest load it holds, and fails a Check', () => {
+    expect(driver.loadCapacity?.isLoadBeyond).toBe(true);
+    expect(driver.loadCapacity?.loadCurrentA).toBe(1e-3);
+    const maxA = driver.loadCapacity!.maxLoadCurrentA;
+    expect(maxA).toBeGreaterThan(0);
+    expect(maxA).toBeLessThan(1e-3);
+    const check = report.checks.find((c) => c.id === 'driver.load-capacity')!;
+    expect(check.verdict).toBe('fail');
+    expect(check.value).toBe(1e-3);
+    expect(check.limit).toBe(maxA);
+  });
+
+  it('never reports a negative output or a vanishing frequency there', () => {
+    // A positive half-wave ladder's output cannot go below zero, and the oscillator keeps running at the
+    // largest load it holds (common practice, no source).
+    expect(report.outputMeanV).toBeGreaterThanOrEqual(0);
+    expect(report.outputMeanV).toBeLessThan(0.01 * Math.abs(tester.targets.outputV));
+    const atMax = analyzeDesign(asking(driver.loadCapacity!.maxLoadCurrentA)).driver!;
+    // The same stage as at the largest load it holds: 1e-9 relative, the same solve.
+    expect(
+      Math.abs(driver.benchFigures.oscillationFrequencyHz / atMax.benchFigures.oscillationFrequencyHz - 1),
+    ).toBeLessThan(1e-9);
+    expect(driver.benchFigures.oscillationFrequencyHz).toBeGreaterThan(1e3);
+    expect(report.meetsTargets.output).toBe(false);
+  });
+
+  it('holds the output above zero below that load and passes the Check at a light load', () => {
+    const half = analyzeDesign(asking(0.5 * driver.loadCapacity!.maxLoadCurrentA));
+    expect(half.driver!.loadCapacity?.isLoadBeyond).toBe(false);
+    expect(half.outputMeanV).toBeGreaterThan(0);
+    const light = analyzeDesign(tester);
+    expect(light.checks.find((c) => c.id === 'driver.load-capacity')?.verdict).toBe('pass');
   });
 });

@@ -6,7 +6,8 @@ import type { DriverStage } from '../designs/driver-stage.types';
 import type { DriverCheckVerdict } from '../driver/driver-checks';
 import type { MethodInfo } from '../methods';
 import { isFlybackFed, solveLoadPoint } from '../driver/operating-point';
-import { engineLadderLoadLine, pulseDriveOf, type LadderLoadLine } from '../driver/ladder-load-line';
+import { forwardShareOf } from '../driver/ring-back';
+import { engineLadderLoadLine, pulseDriveOf, secondaryLoadOf, type LadderLoadLine } from '../driver/ladder-load-line';
 import { DISCHARGE_METHOD, dischargeCheck, trappedChargeCheck } from '../safety/discharge';
 import { creepageChecks, stageSpacing } from '../safety/creepage';
 import type { StageSpacing } from '../safety/creepage';
@@ -22,7 +23,8 @@ import { bleederStressChecks, ladderStressChecks } from '../multiplier/ladder-st
 import type { LadderAnalysis, LadderCurves, LadderInput } from '../multiplier/ladder.types';
 import { withEffectiveTransformer } from '../transformer/given-numbers';
 import type { TransformerReport } from '../transformer/transformer.types';
-import { designedTransformerReport } from './transformer-report';
+import { transformerDriverEffect } from './transformer-effect';
+import { designedTransformerReport, withGivenTransformer } from './transformer-report';
 
 /** Report of a bare ladder: figures (SI, signed by polarity), curves, stored energy, discharge and how each was computed. */
 export interface LadderReport extends Pick<
@@ -150,16 +152,28 @@ export function resolveDrive(givenDesign: Design): {
   const drive = design.drive;
   if (drive.kind !== 'driver') return { drive, deliverablePowerW: null, currentLimitA: null };
   const stage = drive.driver;
-  const estimate = underDrive(() => estimateBlockingOscillator(stage));
+  const estimate = underDrive(() =>
+    estimateBlockingOscillator(stage, {
+      secondaryLoad: secondaryLoadOf({
+        capacitorsF: design.multiplier.capacitors.map((c) => c.valueF),
+        diode: design.multiplier.diode,
+        ...(design.multiplier.strayCapacitanceF ? { strayCapacitanceF: design.multiplier.strayCapacitanceF } : {}),
+      }),
+    }),
+  );
   const onS = estimate.onTimeS.value;
-  const flybackS = estimate.flybackTimeS.value;
   return {
     drive: pulseDriveOf(
       {
         forwardPeakV: estimate.forwardSecondaryPeakV.value,
         flybackPeakV: estimate.flybackSecondaryPeakV.value,
         frequencyHz: estimate.frequencyHz.value,
-        dutyCycle: onS / (onS + flybackS),
+        dutyCycle: forwardShareOf({
+          tOn: onS,
+          tRecovery: estimate.ringBack.recoveryS,
+          tSwing: estimate.ringBack.swingS,
+          frequencyHz: estimate.frequencyHz.value,
+        }),
         isFlybackFed: isFlybackFed(stage),
       },
       drive.driver.transformer.secondaryResistanceOhm,
@@ -256,7 +270,7 @@ export function analyzeDesign(givenDesign: Design): DesignReport {
     const rated = driver.operatingPoint.ratedLoad;
     drive = pulseDriveOf(
       {
-        forwardPeakV: driver.figures.forwardSecondaryPeakV.value,
+        forwardPeakV: rated.forwardSecondaryPeakV,
         flybackPeakV: rated.flybackSecondaryPeakV,
         frequencyHz: rated.frequencyHz,
         dutyCycle: rated.dutyCycle,
@@ -265,7 +279,14 @@ export function analyzeDesign(givenDesign: Design): DesignReport {
       stage.transformer.secondaryResistanceOhm,
     );
   }
-  const input = ladderInputOf(design, drive, currentLimitA);
+  const capacity = driver?.loadCapacity;
+  // A load beyond what the supply delivers: the ladder at the largest load it holds (its output there near zero).
+  const input = capacity?.isLoadBeyond
+    ? {
+        ...ladderInputOf(design, drive, currentLimitA),
+        load: { kind: 'current' as const, currentA: capacity.maxLoadCurrentA },
+      }
+    : ladderInputOf(design, drive, currentLimitA);
   const targets = design.targets;
   const base = analyzeLadderReport(input, { safeVoltageV: targets.safeVoltageV, dischargeRule: targets.dischargeRule });
   const { analysis } = base;
@@ -325,7 +346,15 @@ export function analyzeDesign(givenDesign: Design): DesignReport {
     );
   }
   if (driver) checks.push(...driver.checks.map(asCheck));
-  const transformer = underDrive(() => designedTransformerReport(design, driver));
+  const designedTransformer = underDrive(() => designedTransformerReport(design, driver));
+  const transformer = designedTransformer && {
+    ...designedTransformer,
+    driverEffect: transformerDriverEffect(
+      givenDesign,
+      { outputMeanV: analysis.outputMeanV, driver },
+      analyzeDesign(withGivenTransformer(givenDesign)),
+    ),
+  };
   if (transformer) checks.push(...transformer.checks.map((c) => ({ ...c, caution: HV_CAUTION })));
   const rippleOk = analysis.ripplePeakToPeakV <= targets.rippleMaxV;
   const outputOk =

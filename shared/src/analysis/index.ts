@@ -1,6 +1,11 @@
 export { analyzeDesign, analyzeLadderReport, evaluateChecks, resolveDrive, ladderInputOf } from './analyze-design';
 export type { DesignReport, LadderReport, LadderReportOptions } from './analyze-design';
-export { headlineSource, LADDER_ESTIMATE_TOLERANCE, STORED_SIMULATION_METHOD } from './simulated-figures';
+export {
+  headlineSource,
+  LADDER_ESTIMATE_TOLERANCE,
+  simulationSourceLabel,
+  STORED_SIMULATION_METHOD,
+} from './simulated-figures';
 export type {
   ComparedFigure,
   FigureDifference,
@@ -8,3 +13,5 @@ export type {
   HeadlineSource,
   SimulatedFigures,
 } from './simulated-figures';
+export { driverSizerFigures, withTransformerSection } from './transformer-sizer-inputs';
+export type { DriverSizerFigures } from './transformer-sizer-inputs';

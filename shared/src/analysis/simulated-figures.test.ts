@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { designExamples } from '../designs/design-examples';
 import { analyzeDesign } from './analyze-design';
-import { headlineSource, type SimulatedFigures } from './simulated-figures';
+import { headlineSource, simulationSourceLabel, type SimulatedFigures } from './simulated-figures';
 
 const tester = designExamples.surfaceChargeTester;
 const report = analyzeDesign(tester);
@@ -98,5 +98,28 @@ describe('headlineSource', () => {
   it('judges the targets on the simulated figures', () => {
     const low = headlineSource(report, simulated({ outputMeanV: tester.targets.outputV * 0.5 }), tester.targets);
     expect(low.report.meetsTargets.output).toBe(false);
+  });
+
+  it('takes an unsettled simulation’s figures and says it did not settle, with the time', () => {
+    const unsettled = headlineSource(
+      report,
+      simulated({ outputMeanV: report.outputMeanV * 0.9, notSettledWithinS: 0.02 }),
+      tester.targets,
+    );
+    expect(unsettled.source).toBe('simulation');
+    expect(unsettled.report.outputMeanV).toBeCloseTo(report.outputMeanV * 0.9, 9);
+    expect(unsettled.notSettledWithinS).toBe(0.02);
+    expect(simulationSourceLabel(unsettled)).toBe('from simulation, not settled within 20 ms');
+    // The difference from the estimate is still stated, against the same tolerance.
+    const output = unsettled.differences.find((d) => d.key === 'output')!;
+    expect(output.difference).toBeCloseTo(1 / 0.9 - 1, 9);
+  });
+
+  it('says plainly "from simulation" for a settled run, and for summaries written before settling was recorded', () => {
+    const settled = headlineSource(report, simulated({ notSettledWithinS: null }), tester.targets);
+    expect(simulationSourceLabel(settled)).toBe('from simulation');
+    const older = headlineSource(report, simulated(), tester.targets);
+    expect(older.notSettledWithinS).toBeNull();
+    expect(simulationSourceLabel(older)).toBe('from simulation');
   });
 });

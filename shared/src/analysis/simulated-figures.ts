@@ -15,6 +15,11 @@ export interface SimulatedFigures {
   dischargeTimeS: number | null;
   oscillationFrequencyHz?: number | null;
   efficiency?: number | null;
+  /**
+   * The simulated time (s) within which the run did not settle (the steady run, or a driver's cold start),
+   * or null when it settled; absent in summaries written before it was recorded.
+   */
+  notSettledWithinS?: number | null;
   /** When the run finished (ISO 8601). */
   finishedAt: string;
 }
@@ -48,6 +53,20 @@ export interface HeadlineSource {
   differences: FigureDifference[];
   /** When the simulation used finished (ISO 8601), or null. */
   simulatedAt: string | null;
+  /** The simulated time (s) within which the simulation used did not settle; null when it settled or none is used. */
+  notSettledWithinS: number | null;
+}
+
+/**
+ * How a figure taken from the stored simulation is marked wherever it is shown (Workbench, Checks, Sign-off,
+ * spec sheet): "from simulation", or "from simulation, not settled within 20 ms" when the run did not settle.
+ * An unsettled run's figures still stand in for the estimate's: they are the circuit integrated in time, the
+ * remaining approach is stated, and the estimate beside them says how far apart the two are.
+ */
+export function simulationSourceLabel(headline: Pick<HeadlineSource, 'notSettledWithinS'>): string {
+  return headline.notSettledWithinS === null
+    ? 'from simulation'
+    : `from simulation, not settled within ${formatQuantity(headline.notSettledWithinS, 's')}`;
 }
 
 /**
@@ -132,7 +151,14 @@ export function headlineSource(
   targets: { outputV: number; rippleMaxV: number },
 ): HeadlineSource {
   if (!simulation || simulation.engineVersion !== report.engineVersion) {
-    return { source: 'estimate', report, simulatedKeys: [], differences: [], simulatedAt: null };
+    return {
+      source: 'estimate',
+      report,
+      simulatedKeys: [],
+      differences: [],
+      simulatedAt: null,
+      notSettledWithinS: null,
+    };
   }
   const driver = report.driver;
   const outputTolerance = driver ? ESTIMATE_VALIDITY_BOUNDS.output : LADDER_ESTIMATE_TOLERANCE.output;
@@ -198,5 +224,12 @@ export function headlineSource(
       Math.abs(next.outputMeanV) >= Math.abs(targets.outputV),
     ripple: next.ripplePeakToPeakV <= targets.rippleMaxV,
   };
-  return { source: 'simulation', report: next, simulatedKeys, differences, simulatedAt: simulation.finishedAt };
+  return {
+    source: 'simulation',
+    report: next,
+    simulatedKeys,
+    differences,
+    simulatedAt: simulation.finishedAt,
+    notSettledWithinS: simulation.notSettledWithinS ?? null,
+  };
 }

@@ -1,6 +1,7 @@
 import { DomainError } from '../errors';
 import { buildLadderCircuit, type LadderCircuitSpec } from './build-ladder-circuit';
-import type { Circuit, CircuitElement, NpnModel } from '../sim/circuit.types';
+import type { Circuit, CircuitElement } from '../sim/circuit.types';
+import { diodeModelOf, npnModelOf } from './device-models';
 import { supplyThevenin } from '../driver/battery';
 import type { DriverStage } from '../designs/driver-stage.types';
 
@@ -17,9 +18,9 @@ export const SATURATED_INDUCTANCE_FRACTION = 0.01;
 export const DEFAULT_SUPPLY_BYPASS_F = 100e-6;
 /** Collector stray capacitance when the design gives none: 100 pF, winding and wiring (common practice, no source). */
 export const DEFAULT_COLLECTOR_STRAY_F = 100e-12;
-/** Transistor junction capacitances when the design gives none (SPICE CJE, CJC of a small switching NPN; from memory). */
-export const DEFAULT_CJE_F = 10e-12;
-export const DEFAULT_CJC_F = 5e-12;
+
+/** The Shockley part of a clamp's diode or zener: a small silicon junction with 0.5 Ω (common practice, no source). */
+const CLAMP_DIODE = { saturationCurrentA: 1e-12, emissionCoefficient: 1, seriesResistanceOhm: 0.5 };
 
 /** Name of the supply source, for 'I(Vbat)' probes. */
 export const DRIVER_SUPPLY_SOURCE = 'Vbat';
@@ -135,14 +136,7 @@ export function buildDriverCircuit(driver: DriverStage, options: DriverCircuitOp
       capacitanceF: tx.secondaryCapacitanceF,
     });
   el.push({ kind: 'resistor', name: 'Rb', nodeA: 'fb', nodeB: n.base, resistanceOhm: driver.baseResistorOhm });
-  const model: NpnModel = {
-    saturationCurrentA: q.saturationCurrentA ?? 1e-14,
-    forwardBeta: q.forwardBeta,
-    reverseBeta: q.reverseBeta,
-    baseEmitterCapacitanceF: q.baseEmitterCapacitanceF ?? DEFAULT_CJE_F,
-    baseCollectorCapacitanceF: q.baseCollectorCapacitanceF ?? DEFAULT_CJC_F,
-  };
-  el.push({ kind: 'npn', name: 'Q1', collector: n.collector, base: n.base, emitter: '0', model });
+  el.push({ kind: 'npn', name: 'Q1', collector: n.collector, base: n.base, emitter: '0', model: npnModelOf(q) });
   const strayF = driver.collectorStrayCapacitanceF ?? DEFAULT_COLLECTOR_STRAY_F;
   if (strayF > 0) el.push({ kind: 'capacitor', name: 'Ccol', nodeA: n.collector, nodeB: '0', capacitanceF: strayF });
   if (driver.snubber) {
@@ -162,13 +156,7 @@ export function buildDriverCircuit(driver: DriverStage, options: DriverCircuitOp
       name: 'Dz',
       anode: '0',
       cathode: n.collector,
-      model: {
-        saturationCurrentA: 1e-12,
-        emissionCoefficient: 1,
-        seriesResistanceOhm: 0.5,
-        breakdownVoltageV: clamp.clampVoltageV,
-        breakdownCurrentA: 1e-3,
-      },
+      model: diodeModelOf(CLAMP_DIODE, { ...clamp, breakdownVoltageV: clamp.clampVoltageV }),
     });
   } else if (clamp?.kind === 'rcd') {
     el.push({
@@ -176,7 +164,7 @@ export function buildDriverCircuit(driver: DriverStage, options: DriverCircuitOp
       name: 'Dc',
       anode: n.collector,
       cathode: 'clp',
-      model: { saturationCurrentA: 1e-12, emissionCoefficient: 1, seriesResistanceOhm: 0.5 },
+      model: diodeModelOf(CLAMP_DIODE, clamp),
     });
     el.push({
       kind: 'capacitor',

@@ -1,6 +1,7 @@
 import type { Design, PulseDrive, SineDrive, Topology } from '../designs/design.types';
 import { DomainError } from '../errors';
 import type { Circuit, CircuitElement, DiodeModel, SourceWaveform } from '../sim/circuit.types';
+import { diodeModelOf } from './device-models';
 
 /** Everything the simulator needs to know about a ladder, flattened from a design or from flags. */
 export interface LadderCircuitSpec {
@@ -207,12 +208,7 @@ export function ladderPartFromDesign(design: Design): Omit<LadderCircuitSpec, 'd
     topology: m.topology,
     cellCount: m.cellCount,
     capacitorsF: m.capacitors.map((c) => c.valueF),
-    diode: {
-      saturationCurrentA: m.diode.saturationCurrentA,
-      emissionCoefficient: m.diode.emissionCoefficient,
-      seriesResistanceOhm: m.diode.seriesResistanceOhm,
-      ...(m.diode.junctionCapacitanceF ? { junctionCapacitanceF: m.diode.junctionCapacitanceF } : {}),
-    },
+    diode: diodeModelOf(m.diode, m.diode),
     isNegative: design.targets.outputV < 0,
     bleederOhm: bleeder ? bleeder.count * bleeder.valueOhm : null,
     seriesOutputResistanceOhm: design.outputNetwork.seriesOutputResistanceOhm,

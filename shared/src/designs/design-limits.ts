@@ -43,6 +43,21 @@ export const designLimits = {
   /** Transistor current gain. */
   maxBeta: 10_000,
   /**
+   * Forward Early voltage of a transistor (SPICE VAF): tens to hundreds of volts in practice. Below about 2 V
+   * the Gummel–Poon base charge 1/(1 − Vbc/VAF) of a saturated transistor (Vbc up to ~0.8 V) loses its meaning.
+   */
+  minEarlyVoltageV: 2,
+  maxEarlyVoltageV: 10_000,
+  /** Transit time of a junction (SPICE TF, TR): picoseconds to the microseconds of slow power parts. */
+  maxTransitTimeS: 1e-3,
+  /** Terminal resistance of a transistor (SPICE RB, RC, RE): ohms to a few hundred ohms in practice. */
+  maxTerminalResistanceOhm: 1e4,
+  /** Built-in potential of a junction (SPICE VJ, VJE, VJC): 0.3–1 V for silicon and Schottky junctions. */
+  minJunctionPotentialV: 0.1,
+  maxJunctionPotentialV: 2,
+  /** Grading coefficient of a junction (SPICE M, MJE, MJC): 1/3 graded to 1/2 abrupt; the model needs it below 1. */
+  maxGradingCoefficient: 0.9,
+  /**
    * Diode emission coefficient: a stacked high-voltage diode is many junctions in series, each adding about
    * one to two (common practice, no source), so a stack of up to about fifty junctions.
    */

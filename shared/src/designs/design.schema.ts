@@ -2,7 +2,16 @@ import { Type } from '@sinclair/typebox';
 import { designLimits as L } from './design-limits';
 import { driverStageSchema, partCodeSchema } from './driver-stage.schema';
 import { coreKindSchema, tapeKindSchema, transformerSectionSchema, wireKindSchema } from './transformer-section.schema';
-import { closedObject, count, fraction, nonNegative, positive, text, withDefinitions } from './schema-builders';
+import {
+  closedObject,
+  count,
+  diodeJunctionFields,
+  fraction,
+  nonNegative,
+  positive,
+  text,
+  withDefinitions,
+} from './schema-builders';
 
 /**
  * The design document, schemaVersion 1: its one definition. The TypeScript types (design.types.ts), the
@@ -70,10 +79,16 @@ export const diodePartSchema = closedObject(
     ratedPivV: positive(L.maxVoltageV),
     ratedAverageCurrentA: positive(L.maxCurrentA),
     ratedSurgeCurrentA: positive(L.maxCurrentA),
-    junctionCapacitanceF: Type.Optional(nonNegative(L.maxCapacitanceF)),
+    ...diodeJunctionFields(),
+    breakdownVoltageV: Type.Optional(
+      positive(L.maxVoltageV, 'Reverse breakdown voltage of the model (SPICE BV); no breakdown if absent.'),
+    ),
     partCode: Type.Optional(partCodeSchema),
   },
-  { description: 'Shockley diode with series resistance, plus the ratings the Checks compare against.' },
+  {
+    description:
+      'Shockley diode with series resistance, depletion charge and breakdown (SPICE D model), plus the ratings the Checks compare against.',
+  },
 );
 
 export const multiplierSpecSchema = closedObject(

@@ -1,6 +1,17 @@
 import { Type } from '@sinclair/typebox';
 import { designLimits as L } from './design-limits';
-import { between, closedObject, count, fraction, nonNegative, positive, text } from './schema-builders';
+import {
+  between,
+  closedObject,
+  count,
+  diodeJunctionFields,
+  fraction,
+  gradingCoefficient,
+  junctionPotential,
+  nonNegative,
+  positive,
+  text,
+} from './schema-builders';
 import { transformerChoiceSchema, transformerSectionSchema } from './transformer-section.schema';
 
 /**
@@ -130,6 +141,32 @@ export const driverTransistorSchema = closedObject(
     baseCollectorCapacitanceF: Type.Optional(
       nonNegative(L.maxCapacitanceF, 'Zero-bias base-collector junction capacitance (SPICE CJC); default 5 pF.'),
     ),
+    baseEmitterPotentialV: Type.Optional(
+      junctionPotential('Base-emitter junction potential (SPICE VJE); 0.75 V if absent.'),
+    ),
+    baseEmitterGrading: Type.Optional(
+      gradingCoefficient('Base-emitter grading coefficient (SPICE MJE); 0.33 if absent.'),
+    ),
+    baseCollectorPotentialV: Type.Optional(
+      junctionPotential('Base-collector junction potential (SPICE VJC); 0.75 V if absent.'),
+    ),
+    baseCollectorGrading: Type.Optional(
+      gradingCoefficient('Base-collector grading coefficient (SPICE MJC); 0.33 if absent.'),
+    ),
+    earlyVoltageV: Type.Optional(
+      between(L.minEarlyVoltageV, L.maxEarlyVoltageV, 'Forward Early voltage (SPICE VAF); no Early effect if absent.'),
+    ),
+    forwardTransitTimeS: Type.Optional(nonNegative(L.maxTransitTimeS, 'Forward transit time (SPICE TF); 0 if absent.')),
+    reverseTransitTimeS: Type.Optional(nonNegative(L.maxTransitTimeS, 'Reverse transit time (SPICE TR); 0 if absent.')),
+    baseResistanceOhm: Type.Optional(
+      nonNegative(L.maxTerminalResistanceOhm, 'Base spreading resistance (SPICE RB); 0 if absent.'),
+    ),
+    collectorResistanceOhm: Type.Optional(
+      nonNegative(L.maxTerminalResistanceOhm, 'Collector series resistance (SPICE RC); 0 if absent.'),
+    ),
+    emitterResistanceOhm: Type.Optional(
+      nonNegative(L.maxTerminalResistanceOhm, 'Emitter series resistance (SPICE RE); 0 if absent.'),
+    ),
     thermalResistanceCPerW: Type.Optional(
       positive(
         L.maxThermalResistanceCPerW,
@@ -151,14 +188,22 @@ export const driverClampSchema = Type.Union(
       resistorOhm: Type.Optional(positive(L.maxResistanceOhm)),
       capacitorF: Type.Optional(positive(L.maxCapacitanceF)),
       ratedPowerW: Type.Optional(positive(L.maxPowerW, 'Power rating of the clamp resistor; 0.25 W if absent.')),
+      ...diodeJunctionFields(),
+      breakdownVoltageV: Type.Optional(
+        positive(L.maxVoltageV, 'Reverse breakdown voltage of the clamp diode (SPICE BV); none if absent.'),
+      ),
     }),
     closedObject({
       kind: Type.Literal('zener'),
-      clampVoltageV: positive(L.maxVoltageV),
+      clampVoltageV: positive(L.maxVoltageV, 'Zener voltage, the breakdown voltage of its model (SPICE BV).'),
       ratedPowerW: Type.Optional(positive(L.maxPowerW, 'Power rating of the zener; 0.5 W if absent.')),
+      ...diodeJunctionFields(),
     }),
   ],
-  { description: 'Collector clamp that limits the flyback voltage.' },
+  {
+    description:
+      'Collector clamp that limits the flyback voltage; the junction fields are its diode’s (SPICE D model names).',
+  },
 );
 
 export const driverStageSchema = closedObject({

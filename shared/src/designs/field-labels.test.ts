@@ -29,7 +29,18 @@ function everyField(): Design {
   driver.indicatorLamp = { currentA: 1e-3 };
   driver.switchOnTimeS = 0.5;
   driver.batteryLifeTargetH = 100;
-  driver.clamp = { kind: 'rcd', clampVoltageV: 30, resistorOhm: 10e3, capacitorF: 10e-9 };
+  driver.clamp = {
+    kind: 'rcd',
+    clampVoltageV: 30,
+    resistorOhm: 10e3,
+    capacitorF: 10e-9,
+    ratedPowerW: 0.5,
+    junctionCapacitanceF: 20e-12,
+    junctionPotentialV: 0.7,
+    gradingCoefficient: 0.45,
+    breakdownVoltageV: 200,
+    breakdownCurrentA: 1e-5,
+  };
   driver.transistor.saturationCurrentA = 1e-14;
   driver.transformer.insulation = { ratedVoltageV: 3000 };
   driver.transformer.saturatedInductanceH = 1e-5;
@@ -37,6 +48,18 @@ function everyField(): Design {
   driver.transformer.secondaryPhasing = 'forward';
   driver.transistor.baseEmitterCapacitanceF = 10e-12;
   driver.transistor.baseCollectorCapacitanceF = 5e-12;
+  Object.assign(driver.transistor, {
+    baseEmitterPotentialV: 0.8,
+    baseEmitterGrading: 0.4,
+    baseCollectorPotentialV: 0.6,
+    baseCollectorGrading: 0.3,
+    earlyVoltageV: 80,
+    forwardTransitTimeS: 1e-9,
+    reverseTransitTimeS: 1e-7,
+    baseResistanceOhm: 10,
+    collectorResistanceOhm: 0.5,
+    emitterResistanceOhm: 0.2,
+  });
   driver.snubber = { resistorOhm: 100, capacitorF: 1e-9 };
   driver.supplyBypassCapacitanceF = 100e-6;
   driver.collectorStrayCapacitanceF = 100e-12;
@@ -51,7 +74,13 @@ function everyField(): Design {
     driver.supply.curve = [{ chargeFraction: 1, voltageV: 1.5 }];
     driver.supply.maxContinuousCurrentA = 1;
   }
-  base.multiplier.diode.junctionCapacitanceF = 10e-12;
+  Object.assign(base.multiplier.diode, {
+    junctionCapacitanceF: 10e-12,
+    junctionPotentialV: 0.6,
+    gradingCoefficient: 0.4,
+    breakdownVoltageV: 12e3,
+    breakdownCurrentA: 1e-6,
+  });
   base.multiplier.strayCapacitanceF = 1e-12;
   base.targets.spacing.altitudeM = 2000;
   base.targets.spacing.providedCreepageMm = 6;

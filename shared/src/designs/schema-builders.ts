@@ -1,4 +1,5 @@
 import { Type } from '@sinclair/typebox';
+import { designLimits as L } from './design-limits';
 
 /**
  * Building blocks of the design schema. Each returns a TypeBox schema (plain JSON Schema, draft 2020-12)
@@ -25,6 +26,29 @@ export const fraction = (openLow: boolean, openHigh: boolean, description?: stri
     ...(openHigh ? { exclusiveMaximum: 1 } : { maximum: 1 }),
     ...(description ? { description } : {}),
   });
+
+/** A junction's built-in potential (SPICE VJ, VJE, VJC), V. */
+export const junctionPotential = (description: string) =>
+  between(L.minJunctionPotentialV, L.maxJunctionPotentialV, description);
+
+/** A junction's grading coefficient (SPICE M, MJE, MJC), in (0, maxGradingCoefficient]. */
+export const gradingCoefficient = (description: string) =>
+  Type.Number({ exclusiveMinimum: 0, maximum: L.maxGradingCoefficient, description });
+
+/**
+ * A diode's depletion charge (SPICE CJO, VJ, M; the defaults are SPICE's) and breakdown current (IBV), for the
+ * ladder's and the clamp's diodes.
+ */
+export const diodeJunctionFields = () => ({
+  junctionCapacitanceF: Type.Optional(
+    nonNegative(L.maxCapacitanceF, 'Zero-bias junction capacitance (SPICE CJO); none if absent.'),
+  ),
+  junctionPotentialV: Type.Optional(junctionPotential('Junction potential (SPICE VJ); 1 V if absent.')),
+  gradingCoefficient: Type.Optional(gradingCoefficient('Junction grading coefficient (SPICE M); 0.5 if absent.')),
+  breakdownCurrentA: Type.Optional(
+    positive(L.maxCurrentA, 'Reverse current at the breakdown voltage (SPICE IBV); 1 mA if absent.'),
+  ),
+});
 
 /** A whole count in [min, max]. */
 export const count = (min: number, max: number, description?: string) =>

@@ -70,7 +70,11 @@ describe('estimateBlockingOscillator against published relations', () => {
     closeRel(e.reflectedVoltageV.value, 20);
     closeRel(e.flybackSecondaryPeakV.value, 20 * 50);
     closeRel(e.flybackTimeS.value, (200e-6 * ipk) / 20, 1e-7);
-    closeRel(e.frequencyHz.value, 1 / ((200e-6 * ipk) / 2.8 + (200e-6 * ipk) / 20), 1e-7);
+    // The ring-back of the 100 pF collector node (resonant LC ring, common practice, no source): a quarter
+    // period (π/2)·√(Lp·C) to Vin, then the magnetizing current from −Vr·√(C/Lp) back to zero at (Vin + V_BE)/Lp.
+    const swingS = (Math.PI / 2) * Math.sqrt(200e-6 * 100e-12);
+    const recoveryS = (200e-6 * 20 * Math.sqrt(100e-12 / 200e-6)) / (3 + 0.7);
+    closeRel(e.frequencyHz.value, 1 / ((200e-6 * ipk) / 2.8 + (200e-6 * ipk) / 20 + swingS + recoveryS), 1e-7);
     closeRel(e.forwardSecondaryPeakV.value, 2.8 * 50);
   });
 

@@ -30,7 +30,8 @@ function est(value: number, m: MethodInfo): Estimated {
 /**
  * The blocking oscillator's estimate as plain numbers (SI units), the loaded supply voltage solved by a
  * safeguarded Newton (secant) iteration on h(V) = V − Voc + R_s·I_in(V) (first slope by a forward difference,
- * then secant steps; a step leaving the bracket [lo, hi] of the root becomes a bisection). `options.supplyVoltageGuessV` warm-starts it.
+ * then secant steps; a step leaving the bracket [lo, hi] of the root becomes a bisection). `options.supplyVoltageGuessV`
+ * and `options.supplySlopeGuess` warm-start it (Newton's first step then takes the nearby slope).
  * Where the stage does not run (below its turn-on voltage) it draws nothing, so h < 0 there.
  */
 export function blockingOscillatorNumbers(
@@ -63,16 +64,16 @@ export function blockingOscillatorNumbers(
   // the bracket [lo, hi] of the root (a bisection otherwise).
   let prevV = NaN;
   let prevH = NaN;
+  let slope = options.supplySlopeGuess !== undefined && options.supplySlopeGuess > 0 ? options.supplySlopeGuess : NaN;
   for (let it = 0; it < 100 && Math.abs(hv) > tolV; it++) {
     if (hv > 0) hi = v;
     else lo = v;
     if (hi - lo <= tolV) break;
-    let slope: number;
-    if (Number.isNaN(prevV) || prevV === v) {
+    if (!Number.isNaN(prevV) && prevV !== v) {
+      slope = (hv - prevH) / (v - prevV);
+    } else if (Number.isNaN(slope)) {
       const dv = Math.max(1e-7 * voc, 4 * tolV) * (v - lo > hi - v ? -1 : 1);
       slope = (h(v + dv) - hv) / dv;
-    } else {
-      slope = (hv - prevH) / (v - prevV);
     }
     let next = v - hv / slope;
     if (!Number.isFinite(next) || next <= lo || next >= hi) next = 0.5 * (lo + hi);
@@ -86,7 +87,9 @@ export function blockingOscillatorNumbers(
   if (Math.abs(hv) > 1e-6 * voc) {
     throw new DomainError('invalid_design', 'the supply resistance is too high for the drawn current', 'driver.supply');
   }
-  return state ?? stageAt(driver, options, v, voc, resistanceOhm);
+  const solved: OscillatorNumbers = state ?? stageAt(driver, options, v, voc, resistanceOhm);
+  if (Number.isFinite(slope)) solved.supplySlope = slope;
+  return solved;
 }
 
 /**
@@ -190,7 +193,7 @@ function timingEstimates(
   r: OscillatorNumbers,
 ): Pick<
   BlockingOscillatorEstimate,
-  'onTimeS' | 'flybackTimeS' | 'frequencyHz' | 'energyPerCycleJ' | 'deliverablePowerW'
+  'onTimeS' | 'flybackTimeS' | 'ringBack' | 'frequencyHz' | 'energyPerCycleJ' | 'deliverablePowerW'
 > {
   const seriesR = driver.transformer.primaryResistanceOhm + (driver.collectorResistorOhm ?? 0);
   return {
@@ -209,7 +212,16 @@ function timingEstimates(
         'diode drop neglected against the flyback voltage',
       ]),
     ),
-    frequencyHz: est(r.frequencyHz, method('bo.frequency', 'f = 1/(t_on + t_fly).')),
+    ringBack: { swingS: r.tSwing, recoveryS: r.tRecovery },
+    frequencyHz: est(
+      r.frequencyHz,
+      method(
+        'bo.frequency',
+        'f = 1/(t_on + t_fly + t_swing + t_recovery): after the flyback the collector node capacitance C (stray, snubber, the secondary’s self-capacitance and the ladder’s diode junctions reflected by (Ns/Np)²) rings down about Vin, a quarter period t_swing = (π/2)·√(Lp·C) to Vin, where the transistor turns on with the magnetizing current at −I0 = −Vr·√(C/Lp); it returns to zero through the transistor conducting backwards, t_recovery = Lp·I0/(Vin + V_BE).',
+        ['the ladder’s diodes swing by the secondary’s peak-to-peak; their junction charge at VJ 1 V, M 0.5'],
+        'resonant LC ring and volt-second balance (common practice, no source)',
+      ),
+    ),
     energyPerCycleJ: est(r.energyJ, method('bo.energy', 'E = ½·Lp·Ipk².')),
     deliverablePowerW: est(
       r.deliverableW,
@@ -242,7 +254,7 @@ function voltageAndPowerEstimates(
       r.forwardSecV,
       method(
         'bo.forward-peak',
-        'V₊ = k·(Vin − Vce,sat)·N_s/N_p during the on-time (open-circuit ratio of coupled windings M/Lp).',
+        'V₊ = k·(Vin − Vce,sat)·N_s/N_p during the on-time (open-circuit ratio of coupled windings M/Lp); a ladder that takes less charge per cycle than the ring-back returns, ½·I0·t_recovery·N_p/N_s, charges towards k·(Vin + V_BE)·N_s/N_p instead (the operating point).',
         ['secondary unloaded during the on-time'],
       ),
     ),

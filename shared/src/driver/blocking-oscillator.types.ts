@@ -1,4 +1,5 @@
 import type { Estimated } from '../methods';
+import type { SecondaryLoad } from './ring-back';
 
 /** What ended the on-time: the base drive (hFE·I_B) or the core saturation current. */
 export type OnTimeLimit = 'base' | 'saturation';
@@ -20,8 +21,15 @@ export interface BlockingOscillatorOptions {
   chargeFraction?: number;
   /** Supply bypass capacitor at the stage (F). Default 100 µF, the simulated circuit's. */
   bypassCapacitanceF?: number;
+  /** The ladder's capacitance on the secondary for the ring-back between pulses; none for a bare stage. */
+  secondaryLoad?: SecondaryLoad;
   /** Starting guess of the loaded supply voltage (V) for the supply solve (a warm start); default the open-circuit voltage. */
   supplyVoltageGuessV?: number;
+  /**
+   * Slope of h(V) = V − Voc + R_s·I_in(V) near the guess (dimensionless), from a nearby solve: Newton's first
+   * step takes it instead of a forward difference (a warm start); default the forward difference.
+   */
+  supplySlopeGuess?: number;
 }
 
 /**
@@ -75,6 +83,10 @@ export interface OscillatorNumbers {
   ipk: number;
   tOn: number;
   tFly: number;
+  /** The collector's resonant fall after the flyback (s). */
+  tSwing: number;
+  /** The magnetizing current's return to zero before the next on-time (s). */
+  tRecovery: number;
   frequencyHz: number;
   energyJ: number;
   deliverableW: number;
@@ -87,10 +99,17 @@ export interface OscillatorNumbers {
   emfW: number;
   inputA: number;
   collectorPeakV: number;
+  /** Secondary forward level in the on-time, k·(Vin − Vce,sat)·Ns/Np (V). */
   forwardSecV: number;
+  /** Secondary forward level while the ring-back recovers, k·(Vin + V_BE)·Ns/Np (V). */
+  recoveryForwardSecV: number;
+  /** Charge (C) the secondary can pass at the recovery level in one cycle, ½·I0·t_recovery·Np/Ns. */
+  recoveryChargeC: number;
   flybackEfficiency: number;
   collectorPeakA: number;
   losses: StageLosses;
+  /** Slope of h(V) of the supply solve at its last step (absent without supply resistance), to warm-start a nearby solve. */
+  supplySlope?: number;
 }
 
 export interface BlockingOscillatorEstimate {
@@ -105,6 +124,8 @@ export interface BlockingOscillatorEstimate {
   baseLimitedCurrentA: number;
   onTimeS: Estimated;
   flybackTimeS: Estimated;
+  /** The collector's fall after the flyback and the magnetizing current's return to zero (s; see frequencyHz). */
+  ringBack: { swingS: number; recoveryS: number };
   frequencyHz: Estimated;
   energyPerCycleJ: Estimated;
   deliverablePowerW: Estimated;

@@ -5,7 +5,7 @@ import type { BlockingOscillatorEstimate } from './blocking-oscillator.types';
 import type { DriverStage } from '../designs/driver-stage.types';
 import type { Estimated } from '../methods';
 import { HIPOT_METHOD, hipotTestVoltageV as hipotTestVoltageOf } from '../safety/hipot';
-import { solveLoadPoint, supplyCurrentAt, type LoadPoint } from './operating-point';
+import { solveLoadPoint, supplyCurrentNear, type LoadPoint, type WarmStart } from './operating-point';
 import { type LadderLoadLine } from './ladder-load-line';
 import { driverEnergy, type DriverEnergy } from './driver-energy';
 
@@ -26,6 +26,8 @@ export interface DriverChecksInput {
   /** The ladder the driver feeds; without it the stage is checked at its clamp limit with no load. */
   ladder?: LadderLoadLine;
   ratedLoadCurrentA?: number;
+  /** The design's external load against the largest the supply holds its output at (A), for the capacity check. */
+  loadCapacity?: { loadCurrentA: number; maxLoadCurrentA: number };
   /** The rated load point already solved with this ladder and load (`solveLoadPoint`), so it is not solved again. */
   ratedLoad?: LoadPoint & { driver: BlockingOscillatorEstimate };
   /** Overrides the stage's own `batteryLifeTargetH`. */
@@ -91,12 +93,18 @@ function supplyCurrentTable(
 ): (v: number) => number {
   const points = 8;
   const table: { v: number; i: number }[] = [];
+  // Each voltage's power balance starts from the last one solved.
+  let warm: WarmStart | null = null;
   for (let k = 0; k < points; k++) {
     const v = lowV + ((highV - lowV) * k) / (points - 1);
     const bench: DriverStage = { ...driver, supply: { kind: 'dc', voltageV: v, sourceResistanceOhm: 0 } };
     let i: number;
     try {
-      i = ladder ? supplyCurrentAt(bench, ladder, loadA) : blockingOscillatorNumbers(bench).inputA;
+      if (ladder) {
+        const near = supplyCurrentNear(bench, ladder, loadA, warm);
+        warm = near.balance ?? warm;
+        i = near.supplyCurrentA;
+      } else i = blockingOscillatorNumbers(bench).inputA;
     } catch (error) {
       if (error instanceof DomainError)
         i = 0; // the stage stops: no drain below this voltage
@@ -122,7 +130,10 @@ function supplyCurrentTable(
  */
 export function runDriverChecks(driver: DriverStage, input: DriverChecksInput = {}): DriverChecksResult {
   const loadA = input.ratedLoadCurrentA ?? 0;
-  const estimate = estimateBlockingOscillator(driver);
+  const estimate = estimateBlockingOscillator(
+    driver,
+    input.ladder?.secondaryLoad ? { secondaryLoad: input.ladder.secondaryLoad } : {},
+  );
   const solved = input.ladder ? (input.ratedLoad ?? solveLoadPoint(driver, input.ladder, loadA)) : null;
   const atLoad = solved?.driver ?? estimate;
   const ratedLoad = solved;
@@ -147,6 +158,26 @@ export function runDriverChecks(driver: DriverStage, input: DriverChecksInput = 
       stressDerating,
     ),
   ];
+
+  if (input.loadCapacity) {
+    const { loadCurrentA, maxLoadCurrentA } = input.loadCapacity;
+    const rule =
+      'external load ≤ the largest load the supply holds its output at, pass at ≤ 80 % (cell ageing and hFE spread, common practice, no source)';
+    verdicts.push(
+      maxLoadCurrentA > 0
+        ? upperLimit('driver.load-capacity', 'driver stage', rule, loadCurrentA, maxLoadCurrentA, 'A', stressDerating)
+        : {
+            id: 'driver.load-capacity',
+            subject: 'driver stage',
+            rule,
+            verdict: 'fail',
+            marginPct: -100,
+            value: loadCurrentA,
+            limit: 0,
+            unit: 'A',
+          },
+    );
+  }
 
   // Base drive margin: the peak current the rated load needs. With the flyback at its limit P ∝ E·f ∝ Ipk
   // (on- and flyback times both ∝ Ipk), so I_needed = Ipk · P_needed / P_deliverable, P_needed = g·I_ladder·V₋.
@@ -178,7 +209,7 @@ export function runDriverChecks(driver: DriverStage, input: DriverChecksInput = 
     forwardSecondaryPeakV: estimate.forwardSecondaryPeakV.value,
     flybackChargeRatio: 0,
     frequencyHz: estimate.frequencyHz.value,
-    dutyCycle: estimate.onTimeS.value / (estimate.onTimeS.value + estimate.flybackTimeS.value),
+    dutyCycle: estimate.onTimeS.value * estimate.frequencyHz.value,
     supplyCurrentA: estimate.inputCurrentA.value,
     inputPowerW: estimate.emfPowerW,
     ladderTakesW: { forward: 0, flyback: 0 },

@@ -36,6 +36,12 @@ export interface DriverReport {
   figures: DriverFigures;
   /** The stage with the flyback at its clamp or breakdown limit: the largest it can deliver. */
   atLimit: Pick<DriverFigures, 'deliverablePowerW' | 'flybackSecondaryPeakV' | 'frequencyHz'>;
+  /**
+   * The design's external load against the largest the supply holds its output at. Beyond it the output
+   * cannot hold the load: the figures are then the stage at `maxLoadCurrentA`, and a Check fails. Absent from
+   * reports of engines before 1.3.0.
+   */
+  loadCapacity?: { loadCurrentA: number; maxLoadCurrentA: number; isLoadBeyond: boolean };
   operatingPoint: {
     limitedBy: OperatingLimit;
     ratedLoad: LoadPoint;
@@ -119,7 +125,8 @@ function benchFiguresOf(
   }
   return {
     oscillationFrequencyHz: point.frequencyHz,
-    dutyOnFraction: point.dutyCycle,
+    // The transistor's on-time share, as the simulation measures it (the ladder's forward share also holds the ring-back).
+    dutyOnFraction: atLoad.onTimeS.value * point.frequencyHz,
     primaryCurrentPeakA: atLoad.collectorPeakCurrentA.value,
     collectorVoltagePeakV: atLoad.collectorPeakV.value,
     // Flyback phasing turns the secondary over: the flyback is then its positive peak.
@@ -143,7 +150,14 @@ function figuresOf(e: BlockingOscillatorEstimate): DriverFigures {
  */
 export function driverReport(driver: DriverStage, ladder: LadderLoadLine, ratedLoadCurrentA: number): DriverReport {
   const op = driverOperatingPoint(driver, ladder, ratedLoadCurrentA);
-  const checks = runDriverChecks(driver, { ladder, ratedLoadCurrentA, ratedLoad: op.ratedLoad });
+  const checks = runDriverChecks(driver, {
+    ladder,
+    ratedLoadCurrentA: op.isRatedLoadBeyond ? op.maxLoadCurrentA : ratedLoadCurrentA,
+    ratedLoad: op.ratedLoad,
+    ...(ratedLoadCurrentA > 0
+      ? { loadCapacity: { loadCurrentA: ratedLoadCurrentA, maxLoadCurrentA: op.maxLoadCurrentA } }
+      : {}),
+  });
   const { driver: atLoad, ...ratedLoad } = op.ratedLoad;
   const limit = checks.estimate;
   const supply = driver.supply;
@@ -167,6 +181,11 @@ export function driverReport(driver: DriverStage, ladder: LadderLoadLine, ratedL
     },
   };
   return {
+    loadCapacity: {
+      loadCurrentA: ratedLoadCurrentA,
+      maxLoadCurrentA: op.maxLoadCurrentA,
+      isLoadBeyond: op.isRatedLoadBeyond,
+    },
     energy,
     benchFigures: benchFiguresOf(ratedLoad, atLoad, energy, isFlybackFed(driver)),
     validity: estimateValidity(driver, atLoad, { feedsLadder: true }),

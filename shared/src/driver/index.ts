@@ -33,7 +33,9 @@ export type {
   StageLosses,
 } from './blocking-oscillator.types';
 export { driverOperatingPoint, isFlybackFed, solveLoadPoint, OPERATING_POINT_METHOD } from './operating-point';
-export { engineLadderLoadLine, pulseDriveOf } from './ladder-load-line';
+export { engineLadderLoadLine, pulseDriveOf, secondaryLoadOf } from './ladder-load-line';
+export { ringBack, secondaryLoadCapacitanceF } from './ring-back';
+export type { RingBack, SecondaryLoad } from './ring-back';
 export type { LoadPoint, OperatingLimit, OperatingPointResult } from './operating-point';
 export type { LadderDrive, LadderLoadLine, LadderState } from './ladder-load-line';
 export { driverReport } from './driver-report';

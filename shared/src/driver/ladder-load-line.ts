@@ -1,8 +1,10 @@
 import type { PulseDrive } from '../designs/design.types';
 import { DomainError } from '../errors';
-import { prepareLadder, terminalMeanAt, type PreparedLadder } from '../multiplier/analyze-ladder';
+import { prepareLadder, terminalMeanAt, terminalMeanNear, type PreparedLadder } from '../multiplier/analyze-ladder';
+import type { CurrentWarmStart } from '../multiplier/charge-transfer-model';
 import { withDriveTiming } from '../multiplier/with-drive';
 import type { LadderInput } from '../multiplier/ladder.types';
+import type { SecondaryLoad } from './ring-back';
 
 /** The secondary drive a ladder sees from a blocking oscillator: unequal forward and flyback peaks. */
 export interface LadderDrive {
@@ -33,6 +35,23 @@ export interface LadderLoadLine {
   chargeRatios(drive: LadderDrive, ladderCurrentA: number): { flyback: number; forward: number };
   /** The output network, for the power balance (bleeder Ω or null, series output resistor Ω); none when absent. */
   network?: { bleederOhm: number | null; seriesOutputResistanceOhm: number };
+  /** The ladder's capacitance on the secondary for the driver's ring-back between pulses; none when absent. */
+  secondaryLoad?: SecondaryLoad;
+}
+
+/**
+ * The half-wave ladder's load on the secondary between pulses: one diode per cell, each swinging by the
+ * secondary's peak-to-peak, and the strays of the oscillating column's nodes (every other node).
+ */
+export function secondaryLoadOf(
+  input: Pick<LadderInput, 'capacitorsF' | 'diode' | 'strayCapacitanceF'>,
+): SecondaryLoad {
+  const cells = input.capacitorsF.length;
+  return {
+    diodeCount: cells,
+    diodeJunctionCapacitanceF: input.diode.junctionCapacitanceF ?? 0,
+    swingingStrayCapacitanceF: Math.ceil(cells / 2) * (input.strayCapacitanceF ?? 0),
+  };
 }
 
 /** The pulse drive of the ladder model for a LadderDrive behind the secondary winding resistance (Ω). */
@@ -71,6 +90,7 @@ export function engineLadderLoadLine(input: LadderInput): LadderLoadLine {
   // so that a ladder error surfaces where the per-call preparation raised it).
   let loaded: PreparedLadder | null = null;
   let bare: PreparedLadder | null = null;
+  let lastLoaded: CurrentWarmStart | null = null;
   const topAt = (drive: LadderDrive, ladderCurrentA: number) => {
     const pulse = pulseDriveOf(drive, sourceOhm);
     bare = bare
@@ -80,10 +100,14 @@ export function engineLadderLoadLine(input: LadderInput): LadderLoadLine {
   };
   return {
     network: { bleederOhm: input.bleederOhm, seriesOutputResistanceOhm: seriesOhm },
+    secondaryLoad: secondaryLoadOf(input),
     at(drive, loadCurrentA) {
       const pulse = pulseDriveOf(drive, sourceOhm);
       loaded = loaded ? withDriveTiming(loaded, pulse) : prepareLadder({ ...input, load: null, drive: pulse });
-      const outputV = terminalMeanAt(loaded, loadCurrentA);
+      // Each solve starts from the last one's current (the driver's solves move the drive a little at a time).
+      const solved = terminalMeanNear(loaded, loadCurrentA, lastLoaded);
+      lastLoaded = solved.near;
+      const outputV = solved.outputV;
       const topV = Math.max(0, outputV + loadCurrentA * seriesOhm);
       const bleederA = input.bleederOhm ? topV / input.bleederOhm : 0;
       return { outputV: Math.max(0, outputV), ladderCurrentA: loadCurrentA + bleederA };

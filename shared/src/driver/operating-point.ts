@@ -9,6 +9,10 @@ import type {
 import type { DriverStage } from '../designs/driver-stage.types';
 import type { MethodInfo } from '../methods';
 import type { LadderDrive, LadderLoadLine } from './ladder-load-line';
+import { outputSignsNear, scanDown, warmNear, warmPastOnset, warmRoot, type WarmStart } from './load-point-roots';
+import { forwardPeakFor, forwardShareOf } from './ring-back';
+
+export type { WarmStart } from './load-point-roots';
 
 /** Whether a stage's ladder is fed by the flyback pulse (the secondary phasing; 'flyback' by default). */
 export function isFlybackFed(driver: DriverStage): boolean {
@@ -46,6 +50,13 @@ export interface OperatingPointResult {
   ratedLoad: LoadPoint & { driver: BlockingOscillatorEstimate };
   /** Load current above which the driver can no longer hold the flyback at its limit (A); 0 if it cannot even at no load. */
   powerLimitOnsetA: number;
+  /** The largest external load current (A) at which the output stays above zero: what the supply can deliver. */
+  maxLoadCurrentA: number;
+  /**
+   * True when the rated load is beyond maxLoadCurrentA: the output cannot hold it, and `ratedLoad` is the
+   * stage at maxLoadCurrentA instead.
+   */
+  isRatedLoadBeyond: boolean;
   /** Output vs external load current from no load to the current at which the output reaches zero. */
   curve: LoadPoint[];
   method: MethodInfo;
@@ -65,12 +76,21 @@ export const OPERATING_POINT_METHOD: MethodInfo = {
     'Energy conservation per cycle: E = ½ Lp Ipk², P = E f η (common practice; Pressman, Switching Power Supply Design, from memory); ladder by charge-transfer-v1',
 };
 
-function driveOf(e: OscillatorNumbers, driver: DriverStage): LadderDrive {
+/** The stage options with the ladder's load on the secondary, unless the caller gives one. */
+function withLadderLoad(options: BlockingOscillatorOptions, ladder: LadderLoadLine): BlockingOscillatorOptions {
+  return options.secondaryLoad || !ladder.secondaryLoad ? options : { ...options, secondaryLoad: ladder.secondaryLoad };
+}
+
+/**
+ * The secondary drive the ladder sees from the stage `e` when it takes `forwardCurrentA` (A, mean) from the
+ * forward pulse: its forward peak by the charge the ring-back returns (forwardPeakFor).
+ */
+function driveOf(e: OscillatorNumbers, driver: DriverStage, forwardCurrentA: number): LadderDrive {
   return {
-    forwardPeakV: e.forwardSecV,
+    forwardPeakV: forwardPeakFor(e, forwardCurrentA / e.frequencyHz),
     flybackPeakV: e.flybackSecV,
     frequencyHz: e.frequencyHz,
-    dutyCycle: e.tOn / (e.tOn + e.tFly),
+    dutyCycle: forwardShareOf(e),
     isFlybackFed: isFlybackFed(driver),
   };
 }
@@ -80,50 +100,70 @@ interface SolvedPoint {
   point: LoadPoint;
   stage: OscillatorNumbers;
   stageOptions: BlockingOscillatorOptions;
+  /** The power balance where it was solved by the surplus (power-limited), to warm-start a nearby load's. */
+  balance: WarmStart | null;
 }
 
 /**
  * The load point as numbers. `limit` is the stage at its clamp limit with no forward load (the same for every
  * load current of one driver), passed in by callers that solve many loads; `flybackGuessV`, a nearby load's
- * flyback, starts the scan for the power balance's bracket there instead of at the limit.
+ * flyback, starts the scan for the power balance's bracket there instead of at the limit; `warm`, a nearby
+ * load's balance, starts Newton's method there (the scan runs only where it does not settle).
  */
 function solvePoint(
   driver: DriverStage,
   ladder: LadderLoadLine,
   loadCurrentA: number,
-  options: BlockingOscillatorOptions,
-  limit: OscillatorNumbers = blockingOscillatorNumbers(driver, options),
+  givenOptions: BlockingOscillatorOptions,
+  givenLimit?: OscillatorNumbers,
   flybackGuessV?: number,
+  warm?: WarmStart | null,
 ): SolvedPoint {
+  const options = withLadderLoad(givenOptions, ladder);
+  const limit = givenLimit ?? blockingOscillatorNumbers(driver, options);
   if (!(loadCurrentA >= 0)) throw new DomainError('invalid_argument', 'load current must be ≥ 0', 'loadCurrentA');
   const maxFlyV = limit.maxFlybackSecV;
-  const limitDrive = driveOf(limit, driver);
-  const limitLadderA = ladder.at(limitDrive, loadCurrentA).ladderCurrentA;
-  const ratios = ladder.chargeRatios(limitDrive, limitLadderA);
+  // The ladder's current and charge ratios at the limit drive (its forward peak at the recovery level, then
+  // again with the forward charge that current takes), held through the solve.
+  let limitDrive = driveOf(limit, driver, 0);
+  let limitLadderA = ladder.at(limitDrive, loadCurrentA).ladderCurrentA;
+  let ratios = ladder.chargeRatios(limitDrive, limitLadderA);
+  const forwardA = () => ratios.forward * limitLadderA;
+  if (limit.recoveryChargeC > 0 && forwardA() / limit.frequencyHz > limit.recoveryChargeC) {
+    limitDrive = driveOf(limit, driver, forwardA());
+    limitLadderA = ladder.at(limitDrive, loadCurrentA).ladderCurrentA;
+    ratios = ladder.chargeRatios(limitDrive, limitLadderA);
+  }
   // The forward pulse's load on the supply, g₊·V₊·I_ladder, taken at the limit drive and held through the
-  // solve, so that the supply sag is the same in the balance and in the reported figures.
-  const forwardLoadPowerW = ratios.forward * limit.forwardSecV * limitLadderA;
+  // solve, so that the supply sag is the same in the balance and in the reported figures (the ring-back's
+  // share of it, above the on-time level, counted as the supply's too).
+  const forwardLoadPowerW = ratios.forward * limitDrive.forwardPeakV * limitLadderA;
   let supplyGuessV = limit.vin;
-  const at = (flyV: number): { stage: OscillatorNumbers; options: BlockingOscillatorOptions } => {
-    const stageOptions = {
-      ...options,
-      flybackSecondaryPeakV: flyV,
-      forwardLoadPowerW,
-      supplyVoltageGuessV: supplyGuessV,
-    };
+  let supplySlope = limit.supplySlope;
+  // The stage at a flyback, its supply solve started from the last one's; the options object is filled in
+  // place (the surplus's evaluations share one, the solved point gets its own).
+  const stageAtFlyback = (flyV: number, stageOptions: BlockingOscillatorOptions): OscillatorNumbers => {
+    stageOptions.flybackSecondaryPeakV = flyV;
+    stageOptions.supplyVoltageGuessV = supplyGuessV;
+    if (supplySlope !== undefined) stageOptions.supplySlopeGuess = supplySlope;
     const stage = blockingOscillatorNumbers(driver, stageOptions);
     supplyGuessV = stage.vin;
-    return { stage, options: stageOptions };
+    supplySlope = stage.supplySlope ?? supplySlope;
+    return stage;
   };
+  const evalOptions: BlockingOscillatorOptions = { ...options, forwardLoadPowerW };
   // Surplus of flyback power over what the ladder takes, per volt of flyback. Copper loss makes it fall at
   // very slow flybacks too, so there can be two roots: take the highest (the stable one) by scanning down
   // from the limit on a log grid (8 points a decade over 6 decades), then solving in that bracket.
   const surplus = (flyV: number) => {
-    const e = at(flyV).stage;
-    return e.deliverableW / flyV - ratios.flyback * ladder.at(driveOf(e, driver), loadCurrentA).ladderCurrentA;
+    const e = stageAtFlyback(flyV, evalOptions);
+    return (
+      e.deliverableW / flyV - ratios.flyback * ladder.at(driveOf(e, driver, forwardA()), loadCurrentA).ladderCurrentA
+    );
   };
   let flyV = maxFlyV;
   let limitedBy: OperatingLimit = 'ladder';
+  let balance: WarmStart | null = null;
   const surplusAtLimit = surplus(maxFlyV);
   if (surplusAtLimit < 0) {
     limitedBy = 'power';
@@ -136,12 +176,15 @@ function solvePoint(
     // From a nearby load's flyback: the grid point below it and, while the surplus there is positive, the
     // points above, to the first negative one. With at most two roots the surplus is positive on one run of
     // the grid only, so this is the bracket the scan from the limit finds; else the scan runs.
+    balance = warm ? warmRoot(surplus, warm, maxFlyV) : null;
     const guessK =
-      flybackGuessV !== undefined && flybackGuessV > 0 && flybackGuessV < maxFlyV
+      balance === null && flybackGuessV !== undefined && flybackGuessV > 0 && flybackGuessV < maxFlyV
         ? Math.min(scanPoints, Math.ceil((Math.log10(maxFlyV / flybackGuessV) * scanPoints) / 6))
         : 0;
     const surplusAtGuess = guessK > 0 ? surplus(gridV(guessK)) : -1;
-    if (surplusAtGuess >= 0) {
+    if (balance !== null) {
+      lo = balance.flybackV;
+    } else if (surplusAtGuess >= 0) {
       let k = guessK;
       lo = gridV(k);
       surplusLo = surplusAtGuess;
@@ -156,28 +199,28 @@ function solvePoint(
         surplusLo = s;
       }
     } else {
-      for (let k = 1; k <= scanPoints; k++) {
-        const v = gridV(k);
-        const s = surplus(v);
-        if (s >= 0) {
-          lo = v;
-          surplusLo = s;
-          break;
-        }
-        hi = v;
-        surplusHi = s;
+      const scan = scanDown(surplus, gridV, scanPoints, hi, surplusHi);
+      ({ hi, fHi: surplusHi } = scan);
+      if (scan.found) {
+        lo = scan.lo;
+        surplusLo = scan.fLo;
       }
     }
     if (lo === null) {
       flyV = maxFlyV * 1e-6; // the driver cannot push the ladder's charge at any flyback: output collapses
+    } else if (balance !== null) {
+      flyV = balance.flybackV;
     } else {
       // To the resolution 40 halvings of the bracket (an eighth of a decade) would give: 2e-13 relative.
       flyV = bracketedRoot(surplus, lo, hi, surplusLo, surplusHi, (hi - lo) * 2 ** -40);
+      // The power surplus's slope there for the next load's warm start (over the bracket, an eighth of a decade).
+      balance = { flybackV: flyV, slope: (hi * surplusHi - lo * surplusLo) / (hi - lo) };
     }
   }
-  const solved = at(flyV);
-  const stage = solved.stage;
-  const loaded = ladder.at(driveOf(stage, driver), loadCurrentA);
+  const stageOptions: BlockingOscillatorOptions = { ...options, forwardLoadPowerW };
+  const stage = stageAtFlyback(flyV, stageOptions);
+  const drive = driveOf(stage, driver, forwardA());
+  const loaded = ladder.at(drive, loadCurrentA);
   const outputPowerW = loaded.outputV * loadCurrentA;
   const flybackTakenW = Math.min(stage.deliverableW, ratios.flyback * loaded.ladderCurrentA * flyV);
   return {
@@ -188,17 +231,18 @@ function solvePoint(
       ladderCurrentA: loaded.ladderCurrentA,
       limitedBy,
       flybackSecondaryPeakV: flyV,
-      forwardSecondaryPeakV: stage.forwardSecV,
+      forwardSecondaryPeakV: drive.forwardPeakV,
       flybackChargeRatio: ratios.flyback,
       frequencyHz: stage.frequencyHz,
-      dutyCycle: driveOf(stage, driver).dutyCycle ?? 0.5,
+      dutyCycle: drive.dutyCycle ?? 0.5,
       supplyCurrentA: stage.inputA,
       inputPowerW: stage.emfW,
       ladderTakesW: { forward: forwardLoadPowerW, flyback: flybackTakenW },
       efficiency: outputPowerW / stage.emfW,
     },
     stage,
-    stageOptions: solved.options,
+    stageOptions,
+    balance,
   };
 }
 
@@ -227,42 +271,17 @@ export function supplyCurrentAt(
 }
 
 /**
- * Whether the output is above zero at a load current (A), for the bisection that ends the curve, answered
- * without a solve wherever a solved load settles it: the output falls as the load rises, so it is positive
- * below a load where it is positive and zero above one where it is zero. A few secant steps on the output
- * from `positive` (the highest load solved with output, or null) towards `zeroA` (a load without) first
- * close in on the crossing, so that the bisection solves only the one or two midpoints next to it; its
- * answers are those of solving at every midpoint.
+ * `supplyCurrentAt` with the power balance warm-started from a nearby solve's (`warm`, from another supply
+ * voltage or load), giving its own balance for the next.
  */
-function outputSignsNear(
-  pointAt: (loadA: number) => LoadPoint,
-  positive: { loadA: number; outputV: number } | null,
-  zeroA: number,
-): (loadA: number) => boolean {
-  let below = positive ?? { loadA: 0, outputV: NaN };
-  let previous: { loadA: number; outputV: number } | null = null;
-  let above = zeroA;
-  let isLastAbove = false;
-  for (let step = 0; step < 6 && above - below.loadA > 2e-5 * above; step += 1) {
-    // The line through the last two loads with output, else halfway; aimed 1e-5 past the crossing after a
-    // load with output and short of it after one without, so that both sides close in to about the
-    // bisection's last steps.
-    const slope = previous ? (below.outputV - previous.outputV) / (below.loadA - previous.loadA) : NaN;
-    let guessA = slope < 0 ? below.loadA - below.outputV / slope : 0.5 * (below.loadA + above);
-    guessA *= isLastAbove ? 1 - 1e-5 : 1 + 1e-5;
-    if (!(guessA > below.loadA && guessA < above)) guessA = 0.5 * (below.loadA + above);
-    const outputV = pointAt(guessA).outputV;
-    isLastAbove = !(outputV > 0);
-    if (outputV > 0) {
-      previous = below;
-      below = { loadA: guessA, outputV };
-    } else above = guessA;
-  }
-  return (loadA) => {
-    if (loadA <= below.loadA && below.loadA > 0) return true;
-    if (loadA >= above) return false;
-    return pointAt(loadA).outputV > 0;
-  };
+export function supplyCurrentNear(
+  driver: DriverStage,
+  ladder: LadderLoadLine,
+  loadCurrentA: number,
+  warm: WarmStart | null,
+): { supplyCurrentA: number; balance: WarmStart | null } {
+  const solved = solvePoint(driver, ladder, loadCurrentA, {}, undefined, undefined, warm);
+  return { supplyCurrentA: solved.point.supplyCurrentA, balance: solved.balance };
 }
 
 /**
@@ -274,66 +293,105 @@ export function driverOperatingPoint(
   driver: DriverStage,
   ladder: LadderLoadLine,
   ratedLoadCurrentA: number,
-  options: BlockingOscillatorOptions & { points?: number } = {},
+  givenOptions: BlockingOscillatorOptions & { points?: number } = {},
 ): OperatingPointResult {
-  const points = Math.max(2, options.points ?? 25);
+  const points = Math.max(2, givenOptions.points ?? 25);
+  const options = withLadderLoad(givenOptions, ladder);
   const limitEst = blockingOscillatorNumbers(driver, options);
   const maxFlyV = limitEst.maxFlybackSecV;
-  const limitDrive = driveOf(limitEst, driver);
-  const pointAt = (loadA: number) => solvePoint(driver, ladder, loadA, options, limitEst).point;
+  const limitDrive = driveOf(limitEst, driver, 0);
+  // The end of the curve's loads, each warm-started from the last power balance solved.
+  let lastBalance: WarmStart | null = null;
+  const endBalances: { loadA: number; balance: WarmStart }[] = [];
+  const pointAt = (loadA: number) => {
+    const solved = solvePoint(driver, ladder, loadA, options, limitEst, undefined, lastBalance);
+    if (solved.balance) endBalances.push({ loadA, balance: solved.balance });
+    lastBalance = solved.balance ?? lastBalance;
+    return solved.point;
+  };
   // Deliverable flyback power over what the ladder takes at the limit drive, per volt of flyback: power-limited below zero.
+  let lastFlybackRatio = NaN;
   const limitSurplusAt = (loadA: number) => {
     const state = ladder.at(limitDrive, loadA);
-    return (
-      limitEst.deliverableW / maxFlyV -
-      ladder.chargeRatios(limitDrive, state.ladderCurrentA).flyback * state.ladderCurrentA
-    );
+    lastFlybackRatio = ladder.chargeRatios(limitDrive, state.ladderCurrentA).flyback;
+    return limitEst.deliverableW / maxFlyV - lastFlybackRatio * state.ladderCurrentA;
   };
-  // Onset: bracket by doubling, then solve to the resolution of 40 halvings (1e-12 relative).
+  // Onset: bracketed around the load the no-load surplus would carry at the no-load charge ratio (the
+  // surplus falls nearly in proportion to the load), widened by doubling and halving, then solved to the
+  // resolution of 40 halvings (1e-12 relative). Past 1e-9·2⁸⁰ A the driver is taken never to limit.
+  const neverA = 1e-9 * 2 ** 80;
   let powerLimitOnsetA = 0;
   const surplusAtNoLoad = limitSurplusAt(0);
   if (surplusAtNoLoad >= 0) {
+    const guessA = surplusAtNoLoad / lastFlybackRatio;
+    const hasGuess = guessA > 1e-9 && guessA < neverA;
     let loA = 0;
     let surplusLo = surplusAtNoLoad;
-    let hiA = 1e-9;
+    let hiA = hasGuess ? 1.25 * guessA : 1e-9;
     let surplusHi = limitSurplusAt(hiA);
-    for (let k = 0; k < 80 && surplusHi >= 0; k++) {
+    if (hasGuess && surplusHi < 0) {
+      // The low end: just below the guess, halved towards no load (40 times) while the surplus there is negative.
+      const scan = scanDown(limitSurplusAt, (k) => (0.8 * guessA) / 2 ** (k - 1), 40, hiA, surplusHi);
+      ({ hi: hiA, fHi: surplusHi } = scan);
+      if (scan.found) {
+        loA = scan.lo;
+        surplusLo = scan.fLo;
+      }
+    }
+    for (let k = 0; k < 80 && surplusHi >= 0 && hiA < neverA; k++) {
       loA = hiA;
       surplusLo = surplusHi;
-      hiA *= 2;
+      hiA = Math.min(2 * hiA, neverA);
       surplusHi = limitSurplusAt(hiA);
     }
     powerLimitOnsetA =
-      surplusHi >= 0 ? hiA : bracketedRoot(limitSurplusAt, loA, hiA, surplusLo, surplusHi, hiA * 2 ** -40);
+      surplusHi >= 0 ? neverA : bracketedRoot(limitSurplusAt, loA, hiA, surplusLo, surplusHi, hiA * 2 ** -40);
   }
   // End of the curve: where the output reaches zero; bracket by doubling from the onset, then 14 bisections
   // (6e-5 relative, below the curve's sampling).
   let hiA = Math.max(powerLimitOnsetA, 1e-9);
   let lastOutput: { loadA: number; outputV: number } | null = null;
+  let earlierOutput: { loadA: number; outputV: number } | null = null;
   for (let k = 0; k < 60; k++) {
     const outputV = pointAt(hiA).outputV;
     if (!(outputV > 0)) break;
+    earlierOutput = lastOutput;
     lastOutput = { loadA: hiA, outputV };
     hiA *= 2;
   }
-  const hasOutputAt = outputSignsNear(pointAt, lastOutput, hiA);
+  const hasOutputAt = outputSignsNear(pointAt, lastOutput, hiA, earlierOutput);
   let loA = 0;
   for (let k = 0; k < 14; k++) {
     const mid = 0.5 * (loA + hiA);
     if (hasOutputAt(mid)) loA = mid;
     else hiA = mid;
   }
+  // Evenly spaced loads: each power balance starts from the line through the last two.
   const curve: LoadPoint[] = [];
+  const balances: (WarmStart | null)[] = [];
   for (let i = 0; i < points; i++) {
     const loadA = (hiA * i) / (points - 1);
-    curve.push(solvePoint(driver, ladder, loadA, options, limitEst, curve[i - 1]?.flybackSecondaryPeakV).point);
+    const a = balances[i - 1];
+    const b = balances[i - 2];
+    const warm =
+      a && b
+        ? { flybackV: 2 * a.flybackV - b.flybackV, slope: a.slope }
+        : (a ?? warmPastOnset(endBalances, powerLimitOnsetA, maxFlyV, loadA));
+    const solved = solvePoint(driver, ladder, loadA, options, limitEst, curve[i - 1]?.flybackSecondaryPeakV, warm);
+    curve.push(solved.point);
+    balances.push(solved.balance);
   }
+  // A rated load the output cannot hold (it falls to zero before the load is met) is beyond what the supply
+  // delivers: the stage is then reported at the largest load it holds, never at a collapsed flyback.
+  const ratedWarm = warmNear(curve, balances, ratedLoadCurrentA);
+  let rated = solvePoint(driver, ladder, ratedLoadCurrentA, options, limitEst, undefined, ratedWarm);
+  const isRatedLoadBeyond = ratedLoadCurrentA > 0 && !(rated.point.outputV > 0);
+  if (isRatedLoadBeyond) rated = solvePoint(driver, ladder, loA, options, limitEst);
   return {
-    ratedLoad: (() => {
-      const rated = solvePoint(driver, ladder, ratedLoadCurrentA, options, limitEst);
-      return { ...rated.point, driver: estimateOf(driver, rated.stageOptions, rated.stage) };
-    })(),
+    ratedLoad: { ...rated.point, driver: estimateOf(driver, rated.stageOptions, rated.stage) },
     powerLimitOnsetA,
+    maxLoadCurrentA: loA,
+    isRatedLoadBeyond,
     curve,
     method: OPERATING_POINT_METHOD,
   };

@@ -6,6 +6,7 @@ import type {
   OscillatorNumbers,
   StageLosses,
 } from './blocking-oscillator.types';
+import { ringBack, secondaryLoadCapacitanceF, type RingBack } from './ring-back';
 
 /** Capacitance at the collector node when none is given (F), for the leakage spike and the switching loss. */
 export const DEFAULT_COLLECTOR_NODE_CAPACITANCE_F = 100e-12;
@@ -17,7 +18,8 @@ export const DEFAULT_COLLECTOR_NODE_CAPACITANCE_F = 100e-12;
 export function collectorNodeCapacitanceOf(driver: DriverStage): number {
   const tx = driver.transformer;
   return (
-    DEFAULT_COLLECTOR_NODE_CAPACITANCE_F + (tx.secondaryCapacitanceF ?? 0) * (tx.secondaryTurns / tx.primaryTurns) ** 2
+    (driver.collectorStrayCapacitanceF ?? DEFAULT_COLLECTOR_NODE_CAPACITANCE_F) +
+    (tx.secondaryCapacitanceF ?? 0) * (tx.secondaryTurns / tx.primaryTurns) ** 2
   );
 }
 /** Supply bypass at the stage when none is given (F): the simulated circuit's default. */
@@ -59,6 +61,11 @@ interface FlybackTransfer {
   flybackSecV: number;
   reflectedV: number;
   tFly: number;
+  ring: RingBack;
+  /** Secondary forward level while the ring-back recovers (V). */
+  recoveryForwardSecV: number;
+  /** Charge the secondary can pass at that level in one recovery (C). */
+  recoveryChargeC: number;
   frequencyHz: number;
   energyJ: number;
   /** Secondary copper loss of one flyback pulse. */
@@ -153,6 +160,8 @@ export function stageAt(
     ipk: ramp.ipk,
     tOn: ramp.tOn,
     tFly: fly.tFly,
+    tSwing: fly.ring.swingS,
+    tRecovery: fly.ring.recoveryS,
     frequencyHz: fly.frequencyHz,
     energyJ: fly.energyJ,
     deliverableW: fly.deliverableW,
@@ -164,6 +173,8 @@ export function stageAt(
     inputA: power.inputA,
     collectorPeakV: power.collectorPeakV,
     forwardSecV: vPrimary * c.k * c.turnsRatio,
+    recoveryForwardSecV: fly.recoveryForwardSecV,
+    recoveryChargeC: fly.recoveryChargeC,
     flybackEfficiency: fly.flybackEfficiency,
     collectorPeakA: ramp.limit === 'base' ? ramp.ipk : ramp.turnOffA,
     losses: power.losses,
@@ -280,7 +291,17 @@ function flybackTransfer(
     );
   const reflectedV = flybackSecV / (k * turnsRatio);
   const tFly = (lp * ipk) / reflectedV;
-  const frequencyHz = 1 / (ramp.tOn + tFly);
+  // The forward pulse: the primary at Vin − Vce,sat in the on-time, at Vin + V_BE while the ring-back recovers.
+  const onForwardSecV = (vin - q.vceSatV) * k * turnsRatio;
+  const nodeF = options.collectorNodeCapacitanceF ?? collectorNodeCapacitanceOf(driver);
+  const swingV = onForwardSecV + flybackSecV;
+  const loadF = options.secondaryLoad ? secondaryLoadCapacitanceF(options.secondaryLoad, swingV) : 0;
+  const ring = ringBack(driver, vin, reflectedV, nodeF, loadF);
+  // While the ring-back recovers the winding holds Vin + V_BE; the secondary passes on the charge the
+  // magnetizing current returns, ½·I0·t_recovery through the turns ratio.
+  const recoveryForwardSecV = (vin + q.vbeOnV) * k * turnsRatio;
+  const recoveryChargeC = (0.5 * -ring.recoveryStartA * ring.recoveryS) / turnsRatio;
+  const frequencyHz = 1 / (ramp.tOn + tFly + ring.swingS + ring.recoveryS);
   const energyJ = 0.5 * lp * ipk * ipk;
   const iSecPk = ipk / turnsRatio;
   const copperJ = iSecPk * iSecPk * tx.secondaryResistanceOhm * (tFly / 3);
@@ -292,6 +313,9 @@ function flybackTransfer(
     flybackSecV,
     reflectedV,
     tFly,
+    ring,
+    recoveryForwardSecV,
+    recoveryChargeC,
     frequencyHz,
     energyJ,
     copperJ,

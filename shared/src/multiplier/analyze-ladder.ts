@@ -1,7 +1,7 @@
 import { DomainError } from '../errors';
 import { buildLadderNetwork, EVENT_H } from './topologies';
 import { createWorkspace, outputLoad, solveCycle, solveOperatingPoint } from './charge-transfer-model';
-import type { Workspace } from './charge-transfer-model';
+import type { CurrentWarmStart, Workspace } from './charge-transfer-model';
 import { ladderNodeVoltages, NODE_VOLTAGE_METHOD } from './ladder-nodes';
 import { textbookFigures } from './textbook-formulas';
 import type { CapacitorStress, DiodeStress, LadderAnalysis, LadderInput } from './ladder.types';
@@ -25,7 +25,8 @@ export const STEADY_STATE_METHOD: MethodInfo = {
     'Charge-balance analysis of the Greinacher/Cockcroft-Walton cascade as in Kuffel, Zaengl & Kuffel, High Voltage Engineering Fundamentals, 2nd ed., §2.2.2 (from memory), solved exactly for any capacitor values; Shockley diode equation',
 };
 
-function checkInput(input: LadderInput): void {
+/** The checks of a ladder input's drive, diode and bleeder that every preparation makes (the capacitors are the network's). */
+export function checkLadderInput(input: LadderInput): void {
   const drive = input.drive;
   if (!(drive.frequencyHz > 0))
     throw new DomainError('invalid_argument', 'drive frequency must be positive', 'drive.frequencyHz');
@@ -47,7 +48,7 @@ export interface PreparedLadder {
 }
 
 export function prepareLadder(input: LadderInput): PreparedLadder {
-  checkInput(input);
+  checkLadderInput(input);
   const net = buildLadderNetwork(input.topology, input.capacitorsF);
   return { input, workspace: createWorkspace(net, input) };
 }
@@ -60,10 +61,27 @@ export function withDiode(prepared: PreparedLadder, diode: LadderInput['diode'])
 
 /** Mean load-terminal output (unsigned) at an extra external load current, for the curves. */
 export function terminalMeanAt(prepared: PreparedLadder, extraLoadA: number): number {
+  return terminalMeanNear(prepared, extraLoadA, null).outputV;
+}
+
+/**
+ * `terminalMeanAt` with the operating-point solve started from a nearby one (`warm`, see solveOperatingPoint),
+ * giving this one's current and slope to start the next.
+ */
+export function terminalMeanNear(
+  prepared: PreparedLadder,
+  extraLoadA: number,
+  warm: CurrentWarmStart | null,
+): { outputV: number; near: CurrentWarmStart } {
   const { conductanceS, constantA, seriesOhm } = outputLoad(prepared.input);
-  const { currentA, cycle } = solveOperatingPoint(prepared.workspace, conductanceS, constantA + extraLoadA);
+  const { currentA, cycle, slope } = solveOperatingPoint(
+    prepared.workspace,
+    conductanceS,
+    constantA + extraLoadA,
+    warm,
+  );
   const bleederA = prepared.input.bleederOhm ? Math.max(cycle.meanV, 0) / prepared.input.bleederOhm : 0;
-  return cycle.meanV - (currentA - bleederA) * seriesOhm;
+  return { outputV: cycle.meanV - (currentA - bleederA) * seriesOhm, near: { currentA, slope } };
 }
 
 /**

@@ -197,12 +197,15 @@ function cubeRootOfSquare(x: number): number {
   return Math.cbrt(x * x);
 }
 
-/** Per-event source loss and diode drop at a ladder current, from conduction time and charge. */
-function eventLosses(
-  ws: Workspace,
-  currentA: number,
-  event: 0 | 1,
-): { lossScale: number; forwardDropV: number; conductionCurrentA: number } {
+/** One event's source loss (as the share of the peak left) and diode drop at a ladder current. */
+interface EventLoss {
+  lossScale: number;
+  forwardDropV: number;
+  conductionCurrentA: number;
+}
+
+/** Per-event source loss and diode drop at a ladder current, from conduction time and charge (into `out`, no allocation). */
+function eventLosses(ws: Workspace, currentA: number, event: 0 | 1, out: EventLoss): EventLoss {
   const t = ws.timing;
   const q = currentA * t.periodS;
   const isH = event === H;
@@ -233,8 +236,14 @@ function eventLosses(
   const forwardDropV =
     d.emissionCoefficient * ws.thermalV * Math.log1p(conductionCurrentA / d.saturationCurrentA) +
     conductionCurrentA * d.seriesResistanceOhm;
-  return { lossScale: peakV > 0 ? (peakV - lossV) / peakV : 0, forwardDropV, conductionCurrentA };
+  out.lossScale = peakV > 0 ? (peakV - lossV) / peakV : 0;
+  out.forwardDropV = forwardDropV;
+  out.conductionCurrentA = conductionCurrentA;
+  return out;
 }
+
+const lossAtH: EventLoss = { lossScale: 0, forwardDropV: 0, conductionCurrentA: 0 };
+const lossAtL: EventLoss = { lossScale: 0, forwardDropV: 0, conductionCurrentA: 0 };
 
 export interface SolvedCycle {
   /** Ladder-top output just after H, and just after L. */
@@ -252,8 +261,8 @@ export interface SolvedCycle {
 /** One steady-state solve at ladder current `currentA` (fills ws.stateA/stateB and the node voltages). */
 export function solveCycle(ws: Workspace, currentA: number): SolvedCycle {
   const { net, timing } = ws;
-  const lossH = eventLosses(ws, currentA, 0);
-  const lossL = eventLosses(ws, currentA, 1);
+  const lossH = eventLosses(ws, currentA, 0, lossAtH);
+  const lossL = eventLosses(ws, currentA, 1, lossAtL);
   const q = currentA * timing.periodS;
   const anchors = net.anchorScale.length;
   for (let a = 0; a < anchors; a += 1) {
@@ -332,32 +341,50 @@ export function outputLoad(input: LadderInput): { conductanceS: number; constant
   };
 }
 
+/** A nearby operating point's ladder current (A) and the residual's slope there (dimensionless), to start the next. */
+export interface CurrentWarmStart {
+  currentA: number;
+  slope: number;
+}
+
 /**
  * Solves the operating point: the ladder current is the constant load plus what the resistive part of
- * the output network draws at the mean ladder-top voltage. Secant iteration on the current.
+ * the output network draws at the mean ladder-top voltage. Secant iteration on the current; `warm`, a nearby
+ * solve's current and slope, starts it there with a Newton step (the same answer to the 1e-10 tolerance).
  */
 export function solveOperatingPoint(
   ws: Workspace,
   conductanceS: number,
   constantA: number,
-): { currentA: number; cycle: SolvedCycle } {
-  let currentA = constantA;
+  warm?: CurrentWarmStart | null,
+): { currentA: number; cycle: SolvedCycle; slope: number } {
+  const isWarm = warm !== undefined && warm !== null && warm.currentA >= 0 && warm.slope > 0 && conductanceS > 0;
+  let currentA = isWarm ? warm.currentA : constantA;
   let cycle = solveCycle(ws, currentA);
-  if (conductanceS === 0) return { currentA, cycle };
+  if (conductanceS === 0) return { currentA, cycle, slope: 1 };
   let previousI = currentA;
-  let previousResidual = currentA - constantA - conductanceS * cycle.meanV;
-  currentA = constantA + conductanceS * Math.max(cycle.meanV, 0);
+  let previousResidual = isWarm
+    ? currentA - constantA - conductanceS * Math.max(cycle.meanV, 0)
+    : currentA - constantA - conductanceS * cycle.meanV;
+  if (isWarm && Math.abs(previousResidual) <= 1e-10 * Math.max(currentA, 1e-15)) {
+    return { currentA, cycle, slope: warm.slope };
+  }
+  currentA = isWarm
+    ? Math.max(0, currentA - previousResidual / warm.slope)
+    : constantA + conductanceS * Math.max(cycle.meanV, 0);
+  let slope = isWarm ? warm.slope : NaN;
   // The mean output is nearly affine in the current, so the secant step converges in two or three steps.
   for (let iteration = 0; iteration < 12; iteration += 1) {
     cycle = solveCycle(ws, currentA);
     const residual = currentA - constantA - conductanceS * Math.max(cycle.meanV, 0);
+    if (currentA !== previousI) slope = (residual - previousResidual) / (currentA - previousI);
     if (Math.abs(residual) <= 1e-10 * Math.max(currentA, 1e-15) || residual === previousResidual) {
-      return { currentA, cycle };
+      return { currentA, cycle, slope };
     }
     const next = currentA - (residual * (currentA - previousI)) / (residual - previousResidual);
     previousI = currentA;
     previousResidual = residual;
     currentA = Math.max(0, next);
   }
-  return { currentA, cycle: solveCycle(ws, currentA) };
+  return { currentA, cycle: solveCycle(ws, currentA), slope };
 }

@@ -119,3 +119,42 @@ describe('resizeCapacitors on a one-cell half-wave ladder', () => {
     expect(Math.abs(curves.optimumStages - 13.7)).toBeLessThanOrEqual(1);
   });
 });
+
+describe('ladderCurves stage scan kept between calls', () => {
+  it('scans a ladder edited in all but its capacitors as freshly prepared networks do', () => {
+    // A pulse drive: the kept networks carry flat-top rates too. The second call changes drive, diode, load and bleeder.
+    const pulse: LadderInput = {
+      ...cascade,
+      capacitorsF: [2.2e-9, 3.3e-9, 2.2e-9, 3.3e-9],
+      drive: {
+        kind: 'pulse',
+        forwardPeakV: 200,
+        flybackPeakV: 1500,
+        frequencyHz: 3e4,
+        dutyCycle: 0.8,
+        sourceResistanceOhm: 60,
+      },
+      load: { kind: 'current', currentA: 2e-6 },
+    };
+    ladderCurves(pulse);
+    const edited: LadderInput = {
+      ...pulse,
+      drive: {
+        kind: 'pulse',
+        forwardPeakV: 180,
+        flybackPeakV: 1400,
+        frequencyHz: 2.5e4,
+        dutyCycle: 0.7,
+        sourceResistanceOhm: 80,
+      },
+      diode: { saturationCurrentA: 2e-9, emissionCoefficient: 8, seriesResistanceOhm: 40 },
+      load: { kind: 'current', currentA: 5e-6 },
+      bleederOhm: 4e8,
+    };
+    const scan = ladderCurves(edited).outputVsStages;
+    expect(scan.length).toBeGreaterThan(5);
+    for (const { x, y } of scan) {
+      expect(y).toBe(terminalMeanAt(prepareLadder({ ...edited, capacitorsF: resizeCapacitors(edited, x) }), 0));
+    }
+  });
+});

@@ -1,4 +1,5 @@
-import { prepareLadder, terminalMeanAt, type PreparedLadder } from './analyze-ladder';
+import { checkLadderInput, prepareLadder, terminalMeanAt, type PreparedLadder } from './analyze-ladder';
+import { driveTiming } from './charge-transfer-model';
 import { bracketedRoot } from './bracketed-root';
 import type { CurvePoint, LadderCurves, LadderInput } from './ladder.types';
 import type { MethodInfo } from '../methods';
@@ -54,6 +55,52 @@ function shortCircuitCurrentOf(prepared: PreparedLadder): number {
 }
 
 /**
+ * The stage scan's networks of the last few ladders scanned, per stage count: a Workbench edit of anything but
+ * the capacitors, topology, strays, temperature, polarity or drive kind scans the same networks again, so
+ * their workspaces (structure, charge and stray deltas, flat-top rates) are kept and only the drive timing and
+ * the diode (all a workspace takes from the rest of the input) are set anew.
+ */
+interface ScanNetworks {
+  key: string;
+  capacitorsF: readonly number[];
+  byStages: Map<number, PreparedLadder>;
+}
+
+const SCAN_MEMORY = 8;
+const scans: ScanNetworks[] = [];
+
+function scanNetworksOf(input: LadderInput): ScanNetworks {
+  const key = `${input.topology}:${input.drive.kind}:${input.polarity}:${input.strayCapacitanceF ?? 0}:${input.temperatureK ?? 300}`;
+  const caps = input.capacitorsF;
+  const found = scans.findIndex(
+    (scan) =>
+      scan.key === key && scan.capacitorsF.length === caps.length && scan.capacitorsF.every((f, i) => f === caps[i]),
+  );
+  const scan =
+    found >= 0 ? (scans.splice(found, 1)[0] as ScanNetworks) : { key, capacitorsF: [...caps], byStages: new Map() };
+  scans.unshift(scan);
+  if (scans.length > SCAN_MEMORY) scans.pop();
+  return scan;
+}
+
+/** The ladder of `stages` stages of the scan, at the input's drive, diode and load. */
+function scanLadder(scan: ScanNetworks, input: LadderInput, stages: number): PreparedLadder {
+  const known = scan.byStages.get(stages);
+  if (!known) {
+    const prepared = prepareLadder({ ...input, capacitorsF: resizeCapacitors(input, stages) });
+    scan.byStages.set(stages, prepared);
+    return prepared;
+  }
+  // The same checks of the drive and diode as a fresh preparation makes.
+  checkLadderInput(input);
+  const redriven = { ...input, capacitorsF: known.input.capacitorsF };
+  known.workspace.timing = driveTiming(redriven.drive, redriven.polarity);
+  known.workspace.diode = redriven.diode;
+  known.input = redriven;
+  return known;
+}
+
+/**
  * Output vs stage count at the design load: a walk over stage counts (every count to 10, then STAGE_RATIO
  * apart) until the output falls, an integer bracket search for the maximum between the last counts, then the
  * walk again until the output is PAST_OPTIMUM_FRACTION of its maximum.
@@ -63,10 +110,11 @@ function outputVsStagesOf(
   minStages: number,
 ): Pick<LadderCurves, 'outputVsStages' | 'optimumStages' | 'optimumOutputV'> {
   const outputs = new Map<number, number>();
+  const scan = scanNetworksOf(input);
   const outputAt = (stages: number): number => {
     let v = outputs.get(stages);
     if (v === undefined) {
-      v = terminalMeanAt(prepareLadder({ ...input, capacitorsF: resizeCapacitors(input, stages) }), 0);
+      v = terminalMeanAt(scanLadder(scan, input, stages), 0);
       outputs.set(stages, v);
     }
     return v;

@@ -23,6 +23,35 @@ export interface TerminalFigures {
   maxV: number;
 }
 
+/** Cycle mean of a node: its capacitor sum's mean plus its winding end's (zero for a sine, the time-weighted flat tops for a pulse). */
+function meanOf(
+  timing: Workspace['timing'],
+  anchorA: number,
+  anchorB: number,
+  sumA: number,
+  sumB: number,
+  fallH: number,
+  fallL: number,
+): number {
+  const sumMean = (timing.afterHS * (sumA + fallH / 2) + timing.afterLS * (sumB + fallL / 2)) / timing.periodS;
+  const anchorMean = timing.isSine ? 0 : (timing.afterHS * anchorA + timing.afterLS * anchorB) / timing.periodS;
+  return sumMean + anchorMean;
+}
+
+/** A node's parts at the solved state: winding end after H and after L, capacitor sums, and load falls (one scratch object). */
+const parts = { anchorA: 0, anchorB: 0, sumA: 0, sumB: 0, fallH: 0, fallL: 0 };
+
+function nodeParts(ws: Workspace, n: number, fallHS: number, fallLS: number): typeof parts {
+  const root = ws.net.nodeRoot[n] as number;
+  parts.anchorA = ws.nodeA[root] as number;
+  parts.anchorB = ws.nodeB[root] as number;
+  parts.sumA = (ws.nodeA[n] as number) - parts.anchorA;
+  parts.sumB = (ws.nodeB[n] as number) - parts.anchorB;
+  parts.fallH = fallHS * (ws.nodeRateH[n] as number);
+  parts.fallL = fallLS * (ws.nodeRateL[n] as number);
+  return parts;
+}
+
 /**
  * Voltage of every ladder node to ground over the steady-state cycle (V, signed by polarity), from the
  * workspace state the operating-point solve left (call before any other solve). Method: NODE_VOLTAGE_METHOD.
@@ -35,59 +64,42 @@ export function ladderNodeVoltages(
 ): LadderNodeVoltage[] {
   const { net, timing } = ws;
   // The four instants of the cycle, per node, relative to the return node; no array or object per instant.
-  const { nodeA, nodeB, nodeRateH, nodeRateL } = ws;
   const fallHS = currentA * timing.afterHS;
   const fallLS = currentA * timing.afterLS;
   const ret = net.returnNode;
-  const retRoot = net.nodeRoot[ret] as number;
-  const retAnchorA = nodeA[retRoot] as number;
-  const retAnchorB = nodeB[retRoot] as number;
-  const retSumA = (nodeA[ret] as number) - retAnchorA;
-  const retSumB = (nodeB[ret] as number) - retAnchorB;
-  const retFallH = fallHS * (nodeRateH[ret] as number);
-  const retFallL = fallLS * (nodeRateL[ret] as number);
-  const meanOf = (anchorA: number, anchorB: number, sumA: number, sumB: number, fallH: number, fallL: number) => {
-    const sumMean = (timing.afterHS * (sumA + fallH / 2) + timing.afterLS * (sumB + fallL / 2)) / timing.periodS;
-    const anchorMean = timing.isSine ? 0 : (timing.afterHS * anchorA + timing.afterLS * anchorB) / timing.periodS;
-    return sumMean + anchorMean;
-  };
-  const groundMeanV = meanOf(retAnchorA, retAnchorB, retSumA, retSumB, retFallH, retFallL);
+  const r = nodeParts(ws, ret, fallHS, fallLS);
+  const groundMeanV = meanOf(timing, r.anchorA, r.anchorB, r.sumA, r.sumB, r.fallH, r.fallL);
   // A sine winding end moves to the opposite extreme between transfers; a flat top holds until its edge.
-  const retAfterH = retSumA + retAnchorA;
-  const retBeforeL = retSumA + retFallH + (timing.isSine ? retAnchorB : retAnchorA);
-  const retAfterL = retSumB + retAnchorB;
-  const retBeforeH = retSumB + retFallL + (timing.isSine ? retAnchorA : retAnchorB);
+  const retAfterH = r.sumA + r.anchorA;
+  const retBeforeL = r.sumA + r.fallH + (timing.isSine ? r.anchorB : r.anchorA);
+  const retAfterL = r.sumB + r.anchorB;
+  const retBeforeH = r.sumB + r.fallL + (timing.isSine ? r.anchorA : r.anchorB);
   const nodes: LadderNodeVoltage[] = [];
-  for (let n = 0; n < net.nodeCount; n += 1) {
-    if (n === ret) continue;
-    const info = net.nodeInfo[n];
-    if (!info) continue;
-    const root = net.nodeRoot[n] as number;
-    const anchorA = nodeA[root] as number;
-    const anchorB = nodeB[root] as number;
-    const sumA = (nodeA[n] as number) - anchorA;
-    const sumB = (nodeB[n] as number) - anchorB;
-    const fallH = fallHS * (nodeRateH[n] as number);
-    const fallL = fallLS * (nodeRateL[n] as number);
-    const v0 = sumA + anchorA - retAfterH;
-    const v1 = sumA + fallH + (timing.isSine ? anchorB : anchorA) - retBeforeL;
-    const v2 = sumB + anchorB - retAfterL;
-    const v3 = sumB + fallL + (timing.isSine ? anchorA : anchorB) - retBeforeH;
-    const low = Math.min(v0, v1, v2, v3);
-    const high = Math.max(v0, v1, v2, v3);
-    nodes.push({
-      id: info.id,
-      label: info.label,
-      column: info.column,
-      stage: info.stage,
-      capacitorIndex: info.capacitorIndex,
-      meanV: polarity * (meanOf(anchorA, anchorB, sumA, sumB, fallH, fallL) - groundMeanV),
-      minV: polarity > 0 ? low : -high,
-      maxV: polarity > 0 ? high : -low,
-    });
+  // Winding ends first, then the ladder from the bottom up (node order within each); the load terminal last.
+  for (let pass = 0; pass < 2; pass += 1) {
+    for (let n = 0; n < net.nodeCount; n += 1) {
+      if (n === ret) continue;
+      const info = net.nodeInfo[n];
+      if (!info || (info.column === 'source') !== (pass === 0)) continue;
+      const { anchorA, anchorB, sumA, sumB, fallH, fallL } = nodeParts(ws, n, fallHS, fallLS);
+      const v0 = sumA + anchorA - retAfterH;
+      const v1 = sumA + fallH + (timing.isSine ? anchorB : anchorA) - retBeforeL;
+      const v2 = sumB + anchorB - retAfterL;
+      const v3 = sumB + fallL + (timing.isSine ? anchorA : anchorB) - retBeforeH;
+      const low = Math.min(v0, v1, v2, v3);
+      const high = Math.max(v0, v1, v2, v3);
+      nodes.push({
+        id: info.id,
+        label: info.label,
+        column: info.column,
+        stage: info.stage,
+        capacitorIndex: info.capacitorIndex,
+        meanV: polarity * (meanOf(timing, anchorA, anchorB, sumA, sumB, fallH, fallL) - groundMeanV),
+        minV: polarity > 0 ? low : -high,
+        maxV: polarity > 0 ? high : -low,
+      });
+    }
   }
-  // Winding ends first, then the ladder from the bottom up; the load terminal last.
-  nodes.sort((x, y) => Number(x.column !== 'source') - Number(y.column !== 'source'));
   nodes.push({
     id: 'out',
     label: 'load terminal',

@@ -9,6 +9,8 @@ export interface ShockleyDiode {
   saturationCurrentA: number;
   emissionCoefficient: number;
   seriesResistanceOhm: number;
+  /** Zero-bias junction capacitance (F), SPICE CJO: not in the steady-state model, but in the driver's ring-back. */
+  junctionCapacitanceF?: number;
 }
 
 /**

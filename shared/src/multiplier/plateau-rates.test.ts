@@ -124,4 +124,38 @@ describe('flatTopRates', () => {
     expect(again).not.toBe(first);
     expect(again?.h.capRate).not.toEqual(first?.h.capRate);
   });
+
+  it('answers a ladder of the same capacitor ratios from memory, scaled, as a fresh solve would', () => {
+    // Rates are per ampere of load and inversely proportional to a common capacitor scale (C·dV/dt = I).
+    for (const [topology, caps] of [
+      ['half-wave', [4.7e-9, 4.7e-9, 4.7e-9, 4.7e-9]],
+      ['half-wave', capsF],
+      ['full-wave', capsF],
+      ['half-wave', Array<number>(12).fill(2.2e-9)],
+    ] as const) {
+      const net = buildLadderNetwork(topology, caps);
+      flatTopRates(net, createWorkspace(net, input).loadRate);
+      for (const factor of [1 + 3e-9, 0.37, 2.9]) {
+        const edited = buildLadderNetwork(
+          topology,
+          caps.map((f) => f * factor),
+        );
+        const loadRate = createWorkspace(edited, input).loadRate;
+        const remembered = flatTopRates(edited, loadRate);
+        const l = plateauRates(edited, loadRate, 1);
+        const h = l ? plateauRates(edited, loadRate, 0) : null;
+        expect(remembered === null).toBe(h === null);
+        if (!remembered || !h || !l) continue;
+        for (const [got, fresh] of [
+          [remembered.h, h],
+          [remembered.l, l],
+        ] as const) {
+          for (const key of ['capRate', 'nodeRate', 'diodeCapDelta'] as const) {
+            const largest = Math.max(...fresh[key].map(Math.abs));
+            got[key].forEach((v, i) => expect(Math.abs(v - fresh[key][i]!)).toBeLessThanOrEqual(1e-12 * largest));
+          }
+        }
+      }
+    }
+  });
 });

@@ -51,7 +51,7 @@ export function plateauRates(net: LadderNetwork, loadRate: readonly number[], ev
         capRate[c] = scratch.capRate[c] as number;
         diodeCapDelta[c] = (scratch.capRate[c] as number) - (loadRate[c] as number);
       }
-      return { capRate, nodeRate: Array.from(scratch.nodeRate), diodeCapDelta };
+      return { capRate, nodeRate: Array.from(scratch.nodeRate.subarray(0, net.nodeCount)), diodeCapDelta };
     }
     conducting[worst] = 0;
     active -= 1;
@@ -67,36 +67,66 @@ export interface FlatTopRates {
 
 /** Networks remembered by `flatTopRates`: a stage scan visits a few dozen, and a Workbench edit of anything but the capacitors repeats them. */
 const FLAT_TOP_CACHE_SIZE = 256;
-const flatTopCache = new Map<string, { capF: Float64Array; rates: FlatTopRates | null }>();
 
-/** A key for a topology and its capacitor values: FNV-1a over the values' bits (equality is checked on a hit). */
-function networkKey(net: LadderNetwork, capF: Float64Array): string {
-  const words = new Uint32Array(capF.buffer);
+/** A remembered network: its capacitor values over the first one, that first value (F), and its rates. */
+interface CachedRates {
+  ratios: Float64Array;
+  scaleF: number;
+  rates: FlatTopRates | null;
+}
+
+const flatTopCache = new Map<string, CachedRates>();
+
+/** A key for a topology and its capacitor ratios: FNV-1a over the values' bits (equality is checked on a hit). */
+function networkKey(net: LadderNetwork, ratios: Float64Array): string {
+  const words = new Uint32Array(ratios.buffer);
   let hash = 0x811c9dc5;
   for (let i = 0; i < words.length; i += 1) hash = Math.imul(hash ^ (words[i] as number), 0x01000193);
-  return `${net.topology}:${capF.length}:${hash >>> 0}`;
+  return `${net.topology}:${ratios.length}:${hash >>> 0}`;
+}
+
+function scaled(values: readonly number[], factor: number): number[] {
+  const out = new Array<number>(values.length);
+  for (let i = 0; i < values.length; i += 1) out[i] = (values[i] as number) * factor;
+  return out;
+}
+
+function scaledPhase(rates: PlateauRates, factor: number): PlateauRates {
+  return {
+    capRate: scaled(rates.capRate, factor),
+    nodeRate: scaled(rates.nodeRate, factor),
+    diodeCapDelta: scaled(rates.diodeCapDelta, factor),
+  };
 }
 
 /**
  * `plateauRates` of the H and L phases together, as the charge-transfer model takes them: both or none.
  * The L phase first, since without its rates the H phase's are not used. The rates depend only on the
  * topology and the capacitor values (per ampere of load), so the last FLAT_TOP_CACHE_SIZE networks are
- * remembered; the arrays returned are shared and must not be written.
+ * remembered. They are free of scale: with every capacitor k times larger every rate is k times smaller and
+ * every diode current (per ampere) the same, so the same active set drops out; a network is remembered by
+ * its capacitors over the first one, and a ladder of the same ratios (a uniform ladder edited to another
+ * value) takes the remembered rates scaled. The arrays returned are shared and must not be written.
  */
 export function flatTopRates(net: LadderNetwork, loadRate: readonly number[]): FlatTopRates | null {
-  const capF = Float64Array.from(net.capF);
-  const key = networkKey(net, capF);
+  const m = net.capF.length;
+  const scaleF = net.capF[0] as number;
+  const ratios = new Float64Array(m);
+  for (let c = 0; c < m; c += 1) ratios[c] = (net.capF[c] as number) / scaleF;
+  const key = networkKey(net, ratios);
   const cached = flatTopCache.get(key);
-  if (cached && cached.capF.length === capF.length && cached.capF.every((f, c) => f === capF[c])) {
+  if (cached && cached.ratios.length === m && cached.ratios.every((r, c) => r === ratios[c])) {
     flatTopCache.delete(key);
     flatTopCache.set(key, cached);
-    return cached.rates;
+    if (!cached.rates || cached.scaleF === scaleF) return cached.rates;
+    const factor = cached.scaleF / scaleF;
+    return { h: scaledPhase(cached.rates.h, factor), l: scaledPhase(cached.rates.l, factor) };
   }
   const l = plateauRates(net, loadRate, EVENT_L);
   const h = l ? plateauRates(net, loadRate, EVENT_H) : null;
   const rates = h && l ? { h, l } : null;
   flatTopCache.delete(key);
-  flatTopCache.set(key, { capF, rates });
+  flatTopCache.set(key, { ratios, scaleF, rates });
   if (flatTopCache.size > FLAT_TOP_CACHE_SIZE) flatTopCache.delete(flatTopCache.keys().next().value as string);
   return rates;
 }
@@ -120,10 +150,22 @@ interface Scratch {
   queue: Int32Array;
 }
 
+/** The work arrays of the largest network solved yet, reused by smaller ones (every entry is written before it is read). */
+let lastScratch: Scratch | null = null;
+
 function createScratch(net: LadderNetwork): Scratch {
   const nodes = net.nodeCount;
   const diodes = net.diodeEvent.length;
-  return {
+  const m = net.capF.length;
+  if (
+    lastScratch &&
+    lastScratch.parent.length >= nodes &&
+    lastScratch.current.length >= diodes &&
+    lastScratch.capRate.length >= m
+  ) {
+    return lastScratch;
+  }
+  lastScratch = {
     parent: new Int32Array(nodes),
     index: new Int32Array(nodes),
     groupOf: new Int32Array(nodes),
@@ -140,6 +182,7 @@ function createScratch(net: LadderNetwork): Scratch {
     known: new Uint8Array(diodes),
     queue: new Int32Array(nodes),
   };
+  return lastScratch;
 }
 
 function find(parent: Int32Array, n: number): number {

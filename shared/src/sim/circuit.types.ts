@@ -36,16 +36,43 @@ export interface DiodeModel {
   transitTimeS?: number;
 }
 
+/**
+ * An NPN transistor: the Gummel–Poon model of SPICE reduced to the parameters named here (no high-level
+ * injection, no base-width modulation in reverse, no substrate). Each optional field is absent or zero for
+ * SPICE's own default (no capacitance, no transit time, no resistance, no Early effect); the SPICE name of
+ * each is in its comment.
+ */
 export interface NpnModel {
+  /** IS */
   saturationCurrentA: number;
+  /** BF */
   forwardBeta: number;
+  /** BR */
   reverseBeta: number;
+  /** CJE: zero-bias base-emitter depletion capacitance. */
   baseEmitterCapacitanceF?: number;
+  /** CJC: zero-bias base-collector depletion capacitance. */
   baseCollectorCapacitanceF?: number;
-  /** Junction potential for both junctions; default 0.75 V. */
-  junctionPotentialV?: number;
-  /** Grading coefficient for both junctions; default 0.33. */
-  gradingCoefficient?: number;
+  /** VJE; default 0.75 V. */
+  baseEmitterPotentialV?: number;
+  /** MJE; default 0.33. */
+  baseEmitterGrading?: number;
+  /** VJC; default 0.75 V. */
+  baseCollectorPotentialV?: number;
+  /** MJC; default 0.33. */
+  baseCollectorGrading?: number;
+  /** VAF: forward Early voltage; absent for none (infinite). */
+  earlyVoltageV?: number;
+  /** TF: forward transit time. */
+  forwardTransitTimeS?: number;
+  /** TR: reverse transit time. */
+  reverseTransitTimeS?: number;
+  /** RB: base resistance (constant, RBM = RB). */
+  baseResistanceOhm?: number;
+  /** RC: collector resistance. */
+  collectorResistanceOhm?: number;
+  /** RE: emitter resistance. */
+  emitterResistanceOhm?: number;
 }
 
 export interface Winding {

@@ -1,5 +1,6 @@
 import type { Circuit, CircuitElement } from './circuit.types';
-import { evaluateNpn, type NpnOperatingPoint } from './devices/bjt';
+import { emptyNpnOperatingPoint, evaluateNpn } from './devices/bjt';
+import { npnInternalNodeName } from './devices/npn-instance';
 import { inductanceMatrix } from './devices/coupled-inductors';
 import { coreCorrectionEnergyJ } from './devices/saturable-core';
 import { evaluateDiode, seriesDiodeCurrentA, type DiodeOperatingPoint } from './devices/diode';
@@ -34,14 +35,7 @@ export class EnergyMeter {
   private lastTimeS = NaN;
   private storedAtStartJ = NaN;
   private readonly diodeOut: DiodeOperatingPoint = { currentA: 0, conductanceS: 0 };
-  private readonly npnOut: NpnOperatingPoint = {
-    collectorA: 0,
-    baseA: 0,
-    dCollectorDVbe: 0,
-    dCollectorDVbc: 0,
-    dBaseDVbe: 0,
-    dBaseDVbc: 0,
-  };
+  private readonly npnOut = emptyNpnOperatingPoint();
   private readonly inductances = new Map<string, Float64Array>();
 
   constructor(circuit: Circuit, system: MnaSystem) {
@@ -124,10 +118,15 @@ export class EnergyMeter {
           break;
         }
         case 'npn': {
-          const vb = this.v(e.base);
+          // Junction currents at the internal nodes; power at the terminals, so the terminal resistances'
+          // i²R counts as the transistor's.
+          const [c, b, em] = [e.collector, e.base, e.emitter].map((terminal, k) => {
+            const internal = this.system.internalIndex.get(npnInternalNodeName(e.name, k));
+            return internal === undefined ? this.v(terminal) : this.system.x[internal]!;
+          });
+          evaluateNpn(e.model, b! - em!, b! - c!, this.npnOut);
           const ve = this.v(e.emitter);
-          evaluateNpn(e.model, vb - ve, vb - this.v(e.collector), this.npnOut);
-          p = this.npnOut.collectorA * (this.v(e.collector) - ve) + this.npnOut.baseA * (vb - ve);
+          p = this.npnOut.collectorA * (this.v(e.collector) - ve) + this.npnOut.baseA * (this.v(e.base) - ve);
           break;
         }
         case 'capacitor':

@@ -1,12 +1,12 @@
 import { DomainError } from '../errors';
 import type { Circuit } from './circuit.types';
 import { GROUND_NODE } from './circuit.types';
-import type { NpnOperatingPoint } from './devices/bjt';
+import { emptyNpnOperatingPoint } from './devices/bjt';
 import type { DiodeOperatingPoint } from './devices/diode';
 import { DiodeInstance, hasInternalNode, isFolded } from './devices/diode-instance';
 import { FoldedDiodes, type FoldedDiodeSpec } from './devices/folded-diodes';
 import type { AddReactive } from './devices/junction-stamp';
-import { NpnInstance } from './devices/npn-instance';
+import { NpnInstance, npnTerminalResistancesOhm } from './devices/npn-instance';
 import { SaturableCoreInstance } from './devices/saturable-core';
 import {
   addConductance,
@@ -73,14 +73,7 @@ export class MnaSystem {
   private readonly npns: NpnInstance[] = [];
   private readonly cores: SaturableCoreInstance[] = [];
   private readonly diodeOut: DiodeOperatingPoint = { currentA: 0, conductanceS: 0 };
-  private readonly npnOut: NpnOperatingPoint = {
-    collectorA: 0,
-    baseA: 0,
-    dCollectorDVbe: 0,
-    dCollectorDVbc: 0,
-    dBaseDVbe: 0,
-    dBaseDVbc: 0,
-  };
+  private readonly npnOut = emptyNpnOperatingPoint();
   private readonly chargeOut = { chargeC: 0, capacitanceF: 0 };
   /** Extra conductance from every node to ground, used by gmin stepping. */
   shuntConductanceS = 0;
@@ -145,16 +138,19 @@ export class MnaSystem {
             );
           break;
         }
-        case 'npn':
-          positiveValue(e.model.saturationCurrentA, `${path}.model.saturationCurrentA`);
-          positiveValue(e.model.forwardBeta, `${path}.model.forwardBeta`);
-          positiveValue(e.model.reverseBeta, `${path}.model.reverseBeta`);
-          deferred.push(() =>
-            this.npns.push(
-              new NpnInstance(e.name, e.model, nodeAt(e.collector), nodeAt(e.base), nodeAt(e.emitter), lu, addReactive),
-            ),
-          );
+        case 'npn': {
+          for (const key of ['saturationCurrentA', 'forwardBeta', 'reverseBeta'] as const)
+            positiveValue(e.model[key], `${path}.model.${key}`);
+          // Terminal resistances from each terminal to the device's internal node behind it.
+          const inner = ordering.npnTerminalsAt(e);
+          const outer = [e.collector, e.base, e.emitter].map(nodeAt);
+          npnTerminalResistancesOhm(e.model).forEach((r, k) => {
+            if (r > 0) addConductance(lu, g, outer[k]!, inner[k]!, 1 / r);
+          });
+          const [c, b, em] = inner;
+          deferred.push(() => this.npns.push(new NpnInstance(e.name, e.model, c, b, em, lu, addReactive)));
           break;
+        }
         case 'coupled-inductors': {
           stampLinearElement(e, path, ordering, targets);
           const core = e.core;

@@ -36,6 +36,11 @@ export function solveNewton(
       }
       return iteration;
     }
+    // A junction's or core's charge is evaluated where the iteration linearized it, so a solve accepted at
+    // the first iteration would leave those charges at the predictor, off by up to the node tolerance; the
+    // truncation-error test then reads that scatter as a fast change and collapses the step (a ladder at
+    // ~10 kV on a 12 V oscillator). SPICE3 never accepts the first iteration (niiter.c), nor do we here.
+    if (iteration === 1 && system.hasNonlinearCharges) converged = false;
     isVoltage ??= nodeMask(system);
     for (let i = 0; i < n; i++) {
       const xn = next[i]!;

@@ -35,30 +35,96 @@ function waveformText(w: SourceWaveform): string {
   }
 }
 
-function diodeModelText(name: string, m: DiodeModel): string {
-  const n = spiceNumber;
-  const parts = [`IS=${n(m.saturationCurrentA)}`, `N=${n(m.emissionCoefficient)}`, `RS=${n(m.seriesResistanceOhm)}`];
-  if (m.breakdownVoltageV !== undefined)
-    parts.push(`BV=${n(m.breakdownVoltageV)}`, `IBV=${n(m.breakdownCurrentA ?? 1e-3)}`);
-  if (m.junctionCapacitanceF) {
-    parts.push(
-      `CJO=${n(m.junctionCapacitanceF)}`,
-      `VJ=${n(m.junctionPotentialV ?? 1)}`,
-      `M=${n(m.gradingCoefficient ?? 0.5)}`,
-    );
+/** The SPICE .model parameter of each DiodeModel field (Berkeley SPICE D model). */
+export const DIODE_SPICE_PARAMETERS = {
+  saturationCurrentA: 'IS',
+  emissionCoefficient: 'N',
+  seriesResistanceOhm: 'RS',
+  breakdownVoltageV: 'BV',
+  breakdownCurrentA: 'IBV',
+  junctionCapacitanceF: 'CJO',
+  junctionPotentialV: 'VJ',
+  gradingCoefficient: 'M',
+  transitTimeS: 'TT',
+} as const satisfies Record<keyof DiodeModel, string>;
+
+/** The SPICE .model parameter of each NpnModel field (Berkeley SPICE Gummel–Poon NPN model). */
+export const NPN_SPICE_PARAMETERS = {
+  saturationCurrentA: 'IS',
+  forwardBeta: 'BF',
+  reverseBeta: 'BR',
+  baseEmitterCapacitanceF: 'CJE',
+  baseEmitterPotentialV: 'VJE',
+  baseEmitterGrading: 'MJE',
+  baseCollectorCapacitanceF: 'CJC',
+  baseCollectorPotentialV: 'VJC',
+  baseCollectorGrading: 'MJC',
+  earlyVoltageV: 'VAF',
+  forwardTransitTimeS: 'TF',
+  reverseTransitTimeS: 'TR',
+  baseResistanceOhm: 'RB',
+  collectorResistanceOhm: 'RC',
+  emitterResistanceOhm: 'RE',
+} as const satisfies Record<keyof NpnModel, string>;
+
+/** Parameters every .model card states, even at zero (RS = 0); any other is left out at zero, SPICE's default. */
+const REQUIRED_PARAMETERS = new Set(['IS', 'N', 'RS', 'BF', 'BR']);
+
+/**
+ * Parameters of a .model card: every field the model gives, under its SPICE name, in the table's order, and
+ * the fields a present one needs (`companions`: VJ and M beside CJO, IBV beside BV) at their defaults.
+ */
+function modelParameters<M extends object>(
+  m: M,
+  names: Record<keyof M, string>,
+  companions: ReadonlyArray<{ when: keyof M; then: ReadonlyArray<[keyof M, number]> }>,
+): string {
+  const value = (key: keyof M): number | undefined => {
+    const v = m[key];
+    return typeof v === 'number' && (v !== 0 || REQUIRED_PARAMETERS.has(names[key])) ? v : undefined;
+  };
+  const fallback = new Map<keyof M, number>();
+  for (const { when, then } of companions) if (value(when) !== undefined) for (const [k, v] of then) fallback.set(k, v);
+  const parts: string[] = [];
+  for (const key of Object.keys(names) as Array<keyof M>) {
+    const v = value(key) ?? fallback.get(key);
+    if (v !== undefined) parts.push(`${names[key]}=${spiceNumber(v)}`);
   }
-  if (m.transitTimeS) parts.push(`TT=${n(m.transitTimeS)}`);
-  return `.model ${name} D(${parts.join(' ')})`;
+  return parts.join(' ');
+}
+
+function diodeModelText(name: string, m: DiodeModel): string {
+  const parameters = modelParameters(m, DIODE_SPICE_PARAMETERS, [
+    { when: 'breakdownVoltageV', then: [['breakdownCurrentA', 1e-3]] },
+    {
+      when: 'junctionCapacitanceF',
+      then: [
+        ['junctionPotentialV', 1],
+        ['gradingCoefficient', 0.5],
+      ],
+    },
+  ]);
+  return `.model ${name} D(${parameters})`;
 }
 
 function npnModelText(name: string, m: NpnModel): string {
-  const n = spiceNumber;
-  const vj = n(m.junctionPotentialV ?? 0.75);
-  const mj = n(m.gradingCoefficient ?? 0.33);
-  const parts = [`IS=${n(m.saturationCurrentA)}`, `BF=${n(m.forwardBeta)}`, `BR=${n(m.reverseBeta)}`];
-  if (m.baseEmitterCapacitanceF) parts.push(`CJE=${n(m.baseEmitterCapacitanceF)}`, `VJE=${vj}`, `MJE=${mj}`);
-  if (m.baseCollectorCapacitanceF) parts.push(`CJC=${n(m.baseCollectorCapacitanceF)}`, `VJC=${vj}`, `MJC=${mj}`);
-  return `.model ${name} NPN(${parts.join(' ')})`;
+  const parameters = modelParameters(m, NPN_SPICE_PARAMETERS, [
+    {
+      when: 'baseEmitterCapacitanceF',
+      then: [
+        ['baseEmitterPotentialV', 0.75],
+        ['baseEmitterGrading', 0.33],
+      ],
+    },
+    {
+      when: 'baseCollectorCapacitanceF',
+      then: [
+        ['baseCollectorPotentialV', 0.75],
+        ['baseCollectorGrading', 0.33],
+      ],
+    },
+  ]);
+  return `.model ${name} NPN(${parameters})`;
 }
 
 /**

@@ -2,6 +2,7 @@ import { DomainError } from '../errors';
 import type { CircuitElement } from './circuit.types';
 import { GROUND_NODE } from './circuit.types';
 import { hasInternalNode } from './devices/diode-instance';
+import { npnInternalNodeName, npnTerminalResistancesOhm } from './devices/npn-instance';
 import { reverseCuthillMcKee } from './solver/node-ordering';
 
 /**
@@ -15,7 +16,10 @@ export interface UnknownOrdering {
   bandwidth: number;
   nodeIndex: Map<string, number>;
   branchIndex: Map<string, number>;
-  /** Internal junction node of each diode with series resistance and junction charge, by element name. */
+  /**
+   * Internal junction node of each diode with series resistance and junction charge, by element name, and
+   * of each transistor terminal with a resistance (npnInternalNodeName).
+   */
   internalIndex: Map<string, number>;
   /** Position of the branch current of element `name` (a winding is `name.winding`). */
   branchAt: (name: string) => number;
@@ -23,6 +27,16 @@ export interface UnknownOrdering {
   nodeAt: (node: string) => number;
   /** Position of the junction node of a diode: its internal node, or its anode. */
   junctionAt: (e: Extract<CircuitElement, { kind: 'diode' }>) => number;
+  /** Positions of a transistor's internal collector, base and emitter (a terminal itself without resistance). */
+  npnTerminalsAt: (e: Extract<CircuitElement, { kind: 'npn' }>) => [number, number, number];
+}
+
+/** Keys of a transistor's collector, base and emitter behind their resistances (the node key without one). */
+function npnTerminalKeys(e: Extract<CircuitElement, { kind: 'npn' }>): string[] {
+  const resistances = npnTerminalResistancesOhm(e.model);
+  return [e.collector, e.base, e.emitter].map((terminal, k) =>
+    resistances[k]! > 0 ? `i:${npnInternalNodeName(e.name, k)}` : terminal === GROUND_NODE ? terminal : `n:${terminal}`,
+  );
 }
 
 /** Orders the unknowns of a list of elements (see UnknownOrdering). */
@@ -71,9 +85,12 @@ export function orderUnknowns(elements: ReadonlyArray<CircuitElement>): UnknownO
         couple(node(e.anode), diodeJunctionNode(e));
         couple(diodeJunctionNode(e), node(e.cathode));
         break;
-      case 'npn':
-        couple(node(e.collector), node(e.base), node(e.emitter));
+      case 'npn': {
+        const inner = npnTerminalKeys(e).map(unknownOf);
+        couple(...inner);
+        [e.collector, e.base, e.emitter].forEach((terminal, k) => couple(node(terminal), inner[k]!));
         break;
+      }
     }
   }
   const size = provisional.size;
@@ -103,5 +120,9 @@ export function orderUnknowns(elements: ReadonlyArray<CircuitElement>): UnknownO
     branchAt: (name) => at(`b:${name}`),
     nodeAt: (n) => at(n === GROUND_NODE ? n : `n:${n}`),
     junctionAt: (e) => at(hasInternalNode(e.model) ? `i:${e.name}` : `n:${e.anode}`),
+    npnTerminalsAt: (e) => {
+      const [c, b, x] = npnTerminalKeys(e).map(at);
+      return [c!, b!, x!];
+    },
   };
 }

@@ -122,6 +122,13 @@ export const demoWireKinds: readonly WireKind[] = [
     grade: 2,
     breakdownVoltageV: 2700,
   },
+  {
+    code: 'Wire 0.05 mm grade 2',
+    copperDiameterM: 0.05 * mm,
+    overallDiameterM: 0.064 * mm,
+    grade: 2,
+    breakdownVoltageV: 600,
+  },
 ];
 
 export const demoTapeKinds: readonly TapeKind[] = [
@@ -164,7 +171,7 @@ export const demoTransformerSection: TransformerSection = {
       role: 'secondary',
       name: 'secondary',
       turns: 1200,
-      wire: kind(demoWireKinds, 'Wire 0.08 mm grade 2'),
+      wire: kind(demoWireKinds, 'Wire 0.05 mm grade 2'),
       layerTapeWraps: 1,
       startPin: 6,
       endPin: 8,
@@ -173,6 +180,6 @@ export const demoTransformerSection: TransformerSection = {
   layerTape: kind(demoTapeKinds, 'Tape polyester 25 um'),
   windingTape: kind(demoTapeKinds, 'Tape polyester 50 um'),
   windingTapeWraps: 3,
-  endMarginM: 1.5 * mm,
+  endMarginM: 3.5 * mm,
   inductanceTolerance: 0.1,
 };

@@ -12,6 +12,7 @@ export type {
   GapResult,
   WindingResult,
   TransformerReport,
+  TransformerDriverEffect,
   DerivedTransformerNumbers,
   TransformerSizerCandidate,
   TransformerSizerRequest,
@@ -52,4 +53,4 @@ export type { PulseStageFigures } from './operating-point';
 export { analyzeTransformer, transformerCircuitFigures } from './analyze-transformer';
 export { derivedTransformerNumbers, effectiveDriverStage, withEffectiveTransformer } from './given-numbers';
 export { demoCoreKinds, demoWireKinds, demoTapeKinds, demoTransformerSection } from './demo-kinds';
-export { sizeTransformer } from './size-transformer';
+export { sizeTransformer, endMarginForCreepageM } from './size-transformer';

@@ -8,6 +8,11 @@ export interface PulseStageFigures {
   flybackTimeS: number;
   /** Primary current at the end of the on-time (A). */
   primaryPeakCurrentA: number;
+  /**
+   * Peak of the magnetizing current (A), at least the primary's: it keeps rising after the collector leaves
+   * saturation while the collector node slews (driver/turn-off-overshoot.ts). The primary's peak if absent.
+   */
+  magnetizingPeakCurrentA?: number;
   /** Mean base current over the on-time (A): the feedback winding's current. */
   baseCurrentA: number;
   /** Primary winding voltage during the on-time (V). */
@@ -31,10 +36,12 @@ export interface PulseStageFigures {
  * (carried by the secondary, Np/Ns of it), then rests at zero until the next on-time; the feedback winding
  * carries the base current during the on-time. With a load on the forward pulse, the secondary also carries
  * its mean current P/(f·V·t_on) during the on-time, and the primary that current in the turns ratio on top of
- * the magnetizing ramp. Winding voltages: forward and flyback pulses in the turns ratio.
+ * the magnetizing ramp. The magnetizing current peaks at `magnetizingPeakCurrentA` when given (the slew after
+ * the collector leaves saturation, folded into the on-time ramp). Winding voltages: forward and flyback pulses in the turns ratio.
  */
 export function pulseOperatingPoint(figures: PulseStageFigures): TransformerOperatingPoint {
   const { frequencyHz, onTimeS, primaryPeakCurrentA: ipk } = figures;
+  const imPeak = Math.max(ipk, figures.magnetizingPeakCurrentA ?? ipk);
   if (!(frequencyHz > 0 && onTimeS > 0)) {
     throw new DomainError('invalid_argument', 'the stage must oscillate to load the transformer', 'frequencyHz');
   }
@@ -65,14 +72,14 @@ export function pulseOperatingPoint(figures: PulseStageFigures): TransformerOper
     frequencyHz,
     magnetizingCurrentA: [
       { timeS: 0, value: 0 },
-      { timeS: tOn, value: ipk },
+      { timeS: tOn, value: imPeak },
       ...(tFly > 0 ? [{ timeS: tEnd, value: 0 }] : [{ timeS: tOn, value: 0 }]),
       ...(tEnd < periodS ? [{ timeS: periodS, value: 0 }] : []),
     ],
     windingCurrentsA: {
       primary: pulse([reflectedA, ipk + reflectedA], [0, 0]),
       feedback: pulse([figures.baseCurrentA, figures.baseCurrentA], [0, 0]),
-      secondary: pulse([forwardA, forwardA], [ipk * ratio, 0]),
+      secondary: pulse([forwardA, forwardA], [imPeak * ratio, 0]),
     },
     windingPeakVoltagesV: {
       primary: Math.max(figures.primaryOnVoltageV, figures.flybackSecondaryPeakV * toPrimary),

@@ -1,5 +1,7 @@
 import type { SpacingEnvironment } from '../designs/design.types';
 import { DomainError } from '../errors';
+import { creepageColumn, requiredCreepageMm } from '../safety/creepage';
+import { SAFETY_MARGINAL_BELOW_PCT } from '../safety/hazard-limits';
 import { analyzeTransformer } from './analyze-transformer';
 import { gapFromAl } from './gap';
 import { pulseOperatingPoint } from './operating-point';
@@ -21,7 +23,24 @@ function primaryTurnsFor(core: CoreKind, request: TransformerSizerRequest): numb
   return Math.max(1, Math.ceil(Math.max(forFlux, forAl) - 1e-9));
 }
 
-function sectionFor(core: CoreKind, primaryTurns: number, request: TransformerSizerRequest): TransformerSection {
+/**
+ * End margin on each side of the bobbin (m) whose two margins give the flange creepage IEC 60664-1 asks at the
+ * secondary's peak with the pass margin of the creepage Check, rounded up to 0.1 mm.
+ */
+export function endMarginForCreepageM(secondaryPeakV: number, spacing: SpacingEnvironment): number {
+  const workingV = Math.max(1, secondaryPeakV);
+  const requiredMm = requiredCreepageMm(workingV, creepageColumn({ ...spacing, pcb: false }, workingV));
+  // 5 % more for the working voltage the applied section itself sets (its own couplings and resistances).
+  const perSideMm = (requiredMm * (1 + SAFETY_MARGINAL_BELOW_PCT / 100) * 1.05) / 2;
+  return Math.ceil(perSideMm * 10 - 1e-9) / 1e4;
+}
+
+function sectionFor(
+  core: CoreKind,
+  primaryTurns: number,
+  request: TransformerSizerRequest,
+  spacing: SpacingEnvironment,
+): TransformerSection {
   const turns = (ratio: number) => Math.max(1, Math.round(primaryTurns * ratio));
   return {
     core,
@@ -41,6 +60,7 @@ function sectionFor(core: CoreKind, primaryTurns: number, request: TransformerSi
     ...(request.layerTape ? { layerTape: request.layerTape } : {}),
     windingTape: request.windingTape,
     windingTapeWraps: request.windingTapeWraps,
+    endMarginM: endMarginForCreepageM(request.secondaryPeakV, spacing),
   };
 }
 
@@ -48,7 +68,8 @@ function sectionFor(core: CoreKind, primaryTurns: number, request: TransformerSi
  * Transformer Sizer: for each core, the fewest primary turns that keep the peak flux at the driver's peak
  * primary current below Bsat(100 °C) by the margin asked (and need no more AL than the ungapped core),
  * the other windings in the driver's turns ratios, the gap for the required primary inductance; then the
- * section's losses, fills and Checks at the driver's operating point. Cores that fit (no failing Check,
+ * section's losses, fills and Checks at the driver's operating point, with end margins wide enough for the
+ * flange creepage at the secondary's peak (`endMarginForCreepageM`). Cores that fit (no failing Check,
  * gap shorter than the bobbin) come first, ranked by total loss, then by core volume; refused cores follow
  * with their reason.
  */
@@ -85,7 +106,7 @@ export function sizeTransformer(
     } catch {
       return refused('the gap for the inductance is longer than the bobbin breadth');
     }
-    const section = sectionFor(core, primaryTurns, request);
+    const section = sectionFor(core, primaryTurns, request, spacing);
     const turnsOf = (role: string) => section.windings.find((w) => w.role === role)?.turns ?? 1;
     const primary = { turns: turnsOf('primary') };
     const feedback = { turns: turnsOf('feedback') };
@@ -105,7 +126,7 @@ export function sizeTransformer(
       ambientTemperatureC,
     });
     const report = analyzeTransformer(section, point, spacing);
-    const failing = report.checks.filter((c) => c.verdict === 'fail' && c.id !== 'transformer.flange-creepage');
+    const failing = report.checks.filter((c) => c.verdict === 'fail');
     return {
       core,
       gap: report.gap,

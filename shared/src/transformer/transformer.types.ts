@@ -138,6 +138,8 @@ export interface TransformerReport {
   checks: CheckVerdict[];
   /** How each figure was computed, by figure name. */
   methods: Record<string, MethodInfo>;
+  /** What the section does to the driver beside the given numbers (set by the design's analysis). */
+  driverEffect?: TransformerDriverEffect | null;
 }
 
 /**
@@ -200,4 +202,27 @@ export interface TransformerSizerRequest {
   secondaryPeakV: number;
   /** Margin below Bsat(100 °C) the flux must keep, in per cent (default 20). */
   minSaturationMarginPct?: number;
+}
+
+/**
+ * What the designed transformer does to the driver, beside the same design on the stage's given numbers:
+ * output against the target, efficiency against the given numbers', and the plain findings (empty when the
+ * section leaves the driver as the given numbers do).
+ */
+export interface TransformerDriverEffect {
+  /** Mean output at the rated load with the section (V, signed) and the target (V). */
+  outputV: number;
+  targetOutputV: number;
+  /** The same with the stage's given transformer numbers (V). */
+  givenOutputV: number;
+  /** Driver efficiency at the rated load (0–1) with the section and with the given numbers. */
+  efficiency: number;
+  givenEfficiency: number;
+  /** Secondary over primary turns, of the section and of the given numbers. */
+  turnsRatio: number;
+  givenTurnsRatio: number;
+  /** True when the output falls short of the target or the efficiency collapses against the given numbers. */
+  spoilsDriver: boolean;
+  /** One plain sentence per finding, the worst first. */
+  findings: string[];
 }

@@ -138,15 +138,27 @@ export function verdictStripFigures(
   const stored = worstFirst(report.checks.filter((check) => check.id.startsWith('stored-output')))[0];
   const discharge = report.checks.find((check) => check.id === 'discharge-time');
   const worst = worstFirst(mergeCheckRows(report.checks))[0];
+  // A load the supply cannot hold has no output figure: the strip says so and what it does hold.
+  const capacity = headline?.source === 'simulation' ? null : driver?.loadCapacity;
   const figures: Omit<StripFigure, 'source' | 'difference'>[] = [
-    {
-      key: 'output',
-      label: 'Output (mean, loaded)',
-      value: formatQuantity(report.outputMeanV, 'V'),
-      target: `${formatQuantity(targets.outputV, 'V')}`,
-      ...judged(output),
-      method: steady,
-    },
+    capacity?.isLoadBeyond
+      ? {
+          key: 'output',
+          label: 'Output (mean, loaded)',
+          value: 'load beyond the supply',
+          target: `${formatQuantity(targets.outputV, 'V')}`,
+          verdict: 'fail',
+          margin: `holds its output to ${formatQuantity(capacity.maxLoadCurrentA, 'A')}, asked ${formatQuantity(capacity.loadCurrentA, 'A')}`,
+          method: steady,
+        }
+      : {
+          key: 'output',
+          label: 'Output (mean, loaded)',
+          value: formatQuantity(report.outputMeanV, 'V'),
+          target: `${formatQuantity(targets.outputV, 'V')}`,
+          ...judged(output),
+          method: steady,
+        },
     {
       key: 'ripple',
       label: 'Ripple (peak-to-peak)',

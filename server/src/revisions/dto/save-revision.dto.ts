@@ -2,8 +2,10 @@ import { ApiProperty } from '@nestjs/swagger';
 import { IsDefined, IsInt, IsObject, IsString, MaxLength, Min } from 'class-validator';
 import type { SaveRevisionRequest } from '@ladderwright/shared/api';
 import type { Design } from '@ladderwright/shared/designs';
+import { ShallowTransform } from '../../common/decorators/shallow-transform.decorator';
 import { ApiDesignDocumentProperty } from '../../analysis/api-design-document.decorator';
 
+@ShallowTransform()
 export class SaveRevisionDto implements SaveRevisionRequest {
   @ApiProperty({ example: 1, description: 'The revision the edit started from; must be the latest.' })
   @IsDefined({ message: 'baseRevisionNumber is required' })

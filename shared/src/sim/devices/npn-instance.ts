@@ -11,7 +11,23 @@ const lastWasLimited = wasLimited;
 const depletionAt = depletionCharge;
 const stamp = stampJunction;
 
-/** An NPN transistor (Ebers–Moll with junction charges): its stamp, load and convergence test. */
+/** Series resistances of the collector, base and emitter (RC, RB, RE), 0 where the model has none. */
+export function npnTerminalResistancesOhm(model: NpnModel): [number, number, number] {
+  return [model.collectorResistanceOhm ?? 0, model.baseResistanceOhm ?? 0, model.emitterResistanceOhm ?? 0];
+}
+
+/** Name of the internal node behind terminal k (0 collector, 1 base, 2 emitter) of transistor `name`. */
+export function npnInternalNodeName(name: string, terminal: number): string {
+  return `${name}.${'cbe'[terminal]!}`;
+}
+
+/**
+ * An NPN transistor (Gummel–Poon subset, see evaluateNpn) between its internal collector, base and emitter
+ * (the terminals themselves where the model has no terminal resistance; those resistances are linear and
+ * stamped by the system): its stamp, load and convergence test. Charges as SPICE's bjtload: base-emitter
+ * depletion (CJE, VJE, MJE) plus TF times the forward diffusion current, which through qb also depends on
+ * Vbc; base-collector depletion (CJC, VJC, MJC) plus TR times the reverse diffusion current; fc = 0.5.
+ */
 export class NpnInstance {
   lastVbe = 0;
   lastVbc = 0;
@@ -25,7 +41,6 @@ export class NpnInstance {
   private readonly rows: Int32Array;
   private readonly reactiveBe: number;
   private readonly reactiveBc: number;
-  private readonly beOffsets: Int32Array;
   private readonly bcOffsets: Int32Array;
 
   constructor(
@@ -42,10 +57,10 @@ export class NpnInstance {
     const t = [collector, base, emitter];
     this.rows = new Int32Array(9);
     for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) this.rows[i * 3 + j] = lu.offsetOf(t[i]!, t[j]!);
-    this.beOffsets = junctionOffsets(lu, base, emitter);
     this.bcOffsets = junctionOffsets(lu, base, collector);
+    // The base-emitter charge depends on Vbc too (through qb) when there is a forward transit time.
     this.reactiveBe =
-      (model.baseEmitterCapacitanceF ?? 0) > 0
+      (model.baseEmitterCapacitanceF ?? 0) > 0 || (model.forwardTransitTimeS ?? 0) > 0
         ? addReactive(
             `${name}.be`,
             base,
@@ -53,12 +68,13 @@ export class NpnInstance {
             [
               [base, 0],
               [emitter, 0],
+              [collector, 0],
             ],
             0,
           )
         : -1;
     this.reactiveBc =
-      (model.baseCollectorCapacitanceF ?? 0) > 0
+      (model.baseCollectorCapacitanceF ?? 0) > 0 || (model.reverseTransitTimeS ?? 0) > 0
         ? addReactive(
             `${name}.bc`,
             base,
@@ -119,44 +135,55 @@ export class NpnInstance {
     rhs[this.base]! -= ibEq;
     rhs[this.emitter]! += icEq + ibEq;
     const m = this.model;
-    const vj = m.junctionPotentialV ?? 0.75;
-    const mj = m.gradingCoefficient ?? 0.33;
-    if (this.reactiveBe >= 0)
-      this.loadJunctionCharge(
-        this.reactiveBe,
-        this.beOffsets,
-        this.base,
-        this.emitter,
+    if (this.reactiveBe >= 0) {
+      depletionAt(
         vbe,
         m.baseEmitterCapacitanceF ?? 0,
-        vj,
-        mj,
-        band,
-        rhs,
-        a0,
-        charge,
-        gradient,
-        gradientStart,
+        m.baseEmitterPotentialV ?? 0.75,
+        m.baseEmitterGrading ?? 0.33,
         qOut,
       );
-    if (this.reactiveBc >= 0)
-      this.loadJunctionCharge(
-        this.reactiveBc,
-        this.bcOffsets,
-        this.base,
-        this.collector,
+      const tf = m.forwardTransitTimeS ?? 0;
+      const q = qOut.chargeC + tf * out.forwardA;
+      const cbe = qOut.capacitanceF + tf * out.dForwardDVbe;
+      const cbc = tf * out.dForwardDVbc;
+      const k = this.reactiveBe;
+      charge[k] = q;
+      const p = gradientStart[k]!;
+      gradient[p] = cbe + cbc;
+      gradient[p + 1] = -cbe;
+      gradient[p + 2] = -cbc;
+      // Current a0·q from base to emitter, linear in Vbe and Vbc.
+      const gbe = a0 * cbe;
+      const gbc = a0 * cbc;
+      const iEq = a0 * (q - cbe * vbe - cbc * vbc);
+      band[r[4]!]! += gbe + gbc;
+      band[r[5]!]! -= gbe;
+      band[r[3]!]! -= gbc;
+      band[r[7]!]! -= gbe + gbc;
+      band[r[8]!]! += gbe;
+      band[r[6]!]! += gbc;
+      rhs[this.base]! -= iEq;
+      rhs[this.emitter]! += iEq;
+    }
+    if (this.reactiveBc >= 0) {
+      depletionAt(
         vbc,
         m.baseCollectorCapacitanceF ?? 0,
-        vj,
-        mj,
-        band,
-        rhs,
-        a0,
-        charge,
-        gradient,
-        gradientStart,
+        m.baseCollectorPotentialV ?? 0.75,
+        m.baseCollectorGrading ?? 0.33,
         qOut,
       );
+      const tr = m.reverseTransitTimeS ?? 0;
+      const q = qOut.chargeC + tr * out.reverseA;
+      const c = qOut.capacitanceF + tr * out.dReverseDVbc;
+      const k = this.reactiveBc;
+      charge[k] = q;
+      const p = gradientStart[k]!;
+      gradient[p] = c;
+      gradient[p + 1] = -c;
+      stamp(band, rhs, this.bcOffsets, this.base, this.collector, a0 * c, a0 * (q - c * vbc));
+    }
     return limited;
   }
 
@@ -171,32 +198,5 @@ export class NpnInstance {
       Math.abs(ic - this.lastIc) <= relative * Math.max(Math.abs(ic), Math.abs(this.lastIc)) + absoluteA &&
       Math.abs(ib - this.lastIb) <= relative * Math.max(Math.abs(ib), Math.abs(this.lastIb)) + absoluteA
     );
-  }
-
-  private loadJunctionCharge(
-    reactive: number,
-    o: Int32Array,
-    a: number,
-    b: number,
-    v: number,
-    cj0: number,
-    vj: number,
-    mj: number,
-    band: Float64Array,
-    rhs: Float64Array,
-    a0: number,
-    charge: Float64Array,
-    gradient: Float64Array,
-    gradientStart: Int32Array,
-    qOut: { chargeC: number; capacitanceF: number },
-  ): void {
-    depletionAt(v, cj0, vj, mj, qOut);
-    charge[reactive] = qOut.chargeC;
-    const p = gradientStart[reactive]!;
-    gradient[p] = qOut.capacitanceF;
-    gradient[p + 1] = -qOut.capacitanceF;
-    const gEq = a0 * qOut.capacitanceF;
-    const iEq = a0 * (qOut.chargeC - qOut.capacitanceF * v);
-    stamp(band, rhs, o, a, b, gEq, iEq);
   }
 }

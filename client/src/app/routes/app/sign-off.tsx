@@ -1,4 +1,5 @@
 import { headlineSource } from '@ladderwright/shared/analysis';
+import { formatQuantity } from '@ladderwright/shared/units';
 import { canActInProject } from '@ladderwright/shared/auth';
 import { useMemo } from 'react';
 import { Accordion, Anchor, Breadcrumbs, Button, Grid, Group, Paper, Stack, Text, Title } from '@mantine/core';
@@ -121,7 +122,7 @@ export function SignOffRoute() {
         <Title order={2} size="h4" mb="xs">
           Results of r{revisionNumber} (
           {headline.source === 'simulation'
-            ? 'figures from its stored simulation'
+            ? `figures from its stored simulation${headline.notSettledWithinS === null ? '' : `, not settled within ${formatQuantity(headline.notSettledWithinS, 's')}`}`
             : 'estimate stored with the revision'}
           )
         </Title>

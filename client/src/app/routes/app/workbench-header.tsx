@@ -1,16 +1,23 @@
-import { useState } from 'react';
+import { memo, useState } from 'react';
 import { ActionIcon, Anchor, Badge, Button, Group, Text, TextInput, Title, Tooltip } from '@mantine/core';
 import { Link } from 'react-router-dom';
 import type { RevisionDetail } from '@ladderwright/shared/api';
 import { paths } from '../../../config/paths';
 import { RevisionStateBadge } from '../../../features/designs/components/revision-state-badge';
-import { NATIVE_UNDO_ATTRIBUTE, type DesignDraft } from '../../../features/workbench/hooks/use-design-draft';
+import { NATIVE_UNDO_ATTRIBUTE } from '../../../features/workbench/hooks/use-design-draft';
 
 export interface WorkbenchHeaderProps {
   projectId: string;
   revision: RevisionDetail;
   latestRevisionNumber: number;
-  draft: DesignDraft;
+  /** The draft differs from the saved document. */
+  isDirty: boolean;
+  canUndo: boolean;
+  canRedo: boolean;
+  onUndo: () => void;
+  onRedo: () => void;
+  /** Back to the saved document (one step that can be undone). */
+  onDiscard: () => void;
   /** A reviewer's view: no change note, no Save, no undo. */
   isReadOnly: boolean;
   /** Read-only because the project is archived (not because of the role). */
@@ -21,12 +28,20 @@ export interface WorkbenchHeaderProps {
   onSave: (changeNote: string) => void;
 }
 
-/** The Workbench title with the revision, its state and links, and the save bar (change note, Save, undo, redo). */
-export function WorkbenchHeader({
+/**
+ * The Workbench title with the revision, its state and links, and the save bar (change note, Save, undo, redo).
+ * Memoized: a keystroke in the form renders it only when one of these props changes (e.g. undo becomes possible).
+ */
+export const WorkbenchHeader = memo(function WorkbenchHeader({
   projectId,
   revision,
   latestRevisionNumber,
-  draft,
+  isDirty,
+  canUndo,
+  canRedo,
+  onUndo,
+  onRedo,
+  onDiscard,
   isReadOnly,
   isArchived,
   isSaving,
@@ -84,12 +99,12 @@ export function WorkbenchHeader({
         >
           <Group gap="xs" align="flex-end" wrap="wrap">
             <Tooltip label="Undo (Ctrl+Z)">
-              <ActionIcon variant="default" size="lg" aria-label="Undo" disabled={!draft.canUndo} onClick={draft.undo}>
+              <ActionIcon variant="default" size="lg" aria-label="Undo" disabled={!canUndo} onClick={onUndo}>
                 <UndoGlyph />
               </ActionIcon>
             </Tooltip>
             <Tooltip label="Redo (Ctrl+Shift+Z)">
-              <ActionIcon variant="default" size="lg" aria-label="Redo" disabled={!draft.canRedo} onClick={draft.redo}>
+              <ActionIcon variant="default" size="lg" aria-label="Redo" disabled={!canRedo} onClick={onRedo}>
                 <UndoGlyph isRedo />
               </ActionIcon>
             </Tooltip>
@@ -102,15 +117,11 @@ export function WorkbenchHeader({
               required
               {...{ [NATIVE_UNDO_ATTRIBUTE]: '' }}
             />
-            <Button
-              type="submit"
-              loading={isSaving}
-              disabled={!draft.isDirty || changeNote.trim() === '' || issueCount > 0}
-            >
+            <Button type="submit" loading={isSaving} disabled={!isDirty || changeNote.trim() === '' || issueCount > 0}>
               Save revision
             </Button>
-            {draft.isDirty && (
-              <Button variant="subtle" color="gray" onClick={draft.discard}>
+            {isDirty && (
+              <Button variant="subtle" color="gray" onClick={onDiscard}>
                 Discard edits
               </Button>
             )}
@@ -119,7 +130,7 @@ export function WorkbenchHeader({
       )}
     </Group>
   );
-}
+});
 
 function UndoGlyph({ isRedo = false }: { isRedo?: boolean }) {
   return (

@@ -1,8 +1,16 @@
-import { lazy, memo, Suspense, useDeferredValue } from 'react';
-import { Loader, Tabs, Text } from '@mantine/core';
-import type { RevisionDetail, RevisionSummary } from '@ladderwright/shared/api';
+import { lazy, memo, Suspense, useDeferredValue, useMemo } from 'react';
+import { Loader, Paper, Tabs, Text, Title } from '@mantine/core';
+import { useDebouncedValue } from '@mantine/hooks';
+import type { Part, RevisionDetail, RevisionSummary } from '@ladderwright/shared/api';
 import type { Design } from '@ladderwright/shared/designs';
-import type { DesignReport, HeadlineSource } from '@ladderwright/shared/analysis';
+import type { TransformerSection } from '@ladderwright/shared/transformer';
+import {
+  driverSizerFigures,
+  withTransformerSection,
+  type DesignReport,
+  type HeadlineSource,
+} from '@ladderwright/shared/analysis';
+import { formatQuantity } from '@ladderwright/shared/units';
 import { OtherFigures } from '../../../features/workbench/components/other-figures';
 import { formatDateTime } from '../../../lib/format-date';
 
@@ -17,6 +25,10 @@ export interface WorkbenchResultsProps {
   canSimulate: boolean;
   /** The saved revision's figures with their source (a current stored simulation or the estimate); null for a draft. */
   headline?: HeadlineSource | null;
+  /** The project's Parts shelf, for the transformer Sizer. */
+  shelf?: readonly Part[];
+  /** Replaces the draft as one undoable edit (absent when the design is read-only: no Apply). */
+  onDraftChange?: (next: Design) => void;
 }
 
 // Result tabs other than the first load with their tab (keepMounted is off), not with the page.
@@ -39,6 +51,11 @@ const ChecksTable = lazy(() =>
 const DriverPanel = lazy(() =>
   import('../../../features/workbench/components/driver-panel').then((module) => ({ default: module.DriverPanel })),
 );
+const TransformerSizerPanel = lazy(() =>
+  import('../../../features/sizer/components/transformer-sizer-panel').then((module) => ({
+    default: module.TransformerSizerPanel,
+  })),
+);
 const TransformerPanel = lazy(() =>
   import('../../../features/workbench/components/transformer-panel').then((module) => ({
     default: module.TransformerPanel,
@@ -52,6 +69,9 @@ const LadderDiagram = lazy(() =>
   import('../../../features/workbench/components/ladder-diagram').then((module) => ({ default: module.LadderDiagram })),
 );
 
+/** How long the report must stay unchanged (ms) before the result tabs draw it: about one pause in typing. */
+const RESULT_TABS_SETTLE_MS = 250;
+
 /** The plots change only with the report, not with every keystroke that has not reached the engine yet. */
 const PlotsPanel = memo(function PlotsPanel({ report }: { report: DesignReport }) {
   return (
@@ -64,27 +84,70 @@ const PlotsPanel = memo(function PlotsPanel({ report }: { report: DesignReport }
   );
 });
 
-/** The Workbench result tabs: Plots, Driver, Transformer (when designed), Ladder, Checks, BOM cost, Waveforms, History. */
+/** The transformer Sizer on the open design: its driver's figures in, a chosen core applied to the draft. */
+function TransformerSizer({
+  draft,
+  report,
+  shelf,
+  onApply,
+}: {
+  draft: Design;
+  report: DesignReport;
+  shelf: readonly Part[];
+  onApply?: (section: TransformerSection) => void;
+}) {
+  const figures = driverSizerFigures(draft, report);
+  if (!figures) return null;
+  const section = draft.drive.kind === 'driver' ? draft.drive.driver.transformerDesign : undefined;
+  const wireOf = (role: 'primary' | 'secondary') => section?.windings.find((w) => w.role === role)?.wire.code;
+  const primaryWireCode = wireOf('primary');
+  const secondaryWireCode = wireOf('secondary');
+  return (
+    <Paper component="section" withBorder p="sm" mt="md" aria-label="Transformer cores for this driver">
+      <Title order={4} mb="xs">
+        Transformer cores for this driver
+      </Title>
+      <TransformerSizerPanel
+        shelf={shelf}
+        design={{
+          name: draft.name,
+          figures,
+          spacing: draft.targets.spacing,
+          ...(primaryWireCode ? { primaryWireCode } : {}),
+          ...(secondaryWireCode ? { secondaryWireCode } : {}),
+        }}
+        {...(onApply ? { onApply } : {})}
+      />
+    </Paper>
+  );
+}
+
+/** The Workbench result tabs: Plots, Driver, Transformer (with a driver: the section's figures and the core Sizer), Ladder, Checks, BOM cost, Waveforms, History. */
 export function WorkbenchResults({
   projectId,
   revision,
   revisions,
-  draft,
+  draft: latestDraft,
   isDirty,
   report: latestReport,
   canSimulate,
   headline = null,
+  shelf = [],
+  onDraftChange,
 }: WorkbenchResultsProps) {
-  // The tabs draw charts and the schematic: they follow the report at low priority, after the Verdict strip has
-  // shown the new figures, and a newer keystroke interrupts their render instead of waiting for it.
-  const report = useDeferredValue(latestReport);
+  // The tabs draw charts and the schematic, which costs far more than the Verdict strip: they follow the report
+  // once typing pauses (a burst of keystrokes redraws them once, not per key) and then at low priority, so a newer
+  // keystroke interrupts their render instead of waiting for it.
+  const latest = useMemo(() => ({ report: latestReport, draft: latestDraft }), [latestReport, latestDraft]);
+  const [settled] = useDebouncedValue(latest, RESULT_TABS_SETTLE_MS);
+  const { report, draft } = useDeferredValue(settled);
   return (
     <Suspense fallback={<Loader size="sm" aria-label="Loading the tab" />}>
       <Tabs defaultValue="plots" keepMounted={false}>
         <Tabs.List>
           <Tabs.Tab value="plots">Plots</Tabs.Tab>
           {report.driver && <Tabs.Tab value="driver">Driver</Tabs.Tab>}
-          {report.transformer && <Tabs.Tab value="transformer">Transformer</Tabs.Tab>}
+          {report.driver && <Tabs.Tab value="transformer">Transformer</Tabs.Tab>}
           <Tabs.Tab value="ladder">Ladder</Tabs.Tab>
           <Tabs.Tab value="checks">Checks</Tabs.Tab>
           <Tabs.Tab value="bom">BOM cost</Tabs.Tab>
@@ -99,9 +162,28 @@ export function WorkbenchResults({
             <DriverPanel driver={report.driver} />
           </Tabs.Panel>
         )}
-        {report.transformer && (
+        {report.driver && (
           <Tabs.Panel value="transformer" pt="sm">
-            <TransformerPanel transformer={report.transformer} />
+            {report.transformer ? (
+              <TransformerPanel transformer={report.transformer} />
+            ) : (
+              <Text size="sm" mb="xs">
+                The driver runs on given transformer numbers. Rank the shelf’s cores for it below, and apply one to
+                design the transformer from a core.
+              </Text>
+            )}
+            <TransformerSizer
+              key={`${revision.designId}.${revision.number}`}
+              draft={draft}
+              report={report}
+              shelf={shelf}
+              {...(onDraftChange
+                ? // Applied to the latest draft: the tabs' own draft may lag a pause behind the typing.
+                  {
+                    onApply: (chosen: TransformerSection) => onDraftChange(withTransformerSection(latestDraft, chosen)),
+                  }
+                : {})}
+            />
           </Tabs.Panel>
         )}
         <Tabs.Panel value="ladder" pt="sm">
@@ -127,7 +209,10 @@ export function WorkbenchResults({
           {headline?.source === 'simulation' && headline.simulatedAt && (
             <Text size="sm" mb="xs" data-current-simulation>
               The headline figures come from the full simulation of r{revision.number} that finished{' '}
-              {formatDateTime(headline.simulatedAt)}; start a run to see its waveforms again.
+              {formatDateTime(headline.simulatedAt)}
+              {headline.notSettledWithinS !== null &&
+                ` (it had not settled within ${formatQuantity(headline.notSettledWithinS, 's')} of simulated time)`}
+              ; start a run to see its waveforms again.
             </Text>
           )}
           <WaveformsPanel

@@ -1,12 +1,12 @@
-import { useMemo, useState } from 'react';
+import { useCallback, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import { Alert, Anchor, Badge, Breadcrumbs, Group, List, Stack, Text } from '@mantine/core';
 import { useDocumentTitle } from '@mantine/hooks';
 import { useQueryClient, useSuspenseQuery, type QueryClient } from '@tanstack/react-query';
 import { Link, redirect, useNavigate, useParams, useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
 import type { Part, RevisionDetail, RevisionSummary, StaleBaseError } from '@ladderwright/shared/api';
 import { canActInProject } from '@ladderwright/shared/auth';
-import { headlineSource } from '@ladderwright/shared/analysis';
-import { documentFieldLabel } from '@ladderwright/shared/designs';
+import { headlineSource, simulationSourceLabel } from '@ladderwright/shared/analysis';
+import { documentFieldLabel, type Design } from '@ladderwright/shared/designs';
 import { paths } from '../../../config/paths';
 import { queryKeys } from '../../../lib/query-keys';
 import { staleBaseOf, useCreateRevision } from '../../../features/designs/api/create-revision';
@@ -117,6 +117,16 @@ function EditableRevision({
   const [stale, setStale] = useState<StaleBaseError | null>(null);
   const { data: shelf } = useParts(projectId);
   const live = useLiveAnalysis(draft.draft, shelf);
+  const { analyzeAhead } = live;
+  const { setDraft } = draft;
+  // The worker starts on an edit before React renders it, so the engine and the keystroke's render overlap.
+  const onFormChange = useCallback(
+    (next: Design, key?: string) => {
+      analyzeAhead(next);
+      setDraft(next, key);
+    },
+    [analyzeAhead, setDraft],
+  );
   const isDirty = draft.isDirty;
   const partIssues = (isDirty ? live.partIssues : revision.report.partIssues) ?? [];
   // The saved revision's figures come from its current stored simulation where there is one; a draft's are estimates.
@@ -156,18 +166,30 @@ function EditableRevision({
     );
   };
 
+  // The header is memoized: Save reaches the latest submit through a ref, so its handler keeps its identity.
+  const submitRef = useRef(submit);
+  useLayoutEffect(() => {
+    submitRef.current = submit;
+  });
+  const onSave = useCallback((changeNote: string) => submitRef.current(changeNote), []);
+
   return (
     <Stack gap="sm">
       <WorkbenchHeader
         projectId={projectId}
         revision={revision}
         latestRevisionNumber={latestRevisionNumber}
-        draft={draft}
+        isDirty={isDirty}
+        canUndo={draft.canUndo}
+        canRedo={draft.canRedo}
+        onUndo={draft.undo}
+        onRedo={draft.redo}
+        onDiscard={draft.discard}
         isReadOnly={isReadOnly}
         isArchived={isArchived}
         isSaving={save.isPending}
         issueCount={issueCount}
-        onSave={submit}
+        onSave={onSave}
       />
       {stale && (
         <WorkbenchStaleAlert
@@ -188,7 +210,11 @@ function EditableRevision({
       )}
 
       <div className={classes.layout}>
-        <section className={classes.summary} aria-label="Results summary">
+        <section
+          className={classes.summary}
+          aria-label="Results summary"
+          data-live-pending={live.isPending ? 'true' : 'false'}
+        >
           <Group gap="xs" mb={6}>
             <Text size="sm" fw={600}>
               Results
@@ -205,7 +231,7 @@ function EditableRevision({
                 ? live.isPending
                   ? 'live preview, updating…'
                   : 'live preview (unsaved edits)'
-                : `server result of r${revision.number} · ${headline?.source === 'simulation' ? 'figures from simulation' : 'estimate'}`}
+                : `server result of r${revision.number} · ${headline?.source === 'simulation' ? `figures ${simulationSourceLabel(headline)}` : 'estimate'}`}
             </Badge>
           </Group>
           {live.engineError && isDirty && (
@@ -224,7 +250,7 @@ function EditableRevision({
         <section className={classes.inputs} aria-label="Design inputs">
           <LadderForm
             document={draft.draft}
-            onChange={draft.setDraft}
+            onChange={onFormChange}
             issues={live.issues}
             parts={shelf ?? noParts}
             isReadOnly={isReadOnly}
@@ -253,6 +279,8 @@ function EditableRevision({
               report={report}
               canSimulate={!isArchived}
               headline={headline}
+              shelf={shelf ?? noParts}
+              {...(isReadOnly ? {} : { onDraftChange: (next: Design) => draft.setDraft(next) })}
             />
           )}
         </section>

@@ -1,5 +1,5 @@
 import { fireEvent, screen, within } from '@testing-library/react';
-import { describe, expect, it } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { renderWithApp } from '../../../testing/render';
 import { shelfPart } from '../../../testing/shelf-part';
 import { TransformerSizerPanel } from './transformer-sizer-panel';
@@ -61,5 +61,50 @@ describe('TransformerSizerPanel', () => {
   it('says what the shelf lacks instead of ranking nothing', () => {
     renderWithApp(<TransformerSizerPanel shelf={shelf.slice(1)} />);
     expect(screen.getByText(/needs at least one core, one wire and one tape/)).toBeInTheDocument();
+  });
+
+  it('starts from the open design’s driver figures and applies a fitting core’s section to it', () => {
+    const onApply = vi.fn();
+    renderWithApp(
+      <TransformerSizerPanel
+        shelf={shelf}
+        design={{
+          name: 'Tester',
+          figures: {
+            primaryInductanceH: 1e-3,
+            primaryPeakCurrentA: 0.08,
+            turnsRatio: 60,
+            feedbackRatio: 0.4,
+            frequencyHz: 35e3,
+            dutyOnFraction: 0.9,
+            secondaryPeakV: 900,
+          },
+          spacing: { pollutionDegree: 1, materialGroup: 'IIIa', pcb: true },
+          secondaryWireCode: 'NF-W008-G2',
+        }}
+        onApply={onApply}
+      />,
+    );
+    expect(screen.getByText('From the driver of Tester, at the rated load')).toBeInTheDocument();
+    fireEvent.click(screen.getByRole('button', { name: 'Rank 1 shelf cores' }));
+    const row = within(screen.getByRole('table', { name: 'Ranked cores' })).getAllByRole('row')[1]!;
+    // AL of the ungapped core bounds the turns: √(1 mH / 4.5 µH) = 14.9, so 15; 6 feedback, 900 secondary.
+    expect(within(row).getByText('15 : 6 : 900')).toBeInTheDocument();
+    fireEvent.click(within(row).getByRole('button', { name: 'Apply NF-KE20-M2 to the design' }));
+    expect(onApply).toHaveBeenCalledTimes(1);
+    const [section, code] = onApply.mock.calls[0] as [{ windings: { role: string; turns: number }[] }, string];
+    expect(code).toBe('NF-KE20-M2');
+    expect(section.windings.map((w) => [w.role, w.turns])).toEqual([
+      ['primary', 15],
+      ['feedback', 6],
+      ['secondary', 900],
+    ]);
+    expect(screen.getByRole('status')).toHaveTextContent('NF-KE20-M2 applied to the draft');
+  });
+
+  it('offers no Apply without a design to apply to', () => {
+    renderWithApp(<TransformerSizerPanel shelf={shelf} />);
+    fireEvent.click(screen.getByRole('button', { name: 'Rank 1 shelf cores' }));
+    expect(screen.queryByRole('button', { name: /^Apply / })).toBeNull();
   });
 });

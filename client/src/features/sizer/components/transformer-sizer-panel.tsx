@@ -1,29 +1,53 @@
 import { useMemo, useState } from 'react';
-import { Alert, Button, Fieldset, NumberInput, Select, SimpleGrid, Stack, Table, Text } from '@mantine/core';
+import { Alert, Button, Fieldset, Group, NumberInput, Select, SimpleGrid, Stack, Table, Text } from '@mantine/core';
+import type { DriverSizerFigures } from '@ladderwright/shared/analysis';
 import type { Part } from '@ladderwright/shared/api';
 import type { SpacingEnvironment } from '@ladderwright/shared/designs';
 import { isDomainError } from '@ladderwright/shared/errors';
 import { shelfMagnetics } from '@ladderwright/shared/parts';
-import { sizeTransformer, type TransformerSizerCandidate } from '@ladderwright/shared/transformer';
+import {
+  sizeTransformer,
+  type TransformerSection,
+  type TransformerSizerCandidate,
+} from '@ladderwright/shared/transformer';
 import { formatQuantity } from '@ladderwright/shared/units';
 import { QuantityInput } from '../../../components/quantity-input';
 
+/** The open design the Sizer starts from and applies to. */
+export interface SizerDesign {
+  /** The design's name, as the panel says where its figures come from. */
+  name: string;
+  /** The driver's figures at the rated load (`driverSizerFigures`). */
+  figures: DriverSizerFigures;
+  spacing: SpacingEnvironment;
+  /** Wire codes of the design's section, if designed: the Sizer starts with them. */
+  primaryWireCode?: string;
+  secondaryWireCode?: string;
+}
+
 export interface TransformerSizerPanelProps {
   shelf: readonly Part[];
+  /** Start from this design's driver figures and spacing instead of typed ones. */
+  design?: SizerDesign;
+  /** Apply a fitting core's section to the design (absent: no Apply buttons). */
+  onApply?: (section: TransformerSection, core: string) => void;
 }
 
 /** Pollution degree 2, material group IIIa: the spacing the demo designs state (common practice for indoor kit). */
 const SPACING: SpacingEnvironment = { pollutionDegree: 2, materialGroup: 'IIIa', pcb: false };
 
-interface Inputs {
-  primaryInductanceH: number;
-  primaryPeakCurrentA: number;
-  turnsRatio: number;
-  feedbackRatio: number;
-  frequencyHz: number;
-  dutyOnFraction: number;
-  secondaryPeakV: number;
-}
+type Inputs = DriverSizerFigures;
+
+/** Figures shown to four significant digits, as a person would type them. */
+const rounded = (figures: DriverSizerFigures): Inputs => ({
+  primaryInductanceH: Number(figures.primaryInductanceH.toPrecision(4)),
+  primaryPeakCurrentA: Number(figures.primaryPeakCurrentA.toPrecision(4)),
+  turnsRatio: Number(figures.turnsRatio.toPrecision(4)),
+  feedbackRatio: Number(figures.feedbackRatio.toPrecision(4)),
+  frequencyHz: Number(figures.frequencyHz.toPrecision(4)),
+  dutyOnFraction: Number(figures.dutyOnFraction.toPrecision(3)),
+  secondaryPeakV: Number(figures.secondaryPeakV.toPrecision(4)),
+});
 
 /** The demo handheld tester's driver: 1 mH, 20 : 8 : 1200 turns, about 0.5 A peak. */
 const DEFAULT_INPUTS: Inputs = {
@@ -51,10 +75,15 @@ const mT = (valueT: number) => `${Number((valueT * 1e3).toPrecision(3))} mT`;
  * ratios, every core on the Parts shelf with the fewest primary turns that keep the flux margin at 100 °C, ranked
  * by loss and then size; cores that do not fit follow with the reason.
  */
-export function TransformerSizerPanel({ shelf }: TransformerSizerPanelProps) {
+export function TransformerSizerPanel({ shelf, design, onApply }: TransformerSizerPanelProps) {
   const { cores, wires, tapes } = useMemo(() => shelfMagnetics(shelf), [shelf]);
-  const [inputs, setInputs] = useState<Inputs>(DEFAULT_INPUTS);
-  const [codes, setCodes] = useState<{ primary?: string; secondary?: string; tape?: string }>({});
+  const [inputs, setInputs] = useState<Inputs>(() => (design ? rounded(design.figures) : DEFAULT_INPUTS));
+  const [codes, setCodes] = useState<{ primary?: string; secondary?: string; tape?: string }>(() => ({
+    ...(design?.primaryWireCode ? { primary: design.primaryWireCode } : {}),
+    ...(design?.secondaryWireCode ? { secondary: design.secondaryWireCode } : {}),
+  }));
+  const [applied, setApplied] = useState<string | null>(null);
+  const spacing = design?.spacing ?? SPACING;
   const [ranked, setRanked] = useState<TransformerSizerCandidate[] | null>(null);
   const [error, setError] = useState<string | null>(null);
   const byDiameter = [...wires].sort((a, b) => a.copperDiameterM - b.copperDiameterM);
@@ -80,7 +109,7 @@ export function TransformerSizerPanel({ shelf }: TransformerSizerPanelProps) {
             windingTapeWraps: 3,
             layerTape: tape,
           },
-          SPACING,
+          spacing,
         ),
       );
     } catch (caught) {
@@ -99,7 +128,25 @@ export function TransformerSizerPanel({ shelf }: TransformerSizerPanelProps) {
   const wireData = wires.map((w) => ({ value: w.code, label: w.code }));
   return (
     <Stack gap="sm">
-      <Fieldset legend="From the driver">
+      <Fieldset legend={design ? `From the driver of ${design.name}, at the rated load` : 'From the driver'}>
+        {design && (
+          <Group gap="xs" mb="xs">
+            <Text size="xs" c="dimmed">
+              The peak current is the core’s magnetizing peak (the collector peak and its turn-off slew); the creepage
+              follows the design’s spacing.
+            </Text>
+            <Button
+              size="compact-xs"
+              variant="subtle"
+              onClick={() => {
+                setInputs(rounded(design.figures));
+                setRanked(null);
+              }}
+            >
+              Take the design’s figures again
+            </Button>
+          </Group>
+        )}
         <SimpleGrid cols={{ base: 1, sm: 2, md: 4 }} spacing="sm">
           <QuantityInput
             label="Primary inductance"
@@ -171,6 +218,12 @@ export function TransformerSizerPanel({ shelf }: TransformerSizerPanelProps) {
       <Button w="fit-content" onClick={rank}>
         Rank {cores.length} shelf cores
       </Button>
+      {applied && (
+        <Text size="sm" role="status">
+          {applied} applied to the draft with its turns, wires and margins: undo with Ctrl+Z, or save it as a new
+          revision with a change note.
+        </Text>
+      )}
       {error && (
         <Alert color="red" title="Not ranked">
           {error}
@@ -183,6 +236,7 @@ export function TransformerSizerPanel({ shelf }: TransformerSizerPanelProps) {
               <Table.Tr>
                 <Table.Th>Rank</Table.Th>
                 <Table.Th>Core</Table.Th>
+                {onApply && <Table.Th>Design</Table.Th>}
                 <Table.Th>Verdict</Table.Th>
                 <Table.Th>Turns P : F : S</Table.Th>
                 <Table.Th>Gap</Table.Th>
@@ -198,6 +252,24 @@ export function TransformerSizerPanel({ shelf }: TransformerSizerPanelProps) {
                 <Table.Tr key={candidate.core.code}>
                   <Table.Td>{index + 1}</Table.Td>
                   <Table.Td ff="monospace">{candidate.core.code}</Table.Td>
+                  {onApply && (
+                    <Table.Td>
+                      {candidate.refusal === null && candidate.section && (
+                        <Button
+                          size="compact-xs"
+                          variant="light"
+                          aria-label={`Apply ${candidate.core.code} to the design`}
+                          onClick={() => {
+                            if (!candidate.section) return;
+                            onApply(candidate.section, candidate.core.code);
+                            setApplied(candidate.core.code);
+                          }}
+                        >
+                          Apply
+                        </Button>
+                      )}
+                    </Table.Td>
+                  )}
                   <Table.Td style={{ whiteSpace: 'normal', minWidth: '14rem' }}>
                     {candidate.refusal === null ? 'fits' : `refused: ${refusalWords(candidate.refusal)}`}
                   </Table.Td>

@@ -1,4 +1,4 @@
-import { useEffect, useRef, useState, type ClipboardEvent } from 'react';
+import { memo, useEffect, useLayoutEffect, useMemo, useRef, useState, type ClipboardEvent } from 'react';
 import {
   ActionIcon,
   Alert,
@@ -20,6 +20,8 @@ import { isCellBlock, pasteIntoCapacitors, type CapacitorColumnKey } from '../pa
 import classes from './capacitor-table.module.css';
 import { PartCodeInput } from './part-code-input';
 
+const noParts: readonly Part[] = [];
+
 export interface CapacitorTableProps {
   topology: Topology;
   capacitors: CapacitorPart[];
@@ -33,6 +35,17 @@ export interface CapacitorTableProps {
   onPickPart?: (index: number, part: Part) => void;
 }
 
+/** What a row asks of the table; the same functions from render to render, so unchanged rows skip rendering. */
+interface RowActions {
+  setCell: (index: number, patch: Partial<CapacitorPart>) => void;
+  /** Paste handler of one cell: a block fills the table, a single value is left to the field. */
+  paste: (row: number, column: CapacitorColumnKey, event: ClipboardEvent<HTMLElement>) => void;
+  fillDown: (index: number) => void;
+  pick: (index: number, part: Part) => void;
+  /** Grades the capacitors from a top-stage value (the grading helper). */
+  grade: (topStageF: number) => void;
+}
+
 /**
  * One row per ladder capacitor, from the source upward, with fill-down and a grading helper. A column or block of
  * cells pasted from a spreadsheet fills the cells from the one pasted into, right and down.
@@ -42,32 +55,48 @@ export function CapacitorTable({
   capacitors,
   onChange,
   issues,
-  parts = [],
+  parts = noParts,
   onPickPart,
 }: CapacitorTableProps) {
   const places = capacitorPlacesOf(topology, capacitors);
   const [pasteMessage, setPasteMessage] = useState<{ isError: boolean; text: string } | null>(null);
-  const setCapacitor = (index: number, patch: Partial<CapacitorPart>) => {
-    const [field = ''] = Object.keys(patch);
-    onChange(
-      capacitors.map((c, i) => (i === index ? { ...c, ...patch } : c)),
-      `multiplier.capacitors[${index}].${field}`,
-    );
-  };
+  // The rows' actions read the latest props through a ref: a keystroke in one cell renders that row alone.
+  const latest = useRef({ topology, capacitors, onChange, onPickPart });
+  useLayoutEffect(() => {
+    latest.current = { topology, capacitors, onChange, onPickPart };
+  });
+  const actions = useMemo<RowActions>(
+    () => ({
+      setCell: (index, patch) => {
+        const [field = ''] = Object.keys(patch);
+        const { capacitors: current, onChange: change } = latest.current;
+        change(
+          current.map((c, i) => (i === index ? { ...c, ...patch } : c)),
+          `multiplier.capacitors[${index}].${field}`,
+        );
+      },
+      paste: (row, column, event) => {
+        const text = event.clipboardData.getData('text/plain');
+        if (!isCellBlock(text)) return;
+        event.preventDefault();
+        const result = pasteIntoCapacitors(latest.current.capacitors, text, row, column);
+        if (result.ok) {
+          latest.current.onChange(result.capacitors);
+          setPasteMessage({ isError: false, text: `Pasted ${result.cellCount} cells from C${row + 1}.` });
+        } else {
+          setPasteMessage({ isError: true, text: `Nothing pasted: ${result.message}` });
+        }
+      },
+      fillDown: (index) => latest.current.onChange(fillDown(latest.current.capacitors, index)),
+      pick: (index, part) => latest.current.onPickPart?.(index, part),
+      grade: (topStageF) => {
+        const { topology: shape, capacitors: current, onChange: change } = latest.current;
+        change(gradeCapacitors(shape, current, topStageF));
+      },
+    }),
+    [],
+  );
   const at = (i: number, key: string) => issues[`multiplier.capacitors[${i}].${key}`] ?? null;
-  /** Paste handler of one cell: a block fills the table, a single value is left to the field. */
-  const pasteAt = (row: number, column: CapacitorColumnKey) => (event: ClipboardEvent<HTMLElement>) => {
-    const text = event.clipboardData.getData('text/plain');
-    if (!isCellBlock(text)) return;
-    event.preventDefault();
-    const result = pasteIntoCapacitors(capacitors, text, row, column);
-    if (result.ok) {
-      onChange(result.capacitors);
-      setPasteMessage({ isError: false, text: `Pasted ${result.cellCount} cells from C${row + 1}.` });
-    } else {
-      setPasteMessage({ isError: true, text: `Nothing pasted: ${result.message}` });
-    }
-  };
 
   return (
     <Stack gap="xs">
@@ -78,7 +107,7 @@ export function CapacitorTable({
         <GradingHelper
           initialTopStageF={capacitors[capacitors.length - 1]?.valueF ?? 10e-9}
           isDisabled={places === null}
-          onApply={(topStageF) => onChange(gradeCapacitors(topology, capacitors, topStageF))}
+          onApply={actions.grade}
         />
       </Group>
       {pasteMessage && (
@@ -94,7 +123,7 @@ export function CapacitorTable({
           <Text size="sm">{pasteMessage.text}</Text>
         </Alert>
       )}
-      <Table.ScrollContainer minWidth={500}>
+      <Table.ScrollContainer minWidth={500} type="native">
         <Table verticalSpacing={4} horizontalSpacing={6} aria-label="Ladder capacitors">
           <Table.Thead>
             <Table.Tr>
@@ -109,81 +138,121 @@ export function CapacitorTable({
             </Table.Tr>
           </Table.Thead>
           <Table.Tbody>
-            {capacitors.map((capacitor, i) => {
-              const name = `C${i + 1}`;
-              const place = places?.[i];
-              return (
-                <Table.Tr key={i}>
-                  <Table.Td className={classes.sticky}>
-                    <Text size="sm" fw={600} lh={1.2}>
-                      {name}
-                    </Text>
-                    <Text size="xs" c="dimmed" lh={1.2}>
-                      {placeLabel(place)}
-                    </Text>
-                  </Table.Td>
-                  <Table.Td miw={100} onPasteCapture={pasteAt(i, 'valueF')}>
-                    <QuantityInput
-                      label={`${name} capacitance`}
-                      isLabelHidden
-                      unit="F"
-                      value={capacitor.valueF}
-                      onChange={(valueF) => setCapacitor(i, { valueF })}
-                      issue={at(i, 'valueF')}
-                      size="xs"
-                    />
-                  </Table.Td>
-                  <Table.Td miw={70} onPasteCapture={pasteAt(i, 'tolerance')}>
-                    <PercentInput
-                      label={`${name} tolerance`}
-                      fraction={capacitor.tolerance}
-                      onChange={(tolerance) => setCapacitor(i, { tolerance })}
-                      issue={at(i, 'tolerance')}
-                    />
-                  </Table.Td>
-                  <Table.Td miw={96} onPasteCapture={pasteAt(i, 'ratedVoltageV')}>
-                    <QuantityInput
-                      label={`${name} rated voltage`}
-                      isLabelHidden
-                      unit="V"
-                      value={capacitor.ratedVoltageV}
-                      onChange={(ratedVoltageV) => setCapacitor(i, { ratedVoltageV })}
-                      issue={at(i, 'ratedVoltageV')}
-                      size="xs"
-                    />
-                  </Table.Td>
-                  <Table.Td miw={110} onPasteCapture={pasteAt(i, 'partCode')}>
-                    <PartCodeInput
-                      label={`${name} part code`}
-                      kind="capacitor"
-                      parts={parts}
-                      value={capacitor.partCode}
-                      onCodeChange={(partCode) => setCapacitor(i, { partCode })}
-                      onPick={(part) => onPickPart?.(i, part)}
-                      issue={at(i, 'partCode')}
-                    />
-                  </Table.Td>
-                  <Table.Td>
-                    <Tooltip label={`Copy ${name} to every capacitor above it`}>
-                      <ActionIcon
-                        variant="subtle"
-                        aria-label={`Fill down from ${name}`}
-                        disabled={i === capacitors.length - 1}
-                        onClick={() => onChange(fillDown(capacitors, i))}
-                      >
-                        <FillDownGlyph />
-                      </ActionIcon>
-                    </Tooltip>
-                  </Table.Td>
-                </Table.Tr>
-              );
-            })}
+            {capacitors.map((capacitor, i) => (
+              <CapacitorRow
+                key={i}
+                index={i}
+                capacitor={capacitor}
+                placeText={placeLabel(places?.[i])}
+                isLast={i === capacitors.length - 1}
+                valueIssue={at(i, 'valueF')}
+                toleranceIssue={at(i, 'tolerance')}
+                ratedVoltageIssue={at(i, 'ratedVoltageV')}
+                partCodeIssue={at(i, 'partCode')}
+                parts={parts}
+                actions={actions}
+              />
+            ))}
           </Table.Tbody>
         </Table>
       </Table.ScrollContainer>
     </Stack>
   );
 }
+
+interface CapacitorRowProps {
+  index: number;
+  capacitor: CapacitorPart;
+  /** Where the capacitor sits in the ladder, in words. */
+  placeText: string;
+  isLast: boolean;
+  valueIssue: string | null;
+  toleranceIssue: string | null;
+  ratedVoltageIssue: string | null;
+  partCodeIssue: string | null;
+  parts: readonly Part[];
+  actions: RowActions;
+}
+
+const CapacitorRow = memo(function CapacitorRow({
+  index,
+  capacitor,
+  placeText,
+  isLast,
+  valueIssue,
+  toleranceIssue,
+  ratedVoltageIssue,
+  partCodeIssue,
+  parts,
+  actions,
+}: CapacitorRowProps) {
+  const name = `C${index + 1}`;
+  return (
+    <Table.Tr>
+      <Table.Td className={classes.sticky}>
+        <Text size="sm" fw={600} lh={1.2}>
+          {name}
+        </Text>
+        <Text size="xs" c="dimmed" lh={1.2}>
+          {placeText}
+        </Text>
+      </Table.Td>
+      <Table.Td miw={100} onPasteCapture={(event) => actions.paste(index, 'valueF', event)}>
+        <QuantityInput
+          label={`${name} capacitance`}
+          isLabelHidden
+          unit="F"
+          value={capacitor.valueF}
+          onChange={(valueF) => actions.setCell(index, { valueF })}
+          issue={valueIssue}
+          size="xs"
+        />
+      </Table.Td>
+      <Table.Td miw={70} onPasteCapture={(event) => actions.paste(index, 'tolerance', event)}>
+        <PercentInput
+          label={`${name} tolerance`}
+          fraction={capacitor.tolerance}
+          onChange={(tolerance) => actions.setCell(index, { tolerance })}
+          issue={toleranceIssue}
+        />
+      </Table.Td>
+      <Table.Td miw={96} onPasteCapture={(event) => actions.paste(index, 'ratedVoltageV', event)}>
+        <QuantityInput
+          label={`${name} rated voltage`}
+          isLabelHidden
+          unit="V"
+          value={capacitor.ratedVoltageV}
+          onChange={(ratedVoltageV) => actions.setCell(index, { ratedVoltageV })}
+          issue={ratedVoltageIssue}
+          size="xs"
+        />
+      </Table.Td>
+      <Table.Td miw={110} onPasteCapture={(event) => actions.paste(index, 'partCode', event)}>
+        <PartCodeInput
+          label={`${name} part code`}
+          kind="capacitor"
+          parts={parts}
+          value={capacitor.partCode}
+          onCodeChange={(partCode) => actions.setCell(index, { partCode })}
+          onPick={(part) => actions.pick(index, part)}
+          issue={partCodeIssue}
+        />
+      </Table.Td>
+      <Table.Td>
+        <Tooltip label={`Copy ${name} to every capacitor above it`}>
+          <ActionIcon
+            variant="subtle"
+            aria-label={`Fill down from ${name}`}
+            disabled={isLast}
+            onClick={() => actions.fillDown(index)}
+          >
+            <FillDownGlyph />
+          </ActionIcon>
+        </Tooltip>
+      </Table.Td>
+    </Table.Tr>
+  );
+});
 
 function percentText(fraction: number): string {
   return String(Number((fraction * 100).toPrecision(6)));
@@ -231,7 +300,7 @@ function PercentInput({
   );
 }
 
-function GradingHelper({
+const GradingHelper = memo(function GradingHelper({
   initialTopStageF,
   isDisabled,
   onApply,
@@ -266,7 +335,7 @@ function GradingHelper({
       </Popover.Dropdown>
     </Popover>
   );
-}
+});
 
 function FillDownGlyph() {
   return (

@@ -83,6 +83,13 @@ export function DriverPanel({ driver }: DriverPanelProps) {
     <Paper withBorder p="sm" aria-label="Driver stage">
       <Stack gap="xs">
         <Title order={4}>Driver stage</Title>
+        {driver.loadCapacity?.isLoadBeyond && (
+          <Text size="sm" c="red.8" fw={600} data-driver="load-beyond">
+            Load beyond what the supply can deliver: it holds its output up to{' '}
+            {formatQuantity(driver.loadCapacity.maxLoadCurrentA, 'A')}, the design asks{' '}
+            {formatQuantity(driver.loadCapacity.loadCurrentA, 'A')}. The figures below are at the largest load it holds.
+          </Text>
+        )}
         {!driver.validity.isWithinValidity && (
           <Text size="sm" c="orange.8" data-driver="validity">
             Instant estimate outside its validity ({driver.validity.reasons.join('; ')}): run a simulation for these

@@ -1,6 +1,6 @@
-import { Group, Paper, SimpleGrid, Stack, Table, Text, Title } from '@mantine/core';
+import { Alert, Group, List, Paper, SimpleGrid, Stack, Table, Text, Title } from '@mantine/core';
 import { formatFieldValue, resultFieldLabel } from '@ladderwright/shared/designs';
-import type { TransformerReport } from '@ladderwright/shared/transformer';
+import type { TransformerDriverEffect, TransformerReport } from '@ladderwright/shared/transformer';
 import { formatQuantity } from '@ladderwright/shared/units';
 import { ChecksTable } from './checks-table';
 import { MethodNote } from './method-note';
@@ -54,6 +54,41 @@ function valueAt(report: TransformerReport, key: string): unknown {
   return node;
 }
 
+const percent = (fraction: number) => `${Math.round(fraction * 100)} %`;
+
+/**
+ * The driver on this transformer beside the stage's given numbers: a plain warning with its findings when the
+ * section spoils the driver (output short of the target, efficiency collapse), else one line of the figures.
+ */
+export function DriverEffectNote({ effect }: { effect: TransformerDriverEffect }) {
+  const figures = `output ${formatQuantity(effect.outputV, 'V')} (target ${formatQuantity(effect.targetOutputV, 'V')}, given numbers ${formatQuantity(effect.givenOutputV, 'V')}); driver efficiency ${percent(effect.efficiency)} (given numbers ${percent(effect.givenEfficiency)}); turns ratio 1:${effect.turnsRatio.toFixed(0)} (given numbers 1:${effect.givenTurnsRatio.toFixed(0)}).`;
+  if (!effect.spoilsDriver && effect.findings.length === 0) {
+    return (
+      <Text size="sm" data-driver-effect="fine">
+        The driver on this transformer: {figures}
+      </Text>
+    );
+  }
+  return (
+    <Alert
+      color={effect.spoilsDriver ? 'red' : 'yellow'}
+      title={effect.spoilsDriver ? 'This transformer spoils the driver' : 'The driver falls short on this transformer'}
+      data-driver-effect={effect.spoilsDriver ? 'spoils' : 'short'}
+    >
+      <Stack gap={4}>
+        <List size="sm" spacing={2}>
+          {effect.findings.map((finding) => (
+            <List.Item key={finding}>{finding}</List.Item>
+          ))}
+        </List>
+        <Text size="xs" c="dimmed">
+          With this transformer: {figures}
+        </Text>
+      </Stack>
+    </Alert>
+  );
+}
+
 /**
  * The designed transformer's figures at the driver's rated-load operating point: gap and inductances, flux and
  * its margin to saturation at 100 °C, losses and temperature rise, fills, each winding's layers, resistances and
@@ -64,6 +99,7 @@ export function TransformerPanel({ transformer }: TransformerPanelProps) {
     <Paper withBorder p="sm" aria-label="Transformer">
       <Stack gap="xs">
         <Title order={4}>Transformer, as designed, at the rated load</Title>
+        {transformer.driverEffect && <DriverEffectNote effect={transformer.driverEffect} />}
         <SimpleGrid cols={{ base: 1, sm: 2 }} spacing="md">
           {GROUPS.map((group) => (
             <Stack key={group.title} gap={2}>

@@ -31,6 +31,7 @@ export function useDesignDraft(saved: Design, { isReadOnly = false }: { isReadOn
     [],
   );
   const undoStep = useCallback(() => setStack(undo), []);
+  const discard = useCallback(() => setDraft(saved), [setDraft, saved]);
   const redoStep = useCallback(() => setStack(redo), []);
 
   useEffect(() => {
@@ -55,7 +56,7 @@ export function useDesignDraft(saved: Design, { isReadOnly = false }: { isReadOn
     draft: stack.present,
     isDirty: stack.present !== saved,
     setDraft,
-    discard: () => setDraft(saved),
+    discard,
     undo: undoStep,
     redo: redoStep,
     canUndo: canUndo(stack),

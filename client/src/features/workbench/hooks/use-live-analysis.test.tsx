@@ -99,6 +99,35 @@ describe('useLiveAnalysis', () => {
     expect(result.current.report?.meetsTargets).toBeDefined();
   });
 
+  it('posts an edit handed ahead before its render, and that render posts nothing more', () => {
+    const { result, rerender } = renderHook(({ document }) => useLiveAnalysis(document), {
+      initialProps: { document: designExamples.detectorBias },
+    });
+    const worker = workers[0]!;
+    act(() => worker.answer(worker.posted[0]!));
+    const edited = withRippleTarget(2);
+    result.current.analyzeAhead(edited);
+    // The worker has the edit before React renders it.
+    expect(worker.posted).toHaveLength(2);
+    expect(worker.posted[1]?.document.targets.rippleMaxV).toBe(2);
+    rerender({ document: edited });
+    expect(worker.posted).toHaveLength(2);
+    expect(result.current.isPending).toBe(true);
+    act(() => worker.answer(worker.posted[1]!));
+    expect(result.current.isPending).toBe(false);
+    expect(result.current.report?.designName).toBe(edited.name);
+  });
+
+  it('keeps the identity of unchanged issues from the first answer on, so the form need not render again', () => {
+    const { result } = renderHook(({ document }) => useLiveAnalysis(document), {
+      initialProps: { document: designExamples.detectorBias },
+    });
+    const before = result.current.issues;
+    act(() => workers[0]!.answer(workers[0]!.posted[0]!));
+    expect(result.current.report).not.toBeNull();
+    expect(result.current.issues).toBe(before);
+  });
+
   it('terminates its worker on unmount', () => {
     const { unmount } = renderHook(() => useLiveAnalysis(designExamples.detectorBias));
     unmount();

@@ -1,4 +1,4 @@
-import { useEffect, useRef, useState } from 'react';
+import { useCallback, useEffect, useLayoutEffect, useRef, useState } from 'react';
 import type { Design } from '@ladderwright/shared/designs';
 import type { ShelfPart } from '@ladderwright/shared/parts';
 import { createLiveAnalysisWorker } from '../create-live-analysis-worker';
@@ -7,10 +7,14 @@ import type { LiveAnalysisAnswer, LiveAnalysisRequest, LiveAnalysisResult } from
 export interface LiveAnalysis extends LiveAnalysisResult {
   /** True while the shown figures lag behind the typed document. */
   isPending: boolean;
+  /**
+   * Starts the analysis of a document about to be shown (called with the edit, before React renders it), so the
+   * worker computes while the page renders the keystroke; the render that follows posts nothing more for it.
+   */
+  analyzeAhead: (document: Design) => void;
 }
 
-function sameIssues(a: Readonly<Record<string, string>> | undefined, b: Readonly<Record<string, string>>): boolean {
-  if (!a) return false;
+function sameIssues(a: Readonly<Record<string, string>>, b: Readonly<Record<string, string>>): boolean {
   const keys = Object.keys(b);
   return keys.length === Object.keys(a).length && keys.every((key) => a[key] === b[key]);
 }
@@ -30,6 +34,9 @@ export function useLiveAnalysis(document: Design, shelf?: readonly ShelfPart[]):
   const latestRef = useRef<LiveAnalysisRequest | null>(null);
   const isBusyRef = useRef(false);
   const waitingRef = useRef<Omit<LiveAnalysisRequest, 'sequence'> | null>(null);
+  /** The last document and shelf handed to the worker (posted or waiting). */
+  const requestedRef = useRef<{ document: Design; shelf: readonly ShelfPart[] | undefined } | null>(null);
+  const shelfRef = useRef(shelf);
   const sequenceRef = useRef(0);
   const [answered, setAnswered] = useState<{ document: Design; result: LiveAnalysisResult } | null>(null);
 
@@ -37,17 +44,21 @@ export function useLiveAnalysis(document: Design, shelf?: readonly ShelfPart[]):
     () => () => {
       workerRef.current?.terminate();
       workerRef.current = null;
+      requestedRef.current = null;
     },
     [],
   );
 
-  useEffect(() => {
+  const request = useCallback((next: Design, nextShelf: readonly ShelfPart[] | undefined) => {
+    const requested = requestedRef.current;
+    if (requested && requested.document === next && requested.shelf === nextShelf) return;
+    requestedRef.current = { document: next, shelf: nextShelf };
     const post = (worker: Worker, body: Omit<LiveAnalysisRequest, 'sequence'>) => {
       sequenceRef.current += 1;
-      const request: LiveAnalysisRequest = { sequence: sequenceRef.current, ...body };
-      latestRef.current = request;
+      const numbered: LiveAnalysisRequest = { sequence: sequenceRef.current, ...body };
+      latestRef.current = numbered;
       isBusyRef.current = true;
-      worker.postMessage(request);
+      worker.postMessage(numbered);
     };
     let worker = workerRef.current;
     if (!worker) {
@@ -61,8 +72,8 @@ export function useLiveAnalysis(document: Design, shelf?: readonly ShelfPart[]):
           setAnswered((previous) => ({
             document: latest.document,
             // Unchanged issues keep their identity, so the form does not re-render for an answer that moves none.
-            result: sameIssues(previous?.result.issues, event.data.result.issues)
-              ? { ...event.data.result, issues: previous?.result.issues ?? event.data.result.issues }
+            result: sameIssues(previous?.result.issues ?? noResult.issues, event.data.result.issues)
+              ? { ...event.data.result, issues: previous?.result.issues ?? noResult.issues }
               : event.data.result,
           }));
         if (waiting) post(created, waiting);
@@ -74,6 +85,7 @@ export function useLiveAnalysis(document: Design, shelf?: readonly ShelfPart[]):
         workerRef.current = null;
         isBusyRef.current = false;
         waitingRef.current = null;
+        requestedRef.current = null;
         if (latest)
           setAnswered({
             document: latest.document,
@@ -83,11 +95,17 @@ export function useLiveAnalysis(document: Design, shelf?: readonly ShelfPart[]):
       workerRef.current = created;
       worker = created;
     }
-    const body = { document, ...(shelf ? { shelf } : {}) };
+    const body = { document: next, ...(nextShelf ? { shelf: nextShelf } : {}) };
     if (isBusyRef.current) waitingRef.current = body;
     else post(worker, body);
-  }, [document, shelf]);
+  }, []);
+
+  useLayoutEffect(() => {
+    shelfRef.current = shelf;
+  });
+  useEffect(() => request(document, shelf), [request, document, shelf]);
+  const analyzeAhead = useCallback((next: Design) => request(next, shelfRef.current), [request]);
 
   const result = answered?.result ?? noResult;
-  return { ...result, isPending: answered?.document !== document };
+  return { ...result, isPending: answered?.document !== document, analyzeAhead };
 }

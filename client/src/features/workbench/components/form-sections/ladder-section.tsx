@@ -1,9 +1,9 @@
-import { lazy, Suspense, useState } from 'react';
+import { lazy, memo, Suspense, useState } from 'react';
 import { NumberInput, Select, Stack, Text } from '@mantine/core';
-import { capacitorCountFor, type Topology } from '@ladderwright/shared/designs';
+import { capacitorCountFor, type DiodePart, type Topology } from '@ladderwright/shared/designs';
 import { BoundField } from '../../../../components/bound-field';
 import { FieldGrid } from '../../../../components/field-grid';
-import { binder } from '../../document-path';
+import { binder, type Edit } from '../../document-path';
 import { resizeCapacitors, resizeKeepingPlaces, roleChanges, type RoleChange } from '../../ladder-edits';
 import { CapacitorTable } from '../capacitor-table';
 import { PartCodeInput } from '../part-code-input';
@@ -57,8 +57,6 @@ export function LadderSection({
     if (changes.length > 0) setPending({ topology, cellCount, changes });
     else applyShape(topology, cellCount, false);
   };
-  const bind = binder(document, edit, issue);
-  const dp = 'multiplier.diode';
   return (
     <Stack gap="sm">
       <FieldGrid>
@@ -102,38 +100,7 @@ export function LadderSection({
           }, key)
         }
       />
-      <Text size="sm" fw={600} mt="xs">
-        Diodes (all alike)
-      </Text>
-      <PartCodeInput
-        label="Diode part code"
-        isLabelHidden={false}
-        kind="diode"
-        parts={parts}
-        value={m.diode.partCode}
-        issue={issue(`${dp}.partCode`)}
-        onCodeChange={(partCode) =>
-          edit((d) => {
-            d.multiplier.diode.partCode = partCode;
-          }, `${dp}.partCode`)
-        }
-        onPick={(part) => onPickPart({ kind: 'diode' }, part)}
-      />
-      <FieldGrid>
-        <BoundField label="Rated PIV" unit="V" {...bind('multiplier.diode.ratedPivV')} />
-        <BoundField label="Rated average current" unit="A" {...bind('multiplier.diode.ratedAverageCurrentA')} />
-        <BoundField label="Rated surge current" unit="A" {...bind('multiplier.diode.ratedSurgeCurrentA')} />
-        <BoundField label="Saturation current" unit="A" {...bind('multiplier.diode.saturationCurrentA')} />
-        <BoundField
-          label="Emission coefficient"
-          unit={null}
-          min={0.5}
-          step={0.5}
-          decimalScale={3}
-          {...bind('multiplier.diode.emissionCoefficient')}
-        />
-        <BoundField label="Series resistance" unit="Ohm" {...bind('multiplier.diode.seriesResistanceOhm')} />
-      </FieldGrid>
+      <DiodeFields diode={m.diode} edit={edit} issue={issue} parts={parts} onPickPart={onPickPart} />
       {pending && (
         <Suspense fallback={null}>
           <CapacitorMoveDialog
@@ -152,3 +119,55 @@ export function LadderSection({
     </Stack>
   );
 }
+
+/**
+ * The diodes' part code and ratings; a separate memoized part, so typing in the capacitor table does not render it
+ * (the edit, issue and shelf functions keep their identity while the diode is unchanged).
+ */
+const DiodeFields = memo(function DiodeFields({
+  diode,
+  edit,
+  issue,
+  parts,
+  onPickPart,
+}: Omit<SectionProps, 'document'> & ShelfProps & { diode: DiodePart }) {
+  const dp = 'multiplier.diode';
+  const diodeEdit: Edit<DiodePart> = (mutate, key) => edit((d) => mutate(d.multiplier.diode), key);
+  const bind = binder(diode, diodeEdit, issue, dp);
+  return (
+    <>
+      <Text size="sm" fw={600} mt="xs">
+        Diodes (all alike)
+      </Text>
+      <PartCodeInput
+        label="Diode part code"
+        isLabelHidden={false}
+        kind="diode"
+        parts={parts}
+        value={diode.partCode}
+        issue={issue(`${dp}.partCode`)}
+        onCodeChange={(partCode) =>
+          diodeEdit((d) => {
+            d.partCode = partCode;
+          }, `${dp}.partCode`)
+        }
+        onPick={(part) => onPickPart({ kind: 'diode' }, part)}
+      />
+      <FieldGrid>
+        <BoundField label="Rated PIV" unit="V" {...bind('ratedPivV')} />
+        <BoundField label="Rated average current" unit="A" {...bind('ratedAverageCurrentA')} />
+        <BoundField label="Rated surge current" unit="A" {...bind('ratedSurgeCurrentA')} />
+        <BoundField label="Saturation current" unit="A" {...bind('saturationCurrentA')} />
+        <BoundField
+          label="Emission coefficient"
+          unit={null}
+          min={0.5}
+          step={0.5}
+          decimalScale={3}
+          {...bind('emissionCoefficient')}
+        />
+        <BoundField label="Series resistance" unit="Ohm" {...bind('seriesResistanceOhm')} />
+      </FieldGrid>
+    </>
+  );
+});

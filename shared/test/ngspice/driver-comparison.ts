@@ -1,0 +1,159 @@
+import { designExamples } from '../../src/designs/design-examples';
+import type { Design } from '../../src/designs/design.types';
+import type { DriverStage } from '../../src/designs/driver-stage.types';
+import {
+  driverDesignCircuit,
+  driverPeriodGuessS,
+  engineCapacitorVoltagesV,
+} from '../../src/runs/driver-design-circuit';
+import { oscillationFigures } from '../../src/sim/oscillation-measures';
+import { toSpiceNetlist } from '../../src/sim/to-spice-netlist';
+import { simulateTransient } from '../../src/sim/transient-analysis';
+import { runNgspice } from './run-ngspice';
+
+// One blocking-oscillator supply run by our simulator and by ngspice (REFERENCES.md §7) on the netlist our
+// exporter writes. Both start from the same state (the ladder at the engine's estimate where it has one and
+// the ladder is forward-fed, else empty) and run the same short window; the figures are read over the whole
+// cycles of its second half by the same code (oscillation-measures.ts). Both at reltol 1e-5: at ngspice's
+// default 1e-3 its own answer on these circuits moves by a few % with the tolerance, and at 1e-4 it stops on
+// "timestep too small" in the saturating core's behavioural flux formulation (DEVELOPERS.md).
+
+const base = designExamples.surfaceChargeTester;
+
+/** The demo tester with small ladder capacitors and a heavier load, changed by `change`. */
+export function supply(
+  name: string,
+  change: (driver: DriverStage, design: Design) => void,
+): { name: string; design: Design } {
+  const design = structuredClone(base);
+  if (design.drive.kind !== 'driver') throw new Error('the tester has a driver stage');
+  // Small ladder capacitors and a heavier load, so that the window sees a loaded, moving ladder.
+  design.multiplier.capacitors = design.multiplier.capacitors.map((c) => ({ ...c, valueF: 470e-12 }));
+  design.load = { kind: 'current', currentA: 20e-6 };
+  change(design.drive.driver, design);
+  return { name, design };
+}
+
+/** A tripler: three cells, the first three capacitors. */
+export function threeCells(design: Design): void {
+  design.multiplier.cellCount = 3;
+  design.multiplier.capacitors = design.multiplier.capacitors.slice(0, 3);
+}
+
+/** The figures both simulators are compared on. */
+export interface DriverFigures {
+  frequencyHz: number;
+  outputMeanV: number;
+  primaryPeakA: number;
+  efficiency: number;
+}
+
+interface DriverTraces {
+  col: ArrayLike<number>;
+  vcc: ArrayLike<number>;
+  primary: ArrayLike<number>;
+  top: ArrayLike<number>;
+  out: ArrayLike<number>;
+  emf: ArrayLike<number>;
+  supplyA: ArrayLike<number>;
+}
+
+/** Figures over the whole cycles of [fromS, end]: turn-on frequency, output mean, primary peak, P_load/P_in. */
+function figuresOf(t: ArrayLike<number>, s: DriverTraces, fromS: number, loadA: number): DriverFigures {
+  const keep = Array.from(t, (_, i) => i).filter((i) => t[i]! >= fromS);
+  const pick = (a: ArrayLike<number>): number[] => keep.map((i) => a[i]!);
+  const time = pick(t);
+  const primary = pick(s.primary);
+  const collector = keep.map((i) => s.col[i]! - s.vcc[i]!);
+  const mean = (values: number[]): number => oscillationFigures(time, primary, collector, values)!.mean;
+  const f = oscillationFigures(time, primary, collector, pick(s.top))!;
+  // Power drawn (SPICE sign: a source delivering power carries negative current) and power into the load.
+  const inW = mean(keep.map((i) => -s.emf[i]! * s.supplyA[i]!));
+  const loadW = mean(keep.map((i) => Math.abs(s.out[i]!) * loadA));
+  return {
+    frequencyHz: f.frequencyHz,
+    outputMeanV: f.mean,
+    primaryPeakA: f.primaryCurrentPeakA,
+    efficiency: loadW / inW,
+  };
+}
+
+/** Our figures and ngspice's for one driver design (see the note at the top of this file). */
+export async function driverFiguresBoth(design: Design): Promise<{ ours: DriverFigures; spice: DriverFigures }> {
+  if (design.drive.kind !== 'driver') throw new Error('driver designs only');
+  let initialV = design.multiplier.capacitors.map(() => 0);
+  // Flyback-fed ladders start empty: from the estimate's charge, which sits well off where they settle, our
+  // Newton gave up in the first periods on one of them. Both simulators always start from the same state.
+  const isFlybackFed = design.drive.driver.transformer.secondaryPhasing !== 'forward';
+  try {
+    if (!isFlybackFed) initialV = engineCapacitorVoltagesV(design);
+  } catch {
+    // The engine refuses some designs; both simulators then start from an empty ladder.
+  }
+  const circuit = driverDesignCircuit(design, initialV);
+  const periodS = driverPeriodGuessS(design.drive.driver);
+  const run = { stopTimeS: 40 * periodS, maxStepS: periodS / 200 };
+  const fromS = 20 * periodS;
+  const loadA = design.load?.kind === 'current' ? design.load.currentA : 0;
+  const netlist = toSpiceNetlist(circuit, {
+    transient: { ...run, startFrom: 'element-initial-conditions' },
+    extraLines: ['.options reltol=1e-5'],
+  });
+  const vectors = ['v(col)', 'v(vcc)', 'i(vt1_lp_sense)', 'v(top)', 'v(out)', 'v(emf)', 'i(vbat)'];
+  const reference = runNgspice(netlist, vectors);
+  const r = simulateTransient(circuit, {
+    ...run,
+    probes: ['col', 'vcc', 'I(T1.Lp)', 'top', 'out', 'emf', 'I(Vbat)'],
+    tolerances: { relative: 1e-5 },
+  });
+  const s = r.signals;
+  const ours = figuresOf(
+    r.timeS,
+    {
+      col: s.col!,
+      vcc: s.vcc!,
+      primary: s['I(T1.Lp)']!,
+      top: s.top!,
+      out: s.out!,
+      emf: s.emf!,
+      supplyA: s['I(Vbat)']!,
+    },
+    fromS,
+    loadA,
+  );
+  const ng = await reference;
+  const g = (v: string): Float64Array => ng.signals[v]!;
+  const spice = figuresOf(
+    ng.timeS,
+    {
+      col: g('v(col)'),
+      vcc: g('v(vcc)'),
+      primary: g('i(vt1_lp_sense)'),
+      top: g('v(top)'),
+      out: g('v(out)'),
+      emf: g('v(emf)'),
+      supplyA: g('i(vbat)'),
+    },
+    fromS,
+    loadA,
+  );
+  return { ours, spice };
+}
+
+/**
+ * The bounds both simulators must meet on one design: frequency within 3 %, output mean within 1 %,
+ * efficiency within 2 points, primary peak within 5 % (ngspice's figures the reference).
+ */
+export function driverMismatches(ours: DriverFigures, spice: DriverFigures): string[] {
+  const out: string[] = [];
+  const relative = (a: number, b: number): number => Math.abs(a / b - 1);
+  if (!(relative(ours.frequencyHz, spice.frequencyHz) < 0.03))
+    out.push(`frequency ${ours.frequencyHz} Hz against ngspice's ${spice.frequencyHz} Hz`);
+  if (!(relative(ours.outputMeanV, spice.outputMeanV) < 0.01))
+    out.push(`output mean ${ours.outputMeanV} V against ngspice's ${spice.outputMeanV} V`);
+  if (!(Math.abs(ours.efficiency - spice.efficiency) < 0.02))
+    out.push(`efficiency ${ours.efficiency} against ngspice's ${spice.efficiency}`);
+  if (!(relative(ours.primaryPeakA, spice.primaryPeakA) < 0.05))
+    out.push(`primary peak ${ours.primaryPeakA} A against ngspice's ${spice.primaryPeakA} A`);
+  return out;
+}

@@ -1,0 +1,92 @@
+import { describe, expect, it } from 'vitest';
+import { analyzeDesign, driverSizerFigures, withTransformerSection } from '../../src/analysis';
+import { designExamples } from '../../src/designs/design-examples';
+import { requiredCreepageMm } from '../../src/safety/creepage';
+import {
+  demoCoreKinds,
+  demoTapeKinds,
+  demoTransformerSection,
+  demoWireKinds,
+  endMarginForCreepageM,
+  sizeTransformer,
+} from '../../src/transformer';
+
+const tester = designExamples.surfaceChargeTester;
+const wire = (code: string) => demoWireKinds.find((w) => w.code === code)!;
+
+describe('the transformer Sizer on an open design', () => {
+  const report = analyzeDesign(tester);
+  const figures = driverSizerFigures(tester, report)!;
+
+  it('takes the driver’s inductance, turns ratios, frequency, on-time share and secondary peak', () => {
+    const tx = tester.drive.kind === 'driver' ? tester.drive.driver.transformer : null;
+    expect(figures.primaryInductanceH).toBe(tx?.primaryInductanceH);
+    expect(figures.turnsRatio).toBe(1200 / 20);
+    expect(figures.feedbackRatio).toBe(8 / 20);
+    expect(figures.frequencyHz).toBe(report.driver!.figures.frequencyHz.value);
+    expect(figures.dutyOnFraction).toBeCloseTo(report.driver!.figures.onTimeS.value * figures.frequencyHz, 12);
+    expect(figures.secondaryPeakV).toBe(
+      Math.max(
+        report.driver!.figures.forwardSecondaryPeakV.value,
+        report.driver!.operatingPoint.ratedLoad.flybackSecondaryPeakV,
+      ),
+    );
+    // The magnetizing peak is at least the collector's peak (the turn-off slew only adds).
+    expect(figures.primaryPeakCurrentA).toBeGreaterThanOrEqual(report.driver!.figures.peakPrimaryCurrentA.value);
+    expect(driverSizerFigures(designExamples.ionizerBar, analyzeDesign(designExamples.ionizerBar))).toBeNull();
+  });
+
+  it('gives each section end margins for the flange creepage IEC 60664-1 asks, with the pass margin', () => {
+    // Table F.4, pollution degree 1: 3.2 mm at 1000 V (read, REFERENCES.md §5): 1.2 × 1.05 × 3.2 / 2 = 2.02 mm,
+    // so 2.1 mm a side.
+    expect(endMarginForCreepageM(1000, { pollutionDegree: 1, materialGroup: 'IIIa', pcb: true })).toBeCloseTo(
+      2.1e-3,
+      12,
+    );
+    const margin = endMarginForCreepageM(1576, tester.targets.spacing);
+    expect(2 * margin * 1000).toBeGreaterThanOrEqual(1.2 * requiredCreepageMm(1576, 'pd1'));
+  });
+
+  it('a fitting core applied to the design passes every transformer Check and keeps the output target', () => {
+    const ranked = sizeTransformer(
+      demoCoreKinds,
+      {
+        ...figures,
+        primaryWire: wire('Wire 0.20 mm grade 2'),
+        feedbackWire: wire('Wire 0.20 mm grade 2'),
+        secondaryWire: wire('Wire 0.05 mm grade 2'),
+        windingTape: demoTapeKinds[1]!,
+        windingTapeWraps: 3,
+        layerTape: demoTapeKinds[0]!,
+      },
+      tester.targets.spacing,
+    );
+    const chosen = ranked.find((c) => c.refusal === null && c.core.code === 'Core E20 ferrite grade B');
+    if (!chosen?.section) throw new Error('the high-permeability E20 core fits the tester');
+    // The secondary in the given numbers' ratio: 60 times the primary.
+    expect(chosen.secondaryTurns).toBe(60 * chosen.primaryTurns);
+    const applied = withTransformerSection(tester, chosen.section);
+    const after = analyzeDesign(applied);
+    expect(after.transformer?.checks.filter((c) => c.verdict !== 'pass').map((c) => c.id)).toEqual([]);
+    expect(Math.abs(after.outputMeanV)).toBeGreaterThanOrEqual(Math.abs(tester.targets.outputV));
+    expect(after.transformer?.driverEffect?.spoilsDriver).toBe(false);
+  });
+
+  it('keeps the earlier section’s winding names, pins and tolerance, and leaves the given numbers', () => {
+    const designed = withTransformerSection(tester, {
+      ...demoTransformerSection,
+      windings: demoTransformerSection.windings.map((w) => ({ ...w, name: `${w.role} coil`, startPin: 9 })),
+      inductanceTolerance: 0.2,
+    });
+    const again = withTransformerSection(designed, demoTransformerSection);
+    if (again.drive.kind !== 'driver' || tester.drive.kind !== 'driver') throw new Error('driver designs');
+    expect(again.drive.driver.transformerChoice).toBe('designed');
+    expect(again.drive.driver.transformer).toEqual(tester.drive.driver.transformer);
+    expect(again.drive.driver.transformerDesign?.windings.map((w) => [w.name, w.startPin])).toEqual([
+      ['primary coil', 9],
+      ['feedback coil', 9],
+      ['secondary coil', 9],
+    ]);
+    expect(again.drive.driver.transformerDesign?.inductanceTolerance).toBe(0.2);
+  });
+});
