@@ -32,10 +32,10 @@ describe('secondary self-capacitance as an uncertain parameter', () => {
     const design = applyParameterValues(tester, ['secondarySelfCapacitance'], [20e-12]);
     if (design.drive.kind !== 'driver') throw new Error('the tester has a driver stage');
     expect(collectorNodeCapacitanceOf(design.drive.driver)).toBeCloseTo(100e-12 + 20e-12 * (1200 / 20) ** 2, 18);
-    // The estimate's output hardly depends on it (only through the switching loss): a load sweep leaves it
-    // undetermined, and the fit says so; a start-up by the simulator is the run that tells it.
+    // The estimate's output follows it (the ring-back after the flyback), so a load sweep can tell it too.
     const currents = [0, 10e-6];
     const without = loadSweepEstimate(tester, currents);
-    loadSweepEstimate(design, currents).forEach((v, i) => expect(Math.abs(v / without[i]! - 1)).toBeLessThan(1e-6));
+    const withSelfC = loadSweepEstimate(design, currents);
+    expect(withSelfC.some((v, i) => Math.abs(v / without[i]! - 1) > 1e-3)).toBe(true);
   });
 });
