@@ -19,6 +19,8 @@ export interface BoundFieldProps {
   max?: number;
   decimalScale?: number;
   placeholder?: string;
+  /** For an optional field: called when the field is emptied (it then takes its default, shown as the placeholder). */
+  onClear?: () => void;
 }
 
 /**
@@ -38,6 +40,7 @@ export function BoundField({
   max,
   decimalScale,
   placeholder,
+  onClear,
 }: BoundFieldProps) {
   if (unit !== null)
     return (
@@ -49,6 +52,7 @@ export function BoundField({
         issue={issue}
         data-path={path}
         placeholder={placeholder}
+        onClear={onClear}
       />
     );
   return (
@@ -63,7 +67,7 @@ export function BoundField({
       placeholder={placeholder}
       error={issue}
       data-path={path}
-      onChange={(v) => onValue(v === '' ? Number.NaN : Number(v))}
+      onChange={(v) => (v === '' && onClear ? onClear() : onValue(v === '' ? Number.NaN : Number(v)))}
     />
   );
 }

@@ -15,6 +15,8 @@ export interface QuantityInputProps extends Omit<TextInputProps, 'value' | 'onCh
   significantFigures?: number;
   /** Keeps the label for assistive technology only (e.g. in a table whose column header says it). */
   isLabelHidden?: boolean;
+  /** For an optional field: called when the text is emptied (the field then takes its default). */
+  onClear?: () => void;
 }
 
 function textOf(value: number, unit: QuantityUnit, significantFigures: number): string {
@@ -39,6 +41,7 @@ export function QuantityInput({
   issue = null,
   significantFigures = 4,
   isLabelHidden = false,
+  onClear,
   ...inputProps
 }: QuantityInputProps) {
   const [text, setText] = useState(() => textOf(value, unit, significantFigures));
@@ -57,6 +60,12 @@ export function QuantityInput({
 
   const handleChange = (next: string) => {
     setText(next);
+    if (onClear && next.trim() === '') {
+      setParseError(null);
+      lastEmitted.current = Number.NaN;
+      onClear();
+      return;
+    }
     try {
       const parsed = parseQuantity(next, { unit });
       setParseError(null);
@@ -77,7 +86,7 @@ export function QuantityInput({
       onBlur={() => {
         if (!parseError) setText(textOf(value, unit, significantFigures));
       }}
-      description={parseError ? undefined : `= ${textOf(value, unit, significantFigures)}`}
+      description={parseError || !Number.isFinite(value) ? undefined : `= ${textOf(value, unit, significantFigures)}`}
       descriptionProps={{ id: descriptionId, 'aria-live': 'polite' } as Record<string, string>}
       error={error ?? undefined}
       inputWrapperOrder={['label', 'input', 'description', 'error']}

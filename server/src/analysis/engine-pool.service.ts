@@ -5,6 +5,17 @@ import { workerEntry } from '../common/workers/worker-entry';
 import { APP_ENV, type AppEnv } from '../config/env';
 import { ENGINE_TASK_NAME, type EngineTask, type EngineTaskOutcome } from './engine-task.types';
 
+/** piscina's refusals when its queue is full (the wording of versions 4 and 5). */
+const QUEUE_FULL = /queue is full|queue is at limit|no task queue available/i;
+
+/** A refusal by a full queue as 503 busy (the request may be sent again); any other error as it is. */
+export function busyOr(error: unknown): unknown {
+  if (error instanceof Error && QUEUE_FULL.test(error.message)) {
+    return new ServiceUnavailableException('The engine is busy; try again shortly');
+  }
+  return error;
+}
+
 /**
  * The young generation of an engine thread's heap. An analysis leaves almost nothing alive, so a small one collects
  * as well as V8's default (up to 48 MB per thread, all of it resident once grown): measured over 1,600 analyses of
@@ -29,8 +40,11 @@ export class EnginePoolService implements OnModuleDestroy {
   async run(task: EngineTask): Promise<EngineTaskOutcome> {
     const pool = this.ensurePool();
     // A thread's start-up (module loading) is not the request's engine work: wait for it first.
-    this.ready ??= pool.run({ kind: 'warm-up' }, { name: ENGINE_TASK_NAME });
-    await this.ready;
+    try {
+      await this.threadReady(pool);
+    } catch (error) {
+      throw busyOr(error);
+    }
     const budgetMs = this.env.engineBudgetMs;
     const abort = new AbortController();
     const timer = setTimeout(() => abort.abort(), budgetMs);
@@ -45,13 +59,19 @@ export class EnginePoolService implements OnModuleDestroy {
           'document',
         );
       }
-      if (error instanceof Error && /queue is full/i.test(error.message)) {
-        throw new ServiceUnavailableException('The engine is busy; try again shortly');
-      }
-      throw error;
+      throw busyOr(error);
     } finally {
       clearTimeout(timer);
     }
+  }
+
+  /** The warm-up of the pool's thread; one that failed (say, refused by a full queue) is tried again next time. */
+  private threadReady(pool: Piscina): Promise<unknown> {
+    this.ready ??= pool.run({ kind: 'warm-up' }, { name: ENGINE_TASK_NAME }).catch((error: unknown) => {
+      this.ready = null;
+      throw error;
+    });
+    return this.ready;
   }
 
   async onModuleDestroy(): Promise<void> {

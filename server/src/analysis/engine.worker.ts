@@ -3,17 +3,7 @@ import { validateDesign } from '@ladderwright/shared/designs';
 import { isDomainError } from '@ladderwright/shared/errors';
 import { ENGINE_VERSION } from '@ladderwright/shared/multiplier';
 import { analyzeWithShelf } from '@ladderwright/shared/parts';
-import { lowerThisThreadPriority } from '../common/workers/thread-priority';
 import type { EngineTask, EngineTaskOutcome, EngineWarmUp } from './engine-task.types';
-
-/**
- * How far an engine thread steps back from the request thread for the CPU (nice steps): when cores are short, the
- * kernel runs requests first and engine work waits, so a burst of expensive evaluates does not raise every other
- * request's latency (`scripts/bench/load.mjs`, GET /api/health beside driver evaluates).
- */
-const ENGINE_THREAD_NICENESS = 5;
-
-lowerThisThreadPriority(ENGINE_THREAD_NICENESS);
 
 /*
  * Worker-thread entry (piscina) of the engine: the steady-state analysis of one design runs here, off the

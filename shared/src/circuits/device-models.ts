@@ -1,12 +1,6 @@
 import type { DiodeModel, NpnModel } from '../sim/circuit.types';
+import { TRANSISTOR_MODEL_DEFAULTS } from '../designs/device-defaults';
 import type { DriverTransistor } from '../designs/driver-stage.types';
-
-/** Transistor junction capacitances when the design gives none (SPICE CJE, CJC of a small switching NPN; from memory). */
-export const DEFAULT_CJE_F = 10e-12;
-export const DEFAULT_CJC_F = 5e-12;
-
-/** Ebers–Moll saturation current when the design gives none (a small-signal NPN; from memory). */
-export const DEFAULT_NPN_SATURATION_CURRENT_A = 1e-14;
 
 /** The junction fields a design gives a diode (the ladder's, a clamp's): SPICE CJO, VJ, M, BV, IBV. */
 export interface DiodeJunctionFields {
@@ -44,30 +38,14 @@ export function diodeModelOf(
 
 /**
  * The transistor's simulator model (a Gummel–Poon subset, sim/devices/bjt.ts): each field of the design under
- * its SPICE name (NpnModel), the junction capacitances at the defaults above when absent and every other
- * optional field at SPICE's own default (no Early effect, transit time or terminal resistance).
+ * its SPICE name (NpnModel), a field left out at TRANSISTOR_MODEL_DEFAULTS, and no Early effect without VAF.
  */
 export function npnModelOf(q: DriverTransistor): NpnModel {
-  const model: NpnModel = {
-    saturationCurrentA: q.saturationCurrentA ?? DEFAULT_NPN_SATURATION_CURRENT_A,
-    forwardBeta: q.forwardBeta,
-    reverseBeta: q.reverseBeta,
-    baseEmitterCapacitanceF: q.baseEmitterCapacitanceF ?? DEFAULT_CJE_F,
-    baseCollectorCapacitanceF: q.baseCollectorCapacitanceF ?? DEFAULT_CJC_F,
-  };
-  const optional = [
-    'baseEmitterPotentialV',
-    'baseEmitterGrading',
-    'baseCollectorPotentialV',
-    'baseCollectorGrading',
+  const model: NpnModel = { ...TRANSISTOR_MODEL_DEFAULTS, forwardBeta: q.forwardBeta, reverseBeta: q.reverseBeta };
+  for (const key of [
+    ...(Object.keys(TRANSISTOR_MODEL_DEFAULTS) as Array<keyof typeof TRANSISTOR_MODEL_DEFAULTS>),
     'earlyVoltageV',
-    'forwardTransitTimeS',
-    'reverseTransitTimeS',
-    'baseResistanceOhm',
-    'collectorResistanceOhm',
-    'emitterResistanceOhm',
-  ] as const;
-  for (const key of optional) {
+  ] as const) {
     const value = q[key];
     if (value !== undefined) model[key] = value;
   }

@@ -145,7 +145,7 @@ const DOCUMENT_FIELDS: Readonly<Record<string, FieldLabel>> = {
   'drive.driver.transistor.vceSatV': { label: 'Vce (sat)', display: 'V' },
   'drive.driver.transistor.vceoMaxV': { label: 'Vceo max', display: 'V' },
   'drive.driver.transistor.icMaxA': { label: 'Ic max', display: 'A' },
-  'drive.driver.transistor.saturationCurrentA': { label: 'Transistor saturation current', display: 'A' },
+  'drive.driver.transistor.saturationCurrentA': { label: 'Transistor saturation current (IS)', display: 'A' },
   'drive.driver.transistor.baseEmitterCapacitanceF': { label: 'B–E junction capacitance (CJE)', display: 'F' },
   'drive.driver.transistor.baseCollectorCapacitanceF': { label: 'B–C junction capacitance (CJC)', display: 'F' },
   'drive.driver.transistor.baseEmitterPotentialV': { label: 'B–E junction potential (VJE)', display: 'V' },

@@ -41,6 +41,15 @@ export function setAt<T extends object>(document: T, path: NumberPath<T>, value:
   if (isNode(node) && last !== undefined) node[last] = value;
 }
 
+/** Removes the field at `path` in place (an optional field back to its default); a missing branch is left alone. */
+export function deleteAt<T extends object>(document: T, path: NumberPath<T>): void {
+  const keys = path.split('.');
+  const last = keys.pop();
+  let node: unknown = document;
+  for (const key of keys) node = isNode(node) ? node[key] : undefined;
+  if (isNode(node) && last !== undefined) delete node[last];
+}
+
 /** Applies one change to a copy of a document; `key` names the field changed (its full document path). */
 export type Edit<T> = (mutate: (draft: T) => void, key?: string) => void;
 
@@ -90,4 +99,23 @@ export function withSharedBranches<T>(previous: T, next: T): T {
     if (branch !== previous[key] || !(key in previous)) isSame = false;
   }
   return (isSame ? previous : shared) as T;
+}
+
+/** The binding of an optional field: also `onClear`, which removes the field so that its default applies. */
+export interface OptionalBinding extends Binding {
+  onClear: () => void;
+}
+
+/** `bind(path)` for optional fields (see binder): an emptied field is removed from the document, not NaN. */
+export function optionalBinder<T extends object>(
+  document: T,
+  edit: Edit<T>,
+  issueOf: (path: string) => string | null,
+  prefix = '',
+) {
+  const bind = binder(document, edit, issueOf, prefix);
+  return (path: NumberPath<T>): OptionalBinding => {
+    const binding = bind(path);
+    return { ...binding, onClear: () => edit((draft) => deleteAt(draft, path), binding.path) };
+  };
 }

@@ -1,13 +1,14 @@
 import { lazy, memo, Suspense, useState } from 'react';
 import { NumberInput, Select, Stack, Text } from '@mantine/core';
-import { capacitorCountFor, type DiodePart, type Topology } from '@ladderwright/shared/designs';
+import { capacitorCountFor, DIODE_MODEL_DEFAULTS, type DiodePart, type Topology } from '@ladderwright/shared/designs';
 import { BoundField } from '../../../../components/bound-field';
 import { FieldGrid } from '../../../../components/field-grid';
-import { binder, type Edit } from '../../document-path';
+import { binder, optionalBinder, type Edit } from '../../document-path';
 import { resizeCapacitors, resizeKeepingPlaces, roleChanges, type RoleChange } from '../../ladder-edits';
 import { CapacitorTable } from '../capacitor-table';
 import { PartCodeInput } from '../part-code-input';
 import type { SectionProps, ShelfProps } from './form-section.types';
+import { ModelDetails } from './model-details';
 
 // The dialog opens only on a change of shape that moves capacitors: it loads then, not with the Workbench.
 const CapacitorMoveDialog = lazy(() =>
@@ -120,6 +121,15 @@ export function LadderSection({
   );
 }
 
+/** The ladder diodes' optional model fields in the order of their SPICE card. */
+const diodeModelKeys = [
+  'junctionCapacitanceF',
+  'junctionPotentialV',
+  'gradingCoefficient',
+  'breakdownVoltageV',
+  'breakdownCurrentA',
+] as const;
+
 /**
  * The diodes' part code and ratings; a separate memoized part, so typing in the capacitor table does not render it
  * (the edit, issue and shelf functions keep their identity while the diode is unchanged).
@@ -134,6 +144,7 @@ const DiodeFields = memo(function DiodeFields({
   const dp = 'multiplier.diode';
   const diodeEdit: Edit<DiodePart> = (mutate, key) => edit((d) => mutate(d.multiplier.diode), key);
   const bind = binder(diode, diodeEdit, issue, dp);
+  const bindOptional = optionalBinder(diode, diodeEdit, issue, dp);
   return (
     <>
       <Text size="sm" fw={600} mt="xs">
@@ -168,6 +179,13 @@ const DiodeFields = memo(function DiodeFields({
         />
         <BoundField label="Series resistance" unit="Ohm" {...bind('seriesResistanceOhm')} />
       </FieldGrid>
+      <ModelDetails
+        title="Diode model details"
+        details={diodeModelKeys.map((key) => ({
+          binding: bindOptional(key),
+          fallback: key === 'breakdownVoltageV' ? null : DIODE_MODEL_DEFAULTS[key],
+        }))}
+      />
     </>
   );
 });

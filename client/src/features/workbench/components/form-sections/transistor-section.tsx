@@ -1,8 +1,10 @@
 import { Select, Stack, Text } from '@mantine/core';
 import { driverExamples, type DriverClamp, type DriverTransistor } from '@ladderwright/shared/driver';
+import { DIODE_MODEL_DEFAULTS, TRANSISTOR_MODEL_DEFAULTS } from '@ladderwright/shared/designs';
 import { BoundField } from '../../../../components/bound-field';
 import { FieldGrid } from '../../../../components/field-grid';
-import { binder } from '../../document-path';
+import { binder, optionalBinder } from '../../document-path';
+import { ModelDetails } from './model-details';
 import { DRIVER_PATH } from './driver-edit';
 import type { DriverSectionProps, FieldSpec, NumberKeys } from './transformer-section';
 
@@ -25,10 +27,37 @@ function clampOf(kind: ClampKind, present: DriverClamp | undefined): DriverClamp
   return undefined;
 }
 
+/** The transistor's optional model fields in the order of its SPICE card (VAF has no default: none). */
+const transistorModelKeys = [
+  'saturationCurrentA',
+  'baseEmitterCapacitanceF',
+  'baseEmitterPotentialV',
+  'baseEmitterGrading',
+  'baseCollectorCapacitanceF',
+  'baseCollectorPotentialV',
+  'baseCollectorGrading',
+  'earlyVoltageV',
+  'forwardTransitTimeS',
+  'reverseTransitTimeS',
+  'baseResistanceOhm',
+  'collectorResistanceOhm',
+  'emitterResistanceOhm',
+] as const;
+
+const modelDefault = (defaults: Readonly<Record<string, number>>, key: string): number | null => defaults[key] ?? null;
+
 /** The switching transistor, its base resistor and the collector clamp. */
 export function TransistorSection({ driver, edit, issue }: DriverSectionProps) {
   const bind = binder(driver, edit, issue, DRIVER_PATH);
+  const bindOptional = optionalBinder(driver, edit, issue, DRIVER_PATH);
   const clamp = driver.clamp;
+  const clampDiodeKeys = [
+    'junctionCapacitanceF',
+    'junctionPotentialV',
+    'gradingCoefficient',
+    ...(clamp?.kind === 'rcd' ? (['breakdownVoltageV'] as const) : []),
+    'breakdownCurrentA',
+  ] as const;
   return (
     <Stack gap="sm">
       <FieldGrid>
@@ -36,6 +65,13 @@ export function TransistorSection({ driver, edit, issue }: DriverSectionProps) {
           <BoundField key={key} {...field} {...bind(`transistor.${key}`)} />
         ))}
       </FieldGrid>
+      <ModelDetails
+        title="Transistor model details"
+        details={transistorModelKeys.map((key) => ({
+          binding: bindOptional(`transistor.${key}`),
+          fallback: modelDefault(TRANSISTOR_MODEL_DEFAULTS, key),
+        }))}
+      />
       <Text size="sm" fw={600}>
         Base resistor and collector clamp
       </Text>
@@ -68,6 +104,15 @@ export function TransistorSection({ driver, edit, issue }: DriverSectionProps) {
           </>
         )}
       </FieldGrid>
+      {clamp && (
+        <ModelDetails
+          title={clamp.kind === 'zener' ? 'Zener model details' : 'Clamp diode model details'}
+          details={clampDiodeKeys.map((key) => ({
+            binding: bindOptional(`clamp.${key}`),
+            fallback: modelDefault(DIODE_MODEL_DEFAULTS, key),
+          }))}
+        />
+      )}
     </Stack>
   );
 }

@@ -1,0 +1,39 @@
+import { ServiceUnavailableException } from '@nestjs/common';
+import type { AppEnv } from '../config/env';
+import { busyOr, EnginePoolService } from './engine-pool.service';
+
+/** A pool whose queue is full: piscina 5 refuses every task with this error. */
+function fullPool() {
+  const calls: unknown[] = [];
+  return {
+    calls,
+    run: (task: unknown) => {
+      calls.push(task);
+      return Promise.reject(new Error('Task queue is at limit'));
+    },
+  };
+}
+
+describe('EnginePoolService when its queue is full', () => {
+  const env = { engineWorkers: 1, engineBudgetMs: 5_000 } as AppEnv;
+  const task = { kind: 'analyze' as const, document: {} as never };
+
+  it('answers 503 busy, not 500, and tries the thread warm-up again on the next request', async () => {
+    const service = new EnginePoolService(env);
+    const pool = fullPool();
+    (service as unknown as { ensurePool: () => unknown }).ensurePool = () => pool;
+
+    await expect(service.run(task)).rejects.toBeInstanceOf(ServiceUnavailableException);
+    await expect(service.run(task)).rejects.toBeInstanceOf(ServiceUnavailableException);
+    expect(pool.calls).toEqual([{ kind: 'warm-up' }, { kind: 'warm-up' }]);
+  });
+
+  it('maps both wordings of piscina and leaves other errors as they are', () => {
+    expect(busyOr(new Error('Task queue is at limit'))).toBeInstanceOf(ServiceUnavailableException);
+    expect(busyOr(new Error('No task queue available and all Workers are busy'))).toBeInstanceOf(
+      ServiceUnavailableException,
+    );
+    const other = new Error('worker crashed');
+    expect(busyOr(other)).toBe(other);
+  });
+});
