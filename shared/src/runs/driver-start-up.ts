@@ -2,6 +2,7 @@ import { capacitorName, LADDER_NODES } from '../circuits/build-ladder-circuit';
 import { DRIVER_NODES } from '../circuits/build-driver-circuit';
 import type { Design } from '../designs/design.types';
 import { DomainError } from '../errors';
+import type { SimulationTolerances } from '../sim/circuit.types';
 import { MnaSystem } from '../sim/mna-system';
 import { readSettlingTimes, TurnOnTrigger } from '../sim/oscillation-measures';
 import { TransientStepper } from '../sim/transient';
@@ -20,6 +21,8 @@ export interface StartUpOptions {
   /** Oscillation cycles per block of the settling test and the projection; default 8. */
   blockCycles?: number;
   maxStepS?: number;
+  /** The stepper's tolerances; SPICE's defaults when not given (reltol 1e-3). */
+  tolerances?: Partial<SimulationTolerances>;
   plotBuckets?: number;
   onProgress?: (fraction: number) => void;
   shouldCancel?: () => boolean;
@@ -80,7 +83,10 @@ export function runDriverStartUp(givenDesign: Design, options: StartUpOptions = 
     capsF.map(() => 0),
   );
   const system = new MnaSystem(circuit);
-  const stepper = new TransientStepper(system, { maxStepS: options.maxStepS ?? periodGuessS / 200 });
+  const stepper = new TransientStepper(system, {
+    maxStepS: options.maxStepS ?? periodGuessS / 200,
+    ...(options.tolerances ? { tolerances: options.tolerances } : {}),
+  });
   stepper.startFromCharges(system.initialCharge);
   const capIndex = capsF.map((_, i) => system.reactiveNames.indexOf(capacitorName(i)));
   const top = system.probeIndex(LADDER_NODES.ladderTop);

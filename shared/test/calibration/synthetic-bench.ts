@@ -5,6 +5,8 @@ import type { Design } from '../../src/designs/design.types';
 import { toSpiceNetlist } from '../../src/sim/to-spice-netlist';
 import { windowMean } from '../../src/sim/waveform-measures';
 import type { MeasuredPoint } from '../../src/bench/bench.types';
+import { driverDesignCircuit, driverPeriodGuessS } from '../../src/runs/driver-design-circuit';
+import { TurnOnTrigger } from '../../src/sim/oscillation-measures';
 import { runNgspice } from '../ngspice/run-ngspice';
 
 /**
@@ -124,4 +126,59 @@ export async function ngspiceDischarge(design: Design, spanS: number, count: num
 export function withNoise(xs: readonly number[], ys: readonly number[], sigma: number, seed: number): MeasuredPoint[] {
   const normal = gaussian(seed);
   return xs.map((x, i) => ({ x, y: ys[i]! * (1 + sigma * normal()) }));
+}
+
+/**
+ * The push-button start-up of a driver design by ngspice (reltol 1e-5, the empty ladder, the exported
+ * netlist), read as the simulator's start-up is read: the mean output over each oscillation cycle between
+ * turn-on events (`TurnOnTrigger`), interpolated at `timesS`. The run covers `periods` of the design's
+ * period guess.
+ */
+export async function ngspiceStartUp(design: Design, periods: number, count: number): Promise<MeasuredPoint[]> {
+  if (design.drive.kind !== 'driver') throw new Error('a start-up needs a driver design');
+  const driver = design.drive.driver;
+  const circuit = driverDesignCircuit(
+    design,
+    design.multiplier.capacitors.map(() => 0),
+  );
+  const periodS = driverPeriodGuessS(driver);
+  const netlist = toSpiceNetlist(circuit, {
+    transient: { stopTimeS: periods * periodS, maxStepS: periodS / 200, startFrom: 'element-initial-conditions' },
+    extraLines: ['.options reltol=1e-5'],
+  });
+  const trace = await runNgspice(netlist, ['v(col)', 'v(vcc)', 'i(vt1_lp_sense)', 'v(top)']);
+  const t = trace.timeS;
+  const top = trace.signals['v(top)']!;
+  const primary = trace.signals['i(vt1_lp_sense)']!;
+  const col = trace.signals['v(col)']!;
+  const vcc = trace.signals['v(vcc)']!;
+  const trigger = new TurnOnTrigger(driver.transformer.saturationCurrentA, 3 * periodS);
+  const cycleEndS: number[] = [0];
+  const cycleMeanV: number[] = [Math.abs(top[0]!)];
+  let lastS = NaN;
+  let area = 0;
+  for (let i = 1; i < t.length; i += 1) {
+    const dt = t[i]! - t[i - 1]!;
+    const fired = trigger.push(t[i]!, primary[i]!, col[i]! - vcc[i]!);
+    const before = Number.isNaN(fired) ? 1 : (fired - t[i - 1]!) / dt;
+    const vAt = top[i - 1]! + (top[i]! - top[i - 1]!) * before;
+    area += 0.5 * (top[i - 1]! + vAt) * dt * before;
+    if (!Number.isNaN(fired)) {
+      if (!Number.isNaN(lastS) && fired > lastS) {
+        cycleEndS.push(fired);
+        cycleMeanV.push(Math.abs(area / (fired - lastS)));
+      }
+      lastS = fired;
+      area = 0.5 * (vAt + top[i]!) * dt * (1 - before);
+    }
+  }
+  const endS = cycleEndS[cycleEndS.length - 1]!;
+  return Array.from({ length: count }, (_, k) => {
+    const x = ((k + 1) / count) * endS;
+    let j = 0;
+    while (j < cycleEndS.length - 2 && cycleEndS[j + 1]! < x) j += 1;
+    const t0 = cycleEndS[j]!;
+    const t1 = cycleEndS[j + 1]!;
+    return { x, y: cycleMeanV[j]! + ((cycleMeanV[j + 1]! - cycleMeanV[j]!) * (x - t0)) / (t1 - t0) };
+  });
 }
