@@ -2,7 +2,8 @@ import type { Design } from '../designs/design.types';
 import { stageTurnOffSlew, turnOffMagnetizingPeakA } from '../driver/turn-off-overshoot';
 import { withEffectiveTransformer } from '../transformer/given-numbers';
 import type { TransformerSection, TransformerSizerRequest } from '../transformer/transformer.types';
-import type { DesignReport } from './analyze-design';
+import { analyzeDesign, type DesignReport } from './analyze-design';
+import { withGivenTransformer } from './transformer-report';
 
 /** What the transformer Sizer takes from a design's driver: everything but the wires and tapes. */
 export type DriverSizerFigures = Pick<
@@ -17,13 +18,17 @@ export type DriverSizerFigures = Pick<
 >;
 
 /**
- * The transformer Sizer's driver figures from a design and its report, at the rated load: the primary
- * inductance and turns ratios the driver runs on (the section's when designed, else the given numbers), the
- * peak magnetizing current (the estimate's collector peak grown by the turn-off slew, as the Transformer tab
- * judges the flux), frequency, the on-time's share of the period and the larger secondary peak. Null without a
- * driver stage.
+ * The transformer Sizer's driver figures from a design and its report, at the rated load, for the driver as
+ * its given transformer numbers state it (the transformer the section is to realise; a designed section that
+ * spoils the driver would otherwise steer the Sizer): the primary inductance and turns ratios, the peak
+ * magnetizing current (the estimate's collector peak grown by the turn-off slew, as the Transformer tab judges
+ * the flux), frequency, the on-time's share of the period and the larger secondary peak. With a designed
+ * transformer the design is analysed once more on its given numbers. Null without a driver stage.
  */
-export function driverSizerFigures(design: Design, report: DesignReport): DriverSizerFigures | null {
+export function driverSizerFigures(openDesign: Design, openReport: DesignReport): DriverSizerFigures | null {
+  const isDesigned = openDesign.drive.kind === 'driver' && openDesign.drive.driver.transformerChoice === 'designed';
+  const design = isDesigned ? withGivenTransformer(openDesign) : openDesign;
+  const report = isDesigned ? analyzeDesign(design) : openReport;
   const effective = withEffectiveTransformer(design);
   if (effective.drive.kind !== 'driver' || !report.driver) return null;
   const stage = effective.drive.driver;

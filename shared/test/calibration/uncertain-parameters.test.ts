@@ -32,10 +32,13 @@ describe('secondary self-capacitance as an uncertain parameter', () => {
     const design = applyParameterValues(tester, ['secondarySelfCapacitance'], [20e-12]);
     if (design.drive.kind !== 'driver') throw new Error('the tester has a driver stage');
     expect(collectorNodeCapacitanceOf(design.drive.driver)).toBeCloseTo(100e-12 + 20e-12 * (1200 / 20) ** 2, 18);
-    // The estimate's output hardly depends on it (only through the switching loss): a load sweep leaves it
-    // undetermined, and the fit says so; a start-up by the simulator is the run that tells it.
+    // At no load the output hardly moves (the flyback still charges the ladder to the same peak); under load
+    // the reflected capacitance slows the collector's ring-back after the flyback, the cycle lengthens, less
+    // power reaches the ladder and the output falls, so a load sweep carries information about it.
     const currents = [0, 10e-6];
     const without = loadSweepEstimate(tester, currents);
-    loadSweepEstimate(design, currents).forEach((v, i) => expect(Math.abs(v / without[i]! - 1)).toBeLessThan(1e-6));
+    const withSelf = loadSweepEstimate(design, currents);
+    expect(Math.abs(withSelf[0]! / without[0]! - 1)).toBeLessThan(1e-3);
+    expect(withSelf[1]!).toBeLessThan(without[1]!);
   });
 });

@@ -36,6 +36,14 @@ describe('the transformer Sizer on an open design', () => {
     expect(driverSizerFigures(designExamples.ionizerBar, analyzeDesign(designExamples.ionizerBar))).toBeNull();
   });
 
+  it('reads the driver on its given numbers, so a section that spoils the driver does not steer the Sizer', () => {
+    const spoiling = withTransformerSection(tester, {
+      ...demoTransformerSection,
+      windings: demoTransformerSection.windings.map((w) => (w.role === 'primary' ? { ...w, turns: 40 } : w)),
+    });
+    expect(driverSizerFigures(spoiling, analyzeDesign(spoiling))).toEqual(figures);
+  });
+
   it('gives each section end margins for the flange creepage IEC 60664-1 asks, with the pass margin', () => {
     // Table F.4, pollution degree 1: 3.2 mm at 1000 V (read, REFERENCES.md §5): 1.2 × 1.05 × 3.2 / 2 = 2.02 mm,
     // so 2.1 mm a side.

@@ -1,10 +1,12 @@
 import type { Part } from '@ladderwright/shared/api';
-import type { DriverStage } from '@ladderwright/shared/driver';
+import type { SpacingEnvironment } from '@ladderwright/shared/designs';
+import { estimateBlockingOscillator, type DriverStage } from '@ladderwright/shared/driver';
 import { shelfMagnetics } from '@ladderwright/shared/parts';
 import {
   demoCoreKinds,
   demoTapeKinds,
   demoWireKinds,
+  endMarginForCreepageM,
   type CoreKind,
   type TapeKind,
   type TransformerSection,
@@ -24,9 +26,15 @@ export function magneticsChoices(parts: readonly Part[]): { cores: CoreKind[]; w
 /**
  * A first transformer section for a driver stage that has none: the given turns and primary inductance (as
  * the gap's target) on the first core offered, the thickest wire on the primary and the thinnest on the
- * secondary, the thinnest tape between layers and the thickest between windings; the user edits from there.
+ * secondary, the thinnest tape between layers and the thickest between windings, and, given the design's
+ * spacing, end margins for the flange creepage at the estimate's secondary peak (else 1.5 mm); the user edits
+ * from there.
  */
-export function startingSection(driver: DriverStage, parts: readonly Part[]): TransformerSection {
+export function startingSection(
+  driver: DriverStage,
+  parts: readonly Part[],
+  spacing?: SpacingEnvironment,
+): TransformerSection {
   const { cores, wires, tapes } = magneticsChoices(parts);
   const byDiameter = [...wires].sort((a, b) => a.copperDiameterM - b.copperDiameterM);
   const byThickness = [...tapes].sort((a, b) => a.thicknessM - b.thicknessM);
@@ -51,7 +59,20 @@ export function startingSection(driver: DriverStage, parts: readonly Part[]): Tr
     layerTape: thinTape,
     windingTape: thickTape,
     windingTapeWraps: 3,
-    endMarginM: 1.5e-3,
+    endMarginM: startingEndMarginM(driver, spacing),
     inductanceTolerance: 0.1,
   };
+}
+
+/** End margin for the flange creepage at the driver estimate's larger secondary peak; 1.5 mm without one. */
+function startingEndMarginM(driver: DriverStage, spacing: SpacingEnvironment | undefined): number {
+  if (!spacing) return 1.5e-3;
+  try {
+    const estimate = estimateBlockingOscillator(driver);
+    const peakV = Math.max(estimate.forwardSecondaryPeakV.value, estimate.flybackSecondaryPeakV.value);
+    return Number.isFinite(peakV) && peakV > 0 ? endMarginForCreepageM(peakV, spacing) : 1.5e-3;
+  } catch {
+    // A stage the estimate refuses (its fields are being typed): the plain margin, the Checks say the rest.
+    return 1.5e-3;
+  }
 }

@@ -96,7 +96,8 @@ function TransformerSizer({
   shelf: readonly Part[];
   onApply?: (section: TransformerSection) => void;
 }) {
-  const figures = driverSizerFigures(draft, report);
+  // With a designed transformer this analyses the design once more on its given numbers: once per report.
+  const figures = useMemo(() => driverSizerFigures(draft, report), [draft, report]);
   if (!figures) return null;
   const section = draft.drive.kind === 'driver' ? draft.drive.driver.transformerDesign : undefined;
   const wireOf = (role: 'primary' | 'secondary') => section?.windings.find((w) => w.role === role)?.wire.code;

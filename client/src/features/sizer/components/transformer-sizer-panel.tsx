@@ -132,8 +132,9 @@ export function TransformerSizerPanel({ shelf, design, onApply }: TransformerSiz
         {design && (
           <Group gap="xs" mb="xs">
             <Text size="xs" c="dimmed">
-              The peak current is the core’s magnetizing peak (the collector peak and its turn-off slew); the creepage
-              follows the design’s spacing.
+              The driver on its given transformer numbers, the ones a section is to realise; the peak current is the
+              core’s magnetizing peak (the collector peak and its turn-off slew); the creepage follows the design’s
+              spacing.
             </Text>
             <Button
               size="compact-xs"

@@ -154,7 +154,17 @@ const SectionBody = memo(
       case 'drive':
         return <DriveSection {...props} />;
       case 'transformer':
-        return driver && <TransformerSection driver={driver} edit={driverEdit(edit)} issue={issue} parts={parts} />;
+        return (
+          driver && (
+            <TransformerSection
+              driver={driver}
+              edit={driverEdit(edit)}
+              issue={issue}
+              parts={parts}
+              spacing={document.targets.spacing}
+            />
+          )
+        );
       case 'transistor':
         return driver && <TransistorSection driver={driver} edit={driverEdit(edit)} issue={issue} />;
       case 'ladder':

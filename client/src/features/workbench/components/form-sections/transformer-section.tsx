@@ -1,5 +1,6 @@
 import { SegmentedControl, Stack } from '@mantine/core';
 import type { Part } from '@ladderwright/shared/api';
+import type { SpacingEnvironment } from '@ladderwright/shared/designs';
 import type { DriverStage, DriverTransformer } from '@ladderwright/shared/driver';
 import type { QuantityUnit } from '@ladderwright/shared/units';
 import { BoundField } from '../../../../components/bound-field';
@@ -44,7 +45,13 @@ export interface DriverSectionProps {
  * The blocking oscillator's transformer: its numbers as given (the default), or designed from a core, a gap
  * and windings on the project's Parts shelf, from which the engine derives the same numbers.
  */
-export function TransformerSection({ driver, edit, issue, parts }: DriverSectionProps & { parts: readonly Part[] }) {
+export function TransformerSection({
+  driver,
+  edit,
+  issue,
+  parts,
+  spacing,
+}: DriverSectionProps & { parts: readonly Part[]; spacing?: SpacingEnvironment }) {
   const choice = driver.transformerChoice ?? 'given';
   return (
     <Stack gap="sm">
@@ -59,7 +66,7 @@ export function TransformerSection({ driver, edit, issue, parts }: DriverSection
         onChange={(value) =>
           edit((dr) => {
             if (value === 'designed') {
-              dr.transformerDesign ??= startingSection(dr, parts);
+              dr.transformerDesign ??= startingSection(dr, parts, spacing);
               dr.transformerChoice = 'designed';
             } else dr.transformerChoice = 'given';
           }, `${DRIVER_PATH}.transformerChoice`)
