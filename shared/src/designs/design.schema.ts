@@ -1,5 +1,6 @@
 import { Type } from '@sinclair/typebox';
 import { designLimits as L } from './design-limits';
+import { NAMED_DISCHARGE_RULES } from './discharge-rules';
 import { driverStageSchema, partCodeSchema } from './driver-stage.schema';
 import { coreKindSchema, tapeKindSchema, transformerSectionSchema, wireKindSchema } from './transformer-section.schema';
 import {
@@ -131,9 +132,7 @@ export const loadSchema = Type.Union([
   closedObject({ kind: Type.Literal('resistance'), resistanceOhm: positive(L.maxResistanceOhm) }),
 ]);
 
-/** The discharge rules known by name (safety/discharge.ts gives each its voltage, time and source). */
-export const NAMED_DISCHARGE_RULES = ['50V-1min', '50V-5min', '60V-5s'] as const;
-
+/** A discharge rule: one known by name, or a voltage and a time. */
 export const dischargeRuleSchema = Type.Union([
   ...NAMED_DISCHARGE_RULES.map((rule) => Type.Literal(rule)),
   closedObject({ voltageV: positive(L.maxVoltageV), timeS: positive(L.maxTimeS) }),
