@@ -1,4 +1,5 @@
-import { SegmentedControl, Stack } from '@mantine/core';
+import { lazy, Suspense } from 'react';
+import { Loader, SegmentedControl, Stack } from '@mantine/core';
 import type { Part } from '@ladderwright/shared/api';
 import type { SpacingEnvironment } from '@ladderwright/shared/designs';
 import type { DriverStage, DriverTransformer } from '@ladderwright/shared/driver';
@@ -6,10 +7,14 @@ import type { QuantityUnit } from '@ladderwright/shared/units';
 import { BoundField } from '../../../../components/bound-field';
 import { FieldGrid } from '../../../../components/field-grid';
 import { binder, type Edit } from '../../document-path';
-import { startingSection } from '../../transformer-start';
-import { DesignedTransformerFields } from './designed-transformer-fields';
 import { DRIVER_PATH } from './driver-edit';
 import type { SectionProps } from './form-section.types';
+
+// A section designed from a core takes the transformer engine and the driver estimate (for its first end
+// margins): that code loads when a design uses it, not with every Workbench.
+const DesignedTransformerFields = lazy(() =>
+  import('./designed-transformer-fields').then((module) => ({ default: module.DesignedTransformerFields })),
+);
 
 /** The keys of T that hold numbers. */
 export type NumberKeys<T> = { [K in keyof T]-?: T[K] extends number ? K : never }[keyof T] & string;
@@ -63,17 +68,23 @@ export function TransformerSection({
           { value: 'given', label: 'Given numbers' },
           { value: 'designed', label: 'Designed from a core' },
         ]}
-        onChange={(value) =>
-          edit((dr) => {
-            if (value === 'designed') {
+        onChange={(value) => {
+          if (value !== 'designed') {
+            edit((dr) => void (dr.transformerChoice = 'given'), `${DRIVER_PATH}.transformerChoice`);
+            return;
+          }
+          void import('../../transformer-start').then(({ startingSection }) =>
+            edit((dr) => {
               dr.transformerDesign ??= startingSection(dr, parts, spacing);
               dr.transformerChoice = 'designed';
-            } else dr.transformerChoice = 'given';
-          }, `${DRIVER_PATH}.transformerChoice`)
-        }
+            }, `${DRIVER_PATH}.transformerChoice`),
+          );
+        }}
       />
       {choice === 'designed' && driver.transformerDesign ? (
-        <DesignedTransformerFields section={driver.transformerDesign} edit={edit} issue={issue} parts={parts} />
+        <Suspense fallback={<Loader size="sm" aria-label="Loading the transformer fields" />}>
+          <DesignedTransformerFields section={driver.transformerDesign} edit={edit} issue={issue} parts={parts} />
+        </Suspense>
       ) : (
         <GivenTransformerFields driver={driver} edit={edit} issue={issue} />
       )}
