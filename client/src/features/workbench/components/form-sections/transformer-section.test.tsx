@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { fireEvent, screen, within } from '@testing-library/react';
+import { fireEvent, screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { driverExamples, type DriverStage } from '@ladderwright/shared/driver';
 import { renderWithApp } from '../../../../testing/render';
@@ -24,11 +24,12 @@ function Harness({ onStage }: { onStage: (stage: DriverStage) => void }) {
 }
 
 describe('TransformerSection', () => {
-  it('starts a designed transformer from the given turns and inductance, keeping them when switched back', () => {
+  it('starts a designed transformer from the given turns and inductance, keeping them when switched back', async () => {
     let stage: DriverStage | undefined;
     renderWithApp(<Harness onStage={(next) => (stage = next)} />);
     fireEvent.click(screen.getByText('Designed from a core'));
-    expect(stage?.transformerChoice).toBe('designed');
+    // The section's engine code loads on the first switch; the edit follows it.
+    await waitFor(() => expect(stage?.transformerChoice).toBe('designed'));
     const design = stage?.transformerDesign;
     expect(design?.gap).toEqual({ kind: 'primary-inductance', primaryInductanceH: 1e-3 });
     expect(design?.windings.map((w) => [w.role, w.turns])).toEqual([
@@ -40,7 +41,7 @@ describe('TransformerSection', () => {
     const [primary, , secondary] = design?.windings ?? [];
     expect(primary?.wire.copperDiameterM).toBeGreaterThan(secondary?.wire.copperDiameterM ?? Infinity);
 
-    fireEvent.change(screen.getByLabelText('Secondary turns'), { target: { value: '1500' } });
+    fireEvent.change(await screen.findByLabelText('Secondary turns'), { target: { value: '1500' } });
     expect(stage?.transformerDesign?.windings[2]?.turns).toBe(1500);
 
     fireEvent.click(screen.getByRole('button', { name: 'Wind the secondary earlier' }));
