@@ -16,7 +16,8 @@ import type { Part } from '@ladderwright/shared/api';
 import type { CapacitorPart, Topology } from '@ladderwright/shared/designs';
 import { QuantityInput } from '../../../components/quantity-input';
 import { capacitorPlacesOf, fillDown, gradeCapacitors, placeLabel } from '../ladder-edits';
-import { isCellBlock, pasteIntoCapacitors, type CapacitorColumnKey } from '../paste-cells';
+import { isCellBlock } from '../../../lib/spreadsheet-cells';
+import type { CapacitorColumnKey } from '../paste-cells';
 import classes from './capacitor-table.module.css';
 import { PartCodeInput } from './part-code-input';
 
@@ -79,13 +80,16 @@ export function CapacitorTable({
         const text = event.clipboardData.getData('text/plain');
         if (!isCellBlock(text)) return;
         event.preventDefault();
-        const result = pasteIntoCapacitors(latest.current.capacitors, text, row, column);
-        if (result.ok) {
-          latest.current.onChange(result.capacitors);
-          setPasteMessage({ isError: false, text: `Pasted ${result.cellCount} cells from C${row + 1}.` });
-        } else {
-          setPasteMessage({ isError: true, text: `Nothing pasted: ${result.message}` });
-        }
+        // The block's parser loads with the first paste.
+        void import('../paste-cells').then(({ pasteIntoCapacitors }) => {
+          const result = pasteIntoCapacitors(latest.current.capacitors, text, row, column);
+          if (result.ok) {
+            latest.current.onChange(result.capacitors);
+            setPasteMessage({ isError: false, text: `Pasted ${result.cellCount} cells from C${row + 1}.` });
+          } else {
+            setPasteMessage({ isError: true, text: `Nothing pasted: ${result.message}` });
+          }
+        });
       },
       fillDown: (index) => latest.current.onChange(fillDown(latest.current.capacitors, index)),
       pick: (index, part) => latest.current.onPickPart?.(index, part),
