@@ -82,9 +82,41 @@ export function fitted(doc: Doc, text: string, width: number): string {
   return `${text.slice(0, end).trimEnd()}…`;
 }
 
-/** A table with fixed column widths, one line per row; repeats the header after a page break. */
+/** The most lines a table cell wraps to; a longer text is cut with an ellipsis on the last one. */
+const MAX_CELL_LINES = 3;
+
+/** A cell's text wrapped at word boundaries to the width, at most MAX_CELL_LINES lines (the last cut to fit). */
+export function wrappedLines(doc: Doc, text: string, width: number): string[] {
+  const lines: string[] = [];
+  let line = '';
+  for (const word of text.split(/\s+/).filter((w) => w.length > 0)) {
+    const candidate = line ? `${line} ${word}` : word;
+    if (!line || doc.widthOfString(candidate) <= width) line = candidate;
+    else {
+      lines.push(line);
+      line = word;
+    }
+  }
+  if (line) lines.push(line);
+  if (lines.length > MAX_CELL_LINES) {
+    const kept = lines.slice(0, MAX_CELL_LINES);
+    kept[MAX_CELL_LINES - 1] = fitted(
+      doc,
+      `${kept[MAX_CELL_LINES - 1]} ${lines.slice(MAX_CELL_LINES).join(' ')}`,
+      width,
+    );
+    return kept.map((l) => fitted(doc, l, width));
+  }
+  return lines.map((l) => fitted(doc, l, width));
+}
+
+/**
+ * A table with fixed column widths; a long cell wraps (up to three lines) and its row grows to hold it. Repeats
+ * the header after a page break.
+ */
 export function table(doc: Doc, columns: Column[], rows: string[][]): void {
   const rowHeight = 15;
+  const lineHeight = 10.5;
   const drawHeader = () => {
     let x = MARGIN;
     const top = doc.y;
@@ -99,23 +131,26 @@ export function table(doc: Doc, columns: Column[], rows: string[][]): void {
   ensureRoom(doc, rowHeight * 3);
   drawHeader();
   rows.forEach((row, index) => {
-    if (doc.y + rowHeight > PAGE_BOTTOM) {
+    const cells = row.map((cell, i) => wrappedLines(doc, printable(cell), (columns[i]?.width ?? 60) - 4));
+    const lineCount = Math.max(1, ...cells.map((lines) => lines.length));
+    const height = rowHeight + (lineCount - 1) * lineHeight;
+    if (doc.y + height > PAGE_BOTTOM) {
       doc.addPage();
       drawHeader();
     }
     const top = doc.y;
     if (index % 2 === 0)
       doc
-        .rect(MARGIN, top - 3, TEXT_WIDTH, rowHeight)
+        .rect(MARGIN, top - 3, TEXT_WIDTH, height)
         .fill('#f1f4f7')
         .fillColor(INK);
     let x = MARGIN;
-    row.forEach((cell, i) => {
+    cells.forEach((lines, i) => {
       const width = columns[i]?.width ?? 60;
-      doc.text(fitted(doc, printable(cell), width - 4), x + 2, top, { width: width - 4, lineBreak: false });
+      lines.forEach((line, k) => doc.text(line, x + 2, top + k * lineHeight, { width: width - 4, lineBreak: false }));
       x += width;
     });
-    doc.y = top + rowHeight;
+    doc.y = top + height;
   });
   doc.x = MARGIN;
 }
