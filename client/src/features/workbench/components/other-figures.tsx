@@ -1,8 +1,9 @@
-import { Group, SimpleGrid, Text } from '@mantine/core';
+import { Group, Text } from '@mantine/core';
 import type { DesignReport } from '@ladderwright/shared/analysis';
 import type { MethodInfo } from '@ladderwright/shared/methods';
 import { formatQuantity } from '@ladderwright/shared/units';
 import { MethodNote } from './method-note';
+import classes from './other-figures.module.css';
 
 interface OtherFigure {
   label: string;
@@ -24,7 +25,7 @@ export function OtherFigures({ report }: { report: DesignReport }) {
     },
   ];
   return (
-    <SimpleGrid cols={{ base: 2, md: 4 }} spacing="xs" aria-label="Other figures" role="list">
+    <div className={classes.figures} aria-label="Other figures" role="list">
       {figures.map((figure) => (
         <div key={figure.label} role="listitem" aria-label={figure.label}>
           <Group gap={2} wrap="nowrap">
@@ -38,6 +39,6 @@ export function OtherFigures({ report }: { report: DesignReport }) {
           </Text>
         </div>
       ))}
-    </SimpleGrid>
+    </div>
   );
 }

@@ -1,10 +1,11 @@
-import { SimpleGrid, TextInput, Textarea } from '@mantine/core';
+import { TextInput, Textarea } from '@mantine/core';
+import classes from './design-section.module.css';
 import type { SectionProps } from './form-section.types';
 
 /** Name and notes of the design. */
 export function DesignSection({ document, edit, issue }: SectionProps) {
   return (
-    <SimpleGrid cols={{ base: 1, sm: 2 }} spacing="sm">
+    <div className={classes.grid}>
       <TextInput
         label="Name"
         value={document.name}
@@ -25,6 +26,6 @@ export function DesignSection({ document, edit, issue }: SectionProps) {
           edit((d) => void (d.notes = notes), 'notes');
         }}
       />
-    </SimpleGrid>
+    </div>
   );
 }
