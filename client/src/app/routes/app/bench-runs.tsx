@@ -1,5 +1,6 @@
 import { canActInProject } from '@ladderwright/shared/auth';
-import { Anchor, Breadcrumbs, Paper, Stack, Text, Title } from '@mantine/core';
+import { Anchor, Paper, Stack, Text, Title } from '@mantine/core';
+import { Trail } from '../../../components/trail';
 import { useDocumentTitle } from '@mantine/hooks';
 import { useSuspenseQuery } from '@tanstack/react-query';
 import { useState } from 'react';
@@ -29,7 +30,7 @@ export function BenchRunsRoute() {
   const navigate = useNavigate();
   return (
     <Stack gap="lg">
-      <Breadcrumbs>
+      <Trail>
         <Anchor component={Link} to={paths.project.getHref(projectId)} size="sm">
           {project.name}
         </Anchor>
@@ -37,7 +38,7 @@ export function BenchRunsRoute() {
           Workbench, revision {revisionNumber}
         </Anchor>
         <Text size="sm">Bench runs</Text>
-      </Breadcrumbs>
+      </Trail>
       <Title order={1} size="h2">
         Bench runs · revision {revisionNumber}
       </Title>

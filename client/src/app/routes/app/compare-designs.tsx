@@ -1,4 +1,5 @@
-import { Alert, Anchor, Breadcrumbs, Group, Loader, Select, Stack, Text, Title } from '@mantine/core';
+import { Alert, Anchor, Group, Loader, Select, Stack, Text, Title } from '@mantine/core';
+import { Trail } from '../../../components/trail';
 import { useDocumentTitle } from '@mantine/hooks';
 import { useSuspenseQuery } from '@tanstack/react-query';
 import { Link, useParams, useSearchParams } from 'react-router-dom';
@@ -78,7 +79,7 @@ export function CompareDesignsRoute() {
   const isSame = a && b && a.designId === b.designId && a.revisionNumber === b.revisionNumber;
   return (
     <Stack gap="md">
-      <Breadcrumbs>
+      <Trail>
         <Anchor component={Link} to={paths.projects.getHref()} size="sm">
           Projects
         </Anchor>
@@ -86,7 +87,7 @@ export function CompareDesignsRoute() {
           {project.name}
         </Anchor>
         <Text size="sm">Compare designs</Text>
-      </Breadcrumbs>
+      </Trail>
       <Title order={1} size="h2">
         Compare designs
       </Title>

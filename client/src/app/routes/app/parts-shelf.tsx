@@ -1,5 +1,6 @@
 import { canActInProject } from '@ladderwright/shared/auth';
-import { Anchor, Breadcrumbs, Button, Group, Paper, Stack, Text, Title } from '@mantine/core';
+import { Anchor, Button, Group, Paper, Stack, Text, Title } from '@mantine/core';
+import { Trail } from '../../../components/trail';
 import { useDocumentTitle } from '@mantine/hooks';
 import { useSuspenseQuery } from '@tanstack/react-query';
 import { useState } from 'react';
@@ -23,7 +24,7 @@ export function PartsShelfRoute() {
   const [pasted, setPasted] = useState<{ file: File; serial: number } | null>(null);
   return (
     <Stack gap="lg">
-      <Breadcrumbs>
+      <Trail>
         <Anchor component={Link} to={paths.projects.getHref()} size="sm">
           Projects
         </Anchor>
@@ -31,7 +32,7 @@ export function PartsShelfRoute() {
           {project.name}
         </Anchor>
         <Text size="sm">Parts shelf</Text>
-      </Breadcrumbs>
+      </Trail>
       <Group justify="space-between">
         <Title order={1} size="h2">
           Parts shelf

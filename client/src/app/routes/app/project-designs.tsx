@@ -1,5 +1,6 @@
 import { canActInProject } from '@ladderwright/shared/auth';
-import { Anchor, Breadcrumbs, Button, Group, Stack, Text, Title } from '@mantine/core';
+import { Anchor, Button, Group, Stack, Text, Title } from '@mantine/core';
+import { Trail } from '../../../components/trail';
 import { useDisclosure, useDocumentTitle } from '@mantine/hooks';
 import { useSuspenseQuery } from '@tanstack/react-query';
 import { Link, useNavigate, useParams } from 'react-router-dom';
@@ -21,12 +22,12 @@ export function ProjectDesignsRoute() {
   const navigate = useNavigate();
   return (
     <Stack gap="lg">
-      <Breadcrumbs>
+      <Trail>
         <Anchor component={Link} to={paths.projects.getHref()} size="sm">
           Projects
         </Anchor>
         <Text size="sm">{project.name}</Text>
-      </Breadcrumbs>
+      </Trail>
       <div>
         <Group gap="sm" align="center">
           <Title order={1} size="h2">

@@ -2,7 +2,8 @@ import { headlineSource } from '@ladderwright/shared/analysis';
 import { formatQuantity } from '@ladderwright/shared/units';
 import { canActInProject } from '@ladderwright/shared/auth';
 import { useMemo } from 'react';
-import { Accordion, Anchor, Breadcrumbs, Button, Grid, Group, Paper, Stack, Text, Title } from '@mantine/core';
+import { Accordion, Anchor, Button, Grid, Group, Paper, Stack, Text, Title } from '@mantine/core';
+import { Trail } from '../../../components/trail';
 import { useDocumentTitle } from '@mantine/hooks';
 import { useQuery, useSuspenseQuery, type QueryClient } from '@tanstack/react-query';
 import { Link, useNavigate, useParams, type LoaderFunctionArgs } from 'react-router-dom';
@@ -72,7 +73,7 @@ export function SignOffRoute() {
 
   return (
     <Stack gap="md">
-      <Breadcrumbs>
+      <Trail>
         <Anchor component={Link} to={paths.projects.getHref()} size="sm">
           Projects
         </Anchor>
@@ -83,7 +84,7 @@ export function SignOffRoute() {
           {design.name}
         </Anchor>
         <Text size="sm">Sign-off</Text>
-      </Breadcrumbs>
+      </Trail>
       <Group justify="space-between" align="flex-end" wrap="wrap">
         <div>
           <Group gap="sm">

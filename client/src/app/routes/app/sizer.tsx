@@ -1,4 +1,5 @@
-import { Alert, Anchor, Breadcrumbs, Stack, Text, Title } from '@mantine/core';
+import { Alert, Anchor, Stack, Text, Title } from '@mantine/core';
+import { Trail } from '../../../components/trail';
 import { useDocumentTitle } from '@mantine/hooks';
 import { useSuspenseQuery } from '@tanstack/react-query';
 import { Link, useNavigate, useParams } from 'react-router-dom';
@@ -29,7 +30,7 @@ export function SizerRoute() {
     );
   return (
     <Stack gap="lg">
-      <Breadcrumbs>
+      <Trail>
         <Anchor component={Link} to={paths.projects.getHref()} size="sm">
           Projects
         </Anchor>
@@ -37,7 +38,7 @@ export function SizerRoute() {
           {project.name}
         </Anchor>
         <Text size="sm">Sizer</Text>
-      </Breadcrumbs>
+      </Trail>
       <Title order={1} size="h2">
         Sizer
       </Title>

@@ -1,5 +1,6 @@
 import { useCallback, useLayoutEffect, useMemo, useRef, useState } from 'react';
-import { Alert, Anchor, Badge, Breadcrumbs, Group, List, Stack, Text } from '@mantine/core';
+import { Alert, Anchor, Badge, Group, List, Stack, Text } from '@mantine/core';
+import { Trail } from '../../../components/trail';
 import { useDocumentTitle } from '@mantine/hooks';
 import { useQueryClient, useSuspenseQuery, type QueryClient } from '@tanstack/react-query';
 import { Link, redirect, useNavigate, useParams, useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
@@ -70,7 +71,7 @@ export function WorkbenchRoute() {
 
   return (
     <Stack gap="md">
-      <Breadcrumbs>
+      <Trail>
         <Anchor component={Link} to={paths.projects.getHref()} size="sm">
           Projects
         </Anchor>
@@ -78,7 +79,7 @@ export function WorkbenchRoute() {
           {project.name}
         </Anchor>
         <Text size="sm">{design.name}</Text>
-      </Breadcrumbs>
+      </Trail>
       <EditableRevision
         key={`${designId}-${revision.number}`}
         projectId={projectId}
