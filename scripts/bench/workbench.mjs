@@ -49,6 +49,7 @@ function routeJs(manifest, routeSource) {
 }
 
 const kib = (bytes) => `${(bytes / 1024).toFixed(1)} KiB`;
+const kb = (bytes) => `${(bytes / 1000).toFixed(1)} kB`;
 
 /**
  * Median per-call time in µs of each function, over 9 rounds; in each round every function runs one batch of
@@ -94,9 +95,10 @@ function firstLoad() {
   console.log(
     `ratio Workbench / sign-in: raw ${(workbench.rawBytes / signIn.rawBytes).toFixed(2)}, gzip ${(workbench.gzipBytes / signIn.gzipBytes).toFixed(2)}`,
   );
-  const targetGzipBytes = 250 * 1024;
+  // The target is 250 kB: decimal kilobytes, 250,000 bytes (244.1 KiB).
+  const targetGzipBytes = 250 * 1000;
   console.log(
-    `Workbench initial JS ${kib(workbench.gzipBytes)} gzip (target ≤ ${kib(targetGzipBytes)}${workbench.gzipBytes <= targetGzipBytes ? ', met' : ', NOT met'}); sign-in route ${kib(signIn.gzipBytes)}`,
+    `Workbench initial JS ${kb(workbench.gzipBytes)} = ${kib(workbench.gzipBytes)} gzip (target ≤ ${kb(targetGzipBytes)}${workbench.gzipBytes <= targetGzipBytes ? ', met' : ', NOT met'}); sign-in route ${kb(signIn.gzipBytes)}`,
   );
 }
 
