@@ -33,7 +33,8 @@ export function quantityTickFormatter(values: Iterable<number>, unit: QuantityUn
   return (value: number) => formatQuantity(value, unit, figures);
 }
 
-const prefixOfExponent: Readonly<Record<number, string>> = {
+/** The SI prefix of each engineering exponent from 10⁻¹⁵ to 10⁹. */
+export const prefixOfExponent: Readonly<Record<number, string>> = {
   [-15]: 'f',
   [-12]: 'p',
   [-9]: 'n',

@@ -16,6 +16,7 @@ import type { CalibrationParameterOption } from '@ladderwright/shared/api';
 import type { BenchKind } from '@ladderwright/shared/bench';
 import type { CalibrationDataUse, CalibrationParameterId, PriorRange } from '@ladderwright/shared/calibration';
 import { formatDateTime } from '../../../lib/format-date';
+import { prefixOfExponent } from '../../../lib/tick-format';
 import { useCancelCalibration } from '../api/cancel-calibration';
 import { useCalibration } from '../api/get-calibration';
 import { useCalibrationParameters } from '../api/get-calibration-parameters';
@@ -32,23 +33,11 @@ export interface CalibrationRunChoice {
   pointCount: number;
 }
 
-const PREFIXES: Record<number, string> = {
-  [-15]: 'f',
-  [-12]: 'p',
-  [-9]: 'n',
-  [-6]: 'µ',
-  [-3]: 'm',
-  0: '',
-  3: 'k',
-  6: 'M',
-  9: 'G',
-};
-
 /** The factor and unit label the prior range is typed in: an SI prefix that puts the range's top in 1 … 1000. */
 export function priorInputScale(unit: string, max: number): { factor: number; label: string } {
   if (!unit || !(max > 0)) return { factor: 1, label: unit };
   const exponent = Math.max(-15, Math.min(9, 3 * Math.floor(Math.log10(max) / 3)));
-  return { factor: 10 ** exponent, label: `${PREFIXES[exponent] ?? ''}${unit}` };
+  return { factor: 10 ** exponent, label: `${prefixOfExponent[exponent] ?? ''}${unit}` };
 }
 
 const USES: Record<BenchKind, { value: CalibrationDataUse; label: string }[]> = {
