@@ -6,6 +6,7 @@ import type { DriverStage } from '../../src/designs/driver-stage.types';
 import { compareWithSimulation, ESTIMATE_VALIDITY_BOUNDS } from '../../src/driver/estimate-validity';
 import { runDriverDesign } from '../../src/runs/driver-runs';
 import type { DriverRunResult } from '../../src/runs/driver-run.types';
+import { threeCells } from '../ngspice/driver-comparison';
 
 // The validity contract of the instant estimate against our simulator (a warm-started run to its settling
 // criterion). Our simulator stands as the reference: it agrees with ngspice on the exported netlists of
@@ -31,11 +32,6 @@ function supply(
   change(design.drive.driver, design);
   return { name, design, isExpectedWithin: false };
 }
-
-const threeCells = (design: Design): void => {
-  design.multiplier.cellCount = 3;
-  design.multiplier.capacitors = design.multiplier.capacitors.slice(0, 3);
-};
 
 // The first two lie inside the region the estimate claims (zener 30 V over 3 V: reflected ≈ 8.4× the supply).
 const grid = [
