@@ -16,20 +16,23 @@ import {
 describe('winding layout (common practice, no source: counted by hand)', () => {
   const layout = layoutSection(demoTransformerSection);
   it('lays turns per layer by the usable breadth and the wire over enamel', () => {
-    // Breadth 11 mm − 2 × 3.5 mm margins = 4 mm; 0.064 mm wire → 62 turns a layer; 1200 turns → 20 layers
-    // of 60 turns.
+    // Breadth 15 mm − 2 × 3.5 mm margins = 8 mm; 0.064 mm wire → 125 turns a layer; 2400 turns → 20 layers
+    // of 120 turns.
     const secondary = layout.windings.find((w) => w.winding.role === 'secondary')!;
-    expect(secondary.layerCapacity).toBe(62);
+    expect(secondary.layerCapacity).toBe(125);
     expect(secondary.layers).toBe(20);
-    expect(secondary.turnsPerLayer).toBe(60);
+    expect(secondary.turnsPerLayer).toBe(120);
     // 20 layers of 0.064 mm and 19 wraps of 25 µm tape between them.
     expect(secondary.buildM).toBeCloseTo(20 * 0.064e-3 + 19 * 25e-6, 12);
+    // 0.23 mm wire: 34 turns a layer, so the 40 primary turns take 2 layers of 20.
+    const primary = layout.windings.find((w) => w.winding.role === 'primary')!;
+    expect([primary.layerCapacity, primary.layers, primary.turnsPerLayer]).toEqual([34, 2, 20]);
   });
 
   it('fills the window with the copper area of every turn', () => {
     const copper =
-      (20 * Math.PI * 0.2e-3 ** 2) / 4 + (8 * Math.PI * 0.1e-3 ** 2) / 4 + (1200 * Math.PI * 0.05e-3 ** 2) / 4;
-    expect(layout.windowFill).toBeCloseTo(copper / 48e-6, 12);
+      (40 * Math.PI * 0.2e-3 ** 2) / 4 + (16 * Math.PI * 0.1e-3 ** 2) / 4 + (2400 * Math.PI * 0.05e-3 ** 2) / 4;
+    expect(layout.windowFill).toBeCloseTo(copper / 87e-6, 12);
   });
 });
 
