@@ -316,12 +316,22 @@ export function driverOperatingPoint(
   const maxFlyV = limitEst.maxFlybackSecV;
   const limitDrive = driveOf(limitEst, driver, 0);
   // The end of the curve's loads, each warm-started from the last power balance solved.
-  let lastBalance: WarmStart | null = null;
+  // Power-limited, the flyback carries about a fixed power, V₋·I nearly constant: a warm start is the last
+  // balance moved along that hyperbola (the first past the onset from the limit there).
+  let lastBalance: { loadA: number; balance: WarmStart } | null = null;
   const endBalances: { loadA: number; balance: WarmStart }[] = [];
   const pointAt = (loadA: number) => {
-    const solved = solvePoint(driver, ladder, loadA, options, limitEst, undefined, lastBalance);
-    if (solved.balance) endBalances.push({ loadA, balance: solved.balance });
-    lastBalance = solved.balance ?? lastBalance;
+    const scale = lastBalance ? lastBalance.loadA / loadA : powerLimitOnsetA / loadA;
+    const warm = lastBalance
+      ? { flybackV: lastBalance.balance.flybackV * scale, slope: lastBalance.balance.slope / scale }
+      : powerLimitOnsetA > 0 && scale < 1
+        ? { flybackV: maxFlyV * scale, slope: -lastFlybackRatio * loadA }
+        : null;
+    const solved = solvePoint(driver, ladder, loadA, options, limitEst, undefined, warm);
+    if (solved.balance) {
+      endBalances.push({ loadA, balance: solved.balance });
+      lastBalance = { loadA, balance: solved.balance };
+    }
     return solved.point;
   };
   // Deliverable flyback power over what the ladder takes at the limit drive, per volt of flyback: power-limited below zero.
