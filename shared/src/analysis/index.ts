@@ -2,6 +2,7 @@ export { analyzeDesign, analyzeLadderReport, evaluateChecks, resolveDrive, ladde
 export type { DesignReport, LadderReport, LadderReportOptions } from './analyze-design';
 export {
   headlineSource,
+  IRREGULAR_OSCILLATION_NOTE,
   LADDER_ESTIMATE_TOLERANCE,
   simulationSourceLabel,
   STORED_SIMULATION_METHOD,

@@ -14,6 +14,8 @@ export interface SimulatedFigures {
   ripplePeakToPeakV: number | null;
   dischargeTimeS: number | null;
   oscillationFrequencyHz?: number | null;
+  /** The simulated cycles spread in length (bursts): the frequency is their mean (SimulationSummary). */
+  isOscillationIrregular?: boolean | null;
   efficiency?: number | null;
   /**
    * The simulated time (s) within which the run did not settle (the steady run, or a driver's cold start),
@@ -55,7 +57,16 @@ export interface HeadlineSource {
   simulatedAt: string | null;
   /** The simulated time (s) within which the simulation used did not settle; null when it settled or none is used. */
   notSettledWithinS: number | null;
+  /** The simulation used found the oscillation irregular (IRREGULAR_OSCILLATION_NOTE); false when none is used. */
+  isOscillationIrregular: boolean;
 }
+
+/**
+ * What an irregular simulated oscillation means, in plain words, wherever its frequency is shown (Waveforms,
+ * the estimate's difference, spec sheet).
+ */
+export const IRREGULAR_OSCILLATION_NOTE =
+  'irregular oscillation: the transistor turns on in bursts and the cycles differ in length by more than 20 %, so the frequency is their mean';
 
 /**
  * How a figure taken from the stored simulation is marked wherever it is shown (Workbench, Checks, Sign-off,
@@ -158,6 +169,7 @@ export function headlineSource(
       differences: [],
       simulatedAt: null,
       notSettledWithinS: null,
+      isOscillationIrregular: false,
     };
   }
   const driver = report.driver;
@@ -198,14 +210,17 @@ export function headlineSource(
   if (driver) {
     const frequencyHz = simulation.oscillationFrequencyHz;
     if (frequencyHz !== null && frequencyHz !== undefined) {
+      const entry = difference(
+        'frequency',
+        'Oscillation frequency',
+        driver.benchFigures.oscillationFrequencyHz,
+        frequencyHz,
+        ESTIMATE_VALIDITY_BOUNDS.frequency,
+      );
       push(
-        difference(
-          'frequency',
-          'Oscillation frequency',
-          driver.benchFigures.oscillationFrequencyHz,
-          frequencyHz,
-          ESTIMATE_VALIDITY_BOUNDS.frequency,
-        ),
+        entry && simulation.isOscillationIrregular
+          ? { ...entry, text: `${entry.text}; ${IRREGULAR_OSCILLATION_NOTE}` }
+          : entry,
       );
     }
     const efficiency = simulation.efficiency;
@@ -231,5 +246,6 @@ export function headlineSource(
     differences,
     simulatedAt: simulation.finishedAt,
     notSettledWithinS: simulation.notSettledWithinS ?? null,
+    isOscillationIrregular: Boolean(driver && simulation.isOscillationIrregular),
   };
 }
