@@ -1,18 +1,12 @@
 export { analyzeDesign, analyzeLadderReport, evaluateChecks, resolveDrive, ladderInputOf } from './analyze-design';
 export type { DesignReport, LadderReport, LadderReportOptions } from './analyze-design';
+export { headlineSource, LADDER_ESTIMATE_TOLERANCE } from './simulated-figures';
 export {
-  headlineSource,
+  estimateHeadline,
   IRREGULAR_OSCILLATION_NOTE,
-  LADDER_ESTIMATE_TOLERANCE,
   simulationSourceLabel,
   STORED_SIMULATION_METHOD,
-} from './simulated-figures';
-export type {
-  ComparedFigure,
-  FigureDifference,
-  FigureSource,
-  HeadlineSource,
-  SimulatedFigures,
-} from './simulated-figures';
+} from './figure-source';
+export type { ComparedFigure, FigureDifference, FigureSource, HeadlineSource, SimulatedFigures } from './figure-source';
 export { driverSizerFigures, withTransformerSection } from './transformer-sizer-inputs';
 export type { DriverSizerFigures } from './transformer-sizer-inputs';
