@@ -14,4 +14,6 @@ export type {
   SimulatedFigures,
 } from './simulated-figures';
 export { driverSizerFigures, withTransformerSection } from './transformer-sizer-inputs';
+export { checksWorsenedBySection, sectionAssessor } from './section-on-design';
+export type { WorsenedCheck } from './section-on-design';
 export type { DriverSizerFigures } from './transformer-sizer-inputs';
