@@ -93,7 +93,8 @@ function supplyCurrentTable(
 ): (v: number) => number {
   const points = 8;
   const table: { v: number; i: number }[] = [];
-  // Each voltage's power balance starts from the last one solved.
+  // Each voltage's power balance starts from the last one's; none after a ladder-limited voltage (a higher
+  // supply delivers more, so the next is ladder-limited too, which the warm start would only try to disprove).
   let warm: WarmStart | null = null;
   for (let k = 0; k < points; k++) {
     const v = lowV + ((highV - lowV) * k) / (points - 1);
@@ -102,7 +103,7 @@ function supplyCurrentTable(
     try {
       if (ladder) {
         const near = supplyCurrentNear(bench, ladder, loadA, warm);
-        warm = near.balance ?? warm;
+        warm = near.balance;
         i = near.supplyCurrentA;
       } else i = blockingOscillatorNumbers(bench).inputA;
     } catch (error) {
