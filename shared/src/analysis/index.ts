@@ -1,17 +1,7 @@
 export { analyzeDesign, analyzeLadderReport, evaluateChecks, resolveDrive, ladderInputOf } from './analyze-design';
 export type { DesignReport, LadderReport, LadderReportOptions } from './analyze-design';
-export {
-  headlineSource,
-  LADDER_ESTIMATE_TOLERANCE,
-  simulationSourceLabel,
-  STORED_SIMULATION_METHOD,
-} from './simulated-figures';
-export type {
-  ComparedFigure,
-  FigureDifference,
-  FigureSource,
-  HeadlineSource,
-  SimulatedFigures,
-} from './simulated-figures';
+export { headlineSource, LADDER_ESTIMATE_TOLERANCE } from './simulated-figures';
+export { estimateHeadline, simulationSourceLabel, STORED_SIMULATION_METHOD } from './figure-source';
+export type { ComparedFigure, FigureDifference, FigureSource, HeadlineSource, SimulatedFigures } from './figure-source';
 export { driverSizerFigures, withTransformerSection } from './transformer-sizer-inputs';
 export type { DriverSizerFigures } from './transformer-sizer-inputs';

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { designExamples } from '../designs/design-examples';
 import { analyzeDesign } from './analyze-design';
-import { headlineSource, simulationSourceLabel, type SimulatedFigures } from './simulated-figures';
+import { simulationSourceLabel, type SimulatedFigures } from './figure-source';
+import { headlineSource } from './simulated-figures';
 
 const tester = designExamples.surfaceChargeTester;
 const report = analyzeDesign(tester);

@@ -2,17 +2,10 @@ import { describe, expect, it } from 'vitest';
 import { analyzeDesign, driverSizerFigures, withTransformerSection } from '../../src/analysis';
 import { designExamples } from '../../src/designs/design-examples';
 import { requiredCreepageMm } from '../../src/safety/creepage';
-import {
-  demoCoreKinds,
-  demoTapeKinds,
-  demoTransformerSection,
-  demoWireKinds,
-  endMarginForCreepageM,
-  sizeTransformer,
-} from '../../src/transformer';
+import { demoCoreKinds, demoTransformerSection, endMarginForCreepageM, sizeTransformer } from '../../src/transformer';
+import { testerSizerRequest } from './tester-fixtures';
 
 const tester = designExamples.surfaceChargeTester;
-const wire = (code: string) => demoWireKinds.find((w) => w.code === code)!;
 
 describe('the transformer Sizer on an open design', () => {
   const report = analyzeDesign(tester);
@@ -39,7 +32,7 @@ describe('the transformer Sizer on an open design', () => {
   it('reads the driver on its given numbers, so a section that spoils the driver does not steer the Sizer', () => {
     const spoiling = withTransformerSection(tester, {
       ...demoTransformerSection,
-      windings: demoTransformerSection.windings.map((w) => (w.role === 'primary' ? { ...w, turns: 40 } : w)),
+      windings: demoTransformerSection.windings.map((w) => (w.role === 'primary' ? { ...w, turns: 80 } : w)),
     });
     expect(driverSizerFigures(spoiling, analyzeDesign(spoiling))).toEqual(figures);
   });
@@ -56,21 +49,12 @@ describe('the transformer Sizer on an open design', () => {
   });
 
   it('a fitting core applied to the design passes every transformer Check and keeps the output target', () => {
-    const ranked = sizeTransformer(
-      demoCoreKinds,
-      {
-        ...figures,
-        primaryWire: wire('Wire 0.20 mm grade 2'),
-        feedbackWire: wire('Wire 0.20 mm grade 2'),
-        secondaryWire: wire('Wire 0.05 mm grade 2'),
-        windingTape: demoTapeKinds[1]!,
-        windingTapeWraps: 3,
-        layerTape: demoTapeKinds[0]!,
-      },
-      tester.targets.spacing,
-    );
-    const chosen = ranked.find((c) => c.refusal === null && c.core.code === 'Core E20 ferrite grade B');
-    if (!chosen?.section) throw new Error('the high-permeability E20 core fits the tester');
+    const ranked = sizeTransformer(demoCoreKinds, testerSizerRequest(), tester.targets.spacing);
+    // With a gap no shorter than can be made, only the E25 core's bobbin holds the turns (the E20 and
+    // smaller cores need more turns than their bobbins hold).
+    expect(ranked.filter((c) => c.refusal === null).map((c) => c.core.code)).toEqual(['Core E25 ferrite grade A']);
+    const chosen = ranked.find((c) => c.refusal === null && c.core.code === 'Core E25 ferrite grade A');
+    if (!chosen?.section) throw new Error('the E25 core fits the tester');
     // The secondary in the given numbers' ratio: 60 times the primary.
     expect(chosen.secondaryTurns).toBe(60 * chosen.primaryTurns);
     const applied = withTransformerSection(tester, chosen.section);

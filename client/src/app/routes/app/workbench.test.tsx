@@ -146,7 +146,8 @@ describe('Workbench save when someone saved meanwhile', () => {
     await waitFor(() => expect(saveButton).toBeEnabled());
     fireEvent.click(saveButton);
 
-    const alert = await screen.findByRole('alert', { name: /Someone saved r2 meanwhile/ });
+    // The alert's module loads on demand (a save conflict is rare), so its first showing may take a moment.
+    const alert = await screen.findByRole('alert', { name: /Someone saved r2 meanwhile/ }, { timeout: 5000 });
     expect(within(alert).getByText('C2 capacitance')).toBeInTheDocument();
     expect(within(alert).getByText('Ripple limit')).toBeInTheDocument();
     expect(saves[0]?.baseRevisionNumber).toBe(1);

@@ -71,7 +71,7 @@ describe('TransformerSizerPanel', () => {
         design={{
           name: 'Tester',
           figures: {
-            primaryInductanceH: 1e-3,
+            primaryInductanceH: 0.25e-3,
             primaryPeakCurrentA: 0.08,
             turnsRatio: 60,
             feedbackRatio: 0.4,
@@ -88,16 +88,19 @@ describe('TransformerSizerPanel', () => {
     expect(screen.getByText('From the driver of Tester, at the rated load')).toBeInTheDocument();
     fireEvent.click(screen.getByRole('button', { name: 'Rank 1 shelf cores' }));
     const row = within(screen.getByRole('table', { name: 'Ranked cores' })).getAllByRole('row')[1]!;
-    // AL of the ungapped core bounds the turns: √(1 mH / 4.5 µH) = 14.9, so 15; 6 feedback, 900 secondary.
-    expect(within(row).getByText('15 : 6 : 900')).toBeInTheDocument();
+    // The shortest gap that can be made, 0.05 mm (common practice, no source), bounds the turns. McLyman's gapped
+    // AL (Transformer and Inductor Design Handbook, 3rd ed., ch. 8, from memory), by hand: le/µr = µ0·32 mm² /
+    // 4.5 µH = 8.936 µm, F = 1 + (0.05/√32)·ln(22/0.05) = 1.0538, AL = F·µ0·Ae/(50 µm + 8.936 µm) = 0.719 µH;
+    // √(0.25 mH / 0.719 µH) = 18.6, so 19; 0.4 × 19 = 7.6 → 8 feedback, 60 × 19 = 1140 secondary.
+    expect(within(row).getByText('19 : 8 : 1140')).toBeInTheDocument();
     fireEvent.click(within(row).getByRole('button', { name: 'Apply NF-KE20-M2 to the design' }));
     expect(onApply).toHaveBeenCalledTimes(1);
     const [section, code] = onApply.mock.calls[0] as [{ windings: { role: string; turns: number }[] }, string];
     expect(code).toBe('NF-KE20-M2');
     expect(section.windings.map((w) => [w.role, w.turns])).toEqual([
-      ['primary', 15],
-      ['feedback', 6],
-      ['secondary', 900],
+      ['primary', 19],
+      ['feedback', 8],
+      ['secondary', 1140],
     ]);
     expect(screen.getByRole('status')).toHaveTextContent('NF-KE20-M2 applied to the draft');
   });
