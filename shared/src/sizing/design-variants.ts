@@ -33,7 +33,6 @@ function checkCount(count: number, field: string): void {
 
 /** A copy of `design` with the number at `path` replaced; 400 naming `field` when the path holds no number. */
 function withNumberAt(design: Design, path: string, value: number, field: string): Design {
-  // A design is plain JSON data; structuredClone is not in the library the shared build compiles against.
   const copy = JSON.parse(JSON.stringify(design)) as Record<string | number, unknown>;
   const keys = pathKeys(path);
   let node: Record<string | number, unknown> = copy;
