@@ -9,4 +9,6 @@ export {
 } from './figure-source';
 export type { ComparedFigure, FigureDifference, FigureSource, HeadlineSource, SimulatedFigures } from './figure-source';
 export { driverSizerFigures, withTransformerSection } from './transformer-sizer-inputs';
+export { checksWorsenedBySection, sectionAssessor } from './section-on-design';
+export type { WorsenedCheck } from './section-on-design';
 export type { DriverSizerFigures } from './transformer-sizer-inputs';

@@ -94,6 +94,8 @@ export function runDriverDesign(givenDesign: Design, options: DriverRunOptions =
       : finalMean,
     ripplePeakToPeakV: cycles.ripplePeakToPeakV,
     timeToSteadyStateS: reachedAtS,
+    timeTo1PercentS: null,
+    startUpMethod: 'transient',
     cyclesSimulated: Math.round(frame.stepper.timeS * (frequencyHz ?? 1 / estimatePeriodS)),
     periodicSteadyState: null,
     startUp: downsampleMinMax(t, v, buckets),
