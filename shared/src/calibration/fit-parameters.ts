@@ -30,7 +30,7 @@ export interface FitOptions {
 export interface FitOutcome {
   values: number[];
   u: number[];
-  /** m × p, ∂prediction/∂u at the optimum. */
+  /** m × p, ∂prediction/∂u at the optimum (central differences where the bounds allow). */
   jacobian: number[][];
   initialPrediction: number[];
   prediction: number[];
@@ -140,20 +140,45 @@ export async function fitParameters(
     return proposal;
   };
 
-  let jacobian = await jacobianAt(u, prediction);
-  let jacobianIsCurrent = true;
+  /**
+   * The Jacobian the statistics read, at the optimum: central differences (u ± step) where both lie in
+   * [0, 1], so that the curvature over the step does not bias the slopes (a forward difference's error is
+   * of the step's order, a central one's of its square); else the one-sided column as above.
+   */
+  const centralJacobianAt = async (at: number[], atPrediction: number[]): Promise<number[][]> => {
+    const twoSided = at.map((uj) => uj - stepU >= 0 && uj + stepU <= 1);
+    const columns = twoSided.flatMap((both, j) => (both ? [j] : []));
+    if (columns.length === 0) return jacobianAt(at, atPrediction);
+    const shift = (j: number, h: number) => at.map((ui, k) => (k === j ? ui + h : ui));
+    const answers = await evaluate(columns.flatMap((j) => [shift(j, stepU), shift(j, -stepU)]));
+    const oneSided = twoSided.some((both) => !both) ? await jacobianAt(at, atPrediction) : null;
+    const central = new Map<number, number[]>();
+    columns.forEach((j, c) => {
+      const up = answers[2 * c];
+      const down = answers[2 * c + 1];
+      if (up && down)
+        central.set(
+          j,
+          up.map((v, i) => (v - (down[i] as number)) / (2 * stepU)),
+        );
+    });
+    const fallback = central.size < columns.length && !oneSided ? await jacobianAt(at, atPrediction) : oneSided;
+    return Array.from({ length: m }, (_, i) =>
+      at.map((_, j) => central.get(j)?.[i] ?? (((fallback as number[][])[i] as number[])[j] as number)),
+    );
+  };
+
+  // The Jacobian at the first u; null once a step has moved u (each iteration then computes its own).
+  let jacobian: number[][] | null = await jacobianAt(u, prediction);
   let damping = 1e-2;
   let iterations = 0;
   let isConverged = false;
   while (iterations < maxIterations) {
     iterations += 1;
-    if (!jacobianIsCurrent) {
-      jacobian = await jacobianAt(u, prediction);
-      jacobianIsCurrent = true;
-    }
+    const current: number[][] = jacobian ?? (await jacobianAt(u, prediction));
     let accepted: { u: number[]; prediction: number[]; cost: number } | null = null;
     for (let attempt = 0; attempt < 8 && !accepted; attempt += 1) {
-      const proposal = propose(jacobian, damping);
+      const proposal = propose(current, damping);
       if (!proposal || proposal.every((v, j) => Math.abs(v - (u[j] as number)) < 1e-10)) break;
       const [answer] = await evaluate([proposal]);
       const proposalCost = cost(target, answer ?? null);
@@ -173,18 +198,18 @@ export async function fitParameters(
     u = accepted.u;
     prediction = accepted.prediction;
     currentCost = accepted.cost;
-    jacobianIsCurrent = false;
+    jacobian = null;
     if (improvement < tolerance) {
       isConverged = true;
       break;
     }
   }
-  if (!jacobianIsCurrent) jacobian = await jacobianAt(u, prediction);
+  const finalJacobian = await centralJacobianAt(u, prediction);
   options.onProgress?.(1);
   return {
     values: valuesOf(u),
     u,
-    jacobian,
+    jacobian: finalJacobian,
     initialPrediction,
     prediction,
     costBefore,
