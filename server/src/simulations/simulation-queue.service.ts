@@ -4,6 +4,14 @@ import { APP_ENV, type AppEnv } from '../config/env';
 
 export const SIMULATION_QUEUE = 'simulation-jobs';
 
+/** The queue of a calibration's model runs (rows of `calibration_evaluations`), taken by every instance. */
+export const CALIBRATION_EVALUATION_QUEUE = 'calibration-evaluations';
+
+/** The payload of a model run: only the id; the run itself is our `calibration_evaluations` row. */
+export interface CalibrationEvaluationPayload {
+  evaluationId: string;
+}
+
 /** The pg-boss payload: only the id; the job itself is our `simulation_jobs` row. */
 export interface SimulationQueuePayload {
   simulationJobId: string;
@@ -24,6 +32,7 @@ export class SimulationQueueService implements OnModuleDestroy {
   private readonly logger = new Logger('SimulationQueue');
   private starting: Promise<PgBoss> | null = null;
   private readonly workerIds: string[] = [];
+  private readonly evaluationWorkerIds: string[] = [];
   private isStopped = false;
 
   constructor(@Inject(APP_ENV) private readonly env: AppEnv) {}
@@ -41,6 +50,27 @@ export class SimulationQueueService implements OnModuleDestroy {
     return id;
   }
 
+  /** Queues model runs of a calibration; wakes this instance's model-run workers (others poll). */
+  async sendEvaluations(payloads: readonly CalibrationEvaluationPayload[]): Promise<void> {
+    const boss = await this.boss();
+    for (const payload of payloads) {
+      const id = await boss.send(CALIBRATION_EVALUATION_QUEUE, payload, {
+        retryLimit: 0,
+        expireInSeconds: this.expireInSeconds(),
+      });
+      if (!id) throw new Error('pg-boss refused the model run');
+    }
+    for (const workerId of this.evaluationWorkerIds) boss.notifyWorker(workerId);
+  }
+
+  /** Subscribes `concurrency` model-run workers, each taking one run at a time. */
+  async workEvaluations(
+    concurrency: number,
+    handler: (payload: CalibrationEvaluationPayload) => Promise<void>,
+  ): Promise<void> {
+    await this.subscribe(CALIBRATION_EVALUATION_QUEUE, concurrency, handler, this.evaluationWorkerIds);
+  }
+
   /** Withdraws a job that no worker has taken yet (a taken one is stopped through our table instead). */
   async cancel(queueJobId: string): Promise<void> {
     const boss = await this.boss();
@@ -49,16 +79,25 @@ export class SimulationQueueService implements OnModuleDestroy {
 
   /** Subscribes `concurrency` workers, each taking one job at a time. */
   async work(concurrency: number, handler: (payload: SimulationQueuePayload) => Promise<void>): Promise<void> {
+    await this.subscribe(SIMULATION_QUEUE, concurrency, handler, this.workerIds);
+  }
+
+  private async subscribe<T extends object>(
+    queue: string,
+    concurrency: number,
+    handler: (payload: T) => Promise<void>,
+    ids: string[],
+  ): Promise<void> {
     const boss = await this.boss();
     for (let i = 0; i < concurrency; i++) {
-      const id = await boss.work<SimulationQueuePayload>(
-        SIMULATION_QUEUE,
+      const id = await boss.work<T>(
+        queue,
         { batchSize: 1, pollingIntervalSeconds: POLLING_INTERVAL_SECONDS },
         async (jobs) => {
           for (const job of jobs) await handler(job.data);
         },
       );
-      this.workerIds.push(id);
+      ids.push(id);
     }
   }
 
@@ -96,6 +135,11 @@ export class SimulationQueueService implements OnModuleDestroy {
       await boss.createQueue(SIMULATION_QUEUE, {
         name: SIMULATION_QUEUE,
         retryLimit: 1,
+        expireInSeconds: this.expireInSeconds(),
+      });
+      await boss.createQueue(CALIBRATION_EVALUATION_QUEUE, {
+        name: CALIBRATION_EVALUATION_QUEUE,
+        retryLimit: 0,
         expireInSeconds: this.expireInSeconds(),
       });
     } catch (error) {
