@@ -17,7 +17,40 @@ export interface FitParameter {
  */
 export type BatchModel = (valueSets: number[][]) => Promise<(number[] | null)[]>;
 
+/** The first primes: the bases of the Halton sequence's coordinates. */
+const HALTON_BASES = [2, 3, 5, 7, 11, 13, 17, 19, 23, 29, 31, 37];
+
+/** Radical inverse of k in `base` (the Halton sequence's coordinate). */
+function radicalInverse(k: number, base: number): number {
+  let result = 0;
+  let fraction = 1 / base;
+  for (let i = k; i > 0; i = Math.floor(i / base)) {
+    result += (i % base) * fraction;
+    fraction /= base;
+  }
+  return result;
+}
+
+/**
+ * `count` points spread over the unit cube [0, 1]^p: for one parameter an even grid with half-cells at the
+ * ends, else the Halton sequence from its first point (a low-discrepancy set, deterministic; Halton 1960,
+ * from memory).
+ */
+export function startPoints(p: number, count: number): number[][] {
+  if (count <= 0) return [];
+  if (p === 1) return Array.from({ length: count }, (_, k) => [(k + 0.5) / count]);
+  return Array.from({ length: count }, (_, k) =>
+    Array.from({ length: p }, (_, j) => radicalInverse(k + 1, HALTON_BASES[j % HALTON_BASES.length] as number)),
+  );
+}
+
 export interface FitOptions {
+  /**
+   * Points over the prior ranges evaluated with the design's own values, in one batch, before the first
+   * step; the fit starts from the best of them (default none). For a cost with several valleys, such as a
+   * waveform's samples, where a local fit from the design's values can stop in the wrong one.
+   */
+  startPoints?: number;
   maxIterations?: number;
   /** Finite-difference step in u (default 1e-3; a simulator's answer needs a larger one, e.g. 1e-2). */
   stepU?: number;
@@ -65,7 +98,8 @@ function cost(target: readonly number[], prediction: readonly number[] | null): 
  * bounds), taken one iteration at a time with the Jacobian we hand it: our loop evaluates the Jacobian's
  * columns as one batch (in parallel where the model allows), accepts a step only when it lowers the cost
  * and otherwise raises the damping (×11, down ×9 on success, the package's factors). Coordinates are
- * u ∈ [0, 1] over each prior range, so the bounds are the prior ranges.
+ * u ∈ [0, 1] over each prior range, so the bounds are the prior ranges. With `startPoints` the first step
+ * starts from the best of those points and the design's values; the cost "before" stays the design's.
  */
 export async function fitParameters(
   parameters: readonly FitParameter[],
@@ -88,7 +122,8 @@ export async function fitParameters(
   };
 
   let u = parameters.map((parameter) => Math.min(1, Math.max(0, toU(parameter, parameter.initialValue))));
-  const [first] = await evaluate([u]);
+  const starts = startPoints(p, options.startPoints ?? 0);
+  const [first, ...others] = await evaluate([u, ...starts]);
   if (!first) {
     throw new DomainError(
       'not_converged',
@@ -100,6 +135,14 @@ export async function fitParameters(
   const initialPrediction = first;
   const costBefore = cost(target, first);
   let currentCost = costBefore;
+  others.forEach((answer, k) => {
+    const startCost = cost(target, answer);
+    if (answer && startCost < currentCost) {
+      u = starts[k] as number[];
+      prediction = answer;
+      currentCost = startCost;
+    }
+  });
 
   const jacobianAt = async (at: number[], atPrediction: number[]): Promise<number[][]> => {
     const steps = at.map((uj) => (uj + stepU <= 1 ? stepU : -stepU));

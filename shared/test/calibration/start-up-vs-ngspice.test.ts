@@ -1,14 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import {
-  applyParameterValues,
-  calibrateDesign,
-  inProcessPredictor,
-  startUpSimulation,
-  type CalibrationParameterId,
-} from '../../src/calibration';
+import { applyParameterValues, startUpSimulation, type CalibrationParameterId } from '../../src/calibration';
 import { designExamples } from '../../src/designs/design-examples';
 import type { Design } from '../../src/designs/design.types';
 import { hasNgspice } from '../ngspice/run-ngspice';
+import { expectRecovered, fitOne } from './recovery';
 import { ngspiceStartUp, withNoise } from './synthetic-bench';
 
 // Start-up curves of the demo tester's driver by ngspice (REFERENCES.md §7) on the netlist our exporter
@@ -57,19 +52,13 @@ describe.skipIf(!hasNgspice())('start-up fits against ngspice', () => {
         0.003,
         seed,
       );
-      const result = await calibrateDesign(
-        {
-          design: tester,
-          parameters: [{ id, prior: { min, max } }],
-          datasets: [{ benchRunId: 'run-1', label: 'start-up', use: 'start-up', points }],
-        },
-        inProcessPredictor(),
-      );
-      const fitted = result.parameters[0]!;
-      expect(fitted.interval).not.toBeNull();
-      expect(truth).toBeGreaterThanOrEqual(fitted.interval!.low);
-      expect(truth).toBeLessThanOrEqual(fitted.interval!.high);
-      expect(result.residuals[0]!.rmsAfterV).toBeLessThan(result.residuals[0]!.rmsBeforeV);
+      const result = await fitOne(tester, id, min, max, {
+        benchRunId: 'run-1',
+        label: 'start-up',
+        use: 'start-up',
+        points,
+      });
+      expectRecovered(result, truth);
     },
     FIT_TIMEOUT_MS,
   );
