@@ -28,7 +28,7 @@ function pdfText(pdf: Buffer): string {
   return execFileSync('pdftotext', ['-layout', join(dir, 'sheet.pdf'), '-'], { encoding: 'utf8' });
 }
 
-/** The demo handheld tester with its transformer designed from the demo E20 core. */
+/** The demo handheld tester with its transformer designed from the demo E25 core. */
 function designedTester(): Design {
   const document = structuredClone(designExamples.surfaceChargeTester);
   if (document.drive.kind !== 'driver') throw new Error('the tester has a driver stage');
@@ -99,9 +99,9 @@ describe('transformer sheets', () => {
       'Tester with a designed transformer',
       'NOT RELEASED',
       'Winding schedule, from the core outward',
-      'Core E20 ferrite grade B',
+      'Core E25 ferrite grade A',
       'Wire 0.05 mm grade 2',
-      '1200',
+      '2400',
       '6 (dot)–8',
       formatQuantity(primary.inductanceH, 'H', 3),
       '±10 %',

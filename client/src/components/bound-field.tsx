@@ -1,5 +1,5 @@
-import { NumberInput } from '@mantine/core';
 import type { QuantityUnit } from '@ladderwright/shared/units';
+import { NumberField } from './number-field';
 import { QuantityInput } from './quantity-input';
 
 export interface BoundFieldProps {
@@ -56,7 +56,7 @@ export function BoundField({
       />
     );
   return (
-    <NumberInput
+    <NumberField
       label={label}
       value={Number.isFinite(value) ? value : ''}
       min={min}

@@ -1,6 +1,6 @@
 import { ServiceUnavailableException } from '@nestjs/common';
 import type { AppEnv } from '../config/env';
-import { busyOr, EnginePoolService } from './engine-pool.service';
+import { busyOr, EnginePoolService, engineThreadCount } from './engine-pool.service';
 
 /** A pool whose queue is full: piscina 5 refuses every task with this error. */
 function fullPool() {
@@ -35,5 +35,14 @@ describe('EnginePoolService when its queue is full', () => {
     );
     const other = new Error('worker crashed');
     expect(busyOr(other)).toBe(other);
+  });
+});
+
+describe('engineThreadCount', () => {
+  it('leaves the request thread a core and runs at least one engine thread', () => {
+    expect(engineThreadCount(8, 2)).toBe(1);
+    expect(engineThreadCount(8, 4)).toBe(3);
+    expect(engineThreadCount(2, 16)).toBe(2);
+    expect(engineThreadCount(4, 1)).toBe(1);
   });
 });

@@ -1,3 +1,4 @@
+import { availableParallelism } from 'node:os';
 import { Inject, Injectable, type OnModuleDestroy, ServiceUnavailableException } from '@nestjs/common';
 import { Piscina } from 'piscina';
 import { DomainError } from '@ladderwright/shared/errors';
@@ -22,6 +23,14 @@ export function busyOr(error: unknown): unknown {
  * the demo templates, 6 MB keeps a thread about 20 MB smaller for about 5 % more of its CPU time.
  */
 const ENGINE_YOUNG_GENERATION_MB = 6;
+
+/**
+ * Engine threads for `requested` (`AppEnv.engineWorkers`) on a machine with `cores`: never more than the cores less
+ * one, so that the request thread always keeps a core and answers every other request while the engine is busy.
+ */
+export function engineThreadCount(requested: number, cores: number = availableParallelism()): number {
+  return Math.max(1, Math.min(requested, cores - 1));
+}
 
 /**
  * The piscina pool of engine worker threads (`AppEnv.engineWorkers`), apart from the simulation pool so
@@ -87,7 +96,7 @@ export class EnginePoolService implements OnModuleDestroy {
       ...workerEntry(__dirname, 'engine.worker'),
       name: ENGINE_TASK_NAME,
       minThreads: 1,
-      maxThreads: this.env.engineWorkers,
+      maxThreads: engineThreadCount(this.env.engineWorkers),
       idleTimeout: 60_000,
       maxQueue: 'auto',
       resourceLimits: { maxYoungGenerationSizeMb: ENGINE_YOUNG_GENERATION_MB },

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { designExamples } from '../designs/design-examples';
 import { analyzeDesign } from './analyze-design';
-import { headlineSource, simulationSourceLabel, type SimulatedFigures } from './simulated-figures';
+import { simulationSourceLabel, type SimulatedFigures } from './figure-source';
+import { headlineSource } from './simulated-figures';
 
 const tester = designExamples.surfaceChargeTester;
 const report = analyzeDesign(tester);
@@ -75,6 +76,18 @@ describe('headlineSource', () => {
     expect(efficiency.difference).toBeCloseTo(-0.1, 9);
     expect(efficiency.exceedsTolerance).toBe(true);
     expect(efficiency.text).toMatch(/, 10 points below the simulation \(the estimate states no tolerance for it\)$/);
+  });
+
+  it('says beside the frequency when the simulated oscillation is irregular, and not otherwise', () => {
+    const irregular = headlineSource(report, simulated({ isOscillationIrregular: true }), tester.targets);
+    expect(irregular.isOscillationIrregular).toBe(true);
+    const frequency = irregular.differences.find((entry) => entry.key === 'frequency')!;
+    expect(frequency.text).toMatch(
+      /; irregular oscillation: the transistor turns on in bursts .+ the frequency is their mean$/,
+    );
+    const regular = headlineSource(report, simulated({ isOscillationIrregular: false }), tester.targets);
+    expect(regular.isOscillationIrregular).toBe(false);
+    expect(regular.differences.find((entry) => entry.key === 'frequency')!.text).not.toMatch(/irregular/);
   });
 
   it('evaluates the discharge-time check again on the simulated time, against the same limit', () => {

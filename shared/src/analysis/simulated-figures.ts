@@ -1,73 +1,16 @@
 import { ESTIMATE_VALIDITY_BOUNDS } from '../driver';
-import type { MethodInfo } from '../methods';
 import { upperLimitVerdict, type CheckVerdict } from '../safety';
 import { formatQuantity } from '../units';
 import type { DesignReport } from './analyze-design';
-
-/**
- * The figures of a stored full simulation (start-up, steady state and discharge in one run) of a revision,
- * with the engine version that ran it: what may stand in for the instant estimate's figures.
- */
-export interface SimulatedFigures {
-  engineVersion: string;
-  outputMeanV: number | null;
-  ripplePeakToPeakV: number | null;
-  dischargeTimeS: number | null;
-  oscillationFrequencyHz?: number | null;
-  efficiency?: number | null;
-  /**
-   * The simulated time (s) within which the run did not settle (the steady run, or a driver's cold start),
-   * or null when it settled; absent in summaries written before it was recorded.
-   */
-  notSettledWithinS?: number | null;
-  /** When the run finished (ISO 8601). */
-  finishedAt: string;
-}
-
-export type FigureSource = 'simulation' | 'estimate';
-
-export type ComparedFigure = 'output' | 'ripple' | 'frequency' | 'efficiency' | 'discharge';
-
-/** One figure of the estimate beside the simulation's, with their difference against the estimate's tolerance. */
-export interface FigureDifference {
-  key: ComparedFigure;
-  label: string;
-  estimate: number;
-  simulation: number;
-  /** (estimate − simulation)/|simulation|; for efficiency the difference in fraction points. */
-  difference: number;
-  /** The agreement with the simulation the estimate states for this figure, or null where it states none. */
-  tolerance: number | null;
-  /** True when the difference is beyond the stated tolerance (or beyond 2 % where none is stated). */
-  exceedsTolerance: boolean;
-  /** The difference in words: "estimate 1.35 kV, 11 % below the simulation (beyond the estimate's stated 5.0 %)". */
-  text: string;
-}
-
-export interface HeadlineSource {
-  source: FigureSource;
-  /** The report with the simulated figures in place of the estimate's where the simulation gives them. */
-  report: DesignReport;
-  /** The figures taken from the simulation (empty for 'estimate'). */
-  simulatedKeys: ComparedFigure[];
-  differences: FigureDifference[];
-  /** When the simulation used finished (ISO 8601), or null. */
-  simulatedAt: string | null;
-  /** The simulated time (s) within which the simulation used did not settle; null when it settled or none is used. */
-  notSettledWithinS: number | null;
-}
-
-/**
- * How a figure taken from the stored simulation is marked wherever it is shown (Workbench, Checks, Sign-off,
- * spec sheet): "from simulation", or "from simulation, not settled within 20 ms" when the run did not settle.
- * An unsettled run's figures still stand in for the estimate's: they are the circuit integrated in time, the
- * remaining approach is stated, and the estimate beside them says how far apart the two are.
- */
-export function simulationSourceLabel(headline: Pick<HeadlineSource, 'notSettledWithinS'>): string {
-  return headline.notSettledWithinS === null
-    ? 'from simulation'
-    : `from simulation, not settled within ${formatQuantity(headline.notSettledWithinS, 's')}`;
-}
+import {
+  estimateHeadline,
+  IRREGULAR_OSCILLATION_NOTE,
+  STORED_SIMULATION_METHOD,
+  type ComparedFigure,
+  type FigureDifference,
+  type HeadlineSource,
+  type SimulatedFigures,
+} from './figure-source';
 
 /**
  * The agreement the steady-state ladder model holds against ngspice on the same netlist (shared/test/ngspice:
@@ -76,14 +19,6 @@ export function simulationSourceLabel(headline: Pick<HeadlineSource, 'notSettled
 export const LADDER_ESTIMATE_TOLERANCE = { output: 0.005, ripple: 0.05 } as const;
 /** Where the estimate states no tolerance, a difference beyond this is still called out. */
 const UNSTATED_TOLERANCE = 0.02;
-
-/** The method line of a figure taken from the stored simulation. */
-export const STORED_SIMULATION_METHOD: MethodInfo = {
-  methodId: 'stored-simulation',
-  summary: 'from the stored full simulation of this revision (same engine version, same document)',
-  assumptions: ['the circuit as the design states it, integrated in time to steady state'],
-  source: 'Ladderwright simulator, compared with ngspice on the exported netlist (shared/test/ngspice)',
-};
 
 function percent(fraction: number): string {
   const value = Math.abs(fraction) * 100;
@@ -150,16 +85,7 @@ export function headlineSource(
   simulation: SimulatedFigures | null,
   targets: { outputV: number; rippleMaxV: number },
 ): HeadlineSource {
-  if (!simulation || simulation.engineVersion !== report.engineVersion) {
-    return {
-      source: 'estimate',
-      report,
-      simulatedKeys: [],
-      differences: [],
-      simulatedAt: null,
-      notSettledWithinS: null,
-    };
-  }
+  if (!simulation || simulation.engineVersion !== report.engineVersion) return estimateHeadline(report);
   const driver = report.driver;
   const outputTolerance = driver ? ESTIMATE_VALIDITY_BOUNDS.output : LADDER_ESTIMATE_TOLERANCE.output;
   const differences: FigureDifference[] = [];
@@ -198,14 +124,17 @@ export function headlineSource(
   if (driver) {
     const frequencyHz = simulation.oscillationFrequencyHz;
     if (frequencyHz !== null && frequencyHz !== undefined) {
+      const entry = difference(
+        'frequency',
+        'Oscillation frequency',
+        driver.benchFigures.oscillationFrequencyHz,
+        frequencyHz,
+        ESTIMATE_VALIDITY_BOUNDS.frequency,
+      );
       push(
-        difference(
-          'frequency',
-          'Oscillation frequency',
-          driver.benchFigures.oscillationFrequencyHz,
-          frequencyHz,
-          ESTIMATE_VALIDITY_BOUNDS.frequency,
-        ),
+        entry && simulation.isOscillationIrregular
+          ? { ...entry, text: `${entry.text}; ${IRREGULAR_OSCILLATION_NOTE}` }
+          : entry,
       );
     }
     const efficiency = simulation.efficiency;
@@ -231,5 +160,6 @@ export function headlineSource(
     differences,
     simulatedAt: simulation.finishedAt,
     notSettledWithinS: simulation.notSettledWithinS ?? null,
+    isOscillationIrregular: Boolean(driver && simulation.isOscillationIrregular),
   };
 }

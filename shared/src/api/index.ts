@@ -82,6 +82,12 @@ export type {
   SimulationJobError,
   SimulationJob,
   CurrentSimulationResponse,
+  SimulationBatchKind,
+  StartSimulationBatchRequest,
+  StartSimulationBatchResponse,
+  SimulationBatchMember,
+  SimulationBatchFigureSpread,
+  SimulationBatch,
 } from './simulations.types';
 export type {
   Calibration,

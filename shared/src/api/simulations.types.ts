@@ -69,6 +69,11 @@ export interface SimulationSummary {
   method: 'transient' | 'periodic-steady-state';
   /** Driver designs: the blocking oscillator's frequency at steady state (Hz); absent for a sine or pulse drive. */
   oscillationFrequencyHz?: number | null;
+  /**
+   * Driver designs: the steady-state cycles spread by more than 20 % in length (the transistor turns on in
+   * bursts), so `oscillationFrequencyHz` is their mean; absent in runs stored before it was recorded.
+   */
+  isOscillationIrregular?: boolean | null;
   /** Driver designs, cold start: time to within 1 % of the settled output (s); null when it did not settle. */
   timeTo1PercentS?: number | null;
   /**
@@ -119,4 +124,74 @@ export interface SimulationJob {
 export interface CurrentSimulationResponse {
   simulation: SimulatedFigures | null;
   jobId: string | null;
+}
+
+/** A batch's members: one value per member of a number in the document, or seeded draws of the part tolerances. */
+export type SimulationBatchKind = 'sweep' | 'monte-carlo';
+
+/**
+ * POST /api/projects/:projectId/simulation-batches body: the base design (a `document`, or a stored revision by
+ * `designId` and `revisionNumber`), the simulation each member runs (`simulationKind`, `options`), and either
+ * `sweep` (the number at `path` takes each of `values`) or `monteCarlo` (`trials` designs whose capacitors are
+ * drawn within their tolerance from `seed`). Each member is a simulation job on the shared queue, so every app
+ * instance with simulation workers takes a share.
+ */
+export interface StartSimulationBatchRequest {
+  simulationKind: SimulationKind;
+  document?: Design;
+  designId?: string;
+  revisionNumber?: number;
+  options?: SimulationOptions;
+  sweep?: { path: string; values: number[] };
+  monteCarlo?: { trials: number; seed: number };
+}
+
+/** 202 answer to StartSimulationBatchRequest. */
+export interface StartSimulationBatchResponse {
+  batchId: string;
+  status: 'running';
+  memberCount: number;
+}
+
+/** One member's outcome: its varied numbers by field path, and its run's summary once it succeeded. */
+export interface SimulationBatchMember {
+  index: number;
+  jobId: string;
+  status: SimulationJobStatus;
+  variant: Record<string, number>;
+  summary: SimulationSummary | null;
+  error?: SimulationJobError;
+}
+
+/** Mean, sample standard deviation, extremes and nearest-rank percentiles of one figure over the succeeded members. */
+export interface SimulationBatchFigureSpread {
+  count: number;
+  mean: number;
+  sd: number;
+  min: number;
+  max: number;
+  p5: number;
+  p50: number;
+  p95: number;
+}
+
+/** GET /api/projects/:projectId/simulation-batches/:batchId answer. */
+export interface SimulationBatch {
+  id: string;
+  projectId: string;
+  kind: SimulationBatchKind;
+  simulationKind: SimulationKind;
+  /** running while any member is queued or running; then succeeded when any member succeeded, else failed. */
+  status: SimulationJobStatus;
+  progressPct: number;
+  memberCount: number;
+  membersEnded: number;
+  createdAt: string;
+  finishedAt: string | null;
+  members: SimulationBatchMember[];
+  /** Over the succeeded members, once the batch has ended. */
+  spread: {
+    outputMeanV: SimulationBatchFigureSpread | null;
+    ripplePeakToPeakV: SimulationBatchFigureSpread | null;
+  } | null;
 }

@@ -91,6 +91,11 @@ export const designLimits = {
   maxDielectricStrengthVPerM: 1e9,
   /** Air gap in the magnetic path (10 mm). */
   maxGapM: 1e-2,
+  /**
+   * Shortest air gap that is made to a tolerance, a ground centre-leg gap or a spacer (0.05 mm; common
+   * practice, no source). A shorter gap than this is left to the mating faces' own residual gap.
+   */
+  minManufacturableGapM: 5e-5,
   /** Layers of one winding. */
   maxWindingLayers: 1000,
   /** Wraps of tape between two layers or windings. */

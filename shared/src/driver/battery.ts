@@ -149,7 +149,7 @@ const batteryLifeMethod: MethodInfo = {
 /**
  * Battery life (s) of a cells supply drawn by a load whose current depends on the supply's terminal voltage.
  * `currentAtTerminalV(V)` gives the supply current (A) at terminal voltage V (V). The terminal voltage at
- * each state of charge solves V = n·(Voc(σ) − I(V)·R) by fixed-point iteration. Integration: composite
+ * each state of charge solves V = n·(Voc(σ) − I(V)·R) by secant steps on the fixed point. Integration: composite
  * Gauss-Legendre (4 points) on each curve segment, 8 sub-intervals per segment, down to the end point
  * found by bisection. Method: charge balance, see `batteryLifeMethod`.
  */
@@ -165,14 +165,23 @@ export function batteryLife(supply: CellsSupply, currentAtTerminalV: (terminalV:
     const resistanceOhm = cellInternalResistanceOhm(supply, sigma);
     let cellV = voc;
     let currentA = 0;
+    // Secant steps on the fixed point's residual next(V) − V from the open-circuit voltage and a half step
+    // (a load's current is smooth in its voltage, so they settle in a few), halving towards `next` wherever a
+    // step would leave (0, Voc] or stall.
+    let previousV = NaN;
+    let previousResidual = NaN;
     for (let k = 0; k < 60; k++) {
       currentA = Math.max(0, currentAtTerminalV(n * cellV));
       const next = voc - currentA * resistanceOhm;
-      if (Math.abs(next - cellV) < 1e-9) {
+      const residual = next - cellV;
+      if (Math.abs(residual) < 1e-9) {
         cellV = next;
         break;
       }
-      cellV = 0.5 * (cellV + next);
+      const secantV = cellV - (residual * (cellV - previousV)) / (residual - previousResidual);
+      previousV = cellV;
+      previousResidual = residual;
+      cellV = secantV > 0 && secantV <= voc ? secantV : 0.5 * (cellV + next);
     }
     return { currentA, cellV };
   };

@@ -3,6 +3,7 @@ import { DomainError } from '../errors';
 import { prepareLadder, terminalMeanAt, terminalMeanNear, type PreparedLadder } from '../multiplier/analyze-ladder';
 import type { CurrentWarmStart } from '../multiplier/charge-transfer-model';
 import { withDriveTiming } from '../multiplier/with-drive';
+import { peakSlopes } from '../multiplier/peak-slopes';
 import type { LadderInput } from '../multiplier/ladder.types';
 import type { SecondaryLoad } from './ring-back';
 
@@ -113,7 +114,21 @@ export function engineLadderLoadLine(input: LadderInput): LadderLoadLine {
       return { outputV: Math.max(0, outputV), ladderCurrentA: loadCurrentA + bleederA };
     },
     chargeRatios(drive, ladderCurrentA) {
-      // Central differences, step 1e-4 of each peak: the model is smooth (log diode drops) and near linear in the peaks.
+      // A flat-top drive's slopes in closed form (the solve is affine in the peaks at a fixed current).
+      const pulse = pulseDriveOf(drive, sourceOhm);
+      bare = bare
+        ? withDriveTiming(bare, pulse)
+        : prepareLadder({ ...input, load: null, bleederOhm: null, seriesOutputResistanceOhm: 0, drive: pulse });
+      const slopes = peakSlopes(bare.workspace, ladderCurrentA);
+      if (slopes) {
+        // The pulse's forward peak is the H extreme of a positive ladder; flyback phasing swaps the pulses.
+        const pulseForward = input.polarity === 1 ? slopes.high : slopes.low;
+        const pulseFlyback = input.polarity === 1 ? slopes.low : slopes.high;
+        return drive.isFlybackFed
+          ? { flyback: pulseForward, forward: pulseFlyback }
+          : { flyback: pulseFlyback, forward: pulseForward };
+      }
+      // Otherwise central differences, step 1e-4 of each peak: the model is smooth (log diode drops) and near linear in the peaks.
       const slope = (key: 'flybackPeakV' | 'forwardPeakV') => {
         const dv = Math.max(1e-4 * drive[key], 1e-6);
         return (

@@ -4,9 +4,10 @@
  */
 
 /**
- * Relative step at which the warm-started power balance stops: a secant step's error is about the product of
- * the last two steps' errors, so the point it reaches is good to far better than this (and to the inner
- * solves' 1e-10).
+ * Relative step at which the warm-started power balance stops, on the point it last evaluated: near the root
+ * a secant step is that point's error (the next step's error is the product of the last two), so the point
+ * is good to this (a tenth of the 1e-8 to which the figures agree with a cold solve's) and the caller keeps
+ * its evaluation.
  */
 const WARM_ROOT_STEP = 1e-9;
 
@@ -22,7 +23,7 @@ export interface WarmStart {
 /**
  * The power balance's root from a nearby load's (`warm`), by Newton's method on the power surplus
  * g(V₋) = V₋·surplus(V₋) (the same root): the first step with the nearby slope, then secant steps (the slope
- * from the last two points). Taken only where the steps settle inside (0, limit) on a falling crossing, which
+ * from the last two points), ending on the last point evaluated. Taken only where the steps settle inside (0, limit) on a falling crossing, which
  * with at most two roots is the stable one the scan finds; null otherwise (the scan then runs).
  */
 export function warmRoot(surplus: (flyV: number) => number, warm: WarmStart, maxFlyV: number): WarmStart | null {
@@ -39,7 +40,7 @@ export function warmRoot(surplus: (flyV: number) => number, warm: WarmStart, max
     if (g1 === 0) return { flybackV: x1, slope };
     const x2 = x1 - g1 / slope;
     if (!(x2 > 0 && x2 < maxFlyV)) return null;
-    if (Math.abs(x2 - x1) <= WARM_ROOT_STEP * x2) return { flybackV: x2, slope };
+    if (Math.abs(x2 - x1) <= WARM_ROOT_STEP * x2) return { flybackV: x1, slope };
     x0 = x1;
     g0 = g1;
     x1 = x2;

@@ -8,7 +8,7 @@ import type {
 } from './blocking-oscillator.types';
 import type { DriverStage } from '../designs/driver-stage.types';
 import type { MethodInfo } from '../methods';
-import type { LadderDrive, LadderLoadLine } from './ladder-load-line';
+import type { LadderDrive, LadderLoadLine, LadderState } from './ladder-load-line';
 import { outputSignsNear, scanDown, warmNear, warmPastOnset, warmRoot, type WarmStart } from './load-point-roots';
 import { forwardPeakFor, forwardShareOf } from './ring-back';
 
@@ -152,19 +152,29 @@ function solvePoint(
     return stage;
   };
   const evalOptions: BlockingOscillatorOptions = { ...options, forwardLoadPowerW };
+  // The last flyback the surplus was evaluated at, with the stage and the ladder there: the solved point
+  // takes them when it lands on that flyback (its own evaluation would repeat the same numbers).
+  let last: { flyV: number; stage: OscillatorNumbers; drive: LadderDrive; loaded: LadderState } | null = null;
   // Surplus of flyback power over what the ladder takes, per volt of flyback. Copper loss makes it fall at
   // very slow flybacks too, so there can be two roots: take the highest (the stable one) by scanning down
   // from the limit on a log grid (8 points a decade over 6 decades), then solving in that bracket.
   const surplus = (flyV: number) => {
-    const e = stageAtFlyback(flyV, evalOptions);
-    return (
-      e.deliverableW / flyV - ratios.flyback * ladder.at(driveOf(e, driver, forwardA()), loadCurrentA).ladderCurrentA
-    );
+    const stage = stageAtFlyback(flyV, evalOptions);
+    const drive = driveOf(stage, driver, forwardA());
+    const loaded = ladder.at(drive, loadCurrentA);
+    last = { flyV, stage, drive, loaded };
+    return stage.deliverableW / flyV - ratios.flyback * loaded.ladderCurrentA;
   };
   let flyV = maxFlyV;
   let limitedBy: OperatingLimit = 'ladder';
-  let balance: WarmStart | null = null;
-  const surplusAtLimit = surplus(maxFlyV);
+  // From a nearby load's balance, Newton's method first: a falling crossing below the limit is, with at most
+  // two roots, the highest one, and the surplus is then negative at the limit (power-limited).
+  let balance: WarmStart | null = warm ? warmRoot(surplus, warm, maxFlyV) : null;
+  if (balance !== null) {
+    limitedBy = 'power';
+    flyV = balance.flybackV;
+  }
+  const surplusAtLimit = balance === null ? surplus(maxFlyV) : NaN;
   if (surplusAtLimit < 0) {
     limitedBy = 'power';
     const scanPoints = 48;
@@ -176,15 +186,12 @@ function solvePoint(
     // From a nearby load's flyback: the grid point below it and, while the surplus there is positive, the
     // points above, to the first negative one. With at most two roots the surplus is positive on one run of
     // the grid only, so this is the bracket the scan from the limit finds; else the scan runs.
-    balance = warm ? warmRoot(surplus, warm, maxFlyV) : null;
     const guessK =
-      balance === null && flybackGuessV !== undefined && flybackGuessV > 0 && flybackGuessV < maxFlyV
+      flybackGuessV !== undefined && flybackGuessV > 0 && flybackGuessV < maxFlyV
         ? Math.min(scanPoints, Math.ceil((Math.log10(maxFlyV / flybackGuessV) * scanPoints) / 6))
         : 0;
     const surplusAtGuess = guessK > 0 ? surplus(gridV(guessK)) : -1;
-    if (balance !== null) {
-      lo = balance.flybackV;
-    } else if (surplusAtGuess >= 0) {
+    if (surplusAtGuess >= 0) {
       let k = guessK;
       lo = gridV(k);
       surplusLo = surplusAtGuess;
@@ -208,8 +215,6 @@ function solvePoint(
     }
     if (lo === null) {
       flyV = maxFlyV * 1e-6; // the driver cannot push the ladder's charge at any flyback: output collapses
-    } else if (balance !== null) {
-      flyV = balance.flybackV;
     } else {
       // To the resolution 40 halvings of the bracket (an eighth of a decade) would give: 2e-13 relative.
       flyV = bracketedRoot(surplus, lo, hi, surplusLo, surplusHi, (hi - lo) * 2 ** -40);
@@ -217,10 +222,20 @@ function solvePoint(
       balance = { flybackV: flyV, slope: (hi * surplusHi - lo * surplusLo) / (hi - lo) };
     }
   }
-  const stageOptions: BlockingOscillatorOptions = { ...options, forwardLoadPowerW };
-  const stage = stageAtFlyback(flyV, stageOptions);
-  const drive = driveOf(stage, driver, forwardA());
-  const loaded = ladder.at(drive, loadCurrentA);
+  const solved = last as { flyV: number; stage: OscillatorNumbers; drive: LadderDrive; loaded: LadderState } | null;
+  let stageOptions: BlockingOscillatorOptions;
+  let stage: OscillatorNumbers;
+  let drive: LadderDrive;
+  let loaded: LadderState;
+  if (solved !== null && solved.flyV === flyV) {
+    ({ stage, drive, loaded } = solved);
+    stageOptions = { ...evalOptions };
+  } else {
+    stageOptions = { ...options, forwardLoadPowerW };
+    stage = stageAtFlyback(flyV, stageOptions);
+    drive = driveOf(stage, driver, forwardA());
+    loaded = ladder.at(drive, loadCurrentA);
+  }
   const outputPowerW = loaded.outputV * loadCurrentA;
   const flybackTakenW = Math.min(stage.deliverableW, ratios.flyback * loaded.ladderCurrentA * flyV);
   return {
@@ -301,12 +316,22 @@ export function driverOperatingPoint(
   const maxFlyV = limitEst.maxFlybackSecV;
   const limitDrive = driveOf(limitEst, driver, 0);
   // The end of the curve's loads, each warm-started from the last power balance solved.
-  let lastBalance: WarmStart | null = null;
+  // Power-limited, the flyback carries about a fixed power, V₋·I nearly constant: a warm start is the last
+  // balance moved along that hyperbola (the first past the onset from the limit there).
+  let lastBalance: { loadA: number; balance: WarmStart } | null = null;
   const endBalances: { loadA: number; balance: WarmStart }[] = [];
   const pointAt = (loadA: number) => {
-    const solved = solvePoint(driver, ladder, loadA, options, limitEst, undefined, lastBalance);
-    if (solved.balance) endBalances.push({ loadA, balance: solved.balance });
-    lastBalance = solved.balance ?? lastBalance;
+    const scale = lastBalance ? lastBalance.loadA / loadA : powerLimitOnsetA / loadA;
+    const warm = lastBalance
+      ? { flybackV: lastBalance.balance.flybackV * scale, slope: lastBalance.balance.slope / scale }
+      : powerLimitOnsetA > 0 && scale < 1
+        ? { flybackV: maxFlyV * scale, slope: -lastFlybackRatio * loadA }
+        : null;
+    const solved = solvePoint(driver, ladder, loadA, options, limitEst, undefined, warm);
+    if (solved.balance) {
+      endBalances.push({ loadA, balance: solved.balance });
+      lastBalance = { loadA, balance: solved.balance };
+    }
     return solved.point;
   };
   // Deliverable flyback power over what the ladder takes at the limit drive, per volt of flyback: power-limited below zero.
@@ -366,17 +391,25 @@ export function driverOperatingPoint(
     if (hasOutputAt(mid)) loA = mid;
     else hiA = mid;
   }
-  // Evenly spaced loads: each power balance starts from the line through the last two.
+  // Evenly spaced loads: each power balance starts from the parabola through the last three (the line
+  // through the last two after the onset) of the flyback times the load, nearly constant where the flyback
+  // carries a fixed power (the flyback itself runs as 1/I there, which a parabola follows badly), its slope
+  // from the line through the last two slopes.
   const curve: LoadPoint[] = [];
   const balances: (WarmStart | null)[] = [];
   for (let i = 0; i < points; i++) {
     const loadA = (hiA * i) / (points - 1);
     const a = balances[i - 1];
     const b = balances[i - 2];
+    const c = balances[i - 3];
+    // The flyback times the load at the point k steps back, over this load.
+    const powerOf = (w: WarmStart, k: number) => (w.flybackV * (i - k)) / i;
     const warm =
-      a && b
-        ? { flybackV: 2 * a.flybackV - b.flybackV, slope: a.slope }
-        : (a ?? warmPastOnset(endBalances, powerLimitOnsetA, maxFlyV, loadA));
+      a && b && c
+        ? { flybackV: 3 * powerOf(a, 1) - 3 * powerOf(b, 2) + powerOf(c, 3), slope: 2 * a.slope - b.slope }
+        : a && b
+          ? { flybackV: 2 * powerOf(a, 1) - powerOf(b, 2), slope: a.slope }
+          : (a ?? warmPastOnset(endBalances, powerLimitOnsetA, maxFlyV, loadA));
     const solved = solvePoint(driver, ladder, loadA, options, limitEst, curve[i - 1]?.flybackSecondaryPeakV, warm);
     curve.push(solved.point);
     balances.push(solved.balance);

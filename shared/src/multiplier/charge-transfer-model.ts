@@ -198,14 +198,14 @@ function cubeRootOfSquare(x: number): number {
 }
 
 /** One event's source loss (as the share of the peak left) and diode drop at a ladder current. */
-interface EventLoss {
+export interface EventLoss {
   lossScale: number;
   forwardDropV: number;
   conductionCurrentA: number;
 }
 
 /** Per-event source loss and diode drop at a ladder current, from conduction time and charge (into `out`, no allocation). */
-function eventLosses(ws: Workspace, currentA: number, event: 0 | 1, out: EventLoss): EventLoss {
+export function eventLosses(ws: Workspace, currentA: number, event: 0 | 1, out: EventLoss): EventLoss {
   const t = ws.timing;
   const q = currentA * t.periodS;
   const isH = event === H;

@@ -51,14 +51,12 @@ describe('describeMargin', () => {
   });
 
   it('never gives a marginal check past its limit as a multiple: its state comes from its rule, not a thin margin', () => {
-    // The trapped-charge check is marginal (a service condition) however far the kept voltage exceeds the safe one.
-    const trapped = { id: 'trapped-charge', verdict: 'marginal', value: 475, limit: 50, marginPct: -850 } as const;
+    // A service-condition check (trapped charge) is marginal however far the kept voltage exceeds the safe one.
+    const trapped = { isServiceCondition: true, verdict: 'marginal', value: 475, limit: 50, marginPct: -850 } as const;
     expect(describeMargin(trapped)).toBe('over the limit, in service only');
-    expect(describeMargin({ ...trapped, id: 'other-rule' })).toBe('over the limit, marginal by its rule');
+    expect(describeMargin({ ...trapped, isServiceCondition: false })).toBe('over the limit, marginal by its rule');
     // A derated part between its derated figure and its rating is marginal by a small overshoot: said as such.
-    expect(describeMargin({ id: 'cap-voltage', verdict: 'marginal', value: 880, limit: 800, marginPct: -10 })).toBe(
-      '10 % over the limit',
-    );
+    expect(describeMargin({ verdict: 'marginal', value: 880, limit: 800, marginPct: -10 })).toBe('10 % over the limit');
     // The same numbers failed keep their multiple.
     expect(describeMargin({ ...trapped, verdict: 'fail' })).toBe('9.5× the limit');
   });

@@ -50,21 +50,16 @@ function share(pct: number): string {
 }
 
 /**
- * Checks that are marginal, not failed, however far past their limit, because the rule covers a service condition
- * only: the charge the winding-end capacitor keeps when the winding is removed (`trappedChargeCheck`).
- */
-const SERVICE_CONDITION_CHECK_IDS: ReadonlySet<string> = new Set(['trapped-charge']);
-
-/**
  * A check's distance from its limit in a bounded, readable form, instead of a signed percentage that runs to
  * thousands: "38 % below the limit", "40 % over the limit", "22× the limit", "2.0× the minimum",
  * "15 % short of the minimum". An upper limit is told from a lower one by the sign convention of `marginPct`
  * ((limit − value)/limit for an upper limit, (value − limit)/limit for a lower one). Given the verdict, the words
  * agree with it: a marginal check past its limit is marginal by its rule, not by a thin margin, so it is not given
- * as a multiple ("over the limit, in service only" for a service condition).
+ * as a multiple ("over the limit, in service only" for a check whose rule covers a service condition only).
  */
 export function describeMargin(
-  check: Pick<CheckVerdict, 'value' | 'limit' | 'marginPct'> & Partial<Pick<CheckVerdict, 'id' | 'verdict'>>,
+  check: Pick<CheckVerdict, 'value' | 'limit' | 'marginPct'> &
+    Partial<Pick<CheckVerdict, 'verdict' | 'isServiceCondition'>>,
 ): string {
   const { value, limit, marginPct } = check;
   if (value === null) return 'unbounded';
@@ -77,7 +72,7 @@ export function describeMargin(
   const isUpperLimit = marginPct > 0 === value < limit;
   const isPastLimit = isUpperLimit ? value > limit : value < limit;
   if (check.verdict === 'marginal' && isPastLimit) {
-    if (check.id !== undefined && SERVICE_CONDITION_CHECK_IDS.has(check.id))
+    if (check.isServiceCondition === true)
       return isUpperLimit ? 'over the limit, in service only' : 'short of the minimum, in service only';
     if (isUpperLimit ? ratio >= 2 : ratio <= 0.5)
       return isUpperLimit ? 'over the limit, marginal by its rule' : 'short of the minimum, marginal by its rule';

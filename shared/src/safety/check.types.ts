@@ -11,4 +11,9 @@ export interface CheckVerdict {
   limit: number;
   unit: string;
   caution?: string;
+  /**
+   * The rule covers a service condition only (the winding removed, say): past its limit the check is marginal, not
+   * failed, however far past, and its margin is read that way.
+   */
+  isServiceCondition?: boolean;
 }

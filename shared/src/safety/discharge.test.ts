@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { evaluate } from 'mathjs';
+import { describeMargin } from './check-rows';
 import { dischargeCheck, dischargeRuleLimits, dischargeTimeS, trappedChargeCheck } from './discharge';
 
 describe('bleeder discharge', () => {
@@ -60,6 +61,9 @@ describe('trapped charge', () => {
   it('reports the winding-end capacitor above the safe voltage as marginal (service condition) with its charge', () => {
     const check = trappedChargeCheck({ windingEndCapacitorV: 480, windingEndCapacitorF: 2.2e-9, safeVoltageV: 50 });
     expect(check?.verdict).toBe('marginal');
+    expect(check?.isServiceCondition).toBe(true);
+    if (!check) throw new Error('a check is expected');
+    expect(describeMargin(check)).toBe('over the limit, in service only');
     expect(check?.rule).toMatch(/1\.06 µC/); // 2.2 nF × 480 V = 1.056 µC
   });
 

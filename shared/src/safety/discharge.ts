@@ -143,5 +143,6 @@ export function trappedChargeCheck(input: TrappedChargeInput): CheckVerdict | nu
     limit: input.safeVoltageV,
     unit: 'V',
     caution: HV_CAUTION,
+    isServiceCondition: true,
   };
 }

@@ -47,6 +47,29 @@ export function storedChargeLimit(
   return { kind: 'energy', limit: 0.35, unit: 'J', text: 'IEC 60335-1 8.1.4 (read): 350 mJ above 15 kV' };
 }
 
+/**
+ * A verdict built field by field in one fixed order. A spread of the callers' objects (each of its own shape)
+ * goes through V8's generic copy, which was a tenth of a ladder analysis with its hundred Checks.
+ */
+function checkVerdict(
+  fields: Omit<CheckVerdict, 'verdict' | 'marginPct' | 'caution' | 'limit'>,
+  limit: number,
+  verdict: CheckVerdict['verdict'],
+  marginPct: number,
+): CheckVerdict {
+  return {
+    id: fields.id,
+    subject: fields.subject,
+    rule: fields.rule,
+    value: fields.value,
+    unit: fields.unit,
+    limit,
+    verdict,
+    marginPct,
+    caution: HV_CAUTION,
+  };
+}
+
 /** Upper-limit safety verdict: pass with ≥ 20 % margin, marginal 0–20 %, fail above the limit. */
 export function upperLimitVerdict(
   fields: Omit<CheckVerdict, 'verdict' | 'marginPct' | 'caution'>,
@@ -55,7 +78,7 @@ export function upperLimitVerdict(
   const value = fields.value;
   const marginPct = value === null ? -100 : ((fields.limit - value) / fields.limit) * 100;
   const verdict = marginPct < 0 ? 'fail' : marginPct < marginalBelowPct ? 'marginal' : 'pass';
-  return { ...fields, verdict, marginPct, caution: HV_CAUTION };
+  return checkVerdict(fields, fields.limit, verdict, marginPct);
 }
 
 /** Lower-limit verdict (the value must reach the limit, e.g. provided creepage): same thresholds. */
@@ -63,7 +86,7 @@ export function lowerLimitVerdict(fields: Omit<CheckVerdict, 'verdict' | 'margin
   const value = fields.value ?? 0;
   const marginPct = ((value - fields.limit) / fields.limit) * 100;
   const verdict = marginPct < 0 ? 'fail' : marginPct < SAFETY_MARGINAL_BELOW_PCT ? 'marginal' : 'pass';
-  return { ...fields, verdict, marginPct, caution: HV_CAUTION };
+  return checkVerdict(fields, fields.limit, verdict, marginPct);
 }
 
 /**
@@ -79,5 +102,5 @@ export function deratedVerdict(
   const value = fields.value ?? Infinity;
   const marginPct = ((limit - value) / limit) * 100;
   const verdict = value <= limit ? 'pass' : value <= ratingValue ? 'marginal' : 'fail';
-  return { ...fields, limit, verdict, marginPct, caution: HV_CAUTION };
+  return checkVerdict(fields, limit, verdict, marginPct);
 }

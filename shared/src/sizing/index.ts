@@ -7,7 +7,9 @@ export type {
   DiodeOption,
   ResistorOption,
 } from './size-ladder';
-export { toleranceSpread } from './tolerance-spread';
+export { spreadStatistics, toleranceSpread } from './tolerance-spread';
+export { BATCH_MAX_MEMBERS, monteCarloDesigns, sweepDesigns } from './design-variants';
+export type { DesignVariant } from './design-variants';
 export type { ToleranceSpreadRequest, ToleranceSpreadResult, SpreadStatistics, HistogramBin } from './tolerance-spread';
 export { mulberry32, normalFrom } from './seeded-random';
 export {

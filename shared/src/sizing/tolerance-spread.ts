@@ -59,7 +59,8 @@ const SPREAD_METHOD: MethodInfo = {
   source: 'mulberry32 PRNG (T. Ettinger, public domain); Box-Muller transform',
 };
 
-function statistics(values: Float64Array, bins: number): SpreadStatistics {
+/** Mean, sample standard deviation, extremes, nearest-rank percentiles and a histogram of `bins` equal bins. */
+export function spreadStatistics(values: Float64Array, bins: number): SpreadStatistics {
   const n = values.length;
   const sorted = Float64Array.from(values).sort();
   let sum = 0;
@@ -145,8 +146,8 @@ export function toleranceSpread(request: ToleranceSpreadRequest): ToleranceSprea
   return {
     trials,
     seed: request.seed,
-    outputV: statistics(outputs, bins),
-    rippleV: statistics(ripples, bins),
+    outputV: spreadStatistics(outputs, bins),
+    rippleV: spreadStatistics(ripples, bins),
     fractionWithinSpec: within / trials,
     method: SPREAD_METHOD,
   };

@@ -161,6 +161,7 @@ export function analyzeTransformer(
       windingInsulationV,
       secondaryWorkingVoltageV: point.secondaryWorkingVoltageV,
       flangeCreepageM,
+      gapM: gap.gapM,
       ...(section.gap.kind === 'gap'
         ? {}
         : {

@@ -143,18 +143,18 @@ const kind = <T extends { code: string }>(kinds: readonly T[], code: string): T 
 };
 
 /**
- * The transformer of the demo handheld surface-charge tester (driverExamples.surfaceChargeTester): 20, 8
- * and 1200 turns on a high-permeability E20 core gapped for 1 mH, the secondary outermost in layers
- * separated by one wrap of tape.
+ * A transformer for the demo handheld surface-charge tester (driverExamples.surfaceChargeTester): its 1 mH
+ * and 1 : 0.4 : 60 turns ratios as 40, 16 and 2400 turns on the power-ferrite E25 core, whose gap for 1 mH
+ * (about 0.08 mm) can be made; the secondary outermost in layers separated by one wrap of tape.
  */
 export const demoTransformerSection: TransformerSection = {
-  core: kind(demoCoreKinds, 'Core E20 ferrite grade B'),
+  core: kind(demoCoreKinds, 'Core E25 ferrite grade A'),
   gap: { kind: 'primary-inductance', primaryInductanceH: 1e-3 },
   windings: [
     {
       role: 'primary',
       name: 'primary',
-      turns: 20,
+      turns: 40,
       wire: kind(demoWireKinds, 'Wire 0.20 mm grade 2'),
       startPin: 1,
       endPin: 2,
@@ -162,7 +162,7 @@ export const demoTransformerSection: TransformerSection = {
     {
       role: 'feedback',
       name: 'feedback',
-      turns: 8,
+      turns: 16,
       wire: kind(demoWireKinds, 'Wire 0.10 mm grade 2'),
       startPin: 3,
       endPin: 4,
@@ -170,7 +170,7 @@ export const demoTransformerSection: TransformerSection = {
     {
       role: 'secondary',
       name: 'secondary',
-      turns: 1200,
+      turns: 2400,
       wire: kind(demoWireKinds, 'Wire 0.05 mm grade 2'),
       layerTapeWraps: 1,
       startPin: 6,

@@ -1,9 +1,18 @@
+import { designLimits } from '../designs/design-limits';
 import { DomainError } from '../errors';
 import type { MethodInfo } from '../methods';
 import type { CoreKind, GapResult, TransformerGap } from './transformer.types';
 
 /** Permeability of free space (H/m). */
 export const MU0 = 4e-7 * Math.PI;
+
+/** Shortest gap made to a tolerance (m): see `designLimits.minManufacturableGapM`. */
+export const MIN_MANUFACTURABLE_GAP_M = designLimits.minManufacturableGapM;
+
+/** Whether a gap can be made: none (an ungapped pair) or at least `MIN_MANUFACTURABLE_GAP_M`, to bisection's 1 nm. */
+export function gapManufacturable(gapM: number): boolean {
+  return gapM === 0 || gapM >= MIN_MANUFACTURABLE_GAP_M - 1e-9;
+}
 
 export const GAP_METHOD: MethodInfo = {
   methodId: 'transformer.gap-fringing-mclyman',

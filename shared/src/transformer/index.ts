@@ -25,7 +25,17 @@ export {
   transformerWindingSchema,
   transformerGapSchema,
 } from '../designs/transformer-section.schema';
-export { MU0, fringingFactor, alFromGap, gapFromAl, resolveGap, saturatedInductanceH, GAP_METHOD } from './gap';
+export {
+  MU0,
+  MIN_MANUFACTURABLE_GAP_M,
+  gapManufacturable,
+  fringingFactor,
+  alFromGap,
+  gapFromAl,
+  resolveGap,
+  saturatedInductanceH,
+  GAP_METHOD,
+} from './gap';
 export { fluxDensityT, saturationFluxDensityAtT, saturationMarginPct, saturationCurrentA, FLUX_METHOD } from './flux';
 export { igseCoefficient, igseLossDensity, steinmetzLossDensity, CORE_LOSS_METHOD } from './core-loss';
 export {

@@ -3,7 +3,7 @@ import { DomainError } from '../errors';
 import { creepageColumn, requiredCreepageMm } from '../safety/creepage';
 import { SAFETY_MARGINAL_BELOW_PCT } from '../safety/hazard-limits';
 import { analyzeTransformer } from './analyze-transformer';
-import { gapFromAl } from './gap';
+import { MIN_MANUFACTURABLE_GAP_M, alFromGap, gapFromAl, gapManufacturable } from './gap';
 import { pulseOperatingPoint } from './operating-point';
 import type {
   CoreKind,
@@ -14,13 +14,18 @@ import type {
 
 const DEFAULT_MIN_SATURATION_MARGIN_PCT = 20;
 
-/** Fewest primary turns on `core` that keep the flux margin and need no more AL than the ungapped core has. */
+/**
+ * Fewest primary turns on `core` that keep the flux margin and need no more AL than the core has with the
+ * shortest gap that can be made (`MIN_MANUFACTURABLE_GAP_M`): more turns only lower the AL asked, so the gap
+ * for the inductance comes out at least that long. An energy-storing core is always gapped, never left to the
+ * ungapped AL's wide tolerance.
+ */
 function primaryTurnsFor(core: CoreKind, request: TransformerSizerRequest): number {
   const margin = (request.minSaturationMarginPct ?? DEFAULT_MIN_SATURATION_MARGIN_PCT) / 100;
   const maxFluxT = (1 - margin) * core.saturationFluxDensity100T;
   const forFlux = (request.primaryInductanceH * request.primaryPeakCurrentA) / (maxFluxT * core.effectiveAreaM2);
-  const forAl = Math.sqrt(request.primaryInductanceH / core.ungappedAlHPerTurn2);
-  return Math.max(1, Math.ceil(Math.max(forFlux, forAl) - 1e-9));
+  const forGap = Math.sqrt(request.primaryInductanceH / alFromGap(core, MIN_MANUFACTURABLE_GAP_M));
+  return Math.max(1, Math.ceil(Math.max(forFlux, forGap) - 1e-9));
 }
 
 /**
@@ -66,7 +71,7 @@ function sectionFor(
 
 /**
  * Transformer Sizer: for each core, the fewest primary turns that keep the peak flux at the driver's peak
- * primary current below Bsat(100 °C) by the margin asked (and need no more AL than the ungapped core),
+ * primary current below Bsat(100 °C) by the margin asked and give a gap no shorter than can be made,
  * the other windings in the driver's turns ratios, the gap for the required primary inductance; then the
  * section's losses, fills and Checks at the driver's operating point, with end margins wide enough for the
  * flange creepage at the secondary's peak (`endMarginForCreepageM`). Cores that fit (no failing Check,
@@ -102,7 +107,9 @@ export function sizeTransformer(
       refusal,
     });
     try {
-      gapFromAl(core, request.primaryInductanceH / primaryTurns ** 2);
+      const gapM = gapFromAl(core, request.primaryInductanceH / primaryTurns ** 2);
+      // Cannot happen with the turns above; kept so that no candidate ever carries a gap that cannot be made.
+      if (!gapManufacturable(gapM) || gapM === 0) return refused('the gap for the inductance is too short to make');
     } catch {
       return refused('the gap for the inductance is longer than the bobbin breadth');
     }

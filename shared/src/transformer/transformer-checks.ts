@@ -3,6 +3,7 @@ import type { CheckVerdict } from '../safety/check.types';
 import { CREEPAGE_METHOD_TEXT, creepageColumn, requiredCreepageMm } from '../safety/creepage';
 import { lowerLimitVerdict } from '../safety/hazard-limits';
 import type { WindingResult } from './transformer.types';
+import { MIN_MANUFACTURABLE_GAP_M, gapManufacturable } from './gap';
 import { WINDOW_UTILIZATION_LIMIT } from './winding-layout';
 
 /** Upper-limit verdict: pass at ≤ passFraction·limit, marginal up to the limit, fail past it. */
@@ -28,6 +29,8 @@ export interface TransformerCheckFigures {
   windingInsulationV: number;
   secondaryWorkingVoltageV: number;
   flangeCreepageM: number;
+  /** Length of the air gap (m), 0 for an ungapped pair. */
+  gapM: number;
   /** A target primary inductance the gap was to reach (from a target AL or inductance), and what it reaches. */
   inductanceTarget?: { targetH: number; reachedH: number };
 }
@@ -37,7 +40,7 @@ export const CORE_TEMPERATURE_LIMIT_C = 100;
 
 /**
  * Checks of the designed transformer: core saturation margin at 100 °C, core temperature rise, window fill
- * and bobbin build, layer-to-layer insulation of each layered winding, winding-to-winding insulation against
+ * and bobbin build, a gap long enough to be made, layer-to-layer insulation of each layered winding, winding-to-winding insulation against
  * the hipot voltage, and creepage along the bobbin flange (IEC 60664-1 Table F.4 from the working voltage).
  */
 export function transformerChecks(figures: TransformerCheckFigures, spacing: SpacingEnvironment): CheckVerdict[] {
@@ -87,6 +90,19 @@ export function transformerChecks(figures: TransformerCheckFigures, spacing: Spa
       0.9,
     ),
   ];
+  if (figures.gapM > 0) {
+    const limitMm = MIN_MANUFACTURABLE_GAP_M * 1000;
+    checks.push({
+      id: 'transformer.gap-length',
+      subject: 'core',
+      rule: `air gap ≥ ${limitMm} mm, the shortest gap ground or spaced to a tolerance (common practice, no source); more primary turns or a core of lower AL lengthen it`,
+      verdict: gapManufacturable(figures.gapM) ? 'pass' : 'fail',
+      marginPct: ((figures.gapM * 1000 - limitMm) / limitMm) * 100,
+      value: figures.gapM * 1000,
+      limit: limitMm,
+      unit: 'mm',
+    });
+  }
   if (figures.inductanceTarget) {
     const { targetH, reachedH } = figures.inductanceTarget;
     // Within 1 % of the target (the gap is found by bisection; an ungapped core holds no more than its own AL).

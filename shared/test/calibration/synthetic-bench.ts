@@ -11,7 +11,7 @@ import {
   engineCapacitorVoltagesV,
 } from '../../src/runs/driver-design-circuit';
 import { WAVEFORM_SETTLE_PERIODS, type WaveformProbe } from '../../src/calibration/waveform-model';
-import { TurnOnTrigger } from '../../src/sim/oscillation-measures';
+import { TurnOnTrigger } from '../../src/sim/turn-on-events';
 import { runNgspice } from '../ngspice/run-ngspice';
 
 /**
@@ -136,7 +136,7 @@ export function withNoise(xs: readonly number[], ys: readonly number[], sigma: n
 /**
  * The push-button start-up of a driver design by ngspice (reltol 1e-5, the empty ladder, the exported
  * netlist), read as the simulator's start-up is read: the mean output over each oscillation cycle between
- * turn-on events (`TurnOnTrigger`), interpolated at `timesS`. The run covers `periods` of the design's
+ * the cycle marks of the turn-on trigger (`TurnOnTrigger`), interpolated at `timesS`. The run covers `periods` of the design's
  * period guess.
  */
 export async function ngspiceStartUp(design: Design, periods: number, count: number): Promise<MeasuredPoint[]> {

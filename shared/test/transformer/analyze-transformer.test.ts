@@ -11,38 +11,23 @@ import {
   sizeTransformer,
   type TransformerSection,
 } from '../../src/transformer';
+import { e20Point as point, e20Section } from './tester-fixtures';
 
 const spacing = { pollutionDegree: 2, materialGroup: 'IIIa', pcb: false } as const;
 
 function withPrimaryTurns(turns: number): TransformerSection {
   return {
-    ...demoTransformerSection,
-    windings: demoTransformerSection.windings.map((w) => (w.role === 'primary' ? { ...w, turns } : w)),
+    ...e20Section,
+    windings: e20Section.windings.map((w) => (w.role === 'primary' ? { ...w, turns } : w)),
   };
 }
-
-const point = (peakA: number, flybackV = 600) =>
-  pulseOperatingPoint({
-    frequencyHz: 30e3,
-    onTimeS: 15e-6,
-    flybackTimeS: 8e-6,
-    primaryPeakCurrentA: peakA,
-    baseCurrentA: 1e-3,
-    primaryOnVoltageV: 2.8,
-    forwardSecondaryPeakV: 168,
-    flybackSecondaryPeakV: flybackV,
-    primaryTurns: 20,
-    feedbackTurns: 8,
-    secondaryTurns: 1200,
-    ambientTemperatureC: 25,
-  });
 
 const verdictOf = (report: ReturnType<typeof analyzeTransformer>, id: string) =>
   report.checks.find((c) => c.id === id)?.verdict;
 
-describe('analyzeTransformer (common practice checks on the demo section)', () => {
+describe('analyzeTransformer (common practice checks on the E20 section)', () => {
   it('holds the target primary inductance and reports B = Lp·Ipk/(Np·Ae)', () => {
-    const report = analyzeTransformer(demoTransformerSection, point(0.1), spacing);
+    const report = analyzeTransformer(e20Section, point(0.1), spacing);
     expect(report.primaryInductanceH).toBeCloseTo(1e-3, 9);
     expect(report.peakFluxDensityT).toBeCloseTo((1e-3 * 0.1) / (20 * 32e-6), 9);
     // 1e-6 relative: the gap is found by bisection to 1e-12 m.
@@ -69,29 +54,26 @@ describe('analyzeTransformer (common practice checks on the demo section)', () =
     const short = analyzeTransformer(withPrimaryTurns(10), point(0.1), spacing);
     expect(short.primaryInductanceH).toBeCloseTo(4.5e-6 * 100, 12);
     expect(verdictOf(short, 'transformer.inductance-target')).toBe('fail');
-    expect(
-      verdictOf(analyzeTransformer(demoTransformerSection, point(0.1), spacing), 'transformer.inductance-target'),
-    ).toBe('pass');
+    expect(verdictOf(analyzeTransformer(e20Section, point(0.1), spacing), 'transformer.inductance-target')).toBe(
+      'pass',
+    );
   });
 
   it('fails the layer insulation when the layers stand more than enamel and tape hold', () => {
     const bare: TransformerSection = {
-      ...demoTransformerSection,
-      windings: demoTransformerSection.windings.map((w) => (w.role === 'secondary' ? { ...w, layerTapeWraps: 0 } : w)),
+      ...e20Section,
+      windings: e20Section.windings.map((w) => (w.role === 'secondary' ? { ...w, layerTapeWraps: 0 } : w)),
     };
     // 1200 turns, 80 a layer, 40 kV peak: 33 V a turn, 2·80·33 V = 5.3 kV between layers against 800 V of enamel.
     const report = analyzeTransformer(bare, point(0.1, 40_000), spacing);
     expect(verdictOf(report, 'transformer.layer-insulation.secondary')).toBe('fail');
     expect(
-      verdictOf(
-        analyzeTransformer(demoTransformerSection, point(0.1), spacing),
-        'transformer.layer-insulation.secondary',
-      ),
+      verdictOf(analyzeTransformer(e20Section, point(0.1), spacing), 'transformer.layer-insulation.secondary'),
     ).toBe('pass');
   });
 
   it('asks for the hipot voltage 2·U + 1000 V and checks the flange creepage by IEC 60664-1', () => {
-    const report = analyzeTransformer({ ...demoTransformerSection, endMarginM: 1.5e-3 }, point(0.1, 600), spacing);
+    const report = analyzeTransformer({ ...e20Section, endMarginM: 1.5e-3 }, point(0.1, 600), spacing);
     expect(report.hipotTestVoltageV).toBe(2 * 600 + 1000);
     // Table F.4 PD2, material group III: 5.0 mm at 500 V, 6.3 mm at 630 V (read: IEC 60664-1 Table F.4 as
     // reproduced in a terminal-block maker's 2015 catalogue, vol. 1, p. 596), so between them at 600 V.
@@ -99,7 +81,7 @@ describe('analyzeTransformer (common practice checks on the demo section)', () =
     expect(report.requiredCreepageM * 1000).toBeLessThan(6.3);
     expect(report.flangeCreepageM).toBeCloseTo(2 * 1.5e-3, 12);
     expect(verdictOf(report, 'transformer.flange-creepage')).toBe('fail');
-    const wide = analyzeTransformer({ ...demoTransformerSection, flangeCreepageM: 10e-3 }, point(0.1, 600), spacing);
+    const wide = analyzeTransformer({ ...e20Section, flangeCreepageM: 10e-3 }, point(0.1, 600), spacing);
     expect(verdictOf(wide, 'transformer.flange-creepage')).toBe('pass');
   });
 
@@ -139,15 +121,15 @@ describe('analyzeTransformer (common practice checks on the demo section)', () =
     const forwardA = 0.05 / (30e3 * 168 * 15e-6);
     expect(loaded.windingCurrentsA.secondary[0]!.value).toBeCloseTo(forwardA, 12);
     expect(loaded.windingCurrentsA.primary[1]!.value).toBeCloseTo(0.1 + forwardA * 60, 12);
-    const a = analyzeTransformer(demoTransformerSection, loaded, spacing);
-    const b = analyzeTransformer(demoTransformerSection, point(0.1), spacing);
+    const a = analyzeTransformer(e20Section, loaded, spacing);
+    const b = analyzeTransformer(e20Section, point(0.1), spacing);
     expect(a.peakFluxDensityT).toBe(b.peakFluxDensityT);
     expect(a.copperLossW).toBeGreaterThan(b.copperLossW);
   });
 
   it('losses and temperature rise grow with the current', () => {
-    const low = analyzeTransformer(demoTransformerSection, point(0.05), spacing);
-    const high = analyzeTransformer(demoTransformerSection, point(0.15), spacing);
+    const low = analyzeTransformer(e20Section, point(0.05), spacing);
+    const high = analyzeTransformer(e20Section, point(0.15), spacing);
     expect(high.coreLossW).toBeGreaterThan(low.coreLossW);
     // Primary and secondary copper loss scale as I² (the feedback winding's base current is held), and a
     // little more: the hotter copper resists more (0.393 %/K, IEC 60028).

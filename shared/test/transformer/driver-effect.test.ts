@@ -35,7 +35,7 @@ describe('what the designed transformer does to the driver', () => {
   });
 
   it('more primary turns on the same secondary: the peaks fall with the turns ratio and the tab says why', () => {
-    const report = analyzeDesign(testerOn(withPrimaryTurns(30)));
+    const report = analyzeDesign(testerOn(withPrimaryTurns(60)));
     const effect = report.transformer?.driverEffect;
     if (!effect) throw new Error('a designed transformer reports its effect on the driver');
     expect(effect.turnsRatio).toBe(40);
@@ -43,7 +43,7 @@ describe('what the designed transformer does to the driver', () => {
     // Ideal transformer: the forward pulse is Vp·Ns/Np (common practice, no source), so 40/60 of the given one
     // within the winding drops the section changes.
     const given = analyzeDesign({
-      ...testerOn(withPrimaryTurns(30)),
+      ...testerOn(withPrimaryTurns(60)),
       drive: { ...designExamples.surfaceChargeTester.drive },
     });
     const forward = report.driver?.figures.forwardSecondaryPeakV.value ?? 0;
@@ -59,13 +59,13 @@ describe('what the designed transformer does to the driver', () => {
   it('names the feedback ratio when the primary’s turns change alone, and leaves the held inductance out', () => {
     const section: TransformerSection = {
       ...demoTransformerSection,
-      windings: demoTransformerSection.windings.map((w) => (w.role === 'primary' ? { ...w, turns: 30 } : w)),
+      windings: demoTransformerSection.windings.map((w) => (w.role === 'primary' ? { ...w, turns: 60 } : w)),
     };
     const findings = analyzeDesign(testerOn(section)).transformer?.driverEffect?.findings.join(' ') ?? '';
-    // 8 feedback turns over 30 primary turns: 0.27 of them, where the given 8 over 20 are 0.40.
+    // 16 feedback turns over 60 primary turns: 0.27 of them, where the given 8 over 20 are 0.40.
     expect(findings).toMatch(/feedback winding has 0\.27 of the primary’s turns where the given numbers have 0\.40/);
     expect(findings).not.toMatch(/primary inductance/);
-    const scaled = analyzeDesign(testerOn(withPrimaryTurns(30))).transformer?.driverEffect?.findings.join(' ') ?? '';
+    const scaled = analyzeDesign(testerOn(withPrimaryTurns(60))).transformer?.driverEffect?.findings.join(' ') ?? '';
     expect(scaled).not.toMatch(/feedback winding/);
   });
 

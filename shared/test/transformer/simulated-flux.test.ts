@@ -5,14 +5,10 @@ import { estimateBlockingOscillator } from '../../src/driver/blocking-oscillator
 import { stageTransformerOperatingPoint } from '../../src/analysis/transformer-report';
 import { MnaSystem } from '../../src/sim/mna-system';
 import { TransientStepper } from '../../src/sim/transient';
-import {
-  analyzeTransformer,
-  demoTransformerSection,
-  derivedTransformerNumbers,
-  effectiveDriverStage,
-} from '../../src/transformer';
+import { analyzeTransformer, derivedTransformerNumbers, effectiveDriverStage } from '../../src/transformer';
+import { e20Section } from './tester-fixtures';
 
-// A bare base-limited stage (secondary open, flyback into the zener clamp) on the demo transformer section,
+// A bare base-limited stage (secondary open, flyback into the zener clamp) on the E20 demo section,
 // its peak primary current about 0.3 of the section's saturation current.
 const stage: DriverStage = {
   supply: { kind: 'dc', voltageV: 3, sourceResistanceOhm: 0.05 },
@@ -29,14 +25,14 @@ const stage: DriverStage = {
     saturationCurrentA: 1,
   },
   transformerChoice: 'designed',
-  transformerDesign: demoTransformerSection,
+  transformerDesign: e20Section,
   transistor: { forwardBeta: 100, reverseBeta: 2, vbeOnV: 0.7, vceSatV: 0.2, vceoMaxV: 60, icMaxA: 2 },
   baseResistorOhm: 5600,
   clamp: { kind: 'zener', clampVoltageV: 15 },
 };
 
 describe('the driver reads a designed transformer from its section', () => {
-  const derived = derivedTransformerNumbers(demoTransformerSection);
+  const derived = derivedTransformerNumbers(e20Section);
   const effective = effectiveDriverStage(stage);
 
   it('takes turns, inductance, couplings, resistances, saturation and self-capacitance from the section', () => {
@@ -128,23 +124,18 @@ describe('the driver reads a designed transformer from its section', () => {
     const zero = trace[rising]!;
     const cycle = trace.filter((r) => r.t >= zero.t && r.t < zero.t + periodS);
     const simulatedT =
-      Math.max(...cycle.map((r) => r.linkageWb - zero.linkageWb)) /
-      (tx.primaryTurns * demoTransformerSection.core.effectiveAreaM2);
+      Math.max(...cycle.map((r) => r.linkageWb - zero.linkageWb)) / (tx.primaryTurns * e20Section.core.effectiveAreaM2);
 
     // The section's figure as the Workbench computes it: the estimate's operating point, its collector peak
     // grown by the turn-off slew across the reflected self-capacitance.
     const spacing = { pollutionDegree: 2, materialGroup: 'IIIa', pcb: false } as const;
     const load = { flybackSecondaryPeakV: estimate.flybackSecondaryPeakV.value, forwardLoadPowerW: 0 };
-    const section = analyzeTransformer(
-      demoTransformerSection,
-      stageTransformerOperatingPoint(effective, estimate, load),
-      spacing,
-    );
+    const section = analyzeTransformer(e20Section, stageTransformerOperatingPoint(effective, estimate, load), spacing);
     expect(Math.abs(section.peakFluxDensityT / simulatedT - 1)).toBeLessThan(0.02);
     // Without the slew, at the collector's peak current alone, the figure is about 10 % low: the slew matters.
     const atCollectorPeak =
       (derived.primaryInductanceH * estimate.peakPrimaryCurrentA.value) /
-      (tx.primaryTurns * demoTransformerSection.core.effectiveAreaM2);
+      (tx.primaryTurns * e20Section.core.effectiveAreaM2);
     expect(simulatedT / atCollectorPeak - 1).toBeGreaterThan(0.05);
     // The primary's own current peaks higher still: the reflected self-capacitance rings with the leakage
     // through the on-time, a current that carries no flux of its own.

@@ -1,18 +1,17 @@
 import { describe, expect, it } from 'vitest';
-import { analyzeDesign, driverSizerFigures, withTransformerSection } from '../../src/analysis';
+import {
+  analyzeDesign,
+  checksWorsenedBySection,
+  driverSizerFigures,
+  sectionAssessor,
+  withTransformerSection,
+} from '../../src/analysis';
 import { designExamples } from '../../src/designs/design-examples';
 import { requiredCreepageMm } from '../../src/safety/creepage';
-import {
-  demoCoreKinds,
-  demoTapeKinds,
-  demoTransformerSection,
-  demoWireKinds,
-  endMarginForCreepageM,
-  sizeTransformer,
-} from '../../src/transformer';
+import { demoCoreKinds, demoTransformerSection, endMarginForCreepageM, sizeTransformer } from '../../src/transformer';
+import { e20Section, testerSizerRequest } from './tester-fixtures';
 
 const tester = designExamples.surfaceChargeTester;
-const wire = (code: string) => demoWireKinds.find((w) => w.code === code)!;
 
 describe('the transformer Sizer on an open design', () => {
   const report = analyzeDesign(tester);
@@ -39,7 +38,7 @@ describe('the transformer Sizer on an open design', () => {
   it('reads the driver on its given numbers, so a section that spoils the driver does not steer the Sizer', () => {
     const spoiling = withTransformerSection(tester, {
       ...demoTransformerSection,
-      windings: demoTransformerSection.windings.map((w) => (w.role === 'primary' ? { ...w, turns: 40 } : w)),
+      windings: demoTransformerSection.windings.map((w) => (w.role === 'primary' ? { ...w, turns: 80 } : w)),
     });
     expect(driverSizerFigures(spoiling, analyzeDesign(spoiling))).toEqual(figures);
   });
@@ -56,21 +55,12 @@ describe('the transformer Sizer on an open design', () => {
   });
 
   it('a fitting core applied to the design passes every transformer Check and keeps the output target', () => {
-    const ranked = sizeTransformer(
-      demoCoreKinds,
-      {
-        ...figures,
-        primaryWire: wire('Wire 0.20 mm grade 2'),
-        feedbackWire: wire('Wire 0.20 mm grade 2'),
-        secondaryWire: wire('Wire 0.05 mm grade 2'),
-        windingTape: demoTapeKinds[1]!,
-        windingTapeWraps: 3,
-        layerTape: demoTapeKinds[0]!,
-      },
-      tester.targets.spacing,
-    );
-    const chosen = ranked.find((c) => c.refusal === null && c.core.code === 'Core E20 ferrite grade B');
-    if (!chosen?.section) throw new Error('the high-permeability E20 core fits the tester');
+    const ranked = sizeTransformer(demoCoreKinds, testerSizerRequest(), tester.targets.spacing);
+    // With a gap no shorter than can be made, only the E25 core's bobbin holds the turns (the E20 and
+    // smaller cores need more turns than their bobbins hold).
+    expect(ranked.filter((c) => c.refusal === null).map((c) => c.core.code)).toEqual(['Core E25 ferrite grade A']);
+    const chosen = ranked.find((c) => c.refusal === null && c.core.code === 'Core E25 ferrite grade A');
+    if (!chosen?.section) throw new Error('the E25 core fits the tester');
     // The secondary in the given numbers' ratio: 60 times the primary.
     expect(chosen.secondaryTurns).toBe(60 * chosen.primaryTurns);
     const applied = withTransformerSection(tester, chosen.section);
@@ -96,5 +86,28 @@ describe('the transformer Sizer on an open design', () => {
       ['secondary coil', 9],
     ]);
     expect(again.drive.driver.transformerDesign?.inductanceTolerance).toBe(0.2);
+  });
+});
+
+describe('what a section does to the rest of the design', () => {
+  it('names the design Checks the section leaves worse than the given numbers, the transformer’s own aside', () => {
+    // The given numbers state 60 Ω for the tester's secondary; 1200 turns of 0.05 mm wire (8.8 Ω/m, IACS) on a
+    // 38 mm turn are about 400 Ω, and the demo section's 2400 turns about 920 Ω: its windings cost the driver
+    // power the given numbers do not, so the power the ladder draws passes the driver's deliverable estimate.
+    const given = analyzeDesign(tester);
+    const worsened = checksWorsenedBySection(tester, demoTransformerSection, given);
+    expect(worsened).toEqual([
+      { id: 'driver-power', subject: 'driver stage', verdict: 'fail', givenVerdict: 'pass' },
+      { id: 'driver.base-drive', subject: 'transistor', verdict: 'marginal', givenVerdict: 'pass' },
+    ]);
+    const after = analyzeDesign(withTransformerSection(tester, demoTransformerSection));
+    const power = after.checks.find((c) => c.id === 'driver-power')!;
+    expect(power.value).toBeGreaterThan(power.limit);
+    // The E20 section fails its own gap-length Check; the Sizer judges those, so they are not repeated here.
+    const e20 = sectionAssessor(tester)(e20Section);
+    expect(e20.some((c) => c.id.startsWith('transformer.'))).toBe(false);
+    expect(analyzeDesign(withTransformerSection(tester, e20Section)).checks.map((c) => c.id)).toContain(
+      'transformer.gap-length',
+    );
   });
 });

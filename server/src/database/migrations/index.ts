@@ -12,7 +12,8 @@ import { driverSecondaryPhasing } from './0010-driver-secondary-phasing';
 import { magneticsParts } from './0011-magnetics-parts';
 import { calibrations } from './0012-calibrations';
 import { memberRequests } from './0013-member-requests';
-import { calibrationEvaluations } from './0014-calibration-evaluations';
+import { simulationBatches } from './0014-simulation-batches';
+import { calibrationEvaluations } from './0015-calibration-evaluations';
 
 /** Every schema step in order. Add new steps at the end. */
 export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
@@ -29,5 +30,6 @@ export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
   magneticsParts,
   calibrations,
   memberRequests,
+  simulationBatches,
   calibrationEvaluations,
 ];

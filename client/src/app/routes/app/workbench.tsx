@@ -1,13 +1,13 @@
-import { useCallback, useLayoutEffect, useMemo, useRef, useState } from 'react';
-import { Alert, Anchor, Badge, Group, List, Stack, Text } from '@mantine/core';
+import { lazy, Suspense, useCallback, useEffect, useLayoutEffect, useRef, useState, type RefObject } from 'react';
+import { Alert, Anchor, Badge, Group, Stack, Text } from '@mantine/core';
 import { Trail } from '../../../components/trail';
 import { useDocumentTitle } from '@mantine/hooks';
 import { useQueryClient, useSuspenseQuery, type QueryClient } from '@tanstack/react-query';
 import { Link, redirect, useNavigate, useParams, useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
 import type { Part, RevisionDetail, RevisionSummary, StaleBaseError } from '@ladderwright/shared/api';
 import { canActInProject } from '@ladderwright/shared/auth';
-import { headlineSource, simulationSourceLabel } from '@ladderwright/shared/analysis';
-import { documentFieldLabel, type Design } from '@ladderwright/shared/designs';
+import { simulationSourceLabel } from '@ladderwright/shared/analysis';
+import type { Design } from '@ladderwright/shared/designs';
 import { paths } from '../../../config/paths';
 import { queryKeys } from '../../../lib/query-keys';
 import { staleBaseOf, useCreateRevision } from '../../../features/designs/api/create-revision';
@@ -19,13 +19,24 @@ import { useSimulatedFigures } from '../../../features/workbench/api/get-simulat
 import { LadderForm } from '../../../features/workbench/components/ladder-form';
 import { VerdictStrip } from '../../../features/workbench/components/verdict-strip';
 import { useDesignDraft } from '../../../features/workbench/hooks/use-design-draft';
+import { useHeadlineSource } from '../../../features/workbench/hooks/use-headline-source';
 import { useLiveAnalysis } from '../../../features/workbench/hooks/use-live-analysis';
 import { requireUser } from './root';
 import classes from './workbench.module.css';
 import { WorkbenchHeader } from './workbench-header';
 import { WorkbenchResults } from './workbench-results';
-import { WorkbenchStaleAlert } from './workbench-stale-alert';
 import { showNotification } from '../../../lib/show-notification';
+
+// Shown only after a save conflict: it reads the field-label map, which the first paint does not need.
+const WorkbenchStaleAlert = lazy(() =>
+  import('./workbench-stale-alert').then((module) => ({ default: module.WorkbenchStaleAlert })),
+);
+// Shown only for part codes missing from the shelf, under their field labels.
+const PartIssuesAlert = lazy(() =>
+  import('../../../features/workbench/components/part-issues-alert').then((module) => ({
+    default: module.PartIssuesAlert,
+  })),
+);
 
 const noParts: readonly Part[] = [];
 
@@ -103,6 +114,23 @@ interface EditableRevisionProps {
   isArchived: boolean;
 }
 
+/**
+ * Keeps `--lw-summary-height` on the layout at the Results summary's height, so that a form section scrolled to
+ * in the stacked layout stops below the sticky summary instead of under it (no render on a resize).
+ */
+function useSummaryHeightVar(layoutRef: RefObject<HTMLElement | null>, summaryRef: RefObject<HTMLElement | null>) {
+  useEffect(() => {
+    const layout = layoutRef.current;
+    const summary = summaryRef.current;
+    if (!layout || !summary || typeof ResizeObserver === 'undefined') return;
+    const observer = new ResizeObserver(() =>
+      layout.style.setProperty('--lw-summary-height', `${Math.ceil(summary.getBoundingClientRect().height)}px`),
+    );
+    observer.observe(summary);
+    return () => observer.disconnect();
+  }, [layoutRef, summaryRef]);
+}
+
 function EditableRevision({
   projectId,
   revision,
@@ -133,10 +161,7 @@ function EditableRevision({
   // The saved revision's figures come from its current stored simulation where there is one; a draft's are estimates.
   const simulated = useSimulatedFigures(projectId, revision.designId, revision.number, !isDirty);
   const simulation = simulated.data?.simulation ?? null;
-  const headline = useMemo(
-    () => (isDirty ? null : headlineSource(revision.report, simulation, revision.document.targets)),
-    [isDirty, revision, simulation],
-  );
+  const headline = useHeadlineSource(isDirty ? null : revision.report, simulation, revision.document.targets);
   const report = isDirty ? live.report : (headline?.report ?? revision.report);
   const issueCount = Object.keys(live.issues).length;
   const save = useCreateRevision(projectId, revision.designId);
@@ -167,6 +192,10 @@ function EditableRevision({
     );
   };
 
+  const layoutRef = useRef<HTMLDivElement>(null);
+  const summaryRef = useRef<HTMLElement>(null);
+  useSummaryHeightVar(layoutRef, summaryRef);
+
   // The header is memoized: Save reaches the latest submit through a ref, so its handler keeps its identity.
   const submitRef = useRef(submit);
   useLayoutEffect(() => {
@@ -193,16 +222,18 @@ function EditableRevision({
         onSave={onSave}
       />
       {stale && (
-        <WorkbenchStaleAlert
-          projectId={projectId}
-          designId={revision.designId}
-          stale={stale}
-          baseRevisionNumber={baseRevisionNumber}
-          onSaveOnTop={() => {
-            setBaseRevisionNumber(stale.latestRevisionNumber);
-            setStale(null);
-          }}
-        />
+        <Suspense fallback={null}>
+          <WorkbenchStaleAlert
+            projectId={projectId}
+            designId={revision.designId}
+            stale={stale}
+            baseRevisionNumber={baseRevisionNumber}
+            onSaveOnTop={() => {
+              setBaseRevisionNumber(stale.latestRevisionNumber);
+              setStale(null);
+            }}
+          />
+        </Suspense>
       )}
       {save.isError && !stale && (
         <Alert color="red" title="Not saved">
@@ -210,65 +241,61 @@ function EditableRevision({
         </Alert>
       )}
 
-      <div className={classes.layout}>
-        <section
-          className={classes.summary}
-          aria-label="Results summary"
-          data-live-pending={live.isPending ? 'true' : 'false'}
-        >
-          <Group gap="xs" mb={6}>
-            <Text size="sm" fw={600}>
-              Results
-            </Text>
-            <Badge
-              variant="dot"
-              color={isDirty ? 'ember' : 'verdigris'}
-              radius="sm"
-              tt="none"
-              aria-live="polite"
-              style={{ maxWidth: 'none' }}
-            >
-              {isDirty
-                ? live.isPending
-                  ? 'live preview, updating…'
-                  : 'live preview (unsaved edits)'
-                : `server result of r${revision.number} · ${headline?.source === 'simulation' ? `figures ${simulationSourceLabel(headline)}` : 'estimate'}`}
-            </Badge>
-          </Group>
-          {live.engineError && isDirty && (
-            <Alert color="red" title="The engine could not analyse this document">
-              {live.engineError}
-            </Alert>
-          )}
-          {!report && issueCount > 0 && (
-            <Alert color="ember" title="Results wait for valid inputs">
-              {issueCount} field{issueCount === 1 ? '' : 's'} to correct (marked beside each field and in the Form
-              index).
-            </Alert>
-          )}
-          {report && <VerdictStrip report={report} targets={draft.draft.targets} headline={headline} />}
-        </section>
-        <section className={classes.inputs} aria-label="Design inputs">
-          <LadderForm
-            document={draft.draft}
-            onChange={onFormChange}
-            issues={live.issues}
-            parts={shelf ?? noParts}
-            isReadOnly={isReadOnly}
-          />
-        </section>
+      <div className={classes.layout} ref={layoutRef}>
+        <div className={classes.editing}>
+          <section
+            ref={summaryRef}
+            className={classes.summary}
+            aria-label="Results summary"
+            data-live-pending={live.isPending ? 'true' : 'false'}
+          >
+            <Group gap="xs" mb={6}>
+              <Text size="sm" fw={600}>
+                Results
+              </Text>
+              <Badge
+                variant="dot"
+                color={isDirty ? 'ember' : 'verdigris'}
+                radius="sm"
+                tt="none"
+                aria-live="polite"
+                style={{ maxWidth: 'none' }}
+              >
+                {isDirty
+                  ? live.isPending
+                    ? 'live preview, updating…'
+                    : 'live preview (unsaved edits)'
+                  : `server result of r${revision.number} · ${headline?.source === 'simulation' ? `figures ${simulationSourceLabel(headline)}` : 'estimate'}`}
+              </Badge>
+            </Group>
+            {live.engineError && isDirty && (
+              <Alert color="red" title="The engine could not analyse this document">
+                {live.engineError}
+              </Alert>
+            )}
+            {!report && issueCount > 0 && (
+              <Alert color="ember" title="Results wait for valid inputs">
+                {issueCount} field{issueCount === 1 ? '' : 's'} to correct (marked beside each field and in the Form
+                index).
+              </Alert>
+            )}
+            {report && <VerdictStrip report={report} targets={draft.draft.targets} headline={headline} />}
+          </section>
+          <section className={classes.inputs} aria-label="Design inputs">
+            <LadderForm
+              document={draft.draft}
+              onChange={onFormChange}
+              issues={live.issues}
+              parts={shelf ?? noParts}
+              isReadOnly={isReadOnly}
+            />
+          </section>
+        </div>
         <section className={classes.results} aria-label="Result tabs">
           {report && partIssues.length > 0 && (
-            <Alert color="ember" title="Part codes not on this project's Parts shelf" mb="sm">
-              <Text size="sm">Checked on the ratings written in the design instead:</Text>
-              <List size="sm">
-                {partIssues.map((partIssue) => (
-                  <List.Item key={partIssue.path}>
-                    {documentFieldLabel(partIssue.path).label}: {partIssue.message}
-                  </List.Item>
-                ))}
-              </List>
-            </Alert>
+            <Suspense fallback={null}>
+              <PartIssuesAlert issues={partIssues} />
+            </Suspense>
           )}
           {report && (
             <WorkbenchResults

@@ -2,7 +2,7 @@ import { fireEvent, screen, within } from '@testing-library/react';
 import { describe, expect, it, vi } from 'vitest';
 import { renderWithApp } from '../../../testing/render';
 import { shelfPart } from '../../../testing/shelf-part';
-import { TransformerSizerPanel } from './transformer-sizer-panel';
+import { TransformerSizerPanel, type SizerDesign } from './transformer-sizer-panel';
 
 const ferrite = {
   saturationFluxDensity25T: 0.42,
@@ -45,6 +45,37 @@ const shelf = [
   shelfPart({ code: 'NF-T025-PE', kind: 'tape', thicknessM: 25e-6, dielectricStrengthVPerM: 1e8 }),
 ];
 
+/** A wider E25 core beside the E20. */
+const widerCore = shelfPart({
+  code: 'NF-KE25-M1',
+  kind: 'core',
+  valueSi: 2e-6,
+  coreAreaM2: 52e-6,
+  corePathLengthM: 57.5e-3,
+  coreVolumeM3: 2990e-9,
+  windowAreaM2: 39e-6,
+  bobbinBreadthM: 14.2e-3,
+  bobbinHeightM: 2.75e-3,
+  meanTurnLengthM: 50e-3,
+  ...ferrite,
+});
+
+/** A small tester's driver: 0.25 mH, 1 : 0.4 : 60, 80 mA peak, 0.9 kV. */
+const testerDesign: SizerDesign = {
+  name: 'Tester',
+  figures: {
+    primaryInductanceH: 0.25e-3,
+    primaryPeakCurrentA: 0.08,
+    turnsRatio: 60,
+    feedbackRatio: 0.4,
+    frequencyHz: 35e3,
+    dutyOnFraction: 0.9,
+    secondaryPeakV: 900,
+  },
+  spacing: { pollutionDegree: 1, materialGroup: 'IIIa', pcb: true },
+  secondaryWireCode: 'NF-W008-G2',
+};
+
 describe('TransformerSizerPanel', () => {
   it('ranks the shelf cores with the fewest primary turns that keep a 20 % flux margin', () => {
     renderWithApp(<TransformerSizerPanel shelf={shelf} />);
@@ -65,41 +96,51 @@ describe('TransformerSizerPanel', () => {
 
   it('starts from the open design’s driver figures and applies a fitting core’s section to it', () => {
     const onApply = vi.fn();
-    renderWithApp(
-      <TransformerSizerPanel
-        shelf={shelf}
-        design={{
-          name: 'Tester',
-          figures: {
-            primaryInductanceH: 1e-3,
-            primaryPeakCurrentA: 0.08,
-            turnsRatio: 60,
-            feedbackRatio: 0.4,
-            frequencyHz: 35e3,
-            dutyOnFraction: 0.9,
-            secondaryPeakV: 900,
-          },
-          spacing: { pollutionDegree: 1, materialGroup: 'IIIa', pcb: true },
-          secondaryWireCode: 'NF-W008-G2',
-        }}
-        onApply={onApply}
-      />,
-    );
+    renderWithApp(<TransformerSizerPanel shelf={shelf} design={testerDesign} onApply={onApply} />);
     expect(screen.getByText('From the driver of Tester, at the rated load')).toBeInTheDocument();
     fireEvent.click(screen.getByRole('button', { name: 'Rank 1 shelf cores' }));
     const row = within(screen.getByRole('table', { name: 'Ranked cores' })).getAllByRole('row')[1]!;
-    // AL of the ungapped core bounds the turns: √(1 mH / 4.5 µH) = 14.9, so 15; 6 feedback, 900 secondary.
-    expect(within(row).getByText('15 : 6 : 900')).toBeInTheDocument();
+    // The shortest gap that can be made, 0.05 mm (common practice, no source), bounds the turns. McLyman's gapped
+    // AL (Transformer and Inductor Design Handbook, 3rd ed., ch. 8, from memory), by hand: le/µr = µ0·32 mm² /
+    // 4.5 µH = 8.936 µm, F = 1 + (0.05/√32)·ln(22/0.05) = 1.0538, AL = F·µ0·Ae/(50 µm + 8.936 µm) = 0.719 µH;
+    // √(0.25 mH / 0.719 µH) = 18.6, so 19; 0.4 × 19 = 7.6 → 8 feedback, 60 × 19 = 1140 secondary.
+    expect(within(row).getByText('19 : 8 : 1140')).toBeInTheDocument();
     fireEvent.click(within(row).getByRole('button', { name: 'Apply NF-KE20-M2 to the design' }));
     expect(onApply).toHaveBeenCalledTimes(1);
     const [section, code] = onApply.mock.calls[0] as [{ windings: { role: string; turns: number }[] }, string];
     expect(code).toBe('NF-KE20-M2');
     expect(section.windings.map((w) => [w.role, w.turns])).toEqual([
-      ['primary', 15],
-      ['feedback', 6],
-      ['secondary', 900],
+      ['primary', 19],
+      ['feedback', 8],
+      ['secondary', 1140],
     ]);
     expect(screen.getByRole('status')).toHaveTextContent('NF-KE20-M2 applied to the draft');
+  });
+
+  it('says what each fitting core does to the design’s other Checks, and ranks one that fails them last', () => {
+    const assess = vi.fn((section: { core: { code: string } }) =>
+      section.core.code === 'NF-KE20-M2'
+        ? [{ id: 'driver-power', subject: 'driver stage', verdict: 'fail' as const, givenVerdict: 'pass' as const }]
+        : [],
+    );
+    renderWithApp(<TransformerSizerPanel shelf={[widerCore, ...shelf]} design={testerDesign} assess={assess} />);
+    fireEvent.click(screen.getByRole('button', { name: 'Rank 2 shelf cores' }));
+    const rows = within(screen.getByRole('table', { name: 'Ranked cores' })).getAllByRole('row');
+    expect(screen.getByRole('columnheader', { name: 'On the design' })).toBeInTheDocument();
+    expect(rows[1]).toHaveTextContent('NF-KE25-M1');
+    expect(rows[1]).toHaveTextContent('no Check worse than on the given numbers');
+    expect(rows[2]).toHaveTextContent('NF-KE20-M2');
+    expect(rows[2]).toHaveTextContent('fails driver power');
+    expect(assess).toHaveBeenCalledTimes(2);
+  });
+
+  it('keeps the engine’s order (loss, then size) among cores that leave the design’s Checks as they were', () => {
+    renderWithApp(<TransformerSizerPanel shelf={[widerCore, ...shelf]} design={testerDesign} assess={() => []} />);
+    fireEvent.click(screen.getByRole('button', { name: 'Rank 2 shelf cores' }));
+    const rows = within(screen.getByRole('table', { name: 'Ranked cores' })).getAllByRole('row');
+    // The smaller E20 loses less than the E25 here, so it leads when neither harms the design.
+    expect(rows[1]).toHaveTextContent('NF-KE20-M2');
+    expect(rows[2]).toHaveTextContent('NF-KE25-M1');
   });
 
   it('offers no Apply without a design to apply to', () => {

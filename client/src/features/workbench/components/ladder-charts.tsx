@@ -8,33 +8,71 @@ export interface LadderChartsProps {
   report: DesignReport;
 }
 
-/** Output vs load current (regulation) and output vs stage count with the optimum marked, from the engine's curves. */
+/** The output-vs-load plot: the supply's own curve for a driver design, else the ladder's at its fixed drive. */
+export function loadCurveOf(report: DesignReport) {
+  const curves = report.curves;
+  const driver = report.driver;
+  if (!driver) {
+    return {
+      title: 'Output vs load current',
+      method: curves.method,
+      subject: 'the regulation curve',
+      data: curves.regulation,
+      seriesName: 'output (mean)',
+      loadA: report.analysis.loadCurrentA,
+      loadLabel: `operating load ${formatQuantity(report.analysis.loadCurrentA, 'A')}`,
+      range: undefined,
+      footer: `Short-circuit current ${formatQuantity(curves.shortCircuitCurrentA, 'A')}`,
+    };
+  }
+  // With a driver the drive itself falls as the load grows past the power limit: each load's output comes from the
+  // driver and the ladder solved together, so a load beyond what the supply delivers is drawn beyond the curve's end
+  // instead of as the ladder at the collapsed drive of its last point.
+  const op = driver.operatingPoint;
+  const data = op.curve.map((point) => ({ x: point.loadCurrentA, y: point.outputV }));
+  const capacity = driver.loadCapacity;
+  const loadA = capacity?.loadCurrentA ?? report.analysis.loadCurrentA;
+  const endA = data.at(-1)?.x ?? 0;
+  const isBeyond = capacity?.isLoadBeyond === true;
+  return {
+    title: 'Output vs load current (driver and ladder)',
+    method: op.method,
+    subject: 'the driver operating curve',
+    data,
+    seriesName: 'output (mean), driver and ladder',
+    loadA,
+    loadLabel: `${isBeyond ? 'this design’s load, beyond the supply,' : 'operating load'} ${formatQuantity(loadA, 'A')}`,
+    range: loadA > endA ? ([0, loadA * 1.05] as const) : undefined,
+    footer:
+      capacity !== undefined
+        ? `The supply holds an output up to ${formatQuantity(capacity.maxLoadCurrentA, 'A')} of load`
+        : `Short-circuit current ${formatQuantity(curves.shortCircuitCurrentA, 'A')}`,
+  };
+}
+
+/**
+ * Output vs load current (the regulation of the ladder at its drive, or of the whole supply with a driver) and
+ * output vs stage count with the optimum marked, from the engine's curves.
+ */
 export function LadderCharts({ report }: LadderChartsProps) {
   const curves = report.curves;
-  const operatingCurrentA = report.analysis.loadCurrentA;
+  const load = loadCurveOf(report);
   const [outputColor = '', , designColor = ''] = chartColors.traces;
   return (
     <SimpleGrid type="container" cols={{ base: 1, '620px': 2 }} spacing="md">
       <QuantityChart
         label="Output vs load current"
-        title="Output vs load current"
-        actions={<MethodNote subject="the regulation curve" method={curves.method} />}
+        title={load.title}
+        actions={<MethodNote subject={load.subject} method={load.method} />}
         heightPx={220}
-        data={curves.regulation}
-        x={{ key: 'x', title: 'Load current', unit: 'A', includesZero: true }}
+        data={load.data}
+        x={{ key: 'x', title: 'Load current', unit: 'A', includesZero: true, range: load.range }}
         y={{ title: 'Output', unit: 'V', includesZero: true }}
-        series={[{ key: 'y', name: 'output (mean)', color: outputColor }]}
-        markers={[
-          {
-            key: 'operating',
-            label: `operating load ${formatQuantity(operatingCurrentA, 'A')}`,
-            x: operatingCurrentA,
-            color: chartColors.mark,
-          },
-        ]}
+        series={[{ key: 'y', name: load.seriesName, color: outputColor }]}
+        markers={[{ key: 'operating', label: load.loadLabel, x: load.loadA, color: chartColors.mark }]}
         footer={
           <Text size="xs" c="dimmed">
-            Short-circuit current {formatQuantity(curves.shortCircuitCurrentA, 'A')}
+            {load.footer}
           </Text>
         }
       />

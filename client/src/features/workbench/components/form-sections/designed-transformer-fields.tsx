@@ -1,4 +1,5 @@
-import { ActionIcon, Group, NumberInput, Paper, Select, Stack, Text } from '@mantine/core';
+import { ActionIcon, Group, Paper, Select, Stack, Text } from '@mantine/core';
+import { NumberField } from '../../../../components/number-field';
 import type { Part } from '@ladderwright/shared/api';
 import { documentFieldLabel } from '@ladderwright/shared/designs';
 import type { DriverStage } from '@ladderwright/shared/driver';
@@ -161,7 +162,7 @@ export function DesignedTransformerFields({ section, edit, issue, parts }: Desig
           value: number | undefined,
           options: { min: number; placeholder?: string; isOptional?: boolean },
         ) => (
-          <NumberInput
+          <NumberField
             label={label(`windings[${index}].${field}`).replace(/^Winding \d+ /, `${name} `)}
             data-path={`${SECTION_PATH}.${at(field)}`}
             value={value ?? ''}

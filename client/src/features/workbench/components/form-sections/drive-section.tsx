@@ -1,4 +1,5 @@
-import { NumberInput, SegmentedControl, Select, Stack, Text } from '@mantine/core';
+import { SegmentedControl, Select, Stack, Text } from '@mantine/core';
+import { NumberField } from '../../../../components/number-field';
 import { driverExamples, type CellChemistry, type DriverStage } from '@ladderwright/shared/driver';
 import { BoundField } from '../../../../components/bound-field';
 import { FieldGrid } from '../../../../components/field-grid';
@@ -133,7 +134,7 @@ function SupplyFields({
           <BoundField label="Cell capacity (Ah)" unit={null} step={0.1} {...bind('supply.capacityAh')} />
           <BoundField label="Internal resistance per cell" unit="Ohm" {...bind('supply.internalResistanceOhm')} />
           <BoundField label="End voltage per cell" unit="V" {...bind('supply.endVoltagePerCellV')} />
-          <NumberInput
+          <NumberField
             label="Battery-life target (h)"
             placeholder="no target"
             value={driver.batteryLifeTargetH ?? ''}

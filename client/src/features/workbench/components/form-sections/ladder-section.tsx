@@ -1,5 +1,6 @@
 import { lazy, memo, Suspense, useState } from 'react';
-import { NumberInput, Select, Stack, Text } from '@mantine/core';
+import { Select, Stack, Text } from '@mantine/core';
+import { NumberField } from '../../../../components/number-field';
 import { capacitorCountFor, DIODE_MODEL_DEFAULTS, type DiodePart, type Topology } from '@ladderwright/shared/designs';
 import { BoundField } from '../../../../components/bound-field';
 import { FieldGrid } from '../../../../components/field-grid';
@@ -69,7 +70,7 @@ export function LadderSection({
           onChange={(v) => v && setShape(v, m.cellCount)}
           error={issue('multiplier.topology')}
         />
-        <NumberInput
+        <NumberField
           label={m.topology === 'full-wave' ? 'Stages' : 'Cells'}
           value={m.cellCount}
           min={1}

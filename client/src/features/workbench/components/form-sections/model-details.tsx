@@ -1,18 +1,12 @@
-import { useState } from 'react';
-import { Accordion, Text } from '@mantine/core';
-import { documentFieldLabel } from '@ladderwright/shared/designs';
-import { formatQuantity, type QuantityUnit } from '@ladderwright/shared/units';
-import { BoundField } from '../../../../components/bound-field';
-import { FieldGrid } from '../../../../components/field-grid';
-import type { OptionalBinding } from '../../document-path';
+import { lazy, Suspense, useState } from 'react';
+import { Accordion, Loader, Text } from '@mantine/core';
+import type { ModelDetail } from './model-detail-fields';
 
-/** One optional model field: its binding and what the simulation takes when it is empty (null: none). */
-export interface ModelDetail {
-  binding: OptionalBinding;
-  fallback: number | null;
-}
-
-const QUANTITY_UNITS: ReadonlySet<string> = new Set<QuantityUnit>(['V', 'A', 'F', 'Ohm', 's']);
+// The fields load when the group is first opened: their labels come from the field-label map, which a folded
+// group does not need.
+const ModelDetailFields = lazy(() =>
+  import('./model-detail-fields').then((module) => ({ default: module.ModelDetailFields })),
+);
 
 /**
  * A group of optional device-model fields (SPICE parameters), folded away until opened, and opened by itself when
@@ -23,6 +17,10 @@ export function ModelDetails({ title, details }: { title: string; details: Model
   const [open, setOpen] = useState<string | null>(null);
   const hasIssue = details.some((d) => d.binding.issue);
   const setCount = details.filter((d) => Number.isFinite(d.binding.value)).length;
+  const isOpen = hasIssue || open === 'details';
+  // Once shown, the fields stay mounted, so the group folds with its animation.
+  const [hasBeenOpen, setHasBeenOpen] = useState(isOpen);
+  if (isOpen && !hasBeenOpen) setHasBeenOpen(true);
   return (
     <Accordion
       variant="contained"
@@ -40,24 +38,11 @@ export function ModelDetails({ title, details }: { title: string; details: Model
           </Text>
         </Accordion.Control>
         <Accordion.Panel>
-          <FieldGrid>
-            {details.map(({ binding, fallback }) => {
-              const { label, display } = documentFieldLabel(binding.path);
-              const unit = QUANTITY_UNITS.has(display) ? (display as QuantityUnit) : null;
-              const shown = fallback === null ? 'none' : unit ? formatQuantity(fallback, unit) : String(fallback);
-              return (
-                <BoundField
-                  key={binding.path}
-                  label={label}
-                  unit={unit}
-                  step={0.05}
-                  decimalScale={3}
-                  placeholder={`${shown} (default)`}
-                  {...binding}
-                />
-              );
-            })}
-          </FieldGrid>
+          {(isOpen || hasBeenOpen) && (
+            <Suspense fallback={<Loader size="xs" aria-label="Loading the model fields" />}>
+              <ModelDetailFields details={details} />
+            </Suspense>
+          )}
         </Accordion.Panel>
       </Accordion.Item>
     </Accordion>

@@ -1,4 +1,5 @@
-import { NumberInput, Select, Switch } from '@mantine/core';
+import { Select, Switch } from '@mantine/core';
+import { NumberField } from '../../../../components/number-field';
 import { NAMED_DISCHARGE_RULES } from '@ladderwright/shared/designs';
 import { BoundField } from '../../../../components/bound-field';
 import { FieldGrid } from '../../../../components/field-grid';
@@ -61,7 +62,7 @@ export function TargetsSection({ document, edit, issue }: SectionProps) {
           })
         }
       />
-      <NumberInput
+      <NumberField
         label="Provided creepage per stage (mm)"
         value={t.spacing.providedCreepageMm ?? ''}
         min={0.1}

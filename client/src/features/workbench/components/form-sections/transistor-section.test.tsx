@@ -23,14 +23,15 @@ function Harness({ onStage, issueAt }: { onStage: (stage: DriverStage) => void; 
 }
 
 describe('TransistorSection model details', () => {
-  it('keeps the model fields folded, sets one typed with its prefix and removes it when emptied', () => {
+  it('keeps the model fields folded, sets one typed with its prefix and removes it when emptied', async () => {
     let stage: DriverStage | undefined;
     renderWithApp(<Harness onStage={(next) => (stage = next)} />);
     const toggle = screen.getByRole('button', { name: /Transistor model details/ });
     expect(toggle).toHaveAttribute('aria-expanded', 'false');
+    expect(screen.queryByLabelText('Early voltage (VAF)')).toBeNull();
     fireEvent.click(toggle);
     expect(toggle).toHaveAttribute('aria-expanded', 'true');
-    const early = screen.getByLabelText('Early voltage (VAF)');
+    const early = await screen.findByLabelText('Early voltage (VAF)');
     expect(early).toHaveAttribute('placeholder', 'none (default)');
     expect(screen.getByLabelText('B–E junction capacitance (CJE)')).toHaveAttribute('placeholder', '10 pF (default)');
     fireEvent.change(early, { target: { value: '80 V' } });
@@ -42,9 +43,9 @@ describe('TransistorSection model details', () => {
     expect(stage && 'earlyVoltageV' in stage.transistor).toBe(false);
   });
 
-  it('opens by itself when one of its fields has an issue', () => {
+  it('opens by itself when one of its fields has an issue', async () => {
     renderWithApp(<Harness onStage={() => {}} issueAt="drive.driver.transistor.earlyVoltageV" />);
     expect(screen.getByRole('button', { name: /Transistor model details/ })).toHaveAttribute('aria-expanded', 'true');
-    expect(screen.getByText('must be at least 2')).toBeInTheDocument();
+    expect(await screen.findByText('must be at least 2')).toBeInTheDocument();
   });
 });

@@ -8,7 +8,7 @@ import type { SchemaMigration } from './migration.types';
  * failure (`failed`). A cancelled calibration marks its open rows `cancelled`.
  */
 export const calibrationEvaluations: SchemaMigration = {
-  name: '0014-calibration-evaluations',
+  name: '0015-calibration-evaluations',
   async up(context) {
     await context.sequelize.query(`
       CREATE TABLE calibration_evaluations (

@@ -1,0 +1,37 @@
+import { describe, expect, it } from 'vitest';
+import { analyzeDesign } from '@ladderwright/shared/analysis';
+import { designExamples, validateDesign, type Design } from '@ladderwright/shared/designs';
+import { loadCurveOf } from './ladder-charts';
+
+function reportAtLoad(design: Design, currentA: number) {
+  return analyzeDesign(validateDesign({ ...structuredClone(design), load: { kind: 'current', currentA } }));
+}
+
+describe('loadCurveOf', () => {
+  it('draws a bare ladder at its drive, from no load to short circuit', () => {
+    const report = analyzeDesign(validateDesign(designExamples.detectorBias));
+    const curve = loadCurveOf(report);
+    expect(curve.data).toBe(report.curves.regulation);
+    expect(curve.range).toBeUndefined();
+    expect(curve.loadA).toBe(report.analysis.loadCurrentA);
+  });
+
+  it('draws a driver design as the supply, with a load beyond what it delivers past the curve’s end', () => {
+    const withinReport = reportAtLoad(designExamples.surfaceChargeTester, 2e-6);
+    const beyondReport = reportAtLoad(designExamples.surfaceChargeTester, 1e-4);
+    const capacity = beyondReport.driver?.loadCapacity;
+    expect(capacity?.isLoadBeyond).toBe(true);
+    const within = loadCurveOf(withinReport);
+    const beyond = loadCurveOf(beyondReport);
+    // The supply's curve does not depend on the load asked of it: the same no-load output either way, which the
+    // ladder's fixed-drive curve at the collapsed drive of an over-loaded supply does not give.
+    expect(beyond.data[0]?.y).toBeCloseTo(within.data[0]?.y ?? Number.NaN, 6);
+    expect(beyondReport.curves.regulation[0]?.y).toBeLessThan(0.5 * (beyond.data[0]?.y ?? 0));
+    expect(beyond.loadA).toBe(1e-4);
+    expect(beyond.loadLabel).toMatch(/beyond the supply/);
+    expect(beyond.range?.[1]).toBeGreaterThan(1e-4);
+    // The curve ends where the output reaches zero: at the most the supply delivers (both found by bisection to
+    // about 1e-4 relative, OperatingPointResult).
+    expect((beyond.data.at(-1)?.x ?? 0) / (capacity?.maxLoadCurrentA ?? Number.NaN)).toBeCloseTo(1, 3);
+  });
+});
