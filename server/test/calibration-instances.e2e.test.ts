@@ -69,8 +69,10 @@ describe('calibration model runs across app instances', () => {
     await cookies.signIn(first, [engineer]);
     const revision = await RevisionModel.findOne({ where: { designId: design.id, number: 1 } });
     const document = revision!.document;
-    // The first 0.12 ms after the push-button: some four cycles of the tester's oscillator (about 31 µs each).
-    const times = Array.from({ length: 8 }, (_, i) => ((i + 1) * 0.12e-3) / 8);
+    // The first 0.2 ms after the push-button: some six cycles of the tester's oscillator (about 31 µs each), so
+    // that a model run lasts long enough (a second or so) for the other instance's poll (0.5 s) to find runs
+    // of the same batch still waiting.
+    const times = Array.from({ length: 8 }, (_, i) => ((i + 1) * 0.2e-3) / 8);
     const volts = startUpSimulation(applyParameterValues(document, ['transistorGain'], [80]), times);
     const csv = `time (us),voltage (V)\n${times.map((t, i) => `${(t * 1e6).toFixed(4)},${volts[i]!.toFixed(4)}`).join('\n')}\n`;
     const upload = await http()

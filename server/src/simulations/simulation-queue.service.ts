@@ -20,6 +20,11 @@ export interface SimulationQueuePayload {
 /** pg-boss expires a job this long after its run-time limit (ours ends it first). */
 const EXPIRY_MARGIN_S = 60;
 const POLLING_INTERVAL_SECONDS = 1;
+/**
+ * Another instance's model-run workers look for runs this often (pg-boss's shortest): a batch of a fit waits
+ * for its slowest run, so a remote worker that comes late adds to every step.
+ */
+const EVALUATION_POLLING_INTERVAL_SECONDS = 0.5;
 
 /**
  * pg-boss in PostgreSQL owns the queue, so that several app instances share the work: each instance's
@@ -68,7 +73,13 @@ export class SimulationQueueService implements OnModuleDestroy {
     concurrency: number,
     handler: (payload: CalibrationEvaluationPayload) => Promise<void>,
   ): Promise<void> {
-    await this.subscribe(CALIBRATION_EVALUATION_QUEUE, concurrency, handler, this.evaluationWorkerIds);
+    await this.subscribe(
+      CALIBRATION_EVALUATION_QUEUE,
+      concurrency,
+      EVALUATION_POLLING_INTERVAL_SECONDS,
+      handler,
+      this.evaluationWorkerIds,
+    );
   }
 
   /** Withdraws a job that no worker has taken yet (a taken one is stopped through our table instead). */
@@ -79,24 +90,21 @@ export class SimulationQueueService implements OnModuleDestroy {
 
   /** Subscribes `concurrency` workers, each taking one job at a time. */
   async work(concurrency: number, handler: (payload: SimulationQueuePayload) => Promise<void>): Promise<void> {
-    await this.subscribe(SIMULATION_QUEUE, concurrency, handler, this.workerIds);
+    await this.subscribe(SIMULATION_QUEUE, concurrency, POLLING_INTERVAL_SECONDS, handler, this.workerIds);
   }
 
   private async subscribe<T extends object>(
     queue: string,
     concurrency: number,
+    pollingIntervalSeconds: number,
     handler: (payload: T) => Promise<void>,
     ids: string[],
   ): Promise<void> {
     const boss = await this.boss();
     for (let i = 0; i < concurrency; i++) {
-      const id = await boss.work<T>(
-        queue,
-        { batchSize: 1, pollingIntervalSeconds: POLLING_INTERVAL_SECONDS },
-        async (jobs) => {
-          for (const job of jobs) await handler(job.data);
-        },
-      );
+      const id = await boss.work<T>(queue, { batchSize: 1, pollingIntervalSeconds }, async (jobs) => {
+        for (const job of jobs) await handler(job.data);
+      });
       ids.push(id);
     }
   }
