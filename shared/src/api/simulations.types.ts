@@ -70,6 +70,11 @@ export interface SimulationSummary {
   /** Driver designs: the blocking oscillator's frequency at steady state (Hz); absent for a sine or pulse drive. */
   oscillationFrequencyHz?: number | null;
   /**
+   * Driver designs: the steady-state cycles spread by more than 20 % in length (the transistor turns on in
+   * bursts), so `oscillationFrequencyHz` is their mean; absent in runs stored before it was recorded.
+   */
+  isOscillationIrregular?: boolean | null;
+  /**
    * Time to within 1 % of the settled output (s), from which it stays there: a driver design's cold start, a
    * ladder's start-up by envelope following; null when it did not settle (or a ladder transient, which does not time it).
    */

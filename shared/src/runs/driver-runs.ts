@@ -67,6 +67,7 @@ export function runDriverDesign(givenDesign: Design, options: DriverRunOptions =
   const lastFrequencyHz = settling.lastWindowFrequencyHz;
   const lastPeriodS = lastFrequencyHz ? 1 / lastFrequencyHz : estimatePeriodS;
   const cycles = recordDriverCycles(frame, options.waveformPeriods ?? 4, lastPeriodS);
+  const finalCapacitorVoltagesV = capacitorVoltagesV(frame);
   report(weights.run + weights.waves, true);
 
   const discharge =
@@ -86,6 +87,7 @@ export function runDriverDesign(givenDesign: Design, options: DriverRunOptions =
     isSettled: settling.isSettled,
     remainingDriftV: null,
     initialCapacitorVoltagesV: initialV,
+    finalCapacitorVoltagesV,
     extrapolations: settling.extrapolations,
     outputMeanV: isFixedWindow
       ? windowMean(t, v, Math.max(0, frame.stepper.timeS - windowS), frame.stepper.timeS)
