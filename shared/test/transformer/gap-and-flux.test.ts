@@ -36,6 +36,18 @@ describe('gap and inductance factor (McLyman, Transformer and Inductor Design Ha
     expect(fringingFactor(gapCm / 100, core.effectiveAreaM2, core.bobbinBreadthM)).toBeCloseTo(f, 12);
   });
 
+  it('tends to L = µ0·N²·A/lgap, the gap-dominated limit, when the core’s own reluctance vanishes', () => {
+    // Read: Encyclopedia Magnetica, "Inductance of gapped inductor" (https://e-magnetica.pl/calculator/
+    // inductance_of_gapped_inductor): L = µ0·N²·A/lgap for a core of µ ≫ 1 with lcore/µ ≪ lgap. A core of AL0
+    // 1 H/turn² (le/µr = 0.04 nm, under 1e-6 of these gaps) leaves the gap alone; McLyman's fringing factor is
+    // divided out.
+    const stiff: CoreKind = { ...core, ungappedAlHPerTurn2: 1 };
+    for (const gapM of [0.05e-3, 0.3e-3, 1e-3]) {
+      const plain = alFromGap(stiff, gapM) / fringingFactor(gapM, stiff.effectiveAreaM2, stiff.bobbinBreadthM);
+      expect(plain / ((4e-7 * Math.PI * stiff.effectiveAreaM2) / gapM)).toBeCloseTo(1, 5);
+    }
+  });
+
   it('finds the gap back from the AL it gives (round trip within 1 nm)', () => {
     for (const gapM of [5e-6, 50e-6, 0.2e-3, 1e-3]) {
       expect(Math.abs(gapFromAl(core, alFromGap(core, gapM)) - gapM)).toBeLessThan(1e-9);

@@ -1,7 +1,12 @@
 import { useMemo } from 'react';
 import { Paper, Title } from '@mantine/core';
 import type { Part } from '@ladderwright/shared/api';
-import { driverSizerFigures, withTransformerSection, type DesignReport } from '@ladderwright/shared/analysis';
+import {
+  driverSizerFigures,
+  sectionAssessor,
+  withTransformerSection,
+  type DesignReport,
+} from '@ladderwright/shared/analysis';
 import type { Design } from '@ladderwright/shared/designs';
 import type { TransformerSection } from '@ladderwright/shared/transformer';
 import { TransformerSizerPanel } from './transformer-sizer-panel';
@@ -24,6 +29,8 @@ interface Props {
 export function DesignTransformerSizer({ draft, latestDraft, report, shelf, onDraftChange }: Props) {
   // With a designed transformer this analyses the design once more on its given numbers: once per report.
   const figures = useMemo(() => driverSizerFigures(draft, report), [draft, report]);
+  // What each ranked core does to the rest of this design: one engine run per fitting core, on Rank.
+  const assess = useMemo(() => sectionAssessor(draft), [draft]);
   if (!figures) return null;
   const section = draft.drive.kind === 'driver' ? draft.drive.driver.transformerDesign : undefined;
   const wireOf = (role: 'primary' | 'secondary') => section?.windings.find((w) => w.role === role)?.wire.code;
@@ -47,6 +54,7 @@ export function DesignTransformerSizer({ draft, latestDraft, report, shelf, onDr
           ...(secondaryWireCode ? { secondaryWireCode } : {}),
         }}
         {...(onApply ? { onApply } : {})}
+        assess={assess}
       />
     </Paper>
   );

@@ -2,7 +2,7 @@ import { fireEvent, screen, within } from '@testing-library/react';
 import { describe, expect, it, vi } from 'vitest';
 import { renderWithApp } from '../../../testing/render';
 import { shelfPart } from '../../../testing/shelf-part';
-import { TransformerSizerPanel } from './transformer-sizer-panel';
+import { TransformerSizerPanel, type SizerDesign } from './transformer-sizer-panel';
 
 const ferrite = {
   saturationFluxDensity25T: 0.42,
@@ -45,6 +45,37 @@ const shelf = [
   shelfPart({ code: 'NF-T025-PE', kind: 'tape', thicknessM: 25e-6, dielectricStrengthVPerM: 1e8 }),
 ];
 
+/** A wider E25 core beside the E20. */
+const widerCore = shelfPart({
+  code: 'NF-KE25-M1',
+  kind: 'core',
+  valueSi: 2e-6,
+  coreAreaM2: 52e-6,
+  corePathLengthM: 57.5e-3,
+  coreVolumeM3: 2990e-9,
+  windowAreaM2: 39e-6,
+  bobbinBreadthM: 14.2e-3,
+  bobbinHeightM: 2.75e-3,
+  meanTurnLengthM: 50e-3,
+  ...ferrite,
+});
+
+/** A small tester's driver: 0.25 mH, 1 : 0.4 : 60, 80 mA peak, 0.9 kV. */
+const testerDesign: SizerDesign = {
+  name: 'Tester',
+  figures: {
+    primaryInductanceH: 0.25e-3,
+    primaryPeakCurrentA: 0.08,
+    turnsRatio: 60,
+    feedbackRatio: 0.4,
+    frequencyHz: 35e3,
+    dutyOnFraction: 0.9,
+    secondaryPeakV: 900,
+  },
+  spacing: { pollutionDegree: 1, materialGroup: 'IIIa', pcb: true },
+  secondaryWireCode: 'NF-W008-G2',
+};
+
 describe('TransformerSizerPanel', () => {
   it('ranks the shelf cores with the fewest primary turns that keep a 20 % flux margin', () => {
     renderWithApp(<TransformerSizerPanel shelf={shelf} />);
@@ -65,26 +96,7 @@ describe('TransformerSizerPanel', () => {
 
   it('starts from the open design’s driver figures and applies a fitting core’s section to it', () => {
     const onApply = vi.fn();
-    renderWithApp(
-      <TransformerSizerPanel
-        shelf={shelf}
-        design={{
-          name: 'Tester',
-          figures: {
-            primaryInductanceH: 0.25e-3,
-            primaryPeakCurrentA: 0.08,
-            turnsRatio: 60,
-            feedbackRatio: 0.4,
-            frequencyHz: 35e3,
-            dutyOnFraction: 0.9,
-            secondaryPeakV: 900,
-          },
-          spacing: { pollutionDegree: 1, materialGroup: 'IIIa', pcb: true },
-          secondaryWireCode: 'NF-W008-G2',
-        }}
-        onApply={onApply}
-      />,
-    );
+    renderWithApp(<TransformerSizerPanel shelf={shelf} design={testerDesign} onApply={onApply} />);
     expect(screen.getByText('From the driver of Tester, at the rated load')).toBeInTheDocument();
     fireEvent.click(screen.getByRole('button', { name: 'Rank 1 shelf cores' }));
     const row = within(screen.getByRole('table', { name: 'Ranked cores' })).getAllByRole('row')[1]!;
@@ -103,6 +115,32 @@ describe('TransformerSizerPanel', () => {
       ['secondary', 1140],
     ]);
     expect(screen.getByRole('status')).toHaveTextContent('NF-KE20-M2 applied to the draft');
+  });
+
+  it('says what each fitting core does to the design’s other Checks, and ranks one that fails them last', () => {
+    const assess = vi.fn((section: { core: { code: string } }) =>
+      section.core.code === 'NF-KE20-M2'
+        ? [{ id: 'driver-power', subject: 'driver stage', verdict: 'fail' as const, givenVerdict: 'pass' as const }]
+        : [],
+    );
+    renderWithApp(<TransformerSizerPanel shelf={[widerCore, ...shelf]} design={testerDesign} assess={assess} />);
+    fireEvent.click(screen.getByRole('button', { name: 'Rank 2 shelf cores' }));
+    const rows = within(screen.getByRole('table', { name: 'Ranked cores' })).getAllByRole('row');
+    expect(screen.getByRole('columnheader', { name: 'On the design' })).toBeInTheDocument();
+    expect(rows[1]).toHaveTextContent('NF-KE25-M1');
+    expect(rows[1]).toHaveTextContent('no Check worse than on the given numbers');
+    expect(rows[2]).toHaveTextContent('NF-KE20-M2');
+    expect(rows[2]).toHaveTextContent('fails driver power');
+    expect(assess).toHaveBeenCalledTimes(2);
+  });
+
+  it('keeps the engine’s order (loss, then size) among cores that leave the design’s Checks as they were', () => {
+    renderWithApp(<TransformerSizerPanel shelf={[widerCore, ...shelf]} design={testerDesign} assess={() => []} />);
+    fireEvent.click(screen.getByRole('button', { name: 'Rank 2 shelf cores' }));
+    const rows = within(screen.getByRole('table', { name: 'Ranked cores' })).getAllByRole('row');
+    // The smaller E20 loses less than the E25 here, so it leads when neither harms the design.
+    expect(rows[1]).toHaveTextContent('NF-KE20-M2');
+    expect(rows[2]).toHaveTextContent('NF-KE25-M1');
   });
 
   it('offers no Apply without a design to apply to', () => {

@@ -1,6 +1,6 @@
 import { useMemo, useState } from 'react';
 import { Alert, Button, Fieldset, Group, NumberInput, Select, SimpleGrid, Stack, Table, Text } from '@mantine/core';
-import type { DriverSizerFigures } from '@ladderwright/shared/analysis';
+import type { DriverSizerFigures, WorsenedCheck } from '@ladderwright/shared/analysis';
 import type { Part } from '@ladderwright/shared/api';
 import type { SpacingEnvironment } from '@ladderwright/shared/designs';
 import { isDomainError } from '@ladderwright/shared/errors';
@@ -31,7 +31,37 @@ export interface TransformerSizerPanelProps {
   design?: SizerDesign;
   /** Apply a fitting core's section to the design (absent: no Apply buttons). */
   onApply?: (section: TransformerSection, core: string) => void;
+  /**
+   * The design's Checks a fitting core's section leaves worse than the given numbers (`sectionAssessor`): shown
+   * beside each fitting core, and cores that leave a Check failing rank after those that do not.
+   */
+  assess?: (section: TransformerSection) => WorsenedCheck[];
 }
+
+/** A ranked core with what its section does to the rest of the design (null: not assessed). */
+interface RankedRow {
+  candidate: TransformerSizerCandidate;
+  worsened: WorsenedCheck[] | null;
+}
+
+/** A design Check id in words: "driver.base-drive" -> "base drive", "driver-power" -> "driver power". */
+const checkWords = (id: string) => id.replace(/^driver\./, '').replace(/[-.]/g, ' ');
+
+/** What a fitting core's section does to the design's other Checks, in a few words. */
+function onDesignWords(worsened: readonly WorsenedCheck[]): string {
+  if (worsened.length === 0) return 'no Check worse than on the given numbers';
+  const of = (verdict: WorsenedCheck['verdict']) =>
+    worsened.filter((w) => w.verdict === verdict).map((w) => checkWords(w.id));
+  const fails = of('fail');
+  const marginal = of('marginal');
+  return [fails.length > 0 && `fails ${fails.join(', ')}`, marginal.length > 0 && `marginal ${marginal.join(', ')}`]
+    .filter(Boolean)
+    .join('; ');
+}
+
+/** 0 fits and keeps the design's Checks, 1 fits but leaves a Check failing, 2 refused. */
+const rowGroup = (row: RankedRow) =>
+  row.candidate.refusal !== null ? 2 : row.worsened?.some((w) => w.verdict === 'fail') ? 1 : 0;
 
 /** Pollution degree 2, material group IIIa: the spacing the demo designs state (common practice for indoor kit). */
 const SPACING: SpacingEnvironment = { pollutionDegree: 2, materialGroup: 'IIIa', pcb: false };
@@ -75,7 +105,7 @@ const mT = (valueT: number) => `${Number((valueT * 1e3).toPrecision(3))} mT`;
  * ratios, every core on the Parts shelf with the fewest primary turns that keep the flux margin at 100 °C, ranked
  * by loss and then size; cores that do not fit follow with the reason.
  */
-export function TransformerSizerPanel({ shelf, design, onApply }: TransformerSizerPanelProps) {
+export function TransformerSizerPanel({ shelf, design, onApply, assess }: TransformerSizerPanelProps) {
   const { cores, wires, tapes } = useMemo(() => shelfMagnetics(shelf), [shelf]);
   const [inputs, setInputs] = useState<Inputs>(() => (design ? rounded(design.figures) : DEFAULT_INPUTS));
   const [codes, setCodes] = useState<{ primary?: string; secondary?: string; tape?: string }>(() => ({
@@ -84,7 +114,7 @@ export function TransformerSizerPanel({ shelf, design, onApply }: TransformerSiz
   }));
   const [applied, setApplied] = useState<string | null>(null);
   const spacing = design?.spacing ?? SPACING;
-  const [ranked, setRanked] = useState<TransformerSizerCandidate[] | null>(null);
+  const [ranked, setRanked] = useState<RankedRow[] | null>(null);
   const [error, setError] = useState<string | null>(null);
   const byDiameter = [...wires].sort((a, b) => a.copperDiameterM - b.copperDiameterM);
   const primaryWire = wires.find((w) => w.code === codes.primary) ?? byDiameter[byDiameter.length - 1];
@@ -97,21 +127,25 @@ export function TransformerSizerPanel({ shelf, design, onApply }: TransformerSiz
     setError(null);
     if (!primaryWire || !secondaryWire || !tape) return;
     try {
-      setRanked(
-        sizeTransformer(
-          cores,
-          {
-            ...inputs,
-            primaryWire,
-            feedbackWire: primaryWire,
-            secondaryWire,
-            windingTape: tape,
-            windingTapeWraps: 3,
-            layerTape: tape,
-          },
-          spacing,
-        ),
+      const candidates = sizeTransformer(
+        cores,
+        {
+          ...inputs,
+          primaryWire,
+          feedbackWire: primaryWire,
+          secondaryWire,
+          windingTape: tape,
+          windingTapeWraps: 3,
+          layerTape: tape,
+        },
+        spacing,
       );
+      const rows = candidates.map((candidate): RankedRow => ({
+        candidate,
+        worsened: assess && candidate.refusal === null && candidate.section ? assess(candidate.section) : null,
+      }));
+      // Stable: within each group the engine's order (loss, then core volume) stands.
+      setRanked(rows.sort((a, b) => rowGroup(a) - rowGroup(b)));
     } catch (caught) {
       setRanked(null);
       setError(isDomainError(caught) ? caught.message : 'The Sizer could not rank these cores');
@@ -239,6 +273,7 @@ export function TransformerSizerPanel({ shelf, design, onApply }: TransformerSiz
                 <Table.Th>Core</Table.Th>
                 {onApply && <Table.Th>Design</Table.Th>}
                 <Table.Th>Verdict</Table.Th>
+                {assess && <Table.Th>On the design</Table.Th>}
                 <Table.Th>Turns P : F : S</Table.Th>
                 <Table.Th>Gap</Table.Th>
                 <Table.Th>Peak flux</Table.Th>
@@ -249,7 +284,7 @@ export function TransformerSizerPanel({ shelf, design, onApply }: TransformerSiz
               </Table.Tr>
             </Table.Thead>
             <Table.Tbody>
-              {ranked.map((candidate, index) => (
+              {ranked.map(({ candidate, worsened }, index) => (
                 <Table.Tr key={candidate.core.code}>
                   <Table.Td>{index + 1}</Table.Td>
                   <Table.Td ff="monospace">{candidate.core.code}</Table.Td>
@@ -274,6 +309,11 @@ export function TransformerSizerPanel({ shelf, design, onApply }: TransformerSiz
                   <Table.Td style={{ whiteSpace: 'normal', minWidth: '14rem' }}>
                     {candidate.refusal === null ? 'fits' : `refused: ${refusalWords(candidate.refusal)}`}
                   </Table.Td>
+                  {assess && (
+                    <Table.Td style={{ whiteSpace: 'normal', minWidth: '14rem' }}>
+                      {worsened ? onDesignWords(worsened) : '—'}
+                    </Table.Td>
+                  )}
                   <Table.Td>
                     {candidate.primaryTurns} : {candidate.feedbackTurns} : {candidate.secondaryTurns}
                   </Table.Td>
