@@ -1,7 +1,8 @@
 import { readFile } from 'node:fs/promises';
+import { resolve } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { baseUrl, launchJourneyBrowser, openJourneyPage, signInAsDemo } from './journey';
+import { baseUrl, launchJourneyBrowser, openJourneyPage, screenshotDir, signInAsDemo } from './journey';
 
 let browser: Browser;
 let context: BrowserContext;
@@ -13,8 +14,8 @@ interface Listed {
   latestRevisionNumber: number;
 }
 
-/** Opens the Workbench of the first design of the demo project whose name contains `projectName`. */
-async function openDemoDesign(current: Page, projectName: string): Promise<void> {
+/** The demo project whose name contains `projectName` and its first design. */
+async function demoDesign(current: Page, projectName: string): Promise<{ project: Listed; design: Listed }> {
   const projects = (await (await current.request.get(`${baseUrl}/api/projects`)).json()) as Listed[];
   const project = projects.find((candidate) => candidate.name.includes(projectName));
   if (!project) throw new Error(`no demo project named ${projectName}`);
@@ -23,7 +24,37 @@ async function openDemoDesign(current: Page, projectName: string): Promise<void>
   };
   const design = designs.items[0];
   if (!design) throw new Error('no demo design');
+  return { project, design };
+}
+
+/** Opens the Workbench of the first design of the demo project whose name contains `projectName`. */
+async function openDemoDesign(current: Page, projectName: string): Promise<void> {
+  const { project, design } = await demoDesign(current, projectName);
   await current.goto(`${baseUrl}/projects/${project.id}/designs/${design.id}`);
+  await current.getByText(/server result of r/).waitFor();
+}
+
+/**
+ * A new design (seeded ones stay as they are) copied from the first design of a demo project with its half-wave
+ * ladder made `stages` stages long, every capacitor as its first; its Workbench opened.
+ */
+async function openLongerLadder(current: Page, projectName: string, stages: number): Promise<void> {
+  const { project, design } = await demoDesign(current, projectName);
+  const revisionUrl = `${baseUrl}/api/projects/${project.id}/designs/${design.id}/revisions/${design.latestRevisionNumber}`;
+  const { document } = (await (await current.request.get(revisionUrl)).json()) as {
+    document: { name: string; multiplier: { topology: string; cellCount: number; capacitors: object[] } };
+  };
+  const first = document.multiplier.capacitors[0];
+  if (document.multiplier.topology !== 'half-wave' || !first) throw new Error('a half-wave demo ladder is expected');
+  document.multiplier.cellCount = 2 * stages;
+  document.multiplier.capacitors = Array.from({ length: 2 * stages }, () => ({ ...first }));
+  document.name = `${document.name}, ${stages} stages`;
+  const created = await current.request.post(`${baseUrl}/api/projects/${project.id}/designs`, {
+    data: { name: document.name, from: { kind: 'document', document } },
+  });
+  expect(created.status()).toBe(201);
+  const copy = (await created.json()) as { id: string };
+  await current.goto(`${baseUrl}/projects/${project.id}/designs/${copy.id}`);
   await current.getByText(/server result of r/).waitFor();
 }
 
@@ -52,9 +83,16 @@ describe('plots and schematic journey', () => {
     await browser?.close();
   });
 
-  it('exports the regulation plot as a PNG, an SVG and a CSV that are each valid', async () => {
+  it.each([
+    { width: 1440, height: 900 },
+    { width: 1024, height: 768 },
+  ])('at $width×$height exports the regulation plot as a PNG, an SVG and a CSV that are each valid', async (size) => {
+    await page.setViewportSize(size);
     await openDemoDesign(page, 'Detector');
-    await page.getByRole('figure', { name: 'Output vs load current' }).locator('.recharts-surface').waitFor();
+    const figure = page.getByRole('figure', { name: 'Output vs load current' });
+    await figure.locator('.recharts-surface').waitFor();
+    await figure.scrollIntoViewIfNeeded();
+    await page.getByRole('button', { name: 'Export Output vs load current' }).waitFor({ state: 'visible' });
 
     const png = await exportAs(page, 'Output vs load current', 'PNG image');
     expect(png.name).toBe('output-vs-load-current.png');
@@ -83,10 +121,12 @@ describe('plots and schematic journey', () => {
   });
 
   it.each([
-    { project: 'Detector', what: 'a tripler' },
-    { project: 'ionizer', what: 'a 14-cell (7-stage) half-wave ladder' },
-  ])('draws the schematic of $what with no two labels overlapping (getBBox)', async ({ project }) => {
-    await openDemoDesign(page, project);
+    { project: 'Detector', what: 'a tripler', stages: null },
+    { project: 'ionizer', what: 'a 10-stage (20-cell) half-wave ladder', stages: 10 },
+  ])('draws the schematic of $what with no two labels overlapping (getBBox)', async ({ project, stages }) => {
+    await page.setViewportSize({ width: 1440, height: 900 });
+    if (stages === null) await openDemoDesign(page, project);
+    else await openLongerLadder(page, project, stages);
     await page.getByRole('tab', { name: 'Ladder' }).click();
     const drawing = page.locator('svg[data-schematic]');
     await drawing.waitFor();
@@ -106,9 +146,12 @@ describe('plots and schematic journey', () => {
           if (hit) overlaps.push(`${a.text} × ${b.text}`);
         }),
       );
-      return { count: boxes.length, overlaps };
+      return { count: boxes.length, texts: boxes.map((b) => b.text), overlaps };
     });
+    await drawing.screenshot({ path: resolve(screenshotDir, `schematic-${stages ?? 'tripler'}.png`) });
     expect(result.count).toBeGreaterThan(10);
+    // Every capacitor of the ladder is drawn: C3 last on the tripler, C20 on the 10-stage ladder.
+    expect(result.texts.some((text) => text.startsWith(stages === null ? 'C3' : 'C20'))).toBe(true);
     expect(result.overlaps).toEqual([]);
   });
 });

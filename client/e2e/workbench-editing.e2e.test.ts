@@ -94,28 +94,30 @@ describe('Workbench editing', () => {
     });
   }
 
-  it('pastes a column of prefixed values into the capacitor table and refuses a bad one, naming it', async () => {
-    const opened = await openJourneyPage(browser, { viewport: { width: 1440, height: 900 } });
-    context = opened.context;
-    const page = opened.page;
-    await signInAsDemo(page, 'engineer@northfold.test');
-    await openNewDesign(page, 'detectorBias', 'Pasted column');
+  for (const viewport of viewports) {
+    it(`at ${viewport.width}×${viewport.height} pastes a column of prefixed values into the capacitor table and refuses a bad one, naming it`, async () => {
+      const opened = await openJourneyPage(browser, { viewport });
+      context = opened.context;
+      const page = opened.page;
+      await signInAsDemo(page, 'engineer@northfold.test');
+      await openNewDesign(page, 'detectorBias', `Pasted column ${viewport.width}`);
 
-    await page.getByLabel('C1 capacitance').focus();
-    await pasteIntoFocused(page, '4n7\r\n5.6 nF\r\n0.0068u\r\n');
-    await page.getByText('Pasted 3 cells from C1.').waitFor();
-    expect(await page.getByLabel('C1 capacitance').inputValue()).toBe('4.7 nF');
-    expect(await page.getByLabel('C2 capacitance').inputValue()).toBe('5.6 nF');
-    expect(await page.getByLabel('C3 capacitance').inputValue()).toBe('6.8 nF');
-    await page.getByText('live preview (unsaved edits)').waitFor();
+      await page.getByLabel('C1 capacitance').focus();
+      await pasteIntoFocused(page, '4n7\r\n5.6 nF\r\n0.0068u\r\n');
+      await page.getByText('Pasted 3 cells from C1.').waitFor();
+      expect(await page.getByLabel('C1 capacitance').inputValue()).toBe('4.7 nF');
+      expect(await page.getByLabel('C2 capacitance').inputValue()).toBe('5.6 nF');
+      expect(await page.getByLabel('C3 capacitance').inputValue()).toBe('6.8 nF');
+      await page.getByText('live preview (unsaved edits)').waitFor();
 
-    await page.getByLabel('C2 rated voltage').focus();
-    await pasteIntoFocused(page, '2 kV\n3 kQ');
-    await page.getByText('Nothing pasted: C3 rated voltage: “3 kQ”', { exact: false }).waitFor();
-    expect(await page.getByLabel('C2 rated voltage').inputValue()).not.toBe('2 kV');
-    await page.screenshot({ path: resolve(screenshotDir, 'workbench-paste.png') });
-    expect(opened.errors).toEqual([]);
-  });
+      await page.getByLabel('C2 rated voltage').focus();
+      await pasteIntoFocused(page, '2 kV\n3 kQ');
+      await page.getByText('Nothing pasted: C3 rated voltage: “3 kQ”', { exact: false }).waitFor();
+      expect(await page.getByLabel('C2 rated voltage').inputValue()).not.toBe('2 kV');
+      await page.screenshot({ path: resolve(screenshotDir, `workbench-paste-${viewport.width}.png`) });
+      expect(opened.errors).toEqual([]);
+    });
+  }
 
   for (const viewport of viewports) {
     it(`at ${viewport.width}×${viewport.height} a reviewer sees the Workbench read-only`, async () => {

@@ -6,7 +6,8 @@
 // cycle mean stays within 0.1 % of the steady state; when it never gets there within the cycles given, the
 // ratio printed is a lower bound. CPU times: ours from the process, ngspice's from a separate run under
 // bash's `times`.
-import { buildLadderCircuit, type LadderCircuitSpec } from '../../shared/src/circuits/build-ladder-circuit';
+import { buildLadderCircuit } from '../../shared/src/circuits/build-ladder-circuit';
+import { sineCascadeSpec } from '../../shared/test/ngspice/sine-cascade';
 import { MnaSystem } from '../../shared/src/sim/mna-system';
 import { findPeriodicSteadyState } from '../../shared/src/sim/periodic-steady-state';
 import { chargeBalanceCapacitorVoltagesV } from '../../shared/src/circuits/steady-state-estimate';
@@ -14,21 +15,14 @@ import { toSpiceNetlist } from '../../shared/src/sim/to-spice-netlist';
 import { windowMean } from '../../shared/src/sim/waveform-measures';
 import { runNgspice } from '../../shared/test/ngspice/run-ngspice';
 import { ngspiceCpuMs } from './ngspice-cpu';
-import { cycleMeans, settledFrom } from './cycle-means';
+import { cycleMeans, settledFrom } from '../../shared/test/ngspice/cycle-means';
 
 const f = 20e3;
 const periodS = 1 / f;
 const stepsPerPeriod = 200;
 
 async function measure(stages: number, ngCycles: number): Promise<void> {
-  const spec: LadderCircuitSpec = {
-    topology: 'half-wave',
-    cellCount: 2 * stages,
-    capacitorsF: Array<number>(2 * stages).fill(10e-9),
-    diode: { saturationCurrentA: 1e-9, emissionCoefficient: 1.8, seriesResistanceOhm: 1 },
-    drive: { kind: 'sine', peakV: 500, frequencyHz: f, sourceResistanceOhm: 10 },
-    load: { kind: 'current', currentA: 100e-6 },
-  };
+  const spec = sineCascadeSpec(stages);
   const estimateV = chargeBalanceCapacitorVoltagesV(spec);
   const circuit = buildLadderCircuit({ ...spec, initialCapacitorVoltagesV: estimateV });
   const charges = Float64Array.from(estimateV, (v, i) => v * spec.capacitorsF[i]!);

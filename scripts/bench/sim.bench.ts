@@ -4,7 +4,8 @@
 // (its cycle mean within 0.5 % and 0.1 % of the steady-state mean from then on), not with a run that has
 // not settled yet. Wall times on a shared machine swing with its load; CPU times (ours from the process,
 // ngspice's from a separate run under bash's `times`) are printed beside them and are the fairer ratio.
-import { buildLadderCircuit, type LadderCircuitSpec } from '../../shared/src/circuits/build-ladder-circuit';
+import { buildLadderCircuit } from '../../shared/src/circuits/build-ladder-circuit';
+import { sineCascadeSpec } from '../../shared/test/ngspice/sine-cascade';
 import { MnaSystem } from '../../shared/src/sim/mna-system';
 import { findPeriodicSteadyState } from '../../shared/src/sim/periodic-steady-state';
 import { chargeBalanceCapacitorVoltagesV } from '../../shared/src/circuits/steady-state-estimate';
@@ -13,21 +14,14 @@ import { toSpiceNetlist } from '../../shared/src/sim/to-spice-netlist';
 import { windowMean, windowPeakToPeak } from '../../shared/src/sim/waveform-measures';
 import { runNgspice } from '../../shared/test/ngspice/run-ngspice';
 import { ngspiceCpuMs } from './ngspice-cpu';
-import { cycleMeans, settledFrom } from './cycle-means';
+import { cycleMeans, settledFrom } from '../../shared/test/ngspice/cycle-means';
 
 async function main(): Promise<void> {
   const cycles = Number(process.argv[2] ?? 2000);
   const stages = Number(process.argv[3] ?? 20);
   const f = 20e3;
   const periodS = 1 / f;
-  const spec: LadderCircuitSpec = {
-    topology: 'half-wave',
-    cellCount: 2 * stages,
-    capacitorsF: Array<number>(2 * stages).fill(10e-9),
-    diode: { saturationCurrentA: 1e-9, emissionCoefficient: 1.8, seriesResistanceOhm: 1 },
-    drive: { kind: 'sine', peakV: 500, frequencyHz: f, sourceResistanceOhm: 10 },
-    load: { kind: 'current', currentA: 100e-6 },
-  };
+  const spec = sineCascadeSpec(stages);
   const circuit = buildLadderCircuit(spec);
   const run = { stopTimeS: cycles * periodS, maxStepS: periodS / 200 };
   const from = (cycles - 1) * periodS;

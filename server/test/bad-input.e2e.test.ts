@@ -14,7 +14,7 @@ const TOTAL_CASES = 10_000;
 /** Requests of one route in flight at once. */
 const IN_FLIGHT = 16;
 /** Routes that run the engine or write a design get fewer cases, so the run stays short; the rest share the remainder. */
-const COSTLY_ROUTE = /\/(analysis\/evaluate|designs(\/import)?|revisions|bench-runs|simulations)$/;
+const COSTLY_ROUTE = /\/(analysis\/evaluate|designs(\/import)?|revisions|bench-runs|simulations|simulation-batches)$/;
 const CASES_PER_COSTLY_ROUTE = 40;
 const UNKNOWN_ID = '5d1f7c9e-3a4b-4c8d-9e0f-1a2b3c4d5e6f';
 /** Routes that would end the caller's session mid-run; their body is ignored anyway. */

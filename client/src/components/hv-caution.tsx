@@ -1,6 +1,5 @@
-import { useEffect } from 'react';
+import { useEffect, useRef } from 'react';
 import { Group, Paper, Text, ThemeIcon } from '@mantine/core';
-import { useElementSize } from '@mantine/hooks';
 import classes from './hv-caution.module.css';
 
 /** The CSS variable holding the caution's height, so sticky areas below it never cover it. */
@@ -8,11 +7,18 @@ export const HV_CAUTION_HEIGHT_VAR = '--lw-hv-caution-height';
 
 /** The persistent high-voltage caution shown on every signed-in screen. */
 export function HvCaution() {
-  const { ref, height } = useElementSize();
+  const ref = useRef<HTMLElement>(null);
   useEffect(() => {
-    // useElementSize reads the content box; the padding and border add about 13 px.
-    if (height > 0) document.documentElement.style.setProperty(HV_CAUTION_HEIGHT_VAR, `${Math.ceil(height) + 13}px`);
-  }, [height]);
+    const element = ref.current;
+    if (!element || typeof ResizeObserver === 'undefined') return;
+    // Its box, padding and border included, is what the sticky areas below it must clear.
+    const observer = new ResizeObserver(() => {
+      const height = element.getBoundingClientRect().height;
+      if (height > 0) document.documentElement.style.setProperty(HV_CAUTION_HEIGHT_VAR, `${Math.ceil(height)}px`);
+    });
+    observer.observe(element);
+    return () => observer.disconnect();
+  }, []);
   return (
     <Paper
       ref={ref}

@@ -40,7 +40,10 @@ export interface AppEnv {
   /** The address users open the app at, for links in mail. */
   readonly publicUrl: string;
   readonly dataDir: string;
-  /** Worker threads this instance runs simulation jobs on; 0 = this instance only queues them. */
+  /**
+   * Worker threads this instance runs simulation jobs on (0 … `SIMULATION_WORKERS_MAX`; more than the machine's cores
+   * only time-slice, so the pool runs at most one per core); 0 = this instance only queues them.
+   */
   readonly simulationWorkers: number;
   /** Simulation jobs one user may have queued or running at once. */
   readonly simulationMaxActivePerUser: number;
@@ -70,6 +73,8 @@ export interface AppEnv {
 export const APP_ENV = Symbol('APP_ENV');
 
 export const JWT_SECRET_MIN_LENGTH = 32;
+/** Most simulation worker threads one instance may ask for: each holds a whole simulation's memory. */
+export const SIMULATION_WORKERS_MAX = 16;
 const SERVER_DIR = resolve(__dirname, '..', '..');
 const LOOPBACK_HOSTS = new Set(['127.0.0.1', 'localhost', '::1']);
 /** The named address ranges Express's "trust proxy" understands besides addresses and subnets. */
@@ -182,7 +187,7 @@ export function parseEnv(source: EnvSource): AppEnv {
     mailPollMs: integer('MAIL_POLL_MS', 2_000, 10, 600_000) ?? 2_000,
     publicUrl: (text('PUBLIC_URL') ?? `http://${host}:${text('PORT') ?? '8080'}`).replace(/\/+$/, ''),
     dataDir: dir('DATA_DIR', '../.data'),
-    simulationWorkers: integer('SIMULATION_WORKERS', 1, 0, 2) ?? 1,
+    simulationWorkers: integer('SIMULATION_WORKERS', 1, 0, SIMULATION_WORKERS_MAX) ?? 1,
     simulationMaxActivePerUser: integer('SIMULATION_MAX_ACTIVE_PER_USER', 3, 1, 1000) ?? 3,
     simulationMaxActivePerProject: integer('SIMULATION_MAX_ACTIVE_PER_PROJECT', 6, 1, 10_000) ?? 6,
     simulationMaxWork: integer('SIMULATION_MAX_WORK', 500_000_000, 1000, 1e12) ?? 500_000_000,

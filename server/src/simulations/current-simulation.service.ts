@@ -37,6 +37,7 @@ export class CurrentSimulationService {
           ripplePeakToPeakV: summary.ripplePeakToPeakV,
           dischargeTimeS: summary.dischargeTimeS,
           oscillationFrequencyHz: summary.oscillationFrequencyHz ?? null,
+          isOscillationIrregular: summary.isOscillationIrregular ?? null,
           efficiency: summary.efficiency ?? null,
           notSettledWithinS: summary.notSettledWithinS ?? null,
           finishedAt: (job.finishedAt ?? job.updatedAt).toISOString(),

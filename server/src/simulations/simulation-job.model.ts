@@ -1,5 +1,6 @@
 import { Column, DataType, Model, Table } from 'sequelize-typescript';
 import type {
+  SimulationBatchKind,
   SimulationJobStatus,
   SimulationKind,
   SimulationOptions,
@@ -7,13 +8,20 @@ import type {
 } from '@ladderwright/shared/api';
 import type { Design } from '@ladderwright/shared/designs';
 
-/** A job's kind: a simulation, or a calibration whose model runs go to the same worker pool. */
-export type SimulationJobKind = SimulationKind | 'calibration';
+/**
+ * A job's kind: a simulation, a calibration whose model runs go to the same worker pool, or a batch (a sweep or
+ * Monte Carlo) whose members are simulation jobs of their own.
+ */
+export type SimulationJobKind = SimulationKind | 'calibration' | 'batch';
 
 /** What the worker needs to run the job, stored with it so that any app instance can pick it up. */
 export interface SimulationJobInput {
   document: Design;
   options: SimulationOptions;
+  /** A batch member: the numbers it varies from the batch's design, by field path. */
+  variant?: Record<string, number>;
+  /** A batch: how its members were made and what they run. */
+  batch?: { kind: SimulationBatchKind; simulationKind: SimulationKind; memberCount: number };
 }
 
 export interface SimulationJobAttrs {
@@ -34,12 +42,17 @@ export interface SimulationJobAttrs {
   finishedAt: Date | null;
   /** Written every `SIMULATION_HEARTBEAT_MS` while the job runs; a stale one means its instance died. */
   heartbeatAt: Date | null;
+  /** A batch member: its batch and its place in it. */
+  parentJobId: string | null;
+  memberIndex: number | null;
+  /** The app instance that ran the job (host name, process id). */
+  runBy: string | null;
   createdAt: Date;
   updatedAt: Date;
 }
 
 export type SimulationJobCreationAttrs = Pick<SimulationJobAttrs, 'projectId' | 'requestedBy' | 'kind' | 'input'> &
-  Partial<Pick<SimulationJobAttrs, 'designId' | 'revisionNumber'>>;
+  Partial<Pick<SimulationJobAttrs, 'designId' | 'revisionNumber' | 'parentJobId' | 'memberIndex' | 'status'>>;
 
 @Table({ tableName: 'simulation_jobs', underscored: true, timestamps: true })
 export class SimulationJobModel extends Model<SimulationJobAttrs, SimulationJobCreationAttrs> {
@@ -90,6 +103,15 @@ export class SimulationJobModel extends Model<SimulationJobAttrs, SimulationJobC
 
   @Column({ type: DataType.DATE, allowNull: true })
   heartbeatAt!: Date | null;
+
+  @Column({ type: DataType.UUID, allowNull: true })
+  parentJobId!: string | null;
+
+  @Column({ type: DataType.INTEGER, allowNull: true })
+  memberIndex!: number | null;
+
+  @Column({ type: DataType.TEXT, allowNull: true })
+  runBy!: string | null;
 
   override createdAt!: Date;
   override updatedAt!: Date;

@@ -1,3 +1,4 @@
+import { availableParallelism } from 'node:os';
 import { MessageChannel } from 'node:worker_threads';
 import { Inject, Injectable, type OnModuleDestroy } from '@nestjs/common';
 import { Piscina } from 'piscina';
@@ -25,6 +26,14 @@ export class SimulationPoolService implements OnModuleDestroy {
   private pool: Piscina | null = null;
 
   constructor(@Inject(APP_ENV) private readonly env: AppEnv) {}
+
+  /**
+   * The pool's threads: `AppEnv.simulationWorkers`, at most one per core (a simulation keeps its core busy; threads
+   * past the cores would only time-slice and hold more memory). The queue takes as many jobs at once.
+   */
+  get threadCount(): number {
+    return Math.min(this.env.simulationWorkers, availableParallelism());
+  }
 
   run(task: Omit<SimulationTask, 'progressPort' | 'cancelFlag'>, onProgress: (progressPct: number) => void): PoolRun {
     const pool = this.ensurePool();
@@ -59,7 +68,7 @@ export class SimulationPoolService implements OnModuleDestroy {
 
   private ensurePool(): Piscina {
     if (this.pool) return this.pool;
-    const threads = Math.max(1, this.env.simulationWorkers);
+    const threads = Math.max(1, this.threadCount);
     this.pool = new Piscina({
       ...workerEntry(__dirname, 'simulation.worker'),
       name: SIMULATION_TASK_NAME,

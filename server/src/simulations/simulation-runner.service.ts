@@ -1,8 +1,11 @@
+import { randomBytes } from 'node:crypto';
+import { hostname } from 'node:os';
 import { Inject, Injectable, Logger, type OnApplicationBootstrap, type OnModuleDestroy } from '@nestjs/common';
-import { Op, QueryTypes } from 'sequelize';
+import { Op } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import { APP_ENV, type AppEnv } from '../config/env';
 import { CalibrationRunService } from './calibration-run.service';
+import { SimulationBatchEndsService } from './simulation-batch-ends.service';
 import { SimulationJobModel } from './simulation-job.model';
 import { type PoolRun, SimulationPoolService } from './simulation-pool.service';
 import { type SimulationQueuePayload, SimulationQueueService } from './simulation-queue.service';
@@ -36,6 +39,8 @@ export class SimulationRunnerService implements OnApplicationBootstrap, OnModule
   private readonly active = new Map<string, ActiveRun>();
   private isShuttingDown = false;
   private reconcileTimer: NodeJS.Timeout | null = null;
+  /** This app instance, as written to `run_by` of the jobs it runs (host, process, and which app in the process). */
+  private readonly instanceName = `${hostname()}:${process.pid}:${randomBytes(3).toString('hex')}`.slice(-200);
 
   constructor(
     @Inject(APP_ENV) private readonly env: AppEnv,
@@ -43,6 +48,7 @@ export class SimulationRunnerService implements OnApplicationBootstrap, OnModule
     private readonly pool: SimulationPoolService,
     private readonly calibrations: CalibrationRunService,
     private readonly sequelize: Sequelize,
+    private readonly batchEnds: SimulationBatchEndsService,
   ) {}
 
   onApplicationBootstrap(): void {
@@ -56,7 +62,7 @@ export class SimulationRunnerService implements OnApplicationBootstrap, OnModule
     if (this.env.simulationWorkers === 0) return;
     // Not awaited: the app serves requests (and reports degraded health) even while the database is down.
     this.queue
-      .work(this.env.simulationWorkers, (payload) => this.execute(payload))
+      .work(this.pool.threadCount, (payload) => this.execute(payload))
       .catch((error: unknown) => {
         this.logger.warn(`simulation workers not started: ${error instanceof Error ? error.message : String(error)}`);
       });
@@ -73,16 +79,30 @@ export class SimulationRunnerService implements OnApplicationBootstrap, OnModule
    */
   async reconcile(): Promise<number> {
     const staleS = (this.env.simulationHeartbeatMs * MISSED_HEARTBEATS) / 1000;
-    const [, count] = await this.sequelize.query(
+    // A batch has no heartbeat of its own: it ends with its last member.
+    const [rows] = await this.sequelize.query(
       `UPDATE simulation_jobs
        SET status = 'failed', error_code = 'interrupted', finished_at = now(), updated_at = now(),
            error_message = 'The server running this simulation stopped; start it again'
-       WHERE status = 'running' AND coalesce(heartbeat_at, started_at, updated_at) < now() - make_interval(secs => :staleS)`,
-      { replacements: { staleS }, type: QueryTypes.UPDATE },
+       WHERE status = 'running' AND kind <> 'batch'
+         AND coalesce(heartbeat_at, started_at, updated_at) < now() - make_interval(secs => :staleS)
+       RETURNING parent_job_id`,
+      { replacements: { staleS } },
     );
-    const ended = Number(count) || 0;
-    if (ended > 0) this.logger.warn(`ended ${ended} simulation job(s) whose instance stopped`);
-    return ended;
+    const ended = rows as { parent_job_id: string | null }[];
+    if (ended.length > 0) this.logger.warn(`ended ${ended.length} simulation job(s) whose instance stopped`);
+    // Batches whose members have all ended but that are still running (their last member's end was not counted).
+    const [idle] = await this.sequelize.query(
+      `SELECT batch.id AS parent_job_id FROM simulation_jobs batch
+       WHERE batch.kind = 'batch' AND batch.status = 'running' AND NOT EXISTS (
+         SELECT 1 FROM simulation_jobs member
+         WHERE member.parent_job_id = batch.id AND member.status IN ('queued', 'running'))`,
+    );
+    const batchIds = [...ended, ...(idle as { parent_job_id: string }[])].map((row) => row.parent_job_id);
+    for (const batchId of new Set(batchIds)) {
+      if (batchId) await this.batchEnds.memberEnded(batchId);
+    }
+    return ended.length;
   }
 
   async onModuleDestroy(): Promise<void> {
@@ -95,11 +115,12 @@ export class SimulationRunnerService implements OnApplicationBootstrap, OnModule
   private async execute({ simulationJobId: id }: SimulationQueuePayload): Promise<void> {
     if (this.isShuttingDown) throw new Error('instance is stopping; the job is left to another instance');
     const [claimed, rows] = await SimulationJobModel.update(
-      { status: 'running', progressPct: 0, startedAt: new Date(), heartbeatAt: new Date() },
-      { where: { id, status: { [Op.in]: ['queued', 'running'] } }, returning: true },
+      { status: 'running', progressPct: 0, startedAt: new Date(), heartbeatAt: new Date(), runBy: this.instanceName },
+      { where: { id, status: { [Op.in]: ['queued', 'running'] }, kind: { [Op.ne]: 'batch' } }, returning: true },
     );
     const job = rows[0];
-    if (claimed === 0 || !job) return; // cancelled before it started, or no longer exists
+    // Cancelled before it started, or no longer exists; a batch row is never queued (the claim skips it).
+    if (claimed === 0 || !job || job.kind === 'batch') return;
     let writtenPct = 0;
     let progressWrite = Promise.resolve();
     const onProgress = (progressPct: number): void => {
@@ -115,15 +136,22 @@ export class SimulationRunnerService implements OnApplicationBootstrap, OnModule
     const cancelWatch = setInterval(() => void this.checkCancelled(id, run), CANCEL_POLL_MS);
     const heartbeat = setInterval(() => void this.beat(id), this.env.simulationHeartbeatMs);
     const timeLimit = setTimeout(() => void this.stopOverTime(id, run), this.env.simulationMaxRunS * 1000);
+    const batchId = job.parentJobId;
     const settled = this.finish(id, run).finally(async () => {
       clearInterval(cancelWatch);
       clearInterval(heartbeat);
       clearTimeout(timeLimit);
       await progressWrite;
       this.active.delete(id);
+      if (batchId) await this.batchEnds.memberEnded(batchId).catch((error: unknown) => this.logBatchEndFailure(error));
     });
     this.active.set(id, { run, settled });
     await settled;
+  }
+
+  private logBatchEndFailure(error: unknown): void {
+    // The batch still ends: the next reconcile (every three heartbeats) counts its members again.
+    this.logger.warn(`ending a batch failed: ${error instanceof Error ? error.message : String(error)}`);
   }
 
   private async finish(id: string, run: PoolRun): Promise<void> {

@@ -97,6 +97,7 @@ function simulateDriver(task: SimulationTask, post: (fraction: number) => void):
     cyclesSimulated: run.cyclesSimulated + (coldRun?.cyclesSimulated ?? 0),
     method: run.method,
     oscillationFrequencyHz: run.oscillationFrequencyHz,
+    isOscillationIrregular: run.figures?.isIrregular ?? null,
   };
   const waveforms: WaveformTrace[] = [];
   if (coldRun) waveforms.push(toWaveform('startup', coldRun.curve));

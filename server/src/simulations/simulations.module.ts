@@ -5,6 +5,9 @@ import { RevisionsModule } from '../revisions/revisions.module';
 import { CalibrationRunService } from './calibration-run.service';
 import { CurrentSimulationController } from './current-simulation.controller';
 import { CurrentSimulationService } from './current-simulation.service';
+import { SimulationBatchEndsService } from './simulation-batch-ends.service';
+import { SimulationBatchesController } from './simulation-batches.controller';
+import { SimulationBatchesService } from './simulation-batches.service';
 import { SimulationJobModel } from './simulation-job.model';
 import { SimulationPoolService } from './simulation-pool.service';
 import { SimulationQueueService } from './simulation-queue.service';
@@ -12,10 +15,13 @@ import { SimulationRunnerService } from './simulation-runner.service';
 import { SimulationsController } from './simulations.controller';
 import { SimulationsService } from './simulations.service';
 
-/** Simulation jobs: queued in PostgreSQL (pg-boss), run on worker threads (piscina), read by polling. */
+/**
+ * Simulation jobs and batches of them (sweeps, Monte Carlo): queued in PostgreSQL (pg-boss), run on the worker
+ * threads (piscina) of every app instance, read by polling.
+ */
 @Module({
   imports: [SequelizeModule.forFeature([SimulationJobModel]), AnalysisModule, RevisionsModule],
-  controllers: [SimulationsController, CurrentSimulationController],
+  controllers: [SimulationsController, SimulationBatchesController, CurrentSimulationController],
   providers: [
     SimulationsService,
     SimulationQueueService,
@@ -23,6 +29,8 @@ import { SimulationsService } from './simulations.service';
     SimulationRunnerService,
     CalibrationRunService,
     CurrentSimulationService,
+    SimulationBatchesService,
+    SimulationBatchEndsService,
   ],
   exports: [SimulationsService, CurrentSimulationService],
 })

@@ -15,6 +15,7 @@ import { isUuid } from '../common/uuid';
 import { AnalysisService } from '../analysis/analysis.service';
 import { RevisionsService } from '../revisions/revisions.service';
 import { SIMULATION_KINDS, type StartSimulationDto } from './dto/start-simulation.dto';
+import { SimulationBatchEndsService } from './simulation-batch-ends.service';
 import { SimulationJobModel, type SimulationJobKind } from './simulation-job.model';
 import { SimulationQueueService } from './simulation-queue.service';
 import { SimulationRunnerService } from './simulation-runner.service';
@@ -50,6 +51,7 @@ export class SimulationsService {
     private readonly revisions: RevisionsService,
     private readonly analysis: AnalysisService,
     private readonly sequelize: Sequelize,
+    private readonly batchEnds: SimulationBatchEndsService,
   ) {}
 
   async start(projectId: string, userId: string, body: StartSimulationDto): Promise<StartSimulationResponse> {
@@ -80,16 +82,7 @@ export class SimulationsService {
   ): Promise<SimulationJobModel> {
     const { projectId, userId } = input;
     const { job, priority } = await this.sequelize.transaction(async (transaction) => {
-      await this.sequelize.query('SELECT pg_advisory_xact_lock(hashtext(:projectId))', {
-        replacements: { projectId },
-        transaction,
-      });
-      const [active] = await this.sequelize.query<{ mine: number; project: number }>(
-        `SELECT count(*) FILTER (WHERE requested_by = :userId)::int AS mine, count(*)::int AS project
-         FROM simulation_jobs WHERE project_id = :projectId AND status IN ('queued', 'running')`,
-        { replacements: { projectId, userId }, type: QueryTypes.SELECT, transaction },
-      );
-      this.checkQuotas(active?.mine ?? 0, active?.project ?? 0);
+      const priority = await this.holdQuota(projectId, userId, transaction);
       const created = await SimulationJobModel.create(
         {
           projectId,
@@ -102,14 +95,39 @@ export class SimulationsService {
         { transaction },
       );
       await withJob?.(created, transaction);
-      return { job: created, priority: -(active?.project ?? 0) };
+      return { job: created, priority };
     });
+    await this.queueJob(job.id, priority);
+    return job;
+  }
+
+  /**
+   * Takes the project's advisory lock in `transaction` and checks the per-user and per-project quotas (429 past
+   * them); returns the queue priority of the project's next job. A batch counts once, its members not at all.
+   */
+  async holdQuota(projectId: string, userId: string, transaction: Transaction): Promise<number> {
+    await this.sequelize.query('SELECT pg_advisory_xact_lock(hashtext(:projectId))', {
+      replacements: { projectId },
+      transaction,
+    });
+    const [active] = await this.sequelize.query<{ mine: number; project: number }>(
+      `SELECT count(*) FILTER (WHERE requested_by = :userId)::int AS mine, count(*)::int AS project
+       FROM simulation_jobs
+       WHERE project_id = :projectId AND status IN ('queued', 'running') AND parent_job_id IS NULL`,
+      { replacements: { projectId, userId }, type: QueryTypes.SELECT, transaction },
+    );
+    this.checkQuotas(active?.mine ?? 0, active?.project ?? 0);
+    return -(active?.project ?? 0);
+  }
+
+  /** Sends a created job to the queue; a queue that cannot be reached fails the job with a reason and rethrows. */
+  async queueJob(jobId: string, priority: number): Promise<void> {
     try {
-      const queueJobId = await this.queue.send({ simulationJobId: job.id }, priority);
-      await SimulationJobModel.update({ queueJobId }, { where: { id: job.id } });
+      const queueJobId = await this.queue.send({ simulationJobId: jobId }, priority);
+      await SimulationJobModel.update({ queueJobId }, { where: { id: jobId } });
     } catch (error) {
       this.logger.error(
-        `queueing simulation ${job.id} failed: ${error instanceof Error ? error.message : String(error)}`,
+        `queueing simulation ${jobId} failed: ${error instanceof Error ? error.message : String(error)}`,
       );
       await SimulationJobModel.update(
         {
@@ -118,11 +136,10 @@ export class SimulationsService {
           errorMessage: 'The job queue is not reachable; try again',
           finishedAt: new Date(),
         },
-        { where: { id: job.id } },
+        { where: { id: jobId } },
       );
       throw error;
     }
-    return job;
   }
 
   /** Cancels a queued or running job of any kind; true when this call cancelled it. */
@@ -134,6 +151,7 @@ export class SimulationsService {
     if (count > 0) {
       this.runner.cancelLocal(job.id);
       if (job.queueJobId) await this.queue.cancel(job.queueJobId).catch(() => undefined);
+      if (job.parentJobId) await this.batchEnds.memberEnded(job.parentJobId);
     }
     return count > 0;
   }
@@ -149,15 +167,17 @@ export class SimulationsService {
   }
 
   private async find(projectId: string, jobId: string): Promise<SimulationJobModel> {
-    // A calibration's job is read and cancelled through its calibration.
+    // A calibration's job is read and cancelled through its calibration, a batch through its own routes.
     const job = isUuid(jobId)
-      ? await SimulationJobModel.findOne({ where: { id: jobId, projectId, kind: { [Op.ne]: 'calibration' } } })
+      ? await SimulationJobModel.findOne({
+          where: { id: jobId, projectId, kind: { [Op.notIn]: ['calibration', 'batch'] } },
+        })
       : null;
     if (!job) throw new DomainError('not_found', 'Simulation job not found', 'jobId');
     return job;
   }
 
-  private checkSize(document: Design, options: SimulationOptions): void {
+  checkSize(document: Design, options: SimulationOptions): void {
     const work = simulationWork(document, options);
     if (work <= this.env.simulationMaxWork) return;
     const field = options.cycles === undefined ? 'options' : 'options.cycles';
@@ -185,20 +205,20 @@ export class SimulationsService {
     }
   }
 
-  private checkKind(kind: string): SimulationKind {
+  checkKind(kind: string, field = 'kind'): SimulationKind {
     const allowed: readonly string[] = this.env.simulationFaultKinds
       ? [...SIMULATION_KINDS, ...FAULT_KINDS]
       : SIMULATION_KINDS;
     if (!allowed.includes(kind)) {
-      throw new DomainError('invalid_argument', `kind must be one of ${SIMULATION_KINDS.join(', ')}`, 'kind');
+      throw new DomainError('invalid_argument', `${field} must be one of ${SIMULATION_KINDS.join(', ')}`, field);
     }
     return kind as SimulationKind;
   }
 
   /** The document to simulate: the one sent, or the stored revision (its design must be of this project, else 404). */
-  private async resolveSource(
+  async resolveSource(
     projectId: string,
-    body: StartSimulationDto,
+    body: Pick<StartSimulationDto, 'document' | 'designId' | 'revisionNumber'>,
   ): Promise<{ document: Design; designId: string | null; revisionNumber: number | null }> {
     const hasRevision = body.designId !== undefined || body.revisionNumber !== undefined;
     if (body.document === undefined && !hasRevision) {

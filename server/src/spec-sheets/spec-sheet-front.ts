@@ -79,7 +79,9 @@ export function windingSection(doc: Doc, c: SpecSheetContent): void {
       ['Secondary peak working voltage', q(w.secondaryPeakV, 'V')],
       [
         `Operating frequency (${frequencySource === 'simulation' ? simulationSourceLabel(c.headline) : 'estimate'})`,
-        q(frequency, 'Hz'),
+        frequencySource === 'simulation' && c.headline.isOscillationIrregular
+          ? `${q(frequency, 'Hz')}, mean of irregular cycles (bursts)`
+          : q(frequency, 'Hz'),
       ],
       [
         `${label(`${TRANSFORMER}.insulation.ratedVoltageV`)}, to primary/feedback`,

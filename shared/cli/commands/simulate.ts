@@ -97,7 +97,8 @@ export function ladderFromArguments({ positional, flags }: ParsedArguments): {
 /**
  * `ladderwright simulate DESIGN.json | <bare-ladder flags>` [--until steady | --cycles N]
  * [--max-step-per-period N] [--discharge] [--safe-voltage V]: JSON with the output's cycle mean, ripple,
- * time to steady state, cycles simulated, method, whether it settled with the estimated remaining drift,
+ * time to 90 % of the final output and to within 1 % of it (with --until steady the start-up is followed by
+ * envelope following over the cycle-to-cycle map, not cycle by cycle), periods simulated, method, whether it settled with the estimated remaining drift,
  * and with --discharge the time to the safe voltage.
  * A driver design starts warm (ladder at the engine's steady-state estimate) and runs until settled;
  * `--cold` is the push-button start from an empty ladder, `--window-ms N` simulates exactly N ms.
@@ -125,11 +126,13 @@ export function simulateCommand(argv: ReadonlyArray<string>): string {
     outputMeanV: result.outputMeanV,
     ripplePeakToPeakV: result.ripplePeakToPeakV,
     timeToSteadyStateS: result.timeToSteadyStateS,
+    timeTo1PercentS: result.timeTo1PercentS,
     ...(result.discharge
       ? { dischargeTimeS: result.discharge.dischargeTimeS, trappedChargeC: result.discharge.trappedChargeC }
       : {}),
     cyclesSimulated: result.cyclesSimulated,
     method: result.method,
+    startUpMethod: result.startUpMethod,
     isSettled: result.isSettled,
     remainingDriftV: result.remainingDriftV,
     periodicSteadyState: result.periodicSteadyState,

@@ -12,6 +12,8 @@ export interface SimulatedFigures {
   ripplePeakToPeakV: number | null;
   dischargeTimeS: number | null;
   oscillationFrequencyHz?: number | null;
+  /** The simulated cycles spread in length (bursts): the frequency is their mean (SimulationSummary). */
+  isOscillationIrregular?: boolean | null;
   efficiency?: number | null;
   /**
    * The simulated time (s) within which the run did not settle (the steady run, or a driver's cold start),
@@ -53,7 +55,16 @@ export interface HeadlineSource {
   simulatedAt: string | null;
   /** The simulated time (s) within which the simulation used did not settle; null when it settled or none is used. */
   notSettledWithinS: number | null;
+  /** The simulation used found the oscillation irregular (IRREGULAR_OSCILLATION_NOTE); false when none is used. */
+  isOscillationIrregular: boolean;
 }
+
+/**
+ * What an irregular simulated oscillation means, in plain words, wherever its frequency is shown (Waveforms,
+ * the estimate's difference, spec sheet).
+ */
+export const IRREGULAR_OSCILLATION_NOTE =
+  'irregular oscillation: the transistor turns on in bursts and the cycles differ in length by more than 20 %, so the frequency is their mean';
 
 /**
  * How a figure taken from the stored simulation is marked wherever it is shown (Workbench, Checks, Sign-off,
@@ -77,5 +88,13 @@ export const STORED_SIMULATION_METHOD: MethodInfo = {
 
 /** The headline of a report shown on its own estimate: no simulation stands in for any figure. */
 export function estimateHeadline(report: DesignReport): HeadlineSource {
-  return { source: 'estimate', report, simulatedKeys: [], differences: [], simulatedAt: null, notSettledWithinS: null };
+  return {
+    source: 'estimate',
+    report,
+    simulatedKeys: [],
+    differences: [],
+    simulatedAt: null,
+    notSettledWithinS: null,
+    isOscillationIrregular: false,
+  };
 }

@@ -1,7 +1,12 @@
 export { analyzeDesign, analyzeLadderReport, evaluateChecks, resolveDrive, ladderInputOf } from './analyze-design';
 export type { DesignReport, LadderReport, LadderReportOptions } from './analyze-design';
 export { headlineSource, LADDER_ESTIMATE_TOLERANCE } from './simulated-figures';
-export { estimateHeadline, simulationSourceLabel, STORED_SIMULATION_METHOD } from './figure-source';
+export {
+  estimateHeadline,
+  IRREGULAR_OSCILLATION_NOTE,
+  simulationSourceLabel,
+  STORED_SIMULATION_METHOD,
+} from './figure-source';
 export type { ComparedFigure, FigureDifference, FigureSource, HeadlineSource, SimulatedFigures } from './figure-source';
 export { driverSizerFigures, withTransformerSection } from './transformer-sizer-inputs';
 export { checksWorsenedBySection, sectionAssessor } from './section-on-design';

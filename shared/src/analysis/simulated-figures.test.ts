@@ -78,6 +78,18 @@ describe('headlineSource', () => {
     expect(efficiency.text).toMatch(/, 10 points below the simulation \(the estimate states no tolerance for it\)$/);
   });
 
+  it('says beside the frequency when the simulated oscillation is irregular, and not otherwise', () => {
+    const irregular = headlineSource(report, simulated({ isOscillationIrregular: true }), tester.targets);
+    expect(irregular.isOscillationIrregular).toBe(true);
+    const frequency = irregular.differences.find((entry) => entry.key === 'frequency')!;
+    expect(frequency.text).toMatch(
+      /; irregular oscillation: the transistor turns on in bursts .+ the frequency is their mean$/,
+    );
+    const regular = headlineSource(report, simulated({ isOscillationIrregular: false }), tester.targets);
+    expect(regular.isOscillationIrregular).toBe(false);
+    expect(regular.differences.find((entry) => entry.key === 'frequency')!.text).not.toMatch(/irregular/);
+  });
+
   it('evaluates the discharge-time check again on the simulated time, against the same limit', () => {
     // The ionizer bar's rule is a time (60 s); the tester's is met by its small stored charge instead.
     const ionizer = designExamples.ionizerBar;

@@ -4,6 +4,7 @@ import { formatQuantity } from '../units';
 import type { DesignReport } from './analyze-design';
 import {
   estimateHeadline,
+  IRREGULAR_OSCILLATION_NOTE,
   STORED_SIMULATION_METHOD,
   type ComparedFigure,
   type FigureDifference,
@@ -123,14 +124,17 @@ export function headlineSource(
   if (driver) {
     const frequencyHz = simulation.oscillationFrequencyHz;
     if (frequencyHz !== null && frequencyHz !== undefined) {
+      const entry = difference(
+        'frequency',
+        'Oscillation frequency',
+        driver.benchFigures.oscillationFrequencyHz,
+        frequencyHz,
+        ESTIMATE_VALIDITY_BOUNDS.frequency,
+      );
       push(
-        difference(
-          'frequency',
-          'Oscillation frequency',
-          driver.benchFigures.oscillationFrequencyHz,
-          frequencyHz,
-          ESTIMATE_VALIDITY_BOUNDS.frequency,
-        ),
+        entry && simulation.isOscillationIrregular
+          ? { ...entry, text: `${entry.text}; ${IRREGULAR_OSCILLATION_NOTE}` }
+          : entry,
       );
     }
     const efficiency = simulation.efficiency;
@@ -156,5 +160,6 @@ export function headlineSource(
     differences,
     simulatedAt: simulation.finishedAt,
     notSettledWithinS: simulation.notSettledWithinS ?? null,
+    isOscillationIrregular: Boolean(driver && simulation.isOscillationIrregular),
   };
 }

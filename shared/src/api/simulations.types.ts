@@ -69,6 +69,11 @@ export interface SimulationSummary {
   method: 'transient' | 'periodic-steady-state';
   /** Driver designs: the blocking oscillator's frequency at steady state (Hz); absent for a sine or pulse drive. */
   oscillationFrequencyHz?: number | null;
+  /**
+   * Driver designs: the steady-state cycles spread by more than 20 % in length (the transistor turns on in
+   * bursts), so `oscillationFrequencyHz` is their mean; absent in runs stored before it was recorded.
+   */
+  isOscillationIrregular?: boolean | null;
   /** Driver designs, cold start: time to within 1 % of the settled output (s); null when it did not settle. */
   timeTo1PercentS?: number | null;
   /**

@@ -93,17 +93,22 @@ function supplyCurrentTable(
 ): (v: number) => number {
   const points = 8;
   const table: { v: number; i: number }[] = [];
-  // Each voltage's power balance starts from the last one's; none after a ladder-limited voltage (a higher
-  // supply delivers more, so the next is ladder-limited too, which the warm start would only try to disprove).
-  let warm: WarmStart | null = null;
+  // Each voltage's power balance starts from the line through the last two (the last one after the first);
+  // none after a ladder-limited voltage (a higher supply delivers more, so the next is ladder-limited too,
+  // which the warm start would only try to disprove).
+  let last: WarmStart | null = null;
+  let beforeLast: WarmStart | null = null;
   for (let k = 0; k < points; k++) {
     const v = lowV + ((highV - lowV) * k) / (points - 1);
     const bench: DriverStage = { ...driver, supply: { kind: 'dc', voltageV: v, sourceResistanceOhm: 0 } };
+    const warm: WarmStart | null =
+      last && beforeLast ? { flybackV: 2 * last.flybackV - beforeLast.flybackV, slope: last.slope } : last;
     let i: number;
     try {
       if (ladder) {
         const near = supplyCurrentNear(bench, ladder, loadA, warm);
-        warm = near.balance;
+        beforeLast = near.balance ? last : null;
+        last = near.balance;
         i = near.supplyCurrentA;
       } else i = blockingOscillatorNumbers(bench).inputA;
     } catch (error) {

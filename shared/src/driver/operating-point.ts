@@ -392,7 +392,9 @@ export function driverOperatingPoint(
     else hiA = mid;
   }
   // Evenly spaced loads: each power balance starts from the parabola through the last three (the line
-  // through the last two after the onset), its slope from the line through the last two slopes.
+  // through the last two after the onset) of the flyback times the load, nearly constant where the flyback
+  // carries a fixed power (the flyback itself runs as 1/I there, which a parabola follows badly), its slope
+  // from the line through the last two slopes.
   const curve: LoadPoint[] = [];
   const balances: (WarmStart | null)[] = [];
   for (let i = 0; i < points; i++) {
@@ -400,11 +402,13 @@ export function driverOperatingPoint(
     const a = balances[i - 1];
     const b = balances[i - 2];
     const c = balances[i - 3];
+    // The flyback times the load at the point k steps back, over this load.
+    const powerOf = (w: WarmStart, k: number) => (w.flybackV * (i - k)) / i;
     const warm =
       a && b && c
-        ? { flybackV: 3 * a.flybackV - 3 * b.flybackV + c.flybackV, slope: 2 * a.slope - b.slope }
+        ? { flybackV: 3 * powerOf(a, 1) - 3 * powerOf(b, 2) + powerOf(c, 3), slope: 2 * a.slope - b.slope }
         : a && b
-          ? { flybackV: 2 * a.flybackV - b.flybackV, slope: a.slope }
+          ? { flybackV: 2 * powerOf(a, 1) - powerOf(b, 2), slope: a.slope }
           : (a ?? warmPastOnset(endBalances, powerLimitOnsetA, maxFlyV, loadA));
     const solved = solvePoint(driver, ladder, loadA, options, limitEst, curve[i - 1]?.flybackSecondaryPeakV, warm);
     curve.push(solved.point);

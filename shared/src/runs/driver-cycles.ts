@@ -19,7 +19,7 @@ export interface DriverCycles {
 
 /**
  * Whole oscillation cycles at full resolution: output, collector, secondary, primary current, from one
- * turn-on to the `cyclesWanted`-th after it, with their own energy account; gives up after three times the
+ * cycle mark of the turn-on trigger (a turn-on's conduction ending, turn-on-events.ts) to the `cyclesWanted`-th after it, with their own energy account; gives up after three times the
  * longer of `lastPeriodS` and the estimated period per wanted cycle (plus two).
  */
 export function recordDriverCycles(frame: DriverRunFrame, cyclesWanted: number, lastPeriodS: number): DriverCycles {

@@ -4,7 +4,7 @@ import type { Design } from '../designs/design.types';
 import { DomainError } from '../errors';
 import type { Circuit } from '../sim/circuit.types';
 import { MnaSystem } from '../sim/mna-system';
-import { TurnOnTrigger } from '../sim/oscillation-measures';
+import { TurnOnTrigger } from '../sim/turn-on-events';
 import { TransientStepper } from '../sim/transient';
 import { driverDesignCircuit } from './driver-design-circuit';
 
@@ -73,7 +73,10 @@ export function openDriverRun(
   };
 }
 
-/** The turn-on time (s) the step just taken crossed, or NaN: the trigger fed with the frame's last step. */
+/**
+ * The cycle mark (s) the step just taken crossed, or NaN: the trigger fed with the frame's last step (a mark is
+ * the end of a turn-on's conduction pulse, turn-on-events.ts).
+ */
 export function pushTurnOn({ stepper, system, probes, trigger }: DriverRunFrame): number {
   return trigger.push(stepper.timeS, system.x[probes.primary]!, system.x[probes.collector]! - system.x[probes.supply]!);
 }

@@ -66,6 +66,8 @@ export interface DriverRunResult extends LadderRunResult {
   isSettled: boolean;
   /** Capacitor voltages the run started from (design order), V. */
   initialCapacitorVoltagesV: number[];
+  /** Capacitor voltages at the end of the recorded cycles, before any discharge (design order), V. */
+  finalCapacitorVoltagesV: number[];
   /** How often the slow charging mode was extrapolated (see runDriverDesign). */
   extrapolations: number;
   /** Oscillation frequency over whole cycles of the final waveforms, from the transistor's turn-on events. */

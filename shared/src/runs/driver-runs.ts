@@ -67,6 +67,7 @@ export function runDriverDesign(givenDesign: Design, options: DriverRunOptions =
   const lastFrequencyHz = settling.lastWindowFrequencyHz;
   const lastPeriodS = lastFrequencyHz ? 1 / lastFrequencyHz : estimatePeriodS;
   const cycles = recordDriverCycles(frame, options.waveformPeriods ?? 4, lastPeriodS);
+  const finalCapacitorVoltagesV = capacitorVoltagesV(frame);
   report(weights.run + weights.waves, true);
 
   const discharge =
@@ -86,12 +87,15 @@ export function runDriverDesign(givenDesign: Design, options: DriverRunOptions =
     isSettled: settling.isSettled,
     remainingDriftV: null,
     initialCapacitorVoltagesV: initialV,
+    finalCapacitorVoltagesV,
     extrapolations: settling.extrapolations,
     outputMeanV: isFixedWindow
       ? windowMean(t, v, Math.max(0, frame.stepper.timeS - windowS), frame.stepper.timeS)
       : finalMean,
     ripplePeakToPeakV: cycles.ripplePeakToPeakV,
     timeToSteadyStateS: reachedAtS,
+    timeTo1PercentS: null,
+    startUpMethod: 'transient',
     cyclesSimulated: Math.round(frame.stepper.timeS * (frequencyHz ?? 1 / estimatePeriodS)),
     periodicSteadyState: null,
     startUp: downsampleMinMax(t, v, buckets),

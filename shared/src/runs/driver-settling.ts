@@ -92,8 +92,8 @@ export class DriverSettling {
   }
 
   /**
-   * Steps to the end of one window. A window closes at the first turn-on of the transistor after `end`
-   * (see oscillation-measures.ts), so each window mean is a mean over whole oscillation periods (the cycle
+   * Steps to the end of one window. A window closes at the first cycle mark of the turn-on trigger after
+   * `end` (the end of a turn-on's conduction pulse, turn-on-events.ts), so each window mean is a mean over whole oscillation periods (the cycle
    * mean); a fixed window closes at `end`.
    */
   private runWindow(end: number): void {
@@ -127,7 +127,7 @@ export class DriverSettling {
       else this.windowTurnOns++;
     }
     const isCrossing = stepper.timeS >= end * (1 - 1e-12) && !Number.isNaN(fired) && !isFixedWindow;
-    // Fraction of this step before the turn-on (interpolated by the trigger).
+    // Fraction of this step before the cycle mark (interpolated by the trigger).
     const before = isCrossing ? (fired - this.prevT) / dt : 1;
     const vAt = this.prevV + (v - this.prevV) * before;
     this.area += 0.5 * (vAt + this.prevV) * dt * before;

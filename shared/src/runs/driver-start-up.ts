@@ -4,7 +4,8 @@ import type { Design } from '../designs/design.types';
 import { DomainError } from '../errors';
 import type { SimulationTolerances } from '../sim/circuit.types';
 import { MnaSystem } from '../sim/mna-system';
-import { readSettlingTimes, TurnOnTrigger } from '../sim/oscillation-measures';
+import { readSettlingTimes } from '../sim/oscillation-measures';
+import { TurnOnTrigger } from '../sim/turn-on-events';
 import { TransientStepper } from '../sim/transient';
 import { downsampleMinMax } from '../sim/waveform-measures';
 import { driverDesignCircuit, driverPeriodGuessS } from './driver-design-circuit';
@@ -60,7 +61,7 @@ interface Decay {
 
 /**
  * Push-button start of a driver design from an empty ladder, until the output settles or the budget runs
- * out. Cycles start at the transistor's turn-on (oscillation-measures.ts); every `blockCycles` cycles the
+ * out. Cycles run between the turn-on trigger's marks (the end of each turn-on's conduction, turn-on-events.ts); every `blockCycles` cycles the
  * block means of the output (m0, m1, m2 over the last three blocks) give the slow mode's rate
  * d = (m2 − m1)/Δt and its decay ratio r = (m2 − m1)/(m1 − m0), a time constant τ = −Δt/ln r, clean when two
  * successive τ agree within 25 %. Settling test: a clean decay has been seen in the run, and at two

@@ -12,6 +12,7 @@ import { TransientStepper } from '../sim/transient';
 import { downsampleMinMax, windowMean, windowPeakToPeak } from '../sim/waveform-measures';
 import { progressReporter } from './progress-reporter';
 import { estimateRemainingApproach } from './cycle-settling';
+import { followLadderStartUp, type LadderStartUp } from './ladder-start-up';
 
 /** The transient counts as settled when the estimated rest of its approach is within this fraction of the output. */
 export const SETTLED_FRACTION = 2e-4;
@@ -49,6 +50,11 @@ export interface LadderRunResult {
   outputMeanV: number;
   ripplePeakToPeakV: number;
   timeToSteadyStateS: number | null;
+  /** End of the cycle from which the cycle mean stays within 1 % of the final mean, s (envelope following only). */
+  timeTo1PercentS: number | null;
+  /** How the start-up was computed: cycle-to-cycle envelope following, or every cycle simulated. */
+  startUpMethod: 'envelope-following' | 'transient';
+  /** Drive periods simulated (an envelope-following start-up covers far more cycles of circuit time). */
   cyclesSimulated: number;
   periodicSteadyState: { isConverged: boolean; iterations: number; relativeResidual: number } | null;
   /**
@@ -61,6 +67,7 @@ export interface LadderRunResult {
    * periodic steady state); null when the last cycles show no decaying trend to extrapolate.
    */
   remainingDriftV: number | null;
+  /** Output during the start-up: cycle means with envelope following, else the simulated waveform. */
   startUp: PlotTrace;
   ripple: PlotTrace;
   discharge: {
@@ -105,6 +112,59 @@ export function runLadder(spec: LadderCircuitSpec, options: LadderRunOptions): L
   };
   checkCancel();
   report(0, true);
+
+  const runDischarge = (startCharges: Float64Array, ripple: PlotTrace): LadderRunResult['discharge'] => {
+    if (options.dischargeToV === undefined) return null;
+    const voltages = Array.from({ length: capCount }, (_, i) => startCharges[i]! / spec.capacitorsF[i]!);
+    return followLadderDischarge(spec, voltages, {
+      startOutputV: sign * Math.abs(windowMean(ripple.timeS, ripple.values, -Infinity, Infinity)),
+      safeVoltageV: options.dischargeToV,
+      minStepS: periodS / options.maxStepPerPeriod,
+      plotBuckets: buckets,
+      checkCancel,
+      onShare: (share) => report(weights.pss + weights.startUp + weights.discharge * share),
+    });
+  };
+
+  // 'steady': the start-up by envelope following, which ends at the periodic steady state.
+  if (options.until === 'steady' && options.isShootingUsed !== false) {
+    const startUp = followLadderStartUpOrNull(system, {
+      periodS,
+      stepsPerPeriod: options.maxStepPerPeriod,
+      isNegative: spec.isNegative === true,
+      // The share of the work is not known ahead: a fraction that rises with the periods run and never arrives.
+      onPoint: (_cycle, periods) => {
+        checkCancel();
+        report(weights.pss + weights.startUp * (1 - 1 / (1 + periods / 200)));
+      },
+    });
+    if (startUp !== null) {
+      report(weights.pss + weights.startUp, true);
+      const env = startUp.envelope;
+      const ripple = { timeS: Array.from(env.timeS), values: Array.from(env.signals[LADDER_NODES.ladderTop]!) };
+      const discharge = runDischarge(env.charges, ripple);
+      report(1, true);
+      return {
+        method: 'periodic-steady-state',
+        outputMeanV: startUp.finalMeanV,
+        ripplePeakToPeakV: windowPeakToPeak(ripple.timeS, ripple.values, -Infinity, Infinity),
+        timeToSteadyStateS: startUp.timeTo90PercentS,
+        timeTo1PercentS: startUp.timeTo1PercentS,
+        startUpMethod: 'envelope-following',
+        cyclesSimulated: env.periods,
+        periodicSteadyState: {
+          isConverged: true,
+          iterations: env.cycles.length,
+          relativeResidual: env.relativeResidual,
+        },
+        isSettled: true,
+        remainingDriftV: 0,
+        startUp: downsampleMinMax(startUp.curve.timeS, startUp.curve.values, buckets),
+        ripple: downsampleMinMax(ripple.timeS, ripple.values, buckets),
+        discharge,
+      };
+    }
+  }
 
   // Periodic steady state first when asked for 'steady': it gives the final value the start-up aims at.
   let pss: ReturnType<typeof findPeriodicSteadyState> | null = null;
@@ -201,19 +261,7 @@ export function runLadder(spec: LadderCircuitSpec, options: LadderRunOptions): L
   const rippleV = windowPeakToPeak(ripple.timeS, ripple.values, -Infinity, Infinity);
 
   // Discharge from the steady state (or the last transient state).
-  let discharge: LadderRunResult['discharge'] = null;
-  if (options.dischargeToV !== undefined) {
-    const startCharges = pssOk ? pss!.charges : stepper.q0;
-    const voltages = Array.from({ length: capCount }, (_, i) => startCharges[i]! / spec.capacitorsF[i]!);
-    discharge = followLadderDischarge(spec, voltages, {
-      startOutputV: sign * Math.abs(windowMean(ripple.timeS, ripple.values, -Infinity, Infinity)),
-      safeVoltageV: options.dischargeToV,
-      minStepS: periodS / options.maxStepPerPeriod,
-      plotBuckets: buckets,
-      checkCancel,
-      onShare: (share) => report(weights.pss + weights.startUp + weights.discharge * share),
-    });
-  }
+  const discharge = runDischarge(pssOk ? pss!.charges : stepper.q0, ripple);
 
   report(1, true);
   return {
@@ -221,6 +269,8 @@ export function runLadder(spec: LadderCircuitSpec, options: LadderRunOptions): L
     outputMeanV: finalMean,
     ripplePeakToPeakV: rippleV,
     timeToSteadyStateS: reachedAtS,
+    timeTo1PercentS: null,
+    startUpMethod: 'transient',
     cyclesSimulated: cycles,
     periodicSteadyState: pss
       ? { isConverged: pss.isConverged, iterations: pss.iterations, relativeResidual: pss.relativeResidual }
@@ -304,4 +354,18 @@ export function followLadderDischarge(
     output: downsampleMinMax(dt, dv, options.plotBuckets),
     trappedChargeC,
   };
+}
+
+/** The envelope-following start-up when it reaches the periodic steady state; null when it does not (a cancel still throws). */
+function followLadderStartUpOrNull(
+  system: MnaSystem,
+  options: Parameters<typeof followLadderStartUp>[1],
+): LadderStartUp | null {
+  try {
+    const startUp = followLadderStartUp(system, options);
+    return startUp.envelope.isConverged ? startUp : null;
+  } catch (error) {
+    if (error instanceof DomainError && error.code === 'cancelled') throw error;
+    return null;
+  }
 }

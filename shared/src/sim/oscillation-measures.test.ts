@@ -1,11 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import {
-  isIrregularCycles,
-  oscillationFigures,
-  readSettlingTimes,
-  turnOnTimes,
-  TurnOnTrigger,
-} from './oscillation-measures';
+import { oscillationFigures, readSettlingTimes } from './oscillation-measures';
+import { isIrregularCycles, turnOnTimes, TurnOnTrigger } from './turn-on-events';
 
 // Synthetic blocking-oscillator waveforms with known timing (the check values are the construction's own):
 // period 40 µs, on for 25 µs (the primary current ramps from 0 to 1 A), then a flyback of 10 µs during
@@ -49,18 +44,23 @@ describe('turn-on events of a blocking oscillator', () => {
     on.forEach((tOn, k) => expect(tOn).toBeCloseTo(k * periodS + 0.5 * onS, 9));
   });
 
-  it('the online trigger fires at the same instants as the offline search', () => {
+  it('the online trigger marks each cycle at its conduction’s end and finds the same turn-ons', () => {
     const w = waveforms(6);
     const trigger = new TurnOnTrigger(2, 3 * periodS);
-    const fired: number[] = [];
+    const marks: number[] = [];
+    const turnOns: number[] = [];
     w.t.forEach((t, k) => {
-      const f = trigger.push(t, w.i[k]!, w.col[k]!);
-      if (!Number.isNaN(f)) fired.push(f);
+      const mark = trigger.push(t, w.i[k]!, w.col[k]!);
+      if (Number.isNaN(mark)) return;
+      marks.push(mark);
+      turnOns.push(trigger.lastTurnOnS);
     });
     // Its first reference is 2 A (a saturation current above the real 1 A peak): it lowers the reference
     // after three periods without a turn-on, so it finds the later cycles.
-    expect(fired.length).toBeGreaterThanOrEqual(2);
-    for (const f of fired) expect(((f - 0.5 * onS) / periodS) % 1).toBeCloseTo(0, 6);
+    expect(marks.length).toBeGreaterThanOrEqual(2);
+    for (const t of turnOns) expect(((t - 0.5 * onS) / periodS) % 1).toBeCloseTo(0, 6);
+    // The pulse ends where the clamp current, 0.8 A falling linearly to 0 over the flyback, passes 0.1 A.
+    for (const t of marks) expect(((t - onS - 0.875 * flybackS) / periodS) % 1).toBeCloseTo(0, 6);
   });
 });
 
@@ -117,6 +117,23 @@ describe('turn-on events robust to rings', () => {
     const f = oscillationFigures(w.t, w.i, w.col, w.i)!;
     expect(f.frequencyHz).toBeCloseTo(25e3, 2);
     expect(f.isIrregular).toBe(false);
+  });
+
+  it('the online trigger counts the same one turn-on per cycle through the rings', () => {
+    // The same waveforms fed one sample at a time after 1 µs at rest (as a run starts: no current), the
+    // trigger's first reference the true 1.5 A peak: it re-arms only after each fall and fires once per
+    // conduction, never on the 0.8 A rings nor on the ring-back.
+    const w = ringingWaveforms(6);
+    const restS = 1e-6;
+    const trigger = new TurnOnTrigger(1.5, 3 * periodS);
+    trigger.push(0, 0, 0);
+    const turnOns: number[] = [];
+    w.t.forEach((t, k) => {
+      if (!Number.isNaN(trigger.push(restS + t, w.i[k]!, w.col[k]!))) turnOns.push(trigger.lastTurnOnS - restS);
+    });
+    expect(turnOns.length).toBe(6);
+    // Within 50 ns (five samples): the first level is half of 1.5 A, the later ones half of the sampled peak.
+    turnOns.forEach((tOn, k) => expect(tOn).toBeCloseTo(k * periodS + 0.25 * onS, 7));
   });
 
   it('flags cycles whose periods spread (bursts) and gives their mean frequency', () => {

@@ -1,142 +1,11 @@
-/**
- * Measurements of a self-oscillating converter taken as on the bench: the cycle starts where the
- * transistor turns on, seen as the primary current rising through a fraction of its peak while the
- * collector sits below the supply (the transistor conducting; a current probe triggered on the ramp,
- * qualified by the collector). Leakage ringing moves the collector through the supply many times a cycle,
- * but the primary current rises through half its peak once; a clamp's or snubber's current in the flyback
- * flows while the collector is above the supply and does not count. The trigger re-arms once the
- * collector has gone above the supply (the switch turned off) or the current has fallen below a tenth of
- * the peak.
- *
- * A recorded trace (turnOnTimes) also drops a rise whose current pulse is a ring rather than a conduction:
- * one that falls back below a tenth of the peak within `RING_FRACTION` of the record's longest pulse. An
- * oscillator that squegs (bursts of fast rings between long conductions) is measured from the long
- * conductions only; cycles whose periods spread by more than `IRREGULAR_SPREAD` of their mean are flagged
- * irregular, and their frequency is the mean over the whole cycles.
- */
-
-/** A rise whose pulse lasts under this fraction of the record's longest pulse is a ring, not a turn-on. */
-export const RING_FRACTION = 0.25;
-/** Cycles are irregular when (longest − shortest period) exceeds this fraction of the mean period. */
-export const IRREGULAR_SPREAD = 0.2;
-
-/** Fraction of the peak primary current whose rising crossing marks a turn-on. */
-export const TURN_ON_FRACTION = 0.5;
-/** The trigger re-arms once the primary current is below this fraction of the peak. */
-export const REARM_FRACTION = 0.1;
+import { isIrregularCycles, REARM_FRACTION, TURN_ON_FRACTION, turnOnTimes } from './turn-on-events';
 
 /**
- * Turn-on trigger fed one sample at a time. Its reference peak is the largest primary current of the last
- * completed cycle; before the first turn-on, `initialPeakA` (e.g. the core's saturation current), lowered
- * to the largest current seen once `patienceS` passes without a turn-on.
+ * Measurements of a self-oscillating converter taken as on the bench, over the whole cycles between the
+ * transistor's turn-on events (turn-on-events.ts): cycles whose periods spread by more than
+ * `IRREGULAR_SPREAD` of their mean are flagged irregular, and their frequency is the mean over the whole
+ * cycles.
  */
-export class TurnOnTrigger {
-  private peakRefA: number;
-  private cyclePeakA = 0;
-  private maxSeenA = 0;
-  private isArmed = false;
-  private lastFireS = NaN;
-  private startS = NaN;
-  private prevT = NaN;
-  private prevI = NaN;
-
-  constructor(
-    initialPeakA: number,
-    private readonly patienceS: number,
-  ) {
-    this.peakRefA = initialPeakA;
-  }
-
-  /**
-   * Feeds a sample (time, primary current, collector minus supply voltage); returns the interpolated
-   * turn-on time when the trigger fires, else NaN.
-   */
-  push(timeS: number, primaryA: number, collectorOverSupplyV: number): number {
-    if (Number.isNaN(this.startS)) this.startS = timeS;
-    const isOn = collectorOverSupplyV < 0;
-    if (isOn) {
-      this.maxSeenA = Math.max(this.maxSeenA, primaryA);
-      this.cyclePeakA = Math.max(this.cyclePeakA, primaryA);
-    }
-    const sinceS = timeS - (Number.isNaN(this.lastFireS) ? this.startS : this.lastFireS);
-    if (sinceS > this.patienceS && this.maxSeenA > 0 && this.maxSeenA < this.peakRefA) {
-      this.peakRefA = this.maxSeenA;
-      this.maxSeenA = 0;
-      this.startS = timeS;
-    }
-    let fired = NaN;
-    const level = TURN_ON_FRACTION * this.peakRefA;
-    if (!this.isArmed && (!isOn || primaryA <= REARM_FRACTION * this.peakRefA)) this.isArmed = true;
-    else if (this.isArmed && isOn && this.prevI < level && primaryA >= level) {
-      fired = this.prevT + ((timeS - this.prevT) * (level - this.prevI)) / (primaryA - this.prevI);
-      this.isArmed = false;
-      if (!Number.isNaN(this.lastFireS)) this.peakRefA = this.cyclePeakA;
-      this.cyclePeakA = primaryA;
-      this.maxSeenA = 0;
-      this.lastFireS = fired;
-    }
-    this.prevT = timeS;
-    this.prevI = primaryA;
-    return fired;
-  }
-}
-
-/**
- * Turn-on times of a recorded primary current and collector-minus-supply voltage (see TurnOnTrigger), the
- * reference being the record's peak primary current while the transistor conducts. Rings (pulses shorter
- * than `RING_FRACTION` of the longest, see the note at the top) are not turn-ons.
- */
-export function turnOnTimes(
-  timeS: ArrayLike<number>,
-  primaryA: ArrayLike<number>,
-  collectorOverSupplyV: ArrayLike<number>,
-): number[] {
-  let peak = 0;
-  for (let i = 0; i < primaryA.length; i++) if (collectorOverSupplyV[i]! < 0) peak = Math.max(peak, primaryA[i]!);
-  const out: number[] = [];
-  if (!(peak > 0)) return out;
-  const level = TURN_ON_FRACTION * peak;
-  const low = REARM_FRACTION * peak;
-  // Each rise with the length of its pulse (until the current falls below a tenth of the peak; NaN when the
-  // record ends first).
-  const rises: { t: number; pulseS: number }[] = [];
-  // Re-armed only once the current has fallen below a tenth of the peak and the collector has been above
-  // the supply (the switch off): a collector ringing through the supply within one conduction does not re-arm.
-  let isArmed = false;
-  let hasFallen = false;
-  let wentOff = false;
-  for (let i = 0; i < timeS.length; i++) {
-    const v = primaryA[i]!;
-    const isOn = collectorOverSupplyV[i]! < 0;
-    if (!isArmed) {
-      if (v <= low) hasFallen = true;
-      if (!isOn) wentOff = true;
-      isArmed = hasFallen && (wentOff || i === 0);
-      continue;
-    }
-    const u = primaryA[i - 1]!;
-    if (isOn && u < level && v >= level) {
-      const t = timeS[i - 1]! + ((timeS[i]! - timeS[i - 1]!) * (level - u)) / (v - u);
-      let j = i;
-      while (j < timeS.length && primaryA[j]! > low) j++;
-      rises.push({ t, pulseS: j < timeS.length ? timeS[j]! - t : NaN });
-      isArmed = false;
-      hasFallen = false;
-      wentOff = false;
-    }
-  }
-  const longestS = Math.max(0, ...rises.map((r) => (Number.isNaN(r.pulseS) ? 0 : r.pulseS)));
-  for (const r of rises) if (!(r.pulseS < RING_FRACTION * longestS)) out.push(r.t);
-  return out;
-}
-
-/** Whether the periods between successive turn-ons spread by more than `IRREGULAR_SPREAD` of their mean. */
-export function isIrregularCycles(turnOnS: ReadonlyArray<number>): boolean {
-  if (turnOnS.length < 3) return false;
-  const periods = turnOnS.slice(1).map((t, k) => t - turnOnS[k]!);
-  const meanS = (turnOnS[turnOnS.length - 1]! - turnOnS[0]!) / periods.length;
-  return Math.max(...periods) - Math.min(...periods) > IRREGULAR_SPREAD * meanS;
-}
 
 /** Bench figures of the whole cycles between the first and last turn-on of a record. */
 export interface OscillationFigures {
@@ -146,7 +15,7 @@ export interface OscillationFigures {
   toS: number;
   /** Whole cycles over their span: the mean frequency when the cycles are irregular. */
   frequencyHz: number;
-  /** The periods spread by more than `IRREGULAR_SPREAD` of their mean (bursts, squegging). */
+  /** The periods spread by more than IRREGULAR_SPREAD of their mean (bursts, squegging; turn-on-events.ts). */
   isIrregular: boolean;
   /**
    * On-time over the period: from the ramp's start (its rise through 10 % and 50 % of the peak, extrapolated

@@ -109,6 +109,23 @@ export class PeriodHistory {
     return found;
   }
 
+  /**
+   * Index of the first stored point more than `tolerance` after the time `periods` periods before the step's
+   * start, or −1: where a step off the last period's points can land to take them up again.
+   */
+  nextAfterStart(periods: number, tolerance: number): number {
+    if (this.count === 0) return -1;
+    const timeS = this.startS - periods * this.periodS + tolerance;
+    let lo = 0;
+    let hi = this.count;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (this.timeAt(mid) <= timeS) lo = mid + 1;
+      else hi = mid;
+    }
+    return lo < this.count ? lo : -1;
+  }
+
   private search(timeS: number, tolerance: number): number {
     let lo = 0;
     let hi = this.count - 1;

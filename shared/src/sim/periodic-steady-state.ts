@@ -1,10 +1,8 @@
-import { DomainError } from '../errors';
 import type { Circuit, SimulationTolerances } from './circuit.types';
 import { MnaSystem } from './mna-system';
+import { PeriodMap, type PeriodRecord } from './period-map';
 import { solveDense } from './solver/dense-lu';
-import { solveNewton } from './newton';
 import { SampleBuffer } from './sample-buffer';
-import { DEFAULT_TOLERANCES } from './tolerances';
 
 export interface PeriodicSteadyStateOptions {
   periodS: number;
@@ -54,105 +52,17 @@ export function findPeriodicSteadyState(
   options: PeriodicSteadyStateOptions,
 ): PeriodicSteadyStateResult {
   const sys = 'elements' in circuit ? new MnaSystem(circuit) : circuit;
-  // Φ must be evaluated far more tightly than the residual the shooting aims at, or the update chases
-  // Newton noise: a relative tolerance of 1e-9 inside each step. The junction-current test then needs an
-  // absolute floor above rounding (1 nA: over a step of the period it moves a charge far below the state's).
-  const tol = {
-    ...DEFAULT_TOLERANCES,
-    relative: 1e-9,
-    voltageAbsoluteV: 1e-9,
-    currentAbsoluteA: 1e-9,
-    ...options.tolerances,
-  };
-  const r = sys.reactiveCount;
-  const n = options.stepsPerPeriod;
-  if (!(n >= 4) || !(options.periodS > 0))
-    throw new DomainError('invalid_argument', 'need a positive period and at least 4 steps', 'stepsPerPeriod');
-  const h = options.periodS / n;
+  const map = new PeriodMap(sys, options);
+  const r = map.size;
   const maxIterations = options.maxIterations ?? 30;
   const relTol = options.relativeTolerance ?? 1e-6;
   const state = Float64Array.from(options.initialCharges ?? sys.initialCharge);
-  const q0 = new Float64Array(r);
-  const qd0 = new Float64Array(r);
-  const sq = new Float64Array(r * r);
-  const sqd = new Float64Array(r * r);
-  const w = new Float64Array(sys.size + 1);
-  const xStart = new Float64Array(sys.size + 1);
+  const q0 = map.end;
+  const sq = map.sensitivity;
   const probes = options.probes ?? [];
   const probeIndex = probes.map((p) => sys.probeIndex(p));
-  let newtonIterations = 0;
-
-  /** One period from q(0) = start; fills sq with ∂q(T)/∂q(0) when withSensitivity; returns q(T) in q0. */
-  const period = (
-    start: Float64Array,
-    withSensitivity: boolean,
-    record: { time: SampleBuffer; values: SampleBuffer[] } | null,
-  ): void => {
-    q0.set(start);
-    qd0.fill(0);
-    sys.x.set(xStart);
-    if (withSensitivity) {
-      sq.fill(0);
-      for (let k = 0; k < r; k++) sq[k * r + k] = 1;
-      sqd.fill(0);
-    }
-    if (record) {
-      record.time.push(0);
-      probeIndex.forEach((p, i) => record.values[i]!.push(sys.x[p]!));
-    }
-    for (let step = 0; step < n; step++) {
-      const isEuler = step === 0;
-      const a0 = isEuler ? 1 / h : 2 / h;
-      for (let k = 0; k < r; k++) sys.hist[k] = isEuler ? -a0 * q0[k]! : -a0 * q0[k]! - qd0[k]!;
-      const t1 = (step + 1) * h;
-      sys.prepareLinearMatrix(a0, t1);
-      sys.prepareStepRhs(t1);
-      const it = solveNewton(sys, a0, tol, 100);
-      if (it < 0)
-        throw new DomainError('not_converged', `Newton failed inside the shooting period at t = ${t1} s`, null, [
-          { path: 'timeS', message: String(t1) },
-        ]);
-      newtonIterations += it;
-      if (step === 0 && record === null && withSensitivity) {
-        /* x at the first step is a fine guess for the next period's first step */
-      }
-      sys.evaluateLinearCharges();
-      if (withSensitivity) {
-        // Jacobian at the converged point, then ∂x1/∂q0 column by column.
-        sys.load(a0);
-        sys.lu.factor();
-        for (let j = 0; j < r; j++) {
-          w.fill(0);
-          for (let k = 0; k < r; k++) {
-            const dHist = isEuler ? -a0 * sq[j * r + k]! : -a0 * sq[j * r + k]! - sqd[j * r + k]!;
-            sqd[j * r + k] = dHist; // keep dHist until the new charge sensitivity is known
-            w[sys.reactiveRowA[k]!]! -= dHist;
-            w[sys.reactiveRowB[k]!]! += dHist;
-          }
-          w[sys.size] = 0;
-          sys.lu.solve(w);
-          w[sys.size] = 0;
-          for (let k = 0; k < r; k++) {
-            let dq = 0;
-            for (let p = sys.gradientStart[k]!; p < sys.gradientStart[k + 1]!; p++)
-              dq += sys.gradientValue[p]! * w[sys.gradientIndex[p]!]!;
-            sq[j * r + k] = dq;
-            sqd[j * r + k] = a0 * dq + sqd[j * r + k]!;
-          }
-        }
-      }
-      for (let k = 0; k < r; k++) {
-        const q1 = sys.charge[k]!;
-        qd0[k] = a0 * q1 + sys.hist[k]!;
-        q0[k] = q1;
-      }
-      if (step === n - 1) xStart.set(sys.x);
-      if (record) {
-        record.time.push(t1);
-        probeIndex.forEach((p, i) => record.values[i]!.push(sys.x[p]!));
-      }
-    }
-  };
+  const period = (start: Float64Array, withSensitivity: boolean, record: PeriodRecord | null): void =>
+    map.run(start, withSensitivity, record);
 
   const residualOf = (start: Float64Array, end: Float64Array): number => {
     let scale = 0;
@@ -251,7 +161,7 @@ export function findPeriodicSteadyState(
   }
   const time = new SampleBuffer();
   const values = probes.map(() => new SampleBuffer());
-  period(state, false, { time, values });
+  period(state, false, { time, values, probeIndex });
   const finalResidual = residualOf(state, q0);
   const signals: Record<string, Float64Array> = {};
   probes.forEach((p, i) => {
@@ -266,6 +176,6 @@ export function findPeriodicSteadyState(
     reactiveNames: [...sys.reactiveNames],
     timeS: time.toArray(),
     signals,
-    newtonIterations,
+    newtonIterations: map.newtonIterations,
   };
 }

@@ -151,6 +151,12 @@ export class TransientStepper {
         // A step that already lands there to within rounding stays as it is, so that the matrix G + a0·C
         // of an unchanged step is not rebuilt for a last-bit difference in a0.
         if (lockedS > 0.5 * h && lockedS <= h * (1 + 1e-9) && Math.abs(lockedS - h) > 1e-9 * h) h = lockedS;
+      } else if (past && base < 0) {
+        // Off the last period's points (a step there was cut short): land on the next of them, so that the
+        // steps after it have the periodic predictor again instead of running off it to the period's end.
+        const ahead = past.nextAfterStart(1, 1e-6 * h);
+        const lockedS = ahead >= 0 ? past.timeAt(ahead) + this.periodS - this.timeS : NaN;
+        if (lockedS > 0.5 * h && lockedS <= h) h = lockedS;
       }
       const limitS = Math.min(untilS, this.nextBreakS);
       let landsOnBreak = false;

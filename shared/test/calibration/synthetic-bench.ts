@@ -6,7 +6,7 @@ import { toSpiceNetlist } from '../../src/sim/to-spice-netlist';
 import { windowMean } from '../../src/sim/waveform-measures';
 import type { MeasuredPoint } from '../../src/bench/bench.types';
 import { driverDesignCircuit, driverPeriodGuessS } from '../../src/runs/driver-design-circuit';
-import { TurnOnTrigger } from '../../src/sim/oscillation-measures';
+import { TurnOnTrigger } from '../../src/sim/turn-on-events';
 import { runNgspice } from '../ngspice/run-ngspice';
 
 /**
@@ -131,7 +131,7 @@ export function withNoise(xs: readonly number[], ys: readonly number[], sigma: n
 /**
  * The push-button start-up of a driver design by ngspice (reltol 1e-5, the empty ladder, the exported
  * netlist), read as the simulator's start-up is read: the mean output over each oscillation cycle between
- * turn-on events (`TurnOnTrigger`), interpolated at `timesS`. The run covers `periods` of the design's
+ * the cycle marks of the turn-on trigger (`TurnOnTrigger`), interpolated at `timesS`. The run covers `periods` of the design's
  * period guess.
  */
 export async function ngspiceStartUp(design: Design, periods: number, count: number): Promise<MeasuredPoint[]> {

@@ -9,7 +9,7 @@ import {
 import { oscillationFigures } from '../../src/sim/oscillation-measures';
 import { toSpiceNetlist } from '../../src/sim/to-spice-netlist';
 import { simulateTransient } from '../../src/sim/transient-analysis';
-import { runNgspice } from './run-ngspice';
+import { runNgspice, type NgspiceTrace } from './run-ngspice';
 
 // One blocking-oscillator supply run by our simulator and by ngspice (REFERENCES.md §7) on the netlist our
 // exporter writes. Both start from the same state (the ladder at the engine's estimate where it has one and
@@ -81,29 +81,71 @@ function figuresOf(t: ArrayLike<number>, s: DriverTraces, fromS: number, loadA: 
   };
 }
 
-/** Our figures and ngspice's for one driver design (see the note at the top of this file). */
-export async function driverFiguresBoth(design: Design): Promise<{ ours: DriverFigures; spice: DriverFigures }> {
+/** The ladder state both simulators start from (see the note at the top of this file), V per capacitor. */
+export function comparisonStartV(design: Design): number[] {
   if (design.drive.kind !== 'driver') throw new Error('driver designs only');
-  let initialV = design.multiplier.capacitors.map(() => 0);
   // Flyback-fed ladders start empty: from the estimate's charge, which sits well off where they settle, our
   // Newton gave up in the first periods on one of them. Both simulators always start from the same state.
   const isFlybackFed = design.drive.driver.transformer.secondaryPhasing !== 'forward';
   try {
-    if (!isFlybackFed) initialV = engineCapacitorVoltagesV(design);
+    if (!isFlybackFed) return engineCapacitorVoltagesV(design);
   } catch {
     // The engine refuses some designs; both simulators then start from an empty ladder.
   }
+  return design.multiplier.capacitors.map(() => 0);
+}
+
+const NGSPICE_VECTORS = ['v(col)', 'v(vcc)', 'i(vt1_lp_sense)', 'v(top)', 'v(out)', 'v(emf)', 'i(vbat)'];
+
+/** The exported netlist of a driver design from a ladder state, run to `stopS` with steps of `maxStepS`. */
+function comparisonNetlist(design: Design, initialV: number[], stopS: number, maxStepS: number): string {
+  return toSpiceNetlist(driverDesignCircuit(design, initialV), {
+    transient: { stopTimeS: stopS, maxStepS, startFrom: 'element-initial-conditions' },
+    extraLines: ['.options reltol=1e-5'],
+  });
+}
+
+/** ngspice's figures over the whole cycles of [fromS, stopS] of a driver design started from `initialV`. */
+export async function ngspiceDriverFigures(
+  design: Design,
+  initialV: number[],
+  window: { fromS: number; stopS: number },
+): Promise<DriverFigures> {
+  if (design.drive.kind !== 'driver') throw new Error('driver designs only');
+  const periodS = driverPeriodGuessS(design.drive.driver);
+  const netlist = comparisonNetlist(design, initialV, window.stopS, periodS / 200);
+  const ng = await runNgspice(netlist, NGSPICE_VECTORS);
+  return ngspiceFiguresOf(ng, window.fromS, design);
+}
+
+function ngspiceFiguresOf(ng: NgspiceTrace, fromS: number, design: Design): DriverFigures {
+  const g = (v: string): Float64Array => ng.signals[v]!;
+  return figuresOf(
+    ng.timeS,
+    {
+      col: g('v(col)'),
+      vcc: g('v(vcc)'),
+      primary: g('i(vt1_lp_sense)'),
+      top: g('v(top)'),
+      out: g('v(out)'),
+      emf: g('v(emf)'),
+      supplyA: g('i(vbat)'),
+    },
+    fromS,
+    design.load?.kind === 'current' ? design.load.currentA : 0,
+  );
+}
+
+/** Our figures and ngspice's for one driver design (see the note at the top of this file). */
+export async function driverFiguresBoth(design: Design): Promise<{ ours: DriverFigures; spice: DriverFigures }> {
+  if (design.drive.kind !== 'driver') throw new Error('driver designs only');
+  const initialV = comparisonStartV(design);
   const circuit = driverDesignCircuit(design, initialV);
   const periodS = driverPeriodGuessS(design.drive.driver);
   const run = { stopTimeS: 40 * periodS, maxStepS: periodS / 200 };
   const fromS = 20 * periodS;
   const loadA = design.load?.kind === 'current' ? design.load.currentA : 0;
-  const netlist = toSpiceNetlist(circuit, {
-    transient: { ...run, startFrom: 'element-initial-conditions' },
-    extraLines: ['.options reltol=1e-5'],
-  });
-  const vectors = ['v(col)', 'v(vcc)', 'i(vt1_lp_sense)', 'v(top)', 'v(out)', 'v(emf)', 'i(vbat)'];
-  const reference = runNgspice(netlist, vectors);
+  const reference = runNgspice(comparisonNetlist(design, initialV, run.stopTimeS, run.maxStepS), NGSPICE_VECTORS);
   const r = simulateTransient(circuit, {
     ...run,
     probes: ['col', 'vcc', 'I(T1.Lp)', 'top', 'out', 'emf', 'I(Vbat)'],
@@ -124,23 +166,7 @@ export async function driverFiguresBoth(design: Design): Promise<{ ours: DriverF
     fromS,
     loadA,
   );
-  const ng = await reference;
-  const g = (v: string): Float64Array => ng.signals[v]!;
-  const spice = figuresOf(
-    ng.timeS,
-    {
-      col: g('v(col)'),
-      vcc: g('v(vcc)'),
-      primary: g('i(vt1_lp_sense)'),
-      top: g('v(top)'),
-      out: g('v(out)'),
-      emf: g('v(emf)'),
-      supplyA: g('i(vbat)'),
-    },
-    fromS,
-    loadA,
-  );
-  return { ours, spice };
+  return { ours, spice: ngspiceFiguresOf(await reference, fromS, design) };
 }
 
 /**

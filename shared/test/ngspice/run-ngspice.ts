@@ -63,3 +63,19 @@ export async function runNgspice(netlist: string, vectors: ReadonlyArray<string>
     rmSync(dir, { recursive: true, force: true });
   }
 }
+
+/**
+ * The scale and vectors of an ngspice binary raw file (`set filetype=binary`, `write FILE vectors`) of a real
+ * analysis: a text header, then per point one double per variable. 16 bytes a point for one vector, where a
+ * `wrdata` line takes about 40, so a long transient stays cheap to read back.
+ */
+export function readBinaryRaw(raw: Buffer): { timeS: Float64Array; vectors: Float64Array[] } {
+  const marker = raw.indexOf('Binary:\n');
+  const header = raw.subarray(0, marker).toString('latin1');
+  const variables = Number(/No\. Variables:\s*(\d+)/.exec(header)![1]);
+  const points = Number(/No\. Points:\s*(\d+)/.exec(header)![1]);
+  const start = raw.byteOffset + marker + 'Binary:\n'.length;
+  const data = new Float64Array(raw.buffer.slice(start, start + points * variables * 8));
+  const column = (v: number): Float64Array => Float64Array.from({ length: points }, (_, p) => data[p * variables + v]!);
+  return { timeS: column(0), vectors: Array.from({ length: variables - 1 }, (_, v) => column(v + 1)) };
+}

@@ -12,6 +12,7 @@ import { driverSecondaryPhasing } from './0010-driver-secondary-phasing';
 import { magneticsParts } from './0011-magnetics-parts';
 import { calibrations } from './0012-calibrations';
 import { memberRequests } from './0013-member-requests';
+import { simulationBatches } from './0014-simulation-batches';
 
 /** Every schema step in order. Add new steps at the end. */
 export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
@@ -28,4 +29,5 @@ export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
   magneticsParts,
   calibrations,
   memberRequests,
+  simulationBatches,
 ];

@@ -52,13 +52,8 @@ export class SimulationOptionsDto implements SimulationOptions {
   startUpWindowS?: number;
 }
 
-/** The kind is checked by the service (the list depends on the environment); the document by validateDesign. */
-export class StartSimulationDto implements StartSimulationRequest {
-  @ApiProperty({ enum: SIMULATION_KINDS })
-  @IsDefined({ message: 'kind is required' })
-  @IsString({ message: 'kind must be text' })
-  kind!: SimulationKind;
-
+/** The design a simulation or a batch starts from, and the run's options. */
+export class SimulationSourceDto {
   @ApiPropertyOptional({
     description: 'A design document (schemaVersion 1); or give designId and revisionNumber.',
     type: 'object',
@@ -85,4 +80,12 @@ export class StartSimulationDto implements StartSimulationRequest {
   @ValidateNested()
   @Type(() => SimulationOptionsDto)
   options?: SimulationOptionsDto;
+}
+
+/** The kind is checked by the service (the list depends on the environment); the document by validateDesign. */
+export class StartSimulationDto extends SimulationSourceDto implements StartSimulationRequest {
+  @ApiProperty({ enum: SIMULATION_KINDS })
+  @IsDefined({ message: 'kind is required' })
+  @IsString({ message: 'kind must be text' })
+  kind!: SimulationKind;
 }

@@ -139,6 +139,9 @@ describe('Workbench save when someone saved meanwhile', () => {
       queryClient,
     });
 
+    // The alert's module loads on demand (a save conflict is rare): transformed here first, so the test does not
+    // wait on the transform under load.
+    await import('./workbench-stale-alert');
     const c1 = await screen.findByLabelText('C1 capacitance');
     fireEvent.change(c1, { target: { value: '1n5' } });
     fireEvent.change(screen.getByLabelText(/Change note/), { target: { value: 'C1 down to 1.5 nF' } });
@@ -146,7 +149,6 @@ describe('Workbench save when someone saved meanwhile', () => {
     await waitFor(() => expect(saveButton).toBeEnabled());
     fireEvent.click(saveButton);
 
-    // The alert's module loads on demand (a save conflict is rare), so its first showing may take a moment.
     const alert = await screen.findByRole('alert', { name: /Someone saved r2 meanwhile/ }, { timeout: 5000 });
     expect(within(alert).getByText('C2 capacitance')).toBeInTheDocument();
     expect(within(alert).getByText('Ripple limit')).toBeInTheDocument();

@@ -1,4 +1,4 @@
-import { lazy, Suspense, useCallback, useLayoutEffect, useRef, useState } from 'react';
+import { lazy, Suspense, useCallback, useEffect, useLayoutEffect, useRef, useState, type RefObject } from 'react';
 import { Alert, Anchor, Badge, Group, Stack, Text } from '@mantine/core';
 import { Trail } from '../../../components/trail';
 import { useDocumentTitle } from '@mantine/hooks';
@@ -114,6 +114,23 @@ interface EditableRevisionProps {
   isArchived: boolean;
 }
 
+/**
+ * Keeps `--lw-summary-height` on the layout at the Results summary's height, so that a form section scrolled to
+ * in the stacked layout stops below the sticky summary instead of under it (no render on a resize).
+ */
+function useSummaryHeightVar(layoutRef: RefObject<HTMLElement | null>, summaryRef: RefObject<HTMLElement | null>) {
+  useEffect(() => {
+    const layout = layoutRef.current;
+    const summary = summaryRef.current;
+    if (!layout || !summary || typeof ResizeObserver === 'undefined') return;
+    const observer = new ResizeObserver(() =>
+      layout.style.setProperty('--lw-summary-height', `${Math.ceil(summary.getBoundingClientRect().height)}px`),
+    );
+    observer.observe(summary);
+    return () => observer.disconnect();
+  }, [layoutRef, summaryRef]);
+}
+
 function EditableRevision({
   projectId,
   revision,
@@ -175,6 +192,10 @@ function EditableRevision({
     );
   };
 
+  const layoutRef = useRef<HTMLDivElement>(null);
+  const summaryRef = useRef<HTMLElement>(null);
+  useSummaryHeightVar(layoutRef, summaryRef);
+
   // The header is memoized: Save reaches the latest submit through a ref, so its handler keeps its identity.
   const submitRef = useRef(submit);
   useLayoutEffect(() => {
@@ -220,53 +241,56 @@ function EditableRevision({
         </Alert>
       )}
 
-      <div className={classes.layout}>
-        <section
-          className={classes.summary}
-          aria-label="Results summary"
-          data-live-pending={live.isPending ? 'true' : 'false'}
-        >
-          <Group gap="xs" mb={6}>
-            <Text size="sm" fw={600}>
-              Results
-            </Text>
-            <Badge
-              variant="dot"
-              color={isDirty ? 'ember' : 'verdigris'}
-              radius="sm"
-              tt="none"
-              aria-live="polite"
-              style={{ maxWidth: 'none' }}
-            >
-              {isDirty
-                ? live.isPending
-                  ? 'live preview, updating…'
-                  : 'live preview (unsaved edits)'
-                : `server result of r${revision.number} · ${headline?.source === 'simulation' ? `figures ${simulationSourceLabel(headline)}` : 'estimate'}`}
-            </Badge>
-          </Group>
-          {live.engineError && isDirty && (
-            <Alert color="red" title="The engine could not analyse this document">
-              {live.engineError}
-            </Alert>
-          )}
-          {!report && issueCount > 0 && (
-            <Alert color="ember" title="Results wait for valid inputs">
-              {issueCount} field{issueCount === 1 ? '' : 's'} to correct (marked beside each field and in the Form
-              index).
-            </Alert>
-          )}
-          {report && <VerdictStrip report={report} targets={draft.draft.targets} headline={headline} />}
-        </section>
-        <section className={classes.inputs} aria-label="Design inputs">
-          <LadderForm
-            document={draft.draft}
-            onChange={onFormChange}
-            issues={live.issues}
-            parts={shelf ?? noParts}
-            isReadOnly={isReadOnly}
-          />
-        </section>
+      <div className={classes.layout} ref={layoutRef}>
+        <div className={classes.editing}>
+          <section
+            ref={summaryRef}
+            className={classes.summary}
+            aria-label="Results summary"
+            data-live-pending={live.isPending ? 'true' : 'false'}
+          >
+            <Group gap="xs" mb={6}>
+              <Text size="sm" fw={600}>
+                Results
+              </Text>
+              <Badge
+                variant="dot"
+                color={isDirty ? 'ember' : 'verdigris'}
+                radius="sm"
+                tt="none"
+                aria-live="polite"
+                style={{ maxWidth: 'none' }}
+              >
+                {isDirty
+                  ? live.isPending
+                    ? 'live preview, updating…'
+                    : 'live preview (unsaved edits)'
+                  : `server result of r${revision.number} · ${headline?.source === 'simulation' ? `figures ${simulationSourceLabel(headline)}` : 'estimate'}`}
+              </Badge>
+            </Group>
+            {live.engineError && isDirty && (
+              <Alert color="red" title="The engine could not analyse this document">
+                {live.engineError}
+              </Alert>
+            )}
+            {!report && issueCount > 0 && (
+              <Alert color="ember" title="Results wait for valid inputs">
+                {issueCount} field{issueCount === 1 ? '' : 's'} to correct (marked beside each field and in the Form
+                index).
+              </Alert>
+            )}
+            {report && <VerdictStrip report={report} targets={draft.draft.targets} headline={headline} />}
+          </section>
+          <section className={classes.inputs} aria-label="Design inputs">
+            <LadderForm
+              document={draft.draft}
+              onChange={onFormChange}
+              issues={live.issues}
+              parts={shelf ?? noParts}
+              isReadOnly={isReadOnly}
+            />
+          </section>
+        </div>
         <section className={classes.results} aria-label="Result tabs">
           {report && partIssues.length > 0 && (
             <Suspense fallback={null}>

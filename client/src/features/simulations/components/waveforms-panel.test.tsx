@@ -129,6 +129,24 @@ describe('WaveformsPanel', () => {
       expect(screen.getByRole('figure', { name: title })).toBeTruthy();
   });
 
+  it('says in plain words when the oscillation was irregular, beside its frequency', async () => {
+    job = succeededJob({ ...driverSummary, isOscillationIrregular: true }, driverWaveforms);
+    startRun(true);
+    await screen.findByText('31.3 kHz');
+    expect(
+      screen.getByText(
+        'Irregular oscillation: the transistor turns on in bursts and the cycles differ in length by more than 20 %, so the frequency is their mean.',
+      ),
+    ).toBeTruthy();
+  });
+
+  it('adds no irregularity note to a regular oscillation', async () => {
+    job = succeededJob({ ...driverSummary, isOscillationIrregular: false }, driverWaveforms);
+    startRun(true);
+    await screen.findByText('31.3 kHz');
+    expect(screen.queryByText(/Irregular oscillation/)).toBeNull();
+  });
+
   it('keeps a ladder run to its three plots, without oscillator plots or frequency', async () => {
     job = succeededJob(summary, ladderWaveforms);
     startRun();

@@ -8,6 +8,7 @@ import type {
   WaveformPhase,
   WaveformTrace,
 } from '@ladderwright/shared/api';
+import { IRREGULAR_OSCILLATION_NOTE } from '@ladderwright/shared/analysis';
 import { START_UP_WINDOW_S } from '@ladderwright/shared/api';
 import { formatQuantity } from '@ladderwright/shared/units';
 import { QuantityInput } from '../../../components/quantity-input';
@@ -53,6 +54,11 @@ export function isDriverRun(result: SimulationResult): boolean {
   return result.waveforms.some(
     (w) => w.name === collectorTrace || w.name === secondaryTrace || w.name === primaryCurrentTrace,
   );
+}
+
+/** A note that starts in lower case, as a sentence of its own. */
+function sentence(text: string): string {
+  return text.charAt(0).toUpperCase() + text.slice(1);
 }
 
 /** The safe level to draw on a run's discharge plot: the level the run discharged to, else the design's target. */
@@ -169,6 +175,11 @@ export function WaveformsPanel({
               {result.summary.method}, {result.summary.cyclesSimulated} cycles
             </Text>
           </Group>
+          {result.summary.isOscillationIrregular === true && (
+            <Text size="sm" data-oscillation="irregular">
+              {sentence(IRREGULAR_OSCILLATION_NOTE)}.
+            </Text>
+          )}
           {result.summary.notSettledWithinS != null && (
             <Alert color="yellow" title="Not settled">
               The output had not settled within {formatQuantity(result.summary.notSettledWithinS, 's')} of simulated

@@ -1,4 +1,4 @@
-import { windowMean } from '../../shared/src/sim/waveform-measures';
+import { windowMean } from '../../src/sim/waveform-measures';
 
 /** Mean of each whole period [c·T, (c + 1)·T] of a sampled signal. */
 export function cycleMeans(timeS: Float64Array, values: Float64Array, periodS: number, cycles: number): Float64Array {

@@ -1,0 +1,320 @@
+import type { Circuit, SimulationTolerances } from './circuit.types';
+import { MnaSystem } from './mna-system';
+import { PeriodMap } from './period-map';
+import { SampleBuffer } from './sample-buffer';
+import { DenseLu } from './solver/dense-lu';
+
+export interface EnvelopeOptions {
+  periodS: number;
+  /** Fixed steps per period of the cycle map. */
+  stepsPerPeriod: number;
+  /** Charges and fluxes at t = 0 (MnaSystem reactive order); default the element initial conditions. */
+  initialCharges?: Float64Array;
+  /** Node whose cycle mean is followed (the charging curve). */
+  probe: string;
+  /** Local error allowed per envelope step, as a fraction of the largest charge; default 2e-3. */
+  stepTolerance?: number;
+  /** Periodic steady state: |Φ(q) − q| and the Newton update within this fraction of the largest charge; default 1e-6. */
+  relativeTolerance?: number;
+  /** Give up after this many cycles of circuit time; default 1e6. */
+  maxCycles?: number;
+  /** Give up after this many period evaluations (work); default 4000. */
+  maxPeriods?: number;
+  tolerances?: Partial<SimulationTolerances>;
+  /** Probes recorded over one period at the last point (the periodic steady state's waveform when converged). */
+  probes?: ReadonlyArray<string>;
+  /** Called after each accepted point with the cycle reached and the periods run so far; may throw to cancel. */
+  onPoint?: (cycle: number, periods: number) => void;
+}
+
+export interface EnvelopeResult {
+  /** Cycle index of each point: the mean in `means` is over the cycle that starts there. */
+  cycles: number[];
+  /** Cycle mean of the probe at each point. */
+  means: number[];
+  /** Whether the last point is the periodic steady state (residual and Newton update within relativeTolerance). */
+  isConverged: boolean;
+  /** max |Φ(q) − q| / max |q| at the last point. */
+  relativeResidual: number;
+  /** Largest Newton update towards the fixed point at the last point, / max |q|: the distance still to go. */
+  relativeDistance: number;
+  /** State at the last point. */
+  charges: Float64Array;
+  /** Cycle mean of the probe at the last point. */
+  finalMean: number;
+  /** One period of the probes at the last point, from t = 0 to the period. */
+  timeS: Float64Array;
+  signals: Record<string, Float64Array>;
+  periods: number;
+  sensitivityPeriods: number;
+  newtonIterations: number;
+}
+
+const maxAbs = (v: Float64Array): number => {
+  let m = 0;
+  for (let i = 0; i < v.length; i++) m = Math.max(m, Math.abs(v[i]!));
+  return m;
+};
+
+/**
+ * Start-up of a periodically driven circuit by envelope following over its cycle-to-cycle map
+ * q_{k+1} = Φ(q_k) (PeriodMap): instead of simulating every cycle, the slowly moving sequence of cycle-start
+ * states is treated as the samples of a smooth envelope z with z(k + 1) − z(k) = Φ(z(k)) − z(k), and that
+ * difference equation is integrated with long implicit steps of M cycles,
+ *   z(k + M) − z(k) = M · (Φ(z(k + M)) − z(k + M)),
+ * (backward Euler on the envelope: L. R. Petzold, "An efficient numerical method for highly oscillatory
+ * ordinary differential equations", SIAM J. Numer. Anal. 18(3), 455–479, 1981; applied to switching
+ * circuits by J. White and S. B. Leeb, "An envelope-following approach to switching power converter
+ * simulation", IEEE Trans. Power Electronics 6(2), 1991; both from memory). Each step is solved by a chord
+ * Newton iteration on the sensitivity ∂Φ/∂q, refreshed when the iteration slows; one period per iteration.
+ * M is chosen from the local error (predictor–corrector difference), so the cycle means follow the
+ * cycle-by-cycle transient; the first cycles, where the state jumps, are run one by one. Once a step as long
+ * as the whole start-up so far moves the state less than the step tolerance, M grows without bound and the
+ * iteration becomes the shooting Newton on Φ(q) − q (the limit M → ∞; pseudo-transient continuation,
+ * C. T. Kelley and D. E. Keyes, SIAM J. Numer. Anal. 35(2), 1998, from memory), which ends at the periodic
+ * steady state. Because every step follows the circuit's own trajectory, it reaches ladders whose
+ * linear start estimate is useless (deep droop). Converged only when the residual and the Newton
+ * update (which bounds the distance along the slow modes) are both within relativeTolerance.
+ */
+export function followEnvelope(circuit: Circuit | MnaSystem, options: EnvelopeOptions): EnvelopeResult {
+  const sys = 'elements' in circuit ? new MnaSystem(circuit) : circuit;
+  const map = new PeriodMap(sys, { ...options, meanProbeIndex: sys.probeIndex(options.probe) });
+  const r = map.size;
+  const stepTol = options.stepTolerance ?? 2e-3;
+  const relTol = options.relativeTolerance ?? 1e-6;
+  const maxCycles = options.maxCycles ?? 1e6;
+  const maxPeriods = options.maxPeriods ?? 4000;
+  const cycles: number[] = [];
+  const means: number[] = [];
+  let z = Float64Array.from(options.initialCharges ?? sys.initialCharge);
+  let k = 0;
+  let scale = maxAbs(z);
+
+  // Sensitivity S = ∂Φ/∂q at a recent point, and the factors of the step's Jacobian (1 + 1/M)·I − S.
+  const sens = new Float64Array(r * r);
+  let hasSens = false;
+  const lu = new DenseLu(r);
+  let factoredFor = NaN;
+  const jac = new Float64Array(r * r);
+  // The last period run (start and end) for the secant update of S.
+  const lastStart = new Float64Array(r);
+  const lastEnd = new Float64Array(r);
+  let hasLast = false;
+  const refreshSensitivity = (at: Float64Array): void => {
+    map.run(at, true);
+    sens.set(map.sensitivity);
+    hasSens = true;
+    factoredFor = NaN;
+    lastStart.set(at);
+    lastEnd.set(map.end);
+    hasLast = true;
+  };
+  const ds = new Float64Array(r);
+  const dPhi = new Float64Array(r);
+  /**
+   * Φ(start) into map.end, and Broyden's rank-one update of S from the previous run (C. G. Broyden, Math.
+   * Comp. 19, 1965): between full sensitivity periods S follows the state at the price of a refactoring.
+   */
+  const runMap = (start: Float64Array): void => {
+    map.run(start, false);
+    if (hasLast && hasSens) {
+      let ss = 0;
+      for (let i = 0; i < r; i++) {
+        ds[i] = start[i]! - lastStart[i]!;
+        ss += ds[i]! * ds[i]!;
+      }
+      if (ss > 0) {
+        for (let row = 0; row < r; row++) {
+          let predicted = 0;
+          for (let col = 0; col < r; col++) predicted += sens[col * r + row]! * ds[col]!;
+          dPhi[row] = (map.end[row]! - lastEnd[row]! - predicted) / ss;
+        }
+        for (let col = 0; col < r; col++) {
+          const c = ds[col]!;
+          if (c !== 0) for (let row = 0; row < r; row++) sens[col * r + row]! += dPhi[row]! * c;
+        }
+        factoredFor = NaN;
+      }
+    }
+    lastStart.set(start);
+    lastEnd.set(map.end);
+    hasLast = true;
+  };
+  const factorFor = (m: number): boolean => {
+    if (factoredFor === m) return true;
+    const diagonal = 1 + 1 / m;
+    for (let row = 0; row < r; row++)
+      for (let col = 0; col < r; col++) jac[row * r + col] = (row === col ? diagonal : 0) - sens[col * r + row]!;
+    factoredFor = m;
+    return lu.factor(jac);
+  };
+
+  // History of accepted points, newest last: three cycle indices and states (a quadratic predictor and
+  // the variable-step BDF2 formula need them).
+  const hk = [0, 0, 0];
+  const hz = [new Float64Array(r), new Float64Array(r), new Float64Array(r)];
+  let accepted = 0;
+  const accept = (cycle: number, state: Float64Array, mean: number): void => {
+    const oldest = hz.shift()!;
+    oldest.set(state);
+    hz.push(oldest);
+    hk.shift();
+    hk.push(cycle);
+    accepted++;
+    cycles.push(cycle);
+    means.push(mean);
+    scale = Math.max(scale, maxAbs(state));
+    options.onPoint?.(cycle, map.periods);
+  };
+
+  // Phase 1: single cycles while the state jumps from cycle to cycle.
+  let nextM = 1;
+  while (map.periods < maxPeriods && k < maxCycles) {
+    map.run(z, false);
+    accept(k, z, map.probeMean);
+    z = Float64Array.from(map.end);
+    k++;
+    if (accepted < 4) continue;
+    // Third difference of the states over the last four cycles ≈ z‴; BDF2's local error is ≈ (2/9)·M³·|z‴|.
+    let third = 0;
+    for (let i = 0; i < r; i++) third = Math.max(third, Math.abs(z[i]! - 3 * hz[2]![i]! + 3 * hz[1]![i]! - hz[0]![i]!));
+    nextM = third > 0 ? Math.cbrt((4.5 * stepTol * scale) / third) : Infinity;
+    if (nextM >= 4) break;
+  }
+  // z at cycle k is known but its own period has not been run: make it a point of the history too.
+  map.run(z, false);
+  accept(k, z, map.probeMean);
+
+  // Phase 2: implicit envelope steps by variable-step BDF2, then the M → ∞ limit.
+  const y = new Float64Array(r);
+  const pred = new Float64Array(r);
+  const c = new Float64Array(r);
+  const f = new Float64Array(r);
+  let residual = Infinity;
+  let distance = Infinity;
+  let finalMean = map.probeMean;
+  let isConverged = false;
+  let m = Math.min(nextM, 64);
+  let isShooting = false;
+  let failures = 0;
+  while (map.periods < maxPeriods && k < maxCycles) {
+    if (!hasSens) refreshSensitivity(z);
+    const [k0, k1, k2] = hk as [number, number, number];
+    const [z0, z1, z2] = hz as [Float64Array, Float64Array, Float64Array];
+    // y − β·M·(Φ(y) − y) = c with ω = M / M_prev (BDF2 on a variable grid; E. Hairer, S. P. Nørsett and
+    // G. Wanner, Solving ODEs I, §III.5, from memory); written as (1 + 1/(βM))·y − Φ(y) − c/(βM) = 0 so
+    // that M = ∞ is Newton on Φ(y) − y.
+    const omega = m / (k2 - k1);
+    const beta = (1 + omega) / (1 + 2 * omega);
+    const big = isShooting ? Infinity : beta * m;
+    const ca = ((1 + omega) * (1 + omega)) / (1 + 2 * omega);
+    const cb = (omega * omega) / (1 + 2 * omega);
+    // Predictor: the parabola through the last three points, at k + M.
+    const t = k2 + m;
+    const l0 = ((t - k1) * (t - k2)) / ((k0 - k1) * (k0 - k2));
+    const l1 = ((t - k0) * (t - k2)) / ((k1 - k0) * (k1 - k2));
+    const l2 = ((t - k0) * (t - k1)) / ((k2 - k0) * (k2 - k1));
+    for (let i = 0; i < r; i++) {
+      c[i] = ca * z2[i]! - cb * z1[i]!;
+      pred[i] = isShooting ? z2[i]! : l0 * z0[i]! + l1 * z1[i]! + l2 * z2[i]!;
+    }
+    y.set(pred);
+    let isSolved = false;
+    let lastUpdate = Infinity;
+    let refreshed = false;
+    for (let iteration = 0; iteration < 12 && map.periods < maxPeriods; iteration++) {
+      if (!factorFor(big)) break;
+      try {
+        runMap(y);
+      } catch {
+        break; // an iterate the stepper cannot follow: a shorter step
+      }
+      const inv = 1 / big;
+      for (let i = 0; i < r; i++) f[i] = (1 + inv) * y[i]! - map.end[i]! - c[i]! * inv;
+      residual = 0;
+      for (let i = 0; i < r; i++) residual = Math.max(residual, Math.abs(map.end[i]! - y[i]!));
+      finalMean = map.probeMean;
+      lu.solve(f);
+      const update = maxAbs(f);
+      for (let i = 0; i < r; i++) y[i]! -= f[i]!;
+      const size = Math.max(scale, maxAbs(y));
+      const updateTol = isShooting ? relTol * size : 0.05 * stepTol * size;
+      if (update <= updateTol && (!isShooting || residual <= relTol * size)) {
+        distance = update / size;
+        residual /= size;
+        isSolved = true;
+        break;
+      }
+      // A chord iteration that contracts slowly: the sensitivity is stale; take it at the present iterate.
+      if (update > 0.5 * lastUpdate || !Number.isFinite(update)) {
+        if ((refreshed && update > lastUpdate) || !Number.isFinite(update)) break;
+        try {
+          refreshSensitivity(y);
+        } catch {
+          break;
+        }
+        refreshed = true;
+      }
+      lastUpdate = update;
+    }
+    if (!isSolved) {
+      // No solution at this step: shorten it (from the M → ∞ limit back to a long finite step).
+      if (++failures > 12) break;
+      if (isShooting) {
+        isShooting = false;
+        m = Math.max(4, k / 4);
+      } else m = Math.max(1, m / 4);
+      refreshSensitivity(z);
+      continue;
+    }
+    if (isShooting) {
+      z = Float64Array.from(y);
+      isConverged = true;
+      break;
+    }
+    // Local error from the predictor–corrector difference (Milne's device; BDF2's error constant 2/9
+    // against the parabola's 1: about 2/11 of the difference).
+    let error = 0;
+    for (let i = 0; i < r; i++) error = Math.max(error, Math.abs(y[i]! - pred[i]!));
+    error *= 2 / 11;
+    if (error > stepTol * scale && m > 1) {
+      m = Math.max(1, m * Math.max(0.2, 0.9 * Math.cbrt((stepTol * scale) / error)));
+      continue;
+    }
+    failures = 0;
+    z = Float64Array.from(y);
+    k += m;
+    accept(k, z, finalMean);
+    const grow = error > 0 ? 0.9 * Math.cbrt((stepTol * scale) / error) : 4;
+    m = m * Math.min(4, Math.max(0.5, grow));
+    // A step as long as the start-up so far that still moves the state less than the tolerance: the rest is
+    // the fixed point itself.
+    if (m >= k && error <= 0.1 * stepTol * scale) isShooting = true;
+  }
+  const probes = options.probes ?? [];
+  const record = {
+    time: new SampleBuffer(),
+    values: probes.map(() => new SampleBuffer()),
+    probeIndex: probes.map((p) => sys.probeIndex(p)),
+  };
+  map.run(z, false, record);
+  finalMean = map.probeMean;
+  const signals: Record<string, Float64Array> = {};
+  probes.forEach((p, i) => {
+    signals[p] = record.values[i]!.toArray();
+  });
+  return {
+    cycles,
+    means,
+    timeS: record.time.toArray(),
+    signals,
+    isConverged,
+    relativeResidual: residual,
+    relativeDistance: distance,
+    charges: z,
+    finalMean,
+    periods: map.periods,
+    sensitivityPeriods: map.sensitivityPeriods,
+    newtonIterations: map.newtonIterations,
+  };
+}
