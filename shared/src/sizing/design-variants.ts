@@ -33,7 +33,7 @@ function checkCount(count: number, field: string): void {
 
 /** A copy of `design` with the number at `path` replaced; 400 naming `field` when the path holds no number. */
 function withNumberAt(design: Design, path: string, value: number, field: string): Design {
-  const copy = structuredClone(design) as unknown as Record<string | number, unknown>;
+  const copy = JSON.parse(JSON.stringify(design)) as Record<string | number, unknown>;
   const keys = pathKeys(path);
   let node: Record<string | number, unknown> = copy;
   for (const key of keys.slice(0, -1)) {
