@@ -147,6 +147,8 @@ function simulate(task: SimulationTask): SimulationResult {
     safeVoltageV: run.discharge?.safeVoltageV ?? null,
     cyclesSimulated: run.cyclesSimulated,
     method: run.method,
+    timeTo1PercentS: run.timeTo1PercentS,
+    startUpMethod: run.startUpMethod,
     notSettledWithinS: run.isSettled ? null : run.cyclesSimulated / spec.drive.frequencyHz,
     remainingDriftV: run.remainingDriftV,
   };
