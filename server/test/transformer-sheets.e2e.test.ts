@@ -117,6 +117,18 @@ describe('transformer sheets', () => {
     }
   });
 
+  it('names what each of its Checks checks, so two checks of the core read apart', async () => {
+    const text = pdfText((await sheet(designed, engineer)).body as Buffer);
+    // The rows' subjects take the shared result labels (shared/src/designs/field-labels.ts).
+    for (const subject of ['core, peak flux density', 'core, temperature rise', 'windings, window fill']) {
+      expect(text).toContain(subject);
+    }
+    expect(text).not.toMatch(/^\s*core\s{2,}/m);
+    // Gap and tolerance practice: Power Integrations, application note AN-18 (7/96), p. 12.
+    expect(text).toContain('spacers of half this');
+    expect(text).toContain('±10 % to ±15 %');
+  });
+
   it('returns 404 naming the section for a revision that gives its transformer as numbers', async () => {
     const response = await http()
       .get(`${base(given)}/transformer-sheet.pdf`)

@@ -149,7 +149,7 @@ function electricalSection(doc: Doc, c: TransformerSheetContent): void {
   );
   note(
     doc,
-    `Measure inductances at a low level well below saturation (e.g. 10 kHz, 0.1 V). Maximum leakage is the estimate from the winding geometry plus ${LEAKAGE_ALLOWANCE * 100} %; maximum DC resistance is the nominal plus ${RESISTANCE_ALLOWANCE * 100} % (wire and turn-length tolerances). Both allowances are common practice, no source. The secondary's self-capacitance is about ${q(report.secondaryCapacitanceF, 'F')} (estimate, for information).`,
+    `Measure inductances at a low level well below saturation (e.g. 10 kHz, 0.1 V). Maximum leakage is the estimate from the winding geometry plus ${LEAKAGE_ALLOWANCE * 100} %; maximum DC resistance is the nominal plus ${RESISTANCE_ALLOWANCE * 100} % (wire and turn-length tolerances). Both allowances are common practice, no source. Primary inductance is commonly specified to ±10 % to ±15 % (Power Integrations AN-18, Transformer Gapping). The secondary's self-capacitance is about ${q(report.secondaryCapacitanceF, 'F')} (estimate, for information).`,
   );
 }
 
@@ -166,7 +166,9 @@ function coreSection(doc: Doc, c: TransformerSheetContent): void {
     [label('core.ungappedAlHPerTurn2'), `${q(core.ungappedAlHPerTurn2, 'H')} per turn²`],
     [
       `${result('gap.gapM')} (total in the magnetic path)`,
-      report.gap.gapM === 0 ? 'none (ungapped)' : q(report.gap.gapM, 'm'),
+      report.gap.gapM === 0
+        ? 'none (ungapped)'
+        : `${q(report.gap.gapM, 'm')}: a centre-leg gap, or spacers of half this (the path crosses them twice)`,
     ],
     [
       result('gap.alHPerTurn2'),

@@ -1,4 +1,5 @@
 import type { SpacingEnvironment } from '../designs/design.types';
+import { resultFieldLabel } from '../designs/field-labels';
 import type { CheckVerdict } from '../safety/check.types';
 import { CREEPAGE_METHOD_TEXT, creepageColumn, requiredCreepageMm } from '../safety/creepage';
 import { lowerLimitVerdict } from '../safety/hazard-limits';
@@ -14,6 +15,15 @@ function upperLimit(
   const verdict =
     fields.value <= passFraction * fields.limit ? 'pass' : fields.value <= fields.limit ? 'marginal' : 'fail';
   return { ...fields, verdict, marginPct: ((fields.limit - fields.value) / fields.limit) * 100 };
+}
+
+/**
+ * A check's subject naming what it checks, from the shared result labels, so that two checks of one part read
+ * apart: "core, peak flux density", "core, gap length".
+ */
+function subjectOf(part: string, resultKey: string): string {
+  const label = resultFieldLabel(`transformer.${resultKey}`).label;
+  return `${part}, ${label.charAt(0).toLowerCase()}${label.slice(1)}`;
 }
 
 /** Flux, temperature and window figures of the section, as the checks read them. */
@@ -48,7 +58,7 @@ export function transformerChecks(figures: TransformerCheckFigures, spacing: Spa
     upperLimit(
       {
         id: 'transformer.core-saturation',
-        subject: 'core',
+        subject: subjectOf('core', 'peakFluxDensityT'),
         rule: 'peak flux density ≤ Bsat of the material at 100 °C; pass at ≤ 80 % (common practice, no source)',
         value: figures.peakFluxDensityT,
         limit: figures.saturationFluxDensityT,
@@ -59,7 +69,7 @@ export function transformerChecks(figures: TransformerCheckFigures, spacing: Spa
     upperLimit(
       {
         id: 'transformer.temperature-rise',
-        subject: 'core',
+        subject: subjectOf('core', 'temperatureRiseC'),
         rule: `temperature rise ≤ ${CORE_TEMPERATURE_LIMIT_C} °C − ambient ${figures.ambientTemperatureC} °C (the temperature the saturation margin is judged at), McLyman's surface-area rule; pass at ≤ 80 % (common practice, no source)`,
         value: figures.temperatureRiseC,
         limit: Math.max(1e-9, CORE_TEMPERATURE_LIMIT_C - figures.ambientTemperatureC),
@@ -70,7 +80,7 @@ export function transformerChecks(figures: TransformerCheckFigures, spacing: Spa
     upperLimit(
       {
         id: 'transformer.window-fill',
-        subject: 'windings',
+        subject: subjectOf('windings', 'windowFill'),
         rule: `copper area ≤ ${WINDOW_UTILIZATION_LIMIT * 100} % of the window (window utilization Ku, McLyman, Transformer and Inductor Design Handbook, 3rd ed., ch. 4); pass at ≤ 90 % of it`,
         value: figures.windowFill * 100,
         limit: WINDOW_UTILIZATION_LIMIT * 100,
@@ -81,7 +91,7 @@ export function transformerChecks(figures: TransformerCheckFigures, spacing: Spa
     upperLimit(
       {
         id: 'transformer.bobbin-build',
-        subject: 'windings',
+        subject: subjectOf('windings', 'buildFill'),
         rule: 'build of windings and tapes ≤ the bobbin height; pass at ≤ 90 % (room for winding tolerance, common practice, no source)',
         value: figures.buildFill * 100,
         limit: 100,
@@ -94,8 +104,8 @@ export function transformerChecks(figures: TransformerCheckFigures, spacing: Spa
     const limitMm = MIN_MANUFACTURABLE_GAP_M * 1000;
     checks.push({
       id: 'transformer.gap-length',
-      subject: 'core',
-      rule: `air gap ≥ ${limitMm} mm, the shortest gap ground or spaced to a tolerance (common practice, no source); more primary turns or a core of lower AL lengthen it`,
+      subject: subjectOf('core', 'gap.gapM'),
+      rule: `air gap ≥ ${limitMm} mm, the shortest gap ground or spaced to a tolerance (Power Integrations AN-18, Transformer Gapping); more primary turns or a core of lower AL lengthen it`,
       verdict: gapManufacturable(figures.gapM) ? 'pass' : 'fail',
       marginPct: ((figures.gapM * 1000 - limitMm) / limitMm) * 100,
       value: figures.gapM * 1000,
@@ -109,7 +119,7 @@ export function transformerChecks(figures: TransformerCheckFigures, spacing: Spa
     const limitH = 0.99 * targetH;
     checks.push({
       id: 'transformer.inductance-target',
-      subject: 'core',
+      subject: subjectOf('core', 'primaryInductanceH'),
       rule: 'primary inductance within 1 % of the target the gap is set for; an ungapped core gives no more than AL·N² (more turns or a core of higher AL)',
       verdict: reachedH >= limitH ? 'pass' : 'fail',
       marginPct: ((reachedH - limitH) / limitH) * 100,
@@ -124,7 +134,7 @@ export function transformerChecks(figures: TransformerCheckFigures, spacing: Spa
       upperLimit(
         {
           id: `transformer.layer-insulation.${winding.role}`,
-          subject: winding.name,
+          subject: `${winding.name}, layer insulation`,
           rule: 'voltage between adjacent layers ≤ breakdown of both enamels and the layer tape; pass at ≤ 50 % (common practice, no source)',
           value: winding.layerToLayerV,
           limit: winding.layerInsulationV,

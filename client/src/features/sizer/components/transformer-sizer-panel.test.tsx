@@ -100,10 +100,10 @@ describe('TransformerSizerPanel', () => {
     expect(screen.getByText('From the driver of Tester, at the rated load')).toBeInTheDocument();
     fireEvent.click(screen.getByRole('button', { name: 'Rank 1 shelf cores' }));
     const row = within(screen.getByRole('table', { name: 'Ranked cores' })).getAllByRole('row')[1]!;
-    // The shortest gap that can be made, 0.05 mm (common practice, no source), bounds the turns. McLyman's gapped
-    // AL (Transformer and Inductor Design Handbook, 3rd ed., ch. 8, from memory), by hand: le/µr = µ0·32 mm² /
-    // 4.5 µH = 8.936 µm, F = 1 + (0.05/√32)·ln(22/0.05) = 1.0538, AL = F·µ0·Ae/(50 µm + 8.936 µm) = 0.719 µH;
-    // √(0.25 mH / 0.719 µH) = 18.6, so 19; 0.4 × 19 = 7.6 → 8 feedback, 60 × 19 = 1140 secondary.
+    // The shortest gap that can be made, 0.051 mm (Power Integrations AN-18, Transformer Gapping), bounds the
+    // turns. McLyman's gapped AL (Transformer and Inductor Design Handbook, 3rd ed., ch. 8, from memory), by hand:
+    // le/µr = µ0·32 mm² / 4.5 µH = 8.936 µm, F = 1 + (0.051/√32)·ln(22/0.051) = 1.0547,
+    // AL = F·µ0·Ae/(51 µm + 8.936 µm) = 0.708 µH; √(0.25 mH / 0.708 µH) = 18.8, so 19; 0.4 × 19 = 7.6 → 8 feedback, 60 × 19 = 1140 secondary.
     expect(within(row).getByText('19 : 8 : 1140')).toBeInTheDocument();
     fireEvent.click(within(row).getByRole('button', { name: 'Apply NF-KE20-M2 to the design' }));
     expect(onApply).toHaveBeenCalledTimes(1);
