@@ -2,7 +2,7 @@ import { fireEvent, screen, within } from '@testing-library/react';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import type { SimulationJob, SimulationSummary, WaveformTrace } from '@ladderwright/shared/api';
 import { jsonResponse, renderWithApp } from '../../../testing/render';
-import { dischargeSafeLevelV, startUpWindowIssue, WaveformsPanel } from './waveforms-panel';
+import { dischargeSafeLevelV, runMethodNote, startUpWindowIssue, WaveformsPanel } from './waveforms-panel';
 
 const projectId = 'p-tester';
 
@@ -70,6 +70,22 @@ describe('dischargeSafeLevelV', () => {
   it('takes the level the run discharged to, and the design’s target only when the run gives none', () => {
     expect(dischargeSafeLevelV({ safeVoltageV: 60 }, 50)).toBe(60);
     expect(dischargeSafeLevelV({ safeVoltageV: null }, 50)).toBe(50);
+  });
+});
+
+describe('runMethodNote', () => {
+  it('names how the steady state and the start-up were obtained in plain words', () => {
+    expect(runMethodNote(summary)).toBe('Steady state from the last simulated cycles; 400 cycles simulated');
+    expect(
+      runMethodNote({
+        ...summary,
+        method: 'periodic-steady-state',
+        startUpMethod: 'envelope-following',
+        cyclesSimulated: 120,
+      }),
+    ).toBe(
+      'Steady state solved directly as a periodic state; start-up by envelope following, plotted as cycle means; 120 cycles simulated',
+    );
   });
 });
 
@@ -213,5 +229,42 @@ describe('WaveformsPanel', () => {
     startRun();
     await screen.findByRole('figure', { name: 'Start-up' });
     expect(screen.queryByText('Not settled')).toBeNull();
+  });
+
+  it('gives a ladder start-up by envelope following its times to 90 % and to within 1 %, and names the method', async () => {
+    job = succeededJob(
+      {
+        ...summary,
+        method: 'periodic-steady-state',
+        startUpMethod: 'envelope-following',
+        timeToSteadyStateS: 0.02,
+        timeTo1PercentS: 0.045,
+        notSettledWithinS: null,
+      },
+      ladderWaveforms,
+    );
+    startRun();
+    await screen.findByRole('figure', { name: 'Start-up' });
+    expect(screen.getByText('Time to 90 %').nextElementSibling?.textContent).toBe('20 ms');
+    expect(screen.getByText('Time to within 1 %').nextElementSibling?.textContent).toBe('45 ms');
+    expect(screen.getByText(/start-up by envelope following, plotted as cycle means/)).toBeTruthy();
+  });
+
+  it('shows a dash for the time to within 1 % when the start-up did not settle', async () => {
+    job = succeededJob(
+      { ...summary, method: 'periodic-steady-state', startUpMethod: 'envelope-following', timeTo1PercentS: null },
+      ladderWaveforms,
+    );
+    startRun();
+    await screen.findByRole('figure', { name: 'Start-up' });
+    expect(screen.getByText('Time to within 1 %').nextElementSibling?.textContent).toBe('—');
+  });
+
+  it('leaves out the time to within 1 % for a ladder transient, which does not time it', async () => {
+    job = succeededJob({ ...summary, startUpMethod: 'transient', timeTo1PercentS: null }, ladderWaveforms);
+    startRun();
+    await screen.findByRole('figure', { name: 'Start-up' });
+    expect(screen.getByText('Time to 90 %')).toBeTruthy();
+    expect(screen.queryByText('Time to within 1 %')).toBeNull();
   });
 });

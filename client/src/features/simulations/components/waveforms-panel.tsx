@@ -162,7 +162,10 @@ export function WaveformsPanel({
           <Group gap="lg">
             <Summary label="Output (mean)" value={result.summary.outputMeanV} unit="V" />
             <Summary label="Ripple (peak-to-peak)" value={result.summary.ripplePeakToPeakV} unit="V" />
-            <Summary label="Time to steady state" value={result.summary.timeToSteadyStateS} unit="s" />
+            <Summary label="Time to 90 %" value={result.summary.timeToSteadyStateS} unit="s" />
+            {isOnePercentTimed(result.summary) && (
+              <Summary label="Time to within 1 %" value={result.summary.timeTo1PercentS ?? null} unit="s" />
+            )}
             <Summary
               label={`Discharge to ${formatQuantity(dischargeSafeLevelV(result.summary, safeVoltageV), 'V')}`}
               value={result.summary.dischargeTimeS}
@@ -172,7 +175,7 @@ export function WaveformsPanel({
               <Summary label="Oscillation frequency" value={result.summary.oscillationFrequencyHz} unit="Hz" />
             )}
             <Text size="xs" c="dimmed">
-              {result.summary.method}, {result.summary.cyclesSimulated} cycles
+              {runMethodNote(result.summary)}
             </Text>
           </Group>
           {result.summary.isOscillationIrregular === true && (
@@ -190,7 +193,14 @@ export function WaveformsPanel({
             </Alert>
           )}
           <SimpleGrid type="container" cols={{ base: 1, '720px': 2 }} spacing="md">
-            <TraceChart title="Start-up" traces={tracesOf('startup')} isTimeFromZero />
+            <TraceChart
+              title="Start-up"
+              traces={tracesOf('startup')}
+              valueTitle={
+                result.summary.startUpMethod === 'envelope-following' ? 'Output, mean of each cycle' : undefined
+              }
+              isTimeFromZero
+            />
             <RippleChart traces={lastCycle(outputSteadyState, cycleFrequencyHz)} />
             <TraceChart
               title="Discharge"
@@ -224,6 +234,21 @@ export function WaveformsPanel({
       )}
     </Stack>
   );
+}
+
+/** The run times the settling to within 1 % (a driver's cold start, a ladder's start-up by envelope following). */
+const isOnePercentTimed = (summary: SimulationSummary): boolean =>
+  summary.timeTo1PercentS !== undefined && summary.startUpMethod !== 'transient';
+
+/** How the run got its figures, in plain words, with the number of cycles it simulated. */
+export function runMethodNote(summary: SimulationSummary): string {
+  const steady =
+    summary.method === 'periodic-steady-state'
+      ? 'Steady state solved directly as a periodic state'
+      : 'Steady state from the last simulated cycles';
+  const startUp =
+    summary.startUpMethod === 'envelope-following' ? '; start-up by envelope following, plotted as cycle means' : '';
+  return `${steady}${startUp}; ${summary.cyclesSimulated} cycles simulated`;
 }
 
 function Summary({ label, value, unit }: { label: string; value: number | null; unit: 'V' | 's' | 'Hz' }) {
