@@ -90,7 +90,7 @@ const FigureCell = memo(
           lh={1.3}
           data-value
           className={classes.value}
-          lineClamp={figure.key === 'worst' ? 2 : 1}
+          lineClamp={figure.key === 'worst' ? undefined : 1}
           title={figure.value}
         >
           {figure.value}
