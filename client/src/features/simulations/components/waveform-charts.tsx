@@ -83,6 +83,8 @@ export interface TraceChartProps {
   valueTitle?: string;
   /** Series names when they are not the traces' own. */
   names?: readonly string[];
+  /** Moments drawn as vertical lines (e.g. the times to 90 % and to within 1 % of a start-up), s on the plotted axis. */
+  timeMarks?: readonly { key: string; label: string; timeS: number }[];
 }
 
 /** The chart colours in turn. */
@@ -100,6 +102,7 @@ export function TraceChart({
   timeOriginS = 0,
   valueTitle,
   names,
+  timeMarks = [],
 }: TraceChartProps) {
   if (traces.length + rightTraces.length === 0) {
     return (
@@ -138,8 +141,8 @@ export function TraceChart({
       y={{ title: valueTitle ?? capitalised(leftName), unit: unitOf(traces), includesZero: isTimeFromZero }}
       y2={rightTraces.length > 0 ? { title: capitalised(rightName), unit: unitOf(rightTraces) } : undefined}
       series={series}
-      markers={
-        safeVoltageV === undefined
+      markers={[
+        ...(safeVoltageV === undefined
           ? []
           : [
               {
@@ -148,8 +151,9 @@ export function TraceChart({
                 y: isNegative ? -safeVoltageV : safeVoltageV,
                 color: chartColors.mark,
               },
-            ]
-      }
+            ]),
+        ...timeMarks.map((mark) => ({ key: mark.key, label: mark.label, x: mark.timeS, color: chartColors.mark })),
+      ]}
       isZoomable
     />
   );

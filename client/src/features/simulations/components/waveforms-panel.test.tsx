@@ -2,7 +2,13 @@ import { fireEvent, screen, within } from '@testing-library/react';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import type { SimulationJob, SimulationSummary, WaveformTrace } from '@ladderwright/shared/api';
 import { jsonResponse, renderWithApp } from '../../../testing/render';
-import { dischargeSafeLevelV, runMethodNote, startUpWindowIssue, WaveformsPanel } from './waveforms-panel';
+import {
+  dischargeSafeLevelV,
+  runMethodNote,
+  startUpMarks,
+  startUpWindowIssue,
+  WaveformsPanel,
+} from './waveforms-panel';
 
 const projectId = 'p-tester';
 
@@ -86,6 +92,26 @@ describe('runMethodNote', () => {
     ).toBe(
       'Steady state solved directly as a periodic state; start-up by envelope following, plotted as cycle means; 120 cycles simulated',
     );
+  });
+});
+
+describe('startUpMarks', () => {
+  it('marks the times to 90 % and to within 1 % that the run gives, and no others', () => {
+    const envelope = { ...summary, startUpMethod: 'envelope-following' as const, timeTo1PercentS: 0.045 };
+    expect(startUpMarks(envelope)).toEqual([
+      { key: '90', label: 'time to 90 %', timeS: 0.02 },
+      { key: '1', label: 'time to within 1 %', timeS: 0.045 },
+    ]);
+    expect(startUpMarks({ ...envelope, timeTo1PercentS: null })).toEqual([
+      { key: '90', label: 'time to 90 %', timeS: 0.02 },
+    ]);
+    const transient = {
+      ...summary,
+      startUpMethod: 'transient' as const,
+      timeTo1PercentS: null,
+      timeToSteadyStateS: null,
+    };
+    expect(startUpMarks(transient)).toEqual([]);
   });
 });
 

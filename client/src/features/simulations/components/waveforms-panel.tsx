@@ -199,6 +199,7 @@ export function WaveformsPanel({
               valueTitle={
                 result.summary.startUpMethod === 'envelope-following' ? 'Output, mean of each cycle' : undefined
               }
+              timeMarks={startUpMarks(result.summary)}
               isTimeFromZero
             />
             <RippleChart traces={lastCycle(outputSteadyState, cycleFrequencyHz)} />
@@ -239,6 +240,14 @@ export function WaveformsPanel({
 /** The run times the settling to within 1 % (a driver's cold start, a ladder's start-up by envelope following). */
 const isOnePercentTimed = (summary: SimulationSummary): boolean =>
   summary.timeTo1PercentS !== undefined && summary.startUpMethod !== 'transient';
+
+/** The times to 90 % and to within 1 % of the settled output, as lines on the Start-up plot (those the run gives). */
+export function startUpMarks(summary: SimulationSummary): { key: string; label: string; timeS: number }[] {
+  const marks = [{ key: '90', label: 'time to 90 %', timeS: summary.timeToSteadyStateS }];
+  if (isOnePercentTimed(summary))
+    marks.push({ key: '1', label: 'time to within 1 %', timeS: summary.timeTo1PercentS ?? null });
+  return marks.filter((mark): mark is { key: string; label: string; timeS: number } => mark.timeS !== null);
+}
 
 /** How the run got its figures, in plain words, with the number of cycles it simulated. */
 export function runMethodNote(summary: SimulationSummary): string {
