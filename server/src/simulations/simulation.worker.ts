@@ -13,6 +13,10 @@ import {
   type SimulationTask,
   type SimulationTaskOutcome,
 } from './simulation-task.types';
+import { lowerThreadPriority } from '../common/workers/thread-priority';
+
+// Requests first: this thread yields the core to the request thread whenever both want it.
+lowerThreadPriority();
 
 /*
  * Worker-thread entry (piscina). Everything here runs off the request thread; the main thread sees only
@@ -143,6 +147,8 @@ function simulate(task: SimulationTask): SimulationResult {
     safeVoltageV: run.discharge?.safeVoltageV ?? null,
     cyclesSimulated: run.cyclesSimulated,
     method: run.method,
+    timeTo1PercentS: run.timeTo1PercentS,
+    startUpMethod: run.startUpMethod,
     notSettledWithinS: run.isSettled ? null : run.cyclesSimulated / spec.drive.frequencyHz,
     remainingDriftV: run.remainingDriftV,
   };

@@ -1,5 +1,6 @@
 import type { SimulatedFigures } from '../analysis';
 import type { Design } from '../designs';
+import type { SpreadStatistics } from '../sizing';
 
 /**
  * What a simulation job computes: the start-up from empty capacitors, the periodic steady state with its
@@ -74,8 +75,13 @@ export interface SimulationSummary {
    * bursts), so `oscillationFrequencyHz` is their mean; absent in runs stored before it was recorded.
    */
   isOscillationIrregular?: boolean | null;
-  /** Driver designs, cold start: time to within 1 % of the settled output (s); null when it did not settle. */
+  /**
+   * Time to within 1 % of the settled output (s), from which it stays there: a driver design's cold start, a
+   * ladder's start-up by envelope following; null when it did not settle (or a ladder transient, which does not time it).
+   */
   timeTo1PercentS?: number | null;
+  /** Ladder runs: how the start-up was computed (envelope following over the cycle-to-cycle map, or every cycle). */
+  startUpMethod?: 'envelope-following' | 'transient';
   /**
    * The simulated time within which the output did not settle (s), else null: a driver design's cold start,
    * or a ladder run whose transient ended before its estimated remaining drift fell within 0.02 %.
@@ -164,16 +170,7 @@ export interface SimulationBatchMember {
 }
 
 /** Mean, sample standard deviation, extremes and nearest-rank percentiles of one figure over the succeeded members. */
-export interface SimulationBatchFigureSpread {
-  count: number;
-  mean: number;
-  sd: number;
-  min: number;
-  max: number;
-  p5: number;
-  p50: number;
-  p95: number;
-}
+export type SimulationBatchFigureSpread = Omit<SpreadStatistics, 'histogram'> & { count: number };
 
 /** GET /api/projects/:projectId/simulation-batches/:batchId answer. */
 export interface SimulationBatch {

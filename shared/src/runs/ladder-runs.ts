@@ -128,7 +128,7 @@ export function runLadder(spec: LadderCircuitSpec, options: LadderRunOptions): L
 
   // 'steady': the start-up by envelope following, which ends at the periodic steady state.
   if (options.until === 'steady' && options.isShootingUsed !== false) {
-    const startUp = followLadderStartUpOrNull(system, {
+    const startUp = followLadderStartUpOrNull(new MnaSystem(circuit), {
       periodS,
       stepsPerPeriod: options.maxStepPerPeriod,
       isNegative: spec.isNegative === true,

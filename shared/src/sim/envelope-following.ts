@@ -153,14 +153,12 @@ export function followEnvelope(circuit: Circuit | MnaSystem, options: EnvelopeOp
   // the variable-step BDF2 formula need them).
   const hk = [0, 0, 0];
   const hz = [new Float64Array(r), new Float64Array(r), new Float64Array(r)];
-  let accepted = 0;
   const accept = (cycle: number, state: Float64Array, mean: number): void => {
     const oldest = hz.shift()!;
     oldest.set(state);
     hz.push(oldest);
     hk.shift();
     hk.push(cycle);
-    accepted++;
     cycles.push(cycle);
     means.push(mean);
     scale = Math.max(scale, maxAbs(state));
@@ -169,21 +167,42 @@ export function followEnvelope(circuit: Circuit | MnaSystem, options: EnvelopeOp
 
   // Phase 1: single cycles while the state jumps from cycle to cycle.
   let nextM = 1;
+  const recent: Float64Array[] = [];
   while (map.periods < maxPeriods && k < maxCycles) {
     map.run(z, false);
     accept(k, z, map.probeMean);
     z = Float64Array.from(map.end);
     k++;
-    if (accepted < 4) continue;
-    // Third difference of the states over the last four cycles ≈ z‴; BDF2's local error is ≈ (2/9)·M³·|z‴|.
+    recent.push(Float64Array.from(z));
+    if (recent.length > 7) recent.shift();
+    if (recent.length < 7) continue;
+    // Third difference of the states at a spacing of two cycles, / 8, ≈ z‴ (BDF2's local error is ≈ (2/9)·M³·|z‴|).
+    // The spacing of two cancels a component that alternates from cycle to cycle (a mode of Φ′ near −1), which the
+    // implicit steps damp and which says nothing of the envelope's smoothness.
+    const [a, , b, , c, , d] = recent as [
+      Float64Array,
+      unknown,
+      Float64Array,
+      unknown,
+      Float64Array,
+      unknown,
+      Float64Array,
+    ];
     let third = 0;
-    for (let i = 0; i < r; i++) third = Math.max(third, Math.abs(z[i]! - 3 * hz[2]![i]! + 3 * hz[1]![i]! - hz[0]![i]!));
+    for (let i = 0; i < r; i++) third = Math.max(third, Math.abs(d[i]! - 3 * c[i]! + 3 * b[i]! - a[i]!) / 8);
     nextM = third > 0 ? Math.cbrt((4.5 * stepTol * scale) / third) : Infinity;
     if (nextM >= 4) break;
   }
   // z at cycle k is known but its own period has not been run: make it a point of the history too.
   map.run(z, false);
   accept(k, z, map.probeMean);
+  if (recent.length === 7) {
+    // History at a spacing of two cycles, where an alternating component is the same at every point: the
+    // predictor's parabola does not amplify it.
+    hk.splice(0, 3, k - 4, k - 2, k);
+    hz[0]!.set(recent[2]!);
+    hz[1]!.set(recent[4]!);
+  }
 
   // Phase 2: implicit envelope steps by variable-step BDF2, then the M → ∞ limit.
   const y = new Float64Array(r);
@@ -238,7 +257,7 @@ export function followEnvelope(circuit: Circuit | MnaSystem, options: EnvelopeOp
       const update = maxAbs(f);
       for (let i = 0; i < r; i++) y[i]! -= f[i]!;
       const size = Math.max(scale, maxAbs(y));
-      const updateTol = isShooting ? relTol * size : 0.05 * stepTol * size;
+      const updateTol = isShooting ? relTol * size : 0.1 * stepTol * size;
       if (update <= updateTol && (!isShooting || residual <= relTol * size)) {
         distance = update / size;
         residual /= size;
@@ -246,7 +265,7 @@ export function followEnvelope(circuit: Circuit | MnaSystem, options: EnvelopeOp
         break;
       }
       // A chord iteration that contracts slowly: the sensitivity is stale; take it at the present iterate.
-      if (update > 0.5 * lastUpdate || !Number.isFinite(update)) {
+      if (update > 0.9 * lastUpdate || !Number.isFinite(update)) {
         if ((refreshed && update > lastUpdate) || !Number.isFinite(update)) break;
         try {
           refreshSensitivity(y);

@@ -151,7 +151,7 @@ export function WaveformsPanel({
       {!jobId && (
         <Text size="sm" c="dimmed">
           No simulation has run for this document yet. Start-up, ripple over one cycle and discharge come from a
-          transient run on the server
+          simulation run on the server
           {isDriverDesign
             ? '; for this driver design also the collector and secondary voltages and the primary current, with the start-up timed over the window set here.'
             : '.'}
