@@ -105,7 +105,7 @@ export function transformerChecks(figures: TransformerCheckFigures, spacing: Spa
     checks.push({
       id: 'transformer.gap-length',
       subject: subjectOf('core', 'gap.gapM'),
-      rule: `air gap ≥ ${limitMm} mm, the shortest gap ground or spaced to a tolerance (Power Integrations AN-18, Transformer Gapping); more primary turns or a core of lower AL lengthen it`,
+      rule: `air gap ≥ ${limitMm} mm, the shortest gap ground or spaced to a tolerance; more primary turns or a core of lower AL lengthen it (Power Integrations AN-18, Transformer Gapping)`,
       verdict: gapManufacturable(figures.gapM) ? 'pass' : 'fail',
       marginPct: ((figures.gapM * 1000 - limitMm) / limitMm) * 100,
       value: figures.gapM * 1000,
