@@ -196,9 +196,7 @@ export function WaveformsPanel({
             <TraceChart
               title="Start-up"
               traces={tracesOf('startup')}
-              valueTitle={
-                result.summary.startUpMethod === 'envelope-following' ? 'Output, mean of each cycle' : undefined
-              }
+              valueTitle={result.summary.startUpMethod === 'envelope-following' ? 'Output, cycle mean' : undefined}
               timeMarks={startUpMarks(result.summary)}
               isTimeFromZero
             />
