@@ -1,21 +1,33 @@
 import { Injectable } from '@nestjs/common';
-import { calibrateDesign, type CalibrationResult } from '@ladderwright/shared/calibration';
+import {
+  calibrateDesign,
+  modelKindOf,
+  type CalibrationDataset,
+  type CalibrationResult,
+  type DesignBatchPredictor,
+} from '@ladderwright/shared/calibration';
 import type { Design } from '@ladderwright/shared/designs';
 import { isDomainError } from '@ladderwright/shared/errors';
 import { CalibrationModel } from '../calibrations/calibration.model';
+import { CalibrationEvaluationsService } from './calibration-evaluations.service';
 import { type PoolRun, SimulationPoolService } from './simulation-pool.service';
 import { CALIBRATION_PREDICT, type SimulationTaskOutcome } from './simulation-task.types';
 
 /**
  * Runs a calibration job on this instance: the Levenberg–Marquardt loop stays on the main thread (it only
  * solves a few-by-few system per step), and every model evaluation (the engine's estimate or a simulation of
- * the design with one set of parameter values) is a task of the simulation worker pool, so the Jacobian's
- * columns of one step run in parallel across the pool's threads. Cancel stops the loop before its next
- * batch and asks the tasks in flight to stop at their next time step.
+ * the design with one set of parameter values) runs in a worker pool, so the Jacobian's columns of one step
+ * run in parallel. A fit that runs the simulator queues its model runs on the PostgreSQL queue, so that every
+ * app instance's pool takes part (`CalibrationEvaluationsService`); a fit of the engine's estimate alone
+ * (milliseconds a run) uses this instance's pool directly. Cancel stops the loop before its next batch and
+ * asks the runs in flight to stop at their next time step.
  */
 @Injectable()
 export class CalibrationRunService {
-  constructor(private readonly pool: SimulationPoolService) {}
+  constructor(
+    private readonly pool: SimulationPoolService,
+    private readonly evaluations: CalibrationEvaluationsService,
+  ) {}
 
   run(jobId: string, document: Design, onProgress: (progressPct: number) => void): PoolRun {
     let isCancelled = false;
@@ -43,29 +55,12 @@ export class CalibrationRunService {
     }
     const { parameters, datasets, confidence } = calibration.input;
     try {
+      const usesSimulator = datasets.some((dataset) => modelKindOf(dataset.use) === 'simulator');
       const result: CalibrationResult = await calibrateDesign(
         { design: document, parameters, datasets, confidence },
-        (prepared) => (designs) =>
-          Promise.all(
-            designs.map(async (design) => {
-              const task = this.pool.run(
-                { kind: CALIBRATION_PREDICT, document: design, options: {}, datasets: [...prepared] },
-                () => undefined,
-              );
-              inFlight.add(task);
-              try {
-                const answer = await task.outcome;
-                if (!answer.ok) {
-                  if (answer.error.code === 'cancelled')
-                    throw Object.assign(new Error(answer.error.message), answer.error);
-                  return null;
-                }
-                return 'predictions' in answer ? answer.predictions : null;
-              } finally {
-                inFlight.delete(task);
-              }
-            }),
-          ),
+        usesSimulator
+          ? () => this.evaluations.predictor(calibration.id, isCancelled)
+          : (prepared) => this.localPredictor(prepared, inFlight),
         { onProgress: (fraction) => onProgress(Math.floor(fraction * 99)), shouldCancel: isCancelled },
       );
       await calibration.update({ result });
@@ -76,5 +71,29 @@ export class CalibrationRunService {
       if (isCancelled()) return { ok: false, error: { code: 'cancelled', message: 'Cancelled', field: null } };
       throw error;
     }
+  }
+
+  /** Each design of a batch as a task of this instance's pool. */
+  private localPredictor(prepared: readonly CalibrationDataset[], inFlight: Set<PoolRun>): DesignBatchPredictor {
+    return (designs) =>
+      Promise.all(
+        designs.map(async (design) => {
+          const task = this.pool.run(
+            { kind: CALIBRATION_PREDICT, document: design, options: {}, datasets: [...prepared] },
+            () => undefined,
+          );
+          inFlight.add(task);
+          try {
+            const answer = await task.outcome;
+            if (!answer.ok) {
+              if (answer.error.code === 'cancelled') throw Object.assign(new Error(answer.error.message), answer.error);
+              return null;
+            }
+            return 'predictions' in answer ? answer.predictions : null;
+          } finally {
+            inFlight.delete(task);
+          }
+        }),
+      );
   }
 }

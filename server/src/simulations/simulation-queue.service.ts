@@ -4,6 +4,14 @@ import { APP_ENV, type AppEnv } from '../config/env';
 
 export const SIMULATION_QUEUE = 'simulation-jobs';
 
+/** The queue of a calibration's model runs (rows of `calibration_evaluations`), taken by every instance. */
+export const CALIBRATION_EVALUATION_QUEUE = 'calibration-evaluations';
+
+/** The payload of a model run: only the id; the run itself is our `calibration_evaluations` row. */
+export interface CalibrationEvaluationPayload {
+  evaluationId: string;
+}
+
 /** The pg-boss payload: only the id; the job itself is our `simulation_jobs` row. */
 export interface SimulationQueuePayload {
   simulationJobId: string;
@@ -12,6 +20,11 @@ export interface SimulationQueuePayload {
 /** pg-boss expires a job this long after its run-time limit (ours ends it first). */
 const EXPIRY_MARGIN_S = 60;
 const POLLING_INTERVAL_SECONDS = 1;
+/**
+ * Another instance's model-run workers look for runs this often (pg-boss's shortest): a batch of a fit waits
+ * for its slowest run, so a remote worker that comes late adds to every step.
+ */
+const EVALUATION_POLLING_INTERVAL_SECONDS = 0.5;
 
 /**
  * pg-boss in PostgreSQL owns the queue, so that several app instances share the work: each instance's
@@ -24,6 +37,7 @@ export class SimulationQueueService implements OnModuleDestroy {
   private readonly logger = new Logger('SimulationQueue');
   private starting: Promise<PgBoss> | null = null;
   private readonly workerIds: string[] = [];
+  private readonly evaluationWorkerIds: string[] = [];
   private isStopped = false;
 
   constructor(@Inject(APP_ENV) private readonly env: AppEnv) {}
@@ -41,6 +55,33 @@ export class SimulationQueueService implements OnModuleDestroy {
     return id;
   }
 
+  /** Queues model runs of a calibration; wakes this instance's model-run workers (others poll). */
+  async sendEvaluations(payloads: readonly CalibrationEvaluationPayload[]): Promise<void> {
+    const boss = await this.boss();
+    for (const payload of payloads) {
+      const id = await boss.send(CALIBRATION_EVALUATION_QUEUE, payload, {
+        retryLimit: 0,
+        expireInSeconds: this.expireInSeconds(),
+      });
+      if (!id) throw new Error('pg-boss refused the model run');
+    }
+    for (const workerId of this.evaluationWorkerIds) boss.notifyWorker(workerId);
+  }
+
+  /** Subscribes `concurrency` model-run workers, each taking one run at a time. */
+  async workEvaluations(
+    concurrency: number,
+    handler: (payload: CalibrationEvaluationPayload) => Promise<void>,
+  ): Promise<void> {
+    await this.subscribe(
+      CALIBRATION_EVALUATION_QUEUE,
+      concurrency,
+      EVALUATION_POLLING_INTERVAL_SECONDS,
+      handler,
+      this.evaluationWorkerIds,
+    );
+  }
+
   /** Withdraws a job that no worker has taken yet (a taken one is stopped through our table instead). */
   async cancel(queueJobId: string): Promise<void> {
     const boss = await this.boss();
@@ -49,16 +90,22 @@ export class SimulationQueueService implements OnModuleDestroy {
 
   /** Subscribes `concurrency` workers, each taking one job at a time. */
   async work(concurrency: number, handler: (payload: SimulationQueuePayload) => Promise<void>): Promise<void> {
+    await this.subscribe(SIMULATION_QUEUE, concurrency, POLLING_INTERVAL_SECONDS, handler, this.workerIds);
+  }
+
+  private async subscribe<T extends object>(
+    queue: string,
+    concurrency: number,
+    pollingIntervalSeconds: number,
+    handler: (payload: T) => Promise<void>,
+    ids: string[],
+  ): Promise<void> {
     const boss = await this.boss();
     for (let i = 0; i < concurrency; i++) {
-      const id = await boss.work<SimulationQueuePayload>(
-        SIMULATION_QUEUE,
-        { batchSize: 1, pollingIntervalSeconds: POLLING_INTERVAL_SECONDS },
-        async (jobs) => {
-          for (const job of jobs) await handler(job.data);
-        },
-      );
-      this.workerIds.push(id);
+      const id = await boss.work<T>(queue, { batchSize: 1, pollingIntervalSeconds }, async (jobs) => {
+        for (const job of jobs) await handler(job.data);
+      });
+      ids.push(id);
     }
   }
 
@@ -96,6 +143,11 @@ export class SimulationQueueService implements OnModuleDestroy {
       await boss.createQueue(SIMULATION_QUEUE, {
         name: SIMULATION_QUEUE,
         retryLimit: 1,
+        expireInSeconds: this.expireInSeconds(),
+      });
+      await boss.createQueue(CALIBRATION_EVALUATION_QUEUE, {
+        name: CALIBRATION_EVALUATION_QUEUE,
+        retryLimit: 0,
         expireInSeconds: this.expireInSeconds(),
       });
     } catch (error) {

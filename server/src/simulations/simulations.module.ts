@@ -2,6 +2,7 @@ import { Module } from '@nestjs/common';
 import { SequelizeModule } from '@nestjs/sequelize';
 import { AnalysisModule } from '../analysis/analysis.module';
 import { RevisionsModule } from '../revisions/revisions.module';
+import { CalibrationEvaluationsService } from './calibration-evaluations.service';
 import { CalibrationRunService } from './calibration-run.service';
 import { CurrentSimulationController } from './current-simulation.controller';
 import { CurrentSimulationService } from './current-simulation.service';
@@ -28,6 +29,7 @@ import { SimulationsService } from './simulations.service';
     SimulationPoolService,
     SimulationRunnerService,
     CalibrationRunService,
+    CalibrationEvaluationsService,
     CurrentSimulationService,
     SimulationBatchesService,
     SimulationBatchEndsService,

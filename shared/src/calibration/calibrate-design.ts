@@ -1,7 +1,13 @@
 import type { Design } from '../designs/design.types';
 import { DomainError, isDomainError } from '../errors';
 import { checkCalibrationData, thinPoints } from './calibration-data';
-import { modelKindOf, predictDataset, type SimulatorRunOptions } from './calibration-models';
+import {
+  fittedValueOf,
+  modelKindOf,
+  predictDataset,
+  waveformProbeOf,
+  type SimulatorRunOptions,
+} from './calibration-models';
 import type {
   CalibrationDataset,
   CalibrationResult,
@@ -12,6 +18,13 @@ import type {
 import { fitParameters, toValue, type FitOptions, type FitParameter } from './fit-parameters';
 import { CORRELATION_WARNING, fitStatistics } from './fit-statistics';
 import { applyParameterValues, checkChosenParameters, uncertainParameter } from './uncertain-parameters';
+
+/**
+ * Start points per fitted parameter of a fit with a waveform (see FitOptions.startPoints): a waveform's
+ * sample cost has narrow valleys (the tester's collector over 1.2 periods: coupling 0.95's valley is about
+ * ±0.01 wide, with another near 0.98–0.99), and 16 points over a prior range of 0.85–0.999 fall 0.009 apart.
+ */
+export const WAVEFORM_START_POINTS_PER_PARAMETER = 16;
 
 /** Confidence of the reported intervals unless a caller asks for another. */
 export const DEFAULT_CONFIDENCE = 0.95;
@@ -93,12 +106,13 @@ export async function calibrateDesign(
   }));
   const scales = datasets.map((dataset) => Math.max(...dataset.points.map((point) => Math.abs(point.y)), 1e-12));
   const target = datasets.flatMap((dataset, d) =>
-    dataset.points.map((point) => Math.abs(point.y) / (scales[d] as number)),
+    dataset.points.map((point) => fittedValueOf(dataset.use, point.y) / (scales[d] as number)),
   );
   const predictor = makePredictor(datasets);
   const normalized = (predictions: number[][]) =>
     predictions.flatMap((values, d) => values.map((v) => v / (scales[d] as number)));
   const usesSimulator = datasets.some((dataset) => modelKindOf(dataset.use) === 'simulator');
+  const usesWaveform = datasets.some((dataset) => waveformProbeOf(dataset.use) !== null);
 
   const outcome = await fitParameters(
     fitParametersList,
@@ -107,7 +121,11 @@ export async function calibrateDesign(
       const answers = await predictor(valueSets.map((values) => applyParameterValues(design, ids, values)));
       return answers.map((answer) => (answer ? normalized(answer) : null));
     },
-    { ...options, stepU: usesSimulator ? 1e-2 : 1e-3 },
+    {
+      ...options,
+      stepU: usesSimulator ? 1e-2 : 1e-3,
+      ...(usesWaveform ? { startPoints: WAVEFORM_START_POINTS_PER_PARAMETER * chosen.length } : {}),
+    },
   );
 
   const residuals = target.map((y, i) => y - (outcome.prediction[i] as number));
@@ -168,7 +186,7 @@ export async function calibrateDesign(
     const before = outcome.initialPrediction.slice(offset, offset + n).map((v) => v * scale);
     const after = outcome.prediction.slice(offset, offset + n).map((v) => v * scale);
     offset += n;
-    const measured = dataset.points.map((point) => Math.abs(point.y));
+    const measured = dataset.points.map((point) => fittedValueOf(dataset.use, point.y));
     return {
       residual: {
         benchRunId: dataset.benchRunId,
@@ -183,7 +201,7 @@ export async function calibrateDesign(
         benchRunId: dataset.benchRunId,
         label: dataset.label,
         use: dataset.use,
-        x: dataset.points.map((point) => Math.abs(point.x)),
+        x: dataset.points.map((point) => (waveformProbeOf(dataset.use) ? point.x : Math.abs(point.x))),
         measuredV: measured,
         predictedV: before,
         calibratedV: after,

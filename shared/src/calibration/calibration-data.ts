@@ -1,7 +1,10 @@
 import type { BenchKind } from '../bench/bench.types';
 import type { Design } from '../designs/design.types';
 import { DomainError } from '../errors';
-import { loadSweepEstimate, START_UP_MAX_WINDOW_S } from './calibration-models';
+import { loadSweepEstimate, START_UP_MAX_WINDOW_S, waveformProbeOf } from './calibration-models';
+import { driverPeriodGuessS } from '../runs/driver-design-circuit';
+import { withEffectiveTransformer } from '../transformer/given-numbers';
+import { WAVEFORM_MAX_PERIODS, WAVEFORM_MIN_PERIODS } from './waveform-model';
 import type { CalibrationDataUse, CalibrationDataset } from './calibration.types';
 
 /** Fewest points of one run a fit reads: a curve needs a few points to show its shape. Common practice, no source. */
@@ -15,7 +18,7 @@ const UNIT_MISMATCH_FACTOR = 8;
 
 /** Which bench-run kinds can be read as which curve. */
 export function usesOfBenchKind(kind: BenchKind): CalibrationDataUse[] {
-  return kind === 'load-sweep' ? ['load-sweep'] : ['start-up', 'discharge'];
+  return kind === 'load-sweep' ? ['load-sweep'] : ['start-up', 'discharge', 'collector-waveform', 'secondary-waveform'];
 }
 
 function columns(use: CalibrationDataUse): { x: string; y: string } {
@@ -32,6 +35,23 @@ function median(values: readonly number[]): number {
 export function thinPoints<T>(points: readonly T[], limit = MAX_POINTS_PER_RUN): T[] {
   if (points.length <= limit) return [...points];
   return Array.from({ length: limit }, (_, i) => points[Math.round((i * (points.length - 1)) / (limit - 1))] as T);
+}
+
+/**
+ * A waveform capture spans WAVEFORM_MIN_PERIODS to WAVEFORM_MAX_PERIODS of the design's oscillation period
+ * (its guess); a span far outside says the time column's unit is wrong. The design needs a driver stage.
+ */
+function checkWaveformSpan(design: Design, spanS: number, fail: (message: string) => never): void {
+  const effective = withEffectiveTransformer(design);
+  if (effective.drive.kind !== 'driver') fail('a waveform fit needs a design with a driver stage');
+  else {
+    const periodS = driverPeriodGuessS(effective.drive.driver);
+    if (spanS < WAVEFORM_MIN_PERIODS * periodS || spanS > WAVEFORM_MAX_PERIODS * periodS) {
+      fail(
+        `the capture spans ${spanS.toPrecision(3)} s against an oscillation period near ${periodS.toPrecision(3)} s; a waveform fit reads ${WAVEFORM_MIN_PERIODS} to ${WAVEFORM_MAX_PERIODS} periods (check the time unit, or cut the capture to one cycle)`,
+      );
+    }
+  }
 }
 
 /**
@@ -83,6 +103,7 @@ export function checkCalibrationData(
       if (dataset.use === 'start-up' && (points[0] as { x: number }).x < 0) {
         fail(xColumn, 'time starts before 0; a start-up curve starts at the push-button (t = 0)');
       }
+      if (waveformProbeOf(dataset.use)) checkWaveformSpan(design, spanS, (message) => fail(xColumn, message));
       if (dataset.use === 'discharge') {
         const bleeder = design.outputNetwork.bleeder;
         const capacitanceF = design.multiplier.capacitors.reduce((sum, c) => sum + c.valueF, 0);

@@ -9,6 +9,7 @@ import { runDriverStartUp } from '../runs/driver-start-up';
 import { followLadderDischarge } from '../runs/ladder-runs';
 import { ladderPartFromDesign } from '../circuits/build-ladder-circuit';
 import type { CalibrationDataUse, CalibrationDataset, CalibrationModelKind } from './calibration.types';
+import { waveformSimulation, type WaveformProbe } from './waveform-model';
 
 /**
  * Which model predicts a kind of curve: the engine's estimate for load sweeps; the simulator for start-ups
@@ -167,6 +168,18 @@ export function dischargeSimulation(
   return shape.map((s) => scale * s);
 }
 
+/** The probe of a waveform use, or null for a curve of the output. */
+export function waveformProbeOf(use: CalibrationDataUse): WaveformProbe | null {
+  if (use === 'collector-waveform') return 'collector';
+  if (use === 'secondary-waveform') return 'secondary';
+  return null;
+}
+
+/** A measured value as the fit compares it: a waveform's signed voltage, else the output's magnitude. */
+export function fittedValueOf(use: CalibrationDataUse, y: number): number {
+  return waveformProbeOf(use) ? y : Math.abs(y);
+}
+
 /** The prediction of one dataset for a design, by its model. */
 export function predictDataset(
   design: Design,
@@ -175,6 +188,19 @@ export function predictDataset(
 ): number[] {
   const xs = dataset.points.map((point) => Math.abs(point.x));
   if (dataset.use === 'load-sweep') return loadSweepEstimate(design, xs);
+  const probe = waveformProbeOf(dataset.use);
+  if (probe) {
+    return waveformSimulation(
+      design,
+      probe,
+      dataset.points.map((point) => point.x),
+      dataset.points.map((point) => point.y),
+      {
+        relativeTolerance: options.relativeTolerance ?? START_UP_RELATIVE_TOLERANCE,
+        ...(options.shouldCancel ? { shouldCancel: options.shouldCancel } : {}),
+      },
+    );
+  }
   if (dataset.use === 'discharge') {
     return dischargeSimulation(
       design,

@@ -14,8 +14,12 @@ export type CalibrationParameterId =
   | 'capacitanceScale'
   | 'bleederResistance';
 
-/** How a bench run is read for a fit: which curve it is and which model predicts it. */
-export type CalibrationDataUse = 'load-sweep' | 'start-up' | 'discharge';
+/**
+ * How a bench run is read for a fit: which curve it is and which model predicts it. The waveforms are scope
+ * captures in steady state of the collector or of the secondary's dot end, each to ground, fitted sample by
+ * sample after alignment in time (`waveform-model.ts`).
+ */
+export type CalibrationDataUse = 'load-sweep' | 'start-up' | 'discharge' | 'collector-waveform' | 'secondary-waveform';
 
 /** Where a curve's prediction comes from: the engine's instant estimate or the circuit simulator. */
 export type CalibrationModelKind = 'estimate' | 'simulator';
@@ -32,7 +36,10 @@ export interface ChosenParameter {
   prior: PriorRange;
 }
 
-/** One bench run's data as the fit reads it: SI units, x = load current (A) or time (s), y = output (V). */
+/**
+ * One bench run's data as the fit reads it: SI units, x = load current (A) or time (s), y = output (V, read
+ * as a magnitude) or, for a waveform, the probe's voltage (V, signed).
+ */
 export interface CalibrationDataset {
   benchRunId: string;
   /** The run's title (or a short label) to name it in errors and tables. */

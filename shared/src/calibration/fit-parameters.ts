@@ -17,7 +17,40 @@ export interface FitParameter {
  */
 export type BatchModel = (valueSets: number[][]) => Promise<(number[] | null)[]>;
 
+/** The first primes: the bases of the Halton sequence's coordinates. */
+const HALTON_BASES = [2, 3, 5, 7, 11, 13, 17, 19, 23, 29, 31, 37];
+
+/** Radical inverse of k in `base` (the Halton sequence's coordinate). */
+function radicalInverse(k: number, base: number): number {
+  let result = 0;
+  let fraction = 1 / base;
+  for (let i = k; i > 0; i = Math.floor(i / base)) {
+    result += (i % base) * fraction;
+    fraction /= base;
+  }
+  return result;
+}
+
+/**
+ * `count` points spread over the unit cube [0, 1]^p: for one parameter an even grid with half-cells at the
+ * ends, else the Halton sequence from its first point (a low-discrepancy set, deterministic; Halton 1960,
+ * from memory).
+ */
+export function startPoints(p: number, count: number): number[][] {
+  if (count <= 0) return [];
+  if (p === 1) return Array.from({ length: count }, (_, k) => [(k + 0.5) / count]);
+  return Array.from({ length: count }, (_, k) =>
+    Array.from({ length: p }, (_, j) => radicalInverse(k + 1, HALTON_BASES[j % HALTON_BASES.length] as number)),
+  );
+}
+
 export interface FitOptions {
+  /**
+   * Points over the prior ranges evaluated with the design's own values, in one batch, before the first
+   * step; the fit starts from the best of them (default none). For a cost with several valleys, such as a
+   * waveform's samples, where a local fit from the design's values can stop in the wrong one.
+   */
+  startPoints?: number;
   maxIterations?: number;
   /** Finite-difference step in u (default 1e-3; a simulator's answer needs a larger one, e.g. 1e-2). */
   stepU?: number;
@@ -30,7 +63,7 @@ export interface FitOptions {
 export interface FitOutcome {
   values: number[];
   u: number[];
-  /** m × p, ∂prediction/∂u at the optimum. */
+  /** m × p, ∂prediction/∂u at the optimum (central differences where the bounds allow). */
   jacobian: number[][];
   initialPrediction: number[];
   prediction: number[];
@@ -65,7 +98,8 @@ function cost(target: readonly number[], prediction: readonly number[] | null): 
  * bounds), taken one iteration at a time with the Jacobian we hand it: our loop evaluates the Jacobian's
  * columns as one batch (in parallel where the model allows), accepts a step only when it lowers the cost
  * and otherwise raises the damping (×11, down ×9 on success, the package's factors). Coordinates are
- * u ∈ [0, 1] over each prior range, so the bounds are the prior ranges.
+ * u ∈ [0, 1] over each prior range, so the bounds are the prior ranges. With `startPoints` the first step
+ * starts from the best of those points and the design's values; the cost "before" stays the design's.
  */
 export async function fitParameters(
   parameters: readonly FitParameter[],
@@ -88,7 +122,8 @@ export async function fitParameters(
   };
 
   let u = parameters.map((parameter) => Math.min(1, Math.max(0, toU(parameter, parameter.initialValue))));
-  const [first] = await evaluate([u]);
+  const starts = startPoints(p, options.startPoints ?? 0);
+  const [first, ...others] = await evaluate([u, ...starts]);
   if (!first) {
     throw new DomainError(
       'not_converged',
@@ -100,6 +135,14 @@ export async function fitParameters(
   const initialPrediction = first;
   const costBefore = cost(target, first);
   let currentCost = costBefore;
+  others.forEach((answer, k) => {
+    const startCost = cost(target, answer);
+    if (answer && startCost < currentCost) {
+      u = starts[k] as number[];
+      prediction = answer;
+      currentCost = startCost;
+    }
+  });
 
   const jacobianAt = async (at: number[], atPrediction: number[]): Promise<number[][]> => {
     const steps = at.map((uj) => (uj + stepU <= 1 ? stepU : -stepU));
@@ -140,20 +183,45 @@ export async function fitParameters(
     return proposal;
   };
 
-  let jacobian = await jacobianAt(u, prediction);
-  let jacobianIsCurrent = true;
+  /**
+   * The Jacobian the statistics read, at the optimum: central differences (u ± step) where both lie in
+   * [0, 1], so that the curvature over the step does not bias the slopes (a forward difference's error is
+   * of the step's order, a central one's of its square); else the one-sided column as above.
+   */
+  const centralJacobianAt = async (at: number[], atPrediction: number[]): Promise<number[][]> => {
+    const twoSided = at.map((uj) => uj - stepU >= 0 && uj + stepU <= 1);
+    const columns = twoSided.flatMap((both, j) => (both ? [j] : []));
+    if (columns.length === 0) return jacobianAt(at, atPrediction);
+    const shift = (j: number, h: number) => at.map((ui, k) => (k === j ? ui + h : ui));
+    const answers = await evaluate(columns.flatMap((j) => [shift(j, stepU), shift(j, -stepU)]));
+    const oneSided = twoSided.some((both) => !both) ? await jacobianAt(at, atPrediction) : null;
+    const central = new Map<number, number[]>();
+    columns.forEach((j, c) => {
+      const up = answers[2 * c];
+      const down = answers[2 * c + 1];
+      if (up && down)
+        central.set(
+          j,
+          up.map((v, i) => (v - (down[i] as number)) / (2 * stepU)),
+        );
+    });
+    const fallback = central.size < columns.length && !oneSided ? await jacobianAt(at, atPrediction) : oneSided;
+    return Array.from({ length: m }, (_, i) =>
+      at.map((_, j) => central.get(j)?.[i] ?? (((fallback as number[][])[i] as number[])[j] as number)),
+    );
+  };
+
+  // The Jacobian at the first u; null once a step has moved u (each iteration then computes its own).
+  let jacobian: number[][] | null = await jacobianAt(u, prediction);
   let damping = 1e-2;
   let iterations = 0;
   let isConverged = false;
   while (iterations < maxIterations) {
     iterations += 1;
-    if (!jacobianIsCurrent) {
-      jacobian = await jacobianAt(u, prediction);
-      jacobianIsCurrent = true;
-    }
+    const current: number[][] = jacobian ?? (await jacobianAt(u, prediction));
     let accepted: { u: number[]; prediction: number[]; cost: number } | null = null;
     for (let attempt = 0; attempt < 8 && !accepted; attempt += 1) {
-      const proposal = propose(jacobian, damping);
+      const proposal = propose(current, damping);
       if (!proposal || proposal.every((v, j) => Math.abs(v - (u[j] as number)) < 1e-10)) break;
       const [answer] = await evaluate([proposal]);
       const proposalCost = cost(target, answer ?? null);
@@ -173,18 +241,18 @@ export async function fitParameters(
     u = accepted.u;
     prediction = accepted.prediction;
     currentCost = accepted.cost;
-    jacobianIsCurrent = false;
+    jacobian = null;
     if (improvement < tolerance) {
       isConverged = true;
       break;
     }
   }
-  if (!jacobianIsCurrent) jacobian = await jacobianAt(u, prediction);
+  const finalJacobian = await centralJacobianAt(u, prediction);
   options.onProgress?.(1);
   return {
     values: valuesOf(u),
     u,
-    jacobian,
+    jacobian: finalJacobian,
     initialPrediction,
     prediction,
     costBefore,

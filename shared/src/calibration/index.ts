@@ -29,12 +29,23 @@ export {
 } from './calibration-data';
 export {
   dischargeSimulation,
+  fittedValueOf,
   loadSweepEstimate,
   modelKindOf,
   predictDataset,
   START_UP_MAX_WINDOW_S,
   startUpSimulation,
+  waveformProbeOf,
 } from './calibration-models';
+export {
+  alignedWaveform,
+  simulatedWaveform,
+  WAVEFORM_MAX_PERIODS,
+  WAVEFORM_MIN_PERIODS,
+  WAVEFORM_SETTLE_PERIODS,
+  waveformSimulation,
+} from './waveform-model';
+export type { WaveformProbe } from './waveform-model';
 export type { SimulatorRunOptions } from './calibration-models';
 export { fitParameters, toU, toValue } from './fit-parameters';
 export type { BatchModel, FitOptions, FitOutcome, FitParameter } from './fit-parameters';

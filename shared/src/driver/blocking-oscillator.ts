@@ -27,6 +27,31 @@ function est(value: number, m: MethodInfo): Estimated {
   return { value, method: m };
 }
 
+/** The stage's numbers at the voltage supplyResidualV was last called with (null where it does not run). */
+const lastResidual: { state: OscillatorNumbers | null } = { state: null };
+
+/**
+ * h(V) = V − Voc + R_s·I_in(V) at one terminal voltage (V), keeping the stage's numbers there in
+ * `lastResidual`; below its turn-on voltage the stage draws nothing. A function of the module, not a
+ * closure per solve: the driver's operating point solves the supply some hundred times per design.
+ */
+function supplyResidualV(
+  driver: DriverStage,
+  options: BlockingOscillatorOptions,
+  v: number,
+  voc: number,
+  resistanceOhm: number,
+): number {
+  try {
+    lastResidual.state = stageAt(driver, options, v, voc, resistanceOhm);
+    return v - voc + resistanceOhm * lastResidual.state.inputA;
+  } catch (error) {
+    lastResidual.state = null;
+    if (error instanceof DomainError && error.message.startsWith('the supply is too low')) return v - voc;
+    throw error;
+  }
+}
+
 /**
  * The blocking oscillator's estimate as plain numbers (SI units), the loaded supply voltage solved by a
  * safeguarded Newton (secant) iteration on h(V) = V − Voc + R_s·I_in(V) (first slope by a forward difference,
@@ -42,24 +67,12 @@ export function blockingOscillatorNumbers(
   const { openCircuitV, resistanceOhm } = supplyThevenin(driver.supply, options.chargeFraction ?? 1);
   if (!(resistanceOhm > 0)) return stageAt(driver, options, openCircuitV, openCircuitV, 0);
   const voc = openCircuitV;
-  // h(V) at one voltage, keeping the stage's numbers there; below its turn-on voltage the stage draws nothing.
-  let state: OscillatorNumbers | null = null;
-  const h = (v: number): number => {
-    try {
-      state = stageAt(driver, options, v, voc, resistanceOhm);
-      return v - voc + resistanceOhm * state.inputA;
-    } catch (error) {
-      state = null;
-      if (error instanceof DomainError && error.message.startsWith('the supply is too low')) return v - voc;
-      throw error;
-    }
-  };
   let lo = 0;
   let hi = voc;
   const guess = options.supplyVoltageGuessV;
   let v = guess !== undefined && guess > 0 && guess <= voc ? guess : voc;
   const tolV = 1e-10 * voc;
-  let hv = h(v);
+  let hv = supplyResidualV(driver, options, v, voc, resistanceOhm);
   // The first slope by a forward difference, then secant steps from the last two points, each kept inside
   // the bracket [lo, hi] of the root (a bisection otherwise).
   let prevV = NaN;
@@ -73,21 +86,21 @@ export function blockingOscillatorNumbers(
       slope = (hv - prevH) / (v - prevV);
     } else if (Number.isNaN(slope)) {
       const dv = Math.max(1e-7 * voc, 4 * tolV) * (v - lo > hi - v ? -1 : 1);
-      slope = (h(v + dv) - hv) / dv;
+      slope = (supplyResidualV(driver, options, v + dv, voc, resistanceOhm) - hv) / dv;
     }
     let next = v - hv / slope;
     if (!Number.isFinite(next) || next <= lo || next >= hi) next = 0.5 * (lo + hi);
     prevV = v;
     prevH = hv;
     v = next;
-    hv = h(v);
+    hv = supplyResidualV(driver, options, v, voc, resistanceOhm);
   }
   // A weak supply has no root where the stage runs: the iteration then closes on the turn-on voltage,
   // where h jumps from below zero (the stage off) to above it.
   if (Math.abs(hv) > 1e-6 * voc) {
     throw new DomainError('invalid_design', 'the supply resistance is too high for the drawn current', 'driver.supply');
   }
-  const solved: OscillatorNumbers = state ?? stageAt(driver, options, v, voc, resistanceOhm);
+  const solved: OscillatorNumbers = lastResidual.state ?? stageAt(driver, options, v, voc, resistanceOhm);
   if (Number.isFinite(slope)) solved.supplySlope = slope;
   return solved;
 }

@@ -7,6 +7,8 @@ import { bracketedRoot } from '../multiplier/bracketed-root';
 import { blockingOscillatorNumbers } from './blocking-oscillator';
 import { engineLadderLoadLine } from './ladder-load-line';
 import { forwardPeakFor, forwardShareOf } from './ring-back';
+import { batteryLife, cellCurveOf } from './battery';
+import { runDriverChecks } from './driver-checks';
 import {
   driverOperatingPoint,
   solveLoadPoint,
@@ -92,6 +94,31 @@ describe.each(Object.entries(designs))('warm-started driver solves: %s', (_, des
       expectClose(near.supplyCurrentA, supplyCurrentAt(bench, ladder, 20e-6));
     }
   });
+
+  it.skipIf(stage.supply.kind !== 'cells')(
+    'give the battery life the cold solves give at the table’s supply voltages',
+    () => {
+      const supply = stage.supply;
+      if (supply.kind !== 'cells') throw new Error('a cells supply');
+      const got = runDriverChecks(stage, { ladder, ratedLoadCurrentA: 20e-6 }).batteryLife!.lifeS.value;
+      // The same table (8 voltages from 0.8 of the end voltage to 1.05 of the full cell, linear between them),
+      // each supply current from a cold solve.
+      const highV = 1.05 * supply.cellsInSeries * Math.max(...cellCurveOf(supply).map((p) => p.voltageV));
+      const lowV = 0.8 * supply.cellsInSeries * supply.endVoltagePerCellV;
+      const table = Array.from({ length: 8 }, (_, k) => {
+        const v = lowV + ((highV - lowV) * k) / 7;
+        const bench: DriverStage = { ...stage, supply: { kind: 'dc', voltageV: v, sourceResistanceOhm: 0 } };
+        return { v, i: supplyCurrentAt(bench, ladder, 20e-6) };
+      });
+      const currentAt = (v: number) => {
+        const k = table.findIndex((p) => p.v >= v);
+        if (k <= 0) return k === 0 ? table[0]!.i : table[7]!.i;
+        const [a, b] = [table[k - 1]!, table[k]!];
+        return a.i + ((b.i - a.i) * (v - a.v)) / (b.v - a.v);
+      };
+      expectClose(got, batteryLife(supply, currentAt).lifeS.value);
+    },
+  );
 
   it('give a ladder load line’s output from its last current as a fresh line does', () => {
     const fresh = () => engineLadderLoadLine(ladderInputOf(design, drive, currentLimitA));

@@ -68,8 +68,22 @@ describe('fitParameters and fitStatistics on a straight line', () => {
     const residuals = ys.map((y, i) => y - outcome.prediction[i]!);
     const statistics = fitStatistics(outcome.jacobian, residuals, 2, 0.95);
     // Standard errors come out in u (20 units per u over the prior −10..10).
-    expect(statistics.standardErrors[1]! * 20).toBeCloseTo(sigma / Math.sqrt(sxx), 6);
-    expect(statistics.standardErrors[0]! * 20).toBeCloseTo(sigma * Math.sqrt(1 / n + xBar ** 2 / sxx), 6);
+    expect(statistics.classicalStandardErrors[1]! * 20).toBeCloseTo(sigma / Math.sqrt(sxx), 6);
+    expect(statistics.classicalStandardErrors[0]! * 20).toBeCloseTo(sigma * Math.sqrt(1 / n + xBar ** 2 / sxx), 6);
+    // HC3 of the slope of a straight line: Σ (xᵢ − x̄)²·eᵢ²/(1 − hᵢᵢ)² / Sxx², leverage hᵢᵢ = 1/n + (xᵢ − x̄)²/Sxx
+    // (MacKinnon & White 1985; Long & Ervin, The American Statistician 54 (2000) 217; from memory).
+    const hc3Slope = Math.sqrt(
+      xs.reduce((sum, x, i) => {
+        const leverage = 1 / n + (x - xBar) ** 2 / sxx;
+        return sum + ((x - xBar) ** 2 * (ys[i]! - a - b * x) ** 2) / (1 - leverage) ** 2;
+      }, 0) /
+        sxx ** 2,
+    );
+    expect(statistics.robustStandardErrors[1]! * 20).toBeCloseTo(hc3Slope, 6);
+    // An interval uses the wider of the two.
+    expect(statistics.standardErrors[1]).toBe(
+      Math.max(statistics.classicalStandardErrors[1]!, statistics.robustStandardErrors[1]!),
+    );
     expect(statistics.degreesOfFreedom).toBe(6);
     expect(statistics.correlatedPairs).toEqual([]);
   });

@@ -5,7 +5,12 @@ import type { Design } from '../../src/designs/design.types';
 import { toSpiceNetlist } from '../../src/sim/to-spice-netlist';
 import { windowMean } from '../../src/sim/waveform-measures';
 import type { MeasuredPoint } from '../../src/bench/bench.types';
-import { driverDesignCircuit, driverPeriodGuessS } from '../../src/runs/driver-design-circuit';
+import {
+  driverDesignCircuit,
+  driverPeriodGuessS,
+  engineCapacitorVoltagesV,
+} from '../../src/runs/driver-design-circuit';
+import { WAVEFORM_SETTLE_PERIODS, type WaveformProbe } from '../../src/calibration/waveform-model';
 import { TurnOnTrigger } from '../../src/sim/turn-on-events';
 import { runNgspice } from '../ngspice/run-ngspice';
 
@@ -181,4 +186,49 @@ export async function ngspiceStartUp(design: Design, periods: number, count: num
     const t1 = cycleEndS[j + 1]!;
     return { x, y: cycleMeanV[j]! + ((cycleMeanV[j + 1]! - cycleMeanV[j]!) * (x - t0)) / (t1 - t0) };
   });
+}
+
+/** Linear interpolation of a recorded trace at t (sorted times). */
+function traceAt(timeS: ArrayLike<number>, values: ArrayLike<number>, t: number): number {
+  let i = 0;
+  while (i < timeS.length - 2 && timeS[i + 1]! < t) i += 1;
+  const t0 = timeS[i]!;
+  const t1 = timeS[i + 1]!;
+  return t1 > t0 ? values[i]! + ((values[i + 1]! - values[i]!) * (t - t0)) / (t1 - t0) : values[i]!;
+}
+
+/**
+ * A scope capture of a driver design in steady state by ngspice (reltol 1e-5, the exported netlist): the
+ * ladder starts at the engine's steady-state voltages, the run settles WAVEFORM_SETTLE_PERIODS of the
+ * design's period guess, and the capture begins `delayS` later (where the scope happened to trigger) and
+ * spans `spanS` in `count` samples, the scope's time axis centred on the capture (x from −span/2).
+ */
+export async function ngspiceWaveform(
+  design: Design,
+  probe: WaveformProbe,
+  spanS: number,
+  count: number,
+  delayS: number,
+): Promise<MeasuredPoint[]> {
+  if (design.drive.kind !== 'driver') throw new Error('a waveform needs a driver design');
+  const periodS = driverPeriodGuessS(design.drive.driver);
+  const circuit = driverDesignCircuit(design, engineCapacitorVoltagesV(design));
+  const fromS = WAVEFORM_SETTLE_PERIODS * periodS + delayS;
+  const netlist = toSpiceNetlist(circuit, {
+    transient: { stopTimeS: fromS + spanS, maxStepS: periodS / 200, startFrom: 'element-initial-conditions' },
+    extraLines: ['.options reltol=1e-5'],
+  });
+  const signal = probe === 'collector' ? 'v(col)' : 'v(s)';
+  const trace = await runNgspice(netlist, [signal]);
+  return Array.from({ length: count }, (_, k) => {
+    const offsetS = (k * spanS) / (count - 1);
+    return { x: offsetS - spanS / 2, y: traceAt(trace.timeS, trace.signals[signal]!, fromS + offsetS) };
+  });
+}
+
+/** Points with Gaussian noise of `sigma` times the largest |y| (a scope's noise is a share of its range). */
+export function withRangeNoise(points: readonly MeasuredPoint[], sigma: number, seed: number): MeasuredPoint[] {
+  const normal = gaussian(seed);
+  const range = Math.max(...points.map((p) => Math.abs(p.y)));
+  return points.map((p) => ({ x: p.x, y: p.y + sigma * range * normal() }));
 }

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import type { Design } from '../../src/designs/design.types';
 import { driverFiguresBoth, driverMismatches, supply, threeCells } from './driver-comparison';
 import { hasNgspice } from './run-ngspice';
 
@@ -37,9 +38,16 @@ const supplies = [
       threeCells(design);
     }),
   ),
-  supply('3 V cells, saturation-limited core (20 mA)', (d) => {
-    d.transformer.saturationCurrentA = 0.02;
-  }),
+  // Two competing modes: both simulators run irregular ~128 kHz cycles over the short window (within 1 %), then
+  // ngspice moves to a ~150 kHz mode after ~40 periods while ours stays at ~128 kHz (at reltol 1e-4 and 1e-5;
+  // at 1e-3 ours moves to ~158 kHz too): which mode the run falls into hangs on local truncation errors, so the
+  // long window of irregular designs would compare one mode with the other. Read over the short window.
+  {
+    ...supply('3 V cells, saturation-limited core (20 mA)', (d) => {
+      d.transformer.saturationCurrentA = 0.02;
+    }),
+    keepShortWindow: true,
+  },
   supply('3 V cells, 1 Ω collector resistor', (d) => {
     d.collectorResistorOhm = 1;
   }),
@@ -63,8 +71,8 @@ const supplies = [
 describe.skipIf(!hasNgspice())('blocking-oscillator supplies against ngspice on the exported netlist', () => {
   it.concurrent.each(supplies)(
     '$name: frequency within 3 %, output mean within 1 %, efficiency within 2 points, primary peak within 5 %',
-    async ({ design }) => {
-      const { ours, spice } = await driverFiguresBoth(design);
+    async ({ design, keepShortWindow }: { design: Design; keepShortWindow?: boolean }) => {
+      const { ours, spice } = await driverFiguresBoth(design, { keepShortWindow });
       // The bounds; both integrate the same equations from the same state.
       expect(driverMismatches(ours, spice)).toEqual([]);
     },

@@ -22,7 +22,13 @@ import {
 } from '@ladderwright/shared/calibration';
 
 const PARAMETER_IDS = uncertainParameters.map((parameter) => parameter.id);
-const USES: readonly CalibrationDataUse[] = ['load-sweep', 'start-up', 'discharge'];
+const USES: readonly CalibrationDataUse[] = [
+  'load-sweep',
+  'start-up',
+  'discharge',
+  'collector-waveform',
+  'secondary-waveform',
+];
 /** Most parameters one calibration fits: each adds a model evaluation per step. */
 export const MAX_CALIBRATION_PARAMETERS = 6;
 

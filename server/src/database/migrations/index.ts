@@ -13,6 +13,7 @@ import { magneticsParts } from './0011-magnetics-parts';
 import { calibrations } from './0012-calibrations';
 import { memberRequests } from './0013-member-requests';
 import { simulationBatches } from './0014-simulation-batches';
+import { calibrationEvaluations } from './0015-calibration-evaluations';
 
 /** Every schema step in order. Add new steps at the end. */
 export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
@@ -30,4 +31,5 @@ export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
   calibrations,
   memberRequests,
   simulationBatches,
+  calibrationEvaluations,
 ];

@@ -115,18 +115,25 @@ interface EditableRevisionProps {
 }
 
 /**
- * Keeps `--lw-summary-height` on the layout at the Results summary's height, so that a form section scrolled to
- * in the stacked layout stops below the sticky summary instead of under it (no render on a resize).
+ * Keeps two measures on the layout as CSS variables, without a render: `--lw-summary-height`, the Results summary's
+ * height, so that a form section scrolled to in the stacked layout stops below the sticky summary instead of under
+ * it; and `--lw-layout-top`, where the layout starts on the page, so that the side-by-side columns end at the foot of
+ * the window and each scrolls on its own without the page scrolling first.
  */
-function useSummaryHeightVar(layoutRef: RefObject<HTMLElement | null>, summaryRef: RefObject<HTMLElement | null>) {
+function useLayoutMeasures(layoutRef: RefObject<HTMLElement | null>, summaryRef: RefObject<HTMLElement | null>) {
   useEffect(() => {
     const layout = layoutRef.current;
     const summary = summaryRef.current;
     if (!layout || !summary || typeof ResizeObserver === 'undefined') return;
-    const observer = new ResizeObserver(() =>
-      layout.style.setProperty('--lw-summary-height', `${Math.ceil(summary.getBoundingClientRect().height)}px`),
-    );
+    const measure = () => {
+      layout.style.setProperty('--lw-summary-height', `${Math.ceil(summary.getBoundingClientRect().height)}px`);
+      const top = layout.getBoundingClientRect().top + window.scrollY;
+      layout.style.setProperty('--lw-layout-top', `${Math.ceil(top)}px`);
+    };
+    const observer = new ResizeObserver(measure);
     observer.observe(summary);
+    // What sits above the layout (title, alerts) changes the page around it.
+    if (layout.parentElement) observer.observe(layout.parentElement);
     return () => observer.disconnect();
   }, [layoutRef, summaryRef]);
 }
@@ -194,7 +201,7 @@ function EditableRevision({
 
   const layoutRef = useRef<HTMLDivElement>(null);
   const summaryRef = useRef<HTMLElement>(null);
-  useSummaryHeightVar(layoutRef, summaryRef);
+  useLayoutMeasures(layoutRef, summaryRef);
 
   // The header is memoized: Save reaches the latest submit through a ref, so its handler keeps its identity.
   const submitRef = useRef(submit);

@@ -5,6 +5,7 @@ import { AUDIT_ACTIONS, type AuditAction, type AuditQuery } from '@ladderwright/
 import { apiPaths } from '../../../config/paths';
 import { searchString } from '../../../lib/search-string';
 import { useAuditEntries } from '../api/get-audit-entries';
+import { formatDateTime } from '../../../lib/format-date';
 
 const PAGE_SIZE = 50;
 
@@ -99,7 +100,7 @@ export function AuditLogPanel() {
           <Table.Tbody>
             {entries.data?.items.map((entry) => (
               <Table.Tr key={entry.id}>
-                <Table.Td>{new Date(entry.occurredAt).toLocaleString()}</Table.Td>
+                <Table.Td>{formatDateTime(entry.occurredAt)}</Table.Td>
                 <Table.Td>
                   <Code>{entry.action}</Code>
                 </Table.Td>

@@ -1,6 +1,7 @@
 import { Alert, Button, Code, CopyButton, Group, Modal, Stack, Text } from '@mantine/core';
 import type { UserSummary } from '@ladderwright/shared/api';
 import { useCreateResetLink } from '../api/create-reset-link';
+import { formatDateTime } from '../../../lib/format-date';
 
 /**
  * Issues a one-time password-reset link for an account: shown here once (copy it and pass it on) or mailed to
@@ -41,7 +42,7 @@ export function ResetLinkModal({ user, onClose }: { user: UserSummary; onClose: 
         {link?.url && (
           <Stack gap="xs">
             <Text size="sm" fw={600}>
-              One-time link (shown only now; valid until {new Date(link.expiresAt).toLocaleString()}):
+              One-time link (shown only now; valid until {formatDateTime(link.expiresAt)}):
             </Text>
             <Code block aria-label="One-time link">
               {link.url}
@@ -57,7 +58,7 @@ export function ResetLinkModal({ user, onClose }: { user: UserSummary; onClose: 
         )}
         {link?.mailedTo && (
           <Alert color="verdigris">
-            Mailed to {link.mailedTo}; valid until {new Date(link.expiresAt).toLocaleString()}.
+            Mailed to {link.mailedTo}; valid until {formatDateTime(link.expiresAt)}.
           </Alert>
         )}
         <Group justify="flex-end">

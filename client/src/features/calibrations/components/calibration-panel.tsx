@@ -45,6 +45,8 @@ const USES: Record<BenchKind, { value: CalibrationDataUse; label: string }[]> = 
   'scope-capture': [
     { value: 'start-up', label: 'start-up (simulator)' },
     { value: 'discharge', label: 'discharge (simulator)' },
+    { value: 'collector-waveform', label: 'collector waveform, one cycle (simulator)' },
+    { value: 'secondary-waveform', label: 'secondary waveform, one cycle (simulator)' },
   ],
 };
 

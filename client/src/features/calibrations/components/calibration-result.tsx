@@ -21,6 +21,8 @@ const USE_WORDS: Record<CalibrationCurve['use'], string> = {
   'load-sweep': 'load sweep',
   'start-up': 'start-up',
   discharge: 'discharge',
+  'collector-waveform': 'collector waveform',
+  'secondary-waveform': 'secondary waveform',
 };
 
 /** Rows of an overlay: measured points, the design's prediction and the calibrated model's, by x. */

@@ -51,7 +51,7 @@ export function SignOffPanel({ signOff }: { signOff: SignOff }) {
                 <Text span fw={600} size="sm">
                   override on {override.command}
                 </Text>{' '}
-                by {override.actorName ?? 'unknown'} on {new Date(override.at).toLocaleString()}: “{override.reason}”
+                by {override.actorName ?? 'unknown'} on {formatDateTime(override.at)}: “{override.reason}”
                 <Text size="xs" c="dimmed">
                   Past: {override.overridden.map((reason) => reason.message).join('; ')}
                 </Text>

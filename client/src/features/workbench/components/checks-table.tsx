@@ -31,7 +31,7 @@ export function ChecksTable({ checks }: ChecksTableProps) {
           {counts.fail} fail · {counts.marginal} marginal · {counts.pass} pass
         </Text>
       </Group>
-      <Table.ScrollContainer minWidth={640}>
+      <Table.ScrollContainer minWidth={520}>
         <Table verticalSpacing={6} aria-label="Checks" striped>
           <Table.Thead>
             <Table.Tr>

@@ -1,0 +1,129 @@
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { QueryTypes } from 'sequelize';
+import request from 'supertest';
+import type { Calibration, DesignDetail } from '@ladderwright/shared/api';
+import { applyParameterValues, startUpSimulation } from '@ladderwright/shared/calibration';
+import { RevisionModel } from '../src/revisions/revision.model';
+import { CalibrationEvaluationsService } from '../src/simulations/calibration-evaluations.service';
+import { createDesign } from './factories/create-design';
+import { createProject, type TestProject } from './factories/create-project';
+import { createUser, type TestUser } from './factories/create-user';
+import { createTestApp, type TestApp } from './utils/create-test-app';
+import { SessionCookies } from './utils/sign-in';
+
+// Two app instances against one database, each with one simulation worker: a start-up calibration started
+// through the first runs its model runs on both instances' worker pools (rows of calibration_evaluations
+// claimed by each instance). The start-up curve is the simulator's own at gain 80 (the fit's numerics are
+// checked against ngspice in shared/test/calibration); here the spread, the cancel and the clean-up are
+// under test.
+describe('calibration model runs across app instances', () => {
+  let first: TestApp;
+  let second: TestApp;
+  let dataDir: string;
+  let engineer: TestUser;
+  let project: TestProject;
+  let design: DesignDetail;
+  let captureId = '';
+  const cookies = new SessionCookies();
+  const { as } = cookies;
+  const http = () => request(first.app.getHttpServer());
+  const revisionUrl = () => `/api/projects/${project.id}/designs/${design.id}/revisions/1`;
+
+  /** Instances seen in the model-run rows, polled until the calibration ends. */
+  async function waitWatchingInstances(id: string, timeoutMs: number): Promise<[Calibration, Set<string>]> {
+    const seen = new Set<string>();
+    const deadline = Date.now() + timeoutMs;
+    for (;;) {
+      const rows = await first.sequelize.query<{ instance_id: string }>(
+        'SELECT DISTINCT instance_id FROM calibration_evaluations WHERE instance_id IS NOT NULL',
+        { type: QueryTypes.SELECT },
+      );
+      for (const row of rows) seen.add(row.instance_id);
+      const response = await http().get(`${revisionUrl()}/calibrations/${id}`).set('Cookie', as(engineer));
+      const calibration = response.body as Calibration;
+      if (calibration.status !== 'queued' && calibration.status !== 'running') return [calibration, seen];
+      if (Date.now() > deadline) throw new Error(`calibration ${id} still ${calibration.status}`);
+      await new Promise((done) => setTimeout(done, 50));
+    }
+  }
+
+  async function openRows(): Promise<number> {
+    const [row] = await first.sequelize.query<{ count: string }>(
+      'SELECT count(*) AS count FROM calibration_evaluations',
+      { type: QueryTypes.SELECT },
+    );
+    return Number(row!.count);
+  }
+
+  beforeAll(async () => {
+    dataDir = mkdtempSync(join(tmpdir(), 'lw-calibration-instances-'));
+    first = await createTestApp({ env: { dataDir, simulationWorkers: 1 } });
+    second = await createTestApp({ env: { dataDir, simulationWorkers: 1 }, prepareDatabase: false });
+    engineer = await createUser(first, { role: 'engineer' });
+    project = await createProject([{ userId: engineer.id, role: 'engineer' }]);
+    design = await createDesign(first, project.id, engineer.id, {
+      from: { kind: 'template', templateId: 'surfaceChargeTester' },
+    });
+    await cookies.signIn(first, [engineer]);
+    const revision = await RevisionModel.findOne({ where: { designId: design.id, number: 1 } });
+    const document = revision!.document;
+    // The first 0.2 ms after the push-button: some six cycles of the tester's oscillator (about 31 µs each), so
+    // that a model run lasts long enough (a second or so) for the other instance's poll (0.5 s) to find runs
+    // of the same batch still waiting.
+    const times = Array.from({ length: 8 }, (_, i) => ((i + 1) * 0.2e-3) / 8);
+    const volts = startUpSimulation(applyParameterValues(document, ['transistorGain'], [80]), times);
+    const csv = `time (us),voltage (V)\n${times.map((t, i) => `${(t * 1e6).toFixed(4)},${volts[i]!.toFixed(4)}`).join('\n')}\n`;
+    const upload = await http()
+      .post(`${revisionUrl()}/bench-runs`)
+      .set('Cookie', as(engineer))
+      .field('kind', 'scope-capture')
+      .field('title', 'Push-button start')
+      .attach('data', Buffer.from(csv), { filename: 'start.csv', contentType: 'text/csv' });
+    expect(upload.status).toBe(201);
+    captureId = upload.body.id as string;
+  }, 180_000);
+  afterAll(async () => {
+    await second?.close();
+    await first?.close();
+    rmSync(dataDir, { recursive: true, force: true });
+  });
+
+  it("runs a start-up calibration's model runs on both instances' worker pools", async () => {
+    const start = await http()
+      .post(`${revisionUrl()}/calibrations`)
+      .set('Cookie', as(engineer))
+      .send({
+        parameters: [{ id: 'transistorGain' }, { id: 'cellInternalResistance' }],
+        runs: [{ benchRunId: captureId, use: 'start-up' }],
+      });
+    expect(start.status).toBe(202);
+    const [done, instances] = await waitWatchingInstances(start.body.id as string, 240_000);
+    expect(done.status).toBe('succeeded');
+    expect(done.result!.residuals[0]!.rmsAfterV).toBeLessThan(done.result!.residuals[0]!.rmsBeforeV);
+    expect([...instances].sort()).toEqual(
+      [first, second].map((app) => app.app.get(CalibrationEvaluationsService).instanceId).sort(),
+    );
+    expect(await openRows()).toBe(0);
+  }, 300_000);
+
+  it('cancels a calibration whose model runs are queued on both instances, leaving no model run behind', async () => {
+    const start = await http()
+      .post(`${revisionUrl()}/calibrations`)
+      .set('Cookie', as(engineer))
+      .send({ parameters: [{ id: 'couplingCoefficient' }], runs: [{ benchRunId: captureId, use: 'start-up' }] });
+    expect(start.status).toBe(202);
+    const deadline = Date.now() + 60_000;
+    while ((await openRows()) === 0 && Date.now() < deadline) await new Promise((done) => setTimeout(done, 50));
+    const cancelled = await http()
+      .post(`${revisionUrl()}/calibrations/${start.body.id}/cancel`)
+      .set('Cookie', as(engineer))
+      .send({});
+    expect(cancelled.body.status).toBe('cancelled');
+    const [later] = await waitWatchingInstances(start.body.id as string, 10_000);
+    expect(later.status).toBe('cancelled');
+    while ((await openRows()) > 0 && Date.now() < deadline) await new Promise((done) => setTimeout(done, 50));
+    expect(await openRows()).toBe(0);
+  }, 120_000);
+});
