@@ -6,6 +6,7 @@ import { randomBytes } from 'node:crypto';
 import { chmodSync, existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { SERVER_NODE_FLAGS } from './lib/run.mjs';
 
 const repoDir = resolve(dirname(fileURLToPath(import.meta.url)), '..');
 const dataDir = join(repoDir, '.data');
@@ -111,7 +112,7 @@ async function main() {
     SMTP_PORT: process.env.SMTP_PORT ?? '2525',
     PUBLIC_URL: process.env.PUBLIC_URL ?? url,
   };
-  const server = spawn(process.execPath, [join(repoDir, 'server', 'dist', 'main.js')], {
+  const server = spawn(process.execPath, [...SERVER_NODE_FLAGS, join(repoDir, 'server', 'dist', 'main.js')], {
     cwd: join(repoDir, 'server'),
     env,
     stdio: 'inherit',

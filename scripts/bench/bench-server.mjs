@@ -4,7 +4,7 @@ import { randomBytes } from 'node:crypto';
 import { existsSync } from 'node:fs';
 import { createServer } from 'node:net';
 import path from 'node:path';
-import { repoRoot, run } from '../lib/run.mjs';
+import { repoRoot, run, SERVER_NODE_FLAGS } from '../lib/run.mjs';
 
 const pgPort = process.env.LW_PG_PORT ?? '54329';
 
@@ -44,7 +44,7 @@ export async function startBenchServer({ database, clientDistDir = '/nonexistent
 
   const port = await freePort();
   const baseUrl = `http://127.0.0.1:${port}`;
-  const child = spawn(process.execPath, [serverMain], {
+  const child = spawn(process.execPath, [...SERVER_NODE_FLAGS, serverMain], {
     cwd: repoRoot,
     env: {
       ...process.env,

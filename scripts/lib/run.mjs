@@ -47,3 +47,10 @@ export async function ensureDebianPackages(wanted) {
     env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' },
   });
 }
+
+/**
+ * Node flags of the server process wherever a script starts it (npm start, the benchmarks). A 2 MiB semi-space
+ * for the request thread in place of V8's 16 MiB: a request leaves almost nothing alive (the engine runs on its
+ * own threads), so the young generation collects as well while keeping some 25 MiB less resident.
+ */
+export const SERVER_NODE_FLAGS = ['--max-semi-space-size=2'];

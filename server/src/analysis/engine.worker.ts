@@ -4,6 +4,10 @@ import { isDomainError } from '@ladderwright/shared/errors';
 import { ENGINE_VERSION } from '@ladderwright/shared/multiplier';
 import { analyzeWithShelf } from '@ladderwright/shared/parts';
 import type { EngineTask, EngineTaskOutcome, EngineWarmUp } from './engine-task.types';
+import { lowerThreadPriority } from '../common/workers/thread-priority';
+
+// Requests first: this thread yields the core to the request thread whenever both want it.
+lowerThreadPriority();
 
 /*
  * Worker-thread entry (piscina) of the engine: the steady-state analysis of one design runs here, off the

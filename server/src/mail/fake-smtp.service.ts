@@ -6,7 +6,8 @@ import { type FakeSmtpServer, startFakeSmtpServer } from './fake-smtp-server';
 
 /**
  * With SMTP_FAKE=1 (npm start, browser journeys) the server itself listens for SMTP on loopback in place
- * of a hosted mail service and stores every message it receives in `captured_mails` for the Outbox.
+ * of a hosted mail service and stores every message it receives in `captured_mails` for the Outbox. A further
+ * instance on the same machine finds the port taken and leaves the listening to the first.
  */
 @Injectable()
 export class FakeSmtpService implements OnApplicationBootstrap, OnApplicationShutdown {
@@ -20,13 +21,21 @@ export class FakeSmtpService implements OnApplicationBootstrap, OnApplicationShu
 
   async onApplicationBootstrap(): Promise<void> {
     if (!this.env.smtpFake || !this.env.smtpHost || !this.env.smtpPort) return;
-    this.server = await startFakeSmtpServer({
-      host: this.env.smtpHost,
-      port: this.env.smtpPort,
-      onMessage: async (mail) => {
-        await this.captured.create(mail);
-      },
-    });
+    try {
+      this.server = await startFakeSmtpServer({
+        host: this.env.smtpHost,
+        port: this.env.smtpPort,
+        onMessage: async (mail) => {
+          await this.captured.create(mail);
+        },
+      });
+    } catch (error) {
+      if ((error as NodeJS.ErrnoException).code !== 'EADDRINUSE') throw error;
+      // A second instance on this machine (npm start again with another PORT): the first one's listener takes this
+      // instance's mail too and stores it in the same database, so the Outbox still shows all of it.
+      this.logger.log(`fake SMTP already listening on ${this.env.smtpHost}:${this.env.smtpPort}; mail goes there`);
+      return;
+    }
     this.logger.log(`fake SMTP listening on ${this.env.smtpHost}:${this.server.port} (mail goes to the Outbox)`);
   }
 

@@ -13,6 +13,10 @@ import {
   type SimulationTask,
   type SimulationTaskOutcome,
 } from './simulation-task.types';
+import { lowerThreadPriority } from '../common/workers/thread-priority';
+
+// Requests first: this thread yields the core to the request thread whenever both want it.
+lowerThreadPriority();
 
 /*
  * Worker-thread entry (piscina). Everything here runs off the request thread; the main thread sees only

@@ -1,5 +1,6 @@
 import type { SimulatedFigures } from '../analysis';
 import type { Design } from '../designs';
+import type { SpreadStatistics } from '../sizing';
 
 /**
  * What a simulation job computes: the start-up from empty capacitors, the periodic steady state with its
@@ -169,16 +170,7 @@ export interface SimulationBatchMember {
 }
 
 /** Mean, sample standard deviation, extremes and nearest-rank percentiles of one figure over the succeeded members. */
-export interface SimulationBatchFigureSpread {
-  count: number;
-  mean: number;
-  sd: number;
-  min: number;
-  max: number;
-  p5: number;
-  p50: number;
-  p95: number;
-}
+export type SimulationBatchFigureSpread = Omit<SpreadStatistics, 'histogram'> & { count: number };
 
 /** GET /api/projects/:projectId/simulation-batches/:batchId answer. */
 export interface SimulationBatch {

@@ -33,6 +33,7 @@ function checkCount(count: number, field: string): void {
 
 /** A copy of `design` with the number at `path` replaced; 400 naming `field` when the path holds no number. */
 function withNumberAt(design: Design, path: string, value: number, field: string): Design {
+  // A design document is plain JSON, so its JSON text copies it whole.
   const copy = JSON.parse(JSON.stringify(design)) as Record<string | number, unknown>;
   const keys = pathKeys(path);
   let node: Record<string | number, unknown> = copy;

@@ -140,10 +140,16 @@ export function TransformerSizerPanel({ shelf, design, onApply, assess }: Transf
         },
         spacing,
       );
-      const rows = candidates.map((candidate): RankedRow => ({
-        candidate,
-        worsened: assess && candidate.refusal === null && candidate.section ? assess(candidate.section) : null,
-      }));
+      const assessed = (candidate: TransformerSizerCandidate): WorsenedCheck[] | null => {
+        if (!assess || candidate.refusal !== null || !candidate.section) return null;
+        try {
+          return assess(candidate.section);
+        } catch {
+          // A design the engine refuses on this section: the row says nothing rather than the ranking failing.
+          return null;
+        }
+      };
+      const rows = candidates.map((candidate): RankedRow => ({ candidate, worsened: assessed(candidate) }));
       // Stable: within each group the engine's order (loss, then core volume) stands.
       setRanked(rows.sort((a, b) => rowGroup(a) - rowGroup(b)));
     } catch (caught) {
