@@ -56,6 +56,7 @@ export interface LadderRunResult {
   startUpMethod: 'envelope-following' | 'transient';
   /** Drive periods simulated (an envelope-following start-up covers far more cycles of circuit time). */
   cyclesSimulated: number;
+  /** The periodic solution: shooting iterations, or with envelope following the envelope's points. */
   periodicSteadyState: { isConverged: boolean; iterations: number; relativeResidual: number } | null;
   /**
    * Whether outputMeanV is the settled value: true for a converged periodic steady state, else true only
