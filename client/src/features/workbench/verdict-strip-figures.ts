@@ -179,7 +179,7 @@ export function verdictStripFigures(
       key: 'efficiency',
       label: 'Driver efficiency',
       value: driver ? `${(driver.figures.efficiency.value * 100).toFixed(0)} %` : 'n/a',
-      target: driver ? 'none set' : 'no driver stage',
+      target: driver ? 'no target set' : 'no driver stage',
       verdict: null,
       margin: null,
       method: driver?.figures.efficiency.method ?? null,
@@ -193,7 +193,7 @@ export function verdictStripFigures(
           ? `≥ ${Number((battery.targetS / 3600).toPrecision(3))} h`
           : 'no target set'
         : driver
-          ? 'DC supply'
+          ? 'no battery (DC supply)'
           : 'no driver stage',
       ...judged(batteryVerdict),
       method: battery?.lifeS.method ?? null,

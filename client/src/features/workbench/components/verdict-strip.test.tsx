@@ -32,6 +32,15 @@ describe('VerdictStrip with a stored simulation', () => {
     expect(within(output).getByText(formatQuantity(report.outputMeanV, 'V'))).toBeInTheDocument();
   });
 
+  it('reads a target as "target …" and a missing one as a plain phrase', () => {
+    renderWithApp(<VerdictStrip report={report} targets={tester.targets} />);
+    expect(within(cell('Ripple (peak-to-peak)')).getByText(/^target ≤ /)).toBeInTheDocument();
+    // The demo tester sets no efficiency or battery-life target.
+    expect(within(cell('Driver efficiency')).getByText('no target set')).toBeInTheDocument();
+    expect(within(cell('Battery life')).getByText('no target set')).toBeInTheDocument();
+    expect(screen.queryByText(/target no /)).not.toBeInTheDocument();
+  });
+
   it('shows the simulated output, marks it, marks the rest as estimates and states a difference beyond tolerance', () => {
     // 10 % above the estimate: beyond the driver estimate's stated 5 % on the output (ESTIMATE_VALIDITY_BOUNDS).
     const simulatedV = report.outputMeanV * 1.1;

@@ -96,7 +96,7 @@ const FigureCell = memo(
           {figure.value}
         </Text>
         <Text size="xs" c="dimmed" lh={1.25} lineClamp={2} title={figure.target}>
-          {figure.key === 'worst' ? figure.target : `target ${figure.target}`}
+          {targetLine(figure)}
         </Text>
         {figure.verdict && (
           <Group gap={4} mt={2} wrap="wrap">
@@ -130,3 +130,8 @@ const FigureCell = memo(
   },
   (previous, next) => previous.simulationLabel === next.simulationLabel && sameFigure(previous.figure, next.figure),
 );
+
+/** "target ≤ 20 V" for a figure with a target; a phrase that says there is none ("no target set") as it is. */
+function targetLine(figure: StripFigure): string {
+  return figure.key === 'worst' || figure.target.startsWith('no ') ? figure.target : `target ${figure.target}`;
+}
