@@ -3,6 +3,7 @@ import { ActionIcon, Anchor, Badge, Button, Group, Text, TextInput, Title, Toolt
 import { Link } from 'react-router-dom';
 import type { RevisionDetail } from '@ladderwright/shared/api';
 import { paths } from '../../../config/paths';
+import { formatDateTime } from '../../../lib/format-date';
 import { RevisionStateBadge } from '../../../features/designs/components/revision-state-badge';
 import { NATIVE_UNDO_ATTRIBUTE } from '../../../features/workbench/hooks/use-design-draft';
 
@@ -81,7 +82,8 @@ export const WorkbenchHeader = memo(function WorkbenchHeader({
           </Anchor>
         </Group>
         <Text size="sm" c="dimmed">
-          {revision.changeNote || 'No change note'} · by {revision.authorName} · engine {revision.engineVersion}
+          {revision.changeNote ? `“${revision.changeNote}”` : 'No change note'} · by {revision.authorName},{' '}
+          {formatDateTime(revision.createdAt)} · engine {revision.engineVersion}
         </Text>
       </div>
       {isReadOnly ? (
