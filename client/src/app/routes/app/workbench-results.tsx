@@ -177,6 +177,7 @@ export function WorkbenchResults({
             safeVoltageV={draft.targets.safeVoltageV}
             isDriverDesign={draft.drive.kind === 'driver'}
             canStart={canSimulate}
+            hasStoredRun={!isDirty && headline?.source === 'simulation'}
           />
         </Tabs.Panel>
         <Tabs.Panel value="history" pt="sm">

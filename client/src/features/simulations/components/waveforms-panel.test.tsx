@@ -1,4 +1,4 @@
-import { fireEvent, screen, within } from '@testing-library/react';
+import { cleanup, fireEvent, screen, within } from '@testing-library/react';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import type { SimulationJob, SimulationSummary, WaveformTrace } from '@ladderwright/shared/api';
 import { jsonResponse, renderWithApp } from '../../../testing/render';
@@ -220,6 +220,25 @@ describe('WaveformsPanel', () => {
     await screen.findByRole('figure', { name: 'Start-up' });
     expect(screen.queryByLabelText('Start-up window')).toBeNull();
     expect(startBody()).not.toHaveProperty('options');
+  });
+
+  it('does not say no simulation has run when a stored run of the revision gives the figures', () => {
+    renderPanel();
+    expect(screen.getByText(/^No simulation has run for this document yet\./)).toBeInTheDocument();
+    cleanup();
+    renderWithApp(
+      <WaveformsPanel
+        projectId={projectId}
+        source={{ designId: 'd-1', revisionNumber: 1 }}
+        frequencyHz={25e3}
+        safeVoltageV={50}
+        hasStoredRun
+      />,
+    );
+    expect(screen.queryByText(/No simulation has run/)).toBeNull();
+    expect(
+      screen.getByText(/^Start-up, ripple over one cycle and discharge come from a simulation run/),
+    ).toBeInTheDocument();
   });
 
   it('refuses to start a driver run over a window the server would reject', () => {

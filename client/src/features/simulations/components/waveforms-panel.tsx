@@ -37,6 +37,8 @@ export interface WaveformsPanelProps {
   isDriverDesign?: boolean;
   /** False where no job may be started (an archived project); the panel still shows what it shows. */
   canStart?: boolean;
+  /** A stored simulation of this revision gives the headline figures (its waveforms are not kept). */
+  hasStoredRun?: boolean;
 }
 
 /** The cold start-up window the panel proposes for a driver run (the engineer may change it). */
@@ -77,6 +79,7 @@ export function WaveformsPanel({
   safeVoltageV,
   isDriverDesign = false,
   canStart = true,
+  hasStoredRun = false,
 }: WaveformsPanelProps) {
   const [startUpWindowS, setStartUpWindowS] = useState(DEFAULT_STARTUP_WINDOW_S);
   const windowIssue = isDriverDesign ? startUpWindowIssue(startUpWindowS) : null;
@@ -150,8 +153,8 @@ export function WaveformsPanel({
       {job?.status === 'cancelled' && <Alert color="gray">The simulation was cancelled.</Alert>}
       {!jobId && (
         <Text size="sm" c="dimmed">
-          No simulation has run for this document yet. Start-up, ripple over one cycle and discharge come from a
-          simulation run on the server
+          {hasStoredRun ? '' : 'No simulation has run for this document yet. '}Start-up, ripple over one cycle and
+          discharge come from a simulation run on the server
           {isDriverDesign
             ? '; for this driver design also the collector and secondary voltages and the primary current, with the start-up timed over the window set here.'
             : '.'}
