@@ -25,6 +25,9 @@ const POLLING_INTERVAL_SECONDS = 1;
  * for its slowest run, so a remote worker that comes late adds to every step.
  */
 const EVALUATION_POLLING_INTERVAL_SECONDS = 0.5;
+/** Workers try to start this many times, waiting 0.5 s, 1 s, 1.5 s … between tries (about 20 s in all). */
+const WORKER_START_ATTEMPTS = 9;
+const WORKER_START_RETRY_MS = 500;
 
 /**
  * pg-boss in PostgreSQL owns the queue, so that several app instances share the work: each instance's
@@ -100,7 +103,7 @@ export class SimulationQueueService implements OnModuleDestroy {
     handler: (payload: T) => Promise<void>,
     ids: string[],
   ): Promise<void> {
-    const boss = await this.boss();
+    const boss = await this.bossForWorkers();
     for (let i = 0; i < concurrency; i++) {
       const id = await boss.work<T>(queue, { batchSize: 1, pollingIntervalSeconds }, async (jobs) => {
         for (const job of jobs) await handler(job.data);
@@ -120,6 +123,21 @@ export class SimulationQueueService implements OnModuleDestroy {
 
   private expireInSeconds(): number {
     return this.env.simulationMaxRunS + EXPIRY_MARGIN_S;
+  }
+
+  /**
+   * The started queue for subscribing workers, retried: instances started together on a new database race to
+   * create pg-boss's schema and the loser's start fails once; without a retry that instance would never work.
+   */
+  private async bossForWorkers(): Promise<PgBoss> {
+    for (let attempt = 1; ; attempt++) {
+      try {
+        return await this.boss();
+      } catch (error) {
+        if (this.isStopped || attempt >= WORKER_START_ATTEMPTS) throw error;
+        await new Promise((done) => setTimeout(done, WORKER_START_RETRY_MS * attempt));
+      }
+    }
   }
 
   private boss(): Promise<PgBoss> {
