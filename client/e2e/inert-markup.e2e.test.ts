@@ -104,10 +104,12 @@ describe('markup typed into names and notes stays inert', () => {
 
   it('shows the design name and the change note literally on the Workbench', async () => {
     await page.goto(`${baseUrl}/projects/${projectId}/designs/${designId}`);
-    // The open revision's line under the Workbench heading: "<note> · by <author> · engine <version>".
-    const revisionLine = page.getByText(`${MARKUP_NOTE} · by `, { exact: false });
+    // The open revision's line under the Workbench heading: "“<note>” · by <author>, <date> · engine <version>".
+    const revisionLine = page.getByText(`“${MARKUP_NOTE}” · by `, { exact: false });
     await revisionLine.waitFor();
-    expect(await revisionLine.textContent()).toMatch(/^<script>alert\(2\)<\/script> · by Northfold Lead · engine /);
+    expect(await revisionLine.textContent()).toMatch(
+      /^“<script>alert\(2\)<\/script>” · by Northfold Lead, \d{1,2} \w+ \d{4}, \d{2}:\d{2} · engine /,
+    );
     await page.getByRole('tab', { name: 'History' }).click();
     const noteCell = page.getByRole('cell', { name: MARKUP_NOTE, exact: true });
     await noteCell.waitFor();
