@@ -132,7 +132,7 @@ describe('WaveformsPanel', () => {
   afterEach(() => vi.unstubAllGlobals());
 
   /** The panel on a saved revision whose design target is 50 V. */
-  function renderPanel(isDriverDesign = false) {
+  function renderPanel(isDriverDesign = false, hasStoredRun = false) {
     renderWithApp(
       <WaveformsPanel
         projectId={projectId}
@@ -140,6 +140,7 @@ describe('WaveformsPanel', () => {
         frequencyHz={25e3}
         safeVoltageV={50}
         isDriverDesign={isDriverDesign}
+        hasStoredRun={hasStoredRun}
       />,
     );
   }
@@ -226,15 +227,7 @@ describe('WaveformsPanel', () => {
     renderPanel();
     expect(screen.getByText(/^No simulation has run for this document yet\./)).toBeInTheDocument();
     cleanup();
-    renderWithApp(
-      <WaveformsPanel
-        projectId={projectId}
-        source={{ designId: 'd-1', revisionNumber: 1 }}
-        frequencyHz={25e3}
-        safeVoltageV={50}
-        hasStoredRun
-      />,
-    );
+    renderPanel(false, true);
     expect(screen.queryByText(/No simulation has run/)).toBeNull();
     expect(
       screen.getByText(/^Start-up, ripple over one cycle and discharge come from a simulation run/),
