@@ -102,6 +102,7 @@ function simulateDriver(task: SimulationTask, post: (fraction: number) => void):
     method: run.method,
     oscillationFrequencyHz: run.oscillationFrequencyHz,
     isOscillationIrregular: run.figures?.isIrregular ?? null,
+    oscillationCyclesMeasured: run.figures?.cycles ?? null,
   };
   const waveforms: WaveformTrace[] = [];
   if (coldRun) waveforms.push(toWaveform('startup', coldRun.curve));

@@ -176,6 +176,8 @@ function simulateDriverDesign(design: Design, flags: Map<string, string | true>)
     oscillationFrequencyHz: f?.oscillationFrequencyHz ?? null,
     /** The cycles' periods spread (bursts): the frequency above is their mean. */
     isOscillationIrregular: f?.isIrregular ?? null,
+    /** Whole cycles the frequency was measured over (irregular cycles are counted until their mean holds still). */
+    oscillationCyclesMeasured: f?.cycles ?? null,
     dutyOnFraction: f?.dutyOnFraction ?? null,
     primaryCurrentPeakA: f?.primaryCurrentPeakA ?? null,
     collectorVoltagePeakV: f?.collectorVoltagePeakV ?? null,

@@ -76,6 +76,11 @@ export interface SimulationSummary {
    */
   isOscillationIrregular?: boolean | null;
   /**
+   * Driver designs: the whole cycles `oscillationFrequencyHz` was measured over (an irregular oscillation is
+   * counted until its mean holds still, at most 512); absent in runs stored before it was recorded.
+   */
+  oscillationCyclesMeasured?: number | null;
+  /**
    * Time to within 1 % of the settled output (s), from which it stays there: a driver design's cold start, a
    * ladder's start-up by envelope following; null when it did not settle (or a ladder transient, which does not time it).
    */

@@ -48,6 +48,27 @@ export function driverFigures(
   if (!osc || !(spanS > 0)) return null;
   const col = windowExtremes(timeS, wave.col, osc.fromS, osc.toS);
   const sec = windowExtremes(timeS, wave.sec, osc.fromS, osc.toS);
+  return {
+    cycles: osc.cycles,
+    oscillationFrequencyHz: osc.frequencyHz,
+    measuredFromS: osc.fromS,
+    measuredToS: osc.toS,
+    isIrregular: osc.isIrregular,
+    dutyOnFraction: osc.dutyOnFraction,
+    primaryCurrentPeakA: osc.primaryCurrentPeakA,
+    collectorVoltagePeakV: col.max,
+    secondaryVoltagePeakPositiveV: sec.max,
+    secondaryVoltagePeakNegativeV: sec.min,
+    ...driverPowers(circuit, energy, spanS),
+  };
+}
+
+/** Input and output power, efficiency and losses by kind (W) of an energy account over `spanS` seconds. */
+export function driverPowers(
+  circuit: Circuit,
+  energy: EnergyAccount,
+  spanS: number,
+): Pick<DriverFigures, 'inputPowerW' | 'outputPowerW' | 'efficiency' | 'lossesW'> {
   const lossesW: Partial<Record<DriverLossKind, number>> = {};
   let outputJ = 0;
   for (const e of circuit.elements) {
@@ -59,18 +80,5 @@ export function driverFigures(
   }
   const inputPowerW = energy.suppliedJ / spanS;
   const outputPowerW = outputJ / spanS;
-  return {
-    cycles: osc.cycles,
-    oscillationFrequencyHz: osc.frequencyHz,
-    isIrregular: osc.isIrregular,
-    dutyOnFraction: osc.dutyOnFraction,
-    primaryCurrentPeakA: osc.primaryCurrentPeakA,
-    collectorVoltagePeakV: col.max,
-    secondaryVoltagePeakPositiveV: sec.max,
-    secondaryVoltagePeakNegativeV: sec.min,
-    inputPowerW,
-    outputPowerW,
-    efficiency: inputPowerW > 0 ? outputPowerW / inputPowerW : 0,
-    lossesW,
-  };
+  return { inputPowerW, outputPowerW, efficiency: inputPowerW > 0 ? outputPowerW / inputPowerW : 0, lossesW };
 }

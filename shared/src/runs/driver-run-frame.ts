@@ -44,13 +44,16 @@ export function openDriverRun(
   design: Design,
   initialCapacitorVoltagesV: ReadonlyArray<number>,
   estimatePeriodS: number,
-  options: { maxStepS?: number; shouldCancel?: () => boolean },
+  options: { maxStepS?: number; relativeTolerance?: number; shouldCancel?: () => boolean },
 ): DriverRunFrame {
   if (design.drive.kind !== 'driver') throw new DomainError('invalid_design', 'needs a driver drive', 'drive.kind');
   const capsF = design.multiplier.capacitors.map((c) => c.valueF);
   const circuit = driverDesignCircuit(design, initialCapacitorVoltagesV);
   const system = new MnaSystem(circuit);
-  const stepper = new TransientStepper(system, { maxStepS: options.maxStepS ?? estimatePeriodS / 200 });
+  const stepper = new TransientStepper(system, {
+    maxStepS: options.maxStepS ?? estimatePeriodS / 200,
+    ...(options.relativeTolerance !== undefined ? { tolerances: { relative: options.relativeTolerance } } : {}),
+  });
   stepper.startFromCharges(system.initialCharge);
   return {
     circuit,

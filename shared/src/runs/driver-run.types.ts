@@ -16,6 +16,8 @@ export interface DriverRunOptions {
   settleWindowPeriods?: number;
   /** Maximum time step; default 1/200 of the estimated oscillation period. */
   maxStepS?: number;
+  /** The solver's relative tolerance (sim/tolerances.ts); default 1e-3. Comparisons with ngspice take 1e-5. */
+  relativeTolerance?: number;
   /** Give up settling after this many estimated oscillation periods; default 20000. */
   maxCycles?: number;
   /** Measured oscillation periods of the full-resolution steady-state waveforms at the end; default 4. */
@@ -50,7 +52,11 @@ export type DriverLossKind = BenchLossKind;
  * (the bleeder and output resistor are losses), with the number of cycles and the losses by kind in W.
  */
 export interface DriverFigures extends Omit<DriverBenchFigures, 'losses'> {
+  /** Whole cycles the frequency was measured over (more than the recorded ones when irregular). */
   cycles: number;
+  /** First and last turn-on (or cycle mark) of those cycles, s of the run. */
+  measuredFromS: number;
+  measuredToS: number;
   /** The periods of the measured cycles spread (bursts): the frequency is their mean (oscillation-measures.ts). */
   isIrregular?: boolean;
   lossesW: Partial<Record<DriverLossKind, number>>;

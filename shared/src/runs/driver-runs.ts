@@ -64,6 +64,7 @@ export function runDriverDesign(givenDesign: Design, options: DriverRunOptions =
   const v = settling.topV.toArray();
   report(weights.run, true);
 
+  const settledAtS = frame.stepper.timeS;
   const lastFrequencyHz = settling.lastWindowFrequencyHz;
   const lastPeriodS = lastFrequencyHz ? 1 / lastFrequencyHz : estimatePeriodS;
   const cycles = recordDriverCycles(frame, options.waveformPeriods ?? 4, lastPeriodS);
@@ -89,9 +90,7 @@ export function runDriverDesign(givenDesign: Design, options: DriverRunOptions =
     initialCapacitorVoltagesV: initialV,
     finalCapacitorVoltagesV,
     extrapolations: settling.extrapolations,
-    outputMeanV: isFixedWindow
-      ? windowMean(t, v, Math.max(0, frame.stepper.timeS - windowS), frame.stepper.timeS)
-      : finalMean,
+    outputMeanV: isFixedWindow ? windowMean(t, v, Math.max(0, settledAtS - windowS), settledAtS) : finalMean,
     ripplePeakToPeakV: cycles.ripplePeakToPeakV,
     timeToSteadyStateS: reachedAtS,
     timeTo1PercentS: null,

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { Design } from '../../src/designs/design.types';
-import { driverFiguresBoth, driverMismatches, supply, threeCells } from './driver-comparison';
+import { driverFiguresBoth, driverMismatches, rcdWithJunctions, supply, threeCells } from './driver-comparison';
 import { hasNgspice } from './run-ngspice';
 
 // Outside reference: ngspice (REFERENCES.md §7) on the netlist our exporter writes (driver-comparison.ts), for
@@ -37,26 +37,7 @@ const deviceSupplies = [
   // same bursts.
   {
     keepShortWindow: true,
-    ...supply('6 V DC, 1:50, RCD clamp, ladder and clamp diodes with CJO and BV', (d, design) => {
-      d.supply = { kind: 'dc', voltageV: 6, sourceResistanceOhm: 0.1 };
-      d.transformer.secondaryTurns = 1000;
-      d.baseResistorOhm = 10e3;
-      d.clamp = {
-        kind: 'rcd',
-        resistorOhm: 4.7e3,
-        capacitorF: 10e-9,
-        junctionCapacitanceF: 30e-12,
-        junctionPotentialV: 0.7,
-        gradingCoefficient: 0.45,
-        breakdownVoltageV: 200,
-        breakdownCurrentA: 1e-5,
-      };
-      design.multiplier.diode.junctionCapacitanceF = 8e-12;
-      design.multiplier.diode.junctionPotentialV = 0.6;
-      design.multiplier.diode.gradingCoefficient = 0.4;
-      design.multiplier.diode.breakdownVoltageV = 4000;
-      design.multiplier.diode.breakdownCurrentA = 1e-6;
-    }),
+    ...supply('6 V DC, 1:50, RCD clamp, ladder and clamp diodes with CJO and BV', rcdWithJunctions),
   },
   // A 200 pF zener and VAF 40 V: frequency −3 %, efficiency −2 points.
   supply('9 V DC, 1:80, zener with 200 pF, VAF 40 V and RC snubber, tripler', (d, design) => {

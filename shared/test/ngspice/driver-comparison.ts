@@ -34,6 +34,33 @@ export function supply(
   return { name, design };
 }
 
+/**
+ * The 6 V, 1:50 stage with an RCD clamp (4.7 kΩ, 10 nF), its diode and the ladder's with junction capacitance and
+ * breakdown: a stage whose cycles come in bursts.
+ */
+export function rcdWithJunctions(d: DriverStage, design: Design): void {
+  d.supply = { kind: 'dc', voltageV: 6, sourceResistanceOhm: 0.1 };
+  d.transformer.secondaryTurns = 1000;
+  d.baseResistorOhm = 10e3;
+  d.clamp = {
+    kind: 'rcd',
+    resistorOhm: 4.7e3,
+    capacitorF: 10e-9,
+    junctionCapacitanceF: 30e-12,
+    junctionPotentialV: 0.7,
+    gradingCoefficient: 0.45,
+    breakdownVoltageV: 200,
+    breakdownCurrentA: 1e-5,
+  };
+  Object.assign(design.multiplier.diode, {
+    junctionCapacitanceF: 8e-12,
+    junctionPotentialV: 0.6,
+    gradingCoefficient: 0.4,
+    breakdownVoltageV: 4000,
+    breakdownCurrentA: 1e-6,
+  });
+}
+
 /** A tripler: three cells, the first three capacitors. */
 export function threeCells(design: Design): void {
   design.multiplier.cellCount = 3;

@@ -183,6 +183,16 @@ describe('WaveformsPanel', () => {
     ).toBeTruthy();
   });
 
+  it('says over how many cycles an irregular oscillation’s frequency was measured', async () => {
+    job = succeededJob(
+      { ...driverSummary, isOscillationIrregular: true, oscillationCyclesMeasured: 128 },
+      driverWaveforms,
+    );
+    startRun(true);
+    await screen.findByText('31.3 kHz');
+    expect(screen.getByText(/so the frequency is their mean over 128 cycles\.$/)).toBeTruthy();
+  });
+
   it('adds no irregularity note to a regular oscillation', async () => {
     job = succeededJob({ ...driverSummary, isOscillationIrregular: false }, driverWaveforms);
     startRun(true);

@@ -183,7 +183,11 @@ export function WaveformsPanel({
           </Group>
           {result.summary.isOscillationIrregular === true && (
             <Text size="sm" data-oscillation="irregular">
-              {sentence(IRREGULAR_OSCILLATION_NOTE)}.
+              {sentence(IRREGULAR_OSCILLATION_NOTE)}
+              {result.summary.oscillationCyclesMeasured != null
+                ? ` over ${result.summary.oscillationCyclesMeasured} cycles`
+                : ''}
+              .
             </Text>
           )}
           {result.summary.notSettledWithinS != null && (
