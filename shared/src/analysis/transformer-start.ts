@@ -116,21 +116,24 @@ function startingReason(
   worsened: readonly WorsenedCheck[],
 ): string {
   const ratio = (value: number) => Number(value.toPrecision(3)).toString();
-  const turns = `${candidate.primaryTurns} : ${candidate.feedbackTurns} : ${candidate.secondaryTurns} turns`;
   const rank =
     fitting === 1
       ? `the only core of ${offered} that fits`
       : `the lowest-loss core of the ${fitting} of ${offered} that fit`;
   const worse = worsened.filter((w) => w.verdict === 'fail').map((w) => checkInWords(w.id));
+  const worseWords =
+    worse.length > 1 ? `${worse.slice(0, -1).join(', ')} and ${worse.at(-1)} Checks` : `${worse[0]} Check`;
   return [
-    `${candidate.core.code}: ${rank} the driver’s ${formatQuantity(figures.primaryInductanceH, 'H')}, ` +
-      `${formatQuantity(figures.primaryPeakCurrentA, 'A')} magnetizing peak and turns ratios 1 : ${ratio(figures.feedbackRatio)} : ` +
-      `${ratio(figures.turnsRatio)}.`,
-    `${turns}, gap ${(candidate.gap.gapM * 1e3).toFixed(3)} mm for that inductance, peak flux ` +
+    `${candidate.core.code} is ${rank} the driver’s ${formatQuantity(figures.primaryInductanceH, 'H')}, ` +
+      `${formatQuantity(figures.primaryPeakCurrentA, 'A')} magnetizing peak and turns ratios 1 : ` +
+      `${ratio(figures.feedbackRatio)} : ${ratio(figures.turnsRatio)}.`,
+    `Windings ${candidate.primaryTurns} : ${candidate.feedbackTurns} : ${candidate.secondaryTurns} turns, gap ` +
+      `${(candidate.gap.gapM * 1e3).toFixed(3)} mm for that inductance, peak flux ` +
       `${Math.round(candidate.peakFluxDensityT * 1e3)} mT (${Math.round(candidate.saturationMarginPct)} % below ` +
       `saturation at 100 °C).`,
     worse.length > 0
-      ? `Its windings leave the design’s ${worse.join(', ')} Check failing where the given numbers pass, as every fitting core’s do.`
+      ? `Its windings leave the design’s ${worseWords} failing where the given numbers pass, as every fitting ` +
+        `core’s do; the core Sizer on the Transformer tab ranks them all.`
       : '',
   ]
     .filter(Boolean)

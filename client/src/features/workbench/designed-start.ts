@@ -24,17 +24,22 @@ export function startDesignedTransformer(design: Design, parts: readonly Part[])
   const kinds = magneticsChoices(parts);
   const source =
     parts.length > 0 && shelfMagnetics(parts).cores.length > 0 ? 'on the Parts shelf' : 'of the demo kinds';
+  let isRefused = false;
   try {
     const started = startingTransformer(design, kinds);
     if (started) return { section: started.section, note: started.reason };
   } catch {
     // A design the engine refuses as it stands (a field being typed): the given turns below.
+    isRefused = true;
   }
   const section = startingSection(driver, parts, design.targets.spacing);
+  const why = isRefused
+    ? 'The driver cannot be estimated as it stands'
+    : `No core ${source} fits this driver with its given inductance and turns ratios`;
   return {
     section,
     note:
-      `${section.core.code}: no core ${source} fits this driver with its given inductance and turns ratios, so the ` +
-      `section starts on the first one with the given turns; the core Sizer on the Transformer tab says why each is refused.`,
+      `${why}, so the section starts on ${section.core.code} with the given turns; the core Sizer on the ` +
+      `Transformer tab says why each core is refused.`,
   };
 }

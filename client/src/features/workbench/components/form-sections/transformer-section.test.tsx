@@ -48,7 +48,7 @@ describe('TransformerSection', () => {
     expect((secondary ?? 0) / (primary ?? 1)).toBeCloseTo(60, 1);
     expect((feedback ?? 0) / (primary ?? 1)).toBeCloseTo(0.4, 1);
     const note = await screen.findByRole('status', { name: 'Starting core' });
-    expect(note).toHaveTextContent(/^Starting core.*Core E25 ferrite grade A: the only core of 5 that fits/);
+    expect(note).toHaveTextContent(/^Starting core.*Core E25 ferrite grade A is the only core of 5 that fits/);
     expect(note).toHaveTextContent(`${primary} : ${feedback} : ${secondary} turns`);
     // The thicker wire on the primary, the thinnest on the secondary.
     const [p, , s] = design?.windings ?? [];
