@@ -17,6 +17,8 @@ export type { LoadPoint, OperatingLimit } from './load-point';
 
 export interface OperatingPointResult {
   ratedLoad: LoadPoint & { driver: BlockingOscillatorEstimate };
+  /** The stage with the flyback at its clamp or breakdown limit and no forward load (the ladder's capacitance on the secondary). */
+  atLimit: BlockingOscillatorEstimate;
   /** Load current above which the driver can no longer hold the flyback at its limit (A); 0 if it cannot even at no load. */
   powerLimitOnsetA: number;
   /** The largest external load current (A) at which the output stays above zero: what the supply can deliver. */
@@ -116,6 +118,7 @@ export function driverOperatingPoint(
   if (isRatedLoadBeyond) rated = solvePoint(driver, ladder, maxLoadCurrentA, options, limitEst);
   return {
     ratedLoad: { ...rated.point, driver: estimateOf(driver, rated.stageOptions, rated.stage) },
+    atLimit: estimateOf(driver, options, { ...limitEst, losses: { ...limitEst.losses } }),
     powerLimitOnsetA,
     maxLoadCurrentA,
     isRatedLoadBeyond,
