@@ -146,7 +146,11 @@ function operatingCurveOf(
   const pointAt = (loadA: number) => {
     const scale = lastBalance ? lastBalance.loadA / loadA : powerLimitOnsetA / loadA;
     const warm = lastBalance
-      ? { flybackV: lastBalance.balance.flybackV * scale, slope: lastBalance.balance.slope / scale }
+      ? {
+          ...lastBalance.balance,
+          flybackV: lastBalance.balance.flybackV * scale,
+          slope: lastBalance.balance.slope / scale,
+        }
       : powerLimitOnsetA > 0 && scale < 1
         ? { flybackV: maxFlyV * scale, slope: -lastFlybackRatio * loadA }
         : null;
@@ -227,11 +231,21 @@ function operatingCurveOf(
     const c = balances[i - 3];
     // The flyback times the load at the point k steps back, over this load.
     const powerOf = (w: WarmStart, k: number) => (w.flybackV * (i - k)) / i;
-    const warm =
+    // The supply voltage from the same parabola (line) through the last points' (it moves smoothly with the load).
+    const supplyOf = (...ws: WarmStart[]) => (ws.every((w) => w.supplyV !== undefined) ? ws : null);
+    const warm: WarmStart | null =
       a && b && c
-        ? { flybackV: 3 * powerOf(a, 1) - 3 * powerOf(b, 2) + powerOf(c, 3), slope: 2 * a.slope - b.slope }
+        ? {
+            flybackV: 3 * powerOf(a, 1) - 3 * powerOf(b, 2) + powerOf(c, 3),
+            slope: 2 * a.slope - b.slope,
+            ...(supplyOf(a, b, c) ? { supplyV: 3 * a.supplyV! - 3 * b.supplyV! + c.supplyV! } : {}),
+          }
         : a && b
-          ? { flybackV: 2 * powerOf(a, 1) - powerOf(b, 2), slope: a.slope }
+          ? {
+              flybackV: 2 * powerOf(a, 1) - powerOf(b, 2),
+              slope: a.slope,
+              ...(supplyOf(a, b) ? { supplyV: 2 * a.supplyV! - b.supplyV! } : {}),
+            }
           : (a ?? warmPastOnset(endBalances, powerLimitOnsetA, maxFlyV, loadA));
     const solved = solvePoint(driver, ladder, loadA, options, limitEst, curve[i - 1]?.flybackSecondaryPeakV, warm);
     curve.push(solved.point);
