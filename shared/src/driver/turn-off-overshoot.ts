@@ -208,7 +208,9 @@ export function stageTurnOffSlew(stage: DriverStage, peakCurrentA: number, prima
       leakageH: (1 - tx.couplingCoefficient) * tx.primaryInductanceH,
       collectorCapacitanceF: nodeF - reflectedF + millerF,
       reflectedCapacitanceF: reflectedF,
-      clampPrimaryV: primaryVoltageV + q.vceSatV - (stage.clamp?.clampVoltageV ?? q.vceoMaxV),
+      // An RCD clamp's capacitor sits at or above the flyback's level, so only a zener holds the slew.
+      clampPrimaryV:
+        primaryVoltageV + q.vceSatV - (stage.clamp?.kind === 'zener' ? stage.clamp.clampVoltageV : q.vceoMaxV),
       forwardBeta: q.forwardBeta,
       reverseBeta: q.reverseBeta,
       vceSatV: q.vceSatV,
