@@ -249,6 +249,7 @@ const RESULT_FIELDS: Readonly<Record<string, FieldLabel>> = {
   storedEnergyJ: { label: 'Stored energy', display: 'J' },
   storedChargeC: { label: 'Stored charge', display: 'C' },
   dischargeTimeS: { label: 'Discharge time to the safe level', display: 's' },
+  dischargeTimeToRuleS: { label: 'Discharge time to the rule’s level', display: 's' },
   'driver.figures.efficiency': { label: 'Driver efficiency', display: 'fraction' },
   'driver.batteryLife.lifeS.value': { label: 'Battery life', display: 's' },
   'transformer.primaryInductanceH': { label: 'Primary inductance (designed)', display: 'H' },

@@ -29,7 +29,7 @@ export const DEFAULT_BYPASS_CAPACITANCE_F = 100e-6;
 /** The transistor's Ebers–Moll saturation current when the design gives none: the simulator's default. */
 export const DEFAULT_TRANSISTOR_SATURATION_CURRENT_A = 1e-14;
 /** kT/q at 300.15 K from the exact SI constants (CODATA 2018), as the simulator's junctions take it. */
-const THERMAL_VOLTAGE_V = (1.380649e-23 * 300.15) / 1.602176634e-19;
+export const THERMAL_VOLTAGE_V = (1.380649e-23 * 300.15) / 1.602176634e-19;
 
 /** The stage's fixed ratios and resistances (Ω), read once from the design. */
 interface StageConstants {
