@@ -90,6 +90,11 @@ export interface OscillatorNumbers {
   frequencyHz: number;
   energyJ: number;
   deliverableW: number;
+  /**
+   * What a load on the secondary gets of it at this flyback (W): the deliverable power less what an RCD clamp's
+   * resistor takes beside the load beyond the leakage energy (rcd-clamp.ts); the same without one.
+   */
+  loadDeliverableW: number;
   flybackSecV: number;
   maxFlybackSecV: number;
   reflectedV: number;

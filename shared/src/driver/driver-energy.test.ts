@@ -8,11 +8,20 @@ import { DEFAULT_TRANSISTOR_THERMAL } from './driver-energy';
 
 const demo = designExamples.surfaceChargeTester;
 const heavy = { ...structuredClone(demo), load: { kind: 'current' as const, currentA: 50e-6 } };
+/** The demo flyback-fed with an RCD clamp: its resistor takes flyback power beside the ladder (rcd-clamp.ts). */
+const rcdClamped = (() => {
+  const design = structuredClone(heavy);
+  if (design.drive.kind !== 'driver') throw new Error('the demo has a driver stage');
+  design.drive.driver.clamp = { kind: 'rcd', resistorOhm: 10e3, capacitorF: 10e-9 };
+  design.drive.driver.transformer.secondaryPhasing = 'flyback';
+  return design;
+})();
 
 describe('driver energy at the operating point', () => {
   it.each([
     ['demo at its rated 2 µA', demo],
     ['demo at 50 µA (power-limited)', heavy],
+    ['demo flyback-fed at 50 µA with an RCD clamp', rcdClamped],
   ])('%s: input = output + every loss (energy conservation), each loss ≥ 0', (_, design) => {
     const e = analyzeDesign(design).driver!.energy;
     const lossSum = Object.values(e.losses).reduce((a, b) => a + b, 0);

@@ -145,7 +145,7 @@ export function solvePoint(
     const drive = driveOf(stage, driver, forwardA());
     const loaded = ladder.at(drive, loadCurrentA);
     last = { flyV, stage, drive, loaded };
-    return stage.deliverableW / flyV - ratios.flyback * loaded.ladderCurrentA;
+    return stage.loadDeliverableW / flyV - ratios.flyback * loaded.ladderCurrentA;
   };
   let flyV = maxFlyV;
   let limitedBy: OperatingLimit = 'ladder';
@@ -220,7 +220,7 @@ export function solvePoint(
   }
   if (balance !== null) balance = { ...balance, supplyV: stage.vin };
   const outputPowerW = loaded.outputV * loadCurrentA;
-  const flybackTakenW = Math.min(stage.deliverableW, ratios.flyback * loaded.ladderCurrentA * flyV);
+  const flybackTakenW = Math.min(stage.loadDeliverableW, ratios.flyback * loaded.ladderCurrentA * flyV);
   return {
     point: {
       loadCurrentA,

@@ -166,7 +166,7 @@ function operatingCurveOf(
   const limitSurplusAt = (loadA: number) => {
     const state = ladder.at(limitDrive, loadA);
     lastFlybackRatio = ladder.chargeRatios(limitDrive, state.ladderCurrentA).flyback;
-    return limitEst.deliverableW / maxFlyV - lastFlybackRatio * state.ladderCurrentA;
+    return limitEst.loadDeliverableW / maxFlyV - lastFlybackRatio * state.ladderCurrentA;
   };
   // Onset: bracketed around the load the no-load surplus would carry at the no-load charge ratio (the
   // surplus falls nearly in proportion to the load), widened by doubling and halving, then solved to the

@@ -134,6 +134,7 @@ export function stageAt(
     frequencyHz: fly.frequencyHz,
     energyJ: fly.energyJ,
     deliverableW: fly.deliverableW,
+    loadDeliverableW: fly.deliverableW - fly.clampTakesW,
     flybackSecV: fly.flybackSecV,
     maxFlybackSecV: fly.maxFlybackSecV,
     reflectedV: fly.reflectedV,
@@ -295,15 +296,14 @@ function flybackTransfer(
   const copperJ = iSecPk * iSecPk * tx.secondaryResistanceOhm * (tFly / 3);
   const coreJ = Math.min((tx.coreLossW ?? 0) / frequencyHz, Math.max(0, k * k * energyJ - copperJ));
   const flybackEfficiency = Math.max(0, k * k - (copperJ + coreJ) / energyJ);
-  let deliverableW = energyJ * frequencyHz * flybackEfficiency;
+  const deliverableW = energyJ * frequencyHz * flybackEfficiency;
   let clampCollectorV = clamp?.kind === 'zener' ? clamp.clampVoltageV : null;
   let clampTakesW = 0;
   if (rcd && rcdLimit) {
-    // Below its limit an RCD clamp dissipates Vc²/R at the flyback's primary-side peak k²·Vr, out of what the
-    // load could have had beyond the leakage energy (rcdClampUnderLoad).
+    // Below its limit an RCD clamp dissipates Vc²/R at the flyback's primary-side peak k²·Vr: beyond the leakage
+    // energy, that comes out of what the load could have had (rcdClampUnderLoad).
     const under = rcdClampUnderLoad(k * k * reflectedV, leakageJ, 1 / frequencyHz, rcd);
     clampTakesW = Math.min(deliverableW, Math.max(0, under.powerW - leakageJ * frequencyHz));
-    deliverableW -= clampTakesW;
     clampCollectorV = vin + Math.min(rcdLimit.clampV, under.clampV);
   }
   return {
@@ -375,7 +375,7 @@ function stagePower(
     primaryCopperW: frequencyHz * tx.primaryResistanceOhm * rampSquareA2S,
     collectorResistorW: frequencyHz * (driver.collectorResistorOhm ?? 0) * rampSquareA2S,
     secondaryCopperW: frequencyHz * Math.min(fly.copperJ, k * k * energyJ),
-    leakageW: frequencyHz * (1 - k * k) * energyJ + fly.clampTakesW,
+    leakageW: frequencyHz * (1 - k * k) * energyJ,
     coreW: frequencyHz * fly.coreJ,
     lampW: vin * lampA,
     supplyResistanceW: Math.max(0, emfW - inputW),
