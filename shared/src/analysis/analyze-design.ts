@@ -24,6 +24,7 @@ import { withEffectiveTransformer } from '../transformer/given-numbers';
 import type { TransformerReport } from '../transformer/transformer.types';
 import { transformerDriverEffect } from './transformer-effect';
 import { designedTransformerReport, withGivenTransformer } from './transformer-report';
+import { ladderDischargePhases } from './ladder-discharge';
 
 /** Report of a bare ladder: figures (SI, signed by polarity), curves, stored energy, discharge and how each was computed. */
 export interface LadderReport extends Pick<
@@ -41,6 +42,8 @@ export interface LadderReport extends Pick<
   storedChargeC: number;
   /** Bleeder discharge from the operating voltage to the safe voltage; null without a bleeder or a safe voltage. */
   dischargeTimeS: number | null;
+  /** The same to the discharge rule's voltage (what its check judges and a simulation runs to); absent in older reports. */
+  dischargeTimeToRuleS?: number | null;
   analysis: LadderAnalysis;
   curves: LadderCurves;
   storedEnergy: StoredEnergySummary;
@@ -84,17 +87,15 @@ export function analyzeLadderReport(input: LadderInput, options: LadderReportOpt
   const curves = ladderCurves(input);
   const energy = storedEnergy(analysis.capacitors, analysis.ladderTopMeanV);
   const checks: CheckVerdict[] = [...storedEnergyChecks(energy, analysis.ladderTopMeanV)];
-  let dischargeTime: number | null = null;
+  let discharge: ReturnType<typeof dischargeCheck> | null = null;
   if (options.safeVoltageV !== undefined) {
-    const discharge = dischargeCheck({
+    discharge = dischargeCheck({
       bleederOhm: input.bleederOhm,
-      equivalentCapacitanceF: energy.outputEquivalentCapacitanceF,
-      outputV: analysis.ladderTopMeanV,
+      phases: ladderDischargePhases(analysis, energy),
       safeVoltageV: options.safeVoltageV,
       rule: options.dischargeRule ?? { voltageV: options.safeVoltageV, timeS: 60 },
       storedChargeC: energy.outputEquivalentChargeC,
     });
-    dischargeTime = discharge.dischargeTimeS;
     checks.push(discharge.verdict);
   }
   return {
@@ -112,7 +113,8 @@ export function analyzeLadderReport(input: LadderInput, options: LadderReportOpt
     textbookDropV: analysis.textbook.dropV,
     storedEnergyJ: energy.totalEnergyJ,
     storedChargeC: energy.totalChargeC,
-    dischargeTimeS: dischargeTime,
+    dischargeTimeS: discharge?.dischargeTimeS ?? null,
+    dischargeTimeToRuleS: discharge?.dischargeTimeToRuleS ?? null,
     analysis,
     curves,
     storedEnergy: energy,
