@@ -3,7 +3,7 @@ import type { Design, DischargeRule, PulseDrive, SineDrive } from '../designs/de
 import { estimateBlockingOscillator } from '../driver/blocking-oscillator';
 import { driverReport, type DriverReport } from '../driver/driver-report';
 import type { DriverStage } from '../designs/driver-stage.types';
-import type { DriverCheckVerdict } from '../driver/driver-checks';
+import { withCaution } from '../driver/driver-checks';
 import type { MethodInfo } from '../methods';
 import { isFlybackFed, solveLoadPoint } from '../driver/operating-point';
 import { forwardShareOf } from '../driver/ring-back';
@@ -219,10 +219,6 @@ const DRIVER_OPERATING_METHOD: MethodInfo = {
   source: 'driver-ladder.power-balance-v2 with charge-transfer-v1',
 };
 
-function asCheck(v: DriverCheckVerdict): CheckVerdict {
-  return { ...v, caution: HV_CAUTION };
-}
-
 /** The bare-ladder input of a design. */
 export function ladderInputOf(
   design: Design,
@@ -345,7 +341,7 @@ export function analyzeDesign(givenDesign: Design): DesignReport {
       }),
     );
   }
-  if (driver) checks.push(...driver.checks.map(asCheck));
+  if (driver) checks.push(...driver.checks.map(withCaution));
   const designedTransformer = underDrive(() => designedTransformerReport(design, driver));
   const transformer = designedTransformer && {
     ...designedTransformer,
