@@ -5,8 +5,6 @@ import type { BlockingOscillatorEstimate } from './blocking-oscillator.types';
 import type { DriverStage } from '../designs/driver-stage.types';
 import type { Estimated } from '../methods';
 import { HIPOT_METHOD, hipotTestVoltageV as hipotTestVoltageOf } from '../safety/hipot';
-import { HV_CAUTION } from '../safety/hazard-limits';
-import type { CheckVerdict } from '../safety/check.types';
 import { solveLoadPoint, supplyCurrentNear, type LoadPoint, type WarmStart } from './operating-point';
 import { type LadderLoadLine } from './ladder-load-line';
 import { driverEnergy, type DriverEnergy } from './driver-energy';
@@ -22,21 +20,6 @@ export interface DriverCheckVerdict {
   value: number;
   limit: number;
   unit: string;
-}
-
-/** A driver verdict as a Checks-panel verdict with the caution, field by field (a spread goes through V8's generic copy). */
-export function withCaution(v: DriverCheckVerdict): CheckVerdict {
-  return {
-    id: v.id,
-    subject: v.subject,
-    rule: v.rule,
-    verdict: v.verdict,
-    marginPct: v.marginPct,
-    value: v.value,
-    limit: v.limit,
-    unit: v.unit,
-    caution: HV_CAUTION,
-  };
 }
 
 export interface DriverChecksInput {
