@@ -71,6 +71,19 @@ describe('batteryLife', () => {
     expect(Math.abs(ours - trapezoidLifeS(twoAlkaline, load)) / ours).toBeLessThan(1e-4);
   });
 
+  it('ends where the loaded cell reaches its end voltage: V = Voc(σ) − I·R(σ) at the end state of charge (charge balance, Ohm’s law)', () => {
+    const drainA = 0.1;
+    const life = batteryLife(twoAlkaline, () => drainA);
+    const sigma = life.endChargeFraction;
+    expect(sigma).toBeGreaterThan(0);
+    // The curve's interpolation (checked below on its own) and the rate model written out again: R(σ) = R·(1 + 6·(1 − σ)^4).
+    const loadedV =
+      cellOpenCircuitVoltageV(cellCurveOf(twoAlkaline), sigma) -
+      drainA * twoAlkaline.internalResistanceOhm * (1 + 6 * (1 - sigma) ** 4);
+    // 1e-9 V: the end state of charge is solved to 1e-14, and the loaded voltage moves by about 1 V per unit of it.
+    expect(Math.abs(loadedV - twoAlkaline.endVoltagePerCellV)).toBeLessThan(1e-9);
+  });
+
   it('follows Peukert’s law t = H·(C/(I·H))^k when the end voltage is never reached (Peukert 1897; Linden & Reddy, from memory)', () => {
     const deep: CellsSupply = { ...twoAlkaline, endVoltagePerCellV: 0.5 };
     // H = 100 h, C = 2.5 Ah, I = 0.05 A, k = 1.15: 100·(2.5/5)^1.15 = 45.06 h; Gauss-Legendre is exact for a

@@ -136,10 +136,31 @@ export function estimateOf(
   options: BlockingOscillatorOptions,
   r: OscillatorNumbers,
 ): BlockingOscillatorEstimate {
+  // Field by field: a spread of the three groups into one object cost half of this function.
+  const drive = driveEstimates(r);
+  const timing = timingEstimates(driver, r);
+  const power = voltageAndPowerEstimates(driver, options, r);
   return {
-    ...driveEstimates(r),
-    ...timingEstimates(driver, r),
-    ...voltageAndPowerEstimates(driver, options, r),
+    supplyVoltageV: drive.supplyVoltageV,
+    baseCurrentA: drive.baseCurrentA,
+    onTimeLimit: drive.onTimeLimit,
+    peakPrimaryCurrentA: drive.peakPrimaryCurrentA,
+    collectorPeakCurrentA: drive.collectorPeakCurrentA,
+    baseLimitedCurrentA: drive.baseLimitedCurrentA,
+    onTimeS: timing.onTimeS,
+    flybackTimeS: timing.flybackTimeS,
+    ringBack: timing.ringBack,
+    frequencyHz: timing.frequencyHz,
+    energyPerCycleJ: timing.energyPerCycleJ,
+    deliverablePowerW: timing.deliverablePowerW,
+    forwardSecondaryPeakV: power.forwardSecondaryPeakV,
+    flybackSecondaryPeakV: power.flybackSecondaryPeakV,
+    maxFlybackSecondaryPeakV: power.maxFlybackSecondaryPeakV,
+    reflectedVoltageV: power.reflectedVoltageV,
+    collectorPeakV: power.collectorPeakV,
+    inputCurrentA: power.inputCurrentA,
+    inputPowerW: power.inputPowerW,
+    efficiency: power.efficiency,
     losses: r.losses,
     emfPowerW: r.emfW,
   };
