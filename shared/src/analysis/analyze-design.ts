@@ -3,7 +3,6 @@ import type { Design, DischargeRule, PulseDrive, SineDrive } from '../designs/de
 import { estimateBlockingOscillator } from '../driver/blocking-oscillator';
 import { driverReport, type DriverReport } from '../driver/driver-report';
 import type { DriverStage } from '../designs/driver-stage.types';
-import type { DriverCheckVerdict } from '../driver/driver-checks';
 import type { MethodInfo } from '../methods';
 import { isFlybackFed, solveLoadPoint } from '../driver/operating-point';
 import { forwardShareOf } from '../driver/ring-back';
@@ -221,10 +220,6 @@ const DRIVER_OPERATING_METHOD: MethodInfo = {
   source: 'driver-ladder.power-balance-v2 with charge-transfer-v1',
 };
 
-function asCheck(v: DriverCheckVerdict): CheckVerdict {
-  return { ...v, caution: HV_CAUTION };
-}
-
 /** The bare-ladder input of a design. */
 export function ladderInputOf(
   design: Design,
@@ -255,7 +250,7 @@ function stageWorkingVoltages(analysis: LadderAnalysis): number[] {
 
 /**
  * Full report of a validated design: steady-state analysis, curves, stored energy, discharge, spacing and
- * every check verdict, with method notes. Safety verdicts carry HV_CAUTION.
+ * every check verdict, with method notes, and HV_CAUTION once for all of them (`caution`).
  */
 export function analyzeDesign(givenDesign: Design): DesignReport {
   const design = withEffectiveTransformer(givenDesign);
@@ -347,7 +342,7 @@ export function analyzeDesign(givenDesign: Design): DesignReport {
       }),
     );
   }
-  if (driver) checks.push(...driver.checks.map(asCheck));
+  if (driver) checks.push(...driver.checks);
   const designedTransformer = underDrive(() => designedTransformerReport(design, driver));
   const transformer = designedTransformer && {
     ...designedTransformer,
@@ -357,7 +352,7 @@ export function analyzeDesign(givenDesign: Design): DesignReport {
       analyzeDesign(withGivenTransformer(givenDesign)),
     ),
   };
-  if (transformer) checks.push(...transformer.checks.map((c) => ({ ...c, caution: HV_CAUTION })));
+  if (transformer) checks.push(...transformer.checks);
   const rippleOk = analysis.ripplePeakToPeakV <= targets.rippleMaxV;
   const outputOk =
     Math.sign(analysis.outputMeanV) === Math.sign(targets.outputV) &&

@@ -167,7 +167,7 @@ const DOCUMENT_FIELDS: Readonly<Record<string, FieldLabel>> = {
   'drive.driver.collectorResistorOhm': { label: 'Collector resistor', display: 'Ohm' },
   'drive.driver.clamp': { label: 'Collector clamp', display: 'plain' },
   'drive.driver.clamp.kind': { label: 'Clamp kind', display: 'plain' },
-  'drive.driver.clamp.clampVoltageV': { label: 'Clamp voltage', display: 'V' },
+  'drive.driver.clamp.clampVoltageV': { label: 'Zener voltage', display: 'V' },
   'drive.driver.clamp.resistorOhm': { label: 'Clamp resistor', display: 'Ohm' },
   'drive.driver.clamp.capacitorF': { label: 'Clamp capacitor', display: 'F' },
   'drive.driver.clamp.ratedPowerW': { label: 'Clamp power rating', display: 'W' },

@@ -1,6 +1,6 @@
 import { DomainError } from '../errors';
 import type { DischargeRule } from '../designs/design.types';
-import { HV_CAUTION, upperLimitVerdict } from './hazard-limits';
+import { upperLimitVerdict } from './hazard-limits';
 import type { CheckVerdict } from './check.types';
 import type { MethodInfo } from '../methods';
 import { cascadeDischargeTimeS, type DischargePhase } from './cascade-discharge';
@@ -92,7 +92,6 @@ export function dischargeCheck(input: DischargeInput): {
         value: input.storedChargeC,
         limit: rule.exemptBelowChargeC ?? 0,
         unit: 'C',
-        caution: HV_CAUTION,
       },
     };
   }
@@ -151,7 +150,6 @@ export function trappedChargeCheck(input: TrappedChargeInput): CheckVerdict | nu
     value: v,
     limit: input.safeVoltageV,
     unit: 'V',
-    caution: HV_CAUTION,
     isServiceCondition: true,
   };
 }

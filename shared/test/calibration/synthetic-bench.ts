@@ -133,6 +133,20 @@ export function withNoise(xs: readonly number[], ys: readonly number[], sigma: n
   return xs.map((x, i) => ({ x, y: ys[i]! * (1 + sigma * normal()) }));
 }
 
+/** The netlist ngspice runs for `ngspiceStartUp`: the empty ladder, reltol 1e-5, `periods` of the period guess. */
+export function startUpNetlist(design: Design, periods: number): string {
+  if (design.drive.kind !== 'driver') throw new Error('a start-up needs a driver design');
+  const periodS = driverPeriodGuessS(design.drive.driver);
+  const circuit = driverDesignCircuit(
+    design,
+    design.multiplier.capacitors.map(() => 0),
+  );
+  return toSpiceNetlist(circuit, {
+    transient: { stopTimeS: periods * periodS, maxStepS: periodS / 200, startFrom: 'element-initial-conditions' },
+    extraLines: ['.options reltol=1e-5'],
+  });
+}
+
 /**
  * The push-button start-up of a driver design by ngspice (reltol 1e-5, the empty ladder, the exported
  * netlist), read as the simulator's start-up is read: the mean output over each oscillation cycle between
@@ -142,16 +156,8 @@ export function withNoise(xs: readonly number[], ys: readonly number[], sigma: n
 export async function ngspiceStartUp(design: Design, periods: number, count: number): Promise<MeasuredPoint[]> {
   if (design.drive.kind !== 'driver') throw new Error('a start-up needs a driver design');
   const driver = design.drive.driver;
-  const circuit = driverDesignCircuit(
-    design,
-    design.multiplier.capacitors.map(() => 0),
-  );
   const periodS = driverPeriodGuessS(driver);
-  const netlist = toSpiceNetlist(circuit, {
-    transient: { stopTimeS: periods * periodS, maxStepS: periodS / 200, startFrom: 'element-initial-conditions' },
-    extraLines: ['.options reltol=1e-5'],
-  });
-  const trace = await runNgspice(netlist, ['v(col)', 'v(vcc)', 'i(vt1_lp_sense)', 'v(top)']);
+  const trace = await runNgspice(startUpNetlist(design, periods), ['v(col)', 'v(vcc)', 'i(vt1_lp_sense)', 'v(top)']);
   const t = trace.timeS;
   const top = trace.signals['v(top)']!;
   const primary = trace.signals['i(vt1_lp_sense)']!;

@@ -15,6 +15,7 @@ import { memberRequests } from './0013-member-requests';
 import { simulationBatches } from './0014-simulation-batches';
 import { calibrationEvaluations } from './0015-calibration-evaluations';
 import { trappedChargeServiceCondition } from './0016-trapped-charge-service-condition';
+import { rcdClampLevel } from './0017-rcd-clamp-level';
 
 /** Every schema step in order. Add new steps at the end. */
 export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
@@ -34,4 +35,5 @@ export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
   simulationBatches,
   calibrationEvaluations,
   trappedChargeServiceCondition,
+  rcdClampLevel,
 ];
