@@ -83,6 +83,24 @@ describe.each([
     expect(pageErrors).toEqual([]);
   });
 
+  it('condenses the Results summary while what is under it scrolls, and opens it again at the top', async () => {
+    await openWorkbench();
+    const summary = page.getByRole('region', { name: 'Results summary' });
+    await summary.waitFor();
+    const tabs = page.getByRole('region', { name: 'Result tabs' });
+    // Side by side the result tabs scroll on their own; stacked, the page scrolls the form under the stuck summary.
+    const scrollBy = (px: number) =>
+      isSideBySide ? tabs.evaluate((box, by) => box.scrollBy(0, by), px) : page.mouse.wheel(0, px);
+    const openHeightPx = (await summary.boundingBox())!.height;
+    await scrollBy(600);
+    await page.locator('[aria-label="Results summary"][data-condensed="true"]').waitFor();
+    expect((await summary.boundingBox())!.height).toBeLessThan(openHeightPx);
+    expect(await summary.locator('[data-figure-target]').first().isVisible()).toBe(false);
+    await scrollBy(-5000);
+    await page.locator('[aria-label="Results summary"][data-condensed="false"]').waitFor();
+    expect(pageErrors).toEqual([]);
+  });
+
   it('runs a simulation and shows the start-up whole, scaled to its settling, with two marks told apart', async () => {
     await openWorkbench();
     await page.getByRole('tab', { name: 'Waveforms' }).click();
