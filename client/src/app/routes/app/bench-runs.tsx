@@ -2,7 +2,7 @@ import { canActInProject } from '@ladderwright/shared/auth';
 import { Anchor, Paper, Stack, Text, Title } from '@mantine/core';
 import { Trail } from '../../../components/trail';
 import { useDocumentTitle } from '@mantine/hooks';
-import { useSuspenseQuery } from '@tanstack/react-query';
+import { useQuery, useSuspenseQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import { paths } from '../../../config/paths';
@@ -12,6 +12,7 @@ import { CalibrationPanel } from '../../../features/calibrations/components/cali
 import { BenchOverlay } from '../../../features/bench-runs/components/bench-overlay';
 import { BenchRunList } from '../../../features/bench-runs/components/bench-run-list';
 import { BenchRunUpload } from '../../../features/bench-runs/components/bench-run-upload';
+import { getDesignQueryOptions } from '../../../features/designs/api/get-design';
 import { getProjectQueryOptions } from '../../../features/projects/api/get-project';
 import { requireProjectLoader } from './root';
 
@@ -22,6 +23,8 @@ export function BenchRunsRoute() {
   const { projectId = '', designId = '', revisionNumber: rawNumber = '' } = useParams();
   const revisionNumber = Number(rawNumber);
   const { data: project } = useSuspenseQuery(getProjectQueryOptions(projectId));
+  // The design's name for the trail: read when at hand, the page does not wait for it.
+  const { data: design } = useQuery(getDesignQueryOptions(projectId, designId));
   useDocumentTitle(`${project.name} · Bench runs · Ladderwright`);
   const [selectedId, setSelectedId] = useState<string | null>(null);
   const selected = useBenchRun(projectId, designId, revisionNumber, selectedId);
@@ -31,11 +34,14 @@ export function BenchRunsRoute() {
   return (
     <Stack gap="lg">
       <Trail>
+        <Anchor component={Link} to={paths.projects.getHref()} size="sm">
+          Projects
+        </Anchor>
         <Anchor component={Link} to={paths.project.getHref(projectId)} size="sm">
           {project.name}
         </Anchor>
         <Anchor component={Link} to={paths.design.getHref(projectId, designId, revisionNumber)} size="sm">
-          Workbench, revision {revisionNumber}
+          {design ? `${design.name} r${revisionNumber}` : `Workbench, revision ${revisionNumber}`}
         </Anchor>
         <Text size="sm">Bench runs</Text>
       </Trail>
@@ -59,6 +65,11 @@ export function BenchRunsRoute() {
         selectedId={selectedId}
         onSelect={setSelectedId}
         canDelete={canUpload}
+        emptyHint={
+          canUpload
+            ? 'Upload a load sweep (current, voltage) or a scope capture (time, voltage) above: it is drawn over the prediction with a verdict.'
+            : 'An engineer or lead of the project uploads them here.'
+        }
       />
       {selected.data && (
         <Paper withBorder p="md">

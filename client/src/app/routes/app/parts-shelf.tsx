@@ -41,7 +41,12 @@ export function PartsShelfRoute() {
           Export CSV
         </Button>
       </Group>
-      <PartsTable projectId={projectId} canManage={canManage} />
+      <Stack gap={4}>
+        <PartsTable projectId={projectId} canManage={canManage} />
+        <Text size="xs" c="dimmed">
+          Unit costs are in the team’s currency; wire and tape per metre.
+        </Text>
+      </Stack>
       {canManage ? (
         <>
           <Paper withBorder p="md">

@@ -138,27 +138,41 @@ function useLayoutMeasures(layoutRef: RefObject<HTMLElement | null>, summaryRef:
   }, [layoutRef, summaryRef]);
 }
 
-/** Scrolled this far down (px), the result tabs condense the summary; back within `CONDENSE_UNTIL_PX` of their top, it opens. */
+/** Scrolled this far (px), the result tabs or the form condense the summary; back within `CONDENSE_UNTIL_PX`, it opens. */
 const CONDENSE_FROM_PX = 48;
 const CONDENSE_UNTIL_PX = 4;
 
 /**
- * Marks the Results summary `data-condensed` while the result tabs (their own scroll box side by side from 80em) are
- * scrolled down, without a render; the stylesheet then drops the lines under each figure. The two thresholds keep
- * the summary from flickering when its change of height moves the scroll position.
+ * Marks the Results summary `data-condensed` without a render, and the stylesheet then drops the lines under each
+ * figure: side by side (from 80em), while the result tabs (their own scroll box) are scrolled down; stacked, while
+ * the form has scrolled up under the stuck summary. The two thresholds keep the summary from flickering when its
+ * change of height moves the scroll position.
  */
 function useCondensedSummary(resultsRef: RefObject<HTMLElement | null>, summaryRef: RefObject<HTMLElement | null>) {
   useEffect(() => {
     const results = resultsRef.current;
     const summary = summaryRef.current;
-    if (!results || !summary) return;
-    const onScroll = () => {
+    const editing = summary?.parentElement;
+    if (!results || !summary || !editing) return;
+    const condense = (isPast: boolean, isBack: boolean) => {
       const isCondensed = summary.dataset.condensed === 'true';
-      if (!isCondensed && results.scrollTop > CONDENSE_FROM_PX) summary.dataset.condensed = 'true';
-      else if (isCondensed && results.scrollTop < CONDENSE_UNTIL_PX) summary.dataset.condensed = 'false';
+      if (!isCondensed && isPast) summary.dataset.condensed = 'true';
+      else if (isCondensed && isBack) summary.dataset.condensed = 'false';
     };
-    results.addEventListener('scroll', onScroll, { passive: true });
-    return () => results.removeEventListener('scroll', onScroll);
+    const onResultsScroll = () => condense(results.scrollTop > CONDENSE_FROM_PX, results.scrollTop < CONDENSE_UNTIL_PX);
+    const onPageScroll = () => {
+      const style = window.getComputedStyle(summary);
+      if (style.position !== 'sticky') return;
+      // How far the form has gone up under the stuck summary.
+      const underPx = (parseFloat(style.top) || 0) - editing.getBoundingClientRect().top;
+      condense(underPx > CONDENSE_FROM_PX, underPx < CONDENSE_UNTIL_PX);
+    };
+    results.addEventListener('scroll', onResultsScroll, { passive: true });
+    window.addEventListener('scroll', onPageScroll, { passive: true });
+    return () => {
+      results.removeEventListener('scroll', onResultsScroll);
+      window.removeEventListener('scroll', onPageScroll);
+    };
   }, [resultsRef, summaryRef]);
 }
 

@@ -11,6 +11,8 @@ export interface BenchRunListProps {
   selectedId: string | null;
   onSelect: (benchRunId: string) => void;
   canDelete: boolean;
+  /** What to do when there is none yet (default: where they are uploaded). */
+  emptyHint?: string;
 }
 
 /** The revision's bench runs with their verdicts (also what Sign-off shows). */
@@ -21,12 +23,18 @@ export function BenchRunList({
   selectedId,
   onSelect,
   canDelete,
+  emptyHint,
 }: BenchRunListProps) {
   const { data: runs, isPending, error } = useBenchRuns(projectId, designId, revisionNumber);
   const remove = useDeleteBenchRun(projectId, designId, revisionNumber);
   if (isPending) return <Text size="sm">Loading bench runs…</Text>;
   if (error) return <Text c="red">{error.message}</Text>;
-  if (runs.length === 0) return <Text size="sm">No bench runs for this revision yet.</Text>;
+  if (runs.length === 0)
+    return (
+      <Text size="sm">
+        No bench runs for this revision yet. {emptyHint ?? 'They are uploaded on the revision’s Bench runs page.'}
+      </Text>
+    );
   return (
     <Table aria-label="Bench runs of this revision" highlightOnHover>
       <Table.Thead>

@@ -28,7 +28,12 @@ export function CalibrationList({
 }) {
   const calibrations = useCalibrations(projectId, designId, revisionNumber);
   const rows = calibrations.data ?? [];
-  if (rows.length === 0) return <Text size="sm">No calibration of this revision.</Text>;
+  if (rows.length === 0)
+    return (
+      <Text size="sm">
+        No calibration of this revision. One is run on its Bench runs page, fitting chosen parameters to uploaded runs.
+      </Text>
+    );
   return (
     <Stack gap="xs">
       <Table aria-label="Calibrations">

@@ -42,6 +42,9 @@ export function BomCost({ projectId, design }: BomCostProps) {
           </Table.Tr>
         </Table.Tbody>
       </Table>
+      <Text size="xs" c="dimmed" mt="xs">
+        Costs in the team’s currency, from the project’s Parts shelf.
+      </Text>
       {bom.unpriced.length > 0 && (
         <Text size="sm" c="dimmed" mt="xs">
           Not priced (no shelf part): {bom.unpriced.map((item) => `${item.position} × ${item.quantity}`).join(', ')}

@@ -41,3 +41,13 @@ export function describeRatings(part: Part): string {
   items.push(...magneticsRatings(part));
   return items.join(' · ');
 }
+
+/**
+ * A shelf part's unit cost in the team's currency: two decimals, or two significant figures where that would read
+ * 0.00 (a metre of fine wire); wire and tape are priced per metre.
+ */
+export function describeUnitCost(part: Pick<Part, 'kind' | 'unitCost'>): string {
+  const cost = part.unitCost;
+  const amount = cost !== 0 && Math.abs(cost) < 0.1 ? String(Number(cost.toPrecision(2))) : cost.toFixed(2);
+  return part.kind === 'wire' || part.kind === 'tape' ? `${amount} per m` : amount;
+}

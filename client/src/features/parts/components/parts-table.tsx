@@ -5,7 +5,7 @@ import type { PartKind } from '@ladderwright/shared/api';
 import { useDeletePart } from '../api/delete-part';
 import { useParts } from '../api/get-parts';
 import { PART_KIND_OPTIONS } from './part-kinds';
-import { describeRatings } from './part-ratings';
+import { describeRatings, describeUnitCost } from './part-ratings';
 
 export interface PartsTableProps {
   projectId: string;
@@ -60,7 +60,13 @@ export function PartsTable({ projectId, canManage }: PartsTableProps) {
           )}
           {parts?.length === 0 && (
             <Table.Tr>
-              <Table.Td colSpan={7}>No parts match.</Table.Td>
+              <Table.Td colSpan={7}>
+                {kind !== null || q
+                  ? 'No parts match: clear the kind or the search to see the whole shelf.'
+                  : canManage
+                    ? 'The shelf is empty: add a part below, or import a CSV of parts.'
+                    : 'The shelf is empty: the project lead adds its parts.'}
+              </Table.Td>
             </Table.Tr>
           )}
           {parts?.map((part) => (
@@ -76,7 +82,9 @@ export function PartsTable({ projectId, canManage }: PartsTableProps) {
               <Table.Td>{part.description}</Table.Td>
               <Table.Td>{describeRatings(part)}</Table.Td>
               <Table.Td>{part.sizeMm}</Table.Td>
-              <Table.Td ta="right">{part.unitCost.toFixed(2)}</Table.Td>
+              <Table.Td ta="right" style={{ whiteSpace: 'nowrap' }}>
+                {describeUnitCost(part)}
+              </Table.Td>
               {canManage && (
                 <Table.Td>
                   <Tooltip label={`Remove ${part.code}`}>

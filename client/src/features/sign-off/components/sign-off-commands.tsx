@@ -44,7 +44,10 @@ export function SignOffCommands({ signOff }: { signOff: SignOff }) {
   if (!canSubmit && offered.length === 0) {
     return (
       <Text size="sm" c="dimmed">
-        No Sign-off command is open to you on this revision in its {signOff.state} state.
+        No Sign-off command is open to you on this revision in its {signOff.state} state
+        {signOff.state === 'submitted' && signOff.reviewers.length > 0
+          ? `: it was submitted to ${signOff.reviewers.map((person) => person.displayName).join(', ')}.`
+          : '.'}
       </Text>
     );
   }

@@ -123,6 +123,19 @@ describe('SignOffPanel', () => {
     expect(screen.getByText(/No Sign-off command is open to you/)).toBeInTheDocument();
   });
 
+  it('names whom a submitted revision went to when the caller is not among them', () => {
+    const lead = {
+      userId: 'u-lead',
+      displayName: 'Northfold Lead',
+      email: 'lead@northfold.test',
+      projectRole: 'lead' as const,
+    };
+    renderWithApp(<SignOffPanel signOff={{ ...base, state: 'submitted', reviewers: [lead], availableCommands: [] }} />);
+    expect(
+      screen.getByText(/No Sign-off command is open to you .* submitted state: it was submitted to Northfold Lead\./),
+    ).toBeInTheDocument();
+  });
+
   it('returns only with a note and posts it', async () => {
     fetchMock.mockResolvedValue(jsonResponse({ ...base, state: 'returned', availableCommands: [] }));
     renderWithApp(<SignOffPanel signOff={base} />);

@@ -188,7 +188,8 @@ export function TransformerSizerPanel({ shelf, design, onApply, assess }: Transf
             </Button>
           </Group>
         )}
-        <SimpleGrid cols={{ base: 1, sm: 2, md: 4 }} spacing="sm">
+        {/* Columns by the panel's own width (a results column or a page), so no label wraps beside its neighbour. */}
+        <SimpleGrid type="container" cols={{ base: 1, '380px': 2, '820px': 4 }} spacing="sm">
           <QuantityInput
             label="Primary inductance"
             unit="H"
@@ -233,7 +234,7 @@ export function TransformerSizerPanel({ shelf, design, onApply, assess }: Transf
           />
         </SimpleGrid>
       </Fieldset>
-      <SimpleGrid cols={{ base: 1, sm: 3 }} spacing="sm">
+      <SimpleGrid type="container" cols={{ base: 1, '380px': 2, '820px': 3 }} spacing="sm">
         <Select
           label="Primary and feedback wire"
           data={wireData}

@@ -106,7 +106,7 @@ export function DriverPanel({ driver }: DriverPanelProps) {
             <Text size="sm">output at the rated load {formatQuantity(op.ratedLoad.outputV, 'V')}</Text>
             <MethodNote subject="operating point" method={op.method} />
           </Group>
-          <Text size="sm">power limit above {formatQuantity(op.powerLimitOnsetA, 'A')}</Text>
+          <Text size="sm">power-limited above a load of {formatQuantity(op.powerLimitOnsetA, 'A')}</Text>
         </SimpleGrid>
         <DriverOperatingCurve operatingPoint={op} />
         <Table fz="sm" verticalSpacing={2} aria-label="Driver figures">
