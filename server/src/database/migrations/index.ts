@@ -14,6 +14,7 @@ import { calibrations } from './0012-calibrations';
 import { memberRequests } from './0013-member-requests';
 import { simulationBatches } from './0014-simulation-batches';
 import { calibrationEvaluations } from './0015-calibration-evaluations';
+import { modelRunHeartbeat } from './0018-model-run-heartbeat';
 
 /** Every schema step in order. Add new steps at the end. */
 export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
@@ -32,4 +33,5 @@ export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
   memberRequests,
   simulationBatches,
   calibrationEvaluations,
+  modelRunHeartbeat,
 ];
