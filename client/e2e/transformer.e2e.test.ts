@@ -91,8 +91,21 @@ describe('transformer journey', () => {
     await page.goto(`${baseUrl}/projects/${project.id}/designs/${design.id}`);
     await page.getByRole('heading', { name: 'Workbench', level: 1 }).waitFor();
 
-    // Given numbers -> designed from a core on the shelf.
+    // Given numbers -> designed from a core on the shelf: it starts on the core the Sizer ranks first for this
+    // driver (the E30, see below), its 1 mH and 1 : 60 kept, and says so.
     await page.getByLabel('Transformer from').getByText('Designed from a core').click();
+    const startNote = page.getByRole('status', { name: 'Starting core' });
+    await expect
+      .poll(() => startNote.textContent(), { timeout: 20_000 })
+      .toMatch(/NF-KE30-M1 is the only core of 7 that fits the driver’s 1 mH/);
+    expect(await startNote.textContent()).toMatch(/34 : 14 : 2040 turns/);
+    await shot(page, 'transformer-00-starting-core.png');
+    await page.setViewportSize({ width: 1024, height: 768 });
+    await startNote.waitFor();
+    await shot(page, 'transformer-00-starting-core-1024.png');
+    await page.setViewportSize({ width: 1440, height: 900 });
+    await page.getByRole('combobox', { name: 'Core', exact: true }).waitFor();
+    // Now the saturating case by hand.
     await choose(page, 'Core', /^NF-KE13-M2/);
     await setTurns(page, 'Primary turns', 15);
     await setTurns(page, 'Feedback turns', 6);

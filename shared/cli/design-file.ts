@@ -1,6 +1,7 @@
 import { readFileSync, statSync } from 'node:fs';
 import type { Design } from '../src/designs/design.types';
 import { designLimits } from '../src/designs/design-limits';
+import { withoutRetiredFields } from '../src/designs/retired-fields';
 import { validateDesign } from '../src/designs/validate-design';
 import { DomainError } from '../src/errors';
 
@@ -26,5 +27,5 @@ export function readDesignFile(path: string): Design {
   } catch (error) {
     throw new DomainError('invalid_design', `cannot read ${path} as JSON: ${(error as Error).message}`, 'DESIGN.json');
   }
-  return validateDesign(parsed);
+  return validateDesign(withoutRetiredFields(parsed));
 }

@@ -32,9 +32,10 @@ export function ChartFrame({ label, title, actions, data, children, footer }: Ch
   const drawn = () => {
     const svg = bodyRef.current?.querySelector('svg');
     if (!svg) throw new Error('nothing is drawn yet');
+    // A drawing scaled to fit its box is written at its own size (its attributes); a chart's attributes are its size.
     const box = svg.getBoundingClientRect();
-    const widthPx = Math.round(box.width) || Number(svg.getAttribute('width')) || 600;
-    const heightPx = Math.round(box.height) || Number(svg.getAttribute('height')) || 300;
+    const widthPx = Number(svg.getAttribute('width')) || Math.round(box.width) || 600;
+    const heightPx = Number(svg.getAttribute('height')) || Math.round(box.height) || 300;
     return { markup: standaloneSvg(svg, widthPx, heightPx), widthPx, heightPx };
   };
   const run = (task: () => Promise<void> | void) => {

@@ -17,7 +17,7 @@ import {
 import { formatQuantity } from '@ladderwright/shared/units';
 import { quantityAxis, type QuantityAxis } from '../lib/tick-format';
 import { ChartFrame } from './chart-frame';
-import type { ChartAxis, ChartSeries, QuantityChartProps } from './quantity-chart.types';
+import type { ChartAxis, ChartMarker, ChartSeries, QuantityChartProps } from './quantity-chart.types';
 
 type ChartRow = Readonly<Record<string, number | undefined>>;
 
@@ -48,11 +48,22 @@ function valuesOf(rows: readonly ChartRow[], keys: readonly string[]): number[] 
 
 /** The recharts drawing of a QuantityChart (loaded lazily through quantity-chart.tsx). */
 export function QuantityChartView(props: QuantityChartProps) {
-  const { data, x, y, y2, series, markers = [], bands = [], isZoomable = false } = props;
+  const { data, x, y, y2, series, markers = [], bands = [], isZoomable = false, firstViewXEnd } = props;
   const rows = useMemo(() => data.map((row) => ({ ...(row as ChartRow) })), [data]);
-  const [window, setWindow] = useState<{ start: number; end: number } | null>(null);
+  const firstView = useMemo(
+    () => firstWindow(rows, x.key, isZoomable ? firstViewXEnd : undefined),
+    [rows, x.key, isZoomable, firstViewXEnd],
+  );
+  const [window, setWindow] = useState<{ start: number; end: number } | null>(firstView);
+  // New data (another run) starts again from its own first view.
+  const [viewOf, setViewOf] = useState(firstView);
+  if (viewOf !== firstView) {
+    setViewOf(firstView);
+    setWindow(firstView);
+  }
   const visible = window ? rows.slice(window.start, window.end + 1) : rows;
   const isZoomed = window !== null && (window.start > 0 || window.end < rows.length - 1);
+  const isFirstView = window?.start === firstView?.start && window?.end === firstView?.end;
 
   const onAxis = (side: 'left' | 'right') => series.filter((s) => (s.axis ?? 'left') === side).map((s) => s.key);
   const bandKeys = bands.flatMap((band) => [band.lowKey, band.highKey]);
@@ -89,9 +100,14 @@ export function QuantityChartView(props: QuantityChartProps) {
       actions={
         <>
           {props.actions}
-          {isZoomed && (
-            <Button size="compact-xs" variant="subtle" onClick={() => setWindow(null)}>
+          {!isFirstView && (
+            <Button size="compact-xs" variant="subtle" onClick={() => setWindow(firstView)}>
               Reset zoom
+            </Button>
+          )}
+          {firstView !== null && isZoomed && (
+            <Button size="compact-xs" variant="subtle" onClick={() => setWindow(null)}>
+              Show all
             </Button>
           )}
         </>
@@ -188,7 +204,9 @@ export function QuantityChartView(props: QuantityChartProps) {
                   yAxisId="left"
                   x={marker.x}
                   stroke={marker.color}
-                  strokeDasharray="4 3"
+                  strokeWidth={marker.isDotted ? 2 : 1}
+                  strokeDasharray={marker.isDotted ? dotted : dashed}
+                  label={marker.tag ? markerTag(marker.tag, marker.color, tagSide(markers, marker)) : undefined}
                 />
               ) : (
                 <ReferenceLine
@@ -236,6 +254,33 @@ export function QuantityChartView(props: QuantityChartProps) {
       </div>
     </ChartFrame>
   );
+}
+
+const dashed = '4 3';
+const dotted = '1 3';
+
+/** A vertical mark's tag at the foot of the plot (a rising trace is high by then), on the side away from its neighbour. */
+const markerTag = (value: string, color: string, side: 'left' | 'right') => ({
+  value,
+  position: side === 'left' ? ('insideBottomRight' as const) : ('insideBottomLeft' as const),
+  fill: color,
+  fontSize: 11,
+  fontWeight: 600,
+});
+
+/** Tags of vertical marks face apart: the earliest's to the left of its line, the others' to the right. */
+function tagSide(markers: readonly ChartMarker[], marker: ChartMarker): 'left' | 'right' {
+  const times = markers.filter((m) => m.x !== undefined && m.y === undefined && m.tag).map((m) => m.x as number);
+  return times.length > 1 && marker.x === Math.min(...times) ? 'left' : 'right';
+}
+
+/** The rows up to `xEnd` as a zoom window (at least three samples), or null when they are all of them. */
+function firstWindow(rows: readonly ChartRow[], key: string, xEnd: number | undefined) {
+  if (xEnd === undefined || !Number.isFinite(xEnd)) return null;
+  let end = rows.findIndex((row) => (row[key] ?? -Infinity) > xEnd);
+  if (end < 0) return null;
+  end = Math.max(end, Math.min(2, rows.length - 1));
+  return end >= rows.length - 1 ? null : { start: 0, end };
 }
 
 /** The cursor read-out: the x value and every trace's value at it, in engineering notation. */
@@ -290,7 +335,10 @@ function ChartKey({
       ))}
       {markers.map((marker) => (
         <Group gap={4} key={marker.key} wrap="nowrap">
-          <Swatch color={marker.color} shape={marker.x !== undefined && marker.y !== undefined ? 'dot' : 'dash'} />
+          <Swatch
+            color={marker.color}
+            shape={marker.x !== undefined && marker.y !== undefined ? 'dot' : marker.isDotted ? 'dots' : 'dash'}
+          />
           <Text size="xs">{marker.label}</Text>
         </Group>
       ))}
@@ -298,12 +346,12 @@ function ChartKey({
   );
 }
 
-function Swatch({ color, shape }: { color: string; shape: 'line' | 'dash' | 'dot' | 'band' }) {
+function Swatch({ color, shape }: { color: string; shape: 'line' | 'dash' | 'dots' | 'dot' | 'band' }) {
   return (
     <svg width={18} height={10} aria-hidden="true">
       {shape === 'dot' && <circle cx={9} cy={5} r={4} fill={color} />}
       {shape === 'band' && <rect x={0} y={1} width={18} height={8} fill={color} opacity={0.3} />}
-      {(shape === 'line' || shape === 'dash') && (
+      {(shape === 'line' || shape === 'dash' || shape === 'dots') && (
         <line
           x1={0}
           x2={18}
@@ -311,7 +359,7 @@ function Swatch({ color, shape }: { color: string; shape: 'line' | 'dash' | 'dot
           y2={5}
           stroke={color}
           strokeWidth={2}
-          strokeDasharray={shape === 'dash' ? '4 3' : undefined}
+          strokeDasharray={shape === 'dash' ? dashed : shape === 'dots' ? dotted : undefined}
         />
       )}
     </svg>

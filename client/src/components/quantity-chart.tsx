@@ -37,4 +37,6 @@ export const chartColors = {
   ],
   mark: 'var(--mantine-color-ember-7)',
   secondMark: 'var(--mantine-color-gray-6)',
+  /** A mark beside `mark` on the same plot: dark blue against amber differs in hue and lightness for every colour vision. */
+  laterMark: 'var(--mantine-color-indigo-8)',
 } as const;

@@ -34,6 +34,10 @@ export interface ChartMarker {
   y?: number;
   axis?: 'left' | 'right';
   color: string;
+  /** A short name written on the plot beside a vertical line (e.g. "90 %"); the key gives the full label. */
+  tag?: string;
+  /** Draw the line dotted rather than dashed, so that two marks differ by more than their colour. */
+  isDotted?: boolean;
 }
 
 /** A band between two row keys (e.g. a predicted ripple range), drawn behind the traces. */
@@ -65,4 +69,9 @@ export interface QuantityChartProps {
   bands?: readonly ChartBand[];
   /** Time plots: a range slider under the chart to zoom and pan, with a reset. */
   isZoomable?: boolean;
+  /**
+   * A zoomable plot first shows its samples up to this x (SI units), e.g. a start-up without its long settled tail;
+   * "Show all" widens it to every sample and "Reset zoom" comes back to it.
+   */
+  firstViewXEnd?: number;
 }

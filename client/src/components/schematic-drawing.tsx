@@ -9,14 +9,26 @@ const verdictColor: Readonly<Record<PartVerdict, string>> = {
 
 /**
  * An SVG of a schematic layout: strokes as laid out, labels on a halo of the page colour so a wire behind a label
- * never strikes through it; verdict lines in their colour (they carry their word and number too).
+ * never strikes through it; verdict lines in their colour (they carry their word and number too). Fitted, a drawing
+ * wider than its box is scaled down to the box's width (never up); its width and height attributes stay the full
+ * size, which is what an export writes.
  */
-export function SchematicDrawing({ layout, label }: { layout: SchematicLayout; label: string }) {
+export function SchematicDrawing({
+  layout,
+  label,
+  isFitted = false,
+}: {
+  layout: SchematicLayout;
+  label: string;
+  isFitted?: boolean;
+}) {
   return (
     <svg
       width={layout.width}
       height={layout.height}
       viewBox={`0 0 ${layout.width} ${layout.height}`}
+      style={isFitted ? { display: 'block', maxWidth: '100%', height: 'auto' } : { display: 'block' }}
+      data-fitted={isFitted ? 'true' : 'false'}
       role="img"
       aria-label={label}
       fontFamily="Inter, sans-serif"

@@ -1,6 +1,7 @@
 import { ServiceUnavailableException } from '@nestjs/common';
+import { isDomainError } from '@ladderwright/shared/errors';
 import type { AppEnv } from '../config/env';
-import { busyOr, EnginePoolService, engineThreadCount } from './engine-pool.service';
+import { busyOr, ENGINE_OLD_GENERATION_MB, EnginePoolService, engineThreadCount } from './engine-pool.service';
 
 /** A pool whose queue is full: piscina 5 refuses every task with this error. */
 function fullPool() {
@@ -35,6 +36,32 @@ describe('EnginePoolService when its queue is full', () => {
     );
     const other = new Error('worker crashed');
     expect(busyOr(other)).toBe(other);
+  });
+});
+
+describe('EnginePoolService when a thread reaches its heap cap', () => {
+  const env = { engineWorkers: 1, engineBudgetMs: 5_000 } as AppEnv;
+
+  it('refuses the document with 422 budget_exceeded naming the memory, not 500', async () => {
+    const service = new EnginePoolService(env);
+    // What piscina 5 rejects with when node stops a thread at its resourceLimits (checked by hand with a 16 MB cap).
+    const outOfMemory = Object.assign(
+      new Error('Worker terminated due to reaching memory limit: JS heap out of memory'),
+      {
+        code: 'ERR_WORKER_OUT_OF_MEMORY',
+      },
+    );
+    const pool = {
+      run: (task: { kind: string }) => (task.kind === 'warm-up' ? Promise.resolve(null) : Promise.reject(outOfMemory)),
+    };
+    (service as unknown as { ensurePool: () => unknown }).ensurePool = () => pool;
+
+    const error: unknown = await service
+      .run({ kind: 'analyze', document: {} as never })
+      .catch((caught: unknown) => caught);
+    expect(isDomainError(error)).toBe(true);
+    expect(error).toMatchObject({ code: 'budget_exceeded', field: 'document' });
+    expect((error as Error).message).toContain(`${ENGINE_OLD_GENERATION_MB} MB`);
   });
 });
 

@@ -25,6 +25,19 @@ export function busyOr(error: unknown): unknown {
 const ENGINE_YOUNG_GENERATION_MB = 6;
 
 /**
+ * The old generation of an engine thread's heap. Beside its ceiling, the cap sets how far V8 lets the heap grow between
+ * full collections: under 256 MB it grows to about 1.3 times what was alive after the last one, where an uncapped
+ * thread (V8 sizes it from the machine's memory) lets garbage pile up to four times that. A 400-cell ladder, the
+ * largest the domain allows, keeps an engine thread's whole heap near 23 MB.
+ */
+export const ENGINE_OLD_GENERATION_MB = 128;
+
+/** A thread stopped at its heap cap (`ENGINE_OLD_GENERATION_MB`), as node's worker reports it. */
+function isOutOfMemory(error: unknown): boolean {
+  return (error as { code?: unknown } | null)?.code === 'ERR_WORKER_OUT_OF_MEMORY';
+}
+
+/**
  * Engine threads for `requested` (`AppEnv.engineWorkers`) on a machine with `cores`: never more than the cores less
  * one, so that the request thread always keeps a core and answers every other request while the engine is busy.
  */
@@ -68,6 +81,14 @@ export class EnginePoolService implements OnModuleDestroy {
           'document',
         );
       }
+      if (isOutOfMemory(error)) {
+        this.ready = null;
+        throw new DomainError(
+          'budget_exceeded',
+          `the engine needed more than its ${ENGINE_OLD_GENERATION_MB} MB of memory for this document; reduce the ladder or run a simulation job`,
+          'document',
+        );
+      }
       throw busyOr(error);
     } finally {
       clearTimeout(timer);
@@ -99,7 +120,10 @@ export class EnginePoolService implements OnModuleDestroy {
       maxThreads: engineThreadCount(this.env.engineWorkers),
       idleTimeout: 60_000,
       maxQueue: 'auto',
-      resourceLimits: { maxYoungGenerationSizeMb: ENGINE_YOUNG_GENERATION_MB },
+      resourceLimits: {
+        maxYoungGenerationSizeMb: ENGINE_YOUNG_GENERATION_MB,
+        maxOldGenerationSizeMb: ENGINE_OLD_GENERATION_MB,
+      },
     });
     return this.pool;
   }

@@ -3,7 +3,7 @@ import { InjectModel } from '@nestjs/sequelize';
 import { QueryTypes } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import type { CreateDesignRequest, DesignDetail, DesignPage, DesignSummary } from '@ladderwright/shared/api';
-import type { Design } from '@ladderwright/shared/designs';
+import { withoutRetiredFields, type Design } from '@ladderwright/shared/designs';
 import { DomainError } from '@ladderwright/shared/errors';
 import type { RevisionState } from '@ladderwright/shared/reviews';
 import { AnalysisService } from '../analysis/analysis.service';
@@ -156,14 +156,14 @@ export class DesignsService {
         '(document)',
       );
     const file = body as Record<string, unknown>;
-    if (!('format' in file)) return this.analysis.parseDocument(file, '');
+    if (!('format' in file)) return this.analysis.parseDocument(withoutRetiredFields(file), '');
     if (file.format !== 'ladderwright-design') {
       throw new DomainError('invalid_argument', "format must be 'ladderwright-design'", 'format');
     }
     if (file.formatVersion !== 1) {
       throw new DomainError('unsupported_version', 'formatVersion must be 1', 'formatVersion');
     }
-    return this.analysis.parseDocument(file.design, 'design');
+    return this.analysis.parseDocument(withoutRetiredFields(file.design), 'design');
   }
 
   private async createWithFirstRevision(

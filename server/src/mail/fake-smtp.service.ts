@@ -2,7 +2,13 @@ import { Inject, Injectable, Logger, type OnApplicationBootstrap, type OnApplica
 import { InjectModel } from '@nestjs/sequelize';
 import { APP_ENV, type AppEnv } from '../config/env';
 import { CapturedMailModel } from './captured-mail.model';
-import { type FakeSmtpServer, startFakeSmtpServer } from './fake-smtp-server';
+import type * as FakeSmtpModule from './fake-smtp-server';
+
+/** smtp-server, loaded only with SMTP_FAKE=1. */
+function loadFakeSmtp(): typeof FakeSmtpModule {
+  // eslint-disable-next-line @typescript-eslint/no-require-imports -- a lazy load; import() would need ESM here
+  return require('./fake-smtp-server') as typeof FakeSmtpModule;
+}
 
 /**
  * With SMTP_FAKE=1 (npm start, browser journeys) the server itself listens for SMTP on loopback in place
@@ -12,7 +18,7 @@ import { type FakeSmtpServer, startFakeSmtpServer } from './fake-smtp-server';
 @Injectable()
 export class FakeSmtpService implements OnApplicationBootstrap, OnApplicationShutdown {
   private readonly logger = new Logger('FakeSmtp');
-  private server: FakeSmtpServer | null = null;
+  private server: FakeSmtpModule.FakeSmtpServer | null = null;
 
   constructor(
     @Inject(APP_ENV) private readonly env: AppEnv,
@@ -22,7 +28,7 @@ export class FakeSmtpService implements OnApplicationBootstrap, OnApplicationShu
   async onApplicationBootstrap(): Promise<void> {
     if (!this.env.smtpFake || !this.env.smtpHost || !this.env.smtpPort) return;
     try {
-      this.server = await startFakeSmtpServer({
+      this.server = await loadFakeSmtp().startFakeSmtpServer({
         host: this.env.smtpHost,
         port: this.env.smtpPort,
         onMessage: async (mail) => {

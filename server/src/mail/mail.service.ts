@@ -1,6 +1,6 @@
 import { Inject, Injectable, Logger, type OnApplicationBootstrap, type OnApplicationShutdown } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
-import { createTransport, type Transporter } from 'nodemailer';
+import type * as Nodemailer from 'nodemailer';
 import { QueryTypes, type Transaction } from 'sequelize';
 import { Sequelize } from 'sequelize-typescript';
 import type { Outbox } from '@ladderwright/shared/api';
@@ -31,6 +31,12 @@ const MAX_ATTEMPTS = 25;
 const CLAIM_LEASE_S = 120;
 const BATCH_SIZE = 20;
 
+/** nodemailer, loaded only by an instance that has an SMTP server to send to. */
+function loadNodemailer(): typeof Nodemailer {
+  // eslint-disable-next-line @typescript-eslint/no-require-imports -- a lazy load; import() would need ESM here
+  return require('nodemailer') as typeof Nodemailer;
+}
+
 /**
  * Notification mail through a queue table: `enqueue` writes in the caller's transaction, so a change and
  * its mail commit together; a retrying sender delivers over SMTP with exponential backoff. A failing
@@ -39,7 +45,7 @@ const BATCH_SIZE = 20;
 @Injectable()
 export class MailService implements OnApplicationBootstrap, OnApplicationShutdown {
   private readonly logger = new Logger('Mail');
-  private readonly transport: Transporter | null;
+  private readonly transport: Nodemailer.Transporter | null;
   private timer: NodeJS.Timeout | null = null;
   private running: Promise<number> | null = null;
   private isStopped = false;
@@ -52,7 +58,7 @@ export class MailService implements OnApplicationBootstrap, OnApplicationShutdow
   ) {
     this.transport =
       env.smtpHost && env.smtpPort
-        ? createTransport({
+        ? loadNodemailer().createTransport({
             host: env.smtpHost,
             port: env.smtpPort,
             secure: false,

@@ -1,5 +1,6 @@
 import { simulationSourceLabel } from '@ladderwright/shared/analysis';
 import { documentFieldLabel, resultFieldLabel } from '@ladderwright/shared/designs';
+import { dischargeRuleLimits } from '@ladderwright/shared/safety';
 import type { SpecSheetContent } from './spec-sheet.types';
 import { type Doc, ensureRoom, heading, INK, keyValues, MARGIN, q, TEXT_WIDTH, WARN } from './spec-sheet-layout';
 
@@ -9,18 +10,27 @@ export function safetySection(doc: Doc, c: SpecSheetContent): void {
   const { document } = c;
   const report = c.headline.report;
   const rule = document.targets.dischargeRule;
-  const dischargeSource = c.headline.simulatedKeys.includes('discharge')
-    ? ` (${simulationSourceLabel(c.headline)})`
-    : ' (estimate)';
+  const ruleV = dischargeRuleLimits(rule).voltageV;
+  const safeV = document.targets.safeVoltageV;
+  // A stored simulation discharges to the rule's voltage: it gives the time to the safe voltage only where they are one.
+  const simulated = c.headline.simulatedKeys.includes('discharge') ? ` (${simulationSourceLabel(c.headline)})` : null;
+  const timeTo = (timeS: number | null | undefined, source: string) =>
+    timeS === null || timeS === undefined ? 'no discharge path: fit a bleeder' : `${q(timeS, 's')}${source}`;
   keyValues(doc, [
     [`${resultFieldLabel('storedEnergyJ').label}, all capacitors`, q(report.storedEnergyJ, 'J')],
     [`${resultFieldLabel('storedChargeC').label}, all capacitors`, q(report.storedChargeC, 'C')],
     [
-      `Bleeder discharge to ${q(document.targets.safeVoltageV, 'V')}`,
-      report.dischargeTimeS === null
-        ? 'no discharge path: fit a bleeder'
-        : `${q(report.dischargeTimeS, 's')}${dischargeSource}`,
+      `Bleeder discharge to ${q(safeV, 'V')}`,
+      timeTo(report.dischargeTimeS, ruleV === safeV && simulated ? simulated : ' (estimate)'),
     ],
+    ...(ruleV === safeV || report.dischargeTimeToRuleS === undefined
+      ? []
+      : [
+          [
+            `Bleeder discharge to ${q(ruleV, 'V')}`,
+            timeTo(report.dischargeTimeToRuleS, simulated ?? ' (estimate)'),
+          ] as [string, string],
+        ]),
     [
       documentFieldLabel('targets.dischargeRule').label,
       typeof rule === 'string' ? rule : `${q(rule.voltageV, 'V')} within ${q(rule.timeS, 's')}`,

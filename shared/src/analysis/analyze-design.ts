@@ -3,7 +3,6 @@ import type { Design, DischargeRule, PulseDrive, SineDrive } from '../designs/de
 import { estimateBlockingOscillator } from '../driver/blocking-oscillator';
 import { driverReport, type DriverReport } from '../driver/driver-report';
 import type { DriverStage } from '../designs/driver-stage.types';
-import type { DriverCheckVerdict } from '../driver/driver-checks';
 import type { MethodInfo } from '../methods';
 import { isFlybackFed, solveLoadPoint } from '../driver/operating-point';
 import { forwardShareOf } from '../driver/ring-back';
@@ -25,6 +24,7 @@ import { withEffectiveTransformer } from '../transformer/given-numbers';
 import type { TransformerReport } from '../transformer/transformer.types';
 import { transformerDriverEffect } from './transformer-effect';
 import { designedTransformerReport, withGivenTransformer } from './transformer-report';
+import { ladderDischargePhases } from './ladder-discharge';
 
 /** Report of a bare ladder: figures (SI, signed by polarity), curves, stored energy, discharge and how each was computed. */
 export interface LadderReport extends Pick<
@@ -42,6 +42,8 @@ export interface LadderReport extends Pick<
   storedChargeC: number;
   /** Bleeder discharge from the operating voltage to the safe voltage; null without a bleeder or a safe voltage. */
   dischargeTimeS: number | null;
+  /** The same to the discharge rule's voltage (what its check judges and a simulation runs to); absent in older reports. */
+  dischargeTimeToRuleS?: number | null;
   analysis: LadderAnalysis;
   curves: LadderCurves;
   storedEnergy: StoredEnergySummary;
@@ -85,17 +87,15 @@ export function analyzeLadderReport(input: LadderInput, options: LadderReportOpt
   const curves = ladderCurves(input);
   const energy = storedEnergy(analysis.capacitors, analysis.ladderTopMeanV);
   const checks: CheckVerdict[] = [...storedEnergyChecks(energy, analysis.ladderTopMeanV)];
-  let dischargeTime: number | null = null;
+  let discharge: ReturnType<typeof dischargeCheck> | null = null;
   if (options.safeVoltageV !== undefined) {
-    const discharge = dischargeCheck({
+    discharge = dischargeCheck({
       bleederOhm: input.bleederOhm,
-      equivalentCapacitanceF: energy.outputEquivalentCapacitanceF,
-      outputV: analysis.ladderTopMeanV,
+      phases: ladderDischargePhases(analysis, energy),
       safeVoltageV: options.safeVoltageV,
       rule: options.dischargeRule ?? { voltageV: options.safeVoltageV, timeS: 60 },
       storedChargeC: energy.outputEquivalentChargeC,
     });
-    dischargeTime = discharge.dischargeTimeS;
     checks.push(discharge.verdict);
   }
   return {
@@ -113,7 +113,8 @@ export function analyzeLadderReport(input: LadderInput, options: LadderReportOpt
     textbookDropV: analysis.textbook.dropV,
     storedEnergyJ: energy.totalEnergyJ,
     storedChargeC: energy.totalChargeC,
-    dischargeTimeS: dischargeTime,
+    dischargeTimeS: discharge?.dischargeTimeS ?? null,
+    dischargeTimeToRuleS: discharge?.dischargeTimeToRuleS ?? null,
     analysis,
     curves,
     storedEnergy: energy,
@@ -219,10 +220,6 @@ const DRIVER_OPERATING_METHOD: MethodInfo = {
   source: 'driver-ladder.power-balance-v2 with charge-transfer-v1',
 };
 
-function asCheck(v: DriverCheckVerdict): CheckVerdict {
-  return { ...v, caution: HV_CAUTION };
-}
-
 /** The bare-ladder input of a design. */
 export function ladderInputOf(
   design: Design,
@@ -253,7 +250,7 @@ function stageWorkingVoltages(analysis: LadderAnalysis): number[] {
 
 /**
  * Full report of a validated design: steady-state analysis, curves, stored energy, discharge, spacing and
- * every check verdict, with method notes. Safety verdicts carry HV_CAUTION.
+ * every check verdict, with method notes, and HV_CAUTION once for all of them (`caution`).
  */
 export function analyzeDesign(givenDesign: Design): DesignReport {
   const design = withEffectiveTransformer(givenDesign);
@@ -345,7 +342,7 @@ export function analyzeDesign(givenDesign: Design): DesignReport {
       }),
     );
   }
-  if (driver) checks.push(...driver.checks.map(asCheck));
+  if (driver) checks.push(...driver.checks);
   const designedTransformer = underDrive(() => designedTransformerReport(design, driver));
   const transformer = designedTransformer && {
     ...designedTransformer,
@@ -355,7 +352,7 @@ export function analyzeDesign(givenDesign: Design): DesignReport {
       analyzeDesign(withGivenTransformer(givenDesign)),
     ),
   };
-  if (transformer) checks.push(...transformer.checks.map((c) => ({ ...c, caution: HV_CAUTION })));
+  if (transformer) checks.push(...transformer.checks);
   const rippleOk = analysis.ripplePeakToPeakV <= targets.rippleMaxV;
   const outputOk =
     Math.sign(analysis.outputMeanV) === Math.sign(targets.outputV) &&

@@ -12,3 +12,5 @@ export { driverSizerFigures, withTransformerSection } from './transformer-sizer-
 export { checksWorsenedBySection, sectionAssessor } from './section-on-design';
 export type { WorsenedCheck } from './section-on-design';
 export type { DriverSizerFigures } from './transformer-sizer-inputs';
+export { startingTransformer } from './transformer-start';
+export type { MagneticsKinds, StartingTransformer } from './transformer-start';

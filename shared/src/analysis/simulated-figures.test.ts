@@ -108,6 +108,25 @@ describe('headlineSource', () => {
     expect(again.verdict).toBe('fail');
   });
 
+  it('sets a simulated discharge beside the estimate to the same level: the rule’s voltage, not the safe voltage', () => {
+    // The detector-bias demo: safe voltage 50 V, rule '60V-5s' (NFPA 79 6.5.1, read), to whose 60 V a simulation runs.
+    const detector = designExamples.detectorBias;
+    const detectorReport = analyzeDesign(detector);
+    const toRuleS = detectorReport.dischargeTimeToRuleS!;
+    expect(toRuleS).toBeLessThan(detectorReport.dischargeTimeS!);
+    const headline = headlineSource(
+      detectorReport,
+      { ...simulated(), outputMeanV: null, ripplePeakToPeakV: null, dischargeTimeS: toRuleS * 1.01 },
+      detector.targets,
+    );
+    const difference = headline.differences.find((entry) => entry.key === 'discharge')!;
+    expect(difference.estimate).toBe(toRuleS);
+    expect(difference.difference).toBeCloseTo(1 / 1.01 - 1, 12);
+    expect(headline.report.dischargeTimeToRuleS).toBe(toRuleS * 1.01);
+    // The time to 50 V stays the estimate's: the run stopped at 60 V.
+    expect(headline.report.dischargeTimeS).toBe(detectorReport.dischargeTimeS);
+  });
+
   it('judges the targets on the simulated figures', () => {
     const low = headlineSource(report, simulated({ outputMeanV: tester.targets.outputV * 0.5 }), tester.targets);
     expect(low.report.meetsTargets.output).toBe(false);

@@ -1,5 +1,6 @@
 import { ESTIMATE_VALIDITY_BOUNDS } from '../driver';
-import { upperLimitVerdict, type CheckVerdict } from '../safety';
+import type { DischargeRule } from '../designs/design.types';
+import { dischargeRuleLimits, upperLimitVerdict, type CheckVerdict } from '../safety';
 import { formatQuantity } from '../units';
 import type { DesignReport } from './analyze-design';
 import {
@@ -61,6 +62,12 @@ function difference(
   };
 }
 
+/** The discharge rule's voltage is the design's safe voltage (a time to one is a time to the other); true when not told. */
+function isRuleAtSafeLevel(targets: { safeVoltageV?: number; dischargeRule?: DischargeRule }): boolean {
+  if (targets.safeVoltageV === undefined || targets.dischargeRule === undefined) return true;
+  return dischargeRuleLimits(targets.dischargeRule).voltageV === targets.safeVoltageV;
+}
+
 /** The discharge-time check evaluated again on the simulated time, against the same limit. */
 function dischargeCheckAt(check: CheckVerdict, dischargeTimeS: number): CheckVerdict {
   if (check.unit !== 's') return check;
@@ -83,7 +90,7 @@ function dischargeCheckAt(check: CheckVerdict, dischargeTimeS: number): CheckVer
 export function headlineSource(
   report: DesignReport,
   simulation: SimulatedFigures | null,
-  targets: { outputV: number; rippleMaxV: number },
+  targets: { outputV: number; rippleMaxV: number; safeVoltageV?: number; dischargeRule?: DischargeRule },
 ): HeadlineSource {
   if (!simulation || simulation.engineVersion !== report.engineVersion) return estimateHeadline(report);
   const driver = report.driver;
@@ -112,11 +119,15 @@ export function headlineSource(
     );
     next.ripplePeakToPeakV = simulation.ripplePeakToPeakV;
   }
-  if (simulation.dischargeTimeS !== null && report.dischargeTimeS !== null) {
+  // A simulation discharges to the rule's voltage (its check's level): it is set beside the estimate to the same level,
+  // and stands for the time to the safe level only where the two levels are one.
+  const estimateToRuleS = report.dischargeTimeToRuleS ?? report.dischargeTimeS;
+  if (simulation.dischargeTimeS !== null && estimateToRuleS !== null) {
     simulatedKeys.push('discharge');
-    push(difference('discharge', 'Discharge time', report.dischargeTimeS, simulation.dischargeTimeS, null));
+    push(difference('discharge', 'Discharge time', estimateToRuleS, simulation.dischargeTimeS, null));
     const dischargeTimeS = simulation.dischargeTimeS;
-    next.dischargeTimeS = dischargeTimeS;
+    next.dischargeTimeToRuleS = dischargeTimeS;
+    if (isRuleAtSafeLevel(targets)) next.dischargeTimeS = dischargeTimeS;
     next.checks = report.checks.map((check) =>
       check.id === 'discharge-time' ? dischargeCheckAt(check, dischargeTimeS) : check,
     );

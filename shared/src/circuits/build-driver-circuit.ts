@@ -3,6 +3,7 @@ import { buildLadderCircuit, type LadderCircuitSpec } from './build-ladder-circu
 import type { Circuit, CircuitElement } from '../sim/circuit.types';
 import { diodeModelOf, npnModelOf } from './device-models';
 import { supplyThevenin } from '../driver/battery';
+import { rcdClampPartsOf } from '../driver/rcd-clamp';
 import type { DriverStage } from '../designs/driver-stage.types';
 
 /** Node names of the driver circuit a caller probes. */
@@ -159,6 +160,7 @@ export function buildDriverCircuit(driver: DriverStage, options: DriverCircuitOp
       model: diodeModelOf(CLAMP_DIODE, { ...clamp, breakdownVoltageV: clamp.clampVoltageV }),
     });
   } else if (clamp?.kind === 'rcd') {
+    const rcd = rcdClampPartsOf(clamp);
     el.push({
       kind: 'diode',
       name: 'Dc',
@@ -171,14 +173,14 @@ export function buildDriverCircuit(driver: DriverStage, options: DriverCircuitOp
       name: 'Cclp',
       nodeA: 'clp',
       nodeB: n.supply,
-      capacitanceF: clamp.capacitorF ?? 10e-9,
+      capacitanceF: rcd.capacitorF,
     });
     el.push({
       kind: 'resistor',
       name: 'Rclp',
       nodeA: 'clp',
       nodeB: n.supply,
-      resistanceOhm: clamp.resistorOhm ?? 10e3,
+      resistanceOhm: rcd.resistorOhm,
     });
   }
   if (driver.indicatorLamp) {

@@ -92,7 +92,6 @@ describe('device fields of a design in the exported netlist', () => {
     expect(zener).toMatchObject({ BV: 45, IBV: 5e-3, CJO: 200e-12, VJ: 1, M: 0.5 });
     driver.clamp = {
       kind: 'rcd',
-      clampVoltageV: 40,
       junctionCapacitanceF: 30e-12,
       gradingCoefficient: 0.45,
       breakdownVoltageV: 200,

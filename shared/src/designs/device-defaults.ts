@@ -29,3 +29,9 @@ export const DIODE_MODEL_DEFAULTS = {
   gradingCoefficient: 0.5,
   breakdownCurrentA: 1e-3,
 } as const;
+
+/**
+ * An RCD clamp's resistor and capacitor when the design gives none: 10 kΩ and 10 nF, a small stage's clamp
+ * (common practice, no source). The simulated circuit and the estimate both take them.
+ */
+export const RCD_CLAMP_DEFAULTS = { resistorOhm: 10e3, capacitorF: 10e-9 } as const;

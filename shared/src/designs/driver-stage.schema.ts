@@ -184,9 +184,15 @@ export const driverClampSchema = Type.Union(
   [
     closedObject({
       kind: Type.Literal('rcd'),
-      clampVoltageV: positive(L.maxVoltageV),
-      resistorOhm: Type.Optional(positive(L.maxResistanceOhm)),
-      capacitorF: Type.Optional(positive(L.maxCapacitanceF)),
+      resistorOhm: Type.Optional(
+        positive(
+          L.maxResistanceOhm,
+          'Clamp resistor across the clamp capacitor; with it the flyback energy sets the clamp level; 10 kΩ if absent.',
+        ),
+      ),
+      capacitorF: Type.Optional(
+        positive(L.maxCapacitanceF, 'Clamp capacitor from the clamp diode to the supply; 10 nF if absent.'),
+      ),
       ratedPowerW: Type.Optional(positive(L.maxPowerW, 'Power rating of the clamp resistor; 0.25 W if absent.')),
       ...diodeJunctionFields(),
       breakdownVoltageV: Type.Optional(

@@ -31,7 +31,6 @@ function everyField(): Design {
   driver.batteryLifeTargetH = 100;
   driver.clamp = {
     kind: 'rcd',
-    clampVoltageV: 30,
     resistorOhm: 10e3,
     capacitorF: 10e-9,
     ratedPowerW: 0.5,

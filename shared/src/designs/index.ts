@@ -3,7 +3,7 @@ export { capacitorCountFor } from './capacitor-count';
 export { designDocumentSchema, designSchema, DESIGN_SCHEMA_VERSION } from './design.schema';
 export { NAMED_DISCHARGE_RULES } from './discharge-rules';
 export { designLimits } from './design-limits';
-export { TRANSISTOR_MODEL_DEFAULTS, DIODE_MODEL_DEFAULTS } from './device-defaults';
+export { TRANSISTOR_MODEL_DEFAULTS, DIODE_MODEL_DEFAULTS, RCD_CLAMP_DEFAULTS } from './device-defaults';
 export { designExamples } from './design-examples';
 export type {
   Design,
@@ -30,3 +30,4 @@ export {
   DOCUMENT_FIELD_PATTERNS,
 } from './field-labels';
 export type { FieldLabel, FieldDisplay } from './field-labels';
+export { withoutRetiredFields } from './retired-fields';

@@ -1,4 +1,5 @@
 import { DomainError } from '../errors';
+import { bracketedRoot } from '../multiplier/bracketed-root';
 import {
   customCellRateModel,
   defaultCellCurves,
@@ -151,7 +152,7 @@ const batteryLifeMethod: MethodInfo = {
  * `currentAtTerminalV(V)` gives the supply current (A) at terminal voltage V (V). The terminal voltage at
  * each state of charge solves V = n·(Voc(σ) − I(V)·R) by secant steps on the fixed point. Integration: composite
  * Gauss-Legendre (4 points) on each curve segment, 8 sub-intervals per segment, down to the end point
- * found by bisection. Method: charge balance, see `batteryLifeMethod`.
+ * found by Brent's method. Method: charge balance, see `batteryLifeMethod`.
  */
 export function batteryLife(supply: CellsSupply, currentAtTerminalV: (terminalV: number) => number): BatteryLifeResult {
   if (!(supply.capacityAh > 0))
@@ -187,7 +188,8 @@ export function batteryLife(supply: CellsSupply, currentAtTerminalV: (terminalV:
   };
   const margin = (sigma: number): number => currentAt(sigma).cellV - supply.endVoltagePerCellV;
   const rateModel = cellRateModelOf(supply);
-  if (margin(1) <= 0) {
+  const marginAtFull = margin(1);
+  if (marginAtFull <= 0) {
     return {
       lifeS: { value: 0, method: batteryLifeMethod },
       endChargeFraction: 1,
@@ -197,15 +199,10 @@ export function batteryLife(supply: CellsSupply, currentAtTerminalV: (terminalV:
     };
   }
   let endSigma = 0;
-  if (margin(0) < 0) {
-    let lo = 0;
-    let hi = 1;
-    for (let k = 0; k < 60; k++) {
-      const mid = 0.5 * (lo + hi);
-      if (margin(mid) < 0) lo = mid;
-      else hi = mid;
-    }
-    endSigma = hi;
+  const marginAtEmpty = margin(0);
+  if (marginAtEmpty < 0) {
+    // Brent's method to 1e-14 of the state of charge: the life moves by less than 1e-13 of itself.
+    endSigma = bracketedRoot(margin, 0, 1, marginAtEmpty, marginAtFull, 1e-14);
   }
   const breaks = [endSigma, ...curve.map((p) => p.chargeFraction).filter((s) => s > endSigma && s < 1), 1];
   const gaussX = [-0.8611363115940526, -0.3399810435848563, 0.3399810435848563, 0.8611363115940526];

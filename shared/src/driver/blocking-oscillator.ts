@@ -7,7 +7,8 @@ import type {
   BlockingOscillatorOptions,
   OscillatorNumbers,
 } from './blocking-oscillator.types';
-import { checkStage, collectorNodeCapacitanceOf, stageAt } from './oscillator-stage';
+import { checkStage } from './check-stage';
+import { collectorNodeCapacitanceOf, stageAt } from './oscillator-stage';
 
 const source3 =
   'Wikipedia "Blocking oscillator" (read); Pressman, Switching Power Supply Design, 3rd ed. (from memory)';
@@ -277,9 +278,11 @@ function voltageAndPowerEstimates(
         'bo.flyback-peak',
         options.flybackSecondaryPeakV !== undefined
           ? 'V₋ held by the load, capped by the clamp or breakdown limit.'
-          : driver.clamp
-            ? 'V₋ = k·(V_clamp − Vin)·N_s/N_p: the largest flyback the collector clamp allows (no load holding it lower).'
-            : 'V₋ = k·(Vce0,max − Vin)·N_s/N_p: with no clamp and no load the flyback rises to the collector breakdown.',
+          : driver.clamp?.kind === 'rcd'
+            ? 'V₋ = k·Vr·N_s/N_p with the primary at the RCD clamp’s level Vc = k²·Vr, where its resistor takes the whole flyback: ½·C·Vc²·(1 − e^(−2T/RC)) = ½·Lp·(Ipk² − I0²) per cycle (pulse-charged RC; Vc²/R = E·f when T ≪ RC).'
+            : driver.clamp
+              ? 'V₋ = k·(V_clamp − Vin)·N_s/N_p: the largest flyback the collector clamp allows (no load holding it lower).'
+              : 'V₋ = k·(Vce0,max − Vin)·N_s/N_p: with no clamp and no load the flyback rises to the collector breakdown.',
       ),
     ),
     maxFlybackSecondaryPeakV: r.maxFlybackSecV,
@@ -288,9 +291,11 @@ function voltageAndPowerEstimates(
       r.collectorPeakV,
       method(
         'bo.collector-peak-voltage',
-        driver.clamp
-          ? 'Vce,pk = min(V_clamp, Vin + Vr + Ipk·√(L_lk/C)).'
-          : 'Vce,pk = Vin + Vr + Ipk·√(L_lk/C), leakage L_lk = (1 − k²)·Lp into the collector node capacitance C.',
+        driver.clamp?.kind === 'rcd'
+          ? 'Vce,pk = min(Vin + Vc, Vin + Vr + Ipk·√(L_lk/C)): the RCD clamp’s capacitor at the flyback’s primary-side peak k²·Vr, at least where its resistor takes the leakage energy, ½·C·Vc²·(1 − e^(−2T/RC)) = ½·(1 − k²)·Lp·Ipk²; its resistor’s power beyond that energy comes out of the flyback the load gets.'
+          : driver.clamp
+            ? 'Vce,pk = min(V_clamp, Vin + Vr + Ipk·√(L_lk/C)).'
+            : 'Vce,pk = Vin + Vr + Ipk·√(L_lk/C), leakage L_lk = (1 − k²)·Lp into the collector node capacitance C.',
         [`collector node capacitance ${nodeC} F`],
       ),
     ),

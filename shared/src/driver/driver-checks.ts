@@ -30,6 +30,8 @@ export interface DriverChecksInput {
   loadCapacity?: { loadCurrentA: number; maxLoadCurrentA: number };
   /** The rated load point already solved with this ladder and load (`solveLoadPoint`), so it is not solved again. */
   ratedLoad?: LoadPoint & { driver: BlockingOscillatorEstimate };
+  /** The stage at its clamp limit with the ladder's secondary load (`estimateBlockingOscillator`), already computed. */
+  atLimit?: BlockingOscillatorEstimate;
   /** Overrides the stage's own `batteryLifeTargetH`. */
   batteryLifeTargetS?: number;
 }
@@ -136,10 +138,12 @@ function supplyCurrentTable(
  */
 export function runDriverChecks(driver: DriverStage, input: DriverChecksInput = {}): DriverChecksResult {
   const loadA = input.ratedLoadCurrentA ?? 0;
-  const estimate = estimateBlockingOscillator(
-    driver,
-    input.ladder?.secondaryLoad ? { secondaryLoad: input.ladder.secondaryLoad } : {},
-  );
+  const estimate =
+    input.atLimit ??
+    estimateBlockingOscillator(
+      driver,
+      input.ladder?.secondaryLoad ? { secondaryLoad: input.ladder.secondaryLoad } : {},
+    );
   const solved = input.ladder ? (input.ratedLoad ?? solveLoadPoint(driver, input.ladder, loadA)) : null;
   const atLoad = solved?.driver ?? estimate;
   const ratedLoad = solved;

@@ -152,6 +152,7 @@ export function driverReport(driver: DriverStage, ladder: LadderLoadLine, ratedL
   const op = driverOperatingPoint(driver, ladder, ratedLoadCurrentA);
   const checks = runDriverChecks(driver, {
     ladder,
+    atLimit: op.atLimit,
     ratedLoadCurrentA: op.isRatedLoadBeyond ? op.maxLoadCurrentA : ratedLoadCurrentA,
     ratedLoad: op.ratedLoad,
     ...(ratedLoadCurrentA > 0

@@ -34,6 +34,8 @@ export type {
 } from './blocking-oscillator.types';
 export { driverOperatingPoint, isFlybackFed, solveLoadPoint, OPERATING_POINT_METHOD } from './operating-point';
 export { engineLadderLoadLine, pulseDriveOf, secondaryLoadOf } from './ladder-load-line';
+export { rcdClampPartsOf } from './rcd-clamp';
+export type { RcdClampParts } from './rcd-clamp';
 export { ringBack, secondaryLoadCapacitanceF } from './ring-back';
 export type { RingBack, SecondaryLoad } from './ring-back';
 export type { LoadPoint, OperatingLimit, OperatingPointResult } from './operating-point';

@@ -38,6 +38,11 @@ export interface LadderLoadLine {
   network?: { bleederOhm: number | null; seriesOutputResistanceOhm: number };
   /** The ladder's capacitance on the secondary for the driver's ring-back between pulses; none when absent. */
   secondaryLoad?: SecondaryLoad;
+  /**
+   * Text of every input the answers depend on (equal keys, equal answers), for callers that remember results
+   * per ladder; none where the load line cannot state it.
+   */
+  readonly key?: string;
 }
 
 /**
@@ -99,7 +104,13 @@ export function engineLadderLoadLine(input: LadderInput): LadderLoadLine {
       : prepareLadder({ ...input, load: null, bleederOhm: null, seriesOutputResistanceOhm: 0, drive: pulse });
     return terminalMeanAt(bare, ladderCurrentA);
   };
+  let key: string | undefined;
   return {
+    // The input but its load, which each call replaces (made on first use: the Sizer's load lines never ask).
+    get key() {
+      key ??= JSON.stringify({ ...input, load: null });
+      return key;
+    },
     network: { bleederOhm: input.bleederOhm, seriesOutputResistanceOhm: seriesOhm },
     secondaryLoad: secondaryLoadOf(input),
     at(drive, loadCurrentA) {

@@ -18,6 +18,8 @@ const WARM_ROOT_STEP = 1e-9;
 export interface WarmStart {
   flybackV: number;
   slope: number;
+  /** The loaded supply voltage there (V), to start the supply solve of the first evaluation. */
+  supplyV?: number;
 }
 
 /**
@@ -104,7 +106,13 @@ export function warmNear(
     if (!a || !b) return null;
     const lo = curve[i - 1] as { loadCurrentA: number };
     const t = (loadA - lo.loadCurrentA) / (hi.loadCurrentA - lo.loadCurrentA);
-    return { flybackV: a.flybackV + t * (b.flybackV - a.flybackV), slope: t < 0.5 ? a.slope : b.slope };
+    return {
+      flybackV: a.flybackV + t * (b.flybackV - a.flybackV),
+      slope: t < 0.5 ? a.slope : b.slope,
+      ...(a.supplyV !== undefined && b.supplyV !== undefined
+        ? { supplyV: a.supplyV + t * (b.supplyV - a.supplyV) }
+        : {}),
+    };
   }
   return null;
 }
@@ -123,7 +131,7 @@ export function warmPastOnset(
   for (const s of solved) if (s.loadA > onsetA && (!nearest || s.loadA < nearest.loadA)) nearest = s;
   if (!nearest || !(loadA > onsetA)) return null;
   const t = (loadA - onsetA) / (nearest.loadA - onsetA);
-  return { flybackV: maxFlyV + t * (nearest.balance.flybackV - maxFlyV), slope: nearest.balance.slope };
+  return { ...nearest.balance, flybackV: maxFlyV + t * (nearest.balance.flybackV - maxFlyV) };
 }
 
 /**

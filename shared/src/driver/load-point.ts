@@ -109,16 +109,27 @@ export function solvePoint(
   // solve, so that the supply sag is the same in the balance and in the reported figures (the ring-back's
   // share of it, above the on-time level, counted as the supply's too).
   const forwardLoadPowerW = ratios.forward * limitDrive.forwardPeakV * limitLadderA;
-  let supplyGuessV = limit.vin;
   let supplySlope = limit.supplySlope;
-  // The stage at a flyback, its supply solve started from the last one's; the options object is filled in
-  // place (the surplus's evaluations share one, the solved point gets its own).
+  // The last two flybacks solved with their supply voltages (the limit's first).
+  let lastFlyV = NaN;
+  let lastSupplyV = warm?.supplyV !== undefined && warm.supplyV > 0 ? warm.supplyV : limit.vin;
+  let earlierFlyV = NaN;
+  let earlierSupplyV = NaN;
+  // The stage at a flyback, its supply solve started on the line through the last two solves' supply
+  // voltages (else from the last one's, or the nearby load's): near the balance the guess is off by the
+  // square of the flyback's step, and the last evaluations of a balance settle the supply in one stage
+  // evaluation instead of two. The options object is filled in place (the surplus's evaluations share one,
+  // the solved point gets its own).
   const stageAtFlyback = (flyV: number, stageOptions: BlockingOscillatorOptions): OscillatorNumbers => {
+    const lineV = lastSupplyV + ((lastSupplyV - earlierSupplyV) / (lastFlyV - earlierFlyV)) * (flyV - lastFlyV);
     stageOptions.flybackSecondaryPeakV = flyV;
-    stageOptions.supplyVoltageGuessV = supplyGuessV;
+    stageOptions.supplyVoltageGuessV = Number.isFinite(lineV) && lineV > 0 ? lineV : lastSupplyV;
     if (supplySlope !== undefined) stageOptions.supplySlopeGuess = supplySlope;
     const stage = blockingOscillatorNumbers(driver, stageOptions);
-    supplyGuessV = stage.vin;
+    earlierFlyV = lastFlyV;
+    earlierSupplyV = lastSupplyV;
+    lastFlyV = flyV;
+    lastSupplyV = stage.vin;
     supplySlope = stage.supplySlope ?? supplySlope;
     return stage;
   };
@@ -207,6 +218,7 @@ export function solvePoint(
     drive = driveOf(stage, driver, forwardA());
     loaded = ladder.at(drive, loadCurrentA);
   }
+  if (balance !== null) balance = { ...balance, supplyV: stage.vin };
   const outputPowerW = loaded.outputV * loadCurrentA;
   const flybackTakenW = Math.min(stage.deliverableW, ratios.flyback * loaded.ladderCurrentA * flyV);
   return {

@@ -1,6 +1,10 @@
 import { bracketedRoot } from '../multiplier/bracketed-root';
 import { blockingOscillatorNumbers, estimateOf } from './blocking-oscillator';
-import type { BlockingOscillatorEstimate, BlockingOscillatorOptions } from './blocking-oscillator.types';
+import type {
+  BlockingOscillatorEstimate,
+  BlockingOscillatorOptions,
+  OscillatorNumbers,
+} from './blocking-oscillator.types';
 import type { DriverStage } from '../designs/driver-stage.types';
 import type { MethodInfo } from '../methods';
 import type { LadderLoadLine } from './ladder-load-line';
@@ -13,6 +17,8 @@ export type { LoadPoint, OperatingLimit } from './load-point';
 
 export interface OperatingPointResult {
   ratedLoad: LoadPoint & { driver: BlockingOscillatorEstimate };
+  /** The stage with the flyback at its clamp or breakdown limit and no forward load (the ladder's capacitance on the secondary). */
+  atLimit: BlockingOscillatorEstimate;
   /** Load current above which the driver can no longer hold the flyback at its limit (A); 0 if it cannot even at no load. */
   powerLimitOnsetA: number;
   /** The largest external load current (A) at which the output stays above zero: what the supply can deliver. */
@@ -42,6 +48,52 @@ export const OPERATING_POINT_METHOD: MethodInfo = {
 };
 
 /**
+ * The part of the operating point that does not depend on the rated load: the stage at its limit, the onset
+ * of the power limit (A), the largest load the output holds (A), and the output-vs-load curve with each
+ * point's power balance (to warm-start the rated load's).
+ */
+interface OperatingCurve {
+  limitEst: OscillatorNumbers;
+  powerLimitOnsetA: number;
+  maxLoadCurrentA: number;
+  curve: LoadPoint[];
+  balances: (WarmStart | null)[];
+}
+
+/**
+ * Curves of the last few drivers and ladders, keyed on every input they depend on (the stage, the options and
+ * the ladder load line's own key): the Workbench recomputes on every keystroke, and an edit of the load (or
+ * of anything outside the driver and the ladder) leaves the curve as it was. Read-only once made: the
+ * report takes copies of its points.
+ */
+const CURVE_MEMORY = 8;
+const curves = new Map<string, OperatingCurve>();
+
+function rememberedCurve(
+  driver: DriverStage,
+  ladder: LadderLoadLine,
+  options: BlockingOscillatorOptions & { points?: number },
+): OperatingCurve {
+  const ladderKey = ladder.key;
+  if (ladderKey === undefined) return operatingCurveOf(driver, ladder, options);
+  const key = `${ladderKey}|${JSON.stringify(driver)}|${JSON.stringify(options)}`;
+  const known = curves.get(key);
+  if (known) {
+    curves.delete(key);
+    curves.set(key, known);
+    return known;
+  }
+  const made = operatingCurveOf(driver, ladder, options);
+  curves.set(key, made);
+  if (curves.size > CURVE_MEMORY) curves.delete(curves.keys().next().value as string);
+  return made;
+}
+
+function copyOfPoint(point: LoadPoint): LoadPoint {
+  return { ...point, ladderTakesW: { ...point.ladderTakesW } };
+}
+
+/**
  * Operating point of the driver with the ladder: output at the rated external load current (A), the onset of
  * the power limit (A), and the output-vs-load curve (`points` samples, default 25) from no load to the current
  * at which the output reaches zero.
@@ -52,6 +104,35 @@ export function driverOperatingPoint(
   ratedLoadCurrentA: number,
   givenOptions: BlockingOscillatorOptions & { points?: number } = {},
 ): OperatingPointResult {
+  const { limitEst, powerLimitOnsetA, maxLoadCurrentA, curve, balances } = rememberedCurve(
+    driver,
+    ladder,
+    givenOptions,
+  );
+  const options = withLadderLoad(givenOptions, ladder);
+  // A rated load the output cannot hold (it falls to zero before the load is met) is beyond what the supply
+  // delivers: the stage is then reported at the largest load it holds, never at a collapsed flyback.
+  const ratedWarm = warmNear(curve, balances, ratedLoadCurrentA);
+  let rated = solvePoint(driver, ladder, ratedLoadCurrentA, options, limitEst, undefined, ratedWarm);
+  const isRatedLoadBeyond = ratedLoadCurrentA > 0 && !(rated.point.outputV > 0);
+  if (isRatedLoadBeyond) rated = solvePoint(driver, ladder, maxLoadCurrentA, options, limitEst);
+  return {
+    ratedLoad: { ...rated.point, driver: estimateOf(driver, rated.stageOptions, rated.stage) },
+    atLimit: estimateOf(driver, options, { ...limitEst, losses: { ...limitEst.losses } }),
+    powerLimitOnsetA,
+    maxLoadCurrentA,
+    isRatedLoadBeyond,
+    curve: curve.map(copyOfPoint),
+    method: OPERATING_POINT_METHOD,
+  };
+}
+
+/** The operating curve of a driver and its ladder (see OperatingCurve), solved afresh. */
+function operatingCurveOf(
+  driver: DriverStage,
+  ladder: LadderLoadLine,
+  givenOptions: BlockingOscillatorOptions & { points?: number },
+): OperatingCurve {
   const points = Math.max(2, givenOptions.points ?? 25);
   const options = withLadderLoad(givenOptions, ladder);
   const limitEst = blockingOscillatorNumbers(driver, options);
@@ -65,7 +146,11 @@ export function driverOperatingPoint(
   const pointAt = (loadA: number) => {
     const scale = lastBalance ? lastBalance.loadA / loadA : powerLimitOnsetA / loadA;
     const warm = lastBalance
-      ? { flybackV: lastBalance.balance.flybackV * scale, slope: lastBalance.balance.slope / scale }
+      ? {
+          ...lastBalance.balance,
+          flybackV: lastBalance.balance.flybackV * scale,
+          slope: lastBalance.balance.slope / scale,
+        }
       : powerLimitOnsetA > 0 && scale < 1
         ? { flybackV: maxFlyV * scale, slope: -lastFlybackRatio * loadA }
         : null;
@@ -146,28 +231,25 @@ export function driverOperatingPoint(
     const c = balances[i - 3];
     // The flyback times the load at the point k steps back, over this load.
     const powerOf = (w: WarmStart, k: number) => (w.flybackV * (i - k)) / i;
-    const warm =
+    // The supply voltage from the same parabola (line) through the last points' (it moves smoothly with the load).
+    const supplyOf = (...ws: WarmStart[]) => (ws.every((w) => w.supplyV !== undefined) ? ws : null);
+    const warm: WarmStart | null =
       a && b && c
-        ? { flybackV: 3 * powerOf(a, 1) - 3 * powerOf(b, 2) + powerOf(c, 3), slope: 2 * a.slope - b.slope }
+        ? {
+            flybackV: 3 * powerOf(a, 1) - 3 * powerOf(b, 2) + powerOf(c, 3),
+            slope: 2 * a.slope - b.slope,
+            ...(supplyOf(a, b, c) ? { supplyV: 3 * a.supplyV! - 3 * b.supplyV! + c.supplyV! } : {}),
+          }
         : a && b
-          ? { flybackV: 2 * powerOf(a, 1) - powerOf(b, 2), slope: a.slope }
+          ? {
+              flybackV: 2 * powerOf(a, 1) - powerOf(b, 2),
+              slope: a.slope,
+              ...(supplyOf(a, b) ? { supplyV: 2 * a.supplyV! - b.supplyV! } : {}),
+            }
           : (a ?? warmPastOnset(endBalances, powerLimitOnsetA, maxFlyV, loadA));
     const solved = solvePoint(driver, ladder, loadA, options, limitEst, curve[i - 1]?.flybackSecondaryPeakV, warm);
     curve.push(solved.point);
     balances.push(solved.balance);
   }
-  // A rated load the output cannot hold (it falls to zero before the load is met) is beyond what the supply
-  // delivers: the stage is then reported at the largest load it holds, never at a collapsed flyback.
-  const ratedWarm = warmNear(curve, balances, ratedLoadCurrentA);
-  let rated = solvePoint(driver, ladder, ratedLoadCurrentA, options, limitEst, undefined, ratedWarm);
-  const isRatedLoadBeyond = ratedLoadCurrentA > 0 && !(rated.point.outputV > 0);
-  if (isRatedLoadBeyond) rated = solvePoint(driver, ladder, loA, options, limitEst);
-  return {
-    ratedLoad: { ...rated.point, driver: estimateOf(driver, rated.stageOptions, rated.stage) },
-    powerLimitOnsetA,
-    maxLoadCurrentA: loA,
-    isRatedLoadBeyond,
-    curve,
-    method: OPERATING_POINT_METHOD,
-  };
+  return { limitEst, powerLimitOnsetA, maxLoadCurrentA: loA, curve, balances };
 }

@@ -6,6 +6,8 @@ import type {
   OscillatorNumbers,
   StageLosses,
 } from './blocking-oscillator.types';
+import { rampChargeC, rampSquareIntegral } from './primary-ramp';
+import { rcdClampLimit, rcdClampPartsOf, rcdClampUnderLoad } from './rcd-clamp';
 import { ringBack, secondaryLoadCapacitanceF, type RingBack } from './ring-back';
 
 /** Capacitance at the collector node when none is given (F), for the leakage spike and the switching loss. */
@@ -27,7 +29,7 @@ export const DEFAULT_BYPASS_CAPACITANCE_F = 100e-6;
 /** The transistor's Ebers–Moll saturation current when the design gives none: the simulator's default. */
 export const DEFAULT_TRANSISTOR_SATURATION_CURRENT_A = 1e-14;
 /** kT/q at 300.15 K from the exact SI constants (CODATA 2018), as the simulator's junctions take it. */
-const THERMAL_VOLTAGE_V = (1.380649e-23 * 300.15) / 1.602176634e-19;
+export const THERMAL_VOLTAGE_V = (1.380649e-23 * 300.15) / 1.602176634e-19;
 
 /** The stage's fixed ratios and resistances (Ω), read once from the design. */
 interface StageConstants {
@@ -60,6 +62,10 @@ interface FlybackTransfer {
   maxFlybackSecV: number;
   flybackSecV: number;
   reflectedV: number;
+  /** The collector's level (V) the clamp holds it at, null without a clamp. */
+  clampCollectorV: number | null;
+  /** Flyback power an RCD clamp takes beyond the leakage energy (W), out of what the load could have had. */
+  clampTakesW: number;
   tFly: number;
   ring: RingBack;
   /** Secondary forward level while the ring-back recovers (V). */
@@ -73,43 +79,6 @@ interface FlybackTransfer {
   coreJ: number;
   flybackEfficiency: number;
   deliverableW: number;
-}
-
-/** Refuses a stage whose inductance, turns, coupling or base resistance cannot oscillate. */
-export function checkStage(driver: DriverStage): void {
-  const tx = driver.transformer;
-  if (!(tx.primaryInductanceH > 0))
-    throw new DomainError(
-      'invalid_design',
-      'primary inductance must be positive',
-      'driver.transformer.primaryInductanceH',
-    );
-  if (!(tx.primaryTurns > 0 && tx.secondaryTurns > 0 && tx.feedbackTurns > 0)) {
-    throw new DomainError('invalid_design', 'turns must be positive', 'driver.transformer.primaryTurns');
-  }
-  if (!(tx.couplingCoefficient > 0 && tx.couplingCoefficient <= 1)) {
-    throw new DomainError(
-      'invalid_design',
-      'coupling coefficient must be in (0, 1]',
-      'driver.transformer.couplingCoefficient',
-    );
-  }
-  if (!(driver.baseResistorOhm + tx.feedbackResistanceOhm > 0)) {
-    throw new DomainError('invalid_design', 'base resistor must be positive', 'driver.baseResistorOhm');
-  }
-}
-
-/** ∫i² dt (A²·s) of the first-order ramp i(t) = I∞(1 − e^(−t/τ)) from 0 to t; i²·t/3 for the linear ramp. */
-function rampSquareIntegral(finalA: number, tauS: number, endA: number, tS: number): number {
-  if (!(tauS > 0 && Number.isFinite(tauS))) return (endA * endA * tS) / 3;
-  const e1 = -Math.expm1(-tS / tauS);
-  const e2 = -Math.expm1((-2 * tS) / tauS);
-  return finalA * finalA * (tS - 2 * tauS * e1 + 0.5 * tauS * e2);
-}
-
-/** Charge (C) of the first-order ramp i(t) = I∞(1 − e^(−t/τ)) from 0 to t, τ = Lp/R; the linear ramp's ½·i·t when R = 0. */
-function rampChargeC(finalA: number, tauS: number, endA: number, tS: number): number {
-  return tauS > 0 && Number.isFinite(tauS) ? finalA * tS - tauS * endA : 0.5 * endA * tS;
 }
 
 function stageConstants(driver: DriverStage): StageConstants {
@@ -279,7 +248,33 @@ function flybackTransfer(
   const { transformer: tx, transistor: q } = driver;
   const { k, lp, turnsRatio } = c;
   const ipk = ramp.ipk;
-  const maxReflectedV = driver.clamp ? driver.clamp.clampVoltageV - vin : q.vceoMaxV - vin;
+  // The forward pulse: the primary at Vin − Vce,sat in the on-time, at Vin + V_BE while the ring-back recovers.
+  const onForwardSecV = (vin - q.vceSatV) * k * turnsRatio;
+  const nodeF = options.collectorNodeCapacitanceF ?? collectorNodeCapacitanceOf(driver);
+  const ringAt = (reflectedV: number): RingBack => {
+    const swingV = onForwardSecV + reflectedV * k * turnsRatio;
+    const loadF = options.secondaryLoad ? secondaryLoadCapacitanceF(options.secondaryLoad, swingV) : 0;
+    return ringBack(driver, vin, reflectedV, nodeF, loadF);
+  };
+  const periodAt = (reflectedV: number, r: RingBack): number =>
+    ramp.tOn + (lp * ipk) / reflectedV + r.swingS + r.recoveryS;
+  const clamp = driver.clamp;
+  const rcd = clamp?.kind === 'rcd' ? rcdClampPartsOf(clamp) : null;
+  const leakageJ = 0.5 * (1 - k * k) * lp * ipk * ipk;
+  // An RCD clamp's limit: it takes all the stored energy the ring-back does not return (the core's loss aside).
+  const rcdLimit = rcd
+    ? rcdClampLimit(rcd, k * k, vin, (vr) => {
+        const r = ringAt(vr);
+        const periodS = periodAt(vr, r);
+        return {
+          periodS,
+          energyJ: 0.5 * lp * (ipk * ipk - r.recoveryStartA ** 2) - (tx.coreLossW ?? 0) * periodS,
+        };
+      })
+    : null;
+  const maxReflectedV = rcdLimit
+    ? rcdLimit.reflectedV
+    : (clamp?.kind === 'zener' ? clamp.clampVoltageV : q.vceoMaxV) - vin;
   // Open-circuit secondary voltage of coupled windings: V_s = (M/Lp)·V_p = k·(N_s/N_p)·V_p.
   const maxFlybackSecV = Math.max(0, maxReflectedV) * k * turnsRatio;
   const flybackSecV = Math.min(options.flybackSecondaryPeakV ?? maxFlybackSecV, maxFlybackSecV);
@@ -291,27 +286,32 @@ function flybackTransfer(
     );
   const reflectedV = flybackSecV / (k * turnsRatio);
   const tFly = (lp * ipk) / reflectedV;
-  // The forward pulse: the primary at Vin − Vce,sat in the on-time, at Vin + V_BE while the ring-back recovers.
-  const onForwardSecV = (vin - q.vceSatV) * k * turnsRatio;
-  const nodeF = options.collectorNodeCapacitanceF ?? collectorNodeCapacitanceOf(driver);
-  const swingV = onForwardSecV + flybackSecV;
-  const loadF = options.secondaryLoad ? secondaryLoadCapacitanceF(options.secondaryLoad, swingV) : 0;
-  const ring = ringBack(driver, vin, reflectedV, nodeF, loadF);
-  // While the ring-back recovers the winding holds Vin + V_BE; the secondary passes on the charge the
-  // magnetizing current returns, ½·I0·t_recovery through the turns ratio.
+  const ring = ringAt(reflectedV);
   const recoveryForwardSecV = (vin + q.vbeOnV) * k * turnsRatio;
   const recoveryChargeC = (0.5 * -ring.recoveryStartA * ring.recoveryS) / turnsRatio;
-  const frequencyHz = 1 / (ramp.tOn + tFly + ring.swingS + ring.recoveryS);
+  const frequencyHz = 1 / periodAt(reflectedV, ring);
   const energyJ = 0.5 * lp * ipk * ipk;
   const iSecPk = ipk / turnsRatio;
   const copperJ = iSecPk * iSecPk * tx.secondaryResistanceOhm * (tFly / 3);
   const coreJ = Math.min((tx.coreLossW ?? 0) / frequencyHz, Math.max(0, k * k * energyJ - copperJ));
   const flybackEfficiency = Math.max(0, k * k - (copperJ + coreJ) / energyJ);
-  const deliverableW = energyJ * frequencyHz * flybackEfficiency;
+  let deliverableW = energyJ * frequencyHz * flybackEfficiency;
+  let clampCollectorV = clamp?.kind === 'zener' ? clamp.clampVoltageV : null;
+  let clampTakesW = 0;
+  if (rcd && rcdLimit) {
+    // Below its limit an RCD clamp dissipates Vc²/R at the flyback's primary-side peak k²·Vr, out of what the
+    // load could have had beyond the leakage energy (rcdClampUnderLoad).
+    const under = rcdClampUnderLoad(k * k * reflectedV, leakageJ, 1 / frequencyHz, rcd);
+    clampTakesW = Math.min(deliverableW, Math.max(0, under.powerW - leakageJ * frequencyHz));
+    deliverableW -= clampTakesW;
+    clampCollectorV = vin + Math.min(rcdLimit.clampV, under.clampV);
+  }
   return {
     maxFlybackSecV,
     flybackSecV,
     reflectedV,
+    clampCollectorV,
+    clampTakesW,
     tFly,
     ring,
     recoveryForwardSecV,
@@ -363,7 +363,7 @@ function stagePower(
   const leakageH = (1 - k * k) * lp;
   const spikeV = ipk * Math.sqrt(leakageH / nodeC);
   const unclampedPeakV = vin + fly.reflectedV + spikeV;
-  const collectorPeakV = driver.clamp ? Math.min(driver.clamp.clampVoltageV, unclampedPeakV) : unclampedPeakV;
+  const collectorPeakV = fly.clampCollectorV === null ? unclampedPeakV : Math.min(fly.clampCollectorV, unclampedPeakV);
   // The source's own loss: its EMF's power less what reaches the stage (R_s·I² at the solved supply voltage).
   const emfW = at.openCircuitV * inputA;
   const baseEmitterJ = q.vbeOnV * ibMean * tOn;
@@ -375,7 +375,7 @@ function stagePower(
     primaryCopperW: frequencyHz * tx.primaryResistanceOhm * rampSquareA2S,
     collectorResistorW: frequencyHz * (driver.collectorResistorOhm ?? 0) * rampSquareA2S,
     secondaryCopperW: frequencyHz * Math.min(fly.copperJ, k * k * energyJ),
-    leakageW: frequencyHz * (1 - k * k) * energyJ,
+    leakageW: frequencyHz * (1 - k * k) * energyJ + fly.clampTakesW,
     coreW: frequencyHz * fly.coreJ,
     lampW: vin * lampA,
     supplyResistanceW: Math.max(0, emfW - inputW),

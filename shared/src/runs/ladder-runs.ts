@@ -9,6 +9,7 @@ import { MnaSystem } from '../sim/mna-system';
 import { findPeriodicSteadyState } from '../sim/periodic-steady-state';
 import { chargeBalanceCapacitorVoltagesV } from '../circuits/steady-state-estimate';
 import { TransientStepper } from '../sim/transient';
+import { SampleBuffer } from '../sim/sample-buffer';
 import { downsampleMinMax, windowMean, windowPeakToPeak } from '../sim/waveform-measures';
 import { progressReporter } from './progress-reporter';
 import { estimateRemainingApproach } from './cycle-settling';
@@ -194,8 +195,10 @@ export function runLadder(spec: LadderCircuitSpec, options: LadderRunOptions): L
   // Start-up transient from empty capacitors.
   const stepper = new TransientStepper(system, { maxStepS: periodS / options.maxStepPerPeriod });
   stepper.startFromCharges(system.initialCharge);
-  const time: number[] = [];
-  const top: number[] = [];
+  // Every step's time and output, in growable typed buffers (off the JavaScript heap, so hundreds of
+  // thousands of steps cost the collector nothing).
+  const timeBuffer = new SampleBuffer();
+  const topBuffer = new SampleBuffer();
   const cycleMeans: number[] = [];
   const maxCycles = options.until === 'steady' ? (options.maxCycles ?? 20000) : options.until.cycles;
   let reachedAtS: number | null = null;
@@ -220,8 +223,8 @@ export function runLadder(spec: LadderCircuitSpec, options: LadderRunOptions): L
       area += ((v + prevV) / 2) * (stepper.timeS - prevT);
       prevT = stepper.timeS;
       prevV = v;
-      time.push(stepper.timeS);
-      top.push(v);
+      timeBuffer.push(stepper.timeS);
+      topBuffer.push(v);
     }
     cycles++;
     const mean = area / periodS;
@@ -253,11 +256,13 @@ export function runLadder(spec: LadderCircuitSpec, options: LadderRunOptions): L
     const idx = cycleMeans.findIndex((m) => sign * m >= sign * target);
     reachedAtS = idx >= 0 ? (idx + 1) * periodS : null;
   }
+  const time = timeBuffer.toArray();
+  const top = topBuffer.toArray();
   const ripple = pssOk
     ? { timeS: Array.from(pss!.timeS), values: Array.from(pss!.signals[LADDER_NODES.ladderTop]!) }
     : (() => {
         const i0 = time.findIndex((t) => t >= lastCycleStart);
-        return { timeS: time.slice(i0), values: top.slice(i0) };
+        return { timeS: Array.from(time.subarray(i0)), values: Array.from(top.subarray(i0)) };
       })();
   const rippleV = windowPeakToPeak(ripple.timeS, ripple.values, -Infinity, Infinity);
 

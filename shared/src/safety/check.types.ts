@@ -1,4 +1,7 @@
-/** One verdict of the Checks panel. `value` null means unbounded (e.g. no discharge path). */
+/**
+ * One verdict of the Checks panel. `value` null means unbounded (e.g. no discharge path). The high-voltage caution
+ * that travels with the verdicts is the report's `caution`, given once for all of them.
+ */
 export interface CheckVerdict {
   id: string;
   subject: string;
@@ -10,7 +13,6 @@ export interface CheckVerdict {
   value: number | null;
   limit: number;
   unit: string;
-  caution?: string;
   /**
    * The rule covers a service condition only (the winding removed, say): past its limit the check is marginal, not
    * failed, however far past, and its margin is read that way.

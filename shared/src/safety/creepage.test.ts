@@ -70,6 +70,5 @@ describe('creepage checks', () => {
     expect(low?.verdict).toBe('pass');
     expect(high?.verdict).toBe('fail');
     expect(high?.marginPct).toBeCloseTo(-40, 9);
-    expect(high?.caution).toMatch(/High voltage can kill/);
   });
 });

@@ -13,8 +13,7 @@ describe('bleeder discharge', () => {
   it('fails without a bleeder and applies the NFPA 79 60 µC exemption', () => {
     const noBleeder = dischargeCheck({
       bleederOhm: null,
-      equivalentCapacitanceF: 1e-9,
-      outputV: 5000,
+      phases: [{ startV: 5000, capacitanceF: 1e-9 }],
       safeVoltageV: 50,
       rule: '50V-1min',
       storedChargeC: 5e-6,
@@ -23,8 +22,7 @@ describe('bleeder discharge', () => {
     expect(noBleeder.dischargeTimeS).toBeNull();
     const exempt = dischargeCheck({
       bleederOhm: null,
-      equivalentCapacitanceF: 1e-9,
-      outputV: 5000,
+      phases: [{ startV: 5000, capacitanceF: 1e-9 }],
       safeVoltageV: 60,
       rule: '60V-5s',
       storedChargeC: 5e-6,
@@ -46,8 +44,7 @@ describe('discharge rules', () => {
     // τ = 100 MΩ · 10 nF = 1 s; from 5 kV to 50 V takes ln(100) ≈ 4.6 s against 5 s: 8 % margin → marginal.
     const result = dischargeCheck({
       bleederOhm: 100e6,
-      equivalentCapacitanceF: 10e-9,
-      outputV: 5000,
+      phases: [{ startV: 5000, capacitanceF: 10e-9 }],
       safeVoltageV: 60,
       rule: { voltageV: 50, timeS: 5 },
       storedChargeC: 50e-6,

@@ -1,19 +1,21 @@
 import { DomainError } from '../errors';
 import type { DischargeRule } from '../designs/design.types';
-import { HV_CAUTION, upperLimitVerdict } from './hazard-limits';
+import { upperLimitVerdict } from './hazard-limits';
 import type { CheckVerdict } from './check.types';
 import type { MethodInfo } from '../methods';
+import { cascadeDischargeTimeS, type DischargePhase } from './cascade-discharge';
 
 export const DISCHARGE_METHOD: MethodInfo = {
-  methodId: 'bleeder-rc-v1',
+  methodId: 'bleeder-cascade-v2',
   summary:
-    'Bleeder discharge V(t) = V0·e^(−t/RC), t = RC·ln(V0/V_end), with the energy-equivalent capacitance at the output; compared with the selected rule.',
+    'Bleeder discharge of the ladder with the drive stopped, interval by interval: while a set of diodes conducts the output decays as V·e^(−t/RC), C the capacitance the bleeder sees through them; a diode joins when its anode reaches its cathode; the times to the level are summed and compared with the selected rule.',
   assumptions: [
-    'the oscillating column drains through the diodes into the smoothing column and the bleeder as the output falls',
-    'diode forward drops and leakage neglected; the bleeder is the only discharge path',
+    'the winding ends stand at 0 V once the drive stops; the capacitors start at their mean operating voltages',
+    'diodes ideal (no forward drop, no leakage); a diode that starts to conduct keeps conducting; the bleeder is the only discharge path',
     'verdict marginal when the time uses more than 80 % of the allowance',
   ],
-  source: 'NFPA 70 Art. 460.6 and NFPA 79 6.5.1 (read); NEC 460.28 (from memory); V(t) = V0·e^(−t/RC)',
+  source:
+    'NFPA 70 Art. 460.6 and NFPA 79 6.5.1 (read); NEC 460.28 (from memory); V(t) = V0·e^(−t/RC) per interval; checked against ngspice on the exported netlist',
 };
 
 /** A discharge rule as voltage and time, with where it comes from (REFERENCES.md §4). */
@@ -58,24 +60,29 @@ export function dischargeTimeS(resistanceOhm: number, capacitanceF: number, v0: 
 
 export interface DischargeInput {
   bleederOhm: number | null;
-  /** Energy-equivalent capacitance at the output (all stored energy drains through the bleeder). */
-  equivalentCapacitanceF: number;
-  outputV: number;
+  /** The ladder's discharge through the bleeder, interval by interval (`cascadeDischargePhases`). */
+  phases: readonly DischargePhase[];
   safeVoltageV: number;
   rule: DischargeRule;
   storedChargeC: number;
 }
 
 /** Bleeder discharge check against the selected rule; marginal when the time uses more than 80 % of the allowance. */
-export function dischargeCheck(input: DischargeInput): { dischargeTimeS: number | null; verdict: CheckVerdict } {
+export function dischargeCheck(input: DischargeInput): {
+  /** To the safe voltage, s; null without a bleeder. */
+  dischargeTimeS: number | null;
+  /** To the rule's voltage, s; null without a bleeder. */
+  dischargeTimeToRuleS: number | null;
+  verdict: CheckVerdict;
+} {
   const rule = dischargeRuleLimits(input.rule);
-  const ruleText = `${rule.text}; bleeder RC with the energy-equivalent capacitance (the oscillating column drains through the diodes); marginal within 20 % of the allowed time`;
+  const ruleText = `${rule.text}; bleeder discharge of the ladder interval by interval (each capacitor drains as its diodes conduct); marginal within 20 % of the allowed time`;
+  const timeTo = (bleederOhm: number, levelV: number) => cascadeDischargeTimeS(input.phases, bleederOhm, levelV);
   const exempt = rule.exemptBelowChargeC !== null && input.storedChargeC <= rule.exemptBelowChargeC;
   if (exempt) {
     return {
-      dischargeTimeS: input.bleederOhm
-        ? dischargeTimeS(input.bleederOhm, input.equivalentCapacitanceF, input.outputV, input.safeVoltageV)
-        : null,
+      dischargeTimeS: input.bleederOhm ? timeTo(input.bleederOhm, input.safeVoltageV) : null,
+      dischargeTimeToRuleS: input.bleederOhm ? timeTo(input.bleederOhm, rule.voltageV) : null,
       verdict: {
         id: 'discharge-time',
         subject: 'bleeder discharge',
@@ -85,13 +92,13 @@ export function dischargeCheck(input: DischargeInput): { dischargeTimeS: number 
         value: input.storedChargeC,
         limit: rule.exemptBelowChargeC ?? 0,
         unit: 'C',
-        caution: HV_CAUTION,
       },
     };
   }
   if (!input.bleederOhm) {
     return {
       dischargeTimeS: null,
+      dischargeTimeToRuleS: null,
       verdict: upperLimitVerdict({
         id: 'discharge-time',
         subject: 'no bleeder',
@@ -102,9 +109,10 @@ export function dischargeCheck(input: DischargeInput): { dischargeTimeS: number 
       }),
     };
   }
-  const toRule = dischargeTimeS(input.bleederOhm, input.equivalentCapacitanceF, input.outputV, rule.voltageV);
+  const toRule = timeTo(input.bleederOhm, rule.voltageV);
   return {
-    dischargeTimeS: dischargeTimeS(input.bleederOhm, input.equivalentCapacitanceF, input.outputV, input.safeVoltageV),
+    dischargeTimeS: timeTo(input.bleederOhm, input.safeVoltageV),
+    dischargeTimeToRuleS: toRule,
     verdict: upperLimitVerdict({
       id: 'discharge-time',
       subject: `bleeder to ${rule.voltageV} V`,
@@ -142,7 +150,6 @@ export function trappedChargeCheck(input: TrappedChargeInput): CheckVerdict | nu
     value: v,
     limit: input.safeVoltageV,
     unit: 'V',
-    caution: HV_CAUTION,
     isServiceCondition: true,
   };
 }

@@ -28,8 +28,7 @@ describe('verdict thresholds', () => {
     expect(deratedVerdict({ ...base, value: 1001 }, 1000, 0.8).verdict).toBe('fail');
   });
 
-  it('every verdict carries the high-voltage caution', () => {
-    expect(upperLimitVerdict({ ...base, value: 1, limit: 2 }).caution).toBe(HV_CAUTION);
+  it('the high-voltage caution names what governs', () => {
     expect(HV_CAUTION).toMatch(/standard that applies to the equipment, local codes and licensed practice govern/);
   });
 });

@@ -1,6 +1,6 @@
 import type { CheckVerdict } from './check.types';
 
-/** Travels with every safety verdict. */
+/** Travels with every report that gives safety verdicts (once, as the report's `caution`). */
 export const HV_CAUTION =
   'High voltage can kill. These figures support design work only: the standard that applies to the equipment, local codes and licensed practice govern.';
 
@@ -52,7 +52,7 @@ export function storedChargeLimit(
  * goes through V8's generic copy, which was a tenth of a ladder analysis with its hundred Checks.
  */
 function checkVerdict(
-  fields: Omit<CheckVerdict, 'verdict' | 'marginPct' | 'caution' | 'limit'>,
+  fields: Omit<CheckVerdict, 'verdict' | 'marginPct' | 'limit'>,
   limit: number,
   verdict: CheckVerdict['verdict'],
   marginPct: number,
@@ -66,13 +66,12 @@ function checkVerdict(
     limit,
     verdict,
     marginPct,
-    caution: HV_CAUTION,
   };
 }
 
 /** Upper-limit safety verdict: pass with ≥ 20 % margin, marginal 0–20 %, fail above the limit. */
 export function upperLimitVerdict(
-  fields: Omit<CheckVerdict, 'verdict' | 'marginPct' | 'caution'>,
+  fields: Omit<CheckVerdict, 'verdict' | 'marginPct'>,
   marginalBelowPct = SAFETY_MARGINAL_BELOW_PCT,
 ): CheckVerdict {
   const value = fields.value;
@@ -82,7 +81,7 @@ export function upperLimitVerdict(
 }
 
 /** Lower-limit verdict (the value must reach the limit, e.g. provided creepage): same thresholds. */
-export function lowerLimitVerdict(fields: Omit<CheckVerdict, 'verdict' | 'marginPct' | 'caution'>): CheckVerdict {
+export function lowerLimitVerdict(fields: Omit<CheckVerdict, 'verdict' | 'marginPct'>): CheckVerdict {
   const value = fields.value ?? 0;
   const marginPct = ((value - fields.limit) / fields.limit) * 100;
   const verdict = marginPct < 0 ? 'fail' : marginPct < SAFETY_MARGINAL_BELOW_PCT ? 'marginal' : 'pass';
@@ -94,7 +93,7 @@ export function lowerLimitVerdict(fields: Omit<CheckVerdict, 'verdict' | 'margin
  * derated figure and the rating, fail above the rating. `limit` reports the derated figure.
  */
 export function deratedVerdict(
-  fields: Omit<CheckVerdict, 'verdict' | 'marginPct' | 'caution' | 'limit'>,
+  fields: Omit<CheckVerdict, 'verdict' | 'marginPct' | 'limit'>,
   ratingValue: number,
   derating: number,
 ): CheckVerdict {

@@ -1,5 +1,5 @@
 import type { Design } from '../designs';
-import type { DriverStage } from '../driver';
+import { rcdClampPartsOf, type DriverStage } from '../driver';
 import type { LadderRows } from './ladder-placement';
 import { fq, ROW_GAP, type Sheet } from './schematic-sheet';
 import { ground, junction, npn, twoTerminal, wire } from './schematic-symbols';
@@ -105,7 +105,15 @@ export function drawDriver(sheet: Sheet, driver: DriverStage, xSecondary: number
     } else {
       sheet.add(twoTerminal('resistor', { x: xK, y: yK }, { x: xK, y: yRail }, 'RCL'));
       sheet.add(junction({ x: xK, y: yRail }));
-      sheet.block('RCL', ['RCD clamp', `${fq(clamp.clampVoltageV, 'V')}`], xK - 14, yRail + 22, 'end', 1);
+      const parts = rcdClampPartsOf(clamp);
+      sheet.block(
+        'RCL',
+        ['RCD clamp', `${fq(parts.resistorOhm, 'Ohm')} ${fq(parts.capacitorF, 'F')}`],
+        xK - 14,
+        yRail + 22,
+        'end',
+        1,
+      );
     }
     sheet.add(junction({ x: xK, y: yRail }));
     sheet.block('DCL', ['DCL'], xK - 12, yK + 30, 'end', 1);

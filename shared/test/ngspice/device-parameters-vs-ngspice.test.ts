@@ -43,7 +43,6 @@ const deviceSupplies = [
       d.baseResistorOhm = 10e3;
       d.clamp = {
         kind: 'rcd',
-        clampVoltageV: 40,
         resistorOhm: 4.7e3,
         capacitorF: 10e-9,
         junctionCapacitanceF: 30e-12,

@@ -21,7 +21,7 @@ const supplies = [
     d.supply = { kind: 'dc', voltageV: 6, sourceResistanceOhm: 0.1 };
     d.transformer.secondaryTurns = 1000;
     d.baseResistorOhm = 10e3;
-    d.clamp = { kind: 'rcd', clampVoltageV: 40, resistorOhm: 4.7e3, capacitorF: 10e-9 };
+    d.clamp = { kind: 'rcd', resistorOhm: 4.7e3, capacitorF: 10e-9 };
   }),
   // At 1:150 and 1:200 the ladder sits at 5–10 kV: the case where a first-iteration Newton accept left the
   // junction charges scattered by the node tolerance and the step collapsed (see sim/newton.ts). Loaded with

@@ -2,6 +2,8 @@ import { describe, expect, it } from 'vitest';
 import {
   alFromGap,
   demoCoreKinds,
+  demoTransformerSection,
+  derivedTransformerNumbers,
   fluxDensityT,
   fringingFactor,
   gapFromAl,
@@ -70,6 +72,32 @@ describe('gap and inductance factor (McLyman, Transformer and Inductor Design Ha
     // 0.5 %, as the printed four figures of µe move the gap by 0.12 % (dg/g = (dµe/µe)·(1 + µi·g/Le)/(µi·g/Le)).
     const targetAl = (f * mu0 * 2830 * core.effectiveAreaM2) / pathLengthM;
     expect(gapFromAl(published, targetAl) / gapM).toBeCloseTo(1, 2);
+  });
+
+  it('takes an inductance factor as the catalogue states it: the turns of a published worked example', () => {
+    // Read: Magnetics (mag-inc.com), design guide "Inductor Design with Magnetics Ferrite Cores", steps 4–8:
+    // N = 10³·√(L/AL), L in mH, AL in mH per 1000 turns (= nH/turn²). Example: Imax = 8 A, L = 100 µH,
+    // LI² = (0.100 mH)·(8 A)² = 6.4 mJ; cores with AL = 400, 300 and 250 need N = 16, 19 and 20 turns. A section
+    // whose gap is stated by that AL, wound with those turns, has at least the 100 µH, and one turn fewer less.
+    const lH = 100e-6;
+    for (const [alNhPerTurn2, turns] of [
+      [400, 16],
+      [300, 19],
+      [250, 20],
+    ] as const) {
+      const inductanceOf = (n: number) =>
+        derivedTransformerNumbers({
+          ...demoTransformerSection,
+          gap: { kind: 'al', alHPerTurn2: alNhPerTurn2 * 1e-9 },
+          windings: demoTransformerSection.windings.map((w) => (w.role === 'primary' ? { ...w, turns: n } : w)),
+        }).primaryInductanceH;
+      // The catalogue's N = 10³·√(L/AL) in its own units, rounded up to a whole turn.
+      expect(Math.ceil(1e3 * Math.sqrt((lH * 1e3) / alNhPerTurn2) - 1e-9)).toBe(turns);
+      // The gap is solved for the stated AL to 1e-9 of it, so the inductance is AL·N² to that.
+      expect(inductanceOf(turns) / (alNhPerTurn2 * 1e-9 * turns ** 2)).toBeCloseTo(1, 8);
+      expect(inductanceOf(turns)).toBeGreaterThanOrEqual(lH * (1 - 1e-9));
+      expect(inductanceOf(turns - 1)).toBeLessThan(lH);
+    }
   });
 
   it('finds the gap back from the AL it gives (round trip within 1 nm)', () => {

@@ -137,6 +137,7 @@ export function verdictStripFigures(
       : undefined;
   const stored = worstFirst(report.checks.filter((check) => check.id.startsWith('stored-output')))[0];
   const discharge = report.checks.find((check) => check.id === 'discharge-time');
+  const dischargeToRuleS = report.dischargeTimeToRuleS ?? report.dischargeTimeS;
   const worst = worstFirst(mergeCheckRows(report.checks))[0];
   // A load the supply cannot hold has no output figure: the strip says so and what it does hold.
   const capacity = headline?.source === 'simulation' ? null : driver?.loadCapacity;
@@ -209,7 +210,8 @@ export function verdictStripFigures(
     {
       key: 'discharge',
       label: 'Discharge time',
-      value: report.dischargeTimeS === null ? 'no bleeder' : formatQuantity(report.dischargeTimeS, 's'),
+      // The time to the rule's level, which the target below states (a stored simulation runs to it too).
+      value: dischargeToRuleS === null ? 'no bleeder' : formatQuantity(dischargeToRuleS, 's'),
       target: discharge ? discharge.rule.split(';')[0]?.replace(/^[^:]*:\s*/, '') || '' : 'no rule applied',
       ...judged(discharge),
       method: null,

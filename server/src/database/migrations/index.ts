@@ -14,6 +14,8 @@ import { calibrations } from './0012-calibrations';
 import { memberRequests } from './0013-member-requests';
 import { simulationBatches } from './0014-simulation-batches';
 import { calibrationEvaluations } from './0015-calibration-evaluations';
+import { trappedChargeServiceCondition } from './0016-trapped-charge-service-condition';
+import { rcdClampLevel } from './0017-rcd-clamp-level';
 import { modelRunHeartbeat } from './0018-model-run-heartbeat';
 
 /** Every schema step in order. Add new steps at the end. */
@@ -33,5 +35,7 @@ export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
   memberRequests,
   simulationBatches,
   calibrationEvaluations,
+  trappedChargeServiceCondition,
+  rcdClampLevel,
   modelRunHeartbeat,
 ];

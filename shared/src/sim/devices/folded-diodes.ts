@@ -170,7 +170,24 @@ export class FoldedDiodes {
                   isSolved = true;
                   break;
                 }
-                w -= residual / (1 + rs * gw);
+                const dw = -residual / (1 + rs * gw);
+                // A short step (|x| < 1e-3, x = dw/(n·Vt)) leaves the residual Rs·Is·e^(w/nVt)·(e^x − 1 − x);
+                // when that is within tolerance the point w + dw is the answer, its exponential the series of
+                // e^x to x⁴ (truncation below 1e-17 relative): one exp per converged junction, not two.
+                const xs = dw / vte;
+                if (xs < 1e-3 && xs > -1e-3) {
+                  const rest = xs * xs * (0.5 + xs * (1 / 6 + xs / 24));
+                  const vs = w + dw;
+                  if (rs * is * e * rest <= tolerance && vs >= -3 * vte && vs <= Math.max(u, 0)) {
+                    const es = e * (1 + xs + rest);
+                    v = vs;
+                    i = is * (es - 1) + gminS * vs;
+                    gj = (is * es) / vte + gminS;
+                    isSolved = true;
+                    break;
+                  }
+                }
+                w += dw;
               }
             }
             if (!isSolved) {

@@ -169,3 +169,45 @@ describe('Workbench save when someone saved meanwhile', () => {
     expect(saves[1]?.changeNote).toBe('C1 down to 1.5 nF');
   }, 30_000);
 });
+
+describe('Workbench results summary beside the result tabs', () => {
+  beforeEach(() => {
+    vi.stubGlobal(
+      'fetch',
+      vi.fn<typeof fetch>(async (input) => {
+        const url = String(input);
+        if (url === `/api/projects/${projectId}`) return jsonResponse(project);
+        if (url === `/api/projects/${projectId}/designs/${designId}`) return jsonResponse(design(1));
+        return jsonResponse({ statusCode: 404, code: 'not_found', message: `no answer for ${url}` }, 404);
+      }),
+    );
+  });
+  afterEach(() => vi.unstubAllGlobals());
+
+  it('condenses while the result tabs are scrolled down and opens again back at their top', async () => {
+    const queryClient = createTestQueryClient();
+    queryClient.setQueryData(queryKeys.projects.detail(projectId), project);
+    queryClient.setQueryData(queryKeys.designs.detail(projectId, designId), design(1));
+    queryClient.setQueryData(queryKeys.designs.revision(projectId, designId, 1), revision1);
+    renderRoutes([{ path: paths.design.path, element: <WorkbenchRoute /> }], {
+      route: paths.design.getHref(projectId, designId, 1),
+      queryClient,
+    });
+    const summaryBox = await screen.findByRole('region', { name: 'Results summary' });
+    const tabs = screen.getByRole('region', { name: 'Result tabs' });
+    const scrollTo = (px: number) => {
+      tabs.scrollTop = px;
+      fireEvent.scroll(tabs);
+    };
+    expect(summaryBox.dataset.condensed).toBeUndefined();
+    scrollTo(30);
+    expect(summaryBox.dataset.condensed).toBeUndefined();
+    scrollTo(120);
+    expect(summaryBox.dataset.condensed).toBe('true');
+    // Between the two thresholds it stays as it is, so its own change of height does not flip it back.
+    scrollTo(30);
+    expect(summaryBox.dataset.condensed).toBe('true');
+    scrollTo(0);
+    expect(summaryBox.dataset.condensed).toBe('false');
+  }, 30_000);
+});

@@ -138,6 +138,30 @@ function useLayoutMeasures(layoutRef: RefObject<HTMLElement | null>, summaryRef:
   }, [layoutRef, summaryRef]);
 }
 
+/** Scrolled this far down (px), the result tabs condense the summary; back within `CONDENSE_UNTIL_PX` of their top, it opens. */
+const CONDENSE_FROM_PX = 48;
+const CONDENSE_UNTIL_PX = 4;
+
+/**
+ * Marks the Results summary `data-condensed` while the result tabs (their own scroll box side by side from 80em) are
+ * scrolled down, without a render; the stylesheet then drops the lines under each figure. The two thresholds keep
+ * the summary from flickering when its change of height moves the scroll position.
+ */
+function useCondensedSummary(resultsRef: RefObject<HTMLElement | null>, summaryRef: RefObject<HTMLElement | null>) {
+  useEffect(() => {
+    const results = resultsRef.current;
+    const summary = summaryRef.current;
+    if (!results || !summary) return;
+    const onScroll = () => {
+      const isCondensed = summary.dataset.condensed === 'true';
+      if (!isCondensed && results.scrollTop > CONDENSE_FROM_PX) summary.dataset.condensed = 'true';
+      else if (isCondensed && results.scrollTop < CONDENSE_UNTIL_PX) summary.dataset.condensed = 'false';
+    };
+    results.addEventListener('scroll', onScroll, { passive: true });
+    return () => results.removeEventListener('scroll', onScroll);
+  }, [resultsRef, summaryRef]);
+}
+
 function EditableRevision({
   projectId,
   revision,
@@ -201,7 +225,9 @@ function EditableRevision({
 
   const layoutRef = useRef<HTMLDivElement>(null);
   const summaryRef = useRef<HTMLElement>(null);
+  const resultsRef = useRef<HTMLElement>(null);
   useLayoutMeasures(layoutRef, summaryRef);
+  useCondensedSummary(resultsRef, summaryRef);
 
   // The header is memoized: Save reaches the latest submit through a ref, so its handler keeps its identity.
   const submitRef = useRef(submit);
@@ -298,7 +324,7 @@ function EditableRevision({
             />
           </section>
         </div>
-        <section className={classes.results} aria-label="Result tabs">
+        <section className={classes.results} aria-label="Result tabs" ref={resultsRef}>
           {report && partIssues.length > 0 && (
             <Suspense fallback={null}>
               <PartIssuesAlert issues={partIssues} />

@@ -84,7 +84,19 @@ export interface TraceChartProps {
   /** Series names when they are not the traces' own. */
   names?: readonly string[];
   /** Moments drawn as vertical lines (e.g. the times to 90 % and to within 1 % of a start-up), s on the plotted axis. */
-  timeMarks?: readonly { key: string; label: string; timeS: number }[];
+  timeMarks?: readonly TimeMark[];
+  /** The plot first shows the run up to this time (s on the plotted axis); the rest is a zoom-out away. */
+  firstViewEndS?: number;
+}
+
+/** A moment drawn as a vertical line, with its full label in the key and a short tag on the plot. */
+export interface TimeMark {
+  key: string;
+  label: string;
+  tag: string;
+  timeS: number;
+  /** The second mark of a plot: another colour and a dotted line. */
+  isLater?: boolean;
 }
 
 /** The chart colours in turn. */
@@ -103,6 +115,7 @@ export function TraceChart({
   valueTitle,
   names,
   timeMarks = [],
+  firstViewEndS,
 }: TraceChartProps) {
   if (traces.length + rightTraces.length === 0) {
     return (
@@ -152,9 +165,17 @@ export function TraceChart({
                 color: chartColors.mark,
               },
             ]),
-        ...timeMarks.map((mark) => ({ key: mark.key, label: mark.label, x: mark.timeS, color: chartColors.mark })),
+        ...timeMarks.map((mark) => ({
+          key: mark.key,
+          label: mark.label,
+          tag: mark.tag,
+          x: mark.timeS,
+          color: mark.isLater ? chartColors.laterMark : chartColors.mark,
+          isDotted: mark.isLater === true,
+        })),
       ]}
       isZoomable
+      {...(firstViewEndS === undefined ? {} : { firstViewXEnd: firstViewEndS })}
     />
   );
 }

@@ -6,6 +6,7 @@ import {
   dischargeSafeLevelV,
   runMethodNote,
   startUpMarks,
+  startUpViewEndS,
   startUpWindowIssue,
   WaveformsPanel,
 } from './waveforms-panel';
@@ -96,14 +97,14 @@ describe('runMethodNote', () => {
 });
 
 describe('startUpMarks', () => {
-  it('marks the times to 90 % and to within 1 % that the run gives, and no others', () => {
+  it('marks the times to 90 % and to within 1 % that the run gives, each tagged on the plot, the second set apart', () => {
     const envelope = { ...summary, startUpMethod: 'envelope-following' as const, timeTo1PercentS: 0.045 };
     expect(startUpMarks(envelope)).toEqual([
-      { key: '90', label: 'time to 90 %', timeS: 0.02 },
-      { key: '1', label: 'time to within 1 %', timeS: 0.045 },
+      { key: '90', label: 'time to 90 % (20 ms)', tag: '90 %', timeS: 0.02 },
+      { key: '1', label: 'time to within 1 % (45 ms)', tag: '1 %', timeS: 0.045, isLater: true },
     ]);
     expect(startUpMarks({ ...envelope, timeTo1PercentS: null })).toEqual([
-      { key: '90', label: 'time to 90 %', timeS: 0.02 },
+      { key: '90', label: 'time to 90 % (20 ms)', tag: '90 %', timeS: 0.02 },
     ]);
     const transient = {
       ...summary,
@@ -112,6 +113,15 @@ describe('startUpMarks', () => {
       timeToSteadyStateS: null,
     };
     expect(startUpMarks(transient)).toEqual([]);
+  });
+});
+
+describe('startUpViewEndS', () => {
+  it('ends the first view of the start-up at 1.5× the time to within 1 %, else 3× the time to 90 %', () => {
+    const envelope = { ...summary, startUpMethod: 'envelope-following' as const, timeTo1PercentS: 2e-3 };
+    expect(startUpViewEndS(envelope)).toBeCloseTo(3e-3, 12);
+    expect(startUpViewEndS({ ...envelope, timeTo1PercentS: null })).toBeCloseTo(0.06, 12);
+    expect(startUpViewEndS({ ...envelope, timeTo1PercentS: null, timeToSteadyStateS: null })).toBeNull();
   });
 });
 

@@ -23,6 +23,7 @@ import {
   startOf,
   TraceChart,
   traceLabel,
+  type TimeMark,
 } from './waveform-charts';
 
 export interface WaveformsPanelProps {
@@ -201,6 +202,7 @@ export function WaveformsPanel({
               traces={tracesOf('startup')}
               valueTitle={result.summary.startUpMethod === 'envelope-following' ? 'Output, cycle mean' : undefined}
               timeMarks={startUpMarks(result.summary)}
+              firstViewEndS={startUpViewEndS(result.summary) ?? undefined}
               isTimeFromZero
             />
             <RippleChart traces={lastCycle(outputSteadyState, cycleFrequencyHz)} />
@@ -243,11 +245,35 @@ const isOnePercentTimed = (summary: SimulationSummary): boolean =>
   summary.timeTo1PercentS !== undefined && summary.startUpMethod !== 'transient';
 
 /** The times to 90 % and to within 1 % of the settled output, as lines on the Start-up plot (those the run gives). */
-export function startUpMarks(summary: SimulationSummary): { key: string; label: string; timeS: number }[] {
-  const marks = [{ key: '90', label: 'time to 90 %', timeS: summary.timeToSteadyStateS }];
-  if (isOnePercentTimed(summary))
-    marks.push({ key: '1', label: 'time to within 1 %', timeS: summary.timeTo1PercentS ?? null });
-  return marks.filter((mark): mark is { key: string; label: string; timeS: number } => mark.timeS !== null);
+export function startUpMarks(summary: SimulationSummary): TimeMark[] {
+  const marks: TimeMark[] = [];
+  const at90S = summary.timeToSteadyStateS;
+  if (at90S !== null)
+    marks.push({ key: '90', label: `time to 90 % (${formatQuantity(at90S, 's')})`, tag: '90 %', timeS: at90S });
+  const at1S = isOnePercentTimed(summary) ? (summary.timeTo1PercentS ?? null) : null;
+  if (at1S !== null)
+    marks.push({
+      key: '1',
+      label: `time to within 1 % (${formatQuantity(at1S, 's')})`,
+      tag: '1 %',
+      timeS: at1S,
+      isLater: true,
+    });
+  return marks;
+}
+
+/** How far past the time to within 1 % the Start-up plot first reaches: the settled tail is a third of it. */
+export const START_UP_VIEW_PER_SETTLING = 1.5;
+
+/**
+ * Where the Start-up plot's first view ends: 1.5× the time to within 1 % (else 3× the time to 90 %), so the rise
+ * fills the plot and the settled tail shows without dominating; null when the run times neither.
+ */
+export function startUpViewEndS(summary: SimulationSummary): number | null {
+  const at1S = isOnePercentTimed(summary) ? (summary.timeTo1PercentS ?? null) : null;
+  if (at1S !== null && at1S > 0) return START_UP_VIEW_PER_SETTLING * at1S;
+  const at90S = summary.timeToSteadyStateS;
+  return at90S !== null && at90S > 0 ? 3 * at90S : null;
 }
 
 /** How the run got its figures, in plain words, with the number of cycles it simulated. */

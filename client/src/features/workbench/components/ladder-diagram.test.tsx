@@ -28,4 +28,18 @@ describe('LadderDiagram', () => {
     expect(await screen.findByText(report.analysis.nodeMethod.methodId)).toBeTruthy();
     expect(screen.getByText(report.analysis.nodeMethod.summary)).toBeTruthy();
   });
+
+  it('fits the drawing to the column by default, scaled down and never up, and shows it at full size on request', () => {
+    const design = designExamples.detectorBias as Design;
+    renderWithApp(<LadderDiagram report={analyzeDesign(design)} design={design} />);
+    const svg = document.querySelector<SVGSVGElement>('[data-schematic]')!;
+    expect(svg.dataset.fitted).toBe('true');
+    expect(svg.style.maxWidth).toBe('100%');
+    // The attributes keep the drawing's own size, which the export writes.
+    expect(Number(svg.getAttribute('width'))).toBeGreaterThan(0);
+    fireEvent.click(screen.getByRole('radio', { name: 'Full size' }));
+    expect(svg.dataset.fitted).toBe('false');
+    expect(svg.style.maxWidth).toBe('');
+    expect(svg.parentElement!.style.overflowX).toBe('auto');
+  });
 });

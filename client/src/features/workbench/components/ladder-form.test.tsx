@@ -93,7 +93,9 @@ describe('LadderForm driver fields', () => {
       expect(screen.queryByLabelText('Clamp resistor')).toBeNull();
       fireEvent.click(screen.getByLabelText('Clamp', { selector: 'input' }));
       fireEvent.click(screen.getByRole('option', { name: 'RCD' }));
-      expect(driverOf(seen.at(-1)).clamp?.kind).toBe('rcd');
+      // An RCD clamp states no voltage: its resistor and capacitor set its level (the simulated circuit's defaults).
+      expect(driverOf(seen.at(-1)).clamp).toEqual({ kind: 'rcd', resistorOhm: 10e3, capacitorF: 10e-9 });
+      expect(screen.queryByLabelText('Zener voltage')).toBeNull();
       fireEvent.change(screen.getByLabelText('Clamp resistor'), { target: { value: '22k' } });
       expect(driverOf(seen.at(-1)).clamp).toMatchObject({ kind: 'rcd', resistorOhm: 22e3 });
       fireEvent.change(screen.getByLabelText('Battery-life target (h)'), { target: { value: '40' } });

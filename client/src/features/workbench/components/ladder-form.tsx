@@ -159,6 +159,7 @@ const SectionBody = memo(
             <TransformerSection
               driver={driver}
               edit={driverEdit(edit)}
+              editDesign={edit}
               issue={issue}
               parts={parts}
               spacing={document.targets.spacing}

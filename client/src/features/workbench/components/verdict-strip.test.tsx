@@ -41,6 +41,15 @@ describe('VerdictStrip with a stored simulation', () => {
     expect(screen.queryByText(/target no /)).not.toBeInTheDocument();
   });
 
+  it('gives the discharge time to the level its target names (60 V under NFPA 79 6.5.1), not to the safe voltage', () => {
+    const detector = designExamples.detectorBias;
+    const detectorReport = analyzeDesign(detector);
+    renderWithApp(<VerdictStrip report={detectorReport} targets={detector.targets} />);
+    const discharge = cell('Discharge time');
+    expect(within(discharge).getByText(/^target ≤ 60 V within 5 s/)).toBeInTheDocument();
+    expect(within(discharge).getByText(formatQuantity(detectorReport.dischargeTimeToRuleS!, 's'))).toBeInTheDocument();
+  });
+
   it('shows the simulated output, marks it, marks the rest as estimates and states a difference beyond tolerance', () => {
     // 10 % above the estimate: beyond the driver estimate's stated 5 % on the output (ESTIMATE_VALIDITY_BOUNDS).
     const simulatedV = report.outputMeanV * 1.1;

@@ -95,7 +95,7 @@ const FigureCell = memo(
         >
           {figure.value}
         </Text>
-        <Text size="xs" c="dimmed" lh={1.25} lineClamp={2} title={figure.target}>
+        <Text size="xs" c="dimmed" lh={1.25} lineClamp={2} title={figure.target} data-figure-target>
           {targetLine(figure)}
         </Text>
         {figure.verdict && (

@@ -1,7 +1,7 @@
-import { lazy, Suspense } from 'react';
-import { Loader, SegmentedControl, Stack } from '@mantine/core';
+import { lazy, Suspense, useState } from 'react';
+import { Alert, Group, Loader, SegmentedControl, Stack } from '@mantine/core';
 import type { Part } from '@ladderwright/shared/api';
-import type { SpacingEnvironment } from '@ladderwright/shared/designs';
+import type { Design, SpacingEnvironment } from '@ladderwright/shared/designs';
 import type { DriverStage, DriverTransformer } from '@ladderwright/shared/driver';
 import type { QuantityUnit } from '@ladderwright/shared/units';
 import { BoundField } from '../../../../components/bound-field';
@@ -48,39 +48,83 @@ export interface DriverSectionProps {
 
 /**
  * The blocking oscillator's transformer: its numbers as given (the default), or designed from a core, a gap
- * and windings on the project's Parts shelf, from which the engine derives the same numbers.
+ * and windings on the project's Parts shelf, from which the engine derives the same numbers. The first switch to
+ * a designed transformer starts on the core the transformer Sizer ranks first for the driver (with `editDesign`,
+ * the whole document's edit: the choice reads the design's driver and targets) and says which and why.
  */
 export function TransformerSection({
   driver,
   edit,
+  editDesign,
   issue,
   parts,
   spacing,
-}: DriverSectionProps & { parts: readonly Part[]; spacing?: SpacingEnvironment }) {
+}: DriverSectionProps & { editDesign?: Edit<Design>; parts: readonly Part[]; spacing?: SpacingEnvironment }) {
   const choice = driver.transformerChoice ?? 'given';
+  const [isStarting, setIsStarting] = useState(false);
+  const [startNote, setStartNote] = useState<string | null>(null);
+  const path = `${DRIVER_PATH}.transformerChoice`;
+  const startDesigned = async () => {
+    setIsStarting(true);
+    const [{ startDesignedTransformer }, { startingSection }] = await Promise.all([
+      import('../../designed-start'),
+      import('../../transformer-start'),
+    ]);
+    let note: string | null = null;
+    if (editDesign) {
+      editDesign((design) => {
+        if (design.drive.kind !== 'driver') return;
+        const dr = design.drive.driver;
+        if (!dr.transformerDesign) {
+          const start = startDesignedTransformer(design, parts);
+          if (start) [dr.transformerDesign, note] = [start.section, start.note];
+        }
+        dr.transformerChoice = 'designed';
+      }, path);
+    } else {
+      edit((dr) => {
+        dr.transformerDesign ??= startingSection(dr, parts, spacing);
+        dr.transformerChoice = 'designed';
+      }, path);
+    }
+    setStartNote(note);
+    setIsStarting(false);
+  };
   return (
     <Stack gap="sm">
-      <SegmentedControl
-        aria-label="Transformer from"
-        value={choice}
-        w="fit-content"
-        data={[
-          { value: 'given', label: 'Given numbers' },
-          { value: 'designed', label: 'Designed from a core' },
-        ]}
-        onChange={(value) => {
-          if (value !== 'designed') {
-            edit((dr) => void (dr.transformerChoice = 'given'), `${DRIVER_PATH}.transformerChoice`);
-            return;
-          }
-          void import('../../transformer-start').then(({ startingSection }) =>
-            edit((dr) => {
-              dr.transformerDesign ??= startingSection(dr, parts, spacing);
-              dr.transformerChoice = 'designed';
-            }, `${DRIVER_PATH}.transformerChoice`),
-          );
-        }}
-      />
+      <Group gap="sm">
+        <SegmentedControl
+          aria-label="Transformer from"
+          value={choice}
+          w="fit-content"
+          data={[
+            { value: 'given', label: 'Given numbers' },
+            { value: 'designed', label: 'Designed from a core' },
+          ]}
+          onChange={(value) => {
+            if (value !== 'designed') {
+              edit((dr) => void (dr.transformerChoice = 'given'), path);
+              setStartNote(null);
+              return;
+            }
+            void startDesigned();
+          }}
+        />
+        {isStarting && <Loader size="xs" aria-label="Choosing a core for this driver" />}
+      </Group>
+      {choice === 'designed' && startNote && (
+        <Alert
+          variant="light"
+          title="Starting core"
+          role="status"
+          aria-label="Starting core"
+          withCloseButton
+          closeButtonLabel="Dismiss"
+          onClose={() => setStartNote(null)}
+        >
+          {startNote}
+        </Alert>
+      )}
       {choice === 'designed' && driver.transformerDesign ? (
         <Suspense fallback={<Loader size="sm" aria-label="Loading the transformer fields" />}>
           <DesignedTransformerFields section={driver.transformerDesign} edit={edit} issue={issue} parts={parts} />

@@ -1,6 +1,6 @@
 import { Select, Stack, Text } from '@mantine/core';
 import { driverExamples, type DriverClamp, type DriverTransistor } from '@ladderwright/shared/driver';
-import { DIODE_MODEL_DEFAULTS, TRANSISTOR_MODEL_DEFAULTS } from '@ladderwright/shared/designs';
+import { DIODE_MODEL_DEFAULTS, RCD_CLAMP_DEFAULTS, TRANSISTOR_MODEL_DEFAULTS } from '@ladderwright/shared/designs';
 import { BoundField } from '../../../../components/bound-field';
 import { FieldGrid } from '../../../../components/field-grid';
 import { binder, optionalBinder } from '../../document-path';
@@ -19,11 +19,18 @@ const transistorFields: FieldSpec<NumberKeys<DriverTransistor>>[] = [
 
 type ClampKind = 'none' | DriverClamp['kind'];
 
-/** The clamp a kind starts with: the present clamp voltage kept, the demo stage's otherwise. */
+/**
+ * The clamp a kind starts with: a zener at the present zener voltage or the demo stage's; an RCD clamp with its
+ * resistor and capacitor at the simulated circuit's defaults (its level follows from them and the flyback).
+ */
 function clampOf(kind: ClampKind, present: DriverClamp | undefined): DriverClamp | undefined {
-  const clampVoltageV = present?.clampVoltageV ?? driverExamples.surfaceChargeTester.clamp?.clampVoltageV ?? 30;
-  if (kind === 'zener') return { kind: 'zener', clampVoltageV };
-  if (kind === 'rcd') return { kind: 'rcd', clampVoltageV, resistorOhm: 10e3, capacitorF: 10e-9 };
+  if (kind === 'zener') {
+    const demo = driverExamples.surfaceChargeTester.clamp;
+    const clampVoltageV =
+      present?.kind === 'zener' ? present.clampVoltageV : demo?.kind === 'zener' ? demo.clampVoltageV : 30;
+    return { kind: 'zener', clampVoltageV };
+  }
+  if (kind === 'rcd') return { kind: 'rcd', ...RCD_CLAMP_DEFAULTS };
   return undefined;
 }
 
@@ -96,7 +103,7 @@ export function TransistorSection({ driver, edit, issue }: DriverSectionProps) {
             })
           }
         />
-        {clamp && <BoundField label="Clamp voltage" unit="V" {...bind('clamp.clampVoltageV')} />}
+        {clamp?.kind === 'zener' && <BoundField label="Zener voltage" unit="V" {...bind('clamp.clampVoltageV')} />}
         {clamp?.kind === 'rcd' && (
           <>
             <BoundField label="Clamp resistor" unit="Ohm" {...bind('clamp.resistorOhm')} />
@@ -104,6 +111,12 @@ export function TransistorSection({ driver, edit, issue }: DriverSectionProps) {
           </>
         )}
       </FieldGrid>
+      {clamp?.kind === 'rcd' && (
+        <Text size="xs" c="dimmed">
+          The RCD clamp has no set voltage: it settles where its resistor takes the flyback energy it is given. The
+          collector peak on the Driver tab is that level.
+        </Text>
+      )}
       {clamp && (
         <ModelDetails
           title={clamp.kind === 'zener' ? 'Zener model details' : 'Clamp diode model details'}
