@@ -138,6 +138,8 @@ async function startUpPart(windowS: number): Promise<void> {
         Promise.all(
           designs.map((d: Design) => pool.run({ design: d, datasets: prepared }) as Promise<number[][] | null>),
         ),
+      // With more than one worker each step goes out with its Jacobian's columns (FitOptions.speculative).
+      { speculative: workers > 1 },
     );
     const wallMs = performance.now() - t0;
     await pool.destroy();

@@ -7,6 +7,9 @@ import type { Calibration, DesignDetail } from '@ladderwright/shared/api';
 import { applyParameterValues, startUpSimulation } from '@ladderwright/shared/calibration';
 import { RevisionModel } from '../src/revisions/revision.model';
 import { CalibrationEvaluationsService } from '../src/simulations/calibration-evaluations.service';
+import { SimulationPoolService } from '../src/simulations/simulation-pool.service';
+import { SimulationQueueService } from '../src/simulations/simulation-queue.service';
+import { SimulationRunnerService } from '../src/simulations/simulation-runner.service';
 import { createDesign } from './factories/create-design';
 import { createProject, type TestProject } from './factories/create-project';
 import { createUser, type TestUser } from './factories/create-user';
@@ -16,8 +19,11 @@ import { SessionCookies } from './utils/sign-in';
 // Two app instances against one database, each with one simulation worker: a start-up calibration started
 // through the first runs its model runs on both instances' worker pools (rows of calibration_evaluations
 // claimed by each instance). The start-up curve is the simulator's own at gain 80 (the fit's numerics are
-// checked against ngspice in shared/test/calibration); here the spread, the cancel and the clean-up are
-// under test.
+// checked against ngspice in shared/test/calibration); here the spread, the cancel, the clean-up and an
+// instance dying mid-run are under test. Heartbeats every 2 s: a model run whose instance stops beating is
+// given back after 6 s.
+const HEARTBEAT_MS = 2_000;
+
 describe('calibration model runs across app instances', () => {
   let first: TestApp;
   let second: TestApp;
@@ -49,6 +55,19 @@ describe('calibration model runs across app instances', () => {
     }
   }
 
+  /** Starts a fit of gain and cell resistance to the start-up run (two model runs a Jacobian). */
+  async function startGainAndCellFit(): Promise<request.Response> {
+    const start = await http()
+      .post(`${revisionUrl()}/calibrations`)
+      .set('Cookie', as(engineer))
+      .send({
+        parameters: [{ id: 'transistorGain' }, { id: 'cellInternalResistance' }],
+        runs: [{ benchRunId: captureId, use: 'start-up' }],
+      });
+    expect(start.status).toBe(202);
+    return start;
+  }
+
   async function openRows(): Promise<number> {
     const [row] = await first.sequelize.query<{ count: string }>(
       'SELECT count(*) AS count FROM calibration_evaluations',
@@ -59,8 +78,9 @@ describe('calibration model runs across app instances', () => {
 
   beforeAll(async () => {
     dataDir = mkdtempSync(join(tmpdir(), 'lw-calibration-instances-'));
-    first = await createTestApp({ env: { dataDir, simulationWorkers: 1 } });
-    second = await createTestApp({ env: { dataDir, simulationWorkers: 1 }, prepareDatabase: false });
+    const env = { dataDir, simulationWorkers: 1, simulationHeartbeatMs: HEARTBEAT_MS };
+    first = await createTestApp({ env });
+    second = await createTestApp({ env, prepareDatabase: false });
     engineer = await createUser(first, { role: 'engineer' });
     project = await createProject([{ userId: engineer.id, role: 'engineer' }]);
     design = await createDesign(first, project.id, engineer.id, {
@@ -91,14 +111,7 @@ describe('calibration model runs across app instances', () => {
   });
 
   it("runs a start-up calibration's model runs on both instances' worker pools", async () => {
-    const start = await http()
-      .post(`${revisionUrl()}/calibrations`)
-      .set('Cookie', as(engineer))
-      .send({
-        parameters: [{ id: 'transistorGain' }, { id: 'cellInternalResistance' }],
-        runs: [{ benchRunId: captureId, use: 'start-up' }],
-      });
-    expect(start.status).toBe(202);
+    const start = await startGainAndCellFit();
     const [done, instances] = await waitWatchingInstances(start.body.id as string, 240_000);
     expect(done.status).toBe('succeeded');
     expect(done.result!.residuals[0]!.rmsAfterV).toBeLessThan(done.result!.residuals[0]!.rmsBeforeV);
@@ -126,4 +139,63 @@ describe('calibration model runs across app instances', () => {
     while ((await openRows()) > 0 && Date.now() < deadline) await new Promise((done) => setTimeout(done, 50));
     expect(await openRows()).toBe(0);
   }, 120_000);
+
+  // Last in this file: it leaves one instance dead (the other, and the database, are closed in afterAll).
+  it('gives a model run whose instance died mid-run to the other instance, and the calibration ends well', async () => {
+    const start = await startGainAndCellFit();
+    const id = start.body.id as string;
+    const deadline = Date.now() + 120_000;
+    const poll = () => new Promise((done) => setTimeout(done, 50));
+    // The instance that runs the fit stays; the other one dies while it runs a model run.
+    const runnerName = (app: TestApp) =>
+      (app.app.get(SimulationRunnerService) as unknown as { instanceName: string }).instanceName;
+    let fitter: TestApp | null = null;
+    while (!fitter && Date.now() < deadline) {
+      const [job] = await first.sequelize.query<{ run_by: string | null }>(
+        `SELECT j.run_by FROM simulation_jobs j JOIN calibrations c ON c.simulation_job_id = j.id WHERE c.id = :id`,
+        { replacements: { id }, type: QueryTypes.SELECT },
+      );
+      fitter = [first, second].find((app) => job?.run_by === runnerName(app)) ?? null;
+      if (!fitter) await poll();
+    }
+    expect(fitter).not.toBeNull();
+    const doomed = fitter === first ? second : first;
+    const doomedId = doomed.app.get(CalibrationEvaluationsService).instanceId;
+    let lostRunId: string | null = null;
+    while (!lostRunId && Date.now() < deadline) {
+      const [row] = await first.sequelize.query<{ id: string }>(
+        `SELECT id FROM calibration_evaluations WHERE instance_id = :doomedId AND status = 'running'`,
+        { replacements: { doomedId }, type: QueryTypes.SELECT },
+      );
+      lostRunId = row?.id ?? null;
+      if (!lostRunId) await poll();
+    }
+    expect(lostRunId).not.toBeNull();
+    // The instance dies: from now on it writes nothing (no heartbeat, no answer), its worker threads end and
+    // its queue takes nothing more, as with a process killed mid-run.
+    const silent = async () => undefined;
+    Object.assign(doomed.app.get(CalibrationEvaluationsService), { beat: silent, finish: silent, execute: silent });
+    await doomed.app.get(SimulationPoolService).onModuleDestroy();
+    await doomed.app.get(SimulationQueueService).onModuleDestroy();
+
+    // The lost run is given back (attempts 1) and taken by the instance left; the calibration succeeds long
+    // before its time limit (SIMULATION_MAX_RUN_S, 600 s).
+    let givenBack = false;
+    let calibration: Calibration | null = null;
+    const endBy = Date.now() + 240_000;
+    while (Date.now() < endBy) {
+      const [row] = await first.sequelize.query<{ attempts: number; instance_id: string | null }>(
+        'SELECT attempts, instance_id FROM calibration_evaluations WHERE id = :lostRunId',
+        { replacements: { lostRunId }, type: QueryTypes.SELECT },
+      );
+      if (row && row.attempts > 0) givenBack = true;
+      const response = await http().get(`${revisionUrl()}/calibrations/${id}`).set('Cookie', as(engineer));
+      calibration = response.body as Calibration;
+      if (calibration.status !== 'queued' && calibration.status !== 'running') break;
+      await poll();
+    }
+    expect(givenBack).toBe(true);
+    expect(calibration?.status).toBe('succeeded');
+    expect(await openRows()).toBe(0);
+  }, 400_000);
 });

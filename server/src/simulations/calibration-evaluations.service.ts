@@ -13,12 +13,27 @@ import { CALIBRATION_PREDICT } from './simulation-task.types';
 
 /** How often the instance running a fit looks for its model runs' answers. */
 const ANSWER_POLL_MS = 100;
-/** How often a model run looks for the cancel of its calibration (made on any instance). */
+/** How often a model run writes its heartbeat and looks for the cancel of its calibration (made on any instance). */
 const CANCEL_POLL_MS = 500;
+/**
+ * Heartbeats of SIMULATION_HEARTBEAT_MS a model run may miss before the fit gives it back to the queue (its
+ * instance died), as a simulation job's.
+ */
+const MISSED_HEARTBEATS = 3;
+/** Times one model run is given back before the calibration ends (instances dying one after another). */
+const MAX_RUN_ATTEMPTS = 3;
 /** A cancelled model run gets this long to stop at a time step before its worker thread is terminated. */
 const CANCEL_GRACE_MS = 500;
 /** Calibrations whose runs an instance keeps in memory for its model runs. */
 const DATASET_CACHE_SIZE = 8;
+
+/**
+ * A model run whose instance stopped beating MAX_RUN_ATTEMPTS times: the calibration ends (as a simulation
+ * whose instance died, `interrupted`) rather than wait for its time limit.
+ */
+export class ModelRunLostError extends Error {
+  readonly code = 'interrupted';
+}
 
 interface EvaluationRow {
   id: string;
@@ -97,6 +112,7 @@ export class CalibrationEvaluationsService implements OnApplicationBootstrap {
   }
 
   private async waitForAnswers(ids: string[], isCancelled: () => boolean): Promise<Map<string, EvaluationRow>> {
+    let nextLookForLost = Date.now() + this.env.simulationHeartbeatMs;
     for (;;) {
       if (isCancelled()) {
         await this.sequelize.query(
@@ -114,14 +130,59 @@ export class CalibrationEvaluationsService implements OnApplicationBootstrap {
       if (rows.every((row) => row.status !== 'queued' && row.status !== 'running')) {
         return new Map(rows.map((row) => [row.id, row]));
       }
+      if (Date.now() >= nextLookForLost) {
+        nextLookForLost = Date.now() + this.env.simulationHeartbeatMs;
+        await this.giveBackLost(ids);
+      }
       await new Promise((done) => setTimeout(done, ANSWER_POLL_MS));
     }
+  }
+
+  /**
+   * Gives back to the queue the model runs of `ids` whose instance stopped beating (it died mid-run), and
+   * queues again the ones still waiting after as long (their queue job may have been taken by an instance that
+   * died before it claimed the run; a second job for a run is harmless, only one claim succeeds). A run lost
+   * MAX_RUN_ATTEMPTS times ends the calibration.
+   */
+  private async giveBackLost(ids: string[]): Promise<void> {
+    const staleS = (this.env.simulationHeartbeatMs * MISSED_HEARTBEATS) / 1000;
+    const lost = await this.sequelize.query<{ id: string; attempts: number }>(
+      `SELECT id, attempts FROM calibration_evaluations
+       WHERE id IN (:ids) AND status = 'running'
+         AND coalesce(heartbeat_at, updated_at) < now() - make_interval(secs => :staleS)`,
+      { replacements: { ids, staleS }, type: QueryTypes.SELECT },
+    );
+    if (lost.some((row) => row.attempts + 1 >= MAX_RUN_ATTEMPTS)) {
+      throw new ModelRunLostError(
+        `A model run of the calibration was lost ${MAX_RUN_ATTEMPTS} times with the app instance that ran it (no heartbeat for ${staleS} s); start the calibration again`,
+      );
+    }
+    const given = lost.length
+      ? await this.sequelize.query<{ id: string }>(
+          `UPDATE calibration_evaluations
+       SET status = 'queued', instance_id = NULL, heartbeat_at = NULL, attempts = attempts + 1, updated_at = now()
+       WHERE status = 'running' AND id IN (:lost)
+         AND coalesce(heartbeat_at, updated_at) < now() - make_interval(secs => :staleS)
+       RETURNING id`,
+          { replacements: { lost: lost.map((row) => row.id), staleS }, type: QueryTypes.SELECT },
+        )
+      : [];
+    const waiting = await this.sequelize.query<{ id: string }>(
+      `UPDATE calibration_evaluations SET updated_at = now()
+       WHERE id IN (:ids) AND status = 'queued' AND updated_at < now() - make_interval(secs => :staleS)
+       RETURNING id`,
+      { replacements: { ids, staleS }, type: QueryTypes.SELECT },
+    );
+    const again = [...given, ...waiting].map((row) => ({ evaluationId: row.id }));
+    if (given.length > 0) this.logger.warn(`gave back ${given.length} model run(s) whose instance stopped beating`);
+    if (again.length > 0) await this.queue.sendEvaluations(again);
   }
 
   /** Takes one queued model run: claims it, runs it in this instance's pool, writes the answer. */
   private async execute({ evaluationId: id }: CalibrationEvaluationPayload): Promise<void> {
     const claimed = await this.sequelize.query<{ calibration_id: string; document: Design }>(
-      `UPDATE calibration_evaluations SET status = 'running', instance_id = :instance, updated_at = now()
+      `UPDATE calibration_evaluations
+       SET status = 'running', instance_id = :instance, heartbeat_at = now(), updated_at = now()
        WHERE id = :id AND status = 'queued' RETURNING calibration_id, document`,
       { replacements: { id, instance: this.instanceId }, type: QueryTypes.SELECT },
     );
@@ -136,7 +197,10 @@ export class CalibrationEvaluationsService implements OnApplicationBootstrap {
       { kind: CALIBRATION_PREDICT, document: row.document, options: {}, datasets },
       () => undefined,
     );
-    const cancelWatch = setInterval(() => void this.checkCancelled(id, run), CANCEL_POLL_MS);
+    const cancelWatch = setInterval(
+      () => void this.beat(id, run),
+      Math.min(CANCEL_POLL_MS, this.env.simulationHeartbeatMs),
+    );
     try {
       const answer = await run.outcome;
       if (answer.ok) await this.finish(id, 'done', 'predictions' in answer ? answer.predictions : null, null);
@@ -158,20 +222,31 @@ export class CalibrationEvaluationsService implements OnApplicationBootstrap {
     await this.sequelize.query(
       `UPDATE calibration_evaluations
        SET status = :status, predictions = CAST(:predictions AS jsonb), error_message = :errorMessage, updated_at = now()
-       WHERE id = :id AND status = 'running'`,
+       WHERE id = :id AND status = 'running' AND instance_id = :instance`,
       {
-        replacements: { id, status, predictions: predictions ? JSON.stringify(predictions) : null, errorMessage },
+        replacements: {
+          id,
+          status,
+          predictions: predictions ? JSON.stringify(predictions) : null,
+          errorMessage,
+          instance: this.instanceId,
+        },
       },
     );
   }
 
-  private async checkCancelled(id: string, run: PoolRun): Promise<void> {
+  /**
+   * The run's heartbeat; a run no longer ours and running (cancelled, or given back after a missed beat) is
+   * stopped.
+   */
+  private async beat(id: string, run: PoolRun): Promise<void> {
     try {
-      const rows = await this.sequelize.query<{ status: string }>(
-        'SELECT status FROM calibration_evaluations WHERE id = :id',
-        { replacements: { id }, type: QueryTypes.SELECT },
+      const rows = await this.sequelize.query<{ id: string }>(
+        `UPDATE calibration_evaluations SET heartbeat_at = now()
+         WHERE id = :id AND status = 'running' AND instance_id = :instance RETURNING id`,
+        { replacements: { id, instance: this.instanceId }, type: QueryTypes.SELECT },
       );
-      if (rows[0]?.status !== 'running') run.cancel(CANCEL_GRACE_MS);
+      if (rows.length === 0) run.cancel(CANCEL_GRACE_MS);
     } catch {
       // The next poll tries again.
     }

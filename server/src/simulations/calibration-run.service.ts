@@ -9,7 +9,7 @@ import {
 import type { Design } from '@ladderwright/shared/designs';
 import { isDomainError } from '@ladderwright/shared/errors';
 import { CalibrationModel } from '../calibrations/calibration.model';
-import { CalibrationEvaluationsService } from './calibration-evaluations.service';
+import { CalibrationEvaluationsService, ModelRunLostError } from './calibration-evaluations.service';
 import { type PoolRun, SimulationPoolService } from './simulation-pool.service';
 import { CALIBRATION_PREDICT, type SimulationTaskOutcome } from './simulation-task.types';
 
@@ -61,13 +61,20 @@ export class CalibrationRunService {
         usesSimulator
           ? () => this.evaluations.predictor(calibration.id, isCancelled)
           : (prepared) => this.localPredictor(prepared, inFlight),
-        { onProgress: (fraction) => onProgress(Math.floor(fraction * 99)), shouldCancel: isCancelled },
+        {
+          onProgress: (fraction) => onProgress(Math.floor(fraction * 99)),
+          shouldCancel: isCancelled,
+          // Model runs of the simulator spread over every instance's pool: a step and its Jacobian go together.
+          speculative: usesSimulator,
+        },
       );
       await calibration.update({ result });
       return { ok: true, calibrated: true };
     } catch (error) {
       if (isDomainError(error))
         return { ok: false, error: { code: error.code, message: error.message, field: error.field } };
+      if (error instanceof ModelRunLostError)
+        return { ok: false, error: { code: error.code, message: error.message, field: null } };
       if (isCancelled()) return { ok: false, error: { code: 'cancelled', message: 'Cancelled', field: null } };
       throw error;
     }

@@ -15,7 +15,8 @@ import type {
   FittedParameter,
   IdentifiabilityWarning,
 } from './calibration.types';
-import { fitParameters, toValue, type FitOptions, type FitParameter } from './fit-parameters';
+import { fitParameters, toValue, type BatchModel, type FitOptions, type FitParameter } from './fit-parameters';
+import { profileIntervals } from './profile-intervals';
 import { CORRELATION_WARNING, fitStatistics } from './fit-statistics';
 import { applyParameterValues, checkChosenParameters, uncertainParameter } from './uncertain-parameters';
 
@@ -114,29 +115,52 @@ export async function calibrateDesign(
   const usesSimulator = datasets.some((dataset) => modelKindOf(dataset.use) === 'simulator');
   const usesWaveform = datasets.some((dataset) => waveformProbeOf(dataset.use) !== null);
 
-  const outcome = await fitParameters(
-    fitParametersList,
-    target,
-    async (valueSets) => {
-      const answers = await predictor(valueSets.map((values) => applyParameterValues(design, ids, values)));
-      return answers.map((answer) => (answer ? normalized(answer) : null));
-    },
-    {
-      ...options,
-      stepU: usesSimulator ? 1e-2 : 1e-3,
-      ...(usesWaveform ? { startPoints: WAVEFORM_START_POINTS_PER_PARAMETER * chosen.length } : {}),
-    },
-  );
+  const fitModel: BatchModel = async (valueSets) => {
+    if (options.shouldCancel?.()) throw new DomainError('cancelled', 'The calibration was cancelled');
+    const answers = await predictor(valueSets.map((values) => applyParameterValues(design, ids, values)));
+    return answers.map((answer) => (answer ? normalized(answer) : null));
+  };
+  const stepU = usesSimulator ? 1e-2 : 1e-3;
+  let profileEvaluations = 0;
+  const outcome = await fitParameters(fitParametersList, target, fitModel, {
+    ...options,
+    stepU,
+    ...(usesWaveform ? { startPoints: WAVEFORM_START_POINTS_PER_PARAMETER * chosen.length } : {}),
+  });
 
   const residuals = target.map((y, i) => y - (outcome.prediction[i] as number));
   const statistics = fitStatistics(outcome.jacobian, residuals, chosen.length, confidence);
+  // A waveform's cost is V-shaped where an edge moves past a sample, so its intervals are read from the cost
+  // itself (profile likelihood); elsewhere the Jacobian's (the cost is smooth and near quadratic there).
+  const profiles =
+    usesWaveform && !statistics.isNearSingular
+      ? await profileIntervals({
+          parameters: fitParametersList,
+          target,
+          model: async (valueSets) => {
+            profileEvaluations += valueSets.length;
+            return fitModel(valueSets);
+          },
+          u: outcome.u,
+          cost: outcome.costAfter,
+          residualVariance: statistics.residualVariance,
+          tCritical: statistics.tCritical,
+          halfWidthGuessesU: statistics.standardErrors.map((se) =>
+            se === null || se === undefined ? null : statistics.tCritical * se,
+          ),
+          stepU,
+          skip: statistics.insensitive,
+        })
+      : null;
   const parameters: FittedParameter[] = chosen.map((choice, j) => {
     const parameter = declared[j] as (typeof declared)[number];
     const fit = fitParametersList[j] as FitParameter;
     const se = statistics.standardErrors[j];
     const uj = outcome.u[j] as number;
-    const ends =
-      se === null || se === undefined
+    const profile = profiles?.[j];
+    const ends = profile
+      ? [profile.low, profile.high]
+      : se === null || se === undefined
         ? null
         : [toValue(fit, uj - statistics.tCritical * se), toValue(fit, uj + statistics.tCritical * se)].sort(
             (a, b) => a - b,
@@ -149,6 +173,7 @@ export async function calibrateDesign(
       initialValue: fit.initialValue,
       value: outcome.values[j] as number,
       interval: ends ? { low: ends[0] as number, high: ends[1] as number } : null,
+      intervalMethod: profile ? 'profile' : 'linearized',
       isAtBound: uj <= 1e-9 || uj >= 1 - 1e-9,
     };
   });
@@ -219,7 +244,7 @@ export async function calibrateDesign(
     degreesOfFreedom: statistics.degreesOfFreedom,
     confidence,
     iterations: outcome.iterations,
-    evaluations: outcome.evaluations,
+    evaluations: outcome.evaluations + profileEvaluations,
     isConverged: outcome.isConverged,
   };
 }

@@ -9,7 +9,7 @@ import { runDriverStartUp } from '../runs/driver-start-up';
 import { followLadderDischarge } from '../runs/ladder-runs';
 import { ladderPartFromDesign } from '../circuits/build-ladder-circuit';
 import type { CalibrationDataUse, CalibrationDataset, CalibrationModelKind } from './calibration.types';
-import { waveformSimulation, type WaveformProbe } from './waveform-model';
+import { WAVEFORM_RELATIVE_TOLERANCE, waveformSimulation, type WaveformProbe } from './waveform-model';
 
 /**
  * Which model predicts a kind of curve: the engine's estimate for load sweeps; the simulator for start-ups
@@ -62,7 +62,10 @@ function sampleTrace(timeS: readonly number[], values: readonly number[], t: num
 
 export interface SimulatorRunOptions {
   shouldCancel?: () => boolean;
-  /** The simulator's relative tolerance of a start-up (default START_UP_RELATIVE_TOLERANCE). */
+  /**
+   * The simulator's relative tolerance (default START_UP_RELATIVE_TOLERANCE for a start-up or discharge,
+   * WAVEFORM_RELATIVE_TOLERANCE for a waveform).
+   */
   relativeTolerance?: number;
 }
 
@@ -196,7 +199,7 @@ export function predictDataset(
       dataset.points.map((point) => point.x),
       dataset.points.map((point) => point.y),
       {
-        relativeTolerance: options.relativeTolerance ?? START_UP_RELATIVE_TOLERANCE,
+        relativeTolerance: options.relativeTolerance ?? WAVEFORM_RELATIVE_TOLERANCE,
         ...(options.shouldCancel ? { shouldCancel: options.shouldCancel } : {}),
       },
     );

@@ -58,6 +58,11 @@ export interface FittedParameter {
   value: number;
   /** Two-sided interval at `confidence`; null when the parameter is not identifiable from these data. */
   interval: { low: number; high: number } | null;
+  /**
+   * How the interval was found: from the Jacobian at the optimum (±t·se), or from the cost itself (profile
+   * likelihood, for a fit with a waveform). Absent in results stored before profiles were read.
+   */
+  intervalMethod?: 'linearized' | 'profile';
   /** The fitted value lies on a bound of its prior range. */
   isAtBound: boolean;
 }

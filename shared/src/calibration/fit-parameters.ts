@@ -56,6 +56,15 @@ export interface FitOptions {
   stepU?: number;
   /** Stop when an accepted step lowers the cost by less than this fraction (default 1e-9). */
   relativeTolerance?: number;
+  /**
+   * Evaluate each proposed step together with the Jacobian's columns there, in one batch (default false):
+   * when the step is accepted, as most are, the next iteration's Jacobian is ready, so a pool of more than p
+   * workers runs one round of model runs an iteration instead of two; a rejected step wastes its p runs. The
+   * fit's path is the same either way.
+   */
+  speculative?: boolean;
+  /** Evaluate the central-difference Jacobian at the optimum for the statistics (default true). */
+  finalJacobian?: boolean;
   onProgress?: (fraction: number) => void;
   shouldCancel?: () => boolean;
 }
@@ -63,7 +72,7 @@ export interface FitOptions {
 export interface FitOutcome {
   values: number[];
   u: number[];
-  /** m × p, ∂prediction/∂u at the optimum (central differences where the bounds allow). */
+  /** m × p, ∂prediction/∂u at the optimum (central differences where the bounds allow); empty when not asked for. */
   jacobian: number[][];
   initialPrediction: number[];
   prediction: number[];
@@ -85,7 +94,8 @@ export function toU(parameter: FitParameter, value: number): number {
   return Number.isFinite(u) ? u : 0;
 }
 
-function cost(target: readonly number[], prediction: readonly number[] | null): number {
+/** Sum of squared differences of a prediction from the target; Infinity for no answer or a non-finite sum. */
+export function leastSquaresCost(target: readonly number[], prediction: readonly number[] | null): number {
   if (!prediction) return Infinity;
   let sum = 0;
   for (let i = 0; i < target.length; i += 1) sum += ((target[i] as number) - (prediction[i] as number)) ** 2;
@@ -133,10 +143,10 @@ export async function fitParameters(
   }
   let prediction = first;
   const initialPrediction = first;
-  const costBefore = cost(target, first);
+  const costBefore = leastSquaresCost(target, first);
   let currentCost = costBefore;
   others.forEach((answer, k) => {
-    const startCost = cost(target, answer);
+    const startCost = leastSquaresCost(target, answer);
     if (answer && startCost < currentCost) {
       u = starts[k] as number[];
       prediction = answer;
@@ -144,13 +154,32 @@ export async function fitParameters(
     }
   });
 
+  /** The one-sided steps at `at` (forward unless the bound is within a step) and the points they reach. */
+  const stepsAt = (at: readonly number[]) => at.map((uj) => (uj + stepU <= 1 ? stepU : -stepU));
+  const shifted = (at: readonly number[], signs: readonly number[]) =>
+    signs.map((h, j) => at.map((ui, k) => (k === j ? ui + h : ui)));
   const jacobianAt = async (at: number[], atPrediction: number[]): Promise<number[][]> => {
-    const steps = at.map((uj) => (uj + stepU <= 1 ? stepU : -stepU));
-    const shifted = (signs: number[]) => signs.map((h, j) => at.map((ui, k) => (k === j ? ui + h : ui)));
-    const forward = await evaluate(shifted(steps));
+    const steps = stepsAt(at);
+    return jacobianFrom(at, atPrediction, steps, await evaluate(shifted(at, steps)));
+  };
+  /** The one-sided Jacobian at `at` from the answers at its steps; a step without an answer is tried the other way. */
+  const jacobianFrom = async (
+    at: number[],
+    atPrediction: number[],
+    steps: number[],
+    forward: (number[] | null)[],
+  ): Promise<number[][]> => {
     const missing = forward.flatMap((answer, j) => (answer ? [] : [j]));
     const retried = missing.length
-      ? await evaluate(missing.map((j) => shifted(steps.map((h) => -h))[j] as number[]))
+      ? await evaluate(
+          missing.map(
+            (j) =>
+              shifted(
+                at,
+                steps.map((h) => -h),
+              )[j] as number[],
+          ),
+        )
       : [];
     const columns = forward.map((answer, j) => {
       const h = answer ? (steps[j] as number) : -(steps[j] as number);
@@ -219,14 +248,29 @@ export async function fitParameters(
   while (iterations < maxIterations) {
     iterations += 1;
     const current: number[][] = jacobian ?? (await jacobianAt(u, prediction));
-    let accepted: { u: number[]; prediction: number[]; cost: number } | null = null;
+    let accepted: {
+      u: number[];
+      prediction: number[];
+      cost: number;
+      steps: number[];
+      forward: (number[] | null)[] | null;
+    } | null = null;
     for (let attempt = 0; attempt < 8 && !accepted; attempt += 1) {
       const proposal = propose(current, damping);
       if (!proposal || proposal.every((v, j) => Math.abs(v - (u[j] as number)) < 1e-10)) break;
-      const [answer] = await evaluate([proposal]);
-      const proposalCost = cost(target, answer ?? null);
+      const steps = stepsAt(proposal);
+      const [answer, ...forward] = await evaluate(
+        options.speculative ? [proposal, ...shifted(proposal, steps)] : [proposal],
+      );
+      const proposalCost = leastSquaresCost(target, answer ?? null);
       if (answer && proposalCost < currentCost) {
-        accepted = { u: proposal, prediction: answer, cost: proposalCost };
+        accepted = {
+          u: proposal,
+          prediction: answer,
+          cost: proposalCost,
+          steps,
+          forward: options.speculative ? forward : null,
+        };
         damping = Math.max(damping / 9, 1e-7);
       } else {
         damping = Math.min(damping * 11, 1e7);
@@ -241,13 +285,13 @@ export async function fitParameters(
     u = accepted.u;
     prediction = accepted.prediction;
     currentCost = accepted.cost;
-    jacobian = null;
     if (improvement < tolerance) {
       isConverged = true;
       break;
     }
+    jacobian = accepted.forward ? await jacobianFrom(u, prediction, accepted.steps, accepted.forward) : null;
   }
-  const finalJacobian = await centralJacobianAt(u, prediction);
+  const finalJacobian = options.finalJacobian === false ? [] : await centralJacobianAt(u, prediction);
   options.onProgress?.(1);
   return {
     values: valuesOf(u),

@@ -42,12 +42,15 @@ export {
   simulatedWaveform,
   WAVEFORM_MAX_PERIODS,
   WAVEFORM_MIN_PERIODS,
+  WAVEFORM_RELATIVE_TOLERANCE,
   WAVEFORM_SETTLE_PERIODS,
   waveformSimulation,
 } from './waveform-model';
 export type { WaveformProbe } from './waveform-model';
 export type { SimulatorRunOptions } from './calibration-models';
-export { fitParameters, toU, toValue } from './fit-parameters';
+export { fitParameters, leastSquaresCost, toU, toValue } from './fit-parameters';
+export { profileIntervals } from './profile-intervals';
+export type { ProfileInput, ProfileInterval } from './profile-intervals';
 export type { BatchModel, FitOptions, FitOutcome, FitParameter } from './fit-parameters';
 export { CORRELATION_WARNING, fitStatistics, invertMatrix } from './fit-statistics';
 export type { FitStatistics } from './fit-statistics';

@@ -221,7 +221,7 @@ export async function ngspiceWaveform(
   const circuit = driverDesignCircuit(design, engineCapacitorVoltagesV(design));
   const fromS = WAVEFORM_SETTLE_PERIODS * periodS + delayS;
   const netlist = toSpiceNetlist(circuit, {
-    transient: { stopTimeS: fromS + spanS, maxStepS: periodS / 200, startFrom: 'element-initial-conditions' },
+    transient: { stopTimeS: fromS + spanS, maxStepS: periodS / 2000, startFrom: 'element-initial-conditions' },
     extraLines: ['.options reltol=1e-5'],
   });
   const signal = probe === 'collector' ? 'v(col)' : 'v(s)';

@@ -16,6 +16,7 @@ import { simulationBatches } from './0014-simulation-batches';
 import { calibrationEvaluations } from './0015-calibration-evaluations';
 import { trappedChargeServiceCondition } from './0016-trapped-charge-service-condition';
 import { rcdClampLevel } from './0017-rcd-clamp-level';
+import { modelRunHeartbeat } from './0018-model-run-heartbeat';
 
 /** Every schema step in order. Add new steps at the end. */
 export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
@@ -36,4 +37,5 @@ export const SCHEMA_MIGRATIONS: readonly SchemaMigration[] = [
   calibrationEvaluations,
   trappedChargeServiceCondition,
   rcdClampLevel,
+  modelRunHeartbeat,
 ];
