@@ -86,6 +86,12 @@ describe.each([
     await page.goto(`${baseUrl}/projects/${project.id}/designs/${design.id}`);
     await page.getByText(/server result of r1/).waitFor();
     await page.getByRole('tab', { name: 'Ladder' }).click();
+    // The labels are laid out at the drawing's own size; fitted into a narrow column Chromium measures text
+    // with the scaled-down font's metrics, so the layout is checked at full size.
+    const fullSize = page.getByText('Full size', { exact: true });
+    await fullSize.waitFor({ state: 'visible' });
+    await fullSize.click();
+    await page.locator('svg[data-schematic][data-fitted="false"]').waitFor();
     const result = await labelOverlaps(page);
     // Twenty capacitors and twenty diodes, each named.
     expect(result.count).toBeGreaterThan(40);
