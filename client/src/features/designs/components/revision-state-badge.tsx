@@ -19,6 +19,7 @@ export function RevisionStateBadge({ state }: { state: RevisionState }) {
       radius="sm"
       tt="none"
       style={{ maxWidth: 'none', overflow: 'visible', flexShrink: 0 }}
+      styles={{ label: { overflow: 'visible' } }}
     >
       {state}
     </Badge>
