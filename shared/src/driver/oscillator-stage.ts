@@ -24,6 +24,13 @@ export function collectorNodeCapacitanceOf(driver: DriverStage): number {
     (tx.secondaryCapacitanceF ?? 0) * (tx.secondaryTurns / tx.primaryTurns) ** 2
   );
 }
+/**
+ * The collector level (V) nothing but the flyback's own balance lets the collector pass: a zener clamp's voltage,
+ * else the transistor's V_CEO. (An RCD clamp's level follows from its parts, rcd-clamp.ts.)
+ */
+export function collectorHardLimitV(driver: DriverStage): number {
+  return driver.clamp?.kind === 'zener' ? driver.clamp.clampVoltageV : driver.transistor.vceoMaxV;
+}
 /** Supply bypass at the stage when none is given (F): the simulated circuit's default. */
 export const DEFAULT_BYPASS_CAPACITANCE_F = 100e-6;
 /** The transistor's Ebers–Moll saturation current when the design gives none: the simulator's default. */
@@ -273,9 +280,7 @@ function flybackTransfer(
         };
       })
     : null;
-  const maxReflectedV = rcdLimit
-    ? rcdLimit.reflectedV
-    : (clamp?.kind === 'zener' ? clamp.clampVoltageV : q.vceoMaxV) - vin;
+  const maxReflectedV = rcdLimit ? rcdLimit.reflectedV : collectorHardLimitV(driver) - vin;
   // Open-circuit secondary voltage of coupled windings: V_s = (M/Lp)·V_p = k·(N_s/N_p)·V_p.
   const maxFlybackSecV = Math.max(0, maxReflectedV) * k * turnsRatio;
   const flybackSecV = Math.min(options.flybackSecondaryPeakV ?? maxFlybackSecV, maxFlybackSecV);

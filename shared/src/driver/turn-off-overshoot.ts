@@ -1,7 +1,7 @@
 import type { DriverStage } from '../designs/driver-stage.types';
 import { TRANSISTOR_MODEL_DEFAULTS } from '../designs/device-defaults';
 import type { MethodInfo } from '../methods';
-import { THERMAL_VOLTAGE_V, collectorNodeCapacitanceOf } from './oscillator-stage';
+import { THERMAL_VOLTAGE_V, collectorHardLimitV, collectorNodeCapacitanceOf } from './oscillator-stage';
 
 export const TURN_OFF_OVERSHOOT_METHOD: MethodInfo = {
   methodId: 'driver.turn-off-magnetizing-peak-v2',
@@ -209,8 +209,7 @@ export function stageTurnOffSlew(stage: DriverStage, peakCurrentA: number, prima
       collectorCapacitanceF: nodeF - reflectedF + millerF,
       reflectedCapacitanceF: reflectedF,
       // An RCD clamp's capacitor sits at or above the flyback's level, so only a zener holds the slew.
-      clampPrimaryV:
-        primaryVoltageV + q.vceSatV - (stage.clamp?.kind === 'zener' ? stage.clamp.clampVoltageV : q.vceoMaxV),
+      clampPrimaryV: primaryVoltageV + q.vceSatV - collectorHardLimitV(stage),
       forwardBeta: q.forwardBeta,
       reverseBeta: q.reverseBeta,
       vceSatV: q.vceSatV,
