@@ -160,13 +160,16 @@ export async function calibrateDesign(
     const se = statistics.standardErrors[j];
     const uj = outcome.u[j] as number;
     const profile = profiles?.[j];
+    // An end of ±t·se past the prior range stops at the range's end: the fit's bounds are the prior range, and
+    // outside it the model is not what the interval describes (a log scale there would read thousands).
     const ends = profile
       ? [profile.low, profile.high]
       : se === null || se === undefined
         ? null
-        : [toValue(fit, uj - statistics.tCritical * se), toValue(fit, uj + statistics.tCritical * se)].sort(
-            (a, b) => a - b,
-          );
+        : [
+            toValue(fit, Math.max(0, uj - statistics.tCritical * se)),
+            toValue(fit, Math.min(1, uj + statistics.tCritical * se)),
+          ].sort((a, b) => a - b);
     return {
       id: choice.id,
       label: parameter.label,
