@@ -64,9 +64,8 @@ export class CalibrationRunService {
         {
           onProgress: (fraction) => onProgress(Math.floor(fraction * 99)),
           shouldCancel: isCancelled,
-          // A simulator fit sends each step with the Jacobian's columns (calibrateDesign's default for it); a
-          // refused step is retried with as many damping values at once as this instance has workers.
-          dampingTrials: Math.max(1, this.pool.threadCount),
+          // A simulator fit sends each step with the Jacobian's columns (calibrateDesign's default for it), one
+          // damping value a batch: the path does not depend on how many workers the instances have.
         },
       );
       await calibration.update({ result });
