@@ -1,6 +1,6 @@
 import { DomainError } from '../errors';
 import type { Design, DischargeRule, PulseDrive, SineDrive } from '../designs/design.types';
-import { estimateBlockingOscillator } from '../driver/blocking-oscillator';
+import { blockingOscillatorNumbers } from '../driver/blocking-oscillator';
 import { driverReport, type DriverReport } from '../driver/driver-report';
 import type { DriverStage } from '../designs/driver-stage.types';
 import type { MethodInfo } from '../methods';
@@ -153,8 +153,9 @@ export function resolveDrive(givenDesign: Design): {
   const drive = design.drive;
   if (drive.kind !== 'driver') return { drive, deliverablePowerW: null, currentLimitA: null };
   const stage = drive.driver;
-  const estimate = underDrive(() =>
-    estimateBlockingOscillator(stage, {
+  // The stage's numbers alone: the report's driver section gives the estimate with its method notes.
+  const limit = underDrive(() =>
+    blockingOscillatorNumbers(stage, {
       secondaryLoad: secondaryLoadOf({
         capacitorsF: design.multiplier.capacitors.map((c) => c.valueF),
         diode: design.multiplier.diode,
@@ -162,28 +163,21 @@ export function resolveDrive(givenDesign: Design): {
       }),
     }),
   );
-  const onS = estimate.onTimeS.value;
   return {
     drive: pulseDriveOf(
       {
-        forwardPeakV: estimate.forwardSecondaryPeakV.value,
-        flybackPeakV: estimate.flybackSecondaryPeakV.value,
-        frequencyHz: estimate.frequencyHz.value,
-        dutyCycle: forwardShareOf({
-          tOn: onS,
-          tRecovery: estimate.ringBack.recoveryS,
-          tSwing: estimate.ringBack.swingS,
-          frequencyHz: estimate.frequencyHz.value,
-        }),
+        forwardPeakV: limit.forwardSecV,
+        flybackPeakV: limit.flybackSecV,
+        frequencyHz: limit.frequencyHz,
+        dutyCycle: forwardShareOf(limit),
         isFlybackFed: isFlybackFed(stage),
       },
       drive.driver.transformer.secondaryResistanceOhm,
     ),
-    deliverablePowerW: estimate.deliverablePowerW.value,
+    deliverablePowerW: limit.deliverableW,
     // The flyback current the secondary can carry is the collector peak reflected through the turns ratio.
     currentLimitA:
-      (estimate.collectorPeakCurrentA.value * drive.driver.transformer.primaryTurns) /
-      drive.driver.transformer.secondaryTurns,
+      (limit.collectorPeakA * drive.driver.transformer.primaryTurns) / drive.driver.transformer.secondaryTurns,
   };
 }
 
@@ -260,9 +254,11 @@ export function analyzeDesign(givenDesign: Design): DesignReport {
   const { drive: limitDrive, deliverablePowerW, currentLimitA } = resolveDrive(design);
   let drive = limitDrive;
   let driver: DriverReport | null = null;
+  // The ladder's input at the limit drive; the other drives' inputs differ from it in the drive alone.
+  const limitInput = ladderInputOf(design, limitDrive, currentLimitA);
   if (design.drive.kind === 'driver') {
     const stage = design.drive.driver;
-    const ladder = engineLadderLoadLine(ladderInputOf(design, limitDrive, currentLimitA));
+    const ladder = engineLadderLoadLine(limitInput);
     driver = underDrive(() => driverReport(stage, ladder, ratedLoadCurrentOf(design, stage, ladder)));
     const rated = driver.operatingPoint.ratedLoad;
     drive = pulseDriveOf(
@@ -279,11 +275,8 @@ export function analyzeDesign(givenDesign: Design): DesignReport {
   const capacity = driver?.loadCapacity;
   // A load beyond what the supply delivers: the ladder at the largest load it holds (its output there near zero).
   const input = capacity?.isLoadBeyond
-    ? {
-        ...ladderInputOf(design, drive, currentLimitA),
-        load: { kind: 'current' as const, currentA: capacity.maxLoadCurrentA },
-      }
-    : ladderInputOf(design, drive, currentLimitA);
+    ? { ...limitInput, drive, load: { kind: 'current' as const, currentA: capacity.maxLoadCurrentA } }
+    : { ...limitInput, drive };
   const targets = design.targets;
   const base = analyzeLadderReport(input, { safeVoltageV: targets.safeVoltageV, dischargeRule: targets.dischargeRule });
   const { analysis } = base;
@@ -294,19 +287,16 @@ export function analyzeDesign(givenDesign: Design): DesignReport {
   const stressAnalysis =
     design.drive.kind === 'driver' && lightest
       ? analyzeLadder({
-          ...ladderInputOf(
-            design,
-            pulseDriveOf(
-              {
-                forwardPeakV: lightest.forwardSecondaryPeakV,
-                flybackPeakV: lightest.flybackSecondaryPeakV,
-                frequencyHz: lightest.frequencyHz,
-                dutyCycle: lightest.dutyCycle,
-                isFlybackFed: isFlybackFed(design.drive.driver),
-              },
-              design.drive.driver.transformer.secondaryResistanceOhm,
-            ),
-            currentLimitA,
+          ...limitInput,
+          drive: pulseDriveOf(
+            {
+              forwardPeakV: lightest.forwardSecondaryPeakV,
+              flybackPeakV: lightest.flybackSecondaryPeakV,
+              frequencyHz: lightest.frequencyHz,
+              dutyCycle: lightest.dutyCycle,
+              isFlybackFed: isFlybackFed(design.drive.driver),
+            },
+            design.drive.driver.transformer.secondaryResistanceOhm,
           ),
           load: null,
         })
@@ -360,11 +350,7 @@ export function analyzeDesign(givenDesign: Design): DesignReport {
   const noLoadOutputV = driver
     ? Math.sign(analysis.outputMeanV || 1) * (driver.operatingPoint.curve[0]?.outputV ?? 0)
     : base.noLoadOutputV;
-  const openCircuit = analyzeLadder({
-    ...ladderInputOf(design, limitDrive, currentLimitA),
-    load: null,
-    bleederOhm: null,
-  });
+  const openCircuit = analyzeLadder({ ...limitInput, load: null, bleederOhm: null });
   const bleederPowerW = Math.abs(analysis.ladderTopMeanV) * analysis.bleederCurrentA;
   return {
     ...base,
