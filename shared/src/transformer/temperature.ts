@@ -1,4 +1,5 @@
 import type { MethodInfo } from '../methods';
+import { areaProductM4 } from './core-size';
 
 export const TEMPERATURE_RISE_METHOD: MethodInfo = {
   methodId: 'transformer.temperature-rise-mclyman',
@@ -11,11 +12,6 @@ export const TEMPERATURE_RISE_METHOD: MethodInfo = {
 
 /** McLyman's surface-area coefficient Kt for E-I shapes (At = Kt·√Ap, cm², Ap in cm⁴): from memory. */
 export const SURFACE_AREA_KT = 41.3;
-
-/** McLyman's area product Ap = Wa·Ae (m⁴): the core's window area times its effective cross-section. */
-export function areaProductM4(windowAreaM2: number, effectiveAreaM2: number): number {
-  return windowAreaM2 * effectiveAreaM2;
-}
 
 /** Surface area (m²) of a wound core of window area Wa and effective area Ae, by At = Kt·√Ap. */
 export function woundSurfaceAreaM2(windowAreaM2: number, effectiveAreaM2: number): number {

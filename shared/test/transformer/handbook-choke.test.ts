@@ -4,13 +4,11 @@ import {
   alFromGap,
   areaProductM4,
   demoCoreKinds,
-  demoTapeKinds,
-  demoWireKinds,
   fluxDensityT,
   fringingFactor,
-  sizeTransformer,
   type CoreKind,
 } from '../../src/transformer';
+import { bookCore, sizerTurns } from './book-fixtures';
 
 // A. I. Pressman, K. Billings, T. Morey, Switching Power Supply Design, 3rd ed., McGraw-Hill, 2009, §7.9
 // (gapped-ferrite E-core choke), pp. 375–387, and Table 7.10 (standard ferrite E and EC cores for chokes),
@@ -53,39 +51,17 @@ describe('a handbook’s gapped-ferrite choke (Pressman, Billings, Morey, 3rd ed
     expect(fluxDensityT(inductanceH, peakCurrentA, 37, 1.06e-4)).toBeCloseTo(0.2524, 4);
     // The engine's Sizer asks the fewest whole turns at or below the flux limit: Bsat(100 °C) 0.35 T, the
     // median ferrite figure of the same chapter (Fig. 7.22), with the margin that leaves 250 mT.
-    const ferrite = (aeCm2: number, awbCm2: number, pathCm: number): CoreKind => ({
-      ...demoCoreKinds[0]!,
-      effectiveAreaM2: aeCm2 * 1e-4,
-      windowAreaM2: awbCm2 * 1e-4,
-      pathLengthM: pathCm * 1e-2,
-      ungappedAlHPerTurn2: (MU0 * 2000 * aeCm2 * 1e-4) / (pathCm * 1e-2),
-      saturationFluxDensity100T: 0.35,
-    });
-    const [first, second] = [ferrite(1.06, 2.0, 8.93), ferrite(0.84, 1.55, 7.74)];
-    const candidates = sizeTransformer(
-      [first, second],
-      {
-        primaryInductanceH: inductanceH,
-        primaryPeakCurrentA: peakCurrentA,
-        turnsRatio: 0.05,
-        feedbackRatio: 0.05,
-        frequencyHz: 25e3,
-        dutyOnFraction: 0.2,
-        primaryWire: demoWireKinds[2]!,
-        feedbackWire: demoWireKinds[2]!,
-        secondaryWire: demoWireKinds[2]!,
-        windingTape: demoTapeKinds[1]!,
-        windingTapeWraps: 1,
-        secondaryPeakV: 10,
-        minSaturationMarginPct: (1 - maxFluxT / 0.35) * 100,
-      },
-      { pollutionDegree: 2, materialGroup: 'IIIa', pcb: false },
+    const [ec41, ec35] = sizerTurns(
+      [
+        bookCore({ aeCm2: 1.06, windowCm2: 2.0, pathCm: 8.93 }),
+        bookCore({ aeCm2: 0.84, windowCm2: 1.55, pathCm: 7.74 }),
+      ],
+      { inductanceH, peakCurrentA, maxFluxT, turnsRatio: 0.05, frequencyHz: 25e3, dutyOnFraction: 0.2 },
     );
-    const turnsOn = (core: CoreKind) => candidates.find((c) => c.core === core)?.primaryTurns;
-    expect(turnsOn(first)).toBe(38);
+    expect(ec41?.primaryTurns).toBe(38);
     expect(fluxDensityT(inductanceH, peakCurrentA, 38, 1.06e-4)).toBeLessThanOrEqual(maxFluxT);
     // The EC35 (Ae 0.84 cm²) would need 47.1 → 48 turns.
-    expect(turnsOn(second)).toBe(48);
+    expect(ec35?.primaryTurns).toBe(48);
   });
 
   it('asks the book’s 2.0 mm total gap for 90 µH on 37 turns once the fringing factor is taken out', () => {
