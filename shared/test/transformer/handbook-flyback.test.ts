@@ -4,8 +4,11 @@ import {
   alFromGap,
   coreGeometryM5,
   demoCoreKinds,
+  dowellFactor,
   fluxDensityT,
   fringingFactor,
+  harmonics,
+  rmsOf,
   type CoreKind,
 } from '../../src/transformer';
 import { bookCore, sizerTurns } from './book-fixtures';
@@ -81,6 +84,38 @@ describe('a handbook’s flyback transformer and coupled inductor sized by Kg (E
       const stiff: CoreKind = { ...demoCoreKinds[0]!, effectiveAreaM2: example.acCm2 * 1e-4, ungappedAlHPerTurn2: 1 };
       const plainAl = alFromGap(stiff, gapM) / fringingFactor(gapM, stiff.effectiveAreaM2, stiff.bobbinBreadthM);
       expect((plainAl * turns ** 2) / example.lH).toBeCloseTo(1, 5);
+    }
+  });
+});
+
+describe('the winding current’s harmonics and thick layers (Erickson & Maksimović, 3rd ed., §10.4)', () => {
+  it('gives a rectangular current the book’s harmonic distortion: 48 % at D = 0.5, 76 % at 0.3, 191 % at 0.1', () => {
+    // §10.4.7, pp. 441–443: Ij = (√2·Ipk/(j·π))·sin(j·π·D) rms, THD = √(Σj≥2 Ij²)/I1 (the dc part excluded). The
+    // copper loss takes its harmonics from `harmonics`; the whole ac content is the rms less the mean.
+    for (const [duty, printedPct] of [
+      [0.5, 48],
+      [0.3, 76],
+      [0.1, 191],
+    ] as const) {
+      const pulse = [
+        { timeS: 0, value: 1 },
+        { timeS: duty, value: 1 },
+        { timeS: duty, value: 0 },
+        { timeS: 1, value: 0 },
+      ];
+      const { mean, amplitudes } = harmonics(pulse, 1);
+      const fundamentalRms = amplitudes[0]! / Math.SQRT2;
+      expect(fundamentalRms).toBeCloseTo((Math.SQRT2 / Math.PI) * Math.sin(Math.PI * duty), 12);
+      const acSquared = rmsOf(pulse) ** 2 - mean ** 2;
+      const thd = Math.sqrt(acSquared - fundamentalRms ** 2) / fundamentalRms;
+      expect(Math.round(thd * 100)).toBe(printedPct);
+    }
+  });
+
+  it('tends to the book’s thick-foil factor FR = (1/3)·(h/δ)·(2M² + 1) (§10.4.1, pp. 429–430)', () => {
+    for (const layers of [1, 2, 5]) {
+      const delta = 12;
+      expect(dowellFactor(delta, layers) / ((delta * (2 * layers ** 2 + 1)) / 3)).toBeCloseTo(1, 4);
     }
   });
 });
