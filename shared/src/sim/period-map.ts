@@ -98,7 +98,9 @@ export class PeriodMap {
     const qd0 = this.qd;
     const sq = this.sensitivity;
     const sqd = this.sqd;
-    const w = this.w;
+    const x = sys.x;
+    const hist = sys.hist;
+    const charge = sys.charge;
     q0.set(start);
     qd0.fill(0);
     sys.x.set(this.xStart);
@@ -122,13 +124,13 @@ export class PeriodMap {
     for (let step = 0; step < this.steps; step++) {
       const isEuler = step === 0;
       const a0 = isEuler ? 1 / h : 2 / h;
-      for (let k = 0; k < r; k++) sys.hist[k] = isEuler ? -a0 * q0[k]! : -a0 * q0[k]! - qd0[k]!;
+      for (let k = 0; k < r; k++) hist[k] = isEuler ? -a0 * q0[k]! : -a0 * q0[k]! - qd0[k]!;
       const t1 = (step + 1) * h;
       sys.prepareLinearMatrix(a0, t1);
       sys.prepareStepRhs(t1);
       // Guess: the last run at this step moved by the present run's deviation from it at the step before
       // (runs from nearby states follow nearly the same trajectory).
-      if (isPredicted) for (let i = 0, o = step * width; i < width; i++) sys.x[i] = trajectory[o + i]! + deviation[i]!;
+      if (isPredicted) for (let i = 0, o = step * width; i < width; i++) x[i] = trajectory[o + i]! + deviation[i]!;
       this.guess.set(sys.x);
       let it = solveNewton(sys, a0, this.tol, 100);
       if (it < 0) {
@@ -143,40 +145,17 @@ export class PeriodMap {
         ]);
       this.newtonIterations += it;
       for (let i = 0, o = step * width; i < width; i++) {
-        deviation[i] = sys.x[i]! - trajectory[o + i]!;
-        trajectory[o + i] = sys.x[i]!;
+        deviation[i] = x[i]! - trajectory[o + i]!;
+        trajectory[o + i] = x[i]!;
       }
       sys.evaluateLinearCharges();
-      if (withSensitivity) {
-        // Jacobian at the converged point, then ∂x1/∂q0 column by column.
-        sys.load(a0);
-        sys.lu.factor();
-        for (let j = 0; j < r; j++) {
-          w.fill(0);
-          for (let k = 0; k < r; k++) {
-            const dHist = isEuler ? -a0 * sq[j * r + k]! : -a0 * sq[j * r + k]! - sqd[j * r + k]!;
-            sqd[j * r + k] = dHist; // keep dHist until the new charge sensitivity is known
-            w[sys.reactiveRowA[k]!]! -= dHist;
-            w[sys.reactiveRowB[k]!]! += dHist;
-          }
-          w[sys.size] = 0;
-          sys.lu.solve(w);
-          w[sys.size] = 0;
-          for (let k = 0; k < r; k++) {
-            let dq = 0;
-            for (let p = sys.gradientStart[k]!; p < sys.gradientStart[k + 1]!; p++)
-              dq += sys.gradientValue[p]! * w[sys.gradientIndex[p]!]!;
-            sq[j * r + k] = dq;
-            sqd[j * r + k] = a0 * dq + sqd[j * r + k]!;
-          }
-        }
-      }
+      if (withSensitivity) this.propagateSensitivity(a0, isEuler);
       for (let k = 0; k < r; k++) {
-        const q1 = sys.charge[k]!;
-        qd0[k] = a0 * q1 + sys.hist[k]!;
+        const q1 = charge[k]!;
+        qd0[k] = a0 * q1 + hist[k]!;
         q0[k] = q1;
       }
-      if (this.meanProbe >= 0) probeSum += sys.x[this.meanProbe]!;
+      if (this.meanProbe >= 0) probeSum += x[this.meanProbe]!;
       // x at the period's end is a fine guess for the next period's first step.
       if (step === this.steps - 1) this.xStart.set(sys.x);
       if (record) {
@@ -186,6 +165,45 @@ export class PeriodMap {
     }
     this.probeMean = probeSum / this.steps;
     this.hasTrajectory = true;
+  }
+
+  /**
+   * One step of the sensitivity: the Jacobian at the converged point, then ∂x1/∂q0 column by column (one
+   * banded solve each) and from it the charges' sensitivity, in place of the last step's.
+   */
+  private propagateSensitivity(a0: number, isEuler: boolean): void {
+    const sys = this.system;
+    const r = this.size;
+    const sq = this.sensitivity;
+    const sqd = this.sqd;
+    const w = this.w;
+    const size = sys.size;
+    const rowA = sys.reactiveRowA;
+    const rowB = sys.reactiveRowB;
+    const start = sys.gradientStart;
+    const index = sys.gradientIndex;
+    const value = sys.gradientValue;
+    const lu = sys.lu;
+    sys.load(a0);
+    lu.factor();
+    for (let j = 0, col = 0; j < r; j++, col += r) {
+      w.fill(0);
+      for (let k = 0; k < r; k++) {
+        const dHist = isEuler ? -a0 * sq[col + k]! : -a0 * sq[col + k]! - sqd[col + k]!;
+        sqd[col + k] = dHist; // keep dHist until the new charge sensitivity is known
+        w[rowA[k]!]! -= dHist;
+        w[rowB[k]!]! += dHist;
+      }
+      w[size] = 0;
+      lu.solve(w);
+      w[size] = 0;
+      for (let k = 0; k < r; k++) {
+        let dq = 0;
+        for (let p = start[k]!, end = start[k + 1]!; p < end; p++) dq += value[p]! * w[index[p]!]!;
+        sq[col + k] = dq;
+        sqd[col + k] = a0 * dq + sqd[col + k]!;
+      }
+    }
   }
 }
 
