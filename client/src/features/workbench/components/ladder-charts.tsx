@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { Button, SimpleGrid, Text } from '@mantine/core';
+import { Button, Group, SimpleGrid, Text } from '@mantine/core';
 import type { DesignReport } from '@ladderwright/shared/analysis';
 import { formatQuantity } from '@ladderwright/shared/units';
 import { chartColors, QuantityChart } from '../../../components/quantity-chart';
@@ -85,16 +85,7 @@ export function LadderCharts({ report }: LadderChartsProps) {
       <QuantityChart
         label="Output vs load current"
         title={load.title}
-        actions={
-          <>
-            {load.nearRange !== undefined && (
-              <Button size="compact-xs" variant="subtle" onClick={() => setWholeCurve(!isWholeCurve)}>
-                {isWholeCurve ? 'Near the load' : 'Whole curve'}
-              </Button>
-            )}
-            <MethodNote subject={load.subject} method={load.method} />
-          </>
-        }
+        actions={<MethodNote subject={load.subject} method={load.method} />}
         heightPx={220}
         data={load.data}
         x={{
@@ -108,9 +99,16 @@ export function LadderCharts({ report }: LadderChartsProps) {
         series={[{ key: 'y', name: load.seriesName, color: outputColor }]}
         markers={[{ key: 'operating', label: load.loadLabel, x: load.loadA, color: chartColors.mark }]}
         footer={
-          <Text size="xs" c="dimmed">
-            {load.footer}
-          </Text>
+          <Group gap="xs" justify="space-between" wrap="wrap">
+            <Text size="xs" c="dimmed">
+              {load.footer}
+            </Text>
+            {load.nearRange !== undefined && (
+              <Button size="compact-xs" variant="subtle" onClick={() => setWholeCurve(!isWholeCurve)}>
+                {isWholeCurve ? 'Near the load' : 'Whole curve'}
+              </Button>
+            )}
+          </Group>
         }
       />
       <QuantityChart
