@@ -23,6 +23,7 @@ export type {
   DesignDetail,
   RevisionSummary,
   RevisionDetail,
+  RevisionDetailBody,
   DesignSource,
   CreateDesignRequest,
   SaveRevisionRequest,
@@ -32,6 +33,7 @@ export type {
   RevisionComparison,
   EvaluateRequest,
   EvaluateResponse,
+  EvaluateResponseBody,
   DesignExport,
   ImportDesignRequest,
   DesignTemplate,
@@ -128,3 +130,5 @@ export {
   intervalMethodWords,
   intervalRangeText,
 } from './calibration-words';
+export type { CheckBody, DesignReportWire } from './check-rules';
+export { packCheckRules, expandCheckRules, packCheckLists, expandCheckList } from './check-rules';
