@@ -1,6 +1,8 @@
 // Benchmark, not a test: the cost of a designed transformer in the live recompute. analyzeDesign of the demo
 // handheld tester with its transformer section ('designed') beside the same design with the given numbers,
 // run side by side in this process, and analyzeTransformer alone, and the transformer Sizer over the demo cores.
+// The two designs are timed in alternation after a common warm-up, so a change of machine load between them
+// (seven people share two cores) lands on both; the added cost is the median of the paired differences.
 // Run: npx tsx scripts/bench/transformer.bench.ts
 import { analyzeDesign } from '../../shared/src/analysis/analyze-design';
 import { designExamples } from '../../shared/src/designs/design-examples';
@@ -44,9 +46,40 @@ const designed: Design = {
     driver: { ...given.drive.driver, transformerChoice: 'designed', transformerDesign: demoTransformerSection },
   },
 };
-const givenMs = cpuMsPerCall(() => analyzeDesign(given), 31, 5);
-const designedMs = cpuMsPerCall(() => analyzeDesign(designed), 31, 5);
-const addedMs = designedMs - givenMs;
+/** CPU time (ms) of one call of each of `a` and `b`, timed in alternation: medians and the median difference. */
+function pairedCpuMs(a: () => unknown, b: () => unknown, runs: number, warmUp: number) {
+  for (let i = 0; i < warmUp; i += 1) {
+    a();
+    b();
+  }
+  const cpuOf = (fn: () => unknown) => {
+    const c0 = process.cpuUsage();
+    fn();
+    const c = process.cpuUsage(c0);
+    return (c.user + c.system) / 1000;
+  };
+  const as: number[] = [];
+  const bs: number[] = [];
+  const differences: number[] = [];
+  for (let i = 0; i < runs; i += 1) {
+    const ta = cpuOf(a);
+    const tb = cpuOf(b);
+    as.push(ta);
+    bs.push(tb);
+    differences.push(tb - ta);
+  }
+  return { aMs: median(as), bMs: median(bs), differenceMs: median(differences) };
+}
+
+const paired = pairedCpuMs(
+  () => analyzeDesign(given),
+  () => analyzeDesign(designed),
+  61,
+  20,
+);
+const givenMs = paired.aMs;
+const designedMs = paired.bMs;
+const addedMs = paired.differenceMs;
 console.log(
   `analyzeDesign handheld tester: designed transformer ${designedMs.toFixed(2)} ms CPU, given ${givenMs.toFixed(2)} ms ` +
     `(reference, same run); ratio ${(designedMs / givenMs).toFixed(2)}×; added ${addedMs.toFixed(2)} ms ` +

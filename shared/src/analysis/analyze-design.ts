@@ -1,12 +1,8 @@
-import { DomainError } from '../errors';
 import type { Design, DischargeRule, PulseDrive, SineDrive } from '../designs/design.types';
-import { estimateBlockingOscillator } from '../driver/blocking-oscillator';
-import { driverReport, type DriverReport } from '../driver/driver-report';
-import type { DriverStage } from '../designs/driver-stage.types';
+import type { DriverReport } from '../driver/driver-report';
 import type { MethodInfo } from '../methods';
-import { isFlybackFed, solveLoadPoint } from '../driver/operating-point';
-import { forwardShareOf } from '../driver/ring-back';
-import { engineLadderLoadLine, pulseDriveOf, secondaryLoadOf, type LadderLoadLine } from '../driver/ladder-load-line';
+import { isFlybackFed } from '../driver/operating-point';
+import { pulseDriveOf } from '../driver/ladder-load-line';
 import { DISCHARGE_METHOD, dischargeCheck, trappedChargeCheck } from '../safety/discharge';
 import { creepageChecks, stageSpacing } from '../safety/creepage';
 import type { StageSpacing } from '../safety/creepage';
@@ -15,16 +11,17 @@ import { STORED_ENERGY_METHOD, storedEnergy, storedEnergyChecks } from '../safet
 import type { StoredEnergySummary } from '../safety/stored-energy';
 import type { CheckVerdict } from '../safety/check.types';
 import { analyzeLadder } from '../multiplier/analyze-ladder';
-import { bracketedRoot } from '../multiplier/bracketed-root';
 import { ENGINE_VERSION } from '../multiplier/engine-version';
 import { ladderCurves } from '../multiplier/ladder-curves';
 import { bleederStressChecks, ladderStressChecks } from '../multiplier/ladder-stress';
 import type { LadderAnalysis, LadderCurves, LadderInput } from '../multiplier/ladder.types';
-import { withEffectiveTransformer } from '../transformer/given-numbers';
 import type { TransformerReport } from '../transformer/transformer.types';
+import { driverAtRatedLoad, ratedPoint, underDrive } from './design-drive';
 import { transformerDriverEffect } from './transformer-effect';
 import { designedTransformerReport, withGivenTransformer } from './transformer-report';
 import { ladderDischargePhases } from './ladder-discharge';
+
+export { ladderInputOf, resolveDrive } from './design-drive';
 
 /** Report of a bare ladder: figures (SI, signed by polarity), curves, stored energy, discharge and how each was computed. */
 export interface LadderReport extends Pick<
@@ -143,75 +140,6 @@ const DRIVER_METHOD: MethodInfo = {
     'closed-form blocking-oscillator estimate: i = (Vin − Vce,sat)·t/Lp, E = ½·Lp·Ipk² (Wikipedia "Blocking oscillator", read; Pressman, from memory)',
 };
 
-/** Resolves the drive of a design into the waveform the ladder model takes. */
-export function resolveDrive(givenDesign: Design): {
-  drive: SineDrive | PulseDrive;
-  deliverablePowerW: number | null;
-  currentLimitA: number | null;
-} {
-  const design = withEffectiveTransformer(givenDesign);
-  const drive = design.drive;
-  if (drive.kind !== 'driver') return { drive, deliverablePowerW: null, currentLimitA: null };
-  const stage = drive.driver;
-  const estimate = underDrive(() =>
-    estimateBlockingOscillator(stage, {
-      secondaryLoad: secondaryLoadOf({
-        capacitorsF: design.multiplier.capacitors.map((c) => c.valueF),
-        diode: design.multiplier.diode,
-        ...(design.multiplier.strayCapacitanceF ? { strayCapacitanceF: design.multiplier.strayCapacitanceF } : {}),
-      }),
-    }),
-  );
-  const onS = estimate.onTimeS.value;
-  return {
-    drive: pulseDriveOf(
-      {
-        forwardPeakV: estimate.forwardSecondaryPeakV.value,
-        flybackPeakV: estimate.flybackSecondaryPeakV.value,
-        frequencyHz: estimate.frequencyHz.value,
-        dutyCycle: forwardShareOf({
-          tOn: onS,
-          tRecovery: estimate.ringBack.recoveryS,
-          tSwing: estimate.ringBack.swingS,
-          frequencyHz: estimate.frequencyHz.value,
-        }),
-        isFlybackFed: isFlybackFed(stage),
-      },
-      drive.driver.transformer.secondaryResistanceOhm,
-    ),
-    deliverablePowerW: estimate.deliverablePowerW.value,
-    // The flyback current the secondary can carry is the collector peak reflected through the turns ratio.
-    currentLimitA:
-      (estimate.collectorPeakCurrentA.value * drive.driver.transformer.primaryTurns) /
-      drive.driver.transformer.secondaryTurns,
-  };
-}
-
-/** A driver-stage error names its field from the stage; in a design it sits under `drive.`. */
-function underDrive<T>(compute: () => T): T {
-  try {
-    return compute();
-  } catch (error) {
-    if (error instanceof DomainError && error.field?.startsWith('driver')) {
-      throw new DomainError(error.code, error.message, `drive.${error.field}`);
-    }
-    throw error;
-  }
-}
-
-/** External load current (A) of the design at the driver's operating point: a resistance load by Brent's method on V(I) = I·R. */
-function ratedLoadCurrentOf(design: Design, driver: DriverStage, ladder: LadderLoadLine): number {
-  const load = design.load;
-  if (!load) return 0;
-  if (load.kind === 'current') return load.currentA;
-  const r = load.resistanceOhm;
-  const excessV = (currentA: number) => solveLoadPoint(driver, ladder, currentA).outputV - currentA * r;
-  const excessAtZero = excessV(0);
-  const hi = excessAtZero / r;
-  // To the resolution of 40 halvings: 1e-12 of the no-load current, well below any figure the report shows.
-  return bracketedRoot(excessV, 0, hi, excessAtZero, excessV(hi), hi * 2 ** -40);
-}
-
 const DRIVER_OPERATING_METHOD: MethodInfo = {
   methodId: 'driver-headline-at-operating-point-v1',
   summary:
@@ -219,27 +147,6 @@ const DRIVER_OPERATING_METHOD: MethodInfo = {
   assumptions: ['the secondary is rectangular pulses at the estimated peaks behind the secondary winding resistance'],
   source: 'driver-ladder.power-balance-v2 with charge-transfer-v1',
 };
-
-/** The bare-ladder input of a design. */
-export function ladderInputOf(
-  design: Design,
-  drive: SineDrive | PulseDrive,
-  currentLimitA: number | null = null,
-): LadderInput {
-  const bleeder = design.outputNetwork.bleeder;
-  return {
-    ...(currentLimitA !== null ? { sourceCurrentLimitA: currentLimitA } : {}),
-    ...(design.multiplier.strayCapacitanceF ? { strayCapacitanceF: design.multiplier.strayCapacitanceF } : {}),
-    topology: design.multiplier.topology,
-    capacitorsF: design.multiplier.capacitors.map((c) => c.valueF),
-    drive,
-    diode: design.multiplier.diode,
-    polarity: design.targets.outputV < 0 ? -1 : 1,
-    load: design.load,
-    bleederOhm: bleeder ? bleeder.count * bleeder.valueOhm : null,
-    seriesOutputResistanceOhm: design.outputNetwork.seriesOutputResistanceOhm,
-  };
-}
 
 /** Working voltage per stage: the largest capacitor or diode voltage within the stage. */
 function stageWorkingVoltages(analysis: LadderAnalysis): number[] {
@@ -253,37 +160,7 @@ function stageWorkingVoltages(analysis: LadderAnalysis): number[] {
  * every check verdict, with method notes, and HV_CAUTION once for all of them (`caution`).
  */
 export function analyzeDesign(givenDesign: Design): DesignReport {
-  const design = withEffectiveTransformer(givenDesign);
-  if (design.multiplier.strayCapacitanceF !== undefined && !(design.multiplier.strayCapacitanceF >= 0)) {
-    throw new DomainError('invalid_design', 'stray capacitance must not be negative', 'multiplier.strayCapacitanceF');
-  }
-  const { drive: limitDrive, deliverablePowerW, currentLimitA } = resolveDrive(design);
-  let drive = limitDrive;
-  let driver: DriverReport | null = null;
-  if (design.drive.kind === 'driver') {
-    const stage = design.drive.driver;
-    const ladder = engineLadderLoadLine(ladderInputOf(design, limitDrive, currentLimitA));
-    driver = underDrive(() => driverReport(stage, ladder, ratedLoadCurrentOf(design, stage, ladder)));
-    const rated = driver.operatingPoint.ratedLoad;
-    drive = pulseDriveOf(
-      {
-        forwardPeakV: rated.forwardSecondaryPeakV,
-        flybackPeakV: rated.flybackSecondaryPeakV,
-        frequencyHz: rated.frequencyHz,
-        dutyCycle: rated.dutyCycle,
-        isFlybackFed: isFlybackFed(stage),
-      },
-      stage.transformer.secondaryResistanceOhm,
-    );
-  }
-  const capacity = driver?.loadCapacity;
-  // A load beyond what the supply delivers: the ladder at the largest load it holds (its output there near zero).
-  const input = capacity?.isLoadBeyond
-    ? {
-        ...ladderInputOf(design, drive, currentLimitA),
-        load: { kind: 'current' as const, currentA: capacity.maxLoadCurrentA },
-      }
-    : ladderInputOf(design, drive, currentLimitA);
+  const { design, limitInput, deliverablePowerW, drive, driver, input } = ratedPoint(givenDesign);
   const targets = design.targets;
   const base = analyzeLadderReport(input, { safeVoltageV: targets.safeVoltageV, dischargeRule: targets.dischargeRule });
   const { analysis } = base;
@@ -294,19 +171,16 @@ export function analyzeDesign(givenDesign: Design): DesignReport {
   const stressAnalysis =
     design.drive.kind === 'driver' && lightest
       ? analyzeLadder({
-          ...ladderInputOf(
-            design,
-            pulseDriveOf(
-              {
-                forwardPeakV: lightest.forwardSecondaryPeakV,
-                flybackPeakV: lightest.flybackSecondaryPeakV,
-                frequencyHz: lightest.frequencyHz,
-                dutyCycle: lightest.dutyCycle,
-                isFlybackFed: isFlybackFed(design.drive.driver),
-              },
-              design.drive.driver.transformer.secondaryResistanceOhm,
-            ),
-            currentLimitA,
+          ...limitInput,
+          drive: pulseDriveOf(
+            {
+              forwardPeakV: lightest.forwardSecondaryPeakV,
+              flybackPeakV: lightest.flybackSecondaryPeakV,
+              frequencyHz: lightest.frequencyHz,
+              dutyCycle: lightest.dutyCycle,
+              isFlybackFed: isFlybackFed(design.drive.driver),
+            },
+            design.drive.driver.transformer.secondaryResistanceOhm,
           ),
           load: null,
         })
@@ -349,7 +223,7 @@ export function analyzeDesign(givenDesign: Design): DesignReport {
     driverEffect: transformerDriverEffect(
       givenDesign,
       { outputMeanV: analysis.outputMeanV, driver },
-      analyzeDesign(withGivenTransformer(givenDesign)),
+      driverAtRatedLoad(withGivenTransformer(givenDesign)),
     ),
   };
   if (transformer) checks.push(...transformer.checks);
@@ -360,11 +234,7 @@ export function analyzeDesign(givenDesign: Design): DesignReport {
   const noLoadOutputV = driver
     ? Math.sign(analysis.outputMeanV || 1) * (driver.operatingPoint.curve[0]?.outputV ?? 0)
     : base.noLoadOutputV;
-  const openCircuit = analyzeLadder({
-    ...ladderInputOf(design, limitDrive, currentLimitA),
-    load: null,
-    bleederOhm: null,
-  });
+  const openCircuit = analyzeLadder({ ...limitInput, load: null, bleederOhm: null });
   const bleederPowerW = Math.abs(analysis.ladderTopMeanV) * analysis.bleederCurrentA;
   return {
     ...base,

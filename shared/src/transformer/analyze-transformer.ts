@@ -2,7 +2,13 @@ import type { SpacingEnvironment } from '../designs/design.types';
 import { DomainError } from '../errors';
 import { HIPOT_METHOD, hipotTestVoltageV } from '../safety/hipot';
 import { CORE_LOSS_METHOD, igseLossDensity } from './core-loss';
-import { COPPER_LOSS_METHOD, dcResistanceOhm, windingCopperLoss } from './copper-loss';
+import {
+  COPPER_LOSS_HARMONICS,
+  COPPER_LOSS_METHOD,
+  dcResistanceOhm,
+  harmonics,
+  windingCopperLoss,
+} from './copper-loss';
 import { FLUX_METHOD, fluxDensityT, saturationCurrentA, saturationMarginPct } from './flux';
 import { GAP_METHOD, resolveGap, saturatedInductanceH } from './gap';
 import { LAYER_VOLTAGE_METHOD, layerInsulationV, layerVoltages, tapeBreakdownV } from './insulation';
@@ -109,6 +115,13 @@ export function analyzeTransformer(
     igseLossDensity(fluxT, { k: core.steinmetzK, alpha: core.steinmetzAlpha, beta: core.steinmetzBeta }) *
     core.volumeM3;
   const surfaceM2 = core.surfaceAreaM2 ?? woundSurfaceAreaM2(core.windowAreaM2, core.effectiveAreaM2);
+  // The currents' harmonics once per winding: the copper loss is taken at two temperatures below.
+  const spectra = new Map(
+    layout.windings.map((w) => [
+      w.winding.role,
+      harmonics(point.windingCurrentsA[w.winding.role], COPPER_LOSS_HARMONICS),
+    ]),
+  );
   // Copper loss at the winding temperature: first at ambient, then once more at ambient + the rise it gives.
   const windingsAt = (temperatureC: number): WindingResult[] =>
     layout.windings.map((w) => {
@@ -121,6 +134,7 @@ export function analyzeTransformer(
         pitchM: w.winding.wire.overallDiameterM,
         layers: w.layers,
         temperatureC,
+        spectrum: spectra.get(role),
       });
       const voltages = layerVoltages(point.windingPeakVoltagesV[role], w.winding.turns, w.turnsPerLayer, w.layers);
       return {

@@ -52,43 +52,45 @@ export function roundWireDelta(copperDiameterM: number, pitchM: number, skinDept
   return (Math.PI / 4) ** 0.75 * (copperDiameterM / skinDepth) * Math.sqrt(copperDiameterM / pitchM);
 }
 
-/** Mean and harmonic amplitudes (peak) of a piecewise-linear waveform over one period, by sampling. */
+/**
+ * Mean and harmonic amplitudes (peak) of a piecewise-linear waveform over one period, exactly: the Fourier
+ * integral of each linear piece in closed form, ∫v·e^(−jωt)dt = [(j/ω)·v·e^(−jωt) + (s/ω²)·e^(−jωt)] over the
+ * piece (s its slope); a step (two points at one time) enters through the ends of the pieces either side.
+ */
 export function harmonics(waveform: readonly WaveformPoint[], count: number): { mean: number; amplitudes: number[] } {
-  const samples = 1024;
   const t0 = waveform[0]!.timeS;
   const periodS = waveform[waveform.length - 1]!.timeS - t0;
-  const values = new Float64Array(samples);
-  let j = 1;
-  for (let i = 0; i < samples; i++) {
-    const t = t0 + (periodS * i) / samples;
-    while (j < waveform.length - 1 && waveform[j]!.timeS <= t) j++;
+  if (!(periodS > 0)) return { mean: 0, amplitudes: new Array<number>(count).fill(0) };
+  let area = 0;
+  for (let j = 1; j < waveform.length; j++) {
     const a = waveform[j - 1]!;
     const b = waveform[j]!;
-    const span = b.timeS - a.timeS;
-    values[i] = span > 0 ? a.value + ((b.value - a.value) * (t - a.timeS)) / span : b.value;
+    area += ((b.timeS - a.timeS) * (a.value + b.value)) / 2;
   }
-  let mean = 0;
-  for (const v of values) mean += v;
-  mean /= samples;
   const amplitudes: number[] = [];
   for (let h = 1; h <= count; h++) {
-    // The phasor e^(j·2π·h·i/N) advanced by one rotation per sample instead of a cos and sin each.
-    const stepCos = Math.cos((2 * Math.PI * h) / samples);
-    const stepSin = Math.sin((2 * Math.PI * h) / samples);
-    let c = 1;
-    let s = 0;
+    const w = (2 * Math.PI * h) / periodS;
     let re = 0;
     let im = 0;
-    for (let i = 0; i < samples; i++) {
-      re += values[i]! * c;
-      im += values[i]! * s;
-      const next = c * stepCos - s * stepSin;
-      s = s * stepCos + c * stepSin;
-      c = next;
+    for (let j = 1; j < waveform.length; j++) {
+      const a = waveform[j - 1]!;
+      const b = waveform[j]!;
+      const dt = b.timeS - a.timeS;
+      if (!(dt > 0)) continue;
+      const slope = (b.value - a.value) / dt;
+      for (const [point, sign] of [
+        [b, 1],
+        [a, -1],
+      ] as const) {
+        const c = Math.cos(w * (point.timeS - t0));
+        const s = Math.sin(w * (point.timeS - t0));
+        re += sign * ((point.value * s) / w + (slope * c) / w ** 2);
+        im += sign * ((point.value * c) / w - (slope * s) / w ** 2);
+      }
     }
-    amplitudes.push((2 / samples) * Math.hypot(re, im));
+    amplitudes.push((2 / periodS) * Math.hypot(re, im));
   }
-  return { mean, amplitudes };
+  return { mean: area / periodS, amplitudes };
 }
 
 /** Exact rms of a piecewise-linear waveform over its span. */
@@ -119,8 +121,10 @@ export function windingCopperLoss(input: {
   pitchM: number;
   layers: number;
   temperatureC?: number;
+  /** The current's `harmonics(currentA, COPPER_LOSS_HARMONICS)` when the caller has them already. */
+  spectrum?: { mean: number; amplitudes: readonly number[] };
 }): { lossW: number; rmsCurrentA: number; acResistanceFactor: number } {
-  const { mean, amplitudes } = harmonics(input.currentA, COPPER_LOSS_HARMONICS);
+  const { mean, amplitudes } = input.spectrum ?? harmonics(input.currentA, COPPER_LOSS_HARMONICS);
   const factorAt = (h: number) =>
     dowellFactor(
       roundWireDelta(input.copperDiameterM, input.pitchM, skinDepthM(h * input.frequencyHz, input.temperatureC ?? 20)),

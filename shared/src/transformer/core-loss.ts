@@ -14,8 +14,20 @@ export const CORE_LOSS_METHOD: MethodInfo = {
     'K. Venkatachalam, C. R. Sullivan, T. Abdallah, H. Tacca, "Accurate prediction of ferrite core loss with nonsinusoidal waveforms using only Steinmetz parameters", IEEE COMPEL 2002',
 };
 
+/** The integral below for the α of the last few materials (α is a material constant). */
+const integralByAlpha = new Map<number, number>();
+
 /** ∫₀^{2π} |cos θ|^α dθ by the composite Simpson rule (smooth enough for α ≥ 1 at 2000 intervals). */
 function integralAbsCosPower(alpha: number): number {
+  const known = integralByAlpha.get(alpha);
+  if (known !== undefined) return known;
+  const value = simpsonAbsCosPower(alpha);
+  if (integralByAlpha.size >= 64) integralByAlpha.clear();
+  integralByAlpha.set(alpha, value);
+  return value;
+}
+
+function simpsonAbsCosPower(alpha: number): number {
   const n = 2000;
   const h = (2 * Math.PI) / n;
   let sum = 0;

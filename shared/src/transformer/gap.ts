@@ -22,7 +22,8 @@ export const GAP_METHOD: MethodInfo = {
     'one gap in the centre leg carries the whole gap length',
     'G, the window length of the formula, taken as the bobbin breadth',
   ],
-  source: 'C. W. T. McLyman, Transformer and Inductor Design Handbook, 3rd ed., ch. 8 (fringing flux factor F)',
+  source:
+    'C. W. T. McLyman, Transformer and Inductor Design Handbook, 3rd ed., ch. 8 (fringing flux factor F); against a measured gapped ferrite core (H. Liao, J.-F. Chen, J. Eng. 2022, doi 10.1049/tje2.12087, Tables 3 and 8) it gives the inductance 5 % low, without fringing 33 % low',
 };
 
 /**

@@ -57,6 +57,7 @@ export { layerVoltages, tapeBreakdownV, layerInsulationV, LAYER_VOLTAGE_METHOD }
 export { leakageInductanceH, couplingFromLeakage, LEAKAGE_METHOD } from './leakage';
 export { EPSILON0, layerCapacitanceF, multilayerCapacitanceF, SELF_CAPACITANCE_METHOD } from './winding-capacitance';
 export { temperatureRiseC, woundSurfaceAreaM2, SURFACE_AREA_KT, TEMPERATURE_RISE_METHOD } from './temperature';
+export { areaProductM4, coreGeometryM5 } from './core-size';
 export { transformerChecks, CORE_TEMPERATURE_LIMIT_C } from './transformer-checks';
 export { pulseOperatingPoint } from './operating-point';
 export type { PulseStageFigures } from './operating-point';

@@ -1,4 +1,5 @@
 import type { MethodInfo } from '../methods';
+import { areaProductM4 } from './core-size';
 
 export const TEMPERATURE_RISE_METHOD: MethodInfo = {
   methodId: 'transformer.temperature-rise-mclyman',
@@ -14,7 +15,7 @@ export const SURFACE_AREA_KT = 41.3;
 
 /** Surface area (m²) of a wound core of window area Wa and effective area Ae, by At = Kt·√Ap. */
 export function woundSurfaceAreaM2(windowAreaM2: number, effectiveAreaM2: number): number {
-  const apCm4 = windowAreaM2 * 1e4 * effectiveAreaM2 * 1e4;
+  const apCm4 = areaProductM4(windowAreaM2, effectiveAreaM2) * 1e8;
   return (SURFACE_AREA_KT * Math.sqrt(apCm4)) / 1e4;
 }
 
