@@ -31,6 +31,10 @@ describe('analysis, design schema and templates', () => {
       expect(response.body.report.noLoadOutputV).toBeGreaterThan(800);
       expect(response.body.report.noLoadOutputV).toBeLessThanOrEqual(960);
       expect(Array.isArray(response.body.report.checks)).toBe(true);
+      // The rule texts once, by key: the tripler's three capacitors share each stress rule.
+      const checks = response.body.report.checks as { ruleKey: string }[];
+      expect(checks.every((check) => response.body.report.checkRules[check.ruleKey] !== undefined)).toBe(true);
+      expect(Object.keys(response.body.report.checkRules).length).toBeLessThan(checks.length);
     });
 
     it('returns 400 naming every offending field under document', async () => {

@@ -1,5 +1,5 @@
 import request from 'supertest';
-import type { DesignDetail } from '@ladderwright/shared/api';
+import { expandCheckRules, type DesignDetail } from '@ladderwright/shared/api';
 import { designExamples, type Design } from '@ladderwright/shared/designs';
 import { RevisionModel } from '../src/revisions/revision.model';
 import { createDesign } from './factories/create-design';
@@ -183,7 +183,15 @@ describe('revisions', () => {
       expect(second.headers.etag).toBe(first.headers.etag);
       const stored = await RevisionModel.findOne({ where: { designId: design.id, number: 1 } });
       expect(first.body.document).toEqual(stored?.document);
-      expect(first.body.report).toEqual(stored?.report);
+      expect(expandCheckRules(first.body.report)).toEqual(stored?.report);
+      // Each check rule's text travels once, in the report's map; the checks name it by key.
+      const rules = first.body.report.checkRules as Record<string, string>;
+      expect(new Set(Object.values(rules)).size).toBe(Object.keys(rules).length);
+      expect(Object.keys(rules).length).toBeLessThan(first.body.report.checks.length);
+      for (const check of first.body.report.checks as { ruleKey: string }[]) {
+        expect(check).not.toHaveProperty('rule');
+        expect(rules[check.ruleKey]).toBeDefined();
+      }
       expect(Object.keys(first.body)).toEqual([
         'number',
         'state',

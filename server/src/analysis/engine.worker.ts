@@ -3,6 +3,7 @@ import { validateDesign } from '@ladderwright/shared/designs';
 import { isDomainError } from '@ladderwright/shared/errors';
 import { ENGINE_VERSION } from '@ladderwright/shared/multiplier';
 import { analyzeWithShelf } from '@ladderwright/shared/parts';
+import { packCheckRules } from '@ladderwright/shared/api';
 import type { EngineTask, EngineTaskOutcome, EngineWarmUp } from './engine-task.types';
 import { lowerThreadPriority } from '../common/workers/thread-priority';
 
@@ -14,7 +15,7 @@ lowerThreadPriority();
  * request thread. The document is validated again, so the limits of the domain hold for every document
  * that reaches the engine, including ones stored before a limit existed. The report is returned as is (the
  * structured clone of the thread boundary is the only copy) or, when the caller only sends it on, as the UTF-8
- * bytes of its JSON text.
+ * bytes of its JSON text in the API's form (each check rule's text once, `packCheckRules`).
  */
 export function runEngineTask(task: EngineTask | EngineWarmUp): EngineTaskOutcome {
   if (task.kind === 'warm-up') return { ok: true, report: null };
@@ -23,7 +24,7 @@ export function runEngineTask(task: EngineTask | EngineWarmUp): EngineTaskOutcom
     const report = task.shelf ? analyzeWithShelf(design, task.shelf) : analyzeDesign(design);
     if (task.reportAs !== 'answer-bytes') return { ok: true, report };
     // The whole answer, so that it crosses the thread boundary as one copy of bytes and goes out as it is.
-    const answer = `{"engineVersion":${JSON.stringify(ENGINE_VERSION)},"report":${JSON.stringify(report)}}`;
+    const answer = `{"engineVersion":${JSON.stringify(ENGINE_VERSION)},"report":${JSON.stringify(packCheckRules(report))}}`;
     return { ok: true, report: Buffer.from(answer, 'utf8') };
   } catch (error) {
     if (!isDomainError(error)) throw error;

@@ -1,4 +1,10 @@
-import type { RevisionDetail, RevisionSummary } from '@ladderwright/shared/api';
+import {
+  packCheckRules,
+  type RevisionDetail,
+  type RevisionDetailBody,
+  type RevisionSummary,
+} from '@ladderwright/shared/api';
+import type { DesignReport } from '@ladderwright/shared/analysis';
 import type { RevisionModel } from './revision.model';
 
 /** The list shape of a revision loaded with its author. */
@@ -28,6 +34,11 @@ export function toRevisionDetail(revision: RevisionModel, projectId: string): Re
   };
 }
 
+/** A revision as the API sends it: its report's check rules each given once (`packCheckRules`). */
+export function toRevisionDetailBody(detail: RevisionDetail): RevisionDetailBody {
+  return { ...detail, report: packCheckRules(detail.report) };
+}
+
 /** A revision row as `RevisionsService.getJson` reads it, without the document and report. */
 export interface RevisionDetailHeadRow {
   id: string;
@@ -43,9 +54,9 @@ export interface RevisionDetailHeadRow {
 }
 
 /**
- * `toRevisionDetail` as the UTF-8 bytes of its JSON text, with the stored document and report spliced in as
- * PostgreSQL prints them (`contentTail`, from `revisionContentTail`): same keys in the same order, and no parse
- * and re-serialisation of the two largest values.
+ * `toRevisionDetailBody` as the UTF-8 bytes of its JSON text, with the stored document spliced in as PostgreSQL
+ * prints it and the report in the API's form (`contentTail`, from `revisionContentTail`): same keys in the same
+ * order, and no parse and re-serialisation of the document.
  */
 export function revisionDetailBytes(row: RevisionDetailHeadRow, projectId: string, contentTail: Buffer): Buffer {
   const head: Omit<RevisionDetail, 'document' | 'report'> = {
@@ -63,9 +74,14 @@ export function revisionDetailBytes(row: RevisionDetailHeadRow, projectId: strin
   return Buffer.concat([Buffer.from(JSON.stringify(head).slice(0, -1), 'utf8'), contentTail]);
 }
 
-/** The end of a revision's detail answer: its stored document and report as JSON text, then the closing brace. */
+/**
+ * The end of a revision's detail answer: its stored document as JSON text, its report in the API's form (each check
+ * rule's text once; the one parse of it, made once per revision and instance since the caller keeps the answer),
+ * then the closing brace.
+ */
 export function revisionContentTail(documentJson: string, reportJson: string): Buffer {
-  return Buffer.from(`,"document":${documentJson},"report":${reportJson}}`, 'utf8');
+  const report = JSON.stringify(packCheckRules(JSON.parse(reportJson) as DesignReport));
+  return Buffer.from(`,"document":${documentJson},"report":${report}}`, 'utf8');
 }
 
 /** A file-name stem from a design name: lower-case letters, digits and dashes. */

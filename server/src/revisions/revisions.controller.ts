@@ -1,13 +1,14 @@
 import { Body, Controller, Get, Param, Post, Res, UseFilters } from '@nestjs/common';
 import { ApiConflictResponse, ApiCookieAuth, ApiOkResponse, ApiParam, ApiProduces, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
-import type { CurrentUser as SessionUser, RevisionDetail, RevisionSummary } from '@ladderwright/shared/api';
+import type { CurrentUser as SessionUser, RevisionDetailBody, RevisionSummary } from '@ladderwright/shared/api';
 import { CurrentUser } from '../common/decorators/current-user.decorator';
 import { sendJsonBytes } from '../common/json-bytes';
 import { ProjectMembership } from '../common/decorators/project-membership.decorator';
 import { RequiresProjectAction } from '../common/decorators/requires-permission.decorator';
 import type { ProjectMembership as Membership } from '../common/request.types';
 import { RevisionRef } from './revision-ref.decorator';
+import { toRevisionDetailBody } from './revision-shapes';
 import { SaveRevisionDto } from './dto/save-revision.dto';
 import type { DownloadFile } from './revisions.service';
 import { RevisionsService } from './revisions.service';
@@ -35,19 +36,28 @@ export class RevisionsController {
   @Post()
   @RequiresProjectAction('design.write')
   @ApiConflictResponse({ description: 'stale_base: the base is not the latest revision; body lists changedFields.' })
-  save(
+  async save(
     @ProjectMembership() membership: Membership,
     @CurrentUser() user: SessionUser,
     @Param('designId') designId: string,
     @Body() body: SaveRevisionDto,
-  ): Promise<RevisionDetail> {
-    return this.revisions.save({ projectId: membership.projectId, designId, request: body, authorId: user.id });
+  ): Promise<RevisionDetailBody> {
+    const saved = await this.revisions.save({
+      projectId: membership.projectId,
+      designId,
+      request: body,
+      authorId: user.id,
+    });
+    return toRevisionDetailBody(saved);
   }
 
   /** The detail as JSON bytes: the stored document and report go out as PostgreSQL holds them, unparsed. */
   @Get(':revisionNumber')
   @ApiProduces('application/json')
-  @ApiOkResponse({ description: 'The revision: summary, designId, projectId, the stored document and its report.' })
+  @ApiOkResponse({
+    description:
+      'The revision: summary, designId, projectId, the stored document and its report; each check names its rule by ruleKey, the texts once in report.checkRules.',
+  })
   async detail(@RevisionRef() ref: RevisionRef, @Res() response: Response): Promise<void> {
     sendJsonBytes(response, await this.revisions.getJsonBytes(ref));
   }

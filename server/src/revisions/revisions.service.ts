@@ -11,6 +11,7 @@ import type {
   RevisionSummary,
   SaveRevisionRequest,
 } from '@ladderwright/shared/api';
+import { packCheckLists } from '@ladderwright/shared/api';
 import type { Design } from '@ladderwright/shared/designs';
 import { DomainError } from '@ladderwright/shared/errors';
 import { buildCircuit } from '@ladderwright/shared/circuits';
@@ -29,6 +30,7 @@ import {
   revisionContentTail,
   revisionDetailBytes,
   toRevisionDetail,
+  toRevisionDetailBody,
   toRevisionSummary,
   type RevisionDetailHeadRow,
 } from './revision-shapes';
@@ -142,7 +144,7 @@ export class RevisionsService {
       { replacements: { ...ref }, type: QueryTypes.SELECT },
     );
     const row = rows[0];
-    if (!row) return Buffer.from(JSON.stringify(await this.get(ref)), 'utf8');
+    if (!row) return Buffer.from(JSON.stringify(toRevisionDetailBody(await this.get(ref))), 'utf8');
     return revisionDetailBytes(row, ref.projectId, await this.contentTail(row.id, ref.revisionNumber));
   }
 
@@ -238,7 +240,7 @@ export class RevisionsService {
       inputs: differences(revisionA.document, revisionB.document),
       results: this.analysis.compareFigures(revisionA.report, revisionB.report),
       roleChanges: capacitorRoleChanges(ladder(revisionA.document), ladder(revisionB.document)),
-      checks: { a: revisionA.report.checks, b: revisionB.report.checks },
+      checks: packCheckLists(revisionA.report.checks, revisionB.report.checks),
     };
   }
 

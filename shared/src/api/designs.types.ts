@@ -3,6 +3,7 @@ import type { FieldIssue } from '../errors';
 import type { DesignReport } from '../analysis';
 import type { CapacitorRoleChange } from '../multiplier';
 import type { CheckVerdict } from '../safety';
+import type { CheckBody, DesignReportWire } from './check-rules';
 import type { RevisionState } from '../reviews';
 
 /**
@@ -66,12 +67,21 @@ export interface RevisionSummary {
   engineVersion: string;
 }
 
-/** GET .../designs/:designId/revisions/:revisionNumber. `document` and `report` never change once saved. */
+/** One revision with its document and report as computed (the rule texts of its checks inline). */
 export interface RevisionDetail extends RevisionSummary {
   designId: string;
   projectId: string;
   document: Design;
   report: DesignReportBody;
+}
+
+/**
+ * GET .../designs/:designId/revisions/:revisionNumber, and the answer to saving one: the revision with its report
+ * as the API sends it (`DesignReportWire`: each check rule's text once, in `report.checkRules`). `document` and
+ * `report` never change once saved.
+ */
+export interface RevisionDetailBody extends Omit<RevisionDetail, 'report'> {
+  report: DesignReportWire;
 }
 
 /** Where a new design's revision 1 comes from. */
@@ -143,7 +153,8 @@ export interface RevisionComparison {
   inputs: InputDifference[];
   results: ResultDifference[];
   roleChanges: CapacitorRoleChange[];
-  checks: { a: CheckVerdict[]; b: CheckVerdict[] };
+  /** Each side's Checks, their rule texts once in `rules` (keys as in `DesignReportWire`). */
+  checks: { a: CheckBody<CheckVerdict>[]; b: CheckBody<CheckVerdict>[]; rules: Record<string, string> };
 }
 
 /** POST /api/analysis/evaluate: the engine's report for an unsaved document. */
@@ -154,6 +165,12 @@ export interface EvaluateRequest {
 export interface EvaluateResponse {
   engineVersion: string;
   report: DesignReportBody;
+}
+
+/** The answer of POST /api/analysis/evaluate (and its project twin): the report as the API sends it. */
+export interface EvaluateResponseBody {
+  engineVersion: string;
+  report: DesignReportWire;
 }
 
 /** The file of GET .../revisions/:revisionNumber/export, and one accepted body of POST .../designs/import. */

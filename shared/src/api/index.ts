@@ -23,6 +23,7 @@ export type {
   DesignDetail,
   RevisionSummary,
   RevisionDetail,
+  RevisionDetailBody,
   DesignSource,
   CreateDesignRequest,
   SaveRevisionRequest,
@@ -32,6 +33,7 @@ export type {
   RevisionComparison,
   EvaluateRequest,
   EvaluateResponse,
+  EvaluateResponseBody,
   DesignExport,
   ImportDesignRequest,
   DesignTemplate,
@@ -121,3 +123,12 @@ export type {
 } from './admin.types';
 export { START_UP_WINDOW_S } from './simulation-limits';
 export { TRACE_NAMES, capacitorTraceName, capacitorOfTrace } from './waveform-traces';
+export {
+  fittedParameterText,
+  formatParameterValue,
+  INTERVAL_METHOD_WORDS,
+  intervalMethodWords,
+  intervalRangeText,
+} from './calibration-words';
+export type { CheckBody, DesignReportWire } from './check-rules';
+export { packCheckRules, expandCheckRules, packCheckLists, expandCheckList } from './check-rules';

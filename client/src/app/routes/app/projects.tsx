@@ -2,6 +2,7 @@ import { Alert, Loader, Stack, Text, Title } from '@mantine/core';
 import { useDocumentTitle } from '@mantine/hooks';
 import type { QueryClient } from '@tanstack/react-query';
 import type { LoaderFunctionArgs } from 'react-router-dom';
+import { useMe } from '../../../features/auth/api/get-me';
 import { getProjectsQueryOptions, useProjects } from '../../../features/projects/api/get-projects';
 import { ProjectList } from '../../../features/projects/components/project-list';
 import { requireUser } from './root';
@@ -17,6 +18,7 @@ export function projectsLoader(queryClient: QueryClient) {
 export function ProjectsRoute() {
   useDocumentTitle('Projects · Ladderwright');
   const projects = useProjects();
+  const { data: me } = useMe();
   return (
     <Stack gap="lg">
       <div>
@@ -33,7 +35,7 @@ export function ProjectsRoute() {
           {projects.error.message}
         </Alert>
       )}
-      {projects.data && <ProjectList projects={projects.data} />}
+      {projects.data && <ProjectList projects={projects.data} accountRole={me?.role} />}
     </Stack>
   );
 }

@@ -7,6 +7,7 @@ import type { DesignReport, HeadlineSource } from '@ladderwright/shared/analysis
 import { formatQuantity } from '@ladderwright/shared/units';
 import { OtherFigures } from '../../../features/workbench/components/other-figures';
 import { formatDateTime } from '../../../lib/format-date';
+import classes from './workbench.module.css';
 
 export interface WorkbenchResultsProps {
   projectId: string;
@@ -100,7 +101,11 @@ export function WorkbenchResults({
   const { report, draft } = useDeferredValue(settled);
   return (
     <Suspense fallback={<Loader size="sm" aria-label="Loading the tab" />}>
-      <Tabs defaultValue="plots" keepMounted={false}>
+      <Tabs
+        defaultValue="plots"
+        keepMounted={false}
+        classNames={{ list: classes.resultTabList, tab: classes.resultTab }}
+      >
         <Tabs.List>
           <Tabs.Tab value="plots">Plots</Tabs.Tab>
           {report.driver && <Tabs.Tab value="driver">Driver</Tabs.Tab>}

@@ -66,8 +66,7 @@ export function BenchRunUpload({ projectId, designId, revisionNumber, onUploaded
             onChange={(e) => setTitle(e.currentTarget.value)}
           />
           <TextInput
-            label="Tolerance"
-            description="Fraction or percent"
+            label="Tolerance (fraction or %)"
             value={tolerance}
             onChange={(e) => setTolerance(e.currentTarget.value)}
           />

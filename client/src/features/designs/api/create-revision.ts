@@ -1,16 +1,26 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { RevisionDetail, SaveRevisionRequest, StaleBaseError } from '@ladderwright/shared/api';
+import {
+  expandCheckRules,
+  type RevisionDetail,
+  type RevisionDetailBody,
+  type SaveRevisionRequest,
+  type StaleBaseError,
+} from '@ladderwright/shared/api';
 import { apiPaths } from '../../../config/paths';
 import { apiRequest, isApiError } from '../../../lib/api-client';
 import { queryKeys } from '../../../lib/query-keys';
 
 /** Saves an edited document as revision n+1; answers 409 stale_base when `baseRevisionNumber` is not the latest. */
-export function createRevision(
+export async function createRevision(
   projectId: string,
   designId: string,
   request: SaveRevisionRequest,
 ): Promise<RevisionDetail> {
-  return apiRequest<RevisionDetail>(apiPaths.revisions(projectId, designId), { method: 'POST', body: request });
+  const body = await apiRequest<RevisionDetailBody>(apiPaths.revisions(projectId, designId), {
+    method: 'POST',
+    body: request,
+  });
+  return { ...body, report: expandCheckRules(body.report) };
 }
 
 /** The 409 body of a stale save, or null for any other failure. */

@@ -1,17 +1,21 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { RevisionDetail } from '@ladderwright/shared/api';
+import { expandCheckRules, type RevisionDetail, type RevisionDetailBody } from '@ladderwright/shared/api';
 import { apiPaths } from '../../../config/paths';
 import { apiRequest } from '../../../lib/api-client';
 import { queryKeys } from '../../../lib/query-keys';
 
-/** One saved revision with its document and the server's report; both never change once saved. */
-export function getRevision(
+/**
+ * One saved revision with its document and the server's report; both never change once saved. The server sends each
+ * check rule's text once (`report.checkRules`); the report comes back with each check's rule looked up.
+ */
+export async function getRevision(
   projectId: string,
   designId: string,
   revisionNumber: number,
   signal?: AbortSignal,
 ): Promise<RevisionDetail> {
-  return apiRequest<RevisionDetail>(apiPaths.revision(projectId, designId, revisionNumber), { signal });
+  const body = await apiRequest<RevisionDetailBody>(apiPaths.revision(projectId, designId, revisionNumber), { signal });
+  return { ...body, report: expandCheckRules(body.report) };
 }
 
 export function getRevisionQueryOptions(projectId: string, designId: string, revisionNumber: number) {

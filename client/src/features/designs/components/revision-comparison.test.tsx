@@ -1,6 +1,7 @@
 import { fireEvent, screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import type { RevisionComparison as Comparison, RevisionSummary } from '@ladderwright/shared/api';
+import type { RevisionSummary } from '@ladderwright/shared/api';
+import type { ComparedRevisions as Comparison } from '../api/compare-revisions';
 import type { CheckVerdict } from '@ladderwright/shared/safety';
 import { renderWithApp } from '../../../testing/render';
 import { RevisionComparison } from './revision-comparison';

@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { Alert, Badge, Group, List, Stack, Switch, Table, Text } from '@mantine/core';
-import type { RevisionComparison as Comparison } from '@ladderwright/shared/api';
+import type { ComparedRevisions as Comparison } from '../api/compare-revisions';
 import { documentFieldLabel, formatFieldDelta, formatFieldValue, resultFieldLabel } from '@ladderwright/shared/designs';
 import type { CapacitorPlace } from '@ladderwright/shared/multiplier';
 import { describeMargin, mergeCheckRows, type CheckRow } from '@ladderwright/shared/safety';

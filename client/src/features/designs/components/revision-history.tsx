@@ -66,33 +66,41 @@ export function RevisionHistory({ projectId, designId, revisions, openRevisionNu
         </Table.Tbody>
       </Table>
 
-      <Title order={3} size="h5">
-        Compare two revisions
-      </Title>
-      <Group gap="sm">
-        <Select
-          label="Revision A"
-          data={options}
-          value={a === null ? null : String(a)}
-          onChange={(v) => setA(v ? Number(v) : null)}
-          w={260}
-        />
-        <Select
-          label="Revision B"
-          data={options}
-          value={b === null ? null : String(b)}
-          onChange={(v) => setB(v ? Number(v) : null)}
-          w={260}
-        />
-      </Group>
-      {a !== null && a === b && (
+      {sorted.length < 2 ? (
         <Text size="sm" c="dimmed">
-          Pick two different revisions.
+          One revision so far: save another to compare the two here, or compare this one with another design.
         </Text>
+      ) : (
+        <>
+          <Title order={3} size="h5">
+            Compare two revisions
+          </Title>
+          <Group gap="sm">
+            <Select
+              label="Revision A"
+              data={options}
+              value={a === null ? null : String(a)}
+              onChange={(v) => setA(v ? Number(v) : null)}
+              w={260}
+            />
+            <Select
+              label="Revision B"
+              data={options}
+              value={b === null ? null : String(b)}
+              onChange={(v) => setB(v ? Number(v) : null)}
+              w={260}
+            />
+          </Group>
+          {a !== null && a === b && (
+            <Text size="sm" c="dimmed">
+              Pick two different revisions.
+            </Text>
+          )}
+          {comparison.isFetching && <Loader size="sm" aria-label="Comparing" />}
+          {comparison.isError && <Alert color="red">{comparison.error.message}</Alert>}
+          {comparison.data && <RevisionComparison comparison={comparison.data} />}
+        </>
       )}
-      {comparison.isFetching && <Loader size="sm" aria-label="Comparing" />}
-      {comparison.isError && <Alert color="red">{comparison.error.message}</Alert>}
-      {comparison.data && <RevisionComparison comparison={comparison.data} />}
       <Anchor
         component={Link}
         size="sm"

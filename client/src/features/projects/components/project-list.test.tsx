@@ -57,4 +57,13 @@ describe('ProjectList', () => {
     expect(screen.getByText('No projects yet')).toBeInTheDocument();
     expect(screen.queryByRole('listitem')).not.toBeInTheDocument();
   });
+
+  it('shows an admin without a project where the admin’s own pages are', () => {
+    renderWithApp(<ProjectList projects={[]} accountRole="admin" />);
+    expect(screen.getByText('No projects of yours')).toBeInTheDocument();
+    expect(screen.getByRole('link', { name: 'Accounts' })).toHaveAttribute('href', '/admin/accounts');
+    expect(screen.getByRole('link', { name: 'Audit log' })).toHaveAttribute('href', '/admin/audit-log');
+    expect(screen.getByRole('link', { name: 'Outbox' })).toHaveAttribute('href', '/outbox');
+    expect(screen.queryByText(/A lead can add you/)).not.toBeInTheDocument();
+  });
 });

@@ -1,18 +1,42 @@
-import { Card, EmptyState, Group, SimpleGrid, Stack, Text, Title } from '@mantine/core';
+import { Button, Card, EmptyState, Group, SimpleGrid, Stack, Text, Title } from '@mantine/core';
 import { Link } from 'react-router-dom';
 import type { ProjectSummary } from '@ladderwright/shared/api';
+import type { UserRole } from '@ladderwright/shared/auth';
 import { paths } from '../../../config/paths';
 import { ProjectRoleBadge } from './project-role-badge';
 
 export interface ProjectListProps {
   projects: readonly ProjectSummary[];
+  /** The signed-in account's role: an admin with no project is shown where the admin's own pages are. */
+  accountRole?: UserRole;
 }
 
 function memberCountLabel(count: number): string {
   return count === 1 ? '1 member' : `${count} members`;
 }
 
-export function ProjectList({ projects }: ProjectListProps) {
+export function ProjectList({ projects, accountRole }: ProjectListProps) {
+  if (projects.length === 0 && accountRole === 'admin') {
+    // A project shows only to its members, and an admin account is a member of none until a lead adds it.
+    return (
+      <EmptyState
+        title="No projects of yours"
+        description="Projects show only to their members; an admin account sees one once a project’s lead adds it. The team’s accounts, the audit log and the captured mail are yours:"
+      >
+        <EmptyState.Actions>
+          <Button component={Link} to={paths.accounts.getHref()} variant="light">
+            Accounts
+          </Button>
+          <Button component={Link} to={paths.auditLog.getHref()} variant="default">
+            Audit log
+          </Button>
+          <Button component={Link} to={paths.outbox.getHref()} variant="default">
+            Outbox
+          </Button>
+        </EmptyState.Actions>
+      </EmptyState>
+    );
+  }
   if (projects.length === 0) {
     return (
       <EmptyState

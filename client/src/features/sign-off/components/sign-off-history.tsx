@@ -1,13 +1,21 @@
 import { Table, Text } from '@mantine/core';
 import type { SignOffTransition } from '@ladderwright/shared/api';
+import type { RevisionState } from '@ladderwright/shared/reviews';
 import { formatDateTime } from '../../../lib/format-date';
 
 /** The audit history of the Sign-off: who moved the revision, when, from which state to which, and why. */
-export function SignOffHistory({ history }: { history: readonly SignOffTransition[] }) {
+export function SignOffHistory({
+  history,
+  state,
+}: {
+  history: readonly SignOffTransition[];
+  /** The revision's state: one past draft with no step on record was stored in it (demo data or an import). */
+  state: RevisionState;
+}) {
   if (history.length === 0) {
     return (
       <Text size="sm" c="dimmed">
-        No Sign-off step yet.
+        {state === 'draft' ? 'No Sign-off step yet.' : `No Sign-off step on record: the revision was stored ${state}.`}
       </Text>
     );
   }

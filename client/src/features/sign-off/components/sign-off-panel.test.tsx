@@ -117,6 +117,15 @@ describe('SignOffPanel', () => {
     expect(overrides).toHaveTextContent('Past: 1 comment thread is still open');
   });
 
+  it('says an approved revision with no step on record was stored approved, not that it awaits approval', () => {
+    renderWithApp(
+      <SignOffPanel signOff={{ ...base, state: 'approved', availableCommands: [], history: [], reviewers: [] }} />,
+    );
+    expect(screen.queryByText('Not approved yet.')).not.toBeInTheDocument();
+    expect(screen.getByText(/No approval on record: the revision was stored approved/)).toBeInTheDocument();
+    expect(screen.getByText('No Sign-off step on record: the revision was stored approved.')).toBeInTheDocument();
+  });
+
   it('says so when no command is open to the caller', () => {
     renderWithApp(<SignOffPanel signOff={{ ...base, availableCommands: [] }} />);
     expect(screen.queryByRole('button')).not.toBeInTheDocument();

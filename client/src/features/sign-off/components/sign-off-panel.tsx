@@ -27,7 +27,9 @@ export function SignOffPanel({ signOff }: { signOff: SignOff }) {
         </Title>
         {signOff.approvals.length === 0 ? (
           <Text size="sm" c="dimmed">
-            Not approved yet.
+            {signOff.state === 'approved' || signOff.state === 'released'
+              ? `No approval on record: the revision was stored ${signOff.state}, not approved through Sign-off.`
+              : 'Not approved yet.'}
           </Text>
         ) : (
           <List size="sm" aria-label="Approvals">
@@ -64,7 +66,7 @@ export function SignOffPanel({ signOff }: { signOff: SignOff }) {
         <Title order={2} size="h4" mb="xs">
           History
         </Title>
-        <SignOffHistory history={signOff.history} />
+        <SignOffHistory history={signOff.history} state={signOff.state} />
       </Paper>
     </Stack>
   );

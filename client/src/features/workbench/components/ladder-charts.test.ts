@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { analyzeDesign } from '@ladderwright/shared/analysis';
 import { designExamples, validateDesign, type Design } from '@ladderwright/shared/designs';
-import { loadCurveOf } from './ladder-charts';
+import { loadCurveOf, nearLoadRange } from './ladder-charts';
 
 function reportAtLoad(design: Design, currentA: number) {
   return analyzeDesign(validateDesign({ ...structuredClone(design), load: { kind: 'current', currentA } }));
@@ -33,5 +33,17 @@ describe('loadCurveOf', () => {
     // The curve ends where the output reaches zero: at the most the supply delivers (both found by bisection to
     // about 1e-4 relative, OperatingPointResult).
     expect((beyond.data.at(-1)?.x ?? 0) / (capacity?.maxLoadCurrentA ?? Number.NaN)).toBeCloseTo(1, 3);
+  });
+
+  it('first shows a load far below the curve’s end away from the y-axis, on a 1-2-5 end', () => {
+    const report = analyzeDesign(validateDesign(designExamples.detectorBias));
+    const curve = loadCurveOf(report);
+    // 5 µA against a short-circuit current near 1 mA: drawn whole, the mark would sit 0.5 % from the axis.
+    expect(curve.loadA).toBeCloseTo(5e-6, 12);
+    expect(curve.nearRange?.[0]).toBe(0);
+    expect(curve.nearRange?.[1]).toBeCloseTo(2e-5, 12);
+    expect(nearLoadRange(3e-5, 4.4e-4)?.[1]).toBeCloseTo(1e-4, 12);
+    expect(nearLoadRange(1e-3, 1e-3)).toBeUndefined();
+    expect(nearLoadRange(0, 1e-3)).toBeUndefined();
   });
 });

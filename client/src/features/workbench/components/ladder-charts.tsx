@@ -1,4 +1,5 @@
-import { SimpleGrid, Text } from '@mantine/core';
+import { useState } from 'react';
+import { Button, Group, SimpleGrid, Text } from '@mantine/core';
 import type { DesignReport } from '@ladderwright/shared/analysis';
 import { formatQuantity } from '@ladderwright/shared/units';
 import { chartColors, QuantityChart } from '../../../components/quantity-chart';
@@ -6,6 +7,23 @@ import { MethodNote } from './method-note';
 
 export interface LadderChartsProps {
   report: DesignReport;
+}
+
+/** The smallest of 1, 2, 5 × 10ⁿ at or above `value` (> 0). */
+function roundUpToSeries(value: number): number {
+  const decade = 10 ** Math.floor(Math.log10(value));
+  return ([1, 2, 5, 10].find((step) => step * decade >= value * (1 - 1e-9)) ?? 10) * decade;
+}
+
+/**
+ * The load-current range that shows the operating load clear of the y-axis (at a third of the width or more), or
+ * undefined when the whole curve already does. Supplies of this kind run far below their short-circuit current, so
+ * drawn to its end the load would sit on the axis.
+ */
+export function nearLoadRange(loadA: number, curveEndA: number): readonly [number, number] | undefined {
+  if (!(loadA > 0) || !(curveEndA > 0)) return undefined;
+  const endA = roundUpToSeries(3 * loadA);
+  return endA < 0.5 * curveEndA ? [0, endA] : undefined;
 }
 
 /** The output-vs-load plot: the supply's own curve for a driver design, else the ladder's at its fixed drive. */
@@ -22,6 +40,7 @@ export function loadCurveOf(report: DesignReport) {
       loadA: report.analysis.loadCurrentA,
       loadLabel: `operating load ${formatQuantity(report.analysis.loadCurrentA, 'A')}`,
       range: undefined,
+      nearRange: nearLoadRange(report.analysis.loadCurrentA, curves.regulation.at(-1)?.x ?? 0),
       footer: `Short-circuit current ${formatQuantity(curves.shortCircuitCurrentA, 'A')}`,
     };
   }
@@ -43,6 +62,7 @@ export function loadCurveOf(report: DesignReport) {
     loadA,
     loadLabel: `${isBeyond ? 'this design’s load, beyond the supply,' : 'operating load'} ${formatQuantity(loadA, 'A')}`,
     range: loadA > endA ? ([0, loadA * 1.05] as const) : undefined,
+    nearRange: loadA > endA ? undefined : nearLoadRange(loadA, endA),
     footer:
       capacity !== undefined
         ? `The supply holds an output up to ${formatQuantity(capacity.maxLoadCurrentA, 'A')} of load`
@@ -57,6 +77,8 @@ export function loadCurveOf(report: DesignReport) {
 export function LadderCharts({ report }: LadderChartsProps) {
   const curves = report.curves;
   const load = loadCurveOf(report);
+  const [isWholeCurve, setWholeCurve] = useState(false);
+  const isNearLoad = load.nearRange !== undefined && !isWholeCurve;
   const [outputColor = '', , designColor = ''] = chartColors.traces;
   return (
     <SimpleGrid type="container" cols={{ base: 1, '620px': 2 }} spacing="md">
@@ -66,14 +88,27 @@ export function LadderCharts({ report }: LadderChartsProps) {
         actions={<MethodNote subject={load.subject} method={load.method} />}
         heightPx={220}
         data={load.data}
-        x={{ key: 'x', title: 'Load current', unit: 'A', includesZero: true, range: load.range }}
+        x={{
+          key: 'x',
+          title: 'Load current',
+          unit: 'A',
+          includesZero: true,
+          range: isNearLoad ? load.nearRange : load.range,
+        }}
         y={{ title: 'Output', unit: 'V', includesZero: true }}
         series={[{ key: 'y', name: load.seriesName, color: outputColor }]}
         markers={[{ key: 'operating', label: load.loadLabel, x: load.loadA, color: chartColors.mark }]}
         footer={
-          <Text size="xs" c="dimmed">
-            {load.footer}
-          </Text>
+          <Group gap="xs" justify="space-between" wrap="wrap">
+            <Text size="xs" c="dimmed">
+              {load.footer}
+            </Text>
+            {load.nearRange !== undefined && (
+              <Button size="compact-xs" variant="subtle" onClick={() => setWholeCurve(!isWholeCurve)}>
+                {isWholeCurve ? 'Near the load' : 'Whole curve'}
+              </Button>
+            )}
+          </Group>
         }
       />
       <QuantityChart

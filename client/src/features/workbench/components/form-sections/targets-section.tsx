@@ -63,7 +63,7 @@ export function TargetsSection({ document, edit, issue }: SectionProps) {
         }
       />
       <NumberField
-        label="Provided creepage per stage (mm)"
+        label="Creepage per stage (mm)"
         value={t.spacing.providedCreepageMm ?? ''}
         min={0.1}
         step={0.5}
