@@ -2,7 +2,15 @@ import { resolve } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { predictedLoadCurve } from '@ladderwright/shared/bench';
-import { baseUrl, launchJourneyBrowser, openJourneyPage, screenshotDir, signInAsDemo } from './journey';
+import {
+  baseUrl,
+  copySeededDesign,
+  SEEDED_TESTER,
+  launchJourneyBrowser,
+  openJourneyPage,
+  screenshotDir,
+  signInAsDemo,
+} from './journey';
 
 let browser: Browser;
 let context: BrowserContext;
@@ -25,18 +33,12 @@ describe('calibration journey', () => {
 
   it('uploads a sweep, calibrates the transistor gain and starts a revision from the calibrated model', async () => {
     await signInAsDemo(page, 'engineer@northfold.test');
-    const projects = (await (await page.request.get(`${baseUrl}/api/projects`)).json()) as {
-      id: string;
-      name: string;
-    }[];
-    const project = projects.find((candidate) => candidate.name === 'Handheld surface-charge tester');
-    if (!project) throw new Error('no demo tester project');
-    const designs = (await (await page.request.get(`${baseUrl}/api/projects/${project.id}/designs`)).json()) as {
-      items: { id: string; name: string; latestRevisionNumber: number }[];
-    };
-    const design = designs.items.find((candidate) => candidate.name === 'Handheld surface-charge tester');
-    if (!design) throw new Error('no demo design');
-    const latest = design.latestRevisionNumber;
+    // A copy of the tester's seeded first revision: the bench run and the revision started from the calibrated
+    // model go to the copy, so the demo design other journeys open keeps its revisions.
+    const { projectId, designId } = await copySeededDesign(page, SEEDED_TESTER, 'Tester for calibration');
+    const project = { id: projectId };
+    const design = { id: designId };
+    const latest = 1;
     const revisionUrl = `${baseUrl}/api/projects/${project.id}/designs/${design.id}/revisions/${latest}`;
     const revision = (await (await page.request.get(revisionUrl)).json()) as { report: unknown };
     // A sweep 3 % below the predicted output-vs-load curve at its first six points (a prototype that
@@ -72,6 +74,8 @@ describe('calibration journey', () => {
     await result.waitFor({ timeout: 60_000 });
     const fitted = panel.getByRole('table', { name: 'Fitted parameters' });
     await expect(fitted.textContent()).resolves.toContain('Transistor current gain hFE');
+    // A load sweep's interval is the Jacobian's, and the table says so.
+    await expect(fitted.textContent()).resolves.toContain('Jacobian, linearized');
     await expect(panel.getByRole('table', { name: 'Residual per run' }).textContent()).resolves.toContain(
       'Prototype 3 sweep',
     );

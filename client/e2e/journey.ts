@@ -55,3 +55,35 @@ export async function signInAsDemo(page: Page, email: string): Promise<void> {
   await submitSignIn(page, email, demoPassword);
   await page.getByRole('heading', { name: 'Projects', level: 1 }).waitFor();
 }
+
+/** The seeded driver design, in a demo project of the same name. */
+export const SEEDED_TESTER = 'Handheld surface-charge tester';
+
+/**
+ * A new design in the demo project `projectName` made from revision 1 of its seeded design `designName`, so
+ * that a journey that adds bench runs or revisions leaves the seeded design other journeys open as it was.
+ * Needs a signed-in engineer on `page`.
+ */
+export async function copySeededDesign(
+  page: Page,
+  designName: string,
+  copyName: string,
+  projectName = designName,
+): Promise<{ projectId: string; designId: string }> {
+  const projects = (await (await page.request.get(`${baseUrl}/api/projects`)).json()) as { id: string; name: string }[];
+  const project = projects.find((candidate) => candidate.name === projectName);
+  if (!project) throw new Error(`no demo project ${projectName}`);
+  const designs = (await (await page.request.get(`${baseUrl}/api/projects/${project.id}/designs`)).json()) as {
+    items: { id: string; name: string }[];
+  };
+  const seeded = designs.items.find((candidate) => candidate.name === designName);
+  if (!seeded) throw new Error(`no demo design ${designName}`);
+  const first = (await (
+    await page.request.get(`${baseUrl}/api/projects/${project.id}/designs/${seeded.id}/revisions/1`)
+  ).json()) as { document: unknown };
+  const created = await page.request.post(`${baseUrl}/api/projects/${project.id}/designs`, {
+    data: { name: copyName, from: { kind: 'document', document: first.document } },
+  });
+  if (created.status() !== 201) throw new Error(`copying ${designName} answered ${created.status()}`);
+  return { projectId: project.id, designId: ((await created.json()) as { id: string }).id };
+}

@@ -3,12 +3,15 @@ import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { baseUrl, launchJourneyBrowser, openJourneyPage, screenshotDir, signInAsDemo } from './journey';
-
-interface Listed {
-  id: string;
-  name: string;
-}
+import {
+  baseUrl,
+  copySeededDesign,
+  SEEDED_TESTER,
+  launchJourneyBrowser,
+  openJourneyPage,
+  screenshotDir,
+  signInAsDemo,
+} from './journey';
 
 let browser: Browser;
 let context: BrowserContext;
@@ -72,22 +75,9 @@ describe('transformer journey', () => {
     await signInAsDemo(page, 'engineer@northfold.test');
     // A copy of the tester's seeded first revision, so revisions other journeys add to the demo design (a
     // calibrated model, say) do not change the starting point.
-    const projects = (await (await page.request.get(`${baseUrl}/api/projects`)).json()) as Listed[];
-    const project = projects.find((candidate) => candidate.name === 'Handheld surface-charge tester');
-    if (!project) throw new Error('no demo tester project');
-    const designs = (await (await page.request.get(`${baseUrl}/api/projects/${project.id}/designs`)).json()) as {
-      items: Listed[];
-    };
-    const seeded = designs.items.find((candidate) => candidate.name === 'Handheld surface-charge tester');
-    if (!seeded) throw new Error('no demo tester design');
-    const first = (await (
-      await page.request.get(`${baseUrl}/api/projects/${project.id}/designs/${seeded.id}/revisions/1`)
-    ).json()) as { document: unknown };
-    const created = await page.request.post(`${baseUrl}/api/projects/${project.id}/designs`, {
-      data: { name: 'Tester on a designed transformer', from: { kind: 'document', document: first.document } },
-    });
-    expect(created.status()).toBe(201);
-    const design = (await created.json()) as { id: string };
+    const { projectId, designId } = await copySeededDesign(page, SEEDED_TESTER, 'Tester on a designed transformer');
+    const project = { id: projectId };
+    const design = { id: designId };
     await page.goto(`${baseUrl}/projects/${project.id}/designs/${design.id}`);
     await page.getByRole('heading', { name: 'Workbench', level: 1 }).waitFor();
 

@@ -3,9 +3,10 @@
 //    by the engine's estimate, on this thread (one core): our loop (package steps, batched Jacobian) beside
 //    ml-levenberg-marquardt's own loop on the same normalized problem. Target: ours under 2 s.
 // 2. The same three parameters against one push-button start-up curve by the simulator, the model runs on a
-//    pool of 1, 2 and 4 worker threads: wall time and speed-up per worker against the 1-worker run.
+//    pool of 1, 2 and 4 worker threads: wall time, model runs and speed-up per worker against the 1-worker run;
+//    beside them the schedule without overlap (Jacobian, then the step) on 2 workers.
 // The "measured" curves are the models' own at known values (gain 80, k 0.95, 0.4 Ω per cell) with 0.3 %
-// seeded noise. Run: npx tsx scripts/bench/calibration.bench.ts [start-up window ms, default 3]
+// seeded noise. Run: npx tsx scripts/bench/calibration.bench.ts [start-up window ms, default 3] [--start-up-only]
 import { availableParallelism } from 'node:os';
 import { resolve } from 'node:path';
 import { levenbergMarquardt } from 'ml-levenberg-marquardt';
@@ -109,6 +110,37 @@ async function sweepPart(): Promise<void> {
   );
 }
 
+/** One calibration against the start-up curve with a pool of `workers` threads; batches as the fit sent them. */
+async function startUpFit(dataset: CalibrationDataset, workers: number, overlapJacobian: boolean) {
+  const pool = new Piscina({
+    filename: resolve(import.meta.dirname, 'calibration-worker.ts'),
+    name: 'predict',
+    execArgv: ['--conditions=source', '--import', 'tsx'],
+    minThreads: workers,
+    maxThreads: workers,
+  });
+  // Warm-up outside the timing: each thread loads and compiles the sources once (seconds under tsx).
+  await Promise.all(Array.from({ length: workers }, () => pool.run({ design, datasets: [] })));
+  const batches: number[] = [];
+  const t0 = performance.now();
+  const result = await calibrateDesign(
+    { design, parameters: priors, datasets: [dataset] },
+    (prepared) => (designs) => {
+      batches.push(designs.length);
+      return Promise.all(
+        designs.map((d: Design) => pool.run({ design: d, datasets: prepared }) as Promise<number[][] | null>),
+      );
+    },
+    // Refused steps are retried with as many damping values at once as there are workers.
+    { overlapJacobian, dampingTrials: workers },
+  );
+  const wallMs = performance.now() - t0;
+  await pool.destroy();
+  // Rounds: each batch takes ⌈size / workers⌉ runs' time on an idle pool of equal runs.
+  const rounds = batches.reduce((sum, size) => sum + Math.ceil(size / workers), 0);
+  return { result, wallMs, rounds, batches: batches.length };
+}
+
 async function startUpPart(windowS: number): Promise<void> {
   const times = Array.from({ length: 16 }, (_, i) => ((i + 1) * windowS) / 16);
   const measured = noisy(startUpSimulation(applyParameterValues(design, ids, truth), times), 11);
@@ -118,42 +150,32 @@ async function startUpPart(windowS: number): Promise<void> {
     use: 'start-up',
     points: times.map((x, i) => ({ x, y: measured[i]! })),
   };
+  const cores = availableParallelism();
   console.log(
     `2. the same three parameters against one start-up curve (${(windowS * 1e3).toFixed(1)} ms, 16 points), simulator`,
   );
-  console.log(`  machine: ${availableParallelism()} cores`);
+  console.log(
+    `  machine: ${cores} cores; each step goes out with the Jacobian's 3 columns (4 runs a round), so 2 workers halve the rounds and 4 run an iteration in one; past ${cores} workers the threads share ${cores} cores, so wall time cannot fall much further here`,
+  );
   let oneWorkerMs = 0;
   for (const workers of [1, 2, 4]) {
-    const pool = new Piscina({
-      filename: resolve(import.meta.dirname, 'calibration-worker.ts'),
-      name: 'predict',
-      execArgv: ['--conditions=source', '--import', 'tsx'],
-      minThreads: workers,
-      maxThreads: workers,
-    });
-    const t0 = performance.now();
-    const result = await calibrateDesign(
-      { design, parameters: priors, datasets: [dataset] },
-      (prepared) => (designs) =>
-        Promise.all(
-          designs.map((d: Design) => pool.run({ design: d, datasets: prepared }) as Promise<number[][] | null>),
-        ),
-      // With more than one worker each step goes out with its Jacobian's columns (FitOptions.speculative).
-      { speculative: workers > 1 },
-    );
-    const wallMs = performance.now() - t0;
-    await pool.destroy();
+    const { result, wallMs, rounds, batches } = await startUpFit(dataset, workers, true);
     if (workers === 1) oneWorkerMs = wallMs;
     const speedUp = oneWorkerMs / wallMs;
     console.log(
-      `  ${workers} worker(s) ${(wallMs / 1000).toFixed(1)} s wall, ${result.evaluations} model runs, speed-up ${speedUp.toFixed(2)} (${(speedUp / workers).toFixed(2)} per worker): ${describe(result.parameters.map((p) => p.value))}`,
+      `  ${workers} worker(s) ${(wallMs / 1000).toFixed(1)} s wall, ${result.evaluations} model runs in ${batches} batches (${rounds} rounds), ${result.iterations} steps, speed-up ${speedUp.toFixed(2)} (${(speedUp / workers).toFixed(2)} per worker): ${describe(result.parameters.map((p) => p.value))}`,
     );
   }
+  const plain = await startUpFit(dataset, 2, false);
+  console.log(
+    `  reference, Jacobian then step (two batches an iteration), 2 workers: ${(plain.wallMs / 1000).toFixed(1)} s wall, ${plain.result.evaluations} model runs in ${plain.batches} batches (${plain.rounds} rounds), ${plain.result.iterations} steps, speed-up ${(oneWorkerMs / plain.wallMs).toFixed(2)} against the 1-worker run above: ${describe(plain.result.parameters.map((p) => p.value))}`,
+  );
 }
 
 async function main(): Promise<void> {
-  await sweepPart();
-  await startUpPart(Number(process.argv[2] ?? 3) * 1e-3);
+  const args = process.argv.slice(2);
+  if (!args.includes('--start-up-only')) await sweepPart();
+  await startUpPart(Number(args.find((arg) => !arg.startsWith('--')) ?? 3) * 1e-3);
 }
 
 void main();

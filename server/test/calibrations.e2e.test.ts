@@ -140,6 +140,8 @@ describe('calibrations', () => {
     writeFileSync(sheetPath, pdf.body as Buffer);
     const text = execFileSync('pdftotext', [sheetPath, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
     expect(text).toContain('against Prototype sweep, 95 % intervals: Transistor current gain hFE');
+    // Each interval names its method: a load sweep's cost is smooth, so its interval is the Jacobian's.
+    expect(text).toContain(', Jacobian, linearized)');
   });
 
   it('cancels a running start-up calibration', async () => {

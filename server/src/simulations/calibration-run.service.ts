@@ -64,8 +64,9 @@ export class CalibrationRunService {
         {
           onProgress: (fraction) => onProgress(Math.floor(fraction * 99)),
           shouldCancel: isCancelled,
-          // Model runs of the simulator spread over every instance's pool: a step and its Jacobian go together.
-          speculative: usesSimulator,
+          // A simulator fit sends each step with the Jacobian's columns (calibrateDesign's default for it); a
+          // refused step is retried with as many damping values at once as this instance has workers.
+          dampingTrials: Math.max(1, this.pool.threadCount),
         },
       );
       await calibration.update({ result });

@@ -1,4 +1,4 @@
-import { formatQuantity, type QuantityUnit } from '@ladderwright/shared/units';
+import { fittedParameterText } from '@ladderwright/shared/api';
 import type { SpecSheetContent } from './spec-sheet.types';
 import {
   date,
@@ -80,26 +80,12 @@ export function benchRunsSection(doc: Doc, c: SpecSheetContent): void {
   calibrationLines(doc, c);
 }
 
-/** A plain number to four figures, or with an SI prefix for a resistance, current or capacitance. */
-function calibratedValue(value: number, unit: string): string {
-  const units: Record<string, QuantityUnit> = { Ω: 'Ohm', A: 'A', F: 'F' };
-  const quantityUnit = units[unit];
-  return quantityUnit ? formatQuantity(value, quantityUnit) : value.toPrecision(4);
-}
-
-/** One line per finished calibration: when, against which runs, each fitted value with its interval. */
+/** One line per finished calibration: when, against which runs, each fitted value with its interval and its method. */
 function calibrationLines(doc: Doc, c: SpecSheetContent): void {
   for (const calibration of c.calibrations ?? []) {
     const result = calibration.result;
     if (!result) continue;
-    const values = result.parameters
-      .map((p) => {
-        const interval = p.interval
-          ? `${calibratedValue(p.interval.low, p.unit)} to ${calibratedValue(p.interval.high, p.unit)}`
-          : 'not identifiable';
-        return `${p.label} ${calibratedValue(p.value, p.unit)} (${interval})`;
-      })
-      .join('; ');
+    const values = result.parameters.map(fittedParameterText).join('; ');
     const runs = calibration.input.runs.map((run) => run.label).join(', ');
     const warning = result.warnings.length > 0 ? ' Identifiability warning.' : '';
     ensureRoom(doc, 14);

@@ -3,16 +3,17 @@ import { designExamples } from '../designs/design-examples';
 import type { Design } from '../designs/design.types';
 import type { DriverStage } from '../designs/driver-stage.types';
 import { engineLadderLoadLine, type LadderLoadLine } from '../driver/ladder-load-line';
+import { runDriverChecks } from '../driver/driver-checks';
 import { driverOperatingPoint, type LoadPoint } from '../driver/operating-point';
 import { analyzeDesign, ladderInputOf, resolveDrive } from './analyze-design';
 
 /*
  * The Workbench's repeated recompute takes what the engine remembers from earlier calls (the driver's
- * output-vs-load curve per stage and ladder). Each remembered answer is checked here against the same figures
- * solved afresh, with nothing remembered, on every demo design and on edits of each kind: the load, every
- * capacitor, one capacitor, the driver. The fresh solve settles every inner solve to 1e-10, so the figures
- * agree to 1e-8 relative (1e-9 absolute near zero), the tolerance of the warm-started solves
- * (operating-point-warm.test.ts).
+ * output-vs-load curve per stage and ladder, the supply-current table's stage limits). Each remembered answer
+ * is checked here against the same figures solved afresh, with nothing remembered, on every demo design and
+ * on edits of each kind: the load, every capacitor, one capacitor, the driver. The fresh solve settles every
+ * inner solve to 1e-10, so the figures agree to 1e-8 relative (1e-9 absolute near zero), the tolerance of the
+ * warm-started solves (operating-point-warm.test.ts).
  */
 function expectClose(got: number, want: number): void {
   expect(Math.abs(got - want)).toBeLessThanOrEqual(1e-8 * Math.abs(want) + 1e-9);
@@ -77,6 +78,13 @@ describe.each(Object.entries(designExamples))('remembered answers of %s', (_, de
       expect(op.curve).toHaveLength(fresh.curve.length);
       op.curve.forEach((point, i) => expectSamePoint(point, fresh.curve[i]!));
       expectSamePoint(op.ratedLoad, fresh.ratedLoad);
+      // Battery life from the supply-current table, whose stage limits and first balance are remembered.
+      const freshChecks = runDriverChecks(stage, { ladder: freshLadder(design), ratedLoadCurrentA: ratedA });
+      expect(report.driver!.batteryLife === null).toBe(freshChecks.batteryLife === null);
+      if (freshChecks.batteryLife) {
+        expectClose(report.driver!.batteryLife!.lifeS.value, freshChecks.batteryLife.lifeS.value);
+        expectClose(report.driver!.batteryLife!.meanCurrentA, freshChecks.batteryLife.meanCurrentA);
+      }
     },
   );
 

@@ -16,7 +16,7 @@ import { ladderCurves } from '../multiplier/ladder-curves';
 import { bleederStressChecks, ladderStressChecks } from '../multiplier/ladder-stress';
 import type { LadderAnalysis, LadderCurves, LadderInput } from '../multiplier/ladder.types';
 import type { TransformerReport } from '../transformer/transformer.types';
-import { driverAtRatedLoad, ladderInputOf, ratedPoint, underDrive } from './design-drive';
+import { driverAtRatedLoad, ratedPoint, underDrive } from './design-drive';
 import { transformerDriverEffect } from './transformer-effect';
 import { designedTransformerReport, withGivenTransformer } from './transformer-report';
 import { ladderDischargePhases } from './ladder-discharge';
@@ -160,7 +160,7 @@ function stageWorkingVoltages(analysis: LadderAnalysis): number[] {
  * every check verdict, with method notes, and HV_CAUTION once for all of them (`caution`).
  */
 export function analyzeDesign(givenDesign: Design): DesignReport {
-  const { design, limitDrive, deliverablePowerW, currentLimitA, drive, driver, input } = ratedPoint(givenDesign);
+  const { design, limitInput, deliverablePowerW, drive, driver, input } = ratedPoint(givenDesign);
   const targets = design.targets;
   const base = analyzeLadderReport(input, { safeVoltageV: targets.safeVoltageV, dischargeRule: targets.dischargeRule });
   const { analysis } = base;
@@ -171,19 +171,16 @@ export function analyzeDesign(givenDesign: Design): DesignReport {
   const stressAnalysis =
     design.drive.kind === 'driver' && lightest
       ? analyzeLadder({
-          ...ladderInputOf(
-            design,
-            pulseDriveOf(
-              {
-                forwardPeakV: lightest.forwardSecondaryPeakV,
-                flybackPeakV: lightest.flybackSecondaryPeakV,
-                frequencyHz: lightest.frequencyHz,
-                dutyCycle: lightest.dutyCycle,
-                isFlybackFed: isFlybackFed(design.drive.driver),
-              },
-              design.drive.driver.transformer.secondaryResistanceOhm,
-            ),
-            currentLimitA,
+          ...limitInput,
+          drive: pulseDriveOf(
+            {
+              forwardPeakV: lightest.forwardSecondaryPeakV,
+              flybackPeakV: lightest.flybackSecondaryPeakV,
+              frequencyHz: lightest.frequencyHz,
+              dutyCycle: lightest.dutyCycle,
+              isFlybackFed: isFlybackFed(design.drive.driver),
+            },
+            design.drive.driver.transformer.secondaryResistanceOhm,
           ),
           load: null,
         })
@@ -237,11 +234,7 @@ export function analyzeDesign(givenDesign: Design): DesignReport {
   const noLoadOutputV = driver
     ? Math.sign(analysis.outputMeanV || 1) * (driver.operatingPoint.curve[0]?.outputV ?? 0)
     : base.noLoadOutputV;
-  const openCircuit = analyzeLadder({
-    ...ladderInputOf(design, limitDrive, currentLimitA),
-    load: null,
-    bleederOhm: null,
-  });
+  const openCircuit = analyzeLadder({ ...limitInput, load: null, bleederOhm: null });
   const bleederPowerW = Math.abs(analysis.ladderTopMeanV) * analysis.bleederCurrentA;
   return {
     ...base,

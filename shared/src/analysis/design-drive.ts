@@ -1,7 +1,7 @@
 import { DomainError } from '../errors';
 import type { Design, PulseDrive, SineDrive } from '../designs/design.types';
 import type { DriverStage } from '../designs/driver-stage.types';
-import { estimateBlockingOscillator } from '../driver/blocking-oscillator';
+import { blockingOscillatorNumbers } from '../driver/blocking-oscillator';
 import { driverReport, type DriverReport } from '../driver/driver-report';
 import { engineLadderLoadLine, pulseDriveOf, secondaryLoadOf, type LadderLoadLine } from '../driver/ladder-load-line';
 import { isFlybackFed, solveLoadPoint } from '../driver/operating-point';
@@ -21,8 +21,9 @@ export function resolveDrive(givenDesign: Design): {
   const drive = design.drive;
   if (drive.kind !== 'driver') return { drive, deliverablePowerW: null, currentLimitA: null };
   const stage = drive.driver;
-  const estimate = underDrive(() =>
-    estimateBlockingOscillator(stage, {
+  // The stage's numbers alone: the report's driver section gives the estimate with its method notes.
+  const limit = underDrive(() =>
+    blockingOscillatorNumbers(stage, {
       secondaryLoad: secondaryLoadOf({
         capacitorsF: design.multiplier.capacitors.map((c) => c.valueF),
         diode: design.multiplier.diode,
@@ -30,28 +31,21 @@ export function resolveDrive(givenDesign: Design): {
       }),
     }),
   );
-  const onS = estimate.onTimeS.value;
   return {
     drive: pulseDriveOf(
       {
-        forwardPeakV: estimate.forwardSecondaryPeakV.value,
-        flybackPeakV: estimate.flybackSecondaryPeakV.value,
-        frequencyHz: estimate.frequencyHz.value,
-        dutyCycle: forwardShareOf({
-          tOn: onS,
-          tRecovery: estimate.ringBack.recoveryS,
-          tSwing: estimate.ringBack.swingS,
-          frequencyHz: estimate.frequencyHz.value,
-        }),
+        forwardPeakV: limit.forwardSecV,
+        flybackPeakV: limit.flybackSecV,
+        frequencyHz: limit.frequencyHz,
+        dutyCycle: forwardShareOf(limit),
         isFlybackFed: isFlybackFed(stage),
       },
       drive.driver.transformer.secondaryResistanceOhm,
     ),
-    deliverablePowerW: estimate.deliverablePowerW.value,
+    deliverablePowerW: limit.deliverableW,
     // The flyback current the secondary can carry is the collector peak reflected through the turns ratio.
     currentLimitA:
-      (estimate.collectorPeakCurrentA.value * drive.driver.transformer.primaryTurns) /
-      drive.driver.transformer.secondaryTurns,
+      (limit.collectorPeakA * drive.driver.transformer.primaryTurns) / drive.driver.transformer.secondaryTurns,
   };
 }
 
@@ -107,6 +101,8 @@ export interface RatedPoint {
   design: Design;
   /** The secondary at the driver's limit (or the design's own sine or pulse drive). */
   limitDrive: SineDrive | PulseDrive;
+  /** The ladder at `limitDrive` and the design's load; the other drives' inputs differ from it in the drive alone. */
+  limitInput: LadderInput;
   deliverablePowerW: number | null;
   currentLimitA: number | null;
   /** The secondary at the rated load's operating point. */
@@ -125,9 +121,10 @@ export function ratedPoint(givenDesign: Design): RatedPoint {
   const { drive: limitDrive, deliverablePowerW, currentLimitA } = resolveDrive(design);
   let drive = limitDrive;
   let driver: DriverReport | null = null;
+  const limitInput = ladderInputOf(design, limitDrive, currentLimitA);
   if (design.drive.kind === 'driver') {
     const stage = design.drive.driver;
-    const ladder = engineLadderLoadLine(ladderInputOf(design, limitDrive, currentLimitA));
+    const ladder = engineLadderLoadLine(limitInput);
     driver = underDrive(() => driverReport(stage, ladder, ratedLoadCurrentOf(design, stage, ladder)));
     const rated = driver.operatingPoint.ratedLoad;
     drive = pulseDriveOf(
@@ -144,12 +141,9 @@ export function ratedPoint(givenDesign: Design): RatedPoint {
   const capacity = driver?.loadCapacity;
   // A load beyond what the supply delivers: the ladder at the largest load it holds (its output there near zero).
   const input = capacity?.isLoadBeyond
-    ? {
-        ...ladderInputOf(design, drive, currentLimitA),
-        load: { kind: 'current' as const, currentA: capacity.maxLoadCurrentA },
-      }
-    : ladderInputOf(design, drive, currentLimitA);
-  return { design, limitDrive, deliverablePowerW, currentLimitA, drive, driver, input };
+    ? { ...limitInput, drive, load: { kind: 'current' as const, currentA: capacity.maxLoadCurrentA } }
+    : { ...limitInput, drive };
+  return { design, limitDrive, limitInput, deliverablePowerW, currentLimitA, drive, driver, input };
 }
 
 /**

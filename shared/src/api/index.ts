@@ -123,5 +123,12 @@ export type {
 } from './admin.types';
 export { START_UP_WINDOW_S } from './simulation-limits';
 export { TRACE_NAMES, capacitorTraceName, capacitorOfTrace } from './waveform-traces';
+export {
+  fittedParameterText,
+  formatParameterValue,
+  INTERVAL_METHOD_WORDS,
+  intervalMethodWords,
+  intervalRangeText,
+} from './calibration-words';
 export type { CheckBody, DesignReportWire } from './check-rules';
 export { packCheckRules, expandCheckRules, packCheckLists, expandCheckList } from './check-rules';

@@ -123,6 +123,8 @@ export async function calibrateDesign(
   const stepU = usesSimulator ? 1e-2 : 1e-3;
   let profileEvaluations = 0;
   const outcome = await fitParameters(fitParametersList, target, fitModel, {
+    // A simulator's runs are long and go to a pool: each step goes out with the Jacobian's columns.
+    overlapJacobian: usesSimulator,
     ...options,
     stepU,
     ...(usesWaveform ? { startPoints: WAVEFORM_START_POINTS_PER_PARAMETER * chosen.length } : {}),

@@ -57,12 +57,23 @@ export interface FitOptions {
   /** Stop when an accepted step lowers the cost by less than this fraction (default 1e-9). */
   relativeTolerance?: number;
   /**
-   * Evaluate each proposed step together with the Jacobian's columns there, in one batch (default false):
-   * when the step is accepted, as most are, the next iteration's Jacobian is ready, so a pool of more than p
-   * workers runs one round of model runs an iteration instead of two; a rejected step wastes its p runs. The
-   * fit's path is the same either way.
+   * Overlap each iteration's trial step with its Jacobian (default false): the step is proposed from the
+   * Jacobian of the previous point brought up to date along the last step (Broyden's rank-one secant update),
+   * and goes out in one batch with the fresh Jacobian's columns at the current point, which the next step's
+   * update starts from. So a pool of p + 1 workers runs one round of model runs an iteration instead of two
+   * (Jacobian, then step), and no run is thrown away: every column is read by the next update, and a step the
+   * secant Jacobian gets wrong is retried on the fresh one at the same damping, which each refused retry updates
+   * along its own step. The path differs from the plain fit's only in the Jacobian each step is proposed from.
    */
-  speculative?: boolean;
+  overlapJacobian?: boolean;
+  /**
+   * Damping values tried at once when a step is refused and the next is proposed from a fresh Jacobian
+   * (default 1): λ, 11λ, 121λ, … go out in one batch and the fit takes the first, in that order, that lowers
+   * the cost (without overlapJacobian exactly the one-at-a-time search's path). For a pool with workers to spare
+   * between Jacobians, chiefly in the tail of refused steps near the optimum, where a finite-difference
+   * Jacobian's error leaves no step that lowers the cost and the fit stops after eight.
+   */
+  dampingTrials?: number;
   /** Evaluate the central-difference Jacobian at the optimum for the statistics (default true). */
   finalJacobian?: boolean;
   onProgress?: (fraction: number) => void;
@@ -103,6 +114,23 @@ export function leastSquaresCost(target: readonly number[], prediction: readonly
 }
 
 /**
+ * Broyden's rank-one update of a Jacobian along a step: B = J + (Δf − J·s)·sᵀ / (sᵀs), the least change of J
+ * (Frobenius norm) that maps the step s onto the change of the prediction Δf it caused (Broyden, Math. Comp.
+ * 19, 577–593, 1965; its use inside Levenberg–Marquardt: Madsen, Nielsen & Tingleff, *Methods for Non-Linear
+ * Least Squares Problems*, 2004, §3.4; both from memory). m × p in, m × p out.
+ */
+export function secantJacobian(move: { jacobian: number[][]; step: number[]; change: number[] }): number[][] {
+  const { jacobian, step, change } = move;
+  const norm = step.reduce((sum, sj) => sum + sj * sj, 0);
+  if (!(norm > 0)) return jacobian;
+  return jacobian.map((row, i) => {
+    const predicted = row.reduce((sum, dij, j) => sum + dij * (step[j] as number), 0);
+    const miss = ((change[i] as number) - predicted) / norm;
+    return row.map((dij, j) => dij + miss * (step[j] as number));
+  });
+}
+
+/**
  * Bounded Levenberg–Marquardt fit of `parameters` so that `model` matches `target` in least squares.
  * Each step is ml-levenberg-marquardt's (damped normal equations solved by Cholesky, clamped to the
  * bounds), taken one iteration at a time with the Jacobian we hand it: our loop evaluates the Jacobian's
@@ -132,28 +160,6 @@ export async function fitParameters(
   };
 
   let u = parameters.map((parameter) => Math.min(1, Math.max(0, toU(parameter, parameter.initialValue))));
-  const starts = startPoints(p, options.startPoints ?? 0);
-  const [first, ...others] = await evaluate([u, ...starts]);
-  if (!first) {
-    throw new DomainError(
-      'not_converged',
-      "The model has no answer at the design's own values; check the design",
-      'parameters',
-    );
-  }
-  let prediction = first;
-  const initialPrediction = first;
-  const costBefore = leastSquaresCost(target, first);
-  let currentCost = costBefore;
-  others.forEach((answer, k) => {
-    const startCost = leastSquaresCost(target, answer);
-    if (answer && startCost < currentCost) {
-      u = starts[k] as number[];
-      prediction = answer;
-      currentCost = startCost;
-    }
-  });
-
   /** The one-sided steps at `at` (forward unless the bound is within a step) and the points they reach. */
   const stepsAt = (at: readonly number[]) => at.map((uj) => (uj + stepU <= 1 ? stepU : -stepU));
   const shifted = (at: readonly number[], signs: readonly number[]) =>
@@ -188,6 +194,31 @@ export async function fitParameters(
     });
     return Array.from({ length: m }, (_, i) => columns.map((column) => column[i] as number));
   };
+
+  const starts = startPoints(p, options.startPoints ?? 0);
+  // Without start points the first batch carries the Jacobian's columns at the design's values too.
+  const firstSteps = starts.length === 0 ? stepsAt(u) : null;
+  const [first, ...others] = await evaluate([u, ...starts, ...(firstSteps ? shifted(u, firstSteps) : [])]);
+  if (!first) {
+    throw new DomainError(
+      'not_converged',
+      "The model has no answer at the design's own values; check the design",
+      'parameters',
+    );
+  }
+  let prediction = first;
+  const initialPrediction = first;
+  const costBefore = leastSquaresCost(target, first);
+  let currentCost = costBefore;
+  others.slice(0, starts.length).forEach((answer, k) => {
+    const startCost = leastSquaresCost(target, answer);
+    if (answer && startCost < currentCost) {
+      u = starts[k] as number[];
+      prediction = answer;
+      currentCost = startCost;
+    }
+  });
+  const firstJacobian = firstSteps ? await jacobianFrom(u, prediction, firstSteps, others) : null;
 
   const propose = (jacobian: number[][], damping: number): number[] | null => {
     let proposal: number[] | null = null;
@@ -240,56 +271,87 @@ export async function fitParameters(
     );
   };
 
-  // The Jacobian at the first u; null once a step has moved u (each iteration then computes its own).
-  let jacobian: number[][] | null = await jacobianAt(u, prediction);
+  // The Jacobian fresh at the current u, or null once a step has moved u; with overlapJacobian, the last
+  // fresh one and the step since, from which the next step's secant Jacobian is made.
+  let jacobian: number[][] | null = firstJacobian ?? (await jacobianAt(u, prediction));
+  let lastMove: { jacobian: number[][]; step: number[]; change: number[] } | null = null;
   let damping = 1e-2;
   let iterations = 0;
   let isConverged = false;
+  const dampingTrials = Math.max(1, Math.floor(options.dampingTrials ?? 1));
+  const isAcceptable = (answer: number[] | null | undefined): answer is number[] =>
+    !!answer && leastSquaresCost(target, answer) < currentCost;
+  const hasMoved = (proposal: number[] | null): proposal is number[] =>
+    !!proposal && proposal.some((v, j) => Math.abs(v - (u[j] as number)) >= 1e-10);
   while (iterations < maxIterations) {
     iterations += 1;
-    const current: number[][] = jacobian ?? (await jacobianAt(u, prediction));
-    let accepted: {
-      u: number[];
-      prediction: number[];
-      cost: number;
-      steps: number[];
-      forward: (number[] | null)[] | null;
-    } | null = null;
-    for (let attempt = 0; attempt < 8 && !accepted; attempt += 1) {
-      const proposal = propose(current, damping);
-      if (!proposal || proposal.every((v, j) => Math.abs(v - (u[j] as number)) < 1e-10)) break;
-      const steps = stepsAt(proposal);
-      const [answer, ...forward] = await evaluate(
-        options.speculative ? [proposal, ...shifted(proposal, steps)] : [proposal],
-      );
-      const proposalCost = leastSquaresCost(target, answer ?? null);
-      if (answer && proposalCost < currentCost) {
-        accepted = {
-          u: proposal,
-          prediction: answer,
-          cost: proposalCost,
-          steps,
-          forward: options.speculative ? forward : null,
-        };
-        damping = Math.max(damping / 9, 1e-7);
-      } else {
-        damping = Math.min(damping * 11, 1e7);
+    let accepted: { u: number[]; prediction: number[]; damping: number } | null = null;
+    let attempts = 0;
+    if (!jacobian && lastMove) {
+      // One batch: the step from the secant Jacobian, and the fresh columns here.
+      const proposal = propose(secantJacobian(lastMove), damping);
+      const steps = stepsAt(u);
+      const [answer, ...forward] = await evaluate([...(hasMoved(proposal) ? [proposal] : []), ...shifted(u, steps)]);
+      const columns = hasMoved(proposal) ? forward : [answer ?? null, ...forward];
+      jacobian = await jacobianFrom(u, prediction, steps, columns);
+      // A refused secant step may be the secant Jacobian's fault: the fresh one tries the same damping first.
+      if (hasMoved(proposal)) {
+        attempts += 1;
+        if (isAcceptable(answer)) accepted = { u: proposal, prediction: answer, damping };
       }
+    }
+    let current: number[][] = jacobian ?? (await jacobianAt(u, prediction));
+    /** With overlapJacobian a refused retry still teaches the Jacobian the change along it (secant update). */
+    const learnFrom = (proposal: number[], answer: number[] | null | undefined) => {
+      if (!options.overlapJacobian || !answer) return;
+      current = secantJacobian({
+        jacobian: current,
+        step: proposal.map((v, j) => v - (u[j] as number)),
+        change: answer.map((v, i) => v - (prediction[i] as number)),
+      });
+    };
+    while (!accepted && attempts < 8) {
+      const dampings = Array.from({ length: Math.min(dampingTrials, 8 - attempts) }, (_, k) =>
+        Math.min(damping * 11 ** k, 1e7),
+      );
+      const proposals: number[][] = [];
+      for (const trial of dampings) {
+        const proposal = propose(current, trial);
+        if (!hasMoved(proposal)) break;
+        proposals.push(proposal);
+      }
+      if (proposals.length === 0) break;
+      const answers = await evaluate(proposals);
+      attempts += proposals.length;
+      const k = answers.findIndex(isAcceptable);
+      if (k < 0) proposals.forEach((proposal, i) => learnFrom(proposal, answers[i]));
+      if (k >= 0)
+        accepted = { u: proposals[k] as number[], prediction: answers[k] as number[], damping: dampings[k] as number };
+      else damping = Math.min((dampings[proposals.length - 1] as number) * 11, 1e7);
     }
     options.onProgress?.(iterations / maxIterations);
     if (!accepted) {
       isConverged = true;
       break;
     }
-    const improvement = (currentCost - accepted.cost) / Math.max(currentCost, 1e-300);
+    const acceptedCost = leastSquaresCost(target, accepted.prediction);
+    const improvement = (currentCost - acceptedCost) / Math.max(currentCost, 1e-300);
+    damping = Math.max(accepted.damping / 9, 1e-7);
+    lastMove = options.overlapJacobian
+      ? {
+          jacobian: current,
+          step: accepted.u.map((v, j) => v - (u[j] as number)),
+          change: accepted.prediction.map((v, i) => v - (prediction[i] as number)),
+        }
+      : null;
     u = accepted.u;
     prediction = accepted.prediction;
-    currentCost = accepted.cost;
+    currentCost = acceptedCost;
+    jacobian = null;
     if (improvement < tolerance) {
       isConverged = true;
       break;
     }
-    jacobian = accepted.forward ? await jacobianFrom(u, prediction, accepted.steps, accepted.forward) : null;
   }
   const finalJacobian = options.finalJacobian === false ? [] : await centralJacobianAt(u, prediction);
   options.onProgress?.(1);

@@ -48,7 +48,7 @@ export {
 } from './waveform-model';
 export type { WaveformProbe } from './waveform-model';
 export type { SimulatorRunOptions } from './calibration-models';
-export { fitParameters, leastSquaresCost, toU, toValue } from './fit-parameters';
+export { fitParameters, leastSquaresCost, secantJacobian, toU, toValue } from './fit-parameters';
 export { profileIntervals } from './profile-intervals';
 export type { ProfileInput, ProfileInterval } from './profile-intervals';
 export type { BatchModel, FitOptions, FitOutcome, FitParameter } from './fit-parameters';

@@ -65,12 +65,16 @@ export function cellRateModelOf(supply: CellsSupply): CellRateModel {
   };
 }
 
-/** Internal resistance of one cell (Ω) at a state of charge: R_full·(1 + m·(1 − σ)^p) (see CellRateModel). */
-export function cellInternalResistanceOhm(supply: CellsSupply, chargeFraction: number): number {
+/** Internal resistance of one cell (Ω) at a state of charge: R_full·(1 + m·(1 − σ)^p) (see CellRateModel; `rateModel`, the supply's own, when the caller has it). */
+export function cellInternalResistanceOhm(
+  supply: CellsSupply,
+  chargeFraction: number,
+  rateModel?: CellRateModel,
+): number {
   const depth = Math.min(1, Math.max(0, 1 - chargeFraction));
   // A full cell (the driver's every solve) needs no rate model: the rise term is zero.
   if (depth === 0) return supply.internalResistanceOhm;
-  const m = cellRateModelOf(supply);
+  const m = rateModel ?? cellRateModelOf(supply);
   return supply.internalResistanceOhm * (1 + m.resistanceRiseAtEmpty * depth ** m.resistanceRisePower);
 }
 
@@ -78,8 +82,12 @@ export function cellInternalResistanceOhm(supply: CellsSupply, chargeFraction: n
  * The current (A) that drains a cell's rated capacity as fast as the drain `currentA` does, by Peukert's law:
  * I·(I/I_rated)^(k − 1) above the rated current I_rated = C/H, the drain itself below it.
  */
-export function peukertEquivalentCurrentA(supply: CellsSupply, currentA: number): number {
-  const m = cellRateModelOf(supply);
+export function peukertEquivalentCurrentA(
+  supply: CellsSupply,
+  currentA: number,
+  rateModel: CellRateModel = cellRateModelOf(supply),
+): number {
+  const m = rateModel;
   const ratedA = supply.capacityAh / m.ratedDischargeH;
   return currentA > ratedA ? currentA * (currentA / ratedA) ** (m.peukertExponent - 1) : currentA;
 }
@@ -161,9 +169,10 @@ export function batteryLife(supply: CellsSupply, currentAtTerminalV: (terminalV:
     throw new DomainError('invalid_design', 'at least one cell', 'driver.supply.cellsInSeries');
   const curve = cellCurveOf(supply);
   const n = supply.cellsInSeries;
+  const rateModel = cellRateModelOf(supply);
   const currentAt = (sigma: number): { currentA: number; cellV: number } => {
     const voc = cellOpenCircuitVoltageV(curve, sigma);
-    const resistanceOhm = cellInternalResistanceOhm(supply, sigma);
+    const resistanceOhm = cellInternalResistanceOhm(supply, sigma, rateModel);
     let cellV = voc;
     let currentA = 0;
     // Secant steps on the fixed point's residual next(V) − V from the open-circuit voltage and a half step
@@ -187,7 +196,6 @@ export function batteryLife(supply: CellsSupply, currentAtTerminalV: (terminalV:
     return { currentA, cellV };
   };
   const margin = (sigma: number): number => currentAt(sigma).cellV - supply.endVoltagePerCellV;
-  const rateModel = cellRateModelOf(supply);
   const marginAtFull = margin(1);
   if (marginAtFull <= 0) {
     return {
@@ -222,7 +230,7 @@ export function batteryLife(supply: CellsSupply, currentAtTerminalV: (terminalV:
         const i = currentAt(sigma).currentA;
         if (!(i > 0)) throw new DomainError('invalid_argument', 'the load draws no current: battery life is unbounded');
         // dt = C·dσ / I_p: the state of charge falls at the Peukert-equivalent rate; the charge delivered is I·dt.
-        const dtS = 0.5 * (x1 - x0) * gaussW[j]! * (capacityC / peukertEquivalentCurrentA(supply, i));
+        const dtS = 0.5 * (x1 - x0) * gaussW[j]! * (capacityC / peukertEquivalentCurrentA(supply, i, rateModel));
         lifeS += dtS;
         deliveredC += i * dtS;
       });

@@ -1,10 +1,11 @@
 import { DomainError } from '../errors';
 import { batteryLife, cellCurveOf, cellMaxContinuousCurrentA, type BatteryLifeResult } from './battery';
 import { blockingOscillatorNumbers, estimateBlockingOscillator } from './blocking-oscillator';
-import type { BlockingOscillatorEstimate } from './blocking-oscillator.types';
+import type { BlockingOscillatorEstimate, OscillatorNumbers } from './blocking-oscillator.types';
 import type { DriverStage } from '../designs/driver-stage.types';
 import type { Estimated } from '../methods';
 import { HIPOT_METHOD, hipotTestVoltageV as hipotTestVoltageOf } from '../safety/hipot';
+import { withLadderLoad } from './load-point';
 import { solveLoadPoint, supplyCurrentNear, type LoadPoint, type WarmStart } from './operating-point';
 import { type LadderLoadLine } from './ladder-load-line';
 import { driverEnergy, type DriverEnergy } from './driver-energy';
@@ -83,6 +84,36 @@ function lowerLimit(
 }
 
 /**
+ * What a supply-current table keeps between calls, per stage, ladder and voltage span: the stage at its clamp
+ * limit at each voltage (none where the stage stops there), which does not depend on the load, and the power
+ * balance last solved at the lowest voltage, which starts the next load's there (the others start from their
+ * neighbours'). A Workbench edit of the load so solves each voltage's balance from a nearby start.
+ */
+interface TableMemory {
+  limits: (OscillatorNumbers | 'stops' | undefined)[];
+  firstBalance: WarmStart | null;
+}
+
+const TABLE_MEMORY = 8;
+const tableMemories = new Map<string, TableMemory>();
+
+function tableMemoryOf(driver: DriverStage, ladder: LadderLoadLine, lowV: number, highV: number): TableMemory {
+  const ladderKey = ladder.key;
+  if (ladderKey === undefined) return { limits: [], firstBalance: null };
+  const key = `${ladderKey}|${JSON.stringify(driver)}|${lowV}|${highV}`;
+  const known = tableMemories.get(key);
+  if (known) {
+    tableMemories.delete(key);
+    tableMemories.set(key, known);
+    return known;
+  }
+  const made: TableMemory = { limits: [], firstBalance: null };
+  tableMemories.set(key, made);
+  if (tableMemories.size > TABLE_MEMORY) tableMemories.delete(tableMemories.keys().next().value as string);
+  return made;
+}
+
+/**
  * Supply current (A) of the driver at the rated load as a function of the supply terminal voltage (V),
  * tabulated on a voltage grid and interpolated linearly (the full solve at each integration point would be slow).
  */
@@ -95,20 +126,37 @@ function supplyCurrentTable(
 ): (v: number) => number {
   const points = 8;
   const table: { v: number; i: number }[] = [];
-  // Each voltage's power balance starts from the line through the last two (the last one after the first);
-  // none after a ladder-limited voltage (a higher supply delivers more, so the next is ladder-limited too,
-  // which the warm start would only try to disprove).
+  const memory = ladder ? tableMemoryOf(driver, ladder, lowV, highV) : null;
+  // Each voltage's power balance starts from the line through the last two (the last one after the first, the
+  // last call's at the first); none after a ladder-limited voltage (a higher supply delivers more, so the next is
+  // ladder-limited too, which the warm start would only try to disprove).
   let last: WarmStart | null = null;
   let beforeLast: WarmStart | null = null;
   for (let k = 0; k < points; k++) {
     const v = lowV + ((highV - lowV) * k) / (points - 1);
     const bench: DriverStage = { ...driver, supply: { kind: 'dc', voltageV: v, sourceResistanceOhm: 0 } };
     const warm: WarmStart | null =
-      last && beforeLast ? { flybackV: 2 * last.flybackV - beforeLast.flybackV, slope: last.slope } : last;
+      k === 0
+        ? (memory?.firstBalance ?? null)
+        : last && beforeLast
+          ? { flybackV: 2 * last.flybackV - beforeLast.flybackV, slope: last.slope }
+          : last;
     let i: number;
     try {
-      if (ladder) {
-        const near = supplyCurrentNear(bench, ladder, loadA, warm);
+      if (ladder && memory) {
+        let limit = memory.limits[k];
+        if (limit === undefined) {
+          try {
+            limit = blockingOscillatorNumbers(bench, withLadderLoad({}, ladder));
+          } catch (error) {
+            if (error instanceof DomainError) memory.limits[k] = 'stops';
+            throw error;
+          }
+          memory.limits[k] = limit;
+        }
+        if (limit === 'stops') throw new DomainError('invalid_design', 'the stage does not run at this supply');
+        const near = supplyCurrentNear(bench, ladder, loadA, warm, limit);
+        if (k === 0) memory.firstBalance = near.balance;
         beforeLast = near.balance ? last : null;
         last = near.balance;
         i = near.supplyCurrentA;

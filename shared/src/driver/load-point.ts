@@ -270,14 +270,16 @@ export function supplyCurrentAt(
 
 /**
  * `supplyCurrentAt` with the power balance warm-started from a nearby solve's (`warm`, from another supply
- * voltage or load), giving its own balance for the next.
+ * voltage or load), giving its own balance for the next; `limit`, the stage at its clamp limit with the ladder's
+ * secondary load (`blockingOscillatorNumbers(driver, withLadderLoad({}, ladder))`), when the caller has it.
  */
 export function supplyCurrentNear(
   driver: DriverStage,
   ladder: LadderLoadLine,
   loadCurrentA: number,
   warm: WarmStart | null,
+  limit?: OscillatorNumbers,
 ): { supplyCurrentA: number; balance: WarmStart | null } {
-  const solved = solvePoint(driver, ladder, loadCurrentA, {}, undefined, undefined, warm);
+  const solved = solvePoint(driver, ladder, loadCurrentA, {}, limit, undefined, warm);
   return { supplyCurrentA: solved.point.supplyCurrentA, balance: solved.balance };
 }

@@ -8,7 +8,7 @@ import type {
 } from './blocking-oscillator.types';
 import { rampChargeC, rampSquareIntegral } from './primary-ramp';
 import { rcdClampLimit, rcdClampPartsOf, rcdClampUnderLoad } from './rcd-clamp';
-import { ringBack, secondaryLoadCapacitanceF, type RingBack } from './ring-back';
+import { ringBackUnder, type RingBack } from './ring-back';
 
 /** Capacitance at the collector node when none is given (F), for the leakage spike and the switching loss. */
 export const DEFAULT_COLLECTOR_NODE_CAPACITANCE_F = 100e-12;
@@ -240,6 +240,11 @@ function turnOffCurrentA(driver: DriverStage, c: StageConstants, sourceV: number
   return turnOffA;
 }
 
+/** The period (s): on-time, flyback at `reflectedV` (V), the ring-back's swing and recovery. */
+function periodAt(c: StageConstants, ramp: OnTimeRamp, reflectedV: number, r: RingBack): number {
+  return ramp.tOn + (c.lp * ramp.ipk) / reflectedV + r.swingS + r.recoveryS;
+}
+
 /**
  * The flyback: the reflected voltage the load (or the clamp, or the breakdown) allows, its duration by the
  * volt-second balance, and the share of the stored energy that reaches the secondary. The leakage share
@@ -259,21 +264,14 @@ function flybackTransfer(
   // The forward pulse: the primary at Vin − Vce,sat in the on-time, at Vin + V_BE while the ring-back recovers.
   const onForwardSecV = (vin - q.vceSatV) * k * turnsRatio;
   const nodeF = options.collectorNodeCapacitanceF ?? collectorNodeCapacitanceOf(driver);
-  const ringAt = (reflectedV: number): RingBack => {
-    const swingV = onForwardSecV + reflectedV * k * turnsRatio;
-    const loadF = options.secondaryLoad ? secondaryLoadCapacitanceF(options.secondaryLoad, swingV) : 0;
-    return ringBack(driver, vin, reflectedV, nodeF, loadF);
-  };
-  const periodAt = (reflectedV: number, r: RingBack): number =>
-    ramp.tOn + (lp * ipk) / reflectedV + r.swingS + r.recoveryS;
   const clamp = driver.clamp;
   const rcd = clamp?.kind === 'rcd' ? rcdClampPartsOf(clamp) : null;
   const leakageJ = 0.5 * (1 - k * k) * lp * ipk * ipk;
   // An RCD clamp's limit: it takes all the stored energy the ring-back does not return (the core's loss aside).
   const rcdLimit = rcd
     ? rcdClampLimit(rcd, k * k, vin, (vr) => {
-        const r = ringAt(vr);
-        const periodS = periodAt(vr, r);
+        const r = ringBackUnder(driver, vin, vr, nodeF, options.secondaryLoad, onForwardSecV + vr * k * turnsRatio);
+        const periodS = periodAt(c, ramp, vr, r);
         return {
           periodS,
           energyJ: 0.5 * lp * (ipk * ipk - r.recoveryStartA ** 2) - (tx.coreLossW ?? 0) * periodS,
@@ -292,10 +290,17 @@ function flybackTransfer(
     );
   const reflectedV = flybackSecV / (k * turnsRatio);
   const tFly = (lp * ipk) / reflectedV;
-  const ring = ringAt(reflectedV);
+  const ring = ringBackUnder(
+    driver,
+    vin,
+    reflectedV,
+    nodeF,
+    options.secondaryLoad,
+    onForwardSecV + reflectedV * k * turnsRatio,
+  );
   const recoveryForwardSecV = (vin + q.vbeOnV) * k * turnsRatio;
   const recoveryChargeC = (0.5 * -ring.recoveryStartA * ring.recoveryS) / turnsRatio;
-  const frequencyHz = 1 / periodAt(reflectedV, ring);
+  const frequencyHz = 1 / periodAt(c, ramp, reflectedV, ring);
   const energyJ = 0.5 * lp * ipk * ipk;
   const iSecPk = ipk / turnsRatio;
   const copperJ = iSecPk * iSecPk * tx.secondaryResistanceOhm * (tFly / 3);

@@ -92,3 +92,16 @@ export function forwardPeakFor(
   const share = forwardChargeC > 0 ? Math.min(1, r.recoveryChargeC / forwardChargeC) : r.recoveryChargeC > 0 ? 1 : 0;
   return r.forwardSecV + (r.recoveryForwardSecV - r.forwardSecV) * share;
 }
+
+/** `ringBack` with the secondary's load (none when absent) swinging by `swingV` (V) across the flyback. */
+export function ringBackUnder(
+  driver: DriverStage,
+  vin: number,
+  reflectedV: number,
+  nodeF: number,
+  secondaryLoad: SecondaryLoad | undefined,
+  swingV: number,
+): RingBack {
+  const loadF = secondaryLoad ? secondaryLoadCapacitanceF(secondaryLoad, swingV) : 0;
+  return ringBack(driver, vin, reflectedV, nodeF, loadF);
+}

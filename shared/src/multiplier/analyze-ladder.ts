@@ -16,7 +16,7 @@ export const STEADY_STATE_METHOD: MethodInfo = {
     'constant load current between conductions; the output falls linearly between charge transfers',
     'diode forward drop: Shockley n·Vt·ln(1 + I/Is) + I·Rs at the mean conduction current, Vt at 300 K unless given',
     'sine drive: source-resistance loss from the peak-rectifier conduction angle, ΔV = (3·Q·ω·R·√Vpk / (4√2))^(2/3) per conduction',
-    'pulse drive: flat tops, so the diodes that conduct at the start of a phase stay conducting through it and share the load (solved per phase); source loss Q·R / phase time',
+    'pulse drive: flat tops, so the diodes that conduct at the start of a phase stay conducting through it and share the load, but for those that would need reverse current, which stop (an active-set solve per phase); source loss Q·R / phase time',
     'full-wave: the two antiphase paths share the charge equally (exact for a symmetric drive and equal columns)',
     'stray capacitance of each node to ground, first order: oscillating-column nodes swing by the drive peak-to-peak and their strays move that charge through the column below (a capacitive divider, a loss even at no load and independent of frequency); the smoothing column’s ripple swing is neglected; diode junction capacitance is not modelled (see the simulator)',
     'reported output is at the load terminal, after the series output resistor; the bleeder sits at the ladder top',

@@ -27,27 +27,53 @@ export interface DischargePhase {
   capacitanceF: number;
 }
 
-/** Solves the symmetric positive definite system `a`·x = b in place (banded elimination without pivoting). */
-function solveBanded(a: number[][], b: number[]): number[] {
-  const n = b.length;
-  let width = 0;
-  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) if (a[i]![j] !== 0) width = Math.max(width, Math.abs(i - j));
+/** Work arrays of one discharge, reused by every solve of its intervals. */
+interface FallWork {
+  parent: Int32Array;
+  unknownOf: Int32Array;
+  index: Int32Array;
+  band: Float64Array;
+  rhs: Float64Array;
+  x: Float64Array;
+}
+
+function fallWorkOf(nodeCount: number): FallWork {
+  return {
+    parent: new Int32Array(nodeCount),
+    unknownOf: new Int32Array(nodeCount),
+    index: new Int32Array(nodeCount),
+    band: new Float64Array(0),
+    rhs: new Float64Array(nodeCount),
+    x: new Float64Array(nodeCount),
+  };
+}
+
+/**
+ * Solves the symmetric positive definite system `a`·x = b in place (banded elimination without pivoting): `a` holds
+ * row i's entries from column i − width to i + width at i·(2·width + 1) + (j − i + width); the solution goes to `x`.
+ */
+function solveBanded(a: Float64Array, b: Float64Array, x: Float64Array, n: number, width: number): void {
+  // Row i's entry in column j sits at i·stride + (j − i + width), so row i's column j is rowI + j.
+  const stride = 2 * width + 1;
   for (let k = 0; k < n; k++) {
-    const pivot = a[k]![k]!;
-    for (let i = k + 1; i <= Math.min(n - 1, k + width); i++) {
-      const factor = a[i]![k]! / pivot;
+    const rowK = k * stride + width - k;
+    const pivot = a[rowK + k]!;
+    const last = Math.min(n - 1, k + width);
+    for (let i = k + 1; i <= last; i++) {
+      const rowI = i * stride + width - i;
+      const factor = a[rowI + k]! / pivot;
       if (factor === 0) continue;
-      for (let j = k; j <= Math.min(n - 1, k + width); j++) a[i]![j]! -= factor * a[k]![j]!;
+      for (let j = k; j <= last; j++) a[rowI + j]! -= factor * a[rowK + j]!;
       b[i]! -= factor * b[k]!;
     }
   }
-  const x = new Array<number>(n).fill(0);
   for (let i = n - 1; i >= 0; i--) {
+    const rowI = i * stride + width - i;
     let sum = b[i]!;
-    for (let j = i + 1; j <= Math.min(n - 1, i + width); j++) sum -= a[i]![j]! * x[j]!;
-    x[i] = sum / a[i]![i]!;
+    const last = Math.min(n - 1, i + width);
+    for (let j = i + 1; j <= last; j++) sum -= a[rowI + j]! * x[j]!;
+    x[i] = sum / a[rowI + i]!;
   }
-  return x;
 }
 
 /**
@@ -56,52 +82,70 @@ function solveBanded(a: number[][], b: number[]): number[] {
  * given to the return node. Nodes joined by conducting diodes form one unknown, numbered by their lowest node so
  * the matrix stays banded along the ladder.
  */
-function fallPerCoulomb(input: CascadeDischargeInput, isConducting: readonly boolean[]): number[] {
-  const parent = Array.from({ length: input.nodeCount }, (_, i) => i);
-  const find = (i: number): number => {
-    while (parent[i] !== i) i = parent[i] = parent[parent[i]!]!;
-    return i;
-  };
-  const join = (a: number, b: number) => {
-    const ra = find(a);
-    const rb = find(b);
-    if (ra !== rb) parent[Math.max(ra, rb)] = Math.min(ra, rb);
-  };
+function fallPerCoulomb(input: CascadeDischargeInput, isConducting: readonly boolean[], work: FallWork): number[] {
+  const { parent, unknownOf } = work;
+  for (let i = 0; i < input.nodeCount; i++) parent[i] = i;
   const [firstAnchor = 0] = input.anchorNodes;
-  for (const anchor of input.anchorNodes) join(anchor, firstAnchor);
-  input.diodes.forEach((diode, d) => {
-    if (isConducting[d]) join(diode.anode, diode.cathode);
-  });
-  const ground = find(firstAnchor);
-  const unknownOf = new Map<number, number>();
-  for (let i = 0; i < input.nodeCount; i++) {
-    const root = find(i);
-    if (root !== ground && !unknownOf.has(root)) unknownOf.set(root, unknownOf.size);
+  for (const anchor of input.anchorNodes) join(parent, anchor, firstAnchor);
+  for (let d = 0; d < input.diodes.length; d++) {
+    if (isConducting[d]) join(parent, input.diodes[d]!.anode, input.diodes[d]!.cathode);
   }
-  const n = unknownOf.size;
-  const index = (node: number): number => unknownOf.get(find(node)) ?? -1;
-  const a = Array.from({ length: n }, () => new Array<number>(n).fill(0));
+  const ground = find(parent, firstAnchor);
+  unknownOf.fill(-1);
+  let n = 0;
+  for (let i = 0; i < input.nodeCount; i++) {
+    const root = find(parent, i);
+    if (root !== ground && unknownOf[root] === -1) unknownOf[root] = n++;
+  }
+  // Each node's unknown (−1 at the anchors).
+  const index = work.index;
+  for (let i = 0; i < input.nodeCount; i++) index[i] = unknownOf[find(parent, i)]!;
+  let width = 0;
   for (const c of input.capacitors) {
-    const top = index(c.top);
-    const bottom = index(c.bottom);
+    const top = index[c.top]!;
+    const bottom = index[c.bottom]!;
+    if (top >= 0 && bottom >= 0 && top !== bottom) width = Math.max(width, Math.abs(top - bottom));
+  }
+  const stride = 2 * width + 1;
+  if (work.band.length < n * stride) work.band = new Float64Array(n * stride);
+  const a = work.band;
+  a.fill(0, 0, n * stride);
+  for (const c of input.capacitors) {
+    const top = index[c.top]!;
+    const bottom = index[c.bottom]!;
     if (top === bottom) continue;
-    if (top >= 0) a[top]![top]! += c.valueF;
-    if (bottom >= 0) a[bottom]![bottom]! += c.valueF;
+    if (top >= 0) a[top * stride + width]! += c.valueF;
+    if (bottom >= 0) a[bottom * stride + width]! += c.valueF;
     if (top >= 0 && bottom >= 0) {
-      a[top]![bottom]! -= c.valueF;
-      a[bottom]![top]! -= c.valueF;
+      a[top * stride + (bottom - top + width)]! -= c.valueF;
+      a[bottom * stride + (top - bottom + width)]! -= c.valueF;
     }
   }
-  const b = new Array<number>(n).fill(0);
-  const out = index(input.outNode);
-  const ret = index(input.returnNode);
+  const b = work.rhs;
+  b.fill(0, 0, n);
+  const out = index[input.outNode]!;
+  const ret = index[input.returnNode]!;
   if (out >= 0) b[out]! += 1;
   if (ret >= 0) b[ret]! -= 1;
-  const x = n > 0 ? solveBanded(a, b) : [];
-  return Array.from({ length: input.nodeCount }, (_, node) => {
-    const k = index(node);
-    return k >= 0 ? x[k]! : 0;
-  });
+  const x = work.x;
+  if (n > 0) solveBanded(a, b, x, n, width);
+  const fall = new Array<number>(input.nodeCount);
+  for (let node = 0; node < input.nodeCount; node++) {
+    const k = index[node]!;
+    fall[node] = k >= 0 ? x[k]! : 0;
+  }
+  return fall;
+}
+
+function find(parent: Int32Array, i: number): number {
+  while (parent[i] !== i) i = parent[i] = parent[parent[i]!]!;
+  return i;
+}
+
+function join(parent: Int32Array, a: number, b: number): void {
+  const ra = find(parent, a);
+  const rb = find(parent, b);
+  if (ra !== rb) parent[Math.max(ra, rb)] = Math.min(ra, rb);
 }
 
 /**
@@ -119,10 +163,11 @@ export function cascadeDischargePhases(input: CascadeDischargeInput): DischargeP
   const isConducting = input.diodes.map(() => false);
   const gap = (d: number) => v[input.diodes[d]!.anode]! - v[input.diodes[d]!.cathode]!;
   const phases: DischargePhase[] = [];
+  const work = fallWorkOf(input.nodeCount);
   const scaleV = Math.max(1e-9, Math.abs(outputV()));
   const edgeV = 1e-9 * scaleV;
   for (let round = 0; round <= input.diodes.length; round++) {
-    let fall = fallPerCoulomb(input, isConducting);
+    let fall = fallPerCoulomb(input, isConducting, work);
     // Diodes at their edge that the next charge drawn would bias forward start to conduct (one at a time: each
     // changes how the others move).
     for (let added = true; added;) {
@@ -131,7 +176,7 @@ export function cascadeDischargePhases(input: CascadeDischargeInput): DischargeP
         const diode = input.diodes[d]!;
         if (isConducting[d] || gap(d) < -edgeV || fall[diode.anode]! >= fall[diode.cathode]!) continue;
         isConducting[d] = true;
-        fall = fallPerCoulomb(input, isConducting);
+        fall = fallPerCoulomb(input, isConducting, work);
         added = true;
       }
     }

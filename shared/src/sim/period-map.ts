@@ -27,8 +27,13 @@ export interface PeriodRecord {
  * along the period through the converged step Jacobians (one extra banded solve per state variable and
  * step; T. J. Aprille and T. N. Trick, Proc. IEEE 60(1), 1972). Each period starts with one backward-Euler
  * step (so the state is the charges alone) and continues with the trapezoidal rule on a fixed grid.
- * The map is evaluated far more tightly than a shooting residual needs (relative 1e-9 inside each step),
- * or a Newton iteration on it chases the inner iteration's noise.
+ * The map is evaluated far more tightly than a shooting residual needs (relative 1e-8 inside each step),
+ * or a Newton iteration on it chases the inner iteration's noise. A step is accepted on the solve after an
+ * update within tolerance, whose own error is of the order of the update squared (Newton with the exact
+ * Jacobian), so the noise left in the map is far below the tolerance itself. The absolute current
+ * tolerance (1e-5 A) bounds SPICE's device test g·Δu of a conducting diode, where g ≈ 1/Rs makes it a
+ * test of Δu to about 1e-5 V; at 1e-9 A it asked a nanovolt of the terminals, one solve more per
+ * conducting step for nothing the charges can show.
  */
 export class PeriodMap {
   readonly size: number;
@@ -67,9 +72,9 @@ export class PeriodMap {
       throw new DomainError('invalid_argument', 'need a positive period and at least 4 steps', 'stepsPerPeriod');
     this.tol = {
       ...DEFAULT_TOLERANCES,
-      relative: 1e-9,
+      relative: 1e-8,
       voltageAbsoluteV: 1e-9,
-      currentAbsoluteA: 1e-9,
+      currentAbsoluteA: 1e-5,
       ...options.tolerances,
     };
     this.looseTol = loosened(this.tol);
@@ -98,7 +103,9 @@ export class PeriodMap {
     const qd0 = this.qd;
     const sq = this.sensitivity;
     const sqd = this.sqd;
-    const w = this.w;
+    const x = sys.x;
+    const hist = sys.hist;
+    const charge = sys.charge;
     q0.set(start);
     qd0.fill(0);
     sys.x.set(this.xStart);
@@ -122,13 +129,13 @@ export class PeriodMap {
     for (let step = 0; step < this.steps; step++) {
       const isEuler = step === 0;
       const a0 = isEuler ? 1 / h : 2 / h;
-      for (let k = 0; k < r; k++) sys.hist[k] = isEuler ? -a0 * q0[k]! : -a0 * q0[k]! - qd0[k]!;
+      for (let k = 0; k < r; k++) hist[k] = isEuler ? -a0 * q0[k]! : -a0 * q0[k]! - qd0[k]!;
       const t1 = (step + 1) * h;
       sys.prepareLinearMatrix(a0, t1);
       sys.prepareStepRhs(t1);
       // Guess: the last run at this step moved by the present run's deviation from it at the step before
       // (runs from nearby states follow nearly the same trajectory).
-      if (isPredicted) for (let i = 0, o = step * width; i < width; i++) sys.x[i] = trajectory[o + i]! + deviation[i]!;
+      if (isPredicted) for (let i = 0, o = step * width; i < width; i++) x[i] = trajectory[o + i]! + deviation[i]!;
       this.guess.set(sys.x);
       let it = solveNewton(sys, a0, this.tol, 100);
       if (it < 0) {
@@ -143,40 +150,17 @@ export class PeriodMap {
         ]);
       this.newtonIterations += it;
       for (let i = 0, o = step * width; i < width; i++) {
-        deviation[i] = sys.x[i]! - trajectory[o + i]!;
-        trajectory[o + i] = sys.x[i]!;
+        deviation[i] = x[i]! - trajectory[o + i]!;
+        trajectory[o + i] = x[i]!;
       }
       sys.evaluateLinearCharges();
-      if (withSensitivity) {
-        // Jacobian at the converged point, then ∂x1/∂q0 column by column.
-        sys.load(a0);
-        sys.lu.factor();
-        for (let j = 0; j < r; j++) {
-          w.fill(0);
-          for (let k = 0; k < r; k++) {
-            const dHist = isEuler ? -a0 * sq[j * r + k]! : -a0 * sq[j * r + k]! - sqd[j * r + k]!;
-            sqd[j * r + k] = dHist; // keep dHist until the new charge sensitivity is known
-            w[sys.reactiveRowA[k]!]! -= dHist;
-            w[sys.reactiveRowB[k]!]! += dHist;
-          }
-          w[sys.size] = 0;
-          sys.lu.solve(w);
-          w[sys.size] = 0;
-          for (let k = 0; k < r; k++) {
-            let dq = 0;
-            for (let p = sys.gradientStart[k]!; p < sys.gradientStart[k + 1]!; p++)
-              dq += sys.gradientValue[p]! * w[sys.gradientIndex[p]!]!;
-            sq[j * r + k] = dq;
-            sqd[j * r + k] = a0 * dq + sqd[j * r + k]!;
-          }
-        }
-      }
+      if (withSensitivity) this.propagateSensitivity(a0, isEuler);
       for (let k = 0; k < r; k++) {
-        const q1 = sys.charge[k]!;
-        qd0[k] = a0 * q1 + sys.hist[k]!;
+        const q1 = charge[k]!;
+        qd0[k] = a0 * q1 + hist[k]!;
         q0[k] = q1;
       }
-      if (this.meanProbe >= 0) probeSum += sys.x[this.meanProbe]!;
+      if (this.meanProbe >= 0) probeSum += x[this.meanProbe]!;
       // x at the period's end is a fine guess for the next period's first step.
       if (step === this.steps - 1) this.xStart.set(sys.x);
       if (record) {
@@ -186,6 +170,45 @@ export class PeriodMap {
     }
     this.probeMean = probeSum / this.steps;
     this.hasTrajectory = true;
+  }
+
+  /**
+   * One step of the sensitivity: the Jacobian at the converged point, then ∂x1/∂q0 column by column (one
+   * banded solve each) and from it the charges' sensitivity, in place of the last step's.
+   */
+  private propagateSensitivity(a0: number, isEuler: boolean): void {
+    const sys = this.system;
+    const r = this.size;
+    const sq = this.sensitivity;
+    const sqd = this.sqd;
+    const w = this.w;
+    const size = sys.size;
+    const rowA = sys.reactiveRowA;
+    const rowB = sys.reactiveRowB;
+    const start = sys.gradientStart;
+    const index = sys.gradientIndex;
+    const value = sys.gradientValue;
+    const lu = sys.lu;
+    sys.load(a0);
+    lu.factor();
+    for (let j = 0, col = 0; j < r; j++, col += r) {
+      w.fill(0);
+      for (let k = 0; k < r; k++) {
+        const dHist = isEuler ? -a0 * sq[col + k]! : -a0 * sq[col + k]! - sqd[col + k]!;
+        sqd[col + k] = dHist; // keep dHist until the new charge sensitivity is known
+        w[rowA[k]!]! -= dHist;
+        w[rowB[k]!]! += dHist;
+      }
+      w[size] = 0;
+      lu.solve(w);
+      w[size] = 0;
+      for (let k = 0; k < r; k++) {
+        let dq = 0;
+        for (let p = start[k]!, end = start[k + 1]!; p < end; p++) dq += value[p]! * w[index[p]!]!;
+        sq[col + k] = dq;
+        sqd[col + k] = a0 * dq + sqd[col + k]!;
+      }
+    }
   }
 }
 

@@ -40,7 +40,14 @@ const LAST_U = 12; // terminal voltage at the last load
 const PREDICTED_V = 13; // junction voltage the next load linearizes at, when HAS_PREDICTION is 1
 const HAS_PREDICTION = 14;
 const STALE = 15; // 1 after a state restore: LAST_I, LAST_U and LAST_GJ do not belong to LAST_V
-const RECORD = 16;
+const INV_VTE = 16; // 1/(n·Vt): the hot loop multiplies, a division costs several multiplications
+const IS_INV_VTE = 17; // Is/(n·Vt)
+const RECORD = 18;
+/**
+ * Share of SPICE's device tolerance (reltol·|I| + abstol) by which the current of a converged diode's
+ * linearization may miss its curve at the solution (the residual test of isConverged).
+ */
+const RESIDUAL_FRACTION = 0.1;
 // Per-diode indices in FoldedDiodes.q: anode, cathode, band offsets of (a, a), (a, c), (c, a), (c, c).
 const INDICES = 6;
 
@@ -69,6 +76,8 @@ export class FoldedDiodes {
       const p = this.p;
       p[r + IS] = m.saturationCurrentA;
       p[r + VTE] = vte;
+      p[r + INV_VTE] = 1 / vte;
+      p[r + IS_INV_VTE] = m.saturationCurrentA / vte;
       p[r + VCRIT] = criticalVoltageV(m.saturationCurrentA, vte);
       p[r + RS] = rs;
       p[r + LEAK_ONLY] = leakOnly ? 1 : 0;
@@ -103,9 +112,9 @@ export class FoldedDiodes {
         const vte = p[r + VTE]!;
         const is = p[r + IS]!;
         if (v >= -3 * vte) {
-          const e = Math.exp(v / vte);
+          const e = Math.exp(v * p[r + INV_VTE]!);
           i = is * (e - 1) + gminS * v;
-          gj = (is * e) / vte + gminS;
+          gj = p[r + IS_INV_VTE]! * e + gminS;
         } else {
           const arg = (3 * vte) / (v * Math.E);
           const arg3 = arg * arg * arg;
@@ -156,11 +165,15 @@ export class FoldedDiodes {
             let isSolved = false;
             if (p[r + LEAK_ONLY] === 1 && !isStale) {
               const tolerance = 1e-12 * (1 + Math.abs(u));
+              const invVte = p[r + INV_VTE]!;
+              const isInvVte = p[r + IS_INV_VTE]!;
+              const wMin = -3 * vte;
+              const wMax = u > 0 ? u : 0;
               let w = guess;
-              for (let it = 0; it < 4 && w >= -3 * vte && w <= Math.max(u, 0); it++) {
-                const e = Math.exp(w / vte);
+              for (let it = 0; it < 4 && w >= wMin && w <= wMax; it++) {
+                const e = Math.exp(w * invVte);
                 const iw = is * (e - 1) + gminS * w;
-                const gw = (is * e) / vte + gminS;
+                const gw = isInvVte * e + gminS;
                 const residual = w + rs * iw - u;
                 if (!(Math.abs(residual) < Infinity)) break;
                 if (Math.abs(residual) <= tolerance) {
@@ -174,15 +187,15 @@ export class FoldedDiodes {
                 // A short step (|x| < 1e-3, x = dw/(n·Vt)) leaves the residual Rs·Is·e^(w/nVt)·(e^x − 1 − x);
                 // when that is within tolerance the point w + dw is the answer, its exponential the series of
                 // e^x to x⁴ (truncation below 1e-17 relative): one exp per converged junction, not two.
-                const xs = dw / vte;
+                const xs = dw * invVte;
                 if (xs < 1e-3 && xs > -1e-3) {
                   const rest = xs * xs * (0.5 + xs * (1 / 6 + xs / 24));
                   const vs = w + dw;
-                  if (rs * is * e * rest <= tolerance && vs >= -3 * vte && vs <= Math.max(u, 0)) {
+                  if (rs * is * e * rest <= tolerance && vs >= wMin && vs <= wMax) {
                     const es = e * (1 + xs + rest);
                     v = vs;
                     i = is * (es - 1) + gminS * vs;
-                    gj = (is * es) / vte + gminS;
+                    gj = isInvVte * es + gminS;
                     isSolved = true;
                     break;
                   }
@@ -215,7 +228,12 @@ export class FoldedDiodes {
     }
   }
 
-  /** SPICE's device test on every diode: the linearized current change to solution x is within tolerance. */
+  /**
+   * Device test on every diode: SPICE's (the linearized current change to solution x is within tolerance),
+   * or a residual test: the linearization's current at x is within RESIDUAL_FRACTION of that tolerance of
+   * the diode's own curve, so x solves the diode's equation although Newton's step to it was larger. A
+   * charging ladder's conducting diodes pass the second one iteration earlier.
+   */
   isConverged(x: Float64Array, relative: number, absoluteA: number): boolean {
     const p = this.p;
     const q = this.q;
@@ -226,8 +244,24 @@ export class FoldedDiodes {
       // A junction that stays below −3·n·Vt without breakdown is a near-linear leak.
       if (lastV < knee && lastV + du < knee && p[r + LEAK_ONLY] === 1) continue;
       const lastI = p[r + LAST_I]!;
-      const change = p[r + LAST_G]! * du;
-      if (Math.abs(change) > relative * Math.max(Math.abs(lastI + change), Math.abs(lastI)) + absoluteA) return false;
+      const g = p[r + LAST_G]!;
+      const change = g * du;
+      const tolerance = relative * Math.max(Math.abs(lastI + change), Math.abs(lastI)) + absoluteA;
+      if (Math.abs(change) <= tolerance) continue;
+      // The step is larger, but x may still solve the diode's equation: the tangent's error there is
+      // ½·I″·du² with I″ = g·(1 − Rs·g)²/(n·Vt) on the exponential (dv = (1 − Rs·g)·du is the junction's
+      // move). Within RESIDUAL_FRACTION of the tolerance, and for a junction move below a tenth of n·Vt
+      // (where the second-order term is the error to within ten per cent), x is converged.
+      if (p[r + LEAK_ONLY] === 1 && lastV >= knee) {
+        const dv = (1 - p[r + RS]! * g) * du;
+        if (
+          dv < 0.1 * p[r + VTE]! &&
+          dv > -0.1 * p[r + VTE]! &&
+          0.5 * g * dv * dv * p[r + INV_VTE]! <= RESIDUAL_FRACTION * tolerance
+        )
+          continue;
+      }
+      return false;
     }
     return true;
   }

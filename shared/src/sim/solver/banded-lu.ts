@@ -100,6 +100,18 @@ export class BandedLu {
           }
           ju = Math.min(j + ku, n - 1);
           if (ju - j > extent) extent = ju - j;
+          if (ju === j + 2) {
+            // Two super-diagonals as well (the ladder's own band): both column updates unrolled.
+            const p1 = colJ + stride;
+            const p2 = p1 + stride;
+            const f1 = a[p1]!;
+            const f2 = a[p2]!;
+            a[p1 + 1]! -= l1 * f1;
+            a[p1 + 2]! -= l2 * f1;
+            a[p2 + 1]! -= l1 * f2;
+            a[p2 + 2]! -= l2 * f2;
+            continue;
+          }
           for (let c = j + 1, p = colJ + stride; c <= ju; c++, p += stride) {
             const f = a[p]!;
             if (f !== 0) {

@@ -1,19 +1,12 @@
 import { Stack, Table, Text } from '@mantine/core';
-import type { Calibration } from '@ladderwright/shared/api';
+import { fittedParameterText, type Calibration } from '@ladderwright/shared/api';
 import { formatDateTime } from '../../../lib/format-date';
 import { useCalibrations } from '../api/get-calibrations';
-import { formatParameterValue } from './calibration-result';
 
 function fittedText(calibration: Calibration): string {
   if (calibration.status !== 'succeeded' || !calibration.result) return calibration.status;
-  return calibration.result.parameters
-    .map((parameter) => {
-      const interval = parameter.interval
-        ? ` (${formatParameterValue(parameter.interval.low, parameter.unit)} to ${formatParameterValue(parameter.interval.high, parameter.unit)})`
-        : ' (not identifiable)';
-      return `${parameter.label} ${formatParameterValue(parameter.value, parameter.unit)}${interval}`;
-    })
-    .join('; ');
+  const confidencePct = (calibration.result.confidence * 100).toFixed(0);
+  return `${calibration.result.parameters.map(fittedParameterText).join('; ')} (${confidencePct} % intervals)`;
 }
 
 /** The calibrations of a revision, newest first: when, against which runs, what was fitted, any warning. */

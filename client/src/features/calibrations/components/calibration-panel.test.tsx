@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { priorInputScale } from './calibration-panel';
-import { calibrationCurveRows, formatParameterValue } from './calibration-result';
+import { formatParameterValue } from '@ladderwright/shared/api';
+import { calibrationCurveRows } from './calibration-result';
 
 describe('priorInputScale', () => {
   // SI prefixes (BIPM, The International System of Units, 9th ed., Table 7; common practice).

@@ -12,7 +12,7 @@ import {
   Title,
 } from '@mantine/core';
 import { useState } from 'react';
-import type { CalibrationParameterOption } from '@ladderwright/shared/api';
+import { formatParameterValue, type CalibrationParameterOption } from '@ladderwright/shared/api';
 import type { BenchKind } from '@ladderwright/shared/bench';
 import type { CalibrationDataUse, CalibrationParameterId, PriorRange } from '@ladderwright/shared/calibration';
 import { formatDateTime } from '../../../lib/format-date';
@@ -23,7 +23,7 @@ import { useCalibrationParameters } from '../api/get-calibration-parameters';
 import { useCalibrations } from '../api/get-calibrations';
 import { useStartCalibratedRevision } from '../api/start-calibrated-revision';
 import { useStartCalibration } from '../api/start-calibration';
-import { CalibrationResultView, formatParameterValue } from './calibration-result';
+import { CalibrationResultView } from './calibration-result';
 
 /** A bench run the panel may fit (the route passes the revision's runs). */
 export interface CalibrationRunChoice {

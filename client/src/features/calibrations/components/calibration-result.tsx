@@ -1,21 +1,8 @@
 import { Alert, Stack, Table, Text } from '@mantine/core';
-import type { CalibrationCurve, CalibrationResult, FittedParameter } from '@ladderwright/shared/calibration';
-import { formatQuantity, type QuantityUnit } from '@ladderwright/shared/units';
+import { formatParameterValue, intervalMethodWords, intervalRangeText } from '@ladderwright/shared/api';
+import type { CalibrationCurve, CalibrationResult } from '@ladderwright/shared/calibration';
+import { formatQuantity } from '@ladderwright/shared/units';
 import { chartColors, QuantityChart } from '../../../components/quantity-chart';
-
-const UNIT_OF: Record<string, QuantityUnit> = { Ω: 'Ohm', A: 'A', F: 'F' };
-
-/** A parameter value in its unit with SI prefixes, or as a plain number (coupling, gain, a share). */
-export function formatParameterValue(value: number, unit: string): string {
-  const quantityUnit = UNIT_OF[unit];
-  return quantityUnit ? formatQuantity(value, quantityUnit) : value.toPrecision(4);
-}
-
-function intervalText(parameter: FittedParameter): string {
-  if (!parameter.interval) return 'not identifiable';
-  const { low, high } = parameter.interval;
-  return `${formatParameterValue(low, parameter.unit)} to ${formatParameterValue(high, parameter.unit)}`;
-}
 
 const USE_WORDS: Record<CalibrationCurve['use'], string> = {
   'load-sweep': 'load sweep',
@@ -87,6 +74,7 @@ export function CalibrationResultView({ result }: { result: CalibrationResult })
             <Table.Th ta="right">Design value</Table.Th>
             <Table.Th ta="right">Fitted</Table.Th>
             <Table.Th ta="right">{confidencePct} % interval</Table.Th>
+            <Table.Th>Interval from</Table.Th>
             <Table.Th ta="right">Prior range</Table.Th>
           </Table.Tr>
         </Table.Thead>
@@ -99,7 +87,8 @@ export function CalibrationResultView({ result }: { result: CalibrationResult })
                 {formatParameterValue(parameter.value, parameter.unit)}
                 {parameter.isAtBound ? ' (at a bound)' : ''}
               </Table.Td>
-              <Table.Td ta="right">{intervalText(parameter)}</Table.Td>
+              <Table.Td ta="right">{intervalRangeText(parameter)}</Table.Td>
+              <Table.Td>{parameter.interval ? intervalMethodWords(parameter) : '—'}</Table.Td>
               <Table.Td ta="right">
                 {formatParameterValue(parameter.prior.min, parameter.unit)} to{' '}
                 {formatParameterValue(parameter.prior.max, parameter.unit)}
@@ -163,7 +152,8 @@ export function CalibrationResultView({ result }: { result: CalibrationResult })
       )}
       <Text size="xs" c="dimmed">
         {result.iterations} steps, {result.evaluations} model runs, {result.degreesOfFreedom} degrees of freedom.
-        Intervals are linearized (Jacobian, Student t).
+        Intervals: Jacobian, linearized is ±t·se at the optimum; profile likelihood is read from the cost refitted with
+        the parameter held (waveform fits).
       </Text>
       {result.curves.map((curve) => (
         <CurveOverlay key={curve.benchRunId} curve={curve} />
