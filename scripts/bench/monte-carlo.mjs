@@ -3,8 +3,10 @@
 // members are what a Monte Carlo batch queues (`monteCarloDesigns`), run by the worker entry every app instance
 // runs (server/dist/simulations/simulation.worker.js); the queue and the database are left out, so the figure is
 // the pool's scaling alone (on several instances each instance's pool adds its threads the same way).
+// A member costs some 7 to 10 s of one core (warm steady state two thirds, the 2 ms cold start one third), so 64
+// members take about 10 min with 1 worker and 5 min with 2 on a quiet 2-core machine; run it alone on the machine.
 //   node scripts/bench/monte-carlo.mjs [--trials 64] [--workers 1,2,4] [--startup-window-s 0.002]
-import { availableParallelism } from 'node:os';
+import { availableParallelism, loadavg } from 'node:os';
 import path from 'node:path';
 import { MessageChannel } from 'node:worker_threads';
 import { createRequire } from 'node:module';
@@ -71,16 +73,26 @@ async function main() {
     const result = await runAll(members, threads);
     results.set(threads, result);
     console.log(
-      `${threads} worker(s): ${result.seconds.toFixed(1)} s${result.failed ? `, ${result.failed} failed` : ''}`,
+      `${threads} worker(s): ${result.seconds.toFixed(1)} s wall${result.failed ? `, ${result.failed} failed` : ''}, ` +
+        `load average ${loadavg()[0].toFixed(1)}`,
     );
   }
-  const reference = results.get(workerCounts[0]);
+  const [referenceThreads] = workerCounts;
+  const reference = results.get(referenceThreads);
   console.log('');
   for (const threads of workerCounts.slice(1)) {
-    const speedUp = reference.seconds / results.get(threads).seconds;
-    const target = threads === 2 ? ' (target >= 1.8)' : threads === 4 ? ' (target >= 3.5 on 4 cores)' : '';
+    const result = results.get(threads);
+    const speedUp = reference.seconds / result.seconds;
+    const target =
+      threads === 2
+        ? ' (target >= 1.8)'
+        : threads === 4
+          ? ` (target >= 3.5 on 4 cores; this machine has ${availableParallelism()})`
+          : '';
     console.log(
-      `Monte Carlo of ${trials} full driver simulations, ${threads} workers: ${speedUp.toFixed(2)}x of 1 worker${target}`,
+      `Monte Carlo of ${trials} full driver simulations, ${threads} workers: ${result.seconds.toFixed(1)} s wall ` +
+        `against ${reference.seconds.toFixed(1)} s with ${referenceThreads} worker${referenceThreads === 1 ? '' : 's'}, ${speedUp.toFixed(2)}x${target}` +
+        (result.failed || reference.failed ? `, ${result.failed + reference.failed} failed` : ''),
     );
   }
 }

@@ -56,5 +56,14 @@ export async function ensureDebianPackages(wanted) {
  * the request thread keeps alive, some 45 MiB), V8 then lets the heap grow to about 1.4 times what was alive after
  * the last full collection rather than up to 4 times, so the garbage of a busy spell (requests in flight outlive a
  * young collection and are promoted) is collected at some 60 MiB of heap rather than piling up past 100 MiB.
+ * Garbage collection runs on the collecting thread alone (`--single-threaded-gc`), not on V8's helper threads: under
+ * load every core is taken (request thread, engine threads, the database, the clients), a helper waits for a core,
+ * and the request thread waited for it in its pauses (young collections, freeing dead ArrayBuffers such as an
+ * evaluate answer's bytes, the end of a full collection). Traced under driver evaluates at full load
+ * (`--trace-gc-nvp`, two 5 s rounds each, load average 11 to 12): the request thread's pauses over 5 ms were 19 and
+ * 24 (278 and 393 ms in all, longest 65 and 72 ms) with helpers, 6 and 14 (84 and 333 ms) with only young collections
+ * and ArrayBuffer freeing on the thread itself, 9 and 7 (136 and 49 ms, longest 54 and 12 ms) with all of it there.
+ * It also keeps an engine thread's collections on that thread, at its niceness, rather than on helpers at the
+ * request thread's.
  */
-export const SERVER_NODE_FLAGS = ['--max-semi-space-size=2', '--max-old-space-size=512'];
+export const SERVER_NODE_FLAGS = ['--max-semi-space-size=2', '--max-old-space-size=512', '--single-threaded-gc'];

@@ -30,5 +30,5 @@ export interface EngineTaskFailure {
 
 export type EngineTaskOutcome = { ok: true; report: unknown } | { ok: false; error: EngineTaskFailure };
 
-/** Name of the task function the worker entry exports. */
-export const ENGINE_TASK_NAME = 'runEngineTask';
+/** Name of the task function the worker entry exports for the pool (`engineTaskEntry`). */
+export const ENGINE_TASK_NAME = 'engineTaskEntry';
