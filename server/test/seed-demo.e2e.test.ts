@@ -46,4 +46,26 @@ describe('demo seed', () => {
     const fieldProjects = await http().get('/api/projects').set('Cookie', field);
     expect(fieldProjects.body.map((p: { name: string }) => p.name)).toEqual(['Handheld surface-charge tester']);
   });
+
+  it('records the Sign-off steps of each seeded state: the reviewer may decide the submitted one', async () => {
+    const reviewer = await signIn(testApp, 'reviewer@northfold.test', DEMO_PASSWORD);
+    const projects = await http().get('/api/projects').set('Cookie', reviewer);
+    const signOffOf = async (projectName: string) => {
+      const project = projects.body.find((p: { name: string }) => p.name === projectName) as { id: string };
+      const designs = await http().get(`/api/projects/${project.id}/designs`).set('Cookie', reviewer);
+      const design = designs.body.items[0] as { id: string; latestRevisionNumber: number };
+      const path = `/api/projects/${project.id}/designs/${design.id}/revisions/${design.latestRevisionNumber}/sign-off`;
+      return (await http().get(path).set('Cookie', reviewer)).body;
+    };
+    const submitted = await signOffOf('Detector tube bias');
+    expect(submitted.state).toBe('submitted');
+    expect(submitted.reviewers.map((person: { email: string }) => person.email)).toEqual(['reviewer@northfold.test']);
+    expect(submitted.availableCommands).toEqual(expect.arrayContaining(['approve', 'return']));
+    const approved = await signOffOf('Handheld surface-charge tester');
+    expect(approved.approvals.map((entry: { displayName: string }) => entry.displayName)).toEqual([
+      'Northfold Reviewer',
+    ]);
+    const released = await signOffOf('Range-hood precipitator cell');
+    expect(released.history.map((step: { command: string }) => step.command)).toEqual(['submit', 'approve', 'release']);
+  });
 });

@@ -16,7 +16,10 @@ export class AnalysisController {
 
   @Post('analysis/evaluate')
   @HttpCode(200)
-  @ApiOkResponse({ description: "The engine's report for the document, with the engine version." })
+  @ApiOkResponse({
+    description:
+      "The engine's report for the document, with the engine version. Each check names its rule by `ruleKey`, the texts once in `report.checkRules`.",
+  })
   @ApiBadRequestResponse({ description: 'The document is not valid; `issues[]` names every field, under `document.`.' })
   async evaluate(@Body() body: EvaluateDesignDto, @Res() response: Response): Promise<void> {
     sendJsonBytes(response, await this.analysis.evaluateJsonBytes(body.document, 'document'));

@@ -24,7 +24,7 @@ export class ProjectAnalysisController {
   @AllowedWhenArchived()
   @ApiOkResponse({
     description:
-      "The engine's report with the shelf's ratings filled in by partCode; unknown codes in `report.partIssues`.",
+      "The engine's report with the shelf's ratings filled in by partCode; unknown codes in `report.partIssues`. Each check names its rule by `ruleKey`, the texts once in `report.checkRules`.",
   })
   @ApiBadRequestResponse({ description: 'The document is not valid; `issues[]` names every field, under `document.`.' })
   async evaluate(

@@ -76,6 +76,13 @@ describe('headlineSource', () => {
     expect(efficiency.difference).toBeCloseTo(-0.1, 9);
     expect(efficiency.exceedsTolerance).toBe(true);
     expect(efficiency.text).toMatch(/, 10 points below the simulation \(the estimate states no tolerance for it\)$/);
+
+    const onePoint = headlineSource(
+      report,
+      simulated({ efficiency: estimated + 0.01 }),
+      tester.targets,
+    ).differences.find((entry) => entry.key === 'efficiency')!;
+    expect(onePoint.text).toMatch(/, 1 point below the simulation /);
   });
 
   it('says beside the frequency when the simulated oscillation is irregular, and not otherwise', () => {

@@ -18,6 +18,13 @@ import {
  * mean within 0.5 %, ripple within 5 %); the driver estimate states its own (ESTIMATE_VALIDITY_BOUNDS).
  */
 export const LADDER_ESTIMATE_TOLERANCE = { output: 0.005, ripple: 0.05 } as const;
+
+/** A difference of two fractions in whole percentage points: "1 point", "10 points". */
+function percentagePoints(fraction: number): string {
+  const points = (Math.abs(fraction) * 100).toFixed(0);
+  return `${points} ${points === '1' ? 'point' : 'points'}`;
+}
+
 /** Where the estimate states no tolerance, a difference beyond this is still called out. */
 const UNSTATED_TOLERANCE = 0.02;
 
@@ -43,9 +50,9 @@ function difference(
       ? `${(estimate * 100).toFixed(0)} %`
       : formatQuantity(estimate, key === 'frequency' ? 'Hz' : key === 'discharge' ? 's' : 'V');
   const direction = isPoints
-    ? `${(Math.abs(delta) * 100).toFixed(0)} points ${delta < 0 ? 'below' : 'above'} the simulation`
+    ? `${percentagePoints(delta)} ${delta < 0 ? 'below' : 'above'} the simulation`
     : `${percent(delta)} % ${delta < 0 ? 'below' : 'above'} the simulation`;
-  const tolerated = isPoints ? `${((tolerance ?? 0) * 100).toFixed(0)} points` : `${percent(tolerance ?? 0)} %`;
+  const tolerated = isPoints ? percentagePoints(tolerance ?? 0) : `${percent(tolerance ?? 0)} %`;
   const stated =
     tolerance === null
       ? 'the estimate states no tolerance for it'

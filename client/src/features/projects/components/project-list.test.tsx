@@ -63,7 +63,8 @@ describe('ProjectList', () => {
     expect(screen.getByText('No projects of yours')).toBeInTheDocument();
     expect(screen.getByRole('link', { name: 'Accounts' })).toHaveAttribute('href', '/admin/accounts');
     expect(screen.getByRole('link', { name: 'Audit log' })).toHaveAttribute('href', '/admin/audit-log');
-    expect(screen.getByRole('link', { name: 'Outbox' })).toHaveAttribute('href', '/outbox');
+    // The Outbox has its link in the header; a second one here would make two of that name on the page.
+    expect(screen.queryByRole('link', { name: 'Outbox' })).not.toBeInTheDocument();
     expect(screen.queryByText(/A lead can add you/)).not.toBeInTheDocument();
   });
 });

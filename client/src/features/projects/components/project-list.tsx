@@ -21,7 +21,7 @@ export function ProjectList({ projects, accountRole }: ProjectListProps) {
     return (
       <EmptyState
         title="No projects of yours"
-        description="Projects show only to their members; an admin account sees one once a project’s lead adds it. The team’s accounts, the audit log and the captured mail are yours:"
+        description="Projects show only to their members; an admin account sees one once a project’s lead adds it. The team’s accounts and the audit log are yours, and the Outbox above holds the captured mail."
       >
         <EmptyState.Actions>
           <Button component={Link} to={paths.accounts.getHref()} variant="light">
@@ -29,9 +29,6 @@ export function ProjectList({ projects, accountRole }: ProjectListProps) {
           </Button>
           <Button component={Link} to={paths.auditLog.getHref()} variant="default">
             Audit log
-          </Button>
-          <Button component={Link} to={paths.outbox.getHref()} variant="default">
-            Outbox
           </Button>
         </EmptyState.Actions>
       </EmptyState>

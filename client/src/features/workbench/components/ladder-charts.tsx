@@ -16,7 +16,7 @@ function roundUpToSeries(value: number): number {
 }
 
 /**
- * The load-current range that shows the operating load clear of the y-axis (at a third of the width or more), or
+ * The load-current range that shows the operating load clear of the y-axis (a fifth to a third of the way across), or
  * undefined when the whole curve already does. Supplies of this kind run far below their short-circuit current, so
  * drawn to its end the load would sit on the axis.
  */
