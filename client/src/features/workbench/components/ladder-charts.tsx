@@ -130,7 +130,7 @@ export function LadderCharts({ report }: LadderChartsProps) {
           },
           {
             key: 'design',
-            label: `this design ${report.analysis.stageCount} stages`,
+            label: designStagesLabel(report.analysis.stageCount, report.analysis.cellCount),
             x: report.analysis.stageCount,
             color: designColor,
           },
@@ -138,4 +138,10 @@ export function LadderCharts({ report }: LadderChartsProps) {
       />
     </SimpleGrid>
   );
+}
+
+/** A ladder of an odd cell count (a tripler) has a half stage: name its cells too, so "1.5 stages" reads plainly. */
+function designStagesLabel(stageCount: number, cellCount: number): string {
+  const stages = `this design ${stageCount} ${stageCount === 1 ? 'stage' : 'stages'}`;
+  return Number.isInteger(stageCount) ? stages : `${stages} (${cellCount} cells)`;
 }
