@@ -158,3 +158,34 @@ describe('ladderCurves stage scan kept between calls', () => {
     }
   });
 });
+
+describe('ladderCurves stage scan after capacitor edits', () => {
+  it('scans edited capacitors on taken-over networks as freshly prepared networks do', () => {
+    // More edits than the scan remembers, so later scans take over earlier ones' networks; unequal values
+    // change the flat-top rates, and one edit makes a capacitor ten times larger.
+    const pulse: LadderInput = {
+      ...cascade,
+      capacitorsF: [2.2e-9, 3.3e-9, 2.2e-9, 3.3e-9],
+      drive: {
+        kind: 'pulse',
+        forwardPeakV: 200,
+        flybackPeakV: 1500,
+        frequencyHz: 3e4,
+        dutyCycle: 0.8,
+        sourceResistanceOhm: 60,
+      },
+      load: { kind: 'current', currentA: 2e-6 },
+    };
+    for (let edit = 0; edit < 12; edit += 1) {
+      const capacitorsF = pulse.capacitorsF.map((f, c) =>
+        c === edit % 4 ? f * (edit === 7 ? 10 : 1 + 0.05 * edit) : f,
+      );
+      const edited: LadderInput = { ...pulse, capacitorsF };
+      const scan = ladderCurves(edited).outputVsStages;
+      expect(scan.length).toBeGreaterThan(5);
+      for (const { x, y } of scan) {
+        expect(y).toBe(terminalMeanAt(prepareLadder({ ...edited, capacitorsF: resizeCapacitors(edited, x) }), 0));
+      }
+    }
+  });
+});

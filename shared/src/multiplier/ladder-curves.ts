@@ -1,5 +1,5 @@
 import { checkLadderInput, prepareLadder, terminalMeanAt, type PreparedLadder } from './analyze-ladder';
-import { driveTiming } from './charge-transfer-model';
+import { driveTiming, refreshCapacitors } from './charge-transfer-model';
 import { bracketedRoot } from './bracketed-root';
 import type { CurvePoint, LadderCurves, LadderInput } from './ladder.types';
 import type { MethodInfo } from '../methods';
@@ -58,12 +58,17 @@ function shortCircuitCurrentOf(prepared: PreparedLadder): number {
  * The stage scan's networks of the last few ladders scanned, per stage count: a Workbench edit of anything but
  * the capacitors, topology, strays, temperature, polarity or drive kind scans the same networks again, so
  * their workspaces (structure, charge and stray deltas, flat-top rates) are kept and only the drive timing and
- * the diode (all a workspace takes from the rest of the input) are set anew.
+ * the diode (all a workspace takes from the rest of the input) are set anew. An edit of the capacitors takes
+ * the least recently scanned ladder's networks when their key is the same and refreshes each one's capacitor
+ * figures in place as the scan reaches it (a network of a stage count has the same structure whatever the
+ * values), instead of building them anew.
  */
 interface ScanNetworks {
   key: string;
   capacitorsF: readonly number[];
   byStages: Map<number, PreparedLadder>;
+  /** The stage counts whose networks hold these capacitors (the others were taken over and still hold the last). */
+  isCurrent: Set<number>;
 }
 
 const SCAN_MEMORY = 8;
@@ -76,24 +81,39 @@ function scanNetworksOf(input: LadderInput): ScanNetworks {
     (scan) =>
       scan.key === key && scan.capacitorsF.length === caps.length && scan.capacitorsF.every((f, i) => f === caps[i]),
   );
-  const scan =
-    found >= 0 ? (scans.splice(found, 1)[0] as ScanNetworks) : { key, capacitorsF: [...caps], byStages: new Map() };
+  let scan: ScanNetworks;
+  if (found >= 0) scan = scans.splice(found, 1)[0] as ScanNetworks;
+  else {
+    const oldest = scans.length >= SCAN_MEMORY ? (scans.pop() as ScanNetworks) : null;
+    const byStages = oldest?.key === key ? oldest.byStages : new Map<number, PreparedLadder>();
+    scan = { key, capacitorsF: [...caps], byStages, isCurrent: new Set() };
+  }
   scans.unshift(scan);
   if (scans.length > SCAN_MEMORY) scans.pop();
   return scan;
 }
 
-/** The ladder of `stages` stages of the scan, at the input's drive, diode and load. */
+/** The ladder of `stages` stages of the scan, at the input's capacitors, drive, diode and load. */
 function scanLadder(scan: ScanNetworks, input: LadderInput, stages: number): PreparedLadder {
   const known = scan.byStages.get(stages);
   if (!known) {
     const prepared = prepareLadder({ ...input, capacitorsF: resizeCapacitors(input, stages) });
     scan.byStages.set(stages, prepared);
+    scan.isCurrent.add(stages);
     return prepared;
   }
   // The same checks of the drive and diode as a fresh preparation makes.
   checkLadderInput(input);
-  const redriven = { ...input, capacitorsF: known.input.capacitorsF };
+  let capacitorsF = known.input.capacitorsF;
+  if (!scan.isCurrent.has(stages)) {
+    const resized = resizeCapacitors(input, stages);
+    if (!resized.every((f, c) => f === capacitorsF[c])) {
+      refreshCapacitors(known.workspace, resized, input.strayCapacitanceF ?? 0);
+    }
+    capacitorsF = resized;
+    scan.isCurrent.add(stages);
+  }
+  const redriven = { ...input, capacitorsF };
   known.workspace.timing = driveTiming(redriven.drive, redriven.polarity);
   known.workspace.diode = redriven.diode;
   known.input = redriven;
