@@ -1,5 +1,5 @@
 import { checkLadderInput, prepareLadder, terminalMeanAt, type PreparedLadder } from './analyze-ladder';
-import { driveTiming, refreshCapacitors } from './charge-transfer-model';
+import { driveTiming, refreshCapacitors, type Workspace } from './charge-transfer-model';
 import { bracketedRoot } from './bracketed-root';
 import type { CurvePoint, LadderCurves, LadderInput } from './ladder.types';
 import type { MethodInfo } from '../methods';
@@ -66,7 +66,7 @@ function shortCircuitCurrentOf(prepared: PreparedLadder): number {
 interface ScanNetworks {
   key: string;
   capacitorsF: readonly number[];
-  byStages: Map<number, PreparedLadder>;
+  byStages: Map<number, Workspace>;
   /** The stage counts whose networks hold these capacitors (the others were taken over and still hold the last). */
   isCurrent: Set<number>;
 }
@@ -85,7 +85,7 @@ function scanNetworksOf(input: LadderInput): ScanNetworks {
   if (found >= 0) scan = scans.splice(found, 1)[0] as ScanNetworks;
   else {
     const oldest = scans.length >= SCAN_MEMORY ? (scans.pop() as ScanNetworks) : null;
-    const byStages = oldest?.key === key ? oldest.byStages : new Map<number, PreparedLadder>();
+    const byStages = oldest?.key === key ? oldest.byStages : new Map<number, Workspace>();
     scan = { key, capacitorsF: [...caps], byStages, isCurrent: new Set() };
   }
   scans.unshift(scan);
@@ -93,30 +93,30 @@ function scanNetworksOf(input: LadderInput): ScanNetworks {
   return scan;
 }
 
-/** The ladder of `stages` stages of the scan, at the input's capacitors, drive, diode and load. */
-function scanLadder(scan: ScanNetworks, input: LadderInput, stages: number): PreparedLadder {
+/**
+ * The workspace of the scan's ladder of `stages` stages at the input's capacitors, drive and diode (the input
+ * gives its load and output network alone: a PreparedLadder of the two, the input's capacitors aside, is that
+ * ladder, with no input object made per stage count).
+ */
+function scanWorkspace(scan: ScanNetworks, input: LadderInput, stages: number): Workspace {
   const known = scan.byStages.get(stages);
   if (!known) {
-    const prepared = prepareLadder({ ...input, capacitorsF: resizeCapacitors(input, stages) });
-    scan.byStages.set(stages, prepared);
+    const { workspace } = prepareLadder({ ...input, capacitorsF: resizeCapacitors(input, stages) });
+    scan.byStages.set(stages, workspace);
     scan.isCurrent.add(stages);
-    return prepared;
+    return workspace;
   }
   // The same checks of the drive and diode as a fresh preparation makes.
   checkLadderInput(input);
-  let capacitorsF = known.input.capacitorsF;
   if (!scan.isCurrent.has(stages)) {
     const resized = resizeCapacitors(input, stages);
-    if (!resized.every((f, c) => f === capacitorsF[c])) {
-      refreshCapacitors(known.workspace, resized, input.strayCapacitanceF ?? 0);
+    if (!resized.every((f, c) => f === known.net.capF[c])) {
+      refreshCapacitors(known, resized, input.strayCapacitanceF ?? 0);
     }
-    capacitorsF = resized;
     scan.isCurrent.add(stages);
   }
-  const redriven = { ...input, capacitorsF };
-  known.workspace.timing = driveTiming(redriven.drive, redriven.polarity);
-  known.workspace.diode = redriven.diode;
-  known.input = redriven;
+  known.timing = driveTiming(input.drive, input.polarity);
+  known.diode = input.diode;
   return known;
 }
 
@@ -134,7 +134,7 @@ function outputVsStagesOf(
   const outputAt = (stages: number): number => {
     let v = outputs.get(stages);
     if (v === undefined) {
-      v = terminalMeanAt(scanLadder(scan, input, stages), 0);
+      v = terminalMeanAt({ input, workspace: scanWorkspace(scan, input, stages) }, 0);
       outputs.set(stages, v);
     }
     return v;
