@@ -1,6 +1,7 @@
 import type { Circuit, SimulationTolerances } from './circuit.types';
 import { MnaSystem } from './mna-system';
 import { PeriodMap } from './period-map';
+import { findPeriodicSteadyState } from './periodic-steady-state';
 import { SampleBuffer } from './sample-buffer';
 import { DenseLu } from './solver/dense-lu';
 
@@ -55,6 +56,12 @@ export interface EnvelopeResult {
  * curve's scale: this close (relative to the largest charge) is close enough for both.
  */
 const START_UP_FIXED_POINT_TOLERANCE = 1e-4;
+/**
+ * Inner Newton tolerance of the start-up map (the final map keeps PeriodMap's 1e-8): its noise stays far
+ * below the corrector's 0.1·stepTolerance and the fixed-point tolerance above, and a sixth of the inner
+ * iterations go. At 1e-5 the 40-stage cascade's start-up no longer converged.
+ */
+const START_UP_NEWTON_RELATIVE_TOLERANCE = 1e-6;
 
 const maxAbs = (v: Float64Array): number => {
   let m = 0;
@@ -92,7 +99,12 @@ export function followEnvelope(circuit: Circuit | MnaSystem, options: EnvelopeOp
   // the stiff modes where the trapezoidal rule lets them ring from step to step: its map is smooth enough
   // for few corrector iterations per envelope step. The periodic steady state is then polished on the
   // trapezoidal rule, the transient's and SPICE's own integration, so the final answer is theirs.
-  const startUpMap = new PeriodMap(sys, { ...options, meanProbeIndex, integration: 'gear2' });
+  const startUpMap = new PeriodMap(sys, {
+    ...options,
+    meanProbeIndex,
+    integration: 'gear2',
+    tolerances: { relative: START_UP_NEWTON_RELATIVE_TOLERANCE, ...options.tolerances },
+  });
   const finalMap = new PeriodMap(sys, { ...options, meanProbeIndex });
   let map = startUpMap;
   const periodsRun = (): number => startUpMap.periods + finalMap.periods;
@@ -233,6 +245,9 @@ export function followEnvelope(circuit: Circuit | MnaSystem, options: EnvelopeOp
   let m = Math.min(nextM, 64);
   let isShooting = false;
   let failures = 0;
+  // Cycle mean at the start-up map's periodic steady state, and the curve's points computed on that map.
+  let startUpMean = NaN;
+  let startUpPoints = 0;
   /**
    * Chord iteration on (1 + 1/big)·y − Φ(y) − c/big = 0 from y, one period per iteration: solved when the
    * update is within `fraction` of the state and, for the fixed point (big = ∞), the residual too.
@@ -299,7 +314,10 @@ export function followEnvelope(circuit: Circuit | MnaSystem, options: EnvelopeOp
       pred[i] = isShooting ? z2[i]! : l0 * z0[i]! + l1 * z1[i]! + l2 * z2[i]!;
     }
     y.set(pred);
-    if (!correct(big, isShooting ? Math.max(relTol, START_UP_FIXED_POINT_TOLERANCE) : 0.1 * stepTol)) {
+    const isFinal = map === finalMap;
+    const fixedPointTol = isFinal ? relTol : Math.max(relTol, START_UP_FIXED_POINT_TOLERANCE);
+    if (!correct(big, isShooting ? fixedPointTol : 0.1 * stepTol)) {
+      if (isShooting && isFinal) break; // shooting Newton with a line search takes over below
       // No solution at this step: shorten it (from the M → ∞ limit back to a long finite step).
       if (++failures > 12) break;
       if (isShooting) {
@@ -311,8 +329,16 @@ export function followEnvelope(circuit: Circuit | MnaSystem, options: EnvelopeOp
     }
     if (isShooting) {
       z = Float64Array.from(y);
-      isConverged = true;
-      break;
+      if (isFinal) {
+        isConverged = true;
+        break;
+      }
+      // The start-up map's periodic steady state: from here the final map's, by the same M → ∞ limit.
+      startUpMean = finalMean;
+      startUpPoints = means.length;
+      map = finalMap;
+      hasLast = false;
+      continue;
     }
     // Local error from the predictor–corrector difference (Milne's device; BDF2's error constant 2/9
     // against the parabola's 1: about 2/11 of the difference).
@@ -333,20 +359,27 @@ export function followEnvelope(circuit: Circuit | MnaSystem, options: EnvelopeOp
     // the fixed point itself.
     if (m >= k && error <= 0.1 * stepTol * scale) isShooting = true;
   }
-  // Phase 3: the trapezoidal map's periodic steady state, by the same chord iteration from the start-up
-  // map's, which differs from it by the integration's error (tenths of a per cent of the output). The start-up
-  // curve is scaled by the ratio of the two cycle means: its shape is the start-up map's, its level the final's.
-  if (isConverged) {
-    const startUpMean = finalMean;
-    map = finalMap;
-    hasLast = false;
-    y.set(z);
-    c.fill(0);
-    isConverged = correct(Infinity, relTol);
-    if (isConverged) {
-      z = Float64Array.from(y);
-      const level = finalMean / startUpMean;
-      for (let i = 0; i < means.length; i++) means[i]! *= level;
+  let fallbackPeriods = 0;
+  let fallbackSensitivityPeriods = 0;
+  if (!isConverged && map === finalMap) {
+    // The chord iteration did not reach the final map's steady state from the start-up map's (at 40 stages
+    // they lie half a per cent apart): shooting Newton with its exact Jacobian and a line search does.
+    try {
+      const pss = findPeriodicSteadyState(sys, {
+        periodS: options.periodS,
+        stepsPerPeriod: options.stepsPerPeriod,
+        initialCharges: z,
+        relativeTolerance: relTol,
+        ...(options.tolerances ? { tolerances: options.tolerances } : {}),
+      });
+      fallbackPeriods = pss.periods;
+      fallbackSensitivityPeriods = pss.sensitivityPeriods;
+      if (pss.isConverged) {
+        z = Float64Array.from(pss.charges);
+        isConverged = true;
+      }
+    } catch {
+      isConverged = false;
     }
   }
   const probes = options.probes ?? [];
@@ -357,6 +390,13 @@ export function followEnvelope(circuit: Circuit | MnaSystem, options: EnvelopeOp
   };
   map.run(z, false, record);
   finalMean = map.probeMean;
+  // The two maps' steady states differ by the integration's error (tenths of a per cent of the output): the
+  // start-up map's part of the curve is scaled by the ratio of their cycle means, its shape the start-up
+  // map's, its level the final's.
+  if (isConverged) {
+    const level = finalMean / startUpMean;
+    for (let i = 0; i < startUpPoints; i++) means[i]! *= level;
+  }
   const signals: Record<string, Float64Array> = {};
   probes.forEach((p, i) => {
     signals[p] = record.values[i]!.toArray();
@@ -371,8 +411,8 @@ export function followEnvelope(circuit: Circuit | MnaSystem, options: EnvelopeOp
     relativeDistance: distance,
     charges: z,
     finalMean,
-    periods: periodsRun(),
-    sensitivityPeriods: startUpMap.sensitivityPeriods + finalMap.sensitivityPeriods,
+    periods: periodsRun() + fallbackPeriods,
+    sensitivityPeriods: startUpMap.sensitivityPeriods + finalMap.sensitivityPeriods + fallbackSensitivityPeriods,
     newtonIterations: startUpMap.newtonIterations + finalMap.newtonIterations,
   };
 }
