@@ -100,7 +100,7 @@ export class PeriodMap {
     this.sensitivity = new Float64Array(r * r);
     this.qd = new Float64Array(r);
     this.sqd = new Float64Array(r * r);
-    this.w = new Float64Array(system.size + 1);
+    this.w = new Float64Array((system.size + 1) * r);
     this.xStart = new Float64Array(system.size + 1);
     this.meanProbe = options.meanProbeIndex ?? -1;
     this.isGear = options.integration === 'gear2';
@@ -207,15 +207,17 @@ export class PeriodMap {
     const start = sys.gradientStart;
     const index = sys.gradientIndex;
     const value = sys.gradientValue;
-    const lu = sys.lu;
     const isGear = this.isGear;
     const sqPrev = this.sqPrev;
     const h = this.stepS;
     sys.load(a0);
-    lu.factor();
-    for (let j = 0, col = 0; j < r; j++, col += r) {
-      w.fill(0);
-      for (let k = 0; k < r; k++) {
+    sys.lu.factor();
+    // Right-hand sides by rows (entry (unknown, j) at unknown·r + j), all r solved in one pass.
+    w.fill(0);
+    for (let k = 0; k < r; k++) {
+      const a = rowA[k]! * r;
+      const b = rowB[k]! * r;
+      for (let j = 0, col = 0; j < r; j++, col += r) {
         const s0 = sq[col + k]!;
         let dHist: number;
         if (isEuler) dHist = -a0 * s0;
@@ -223,15 +225,19 @@ export class PeriodMap {
         else dHist = -a0 * s0 - sqd[col + k]!;
         if (isGear) sqPrev[col + k] = s0;
         sqd[col + k] = dHist; // keep dHist until the new charge sensitivity is known
-        w[rowA[k]!]! -= dHist;
-        w[rowB[k]!]! += dHist;
+        w[a + j]! -= dHist;
+        w[b + j]! += dHist;
       }
-      w[size] = 0;
-      lu.solve(w);
-      w[size] = 0;
-      for (let k = 0; k < r; k++) {
+    }
+    sys.lu.solveColumns(w, r);
+    // The ground row took the stamps into the ground: it is 0.
+    w.fill(0, size * r, (size + 1) * r);
+    for (let k = 0; k < r; k++) {
+      const from = start[k]!;
+      const to = start[k + 1]!;
+      for (let j = 0, col = 0; j < r; j++, col += r) {
         let dq = 0;
-        for (let p = start[k]!, end = start[k + 1]!; p < end; p++) dq += value[p]! * w[index[p]!]!;
+        for (let p = from; p < to; p++) dq += value[p]! * w[index[p]! * r + j]!;
         sq[col + k] = dq;
         sqd[col + k] = a0 * dq + sqd[col + k]!;
       }
