@@ -212,19 +212,26 @@ export class PeriodMap {
     const h = this.stepS;
     sys.load(a0);
     sys.lu.factor();
+    // The history's sensitivity, dHist = ∂hist/∂q0, into sqd (kept there until the new charge sensitivity
+    // is known), column by column.
+    const n = r * r;
+    if (isEuler) {
+      for (let e = 0; e < n; e++) sqd[e] = -a0 * sq[e]!;
+      if (isGear) sqPrev.set(sq);
+    } else if (isGear)
+      for (let e = 0; e < n; e++) {
+        const s0 = sq[e]!;
+        sqd[e] = (-2 * s0 + 0.5 * sqPrev[e]!) / h;
+        sqPrev[e] = s0;
+      }
+    else for (let e = 0; e < n; e++) sqd[e] = -a0 * sq[e]! - sqd[e]!;
     // Right-hand sides by rows (entry (unknown, j) at unknown·r + j), all r solved in one pass.
     w.fill(0);
     for (let k = 0; k < r; k++) {
       const a = rowA[k]! * r;
       const b = rowB[k]! * r;
-      for (let j = 0, col = 0; j < r; j++, col += r) {
-        const s0 = sq[col + k]!;
-        let dHist: number;
-        if (isEuler) dHist = -a0 * s0;
-        else if (isGear) dHist = (-2 * s0 + 0.5 * sqPrev[col + k]!) / h;
-        else dHist = -a0 * s0 - sqd[col + k]!;
-        if (isGear) sqPrev[col + k] = s0;
-        sqd[col + k] = dHist; // keep dHist until the new charge sensitivity is known
+      for (let j = 0, e = k; j < r; j++, e += r) {
+        const dHist = sqd[e]!;
         w[a + j]! -= dHist;
         w[b + j]! += dHist;
       }
@@ -235,11 +242,24 @@ export class PeriodMap {
     for (let k = 0; k < r; k++) {
       const from = start[k]!;
       const to = start[k + 1]!;
-      for (let j = 0, col = 0; j < r; j++, col += r) {
+      if (to - from === 2) {
+        // A capacitor: C·Va − C·Vb.
+        const va = value[from]!;
+        const vb = value[from + 1]!;
+        const ia = index[from]! * r;
+        const ib = index[from + 1]! * r;
+        for (let j = 0, e = k; j < r; j++, e += r) {
+          const dq = va * w[ia + j]! + vb * w[ib + j]!;
+          sq[e] = dq;
+          sqd[e] = a0 * dq + sqd[e]!;
+        }
+        continue;
+      }
+      for (let j = 0, e = k; j < r; j++, e += r) {
         let dq = 0;
         for (let p = from; p < to; p++) dq += value[p]! * w[index[p]! * r + j]!;
-        sq[col + k] = dq;
-        sqd[col + k] = a0 * dq + sqd[col + k]!;
+        sq[e] = dq;
+        sqd[e] = a0 * dq + sqd[e]!;
       }
     }
   }
