@@ -20,6 +20,9 @@ import { QuantityInput } from '../../../components/quantity-input';
 import { candidateDocument } from '../candidate-document';
 import { useSizerRun } from '../hooks/use-sizer-run';
 
+/** A figure and its unit, or a part code, stay on one line in the candidates' table. */
+const unbroken = { whiteSpace: 'nowrap' } as const;
+
 export interface SizerPanelProps {
   /** Starts a design from a candidate's document; resolves when the design exists. */
   onStartDesign: (document: Design) => void;
@@ -201,13 +204,13 @@ function CandidateTable({
                     <Table.Td fw={700}>{candidate.rank}</Table.Td>
                     <Table.Td>{name}</Table.Td>
                     <Table.Td>{distinct}</Table.Td>
-                    <Table.Td>
+                    <Table.Td style={unbroken}>
                       {candidate.diode.partCode ?? `${formatQuantity(candidate.diode.ratedPivV, 'V')} PIV`}
                     </Table.Td>
-                    <Table.Td>{formatQuantity(candidate.outputMeanV, 'V')}</Table.Td>
-                    <Table.Td>{formatQuantity(candidate.ripplePeakToPeakV, 'V')}</Table.Td>
-                    <Table.Td>{formatQuantity(candidate.storedEnergyJ, 'J')}</Table.Td>
-                    <Table.Td>{candidate.worstMarginPct.toFixed(1)} %</Table.Td>
+                    <Table.Td style={unbroken}>{formatQuantity(candidate.outputMeanV, 'V')}</Table.Td>
+                    <Table.Td style={unbroken}>{formatQuantity(candidate.ripplePeakToPeakV, 'V')}</Table.Td>
+                    <Table.Td style={unbroken}>{formatQuantity(candidate.storedEnergyJ, 'J')}</Table.Td>
+                    <Table.Td style={unbroken}>{candidate.worstMarginPct.toFixed(1)} %</Table.Td>
                     <Table.Td>{candidate.partCount}</Table.Td>
                     <Table.Td ff="monospace" fz="xs">
                       {partCodesOf(candidate).join(', ') || '—'}
