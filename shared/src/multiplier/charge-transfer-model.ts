@@ -135,6 +135,28 @@ export function createWorkspace(net: LadderNetwork, input: LadderInput): Workspa
     thermalV: (boltzmannJPerK * (input.temperatureK ?? 300)) / elementaryChargeC,
     diode: input.diode,
   };
+  fillCapacitorFigures(ws, input.strayCapacitanceF ?? 0);
+  return ws;
+}
+
+/**
+ * The same workspace for new values of its network's capacitors (as many as before), written in place: the
+ * stage scan's networks as a design's capacitors are edited. Every figure that depends on the values is
+ * recomputed exactly as `createWorkspace` computes it; the drive timing, diode, strays and temperature stay
+ * (the caller keeps them the same or sets them). The values must be positive and finite (checked where the
+ * ladder was first prepared).
+ */
+export function refreshCapacitors(ws: Workspace, capacitorsF: readonly number[], strayCapacitanceF: number): void {
+  const capF = ws.net.capF;
+  for (let c = 0; c < capF.length; c += 1) capF[c] = capacitorsF[c] as number;
+  fillCapacitorFigures(ws, strayCapacitanceF);
+}
+
+/** Everything in a workspace that depends on the capacitor values (see Workspace), from `ws.net.capF`. */
+function fillCapacitorFigures(ws: Workspace, strayF: number): void {
+  const { net, timing } = ws;
+  const m = net.capF.length;
+  const nodes = net.nodeCount;
   let inverseSum = 0;
   for (let c = 0; c < m; c += 1) inverseSum += 1 / (net.capF[c] as number);
   ws.harmonicMeanF = m / inverseSum;
@@ -157,7 +179,6 @@ export function createWorkspace(net: LadderNetwork, input: LadderInput): Workspa
   }
   // Strays: over H→L a node standing on a driven anchor of scale s moves by −s·Vpp, so its stray returns
   // +Cs·s per volt of Vpp into the node (Everhart & Lorrain, Rev. Sci. Instrum. 24, 221 (1953), abstract read).
-  const strayF = input.strayCapacitanceF ?? 0;
   if (strayF > 0) {
     ws.injection.fill(0);
     for (let n = net.anchorScale.length; n < nodes; n += 1)
@@ -178,18 +199,19 @@ export function createWorkspace(net: LadderNetwork, input: LadderInput): Workspa
   ws.rateL = ws.loadRate;
   ws.nodeRateH = ws.nodeLoadRate;
   ws.nodeRateL = ws.nodeLoadRate;
-  if (!timing.isSine) {
-    const rates = flatTopRates(net, ws.loadRate);
-    if (rates) {
-      const { h, l } = rates;
-      ws.rateH = h.capRate;
-      ws.nodeRateH = h.nodeRate;
-      ws.rateL = l.capRate;
-      ws.nodeRateL = l.nodeRate;
-      ws.deltaLPlateau = l.diodeCapDelta;
-    }
+  // The flat-top rates are shared with flatTopRates's memory: referenced, never written.
+  const rates = timing.isSine ? null : flatTopRates(net, ws.loadRate);
+  if (rates) {
+    const { h, l } = rates;
+    ws.rateH = h.capRate;
+    ws.nodeRateH = h.nodeRate;
+    ws.rateL = l.capRate;
+    ws.nodeRateL = l.nodeRate;
+    ws.deltaLPlateau = l.diodeCapDelta;
+  } else if (ws.deltaLPlateau.some((delta) => delta !== 0)) {
+    // Instantaneous transfer: none carried through the phase (a refreshed workspace may hold the last values' deltas).
+    ws.deltaLPlateau = zeros(m);
   }
-  return ws;
 }
 
 /** x^(2/3) for x ≥ 0 as ∛(x²): the same to a rounding, and several times faster than a general power in V8. */
