@@ -197,7 +197,11 @@ function CandidateTable({
             </Table.Thead>
             <Table.Tbody>
               {result.candidates.map((candidate) => {
-                const distinct = [...new Set(candidate.capacitorsF)].map((v) => formatQuantity(v, 'F')).join(' … ');
+                // Each value whole on its line ("1.2 nF", never "1.2" over "nF"); the list breaks between values.
+                const distinct = [...new Set(candidate.capacitorsF)]
+                  .map((v) => formatQuantity(v, 'F').replace(' ', '\u00a0'))
+                  .join(' … ');
+                const codes = partCodesOf(candidate);
                 const name = `${candidate.topology} ${candidate.cellCount} cells, ${candidate.grading}`;
                 return (
                   <Table.Tr key={candidate.rank}>
@@ -213,7 +217,14 @@ function CandidateTable({
                     <Table.Td style={unbroken}>{candidate.worstMarginPct.toFixed(1)} %</Table.Td>
                     <Table.Td>{candidate.partCount}</Table.Td>
                     <Table.Td ff="monospace" fz="xs">
-                      {partCodesOf(candidate).join(', ') || '—'}
+                      {codes.length === 0
+                        ? '—'
+                        : codes.map((code, i) => (
+                            <span key={code}>
+                              {i > 0 && ', '}
+                              <span style={unbroken}>{code}</span>
+                            </span>
+                          ))}
                     </Table.Td>
                     <Table.Td>{candidate.cost === null ? '—' : candidate.cost.toFixed(2)}</Table.Td>
                     <Table.Td>
