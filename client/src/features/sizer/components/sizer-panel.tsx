@@ -182,7 +182,7 @@ function CandidateTable({
             <Table.Thead>
               <Table.Tr>
                 <Table.Th>Rank</Table.Th>
-                <Table.Th>Ladder</Table.Th>
+                <Table.Th miw={130}>Ladder</Table.Th>
                 <Table.Th>Capacitors</Table.Th>
                 <Table.Th>Diode</Table.Th>
                 <Table.Th>Output</Table.Th>
