@@ -97,7 +97,8 @@ export function SignOffRoute() {
             </span>
           </Group>
           <Text size="sm" c="dimmed">
-            {revision.changeNote || 'No change note'} · by {revision.authorName} · {formatDateTime(revision.createdAt)}
+            {revision.changeNote ? `“${revision.changeNote}”` : 'No change note'} · by {revision.authorName} ·{' '}
+            {formatDateTime(revision.createdAt)}
             {revisionNumber !== design.latestRevisionNumber && ` · the latest is r${design.latestRevisionNumber}`}
           </Text>
         </div>
