@@ -10,7 +10,7 @@ export function useCurveSpan(nearRange: readonly [number, number] | undefined, w
   const isNearLoad = nearRange !== undefined && !isWholeCurve;
   const toggle =
     nearRange === undefined ? null : (
-      <Button size="compact-xs" variant="subtle" onClick={() => setWholeCurve(!isWholeCurve)}>
+      <Button size="compact-xs" variant="subtle" flex="none" onClick={() => setWholeCurve(!isWholeCurve)}>
         {isWholeCurve ? 'Near the load' : 'Whole curve'}
       </Button>
     );
