@@ -10,7 +10,7 @@ import { HV_CAUTION, upperLimitVerdict } from '../safety/hazard-limits';
 import { STORED_ENERGY_METHOD, storedEnergy, storedEnergyChecks } from '../safety/stored-energy';
 import type { StoredEnergySummary } from '../safety/stored-energy';
 import type { CheckVerdict } from '../safety/check.types';
-import { analyzeLadder } from '../multiplier/analyze-ladder';
+import { analyzeLadder, operatingFigures, prepareLadder } from '../multiplier/analyze-ladder';
 import { ENGINE_VERSION } from '../multiplier/engine-version';
 import { ladderCurves } from '../multiplier/ladder-curves';
 import { bleederStressChecks, ladderStressChecks } from '../multiplier/ladder-stress';
@@ -234,27 +234,49 @@ export function analyzeDesign(givenDesign: Design): DesignReport {
   const noLoadOutputV = driver
     ? Math.sign(analysis.outputMeanV || 1) * (driver.operatingPoint.curve[0]?.outputV ?? 0)
     : base.noLoadOutputV;
-  const openCircuit = analyzeLadder({ ...limitInput, load: null, bleederOhm: null });
+  const openCircuitOutputV = operatingFigures(
+    prepareLadder({ ...limitInput, load: null, bleederOhm: null }),
+  ).outputMeanV;
   const bleederPowerW = Math.abs(analysis.ladderTopMeanV) * analysis.bleederCurrentA;
-  return {
-    ...base,
+  // Field by field in the ladder report's order (a spread of it and the fields added after cost more than the
+  // rest of this function); the transformer last, where the design has one.
+  const report: DesignReport = {
+    engineVersion: base.engineVersion,
     noLoadOutputV,
-    openCircuitOutputV: openCircuit.outputMeanV,
-    droopWithBleederV: Math.abs(openCircuit.outputMeanV - analysis.outputMeanV),
-    bleederPowerW,
-    ladderOutputPowerW: Math.abs(analysis.ladderTopMeanV) * analysis.ladderCurrentA,
+    outputMeanV: base.outputMeanV,
+    outputMinV: base.outputMinV,
+    outputMaxV: base.outputMaxV,
+    ripplePeakToPeakV: base.ripplePeakToPeakV,
     droopV: driver ? Math.abs(noLoadOutputV - analysis.outputMeanV) : base.droopV,
-    designName: design.name,
-    resolvedDrive: drive,
-    meetsTargets: { output: outputOk, ripple: rippleOk },
-    spacing,
+    outputImpedanceOhm: base.outputImpedanceOhm,
+    optimumStages: base.optimumStages,
+    optimumStagesClosedForm: base.optimumStagesClosedForm,
+    textbookRippleV: base.textbookRippleV,
+    textbookDropV: base.textbookDropV,
+    storedEnergyJ: base.storedEnergyJ,
+    storedChargeC: base.storedChargeC,
+    dischargeTimeS: base.dischargeTimeS,
+    dischargeTimeToRuleS: base.dischargeTimeToRuleS,
+    analysis,
+    curves: base.curves,
+    storedEnergy: base.storedEnergy,
     checks,
     methods: driver
       ? [...base.methods, DRIVER_METHOD, driver.operatingPoint.method, DRIVER_OPERATING_METHOD]
       : base.methods,
+    caution: base.caution,
+    openCircuitOutputV,
+    droopWithBleederV: Math.abs(openCircuitOutputV - analysis.outputMeanV),
+    bleederPowerW,
+    ladderOutputPowerW: Math.abs(analysis.ladderTopMeanV) * analysis.ladderCurrentA,
+    designName: design.name,
+    resolvedDrive: drive,
+    meetsTargets: { output: outputOk, ripple: rippleOk },
+    spacing,
     driver,
-    ...(transformer ? { transformer } : {}),
   };
+  if (transformer) report.transformer = transformer;
+  return report;
 }
 
 /** Convenience for callers that want the verdicts only. */

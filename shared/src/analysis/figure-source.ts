@@ -42,6 +42,8 @@ export interface FigureDifference {
   exceedsTolerance: boolean;
   /** The difference in words: "estimate 1.35 kV, 11 % below the simulation (beyond the estimate's stated 5.0 %)". */
   text: string;
+  /** The estimate and its signed difference, for a narrow cell: "estimate 1.35 kV (−11 %)". */
+  brief: string;
 }
 
 export interface HeadlineSource {

@@ -62,10 +62,12 @@ describe('headlineSource', () => {
     expect(output.tolerance).toBe(0.05);
     expect(output.exceedsTolerance).toBe(true);
     expect(output.text).toMatch(/^estimate .+V, 11 % below the simulation \(beyond the estimate's stated 5.0 %\)$/);
+    expect(output.brief).toMatch(/^estimate .+V \(−11\u00a0%\)$/);
     const frequency = headline.differences.find((entry) => entry.key === 'frequency')!;
     expect(frequency.difference).toBeCloseTo(0.03, 6);
     expect(frequency.exceedsTolerance).toBe(false);
     expect(frequency.text).toContain("3.0 % above the simulation (within the estimate's stated 10 %)");
+    expect(frequency.brief).toMatch(/ \(\+3\.0\u00a0%\)$/);
     // Efficiency differs in points, with no stated tolerance: beyond 2 points it is still called out.
     const estimated = report.driver!.figures.efficiency.value;
     const efficiency = headlineSource(
@@ -76,6 +78,7 @@ describe('headlineSource', () => {
     expect(efficiency.difference).toBeCloseTo(-0.1, 9);
     expect(efficiency.exceedsTolerance).toBe(true);
     expect(efficiency.text).toMatch(/, 10 points below the simulation \(the estimate states no tolerance for it\)$/);
+    expect(efficiency.brief).toMatch(/ \(−10\u00a0points\)$/);
 
     const onePoint = headlineSource(
       report,

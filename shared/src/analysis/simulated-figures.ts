@@ -33,6 +33,12 @@ function percent(fraction: number): string {
   return value >= 10 ? value.toFixed(0) : value.toFixed(1);
 }
 
+/** The signed difference as it reads in a narrow cell, unbroken (no-break space): "−3.6 %", "+10 %", "−1 point". */
+function signedDifference(delta: number, isPoints: boolean): string {
+  const sign = delta < 0 ? '−' : '+';
+  return `${sign}${isPoints ? percentagePoints(delta) : `${percent(delta)} %`}`.replace(' ', '\u00a0');
+}
+
 function difference(
   key: ComparedFigure,
   label: string,
@@ -66,6 +72,7 @@ function difference(
     tolerance,
     exceedsTolerance,
     text: `estimate ${shown}, ${direction} (${stated})`,
+    brief: `estimate ${shown} (${signedDifference(delta, isPoints)})`,
   };
 }
 

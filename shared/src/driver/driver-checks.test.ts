@@ -3,7 +3,9 @@ import { estimateBlockingOscillator } from './blocking-oscillator';
 import { driverExamples } from '../designs/driver-examples';
 import { runDriverChecks } from './driver-checks';
 import type { DriverStage } from '../designs/driver-stage.types';
-import { halfWaveCascadeLoadLine } from './ladder-load-line';
+import { engineLadderLoadLine, halfWaveCascadeLoadLine, type LadderLoadLine } from './ladder-load-line';
+import { designExamples } from '../designs/design-examples';
+import { ladderInputOf, resolveDrive } from '../analysis/analyze-design';
 
 const demo = driverExamples.surfaceChargeTester;
 const ladder = halfWaveCascadeLoadLine(2, 10e-9);
@@ -82,5 +84,28 @@ describe('runDriverChecks', () => {
     expect(verdictOf(demo, 'driver.battery-life', { batteryLifeTargetS: lifeS / 1.3 }).verdict).toBe('pass');
     expect(verdictOf(demo, 'driver.battery-life', { batteryLifeTargetS: lifeS / 1.1 }).verdict).toBe('marginal');
     expect(verdictOf(demo, 'driver.battery-life', { batteryLifeTargetS: lifeS * 1.1 }).verdict).toBe('fail');
+  });
+
+  it('gives the battery life after a capacitor edit as a table that keeps nothing between calls does', () => {
+    // The stage limits of the table are kept from the first ladder (the same load on the secondary, other values).
+    const design = designExamples.surfaceChargeTester;
+    const { drive, currentLimitA } = resolveDrive(design);
+    const lineOf = (valueF: number): LadderLoadLine => {
+      const capacitors = design.multiplier.capacitors.map((c) => ({ ...c, valueF }));
+      return engineLadderLoadLine(
+        ladderInputOf({ ...design, multiplier: { ...design.multiplier, capacitors } }, drive, currentLimitA),
+      );
+    };
+    const lifeWith = (line: LadderLoadLine) =>
+      runDriverChecks(demo, { ladder: line, ratedLoadCurrentA: 20e-6 }).batteryLife!.lifeS.value;
+    lifeWith(lineOf(4.7e-9));
+    const { at, chargeRatios, network, secondaryLoad } = lineOf(5.6e-9);
+    const keyless: LadderLoadLine = {
+      at,
+      chargeRatios,
+      ...(network ? { network } : {}),
+      ...(secondaryLoad ? { secondaryLoad } : {}),
+    };
+    expect(lifeWith(lineOf(5.6e-9))).toBe(lifeWith(keyless));
   });
 });

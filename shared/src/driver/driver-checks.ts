@@ -85,32 +85,42 @@ function lowerLimit(
 
 /**
  * What a supply-current table keeps between calls, per stage, ladder and voltage span: the stage at its clamp
- * limit at each voltage (none where the stage stops there), which does not depend on the load, and the power
- * balance last solved at the lowest voltage, which starts the next load's there (the others start from their
- * neighbours'). A Workbench edit of the load so solves each voltage's balance from a nearby start.
+ * limit at each voltage (none where the stage stops there), which depends on neither the load nor the ladder's
+ * capacitor values (only on the ladder's load on the secondary between pulses), and the power balance last
+ * solved at the lowest voltage, which starts the next load's there (the others start from their neighbours').
+ * A Workbench edit of the load so solves each voltage's balance from a nearby start, and an edit of the
+ * capacitors takes the limits as they were.
  */
 interface TableMemory {
   limits: (OscillatorNumbers | 'stops' | undefined)[];
-  firstBalance: WarmStart | null;
+  balance: { firstBalance: WarmStart | null };
 }
 
 const TABLE_MEMORY = 8;
-const tableMemories = new Map<string, TableMemory>();
+const limitMemories = new Map<string, TableMemory['limits']>();
+const balanceMemories = new Map<string, TableMemory['balance']>();
+
+/** The entry of `memory` under `key`, made by `make` when missing; the last TABLE_MEMORY used are kept. */
+function remembered<T>(memory: Map<string, T>, key: string, make: () => T): T {
+  const known = memory.get(key);
+  if (known) {
+    memory.delete(key);
+    memory.set(key, known);
+    return known;
+  }
+  const made = make();
+  memory.set(key, made);
+  if (memory.size > TABLE_MEMORY) memory.delete(memory.keys().next().value as string);
+  return made;
+}
 
 function tableMemoryOf(driver: DriverStage, ladder: LadderLoadLine, lowV: number, highV: number): TableMemory {
   const ladderKey = ladder.key;
-  if (ladderKey === undefined) return { limits: [], firstBalance: null };
-  const key = `${ladderKey}|${JSON.stringify(driver)}|${lowV}|${highV}`;
-  const known = tableMemories.get(key);
-  if (known) {
-    tableMemories.delete(key);
-    tableMemories.set(key, known);
-    return known;
-  }
-  const made: TableMemory = { limits: [], firstBalance: null };
-  tableMemories.set(key, made);
-  if (tableMemories.size > TABLE_MEMORY) tableMemories.delete(tableMemories.keys().next().value as string);
-  return made;
+  if (ladderKey === undefined) return { limits: [], balance: { firstBalance: null } };
+  const span = `${JSON.stringify(driver)}|${lowV}|${highV}`;
+  const limits = remembered(limitMemories, `${span}|${JSON.stringify(ladder.secondaryLoad ?? null)}`, () => []);
+  const balance = remembered(balanceMemories, `${ladderKey}|${span}`, () => ({ firstBalance: null }));
+  return { limits, balance };
 }
 
 /**
@@ -137,7 +147,7 @@ function supplyCurrentTable(
     const bench: DriverStage = { ...driver, supply: { kind: 'dc', voltageV: v, sourceResistanceOhm: 0 } };
     const warm: WarmStart | null =
       k === 0
-        ? (memory?.firstBalance ?? null)
+        ? (memory?.balance.firstBalance ?? null)
         : last && beforeLast
           ? { flybackV: 2 * last.flybackV - beforeLast.flybackV, slope: last.slope }
           : last;
@@ -156,7 +166,7 @@ function supplyCurrentTable(
         }
         if (limit === 'stops') throw new DomainError('invalid_design', 'the stage does not run at this supply');
         const near = supplyCurrentNear(bench, ladder, loadA, warm, limit);
-        if (k === 0) memory.firstBalance = near.balance;
+        if (k === 0) memory.balance.firstBalance = near.balance;
         beforeLast = near.balance ? last : null;
         last = near.balance;
         i = near.supplyCurrentA;

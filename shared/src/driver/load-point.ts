@@ -133,7 +133,23 @@ export function solvePoint(
     supplySlope = stage.supplySlope ?? supplySlope;
     return stage;
   };
-  const evalOptions: BlockingOscillatorOptions = { ...options, forwardLoadPowerW };
+  // Every field of the options spelled out, those stageAtFlyback writes included (a NaN slope guess is no
+  // guess): one object shape for every evaluation, where a spread and fields added one evaluation at a time
+  // cost more than the writes themselves. Typed with every key required, so a new option is not left out.
+  const withSolveFields = (): BlockingOscillatorOptions => {
+    const full: { [K in keyof Required<BlockingOscillatorOptions>]: BlockingOscillatorOptions[K] } = {
+      collectorNodeCapacitanceF: options.collectorNodeCapacitanceF,
+      chargeFraction: options.chargeFraction,
+      bypassCapacitanceF: options.bypassCapacitanceF,
+      secondaryLoad: options.secondaryLoad,
+      forwardLoadPowerW,
+      flybackSecondaryPeakV: maxFlyV,
+      supplyVoltageGuessV: lastSupplyV,
+      supplySlopeGuess: options.supplySlopeGuess ?? NaN,
+    };
+    return full;
+  };
+  const evalOptions = withSolveFields();
   // The last flyback the surplus was evaluated at, with the stage and the ladder there: the solved point
   // takes them when it lands on that flyback (its own evaluation would repeat the same numbers).
   let last: { flyV: number; stage: OscillatorNumbers; drive: LadderDrive; loaded: LadderState } | null = null;
@@ -213,12 +229,12 @@ export function solvePoint(
     ({ stage, drive, loaded } = solved);
     stageOptions = { ...evalOptions };
   } else {
-    stageOptions = { ...options, forwardLoadPowerW };
+    stageOptions = withSolveFields();
     stage = stageAtFlyback(flyV, stageOptions);
     drive = driveOf(stage, driver, forwardA());
     loaded = ladder.at(drive, loadCurrentA);
   }
-  if (balance !== null) balance = { ...balance, supplyV: stage.vin };
+  if (balance !== null) balance = { flybackV: balance.flybackV, slope: balance.slope, supplyV: stage.vin };
   const outputPowerW = loaded.outputV * loadCurrentA;
   const flybackTakenW = Math.min(stage.loadDeliverableW, ratios.flyback * loaded.ladderCurrentA * flyV);
   return {

@@ -1,4 +1,4 @@
-import type { PulseDrive, SineDrive } from '../designs/design.types';
+import { driveTiming, type DriveTiming } from './drive-timing';
 import { flatTopRates } from './plateau-rates';
 import { EVENT_H } from './topologies';
 
@@ -14,49 +14,6 @@ import type { LadderInput } from './ladder.types';
 
 const boltzmannJPerK = 1.380649e-23;
 const elementaryChargeC = 1.602176634e-19;
-
-/** Resolved drive extremes and timing for one polarity. */
-export interface DriveTiming {
-  highV: number;
-  lowV: number;
-  periodS: number;
-  /** Time from the H conduction to the L conduction. */
-  afterHS: number;
-  afterLS: number;
-  isSine: boolean;
-  sourceResistanceOhm: number;
-  frequencyHz: number;
-}
-
-export function driveTiming(drive: SineDrive | PulseDrive, polarity: 1 | -1): DriveTiming {
-  const periodS = 1 / drive.frequencyHz;
-  if (drive.kind === 'sine') {
-    return {
-      highV: drive.peakV,
-      lowV: drive.peakV,
-      periodS,
-      afterHS: periodS / 2,
-      afterLS: periodS / 2,
-      isSine: true,
-      sourceResistanceOhm: drive.sourceResistanceOhm,
-      frequencyHz: drive.frequencyHz,
-    };
-  }
-  // A negative ladder is the mirror image: its H extreme is the flyback.
-  const forwardIsHigh = polarity === 1;
-  const forwardS = drive.dutyCycle * periodS;
-  return {
-    highV: forwardIsHigh ? drive.forwardPeakV : drive.flybackPeakV,
-    lowV: forwardIsHigh ? drive.flybackPeakV : drive.forwardPeakV,
-    periodS,
-    // The H conduction happens at the start of the H phase, which lasts until the L phase begins.
-    afterHS: forwardIsHigh ? forwardS : periodS - forwardS,
-    afterLS: forwardIsHigh ? periodS - forwardS : forwardS,
-    isSine: false,
-    sourceResistanceOhm: drive.sourceResistanceOhm,
-    frequencyHz: drive.frequencyHz,
-  };
-}
 
 function zeros(length: number): number[] {
   return new Array<number>(length).fill(0);
@@ -135,6 +92,28 @@ export function createWorkspace(net: LadderNetwork, input: LadderInput): Workspa
     thermalV: (boltzmannJPerK * (input.temperatureK ?? 300)) / elementaryChargeC,
     diode: input.diode,
   };
+  fillCapacitorFigures(ws, input.strayCapacitanceF ?? 0);
+  return ws;
+}
+
+/**
+ * The same workspace for new values of its network's capacitors (as many as before), written in place: the
+ * stage scan's networks as a design's capacitors are edited. Every figure that depends on the values is
+ * recomputed exactly as `createWorkspace` computes it; the drive timing, diode, strays and temperature stay
+ * (the caller keeps them the same or sets them). The values must be positive and finite (checked where the
+ * ladder was first prepared).
+ */
+export function refreshCapacitors(ws: Workspace, capacitorsF: readonly number[], strayCapacitanceF: number): void {
+  const capF = ws.net.capF;
+  for (let c = 0; c < capF.length; c += 1) capF[c] = capacitorsF[c] as number;
+  fillCapacitorFigures(ws, strayCapacitanceF);
+}
+
+/** Everything in a workspace that depends on the capacitor values (see Workspace), from `ws.net.capF`. */
+function fillCapacitorFigures(ws: Workspace, strayF: number): void {
+  const { net, timing } = ws;
+  const m = net.capF.length;
+  const nodes = net.nodeCount;
   let inverseSum = 0;
   for (let c = 0; c < m; c += 1) inverseSum += 1 / (net.capF[c] as number);
   ws.harmonicMeanF = m / inverseSum;
@@ -157,7 +136,6 @@ export function createWorkspace(net: LadderNetwork, input: LadderInput): Workspa
   }
   // Strays: over H→L a node standing on a driven anchor of scale s moves by −s·Vpp, so its stray returns
   // +Cs·s per volt of Vpp into the node (Everhart & Lorrain, Rev. Sci. Instrum. 24, 221 (1953), abstract read).
-  const strayF = input.strayCapacitanceF ?? 0;
   if (strayF > 0) {
     ws.injection.fill(0);
     for (let n = net.anchorScale.length; n < nodes; n += 1)
@@ -178,18 +156,19 @@ export function createWorkspace(net: LadderNetwork, input: LadderInput): Workspa
   ws.rateL = ws.loadRate;
   ws.nodeRateH = ws.nodeLoadRate;
   ws.nodeRateL = ws.nodeLoadRate;
-  if (!timing.isSine) {
-    const rates = flatTopRates(net, ws.loadRate);
-    if (rates) {
-      const { h, l } = rates;
-      ws.rateH = h.capRate;
-      ws.nodeRateH = h.nodeRate;
-      ws.rateL = l.capRate;
-      ws.nodeRateL = l.nodeRate;
-      ws.deltaLPlateau = l.diodeCapDelta;
-    }
+  // The flat-top rates are shared with flatTopRates's memory: referenced, never written.
+  const rates = timing.isSine ? null : flatTopRates(net, ws.loadRate);
+  if (rates) {
+    const { h, l } = rates;
+    ws.rateH = h.capRate;
+    ws.nodeRateH = h.nodeRate;
+    ws.rateL = l.capRate;
+    ws.nodeRateL = l.nodeRate;
+    ws.deltaLPlateau = l.diodeCapDelta;
+  } else if (ws.deltaLPlateau.some((delta) => delta !== 0)) {
+    // Instantaneous transfer: none carried through the phase (a refreshed workspace may hold the last values' deltas).
+    ws.deltaLPlateau = zeros(m);
   }
-  return ws;
 }
 
 /** x^(2/3) for x ≥ 0 as ∛(x²): the same to a rounding, and several times faster than a general power in V8. */

@@ -120,22 +120,24 @@ describe('resizeCapacitors on a one-cell half-wave ladder', () => {
   });
 });
 
+/** A pulse-driven cascade of unequal capacitors: the kept networks carry flat-top rates too. */
+const pulse: LadderInput = {
+  ...cascade,
+  capacitorsF: [2.2e-9, 3.3e-9, 2.2e-9, 3.3e-9],
+  drive: {
+    kind: 'pulse',
+    forwardPeakV: 200,
+    flybackPeakV: 1500,
+    frequencyHz: 3e4,
+    dutyCycle: 0.8,
+    sourceResistanceOhm: 60,
+  },
+  load: { kind: 'current', currentA: 2e-6 },
+};
+
 describe('ladderCurves stage scan kept between calls', () => {
   it('scans a ladder edited in all but its capacitors as freshly prepared networks do', () => {
-    // A pulse drive: the kept networks carry flat-top rates too. The second call changes drive, diode, load and bleeder.
-    const pulse: LadderInput = {
-      ...cascade,
-      capacitorsF: [2.2e-9, 3.3e-9, 2.2e-9, 3.3e-9],
-      drive: {
-        kind: 'pulse',
-        forwardPeakV: 200,
-        flybackPeakV: 1500,
-        frequencyHz: 3e4,
-        dutyCycle: 0.8,
-        sourceResistanceOhm: 60,
-      },
-      load: { kind: 'current', currentA: 2e-6 },
-    };
+    // The second call changes drive, diode, load and bleeder.
     ladderCurves(pulse);
     const edited: LadderInput = {
       ...pulse,
@@ -155,6 +157,24 @@ describe('ladderCurves stage scan kept between calls', () => {
     expect(scan.length).toBeGreaterThan(5);
     for (const { x, y } of scan) {
       expect(y).toBe(terminalMeanAt(prepareLadder({ ...edited, capacitorsF: resizeCapacitors(edited, x) }), 0));
+    }
+  });
+});
+
+describe('ladderCurves stage scan after capacitor edits', () => {
+  it('scans edited capacitors on taken-over networks as freshly prepared networks do', () => {
+    // More edits than the scan remembers, so later scans take over earlier ones' networks; unequal values
+    // change the flat-top rates, and one edit makes a capacitor ten times larger.
+    for (let edit = 0; edit < 12; edit += 1) {
+      const capacitorsF = pulse.capacitorsF.map((f, c) =>
+        c === edit % 4 ? f * (edit === 7 ? 10 : 1 + 0.05 * edit) : f,
+      );
+      const edited: LadderInput = { ...pulse, capacitorsF };
+      const scan = ladderCurves(edited).outputVsStages;
+      expect(scan.length).toBeGreaterThan(5);
+      for (const { x, y } of scan) {
+        expect(y).toBe(terminalMeanAt(prepareLadder({ ...edited, capacitorsF: resizeCapacitors(edited, x) }), 0));
+      }
     }
   });
 });

@@ -1,5 +1,6 @@
 import { checkLadderInput, prepareLadder, terminalMeanAt, type PreparedLadder } from './analyze-ladder';
-import { driveTiming } from './charge-transfer-model';
+import { refreshCapacitors, type Workspace } from './charge-transfer-model';
+import { driveTiming } from './drive-timing';
 import { bracketedRoot } from './bracketed-root';
 import type { CurvePoint, LadderCurves, LadderInput } from './ladder.types';
 import type { MethodInfo } from '../methods';
@@ -58,12 +59,17 @@ function shortCircuitCurrentOf(prepared: PreparedLadder): number {
  * The stage scan's networks of the last few ladders scanned, per stage count: a Workbench edit of anything but
  * the capacitors, topology, strays, temperature, polarity or drive kind scans the same networks again, so
  * their workspaces (structure, charge and stray deltas, flat-top rates) are kept and only the drive timing and
- * the diode (all a workspace takes from the rest of the input) are set anew.
+ * the diode (all a workspace takes from the rest of the input) are set anew. An edit of the capacitors takes
+ * the least recently scanned ladder's networks when their key is the same and refreshes each one's capacitor
+ * figures in place as the scan reaches it (a network of a stage count has the same structure whatever the
+ * values), instead of building them anew.
  */
 interface ScanNetworks {
   key: string;
   capacitorsF: readonly number[];
-  byStages: Map<number, PreparedLadder>;
+  byStages: Map<number, Workspace>;
+  /** The stage counts whose networks hold these capacitors (the others were taken over and still hold the last). */
+  isCurrent: Set<number>;
 }
 
 const SCAN_MEMORY = 8;
@@ -76,27 +82,42 @@ function scanNetworksOf(input: LadderInput): ScanNetworks {
     (scan) =>
       scan.key === key && scan.capacitorsF.length === caps.length && scan.capacitorsF.every((f, i) => f === caps[i]),
   );
-  const scan =
-    found >= 0 ? (scans.splice(found, 1)[0] as ScanNetworks) : { key, capacitorsF: [...caps], byStages: new Map() };
+  let scan: ScanNetworks;
+  if (found >= 0) scan = scans.splice(found, 1)[0] as ScanNetworks;
+  else {
+    const oldest = scans.length >= SCAN_MEMORY ? (scans.pop() as ScanNetworks) : null;
+    const byStages = oldest?.key === key ? oldest.byStages : new Map<number, Workspace>();
+    scan = { key, capacitorsF: [...caps], byStages, isCurrent: new Set() };
+  }
   scans.unshift(scan);
   if (scans.length > SCAN_MEMORY) scans.pop();
   return scan;
 }
 
-/** The ladder of `stages` stages of the scan, at the input's drive, diode and load. */
-function scanLadder(scan: ScanNetworks, input: LadderInput, stages: number): PreparedLadder {
+/**
+ * The workspace of the scan's ladder of `stages` stages at the input's capacitors, drive and diode (the input
+ * gives its load and output network alone: a PreparedLadder of the two, the input's capacitors aside, is that
+ * ladder, with no input object made per stage count).
+ */
+function scanWorkspace(scan: ScanNetworks, input: LadderInput, stages: number): Workspace {
   const known = scan.byStages.get(stages);
   if (!known) {
-    const prepared = prepareLadder({ ...input, capacitorsF: resizeCapacitors(input, stages) });
-    scan.byStages.set(stages, prepared);
-    return prepared;
+    const { workspace } = prepareLadder({ ...input, capacitorsF: resizeCapacitors(input, stages) });
+    scan.byStages.set(stages, workspace);
+    scan.isCurrent.add(stages);
+    return workspace;
   }
   // The same checks of the drive and diode as a fresh preparation makes.
   checkLadderInput(input);
-  const redriven = { ...input, capacitorsF: known.input.capacitorsF };
-  known.workspace.timing = driveTiming(redriven.drive, redriven.polarity);
-  known.workspace.diode = redriven.diode;
-  known.input = redriven;
+  if (!scan.isCurrent.has(stages)) {
+    const resized = resizeCapacitors(input, stages);
+    if (!resized.every((f, c) => f === known.net.capF[c])) {
+      refreshCapacitors(known, resized, input.strayCapacitanceF ?? 0);
+    }
+    scan.isCurrent.add(stages);
+  }
+  known.timing = driveTiming(input.drive, input.polarity);
+  known.diode = input.diode;
   return known;
 }
 
@@ -114,7 +135,7 @@ function outputVsStagesOf(
   const outputAt = (stages: number): number => {
     let v = outputs.get(stages);
     if (v === undefined) {
-      v = terminalMeanAt(scanLadder(scan, input, stages), 0);
+      v = terminalMeanAt({ input, workspace: scanWorkspace(scan, input, stages) }, 0);
       outputs.set(stages, v);
     }
     return v;

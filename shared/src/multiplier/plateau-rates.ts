@@ -117,7 +117,10 @@ function ratesOf(net: LadderNetwork, loadRate: readonly number[], s: Scratch, co
     capRate[c] = s.capRate[c] as number;
     diodeCapDelta[c] = (s.capRate[c] as number) - (loadRate[c] as number);
   }
-  return { capRate, nodeRate: Array.from(s.nodeRate.subarray(0, net.nodeCount)), diodeCapDelta, conducting };
+  // A plain copy loop: Array.from over a typed subarray cost more than the whole round's solve.
+  const nodeRate = new Array<number>(net.nodeCount);
+  for (let n = 0; n < net.nodeCount; n += 1) nodeRate[n] = s.nodeRate[n] as number;
+  return { capRate, nodeRate, diodeCapDelta, conducting };
 }
 
 /** Flat-top rates of both phases of a network; null when either phase has none (instantaneous transfer then). */

@@ -1,6 +1,7 @@
 import type { Circuit, SimulationTolerances } from './circuit.types';
 import { MnaSystem } from './mna-system';
 import { PeriodMap } from './period-map';
+import { findPeriodicSteadyState } from './periodic-steady-state';
 import { SampleBuffer } from './sample-buffer';
 import { DenseLu } from './solver/dense-lu';
 
@@ -30,7 +31,7 @@ export interface EnvelopeOptions {
 export interface EnvelopeResult {
   /** Cycle index of each point: the mean in `means` is over the cycle that starts there. */
   cycles: number[];
-  /** Cycle mean of the probe at each point. */
+  /** Cycle mean of the probe at each point (on the start-up map, scaled to the final map's level when converged). */
   means: number[];
   /** Whether the last point is the periodic steady state (residual and Newton update within relativeTolerance). */
   isConverged: boolean;
@@ -49,6 +50,18 @@ export interface EnvelopeResult {
   sensitivityPeriods: number;
   newtonIterations: number;
 }
+
+/**
+ * The start-up map's periodic steady state is only the start of the final map's, and gives the start-up
+ * curve's scale: this close (relative to the largest charge) is close enough for both.
+ */
+const START_UP_FIXED_POINT_TOLERANCE = 1e-4;
+/**
+ * Inner Newton tolerance of the start-up map (the final map keeps PeriodMap's 1e-8): its noise stays far
+ * below the corrector's 0.1·stepTolerance and the fixed-point tolerance above, and a sixth of the inner
+ * iterations go. At 1e-5 the 40-stage cascade's start-up no longer converged.
+ */
+const START_UP_NEWTON_RELATIVE_TOLERANCE = 1e-6;
 
 const maxAbs = (v: Float64Array): number => {
   let m = 0;
@@ -72,13 +85,29 @@ const maxAbs = (v: Float64Array): number => {
  * as the whole start-up so far moves the state less than the step tolerance, M grows without bound and the
  * iteration becomes the shooting Newton on Φ(q) − q (the limit M → ∞; pseudo-transient continuation,
  * C. T. Kelley and D. E. Keyes, SIAM J. Numer. Anal. 35(2), 1998, from memory), which ends at the periodic
- * steady state. Because every step follows the circuit's own trajectory, it reaches ladders whose
- * linear start estimate is useless (deep droop). Converged only when the residual and the Newton
- * update (which bounds the distance along the slow modes) are both within relativeTolerance.
+ * steady state. The start-up runs on a map with Gear's second-order integration (smooth enough for few
+ * corrector iterations per step); its periodic steady state is then polished on the trapezoidal map, and
+ * the curve scaled to that map's level. Because every step follows the circuit's own trajectory, it
+ * reaches ladders whose linear start estimate is useless (deep droop). Converged only when the residual
+ * and the Newton update (which bounds the distance along the slow modes) are both within
+ * relativeTolerance.
  */
 export function followEnvelope(circuit: Circuit | MnaSystem, options: EnvelopeOptions): EnvelopeResult {
   const sys = 'elements' in circuit ? new MnaSystem(circuit) : circuit;
-  const map = new PeriodMap(sys, { ...options, meanProbeIndex: sys.probeIndex(options.probe) });
+  const meanProbeIndex = sys.probeIndex(options.probe);
+  // Two maps on the same grid. The start-up runs on second-order backward differences (Gear), which damp
+  // the stiff modes where the trapezoidal rule lets them ring from step to step: its map is smooth enough
+  // for few corrector iterations per envelope step. The periodic steady state is then polished on the
+  // trapezoidal rule, the transient's and SPICE's own integration, so the final answer is theirs.
+  const startUpMap = new PeriodMap(sys, {
+    ...options,
+    meanProbeIndex,
+    integration: 'gear2',
+    tolerances: { relative: START_UP_NEWTON_RELATIVE_TOLERANCE, ...options.tolerances },
+  });
+  const finalMap = new PeriodMap(sys, { ...options, meanProbeIndex });
+  let map = startUpMap;
+  const periodsRun = (): number => startUpMap.periods + finalMap.periods;
   const r = map.size;
   const stepTol = options.stepTolerance ?? 2e-3;
   const relTol = options.relativeTolerance ?? 1e-6;
@@ -162,13 +191,13 @@ export function followEnvelope(circuit: Circuit | MnaSystem, options: EnvelopeOp
     cycles.push(cycle);
     means.push(mean);
     scale = Math.max(scale, maxAbs(state));
-    options.onPoint?.(cycle, map.periods);
+    options.onPoint?.(cycle, periodsRun());
   };
 
   // Phase 1: single cycles while the state jumps from cycle to cycle.
   let nextM = 1;
   const recent: Float64Array[] = [];
-  while (map.periods < maxPeriods && k < maxCycles) {
+  while (periodsRun() < maxPeriods && k < maxCycles) {
     map.run(z, false);
     accept(k, z, map.probeMean);
     z = Float64Array.from(map.end);
@@ -216,7 +245,54 @@ export function followEnvelope(circuit: Circuit | MnaSystem, options: EnvelopeOp
   let m = Math.min(nextM, 64);
   let isShooting = false;
   let failures = 0;
-  while (map.periods < maxPeriods && k < maxCycles) {
+  // Cycle mean at the start-up map's periodic steady state, and the curve's points computed on that map.
+  let startUpMean = NaN;
+  let startUpPoints = 0;
+  /**
+   * Chord iteration on (1 + 1/big)·y − Φ(y) − c/big = 0 from y, one period per iteration: solved when the
+   * update is within `fraction` of the state and, for the fixed point (big = ∞), the residual too.
+   * Refreshes the sensitivity when the iteration contracts slowly.
+   */
+  const correct = (big: number, fraction: number): boolean => {
+    let lastUpdate = Infinity;
+    let refreshed = false;
+    const isFixedPoint = big === Infinity;
+    for (let iteration = 0; iteration < 12 && periodsRun() < maxPeriods; iteration++) {
+      if (!factorFor(big)) return false;
+      try {
+        runMap(y);
+      } catch {
+        return false; // an iterate the stepper cannot follow: a shorter step
+      }
+      const inv = 1 / big;
+      for (let i = 0; i < r; i++) f[i] = (1 + inv) * y[i]! - map.end[i]! - c[i]! * inv;
+      residual = 0;
+      for (let i = 0; i < r; i++) residual = Math.max(residual, Math.abs(map.end[i]! - y[i]!));
+      finalMean = map.probeMean;
+      lu.solve(f);
+      const update = maxAbs(f);
+      for (let i = 0; i < r; i++) y[i]! -= f[i]!;
+      const size = Math.max(scale, maxAbs(y));
+      if (update <= fraction * size && (!isFixedPoint || residual <= fraction * size)) {
+        distance = update / size;
+        residual /= size;
+        return true;
+      }
+      // A chord iteration that contracts slowly: the sensitivity is stale; take it at the present iterate.
+      if (update > 0.9 * lastUpdate || !Number.isFinite(update)) {
+        if ((refreshed && update > lastUpdate) || !Number.isFinite(update)) return false;
+        try {
+          refreshSensitivity(y);
+        } catch {
+          return false;
+        }
+        refreshed = true;
+      }
+      lastUpdate = update;
+    }
+    return false;
+  };
+  while (periodsRun() < maxPeriods && k < maxCycles) {
     if (!hasSens) refreshSensitivity(z);
     const [k0, k1, k2] = hk as [number, number, number];
     const [z0, z1, z2] = hz as [Float64Array, Float64Array, Float64Array];
@@ -238,45 +314,10 @@ export function followEnvelope(circuit: Circuit | MnaSystem, options: EnvelopeOp
       pred[i] = isShooting ? z2[i]! : l0 * z0[i]! + l1 * z1[i]! + l2 * z2[i]!;
     }
     y.set(pred);
-    let isSolved = false;
-    let lastUpdate = Infinity;
-    let refreshed = false;
-    for (let iteration = 0; iteration < 12 && map.periods < maxPeriods; iteration++) {
-      if (!factorFor(big)) break;
-      try {
-        runMap(y);
-      } catch {
-        break; // an iterate the stepper cannot follow: a shorter step
-      }
-      const inv = 1 / big;
-      for (let i = 0; i < r; i++) f[i] = (1 + inv) * y[i]! - map.end[i]! - c[i]! * inv;
-      residual = 0;
-      for (let i = 0; i < r; i++) residual = Math.max(residual, Math.abs(map.end[i]! - y[i]!));
-      finalMean = map.probeMean;
-      lu.solve(f);
-      const update = maxAbs(f);
-      for (let i = 0; i < r; i++) y[i]! -= f[i]!;
-      const size = Math.max(scale, maxAbs(y));
-      const updateTol = isShooting ? relTol * size : 0.1 * stepTol * size;
-      if (update <= updateTol && (!isShooting || residual <= relTol * size)) {
-        distance = update / size;
-        residual /= size;
-        isSolved = true;
-        break;
-      }
-      // A chord iteration that contracts slowly: the sensitivity is stale; take it at the present iterate.
-      if (update > 0.9 * lastUpdate || !Number.isFinite(update)) {
-        if ((refreshed && update > lastUpdate) || !Number.isFinite(update)) break;
-        try {
-          refreshSensitivity(y);
-        } catch {
-          break;
-        }
-        refreshed = true;
-      }
-      lastUpdate = update;
-    }
-    if (!isSolved) {
+    const isFinal = map === finalMap;
+    const fixedPointTol = isFinal ? relTol : Math.max(relTol, START_UP_FIXED_POINT_TOLERANCE);
+    if (!correct(big, isShooting ? fixedPointTol : 0.1 * stepTol)) {
+      if (isShooting && isFinal) break; // shooting Newton with a line search takes over below
       // No solution at this step: shorten it (from the M → ∞ limit back to a long finite step).
       if (++failures > 12) break;
       if (isShooting) {
@@ -288,8 +329,16 @@ export function followEnvelope(circuit: Circuit | MnaSystem, options: EnvelopeOp
     }
     if (isShooting) {
       z = Float64Array.from(y);
-      isConverged = true;
-      break;
+      if (isFinal) {
+        isConverged = true;
+        break;
+      }
+      // The start-up map's periodic steady state: from here the final map's, by the same M → ∞ limit.
+      startUpMean = finalMean;
+      startUpPoints = means.length;
+      map = finalMap;
+      hasLast = false;
+      continue;
     }
     // Local error from the predictor–corrector difference (Milne's device; BDF2's error constant 2/9
     // against the parabola's 1: about 2/11 of the difference).
@@ -310,6 +359,29 @@ export function followEnvelope(circuit: Circuit | MnaSystem, options: EnvelopeOp
     // the fixed point itself.
     if (m >= k && error <= 0.1 * stepTol * scale) isShooting = true;
   }
+  let fallbackPeriods = 0;
+  let fallbackSensitivityPeriods = 0;
+  if (!isConverged && map === finalMap) {
+    // The chord iteration did not reach the final map's steady state from the start-up map's (at 40 stages
+    // they lie half a per cent apart): shooting Newton with its exact Jacobian and a line search does.
+    try {
+      const pss = findPeriodicSteadyState(sys, {
+        periodS: options.periodS,
+        stepsPerPeriod: options.stepsPerPeriod,
+        initialCharges: z,
+        relativeTolerance: relTol,
+        ...(options.tolerances ? { tolerances: options.tolerances } : {}),
+      });
+      fallbackPeriods = pss.periods;
+      fallbackSensitivityPeriods = pss.sensitivityPeriods;
+      if (pss.isConverged) {
+        z = Float64Array.from(pss.charges);
+        isConverged = true;
+      }
+    } catch {
+      isConverged = false;
+    }
+  }
   const probes = options.probes ?? [];
   const record = {
     time: new SampleBuffer(),
@@ -318,6 +390,13 @@ export function followEnvelope(circuit: Circuit | MnaSystem, options: EnvelopeOp
   };
   map.run(z, false, record);
   finalMean = map.probeMean;
+  // The two maps' steady states differ by the integration's error (tenths of a per cent of the output): the
+  // start-up map's part of the curve is scaled by the ratio of their cycle means, its shape the start-up
+  // map's, its level the final's.
+  if (isConverged) {
+    const level = finalMean / startUpMean;
+    for (let i = 0; i < startUpPoints; i++) means[i]! *= level;
+  }
   const signals: Record<string, Float64Array> = {};
   probes.forEach((p, i) => {
     signals[p] = record.values[i]!.toArray();
@@ -332,8 +411,8 @@ export function followEnvelope(circuit: Circuit | MnaSystem, options: EnvelopeOp
     relativeDistance: distance,
     charges: z,
     finalMean,
-    periods: map.periods,
-    sensitivityPeriods: map.sensitivityPeriods,
-    newtonIterations: map.newtonIterations,
+    periods: periodsRun() + fallbackPeriods,
+    sensitivityPeriods: startUpMap.sensitivityPeriods + finalMap.sensitivityPeriods + fallbackSensitivityPeriods,
+    newtonIterations: startUpMap.newtonIterations + finalMap.newtonIterations,
   };
 }

@@ -1,19 +1,25 @@
 /**
  * Accepted points (time, unknowns, junction state) of at least the last PERIODS periods, oldest first,
- * for the periodic predictor. A ring that grows while they do not fit, up to MAX_POINTS.
+ * for the periodic predictor. A ring that grows while they do not fit, up to MAX_POINTS. Its capacity is a
+ * power of two, so a place in it is a mask, not a branch (a wrap first taken after V8 had compiled the
+ * predictor deoptimized it), and it starts large enough for the periods at the expected points per period,
+ * so that a run does not grow it (growing deoptimized it too).
  */
 export class PeriodHistory {
   /** Periods kept: the drift from one period to the next is extrapolated by a polynomial through them. */
   static readonly PERIODS = 3;
   private static readonly MAX_POINTS = 1 << 15;
-  private capacity = 256;
+  /** Largest capacity allocated up front (more points per period grow the ring as they come). */
+  private static readonly MAX_INITIAL_POINTS = 1 << 12;
+  private capacity: number;
+  private mask: number;
   private start = 0;
   count = 0;
   /** Points pushed since the last clear; a point's sequence number is its place in that count. */
   private pushed = 0;
   /** Sequence numbers of the last points found, by the caller's slot (see find). */
   private readonly hints = new Float64Array(2 * PeriodHistory.PERIODS).fill(-1);
-  private times = new Float64Array(this.capacity);
+  private times: Float64Array;
   private xs: Float64Array;
   private js: Float64Array;
 
@@ -26,7 +32,14 @@ export class PeriodHistory {
     private readonly xLength: number,
     private readonly jLength: number,
     private readonly periodS: number,
+    expectedPointsPerPeriod = 0,
   ) {
+    let capacity = 256;
+    const wanted = Math.min((PeriodHistory.PERIODS + 1) * expectedPointsPerPeriod, PeriodHistory.MAX_INITIAL_POINTS);
+    while (capacity < wanted) capacity *= 2;
+    this.capacity = capacity;
+    this.mask = capacity - 1;
+    this.times = new Float64Array(capacity);
     this.xs = new Float64Array(this.capacity * xLength);
     this.js = new Float64Array(this.capacity * jLength);
   }
@@ -39,8 +52,7 @@ export class PeriodHistory {
   }
 
   private slot(i: number): number {
-    const p = this.start + i;
-    return p >= this.capacity ? p - this.capacity : p;
+    return (this.start + i) & this.mask;
   }
 
   timeAt(i: number): number {
@@ -80,6 +92,7 @@ export class PeriodHistory {
       js.set(this.js.subarray(s * this.jLength, (s + 1) * this.jLength), i * this.jLength);
     }
     this.capacity = capacity;
+    this.mask = capacity - 1;
     this.times = times;
     this.xs = xs;
     this.js = js;

@@ -12,6 +12,13 @@ export interface PeriodMapOptions {
   tolerances?: Partial<SimulationTolerances>;
   /** Unknown (MnaSystem.probeIndex) whose mean over each period is kept in `probeMean`. */
   meanProbeIndex?: number;
+  /**
+   * Integration after the first backward-Euler step: 'trapezoidal' (the default, as the transient and
+   * SPICE) or 'gear2', the second-order backward difference q′ = (3q₁ − 4q₀ + q₋₁)/(2h), which damps the
+   * stiff modes where the trapezoidal rule lets them ring (C. W. Gear, Numerical Initial Value Problems in
+   * Ordinary Differential Equations, 1971, from memory).
+   */
+  integration?: 'trapezoidal' | 'gear2';
 }
 
 /** Probes recorded along one period: time and one buffer per probe index. */
@@ -62,6 +69,10 @@ export class PeriodMap {
   private hasTrajectory = false;
   private readonly looseTol: SimulationTolerances;
   private readonly meanProbe: number;
+  private readonly isGear: boolean;
+  /** Gear 2: the charges one step back, and their sensitivity. */
+  private readonly qPrev: Float64Array;
+  private readonly sqPrev: Float64Array;
 
   constructor(
     readonly system: MnaSystem,
@@ -89,9 +100,12 @@ export class PeriodMap {
     this.sensitivity = new Float64Array(r * r);
     this.qd = new Float64Array(r);
     this.sqd = new Float64Array(r * r);
-    this.w = new Float64Array(system.size + 1);
+    this.w = new Float64Array((system.size + 1) * r);
     this.xStart = new Float64Array(system.size + 1);
     this.meanProbe = options.meanProbeIndex ?? -1;
+    this.isGear = options.integration === 'gear2';
+    this.qPrev = new Float64Array(r);
+    this.sqPrev = new Float64Array(this.isGear ? r * r : 0);
   }
 
   /** One period from q(0) = start: q(T) into `end`, and with `withSensitivity` ∂q(T)/∂q(0) into `sensitivity`. */
@@ -126,10 +140,14 @@ export class PeriodMap {
       record.time.push(0);
       record.probeIndex.forEach((p, i) => record.values[i]!.push(sys.x[p]!));
     }
+    const isGear = this.isGear;
+    const qPrev = this.qPrev;
     for (let step = 0; step < this.steps; step++) {
       const isEuler = step === 0;
-      const a0 = isEuler ? 1 / h : 2 / h;
-      for (let k = 0; k < r; k++) hist[k] = isEuler ? -a0 * q0[k]! : -a0 * q0[k]! - qd0[k]!;
+      const a0 = isEuler ? 1 / h : isGear ? 1.5 / h : 2 / h;
+      if (isEuler) for (let k = 0; k < r; k++) hist[k] = -a0 * q0[k]!;
+      else if (isGear) for (let k = 0; k < r; k++) hist[k] = (-2 * q0[k]! + 0.5 * qPrev[k]!) / h;
+      else for (let k = 0; k < r; k++) hist[k] = -a0 * q0[k]! - qd0[k]!;
       const t1 = (step + 1) * h;
       sys.prepareLinearMatrix(a0, t1);
       sys.prepareStepRhs(t1);
@@ -155,6 +173,7 @@ export class PeriodMap {
       }
       sys.evaluateLinearCharges();
       if (withSensitivity) this.propagateSensitivity(a0, isEuler);
+      if (isGear) qPrev.set(q0);
       for (let k = 0; k < r; k++) {
         const q1 = charge[k]!;
         qd0[k] = a0 * q1 + hist[k]!;
@@ -188,25 +207,59 @@ export class PeriodMap {
     const start = sys.gradientStart;
     const index = sys.gradientIndex;
     const value = sys.gradientValue;
-    const lu = sys.lu;
+    const isGear = this.isGear;
+    const sqPrev = this.sqPrev;
+    const h = this.stepS;
     sys.load(a0);
-    lu.factor();
-    for (let j = 0, col = 0; j < r; j++, col += r) {
-      w.fill(0);
-      for (let k = 0; k < r; k++) {
-        const dHist = isEuler ? -a0 * sq[col + k]! : -a0 * sq[col + k]! - sqd[col + k]!;
-        sqd[col + k] = dHist; // keep dHist until the new charge sensitivity is known
-        w[rowA[k]!]! -= dHist;
-        w[rowB[k]!]! += dHist;
+    sys.lu.factor();
+    // The history's sensitivity, dHist = ∂hist/∂q0, into sqd (kept there until the new charge sensitivity
+    // is known), column by column.
+    const n = r * r;
+    if (isEuler) {
+      for (let e = 0; e < n; e++) sqd[e] = -a0 * sq[e]!;
+      if (isGear) sqPrev.set(sq);
+    } else if (isGear)
+      for (let e = 0; e < n; e++) {
+        const s0 = sq[e]!;
+        sqd[e] = (-2 * s0 + 0.5 * sqPrev[e]!) / h;
+        sqPrev[e] = s0;
       }
-      w[size] = 0;
-      lu.solve(w);
-      w[size] = 0;
-      for (let k = 0; k < r; k++) {
+    else for (let e = 0; e < n; e++) sqd[e] = -a0 * sq[e]! - sqd[e]!;
+    // Right-hand sides by rows (entry (unknown, j) at unknown·r + j), all r solved in one pass.
+    w.fill(0);
+    for (let k = 0; k < r; k++) {
+      const a = rowA[k]! * r;
+      const b = rowB[k]! * r;
+      for (let j = 0, e = k; j < r; j++, e += r) {
+        const dHist = sqd[e]!;
+        w[a + j]! -= dHist;
+        w[b + j]! += dHist;
+      }
+    }
+    sys.lu.solveColumns(w, r);
+    // The ground row took the stamps into the ground: it is 0.
+    w.fill(0, size * r, (size + 1) * r);
+    for (let k = 0; k < r; k++) {
+      const from = start[k]!;
+      const to = start[k + 1]!;
+      if (to - from === 2) {
+        // A capacitor: C·Va − C·Vb.
+        const va = value[from]!;
+        const vb = value[from + 1]!;
+        const ia = index[from]! * r;
+        const ib = index[from + 1]! * r;
+        for (let j = 0, e = k; j < r; j++, e += r) {
+          const dq = va * w[ia + j]! + vb * w[ib + j]!;
+          sq[e] = dq;
+          sqd[e] = a0 * dq + sqd[e]!;
+        }
+        continue;
+      }
+      for (let j = 0, e = k; j < r; j++, e += r) {
         let dq = 0;
-        for (let p = start[k]!, end = start[k + 1]!; p < end; p++) dq += value[p]! * w[index[p]!]!;
-        sq[col + k] = dq;
-        sqd[col + k] = a0 * dq + sqd[col + k]!;
+        for (let p = from; p < to; p++) dq += value[p]! * w[index[p]! * r + j]!;
+        sq[e] = dq;
+        sqd[e] = a0 * dq + sqd[e]!;
       }
     }
   }

@@ -33,6 +33,9 @@ export interface PeriodicSteadyStateResult {
   timeS: Float64Array;
   signals: Record<string, Float64Array>;
   newtonIterations: number;
+  /** Periods run, with and without sensitivity. */
+  periods: number;
+  sensitivityPeriods: number;
 }
 
 /**
@@ -177,5 +180,7 @@ export function findPeriodicSteadyState(
     timeS: time.toArray(),
     signals,
     newtonIterations: map.newtonIterations,
+    periods: map.periods,
+    sensitivityPeriods: map.sensitivityPeriods,
   };
 }

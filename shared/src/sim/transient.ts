@@ -86,7 +86,12 @@ export class TransientStepper {
     this.periodS = system.sourcePeriodS();
     this.lastPeriod = Number.isNaN(this.periodS)
       ? null
-      : new PeriodHistory(system.size + 1, system.junctionStateLength, this.periodS);
+      : new PeriodHistory(
+          system.size + 1,
+          system.junctionStateLength,
+          this.periodS,
+          Math.ceil(this.periodS / this.maxStepS),
+        );
     this.predictedJunction = new Float64Array(system.junctionStateLength);
   }
 

@@ -210,6 +210,50 @@ export class BandedLu {
     this.backSubstitute(b);
   }
 
+  /**
+   * Solves A X = B in place for `count` right-hand sides at once, using the last factorization. B is stored
+   * by rows, entry (i, c) at i·count + c (rows past the size are left alone): each elimination step then
+   * runs over a contiguous row, where column-by-column solves would walk the band once per column.
+   */
+  solveColumns(b: Float64Array, count: number): void {
+    const n = this.size;
+    const kl = this.lowerBandwidth;
+    const ld = this.columnStride;
+    const kv = this.diagonalRow;
+    const a = this.band;
+    for (let j = 0; j < n; j++) {
+      const rowJ = j * count;
+      const p = this.pivots[j]!;
+      if (p !== j) {
+        for (let c = 0, rowP = p * count; c < count; c++) {
+          const t = b[rowP + c]!;
+          b[rowP + c] = b[rowJ + c]!;
+          b[rowJ + c] = t;
+        }
+      }
+      const km = Math.min(kl, n - 1 - j);
+      const colJ = j * ld + kv;
+      for (let t = 1; t <= km; t++) {
+        const l = a[colJ + t]!;
+        if (l === 0) continue;
+        for (let c = 0, rowT = (j + t) * count; c < count; c++) b[rowT + c]! -= l * b[rowJ + c]!;
+      }
+    }
+    const kvU = this.upperExtent;
+    const inverse = this.inversePivots;
+    for (let j = n - 1; j >= 0; j--) {
+      const rowJ = j * count;
+      const d = inverse[j]!;
+      for (let c = 0; c < count; c++) b[rowJ + c]! *= d;
+      const i0 = Math.max(0, j - kvU);
+      for (let i = i0, q = j * ld + kv + i0 - j; i < j; i++, q++) {
+        const u = a[q]!;
+        if (u === 0) continue;
+        for (let c = 0, rowI = i * count; c < count; c++) b[rowI + c]! -= u * b[rowJ + c]!;
+      }
+    }
+  }
+
   /** x = U⁻¹·b in place. */
   private backSubstitute(b: Float64Array): void {
     const n = this.size;

@@ -21,7 +21,7 @@ import { SignOffError } from '../../../features/sign-off/components/sign-off-err
 import { SignOffPanel } from '../../../features/sign-off/components/sign-off-panel';
 import { SpecSheetDownload } from '../../../features/sign-off/components/spec-sheet-download';
 import { useSimulatedFigures } from '../../../features/workbench/api/get-simulated-figures';
-import { ChecksTable } from '../../../features/workbench/components/checks-table';
+import { ChecksTable, checkRowCounts } from '../../../features/workbench/components/checks-table';
 import { VerdictStrip } from '../../../features/workbench/components/verdict-strip';
 import { requireUser } from './root';
 import { formatDateTime } from '../../../lib/format-date';
@@ -67,9 +67,7 @@ export function SignOffRoute() {
     [revision, simulation],
   );
   const report = headline.report;
-  const checkCounts = (['fail', 'marginal', 'pass'] as const)
-    .map((verdict) => `${report.checks.filter((check) => check.verdict === verdict).length} ${verdict}`)
-    .join(' · ');
+  const checkCounts = checkRowCounts(report.checks);
 
   return (
     <Stack gap="md">

@@ -1,4 +1,4 @@
-import { lazy, memo, Suspense, useDeferredValue, useMemo } from 'react';
+import { lazy, memo, Suspense, useDeferredValue, useMemo, type ReactNode } from 'react';
 import { Loader, Tabs, Text } from '@mantine/core';
 import { useDebouncedValue } from '@mantine/hooks';
 import type { Part, RevisionDetail, RevisionSummary } from '@ladderwright/shared/api';
@@ -80,6 +80,18 @@ const PlotsPanel = memo(function PlotsPanel({ report }: { report: DesignReport }
   );
 });
 
+/**
+ * One result tab's panel. Its code loads when the tab is first opened: the panel waits for it alone, so the row of
+ * tabs stays in place instead of giving way to the loader.
+ */
+function ResultPanel({ value, children }: { value: string; children: ReactNode }) {
+  return (
+    <Tabs.Panel value={value} pt="sm">
+      <Suspense fallback={<Loader size="sm" aria-label="Loading the tab" />}>{children}</Suspense>
+    </Tabs.Panel>
+  );
+}
+
 /** The Workbench result tabs: Plots, Driver, Transformer (with a driver: the section's figures and the core Sizer), Ladder, Checks, BOM cost, Waveforms, History. */
 export function WorkbenchResults({
   projectId,
@@ -100,100 +112,94 @@ export function WorkbenchResults({
   const [settled] = useDebouncedValue(latest, RESULT_TABS_SETTLE_MS);
   const { report, draft } = useDeferredValue(settled);
   return (
-    <Suspense fallback={<Loader size="sm" aria-label="Loading the tab" />}>
-      <Tabs
-        defaultValue="plots"
-        keepMounted={false}
-        classNames={{ list: classes.resultTabList, tab: classes.resultTab }}
-      >
-        <Tabs.List>
-          <Tabs.Tab value="plots">Plots</Tabs.Tab>
-          {report.driver && <Tabs.Tab value="driver">Driver</Tabs.Tab>}
-          {report.driver && <Tabs.Tab value="transformer">Transformer</Tabs.Tab>}
-          <Tabs.Tab value="ladder">Ladder</Tabs.Tab>
-          <Tabs.Tab value="checks">Checks</Tabs.Tab>
-          <Tabs.Tab value="bom">BOM cost</Tabs.Tab>
-          <Tabs.Tab value="waveforms">Waveforms</Tabs.Tab>
-          <Tabs.Tab value="history">History</Tabs.Tab>
-        </Tabs.List>
-        <Tabs.Panel value="plots" pt="sm">
-          <PlotsPanel report={report} />
-        </Tabs.Panel>
-        {report.driver && (
-          <Tabs.Panel value="driver" pt="sm">
-            <DriverPanel driver={report.driver} />
-          </Tabs.Panel>
-        )}
-        {report.driver && (
-          <Tabs.Panel value="transformer" pt="sm">
-            {report.transformer ? (
-              <TransformerPanel transformer={report.transformer} />
-            ) : (
-              <Text size="sm" mb="xs">
-                The driver runs on given transformer numbers. Rank the shelf’s cores for it below, and apply one to
-                design the transformer from a core.
-              </Text>
-            )}
-            <Suspense fallback={<Loader size="sm" aria-label="Loading the core Sizer" />}>
-              <DesignTransformerSizer
-                key={`${revision.designId}.${revision.number}`}
-                draft={draft}
-                latestDraft={latestDraft}
-                report={report}
-                shelf={shelf}
-                {...(onDraftChange ? { onDraftChange } : {})}
-              />
-            </Suspense>
-          </Tabs.Panel>
-        )}
-        <Tabs.Panel value="ladder" pt="sm">
-          <LadderDiagram report={report} design={draft} />
-        </Tabs.Panel>
-        <Tabs.Panel value="checks" pt="sm">
-          <Text size="xs" c="dimmed" mb="xs">
-            {report.caution}
-          </Text>
-          <Text size="xs" mb="xs" data-checks-source>
-            {headline?.source === 'simulation'
-              ? headline.simulatedKeys.includes('discharge')
-                ? 'The discharge-time check rests on the stored simulation of this revision; the others on the estimate.'
-                : 'Every check rests on the estimate; the stored simulation gives no figure a check tests.'
-              : 'Every check rests on the estimate.'}
-          </Text>
-          <ChecksTable checks={report.checks} />
-        </Tabs.Panel>
-        <Tabs.Panel value="bom" pt="sm">
-          <BomCost projectId={projectId} design={draft} />
-        </Tabs.Panel>
-        <Tabs.Panel value="waveforms" pt="sm">
-          {headline?.source === 'simulation' && headline.simulatedAt && (
-            <Text size="sm" mb="xs" data-current-simulation>
-              The headline figures come from the full simulation of r{revision.number} that finished{' '}
-              {formatDateTime(headline.simulatedAt)}
-              {headline.notSettledWithinS !== null &&
-                ` (it had not settled within ${formatQuantity(headline.notSettledWithinS, 's')} of simulated time)`}
-              ; start a run to see its waveforms again.
+    <Tabs defaultValue="plots" keepMounted={false} classNames={{ list: classes.resultTabList, tab: classes.resultTab }}>
+      <Tabs.List>
+        <Tabs.Tab value="plots">Plots</Tabs.Tab>
+        {report.driver && <Tabs.Tab value="driver">Driver</Tabs.Tab>}
+        {report.driver && <Tabs.Tab value="transformer">Transformer</Tabs.Tab>}
+        <Tabs.Tab value="ladder">Ladder</Tabs.Tab>
+        <Tabs.Tab value="checks">Checks</Tabs.Tab>
+        <Tabs.Tab value="bom">BOM cost</Tabs.Tab>
+        <Tabs.Tab value="waveforms">Waveforms</Tabs.Tab>
+        <Tabs.Tab value="history">History</Tabs.Tab>
+      </Tabs.List>
+      <ResultPanel value="plots">
+        <PlotsPanel report={report} />
+      </ResultPanel>
+      {report.driver && (
+        <ResultPanel value="driver">
+          <DriverPanel driver={report.driver} />
+        </ResultPanel>
+      )}
+      {report.driver && (
+        <ResultPanel value="transformer">
+          {report.transformer ? (
+            <TransformerPanel transformer={report.transformer} />
+          ) : (
+            <Text size="sm" mb="xs">
+              The driver runs on given transformer numbers. Rank the shelf’s cores for it below, and apply one to design
+              the transformer from a core.
             </Text>
           )}
-          <WaveformsPanel
-            projectId={projectId}
-            source={isDirty ? { document: draft } : { designId: revision.designId, revisionNumber: revision.number }}
-            frequencyHz={report.resolvedDrive.frequencyHz}
-            safeVoltageV={draft.targets.safeVoltageV}
-            isDriverDesign={draft.drive.kind === 'driver'}
-            canStart={canSimulate}
-            hasStoredRun={!isDirty && headline?.source === 'simulation'}
-          />
-        </Tabs.Panel>
-        <Tabs.Panel value="history" pt="sm">
-          <RevisionHistory
-            projectId={projectId}
-            designId={revision.designId}
-            revisions={revisions}
-            openRevisionNumber={revision.number}
-          />
-        </Tabs.Panel>
-      </Tabs>
-    </Suspense>
+          <Suspense fallback={<Loader size="sm" aria-label="Loading the core Sizer" />}>
+            <DesignTransformerSizer
+              key={`${revision.designId}.${revision.number}`}
+              draft={draft}
+              latestDraft={latestDraft}
+              report={report}
+              shelf={shelf}
+              {...(onDraftChange ? { onDraftChange } : {})}
+            />
+          </Suspense>
+        </ResultPanel>
+      )}
+      <ResultPanel value="ladder">
+        <LadderDiagram report={report} design={draft} />
+      </ResultPanel>
+      <ResultPanel value="checks">
+        <Text size="xs" c="dimmed" mb="xs">
+          {report.caution}
+        </Text>
+        <Text size="xs" mb="xs" data-checks-source>
+          {headline?.source === 'simulation'
+            ? headline.simulatedKeys.includes('discharge')
+              ? 'The discharge-time check rests on the stored simulation of this revision; the others on the estimate.'
+              : 'Every check rests on the estimate; the stored simulation gives no figure a check tests.'
+            : 'Every check rests on the estimate.'}
+        </Text>
+        <ChecksTable checks={report.checks} />
+      </ResultPanel>
+      <ResultPanel value="bom">
+        <BomCost projectId={projectId} design={draft} />
+      </ResultPanel>
+      <ResultPanel value="waveforms">
+        {headline?.source === 'simulation' && headline.simulatedAt && (
+          <Text size="sm" mb="xs" data-current-simulation>
+            The headline figures come from the full simulation of r{revision.number} that finished{' '}
+            {formatDateTime(headline.simulatedAt)}
+            {headline.notSettledWithinS !== null &&
+              ` (it had not settled within ${formatQuantity(headline.notSettledWithinS, 's')} of simulated time)`}
+            ; start a run to see its waveforms again.
+          </Text>
+        )}
+        <WaveformsPanel
+          projectId={projectId}
+          source={isDirty ? { document: draft } : { designId: revision.designId, revisionNumber: revision.number }}
+          frequencyHz={report.resolvedDrive.frequencyHz}
+          safeVoltageV={draft.targets.safeVoltageV}
+          isDriverDesign={draft.drive.kind === 'driver'}
+          canStart={canSimulate}
+          hasStoredRun={!isDirty && headline?.source === 'simulation'}
+        />
+      </ResultPanel>
+      <ResultPanel value="history">
+        <RevisionHistory
+          projectId={projectId}
+          designId={revision.designId}
+          revisions={revisions}
+          openRevisionNumber={revision.number}
+        />
+      </ResultPanel>
+    </Tabs>
   );
 }

@@ -170,6 +170,18 @@ describe('Workbench save when someone saved meanwhile', () => {
   }, 30_000);
 });
 
+/** The Workbench on revision 1, its project, design and revision already in the cache. */
+function renderRevision1() {
+  const queryClient = createTestQueryClient();
+  queryClient.setQueryData(queryKeys.projects.detail(projectId), project);
+  queryClient.setQueryData(queryKeys.designs.detail(projectId, designId), design(1));
+  queryClient.setQueryData(queryKeys.designs.revision(projectId, designId, 1), revision1);
+  renderRoutes([{ path: paths.design.path, element: <WorkbenchRoute /> }], {
+    route: paths.design.getHref(projectId, designId, 1),
+    queryClient,
+  });
+}
+
 describe('Workbench results summary beside the result tabs', () => {
   beforeEach(() => {
     vi.stubGlobal(
@@ -185,14 +197,7 @@ describe('Workbench results summary beside the result tabs', () => {
   afterEach(() => vi.unstubAllGlobals());
 
   it('condenses while the result tabs are scrolled down and opens again back at their top', async () => {
-    const queryClient = createTestQueryClient();
-    queryClient.setQueryData(queryKeys.projects.detail(projectId), project);
-    queryClient.setQueryData(queryKeys.designs.detail(projectId, designId), design(1));
-    queryClient.setQueryData(queryKeys.designs.revision(projectId, designId, 1), revision1);
-    renderRoutes([{ path: paths.design.path, element: <WorkbenchRoute /> }], {
-      route: paths.design.getHref(projectId, designId, 1),
-      queryClient,
-    });
+    renderRevision1();
     const summaryBox = await screen.findByRole('region', { name: 'Results summary' });
     const tabs = screen.getByRole('region', { name: 'Result tabs' });
     const scrollTo = (px: number) => {
@@ -209,5 +214,14 @@ describe('Workbench results summary beside the result tabs', () => {
     expect(summaryBox.dataset.condensed).toBe('true');
     scrollTo(0);
     expect(summaryBox.dataset.condensed).toBe('false');
+  }, 30_000);
+
+  it('keeps the row of result tabs in view while a tab first opened loads its code', async () => {
+    renderRevision1();
+    fireEvent.click(await screen.findByRole('tab', { name: 'Checks' }));
+    // While the Checks code arrives only the panel waits: the tabs stay shown (a hidden row would not be found).
+    expect(screen.getByRole('tab', { name: 'Plots' })).toBeInTheDocument();
+    expect(await screen.findByRole('table', { name: 'Checks' }, { timeout: 10_000 })).toBeInTheDocument();
+    expect(screen.getByRole('tab', { name: 'Checks' })).toHaveAttribute('aria-selected', 'true');
   }, 30_000);
 });

@@ -44,10 +44,7 @@ export function SignOffCommands({ signOff }: { signOff: SignOff }) {
   if (!canSubmit && offered.length === 0) {
     return (
       <Text size="sm" c="dimmed">
-        No Sign-off command is open to you on this revision in its {signOff.state} state
-        {signOff.state === 'submitted' && signOff.reviewers.length > 0
-          ? `: it was submitted to ${signOff.reviewers.map((person) => person.displayName).join(', ')}.`
-          : '.'}
+        No Sign-off command is open to you on this revision in its {signOff.state} state{nextStepOf(signOff)}
       </Text>
     );
   }
@@ -130,4 +127,20 @@ export function SignOffCommands({ signOff }: { signOff: SignOff }) {
       <SignOffError error={submit.error ?? command.error} fallbackTitle="The Sign-off did not change" />
     </Stack>
   );
+}
+
+/** What happens next to a revision the caller cannot move, so a reviewer is not left waiting on nothing. */
+function nextStepOf(signOff: SignOff): string {
+  switch (signOff.state) {
+    case 'submitted':
+      return signOff.reviewers.length > 0
+        ? `: it was submitted to ${signOff.reviewers.map((person) => person.displayName).join(', ')}.`
+        : '.';
+    case 'approved':
+      return ': a project lead releases it next.';
+    case 'released':
+      return ': changes go into a new revision.';
+    default:
+      return '.';
+  }
 }

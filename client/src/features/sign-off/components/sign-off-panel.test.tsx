@@ -132,6 +132,15 @@ describe('SignOffPanel', () => {
     expect(screen.getByText(/No Sign-off command is open to you/)).toBeInTheDocument();
   });
 
+  it('tells a reviewer of an approved revision that a lead releases it', () => {
+    renderWithApp(<SignOffPanel signOff={{ ...base, state: 'approved', availableCommands: [] }} />);
+    expect(
+      screen.getByText(
+        'No Sign-off command is open to you on this revision in its approved state: a project lead releases it next.',
+      ),
+    ).toBeInTheDocument();
+  });
+
   it('names whom a submitted revision went to when the caller is not among them', () => {
     const lead = {
       userId: 'u-lead',

@@ -79,7 +79,7 @@ export interface TraceChartProps {
   isTimeFromZero?: boolean;
   /** Time of the run the plotted 0 s stands for (a window cut out of a run and moved to 0), named in the axis title. */
   timeOriginS?: number;
-  /** Title of the left axis when it is not the trace's name (e.g. "Ripple about the mean"). */
+  /** Title of the left axis when it is not the trace's name (e.g. "Ripple": the axis is short, so a word or two). */
   valueTitle?: string;
   /** Series names when they are not the traces' own. */
   names?: readonly string[];

@@ -311,7 +311,7 @@ function RippleChart({ traces }: { traces: WaveformTrace[] }) {
       title="Ripple over one cycle"
       traces={ripple}
       timeOriginS={originS}
-      valueTitle="Ripple about the mean"
+      valueTitle="Ripple"
       names={ripple.map((trace, i) => `${traceLabel(trace.name)} − ${formatQuantity(meansV[i] ?? 0, 'V', 4)}`)}
     />
   );

@@ -2,7 +2,7 @@ import { screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import type { CheckVerdict } from '@ladderwright/shared/safety';
 import { renderWithApp } from '../../../testing/render';
-import { ChecksTable } from './checks-table';
+import { ChecksTable, checkRowCounts } from './checks-table';
 
 const checks: CheckVerdict[] = [
   {
@@ -87,5 +87,19 @@ describe('ChecksTable', () => {
     expect(rows[0]?.textContent).toContain('IEC 61010-1 (from memory)');
     expect(rows[0]?.textContent).toContain('IEC 60335-1 8.1.4 (read)');
     expect(rows[0]?.textContent).toContain('fail · 22× the limit');
+  });
+
+  it('counts a limit that two standards set once, as its table shows it', () => {
+    const stored = (id: string): CheckVerdict => ({
+      id,
+      subject: 'output (all stored energy)',
+      rule: `${id}: 45 µC`,
+      verdict: 'fail',
+      marginPct: -2086,
+      value: 984e-6,
+      limit: 45e-6,
+      unit: 'C',
+    });
+    expect(checkRowCounts([...checks, stored('iec61010'), stored('iec60335')])).toBe('2 fail · 1 marginal · 1 pass');
   });
 });

@@ -1,7 +1,9 @@
-import { Text } from '@mantine/core';
+import { Group, Text } from '@mantine/core';
 import type { DriverReport } from '@ladderwright/shared/driver';
 import { formatQuantity } from '@ladderwright/shared/units';
 import { chartColors, QuantityChart } from '../../../components/quantity-chart';
+import { useCurveSpan } from './curve-span-toggle';
+import { nearLoadRange } from './ladder-charts';
 import { MethodNote } from './method-note';
 
 export interface DriverOperatingCurveProps {
@@ -15,6 +17,7 @@ export interface DriverOperatingCurveProps {
 export function DriverOperatingCurve({ operatingPoint: op }: DriverOperatingCurveProps) {
   const points = op.curve.map((p) => ({ x: p.loadCurrentA, y: p.outputV }));
   const rated = op.ratedLoad;
+  const span = useCurveSpan(nearLoadRange(rated.loadCurrentA, points.at(-1)?.x ?? 0));
   return (
     <QuantityChart
       label="Driver output vs load current"
@@ -22,7 +25,7 @@ export function DriverOperatingCurve({ operatingPoint: op }: DriverOperatingCurv
       actions={<MethodNote subject="the driver operating curve" method={op.method} />}
       heightPx={240}
       data={points}
-      x={{ key: 'x', title: 'Load current', unit: 'A', includesZero: true }}
+      x={{ key: 'x', title: 'Load current', unit: 'A', includesZero: true, range: span.range }}
       y={{ title: 'Output', unit: 'V', includesZero: true }}
       series={[{ key: 'y', name: 'output (mean)', color: chartColors.traces[0] }]}
       markers={[
@@ -45,13 +48,17 @@ export function DriverOperatingCurve({ operatingPoint: op }: DriverOperatingCurv
         },
       ]}
       footer={
-        <Text size="xs" c="dimmed" data-driver="power-limit-onset">
-          {op.powerLimitOnsetA > 0
-            ? `Ladder-limited (flyback at its clamp) up to ${formatQuantity(op.powerLimitOnsetA, 'A')}; above it the driver’s power sets the output.`
-            : 'Power-limited at every load: the flyback never reaches its clamp.'}{' '}
-          Rated load {formatQuantity(rated.loadCurrentA, 'A')}: {formatQuantity(rated.outputV, 'V')}, {rated.limitedBy}
-          -limited.
-        </Text>
+        <Group gap="xs" justify="space-between" wrap="nowrap" align="flex-start">
+          <Text size="xs" c="dimmed" data-driver="power-limit-onset">
+            {op.powerLimitOnsetA > 0
+              ? `Ladder-limited (flyback at its clamp) up to ${formatQuantity(op.powerLimitOnsetA, 'A')}; above it the driver’s power sets the output.`
+              : 'Power-limited at every load: the flyback never reaches its clamp.'}{' '}
+            Rated load {formatQuantity(rated.loadCurrentA, 'A')}: {formatQuantity(rated.outputV, 'V')},{' '}
+            {rated.limitedBy}
+            -limited.
+          </Text>
+          {span.toggle}
+        </Group>
       }
     />
   );

@@ -1,4 +1,4 @@
-import { screen, within } from '@testing-library/react';
+import { fireEvent, screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { designExamples } from '@ladderwright/shared/designs';
 import { analyzeDesign } from '@ladderwright/shared/analysis';
@@ -44,5 +44,17 @@ describe('DriverPanel', () => {
       expect(note.textContent).toContain(`up to ${formatQuantity(op.powerLimitOnsetA, 'A')}`);
     else expect(note.textContent).toContain('Power-limited at every load');
     expect(screen.getByRole('button', { name: 'How the driver operating curve is computed' })).toBeTruthy();
+  });
+
+  it('opens the operating curve near the rated load and switches to the whole curve', () => {
+    const driver = analyzeDesign(designExamples.surfaceChargeTester).driver!;
+    const op = driver.operatingPoint;
+    // The tester's 2 µA rated load against a curve that runs to the supply's limit: drawn whole, the rated-load mark
+    // would sit against the y-axis.
+    expect(op.ratedLoad.loadCurrentA / (op.curve.at(-1)?.loadCurrentA ?? 0)).toBeLessThan(0.1);
+    renderWithApp(<DriverPanel driver={driver} />);
+    const figure = screen.getByRole('figure', { name: 'Driver output vs load current' });
+    fireEvent.click(within(figure).getByRole('button', { name: 'Whole curve' }));
+    expect(within(figure).getByRole('button', { name: 'Near the load' })).toBeTruthy();
   });
 });

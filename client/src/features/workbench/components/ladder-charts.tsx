@@ -1,8 +1,8 @@
-import { useState } from 'react';
-import { Button, Group, SimpleGrid, Text } from '@mantine/core';
+import { Group, SimpleGrid, Text } from '@mantine/core';
 import type { DesignReport } from '@ladderwright/shared/analysis';
 import { formatQuantity } from '@ladderwright/shared/units';
 import { chartColors, QuantityChart } from '../../../components/quantity-chart';
+import { useCurveSpan } from './curve-span-toggle';
 import { MethodNote } from './method-note';
 
 export interface LadderChartsProps {
@@ -77,8 +77,7 @@ export function loadCurveOf(report: DesignReport) {
 export function LadderCharts({ report }: LadderChartsProps) {
   const curves = report.curves;
   const load = loadCurveOf(report);
-  const [isWholeCurve, setWholeCurve] = useState(false);
-  const isNearLoad = load.nearRange !== undefined && !isWholeCurve;
+  const span = useCurveSpan(load.nearRange, load.range);
   const [outputColor = '', , designColor = ''] = chartColors.traces;
   return (
     <SimpleGrid type="container" cols={{ base: 1, '620px': 2 }} spacing="md">
@@ -93,7 +92,7 @@ export function LadderCharts({ report }: LadderChartsProps) {
           title: 'Load current',
           unit: 'A',
           includesZero: true,
-          range: isNearLoad ? load.nearRange : load.range,
+          range: span.range,
         }}
         y={{ title: 'Output', unit: 'V', includesZero: true }}
         series={[{ key: 'y', name: load.seriesName, color: outputColor }]}
@@ -103,11 +102,7 @@ export function LadderCharts({ report }: LadderChartsProps) {
             <Text size="xs" c="dimmed">
               {load.footer}
             </Text>
-            {load.nearRange !== undefined && (
-              <Button size="compact-xs" variant="subtle" onClick={() => setWholeCurve(!isWholeCurve)}>
-                {isWholeCurve ? 'Near the load' : 'Whole curve'}
-              </Button>
-            )}
+            {span.toggle}
           </Group>
         }
       />

@@ -7,10 +7,12 @@ export interface MethodNoteProps {
   method: MethodInfo | null | undefined;
   /** A method given only as text by the engine (e.g. a simulation summary). */
   methodText?: string;
+  /** A line under the method, e.g. the estimate set against the simulation in words. */
+  note?: string;
 }
 
 /** A small "how was this computed" popover showing the engine's method note for one figure. */
-export function MethodNote({ subject, method, methodText }: MethodNoteProps) {
+export function MethodNote({ subject, method, methodText, note }: MethodNoteProps) {
   if (!method && !methodText) return null;
   return (
     <Popover width={340} position="bottom-start" withArrow shadow="md">
@@ -36,6 +38,7 @@ export function MethodNote({ subject, method, methodText }: MethodNoteProps) {
             <Text size="xs" c="dimmed">
               Source: {method.source}
             </Text>
+            {note && <Text size="xs">{note}</Text>}
           </Stack>
         ) : (
           <Text size="xs">{methodText}</Text>

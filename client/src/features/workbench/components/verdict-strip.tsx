@@ -1,7 +1,7 @@
 import { memo } from 'react';
 import { Group, Paper, Text } from '@mantine/core';
 import type { Design } from '@ladderwright/shared/designs';
-import { simulationSourceLabel, type DesignReport, type HeadlineSource } from '@ladderwright/shared/analysis';
+import type { DesignReport, HeadlineSource } from '@ladderwright/shared/analysis';
 import { verdictStripFigures, type StripFigure } from '../verdict-strip-figures';
 import { MethodNote } from './method-note';
 import { VerdictBadge } from './verdict-badge';
@@ -24,11 +24,7 @@ export const VerdictStrip = memo(function VerdictStrip({ report, targets, headli
   return (
     <div className={classes.strip} aria-label="Verdict strip" role="list">
       {verdictStripFigures(report, targets, headline).map((figure) => (
-        <FigureCell
-          key={figure.key}
-          figure={figure}
-          simulationLabel={headline?.source === 'simulation' ? simulationSourceLabel(headline) : null}
-        />
+        <FigureCell key={figure.key} figure={figure} hasSimulatedFigures={headline?.source === 'simulation'} />
       ))}
     </div>
   );
@@ -57,17 +53,20 @@ function sameFigure(a: StripFigure, b: StripFigure): boolean {
     a.margin === b.margin &&
     a.source === b.source &&
     a.difference?.text === b.difference?.text &&
+    a.difference?.brief === b.difference?.brief &&
     a.difference?.exceedsTolerance === b.difference?.exceedsTolerance &&
     sameMethod(a.method, b.method)
   );
 }
 
 /**
- * `simulationLabel`: some figures come from the stored simulation, so each one says where it comes from
- * ("from simulation", with "not settled within …" when the run did not settle); null when none does.
+ * `hasSimulatedFigures`: some figures come from the stored simulation, so each one says where it comes from in one
+ * short line ("from simulation" or "estimate"; whether the run settled is said once, in the summary's status), and a
+ * simulated figure gives the estimate beside it briefly, the whole sentence in its title. The lines stay short so
+ * that the summary does not push the result tabs below the fold.
  */
 const FigureCell = memo(
-  function FigureCell({ figure, simulationLabel }: { figure: StripFigure; simulationLabel: string | null }) {
+  function FigureCell({ figure, hasSimulatedFigures }: { figure: StripFigure; hasSimulatedFigures: boolean }) {
     return (
       <Paper
         withBorder
@@ -82,7 +81,7 @@ const FigureCell = memo(
           <Text size="xs" c="dimmed" fw={500} lh={1.2}>
             {figure.label}
           </Text>
-          <MethodNote subject={figure.label.toLowerCase()} method={figure.method} />
+          <MethodNote subject={figure.label.toLowerCase()} method={figure.method} note={figure.difference?.text} />
         </Group>
         <Text
           fz={figure.key === 'worst' ? 'sm' : 'md'}
@@ -103,7 +102,7 @@ const FigureCell = memo(
             <VerdictBadge verdict={figure.verdict} margin={figure.margin ?? undefined} size="sm" />
           </Group>
         )}
-        {simulationLabel !== null && figure.source && (
+        {hasSimulatedFigures && figure.source && (
           <Text
             fz={11}
             c={figure.source === 'simulation' ? 'verdigris.8' : 'dimmed'}
@@ -112,7 +111,7 @@ const FigureCell = memo(
             mt={2}
             data-figure-source={figure.source}
           >
-            {figure.source === 'simulation' ? simulationLabel : 'estimate'}
+            {figure.source === 'simulation' ? 'from simulation' : 'estimate'}
           </Text>
         )}
         {figure.difference && (figure.difference.exceedsTolerance || figure.source === 'simulation') && (
@@ -120,15 +119,18 @@ const FigureCell = memo(
             fz={11}
             lh={1.25}
             c={figure.difference.exceedsTolerance ? 'ember.8' : 'dimmed'}
+            fw={figure.difference.exceedsTolerance ? 600 : 400}
+            title={figure.difference.text}
             data-figure-difference={figure.difference.exceedsTolerance ? 'beyond' : 'within'}
           >
-            {figure.difference.text}
+            {figure.difference.exceedsTolerance ? `! ${figure.difference.brief}` : figure.difference.brief}
           </Text>
         )}
       </Paper>
     );
   },
-  (previous, next) => previous.simulationLabel === next.simulationLabel && sameFigure(previous.figure, next.figure),
+  (previous, next) =>
+    previous.hasSimulatedFigures === next.hasSimulatedFigures && sameFigure(previous.figure, next.figure),
 );
 
 /** "target ≤ 20 V" for a figure with a target; a phrase that says there is none ("no target set") as it is. */
