@@ -1,5 +1,6 @@
 import { checkLadderInput, prepareLadder, terminalMeanAt, type PreparedLadder } from './analyze-ladder';
-import { driveTiming, refreshCapacitors, type Workspace } from './charge-transfer-model';
+import { refreshCapacitors, type Workspace } from './charge-transfer-model';
+import { driveTiming } from './drive-timing';
 import { bracketedRoot } from './bracketed-root';
 import type { CurvePoint, LadderCurves, LadderInput } from './ladder.types';
 import type { MethodInfo } from '../methods';

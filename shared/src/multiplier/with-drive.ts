@@ -1,6 +1,6 @@
 import type { PulseDrive, SineDrive } from '../designs/design.types';
 import { prepareLadder, type PreparedLadder } from './analyze-ladder';
-import { driveTiming } from './charge-transfer-model';
+import { driveTiming } from './drive-timing';
 
 /**
  * The same prepared ladder driven by another waveform of the same kind, for sweeps over the drive (the

@@ -56,6 +56,8 @@ export interface EnvelopeResult {
  * curve's scale: this close (relative to the largest charge) is close enough for both.
  */
 const START_UP_FIXED_POINT_TOLERANCE = 1e-4;
+/** A stalled corrector is accepted when its update is within this multiple of its tolerance (see `correct`). */
+const STALL_FRACTION = 2.5;
 /**
  * Inner Newton tolerance of the start-up map (the final map keeps PeriodMap's 1e-8): its noise stays far
  * below the corrector's 0.1·stepTolerance and the fixed-point tolerance above, and a sixth of the inner
@@ -280,6 +282,14 @@ export function followEnvelope(circuit: Circuit | MnaSystem, options: EnvelopeOp
       }
       // A chord iteration that contracts slowly: the sensitivity is stale; take it at the present iterate.
       if (update > 0.9 * lastUpdate || !Number.isFinite(update)) {
+        // An envelope step whose iteration stalls this close has met the map's own roughness (conduction
+        // starting within a grid step): the iterate is within a quarter of the step tolerance, which the
+        // local error test allows for; a fresh sensitivity would not take it further.
+        if (!isFixedPoint && update <= STALL_FRACTION * fraction * size) {
+          distance = update / size;
+          residual /= size;
+          return true;
+        }
         if ((refreshed && update > lastUpdate) || !Number.isFinite(update)) return false;
         try {
           refreshSensitivity(y);
