@@ -81,6 +81,11 @@ export class MnaSystem {
   /** a0 and switch states of the present linearBand (NaN: not built yet). */
   private preparedA0 = NaN;
   private preparedKey = '';
+  /**
+   * Offsets of linearBand that a new a0 or switch state changes: where C is not zero, and the switches'
+   * entries. Everywhere else linearBand stays G once built (nearly half a ladder's band).
+   */
+  private readonly varyingOffsets: Int32Array;
 
   constructor(circuit: Circuit) {
     const elements = circuit.elements;
@@ -199,6 +204,12 @@ export class MnaSystem {
     this.initialCharge = Float64Array.from(reactives.initial);
     g[lu.groundOffset] = 0;
     c[lu.groundOffset] = 0;
+    const varying = new Set<number>();
+    c.forEach((value, offset) => {
+      if (value !== 0) varying.add(offset);
+    });
+    for (const sw of this.switches) for (const offset of sw.offsets) varying.add(offset);
+    this.varyingOffsets = Int32Array.from(varying);
   }
 
   /** Index of a probe: a node name, or 'I(name)' for a source's or winding's branch current. */
@@ -214,12 +225,19 @@ export class MnaSystem {
     const key = switchStatesAt(this.switches, stepEndS);
     // Same step length and switch states as the last call (the usual case at the maximum step): unchanged.
     if (a0 === this.preparedA0 && key === this.preparedKey) return;
+    const isBuilt = !Number.isNaN(this.preparedA0);
     this.preparedA0 = a0;
     this.preparedKey = key;
     const lb = this.linearBand;
     const gb = this.conductanceBand;
     const cb = this.reactanceBand;
-    for (let i = 0; i < lb.length; i++) lb[i] = gb[i]! + a0 * cb[i]!;
+    if (isBuilt) {
+      const varying = this.varyingOffsets;
+      for (let k = 0; k < varying.length; k++) {
+        const i = varying[k]!;
+        lb[i] = gb[i]! + a0 * cb[i]!;
+      }
+    } else for (let i = 0; i < lb.length; i++) lb[i] = gb[i]! + a0 * cb[i]!;
     addSwitchConductances(lb, this.switches, key);
   }
 
