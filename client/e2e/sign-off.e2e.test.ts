@@ -61,7 +61,7 @@ async function inboxRow(page: Page, heading: string, revisionNumber: number) {
     .getByRole('table', { name: heading })
     .getByRole('row')
     .filter({ hasText: designName })
-    .filter({ has: page.getByRole('cell', { name: String(revisionNumber), exact: true }) });
+    .filter({ has: page.getByRole('cell', { name: `r${revisionNumber}`, exact: true }) });
 }
 
 describe('Sign-off journey', () => {

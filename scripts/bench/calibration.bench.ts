@@ -3,11 +3,13 @@
 //    by the engine's estimate, on this thread (one core): our loop (package steps, batched Jacobian) beside
 //    ml-levenberg-marquardt's own loop on the same normalized problem. Target: ours under 2 s.
 // 2. The same three parameters against one push-button start-up curve by the simulator, the model runs on a
-//    pool of 1, 2 and 4 worker threads, each step sent with the Jacobian's columns (the server's schedule): wall
-//    time, model runs, rounds and speed-up per worker against the plain schedule (Jacobian, then step) on 1 worker.
+//    pool of 1, 2 and 4 worker threads on the server's schedule (each step sent with the Jacobian's columns, a
+//    refused step followed by a ladder of damping values): wall time, model runs, rounds (sequential batches),
+//    speed-up per worker against the plain schedule (Jacobian, then step, one damping value at a time) on 1
+//    worker and against the server's schedule on 1 worker, how even a batch's runs are, and the load average.
 // The "measured" curves are the models' own at known values (gain 80, k 0.95, 0.4 Ω per cell) with 0.3 %
 // seeded noise. Run: npx tsx scripts/bench/calibration.bench.ts [start-up window ms, default 3] [--start-up-only]
-import { availableParallelism } from 'node:os';
+import { availableParallelism, loadavg } from 'node:os';
 import { resolve } from 'node:path';
 import { levenbergMarquardt } from 'ml-levenberg-marquardt';
 import { Piscina } from 'piscina';
@@ -110,8 +112,11 @@ async function sweepPart(): Promise<void> {
   );
 }
 
+/** The fit's schedule of model runs: the plain one (Jacobian, then step, one damping value a batch) or the server's. */
+type Schedule = 'plain' | 'server';
+
 /** One calibration against the start-up curve with a pool of `workers` threads; batches as the fit sent them. */
-async function startUpFit(dataset: CalibrationDataset, workers: number, overlapJacobian: boolean) {
+async function startUpFit(dataset: CalibrationDataset, workers: number, schedule: Schedule) {
   const pool = new Piscina({
     filename: resolve(import.meta.dirname, 'calibration-worker.ts'),
     name: 'predict',
@@ -119,25 +124,46 @@ async function startUpFit(dataset: CalibrationDataset, workers: number, overlapJ
     minThreads: workers,
     maxThreads: workers,
   });
-  // Warm-up outside the timing: each thread loads and compiles the sources once (seconds under tsx).
-  await Promise.all(Array.from({ length: workers }, () => pool.run({ design, datasets: [] })));
-  const batches: number[] = [];
+  type Answer = { predictions: number[][] | null; runMs: number };
+  const run = (d: Design, datasets: CalibrationDataset[]) => pool.run({ design: d, datasets }) as Promise<Answer>;
+  // Warm-up outside the timing: each thread loads the sources and runs the simulator once, as a server's
+  // long-lived workers have (a cold thread's first run takes about twice as long while V8 compiles it).
+  await Promise.all(Array.from({ length: workers }, () => run(design, [dataset])));
+  const batches: number[][] = [];
   const t0 = performance.now();
   const result = await calibrateDesign(
     { design, parameters: priors, datasets: [dataset] },
-    (prepared) => (designs) => {
-      batches.push(designs.length);
-      return Promise.all(
-        designs.map((d: Design) => pool.run({ design: d, datasets: prepared }) as Promise<number[][] | null>),
-      );
+    (prepared) => async (designs) => {
+      const answers = await Promise.all(designs.map((d: Design) => run(d, [...prepared])));
+      batches.push(answers.map((answer) => answer.runMs));
+      return answers.map((answer) => answer.predictions);
     },
-    { overlapJacobian },
+    schedule === 'plain' ? { overlapJacobian: false, dampingTrials: 1 } : {},
   );
   const wallMs = performance.now() - t0;
   await pool.destroy();
   // Rounds: each batch takes ⌈size / workers⌉ runs' time on an idle pool of equal runs.
-  const rounds = batches.reduce((sum, size) => sum + Math.ceil(size / workers), 0);
-  return { result, wallMs, rounds, batches: batches.length };
+  const rounds = batches.reduce((sum, runs) => sum + Math.ceil(runs.length / workers), 0);
+  // How even the runs of a batch are: its slowest run against its mean, over the batches of several runs.
+  const spreads = batches
+    .filter((runs) => runs.length > 1)
+    .map((runs) => Math.max(...runs) / (runs.reduce((sum, ms) => sum + ms, 0) / runs.length) - 1);
+  const slowestOverMean = spreads.length ? spreads.reduce((sum, x) => sum + x, 0) / spreads.length : 0;
+  const sizes = batches.map((runs) => runs.length).join(' ');
+  // A run's mean time on its thread: it grows with the workers when the pool gets no more CPU than one thread
+  // (the other load on the machine, or the scheduler sharing CPU between sessions rather than threads).
+  const runs = batches.flat();
+  const meanRunMs = runs.reduce((sum, ms) => sum + ms, 0) / Math.max(runs.length, 1);
+  return {
+    result,
+    wallMs,
+    rounds,
+    batches: batches.length,
+    sizes,
+    slowestOverMean,
+    meanRunMs,
+    load: loadavg()[0] as number,
+  };
 }
 
 async function startUpPart(windowS: number): Promise<void> {
@@ -154,25 +180,26 @@ async function startUpPart(windowS: number): Promise<void> {
     `2. the same three parameters against one start-up curve (${(windowS * 1e3).toFixed(1)} ms, 16 points), simulator`,
   );
   console.log(
-    `  machine: ${cores} cores; each step goes out with the Jacobian's 3 columns (4 runs a round), so 2 workers halve the rounds and 4 run an iteration in one; past ${cores} workers the threads share ${cores} cores, so wall time cannot fall much further here`,
+    `  machine: ${cores} cores; the server's schedule sends each step with the Jacobian's 3 columns and, after a refused step, 4 damping values at once (4 runs a batch), the same path on any pool; so 2 workers halve the rounds and 4 run a batch in one; past ${cores} workers the threads share ${cores} cores, so wall time cannot fall much further here`,
   );
-  const line = (name: string, fit: Awaited<ReturnType<typeof startUpFit>>, workers: number, referenceMs: number) => {
-    const speedUp = referenceMs / fit.wallMs;
+  type Fit = Awaited<ReturnType<typeof startUpFit>>;
+  const line = (name: string, fit: Fit, workers: number, reference: Fit, sameOnOne: Fit) => {
+    const speedUp = reference.wallMs / fit.wallMs;
+    const scaling = sameOnOne.wallMs / fit.wallMs;
     console.log(
-      `  ${name}: ${(fit.wallMs / 1000).toFixed(1)} s wall, ${fit.result.evaluations} model runs in ${fit.batches} batches (${fit.rounds} rounds of ${workers}), ${fit.result.iterations} steps, speed-up ${speedUp.toFixed(2)} (${(speedUp / workers).toFixed(2)} per worker): ${describe(fit.result.parameters.map((p) => p.value))}`,
+      `  ${name}: ${(fit.wallMs / 1000).toFixed(1)} s wall, ${fit.result.evaluations} model runs in ${fit.batches} batches (${fit.sizes}; ${fit.rounds} rounds of ${workers}), ${fit.result.iterations} steps, speed-up ${speedUp.toFixed(2)} (${(speedUp / workers).toFixed(2)} per worker; against the same schedule on 1 worker ${scaling.toFixed(2)}, ${(scaling / workers).toFixed(2)} per worker), a run ${(fit.meanRunMs / 1000).toFixed(2)} s on its thread, a batch's slowest run ${(fit.slowestOverMean * 100).toFixed(0)} % over its mean, load ${fit.load.toFixed(2)}: ${describe(fit.result.parameters.map((p) => p.value))}`,
     );
   };
-  // The reference: one worker, the plain schedule (the Jacobian, then the step), the fewest runs in a row.
-  const plain = await startUpFit(dataset, 1, false);
-  line('1 worker, Jacobian then step (reference)', plain, 1, plain.wallMs);
-  // The server's schedule (each step with the Jacobian's columns): the same path for any number of workers.
+  // The reference: one worker, the plain schedule (the Jacobian, then the step, one damping value at a time),
+  // the fewest runs in a row.
+  const plain = await startUpFit(dataset, 1, 'plain');
+  line('1 worker, Jacobian then step (reference)', plain, 1, plain, plain);
+  // The server's schedule: the same path and batches for any number of workers.
+  const fits: Fit[] = [];
   for (const workers of [1, 2, 4]) {
-    line(
-      `${workers} worker(s), step with its Jacobian`,
-      await startUpFit(dataset, workers, true),
-      workers,
-      plain.wallMs,
-    );
+    const fit = await startUpFit(dataset, workers, 'server');
+    fits.push(fit);
+    line(`${workers} worker(s), server schedule`, fit, workers, plain, fits[0] as Fit);
   }
 }
 

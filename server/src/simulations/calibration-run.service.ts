@@ -64,8 +64,9 @@ export class CalibrationRunService {
         {
           onProgress: (fraction) => onProgress(Math.floor(fraction * 99)),
           shouldCancel: isCancelled,
-          // A simulator fit sends each step with the Jacobian's columns (calibrateDesign's default for it), one
-          // damping value a batch: the path does not depend on how many workers the instances have.
+          // A simulator fit sends each step with the Jacobian's columns, and after a refused step a ladder of
+          // p + 1 damping values (calibrateDesign's defaults for it): the path does not depend on how many
+          // workers the instances have.
         },
       );
       await calibration.update({ result });

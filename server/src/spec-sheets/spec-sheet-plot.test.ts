@@ -1,7 +1,7 @@
 import PDFDocument from 'pdfkit';
 import { benchLimits } from '@ladderwright/shared/bench';
 import { FONT_FILES } from './spec-sheet-layout';
-import { outputVsLoadPlot } from './spec-sheet-plot';
+import { outputVsLoadPlot, roundedAxisEnd } from './spec-sheet-plot';
 import type { SpecSheetContent } from './spec-sheet.types';
 
 // A revision may carry several bench runs of `benchLimits.maxDataRows` points each. The plot once took its axis ranges
@@ -30,5 +30,19 @@ describe('outputVsLoadPlot', () => {
     expect(() => outputVsLoadPlot(doc, content)).not.toThrow();
     expect(doc.y).toBeGreaterThan(before);
     doc.end();
+  });
+});
+
+describe('roundedAxisEnd', () => {
+  // Steps of 1, 2, 2.5 and 5 per decade: the usual round chart scale (common practice, no source).
+  it.each([
+    [3780, 4000], // 945 V steps become 1 kV
+    [163e-6, 200e-6], // 40.8 µA steps become 50 µA
+    [1000, 1000], // already round: 250 per step stays
+    [0.9, 1], // 0.225 → 0.25
+    [7.2, 8], // 1.8 → 2
+    [31, 40], // 7.75 → 10
+  ])('puts %d on an axis ending at %d', (largest, end) => {
+    expect(roundedAxisEnd(largest, 4)).toBeCloseTo(end, 12);
   });
 });

@@ -13,6 +13,21 @@ import {
   WARN,
 } from './spec-sheet-layout';
 
+/** Grid divisions of each axis of the output-vs-load plot. */
+const AXIS_DIVISIONS = 4;
+
+/**
+ * The end of an axis from 0 that holds `largest` in `divisions` equal steps of 1, 2, 2.5 or 5 × 10^n, so every grid
+ * line carries a round figure (4 kV in 1 kV steps, not 3.78 kV in 945 V steps).
+ */
+export function roundedAxisEnd(largest: number, divisions: number): number {
+  const rawStep = largest / divisions;
+  const decade = 10 ** Math.floor(Math.log10(rawStep));
+  // The small allowance keeps a step that is already round (1000 / 4 = 250) from moving up through rounding error.
+  const factor = [1, 2, 2.5, 5, 10].find((candidate) => candidate * decade >= rawStep * (1 - 1e-9)) ?? 10;
+  return factor * decade * divisions;
+}
+
 /** Output vs load current as vector paths, with the acceptance window and the rated load marked. */
 export function outputVsLoadPlot(doc: Doc, c: SpecSheetContent): void {
   const points = c.report.curves.regulation.map((p) => ({ x: p.x, y: Math.abs(p.y) }));
@@ -35,8 +50,8 @@ export function outputVsLoadPlot(doc: Doc, c: SpecSheetContent): void {
       if (p.y > largestY) largestY = p.y;
     }
   }
-  const maxX = largestX || 1;
-  const maxY = largestY * 1.05 || 1;
+  const maxX = roundedAxisEnd(largestX || 1, AXIS_DIVISIONS);
+  const maxY = roundedAxisEnd(largestY * 1.05 || 1, AXIS_DIVISIONS);
   const sx = (x: number) => left + (x / maxX) * width;
   const sy = (y: number) => top + height - (y / maxY) * height;
 
@@ -49,8 +64,8 @@ export function outputVsLoadPlot(doc: Doc, c: SpecSheetContent): void {
     .fill(ACCENT)
     .fillOpacity(1);
   doc.lineWidth(0.5).strokeColor(RULE);
-  for (let i = 0; i <= 4; i++) {
-    const y = top + (height * i) / 4;
+  for (let i = 0; i <= AXIS_DIVISIONS; i++) {
+    const y = top + (height * i) / AXIS_DIVISIONS;
     doc
       .moveTo(left, y)
       .lineTo(left + width, y)
@@ -59,15 +74,15 @@ export function outputVsLoadPlot(doc: Doc, c: SpecSheetContent): void {
       .font('regular')
       .fontSize(7)
       .fillColor(MUTED)
-      .text(q((maxY * (4 - i)) / 4, 'V'), left - 54, y - 4, { width: 50, align: 'right' });
+      .text(q((maxY * (AXIS_DIVISIONS - i)) / AXIS_DIVISIONS, 'V'), left - 54, y - 4, { width: 50, align: 'right' });
   }
-  for (let i = 0; i <= 4; i++) {
-    const x = left + (width * i) / 4;
+  for (let i = 0; i <= AXIS_DIVISIONS; i++) {
+    const x = left + (width * i) / AXIS_DIVISIONS;
     doc
       .moveTo(x, top)
       .lineTo(x, top + height)
       .stroke();
-    doc.text(q((maxX * i) / 4, 'A'), x - 25, top + height + 4, { width: 50, align: 'center' });
+    doc.text(q((maxX * i) / AXIS_DIVISIONS, 'A'), x - 25, top + height + 4, { width: 50, align: 'center' });
   }
   doc.rect(left, top, width, height).lineWidth(0.8).strokeColor(INK).stroke();
   const [first, ...rest] = points;

@@ -1,5 +1,5 @@
 import { simulationSourceLabel } from '@ladderwright/shared/analysis';
-import { documentFieldLabel, resultFieldLabel } from '@ladderwright/shared/designs';
+import { DISCHARGE_RULE_LABELS, documentFieldLabel, resultFieldLabel } from '@ladderwright/shared/designs';
 import { dischargeRuleLimits } from '@ladderwright/shared/safety';
 import type { SpecSheetContent } from './spec-sheet.types';
 import { type Doc, ensureRoom, heading, INK, keyValues, MARGIN, q, TEXT_WIDTH, WARN } from './spec-sheet-layout';
@@ -33,7 +33,9 @@ export function safetySection(doc: Doc, c: SpecSheetContent): void {
         ]),
     [
       documentFieldLabel('targets.dischargeRule').label,
-      typeof rule === 'string' ? rule : `${q(rule.voltageV, 'V')} within ${q(rule.timeS, 's')}`,
+      typeof rule === 'string'
+        ? DISCHARGE_RULE_LABELS[rule]
+        : `to ${q(rule.voltageV, 'V')} within ${q(rule.timeS, 's')}`,
     ],
   ]);
   cautionBox(

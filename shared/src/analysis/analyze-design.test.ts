@@ -39,6 +39,8 @@ describe('analyzeDesign on the demo designs', () => {
     expect(report.resolvedDrive.kind).toBe('pulse');
     const power = report.checks.find((c) => c.id === 'driver-power');
     expect(power?.unit).toBe('W');
+    // The 20 % marginal band is a habit of the trade, said as such (the spec sheet's "Set by" column shows it).
+    expect(power?.rule).toMatch(/\(common practice, no source\)$/);
   });
 
   it('names a driver-stage problem under drive. in the design', () => {

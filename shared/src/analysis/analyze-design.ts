@@ -209,7 +209,7 @@ export function analyzeDesign(givenDesign: Design): DesignReport {
       upperLimitVerdict({
         id: 'driver-power',
         subject: 'driver stage',
-        rule: 'power the ladder draws (output plus bleeder) against the driver’s deliverable power estimate; marginal within 20 %',
+        rule: 'power the ladder draws (output plus bleeder) against the driver’s deliverable power estimate; marginal within 20 % (common practice, no source)',
         value: drawnW,
         limit: deliverablePowerW,
         unit: 'W',

@@ -6,7 +6,8 @@ const QUANTITY_UNITS: Record<string, QuantityUnit> = { Ω: 'Ohm', A: 'A', F: 'F'
 /** A fitted parameter's value in its unit with SI prefixes, or as a plain number to four figures (coupling, gain, a share). */
 export function formatParameterValue(value: number, unit: string): string {
   const quantityUnit = QUANTITY_UNITS[unit];
-  return quantityUnit ? formatQuantity(value, quantityUnit) : value.toPrecision(4);
+  // A plain number to four figures without trailing zeros: "0.98", "100", "76.28", not "0.9800" or "100.0".
+  return quantityUnit ? formatQuantity(value, quantityUnit) : String(Number(value.toPrecision(4)));
 }
 
 /** How an interval was found, in the words the Calibrate panel, the Sign-off and the spec sheet show. */

@@ -123,8 +123,10 @@ export async function calibrateDesign(
   const stepU = usesSimulator ? 1e-2 : 1e-3;
   let profileEvaluations = 0;
   const outcome = await fitParameters(fitParametersList, target, fitModel, {
-    // A simulator's runs are long and go to a pool: each step goes out with the Jacobian's columns.
-    overlapJacobian: usesSimulator,
+    // A simulator's runs are long and go to a pool: each step goes out with the Jacobian's columns, and after
+    // a refused step as many damping values as an iteration has runs (p + 1), so that a pool that runs an
+    // iteration in one round runs them in one round too, and the path does not depend on the pool.
+    ...(usesSimulator ? { overlapJacobian: true, dampingTrials: chosen.length + 1 } : {}),
     ...options,
     stepU,
     ...(usesWaveform ? { startPoints: WAVEFORM_START_POINTS_PER_PARAMETER * chosen.length } : {}),

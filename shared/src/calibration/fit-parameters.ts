@@ -67,11 +67,12 @@ export interface FitOptions {
    */
   overlapJacobian?: boolean;
   /**
-   * Damping values tried at once when a step is refused and the next is proposed from a fresh Jacobian
-   * (default 1): λ, 11λ, 121λ, … go out in one batch and the fit takes the first, in that order, that lowers
-   * the cost (without overlapJacobian exactly the one-at-a-time search's path). For a pool with workers to spare
-   * between Jacobians, chiefly in the tail of refused steps near the optimum, where a finite-difference
-   * Jacobian's error leaves no step that lowers the cost and the fit stops after eight.
+   * Damping values tried at once after a refused step, from the fresh Jacobian (default 1): λ, 11λ, 121λ, …
+   * go out in one batch and the fit takes the first, in that order, that lowers the cost (without
+   * overlapJacobian exactly the one-at-a-time search's path). A fixed number, not the pool's size, so the path
+   * is the same on any pool; a pool that wide runs the tail of refused steps near the optimum (where a
+   * finite-difference Jacobian's error leaves no step that lowers the cost and the fit stops after eight)
+   * in a few rounds instead of eight.
    */
   dampingTrials?: number;
   /** Evaluate the central-difference Jacobian at the optimum for the statistics (default true). */
@@ -153,10 +154,19 @@ export async function fitParameters(
   const tolerance = options.relativeTolerance ?? 1e-9;
   const valuesOf = (u: readonly number[]) => u.map((ui, j) => toValue(parameters[j] as FitParameter, ui));
   let evaluations = 0;
+  // The answers at every point run so far: the model is deterministic, so a point is never run twice (the
+  // central Jacobian at the optimum reuses the forward columns the last step was proposed from).
+  const answered = new Map<string, number[] | null>();
   const evaluate = async (us: number[][]): Promise<(number[] | null)[]> => {
     if (options.shouldCancel?.()) throw new DomainError('cancelled', 'The calibration was cancelled');
-    evaluations += us.length;
-    return model(us.map(valuesOf));
+    const keys = us.map((at) => at.join(' '));
+    const fresh = us.filter((_, k) => !answered.has(keys[k] as string) && keys.indexOf(keys[k] as string) === k);
+    if (fresh.length > 0) {
+      evaluations += fresh.length;
+      const answers = await model(fresh.map(valuesOf));
+      fresh.forEach((at, k) => answered.set(at.join(' '), answers[k] ?? null));
+    }
+    return keys.map((key) => answered.get(key) ?? null);
   };
 
   let u = parameters.map((parameter) => Math.min(1, Math.max(0, toU(parameter, parameter.initialValue))));
@@ -311,7 +321,9 @@ export async function fitParameters(
       });
     };
     while (!accepted && attempts < 8) {
-      const dampings = Array.from({ length: Math.min(dampingTrials, 8 - attempts) }, (_, k) =>
+      // A step's first try is one damping value; after a refusal, the ladder of dampingTrials values.
+      const width = attempts === 0 ? 1 : dampingTrials;
+      const dampings = Array.from({ length: Math.min(width, 8 - attempts) }, (_, k) =>
         Math.min(damping * 11 ** k, 1e7),
       );
       const proposals: number[][] = [];

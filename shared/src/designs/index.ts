@@ -1,7 +1,7 @@
 export { validateDesign } from './validate-design';
 export { capacitorCountFor } from './capacitor-count';
 export { designDocumentSchema, designSchema, DESIGN_SCHEMA_VERSION } from './design.schema';
-export { NAMED_DISCHARGE_RULES } from './discharge-rules';
+export { DISCHARGE_RULE_LABELS, NAMED_DISCHARGE_RULES } from './discharge-rules';
 export { designLimits } from './design-limits';
 export { TRANSISTOR_MODEL_DEFAULTS, DIODE_MODEL_DEFAULTS, RCD_CLAMP_DEFAULTS } from './device-defaults';
 export { designExamples } from './design-examples';

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { evaluate } from 'mathjs';
+import { DISCHARGE_RULE_LABELS, NAMED_DISCHARGE_RULES } from '../designs';
 import { describeMargin } from './check-rows';
 import { dischargeCheck, dischargeRuleLimits, dischargeTimeS, trappedChargeCheck } from './discharge';
 
@@ -38,6 +39,14 @@ describe('discharge rules', () => {
     ['60V-5s', 60, 5], // NFPA 79 6.5.1 (read)
   ] as const)('%s is %i V within %i s (REFERENCES.md §4)', (rule, voltageV, timeS) => {
     expect(dischargeRuleLimits(rule)).toMatchObject({ voltageV, timeS });
+  });
+
+  it.each(NAMED_DISCHARGE_RULES)('%s reads as the voltage and time it holds', (rule) => {
+    const { voltageV, timeS } = dischargeRuleLimits(rule);
+    const words = /^to (\d+) V within (\d+) (s|min)$/.exec(DISCHARGE_RULE_LABELS[rule]);
+    expect(words).not.toBeNull();
+    expect(Number(words![1])).toBe(voltageV);
+    expect(Number(words![2]) * (words![3] === 'min' ? 60 : 1)).toBe(timeS);
   });
 
   it('marks a discharge using 80–100 % of the allowed time as marginal', () => {

@@ -68,6 +68,34 @@ describe('fitParameters schedules of model runs', () => {
     expect(three.costAfter).toBe(one.costAfter);
   });
 
+  // Ended on refused steps (the default tolerance): one damping value a batch, or a ladder of 3 after a refusal.
+  it('runs the tail of refused steps in fewer rounds with a damping ladder, on the same optimum', async () => {
+    const plain = await run({});
+    const single = await run({ overlapJacobian: true });
+    const ladder = await run({ overlapJacobian: true, dampingTrials: 3 });
+    ladder.outcome.values.forEach((v, j) => expect(v / plain.outcome.values[j]! - 1).toBeCloseTo(0, 5));
+    expect(ladder.outcome.costAfter / plain.outcome.costAfter - 1).toBeCloseTo(0, 6);
+    expect(rounds(ladder.batches, 3)).toBeLessThan(rounds(single.batches, 3));
+    // A step's first try is one damping value: the first step, from the first Jacobian, goes out alone.
+    expect(ladder.batches[1]).toBe(1);
+  });
+
+  // This fit ends on refused steps, so the central Jacobian at the optimum meets the forward columns there.
+  it('never runs the model twice at one point', async () => {
+    const sets: string[] = [];
+    const outcome = await fitParameters(
+      parameters,
+      target,
+      (batch) => {
+        sets.push(...batch.map((values) => values.join(' ')));
+        return Promise.resolve(batch.map(([a, tau]) => xs.map((x) => a! * Math.exp(-x / tau!))));
+      },
+      { overlapJacobian: true, dampingTrials: 3 },
+    );
+    expect(new Set(sets).size).toBe(sets.length);
+    expect(outcome.evaluations).toBe(sets.length);
+  });
+
   it('gives the first round the design value and its Jacobian together', async () => {
     const { batches } = await run({});
     expect(batches[0]).toBe(1 + parameters.length);

@@ -75,52 +75,44 @@ export class BandedLu {
     let ju = 0;
     let extent = 0;
     let swapped = false;
-    for (let j = 0; j < n; j++) {
+    let j = 0;
+    if (kl === 2 && ku === 2) {
+      // The ladder's own band (two sub- and two super-diagonals) in its own order: the columns before the
+      // last two as the unrolled branch below takes them, without its bookkeeping per column, for as long as
+      // no row swap is needed; the loop below goes on from the first column that needs one.
+      for (let colJ = kv; j < n - 2 && this.keepsDiagonal(colJ); j++, colJ += ld) {
+        this.eliminateTwoBelow(j, colJ, b);
+        this.updateNextTwoColumns(colJ);
+      }
+      if (j > 0) {
+        ju = j + 1;
+        extent = 2;
+      }
+    }
+    for (; j < n; j++) {
       const km = Math.min(kl, n - 1 - j);
       const colJ = j * ld + kv;
-      if (km === 2 && ju <= j + ku) {
-        // The common ladder band (two sub-diagonals) with the diagonal good enough and no earlier swap
-        // reaching this row: no search, no swap, the update unrolled (the loop overhead is most of the work).
-        const d = a[colJ]!;
-        const s1 = a[colJ + 1]!;
-        const s2 = a[colJ + 2]!;
-        const ad = Math.abs(d);
-        if (ad !== 0 && ad >= PIVOT_THRESHOLD * Math.abs(s1) && ad >= PIVOT_THRESHOLD * Math.abs(s2)) {
-          pivots[j] = j;
-          const inv = 1 / d;
-          inverse[j] = inv;
-          const l1 = s1 * inv;
-          const l2 = s2 * inv;
-          a[colJ + 1] = l1;
-          a[colJ + 2] = l2;
-          if (b) {
-            const bj = b[j]!;
-            b[j + 1]! -= l1 * bj;
-            b[j + 2]! -= l2 * bj;
-          }
-          ju = Math.min(j + ku, n - 1);
-          if (ju - j > extent) extent = ju - j;
-          if (ju === j + 2) {
-            // Two super-diagonals as well (the ladder's own band): both column updates unrolled.
-            const p1 = colJ + stride;
-            const p2 = p1 + stride;
-            const f1 = a[p1]!;
-            const f2 = a[p2]!;
-            a[p1 + 1]! -= l1 * f1;
-            a[p1 + 2]! -= l2 * f1;
-            a[p2 + 1]! -= l1 * f2;
-            a[p2 + 2]! -= l2 * f2;
-            continue;
-          }
-          for (let c = j + 1, p = colJ + stride; c <= ju; c++, p += stride) {
-            const f = a[p]!;
-            if (f !== 0) {
-              a[p + 1]! -= l1 * f;
-              a[p + 2]! -= l2 * f;
-            }
-          }
+      // The common ladder band (two sub-diagonals) with the diagonal good enough and no earlier swap
+      // reaching this row: no search, no swap, the update unrolled (the loop overhead is most of the work).
+      if (km === 2 && ju <= j + ku && this.keepsDiagonal(colJ)) {
+        this.eliminateTwoBelow(j, colJ, b);
+        ju = Math.min(j + ku, n - 1);
+        if (ju - j > extent) extent = ju - j;
+        if (ju === j + 2) {
+          // Two super-diagonals as well (the ladder's own band): both column updates unrolled.
+          this.updateNextTwoColumns(colJ);
           continue;
         }
+        const l1 = a[colJ + 1]!;
+        const l2 = a[colJ + 2]!;
+        for (let c = j + 1, p = colJ + stride; c <= ju; c++, p += stride) {
+          const f = a[p]!;
+          if (f !== 0) {
+            a[p + 1]! -= l1 * f;
+            a[p + 2]! -= l2 * f;
+          }
+        }
+        continue;
       }
       let jp = 0;
       let best = Math.abs(a[colJ]!);
@@ -175,6 +167,49 @@ export class BandedLu {
     }
     this.upperExtent = extent;
     this.hasSwaps = swapped;
+  }
+
+  /** Whether the diagonal at colJ stays the pivot against the two entries below it (threshold pivoting). */
+  private keepsDiagonal(colJ: number): boolean {
+    const a = this.band;
+    const ad = Math.abs(a[colJ]!);
+    return ad !== 0 && ad >= PIVOT_THRESHOLD * Math.abs(a[colJ + 1]!) && ad >= PIVOT_THRESHOLD * Math.abs(a[colJ + 2]!);
+  }
+
+  /**
+   * Column j (its diagonal at colJ) of a band with two sub-diagonals, the diagonal kept as the pivot: the
+   * pivot's reciprocal, the two multipliers stored in place of the entries below it and, with b, their
+   * forward substitution.
+   */
+  private eliminateTwoBelow(j: number, colJ: number, b: Float64Array | null): void {
+    const a = this.band;
+    this.pivots[j] = j;
+    const inv = 1 / a[colJ]!;
+    this.inversePivots[j] = inv;
+    const l1 = a[colJ + 1]! * inv;
+    const l2 = a[colJ + 2]! * inv;
+    a[colJ + 1] = l1;
+    a[colJ + 2] = l2;
+    if (b) {
+      const bj = b[j]!;
+      b[j + 1]! -= l1 * bj;
+      b[j + 2]! -= l2 * bj;
+    }
+  }
+
+  /** Rows j + 1 and j + 2 of the next two columns, less column j's multipliers (diagonal at colJ) times row j. */
+  private updateNextTwoColumns(colJ: number): void {
+    const a = this.band;
+    const l1 = a[colJ + 1]!;
+    const l2 = a[colJ + 2]!;
+    const p1 = colJ + this.columnStride - 1;
+    const p2 = p1 + this.columnStride - 1;
+    const f1 = a[p1]!;
+    const f2 = a[p2]!;
+    a[p1 + 1]! -= l1 * f1;
+    a[p1 + 2]! -= l2 * f1;
+    a[p2 + 1]! -= l1 * f2;
+    a[p2 + 2]! -= l2 * f2;
   }
 
   /** Solves A x = b in place (b becomes x), using the last factorization. */

@@ -63,7 +63,9 @@ describe('InboxRoute', () => {
     const submitted = screen.getByRole('table', { name: 'Submitted by me' });
     const waitingRows = within(waiting).getAllByRole('row').slice(1);
     expect(waitingRows).toHaveLength(1);
-    expect(waitingRows[0]).toHaveTextContent(/Ionizer bar HV.*4.*submitted.*Northfold Engineer/);
+    expect(waitingRows[0]).toHaveTextContent(/Ionizer bar HV.*r4.*submitted.*Northfold Engineer/);
+    // The revision as every other screen writes it ("r4"), its state in the same badge as on the Designs list.
+    expect(within(waitingRows[0]!).getByRole('cell', { name: 'r4' })).toBeInTheDocument();
     expect(within(waiting).getByRole('link', { name: 'Ionizer bar HV' })).toHaveAttribute(
       'href',
       '/projects/p-1/designs/d-7/revisions/4/sign-off',

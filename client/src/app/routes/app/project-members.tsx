@@ -1,7 +1,9 @@
-import { Alert, Loader, Stack, Text, Title } from '@mantine/core';
+import { Alert, Anchor, Loader, Stack, Text, Title } from '@mantine/core';
 import { useDocumentTitle } from '@mantine/hooks';
 import type { QueryClient } from '@tanstack/react-query';
-import { useParams } from 'react-router-dom';
+import { Link, useParams } from 'react-router-dom';
+import { Trail } from '../../../components/trail';
+import { paths } from '../../../config/paths';
 import { useMe } from '../../../features/auth/api/get-me';
 import { MemberRequestsPanel } from '../../../features/members/components/member-requests-panel';
 import { MembersPanel } from '../../../features/members/components/members-panel';
@@ -19,6 +21,15 @@ export function ProjectMembersRoute() {
   useDocumentTitle(`Members · ${project.data?.name ?? 'Project'} · Ladderwright`);
   return (
     <Stack gap="lg">
+      <Trail>
+        <Anchor component={Link} to={paths.projects.getHref()} size="sm">
+          Projects
+        </Anchor>
+        <Anchor component={Link} to={paths.project.getHref(projectId)} size="sm">
+          {project.data?.name ?? 'Project'}
+        </Anchor>
+        <Text size="sm">Members</Text>
+      </Trail>
       <div>
         <Title order={1} size="h2">
           Members

@@ -12,7 +12,7 @@ import { BenchRunList } from '../../../features/bench-runs/components/bench-run-
 import { CalibrationList } from '../../../features/calibrations/components/calibration-list';
 import { getDesignQueryOptions } from '../../../features/designs/api/get-design';
 import { getRevisionQueryOptions } from '../../../features/designs/api/get-revision';
-import { RevisionStateBadge } from '../../../features/designs/components/revision-state-badge';
+import { RevisionStateBadge } from '../../../components/revision-state-badge';
 import { getProjectQueryOptions } from '../../../features/projects/api/get-project';
 import { anchorOptionsOf } from '../../../features/sign-off/anchor-options';
 import { getSignOffQueryOptions } from '../../../features/sign-off/api/get-sign-off';
@@ -97,7 +97,8 @@ export function SignOffRoute() {
             </span>
           </Group>
           <Text size="sm" c="dimmed">
-            {revision.changeNote || 'No change note'} · by {revision.authorName} · {formatDateTime(revision.createdAt)}
+            {revision.changeNote ? `“${revision.changeNote}”` : 'No change note'} · by {revision.authorName} ·{' '}
+            {formatDateTime(revision.createdAt)}
             {revisionNumber !== design.latestRevisionNumber && ` · the latest is r${design.latestRevisionNumber}`}
           </Text>
         </div>

@@ -4,7 +4,7 @@ import { Link } from 'react-router-dom';
 import type { RevisionDetail } from '@ladderwright/shared/api';
 import { paths } from '../../../config/paths';
 import { formatDateTime } from '../../../lib/format-date';
-import { RevisionStateBadge } from '../../../features/designs/components/revision-state-badge';
+import { RevisionStateBadge } from '../../../components/revision-state-badge';
 import { NATIVE_UNDO_ATTRIBUTE } from '../../../features/workbench/hooks/use-design-draft';
 
 export interface WorkbenchHeaderProps {

@@ -52,7 +52,7 @@ describe('BenchOverlay', () => {
     const rows = screen.getByRole('table', { name: 'Deviation per point' }).querySelectorAll('tbody tr');
     expect([...rows].map((row) => row.lastElementChild?.textContent)).toEqual(['-1.05 %', '-2.35 %', 'not compared']);
     // (0.025 − 0.0235294)/0.025 = 5.88 % -> marginal.
-    expect(screen.getAllByLabelText('marginal, margin 5.9 %')[0]?.textContent).toBe('marginal · margin 5.9 %');
+    expect(screen.getAllByLabelText('marginal, margin 5.9 %')[0]?.textContent).toBe('!marginal · margin 5.9 %');
   });
 });
 

@@ -37,8 +37,10 @@ describe('calibrationCurveRows', () => {
 });
 
 describe('formatParameterValue', () => {
-  it('writes resistances with a prefix and plain numbers to four figures', () => {
+  it('writes resistances with a prefix and plain numbers to four figures, without trailing zeros', () => {
     expect(formatParameterValue(82e6, 'Ω')).toBe('82 MΩ');
-    expect(formatParameterValue(0.95, '')).toBe('0.9500');
+    expect(formatParameterValue(0.95, '')).toBe('0.95');
+    expect(formatParameterValue(100, '')).toBe('100');
+    expect(formatParameterValue(76.2849, '')).toBe('76.28');
   });
 });

@@ -60,7 +60,7 @@ describe('CalibrationResultView', () => {
     expect(methodCellOf('Transformer coupling k')).toBe('profile likelihood');
     expect(methodCellOf('Transistor current gain hFE')).toBe('Jacobian, linearized');
     const table = screen.getByRole('table', { name: 'Fitted parameters' });
-    expect(within(table).getByRole('row', { name: /Transformer coupling k/ })).toHaveTextContent('0.9470 to 0.9550');
+    expect(within(table).getByRole('row', { name: /Transformer coupling k/ })).toHaveTextContent('0.947 to 0.955');
   });
 
   it('reads a result stored before profiles as Jacobian intervals, and gives no method without an interval', () => {
@@ -99,7 +99,7 @@ describe('CalibrationList (Sign-off)', () => {
     renderWithApp(<CalibrationList projectId="p1" designId="d1" revisionNumber={2} />);
     const table = await screen.findByRole('table', { name: 'Calibrations' });
     expect(table).toHaveTextContent(
-      'Transformer coupling k 0.9510 (0.9470 to 0.9550, profile likelihood) (95 % intervals)',
+      'Transformer coupling k 0.951 (0.947 to 0.955, profile likelihood) (95 % intervals)',
     );
   });
 });

@@ -17,7 +17,7 @@ import { REVISION_STATES, type RevisionState } from '@ladderwright/shared/review
 import { paths } from '../../../config/paths';
 import { useDesigns } from '../api/get-designs';
 import { DesignsEmpty } from './designs-empty';
-import { RevisionStateBadge } from './revision-state-badge';
+import { RevisionStateBadge } from '../../../components/revision-state-badge';
 import { formatDateTime } from '../../../lib/format-date';
 
 export interface DesignTableProps {

@@ -5,7 +5,7 @@ import { documentFieldLabel, formatFieldDelta, formatFieldValue, resultFieldLabe
 import type { CapacitorPlace } from '@ladderwright/shared/multiplier';
 import { describeMargin, mergeCheckRows, type CheckRow } from '@ladderwright/shared/safety';
 import { formatDateTime } from '../../../lib/format-date';
-import { RevisionStateBadge } from './revision-state-badge';
+import { RevisionStateBadge } from '../../../components/revision-state-badge';
 import classes from './revision-comparison.module.css';
 
 export interface RevisionComparisonProps {

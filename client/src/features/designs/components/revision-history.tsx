@@ -6,7 +6,7 @@ import { paths } from '../../../config/paths';
 import { formatDateTime } from '../../../lib/format-date';
 import { useCompareRevisions } from '../api/compare-revisions';
 import { RevisionComparison } from './revision-comparison';
-import { RevisionStateBadge } from './revision-state-badge';
+import { RevisionStateBadge } from '../../../components/revision-state-badge';
 
 export interface RevisionHistoryProps {
   projectId: string;

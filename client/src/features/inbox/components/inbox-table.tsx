@@ -1,6 +1,7 @@
-import { Anchor, Badge, Table, Text } from '@mantine/core';
+import { Anchor, Table, Text } from '@mantine/core';
 import type { InboxItem } from '@ladderwright/shared/api';
 import { Link } from 'react-router-dom';
+import { RevisionStateBadge } from '../../../components/revision-state-badge';
 import { paths } from '../../../config/paths';
 
 /** Where an item's link goes: the Sign-off to decide or release, or the Workbench to answer a return. */
@@ -50,9 +51,9 @@ export function InboxTable({
                 {item.designName}
               </Anchor>
             </Table.Td>
-            <Table.Td>{item.revisionNumber}</Table.Td>
+            <Table.Td>r{item.revisionNumber}</Table.Td>
             <Table.Td>
-              <Badge variant="light">{item.state}</Badge>
+              <RevisionStateBadge state={item.state} />
             </Table.Td>
             <Table.Td>{item.authorName}</Table.Td>
             <Table.Td>{item.reviewerNames.join(', ')}</Table.Td>

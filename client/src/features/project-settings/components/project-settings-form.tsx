@@ -14,7 +14,7 @@ import {
   Title,
 } from '@mantine/core';
 import type { DefaultTargets, ProjectDetail } from '@ladderwright/shared/api';
-import { NAMED_DISCHARGE_RULES } from '@ladderwright/shared/designs';
+import { DISCHARGE_RULE_LABELS, NAMED_DISCHARGE_RULES } from '@ladderwright/shared/designs';
 import { ACCEPTANCE_COVERAGES, type AcceptanceCoverage, BENCH_ALLOWANCE_MAX } from '@ladderwright/shared/reviews';
 import { useArchiveProject } from '../api/archive-project';
 import { useUnarchiveProject } from '../api/unarchive-project';
@@ -153,7 +153,7 @@ export function ProjectSettingsForm({ project }: { project: ProjectDetail }) {
               label="Discharge rule"
               placeholder="Keep the blank's"
               clearable
-              data={[...NAMED_DISCHARGE_RULES]}
+              data={NAMED_DISCHARGE_RULES.map((value) => ({ value, label: DISCHARGE_RULE_LABELS[value] }))}
               value={rule}
               onChange={setRule}
               disabled={isReadOnly}

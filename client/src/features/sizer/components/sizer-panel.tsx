@@ -20,6 +20,9 @@ import { QuantityInput } from '../../../components/quantity-input';
 import { candidateDocument } from '../candidate-document';
 import { useSizerRun } from '../hooks/use-sizer-run';
 
+/** A figure and its unit, or a part code, stay on one line in the candidates' table. */
+const unbroken = { whiteSpace: 'nowrap' } as const;
+
 export interface SizerPanelProps {
   /** Starts a design from a candidate's document; resolves when the design exists. */
   onStartDesign: (document: Design) => void;
@@ -179,7 +182,7 @@ function CandidateTable({
             <Table.Thead>
               <Table.Tr>
                 <Table.Th>Rank</Table.Th>
-                <Table.Th>Ladder</Table.Th>
+                <Table.Th miw={130}>Ladder</Table.Th>
                 <Table.Th>Capacitors</Table.Th>
                 <Table.Th>Diode</Table.Th>
                 <Table.Th>Output</Table.Th>
@@ -194,23 +197,34 @@ function CandidateTable({
             </Table.Thead>
             <Table.Tbody>
               {result.candidates.map((candidate) => {
-                const distinct = [...new Set(candidate.capacitorsF)].map((v) => formatQuantity(v, 'F')).join(' … ');
+                // Each value whole on its line ("1.2 nF", never "1.2" over "nF"); the list breaks between values.
+                const distinct = [...new Set(candidate.capacitorsF)]
+                  .map((v) => formatQuantity(v, 'F').replace(' ', '\u00a0'))
+                  .join(' … ');
+                const codes = partCodesOf(candidate);
                 const name = `${candidate.topology} ${candidate.cellCount} cells, ${candidate.grading}`;
                 return (
                   <Table.Tr key={candidate.rank}>
                     <Table.Td fw={700}>{candidate.rank}</Table.Td>
                     <Table.Td>{name}</Table.Td>
                     <Table.Td>{distinct}</Table.Td>
-                    <Table.Td>
+                    <Table.Td style={unbroken}>
                       {candidate.diode.partCode ?? `${formatQuantity(candidate.diode.ratedPivV, 'V')} PIV`}
                     </Table.Td>
-                    <Table.Td>{formatQuantity(candidate.outputMeanV, 'V')}</Table.Td>
-                    <Table.Td>{formatQuantity(candidate.ripplePeakToPeakV, 'V')}</Table.Td>
-                    <Table.Td>{formatQuantity(candidate.storedEnergyJ, 'J')}</Table.Td>
-                    <Table.Td>{candidate.worstMarginPct.toFixed(1)} %</Table.Td>
+                    <Table.Td style={unbroken}>{formatQuantity(candidate.outputMeanV, 'V')}</Table.Td>
+                    <Table.Td style={unbroken}>{formatQuantity(candidate.ripplePeakToPeakV, 'V')}</Table.Td>
+                    <Table.Td style={unbroken}>{formatQuantity(candidate.storedEnergyJ, 'J')}</Table.Td>
+                    <Table.Td style={unbroken}>{candidate.worstMarginPct.toFixed(1)} %</Table.Td>
                     <Table.Td>{candidate.partCount}</Table.Td>
                     <Table.Td ff="monospace" fz="xs">
-                      {partCodesOf(candidate).join(', ') || '—'}
+                      {codes.length === 0
+                        ? '—'
+                        : codes.map((code, i) => (
+                            <span key={code}>
+                              {i > 0 && ', '}
+                              <span style={unbroken}>{code}</span>
+                            </span>
+                          ))}
                     </Table.Td>
                     <Table.Td>{candidate.cost === null ? '—' : candidate.cost.toFixed(2)}</Table.Td>
                     <Table.Td>

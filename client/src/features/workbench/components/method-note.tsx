@@ -25,9 +25,8 @@ export function MethodNote({ subject, method, methodText, note }: MethodNoteProp
         {method ? (
           <Stack gap={6}>
             <Text size="xs" fw={600}>
-              {method.methodId}
+              {method.summary}
             </Text>
-            <Text size="xs">{method.summary}</Text>
             {method.assumptions.length > 0 && (
               <List size="xs" spacing={2}>
                 {method.assumptions.map((assumption) => (
@@ -39,6 +38,13 @@ export function MethodNote({ subject, method, methodText, note }: MethodNoteProp
               Source: {method.source}
             </Text>
             {note && <Text size="xs">{note}</Text>}
+            {/* The engine's name for the method, as reports and exports cite it: last, for tracing, not reading. */}
+            <Text size="xs" c="dimmed">
+              Method id{' '}
+              <Text span inherit ff="monospace">
+                {method.methodId}
+              </Text>
+            </Text>
           </Stack>
         ) : (
           <Text size="xs">{methodText}</Text>

@@ -1,17 +1,12 @@
 import { Select, Switch } from '@mantine/core';
 import { NumberField } from '../../../../components/number-field';
-import { NAMED_DISCHARGE_RULES } from '@ladderwright/shared/designs';
+import { DISCHARGE_RULE_LABELS, NAMED_DISCHARGE_RULES } from '@ladderwright/shared/designs';
 import { BoundField } from '../../../../components/bound-field';
 import { FieldGrid } from '../../../../components/field-grid';
 import { binder } from '../../document-path';
 import type { SectionProps } from './form-section.types';
 
-const ruleLabels: Record<(typeof NAMED_DISCHARGE_RULES)[number], string> = {
-  '50V-1min': 'to 50 V within 1 min',
-  '50V-5min': 'to 50 V within 5 min',
-  '60V-5s': 'to 60 V within 5 s',
-};
-const dischargeRules = NAMED_DISCHARGE_RULES.map((value) => ({ value, label: ruleLabels[value] }));
+const dischargeRules = NAMED_DISCHARGE_RULES.map((value) => ({ value, label: DISCHARGE_RULE_LABELS[value] }));
 
 /** Output, ripple and load targets, the safe touch level with its discharge rule, and the spacing environment. */
 export function TargetsSection({ document, edit, issue }: SectionProps) {
