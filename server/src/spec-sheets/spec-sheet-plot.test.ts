@@ -1,7 +1,9 @@
 import PDFDocument from 'pdfkit';
 import { benchLimits } from '@ladderwright/shared/bench';
 import { FONT_FILES } from './spec-sheet-layout';
-import { outputVsLoadPlot, roundedAxisEnd } from './spec-sheet-plot';
+import { analyzeDesign } from '@ladderwright/shared/analysis';
+import { designExamples } from '@ladderwright/shared/designs';
+import { outputVsLoadPlot, predictedLoadCurve, roundedAxisEnd } from './spec-sheet-plot';
 import type { SpecSheetContent } from './spec-sheet.types';
 
 // A revision may carry several bench runs of `benchLimits.maxDataRows` points each. The plot once took its axis ranges
@@ -44,5 +46,23 @@ describe('roundedAxisEnd', () => {
     [31, 40], // 7.75 → 10
   ])('puts %d on an axis ending at %d', (largest, end) => {
     expect(roundedAxisEnd(largest, 4)).toBeCloseTo(end, 12);
+  });
+});
+
+describe('predictedLoadCurve', () => {
+  it('draws a driver design as the supply: its no-load output and its end where the supply gives out', () => {
+    const report = analyzeDesign(designExamples.surfaceChargeTester);
+    const driver = report.driver!;
+    const curve = predictedLoadCurve(report);
+    expect(curve[0]?.y).toBeCloseTo(Math.abs(driver.operatingPoint.curve[0]!.outputV), 9);
+    // The curve ends where the output reaches zero: the most the supply delivers (bisection to about 1e-4, as in
+    // the operating point), not where the ladder at the rated drive would fall to zero.
+    expect(curve.at(-1)!.x / driver.loadCapacity!.maxLoadCurrentA).toBeCloseTo(1, 3);
+    expect(curve.at(-1)!.x).not.toBeCloseTo(report.curves.regulation.at(-1)!.x, 6);
+  });
+
+  it('draws a bare ladder as its regulation at its drive', () => {
+    const report = analyzeDesign(designExamples.detectorBias);
+    expect(predictedLoadCurve(report)).toEqual(report.curves.regulation.map((p) => ({ x: p.x, y: Math.abs(p.y) })));
   });
 });

@@ -28,9 +28,19 @@ export function roundedAxisEnd(largest: number, divisions: number): number {
   return factor * decade * divisions;
 }
 
+/**
+ * The predicted output magnitude against load current: with a driver, the supply's own curve (driver and ladder
+ * solved together at each load, as the Workbench draws it); else the ladder's regulation at its fixed drive.
+ */
+export function predictedLoadCurve(report: SpecSheetContent['report']): { x: number; y: number }[] {
+  const driver = report.driver;
+  if (driver) return driver.operatingPoint.curve.map((p) => ({ x: p.loadCurrentA, y: Math.abs(p.outputV) }));
+  return report.curves.regulation.map((p) => ({ x: p.x, y: Math.abs(p.y) }));
+}
+
 /** Output vs load current as vector paths, with the acceptance window and the rated load marked. */
 export function outputVsLoadPlot(doc: Doc, c: SpecSheetContent): void {
-  const points = c.report.curves.regulation.map((p) => ({ x: p.x, y: Math.abs(p.y) }));
+  const points = predictedLoadCurve(c.report);
   if (points.length < 2) return;
   const sweeps = loadSweeps(c);
   // Heading, plot, axis labels and caption move to a new page together.

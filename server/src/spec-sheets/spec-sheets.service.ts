@@ -1,7 +1,7 @@
 import { Injectable } from '@nestjs/common';
 import { InjectModel } from '@nestjs/sequelize';
 import type { CurrentUser } from '@ladderwright/shared/api';
-import { type DesignReport, headlineSource, ladderInputOf, resolveDrive } from '@ladderwright/shared/analysis';
+import { type DesignReport, headlineSource, ratedPoint } from '@ladderwright/shared/analysis';
 import type { Design } from '@ladderwright/shared/designs';
 import { type AcceptanceLimits, type AcceptanceSettings, acceptanceLimits } from '@ladderwright/shared/reviews';
 import { toleranceSpread } from '@ladderwright/shared/sizing';
@@ -69,12 +69,13 @@ const ACCEPTANCE_SPREAD_SEED = 20_260_101;
 
 /**
  * The acceptance window: the output's spread over the capacitor tolerances the document states (seeded Monte
- * Carlo of the steady-state analysis), at the project's coverage, stretched to contain the target.
+ * Carlo of the steady-state analysis), at the project's coverage, stretched to contain the target. The ladder is
+ * driven as at the rated load (a driver design's operating point, where its headline output comes from), not at the
+ * driver's limit.
  */
 export function acceptanceOf(document: Design, report: DesignReport, settings: AcceptanceSettings): AcceptanceLimits {
-  const { drive, currentLimitA } = resolveDrive(document);
   const spread = toleranceSpread({
-    input: ladderInputOf(document, drive, currentLimitA),
+    input: ratedPoint(document).input,
     capacitorTolerance: document.multiplier.capacitors.map((capacitor) => capacitor.tolerance),
     driveVariation: 0,
     trials: ACCEPTANCE_SPREAD_TRIALS,

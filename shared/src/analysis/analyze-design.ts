@@ -21,7 +21,8 @@ import { transformerDriverEffect } from './transformer-effect';
 import { designedTransformerReport, withGivenTransformer } from './transformer-report';
 import { ladderDischargePhases } from './ladder-discharge';
 
-export { ladderInputOf, resolveDrive } from './design-drive';
+export { ladderInputOf, ratedPoint, resolveDrive } from './design-drive';
+export type { RatedPoint } from './design-drive';
 
 /** Report of a bare ladder: figures (SI, signed by polarity), curves, stored energy, discharge and how each was computed. */
 export interface LadderReport extends Pick<

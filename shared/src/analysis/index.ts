@@ -1,5 +1,12 @@
-export { analyzeDesign, analyzeLadderReport, evaluateChecks, resolveDrive, ladderInputOf } from './analyze-design';
-export type { DesignReport, LadderReport, LadderReportOptions } from './analyze-design';
+export {
+  analyzeDesign,
+  analyzeLadderReport,
+  evaluateChecks,
+  resolveDrive,
+  ladderInputOf,
+  ratedPoint,
+} from './analyze-design';
+export type { DesignReport, LadderReport, LadderReportOptions, RatedPoint } from './analyze-design';
 export { headlineSource, LADDER_ESTIMATE_TOLERANCE } from './simulated-figures';
 export {
   estimateHeadline,

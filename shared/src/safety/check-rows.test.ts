@@ -42,6 +42,10 @@ describe('describeMargin', () => {
   it('gives the headroom under an upper limit as a share of it', () => {
     expect(describeMargin({ value: 31, limit: 50, marginPct: 38 })).toBe('38 % below the limit');
     expect(describeMargin({ value: 49.6, limit: 50, marginPct: 0.8 })).toBe('0.8 % below the limit');
+    // Far below the limit the share of the limit reached says how far: 1.28 mA against 10 A.
+    expect(describeMargin({ value: 1.28e-3, limit: 10, marginPct: 99.99 })).toBe('0.013 % of the limit');
+    expect(describeMargin({ value: 0.098, limit: 10, marginPct: 99.02 })).toBe('0.98 % of the limit');
+    expect(describeMargin({ value: 0.1, limit: 10, marginPct: 99 })).toBe('99 % below the limit');
   });
 
   it('reads a lower limit (base drive must reach 1.5× the need) the other way round', () => {

@@ -43,6 +43,11 @@ function twoFigures(value: number): string {
   return Number(value.toPrecision(2)).toString();
 }
 
+/** A small ratio (under 1 %) as per cent to two significant figures: 1.28e-4 → "0.013". */
+function percentOf(ratio: number): string {
+  return Number(Math.max(0, ratio * 100).toPrecision(2)).toString();
+}
+
 /** Per cent of a bounded share (0–100): integer from 10 up, one decimal below. */
 function share(pct: number): string {
   const bounded = Math.min(100, Math.max(0, pct));
@@ -78,7 +83,9 @@ export function describeMargin(
       return isUpperLimit ? 'over the limit, marginal by its rule' : 'short of the minimum, marginal by its rule';
   }
   if (isUpperLimit) {
-    if (value < limit) return `${share((1 - ratio) * 100)} % below the limit`;
+    // Far below, "100 % below" hides how far: a current of 1.3 mA against a 10 A rating reads "0.013 % of the limit".
+    if (value < limit)
+      return ratio < 0.01 ? `${percentOf(ratio)} % of the limit` : `${share((1 - ratio) * 100)} % below the limit`;
     return ratio < 2 ? `${share((ratio - 1) * 100)} % over the limit` : `${twoFigures(ratio)}× the limit`;
   }
   if (value > limit)

@@ -79,6 +79,8 @@ export function LadderCharts({ report }: LadderChartsProps) {
   const load = loadCurveOf(report);
   const span = useCurveSpan(load.nearRange, load.range);
   const [outputColor = '', , designColor = ''] = chartColors.traces;
+  // The curves are magnitudes; a negative supply says so on its axes rather than plotting −6 kV as 6 kV unnamed.
+  const outputTitle = report.analysis.outputMeanV < 0 ? 'Output magnitude' : 'Output';
   return (
     <SimpleGrid type="container" cols={{ base: 1, '620px': 2 }} spacing="md">
       <QuantityChart
@@ -94,7 +96,7 @@ export function LadderCharts({ report }: LadderChartsProps) {
           includesZero: true,
           range: span.range,
         }}
-        y={{ title: 'Output', unit: 'V', includesZero: true }}
+        y={{ title: outputTitle, unit: 'V', includesZero: true }}
         series={[{ key: 'y', name: load.seriesName, color: outputColor }]}
         markers={[{ key: 'operating', label: load.loadLabel, x: load.loadA, color: chartColors.mark }]}
         footer={
@@ -113,7 +115,7 @@ export function LadderCharts({ report }: LadderChartsProps) {
         heightPx={220}
         data={curves.outputVsStages}
         x={{ key: 'x', title: 'Stages', unit: '', isInteger: true }}
-        y={{ title: 'Output', unit: 'V' }}
+        y={{ title: outputTitle, unit: 'V' }}
         series={[{ key: 'y', name: 'output (mean) at the operating load', color: outputColor, hasDots: true }]}
         markers={[
           {
