@@ -1,5 +1,5 @@
 import { DomainError } from '../errors';
-import type { CircuitElement, SourceWaveform } from './circuit.types';
+import type { CircuitElement, SaturableCore, SourceWaveform } from './circuit.types';
 import { inductanceMatrix } from './devices/coupled-inductors';
 import type { BandedLu } from './solver/banded-lu';
 import type { UnknownOrdering } from './unknown-ordering';
@@ -98,6 +98,25 @@ export function positiveValue(value: number, path: string): number {
   if (!(value > 0) || !Number.isFinite(value))
     throw new DomainError('invalid_argument', 'must be a positive finite number', path);
   return value;
+}
+
+/** Refuses a circuit without elements or with two elements of one name (field path of the second). */
+export function assertNamedElements(elements: readonly CircuitElement[]): void {
+  if (elements.length === 0) throw new DomainError('invalid_argument', 'the circuit has no elements', 'elements');
+  const names = new Set<string>();
+  elements.forEach((e, i) => {
+    if (names.has(e.name))
+      throw new DomainError('invalid_argument', `duplicate element name ${e.name}`, `elements[${i}].name`);
+    names.add(e.name);
+  });
+}
+
+/** Refuses a saturable core whose figures cannot describe one (field paths under `path`). */
+export function assertSaturableCore(core: SaturableCore, path: string): void {
+  positiveValue(core.saturationCurrentA, `${path}.saturationCurrentA`);
+  positiveValue(core.saturatedInductanceH, `${path}.saturatedInductanceH`);
+  if (!(core.magnetizingInductanceH > core.saturatedInductanceH))
+    throw new DomainError('invalid_argument', 'must exceed the saturated inductance', `${path}.magnetizingInductanceH`);
 }
 
 type LinearElement = Exclude<CircuitElement, { kind: 'diode' } | { kind: 'npn' }>;

@@ -10,6 +10,8 @@ import { NpnInstance, npnTerminalResistancesOhm } from './devices/npn-instance';
 import { SaturableCoreInstance } from './devices/saturable-core';
 import {
   addConductance,
+  assertNamedElements,
+  assertSaturableCore,
   positiveValue,
   ReactiveTable,
   stampLinearElement,
@@ -89,13 +91,7 @@ export class MnaSystem {
 
   constructor(circuit: Circuit) {
     const elements = circuit.elements;
-    if (elements.length === 0) throw new DomainError('invalid_argument', 'the circuit has no elements', 'elements');
-    const names = new Set<string>();
-    elements.forEach((e, i) => {
-      if (names.has(e.name))
-        throw new DomainError('invalid_argument', `duplicate element name ${e.name}`, `elements[${i}].name`);
-      names.add(e.name);
-    });
+    assertNamedElements(elements);
 
     const ordering = orderUnknowns(elements);
     const size = ordering.size;
@@ -160,14 +156,7 @@ export class MnaSystem {
           stampLinearElement(e, path, ordering, targets);
           const core = e.core;
           if (!core) break;
-          positiveValue(core.saturationCurrentA, `${path}.core.saturationCurrentA`);
-          positiveValue(core.saturatedInductanceH, `${path}.core.saturatedInductanceH`);
-          if (!(core.magnetizingInductanceH > core.saturatedInductanceH))
-            throw new DomainError(
-              'invalid_argument',
-              'must exceed the saturated inductance',
-              `${path}.core.magnetizingInductanceH`,
-            );
+          assertSaturableCore(core, `${path}.core`);
           const l1 = e.windings[0]!.inductanceH;
           deferred.push(() =>
             this.cores.push(
