@@ -17,7 +17,7 @@ export interface DriverOperatingCurveProps {
 export function DriverOperatingCurve({ operatingPoint: op }: DriverOperatingCurveProps) {
   const points = op.curve.map((p) => ({ x: p.loadCurrentA, y: p.outputV }));
   const rated = op.ratedLoad;
-  const span = useCurveSpan(nearLoadRange(rated.loadCurrentA, points.at(-1)?.x ?? 0));
+  const span = useCurveSpan(nearLoadRange(rated.loadCurrentA, points.at(-1)?.x ?? 0, op.powerLimitOnsetA));
   return (
     <QuantityChart
       label="Driver output vs load current"

@@ -45,5 +45,9 @@ describe('loadCurveOf', () => {
     expect(nearLoadRange(3e-5, 4.4e-4)?.[1]).toBeCloseTo(1e-4, 12);
     expect(nearLoadRange(1e-3, 1e-3)).toBeUndefined();
     expect(nearLoadRange(0, 1e-3)).toBeUndefined();
+    // The driver's power-limit onset at 15.2 µA beside a 2 µA load: the range reaches past it (19 µA → 20 µA).
+    expect(nearLoadRange(2e-6, 1.6e-4, 15.2e-6)?.[1]).toBeCloseTo(2e-5, 12);
+    expect(nearLoadRange(2e-6, 1.6e-4, 1e-6)?.[1]).toBeCloseTo(1e-5, 12);
+    expect(nearLoadRange(2e-6, 3e-5, 15.2e-6)).toBeUndefined();
   });
 });

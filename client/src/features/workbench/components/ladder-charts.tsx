@@ -18,11 +18,12 @@ function roundUpToSeries(value: number): number {
 /**
  * The load-current range that shows the operating load clear of the y-axis (a fifth to a third of the way across), or
  * undefined when the whole curve already does. Supplies of this kind run far below their short-circuit current, so
- * drawn to its end the load would sit on the axis.
+ * drawn to its end the load would sit on the axis. A mark that belongs beside the load (the driver's power-limit
+ * onset, `alsoShowA`) is kept inside the range with a quarter of its value to spare.
  */
-export function nearLoadRange(loadA: number, curveEndA: number): readonly [number, number] | undefined {
+export function nearLoadRange(loadA: number, curveEndA: number, alsoShowA = 0): readonly [number, number] | undefined {
   if (!(loadA > 0) || !(curveEndA > 0)) return undefined;
-  const endA = roundUpToSeries(3 * loadA);
+  const endA = roundUpToSeries(Math.max(3 * loadA, 1.25 * alsoShowA));
   return endA < 0.5 * curveEndA ? [0, endA] : undefined;
 }
 
