@@ -1,4 +1,7 @@
-import { formatQuantity, type QuantityUnit } from '@ladderwright/shared/units';
+import { formatQuantity, roundStep, type QuantityUnit } from '@ladderwright/shared/units';
+
+/** The round step of a chart axis, kept with the engine's units so the spec sheet's plot uses the same scale. */
+export { roundStep };
 
 /**
  * Significant figures a tick needs so that neighbouring ticks over [min, max] read differently: two
@@ -66,15 +69,6 @@ export interface QuantityAxisOptions {
   isInteger?: boolean;
   /** About how many ticks; 5 unless told. */
   tickCount?: number;
-}
-
-/** The round step (1, 2, 2.5 or 5 × 10ⁿ) that cuts `span` into about `count` parts. */
-export function roundStep(span: number, count: number): number {
-  const raw = span / Math.max(1, count);
-  const power = 10 ** Math.floor(Math.log10(raw));
-  const mantissa = raw / power;
-  const nice = mantissa <= 1 ? 1 : mantissa <= 2 ? 2 : mantissa <= 2.5 ? 2.5 : mantissa <= 5 ? 5 : 10;
-  return nice * power;
 }
 
 /** Decimals that write every multiple of `step` exactly (0.25 needs two). */

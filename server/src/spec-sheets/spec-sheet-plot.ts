@@ -1,3 +1,4 @@
+import { roundStep } from '@ladderwright/shared/units';
 import type { SpecSheetContent } from './spec-sheet.types';
 import {
   ACCENT,
@@ -21,11 +22,7 @@ const AXIS_DIVISIONS = 4;
  * line carries a round figure (4 kV in 1 kV steps, not 3.78 kV in 945 V steps).
  */
 export function roundedAxisEnd(largest: number, divisions: number): number {
-  const rawStep = largest / divisions;
-  const decade = 10 ** Math.floor(Math.log10(rawStep));
-  // The small allowance keeps a step that is already round (1000 / 4 = 250) from moving up through rounding error.
-  const factor = [1, 2, 2.5, 5, 10].find((candidate) => candidate * decade >= rawStep * (1 - 1e-9)) ?? 10;
-  return factor * decade * divisions;
+  return roundStep(largest, divisions) * divisions;
 }
 
 /**
